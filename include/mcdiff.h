@@ -1,0 +1,676 @@
+/*
+ * mcdiff.h - multicomponent diffusion fluxes for simulators.
+ *
+ * The only installed header of libmcdiff. Self-contained C99; usable from C++.
+ *
+ * Units: SI everywhere. T [K], P [Pa], D [m^2/s], c [mol/m^3], rho [kg/m^3],
+ * M [kg/mol], molar fluxes [mol/(m^2 s)], mass fluxes [kg/(m^2 s)],
+ * gradients of mole or mass fractions [1/m], viscosity [Pa s],
+ * Lennard-Jones sigma [m], epsilon/k [K], dipole moment [C m],
+ * molar volume [m^3/mol].
+ *
+ * Layout: matrices are row-major, element (i,j) at i*n + j. Flux and gradient
+ * arrays are n_species x n_dim: row = species, column = spatial direction,
+ * element (i,d) at i*n_dim + d.
+ *
+ * Errors: every fallible call returns an mcd_status. On error, output arrays
+ * are left untouched unless a function's documentation says otherwise.
+ * The library never prints, aborts or exits.
+ *
+ * Threads: objects created by mcd_*_new/alloc are owned by the caller. A
+ * species database or mixture that is no longer modified may be shared
+ * read-only by any number of threads; a workspace belongs to one thread at a
+ * time.
+ *
+ * Labels at the end of each block: "Fails:" lists the status codes the call
+ * can return besides MCD_OK; "Allocates:" whether it may allocate heap memory.
+ */
+#ifndef MCDIFF_H
+#define MCDIFF_H
+
+#include <stddef.h>
+
+#ifdef __cplusplus
+extern "C" {
+#endif
+
+/* ------------------------------------------------------------------ */
+/* Version                                                             */
+/* ------------------------------------------------------------------ */
+
+#define MCD_VERSION_MAJOR 0
+#define MCD_VERSION_MINOR 1
+#define MCD_VERSION_PATCH 0
+#define MCD_VERSION_NUMBER \
+    (MCD_VERSION_MAJOR * 10000 + MCD_VERSION_MINOR * 100 + MCD_VERSION_PATCH)
+
+/* Export control: default visibility on GCC/Clang; dllexport/dllimport on
+ * Windows; empty for static use (define MCD_STATIC). */
+#if defined(MCD_STATIC)
+#define MCD_API
+#elif defined(_WIN32)
+#if defined(MCD_BUILDING_LIB)
+#define MCD_API __declspec(dllexport)
+#else
+#define MCD_API __declspec(dllimport)
+#endif
+#elif defined(__GNUC__) && __GNUC__ >= 4
+#define MCD_API __attribute__((visibility("default")))
+#else
+#define MCD_API
+#endif
+
+#if defined(__GNUC__) || defined(__clang__)
+#define MCD_DEPRECATED(msg) __attribute__((deprecated(msg)))
+#elif defined(_MSC_VER)
+#define MCD_DEPRECATED(msg) __declspec(deprecated(msg))
+#else
+#define MCD_DEPRECATED(msg)
+#endif
+
+/** Runtime version as MAJOR*10000 + MINOR*100 + PATCH. Since 0.1. */
+MCD_API unsigned mcd_version_number(void);
+/** Runtime version as a static "MAJOR.MINOR.PATCH" string. Since 0.1. */
+MCD_API const char *mcd_version_string(void);
+
+/* ------------------------------------------------------------------ */
+/* Status codes (numeric values never change once released)            */
+/* ------------------------------------------------------------------ */
+
+typedef enum mcd_status {
+    MCD_OK = 0,
+    MCD_EINVAL = 1,    /**< NULL pointer, NaN or infinity, bad count or enum */
+    MCD_EDOM = 2,      /**< outside the model's domain (negative fraction, sum
+                            not 1, non-positive T, P, c or D, asymmetric D) */
+    MCD_EBADLEN = 3,   /**< size differs from the workspace's or mixture's */
+    MCD_ENOMEM = 4,    /**< allocation failed */
+    MCD_ESING = 5,     /**< singular or indefinite matrix (LAPACK info > 0) */
+    MCD_EINTERNAL = 6, /**< internal error (LAPACK info < 0): a library bug */
+    MCD_ENOTFOUND = 7, /**< unknown species, element or method */
+    MCD_EPARSE = 8,    /**< malformed formula, file or text */
+    MCD_ENODATA = 9,   /**< a parameter the method needs is missing */
+    MCD_ENOCONV = 10,  /**< iteration did not converge */
+    MCD_EIO = 11       /**< file could not be opened or read */
+} mcd_status;
+
+/** Static, never-NULL English text for a status code. Since 0.1.
+ *  Fails: - | Allocates: no */
+MCD_API const char *mcd_status_string(int status);
+
+/* ------------------------------------------------------------------ */
+/* Limits and tolerances                                               */
+/* ------------------------------------------------------------------ */
+
+/** Largest number of species accepted by any call. */
+#define MCD_MAX_SPECIES 1024
+/** Largest number of spatial directions in flux and gradient arrays. */
+#define MCD_MAX_DIM 3
+/** A composition whose sum differs from 1 by at most this is renormalised;
+ *  a larger difference is MCD_EDOM. */
+#define MCD_SUM_TOL 1e-6
+/** Universal gas constant [J/(mol K)], exact in the 2019 SI (CODATA 2018). */
+#define MCD_GAS_CONSTANT 8.31446261815324
+/** Standard atmosphere [Pa], exact by definition. */
+#define MCD_ATM 101325.0
+
+/* ------------------------------------------------------------------ */
+/* Chemical formulas and elements                                      */
+/* ------------------------------------------------------------------ */
+
+/*
+ * Formula grammar: element symbols (capital letter, optional lower-case
+ * letter) each followed by an optional positive integer count; parenthesised
+ * groups with an optional count, nested up to 8 deep. Examples: "C3H5Cl",
+ * "CH3COCH3", "(CH3)2CO", "SF6", "CH3(CH2)4CH3". No spaces, charges or
+ * hydrates. Parse errors write a message naming the 1-based character
+ * position into errbuf (if errbuf != NULL and errlen > 0; always
+ * NUL-terminated).
+ */
+
+/** Molar mass [kg/mol] of a formula from the IUPAC standard atomic weights
+ *  (conventional values for elements given as intervals). Since 0.1.
+ *  @param formula  NUL-terminated formula, see the grammar above.
+ *  @param out_M    molar mass [kg/mol].
+ *  @param errbuf   optional message buffer, @param errlen its size.
+ *  Fails: EINVAL (NULL), EPARSE (malformed), ENOTFOUND (unknown element)
+ *  | Allocates: no */
+MCD_API mcd_status mcd_formula_molar_mass(const char *formula, double *out_M,
+                                          char *errbuf, size_t errlen);
+
+/** Element counts of a formula, merged per element in order of first
+ *  appearance. Since 0.1.
+ *  @param cap        capacity of out_Z and out_count.
+ *  @param out_Z      atomic numbers, @param out_count  atom counts.
+ *  @param out_n      number of distinct elements written.
+ *  Fails: EINVAL, EPARSE, ENOTFOUND, EBADLEN (more than cap elements)
+ *  | Allocates: no */
+MCD_API mcd_status mcd_formula_elements(const char *formula, size_t cap,
+                                        int *out_Z, long *out_count,
+                                        size_t *out_n, char *errbuf,
+                                        size_t errlen);
+
+/** Fuller-Ensley-Giddings diffusion volume [-] (the sum of atomic and
+ *  structural increments, in the method's cm^3-based units) of a formula.
+ *  Only C, H, O, N, S, F, Cl, Br, I are covered by increments.
+ *  @param n_rings  number of aromatic or heterocyclic rings (each adds the
+ *                  method's ring increment, -18.3 in the 1969 set); 0 for
+ *                  none (>= 0). Since 0.1.
+ *  Fails: EINVAL, EPARSE, ENOTFOUND, ENODATA (element without increment)
+ *  | Allocates: no */
+MCD_API mcd_status mcd_formula_diffusion_volume(const char *formula,
+                                                int n_rings, double *out_V,
+                                                char *errbuf, size_t errlen);
+
+/** Tabulated Fuller-Ensley-Giddings diffusion volume of a simple molecule
+ *  (H2, D2, He, N2, O2, air, Ar, Kr, Xe, Ne, CO, CO2, N2O, NH3, H2O, SF6,
+ *  Cl2, Br2, SO2), looked up by formula. Since 0.1.
+ *  Fails: EINVAL, ENOTFOUND (not a tabulated molecule) | Allocates: no */
+MCD_API mcd_status mcd_fsg_molecule_volume(const char *formula, double *out_V);
+
+/** Symbol of element Z (1..118), or NULL. Since 0.1. */
+MCD_API const char *mcd_element_symbol(int Z);
+/** Standard atomic weight of element Z [kg/mol]. Since 0.1.
+ *  Fails: ENOTFOUND (Z out of range or no standard weight) | Allocates: no */
+MCD_API mcd_status mcd_element_weight(int Z, double *out_kg_per_mol);
+
+/* ------------------------------------------------------------------ */
+/* Species database                                                    */
+/* ------------------------------------------------------------------ */
+
+typedef struct mcd_db mcd_db;
+
+/** Species parameters. A parameter that is not known is reported as
+ *  MCD_ENODATA by mcd_db_param. */
+typedef enum mcd_param {
+    MCD_PARAM_MOLAR_MASS = 0,   /**< M [kg/mol] */
+    MCD_PARAM_DIFF_VOLUME = 1,  /**< Fuller diffusion volume [-] */
+    MCD_PARAM_LJ_SIGMA = 2,     /**< Lennard-Jones sigma [m] */
+    MCD_PARAM_LJ_EPS_K = 3,     /**< Lennard-Jones epsilon/k_B [K] */
+    MCD_PARAM_DIPOLE = 4,       /**< dipole moment [C m] */
+    MCD_PARAM_VB = 5,           /**< liquid molar volume at the normal
+                                     boiling point [m^3/mol] */
+    MCD_PARAM_TB = 6,           /**< normal boiling point [K] */
+    MCD_PARAM_ASSOC = 7,        /**< Wilke-Chang association factor of the
+                                     species as a solvent [-] */
+    MCD_PARAM_TC = 8,           /**< critical temperature [K] */
+    MCD_PARAM_PC = 9,           /**< critical pressure [Pa] */
+    MCD_PARAM_COUNT = 10
+} mcd_param;
+
+/** Short machine name of a parameter ("M", "V_diff", "sigma", "eps_k",
+ *  "dipole", "Vb", "Tb", "assoc", "Tc", "Pc"), or NULL. Since 0.1. */
+MCD_API const char *mcd_param_name(mcd_param p);
+/** SI unit text of a parameter ("kg/mol", "-", "m", "K", "C m",
+ *  "m^3/mol", "Pa"), or NULL. Since 0.1. */
+MCD_API const char *mcd_param_unit(mcd_param p);
+
+/** New empty database. Free with mcd_db_free. Since 0.1.
+ *  Fails: EINVAL, ENOMEM | Allocates: yes */
+MCD_API mcd_status mcd_db_new(mcd_db **out_db);
+/** New database holding a copy of the built-in species table (at least 40
+ *  gases and vapours with sources). Since 0.1.
+ *  Fails: EINVAL, ENOMEM | Allocates: yes */
+MCD_API mcd_status mcd_db_new_builtin(mcd_db **out_db);
+/** Free a database; NULL is a no-op. Since 0.1. */
+MCD_API void mcd_db_free(mcd_db *db);
+
+/** Number of species (0 for NULL). Since 0.1. */
+MCD_API size_t mcd_db_count(const mcd_db *db);
+/** Index of a species by name (case-insensitive), or else by exact formula
+ *  when exactly one species has it. Since 0.1.
+ *  Fails: EINVAL, ENOTFOUND | Allocates: no */
+MCD_API mcd_status mcd_db_find(const mcd_db *db, const char *name,
+                               size_t *out_index);
+/** Name of species i, or NULL when out of range. Pointer valid until the
+ *  database is modified or freed. Since 0.1. */
+MCD_API const char *mcd_db_name(const mcd_db *db, size_t i);
+/** Formula of species i as given, or NULL. Since 0.1. */
+MCD_API const char *mcd_db_formula(const mcd_db *db, size_t i);
+/** Source of parameter p of species i (citation text; "user" for values set
+ *  through the API or a file), or NULL. Since 0.1. */
+MCD_API const char *mcd_db_source(const mcd_db *db, size_t i, mcd_param p);
+/** Value of parameter p of species i in SI units. Since 0.1.
+ *  Fails: EINVAL (NULL, i or p out of range), ENODATA (not known)
+ *  | Allocates: no */
+MCD_API mcd_status mcd_db_param(const mcd_db *db, size_t i, mcd_param p,
+                                double *out_value);
+
+/** Add a species, or reset one of the same name (case-insensitive), from its
+ *  formula: molar mass from atomic weights, diffusion volume from the
+ *  tabulated molecular value if any, else from increments with n_rings ring
+ *  corrections. Other parameters start unknown. Since 0.1.
+ *  @param name     1 to 63 characters from [A-Za-z0-9_+-,()'] starting with a
+ *                  letter or digit.
+ *  Fails: EINVAL, EPARSE (bad name or formula), ENOTFOUND, ENOMEM
+ *  | Allocates: yes */
+MCD_API mcd_status mcd_db_add(mcd_db *db, const char *name,
+                              const char *formula, int n_rings,
+                              size_t *out_index, char *errbuf, size_t errlen);
+/** Set parameter p of species i (SI units; must be finite and > 0, except a
+ *  dipole moment or association factor which may be 0). Source becomes
+ *  "user". Since 0.1.
+ *  Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_db_set_param(mcd_db *db, size_t i, mcd_param p,
+                                    double value);
+/** Load species from a text file in the mcdiff species format (see README).
+ *  All or nothing: on any error the database is unchanged and errbuf names
+ *  the line. Since 0.1.
+ *  Fails: EINVAL, EIO, EPARSE, ENOTFOUND, EDOM, ENOMEM | Allocates: yes */
+MCD_API mcd_status mcd_db_load_file(mcd_db *db, const char *path,
+                                    char *errbuf, size_t errlen);
+/** As mcd_db_load_file, from a NUL-terminated string. Since 0.1. */
+MCD_API mcd_status mcd_db_load_string(mcd_db *db, const char *text,
+                                      char *errbuf, size_t errlen);
+
+/* ------------------------------------------------------------------ */
+/* Compositions                                                        */
+/* ------------------------------------------------------------------ */
+
+/** Validate fractions (mole or mass) and renormalise them: every entry
+ *  finite and >= 0, sum within MCD_SUM_TOL of 1. out_y may equal y.
+ *  Since 0.1.  Fails: EINVAL (NULL, n out of range, NaN/inf), EDOM
+ *  (negative entry, sum off by more than MCD_SUM_TOL) | Allocates: no */
+MCD_API mcd_status mcd_comp_normalize(size_t n, const double *y,
+                                      double *out_y);
+/** Mass fractions from mole fractions: w_i = x_i M_i / Mbar. Validates x as
+ *  mcd_comp_normalize does; M finite and > 0. out_w must not alias.
+ *  Since 0.1. Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_comp_x_to_w(size_t n, const double *M,
+                                   const double *x, double *out_w);
+/** Mole fractions from mass fractions: x_i = (w_i/M_i) / sum_k (w_k/M_k).
+ *  Since 0.1. Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_comp_w_to_x(size_t n, const double *M,
+                                   const double *w, double *out_x);
+/** Mean molar mass [kg/mol] from mole fractions: sum x_i M_i. Since 0.1.
+ *  Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_comp_mean_molar_mass_x(size_t n, const double *M,
+                                              const double *x,
+                                              double *out_Mbar);
+/** Mean molar mass [kg/mol] from mass fractions: 1 / sum (w_i/M_i).
+ *  Since 0.1. Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_comp_mean_molar_mass_w(size_t n, const double *M,
+                                              const double *w,
+                                              double *out_Mbar);
+/** Species concentrations [mol/m^3]: c_i = c x_i. Since 0.1.
+ *  Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_comp_x_to_c(size_t n, double c_total, const double *x,
+                                   double *out_c);
+/** Mole fractions and total concentration from concentrations [mol/m^3]
+ *  (each >= 0, sum > 0). Since 0.1. Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_comp_c_to_x(size_t n, const double *c, double *out_x,
+                                   double *out_c_total);
+/** Ideal-gas total concentration c = P / (R T) [mol/m^3]. Since 0.1.
+ *  Fails: EINVAL (NaN/inf), EDOM (T <= 0 or P <= 0) | Allocates: no */
+MCD_API mcd_status mcd_ideal_gas_c(double T, double P, double *out_c);
+/** Gradients of mass fractions from mole fractions and their gradients
+ *  (grad_x is n x n_dim; rows need not sum exactly to zero).
+ *  Since 0.1. Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_comp_grad_x_to_w(size_t n, size_t n_dim,
+                                        const double *M, const double *x,
+                                        const double *grad_x,
+                                        double *out_grad_w);
+/** Gradients of mole fractions from mass fractions and their gradients.
+ *  Since 0.1. Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_comp_grad_w_to_x(size_t n, size_t n_dim,
+                                        const double *M, const double *w,
+                                        const double *grad_w,
+                                        double *out_grad_x);
+
+/* ------------------------------------------------------------------ */
+/* Binary diffusivities                                                */
+/* ------------------------------------------------------------------ */
+
+typedef enum mcd_method {
+    MCD_METHOD_FSG = 1,            /**< Fuller-Schettler-Giddings (gases) */
+    MCD_METHOD_CHAPMAN_ENSKOG = 2, /**< Chapman-Enskog, Lennard-Jones,
+                                        Neufeld collision integral */
+    MCD_METHOD_WILKE_LEE = 3,      /**< Wilke-Lee (gases) */
+    MCD_METHOD_WILKE_CHANG = 4,    /**< Wilke-Chang (dilute solute in liquid) */
+    MCD_METHOD_USER = 5            /**< value supplied by the caller */
+} mcd_method;
+
+/** Short name of a method ("fsg", "chapman-enskog", "wilke-lee",
+ *  "wilke-chang", "user"), or NULL. Since 0.1. */
+MCD_API const char *mcd_method_name(mcd_method m);
+/** Method from its short name (case-insensitive). Since 0.1.
+ *  Fails: EINVAL, ENOTFOUND | Allocates: no */
+MCD_API mcd_status mcd_method_from_name(const char *name, mcd_method *out_m);
+/** Typical (average absolute) relative error of a method's estimates, as
+ *  published for its validation set, e.g. 0.05 for 5 %. NaN for USER.
+ *  Since 0.1. */
+MCD_API double mcd_method_typical_error(mcd_method m);
+
+/** Warning bits returned with estimates. */
+#define MCD_WARN_HIGH_PRESSURE 0x01u /**< P above the low-pressure range */
+#define MCD_WARN_POLAR 0x02u         /**< polar species, Lennard-Jones or
+                                          volume model less reliable */
+#define MCD_WARN_TEMPERATURE 0x04u   /**< T outside the method's tested range */
+#define MCD_WARN_QUANTUM 0x08u       /**< H2/He/D2 at low T (quantum effects) */
+#define MCD_WARN_ASSOCIATING 0x10u   /**< hydrogen-bonding species */
+#define MCD_WARN_ESTIMATED_PARAM 0x20u /**< a parameter was estimated (e.g.
+                                          sigma from Vb) not tabulated */
+#define MCD_WARN_SCALED 0x40u        /**< user value scaled far (>2x in T or
+                                          10x in P) from its reference state */
+/** Text of one warning bit, or NULL for an unknown bit. Since 0.1. */
+MCD_API const char *mcd_warning_string(unsigned bit);
+
+/** Fuller-Schettler-Giddings from raw parameters. Since 0.1.
+ *  @param MA,MB molar masses [kg/mol]; @param VA,VB diffusion volumes [-].
+ *  Fails: EINVAL (NaN/inf), EDOM (non-positive input) | Allocates: no */
+MCD_API mcd_status mcd_fsg_raw(double T, double P, double MA, double MB,
+                               double VA, double VB, double *out_D);
+/** Chapman-Enskog with Lennard-Jones parameters, combining rules
+ *  sigma_AB = (sigma_A + sigma_B)/2, eps_AB = sqrt(eps_A eps_B), and the
+ *  Neufeld-Janzen-Aziz collision integral. Since 0.1.
+ *  @param sigA,sigB [m]; @param epsA,epsB epsilon/k [K].
+ *  Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_chapman_enskog_raw(double T, double P, double MA,
+                                          double MB, double sigA, double sigB,
+                                          double epsA, double epsB,
+                                          double *out_D);
+/** Wilke-Lee from raw Lennard-Jones parameters (same conventions as
+ *  mcd_chapman_enskog_raw). Since 0.1. Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_wilke_lee_raw(double T, double P, double MA, double MB,
+                                     double sigA, double sigB, double epsA,
+                                     double epsB, double *out_D);
+/** Wilke-Chang infinite-dilution diffusivity of a solute in a liquid.
+ *  @param mu_solvent  solvent viscosity at T [Pa s]
+ *  @param M_solvent   [kg/mol]; @param phi association factor [-] (> 0)
+ *  @param Vb_solute   solute molar volume at its normal boiling point
+ *                     [m^3/mol]. Since 0.1.
+ *  Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_wilke_chang_raw(double T, double mu_solvent,
+                                       double M_solvent, double phi,
+                                       double Vb_solute, double *out_D);
+/** Neufeld-Janzen-Aziz (1972) fit of the diffusion collision integral
+ *  Omega_D(T*), T* = k T / eps, valid 0.3 <= T* <= 100. Since 0.1.
+ *  Fails: EINVAL, EDOM (T* <= 0) | Allocates: no */
+MCD_API mcd_status mcd_collision_omega_d(double T_star, double *out_omega);
+/** Scale a known gas diffusivity to another state:
+ *  D = D_ref (T/T_ref)^exponent (P_ref/P). Use 1.75 for the
+ *  Fuller-Schettler-Giddings law. Since 0.1.
+ *  Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_binary_scale(double D_ref, double T_ref, double P_ref,
+                                    double T, double P, double exponent,
+                                    double *out_D);
+
+/** Gas binary diffusivity of species a and b of a database by a method.
+ *  @param out_rel_err  typical relative error of the method (may be NULL)
+ *  @param out_warn     MCD_WARN_* bits (may be NULL). Since 0.1.
+ *  Fails: EINVAL, EDOM, ENODATA (parameter missing), ENOTFOUND (index)
+ *  | Allocates: no */
+MCD_API mcd_status mcd_binary_gas(const mcd_db *db, size_t a, size_t b,
+                                  mcd_method method, double T, double P,
+                                  double *out_D, double *out_rel_err,
+                                  unsigned *out_warn);
+/** Wilke-Chang infinite-dilution diffusivity of solute in solvent, both from
+ *  a database (solute needs Vb; solvent needs M and an association factor,
+ *  1.0 when unknown, flagged). @param mu_solvent  [Pa s] at T. Since 0.1.
+ *  Fails: EINVAL, EDOM, ENODATA, ENOTFOUND | Allocates: no */
+MCD_API mcd_status mcd_binary_liquid(const mcd_db *db, size_t solute,
+                                     size_t solvent, double T,
+                                     double mu_solvent, double *out_D,
+                                     double *out_rel_err, unsigned *out_warn);
+
+/* ------------------------------------------------------------------ */
+/* Mixtures: N species and their binary diffusivities                  */
+/* ------------------------------------------------------------------ */
+
+typedef struct mcd_mixture mcd_mixture;
+
+/** New mixture of n species picked by name from db (parameters are copied:
+ *  the mixture does not refer to db afterwards). Every pair uses the
+ *  default method until changed. Since 0.1.
+ *  Fails: EINVAL, ENOTFOUND (errbuf names the species), ENOMEM
+ *  | Allocates: yes */
+MCD_API mcd_status mcd_mixture_new(const mcd_db *db, size_t n,
+                                   const char *const *names,
+                                   mcd_method default_method,
+                                   mcd_mixture **out_mix, char *errbuf,
+                                   size_t errlen);
+/** Free a mixture; NULL is a no-op. Since 0.1. */
+MCD_API void mcd_mixture_free(mcd_mixture *mix);
+/** Number of species (0 for NULL). Since 0.1. */
+MCD_API size_t mcd_mixture_count(const mcd_mixture *mix);
+/** Name of species i or NULL. Since 0.1. */
+MCD_API const char *mcd_mixture_name(const mcd_mixture *mix, size_t i);
+/** Molar masses [kg/mol], length n. Since 0.1.
+ *  Fails: EINVAL | Allocates: no */
+MCD_API mcd_status mcd_mixture_molar_masses(const mcd_mixture *mix,
+                                            double *out_M);
+/** Use method m for pair (i, j) (i != j). Since 0.1.
+ *  Fails: EINVAL, EBADLEN (index) | Allocates: no */
+MCD_API mcd_status mcd_mixture_set_method(mcd_mixture *mix, size_t i,
+                                          size_t j, mcd_method m);
+/** Give a measured Đ_ij [m^2/s] at (T_ref, P_ref) for pair (i, j); at other
+ *  states it is scaled as (T/T_ref)^1.75 (P_ref/P). Since 0.1.
+ *  Fails: EINVAL, EDOM, EBADLEN | Allocates: no */
+MCD_API mcd_status mcd_mixture_set_binary(mcd_mixture *mix, size_t i,
+                                          size_t j, double D, double T_ref,
+                                          double P_ref);
+/** Matrix of binary diffusivities at (T, P): out_D n x n symmetric, diagonal
+ *  set to 0. out_rel_err and out_warn (n x n each) may be NULL. Reads the
+ *  mixture only: may run concurrently on a shared mixture. Since 0.1.
+ *  Fails: EINVAL, EDOM, ENODATA (errbuf-free: the pair's method lacks a
+ *  parameter) | Allocates: no */
+MCD_API mcd_status mcd_mixture_binaries(const mcd_mixture *mix, double T,
+                                        double P, double *out_D,
+                                        double *out_rel_err,
+                                        unsigned *out_warn);
+
+/* ------------------------------------------------------------------ */
+/* Workspaces                                                          */
+/* ------------------------------------------------------------------ */
+
+typedef struct mcd_workspace mcd_workspace;
+
+/** Custom allocator. alloc(ud, size) returns memory aligned for double or
+ *  NULL; free(ud, p) releases it (p may be NULL). */
+typedef struct mcd_allocator {
+    void *(*alloc)(void *ud, size_t size);
+    void (*free)(void *ud, void *p);
+    void *ud;
+} mcd_allocator;
+
+/** Allocate a workspace for up to n_species species (1..MCD_MAX_SPECIES):
+ *  all scratch memory of the flux, Fick-matrix and transfer calls.
+ *  Since 0.1. Fails: EINVAL, ENOMEM | Allocates: yes */
+MCD_API mcd_status mcd_workspace_alloc(size_t n_species,
+                                       mcd_workspace **out_ws);
+/** As mcd_workspace_alloc with a caller allocator (copied). Since 0.1. */
+MCD_API mcd_status mcd_workspace_alloc_with(size_t n_species,
+                                            const mcd_allocator *allocator,
+                                            mcd_workspace **out_ws);
+/** Free a workspace; NULL is a no-op. Since 0.1. */
+MCD_API void mcd_workspace_free(mcd_workspace *ws);
+/** Species capacity of a workspace (0 for NULL). Since 0.1. */
+MCD_API size_t mcd_workspace_species(const mcd_workspace *ws);
+/** Detail of the last error of a call on this workspace (which argument,
+ *  which index), "" if none. Valid until the next call. Since 0.1. */
+MCD_API const char *mcd_workspace_last_error(const mcd_workspace *ws);
+
+/* ------------------------------------------------------------------ */
+/* Diffusion fluxes                                                    */
+/* ------------------------------------------------------------------ */
+
+typedef enum mcd_basis {
+    MCD_BASIS_MOLE = 0, /**< mole fractions; molar fluxes J_i relative to the
+                             molar-average velocity [mol/(m^2 s)] */
+    MCD_BASIS_MASS = 1  /**< mass fractions; mass fluxes j_i relative to the
+                             mass-average velocity [kg/(m^2 s)] */
+} mcd_basis;
+
+typedef enum mcd_model {
+    MCD_MODEL_MAXWELL_STEFAN = 0,    /**< exact Maxwell-Stefan */
+    MCD_MODEL_MIXTURE_AVERAGED = 1   /**< effective (Blanc) diffusivity per
+                                          species with a zero-sum correction */
+} mcd_model;
+
+/** Diffusion fluxes of all species at one state. Since 0.1.
+ *
+ *  Solves the Maxwell-Stefan equations
+ *    d_i = sum_{j != i} (x_i J_j - x_j J_i) / (c Đ_ij),  sum_i J_i = 0,
+ *    d_i = sum_j Gamma_ij grad x_j + (x_i - w_i) grad ln P,
+ *  exactly (MAXWELL_STEFAN) or with mixture-averaged diffusivities
+ *  D_im = (1 - x_i) / sum_{j != i} x_j / Đ_ij and a correction flux
+ *  proportional to x_i (mole basis) or w_i (mass basis) that restores the
+ *  zero-sum (MIXTURE_AVERAGED). Species with x_i = 0 obey Blanc's law.
+ *
+ *  @param ws          workspace with capacity >= n_species.
+ *  @param n_species   N, 1..capacity; @param n_dim 1..MCD_MAX_DIM.
+ *  @param M           molar masses [kg/mol], length N (needed for the mass
+ *                     basis and pressure diffusion; may be NULL otherwise).
+ *  @param Dij         binary diffusivities [m^2/s], N x N, symmetric
+ *                     (relative difference <= 1e-12), off-diagonal > 0,
+ *                     diagonal ignored.
+ *  @param c           total molar concentration [mol/m^3], > 0.
+ *  @param comp_basis  whether comp/grad_comp are mole or mass fractions.
+ *  @param comp        fractions, length N, validated as mcd_comp_normalize.
+ *  @param grad_comp   their gradients [1/m], N x n_dim.
+ *  @param Gamma       thermodynamic factor matrix [-], N x N in mole
+ *                     fractions, or NULL for an ideal mixture (identity).
+ *                     Row i gives d_i = sum_j Gamma_ij grad x_j.
+ *  @param grad_lnP    gradient of ln P [1/m], length n_dim, or NULL.
+ *  @param flux_basis  MOLE: out_flux = J_i; MASS: out_flux = j_i.
+ *  @param out_flux    N x n_dim; sums to zero over species to round-off.
+ *  Fails: EINVAL, EDOM, EBADLEN (N > capacity), ESING | Allocates: no
+ *  | Threads: one ws per thread */
+MCD_API mcd_status mcd_flux_compute(mcd_workspace *ws, mcd_model model,
+                                    size_t n_species, size_t n_dim,
+                                    const double *M, const double *Dij,
+                                    double c, mcd_basis comp_basis,
+                                    const double *comp,
+                                    const double *grad_comp,
+                                    const double *Gamma,
+                                    const double *grad_lnP,
+                                    mcd_basis flux_basis, double *out_flux);
+
+/** Value for `dependent` arguments: pick the most abundant species. */
+#define MCD_DEPENDENT_AUTO ((size_t)-1)
+
+/** Generalized Fick matrix [D] ((N-1) x (N-1), row-major over the species
+ *  other than `dependent`, in their original order) such that
+ *  J = -c [D] grad x (MOLE basis, molar-average frame) or
+ *  j = -rho [D°] grad w (MASS basis, mass-average frame, obtained from the
+ *  molar one by the frame transformation). [D] = [B]^-1 [Gamma].
+ *  @param dependent       index of the species left out, or
+ *                         MCD_DEPENDENT_AUTO (the most abundant).
+ *  @param out_dependent   index used (may be NULL). Other parameters as in
+ *                         mcd_flux_compute; M needed for MASS. For N = 1
+ *                         nothing is written to out_D. Since 0.1.
+ *  Fails: EINVAL, EDOM, EBADLEN, ESING | Allocates: no */
+MCD_API mcd_status mcd_fick_matrix(mcd_workspace *ws, size_t n_species,
+                                   const double *M, const double *Dij,
+                                   mcd_basis comp_basis, const double *comp,
+                                   const double *Gamma, mcd_basis basis,
+                                   size_t dependent, double *out_D,
+                                   size_t *out_dependent);
+
+/** Fluxes from a caller's Fick matrix: for i != dependent,
+ *  F_i = -conc sum_j D_ij grad_j, F_dependent = -sum of the others.
+ *  @param D     (N-1) x (N-1) as produced by mcd_fick_matrix.
+ *  @param conc  c [mol/m^3] for molar fluxes, rho [kg/m^3] for mass fluxes.
+ *  @param grad  N x n_dim gradients (the dependent row is ignored).
+ *  Since 0.1. Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_fick_fluxes(size_t n_species, size_t n_dim,
+                                   const double *D, size_t dependent,
+                                   double conc, const double *grad,
+                                   double *out_flux);
+
+/** Eigenvalues of an m x m Fick matrix (LAPACK dgeev), m <= capacity - 1
+ *  of ws (or m = 0). Sorted by decreasing real part. Since 0.1.
+ *  Fails: EINVAL, EBADLEN, ESING (no convergence) | Allocates: no */
+MCD_API mcd_status mcd_fick_eigenvalues(mcd_workspace *ws, size_t m,
+                                        const double *D, double *out_re,
+                                        double *out_im);
+
+/* ------------------------------------------------------------------ */
+/* Bases, frames and total fluxes                                      */
+/* ------------------------------------------------------------------ */
+
+/** Convert diffusion fluxes between bases and their frames:
+ *  j_i = M_i J_i - w_i sum_k M_k J_k,  J_i = j_i/M_i - x_i sum_k j_k/M_k.
+ *  @param x  mole fractions. in and out may not alias. Same basis copies.
+ *  Since 0.1. Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_flux_convert(size_t n_species, size_t n_dim,
+                                    const double *M, const double *x,
+                                    mcd_basis from, const double *flux_in,
+                                    mcd_basis to, double *out_flux);
+/** Molar fluxes relative to the volume-average velocity:
+ *  J^V_i = J_i - c x_i sum_k Vbar_k J_k.
+ *  @param Vbar partial molar volumes [m^3/mol] with sum x_i Vbar_i = 1/c
+ *  (checked to 1e-6 relative; ideal gas: Vbar_i = 1/c). Since 0.1.
+ *  Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_flux_to_volume_frame(size_t n_species, size_t n_dim,
+                                            double c, const double *x,
+                                            const double *Vbar,
+                                            const double *J, double *out_JV);
+/** Molar fluxes relative to the velocity of species k (x_k > 0):
+ *  J^k_i = J_i - x_i J_k / x_k (so J^k_k = 0). Since 0.1.
+ *  Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_flux_to_species_frame(size_t n_species, size_t n_dim,
+                                             const double *x, const double *J,
+                                             size_t k, double *out_Jk);
+
+typedef enum mcd_bootstrap {
+    MCD_BOOT_TOTAL = 0,     /**< total flux given: values = N_t (or n_t), n_dim */
+    MCD_BOOT_STAGNANT = 1,  /**< species `species` does not move */
+    MCD_BOOT_EQUIMOLAR = 2, /**< N_t = 0 (MOLE) or n_t = 0 (MASS) */
+    MCD_BOOT_WEIGHTS = 3,   /**< sum_i nu_i N_i = 0; values = nu, length N */
+    MCD_BOOT_RATIOS = 4     /**< N_i = z_i N_t; values = z, length N, sum 1
+                                 (film only; not a local bootstrap) */
+} mcd_bootstrap;
+
+/** Total fluxes from diffusion fluxes and a bootstrap condition:
+ *  N_i = J_i + x_i N_t (MOLE) or n_i = j_i + w_i n_t (MASS).
+ *  @param comp  x (MOLE) or w (MASS); @param diff  J or j (N x n_dim).
+ *  @param out_total  N x n_dim; @param out_bulk  N_t or n_t (n_dim), may be
+ *  NULL. MCD_BOOT_RATIOS is EINVAL here. Since 0.1.
+ *  Fails: EINVAL, EDOM (stagnant species absent, sum nu_i y_i = 0)
+ *  | Allocates: no */
+MCD_API mcd_status mcd_flux_total(size_t n_species, size_t n_dim,
+                                  mcd_basis basis, const double *comp,
+                                  const double *diff, mcd_bootstrap kind,
+                                  size_t species, const double *values,
+                                  double *out_total, double *out_bulk);
+/** Difference of the mass- and molar-average velocities [m/s]:
+ *  v - u = (1/rho) sum_k M_k J_k with rho = c Mbar. Since 0.1.
+ *  Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_velocity_difference(size_t n_species, size_t n_dim,
+                                           const double *M, double c,
+                                           const double *x, const double *J,
+                                           double *out_v_minus_u);
+/** Project a caller's flux set onto the zero-sum in place:
+ *  F_i -= a_i sum_k F_k with a_i = weights_i / sum weights (weights = x for
+ *  a correction velocity in the molar frame, w in the mass frame), or
+ *  a_i = 1/N when weights is NULL (orthogonal projection).
+ *  @param out_residual  the removed sum_k F_k per direction (n_dim), may be
+ *  NULL. Since 0.1. Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_flux_project(size_t n_species, size_t n_dim,
+                                    const double *weights, double *inout_flux,
+                                    double *out_residual);
+
+/** Per-species diagnostic bits. */
+#define MCD_DIAG_REVERSE 0x1u  /**< flux up its own gradient (F.grad > 0) */
+#define MCD_DIAG_OSMOTIC 0x2u  /**< flux with (nearly) zero own gradient */
+#define MCD_DIAG_BARRIER 0x4u  /**< (nearly) zero flux with a gradient */
+
+/** Flag coupling effects. "Nearly zero" means a norm at most rel_tol times
+ *  the largest norm over species of that quantity (gradients or fluxes).
+ *  @param rel_tol in (0, 1), e.g. 1e-3. Since 0.1.
+ *  Fails: EINVAL | Allocates: no */
+MCD_API mcd_status mcd_flux_diagnose(size_t n_species, size_t n_dim,
+                                     const double *grad, const double *flux,
+                                     double rel_tol, unsigned *out_flags);
+
+/* ------------------------------------------------------------------ */
+/* Mass transfer: film / Stefan tube, two-bulb cell                    */
+/* ------------------------------------------------------------------ */
+
+/* (section owned by the transfer module) */
+
+#ifdef __cplusplus
+}
+#endif
+
+#endif /* MCDIFF_H */
