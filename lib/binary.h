@@ -1,0 +1,71 @@
+/* binary.h - private declarations of the properties layer (binary.c,
+ * binary_db.c, mixture.c). Never installed. */
+#ifndef MCD_BINARY_H
+#define MCD_BINARY_H
+
+#include <stddef.h>
+#include "mcdiff.h"
+
+/* One debye in C m: 1e-21 / c (c = 299792458 m/s exactly). */
+#define MCDI_DEBYE 3.33564095198152e-30
+
+/* Parameters of one species copied out of a database: value p[k] is valid
+ * when bit (1u << k) of `known` is set. `cls` holds MCDI_CLS_* bits decided
+ * once from the name, formula and parameters (see mcdi_classify). */
+typedef struct mcdi_spec {
+    double p[MCD_PARAM_COUNT];
+    unsigned known;
+    unsigned cls;
+    char name[64];
+} mcdi_spec;
+
+#define MCDI_CLS_QUANTUM 0x1u /* H2, D2, He: quantum effects at low T */
+#define MCDI_CLS_ASSOC 0x2u   /* hydrogen-bonding species */
+
+/* Fill *out from species i of db (reads through the public mcd_db_* calls
+ * only). Fails: EINVAL (db/out NULL), ENOTFOUND (i out of range).
+ * Allocates: no. */
+mcd_status mcdi_spec_from_db(const mcd_db *db, size_t i, mcdi_spec *out);
+
+/* Classification bits from a name and formula (either may be NULL) and the
+ * association factor (assoc < 0 when unknown). */
+unsigned mcdi_classify(const char *name, const char *formula, double assoc);
+
+/* Gas binary diffusivity of a pair of copied species by a gas method
+ * (FSG, CHAPMAN_ENSKOG, WILKE_LEE), with the method's typical error and
+ * the warning bits. T and P are validated here too.
+ * Fails: EINVAL, EDOM, ENODATA. Allocates: no. */
+mcd_status mcdi_pair_gas(const mcdi_spec *a, const mcdi_spec *b,
+                         mcd_method m, double T, double P, double *out_D,
+                         double *out_rel_err, unsigned *out_warn);
+
+/* State-independent part of a gas method for a pair, so that
+ *   FSG:          D = coef * T^1.75 / P
+ *   CE, WL:       D = coef * T^1.5 / (P * Omega_D(T / eps_ab))
+ * reproduces mcdi_pair_gas bit for bit. *out_eps_ab is 0 for FSG. Sets
+ * *out_estimated to 1 when Lennard-Jones parameters were estimated.
+ * Fails: EINVAL (method), ENODATA. Allocates: no. */
+mcd_status mcdi_pair_coef(const mcdi_spec *a, const mcdi_spec *b,
+                          mcd_method m, double *out_coef, double *out_eps_ab,
+                          int *out_estimated);
+
+/* Pair coefficients from raw parameters (inputs assumed validated). */
+double mcdi_fsg_coef(double MA, double MB, double VA, double VB);
+double mcdi_ce_coef(double MA, double MB, double sigA, double sigB);
+double mcdi_wl_coef(double MA, double MB, double sigA, double sigB);
+/* Neufeld-Janzen-Aziz Omega_D without argument checks (T* > 0). */
+double mcdi_omega_d(double T_star);
+
+/* Gas methods' tested temperature ranges used for MCD_WARN_TEMPERATURE. */
+#define MCDI_FSG_T_MIN 200.0  /* K, common practice, see binary.c */
+#define MCDI_FSG_T_MAX 1100.0 /* K */
+#define MCDI_TSTAR_MIN 0.3    /* Neufeld et al. (1972) fit range */
+#define MCDI_TSTAR_MAX 100.0
+/* Pressure above which a low-pressure method is flagged [Pa]. */
+#define MCDI_HIGH_P 1.0e6
+/* ... or above this fraction of the pair's mean critical pressure. */
+#define MCDI_HIGH_P_REDUCED 0.3
+/* Quantum gases are flagged below this temperature [K]. */
+#define MCDI_QUANTUM_T 100.0
+
+#endif

@@ -1,0 +1,374 @@
+/* test_mixture.c - mixtures of built-in species and their binary
+ * diffusivity matrices: symmetry, zero diagonal, agreement with
+ * mcd_binary_gas pair by pair, per-pair methods, user values and their
+ * scaling, error reporting. */
+#include <check.h>
+#include <math.h>
+#include <stdint.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "mcdiff.h"
+#include "../lib/mixture.h" /* internal fast path, tested against the API */
+
+#define GUARD 12345.678
+#define NS 6
+
+static const char *const names6[NS] = {"nitrogen", "oxygen", "carbon-dioxide",
+                                       "water", "hydrogen", "methane"};
+
+static uint64_t rng_state;
+static double rng_uniform(double a, double b)
+{
+    rng_state ^= rng_state >> 12;
+    rng_state ^= rng_state << 25;
+    rng_state ^= rng_state >> 27;
+    uint64_t r = rng_state * 2685821657736338717ull;
+    return a + (b - a) * ((double)(r >> 11) * (1.0 / 9007199254740992.0));
+}
+
+static mcd_db *db;
+static mcd_mixture *mix;
+
+static void setup(void)
+{
+    char err[128] = "";
+    ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_new(db, NS, names6, MCD_METHOD_FSG, &mix, err, sizeof err),
+                     MCD_OK);
+}
+static void teardown(void)
+{
+    mcd_mixture_free(mix);
+    mcd_db_free(db);
+    mix = NULL;
+    db = NULL;
+}
+
+static size_t dbi(const char *name)
+{
+    size_t i = 0;
+    ck_assert_int_eq(mcd_db_find(db, name, &i), MCD_OK);
+    return i;
+}
+
+/* Compare the mixture matrix with mcd_binary_gas using methods[i*NS+j]. */
+static void check_against_pairs(const mcd_method *methods, double T, double P)
+{
+    double D[NS * NS], R[NS * NS];
+    unsigned W[NS * NS];
+    ck_assert_int_eq(mcd_mixture_binaries(mix, T, P, D, R, W), MCD_OK);
+    for (size_t i = 0; i < NS; i++) {
+        ck_assert(D[i * NS + i] == 0.0);
+        ck_assert(R[i * NS + i] == 0.0);
+        ck_assert_uint_eq(W[i * NS + i], 0u);
+        for (size_t j = 0; j < NS; j++) {
+            if (i == j)
+                continue;
+            double d = GUARD, r = GUARD;
+            unsigned w = 0;
+            /* Symmetric to the bit: each pair is computed once. */
+            ck_assert(D[i * NS + j] == D[j * NS + i]);
+            ck_assert_uint_eq(W[i * NS + j], W[j * NS + i]);
+            ck_assert_int_eq(mcd_binary_gas(db, dbi(names6[i]), dbi(names6[j]),
+                                            methods[i * NS + j], T, P, &d, &r, &w),
+                             MCD_OK);
+            /* Same code path (copied parameters, same formula): identical,
+             * except that the mixture computes (i, j) with i < j only and
+             * each method is symmetric to the bit (test_binary.c). */
+            ck_assert_msg(D[i * NS + j] == d, "(%zu,%zu) %g vs %g", i, j, D[i * NS + j], d);
+            ck_assert(R[i * NS + j] == r);
+            ck_assert_uint_eq(W[i * NS + j], w);
+        }
+    }
+}
+
+START_TEST(mixture_matrix_is_symmetric_and_equals_binary_gas)
+{
+    mcd_method m[NS * NS];
+    for (size_t k = 0; k < NS * NS; k++)
+        m[k] = MCD_METHOD_FSG;
+    rng_state = 4242;
+    for (int t = 0; t < 50; t++) {
+        double T = rng_uniform(220, 1200), P = exp(rng_uniform(log(1e3), log(5e6)));
+        check_against_pairs(m, T, P);
+    }
+}
+END_TEST
+
+START_TEST(mixture_per_pair_methods_are_used)
+{
+    mcd_method m[NS * NS];
+    for (size_t k = 0; k < NS * NS; k++)
+        m[k] = MCD_METHOD_FSG;
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 1, MCD_METHOD_CHAPMAN_ENSKOG), MCD_OK);
+    m[0 * NS + 1] = m[1 * NS + 0] = MCD_METHOD_CHAPMAN_ENSKOG;
+    /* Given as (j, i): applies to the pair. */
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 5, 2, MCD_METHOD_WILKE_LEE), MCD_OK);
+    m[5 * NS + 2] = m[2 * NS + 5] = MCD_METHOD_WILKE_LEE;
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 3, 4, MCD_METHOD_CHAPMAN_ENSKOG), MCD_OK);
+    m[3 * NS + 4] = m[4 * NS + 3] = MCD_METHOD_CHAPMAN_ENSKOG;
+    check_against_pairs(m, 350.0, 2.0e5);
+    check_against_pairs(m, 800.0, 1.0e4);
+    /* A mixture made with another default uses it everywhere. */
+    mcd_mixture *m2 = NULL;
+    ck_assert_int_eq(mcd_mixture_new(db, NS, names6, MCD_METHOD_WILKE_LEE, &m2, NULL, 0),
+                     MCD_OK);
+    double D[NS * NS];
+    ck_assert_int_eq(mcd_mixture_binaries(m2, 300.0, 1e5, D, NULL, NULL), MCD_OK);
+    double d = 0;
+    ck_assert_int_eq(mcd_binary_gas(db, dbi("water"), dbi("methane"), MCD_METHOD_WILKE_LEE,
+                                    300.0, 1e5, &d, NULL, NULL),
+                     MCD_OK);
+    ck_assert(D[3 * NS + 5] == d);
+    mcd_mixture_free(m2);
+}
+END_TEST
+
+START_TEST(mixture_user_values_scale_with_t175_over_p)
+{
+    /* N2-CO2 0.165 cm^2/s at 298 K, 1 atm (Welty et al. 1984). */
+    const double D0 = 0.165e-4, T0 = 298.0, P0 = MCD_ATM;
+    double D[NS * NS], R[NS * NS];
+    unsigned W[NS * NS];
+    ck_assert_int_eq(mcd_mixture_set_binary(mix, 2, 0, D0, T0, P0), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_binaries(mix, T0, P0, D, R, W), MCD_OK);
+    /* At the reference state: D0 to round-off (pow of 1.0 is exact). */
+    ck_assert_double_eq_tol(D[0 * NS + 2] / D0, 1.0, 1e-15);
+    ck_assert(D[2 * NS + 0] == D[0 * NS + 2]);
+    ck_assert(isnan(R[0 * NS + 2]));
+    ck_assert_uint_eq(W[0 * NS + 2], 0u);
+    /* Twice T, three times P: D0 2^1.75 / 3 (a few ulp). */
+    ck_assert_int_eq(mcd_mixture_binaries(mix, 2 * T0, 3 * P0, D, R, W), MCD_OK);
+    ck_assert_double_eq_tol(D[0 * NS + 2] / (D0 * pow(2.0, 1.75) / 3.0), 1.0, 1e-14);
+    ck_assert_uint_eq(W[0 * NS + 2] & MCD_WARN_SCALED, 0u);
+    /* Far from the reference: > 2x in T or > 10x in P is flagged. */
+    ck_assert_int_eq(mcd_mixture_binaries(mix, 2.1 * T0, P0, D, R, W), MCD_OK);
+    ck_assert(W[0 * NS + 2] & MCD_WARN_SCALED);
+    ck_assert_int_eq(mcd_mixture_binaries(mix, T0, 0.09 * P0, D, R, W), MCD_OK);
+    ck_assert(W[0 * NS + 2] & MCD_WARN_SCALED);
+    ck_assert_int_eq(mcd_mixture_binaries(mix, 0.45 * T0, P0, D, R, W), MCD_OK);
+    ck_assert(W[0 * NS + 2] & MCD_WARN_SCALED);
+    /* Agrees with mcd_binary_scale. */
+    double s = 0;
+    ck_assert_int_eq(mcd_binary_scale(D0, T0, P0, 415.0, 3.3e5, 1.75, &s), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_binaries(mix, 415.0, 3.3e5, D, NULL, NULL), MCD_OK);
+    ck_assert_double_eq_tol(D[2 * NS + 0] / s, 1.0, 1e-15);
+    /* Other pairs unaffected. */
+    double d = 0;
+    ck_assert_int_eq(mcd_binary_gas(db, dbi("nitrogen"), dbi("oxygen"), MCD_METHOD_FSG, 415.0,
+                                    3.3e5, &d, NULL, NULL),
+                     MCD_OK);
+    ck_assert(D[0 * NS + 1] == d);
+    /* Switch the pair to an estimate and back to the stored user value. */
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 2, MCD_METHOD_FSG), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_binaries(mix, T0, P0, D, NULL, NULL), MCD_OK);
+    ck_assert_double_ne_tol(D[0 * NS + 2], D0, 1e-9);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 2, MCD_METHOD_USER), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_binaries(mix, T0, P0, D, NULL, NULL), MCD_OK);
+    ck_assert_double_eq_tol(D[0 * NS + 2] / D0, 1.0, 1e-15);
+    /* USER for a pair without a value is refused. */
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 3, 4, MCD_METHOD_USER), MCD_EINVAL);
+}
+END_TEST
+
+START_TEST(mixture_unknown_species_is_named_in_errbuf)
+{
+    const char *names[3] = {"nitrogen", "unobtainium-x", "oxygen"};
+    char err[128] = "";
+    mcd_mixture *m = (mcd_mixture *)&err; /* sentinel: must not change */
+    mcd_mixture *const sentinel = m;
+    ck_assert_int_eq(mcd_mixture_new(db, 3, names, MCD_METHOD_FSG, &m, err, sizeof err),
+                     MCD_ENOTFOUND);
+    ck_assert_ptr_eq(m, sentinel);
+    ck_assert_ptr_nonnull(strstr(err, "unobtainium-x"));
+    /* Formula lookup (unique formula) works as in mcd_db_find. */
+    const char *byformula[2] = {"CO2", "N2"};
+    ck_assert_int_eq(mcd_mixture_new(db, 2, byformula, MCD_METHOD_FSG, &m, err, sizeof err),
+                     MCD_OK);
+    ck_assert_str_eq(mcd_mixture_name(m, 0), "carbon-dioxide");
+    mcd_mixture_free(m);
+    /* Duplicates, NULL names, bad counts and methods are EINVAL. */
+    const char *dup[2] = {"nitrogen", "N2"};
+    m = sentinel;
+    ck_assert_int_eq(mcd_mixture_new(db, 2, dup, MCD_METHOD_FSG, &m, err, sizeof err),
+                     MCD_EINVAL);
+    ck_assert_ptr_nonnull(strstr(err, "N2"));
+    const char *withnull[2] = {"nitrogen", NULL};
+    ck_assert_int_eq(mcd_mixture_new(db, 2, withnull, MCD_METHOD_FSG, &m, err, sizeof err),
+                     MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_new(db, 0, names6, MCD_METHOD_FSG, &m, err, sizeof err),
+                     MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_new(db, MCD_MAX_SPECIES + 1, names6, MCD_METHOD_FSG, &m, err,
+                                     sizeof err),
+                     MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_new(db, 2, names6, MCD_METHOD_USER, &m, err, sizeof err),
+                     MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_new(db, 2, names6, MCD_METHOD_WILKE_CHANG, &m, NULL, 0),
+                     MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_new(NULL, 2, names6, MCD_METHOD_FSG, &m, err, sizeof err),
+                     MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_new(db, 2, NULL, MCD_METHOD_FSG, &m, err, sizeof err),
+                     MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_new(db, 2, names6, MCD_METHOD_FSG, NULL, err, sizeof err),
+                     MCD_EINVAL);
+    ck_assert_ptr_eq(m, sentinel);
+}
+END_TEST
+
+START_TEST(mixture_bad_state_and_arguments_leave_outputs_untouched)
+{
+    double D[NS * NS], R[NS * NS];
+    unsigned W[NS * NS];
+    for (size_t k = 0; k < NS * NS; k++) {
+        D[k] = R[k] = GUARD;
+        W[k] = 0xdeadu;
+    }
+    const double badv[] = {NAN, INFINITY, -INFINITY};
+    for (size_t b = 0; b < 3; b++) {
+        ck_assert_int_eq(mcd_mixture_binaries(mix, badv[b], 1e5, D, R, W), MCD_EINVAL);
+        ck_assert_int_eq(mcd_mixture_binaries(mix, 300, badv[b], D, R, W), MCD_EINVAL);
+        ck_assert_int_eq(mcd_mixture_set_binary(mix, 0, 1, badv[b], 300, 1e5), MCD_EINVAL);
+        ck_assert_int_eq(mcd_mixture_set_binary(mix, 0, 1, 1e-5, badv[b], 1e5), MCD_EINVAL);
+        ck_assert_int_eq(mcd_mixture_set_binary(mix, 0, 1, 1e-5, 300, badv[b]), MCD_EINVAL);
+    }
+    ck_assert_int_eq(mcd_mixture_binaries(mix, 0.0, 1e5, D, R, W), MCD_EDOM);
+    ck_assert_int_eq(mcd_mixture_binaries(mix, 300, -1.0, D, R, W), MCD_EDOM);
+    ck_assert_int_eq(mcd_mixture_binaries(NULL, 300, 1e5, D, R, W), MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_binaries(mix, 300, 1e5, NULL, R, W), MCD_EINVAL);
+    for (size_t k = 0; k < NS * NS; k++) {
+        ck_assert(D[k] == GUARD && R[k] == GUARD);
+        ck_assert_uint_eq(W[k], 0xdeadu);
+    }
+    ck_assert_int_eq(mcd_mixture_set_binary(mix, 0, 1, -1e-5, 300, 1e5), MCD_EDOM);
+    ck_assert_int_eq(mcd_mixture_set_binary(mix, 0, 1, 1e-5, 0.0, 1e5), MCD_EDOM);
+    ck_assert_int_eq(mcd_mixture_set_binary(mix, 0, NS, 1e-5, 300, 1e5), MCD_EBADLEN);
+    ck_assert_int_eq(mcd_mixture_set_binary(mix, 2, 2, 1e-5, 300, 1e5), MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_set_binary(NULL, 0, 1, 1e-5, 300, 1e5), MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, NS, 0, MCD_METHOD_FSG), MCD_EBADLEN);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 1, 1, MCD_METHOD_FSG), MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 1, MCD_METHOD_WILKE_CHANG), MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 1, (mcd_method)77), MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_set_method(NULL, 0, 1, MCD_METHOD_FSG), MCD_EINVAL);
+    /* None of the refused calls changed the mixture. */
+    mcd_method m[NS * NS];
+    for (size_t k = 0; k < NS * NS; k++)
+        m[k] = MCD_METHOD_FSG;
+    check_against_pairs(m, 300.0, 1e5);
+}
+END_TEST
+
+START_TEST(mixture_missing_parameters_give_enodata)
+{
+    mcd_db *d = NULL;
+    mcd_mixture *m = NULL;
+    size_t i;
+    ck_assert_int_eq(mcd_db_new(&d), MCD_OK);
+    ck_assert_int_eq(mcd_db_add(d, "gas-a", "N2", 0, &i, NULL, 0), MCD_OK);
+    ck_assert_int_eq(mcd_db_add(d, "gas-b", "C3H8", 0, &i, NULL, 0), MCD_OK);
+    const char *nm[2] = {"gas-a", "gas-b"};
+    /* No Lennard-Jones data and nothing to estimate them from. */
+    ck_assert_int_eq(mcd_mixture_new(d, 2, nm, MCD_METHOD_CHAPMAN_ENSKOG, &m, NULL, 0), MCD_OK);
+    double D[4] = {GUARD, GUARD, GUARD, GUARD};
+    ck_assert_int_eq(mcd_mixture_binaries(m, 300, 1e5, D, NULL, NULL), MCD_ENODATA);
+    for (int k = 0; k < 4; k++)
+        ck_assert(D[k] == GUARD);
+    /* FSG needs only M and the diffusion volumes, known from formulas. */
+    ck_assert_int_eq(mcd_mixture_set_method(m, 0, 1, MCD_METHOD_FSG), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_binaries(m, 300, 1e5, D, NULL, NULL), MCD_OK);
+    ck_assert_double_gt(D[1], 0.0);
+    /* A user value works without any parameter. */
+    ck_assert_int_eq(mcd_mixture_set_method(m, 0, 1, MCD_METHOD_WILKE_LEE), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_binary(m, 1, 0, 1.1e-5, 300, 1e5), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_binaries(m, 300, 1e5, D, NULL, NULL), MCD_OK);
+    ck_assert_double_eq_tol(D[1] / 1.1e-5, 1.0, 1e-15);
+    mcd_mixture_free(m);
+    mcd_db_free(d);
+}
+END_TEST
+
+START_TEST(mixture_is_independent_of_the_database)
+{
+    double before[NS * NS], after[NS * NS];
+    ck_assert_int_eq(mcd_mixture_binaries(mix, 333.0, 9e4, before, NULL, NULL), MCD_OK);
+    /* Change a parameter in the db, then free it: the mixture keeps its
+     * copy. */
+    ck_assert_int_eq(mcd_db_set_param(db, dbi("nitrogen"), MCD_PARAM_DIFF_VOLUME, 99.0), MCD_OK);
+    mcd_db_free(db);
+    db = NULL;
+    ck_assert_int_eq(mcd_mixture_binaries(mix, 333.0, 9e4, after, NULL, NULL), MCD_OK);
+    for (size_t k = 0; k < NS * NS; k++)
+        ck_assert(before[k] == after[k]);
+    ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK); /* for teardown */
+}
+END_TEST
+
+START_TEST(mixture_accessors_report_species)
+{
+    double M[NS];
+    for (size_t i = 0; i < NS; i++)
+        M[i] = GUARD;
+    ck_assert_uint_eq(mcd_mixture_count(mix), NS);
+    ck_assert_uint_eq(mcd_mixture_count(NULL), 0);
+    ck_assert_int_eq(mcd_mixture_molar_masses(mix, M), MCD_OK);
+    for (size_t i = 0; i < NS; i++) {
+        double m = 0;
+        ck_assert_str_eq(mcd_mixture_name(mix, i), mcd_db_name(db, dbi(names6[i])));
+        ck_assert_int_eq(mcd_db_param(db, dbi(names6[i]), MCD_PARAM_MOLAR_MASS, &m), MCD_OK);
+        ck_assert(M[i] == m);
+    }
+    ck_assert_ptr_null(mcd_mixture_name(mix, NS));
+    ck_assert_ptr_null(mcd_mixture_name(NULL, 0));
+    ck_assert_int_eq(mcd_mixture_molar_masses(NULL, M), MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_molar_masses(mix, NULL), MCD_EINVAL);
+    mcd_mixture_free(NULL); /* no-op */
+}
+END_TEST
+
+START_TEST(mixture_fast_path_matches_api)
+{
+    /* Mixed methods and a user value; the internal evaluator must give the
+     * API's numbers: identical for estimated pairs (same coefficient, same
+     * expression), a few ulp for the user pair (precomputed
+     * D_ref P_ref / T_ref^1.75 instead of the scaled form): 1e-14. */
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 1, MCD_METHOD_CHAPMAN_ENSKOG), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 2, 5, MCD_METHOD_WILKE_LEE), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_binary(mix, 3, 4, 0.85e-4, 293.0, MCD_ATM), MCD_OK);
+    ck_assert_int_eq(mcdi_mixture_ready(mix), MCD_OK);
+    rng_state = 99;
+    for (int t = 0; t < 100; t++) {
+        double T = rng_uniform(200, 1500), P = exp(rng_uniform(log(1e3), log(1e7)));
+        double A[NS * NS], B[NS * NS];
+        ck_assert_int_eq(mcd_mixture_binaries(mix, T, P, A, NULL, NULL), MCD_OK);
+        mcdi_mixture_binaries_fast(mix, T, P, B);
+        for (size_t k = 0; k < NS * NS; k++) {
+            if (k == 3 * NS + 4 || k == 4 * NS + 3)
+                ck_assert_double_eq_tol(B[k] / A[k], 1.0, 1e-14);
+            else
+                ck_assert(A[k] == B[k]);
+        }
+    }
+}
+END_TEST
+
+int main(void)
+{
+    Suite *s = suite_create("mcd:mixture");
+    TCase *tc = tcase_create("mixture");
+    tcase_add_checked_fixture(tc, setup, teardown);
+    tcase_add_test(tc, mixture_matrix_is_symmetric_and_equals_binary_gas);
+    tcase_add_test(tc, mixture_per_pair_methods_are_used);
+    tcase_add_test(tc, mixture_user_values_scale_with_t175_over_p);
+    tcase_add_test(tc, mixture_unknown_species_is_named_in_errbuf);
+    tcase_add_test(tc, mixture_bad_state_and_arguments_leave_outputs_untouched);
+    tcase_add_test(tc, mixture_missing_parameters_give_enodata);
+    tcase_add_test(tc, mixture_is_independent_of_the_database);
+    tcase_add_test(tc, mixture_accessors_report_species);
+    tcase_add_test(tc, mixture_fast_path_matches_api);
+    suite_add_tcase(s, tc);
+    SRunner *sr = srunner_create(s);
+    srunner_run_all(sr, CK_ENV);
+    int failed = srunner_ntests_failed(sr);
+    srunner_free(sr);
+    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+}
