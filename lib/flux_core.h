@@ -1,0 +1,66 @@
+/* flux_core.h - private declarations shared by the flux core files
+ * (maxwell_stefan.c, mixavg.c, fick.c). Never installed.
+ *
+ * Validators write a detail message into the workspace (mcdi_ws_fail) and
+ * return the status; they write nothing else. Kernels do no validation.
+ */
+#ifndef MCD_FLUX_CORE_H
+#define MCD_FLUX_CORE_H
+
+#include <stddef.h>
+#include "mcdiff.h"
+
+/* Relative tolerance of the symmetry check of Dij (documented in the
+ * header: relative difference <= 1e-12). */
+#define MCDI_DIJ_SYM_TOL 1e-12
+
+/* ---- validators (message into ws) ------------------------------------ */
+
+/* Binary diffusivities: off-diagonal entries finite (EINVAL), > 0 (EDOM),
+ * symmetric to MCDI_DIJ_SYM_TOL relative (EDOM). Diagonal ignored. */
+mcd_status mcdi_flux_check_dij(mcd_workspace *ws, size_t n, const double *Dij);
+
+/* Fractions as mcd_comp_normalize (uses mcdi_comp_check). `name` is the
+ * argument name used in the message. */
+mcd_status mcdi_flux_check_comp(mcd_workspace *ws, size_t n, const double *y,
+                                const char *name);
+
+/* Molar masses finite (EINVAL) and > 0 (EDOM). */
+mcd_status mcdi_flux_check_M(mcd_workspace *ws, size_t n, const double *M);
+
+/* rows x cols array all finite (EINVAL); NULL is EINVAL. */
+mcd_status mcdi_flux_check_finite(mcd_workspace *ws, size_t rows, size_t cols,
+                                  const double *p, const char *name);
+
+/* ---- kernels -------------------------------------------------------- */
+
+/* Normalised mole fractions x (length n) from validated fractions in
+ * `basis`; when M != NULL also mass fractions w (may be NULL to skip).
+ * Returns the mean molar mass (0 when M == NULL). */
+double mcdi_flux_fractions(size_t n, const double *M, mcd_basis basis,
+                           const double *comp, double *x, double *w);
+
+/* Index of the most abundant species (first one on ties). */
+size_t mcdi_flux_most_abundant(size_t n, const double *x);
+
+/* Exact Maxwell-Stefan diffusion fluxes J (n x nd, molar frame) for
+ * normalised x and driving forces d (n x nd) with sum_i d_i = 0.
+ * Scratch used: core_mat[0], core_nd[3], core_vec[2..3], core_idx[0..1];
+ * x, d and J must not be any of those. Fails with ESING (round-off made the
+ * matrix indefinite) or EINTERNAL. Defined in maxwell_stefan.c. */
+mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
+                          const double *x, const double *d,
+                          const double *Dij, double c, double *J);
+
+/* Mixture-averaged diffusion fluxes J (n x nd, molar frame, zero-sum
+ * restored with weights x). den and num are scratch arrays of length n
+ * (distinct from x, d, J). Defined in mixavg.c. */
+void mcdi_mixavg_fluxes(size_t n, size_t nd, const double *x, const double *d,
+                        const double *Dij, double c, double *J, double *den,
+                        double *num);
+
+/* Mixture-averaged diffusivity D_im [m^2/s] of species i (see mixavg.c for
+ * the x_i = 1 limit). */
+double mcdi_mixavg_dim(size_t n, size_t i, const double *x, const double *Dij);
+
+#endif

@@ -1,0 +1,88 @@
+/* workspace.h - private view of struct mcd_workspace. Never installed.
+ *
+ * A workspace owns every scratch array that the flux core (maxwell_stefan.c,
+ * mixavg.c, fick.c) and the transfer layer need for up to `cap` species, so
+ * that no per-state call allocates. All memory is obtained at
+ * mcd_workspace_alloc time through the workspace's allocator.
+ *
+ * Two banks of scratch exist:
+ *
+ *  - the CORE bank (fields core_*), used only inside one call of
+ *    mcd_flux_compute / mcd_fick_matrix / mcd_fick_eigenvalues. Its contents
+ *    are garbage between calls. Other modules must not use it.
+ *
+ *  - the AUX bank, reserved for other modules (film, bulbs, ...): they get
+ *    it through the accessors below. The flux core never touches it, so a
+ *    module may keep data in AUX buffers while it calls mcd_flux_compute or
+ *    mcd_fick_matrix on the same workspace:
+ *      mcdi_ws_aux_mat(ws, k)  k < MCDI_WS_AUX_MATS : cap*cap doubles
+ *      mcdi_ws_aux_vec(ws, k)  k < MCDI_WS_AUX_VECS : MCDI_WS_AUX_VECLEN(cap)
+ *                                                    doubles (4*cap)
+ *      mcdi_ws_aux_ipiv(ws)                          : cap ints (LAPACK pivots)
+ *    Out-of-range k returns NULL.
+ *
+ *  - the dgeev work array (mcdi_ws_geev_work) is sized at alloc time by a
+ *    workspace query for n = cap with right eigenvectors requested (the
+ *    larger of the two job kinds), so a module may call
+ *    LAPACKE_dgeev_work(LAPACK_COL_MAJOR, 'N', 'V' or 'N', n <= cap, ...)
+ *    with it. It is plain scratch inside one LAPACK call: it holds nothing
+ *    between calls, and mcd_fick_eigenvalues uses it too.
+ *
+ * LAPACKE note: the *_work functions with LAPACK_ROW_MAJOR allocate a
+ * transposed copy internally. Call them with LAPACK_COL_MAJOR (symmetric
+ * matrices are the same in both layouts; store or transpose others).
+ */
+#ifndef MCD_WORKSPACE_H
+#define MCD_WORKSPACE_H
+
+#include <stddef.h>
+#include "mcdiff.h"
+
+#define MCDI_WS_ERRLEN 256
+#define MCDI_WS_AUX_MATS 4
+#define MCDI_WS_AUX_VECS 8
+#define MCDI_WS_AUX_VECLEN(cap) (4 * (cap))
+
+struct mcd_workspace {
+    size_t cap;                 /* species capacity, 1..MCD_MAX_SPECIES */
+    mcd_allocator al;           /* copy of the caller's allocator */
+    char err[MCDI_WS_ERRLEN];   /* last error detail, "" if none */
+
+    /* CORE bank (flux core only) */
+    double *core_mat[2];        /* cap*cap each */
+    double *core_nd[4];         /* cap*MCD_MAX_DIM each (n x n_dim arrays) */
+    double *core_vec[6];        /* cap each */
+    int *core_idx[2];           /* cap ints each (index lists, pivots) */
+
+    /* dgeev work array (see above) */
+    double *geev_work;
+    size_t geev_lwork;
+
+    /* AUX bank (other modules) */
+    double *aux_mat[MCDI_WS_AUX_MATS];
+    double *aux_vec[MCDI_WS_AUX_VECS];
+    int *aux_ipiv;
+};
+
+/* Write a printf-style detail message into ws->err (ws may be NULL) and
+ * return `status` unchanged, so callers write
+ *   return mcdi_ws_fail(ws, MCD_EDOM, "argument c: %g is not > 0", c); */
+mcd_status mcdi_ws_fail(mcd_workspace *ws, mcd_status status, const char *fmt,
+                        ...)
+#if defined(__GNUC__)
+    __attribute__((format(printf, 3, 4)))
+#endif
+    ;
+
+/* Clear the last-error message (call at the start of every public call that
+ * takes a workspace). ws may be NULL. */
+void mcdi_ws_clear_error(mcd_workspace *ws);
+
+/* AUX bank accessors (NULL for ws == NULL or k out of range). */
+double *mcdi_ws_aux_mat(mcd_workspace *ws, size_t k);
+double *mcdi_ws_aux_vec(mcd_workspace *ws, size_t k);
+int *mcdi_ws_aux_ipiv(mcd_workspace *ws);
+/* dgeev work array and its length (lwork for LAPACKE_dgeev_work). */
+double *mcdi_ws_geev_work(mcd_workspace *ws, size_t *out_lwork);
+
+#endif
