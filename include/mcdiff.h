@@ -238,7 +238,10 @@ MCD_API mcd_status mcd_db_param(const mcd_db *db, size_t i, mcd_param p,
 /** Add a species, or reset one of the same name (case-insensitive), from its
  *  formula: molar mass from atomic weights, diffusion volume from the
  *  tabulated molecular value if any, else from increments with n_rings ring
- *  corrections. Other parameters start unknown. Since 0.1.
+ *  corrections (unknown when an element has no increment, e.g. Si). Besides
+ *  the formula grammar, "air" and "D2" are accepted here. n_rings > 0 for a
+ *  tabulated molecule, or a non-positive volume, is EINVAL. Other
+ *  parameters start unknown. Since 0.1.
  *  @param name     1 to 63 characters from [A-Za-z0-9_+-,()'] starting with a
  *                  letter or digit.
  *  Fails: EINVAL, EPARSE (bad name or formula), ENOTFOUND, ENOMEM
@@ -296,7 +299,7 @@ MCD_API mcd_status mcd_comp_mean_molar_mass_w(size_t n, const double *M,
 MCD_API mcd_status mcd_comp_x_to_c(size_t n, double c_total, const double *x,
                                    double *out_c);
 /** Mole fractions and total concentration from concentrations [mol/m^3]
- *  (each >= 0, sum > 0). Since 0.1. Fails: EINVAL, EDOM | Allocates: no */
+ *  (each >= 0, sum > 0); out_c_total must not be NULL. Since 0.1. Fails: EINVAL, EDOM | Allocates: no */
 MCD_API mcd_status mcd_comp_c_to_x(size_t n, const double *c, double *out_x,
                                    double *out_c_total);
 /** Ideal-gas total concentration c = P / (R T) [mol/m^3]. Since 0.1.
@@ -396,7 +399,8 @@ MCD_API mcd_status mcd_binary_scale(double D_ref, double T_ref, double P_ref,
 
 /** Gas binary diffusivity of species a and b of a database by a method.
  *  @param out_rel_err  typical relative error of the method (may be NULL)
- *  @param out_warn     MCD_WARN_* bits (may be NULL). Since 0.1.
+ *  @param out_warn     MCD_WARN_* bits (may be NULL). WILKE_CHANG and USER
+ *  are EINVAL here. Since 0.1.
  *  Fails: EINVAL, EDOM, ENODATA (parameter missing), ENOTFOUND (index)
  *  | Allocates: no */
 MCD_API mcd_status mcd_binary_gas(const mcd_db *db, size_t a, size_t b,
@@ -420,7 +424,8 @@ typedef struct mcd_mixture mcd_mixture;
 
 /** New mixture of n species picked by name from db (parameters are copied:
  *  the mixture does not refer to db afterwards). Every pair uses the
- *  default method until changed. Since 0.1.
+ *  default method until changed (a gas method: FSG, CHAPMAN_ENSKOG or
+ *  WILKE_LEE). A species named twice is EINVAL. Since 0.1.
  *  Fails: EINVAL, ENOTFOUND (errbuf names the species), ENOMEM
  *  | Allocates: yes */
 MCD_API mcd_status mcd_mixture_new(const mcd_db *db, size_t n,
@@ -435,10 +440,11 @@ MCD_API size_t mcd_mixture_count(const mcd_mixture *mix);
 /** Name of species i or NULL. Since 0.1. */
 MCD_API const char *mcd_mixture_name(const mcd_mixture *mix, size_t i);
 /** Molar masses [kg/mol], length n. Since 0.1.
- *  Fails: EINVAL | Allocates: no */
+ *  Fails: EINVAL, ENODATA | Allocates: no */
 MCD_API mcd_status mcd_mixture_molar_masses(const mcd_mixture *mix,
                                             double *out_M);
-/** Use method m for pair (i, j) (i != j). Since 0.1.
+/** Use method m for pair (i, j) (i != j). MCD_METHOD_USER needs a value
+ *  given before with mcd_mixture_set_binary. Since 0.1.
  *  Fails: EINVAL, EBADLEN (index) | Allocates: no */
 MCD_API mcd_status mcd_mixture_set_method(mcd_mixture *mix, size_t i,
                                           size_t j, mcd_method m);
@@ -533,7 +539,12 @@ typedef enum mcd_model {
  *  @param grad_lnP    gradient of ln P [1/m], length n_dim, or NULL.
  *  @param flux_basis  MOLE: out_flux = J_i; MASS: out_flux = j_i.
  *  @param out_flux    N x n_dim; sums to zero over species to round-off.
- *  Fails: EINVAL, EDOM, EBADLEN (N > capacity), ESING | Allocates: no
+ *  The driving forces are first projected onto sum_i d_i = 0 by
+ *  d_i -= x_i sum_k d_k (removes round-off or an inconsistent Gamma; trace
+ *  species are untouched). A NaN or infinite input is EINVAL, a finite
+ *  out-of-range one EDOM.
+ *  Fails: EINVAL, EDOM, EBADLEN (N > capacity), ESING, EINTERNAL
+ *  | Allocates: no
  *  | Threads: one ws per thread */
 MCD_API mcd_status mcd_flux_compute(mcd_workspace *ws, mcd_model model,
                                     size_t n_species, size_t n_dim,
@@ -557,7 +568,11 @@ MCD_API mcd_status mcd_flux_compute(mcd_workspace *ws, mcd_model model,
  *                         MCD_DEPENDENT_AUTO (the most abundant).
  *  @param out_dependent   index used (may be NULL). Other parameters as in
  *                         mcd_flux_compute; M needed for MASS. For N = 1
- *                         nothing is written to out_D. Since 0.1.
+ *                         nothing is written to out_D. The matrix carries no
+ *                         concentration: pass c (MOLE) or rho = c Mbar (MASS)
+ *                         to mcd_fick_fluxes. Its fluxes equal those of
+ *                         mcd_flux_compute when the gradients sum to zero
+ *                         (Gamma is projected the same way). Since 0.1.
  *  Fails: EINVAL, EDOM, EBADLEN, ESING | Allocates: no */
 MCD_API mcd_status mcd_fick_matrix(mcd_workspace *ws, size_t n_species,
                                    const double *M, const double *Dij,
@@ -570,7 +585,9 @@ MCD_API mcd_status mcd_fick_matrix(mcd_workspace *ws, size_t n_species,
  *  F_i = -conc sum_j D_ij grad_j, F_dependent = -sum of the others.
  *  @param D     (N-1) x (N-1) as produced by mcd_fick_matrix.
  *  @param conc  c [mol/m^3] for molar fluxes, rho [kg/m^3] for mass fluxes.
- *  @param grad  N x n_dim gradients (the dependent row is ignored).
+ *  @param grad  N x n_dim gradients (the dependent row is ignored and may
+ *               hold anything). @param dependent  a species index
+ *               (MCD_DEPENDENT_AUTO is EINVAL here). D may be NULL for N = 1.
  *  Since 0.1. Fails: EINVAL, EDOM | Allocates: no */
 MCD_API mcd_status mcd_fick_fluxes(size_t n_species, size_t n_dim,
                                    const double *D, size_t dependent,
@@ -626,7 +643,8 @@ typedef enum mcd_bootstrap {
  *  @param comp  x (MOLE) or w (MASS); @param diff  J or j (N x n_dim).
  *  @param out_total  N x n_dim; @param out_bulk  N_t or n_t (n_dim), may be
  *  NULL. MCD_BOOT_RATIOS is EINVAL here. Since 0.1.
- *  Fails: EINVAL, EDOM (stagnant species absent, sum nu_i y_i = 0)
+ *  Fails: EINVAL, EDOM (stagnant species absent; sum nu_i y_i zero or
+ *  cancelling to round-off; bulk flux overflows)
  *  | Allocates: no */
 MCD_API mcd_status mcd_flux_total(size_t n_species, size_t n_dim,
                                   mcd_basis basis, const double *comp,
@@ -655,8 +673,12 @@ MCD_API mcd_status mcd_flux_project(size_t n_species, size_t n_dim,
 #define MCD_DIAG_OSMOTIC 0x2u  /**< flux with (nearly) zero own gradient */
 #define MCD_DIAG_BARRIER 0x4u  /**< (nearly) zero flux with a gradient */
 
-/** Flag coupling effects. "Nearly zero" means a norm at most rel_tol times
- *  the largest norm over species of that quantity (gradients or fluxes).
+/** Flag coupling effects. "Nearly zero" means a Euclidean norm at most
+ *  rel_tol times the largest norm over species of that quantity (gradients
+ *  or fluxes). The flags are mutually exclusive: REVERSE needs both norms
+ *  above the threshold. If all gradients are zero, every species with a
+ *  flux is OSMOTIC; if all fluxes are zero, every species with a gradient
+ *  is BARRIER; if both, no flags.
  *  @param rel_tol in (0, 1), e.g. 1e-3. Since 0.1.
  *  Fails: EINVAL | Allocates: no */
 MCD_API mcd_status mcd_flux_diagnose(size_t n_species, size_t n_dim,
@@ -667,7 +689,156 @@ MCD_API mcd_status mcd_flux_diagnose(size_t n_species, size_t n_dim,
 /* Mass transfer: film / Stefan tube, two-bulb cell                    */
 /* ------------------------------------------------------------------ */
 
-/* (section owned by the transfer module) */
+/*
+ * Steady film (Stefan tube, stagnant film of thickness L): isothermal,
+ * isobaric ideal gas with constant total concentration c and binary
+ * diffusivities Đ_ij; compositions x0 at z = 0 and xL at z = L; the total
+ * molar fluxes N_i [mol/(m^2 s)] are constant across the film, positive
+ * from z = 0 towards z = L. The Maxwell-Stefan equations
+ *   c dx_i/dz = sum_{j != i} (x_i N_j - x_j N_i) / Đ_ij
+ * are linear in x for given N, so the profile is a matrix exponential and
+ * the fluxes follow from the exact matrix solution of Krishna and Standart
+ * (1976). A bootstrap condition fixes the total flux N_t = sum N_i:
+ * MCD_BOOT_STAGNANT (N_species = 0), EQUIMOLAR (N_t = 0), WEIGHTS
+ * (sum nu_i N_i = 0, values = nu), TOTAL (values[0] = N_t) or RATIOS (see
+ * mcd_film_solve). Pure-species ends, absent species and zero fluxes are
+ * handled exactly.
+ */
+
+/** Film theory used by mcd_film_solve. */
+typedef enum mcd_film_method {
+    MCD_FILM_EXACT = 0,     /**< Krishna-Standart exact matrix solution:
+                                 [D] varies with x through the film */
+    MCD_FILM_LINEARIZED = 1 /**< linearized theory (Toor 1964; Stewart and
+                                 Prober 1964): [D] constant, evaluated at
+                                 the mean composition (x0 + xL)/2 */
+} mcd_film_method;
+
+/** Steady fluxes through a film between two compositions. Since 0.1.
+ *
+ *  Iterates on the fluxes (successive substitution with Anderson mixing)
+ *  to a relative change <= 1e-12 within 200 iterations. With RATIOS the
+ *  fluxes are N_i = z_i N_t exactly for every species, N_t is the one
+ *  unknown, and the end composition at z = L is matched for species
+ *  `species` only; the other end values then follow from
+ *  the film (see mcd_film_profile). Binary films reproduce the closed forms
+ *  N_A = (c Đ/L) ln((1 - xA_L)/(1 - xA_0)) (B stagnant) and
+ *  N_A = z_A (c Đ/L) ln((z_A - xA_L)/(z_A - xA_0)) (ratios).
+ *
+ *  @param ws       workspace with capacity >= n.
+ *  @param n        number of species N, 2..capacity.
+ *  @param Dij      binary diffusivities [m^2/s], N x N row-major, symmetric
+ *                  (relative difference <= 1e-12), off-diagonal > 0,
+ *                  diagonal ignored.
+ *  @param c        total molar concentration [mol/m^3], > 0.
+ *  @param L        film thickness or tube length [m], > 0.
+ *  @param x0       mole fractions at z = 0, length N, validated as by
+ *                  mcd_comp_normalize (sum within MCD_SUM_TOL of 1).
+ *  @param xL       mole fractions at z = L, same rules.
+ *  @param kind     bootstrap condition (mcd_bootstrap).
+ *  @param species  for STAGNANT: the species that does not move (present,
+ *                  x > 0, at both ends); for RATIOS: the species whose end
+ *                  composition is matched; ignored otherwise.
+ *  @param values   TOTAL: N_t [mol/(m^2 s)], length 1; WEIGHTS: nu [-],
+ *                  length N; RATIOS: z [-], length N, sum 1; NULL
+ *                  otherwise.
+ *  @param method   MCD_FILM_EXACT or MCD_FILM_LINEARIZED.
+ *  @param out_N    total molar fluxes [mol/(m^2 s)], length N.
+ *  @param out_iterations  iterations used (may be NULL).
+ *  @param out_residual    last relative flux change; for RATIOS the last
+ *                  |x_species(L) - xL_species| (may be NULL).
+ *  Fails: EINVAL (NULL, NaN, n or enum out of range), EBADLEN (n >
+ *  capacity), EDOM (compositions, c, L or Đ out of range, stagnant species
+ *  absent at an end, sum nu_i x_i = 0 at both ends, RATIOS with species
+ *  absent at z = 0 and z_species = 0, rate factor |N_t| L/(c Đ) beyond
+ *  1e4), ESING (singular matrix), ENOCONV (no convergence, e.g. RATIOS
+ *  with z_species between the two end values, where no flux reproduces
+ *  xL; the workspace message gives the last residual) | Allocates: no
+ *  | Threads: one ws per thread */
+MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n,
+                                  const double *Dij, double c, double L,
+                                  const double *x0, const double *xL,
+                                  mcd_bootstrap kind, size_t species,
+                                  const double *values,
+                                  mcd_film_method method, double *out_N,
+                                  size_t *out_iterations,
+                                  double *out_residual);
+
+/** Composition profile of a steady film for given fluxes: the exact
+ *  solution x(z) = exp((z/c) [A]) x0 of the Maxwell-Stefan equations, with
+ *  A_ii = sum_{j != i} N_j/Đ_ij and A_ij = -N_i/Đ_ij, by scaling and
+ *  squaring. With the fluxes of mcd_film_solve (EXACT), x(L) = xL.
+ *  Since 0.1.
+ *  @param N         total molar fluxes [mol/(m^2 s)], length N (finite).
+ *  @param n_points  number of positions (0 writes nothing).
+ *  @param z         positions [m], length n_points, each in [0, L].
+ *  @param out_x     mole fractions, n_points x N row-major (row = position).
+ *  Other parameters as in mcd_film_solve.
+ *  Fails: EINVAL, EBADLEN, EDOM | Allocates: no | Threads: one ws per
+ *  thread */
+MCD_API mcd_status mcd_film_profile(mcd_workspace *ws, size_t n,
+                                    const double *Dij, double c, double L,
+                                    const double *x0, const double *N,
+                                    size_t n_points, const double *z,
+                                    double *out_x);
+
+/*
+ * Two-bulb diffusion cell: well-mixed bulbs of volumes V1 and V2 [m^3]
+ * joined by a capillary of cross-section A [m^2] and length L [m], closed,
+ * isothermal and isobaric (ideal gas): the capillary carries no net molar
+ * flux (equimolar counter-diffusion) and is treated as quasi-steady. Every
+ * species is conserved, V1 x1(t) + V2 x2(t) = V1 x1(0) + V2 x2(0), and
+ * both bulbs tend to the volume-weighted mean composition.
+ */
+
+/** Two-bulb compositions by the linearized theory (Toor 1964; Stewart and
+ *  Prober 1964): [D] (molar frame, ideal gas) constant at the
+ *  volume-weighted mean composition, so that the difference
+ *  Delta = x1 - x2 obeys d Delta/dt = -beta [D] Delta with
+ *  beta = A (V1 + V2) / (L V1 V2), solved through the eigen-decomposition
+ *  of [D] (LAPACK dgeev). Since 0.1.
+ *  @param ws        workspace with capacity >= n.
+ *  @param n         number of species N, 2..capacity.
+ *  @param Dij       binary diffusivities as in mcd_film_solve.
+ *  @param c         total molar concentration [mol/m^3], > 0.
+ *  @param V1,V2     bulb volumes [m^3], > 0.
+ *  @param A         capillary cross-section [m^2], > 0.
+ *  @param L         capillary length [m], > 0.
+ *  @param x1_0,x2_0 initial mole fractions of bulb 1 and 2, length N each.
+ *  @param n_times   number of output times (0 writes nothing).
+ *  @param t         output times [s], length n_times, each >= 0.
+ *  @param out_x1,out_x2  mole fractions, n_times x N row-major each
+ *                   (row = time).
+ *  Fails: EINVAL, EBADLEN, EDOM, ESING | Allocates: no | Threads: one ws
+ *  per thread */
+MCD_API mcd_status mcd_bulbs_linearized(mcd_workspace *ws, size_t n,
+                                        const double *Dij, double c,
+                                        double V1, double V2, double A,
+                                        double L, const double *x1_0,
+                                        const double *x2_0, size_t n_times,
+                                        const double *t, double *out_x1,
+                                        double *out_x2);
+
+/** Two-bulb compositions by time integration: the capillary flux at each
+ *  instant is the exact steady equimolar film solution between x1 and x2
+ *  (mcd_film_solve, EXACT, MCD_BOOT_EQUIMOLAR), and c V1 dx1/dt = -A N
+ *  is integrated by an embedded Runge-Kutta 5(4) pair (Dormand and Prince
+ *  1980) with error control; x2 follows from conservation, so every
+ *  species is conserved to round-off. Since 0.1.
+ *  @param t         output times [s], length n_times, each >= 0 and
+ *                   non-decreasing.
+ *  @param rel_tol   local error tolerance [-] on mole fractions, in
+ *                   [1e-12, 1e-2].
+ *  Other parameters as in mcd_bulbs_linearized.
+ *  Fails: EINVAL, EBADLEN, EDOM, ESING, ENOCONV (step size underflow or
+ *  film not converging) | Allocates: no | Threads: one ws per thread */
+MCD_API mcd_status mcd_bulbs_integrate(mcd_workspace *ws, size_t n,
+                                       const double *Dij, double c,
+                                       double V1, double V2, double A,
+                                       double L, const double *x1_0,
+                                       const double *x2_0, size_t n_times,
+                                       const double *t, double rel_tol,
+                                       double *out_x1, double *out_x2);
 
 #ifdef __cplusplus
 }

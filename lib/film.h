@@ -1,0 +1,42 @@
+/* film.h - private helpers shared by the transfer layer (film.c, bulbs.c).
+ * Never installed. Internal non-static functions use the mcdi_tf_ and
+ * mcdi_film_ prefixes. */
+#ifndef MCD_FILM_H
+#define MCD_FILM_H
+
+#include <stddef.h>
+#include "mcdiff.h"
+
+/* Validate a binary-diffusivity matrix: Dij != NULL, off-diagonal entries
+ * finite (EINVAL), > 0 (EDOM), symmetric to 1e-12 relative (EDOM). */
+mcd_status mcdi_tf_check_dij(mcd_workspace *ws, size_t n, const double *Dij);
+
+/* Validate a scalar: finite (EINVAL) and > 0 (EDOM). */
+mcd_status mcdi_tf_check_pos(mcd_workspace *ws, double v, const char *name);
+
+/* Validate and renormalise a composition into out (length n). */
+mcd_status mcdi_tf_check_comp(mcd_workspace *ws, size_t n, const double *x,
+                              const char *name, double *out);
+
+/* C = A B for m x m row-major matrices (C must not alias A or B). */
+void mcdi_tf_matmul(size_t m, const double *A, const double *B, double *C);
+
+/* Matrix exponential E = exp(A) and phi1(A) = sum_k A^k/(k+1)! of an m x m
+ * row-major matrix by scaling and squaring (see film.c). On entry slot[0]
+ * holds A (destroyed); on return slot[1] = phi1(A), slot[2] = exp(A),
+ * slot[0] = free scratch (the three pointers are permuted).
+ * Returns MCD_EDOM if the norm of A is not finite or too large, or if the
+ * result overflowed. */
+mcd_status mcdi_tf_expm_phi(size_t m, double *slot[3]);
+
+/* Film fluxes on validated, normalised inputs (see mcd_film_solve). Uses
+ * workspace AUX matrices 0..3, AUX vectors 0..3 and the AUX pivots; never
+ * touches AUX vectors 4..7. Writes out_N only on success. */
+mcd_status mcdi_film_core(mcd_workspace *ws, size_t n, const double *Dij,
+                          double c, double L, const double *x0,
+                          const double *xL, mcd_bootstrap kind,
+                          size_t species, const double *values,
+                          mcd_film_method method, double *out_N,
+                          size_t *out_iterations, double *out_residual);
+
+#endif
