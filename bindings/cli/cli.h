@@ -1,0 +1,222 @@
+/* cli.h - private declarations shared by the files of the mcdiff tool.
+ * The tool uses only the public header mcdiff.h. */
+#ifndef MCDIFF_CLI_H
+#define MCDIFF_CLI_H
+
+#include <stddef.h>
+#include <stdio.h>
+#include "mcdiff.h"
+
+/* Exit codes of the tool. */
+enum {
+    CLI_OK = 0,        /* success */
+    CLI_FAIL = 1,      /* the computation failed */
+    CLI_USAGE = 2      /* bad command line */
+};
+
+/* One-line caution printed with every estimate (tables: short; JSON: long). */
+#define CLI_CAUTION_SHORT \
+    "Note: estimates carry typical errors; not a substitute for validated " \
+    "data, local codes or licensed engineering review."
+#define CLI_CAUTION_LONG \
+    "Diffusivities here are estimates with the typical errors listed; they " \
+    "do not replace validated data, local codes and licensed engineering " \
+    "review."
+
+/* ---- messages (main.c) ---- */
+/* "mcdiff <cmd>: bad value for ARG: why" on stderr; returns CLI_USAGE. */
+int cli_usage_error(const char *cmd, const char *arg, const char *fmt, ...)
+#if defined(__GNUC__)
+    __attribute__((format(printf, 3, 4)))
+#endif
+    ;
+/* "mcdiff <cmd>: what: <status text> (detail)" on stderr; returns CLI_FAIL. */
+int cli_fail(const char *cmd, const char *what, mcd_status st,
+             const char *detail);
+
+/* ---- argument scanning (args.c) ---- */
+/* A tiny option scanner: options are "--long", "--long=value", "-s", "-svalue"
+ * or "-s value". Everything else is positional. A lone "--" ends options. */
+typedef struct cli_opt {
+    const char *long_name; /* without the dashes */
+    char short_name;       /* 0 if none */
+    int takes_value;       /* 1: needs a value */
+    int id;                /* returned by cli_args_next */
+} cli_opt;
+
+typedef struct cli_args {
+    int argc;
+    char **argv;
+    int pos;              /* next index in argv */
+    int only_positional;  /* after "--" */
+    const cli_opt *opts;
+    const char *cmd;      /* command name for messages */
+    const char *value;    /* value of the last option (or positional text) */
+    const char *spelled;  /* the option for messages, e.g. "-T/--temperature" */
+    char spelled_buf[80];
+} cli_args;
+
+#define CLI_ARG_END (-1)        /* no more arguments */
+#define CLI_ARG_POSITIONAL (-2) /* a positional argument in ->value */
+#define CLI_ARG_ERROR (-3)      /* message already printed */
+
+void cli_args_init(cli_args *a, const char *cmd, int argc, char **argv,
+                   const cli_opt *opts);
+int cli_args_next(cli_args *a);
+
+/* ---- numbers and units (units.c) ---- */
+/* All parsers return 0 on success or write a reason (without the argument
+ * name) into why[whylen] and return -1. Values are SI. */
+int cli_parse_number(const char *text, double *out, char *why, size_t whylen);
+int cli_parse_temperature(const char *text, double *out_K, char *why,
+                          size_t whylen);
+int cli_parse_pressure(const char *text, double *out_Pa, char *why,
+                       size_t whylen);
+/* Diffusivity: bare number = m^2/s; suffixes "m2/s" and "cm2/s". */
+int cli_parse_diffusivity(const char *text, double *out, char *why,
+                          size_t whylen);
+/* Viscosity: bare number = Pa s; suffixes "Pa.s", "mPa.s", "cP". */
+int cli_parse_viscosity(const char *text, double *out, char *why,
+                        size_t whylen);
+/* Comma-separated plain numbers; *out_n receives the count (<= cap). */
+int cli_parse_list(const char *text, double *out, size_t cap, size_t *out_n,
+                   char *why, size_t whylen);
+/* Split a comma-separated list of words into buf (modified copy);
+ * returns count or -1 on an empty item or too many items. */
+int cli_split_words(char *buf, char **out, size_t cap);
+
+/* ---- JSON writer (json.c) ---- */
+#define CLI_JSON_MAX_DEPTH 16
+typedef struct cli_json {
+    FILE *f;
+    int depth;
+    int count[CLI_JSON_MAX_DEPTH]; /* items written at each level */
+    int is_array[CLI_JSON_MAX_DEPTH];
+} cli_json;
+
+void cli_json_init(cli_json *j, FILE *f);
+/* key is used inside objects and must be NULL inside arrays. */
+void cli_json_object_begin(cli_json *j, const char *key);
+void cli_json_object_end(cli_json *j);
+void cli_json_array_begin(cli_json *j, const char *key);
+void cli_json_array_end(cli_json *j);
+void cli_json_string(cli_json *j, const char *key, const char *s);
+void cli_json_number(cli_json *j, const char *key, double v);
+void cli_json_integer(cli_json *j, const char *key, long long v);
+void cli_json_bool(cli_json *j, const char *key, int v);
+void cli_json_null(cli_json *j, const char *key);
+/* Array of n numbers on one line. */
+void cli_json_numbers(cli_json *j, const char *key, const double *v,
+                      size_t n);
+/* Finish the document with a newline. */
+void cli_json_finish(cli_json *j);
+
+/* ---- aligned tables (table.c) ---- */
+#define CLI_TABLE_MAX_COLS 16
+typedef struct cli_table {
+    size_t ncols;
+    size_t nrows, cap;
+    char **cells;                    /* nrows x ncols strings (heap) */
+    int right[CLI_TABLE_MAX_COLS];   /* 1: right-align the column */
+} cli_table;
+
+/* ncols columns; the first two rows added are usually header and units. */
+int cli_table_init(cli_table *t, size_t ncols);
+/* Add a row of ncols cells (NULL cell = empty). Returns 0 or -1 (memory). */
+int cli_table_row(cli_table *t, const char *const *cells);
+/* Print with columns padded to their widest cell, two spaces apart. */
+void cli_table_print(const cli_table *t, FILE *f, const char *indent);
+void cli_table_free(cli_table *t);
+/* Format a number for tables: %.4g style, "-" when NaN. */
+void cli_fmt_num(char *buf, size_t len, double v);
+
+/* ---- shared state options of fluxes and matrix (state.c) ---- */
+typedef struct cli_state {
+    size_t n;                       /* species */
+    size_t n_dim;                   /* 0 when no gradients were given */
+    char *names_buf;                /* owned copy of the species list */
+    char *names[MCD_MAX_SPECIES];   /* species as typed */
+    double T, P, c;                 /* K, Pa, mol/m^3 */
+    mcd_basis comp_basis;           /* -x (mole) or -w (mass) */
+    mcd_basis out_basis;            /* --basis */
+    mcd_model model;                /* --model */
+    mcd_method method;              /* --method */
+    double *comp;                   /* n */
+    double *grad;                   /* n x n_dim, in comp_basis */
+    double grad_lnP[MCD_MAX_DIM];
+    int have_grad_lnP;
+    size_t dependent;               /* MCD_DEPENDENT_AUTO or index */
+    const char *dependent_name;
+    const char *file;               /* --species-file or NULL */
+    int json;
+    /* pairs given on the command line, resolved after the mixture exists */
+    size_t n_pairs;
+    struct cli_pair {
+        const char *a, *b;
+        double D, T_ref, P_ref;     /* T_ref/P_ref NaN: use the state */
+        const char *text;
+    } pairs[64];
+    char *pair_bufs[64];            /* owned parsed copies of the pairs */
+    size_t *dbidx;                  /* n: database index of each species */
+    /* results */
+    mcd_db *db;
+    mcd_mixture *mix;
+    mcd_workspace *ws;
+    double *M;                      /* n */
+    double *x;                      /* n mole fractions */
+    double *w;                      /* n mass fractions */
+    double *Dij, *rel_err;          /* n x n */
+    unsigned *warn;                 /* n x n */
+    unsigned *user_pair;            /* n x n: 1 if given on the command line */
+} cli_state;
+
+/* Parse the state options of `fluxes` (need_grad = 1) or `matrix`.
+ * Returns -1 when --help was printed (exit 0), else a CLI_* code. */
+int cli_state_parse(cli_state *s, const char *cmd, int argc, char **argv,
+                    int need_grad, void (*help)(FILE *));
+/* Build the mixture, set the pairs, compute binaries. CLI_OK or CLI_FAIL. */
+int cli_state_setup(cli_state *s, const char *cmd);
+void cli_state_free(cli_state *s);
+/* Table of the binary diffusivities (cm^2/s) with their source/method. */
+void cli_state_print_binaries(const cli_state *s, FILE *f);
+void cli_state_json_binaries(const cli_state *s, cli_json *j);
+void cli_state_json_header(const cli_state *s, cli_json *j);
+
+/* ---- shared result printing of fluxes and matrix (report.c) ---- */
+/* Gradients of the state converted to `basis` (n x n_dim). */
+int cli_state_grad_in(const cli_state *s, const char *cmd, mcd_basis basis,
+                      double *out);
+/* Exact generalized Fick matrix in the output basis; *out_dep receives the
+ * dependent species. D has room for (n-1)^2. CLI_OK or CLI_FAIL. */
+int cli_state_fick(cli_state *s, const char *cmd, double *D,
+                   size_t *out_dep);
+void cli_print_fick(const cli_state *s, const double *D, size_t dep,
+                    FILE *f);
+void cli_json_fick(const cli_state *s, const double *D, size_t dep,
+                   cli_json *j);
+/* Flux table with gradients, zero-sum row and flags (flags may be NULL). */
+void cli_print_fluxes(const cli_state *s, const double *flux,
+                      const unsigned *flags, FILE *f);
+void cli_json_fluxes(const cli_state *s, const double *flux,
+                     const unsigned *flags, cli_json *j);
+/* Per direction: sum over species and that sum relative to the largest
+ * |flux| (0 when all fluxes vanish). */
+void cli_zero_sum(size_t n, size_t n_dim, const double *flux, double *sum,
+                  double *rel);
+const char *cli_flux_unit(mcd_basis b);
+
+/* ---- subcommands ---- */
+int cli_cmd_species(int argc, char **argv);
+int cli_cmd_binary(int argc, char **argv);
+int cli_cmd_fluxes(int argc, char **argv);
+int cli_cmd_matrix(int argc, char **argv);
+int cli_cmd_demo(int argc, char **argv);
+
+/* Open the built-in database, then load extra_file if not NULL.
+ * Returns CLI_OK, CLI_USAGE (bad file) or CLI_FAIL. */
+int cli_open_db(const char *cmd, const char *extra_file, mcd_db **out_db);
+
+/* Warnings bits as "a; b; c" into buf. */
+void cli_warn_text(unsigned bits, char *buf, size_t len);
+
+#endif

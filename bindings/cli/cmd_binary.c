@@ -1,0 +1,282 @@
+/* cmd_binary.c - `mcdiff binary A B`: estimates of one binary diffusivity. */
+#include <math.h>
+#include <stdio.h>
+#include <string.h>
+#include "cli.h"
+
+static void help(FILE *f)
+{
+    fputs(
+        "usage: mcdiff binary A B -T TEMP -P PRES [--method NAME] [--json]\n"
+        "\n"
+        "Binary diffusivity of species A and B (names or formulas from\n"
+        "'mcdiff species') estimated by every method that applies, or by the\n"
+        "one named, each with its typical error and warnings. The first\n"
+        "method that applies (in the order fsg, chapman-enskog, wilke-lee)\n"
+        "is the recommended one.\n"
+        "\n"
+        "options:\n"
+        "  -T, --temperature TEMP  temperature; K or C suffix, bare = K\n"
+        "                          (298.15, 298.15K, 25C)\n"
+        "  -P, --pressure PRES     pressure; Pa, kPa, MPa, bar or atm suffix,\n"
+        "                          bare = Pa (101325, 1atm, 1.01325bar);\n"
+        "                          not used for liquids\n"
+        "  -m, --method NAME       fsg, chapman-enskog, wilke-lee or\n"
+        "                          wilke-chang (liquid: A dilute in solvent B,\n"
+        "                          needs --viscosity)\n"
+        "  --viscosity MU          liquid solvent B's viscosity at TEMP; selects\n"
+        "                          wilke-chang; Pa.s, mPa.s or cP suffix,\n"
+        "                          bare = Pa.s\n"
+        "  --json                  one JSON object; D in m^2/s under \"D\"\n"
+        "  --species-file FILE     also load species from FILE\n"
+        "  -h, --help              this text\n"
+        "\n"
+        "examples:\n"
+        "  mcdiff binary carbon-dioxide nitrogen -T 25C -P 1atm\n"
+        "  mcdiff binary H2 N2 -T 350 -P 2bar --method chapman-enskog --json\n"
+        "  mcdiff binary ethanol water -T 25C --viscosity 0.89cP\n",
+        f);
+}
+
+typedef struct result {
+    mcd_method m;
+    mcd_status st;
+    double D, rel_err;
+    unsigned warn;
+} result;
+
+static void json_warnings(cli_json *j, unsigned bits)
+{
+    unsigned b;
+    cli_json_array_begin(j, "warnings");
+    for (b = 1; b != 0 && b <= bits; b <<= 1)
+        if (bits & b)
+            cli_json_string(j, NULL, mcd_warning_string(b));
+    cli_json_array_end(j);
+}
+
+int cli_cmd_binary(int argc, char **argv)
+{
+    enum { O_T = 1, O_P, O_METHOD, O_VISC, O_JSON, O_HELP, O_FILE };
+    static const cli_opt opts[] = {{"temperature", 'T', 1, O_T},
+                                   {"pressure", 'P', 1, O_P},
+                                   {"method", 'm', 1, O_METHOD},
+                                   {"viscosity", 0, 1, O_VISC},
+                                   {"json", 0, 0, O_JSON},
+                                   {"help", 'h', 0, O_HELP},
+                                   {"species-file", 0, 1, O_FILE},
+                                   {NULL, 0, 0, 0}};
+    static const mcd_method gas_methods[] = {
+        MCD_METHOD_FSG, MCD_METHOD_CHAPMAN_ENSKOG, MCD_METHOD_WILKE_LEE};
+    const char *cmd = "binary";
+    cli_args a;
+    int id, json = 0, rc, have_method = 0, best = -1, liquid;
+    const char *names[2] = {NULL, NULL}, *file = NULL;
+    size_t npos = 0, idx[2], k, nres = 0;
+    double T = NAN, P = NAN, mu = NAN;
+    mcd_method method = MCD_METHOD_FSG;
+    mcd_db *db = NULL;
+    result res[4];
+    char why[200];
+
+    cli_args_init(&a, cmd, argc, argv, opts);
+    while ((id = cli_args_next(&a)) != CLI_ARG_END) {
+        switch (id) {
+        case CLI_ARG_ERROR:
+            return CLI_USAGE;
+        case O_HELP:
+            help(stdout);
+            return CLI_OK;
+        case O_JSON:
+            json = 1;
+            break;
+        case O_FILE:
+            file = a.value;
+            break;
+        case O_T:
+            if (cli_parse_temperature(a.value, &T, why, sizeof why) != 0)
+                return cli_usage_error(cmd, a.spelled, "%s", why);
+            break;
+        case O_P:
+            if (cli_parse_pressure(a.value, &P, why, sizeof why) != 0)
+                return cli_usage_error(cmd, a.spelled, "%s", why);
+            break;
+        case O_VISC:
+            if (cli_parse_viscosity(a.value, &mu, why, sizeof why) != 0)
+                return cli_usage_error(cmd, a.spelled, "%s", why);
+            break;
+        case O_METHOD:
+            if (mcd_method_from_name(a.value, &method) != MCD_OK)
+                return cli_usage_error(cmd, a.spelled,
+                                       "unknown method '%s' (fsg, "
+                                       "chapman-enskog, wilke-lee, "
+                                       "wilke-chang)",
+                                       a.value);
+            if (method == MCD_METHOD_USER)
+                return cli_usage_error(cmd, a.spelled,
+                                       "'user' is not an estimation method "
+                                       "(give measured pairs to 'mcdiff "
+                                       "fluxes --pair')");
+            have_method = 1;
+            break;
+        case CLI_ARG_POSITIONAL:
+            if (npos >= 2)
+                return cli_usage_error(cmd, a.value,
+                                       "only two species may be given");
+            names[npos++] = a.value;
+            break;
+        default:
+            return CLI_USAGE;
+        }
+    }
+    if (npos < 2)
+        return cli_usage_error(cmd, npos ? "B" : "A",
+                               "missing species name (see --help)");
+    liquid = !isnan(mu) || (have_method && method == MCD_METHOD_WILKE_CHANG);
+    if (isnan(T))
+        return cli_usage_error(cmd, "-T/--temperature", "is required");
+    if (isnan(P) && !liquid)
+        return cli_usage_error(cmd, "-P/--pressure", "is required");
+    if (liquid && isnan(mu))
+        return cli_usage_error(cmd, "--viscosity",
+                               "is required by wilke-chang");
+    if (liquid && have_method && method != MCD_METHOD_WILKE_CHANG)
+        return cli_usage_error(cmd, "--viscosity",
+                               "is only used by wilke-chang (liquids)");
+
+    rc = cli_open_db(cmd, file, &db);
+    if (rc != CLI_OK)
+        return rc;
+    for (k = 0; k < 2; k++) {
+        mcd_status st = mcd_db_find(db, names[k], &idx[k]);
+        if (st != MCD_OK) {
+            mcd_db_free(db);
+            if (st == MCD_ENOTFOUND)
+                return cli_usage_error(cmd, names[k],
+                                       "no such species (see 'mcdiff "
+                                       "species')");
+            return cli_fail(cmd, "looking up a species", st, names[k]);
+        }
+    }
+
+    /* Methods to run. */
+    if (liquid) {
+        res[nres++].m = MCD_METHOD_WILKE_CHANG;
+    } else if (have_method) {
+        res[nres++].m = method;
+    } else {
+        for (k = 0; k < sizeof gas_methods / sizeof gas_methods[0]; k++)
+            res[nres++].m = gas_methods[k];
+    }
+    for (k = 0; k < nres; k++) {
+        result *r = &res[k];
+        r->D = NAN;
+        r->rel_err = NAN;
+        r->warn = 0;
+        if (r->m == MCD_METHOD_WILKE_CHANG)
+            r->st = mcd_binary_liquid(db, idx[0], idx[1], T, mu, &r->D,
+                                      &r->rel_err, &r->warn);
+        else
+            r->st = mcd_binary_gas(db, idx[0], idx[1], r->m, T, P, &r->D,
+                                   &r->rel_err, &r->warn);
+        if (r->st == MCD_OK && best < 0)
+            best = (int)k;
+    }
+    if (best < 0) {
+        rc = cli_fail(cmd,
+                      nres == 1 ? "the estimate" : "every estimate",
+                      res[0].st, mcd_method_name(res[0].m));
+        mcd_db_free(db);
+        return rc;
+    }
+
+    if (json) {
+        cli_json j;
+        cli_json_init(&j, stdout);
+        cli_json_object_begin(&j, NULL);
+        cli_json_array_begin(&j, "pair");
+        cli_json_string(&j, NULL, mcd_db_name(db, idx[0]));
+        cli_json_string(&j, NULL, mcd_db_name(db, idx[1]));
+        cli_json_array_end(&j);
+        cli_json_number(&j, "T", T);
+        if (liquid)
+            cli_json_null(&j, "P");
+        else
+            cli_json_number(&j, "P", P);
+        if (!isnan(mu))
+            cli_json_number(&j, "viscosity", mu);
+        cli_json_number(&j, "D", res[best].D);
+        cli_json_string(&j, "method", mcd_method_name(res[best].m));
+        cli_json_number(&j, "typical_error", res[best].rel_err);
+        cli_json_array_begin(&j, "results");
+        for (k = 0; k < nres; k++) {
+            cli_json_object_begin(&j, NULL);
+            cli_json_string(&j, "method", mcd_method_name(res[k].m));
+            cli_json_string(&j, "status", mcd_status_string(res[k].st));
+            cli_json_number(&j, "D", res[k].D);
+            cli_json_number(&j, "typical_error", res[k].rel_err);
+            json_warnings(&j, res[k].warn);
+            cli_json_object_end(&j);
+        }
+        cli_json_array_end(&j);
+        cli_json_string(&j, "caution", CLI_CAUTION_LONG);
+        cli_json_object_end(&j);
+        cli_json_finish(&j);
+    } else {
+        cli_table t;
+        const char *cells[5];
+        char d1[48], d2[48], e[48];
+        if (liquid)
+            printf("%s (%s) dilute in liquid %s (%s) at T = %.6g K, solvent "
+                   "viscosity %.6g Pa s\n",
+                   mcd_db_name(db, idx[0]), mcd_db_formula(db, idx[0]),
+                   mcd_db_name(db, idx[1]), mcd_db_formula(db, idx[1]), T,
+                   mu);
+        else
+            printf("%s (%s) + %s (%s) at T = %.6g K, P = %.6g Pa\n",
+                   mcd_db_name(db, idx[0]), mcd_db_formula(db, idx[0]),
+                   mcd_db_name(db, idx[1]), mcd_db_formula(db, idx[1]), T,
+                   P);
+        cli_table_init(&t, 5);
+        t.right[1] = t.right[2] = t.right[3] = 1;
+        cells[0] = "method";
+        cells[1] = "D [m^2/s]";
+        cells[2] = "D [cm^2/s]";
+        cells[3] = "typ. error";
+        cells[4] = "";
+        cli_table_row(&t, cells);
+        for (k = 0; k < nres; k++) {
+            cells[0] = mcd_method_name(res[k].m);
+            if (res[k].st == MCD_OK) {
+                snprintf(d1, sizeof d1, "%.4e", res[k].D);
+                snprintf(d2, sizeof d2, "%.4g", res[k].D * 1e4);
+                if (isnan(res[k].rel_err))
+                    snprintf(e, sizeof e, "-");
+                else
+                    snprintf(e, sizeof e, "%.1f %%", 100.0 * res[k].rel_err);
+                cells[1] = d1;
+                cells[2] = d2;
+                cells[3] = e;
+                cells[4] = (int)k == best ? "<- recommended" : "";
+            } else {
+                cells[1] = "-";
+                cells[2] = "-";
+                cells[3] = "-";
+                cells[4] = mcd_status_string(res[k].st);
+            }
+            cli_table_row(&t, cells);
+        }
+        cli_table_print(&t, stdout, "  ");
+        cli_table_free(&t);
+        for (k = 0; k < nres; k++) {
+            char w[512];
+            if (res[k].st != MCD_OK || res[k].warn == 0)
+                continue;
+            cli_warn_text(res[k].warn, w, sizeof w);
+            printf("  warning (%s): %s\n", mcd_method_name(res[k].m), w);
+        }
+        printf("%s\n", CLI_CAUTION_SHORT);
+    }
+    mcd_db_free(db);
+    return CLI_OK;
+}

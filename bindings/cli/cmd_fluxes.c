@@ -1,0 +1,153 @@
+/* cmd_fluxes.c - `mcdiff fluxes`: diffusion fluxes of N species at one
+ * state, with the zero-sum residual, coupling flags and the Fick matrix. */
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include "cli.h"
+
+static void help(FILE *f)
+{
+    fputs(
+        "usage: mcdiff fluxes -s A,B,C -x XA,XB,XC -g GA,GB,GC [-g ...]\n"
+        "                     -T TEMP -P PRES [options]\n"
+        "\n"
+        "Diffusion fluxes of every species of an ideal-gas mixture at one\n"
+        "state, relative to the molar-average velocity (mole basis) or the\n"
+        "mass-average velocity (mass basis), with their zero-sum residual,\n"
+        "coupling flags and the exact generalized Fick matrix.\n"
+        "\n"
+        "options (lists are comma-separated, one value per species, in the\n"
+        "order of -s):\n"
+        "  -s, --species LIST        species names or formulas (2 or more)\n"
+        "  -x, --mole-fractions LIST mole fractions [-], sum 1\n"
+        "  -w, --mass-fractions LIST mass fractions [-], sum 1 (instead of -x;\n"
+        "                            -g is then in mass fractions too)\n"
+        "  -g, --gradient LIST       gradients of the fractions [1/m]; repeat\n"
+        "                            once per direction (1 to 3)\n"
+        "  -T, --temperature TEMP    K or C suffix, bare = K\n"
+        "  -P, --pressure PRES       Pa, kPa, MPa, bar or atm, bare = Pa\n"
+        "  --model NAME              exact (Maxwell-Stefan, default) or\n"
+        "                            mixture-averaged\n"
+        "  --basis NAME              fluxes as mole (J_i [mol/(m^2 s)]) or\n"
+        "                            mass (j_i [kg/(m^2 s)]); default: the\n"
+        "                            basis of the composition\n"
+        "  -m, --method NAME         estimate of the binary diffusivities:\n"
+        "                            fsg (default), chapman-enskog, wilke-lee\n"
+        "  --pair A:B=D[@T,P]        binary diffusivity of a pair [m^2/s, or\n"
+        "                            cm2/s suffix], valid at this state or\n"
+        "                            measured at T,P (scaled as T^1.75/P);\n"
+        "                            repeat per pair, the rest are estimated\n"
+        "  --grad-lnp LIST           gradient of ln P [1/m], one value per\n"
+        "                            direction (pressure diffusion)\n"
+        "  --dependent NAME          species left out of the Fick matrix\n"
+        "                            (default: the most abundant)\n"
+        "  --json                    one JSON object (SI): fluxes under\n"
+        "                            \"fluxes\", Fick matrix under \"fick_matrix\"\n"
+        "  --species-file FILE       also load species from FILE\n"
+        "  -h, --help                this text\n"
+        "\n"
+        "example:\n"
+        "  mcdiff fluxes -s H2,N2,CO2 -x 0.3,0.4,0.3 -g -20,0,20 -T 35C -P 1atm \\\n"
+        "      --pair H2:N2=8.38e-5\n",
+        f);
+}
+
+int cli_cmd_fluxes(int argc, char **argv)
+{
+    const char *cmd = "fluxes";
+    cli_state s;
+    int rc;
+    double *flux = NULL, *gout = NULL, *D = NULL;
+    unsigned *flags = NULL;
+    size_t dep = 0, n;
+    mcd_status st;
+
+    rc = cli_state_parse(&s, cmd, argc, argv, 1, help);
+    if (rc != CLI_OK) {
+        cli_state_free(&s);
+        return rc < 0 ? CLI_OK : rc;
+    }
+    rc = cli_state_setup(&s, cmd);
+    if (rc != CLI_OK)
+        goto done;
+    n = s.n;
+    flux = malloc(n * s.n_dim * sizeof *flux);
+    gout = malloc(n * s.n_dim * sizeof *gout);
+    D = malloc((n - 1) * (n - 1) * sizeof *D);
+    flags = calloc(n, sizeof *flags);
+    if (!flux || !gout || !D || !flags) {
+        rc = cli_fail(cmd, "setting up", MCD_ENOMEM, NULL);
+        goto done;
+    }
+    st = mcd_flux_compute(s.ws, s.model, n, s.n_dim, s.M, s.Dij, s.c,
+                          s.comp_basis, s.comp, s.grad, NULL,
+                          s.have_grad_lnP ? s.grad_lnP : NULL, s.out_basis,
+                          flux);
+    if (st != MCD_OK) {
+        rc = cli_fail(cmd, "the flux computation", st,
+                      mcd_workspace_last_error(s.ws));
+        goto done;
+    }
+    /* Flags compare each flux with the gradient in the same basis. */
+    rc = cli_state_grad_in(&s, cmd, s.out_basis, gout);
+    if (rc != CLI_OK)
+        goto done;
+    st = mcd_flux_diagnose(n, s.n_dim, gout, flux, 1e-3, flags);
+    if (st != MCD_OK) {
+        rc = cli_fail(cmd, "the coupling diagnosis", st, NULL);
+        goto done;
+    }
+    rc = cli_state_fick(&s, cmd, D, &dep);
+    if (rc != CLI_OK)
+        goto done;
+
+    if (s.json) {
+        cli_json j;
+        size_t i;
+        cli_json_init(&j, stdout);
+        cli_json_object_begin(&j, NULL);
+        cli_state_json_header(&s, &j);
+        cli_json_string(&j, "model", s.model == MCD_MODEL_MAXWELL_STEFAN
+                                         ? "exact"
+                                         : "mixture-averaged");
+        cli_json_string(&j, "composition_basis",
+                        s.comp_basis == MCD_BASIS_MOLE ? "mole" : "mass");
+        cli_json_array_begin(&j, "gradients");
+        for (i = 0; i < n; i++)
+            cli_json_numbers(&j, NULL, s.grad + i * s.n_dim, s.n_dim);
+        cli_json_array_end(&j);
+        if (s.have_grad_lnP)
+            cli_json_numbers(&j, "grad_lnP", s.grad_lnP, s.n_dim);
+        cli_state_json_binaries(&s, &j);
+        cli_json_fluxes(&s, flux, flags, &j);
+        cli_json_fick(&s, D, dep, &j);
+        cli_json_string(&j, "caution", CLI_CAUTION_LONG);
+        cli_json_object_end(&j);
+        cli_json_finish(&j);
+    } else {
+        printf("%zu species at T = %.6g K, P = %.6g Pa, c = %.5g mol/m^3 "
+               "(ideal gas)\n",
+               n, s.T, s.P, s.c);
+        printf("binary diffusivities:\n");
+        cli_state_print_binaries(&s, stdout);
+        printf("%s diffusion fluxes, %s:\n",
+               s.model == MCD_MODEL_MAXWELL_STEFAN ? "exact Maxwell-Stefan"
+                                                   : "mixture-averaged",
+               s.out_basis == MCD_BASIS_MOLE
+                   ? "molar, relative to the molar-average velocity"
+                   : "mass, relative to the mass-average velocity");
+        if (s.have_grad_lnP)
+            printf("  (including pressure diffusion)\n");
+        cli_print_fluxes(&s, flux, flags, stdout);
+        cli_print_fick(&s, D, dep, stdout);
+        printf("%s\n", CLI_CAUTION_SHORT);
+    }
+    rc = CLI_OK;
+done:
+    free(flux);
+    free(gout);
+    free(D);
+    free(flags);
+    cli_state_free(&s);
+    return rc;
+}

@@ -1,0 +1,539 @@
+/* state.c - the state options shared by `mcdiff fluxes` and `mcdiff matrix`:
+ * species, composition, gradients, T, P, model, basis and the binary
+ * diffusivities (estimated by a method, or given per pair).
+ */
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include "cli.h"
+
+enum {
+    O_SPECIES = 1, O_X, O_W, O_GRAD, O_DLNP, O_T, O_P, O_MODEL, O_BASIS,
+    O_METHOD, O_PAIR, O_DEP, O_JSON, O_HELP, O_FILE
+};
+
+static const cli_opt state_opts[] = {
+    {"species", 's', 1, O_SPECIES},
+    {"mole-fractions", 'x', 1, O_X},
+    {"mass-fractions", 'w', 1, O_W},
+    {"gradient", 'g', 1, O_GRAD},
+    {"grad-lnp", 0, 1, O_DLNP},
+    {"temperature", 'T', 1, O_T},
+    {"pressure", 'P', 1, O_P},
+    {"model", 0, 1, O_MODEL},
+    {"basis", 0, 1, O_BASIS},
+    {"method", 'm', 1, O_METHOD},
+    {"pair", 0, 1, O_PAIR},
+    {"dependent", 0, 1, O_DEP},
+    {"json", 0, 0, O_JSON},
+    {"help", 'h', 0, O_HELP},
+    {"species-file", 0, 1, O_FILE},
+    {NULL, 0, 0, 0}};
+
+/* Parse "A:B=D" or "A:B=D@T,P" into p (text is modified: kept by the
+ * caller's argv). */
+static int parse_pair(char *text, struct cli_pair *p, char *why,
+                      size_t whylen)
+{
+    char *colon = strchr(text, ':');
+    char *eq = strchr(text, '=');
+    char *at, *comma;
+    if (!colon || !eq || colon > eq || colon == text || eq == colon + 1) {
+        snprintf(why, whylen, "expected A:B=D (e.g. H2:N2=7.8e-5)");
+        return -1;
+    }
+    *colon = '\0';
+    *eq = '\0';
+    p->a = text;
+    p->b = colon + 1;
+    p->T_ref = NAN;
+    p->P_ref = NAN;
+    at = strchr(eq + 1, '@');
+    if (at) {
+        *at = '\0';
+        comma = strchr(at + 1, ',');
+        if (!comma) {
+            snprintf(why, whylen,
+                     "expected A:B=D@T,P for a value measured at T and P");
+            return -1;
+        }
+        *comma = '\0';
+        if (cli_parse_temperature(at + 1, &p->T_ref, why, whylen) != 0 ||
+            cli_parse_pressure(comma + 1, &p->P_ref, why, whylen) != 0)
+            return -1;
+    }
+    return cli_parse_diffusivity(eq + 1, &p->D, why, whylen);
+}
+
+int cli_state_parse(cli_state *s, const char *cmd, int argc, char **argv,
+                    int need_grad, void (*help)(FILE *))
+{
+    cli_args a;
+    int id, have_x = 0, have_w = 0, have_basis = 0, have_model = 0;
+    size_t ncomp = 0, k;
+    double rows[MCD_MAX_DIM][MCD_MAX_SPECIES];
+    size_t nrow[MCD_MAX_DIM] = {0};
+    char why[200];
+    double comp_tmp[MCD_MAX_SPECIES];
+    size_t ndlnp = 0;
+
+    memset(s, 0, sizeof *s);
+    s->T = NAN;
+    s->P = NAN;
+    s->model = MCD_MODEL_MAXWELL_STEFAN;
+    s->method = MCD_METHOD_FSG;
+    s->dependent = MCD_DEPENDENT_AUTO;
+
+    cli_args_init(&a, cmd, argc, argv, state_opts);
+    while ((id = cli_args_next(&a)) != CLI_ARG_END) {
+        switch (id) {
+        case CLI_ARG_ERROR:
+            return CLI_USAGE;
+        case O_HELP:
+            help(stdout);
+            return -1;
+        case O_JSON:
+            s->json = 1;
+            break;
+        case O_FILE:
+            s->file = a.value;
+            break;
+        case O_SPECIES: {
+            int n;
+            size_t i, j;
+            if (s->names_buf)
+                return cli_usage_error(cmd, a.spelled, "given twice");
+            s->names_buf = malloc(strlen(a.value) + 1);
+            if (!s->names_buf)
+                return cli_fail(cmd, "reading arguments", MCD_ENOMEM, NULL);
+            strcpy(s->names_buf, a.value);
+            n = cli_split_words(s->names_buf, s->names, MCD_MAX_SPECIES);
+            if (n < 0)
+                return cli_usage_error(cmd, a.spelled,
+                                       "expected a comma-separated list of "
+                                       "species names without empty items");
+            if (n < 2)
+                return cli_usage_error(cmd, a.spelled,
+                                       "give at least two species");
+            s->n = (size_t)n;
+            for (i = 0; i < s->n; i++)
+                for (j = 0; j < i; j++)
+                    if (strcmp(s->names[i], s->names[j]) == 0)
+                        return cli_usage_error(cmd, a.spelled,
+                                               "species '%s' listed twice",
+                                               s->names[i]);
+            break;
+        }
+        case O_X:
+        case O_W:
+            if (have_x || have_w)
+                return cli_usage_error(cmd, a.spelled,
+                                       "give one composition: either -x or "
+                                       "-w, once");
+            if (cli_parse_list(a.value, comp_tmp, MCD_MAX_SPECIES, &ncomp,
+                               why, sizeof why) != 0)
+                return cli_usage_error(cmd, a.spelled, "%s", why);
+            if (id == O_X)
+                have_x = 1;
+            else
+                have_w = 1;
+            break;
+        case O_GRAD:
+            if (s->n_dim >= MCD_MAX_DIM)
+                return cli_usage_error(cmd, a.spelled,
+                                       "at most %d directions (one -g per "
+                                       "direction)",
+                                       MCD_MAX_DIM);
+            if (cli_parse_list(a.value, rows[s->n_dim], MCD_MAX_SPECIES,
+                               &nrow[s->n_dim], why, sizeof why) != 0)
+                return cli_usage_error(cmd, a.spelled, "%s", why);
+            s->n_dim++;
+            break;
+        case O_DLNP:
+            if (s->have_grad_lnP)
+                return cli_usage_error(cmd, a.spelled, "given twice");
+            if (cli_parse_list(a.value, s->grad_lnP, MCD_MAX_DIM, &ndlnp,
+                               why, sizeof why) != 0)
+                return cli_usage_error(cmd, a.spelled, "%s", why);
+            s->have_grad_lnP = 1;
+            break;
+        case O_T:
+            if (cli_parse_temperature(a.value, &s->T, why, sizeof why) != 0)
+                return cli_usage_error(cmd, a.spelled, "%s", why);
+            break;
+        case O_P:
+            if (cli_parse_pressure(a.value, &s->P, why, sizeof why) != 0)
+                return cli_usage_error(cmd, a.spelled, "%s", why);
+            break;
+        case O_MODEL:
+            if (need_grad == 0)
+                return cli_usage_error(cmd, a.spelled,
+                                       "not used here: the Fick matrix is "
+                                       "always the exact Maxwell-Stefan one");
+            if (strcmp(a.value, "exact") == 0)
+                s->model = MCD_MODEL_MAXWELL_STEFAN;
+            else if (strcmp(a.value, "mixture-averaged") == 0)
+                s->model = MCD_MODEL_MIXTURE_AVERAGED;
+            else
+                return cli_usage_error(cmd, a.spelled,
+                                       "'%s' is not a model (exact or "
+                                       "mixture-averaged)",
+                                       a.value);
+            have_model = 1;
+            break;
+        case O_BASIS:
+            if (strcmp(a.value, "mole") == 0)
+                s->out_basis = MCD_BASIS_MOLE;
+            else if (strcmp(a.value, "mass") == 0)
+                s->out_basis = MCD_BASIS_MASS;
+            else
+                return cli_usage_error(cmd, a.spelled,
+                                       "'%s' is not a basis (mole or mass)",
+                                       a.value);
+            have_basis = 1;
+            break;
+        case O_METHOD:
+            if (mcd_method_from_name(a.value, &s->method) != MCD_OK ||
+                s->method == MCD_METHOD_USER ||
+                s->method == MCD_METHOD_WILKE_CHANG)
+                return cli_usage_error(cmd, a.spelled,
+                                       "'%s' is not a gas estimation method "
+                                       "(fsg, chapman-enskog, wilke-lee)",
+                                       a.value);
+            break;
+        case O_PAIR:
+            if (s->n_pairs >= sizeof s->pairs / sizeof s->pairs[0])
+                return cli_usage_error(cmd, a.spelled, "too many pairs");
+            s->pairs[s->n_pairs].text = a.value;
+            {
+                /* keep the original text for messages */
+                char *copy = malloc(strlen(a.value) + 1);
+                if (!copy)
+                    return cli_fail(cmd, "reading arguments", MCD_ENOMEM,
+                                    NULL);
+                strcpy(copy, a.value);
+                s->pair_bufs[s->n_pairs] = copy;
+                if (parse_pair(copy, &s->pairs[s->n_pairs], why,
+                               sizeof why) != 0)
+                    return cli_usage_error(cmd, "--pair", "'%s': %s",
+                                           a.value, why);
+            }
+            s->n_pairs++;
+            break;
+        case O_DEP:
+            s->dependent_name = a.value;
+            break;
+        case CLI_ARG_POSITIONAL:
+            return cli_usage_error(cmd, a.value,
+                                   "unexpected argument (options only; see "
+                                   "--help)");
+        default:
+            return CLI_USAGE;
+        }
+    }
+    (void)have_model;
+
+    if (s->n == 0)
+        return cli_usage_error(cmd, "-s/--species", "is required");
+    if (!have_x && !have_w)
+        return cli_usage_error(cmd, "-x/--mole-fractions",
+                               "a composition is required (or "
+                               "-w/--mass-fractions)");
+    if (ncomp != s->n)
+        return cli_usage_error(cmd, have_x ? "-x/--mole-fractions"
+                                           : "-w/--mass-fractions",
+                               "has %zu values for %zu species", ncomp,
+                               s->n);
+    if (isnan(s->T))
+        return cli_usage_error(cmd, "-T/--temperature", "is required");
+    if (isnan(s->P))
+        return cli_usage_error(cmd, "-P/--pressure", "is required");
+    if (need_grad && s->n_dim == 0)
+        return cli_usage_error(cmd, "-g/--gradient",
+                               "is required (one per direction)");
+    for (k = 0; k < s->n_dim; k++)
+        if (nrow[k] != s->n)
+            return cli_usage_error(cmd, "-g/--gradient",
+                                   "direction %zu has %zu values for %zu "
+                                   "species",
+                                   k + 1, nrow[k], s->n);
+    if (s->have_grad_lnP && (s->n_dim == 0 || ndlnp != s->n_dim))
+        return cli_usage_error(cmd, "--grad-lnp",
+                               "needs one value per direction (%zu given, "
+                               "%zu directions)",
+                               ndlnp, s->n_dim);
+
+    s->comp_basis = have_x ? MCD_BASIS_MOLE : MCD_BASIS_MASS;
+    if (!have_basis)
+        s->out_basis = s->comp_basis;
+    s->comp = malloc(s->n * sizeof *s->comp);
+    s->grad = malloc((s->n_dim ? s->n_dim : 1) * s->n * sizeof *s->grad);
+    if (!s->comp || !s->grad)
+        return cli_fail(cmd, "reading arguments", MCD_ENOMEM, NULL);
+    memcpy(s->comp, comp_tmp, s->n * sizeof *s->comp);
+    for (k = 0; k < s->n; k++) {
+        size_t d;
+        for (d = 0; d < s->n_dim; d++)
+            s->grad[k * s->n_dim + d] = rows[d][k];
+    }
+    return CLI_OK;
+}
+
+/* Position of db species `dbi` in the state's species list, or -1. */
+static long list_position(const cli_state *s, size_t dbi)
+{
+    size_t i;
+    for (i = 0; i < s->n; i++)
+        if (s->dbidx[i] == dbi)
+            return (long)i;
+    return -1;
+}
+
+int cli_state_setup(cli_state *s, const char *cmd)
+{
+    size_t i, n = s->n, k;
+    char err[256] = "";
+    mcd_status st;
+    int rc;
+    const char *comp_opt = s->comp_basis == MCD_BASIS_MOLE
+                               ? "-x/--mole-fractions"
+                               : "-w/--mass-fractions";
+
+    rc = cli_open_db(cmd, s->file, &s->db);
+    if (rc != CLI_OK)
+        return rc;
+    s->dbidx = malloc(n * sizeof *s->dbidx);
+    if (!s->dbidx)
+        return cli_fail(cmd, "setting up", MCD_ENOMEM, NULL);
+    for (i = 0; i < n; i++) {
+        st = mcd_db_find(s->db, s->names[i], &s->dbidx[i]);
+        if (st == MCD_ENOTFOUND)
+            return cli_usage_error(cmd, "-s/--species",
+                                   "no species '%s' (see 'mcdiff species')",
+                                   s->names[i]);
+        if (st != MCD_OK)
+            return cli_fail(cmd, "looking up species", st, s->names[i]);
+        if (list_position(s, s->dbidx[i]) != (long)i)
+            return cli_usage_error(cmd, "-s/--species",
+                                   "'%s' names a species already listed",
+                                   s->names[i]);
+    }
+    st = mcd_mixture_new(s->db, n, (const char *const *)s->names, s->method,
+                         &s->mix, err, sizeof err);
+    if (st != MCD_OK)
+        return cli_fail(cmd, "building the mixture", st, err);
+
+    s->user_pair = calloc(n * n, sizeof *s->user_pair);
+    if (!s->user_pair)
+        return cli_fail(cmd, "setting up", MCD_ENOMEM, NULL);
+    for (k = 0; k < s->n_pairs; k++) {
+        struct cli_pair *p = &s->pairs[k];
+        size_t ia, ib;
+        long pa, pb;
+        if (mcd_db_find(s->db, p->a, &ia) != MCD_OK ||
+            (pa = list_position(s, ia)) < 0)
+            return cli_usage_error(cmd, "--pair",
+                                   "'%s': '%s' is not in the species list",
+                                   p->text, p->a);
+        if (mcd_db_find(s->db, p->b, &ib) != MCD_OK ||
+            (pb = list_position(s, ib)) < 0)
+            return cli_usage_error(cmd, "--pair",
+                                   "'%s': '%s' is not in the species list",
+                                   p->text, p->b);
+        if (pa == pb)
+            return cli_usage_error(cmd, "--pair",
+                                   "'%s': a pair needs two different species",
+                                   p->text);
+        if (s->user_pair[(size_t)pa * n + (size_t)pb])
+            return cli_usage_error(cmd, "--pair", "'%s': pair given twice",
+                                   p->text);
+        st = mcd_mixture_set_binary(s->mix, (size_t)pa, (size_t)pb, p->D,
+                                    isnan(p->T_ref) ? s->T : p->T_ref,
+                                    isnan(p->P_ref) ? s->P : p->P_ref);
+        if (st != MCD_OK)
+            return cli_fail(cmd, "setting --pair", st, p->text);
+        s->user_pair[(size_t)pa * n + (size_t)pb] = 1;
+        s->user_pair[(size_t)pb * n + (size_t)pa] = 1;
+    }
+
+    if (s->dependent_name) {
+        size_t id;
+        long pos;
+        if (mcd_db_find(s->db, s->dependent_name, &id) != MCD_OK ||
+            (pos = list_position(s, id)) < 0)
+            return cli_usage_error(cmd, "--dependent",
+                                   "'%s' is not in the species list",
+                                   s->dependent_name);
+        s->dependent = (size_t)pos;
+    }
+
+    s->M = malloc(n * sizeof *s->M);
+    s->x = malloc(n * sizeof *s->x);
+    s->w = malloc(n * sizeof *s->w);
+    s->Dij = malloc(n * n * sizeof *s->Dij);
+    s->rel_err = malloc(n * n * sizeof *s->rel_err);
+    s->warn = calloc(n * n, sizeof *s->warn);
+    if (!s->M || !s->x || !s->w || !s->Dij || !s->rel_err || !s->warn)
+        return cli_fail(cmd, "setting up", MCD_ENOMEM, NULL);
+    st = mcd_mixture_molar_masses(s->mix, s->M);
+    if (st != MCD_OK)
+        return cli_fail(cmd, "reading molar masses", st, NULL);
+
+    /* Composition: validated and converted; a bad one is bad input. */
+    if (s->comp_basis == MCD_BASIS_MOLE) {
+        st = mcd_comp_normalize(n, s->comp, s->x);
+        if (st == MCD_OK)
+            st = mcd_comp_x_to_w(n, s->M, s->x, s->w);
+    } else {
+        st = mcd_comp_normalize(n, s->comp, s->w);
+        if (st == MCD_OK)
+            st = mcd_comp_w_to_x(n, s->M, s->w, s->x);
+    }
+    if (st == MCD_EDOM || st == MCD_EINVAL)
+        return cli_usage_error(cmd, comp_opt,
+                               "%s: fractions must be >= 0 and sum to 1 "
+                               "(within %g)",
+                               mcd_status_string(st), MCD_SUM_TOL);
+    if (st != MCD_OK)
+        return cli_fail(cmd, "converting the composition", st, NULL);
+
+    st = mcd_ideal_gas_c(s->T, s->P, &s->c);
+    if (st != MCD_OK)
+        return cli_fail(cmd, "ideal-gas concentration", st, NULL);
+    st = mcd_mixture_binaries(s->mix, s->T, s->P, s->Dij, s->rel_err,
+                              s->warn);
+    if (st != MCD_OK) {
+        snprintf(err, sizeof err, "method %s; try --method or --pair",
+                 mcd_method_name(s->method));
+        return cli_fail(cmd, "estimating binary diffusivities", st, err);
+    }
+    st = mcd_workspace_alloc(n, &s->ws);
+    if (st != MCD_OK)
+        return cli_fail(cmd, "allocating a workspace", st, NULL);
+    return CLI_OK;
+}
+
+void cli_state_free(cli_state *s)
+{
+    size_t k;
+    mcd_workspace_free(s->ws);
+    mcd_mixture_free(s->mix);
+    mcd_db_free(s->db);
+    for (k = 0; k < s->n_pairs; k++)
+        free(s->pair_bufs[k]);
+    free(s->names_buf);
+    free(s->comp);
+    free(s->grad);
+    free(s->dbidx);
+    free(s->M);
+    free(s->x);
+    free(s->w);
+    free(s->Dij);
+    free(s->rel_err);
+    free(s->warn);
+    free(s->user_pair);
+    memset(s, 0, sizeof *s);
+}
+
+static const char *pair_source(const cli_state *s, size_t i, size_t j)
+{
+    return s->user_pair[i * s->n + j] ? "given" : mcd_method_name(s->method);
+}
+
+void cli_state_print_binaries(const cli_state *s, FILE *f)
+{
+    cli_table t;
+    const char *cells[5];
+    char pair[160], d1[48], d2[48], e[48];
+    size_t i, j, n = s->n;
+    unsigned all = 0;
+
+    cli_table_init(&t, 5);
+    t.right[1] = t.right[2] = t.right[3] = 1;
+    cells[0] = "pair";
+    cells[1] = "D [m^2/s]";
+    cells[2] = "D [cm^2/s]";
+    cells[3] = "typ. error";
+    cells[4] = "source";
+    cli_table_row(&t, cells);
+    for (i = 0; i < n; i++)
+        for (j = i + 1; j < n; j++) {
+            double D = s->Dij[i * n + j], re = s->rel_err[i * n + j];
+            snprintf(pair, sizeof pair, "%s / %s", mcd_mixture_name(s->mix, i),
+                     mcd_mixture_name(s->mix, j));
+            snprintf(d1, sizeof d1, "%.4e", D);
+            snprintf(d2, sizeof d2, "%.4g", D * 1e4);
+            if (isnan(re))
+                snprintf(e, sizeof e, "-");
+            else
+                snprintf(e, sizeof e, "%.1f %%", 100.0 * re);
+            cells[0] = pair;
+            cells[1] = d1;
+            cells[2] = d2;
+            cells[3] = e;
+            cells[4] = pair_source(s, i, j);
+            cli_table_row(&t, cells);
+            all |= s->warn[i * n + j];
+        }
+    cli_table_print(&t, f, "  ");
+    cli_table_free(&t);
+    if (all) {
+        char w[512];
+        cli_warn_text(all, w, sizeof w);
+        fprintf(f, "  warnings: %s\n", w);
+    }
+}
+
+void cli_state_json_header(const cli_state *s, cli_json *j)
+{
+    size_t i;
+    cli_json_array_begin(j, "species");
+    for (i = 0; i < s->n; i++)
+        cli_json_string(j, NULL, mcd_mixture_name(s->mix, i));
+    cli_json_array_end(j);
+    cli_json_number(j, "T", s->T);
+    cli_json_number(j, "P", s->P);
+    cli_json_number(j, "c", s->c);
+    cli_json_numbers(j, "M", s->M, s->n);
+    cli_json_numbers(j, "mole_fractions", s->x, s->n);
+    cli_json_numbers(j, "mass_fractions", s->w, s->n);
+    cli_json_string(j, "basis",
+                    s->out_basis == MCD_BASIS_MOLE ? "mole" : "mass");
+}
+
+void cli_state_json_binaries(const cli_state *s, cli_json *j)
+{
+    size_t i, k, n = s->n;
+    unsigned all = 0, b;
+    cli_json_array_begin(j, "binary_D");
+    for (i = 0; i < n; i++)
+        cli_json_numbers(j, NULL, s->Dij + i * n, n);
+    cli_json_array_end(j);
+    cli_json_array_begin(j, "binary_typical_error");
+    for (i = 0; i < n; i++) {
+        double row[MCD_MAX_SPECIES];
+        for (k = 0; k < n; k++)
+            row[k] = i == k ? (double)NAN : s->rel_err[i * n + k];
+        cli_json_numbers(j, NULL, row, n);
+    }
+    cli_json_array_end(j);
+    cli_json_array_begin(j, "binary_source");
+    for (i = 0; i < n; i++) {
+        cli_json_array_begin(j, NULL);
+        for (k = 0; k < n; k++) {
+            if (i == k)
+                cli_json_null(j, NULL);
+            else
+                cli_json_string(j, NULL, pair_source(s, i, k));
+            all |= s->warn[i * n + k];
+        }
+        cli_json_array_end(j);
+    }
+    cli_json_array_end(j);
+    cli_json_array_begin(j, "warnings");
+    for (b = 1; b != 0 && b <= all; b <<= 1)
+        if (all & b)
+            cli_json_string(j, NULL, mcd_warning_string(b));
+    cli_json_array_end(j);
+}

@@ -1,0 +1,278 @@
+/* units.c - strict numbers and quantities with units for the mcdiff tool.
+ *
+ * A number is: optional sign, digits with an optional decimal point (at
+ * least one digit), optional exponent (e/E, optional sign, digits). Nothing
+ * else: no spaces, no hex, no "inf"/"nan". A quantity is a number followed
+ * directly by a unit word from a short fixed list; a bare number is in the
+ * quantity's base unit. Every value must be finite after conversion.
+ */
+#include <ctype.h>
+#include <errno.h>
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include "cli.h"
+
+/* Length of the number at the start of text (0 if none). */
+static size_t scan_number(const char *t)
+{
+    size_t i = 0, digits = 0;
+    if (t[i] == '+' || t[i] == '-')
+        i++;
+    while (isdigit((unsigned char)t[i])) {
+        i++;
+        digits++;
+    }
+    if (t[i] == '.') {
+        i++;
+        while (isdigit((unsigned char)t[i])) {
+            i++;
+            digits++;
+        }
+    }
+    if (digits == 0)
+        return 0;
+    if (t[i] == 'e' || t[i] == 'E') {
+        size_t j = i + 1, ed = 0;
+        if (t[j] == '+' || t[j] == '-')
+            j++;
+        while (isdigit((unsigned char)t[j])) {
+            j++;
+            ed++;
+        }
+        if (ed > 0)
+            i = j;
+    }
+    return i;
+}
+
+/* Convert the first len characters of t; 0 on success. */
+static int convert(const char *t, size_t len, double *out, char *why,
+                   size_t whylen)
+{
+    char buf[128];
+    char *end;
+    double v;
+    if (len == 0) {
+        snprintf(why, whylen, "'%s' is not a number", t);
+        return -1;
+    }
+    if (len >= sizeof buf) {
+        snprintf(why, whylen, "number too long");
+        return -1;
+    }
+    memcpy(buf, t, len);
+    buf[len] = '\0';
+    errno = 0;
+    v = strtod(buf, &end);
+    if (*end != '\0') {
+        snprintf(why, whylen, "'%s' is not a number", t);
+        return -1;
+    }
+    if (!isfinite(v) || errno == ERANGE) {
+        if (errno == ERANGE && v == 0.0) {
+            *out = 0.0; /* underflow to zero is harmless */
+            return 0;
+        }
+        snprintf(why, whylen, "'%s' is out of the finite range", t);
+        return -1;
+    }
+    *out = v;
+    return 0;
+}
+
+int cli_parse_number(const char *text, double *out, char *why, size_t whylen)
+{
+    size_t len;
+    if (!text || !*text) {
+        snprintf(why, whylen, "empty value");
+        return -1;
+    }
+    len = scan_number(text);
+    if (len == 0 || text[len] != '\0') {
+        snprintf(why, whylen, "'%s' is not a plain number", text);
+        return -1;
+    }
+    return convert(text, len, out, why, whylen);
+}
+
+typedef struct unit_def {
+    const char *word;
+    double scale;  /* SI = value * scale + offset */
+    double offset;
+} unit_def;
+
+static int parse_quantity(const char *text, const unit_def *units,
+                          const char *quantity, const char *allowed,
+                          double *out, char *why, size_t whylen)
+{
+    size_t len;
+    double v;
+    const char *unit;
+    const unit_def *u;
+    if (!text || !*text) {
+        snprintf(why, whylen, "empty value");
+        return -1;
+    }
+    len = scan_number(text);
+    if (len == 0) {
+        snprintf(why, whylen, "'%s' does not start with a number", text);
+        return -1;
+    }
+    if (convert(text, len, &v, why, whylen) != 0)
+        return -1;
+    unit = text + len;
+    if (*unit == '\0') {
+        *out = v * units[0].scale + units[0].offset;
+    } else {
+        for (u = units; u->word; u++)
+            if (strcmp(u->word, unit) == 0)
+                break;
+        if (!u->word) {
+            snprintf(why, whylen, "unknown %s unit '%s' (use %s)", quantity,
+                     unit, allowed);
+            return -1;
+        }
+        *out = v * u->scale + u->offset;
+    }
+    if (!isfinite(*out)) {
+        snprintf(why, whylen, "'%s' is out of the finite range", text);
+        return -1;
+    }
+    return 0;
+}
+
+int cli_parse_temperature(const char *text, double *out_K, char *why,
+                          size_t whylen)
+{
+    static const unit_def units[] = {
+        {"K", 1.0, 0.0}, {"C", 1.0, 273.15}, {NULL, 0, 0}};
+    double T;
+    if (parse_quantity(text, units, "temperature", "K or C; bare = K", &T,
+                       why, whylen) != 0)
+        return -1;
+    if (!(T > 0.0)) {
+        snprintf(why, whylen, "'%s' is not above absolute zero", text);
+        return -1;
+    }
+    *out_K = T;
+    return 0;
+}
+
+int cli_parse_pressure(const char *text, double *out_Pa, char *why,
+                       size_t whylen)
+{
+    static const unit_def units[] = {
+        {"Pa", 1.0, 0.0},  {"kPa", 1e3, 0.0},       {"MPa", 1e6, 0.0},
+        {"bar", 1e5, 0.0}, {"atm", MCD_ATM, 0.0}, {NULL, 0, 0}};
+    double P;
+    if (parse_quantity(text, units, "pressure",
+                       "Pa, kPa, MPa, bar or atm; bare = Pa", &P, why,
+                       whylen) != 0)
+        return -1;
+    if (!(P > 0.0)) {
+        snprintf(why, whylen, "'%s' is not a positive pressure", text);
+        return -1;
+    }
+    *out_Pa = P;
+    return 0;
+}
+
+int cli_parse_diffusivity(const char *text, double *out, char *why,
+                          size_t whylen)
+{
+    static const unit_def units[] = {
+        {"m2/s", 1.0, 0.0}, {"cm2/s", 1e-4, 0.0}, {NULL, 0, 0}};
+    double D;
+    if (parse_quantity(text, units, "diffusivity",
+                       "m2/s or cm2/s; bare = m2/s", &D, why, whylen) != 0)
+        return -1;
+    if (!(D > 0.0)) {
+        snprintf(why, whylen, "'%s' is not a positive diffusivity", text);
+        return -1;
+    }
+    *out = D;
+    return 0;
+}
+
+int cli_parse_viscosity(const char *text, double *out, char *why,
+                        size_t whylen)
+{
+    static const unit_def units[] = {{"Pa.s", 1.0, 0.0},
+                                     {"mPa.s", 1e-3, 0.0},
+                                     {"cP", 1e-3, 0.0},
+                                     {NULL, 0, 0}};
+    double mu;
+    if (parse_quantity(text, units, "viscosity",
+                       "Pa.s, mPa.s or cP; bare = Pa.s", &mu, why,
+                       whylen) != 0)
+        return -1;
+    if (!(mu > 0.0)) {
+        snprintf(why, whylen, "'%s' is not a positive viscosity", text);
+        return -1;
+    }
+    *out = mu;
+    return 0;
+}
+
+int cli_parse_list(const char *text, double *out, size_t cap, size_t *out_n,
+                   char *why, size_t whylen)
+{
+    size_t n = 0;
+    const char *p = text;
+    if (!text || !*text) {
+        snprintf(why, whylen, "empty list");
+        return -1;
+    }
+    for (;;) {
+        const char *comma = strchr(p, ',');
+        size_t len = comma ? (size_t)(comma - p) : strlen(p);
+        char item[128];
+        double v;
+        if (len == 0) {
+            snprintf(why, whylen, "empty item %zu in list", n + 1);
+            return -1;
+        }
+        if (len >= sizeof item) {
+            snprintf(why, whylen, "item %zu too long", n + 1);
+            return -1;
+        }
+        if (n >= cap) {
+            snprintf(why, whylen, "more than %zu items", cap);
+            return -1;
+        }
+        memcpy(item, p, len);
+        item[len] = '\0';
+        if (cli_parse_number(item, &v, why, whylen) != 0) {
+            char inner[160];
+            snprintf(inner, sizeof inner, "%s", why);
+            snprintf(why, whylen, "item %zu: %s", n + 1, inner);
+            return -1;
+        }
+        out[n++] = v;
+        if (!comma)
+            break;
+        p = comma + 1;
+    }
+    *out_n = n;
+    return 0;
+}
+
+int cli_split_words(char *buf, char **out, size_t cap)
+{
+    size_t n = 0;
+    char *p = buf;
+    for (;;) {
+        char *comma = strchr(p, ',');
+        if (comma)
+            *comma = '\0';
+        if (*p == '\0' || n >= cap)
+            return -1;
+        out[n++] = p;
+        if (!comma)
+            break;
+        p = comma + 1;
+    }
+    return (int)n;
+}
