@@ -508,8 +508,13 @@ typedef enum mcd_basis {
 
 typedef enum mcd_model {
     MCD_MODEL_MAXWELL_STEFAN = 0,    /**< exact Maxwell-Stefan */
-    MCD_MODEL_MIXTURE_AVERAGED = 1   /**< effective (Blanc) diffusivity per
+    MCD_MODEL_MIXTURE_AVERAGED = 1,  /**< effective (Blanc) diffusivity per
                                           species with a zero-sum correction */
+    MCD_MODEL_ITERATIVE = 2          /**< Maxwell-Stefan by the convergent
+                                          iteration of Ern and Giovangigli
+                                          (1994), O(N^2) per iteration;
+                                          batched calls only (EINVAL in
+                                          mcd_flux_compute). Since 0.1. */
 } mcd_model;
 
 /** Diffusion fluxes of all species at one state. Since 0.1.
@@ -684,6 +689,191 @@ MCD_API mcd_status mcd_flux_project(size_t n_species, size_t n_dim,
 MCD_API mcd_status mcd_flux_diagnose(size_t n_species, size_t n_dim,
                                      const double *grad, const double *flux,
                                      double rel_tol, unsigned *out_flags);
+
+/* ------------------------------------------------------------------ */
+/* Batched fluxes (many states per call)                               */
+/* ------------------------------------------------------------------ */
+
+/*
+ * Batched calls compute the diffusion fluxes of many independent states
+ * ("cells") in one call, with the same equations and conventions as
+ * mcd_flux_compute (ideal mixture: Gamma = identity; optional pressure
+ * diffusion). They are the fast path for simulators: no per-cell call
+ * overhead, code specialised for small N and vectorised across cells, no
+ * heap allocation (all scratch is in the workspace).
+ *
+ * Layout (structure of arrays, the fast one): with K = n_cells, N species
+ * and n_dim directions, cell k is
+ *   T[k], P[k], c[k]                     per-cell scalars, length K
+ *   comp[i*K + k]                        fraction of species i, N x K
+ *   grad[(i*n_dim + d)*K + k]            gradient of species i, direction d
+ *   grad_lnP[d*K + k]                    n_dim x K
+ *   Dij[(i*N + j)*K + k]                 per-cell binary diffusivities
+ *   out_flux[(i*n_dim + d)*K + k]        same layout as grad
+ * i.e. every quantity is a contiguous row of K values. The convenience call
+ * mcd_flux_batch_aos takes per-cell arrays instead (see there).
+ *
+ * Temperature and pressure dependence: the mixture carries it. Pairs with
+ * the Fuller-Schettler-Giddings method or a caller's value scale exactly as
+ * Đ = coef T^1.75 / P (evaluated per cell, no fit). Chapman-Enskog and
+ * Wilke-Lee pairs depend on T through T^1.5 / Omega_D(k T / eps); they are
+ * evaluated exactly per cell (three exponentials and a power per pair and
+ * cell), unless a temperature fit was declared with
+ * mcd_mixture_set_temperature_fit, in which case cells with T inside the
+ * declared range use the fit (a few multiply-adds per pair) and the fit's
+ * maximum relative error is reported by that call.
+ *
+ * Errors: all arguments are checked, every cell's inputs are validated
+ * (as mcd_flux_compute validates one state: T, P, c > 0 and finite,
+ * fractions finite, >= 0 and summing to 1 within MCD_SUM_TOL, gradients
+ * finite, Đ finite, > 0 and symmetric). Unlike the single-state calls, on
+ * an error detected in a cell the output of OTHER cells may already have
+ * been written; the workspace message names the lowest failing cell
+ * ("cell 17: ..."). Argument errors (NULL, counts, enums) write nothing.
+ *
+ * Threads: built with the Meson option -Dopenmp=enabled, a batched call
+ * distributes blocks of cells over OpenMP threads (see
+ * mcd_workspace_set_threads); every cell is computed by the same code
+ * whatever the thread count, so results are bit-for-bit identical to the
+ * serial run. Without OpenMP the calls are serial. The CPU's vector width
+ * (SSE2, AVX2, AVX-512) is chosen at run time on x86-64; no -march flag is
+ * needed.
+ */
+
+/** Batched diffusion fluxes of a mixture at many states (SoA layout, see
+ *  above). The binary diffusivities of every cell come from the mixture at
+ *  the cell's T and P; c = P / (R T) (ideal gas). Since 0.1.
+ *
+ *  @param ws          workspace with capacity >= N = mcd_mixture_count(mix).
+ *  @param mix         mixture (read only; may be shared between threads).
+ *  @param model       MAXWELL_STEFAN (exact), ITERATIVE (Ern-Giovangigli,
+ *                     settings from mcd_workspace_set_iterative) or
+ *                     MIXTURE_AVERAGED.
+ *  @param n_cells     K, number of cells (0 is allowed and writes nothing).
+ *  @param n_dim       1..MCD_MAX_DIM.
+ *  @param T           temperatures [K], length K, each > 0.
+ *  @param P           pressures [Pa], length K, each > 0.
+ *  @param comp_basis  whether comp and grad hold mole or mass fractions.
+ *  @param comp        fractions [-], N x K (comp[i*K + k]).
+ *  @param grad        their gradients [1/m], (N n_dim) x K.
+ *  @param grad_lnP    gradient of ln P [1/m], n_dim x K, or NULL (no
+ *                     pressure diffusion).
+ *  @param flux_basis  MOLE: J_i [mol/(m^2 s)]; MASS: j_i [kg/(m^2 s)].
+ *  @param out_flux    (N n_dim) x K; must not alias an input. Sums to zero
+ *                     over species in each cell to round-off.
+ *  Fails: EINVAL (NULL, counts, enums, NaN/inf in a cell), EDOM (a cell
+ *  out of range), EBADLEN (N > capacity), ENODATA (a pair lacks a
+ *  parameter or M unknown), ESING, EINTERNAL | Allocates: no
+ *  | Threads: one ws per thread */
+MCD_API mcd_status mcd_flux_batch(mcd_workspace *ws, const mcd_mixture *mix,
+                                  mcd_model model, size_t n_cells,
+                                  size_t n_dim, const double *T,
+                                  const double *P, mcd_basis comp_basis,
+                                  const double *comp, const double *grad,
+                                  const double *grad_lnP,
+                                  mcd_basis flux_basis, double *out_flux);
+
+/** Batched diffusion fluxes with the caller's own per-cell binary
+ *  diffusivities and concentrations (SoA layout, see above). Since 0.1.
+ *
+ *  @param n_species   N, 1..capacity of ws.
+ *  @param M           molar masses [kg/mol], length N, shared by all cells;
+ *                     needed for the mass basis and pressure diffusion, may
+ *                     be NULL otherwise.
+ *  @param Dij         binary diffusivities [m^2/s], (N N) x K
+ *                     (Dij[(i*N + j)*K + k]), each cell's matrix symmetric
+ *                     (relative difference <= 1e-12), off-diagonal > 0,
+ *                     diagonal ignored.
+ *  @param c           total molar concentrations [mol/m^3], length K, > 0.
+ *  Other parameters as in mcd_flux_batch.
+ *  Fails: EINVAL, EDOM, EBADLEN, ESING, EINTERNAL | Allocates: no
+ *  | Threads: one ws per thread */
+MCD_API mcd_status mcd_flux_batch_dij(mcd_workspace *ws, mcd_model model,
+                                      size_t n_species, size_t n_cells,
+                                      size_t n_dim, const double *M,
+                                      const double *Dij, const double *c,
+                                      mcd_basis comp_basis,
+                                      const double *comp, const double *grad,
+                                      const double *grad_lnP,
+                                      mcd_basis flux_basis, double *out_flux);
+
+/** As mcd_flux_batch with per-cell (array of structures) arrays, the
+ *  layout of K consecutive single-state calls: comp[k*N + i],
+ *  grad[(k*N + i)*n_dim + d], grad_lnP[k*n_dim + d] (or NULL),
+ *  out_flux[(k*N + i)*n_dim + d]; T and P length K. Cells are transposed
+ *  block by block into workspace memory (serially: no OpenMP here), so it
+ *  is a little slower than the SoA call but much faster than K calls of
+ *  mcd_flux_compute. Since 0.1.
+ *  Fails: as mcd_flux_batch | Allocates: no | Threads: one ws per thread */
+MCD_API mcd_status mcd_flux_batch_aos(mcd_workspace *ws,
+                                      const mcd_mixture *mix,
+                                      mcd_model model, size_t n_cells,
+                                      size_t n_dim, const double *T,
+                                      const double *P, mcd_basis comp_basis,
+                                      const double *comp, const double *grad,
+                                      const double *grad_lnP,
+                                      mcd_basis flux_basis, double *out_flux);
+
+/** Settings of MCD_MODEL_ITERATIVE for later calls on this workspace.
+ *  Each cell iterates until its error estimate (see
+ *  mcd_workspace_iterative_info) is <= tol or max_iter iterations are
+ *  done; tol = 0 runs exactly max_iter iterations. Defaults: max_iter 100,
+ *  tol 1e-10. Since 0.1.
+ *  @param max_iter  1..1000 iterations after the start, which is the
+ *                   mixture-averaged flux with a mole-fraction correction
+ *                   velocity (the estimate needs >= 2 iterations).
+ *  @param tol       relative tolerance [-] on the fluxes, finite, >= 0.
+ *  Fails: EINVAL | Allocates: no */
+MCD_API mcd_status mcd_workspace_set_iterative(mcd_workspace *ws,
+                                               size_t max_iter, double tol);
+
+/** Outcome of the last batched ITERATIVE call on this workspace: the
+ *  largest error estimate over its cells, relative to the largest flux of
+ *  the cell (max_i |J_i - J_i,exact| / max_i |J_i|, estimated from the
+ *  observed contraction of successive iterates), and the largest number of
+ *  iterations a cell used. A cell that stops at max_iter above tol does not
+ *  make the call fail: check the estimate. Both are 0 before any such call.
+ *  Either pointer may be NULL. Since 0.1.
+ *  Fails: EINVAL (ws NULL) | Allocates: no */
+MCD_API mcd_status mcd_workspace_iterative_info(const mcd_workspace *ws,
+                                                double *out_max_error,
+                                                size_t *out_max_iter);
+
+/** Number of OpenMP threads used by later batched calls on this workspace:
+ *  0 (default) means the OpenMP default (OMP_NUM_THREADS), capped at the
+ *  thread count the workspace was allocated for (omp_get_max_threads() at
+ *  mcd_workspace_alloc time). Ignored, and always 1, in a build without
+ *  OpenMP. Since 0.1.
+ *  Fails: EINVAL (ws NULL) | Allocates: no */
+MCD_API mcd_status mcd_workspace_set_threads(mcd_workspace *ws,
+                                             size_t n_threads);
+
+/** Declare a temperature range [T_min, T_max] over which batched calls may
+ *  evaluate the Chapman-Enskog and Wilke-Lee pairs of this mixture from a
+ *  fit instead of exactly: for each such pair, Omega_D(T / eps) is fitted
+ *  by a Chebyshev polynomial in ln T (interpolation at Chebyshev nodes, the
+ *  degree raised up to 24 until the error is below 1e-12 or stops
+ *  improving). The fit's largest relative error on Đ over the range
+ *  (checked on a fine grid) is returned. Cells outside the range, and
+ *  mcd_mixture_binaries and the single-state calls, stay exact. FSG and
+ *  user pairs scale exactly and need no fit. Changing a pair's method or
+ *  value afterwards refits it. T_min = T_max = 0 removes the fit.
+ *  Not thread-safe with concurrent readers of the mixture. Since 0.1.
+ *  @param T_min,T_max  range [K], 0 < T_min < T_max (or both 0).
+ *  @param out_max_rel_err  largest relative fit error of Đ [-] (may be
+ *                   NULL; 0 when no pair needs a fit).
+ *  Fails: EINVAL, EDOM, ENOMEM | Allocates: yes */
+MCD_API mcd_status mcd_mixture_set_temperature_fit(mcd_mixture *mix,
+                                                   double T_min, double T_max,
+                                                   double *out_max_rel_err);
+
+/** The declared fit range and its largest relative error (all 0 when no
+ *  fit is declared). Pointers may be NULL. Since 0.1.
+ *  Fails: EINVAL (mix NULL) | Allocates: no */
+MCD_API mcd_status mcd_mixture_temperature_fit(const mcd_mixture *mix,
+                                               double *out_T_min,
+                                               double *out_T_max,
+                                               double *out_max_rel_err);
 
 /* ------------------------------------------------------------------ */
 /* Mass transfer: film / Stefan tube, two-bulb cell                    */

@@ -22,15 +22,10 @@
 #include "binary.h"
 #include "mixture.h"
 
-struct mcd_mixture {
-    size_t n;
-    mcdi_spec *spec;       /* n species */
-    unsigned char *method; /* n*n mcd_method per pair (symmetric) */
-    unsigned char *pstat;  /* n*n mcd_status of the pair's coefficient */
-    double *coef;          /* n*n, see above */
-    double *eps;           /* n*n eps_ab [K] for CE/WL, 0 otherwise */
-    double *user;          /* n*n*3: D_ref, T_ref, P_ref (D_ref 0 if none) */
-};
+#define M_PI_VAL 3.14159265358979323846
+
+/* struct mcd_mixture is defined in mixture.h (the batched kernels read
+ * it). */
 
 MCD_API void mcd_mixture_free(mcd_mixture *mix)
 {
@@ -40,9 +35,168 @@ MCD_API void mcd_mixture_free(mcd_mixture *mix)
     free(mix->method);
     free(mix->pstat);
     free(mix->coef);
+    free(mix->icoef);
     free(mix->eps);
+    free(mix->M);
+    free(mix->fit_deg);
+    free(mix->fit_q);
     free(mix->user);
     free(mix);
+}
+
+
+/* ------------------------------------------------------------------ */
+/* temperature fit of the collision integral (batched calls)           */
+/* ------------------------------------------------------------------ */
+
+/*
+ * For a Chapman-Enskog or Wilke-Lee pair, D = coef T^1.5 / (P Omega_D(T /
+ * eps)); the only costly factor is Omega_D (three exponentials and a power
+ * in the Neufeld-Janzen-Aziz form). Over a declared range [T_min, T_max]
+ * it is a smooth function of u = (ln T - lmid) / lhalf in [-1, 1], so it
+ * is interpolated at the K+1 Chebyshev nodes u_m = cos(pi (m + 1/2) /
+ * (K+1)) (near-minimax; Rivlin 1974, ch. 1 - common practice):
+ *     Omega(u) ~ sum_k a_k T_k(u),
+ *     a_k = (2 / (K+1)) sum_m Omega(u_m) cos(pi k (m + 1/2) / (K+1)),
+ * with a_0 halved. The batched kernel evaluates 1/D = (P / T^1.5)
+ * sum_k (a_k / coef) T_k(u), a few multiply-adds per pair and cell. The
+ * degree is raised (4, 6, ..., MCDI_FIT_MAXDEG) until the largest relative
+ * error of D, |Omega / Omega_fit - 1| checked on 257 points uniform in u
+ * (nodes excluded), is below 1e-12 or stops improving; the best degree is
+ * kept and its error reported.
+ */
+#define FIT_TARGET 1e-12
+#define FIT_GRID 257
+
+/* Fit pair (i, j) if its method needs one; returns its max error. */
+static double fit_pair(mcd_mixture *mix, size_t i, size_t j)
+{
+    size_t n = mix->n, ij = i * n + j, ji = j * n + i;
+    mcd_method m = (mcd_method)mix->method[ij];
+    double best_err = HUGE_VAL, coefs[MCDI_FIT_MAXDEG + 1];
+    double best[MCDI_FIT_MAXDEG + 1];
+    unsigned best_deg = 0;
+    mix->fit_deg[ij] = mix->fit_deg[ji] = 0;
+    if ((m != MCD_METHOD_CHAPMAN_ENSKOG && m != MCD_METHOD_WILKE_LEE) ||
+        mix->pstat[ij] != MCD_OK || !(mix->eps[ij] > 0.0))
+        return 0.0;
+    for (unsigned K = 4; K <= MCDI_FIT_MAXDEG; K += 2) {
+        double f[MCDI_FIT_MAXDEG + 1], err = 0.0;
+        for (unsigned q = 0; q <= K; q++) {
+            double u = cos(M_PI_VAL * (q + 0.5) / (K + 1));
+            double T = exp(mix->fit_lmid + mix->fit_lhalf * u);
+            f[q] = mcdi_omega_d(T / mix->eps[ij]);
+        }
+        for (unsigned k = 0; k <= K; k++) {
+            double a = 0.0;
+            for (unsigned q = 0; q <= K; q++)
+                a += f[q] * cos(M_PI_VAL * k * (q + 0.5) / (K + 1));
+            coefs[k] = a * 2.0 / (K + 1);
+        }
+        coefs[0] *= 0.5;
+        for (unsigned g = 0; g < FIT_GRID; g++) {
+            double u = -1.0 + 2.0 * g / (FIT_GRID - 1);
+            double T = exp(mix->fit_lmid + mix->fit_lhalf * u);
+            double ex = mcdi_omega_d(T / mix->eps[ij]);
+            double t0 = 1.0, t1 = u, v = coefs[0] + coefs[1] * u, e;
+            for (unsigned k = 2; k <= K; k++) {
+                double t2 = 2.0 * u * t1 - t0;
+                v += coefs[k] * t2;
+                t0 = t1;
+                t1 = t2;
+            }
+            e = fabs(ex / v - 1.0);
+            if (!(e <= err))
+                err = e; /* NaN propagates as a huge error */
+        }
+        if (err < best_err) {
+            best_err = err;
+            best_deg = K;
+            memcpy(best, coefs, (K + 1) * sizeof(double));
+        } else if (err > 0.5 * best_err) {
+            break; /* stopped improving (round-off floor) */
+        }
+        if (best_err <= FIT_TARGET)
+            break;
+    }
+    if (!(best_err < 1e-3)) /* unusable fit: keep the pair exact */
+        return 0.0;
+    for (unsigned k = 0; k <= best_deg; k++) {
+        double q = best[k] * mix->icoef[ij];
+        mix->fit_q[ij * (MCDI_FIT_MAXDEG + 1) + k] = q;
+        mix->fit_q[ji * (MCDI_FIT_MAXDEG + 1) + k] = q;
+    }
+    mix->fit_deg[ij] = mix->fit_deg[ji] = (unsigned char)best_deg;
+    return best_err;
+}
+
+static void fit_all(mcd_mixture *mix)
+{
+    double err = 0.0;
+    for (size_t i = 0; i < mix->n; i++)
+        for (size_t j = i + 1; j < mix->n; j++) {
+            double e = fit_pair(mix, i, j);
+            if (e > err)
+                err = e;
+        }
+    mix->fit_err = err;
+}
+
+MCD_API mcd_status mcd_mixture_set_temperature_fit(mcd_mixture *mix,
+                                                   double T_min, double T_max,
+                                                   double *out_max_rel_err)
+{
+    size_t n;
+    if (mix == NULL)
+        return MCD_EINVAL;
+    if (!mcdi_finite(T_min) || !mcdi_finite(T_max))
+        return MCD_EINVAL;
+    if (T_min == 0.0 && T_max == 0.0) {
+        mix->fit_on = 0;
+        mix->fit_Tmin = mix->fit_Tmax = mix->fit_err = 0.0;
+        if (out_max_rel_err != NULL)
+            *out_max_rel_err = 0.0;
+        return MCD_OK;
+    }
+    if (!(T_min > 0.0) || !(T_max > T_min))
+        return MCD_EDOM;
+    n = mix->n;
+    if (mix->fit_deg == NULL) {
+        mix->fit_deg = calloc(n * n, 1);
+        mix->fit_q = calloc(n * n * (MCDI_FIT_MAXDEG + 1), sizeof(double));
+        if (mix->fit_deg == NULL || mix->fit_q == NULL) {
+            free(mix->fit_deg);
+            free(mix->fit_q);
+            mix->fit_deg = NULL;
+            mix->fit_q = NULL;
+            return MCD_ENOMEM;
+        }
+    }
+    mix->fit_Tmin = T_min;
+    mix->fit_Tmax = T_max;
+    mix->fit_lmid = 0.5 * (log(T_max) + log(T_min));
+    mix->fit_lhalf = 0.5 * (log(T_max) - log(T_min));
+    mix->fit_on = 1;
+    fit_all(mix);
+    if (out_max_rel_err != NULL)
+        *out_max_rel_err = mix->fit_err;
+    return MCD_OK;
+}
+
+MCD_API mcd_status mcd_mixture_temperature_fit(const mcd_mixture *mix,
+                                               double *out_T_min,
+                                               double *out_T_max,
+                                               double *out_max_rel_err)
+{
+    if (mix == NULL)
+        return MCD_EINVAL;
+    if (out_T_min != NULL)
+        *out_T_min = mix->fit_on ? mix->fit_Tmin : 0.0;
+    if (out_T_max != NULL)
+        *out_T_max = mix->fit_on ? mix->fit_Tmax : 0.0;
+    if (out_max_rel_err != NULL)
+        *out_max_rel_err = mix->fit_on ? mix->fit_err : 0.0;
+    return MCD_OK;
 }
 
 /* Recompute the coefficient of pair (i, j) and (j, i) from its method. */
@@ -64,9 +218,16 @@ static void update_pair(mcd_mixture *mix, size_t i, size_t j)
         }
     }
     mix->coef[ij] = mix->coef[ji] = coef;
+    mix->icoef[ij] = mix->icoef[ji] = coef > 0.0 ? 1.0 / coef : 0.0;
     mix->eps[ij] = mix->eps[ji] = eps;
     mix->pstat[ij] = mix->pstat[ji] = (unsigned char)st;
     mix->method[ji] = mix->method[ij];
+    if (mix->fit_on) {
+        /* the reported error stays a bound: it never decreases here */
+        double e = fit_pair(mix, i, j);
+        if (e > mix->fit_err)
+            mix->fit_err = e;
+    }
 }
 
 static int is_gas_method(mcd_method m)
@@ -110,10 +271,12 @@ MCD_API mcd_status mcd_mixture_new(const mcd_db *db, size_t n,
     mix->method = calloc(n * n, 1);
     mix->pstat = calloc(n * n, 1);
     mix->coef = calloc(n * n, sizeof(double));
+    mix->icoef = calloc(n * n, sizeof(double));
     mix->eps = calloc(n * n, sizeof(double));
     mix->user = calloc(3 * n * n, sizeof(double));
+    mix->M = calloc(n, sizeof(double));
     if (!mix->spec || !mix->method || !mix->pstat || !mix->coef || !mix->eps ||
-        !mix->user) {
+        !mix->user || !mix->icoef || !mix->M) {
         st = MCD_ENOMEM;
         goto fail;
     }
@@ -147,6 +310,13 @@ MCD_API mcd_status mcd_mixture_new(const mcd_db *db, size_t n,
                             names[i]);
             goto fail;
         }
+    }
+    mix->M_ok = 1;
+    for (size_t i = 0; i < n; i++) {
+        if ((mix->spec[i].known >> MCD_PARAM_MOLAR_MASS) & 1u)
+            mix->M[i] = mix->spec[i].p[MCD_PARAM_MOLAR_MASS];
+        else
+            mix->M_ok = 0;
     }
     for (size_t i = 0; i < n; i++) {
         for (size_t j = i + 1; j < n; j++) {

@@ -14,6 +14,10 @@
 
 #include "mcd_internal.h"
 #include "workspace.h"
+#include "batch.h"
+#ifdef _OPENMP
+#include <omp.h>
+#endif
 
 static void *default_alloc(void *ud, size_t size)
 {
@@ -68,6 +72,7 @@ MCD_API void mcd_workspace_free(mcd_workspace *ws)
     for (k = 0; k < MCDI_WS_AUX_VECS; k++)
         ws->al.free(ws->al.ud, ws->aux_vec[k]);
     ws->al.free(ws->al.ud, ws->aux_ipiv);
+    ws->al.free(ws->al.ud, ws->batch_raw);
     {
         mcd_allocator al = ws->al;
         al.free(al.ud, ws);
@@ -124,6 +129,26 @@ MCD_API mcd_status mcd_workspace_alloc_with(size_t n_species,
             goto fail;
     if ((ws->aux_ipiv = (int *)ws_calloc(ws, int_bytes)) == NULL)
         goto fail;
+
+    /* batched scratch: one region per OpenMP thread, each a multiple of 8
+     * doubles so that every region starts 64-byte aligned */
+    {
+        size_t per = (mcdi_batch_scratch_doubles(n_species) + 7) & ~(size_t)7;
+        size_t nt = 1, bytes;
+#ifdef _OPENMP
+        nt = (size_t)omp_get_max_threads();
+        if (nt < 1)
+            nt = 1;
+#endif
+        bytes = mul_size(per * nt + 8, 1, sizeof(double));
+        if (bytes == 0 || (ws->batch_raw = ws_calloc(ws, bytes)) == NULL)
+            goto fail;
+        ws->batch_mem = (double *)(((size_t)ws->batch_raw + 63) & ~(size_t)63);
+        ws->batch_per_thread = per;
+        ws->batch_threads = nt;
+        ws->iter_max = 100;
+        ws->iter_tol = 1e-10;
+    }
 
     /* dgeev workspace query for the largest n with right eigenvectors (the
      * job that needs the most work). The minimum LAPACK accepts is 4n; the

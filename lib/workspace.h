@@ -62,6 +62,18 @@ struct mcd_workspace {
     double *aux_mat[MCDI_WS_AUX_MATS];
     double *aux_vec[MCDI_WS_AUX_VECS];
     int *aux_ipiv;
+
+    /* BATCH bank (batch.c only): per-thread scratch of batch_per_thread
+     * doubles each, batch_threads of them, 64-byte aligned inside
+     * batch_raw. */
+    void *batch_raw;
+    double *batch_mem;
+    size_t batch_per_thread, batch_threads;
+    size_t threads_req;         /* mcd_workspace_set_threads (0 = default) */
+    size_t iter_max;            /* MCD_MODEL_ITERATIVE settings */
+    double iter_tol;
+    double iter_err;            /* outcome of the last ITERATIVE call */
+    size_t iter_used;
 };
 
 /* Write a printf-style detail message into ws->err (ws may be NULL) and

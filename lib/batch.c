@@ -1,0 +1,394 @@
+/* batch.c - batched flux calls: argument checks, the loop over blocks of
+ * cells (optionally OpenMP-parallel), the array-of-structures convenience
+ * path and the iterative-model settings. The arithmetic is in
+ * batch_kernel.c (see there for the equations and methods).
+ *
+ * Determinism: blocks are fixed by cell index (MCDI_LANES consecutive
+ * cells) and every cell is computed by the same code whatever thread runs
+ * its block; the only quantities combined across cells are maxima (error
+ * estimate, iteration count) and the lowest failing cell index, which do
+ * not depend on the order. So the results are bit-for-bit those of the
+ * serial run.
+ */
+#include <string.h>
+#ifdef _OPENMP
+#include <omp.h>
+#endif
+
+#include "mcd_internal.h"
+#include "workspace.h"
+#include "mixture.h"
+#include "batch.h"
+
+/* Run the job over cells [0, K) with the workspace's scratch. */
+static mcd_status run_job(mcd_workspace *ws, const mcdi_bjob *jb)
+{
+    const size_t K = jb->K, L = mcdi_batch_lanes(jb->n);
+    const size_t nblk = (K + L - 1) / L;
+    size_t fail_cell = (size_t)-1, iter_used = 0;
+    double iter_err = 0.0;
+    mcd_status fail_st = MCD_OK;
+    const char *fail_what = "";
+    long b;
+    int nthreads = 1;
+#ifdef _OPENMP
+    nthreads = ws->threads_req > 0 ? (int)ws->threads_req : omp_get_max_threads();
+    if (nthreads > (int)ws->batch_threads)
+        nthreads = (int)ws->batch_threads;
+    if ((size_t)nthreads > nblk)
+        nthreads = nblk > 0 ? (int)nblk : 1;
+    if (nthreads < 1)
+        nthreads = 1;
+#endif
+    (void)nthreads;
+#ifdef _OPENMP
+#pragma omp parallel num_threads(nthreads) if (nthreads > 1)
+#endif
+    {
+        int tid = 0;
+        size_t my_used = 0;
+        double my_err = 0.0;
+        double *mem;
+#ifdef _OPENMP
+        tid = omp_get_thread_num();
+#endif
+        mem = ws->batch_mem + (size_t)tid * ws->batch_per_thread;
+#ifdef _OPENMP
+#pragma omp for schedule(static)
+#endif
+        for (b = 0; b < (long)nblk; b++) {
+            size_t k0 = (size_t)b * L, nv = K - k0 < L ? K - k0 : L;
+            mcdi_bres res;
+            res.st = MCD_OK;
+            res.lane = 0;
+            res.what = "";
+            res.iter_err = 0.0;
+            res.iter_used = 0;
+            mcdi_batch_block(jb, k0, nv, mem, &res);
+            if (res.st != MCD_OK) {
+#ifdef _OPENMP
+#pragma omp critical(mcdi_batch_fail)
+#endif
+                {
+                    if (k0 + res.lane < fail_cell) {
+                        fail_cell = k0 + res.lane;
+                        fail_st = res.st;
+                        fail_what = res.what;
+                    }
+                }
+            } else {
+                if (res.iter_err > my_err || res.iter_err != res.iter_err)
+                    my_err = res.iter_err;
+                if (res.iter_used > my_used)
+                    my_used = res.iter_used;
+            }
+        }
+#ifdef _OPENMP
+#pragma omp critical(mcdi_batch_iter)
+#endif
+        {
+            if (my_err > iter_err || my_err != my_err)
+                iter_err = my_err;
+            if (my_used > iter_used)
+                iter_used = my_used;
+        }
+    }
+    if (jb->model == MCD_MODEL_ITERATIVE) {
+        ws->iter_err = iter_err;
+        ws->iter_used = iter_used;
+    }
+    if (fail_st != MCD_OK)
+        return mcdi_ws_fail(ws, fail_st, "cell %zu: %s", fail_cell, fail_what);
+    return MCD_OK;
+}
+
+/* Checks shared by every batched entry point (writes nothing). */
+static mcd_status check_common(mcd_workspace *ws, mcd_model model, size_t n,
+                               size_t n_cells, size_t n_dim,
+                               mcd_basis comp_basis, const double *comp,
+                               const double *grad, mcd_basis flux_basis,
+                               const double *out)
+{
+    (void)n_cells;
+    if (n < 1)
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument n_species: 0 is not >= 1");
+    if (n > ws->cap)
+        return mcdi_ws_fail(ws, MCD_EBADLEN,
+                            "argument n_species: %zu exceeds the workspace "
+                            "capacity %zu", n, ws->cap);
+    if (n_dim < 1 || n_dim > MCD_MAX_DIM)
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument n_dim: %zu is not in 1..%d",
+                            n_dim, MCD_MAX_DIM);
+    if (model != MCD_MODEL_MAXWELL_STEFAN &&
+        model != MCD_MODEL_MIXTURE_AVERAGED && model != MCD_MODEL_ITERATIVE)
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument model: unknown value %d",
+                            (int)model);
+    if (comp_basis != MCD_BASIS_MOLE && comp_basis != MCD_BASIS_MASS)
+        return mcdi_ws_fail(ws, MCD_EINVAL,
+                            "argument comp_basis: unknown value %d",
+                            (int)comp_basis);
+    if (flux_basis != MCD_BASIS_MOLE && flux_basis != MCD_BASIS_MASS)
+        return mcdi_ws_fail(ws, MCD_EINVAL,
+                            "argument flux_basis: unknown value %d",
+                            (int)flux_basis);
+    if (comp == NULL)
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument comp: NULL");
+    if (grad == NULL)
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument grad: NULL");
+    if (out == NULL)
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument out_flux: NULL");
+    return MCD_OK;
+}
+
+static void job_init(mcdi_bjob *jb, const mcd_workspace *ws, mcd_model model,
+                     size_t n, size_t K, size_t nd, mcd_basis cb, mcd_basis fb)
+{
+    memset(jb, 0, sizeof *jb);
+    jb->n = n;
+    jb->nd = nd;
+    jb->K = K;
+    jb->model = (int)model;
+    jb->comp_basis = (int)cb;
+    jb->flux_basis = (int)fb;
+    jb->max_iter = ws->iter_max;
+    jb->tol = ws->iter_tol;
+}
+
+MCD_API mcd_status mcd_flux_batch(mcd_workspace *ws, const mcd_mixture *mix,
+                                  mcd_model model, size_t n_cells,
+                                  size_t n_dim, const double *T,
+                                  const double *P, mcd_basis comp_basis,
+                                  const double *comp, const double *grad,
+                                  const double *grad_lnP,
+                                  mcd_basis flux_basis, double *out_flux)
+{
+    mcdi_bjob jb;
+    mcd_status st;
+    size_t n;
+    if (ws == NULL)
+        return MCD_EINVAL;
+    mcdi_ws_clear_error(ws);
+    if (mix == NULL)
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument mix: NULL");
+    n = mix->n;
+    if ((st = check_common(ws, model, n, n_cells, n_dim, comp_basis, comp,
+                           grad, flux_basis, out_flux)) != MCD_OK)
+        return st;
+    if (T == NULL || P == NULL)
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL",
+                            T == NULL ? "T" : "P");
+    if ((st = mcdi_mixture_ready(mix)) != MCD_OK)
+        return mcdi_ws_fail(ws, st, "argument mix: a pair's method lacks a "
+                                    "parameter");
+    if (!mix->M_ok)
+        return mcdi_ws_fail(ws, MCD_ENODATA, "argument mix: a molar mass is "
+                                             "unknown");
+    job_init(&jb, ws, model, n, n_cells, n_dim, comp_basis, flux_basis);
+    jb.mix = mix;
+    jb.T = T;
+    jb.P = P;
+    jb.M = (comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
+            grad_lnP != NULL) ? mix->M : NULL;
+    jb.comp = comp;
+    jb.grad = grad;
+    jb.glnP = grad_lnP;
+    jb.out = out_flux;
+    if (n_cells == 0)
+        return MCD_OK;
+    return run_job(ws, &jb);
+}
+
+MCD_API mcd_status mcd_flux_batch_dij(mcd_workspace *ws, mcd_model model,
+                                      size_t n_species, size_t n_cells,
+                                      size_t n_dim, const double *M,
+                                      const double *Dij, const double *c,
+                                      mcd_basis comp_basis,
+                                      const double *comp, const double *grad,
+                                      const double *grad_lnP,
+                                      mcd_basis flux_basis, double *out_flux)
+{
+    mcdi_bjob jb;
+    mcd_status st;
+    size_t i;
+    int need_M;
+    if (ws == NULL)
+        return MCD_EINVAL;
+    mcdi_ws_clear_error(ws);
+    if ((st = check_common(ws, model, n_species, n_cells, n_dim, comp_basis,
+                           comp, grad, flux_basis, out_flux)) != MCD_OK)
+        return st;
+    if (Dij == NULL)
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument Dij: NULL");
+    if (c == NULL)
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument c: NULL");
+    need_M = comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
+             grad_lnP != NULL;
+    if (need_M) {
+        if (M == NULL)
+            return mcdi_ws_fail(ws, MCD_EINVAL,
+                                "argument M: NULL but needed (mass basis or "
+                                "pressure diffusion)");
+        for (i = 0; i < n_species; i++)
+            if (!mcdi_finite(M[i]))
+                return mcdi_ws_fail(ws, MCD_EINVAL,
+                                    "argument M: entry %zu is not finite", i);
+        for (i = 0; i < n_species; i++)
+            if (!(M[i] > 0.0))
+                return mcdi_ws_fail(ws, MCD_EDOM,
+                                    "argument M: entry %zu = %g is not > 0", i,
+                                    M[i]);
+    }
+    job_init(&jb, ws, model, n_species, n_cells, n_dim, comp_basis,
+             flux_basis);
+    jb.Dij = Dij;
+    jb.c = c;
+    jb.M = need_M ? M : NULL;
+    jb.comp = comp;
+    jb.grad = grad;
+    jb.glnP = grad_lnP;
+    jb.out = out_flux;
+    if (n_cells == 0)
+        return MCD_OK;
+    return run_job(ws, &jb);
+}
+
+/* AoS: each block of L cells is transposed into SoA staging that follows
+ * the kernel's scratch in the thread's region, computed with stride L,
+ * and transposed back. Serial (the staging is per workspace thread 0). */
+MCD_API mcd_status mcd_flux_batch_aos(mcd_workspace *ws,
+                                      const mcd_mixture *mix,
+                                      mcd_model model, size_t n_cells,
+                                      size_t n_dim, const double *T,
+                                      const double *P, mcd_basis comp_basis,
+                                      const double *comp, const double *grad,
+                                      const double *grad_lnP,
+                                      mcd_basis flux_basis, double *out_flux)
+{
+    mcdi_bjob jb;
+    mcd_status st;
+    size_t n, L, k0, nd = n_dim, iter_used = 0;
+    double *stage, *sT, *sP, *sc, *sg, *sl, *so, iter_err = 0.0;
+    if (ws == NULL)
+        return MCD_EINVAL;
+    mcdi_ws_clear_error(ws);
+    if (mix == NULL)
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument mix: NULL");
+    n = mix->n;
+    if ((st = check_common(ws, model, n, n_cells, n_dim, comp_basis, comp,
+                           grad, flux_basis, out_flux)) != MCD_OK)
+        return st;
+    if (T == NULL || P == NULL)
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL",
+                            T == NULL ? "T" : "P");
+    if ((st = mcdi_mixture_ready(mix)) != MCD_OK)
+        return mcdi_ws_fail(ws, st, "argument mix: a pair's method lacks a "
+                                    "parameter");
+    if (!mix->M_ok)
+        return mcdi_ws_fail(ws, MCD_ENODATA, "argument mix: a molar mass is "
+                                             "unknown");
+    if (n_cells == 0)
+        return MCD_OK;
+    L = mcdi_batch_lanes(n);
+    /* staging at the end of thread 0's region (the kernel uses the front;
+     * mcdi_batch_scratch_doubles reserves the AoS part) */
+    stage = ws->batch_mem + ws->batch_per_thread -
+            (2 + n + 2 * n * MCD_MAX_DIM + MCD_MAX_DIM + 4) * L;
+    sT = stage;
+    sP = sT + L;
+    sc = sP + L;
+    sg = sc + n * L;
+    sl = sg + n * nd * L;
+    so = sl + nd * L;
+    job_init(&jb, ws, model, n, L, nd, comp_basis, flux_basis);
+    jb.mix = mix;
+    jb.T = sT;
+    jb.P = sP;
+    jb.M = (comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
+            grad_lnP != NULL) ? mix->M : NULL;
+    jb.comp = sc;
+    jb.grad = sg;
+    jb.glnP = grad_lnP != NULL ? sl : NULL;
+    jb.out = so;
+    for (k0 = 0; k0 < n_cells; k0 += L) {
+        size_t nv = n_cells - k0 < L ? n_cells - k0 : L, l, i, d;
+        mcdi_bres res;
+        for (l = 0; l < nv; l++) {
+            size_t k = k0 + l;
+            sT[l] = T[k];
+            sP[l] = P[k];
+            for (i = 0; i < n; i++)
+                sc[i * L + l] = comp[k * n + i];
+            for (i = 0; i < n * nd; i++)
+                sg[i * L + l] = grad[k * n * nd + i];
+            if (grad_lnP != NULL)
+                for (d = 0; d < nd; d++)
+                    sl[d * L + l] = grad_lnP[k * nd + d];
+        }
+        res.st = MCD_OK;
+        res.lane = 0;
+        res.what = "";
+        res.iter_err = 0.0;
+        res.iter_used = 0;
+        mcdi_batch_block(&jb, 0, nv, ws->batch_mem, &res);
+        if (res.st != MCD_OK) {
+            if (model == MCD_MODEL_ITERATIVE) {
+                ws->iter_err = iter_err;
+                ws->iter_used = iter_used;
+            }
+            return mcdi_ws_fail(ws, res.st, "cell %zu: %s", k0 + res.lane,
+                                res.what);
+        }
+        if (res.iter_err > iter_err || res.iter_err != res.iter_err)
+            iter_err = res.iter_err;
+        if (res.iter_used > iter_used)
+            iter_used = res.iter_used;
+        for (l = 0; l < nv; l++)
+            for (i = 0; i < n * nd; i++)
+                out_flux[(k0 + l) * n * nd + i] = so[i * L + l];
+    }
+    if (model == MCD_MODEL_ITERATIVE) {
+        ws->iter_err = iter_err;
+        ws->iter_used = iter_used;
+    }
+    return MCD_OK;
+}
+
+MCD_API mcd_status mcd_workspace_set_iterative(mcd_workspace *ws,
+                                               size_t max_iter, double tol)
+{
+    if (ws == NULL)
+        return MCD_EINVAL;
+    mcdi_ws_clear_error(ws);
+    if (max_iter < 1 || max_iter > 1000)
+        return mcdi_ws_fail(ws, MCD_EINVAL,
+                            "argument max_iter: %zu is not in 1..1000",
+                            max_iter);
+    if (!mcdi_finite(tol) || !(tol >= 0.0))
+        return mcdi_ws_fail(ws, MCD_EINVAL,
+                            "argument tol: not a finite value >= 0");
+    ws->iter_max = max_iter;
+    ws->iter_tol = tol;
+    return MCD_OK;
+}
+
+MCD_API mcd_status mcd_workspace_iterative_info(const mcd_workspace *ws,
+                                                double *out_max_error,
+                                                size_t *out_max_iter)
+{
+    if (ws == NULL)
+        return MCD_EINVAL;
+    if (out_max_error != NULL)
+        *out_max_error = ws->iter_err;
+    if (out_max_iter != NULL)
+        *out_max_iter = ws->iter_used;
+    return MCD_OK;
+}
+
+MCD_API mcd_status mcd_workspace_set_threads(mcd_workspace *ws,
+                                             size_t n_threads)
+{
+    if (ws == NULL)
+        return MCD_EINVAL;
+    ws->threads_req = n_threads;
+    return MCD_OK;
+}

@@ -1,0 +1,899 @@
+/* batch_kernel.c - lane-vectorised kernels of the batched flux calls
+ * (mcd_flux_batch, mcd_flux_batch_dij, mcd_flux_batch_aos; driver in
+ * batch.c). Compiled with -O3 -fno-math-errno -ffp-contract=fast (see
+ * lib/meson.build); on x86-64 with GCC the block function is cloned for
+ * AVX-512, AVX2+FMA and baseline SSE2 and the clone is picked at load
+ * time (ifunc), so the default build is portable and still uses the
+ * machine's vector width.
+ *
+ * Layout: a block holds L cells ("lanes"); every quantity of species i is
+ * L contiguous doubles, q[i*L + l]. Each step below is a loop over lanes
+ * that the compiler vectorises; the species loops are fully unrolled for
+ * N <= 8 (the block function is instantiated for each small N).
+ *
+ * Equations: as mcd_flux_compute (maxwell_stefan.c, mixavg.c), with the
+ * same scaled symmetric positive definite form of the Maxwell-Stefan
+ * equations (Ern and Giovangigli 1994):
+ *     (Gs + a s s^T) U = b,   s_i = sqrt(x_i),   J_i = c s_i U_i,
+ *     (Gs)_ii = S_i = sum_{k != i} x_k / Đ_ik,   (Gs)_ij = -s_i s_j / Đ_ij,
+ *     b_i = -(d_i - x_i sum_{t trace} J_t / (c Đ_it)) / s_i,
+ * a = max S_i over the species present (the largest Blanc sum, inside the
+ * spectrum of Gs on s-perp, so it does not worsen the conditioning). Trace
+ * species (x_i = 0) obey Blanc's law exactly, J_i = -c d_i / S_i, and are
+ * carried as decoupled rows (s_i = 0 makes their off-diagonal entries and
+ * right-hand side 0, their diagonal S_i > 0), so every lane runs the same
+ * code whatever its set of trace species; the species present absorb the
+ * trace fluxes through J_k -= x_k sum_t J_t. A pure component (one x_k = 1)
+ * has S_k = 0; then a = max S_i over all species (> 0) keeps the matrix
+ * definite.
+ *
+ * Factorisation (exact model): LDL^T without pivoting and without square
+ * roots, left-looking, packed lower triangle, vectorised across the L
+ * cells: D_j = A_jj - sum_{k<j} L_jk^2 D_k, L_ij = (A_ij - sum_{k<j} L_ik
+ * L_jk D_k) / D_j. The matrix is SPD with a diagonal bounded below by the
+ * Blanc sums, so no pivoting is needed (Golub and Van Loan 2013, sec.
+ * 4.2); a non-positive pivot (round-off on absurd inputs) is MCD_ESING.
+ * Cost N^3/3 flops per cell. For N > MCDI_LANES_NMAX one cell is solved at
+ * a time (lanes = 1) by the same LDL^T. LAPACK's blocked Cholesky is not
+ * used here: a threaded BLAS (OpenBLAS) allocates inside dpotrf for larger
+ * N, which would break the no-allocation guarantee of the batched calls.
+ *
+ * Iterative model (Ern and Giovangigli 1994, "Multicomponent Transport
+ * Algorithms", Lecture Notes in Physics m24, ch. 5; and J. Comput. Phys.
+ * 120 (1995) 105): the splitting Gs = Ms - Zs with the diagonal
+ * Ms_ii = S_i / (1 - x_i) and the projector Ps = I - s s^T onto the
+ * constraint s^T U = 0 (sum J_i = 0) give the convergent iteration
+ *     U^0 = Ps Ms^-1 b,   U^{k+1} = Ps Ms^-1 (Zs U^k + b),
+ * whose limit is the exact solution; U^0 is the mixture-averaged flux with
+ * the x-weighted correction velocity. With Ms^-1 Zs U = x_i U_i + (1 -
+ * x_i) s_i sum_j s_j U_j / (S_i Đ_ij) one iteration costs O(N^2 n_dim).
+ * Error estimate per cell: with delta_k = max |s (U^{k+1} - U^k)| / max
+ * |s U^{k+1}| (relative change of the fluxes) and the observed contraction
+ * rho = max(delta_k / delta_{k-1}, delta_{k-1} / delta_{k-2}), the error is
+ * estimated as delta_k / (1 - rho), the geometric-tail bound of the error
+ * of U^k, which over-estimates that of the returned U^{k+1} by about
+ * 1/rho; rho >= 0.999 counts as not converged (estimate HUGE_VAL). A cell stops when its estimate is <= tol and is then no
+ * longer updated, so its result does not depend on the other cells of its
+ * block.
+ */
+#include <float.h>
+#include <math.h>
+#include <string.h>
+
+#include "mcd_internal.h"
+#include "mixture.h"
+#include "batch.h"
+
+#if defined(__GNUC__) && !defined(__clang__)
+#define KINLINE static inline __attribute__((always_inline))
+#else
+#define KINLINE static inline
+#endif
+
+/* x86-64 with GCC and ifunc support: clone the block function per ISA. */
+#if defined(__x86_64__) && defined(__GNUC__) && !defined(__clang__) && \
+    defined(__linux__) && !defined(MCDI_NO_CLONES)
+#define KCLONES __attribute__((target_clones("avx512f", "arch=x86-64-v3", "default")))
+#else
+#define KCLONES
+#endif
+
+#define RGAS MCD_GAS_CONSTANT
+
+/* A loop over the lanes of a block: vectorised (OpenMP SIMD pragma, enabled
+ * by -fopenmp-simd without the OpenMP runtime; ignored elsewhere). */
+#if defined(_OPENMP) || defined(MCDI_OMP_SIMD)
+#define LANES _Pragma("omp simd") for (l = 0; l < L; l++)
+#else
+#define LANES for (l = 0; l < L; l++)
+#endif
+
+static size_t tri_n(size_t n) { return n * (n + 1) / 2; }
+
+size_t mcdi_batch_scratch_doubles(size_t cap)
+{
+    size_t best = 0, cfg;
+    for (cfg = 0; cfg < 2; cfg++) {
+        size_t n = cfg == 0 ? (cap < MCDI_LANES_NMAX ? cap : MCDI_LANES_NMAX)
+                            : cap;
+        size_t L = mcdi_batch_lanes(n), need;
+        if (cfg == 1 && cap <= MCDI_LANES_NMAX)
+            continue;
+        need = tri_n(n) * L            /* invD / A / L factors */
+               + 10 * n * L            /* x w s S num minv Dg iDg wk spare */
+               + 6 * n * MCD_MAX_DIM * L /* d t r v tmp out */
+               + (MCDI_FIT_MAXDEG + 1) * L + 64 * L
+               + (2 * n + 2 * n * MCD_MAX_DIM + MCD_MAX_DIM + 4) * L; /* AoS */
+        if (need > best)
+            best = need;
+    }
+    return best;
+}
+
+/* Load row src[k0 .. k0+nv-1] into dst[0..L-1], padding with src[k0]. */
+KINLINE void load_row(double *restrict dst, const double *restrict src,
+                      size_t nv, size_t L)
+{
+    size_t l;
+    if (nv == L) {
+        LANES
+            dst[l] = src[l];
+    } else {
+        for (l = 0; l < nv; l++)
+            dst[l] = src[l];
+        for (; l < L; l++)
+            dst[l] = src[0];
+    }
+}
+
+/* Scalar re-check of one cell in the order of mcd_flux_compute; sets what
+ * and returns the status (MCD_OK if the cell is fine). */
+static mcd_status check_cell(const mcdi_bjob *jb, size_t k, const char **what)
+{
+    const size_t n = jb->n, nd = jb->nd, K = jb->K;
+    double sum = 0.0;
+    size_t i, j;
+    if (jb->mix != NULL) {
+        if (!mcdi_finite(jb->T[k])) { *what = "T: not finite"; return MCD_EINVAL; }
+        if (!(jb->T[k] > 0.0)) { *what = "T: not > 0"; return MCD_EDOM; }
+        if (!mcdi_finite(jb->P[k])) { *what = "P: not finite"; return MCD_EINVAL; }
+        if (!(jb->P[k] > 0.0)) { *what = "P: not > 0"; return MCD_EDOM; }
+    } else {
+        if (!mcdi_finite(jb->c[k])) { *what = "c: not finite"; return MCD_EINVAL; }
+        if (!(jb->c[k] > 0.0)) { *what = "c: not > 0"; return MCD_EDOM; }
+        for (i = 0; i < n; i++)
+            for (j = 0; j < n; j++)
+                if (i != j && !mcdi_finite(jb->Dij[(i * n + j) * K + k])) {
+                    *what = "Dij: entry not finite";
+                    return MCD_EINVAL;
+                }
+        for (i = 0; i < n; i++)
+            for (j = 0; j < n; j++)
+                if (i != j && !(jb->Dij[(i * n + j) * K + k] > 0.0)) {
+                    *what = "Dij: entry not > 0";
+                    return MCD_EDOM;
+                }
+        for (i = 0; i < n; i++)
+            for (j = i + 1; j < n; j++) {
+                double a = jb->Dij[(i * n + j) * K + k];
+                double b = jb->Dij[(j * n + i) * K + k];
+                double big = a > b ? a : b;
+                if (!(fabs(a - b) <= 1e-12 * big)) {
+                    *what = "Dij: not symmetric to 1e-12";
+                    return MCD_EDOM;
+                }
+            }
+    }
+    for (i = 0; i < n; i++)
+        if (!mcdi_finite(jb->comp[i * K + k])) {
+            *what = "comp: entry not finite";
+            return MCD_EINVAL;
+        }
+    for (i = 0; i < n; i++)
+        if (!(jb->comp[i * K + k] >= 0.0)) {
+            *what = "comp: entry negative";
+            return MCD_EDOM;
+        }
+    for (i = 0; i < n; i++)
+        sum += jb->comp[i * K + k];
+    if (!(fabs(sum - 1.0) <= MCD_SUM_TOL)) {
+        *what = "comp: sum differs from 1 by more than 1e-6";
+        return MCD_EDOM;
+    }
+    for (i = 0; i < n * nd; i++)
+        if (!mcdi_finite(jb->grad[i * K + k])) {
+            *what = "grad: entry not finite";
+            return MCD_EINVAL;
+        }
+    if (jb->glnP != NULL)
+        for (i = 0; i < nd; i++)
+            if (!mcdi_finite(jb->glnP[i * K + k])) {
+                *what = "grad_lnP: entry not finite";
+                return MCD_EINVAL;
+            }
+    *what = "";
+    return MCD_OK;
+}
+
+/* Neufeld-Janzen-Aziz collision integral, as binary.c (exact path). */
+static double omega_exact(double Ts) { return mcdi_omega_d(Ts); }
+
+/* ------------------------------------------------------------------ */
+/* the block body, instantiated for constant n and L                    */
+/* ------------------------------------------------------------------ */
+
+KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
+                  mcdi_bres *res, const size_t n, const size_t L,
+                  const size_t nd)
+{
+    const size_t K = jb->K;
+    const int mass_in = jb->comp_basis == MCD_BASIS_MASS;
+    const int mass_out = jb->flux_basis == MCD_BASIS_MASS;
+    const double *M = jb->M;
+    const size_t nt = tri_n(n);
+    double *restrict tri = mem;  mem += nt * L;
+    double *restrict x = mem;    mem += n * L;
+    double *restrict w = mem;    mem += n * L;
+    double *restrict s = mem;    mem += n * L;
+    double *restrict S = mem;    mem += n * L;
+    double *restrict num = mem;  mem += n * L;
+    double *restrict minv = mem; mem += n * L;
+    double *restrict Dg = mem;   mem += n * L;
+    double *restrict iDg = mem;  mem += n * L;
+    double *restrict wk = mem;   mem += n * L;
+    double *restrict d = mem;    mem += n * nd * L;  /* driving forces */
+    double *restrict t = mem;    mem += n * nd * L;  /* trace J / c */
+    double *restrict r = mem;    mem += n * nd * L;  /* rhs, U */
+    double *restrict v = mem;    mem += n * nd * L;  /* iterate, tmp */
+    double *restrict J = mem;    mem += n * nd * L;
+    double *restrict cheb = mem; mem += (MCDI_FIT_MAXDEG + 1) * L;
+    double *restrict c = mem;    mem += L;
+    double *restrict aux = mem;  mem += 8 * L;
+    int bad = 0;                 /* != 0: some input out of range */
+    size_t i, j, k, l, dd;
+
+    res->st = MCD_OK;
+
+    /* ---- per-cell scalars ---- */
+    if (jb->mix != NULL) {
+        double *Tl = aux, *Pl = aux + L;
+        load_row(Tl, jb->T + k0, nv, L);
+        load_row(Pl, jb->P + k0, nv, L);
+        LANES {
+            bad |= !(Tl[l] > 0.0 && Tl[l] <= DBL_MAX);
+            bad |= !(Pl[l] > 0.0 && Pl[l] <= DBL_MAX);
+            c[l] = Pl[l] / (RGAS * Tl[l]);
+        }
+    } else {
+        load_row(c, jb->c + k0, nv, L);
+        LANES
+            bad |= !(c[l] > 0.0 && c[l] <= DBL_MAX);
+    }
+
+    /* ---- fractions ---- */
+    {
+        double *sum = aux + 2 * L;
+        double *y = mass_in ? w : x;
+        LANES
+            sum[l] = 0.0;
+        for (i = 0; i < n; i++) {
+            load_row(y + i * L, jb->comp + i * K + k0, nv, L);
+            LANES {
+                double q = y[i * L + l];
+                bad |= !(q >= 0.0 && q <= DBL_MAX);
+                sum[l] += q;
+            }
+        }
+        LANES
+            bad |= !(fabs(sum[l] - 1.0) <= MCD_SUM_TOL);
+        if (bad)
+            goto diagnose;
+        for (i = 0; i < n; i++)
+            LANES
+                y[i * L + l] = y[i * L + l] / sum[l];
+        if (mass_in) {
+            /* x_i = (w_i / M_i) / sum_k w_k / M_k */
+            LANES
+                sum[l] = 0.0;
+            for (i = 0; i < n; i++)
+                LANES
+                    sum[l] += w[i * L + l] / M[i];
+            for (i = 0; i < n; i++)
+                LANES
+                    x[i * L + l] = (w[i * L + l] / M[i]) / sum[l];
+        } else if (M != NULL) {
+            LANES
+                sum[l] = 0.0;
+            for (i = 0; i < n; i++)
+                LANES
+                    sum[l] += x[i * L + l] * M[i];
+            for (i = 0; i < n; i++)
+                LANES
+                    w[i * L + l] = x[i * L + l] * M[i] / sum[l];
+        }
+    }
+
+    /* ---- driving forces d (mole-fraction gradients) ---- */
+    for (i = 0; i < n * nd; i++) {
+        load_row(d + i * L, jb->grad + i * K + k0, nv, L);
+        LANES
+            bad |= !(fabs(d[i * L + l]) <= DBL_MAX);
+    }
+    if (jb->glnP != NULL) {
+        for (dd = 0; dd < nd; dd++) {
+            load_row(v + dd * L, jb->glnP + dd * K + k0, nv, L);
+            LANES
+                bad |= !(fabs(v[dd * L + l]) <= DBL_MAX);
+        }
+    }
+    if (bad)
+        goto diagnose;
+    if (mass_in) {
+        /* dx_i = (dw_i - w_i dT/T) / (M_i T), T = sum w_k / M_k */
+        double *Tw = aux + 3 * L, *rr = aux + 4 * L;
+        LANES
+            Tw[l] = 0.0;
+        for (i = 0; i < n; i++)
+            LANES
+                Tw[l] += w[i * L + l] / M[i];
+        for (dd = 0; dd < nd; dd++) {
+            LANES
+                rr[l] = 0.0;
+            for (i = 0; i < n; i++)
+                LANES
+                    rr[l] += d[(i * nd + dd) * L + l] / M[i];
+            LANES
+                rr[l] = rr[l] / Tw[l];
+            for (i = 0; i < n; i++)
+                LANES
+                    d[(i * nd + dd) * L + l] =
+                        (d[(i * nd + dd) * L + l] - w[i * L + l] * rr[l]) /
+                        (M[i] * Tw[l]);
+        }
+    }
+    if (jb->glnP != NULL)
+        for (i = 0; i < n; i++)
+            for (dd = 0; dd < nd; dd++)
+                LANES
+                    d[(i * nd + dd) * L + l] +=
+                        (x[i * L + l] - w[i * L + l]) * v[dd * L + l];
+    /* projection onto sum_i d_i = 0 with weights x */
+    for (dd = 0; dd < nd; dd++) {
+        double *sd = aux + 3 * L;
+        LANES
+            sd[l] = 0.0;
+        for (i = 0; i < n; i++)
+            LANES
+                sd[l] += d[(i * nd + dd) * L + l];
+        for (i = 0; i < n; i++)
+            LANES
+                d[(i * nd + dd) * L + l] -= x[i * L + l] * sd[l];
+    }
+
+    if (n == 1) {
+        /* a single species does not diffuse */
+        for (i = 0; i < nd * L; i++)
+            J[i] = 0.0;
+        goto store;
+    }
+
+    /* ---- inverse binary diffusivities, packed lower (i > j) ---- */
+    if (jb->mix == NULL) {
+        for (i = 1; i < n; i++)
+            for (j = 0; j < i; j++) {
+                double *q = tri + (i * (i + 1) / 2 + j) * L;
+                const double *up = jb->Dij + (j * n + i) * K + k0;
+                const double *lo = jb->Dij + (i * n + j) * K + k0;
+                load_row(q, up, nv, L);
+                load_row(wk, lo, nv, L);
+                LANES {
+                    double a = q[l], b = wk[l], m = a > b ? a : b;
+                    bad |= !(a > 0.0 && a <= DBL_MAX);
+                    bad |= !(b > 0.0 && b <= DBL_MAX);
+                    bad |= !(fabs(a - b) <= 1e-12 * m);
+                    q[l] = 1.0 / a;
+                }
+            }
+        if (bad)
+            goto diagnose;
+    } else {
+        const mcd_mixture *mx = jb->mix;
+        const double *Tl = aux, *Pl = aux + L;
+        double *f175 = aux + 2 * L, *f15 = aux + 3 * L;
+        int any_lj = 0, all_fit = 1;
+        double *infit = aux + 4 * L;
+        LANES {
+            double sq = sqrt(Tl[l]), qq = sqrt(sq);
+            f175[l] = Pl[l] / (Tl[l] * sq * qq); /* P / T^1.75 */
+            f15[l] = Pl[l] / (Tl[l] * sq);       /* P / T^1.5 */
+        }
+        for (i = 1; i < n && !any_lj; i++)
+            for (j = 0; j < i; j++) {
+                int m = mx->method[i * n + j];
+                if (m != MCD_METHOD_FSG && m != MCD_METHOD_USER) {
+                    any_lj = 1;
+                    break;
+                }
+            }
+        if (any_lj && mx->fit_on) {
+            LANES {
+                double u = (log(Tl[l]) - mx->fit_lmid) / mx->fit_lhalf;
+                infit[l] = (Tl[l] >= mx->fit_Tmin && Tl[l] <= mx->fit_Tmax);
+                if (!(infit[l] > 0.0)) {
+                    all_fit = 0;
+                    u = 0.0;
+                }
+                cheb[l] = 1.0;
+                cheb[L + l] = u;
+            }
+            for (k = 2; k <= MCDI_FIT_MAXDEG; k++)
+                LANES
+                    cheb[k * L + l] = 2.0 * cheb[L + l] * cheb[(k - 1) * L + l] -
+                                      cheb[(k - 2) * L + l];
+        } else {
+            all_fit = 0;
+            LANES
+                infit[l] = 0.0;
+        }
+        for (i = 1; i < n; i++)
+            for (j = 0; j < i; j++) {
+                size_t ij = i * n + j;
+                int m = mx->method[ij];
+                double *q = tri + (i * (i + 1) / 2 + j) * L;
+                if (m == MCD_METHOD_FSG || m == MCD_METHOD_USER) {
+                    double ic = mx->icoef[ij];
+                    LANES
+                        q[l] = f175[l] * ic;
+                } else {
+                    unsigned deg = (mx->fit_on && mx->fit_deg != NULL)
+                                       ? mx->fit_deg[ij] : 0u;
+                    if (deg > 0) {
+                        const double *fq =
+                            mx->fit_q + ij * (MCDI_FIT_MAXDEG + 1);
+                        LANES
+                            q[l] = fq[0];
+                        for (k = 1; k <= deg; k++)
+                            LANES
+                                q[l] += fq[k] * cheb[k * L + l];
+                        LANES
+                            q[l] *= f15[l];
+                    }
+                    if (deg == 0 || !all_fit) {
+                        double e = mx->eps[ij], cf = mx->coef[ij];
+                        LANES
+                            if (deg == 0 || !(infit[l] > 0.0))
+                                q[l] = (Pl[l] * omega_exact(Tl[l] / e)) /
+                                       (cf * Tl[l] * sqrt(Tl[l]));
+                    }
+                }
+            }
+    }
+
+    /* ---- Blanc sums S_i = sum_{j != i} x_j / Đ_ij, num_i = 1 - x_i ---- */
+    for (i = 0; i < n * L; i++)
+        S[i] = num[i] = 0.0;
+    for (i = 1; i < n; i++)
+        for (j = 0; j < i; j++) {
+            const double *q = tri + (i * (i + 1) / 2 + j) * L;
+            LANES {
+                S[i * L + l] += x[j * L + l] * q[l];
+                S[j * L + l] += x[i * L + l] * q[l];
+                num[i * L + l] += x[j * L + l];
+                num[j * L + l] += x[i * L + l];
+            }
+        }
+
+    if (jb->model == MCD_MODEL_MIXTURE_AVERAGED) {
+        /* J*_i = -c D_im d_i, D_im = num_i / S_i; J = J* - x sum J* (twice) */
+        int pure = 0;
+        for (i = 0; i < n * L; i++)
+            pure |= !(S[i] > 0.0);
+        if (pure) {
+            /* pure species: equal-weight harmonic mean (mixavg.c) */
+            for (i = 0; i < n * L; i++)
+                minv[i] = 0.0;
+            for (i = 1; i < n; i++)
+                for (j = 0; j < i; j++) {
+                    const double *q = tri + (i * (i + 1) / 2 + j) * L;
+                    LANES {
+                        minv[i * L + l] += q[l];
+                        minv[j * L + l] += q[l];
+                    }
+                }
+        }
+        for (i = 0; i < n; i++)
+            LANES {
+                double Sl = S[i * L + l];
+                double Dim = Sl > 0.0 ? num[i * L + l] / Sl
+                                      : (double)(n - 1) / minv[i * L + l];
+                wk[i * L + l] = -c[l] * Dim;
+            }
+        for (dd = 0; dd < nd; dd++) {
+            double *sj = aux + 4 * L;
+            LANES
+                sj[l] = 0.0;
+            for (i = 0; i < n; i++)
+                LANES {
+                    double q = wk[i * L + l] * d[(i * nd + dd) * L + l];
+                    J[(i * nd + dd) * L + l] = q;
+                    sj[l] += q;
+                }
+            for (i = 0; i < n; i++)
+                LANES
+                    J[(i * nd + dd) * L + l] -= x[i * L + l] * sj[l];
+        }
+    } else {
+        int ntr = 0;
+        double *amax = aux + 4 * L, *amax2 = aux + 5 * L;
+        for (i = 0; i < n * L; i++) {
+            s[i] = sqrt(x[i]);
+            ntr |= !(x[i] > 0.0);
+        }
+        /* trace fluxes t_i = J_i / c = -d_i / S_i for x_i = 0, else 0 */
+        for (i = 0; i < n * nd * L; i++)
+            t[i] = 0.0;
+        if (ntr) {
+            for (i = 0; i < n; i++)
+                for (dd = 0; dd < nd; dd++)
+                    LANES {
+                        double Sl = S[i * L + l];
+                        double q = -d[(i * nd + dd) * L + l] /
+                                   (Sl > 0.0 ? Sl : 1.0);
+                        t[(i * nd + dd) * L + l] = x[i * L + l] > 0.0 ? 0.0 : q;
+                    }
+            /* coupling of the present species to trace fluxes moved to
+             * the right-hand side: d_k -= x_k sum_t t_t / Đ_kt */
+            for (i = 1; i < n; i++)
+                for (j = 0; j < i; j++) {
+                    const double *q = tri + (i * (i + 1) / 2 + j) * L;
+                    for (dd = 0; dd < nd; dd++)
+                        LANES {
+                            d[(i * nd + dd) * L + l] -=
+                                x[i * L + l] * t[(j * nd + dd) * L + l] * q[l];
+                            d[(j * nd + dd) * L + l] -=
+                                x[j * L + l] * t[(i * nd + dd) * L + l] * q[l];
+                        }
+                }
+        }
+        /* rhs b_i = -d_i / s_i (0 for trace species) */
+        for (i = 0; i < n; i++)
+            LANES
+                wk[i * L + l] = s[i * L + l] > 0.0 ? -1.0 / s[i * L + l] : 0.0;
+        for (i = 0; i < n; i++)
+            for (dd = 0; dd < nd; dd++)
+                LANES
+                    r[(i * nd + dd) * L + l] =
+                        d[(i * nd + dd) * L + l] * wk[i * L + l];
+
+        if (jb->model == MCD_MODEL_MAXWELL_STEFAN) {
+            /* a = largest Blanc sum of the species present (all species
+             * for a pure component) */
+            LANES
+                amax[l] = amax2[l] = 0.0;
+            for (i = 0; i < n; i++)
+                LANES {
+                    double Sl = S[i * L + l];
+                    double Sp = x[i * L + l] > 0.0 ? Sl : 0.0;
+                    amax[l] = Sp > amax[l] ? Sp : amax[l];
+                    amax2[l] = Sl > amax2[l] ? Sl : amax2[l];
+                }
+            LANES
+                amax[l] = amax[l] > 0.0 ? amax[l] : amax2[l];
+            /* A = Gs + a s s^T in place of invD */
+            for (i = 0; i < n; i++) {
+                double *row = tri + (i * (i + 1) / 2) * L;
+                for (j = 0; j < i; j++)
+                    LANES
+                        row[j * L + l] = s[i * L + l] * s[j * L + l] *
+                                         (amax[l] - row[j * L + l]);
+                LANES
+                    row[i * L + l] = S[i * L + l] + amax[l] * x[i * L + l];
+            }
+            {
+                int sing = 0;
+                /* LDL^T, left-looking, packed lower */
+                for (j = 0; j < n; j++) {
+                    double *Lj = tri + (j * (j + 1) / 2) * L;
+                    double *acc = aux + 6 * L;
+                    for (k = 0; k < j; k++)
+                        LANES
+                            wk[k * L + l] = Lj[k * L + l] * Dg[k * L + l];
+                    LANES
+                        acc[l] = Lj[j * L + l];
+                    for (k = 0; k < j; k++)
+                        LANES
+                            acc[l] -= Lj[k * L + l] * wk[k * L + l];
+                    LANES {
+                        Dg[j * L + l] = acc[l];
+                        sing |= !(acc[l] > 0.0);
+                        iDg[j * L + l] = 1.0 / acc[l];
+                    }
+                    for (i = j + 1; i < n; i++) {
+                        double *Li = tri + (i * (i + 1) / 2) * L;
+                        LANES
+                            acc[l] = Li[j * L + l];
+                        for (k = 0; k < j; k++)
+                            LANES
+                                acc[l] -= Li[k * L + l] * wk[k * L + l];
+                        LANES
+                            Li[j * L + l] = acc[l] * iDg[j * L + l];
+                    }
+                }
+                if (sing) {
+                    for (j = 0; j < n; j++)
+                        for (l = 0; l < nv; l++)
+                            if (!(Dg[j * L + l] > 0.0)) {
+                                res->st = MCD_ESING;
+                                res->lane = l;
+                                res->what = "Maxwell-Stefan matrix not positive "
+                                            "definite (round-off; check Dij "
+                                            "scale)";
+                                return;
+                            }
+                }
+                /* solve L D L^T U = b for each direction */
+                for (dd = 0; dd < nd; dd++) {
+                    for (i = 0; i < n; i++) {
+                        const double *Li = tri + (i * (i + 1) / 2) * L;
+                        double *ri = r + (i * nd + dd) * L;
+                        for (k = 0; k < i; k++)
+                            LANES
+                                ri[l] -= Li[k * L + l] * r[(k * nd + dd) * L + l];
+                    }
+                    for (i = 0; i < n; i++)
+                        LANES
+                            r[(i * nd + dd) * L + l] *= iDg[i * L + l];
+                    for (i = n; i-- > 0;) {
+                        const double *Li = tri + (i * (i + 1) / 2) * L;
+                        double *ri = r + (i * nd + dd) * L;
+                        for (k = 0; k < i; k++)
+                            LANES
+                                r[(k * nd + dd) * L + l] -= Li[k * L + l] * ri[l];
+                    }
+                }
+            }
+        } else {
+            /* Ern-Giovangigli iteration (see the top comment) */
+            double *delta_prev = aux + 4 * L, *est = aux + 5 * L;
+            double *delta_prev2 = aux + 2 * L; /* free once invD is built */
+            double *active = aux + 6 * L, *iters = aux + 7 * L;
+            double *nrm = Dg, *dmax = iDg; /* per-lane maxima */
+            size_t it, maxit = jb->max_iter;
+            for (i = 0; i < n; i++)
+                LANES {
+                    double Sl = S[i * L + l];
+                    minv[i * L + l] = Sl > 0.0 ? num[i * L + l] / Sl : 0.0;
+                }
+            /* U^0 = Ps Minv b */
+            for (i = 0; i < n * nd; i++)
+                LANES
+                    r[i * L + l] *= minv[(i / nd) * L + l];
+            for (dd = 0; dd < nd; dd++) {
+                double *p = aux + 3 * L;
+                LANES
+                    p[l] = 0.0;
+                for (i = 0; i < n; i++)
+                    LANES
+                        p[l] += s[i * L + l] * r[(i * nd + dd) * L + l];
+                for (i = 0; i < n; i++)
+                    LANES
+                        r[(i * nd + dd) * L + l] -= s[i * L + l] * p[l];
+            }
+            /* b is d * wk (recomputed on the fly); v = next iterate */
+            LANES {
+                delta_prev[l] = HUGE_VAL;
+                delta_prev2[l] = HUGE_VAL;
+                est[l] = HUGE_VAL;
+                active[l] = 1.0;
+                iters[l] = 0.0;
+            }
+            for (it = 1; it <= maxit; it++) {
+                double nact = 0.0;
+                /* v_i = x_i U_i + minv_i (s_i sum_j invD_ij s_j U_j + b_i) */
+                for (i = 0; i < n * nd * L; i++)
+                    J[i] = 0.0; /* J holds sum_j invD_ij s_j U_j */
+                for (i = 1; i < n; i++)
+                    for (j = 0; j < i; j++) {
+                        const double *q = tri + (i * (i + 1) / 2 + j) * L;
+                        for (dd = 0; dd < nd; dd++)
+                            LANES {
+                                J[(i * nd + dd) * L + l] +=
+                                    q[l] * s[j * L + l] * r[(j * nd + dd) * L + l];
+                                J[(j * nd + dd) * L + l] +=
+                                    q[l] * s[i * L + l] * r[(i * nd + dd) * L + l];
+                            }
+                    }
+                for (i = 0; i < n; i++)
+                    for (dd = 0; dd < nd; dd++)
+                        LANES {
+                            size_t e = (i * nd + dd) * L + l;
+                            v[e] = x[i * L + l] * r[e] +
+                                   minv[i * L + l] *
+                                       (s[i * L + l] * J[e] +
+                                        d[e] * wk[i * L + l]);
+                        }
+                for (dd = 0; dd < nd; dd++) {
+                    double *p = aux + 3 * L;
+                    LANES
+                        p[l] = 0.0;
+                    for (i = 0; i < n; i++)
+                        LANES
+                            p[l] += s[i * L + l] * v[(i * nd + dd) * L + l];
+                    for (i = 0; i < n; i++)
+                        LANES
+                            v[(i * nd + dd) * L + l] -= s[i * L + l] * p[l];
+                }
+                /* relative change of the fluxes s U, per lane */
+                LANES
+                    nrm[l] = 0.0;
+                LANES
+                    dmax[l] = 0.0;
+                for (i = 0; i < n; i++)
+                    for (dd = 0; dd < nd; dd++)
+                        LANES {
+                            size_t e = (i * nd + dd) * L + l;
+                            double a = fabs(s[i * L + l] * v[e]);
+                            double b = fabs(s[i * L + l] * (v[e] - r[e]));
+                            nrm[l] = a > nrm[l] ? a : nrm[l];
+                            dmax[l] = b > dmax[l] ? b : dmax[l];
+                        }
+                LANES {
+                    double del = nrm[l] > 0.0 ? dmax[l] / nrm[l] : 0.0;
+                    double rho = del / delta_prev[l], e2;
+                    double rho2 = delta_prev[l] / delta_prev2[l];
+                    if (!(active[l] > 0.0))
+                        continue;
+                    /* the larger of the last two contraction ratios (robust
+                     * to oscillating iterates); del / (1 - rho) bounds the
+                     * error of the previous iterate, so it over-estimates
+                     * that of the one returned */
+                    if (it >= 3 && rho2 > rho)
+                        rho = rho2;
+                    if (it == 1)
+                        e2 = HUGE_VAL; /* no contraction observed yet */
+                    else if (rho < 0.999)
+                        e2 = del / (1.0 - rho);
+                    else
+                        e2 = HUGE_VAL;
+                    if (del == 0.0)
+                        e2 = 0.0;
+                    est[l] = e2;
+                    delta_prev2[l] = delta_prev[l];
+                    delta_prev[l] = del;
+                    iters[l] = (double)it;
+                }
+                for (i = 0; i < n * nd; i++)
+                    LANES
+                        if (active[l] > 0.0)
+                            r[i * L + l] = v[i * L + l];
+                LANES {
+                    if (active[l] > 0.0 && it >= 2 && est[l] <= jb->tol)
+                        active[l] = 0.0;
+                    if (l < nv)
+                        nact += active[l];
+                }
+                if (nact == 0.0)
+                    break;
+            }
+            for (l = 0; l < nv; l++) {
+                double e2 = est[l];
+                if (!(e2 <= res->iter_err))
+                    res->iter_err = e2;
+                if ((size_t)iters[l] > res->iter_used)
+                    res->iter_used = (size_t)iters[l];
+            }
+        }
+
+        /* J_i = c (s_i U_i + t_i - x_i sum_t t_t) */
+        for (dd = 0; dd < nd; dd++) {
+            double *st = aux + 3 * L;
+            LANES
+                st[l] = 0.0;
+            for (i = 0; i < n; i++)
+                LANES
+                    st[l] += t[(i * nd + dd) * L + l];
+            for (i = 0; i < n; i++)
+                LANES {
+                    size_t e = (i * nd + dd) * L + l;
+                    J[e] = c[l] * (s[i * L + l] * r[e] + t[e] -
+                                   x[i * L + l] * st[l]);
+                }
+        }
+    }
+
+    /* zero-sum clean-up with weights x (trace species stay exact) */
+    for (dd = 0; dd < nd; dd++) {
+        double *rs = aux + 3 * L;
+        LANES
+            rs[l] = 0.0;
+        for (i = 0; i < n; i++)
+            LANES
+                rs[l] += J[(i * nd + dd) * L + l];
+        for (i = 0; i < n; i++)
+            LANES
+                J[(i * nd + dd) * L + l] -= x[i * L + l] * rs[l];
+    }
+    if (mass_out) {
+        /* j_i = M_i J_i - w_i sum_k M_k J_k, residual removed with w */
+        for (dd = 0; dd < nd; dd++) {
+            double *sm = aux + 3 * L, *rs = aux + 4 * L;
+            LANES
+                sm[l] = rs[l] = 0.0;
+            for (i = 0; i < n; i++)
+                LANES
+                    sm[l] += M[i] * J[(i * nd + dd) * L + l];
+            for (i = 0; i < n; i++)
+                LANES {
+                    size_t e = (i * nd + dd) * L + l;
+                    J[e] = M[i] * J[e] - w[i * L + l] * sm[l];
+                    rs[l] += J[e];
+                }
+            for (i = 0; i < n; i++)
+                LANES
+                    J[(i * nd + dd) * L + l] -= w[i * L + l] * rs[l];
+        }
+    }
+store:
+    /* never hand out non-finite fluxes */
+    for (i = 0; i < n * nd * L; i++)
+        bad |= !(fabs(J[i]) <= DBL_MAX);
+    if (bad) {
+        for (l = 0; l < nv; l++)
+            for (i = 0; i < n * nd; i++)
+                if (!(fabs(J[i * L + l]) <= DBL_MAX)) {
+                    res->st = MCD_EDOM;
+                    res->lane = l;
+                    res->what = "result: flux not finite (inputs outside the "
+                                "representable range)";
+                    return;
+                }
+    }
+    for (i = 0; i < n * nd; i++) {
+        double *o = jb->out + i * K + k0;
+        for (l = 0; l < nv; l++)
+            o[l] = J[i * L + l];
+    }
+    return;
+
+diagnose:
+    for (l = 0; l < nv; l++) {
+        const char *what = "";
+        mcd_status st = check_cell(jb, k0 + l, &what);
+        if (st != MCD_OK) {
+            res->st = st;
+            res->lane = l;
+            res->what = what;
+            return;
+        }
+    }
+    res->st = MCD_EINTERNAL; /* a flagged block without a bad cell */
+    res->lane = 0;
+    res->what = "internal: validation mismatch";
+}
+
+/* ------------------------------------------------------------------ */
+/* dispatch on n (constant-folded instances for small n)                */
+/* ------------------------------------------------------------------ */
+
+#define LANES_SMALL MCDI_LANES
+
+/* n (and n_dim = 3, the common case) as compile-time constants for small
+ * n, so that the species loops unroll. */
+#define BODY_ND(nn)                                                        \
+    do {                                                                   \
+        if (jb->nd == 3)                                                   \
+            body(jb, k0, nv, mem, res, nn, LANES_SMALL, 3);                \
+        else                                                               \
+            body(jb, k0, nv, mem, res, nn, LANES_SMALL, jb->nd);           \
+    } while (0)
+
+KCLONES
+static void block_lanes(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
+                        mcdi_bres *res)
+{
+    switch (jb->n) {
+    case 2: BODY_ND(2); break;
+    case 3: BODY_ND(3); break;
+    case 4: BODY_ND(4); break;
+    case 5: BODY_ND(5); break;
+    case 6: BODY_ND(6); break;
+    case 7: BODY_ND(7); break;
+    case 8: BODY_ND(8); break;
+    default: body(jb, k0, nv, mem, res, jb->n, LANES_SMALL, jb->nd); break;
+    }
+}
+
+static void block_single(const mcdi_bjob *jb, size_t k0, size_t nv,
+                         double *mem, mcdi_bres *res)
+{
+    body(jb, k0, nv, mem, res, jb->n, 1, jb->nd);
+}
+
+void mcdi_batch_block(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
+                      mcdi_bres *res)
+{
+    if (mcdi_batch_lanes(jb->n) == 1)
+        block_single(jb, k0, nv, mem, res);
+    else
+        block_lanes(jb, k0, nv, mem, res);
+}

@@ -1,0 +1,181 @@
+/* test_alloc.c - no heap allocation in any per-call API of the batched
+ * flux layer (and the single-state flux call it is compared with).
+ *
+ * On glibc the executable interposes malloc, calloc, realloc and
+ * posix_memalign (forwarding to the __libc_* entry points, as
+ * test_flux_identities does) and counts calls made inside a window. A
+ * direct malloc inside the window proves the hook is live (under valgrind
+ * or AddressSanitizer it is not, and the test then only checks that the
+ * calls succeed). A warm-up pass runs first so that one-time
+ * initialisation of the BLAS is not counted. Common practice for such
+ * checks; no outside data.
+ */
+#include <check.h>
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+
+#include "mcdiff.h"
+
+#if defined(__GLIBC__) && !defined(__SANITIZE_ADDRESS__)
+#define HAVE_ALLOC_HOOK 1
+extern void *__libc_malloc(size_t size);
+extern void *__libc_calloc(size_t n, size_t size);
+extern void *__libc_realloc(void *p, size_t size);
+extern void *__libc_memalign(size_t align, size_t size);
+extern void __libc_free(void *p);
+int posix_memalign(void **out, size_t align, size_t size);
+static volatile int alloc_window;
+static volatile long alloc_count;
+void *malloc(size_t size)
+{
+    if (alloc_window)
+        alloc_count++;
+    return __libc_malloc(size);
+}
+void *calloc(size_t n, size_t size)
+{
+    if (alloc_window)
+        alloc_count++;
+    return __libc_calloc(n, size);
+}
+void *realloc(void *p, size_t size)
+{
+    if (alloc_window)
+        alloc_count++;
+    return __libc_realloc(p, size);
+}
+int posix_memalign(void **out, size_t align, size_t size)
+{
+    void *p;
+    if (alloc_window)
+        alloc_count++;
+    p = __libc_memalign(align, size);
+    if (p == NULL)
+        return 12; /* ENOMEM */
+    *out = p;
+    return 0;
+}
+void free(void *p) { __libc_free(p); }
+#else
+#define HAVE_ALLOC_HOOK 0
+static volatile int alloc_window;
+static volatile long alloc_count;
+#endif
+
+#define KC 11
+#define ND 3
+#define NBIG 150 /* above the lane limit: one cell at a time */
+
+static double Dsoa[NBIG * NBIG * KC], csoa[KC], xsoa[NBIG * KC];
+static double gsoa[NBIG * ND * KC], lsoa[ND * KC], out[NBIG * ND * KC];
+static double T[KC], P[KC], M[NBIG], Dcell[NBIG * NBIG], F[NBIG * ND];
+
+START_TEST(alloc_batched_calls_do_not_allocate)
+{
+    mcd_db *db;
+    mcd_mixture *mix;
+    mcd_workspace *ws;
+    const char *names[6] = {"nitrogen", "oxygen", "carbon-dioxide", "water",
+                            "methane", "argon"};
+    int st[64], ns = 0, pass, live;
+    size_t n, i, j, k;
+    void *probe;
+    double est, e2;
+    size_t used;
+
+    ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_new(db, 6, names, MCD_METHOD_FSG, &mix, NULL, 0), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 1, MCD_METHOD_CHAPMAN_ENSKOG), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 2, 4, MCD_METHOD_WILKE_LEE), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_alloc(NBIG, &ws), MCD_OK);
+    for (k = 0; k < KC; k++) {
+        T[k] = 300.0 + 50.0 * (double)k;
+        P[k] = 1e5;
+        csoa[k] = 40.0;
+    }
+    for (i = 0; i < NBIG; i++)
+        M[i] = 0.002 + 0.001 * (double)(i % 40);
+
+    for (pass = 0; pass < 2; pass++) { /* pass 0 warms up the BLAS */
+        ns = 0;
+        if (pass == 1) {
+            alloc_count = 0;
+            alloc_window = 1;
+        }
+        for (n = 6; n <= NBIG; n += NBIG - 6) {
+            for (k = 0; k < KC; k++) {
+                for (i = 0; i < n; i++) {
+                    xsoa[i * KC + k] = 1.0 / (double)n;
+                    for (j = 0; j < ND; j++)
+                        gsoa[(i * ND + j) * KC + k] = (double)((i + j + k) % 3) - 1.0;
+                    for (j = 0; j < n; j++)
+                        Dsoa[(i * n + j) * KC + k] =
+                            i == j ? 0.0 : 1e-5 * (1.0 + (double)((i + j) % 7));
+                }
+                for (j = 0; j < ND; j++)
+                    lsoa[j * KC + k] = 0.1;
+            }
+            for (int model = 0; model < 3; model++) {
+                st[ns++] = mcd_flux_batch_dij(ws, (mcd_model)model, n, KC, ND, M, Dsoa,
+                                              csoa, MCD_BASIS_MASS, xsoa, gsoa, lsoa,
+                                              MCD_BASIS_MASS, out);
+                if (n == 6) {
+                    st[ns++] = mcd_flux_batch(ws, mix, (mcd_model)model, KC, ND, T, P,
+                                              MCD_BASIS_MOLE, xsoa, gsoa, lsoa,
+                                              MCD_BASIS_MASS, out);
+                    st[ns++] = mcd_flux_batch_aos(ws, mix, (mcd_model)model, KC, ND, T,
+                                                  P, MCD_BASIS_MOLE, xsoa, gsoa, NULL,
+                                                  MCD_BASIS_MOLE, out);
+                }
+            }
+            if (n > 24)
+                continue; /* single-state LAPACK path: see test_flux_identities */
+            for (i = 0; i < n * n; i++)
+                Dcell[i] = Dsoa[i * KC];
+            st[ns++] = mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, n, ND, M, Dcell,
+                                        40.0, MCD_BASIS_MOLE, xsoa, gsoa, NULL, NULL,
+                                        MCD_BASIS_MOLE, F);
+        }
+        st[ns++] = mcd_workspace_set_iterative(ws, 50, 1e-9);
+        st[ns++] = mcd_workspace_iterative_info(ws, &est, &used);
+        st[ns++] = mcd_workspace_set_threads(ws, 0);
+        st[ns++] = mcd_mixture_temperature_fit(mix, NULL, NULL, &e2);
+        if (pass == 1)
+            break;
+        for (i = 0; i < (size_t)ns; i++)
+            ck_assert_msg(st[i] == MCD_OK, "call %zu: %d (%s)", i, st[i],
+                          mcd_workspace_last_error(ws));
+    }
+    probe = malloc(16);
+    live = alloc_count > 0;
+    alloc_window = 0;
+    free(probe);
+    for (i = 0; i < (size_t)ns; i++)
+        ck_assert_int_eq(st[i], MCD_OK);
+    fprintf(stderr, "allocation hook %s; allocations in the window: %ld "
+                    "(the probe included) over %d calls\n",
+            (HAVE_ALLOC_HOOK && live) ? "live" : "not live", (long)alloc_count, ns);
+    if (HAVE_ALLOC_HOOK && live)
+        ck_assert_int_eq(alloc_count, 1); /* the probe only */
+    mcd_workspace_free(ws);
+    mcd_mixture_free(mix);
+    mcd_db_free(db);
+}
+END_TEST
+
+int main(void)
+{
+    Suite *s = suite_create("mcd:alloc");
+    TCase *tc = tcase_create("alloc");
+    SRunner *sr;
+    int failed;
+    tcase_set_timeout(tc, 120);
+    tcase_add_test(tc, alloc_batched_calls_do_not_allocate);
+    suite_add_tcase(s, tc);
+    sr = srunner_create(s);
+    srunner_run_all(sr, CK_ENV);
+    failed = srunner_ntests_failed(sr);
+    srunner_free(sr);
+    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+}

@@ -1,0 +1,462 @@
+/* test_batch.c - batched flux calls (mcd_flux_batch, mcd_flux_batch_dij,
+ * mcd_flux_batch_aos) against the single-state mcd_flux_compute.
+ *
+ * The batched kernels solve the same equations with a different
+ * factorisation (LDL^T vectorised across cells instead of a per-state
+ * Cholesky) and different rounding (fused multiply-adds, reciprocal
+ * products), so the check is agreement to 1e-12 relative to the largest
+ * flux of each cell, over random states: N = 1..30 and 100, every model
+ * and basis pair, with and without pressure diffusion, trace species
+ * (x_i = 0 exactly), near-trace species, pure components, and cell counts
+ * that are not multiples of the vector width (0, 1, 7, 8, 9, 37).
+ * The reference is the library's own single-state path, itself checked
+ * against published data and identities in the other suites (Taylor and
+ * Krishna 1993, ch. 2, for the Maxwell-Stefan equations).
+ */
+#include <check.h>
+#include <math.h>
+#include <stdint.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "mcdiff.h"
+
+#define GUARD 12345.678
+
+static uint64_t rng_s;
+static void rng_seed(uint64_t s) { rng_s = s; }
+static uint64_t rng_next(void)
+{
+    uint64_t z = (rng_s += 0x9E3779B97F4A7C15ull);
+    z = (z ^ (z >> 30)) * 0xBF58476D1CE4E5B9ull;
+    z = (z ^ (z >> 27)) * 0x94D049BB133111EBull;
+    return z ^ (z >> 31);
+}
+static double rng_u01(void) { return (double)(rng_next() >> 11) * 0x1.0p-53; }
+static double rng_range(double a, double b) { return a + (b - a) * rng_u01(); }
+
+/* SoA arrays of K cells of N species. */
+typedef struct cells {
+    size_t n, K, nd;
+    double *M, *D, *c, *comp, *grad, *glnP, *T, *P;
+} cells;
+
+static void *xmalloc(size_t b)
+{
+    void *p = malloc(b > 0 ? b : 1);
+    ck_assert_ptr_nonnull(p);
+    return p;
+}
+
+static void cells_free(cells *s)
+{
+    free(s->M); free(s->D); free(s->c); free(s->comp); free(s->grad);
+    free(s->glnP); free(s->T); free(s->P);
+}
+
+/* Random fractions of one cell into y (stride K). kind: 0 uniform, 1
+ * near-trace (8 decades), 2 exact zeros, 3 pure component. */
+static void random_fracs(double *y, size_t n, size_t K, size_t k, int kind)
+{
+    double s = 0.0;
+    size_t i, p = (size_t)(rng_next() % n);
+    for (i = 0; i < n; i++) {
+        double v;
+        switch (kind) {
+        case 0: v = rng_range(0.01, 1.0); break;
+        case 1: v = pow(10.0, rng_range(-8.0, 0.0)); break;
+        case 2: v = (rng_next() % 3 == 0 && i != p) ? 0.0 : rng_u01() + 1e-3; break;
+        default: v = i == p ? 1.0 : 0.0; break;
+        }
+        y[i * K + k] = v;
+        s += v;
+    }
+    for (i = 0; i < n; i++)
+        y[i * K + k] /= s;
+}
+
+static void cells_make(cells *s, size_t n, size_t K, size_t nd)
+{
+    size_t i, j, k;
+    s->n = n; s->K = K; s->nd = nd;
+    s->M = xmalloc(n * sizeof(double));
+    s->D = xmalloc(n * n * K * sizeof(double));
+    s->c = xmalloc(K * sizeof(double));
+    s->comp = xmalloc(n * K * sizeof(double));
+    s->grad = xmalloc(n * nd * K * sizeof(double));
+    s->glnP = xmalloc(nd * K * sizeof(double));
+    s->T = xmalloc(K * sizeof(double));
+    s->P = xmalloc(K * sizeof(double));
+    for (i = 0; i < n; i++)
+        s->M[i] = 2e-3 * exp(rng_u01() * log(0.35 / 2e-3));
+    for (k = 0; k < K; k++) {
+        int kind = (int)(rng_next() % 4);
+        if (kind == 3 && rng_next() % 3 != 0)
+            kind = 2; /* pure components less often */
+        s->c[k] = pow(10.0, rng_range(-1.0, 4.0));
+        s->T[k] = rng_range(250.0, 1500.0);
+        s->P[k] = rng_range(2e4, 5e5);
+        random_fracs(s->comp, n, K, k, kind);
+        for (i = 0; i < n * nd; i++)
+            s->grad[i * K + k] = rng_range(-1.0, 1.0);
+        for (i = 0; i < nd; i++)
+            s->glnP[i * K + k] = rng_range(-2.0, 2.0);
+        for (i = 0; i < n; i++) {
+            s->D[(i * n + i) * K + k] = 0.0;
+            for (j = i + 1; j < n; j++)
+                s->D[(i * n + j) * K + k] = s->D[(j * n + i) * K + k] =
+                    5e-6 * pow(20.0, rng_u01());
+        }
+    }
+}
+
+/* Gather cell k into single-state arrays. */
+static void cell_get(const cells *s, size_t k, double *D, double *y,
+                     double *g, double *gl)
+{
+    size_t n = s->n, K = s->K, i;
+    for (i = 0; i < n * n; i++)
+        D[i] = s->D[i * K + k];
+    for (i = 0; i < n; i++)
+        y[i] = s->comp[i * K + k];
+    for (i = 0; i < n * s->nd; i++)
+        g[i] = s->grad[i * K + k];
+    for (i = 0; i < s->nd; i++)
+        gl[i] = s->glnP[i * K + k];
+}
+
+/* Largest relative difference of cell k of a batched output against a
+ * single-state flux F (relative to the cell's largest |F|). */
+static double cell_rel(const double *out, size_t K, size_t k, const double *F,
+                       size_t m)
+{
+    double sc = 0.0, e = 0.0;
+    size_t i;
+    for (i = 0; i < m; i++) {
+        if (fabs(F[i]) > sc) sc = fabs(F[i]);
+        if (fabs(out[i * K + k] - F[i]) > e) e = fabs(out[i * K + k] - F[i]);
+    }
+    return sc > 0.0 ? e / sc : e;
+}
+
+static double worst_dij, worst_mix;
+
+START_TEST(batch_dij_matches_single_state_calls)
+{
+    static const size_t Ns[] = {1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 12, 15, 16, 17,
+                                20, 24, 25, 29, 30, 100};
+    static const size_t Ks[] = {0, 1, 7, 8, 9, 37};
+    size_t ni, n, K, k, cfg;
+    mcd_workspace *ws;
+    rng_seed(0xBA7C4001ull + (uint64_t)_i);
+    ck_assert_int_eq(mcd_workspace_alloc(100, &ws), MCD_OK);
+    for (ni = (size_t)_i; ni < sizeof Ns / sizeof Ns[0]; ni += 4) {
+        n = Ns[ni];
+        for (cfg = 0; cfg < 24; cfg++) {
+            mcd_model model = cfg % 3 == 0 ? MCD_MODEL_MAXWELL_STEFAN
+                              : cfg % 3 == 1 ? MCD_MODEL_MIXTURE_AVERAGED
+                                             : MCD_MODEL_ITERATIVE;
+            mcd_basis cb = (cfg / 3) % 2 ? MCD_BASIS_MASS : MCD_BASIS_MOLE;
+            mcd_basis fb = (cfg / 6) % 2 ? MCD_BASIS_MASS : MCD_BASIS_MOLE;
+            int use_p = (cfg / 12) % 2;
+            size_t nd = 1 + cfg % 3;
+            cells s;
+            double *out;
+            K = Ks[(cfg + ni) % 6];
+            if (n == 100 && K > 9)
+                K = 9; /* keep the reference calls affordable */
+            cells_make(&s, n, K, nd);
+            out = xmalloc(n * nd * (K + 1) * sizeof(double));
+            for (k = 0; k < n * nd * (K + 1); k++)
+                out[k] = GUARD;
+            if (model == MCD_MODEL_ITERATIVE)
+                ck_assert_int_eq(mcd_workspace_set_iterative(ws, 1000, 0.0), MCD_OK);
+            ck_assert_msg(mcd_flux_batch_dij(ws, model, n, K, nd, s.M, s.D, s.c,
+                                             cb, s.comp, s.grad,
+                                             use_p ? s.glnP : NULL, fb, out) ==
+                              MCD_OK,
+                          "N=%zu K=%zu: %s", n, K, mcd_workspace_last_error(ws));
+            /* nothing written past the K cells (K=0 writes nothing) */
+            for (k = n * nd * K; k < n * nd * (K + 1); k++)
+                ck_assert(out[k] == GUARD);
+            for (k = 0; k < K; k++) {
+                double D[100 * 100], y[100], g[300], gl[3], F[300], e;
+                cell_get(&s, k, D, y, g, gl);
+                ck_assert_int_eq(
+                    mcd_flux_compute(ws,
+                                     model == MCD_MODEL_ITERATIVE
+                                         ? MCD_MODEL_MAXWELL_STEFAN : model,
+                                     n, nd, s.M, D, s.c[k], cb, y, g, NULL,
+                                     use_p ? gl : NULL, fb, F),
+                    MCD_OK);
+                e = cell_rel(out, K, k, F, n * nd);
+                if (e > worst_dij)
+                    worst_dij = e;
+                /* 1e-12: both solve the same well-conditioned SPD system
+                 * (Đ within a factor 20, so cond ~ 1e2..1e4); the
+                 * iterative model run to its round-off floor (tol 0,
+                 * up to 1000 iterations) meets it as well. */
+                ck_assert_msg(e <= 1e-12,
+                              "N=%zu model=%d cb=%d fb=%d p=%d cell %zu: rel "
+                              "diff %.3g", n, (int)model, (int)cb, (int)fb,
+                              use_p, k, e);
+            }
+            free(out);
+            cells_free(&s);
+        }
+    }
+    fprintf(stderr, "batch_dij: largest relative difference %.3g\n", worst_dij);
+    mcd_workspace_free(ws);
+}
+END_TEST
+
+/* Mixture-driven calls: Đ from the mixture at each cell's T and P (FSG,
+ * Chapman-Enskog, Wilke-Lee and user pairs), c = P / (R T). */
+static mcd_db *db;
+static mcd_mixture *make_mix(size_t n, int lj)
+{
+    const char *names[64];
+    mcd_mixture *m = NULL;
+    size_t i, cnt = mcd_db_count(db), got = 0;
+    for (i = 0; i < cnt && got < n; i++) {
+        double v;
+        if (lj && (mcd_db_param(db, i, MCD_PARAM_LJ_SIGMA, &v) != MCD_OK ||
+                   mcd_db_param(db, i, MCD_PARAM_LJ_EPS_K, &v) != MCD_OK))
+            continue;
+        if (mcd_db_param(db, i, MCD_PARAM_DIFF_VOLUME, &v) != MCD_OK)
+            continue;
+        names[got++] = mcd_db_name(db, i);
+    }
+    ck_assert_uint_eq(got, n);
+    ck_assert_int_eq(mcd_mixture_new(db, n, names, MCD_METHOD_FSG, &m, NULL, 0),
+                     MCD_OK);
+    return m;
+}
+
+START_TEST(batch_mixture_matches_single_state_calls)
+{
+    static const size_t Ns[] = {2, 3, 5, 8, 11, 20};
+    size_t ni;
+    mcd_workspace *ws;
+    rng_seed(0xBA7C4002ull);
+    ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_alloc(30, &ws), MCD_OK);
+    for (ni = 0; ni < sizeof Ns / sizeof Ns[0]; ni++) {
+        size_t n = Ns[ni], K = 13 + ni, nd = 3, k, i, j, pass;
+        mcd_mixture *m = make_mix(n, 1);
+        cells s;
+        double *out = xmalloc(n * nd * K * sizeof(double));
+        double *aos_out = xmalloc(n * nd * K * sizeof(double));
+        double *ac = xmalloc(n * K * sizeof(double));
+        double *ag = xmalloc(n * nd * K * sizeof(double));
+        double *al = xmalloc(nd * K * sizeof(double));
+        double Mm[32];
+        /* mixed methods: CE, WL, user values and FSG */
+        for (i = 0; i < n; i++)
+            for (j = i + 1; j < n; j++) {
+                int r = (int)((i + 2 * j) % 4);
+                if (r == 1)
+                    ck_assert_int_eq(mcd_mixture_set_method(m, i, j, MCD_METHOD_CHAPMAN_ENSKOG), MCD_OK);
+                else if (r == 2)
+                    ck_assert_int_eq(mcd_mixture_set_method(m, i, j, MCD_METHOD_WILKE_LEE), MCD_OK);
+                else if (r == 3)
+                    ck_assert_int_eq(mcd_mixture_set_binary(m, i, j, 1.5e-5, 300.0, 101325.0), MCD_OK);
+            }
+        ck_assert_int_eq(mcd_mixture_molar_masses(m, Mm), MCD_OK);
+        cells_make(&s, n, K, nd);
+        /* AoS copies */
+        for (k = 0; k < K; k++) {
+            for (i = 0; i < n; i++)
+                ac[k * n + i] = s.comp[i * K + k];
+            for (i = 0; i < n * nd; i++)
+                ag[k * n * nd + i] = s.grad[i * K + k];
+            for (i = 0; i < nd; i++)
+                al[k * nd + i] = s.glnP[i * K + k];
+        }
+        for (pass = 0; pass < 12; pass++) {
+            mcd_model model = (mcd_model)(pass % 3);
+            mcd_basis cb = (pass / 3) % 2 ? MCD_BASIS_MASS : MCD_BASIS_MOLE;
+            mcd_basis fb = (pass / 6) % 2 ? MCD_BASIS_MASS : MCD_BASIS_MOLE;
+            const double *gl = pass % 2 ? s.glnP : NULL;
+            if (model == MCD_MODEL_ITERATIVE)
+                ck_assert_int_eq(mcd_workspace_set_iterative(ws, 1000, 0.0), MCD_OK);
+            ck_assert_msg(mcd_flux_batch(ws, m, model, K, nd, s.T, s.P, cb, s.comp,
+                                         s.grad, gl, fb, out) == MCD_OK,
+                          "%s", mcd_workspace_last_error(ws));
+            ck_assert_int_eq(mcd_flux_batch_aos(ws, m, model, K, nd, s.T, s.P, cb,
+                                                ac, ag, gl ? al : NULL, fb,
+                                                aos_out), MCD_OK);
+            for (k = 0; k < K; k++) {
+                double D[32 * 32], y[32], g[96], F[96], e;
+                double c = s.P[k] / (MCD_GAS_CONSTANT * s.T[k]);
+                ck_assert_int_eq(mcd_mixture_binaries(m, s.T[k], s.P[k], D, NULL, NULL),
+                                 MCD_OK);
+                for (i = 0; i < n; i++)
+                    y[i] = s.comp[i * K + k];
+                for (i = 0; i < n * nd; i++)
+                    g[i] = s.grad[i * K + k];
+                ck_assert_int_eq(mcd_flux_compute(ws,
+                                                  model == MCD_MODEL_ITERATIVE
+                                                      ? MCD_MODEL_MAXWELL_STEFAN
+                                                      : model,
+                                                  n, nd, Mm, D, c, cb, y, g, NULL,
+                                                  gl ? al + k * nd : NULL, fb, F),
+                                 MCD_OK);
+                e = cell_rel(out, K, k, F, n * nd);
+                if (e > worst_mix)
+                    worst_mix = e;
+                /* 1e-12 as above; Đ itself differs only by rounding
+                 * (reciprocal coefficients, T^1.75 from square roots) */
+                ck_assert_msg(e <= 1e-12, "N=%zu pass %zu cell %zu: %.3g", n, pass,
+                              k, e);
+                /* the AoS path runs the same kernel: identical bits */
+                for (i = 0; i < n * nd; i++)
+                    ck_assert(aos_out[k * n * nd + i] == out[i * K + k]);
+            }
+        }
+        free(out); free(aos_out); free(ac); free(ag); free(al);
+        cells_free(&s);
+        mcd_mixture_free(m);
+    }
+    fprintf(stderr, "batch_mixture: largest relative difference %.3g\n", worst_mix);
+    mcd_workspace_free(ws);
+    mcd_db_free(db);
+}
+END_TEST
+
+START_TEST(batch_errors_name_the_cell_and_write_nothing_on_argument_errors)
+{
+    enum { N = 4, K = 11, ND = 2 };
+    cells s;
+    double out[N * ND * K];
+    mcd_workspace *ws, *small;
+    size_t i;
+    rng_seed(0xBA7C4003ull);
+    ck_assert_int_eq(mcd_workspace_alloc(N, &ws), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_alloc(N - 1, &small), MCD_OK);
+    cells_make(&s, N, K, ND);
+    for (i = 0; i < N * ND * K; i++)
+        out[i] = GUARD;
+#define CALL(w, model, n, M, D, c, cb, comp, grad, fb, o) \
+    mcd_flux_batch_dij(w, model, n, K, ND, M, D, c, cb, comp, grad, NULL, fb, o)
+    ck_assert_int_eq(CALL(NULL, 0, N, s.M, s.D, s.c, 0, s.comp, s.grad, 0, out), MCD_EINVAL);
+    ck_assert_int_eq(CALL(small, 0, N, s.M, s.D, s.c, 0, s.comp, s.grad, 0, out), MCD_EBADLEN);
+    ck_assert_int_eq(CALL(ws, 0, 0, s.M, s.D, s.c, 0, s.comp, s.grad, 0, out), MCD_EINVAL);
+    ck_assert_int_eq(CALL(ws, (mcd_model)7, N, s.M, s.D, s.c, 0, s.comp, s.grad, 0, out), MCD_EINVAL);
+    ck_assert_int_eq(CALL(ws, 0, N, s.M, s.D, s.c, (mcd_basis)5, s.comp, s.grad, 0, out), MCD_EINVAL);
+    ck_assert_int_eq(CALL(ws, 0, N, s.M, s.D, s.c, 0, s.comp, s.grad, (mcd_basis)5, out), MCD_EINVAL);
+    ck_assert_int_eq(CALL(ws, 0, N, NULL, s.D, s.c, 1, s.comp, s.grad, 0, out), MCD_EINVAL);
+    ck_assert_int_eq(CALL(ws, 0, N, s.M, NULL, s.c, 0, s.comp, s.grad, 0, out), MCD_EINVAL);
+    ck_assert_int_eq(CALL(ws, 0, N, s.M, s.D, NULL, 0, s.comp, s.grad, 0, out), MCD_EINVAL);
+    ck_assert_int_eq(CALL(ws, 0, N, s.M, s.D, s.c, 0, NULL, s.grad, 0, out), MCD_EINVAL);
+    ck_assert_int_eq(CALL(ws, 0, N, s.M, s.D, s.c, 0, s.comp, NULL, 0, out), MCD_EINVAL);
+    ck_assert_int_eq(CALL(ws, 0, N, s.M, s.D, s.c, 0, s.comp, s.grad, 0, NULL), MCD_EINVAL);
+    s.M[2] = -1.0;
+    ck_assert_int_eq(CALL(ws, 0, N, s.M, s.D, s.c, 1, s.comp, s.grad, 0, out), MCD_EDOM);
+    s.M[2] = 0.03;
+    for (i = 0; i < N * ND * K; i++)
+        ck_assert(out[i] == GUARD);
+    ck_assert_int_eq(mcd_workspace_set_iterative(ws, 0, 1e-8), MCD_EINVAL);
+    ck_assert_int_eq(mcd_workspace_set_iterative(ws, 10, -1.0), MCD_EINVAL);
+    ck_assert_int_eq(mcd_workspace_set_iterative(ws, 10, NAN), MCD_EINVAL);
+    ck_assert_int_eq(mcd_workspace_set_iterative(NULL, 10, 1e-8), MCD_EINVAL);
+    ck_assert_int_eq(mcd_workspace_iterative_info(NULL, NULL, NULL), MCD_EINVAL);
+    ck_assert_int_eq(mcd_workspace_set_threads(NULL, 1), MCD_EINVAL);
+
+    /* per-cell errors: status, and the message names the lowest bad cell */
+    {
+        struct { double *p; double v; mcd_status st; } bad[] = {
+            {&s.c[9], NAN, MCD_EINVAL}, {&s.c[9], -1.0, MCD_EDOM},
+            {&s.comp[1 * K + 9], -0.1, MCD_EDOM}, {&s.comp[2 * K + 9], NAN, MCD_EINVAL},
+            {&s.comp[0 * K + 9], 3.0, MCD_EDOM}, {&s.grad[3 * K + 9], INFINITY, MCD_EINVAL},
+            {&s.D[(0 * N + 1) * K + 9], 0.0, MCD_EDOM}, {&s.D[(2 * N + 1) * K + 9], NAN, MCD_EINVAL},
+            {&s.D[(1 * N + 3) * K + 9], 1.1e-5, MCD_EDOM} /* asymmetric */,
+        };
+        for (i = 0; i < sizeof bad / sizeof bad[0]; i++) {
+            double keep = *bad[i].p;
+            *bad[i].p = bad[i].v;
+            ck_assert_int_eq(CALL(ws, (mcd_model)(i % 3), N, s.M, s.D, s.c, 0, s.comp, s.grad, 0, out),
+                             bad[i].st);
+            ck_assert_msg(strncmp(mcd_workspace_last_error(ws), "cell 9:", 7) == 0,
+                          "%s", mcd_workspace_last_error(ws));
+            *bad[i].p = keep;
+        }
+    }
+    /* mixture entry points */
+    ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK);
+    {
+        mcd_mixture *m = make_mix(N, 0);
+        ck_assert_int_eq(mcd_flux_batch(ws, NULL, 0, K, ND, s.T, s.P, 0, s.comp, s.grad, NULL, 0, out), MCD_EINVAL);
+        ck_assert_int_eq(mcd_flux_batch(ws, m, 0, K, ND, NULL, s.P, 0, s.comp, s.grad, NULL, 0, out), MCD_EINVAL);
+        ck_assert_int_eq(mcd_flux_batch_aos(ws, m, 0, K, ND, s.T, NULL, 0, s.comp, s.grad, NULL, 0, out), MCD_EINVAL);
+        ck_assert_int_eq(mcd_flux_batch(small, m, 0, K, ND, s.T, s.P, 0, s.comp, s.grad, NULL, 0, out), MCD_EBADLEN);
+        s.T[4] = -3.0;
+        ck_assert_int_eq(mcd_flux_batch(ws, m, 0, K, ND, s.T, s.P, 0, s.comp, s.grad, NULL, 0, out), MCD_EDOM);
+        ck_assert_str_eq(mcd_workspace_last_error(ws), "cell 4: T: not > 0");
+        s.T[4] = 400.0;
+        s.P[10] = NAN;
+        ck_assert_int_eq(mcd_flux_batch(ws, m, 0, K, ND, s.T, s.P, 0, s.comp, s.grad, NULL, 0, out), MCD_EINVAL);
+        ck_assert_str_eq(mcd_workspace_last_error(ws), "cell 10: P: not finite");
+        s.P[10] = 1e5;
+        ck_assert_int_eq(mcd_flux_batch(ws, m, 0, K, ND, s.T, s.P, 0, s.comp, s.grad, NULL, 0, out), MCD_OK);
+        mcd_mixture_free(m);
+    }
+    mcd_db_free(db);
+    cells_free(&s);
+    mcd_workspace_free(ws);
+    mcd_workspace_free(small);
+#undef CALL
+}
+END_TEST
+
+/* OpenMP builds: 1 and 2 threads give identical bits (blocks are fixed by
+ * cell index); in a serial build both runs are serial and equal. */
+START_TEST(batch_threads_give_identical_results)
+{
+    size_t n = 7, K = 1001, nd = 3, i;
+    cells s;
+    double *o1, *o2;
+    mcd_workspace *ws;
+    rng_seed(0xBA7C4004ull);
+    ck_assert_int_eq(mcd_workspace_alloc(n, &ws), MCD_OK);
+    cells_make(&s, n, K, nd);
+    o1 = xmalloc(n * nd * K * sizeof(double));
+    o2 = xmalloc(n * nd * K * sizeof(double));
+    for (int model = 0; model < 3; model++) {
+        ck_assert_int_eq(mcd_workspace_set_threads(ws, 1), MCD_OK);
+        ck_assert_int_eq(mcd_flux_batch_dij(ws, (mcd_model)model, n, K, nd, s.M, s.D, s.c,
+                                            MCD_BASIS_MOLE, s.comp, s.grad, NULL,
+                                            MCD_BASIS_MASS, o1), MCD_OK);
+        ck_assert_int_eq(mcd_workspace_set_threads(ws, 2), MCD_OK);
+        ck_assert_int_eq(mcd_flux_batch_dij(ws, (mcd_model)model, n, K, nd, s.M, s.D, s.c,
+                                            MCD_BASIS_MOLE, s.comp, s.grad, NULL,
+                                            MCD_BASIS_MASS, o2), MCD_OK);
+        for (i = 0; i < n * nd * K; i++)
+            ck_assert(o1[i] == o2[i]);
+    }
+    free(o1);
+    free(o2);
+    cells_free(&s);
+    mcd_workspace_free(ws);
+}
+END_TEST
+
+int main(void)
+{
+    Suite *s = suite_create("mcd:batch");
+    TCase *tc = tcase_create("batch");
+    SRunner *sr;
+    int failed;
+    tcase_set_timeout(tc, 300);
+    tcase_add_loop_test(tc, batch_dij_matches_single_state_calls, 0, 4);
+    tcase_add_test(tc, batch_mixture_matches_single_state_calls);
+    tcase_add_test(tc, batch_errors_name_the_cell_and_write_nothing_on_argument_errors);
+    tcase_add_test(tc, batch_threads_give_identical_results);
+    suite_add_tcase(s, tc);
+    sr = srunner_create(s);
+    srunner_run_all(sr, CK_ENV);
+    failed = srunner_ntests_failed(sr);
+    srunner_free(sr);
+    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+}
