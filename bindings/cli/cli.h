@@ -22,6 +22,18 @@ enum {
     "Diffusivities here are estimates with the typical errors listed; they " \
     "do not replace validated data, local codes and licensed engineering " \
     "review."
+/* The transfer commands (film, bulbs) add the hazard of sizing equipment. */
+#define CLI_CAUTION_TRANSFER_SHORT \
+    "Note: estimated diffusivities and idealised film/bulb models; do not " \
+    "size absorbers, condensers or other equipment handling hazardous " \
+    "gases on them without validated data, local codes and licensed " \
+    "engineering review."
+#define CLI_CAUTION_TRANSFER_LONG \
+    "Fluxes and compositions here rest on estimated diffusivities with the " \
+    "typical errors listed and on idealised film and two-bulb models; they " \
+    "do not replace validated data, local codes and licensed engineering " \
+    "review, least of all in the design of absorbers, condensers or other " \
+    "equipment handling hazardous gases."
 
 /* ---- messages (main.c) ---- */
 /* "mcdiff <cmd>: bad value for ARG: why" on stderr; returns CLI_USAGE. */
@@ -78,6 +90,21 @@ int cli_parse_diffusivity(const char *text, double *out, char *why,
 /* Viscosity: bare number = Pa s; suffixes "Pa.s", "mPa.s", "cP". */
 int cli_parse_viscosity(const char *text, double *out, char *why,
                         size_t whylen);
+/* Length: bare = m; suffixes "m", "cm", "mm". Must be > 0. */
+int cli_parse_length(const char *text, double *out, char *why,
+                     size_t whylen);
+/* Area: bare = m^2; suffixes "m2", "cm2", "mm2". Must be > 0. */
+int cli_parse_area(const char *text, double *out, char *why, size_t whylen);
+/* Volume: bare = m^3; suffixes "m3", "L", "mL", "cm3". Must be > 0. */
+int cli_parse_volume(const char *text, double *out, char *why,
+                     size_t whylen);
+/* Time: bare = s; suffixes "s", "min", "h". Must be >= 0. */
+int cli_parse_time(const char *text, double *out, char *why, size_t whylen);
+/* Times: a comma-separated list of times, non-decreasing, or
+ * START:STOP:COUNT (COUNT >= 2 equally spaced times, START <= STOP).
+ * *out is malloc'ed (caller frees); *out_n receives the count. */
+int cli_parse_times(const char *text, double **out, size_t *out_n,
+                    char *why, size_t whylen);
 /* Comma-separated plain numbers; *out_n receives the count (<= cap). */
 int cli_parse_list(const char *text, double *out, size_t cap, size_t *out_n,
                    char *why, size_t whylen);
@@ -110,6 +137,25 @@ void cli_json_numbers(cli_json *j, const char *key, const double *v,
                       size_t n);
 /* Finish the document with a newline. */
 void cli_json_finish(cli_json *j);
+
+/* ---- CSV writer (csv.c) ---- */
+/* RFC 4180 fields separated by commas, rows ended by "\n"; a field with a
+ * comma, quote or line break is quoted. Numbers print with %.15g; a number
+ * that is not finite or not known is an empty field. */
+typedef struct cli_csv {
+    FILE *f;
+    int col; /* fields written in the current row */
+} cli_csv;
+
+void cli_csv_init(cli_csv *c, FILE *f);
+void cli_csv_text(cli_csv *c, const char *s);   /* NULL = empty field */
+void cli_csv_number(cli_csv *c, double v);
+void cli_csv_integer(cli_csv *c, long long v);
+/* A header name made of prefix, name and an SI unit: "x1_" + "air" + ""
+ * or "D" + "" + "m^2/s" -> "D_m2_per_s" (unit text "-" adds nothing). */
+void cli_csv_head(cli_csv *c, const char *prefix, const char *name,
+                  const char *unit);
+void cli_csv_end_row(cli_csv *c);
 
 /* ---- aligned tables (table.c) ---- */
 #define CLI_TABLE_MAX_COLS 16
@@ -149,6 +195,10 @@ typedef struct cli_state {
     const char *dependent_name;
     const char *file;               /* --species-file or NULL */
     int json;
+    int csv;
+    const char *comp_opt;           /* option named for a bad composition
+                                       (NULL: -x/--mole-fractions or
+                                       -w/--mass-fractions) */
     /* pairs given on the command line, resolved after the mixture exists */
     size_t n_pairs;
     struct cli_pair {
@@ -169,6 +219,32 @@ typedef struct cli_state {
     unsigned *warn;                 /* n x n */
     unsigned *user_pair;            /* n x n: 1 if given on the command line */
 } cli_state;
+
+/* Option ids shared by every command that builds a mixture (fluxes,
+ * matrix, film, bulbs); a command's own ids stay below 100. */
+enum {
+    CLI_O_SPECIES = 100, CLI_O_T, CLI_O_P, CLI_O_METHOD, CLI_O_PAIR,
+    CLI_O_FILE, CLI_O_JSON, CLI_O_CSV, CLI_O_HELP
+};
+/* Entries for these options in a cli_opt table. */
+#define CLI_MIXTURE_OPTIONS                                                \
+    {"species", 's', 1, CLI_O_SPECIES}, {"temperature", 'T', 1, CLI_O_T},  \
+    {"pressure", 'P', 1, CLI_O_P}, {"method", 'm', 1, CLI_O_METHOD},       \
+    {"pair", 0, 1, CLI_O_PAIR}, {"species-file", 0, 1, CLI_O_FILE},        \
+    {"json", 0, 0, CLI_O_JSON}, {"csv", 0, 0, CLI_O_CSV},                  \
+    {"help", 'h', 0, CLI_O_HELP}
+/* Reset s to its defaults (no species, T and P not given, fsg). */
+void cli_state_defaults(cli_state *s);
+/* Handle one shared option (id >= CLI_O_SPECIES, not CLI_O_HELP).
+ * Returns CLI_OK, CLI_USAGE or CLI_FAIL (message printed). */
+int cli_state_option(cli_state *s, const char *cmd, const cli_args *a,
+                     int id);
+/* After the scan: species, T and P given, not both --json and --csv.
+ * CLI_OK or CLI_USAGE. */
+int cli_state_require(const cli_state *s, const char *cmd);
+/* Species index of NAME in the state's list (after cli_state_setup), or
+ * -1 when it is not there. */
+long cli_state_find(const cli_state *s, const char *name);
 
 /* Parse the state options of `fluxes` (need_grad = 1) or `matrix`.
  * Returns -1 when --help was printed (exit 0), else a CLI_* code. */
@@ -199,6 +275,10 @@ void cli_print_fluxes(const cli_state *s, const double *flux,
                       const unsigned *flags, FILE *f);
 void cli_json_fluxes(const cli_state *s, const double *flux,
                      const unsigned *flags, cli_json *j);
+/* The flux table as CSV: species, fraction, gradients [1/m], fluxes
+ * (SI), and flags (when flags != NULL, space-separated names). */
+void cli_csv_fluxes(const cli_state *s, const double *flux,
+                    const unsigned *flags, FILE *f);
 /* Per direction: sum over species and that sum relative to the largest
  * |flux| (0 when all fluxes vanish). */
 void cli_zero_sum(size_t n, size_t n_dim, const double *flux, double *sum,
@@ -211,6 +291,8 @@ int cli_cmd_binary(int argc, char **argv);
 int cli_cmd_fluxes(int argc, char **argv);
 int cli_cmd_matrix(int argc, char **argv);
 int cli_cmd_demo(int argc, char **argv);
+int cli_cmd_film(int argc, char **argv);
+int cli_cmd_bulbs(int argc, char **argv);
 
 /* Open the built-in database, then load extra_file if not NULL.
  * Returns CLI_OK, CLI_USAGE (bad file) or CLI_FAIL. */

@@ -7,7 +7,7 @@
 static void help(FILE *f)
 {
     fputs(
-        "usage: mcdiff binary A B -T TEMP -P PRES [--method NAME] [--json]\n"
+        "usage: mcdiff binary A B -T TEMP -P PRES [--method NAME] [--json|--csv]\n"
         "\n"
         "Binary diffusivity of species A and B (names or formulas from\n"
         "'mcdiff species') estimated by every method that applies, or by the\n"
@@ -28,6 +28,9 @@ static void help(FILE *f)
         "                          wilke-chang; Pa.s, mPa.s or cP suffix,\n"
         "                          bare = Pa.s\n"
         "  --json                  one JSON object; D in m^2/s under \"D\"\n"
+        "  --csv                   one row per method, SI: header\n"
+        "                          species_a,species_b,T_K,P_Pa,method,status,\n"
+        "                          D_m2_per_s,typical_error,recommended,warnings\n"
         "  --species-file FILE     also load species from FILE\n"
         "  -h, --help              this text\n"
         "\n"
@@ -57,12 +60,13 @@ static void json_warnings(cli_json *j, unsigned bits)
 
 int cli_cmd_binary(int argc, char **argv)
 {
-    enum { O_T = 1, O_P, O_METHOD, O_VISC, O_JSON, O_HELP, O_FILE };
+    enum { O_T = 1, O_P, O_METHOD, O_VISC, O_JSON, O_HELP, O_FILE, O_CSV };
     static const cli_opt opts[] = {{"temperature", 'T', 1, O_T},
                                    {"pressure", 'P', 1, O_P},
                                    {"method", 'm', 1, O_METHOD},
                                    {"viscosity", 0, 1, O_VISC},
                                    {"json", 0, 0, O_JSON},
+                                   {"csv", 0, 0, O_CSV},
                                    {"help", 'h', 0, O_HELP},
                                    {"species-file", 0, 1, O_FILE},
                                    {NULL, 0, 0, 0}};
@@ -70,7 +74,7 @@ int cli_cmd_binary(int argc, char **argv)
         MCD_METHOD_FSG, MCD_METHOD_CHAPMAN_ENSKOG, MCD_METHOD_WILKE_LEE};
     const char *cmd = "binary";
     cli_args a;
-    int id, json = 0, rc, have_method = 0, best = -1, liquid;
+    int id, json = 0, csv = 0, rc, have_method = 0, best = -1, liquid;
     const char *names[2] = {NULL, NULL}, *file = NULL;
     size_t npos = 0, idx[2], k, nres = 0;
     double T = NAN, P = NAN, mu = NAN;
@@ -89,6 +93,9 @@ int cli_cmd_binary(int argc, char **argv)
             return CLI_OK;
         case O_JSON:
             json = 1;
+            break;
+        case O_CSV:
+            csv = 1;
             break;
         case O_FILE:
             file = a.value;
@@ -132,6 +139,9 @@ int cli_cmd_binary(int argc, char **argv)
     if (npos < 2)
         return cli_usage_error(cmd, npos ? "B" : "A",
                                "missing species name (see --help)");
+    if (json && csv)
+        return cli_usage_error(cmd, "--csv",
+                               "give either --json or --csv, not both");
     liquid = !isnan(mu) || (have_method && method == MCD_METHOD_WILKE_CHANG);
     if (isnan(T))
         return cli_usage_error(cmd, "-T/--temperature", "is required");
@@ -190,7 +200,42 @@ int cli_cmd_binary(int argc, char **argv)
         return rc;
     }
 
-    if (json) {
+    if (csv) {
+        cli_csv c;
+        cli_csv_init(&c, stdout);
+        cli_csv_text(&c, "species_a");
+        cli_csv_text(&c, "species_b");
+        cli_csv_head(&c, "T", "", "K");
+        cli_csv_head(&c, "P", "", "Pa");
+        if (!isnan(mu))
+            cli_csv_head(&c, "viscosity", "", "Pa s");
+        cli_csv_text(&c, "method");
+        cli_csv_text(&c, "status");
+        cli_csv_head(&c, "D", "", "m^2/s");
+        cli_csv_text(&c, "typical_error");
+        cli_csv_text(&c, "recommended");
+        cli_csv_text(&c, "warnings");
+        cli_csv_end_row(&c);
+        for (k = 0; k < nres; k++) {
+            char w[512] = "";
+            cli_csv_text(&c, mcd_db_name(db, idx[0]));
+            cli_csv_text(&c, mcd_db_name(db, idx[1]));
+            cli_csv_number(&c, T);
+            cli_csv_number(&c, liquid ? (double)NAN : P);
+            if (!isnan(mu))
+                cli_csv_number(&c, mu);
+            cli_csv_text(&c, mcd_method_name(res[k].m));
+            cli_csv_text(&c, mcd_status_string(res[k].st));
+            cli_csv_number(&c, res[k].D);
+            cli_csv_number(&c, res[k].rel_err);
+            cli_csv_integer(&c, (int)k == best);
+            if (res[k].st == MCD_OK)
+                cli_warn_text(res[k].warn, w, sizeof w);
+            cli_csv_text(&c, w);
+            cli_csv_end_row(&c);
+        }
+        fprintf(stderr, "%s\n", CLI_CAUTION_SHORT);
+    } else if (json) {
         cli_json j;
         cli_json_init(&j, stdout);
         cli_json_object_begin(&j, NULL);

@@ -43,6 +43,10 @@ static void help(FILE *f)
         "                            (default: the most abundant)\n"
         "  --json                    one JSON object (SI): fluxes under\n"
         "                            \"fluxes\", Fick matrix under \"fick_matrix\"\n"
+        "  --csv                     the flux table as CSV: header row\n"
+        "                            species,x,dx_dz1_per_m,...,\n"
+        "                            J_1_mol_per_m2_s,...,flags; one row per\n"
+        "                            species (SI; the caution goes to stderr)\n"
         "  --species-file FILE       also load species from FILE\n"
         "  -h, --help                this text\n"
         "\n"
@@ -101,7 +105,10 @@ int cli_cmd_fluxes(int argc, char **argv)
     if (rc != CLI_OK)
         goto done;
 
-    if (s.json) {
+    if (s.csv) {
+        cli_csv_fluxes(&s, flux, flags, stdout);
+        fprintf(stderr, "%s\n", CLI_CAUTION_SHORT);
+    } else if (s.json) {
         cli_json j;
         size_t i;
         cli_json_init(&j, stdout);

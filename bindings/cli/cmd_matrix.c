@@ -33,6 +33,10 @@ static void help(FILE *f)
         "                            one -g per direction (1 to 3)\n"
         "  --json                    one JSON object (SI): \"fick_matrix\",\n"
         "                            \"binary_D\", \"eigenvalues\", \"fluxes\"\n"
+        "  --csv                     the matrices as CSV rows\n"
+        "                            quantity,row,column,value_m2_per_s with\n"
+        "                            quantity binary, fick or eigenvalue (not\n"
+        "                            with -g: use 'mcdiff fluxes --csv')\n"
         "  --species-file FILE       also load species from FILE\n"
         "  -h, --help                this text\n"
         "\n"
@@ -40,6 +44,55 @@ static void help(FILE *f)
         "  mcdiff matrix -s acetone,methanol,air -x 0.3,0.2,0.5 -T 40C "
         "-P 1atm\n",
         f);
+}
+
+/* Long CSV: every value is a diffusivity [m^2/s]. */
+static void print_csv(const cli_state *s, const double *D, size_t dep,
+                      const double *re, const double *im)
+{
+    size_t n = s->n, m = n - 1, i, k, r, c;
+    cli_csv o;
+    cli_csv_init(&o, stdout);
+    cli_csv_text(&o, "quantity");
+    cli_csv_text(&o, "row");
+    cli_csv_text(&o, "column");
+    cli_csv_head(&o, "value", "", "m^2/s");
+    cli_csv_end_row(&o);
+    for (i = 0; i < n; i++)
+        for (k = i + 1; k < n; k++) {
+            cli_csv_text(&o, "binary");
+            cli_csv_text(&o, mcd_mixture_name(s->mix, i));
+            cli_csv_text(&o, mcd_mixture_name(s->mix, k));
+            cli_csv_number(&o, s->Dij[i * n + k]);
+            cli_csv_end_row(&o);
+        }
+    for (i = 0, r = 0; i < n; i++) {
+        if (i == dep)
+            continue;
+        for (k = 0, c = 0; k < n; k++) {
+            if (k == dep)
+                continue;
+            cli_csv_text(&o, "fick");
+            cli_csv_text(&o, mcd_mixture_name(s->mix, i));
+            cli_csv_text(&o, mcd_mixture_name(s->mix, k));
+            cli_csv_number(&o, D[r * m + c]);
+            cli_csv_end_row(&o);
+            c++;
+        }
+        r++;
+    }
+    for (k = 0; k < m; k++) {
+        cli_csv_text(&o, "eigenvalue");
+        cli_csv_integer(&o, (long long)k + 1);
+        cli_csv_text(&o, "real");
+        cli_csv_number(&o, re[k]);
+        cli_csv_end_row(&o);
+        cli_csv_text(&o, "eigenvalue");
+        cli_csv_integer(&o, (long long)k + 1);
+        cli_csv_text(&o, "imaginary");
+        cli_csv_number(&o, im[k]);
+        cli_csv_end_row(&o);
+    }
 }
 
 int cli_cmd_matrix(int argc, char **argv)
@@ -55,6 +108,12 @@ int cli_cmd_matrix(int argc, char **argv)
     if (rc != CLI_OK) {
         cli_state_free(&s);
         return rc < 0 ? CLI_OK : rc;
+    }
+    if (s.csv && s.n_dim > 0) {
+        rc = cli_usage_error(cmd, "--csv",
+                             "holds the matrices only; for fluxes with -g "
+                             "use 'mcdiff fluxes --csv'");
+        goto done;
     }
     rc = cli_state_setup(&s, cmd);
     if (rc != CLI_OK)
@@ -103,7 +162,10 @@ int cli_cmd_matrix(int argc, char **argv)
         }
     }
 
-    if (s.json) {
+    if (s.csv) {
+        print_csv(&s, D, dep, re, im);
+        fprintf(stderr, "%s\n", CLI_CAUTION_SHORT);
+    } else if (s.json) {
         cli_json j;
         cli_json_init(&j, stdout);
         cli_json_object_begin(&j, NULL);

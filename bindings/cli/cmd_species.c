@@ -25,7 +25,7 @@ static const struct {
 static void help(FILE *f)
 {
     fputs(
-        "usage: mcdiff species [NAME] [--json] [--species-file FILE]\n"
+        "usage: mcdiff species [NAME] [--json | --csv] [--species-file FILE]\n"
         "\n"
         "Without NAME: the built-in species table, one line per species,\n"
         "in the units given under each heading (M g/mol, sigma Å, eps/k K,\n"
@@ -35,13 +35,17 @@ static void help(FILE *f)
         "\n"
         "options:\n"
         "  --json               one JSON object, SI values, key \"species\"\n"
+        "  --csv                one row per species, SI values, header\n"
+        "                       name,formula,M_kg_per_mol,V_diff,sigma_m,...\n"
+        "                       (empty field = not known)\n"
         "  --species-file FILE  also load species from FILE (mcdiff species\n"
         "                       format; values in SI units)\n"
         "  -h, --help           this text\n"
         "\n"
         "examples:\n"
         "  mcdiff species\n"
-        "  mcdiff species CO2 --json\n",
+        "  mcdiff species CO2 --json\n"
+        "  mcdiff species --csv > species.csv\n",
         f);
 }
 
@@ -79,7 +83,33 @@ static void json_units(cli_json *j)
     cli_json_object_end(j);
 }
 
-static int list_all(const mcd_db *db, int json)
+/* CSV: header row with SI units in the names, then one row per species. */
+static void csv_header(cli_csv *c)
+{
+    int p;
+    cli_csv_text(c, "name");
+    cli_csv_text(c, "formula");
+    for (p = 0; p < MCD_PARAM_COUNT; p++)
+        cli_csv_head(c, NULL, mcd_param_name((mcd_param)p),
+                     mcd_param_unit((mcd_param)p));
+    cli_csv_end_row(c);
+}
+
+static void csv_species(cli_csv *c, const mcd_db *db, size_t i)
+{
+    int p;
+    cli_csv_text(c, mcd_db_name(db, i));
+    cli_csv_text(c, mcd_db_formula(db, i));
+    for (p = 0; p < MCD_PARAM_COUNT; p++) {
+        double v;
+        cli_csv_number(c, mcd_db_param(db, i, (mcd_param)p, &v) == MCD_OK
+                              ? v
+                              : (double)NAN);
+    }
+    cli_csv_end_row(c);
+}
+
+static int list_all(const mcd_db *db, int json, int csv)
 {
     size_t i, n = mcd_db_count(db), k;
     enum { NC = 2 + sizeof shown / sizeof shown[0] };
@@ -87,6 +117,14 @@ static int list_all(const mcd_db *db, int json)
     const char *cells[NC];
     char buf[NC][48];
 
+    if (csv) {
+        cli_csv c;
+        cli_csv_init(&c, stdout);
+        csv_header(&c);
+        for (i = 0; i < n; i++)
+            csv_species(&c, db, i);
+        return CLI_OK;
+    }
     if (json) {
         cli_json j;
         cli_json_init(&j, stdout);
@@ -140,7 +178,7 @@ static int list_all(const mcd_db *db, int json)
     return CLI_OK;
 }
 
-static int show_one(const mcd_db *db, const char *name, int json)
+static int show_one(const mcd_db *db, const char *name, int json, int csv)
 {
     size_t i;
     int p;
@@ -150,6 +188,13 @@ static int show_one(const mcd_db *db, const char *name, int json)
                                "no such species (see 'mcdiff species')");
     if (st != MCD_OK)
         return cli_fail("species", "looking up the species", st, name);
+    if (csv) {
+        cli_csv c;
+        cli_csv_init(&c, stdout);
+        csv_header(&c);
+        csv_species(&c, db, i);
+        return CLI_OK;
+    }
     if (json) {
         cli_json j;
         cli_json_init(&j, stdout);
@@ -196,13 +241,14 @@ static int show_one(const mcd_db *db, const char *name, int json)
 
 int cli_cmd_species(int argc, char **argv)
 {
-    enum { O_JSON = 1, O_HELP, O_FILE };
+    enum { O_JSON = 1, O_HELP, O_FILE, O_CSV };
     static const cli_opt opts[] = {{"json", 0, 0, O_JSON},
+                                   {"csv", 0, 0, O_CSV},
                                    {"help", 'h', 0, O_HELP},
                                    {"species-file", 0, 1, O_FILE},
                                    {NULL, 0, 0, 0}};
     cli_args a;
-    int id, json = 0, rc;
+    int id, json = 0, csv = 0, rc;
     const char *name = NULL, *file = NULL;
     mcd_db *db = NULL;
 
@@ -217,6 +263,9 @@ int cli_cmd_species(int argc, char **argv)
         case O_JSON:
             json = 1;
             break;
+        case O_CSV:
+            csv = 1;
+            break;
         case O_FILE:
             file = a.value;
             break;
@@ -230,10 +279,13 @@ int cli_cmd_species(int argc, char **argv)
             return CLI_USAGE;
         }
     }
+    if (json && csv)
+        return cli_usage_error("species", "--csv",
+                               "give either --json or --csv, not both");
     rc = cli_open_db("species", file, &db);
     if (rc != CLI_OK)
         return rc;
-    rc = name ? show_one(db, name, json) : list_all(db, json);
+    rc = name ? show_one(db, name, json, csv) : list_all(db, json, csv);
     mcd_db_free(db);
     return rc;
 }

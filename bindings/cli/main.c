@@ -76,7 +76,8 @@ int cli_open_db(const char *cmd, const char *extra_file, mcd_db **out_db)
 static void main_help(FILE *f)
 {
     fputs(
-        "mcdiff - binary and multicomponent gas diffusion at one state\n"
+        "mcdiff - binary and multicomponent gas diffusion: diffusivities, fluxes,\n"
+        "Fick matrices, films and two-bulb cells\n"
         "\n"
         "usage: mcdiff [--version | --help] COMMAND [OPTIONS]\n"
         "\n"
@@ -85,17 +86,22 @@ static void main_help(FILE *f)
         "  binary A B       binary diffusivity of a pair by each estimation method\n"
         "  fluxes           diffusion fluxes of N species for given gradients\n"
         "  matrix           binary and generalized Fick matrices of a mixture\n"
+        "  film             steady fluxes through a film or Stefan tube\n"
+        "  bulbs            composition histories of a two-bulb diffusion cell\n"
         "  demo             a short worked scenario with invented numbers\n"
         "\n"
         "Run 'mcdiff COMMAND --help' for the options of a command.\n"
         "Quantities accept units: temperature K or C (bare = K), pressure\n"
-        "Pa, kPa, MPa, bar or atm (bare = Pa). Results are SI unless a column\n"
-        "heading says otherwise. --json gives machine-readable output.\n"
+        "Pa, kPa, MPa, bar or atm (bare = Pa); lengths m, cm, mm; volumes\n"
+        "m3, L, mL, cm3; times s, min, h. Results are SI unless a column\n"
+        "heading says otherwise. --json and --csv give machine-readable\n"
+        "output (CSV headers carry SI units, e.g. D_m2_per_s).\n"
         "\n"
         "example:\n"
         "  mcdiff binary carbon-dioxide nitrogen -T 25C -P 1atm\n"
         "\n"
-        "exit status: 0 success, 1 computation failed, 2 bad command line.\n",
+        "exit status: 0 success, 1 computation failed, 2 bad command line.\n"
+        "See also: man mcdiff\n",
         f);
 }
 
@@ -128,7 +134,8 @@ typedef struct command {
 static const command commands[] = {
     {"species", cli_cmd_species}, {"binary", cli_cmd_binary},
     {"fluxes", cli_cmd_fluxes},   {"matrix", cli_cmd_matrix},
-    {"demo", cli_cmd_demo},       {NULL, NULL}};
+    {"demo", cli_cmd_demo},       {"film", cli_cmd_film},
+    {"bulbs", cli_cmd_bulbs},     {NULL, NULL}};
 
 int main(int argc, char **argv)
 {
@@ -160,5 +167,5 @@ int main(int argc, char **argv)
                                "(try --help)");
     return cli_usage_error(NULL, argv[1],
                            "unknown command (species, binary, fluxes, "
-                           "matrix, demo)");
+                           "matrix, film, bulbs, demo)");
 }

@@ -217,3 +217,42 @@ void cli_json_fluxes(const cli_state *s, const double *flux,
         cli_json_array_end(j);
     }
 }
+
+void cli_csv_fluxes(const cli_state *s, const double *flux,
+                    const unsigned *flags, FILE *f)
+{
+    size_t n = s->n, nd = s->n_dim, i, d;
+    cli_csv c;
+    char name[32];
+    const char *fr = s->comp_basis == MCD_BASIS_MOLE ? "x" : "w";
+    const char *sym = s->out_basis == MCD_BASIS_MOLE ? "J" : "j";
+
+    cli_csv_init(&c, f);
+    cli_csv_text(&c, "species");
+    cli_csv_text(&c, fr);
+    for (d = 0; d < nd; d++) {
+        snprintf(name, sizeof name, "d%s_dz%zu", fr, d + 1);
+        cli_csv_head(&c, NULL, name, "1/m");
+    }
+    for (d = 0; d < nd; d++) {
+        snprintf(name, sizeof name, "%s_%zu", sym, d + 1);
+        cli_csv_head(&c, NULL, name, cli_flux_unit(s->out_basis));
+    }
+    if (flags)
+        cli_csv_text(&c, "flags");
+    cli_csv_end_row(&c);
+    for (i = 0; i < n; i++) {
+        cli_csv_text(&c, mcd_mixture_name(s->mix, i));
+        cli_csv_number(&c, s->comp[i]);
+        for (d = 0; d < nd; d++)
+            cli_csv_number(&c, s->grad[i * nd + d]);
+        for (d = 0; d < nd; d++)
+            cli_csv_number(&c, flux[i * nd + d]);
+        if (flags) {
+            char buf[64];
+            flag_text(flags[i], buf, sizeof buf);
+            cli_csv_text(&c, strcmp(buf, "-") == 0 ? "" : buf);
+        }
+        cli_csv_end_row(&c);
+    }
+}

@@ -9,26 +9,18 @@
 #include "cli.h"
 
 enum {
-    O_SPECIES = 1, O_X, O_W, O_GRAD, O_DLNP, O_T, O_P, O_MODEL, O_BASIS,
-    O_METHOD, O_PAIR, O_DEP, O_JSON, O_HELP, O_FILE
+    O_X = 1, O_W, O_GRAD, O_DLNP, O_MODEL, O_BASIS, O_DEP
 };
 
 static const cli_opt state_opts[] = {
-    {"species", 's', 1, O_SPECIES},
+    CLI_MIXTURE_OPTIONS,
     {"mole-fractions", 'x', 1, O_X},
     {"mass-fractions", 'w', 1, O_W},
     {"gradient", 'g', 1, O_GRAD},
     {"grad-lnp", 0, 1, O_DLNP},
-    {"temperature", 'T', 1, O_T},
-    {"pressure", 'P', 1, O_P},
     {"model", 0, 1, O_MODEL},
     {"basis", 0, 1, O_BASIS},
-    {"method", 'm', 1, O_METHOD},
-    {"pair", 0, 1, O_PAIR},
     {"dependent", 0, 1, O_DEP},
-    {"json", 0, 0, O_JSON},
-    {"help", 'h', 0, O_HELP},
-    {"species-file", 0, 1, O_FILE},
     {NULL, 0, 0, 0}};
 
 /* Parse "A:B=D" or "A:B=D@T,P" into p (text is modified: kept by the
@@ -66,11 +58,112 @@ static int parse_pair(char *text, struct cli_pair *p, char *why,
     return cli_parse_diffusivity(eq + 1, &p->D, why, whylen);
 }
 
+void cli_state_defaults(cli_state *s)
+{
+    memset(s, 0, sizeof *s);
+    s->T = NAN;
+    s->P = NAN;
+    s->model = MCD_MODEL_MAXWELL_STEFAN;
+    s->method = MCD_METHOD_FSG;
+    s->dependent = MCD_DEPENDENT_AUTO;
+}
+
+int cli_state_option(cli_state *s, const char *cmd, const cli_args *a,
+                     int id)
+{
+    char why[200];
+    switch (id) {
+    case CLI_O_JSON:
+        s->json = 1;
+        return CLI_OK;
+    case CLI_O_CSV:
+        s->csv = 1;
+        return CLI_OK;
+    case CLI_O_FILE:
+        s->file = a->value;
+        return CLI_OK;
+    case CLI_O_SPECIES: {
+        int n;
+        size_t i, j;
+        if (s->names_buf)
+            return cli_usage_error(cmd, a->spelled, "given twice");
+        s->names_buf = malloc(strlen(a->value) + 1);
+        if (!s->names_buf)
+            return cli_fail(cmd, "reading arguments", MCD_ENOMEM, NULL);
+        strcpy(s->names_buf, a->value);
+        n = cli_split_words(s->names_buf, s->names, MCD_MAX_SPECIES);
+        if (n < 0)
+            return cli_usage_error(cmd, a->spelled,
+                                   "expected a comma-separated list of "
+                                   "species names without empty items");
+        if (n < 2)
+            return cli_usage_error(cmd, a->spelled,
+                                   "give at least two species");
+        s->n = (size_t)n;
+        for (i = 0; i < s->n; i++)
+            for (j = 0; j < i; j++)
+                if (strcmp(s->names[i], s->names[j]) == 0)
+                    return cli_usage_error(cmd, a->spelled,
+                                           "species '%s' listed twice",
+                                           s->names[i]);
+        return CLI_OK;
+    }
+    case CLI_O_T:
+        if (cli_parse_temperature(a->value, &s->T, why, sizeof why) != 0)
+            return cli_usage_error(cmd, a->spelled, "%s", why);
+        return CLI_OK;
+    case CLI_O_P:
+        if (cli_parse_pressure(a->value, &s->P, why, sizeof why) != 0)
+            return cli_usage_error(cmd, a->spelled, "%s", why);
+        return CLI_OK;
+    case CLI_O_METHOD:
+        if (mcd_method_from_name(a->value, &s->method) != MCD_OK ||
+            s->method == MCD_METHOD_USER ||
+            s->method == MCD_METHOD_WILKE_CHANG)
+            return cli_usage_error(cmd, a->spelled,
+                                   "'%s' is not a gas estimation method "
+                                   "(fsg, chapman-enskog, wilke-lee)",
+                                   a->value);
+        return CLI_OK;
+    case CLI_O_PAIR: {
+        char *copy;
+        if (s->n_pairs >= sizeof s->pairs / sizeof s->pairs[0])
+            return cli_usage_error(cmd, a->spelled, "too many pairs");
+        s->pairs[s->n_pairs].text = a->value; /* original text for messages */
+        copy = malloc(strlen(a->value) + 1);
+        if (!copy)
+            return cli_fail(cmd, "reading arguments", MCD_ENOMEM, NULL);
+        strcpy(copy, a->value);
+        s->pair_bufs[s->n_pairs++] = copy; /* freed by cli_state_free */
+        if (parse_pair(copy, &s->pairs[s->n_pairs - 1], why, sizeof why) !=
+            0)
+            return cli_usage_error(cmd, "--pair", "'%s': %s", a->value, why);
+        return CLI_OK;
+    }
+    default:
+        return CLI_USAGE;
+    }
+}
+
+int cli_state_require(const cli_state *s, const char *cmd)
+{
+    if (s->json && s->csv)
+        return cli_usage_error(cmd, "--csv",
+                               "give either --json or --csv, not both");
+    if (s->n == 0)
+        return cli_usage_error(cmd, "-s/--species", "is required");
+    if (isnan(s->T))
+        return cli_usage_error(cmd, "-T/--temperature", "is required");
+    if (isnan(s->P))
+        return cli_usage_error(cmd, "-P/--pressure", "is required");
+    return CLI_OK;
+}
+
 int cli_state_parse(cli_state *s, const char *cmd, int argc, char **argv,
                     int need_grad, void (*help)(FILE *))
 {
     cli_args a;
-    int id, have_x = 0, have_w = 0, have_basis = 0, have_model = 0;
+    int id, rc, have_x = 0, have_w = 0, have_basis = 0;
     size_t ncomp = 0, k;
     double rows[MCD_MAX_DIM][MCD_MAX_SPECIES];
     size_t nrow[MCD_MAX_DIM] = {0};
@@ -78,53 +171,21 @@ int cli_state_parse(cli_state *s, const char *cmd, int argc, char **argv,
     double comp_tmp[MCD_MAX_SPECIES];
     size_t ndlnp = 0;
 
-    memset(s, 0, sizeof *s);
-    s->T = NAN;
-    s->P = NAN;
-    s->model = MCD_MODEL_MAXWELL_STEFAN;
-    s->method = MCD_METHOD_FSG;
-    s->dependent = MCD_DEPENDENT_AUTO;
-
+    cli_state_defaults(s);
     cli_args_init(&a, cmd, argc, argv, state_opts);
     while ((id = cli_args_next(&a)) != CLI_ARG_END) {
+        if (id >= CLI_O_SPECIES && id != CLI_O_HELP) {
+            rc = cli_state_option(s, cmd, &a, id);
+            if (rc != CLI_OK)
+                return rc;
+            continue;
+        }
         switch (id) {
         case CLI_ARG_ERROR:
             return CLI_USAGE;
-        case O_HELP:
+        case CLI_O_HELP:
             help(stdout);
             return -1;
-        case O_JSON:
-            s->json = 1;
-            break;
-        case O_FILE:
-            s->file = a.value;
-            break;
-        case O_SPECIES: {
-            int n;
-            size_t i, j;
-            if (s->names_buf)
-                return cli_usage_error(cmd, a.spelled, "given twice");
-            s->names_buf = malloc(strlen(a.value) + 1);
-            if (!s->names_buf)
-                return cli_fail(cmd, "reading arguments", MCD_ENOMEM, NULL);
-            strcpy(s->names_buf, a.value);
-            n = cli_split_words(s->names_buf, s->names, MCD_MAX_SPECIES);
-            if (n < 0)
-                return cli_usage_error(cmd, a.spelled,
-                                       "expected a comma-separated list of "
-                                       "species names without empty items");
-            if (n < 2)
-                return cli_usage_error(cmd, a.spelled,
-                                       "give at least two species");
-            s->n = (size_t)n;
-            for (i = 0; i < s->n; i++)
-                for (j = 0; j < i; j++)
-                    if (strcmp(s->names[i], s->names[j]) == 0)
-                        return cli_usage_error(cmd, a.spelled,
-                                               "species '%s' listed twice",
-                                               s->names[i]);
-            break;
-        }
         case O_X:
         case O_W:
             if (have_x || have_w)
@@ -158,14 +219,6 @@ int cli_state_parse(cli_state *s, const char *cmd, int argc, char **argv,
                 return cli_usage_error(cmd, a.spelled, "%s", why);
             s->have_grad_lnP = 1;
             break;
-        case O_T:
-            if (cli_parse_temperature(a.value, &s->T, why, sizeof why) != 0)
-                return cli_usage_error(cmd, a.spelled, "%s", why);
-            break;
-        case O_P:
-            if (cli_parse_pressure(a.value, &s->P, why, sizeof why) != 0)
-                return cli_usage_error(cmd, a.spelled, "%s", why);
-            break;
         case O_MODEL:
             if (need_grad == 0)
                 return cli_usage_error(cmd, a.spelled,
@@ -180,7 +233,6 @@ int cli_state_parse(cli_state *s, const char *cmd, int argc, char **argv,
                                        "'%s' is not a model (exact or "
                                        "mixture-averaged)",
                                        a.value);
-            have_model = 1;
             break;
         case O_BASIS:
             if (strcmp(a.value, "mole") == 0)
@@ -193,34 +245,6 @@ int cli_state_parse(cli_state *s, const char *cmd, int argc, char **argv,
                                        a.value);
             have_basis = 1;
             break;
-        case O_METHOD:
-            if (mcd_method_from_name(a.value, &s->method) != MCD_OK ||
-                s->method == MCD_METHOD_USER ||
-                s->method == MCD_METHOD_WILKE_CHANG)
-                return cli_usage_error(cmd, a.spelled,
-                                       "'%s' is not a gas estimation method "
-                                       "(fsg, chapman-enskog, wilke-lee)",
-                                       a.value);
-            break;
-        case O_PAIR:
-            if (s->n_pairs >= sizeof s->pairs / sizeof s->pairs[0])
-                return cli_usage_error(cmd, a.spelled, "too many pairs");
-            s->pairs[s->n_pairs].text = a.value;
-            {
-                /* keep the original text for messages */
-                char *copy = malloc(strlen(a.value) + 1);
-                if (!copy)
-                    return cli_fail(cmd, "reading arguments", MCD_ENOMEM,
-                                    NULL);
-                strcpy(copy, a.value);
-                s->pair_bufs[s->n_pairs] = copy;
-                if (parse_pair(copy, &s->pairs[s->n_pairs], why,
-                               sizeof why) != 0)
-                    return cli_usage_error(cmd, "--pair", "'%s': %s",
-                                           a.value, why);
-            }
-            s->n_pairs++;
-            break;
         case O_DEP:
             s->dependent_name = a.value;
             break;
@@ -232,10 +256,8 @@ int cli_state_parse(cli_state *s, const char *cmd, int argc, char **argv,
             return CLI_USAGE;
         }
     }
-    (void)have_model;
-
-    if (s->n == 0)
-        return cli_usage_error(cmd, "-s/--species", "is required");
+    if ((rc = cli_state_require(s, cmd)) != CLI_OK)
+        return rc;
     if (!have_x && !have_w)
         return cli_usage_error(cmd, "-x/--mole-fractions",
                                "a composition is required (or "
@@ -245,10 +267,6 @@ int cli_state_parse(cli_state *s, const char *cmd, int argc, char **argv,
                                            : "-w/--mass-fractions",
                                "has %zu values for %zu species", ncomp,
                                s->n);
-    if (isnan(s->T))
-        return cli_usage_error(cmd, "-T/--temperature", "is required");
-    if (isnan(s->P))
-        return cli_usage_error(cmd, "-P/--pressure", "is required");
     if (need_grad && s->n_dim == 0)
         return cli_usage_error(cmd, "-g/--gradient",
                                "is required (one per direction)");
@@ -290,13 +308,22 @@ static long list_position(const cli_state *s, size_t dbi)
     return -1;
 }
 
+long cli_state_find(const cli_state *s, const char *name)
+{
+    size_t id;
+    if (!s->db || mcd_db_find(s->db, name, &id) != MCD_OK)
+        return -1;
+    return list_position(s, id);
+}
+
 int cli_state_setup(cli_state *s, const char *cmd)
 {
     size_t i, n = s->n, k;
     char err[256] = "";
     mcd_status st;
     int rc;
-    const char *comp_opt = s->comp_basis == MCD_BASIS_MOLE
+    const char *comp_opt = s->comp_opt ? s->comp_opt
+                           : s->comp_basis == MCD_BASIS_MOLE
                                ? "-x/--mole-fractions"
                                : "-w/--mass-fractions";
 

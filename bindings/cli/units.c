@@ -134,7 +134,13 @@ static int parse_quantity(const char *text, const unit_def *units,
                      unit, allowed);
             return -1;
         }
-        *out = v * u->scale + u->offset;
+        /* Sub-units divide by an exact power of ten (23.8 cm -> 23.8/100,
+         * the double nearest 0.238) rather than multiply by an inexact
+         * 0.01. */
+        if (u->scale < 1.0)
+            *out = v / floor(1.0 / u->scale + 0.5) + u->offset;
+        else
+            *out = v * u->scale + u->offset;
     }
     if (!isfinite(*out)) {
         snprintf(why, whylen, "'%s' is out of the finite range", text);
@@ -213,6 +219,181 @@ int cli_parse_viscosity(const char *text, double *out, char *why,
         return -1;
     }
     *out = mu;
+    return 0;
+}
+
+/* A positive quantity (length, area, volume) in one of the units. */
+static int parse_positive(const char *text, const unit_def *units,
+                          const char *quantity, const char *allowed,
+                          double *out, char *why, size_t whylen)
+{
+    double v;
+    if (parse_quantity(text, units, quantity, allowed, &v, why, whylen) != 0)
+        return -1;
+    if (!(v > 0.0)) {
+        snprintf(why, whylen, "'%s' is not a positive %s", text, quantity);
+        return -1;
+    }
+    *out = v;
+    return 0;
+}
+
+int cli_parse_length(const char *text, double *out, char *why,
+                     size_t whylen)
+{
+    static const unit_def units[] = {
+        {"m", 1.0, 0.0}, {"cm", 1e-2, 0.0}, {"mm", 1e-3, 0.0}, {NULL, 0, 0}};
+    return parse_positive(text, units, "length", "m, cm or mm; bare = m",
+                          out, why, whylen);
+}
+
+int cli_parse_area(const char *text, double *out, char *why, size_t whylen)
+{
+    static const unit_def units[] = {{"m2", 1.0, 0.0},
+                                     {"cm2", 1e-4, 0.0},
+                                     {"mm2", 1e-6, 0.0},
+                                     {NULL, 0, 0}};
+    return parse_positive(text, units, "area", "m2, cm2 or mm2; bare = m2",
+                          out, why, whylen);
+}
+
+int cli_parse_volume(const char *text, double *out, char *why,
+                     size_t whylen)
+{
+    static const unit_def units[] = {{"m3", 1.0, 0.0},
+                                     {"L", 1e-3, 0.0},
+                                     {"mL", 1e-6, 0.0},
+                                     {"cm3", 1e-6, 0.0},
+                                     {NULL, 0, 0}};
+    return parse_positive(text, units, "volume",
+                          "m3, L, mL or cm3; bare = m3", out, why, whylen);
+}
+
+int cli_parse_time(const char *text, double *out, char *why, size_t whylen)
+{
+    static const unit_def units[] = {{"s", 1.0, 0.0},
+                                     {"min", 60.0, 0.0},
+                                     {"h", 3600.0, 0.0},
+                                     {NULL, 0, 0}};
+    double v;
+    if (parse_quantity(text, units, "time", "s, min or h; bare = s", &v, why,
+                       whylen) != 0)
+        return -1;
+    if (!(v >= 0.0)) {
+        snprintf(why, whylen, "'%s' is a negative time", text);
+        return -1;
+    }
+    *out = v;
+    return 0;
+}
+
+/* Largest number of output times accepted. */
+#define CLI_MAX_TIMES 1000000
+
+int cli_parse_times(const char *text, double **out, size_t *out_n,
+                    char *why, size_t whylen)
+{
+    char item[128];
+    const char *colon = text ? strchr(text, ':') : NULL;
+    double *t = NULL;
+    size_t n = 0, cap = 0;
+    if (!text || !*text) {
+        snprintf(why, whylen, "empty value");
+        return -1;
+    }
+    if (colon) {
+        /* START:STOP:COUNT */
+        const char *colon2 = strchr(colon + 1, ':');
+        double t0, t1, cnt;
+        size_t len0 = (size_t)(colon - text), k;
+        if (!colon2 || strchr(colon2 + 1, ':') || strchr(text, ',') ||
+            len0 == 0 || len0 >= sizeof item ||
+            (size_t)(colon2 - colon - 1) >= sizeof item) {
+            snprintf(why, whylen,
+                     "expected START:STOP:COUNT (e.g. 0:2h:25) or a "
+                     "comma-separated list");
+            return -1;
+        }
+        memcpy(item, text, len0);
+        item[len0] = '\0';
+        if (cli_parse_time(item, &t0, why, whylen) != 0)
+            return -1;
+        memcpy(item, colon + 1, (size_t)(colon2 - colon - 1));
+        item[colon2 - colon - 1] = '\0';
+        if (cli_parse_time(item, &t1, why, whylen) != 0)
+            return -1;
+        if (cli_parse_number(colon2 + 1, &cnt, why, whylen) != 0 ||
+            cnt != floor(cnt) || cnt < 2 || cnt > CLI_MAX_TIMES) {
+            snprintf(why, whylen,
+                     "COUNT '%s' is not a whole number in 2..%d",
+                     colon2 + 1, CLI_MAX_TIMES);
+            return -1;
+        }
+        if (!(t1 >= t0)) {
+            snprintf(why, whylen, "STOP is before START");
+            return -1;
+        }
+        n = (size_t)cnt;
+        t = malloc(n * sizeof *t);
+        if (!t) {
+            snprintf(why, whylen, "out of memory");
+            return -1;
+        }
+        for (k = 0; k < n; k++)
+            t[k] = t0 + (t1 - t0) * ((double)k / (double)(n - 1));
+        t[n - 1] = t1;
+        *out = t;
+        *out_n = n;
+        return 0;
+    }
+    for (;;) {
+        const char *comma = strchr(text, ',');
+        size_t len = comma ? (size_t)(comma - text) : strlen(text);
+        double v;
+        if (len == 0 || len >= sizeof item) {
+            snprintf(why, whylen, "item %zu is %s", n + 1,
+                     len ? "too long" : "empty");
+            free(t);
+            return -1;
+        }
+        memcpy(item, text, len);
+        item[len] = '\0';
+        if (cli_parse_time(item, &v, why, whylen) != 0) {
+            char inner[160];
+            snprintf(inner, sizeof inner, "%s", why);
+            snprintf(why, whylen, "item %zu: %s", n + 1, inner);
+            free(t);
+            return -1;
+        }
+        if (n > 0 && v < t[n - 1]) {
+            snprintf(why, whylen, "item %zu ('%s') is before the one before "
+                     "it: times must not decrease", n + 1, item);
+            free(t);
+            return -1;
+        }
+        if (n == cap) {
+            double *g;
+            if (cap >= CLI_MAX_TIMES) {
+                snprintf(why, whylen, "more than %d times", CLI_MAX_TIMES);
+                free(t);
+                return -1;
+            }
+            cap = cap ? 2 * cap : 16;
+            g = realloc(t, cap * sizeof *g);
+            if (!g) {
+                snprintf(why, whylen, "out of memory");
+                free(t);
+                return -1;
+            }
+            t = g;
+        }
+        t[n++] = v;
+        if (!comma)
+            break;
+        text = comma + 1;
+    }
+    *out = t;
+    *out_n = n;
     return 0;
 }
 

@@ -5,20 +5,26 @@ The binary is taken from the environment variable MCDIFF_CLI (set by
 bindings/cli/meson.build) or from the first command-line argument.
 Standard library only.
 """
+import csv
+import io
 import json
 import math
 import os
+import shutil
 import subprocess
 import sys
 import tempfile
 import unittest
 
 MCDIFF = os.environ.get("MCDIFF_CLI")
+MAN_PAGE = os.environ.get("MCDIFF_MAN") or os.path.join(
+    os.path.dirname(os.path.abspath(__file__)), "..", "..", "bindings",
+    "cli", "mcdiff.1")
 
 R = 8.31446261815324  # J/(mol K), exact in the 2019 SI (CODATA 2018)
 ATM = 101325.0        # Pa, exact by definition
 
-COMMANDS = ["species", "binary", "fluxes", "matrix", "demo"]
+COMMANDS = ["species", "binary", "fluxes", "matrix", "film", "bulbs", "demo"]
 
 
 def run(*args):
@@ -53,6 +59,10 @@ class Help(unittest.TestCase):
                  "binary": ["K or C", "Pa", "atm", "m^2/s"],
                  "fluxes": ["[1/m]", "K or C", "atm", "mol/(m^2 s)"],
                  "matrix": ["[1/m]", "K or C", "atm", "m^2/s"],
+                 "film": ["mol/(m^2 s)", "K or C", "atm", "m, cm or",
+                          "z_m"],
+                 "bulbs": ["m3, L", "s, min or h", "cm2", "K or C", "atm",
+                           "t_s"],
                  "demo": ["cm^2/s", "mmol/(m^2 s)"]}
         for c in COMMANDS:
             for flag in ("--help", "-h"):
@@ -64,6 +74,23 @@ class Help(unittest.TestCase):
                     self.assertIn(f"mcdiff {c}", out.split("example")[1])
                     for u in units[c]:
                         self.assertIn(u, out)
+
+    def test_every_help_example_runs(self):
+        # the examples under "example" in each --help, with their
+        # continuation lines joined, must run and exit 0
+        import shlex
+        for c in COMMANDS:
+            _, out, _ = run(c, "--help")
+            text = out.split("example", 1)[1].split("\n", 1)[1]
+            text = text.replace("\\\n", " ")
+            for line in text.splitlines():
+                words = shlex.split(line)
+                if not words or words[0] != "mcdiff" or ">" in words:
+                    continue
+                with self.subTest(example=line):
+                    code, out2, err = run(*words[1:])
+                    self.assertEqual(code, 0, err)
+                    self.assertTrue(out2)
 
     def test_no_arguments_is_usage_error(self):
         code, _, err = run()
@@ -415,6 +442,653 @@ class Demo(unittest.TestCase):
         self.assertIn("INVENTED", out)
         self.assertIn("zero-sum", out)
         self.assertLessEqual(len(out.splitlines()), 40)
+
+def run_csv(*args, flag="--csv"):
+    """Run with --csv (or no flag when flag is None); return (header, rows,
+    stderr). Every row must have as many fields as the header."""
+    extra = [flag] if flag else []
+    code, out, err = run(*args, *extra)
+    if code != 0:
+        raise AssertionError(f"exit {code}: {err}")
+    table = list(csv.reader(io.StringIO(out)))
+    if not table:
+        raise AssertionError("empty CSV")
+    header, rows = table[0], table[1:]
+    for r in rows:
+        if len(r) != len(header):
+            raise AssertionError(f"row {r} does not match header {header}")
+    return header, rows, err
+
+
+# Carty and Schrodt (1975), Ind. Eng. Chem. Fundam. 14, 276: evaporation of
+# an acetone (1) / methanol (2) liquid into air (3) in a Stefan tube at
+# 328.5 K and 99.4 kPa. Data as used in the worked example of Taylor and
+# Krishna (1993), "Multicomponent Mass Transfer", Wiley, ch. 8 (Stefan
+# tube, exact Maxwell-Stefan solution): tube length 0.238 m, vapour at the
+# liquid surface x1 = 0.319, x2 = 0.528, pure air at the top,
+# Đ12 = 8.48, Đ13 = 13.72, Đ23 = 19.91 mm^2/s, and computed fluxes
+# N1 = 1.783e-3, N2 = 3.127e-3 mol/(m^2 s). All these numbers are FROM
+# MEMORY (as in tests/test_film.c): the paper and the example text could
+# not be confirmed.
+STEFAN = ["-s", "acetone,methanol,air", "--x0", "0.319,0.528,0.153",
+          "--xL", "0,0,1", "-L", "23.8cm", "-T", "328.5", "-P", "99.4kPa",
+          "--pair", "acetone:methanol=8.48e-6",
+          "--pair", "acetone:air=0.1372cm2/s",
+          "--pair", "methanol:air=19.91e-6"]
+
+
+class Film(unittest.TestCase):
+    def test_stefan_tube_matches_published_fluxes(self):
+        d = run_json("film", *STEFAN, "--stagnant", "air")
+        self.assertEqual(d["flux_unit"], "mol/(m^2 s)")
+        self.assertAlmostEqual(d["L"], 0.238, delta=1e-15)
+        N = d["fluxes"]
+        # published to 4 digits (from memory, see STEFAN): 1e-3 relative is
+        # half a unit in the 4th digit plus the rounding of R in c; the
+        # library gives 1.7830e-3 and 3.1280e-3
+        self.assertAlmostEqual(N[0] / 1.783e-3, 1.0, delta=1e-3)
+        self.assertAlmostEqual(N[1] / 3.127e-3, 1.0, delta=1e-3)
+        self.assertEqual(N[2], 0.0)  # stagnant air, exactly
+        self.assertIsInstance(d["iterations"], int)
+        self.assertGreater(d["iterations"], 0)
+        self.assertLessEqual(d["residual"], 1e-12)  # the solver's criterion
+        self.assertAlmostEqual(d["total_flux"], N[0] + N[1], delta=1e-18)
+        self.assertEqual(d["bootstrap"], {"kind": "stagnant",
+                                          "species": "air"})
+        self.assertIn("hazardous", d["caution"])
+        # --pair in m^2/s and in cm^2/s: the same value
+        self.assertAlmostEqual(d["binary_D"][0][2] / 13.72e-6, 1.0,
+                               delta=1e-15)
+
+    def test_stefan_tube_both_models_and_table(self):
+        d = run_json("film", *STEFAN, "--stagnant", "air", "--model", "both")
+        for k in ("fluxes", "fluxes_linearized", "deviation",
+                  "iterations_linearized", "residual_linearized"):
+            self.assertIn(k, d)
+        for i in range(2):
+            want = (d["fluxes_linearized"][i] - d["fluxes"][i]) / abs(
+                d["fluxes"][i])
+            self.assertAlmostEqual(d["deviation"][i], want, delta=1e-15)
+            # linearized theory agrees with the exact one to a few per cent
+            # for this tube (Taylor and Krishna 1993, ch. 8, from memory);
+            # the library measures 0.07 % and 1.9 %
+            self.assertLess(abs(d["deviation"][i]), 0.05)
+        self.assertEqual(d["deviation"][2], 0.0)  # both exactly 0
+        code, out, err = run("film", *STEFAN, "--stagnant", "air",
+                             "--model", "both")
+        self.assertEqual(code, 0, err)
+        self.assertEqual(err, "")
+        for text in ("mol/(m^2 s)", "deviation", "iterations", "air",
+                     f"{d['fluxes'][0]:.5e}", "hazardous", "review"):
+            self.assertIn(text, out)
+
+    def closed_stagnant(self, T, P, D, L, xa0, xaL):
+        # B stagnant: N_A = (c D/L) ln((1 - xA_L)/(1 - xA_0)), c = P/(R T)
+        # (common practice; e.g. Taylor and Krishna 1993, ch. 8)
+        c = P / (R * T)
+        return c * D / L * math.log((1 - xaL) / (1 - xa0))
+
+    def test_binary_stagnant_film_equals_closed_form(self):
+        cases = [  # species, T [K], P [Pa], D [m^2/s], L [m], L text, x0, xL
+            ("H2,N2", 300.0, ATM, 7.8e-5, 0.01, "1cm", 0.4, 0.1),
+            ("water,air", 320.0, 2e5, 2.9e-5, 0.005, "5mm", 0.08, 0.01),
+            ("CO2,N2", 280.0, 5e4, 1.6e-5, 0.2, "0.2", 0.9, 0.3),
+            ("ethanol,N2", 350.0, ATM, 1.4e-5, 0.05, "5cm", 0.02, 0.5),
+        ]
+        for sp, T, P, D, L, Ltext, x0, xL in cases:
+            with self.subTest(species=sp, x0=x0, xL=xL):
+                a, b = sp.split(",")
+                d = run_json("film", "-s", sp, "--x0", f"{x0},{1 - x0}",
+                             "--xL", f"{xL},{1 - xL}", "-L", Ltext, "-T",
+                             str(T), "-P", f"{P}", "--pair", f"{a}:{b}={D}",
+                             "--stagnant", b)
+                want = self.closed_stagnant(T, P, D, L, x0, xL)
+                # converged to 1e-12 relative; 1e-9 leaves room for the
+                # decimal round trip of the inputs
+                self.assertAlmostEqual(d["fluxes"][0] / want, 1.0,
+                                       delta=1e-9)
+                self.assertEqual(d["fluxes"][1], 0.0)
+
+    def test_binary_other_bootstraps_equal_closed_forms(self):
+        T, P, D, L = 300.0, ATM, 7.8e-5, 0.01
+        c = P / (R * T)
+        base = ["-s", "H2,N2", "--x0", "0.6,0.4", "--xL", "0.2,0.8", "-L",
+                "10mm", "-T", "300", "-P", "1atm", "--pair", f"H2:N2={D}"]
+        # equimolar: N_A = c D (xA_0 - xA_L)/L (common practice); the
+        # weights 1,1 state the same condition
+        eq = c * D * (0.6 - 0.2) / L
+        for boot in (["--equimolar"], ["--weights", "1,1"]):
+            with self.subTest(boot=boot):
+                d = run_json("film", *base, *boot)
+                self.assertAlmostEqual(d["fluxes"][0] / eq, 1.0, delta=1e-9)
+                self.assertAlmostEqual(d["fluxes"][1] / -eq, 1.0,
+                                       delta=1e-9)
+        # ratios: N_A = z_A (c D/L) ln((z_A - xA_L)/(z_A - xA_0)) (Taylor
+        # and Krishna 1993, ch. 8, from memory; the formula quoted in
+        # mcdiff.h), with z_A = 2, z_B = -1
+        zA = 2.0
+        want = zA * c * D / L * math.log((zA - 0.2) / (zA - 0.6))
+        d = run_json("film", *base, "--ratios", "2,-1", "--match", "H2")
+        self.assertAlmostEqual(d["fluxes"][0] / want, 1.0, delta=1e-9)
+        self.assertAlmostEqual(d["fluxes"][1] / (-want / 2), 1.0,
+                               delta=1e-9)
+        self.assertEqual(d["bootstrap"]["values"], [2, -1])
+        # total flux: the total of the stagnant-N2 film reproduces it
+        Nst = self.closed_stagnant(T, P, D, L, 0.6, 0.2)
+        d = run_json("film", *base, "--total-flux", repr(Nst))
+        self.assertAlmostEqual(d["fluxes"][0] / Nst, 1.0, delta=1e-9)
+        self.assertLessEqual(abs(d["fluxes"][1]), 1e-9 * Nst)
+        self.assertAlmostEqual(d["total_flux"] / Nst, 1.0, delta=1e-12)
+
+    def test_profile_csv_parses_and_ends_match_inputs(self):
+        header, rows, err = run_csv("film", *STEFAN, "--stagnant", "air",
+                                    "--profile", "--points", "21", flag=None)
+        self.assertEqual(header, ["z_m", "x_acetone", "x_methanol",
+                                  "x_air"])
+        self.assertEqual(len(rows), 21)
+        self.assertIn("hazardous", err)  # the caution goes to stderr
+        vals = [[float(v) for v in r] for r in rows]
+        self.assertEqual(vals[0][0], 0.0)
+        self.assertAlmostEqual(vals[-1][0], 0.238, delta=1e-15)
+        for p in range(1, 21):
+            # equally spaced; 15 printed digits
+            self.assertAlmostEqual(vals[p][0], 0.238 * p / 20, delta=1e-14)
+        x0, xL = [0.319, 0.528, 0.153], [0.0, 0.0, 1.0]
+        for i in range(3):
+            # the profile starts at x0 exactly (exp(0) = I) ...
+            self.assertAlmostEqual(vals[0][i + 1], x0[i], delta=1e-15)
+            # ... and the converged fluxes (1e-12) reproduce xL to ~1e-12,
+            # as in tests/test_film.c (1e-11)
+            self.assertAlmostEqual(vals[-1][i + 1], xL[i], delta=1e-11)
+        for v in vals:
+            # every point is a composition: sum 1 to round-off of the
+            # matrix exponential
+            self.assertAlmostEqual(sum(v[1:]), 1.0, delta=1e-12)
+        # --csv with --profile gives the same profile; --json adds it
+        h2, rows2, _ = run_csv("film", *STEFAN, "--stagnant", "air",
+                               "--profile", "--points", "21")
+        self.assertEqual((h2, rows2), (header, rows))
+        d = run_json("film", *STEFAN, "--stagnant", "air", "--profile",
+                     "--points", "21")
+        self.assertEqual(len(d["profile"]["z"]), 21)
+        for p in (0, 7, 20):
+            for i in range(3):
+                self.assertAlmostEqual(d["profile"]["x"][p][i],
+                                       vals[p][i + 1], delta=1e-14)
+
+    def test_profile_of_linearized_model_uses_exact_fluxes(self):
+        _, rows, _ = run_csv("film", *STEFAN, "--stagnant", "air",
+                             "--profile", "--model", "linearized", flag=None)
+        # the documented rule: the profile is always the exact solution,
+        # so it still ends at xL
+        self.assertAlmostEqual(float(rows[-1][3]), 1.0, delta=1e-11)
+        self.assertEqual(len(rows), 11)  # default --points
+
+    def test_flux_csv_matches_json(self):
+        header, rows, err = run_csv("film", *STEFAN, "--stagnant", "air",
+                                    "--model", "both")
+        self.assertEqual(header, ["species", "x0", "xL", "N_mol_per_m2_s",
+                                  "N_linearized_mol_per_m2_s", "deviation"])
+        self.assertIn("review", err)
+        d = run_json("film", *STEFAN, "--stagnant", "air", "--model", "both")
+        for i, r in enumerate(rows):
+            self.assertEqual(r[0], d["species"][i])
+            # 15 significant digits in CSV, 17 in JSON
+            self.assertAlmostEqual(float(r[3]), d["fluxes"][i],
+                                   delta=1e-14 * abs(d["fluxes"][0]))
+            self.assertAlmostEqual(float(r[4]), d["fluxes_linearized"][i],
+                                   delta=1e-14 * abs(d["fluxes"][0]))
+
+    def test_estimated_diffusivities_are_labelled(self):
+        d = run_json("film", "-s", "CO2,N2", "--x0", "0.5,0.5", "--xL",
+                     "0,1", "-L", "1cm", "-T", "300", "-P", "1atm",
+                     "--stagnant", "N2", "--method", "wilke-lee")
+        self.assertEqual(d["binary_source"][0][1], "wilke-lee")
+        self.assertGreater(d["binary_typical_error"][0][1], 0.0)
+        want = self.closed_stagnant(300.0, ATM, d["binary_D"][0][1], 0.01,
+                                    0.5, 0.0)
+        self.assertAlmostEqual(d["fluxes"][0] / want, 1.0, delta=1e-9)
+
+    def test_absent_stagnant_species_is_bad_input_with_library_message(self):
+        for x0, xL, where in (("0.3,0.7", "0,1", "z = L"),
+                              ("0,1", "0.3,0.7", "z = 0")):
+            with self.subTest(x0=x0, xL=xL):
+                code, out, err = run("film", "-s", "H2,N2", "--x0", x0,
+                                     "--xL", xL, "-L", "1cm", "-T", "300",
+                                     "-P", "1atm", "--stagnant", "H2")
+                self.assertEqual(code, 2, err)
+                self.assertEqual(out, "")
+                self.assertIn("--stagnant", err)
+                self.assertIn(where, err)
+                # the library's status text (EDOM) and its detail
+                self.assertIn("domain", err)
+                self.assertIn("must be present at both ends", err)
+
+    def test_non_converging_ratios_exit_1(self):
+        # RATIOS with z_A between the end values: no flux reproduces xL
+        # (documented ENOCONV of mcd_film_solve)
+        code, out, err = run("film", "-s", "H2,N2", "--x0", "0.6,0.4",
+                             "--xL", "0.2,0.8", "-L", "1cm", "-T", "300",
+                             "-P", "1atm", "--ratios", "0.4,0.6", "--match",
+                             "H2")
+        self.assertEqual(code, 1, err)
+        self.assertEqual(out, "")
+        self.assertIn("failed", err)
+        self.assertIn("converge", err)
+
+    def test_bad_film_input_exits_2_and_names_the_argument(self):
+        base = ["film", "-s", "H2,N2", "--x0", "0.6,0.4", "--xL",
+                "0.2,0.8", "-L", "1cm", "-T", "300", "-P", "1atm"]
+        short = ["film", "-s", "H2,N2", "-T", "300", "-P", "1atm"]
+        cases = [
+            (base, "--stagnant"),                       # no bootstrap
+            (base + ["--equimolar", "--stagnant", "N2"], "--stagnant"),
+            (base + ["--stagnant", "O2"], "--stagnant"),  # not in the list
+            (base + ["--ratios", "2,-1"], "--match"),
+            (base + ["--ratios", "2,-1", "--match", "Ar"], "--match"),
+            (base + ["--ratios", "0.5,0.4", "--match", "H2"], "--ratios"),
+            (base + ["--equimolar", "--match", "H2"], "--match"),
+            (base + ["--weights", "1,1,1"], "--weights"),
+            (base + ["--weights", "0,0"], "--weights"),
+            (base + ["--total-flux", "1e6"], "--total-flux"),
+            (base + ["--total-flux", "5mol"], "--total-flux"),
+            (base + ["--equimolar", "--model", "fast"], "--model"),
+            (base + ["--equimolar", "--points", "5"], "--points"),
+            (base + ["--equimolar", "--profile", "--points", "1"],
+             "--points"),
+            (base + ["--equimolar", "--profile", "--points", "2.5"],
+             "--points"),
+            (base + ["--equimolar", "--json", "--csv"], "--csv"),
+            (base + ["--equimolar", "extra"], "extra"),
+            (short + ["--x0", "0.6,0.4", "-L", "1cm", "--equimolar"],
+             "--xL"),
+            (short + ["--xL", "0.6,0.4", "-L", "1cm", "--equimolar"],
+             "--x0"),
+            (short + ["--x0", "0.6,0.4,0", "--xL", "0.2,0.8", "-L", "1cm",
+                      "--equimolar"], "--x0"),
+            (short + ["--x0", "0.6,0.5", "--xL", "0.2,0.8", "-L", "1cm",
+                      "--equimolar"], "--x0"),
+            (short + ["--x0", "0.6,0.4", "--xL", "0.2,0.7", "-L", "1cm",
+                      "--equimolar"], "--xL"),
+            (short + ["--x0", "0.6,0.4", "--xL", "0.2,0.8", "--equimolar"],
+             "--length"),
+            (short + ["--x0", "0.6,0.4", "--xL", "0.2,0.8", "-L", "1km",
+                      "--equimolar"], "-L"),
+            (short + ["--x0", "0.6,0.4", "--xL", "0.2,0.8", "-L", "-1cm",
+                      "--equimolar"], "-L"),
+            (short + ["--x0", "0.6,0.4", "--xL", "0.2,0.8", "-L", "0",
+                      "--equimolar"], "-L"),
+        ]
+        for args, name in cases:
+            with self.subTest(args=args):
+                code, out, err = run(*args)
+                self.assertEqual(code, 2, (out, err))
+                self.assertIn(name, err)
+                self.assertEqual(out, "")
+
+
+# An invented cell for the checks that need no outside data.
+CELL = ["-s", "H2,N2,CO2", "--x1", "0.5,0.5,0", "--x2", "0,0.3,0.7",
+        "--v1", "50cm3", "--v2", "0.2L", "-L", "6cm", "--area", "3mm2",
+        "-T", "30C", "-P", "1atm"]
+V1, V2 = 50e-6, 0.2e-3
+X1_0, X2_0 = [0.5, 0.5, 0.0], [0.0, 0.3, 0.7]
+
+
+class Bulbs(unittest.TestCase):
+    def histories(self, *extra, flag=None):
+        header, rows, err = run_csv("bulbs", *CELL, *extra, flag=flag)
+        vals = [[float(v) for v in r] for r in rows]
+        return header, vals, err
+
+    def test_csv_parses_with_header_and_times(self):
+        header, vals, err = self.histories("-t", "0:2h:5")
+        self.assertEqual(header, ["t_s", "x1_hydrogen", "x1_nitrogen",
+                                  "x1_carbon-dioxide", "x2_hydrogen",
+                                  "x2_nitrogen", "x2_carbon-dioxide"])
+        self.assertEqual([v[0] for v in vals], [0, 1800, 3600, 5400, 7200])
+        self.assertIn("hazardous", err)  # caution on stderr, CSV clean
+        self.assertEqual(vals[0][1:], X1_0 + X2_0)
+        # --csv gives the same output as the default
+        _, vals2, _ = self.histories("-t", "0:2h:5", flag="--csv")
+        self.assertEqual(vals, vals2)
+        # a list with units
+        _, vals3, _ = self.histories("-t", "0,30min,1h,7200s,2.5h")
+        self.assertEqual([v[0] for v in vals3], [0, 1800, 3600, 7200, 9000])
+
+    def test_every_species_conserved_at_every_time(self):
+        for model in ("integrated", "linearized"):
+            with self.subTest(model=model):
+                _, vals, _ = self.histories("-t", "0:20h:41", "--model",
+                                            model)
+                for v in vals:
+                    for i in range(3):
+                        x1, x2 = v[1 + i], v[4 + i]
+                        held = (V1 * x1 + V2 * x2) / (V1 + V2)
+                        init = (V1 * X1_0[i] + V2 * X2_0[i]) / (V1 + V2)
+                        # conserved to round-off by construction; 15
+                        # printed digits
+                        self.assertAlmostEqual(held, init, delta=1e-13)
+                    self.assertAlmostEqual(sum(v[1:4]), 1.0, delta=1e-12)
+                    self.assertAlmostEqual(sum(v[4:7]), 1.0, delta=1e-12)
+
+    def test_late_times_approach_the_volume_weighted_mean(self):
+        mean = [(V1 * a + V2 * b) / (V1 + V2) for a, b in zip(X1_0, X2_0)]
+        for model in ("integrated", "linearized"):
+            with self.subTest(model=model):
+                _, vals, _ = self.histories("-t", "0,10h,2000h", "--model",
+                                            model)
+                last = vals[-1]
+                # 2000 h is hundreds of time constants 1/(beta D) for this
+                # cell: exp(-hundreds) is far below 1e-9
+                for i in range(3):
+                    self.assertAlmostEqual(last[1 + i], mean[i], delta=1e-9)
+                    self.assertAlmostEqual(last[4 + i], mean[i], delta=1e-9)
+                # and the distance to the mean shrinks with time
+                d10 = max(abs(vals[1][1 + i] - mean[i]) for i in range(3))
+                d0 = max(abs(vals[0][1 + i] - mean[i]) for i in range(3))
+                self.assertLess(d10, d0)
+
+    def test_json_keys_and_agreement_with_csv(self):
+        d = run_json("bulbs", *CELL, "-t", "0:1h:3")
+        for k in ("species", "T", "P", "c", "V1", "V2", "A", "L", "beta",
+                  "model", "tolerance", "binary_D", "x1_initial",
+                  "x2_initial", "x_final", "t", "x1", "x2", "caution"):
+            self.assertIn(k, d)
+        self.assertEqual(d["model"], "integrated")
+        self.assertAlmostEqual(d["V1"], V1, delta=1e-20)
+        self.assertAlmostEqual(d["V2"], V2, delta=1e-20)
+        self.assertAlmostEqual(d["A"], 3e-6, delta=1e-21)
+        self.assertAlmostEqual(d["L"], 0.06, delta=1e-17)
+        # beta = A (V1 + V2)/(L V1 V2) (the cell constant of mcdiff.h)
+        self.assertAlmostEqual(d["beta"] / (3e-6 * (V1 + V2) /
+                                            (0.06 * V1 * V2)), 1.0,
+                               delta=1e-14)
+        for i in range(3):
+            self.assertAlmostEqual(
+                d["x_final"][i], (V1 * X1_0[i] + V2 * X2_0[i]) / (V1 + V2),
+                delta=1e-15)
+        self.assertEqual(d["t"], [0, 1800, 3600])
+        _, vals, _ = self.histories("-t", "0:1h:3")
+        for k in range(3):
+            for i in range(3):
+                self.assertAlmostEqual(d["x1"][k][i], vals[k][1 + i],
+                                       delta=1e-14)
+                self.assertAlmostEqual(d["x2"][k][i], vals[k][4 + i],
+                                       delta=1e-14)
+        self.assertIn("hazardous", d["caution"])
+
+    def test_diameter_equals_area(self):
+        # A = pi d^2/4 (common practice)
+        d_mm = 2.0
+        area = math.pi * (d_mm * 1e-3) ** 2 / 4
+        a = run_json("bulbs", *[c if c != "3mm2" else repr(area)
+                                for c in CELL], "-t", "0,1h")
+        cell = CELL[:CELL.index("--area")] + ["--diameter", "2mm"] + \
+            CELL[CELL.index("--area") + 2:]
+        b = run_json("bulbs", *cell, "-t", "0,1h")
+        self.assertAlmostEqual(b["A"] / area, 1.0, delta=1e-15)
+        for i in range(3):
+            self.assertAlmostEqual(a["x1"][1][i], b["x1"][1][i], delta=1e-12)
+
+    def test_linearized_close_to_integrated(self):
+        _, vi, _ = self.histories("-t", "0:10h:11")
+        _, vl, _ = self.histories("-t", "0:10h:11", "--model", "linearized")
+        # the linearized theory is a close approximation (Toor 1964;
+        # common practice), less so for the large differences of this
+        # cell (H2 0.5 against 0): allow 0.02 in mole fraction (measured
+        # 0.013, deterministic)
+        worst = max(abs(a - b) for ri, rl in zip(vi, vl)
+                    for a, b in zip(ri[1:], rl[1:]))
+        self.assertLess(worst, 0.02)
+        self.assertGreater(worst, 0.0)  # two different models
+
+    def test_duncan_toor_nitrogen_diffuses_uphill(self):
+        # Duncan and Toor (1962), AIChE J. 8, 38: two-bulb cell (77.99 and
+        # 78.63 cm^3, capillary 85.9 mm long, 2.08 mm across) at 35.2 C,
+        # 1 atm; bulb 1 H2 0, N2 0.50086, CO2 0.49914; bulb 2 H2 0.50121,
+        # N2 0.49879, CO2 0; Đ(H2-N2) = 83.8, Đ(H2-CO2) = 68.0,
+        # Đ(N2-CO2) = 16.8 mm^2/s. All FROM MEMORY. They observed that N2,
+        # with almost no difference between the bulbs at the start, first
+        # diffuses up its own gradient (the difference grows and changes
+        # sign) and only later relaxes (from memory; checked qualitatively
+        # here, no measured value is used).
+        header, rows, _ = run_csv(
+            "bulbs", "-s", "H2,N2,CO2", "--x1", "0,0.50086,0.49914",
+            "--x2", "0.50121,0.49879,0", "--v1", "77.99cm3", "--v2",
+            "78.63cm3", "-L", "85.9mm", "--diameter", "2.08mm", "-t",
+            "0:40h:81", "-T", "35.2C", "-P", "1atm",
+            "--pair", "H2:N2=83.8e-6", "--pair", "H2:CO2=68.0e-6",
+            "--pair", "N2:CO2=16.8e-6", flag=None)
+        dn2 = [float(r[header.index("x2_nitrogen")]) -
+               float(r[header.index("x1_nitrogen")]) for r in rows]
+        self.assertLess(dn2[0], 0.0)           # bulb 1 starts richer
+        peak = max(range(len(dn2)), key=lambda k: dn2[k])
+        self.assertGreater(dn2[peak], 0.05)    # reversed and grew large
+        self.assertGreater(peak, 0)
+        self.assertLess(peak, len(dn2) - 1)    # a maximum, then decay
+        self.assertLess(dn2[-1], dn2[peak])
+
+    def test_bad_bulbs_input_exits_2_and_names_the_argument(self):
+        def cell(opt, value):
+            out = list(CELL)
+            out[out.index(opt) + 1] = value
+            return out
+
+        def without(opt):
+            out = list(CELL)
+            k = out.index(opt)
+            return out[:k] + out[k + 2:]
+
+        T = ["-t", "0,1h"]
+        cases = [
+            (CELL, "--times"),                          # no times
+            (CELL + ["-t", "1h,0"], "-t"),
+            (CELL + ["-t", "0:1h:1"], "-t"),
+            (CELL + ["-t", "1h:0:5"], "-t"),
+            (CELL + ["-t", "0:1h"], "-t"),
+            (CELL + ["-t", "0,-1h"], "-t"),
+            (CELL + ["-t", "0,1day"], "-t"),
+            (CELL + ["-t", "0,,1h"], "-t"),
+            (CELL + T + ["-t", "2h"], "-t"),
+            (cell("--v1", "-1L") + T, "--v1"),
+            (cell("--v2", "5gal") + T, "--v2"),
+            (cell("--area", "0") + T, "--area"),
+            (cell("-L", "3in") + T, "-L"),
+            (cell("--x2", "0,0.3,0.6") + T, "--x2"),
+            (cell("--x1", "0.5,0.5") + T, "--x1"),
+            (cell("--x1", "0.5,0.6,-0.1") + T, "--x1"),
+            (without("--x2") + T, "--x2"),
+            (without("--v1") + T, "--v1"),
+            (without("--area") + T, "--area"),
+            (without("-L") + T, "--length"),
+            (CELL + T + ["--diameter", "2mm"], "--diameter"),
+            (CELL + T + ["--model", "fast"], "--model"),
+            (CELL + T + ["--tolerance", "1"], "--tolerance"),
+            (CELL + T + ["--model", "linearized", "--tolerance", "1e-8"],
+             "--tolerance"),
+            (CELL + T + ["--json", "--csv"], "--csv"),
+            (CELL + T + ["--pair", "H2:Ar=1e-5"], "--pair"),
+        ]
+        for args, name in cases:
+            with self.subTest(args=args):
+                code, out, err = run("bulbs", *args)
+                self.assertEqual(code, 2, (out, err))
+                self.assertIn(name, err)
+                self.assertEqual(out, "")
+
+
+class Csv(unittest.TestCase):
+    """--csv of every command that prints a table parses with the csv
+    module: one header row with SI units in the names, then data rows."""
+
+    def test_species_csv(self):
+        header, rows, _ = run_csv("species")
+        self.assertEqual(header[:4], ["name", "formula", "M_kg_per_mol",
+                                      "V_diff"])
+        for h in ("sigma_m", "eps_k_K", "dipole_C_m", "Vb_m3_per_mol",
+                  "Tb_K", "Tc_K", "Pc_Pa"):
+            self.assertIn(h, header)
+        d = run_json("species")
+        self.assertEqual(len(rows), len(d["species"]))
+        for r, s in zip(rows, d["species"]):
+            self.assertEqual(r[0], s["name"])
+            for h, key in (("M_kg_per_mol", "M"), ("sigma_m", "sigma"),
+                           ("Tb_K", "Tb")):
+                v = r[header.index(h)]
+                if s[key] is None:
+                    self.assertEqual(v, "")   # not known: empty field
+                else:
+                    self.assertAlmostEqual(float(v) / s[key], 1.0,
+                                           delta=1e-14)
+        header1, rows1, _ = run_csv("species", "CO2")
+        self.assertEqual(header1, header)
+        self.assertEqual(len(rows1), 1)
+        self.assertEqual(rows1[0][0], "carbon-dioxide")
+
+    def test_binary_csv(self):
+        header, rows, err = run_csv("binary", "CO2", "N2", "-T", "300",
+                                    "-P", "1atm")
+        self.assertEqual(header, ["species_a", "species_b", "T_K", "P_Pa",
+                                  "method", "status", "D_m2_per_s",
+                                  "typical_error", "recommended",
+                                  "warnings"])
+        self.assertIn("review", err)
+        d = run_json("binary", "CO2", "N2", "-T", "300", "-P", "1atm")
+        self.assertEqual(len(rows), len(d["results"]))
+        rec = [r for r in rows if r[header.index("recommended")] == "1"]
+        self.assertEqual(len(rec), 1)
+        self.assertAlmostEqual(float(rec[0][6]) / d["D"], 1.0, delta=1e-14)
+        h2, rows2, _ = run_csv("binary", "ethanol", "water", "-T", "25C",
+                               "--viscosity", "0.89cP")
+        self.assertIn("viscosity_Pa_s", h2)
+        self.assertEqual(rows2[0][h2.index("P_Pa")], "")  # liquid: no P
+        self.assertEqual(rows2[0][h2.index("method")], "wilke-chang")
+
+    def test_fluxes_csv(self):
+        header, rows, _ = run_csv("fluxes", *STATE3, "-g", "-20,0,20",
+                                  "-g", "1,2,-3")
+        self.assertEqual(header, ["species", "x", "dx_dz1_per_m",
+                                  "dx_dz2_per_m", "J_1_mol_per_m2_s",
+                                  "J_2_mol_per_m2_s", "flags"])
+        d = run_json("fluxes", *STATE3, "-g", "-20,0,20", "-g", "1,2,-3")
+        big = max(abs(v) for row in d["fluxes"] for v in row)
+        for i, r in enumerate(rows):
+            self.assertEqual(r[0], d["species"][i])
+            for k in range(2):
+                self.assertAlmostEqual(float(r[4 + k]), d["fluxes"][i][k],
+                                       delta=1e-14 * big)
+            self.assertEqual(r[6].split(), d["flags"][i])
+        header, rows, _ = run_csv("fluxes", "-s", "CO2,N2,water", "-w",
+                                  "0.3,0.6,0.1", "-g", "2,-1,-1", "-T",
+                                  "400", "-P", "2bar")
+        self.assertEqual(header, ["species", "w", "dw_dz1_per_m",
+                                  "j_1_kg_per_m2_s", "flags"])
+        self.assertEqual(len(rows), 3)
+
+    def test_matrix_csv(self):
+        header, rows, _ = run_csv("matrix", *STATE3)
+        self.assertEqual(header, ["quantity", "row", "column",
+                                  "value_m2_per_s"])
+        d = run_json("matrix", *STATE3)
+        kinds = [r[0] for r in rows]
+        self.assertEqual(kinds.count("binary"), 3)
+        self.assertEqual(kinds.count("fick"), 4)
+        self.assertEqual(kinds.count("eigenvalue"), 4)  # 2 x (real, imag)
+        fick = [float(r[3]) for r in rows if r[0] == "fick"]
+        flat = [v for row in d["fick_matrix"] for v in row]
+        for a, b in zip(fick, flat):
+            self.assertAlmostEqual(a / b, 1.0, delta=1e-14)
+        re = [float(r[3]) for r in rows
+              if r[0] == "eigenvalue" and r[2] == "real"]
+        for a, b in zip(re, d["eigenvalues"]["re"]):
+            self.assertAlmostEqual(a / b, 1.0, delta=1e-14)
+        # fluxes need 'fluxes --csv'
+        code, out, err = run("matrix", *STATE3, "-g", "1,0,-1", "--csv")
+        self.assertEqual(code, 2)
+        self.assertIn("--csv", err)
+
+    def test_json_and_csv_together_is_bad_input(self):
+        for args in (["species"], ["binary", "CO2", "N2", "-T", "300", "-P",
+                                   "1atm"],
+                     ["fluxes", *STATE3, "-g", "1,0,-1"],
+                     ["matrix", *STATE3]):
+            with self.subTest(args=args):
+                code, out, err = run(*args, "--json", "--csv")
+                self.assertEqual(code, 2, err)
+                self.assertIn("--csv", err)
+                self.assertEqual(out, "")
+
+
+def man_text():
+    """The man page rendered as plain ASCII text by groff, or None."""
+    if not shutil.which("groff"):
+        return None
+    p = subprocess.run(["groff", "-man", "-Tascii", "-P-cbou", MAN_PAGE],
+                       capture_output=True, text=True, timeout=60)
+    if p.returncode != 0:
+        raise AssertionError(p.stderr)
+    return p.stdout
+
+
+class ManPage(unittest.TestCase):
+    def test_man_page_renders_without_warnings(self):
+        self.assertTrue(os.path.exists(MAN_PAGE), MAN_PAGE)
+        if shutil.which("groff"):
+            p = subprocess.run(["groff", "-man", "-Tutf8", "-ww", MAN_PAGE],
+                               capture_output=True, text=True, timeout=60)
+            self.assertEqual(p.returncode, 0, p.stderr)
+            self.assertEqual(p.stderr, "")
+            self.assertIn("MCDIFF(1)", p.stdout)
+        else:
+            # no formatter: at least a well-formed man(7) source
+            with open(MAN_PAGE, encoding="utf-8") as f:
+                lines = f.read().splitlines()
+            macros = [ln.split()[0] for ln in lines if ln.startswith(".")
+                      and not ln.startswith(".\\\"")]
+            self.assertIn(".TH", macros)
+            self.assertEqual(macros.count(".RS"), macros.count(".RE"))
+            self.assertEqual(macros.count(".nf"), macros.count(".fi"))
+            for name in ("NAME", "SYNOPSIS", "EXIT STATUS"):
+                self.assertTrue(any(ln.startswith(".SH") and name in ln
+                                    for ln in lines))
+
+    def test_man_page_covers_commands_options_units_and_exit_codes(self):
+        text = man_text()
+        if text is None:
+            with open(MAN_PAGE, encoding="utf-8") as f:
+                text = f.read().replace("\\-", "-").replace("\\:", "")
+        flat = " ".join(text.split())
+        for c in COMMANDS:
+            self.assertIn(f"mcdiff {c}", flat)
+        # every long option of every command's --help is documented
+        for c in COMMANDS:
+            _, out, _ = run(c, "--help")
+            opts = {w.strip(",.;:()[]'\"|") for w in out.split()
+                    if w.startswith("--") and len(w) > 3}
+            opts = {o.split("=")[0] for o in opts}
+            with self.subTest(command=c):
+                self.assertTrue(opts)
+                for o in opts:
+                    self.assertIn(o, flat, f"{c}: {o}")
+        for unit in ("kPa", "atm", "cm2/s", "mm2", "cm3", "min", "m^2/s",
+                     "mol/(m^2 s)", "D_m2_per_s", "N_mol_per_m2_s"):
+            self.assertIn(unit, flat)
+        self.assertIn("EXIT STATUS", flat)
+        for code in ("0 success", "1 the computation failed",
+                     "2 bad command line"):
+            self.assertIn(code, flat)
+        self.assertIn("hazardous gases", flat)
+        self.assertIn("licensed engineering review", flat)
+
+    def test_man_l_formats_the_page(self):
+        if not shutil.which("man") or not shutil.which("groff"):
+            self.skipTest("man or groff not installed")
+        env = dict(os.environ, MANPAGER="cat", PAGER="cat", MANWIDTH="80")
+        p = subprocess.run(["man", "-l", MAN_PAGE], capture_output=True,
+                           text=True, timeout=60, env=env)
+        self.assertEqual(p.returncode, 0, p.stderr)
+        self.assertIn("EXIT STATUS", p.stdout)
 
 
 if __name__ == "__main__":

@@ -1,0 +1,375 @@
+/* cmd_bulbs.c - `mcdiff bulbs`: composition histories of a closed two-bulb
+ * diffusion cell (mcd_bulbs_integrate, mcd_bulbs_linearized), as CSV or
+ * JSON.
+ */
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include "cli.h"
+
+static void help(FILE *f)
+{
+    fputs(
+        "usage: mcdiff bulbs -s A,B,C --x1 LIST --x2 LIST --v1 VOL --v2 VOL\n"
+        "                    -L LEN (--area AREA | --diameter LEN)\n"
+        "                    -t TIMES -T TEMP -P PRES [options]\n"
+        "\n"
+        "Mole fractions in two well-mixed bulbs of an ideal gas joined by a\n"
+        "capillary (closed, isothermal, isobaric: equimolar counter-diffusion\n"
+        "through a quasi-steady capillary), at the times asked for. Every\n"
+        "species is conserved (V1 x1 + V2 x2 constant) and both bulbs tend\n"
+        "to the volume-weighted mean composition.\n"
+        "\n"
+        "options (lists are comma-separated, one value per species, in the\n"
+        "order of -s):\n"
+        "  -s, --species LIST        species names or formulas (2 or more)\n"
+        "  --x1 LIST                 initial mole fractions [-] in bulb 1\n"
+        "  --x2 LIST                 initial mole fractions [-] in bulb 2\n"
+        "  --v1 VOL, --v2 VOL        bulb volumes; m3, L, mL or cm3 suffix,\n"
+        "                            bare = m3\n"
+        "  -L, --length LEN          capillary length; m, cm or mm, bare = m\n"
+        "  --area AREA               capillary cross-section; m2, cm2 or mm2,\n"
+        "                            bare = m2\n"
+        "  --diameter LEN            or its inner diameter (area pi d^2/4);\n"
+        "                            m, cm or mm, bare = m\n"
+        "  -t, --times TIMES         output times, s, min or h suffix, bare =\n"
+        "                            s: a list (0,30min,1h,2h; not\n"
+        "                            decreasing) or START:STOP:COUNT\n"
+        "                            (0:10h:21 = 21 equally spaced times)\n"
+        "  -T, --temperature TEMP    K or C suffix, bare = K\n"
+        "  -P, --pressure PRES       Pa, kPa, MPa, bar or atm, bare = Pa\n"
+        "  --model NAME              integrated (default: exact film fluxes\n"
+        "                            at every instant, Runge-Kutta with error\n"
+        "                            control) or linearized ([D] frozen at\n"
+        "                            the mean composition, closed form)\n"
+        "  --tolerance TOL           local error tolerance on the mole\n"
+        "                            fractions of integrated, 1e-12 to 1e-2\n"
+        "                            (default 1e-9)\n"
+        "  -m, --method NAME         estimate of the binary diffusivities:\n"
+        "                            fsg (default), chapman-enskog, wilke-lee\n"
+        "  --pair A:B=D[@T,P]        binary diffusivity of a pair [m^2/s, or\n"
+        "                            cm2/s suffix], as for 'mcdiff fluxes'\n"
+        "  --csv                     CSV (the default): header row\n"
+        "                            t_s,x1_A,...,x2_A,... then one row per\n"
+        "                            time; the caution goes to stderr\n"
+        "  --json                    one JSON object (SI): \"t\" [s], \"x1\",\n"
+        "                            \"x2\" (rows = times), \"x_final\"\n"
+        "  --species-file FILE       also load species from FILE\n"
+        "  -h, --help                this text\n"
+        "\n"
+        "example (invented cell: hydrogen against carbon dioxide, nitrogen\n"
+        "in both bulbs):\n"
+        "  mcdiff bulbs -s H2,N2,CO2 --x1 0.5,0.5,0 --x2 0,0.5,0.5 \\\n"
+        "      --v1 80cm3 --v2 0.1L -L 9cm --diameter 2mm -t 0:6h:13 \\\n"
+        "      -T 35C -P 1atm\n",
+        f);
+}
+
+enum {
+    O_X1 = 1, O_X2, O_V1, O_V2, O_LEN, O_AREA, O_DIAM, O_TIMES, O_MODEL,
+    O_TOL
+};
+
+static const cli_opt bulbs_opts[] = {
+    CLI_MIXTURE_OPTIONS,
+    {"x1", 0, 1, O_X1},
+    {"x2", 0, 1, O_X2},
+    {"v1", 0, 1, O_V1},
+    {"v2", 0, 1, O_V2},
+    {"V1", 0, 1, O_V1},
+    {"V2", 0, 1, O_V2},
+    {"length", 'L', 1, O_LEN},
+    {"area", 0, 1, O_AREA},
+    {"diameter", 0, 1, O_DIAM},
+    {"times", 't', 1, O_TIMES},
+    {"model", 0, 1, O_MODEL},
+    {"tolerance", 0, 1, O_TOL},
+    {NULL, 0, 0, 0}};
+
+typedef struct bulbs_job {
+    cli_state s;
+    double x1in[MCD_MAX_SPECIES], x2in[MCD_MAX_SPECIES];
+    size_t nx1, nx2;
+    double x2[MCD_MAX_SPECIES];    /* validated x2 */
+    double V1, V2, L, A;
+    int integrated;
+    double tol;
+    int have_tol;
+    double *t;
+    size_t nt;
+    double *x1t, *x2t;             /* nt x n each */
+} bulbs_job;
+
+static int parse(bulbs_job *bj, const char *cmd, int argc, char **argv)
+{
+    cli_state *s = &bj->s;
+    cli_args a;
+    int id, rc, have_area = 0, have_diam = 0;
+    char why[200];
+    double d;
+
+    cli_state_defaults(s);
+    bj->V1 = bj->V2 = bj->L = bj->A = NAN;
+    bj->integrated = 1;
+    bj->tol = 1e-9;
+    cli_args_init(&a, cmd, argc, argv, bulbs_opts);
+    while ((id = cli_args_next(&a)) != CLI_ARG_END) {
+        if (id >= CLI_O_SPECIES && id != CLI_O_HELP) {
+            rc = cli_state_option(s, cmd, &a, id);
+            if (rc != CLI_OK)
+                return rc;
+            continue;
+        }
+        switch (id) {
+        case CLI_ARG_ERROR:
+            return CLI_USAGE;
+        case CLI_O_HELP:
+            help(stdout);
+            return -1;
+        case O_X1:
+        case O_X2:
+            if ((id == O_X1 && bj->nx1) || (id == O_X2 && bj->nx2))
+                return cli_usage_error(cmd, a.spelled, "given twice");
+            if (cli_parse_list(a.value, id == O_X1 ? bj->x1in : bj->x2in,
+                               MCD_MAX_SPECIES,
+                               id == O_X1 ? &bj->nx1 : &bj->nx2, why,
+                               sizeof why) != 0)
+                return cli_usage_error(cmd, a.spelled, "%s", why);
+            break;
+        case O_V1:
+        case O_V2:
+            if (cli_parse_volume(a.value, id == O_V1 ? &bj->V1 : &bj->V2,
+                                 why, sizeof why) != 0)
+                return cli_usage_error(cmd, a.spelled, "%s", why);
+            break;
+        case O_LEN:
+            if (cli_parse_length(a.value, &bj->L, why, sizeof why) != 0)
+                return cli_usage_error(cmd, a.spelled, "%s", why);
+            break;
+        case O_AREA:
+        case O_DIAM:
+            if (have_area || have_diam)
+                return cli_usage_error(cmd, a.spelled,
+                                       "give the capillary once: --area or "
+                                       "--diameter");
+            if (id == O_AREA) {
+                if (cli_parse_area(a.value, &bj->A, why, sizeof why) != 0)
+                    return cli_usage_error(cmd, a.spelled, "%s", why);
+                have_area = 1;
+            } else {
+                if (cli_parse_length(a.value, &d, why, sizeof why) != 0)
+                    return cli_usage_error(cmd, a.spelled, "%s", why);
+                bj->A = 0.25 * 3.14159265358979323846 * d * d;
+                if (!(bj->A > 0.0) || !isfinite(bj->A))
+                    return cli_usage_error(cmd, a.spelled,
+                                           "'%s' gives no finite positive "
+                                           "area",
+                                           a.value);
+                have_diam = 1;
+            }
+            break;
+        case O_TIMES:
+            if (bj->t)
+                return cli_usage_error(cmd, a.spelled, "given twice");
+            if (cli_parse_times(a.value, &bj->t, &bj->nt, why, sizeof why) !=
+                0)
+                return cli_usage_error(cmd, a.spelled, "%s", why);
+            break;
+        case O_MODEL:
+            if (strcmp(a.value, "integrated") == 0)
+                bj->integrated = 1;
+            else if (strcmp(a.value, "linearized") == 0)
+                bj->integrated = 0;
+            else
+                return cli_usage_error(cmd, a.spelled,
+                                       "'%s' is not a two-bulb model "
+                                       "(integrated or linearized)",
+                                       a.value);
+            break;
+        case O_TOL:
+            if (cli_parse_number(a.value, &bj->tol, why, sizeof why) != 0)
+                return cli_usage_error(cmd, a.spelled, "%s", why);
+            if (!(bj->tol >= 1e-12 && bj->tol <= 1e-2))
+                return cli_usage_error(cmd, a.spelled,
+                                       "'%s' is not in 1e-12..1e-2",
+                                       a.value);
+            bj->have_tol = 1;
+            break;
+        case CLI_ARG_POSITIONAL:
+            return cli_usage_error(cmd, a.value,
+                                   "unexpected argument (options only; see "
+                                   "--help)");
+        default:
+            return CLI_USAGE;
+        }
+    }
+    if ((rc = cli_state_require(s, cmd)) != CLI_OK)
+        return rc;
+    if (bj->nx1 == 0)
+        return cli_usage_error(cmd, "--x1", "is required (bulb 1 at t = 0)");
+    if (bj->nx2 == 0)
+        return cli_usage_error(cmd, "--x2", "is required (bulb 2 at t = 0)");
+    if (bj->nx1 != s->n)
+        return cli_usage_error(cmd, "--x1", "has %zu values for %zu species",
+                               bj->nx1, s->n);
+    if (bj->nx2 != s->n)
+        return cli_usage_error(cmd, "--x2", "has %zu values for %zu species",
+                               bj->nx2, s->n);
+    if (isnan(bj->V1))
+        return cli_usage_error(cmd, "--v1", "is required (volume of bulb 1)");
+    if (isnan(bj->V2))
+        return cli_usage_error(cmd, "--v2", "is required (volume of bulb 2)");
+    if (isnan(bj->L))
+        return cli_usage_error(cmd, "-L/--length",
+                               "is required (capillary length)");
+    if (!have_area && !have_diam)
+        return cli_usage_error(cmd, "--area",
+                               "the capillary cross-section is required "
+                               "(or --diameter)");
+    if (!bj->t)
+        return cli_usage_error(cmd, "-t/--times", "is required");
+    if (bj->have_tol && !bj->integrated)
+        return cli_usage_error(cmd, "--tolerance",
+                               "is only used by --model integrated");
+    return CLI_OK;
+}
+
+static void print_csv(const bulbs_job *bj)
+{
+    const cli_state *s = &bj->s;
+    size_t n = s->n, i, k;
+    cli_csv c;
+    cli_csv_init(&c, stdout);
+    cli_csv_head(&c, "t", "", "s");
+    for (i = 0; i < n; i++)
+        cli_csv_head(&c, "x1_", mcd_mixture_name(s->mix, i), "-");
+    for (i = 0; i < n; i++)
+        cli_csv_head(&c, "x2_", mcd_mixture_name(s->mix, i), "-");
+    cli_csv_end_row(&c);
+    for (k = 0; k < bj->nt; k++) {
+        cli_csv_number(&c, bj->t[k]);
+        for (i = 0; i < n; i++)
+            cli_csv_number(&c, bj->x1t[k * n + i]);
+        for (i = 0; i < n; i++)
+            cli_csv_number(&c, bj->x2t[k * n + i]);
+        cli_csv_end_row(&c);
+    }
+}
+
+static void print_json(const bulbs_job *bj)
+{
+    const cli_state *s = &bj->s;
+    size_t n = s->n, i, k;
+    double xbar[MCD_MAX_SPECIES];
+    cli_json j;
+
+    for (i = 0; i < n; i++)
+        xbar[i] = (bj->V1 * s->x[i] + bj->V2 * bj->x2[i]) / (bj->V1 + bj->V2);
+    cli_json_init(&j, stdout);
+    cli_json_object_begin(&j, NULL);
+    cli_json_array_begin(&j, "species");
+    for (i = 0; i < n; i++)
+        cli_json_string(&j, NULL, mcd_mixture_name(s->mix, i));
+    cli_json_array_end(&j);
+    cli_json_number(&j, "T", s->T);
+    cli_json_number(&j, "P", s->P);
+    cli_json_number(&j, "c", s->c);
+    cli_json_number(&j, "V1", bj->V1);
+    cli_json_number(&j, "V2", bj->V2);
+    cli_json_number(&j, "A", bj->A);
+    cli_json_number(&j, "L", bj->L);
+    cli_json_number(&j, "beta",
+                    bj->A * (bj->V1 + bj->V2) / (bj->L * bj->V1 * bj->V2));
+    cli_json_string(&j, "model", bj->integrated ? "integrated" : "linearized");
+    if (bj->integrated)
+        cli_json_number(&j, "tolerance", bj->tol);
+    else
+        cli_json_null(&j, "tolerance");
+    cli_state_json_binaries(s, &j);
+    cli_json_numbers(&j, "x1_initial", s->x, n);
+    cli_json_numbers(&j, "x2_initial", bj->x2, n);
+    cli_json_numbers(&j, "x_final", xbar, n);
+    cli_json_numbers(&j, "t", bj->t, bj->nt);
+    cli_json_array_begin(&j, "x1");
+    for (k = 0; k < bj->nt; k++)
+        cli_json_numbers(&j, NULL, bj->x1t + k * n, n);
+    cli_json_array_end(&j);
+    cli_json_array_begin(&j, "x2");
+    for (k = 0; k < bj->nt; k++)
+        cli_json_numbers(&j, NULL, bj->x2t + k * n, n);
+    cli_json_array_end(&j);
+    cli_json_string(&j, "caution", CLI_CAUTION_TRANSFER_LONG);
+    cli_json_object_end(&j);
+    cli_json_finish(&j);
+}
+
+int cli_cmd_bulbs(int argc, char **argv)
+{
+    const char *cmd = "bulbs";
+    bulbs_job *bj = calloc(1, sizeof *bj);
+    cli_state *s;
+    mcd_status st;
+    int rc;
+    size_t n;
+
+    if (!bj)
+        return cli_fail(cmd, "setting up", MCD_ENOMEM, NULL);
+    s = &bj->s;
+    rc = parse(bj, cmd, argc, argv);
+    if (rc != CLI_OK) {
+        rc = rc < 0 ? CLI_OK : rc;
+        goto done;
+    }
+    n = s->n;
+    s->comp_basis = s->out_basis = MCD_BASIS_MOLE;
+    s->comp_opt = "--x1";
+    s->comp = malloc(n * sizeof *s->comp);
+    bj->x1t = malloc(bj->nt * n * sizeof *bj->x1t);
+    bj->x2t = malloc(bj->nt * n * sizeof *bj->x2t);
+    if (!s->comp || !bj->x1t || !bj->x2t) {
+        rc = cli_fail(cmd, "setting up", MCD_ENOMEM, NULL);
+        goto done;
+    }
+    memcpy(s->comp, bj->x1in, n * sizeof *s->comp);
+    rc = cli_state_setup(s, cmd);
+    if (rc != CLI_OK)
+        goto done;
+    st = mcd_comp_normalize(n, bj->x2in, bj->x2);
+    if (st == MCD_EDOM || st == MCD_EINVAL) {
+        rc = cli_usage_error(cmd, "--x2",
+                             "%s: fractions must be >= 0 and sum to 1 "
+                             "(within %g)",
+                             mcd_status_string(st), MCD_SUM_TOL);
+        goto done;
+    }
+    if (bj->integrated)
+        st = mcd_bulbs_integrate(s->ws, n, s->Dij, s->c, bj->V1, bj->V2,
+                                 bj->A, bj->L, s->x, bj->x2, bj->nt, bj->t,
+                                 bj->tol, bj->x1t, bj->x2t);
+    else
+        st = mcd_bulbs_linearized(s->ws, n, s->Dij, s->c, bj->V1, bj->V2,
+                                  bj->A, bj->L, s->x, bj->x2, bj->nt, bj->t,
+                                  bj->x1t, bj->x2t);
+    if (st != MCD_OK) {
+        rc = cli_fail(cmd,
+                      bj->integrated ? "the two-bulb integration"
+                                     : "the linearized two-bulb solution",
+                      st, mcd_workspace_last_error(s->ws));
+        goto done;
+    }
+    if (s->json) {
+        print_json(bj);
+    } else {
+        print_csv(bj);
+        fprintf(stderr, "%s\n", CLI_CAUTION_TRANSFER_SHORT);
+    }
+    rc = CLI_OK;
+done:
+    free(bj->t);
+    free(bj->x1t);
+    free(bj->x2t);
+    cli_state_free(s);
+    free(bj);
+    return rc;
+}
