@@ -1,0 +1,864 @@
+"""Function wrappers over the C library, in the order of include/mcdiff.h.
+
+Units are SI throughout (see the header). Fluxes and gradients are
+per-species fields: shape (n,) for one direction or (n, n_dim) with n_dim
+1..3; a 1-D input gives a 1-D result. Matrices are (n, n), given nested or
+flat row-major. Results are numpy arrays when numpy is available, else
+lists. Failures raise an McdError subclass (mcdiff.errors).
+
+Calls that need scratch memory accept ``workspace=`` (a Workspace); without
+it they use one workspace per thread, grown when a call needs more species.
+"""
+
+import collections
+import ctypes
+import math
+import threading
+
+from . import _arrays
+from ._arrays import np
+from ._native import lib
+from .enums import Basis, Bootstrap, Diag, FilmMethod, Method, Model, coerce
+from .errors import error_for
+from .handles import Workspace
+
+__all__ = [
+    # version
+    "version_number", "version_string",
+    # formulas
+    "formula_molar_mass", "formula_elements", "formula_diffusion_volume",
+    "fsg_molecule_volume", "element_symbol", "element_weight",
+    # compositions
+    "normalize", "x_to_w", "w_to_x", "mean_molar_mass_x", "mean_molar_mass_w",
+    "x_to_c", "c_to_x", "ideal_gas_c", "grad_x_to_w", "grad_w_to_x",
+    # binaries
+    "method_name", "method_from_name", "method_typical_error",
+    "warning_string", "warning_strings", "fsg_raw", "chapman_enskog_raw",
+    "wilke_lee_raw", "wilke_chang_raw", "collision_omega_d", "binary_scale",
+    "binary_gas", "binary_liquid",
+    # fluxes
+    "flux_compute", "fick_matrix", "fick_fluxes", "fick_eigenvalues",
+    "flux_convert", "flux_to_volume_frame", "flux_to_species_frame",
+    "flux_total", "velocity_difference", "flux_project", "flux_diagnose",
+    # batched
+    "flux_batch", "flux_batch_dij",
+    # transfer
+    "film_solve", "film_profile", "bulbs_linearized", "bulbs_integrate",
+    # results
+    "FickMatrix", "TotalFlux", "ProjectedFlux", "FilmResult", "BulbsResult",
+    "default_workspace",
+]
+
+FickMatrix = collections.namedtuple("FickMatrix", "D dependent")
+FickMatrix.__doc__ = """Generalized Fick matrix D ((n-1) x (n-1), species
+other than `dependent` in their original order) and the dependent index."""
+TotalFlux = collections.namedtuple("TotalFlux", "total bulk")
+TotalFlux.__doc__ = """Total fluxes (shape of the diffusion fluxes) and the
+bulk flux N_t or n_t (float for 1-D input, else length n_dim)."""
+ProjectedFlux = collections.namedtuple("ProjectedFlux", "flux residual")
+FilmResult = collections.namedtuple("FilmResult", "N iterations residual")
+FilmResult.__doc__ = """Steady film fluxes N [mol/(m^2 s)], iterations used
+and the last relative change (RATIOS: the end-composition residual)."""
+BulbsResult = collections.namedtuple("BulbsResult", "x1 x2")
+BulbsResult.__doc__ = """Two-bulb mole fractions, each n_times x n."""
+
+_ERRLEN = 512
+_tls = threading.local()
+
+
+def _text(b):
+    return None if b is None else b.decode("utf-8", "replace")
+
+
+def _check(st, function, detail=""):
+    if st:
+        raise error_for(st, function, detail)
+
+
+def default_workspace(n_species):
+    """This thread's shared workspace, with capacity >= n_species."""
+    ws = getattr(_tls, "ws", None)
+    if ws is None or ws.closed or ws.capacity < n_species:
+        if ws is not None:
+            ws.close()
+        ws = Workspace(max(int(n_species), 8))
+        _tls.ws = ws
+    return ws
+
+
+def _ws(workspace, n):
+    if workspace is None:
+        return default_workspace(n)
+    if not isinstance(workspace, Workspace):
+        raise TypeError("workspace must be an mcdiff.Workspace")
+    return workspace
+
+
+def _sc(v, name):
+    return _arrays.scalar(v, name)
+
+
+def _opt(obj, fn):
+    """None stays None (NULL); anything else goes through fn."""
+    return None if obj is None else fn(obj)
+
+
+def _ptr(arg):
+    return None if arg is None else arg.ptr
+
+
+def _field_result(out, was_1d):
+    """Drop the direction axis of a (n, 1) result when the input was 1-D."""
+    r = out.result()
+    if not was_1d:
+        return r
+    if np is not None and isinstance(r, np.ndarray):
+        return r.reshape(-1)
+    return [row[0] for row in r]
+
+
+def _field_out(n, n_dim, was_1d, out):
+    """Output for a per-species field; a caller's 1-D out is used as is."""
+    if out is not None and was_1d:
+        return _arrays.Output((n,), out), False
+    return _arrays.Output((n, n_dim), out), was_1d
+
+
+# ---------------------------------------------------------------------------
+# Version
+# ---------------------------------------------------------------------------
+
+def version_number():
+    """Runtime library version as MAJOR*10000 + MINOR*100 + PATCH."""
+    return int(lib.mcd_version_number())
+
+
+def version_string():
+    """Runtime library version "MAJOR.MINOR.PATCH"."""
+    return _text(lib.mcd_version_string())
+
+
+# ---------------------------------------------------------------------------
+# Formulas and elements
+# ---------------------------------------------------------------------------
+
+def _fstr(formula):
+    if not isinstance(formula, str):
+        raise TypeError("formula must be a str")
+    return formula.encode()
+
+
+def formula_molar_mass(formula):
+    """Molar mass [kg/mol] of a chemical formula."""
+    out = ctypes.c_double()
+    err = ctypes.create_string_buffer(_ERRLEN)
+    st = lib.mcd_formula_molar_mass(_fstr(formula), ctypes.byref(out), err,
+                                    _ERRLEN)
+    _check(st, "mcd_formula_molar_mass", _text(err.value))
+    return out.value
+
+
+def formula_elements(formula):
+    """Element counts of a formula as an ordered dict {symbol: count}."""
+    cap = 128
+    Z = (ctypes.c_int * cap)()
+    cnt = (ctypes.c_long * cap)()
+    n = ctypes.c_size_t()
+    err = ctypes.create_string_buffer(_ERRLEN)
+    st = lib.mcd_formula_elements(_fstr(formula), cap, Z, cnt,
+                                  ctypes.byref(n), err, _ERRLEN)
+    _check(st, "mcd_formula_elements", _text(err.value))
+    return {element_symbol(Z[k]): int(cnt[k]) for k in range(n.value)}
+
+
+def formula_diffusion_volume(formula, n_rings=0):
+    """Fuller-Ensley-Giddings diffusion volume [-] from increments."""
+    out = ctypes.c_double()
+    err = ctypes.create_string_buffer(_ERRLEN)
+    st = lib.mcd_formula_diffusion_volume(_fstr(formula), int(n_rings),
+                                          ctypes.byref(out), err, _ERRLEN)
+    _check(st, "mcd_formula_diffusion_volume", _text(err.value))
+    return out.value
+
+
+def fsg_molecule_volume(formula):
+    """Tabulated Fuller diffusion volume of a simple molecule."""
+    out = ctypes.c_double()
+    st = lib.mcd_fsg_molecule_volume(_fstr(formula), ctypes.byref(out))
+    _check(st, "mcd_fsg_molecule_volume", "formula %r" % formula)
+    return out.value
+
+
+def element_symbol(Z):
+    """Symbol of element Z (1..118), or None."""
+    return _text(lib.mcd_element_symbol(int(Z)))
+
+
+def element_weight(Z):
+    """Standard atomic weight of element Z [kg/mol]."""
+    out = ctypes.c_double()
+    st = lib.mcd_element_weight(int(Z), ctypes.byref(out))
+    _check(st, "mcd_element_weight", "Z = %d" % int(Z))
+    return out.value
+
+
+# ---------------------------------------------------------------------------
+# Compositions
+# ---------------------------------------------------------------------------
+
+def normalize(y):
+    """Validated, renormalised fractions (mcd_comp_normalize)."""
+    a = _arrays.vector(y, None, "y")
+    n = a.shape[0]
+    out = _arrays.Output((n,))
+    _check(lib.mcd_comp_normalize(n, a.ptr, out.ptr), "mcd_comp_normalize")
+    return out.result()
+
+
+def _conv(fname, M, y, yname):
+    a = _arrays.vector(y, None, yname)
+    n = a.shape[0]
+    m = _arrays.vector(M, n, "M")
+    out = _arrays.Output((n,))
+    _check(getattr(lib, fname)(n, m.ptr, a.ptr, out.ptr), fname)
+    return out.result()
+
+
+def x_to_w(M, x):
+    """Mass fractions from mole fractions."""
+    return _conv("mcd_comp_x_to_w", M, x, "x")
+
+
+def w_to_x(M, w):
+    """Mole fractions from mass fractions."""
+    return _conv("mcd_comp_w_to_x", M, w, "w")
+
+
+def _mean(fname, M, y, yname):
+    a = _arrays.vector(y, None, yname)
+    n = a.shape[0]
+    m = _arrays.vector(M, n, "M")
+    out = ctypes.c_double()
+    _check(getattr(lib, fname)(n, m.ptr, a.ptr, ctypes.byref(out)), fname)
+    return out.value
+
+
+def mean_molar_mass_x(M, x):
+    """Mean molar mass [kg/mol] from mole fractions."""
+    return _mean("mcd_comp_mean_molar_mass_x", M, x, "x")
+
+
+def mean_molar_mass_w(M, w):
+    """Mean molar mass [kg/mol] from mass fractions."""
+    return _mean("mcd_comp_mean_molar_mass_w", M, w, "w")
+
+
+def x_to_c(c_total, x):
+    """Species concentrations c_i = c x_i [mol/m^3]."""
+    a = _arrays.vector(x, None, "x")
+    n = a.shape[0]
+    out = _arrays.Output((n,))
+    _check(lib.mcd_comp_x_to_c(n, _sc(c_total, "c_total"), a.ptr, out.ptr),
+           "mcd_comp_x_to_c")
+    return out.result()
+
+
+def c_to_x(c):
+    """(mole fractions, total concentration) from concentrations."""
+    a = _arrays.vector(c, None, "c")
+    n = a.shape[0]
+    out = _arrays.Output((n,))
+    tot = ctypes.c_double()
+    _check(lib.mcd_comp_c_to_x(n, a.ptr, out.ptr, ctypes.byref(tot)),
+           "mcd_comp_c_to_x")
+    return out.result(), tot.value
+
+
+def ideal_gas_c(T, P):
+    """Ideal-gas total concentration P/(R T) [mol/m^3]."""
+    out = ctypes.c_double()
+    _check(lib.mcd_ideal_gas_c(_sc(T, "T"), _sc(P, "P"), ctypes.byref(out)),
+           "mcd_ideal_gas_c", "T = %r K, P = %r Pa" % (T, P))
+    return out.value
+
+
+def _grad_conv(fname, M, y, grad, yname):
+    a = _arrays.vector(y, None, yname)
+    n = a.shape[0]
+    m = _arrays.vector(M, n, "M")
+    g, nd, was_1d = _arrays.field(grad, n, "grad")
+    out = _arrays.Output((n, nd))
+    _check(getattr(lib, fname)(n, nd, m.ptr, a.ptr, g.ptr, out.ptr), fname)
+    return _field_result(out, was_1d)
+
+
+def grad_x_to_w(M, x, grad_x):
+    """Gradients of mass fractions from mole fractions and their
+    gradients."""
+    return _grad_conv("mcd_comp_grad_x_to_w", M, x, grad_x, "x")
+
+
+def grad_w_to_x(M, w, grad_w):
+    """Gradients of mole fractions from mass fractions and their
+    gradients."""
+    return _grad_conv("mcd_comp_grad_w_to_x", M, w, grad_w, "w")
+
+
+# ---------------------------------------------------------------------------
+# Binary diffusivities
+# ---------------------------------------------------------------------------
+
+def method_name(method):
+    """Short name of a method ("fsg", ...), or None."""
+    return _text(lib.mcd_method_name(int(method)))
+
+
+def method_from_name(name):
+    """Method from its short name (case-insensitive), by the library."""
+    out = ctypes.c_int()
+    st = lib.mcd_method_from_name(name.encode(), ctypes.byref(out))
+    _check(st, "mcd_method_from_name", "name %r" % name)
+    return Method(out.value)
+
+
+def method_typical_error(method):
+    """Published average relative error of a method (NaN for USER)."""
+    return lib.mcd_method_typical_error(coerce(Method, method, "method"))
+
+
+def warning_string(bit):
+    """Text of one warning bit, or None."""
+    return _text(lib.mcd_warning_string(int(bit)))
+
+
+def warning_strings(bits):
+    """Texts of every bit set in a warning mask."""
+    bits = int(bits)
+    return [warning_string(1 << k) for k in range(32) if bits >> k & 1]
+
+
+def _raw(fname, *args):
+    out = ctypes.c_double()
+    vals = [_sc(v, "argument %d" % k) for k, v in enumerate(args)]
+    _check(getattr(lib, fname)(*vals, ctypes.byref(out)), fname)
+    return out.value
+
+
+def fsg_raw(T, P, MA, MB, VA, VB):
+    """Fuller-Schettler-Giddings estimate [m^2/s] from raw parameters."""
+    return _raw("mcd_fsg_raw", T, P, MA, MB, VA, VB)
+
+
+def chapman_enskog_raw(T, P, MA, MB, sigA, sigB, epsA, epsB):
+    """Chapman-Enskog estimate [m^2/s] from Lennard-Jones parameters."""
+    return _raw("mcd_chapman_enskog_raw", T, P, MA, MB, sigA, sigB, epsA,
+                epsB)
+
+
+def wilke_lee_raw(T, P, MA, MB, sigA, sigB, epsA, epsB):
+    """Wilke-Lee estimate [m^2/s] from Lennard-Jones parameters."""
+    return _raw("mcd_wilke_lee_raw", T, P, MA, MB, sigA, sigB, epsA, epsB)
+
+
+def wilke_chang_raw(T, mu_solvent, M_solvent, phi, Vb_solute):
+    """Wilke-Chang infinite-dilution diffusivity [m^2/s]."""
+    return _raw("mcd_wilke_chang_raw", T, mu_solvent, M_solvent, phi,
+                Vb_solute)
+
+
+def collision_omega_d(T_star):
+    """Neufeld-Janzen-Aziz diffusion collision integral Omega_D(T*)."""
+    return _raw("mcd_collision_omega_d", T_star)
+
+
+def binary_scale(D_ref, T_ref, P_ref, T, P, exponent=1.75):
+    """D_ref (T/T_ref)^exponent (P_ref/P) [m^2/s]."""
+    return _raw("mcd_binary_scale", D_ref, T_ref, P_ref, T, P, exponent)
+
+
+def binary_gas(db, a, b, method, T, P):
+    """Gas binary diffusivity of two species of a Database:
+    BinaryEstimate(D, rel_err, warnings)."""
+    return db.binary_gas(a, b, method, T, P)
+
+
+def binary_liquid(db, solute, solvent, T, mu_solvent):
+    """Wilke-Chang diffusivity of solute in solvent from a Database:
+    BinaryEstimate(D, rel_err, warnings)."""
+    return db.binary_liquid(solute, solvent, T, mu_solvent)
+
+
+# ---------------------------------------------------------------------------
+# Diffusion fluxes and Fick matrices
+# ---------------------------------------------------------------------------
+
+def flux_compute(Dij, c, comp, grad, *, M=None, model="maxwell-stefan",
+                 comp_basis="mole", flux_basis=None, Gamma=None,
+                 grad_lnP=None, workspace=None, out=None):
+    """Diffusion fluxes of all species at one state (mcd_flux_compute).
+
+    Dij: binary diffusivities (n x n) [m^2/s]; c: total concentration
+    [mol/m^3]; comp: mole or mass fractions (comp_basis); grad: their
+    gradients [1/m], shape (n,) or (n, n_dim). M [kg/mol] is needed for
+    the mass basis and pressure diffusion. flux_basis defaults to
+    comp_basis: "mole" gives J_i [mol/(m^2 s)] relative to the
+    molar-average velocity, "mass" gives j_i [kg/(m^2 s)] relative to the
+    mass-average velocity. Gamma: thermodynamic factors (n x n) or None
+    (ideal). grad_lnP: length n_dim or None. out: optional numpy array of
+    the result's shape.
+    """
+    model = coerce(Model, model, "model")
+    cb = coerce(Basis, comp_basis, "comp_basis")
+    fb = cb if flux_basis is None else coerce(Basis, flux_basis, "flux_basis")
+    x = _arrays.vector(comp, None, "comp")
+    n = x.shape[0]
+    D = _arrays.matrix(Dij, n, n, "Dij")
+    g, nd, was_1d = _arrays.field(grad, n, "grad")
+    m = _opt(M, lambda v: _arrays.vector(v, n, "M"))
+    G = _opt(Gamma, lambda v: _arrays.matrix(v, n, n, "Gamma"))
+    lp = _opt(grad_lnP, lambda v: _arrays.vector(
+        [v] if isinstance(v, (int, float)) else v, nd, "grad_lnP"))
+    ws = _ws(workspace, n)
+    o, was_1d = _field_out(n, nd, was_1d, out)
+    st = lib.mcd_flux_compute(ws._p(), model, n, nd, _ptr(m), D.ptr,
+                              _sc(c, "c"), cb, x.ptr, g.ptr, _ptr(G),
+                              _ptr(lp), fb, o.ptr)
+    ws.check(st, "mcd_flux_compute")
+    if out is not None:
+        return out
+    return _field_result(o, was_1d)
+
+
+def fick_matrix(Dij, comp, *, M=None, comp_basis="mole", Gamma=None,
+                basis="mole", dependent=None, workspace=None):
+    """Generalized Fick matrix (mcd_fick_matrix): FickMatrix(D, dependent).
+
+    J = -c [D] grad x (basis "mole") or j = -rho [D] grad w (basis "mass"),
+    over the species other than `dependent` (index; None picks the most
+    abundant). D is (n-1) x (n-1) [m^2/s].
+    """
+    cb = coerce(Basis, comp_basis, "comp_basis")
+    b = coerce(Basis, basis, "basis")
+    x = _arrays.vector(comp, None, "comp")
+    n = x.shape[0]
+    D = _arrays.matrix(Dij, n, n, "Dij")
+    m = _opt(M, lambda v: _arrays.vector(v, n, "M"))
+    G = _opt(Gamma, lambda v: _arrays.matrix(v, n, n, "Gamma"))
+    dep = ctypes.c_size_t(ctypes.c_size_t(-1).value if dependent is None
+                          else int(dependent))
+    ws = _ws(workspace, n)
+    k = max(n - 1, 0)
+    o = _arrays.Output((k, k))
+    used = ctypes.c_size_t()
+    st = lib.mcd_fick_matrix(ws._p(), n, _ptr(m), D.ptr, cb, x.ptr, _ptr(G),
+                             b, dep.value, o.ptr, ctypes.byref(used))
+    ws.check(st, "mcd_fick_matrix")
+    return FickMatrix(o.result(), used.value)
+
+
+def _square(Dmat, name="D"):
+    a = _arrays.as_doubles(Dmat, name)
+    if a.ndim == 2 and a.shape[0] == a.shape[1]:
+        return a, a.shape[0]
+    if a.ndim == 1:
+        m = math.isqrt(a.size)
+        if m * m == a.size:
+            return a, m
+    if a.ndim == 0:
+        return a, 1
+    raise ValueError("%s: expected a square matrix, got shape %s"
+                     % (name, a.shape))
+
+
+def fick_fluxes(D, dependent, conc, grad):
+    """Fluxes from a Fick matrix (mcd_fick_fluxes): for i != dependent
+    F_i = -conc sum_j D_ij grad_j, F_dependent = -(sum of the others).
+    conc is c (molar fluxes) or rho (mass fluxes); grad has n = m + 1
+    rows (the dependent row is ignored)."""
+    a, k = _square(D, "D")
+    n = k + 1
+    g, nd, was_1d = _arrays.field(grad, n, "grad")
+    o = _arrays.Output((n, nd))
+    st = lib.mcd_fick_fluxes(n, nd, a.ptr, int(dependent), _sc(conc, "conc"),
+                             g.ptr, o.ptr)
+    _check(st, "mcd_fick_fluxes")
+    return _field_result(o, was_1d)
+
+
+def fick_eigenvalues(D, *, workspace=None):
+    """Eigenvalues of a Fick matrix (LAPACK dgeev), sorted by decreasing
+    real part: a complex numpy array, or a list of complex without numpy."""
+    a, k = _square(D, "D")
+    ws = _ws(workspace, k + 1)
+    re = _arrays.Output((k,))
+    im = _arrays.Output((k,))
+    st = lib.mcd_fick_eigenvalues(ws._p(), k, a.ptr, re.ptr, im.ptr)
+    ws.check(st, "mcd_fick_eigenvalues")
+    r, i = re.result(), im.result()
+    if np is not None:
+        return r + 1j * i
+    return [complex(u, v) for u, v in zip(r, i)]
+
+
+# ---------------------------------------------------------------------------
+# Bases, frames and total fluxes
+# ---------------------------------------------------------------------------
+
+def flux_convert(M, x, flux, from_basis, to_basis):
+    """Convert diffusion fluxes between the molar (J) and mass (j) bases
+    and their frames. x: mole fractions."""
+    fb = coerce(Basis, from_basis, "from_basis")
+    tb = coerce(Basis, to_basis, "to_basis")
+    xa = _arrays.vector(x, None, "x")
+    n = xa.shape[0]
+    m = _arrays.vector(M, n, "M")
+    f, nd, was_1d = _arrays.field(flux, n, "flux")
+    o = _arrays.Output((n, nd))
+    st = lib.mcd_flux_convert(n, nd, m.ptr, xa.ptr, fb, f.ptr, tb, o.ptr)
+    _check(st, "mcd_flux_convert")
+    return _field_result(o, was_1d)
+
+
+def flux_to_volume_frame(c, x, Vbar, J):
+    """Molar fluxes relative to the volume-average velocity.
+    Vbar: partial molar volumes [m^3/mol] (ideal gas: 1/c each)."""
+    xa = _arrays.vector(x, None, "x")
+    n = xa.shape[0]
+    v = _arrays.vector(Vbar, n, "Vbar")
+    f, nd, was_1d = _arrays.field(J, n, "J")
+    o = _arrays.Output((n, nd))
+    st = lib.mcd_flux_to_volume_frame(n, nd, _sc(c, "c"), xa.ptr, v.ptr,
+                                      f.ptr, o.ptr)
+    _check(st, "mcd_flux_to_volume_frame")
+    return _field_result(o, was_1d)
+
+
+def flux_to_species_frame(x, J, k):
+    """Molar fluxes relative to the velocity of species k (x_k > 0)."""
+    xa = _arrays.vector(x, None, "x")
+    n = xa.shape[0]
+    f, nd, was_1d = _arrays.field(J, n, "J")
+    o = _arrays.Output((n, nd))
+    st = lib.mcd_flux_to_species_frame(n, nd, xa.ptr, f.ptr, int(k), o.ptr)
+    _check(st, "mcd_flux_to_species_frame", "k = %d" % int(k))
+    return _field_result(o, was_1d)
+
+
+def flux_total(comp, diff, bootstrap, *, species=0, values=None,
+               basis="mole"):
+    """Total fluxes N_i = J_i + x_i N_t (basis "mole") or
+    n_i = j_i + w_i n_t ("mass") under a bootstrap condition:
+    "total" (values = N_t per direction), "stagnant" (species does not
+    move), "equimolar", "weights" (values = nu, length n).
+    Returns TotalFlux(total, bulk)."""
+    b = coerce(Basis, basis, "basis")
+    kind = coerce(Bootstrap, bootstrap, "bootstrap")
+    y = _arrays.vector(comp, None, "comp")
+    n = y.shape[0]
+    f, nd, was_1d = _arrays.field(diff, n, "diff")
+    vals = None
+    if values is not None:
+        if isinstance(values, (int, float)):
+            values = [values]
+        want = n if kind == Bootstrap.WEIGHTS else (
+            nd if kind == Bootstrap.TOTAL else None)
+        vals = _arrays.vector(values, want, "values")
+    o = _arrays.Output((n, nd))
+    bulk = _arrays.Output((nd,))
+    st = lib.mcd_flux_total(n, nd, b, y.ptr, f.ptr, kind, int(species),
+                            _ptr(vals), o.ptr, bulk.ptr)
+    _check(st, "mcd_flux_total", "bootstrap %s" % kind.name.lower())
+    bk = bulk.result()
+    return TotalFlux(_field_result(o, was_1d),
+                     float(bk[0]) if was_1d else bk)
+
+
+def velocity_difference(M, c, x, J):
+    """v - u [m/s], mass- minus molar-average velocity (float for 1-D J,
+    else length n_dim)."""
+    xa = _arrays.vector(x, None, "x")
+    n = xa.shape[0]
+    m = _arrays.vector(M, n, "M")
+    f, nd, was_1d = _arrays.field(J, n, "J")
+    o = _arrays.Output((nd,))
+    st = lib.mcd_velocity_difference(n, nd, m.ptr, _sc(c, "c"), xa.ptr,
+                                     f.ptr, o.ptr)
+    _check(st, "mcd_velocity_difference")
+    r = o.result()
+    return float(r[0]) if was_1d else r
+
+
+def flux_project(flux, weights=None, *, inplace=False):
+    """Project fluxes onto the zero-sum: F_i -= a_i sum_k F_k with
+    a = weights / sum(weights), or 1/n when weights is None.
+    Returns ProjectedFlux(flux, residual). With inplace=True, flux must be
+    a C-contiguous writeable float64 numpy array or an array.array('d') of
+    one direction, which is changed and returned."""
+    if inplace:
+        f = _arrays.as_doubles(flux, "flux")
+        if f.copied:
+            raise TypeError("flux_project(inplace=True) needs a C-contiguous "
+                            "float64 numpy array or an array.array('d')")
+        if np is not None and isinstance(flux, np.ndarray) and \
+                not flux.flags["WRITEABLE"]:
+            raise ValueError("flux: read-only array")
+        n = f.shape[0] if f.ndim >= 1 else 0
+        if f.ndim == 1:
+            nd, was_1d = 1, True
+        elif f.ndim == 2:
+            nd, was_1d = f.shape[1], False
+        else:
+            raise ValueError("flux: expected shape (n,) or (n, n_dim)")
+        target = flux
+    else:
+        src = _arrays.as_doubles(flux, "flux")
+        if src.ndim == 1:
+            n, nd, was_1d = src.shape[0], 1, True
+        elif src.ndim == 2:
+            n, nd, was_1d = src.shape[0], src.shape[1], False
+        else:
+            raise ValueError("flux: expected shape (n,) or (n, n_dim)")
+        o = _arrays.Output((n, nd))
+        ctypes.memmove(o.ptr, src.ptr, 8 * n * nd)
+        f = o
+    w = _opt(weights, lambda v: _arrays.vector(v, n, "weights"))
+    res = _arrays.Output((nd,))
+    st = lib.mcd_flux_project(n, nd, _ptr(w), f.ptr, res.ptr)
+    _check(st, "mcd_flux_project")
+    r = res.result()
+    resid = float(r[0]) if was_1d else r
+    if inplace:
+        return ProjectedFlux(target, resid)
+    return ProjectedFlux(_field_result(f, was_1d), resid)
+
+
+def flux_diagnose(grad, flux, rel_tol=1e-3):
+    """Coupling flags per species: a list of Diag (REVERSE, OSMOTIC,
+    BARRIER or none)."""
+    g = _arrays.as_doubles(grad, "grad")
+    n = g.shape[0] if g.ndim else 0
+    g, nd, _ = _arrays.field(grad, n, "grad")
+    f = _arrays.field(flux, n, "flux")
+    if f[1] != nd:
+        raise ValueError("flux: %d directions, grad has %d" % (f[1], nd))
+    flags = (ctypes.c_uint * max(n, 1))()
+    st = lib.mcd_flux_diagnose(n, nd, g.ptr, f[0].ptr, _sc(rel_tol, "rel_tol"),
+                               flags)
+    _check(st, "mcd_flux_diagnose")
+    return [Diag(flags[i]) for i in range(n)]
+
+
+# ---------------------------------------------------------------------------
+# Batched fluxes
+# ---------------------------------------------------------------------------
+
+def _per_cell(v, K, name):
+    """A length-K vector; a scalar is repeated K times."""
+    if isinstance(v, (int, float)):
+        v = [float(v)] * K
+    return _arrays.vector(v, K, name)
+
+
+def _batch_fields(N, K, comp, grad, grad_lnP, layout):
+    """Validate batched comp/grad/grad_lnP; returns (comp, grad, n_dim,
+    grad_lnP or None)."""
+    a = _arrays.as_doubles(comp, "comp")
+    want = (N, K) if layout == "soa" else (K, N)
+    if not (a.shape == want or (a.ndim == 1 and a.size == N * K)):
+        raise ValueError("comp: expected shape %s (layout %r), got %s"
+                         % (want, layout, a.shape))
+    g = _arrays.as_doubles(grad, "grad")
+    if N * K == 0:
+        nd = g.shape[-2] if (layout == "soa" and g.ndim == 3) else (
+            g.shape[-1] if g.ndim == 3 else 1)
+    else:
+        nd, rem = divmod(g.size, N * K)
+        if rem or not 1 <= nd <= 3:
+            raise ValueError("grad: size %d is not N K n_dim with N = %d, "
+                             "K = %d, n_dim 1..3" % (g.size, N, K))
+    ok = {1: [(N, K) if layout == "soa" else (K, N)]}
+    full = (N, nd, K) if layout == "soa" else (K, N, nd)
+    if not (g.ndim == 1 or g.shape == full or g.shape in ok.get(nd, [])):
+        raise ValueError("grad: expected shape %s%s (layout %r), got %s"
+                         % (full, " or %s" % (ok[1][0],) if nd == 1 else "",
+                            layout, g.shape))
+    lp = None
+    if grad_lnP is not None:
+        lp = _arrays.as_doubles(grad_lnP, "grad_lnP")
+        if lp.size != nd * K:
+            raise ValueError("grad_lnP: expected %d values (n_dim x K), got "
+                             "%d" % (nd * K, lp.size))
+    return a, g, nd, lp
+
+
+def flux_batch(mixture, T, P, comp, grad, *, model="maxwell-stefan",
+               comp_basis="mole", flux_basis=None, grad_lnP=None,
+               layout="soa", workspace=None, out=None):
+    """Diffusion fluxes of a Mixture at many states (cells) in one call
+    (mcd_flux_batch, or mcd_flux_batch_aos with layout="aos").
+
+    layout "soa" (cells last, the fast one): comp (N, K), grad (N, n_dim,
+    K) or (N, K) for one direction, grad_lnP (n_dim, K) or (K,).
+    layout "aos" (cells first): comp (K, N), grad (K, N, n_dim) or (K, N),
+    grad_lnP (K, n_dim) or (K,). T [K] and P [Pa]: length K or scalars.
+    The result has the shape of grad. model may also be "iterative"
+    (settings: Workspace.set_iterative).
+    """
+    from .handles import Mixture
+    if not isinstance(mixture, Mixture):
+        raise TypeError("mixture must be an mcdiff.Mixture")
+    if layout not in ("soa", "aos"):
+        raise ValueError("layout must be 'soa' or 'aos'")
+    mdl = coerce(Model, model, "model")
+    cb = coerce(Basis, comp_basis, "comp_basis")
+    fb = cb if flux_basis is None else coerce(Basis, flux_basis, "flux_basis")
+    N = len(mixture)
+    if isinstance(T, (int, float)) and isinstance(P, (int, float)):
+        a = _arrays.as_doubles(comp, "comp")
+        if a.ndim == 2:
+            K = a.shape[1] if layout == "soa" else a.shape[0]
+        else:
+            K = a.size // N if N else 0
+    else:
+        K = len(T) if not isinstance(T, (int, float)) else len(P)
+    Ta = _per_cell(T, K, "T")
+    Pa = _per_cell(P, K, "P")
+    a, g, nd, lp = _batch_fields(N, K, comp, grad, grad_lnP, layout)
+    ws = _ws(workspace, N)
+    o = _arrays.Output(g.shape, out)
+    fname = "mcd_flux_batch" if layout == "soa" else "mcd_flux_batch_aos"
+    st = getattr(lib, fname)(ws._p(), mixture._p(), mdl, K, nd, Ta.ptr,
+                             Pa.ptr, cb, a.ptr, g.ptr, _ptr(lp), fb, o.ptr)
+    ws.check(st, fname)
+    return out if out is not None else o.result()
+
+
+def flux_batch_dij(Dij, c, comp, grad, *, M=None, model="maxwell-stefan",
+                   comp_basis="mole", flux_basis=None, grad_lnP=None,
+                   workspace=None, out=None):
+    """Batched fluxes with your own per-cell binary diffusivities
+    (mcd_flux_batch_dij, cells last): Dij (N, N, K) [m^2/s], c (K,)
+    [mol/m^3], comp (N, K), grad (N, n_dim, K) or (N, K), grad_lnP
+    (n_dim, K) or (K,). M (N,) [kg/mol] for the mass basis or pressure
+    diffusion. The result has the shape of grad."""
+    mdl = coerce(Model, model, "model")
+    cb = coerce(Basis, comp_basis, "comp_basis")
+    fb = cb if flux_basis is None else coerce(Basis, flux_basis, "flux_basis")
+    ca = _arrays.vector([c] if isinstance(c, (int, float)) else c, None, "c")
+    K = ca.shape[0]
+    a0 = _arrays.as_doubles(comp, "comp")
+    if a0.ndim == 2:
+        N = a0.shape[0]
+    elif K:
+        N = a0.size // K
+    else:
+        raise ValueError("comp: give shape (N, K) when K = 0")
+    D = _arrays.as_doubles(Dij, "Dij")
+    if not (D.shape == (N, N, K) or (D.ndim == 1 and D.size == N * N * K)):
+        raise ValueError("Dij: expected shape %s, got %s"
+                         % ((N, N, K), D.shape))
+    a, g, nd, lp = _batch_fields(N, K, a0, grad, grad_lnP, "soa")
+    m = _opt(M, lambda v: _arrays.vector(v, N, "M"))
+    ws = _ws(workspace, N)
+    o = _arrays.Output(g.shape, out)
+    st = lib.mcd_flux_batch_dij(ws._p(), mdl, N, K, nd, _ptr(m), D.ptr,
+                                ca.ptr, cb, a.ptr, g.ptr, _ptr(lp), fb, o.ptr)
+    ws.check(st, "mcd_flux_batch_dij")
+    return out if out is not None else o.result()
+
+
+# ---------------------------------------------------------------------------
+# Mass transfer: film, two-bulb cell
+# ---------------------------------------------------------------------------
+
+def film_solve(Dij, c, L, x0, xL, bootstrap="stagnant", *, species=None,
+               values=None, method="exact", workspace=None):
+    """Steady fluxes through a film / Stefan tube (mcd_film_solve).
+
+    bootstrap: "stagnant" (species = the index that does not move),
+    "equimolar", "weights" (values = nu), "total" (values = N_t) or
+    "ratios" (values = z, species = index whose end composition is
+    matched). method: "exact" (Krishna-Standart) or "linearized".
+    Returns FilmResult(N, iterations, residual).
+    """
+    kind = coerce(Bootstrap, bootstrap, "bootstrap")
+    meth = coerce(FilmMethod, method, "method")
+    a0 = _arrays.vector(x0, None, "x0")
+    n = a0.shape[0]
+    aL = _arrays.vector(xL, n, "xL")
+    D = _arrays.matrix(Dij, n, n, "Dij")
+    if species is None:
+        if kind in (Bootstrap.STAGNANT, Bootstrap.RATIOS):
+            raise ValueError("film_solve: bootstrap %r needs species="
+                             % kind.name.lower())
+        species = 0
+    vals = None
+    if values is not None:
+        if isinstance(values, (int, float)):
+            values = [values]
+        vals = _arrays.vector(values, 1 if kind == Bootstrap.TOTAL else n,
+                              "values")
+    ws = _ws(workspace, n)
+    o = _arrays.Output((n,))
+    it = ctypes.c_size_t()
+    res = ctypes.c_double()
+    st = lib.mcd_film_solve(ws._p(), n, D.ptr, _sc(c, "c"), _sc(L, "L"),
+                            a0.ptr, aL.ptr, kind, int(species), _ptr(vals),
+                            meth, o.ptr, ctypes.byref(it), ctypes.byref(res))
+    ws.check(st, "mcd_film_solve")
+    return FilmResult(o.result(), it.value, res.value)
+
+
+def film_profile(Dij, c, L, x0, N, z, *, workspace=None):
+    """Composition profile x(z) of a steady film for fluxes N: an
+    (n_points x n) array, one row per position z [m] in [0, L]."""
+    a0 = _arrays.vector(x0, None, "x0")
+    n = a0.shape[0]
+    D = _arrays.matrix(Dij, n, n, "Dij")
+    fl = _arrays.vector(N, n, "N")
+    if isinstance(z, (int, float)):
+        z = [z]
+    zz = _arrays.vector(z, None, "z")
+    npt = zz.shape[0]
+    ws = _ws(workspace, n)
+    o = _arrays.Output((npt, n))
+    st = lib.mcd_film_profile(ws._p(), n, D.ptr, _sc(c, "c"), _sc(L, "L"),
+                              a0.ptr, fl.ptr, npt, zz.ptr, o.ptr)
+    ws.check(st, "mcd_film_profile")
+    return o.result()
+
+
+def _bulbs(fname, Dij, c, V1, V2, A, L, x1_0, x2_0, t, extra, workspace):
+    a1 = _arrays.vector(x1_0, None, "x1_0")
+    n = a1.shape[0]
+    a2 = _arrays.vector(x2_0, n, "x2_0")
+    D = _arrays.matrix(Dij, n, n, "Dij")
+    if isinstance(t, (int, float)):
+        t = [t]
+    tt = _arrays.vector(t, None, "t")
+    nt = tt.shape[0]
+    ws = _ws(workspace, n)
+    o1 = _arrays.Output((nt, n))
+    o2 = _arrays.Output((nt, n))
+    args = [ws._p(), n, D.ptr, _sc(c, "c"), _sc(V1, "V1"), _sc(V2, "V2"),
+            _sc(A, "A"), _sc(L, "L"), a1.ptr, a2.ptr, nt, tt.ptr]
+    args += extra + [o1.ptr, o2.ptr]
+    ws.check(getattr(lib, fname)(*args), fname)
+    return BulbsResult(o1.result(), o2.result())
+
+
+def bulbs_linearized(Dij, c, V1, V2, A, L, x1_0, x2_0, t, *,
+                     workspace=None):
+    """Two-bulb compositions by the linearized theory at times t [s]:
+    BulbsResult(x1, x2), each n_times x n."""
+    return _bulbs("mcd_bulbs_linearized", Dij, c, V1, V2, A, L, x1_0, x2_0,
+                  t, [], workspace)
+
+
+def bulbs_integrate(Dij, c, V1, V2, A, L, x1_0, x2_0, t, rel_tol=1e-8, *,
+                    workspace=None):
+    """Two-bulb compositions by time integration with the exact film flux
+    (Dormand-Prince 5(4)), at non-decreasing times t [s]."""
+    return _bulbs("mcd_bulbs_integrate", Dij, c, V1, V2, A, L, x1_0, x2_0,
+                  t, [_sc(rel_tol, "rel_tol")], workspace)
+

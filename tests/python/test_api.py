@@ -1,0 +1,730 @@
+#!/usr/bin/env python3
+"""The Python API over the whole library: formulas, database, binaries,
+compositions, mixtures, fluxes in every model/basis/frame, Fick matrices,
+batched fluxes and transfer; results against the C command-line tool and
+against identities computed here in plain Python.
+
+Runs with and without numpy (MCDIFF_NO_NUMPY=1): inputs are plain lists,
+array.array and (when present) numpy arrays, and must give equal results.
+"""
+
+import array
+import json
+import math
+import os
+import subprocess
+import sys
+import unittest
+
+import _support
+from _support import Rng, flat, max_abs, max_abs_diff
+
+_support.require_numpy_variant(__name__ == "__main__")
+
+import mcdiff  # noqa: E402
+from mcdiff._arrays import np  # noqa: E402
+
+R = 8.31446261815324  # J/(mol K), exact in the 2019 SI (CODATA 2018)
+ATM = 101325.0        # Pa, exact by definition
+
+
+def rows(a):
+    """A (nested) result as nested Python lists."""
+    return a.tolist() if hasattr(a, "tolist") else a
+
+
+def matvec(A, v):
+    return [sum(a * b for a, b in zip(row, v)) for row in A]
+
+
+class Formulas(unittest.TestCase):
+    def test_molar_mass_from_iupac_weights(self):
+        # IUPAC conventional atomic weights C 12.011, H 1.008, O 15.999,
+        # Cl 35.45 (common practice); 1e-4 relative covers the choice of
+        # conventional value vs interval midpoint.
+        cases = {"CH4": 12.011 + 4 * 1.008,
+                 "CH3COCH3": 3 * 12.011 + 6 * 1.008 + 15.999,
+                 "(CH3)2CO": 3 * 12.011 + 6 * 1.008 + 15.999,
+                 "C3H5Cl": 3 * 12.011 + 5 * 1.008 + 35.45}
+        for f, g_per_mol in cases.items():
+            self.assertAlmostEqual(mcdiff.formula_molar_mass(f) * 1e3 /
+                                   g_per_mol, 1.0, delta=1e-4, msg=f)
+
+    def test_elements_merged_in_order_of_appearance(self):
+        self.assertEqual(list(mcdiff.formula_elements("CH3(CH2)4CH3").items()),
+                         [("C", 6), ("H", 14)])
+        self.assertEqual(mcdiff.formula_elements("SF6"), {"S": 1, "F": 6})
+
+    def test_diffusion_volumes(self):
+        # Fuller, Ensley and Giddings (1969) as reprinted by Reid, Prausnitz
+        # and Poling (1987), Table 11-1, from memory: C 15.9, H 2.31, ring
+        # -18.3; N2 18.5 tabulated. Sums of four numbers: 1e-12 relative.
+        v = mcdiff.formula_diffusion_volume("C6H6", 1)
+        self.assertAlmostEqual(v, 6 * 15.9 + 6 * 2.31 - 18.3, delta=1e-12 * v)
+        self.assertEqual(mcdiff.fsg_molecule_volume("N2"), 18.5)
+        with self.assertRaises(mcdiff.NotFoundError):
+            mcdiff.fsg_molecule_volume("C6H6")
+        with self.assertRaises(mcdiff.NoDataError):
+            mcdiff.formula_diffusion_volume("SiH4")
+
+    def test_elements(self):
+        self.assertEqual(mcdiff.element_symbol(1), "H")
+        self.assertEqual(mcdiff.element_symbol(118), "Og")
+        self.assertIsNone(mcdiff.element_symbol(0))
+        self.assertAlmostEqual(mcdiff.element_weight(6), 12.011e-3,
+                               delta=1e-6)
+        with self.assertRaises(mcdiff.NotFoundError):
+            mcdiff.element_weight(200)
+        with self.assertRaises(mcdiff.ParseError):
+            mcdiff.formula_elements("c6h6")
+        with self.assertRaises(TypeError):
+            mcdiff.formula_molar_mass(12)
+
+
+class DatabaseTests(unittest.TestCase):
+    def setUp(self):
+        self.db = mcdiff.Database.builtin()
+
+    def tearDown(self):
+        self.db.close()
+
+    def test_builtin_table_and_lookup(self):
+        db = self.db
+        self.assertGreaterEqual(len(db), 40)
+        i = db.find("Nitrogen")
+        self.assertEqual(db.name(i), "nitrogen")
+        self.assertEqual(db.formula(i), "N2")
+        self.assertEqual(db.find("N2"), i)       # unique formula
+        self.assertEqual(db.index("nitrogen"), i)
+        self.assertIn("nitrogen", db)
+        self.assertNotIn("unobtainium", db)
+        self.assertEqual(list(db), db.names)
+        with self.assertRaises(IndexError):
+            db.name(len(db))
+
+    def test_params_sources_units(self):
+        db = self.db
+        p = db.params("nitrogen")
+        self.assertAlmostEqual(p[mcdiff.Param.MOLAR_MASS], 28.014e-3,
+                               delta=1e-6)
+        self.assertEqual(db.param("nitrogen", "M"),
+                         p[mcdiff.Param.MOLAR_MASS])
+        self.assertEqual(db.param("nitrogen", mcdiff.Param.LJ_SIGMA),
+                         db.param("nitrogen", "sigma"))
+        srcs = db.sources("nitrogen")
+        self.assertEqual(set(srcs), set(p))
+        self.assertTrue(all(srcs.values()))
+        self.assertEqual(mcdiff.param_name(mcdiff.Param.LJ_EPS_K), "eps_k")
+        self.assertEqual(mcdiff.param_unit(mcdiff.Param.PC), "Pa")
+        with self.assertRaises(ValueError):
+            db.param("nitrogen", "colour")
+
+    def test_add_set_and_load(self):
+        db = mcdiff.Database()
+        self.assertEqual(len(db), 0)
+        i = db.add("my-gas", "C2H6")
+        self.assertEqual(db.formula(i), "C2H6")
+        db.set_param(i, "sigma", 4.4e-10)
+        self.assertEqual(db.param(i, "sigma"), 4.4e-10)
+        self.assertEqual(db.source(i, "sigma"), "user")
+        with self.assertRaises(mcdiff.DomainError):
+            db.set_param(i, "sigma", -1.0)
+        with self.assertRaises(mcdiff.ParseError):
+            db.add("bad name!", "C2H6")
+        path = os.path.join(_support.TEST_DATA, "species-example.txt")
+        db.load_file(path)
+        self.assertIn("pyridine", db)
+        with open(path, encoding="utf-8") as f:
+            text = f.read()
+        db2 = mcdiff.Database()
+        db2.load_string(text)
+        self.assertEqual(db2.names, [n for n in db.names if n != "my-gas"])
+        # all or nothing: a bad file leaves the database as it was
+        n = len(db2)
+        for bad in ("species-bad-unit.txt", "species-duplicate-key.txt",
+                    "species-missing-formula.txt"):
+            with self.assertRaises(mcdiff.McdError):
+                db2.load_file(os.path.join(_support.TEST_DATA, bad))
+            self.assertEqual(len(db2), n)
+        db.close()
+        db2.close()
+
+
+class Binaries(unittest.TestCase):
+    def setUp(self):
+        self.db = mcdiff.Database.builtin()
+
+    def tearDown(self):
+        self.db.close()
+
+    def test_database_estimates_equal_raw_calls(self):
+        db = self.db
+        T, P = 320.0, 2.0e5
+        a, b = db.find("carbon-dioxide"), db.find("nitrogen")
+        pa, pb = db.params(a), db.params(b)
+        M, V = mcdiff.Param.MOLAR_MASS, mcdiff.Param.DIFF_VOLUME
+        S, E = mcdiff.Param.LJ_SIGMA, mcdiff.Param.LJ_EPS_K
+        est = db.binary_gas(a, b, "fsg", T, P)
+        self.assertEqual(est.D, mcdiff.fsg_raw(T, P, pa[M], pb[M], pa[V],
+                                               pb[V]))
+        self.assertEqual(est.rel_err, mcdiff.method_typical_error("fsg"))
+        ce = mcdiff.binary_gas(db, a, b, mcdiff.Method.CHAPMAN_ENSKOG, T, P)
+        self.assertEqual(ce.D, mcdiff.chapman_enskog_raw(
+            T, P, pa[M], pb[M], pa[S], pb[S], pa[E], pb[E]))
+        wl = db.binary_gas("carbon-dioxide", "nitrogen", "wilke-lee", T, P)
+        self.assertEqual(wl.D, mcdiff.wilke_lee_raw(
+            T, P, pa[M], pb[M], pa[S], pb[S], pa[E], pb[E]))
+        self.assertIsInstance(est.warnings, mcdiff.Warning)
+
+    def test_fsg_equation(self):
+        # Fuller, Schettler and Giddings (1966): D = 1.00e-3 T^1.75
+        # (1/M_A + 1/M_B)^0.5 / (P (V_A^(1/3) + V_B^(1/3))^2) cm^2/s, P in
+        # atm, M in g/mol (from memory). Same formula evaluated twice:
+        # 1e-12 relative. The bar form of Reid, Prausnitz and Poling (1987,
+        # eq. 11-4.4; from memory), 0.00143 T^1.75 / (P M_AB^0.5 (...)^2)
+        # with M_AB = 2/(1/M_A + 1/M_B), rounds 1.00e-3 sqrt(2) 1.01325 =
+        # 0.001433 to three digits: it agrees to 0.3 %.
+        T, P, MA, MB, VA, VB = 300.0, 101325.0, 0.028, 0.044, 18.5, 26.7
+        vv = (VA ** (1 / 3) + VB ** (1 / 3)) ** 2
+        ref = (1.00e-3 * T ** 1.75 * math.sqrt(1 / (MA * 1e3) +
+                                               1 / (MB * 1e3))
+               / ((P / ATM) * vv))
+        D = mcdiff.fsg_raw(T, P, MA, MB, VA, VB) * 1e4
+        self.assertAlmostEqual(D / ref, 1.0, delta=1e-12)
+        Mab = 2.0 / (1.0 / (MA * 1e3) + 1.0 / (MB * 1e3))
+        ref_bar = 0.00143 * T ** 1.75 / ((P / 1e5) * math.sqrt(Mab) * vv)
+        self.assertAlmostEqual(D / ref_bar, 1.0, delta=3e-3)
+        # doubling P halves D exactly (1/P law)
+        self.assertAlmostEqual(mcdiff.fsg_raw(T, 2 * P, MA, MB, VA, VB) * 2e4,
+                               D, delta=1e-15 * D)
+
+    def test_collision_integral_neufeld(self):
+        # Neufeld, Janzen and Aziz (1972) constants as reprinted by Reid,
+        # Prausnitz and Poling (1987), eq. 11-3.6 (from memory).
+        for Ts in (0.3, 0.7, 1.0, 2.5, 10.0, 100.0):
+            ref = (1.06036 / Ts ** 0.15610 + 0.19300 / math.exp(0.47635 * Ts)
+                   + 1.03587 / math.exp(1.52996 * Ts)
+                   + 1.76474 / math.exp(3.89411 * Ts))
+            self.assertAlmostEqual(mcdiff.collision_omega_d(Ts), ref,
+                                   delta=1e-14 * ref)
+
+    def test_scaling_and_wilke_chang(self):
+        D = mcdiff.binary_scale(2e-5, 300.0, ATM, 600.0, 2 * ATM)
+        self.assertAlmostEqual(D, 2e-5 * 2 ** 1.75 / 2, delta=1e-18)
+        self.assertAlmostEqual(mcdiff.binary_scale(2e-5, 300, ATM, 300, ATM,
+                                                   1.5), 2e-5, delta=1e-20)
+        # Wilke-Chang: D = 7.4e-8 (phi M_B)^0.5 T / (mu V_A^0.6) cm^2/s with
+        # mu in cP, M in g/mol, V in cm^3/mol (Wilke and Chang 1955; from
+        # memory); ratio form: D is proportional to sqrt(phi) T / mu.
+        d1 = mcdiff.wilke_chang_raw(298.0, 0.89e-3, 0.018, 2.6, 96e-6)
+        d2 = mcdiff.wilke_chang_raw(2 * 298.0, 0.89e-3, 0.018, 4 * 2.6, 96e-6)
+        self.assertAlmostEqual(d2 / d1, 4.0, delta=1e-12)
+        ref = 7.4e-8 * math.sqrt(2.6 * 18.0) * 298.0 / (0.89 * 96 ** 0.6)
+        self.assertAlmostEqual(d1 * 1e4 / ref, 1.0, delta=1e-3)
+        liq = self.db.binary_liquid("benzene", "water", 298.15, 0.89e-3)
+        self.assertGreater(liq.D, 0.0)
+
+    def test_method_names_and_warnings(self):
+        for m in mcdiff.Method:
+            name = mcdiff.method_name(m)
+            self.assertEqual(mcdiff.method_from_name(name.upper()), m)
+            self.assertIs(mcdiff.enums.coerce(mcdiff.Method, name,
+                                              "method"), m)
+        self.assertTrue(math.isnan(mcdiff.method_typical_error("user")))
+        self.assertIsNone(mcdiff.method_name(99))
+        with self.assertRaises(mcdiff.NotFoundError):
+            mcdiff.method_from_name("guess")
+        texts = mcdiff.warning_strings(mcdiff.Warning.POLAR |
+                                       mcdiff.Warning.QUANTUM)
+        self.assertEqual(len(texts), 2)
+        self.assertTrue(all(texts))
+        self.assertIsNone(mcdiff.warning_string(1 << 20))
+
+
+class Compositions(unittest.TestCase):
+    M = [2.016e-3, 28.014e-3, 44.009e-3, 39.948e-3]
+
+    def test_conversions_agree_with_definitions(self):
+        rng = Rng(11)
+        for _ in range(50):
+            x = rng.composition(4)
+            w = flat(mcdiff.x_to_w(self.M, x))
+            Mbar = sum(a * b for a, b in zip(x, self.M))
+            for i in range(4):
+                # a product and a quotient: 4 ulp
+                self.assertAlmostEqual(w[i], x[i] * self.M[i] / Mbar,
+                                       delta=1e-15)
+            # sums of 4 products: a few ulp of ~0.03 (1 ulp = 3.5e-18)
+            self.assertAlmostEqual(mcdiff.mean_molar_mass_x(self.M, x), Mbar,
+                                   delta=3e-17)
+            self.assertAlmostEqual(mcdiff.mean_molar_mass_w(self.M, w), Mbar,
+                                   delta=3e-17)
+            self.assertLess(max_abs_diff(mcdiff.w_to_x(self.M, w), x), 1e-15)
+            c = mcdiff.x_to_c(40.0, x)
+            x2, ctot = mcdiff.c_to_x(c)
+            self.assertAlmostEqual(ctot, 40.0, delta=1e-13)
+            self.assertLess(max_abs_diff(x2, x), 1e-15)
+
+    def test_normalize_and_domain(self):
+        y = flat(mcdiff.normalize([0.2, 0.3, 0.5 + 5e-7]))
+        self.assertAlmostEqual(sum(y), 1.0, delta=1e-15)
+        with self.assertRaises(mcdiff.DomainError):
+            mcdiff.normalize([0.2, 0.3, 0.6])
+        with self.assertRaises(mcdiff.DomainError):
+            mcdiff.normalize([-0.1, 0.5, 0.6])
+        with self.assertRaises(mcdiff.InvalidArgumentError):
+            mcdiff.normalize([float("nan"), 0.5, 0.5])
+        self.assertAlmostEqual(mcdiff.ideal_gas_c(300.0, ATM),
+                               ATM / (R * 300.0), delta=1e-12)
+
+    def test_gradient_conversion_is_the_derivative(self):
+        # d w / d z from x(z) = x0 + z g by central differences of x_to_w:
+        # step 1e-4, error O(h^2) ~ 1e-8 of the gradient.
+        rng = Rng(5)
+        x0 = rng.composition(4)
+        g = [1.0, -2.0, 0.5, 0.5]
+        gw = flat(mcdiff.grad_x_to_w(self.M, x0, g))
+        h = 1e-4
+        wp = flat(mcdiff.x_to_w(self.M, [a + h * b for a, b in zip(x0, g)]))
+        wm = flat(mcdiff.x_to_w(self.M, [a - h * b for a, b in zip(x0, g)]))
+        fd = [(p - m) / (2 * h) for p, m in zip(wp, wm)]
+        self.assertLess(max_abs_diff(gw, fd), 1e-6 * max_abs(fd))
+        w0 = flat(mcdiff.x_to_w(self.M, x0))
+        back = mcdiff.grad_w_to_x(self.M, w0, [[v, 2 * v] for v in gw])
+        self.assertLess(max_abs_diff([r[0] for r in rows(back)], g), 1e-12)
+        self.assertLess(max_abs_diff([r[1] for r in rows(back)],
+                                     [2 * v for v in g]), 1e-12)
+
+    def test_input_kinds_give_identical_results(self):
+        x = [0.1, 0.2, 0.3, 0.4]
+        ref = flat(mcdiff.x_to_w(self.M, x))
+        kinds = [tuple(x), array.array("d", x), (v for v in x)]
+        if np is not None:
+            kinds += [np.array(x), np.array([x, x]).T[:, 0],
+                      np.array([[v] for v in x])[:, 0]]
+        for k in kinds:
+            self.assertEqual(flat(mcdiff.x_to_w(self.M, k)), ref)
+
+
+class MixtureTests(unittest.TestCase):
+    NAMES = ["hydrogen", "nitrogen", "carbon-dioxide"]
+
+    def setUp(self):
+        self.db = mcdiff.Database.builtin()
+        self.mix = mcdiff.Mixture(self.db, self.NAMES)
+
+    def tearDown(self):
+        self.mix.close()
+        self.db.close()
+
+    def test_binaries_symmetric_with_zero_diagonal(self):
+        D = rows(self.mix.binaries(300.0, ATM))
+        for i in range(3):
+            self.assertEqual(D[i][i], 0.0)
+            for j in range(3):
+                self.assertEqual(D[i][j], D[j][i])
+        self.assertEqual(D[0][1], self.db.binary_gas("hydrogen", "nitrogen",
+                                                     "fsg", 300.0, ATM).D)
+        det = self.mix.binaries_detail(300.0, ATM)
+        self.assertEqual(rows(det.D), D)
+        self.assertEqual(det.warnings[0][0], mcdiff.Warning(0))
+
+    def test_user_binary_scales_as_documented(self):
+        self.mix.set_binary("hydrogen", "nitrogen", 7.7e-5, 298.0, ATM)
+        D = rows(self.mix.binaries(350.0, 2 * ATM))
+        ref = 7.7e-5 * (350.0 / 298.0) ** 1.75 / 2
+        self.assertAlmostEqual(D[0][1], ref, delta=1e-14 * ref)
+        self.mix.set_method(1, 2, "chapman-enskog")
+        self.assertEqual(rows(self.mix.binaries(300.0, ATM))[1][2],
+                         self.db.binary_gas("nitrogen", "carbon-dioxide",
+                                            "chapman-enskog", 300.0, ATM).D)
+        with self.assertRaises(mcdiff.McdError):
+            self.mix.set_method(0, 0, "fsg")
+        with self.assertRaises(KeyError):
+            self.mix.index("argon")
+
+    def test_molar_masses_and_gas_state(self):
+        M = flat(self.mix.molar_masses())
+        self.assertEqual(M, [self.db.param(n, "M") for n in self.NAMES])
+        s = self.mix.gas_state(308.15, ATM)
+        self.assertAlmostEqual(s.c, ATM / (R * 308.15), delta=1e-12)
+        self.assertEqual(self.mix.names, self.NAMES)
+        with self.assertRaises(mcdiff.NotFoundError):
+            mcdiff.Mixture(self.db, ["hydrogen", "phlogiston"])
+        with self.assertRaises(mcdiff.InvalidArgumentError):
+            mcdiff.Mixture(self.db, ["hydrogen", "hydrogen"])
+
+    def test_fluxes_equal_the_command_line_tool(self):
+        cli = _support.CLI
+        if not cli or not os.path.exists(cli):
+            self.skipTest("the mcdiff CLI is not built (MCDIFF_CLI unset)")
+        for basis in ("mole", "mass"):
+            p = subprocess.run(
+                [cli, "fluxes", "-s", ",".join(self.NAMES), "-x",
+                 "0.3,0.4,0.3", "-T", "35C", "-P", "1atm", "-g", "1,0,-1",
+                 "-g", "0,1,-1", "--basis", basis, "--json"],
+                capture_output=True, text=True, timeout=60)
+            self.assertEqual(p.returncode, 0, p.stderr)
+            ref = json.loads(p.stdout)
+            J = self.mix.fluxes(ref["T"], ref["P"], [0.3, 0.4, 0.3],
+                                [[1, 0], [0, 1], [-1, -1]], flux_basis=basis)
+            # same C code on the same inputs; the JSON carries 17 digits:
+            # 1e-15 of the largest flux covers the decimal round trip.
+            scale = max_abs(ref["fluxes"])
+            self.assertLess(max_abs_diff(J, ref["fluxes"]), 1e-15 * scale)
+            s = self.mix.gas_state(ref["T"], ref["P"])
+            self.assertAlmostEqual(s.c, ref["c"], delta=1e-15 * s.c)
+            self.assertLess(max_abs_diff(s.D, ref["binary_D"]), 1e-20)
+            F = self.mix.fick_matrix(ref["T"], ref["P"], [0.3, 0.4, 0.3],
+                                     basis=basis)
+            self.assertEqual(self.NAMES[F.dependent], ref["fick_dependent"])
+            self.assertLess(max_abs_diff(F.D, ref["fick_matrix"]),
+                            1e-15 * max_abs(ref["fick_matrix"]))
+
+
+def random_state(rng, n):
+    return rng.dij(n), 20.0 + 30.0 * rng.uniform(), rng.composition(n)
+
+
+def random_grad(rng, n, nd):
+    return [[rng.uniform(-10, 10) for _ in range(nd)] for _ in range(n)]
+
+
+class Fluxes(unittest.TestCase):
+    M = [2.016e-3, 28.014e-3, 44.009e-3, 39.948e-3, 16.043e-3, 4.0026e-3]
+
+    def test_identities_over_random_states(self):
+        rng = Rng(2024)
+        worst = {}
+
+        def note(k, v):
+            worst[k] = max(worst.get(k, 0.0), v)
+
+        for trial in range(60):
+            n = 2 + trial % 5
+            nd = 1 + trial % 3
+            D, c, x = random_state(rng, n)
+            g = random_grad(rng, n, nd)
+            M = self.M[:n]
+            J = rows(mcdiff.flux_compute(D, c, x, g, M=M))
+            scale = max_abs(J)
+            # zero sum over species (8 eps of the sum of |J|)
+            for d in range(nd):
+                s = sum(J[i][d] for i in range(n))
+                note("zero-sum", abs(s) / scale)
+                self.assertLessEqual(abs(s), 8 * 2.2e-16 *
+                                     sum(abs(J[i][d]) for i in range(n)))
+            # Fick matrix fluxes equal the direct ones when gradients sum to
+            # zero (project the random gradients first)
+            gz = [[g[i][d] - x[i] * sum(g[k][d] for k in range(n))
+                   for d in range(nd)] for i in range(n)]
+            Jz = rows(mcdiff.flux_compute(D, c, x, gz, M=M))
+            F = mcdiff.fick_matrix(D, x, M=M)
+            Jf = mcdiff.fick_fluxes(F.D, F.dependent, c, gz)
+            note("fick", max_abs_diff(Jf, Jz) / max_abs(Jz))
+            self.assertLess(max_abs_diff(Jf, Jz), 1e-11 * max_abs(Jz))
+            # mass basis = conversion of the molar fluxes
+            jm = mcdiff.flux_compute(D, c, x, g, M=M, flux_basis="mass")
+            jc = mcdiff.flux_convert(M, x, J, "mole", "mass")
+            note("convert", max_abs_diff(jm, jc) / max_abs(jc))
+            self.assertLess(max_abs_diff(jm, jc), 1e-12 * max_abs(jc))
+            back = mcdiff.flux_convert(M, x, jc, "mass", "mole")
+            self.assertLess(max_abs_diff(back, J), 1e-12 * scale)
+            # same basis copies
+            self.assertEqual(flat(mcdiff.flux_convert(M, x, J, "mole",
+                                                      "mole")), flat(J))
+            # ideal gas: volume frame = molar frame (Vbar_i = 1/c)
+            JV = mcdiff.flux_to_volume_frame(c, x, [1 / c] * n, J)
+            self.assertLess(max_abs_diff(JV, J), 1e-14 * scale)
+            # species frame: J^k_k = 0, J^k_i = J_i - x_i J_k / x_k
+            k = trial % n
+            Jk = rows(mcdiff.flux_to_species_frame(x, J, k))
+            for i in range(n):
+                for d in range(nd):
+                    ref = J[i][d] - x[i] * J[k][d] / x[k]
+                    self.assertAlmostEqual(Jk[i][d], ref,
+                                           delta=1e-13 * (scale + abs(ref)))
+            self.assertEqual(max_abs(Jk[k]), 0.0)
+            # velocity difference v - u = sum M_k J_k / (c Mbar)
+            vu = flat(mcdiff.velocity_difference(M, c, x, J))
+            Mbar = sum(a * b for a, b in zip(x, M))
+            for d in range(nd):
+                ref = sum(M[i] * J[i][d] for i in range(n)) / (c * Mbar)
+                self.assertAlmostEqual(vu[d], ref,
+                                       delta=1e-12 * max(abs(ref), 1e-30) +
+                                       1e-13 * scale * max(M) / (c * Mbar))
+        print("\n  identities: worst relative differences %s"
+              % ", ".join("%s %.1e" % kv for kv in sorted(worst.items())))
+
+    def test_result_shapes_follow_the_gradient(self):
+        D = [[0, 2e-5, 3e-5], [2e-5, 0, 1e-5], [3e-5, 1e-5, 0]]
+        x = [0.2, 0.3, 0.5]
+        J1 = mcdiff.flux_compute(D, 40.0, x, [1.0, 0.0, -1.0])
+        J2 = mcdiff.flux_compute(D, 40.0, x, [[1.0], [0.0], [-1.0]])
+        if np is not None:
+            self.assertEqual(J1.shape, (3,))
+            self.assertEqual(J2.shape, (3, 1))
+            Jn = mcdiff.flux_compute(np.array(D), 40.0, np.array(x),
+                                     np.array([1.0, 0.0, -1.0]))
+            self.assertEqual(Jn.shape, (3,))
+        else:
+            self.assertTrue(all(isinstance(v, float) for v in J1))
+            self.assertTrue(all(isinstance(v, list) and len(v) == 1
+                                for v in J2))
+        self.assertEqual(flat(J1), flat(J2))
+        self.assertIsInstance(mcdiff.velocity_difference([1, 2, 3], 40.0, x,
+                                                         J1), float)
+        self.assertIsInstance(mcdiff.flux_total(x, J1, "equimolar").bulk,
+                              float)
+        self.assertEqual(len(rows(mcdiff.flux_convert([1, 2, 3], x, J2,
+                                                      "mole", "mass"))), 3)
+
+    def test_directions_are_independent_columns(self):
+        rng = Rng(7)
+        D, c, x = random_state(rng, 4)
+        g = random_grad(rng, 4, 3)
+        J3 = rows(mcdiff.flux_compute(D, c, x, g))
+        for d in range(3):
+            J1 = flat(mcdiff.flux_compute(D, c, x, [r[d] for r in g]))
+            self.assertEqual(J1, [r[d] for r in J3])
+
+    def test_models_bases_and_options(self):
+        rng = Rng(8)
+        D, c, x = random_state(rng, 4)
+        M = self.M[:4]
+        g = [1.0, -0.5, 0.25, -0.75]
+        w = flat(mcdiff.x_to_w(M, x))
+        gw = flat(mcdiff.grad_x_to_w(M, x, g))
+        # the same state given in mass fractions gives the same fluxes
+        for model in ("maxwell-stefan", "mixture-averaged"):
+            Jx = mcdiff.flux_compute(D, c, x, g, M=M, model=model)
+            Jw = mcdiff.flux_compute(D, c, w, gw, M=M, model=model,
+                                     comp_basis="mass", flux_basis="mole")
+            if model == "maxwell-stefan":
+                self.assertLess(max_abs_diff(Jx, Jw), 1e-11 * max_abs(Jx))
+        # mixture-averaged equals its closed form (mole basis)
+        Jma = flat(mcdiff.flux_compute(D, c, x, g,
+                                       model=mcdiff.Model.MIXTURE_AVERAGED))
+        raw = []
+        for i in range(4):
+            s = sum(x[j] / D[i][j] for j in range(4) if j != i)
+            raw.append(-c * (1 - x[i]) / s * g[i])
+        ref = [raw[i] - x[i] * sum(raw) for i in range(4)]
+        self.assertLess(max_abs_diff(Jma, ref), 1e-13 * max_abs(ref))
+        # identity Gamma equals no Gamma; pressure diffusion changes fluxes
+        I4 = [[float(i == j) for j in range(4)] for i in range(4)]
+        self.assertEqual(flat(mcdiff.flux_compute(D, c, x, g, Gamma=I4)),
+                         flat(mcdiff.flux_compute(D, c, x, g)))
+        Jp = mcdiff.flux_compute(D, c, x, g, M=M, grad_lnP=[50.0])
+        self.assertGreater(max_abs_diff(Jp, mcdiff.flux_compute(D, c, x, g)),
+                           0.0)
+        with self.assertRaises(mcdiff.InvalidArgumentError):
+            mcdiff.flux_compute(D, c, x, g, model="iterative")
+
+    def test_fick_matrix_options_and_eigenvalues(self):
+        rng = Rng(9)
+        D, c, x = random_state(rng, 4)
+        F = mcdiff.fick_matrix(D, x)
+        self.assertEqual(F.dependent, max(range(4), key=lambda i: x[i]))
+        F0 = mcdiff.fick_matrix(D, x, dependent=0)
+        self.assertEqual(F0.dependent, 0)
+        e1 = sorted(v.real for v in flat(mcdiff.fick_eigenvalues(F.D)))
+        e0 = sorted(v.real for v in flat(mcdiff.fick_eigenvalues(F0.D)))
+        # eigenvalues do not depend on the dependent species (Taylor and
+        # Krishna 1993, ch. 2): dgeev backward error, 1e-12 of the largest
+        self.assertLess(max_abs_diff(e1, e0), 1e-12 * max(e1))
+        self.assertTrue(all(v > 0 for v in e1))
+        Fm = mcdiff.fick_matrix(D, x, M=self.M[:4], basis="mass")
+        self.assertEqual(len(rows(Fm.D)), 3)
+        self.assertEqual(flat(mcdiff.fick_eigenvalues([[2.0]])), [2.0])
+        self.assertEqual(flat(mcdiff.fick_eigenvalues([])), [])
+        with self.assertRaises(ValueError):
+            mcdiff.fick_eigenvalues([1.0, 2.0, 3.0])
+
+    def test_total_fluxes_with_every_bootstrap(self):
+        rng = Rng(10)
+        D, c, x = random_state(rng, 3)
+        J = flat(mcdiff.flux_compute(D, c, x, [1.0, -3.0, 2.0]))
+        N, Nt = mcdiff.flux_total(x, J, "stagnant", species=2)
+        N = flat(N)
+        self.assertAlmostEqual(N[2], 0.0, delta=1e-15 * max_abs(J))
+        self.assertAlmostEqual(Nt, sum(N), delta=1e-14 * max_abs(J))
+        N, Nt = mcdiff.flux_total(x, J, "equimolar")
+        self.assertEqual(Nt, 0.0)
+        self.assertEqual(flat(N), J)
+        N, Nt = mcdiff.flux_total(x, J, "total", values=0.01)
+        self.assertEqual(Nt, 0.01)
+        self.assertLess(max_abs_diff(N, [J[i] + x[i] * 0.01
+                                         for i in range(3)]), 1e-17)
+        nu = [1.0, 2.0, 0.5]
+        N, Nt = mcdiff.flux_total(x, J, "weights", values=nu)
+        self.assertAlmostEqual(sum(a * b for a, b in zip(nu, flat(N))), 0.0,
+                               delta=1e-14 * max_abs(J))
+        with self.assertRaises(mcdiff.InvalidArgumentError):
+            mcdiff.flux_total(x, J, "ratios", values=[0.2, 0.3, 0.5])
+        Jm = [[v, -v] for v in J]
+        N2, Nt2 = mcdiff.flux_total(x, Jm, "stagnant", species=2)
+        self.assertEqual(len(flat(Nt2)), 2)
+
+    def test_project_and_diagnose(self):
+        F = [1.0, 2.0, -2.5]
+        P, res = mcdiff.flux_project(F)
+        self.assertAlmostEqual(res, 0.5, delta=1e-15)
+        self.assertAlmostEqual(sum(flat(P)), 0.0, delta=1e-15)
+        self.assertEqual(F, [1.0, 2.0, -2.5])  # the input is not changed
+        P, res = mcdiff.flux_project(F, weights=[0.2, 0.3, 0.5])
+        self.assertAlmostEqual(flat(P)[0], 1.0 - 0.2 * 0.5, delta=1e-15)
+        a = array.array("d", F)
+        P, res = mcdiff.flux_project(a, inplace=True)
+        self.assertIs(P, a)
+        self.assertAlmostEqual(sum(a), 0.0, delta=1e-15)
+        with self.assertRaises(TypeError):
+            mcdiff.flux_project([1.0, 2.0], inplace=True)
+        # osmotic (flux, no gradient), reverse (up the gradient), barrier
+        g = [1.0, 0.0, -1.0, 0.5]
+        J = [-1.0, 0.5, 0.0, 0.5]
+        flags = mcdiff.flux_diagnose(g, J, 1e-3)
+        self.assertEqual(flags, [mcdiff.Diag(0), mcdiff.Diag.OSMOTIC,
+                                 mcdiff.Diag.BARRIER, mcdiff.Diag.REVERSE])
+        with self.assertRaises(mcdiff.InvalidArgumentError):
+            mcdiff.flux_diagnose(g, J, 2.0)
+
+
+class Batched(unittest.TestCase):
+    def setUp(self):
+        self.db = mcdiff.Database.builtin()
+        self.mix = self.db.mixture(["hydrogen", "nitrogen", "carbon-dioxide",
+                                    "argon"])
+        self.mix.set_method(1, 3, "chapman-enskog")
+
+    def tearDown(self):
+        self.mix.close()
+        self.db.close()
+
+    def cells(self, K, nd):
+        rng = Rng(77)
+        T = [280.0 + 200.0 * rng.uniform() for _ in range(K)]
+        P = [0.5e5 + 2e5 * rng.uniform() for _ in range(K)]
+        x = [rng.composition(4) for _ in range(K)]
+        g = [random_grad(rng, 4, nd) for _ in range(K)]
+        return T, P, x, g
+
+    def test_batched_equal_single_state_calls(self):
+        K, nd = 37, 2
+        T, P, x, g = self.cells(K, nd)
+        ref = [rows(self.mix.fluxes(T[k], P[k], x[k], g[k]))
+               for k in range(K)]
+        scale = max_abs(ref)
+        # AoS: cells first, same layout as K single calls
+        aos = rows(mcdiff.flux_batch(self.mix, T, P, x, g, layout="aos"))
+        # SoA: species first, cells last
+        comp = [[x[k][i] for k in range(K)] for i in range(4)]
+        grad = [[[g[k][i][d] for k in range(K)] for d in range(nd)]
+                for i in range(4)]
+        soa = rows(mcdiff.flux_batch(self.mix, T, P, comp, grad))
+        soa_as_aos = [[[soa[i][d][k] for d in range(nd)] for i in range(4)]
+                      for k in range(K)]
+        # specialised vector kernels may round differently from the single
+        # state solver: 1e-12 of the largest flux
+        self.assertLess(max_abs_diff(aos, ref), 1e-12 * scale)
+        self.assertLess(max_abs_diff(soa_as_aos, ref), 1e-12 * scale)
+        # caller's own Dij and c
+        Ds = [rows(self.mix.binaries(T[k], P[k])) for k in range(K)]
+        Dij = [[[Ds[k][i][j] for k in range(K)] for j in range(4)]
+               for i in range(4)]
+        cs = [P[k] / (R * T[k]) for k in range(K)]
+        dij = rows(mcdiff.flux_batch_dij(Dij, cs, comp, grad))
+        self.assertLess(max_abs_diff(dij, soa), 1e-12 * scale)
+
+    def test_iterative_model_converges_to_exact(self):
+        K = 12
+        T, P, x, g = self.cells(K, 1)
+        g1 = [[r[0] for r in gk] for gk in g]
+        ws = mcdiff.Workspace(4)
+        exact = rows(mcdiff.flux_batch(self.mix, T, P, x, g1, layout="aos",
+                                       workspace=ws))
+        ws.set_iterative(200, 1e-12)
+        it = rows(mcdiff.flux_batch(self.mix, T, P, x, g1, layout="aos",
+                                    model="iterative", workspace=ws))
+        err, n_it = ws.iterative_info()
+        self.assertGreater(n_it, 0)
+        self.assertLessEqual(err, 1e-10)
+        for k in range(K):
+            self.assertLess(max_abs_diff(it[k], exact[k]),
+                            1e-9 * max_abs(exact[k]))
+        ws.set_threads(0)
+        with self.assertRaises(mcdiff.InvalidArgumentError):
+            ws.set_iterative(0, 1e-10)
+        ws.close()
+
+    def test_temperature_fit_and_errors(self):
+        err = self.mix.set_temperature_fit(250.0, 500.0)
+        self.assertLess(err, 1e-9)
+        self.assertEqual(self.mix.temperature_fit()[:2], (250.0, 500.0))
+        self.mix.clear_temperature_fit()
+        self.assertEqual(self.mix.temperature_fit(), (0.0, 0.0, 0.0))
+        T, P, x, g = self.cells(3, 1)
+        g1 = [[r[0] for r in gk] for gk in g]
+        x[1] = [0.5, 0.5, 0.5, -0.5]
+        with self.assertRaises(mcdiff.DomainError) as cm:
+            mcdiff.flux_batch(self.mix, T, P, x, g1, layout="aos")
+        self.assertIn("cell 1", cm.exception.detail)
+        with self.assertRaises(ValueError):
+            mcdiff.flux_batch(self.mix, T, P, x, g1, layout="soa")
+        with self.assertRaises(mcdiff.DomainError):
+            self.mix.set_temperature_fit(500.0, 250.0)
+
+    @unittest.skipIf(np is None, "numpy hidden or absent")
+    def test_numpy_batch_with_out(self):
+        K = 1000
+        rng = np.random.default_rng(3)
+        x = rng.dirichlet(np.ones(4), size=K).T.copy()      # (4, K)
+        g = rng.normal(size=(4, 3, K))
+        T = np.full(K, 300.0)
+        out = np.empty_like(g)
+        r = mcdiff.flux_batch(self.mix, T, 1e5, x, g, out=out)
+        self.assertIs(r, out)
+        # zero sum per cell and direction
+        s = np.abs(out.sum(axis=0)).max()
+        self.assertLess(s, 1e-14 * np.abs(out).max())
+
+
+class Transfer(unittest.TestCase):
+    def test_film_and_profile_shapes_and_consistency(self):
+        rng = Rng(31)
+        D = rng.dij(4)
+        x0, xL = rng.composition(4), rng.composition(4)
+        res = mcdiff.film_solve(D, 40.0, 0.05, x0, xL, "equimolar")
+        self.assertAlmostEqual(sum(flat(res.N)), 0.0,
+                               delta=1e-13 * max_abs(res.N))
+        self.assertLessEqual(res.residual, 1e-12)
+        z = [0.0, 0.025, 0.05]
+        X = rows(mcdiff.film_profile(D, 40.0, 0.05, x0, res.N, z))
+        self.assertEqual(len(X), 3)
+        self.assertLess(max_abs_diff(X[0], x0), 1e-15)
+        self.assertLess(max_abs_diff(X[2], xL), 1e-10)
+        lin = mcdiff.film_solve(D, 40.0, 0.05, x0, xL, "equimolar",
+                                method="linearized")
+        self.assertLess(max_abs_diff(lin.N, res.N), 0.1 * max_abs(res.N))
+        with self.assertRaises(ValueError):
+            mcdiff.film_solve(D, 40.0, 0.05, x0, xL, "stagnant")
+
+    def test_bulbs_conserve_every_species(self):
+        rng = Rng(32)
+        D = rng.dij(3)
+        x1, x2 = rng.composition(3), rng.composition(3)
+        V1, V2, A, L, c = 7e-5, 9e-5, 3e-6, 0.08, 40.0
+        t = [0.0, 600.0, 3600.0, 36000.0]
+        for fn in (mcdiff.bulbs_linearized, mcdiff.bulbs_integrate):
+            a, b = fn(D, c, V1, V2, A, L, x1, x2, t)
+            a, b = rows(a), rows(b)
+            self.assertEqual(len(a), 4)
+            for k in range(4):
+                for i in range(3):
+                    tot = V1 * x1[i] + V2 * x2[i]
+                    self.assertAlmostEqual(V1 * a[k][i] + V2 * b[k][i], tot,
+                                           delta=1e-15 * (V1 + V2))
+
+
+if __name__ == "__main__":
+    sys.exit(_support.run(__name__))
