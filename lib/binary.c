@@ -73,6 +73,19 @@ static mcd_status check_all_pos(const double *v, size_t n)
     return worst;
 }
 
+/* Store an estimate only if it is finite and > 0. Valid inputs can still
+ * leave that range: Wilke-Lee's factor 3.03 - 0.98/M_AB^(1/2) is negative
+ * for M_AB < 0.105 g/mol, and extreme T, P or parameters overflow or
+ * underflow. Such a result is outside the correlation's domain: EDOM,
+ * nothing written. */
+static mcd_status finish_D(double D, double *out_D)
+{
+    if (!(D > 0.0) || !mcdi_finite(D))
+        return MCD_EDOM;
+    *out_D = D;
+    return MCD_OK;
+}
+
 MCD_API mcd_status mcd_fsg_raw(double T, double P, double MA, double MB,
                                double VA, double VB, double *out_D)
 {
@@ -82,7 +95,7 @@ MCD_API mcd_status mcd_fsg_raw(double T, double P, double MA, double MB,
         return MCD_EINVAL;
     if ((s = check_all_pos(v, 6)) != MCD_OK)
         return s;
-    *out_D = mcdi_fsg_coef(MA, MB, VA, VB) * pow(T, 1.75) / P;
+    return finish_D(mcdi_fsg_coef(MA, MB, VA, VB) * pow(T, 1.75) / P, out_D);
     return MCD_OK;
 }
 
@@ -158,9 +171,9 @@ MCD_API mcd_status mcd_chapman_enskog_raw(double T, double P, double MA,
         return MCD_EINVAL;
     if ((s = check_lj(T, P, MA, MB, sigA, sigB, epsA, epsB)) != MCD_OK)
         return s;
-    *out_D = mcdi_ce_coef(MA, MB, sigA, sigB) * pow(T, 1.5) /
-             (P * mcdi_omega_d(T / sqrt(epsA * epsB)));
-    return MCD_OK;
+    return finish_D(mcdi_ce_coef(MA, MB, sigA, sigB) * pow(T, 1.5) /
+                        (P * mcdi_omega_d(T / sqrt(epsA * epsB))),
+                    out_D);
 }
 
 /* ------------------------------------------------------------------ */
@@ -194,9 +207,9 @@ MCD_API mcd_status mcd_wilke_lee_raw(double T, double P, double MA, double MB,
         return MCD_EINVAL;
     if ((s = check_lj(T, P, MA, MB, sigA, sigB, epsA, epsB)) != MCD_OK)
         return s;
-    *out_D = mcdi_wl_coef(MA, MB, sigA, sigB) * pow(T, 1.5) /
-             (P * mcdi_omega_d(T / sqrt(epsA * epsB)));
-    return MCD_OK;
+    return finish_D(mcdi_wl_coef(MA, MB, sigA, sigB) * pow(T, 1.5) /
+                        (P * mcdi_omega_d(T / sqrt(epsA * epsB))),
+                    out_D);
 }
 
 /* ------------------------------------------------------------------ */
@@ -222,9 +235,9 @@ MCD_API mcd_status mcd_wilke_chang_raw(double T, double mu_solvent,
         return MCD_EINVAL;
     if ((s = check_all_pos(v, 5)) != MCD_OK)
         return s;
-    *out_D = 1e-4 * 7.4e-8 * sqrt(phi * 1000.0 * M_solvent) * T /
-             (1000.0 * mu_solvent * pow(1e6 * Vb_solute, 0.6));
-    return MCD_OK;
+    return finish_D(1e-4 * 7.4e-8 * sqrt(phi * 1000.0 * M_solvent) * T /
+                        (1000.0 * mu_solvent * pow(1e6 * Vb_solute, 0.6)),
+                    out_D);
 }
 
 /* ------------------------------------------------------------------ */
@@ -243,8 +256,7 @@ MCD_API mcd_status mcd_binary_scale(double D_ref, double T_ref, double P_ref,
         return MCD_EINVAL;
     if ((s = check_all_pos(v, 5)) != MCD_OK)
         return s;
-    *out_D = D_ref * pow(T / T_ref, exponent) * (P_ref / P);
-    return MCD_OK;
+    return finish_D(D_ref * pow(T / T_ref, exponent) * (P_ref / P), out_D);
 }
 
 /* ------------------------------------------------------------------ */

@@ -193,6 +193,11 @@ mcd_status mcdi_pair_coef(const mcdi_spec *a, const mcdi_spec *b,
     else
         *out_coef = mcdi_wl_coef(a->p[MCD_PARAM_MOLAR_MASS],
                                  b->p[MCD_PARAM_MOLAR_MASS], sa, sb);
+    /* Wilke-Lee's factor 3.03 - 0.98/M_AB^(1/2) is negative below
+     * M_AB = 0.105 g/mol (no real pair; reachable through user molar
+     * masses): outside the correlation's domain. */
+    if (!(*out_coef > 0.0) || !mcdi_finite(*out_coef))
+        return MCD_EDOM;
     *out_eps_ab = sqrt(ea * eb);
     *out_estimated = est;
     return MCD_OK;
@@ -248,6 +253,8 @@ mcd_status mcdi_pair_gas(const mcdi_spec *a, const mcdi_spec *b,
         if (Ts < MCDI_TSTAR_MIN || Ts > MCDI_TSTAR_MAX)
             w |= MCD_WARN_TEMPERATURE;
     }
+    if (!(D > 0.0) || !mcdi_finite(D))
+        return MCD_EDOM; /* overflow or underflow at an extreme state */
     *out_D = D;
     if (out_rel_err != NULL)
         *out_rel_err = mcd_method_typical_error(m);

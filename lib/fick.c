@@ -291,6 +291,7 @@ MCD_API mcd_status mcd_fick_fluxes(size_t n_species, size_t n_dim,
 {
     const size_t n = n_species, nd = n_dim;
     size_t m, r, q, dd, i;
+    int pass;
 
     if (n < 1 || n > MCD_MAX_SPECIES || nd < 1 || nd > MCD_MAX_DIM)
         return MCD_EINVAL;
@@ -311,20 +312,30 @@ MCD_API mcd_status mcd_fick_fluxes(size_t n_species, size_t n_dim,
                 if (!mcdi_finite(grad[i * nd + dd]))
                     return MCD_EINVAL;
 
-    for (dd = 0; dd < nd; dd++) {
-        double s = 0.0;
-        for (r = 0; r < m; r++) {
-            size_t ir = r < dependent ? r : r + 1;
-            double f = 0.0;
-            for (q = 0; q < m; q++) {
-                size_t iq = q < dependent ? q : q + 1;
-                f += D[r * m + q] * grad[iq * nd + dd];
+    /* Two passes over the same arithmetic: the first only checks that no
+     * flux overflows (finite inputs can still give inf, e.g. D ~ 1e300 and
+     * grad ~ 1e300), so that on MCD_EDOM nothing has been written; the
+     * second stores. Both passes compute bit-identical values. */
+    for (pass = 0; pass < 2; pass++) {
+        for (dd = 0; dd < nd; dd++) {
+            double s = 0.0;
+            for (r = 0; r < m; r++) {
+                size_t ir = r < dependent ? r : r + 1;
+                double f = 0.0;
+                for (q = 0; q < m; q++) {
+                    size_t iq = q < dependent ? q : q + 1;
+                    f += D[r * m + q] * grad[iq * nd + dd];
+                }
+                f *= -conc;
+                if (pass == 1)
+                    out_flux[ir * nd + dd] = f;
+                s += f;
             }
-            f *= -conc;
-            out_flux[ir * nd + dd] = f;
-            s += f;
+            if (pass == 0 && !mcdi_finite(s))
+                return MCD_EDOM; /* a flux or their sum overflows */
+            if (pass == 1)
+                out_flux[dependent * nd + dd] = -s;
         }
-        out_flux[dependent * nd + dd] = -s;
     }
     return MCD_OK;
 }

@@ -30,7 +30,12 @@
  * caller. A WEIGHTS bootstrap whose sum nu_i y_i is zero, or cancels to
  * round-off (|sum| <= 64 eps sum |nu_i y_i|), is reported as MCD_EDOM.
  *
- * All calls validate every input before they write anything.
+ * All calls validate every input before they write anything. Finite
+ * inputs can still produce an infinite result (e.g. fluxes near 1e308, or
+ * M_i J_i overflowing): every call therefore runs its arithmetic twice,
+ * first only checking that each result is finite (MCD_EDOM otherwise,
+ * nothing written), then storing the bit-identical values. The outputs are
+ * O(N n_dim), so the second pass costs little.
  */
 #include <float.h>
 #include <string.h>
@@ -82,6 +87,7 @@ MCD_API mcd_status mcd_flux_convert(size_t n_species, size_t n_dim,
     double sx, S;
     mcd_status st;
     size_t i, d;
+    int pass;
 
     if (!sizes_ok(n, n_dim) || M == NULL || x == NULL || flux_in == NULL ||
         out_flux == NULL || !basis_ok(from) || !basis_ok(to))
@@ -98,24 +104,35 @@ MCD_API mcd_status mcd_flux_convert(size_t n_species, size_t n_dim,
     S = 0.0;
     for (i = 0; i < n; i++)
         S += x[i] * M[i];
-    for (d = 0; d < n_dim; d++) {
-        double t = 0.0;
-        if (from == MCD_BASIS_MOLE) {
-            /* j_i = M_i J_i - w_i sum_k M_k J_k */
-            for (i = 0; i < n; i++)
-                t += M[i] * flux_in[i * n_dim + d];
-            for (i = 0; i < n; i++)
-                out_flux[i * n_dim + d] = M[i] * flux_in[i * n_dim + d] -
-                                          (x[i] * M[i] / S) * t;
-        } else {
-            /* J_i = j_i/M_i - x_i sum_k j_k/M_k */
-            for (i = 0; i < n; i++)
-                t += flux_in[i * n_dim + d] / M[i];
-            for (i = 0; i < n; i++)
-                out_flux[i * n_dim + d] =
-                    flux_in[i * n_dim + d] / M[i] - (x[i] / sx) * t;
+    if (!mcdi_finite(S) || !(S > 0.0))
+        return MCD_EDOM;
+    for (pass = 0; pass < 2; pass++)
+        for (d = 0; d < n_dim; d++) {
+            double t = 0.0, v;
+            if (from == MCD_BASIS_MOLE) {
+                /* j_i = M_i J_i - w_i sum_k M_k J_k */
+                for (i = 0; i < n; i++)
+                    t += M[i] * flux_in[i * n_dim + d];
+                for (i = 0; i < n; i++) {
+                    v = M[i] * flux_in[i * n_dim + d] - (x[i] * M[i] / S) * t;
+                    if (pass == 0 && !mcdi_finite(v))
+                        return MCD_EDOM;
+                    if (pass == 1)
+                        out_flux[i * n_dim + d] = v;
+                }
+            } else {
+                /* J_i = j_i/M_i - x_i sum_k j_k/M_k */
+                for (i = 0; i < n; i++)
+                    t += flux_in[i * n_dim + d] / M[i];
+                for (i = 0; i < n; i++) {
+                    v = flux_in[i * n_dim + d] / M[i] - (x[i] / sx) * t;
+                    if (pass == 0 && !mcdi_finite(v))
+                        return MCD_EDOM;
+                    if (pass == 1)
+                        out_flux[i * n_dim + d] = v;
+                }
+            }
         }
-    }
     return MCD_OK;
 }
 
@@ -128,6 +145,7 @@ MCD_API mcd_status mcd_flux_to_volume_frame(size_t n_species, size_t n_dim,
     double sx, sxv = 0.0;
     mcd_status st;
     size_t i, d;
+    int pass;
 
     if (!sizes_ok(n, n_dim) || x == NULL || Vbar == NULL || J == NULL ||
         out_JV == NULL || !mcdi_finite(c))
@@ -146,13 +164,19 @@ MCD_API mcd_status mcd_flux_to_volume_frame(size_t n_species, size_t n_dim,
         sxv += (x[i] / sx) * Vbar[i];
     if (!(fabs(c * sxv - 1.0) <= 1e-6))
         return MCD_EDOM;
-    for (d = 0; d < n_dim; d++) {
-        double t = 0.0;
-        for (i = 0; i < n; i++)
-            t += Vbar[i] * J[i * n_dim + d];
-        for (i = 0; i < n; i++)
-            out_JV[i * n_dim + d] = J[i * n_dim + d] - c * (x[i] / sx) * t;
-    }
+    for (pass = 0; pass < 2; pass++)
+        for (d = 0; d < n_dim; d++) {
+            double t = 0.0;
+            for (i = 0; i < n; i++)
+                t += Vbar[i] * J[i * n_dim + d];
+            for (i = 0; i < n; i++) {
+                double v = J[i * n_dim + d] - c * (x[i] / sx) * t;
+                if (pass == 0 && !mcdi_finite(v))
+                    return MCD_EDOM;
+                if (pass == 1)
+                    out_JV[i * n_dim + d] = v;
+            }
+        }
     return MCD_OK;
 }
 
@@ -164,6 +188,7 @@ MCD_API mcd_status mcd_flux_to_species_frame(size_t n_species, size_t n_dim,
     double sx;
     mcd_status st;
     size_t i, d;
+    int pass;
 
     if (!sizes_ok(n, n_dim) || x == NULL || J == NULL || out_Jk == NULL ||
         k >= n)
@@ -174,12 +199,17 @@ MCD_API mcd_status mcd_flux_to_species_frame(size_t n_species, size_t n_dim,
     if (!(x[k] > 0.0))
         return MCD_EDOM;
     /* x_i / x_k is unaffected by renormalisation. */
-    for (d = 0; d < n_dim; d++) {
-        double r = J[k * n_dim + d] / x[k];
-        for (i = 0; i < n; i++)
-            out_Jk[i * n_dim + d] =
-                (i == k) ? 0.0 : J[i * n_dim + d] - x[i] * r;
-    }
+    for (pass = 0; pass < 2; pass++)
+        for (d = 0; d < n_dim; d++) {
+            double r = J[k * n_dim + d] / x[k];
+            for (i = 0; i < n; i++) {
+                double v = (i == k) ? 0.0 : J[i * n_dim + d] - x[i] * r;
+                if (pass == 0 && !mcdi_finite(v))
+                    return MCD_EDOM; /* J_k / x_k overflows */
+                if (pass == 1)
+                    out_Jk[i * n_dim + d] = v;
+            }
+        }
     return MCD_OK;
 }
 
@@ -267,6 +297,10 @@ MCD_API mcd_status mcd_flux_total(size_t n_species, size_t n_dim,
 
     for (i = 0; i < n; i++)
         for (d = 0; d < n_dim; d++)
+            if (!mcdi_finite(diff[i * n_dim + d] + (comp[i] / sy) * bulk[d]))
+                return MCD_EDOM; /* a total flux overflows */
+    for (i = 0; i < n; i++)
+        for (d = 0; d < n_dim; d++)
             out_total[i * n_dim + d] =
                 diff[i * n_dim + d] + (comp[i] / sy) * bulk[d];
     if (out_bulk != NULL)
@@ -284,6 +318,7 @@ MCD_API mcd_status mcd_velocity_difference(size_t n_species, size_t n_dim,
     double sx, rho;
     mcd_status st;
     size_t i, d;
+    int pass;
 
     if (!sizes_ok(n, n_dim) || M == NULL || x == NULL || J == NULL ||
         out_v_minus_u == NULL || !mcdi_finite(c))
@@ -296,12 +331,16 @@ MCD_API mcd_status mcd_velocity_difference(size_t n_species, size_t n_dim,
     rho = c * mcdi_comp_mbar_x(n, M, x);
     if (!(rho > 0.0) || !mcdi_finite(rho))
         return MCD_EDOM;
-    for (d = 0; d < n_dim; d++) {
-        double t = 0.0;
-        for (i = 0; i < n; i++)
-            t += M[i] * J[i * n_dim + d];
-        out_v_minus_u[d] = t / rho;
-    }
+    for (pass = 0; pass < 2; pass++)
+        for (d = 0; d < n_dim; d++) {
+            double t = 0.0;
+            for (i = 0; i < n; i++)
+                t += M[i] * J[i * n_dim + d];
+            if (pass == 0 && !mcdi_finite(t / rho))
+                return MCD_EDOM;
+            if (pass == 1)
+                out_v_minus_u[d] = t / rho;
+        }
     return MCD_OK;
 }
 
@@ -318,6 +357,7 @@ MCD_API mcd_status mcd_flux_project(size_t n_species, size_t n_dim,
     double sw = 0.0;
     mcd_status st;
     size_t i, d;
+    int pass;
 
     if (!sizes_ok(n, n_dim) || inout_flux == NULL)
         return MCD_EINVAL;
@@ -337,16 +377,26 @@ MCD_API mcd_status mcd_flux_project(size_t n_species, size_t n_dim,
         if (!(sw > 0.0) || !mcdi_finite(sw))
             return MCD_EDOM;
     }
-    for (d = 0; d < n_dim; d++) {
-        double r = 0.0;
-        for (i = 0; i < n; i++)
-            r += inout_flux[i * n_dim + d];
-        for (i = 0; i < n; i++) {
-            double a = weights != NULL ? weights[i] / sw : 1.0 / (double)n;
-            inout_flux[i * n_dim + d] -= a * r;
+    /* pass 0: no sum or projected flux may overflow (nothing written);
+     * pass 1: project (column d is read for r before it is changed, and
+     * the columns are independent, so both passes see the same values) */
+    for (pass = 0; pass < 2; pass++)
+        for (d = 0; d < n_dim; d++) {
+            double r = 0.0;
+            for (i = 0; i < n; i++)
+                r += inout_flux[i * n_dim + d];
+            if (!mcdi_finite(r))
+                return MCD_EDOM;
+            for (i = 0; i < n; i++) {
+                double a = weights != NULL ? weights[i] / sw : 1.0 / (double)n;
+                double v = inout_flux[i * n_dim + d] - a * r;
+                if (pass == 0 && !mcdi_finite(v))
+                    return MCD_EDOM;
+                if (pass == 1)
+                    inout_flux[i * n_dim + d] = v;
+            }
+            if (pass == 1 && out_residual != NULL)
+                out_residual[d] = r;
         }
-        if (out_residual != NULL)
-            out_residual[d] = r;
-    }
     return MCD_OK;
 }
