@@ -1,0 +1,203 @@
+#!/usr/bin/env bash
+# .ci/robustness.sh - sanitizer, valgrind, ThreadSanitizer and fuzzing
+# stages. Run from the repository root after the main test run (.ci/run);
+# takes no arguments. Prints one line per stage,
+#     robustness: <stage> ok
+#     robustness: <stage> FAIL (<why>)
+# then "robustness: N passed, M failed", and exits non-zero if any stage
+# failed. Logs: build-robust-logs/<stage>.log (not part of the repo).
+#
+# Stages
+#   asan      gcc, -Db_sanitize=address,undefined: the whole `meson test`
+#             (Python binding disabled: an uninstrumented interpreter cannot
+#             load an ASan library; the CLI tests run the instrumented tool;
+#             suite `install` skipped: it builds an uninstrumented consumer
+#             program against the installed ASan library, which cannot run).
+#             UB and leaks are fatal (halt_on_error=1, detect_leaks=1,
+#             CK_FORK=no so that each Check suite is one process whose
+#             leaks are reported at exit).
+#   valgrind  memcheck on every Check test executable of the plain `build`
+#             directory (built by .ci/run; configured here if missing):
+#             --leak-check=full, any error or definite/indirect leak fails.
+#   tsan      gcc -fsanitize=thread, tests/test_threads only (function
+#             entry/exit hooks off, see stage_tsan).
+#   fuzz      clang + libFuzzer (-Dfuzz=true), each harness for
+#             FUZZ_SECONDS (default 20) or FUZZ_RUNS (default 2000000)
+#             executions, whichever comes first, from a temporary copy of
+#             tests/fuzz/corpus/<harness>/ (the repository is not changed).
+# Environment: ROBUST_STAGES="asan valgrind tsan fuzz" selects stages;
+# FUZZ_SECONDS, FUZZ_RUNS as above; JOBS (default 2) for ninja;
+# ROBUST_PREFIX (default "build-": build-asan, build-tsan, build-fuzz,
+# build-robust-logs) and ROBUST_PLAIN (default "build") place the build
+# directories elsewhere, e.g. ROBUST_PREFIX=/tmp/rb- ROBUST_PLAIN=/tmp/rb-plain.
+set -u
+cd "$(dirname "$0")/.." || exit 1
+
+STAGES=${ROBUST_STAGES:-"asan valgrind tsan fuzz"}
+FUZZ_SECONDS=${FUZZ_SECONDS:-20}
+FUZZ_RUNS=${FUZZ_RUNS:-2000000}
+JOBS=${JOBS:-2}
+PFX=${ROBUST_PREFIX:-build-}
+PLAIN=${ROBUST_PLAIN:-build}
+LOGDIR=${PFX}robust-logs
+rm -rf "$LOGDIR"
+mkdir -p "$LOGDIR"
+LOGABS=$(cd "$LOGDIR" && pwd)
+passed=0
+failed=0
+
+# Uninstrumented OpenBLAS threads confuse ThreadSanitizer and leave
+# "possibly lost" blocks under valgrind: run LAPACK single-threaded.
+export OPENBLAS_NUM_THREADS=1
+export MCD_TEST_DATA="$PWD/tests/data"
+NO_EXTRAS=(-Dpython=disabled -Dmpi=disabled)
+
+ok() { echo "robustness: $1 ok${2:+ ($2)}"; passed=$((passed + 1)); }
+fail() { echo "robustness: $1 FAIL ($2)"; failed=$((failed + 1)); }
+
+stage_asan() {
+    local log=$LOGDIR/asan.log
+    rm -rf "${PFX}asan"
+    if ! meson setup "${PFX}asan" -Db_sanitize=address,undefined -Db_lundef=false \
+            "${NO_EXTRAS[@]}" >"$log" 2>&1; then
+        fail asan "meson setup, see $log"; return
+    fi
+    if ! ninja -j"$JOBS" -C "${PFX}asan" >>"$log" 2>&1; then
+        fail asan "build, see $log"; return
+    fi
+    if ASAN_OPTIONS=halt_on_error=1:detect_leaks=1:abort_on_error=0:detect_stack_use_after_return=1 \
+       UBSAN_OPTIONS=halt_on_error=1:print_stacktrace=1 \
+       LSAN_OPTIONS=exitcode=23 CK_FORK=no \
+       meson test -C "${PFX}asan" --print-errorlogs --timeout-multiplier 4 \
+           --no-suite install >>"$log" 2>&1; then
+        ok asan "$(grep -E '^Ok:' "$log" | tr -s ' ') tests"
+    else
+        fail asan "$(grep -E '^(Ok|Fail|Timeout):' "$log" | tr -s ' ' | tr '\n' ' ')see $log"
+    fi
+}
+
+# One test executable under memcheck; its output goes to $2.log and the
+# file $2.fail exists if it failed. (Runs in a child bash via xargs.)
+valgrind_one() {
+    if ! CK_FORK=no CK_DEFAULT_TIMEOUT=1800 valgrind --quiet --error-exitcode=1 \
+            --leak-check=full --show-leak-kinds=definite,indirect \
+            --errors-for-leak-kinds=definite,indirect "$1" >"$2.log" 2>&1; then
+        touch "$2.fail"
+    fi
+}
+export -f valgrind_one
+
+stage_valgrind() {
+    local log=$LOGDIR/valgrind.log n=0 bad=0 t vdir
+    if ! command -v valgrind >/dev/null; then
+        fail valgrind "valgrind not installed"; return
+    fi
+    if [ ! -f "$PLAIN/build.ninja" ]; then
+        meson setup "$PLAIN" >"$log" 2>&1 || { fail valgrind "meson setup, see $log"; return; }
+    fi
+    ninja -j"$JOBS" -C "$PLAIN" >>"$log" 2>&1 || { fail valgrind "build, see $log"; return; }
+    vdir=$LOGDIR/valgrind
+    mkdir -p "$vdir"
+    # JOBS executables at a time; --track-origins is left out for speed
+    # (add it by hand to locate an uninitialised read that this reports).
+    # shellcheck disable=SC2016 # $1 and $2 expand in the child bash
+    for t in "$PLAIN"/tests/test_*; do
+        if [ -f "$t" ] && [ -x "$t" ]; then
+            printf '%s\0%s\0' "$t" "$vdir/$(basename "$t")"
+        fi
+    done | xargs -0 -n 2 -P "$JOBS" bash -c 'valgrind_one "$1" "$2"' _
+    for t in "$vdir"/*.log; do
+        [ -f "$t" ] || continue
+        n=$((n + 1))
+        { echo "=== $(basename "$t" .log)"; cat "$t"; } >>"$log"
+        if [ -f "${t%.log}.fail" ]; then
+            echo "valgrind: $(basename "$t" .log) FAILED" >>"$log"
+            bad=$((bad + 1))
+        fi
+    done
+    if [ "$n" -eq 0 ]; then
+        fail valgrind "no test executables in $PLAIN/tests"
+    elif [ "$bad" -eq 0 ]; then
+        ok valgrind "$n executables, 0 errors, 0 leaks"
+    else
+        fail valgrind "$bad of $n executables with errors or leaks, see $log"
+    fi
+}
+
+stage_tsan() {
+    local log=$LOGDIR/tsan.log
+    rm -rf "${PFX}tsan"
+    # No function entry/exit hooks: the batched kernels pick their SIMD
+    # variant through an ifunc resolver, which runs during relocation,
+    # before the TSan runtime exists, and crashes if instrumented. Memory
+    # accesses stay instrumented, so races are still detected (only the
+    # reports' stack traces are shorter).
+    if ! CC=gcc meson setup "${PFX}tsan" -Db_sanitize=thread -Db_lundef=false -Dcli=false \
+            -Dfortran=disabled "${NO_EXTRAS[@]}" \
+            -Dc_args=--param=tsan-instrument-func-entry-exit=0 >"$log" 2>&1; then
+        fail tsan "meson setup, see $log"; return
+    fi
+    if ! ninja -j"$JOBS" -C "${PFX}tsan" tests/test_threads >>"$log" 2>&1; then
+        fail tsan "build, see $log"; return
+    fi
+    if TSAN_OPTIONS=halt_on_error=1:second_deadlock_stack=1 CK_FORK=no \
+            "${PFX}tsan"/tests/test_threads >>"$log" 2>&1; then
+        ok tsan "test_threads clean"
+    else
+        fail tsan "see $log"
+    fi
+}
+
+stage_fuzz() {
+    local log=$LOGDIR/fuzz.log h corpus summary="" bad=0 execs fz
+    if ! command -v clang >/dev/null; then
+        fail fuzz "clang not installed"; return
+    fi
+    rm -rf "${PFX}fuzz"
+    if ! CC=clang meson setup "${PFX}fuzz" -Dfuzz=true -Dtests=disabled -Dcli=false \
+            -Dfortran=disabled "${NO_EXTRAS[@]}" -Db_sanitize=address,undefined -Db_lundef=false \
+            -Dc_args=-fsanitize=fuzzer-no-link >"$log" 2>&1; then
+        fail fuzz "meson setup, see $log"; return
+    fi
+    if ! ninja -j"$JOBS" -C "${PFX}fuzz" >>"$log" 2>&1; then
+        fail fuzz "build, see $log"; return
+    fi
+    fz=$(cd "${PFX}fuzz" && pwd)/tests/fuzz
+    for src in tests/fuzz/fuzz_*.c; do
+        h=$(basename "$src" .c)
+        [ -x "$fz/$h" ] || continue
+        corpus=$(mktemp -d)
+        cp -r "tests/fuzz/corpus/$h/." "$corpus/" 2>/dev/null || true
+        echo "=== $h" >>"$log"
+        if (cd "$corpus" && ASAN_OPTIONS=detect_leaks=1 \
+                "$fz/$h" -max_total_time="$FUZZ_SECONDS" \
+                -runs="$FUZZ_RUNS" -rss_limit_mb=2048 -print_final_stats=1 \
+                -artifact_prefix="$LOGABS/$h-" . ) >>"$log" 2>&1; then
+            execs=$(grep -E 'stat::number_of_executed_units' "$log" | tail -1 | awk '{print $2}')
+            summary="$summary $h=${execs:-?}"
+        else
+            bad=$((bad + 1))
+            summary="$summary $h=CRASH"
+        fi
+        rm -rf "$corpus"
+    done
+    if [ -z "$summary" ]; then
+        fail fuzz "no harness built, see $log"
+    elif [ "$bad" -eq 0 ]; then
+        ok fuzz "executions:$summary"
+    else
+        fail fuzz "$bad harness(es) crashed:$summary; reproducers in $LOGDIR/"
+    fi
+}
+
+for s in $STAGES; do
+    case $s in
+    asan) stage_asan ;;
+    valgrind) stage_valgrind ;;
+    tsan) stage_tsan ;;
+    fuzz) stage_fuzz ;;
+    *) fail "$s" "unknown stage" ;;
+    esac
+done
+echo "robustness: $passed passed, $failed failed"
+[ "$failed" -eq 0 ]

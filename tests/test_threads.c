@@ -1,0 +1,248 @@
+/* test_threads.c - concurrent use of shared read-only objects.
+ *
+ * The header promises: a database or mixture that is no longer modified may
+ * be shared read-only by any number of threads; a workspace belongs to one
+ * thread at a time. Here NTHREADS threads share one database and one
+ * mixture, each owns its workspace, and every thread computes the same
+ * NSTATES states (binaries from the mixture, Maxwell-Stefan and
+ * mixture-averaged fluxes, the Fick matrix and a film solve). Every result
+ * must be bitwise identical to the serial run: the library keeps no hidden
+ * shared mutable state, so there is nothing that could differ. Run under
+ * ThreadSanitizer by .ci/robustness.sh.
+ */
+#include <check.h>
+#include <math.h>
+#include <pthread.h>
+#include <stdint.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "mcdiff.h"
+
+#define NS 5
+#define ND 3
+#define NSTATES 64
+#define NTHREADS 4
+/* Values per state: Dij, MS flux, MA flux, mass-basis MS flux, Fick matrix,
+ * film fluxes. */
+#define PER_STATE (NS * NS + 3 * NS * ND + (NS - 1) * (NS - 1) + NS)
+
+static const char *const names[NS] = {"nitrogen", "oxygen", "carbon-dioxide",
+                                      "water", "argon"};
+static mcd_db *g_db;
+static mcd_mixture *g_mix;
+static double g_M[NS];
+static double g_serial[NSTATES][PER_STATE];
+
+/* Deterministic state k from a local xorshift generator (fixed seed). */
+typedef struct state {
+    double T, P, c, x[NS], xL[NS], grad[NS * ND];
+} state;
+
+static uint64_t xs_next(uint64_t *s)
+{
+    *s ^= *s << 13;
+    *s ^= *s >> 7;
+    *s ^= *s << 17;
+    return *s;
+}
+static double xs_unit(uint64_t *s) { return (double)(xs_next(s) >> 11) * 0x1p-53; }
+
+static void make_state(int k, state *st)
+{
+    uint64_t s = 0x9E3779B97F4A7C15ull ^ (uint64_t)(k + 1) * 0xD1B54A32D192ED03ull;
+    double sum = 0.0, sumL = 0.0;
+    for (int r = 0; r < 4; r++)
+        xs_next(&s);
+    st->T = 250.0 + 500.0 * xs_unit(&s);
+    st->P = 5e4 + 3e5 * xs_unit(&s);
+    st->c = st->P / (MCD_GAS_CONSTANT * st->T);
+    for (int i = 0; i < NS; i++) {
+        st->x[i] = 0.05 + xs_unit(&s);
+        st->xL[i] = 0.05 + xs_unit(&s);
+        sum += st->x[i];
+        sumL += st->xL[i];
+    }
+    for (int i = 0; i < NS; i++) {
+        st->x[i] /= sum;
+        st->xL[i] /= sumL;
+    }
+    for (int d = 0; d < ND; d++) {
+        double g = 0.0;
+        for (int i = 0; i < NS - 1; i++) {
+            st->grad[i * ND + d] = 20.0 * (xs_unit(&s) - 0.5);
+            g += st->grad[i * ND + d];
+        }
+        st->grad[(NS - 1) * ND + d] = -g;
+    }
+}
+
+/* Everything one state produces, written into out[PER_STATE]. Returns the
+ * first non-OK status. */
+static mcd_status compute_state(mcd_workspace *ws, int k, double *out)
+{
+    state st;
+    mcd_status r;
+    double *D = out, *Jms = D + NS * NS, *Jma = Jms + NS * ND;
+    double *jms = Jma + NS * ND, *F = jms + NS * ND, *Nf = F + (NS - 1) * (NS - 1);
+    make_state(k, &st);
+    if ((r = mcd_mixture_binaries(g_mix, st.T, st.P, D, NULL, NULL)) != MCD_OK)
+        return r;
+    if ((r = mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, NS, ND, g_M, D, st.c,
+                              MCD_BASIS_MOLE, st.x, st.grad, NULL, NULL,
+                              MCD_BASIS_MOLE, Jms)) != MCD_OK)
+        return r;
+    if ((r = mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED, NS, ND, g_M, D, st.c,
+                              MCD_BASIS_MOLE, st.x, st.grad, NULL, NULL,
+                              MCD_BASIS_MOLE, Jma)) != MCD_OK)
+        return r;
+    if ((r = mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, NS, ND, g_M, D, st.c,
+                              MCD_BASIS_MOLE, st.x, st.grad, NULL, NULL,
+                              MCD_BASIS_MASS, jms)) != MCD_OK)
+        return r;
+    if ((r = mcd_fick_matrix(ws, NS, g_M, D, MCD_BASIS_MOLE, st.x, NULL,
+                             MCD_BASIS_MOLE, 0, F, NULL)) != MCD_OK)
+        return r;
+    /* Film: equimolar counter-diffusion between x and xL over 1 mm. */
+    return mcd_film_solve(ws, NS, D, st.c, 1e-3, st.x, st.xL, MCD_BOOT_EQUIMOLAR,
+                          0, NULL, MCD_FILM_EXACT, Nf, NULL, NULL);
+}
+
+typedef struct job {
+    int id;
+    int mismatches;   /* states whose result differs from serial */
+    int failures;     /* calls that did not return MCD_OK */
+    double out[PER_STATE];
+} job;
+
+static void *worker(void *arg)
+{
+    job *jb = arg;
+    mcd_workspace *ws = NULL;
+    if (mcd_workspace_alloc(NS, &ws) != MCD_OK) {
+        jb->failures = NSTATES;
+        return NULL;
+    }
+    /* Each thread walks the states from a different starting point so that
+     * the threads are in different parts of the computation at once. */
+    for (int r = 0; r < NSTATES; r++) {
+        int k = (r + jb->id * (NSTATES / NTHREADS)) % NSTATES;
+        if (compute_state(ws, k, jb->out) != MCD_OK)
+            jb->failures++;
+        else if (memcmp(jb->out, g_serial[k], sizeof jb->out) != 0)
+            jb->mismatches++;
+    }
+    mcd_workspace_free(ws);
+    return NULL;
+}
+
+static void setup(void)
+{
+    ck_assert_int_eq(mcd_db_new_builtin(&g_db), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_new(g_db, NS, names, MCD_METHOD_FSG, &g_mix, NULL, 0),
+                     MCD_OK);
+    /* Two pairs by other methods so that every code path of binaries runs. */
+    ck_assert_int_eq(mcd_mixture_set_method(g_mix, 0, 1, MCD_METHOD_CHAPMAN_ENSKOG),
+                     MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_binary(g_mix, 2, 3, 1.6e-5, 298.15, MCD_ATM), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_method(g_mix, 2, 3, MCD_METHOD_USER), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_molar_masses(g_mix, g_M), MCD_OK);
+}
+
+static void teardown(void)
+{
+    mcd_mixture_free(g_mix);
+    mcd_db_free(g_db);
+    g_mix = NULL;
+    g_db = NULL;
+}
+
+START_TEST(threads_results_bitwise_equal_serial)
+{
+    mcd_workspace *ws = NULL;
+    pthread_t th[NTHREADS];
+    job jobs[NTHREADS];
+    ck_assert_int_eq(mcd_workspace_alloc(NS, &ws), MCD_OK);
+    for (int k = 0; k < NSTATES; k++) {
+        ck_assert_int_eq(compute_state(ws, k, g_serial[k]), MCD_OK);
+        for (int q = 0; q < PER_STATE; q++)
+            ck_assert(isfinite(g_serial[k][q]));
+    }
+    mcd_workspace_free(ws);
+
+    memset(jobs, 0, sizeof jobs);
+    for (int t = 0; t < NTHREADS; t++) {
+        jobs[t].id = t;
+        ck_assert_int_eq(pthread_create(&th[t], NULL, worker, &jobs[t]), 0);
+    }
+    for (int t = 0; t < NTHREADS; t++)
+        ck_assert_int_eq(pthread_join(th[t], NULL), 0);
+    for (int t = 0; t < NTHREADS; t++) {
+        ck_assert_msg(jobs[t].failures == 0, "thread %d: %d failed calls", t,
+                      jobs[t].failures);
+        ck_assert_msg(jobs[t].mismatches == 0, "thread %d: %d states differ from serial",
+                      t, jobs[t].mismatches);
+    }
+}
+END_TEST
+
+/* Read-only database queries from many threads at once. */
+typedef struct dbjob {
+    int bad;
+} dbjob;
+
+static void *db_worker(void *arg)
+{
+    dbjob *j = arg;
+    for (int r = 0; r < 200; r++) {
+        size_t idx;
+        double D, M;
+        unsigned warn;
+        if (mcd_db_find(g_db, names[r % NS], &idx) != MCD_OK)
+            j->bad++;
+        else if (mcd_db_param(g_db, idx, MCD_PARAM_MOLAR_MASS, &M) != MCD_OK ||
+                 M != g_M[r % NS])
+            j->bad++;
+        size_t a, b;
+        if (mcd_db_find(g_db, "nitrogen", &a) != MCD_OK ||
+            mcd_db_find(g_db, "helium", &b) != MCD_OK ||
+            mcd_binary_gas(g_db, a, b, MCD_METHOD_CHAPMAN_ENSKOG, 300.0 + r, MCD_ATM, &D,
+                           NULL, &warn) != MCD_OK ||
+            !(D > 0))
+            j->bad++;
+        double Mf;
+        if (mcd_formula_molar_mass("CH3(CH2)4CH3", &Mf, NULL, 0) != MCD_OK)
+            j->bad++;
+    }
+    return NULL;
+}
+
+START_TEST(threads_shared_database_queries)
+{
+    pthread_t th[NTHREADS];
+    dbjob jobs[NTHREADS];
+    memset(jobs, 0, sizeof jobs);
+    for (int t = 0; t < NTHREADS; t++)
+        ck_assert_int_eq(pthread_create(&th[t], NULL, db_worker, &jobs[t]), 0);
+    for (int t = 0; t < NTHREADS; t++)
+        ck_assert_int_eq(pthread_join(th[t], NULL), 0);
+    for (int t = 0; t < NTHREADS; t++)
+        ck_assert_int_eq(jobs[t].bad, 0);
+}
+END_TEST
+
+int main(void)
+{
+    Suite *s = suite_create("mcd:threads");
+    TCase *tc = tcase_create("shared");
+    tcase_add_checked_fixture(tc, setup, teardown);
+    tcase_set_timeout(tc, 240);
+    tcase_add_test(tc, threads_results_bitwise_equal_serial);
+    tcase_add_test(tc, threads_shared_database_queries);
+    suite_add_tcase(s, tc);
+    SRunner *sr = srunner_create(s);
+    srunner_run_all(sr, CK_ENV);
+    int failed = srunner_ntests_failed(sr);
+    srunner_free(sr);
+    return failed ? EXIT_FAILURE : EXIT_SUCCESS;
+}
