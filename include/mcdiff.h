@@ -170,7 +170,8 @@ MCD_API mcd_status mcd_fsg_molecule_volume(const char *formula, double *out_V);
 /** Symbol of element Z (1..118), or NULL. Since 0.1. */
 MCD_API const char *mcd_element_symbol(int Z);
 /** Standard atomic weight of element Z [kg/mol]. Since 0.1.
- *  Fails: ENOTFOUND (Z out of range or no standard weight) | Allocates: no */
+ *  Fails: EINVAL (NULL output), ENOTFOUND (Z out of range or no standard
+ *  weight) | Allocates: no */
 MCD_API mcd_status mcd_element_weight(int Z, double *out_kg_per_mol);
 
 /* ------------------------------------------------------------------ */
@@ -339,7 +340,8 @@ MCD_API const char *mcd_method_name(mcd_method m);
  *  Fails: EINVAL, ENOTFOUND | Allocates: no */
 MCD_API mcd_status mcd_method_from_name(const char *name, mcd_method *out_m);
 /** Typical (average absolute) relative error of a method's estimates, as
- *  published for its validation set, e.g. 0.05 for 5 %. NaN for USER.
+ *  published for its validation set, e.g. 0.05 for 5 %. NaN for USER or an
+ *  unknown method.
  *  Since 0.1. */
 MCD_API double mcd_method_typical_error(mcd_method m);
 
@@ -492,7 +494,8 @@ MCD_API void mcd_workspace_free(mcd_workspace *ws);
 /** Species capacity of a workspace (0 for NULL). Since 0.1. */
 MCD_API size_t mcd_workspace_species(const mcd_workspace *ws);
 /** Detail of the last error of a call on this workspace (which argument,
- *  which index), "" if none. Valid until the next call. Since 0.1. */
+ *  which index), "" if none or ws is NULL. Valid until the next call.
+ *  Since 0.1. */
 MCD_API const char *mcd_workspace_last_error(const mcd_workspace *ws);
 
 /* ------------------------------------------------------------------ */
@@ -547,7 +550,10 @@ typedef enum mcd_model {
  *  The driving forces are first projected onto sum_i d_i = 0 by
  *  d_i -= x_i sum_k d_k (removes round-off or an inconsistent Gamma; trace
  *  species are untouched). A NaN or infinite input is EINVAL, a finite
- *  out-of-range one EDOM.
+ *  out-of-range one EDOM. Accuracy: for Đ spread over up to 6 decades and
+ *  N <= 100 the fluxes agree with an extended-precision solution to a
+ *  normwise relative error below 1e-11 (measured about 1e-14,
+ *  tests/test_edge_cases.c).
  *  Fails: EINVAL, EDOM, EBADLEN (N > capacity), ESING, EINTERNAL
  *  | Allocates: no
  *  | Threads: one ws per thread */
