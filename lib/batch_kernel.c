@@ -9,7 +9,7 @@
  * Layout: a block holds L cells ("lanes"); every quantity of species i is
  * L contiguous doubles, q[i*L + l]. Each step below is a loop over lanes
  * that the compiler vectorises; the species loops are fully unrolled for
- * N <= 8 (the block function is instantiated for each small N).
+ * N <= 5 and n_dim = 3 (instantiated for each, see block_lanes).
  *
  * Equations: as mcd_flux_compute (maxwell_stefan.c, mixavg.c), with the
  * same scaled symmetric positive definite form of the Maxwell-Stefan
@@ -829,9 +829,15 @@ store:
                 }
     }
     for (i = 0; i < n * nd; i++) {
-        double *o = jb->out + i * K + k0;
-        for (l = 0; l < nv; l++)
-            o[l] = J[i * L + l];
+        double *restrict o = jb->out + i * K + k0;
+        const double *restrict Ji = J + i * L;
+        if (nv == L) {
+            LANES /* full block: vector stores */
+                o[l] = Ji[l];
+        } else {
+            for (l = 0; l < nv; l++)
+                o[l] = Ji[l];
+        }
     }
     return;
 
@@ -857,14 +863,17 @@ diagnose:
 
 #define LANES_SMALL MCDI_LANES
 
-/* n (and n_dim = 3, the common case) as compile-time constants for small
- * n, so that the species loops unroll. */
+/* n and n_dim = 3 (the common case) as compile-time constants for small
+ * n (2 to 5), so that the species loops unroll; larger n and other n_dim
+ * share one generic instance. The set
+ * of instances is kept small on purpose: every instance is compiled once
+ * per ISA clone, and each costs several seconds of compile time. */
 #define BODY_ND(nn)                                                        \
     do {                                                                   \
         if (jb->nd == 3)                                                   \
             body(jb, k0, nv, mem, res, nn, LANES_SMALL, 3);                \
         else                                                               \
-            body(jb, k0, nv, mem, res, nn, LANES_SMALL, jb->nd);           \
+            body(jb, k0, nv, mem, res, jb->n, LANES_SMALL, jb->nd);        \
     } while (0)
 
 KCLONES
@@ -876,9 +885,6 @@ static void block_lanes(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
     case 3: BODY_ND(3); break;
     case 4: BODY_ND(4); break;
     case 5: BODY_ND(5); break;
-    case 6: BODY_ND(6); break;
-    case 7: BODY_ND(7); break;
-    case 8: BODY_ND(8); break;
     default: body(jb, k0, nv, mem, res, jb->n, LANES_SMALL, jb->nd); break;
     }
 }
