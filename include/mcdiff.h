@@ -537,7 +537,8 @@ typedef enum mcd_model {
  *  @param Dij         binary diffusivities [m^2/s], N x N, symmetric
  *                     (relative difference <= 1e-12), off-diagonal > 0,
  *                     diagonal ignored.
- *  @param c           total molar concentration [mol/m^3], > 0.
+ *  @param c           total molar concentration [mol/m^3], a normal positive
+ *                     number (>= DBL_MIN; a subnormal c is EDOM).
  *  @param comp_basis  whether comp/grad_comp are mole or mass fractions.
  *  @param comp        fractions, length N, validated as mcd_comp_normalize.
  *  @param grad_comp   their gradients [1/m], N x n_dim.
@@ -790,7 +791,7 @@ MCD_API mcd_status mcd_flux_batch(mcd_workspace *ws, const mcd_mixture *mix,
  *                     (Dij[(i*N + j)*K + k]), each cell's matrix symmetric
  *                     (relative difference <= 1e-12), off-diagonal > 0,
  *                     diagonal ignored.
- *  @param c           total molar concentrations [mol/m^3], length K, > 0.
+ *  @param c           total molar concentrations [mol/m^3], length K, each >= DBL_MIN.
  *  Other parameters as in mcd_flux_batch.
  *  Fails: EINVAL, EDOM, EBADLEN, ESING, EINTERNAL | Allocates: no
  *  | Threads: one ws per thread */

@@ -140,7 +140,7 @@ static mcd_status check_cell(const mcdi_bjob *jb, size_t k, const char **what)
         if (!(jb->P[k] > 0.0)) { *what = "P: not > 0"; return MCD_EDOM; }
     } else {
         if (!mcdi_finite(jb->c[k])) { *what = "c: not finite"; return MCD_EINVAL; }
-        if (!(jb->c[k] > 0.0)) { *what = "c: not > 0"; return MCD_EDOM; }
+        if (!(jb->c[k] >= DBL_MIN)) { *what = "c: not a normal positive number"; return MCD_EDOM; }
         for (i = 0; i < n; i++)
             for (j = 0; j < n; j++)
                 if (i != j && !mcdi_finite(jb->Dij[(i * n + j) * K + k])) {

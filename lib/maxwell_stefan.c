@@ -63,6 +63,7 @@
  * species exact. In the mass basis j_i = M_i J_i - w_i sum_k M_k J_k and
  * the residual of sum j_i is removed with weights w.
  */
+#include <float.h>
 #include <string.h>
 #include <lapacke.h>
 
@@ -448,8 +449,11 @@ MCD_API mcd_status mcd_flux_compute(mcd_workspace *ws, mcd_model model,
         return mcdi_ws_fail(ws, MCD_EINVAL, "argument out_flux: NULL");
     if (!mcdi_finite(c))
         return mcdi_ws_fail(ws, MCD_EINVAL, "argument c: not finite");
-    if (!(c > 0.0))
-        return mcdi_ws_fail(ws, MCD_EDOM, "argument c: %g is not > 0", c);
+    /* A subnormal c (< DBL_MIN) is rejected: the fluxes would underflow
+     * unevenly and lose the zero-sum. */
+    if (!(c >= DBL_MIN))
+        return mcdi_ws_fail(ws, MCD_EDOM,
+                            "argument c: %g is not a normal positive number", c);
     need_M = comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
              grad_lnP != NULL;
     if (need_M && (st = mcdi_flux_check_M(ws, n, M)) != MCD_OK)

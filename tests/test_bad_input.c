@@ -1005,6 +1005,7 @@ static const bcase cases[] = {
     C(mcd_flux_compute, "c inf", EINVAL_, "c", MD(c, INFINITY)),
     C(mcd_flux_compute, "c 0", EDOM_, "c", MD(c, 0.0)),
     C(mcd_flux_compute, "c negative", EDOM_, "c", MD(c, -40.0)),
+    C(mcd_flux_compute, "c subnormal", EDOM_, "c", MD(c, 4.9e-324)),
     C(mcd_flux_compute, "mass flux without M", EINVAL_, "M", MI(basis2, MCD_BASIS_MASS),
       MN(NB_M)),
     C(mcd_flux_compute, "pressure gradient without M", EINVAL_, "M", MI(use_glnp, 1), MN(NB_M)),
