@@ -39,7 +39,7 @@
  * N, which would break the no-allocation guarantee of the batched calls.
  *
  * Iterative model (Ern and Giovangigli 1994, "Multicomponent Transport
- * Algorithms", Lecture Notes in Physics m24, ch. 5; and J. Comput. Phys.
+ * Algorithms", Springer monograph m24, ch. 5; and J. Comput. Phys.
  * 120 (1995) 105): the splitting Gs = Ms - Zs with the diagonal
  * Ms_ii = S_i / (1 - x_i) and the projector Ps = I - s s^T onto the
  * constraint s^T U = 0 (sum J_i = 0) give the convergent iteration

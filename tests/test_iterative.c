@@ -1,8 +1,10 @@
 /* test_iterative.c - the Ern-Giovangigli iterative Maxwell-Stefan solver
+ * (identities only: no outside check values; the reference is the exact
+ * solve, itself checked against published data elsewhere)
  * (MCD_MODEL_ITERATIVE of the batched calls).
  *
- * Ern and Giovangigli (1994, Multicomponent Transport Algorithms, Lecture
- * Notes in Physics m24) prove that the splitting with the diagonal
+ * Ern and Giovangigli (1994, Multicomponent Transport Algorithms,
+ * Springer monograph m24) prove that the splitting with the diagonal
  * Ms_ii = S_i / (1 - x_i) and the projection onto the zero-sum converges
  * to the exact solution and that its first iterate is the
  * mixture-averaged approximation. Checked here against the library's

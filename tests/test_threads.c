@@ -1,4 +1,5 @@
-/* test_threads.c - concurrent use of shared read-only objects.
+/* test_threads.c - concurrent use of shared read-only objects
+ * (identities only: threaded results must equal serial ones bit for bit).
  *
  * The header promises: a database or mixture that is no longer modified may
  * be shared read-only by any number of threads; a workspace belongs to one
