@@ -21,11 +21,14 @@
 #             --leak-check=full, any error or definite/indirect leak fails.
 #   tsan      gcc -fsanitize=thread, tests/test_threads only (function
 #             entry/exit hooks off, see stage_tsan).
+#   openmp    gcc, -Dopenmp=enabled: the batched calls parallel over cells;
+#             the batch, allocation and thread suites (results bit-identical
+#             to one thread) and the exported-symbol check.
 #   fuzz      clang + libFuzzer (-Dfuzz=true), each harness for
 #             FUZZ_SECONDS (default 20) or FUZZ_RUNS (default 2000000)
 #             executions, whichever comes first, from a temporary copy of
 #             tests/fuzz/corpus/<harness>/ (the repository is not changed).
-# Environment: ROBUST_STAGES="asan valgrind tsan fuzz" selects stages;
+# Environment: ROBUST_STAGES="asan valgrind tsan openmp fuzz" selects stages;
 # FUZZ_SECONDS, FUZZ_RUNS as above; JOBS (default 2) for ninja;
 # ROBUST_PREFIX (default "build-": build-asan, build-tsan, build-fuzz,
 # build-robust-logs) and ROBUST_PLAIN (default "build") place the build
@@ -33,7 +36,7 @@
 set -u
 cd "$(dirname "$0")/.." || exit 1
 
-STAGES=${ROBUST_STAGES:-"asan valgrind tsan fuzz"}
+STAGES=${ROBUST_STAGES:-"asan valgrind tsan openmp fuzz"}
 FUZZ_SECONDS=${FUZZ_SECONDS:-20}
 FUZZ_RUNS=${FUZZ_RUNS:-2000000}
 JOBS=${JOBS:-2}
@@ -148,6 +151,25 @@ stage_tsan() {
     fi
 }
 
+stage_openmp() {
+    local log=$LOGDIR/openmp.log
+    rm -rf "${PFX}openmp"
+    if ! CC=gcc meson setup "${PFX}openmp" -Dopenmp=enabled -Dcli=false \
+            -Dfortran=disabled "${NO_EXTRAS[@]}" >"$log" 2>&1; then
+        fail openmp "meson setup, see $log"; return
+    fi
+    if ! ninja -j"$JOBS" -C "${PFX}openmp" >>"$log" 2>&1; then
+        fail openmp "build, see $log"; return
+    fi
+    if OMP_NUM_THREADS=2 meson test -C "${PFX}openmp" --print-errorlogs \
+            test_batch test_alloc test_threads test_iterative exported_symbols \
+            >>"$log" 2>&1; then
+        ok openmp "$(grep -E '^Ok:' "$log" | tr -s ' ') tests"
+    else
+        fail openmp "$(grep -E '^(Ok|Fail|Timeout):' "$log" | tr -s ' ' | tr '\n' ' ')see $log"
+    fi
+}
+
 stage_fuzz() {
     local log=$LOGDIR/fuzz.log h corpus summary="" bad=0 execs fz
     if ! command -v clang >/dev/null; then
@@ -195,6 +217,7 @@ for s in $STAGES; do
     asan) stage_asan ;;
     valgrind) stage_valgrind ;;
     tsan) stage_tsan ;;
+    openmp) stage_openmp ;;
     fuzz) stage_fuzz ;;
     *) fail "$s" "unknown stage" ;;
     esac

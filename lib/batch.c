@@ -67,7 +67,7 @@ static mcd_status run_job(mcd_workspace *ws, const mcdi_bjob *jb)
             mcdi_batch_block(jb, k0, nv, mem, &res);
             if (res.st != MCD_OK) {
 #ifdef _OPENMP
-#pragma omp critical(mcdi_batch_fail)
+#pragma omp critical
 #endif
                 {
                     if (k0 + res.lane < fail_cell) {
@@ -84,7 +84,7 @@ static mcd_status run_job(mcd_workspace *ws, const mcdi_bjob *jb)
             }
         }
 #ifdef _OPENMP
-#pragma omp critical(mcdi_batch_iter)
+#pragma omp critical
 #endif
         {
             if (my_err > iter_err || my_err != my_err)

@@ -87,8 +87,18 @@
 #else
 #define LANES for (l = 0; l < L; l++)
 #endif
+/* The same with an OR-reduction of the int flag `bad` (input checks): the
+ * reduction clause keeps these loops vectorised. */
+#if defined(_OPENMP) || defined(MCDI_OMP_SIMD)
+#define LANES_BAD _Pragma("omp simd reduction(|:bad)") for (l = 0; l < L; l++)
+#else
+#define LANES_BAD for (l = 0; l < L; l++)
+#endif
 
 static size_t tri_n(size_t n) { return n * (n + 1) / 2; }
+
+/* Rows factored together above KREG species (ldl_solve_v). */
+#define KTILE 4
 
 size_t mcdi_batch_scratch_doubles(size_t cap)
 {
@@ -101,6 +111,7 @@ size_t mcdi_batch_scratch_doubles(size_t cap)
             continue;
         need = tri_n(n) * L            /* invD / A / L factors */
                + 10 * n * L            /* x w s S num minv Dg iDg wk spare */
+               + KTILE * n * L         /* W rows of a tile (ldl_solve_v) */
                + 6 * n * MCD_MAX_DIM * L /* d t r v tmp out */
                + (MCDI_FIT_MAXDEG + 1) * L + 64 * L
                + (2 * n + 2 * n * MCD_MAX_DIM + MCD_MAX_DIM + 4) * L; /* AoS */
@@ -110,11 +121,17 @@ size_t mcdi_batch_scratch_doubles(size_t cap)
     return best;
 }
 
+/* Prefetch distance of the input streams, in doubles (8 blocks ahead). */
+#define MCDI_PREFETCH 64
+
 /* Load row src[k0 .. k0+nv-1] into dst[0..L-1], padding with src[k0]. */
 KINLINE void load_row(double *restrict dst, const double *restrict src,
                       size_t nv, size_t L)
 {
     size_t l;
+    /* the next blocks of this input stream (a few dozen streams at once
+     * are more than the hardware prefetchers follow) */
+    __builtin_prefetch(src + MCDI_PREFETCH, 0, 0);
     if (nv == L) {
         LANES
             dst[l] = src[l];
@@ -199,6 +216,180 @@ static mcd_status check_cell(const mcdi_bjob *jb, size_t k, const char **what)
 static double omega_exact(double Ts) { return mcdi_omega_d(Ts); }
 
 /* ------------------------------------------------------------------ */
+/* fused LDL^T solve on lane vectors                                    */
+/* ------------------------------------------------------------------ */
+
+/* One value per lane of a full block, as a GCC/Clang generic vector: the
+ * compiler maps it onto the clone's registers (one zmm, two ymm or four
+ * xmm). may_alias: scratch rows are accessed both as double and as this. */
+typedef double mcdi_vd
+    __attribute__((vector_size(MCDI_LANES * sizeof(double)), may_alias));
+typedef long long mcdi_vl
+    __attribute__((vector_size(MCDI_LANES * sizeof(long long)), may_alias));
+
+/* Up to this many species the pivots and the multipliers W live in local
+ * arrays, which become registers once the loops over a constant n are
+ * unrolled; above it they live in the caller's scratch. */
+#define KREG 8
+
+/* Assemble A = Gs + a s s^T row by row (A holds the packed lower triangle
+ * of the inverse diffusivities on entry and L on exit), factor A = L D L^T
+ * by rows (W_j = L_ij D_j), run the forward substitution of each row as
+ * soon as it is factored, then the diagonal scaling and the backward
+ * substitution. R: right-hand sides [i * nd + dd] in, solution out; Dg gets
+ * the pivots. Returns 0 if some lane has a pivot that is not > 0 (or NaN).
+ *
+ * Above KREG species the rows are taken KTILE at a time: the columns left
+ * of the tile are done for its rows together, so each loaded L_jk serves
+ * KTILE independent multiply-add chains (the factor is in L2 cache at
+ * large n; one load per FMA was the limit), then the tile's own triangle
+ * row by row. Wm: KTILE * n vectors (the tile's W rows). Up to KREG
+ * species W and 1/D are local arrays, registers after unrolling. */
+KINLINE void ldl_row_tail(const size_t nd, mcdi_vd *restrict A, const size_t i,
+                          const size_t j0, const mcdi_vd *restrict s,
+                          const mcdi_vd a, mcdi_vd *restrict W,
+                          const mcdi_vd *restrict iD, const mcdi_vd *restrict R,
+                          mcdi_vd *restrict f)
+{
+    mcdi_vd *restrict Ai = A + i * (i + 1) / 2;
+    const mcdi_vd si = s[i];
+    size_t j, k, dd;
+    for (j = j0; j < i; j++) {
+        const mcdi_vd *restrict Aj = A + j * (j + 1) / 2;
+        mcdi_vd t = si * s[j] * (a - Ai[j]), lij;
+        for (k = 0; k < j; k++)
+            t -= W[k] * Aj[k];
+        W[j] = t;
+        lij = t * iD[j];
+        Ai[j] = lij;
+        for (dd = 0; dd < nd; dd++)
+            f[dd] -= lij * R[j * nd + dd];
+    }
+}
+
+KINLINE int ldl_solve_v(const size_t n, const size_t nd, mcdi_vd *restrict A,
+                        const mcdi_vd *restrict s, const mcdi_vd *restrict S,
+                        const mcdi_vd *restrict x, const mcdi_vd a,
+                        mcdi_vd *restrict R, mcdi_vd *restrict Dg,
+                        mcdi_vd *restrict iDm, mcdi_vd *restrict Wm)
+{
+    mcdi_vd Wl[KREG], iDl[KREG];
+    mcdi_vd *restrict iD = n <= KREG ? iDl : iDm;
+    const mcdi_vd zero = {0.0};
+    mcdi_vl ok = zero == zero; /* all lanes true */
+    size_t i, i0, j, k, dd, l, r;
+    const size_t step = n <= KREG ? 1 : KTILE; /* rows per tile */
+    for (i0 = 0; i0 < n; i0 += step) {
+        const size_t nr = n - i0 < step ? n - i0 : step;
+        mcdi_vd f[KTILE][MCD_MAX_DIM];
+        for (r = 0; r < nr; r++)
+            for (dd = 0; dd < nd; dd++)
+                f[r][dd] = R[(i0 + r) * nd + dd];
+        if (n > KREG && nr == KTILE) {
+            /* columns j < i0 for the KTILE rows together */
+            for (j = 0; j < i0; j++) {
+                const mcdi_vd *restrict Aj = A + j * (j + 1) / 2;
+                const mcdi_vd sj = s[j];
+                mcdi_vd t[KTILE];
+                for (r = 0; r < KTILE; r++)
+                    t[r] = s[i0 + r] * sj *
+                           (a - A[(i0 + r) * (i0 + r + 1) / 2 + j]);
+                for (k = 0; k < j; k++) {
+                    const mcdi_vd ajk = Aj[k];
+                    for (r = 0; r < KTILE; r++)
+                        t[r] -= Wm[r * n + k] * ajk;
+                }
+                for (r = 0; r < KTILE; r++) {
+                    const mcdi_vd lij = t[r] * iD[j];
+                    Wm[r * n + j] = t[r];
+                    A[(i0 + r) * (i0 + r + 1) / 2 + j] = lij;
+                    for (dd = 0; dd < nd; dd++)
+                        f[r][dd] -= lij * R[j * nd + dd];
+                }
+            }
+        }
+        for (r = 0; r < nr; r++) {
+            const size_t ii = i0 + r;
+            mcdi_vd *restrict W = n <= KREG ? Wl : Wm + r * n;
+            mcdi_vd *restrict Ai = A + ii * (ii + 1) / 2;
+            mcdi_vd dg;
+            ldl_row_tail(nd, A, ii, (n > KREG && nr == KTILE) ? i0 : 0, s, a,
+                         W, iD, R, f[r]);
+            dg = S[ii] + a * x[ii];
+            for (k = 0; k < ii; k++)
+                dg -= W[k] * Ai[k];
+            Dg[ii] = dg;
+            ok &= dg > zero;
+            iD[ii] = 1.0 / dg;
+            for (dd = 0; dd < nd; dd++)
+                R[ii * nd + dd] = f[r][dd];
+        }
+    }
+    for (l = 0; l < MCDI_LANES; l++)
+        if (ok[l] == 0)
+            return 0;
+    for (i = n; i-- > 0;) {
+        mcdi_vd f[MCD_MAX_DIM];
+        for (dd = 0; dd < nd; dd++)
+            f[dd] = R[i * nd + dd] * iD[i];
+        for (k = i + 1; k < n; k++) {
+            const mcdi_vd lki = A[k * (k + 1) / 2 + i];
+            for (dd = 0; dd < nd; dd++)
+                f[dd] -= lki * R[k * nd + dd];
+        }
+        for (dd = 0; dd < nd; dd++)
+            R[i * nd + dd] = f[dd];
+    }
+    return 1;
+}
+
+/* Molar fluxes of a full block from the solution U of the scaled system:
+ * J_i = c (s_i U_i + t_i - x_i sum_t t_t), then the zero-sum clean-up
+ * J_i -= x_i sum_k J_k, written to out[e * K + l] (e = i * nd + dd) in the
+ * same pass. J: scratch for one direction's fluxes. Returns 0 (nothing
+ * written, J holds all fluxes) if some flux is not finite. */
+KINLINE int emit_mole_v(const size_t n, const size_t nd,
+                        const mcdi_vd *restrict s, const mcdi_vd *restrict x,
+                        const mcdi_vd *restrict U, const mcdi_vd *restrict t,
+                        const int ntr, const mcdi_vd c, mcdi_vd *restrict J,
+                        double *restrict out, const size_t K)
+{
+    const mcdi_vd zero = {0.0};
+    const mcdi_vd big = zero + DBL_MAX;
+    mcdi_vl ok = zero == zero;
+    size_t i, dd, e, l;
+    for (dd = 0; dd < nd; dd++) {
+        mcdi_vd st = zero, rs = zero;
+        if (ntr)
+            for (i = 0; i < n; i++)
+                st += t[i * nd + dd];
+        for (i = 0; i < n; i++) {
+            mcdi_vd q;
+            e = i * nd + dd;
+            q = s[i] * U[e];
+            if (ntr)
+                q += t[e] - x[i] * st;
+            q *= c;
+            J[e] = q;
+            rs += q;
+        }
+        for (i = 0; i < n; i++) {
+            mcdi_vd q;
+            e = i * nd + dd;
+            q = J[e] - x[i] * rs;
+            ok &= (q <= big) & (q >= -big);
+            J[e] = q;
+        }
+    }
+    for (l = 0; l < MCDI_LANES; l++)
+        if (ok[l] == 0)
+            return 0;
+    for (e = 0; e < n * nd; e++)
+        memcpy(out + e * K, &J[e], sizeof J[e]);
+    return 1;
+}
+
+/* ------------------------------------------------------------------ */
 /* the block body, instantiated for constant n and L                    */
 /* ------------------------------------------------------------------ */
 
@@ -226,6 +417,7 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
     double *restrict r = mem;    mem += n * nd * L;  /* rhs, U */
     double *restrict v = mem;    mem += n * nd * L;  /* iterate, tmp */
     double *restrict J = mem;    mem += n * nd * L;
+    double *restrict Wt = mem;   mem += KTILE * n * L;
     double *restrict cheb = mem; mem += (MCDI_FIT_MAXDEG + 1) * L;
     double *restrict c = mem;    mem += L;
     double *restrict aux = mem;  mem += 8 * L;
@@ -239,15 +431,15 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
         double *Tl = aux, *Pl = aux + L;
         load_row(Tl, jb->T + k0, nv, L);
         load_row(Pl, jb->P + k0, nv, L);
-        LANES {
-            bad |= !(Tl[l] > 0.0 && Tl[l] <= DBL_MAX);
-            bad |= !(Pl[l] > 0.0 && Pl[l] <= DBL_MAX);
+        LANES_BAD {
+            bad |= !((Tl[l] > 0.0) & (Tl[l] <= DBL_MAX));
+            bad |= !((Pl[l] > 0.0) & (Pl[l] <= DBL_MAX));
             c[l] = Pl[l] / (RGAS * Tl[l]);
         }
     } else {
         load_row(c, jb->c + k0, nv, L);
-        LANES
-            bad |= !(c[l] > 0.0 && c[l] <= DBL_MAX);
+        LANES_BAD
+            bad |= !((c[l] > 0.0) & (c[l] <= DBL_MAX));
     }
 
     /* ---- fractions ---- */
@@ -258,13 +450,13 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
             sum[l] = 0.0;
         for (i = 0; i < n; i++) {
             load_row(y + i * L, jb->comp + i * K + k0, nv, L);
-            LANES {
+            LANES_BAD {
                 double q = y[i * L + l];
-                bad |= !(q >= 0.0 && q <= DBL_MAX);
+                bad |= !((q >= 0.0) & (q <= DBL_MAX));
                 sum[l] += q;
             }
         }
-        LANES
+        LANES_BAD
             bad |= !(fabs(sum[l] - 1.0) <= MCD_SUM_TOL);
         if (bad)
             goto diagnose;
@@ -296,13 +488,13 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
     /* ---- driving forces d (mole-fraction gradients) ---- */
     for (i = 0; i < n * nd; i++) {
         load_row(d + i * L, jb->grad + i * K + k0, nv, L);
-        LANES
+        LANES_BAD
             bad |= !(fabs(d[i * L + l]) <= DBL_MAX);
     }
     if (jb->glnP != NULL) {
         for (dd = 0; dd < nd; dd++) {
             load_row(v + dd * L, jb->glnP + dd * K + k0, nv, L);
-            LANES
+            LANES_BAD
                 bad |= !(fabs(v[dd * L + l]) <= DBL_MAX);
         }
     }
@@ -366,10 +558,10 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
                 const double *lo = jb->Dij + (i * n + j) * K + k0;
                 load_row(q, up, nv, L);
                 load_row(wk, lo, nv, L);
-                LANES {
+                LANES_BAD {
                     double a = q[l], b = wk[l], m = a > b ? a : b;
-                    bad |= !(a > 0.0 && a <= DBL_MAX);
-                    bad |= !(b > 0.0 && b <= DBL_MAX);
+                    bad |= !((a > 0.0) & (a <= DBL_MAX));
+                    bad |= !((b > 0.0) & (b <= DBL_MAX));
                     bad |= !(fabs(a - b) <= 1e-12 * m);
                     q[l] = 1.0 / a;
                 }
@@ -450,6 +642,23 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
     }
 
     /* ---- Blanc sums S_i = sum_{j != i} x_j / Đ_ij, num_i = 1 - x_i ---- */
+    if (L == MCDI_LANES) {
+        /* row by row, accumulated in registers */
+        const mcdi_vd *xv = (const mcdi_vd *)x, *qv = (const mcdi_vd *)tri;
+        for (i = 0; i < n; i++) {
+            mcdi_vd as = {0.0}, an = {0.0};
+            for (j = 0; j < i; j++) {
+                as += xv[j] * qv[i * (i + 1) / 2 + j];
+                an += xv[j];
+            }
+            for (j = i + 1; j < n; j++) {
+                as += xv[j] * qv[j * (j + 1) / 2 + i];
+                an += xv[j];
+            }
+            ((mcdi_vd *)S)[i] = as;
+            ((mcdi_vd *)num)[i] = an;
+        }
+    } else {
     for (i = 0; i < n * L; i++)
         S[i] = num[i] = 0.0;
     for (i = 1; i < n; i++)
@@ -462,6 +671,7 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
                 num[j * L + l] += x[i * L + l];
             }
         }
+    }
 
     if (jb->model == MCD_MODEL_MIXTURE_AVERAGED) {
         /* J*_i = -c D_im d_i, D_im = num_i / S_i; J = J* - x sum J* (twice) */
@@ -559,76 +769,77 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
                 }
             LANES
                 amax[l] = amax[l] > 0.0 ? amax[l] : amax2[l];
-            /* A = Gs + a s s^T in place of invD */
-            for (i = 0; i < n; i++) {
-                double *row = tri + (i * (i + 1) / 2) * L;
-                for (j = 0; j < i; j++)
+            if (L == MCDI_LANES) {
+                /* assembly, LDL^T and both substitutions fused, in
+                 * registers (ldl_solve_v) */
+                if (!ldl_solve_v(n, nd, (mcdi_vd *)tri, (const mcdi_vd *)s,
+                                 (const mcdi_vd *)S, (const mcdi_vd *)x,
+                                 *(const mcdi_vd *)amax, (mcdi_vd *)r,
+                                 (mcdi_vd *)Dg, (mcdi_vd *)iDg,
+                                 (mcdi_vd *)Wt))
+                    goto not_definite;
+            } else {
+                /* A = Gs + a s s^T in place of invD */
+                for (i = 0; i < n; i++) {
+                    double *row = tri + (i * (i + 1) / 2) * L;
+                    for (j = 0; j < i; j++)
+                        LANES
+                            row[j * L + l] = s[i * L + l] * s[j * L + l] *
+                                             (amax[l] - row[j * L + l]);
                     LANES
-                        row[j * L + l] = s[i * L + l] * s[j * L + l] *
-                                         (amax[l] - row[j * L + l]);
-                LANES
-                    row[i * L + l] = S[i * L + l] + amax[l] * x[i * L + l];
-            }
-            {
-                int sing = 0;
-                /* LDL^T, left-looking, packed lower */
-                for (j = 0; j < n; j++) {
-                    double *Lj = tri + (j * (j + 1) / 2) * L;
-                    double *acc = aux + 6 * L;
-                    for (k = 0; k < j; k++)
-                        LANES
-                            wk[k * L + l] = Lj[k * L + l] * Dg[k * L + l];
-                    LANES
-                        acc[l] = Lj[j * L + l];
-                    for (k = 0; k < j; k++)
-                        LANES
-                            acc[l] -= Lj[k * L + l] * wk[k * L + l];
-                    LANES {
-                        Dg[j * L + l] = acc[l];
-                        sing |= !(acc[l] > 0.0);
-                        iDg[j * L + l] = 1.0 / acc[l];
-                    }
-                    for (i = j + 1; i < n; i++) {
-                        double *Li = tri + (i * (i + 1) / 2) * L;
-                        LANES
-                            acc[l] = Li[j * L + l];
+                        row[i * L + l] = S[i * L + l] + amax[l] * x[i * L + l];
+                }
+                {
+                    int sing = 0;
+                    /* LDL^T, left-looking, packed lower */
+                    for (j = 0; j < n; j++) {
+                        double *Lj = tri + (j * (j + 1) / 2) * L;
+                        double *acc = aux + 6 * L;
                         for (k = 0; k < j; k++)
                             LANES
-                                acc[l] -= Li[k * L + l] * wk[k * L + l];
+                                wk[k * L + l] = Lj[k * L + l] * Dg[k * L + l];
                         LANES
-                            Li[j * L + l] = acc[l] * iDg[j * L + l];
-                    }
-                }
-                if (sing) {
-                    for (j = 0; j < n; j++)
-                        for (l = 0; l < nv; l++)
-                            if (!(Dg[j * L + l] > 0.0)) {
-                                res->st = MCD_ESING;
-                                res->lane = l;
-                                res->what = "Maxwell-Stefan matrix not positive "
-                                            "definite (round-off; check Dij "
-                                            "scale)";
-                                return;
-                            }
-                }
-                /* solve L D L^T U = b for each direction */
-                for (dd = 0; dd < nd; dd++) {
-                    for (i = 0; i < n; i++) {
-                        const double *Li = tri + (i * (i + 1) / 2) * L;
-                        double *ri = r + (i * nd + dd) * L;
-                        for (k = 0; k < i; k++)
+                            acc[l] = Lj[j * L + l];
+                        for (k = 0; k < j; k++)
                             LANES
-                                ri[l] -= Li[k * L + l] * r[(k * nd + dd) * L + l];
-                    }
-                    for (i = 0; i < n; i++)
-                        LANES
-                            r[(i * nd + dd) * L + l] *= iDg[i * L + l];
-                    for (i = n; i-- > 0;) {
-                        const double *Li = tri + (i * (i + 1) / 2) * L;
-                        double *ri = r + (i * nd + dd) * L;
-                        for (k = 0; k < i; k++)
+                                acc[l] -= Lj[k * L + l] * wk[k * L + l];
+                        LANES {
+                            Dg[j * L + l] = acc[l];
+                            sing |= !(acc[l] > 0.0);
+                            iDg[j * L + l] = 1.0 / acc[l];
+                        }
+                        for (i = j + 1; i < n; i++) {
+                            double *Li = tri + (i * (i + 1) / 2) * L;
                             LANES
-                                r[(k * nd + dd) * L + l] -= Li[k * L + l] * ri[l];
+                                acc[l] = Li[j * L + l];
+                            for (k = 0; k < j; k++)
+                                LANES
+                                    acc[l] -= Li[k * L + l] * wk[k * L + l];
+                            LANES
+                                Li[j * L + l] = acc[l] * iDg[j * L + l];
+                        }
+                    }
+                    if (sing)
+                        goto not_definite;
+                    /* solve L D L^T U = b for each direction */
+                    for (dd = 0; dd < nd; dd++) {
+                        for (i = 0; i < n; i++) {
+                            const double *Li = tri + (i * (i + 1) / 2) * L;
+                            double *ri = r + (i * nd + dd) * L;
+                            for (k = 0; k < i; k++)
+                                LANES
+                                    ri[l] -= Li[k * L + l] * r[(k * nd + dd) * L + l];
+                        }
+                        for (i = 0; i < n; i++)
+                            LANES
+                                r[(i * nd + dd) * L + l] *= iDg[i * L + l];
+                        for (i = n; i-- > 0;) {
+                            const double *Li = tri + (i * (i + 1) / 2) * L;
+                            double *ri = r + (i * nd + dd) * L;
+                            for (k = 0; k < i; k++)
+                                LANES
+                                    r[(k * nd + dd) * L + l] -= Li[k * L + l] * ri[l];
+                        }
                     }
                 }
             }
@@ -764,6 +975,15 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
             }
         }
 
+        if (L == MCDI_LANES && nv == L && !mass_out) {
+            /* full block, mole basis: compose, clean up and store at once */
+            if (emit_mole_v(n, nd, (const mcdi_vd *)s, (const mcdi_vd *)x,
+                            (const mcdi_vd *)r, (const mcdi_vd *)t, ntr,
+                            *(const mcdi_vd *)c, (mcdi_vd *)J,
+                            jb->out + k0, K))
+                return;
+            goto store; /* a flux not finite: reported there */
+        }
         /* J_i = c (s_i U_i + t_i - x_i sum_t t_t) */
         for (dd = 0; dd < nd; dd++) {
             double *st = aux + 3 * L;
@@ -815,6 +1035,9 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
     }
 store:
     /* never hand out non-finite fluxes */
+#if defined(_OPENMP) || defined(MCDI_OMP_SIMD)
+#pragma omp simd reduction(|:bad)
+#endif
     for (i = 0; i < n * nd * L; i++)
         bad |= !(fabs(J[i]) <= DBL_MAX);
     if (bad) {
@@ -839,6 +1062,22 @@ store:
                 o[l] = Ji[l];
         }
     }
+    return;
+
+not_definite:
+    /* the lowest lane with a non-positive (or NaN) pivot */
+    for (l = 0; l < nv; l++)
+        for (j = 0; j < n; j++)
+            if (!(Dg[j * L + l] > 0.0)) {
+                res->st = MCD_ESING;
+                res->lane = l;
+                res->what = "Maxwell-Stefan matrix not positive definite "
+                            "(round-off; check Dij scale)";
+                return;
+            }
+    res->st = MCD_EINTERNAL; /* flagged without a bad pivot */
+    res->lane = 0;
+    res->what = "internal: pivot check mismatch";
     return;
 
 diagnose:
@@ -885,7 +1124,7 @@ static void block_lanes(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
     case 3: BODY_ND(3); break;
     case 4: BODY_ND(4); break;
     case 5: BODY_ND(5); break;
-    default: body(jb, k0, nv, mem, res, jb->n, LANES_SMALL, jb->nd); break;
+    default: BODY_ND(jb->n); break;
     }
 }
 
