@@ -389,6 +389,83 @@ KINLINE int emit_mole_v(const size_t n, const size_t nd,
     return 1;
 }
 
+/* One Ern-Giovangigli step before the projection, on full lane vectors:
+ * V_e = x_i U_e + minv_i (s_i sum_{j != i} invD_ij s_j U_{j,dd} + d_e wk_i),
+ * e = i * nd + dd, row by row with register accumulators (the products
+ * s_j U_j are formed once, in SU). Q: packed lower inverse diffusivities. */
+KINLINE void iter_product_v(const size_t n, const size_t nd,
+                            const mcdi_vd *restrict Q,
+                            const mcdi_vd *restrict s,
+                            const mcdi_vd *restrict x,
+                            const mcdi_vd *restrict minv,
+                            const mcdi_vd *restrict wk,
+                            const mcdi_vd *restrict d,
+                            const mcdi_vd *restrict U, mcdi_vd *restrict SU,
+                            mcdi_vd *restrict V)
+{
+    size_t i, j, dd, r, i0 = 0;
+    for (i = 0; i < n; i++)
+        for (dd = 0; dd < nd; dd++)
+            SU[i * nd + dd] = s[i] * U[i * nd + dd];
+    /* KTILE rows at a time: KTILE * nd independent accumulator chains, and
+     * each SU_j loaded once for the tile */
+    for (; n > KREG && i0 + KTILE <= n; i0 += KTILE) {
+        mcdi_vd acc[KTILE][MCD_MAX_DIM];
+        size_t jj;
+        for (r = 0; r < KTILE; r++)
+            for (dd = 0; dd < nd; dd++)
+                acc[r][dd] = (mcdi_vd){0.0};
+        for (j = 0; j < i0; j++)
+            for (r = 0; r < KTILE; r++) {
+                const mcdi_vd q = Q[(i0 + r) * (i0 + r + 1) / 2 + j];
+                for (dd = 0; dd < nd; dd++)
+                    acc[r][dd] += q * SU[j * nd + dd];
+            }
+        for (jj = 0; jj < KTILE; jj++)
+            for (r = 0; r < KTILE; r++) {
+                const size_t a = i0 + r, b = i0 + jj;
+                mcdi_vd q;
+                if (jj == r)
+                    continue;
+                q = jj < r ? Q[a * (a + 1) / 2 + b] : Q[b * (b + 1) / 2 + a];
+                for (dd = 0; dd < nd; dd++)
+                    acc[r][dd] += q * SU[b * nd + dd];
+            }
+        for (j = i0 + KTILE; j < n; j++) {
+            const mcdi_vd *restrict Qj = Q + j * (j + 1) / 2 + i0;
+            for (r = 0; r < KTILE; r++)
+                for (dd = 0; dd < nd; dd++)
+                    acc[r][dd] += Qj[r] * SU[j * nd + dd];
+        }
+        for (r = 0; r < KTILE; r++)
+            for (dd = 0; dd < nd; dd++) {
+                const size_t ii = i0 + r, e = ii * nd + dd;
+                V[e] = x[ii] * U[e] +
+                       minv[ii] * (s[ii] * acc[r][dd] + d[e] * wk[ii]);
+            }
+    }
+    for (i = i0; i < n; i++) {
+        const mcdi_vd *restrict Qi = Q + i * (i + 1) / 2;
+        mcdi_vd acc[MCD_MAX_DIM];
+        for (dd = 0; dd < nd; dd++)
+            acc[dd] = (mcdi_vd){0.0};
+        for (j = 0; j < i; j++) {
+            const mcdi_vd q = Qi[j];
+            for (dd = 0; dd < nd; dd++)
+                acc[dd] += q * SU[j * nd + dd];
+        }
+        for (j = i + 1; j < n; j++) {
+            const mcdi_vd q = Q[j * (j + 1) / 2 + i];
+            for (dd = 0; dd < nd; dd++)
+                acc[dd] += q * SU[j * nd + dd];
+        }
+        for (dd = 0; dd < nd; dd++) {
+            const size_t e = i * nd + dd;
+            V[e] = x[i] * U[e] + minv[i] * (s[i] * acc[dd] + d[e] * wk[i]);
+        }
+    }
+}
+
 /* ------------------------------------------------------------------ */
 /* the block body, instantiated for constant n and L                    */
 /* ------------------------------------------------------------------ */
@@ -881,6 +958,13 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
             for (it = 1; it <= maxit; it++) {
                 double nact = 0.0;
                 /* v_i = x_i U_i + minv_i (s_i sum_j invD_ij s_j U_j + b_i) */
+                if (L == MCDI_LANES)
+                    iter_product_v(n, nd, (const mcdi_vd *)tri,
+                                   (const mcdi_vd *)s, (const mcdi_vd *)x,
+                                   (const mcdi_vd *)minv, (const mcdi_vd *)wk,
+                                   (const mcdi_vd *)d, (const mcdi_vd *)r,
+                                   (mcdi_vd *)J, (mcdi_vd *)v);
+                else {
                 for (i = 0; i < n * nd * L; i++)
                     J[i] = 0.0; /* J holds sum_j invD_ij s_j U_j */
                 for (i = 1; i < n; i++)
@@ -903,6 +987,7 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
                                        (s[i * L + l] * J[e] +
                                         d[e] * wk[i * L + l]);
                         }
+                }
                 for (dd = 0; dd < nd; dd++) {
                     double *p = aux + 3 * L;
                     LANES
@@ -1107,24 +1192,36 @@ diagnose:
  * share one generic instance. The set
  * of instances is kept small on purpose: every instance is compiled once
  * per ISA clone, and each costs several seconds of compile time. */
-#define BODY_ND(nn)                                                        \
-    do {                                                                   \
-        if (jb->nd == 3)                                                   \
-            body(jb, k0, nv, mem, res, nn, LANES_SMALL, 3);                \
-        else                                                               \
-            body(jb, k0, nv, mem, res, jb->n, LANES_SMALL, jb->nd);        \
-    } while (0)
+/* One function per instance, each cloned per ISA on its own: a single
+ * function holding every instance took GCC minutes to optimise (passes
+ * that grow faster than the function size). */
+#define INSTANCE(name, nn, ndd)                                            \
+    KCLONES __attribute__((noinline)) static void name(                   \
+        const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,          \
+        mcdi_bres *res)                                                   \
+    {                                                                     \
+        body(jb, k0, nv, mem, res, nn, LANES_SMALL, ndd);                 \
+    }
+INSTANCE(block_n2_d3, 2, 3)
+INSTANCE(block_n3_d3, 3, 3)
+INSTANCE(block_n4_d3, 4, 3)
+INSTANCE(block_n5_d3, 5, 3)
+INSTANCE(block_nn_d3, jb->n, 3)
+INSTANCE(block_nn_dd, jb->n, jb->nd)
 
-KCLONES
 static void block_lanes(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
                         mcdi_bres *res)
 {
+    if (jb->nd != 3) {
+        block_nn_dd(jb, k0, nv, mem, res);
+        return;
+    }
     switch (jb->n) {
-    case 2: BODY_ND(2); break;
-    case 3: BODY_ND(3); break;
-    case 4: BODY_ND(4); break;
-    case 5: BODY_ND(5); break;
-    default: BODY_ND(jb->n); break;
+    case 2: block_n2_d3(jb, k0, nv, mem, res); break;
+    case 3: block_n3_d3(jb, k0, nv, mem, res); break;
+    case 4: block_n4_d3(jb, k0, nv, mem, res); break;
+    case 5: block_n5_d3(jb, k0, nv, mem, res); break;
+    default: block_nn_d3(jb, k0, nv, mem, res); break;
     }
 }
 
