@@ -162,7 +162,7 @@ stage_openmp() {
         fail openmp "build, see $log"; return
     fi
     if OMP_NUM_THREADS=2 meson test -C "${PFX}openmp" --print-errorlogs \
-            test_batch test_alloc test_threads test_iterative exported_symbols \
+            batch alloc threads iterative exported_symbols \
             >>"$log" 2>&1; then
         ok openmp "$(grep -E '^Ok:' "$log" | tr -s ' ') tests"
     else
