@@ -45,12 +45,27 @@ size_t mcdi_flux_most_abundant(size_t n, const double *x);
 
 /* Exact Maxwell-Stefan diffusion fluxes J (n x nd, molar frame) for
  * normalised x and driving forces d (n x nd) with sum_i d_i = 0.
- * Scratch used: core_mat[0], core_nd[3], core_vec[2..3], core_idx[0..1];
- * x, d and J must not be any of those. Fails with ESING (round-off made the
- * matrix indefinite) or EINTERNAL. Defined in maxwell_stefan.c. */
+ * Scratch used: core_mat[0..1], core_nd[0] and [3], core_vec[2..6],
+ * core_idx[0..1]; x, d and J must not be any of those. Fails with ESING
+ * (round-off made the matrix indefinite). Defined in maxwell_stefan.c. */
 mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
                           const double *x, const double *d,
                           const double *Dij, double c, double *J);
+
+/* Dense core of mcdi_ms_fluxes for m >= 2 species all present (xp > 0):
+ * assembles Gs + a s s^T from Đ (upper triangle of Dp, row stride ld),
+ * factors it as L D L^T and solves for the fluxes c s U, returned in Y
+ * (m x nd, row-major) for the driving forces dp (m x nd row-major,
+ * summing to zero). Scratch: A (m*m),
+ * sq, isq, S, dinv (m each), Yt (m*nd; may be dp, which is read only by
+ * the assembly); Y (m*nd) distinct from dp. Returns 0, or k+1 when pivot k
+ * is not positive. Above 24 species the factor and solves are LAPACK's
+ * dpotrf/dpotrs (*_work: no allocation). Defined in ms_ldl.c (runtime ISA
+ * dispatch). */
+size_t mcdi_ms_ldl(size_t m, size_t nd, const double *xp, const double *Dp,
+                   size_t ld, const double *dp, double c, double *A,
+                   double *sq, double *isq, double *S, double *dinv,
+                   double *Y, double *Yt);
 
 /* Mixture-averaged diffusion fluxes J (n x nd, molar frame, zero-sum
  * restored with weights x). den and num are scratch arrays of length n

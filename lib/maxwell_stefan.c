@@ -52,11 +52,10 @@
  * involved. A pure component (one x_k = 1) is the case of a single species
  * present: it takes J_k = -S_T. N = 1 gives zero flux.
  *
- * Factorisation: hand-written Cholesky for up to MS_SMALL_N species present
- * (no call overhead, row-major lower triangle); above that LAPACK
- * dpotrf/dpotrs (blocked Cholesky, LAPACK_COL_MAJOR: the matrix is
- * symmetric so the layout does not matter, and the *_work variants do not
- * allocate). Cost O(N^3 / 3) per state plus O(N^2 n_dim).
+ * Factorisation: L D L^T without pivoting or square roots (ms_ldl.c),
+ * fused with the assembly and the solves; the species present are
+ * gathered into compact arrays only when some species is a trace. Cost
+ * m(m-1)/2 + 3m divisions and square roots, m^3/6 + m^2 n_dim multiply-adds.
  *
  * Zero-sum clean-up: after the solve the residual r = sum_i J_i (round-off
  * only) is removed with weights x (J_i -= x_i r), again leaving trace
@@ -65,27 +64,40 @@
  */
 #include <float.h>
 #include <string.h>
-#include <lapacke.h>
 
 #include "mcd_internal.h"
 #include "workspace.h"
 #include "composition.h"
 #include "flux_core.h"
 
-/* Largest number of species present solved by the hand-written Cholesky. */
-#ifndef MS_SMALL_N
-#define MS_SMALL_N 24
-#endif
-
 /* ------------------------------------------------------------------ */
 /* validators                                                           */
 /* ------------------------------------------------------------------ */
+
+/* One branch-free pass over the pairs: every off-diagonal entry finite and
+ * > 0, and the two triangles equal to MCDI_DIJ_SYM_TOL. The caller's data
+ * almost always pass; the loops below then only name the first failure. */
+static int dij_all_good(size_t n, const double *Dij)
+{
+    int good = 1;
+    size_t i, j;
+    for (i = 0; i < n; i++)
+        for (j = i + 1; j < n; j++) {
+            const double a = Dij[i * n + j], b = Dij[j * n + i];
+            const double big = a > b ? a : b;
+            good &= (a > 0.0) & (b > 0.0) & (big <= DBL_MAX) &
+                    (fabs(a - b) <= MCDI_DIJ_SYM_TOL * big);
+        }
+    return good;
+}
 
 mcd_status mcdi_flux_check_dij(mcd_workspace *ws, size_t n, const double *Dij)
 {
     size_t i, j;
     if (Dij == NULL)
         return mcdi_ws_fail(ws, MCD_EINVAL, "argument Dij: NULL");
+    if (dij_all_good(n, Dij))
+        return MCD_OK;
     for (i = 0; i < n; i++)
         for (j = 0; j < n; j++)
             if (i != j && !mcdi_finite(Dij[i * n + j]))
@@ -213,54 +225,6 @@ static inline double dij_pair(const double *Dij, size_t n, size_t i, size_t j)
     return i < j ? Dij[i * n + j] : Dij[j * n + i];
 }
 
-/* In-place Cholesky A = L L^T of an m x m row-major SPD matrix (lower
- * triangle used and overwritten). Returns 0, or k+1 if pivot k is not
- * positive. */
-static size_t chol_small(size_t m, double *A)
-{
-    size_t i, j, k;
-    for (j = 0; j < m; j++) {
-        double *Lj = A + j * m;
-        double s = Lj[j];
-        for (k = 0; k < j; k++)
-            s -= Lj[k] * Lj[k];
-        if (!(s > 0.0))
-            return j + 1;
-        s = sqrt(s);
-        Lj[j] = s;
-        for (i = j + 1; i < m; i++) {
-            double *Li = A + i * m;
-            double t = Li[j];
-            for (k = 0; k < j; k++)
-                t -= Li[k] * Lj[k];
-            Li[j] = t / s;
-        }
-    }
-    return 0;
-}
-
-/* Solve L L^T u = b for nd right-hand sides stored column-major (b[k +
- * dd*m]) after chol_small. */
-static void chol_small_solve(size_t m, const double *L, size_t nd, double *b)
-{
-    size_t dd, i, k;
-    for (dd = 0; dd < nd; dd++) {
-        double *v = b + dd * m;
-        for (i = 0; i < m; i++) {
-            double t = v[i];
-            for (k = 0; k < i; k++)
-                t -= L[i * m + k] * v[k];
-            v[i] = t / L[i * m + i];
-        }
-        for (i = m; i-- > 0;) {
-            double t = v[i];
-            for (k = i + 1; k < m; k++)
-                t -= L[k * m + i] * v[k];
-            v[i] = t / L[i * m + i];
-        }
-    }
-}
-
 /* ------------------------------------------------------------------ */
 /* exact Maxwell-Stefan kernel                                          */
 /* ------------------------------------------------------------------ */
@@ -270,13 +234,15 @@ mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
                           const double *Dij, double c, double *J)
 {
     double *A = ws->core_mat[0];
-    double *rhs = ws->core_nd[3];
-    double *sq = ws->core_vec[2];   /* sqrt(x) of present species (compact) */
-    double *S = ws->core_vec[3];    /* Blanc sums sum_j x_j / Đ_ij */
+    double *Dc = ws->core_mat[1];   /* Đ of the species present (compact) */
+    double *xc = ws->core_vec[5];   /* x of the species present (compact) */
+    double *dc = ws->core_nd[3];    /* corrected driving forces (compact) */
+    double *Y = ws->core_nd[0];     /* fluxes of the present species
+                                     * (compact) */
     int *pos = ws->core_idx[0];     /* species present (x > 0) */
     int *tr = ws->core_idx[1];      /* trace species (x = 0) */
     double ST[MCD_MAX_DIM] = {0.0, 0.0, 0.0};
-    size_t m = 0, nt = 0, i, k, l, dd;
+    size_t m = 0, nt = 0, i, k, l, dd, bad;
 
     if (n == 1) {
         for (dd = 0; dd < nd; dd++)
@@ -288,24 +254,18 @@ mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
             pos[m++] = (int)i;
         else
             tr[nt++] = (int)i;
-        S[i] = 0.0;
     }
     /* m >= 1 because the fractions sum to 1. */
 
-    /* Assemble the scaled matrix Gs on the species present and their Blanc
-     * sums (trace species contribute x_j = 0 to them). */
-    for (k = 0; k < m; k++)
-        sq[k] = sqrt(x[pos[k]]);
-    for (k = 0; k < m; k++) {
-        size_t ik = (size_t)pos[k];
-        A[k * m + k] = 0.0;
-        for (l = k + 1; l < m; l++) {
-            size_t il = (size_t)pos[l];
-            double inv = 1.0 / dij_pair(Dij, n, ik, il);
-            S[ik] += x[il] * inv;
-            S[il] += x[ik] * inv;
-            A[k * m + l] = A[l * m + k] = -sq[k] * sq[l] * inv;
-        }
+    if (nt == 0) {
+        /* every species present: solve in place, no gathering */
+        bad = mcdi_ms_ldl(n, nd, x, Dij, n, d, c, A, ws->core_vec[2],
+                          ws->core_vec[3], ws->core_vec[4], ws->core_vec[6],
+                          Y, dc);
+        if (bad != 0)
+            goto not_definite;
+        memcpy(J, Y, n * nd * sizeof(double));
+        goto zero_sum;
     }
 
     /* Trace species: Blanc's law, exact. */
@@ -314,7 +274,6 @@ mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
         double s = 0.0;
         for (l = 0; l < m; l++)
             s += x[pos[l]] / dij_pair(Dij, n, it, (size_t)pos[l]);
-        S[it] = s;
         for (dd = 0; dd < nd; dd++) {
             double Ji = -c * d[it * nd + dd] / s;
             J[it * nd + dd] = Ji;
@@ -327,66 +286,40 @@ mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
         size_t ip = (size_t)pos[0];
         for (dd = 0; dd < nd; dd++)
             J[ip * nd + dd] = -ST[dd];
-    } else {
-        double a = 0.0;
-        for (k = 0; k < m; k++)
-            if (S[pos[k]] > a)
-                a = S[pos[k]];
-        /* Right-hand side -(d_i - x_i sum_T J_t / (c Đ_it)) / s_i,
-         * column-major m x nd. */
-        for (k = 0; k < m; k++) {
-            size_t ik = (size_t)pos[k];
-            for (dd = 0; dd < nd; dd++) {
-                double dti = d[ik * nd + dd];
-                for (l = 0; l < nt; l++) {
-                    size_t it = (size_t)tr[l];
-                    dti -= x[ik] * J[it * nd + dd] /
-                           (c * dij_pair(Dij, n, ik, it));
-                }
-                rhs[k + dd * m] = -dti / sq[k];
-            }
-        }
-        /* Gs + a s s^T */
-        for (k = 0; k < m; k++) {
-            A[k * m + k] = S[pos[k]] + a * x[pos[k]];
-            for (l = k + 1; l < m; l++) {
-                double v = A[k * m + l] + a * sq[k] * sq[l];
-                A[k * m + l] = A[l * m + k] = v;
-            }
-        }
-        if (m <= MS_SMALL_N) {
-            size_t bad = chol_small(m, A);
-            if (bad != 0)
-                return mcdi_ws_fail(ws, MCD_ESING,
-                                    "Maxwell-Stefan matrix not positive definite "
-                                    "at pivot %zu (round-off; check Dij scale)",
-                                    bad - 1);
-            chol_small_solve(m, A, nd, rhs);
-        } else {
-            lapack_int info = LAPACKE_dpotrf_work(LAPACK_COL_MAJOR, 'L',
-                                                  (lapack_int)m, A,
-                                                  (lapack_int)m);
-            if (info > 0)
-                return mcdi_ws_fail(ws, MCD_ESING,
-                                    "Maxwell-Stefan matrix not positive definite "
-                                    "(dpotrf info %d)", (int)info);
-            if (info < 0)
-                return mcdi_ws_fail(ws, MCD_EINTERNAL, "dpotrf info %d",
-                                    (int)info);
-            info = LAPACKE_dpotrs_work(LAPACK_COL_MAJOR, 'L', (lapack_int)m,
-                                       (lapack_int)nd, A, (lapack_int)m, rhs,
-                                       (lapack_int)m);
-            if (info != 0)
-                return mcdi_ws_fail(ws, MCD_EINTERNAL, "dpotrs info %d",
-                                    (int)info);
-        }
-        for (k = 0; k < m; k++) {
-            size_t ik = (size_t)pos[k];
-            for (dd = 0; dd < nd; dd++)
-                J[ik * nd + dd] = c * sq[k] * rhs[k + dd * m] - x[ik] * ST[dd];
-        }
+        goto zero_sum;
     }
 
+    /* Gather the species present: x, Đ (upper triangle), and the driving
+     * forces with the trace terms moved over,
+     * d_i - x_i sum_T J_t / (c Đ_it). */
+    for (k = 0; k < m; k++) {
+        size_t ik = (size_t)pos[k];
+        xc[k] = x[ik];
+        for (l = k + 1; l < m; l++)
+            Dc[k * m + l] = dij_pair(Dij, n, ik, (size_t)pos[l]);
+        for (dd = 0; dd < nd; dd++) {
+            double dti = d[ik * nd + dd];
+            for (l = 0; l < nt; l++) {
+                size_t it = (size_t)tr[l];
+                dti -= x[ik] * J[it * nd + dd] /
+                       (c * dij_pair(Dij, n, ik, it));
+            }
+            dc[k * nd + dd] = dti;
+        }
+    }
+    bad = mcdi_ms_ldl(m, nd, xc, Dc, m, dc, c, A, ws->core_vec[2],
+                      ws->core_vec[3], ws->core_vec[4], ws->core_vec[6], Y,
+                      dc /* dead after the assembly */);
+    if (bad != 0)
+        goto not_definite;
+    /* the species present take the uniform velocity -S_T / c */
+    for (k = 0; k < m; k++) {
+        size_t ik = (size_t)pos[k];
+        for (dd = 0; dd < nd; dd++)
+            J[ik * nd + dd] = Y[k * nd + dd] - x[ik] * ST[dd];
+    }
+
+zero_sum:
     /* zero-sum clean-up with weights x (trace species stay exact) */
     for (dd = 0; dd < nd; dd++) {
         double r = 0.0;
@@ -396,6 +329,12 @@ mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
             J[i * nd + dd] -= x[i] * r;
     }
     return MCD_OK;
+
+not_definite:
+    return mcdi_ws_fail(ws, MCD_ESING,
+                        "Maxwell-Stefan matrix not positive definite at "
+                        "pivot %zu (round-off; check Dij scale)",
+                        (size_t)pos[bad - 1]);
 }
 
 /* ------------------------------------------------------------------ */

@@ -62,7 +62,7 @@ MCD_API void mcd_workspace_free(mcd_workspace *ws)
         ws->al.free(ws->al.ud, ws->core_mat[k]);
     for (k = 0; k < 4; k++)
         ws->al.free(ws->al.ud, ws->core_nd[k]);
-    for (k = 0; k < 6; k++)
+    for (k = 0; k < MCDI_WS_CORE_VECS; k++)
         ws->al.free(ws->al.ud, ws->core_vec[k]);
     for (k = 0; k < 2; k++)
         ws->al.free(ws->al.ud, ws->core_idx[k]);
@@ -115,7 +115,7 @@ MCD_API mcd_status mcd_workspace_alloc_with(size_t n_species,
     for (k = 0; k < 4; k++)
         if ((ws->core_nd[k] = (double *)ws_calloc(ws, nd_bytes)) == NULL)
             goto fail;
-    for (k = 0; k < 6; k++)
+    for (k = 0; k < MCDI_WS_CORE_VECS; k++)
         if ((ws->core_vec[k] = (double *)ws_calloc(ws, vec_bytes)) == NULL)
             goto fail;
     for (k = 0; k < 2; k++)

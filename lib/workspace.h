@@ -40,6 +40,7 @@
 
 #define MCDI_WS_ERRLEN 256
 #define MCDI_WS_AUX_MATS 4
+#define MCDI_WS_CORE_VECS 7
 #define MCDI_WS_AUX_VECS 8
 #define MCDI_WS_AUX_VECLEN(cap) (4 * (cap))
 
@@ -51,7 +52,7 @@ struct mcd_workspace {
     /* CORE bank (flux core only) */
     double *core_mat[2];        /* cap*cap each */
     double *core_nd[4];         /* cap*MCD_MAX_DIM each (n x n_dim arrays) */
-    double *core_vec[6];        /* cap each */
+    double *core_vec[MCDI_WS_CORE_VECS]; /* cap each */
     int *core_idx[2];           /* cap ints each (index lists, pivots) */
 
     /* dgeev work array (see above) */
