@@ -410,6 +410,68 @@ START_TEST(batch_errors_name_the_cell_and_write_nothing_on_argument_errors)
 }
 END_TEST
 
+START_TEST(batch_overflowing_fluxes_are_reported_with_the_cell)
+{
+    /* Inputs each finite and in range whose fluxes overflow (c Đ grad ~
+     * 1e313): the single-state call refuses them (EDOM, "result: ..."),
+     * and so must the batch, naming the cell, whether the cell sits in a
+     * full block of lanes (5, 12) or in the tail (18). Common practice:
+     * never hand out inf or NaN as a flux. */
+    enum { N = 3, K = 21, ND = 3 };
+    const size_t bad_cells[] = {5, 12, 18};
+    cells s;
+    double out[N * ND * K], Dc[N * N], y[N], g[N * ND], gl[ND], J[N * ND];
+    mcd_workspace *ws;
+    size_t b, i, j;
+    int model;
+    rng_seed(0xBA7C4011ull);
+    ck_assert_int_eq(mcd_workspace_alloc(N, &ws), MCD_OK);
+    cells_make(&s, N, K, ND);
+    for (b = 0; b < sizeof bad_cells / sizeof bad_cells[0]; b++) {
+        const size_t k = bad_cells[b];
+        char want[32];
+        for (i = 0; i < N; i++)
+            for (j = 0; j < N; j++)
+                if (i != j)
+                    s.D[(i * N + j) * K + k] = 1e300;
+        s.c[k] = 1e10;
+        for (i = 0; i < N * ND; i++)
+            s.grad[i * K + k] = (i % 2 ? 1e3 : -1e3) * (double)(i / ND + 1);
+        cell_get(&s, k, Dc, y, g, gl);
+        snprintf(want, sizeof want, "cell %zu: result:", k);
+        for (model = 0; model <= 1; model++) {
+            mcd_model md = model ? MCD_MODEL_MIXTURE_AVERAGED
+                                 : MCD_MODEL_MAXWELL_STEFAN;
+            ck_assert_int_eq(mcd_flux_compute(ws, md, N, ND, s.M, Dc, s.c[k],
+                                              MCD_BASIS_MOLE, y, g, NULL, NULL,
+                                              MCD_BASIS_MOLE, J), MCD_EDOM);
+            ck_assert_int_eq(mcd_flux_batch_dij(ws, md, N, K, ND, s.M, s.D, s.c,
+                                                MCD_BASIS_MOLE, s.comp, s.grad,
+                                                NULL, MCD_BASIS_MOLE, out),
+                             MCD_EDOM);
+            ck_assert_msg(strncmp(mcd_workspace_last_error(ws), want,
+                                  strlen(want)) == 0,
+                          "model %d: %s", model, mcd_workspace_last_error(ws));
+        }
+        /* restore an ordinary cell */
+        for (i = 0; i < N; i++)
+            for (j = i + 1; j < N; j++)
+                s.D[(i * N + j) * K + k] = s.D[(j * N + i) * K + k] = 1e-5;
+        s.c[k] = 40.0;
+        for (i = 0; i < N * ND; i++)
+            s.grad[i * K + k] = 0.5;
+    }
+    ck_assert_int_eq(mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, N, K, ND,
+                                        s.M, s.D, s.c, MCD_BASIS_MOLE, s.comp,
+                                        s.grad, NULL, MCD_BASIS_MOLE, out),
+                     MCD_OK);
+    for (i = 0; i < N * ND * K; i++)
+        ck_assert(isfinite(out[i]));
+    cells_free(&s);
+    mcd_workspace_free(ws);
+}
+END_TEST
+
 /* OpenMP builds: 1 and 2 threads give identical bits (blocks are fixed by
  * cell index); in a serial build both runs are serial and equal. */
 START_TEST(batch_threads_give_identical_results)
@@ -452,6 +514,7 @@ int main(void)
     tcase_add_loop_test(tc, batch_dij_matches_single_state_calls, 0, 4);
     tcase_add_test(tc, batch_mixture_matches_single_state_calls);
     tcase_add_test(tc, batch_errors_name_the_cell_and_write_nothing_on_argument_errors);
+    tcase_add_test(tc, batch_overflowing_fluxes_are_reported_with_the_cell);
     tcase_add_test(tc, batch_threads_give_identical_results);
     suite_add_tcase(s, tc);
     sr = srunner_create(s);
