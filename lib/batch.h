@@ -14,8 +14,12 @@
 #include <stddef.h>
 #include "mcdiff.h"
 
-/* Lanes per block for N <= MCDI_LANES_NMAX; above that one cell at a time
- * (lanes = 1) with LAPACK's blocked Cholesky for the exact model. */
+/* Most lanes per block of any kernel (scratch is sized for it). The lanes
+ * actually used depend on the instruction set chosen at run time
+ * (mcdi_batch_lanes): 8 with AVX-512, 4 with AVX2, 2 otherwise, i.e. one
+ * vector register per lane vector. Above MCDI_LANES_NMAX species one cell
+ * at a time (lanes = 1) with LAPACK's blocked Cholesky for the exact
+ * model. */
 #define MCDI_LANES 8
 #define MCDI_LANES_NMAX 128
 
@@ -46,16 +50,28 @@ typedef struct mcdi_bres {
 /* Doubles of scratch one thread needs for any call with n <= cap. */
 size_t mcdi_batch_scratch_doubles(size_t cap);
 
-/* Process cells k0 .. k0+nv-1 (1 <= nv <= lanes for this n) of the job.
+/* Process cells k0 .. k0+nv-1 (1 <= nv <= mcdi_batch_lanes(n)) of the job.
  * mem: scratch of mcdi_batch_scratch_doubles(n) doubles, 64-byte aligned.
- * Writes the block's outputs unless res->st != MCD_OK. */
+ * Writes the block's outputs unless res->st != MCD_OK. Dispatches to the
+ * kernel of the instruction set chosen at run time (batch_isa.c). */
 void mcdi_batch_block(const mcdi_bjob *job, size_t k0, size_t nv, double *mem,
                       mcdi_bres *res);
 
-/* Lanes used for n species. */
-static inline size_t mcdi_batch_lanes(size_t n)
-{
-    return n <= MCDI_LANES_NMAX ? MCDI_LANES : 1;
-}
+/* Lanes used for n species by the kernel chosen at run time. */
+size_t mcdi_batch_lanes(size_t n);
+
+/* The kernels, one object of batch_kernel.c per instruction set:
+ * v4 (x86-64-v4: AVX-512, 8 lanes), v3 (x86-64-v3: AVX2 + FMA, 4 lanes),
+ * v1 (the compiler's baseline, 2 lanes; the only one off x86-64 or
+ * without GCC). */
+void mcdi_batch_block_v4(const mcdi_bjob *job, size_t k0, size_t nv,
+                         double *mem, mcdi_bres *res);
+void mcdi_batch_block_v3(const mcdi_bjob *job, size_t k0, size_t nv,
+                         double *mem, mcdi_bres *res);
+void mcdi_batch_block_v1(const mcdi_bjob *job, size_t k0, size_t nv,
+                         double *mem, mcdi_bres *res);
+/* Lanes of each kernel object (the doubles in its vector registers). */
+extern const size_t mcdi_batch_lanes_v4, mcdi_batch_lanes_v3,
+    mcdi_batch_lanes_v1;
 
 #endif

@@ -70,12 +70,24 @@
 #define KINLINE static inline
 #endif
 
-/* x86-64 with GCC and ifunc support: clone the block function per ISA. */
-#if defined(__x86_64__) && defined(__GNUC__) && !defined(__clang__) && \
-    defined(__linux__) && !defined(MCDI_NO_CLONES)
-#define KCLONES __attribute__((target_clones("avx512f", "arch=x86-64-v3", "default")))
+/* This file is compiled once per instruction set (lib/meson.build sets
+ * MCDI_KISA to 4, 3 or 1 with the matching -march); the lanes of a block
+ * are the doubles of one vector register of that set, so that a lane
+ * vector is one register. (Wider generic vectors than the hardware's were
+ * lowered by GCC through the stack: the AVX2 code ran 4-8x slower than
+ * the AVX-512 code before this split.) */
+#ifndef MCDI_KISA
+#define MCDI_KISA 1
+#endif
+#if defined(__AVX512F__)
+#define MCDI_VLANES 8
+#elif defined(__AVX__)
+#define MCDI_VLANES 4
 #else
-#define KCLONES
+#define MCDI_VLANES 2
+#endif
+#if MCDI_VLANES > MCDI_LANES
+#error "MCDI_LANES (batch.h) must be the largest lane count"
 #endif
 
 #define RGAS MCD_GAS_CONSTANT
@@ -100,13 +112,14 @@ static size_t tri_n(size_t n) { return n * (n + 1) / 2; }
 /* Rows factored together above KREG species (ldl_solve_v). */
 #define KTILE 4
 
+#if MCDI_KISA == 1
 size_t mcdi_batch_scratch_doubles(size_t cap)
 {
     size_t best = 0, cfg;
     for (cfg = 0; cfg < 2; cfg++) {
         size_t n = cfg == 0 ? (cap < MCDI_LANES_NMAX ? cap : MCDI_LANES_NMAX)
                             : cap;
-        size_t L = mcdi_batch_lanes(n), need;
+        size_t L = n <= MCDI_LANES_NMAX ? MCDI_LANES : 1, need;
         if (cfg == 1 && cap <= MCDI_LANES_NMAX)
             continue;
         need = tri_n(n) * L            /* invD / A / L factors */
@@ -120,6 +133,7 @@ size_t mcdi_batch_scratch_doubles(size_t cap)
     }
     return best;
 }
+#endif
 
 /* Prefetch distance of the input streams, in doubles (8 blocks ahead). */
 #define MCDI_PREFETCH 64
@@ -223,9 +237,9 @@ static double omega_exact(double Ts) { return mcdi_omega_d(Ts); }
  * compiler maps it onto the clone's registers (one zmm, two ymm or four
  * xmm). may_alias: scratch rows are accessed both as double and as this. */
 typedef double mcdi_vd
-    __attribute__((vector_size(MCDI_LANES * sizeof(double)), may_alias));
+    __attribute__((vector_size(MCDI_VLANES * sizeof(double)), may_alias));
 typedef long long mcdi_vl
-    __attribute__((vector_size(MCDI_LANES * sizeof(long long)), may_alias));
+    __attribute__((vector_size(MCDI_VLANES * sizeof(long long)), may_alias));
 
 /* Up to this many species the pivots and the multipliers W live in local
  * arrays, which become registers once the loops over a constant n are
@@ -325,7 +339,7 @@ KINLINE int ldl_solve_v(const size_t n, const size_t nd, mcdi_vd *restrict A,
                 R[ii * nd + dd] = f[r][dd];
         }
     }
-    for (l = 0; l < MCDI_LANES; l++)
+    for (l = 0; l < MCDI_VLANES; l++)
         if (ok[l] == 0)
             return 0;
     for (i = n; i-- > 0;) {
@@ -383,7 +397,7 @@ KINLINE int emit_mole_v(const size_t n, const size_t nd,
     }
     /* one horizontal sum per block: a per-element compare-and-mask cost
      * 13 % of the whole N = 10 block (profiled) */
-    for (l = 0; l < MCDI_LANES; l++)
+    for (l = 0; l < MCDI_VLANES; l++)
         lanes_sum += nan_acc[l];
     if (lanes_sum != lanes_sum)
         return 0;
@@ -728,7 +742,7 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
     }
 
     /* ---- Blanc sums S_i = sum_{j != i} x_j / Đ_ij, num_i = 1 - x_i ---- */
-    if (L == MCDI_LANES) {
+    if (L == MCDI_VLANES) {
         /* row by row, accumulated in registers */
         const mcdi_vd *xv = (const mcdi_vd *)x, *qv = (const mcdi_vd *)tri;
         for (i = 0; i < n; i++) {
@@ -855,7 +869,7 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
                 }
             LANES
                 amax[l] = amax[l] > 0.0 ? amax[l] : amax2[l];
-            if (L == MCDI_LANES) {
+            if (L == MCDI_VLANES) {
                 /* assembly, LDL^T and both substitutions fused, in
                  * registers (ldl_solve_v) */
                 if (!ldl_solve_v(n, nd, (mcdi_vd *)tri, (const mcdi_vd *)s,
@@ -967,7 +981,7 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
             for (it = 1; it <= maxit; it++) {
                 double nact = 0.0;
                 /* v_i = x_i U_i + minv_i (s_i sum_j invD_ij s_j U_j + b_i) */
-                if (L == MCDI_LANES)
+                if (L == MCDI_VLANES)
                     iter_product_v(n, nd, (const mcdi_vd *)tri,
                                    (const mcdi_vd *)s, (const mcdi_vd *)x,
                                    (const mcdi_vd *)minv, (const mcdi_vd *)wk,
@@ -1069,7 +1083,7 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
             }
         }
 
-        if (L == MCDI_LANES && nv == L && !mass_out) {
+        if (L == MCDI_VLANES && nv == L && !mass_out) {
             /* full block, mole basis: compose, clean up and store at once */
             if (emit_mole_v(n, nd, (const mcdi_vd *)s, (const mcdi_vd *)x,
                             (const mcdi_vd *)r, (const mcdi_vd *)t, ntr,
@@ -1194,7 +1208,7 @@ diagnose:
 /* dispatch on n (constant-folded instances for small n)                */
 /* ------------------------------------------------------------------ */
 
-#define LANES_SMALL MCDI_LANES
+#define LANES_SMALL MCDI_VLANES
 
 /* n and n_dim = 3 (the common case) as compile-time constants for small
  * n (2 to 5), so that the species loops unroll; larger n and other n_dim
@@ -1205,7 +1219,7 @@ diagnose:
  * function holding every instance took GCC minutes to optimise (passes
  * that grow faster than the function size). */
 #define INSTANCE(name, nn, ndd)                                            \
-    KCLONES __attribute__((noinline)) static void name(                   \
+    __attribute__((noinline)) static void name(                           \
         const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,          \
         mcdi_bres *res)                                                   \
     {                                                                     \
@@ -1240,10 +1254,16 @@ static void block_single(const mcdi_bjob *jb, size_t k0, size_t nv,
     body(jb, k0, nv, mem, res, jb->n, 1, jb->nd);
 }
 
-void mcdi_batch_block(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
+#define KNAME_(isa) mcdi_batch_block_v##isa
+#define KNAME(isa) KNAME_(isa)
+#define KLANES_(isa) mcdi_batch_lanes_v##isa
+#define KLANES(isa) KLANES_(isa)
+const size_t KLANES(MCDI_KISA) = MCDI_VLANES;
+
+void KNAME(MCDI_KISA)(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
                       mcdi_bres *res)
 {
-    if (mcdi_batch_lanes(jb->n) == 1)
+    if (jb->n > MCDI_LANES_NMAX)
         block_single(jb, k0, nv, mem, res);
     else
         block_lanes(jb, k0, nv, mem, res);
