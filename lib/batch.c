@@ -20,6 +20,21 @@
 #include "mixture.h"
 #include "batch.h"
 
+/* Whether some pair of the mixture depends on T through a collision
+ * integral (Chapman-Enskog, Wilke-Lee) rather than the exact power law:
+ * decided once per call, not per block. */
+static int mixture_has_omega(const mcd_mixture *mix)
+{
+    size_t i, j, n = mix->n;
+    for (i = 1; i < n; i++)
+        for (j = 0; j < i; j++) {
+            int m = mix->method[i * n + j];
+            if (m != MCD_METHOD_FSG && m != MCD_METHOD_USER)
+                return 1;
+        }
+    return 0;
+}
+
 /* Run the job over cells [0, K) with the workspace's scratch. */
 static mcd_status run_job(mcd_workspace *ws, const mcdi_bjob *jb)
 {
@@ -185,6 +200,7 @@ MCD_API mcd_status mcd_flux_batch(mcd_workspace *ws, const mcd_mixture *mix,
                                              "unknown");
     job_init(&jb, ws, model, n, n_cells, n_dim, comp_basis, flux_basis);
     jb.mix = mix;
+    jb.mix_has_omega = mixture_has_omega(mix);
     jb.T = T;
     jb.P = P;
     jb.M = (comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
@@ -301,6 +317,7 @@ MCD_API mcd_status mcd_flux_batch_aos(mcd_workspace *ws,
     so = sl + nd * L;
     job_init(&jb, ws, model, n, L, nd, comp_basis, flux_basis);
     jb.mix = mix;
+    jb.mix_has_omega = mixture_has_omega(mix);
     jb.T = sT;
     jb.P = sP;
     jb.M = (comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||

@@ -672,21 +672,14 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
         const mcd_mixture *mx = jb->mix;
         const double *Tl = aux, *Pl = aux + L;
         double *f175 = aux + 2 * L, *f15 = aux + 3 * L;
-        int any_lj = 0, all_fit = 1;
+        const int any_lj = jb->mix_has_omega;
+        int all_fit = 1;
         double *infit = aux + 4 * L;
         LANES {
             double sq = sqrt(Tl[l]), qq = sqrt(sq);
             f175[l] = Pl[l] / (Tl[l] * sq * qq); /* P / T^1.75 */
             f15[l] = Pl[l] / (Tl[l] * sq);       /* P / T^1.5 */
         }
-        for (i = 1; i < n && !any_lj; i++)
-            for (j = 0; j < i; j++) {
-                int m = mx->method[i * n + j];
-                if (m != MCD_METHOD_FSG && m != MCD_METHOD_USER) {
-                    any_lj = 1;
-                    break;
-                }
-            }
         if (any_lj && mx->fit_on) {
             LANES {
                 double u = (log(Tl[l]) - mx->fit_lmid) / mx->fit_lhalf;
