@@ -19,8 +19,7 @@
 #   valgrind  memcheck on every Check test executable of the plain `build`
 #             directory (built by .ci/run; configured here if missing):
 #             --leak-check=full, any error or definite/indirect leak fails.
-#   tsan      gcc -fsanitize=thread, tests/test_threads only (function
-#             entry/exit hooks off, see stage_tsan).
+#   tsan      gcc -fsanitize=thread, tests/test_threads only.
 #   openmp    gcc, -Dopenmp=enabled: the batched calls parallel over cells;
 #             the batch, allocation and thread suites (results bit-identical
 #             to one thread) and the exported-symbol check.
@@ -130,14 +129,12 @@ stage_valgrind() {
 stage_tsan() {
     local log=$LOGDIR/tsan.log
     rm -rf "${PFX}tsan"
-    # No function entry/exit hooks: the batched kernels pick their SIMD
-    # variant through an ifunc resolver, which runs during relocation,
-    # before the TSan runtime exists, and crashes if instrumented. Memory
-    # accesses stay instrumented, so races are still detected (only the
-    # reports' stack traces are shorter).
+    # Full instrumentation: the kernels are chosen by a plain function
+    # (lib/kernel_isa.c), not by ifunc resolvers, which ran during
+    # relocation before the TSan runtime existed and needed
+    # --param=tsan-instrument-func-entry-exit=0 here.
     if ! CC=gcc meson setup "${PFX}tsan" -Db_sanitize=thread -Db_lundef=false -Dcli=false \
-            -Dfortran=disabled "${NO_EXTRAS[@]}" \
-            -Dc_args=--param=tsan-instrument-func-entry-exit=0 >"$log" 2>&1; then
+            -Dfortran=disabled "${NO_EXTRAS[@]}" >"$log" 2>&1; then
         fail tsan "meson setup, see $log"; return
     fi
     if ! ninja -j"$JOBS" -C "${PFX}tsan" tests/test_threads >>"$log" 2>&1; then

@@ -54,7 +54,7 @@ size_t mcdi_batch_scratch_doubles(size_t cap);
 /* Process cells k0 .. k0+nv-1 (1 <= nv <= mcdi_batch_lanes(n)) of the job.
  * mem: scratch of mcdi_batch_scratch_doubles(n) doubles, 64-byte aligned.
  * Writes the block's outputs unless res->st != MCD_OK. Dispatches to the
- * kernel of the instruction set chosen at run time (batch_isa.c). */
+ * kernel of the instruction set chosen at run time (kernel_isa.c). */
 void mcdi_batch_block(const mcdi_bjob *job, size_t k0, size_t nv, double *mem,
                       mcdi_bres *res);
 

@@ -1,10 +1,10 @@
 /* batch_kernel.c - lane-vectorised kernels of the batched flux calls
  * (mcd_flux_batch, mcd_flux_batch_dij, mcd_flux_batch_aos; driver in
  * batch.c). Compiled with -O3 -fno-math-errno -ffp-contract=fast (see
- * lib/meson.build); on x86-64 with GCC the block function is cloned for
- * AVX-512, AVX2+FMA and baseline SSE2 and the clone is picked at load
- * time (ifunc), so the default build is portable and still uses the
- * machine's vector width.
+ * lib/meson.build); on x86-64 with GCC the file is compiled for AVX-512,
+ * AVX2+FMA and baseline SSE2 and kernel_isa.c picks one object at run
+ * time, so the default build is portable and still uses the machine's
+ * vector width.
  *
  * Layout: a block holds L cells ("lanes"); every quantity of species i is
  * L contiguous doubles, q[i*L + l]. Each step below is a loop over lanes

@@ -27,9 +27,9 @@
  * slower at N = 10; vectorising their reductions slower still for short
  * rows.)
  *
- * Compiled with the batch kernel's flags (-O3, -fno-math-errno, FMA
- * contraction) and cloned per instruction set on x86-64 Linux with GCC
- * (runtime dispatch; the default clone is plain x86-64).
+ * Compiled with -O2 without the loop vectoriser (lib/meson.build), once
+ * per instruction set on x86-64 with GCC (runtime dispatch in
+ * kernel_isa.c; FMA contraction where the set has FMA).
  */
 #include <math.h>
 #include <lapacke.h>
@@ -37,15 +37,15 @@
 #include "mcd_internal.h"
 #include "flux_core.h"
 
-#if defined(__x86_64__) && defined(__GNUC__) && !defined(__clang__) && \
-    defined(__linux__) && !defined(MCDI_NO_CLONES)
-#define MCLONES __attribute__((target_clones("avx512f", "arch=x86-64-v3", "default")))
-#else
-#define MCLONES
+/* Compiled once per instruction set like the batch kernel (MCDI_KISA = 4,
+ * 3 or 1 with the matching -march, see lib/meson.build); kernel_isa.c
+ * dispatches mcdi_ms_ldl to one of them. */
+#ifndef MCDI_KISA
+#define MCDI_KISA 1
 #endif
+#define MSNAME_(isa) mcdi_ms_ldl_v##isa
+#define MSNAME(isa) MSNAME_(isa)
 
-/* Helpers of the cloned entry are inlined into each clone (a separate
- * static function would be compiled for the baseline ISA only). */
 #if defined(__GNUC__)
 #define MINLINE static inline __attribute__((always_inline))
 #else
@@ -150,8 +150,7 @@ static size_t solve_lapack(size_t m, size_t nd, double *A, double *Y,
     return 0;
 }
 
-MCLONES
-size_t mcdi_ms_ldl(size_t m, size_t nd, const double *xp, const double *Dp,
+size_t MSNAME(MCDI_KISA)(size_t m, size_t nd, const double *xp, const double *Dp,
                    size_t ld, const double *dp, double c, double *A,
                    double *sq, double *isq, double *S, double *dinv,
                    double *Y, double *Yt)

@@ -1,11 +1,13 @@
-/* batch_isa.c - which batch kernel runs: the instruction set is chosen once
- * per process at run time, so that the default build reaches the machine's
- * vector width without -march flags.
+/* kernel_isa.c - which kernels run: the instruction set is chosen once per
+ * process at run time, so that the default build reaches the machine's
+ * vector width without -march flags, and without ifunc resolvers (which
+ * run before sanitizer runtimes exist).
  *
- * lib/meson.build compiles batch_kernel.c once per instruction set on
- * x86-64 with GCC (MCDI_HAVE_KISA): v4 = x86-64-v4 (AVX-512, 8 lanes),
- * v3 = x86-64-v3 (AVX2 + FMA, 4 lanes), v1 = baseline x86-64 (SSE2,
- * 2 lanes); elsewhere only v1 (the compiler's default target).
+ * lib/meson.build compiles batch_kernel.c and ms_ldl.c once per
+ * instruction set on x86-64 with GCC (MCDI_HAVE_KISA): v4 = x86-64-v4
+ * (AVX-512, 8 lanes), v3 = x86-64-v3 (AVX2 + FMA, 4 lanes), v1 = baseline
+ * x86-64 (SSE2, 2 lanes); elsewhere only v1 (the compiler's default
+ * target).
  *
  * MCDIFF_KERNEL_ISA=v1|v3|v4 in the environment caps the choice (a cap
  * above what the CPU has is ignored): the tests use it to run every kernel
@@ -21,6 +23,7 @@
 
 #include "mcd_internal.h"
 #include "batch.h"
+#include "flux_core.h"
 
 static atomic_int isa_cached; /* 0: not chosen yet; else 1, 3 or 4 */
 
@@ -75,5 +78,25 @@ void mcdi_batch_block(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
     case 3: mcdi_batch_block_v3(jb, k0, nv, mem, res); break;
 #endif
     default: mcdi_batch_block_v1(jb, k0, nv, mem, res); break;
+    }
+}
+
+size_t mcdi_ms_ldl(size_t m, size_t nd, const double *xp, const double *Dp,
+                   size_t ld, const double *dp, double c, double *A,
+                   double *sq, double *isq, double *S, double *dinv,
+                   double *Y, double *Yt)
+{
+    switch (isa()) {
+#if defined(MCDI_HAVE_KISA)
+    case 4:
+        return mcdi_ms_ldl_v4(m, nd, xp, Dp, ld, dp, c, A, sq, isq, S, dinv,
+                              Y, Yt);
+    case 3:
+        return mcdi_ms_ldl_v3(m, nd, xp, Dp, ld, dp, c, A, sq, isq, S, dinv,
+                              Y, Yt);
+#endif
+    default:
+        return mcdi_ms_ldl_v1(m, nd, xp, Dp, ld, dp, c, A, sq, isq, S, dinv,
+                              Y, Yt);
     }
 }
