@@ -60,20 +60,20 @@ mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
  * sq, isq, S, dinv (m each), Yt (m*nd; may be dp, which is read only by
  * the assembly); Y (m*nd) distinct from dp. Returns 0, or k+1 when pivot k
  * is not positive. Above 24 species the factor and solves are LAPACK's
- * dpotrf/dpotrs (*_work: no allocation). Dispatches (kernel_isa.c) to the
- * object of ms_ldl.c built for the instruction set chosen at run time. */
-size_t mcdi_ms_ldl(size_t m, size_t nd, const double *xp, const double *Dp,
-                   size_t ld, const double *dp, double c, double *A,
-                   double *sq, double *isq, double *S, double *dinv,
-                   double *Y, double *Yt);
+ * dpotrf/dpotrs (*_work: no allocation). One definition per instruction
+ * set (ms_ldl.c compiled once per set). */
 #define MCDI_MS_LDL_DECL(name)                                              \
     size_t name(size_t m, size_t nd, const double *xp, const double *Dp,    \
                 size_t ld, const double *dp, double c, double *A,           \
                 double *sq, double *isq, double *S, double *dinv,           \
                 double *Y, double *Yt)
-MCDI_MS_LDL_DECL(mcdi_ms_ldl_v4);
 MCDI_MS_LDL_DECL(mcdi_ms_ldl_v3);
 MCDI_MS_LDL_DECL(mcdi_ms_ldl_v1);
+typedef MCDI_MS_LDL_DECL((*mcdi_ms_ldl_fn));
+/* The variant for the instruction set chosen at run time (kernel_isa.c);
+ * returned as a pointer so that the caller's call is direct (forwarding
+ * 14 arguments through a dispatching function cost 8 % of an N = 3 call). */
+mcdi_ms_ldl_fn mcdi_ms_ldl_select(void);
 
 /* Mixture-averaged diffusion fluxes J (n x nd, molar frame, zero-sum
  * restored with weights x). den and num are scratch arrays of length n

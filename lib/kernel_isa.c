@@ -3,11 +3,11 @@
  * vector width without -march flags, and without ifunc resolvers (which
  * run before sanitizer runtimes exist).
  *
- * lib/meson.build compiles batch_kernel.c and ms_ldl.c once per
- * instruction set on x86-64 with GCC (MCDI_HAVE_KISA): v4 = x86-64-v4
- * (AVX-512, 8 lanes), v3 = x86-64-v3 (AVX2 + FMA, 4 lanes), v1 = baseline
- * x86-64 (SSE2, 2 lanes); elsewhere only v1 (the compiler's default
- * target).
+ * lib/meson.build compiles batch_kernel.c once per instruction set on
+ * x86-64 with GCC (MCDI_HAVE_KISA): v4 = x86-64-v4 (AVX-512, 8 lanes),
+ * v3 = x86-64-v3 (AVX2 + FMA, 4 lanes), v1 = baseline x86-64 (SSE2,
+ * 2 lanes); ms_ldl.c for v3 and v1 only. Elsewhere only v1 (the
+ * compiler's default target).
  *
  * MCDIFF_KERNEL_ISA=v1|v3|v4 in the environment caps the choice (a cap
  * above what the CPU has is ignored): the tests use it to run every kernel
@@ -81,22 +81,13 @@ void mcdi_batch_block(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
     }
 }
 
-size_t mcdi_ms_ldl(size_t m, size_t nd, const double *xp, const double *Dp,
-                   size_t ld, const double *dp, double c, double *A,
-                   double *sq, double *isq, double *S, double *dinv,
-                   double *Y, double *Yt)
+mcdi_ms_ldl_fn mcdi_ms_ldl_select(void)
 {
     switch (isa()) {
 #if defined(MCDI_HAVE_KISA)
-    case 4:
-        return mcdi_ms_ldl_v4(m, nd, xp, Dp, ld, dp, c, A, sq, isq, S, dinv,
-                              Y, Yt);
-    case 3:
-        return mcdi_ms_ldl_v3(m, nd, xp, Dp, ld, dp, c, A, sq, isq, S, dinv,
-                              Y, Yt);
+    case 4: /* the x86-64-v3 build: no gain from AVX-512 on a few species */
+    case 3: return mcdi_ms_ldl_v3;
 #endif
-    default:
-        return mcdi_ms_ldl_v1(m, nd, xp, Dp, ld, dp, c, A, sq, isq, S, dinv,
-                              Y, Yt);
+    default: return mcdi_ms_ldl_v1;
     }
 }

@@ -242,6 +242,7 @@ mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
     int *pos = ws->core_idx[0];     /* species present (x > 0) */
     int *tr = ws->core_idx[1];      /* trace species (x = 0) */
     double ST[MCD_MAX_DIM] = {0.0, 0.0, 0.0};
+    const mcdi_ms_ldl_fn ms_ldl = mcdi_ms_ldl_select();
     size_t m = 0, nt = 0, i, k, l, dd, bad;
 
     if (n == 1) {
@@ -259,7 +260,7 @@ mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
 
     if (nt == 0) {
         /* every species present: solve in place, no gathering */
-        bad = mcdi_ms_ldl(n, nd, x, Dij, n, d, c, A, ws->core_vec[2],
+        bad = ms_ldl(n, nd, x, Dij, n, d, c, A, ws->core_vec[2],
                           ws->core_vec[3], ws->core_vec[4], ws->core_vec[6],
                           Y, dc);
         if (bad != 0)
@@ -307,7 +308,7 @@ mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
             dc[k * nd + dd] = dti;
         }
     }
-    bad = mcdi_ms_ldl(m, nd, xc, Dc, m, dc, c, A, ws->core_vec[2],
+    bad = ms_ldl(m, nd, xc, Dc, m, dc, c, A, ws->core_vec[2],
                       ws->core_vec[3], ws->core_vec[4], ws->core_vec[6], Y,
                       dc /* dead after the assembly */);
     if (bad != 0)
