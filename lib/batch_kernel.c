@@ -489,6 +489,60 @@ KINLINE void iter_product_v(const size_t n, const size_t nd,
         }
 }
 
+/* The same step when every pair follows the exact power law (Fuller or
+ * the caller's value): invD_ij = f_l C_ij with C = 1 / coef (mixture,
+ * n x n, zero diagonal) the same for every cell, so the coefficients are
+ * scalars shared by the lanes (broadcast from a small matrix) and no
+ * per-lane triangle is read at all; the rows are taken KTILE at a time so
+ * that each SU_j load feeds KTILE * nd multiply-adds. f: P / T^1.75. */
+KINLINE void iter_product_c(const size_t n, const size_t nd,
+                            const double *restrict C, const mcdi_vd f,
+                            const mcdi_vd *restrict s,
+                            const mcdi_vd *restrict x,
+                            const mcdi_vd *restrict minv,
+                            const mcdi_vd *restrict wk,
+                            const mcdi_vd *restrict d,
+                            const mcdi_vd *restrict U, mcdi_vd *restrict SU,
+                            mcdi_vd *restrict V)
+{
+    const mcdi_vd zero = {0.0};
+    size_t i, j, dd, r, i0 = 0;
+    for (i = 0; i < n; i++)
+        for (dd = 0; dd < nd; dd++)
+            SU[i * nd + dd] = s[i] * U[i * nd + dd];
+    for (; i0 + KTILE <= n; i0 += KTILE) {
+        mcdi_vd acc[KTILE][MCD_MAX_DIM];
+        for (r = 0; r < KTILE; r++)
+            for (dd = 0; dd < nd; dd++)
+                acc[r][dd] = zero;
+        for (j = 0; j < n; j++)
+            for (r = 0; r < KTILE; r++) {
+                const double q = C[(i0 + r) * n + j];
+                for (dd = 0; dd < nd; dd++)
+                    acc[r][dd] += q * SU[j * nd + dd];
+            }
+        for (r = 0; r < KTILE; r++)
+            for (dd = 0; dd < nd; dd++)
+                V[(i0 + r) * nd + dd] = acc[r][dd];
+    }
+    for (i = i0; i < n; i++) {
+        const double *restrict Ci = C + i * n;
+        mcdi_vd acc[MCD_MAX_DIM];
+        for (dd = 0; dd < nd; dd++)
+            acc[dd] = zero;
+        for (j = 0; j < n; j++)
+            for (dd = 0; dd < nd; dd++)
+                acc[dd] += Ci[j] * SU[j * nd + dd];
+        for (dd = 0; dd < nd; dd++)
+            V[i * nd + dd] = acc[dd];
+    }
+    for (i = 0; i < n; i++)
+        for (dd = 0; dd < nd; dd++) {
+            const size_t e = i * nd + dd;
+            V[e] = x[i] * U[e] + minv[i] * (s[i] * f * V[e] + d[e] * wk[i]);
+        }
+}
+
 /* ------------------------------------------------------------------ */
 /* the block body, instantiated for constant n and L                    */
 /* ------------------------------------------------------------------ */
@@ -700,6 +754,9 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
             LANES
                 infit[l] = 0.0;
         }
+        if (!any_lj)
+            for (l = 0; l < L; l++)
+                Wt[l] = f175[l]; /* kept for iter_product_c */
         for (i = 1; i < n; i++)
             for (j = 0; j < i; j++) {
                 size_t ij = i * n + j;
@@ -974,7 +1031,15 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
             for (it = 1; it <= maxit; it++) {
                 double nact = 0.0;
                 /* v_i = x_i U_i + minv_i (s_i sum_j invD_ij s_j U_j + b_i) */
-                if (L == MCDI_VLANES)
+                if (L == MCDI_VLANES && jb->mix != NULL &&
+                    !jb->mix_has_omega)
+                    iter_product_c(n, nd, jb->mix->icoef,
+                                   *(const mcdi_vd *)Wt, (const mcdi_vd *)s,
+                                   (const mcdi_vd *)x, (const mcdi_vd *)minv,
+                                   (const mcdi_vd *)wk, (const mcdi_vd *)d,
+                                   (const mcdi_vd *)r, (mcdi_vd *)J,
+                                   (mcdi_vd *)v);
+                else if (L == MCDI_VLANES)
                     iter_product_v(n, nd, (const mcdi_vd *)tri,
                                    (const mcdi_vd *)s, (const mcdi_vd *)x,
                                    (const mcdi_vd *)minv, (const mcdi_vd *)wk,
