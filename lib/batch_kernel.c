@@ -577,6 +577,12 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
     double *restrict aux = mem;  mem += 8 * L;
     int bad = 0;                 /* != 0: some input out of range */
     size_t i, j, k, l, dd;
+    /* iterative model on a power-law mixture: the inverse diffusivities
+     * are f_l / coef_ij, used through the shared 1 / coef (Blanc sums,
+     * iter_product_c); the per-lane triangle is filled only for the trace
+     * coupling of blocks with trace species */
+    const int pl = jb->mix != NULL && !jb->mix_has_omega &&
+                   jb->model == MCD_MODEL_ITERATIVE && L == MCDI_VLANES;
 
     res->st = MCD_OK;
 
@@ -757,7 +763,7 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
         if (!any_lj)
             for (l = 0; l < L; l++)
                 Wt[l] = f175[l]; /* kept for iter_product_c */
-        for (i = 1; i < n; i++)
+        for (i = 1; i < n && !pl; i++)
             for (j = 0; j < i; j++) {
                 size_t ij = i * n + j;
                 int m = mx->method[ij];
@@ -792,7 +798,22 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
     }
 
     /* ---- Blanc sums S_i = sum_{j != i} x_j / Đ_ij, num_i = 1 - x_i ---- */
-    if (L == MCDI_VLANES) {
+    if (pl) {
+        /* S_i = f sum_j C_ij x_j (C_ii = 0) */
+        const mcdi_vd *xv = (const mcdi_vd *)x, f = *(const mcdi_vd *)Wt;
+        const double *C = jb->mix->icoef;
+        for (i = 0; i < n; i++) {
+            mcdi_vd as = {0.0}, an = {0.0};
+            for (j = 0; j < n; j++)
+                as += C[i * n + j] * xv[j];
+            for (j = 0; j < i; j++)
+                an += xv[j];
+            for (j = i + 1; j < n; j++)
+                an += xv[j];
+            ((mcdi_vd *)S)[i] = f * as;
+            ((mcdi_vd *)num)[i] = an;
+        }
+    } else if (L == MCDI_VLANES) {
         /* row by row, accumulated in registers */
         const mcdi_vd *xv = (const mcdi_vd *)x, *qv = (const mcdi_vd *)tri;
         for (i = 0; i < n; i++) {
@@ -880,6 +901,14 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
                         double q = -d[(i * nd + dd) * L + l] /
                                    (Sl > 0.0 ? Sl : 1.0);
                         t[(i * nd + dd) * L + l] = x[i * L + l] > 0.0 ? 0.0 : q;
+                    }
+            if (pl)
+                for (i = 1; i < n; i++)
+                    for (j = 0; j < i; j++) {
+                        double *q = tri + (i * (i + 1) / 2 + j) * L;
+                        const double ic = jb->mix->icoef[i * n + j];
+                        LANES
+                            q[l] = Wt[l] * ic;
                     }
             /* coupling of the present species to trace fluxes moved to
              * the right-hand side: d_k -= x_k sum_t t_t / Đ_kt */
@@ -1031,8 +1060,7 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
             for (it = 1; it <= maxit; it++) {
                 double nact = 0.0;
                 /* v_i = x_i U_i + minv_i (s_i sum_j invD_ij s_j U_j + b_i) */
-                if (L == MCDI_VLANES && jb->mix != NULL &&
-                    !jb->mix_has_omega)
+                if (pl)
                     iter_product_c(n, nd, jb->mix->icoef,
                                    *(const mcdi_vd *)Wt, (const mcdi_vd *)s,
                                    (const mcdi_vd *)x, (const mcdi_vd *)minv,
