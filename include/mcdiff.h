@@ -520,7 +520,7 @@ typedef enum mcd_model {
                                           mcd_flux_compute). It pays off
                                           only for large N: measured slower
                                           than the exact batched model up
-                                          to N = 50, 1.4x faster at
+                                          to N = 50, 1.5x faster at
                                           N = 100 (tol 1e-7). Since 0.1. */
 } mcd_model;
 
