@@ -11,7 +11,10 @@
  * that are not multiples of the vector width (0, 1, 7, 8, 9, 37).
  * The reference is the library's own single-state path, itself checked
  * against published data and identities in the other suites (Taylor and
- * Krishna 1993, ch. 2, for the Maxwell-Stefan equations).
+ * Krishna 1993, ch. 2, for the Maxwell-Stefan equations). Two tests have
+ * other references, marked in their comments: the iterative model on
+ * power-law mixtures against the exact batched model (identity), and
+ * overflowing cells reported as errors (common practice).
  */
 #include <check.h>
 #include <math.h>
