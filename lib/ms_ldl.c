@@ -23,9 +23,9 @@
  * rows 0..i-1, which are kept twice, as rows of L (lower triangle of A)
  * and as rows of L^T (upper triangle), so that every inner loop of the
  * factor and of both solves is a contiguous multiply-add, vectorisable and
- * free of dot-product dependency chains. (Dot-product loops ran 1.6x
- * slower at N = 10; vectorising their reductions slower still for short
- * rows.)
+ * free of dot-product dependency chains. (A dot-product formulation with
+ * vectorised reductions ran 1.6x slower at N = 10; without them it ran
+ * within noise of this one.)
  *
  * Compiled with -O2 without the loop vectoriser (lib/meson.build), once
  * per instruction set on x86-64 with GCC (runtime dispatch in
@@ -37,9 +37,8 @@
 #include "mcd_internal.h"
 #include "flux_core.h"
 
-/* Compiled once per instruction set like the batch kernel (MCDI_KISA = 4,
- * 3 or 1 with the matching -march, see lib/meson.build); kernel_isa.c
- * dispatches mcdi_ms_ldl to one of them. */
+/* Compiled once per instruction set (MCDI_KISA = 3 or 1 with the matching
+ * -march, see lib/meson.build); kernel_isa.c hands out the one to call. */
 #ifndef MCDI_KISA
 #define MCDI_KISA 1
 #endif
