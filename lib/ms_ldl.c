@@ -226,10 +226,11 @@ size_t MSNAME(MCDI_KISA)(size_t m, size_t nd, const double *xp, const double *Dp
     else
         solve_ldl(m, nd, A, dinv, Y);
 scale:
-    for (i = 0; i < m; i++) {
-        const double f = c * sq[i];
+    /* J = c (s U), in this order: s U is at most U, while c s can
+     * underflow (c near DBL_MIN, a near-trace species) and lose a flux
+     * the others balance (found by fuzz_flux: c = 7e-304, x = 1.6e-60) */
+    for (i = 0; i < m; i++)
         for (dd = 0; dd < nd; dd++)
-            Y[i * nd + dd] *= f;
-    }
+            Y[i * nd + dd] = c * (sq[i] * Y[i * nd + dd]);
     return 0;
 }

@@ -434,6 +434,34 @@ START_TEST(edge_cases_extreme_scales)
 }
 END_TEST
 
+START_TEST(edge_cases_tiny_concentration_near_trace_species)
+{
+    /* Found by fuzz_flux (corpus file regress_cs_underflow): c near DBL_MIN
+     * (7.3e-304), a near-trace species (x = 1.6e-60) in a carrier, tiny Đ
+     * and a huge gradient. The fluxes are representable (1.17e-212), but
+     * forming c s_0 first underflowed (9e-334 -> 0), the flux of the trace
+     * species was lost and the zero-sum clean-up then left it alone
+     * (sum = |F|). Reference: the binary Fick law of the Maxwell-Stefan
+     * equations, J_0 = -c Đ d_0 (Taylor and Krishna 1993, ch. 2), with the
+     * projected driving force d_0 = g_0 (1 - x_0). */
+    const double x0 = 1.5637585523680613e-60, Dv = 1.0989607864272113e-178;
+    const double c = 7.2911220195576408e-304, g0 = -1.4555762469866733e269;
+    double D[4] = {0.0, Dv, Dv, 0.0}, x[2] = {x0, 1.0}, g[2] = {g0, 0.0};
+    double J[2], want;
+    mcd_workspace *ws;
+    ck_assert_int_eq(mcd_workspace_alloc(2, &ws), MCD_OK);
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, 2, 1, NULL,
+                                      D, c, MCD_BASIS_MOLE, x, g, NULL, NULL,
+                                      MCD_BASIS_MOLE, J), MCD_OK);
+    want = -c * (Dv * (g0 * (1.0 - x0))); /* ordered to stay representable */
+    ck_assert_msg(fabs(J[0] - want) <= 1e-12 * fabs(want), "J0 %.17g want %.17g",
+                  J[0], want);
+    ck_assert_msg(fabs(J[0] + J[1]) <= 1e-12 * fabs(want), "sum %.3g",
+                  J[0] + J[1]);
+    mcd_workspace_free(ws);
+}
+END_TEST
+
 int main(void)
 {
     Suite *s = suite_create("mcd:edge_cases");
@@ -444,6 +472,7 @@ int main(void)
     tcase_add_test(tc, edge_cases_diffusivities_six_decades);
     tcase_add_test(tc, edge_cases_hundred_species);
     tcase_add_test(tc, edge_cases_extreme_scales);
+    tcase_add_test(tc, edge_cases_tiny_concentration_near_trace_species);
     suite_add_tcase(s, tc);
     SRunner *sr = srunner_create(s);
     srunner_run_all(sr, CK_ENV);
