@@ -406,6 +406,35 @@ KINLINE int emit_mole_v(const size_t n, const size_t nd,
     return 1;
 }
 
+/* The Ern-Giovangigli step around the product P_e = sum_j invD_ij SU_j:
+ * iter_su forms SU = s U; iter_finish turns P (held in V) into the next
+ * iterate V_e = x_i U_e + minv_i (s_i f P_e + d_e wk_i), with f = 1 when
+ * P already holds the inverse diffusivities' scale. */
+KINLINE void iter_su(const size_t n, const size_t nd,
+                     const mcdi_vd *restrict s, const mcdi_vd *restrict U,
+                     mcdi_vd *restrict SU)
+{
+    size_t i, dd;
+    for (i = 0; i < n; i++)
+        for (dd = 0; dd < nd; dd++)
+            SU[i * nd + dd] = s[i] * U[i * nd + dd];
+}
+
+KINLINE void iter_finish(const size_t n, const size_t nd, const mcdi_vd f,
+                         const mcdi_vd *restrict s, const mcdi_vd *restrict x,
+                         const mcdi_vd *restrict minv,
+                         const mcdi_vd *restrict wk,
+                         const mcdi_vd *restrict d,
+                         const mcdi_vd *restrict U, mcdi_vd *restrict V)
+{
+    size_t i, dd;
+    for (i = 0; i < n; i++)
+        for (dd = 0; dd < nd; dd++) {
+            const size_t e = i * nd + dd;
+            V[e] = x[i] * U[e] + minv[i] * (s[i] * f * V[e] + d[e] * wk[i]);
+        }
+}
+
 /* One Ern-Giovangigli step before the projection, on full lane vectors:
  * V_e = x_i U_e + minv_i (s_i sum_{j != i} invD_ij s_j U_{j,dd} + d_e wk_i),
  * e = i * nd + dd (the products s_j U_j are formed once, in SU).
@@ -425,13 +454,11 @@ KINLINE void iter_product_v(const size_t n, const size_t nd,
                             const mcdi_vd *restrict U, mcdi_vd *restrict SU,
                             mcdi_vd *restrict V)
 {
-    const mcdi_vd zero = {0.0};
+    const mcdi_vd zero = {0.0}, one = zero + 1.0;
     size_t i, j, dd, r, jj, i0 = 0;
-    for (i = 0; i < n; i++)
-        for (dd = 0; dd < nd; dd++) {
-            SU[i * nd + dd] = s[i] * U[i * nd + dd];
-            V[i * nd + dd] = zero;
-        }
+    iter_su(n, nd, s, U, SU);
+    for (i = 0; i < n * nd; i++)
+        V[i] = zero;
     for (; n > KREG && i0 + KTILE <= n; i0 += KTILE) {
         mcdi_vd acc[KTILE][MCD_MAX_DIM];
         const mcdi_vd *restrict Qr[KTILE];
@@ -482,11 +509,7 @@ KINLINE void iter_product_v(const size_t n, const size_t nd,
         for (dd = 0; dd < nd; dd++)
             V[i * nd + dd] += acc[dd];
     }
-    for (i = 0; i < n; i++)
-        for (dd = 0; dd < nd; dd++) {
-            const size_t e = i * nd + dd;
-            V[e] = x[i] * U[e] + minv[i] * (s[i] * V[e] + d[e] * wk[i]);
-        }
+    iter_finish(n, nd, one, s, x, minv, wk, d, U, V);
 }
 
 /* The same step when every pair follows the exact power law (Fuller or
@@ -507,9 +530,7 @@ KINLINE void iter_product_c(const size_t n, const size_t nd,
 {
     const mcdi_vd zero = {0.0};
     size_t i, j, dd, r, i0 = 0;
-    for (i = 0; i < n; i++)
-        for (dd = 0; dd < nd; dd++)
-            SU[i * nd + dd] = s[i] * U[i * nd + dd];
+    iter_su(n, nd, s, U, SU);
     for (; i0 + KTILE <= n; i0 += KTILE) {
         mcdi_vd acc[KTILE][MCD_MAX_DIM];
         for (r = 0; r < KTILE; r++)
@@ -536,11 +557,7 @@ KINLINE void iter_product_c(const size_t n, const size_t nd,
         for (dd = 0; dd < nd; dd++)
             V[i * nd + dd] = acc[dd];
     }
-    for (i = 0; i < n; i++)
-        for (dd = 0; dd < nd; dd++) {
-            const size_t e = i * nd + dd;
-            V[e] = x[i] * U[e] + minv[i] * (s[i] * f * V[e] + d[e] * wk[i]);
-        }
+    iter_finish(n, nd, f, s, x, minv, wk, d, U, V);
 }
 
 /* ------------------------------------------------------------------ */
