@@ -1,4 +1,6 @@
-/* The public header must compile on its own as strict C99. */
+/* The public header must compile on its own as strict C99.
+ * (identities only: header and runtime versions agree; no outside check
+ * values) */
 #include "mcdiff.h"
 #include <stdio.h>
 

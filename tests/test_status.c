@@ -1,4 +1,5 @@
-/* test_status.c - status codes, their messages and the runtime version. */
+/* test_status.c - status codes, their messages and the runtime version.
+ * (identities only: the API's own contract, no outside check values) */
 #include <check.h>
 #include <stdio.h>
 #include <stdlib.h>

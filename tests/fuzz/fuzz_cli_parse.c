@@ -1,4 +1,5 @@
-/* fuzz_cli_parse.c - libFuzzer harness for the command-line tool's number,
+/* (invariants only: no outside check values)
+ * fuzz_cli_parse.c - libFuzzer harness for the command-line tool's number,
  * unit and list parsing (bindings/cli/units.c) and its option scanner
  * (bindings/cli/args.c), compiled into the harness unchanged.
  *

@@ -1,4 +1,5 @@
-/* fuzz_db_load.c - libFuzzer harness for the species-file parser
+/* (invariants only: no outside check values)
+ * fuzz_db_load.c - libFuzzer harness for the species-file parser
  * (mcd_db_load_string) and for what a loaded database feeds into.
  *
  * Invariants:

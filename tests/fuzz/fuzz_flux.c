@@ -1,4 +1,5 @@
-/* fuzz_flux.c - libFuzzer harness for the flux entry points fed arbitrary
+/* (invariants only: no outside check values)
+ * fuzz_flux.c - libFuzzer harness for the flux entry points fed arbitrary
  * doubles and sizes: mcd_flux_compute, mcd_fick_matrix, mcd_fick_fluxes,
  * mcd_fick_eigenvalues, the frame functions (mcd_flux_convert,
  * mcd_flux_to_volume_frame, mcd_flux_to_species_frame, mcd_flux_total,

@@ -1,4 +1,5 @@
-/* fuzz_formula.c - libFuzzer harness for the chemical-formula parser.
+/* (invariants only: no outside check values)
+ * fuzz_formula.c - libFuzzer harness for the chemical-formula parser.
  *
  * The input is taken as a NUL-terminated formula (bytes after an embedded
  * NUL are ignored by the parser). Invariants:
