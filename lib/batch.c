@@ -68,6 +68,7 @@ static mcd_status run_job(mcd_workspace *ws, const mcdi_bjob *jb)
         tid = omp_get_thread_num();
 #endif
         mem = ws->batch_mem + (size_t)tid * ws->batch_per_thread;
+        mcdi_batch_stream_reset(mem);
 #ifdef _OPENMP
 #pragma omp for schedule(static)
 #endif
@@ -98,6 +99,7 @@ static mcd_status run_job(mcd_workspace *ws, const mcdi_bjob *jb)
                     my_used = res.iter_used;
             }
         }
+        mcdi_batch_finish(jb, mem);
 #ifdef _OPENMP
 #pragma omp critical
 #endif
@@ -153,6 +155,19 @@ static mcd_status check_common(mcd_workspace *ws, mcd_model model, size_t n,
     if (out == NULL)
         return mcdi_ws_fail(ws, MCD_EINVAL, "argument out_flux: NULL");
     return MCD_OK;
+}
+
+/* Whether the job streams its outputs: by the bytes it reads and writes
+ * (batch.h, kernel_isa.c). Only the SoA entries ask; the AoS path writes
+ * into staging that it reads back at once. */
+static int stream_choice(const mcdi_bjob *jb)
+{
+    const size_t n = jb->n, nd = jb->nd;
+    size_t per_cell = n + 2 * n * nd + (jb->mix != NULL ? 2 : 1 + n * n) +
+                      (jb->glnP != NULL ? nd : 0);
+    double bytes = 8.0 * (double)per_cell * (double)jb->K;
+    return mcdi_batch_stream_choice(bytes >= 1e18 ? (size_t)1e18
+                                                  : (size_t)bytes);
 }
 
 static void job_init(mcdi_bjob *jb, const mcd_workspace *ws, mcd_model model,
@@ -211,6 +226,7 @@ MCD_API mcd_status mcd_flux_batch(mcd_workspace *ws, const mcd_mixture *mix,
     jb.out = out_flux;
     if (n_cells == 0)
         return MCD_OK;
+    jb.stream = stream_choice(&jb);
     return run_job(ws, &jb);
 }
 
@@ -265,6 +281,7 @@ MCD_API mcd_status mcd_flux_batch_dij(mcd_workspace *ws, mcd_model model,
     jb.out = out_flux;
     if (n_cells == 0)
         return MCD_OK;
+    jb.stream = stream_choice(&jb);
     return run_job(ws, &jb);
 }
 

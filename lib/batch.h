@@ -35,6 +35,8 @@ typedef struct mcdi_bjob {
     const double *M;           /* molar masses or NULL when not needed */
     const double *comp, *grad, *glnP;
     double *out;
+    int stream;                /* stream full output lines past the caches
+                                * (kernels that can: v4; see batch.c) */
     size_t max_iter;
     double tol;
 } mcdi_bjob;
@@ -47,6 +49,33 @@ typedef struct mcdi_bres {
     double iter_err;       /* largest iterative error estimate */
     size_t iter_used;      /* largest number of iterations */
 } mcdi_bres;
+
+/* Streaming stores. With job->stream set, the v4 kernel writes each
+ * output row of a full mole-basis block as whole 64-byte lines with
+ * non-temporal stores (no read of the line first, no eviction of the
+ * inputs): the values of a row that do not fill its line yet wait in a
+ * per-thread carry at the front of the thread's scratch and go out with
+ * the next block's. State and carry: MCDI_STREAM_DOUBLES doubles at the
+ * front of every thread's scratch; the block scratch follows. A thread
+ * resets the state before its first block (mcdi_batch_stream_reset) and
+ * calls mcdi_batch_finish after its last one (writes what is held back,
+ * then a store fence). Kernels without streaming ignore both. */
+#define MCDI_STREAM_DOUBLES (8 + MCDI_LANES_NMAX * MCD_MAX_DIM * MCDI_LANES)
+typedef struct mcdi_stream_state {
+    size_t pending;  /* a carry is held for the block before next_k0 */
+    size_t next_k0;  /* first cell of the block that can continue it */
+} mcdi_stream_state;
+static inline void mcdi_batch_stream_reset(double *mem)
+{
+    ((mcdi_stream_state *)(void *)mem)->pending = 0;
+}
+void mcdi_batch_finish(const mcdi_bjob *job, double *mem);
+void mcdi_batch_finish_v4(const mcdi_bjob *job, double *mem);
+void mcdi_batch_finish_v3(const mcdi_bjob *job, double *mem);
+void mcdi_batch_finish_v1(const mcdi_bjob *job, double *mem);
+/* Whether a call whose inputs and outputs take `bytes` should stream its
+ * outputs (kernel_isa.c: the last-level cache size, MCDIFF_STREAM_STORES). */
+int mcdi_batch_stream_choice(size_t bytes);
 
 /* Doubles of scratch one thread needs for any call with n <= cap. */
 size_t mcdi_batch_scratch_doubles(size_t cap);

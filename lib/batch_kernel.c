@@ -58,6 +58,7 @@
  */
 #include <float.h>
 #include <math.h>
+#include <stdint.h>
 #include <string.h>
 
 #include "mcd_internal.h"
@@ -91,6 +92,15 @@
 #endif
 
 #define RGAS MCD_GAS_CONSTANT
+
+/* Streaming stores of whole output lines (batch.h): the AVX-512 build
+ * only, where a block's row of 8 doubles is one 64-byte line. */
+#if MCDI_KISA == 4 && defined(__AVX512F__) && MCDI_VLANES == 8
+#define MCDI_CAN_STREAM 1
+#include <immintrin.h>
+#else
+#define MCDI_CAN_STREAM 0
+#endif
 
 /* A loop over the lanes of a block: vectorised (OpenMP SIMD pragma, enabled
  * by -fopenmp-simd without the OpenMP runtime; ignored elsewhere). */
@@ -131,7 +141,7 @@ size_t mcdi_batch_scratch_doubles(size_t cap)
         if (need > best)
             best = need;
     }
-    return best;
+    return MCDI_STREAM_DOUBLES + best; /* streaming state, then blocks */
 }
 #endif
 
@@ -362,12 +372,80 @@ KINLINE int ldl_solve_v(const size_t n, const size_t nd, mcdi_vd *restrict A,
  * J_i -= x_i sum_k J_k, written to out[e * K + l] (e = i * nd + dd) in the
  * same pass. J: scratch for one direction's fluxes. Returns 0 (nothing
  * written, J holds all fluxes) if some flux is not finite. */
+#if MCDI_CAN_STREAM
+/* Streaming stores of one full block (batch.h). Row e starts o_e doubles
+ * into a 64-byte line (o_e is the same for every block of the row). With
+ * o_e = 0 the block is the line. Otherwise the line at p - o_e takes the
+ * last o_e values of the previous block (the carry) and the first 8 - o_e
+ * of this one; the rest wait in the carry. A block that does not follow
+ * the carry's block in this thread (the thread's first, or one after a
+ * block that failed or went through another path) writes its first
+ * 8 - o_e values with ordinary masked stores; a carry left over is
+ * written the same way (stream_flush). No cell outside the block and the
+ * carry is ever touched, so threads never write each other's cells. */
+KINLINE __m512i stream_index(unsigned o)
+{
+    /* line[j] = j < o ? prev[8 - o + j] : cur[j - o] (vpermt2pd) */
+    return _mm512_add_epi64(_mm512_set1_epi64((long long)(8u - o)),
+                            _mm512_set_epi64(7, 6, 5, 4, 3, 2, 1, 0));
+}
+
+static void stream_flush(size_t rows, double *outb, size_t K, double *nts)
+{
+    mcdi_stream_state *st = (mcdi_stream_state *)(void *)nts;
+    const __m512d *carry = (const __m512d *)(void *)(nts + 8);
+    size_t e, k0p;
+    if (!st->pending)
+        return;
+    k0p = st->next_k0 - 8;
+    for (e = 0; e < rows; e++) {
+        double *p = outb + e * K + k0p;
+        const unsigned o = (unsigned)(((uintptr_t)p >> 3) & 7u);
+        if (o != 0) /* lanes 8 - o .. 7 are still held back */
+            _mm512_mask_storeu_pd(p, (__mmask8)((0xFFu << (8u - o)) & 0xFFu),
+                                  carry[e]);
+    }
+    st->pending = 0;
+}
+
+KINLINE void stream_rows(size_t rows, const mcdi_vd *restrict J, double *outb,
+                         size_t K, size_t k0, double *nts)
+{
+    mcdi_stream_state *st = (mcdi_stream_state *)(void *)nts;
+    __m512d *carry = (__m512d *)(void *)(nts + 8);
+    const int cont = st->pending && st->next_k0 == k0;
+    size_t e;
+    if (st->pending && !cont)
+        stream_flush(rows, outb, K, nts);
+    for (e = 0; e < rows; e++) {
+        double *p = outb + e * K + k0;
+        const unsigned o = (unsigned)(((uintptr_t)p >> 3) & 7u);
+        const __m512d cur = (__m512d)J[e];
+        if (o == 0) {
+            _mm512_stream_pd(p, cur);
+            continue;
+        }
+        if (cont)
+            _mm512_stream_pd(p - o, _mm512_permutex2var_pd(carry[e],
+                                                           stream_index(o),
+                                                           cur));
+        else
+            _mm512_mask_storeu_pd(p, (__mmask8)(0xFFu >> o), cur);
+        carry[e] = cur;
+    }
+    st->pending = 1;
+    st->next_k0 = k0 + 8;
+}
+#endif
+
 KINLINE int emit_mole_v(const size_t n, const size_t nd,
                         const mcdi_vd *restrict s, const mcdi_vd *restrict x,
                         const mcdi_vd *restrict U, const mcdi_vd *restrict t,
                         const int ntr, const mcdi_vd c, mcdi_vd *restrict J,
-                        double *restrict out, const size_t K)
+                        double *restrict outb, const size_t K,
+                        const size_t k0, const int stream, double *nts)
 {
+    double *restrict out = outb + k0;
     const mcdi_vd zero = {0.0};
     mcdi_vd nan_acc = zero; /* q * 0 is NaN exactly when q is inf or NaN */
     double lanes_sum = 0.0;
@@ -401,6 +479,15 @@ KINLINE int emit_mole_v(const size_t n, const size_t nd,
         lanes_sum += nan_acc[l];
     if (lanes_sum != lanes_sum)
         return 0;
+#if MCDI_CAN_STREAM
+    if (stream) {
+        stream_rows(n * nd, J, outb, K, k0, nts);
+        return 1;
+    }
+#else
+    (void)stream;
+    (void)nts;
+#endif
     for (e = 0; e < n * nd; e++)
         memcpy(out + e * K, &J[e], sizeof J[e]);
     return 1;
@@ -568,6 +655,7 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
                   mcdi_bres *res, const size_t n, const size_t L,
                   const size_t nd)
 {
+    double *const mem0 = mem; /* the streaming state is just before it */
     const size_t K = jb->K;
     const int mass_in = jb->comp_basis == MCD_BASIS_MASS;
     const int mass_out = jb->flux_basis == MCD_BASIS_MASS;
@@ -1191,7 +1279,8 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
             if (emit_mole_v(n, nd, (const mcdi_vd *)s, (const mcdi_vd *)x,
                             (const mcdi_vd *)r, (const mcdi_vd *)t, ntr,
                             *(const mcdi_vd *)c, (mcdi_vd *)J,
-                            jb->out + k0, K))
+                            jb->out, K, k0, jb->stream,
+                            mem0 - MCDI_STREAM_DOUBLES))
                 return;
             goto store; /* a flux not finite: reported there */
         }
@@ -1359,6 +1448,8 @@ static void block_single(const mcdi_bjob *jb, size_t k0, size_t nv,
 
 #define KNAME_(isa) mcdi_batch_block_v##isa
 #define KNAME(isa) KNAME_(isa)
+#define FNAME_(isa) mcdi_batch_finish_v##isa
+#define FNAME(isa) FNAME_(isa)
 #define KLANES_(isa) mcdi_batch_lanes_v##isa
 #define KLANES(isa) KLANES_(isa)
 const size_t KLANES(MCDI_KISA) = MCDI_VLANES;
@@ -1366,8 +1457,22 @@ const size_t KLANES(MCDI_KISA) = MCDI_VLANES;
 void KNAME(MCDI_KISA)(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
                       mcdi_bres *res)
 {
+    mem += MCDI_STREAM_DOUBLES; /* streaming state first (batch.h) */
     if (jb->n > MCDI_LANES_NMAX)
         block_single(jb, k0, nv, mem, res);
     else
         block_lanes(jb, k0, nv, mem, res);
+}
+
+void FNAME(MCDI_KISA)(const mcdi_bjob *jb, double *mem)
+{
+#if MCDI_CAN_STREAM
+    if (!jb->stream)
+        return;
+    stream_flush(jb->n * jb->nd, jb->out, jb->K, mem);
+    _mm_sfence(); /* the streamed lines before anything after the call */
+#else
+    (void)jb;
+    (void)mem;
+#endif
 }
