@@ -748,7 +748,11 @@ MCD_API mcd_status mcd_flux_diagnose(size_t n_species, size_t n_dim,
  * whatever the thread count, so results are bit-for-bit identical to the
  * serial run. Without OpenMP the calls are serial. The CPU's vector width
  * (SSE2, AVX2, AVX-512) is chosen at run time on x86-64; no -march flag is
- * needed.
+ * needed. With AVX-512, a call whose inputs and outputs together exceed the
+ * last-level cache writes its outputs with streaming stores (past the
+ * caches: the first outputs would have left them anyway); environment
+ * variable MCDIFF_STREAM_STORES=never or =always overrides that choice.
+ * The values are the same either way.
  */
 
 /** Batched diffusion fluxes of a mixture at many states (SoA layout, see
