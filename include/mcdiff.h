@@ -539,8 +539,9 @@ typedef enum mcd_model {
  *  @param M           molar masses [kg/mol], length N (needed for the mass
  *                     basis and pressure diffusion; may be NULL otherwise).
  *  @param Dij         binary diffusivities [m^2/s], N x N, symmetric
- *                     (relative difference <= 1e-12), off-diagonal > 0,
- *                     diagonal ignored.
+ *                     (relative difference <= 1e-12), off-diagonal normal
+ *                     positive numbers (>= DBL_MIN; a subnormal one is
+ *                     EDOM), diagonal ignored.
  *  @param c           total molar concentration [mol/m^3], a normal positive
  *                     number (>= DBL_MIN; a subnormal c is EDOM).
  *  @param comp_basis  whether comp/grad_comp are mole or mass fractions.
@@ -737,7 +738,7 @@ MCD_API mcd_status mcd_flux_diagnose(size_t n_species, size_t n_dim,
  * Errors: all arguments are checked, every cell's inputs are validated
  * (as mcd_flux_compute validates one state: T, P, c > 0 and finite,
  * fractions finite, >= 0 and summing to 1 within MCD_SUM_TOL, gradients
- * finite, Đ finite, > 0 and symmetric). Unlike the single-state calls, on
+ * finite, Đ finite, >= DBL_MIN and symmetric). Unlike the single-state calls, on
  * an error detected in a cell the output of OTHER cells may already have
  * been written; the workspace message names the lowest failing cell
  * ("cell 17: ..."). Argument errors (NULL, counts, enums) write nothing.
@@ -797,8 +798,8 @@ MCD_API mcd_status mcd_flux_batch(mcd_workspace *ws, const mcd_mixture *mix,
  *                     be NULL otherwise.
  *  @param Dij         binary diffusivities [m^2/s], (N N) x K
  *                     (Dij[(i*N + j)*K + k]), each cell's matrix symmetric
- *                     (relative difference <= 1e-12), off-diagonal > 0,
- *                     diagonal ignored.
+ *                     (relative difference <= 1e-12), off-diagonal
+ *                     >= DBL_MIN, diagonal ignored.
  *  @param c           total molar concentrations [mol/m^3], length K, each >= DBL_MIN.
  *  Other parameters as in mcd_flux_batch.
  *  Fails: EINVAL, EDOM, EBADLEN, ESING, EINTERNAL | Allocates: no

@@ -195,6 +195,12 @@ static mcd_status check_cell(const mcdi_bjob *jb, size_t k, const char **what)
                     return MCD_EDOM;
                 }
         for (i = 0; i < n; i++)
+            for (j = 0; j < n; j++)
+                if (i != j && !(jb->Dij[(i * n + j) * K + k] >= DBL_MIN)) {
+                    *what = "Dij: entry subnormal (< DBL_MIN)";
+                    return MCD_EDOM;
+                }
+        for (i = 0; i < n; i++)
             for (j = i + 1; j < n; j++) {
                 double a = jb->Dij[(i * n + j) * K + k];
                 double b = jb->Dij[(j * n + i) * K + k];
@@ -825,8 +831,8 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
                 load_row(wk, lo, nv, L);
                 LANES_BAD {
                     double a = q[l], b = wk[l], m = a > b ? a : b;
-                    bad |= !((a > 0.0) & (a <= DBL_MAX));
-                    bad |= !((b > 0.0) & (b <= DBL_MAX));
+                    bad |= !((a >= DBL_MIN) & (a <= DBL_MAX));
+                    bad |= !((b >= DBL_MIN) & (b <= DBL_MAX));
                     bad |= !(fabs(a - b) <= 1e-12 * m);
                     q[l] = 1.0 / a;
                 }

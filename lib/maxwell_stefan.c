@@ -75,7 +75,8 @@
 /* ------------------------------------------------------------------ */
 
 /* One branch-free pass over the pairs: every off-diagonal entry finite and
- * > 0, and the two triangles equal to MCDI_DIJ_SYM_TOL. The caller's data
+ * a normal positive number (>= DBL_MIN), and the two triangles equal to
+ * MCDI_DIJ_SYM_TOL. The caller's data
  * almost always pass; the loops below then only name the first failure. */
 static int dij_all_good(size_t n, const double *Dij)
 {
@@ -85,7 +86,7 @@ static int dij_all_good(size_t n, const double *Dij)
         for (j = i + 1; j < n; j++) {
             const double a = Dij[i * n + j], b = Dij[j * n + i];
             const double big = a > b ? a : b;
-            good &= (a > 0.0) & (b > 0.0) & (big <= DBL_MAX) &
+            good &= (a >= DBL_MIN) & (b >= DBL_MIN) & (big <= DBL_MAX) &
                     (fabs(a - b) <= MCDI_DIJ_SYM_TOL * big);
         }
     return good;
@@ -109,6 +110,16 @@ mcd_status mcdi_flux_check_dij(mcd_workspace *ws, size_t n, const double *Dij)
             if (i != j && !(Dij[i * n + j] > 0.0))
                 return mcdi_ws_fail(ws, MCD_EDOM,
                                     "argument Dij: entry (%zu,%zu) = %g is not > 0",
+                                    i, j, Dij[i * n + j]);
+    /* a positive subnormal Đ: 1/Đ overflows, and the single-state and
+     * batched paths failed differently on it (OK with -0 fluxes against
+     * ESING); both reject it here */
+    for (i = 0; i < n; i++)
+        for (j = 0; j < n; j++)
+            if (i != j && !(Dij[i * n + j] >= DBL_MIN))
+                return mcdi_ws_fail(ws, MCD_EDOM,
+                                    "argument Dij: entry (%zu,%zu) = %g is "
+                                    "subnormal (< DBL_MIN; 1/Dij overflows)",
                                     i, j, Dij[i * n + j]);
     for (i = 0; i < n; i++)
         for (j = i + 1; j < n; j++) {

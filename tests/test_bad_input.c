@@ -987,10 +987,14 @@ static const bcase cases[] = {
         C(fn, "M NaN (mass comp)", EINVAL_, "M", MI(basis, MCD_BASIS_MASS), MDA(M, 1, NAN)), \
         C(fn, "M 0 (mass comp)", EDOM_, "M", MI(basis, MCD_BASIS_MASS), MDA(M, 2, 0.0))
     FLUX_COMMON(mcd_flux_compute),
-    /* a positive subnormal Đ is in the documented domain (> 0) but makes
-     * [B] overflow: ESING is the documented outcome */
-    C(mcd_flux_compute, "Dij subnormal", MCD_ESING, NULL, MDA(D, 1, 4.9e-324),
+    /* a positive subnormal Đ is outside the domain (>= DBL_MIN): 1/Đ
+     * overflows; EDOM naming it, also for a pure component, where the
+     * solve would not have noticed (and the batched call did) */
+    C(mcd_flux_compute, "Dij subnormal", EDOM_, "subnormal", MDA(D, 1, 4.9e-324),
       MDA(D, 3, 4.9e-324)),
+    C(mcd_flux_compute, "Dij subnormal, pure component", EDOM_, "subnormal",
+      MDA(D, 1, 1e-310), MDA(D, 3, 1e-310), MDA(x, 0, 1.0), MDA(x, 1, 0.0),
+      MDA(x, 2, 0.0)),
     C(mcd_flux_compute, "n_dim 0", EINVAL_, "n_dim", MZ(nd, 0)),
     C(mcd_flux_compute, "n_dim 4", EINVAL_, "n_dim", MZ(nd, 4)),
     C(mcd_flux_compute, "model 9", EINVAL_, "model", MI(model, 9)),
@@ -1016,8 +1020,8 @@ static const bcase cases[] = {
     C(mcd_flux_compute, "MA model, c 0", EDOM_, "c", MI(model, MCD_MODEL_MIXTURE_AVERAGED),
       MD(c, 0.0)),
     FLUX_COMMON(mcd_fick_matrix),
-    /* as above; the Fick matrix reports the overflow of its result as EDOM */
-    C(mcd_fick_matrix, "Dij subnormal", EDOM_, NULL, MDA(D, 1, 4.9e-324), MDA(D, 3, 4.9e-324)),
+    /* as above */
+    C(mcd_fick_matrix, "Dij subnormal", EDOM_, "subnormal", MDA(D, 1, 4.9e-324), MDA(D, 3, 4.9e-324)),
     C(mcd_fick_matrix, "out_D NULL", EINVAL_, "out_D", MN(NB_O1)),
     C(mcd_fick_matrix, "dependent = n", EINVAL_, "dependent", MZ(dep, 3)),
     C(mcd_fick_matrix, "dependent SIZE_MAX-1", EINVAL_, "dependent", MZ(dep, SIZE_MAX - 1)),
@@ -1177,6 +1181,8 @@ static const bcase cases[] = {
     C(mcd_flux_batch_dij, "c NULL", EINVAL_, "c", MN(NB_VALS)),
     C(mcd_flux_batch_dij, "Dij NaN", EINVAL_, "cell", MDA(D, 1, NAN), MDA(D, 3, NAN)),
     C(mcd_flux_batch_dij, "Dij 0", EDOM_, "cell", MDA(D, 1, 0.0), MDA(D, 3, 0.0)),
+    C(mcd_flux_batch_dij, "Dij subnormal", EDOM_, "subnormal", MDA(D, 1, 1e-310),
+      MDA(D, 3, 1e-310)),
     C(mcd_flux_batch_dij, "Dij not symmetric", EDOM_, "cell", MDA(D, 1, 2.1e-5)),
     C(mcd_flux_batch_dij, "c 0", EDOM_, "cell", MDA(cc, 0, 0.0)),
     C(mcd_flux_batch_dij, "c NaN", EINVAL_, "cell", MDA(cc, 0, NAN)),
