@@ -296,14 +296,16 @@ mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
         goto zero_sum;
     }
 
-    /* Trace species: Blanc's law, exact. */
+    /* Trace species: Blanc's law, exact. tv = J / c = -d / S is kept
+     * (in Y, which the solve writes only later) for the coupling below. */
     for (k = 0; k < nt; k++) {
         size_t it = (size_t)tr[k];
         double s = 0.0;
         for (l = 0; l < m; l++)
             s += x[pos[l]] / dij_pair(Dij, n, it, (size_t)pos[l]);
         for (dd = 0; dd < nd; dd++) {
-            double Ji = -c * d[it * nd + dd] / s;
+            double tq = -d[it * nd + dd] / s, Ji = c * tq;
+            Y[k * nd + dd] = tq;
             J[it * nd + dd] = Ji;
             ST[dd] += Ji;
         }
@@ -319,7 +321,9 @@ mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
 
     /* Gather the species present: x, Đ (upper triangle), and the driving
      * forces with the trace terms moved over,
-     * d_i - x_i sum_T J_t / (c Đ_it). */
+     * d_i - x_i sum_T (J_t / c) / Đ_it: c-free, as in the batched kernel
+     * (dividing by c Đ underflowed to 0 for c = 1e-300, Đ = 1e-30 although
+     * every flux was representable: test_edge_cases). */
     for (k = 0; k < m; k++) {
         size_t ik = (size_t)pos[k];
         xc[k] = x[ik];
@@ -329,8 +333,7 @@ mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
             double dti = d[ik * nd + dd];
             for (l = 0; l < nt; l++) {
                 size_t it = (size_t)tr[l];
-                dti -= x[ik] * J[it * nd + dd] /
-                       (c * dij_pair(Dij, n, ik, it));
+                dti -= x[ik] * Y[l * nd + dd] / dij_pair(Dij, n, ik, it);
             }
             dc[k * nd + dd] = dti;
         }

@@ -462,6 +462,53 @@ START_TEST(edge_cases_tiny_concentration_near_trace_species)
 }
 END_TEST
 
+START_TEST(edge_cases_trace_coupling_when_c_times_dij_underflows)
+{
+    /* A trace species (x = 0) with c = 1e-300 and Đ = 1e-30 m^2/s: c Đ
+     * underflows to 0 in double, though every flux is about 1e-300 and
+     * representable (the gradients are about 1e30). The coupling of the
+     * species present to the trace flux, x_k J_t / (c Đ_kt), was formed
+     * with c Đ and gave inf, so the call returned EDOM; the c-free form
+     * x_k (J_t / c) / Đ_kt, which the batched kernel uses, does not.
+     * Reference: the Maxwell-Stefan equations are homogeneous, J scales as
+     * c Đ grad (Taylor and Krishna 1993, ch. 2), so the fluxes equal
+     * 1e-300 times those of c = 1, Đ scaled by 1e30, gradients by 1e-30. */
+    enum { N = 3 }; /* ND = 2, the file's */
+    const double x[N] = {0.6, 0.4, 0.0};
+    const double g1[N * ND] = {0.3, -0.2, -0.1, 0.5, -0.2, -0.3};
+    const double Dn[N * N] = {0, 1.0, 2.0, 1.0, 0, 0.5, 2.0, 0.5, 0};
+    double D[N * N], g[N * ND], J[N * ND], Jr[N * ND], scale = 0.0, sum;
+    mcd_workspace *ws;
+    size_t i, d;
+    for (i = 0; i < N * N; i++)
+        D[i] = Dn[i] * 1e-30;
+    for (i = 0; i < N * ND; i++)
+        g[i] = g1[i] * 1e30;
+    ck_assert_int_eq(mcd_workspace_alloc(N, &ws), MCD_OK);
+    ck_assert_msg(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, N, ND, NULL, D,
+                                   1e-300, MCD_BASIS_MOLE, x, g, NULL, NULL,
+                                   MCD_BASIS_MOLE, J) == MCD_OK,
+                  "%s", mcd_workspace_last_error(ws));
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, N, ND, NULL,
+                                      Dn, 1.0, MCD_BASIS_MOLE, x, g1, NULL, NULL,
+                                      MCD_BASIS_MOLE, Jr), MCD_OK);
+    for (i = 0; i < N * ND; i++)
+        if (fabs(Jr[i]) > scale)
+            scale = fabs(Jr[i]);
+    ck_assert(scale > 0.1);
+    for (i = 0; i < N * ND; i++)
+        ck_assert_msg(fabs(J[i] / 1e-300 - Jr[i]) <= 1e-12 * scale,
+                      "J[%zu] = %.17g, want %.17g e-300", i, J[i], Jr[i]);
+    for (d = 0; d < ND; d++) {
+        sum = 0.0;
+        for (i = 0; i < N; i++)
+            sum += J[i * ND + d];
+        ck_assert(fabs(sum) <= 1e-14 * scale * 1e-300);
+    }
+    mcd_workspace_free(ws);
+}
+END_TEST
+
 int main(void)
 {
     Suite *s = suite_create("mcd:edge_cases");
@@ -473,6 +520,7 @@ int main(void)
     tcase_add_test(tc, edge_cases_hundred_species);
     tcase_add_test(tc, edge_cases_extreme_scales);
     tcase_add_test(tc, edge_cases_tiny_concentration_near_trace_species);
+    tcase_add_test(tc, edge_cases_trace_coupling_when_c_times_dij_underflows);
     suite_add_tcase(s, tc);
     SRunner *sr = srunner_create(s);
     srunner_run_all(sr, CK_ENV);
