@@ -978,7 +978,7 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
                 double Sl = S[i * L + l];
                 double Dim = Sl > 0.0 ? num[i * L + l] / Sl
                                       : (double)(n - 1) / minv[i * L + l];
-                wk[i * L + l] = -c[l] * Dim;
+                wk[i * L + l] = -Dim;
             }
         for (dd = 0; dd < nd; dd++) {
             double *sj = aux + 4 * L;
@@ -986,7 +986,9 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
                 sj[l] = 0.0;
             for (i = 0; i < n; i++)
                 LANES {
-                    double q = wk[i * L + l] * d[(i * nd + dd) * L + l];
+                    /* c last: c D_im underflows where the flux does not
+                     * (c = 1e-300, Đ = 1e-30: test_edge_cases) */
+                    double q = c[l] * (wk[i * L + l] * d[(i * nd + dd) * L + l]);
                     J[(i * nd + dd) * L + l] = q;
                     sj[l] += q;
                 }

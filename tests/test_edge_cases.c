@@ -509,6 +509,50 @@ START_TEST(edge_cases_trace_coupling_when_c_times_dij_underflows)
 }
 END_TEST
 
+START_TEST(edge_cases_mixture_averaged_when_c_times_dij_underflows)
+{
+    /* The mixture-averaged flux -c D_im d_i formed c D_im first: for
+     * c = 1e-300 and Đ = 1e-30 that product underflowed to 0 and every
+     * flux came out 0, though the fluxes are about 1e-300. Reference:
+     * homogeneity as in the test above (J scales as c Đ grad), for the
+     * single-state and the batched calls. */
+    enum { N = 3 };
+    const double x[N] = {0.5, 0.3, 0.2};
+    const double g1[N * ND] = {0.3, -0.2, -0.1, 0.5, -0.2, -0.3};
+    const double Dn[N * N] = {0, 1.0, 2.0, 1.0, 0, 0.5, 2.0, 0.5, 0};
+    const double c = 1e-300;
+    double D[N * N], g[N * ND], J[N * ND], Jb[N * ND], Jr[N * ND], scale = 0.0;
+    mcd_workspace *ws;
+    size_t i;
+    for (i = 0; i < N * N; i++)
+        D[i] = Dn[i] * 1e-30;
+    for (i = 0; i < N * ND; i++)
+        g[i] = g1[i] * 1e30;
+    ck_assert_int_eq(mcd_workspace_alloc(N, &ws), MCD_OK);
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED, N, ND, NULL,
+                                      Dn, 1.0, MCD_BASIS_MOLE, x, g1, NULL, NULL,
+                                      MCD_BASIS_MOLE, Jr), MCD_OK);
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED, N, ND, NULL,
+                                      D, c, MCD_BASIS_MOLE, x, g, NULL, NULL,
+                                      MCD_BASIS_MOLE, J), MCD_OK);
+    /* one cell, SoA with K = 1 is the same memory order */
+    ck_assert_int_eq(mcd_flux_batch_dij(ws, MCD_MODEL_MIXTURE_AVERAGED, N, 1, ND,
+                                        NULL, D, &c, MCD_BASIS_MOLE, x, g, NULL,
+                                        MCD_BASIS_MOLE, Jb), MCD_OK);
+    for (i = 0; i < N * ND; i++)
+        if (fabs(Jr[i]) > scale)
+            scale = fabs(Jr[i]);
+    ck_assert(scale > 0.1);
+    for (i = 0; i < N * ND; i++) {
+        ck_assert_msg(fabs(J[i] / c - Jr[i]) <= 1e-12 * scale,
+                      "single J[%zu] = %.17g, want %.17g e-300", i, J[i], Jr[i]);
+        ck_assert_msg(fabs(Jb[i] / c - Jr[i]) <= 1e-12 * scale,
+                      "batched J[%zu] = %.17g, want %.17g e-300", i, Jb[i], Jr[i]);
+    }
+    mcd_workspace_free(ws);
+}
+END_TEST
+
 int main(void)
 {
     Suite *s = suite_create("mcd:edge_cases");
@@ -521,6 +565,7 @@ int main(void)
     tcase_add_test(tc, edge_cases_extreme_scales);
     tcase_add_test(tc, edge_cases_tiny_concentration_near_trace_species);
     tcase_add_test(tc, edge_cases_trace_coupling_when_c_times_dij_underflows);
+    tcase_add_test(tc, edge_cases_mixture_averaged_when_c_times_dij_underflows);
     suite_add_tcase(s, tc);
     SRunner *sr = srunner_create(s);
     srunner_run_all(sr, CK_ENV);
