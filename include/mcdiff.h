@@ -559,7 +559,10 @@ typedef enum mcd_model {
  *  out-of-range one EDOM. Accuracy: for Đ spread over up to 6 decades and
  *  N <= 100 the fluxes agree with an extended-precision solution to a
  *  normwise relative error below 1e-11 (measured about 1e-14,
- *  tests/test_edge_cases.c).
+ *  tests/test_edge_cases.c). Mass fluxes are differences of the terms
+ *  M_i J_i; when the molar masses span so many decades that those terms
+ *  cancel beyond double precision (fluxes that would not sum to zero), the
+ *  call fails with EDOM instead (the molar fluxes remain available).
  *  Fails: EINVAL, EDOM, EBADLEN (N > capacity), ESING, EINTERNAL
  *  | Allocates: no
  *  | Threads: one ws per thread */

@@ -64,6 +64,7 @@
 #include "mcd_internal.h"
 #include "mixture.h"
 #include "batch.h"
+#include "flux_core.h"
 
 #if defined(__GNUC__) && !defined(__clang__)
 #define KINLINE static inline __attribute__((always_inline))
@@ -1339,6 +1340,26 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
             for (i = 0; i < n; i++)
                 LANES
                     J[(i * nd + dd) * L + l] -= w[i * L + l] * rs[l];
+            /* cancellation check as in mcdi_mass_zero_sum_kept (non-finite
+             * lanes are left to the check below) */
+            LANES
+                sm[l] = rs[l] = 0.0;
+            for (i = 0; i < n; i++)
+                LANES {
+                    const double q = J[(i * nd + dd) * L + l];
+                    sm[l] += q;
+                    rs[l] += fabs(q);
+                }
+            for (l = 0; l < nv; l++)
+                if ((rs[l] <= DBL_MAX) &&
+                    !(fabs(sm[l]) <= MCDI_MASS_SUM_TOL * rs[l] + 1e-300)) {
+                    res->st = MCD_EDOM;
+                    res->lane = l;
+                    res->what = "result: mass fluxes lost to cancellation "
+                                "(the molar masses are too far apart for "
+                                "double precision)";
+                    return;
+                }
         }
     }
 store:

@@ -48,6 +48,11 @@ size_t mcdi_flux_most_abundant(size_t n, const double *x);
  * Scratch used: core_mat[0..1], core_nd[0] and [3], core_vec[2..6],
  * core_idx[0..1]; x, d and J must not be any of those. Fails with ESING
  * (round-off made the matrix indefinite). Defined in maxwell_stefan.c. */
+/* Mass fluxes that no longer sum to zero to this relative tolerance after
+ * the clean-up were lost to cancellation (see mcdi_mass_zero_sum_kept). */
+#define MCDI_MASS_SUM_TOL 1e-10
+int mcdi_mass_zero_sum_kept(size_t n, size_t nd, const double *F);
+
 mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
                           const double *x, const double *d,
                           const double *Dij, double c, double *J);

@@ -553,6 +553,61 @@ START_TEST(edge_cases_mixture_averaged_when_c_times_dij_underflows)
 }
 END_TEST
 
+START_TEST(edge_cases_mass_fluxes_lost_to_cancellation_are_an_error)
+{
+    /* Found by fuzz_flux (corpus file regress_mass_cancellation): a species
+     * of molar mass 1.3e-163 kg/mol next to three of 0.03 kg/mol, mass
+     * fractions and their gradients in, mass fluxes out. The molar fluxes
+     * are about 1e170 and sum to zero; the mass fluxes, about 1e8, are what
+     * is left of j_i = M_i J_i - w_i sum_k M_k J_k after terms of 1e168
+     * cancel, which double precision cannot represent: the call returned
+     * MCD_OK with mass fluxes summing to -1.2e8. Now both paths fail with
+     * EDOM and write nothing. Reference: the zero-sum of the mass fluxes
+     * (common practice: the definition of diffusion fluxes). The molar
+     * fluxes of the same input stay available and sum to zero. */
+    enum { N = 4, D3 = 3 };
+    const double M[N] = {1.3075051478364073e-163, 0.03, 0.03, 0.03};
+    const double D[N * N] = {0, 10, 10, 10, 10, 0, 1e-5, 1e-5,
+                             10, 1e-5, 0, 1e-5, 10, 1e-5, 1e-5, 0};
+    const double w[N] = {8.9062438251681993e-164, 1.0 / 3.0, 1.0 / 3.0,
+                         1.0 / 3.0};
+    const double g[N * D3] = {0, 1e7, 10, 10, 10, 10, 10, 10, 10, 10, 5, 10};
+    const double c = 40.00001323223114; /* as found */
+    double out[N * D3], guard = 12345.678, s, a;
+    mcd_workspace *ws;
+    size_t i, d;
+    ck_assert_int_eq(mcd_workspace_alloc(N, &ws), MCD_OK);
+    for (i = 0; i < N * D3; i++)
+        out[i] = guard;
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, N, D3, M, D,
+                                      c, MCD_BASIS_MASS, w, g, NULL, NULL,
+                                      MCD_BASIS_MASS, out), MCD_EDOM);
+    ck_assert_ptr_nonnull(strstr(mcd_workspace_last_error(ws), "cancellation"));
+    for (i = 0; i < N * D3; i++)
+        ck_assert(out[i] == guard);
+    /* batched, one cell (SoA with K = 1 is the same memory order) */
+    ck_assert_int_eq(mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, N, 1, D3,
+                                        M, D, &c, MCD_BASIS_MASS, w, g, NULL,
+                                        MCD_BASIS_MASS, out), MCD_EDOM);
+    ck_assert_ptr_nonnull(strstr(mcd_workspace_last_error(ws), "cancellation"));
+    for (i = 0; i < N * D3; i++)
+        ck_assert(out[i] == guard);
+    /* molar fluxes of the same state: fine */
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, N, D3, M, D,
+                                      c, MCD_BASIS_MASS, w, g, NULL, NULL,
+                                      MCD_BASIS_MOLE, out), MCD_OK);
+    for (d = 0; d < D3; d++) {
+        s = a = 0.0;
+        for (i = 0; i < N; i++) {
+            s += out[i * D3 + d];
+            a += fabs(out[i * D3 + d]);
+        }
+        ck_assert(fabs(s) <= 1e-14 * a);
+    }
+    mcd_workspace_free(ws);
+}
+END_TEST
+
 int main(void)
 {
     Suite *s = suite_create("mcd:edge_cases");
@@ -566,6 +621,7 @@ int main(void)
     tcase_add_test(tc, edge_cases_tiny_concentration_near_trace_species);
     tcase_add_test(tc, edge_cases_trace_coupling_when_c_times_dij_underflows);
     tcase_add_test(tc, edge_cases_mixture_averaged_when_c_times_dij_underflows);
+    tcase_add_test(tc, edge_cases_mass_fluxes_lost_to_cancellation_are_an_error);
     suite_add_tcase(s, tc);
     SRunner *sr = srunner_create(s);
     srunner_run_all(sr, CK_ENV);
