@@ -180,6 +180,10 @@ static mcd_status check_cell(const mcdi_bjob *jb, size_t k, const char **what)
         if (!(jb->T[k] > 0.0)) { *what = "T: not > 0"; return MCD_EDOM; }
         if (!mcdi_finite(jb->P[k])) { *what = "P: not finite"; return MCD_EINVAL; }
         if (!(jb->P[k] > 0.0)) { *what = "P: not > 0"; return MCD_EDOM; }
+        if (!(jb->P[k] / (RGAS * jb->T[k]) >= DBL_MIN)) {
+            *what = "P / (R T): concentration not a normal positive number";
+            return MCD_EDOM;
+        }
     } else {
         if (!mcdi_finite(jb->c[k])) { *what = "c: not finite"; return MCD_EINVAL; }
         if (!(jb->c[k] >= DBL_MIN)) { *what = "c: not a normal positive number"; return MCD_EDOM; }
@@ -707,11 +711,12 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
             bad |= !((Tl[l] > 0.0) & (Tl[l] <= DBL_MAX));
             bad |= !((Pl[l] > 0.0) & (Pl[l] <= DBL_MAX));
             c[l] = Pl[l] / (RGAS * Tl[l]);
+            bad |= !(c[l] >= DBL_MIN); /* a normal c, as single-state */
         }
     } else {
         load_row(c, jb->c + k0, nv, L);
         LANES_BAD
-            bad |= !((c[l] > 0.0) & (c[l] <= DBL_MAX));
+            bad |= !((c[l] >= DBL_MIN) & (c[l] <= DBL_MAX)); /* normal c, as single-state */
     }
 
     /* ---- fractions ---- */

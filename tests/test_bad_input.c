@@ -1170,7 +1170,9 @@ static const bcase cases[] = {
         C(fn, "T 0", EDOM_, "cell", MDA(Tc, 0, 0.0)),                                      \
         C(fn, "T negative", EDOM_, "cell", MDA(Tc, 0, -300.0)),                            \
         C(fn, "P inf", EINVAL_, "cell", MDA(Pc, 0, INFINITY)),                             \
-        C(fn, "P 0", EDOM_, "cell", MDA(Pc, 0, 0.0))
+        C(fn, "P 0", EDOM_, "cell", MDA(Pc, 0, 0.0)),                                      \
+        C(fn, "P / (R T) subnormal", EDOM_, "concentration", MDA(Pc, 0, 1e-300),           \
+          MDA(Tc, 0, 1e10))
     BATCH_MIX(mcd_flux_batch),
     BATCH_MIX(mcd_flux_batch_aos),
     BATCH_COMMON(mcd_flux_batch_dij),
@@ -1185,6 +1187,9 @@ static const bcase cases[] = {
       MDA(D, 3, 1e-310)),
     C(mcd_flux_batch_dij, "Dij not symmetric", EDOM_, "cell", MDA(D, 1, 2.1e-5)),
     C(mcd_flux_batch_dij, "c 0", EDOM_, "cell", MDA(cc, 0, 0.0)),
+    /* a subnormal c is EDOM as in mcd_flux_compute (found by fuzz_flux:
+     * the batched check took c > 0 and the fluxes underflowed unevenly) */
+    C(mcd_flux_batch_dij, "c subnormal", EDOM_, "normal", MDA(cc, 0, 4.9e-324)),
     C(mcd_flux_batch_dij, "c NaN", EINVAL_, "cell", MDA(cc, 0, NAN)),
     C(mcd_flux_batch_dij, "mass comp without M", EINVAL_, "M", MI(basis, MCD_BASIS_MASS),
       MN(NB_M)),
