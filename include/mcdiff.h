@@ -537,7 +537,9 @@ typedef enum mcd_model {
  *  @param ws          workspace with capacity >= n_species.
  *  @param n_species   N, 1..capacity; @param n_dim 1..MCD_MAX_DIM.
  *  @param M           molar masses [kg/mol], length N (needed for the mass
- *                     basis and pressure diffusion; may be NULL otherwise).
+ *                     basis and pressure diffusion; may be NULL otherwise);
+ *                     largest / smallest <= 1e12 where needed (beyond, the
+ *                     basis conversions lose all precision: EDOM).
  *  @param Dij         binary diffusivities [m^2/s], N x N, symmetric
  *                     (relative difference <= 1e-12), off-diagonal normal
  *                     positive numbers (>= DBL_MIN; a subnormal one is
@@ -771,7 +773,8 @@ MCD_API mcd_status mcd_flux_diagnose(size_t n_species, size_t n_dim,
  *  @param n_cells     K, number of cells (0 is allowed and writes nothing).
  *  @param n_dim       1..MCD_MAX_DIM.
  *  @param T           temperatures [K], length K, each > 0.
- *  @param P           pressures [Pa], length K, each > 0.
+ *  @param P           pressures [Pa], length K, each > 0 (and c = P / (R T)
+ *                     a normal number, >= DBL_MIN).
  *  @param comp_basis  whether comp and grad hold mole or mass fractions.
  *  @param comp        fractions [-], N x K (comp[i*K + k]).
  *  @param grad        their gradients [1/m], (N n_dim) x K.
@@ -798,7 +801,8 @@ MCD_API mcd_status mcd_flux_batch(mcd_workspace *ws, const mcd_mixture *mix,
  *  @param n_species   N, 1..capacity of ws.
  *  @param M           molar masses [kg/mol], length N, shared by all cells;
  *                     needed for the mass basis and pressure diffusion, may
- *                     be NULL otherwise.
+ *                     be NULL otherwise; largest / smallest <= 1e12 (EDOM;
+ *                     the same holds for a mixture's molar masses).
  *  @param Dij         binary diffusivities [m^2/s], (N N) x K
  *                     (Dij[(i*N + j)*K + k]), each cell's matrix symmetric
  *                     (relative difference <= 1e-12), off-diagonal

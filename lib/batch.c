@@ -19,6 +19,7 @@
 #include "workspace.h"
 #include "mixture.h"
 #include "batch.h"
+#include "flux_core.h"
 
 /* Whether some pair of the mixture depends on T through a collision
  * integral (Chapman-Enskog, Wilke-Lee) rather than the exact power law:
@@ -220,6 +221,11 @@ MCD_API mcd_status mcd_flux_batch(mcd_workspace *ws, const mcd_mixture *mix,
     jb.P = P;
     jb.M = (comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
             grad_lnP != NULL) ? mix->M : NULL;
+    if (jb.M != NULL && !mcdi_M_span_ok(n, jb.M))
+        return mcdi_ws_fail(ws, MCD_EDOM,
+                            "argument mix: the molar masses span more than a "
+                            "factor 1e12 (the basis conversions would lose "
+                            "all precision)");
     jb.comp = comp;
     jb.grad = grad;
     jb.glnP = grad_lnP;
@@ -269,6 +275,11 @@ MCD_API mcd_status mcd_flux_batch_dij(mcd_workspace *ws, mcd_model model,
                 return mcdi_ws_fail(ws, MCD_EDOM,
                                     "argument M: entry %zu = %g is not > 0", i,
                                     M[i]);
+        if (!mcdi_M_span_ok(n_species, M))
+            return mcdi_ws_fail(ws, MCD_EDOM,
+                                "argument M: the molar masses span more than "
+                                "a factor 1e12 (the basis conversions would "
+                                "lose all precision)");
     }
     job_init(&jb, ws, model, n_species, n_cells, n_dim, comp_basis,
              flux_basis);
@@ -339,6 +350,11 @@ MCD_API mcd_status mcd_flux_batch_aos(mcd_workspace *ws,
     jb.P = sP;
     jb.M = (comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
             grad_lnP != NULL) ? mix->M : NULL;
+    if (jb.M != NULL && !mcdi_M_span_ok(n, jb.M))
+        return mcdi_ws_fail(ws, MCD_EDOM,
+                            "argument mix: the molar masses span more than a "
+                            "factor 1e12 (the basis conversions would lose "
+                            "all precision)");
     jb.comp = sc;
     jb.grad = sg;
     jb.glnP = grad_lnP != NULL ? sl : NULL;

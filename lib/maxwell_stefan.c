@@ -183,8 +183,14 @@ mcd_status mcdi_flux_check_M(mcd_workspace *ws, size_t n, const double *M)
                             "argument M: NULL but needed (mass basis or "
                             "pressure diffusion)");
     st = mcdi_comp_check_M(n, M);
-    if (st == MCD_OK)
-        return MCD_OK;
+    if (st == MCD_OK) {
+        if (mcdi_M_span_ok(n, M))
+            return MCD_OK;
+        return mcdi_ws_fail(ws, MCD_EDOM,
+                            "argument M: the molar masses span more than a "
+                            "factor 1e12 (the basis conversions would lose "
+                            "all precision)");
+    }
     for (i = 0; i < n; i++)
         if (!mcdi_finite(M[i]))
             return mcdi_ws_fail(ws, st, "argument M: entry %zu is not finite", i);
@@ -366,6 +372,17 @@ not_definite:
                         "Maxwell-Stefan matrix not positive definite at "
                         "pivot %zu (round-off; check Dij scale)",
                         (size_t)pos[bad - 1]);
+}
+
+int mcdi_M_span_ok(size_t n, const double *M)
+{
+    double lo = M[0], hi = M[0];
+    size_t i;
+    for (i = 1; i < n; i++) {
+        lo = M[i] < lo ? M[i] : lo;
+        hi = M[i] > hi ? M[i] : hi;
+    }
+    return hi <= MCDI_M_SPAN * lo;
 }
 
 /* Whether the mass fluxes F (n x nd) still sum to zero after the

@@ -985,7 +985,9 @@ static const bcase cases[] = {
         C(fn, "comp basis 7", EINVAL_, NULL, MI(basis, 7)),                               \
         C(fn, "mass comp without M", EINVAL_, "M", MI(basis, MCD_BASIS_MASS), MN(NB_M)),   \
         C(fn, "M NaN (mass comp)", EINVAL_, "M", MI(basis, MCD_BASIS_MASS), MDA(M, 1, NAN)), \
-        C(fn, "M 0 (mass comp)", EDOM_, "M", MI(basis, MCD_BASIS_MASS), MDA(M, 2, 0.0))
+        C(fn, "M 0 (mass comp)", EDOM_, "M", MI(basis, MCD_BASIS_MASS), MDA(M, 2, 0.0)),   \
+        C(fn, "M span > 1e12 (mass comp)", EDOM_, "span", MI(basis, MCD_BASIS_MASS),        \
+          MDA(M, 2, 1e-20))
     FLUX_COMMON(mcd_flux_compute),
     /* a positive subnormal Đ is outside the domain (>= DBL_MIN): 1/Đ
      * overflows; EDOM naming it, also for a pure component, where the
@@ -1193,6 +1195,8 @@ static const bcase cases[] = {
     C(mcd_flux_batch_dij, "c NaN", EINVAL_, "cell", MDA(cc, 0, NAN)),
     C(mcd_flux_batch_dij, "mass comp without M", EINVAL_, "M", MI(basis, MCD_BASIS_MASS),
       MN(NB_M)),
+    C(mcd_flux_batch_dij, "M span > 1e12 (mass comp)", EDOM_, "span",
+      MI(basis, MCD_BASIS_MASS), MDA(M, 2, 1e-20)),
     B(mcd_workspace_set_iterative, MCD_OK),
     C(mcd_workspace_set_iterative, "ws NULL", EINVAL_, NULL, MN(NB_WS)),
     C(mcd_workspace_set_iterative, "max_iter 0", EINVAL_, "max_iter", MZ(max_iter, 0)),
