@@ -378,11 +378,6 @@ KINLINE int ldl_solve_v(const size_t n, const size_t nd, mcdi_vd *restrict A,
     return 1;
 }
 
-/* Molar fluxes of a full block from the solution U of the scaled system:
- * J_i = c (s_i U_i + t_i - x_i sum_t t_t), then the zero-sum clean-up
- * J_i -= x_i sum_k J_k, written to out[e * K + l] (e = i * nd + dd) in the
- * same pass. J: scratch for one direction's fluxes. Returns 0 (nothing
- * written, J holds all fluxes) if some flux is not finite. */
 #if MCDI_CAN_STREAM
 /* Streaming stores of one full block (batch.h). Row e starts o_e doubles
  * into a 64-byte line (o_e is the same for every block of the row). With
@@ -449,6 +444,12 @@ KINLINE void stream_rows(size_t rows, const mcdi_vd *restrict J, double *outb,
 }
 #endif
 
+/* Molar fluxes of a full block from the solution U of the scaled system:
+ * J_i = c (s_i U_i + t_i - x_i sum_t t_t), then the zero-sum clean-up
+ * J_i -= x_i sum_k J_k, written to out[e * K + l] (e = i * nd + dd) in the
+ * same pass (with `stream`, by stream_rows). J: scratch for one
+ * direction's fluxes. Returns 0 (nothing written, J holds all fluxes) if
+ * some flux is not finite. */
 KINLINE int emit_mole_v(const size_t n, const size_t nd,
                         const mcdi_vd *restrict s, const mcdi_vd *restrict x,
                         const mcdi_vd *restrict U, const mcdi_vd *restrict t,
