@@ -78,6 +78,21 @@ static double now_s(void)
     return (double)ts.tv_sec + 1e-9 * (double)ts.tv_nsec;
 }
 
+/* The caller's side of (b) and (b0) for cell k: Đ = coef T^1.75 / P and
+ * the cell's fractions and gradients gathered from the SoA arrays. */
+static void caller_gather(size_t n, size_t K, size_t k, const double *T,
+                          const double *P, const double *coef, const double *x,
+                          const double *g, double *Dc, double *xs, double *gs)
+{
+    const double f = pow(T[k], 1.75) / P[k];
+    for (size_t i = 0; i < n * n; i++)
+        Dc[i] = coef[i] * f;
+    for (size_t i = 0; i < n; i++)
+        xs[i] = x[i * K + k];
+    for (size_t i = 0; i < n * ND; i++)
+        gs[i] = g[i * K + k];
+}
+
 /* (b0): an empty callee the compiler cannot see through */
 static void empty_call(const double *a, const double *b, const double *c)
 {
@@ -356,13 +371,7 @@ static int run(mcd_db *db, size_t n, double scale)
         t0 = now_s();
         for (size_t k = 0; k < K; k++) {
             double xs[128], gs[128 * ND];
-            const double f = pow(T[k], 1.75) / P[k];
-            for (size_t i = 0; i < n * n; i++)
-                Dc[i] = coef[i] * f;
-            for (size_t i = 0; i < n; i++)
-                xs[i] = x[i * K + k];
-            for (size_t i = 0; i < n * ND; i++)
-                gs[i] = g[i * K + k];
+            caller_gather(n, K, k, T, P, coef, x, g, Dc, xs, gs);
             if (mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, n, ND, NULL, Dc,
                                  P[k] / (MCD_GAS_CONSTANT * T[k]),
                                  MCD_BASIS_MOLE, xs, gs, NULL, NULL,
@@ -375,13 +384,7 @@ static int run(mcd_db *db, size_t n, double scale)
         t0 = now_s();
         for (size_t k = 0; k < K; k++) {
             double xs[128], gs[128 * ND];
-            const double f = pow(T[k], 1.75) / P[k];
-            for (size_t i = 0; i < n * n; i++)
-                Dc[i] = coef[i] * f;
-            for (size_t i = 0; i < n; i++)
-                xs[i] = x[i * K + k];
-            for (size_t i = 0; i < n * ND; i++)
-                gs[i] = g[i * K + k];
+            caller_gather(n, K, k, T, P, coef, x, g, Dc, xs, gs);
             empty_fn(Dc, xs, gs);
         }
         t0b[r] = now_s() - t0;

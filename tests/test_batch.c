@@ -114,6 +114,22 @@ static void cells_make(cells *s, size_t n, size_t K, size_t nd)
     }
 }
 
+/* The same cells as arrays of structures (cell after cell) for
+ * mcd_flux_batch_aos; al (the ln P gradients) may be NULL. */
+static void cells_to_aos(const cells *s, double *ac, double *ag, double *al)
+{
+    size_t n = s->n, K = s->K, nd = s->nd, i, k;
+    for (k = 0; k < K; k++) {
+        for (i = 0; i < n; i++)
+            ac[k * n + i] = s->comp[i * K + k];
+        for (i = 0; i < n * nd; i++)
+            ag[k * n * nd + i] = s->grad[i * K + k];
+        if (al != NULL)
+            for (i = 0; i < nd; i++)
+                al[k * nd + i] = s->glnP[i * K + k];
+    }
+}
+
 /* Gather cell k into single-state arrays. */
 static void cell_get(const cells *s, size_t k, double *D, double *y,
                      double *g, double *gl)
@@ -268,15 +284,7 @@ START_TEST(batch_mixture_matches_single_state_calls)
             }
         ck_assert_int_eq(mcd_mixture_molar_masses(m, Mm), MCD_OK);
         cells_make(&s, n, K, nd);
-        /* AoS copies */
-        for (k = 0; k < K; k++) {
-            for (i = 0; i < n; i++)
-                ac[k * n + i] = s.comp[i * K + k];
-            for (i = 0; i < n * nd; i++)
-                ag[k * n * nd + i] = s.grad[i * K + k];
-            for (i = 0; i < nd; i++)
-                al[k * nd + i] = s.glnP[i * K + k];
-        }
+        cells_to_aos(&s, ac, ag, al);
         for (pass = 0; pass < 12; pass++) {
             mcd_model model = (mcd_model)(pass % 3);
             mcd_basis cb = (pass / 3) % 2 ? MCD_BASIS_MASS : MCD_BASIS_MOLE;
@@ -602,12 +610,7 @@ START_TEST(batch_outputs_at_every_line_offset_match_the_aos_path)
             unsigned off;
             ck_assert_ptr_nonnull(buf);
             cells_make(&s, n, K, nd);
-            for (k = 0; k < K; k++) {
-                for (i = 0; i < n; i++)
-                    ac[k * n + i] = s.comp[i * K + k];
-                for (i = 0; i < n * nd; i++)
-                    ag[k * n * nd + i] = s.grad[i * K + k];
-            }
+            cells_to_aos(&s, ac, ag, NULL);
             for (model = 0; model < 2; model++) {
                 const mcd_model md = model ? MCD_MODEL_ITERATIVE
                                            : MCD_MODEL_MAXWELL_STEFAN;
