@@ -27,7 +27,12 @@
 #             FUZZ_SECONDS (default 20) or FUZZ_RUNS (default 2000000)
 #             executions, whichever comes first, from a temporary copy of
 #             tests/fuzz/corpus/<harness>/ (the repository is not changed).
-# Environment: ROBUST_STAGES="asan valgrind tsan openmp fuzz" selects stages;
+#   matrix    the plain build's whole `meson test` (less the install suite)
+#             under other kernel instruction-set caps and with Debian's
+#             OpenBLAS instead of the reference BLAS (tools/test-matrix.sh;
+#             OpenBLAS is fetched with apt-get download and unpacked into a
+#             temporary folder, never installed).
+# Environment: ROBUST_STAGES="asan valgrind tsan openmp matrix fuzz" selects stages;
 # FUZZ_SECONDS, FUZZ_RUNS as above; JOBS (default 2) for ninja;
 # ROBUST_PREFIX (default "build-": build-asan, build-tsan, build-fuzz,
 # build-robust-logs) and ROBUST_PLAIN (default "build") place the build
@@ -35,7 +40,7 @@
 set -u
 cd "$(dirname "$0")/.." || exit 1
 
-STAGES=${ROBUST_STAGES:-"asan valgrind tsan openmp fuzz"}
+STAGES=${ROBUST_STAGES:-"asan valgrind tsan openmp matrix fuzz"}
 FUZZ_SECONDS=${FUZZ_SECONDS:-20}
 FUZZ_RUNS=${FUZZ_RUNS:-2000000}
 JOBS=${JOBS:-2}
@@ -54,8 +59,14 @@ export OPENBLAS_NUM_THREADS=1
 export MCD_TEST_DATA="$PWD/tests/data"
 NO_EXTRAS=(-Dpython=disabled -Dmpi=disabled)
 
-ok() { echo "robustness: $1 ok${2:+ ($2)}"; passed=$((passed + 1)); }
-fail() { echo "robustness: $1 FAIL ($2)"; failed=$((failed + 1)); }
+# Each stage's line ends with its wall time, [N s] (STAGE_T0 is set before
+# each stage runs).
+STAGE_T0=$SECONDS
+took() { echo "[$((SECONDS - STAGE_T0)) s]"; }
+ok() { echo "robustness: $1 ok${2:+ ($2)} $(took)"; passed=$((passed + 1)); }
+fail() { echo "robustness: $1 FAIL ($2) $(took)"; failed=$((failed + 1)); }
+skipped=0
+skip() { echo "robustness: $1 skipped ($2) $(took)"; skipped=$((skipped + 1)); }
 
 stage_asan() {
     local log=$LOGDIR/asan.log
@@ -167,10 +178,62 @@ stage_openmp() {
     fi
 }
 
+# The whole suite again under other instruction-set caps and another BLAS
+# (tools/test-matrix.sh): reference BLAS with the baseline kernels (no FMA,
+# 2 lanes), and Debian's OpenBLAS (unpacked here, not installed, so the
+# system's BLAS choice is untouched) with the AVX2 kernels and OpenBLAS's
+# own core detection, and with the native kernels and OPENBLAS_CORETYPE as
+# the environment has it.
+stage_matrix() {
+    local log=$LOGDIR/matrix.log ob deb libdir
+    if [ ! -f "$PLAIN/build.ninja" ]; then
+        meson setup "$PLAIN" >"$log" 2>&1 || { fail matrix "meson setup, see $log"; return; }
+    fi
+    ninja -j"$JOBS" -C "$PLAIN" >>"$log" 2>&1 || { fail matrix "build, see $log"; return; }
+    ob=$(mktemp -d)
+    if (cd "$ob" && apt-get download libopenblas0-pthread) >>"$log" 2>&1 \
+            && deb=$(ls "$ob"/libopenblas0-pthread_*.deb 2>/dev/null) \
+            && dpkg -x "$deb" "$ob/root" >>"$log" 2>&1; then
+        libdir=$(dirname "$(find "$ob/root" -path '*openblas-pthread/libblas.so.3' | head -1)")
+    fi
+    if [ -z "${libdir:-}" ] || [ "$libdir" = . ]; then
+        rm -rf "$ob"
+        skip matrix "could not unpack Debian's libopenblas0-pthread (apt-get download), see $log"
+        return
+    fi
+    if (unset OPENBLAS_NUM_THREADS; tools/test-matrix.sh "$PLAIN" v1:reference:keep \
+            "v3:$libdir:unset" "native:$libdir:keep") >>"$log" 2>&1; then
+        ok matrix "$(grep -c '^matrix: .* ok' "$log") runs: $(grep -E '^matrix: ' "$log" | cut -d' ' -f2 | sed "s|$libdir|openblas|" | tr '\n' ' ')"
+    else
+        fail matrix "$(grep -E '^matrix: .* FAIL' "$log" | cut -d' ' -f2 | sed "s|$libdir|openblas|" | tr '\n' ' ')see $log"
+    fi
+    rm -rf "$ob"
+}
+
+probe_fuzzer_link() {
+    local d rc
+    d=$(mktemp -d)
+    printf '%s\n' 'int LLVMFuzzerTestOneInput(const unsigned char *d, unsigned long n);' \
+        'int LLVMFuzzerTestOneInput(const unsigned char *d, unsigned long n) { return (int)(d && n > 7u) & 0; }' \
+        >"$d/probe.c"
+    clang -fsanitize=fuzzer "$d/probe.c" -o "$d/probe"
+    rc=$?
+    rm -rf "$d"
+    return $rc
+}
+
 stage_fuzz() {
     local log=$LOGDIR/fuzz.log h corpus summary="" bad=0 execs fz
     if ! command -v clang >/dev/null; then
         fail fuzz "clang not installed"; return
+    fi
+    # clang links -fsanitize=fuzzer against its own versioned runtime
+    # (Debian: libclang-rt-<major>-dev, which .ci/run picks for the
+    # installed clang). Without it the stage cannot run at all: say so and
+    # which package is missing, instead of failing on a build error.
+    if ! probe_fuzzer_link >"$log" 2>&1; then
+        skip fuzz "clang $(clang -dumpversion 2>/dev/null) cannot link -fsanitize=fuzzer: install libclang-rt-$(clang -dumpversion 2>/dev/null | cut -d. -f1)-dev, see $log"
+        return
     fi
     rm -rf "${PFX}fuzz"
     if ! CC=clang meson setup "${PFX}fuzz" -Dfuzz=true -Dtests=disabled -Dcli=false \
@@ -210,14 +273,20 @@ stage_fuzz() {
 }
 
 for s in $STAGES; do
+    STAGE_T0=$SECONDS
     case $s in
     asan) stage_asan ;;
     valgrind) stage_valgrind ;;
     tsan) stage_tsan ;;
     openmp) stage_openmp ;;
     fuzz) stage_fuzz ;;
+    matrix) stage_matrix ;;
     *) fail "$s" "unknown stage" ;;
     esac
 done
-echo "robustness: $passed passed, $failed failed"
+if [ "$skipped" -gt 0 ]; then
+    echo "robustness: $passed passed, $failed failed, $skipped skipped"
+else
+    echo "robustness: $passed passed, $failed failed"
+fi
 [ "$failed" -eq 0 ]
