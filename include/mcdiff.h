@@ -966,7 +966,9 @@ typedef enum mcd_film_method {
  *  absent at z = 0 and z_species = 0, rate factor |N_t| L/(c Đ) beyond
  *  1e4), ESING (singular matrix), ENOCONV (no convergence, e.g. RATIOS
  *  with z_species between the two end values, where no flux reproduces
- *  xL; the workspace message gives the last residual) | Allocates: no
+ *  xL, or RATIOS where the only N_t that reproduce xL lie far from the
+ *  linearized estimate and give mole fractions outside [0, 1] inside the
+ *  film; the workspace message gives the last residual) | Allocates: no
  *  | Threads: one ws per thread */
 MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n,
                                   const double *Dij, double c, double L,
