@@ -941,8 +941,9 @@ typedef enum mcd_film_method {
  *  @param ws       workspace with capacity >= n.
  *  @param n        number of species N, 2..capacity.
  *  @param Dij      binary diffusivities [m^2/s], N x N row-major, symmetric
- *                  (relative difference <= 1e-12), off-diagonal > 0,
- *                  diagonal ignored.
+ *                  (relative difference <= 1e-12), off-diagonal normal
+ *                  positive numbers (>= DBL_MIN; a subnormal one is EDOM,
+ *                  as in the flux calls), diagonal ignored.
  *  @param c        total molar concentration [mol/m^3], > 0.
  *  @param L        film thickness or tube length [m], > 0.
  *  @param x0       mole fractions at z = 0, length N, validated as by

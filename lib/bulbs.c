@@ -51,6 +51,7 @@
 #include "mcd_internal.h"
 #include "workspace.h"
 #include "film.h"
+#include "flux_core.h"
 
 #define BULBS_MAX_STEPS 200000
 
@@ -81,7 +82,7 @@ static mcd_status bulbs_check(mcd_workspace *ws, size_t n, const double *Dij,
         return mcdi_ws_fail(ws, MCD_EBADLEN,
                             "n = %zu exceeds the workspace capacity %zu", n,
                             ws->cap);
-    if ((st = mcdi_tf_check_dij(ws, n, Dij)) != MCD_OK ||
+    if ((st = mcdi_flux_check_dij(ws, n, Dij)) != MCD_OK ||
         (st = mcdi_tf_check_pos(ws, c, "c")) != MCD_OK ||
         (st = mcdi_tf_check_pos(ws, V1, "V1")) != MCD_OK ||
         (st = mcdi_tf_check_pos(ws, V2, "V2")) != MCD_OK ||

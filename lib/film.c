@@ -78,6 +78,7 @@
 #include "workspace.h"
 #include "composition.h"
 #include "film.h"
+#include "flux_core.h"
 
 _Static_assert(sizeof(lapack_int) == sizeof(int),
                "workspace pivots are int; lapack_int must match");
@@ -100,31 +101,6 @@ mcd_status mcdi_tf_check_pos(mcd_workspace *ws, double v, const char *name)
     if (!(v > 0))
         return mcdi_ws_fail(ws, MCD_EDOM, "argument %s: %g is not > 0", name,
                             v);
-    return MCD_OK;
-}
-
-mcd_status mcdi_tf_check_dij(mcd_workspace *ws, size_t n, const double *Dij)
-{
-    size_t i, j;
-    if (Dij == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument Dij is NULL");
-    for (i = 0; i < n; i++)
-        for (j = 0; j < n; j++)
-            if (i != j && !mcdi_finite(Dij[i * n + j]))
-                return mcdi_ws_fail(ws, MCD_EINVAL,
-                                    "Dij[%zu][%zu] is not finite", i, j);
-    for (i = 0; i < n; i++) {
-        for (j = i + 1; j < n; j++) {
-            double a = Dij[i * n + j], b = Dij[j * n + i];
-            if (!(a > 0) || !(b > 0))
-                return mcdi_ws_fail(ws, MCD_EDOM,
-                                    "Dij[%zu][%zu] is not > 0", i, j);
-            if (!(fabs(a - b) <= 1e-12 * fmax(a, b)))
-                return mcdi_ws_fail(ws, MCD_EDOM,
-                                    "Dij is not symmetric at (%zu,%zu)", i,
-                                    j);
-        }
-    }
     return MCD_OK;
 }
 
@@ -782,7 +758,7 @@ MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n,
     if (method != MCD_FILM_EXACT && method != MCD_FILM_LINEARIZED)
         return mcdi_ws_fail(ws, MCD_EINVAL, "unknown film method %d",
                             (int)method);
-    if ((st = mcdi_tf_check_dij(ws, n, Dij)) != MCD_OK ||
+    if ((st = mcdi_flux_check_dij(ws, n, Dij)) != MCD_OK ||
         (st = mcdi_tf_check_pos(ws, c, "c")) != MCD_OK ||
         (st = mcdi_tf_check_pos(ws, L, "L")) != MCD_OK)
         return st;
@@ -863,7 +839,7 @@ MCD_API mcd_status mcd_film_profile(mcd_workspace *ws, size_t n,
     st = check_ws_n(ws, n);
     if (st != MCD_OK)
         return st;
-    if ((st = mcdi_tf_check_dij(ws, n, Dij)) != MCD_OK ||
+    if ((st = mcdi_flux_check_dij(ws, n, Dij)) != MCD_OK ||
         (st = mcdi_tf_check_pos(ws, c, "c")) != MCD_OK ||
         (st = mcdi_tf_check_pos(ws, L, "L")) != MCD_OK)
         return st;

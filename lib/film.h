@@ -7,9 +7,9 @@
 #include <stddef.h>
 #include "mcdiff.h"
 
-/* Validate a binary-diffusivity matrix: Dij != NULL, off-diagonal entries
- * finite (EINVAL), > 0 (EDOM), symmetric to 1e-12 relative (EDOM). */
-mcd_status mcdi_tf_check_dij(mcd_workspace *ws, size_t n, const double *Dij);
+/* Binary-diffusivity matrices are checked by the flux core's
+ * mcdi_flux_check_dij (flux_core.h), the same rules and messages as the
+ * flux calls. */
 
 /* Validate a scalar: finite (EINVAL) and > 0 (EDOM). */
 mcd_status mcdi_tf_check_pos(mcd_workspace *ws, double v, const char *name);

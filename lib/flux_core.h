@@ -17,7 +17,9 @@
 /* ---- validators (message into ws) ------------------------------------ */
 
 /* Binary diffusivities: off-diagonal entries finite (EINVAL), > 0 (EDOM),
- * symmetric to MCDI_DIJ_SYM_TOL relative (EDOM). Diagonal ignored. */
+ * not subnormal (>= DBL_MIN, EDOM), symmetric to MCDI_DIJ_SYM_TOL relative
+ * (EDOM). Diagonal ignored. The one Dij check of the library: the
+ * transfer layer (film.c, bulbs.c) uses it too. */
 mcd_status mcdi_flux_check_dij(mcd_workspace *ws, size_t n, const double *Dij);
 
 /* Fractions as mcd_comp_normalize (uses mcdi_comp_check). `name` is the
