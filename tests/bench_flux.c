@@ -57,19 +57,13 @@
 #endif
 
 #include "mcdiff.h"
+#define SUP_NO_CHECK /* no Check here */
+#include "support.h"
 
 #define REPS 5
 #define ND 3
 
-static uint64_t rng_state = 0x5EEDull;
-static uint64_t rng_next(void)
-{
-    uint64_t z = (rng_state += 0x9E3779B97F4A7C15ull);
-    z = (z ^ (z >> 30)) * 0xBF58476D1CE4E5B9ull;
-    z = (z ^ (z >> 27)) * 0x94D049BB133111EBull;
-    return z ^ (z >> 31);
-}
-static double rng_u01(void) { return (double)(rng_next() >> 11) * 0x1.0p-53; }
+static sup_rng rng = SUP_RNG(SUP_SPLITMIX64, 0x5EEDull);
 
 static double now_s(void)
 {
@@ -276,8 +270,8 @@ static void dgemm_reference(void)
     b = malloc(sizeof(double) * n * n);
     c = malloc(sizeof(double) * n * n);
     for (int i = 0; i < n * n; i++) {
-        a[i] = rng_u01();
-        b[i] = rng_u01();
+        a[i] = sup_u01(&rng);
+        b[i] = sup_u01(&rng);
         c[i] = 0.0;
     }
     dg("N", "N", &n, &n, &n, &one, a, &n, b, &n, &zero, c, &n); /* warm up */
@@ -338,10 +332,10 @@ static int run(mcd_db *db, size_t n, double scale)
     mcd_mixture_binaries(mix, 1.0, 1.0, coef, NULL, NULL);
     for (size_t k = 0; k < K; k++) {
         double s = 0.0;
-        T[k] = 300.0 + 900.0 * rng_u01();
-        P[k] = 5e4 + 4.5e5 * rng_u01();
+        T[k] = 300.0 + 900.0 * sup_u01(&rng);
+        P[k] = 5e4 + 4.5e5 * sup_u01(&rng);
         for (size_t i = 0; i < n; i++) {
-            x[i * K + k] = 0.02 + rng_u01();
+            x[i * K + k] = 0.02 + sup_u01(&rng);
             s += x[i * K + k];
         }
         for (size_t i = 0; i < n; i++)
@@ -349,7 +343,7 @@ static int run(mcd_db *db, size_t n, double scale)
         for (size_t d = 0; d < ND; d++) {
             double m = 0.0;
             for (size_t i = 0; i < n; i++) {
-                g[(i * ND + d) * K + k] = 2.0 * rng_u01() - 1.0;
+                g[(i * ND + d) * K + k] = 2.0 * sup_u01(&rng) - 1.0;
                 m += g[(i * ND + d) * K + k];
             }
             for (size_t i = 0; i < n; i++)

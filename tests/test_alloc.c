@@ -2,11 +2,11 @@
  * flux layer (and the single-state flux call it is compared with).
  *
  * On glibc the executable interposes malloc, calloc, realloc and
- * posix_memalign (forwarding to the __libc_* entry points, as
- * test_flux_identities does) and counts calls made inside a window. A
- * direct malloc inside the window proves the hook is live (under valgrind
- * or AddressSanitizer it is not, and the test then only checks that the
- * calls succeed). A warm-up pass runs first so that one-time
+ * posix_memalign (forwarding to the __libc_* entry points: SUP_ALLOC_HOOK
+ * in support.h, shared with test_flux_identities) and counts calls made
+ * inside a window. A direct malloc inside the window proves the hook is
+ * live (under AddressSanitizer it is not, and the test then only checks
+ * that the calls succeed). A warm-up pass runs first so that one-time
  * initialisation of the BLAS is not counted. Common practice for such
  * checks; no outside data.
  */
@@ -17,51 +17,8 @@
 
 #include "mcdiff.h"
 
-#if defined(__GLIBC__) && !defined(__SANITIZE_ADDRESS__)
-#define HAVE_ALLOC_HOOK 1
-extern void *__libc_malloc(size_t size);
-extern void *__libc_calloc(size_t n, size_t size);
-extern void *__libc_realloc(void *p, size_t size);
-extern void *__libc_memalign(size_t align, size_t size);
-extern void __libc_free(void *p);
-int posix_memalign(void **out, size_t align, size_t size);
-static volatile int alloc_window;
-static volatile long alloc_count;
-void *malloc(size_t size)
-{
-    if (alloc_window)
-        alloc_count++;
-    return __libc_malloc(size);
-}
-void *calloc(size_t n, size_t size)
-{
-    if (alloc_window)
-        alloc_count++;
-    return __libc_calloc(n, size);
-}
-void *realloc(void *p, size_t size)
-{
-    if (alloc_window)
-        alloc_count++;
-    return __libc_realloc(p, size);
-}
-int posix_memalign(void **out, size_t align, size_t size)
-{
-    void *p;
-    if (alloc_window)
-        alloc_count++;
-    p = __libc_memalign(align, size);
-    if (p == NULL)
-        return 12; /* ENOMEM */
-    *out = p;
-    return 0;
-}
-void free(void *p) { __libc_free(p); }
-#else
-#define HAVE_ALLOC_HOOK 0
-static volatile int alloc_window;
-static volatile long alloc_count;
-#endif
+#define SUP_ALLOC_HOOK /* this program counts allocations */
+#include "support.h"
 
 #define KC 11
 #define ND 3
@@ -80,7 +37,6 @@ START_TEST(alloc_batched_calls_do_not_allocate)
                             "methane", "argon"};
     int st[64], ns = 0, pass, live;
     size_t n, i, j, k;
-    void *probe;
     double est, e2;
     size_t used;
 
@@ -99,10 +55,8 @@ START_TEST(alloc_batched_calls_do_not_allocate)
 
     for (pass = 0; pass < 2; pass++) { /* pass 0 warms up the BLAS */
         ns = 0;
-        if (pass == 1) {
-            alloc_count = 0;
-            alloc_window = 1;
-        }
+        if (pass == 1)
+            sup_alloc_open();
         for (n = 6; n <= NBIG; n += NBIG - 6) {
             for (k = 0; k < KC; k++) {
                 for (i = 0; i < n; i++) {
@@ -147,17 +101,14 @@ START_TEST(alloc_batched_calls_do_not_allocate)
             ck_assert_msg(st[i] == MCD_OK, "call %zu: %d (%s)", i, st[i],
                           mcd_workspace_last_error(ws));
     }
-    probe = malloc(16);
-    live = alloc_count > 0;
-    alloc_window = 0;
-    free(probe);
+    live = sup_alloc_close();
     for (i = 0; i < (size_t)ns; i++)
         ck_assert_int_eq(st[i], MCD_OK);
     fprintf(stderr, "allocation hook %s; allocations in the window: %ld "
                     "(the probe included) over %d calls\n",
-            (HAVE_ALLOC_HOOK && live) ? "live" : "not live", (long)alloc_count, ns);
-    if (HAVE_ALLOC_HOOK && live)
-        ck_assert_int_eq(alloc_count, 1); /* the probe only */
+            live ? "live" : "not live", (long)sup_alloc_count, ns);
+    if (live)
+        ck_assert_int_eq(sup_alloc_count, 1); /* the probe only */
     mcd_workspace_free(ws);
     mcd_mixture_free(mix);
     mcd_db_free(db);
@@ -168,14 +119,8 @@ int main(void)
 {
     Suite *s = suite_create("mcd:alloc");
     TCase *tc = tcase_create("alloc");
-    SRunner *sr;
-    int failed;
     tcase_set_timeout(tc, 120);
     tcase_add_test(tc, alloc_batched_calls_do_not_allocate);
     suite_add_tcase(s, tc);
-    sr = srunner_create(s);
-    srunner_run_all(sr, CK_ENV);
-    failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+    return sup_run(s);
 }

@@ -41,9 +41,9 @@
 #include <unistd.h>
 
 #include "mcdiff.h"
+#include "support.h"
 
 #define NA 8          /* room in every input array (n = 3 in the fixture) */
-#define GUARD 12345.678
 #define PROBE ((size_t)-2)  /* index placeholder: the probe species */
 #define PROBE2 ((size_t)-3) /* index placeholder: the light probe species */
 
@@ -1425,7 +1425,7 @@ static void ctx_init(ctx *c)
      * in-out array of mcd_flux_project) */
     memset(&c->o, 0x5A, sizeof c->o);
     for (size_t a = 0; a < NA * NA; a++)
-        c->o.o1[a] = c->o.o2[a] = c->o.o3[a] = GUARD;
+        c->o.o1[a] = c->o.o2[a] = c->o.o3[a] = SUP_GUARD;
     memset(c->errbuf, 'Z', sizeof c->errbuf);
 }
 
@@ -1771,9 +1771,5 @@ int main(void)
     tcase_add_test(tc, bad_input_table_covers_every_public_function);
     tcase_add_test(tc, bad_input_library_imports_no_abort_exit_print);
     suite_add_tcase(s, tc);
-    SRunner *sr = srunner_create(s);
-    srunner_run_all(sr, CK_ENV);
-    int failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed ? EXIT_FAILURE : EXIT_SUCCESS;
+    return sup_run(s);
 }

@@ -24,20 +24,9 @@
 #include <string.h>
 
 #include "mcdiff.h"
+#include "support.h"
 
-#define GUARD 12345.678
-
-static uint64_t rng_s;
-static void rng_seed(uint64_t s) { rng_s = s; }
-static uint64_t rng_next(void)
-{
-    uint64_t z = (rng_s += 0x9E3779B97F4A7C15ull);
-    z = (z ^ (z >> 30)) * 0xBF58476D1CE4E5B9ull;
-    z = (z ^ (z >> 27)) * 0x94D049BB133111EBull;
-    return z ^ (z >> 31);
-}
-static double rng_u01(void) { return (double)(rng_next() >> 11) * 0x1.0p-53; }
-static double rng_range(double a, double b) { return a + (b - a) * rng_u01(); }
+static sup_rng rng = SUP_RNG(SUP_SPLITMIX64, 0);
 
 /* SoA arrays of K cells of N species. */
 typedef struct cells {
@@ -63,13 +52,13 @@ static void cells_free(cells *s)
 static void random_fracs(double *y, size_t n, size_t K, size_t k, int kind)
 {
     double s = 0.0;
-    size_t i, p = (size_t)(rng_next() % n);
+    size_t i, p = (size_t)(sup_next(&rng) % n);
     for (i = 0; i < n; i++) {
         double v;
         switch (kind) {
-        case 0: v = rng_range(0.01, 1.0); break;
-        case 1: v = pow(10.0, rng_range(-8.0, 0.0)); break;
-        case 2: v = (rng_next() % 3 == 0 && i != p) ? 0.0 : rng_u01() + 1e-3; break;
+        case 0: v = sup_range(&rng, 0.01, 1.0); break;
+        case 1: v = sup_decades(&rng, -8.0, 0.0); break;
+        case 2: v = (sup_next(&rng) % 3 == 0 && i != p) ? 0.0 : sup_u01(&rng) + 1e-3; break;
         default: v = i == p ? 1.0 : 0.0; break;
         }
         y[i * K + k] = v;
@@ -92,24 +81,24 @@ static void cells_make(cells *s, size_t n, size_t K, size_t nd)
     s->T = xmalloc(K * sizeof(double));
     s->P = xmalloc(K * sizeof(double));
     for (i = 0; i < n; i++)
-        s->M[i] = 2e-3 * exp(rng_u01() * log(0.35 / 2e-3));
+        s->M[i] = sup_molar_mass(&rng);
     for (k = 0; k < K; k++) {
-        int kind = (int)(rng_next() % 4);
-        if (kind == 3 && rng_next() % 3 != 0)
+        int kind = (int)(sup_next(&rng) % 4);
+        if (kind == 3 && sup_next(&rng) % 3 != 0)
             kind = 2; /* pure components less often */
-        s->c[k] = pow(10.0, rng_range(-1.0, 4.0));
-        s->T[k] = rng_range(250.0, 1500.0);
-        s->P[k] = rng_range(2e4, 5e5);
+        s->c[k] = sup_decades(&rng, -1.0, 4.0);
+        s->T[k] = sup_range(&rng, 250.0, 1500.0);
+        s->P[k] = sup_range(&rng, 2e4, 5e5);
         random_fracs(s->comp, n, K, k, kind);
         for (i = 0; i < n * nd; i++)
-            s->grad[i * K + k] = rng_range(-1.0, 1.0);
+            s->grad[i * K + k] = sup_range(&rng, -1.0, 1.0);
         for (i = 0; i < nd; i++)
-            s->glnP[i * K + k] = rng_range(-2.0, 2.0);
+            s->glnP[i * K + k] = sup_range(&rng, -2.0, 2.0);
         for (i = 0; i < n; i++) {
             s->D[(i * n + i) * K + k] = 0.0;
             for (j = i + 1; j < n; j++)
                 s->D[(i * n + j) * K + k] = s->D[(j * n + i) * K + k] =
-                    5e-6 * pow(20.0, rng_u01());
+                    5e-6 * pow(20.0, sup_u01(&rng));
         }
     }
 }
@@ -168,7 +157,7 @@ START_TEST(batch_dij_matches_single_state_calls)
     static const size_t Ks[] = {0, 1, 7, 8, 9, 37};
     size_t ni, n, K, k, cfg;
     mcd_workspace *ws;
-    rng_seed(0xBA7C4001ull + (uint64_t)_i);
+    sup_seed(&rng, 0xBA7C4001ull + (uint64_t)_i);
     ck_assert_int_eq(mcd_workspace_alloc(100, &ws), MCD_OK);
     for (ni = (size_t)_i; ni < sizeof Ns / sizeof Ns[0]; ni += 4) {
         n = Ns[ni];
@@ -187,8 +176,7 @@ START_TEST(batch_dij_matches_single_state_calls)
                 K = 9; /* keep the reference calls affordable */
             cells_make(&s, n, K, nd);
             out = xmalloc(n * nd * (K + 1) * sizeof(double));
-            for (k = 0; k < n * nd * (K + 1); k++)
-                out[k] = GUARD;
+            sup_guard_fill(out, n * nd * (K + 1));
             if (model == MCD_MODEL_ITERATIVE)
                 ck_assert_int_eq(mcd_workspace_set_iterative(ws, 1000, 0.0), MCD_OK);
             ck_assert_msg(mcd_flux_batch_dij(ws, model, n, K, nd, s.M, s.D, s.c,
@@ -197,8 +185,7 @@ START_TEST(batch_dij_matches_single_state_calls)
                               MCD_OK,
                           "N=%zu K=%zu: %s", n, K, mcd_workspace_last_error(ws));
             /* nothing written past the K cells (K=0 writes nothing) */
-            for (k = n * nd * K; k < n * nd * (K + 1); k++)
-                ck_assert(out[k] == GUARD);
+            ck_assert(sup_guard_intact(out + n * nd * K, n * nd));
             for (k = 0; k < K; k++) {
                 double D[100 * 100], y[100], g[300], gl[3], F[300], e;
                 cell_get(&s, k, D, y, g, gl);
@@ -258,7 +245,7 @@ START_TEST(batch_mixture_matches_single_state_calls)
     static const size_t Ns[] = {2, 3, 5, 8, 11, 20};
     size_t ni;
     mcd_workspace *ws;
-    rng_seed(0xBA7C4002ull);
+    sup_seed(&rng, 0xBA7C4002ull);
     ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK);
     ck_assert_int_eq(mcd_workspace_alloc(30, &ws), MCD_OK);
     for (ni = 0; ni < sizeof Ns / sizeof Ns[0]; ni++) {
@@ -349,7 +336,7 @@ START_TEST(batch_power_law_mixture_iterative_matches_exact)
     size_t ni;
     mcd_workspace *ws;
     double worst = 0.0;
-    rng_seed(0xBA7C4012ull);
+    sup_seed(&rng, 0xBA7C4012ull);
     ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK);
     ck_assert_int_eq(mcd_workspace_alloc(30, &ws), MCD_OK);
     for (ni = 0; ni < sizeof Ns / sizeof Ns[0]; ni++) {
@@ -406,12 +393,11 @@ START_TEST(batch_errors_name_the_cell_and_write_nothing_on_argument_errors)
     double out[N * ND * K];
     mcd_workspace *ws, *small;
     size_t i;
-    rng_seed(0xBA7C4003ull);
+    sup_seed(&rng, 0xBA7C4003ull);
     ck_assert_int_eq(mcd_workspace_alloc(N, &ws), MCD_OK);
     ck_assert_int_eq(mcd_workspace_alloc(N - 1, &small), MCD_OK);
     cells_make(&s, N, K, ND);
-    for (i = 0; i < N * ND * K; i++)
-        out[i] = GUARD;
+    sup_guard_fill(out, N * ND * K);
 #define CALL(w, model, n, M, D, c, cb, comp, grad, fb, o) \
     mcd_flux_batch_dij(w, model, n, K, ND, M, D, c, cb, comp, grad, NULL, fb, o)
     ck_assert_int_eq(CALL(NULL, 0, N, s.M, s.D, s.c, 0, s.comp, s.grad, 0, out), MCD_EINVAL);
@@ -429,8 +415,7 @@ START_TEST(batch_errors_name_the_cell_and_write_nothing_on_argument_errors)
     s.M[2] = -1.0;
     ck_assert_int_eq(CALL(ws, 0, N, s.M, s.D, s.c, 1, s.comp, s.grad, 0, out), MCD_EDOM);
     s.M[2] = 0.03;
-    for (i = 0; i < N * ND * K; i++)
-        ck_assert(out[i] == GUARD);
+    ck_assert(sup_guard_intact(out, N * ND * K));
     ck_assert_int_eq(mcd_workspace_set_iterative(ws, 0, 1e-8), MCD_EINVAL);
     ck_assert_int_eq(mcd_workspace_set_iterative(ws, 10, -1.0), MCD_EINVAL);
     ck_assert_int_eq(mcd_workspace_set_iterative(ws, 10, NAN), MCD_EINVAL);
@@ -498,7 +483,7 @@ START_TEST(batch_overflowing_fluxes_are_reported_with_the_cell)
     mcd_workspace *ws;
     size_t b, i, j;
     int model;
-    rng_seed(0xBA7C4011ull);
+    sup_seed(&rng, 0xBA7C4011ull);
     ck_assert_int_eq(mcd_workspace_alloc(N, &ws), MCD_OK);
     cells_make(&s, N, K, ND);
     for (b = 0; b < sizeof bad_cells / sizeof bad_cells[0]; b++) {
@@ -554,7 +539,7 @@ START_TEST(batch_threads_give_identical_results)
     cells s;
     double *o1, *o2;
     mcd_workspace *ws;
-    rng_seed(0xBA7C4004ull);
+    sup_seed(&rng, 0xBA7C4004ull);
     ck_assert_int_eq(mcd_workspace_alloc(n, &ws), MCD_OK);
     cells_make(&s, n, K, nd);
     o1 = xmalloc(n * nd * K * sizeof(double));
@@ -593,7 +578,7 @@ START_TEST(batch_outputs_at_every_line_offset_match_the_aos_path)
     static const size_t Ns[] = {5, 12};
     size_t ni, ki, i, k;
     mcd_workspace *ws;
-    rng_seed(0xBA7C4005ull);
+    sup_seed(&rng, 0xBA7C4005ull);
     ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK);
     ck_assert_int_eq(mcd_workspace_alloc(12, &ws), MCD_OK);
     for (ni = 0; ni < sizeof Ns / sizeof Ns[0]; ni++)
@@ -622,21 +607,19 @@ START_TEST(batch_outputs_at_every_line_offset_match_the_aos_path)
                         double *out = buf + 8 + off;
                         ck_assert_int_eq(mcd_workspace_set_threads(ws, (size_t)th),
                                          MCD_OK);
-                        for (i = 0; i < tot; i++)
-                            buf[i] = GUARD;
+                        sup_guard_fill(buf, tot);
                         ck_assert_msg(mcd_flux_batch(ws, m, md, K, nd, s.T, s.P,
                                                      MCD_BASIS_MOLE, s.comp, s.grad,
                                                      NULL, MCD_BASIS_MOLE,
                                                      out) == MCD_OK,
                                       "%s", mcd_workspace_last_error(ws));
-                        for (i = 0; i < 8 + off; i++)
-                            ck_assert_msg(buf[i] == GUARD,
-                                          "N=%zu K=%zu offset %u: wrote before "
-                                          "the output", n, K, off);
-                        for (i = 8 + off + n * nd * K; i < tot; i++)
-                            ck_assert_msg(buf[i] == GUARD,
-                                          "N=%zu K=%zu offset %u: wrote after "
-                                          "the output", n, K, off);
+                        ck_assert_msg(sup_guard_intact(buf, 8 + off),
+                                      "N=%zu K=%zu offset %u: wrote before "
+                                      "the output", n, K, off);
+                        ck_assert_msg(sup_guard_intact(buf + 8 + off + n * nd * K,
+                                                       tot - (8 + off + n * nd * K)),
+                                      "N=%zu K=%zu offset %u: wrote after "
+                                      "the output", n, K, off);
                         for (k = 0; k < K; k++)
                             for (i = 0; i < n * nd; i++)
                                 ck_assert_msg(out[i * K + k] == ref[k * n * nd + i],
@@ -662,8 +645,6 @@ int main(void)
 {
     Suite *s = suite_create("mcd:batch");
     TCase *tc = tcase_create("batch");
-    SRunner *sr;
-    int failed;
     tcase_set_timeout(tc, 300);
     tcase_add_loop_test(tc, batch_dij_matches_single_state_calls, 0, 4);
     tcase_add_test(tc, batch_mixture_matches_single_state_calls);
@@ -673,9 +654,5 @@ int main(void)
     tcase_add_test(tc, batch_threads_give_identical_results);
     tcase_add_test(tc, batch_outputs_at_every_line_offset_match_the_aos_path);
     suite_add_tcase(s, tc);
-    sr = srunner_create(s);
-    srunner_run_all(sr, CK_ENV);
-    failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+    return sup_run(s);
 }

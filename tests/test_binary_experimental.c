@@ -31,6 +31,7 @@
 #include <stdlib.h>
 
 #include "mcdiff.h"
+#include "support.h"
 
 typedef struct {
     const char *a, *b;
@@ -241,9 +242,5 @@ int main(void)
     tcase_add_test(tc, binary_experimental_wilke_lee_within_published_error);
     tcase_add_test(tc, binary_experimental_wilke_chang_within_published_error);
     suite_add_tcase(s, tc);
-    SRunner *sr = srunner_create(s);
-    srunner_run_all(sr, CK_ENV);
-    int failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+    return sup_run(s);
 }

@@ -31,31 +31,11 @@
 #include <string.h>
 
 #include "mcdiff.h"
+#include "support.h"
 
 #define NMAX 8
-#define GUARD 12345.678
 
-static uint64_t rng_state = 0x243f6a8885a308d3ULL;
-
-static double urand(void)
-{
-    rng_state ^= rng_state >> 12;
-    rng_state ^= rng_state << 25;
-    rng_state ^= rng_state >> 27;
-    return (double)((rng_state * 2685821657736338717ULL) >> 11) *
-           (1.0 / 9007199254740992.0);
-}
-
-static void random_comp(size_t n, double lo, double *x)
-{
-    double s = 0.0;
-    for (size_t i = 0; i < n; i++) {
-        x[i] = lo + urand();
-        s += x[i];
-    }
-    for (size_t i = 0; i < n; i++)
-        x[i] /= s;
-}
+static sup_rng rng = SUP_RNG(SUP_XORSHIFT64STAR, 0x243f6a8885a308d3ULL);
 
 static mcd_workspace *ws;
 static void setup(void) { ck_assert_int_eq(mcd_workspace_alloc(NMAX, &ws), MCD_OK); }
@@ -184,10 +164,10 @@ END_TEST
 START_TEST(bulbs_binary_decays_exponentially)
 {
     for (int trial = 0; trial < 10; trial++) {
-        double D = 1e-5 + 5e-5 * urand(), Dm[4] = {0, D, D, 0};
-        double V1 = 5e-5 + 1e-4 * urand(), V2 = 5e-5 + 1e-4 * urand();
-        double A = 1e-6 + 5e-6 * urand(), L = 0.02 + 0.1 * urand(), c = 40;
-        double a1 = urand(), a2 = urand();
+        double D = 1e-5 + 5e-5 * sup_u01(&rng), Dm[4] = {0, D, D, 0};
+        double V1 = 5e-5 + 1e-4 * sup_u01(&rng), V2 = 5e-5 + 1e-4 * sup_u01(&rng);
+        double A = 1e-6 + 5e-6 * sup_u01(&rng), L = 0.02 + 0.1 * sup_u01(&rng), c = 40;
+        double a1 = sup_u01(&rng), a2 = sup_u01(&rng);
         double x1_0[2] = {a1, 1 - a1}, x2_0[2] = {a2, 1 - a2};
         double beta = A * (V1 + V2) / (L * V1 * V2), t[6];
         double x1[12], x2[12], l1[12], l2[12];
@@ -218,17 +198,14 @@ START_TEST(bulbs_random_mixtures_conserve_and_equilibrate)
         size_t n = 3 + (size_t)(trial % 4);
         double D[NMAX * NMAX], x1_0[NMAX], x2_0[NMAX], Dmin = 1;
         double x1[4 * NMAX], x2[4 * NMAX], l1[4 * NMAX], l2[4 * NMAX];
-        double V1 = 1e-4, V2 = 2e-4 * urand() + 2e-5, A = 3e-6, L = 0.05;
+        double V1 = 1e-4, V2 = 2e-4 * sup_u01(&rng) + 2e-5, A = 3e-6, L = 0.05;
         double c = 40, beta = A * (V1 + V2) / (L * V1 * V2), t[4];
+        sup_dij_log_uniform(&rng, n, D, 5e-6, 16.0);
         for (size_t i = 0; i < n; i++)
-            for (size_t j = i; j < n; j++) {
-                double v = (i == j) ? 0 : 5e-6 * exp(urand() * log(16.0));
-                D[i * n + j] = D[j * n + i] = v;
-                if (i != j)
-                    Dmin = fmin(Dmin, v);
-            }
-        random_comp(n, 0.0, x1_0);
-        random_comp(n, 0.0, x2_0);
+            for (size_t j = i + 1; j < n; j++)
+                Dmin = fmin(Dmin, D[i * n + j]);
+        sup_fractions(&rng, n, 0.0, x1_0);
+        sup_fractions(&rng, n, 0.0, x2_0);
         x1_0[trial % n] = 0.0; /* one species absent from bulb 1 */
         {
             double s = 0;
@@ -269,7 +246,6 @@ START_TEST(bulbs_random_mixtures_conserve_and_equilibrate)
 }
 END_TEST
 
-
 START_TEST(bulbs_work_at_full_workspace_capacity)
 {
     /* n equal to the workspace capacity: same results as a larger one */
@@ -277,12 +253,9 @@ START_TEST(bulbs_work_at_full_workspace_capacity)
         mcd_workspace *w;
         double D[NMAX * NMAX], a[NMAX], b[NMAX], t[2] = {0, 3e4};
         double p1[2 * NMAX], p2[2 * NMAX], q1[2 * NMAX], q2[2 * NMAX];
-        for (size_t i = 0; i < n; i++)
-            for (size_t j = i; j < n; j++)
-                D[i * n + j] = D[j * n + i] =
-                    (i == j) ? 0 : 5e-6 * exp(urand() * log(16.0));
-        random_comp(n, 0.1, a);
-        random_comp(n, 0.1, b);
+        sup_dij_log_uniform(&rng, n, D, 5e-6, 16.0);
+        sup_fractions(&rng, n, 0.1, a);
+        sup_fractions(&rng, n, 0.1, b);
         ck_assert_int_eq(mcd_workspace_alloc(n, &w), MCD_OK);
         for (int lin = 0; lin < 2; lin++) {
             if (lin) {
@@ -314,17 +287,6 @@ START_TEST(bulbs_work_at_full_workspace_capacity)
 }
 END_TEST
 
-static void fill(double *v, size_t k)
-{
-    for (size_t i = 0; i < k; i++)
-        v[i] = GUARD;
-}
-static void unchanged(const double *v, size_t k)
-{
-    for (size_t i = 0; i < k; i++)
-        ck_assert_double_eq(v[i], GUARD);
-}
-
 START_TEST(bulbs_errors_leave_outputs_untouched)
 {
     double D[9], a[3] = {0.2, 0.3, 0.5}, b[3] = {0.6, 0.3, 0.1};
@@ -334,11 +296,11 @@ START_TEST(bulbs_errors_leave_outputs_untouched)
     memcpy(D, DT_D, sizeof D);
 #define EXPECT2(call, code)                                                    \
     do {                                                                       \
-        fill(o1, 6);                                                           \
-        fill(o2, 6);                                                           \
+        sup_guard_fill(o1, 6);                                                 \
+        sup_guard_fill(o2, 6);                                                 \
         ck_assert_int_eq((call), (code));                                      \
-        unchanged(o1, 6);                                                      \
-        unchanged(o2, 6);                                                      \
+        ck_assert(sup_guard_intact(o1, 6));                                    \
+        ck_assert(sup_guard_intact(o2, 6));                                    \
     } while (0)
     for (int lin = 0; lin < 2; lin++) {
 #define CALL(W, N_, DD, C, V1, V2, A, L, X1, X2, T)                            \
@@ -413,10 +375,5 @@ static Suite *bulbs_suite(void)
 
 int main(void)
 {
-    SRunner *sr = srunner_create(bulbs_suite());
-    int failed;
-    srunner_run_all(sr, CK_ENV);
-    failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed ? EXIT_FAILURE : EXIT_SUCCESS;
+    return sup_run(bulbs_suite());
 }

@@ -7,39 +7,29 @@
 #include <string.h>
 
 #include "mcdiff.h"
+#include "support.h"
 
 #define NMAX 30
-#define GUARD 12345.678
 #define N_STATES 4000
 
 /* ---- deterministic PRNG (splitmix64), fixed seeds ------------------- */
-static uint64_t rng_state;
-static void rng_seed(uint64_t s) { rng_state = s; }
-static uint64_t rng_next(void)
-{
-    uint64_t z = (rng_state += 0x9E3779B97F4A7C15ull);
-    z = (z ^ (z >> 30)) * 0xBF58476D1CE4E5B9ull;
-    z = (z ^ (z >> 27)) * 0x94D049BB133111EBull;
-    return z ^ (z >> 31);
-}
-static double rng_u01(void) { return (double)(rng_next() >> 11) * 0x1.0p-53; }
-static double rng_range(double a, double b) { return a + (b - a) * rng_u01(); }
+static sup_rng rng = SUP_RNG(SUP_SPLITMIX64, 0);
 
 /* Random state: n in 1..NMAX, molar masses log-uniform 2e-3..0.35 kg/mol
  * (hydrogen to heavy vapours), fractions with ~20 % exact zeros and 1 in 10
  * states a pure component; gradients summing to zero over species. */
 static size_t random_state(double *M, double *x, double *gx, size_t n_dim)
 {
-    size_t n = 1 + (size_t)(rng_next() % NMAX);
+    size_t n = 1 + (size_t)(sup_next(&rng) % NMAX);
     double s = 0.0;
-    int pure = (rng_next() % 10) == 0;
-    size_t ip = (size_t)(rng_next() % n);
+    int pure = (sup_next(&rng) % 10) == 0;
+    size_t ip = (size_t)(sup_next(&rng) % n);
     for (size_t i = 0; i < n; i++) {
-        M[i] = 2e-3 * exp(rng_u01() * log(0.35 / 2e-3));
+        M[i] = sup_molar_mass(&rng);
         if (pure)
             x[i] = (i == ip) ? 1.0 : 0.0;
         else
-            x[i] = (rng_next() % 5 == 0) ? 0.0 : rng_u01();
+            x[i] = (sup_next(&rng) % 5 == 0) ? 0.0 : sup_u01(&rng);
         s += x[i];
     }
     if (s == 0.0) {
@@ -48,27 +38,8 @@ static size_t random_state(double *M, double *x, double *gx, size_t n_dim)
     }
     for (size_t i = 0; i < n; i++)
         x[i] /= s;
-    for (size_t d = 0; d < n_dim; d++) {
-        double m = 0.0;
-        for (size_t i = 0; i < n; i++) {
-            gx[i * n_dim + d] = rng_range(-1.0, 1.0);
-            m += gx[i * n_dim + d];
-        }
-        for (size_t i = 0; i < n; i++)
-            gx[i * n_dim + d] -= m / (double)n;
-    }
+    sup_gradients_zero_mean(&rng, n, n_dim, -1.0, 1.0, gx);
     return n;
-}
-
-static void fill(double *a, size_t m, double v)
-{
-    for (size_t i = 0; i < m; i++)
-        a[i] = v;
-}
-static void assert_all(const double *a, size_t m, double v)
-{
-    for (size_t i = 0; i < m; i++)
-        ck_assert(a[i] == v);
 }
 
 /* ---- round trips over random states ---------------------------------- */
@@ -76,7 +47,7 @@ static void assert_all(const double *a, size_t m, double v)
 START_TEST(composition_x_w_x_round_trip)
 {
     double M[NMAX], x[NMAX], g[NMAX * 3], w[NMAX], x2[NMAX], worst = 0.0;
-    rng_seed(1001);
+    sup_seed(&rng, 1001);
     for (int k = 0; k < N_STATES; k++) {
         size_t n = random_state(M, x, g, 1);
         double sw = 0.0;
@@ -104,11 +75,11 @@ END_TEST
 START_TEST(composition_x_c_x_round_trip)
 {
     double M[NMAX], x[NMAX], g[NMAX], c[NMAX], x2[NMAX], ct, worst = 0.0;
-    rng_seed(1002);
+    sup_seed(&rng, 1002);
     for (int k = 0; k < N_STATES; k++) {
         size_t n = random_state(M, x, g, 1);
         /* c over 1e-3..1e5 mol/m^3: rarefied gas to dense liquid */
-        double c_tot = 1e-3 * pow(10.0, 8.0 * rng_u01());
+        double c_tot = 1e-3 * pow(10.0, 8.0 * sup_u01(&rng));
         ck_assert_int_eq(mcd_comp_x_to_c(n, c_tot, x, c), MCD_OK);
         ck_assert_int_eq(mcd_comp_c_to_x(n, c, x2, &ct), MCD_OK);
         /* relative round-off of a <= 30-term sum: < 1e-14 */
@@ -126,9 +97,9 @@ START_TEST(composition_gradient_round_trip)
 {
     double M[NMAX], x[NMAX], gx[NMAX * 3], w[NMAX], gw[NMAX * 3],
         gx2[NMAX * 3], worst = 0.0, worst_sum = 0.0;
-    rng_seed(1003);
+    sup_seed(&rng, 1003);
     for (int k = 0; k < N_STATES; k++) {
-        size_t n_dim = 1 + (size_t)(rng_next() % 3);
+        size_t n_dim = 1 + (size_t)(sup_next(&rng) % 3);
         size_t n = random_state(M, x, gx, n_dim);
         double gscale = 0.0;
         for (size_t i = 0; i < n * n_dim; i++)
@@ -165,7 +136,7 @@ START_TEST(composition_gradient_matches_finite_difference)
 {
     double M[NMAX], x[NMAX], gx[NMAX], gw[NMAX], xp[NMAX], xm[NMAX],
         wp[NMAX], wm[NMAX];
-    rng_seed(1004);
+    sup_seed(&rng, 1004);
     for (int k = 0; k < 500; k++) {
         size_t n = random_state(M, x, gx, 1);
         int ok = 1;
@@ -198,10 +169,10 @@ END_TEST
 START_TEST(composition_gradient_ignores_normalisation_direction)
 {
     double M[NMAX], x[NMAX], gx[NMAX], gx_shift[NMAX], gw[NMAX], gw2[NMAX];
-    rng_seed(1005);
+    sup_seed(&rng, 1005);
     for (int k = 0; k < 1000; k++) {
         size_t n = random_state(M, x, gx, 1);
-        double a = rng_range(-3.0, 3.0), scale = 0.0;
+        double a = sup_range(&rng, -3.0, 3.0), scale = 0.0;
         for (size_t i = 0; i < n; i++) {
             gx_shift[i] = gx[i] + a * x[i]; /* adds d(sum x) along x */
             if (fabs(gx[i]) > scale)
@@ -219,7 +190,7 @@ END_TEST
 START_TEST(composition_mean_molar_mass_both_ways_agree)
 {
     double M[NMAX], x[NMAX], g[NMAX], w[NMAX], mx, mw, worst = 0.0;
-    rng_seed(1006);
+    sup_seed(&rng, 1006);
     for (int k = 0; k < N_STATES; k++) {
         size_t n = random_state(M, x, g, 1);
         double mmin = 1.0, mmax = 0.0;
@@ -320,12 +291,12 @@ END_TEST
 START_TEST(composition_rejects_sum_beyond_tolerance)
 {
     double y[3] = {0.2, 0.3, 0.5 + 2e-6}, out[3];
-    fill(out, 3, GUARD);
+    sup_guard_fill(out, 3);
     ck_assert_int_eq(mcd_comp_normalize(3, y, out), MCD_EDOM);
-    assert_all(out, 3, GUARD);
+    ck_assert(sup_guard_intact(out, 3));
     y[2] = 0.5 - 2e-6;
     ck_assert_int_eq(mcd_comp_normalize(3, y, out), MCD_EDOM);
-    assert_all(out, 3, GUARD);
+    ck_assert(sup_guard_intact(out, 3));
     /* in-place call that fails leaves the input untouched */
     ck_assert_int_eq(mcd_comp_normalize(3, y, y), MCD_EDOM);
     ck_assert(y[2] == 0.5 - 2e-6);
@@ -345,11 +316,11 @@ START_TEST(composition_error_paths_leave_outputs_untouched)
 
 #define EXPECT(call, code)                        \
     do {                                          \
-        fill(out, 6, GUARD);                      \
-        o1 = GUARD;                               \
+        sup_guard_fill(out, 6);                   \
+        o1 = SUP_GUARD;                           \
         ck_assert_int_eq((call), (code));         \
-        assert_all(out, 6, GUARD);                \
-        ck_assert(o1 == GUARD);                   \
+        ck_assert(sup_guard_intact(out, 6));      \
+        ck_assert(o1 == SUP_GUARD);               \
     } while (0)
 
     /* normalize */
@@ -508,9 +479,5 @@ int main(void)
     tcase_add_test(tc, composition_accepts_limits);
     suite_add_tcase(s, tc);
 
-    SRunner *sr = srunner_create(s);
-    srunner_run_all(sr, CK_ENV);
-    int nf = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return nf == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+    return sup_run(s);
 }

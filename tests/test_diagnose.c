@@ -6,19 +6,11 @@
 #include <string.h>
 
 #include "mcdiff.h"
+#include "support.h"
 
 #define GUARD_FLAGS 0xDEADu
 
-static uint64_t rng_state;
-static void rng_seed(uint64_t s) { rng_state = s; }
-static uint64_t rng_next(void)
-{
-    uint64_t z = (rng_state += 0x9E3779B97F4A7C15ull);
-    z = (z ^ (z >> 30)) * 0xBF58476D1CE4E5B9ull;
-    z = (z ^ (z >> 27)) * 0x94D049BB133111EBull;
-    return z ^ (z >> 31);
-}
-static double rng_u01(void) { return (double)(rng_next() >> 11) * 0x1.0p-53; }
+static sup_rng rng = SUP_RNG(SUP_SPLITMIX64, 0);
 
 START_TEST(diagnose_flags_each_effect)
 {
@@ -118,22 +110,26 @@ START_TEST(diagnose_invariant_under_scaling_and_permutation)
     double g[30 * 3], F[30 * 3], gs[30 * 3], Fs[30 * 3];
     unsigned fl[30], fs[30];
     size_t perm[30];
-    rng_seed(3001);
+    sup_seed(&rng, 3001);
     for (int t = 0; t < 2000; t++) {
-        size_t n = 1 + (size_t)(rng_next() % 30), nd = 1 + (size_t)(rng_next() % 3);
-        double sg = pow(10.0, -200.0 + 400.0 * rng_u01());
-        double sf = pow(10.0, -200.0 + 400.0 * rng_u01());
+        size_t n = 1 + (size_t)(sup_next(&rng) % 30), nd = 1 + (size_t)(sup_next(&rng) % 3);
+        double sg = pow(10.0, -200.0 + 400.0 * sup_u01(&rng));
+        double sf = pow(10.0, -200.0 + 400.0 * sup_u01(&rng));
         for (size_t i = 0; i < n * nd; i++) {
             /* some exact zeros and tiny rows so all flags occur */
-            int kind = (int)(rng_next() % 6);
-            g[i] = kind == 0 ? 0.0 : kind == 1 ? 1e-6 * (rng_u01() - 0.5) : rng_u01() - 0.5;
-            kind = (int)(rng_next() % 6);
-            F[i] = kind == 0 ? 0.0 : kind == 1 ? 1e-6 * (rng_u01() - 0.5) : rng_u01() - 0.5;
+            int kind = (int)(sup_next(&rng) % 6);
+            g[i] = kind == 0   ? 0.0
+                   : kind == 1 ? 1e-6 * (sup_u01(&rng) - 0.5)
+                               : sup_u01(&rng) - 0.5;
+            kind = (int)(sup_next(&rng) % 6);
+            F[i] = kind == 0   ? 0.0
+                   : kind == 1 ? 1e-6 * (sup_u01(&rng) - 0.5)
+                               : sup_u01(&rng) - 0.5;
         }
         for (size_t i = 0; i < n; i++)
             perm[i] = i;
         for (size_t i = n; i > 1; i--) {
-            size_t j = (size_t)(rng_next() % i), tmp = perm[i - 1];
+            size_t j = (size_t)(sup_next(&rng) % i), tmp = perm[i - 1];
             perm[i - 1] = perm[j];
             perm[j] = tmp;
         }
@@ -270,9 +266,5 @@ int main(void)
     tc = tcase_create("errors");
     tcase_add_test(tc, diagnose_error_paths_leave_outputs_untouched);
     suite_add_tcase(s, tc);
-    SRunner *sr = srunner_create(s);
-    srunner_run_all(sr, CK_ENV);
-    int nf = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return nf == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+    return sup_run(s);
 }

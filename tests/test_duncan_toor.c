@@ -41,6 +41,7 @@
 #include <string.h>
 
 #include "mcdiff.h"
+#include "support.h"
 
 #define NS 3 /* species: 0 = H2, 1 = N2, 2 = CO2 */
 enum { H2 = 0, N2 = 1, CO2 = 2 };
@@ -278,14 +279,6 @@ static void lib_flux(mcd_model model, const double *Dij, const long double *xm,
                   mcd_status_string(st), mcd_workspace_last_error(ws));
 }
 
-static double max_abs(const double *v, size_t n)
-{
-    double m = 0.0;
-    for (size_t i = 0; i < n; i++)
-        if (fabs(v[i]) > m) m = fabs(v[i]);
-    return m;
-}
-
 static double max_absl(const long double *v, size_t n)
 {
     long double m = 0.0L;
@@ -341,12 +334,12 @@ START_TEST(duncan_toor_start_n2_flux_without_gradient_is_osmotic)
     /* The N2 gradient is tiny: the published bulb compositions differ by
      * 0.00207 (or 0.00024 in the alternative quotation) against 0.5 for
      * H2 and CO2, i.e. below 0.5 % of the largest gradient. */
-    double gmax = max_abs(g, NS);
+    double gmax = sup_max_abs(g, NS);
     ck_assert(fabs(g[N2]) < 5e-3 * gmax);
     /* ... yet the N2 flux is of the same order as the others (about half
      * the H2 flux): it is dragged along by CO2 (Đ(N2-CO2) is the smallest
      * binary diffusivity). "Clearly non-zero" = more than 30 % of max. */
-    double fmax = max_abs(F, NS);
+    double fmax = sup_max_abs(F, NS);
     ck_assert_msg(fabs(F[N2]) > 0.3 * fmax, "N2 flux %g vs max %g", F[N2], fmax);
     /* Direction: N2 moves with CO2 from bulb 1 towards the H2-rich bulb 2
      * (positive z), which is what raised the N2 fraction in the H2 bulb in
@@ -394,7 +387,7 @@ START_TEST(duncan_toor_start_at_bulb1_end_handles_absent_hydrogen)
     lib_flux(MCD_MODEL_MAXWELL_STEFAN, Dij, x, gx, MCD_BASIS_MOLE, F);
     expect_flux_matches(F, Jref);
     for (size_t i = 0; i < NS; i++) g[i] = (double)gx[i];
-    ck_assert(fabs(F[N2]) > 0.3 * max_abs(F, NS));
+    ck_assert(fabs(F[N2]) > 0.3 * sup_max_abs(F, NS));
     unsigned flags[NS];
     ck_assert_int_eq(mcd_flux_diagnose(NS, 1, g, F, 1e-2, flags), MCD_OK);
     ck_assert_uint_ne(flags[N2] & MCD_DIAG_OSMOTIC, 0u);
@@ -434,7 +427,7 @@ START_TEST(duncan_toor_history_n2_diffuses_up_its_gradient)
 
     /* N2 gradient small compared with the others (13 % and 36 % of the
      * largest at 1 h and 3 h) and flux up that gradient (F.grad > 0). */
-    ck_assert(fabs(g[N2]) < 0.5 * max_abs(g, NS));
+    ck_assert(fabs(g[N2]) < 0.5 * sup_max_abs(g, NS));
     ck_assert_msg(F[N2] * g[N2] > 0.0, "N2 F %g grad %g", F[N2], g[N2]);
 
     unsigned flags[NS];
@@ -489,7 +482,7 @@ START_TEST(duncan_toor_history_passes_a_diffusion_barrier)
     double F[NS], g[NS];
     lib_flux(MCD_MODEL_MAXWELL_STEFAN, Dij, xm, gx, MCD_BASIS_MOLE, F);
     for (size_t i = 0; i < NS; i++) g[i] = (double)gx[i];
-    ck_assert(fabs(g[N2]) > 0.3 * max_abs(g, NS)); /* a real gradient */
+    ck_assert(fabs(g[N2]) > 0.3 * sup_max_abs(g, NS)); /* a real gradient */
     unsigned flags[NS];
     ck_assert_int_eq(mcd_flux_diagnose(NS, 1, g, F, 2e-3, flags), MCD_OK);
     ck_assert_msg(flags[N2] & MCD_DIAG_BARRIER, "N2 flags 0x%x", flags[N2]);
@@ -687,7 +680,7 @@ START_TEST(duncan_toor_fick_matrix_has_strong_n2_cross_terms)
     for (size_t i = 0; i < NS; i++) g[i] = (double)gx[i];
     ck_assert_int_eq(mcd_fick_fluxes(NS, 1, D, CO2, conc(), g, Ffick), MCD_OK);
     lib_flux(MCD_MODEL_MAXWELL_STEFAN, Dij, xm, gx, MCD_BASIS_MOLE, Fdir);
-    double fmax = max_abs(Fdir, NS);
+    double fmax = sup_max_abs(Fdir, NS);
     for (size_t i = 0; i < NS; i++)
         ck_assert(fabs(Ffick[i] - Fdir[i]) <= 1e-12 * fmax);
 }
@@ -711,9 +704,5 @@ static Suite *duncan_toor_suite(void)
 
 int main(void)
 {
-    SRunner *sr = srunner_create(duncan_toor_suite());
-    srunner_run_all(sr, CK_ENV);
-    int failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+    return sup_run(duncan_toor_suite());
 }

@@ -40,22 +40,12 @@
 #include <string.h>
 
 #include "mcdiff.h"
+#include "support.h"
 
 #define NMAX 100
 #define ND 2
 /* accepted normwise relative error of the fluxes (see the top comment) */
 #define ACCURACY 1e-11
-
-typedef struct xs {
-    uint64_t s;
-} xs;
-static double xs_unit(xs *g)
-{
-    g->s ^= g->s << 13;
-    g->s ^= g->s >> 7;
-    g->s ^= g->s << 17;
-    return (double)(g->s >> 11) * 0x1p-53;
-}
 
 /* Largest relative error seen per family (printed at the end). */
 static double worst_ms, worst_mass, worst_fick;
@@ -308,15 +298,16 @@ static void check_state(const char *label, size_t n, const double *M, const doub
     free(jr);
 }
 
-/* Random state: fractions from `xs` (entries set to 0 where zero_mask),
+/* Random state: fractions from `g` (entries set to 0 where zero_mask),
  * Đ log-uniform in [Dlo, Dlo * 10^decades], gradients with zero sum. */
-static void random_state(xs *g, size_t n, double Dlo, double decades, const int *zero_mask,
-                         double *M, double *D, double *x, double *grad)
+static void random_state(sup_rng *g, size_t n, double Dlo, double decades,
+                         const int *zero_mask, double *M, double *D, double *x,
+                         double *grad)
 {
     double sum = 0.0;
     for (size_t i = 0; i < n; i++) {
-        M[i] = 0.002 + 0.3 * xs_unit(g);
-        x[i] = (zero_mask && zero_mask[i]) ? 0.0 : 0.01 + xs_unit(g);
+        M[i] = 0.002 + 0.3 * sup_u01(g);
+        x[i] = (zero_mask && zero_mask[i]) ? 0.0 : 0.01 + sup_u01(g);
         sum += x[i];
     }
     for (size_t i = 0; i < n; i++)
@@ -324,12 +315,12 @@ static void random_state(xs *g, size_t n, double Dlo, double decades, const int 
     for (size_t i = 0; i < n; i++) {
         D[i * n + i] = 0.0;
         for (size_t j = i + 1; j < n; j++)
-            D[i * n + j] = D[j * n + i] = Dlo * pow(10.0, decades * xs_unit(g));
+            D[i * n + j] = D[j * n + i] = Dlo * pow(10.0, decades * sup_u01(g));
     }
     for (size_t d = 0; d < ND; d++) {
         double s = 0.0;
         for (size_t i = 0; i + 1 < n; i++) {
-            grad[i * ND + d] = 100.0 * (xs_unit(g) - 0.5);
+            grad[i * ND + d] = 100.0 * (sup_u01(g) - 0.5);
             s += grad[i * ND + d];
         }
         grad[(n - 1) * ND + d] = -s;
@@ -384,7 +375,7 @@ END_TEST
 
 START_TEST(edge_cases_diffusivities_six_decades)
 {
-    xs g = {0x243F6A8885A308D3ull};
+    sup_rng g = SUP_RNG(SUP_XORSHIFT64, 0x243F6A8885A308D3ull);
     double M[8], D[64], x[8], grad[16];
     for (int r = 0; r < 20; r++) {
         char label[48];
@@ -402,7 +393,7 @@ START_TEST(edge_cases_hundred_species)
 {
     static double M[NMAX], D[NMAX * NMAX], x[NMAX], grad[NMAX * ND];
     static int zero[NMAX];
-    xs g = {0x13198A2E03707344ull};
+    sup_rng g = SUP_RNG(SUP_XORSHIFT64, 0x13198A2E03707344ull);
     random_state(&g, NMAX, 1e-6, 2.0, NULL, M, D, x, grad);
     check_state("N = 100", NMAX, M, D, C_TOT, x, grad);
     random_state(&g, NMAX, 1e-9, 6.0, NULL, M, D, x, grad);
@@ -646,9 +637,5 @@ int main(void)
     tcase_add_test(tc, edge_cases_mixture_averaged_when_c_times_dij_underflows);
     tcase_add_test(tc, edge_cases_molar_masses_decades_apart_are_an_error);
     suite_add_tcase(s, tc);
-    SRunner *sr = srunner_create(s);
-    srunner_run_all(sr, CK_ENV);
-    int failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed ? EXIT_FAILURE : EXIT_SUCCESS;
+    return sup_run(s);
 }

@@ -27,22 +27,12 @@
 #include <string.h>
 
 #include "mcdiff.h"
+#include "support.h"
 
 #define NMAX 30
 #define DMAX 3
-#define GUARD 12345.678
 
-static uint64_t rng_s;
-static void rng_seed(uint64_t s) { rng_s = s; }
-static uint64_t rng_next(void)
-{
-    uint64_t z = (rng_s += 0x9E3779B97F4A7C15ull);
-    z = (z ^ (z >> 30)) * 0xBF58476D1CE4E5B9ull;
-    z = (z ^ (z >> 27)) * 0x94D049BB133111EBull;
-    return z ^ (z >> 31);
-}
-static double rng_u01(void) { return (double)(rng_next() >> 11) * 0x1.0p-53; }
-static double rng_range(double a, double b) { return a + (b - a) * rng_u01(); }
+static sup_rng rng = SUP_RNG(SUP_SPLITMIX64, 0);
 
 typedef struct state {
     size_t n, nd;
@@ -56,17 +46,17 @@ typedef struct state {
 /* kinds: 0 uniform, 1 log-uniform over 6 decades, 2 with exact zeros */
 static void random_state(state *s, size_t n, int allow_zero)
 {
-    int kind = (int)(rng_next() % (allow_zero ? 3 : 2));
+    int kind = (int)(sup_next(&rng) % (allow_zero ? 3 : 2));
     double sx = 0.0, sm = 0.0;
-    size_t i, j, d;
+    size_t i, d;
     s->n = n;
-    s->nd = 1 + (size_t)(rng_next() % DMAX);
-    s->c = pow(10.0, rng_range(-1.0, 4.0));
+    s->nd = 1 + (size_t)(sup_next(&rng) % DMAX);
+    s->c = sup_decades(&rng, -1.0, 4.0);
     for (i = 0; i < n; i++) {
-        s->M[i] = 2e-3 * exp(rng_u01() * log(0.35 / 2e-3));
-        s->x[i] = kind == 0   ? rng_range(0.01, 1.0)
-                  : kind == 1 ? pow(10.0, rng_range(-6.0, 0.0))
-                              : ((rng_next() % 3 == 0) ? 0.0 : rng_u01());
+        s->M[i] = sup_molar_mass(&rng);
+        s->x[i] = kind == 0   ? sup_range(&rng, 0.01, 1.0)
+                  : kind == 1 ? sup_decades(&rng, -6.0, 0.0)
+                              : ((sup_next(&rng) % 3 == 0) ? 0.0 : sup_u01(&rng));
         sx += s->x[i];
     }
     if (sx == 0.0) {
@@ -75,11 +65,7 @@ static void random_state(state *s, size_t n, int allow_zero)
     }
     for (i = 0; i < n; i++)
         s->x[i] /= sx;
-    for (i = 0; i < n; i++) {
-        s->D[i * n + i] = 0.0;
-        for (j = i + 1; j < n; j++)
-            s->D[i * n + j] = s->D[j * n + i] = pow(10.0, rng_range(-6.0, -4.0));
-    }
+    sup_dij_decades(&rng, n, s->D, -6.0, -4.0);
     for (i = 0; i < n; i++)
         sm += s->x[i] * s->M[i];
     for (i = 0; i < n; i++)
@@ -91,35 +77,14 @@ static void random_state(state *s, size_t n, int allow_zero)
     for (d = 0; d < s->nd; d++) {
         double t = 0.0, tw = 0.0;
         for (i = 0; i + 1 < n; i++) {
-            s->g[i * s->nd + d] = rng_range(-100.0, 100.0);
-            s->gw[i * s->nd + d] = rng_range(-100.0, 100.0);
+            s->g[i * s->nd + d] = sup_range(&rng, -100.0, 100.0);
+            s->gw[i * s->nd + d] = sup_range(&rng, -100.0, 100.0);
             t += s->g[i * s->nd + d];
             tw += s->gw[i * s->nd + d];
         }
         s->g[(n - 1) * s->nd + d] = -t;
         s->gw[(n - 1) * s->nd + d] = -tw;
     }
-}
-
-static double max_abs(const double *a, size_t len)
-{
-    double m = 0.0;
-    size_t i;
-    for (i = 0; i < len; i++)
-        if (fabs(a[i]) > m)
-            m = fabs(a[i]);
-    return m;
-}
-static double rel_diff(const double *a, const double *b, size_t len)
-{
-    double m = 0.0, s = max_abs(b, len);
-    size_t i;
-    if (s == 0.0)
-        s = 1e-300;
-    for (i = 0; i < len; i++)
-        if (fabs(a[i] - b[i]) / s > m)
-            m = fabs(a[i] - b[i]) / s;
-    return m;
 }
 
 static mcd_workspace *ws;
@@ -147,17 +112,17 @@ START_TEST(fick_fluxes_equal_flux_compute_for_any_dependent)
      * ~200. */
     double worst[2] = {0.0, 0.0};
     int k, b;
-    rng_seed(0xF1C0001u);
+    sup_seed(&rng, 0xF1C0001u);
     for (k = 0; k < 400; k++) {
         state s;
         double Gam[NMAX * NMAX];
         const double *G = NULL;
         size_t n, dep, i;
-        random_state(&s, 2 + (size_t)(rng_next() % (NMAX - 1)), 1);
+        random_state(&s, 2 + (size_t)(sup_next(&rng) % (NMAX - 1)), 1);
         n = s.n;
         if (k % 2) {
             for (i = 0; i < n * n; i++)
-                Gam[i] = rng_range(-0.3, 0.3) + ((i % (n + 1)) == 0 ? 1.0 : 0.0);
+                Gam[i] = sup_range(&rng, -0.3, 0.3) + ((i % (n + 1)) == 0 ? 1.0 : 0.0);
             G = Gam;
         }
         for (b = 0; b < 2; b++) {
@@ -182,7 +147,7 @@ START_TEST(fick_fluxes_equal_flux_compute_for_any_dependent)
                         ck_assert(s.x[i] <= s.x[used]);
                 ck_assert_int_eq(mcd_fick_fluxes(n, s.nd, Df, used, conc, grad, Ff),
                                  MCD_OK);
-                e = rel_diff(Ff, F, n * s.nd);
+                e = sup_rel_diff(Ff, F, n * s.nd);
                 if (e > worst[b])
                     worst[b] = e;
                 ck_assert_msg(e <= 1e-11, "N=%zu basis %d dep %zu: %g", n, b, used,
@@ -204,7 +169,7 @@ START_TEST(fick_ternary_matrix_matches_hand_formula)
      * the explicit 2x2 inverse. Tolerance 1e-12 relative to max |D|: a few
      * dozen roundings. */
     int k;
-    rng_seed(0xF1C0002u);
+    sup_seed(&rng, 0xF1C0002u);
     for (k = 0; k < 2000; k++) {
         state s;
         double G[9], B[4], Gr[4], ref[4], Df[4], det;
@@ -213,7 +178,7 @@ START_TEST(fick_ternary_matrix_matches_hand_formula)
         if (s.x[2] == 0.0)
             continue;
         for (i = 0; i < 9; i++)
-            G[i] = rng_range(-0.3, 0.3) + ((i % 4) == 0 ? 1.0 : 0.0);
+            G[i] = sup_range(&rng, -0.3, 0.3) + ((i % 4) == 0 ? 1.0 : 0.0);
         for (j = 0; j < 3; j++)
             G[6 + j] = 1.0 - G[j] - G[3 + j];
         for (i = 0; i < 2; i++)
@@ -237,8 +202,8 @@ START_TEST(fick_ternary_matrix_matches_hand_formula)
         ck_assert_int_eq(mcd_fick_matrix(ws, 3, s.M, s.D, MCD_BASIS_MOLE, s.x, G,
                                          MCD_BASIS_MOLE, 2, Df, NULL),
                          MCD_OK);
-        ck_assert_msg(rel_diff(Df, ref, 4) <= 1e-12, "ternary %g",
-                      rel_diff(Df, ref, 4));
+        ck_assert_msg(sup_rel_diff(Df, ref, 4) <= 1e-12, "ternary %g",
+                      sup_rel_diff(Df, ref, 4));
     }
 }
 END_TEST
@@ -248,10 +213,10 @@ START_TEST(fick_binary_is_fick_diffusivity_in_both_frames)
     /* N = 2: [D] = [D°] = Đ_12 (ideal), = Đ_12 G with Gamma = G I (Darken;
      * Taylor and Krishna 1993, ch. 2, from memory). 1e-13 relative. */
     int k, b;
-    rng_seed(0xF1C0003u);
+    sup_seed(&rng, 0xF1C0003u);
     for (k = 0; k < 1000; k++) {
         state s;
-        double Gb = rng_range(0.2, 3.0), G[4], Df = GUARD;
+        double Gb = sup_range(&rng, 0.2, 3.0), G[4], Df = SUP_GUARD;
         size_t used = 9;
         random_state(&s, 2, 0);
         G[0] = Gb; G[1] = 0.0; G[2] = 0.0; G[3] = Gb;
@@ -279,14 +244,14 @@ START_TEST(fick_trace_species_row_is_blanc)
      * pivoted LU (which may mix the trace row with others): 1e-13 of
      * max |D|. */
     int k;
-    rng_seed(0xF1C0004u);
+    sup_seed(&rng, 0xF1C0004u);
     for (k = 0; k < 1000; k++) {
         state s;
         double Df[(NMAX - 1) * (NMAX - 1)];
         size_t n, t, used, r, q;
-        random_state(&s, 3 + (size_t)(rng_next() % (NMAX - 2)), 0);
+        random_state(&s, 3 + (size_t)(sup_next(&rng) % (NMAX - 2)), 0);
         n = s.n;
-        t = (size_t)(rng_next() % n);
+        t = (size_t)(sup_next(&rng) % n);
         {
             double rr = 1.0 - s.x[t];
             if (rr <= 0.0)
@@ -314,7 +279,7 @@ START_TEST(fick_trace_species_row_is_blanc)
                 ck_assert(fabs(Df[r * (n - 1) + q] - ref) <= 1e-13 * ref);
             } else {
                 ck_assert_msg(fabs(Df[r * (n - 1) + q]) <=
-                                  1e-13 * max_abs(Df, (n - 1) * (n - 1)),
+                                  1e-13 * sup_max_abs(Df, (n - 1) * (n - 1)),
                               "off-diagonal %g", Df[r * (n - 1) + q]);
             }
         }
@@ -341,16 +306,16 @@ START_TEST(fick_eigenvalues_real_positive_and_invariant)
      * come out as a complex pair with a tiny imaginary part). */
     double worst = 0.0;
     int k, b;
-    rng_seed(0xF1C0005u);
+    sup_seed(&rng, 0xF1C0005u);
     for (k = 0; k < 300; k++) {
         state s;
         double ref[NMAX], re[NMAX], im[NMAX], Df[(NMAX - 1) * (NMAX - 1)];
         size_t n, m, dep, i, have = 0;
-        random_state(&s, 2 + (size_t)(rng_next() % (NMAX - 1)), 0);
+        random_state(&s, 2 + (size_t)(sup_next(&rng) % (NMAX - 1)), 0);
         n = s.n;
         m = n - 1;
         for (b = 0; b < 2; b++)
-            for (dep = 0; dep < n; dep += 1 + (size_t)(rng_next() % 3)) {
+            for (dep = 0; dep < n; dep += 1 + (size_t)(sup_next(&rng) % 3)) {
                 double e = 0.0;
                 ck_assert_int_eq(mcd_fick_matrix(ws, n, s.M, s.D, MCD_BASIS_MOLE,
                                                  s.x, NULL, (mcd_basis)b, dep, Df,
@@ -398,9 +363,9 @@ START_TEST(fick_eigenvalues_known_spectra_and_sorting)
               fabs(re[2] - 1.0) < 1e-14);
     ck_assert(im[0] == 0.0 && im[1] == 0.0 && im[2] == 0.0);
     /* m = 0 is a no-op */
-    re[0] = GUARD;
+    re[0] = SUP_GUARD;
     ck_assert_int_eq(mcd_fick_eigenvalues(ws, 0, NULL, re, im), MCD_OK);
-    ck_assert(re[0] == GUARD);
+    ck_assert(re[0] == SUP_GUARD);
 }
 END_TEST
 
@@ -413,21 +378,21 @@ START_TEST(fick_errors_leave_outputs_untouched)
     double out[4], re[2], im[2], F[N * 2];
     double g[N * 2] = {1, 2, -3, 0, 2, -2};
     size_t dep = 777;
-    size_t i;
     mcd_workspace *small;
 
 #define GUARDS()                                                              \
     do {                                                                      \
-        for (i = 0; i < 4; i++) out[i] = GUARD;                               \
-        for (i = 0; i < 2; i++) re[i] = im[i] = GUARD;                        \
-        for (i = 0; i < N * 2; i++) F[i] = GUARD;                             \
+        sup_guard_fill(out, 4);                                               \
+        sup_guard_fill(re, 2);                                                \
+        sup_guard_fill(im, 2);                                                \
+        sup_guard_fill(F, N * 2);                                             \
         dep = 777;                                                            \
     } while (0)
 #define INTACT()                                                              \
     do {                                                                      \
-        for (i = 0; i < 4; i++) ck_assert(out[i] == GUARD);                   \
-        for (i = 0; i < 2; i++) ck_assert(re[i] == GUARD && im[i] == GUARD);  \
-        for (i = 0; i < N * 2; i++) ck_assert(F[i] == GUARD);                 \
+        ck_assert(sup_guard_intact(out, 4));                                  \
+        ck_assert(sup_guard_intact(re, 2) && sup_guard_intact(im, 2));        \
+        ck_assert(sup_guard_intact(F, N * 2));                                \
         ck_assert_uint_eq(dep, 777);                                          \
     } while (0)
 #define FM(code, arg, ...)                                                    \
@@ -499,7 +464,7 @@ START_TEST(fick_errors_leave_outputs_untouched)
     ck_assert_int_eq(mcd_fick_eigenvalues(ws, 2, out, re, NULL), MCD_EINVAL);
     out[2] = NAN;
     ck_assert_int_eq(mcd_fick_eigenvalues(ws, 2, out, re, im), MCD_EINVAL);
-    out[2] = GUARD;
+    out[2] = SUP_GUARD;
     INTACT();
 
     /* fick_fluxes */
@@ -533,14 +498,14 @@ START_TEST(fick_errors_leave_outputs_untouched)
     }
     /* N = 1: nothing written by fick_matrix; fick_fluxes gives zero */
     {
-        double one = 1.0, M1 = 0.028, D1 = 0.0, F1[2] = {GUARD, GUARD};
+        double one = 1.0, M1 = 0.028, D1 = 0.0, F1[2] = {SUP_GUARD, SUP_GUARD};
         double g1[2] = {0.5, 0.5};
-        out[0] = GUARD;
+        out[0] = SUP_GUARD;
         dep = 777;
         ck_assert_int_eq(mcd_fick_matrix(ws, 1, &M1, &D1, 0, &one, NULL, 1,
                                          MCD_DEPENDENT_AUTO, out, &dep),
                          MCD_OK);
-        ck_assert(out[0] == GUARD);
+        ck_assert(out[0] == SUP_GUARD);
         ck_assert_uint_eq(dep, 0);
         ck_assert_int_eq(mcd_fick_fluxes(1, 2, NULL, 0, 40.0, g1, F1), MCD_OK);
         ck_assert(F1[0] == 0.0 && F1[1] == 0.0);
@@ -570,10 +535,5 @@ static Suite *fick_suite(void)
 
 int main(void)
 {
-    SRunner *sr = srunner_create(fick_suite());
-    int failed;
-    srunner_run_all(sr, CK_ENV);
-    failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+    return sup_run(fick_suite());
 }

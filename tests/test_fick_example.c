@@ -48,6 +48,7 @@
 #include <string.h>
 
 #include "mcdiff.h"
+#include "support.h"
 
 #define NMAX 6
 
@@ -61,14 +62,7 @@ static void teardown(void)
 }
 
 /* Deterministic PRNG (xorshift64*, fixed seed) for the sweeps. */
-static uint64_t rng_state = 0x9E3779B97F4A7C15ull;
-static double urand(void)
-{
-    rng_state ^= rng_state >> 12;
-    rng_state ^= rng_state << 25;
-    rng_state ^= rng_state >> 27;
-    return (double)((rng_state * 0x2545F4914F6CDD1Dull) >> 11) * 0x1.0p-53;
-}
+static sup_rng rng = SUP_RNG(SUP_XORSHIFT64STAR, 0x9E3779B97F4A7C15ull);
 
 static void sym3(double d12, double d13, double d23, double *D)
 {
@@ -433,15 +427,15 @@ START_TEST(fick_example_formula_holds_over_random_ternaries)
 {
     double worst = 0.0, worst_mass = 0.0;
     for (int t = 0; t < 500; t++) {
-        double d12 = 1e-6 * pow(100.0, urand());
-        double d13 = 1e-6 * pow(100.0, urand());
-        double d23 = 1e-6 * pow(100.0, urand());
+        double d12 = 1e-6 * pow(100.0, sup_u01(&rng));
+        double d13 = 1e-6 * pow(100.0, sup_u01(&rng));
+        double d23 = 1e-6 * pow(100.0, sup_u01(&rng));
         double x[3], M[3], Dij[9];
-        double a = 0.02 + urand(), b = 0.02 + urand(), cc = 0.02 + urand();
+        double a = 0.02 + sup_u01(&rng), b = 0.02 + sup_u01(&rng), cc = 0.02 + sup_u01(&rng);
         x[0] = a / (a + b + cc);
         x[1] = b / (a + b + cc);
         x[2] = 1.0 - x[0] - x[1];
-        for (int i = 0; i < 3; i++) M[i] = 2e-3 + 0.2 * urand();
+        for (int i = 0; i < 3; i++) M[i] = 2e-3 + 0.2 * sup_u01(&rng);
         sym3(d12, d13, d23, Dij);
         long double Ftk[4], Foref[4];
         tk_ternary(d12, d13, d23, x, Ftk);
@@ -475,11 +469,11 @@ START_TEST(fick_example_b_inverse_holds_for_more_species)
     for (int t = 0; t < 100; t++) {
         double Dij[NMAX * NMAX], x[NMAX], s = 0.0;
         for (size_t i = 0; i < n; i++) {
-            x[i] = 0.02 + urand();
+            x[i] = 0.02 + sup_u01(&rng);
             s += x[i];
             Dij[i * n + i] = 0.0;
             for (size_t j = 0; j < i; j++)
-                Dij[i * n + j] = Dij[j * n + i] = 1e-6 * pow(100.0, urand());
+                Dij[i * n + j] = Dij[j * n + i] = 1e-6 * pow(100.0, sup_u01(&rng));
         }
         for (size_t i = 0; i < n; i++) x[i] /= s;
         size_t used = 99;
@@ -519,9 +513,5 @@ static Suite *fick_example_suite(void)
 
 int main(void)
 {
-    SRunner *sr = srunner_create(fick_example_suite());
-    srunner_run_all(sr, CK_ENV);
-    int failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+    return sup_run(fick_example_suite());
 }

@@ -31,25 +31,17 @@
 
 #include "mcdiff.h"
 
+#define SUP_ALLOC_HOOK /* this program counts allocations */
+#include "support.h"
+
 #define NMAX 30
 #define DMAX 3
-#define GUARD 12345.678
 
 /* ------------------------------------------------------------------ */
 /* PRNG and random states                                               */
 /* ------------------------------------------------------------------ */
 
-static uint64_t rng_s;
-static void rng_seed(uint64_t s) { rng_s = s; }
-static uint64_t rng_next(void)
-{
-    uint64_t z = (rng_s += 0x9E3779B97F4A7C15ull);
-    z = (z ^ (z >> 30)) * 0xBF58476D1CE4E5B9ull;
-    z = (z ^ (z >> 27)) * 0x94D049BB133111EBull;
-    return z ^ (z >> 31);
-}
-static double rng_u01(void) { return (double)(rng_next() >> 11) * 0x1.0p-53; }
-static double rng_range(double a, double b) { return a + (b - a) * rng_u01(); }
+static sup_rng rng = SUP_RNG(SUP_SPLITMIX64, 0);
 
 typedef struct state {
     size_t n, nd;
@@ -63,49 +55,36 @@ typedef struct state {
  * species), 2 with exact zeros (trace species), 3 one dominant carrier. */
 static void random_state(state *s, size_t n, int allow_zero)
 {
-    int kind = (int)(rng_next() % (allow_zero ? 4 : 3));
+    int kind = (int)(sup_next(&rng) % (allow_zero ? 4 : 3));
     double sx = 0.0;
-    size_t i, j, d;
+    size_t i;
     if (kind == 2 && !allow_zero)
         kind = 0;
     s->n = n;
-    s->nd = 1 + (size_t)(rng_next() % DMAX);
-    s->c = pow(10.0, rng_range(-1.0, 4.0)); /* 0.1 .. 1e4 mol/m^3 */
+    s->nd = 1 + (size_t)(sup_next(&rng) % DMAX);
+    s->c = sup_decades(&rng, -1.0, 4.0); /* 0.1 .. 1e4 mol/m^3 */
     for (i = 0; i < n; i++) {
-        s->M[i] = 2e-3 * exp(rng_u01() * log(0.35 / 2e-3));
+        s->M[i] = sup_molar_mass(&rng);
         switch (kind) {
-        case 0: s->x[i] = rng_range(0.01, 1.0); break;
-        case 1: s->x[i] = pow(10.0, rng_range(-8.0, 0.0)); break;
-        case 2: s->x[i] = (rng_next() % 3 == 0) ? 0.0 : rng_u01(); break;
-        default: s->x[i] = pow(10.0, rng_range(-6.0, -2.0)); break;
+        case 0: s->x[i] = sup_range(&rng, 0.01, 1.0); break;
+        case 1: s->x[i] = sup_decades(&rng, -8.0, 0.0); break;
+        case 2: s->x[i] = (sup_next(&rng) % 3 == 0) ? 0.0 : sup_u01(&rng); break;
+        default: s->x[i] = sup_decades(&rng, -6.0, -2.0); break;
         }
     }
     if (kind == 3)
-        s->x[rng_next() % n] = 1.0;
+        s->x[sup_next(&rng) % n] = 1.0;
     for (i = 0; i < n; i++)
         sx += s->x[i];
     if (sx == 0.0) {
-        s->x[rng_next() % n] = 1.0;
+        s->x[sup_next(&rng) % n] = 1.0;
         sx = 1.0;
     }
     for (i = 0; i < n; i++)
         s->x[i] /= sx;
     /* binary diffusivities over two decades (gases: 1e-6 .. 1e-4 m^2/s) */
-    for (i = 0; i < n; i++) {
-        s->D[i * n + i] = 0.0;
-        for (j = i + 1; j < n; j++)
-            s->D[i * n + j] = s->D[j * n + i] = pow(10.0, rng_range(-6.0, -4.0));
-    }
-    for (d = 0; d < s->nd; d++) {
-        double m = 0.0;
-        for (i = 0; i < n; i++) {
-            s->g[i * s->nd + d] = rng_range(-100.0, 100.0);
-            m += s->g[i * s->nd + d];
-        }
-        m /= (double)n;
-        for (i = 0; i < n; i++)
-            s->g[i * s->nd + d] -= m;
-    }
+    sup_dij_decades(&rng, n, s->D, -6.0, -4.0);
+    sup_gradients_zero_mean(&rng, n, s->nd, -100.0, 100.0, s->g);
     {
         double sm = 0.0;
         for (i = 0; i < n; i++)
@@ -118,31 +97,8 @@ static void random_state(state *s, size_t n, int allow_zero)
 static size_t random_n(void)
 {
     /* N = 1 .. 30, with small N more frequent */
-    return (rng_next() % 3 == 0) ? 1 + (size_t)(rng_next() % 4)
-                                 : 1 + (size_t)(rng_next() % NMAX);
-}
-
-static double max_abs(const double *a, size_t len)
-{
-    double m = 0.0;
-    size_t i;
-    for (i = 0; i < len; i++)
-        if (fabs(a[i]) > m)
-            m = fabs(a[i]);
-    return m;
-}
-
-/* max_i |a_i - b_i| / max(max|b|, tiny) */
-static double rel_diff(const double *a, const double *b, size_t len)
-{
-    double m = 0.0, s = max_abs(b, len);
-    size_t i;
-    if (s == 0.0)
-        s = 1e-300;
-    for (i = 0; i < len; i++)
-        if (fabs(a[i] - b[i]) / s > m)
-            m = fabs(a[i] - b[i]) / s;
-    return m;
+    return (sup_next(&rng) % 3 == 0) ? 1 + (size_t)(sup_next(&rng) % 4)
+                                     : 1 + (size_t)(sup_next(&rng) % NMAX);
 }
 
 static mcd_workspace *ws;
@@ -177,7 +133,7 @@ START_TEST(flux_identities_zero_sum_in_both_bases)
      * to sum |F_i| leaves a margin of ~15. */
     double worst = 0.0;
     int k, m, b;
-    rng_seed(0x5EED0001u);
+    sup_seed(&rng, 0x5EED0001u);
     for (k = 0; k < 3000; k++) {
         state s;
         random_state(&s, random_n(), 1);
@@ -247,12 +203,12 @@ START_TEST(flux_identities_fluxes_satisfy_maxwell_stefan_equations)
      * margin of ~250. */
     long double worst = 0.0L;
     int k;
-    rng_seed(0x5EED0002u);
+    sup_seed(&rng, 0x5EED0002u);
     for (k = 0; k < 3000; k++) {
         state s;
         double J[NMAX * DMAX];
         long double r;
-        random_state(&s, 2 + (size_t)(rng_next() % (NMAX - 1)), 1);
+        random_state(&s, 2 + (size_t)(sup_next(&rng) % (NMAX - 1)), 1);
         ck_assert_int_eq(flux(&s, MCD_MODEL_MAXWELL_STEFAN, MCD_BASIS_MOLE,
                               s.x, s.g, NULL, NULL, MCD_BASIS_MOLE, J),
                          MCD_OK);
@@ -281,16 +237,16 @@ START_TEST(flux_identities_onsager_symmetry_of_velocity_map)
      * symmetric); 1e-12 relative to max |S|. */
     double worst = 0.0;
     int k;
-    rng_seed(0x5EED0003u);
+    sup_seed(&rng, 0x5EED0003u);
     for (k = 0; k < 300; k++) {
         state s;
         double Gam[NMAX * NMAX], S[NMAX * NMAX], J[NMAX * DMAX], g[NMAX];
         size_t n, i, j, ref, q;
         double smax = 0.0;
-        random_state(&s, 2 + (size_t)(rng_next() % (NMAX - 1)), 0);
+        random_state(&s, 2 + (size_t)(sup_next(&rng) % (NMAX - 1)), 0);
         n = s.n;
         s.nd = 1;
-        ref = (size_t)(rng_next() % n);
+        ref = (size_t)(sup_next(&rng) % n);
         for (i = 0; i < n * n; i++)
             Gam[i] = 0.0;
         for (i = 0; i < n; i++)
@@ -345,13 +301,13 @@ START_TEST(flux_identities_equal_diffusivities_give_mixture_averaged)
      * rounding of the solve and of the basis conversions. */
     double worst = 0.0;
     int k, cb, fb;
-    rng_seed(0x5EED0004u);
+    sup_seed(&rng, 0x5EED0004u);
     for (k = 0; k < 2000; k++) {
         state s;
         double Dv, gw[NMAX * DMAX];
         size_t i, j;
         random_state(&s, random_n(), 1);
-        Dv = pow(10.0, rng_range(-6.0, -4.0));
+        Dv = sup_decades(&rng, -6.0, -4.0);
         for (i = 0; i < s.n; i++)
             for (j = 0; j < s.n; j++)
                 s.D[i * s.n + j] = (i == j) ? 0.0 : Dv;
@@ -368,7 +324,7 @@ START_TEST(flux_identities_equal_diffusivities_give_mixture_averaged)
                                       (mcd_basis)cb, comp, grad, NULL, NULL,
                                       (mcd_basis)fb, Fma),
                                  MCD_OK);
-                e = rel_diff(Fma, Fms, s.n * s.nd);
+                e = sup_rel_diff(Fma, Fms, s.n * s.nd);
                 if (e > worst)
                     worst = e;
                 ck_assert_msg(e <= 1e-12, "N=%zu cb %d fb %d: %g", s.n, cb, fb, e);
@@ -376,7 +332,7 @@ START_TEST(flux_identities_equal_diffusivities_give_mixture_averaged)
                     /* and both equal -c Đ grad x */
                     for (i = 0; i < s.n * s.nd; i++)
                         ck_assert(fabs(Fms[i] + s.c * Dv * s.g[i]) <=
-                                  1e-12 * s.c * Dv * max_abs(s.g, s.n * s.nd));
+                                  1e-12 * s.c * Dv * sup_max_abs(s.g, s.n * s.nd));
                 }
             }
     }
@@ -394,13 +350,13 @@ START_TEST(flux_identities_mixture_averaged_matches_hand_formula)
      * Tolerance 1e-13 relative to the largest flux: O(N) roundings. */
     double worst = 0.0;
     int k, b;
-    rng_seed(0x5EED000Cu);
+    sup_seed(&rng, 0x5EED000Cu);
     for (k = 0; k < 2000; k++) {
         state s;
         long double Dim[NMAX], ref[NMAX * DMAX];
         double F[NMAX * DMAX], R[NMAX * DMAX], e;
         size_t n, i, j, d;
-        random_state(&s, 2 + (size_t)(rng_next() % (NMAX - 1)), 1);
+        random_state(&s, 2 + (size_t)(sup_next(&rng) % (NMAX - 1)), 1);
         n = s.n;
         for (i = 0; i < n; i++) {
             long double num = 0.0L, den = 0.0L;
@@ -433,7 +389,7 @@ START_TEST(flux_identities_mixture_averaged_matches_hand_formula)
             ck_assert_int_eq(flux(&s, MCD_MODEL_MIXTURE_AVERAGED, MCD_BASIS_MOLE,
                                   s.x, s.g, NULL, NULL, (mcd_basis)b, F),
                              MCD_OK);
-            e = rel_diff(F, R, n * s.nd);
+            e = sup_rel_diff(F, R, n * s.nd);
             if (e > worst)
                 worst = e;
             ck_assert_msg(e <= 1e-13, "N=%zu basis %d: %g", n, b, e);
@@ -449,7 +405,7 @@ START_TEST(flux_identities_binary_reduces_to_fick)
      * grad w_1 (mass frame) for both models (Taylor and Krishna 1993,
      * ch. 2 and 3). Tolerance 1e-13 relative: a handful of roundings. */
     int k, m;
-    rng_seed(0x5EED0005u);
+    sup_seed(&rng, 0x5EED0005u);
     for (k = 0; k < 2000; k++) {
         state s;
         double gw[2 * DMAX], rho = 0.0;
@@ -490,13 +446,13 @@ START_TEST(flux_identities_trace_species_obey_blanc_law)
      * of the others); 1e-9 relative to the largest flux. */
     double worst_exact = 0.0, worst_limit = 0.0;
     int k, m;
-    rng_seed(0x5EED0006u);
+    sup_seed(&rng, 0x5EED0006u);
     for (k = 0; k < 2000; k++) {
         state s, s2;
         double J0[NMAX * DMAX], J1[NMAX * DMAX];
         size_t t, i, d;
-        random_state(&s, 2 + (size_t)(rng_next() % (NMAX - 1)), 0);
-        t = (size_t)(rng_next() % s.n);
+        random_state(&s, 2 + (size_t)(sup_next(&rng) % (NMAX - 1)), 0);
+        t = (size_t)(sup_next(&rng) % s.n);
         if (s.x[t] == 1.0)
             continue;
         {
@@ -536,7 +492,7 @@ START_TEST(flux_identities_trace_species_obey_blanc_law)
                                       MCD_BASIS_MOLE, s2.x, s2.g, NULL, NULL,
                                       MCD_BASIS_MOLE, J1),
                                  MCD_OK);
-                e = rel_diff(J1, J0, s.n * s.nd);
+                e = sup_rel_diff(J1, J0, s.n * s.nd);
                 if (e > worst_limit)
                     worst_limit = e;
                 ck_assert_msg(e <= 1e-9, "limit x_t -> 1e-12: %g", e);
@@ -554,13 +510,13 @@ START_TEST(flux_identities_pure_component_and_single_species)
      * d_i (Blanc with one partner) and J_p = -sum of the others.
      * N = 1: zero flux. Tolerance: a few roundings, 1e-14 relative. */
     int k;
-    rng_seed(0x5EED0007u);
+    sup_seed(&rng, 0x5EED0007u);
     for (k = 0; k < 500; k++) {
         state s;
         double J[NMAX * DMAX];
         size_t p, i, d;
-        random_state(&s, 2 + (size_t)(rng_next() % (NMAX - 1)), 0);
-        p = (size_t)(rng_next() % s.n);
+        random_state(&s, 2 + (size_t)(sup_next(&rng) % (NMAX - 1)), 0);
+        p = (size_t)(sup_next(&rng) % s.n);
         for (i = 0; i < s.n; i++)
             s.x[i] = (i == p) ? 1.0 : 0.0;
         ck_assert_int_eq(flux(&s, (mcd_model)(k & 1), MCD_BASIS_MOLE, s.x, s.g,
@@ -576,12 +532,12 @@ START_TEST(flux_identities_pure_component_and_single_species)
                 sum += J[i * s.nd + d];
             }
             ck_assert(fabs(J[p * s.nd + d] + sum) <=
-                      1e-14 * max_abs(J, s.n * s.nd));
+                      1e-14 * sup_max_abs(J, s.n * s.nd));
         }
     }
     {
         double M1 = 0.028, D1 = 0.0, x1 = 1.0, g1[3] = {1.0, 2.0, 3.0};
-        double F[3] = {GUARD, GUARD, GUARD};
+        double F[3] = {SUP_GUARD, SUP_GUARD, SUP_GUARD};
         ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, 1, 3, &M1,
                                           &D1, 40.0, MCD_BASIS_MOLE, &x1, g1,
                                           NULL, NULL, MCD_BASIS_MASS, F),
@@ -599,7 +555,7 @@ START_TEST(flux_identities_permutation_invariance)
      * flux. */
     double worst = 0.0;
     int k, m, b;
-    rng_seed(0x5EED0008u);
+    sup_seed(&rng, 0x5EED0008u);
     for (k = 0; k < 1500; k++) {
         state s, p;
         size_t perm[NMAX], i, j, d;
@@ -608,7 +564,7 @@ START_TEST(flux_identities_permutation_invariance)
         for (i = 0; i < s.n; i++)
             perm[i] = i;
         for (i = s.n; i-- > 1;) {
-            size_t r = (size_t)(rng_next() % (i + 1)), t = perm[i];
+            size_t r = (size_t)(sup_next(&rng) % (i + 1)), t = perm[i];
             perm[i] = perm[r];
             perm[r] = t;
         }
@@ -633,7 +589,7 @@ START_TEST(flux_identities_permutation_invariance)
                 for (i = 0; i < s.n; i++)
                     for (d = 0; d < s.nd; d++)
                         Fp[i * s.nd + d] = F[perm[i] * s.nd + d];
-                e = rel_diff(G, Fp, s.n * s.nd);
+                e = sup_rel_diff(G, Fp, s.n * s.nd);
                 if (e > worst)
                     worst = e;
                 ck_assert_msg(e <= 1e-12, "N=%zu perm diff %g", s.n, e);
@@ -652,7 +608,7 @@ START_TEST(flux_identities_mass_and_mole_bases_are_consistent)
      * 1e-12 relative to the largest flux. */
     double worst_a = 0.0, worst_b = 0.0;
     int k, m;
-    rng_seed(0x5EED0009u);
+    sup_seed(&rng, 0x5EED0009u);
     for (k = 0; k < 2000; k++) {
         state s;
         double gw[NMAX * DMAX];
@@ -671,14 +627,14 @@ START_TEST(flux_identities_mass_and_mole_bases_are_consistent)
             ck_assert_int_eq(mcd_flux_convert(s.n, s.nd, s.M, s.x, MCD_BASIS_MOLE,
                                               J, MCD_BASIS_MASS, jc),
                              MCD_OK);
-            e = rel_diff(j, jc, s.n * s.nd);
+            e = sup_rel_diff(j, jc, s.n * s.nd);
             if (e > worst_a)
                 worst_a = e;
             ck_assert_msg(e <= 1e-12, "mass out vs convert %g", e);
             ck_assert_int_eq(flux(&s, (mcd_model)m, MCD_BASIS_MASS, s.w, gw,
                                   NULL, NULL, MCD_BASIS_MOLE, Jw),
                              MCD_OK);
-            e = rel_diff(Jw, J, s.n * s.nd);
+            e = sup_rel_diff(Jw, J, s.n * s.nd);
             if (e > worst_b)
                 worst_b = e;
             ck_assert_msg(e <= 1e-12, "mass in vs mole in %g", e);
@@ -711,18 +667,18 @@ START_TEST(flux_identities_gamma_and_pressure_driving_forces)
      * N species (same solve, right-hand sides rounded differently; the
      * other identity tests measure such differences at ~1e-14). */
     int k, m;
-    rng_seed(0x5EED000Au);
+    sup_seed(&rng, 0x5EED000Au);
     for (k = 0; k < 1000; k++) {
         state s;
         double G[4], J[2 * DMAX], glnP[DMAX];
         size_t d;
         random_state(&s, 2, 0);
         for (d = 0; d < s.nd; d++) {
-            glnP[d] = rng_range(-50.0, 50.0);
+            glnP[d] = sup_range(&rng, -50.0, 50.0);
             s.g[s.nd + d] = -s.g[d];
         }
         for (m = 0; m < 2; m++) {
-            double Gb = rng_range(0.1, 3.0);
+            double Gb = sup_range(&rng, 0.1, 3.0);
             G[0] = Gb; G[1] = 0.0; G[2] = 0.0; G[3] = Gb;
             ck_assert_int_eq(flux(&s, (mcd_model)m, MCD_BASIS_MOLE, s.x, s.g, G,
                                   NULL, MCD_BASIS_MOLE, J),
@@ -731,8 +687,8 @@ START_TEST(flux_identities_gamma_and_pressure_driving_forces)
                 double ref = -s.c * s.D[1] * Gb * s.g[d];
                 ck_assert(fabs(J[d] - ref) <= 1e-12 * fabs(ref) + 1e-300);
             }
-            G[0] = rng_range(-2, 2); G[1] = rng_range(-2, 2);
-            G[2] = rng_range(-2, 2); G[3] = rng_range(-2, 2);
+            G[0] = sup_range(&rng, -2, 2); G[1] = sup_range(&rng, -2, 2);
+            G[2] = sup_range(&rng, -2, 2); G[3] = sup_range(&rng, -2, 2);
             ck_assert_int_eq(flux(&s, (mcd_model)m, MCD_BASIS_MOLE, s.x, s.g, G,
                                   NULL, MCD_BASIS_MOLE, J),
                              MCD_OK);
@@ -760,10 +716,10 @@ START_TEST(flux_identities_gamma_and_pressure_driving_forces)
         double Gam[NMAX * NMAX], dg[NMAX * DMAX], glnP[DMAX];
         double F1[NMAX * DMAX], F2[NMAX * DMAX];
         size_t n, i, j, d;
-        random_state(&s, 2 + (size_t)(rng_next() % (NMAX - 1)), 1);
+        random_state(&s, 2 + (size_t)(sup_next(&rng) % (NMAX - 1)), 1);
         n = s.n;
         for (i = 0; i < n * n; i++)
-            Gam[i] = rng_range(-0.5, 0.5) + ((i % (n + 1)) == 0 ? 1.5 : 0.0);
+            Gam[i] = sup_range(&rng, -0.5, 0.5) + ((i % (n + 1)) == 0 ? 1.5 : 0.0);
         for (j = 0; j < n; j++) { /* equal column sums (= 1) */
             double cs = 0.0;
             for (i = 0; i + 1 < n; i++)
@@ -778,7 +734,7 @@ START_TEST(flux_identities_gamma_and_pressure_driving_forces)
                 dg[i * s.nd + d] = t;
             }
         for (d = 0; d < s.nd; d++)
-            glnP[d] = rng_range(-50.0, 50.0);
+            glnP[d] = sup_range(&rng, -50.0, 50.0);
         for (m = 0; m < 2; m++) {
             ck_assert_int_eq(flux(&s, (mcd_model)m, MCD_BASIS_MOLE, s.x, s.g, Gam,
                                   NULL, MCD_BASIS_MOLE, F1),
@@ -786,8 +742,8 @@ START_TEST(flux_identities_gamma_and_pressure_driving_forces)
             ck_assert_int_eq(flux(&s, (mcd_model)m, MCD_BASIS_MOLE, s.x, dg, NULL,
                                   NULL, MCD_BASIS_MOLE, F2),
                              MCD_OK);
-            ck_assert_msg(rel_diff(F1, F2, n * s.nd) <= 1e-12, "Gamma N=%zu %g",
-                          n, rel_diff(F1, F2, n * s.nd));
+            ck_assert_msg(sup_rel_diff(F1, F2, n * s.nd) <= 1e-12, "Gamma N=%zu %g",
+                          n, sup_rel_diff(F1, F2, n * s.nd));
             for (i = 0; i < n; i++)
                 for (d = 0; d < s.nd; d++)
                     dg[i * s.nd + d] = s.g[i * s.nd + d] +
@@ -798,8 +754,8 @@ START_TEST(flux_identities_gamma_and_pressure_driving_forces)
             ck_assert_int_eq(flux(&s, (mcd_model)m, MCD_BASIS_MOLE, s.x, dg, NULL,
                                   NULL, MCD_BASIS_MOLE, F2),
                              MCD_OK);
-            ck_assert_msg(rel_diff(F1, F2, n * s.nd) <= 1e-12, "lnP N=%zu %g", n,
-                          rel_diff(F1, F2, n * s.nd));
+            ck_assert_msg(sup_rel_diff(F1, F2, n * s.nd) <= 1e-12, "lnP N=%zu %g", n,
+                          sup_rel_diff(F1, F2, n * s.nd));
             /* restore dg for the next model */
             for (i = 0; i < n; i++)
                 for (d = 0; d < s.nd; d++) {
@@ -816,21 +772,6 @@ END_TEST
 /* ------------------------------------------------------------------ */
 /* errors                                                               */
 /* ------------------------------------------------------------------ */
-
-static void fill_guard(double *a, size_t len)
-{
-    size_t i;
-    for (i = 0; i < len; i++)
-        a[i] = GUARD;
-}
-static int guard_intact(const double *a, size_t len)
-{
-    size_t i;
-    for (i = 0; i < len; i++)
-        if (a[i] != GUARD)
-            return 0;
-    return 1;
-}
 
 START_TEST(flux_identities_errors_leave_output_untouched)
 {
@@ -851,11 +792,11 @@ START_TEST(flux_identities_errors_leave_output_untouched)
 
 #define EXPECT(call, codev, argname)                                          \
     do {                                                                      \
-        fill_guard(out, N * ND);                                              \
+        sup_guard_fill(out, N * ND);                                          \
         r.code = (int)(call);                                                 \
         r.arg = (argname);                                                    \
         ck_assert_int_eq(r.code, (codev));                                    \
-        ck_assert(guard_intact(out, N * ND));                                 \
+        ck_assert(sup_guard_intact(out, N * ND));                             \
         if (r.arg != NULL)                                                    \
             ck_assert_msg(strstr(mcd_workspace_last_error(ws), r.arg) != NULL,\
                           "message '%s' lacks '%s'",                          \
@@ -870,11 +811,11 @@ START_TEST(flux_identities_errors_leave_output_untouched)
     EXPECT(CALL(ws, 0, 0, ND, M, D, 40.0, 0, x, g, NULL, NULL, 0), MCD_EINVAL,
            "n_species");
     ck_assert_int_eq(mcd_workspace_alloc(2, &small), MCD_OK);
-    fill_guard(out, N * ND);
+    sup_guard_fill(out, N * ND);
     ck_assert_int_eq(mcd_flux_compute(small, 0, N, ND, M, D, 40.0, 0, x, g, NULL,
                                       NULL, 0, out),
                      MCD_EBADLEN);
-    ck_assert(guard_intact(out, N * ND));
+    ck_assert(sup_guard_intact(out, N * ND));
     ck_assert(strstr(mcd_workspace_last_error(small), "n_species") != NULL);
     mcd_workspace_free(small);
     EXPECT(CALL(ws, 0, NMAX + 1, ND, M, D, 40.0, 0, x, g, NULL, NULL, 0),
@@ -932,7 +873,7 @@ START_TEST(flux_identities_errors_leave_output_untouched)
            "symmetric");
     memcpy(bad, D, sizeof(bad));
     bad[1 * N + 2] *= 1.0 + 1e-14; /* within 1e-12: accepted */
-    fill_guard(out, N * ND);
+    sup_guard_fill(out, N * ND);
     ck_assert_int_eq(CALL(ws, 0, N, ND, M, bad, 40.0, 0, x, g, NULL, NULL, 0),
                      MCD_OK);
     ck_assert_str_eq(mcd_workspace_last_error(ws), "");
@@ -1064,7 +1005,7 @@ START_TEST(flux_identities_large_capacity_path_matches_small)
      * residual 1e-12 as in the residual test. */
     mcd_workspace *big;
     int k;
-    rng_seed(0x5EED000Bu);
+    sup_seed(&rng, 0x5EED000Bu);
     ck_assert_int_eq(mcd_workspace_alloc(64, &big), MCD_OK);
     for (k = 0; k < 50; k++) {
         enum { NB = 60 };
@@ -1073,9 +1014,9 @@ START_TEST(flux_identities_large_capacity_path_matches_small)
         long double worst = 0.0L;
         sx = 0.0;
         for (i = 0; i < NB; i++) {
-            x[i] = (i % 7 == 3) ? 0.0 : pow(10.0, rng_range(-6.0, 0.0));
+            x[i] = (i % 7 == 3) ? 0.0 : sup_decades(&rng, -6.0, 0.0);
             sx += x[i];
-            g[i] = rng_range(-1.0, 1.0);
+            g[i] = sup_range(&rng, -1.0, 1.0);
         }
         for (i = 0; i < NB; i++)
             x[i] /= sx;
@@ -1086,10 +1027,7 @@ START_TEST(flux_identities_large_capacity_path_matches_small)
             for (i = 0; i < NB; i++)
                 g[i] -= m / NB;
         }
-        for (i = 0; i < NB; i++)
-            for (j = i; j < NB; j++)
-                D[i * NB + j] = D[j * NB + i] =
-                    (i == j) ? 0.0 : pow(10.0, rng_range(-6.0, -4.0));
+        sup_dij_decades(&rng, NB, D, -6.0, -4.0);
         ck_assert_int_eq(mcd_flux_compute(big, MCD_MODEL_MAXWELL_STEFAN, NB, 1,
                                           NULL, D, 30.0, MCD_BASIS_MOLE, x, g,
                                           NULL, NULL, MCD_BASIS_MOLE, J),
@@ -1120,57 +1058,11 @@ END_TEST
 
 /* The per-state calls must not allocate, LAPACK included (LAPACKE's
  * row-major wrappers and high-level drivers would). On glibc the test
- * executable interposes malloc and friends, forwarding to the __libc_*
- * entry points, and counts calls made inside a window. A direct malloc
- * inside the window proves that the hook is live (it is not under
- * valgrind, which replaces malloc itself); without a live hook the test
- * only checks that the calls succeed. */
-#if defined(__GLIBC__) && !defined(__SANITIZE_ADDRESS__)
-#define HAVE_ALLOC_HOOK 1
-extern void *__libc_malloc(size_t size);
-extern void *__libc_calloc(size_t n, size_t size);
-extern void *__libc_realloc(void *p, size_t size);
-extern void *__libc_memalign(size_t align, size_t size);
-extern void __libc_free(void *p);
-int posix_memalign(void **out, size_t align, size_t size); /* POSIX */
-static volatile int alloc_window;
-static volatile long alloc_count;
-void *malloc(size_t size)
-{
-    if (alloc_window)
-        alloc_count++;
-    return __libc_malloc(size);
-}
-void *calloc(size_t n, size_t size)
-{
-    if (alloc_window)
-        alloc_count++;
-    return __libc_calloc(n, size);
-}
-void *realloc(void *p, size_t size)
-{
-    if (alloc_window)
-        alloc_count++;
-    return __libc_realloc(p, size);
-}
-int posix_memalign(void **out, size_t align, size_t size)
-{
-    void *p;
-    if (alloc_window)
-        alloc_count++;
-    p = __libc_memalign(align, size);
-    if (p == NULL)
-        return 12; /* ENOMEM */
-    *out = p;
-    return 0;
-}
-void free(void *p) { __libc_free(p); }
-#else
-#define HAVE_ALLOC_HOOK 0
-static volatile int alloc_window;
-static volatile long alloc_count;
-#endif
-
+ * executable interposes malloc and friends (SUP_ALLOC_HOOK in support.h),
+ * forwarding to the __libc_* entry points, and counts calls made inside a
+ * window. A direct malloc inside the window proves that the hook is live
+ * (it is not under AddressSanitizer); without a live hook the test only
+ * checks that the calls succeed. */
 START_TEST(flux_identities_per_state_calls_do_not_allocate)
 {
     /* N = 40 takes the LAPACK paths (dpotrf/dpotrs, dgetrf/dgetrs, dgeev)
@@ -1181,24 +1073,21 @@ START_TEST(flux_identities_per_state_calls_do_not_allocate)
     mcd_workspace *big;
     size_t i, j, nn, ns = 0;
     int pass, live, st[8];
-    void *probe;
-    rng_seed(0x5EED000Du);
+    sup_seed(&rng, 0x5EED000Du);
     ck_assert_int_eq(mcd_workspace_alloc(NB, &big), MCD_OK);
     for (i = 0; i < NB; i++) {
         x[i] = 1.0 / NB;
-        M[i] = rng_range(0.002, 0.2);
+        M[i] = sup_range(&rng, 0.002, 0.2);
         g[2 * i] = (i % 2) ? 1.0 : -1.0;
         g[2 * i + 1] = (i % 3 == 0) ? 2.0 : (i % 3 == 1 ? -1.0 : -1.0);
         for (j = i; j < NB; j++)
-            D[i * NB + j] = D[j * NB + i] = (i == j) ? 0.0 : rng_range(1e-5, 1e-4);
+            D[i * NB + j] = D[j * NB + i] = (i == j) ? 0.0 : sup_range(&rng, 1e-5, 1e-4);
     }
     /* Check's assertions allocate (messages to the parent process), so the
      * statuses are collected inside the window and checked after it. */
     for (pass = 0; pass < 2; pass++) { /* pass 0 warms up the BLAS */
-        if (pass == 1) {
-            alloc_count = 0;
-            alloc_window = 1;
-        }
+        if (pass == 1)
+            sup_alloc_open();
         ns = 0;
         for (nn = 5; nn <= NB; nn += NB - 5) {
             double xs[NB], sx = 0.0;
@@ -1225,17 +1114,14 @@ START_TEST(flux_identities_per_state_calls_do_not_allocate)
         for (i = 0; i < ns; i++)
             ck_assert_int_eq(st[i], MCD_OK);
     }
-    probe = malloc(16);
-    live = alloc_count > 0;
-    alloc_window = 0;
-    free(probe);
+    live = sup_alloc_close();
     for (i = 0; i < ns; i++)
         ck_assert_int_eq(st[i], MCD_OK);
     fprintf(stderr, "allocation hook %s; allocations in the window: %ld "
                     "(the probe included)\n",
-            (HAVE_ALLOC_HOOK && live) ? "live" : "not live", (long)alloc_count);
-    if (HAVE_ALLOC_HOOK && live)
-        ck_assert_int_eq(alloc_count, 1); /* the probe only */
+            live ? "live" : "not live", (long)sup_alloc_count);
+    if (live)
+        ck_assert_int_eq(sup_alloc_count, 1); /* the probe only */
     mcd_workspace_free(big);
 }
 END_TEST
@@ -1269,10 +1155,5 @@ static Suite *flux_suite(void)
 
 int main(void)
 {
-    SRunner *sr = srunner_create(flux_suite());
-    int failed;
-    srunner_run_all(sr, CK_ENV);
-    failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+    return sup_run(flux_suite());
 }

@@ -7,21 +7,12 @@
 #include <string.h>
 
 #include "mcdiff.h"
+#include "support.h"
 
-#define GUARD 12345.678
-
-/* Relative difference. */
-static double rel(double a, double b) { return fabs(a - b) / fabs(b); }
-
-/* Local deterministic PRNG (xorshift64*), fixed seed per test. */
-static unsigned long long rng_state;
-static unsigned rnd(unsigned n)
-{
-    rng_state ^= rng_state >> 12;
-    rng_state ^= rng_state << 25;
-    rng_state ^= rng_state >> 27;
-    return (unsigned)((rng_state * 2685821657736338717ULL) >> 33) % n;
-}
+/* Local deterministic PRNG (xorshift64*), fixed seed per test; rnd(n)
+ * takes the top 31 bits of a draw modulo n. */
+static sup_rng rng = SUP_RNG(SUP_XORSHIFT64STAR, 0);
+static unsigned rnd(unsigned n) { return (unsigned)(sup_next(&rng) >> 33) % n; }
 
 /* ------------------------------------------------------------------ */
 
@@ -39,7 +30,7 @@ START_TEST(formula_element_weights_match_iupac_conventional_values)
         {92, "U", 238.02891},
     };
     for (size_t i = 0; i < sizeof ref / sizeof ref[0]; ++i) {
-        double w = GUARD;
+        double w = SUP_GUARD;
         ck_assert_int_eq(mcd_element_weight(ref[i].Z, &w), MCD_OK);
         ck_assert_double_eq_tol(w, ref[i].A * 1e-3, 1e-15 * ref[i].A);
         ck_assert_str_eq(mcd_element_symbol(ref[i].Z), ref[i].sym);
@@ -51,7 +42,7 @@ START_TEST(formula_elements_without_standard_weight_are_not_found)
 {
     /* Tc, Pm, Po..Ac and Z >= 93 have no standard atomic weight (CIAAW). */
     static const int none[] = {43, 61, 84, 85, 86, 87, 88, 89, 93, 100, 118};
-    double w = GUARD, M = GUARD;
+    double w = SUP_GUARD, M = SUP_GUARD;
     char err[128];
     for (size_t i = 0; i < sizeof none / sizeof none[0]; ++i) {
         ck_assert_int_eq(mcd_element_weight(none[i], &w), MCD_ENOTFOUND);
@@ -61,11 +52,11 @@ START_TEST(formula_elements_without_standard_weight_are_not_found)
     ck_assert_int_eq(mcd_element_weight(119, &w), MCD_ENOTFOUND);
     ck_assert_int_eq(mcd_element_weight(-5, &w), MCD_ENOTFOUND);
     ck_assert_int_eq(mcd_element_weight(1, NULL), MCD_EINVAL);
-    ck_assert(w == GUARD);
+    ck_assert(w == SUP_GUARD);
     ck_assert_int_eq(mcd_formula_molar_mass("TcO2", &M, err, sizeof err),
                      MCD_ENOTFOUND);
     ck_assert_ptr_nonnull(strstr(err, "Tc"));
-    ck_assert(M == GUARD);
+    ck_assert(M == SUP_GUARD);
 }
 END_TEST
 
@@ -112,11 +103,11 @@ START_TEST(formula_molar_masses_match_handbook)
         {"CCl4", 153.823},     {"NH3", 17.0305},   {"SO2", 64.064},
     };
     for (size_t i = 0; i < sizeof ref / sizeof ref[0]; ++i) {
-        double M = GUARD;
+        double M = SUP_GUARD;
         char err[64] = "";
         ck_assert_int_eq(mcd_formula_molar_mass(ref[i].f, &M, err, sizeof err),
                          MCD_OK);
-        ck_assert_msg(rel(M * 1e3, ref[i].M) < 1e-4, "%s: %.5f vs %.5f",
+        ck_assert_msg(sup_rel(M * 1e3, ref[i].M) < 1e-4, "%s: %.5f vs %.5f",
                       ref[i].f, M * 1e3, ref[i].M);
     }
     /* The brief's reference number for acetone: 58.079 g/mol (3 decimals;
@@ -146,7 +137,7 @@ START_TEST(formula_groups_equal_expanded_formulas)
         {"K4(Fe(CN)6)", "K4FeC6N6"},
     };
     for (size_t i = 0; i < sizeof pairs / sizeof pairs[0]; ++i) {
-        double a = GUARD, b = GUARD;
+        double a = SUP_GUARD, b = SUP_GUARD;
         mcd_status sa = mcd_formula_molar_mass(pairs[i][0], &a, NULL, 0);
         mcd_status sb = mcd_formula_molar_mass(pairs[i][1], &b, NULL, 0);
         if (strchr(pairs[i][0], ' ') != NULL) {
@@ -156,7 +147,7 @@ START_TEST(formula_groups_equal_expanded_formulas)
         }
         ck_assert_int_eq(sa, MCD_OK);
         ck_assert_int_eq(sb, MCD_OK);
-        ck_assert_msg(rel(a, b) < 1e-15, "%s vs %s: %.17g %.17g", pairs[i][0],
+        ck_assert_msg(sup_rel(a, b) < 1e-15, "%s vs %s: %.17g %.17g", pairs[i][0],
                       pairs[i][1], a, b);
     }
     {
@@ -164,7 +155,7 @@ START_TEST(formula_groups_equal_expanded_formulas)
         ck_assert_int_eq(mcd_formula_molar_mass("((((((((C2)2)2)2)2)2)2)2)",
                                                 &a, NULL, 0), MCD_OK);
         ck_assert_int_eq(mcd_formula_molar_mass("C256", &b, NULL, 0), MCD_OK);
-        ck_assert(rel(a, b) < 1e-15);
+        ck_assert(sup_rel(a, b) < 1e-15);
     }
 }
 END_TEST
@@ -252,7 +243,7 @@ static const struct {
 START_TEST(formula_malformed_reports_position_and_leaves_outputs)
 {
     for (size_t i = 0; i < sizeof bad / sizeof bad[0]; ++i) {
-        double M = GUARD, V = GUARD;
+        double M = SUP_GUARD, V = SUP_GUARD;
         int Z[4] = {-1, -1, -1, -1};
         long c[4] = {-1, -1, -1, -1};
         size_t n = 777;
@@ -264,7 +255,7 @@ START_TEST(formula_malformed_reports_position_and_leaves_outputs)
                       "not terminated");
         ck_assert_msg(strstr(err, bad[i].msg) != NULL,
                       "'%s': got '%s', want '%s'", bad[i].f, err, bad[i].msg);
-        ck_assert(M == GUARD);
+        ck_assert(M == SUP_GUARD);
         ck_assert_int_eq(mcd_formula_elements(bad[i].f, 4, Z, c, &n, NULL, 0),
                          bad[i].st);
         ck_assert_int_eq(Z[0], -1);
@@ -272,7 +263,7 @@ START_TEST(formula_malformed_reports_position_and_leaves_outputs)
         ck_assert_uint_eq(n, 777);
         ck_assert_int_eq(mcd_formula_diffusion_volume(bad[i].f, 0, &V, err,
                                                       sizeof err), bad[i].st);
-        ck_assert(V == GUARD);
+        ck_assert(V == SUP_GUARD);
     }
 }
 END_TEST
@@ -281,7 +272,7 @@ START_TEST(formula_error_buffer_is_always_terminated)
 {
     /* Tiny buffers get a truncated, terminated message; NULL is fine. */
     char tiny[5];
-    double M = GUARD;
+    double M = SUP_GUARD;
     memset(tiny, 'x', sizeof tiny);
     ck_assert_int_eq(mcd_formula_molar_mass("Xq", &M, tiny, sizeof tiny),
                      MCD_ENOTFOUND);
@@ -293,7 +284,7 @@ START_TEST(formula_error_buffer_is_always_terminated)
     ck_assert_int_eq(tiny[4], '\0');
     ck_assert_int_eq(mcd_formula_molar_mass(NULL, &M, NULL, 0), MCD_EINVAL);
     ck_assert_int_eq(mcd_formula_molar_mass("H2", NULL, NULL, 0), MCD_EINVAL);
-    ck_assert(M == GUARD);
+    ck_assert(M == SUP_GUARD);
 }
 END_TEST
 
@@ -305,7 +296,7 @@ START_TEST(formula_random_formulas_sum_atomic_weights)
      * one sign, each rounding by 1.1e-16 relative. */
     static const char *sym[] = {"C", "H", "O", "N", "S", "Cl", "F", "Br",
                                 "Si", "Na", "Fe", "I", "P", "He"};
-    rng_state = 0x9e3779b97f4a7c15ULL;
+    sup_seed(&rng, 0x9e3779b97f4a7c15ULL);
     for (int trial = 0; trial < 2000; ++trial) {
         char f[128], g[160], fg[300];
         size_t len = 0;
@@ -332,13 +323,13 @@ START_TEST(formula_random_formulas_sum_atomic_weights)
             ck_assert_int_eq(mcd_element_weight(Z[i], &w), MCD_OK);
             sum += (double)c[i] * w;
         }
-        ck_assert_msg(rel(M, sum) < 1e-13, "%s", f);
+        ck_assert_msg(sup_rel(M, sum) < 1e-13, "%s", f);
         snprintf(g, sizeof g, "(%s)%u", f, k);
         ck_assert_int_eq(mcd_formula_molar_mass(g, &Mg, NULL, 0), MCD_OK);
-        ck_assert_msg(rel(Mg, k * M) < 1e-13, "%s", g);
+        ck_assert_msg(sup_rel(Mg, k * M) < 1e-13, "%s", g);
         snprintf(fg, sizeof fg, "%s%s", f, g);
         ck_assert_int_eq(mcd_formula_molar_mass(fg, &Mfg, NULL, 0), MCD_OK);
-        ck_assert_msg(rel(Mfg, M + Mg) < 1e-13, "%s", fg);
+        ck_assert_msg(sup_rel(Mfg, M + Mg) < 1e-13, "%s", fg);
     }
 }
 END_TEST
@@ -366,7 +357,7 @@ START_TEST(formula_diffusion_volume_matches_method_examples)
         {"C4H4S", 1, 4 * 15.9 + 4 * 2.31 + 22.9 - 18.3}, /* thiophene */
     };
     for (size_t i = 0; i < sizeof ref / sizeof ref[0]; ++i) {
-        double V = GUARD;
+        double V = SUP_GUARD;
         ck_assert_int_eq(mcd_formula_diffusion_volume(ref[i].f, ref[i].rings,
                                                       &V, NULL, 0), MCD_OK);
         ck_assert_msg(fabs(V - ref[i].V) < 1e-9, "%s: %g vs %g", ref[i].f, V,
@@ -377,7 +368,7 @@ END_TEST
 
 START_TEST(formula_diffusion_volume_errors)
 {
-    double V = GUARD;
+    double V = SUP_GUARD;
     char err[128] = "";
     /* Si has no increment in the 1969 set. */
     ck_assert_int_eq(mcd_formula_diffusion_volume("SiH4", 0, &V, err,
@@ -394,7 +385,7 @@ START_TEST(formula_diffusion_volume_errors)
                      MCD_EINVAL);
     ck_assert_int_eq(mcd_formula_diffusion_volume("H2", 0, NULL, NULL, 0),
                      MCD_EINVAL);
-    ck_assert(V == GUARD);
+    ck_assert(V == SUP_GUARD);
 }
 END_TEST
 
@@ -413,19 +404,19 @@ START_TEST(formula_tabulated_molecule_volumes)
         {"AIR", 19.7}, {"Air", 19.7}, {"OH2", 13.1}, {"OC", 18.0},
     };
     for (size_t i = 0; i < sizeof ref / sizeof ref[0]; ++i) {
-        double V = GUARD;
+        double V = SUP_GUARD;
         ck_assert_int_eq(mcd_fsg_molecule_volume(ref[i].f, &V), MCD_OK);
         ck_assert_msg(V == ref[i].V, "%s", ref[i].f);
     }
     {
-        double V = GUARD;
+        double V = SUP_GUARD;
         ck_assert_int_eq(mcd_fsg_molecule_volume("CH4", &V), MCD_ENOTFOUND);
         ck_assert_int_eq(mcd_fsg_molecule_volume("airx", &V), MCD_ENOTFOUND);
         ck_assert_int_eq(mcd_fsg_molecule_volume("", &V), MCD_ENOTFOUND);
         ck_assert_int_eq(mcd_fsg_molecule_volume("C(", &V), MCD_ENOTFOUND);
         ck_assert_int_eq(mcd_fsg_molecule_volume(NULL, &V), MCD_EINVAL);
         ck_assert_int_eq(mcd_fsg_molecule_volume("H2", NULL), MCD_EINVAL);
-        ck_assert(V == GUARD);
+        ck_assert(V == SUP_GUARD);
     }
 }
 END_TEST
@@ -448,9 +439,5 @@ int main(void)
     tcase_add_test(tc, formula_diffusion_volume_errors);
     tcase_add_test(tc, formula_tabulated_molecule_volumes);
     suite_add_tcase(s, tc);
-    SRunner *sr = srunner_create(s);
-    srunner_run_all(sr, CK_ENV);
-    int failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed ? EXIT_FAILURE : EXIT_SUCCESS;
+    return sup_run(s);
 }

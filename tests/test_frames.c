@@ -18,25 +18,15 @@
 #include <string.h>
 
 #include "mcdiff.h"
+#include "support.h"
 
 #define NMAX 30
 #define DMAX 3
-#define GUARD 12345.678
 #define N_STATES 3000
 #define TOL 1e-12
 
-static uint64_t rng_state;
+static sup_rng rng = SUP_RNG(SUP_SPLITMIX64, 0);
 static double floor_scale; /* see relerr */
-static void rng_seed(uint64_t s) { rng_state = s; }
-static uint64_t rng_next(void)
-{
-    uint64_t z = (rng_state += 0x9E3779B97F4A7C15ull);
-    z = (z ^ (z >> 30)) * 0xBF58476D1CE4E5B9ull;
-    z = (z ^ (z >> 27)) * 0x94D049BB133111EBull;
-    return z ^ (z >> 31);
-}
-static double rng_u01(void) { return (double)(rng_next() >> 11) * 0x1.0p-53; }
-static double rng_range(double a, double b) { return a + (b - a) * rng_u01(); }
 
 /* A random mixture and species velocities, with all derived quantities
  * computed from the definitions. */
@@ -63,15 +53,15 @@ static void averages(state *s)
 static void random_state(state *s, size_t nmin)
 {
     double sx = 0.0;
-    s->n = nmin + (size_t)(rng_next() % (NMAX - nmin + 1));
-    s->nd = 1 + (size_t)(rng_next() % DMAX);
-    s->c = 0.1 * pow(10.0, 5.0 * rng_u01()); /* 0.1 .. 1e4 mol/m^3 */
+    s->n = nmin + (size_t)(sup_next(&rng) % (NMAX - nmin + 1));
+    s->nd = 1 + (size_t)(sup_next(&rng) % DMAX);
+    s->c = 0.1 * pow(10.0, 5.0 * sup_u01(&rng)); /* 0.1 .. 1e4 mol/m^3 */
     for (size_t i = 0; i < s->n; i++) {
-        s->M[i] = 2e-3 * exp(rng_u01() * log(0.35 / 2e-3));
-        s->x[i] = (rng_next() % 6 == 0) ? 0.0 : rng_u01();
+        s->M[i] = sup_molar_mass(&rng);
+        s->x[i] = (sup_next(&rng) % 6 == 0) ? 0.0 : sup_u01(&rng);
         sx += s->x[i];
         for (size_t d = 0; d < s->nd; d++)
-            s->v[i * s->nd + d] = rng_range(-1.0, 1.0);
+            s->v[i * s->nd + d] = sup_range(&rng, -1.0, 1.0);
     }
     if (sx == 0.0) {
         s->x[0] = 1.0;
@@ -104,21 +94,13 @@ static void mass_flux(const state *s, const double *ref, double *j)
             j[i * s->nd + d] = s->rho * s->w[i] * (s->v[i * s->nd + d] - ref[d]);
 }
 
-static double maxabs(const double *a, size_t m)
-{
-    double r = 0.0;
-    for (size_t i = 0; i < m; i++)
-        if (fabs(a[i]) > r)
-            r = fabs(a[i]);
-    return r;
-}
 /* Largest |a - b| relative to the flux scale of the state: the largest
  * |b|, but at least `floor` (c or rho times a velocity of 1 m/s), so that a
  * reference that is zero up to round-off (one species, or velocities shifted
  * to a zero average) is not compared relatively with its own round-off. */
 static double relerr(const double *a, const double *b, size_t m)
 {
-    double e = 0.0, sc = maxabs(b, m);
+    double e = 0.0, sc = sup_max_abs(b, m);
     if (sc < floor_scale)
         sc = floor_scale;
     for (size_t i = 0; i < m; i++)
@@ -129,7 +111,7 @@ static double relerr(const double *a, const double *b, size_t m)
 /* largest |sum over species| relative to the largest entry */
 static double sumerr(const double *a, size_t n, size_t nd)
 {
-    double e = 0.0, sc = maxabs(a, n * nd);
+    double e = 0.0, sc = sup_max_abs(a, n * nd);
     for (size_t d = 0; d < nd; d++) {
         double s = 0.0;
         for (size_t i = 0; i < n; i++)
@@ -140,19 +122,6 @@ static double sumerr(const double *a, size_t n, size_t nd)
     return sc > 0.0 ? e / sc : e;
 }
 
-static void fill(double *a, size_t m, double v)
-{
-    for (size_t i = 0; i < m; i++)
-        a[i] = v;
-}
-static int all_eq(const double *a, size_t m, double v)
-{
-    for (size_t i = 0; i < m; i++)
-        if (a[i] != v)
-            return 0;
-    return 1;
-}
-
 /* ---------------------------------------------------------------- */
 
 START_TEST(frames_mass_flux_from_molar_matches_definition)
@@ -160,7 +129,7 @@ START_TEST(frames_mass_flux_from_molar_matches_definition)
     state s;
     double J[NMAX * DMAX], j[NMAX * DMAX], jc[NMAX * DMAX], Jc[NMAX * DMAX];
     double e1 = 0, e2 = 0, e3 = 0;
-    rng_seed(2001);
+    sup_seed(&rng, 2001);
     for (int k = 0; k < N_STATES; k++) {
         random_state(&s, 1);
         molar_flux(&s, s.u, J);
@@ -189,7 +158,7 @@ START_TEST(frames_convert_round_trip_and_zero_sum)
     state s;
     double J[NMAX * DMAX], j[NMAX * DMAX], J2[NMAX * DMAX], cp[NMAX * DMAX];
     double e1 = 0, e2 = 0, e3 = 0;
-    rng_seed(2002);
+    sup_seed(&rng, 2002);
     for (int k = 0; k < N_STATES; k++) {
         random_state(&s, 1);
         molar_flux(&s, s.u, J);
@@ -218,11 +187,11 @@ START_TEST(frames_convert_output_always_sums_to_zero)
 {
     state s;
     double F[NMAX * DMAX], out[NMAX * DMAX], e = 0;
-    rng_seed(2003);
+    sup_seed(&rng, 2003);
     for (int k = 0; k < 1000; k++) {
         random_state(&s, 1);
         for (size_t i = 0; i < s.n * s.nd; i++)
-            F[i] = rng_range(-1.0, 1.0);
+            F[i] = sup_range(&rng, -1.0, 1.0);
         ck_assert_int_eq(mcd_flux_convert(s.n, s.nd, s.M, s.x, k % 2 ? MCD_BASIS_MASS : MCD_BASIS_MOLE,
                                           F, k % 2 ? MCD_BASIS_MOLE : MCD_BASIS_MASS, out), MCD_OK);
         if (sumerr(out, s.n, s.nd) > e)
@@ -240,13 +209,13 @@ START_TEST(frames_volume_frame_matches_definition)
     state s;
     double J[NMAX * DMAX], JV[NMAX * DMAX], JVref[NMAX * DMAX], Vb[NMAX];
     double vV[DMAX], e_ideal = 0, e_non = 0;
-    rng_seed(2004);
+    sup_seed(&rng, 2004);
     for (int k = 0; k < N_STATES; k++) {
         int ideal = k % 2 == 0;
         double sxv = 0.0;
         random_state(&s, 1);
         for (size_t i = 0; i < s.n; i++) {
-            Vb[i] = ideal ? 1.0 / s.c : rng_range(-0.3, 2.0) / s.c;
+            Vb[i] = ideal ? 1.0 / s.c : sup_range(&rng, -0.3, 2.0) / s.c;
             sxv += s.x[i] * Vb[i];
         }
         if (!ideal) {
@@ -282,12 +251,12 @@ START_TEST(frames_species_frame_matches_definition)
 {
     state s;
     double J[NMAX * DMAX], Jk[NMAX * DMAX], ref[NMAX * DMAX], e = 0;
-    rng_seed(2005);
+    sup_seed(&rng, 2005);
     for (int t = 0; t < N_STATES; t++) {
         size_t k;
         random_state(&s, 1);
         do
-            k = (size_t)(rng_next() % s.n);
+            k = (size_t)(sup_next(&rng) % s.n);
         while (s.x[k] == 0.0);
         molar_flux(&s, s.u, J);
         molar_flux(&s, s.v + k * s.nd, ref);
@@ -312,7 +281,7 @@ static void check_total(mcd_basis basis, uint64_t seed)
     double F[NMAX * DMAX], tot[NMAX * DMAX], ref[NMAX * DMAX], bulk[DMAX];
     double nu[NMAX], vals[DMAX], zero[DMAX] = {0, 0, 0};
     double worst[4] = {0, 0, 0, 0};
-    rng_seed(seed);
+    sup_seed(&rng, seed);
     for (int t = 0; t < N_STATES; t++) {
         mcd_bootstrap kind = (mcd_bootstrap)(t % 4);
         size_t sp = 0;
@@ -324,7 +293,7 @@ static void check_total(mcd_basis basis, uint64_t seed)
         floor_scale = rho_or_c;
         if (kind == MCD_BOOT_STAGNANT) {
             do
-                sp = (size_t)(rng_next() % s.n);
+                sp = (size_t)(sup_next(&rng) % s.n);
             while (s.x[sp] == 0.0);
             for (size_t d = 0; d < s.nd; d++)
                 s.v[sp * s.nd + d] = 0.0;
@@ -333,7 +302,7 @@ static void check_total(mcd_basis basis, uint64_t seed)
              * holds: sum nu_i y_i (v_i + a) = 0 (nu = 1 for equimolar) */
             double syn = 0.0;
             for (size_t i = 0; i < s.n; i++) {
-                nu[i] = kind == MCD_BOOT_EQUIMOLAR ? 1.0 : rng_range(-1.0, 2.0);
+                nu[i] = kind == MCD_BOOT_EQUIMOLAR ? 1.0 : sup_range(&rng, -1.0, 2.0);
                 syn += nu[i] * y[i];
             }
             if (fabs(syn) < 0.05) {
@@ -361,14 +330,14 @@ static void check_total(mcd_basis basis, uint64_t seed)
                     ref[i * s.nd + d] *= s.M[i]; /* n_i = M_i N_i */
         for (size_t d = 0; d < s.nd; d++)
             vals[d] = rho_or_c * (basis == MCD_BASIS_MOLE ? s.u[d] : s.vm[d]);
-        fill(bulk, DMAX, GUARD);
+        sup_guard_fill(bulk, DMAX);
         ck_assert_int_eq(mcd_flux_total(s.n, s.nd, basis, y, F, kind, sp,
                                         kind == MCD_BOOT_TOTAL ? vals
                                         : kind == MCD_BOOT_WEIGHTS ? nu : NULL,
                                         tot, bulk), MCD_OK);
         double e = relerr(tot, ref, s.n * s.nd);
         /* bulk flux: c u or rho v of the construction */
-        double eb = 0.0, scb = maxabs(ref, s.n * s.nd);
+        double eb = 0.0, scb = sup_max_abs(ref, s.n * s.nd);
         if (scb < floor_scale)
             scb = floor_scale;
         for (size_t d = 0; d < s.nd; d++)
@@ -381,7 +350,7 @@ static void check_total(mcd_basis basis, uint64_t seed)
         if (kind == MCD_BOOT_STAGNANT)
             for (size_t d = 0; d < s.nd; d++)
                 ck_assert_double_le(fabs(tot[sp * s.nd + d]),
-                                    TOL * (maxabs(ref, s.n * s.nd) + floor_scale));
+                                    TOL * (sup_max_abs(ref, s.n * s.nd) + floor_scale));
     }
     fprintf(stderr, "total (%s): TOTAL %.3g STAGNANT %.3g EQUIMOLAR %.3g "
             "WEIGHTS %.3g\n", basis == MCD_BASIS_MOLE ? "mole" : "mass",
@@ -427,7 +396,7 @@ START_TEST(frames_velocity_difference_matches_construction)
 {
     state s;
     double J[NMAX * DMAX], dv[DMAX], ref[DMAX], e = 0;
-    rng_seed(2008);
+    sup_seed(&rng, 2008);
     for (int t = 0; t < N_STATES; t++) {
         random_state(&s, 1);
         molar_flux(&s, s.u, J);
@@ -449,22 +418,23 @@ START_TEST(frames_projection_removes_residual)
 {
     double F[NMAX * DMAX], F0[NMAX * DMAX], F1[NMAX * DMAX], r[DMAX], r2[DMAX];
     double wts[NMAX];
-    rng_seed(2009);
+    sup_seed(&rng, 2009);
     for (int t = 0; t < N_STATES; t++) {
-        size_t n = 1 + (size_t)(rng_next() % NMAX), nd = 1 + (size_t)(rng_next() % DMAX);
+        size_t n = 1 + (size_t)(sup_next(&rng) % NMAX);
+        size_t nd = 1 + (size_t)(sup_next(&rng) % DMAX);
         int use_w = t % 2;
         double sw = 0.0, sc;
         for (size_t i = 0; i < n * nd; i++)
-            F[i] = F0[i] = rng_range(-1.0, 1.0) * 10.0;
+            F[i] = F0[i] = sup_range(&rng, -1.0, 1.0) * 10.0;
         for (size_t i = 0; i < n; i++) {
-            wts[i] = (rng_next() % 5 == 0) ? 0.0 : rng_u01();
+            wts[i] = (sup_next(&rng) % 5 == 0) ? 0.0 : sup_u01(&rng);
             sw += wts[i];
         }
         if (sw == 0.0) {
             wts[0] = 0.5;
             sw = 0.5;
         }
-        sc = maxabs(F0, n * nd);
+        sc = sup_max_abs(F0, n * nd);
         ck_assert_int_eq(mcd_flux_project(n, nd, use_w ? wts : NULL, F, r), MCD_OK);
         for (size_t d = 0; d < nd; d++) {
             double s0 = 0.0, s1 = 0.0;
@@ -500,7 +470,7 @@ START_TEST(frames_projection_with_x_is_uniform_velocity_shift)
 {
     state s;
     double F[NMAX * DMAX], F0[NMAX * DMAX], r[DMAX];
-    rng_seed(2010);
+    sup_seed(&rng, 2010);
     for (int t = 0; t < N_STATES; t++) {
         random_state(&s, 1);
         /* a flux set that does not sum to zero: from velocities relative to
@@ -538,11 +508,11 @@ START_TEST(frames_error_paths_leave_outputs_untouched)
 
 #define EXPECT(call, code)                          \
     do {                                            \
-        fill(out, 6, GUARD);                        \
-        fill(ob, 3, GUARD);                         \
+        sup_guard_fill(out, 6);                     \
+        sup_guard_fill(ob, 3);                      \
         ck_assert_int_eq((call), (code));           \
-        ck_assert(all_eq(out, 6, GUARD));           \
-        ck_assert(all_eq(ob, 3, GUARD));            \
+        ck_assert(sup_guard_intact(out, 6));        \
+        ck_assert(sup_guard_intact(ob, 3));         \
     } while (0)
 #define RESET()                                     \
     do {                                            \
@@ -677,10 +647,10 @@ START_TEST(frames_error_paths_leave_outputs_untouched)
 #define EXPECT_P(wts, nn, nd, code)                               \
     do {                                                          \
         memcpy(F, J, sizeof F);                                   \
-        fill(ob, 3, GUARD);                                       \
+        sup_guard_fill(ob, 3);                                    \
         ck_assert_int_eq(mcd_flux_project((nn), (nd), (wts), F, ob), (code)); \
         ck_assert(memcmp(F, J, sizeof F) == 0);                   \
-        ck_assert(all_eq(ob, 3, GUARD));                          \
+        ck_assert(sup_guard_intact(ob, 3));                       \
     } while (0)
     {
         double wb[3] = {1.0, 2.0, 3.0};
@@ -698,9 +668,9 @@ START_TEST(frames_error_paths_leave_outputs_untouched)
         EXPECT_P(wb, 3, 2, MCD_EDOM);
         memcpy(F, J, sizeof F);
         F[5] = nan;
-        fill(ob, 3, GUARD);
+        sup_guard_fill(ob, 3);
         ck_assert_int_eq(mcd_flux_project(3, 2, NULL, F, ob), MCD_EINVAL);
-        ck_assert(all_eq(ob, 3, GUARD));
+        ck_assert(sup_guard_intact(ob, 3));
         ck_assert(F[0] == J[0] && F[4] == J[4] && isnan(F[5]));
     }
 #undef EXPECT
@@ -733,9 +703,5 @@ int main(void)
     tcase_add_test(tc, frames_error_paths_leave_outputs_untouched);
     suite_add_tcase(s, tc);
 
-    SRunner *sr = srunner_create(s);
-    srunner_run_all(sr, CK_ENV);
-    int nf = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return nf == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+    return sup_run(s);
 }

@@ -20,16 +20,9 @@
 #include <stdlib.h>
 
 #include "mcdiff.h"
+#include "support.h"
 
-static uint64_t rng_s;
-static uint64_t rng_next(void)
-{
-    uint64_t z = (rng_s += 0x9E3779B97F4A7C15ull);
-    z = (z ^ (z >> 30)) * 0xBF58476D1CE4E5B9ull;
-    z = (z ^ (z >> 27)) * 0x94D049BB133111EBull;
-    return z ^ (z >> 31);
-}
-static double rng_u01(void) { return (double)(rng_next() >> 11) * 0x1.0p-53; }
+static sup_rng rng = SUP_RNG(SUP_SPLITMIX64, 0);
 
 #define KC 9   /* cells per call: one full vector block and one lane */
 #define ND 2
@@ -53,21 +46,21 @@ static void prob_make(prob *p, size_t n, mcd_workspace *ws, mcd_model refm)
     ck_assert(p->D && p->c && p->x && p->g && p->ref && p->out);
     for (k = 0; k < KC; k++) {
         double s = 0.0, Dk[100 * 100], xk[100], gk[200], F[200];
-        p->c[k] = 10.0 + 50.0 * rng_u01();
+        p->c[k] = 10.0 + 50.0 * sup_u01(&rng);
         for (i = 0; i < n; i++) {
-            xk[i] = (k % 3 == 2 && i % 4 == 1 && n > 2) ? 0.0 : 0.01 + rng_u01();
+            xk[i] = (k % 3 == 2 && i % 4 == 1 && n > 2) ? 0.0 : 0.01 + sup_u01(&rng);
             s += xk[i];
         }
         for (i = 0; i < n; i++) {
             xk[i] /= s;
             p->x[i * KC + k] = xk[i];
             for (j = 0; j < ND; j++)
-                p->g[(i * ND + j) * KC + k] = gk[i * ND + j] = 2.0 * rng_u01() - 1.0;
+                p->g[(i * ND + j) * KC + k] = gk[i * ND + j] = 2.0 * sup_u01(&rng) - 1.0;
         }
         for (i = 0; i < n; i++) {
             Dk[i * n + i] = 0.0;
             for (j = i + 1; j < n; j++)
-                Dk[i * n + j] = Dk[j * n + i] = 5e-6 * pow(20.0, rng_u01());
+                Dk[i * n + j] = Dk[j * n + i] = 5e-6 * pow(20.0, sup_u01(&rng));
         }
         for (i = 0; i < n * n; i++)
             p->D[i * KC + k] = Dk[i];
@@ -112,7 +105,7 @@ START_TEST(iterative_converges_to_the_exact_solution)
 {
     static const size_t Ns[] = {2, 3, 5, 10, 20, 50, 100};
     mcd_workspace *ws;
-    rng_s = 0x17E4A7001ull;
+    sup_seed(&rng, 0x17E4A7001ull);
     ck_assert_int_eq(mcd_workspace_alloc(100, &ws), MCD_OK);
     for (size_t t = 0; t < sizeof Ns / sizeof Ns[0]; t++) {
         prob p;
@@ -142,7 +135,7 @@ START_TEST(iterative_error_estimate_is_honest)
     static const size_t Ns[] = {3, 10, 30, 100};
     mcd_workspace *ws;
     double worst_ratio = 0.0;
-    rng_s = 0x17E4A7002ull;
+    sup_seed(&rng, 0x17E4A7002ull);
     ck_assert_int_eq(mcd_workspace_alloc(100, &ws), MCD_OK);
     for (size_t t = 0; t < sizeof Ns / sizeof Ns[0]; t++) {
         prob p;
@@ -177,7 +170,7 @@ START_TEST(iterative_first_iterate_is_mixture_averaged_and_counts_iterations)
     prob p;
     double e1, e2, est;
     size_t used;
-    rng_s = 0x17E4A7003ull;
+    sup_seed(&rng, 0x17E4A7003ull);
     ck_assert_int_eq(mcd_workspace_alloc(12, &ws), MCD_OK);
     /* reference = mixture-averaged model: the starting point U^0; one
      * iteration moves away from it towards the exact solution */
@@ -207,16 +200,10 @@ int main(void)
 {
     Suite *s = suite_create("mcd:iterative");
     TCase *tc = tcase_create("iterative");
-    SRunner *sr;
-    int failed;
     tcase_set_timeout(tc, 300);
     tcase_add_test(tc, iterative_converges_to_the_exact_solution);
     tcase_add_test(tc, iterative_error_estimate_is_honest);
     tcase_add_test(tc, iterative_first_iterate_is_mixture_averaged_and_counts_iterations);
     suite_add_tcase(s, tc);
-    sr = srunner_create(s);
-    srunner_run_all(sr, CK_ENV);
-    failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+    return sup_run(s);
 }

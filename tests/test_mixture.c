@@ -9,23 +9,15 @@
 #include <string.h>
 
 #include "mcdiff.h"
+#include "support.h"
 #include "../lib/mixture.h" /* internal fast path, tested against the API */
 
-#define GUARD 12345.678
 #define NS 6
 
 static const char *const names6[NS] = {"nitrogen", "oxygen", "carbon-dioxide",
                                        "water", "hydrogen", "methane"};
 
-static uint64_t rng_state;
-static double rng_uniform(double a, double b)
-{
-    rng_state ^= rng_state >> 12;
-    rng_state ^= rng_state << 25;
-    rng_state ^= rng_state >> 27;
-    uint64_t r = rng_state * 2685821657736338717ull;
-    return a + (b - a) * ((double)(r >> 11) * (1.0 / 9007199254740992.0));
-}
+static sup_rng rng = SUP_RNG(SUP_XORSHIFT64STAR, 0); /* seeded by each test */
 
 static mcd_db *db;
 static mcd_mixture *mix;
@@ -65,7 +57,7 @@ static void check_against_pairs(const mcd_method *methods, double T, double P)
         for (size_t j = 0; j < NS; j++) {
             if (i == j)
                 continue;
-            double d = GUARD, r = GUARD;
+            double d = SUP_GUARD, r = SUP_GUARD;
             unsigned w = 0;
             /* Symmetric to the bit: each pair is computed once. */
             ck_assert(D[i * NS + j] == D[j * NS + i]);
@@ -88,9 +80,9 @@ START_TEST(mixture_matrix_is_symmetric_and_equals_binary_gas)
     mcd_method m[NS * NS];
     for (size_t k = 0; k < NS * NS; k++)
         m[k] = MCD_METHOD_FSG;
-    rng_state = 4242;
+    sup_seed(&rng, 4242);
     for (int t = 0; t < 50; t++) {
-        double T = rng_uniform(220, 1200), P = exp(rng_uniform(log(1e3), log(5e6)));
+        double T = sup_range(&rng, 220, 1200), P = sup_exp_range(&rng, 1e3, 5e6);
         check_against_pairs(m, T, P);
     }
 }
@@ -221,7 +213,7 @@ START_TEST(mixture_bad_state_and_arguments_leave_outputs_untouched)
     double D[NS * NS], R[NS * NS];
     unsigned W[NS * NS];
     for (size_t k = 0; k < NS * NS; k++) {
-        D[k] = R[k] = GUARD;
+        D[k] = R[k] = SUP_GUARD;
         W[k] = 0xdeadu;
     }
     const double badv[] = {NAN, INFINITY, -INFINITY};
@@ -237,7 +229,7 @@ START_TEST(mixture_bad_state_and_arguments_leave_outputs_untouched)
     ck_assert_int_eq(mcd_mixture_binaries(NULL, 300, 1e5, D, R, W), MCD_EINVAL);
     ck_assert_int_eq(mcd_mixture_binaries(mix, 300, 1e5, NULL, R, W), MCD_EINVAL);
     for (size_t k = 0; k < NS * NS; k++) {
-        ck_assert(D[k] == GUARD && R[k] == GUARD);
+        ck_assert(D[k] == SUP_GUARD && R[k] == SUP_GUARD);
         ck_assert_uint_eq(W[k], 0xdeadu);
     }
     ck_assert_int_eq(mcd_mixture_set_binary(mix, 0, 1, -1e-5, 300, 1e5), MCD_EDOM);
@@ -269,10 +261,10 @@ START_TEST(mixture_missing_parameters_give_enodata)
     const char *nm[2] = {"gas-a", "gas-b"};
     /* No Lennard-Jones data and nothing to estimate them from. */
     ck_assert_int_eq(mcd_mixture_new(d, 2, nm, MCD_METHOD_CHAPMAN_ENSKOG, &m, NULL, 0), MCD_OK);
-    double D[4] = {GUARD, GUARD, GUARD, GUARD};
+    double D[4] = {SUP_GUARD, SUP_GUARD, SUP_GUARD, SUP_GUARD};
     ck_assert_int_eq(mcd_mixture_binaries(m, 300, 1e5, D, NULL, NULL), MCD_ENODATA);
     for (int k = 0; k < 4; k++)
-        ck_assert(D[k] == GUARD);
+        ck_assert(D[k] == SUP_GUARD);
     /* FSG needs only M and the diffusion volumes, known from formulas. */
     ck_assert_int_eq(mcd_mixture_set_method(m, 0, 1, MCD_METHOD_FSG), MCD_OK);
     ck_assert_int_eq(mcd_mixture_binaries(m, 300, 1e5, D, NULL, NULL), MCD_OK);
@@ -307,7 +299,7 @@ START_TEST(mixture_accessors_report_species)
 {
     double M[NS];
     for (size_t i = 0; i < NS; i++)
-        M[i] = GUARD;
+        M[i] = SUP_GUARD;
     ck_assert_uint_eq(mcd_mixture_count(mix), NS);
     ck_assert_uint_eq(mcd_mixture_count(NULL), 0);
     ck_assert_int_eq(mcd_mixture_molar_masses(mix, M), MCD_OK);
@@ -335,9 +327,9 @@ START_TEST(mixture_fast_path_matches_api)
     ck_assert_int_eq(mcd_mixture_set_method(mix, 2, 5, MCD_METHOD_WILKE_LEE), MCD_OK);
     ck_assert_int_eq(mcd_mixture_set_binary(mix, 3, 4, 0.85e-4, 293.0, MCD_ATM), MCD_OK);
     ck_assert_int_eq(mcdi_mixture_ready(mix), MCD_OK);
-    rng_state = 99;
+    sup_seed(&rng, 99);
     for (int t = 0; t < 100; t++) {
-        double T = rng_uniform(200, 1500), P = exp(rng_uniform(log(1e3), log(1e7)));
+        double T = sup_range(&rng, 200, 1500), P = sup_exp_range(&rng, 1e3, 1e7);
         double A[NS * NS], B[NS * NS];
         ck_assert_int_eq(mcd_mixture_binaries(mix, T, P, A, NULL, NULL), MCD_OK);
         mcdi_mixture_binaries_fast(mix, T, P, B);
@@ -366,9 +358,5 @@ int main(void)
     tcase_add_test(tc, mixture_accessors_report_species);
     tcase_add_test(tc, mixture_fast_path_matches_api);
     suite_add_tcase(s, tc);
-    SRunner *sr = srunner_create(s);
-    srunner_run_all(sr, CK_ENV);
-    int failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+    return sup_run(s);
 }

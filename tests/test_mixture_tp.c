@@ -17,6 +17,7 @@
 #include <stdlib.h>
 
 #include "mcdiff.h"
+#include "support.h"
 
 static mcd_db *db;
 static mcd_mixture *lj_mixture(size_t n, mcd_method m)
@@ -138,14 +139,8 @@ int main(void)
 {
     Suite *s = suite_create("mcd:mixture_tp");
     TCase *tc = tcase_create("mixture_tp");
-    SRunner *sr;
-    int failed;
     tcase_add_test(tc, mixture_tp_fsg_and_user_scale_exactly);
     tcase_add_test(tc, mixture_tp_fit_reports_its_error_and_batched_fluxes_honour_it);
     suite_add_tcase(s, tc);
-    sr = srunner_create(s);
-    srunner_run_all(sr, CK_ENV);
-    failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+    return sup_run(s);
 }

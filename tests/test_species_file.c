@@ -8,10 +8,7 @@
 #include <string.h>
 
 #include "mcdiff.h"
-
-#define GUARD 12345.678
-
-static double rel(double a, double b) { return fabs(a - b) / fabs(b); }
+#include "support.h"
 
 static mcd_db *db;
 static void setup(void) { ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK); }
@@ -35,7 +32,7 @@ static size_t find(const char *name)
 
 static double param(const char *name, mcd_param p)
 {
-    double v = GUARD;
+    double v = SUP_GUARD;
     ck_assert_msg(mcd_db_param(db, find(name), p, &v) == MCD_OK, "%s %s",
                   name, mcd_param_name(p));
     return v;
@@ -63,7 +60,7 @@ static void take(snap *s)
         snprintf(s->name[i], 64, "%s", mcd_db_name(db, i));
         snprintf(s->formula[i], 256, "%s", mcd_db_formula(db, i));
         for (int p = 0; p < MCD_PARAM_COUNT; ++p) {
-            s->v[i][p] = GUARD;
+            s->v[i][p] = SUP_GUARD;
             s->st[i][p] = mcd_db_param(db, i, (mcd_param)p, &s->v[i][p]);
             s->src[i][p] = mcd_db_source(db, i, (mcd_param)p);
         }
@@ -100,23 +97,23 @@ START_TEST(species_file_example_loads)
     ck_assert_uint_eq(find("pyridine"), n + 1);
     ck_assert_uint_eq(find("nitrogen"), in2);
     /* unit conversions: exact factors, so 1e-14 relative (one multiply) */
-    ck_assert(rel(param("methyl-acetate", MCD_PARAM_LJ_SIGMA), 4.936e-10) < 1e-14);
-    ck_assert(rel(param("methyl-acetate", MCD_PARAM_DIPOLE), 1.7 * 3.33564e-30) < 1e-14);
-    ck_assert(rel(param("methyl-acetate", MCD_PARAM_VB), 83.0e-6) < 1e-14);
-    ck_assert(rel(param("methyl-acetate", MCD_PARAM_PC), 47.50e5) < 1e-14);
+    ck_assert(sup_rel(param("methyl-acetate", MCD_PARAM_LJ_SIGMA), 4.936e-10) < 1e-14);
+    ck_assert(sup_rel(param("methyl-acetate", MCD_PARAM_DIPOLE), 1.7 * 3.33564e-30) < 1e-14);
+    ck_assert(sup_rel(param("methyl-acetate", MCD_PARAM_VB), 83.0e-6) < 1e-14);
+    ck_assert(sup_rel(param("methyl-acetate", MCD_PARAM_PC), 47.50e5) < 1e-14);
     ck_assert(param("methyl-acetate", MCD_PARAM_ASSOC) == 1.0);
-    ck_assert(rel(param("pyridine", MCD_PARAM_PC), 5.63e6) < 1e-14);
-    ck_assert(rel(param("pyridine", MCD_PARAM_DIPOLE), 2.3 * 3.33564e-30) < 1e-14);
-    ck_assert(rel(param("nitrogen", MCD_PARAM_LJ_SIGMA), 3.798e-10) < 1e-14);
-    ck_assert(rel(param("nitrogen", MCD_PARAM_VB), 3.12e-5) < 1e-14);
+    ck_assert(sup_rel(param("pyridine", MCD_PARAM_PC), 5.63e6) < 1e-14);
+    ck_assert(sup_rel(param("pyridine", MCD_PARAM_DIPOLE), 2.3 * 3.33564e-30) < 1e-14);
+    ck_assert(sup_rel(param("nitrogen", MCD_PARAM_LJ_SIGMA), 3.798e-10) < 1e-14);
+    ck_assert(sup_rel(param("nitrogen", MCD_PARAM_VB), 3.12e-5) < 1e-14);
     ck_assert(param("nitrogen", MCD_PARAM_DIPOLE) == 0.0);
-    ck_assert(rel(param("nitrogen", MCD_PARAM_MOLAR_MASS), 28.0134e-3) < 1e-14);
-    ck_assert(rel(param("nitrogen", MCD_PARAM_PC), 3.398e6) < 1e-14);
+    ck_assert(sup_rel(param("nitrogen", MCD_PARAM_MOLAR_MASS), 28.0134e-3) < 1e-14);
+    ck_assert(sup_rel(param("nitrogen", MCD_PARAM_PC), 3.398e6) < 1e-14);
     /* computed values: M from the formula, V from increments with a ring */
     {
         double M;
         ck_assert_int_eq(mcd_formula_molar_mass("C3H6O2", &M, NULL, 0), MCD_OK);
-        ck_assert(rel(param("methyl-acetate", MCD_PARAM_MOLAR_MASS), M) < 1e-15);
+        ck_assert(sup_rel(param("methyl-acetate", MCD_PARAM_MOLAR_MASS), M) < 1e-15);
         ck_assert_double_eq_tol(param("pyridine", MCD_PARAM_DIFF_VOLUME),
                                 5 * 15.9 + 5 * 2.31 + 4.54 - 18.3, 1e-9);
         ck_assert(param("nitrogen", MCD_PARAM_DIFF_VOLUME) == 18.5);
@@ -128,12 +125,12 @@ START_TEST(species_file_example_loads)
                                                MCD_PARAM_DIFF_VOLUME), "Fuller"));
     /* not given: unknown */
     {
-        double v = GUARD;
+        double v = SUP_GUARD;
         ck_assert_int_eq(mcd_db_param(db, find("pyridine"), MCD_PARAM_LJ_SIGMA, &v),
                          MCD_ENODATA);
         ck_assert_int_eq(mcd_db_param(db, find("nitrogen"), MCD_PARAM_ASSOC, &v),
                          MCD_ENODATA);
-        ck_assert(v == GUARD);
+        ck_assert(v == SUP_GUARD);
     }
     /* loading the same file again replaces the same species: count same */
     ck_assert_int_eq(mcd_db_load_file(db, data_path("species-example.txt"), err,
@@ -193,23 +190,23 @@ START_TEST(species_file_layout_variants_accepted)
     ck_assert_uint_eq(mcd_db_count(d), 5);
     ck_assert_int_eq(mcd_db_find(d, "a", &i), MCD_OK);
     ck_assert_int_eq(mcd_db_param(d, i, MCD_PARAM_LJ_SIGMA, &v), MCD_OK);
-    ck_assert(rel(v, 3.8e-10) < 1e-14);
+    ck_assert(sup_rel(v, 3.8e-10) < 1e-14);
     ck_assert_int_eq(mcd_db_param(d, i, MCD_PARAM_VB, &v), MCD_OK);
-    ck_assert(rel(v, 37.7e-6) < 1e-14);
+    ck_assert(sup_rel(v, 37.7e-6) < 1e-14);
     ck_assert_int_eq(mcd_db_param(d, i, MCD_PARAM_DIFF_VOLUME, &v), MCD_OK);
     ck_assert(v == 25.14);
     ck_assert_str_eq(mcd_db_source(d, i, MCD_PARAM_DIFF_VOLUME), "user");
     ck_assert_int_eq(mcd_db_find(d, "b", &i), MCD_OK);
     ck_assert_int_eq(mcd_db_param(d, i, MCD_PARAM_PC, &v), MCD_OK);
-    ck_assert(rel(v, 72.8 * 101325.0) < 1e-14);
+    ck_assert(sup_rel(v, 72.8 * 101325.0) < 1e-14);
     ck_assert_int_eq(mcd_db_find(d, "c", &i), MCD_OK);
     ck_assert_int_eq(mcd_db_param(d, i, MCD_PARAM_DIPOLE, &v), MCD_OK);
-    ck_assert(rel(v, 3.3e-31) < 1e-14);
+    ck_assert(sup_rel(v, 3.3e-31) < 1e-14);
     ck_assert_int_eq(mcd_db_param(d, i, MCD_PARAM_PC, &v), MCD_OK);
-    ck_assert(rel(v, 3.494e6) < 1e-14);
+    ck_assert(sup_rel(v, 3.494e6) < 1e-14);
     ck_assert_int_eq(mcd_db_find(d, "e", &i), MCD_OK);
     ck_assert_int_eq(mcd_db_param(d, i, MCD_PARAM_MOLAR_MASS, &v), MCD_OK);
-    ck_assert(rel(v, 2.016e-3) < 1e-14);
+    ck_assert(sup_rel(v, 2.016e-3) < 1e-14);
     /* a header alone is a valid, empty species file */
     ck_assert_int_eq(mcd_db_load_string(d, "mcdiff-species 1\n", err, sizeof err),
                      MCD_OK);
@@ -411,9 +408,5 @@ int main(void)
     tcase_add_test(tc, species_file_io_and_argument_errors);
     tcase_add_test(tc, species_file_nul_byte_is_rejected);
     suite_add_tcase(s, tc);
-    SRunner *sr = srunner_create(s);
-    srunner_run_all(sr, CK_ENV);
-    int failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed ? EXIT_FAILURE : EXIT_SUCCESS;
+    return sup_run(s);
 }

@@ -19,6 +19,7 @@
 #include <string.h>
 
 #include "mcdiff.h"
+#include "support.h"
 
 #define NS 5
 #define ND 3
@@ -40,27 +41,19 @@ typedef struct state {
     double T, P, c, x[NS], xL[NS], grad[NS * ND];
 } state;
 
-static uint64_t xs_next(uint64_t *s)
-{
-    *s ^= *s << 13;
-    *s ^= *s >> 7;
-    *s ^= *s << 17;
-    return *s;
-}
-static double xs_unit(uint64_t *s) { return (double)(xs_next(s) >> 11) * 0x1p-53; }
-
 static void make_state(int k, state *st)
 {
-    uint64_t s = 0x9E3779B97F4A7C15ull ^ (uint64_t)(k + 1) * 0xD1B54A32D192ED03ull;
+    sup_rng s = SUP_RNG(SUP_XORSHIFT64,
+                        0x9E3779B97F4A7C15ull ^ (uint64_t)(k + 1) * 0xD1B54A32D192ED03ull);
     double sum = 0.0, sumL = 0.0;
     for (int r = 0; r < 4; r++)
-        xs_next(&s);
-    st->T = 250.0 + 500.0 * xs_unit(&s);
-    st->P = 5e4 + 3e5 * xs_unit(&s);
+        sup_next(&s);
+    st->T = 250.0 + 500.0 * sup_u01(&s);
+    st->P = 5e4 + 3e5 * sup_u01(&s);
     st->c = st->P / (MCD_GAS_CONSTANT * st->T);
     for (int i = 0; i < NS; i++) {
-        st->x[i] = 0.05 + xs_unit(&s);
-        st->xL[i] = 0.05 + xs_unit(&s);
+        st->x[i] = 0.05 + sup_u01(&s);
+        st->xL[i] = 0.05 + sup_u01(&s);
         sum += st->x[i];
         sumL += st->xL[i];
     }
@@ -71,7 +64,7 @@ static void make_state(int k, state *st)
     for (int d = 0; d < ND; d++) {
         double g = 0.0;
         for (int i = 0; i < NS - 1; i++) {
-            st->grad[i * ND + d] = 20.0 * (xs_unit(&s) - 0.5);
+            st->grad[i * ND + d] = 20.0 * (sup_u01(&s) - 0.5);
             g += st->grad[i * ND + d];
         }
         st->grad[(NS - 1) * ND + d] = -g;
@@ -241,9 +234,5 @@ int main(void)
     tcase_add_test(tc, threads_results_bitwise_equal_serial);
     tcase_add_test(tc, threads_shared_database_queries);
     suite_add_tcase(s, tc);
-    SRunner *sr = srunner_create(s);
-    srunner_run_all(sr, CK_ENV);
-    int failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed ? EXIT_FAILURE : EXIT_SUCCESS;
+    return sup_run(s);
 }
