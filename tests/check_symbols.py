@@ -1,13 +1,21 @@
 #!/usr/bin/env python3
 """Exported dynamic symbols of libmcdiff must equal the MCD_API functions
-declared in include/mcdiff.h: nothing leaks, nothing declared is missing."""
-import re
+declared in include/mcdiff.h: nothing leaks, nothing declared is missing.
+The declarations come from tools/gen_bindings.py, the project's one parser
+of the header (path from MCDIFF_GEN_BINDINGS, else relative to this file)."""
+import importlib.util
+import os
 import subprocess
 import sys
 
 lib, header = sys.argv[1], sys.argv[2]
-text = open(header, encoding="utf-8").read()
-declared = set(re.findall(r"MCD_API\s+[^;(]*?\b(mcd_\w+)\s*\(", text, re.S))
+gen_path = os.environ.get("MCDIFF_GEN_BINDINGS", os.path.join(
+    os.path.dirname(os.path.abspath(__file__)), "..", "tools",
+    "gen_bindings.py"))
+spec = importlib.util.spec_from_file_location("gen_bindings", gen_path)
+gen = importlib.util.module_from_spec(spec)
+spec.loader.exec_module(gen)
+declared = set(gen.parse_header(header).functions)
 out = subprocess.run(["nm", "-D", "--defined-only", lib], check=True,
                      capture_output=True, text=True).stdout
 exported = set()

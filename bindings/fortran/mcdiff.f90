@@ -2,7 +2,9 @@
 !
 ! Two layers, both public:
 !
-!   c_mcd_<name>   bind(c) interfaces to the C functions mcd_<name>, argument
+!   c_mcd_<name>   bind(c) interfaces to the C functions mcd_<name>
+!                  (generated from include/mcdiff.h into mcdiff_c_api.inc
+!                  by tools/gen_bindings.py), argument
 !                  for argument: scalars by value, counts and indices
 !                  integer(c_size_t) and 0-based, arrays assumed-size,
 !                  strings NUL-terminated, handles and nullable pointers as
@@ -64,63 +66,32 @@ module mcdiff
   private
 
   ! ------------------------------------------------------------------
-  ! Kinds and constants (values as in include/mcdiff.h)
+  ! Kinds
   ! ------------------------------------------------------------------
   integer, parameter, public :: mcd_rk = c_double
-
-  integer, parameter, public :: MCD_OK = 0, MCD_EINVAL = 1, MCD_EDOM = 2, &
-       MCD_EBADLEN = 3, MCD_ENOMEM = 4, MCD_ESING = 5, MCD_EINTERNAL = 6, &
-       MCD_ENOTFOUND = 7, MCD_EPARSE = 8, MCD_ENODATA = 9, MCD_ENOCONV = 10, &
-       MCD_EIO = 11
-
-  integer, parameter, public :: MCD_MAX_SPECIES = 1024, MCD_MAX_DIM = 3
-  real(c_double), parameter, public :: MCD_SUM_TOL = 1.0e-6_c_double
-  real(c_double), parameter, public :: MCD_GAS_CONSTANT = 8.31446261815324_c_double
-  real(c_double), parameter, public :: MCD_ATM = 101325.0_c_double
-  !> C's MCD_DEPENDENT_AUTO ((size_t)-1) for the c_mcd_* layer; the wrappers
-  !> use an absent `dependent` argument instead.
-  integer(c_size_t), parameter, public :: MCD_DEPENDENT_AUTO = -1_c_size_t
-
-  integer, parameter, public :: MCD_PARAM_MOLAR_MASS = 0, &
-       MCD_PARAM_DIFF_VOLUME = 1, MCD_PARAM_LJ_SIGMA = 2, &
-       MCD_PARAM_LJ_EPS_K = 3, MCD_PARAM_DIPOLE = 4, MCD_PARAM_VB = 5, &
-       MCD_PARAM_TB = 6, MCD_PARAM_ASSOC = 7, MCD_PARAM_TC = 8, &
-       MCD_PARAM_PC = 9, MCD_PARAM_COUNT = 10
-
-  integer, parameter, public :: MCD_METHOD_FSG = 1, &
-       MCD_METHOD_CHAPMAN_ENSKOG = 2, MCD_METHOD_WILKE_LEE = 3, &
-       MCD_METHOD_WILKE_CHANG = 4, MCD_METHOD_USER = 5
-
-  integer, parameter, public :: MCD_WARN_HIGH_PRESSURE = 1, &
-       MCD_WARN_POLAR = 2, MCD_WARN_TEMPERATURE = 4, MCD_WARN_QUANTUM = 8, &
-       MCD_WARN_ASSOCIATING = 16, MCD_WARN_ESTIMATED_PARAM = 32, &
-       MCD_WARN_SCALED = 64
-
-  integer, parameter, public :: MCD_BASIS_MOLE = 0, MCD_BASIS_MASS = 1
-  integer, parameter, public :: MCD_MODEL_MAXWELL_STEFAN = 0, &
-       MCD_MODEL_MIXTURE_AVERAGED = 1, MCD_MODEL_ITERATIVE = 2
-
-  integer, parameter, public :: MCD_BOOT_TOTAL = 0, MCD_BOOT_STAGNANT = 1, &
-       MCD_BOOT_EQUIMOLAR = 2, MCD_BOOT_WEIGHTS = 3, MCD_BOOT_RATIOS = 4
-
-  integer, parameter, public :: MCD_DIAG_REVERSE = 1, MCD_DIAG_OSMOTIC = 2, &
-       MCD_DIAG_BARRIER = 4
-
-  integer, parameter, public :: MCD_FILM_EXACT = 0, MCD_FILM_LINEARIZED = 1
 
   !> Length of the error buffers handed to C (messages are truncated there).
   integer, parameter :: ERRLEN = 512
 
-  !> C's mcd_allocator for mcd_workspace_alloc_with: alloc and free are
-  !> c_funloc of bind(c) procedures with the C signatures
-  !>   type(c_ptr) function alloc(ud, size) (ud: c_ptr value, size:
-  !>   c_size_t value; memory aligned for double or c_null_ptr), and
-  !>   subroutine free(ud, p) (both c_ptr value); ud is passed to both.
-  type, bind(c), public :: mcd_allocator_t
-     type(c_funptr) :: alloc = c_null_funptr
-     type(c_funptr) :: free = c_null_funptr
-     type(c_ptr) :: ud = c_null_ptr
-  end type mcd_allocator_t
+  ! ------------------------------------------------------------------
+  ! Generated from include/mcdiff.h by tools/gen_bindings.py (do not edit
+  ! the included file; run python3 tools/gen_bindings.py --write):
+  !   * the enumerators and numeric macros as public parameters, values as
+  !     in C (MCD_OK, MCD_E*, MCD_PARAM_*, MCD_METHOD_*, MCD_WARN_*,
+  !     MCD_BASIS_*, MCD_MODEL_*, MCD_BOOT_*, MCD_DIAG_*, MCD_FILM_*,
+  !     MCD_MAX_SPECIES, MCD_MAX_DIM, MCD_SUM_TOL, MCD_GAS_CONSTANT,
+  !     MCD_ATM; MCD_DEPENDENT_AUTO, integer(c_size_t), is C's
+  !     (size_t)-1 for the c_mcd_* layer: the wrappers use an absent
+  !     `dependent` argument instead);
+  !   * mcd_allocator_t, C's mcd_allocator for mcd_workspace_alloc_with:
+  !     alloc and free are c_funloc of bind(c) procedures with the C
+  !     signatures
+  !       type(c_ptr) function alloc(ud, size) (ud: c_ptr value, size:
+  !       c_size_t value; memory aligned for double or c_null_ptr), and
+  !       subroutine free(ud, p) (both c_ptr value); ud is passed to both;
+  !   * the raw bind(c) interfaces c_mcd_<name>, public, one per function.
+  ! ------------------------------------------------------------------
+  include 'mcdiff_c_api.inc'
 
   ! ------------------------------------------------------------------
   ! Opaque handles
@@ -153,755 +124,14 @@ module mcdiff
   end type mcd_workspace_t
 
   ! ------------------------------------------------------------------
-  ! Raw C interfaces (names c_mcd_*, bound to mcd_*)
+  ! C library helpers used by the wrappers
   ! ------------------------------------------------------------------
-  public :: c_mcd_version_number, c_mcd_version_string, c_mcd_status_string, &
-       c_mcd_formula_molar_mass, c_mcd_param_name, c_mcd_param_unit, &
-       c_mcd_db_new, c_mcd_db_new_builtin, c_mcd_db_free, c_mcd_db_count, &
-       c_mcd_db_find, c_mcd_db_name, c_mcd_db_formula, c_mcd_db_source, &
-       c_mcd_db_param, c_mcd_db_add, c_mcd_db_set_param, c_mcd_db_load_file, &
-       c_mcd_db_load_string, &
-       c_mcd_comp_normalize, c_mcd_comp_x_to_w, c_mcd_comp_w_to_x, &
-       c_mcd_comp_mean_molar_mass_x, c_mcd_comp_mean_molar_mass_w, &
-       c_mcd_comp_x_to_c, c_mcd_comp_c_to_x, c_mcd_ideal_gas_c, &
-       c_mcd_comp_grad_x_to_w, c_mcd_comp_grad_w_to_x, &
-       c_mcd_method_name, c_mcd_method_from_name, c_mcd_method_typical_error, &
-       c_mcd_warning_string, c_mcd_fsg_raw, c_mcd_chapman_enskog_raw, &
-       c_mcd_wilke_lee_raw, c_mcd_wilke_chang_raw, c_mcd_binary_scale, &
-       c_mcd_binary_gas, c_mcd_binary_liquid, &
-       c_mcd_mixture_new, c_mcd_mixture_free, c_mcd_mixture_count, &
-       c_mcd_mixture_name, c_mcd_mixture_molar_masses, &
-       c_mcd_mixture_set_method, c_mcd_mixture_set_binary, &
-       c_mcd_mixture_binaries, &
-       c_mcd_workspace_alloc, c_mcd_workspace_free, c_mcd_workspace_species, &
-       c_mcd_workspace_last_error, &
-       c_mcd_flux_compute, c_mcd_fick_matrix, c_mcd_fick_fluxes, &
-       c_mcd_fick_eigenvalues, c_mcd_flux_convert, &
-       c_mcd_flux_to_volume_frame, c_mcd_flux_to_species_frame, &
-       c_mcd_flux_total, c_mcd_velocity_difference, c_mcd_flux_project, &
-       c_mcd_flux_diagnose, c_mcd_film_solve, c_mcd_film_profile, &
-       c_mcd_bulbs_linearized, c_mcd_bulbs_integrate, &
-       c_mcd_flux_batch, c_mcd_flux_batch_dij, c_mcd_flux_batch_aos, &
-       c_mcd_workspace_set_iterative, c_mcd_workspace_iterative_info, &
-       c_mcd_workspace_set_threads, c_mcd_mixture_set_temperature_fit, &
-       c_mcd_mixture_temperature_fit, c_mcd_formula_elements, &
-       c_mcd_formula_diffusion_volume, c_mcd_fsg_molecule_volume, &
-       c_mcd_element_symbol, c_mcd_element_weight, c_mcd_collision_omega_d, &
-       c_mcd_workspace_alloc_with
-
   interface
      function c_strlen(s) bind(c, name='strlen') result(n)
        import :: c_ptr, c_size_t
        type(c_ptr), value :: s
        integer(c_size_t) :: n
      end function c_strlen
-
-     ! --- version and status ---
-     function c_mcd_version_number() bind(c, name='mcd_version_number') result(v)
-       import :: c_int
-       integer(c_int) :: v
-     end function c_mcd_version_number
-     function c_mcd_version_string() bind(c, name='mcd_version_string') result(p)
-       import :: c_ptr
-       type(c_ptr) :: p
-     end function c_mcd_version_string
-     function c_mcd_status_string(status) bind(c, name='mcd_status_string') result(p)
-       import :: c_ptr, c_int
-       integer(c_int), value :: status
-       type(c_ptr) :: p
-     end function c_mcd_status_string
-
-     ! --- formulas and parameters ---
-     function c_mcd_formula_molar_mass(formula, out_M, errbuf, errlen) &
-          bind(c, name='mcd_formula_molar_mass') result(s)
-       import :: c_char, c_double, c_size_t, c_int
-       character(kind=c_char), intent(in) :: formula(*)
-       real(c_double), intent(out) :: out_M
-       character(kind=c_char), intent(inout) :: errbuf(*)
-       integer(c_size_t), value :: errlen
-       integer(c_int) :: s
-     end function c_mcd_formula_molar_mass
-     function c_mcd_formula_elements(formula, cap, out_Z, out_count, out_n, errbuf, errlen) &
-          bind(c, name='mcd_formula_elements') result(s)
-       import :: c_char, c_size_t, c_int, c_long
-       character(kind=c_char), intent(in) :: formula(*)
-       integer(c_size_t), value :: cap
-       integer(c_int), intent(inout) :: out_Z(*)
-       integer(c_long), intent(inout) :: out_count(*)
-       integer(c_size_t), intent(out) :: out_n
-       character(kind=c_char), intent(inout) :: errbuf(*)
-       integer(c_size_t), value :: errlen
-       integer(c_int) :: s
-     end function c_mcd_formula_elements
-     function c_mcd_formula_diffusion_volume(formula, n_rings, out_V, errbuf, errlen) &
-          bind(c, name='mcd_formula_diffusion_volume') result(s)
-       import :: c_char, c_size_t, c_int, c_double
-       character(kind=c_char), intent(in) :: formula(*)
-       integer(c_int), value :: n_rings
-       real(c_double), intent(out) :: out_V
-       character(kind=c_char), intent(inout) :: errbuf(*)
-       integer(c_size_t), value :: errlen
-       integer(c_int) :: s
-     end function c_mcd_formula_diffusion_volume
-     function c_mcd_fsg_molecule_volume(formula, out_V) &
-          bind(c, name='mcd_fsg_molecule_volume') result(s)
-       import :: c_char, c_int, c_double
-       character(kind=c_char), intent(in) :: formula(*)
-       real(c_double), intent(out) :: out_V
-       integer(c_int) :: s
-     end function c_mcd_fsg_molecule_volume
-     function c_mcd_element_symbol(Z) bind(c, name='mcd_element_symbol') result(p)
-       import :: c_ptr, c_int
-       integer(c_int), value :: Z
-       type(c_ptr) :: p
-     end function c_mcd_element_symbol
-     function c_mcd_element_weight(Z, out_kg_per_mol) &
-          bind(c, name='mcd_element_weight') result(s)
-       import :: c_int, c_double
-       integer(c_int), value :: Z
-       real(c_double), intent(out) :: out_kg_per_mol
-       integer(c_int) :: s
-     end function c_mcd_element_weight
-     function c_mcd_collision_omega_d(T_star, out_omega) &
-          bind(c, name='mcd_collision_omega_d') result(s)
-       import :: c_int, c_double
-       real(c_double), value :: T_star
-       real(c_double), intent(out) :: out_omega
-       integer(c_int) :: s
-     end function c_mcd_collision_omega_d
-     function c_mcd_param_name(p) bind(c, name='mcd_param_name') result(r)
-       import :: c_ptr, c_int
-       integer(c_int), value :: p
-       type(c_ptr) :: r
-     end function c_mcd_param_name
-     function c_mcd_param_unit(p) bind(c, name='mcd_param_unit') result(r)
-       import :: c_ptr, c_int
-       integer(c_int), value :: p
-       type(c_ptr) :: r
-     end function c_mcd_param_unit
-
-     ! --- species database ---
-     function c_mcd_db_new(out_db) bind(c, name='mcd_db_new') result(s)
-       import :: c_ptr, c_int
-       type(c_ptr), intent(out) :: out_db
-       integer(c_int) :: s
-     end function c_mcd_db_new
-     function c_mcd_db_new_builtin(out_db) bind(c, name='mcd_db_new_builtin') result(s)
-       import :: c_ptr, c_int
-       type(c_ptr), intent(out) :: out_db
-       integer(c_int) :: s
-     end function c_mcd_db_new_builtin
-     subroutine c_mcd_db_free(db) bind(c, name='mcd_db_free')
-       import :: c_ptr
-       type(c_ptr), value :: db
-     end subroutine c_mcd_db_free
-     function c_mcd_db_count(db) bind(c, name='mcd_db_count') result(n)
-       import :: c_ptr, c_size_t
-       type(c_ptr), value :: db
-       integer(c_size_t) :: n
-     end function c_mcd_db_count
-     function c_mcd_db_find(db, name, out_index) bind(c, name='mcd_db_find') result(s)
-       import :: c_ptr, c_char, c_size_t, c_int
-       type(c_ptr), value :: db
-       character(kind=c_char), intent(in) :: name(*)
-       integer(c_size_t), intent(out) :: out_index
-       integer(c_int) :: s
-     end function c_mcd_db_find
-     function c_mcd_db_name(db, i) bind(c, name='mcd_db_name') result(p)
-       import :: c_ptr, c_size_t
-       type(c_ptr), value :: db
-       integer(c_size_t), value :: i
-       type(c_ptr) :: p
-     end function c_mcd_db_name
-     function c_mcd_db_formula(db, i) bind(c, name='mcd_db_formula') result(p)
-       import :: c_ptr, c_size_t
-       type(c_ptr), value :: db
-       integer(c_size_t), value :: i
-       type(c_ptr) :: p
-     end function c_mcd_db_formula
-     function c_mcd_db_source(db, i, param) bind(c, name='mcd_db_source') result(p)
-       import :: c_ptr, c_size_t, c_int
-       type(c_ptr), value :: db
-       integer(c_size_t), value :: i
-       integer(c_int), value :: param
-       type(c_ptr) :: p
-     end function c_mcd_db_source
-     function c_mcd_db_param(db, i, param, out_value) bind(c, name='mcd_db_param') result(s)
-       import :: c_ptr, c_size_t, c_int, c_double
-       type(c_ptr), value :: db
-       integer(c_size_t), value :: i
-       integer(c_int), value :: param
-       real(c_double), intent(out) :: out_value
-       integer(c_int) :: s
-     end function c_mcd_db_param
-     function c_mcd_db_add(db, name, formula, n_rings, out_index, errbuf, errlen) &
-          bind(c, name='mcd_db_add') result(s)
-       import :: c_ptr, c_char, c_int, c_size_t
-       type(c_ptr), value :: db
-       character(kind=c_char), intent(in) :: name(*), formula(*)
-       integer(c_int), value :: n_rings
-       integer(c_size_t), intent(out) :: out_index
-       character(kind=c_char), intent(inout) :: errbuf(*)
-       integer(c_size_t), value :: errlen
-       integer(c_int) :: s
-     end function c_mcd_db_add
-     function c_mcd_db_set_param(db, i, param, val) bind(c, name='mcd_db_set_param') result(s)
-       import :: c_ptr, c_size_t, c_int, c_double
-       type(c_ptr), value :: db
-       integer(c_size_t), value :: i
-       integer(c_int), value :: param
-       real(c_double), value :: val
-       integer(c_int) :: s
-     end function c_mcd_db_set_param
-     function c_mcd_db_load_file(db, path, errbuf, errlen) &
-          bind(c, name='mcd_db_load_file') result(s)
-       import :: c_ptr, c_char, c_size_t, c_int
-       type(c_ptr), value :: db
-       character(kind=c_char), intent(in) :: path(*)
-       character(kind=c_char), intent(inout) :: errbuf(*)
-       integer(c_size_t), value :: errlen
-       integer(c_int) :: s
-     end function c_mcd_db_load_file
-     function c_mcd_db_load_string(db, text, errbuf, errlen) &
-          bind(c, name='mcd_db_load_string') result(s)
-       import :: c_ptr, c_char, c_size_t, c_int
-       type(c_ptr), value :: db
-       character(kind=c_char), intent(in) :: text(*)
-       character(kind=c_char), intent(inout) :: errbuf(*)
-       integer(c_size_t), value :: errlen
-       integer(c_int) :: s
-     end function c_mcd_db_load_string
-
-     ! --- compositions ---
-     function c_mcd_comp_normalize(n, y, out_y) bind(c, name='mcd_comp_normalize') result(s)
-       import :: c_size_t, c_double, c_int
-       integer(c_size_t), value :: n
-       real(c_double), intent(in) :: y(*)
-       real(c_double), intent(inout) :: out_y(*)
-       integer(c_int) :: s
-     end function c_mcd_comp_normalize
-     function c_mcd_comp_x_to_w(n, M, x, out_w) bind(c, name='mcd_comp_x_to_w') result(s)
-       import :: c_size_t, c_double, c_int
-       integer(c_size_t), value :: n
-       real(c_double), intent(in) :: M(*), x(*)
-       real(c_double), intent(inout) :: out_w(*)
-       integer(c_int) :: s
-     end function c_mcd_comp_x_to_w
-     function c_mcd_comp_w_to_x(n, M, w, out_x) bind(c, name='mcd_comp_w_to_x') result(s)
-       import :: c_size_t, c_double, c_int
-       integer(c_size_t), value :: n
-       real(c_double), intent(in) :: M(*), w(*)
-       real(c_double), intent(inout) :: out_x(*)
-       integer(c_int) :: s
-     end function c_mcd_comp_w_to_x
-     function c_mcd_comp_mean_molar_mass_x(n, M, x, out_Mbar) &
-          bind(c, name='mcd_comp_mean_molar_mass_x') result(s)
-       import :: c_size_t, c_double, c_int
-       integer(c_size_t), value :: n
-       real(c_double), intent(in) :: M(*), x(*)
-       real(c_double), intent(inout) :: out_Mbar
-       integer(c_int) :: s
-     end function c_mcd_comp_mean_molar_mass_x
-     function c_mcd_comp_mean_molar_mass_w(n, M, w, out_Mbar) &
-          bind(c, name='mcd_comp_mean_molar_mass_w') result(s)
-       import :: c_size_t, c_double, c_int
-       integer(c_size_t), value :: n
-       real(c_double), intent(in) :: M(*), w(*)
-       real(c_double), intent(inout) :: out_Mbar
-       integer(c_int) :: s
-     end function c_mcd_comp_mean_molar_mass_w
-     function c_mcd_comp_x_to_c(n, c_total, x, out_c) bind(c, name='mcd_comp_x_to_c') result(s)
-       import :: c_size_t, c_double, c_int
-       integer(c_size_t), value :: n
-       real(c_double), value :: c_total
-       real(c_double), intent(in) :: x(*)
-       real(c_double), intent(inout) :: out_c(*)
-       integer(c_int) :: s
-     end function c_mcd_comp_x_to_c
-     function c_mcd_comp_c_to_x(n, c, out_x, out_c_total) bind(c, name='mcd_comp_c_to_x') result(s)
-       import :: c_size_t, c_double, c_int
-       integer(c_size_t), value :: n
-       real(c_double), intent(in) :: c(*)
-       real(c_double), intent(inout) :: out_x(*)
-       real(c_double), intent(inout) :: out_c_total
-       integer(c_int) :: s
-     end function c_mcd_comp_c_to_x
-     function c_mcd_ideal_gas_c(T, P, out_c) bind(c, name='mcd_ideal_gas_c') result(s)
-       import :: c_double, c_int
-       real(c_double), value :: T, P
-       real(c_double), intent(inout) :: out_c
-       integer(c_int) :: s
-     end function c_mcd_ideal_gas_c
-     function c_mcd_comp_grad_x_to_w(n, n_dim, M, x, grad_x, out_grad_w) &
-          bind(c, name='mcd_comp_grad_x_to_w') result(s)
-       import :: c_size_t, c_double, c_int
-       integer(c_size_t), value :: n, n_dim
-       real(c_double), intent(in) :: M(*), x(*), grad_x(*)
-       real(c_double), intent(inout) :: out_grad_w(*)
-       integer(c_int) :: s
-     end function c_mcd_comp_grad_x_to_w
-     function c_mcd_comp_grad_w_to_x(n, n_dim, M, w, grad_w, out_grad_x) &
-          bind(c, name='mcd_comp_grad_w_to_x') result(s)
-       import :: c_size_t, c_double, c_int
-       integer(c_size_t), value :: n, n_dim
-       real(c_double), intent(in) :: M(*), w(*), grad_w(*)
-       real(c_double), intent(inout) :: out_grad_x(*)
-       integer(c_int) :: s
-     end function c_mcd_comp_grad_w_to_x
-
-     ! --- binary diffusivities ---
-     function c_mcd_method_name(m) bind(c, name='mcd_method_name') result(p)
-       import :: c_ptr, c_int
-       integer(c_int), value :: m
-       type(c_ptr) :: p
-     end function c_mcd_method_name
-     function c_mcd_method_from_name(name, out_m) bind(c, name='mcd_method_from_name') result(s)
-       import :: c_char, c_int
-       character(kind=c_char), intent(in) :: name(*)
-       integer(c_int), intent(out) :: out_m
-       integer(c_int) :: s
-     end function c_mcd_method_from_name
-     function c_mcd_method_typical_error(m) bind(c, name='mcd_method_typical_error') result(e)
-       import :: c_int, c_double
-       integer(c_int), value :: m
-       real(c_double) :: e
-     end function c_mcd_method_typical_error
-     function c_mcd_warning_string(bit) bind(c, name='mcd_warning_string') result(p)
-       import :: c_ptr, c_int
-       integer(c_int), value :: bit
-       type(c_ptr) :: p
-     end function c_mcd_warning_string
-     function c_mcd_fsg_raw(T, P, MA, MB, VA, VB, out_D) bind(c, name='mcd_fsg_raw') result(s)
-       import :: c_double, c_int
-       real(c_double), value :: T, P, MA, MB, VA, VB
-       real(c_double), intent(inout) :: out_D
-       integer(c_int) :: s
-     end function c_mcd_fsg_raw
-     function c_mcd_chapman_enskog_raw(T, P, MA, MB, sigA, sigB, epsA, epsB, out_D) &
-          bind(c, name='mcd_chapman_enskog_raw') result(s)
-       import :: c_double, c_int
-       real(c_double), value :: T, P, MA, MB, sigA, sigB, epsA, epsB
-       real(c_double), intent(inout) :: out_D
-       integer(c_int) :: s
-     end function c_mcd_chapman_enskog_raw
-     function c_mcd_wilke_lee_raw(T, P, MA, MB, sigA, sigB, epsA, epsB, out_D) &
-          bind(c, name='mcd_wilke_lee_raw') result(s)
-       import :: c_double, c_int
-       real(c_double), value :: T, P, MA, MB, sigA, sigB, epsA, epsB
-       real(c_double), intent(inout) :: out_D
-       integer(c_int) :: s
-     end function c_mcd_wilke_lee_raw
-     function c_mcd_wilke_chang_raw(T, mu_solvent, M_solvent, phi, Vb_solute, out_D) &
-          bind(c, name='mcd_wilke_chang_raw') result(s)
-       import :: c_double, c_int
-       real(c_double), value :: T, mu_solvent, M_solvent, phi, Vb_solute
-       real(c_double), intent(inout) :: out_D
-       integer(c_int) :: s
-     end function c_mcd_wilke_chang_raw
-     function c_mcd_binary_scale(D_ref, T_ref, P_ref, T, P, expo, out_D) &
-          bind(c, name='mcd_binary_scale') result(s)
-       import :: c_double, c_int
-       real(c_double), value :: D_ref, T_ref, P_ref, T, P, expo
-       real(c_double), intent(inout) :: out_D
-       integer(c_int) :: s
-     end function c_mcd_binary_scale
-     !> out_rel_err (double*) and out_warn (unsigned*) may be c_null_ptr.
-     function c_mcd_binary_gas(db, a, b, method, T, P, out_D, out_rel_err, out_warn) &
-          bind(c, name='mcd_binary_gas') result(s)
-       import :: c_ptr, c_size_t, c_int, c_double
-       type(c_ptr), value :: db
-       integer(c_size_t), value :: a, b
-       integer(c_int), value :: method
-       real(c_double), value :: T, P
-       real(c_double), intent(inout) :: out_D
-       type(c_ptr), value :: out_rel_err, out_warn
-       integer(c_int) :: s
-     end function c_mcd_binary_gas
-     function c_mcd_binary_liquid(db, solute, solvent, T, mu_solvent, out_D, &
-          out_rel_err, out_warn) bind(c, name='mcd_binary_liquid') result(s)
-       import :: c_ptr, c_size_t, c_int, c_double
-       type(c_ptr), value :: db
-       integer(c_size_t), value :: solute, solvent
-       real(c_double), value :: T, mu_solvent
-       real(c_double), intent(inout) :: out_D
-       type(c_ptr), value :: out_rel_err, out_warn
-       integer(c_int) :: s
-     end function c_mcd_binary_liquid
-
-     ! --- mixtures ---
-     !> names: array of n C pointers to NUL-terminated names.
-     function c_mcd_mixture_new(db, n, names, default_method, out_mix, errbuf, errlen) &
-          bind(c, name='mcd_mixture_new') result(s)
-       import :: c_ptr, c_size_t, c_int, c_char
-       type(c_ptr), value :: db
-       integer(c_size_t), value :: n
-       type(c_ptr), intent(in) :: names(*)
-       integer(c_int), value :: default_method
-       type(c_ptr), intent(out) :: out_mix
-       character(kind=c_char), intent(inout) :: errbuf(*)
-       integer(c_size_t), value :: errlen
-       integer(c_int) :: s
-     end function c_mcd_mixture_new
-     subroutine c_mcd_mixture_free(mix) bind(c, name='mcd_mixture_free')
-       import :: c_ptr
-       type(c_ptr), value :: mix
-     end subroutine c_mcd_mixture_free
-     function c_mcd_mixture_count(mix) bind(c, name='mcd_mixture_count') result(n)
-       import :: c_ptr, c_size_t
-       type(c_ptr), value :: mix
-       integer(c_size_t) :: n
-     end function c_mcd_mixture_count
-     function c_mcd_mixture_name(mix, i) bind(c, name='mcd_mixture_name') result(p)
-       import :: c_ptr, c_size_t
-       type(c_ptr), value :: mix
-       integer(c_size_t), value :: i
-       type(c_ptr) :: p
-     end function c_mcd_mixture_name
-     function c_mcd_mixture_molar_masses(mix, out_M) &
-          bind(c, name='mcd_mixture_molar_masses') result(s)
-       import :: c_ptr, c_double, c_int
-       type(c_ptr), value :: mix
-       real(c_double), intent(inout) :: out_M(*)
-       integer(c_int) :: s
-     end function c_mcd_mixture_molar_masses
-     function c_mcd_mixture_set_method(mix, i, j, m) &
-          bind(c, name='mcd_mixture_set_method') result(s)
-       import :: c_ptr, c_size_t, c_int
-       type(c_ptr), value :: mix
-       integer(c_size_t), value :: i, j
-       integer(c_int), value :: m
-       integer(c_int) :: s
-     end function c_mcd_mixture_set_method
-     function c_mcd_mixture_set_binary(mix, i, j, D, T_ref, P_ref) &
-          bind(c, name='mcd_mixture_set_binary') result(s)
-       import :: c_ptr, c_size_t, c_int, c_double
-       type(c_ptr), value :: mix
-       integer(c_size_t), value :: i, j
-       real(c_double), value :: D, T_ref, P_ref
-       integer(c_int) :: s
-     end function c_mcd_mixture_set_binary
-     !> out_rel_err (double*, n x n) and out_warn (unsigned*, n x n) may be
-     !> c_null_ptr.
-     function c_mcd_mixture_binaries(mix, T, P, out_D, out_rel_err, out_warn) &
-          bind(c, name='mcd_mixture_binaries') result(s)
-       import :: c_ptr, c_double, c_int
-       type(c_ptr), value :: mix
-       real(c_double), value :: T, P
-       real(c_double), intent(inout) :: out_D(*)
-       type(c_ptr), value :: out_rel_err, out_warn
-       integer(c_int) :: s
-     end function c_mcd_mixture_binaries
-
-     ! --- workspaces ---
-     function c_mcd_workspace_alloc(n_species, out_ws) &
-          bind(c, name='mcd_workspace_alloc') result(s)
-       import :: c_ptr, c_size_t, c_int
-       integer(c_size_t), value :: n_species
-       type(c_ptr), intent(out) :: out_ws
-       integer(c_int) :: s
-     end function c_mcd_workspace_alloc
-     function c_mcd_workspace_alloc_with(n_species, allocator, out_ws) &
-          bind(c, name='mcd_workspace_alloc_with') result(s)
-       import :: c_ptr, c_size_t, c_int, mcd_allocator_t
-       integer(c_size_t), value :: n_species
-       type(mcd_allocator_t), intent(in) :: allocator
-       type(c_ptr), intent(out) :: out_ws
-       integer(c_int) :: s
-     end function c_mcd_workspace_alloc_with
-     subroutine c_mcd_workspace_free(ws) bind(c, name='mcd_workspace_free')
-       import :: c_ptr
-       type(c_ptr), value :: ws
-     end subroutine c_mcd_workspace_free
-     function c_mcd_workspace_species(ws) bind(c, name='mcd_workspace_species') result(n)
-       import :: c_ptr, c_size_t
-       type(c_ptr), value :: ws
-       integer(c_size_t) :: n
-     end function c_mcd_workspace_species
-     function c_mcd_workspace_last_error(ws) bind(c, name='mcd_workspace_last_error') result(p)
-       import :: c_ptr
-       type(c_ptr), value :: ws
-       type(c_ptr) :: p
-     end function c_mcd_workspace_last_error
-
-     ! --- diffusion fluxes ---
-     !> M, Gamma and grad_lnP may be c_null_ptr.
-     function c_mcd_flux_compute(ws, model, n_species, n_dim, M, Dij, c, comp_basis, &
-          comp, grad_comp, Gamma, grad_lnP, flux_basis, out_flux) &
-          bind(c, name='mcd_flux_compute') result(s)
-       import :: c_ptr, c_int, c_size_t, c_double
-       type(c_ptr), value :: ws
-       integer(c_int), value :: model
-       integer(c_size_t), value :: n_species, n_dim
-       type(c_ptr), value :: M
-       real(c_double), intent(in) :: Dij(*)
-       real(c_double), value :: c
-       integer(c_int), value :: comp_basis
-       real(c_double), intent(in) :: comp(*), grad_comp(*)
-       type(c_ptr), value :: Gamma, grad_lnP
-       integer(c_int), value :: flux_basis
-       real(c_double), intent(inout) :: out_flux(*)
-       integer(c_int) :: s
-     end function c_mcd_flux_compute
-     !> M, Gamma and out_dependent (size_t*) may be c_null_ptr.
-     function c_mcd_fick_matrix(ws, n_species, M, Dij, comp_basis, comp, Gamma, &
-          basis, dependent, out_D, out_dependent) &
-          bind(c, name='mcd_fick_matrix') result(s)
-       import :: c_ptr, c_int, c_size_t, c_double
-       type(c_ptr), value :: ws
-       integer(c_size_t), value :: n_species
-       type(c_ptr), value :: M
-       real(c_double), intent(in) :: Dij(*)
-       integer(c_int), value :: comp_basis
-       real(c_double), intent(in) :: comp(*)
-       type(c_ptr), value :: Gamma
-       integer(c_int), value :: basis
-       integer(c_size_t), value :: dependent
-       real(c_double), intent(inout) :: out_D(*)
-       type(c_ptr), value :: out_dependent
-       integer(c_int) :: s
-     end function c_mcd_fick_matrix
-     function c_mcd_fick_fluxes(n_species, n_dim, D, dependent, conc, grad, out_flux) &
-          bind(c, name='mcd_fick_fluxes') result(s)
-       import :: c_int, c_size_t, c_double
-       integer(c_size_t), value :: n_species, n_dim
-       real(c_double), intent(in) :: D(*)
-       integer(c_size_t), value :: dependent
-       real(c_double), value :: conc
-       real(c_double), intent(in) :: grad(*)
-       real(c_double), intent(inout) :: out_flux(*)
-       integer(c_int) :: s
-     end function c_mcd_fick_fluxes
-     function c_mcd_fick_eigenvalues(ws, m, D, out_re, out_im) &
-          bind(c, name='mcd_fick_eigenvalues') result(s)
-       import :: c_ptr, c_int, c_size_t, c_double
-       type(c_ptr), value :: ws
-       integer(c_size_t), value :: m
-       real(c_double), intent(in) :: D(*)
-       real(c_double), intent(inout) :: out_re(*), out_im(*)
-       integer(c_int) :: s
-     end function c_mcd_fick_eigenvalues
-
-     ! --- frames and total fluxes ---
-     function c_mcd_flux_convert(n_species, n_dim, M, x, from, flux_in, to, out_flux) &
-          bind(c, name='mcd_flux_convert') result(s)
-       import :: c_int, c_size_t, c_double
-       integer(c_size_t), value :: n_species, n_dim
-       real(c_double), intent(in) :: M(*), x(*)
-       integer(c_int), value :: from
-       real(c_double), intent(in) :: flux_in(*)
-       integer(c_int), value :: to
-       real(c_double), intent(inout) :: out_flux(*)
-       integer(c_int) :: s
-     end function c_mcd_flux_convert
-     function c_mcd_flux_to_volume_frame(n_species, n_dim, c, x, Vbar, J, out_JV) &
-          bind(c, name='mcd_flux_to_volume_frame') result(s)
-       import :: c_int, c_size_t, c_double
-       integer(c_size_t), value :: n_species, n_dim
-       real(c_double), value :: c
-       real(c_double), intent(in) :: x(*), Vbar(*), J(*)
-       real(c_double), intent(inout) :: out_JV(*)
-       integer(c_int) :: s
-     end function c_mcd_flux_to_volume_frame
-     function c_mcd_flux_to_species_frame(n_species, n_dim, x, J, k, out_Jk) &
-          bind(c, name='mcd_flux_to_species_frame') result(s)
-       import :: c_int, c_size_t, c_double
-       integer(c_size_t), value :: n_species, n_dim
-       real(c_double), intent(in) :: x(*), J(*)
-       integer(c_size_t), value :: k
-       real(c_double), intent(inout) :: out_Jk(*)
-       integer(c_int) :: s
-     end function c_mcd_flux_to_species_frame
-     !> values and out_bulk may be c_null_ptr.
-     function c_mcd_flux_total(n_species, n_dim, basis, comp, diff, kind, species, &
-          values, out_total, out_bulk) bind(c, name='mcd_flux_total') result(s)
-       import :: c_ptr, c_int, c_size_t, c_double
-       integer(c_size_t), value :: n_species, n_dim
-       integer(c_int), value :: basis
-       real(c_double), intent(in) :: comp(*), diff(*)
-       integer(c_int), value :: kind
-       integer(c_size_t), value :: species
-       type(c_ptr), value :: values
-       real(c_double), intent(inout) :: out_total(*)
-       type(c_ptr), value :: out_bulk
-       integer(c_int) :: s
-     end function c_mcd_flux_total
-     function c_mcd_velocity_difference(n_species, n_dim, M, c, x, J, out_v_minus_u) &
-          bind(c, name='mcd_velocity_difference') result(s)
-       import :: c_int, c_size_t, c_double
-       integer(c_size_t), value :: n_species, n_dim
-       real(c_double), intent(in) :: M(*)
-       real(c_double), value :: c
-       real(c_double), intent(in) :: x(*), J(*)
-       real(c_double), intent(inout) :: out_v_minus_u(*)
-       integer(c_int) :: s
-     end function c_mcd_velocity_difference
-     !> weights and out_residual may be c_null_ptr.
-     function c_mcd_flux_project(n_species, n_dim, weights, inout_flux, out_residual) &
-          bind(c, name='mcd_flux_project') result(s)
-       import :: c_ptr, c_int, c_size_t, c_double
-       integer(c_size_t), value :: n_species, n_dim
-       type(c_ptr), value :: weights
-       real(c_double), intent(inout) :: inout_flux(*)
-       type(c_ptr), value :: out_residual
-       integer(c_int) :: s
-     end function c_mcd_flux_project
-     function c_mcd_flux_diagnose(n_species, n_dim, grad, flux, rel_tol, out_flags) &
-          bind(c, name='mcd_flux_diagnose') result(s)
-       import :: c_int, c_size_t, c_double
-       integer(c_size_t), value :: n_species, n_dim
-       real(c_double), intent(in) :: grad(*), flux(*)
-       real(c_double), value :: rel_tol
-       integer(c_int), intent(inout) :: out_flags(*)
-       integer(c_int) :: s
-     end function c_mcd_flux_diagnose
-
-     ! --- mass transfer ---
-     !> values, out_iterations (size_t*) and out_residual may be c_null_ptr.
-     function c_mcd_film_solve(ws, n, Dij, c, L, x0, xL, kind, species, values, &
-          method, out_N, out_iterations, out_residual) &
-          bind(c, name='mcd_film_solve') result(s)
-       import :: c_ptr, c_int, c_size_t, c_double
-       type(c_ptr), value :: ws
-       integer(c_size_t), value :: n
-       real(c_double), intent(in) :: Dij(*)
-       real(c_double), value :: c, L
-       real(c_double), intent(in) :: x0(*), xL(*)
-       integer(c_int), value :: kind
-       integer(c_size_t), value :: species
-       type(c_ptr), value :: values
-       integer(c_int), value :: method
-       real(c_double), intent(inout) :: out_N(*)
-       type(c_ptr), value :: out_iterations, out_residual
-       integer(c_int) :: s
-     end function c_mcd_film_solve
-     function c_mcd_film_profile(ws, n, Dij, c, L, x0, flux_N, n_points, z, out_x) &
-          bind(c, name='mcd_film_profile') result(s)
-       import :: c_ptr, c_int, c_size_t, c_double
-       type(c_ptr), value :: ws
-       integer(c_size_t), value :: n
-       real(c_double), intent(in) :: Dij(*)
-       real(c_double), value :: c, L
-       real(c_double), intent(in) :: x0(*), flux_N(*)
-       integer(c_size_t), value :: n_points
-       real(c_double), intent(in) :: z(*)
-       real(c_double), intent(inout) :: out_x(*)
-       integer(c_int) :: s
-     end function c_mcd_film_profile
-     function c_mcd_bulbs_linearized(ws, n, Dij, c, V1, V2, A, L, x1_0, x2_0, &
-          n_times, t, out_x1, out_x2) bind(c, name='mcd_bulbs_linearized') result(s)
-       import :: c_ptr, c_int, c_size_t, c_double
-       type(c_ptr), value :: ws
-       integer(c_size_t), value :: n
-       real(c_double), intent(in) :: Dij(*)
-       real(c_double), value :: c, V1, V2, A, L
-       real(c_double), intent(in) :: x1_0(*), x2_0(*)
-       integer(c_size_t), value :: n_times
-       real(c_double), intent(in) :: t(*)
-       real(c_double), intent(inout) :: out_x1(*), out_x2(*)
-       integer(c_int) :: s
-     end function c_mcd_bulbs_linearized
-     function c_mcd_bulbs_integrate(ws, n, Dij, c, V1, V2, A, L, x1_0, x2_0, &
-          n_times, t, rel_tol, out_x1, out_x2) bind(c, name='mcd_bulbs_integrate') result(s)
-       import :: c_ptr, c_int, c_size_t, c_double
-       type(c_ptr), value :: ws
-       integer(c_size_t), value :: n
-       real(c_double), intent(in) :: Dij(*)
-       real(c_double), value :: c, V1, V2, A, L
-       real(c_double), intent(in) :: x1_0(*), x2_0(*)
-       integer(c_size_t), value :: n_times
-       real(c_double), intent(in) :: t(*)
-       real(c_double), value :: rel_tol
-       real(c_double), intent(inout) :: out_x1(*), out_x2(*)
-       integer(c_int) :: s
-     end function c_mcd_bulbs_integrate
-
-     ! --- batched fluxes ---
-     !> grad_lnP may be c_null_ptr. Layout: see the module header.
-     function c_mcd_flux_batch(ws, mix, model, n_cells, n_dim, T, P, comp_basis, &
-          comp, grad, grad_lnP, flux_basis, out_flux) &
-          bind(c, name='mcd_flux_batch') result(s)
-       import :: c_ptr, c_int, c_size_t, c_double
-       type(c_ptr), value :: ws, mix
-       integer(c_int), value :: model
-       integer(c_size_t), value :: n_cells, n_dim
-       real(c_double), intent(in) :: T(*), P(*)
-       integer(c_int), value :: comp_basis
-       real(c_double), intent(in) :: comp(*), grad(*)
-       type(c_ptr), value :: grad_lnP
-       integer(c_int), value :: flux_basis
-       real(c_double), intent(inout) :: out_flux(*)
-       integer(c_int) :: s
-     end function c_mcd_flux_batch
-     !> M and grad_lnP may be c_null_ptr.
-     function c_mcd_flux_batch_dij(ws, model, n_species, n_cells, n_dim, M, Dij, c, &
-          comp_basis, comp, grad, grad_lnP, flux_basis, out_flux) &
-          bind(c, name='mcd_flux_batch_dij') result(s)
-       import :: c_ptr, c_int, c_size_t, c_double
-       type(c_ptr), value :: ws
-       integer(c_int), value :: model
-       integer(c_size_t), value :: n_species, n_cells, n_dim
-       type(c_ptr), value :: M
-       real(c_double), intent(in) :: Dij(*), c(*)
-       integer(c_int), value :: comp_basis
-       real(c_double), intent(in) :: comp(*), grad(*)
-       type(c_ptr), value :: grad_lnP
-       integer(c_int), value :: flux_basis
-       real(c_double), intent(inout) :: out_flux(*)
-       integer(c_int) :: s
-     end function c_mcd_flux_batch_dij
-     function c_mcd_flux_batch_aos(ws, mix, model, n_cells, n_dim, T, P, comp_basis, &
-          comp, grad, grad_lnP, flux_basis, out_flux) &
-          bind(c, name='mcd_flux_batch_aos') result(s)
-       import :: c_ptr, c_int, c_size_t, c_double
-       type(c_ptr), value :: ws, mix
-       integer(c_int), value :: model
-       integer(c_size_t), value :: n_cells, n_dim
-       real(c_double), intent(in) :: T(*), P(*)
-       integer(c_int), value :: comp_basis
-       real(c_double), intent(in) :: comp(*), grad(*)
-       type(c_ptr), value :: grad_lnP
-       integer(c_int), value :: flux_basis
-       real(c_double), intent(inout) :: out_flux(*)
-       integer(c_int) :: s
-     end function c_mcd_flux_batch_aos
-     function c_mcd_workspace_set_iterative(ws, max_iter, tol) &
-          bind(c, name='mcd_workspace_set_iterative') result(s)
-       import :: c_ptr, c_int, c_size_t, c_double
-       type(c_ptr), value :: ws
-       integer(c_size_t), value :: max_iter
-       real(c_double), value :: tol
-       integer(c_int) :: s
-     end function c_mcd_workspace_set_iterative
-     !> Either output (double*, size_t*) may be c_null_ptr.
-     function c_mcd_workspace_iterative_info(ws, out_max_error, out_max_iter) &
-          bind(c, name='mcd_workspace_iterative_info') result(s)
-       import :: c_ptr, c_int
-       type(c_ptr), value :: ws, out_max_error, out_max_iter
-       integer(c_int) :: s
-     end function c_mcd_workspace_iterative_info
-     function c_mcd_workspace_set_threads(ws, n_threads) &
-          bind(c, name='mcd_workspace_set_threads') result(s)
-       import :: c_ptr, c_int, c_size_t
-       type(c_ptr), value :: ws
-       integer(c_size_t), value :: n_threads
-       integer(c_int) :: s
-     end function c_mcd_workspace_set_threads
-     !> out_max_rel_err may be c_null_ptr.
-     function c_mcd_mixture_set_temperature_fit(mix, T_min, T_max, out_max_rel_err) &
-          bind(c, name='mcd_mixture_set_temperature_fit') result(s)
-       import :: c_ptr, c_int, c_double
-       type(c_ptr), value :: mix
-       real(c_double), value :: T_min, T_max
-       type(c_ptr), value :: out_max_rel_err
-       integer(c_int) :: s
-     end function c_mcd_mixture_set_temperature_fit
-     !> Outputs (double*) may be c_null_ptr.
-     function c_mcd_mixture_temperature_fit(mix, out_T_min, out_T_max, out_max_rel_err) &
-          bind(c, name='mcd_mixture_temperature_fit') result(s)
-       import :: c_ptr, c_int
-       type(c_ptr), value :: mix, out_T_min, out_T_max, out_max_rel_err
-       integer(c_int) :: s
-     end function c_mcd_mixture_temperature_fit
   end interface
 
   ! ------------------------------------------------------------------
@@ -932,7 +162,11 @@ module mcdiff
        mcd_workspace_set_threads, mcd_mixture_set_temperature_fit, &
        mcd_formula_elements, mcd_formula_diffusion_volume, &
        mcd_fsg_molecule_volume, mcd_element_symbol, mcd_element_weight, &
-       mcd_collision_omega_d, mcd_workspace_alloc_with
+       mcd_collision_omega_d, mcd_workspace_alloc_with, &
+       mcd_wilke_lee_raw, mcd_wilke_chang_raw, mcd_binary_liquid, &
+       mcd_flux_to_volume_frame, mcd_flux_to_species_frame, &
+       mcd_velocity_difference, mcd_mixture_temperature_fit, &
+       mcd_bulbs_linearized, mcd_bulbs_integrate
 
   !> Release a handle (any of the three types); an empty handle is a no-op.
   interface mcd_free
@@ -1496,6 +730,29 @@ contains
          stat, errmsg)
   end subroutine mcd_chapman_enskog_raw
 
+  !> Wilke-Lee from raw Lennard-Jones parameters (conventions of
+  !> mcd_chapman_enskog_raw: sigA, sigB [m], epsA, epsB epsilon/k [K]).
+  subroutine mcd_wilke_lee_raw(T, P, MA, MB, sigA, sigB, epsA, epsB, D, stat, errmsg)
+    real(c_double), intent(in) :: T, P, MA, MB, sigA, sigB, epsA, epsB
+    real(c_double), intent(inout) :: D
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_wilke_lee_raw(T, P, MA, MB, sigA, sigB, epsA, epsB, D), &
+         stat, errmsg)
+  end subroutine mcd_wilke_lee_raw
+
+  !> Wilke-Chang infinite-dilution diffusivity [m^2/s] of a solute in a
+  !> liquid: mu_solvent [Pa s] at T, M_solvent [kg/mol], phi association
+  !> factor [-], Vb_solute molar volume at the normal boiling point [m^3/mol].
+  subroutine mcd_wilke_chang_raw(T, mu_solvent, M_solvent, phi, Vb_solute, D, stat, errmsg)
+    real(c_double), intent(in) :: T, mu_solvent, M_solvent, phi, Vb_solute
+    real(c_double), intent(inout) :: D
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_wilke_chang_raw(T, mu_solvent, M_solvent, phi, Vb_solute, D), &
+         stat, errmsg)
+  end subroutine mcd_wilke_chang_raw
+
   subroutine mcd_binary_scale(D_ref, T_ref, P_ref, T, P, exponent, D, stat, errmsg)
     real(c_double), intent(in) :: D_ref, T_ref, P_ref, T, P, exponent
     real(c_double), intent(inout) :: D
@@ -1528,6 +785,32 @@ contains
     end if
     call finish(s, stat, errmsg)
   end subroutine mcd_binary_gas
+
+  !> Wilke-Chang infinite-dilution diffusivity [m^2/s] of species solute in
+  !> species solvent (1-based) of db; mu_solvent [Pa s] at T.
+  subroutine mcd_binary_liquid(db, solute, solvent, T, mu_solvent, D, stat, errmsg, &
+       rel_err, warn)
+    type(mcd_db_t), intent(in) :: db
+    integer, intent(in) :: solute, solvent
+    real(c_double), intent(in) :: T, mu_solvent
+    real(c_double), intent(inout) :: D
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    real(c_double), intent(inout), optional :: rel_err
+    integer, intent(inout), optional :: warn
+    real(c_double), target :: e
+    integer(c_int), target :: w
+    integer(c_int) :: s
+    e = 0
+    w = 0
+    s = c_mcd_binary_liquid(db%ptr, cidx(solute), cidx(solvent), T, mu_solvent, D, &
+         c_loc(e), c_loc(w))
+    if (s == 0) then
+       if (present(rel_err)) rel_err = e
+       if (present(warn)) warn = int(w)
+    end if
+    call finish(s, stat, errmsg)
+  end subroutine mcd_binary_liquid
 
   ! ==================================================================
   ! Mixtures
@@ -1781,6 +1064,43 @@ contains
          flux_in, int(to, c_int), flux_out), stat, errmsg)
   end subroutine mcd_flux_convert
 
+  !> Molar fluxes J(n_dim, n) relative to the volume-average velocity:
+  !> JV(:, i) = J(:, i) - c x(i) sum_k Vbar(k) J(:, k); partial molar volumes
+  !> Vbar(n) [m^3/mol] with sum x Vbar = 1/c.
+  subroutine mcd_flux_to_volume_frame(n, n_dim, c, x, Vbar, J, JV, stat, errmsg)
+    integer, intent(in) :: n, n_dim
+    real(c_double), intent(in) :: c, x(n), Vbar(n), J(n_dim, n)
+    real(c_double), intent(inout) :: JV(n_dim, n)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_flux_to_volume_frame(csz(n), csz(n_dim), c, x, Vbar, J, JV), &
+         stat, errmsg)
+  end subroutine mcd_flux_to_volume_frame
+
+  !> Molar fluxes J(n_dim, n) relative to the velocity of species k
+  !> (1-based, x(k) > 0): Jk(:, i) = J(:, i) - x(i) J(:, k) / x(k).
+  subroutine mcd_flux_to_species_frame(n, n_dim, x, J, k, Jk, stat, errmsg)
+    integer, intent(in) :: n, n_dim, k
+    real(c_double), intent(in) :: x(n), J(n_dim, n)
+    real(c_double), intent(inout) :: Jk(n_dim, n)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_flux_to_species_frame(csz(n), csz(n_dim), x, J, cidx(k), Jk), &
+         stat, errmsg)
+  end subroutine mcd_flux_to_species_frame
+
+  !> Mass- minus molar-average velocity [m/s], v_minus_u(n_dim), from molar
+  !> diffusion fluxes J(n_dim, n): (1/rho) sum_k M(k) J(:, k), rho = c Mbar.
+  subroutine mcd_velocity_difference(n, n_dim, M, c, x, J, v_minus_u, stat, errmsg)
+    integer, intent(in) :: n, n_dim
+    real(c_double), intent(in) :: M(n), c, x(n), J(n_dim, n)
+    real(c_double), intent(inout) :: v_minus_u(n_dim)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_velocity_difference(csz(n), csz(n_dim), M, c, x, J, v_minus_u), &
+         stat, errmsg)
+  end subroutine mcd_velocity_difference
+
   !> Total fluxes from diffusion fluxes and a bootstrap condition.
   !>   species: 1-based (STAGNANT); values: N_t(n_dim) for TOTAL, nu(n) for
   !>   WEIGHTS; bulk(n_dim) optional output.
@@ -1886,6 +1206,39 @@ contains
     call finish_ws(ws, c_mcd_film_profile(ws%ptr, csz(n), Dij, c, L, x0, N_flux, &
          csz(n_points), z, x), stat, errmsg)
   end subroutine mcd_film_profile
+
+  !> Two-bulb cell by the linearized theory: bulbs of volumes V1, V2 [m^3]
+  !> joined by a capillary of cross-section A [m^2] and length L [m];
+  !> x1_0(n), x2_0(n) initial mole fractions; x1(n, n_times) and
+  !> x2(n, n_times) the compositions at times t(n_times) [s], x1(:, k) at t(k).
+  subroutine mcd_bulbs_linearized(ws, n, Dij, c, V1, V2, A, L, x1_0, x2_0, n_times, t, &
+       x1, x2, stat, errmsg)
+    type(mcd_workspace_t), intent(inout) :: ws
+    integer, intent(in) :: n, n_times
+    real(c_double), intent(in) :: Dij(n, n), c, V1, V2, A, L, x1_0(n), x2_0(n)
+    real(c_double), intent(in) :: t(*)
+    real(c_double), intent(inout) :: x1(n, *), x2(n, *)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish_ws(ws, c_mcd_bulbs_linearized(ws%ptr, csz(n), Dij, c, V1, V2, A, L, &
+         x1_0, x2_0, csz(n_times), t, x1, x2), stat, errmsg)
+  end subroutine mcd_bulbs_linearized
+
+  !> Two-bulb cell by time integration of the exact equimolar film flux
+  !> (local error tolerance rel_tol in [1e-12, 1e-2]); t non-decreasing;
+  !> other arguments as in mcd_bulbs_linearized.
+  subroutine mcd_bulbs_integrate(ws, n, Dij, c, V1, V2, A, L, x1_0, x2_0, n_times, t, &
+       rel_tol, x1, x2, stat, errmsg)
+    type(mcd_workspace_t), intent(inout) :: ws
+    integer, intent(in) :: n, n_times
+    real(c_double), intent(in) :: Dij(n, n), c, V1, V2, A, L, x1_0(n), x2_0(n)
+    real(c_double), intent(in) :: t(*), rel_tol
+    real(c_double), intent(inout) :: x1(n, *), x2(n, *)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish_ws(ws, c_mcd_bulbs_integrate(ws%ptr, csz(n), Dij, c, V1, V2, A, L, &
+         x1_0, x2_0, csz(n_times), t, rel_tol, x1, x2), stat, errmsg)
+  end subroutine mcd_bulbs_integrate
 
   ! ==================================================================
   ! Batched fluxes (layout: see the module header)
@@ -2013,6 +1366,27 @@ contains
     if (s == 0 .and. present(max_rel_err)) max_rel_err = e
     call finish(s, stat, errmsg)
   end subroutine mcd_mixture_set_temperature_fit
+
+  !> The declared temperature-fit range [T_min, T_max] of mix and the fit's
+  !> largest relative error (all 0 when no fit is declared).
+  subroutine mcd_mixture_temperature_fit(mix, T_min, T_max, max_rel_err, stat, errmsg)
+    type(mcd_mixture_t), intent(in) :: mix
+    real(c_double), intent(inout) :: T_min, T_max, max_rel_err
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    real(c_double), target :: lo, hi, e
+    integer(c_int) :: s
+    lo = 0
+    hi = 0
+    e = 0
+    s = c_mcd_mixture_temperature_fit(mix%ptr, c_loc(lo), c_loc(hi), c_loc(e))
+    if (s == 0) then
+       T_min = lo
+       T_max = hi
+       max_rel_err = e
+    end if
+    call finish(s, stat, errmsg)
+  end subroutine mcd_mixture_temperature_fit
 
   !> Element counts of a formula: Z(n_elements), counts(n_elements) with
   !> capacity size(Z) = size(counts) = cap.

@@ -16,6 +16,10 @@ program test_mcdiff
   call check_ternary()
   call check_film_stagnant()
   call check_batch()
+  call check_raw_and_liquid_binaries()
+  call check_frames()
+  call check_temperature_fit()
+  call check_bulbs()
   call check_errors()
   call check_handles()
 
@@ -373,6 +377,231 @@ contains
     call check(stat == MCD_EDOM, 'batch with a bad cell is MCD_EDOM')
     call check(index(msg, 'cell') > 0, 'batch error names the cell: ' // trim(msg))
   end subroutine check_batch
+
+  ! Wilke-Lee and Wilke-Chang: the raw wrappers against the closed forms
+  ! computed here, and the database wrappers (1-based indices, optional
+  ! outputs) against the raw ones fed with the database's parameters.
+  subroutine check_raw_and_liquid_binaries()
+    ! exact SI values of the Boltzmann and Avogadro constants (2019 SI)
+    real(c_double), parameter :: KB = 1.380649e-23_c_double, NA = 6.02214076e23_c_double
+    real(c_double), parameter :: PI = 3.14159265358979323846_c_double
+    type(mcd_db_t) :: db
+    integer :: stat, in2, ico2, iben, iwat, warn
+    real(c_double) :: T, P, MA, MB, sA, sB, eA, eB, Dwl, Dce, Dgas, Mab, ratio, ref
+    real(c_double) :: mu, Mw, phi, Vb, Dwc, Dliq, err
+    character(len=256) :: msg
+
+    call mcd_db_new_builtin(db, stat, msg)
+    call mcd_db_find(db, 'nitrogen', in2, stat, msg)
+    call mcd_db_find(db, 'carbon-dioxide', ico2, stat, msg)
+    call check_stat(stat, msg, 'find N2 and CO2')
+    T = 350.0_c_double
+    P = 1.5_c_double * MCD_ATM
+    call mcd_db_param(db, in2, MCD_PARAM_MOLAR_MASS, MA, stat, msg)
+    call mcd_db_param(db, ico2, MCD_PARAM_MOLAR_MASS, MB, stat, msg)
+    call mcd_db_param(db, in2, MCD_PARAM_LJ_SIGMA, sA, stat, msg)
+    call mcd_db_param(db, ico2, MCD_PARAM_LJ_SIGMA, sB, stat, msg)
+    call mcd_db_param(db, in2, MCD_PARAM_LJ_EPS_K, eA, stat, msg)
+    call mcd_db_param(db, ico2, MCD_PARAM_LJ_EPS_K, eB, stat, msg)
+    call check_stat(stat, msg, 'Lennard-Jones parameters of N2 and CO2')
+    Dwl = GUARD
+    call mcd_wilke_lee_raw(T, P, MA, MB, sA, sB, eA, eB, Dwl, stat, msg)
+    call check_stat(stat, msg, 'Wilke-Lee raw')
+    call mcd_chapman_enskog_raw(T, P, MA, MB, sA, sB, eA, eB, Dce, stat, msg)
+    call check_stat(stat, msg, 'Chapman-Enskog raw')
+    ! Same collision integral in both: their ratio is Wilke-Lee's factor
+    ! (3.03 - 0.98/M_AB^0.5) 1e-3 [cm^2/s, bar, A, g/mol] over the first
+    ! Chapman-Enskog coefficient (3/16) sqrt(4 pi k^3 N_A / M_AB) / pi (SI).
+    Mab = 2 / (1 / MA + 1 / MB)
+    ratio = (3.03_c_double - 0.98_c_double / sqrt(1000 * Mab)) * 1e-22_c_double &
+         / sqrt(1000 * Mab) / (3.0_c_double / 16 * sqrt(4 * PI * KB**3 * NA / Mab) / PI)
+    call check(abs(Dwl / Dce - ratio) <= 1e-12_c_double * ratio, &
+         'Wilke-Lee / Chapman-Enskog = ratio of their coefficients')
+    Dgas = GUARD
+    call mcd_binary_gas(db, in2, ico2, MCD_METHOD_WILKE_LEE, T, P, Dgas, stat, msg)
+    call check_stat(stat, msg, 'Wilke-Lee N2-CO2 from the database')
+    call check(abs(Dgas - Dwl) <= 1e-13_c_double * Dwl, &
+         'mcd_binary_gas(WILKE_LEE) equals mcd_wilke_lee_raw with the database values')
+
+    ! benzene (solute) infinitely dilute in water at 298.15 K, water
+    ! viscosity 0.89 mPa s
+    call mcd_db_find(db, 'benzene', iben, stat, msg)
+    call mcd_db_find(db, 'water', iwat, stat, msg)
+    call check_stat(stat, msg, 'find benzene and water')
+    T = 298.15_c_double
+    mu = 0.89e-3_c_double
+    call mcd_db_param(db, iwat, MCD_PARAM_MOLAR_MASS, Mw, stat, msg)
+    call mcd_db_param(db, iwat, MCD_PARAM_ASSOC, phi, stat, msg)
+    call mcd_db_param(db, iben, MCD_PARAM_VB, Vb, stat, msg)
+    call check_stat(stat, msg, 'Wilke-Chang parameters of benzene and water')
+    Dwc = GUARD
+    call mcd_wilke_chang_raw(T, mu, Mw, phi, Vb, Dwc, stat, msg)
+    call check_stat(stat, msg, 'Wilke-Chang raw')
+    ! D [cm^2/s] = 7.4e-8 (phi M [g/mol])^0.5 T / (mu [cP] Vb [cm^3/mol]^0.6)
+    ref = 1e-4_c_double * 7.4e-8_c_double * sqrt(phi * 1000 * Mw) * T &
+         / (1000 * mu * (1e6_c_double * Vb)**0.6_c_double)
+    call check(abs(Dwc - ref) <= 1e-12_c_double * ref, 'Wilke-Chang closed form')
+    call check(Dwc > 5e-10_c_double .and. Dwc < 5e-9_c_double, &
+         'benzene in water: D of order 1e-9 m^2/s')
+    Dliq = GUARD
+    err = -1
+    warn = -1
+    call mcd_binary_liquid(db, iben, iwat, T, mu, Dliq, stat, msg, rel_err=err, warn=warn)
+    call check_stat(stat, msg, 'Wilke-Chang benzene in water from the database')
+    call check(abs(Dliq - Dwc) <= 1e-14_c_double * Dwc, &
+         'mcd_binary_liquid equals mcd_wilke_chang_raw with the database values')
+    call check(abs(err - mcd_method_typical_error(MCD_METHOD_WILKE_CHANG)) <= 0, &
+         'liquid rel_err is the method''s typical error')
+    call check(warn >= 0 .and. iand(warn, MCD_WARN_TEMPERATURE) == 0, &
+         'no temperature warning at 298.15 K')
+    ! solvent and solute swapped: water's own Vb, benzene's factor (1.0)
+    call mcd_binary_liquid(db, iwat, iben, T, mu, Dliq, stat, msg)
+    call check_stat(stat, msg, 'water in benzene (optional outputs absent)')
+    call mcd_db_param(db, iben, MCD_PARAM_MOLAR_MASS, Mw, stat, msg)
+    call mcd_db_param(db, iben, MCD_PARAM_ASSOC, phi, stat, msg)
+    call mcd_db_param(db, iwat, MCD_PARAM_VB, Vb, stat, msg)
+    call mcd_wilke_chang_raw(T, mu, Mw, phi, Vb, Dwc, stat, msg)
+    call check(abs(Dliq - Dwc) <= 1e-14_c_double * Dwc, 'solute and solvent by index')
+  end subroutine check_raw_and_liquid_binaries
+
+  ! Frame changes of a ternary flux set, against the defining formulas
+  ! evaluated here.
+  subroutine check_frames()
+    real(c_double) :: x(3), M(3), Vbar(3), J(2, 3), JV(2, 3), Jk(2, 3), vmu(2)
+    real(c_double) :: ref(2), c, s(2), scale
+    integer :: stat, i, d
+    character(len=256) :: msg
+    c = 40.0_c_double
+    x = [0.2_c_double, 0.5_c_double, 0.3_c_double]
+    M = [2.016e-3_c_double, 28.014e-3_c_double, 44.009e-3_c_double]
+    J(:, 1) = [-3.0e-3_c_double, 1.2e-3_c_double]
+    J(:, 2) = [1.9e-3_c_double, -0.4e-3_c_double]
+    J(:, 3) = -(J(:, 1) + J(:, 2))
+    scale = maxval(abs(J))
+    ! partial molar volumes with sum x Vbar = 1/c, not all equal
+    Vbar(1:2) = [0.8_c_double / c, 1.1_c_double / c]
+    Vbar(3) = (1 / c - x(1) * Vbar(1) - x(2) * Vbar(2)) / x(3)
+    JV = GUARD
+    call mcd_flux_to_volume_frame(3, 2, c, x, Vbar, J, JV, stat, msg)
+    call check_stat(stat, msg, 'volume frame')
+    s = matmul(J, Vbar)
+    do i = 1, 3
+       call check(all(abs(JV(:, i) - (J(:, i) - c * x(i) * s)) <= 1e-14_c_double * scale), &
+            'J^V = J - c x sum Vbar J, species ' // itoa(i))
+    end do
+    ! ideal gas (Vbar = 1/c): the volume- and molar-average frames agree
+    Vbar = 1 / c
+    call mcd_flux_to_volume_frame(3, 2, c, x, Vbar, J, JV, stat, msg)
+    call check(maxval(abs(JV - J)) <= 1e-15_c_double * scale, 'ideal gas: J^V = J')
+
+    Jk = GUARD
+    call mcd_flux_to_species_frame(3, 2, x, J, 2, Jk, stat, msg)
+    call check_stat(stat, msg, 'species frame')
+    call check(all(abs(Jk(:, 2)) <= 0), 'species 2 (1-based) is at rest in its own frame')
+    do i = 1, 3
+       ref = J(:, i) - x(i) * J(:, 2) / x(2)
+       call check(all(abs(Jk(:, i) - ref) <= 1e-14_c_double * scale), &
+            'J^k = J - x J_k / x_k, species ' // itoa(i))
+    end do
+
+    vmu = GUARD
+    call mcd_velocity_difference(3, 2, M, c, x, J, vmu, stat, msg)
+    call check_stat(stat, msg, 'velocity difference')
+    do d = 1, 2
+       ref(d) = sum(M * J(d, :)) / (c * sum(x * M))
+    end do
+    call check(all(abs(vmu - ref) <= 1e-13_c_double * maxval(abs(ref))), &
+         'v - u = sum M J / (c Mbar)')
+  end subroutine check_frames
+
+  ! Temperature fit of a Chapman-Enskog mixture: the range and error read
+  ! back are those declared and returned by the set call.
+  subroutine check_temperature_fit()
+    type(mcd_db_t) :: db
+    type(mcd_mixture_t) :: mix
+    real(c_double) :: lo, hi, e_set, e_get
+    integer :: stat
+    character(len=256) :: msg
+    call mcd_db_new_builtin(db, stat, msg)
+    call mcd_mixture_new(mix, db, [character(len=16) :: 'hydrogen', 'nitrogen', &
+         'carbon-dioxide'], stat, msg, default_method=MCD_METHOD_CHAPMAN_ENSKOG)
+    call check_stat(stat, msg, 'Chapman-Enskog mixture')
+    lo = GUARD
+    hi = GUARD
+    e_get = GUARD
+    call mcd_mixture_temperature_fit(mix, lo, hi, e_get, stat, msg)
+    call check_stat(stat, msg, 'temperature fit before any is declared')
+    call check(max(abs(lo), abs(hi), abs(e_get)) <= 0, 'no fit declared: all 0')
+    e_set = -1
+    call mcd_mixture_set_temperature_fit(mix, 250.0_c_double, 1200.0_c_double, stat, msg, &
+         max_rel_err=e_set)
+    call check_stat(stat, msg, 'declare a fit over 250..1200 K')
+    call mcd_mixture_temperature_fit(mix, lo, hi, e_get, stat, msg)
+    call check_stat(stat, msg, 'read the fit back')
+    call check(abs(lo - 250) <= 0 .and. abs(hi - 1200) <= 0, 'declared range read back')
+    call check(abs(e_get - e_set) <= 0, 'fit error read back equals the one returned')
+    call check(e_set > 0 .and. e_set < 1e-9_c_double, 'Chapman-Enskog pairs are fitted closely')
+    call mcd_mixture_set_temperature_fit(mix, 0.0_c_double, 0.0_c_double, stat, msg)
+    call mcd_mixture_temperature_fit(mix, lo, hi, e_get, stat, msg)
+    call check(max(abs(lo), abs(hi), abs(e_get)) <= 0, 'fit removed')
+  end subroutine check_temperature_fit
+
+  ! Two-bulb cell, binary: [D] = D12 at every composition and the
+  ! equimolar binary film carries N = c D12 (x1 - x2) / L, so both
+  ! theories give Delta(t) = Delta(0) exp(-beta D12 t),
+  ! beta = A (V1 + V2) / (L V1 V2), around the volume-weighted mean.
+  subroutine check_bulbs()
+    integer, parameter :: NT = 4
+    type(mcd_workspace_t) :: ws
+    real(c_double) :: Dij(2, 2), x1_0(2), x2_0(2), t(NT), x1(2, NT), x2(2, NT)
+    real(c_double) :: xi(2, NT), x2i(2, NT), mean(2), c, V1, V2, A, L, beta, dlt
+    real(c_double) :: worst_lin, worst_int, worst_cons
+    integer :: stat, k
+    character(len=256) :: msg
+    Dij = reshape([0.0_c_double, 4.0e-5_c_double, 4.0e-5_c_double, 0.0_c_double], [2, 2])
+    c = 40.0_c_double
+    V1 = 1.0e-4_c_double
+    V2 = 2.0e-4_c_double
+    A = 1.0e-6_c_double
+    L = 0.05_c_double
+    x1_0 = [0.9_c_double, 0.1_c_double]
+    x2_0 = [0.2_c_double, 0.8_c_double]
+    t = [0.0_c_double, 2.0e4_c_double, 5.0e4_c_double, 1.5e5_c_double]
+    beta = A * (V1 + V2) / (L * V1 * V2)
+    mean = (V1 * x1_0 + V2 * x2_0) / (V1 + V2)
+    call mcd_workspace_alloc(ws, 2, stat, msg)
+    x1 = GUARD
+    x2 = GUARD
+    call mcd_bulbs_linearized(ws, 2, Dij, c, V1, V2, A, L, x1_0, x2_0, NT, t, x1, x2, &
+         stat, msg)
+    call check_stat(stat, msg, 'two bulbs, linearized')
+    xi = GUARD
+    x2i = GUARD
+    call mcd_bulbs_integrate(ws, 2, Dij, c, V1, V2, A, L, x1_0, x2_0, NT, t, &
+         1e-10_c_double, xi, x2i, stat, msg)
+    call check_stat(stat, msg, 'two bulbs, integrated')
+    worst_lin = 0
+    worst_int = 0
+    worst_cons = 0
+    do k = 1, NT
+       dlt = (x1_0(1) - x2_0(1)) * exp(-beta * Dij(1, 2) * t(k))
+       worst_lin = max(worst_lin, abs(x1(1, k) - (mean(1) + V2 / (V1 + V2) * dlt)), &
+            abs(x2(1, k) - (mean(1) - V1 / (V1 + V2) * dlt)))
+       worst_int = max(worst_int, abs(xi(1, k) - (mean(1) + V2 / (V1 + V2) * dlt)), &
+            abs(x2i(1, k) - (mean(1) - V1 / (V1 + V2) * dlt)))
+       worst_cons = max(worst_cons, maxval(abs(V1 * x1(:, k) + V2 * x2(:, k) &
+            - (V1 + V2) * mean)) / (V1 + V2), maxval(abs(V1 * xi(:, k) + V2 * x2i(:, k) &
+            - (V1 + V2) * mean)) / (V1 + V2))
+    end do
+    write (*, '(a, 3es10.3)') 'two bulbs vs closed form (linearized, integrated, &
+         &conservation): ', worst_lin, worst_int, worst_cons
+    ! linearized: one exponential, round-off only; integrated: Runge-Kutta
+    ! with local tolerance 1e-10 over about 5 time constants.
+    call check(worst_lin <= 1e-12_c_double, 'linearized two bulbs = closed form')
+    call check(worst_int <= 1e-9_c_double, 'integrated two bulbs = closed form')
+    call check(worst_cons <= 1e-14_c_double, 'every species conserved')
+    call check(all(abs(x1(:, 1) - x1_0) <= 1e-15_c_double), 'x1(t = 0) = x1_0')
+  end subroutine check_bulbs
 
   ! Error paths: status codes and messages reach Fortran, outputs untouched.
   subroutine check_errors()

@@ -7,7 +7,6 @@ import ctypes
 import ctypes.util
 import gc
 import os
-import re
 import shutil
 import subprocess
 import sys
@@ -24,55 +23,38 @@ from mcdiff import _arrays, _native  # noqa: E402
 np = _arrays.np
 
 
-def header_text():
-    with open(_support.HEADER, encoding="utf-8") as f:
-        return f.read()
+def load_parser():
+    """tools/gen_bindings.py, the project's one parser of mcdiff.h (path
+    from MCDIFF_GEN_BINDINGS, set by meson, else relative to the checkout)."""
+    import importlib.util
+    path = os.environ.get("MCDIFF_GEN_BINDINGS",
+                          os.path.join(_support.ROOT, "tools",
+                                       "gen_bindings.py"))
+    spec = importlib.util.spec_from_file_location("gen_bindings", path)
+    mod = importlib.util.module_from_spec(spec)
+    spec.loader.exec_module(mod)
+    return mod
 
 
-def strip_c(text):
-    """Header without comments and preprocessor lines."""
-    text = re.sub(r"/\*.*?\*/", " ", text, flags=re.S)
-    text = re.sub(r"//[^\n]*", " ", text)
-    out, cont = [], False
-    for line in text.splitlines():
-        if cont or line.lstrip().startswith("#"):
-            cont = line.rstrip().endswith("\\")
-            continue
-        out.append(line)
-    return "\n".join(out)
+API = load_parser().parse_header(_support.HEADER)
 
 
 def header_functions():
-    """{name: (return type, [parameter types])} of every MCD_API function."""
-    text = strip_c(header_text())
-    text = re.sub(r"MCD_DEPRECATED\s*\([^)]*\)", " ", text)
-    funcs = {}
-    for m in re.finditer(r"MCD_API\s+([^;{}]*?)\b(mcd_\w+)\s*\(([^)]*)\)\s*;",
-                         text, re.S):
-        ret = " ".join(m.group(1).split())
-        params = " ".join(m.group(3).split())
-        types = []
-        if params != "void":
-            for p in params.split(","):
-                p = p.strip()
-                # drop the parameter name (last identifier)
-                t = re.sub(r"\b\w+$", "", p).strip()
-                types.append(" ".join(t.replace("*", " * ").split()))
-        funcs[m.group(2)] = (" ".join(ret.replace("*", " * ").split()), types)
-    return funcs
+    """{name: (return CType, [parameter CTypes])} of every MCD_API
+    function."""
+    return {f.name: (f.ret, [p.ctype for p in f.params])
+            for f in API.functions.values()}
 
 
-ENUMS = {"mcd_status", "mcd_param", "mcd_method", "mcd_basis", "mcd_model",
-         "mcd_bootstrap", "mcd_film_method"}
-HANDLES = {"mcd_db", "mcd_mixture", "mcd_workspace", "mcd_allocator"}
+ENUMS = set(API.enums)
+HANDLES = set(API.structs)  # opaque ones and mcd_allocator: passed by pointer
 
 
 def ctype_of(c):
-    """The ctypes type the table must hold for C type text c."""
+    """The ctypes type the table must hold for a parsed C type (a mapping
+    written independently of the generator's)."""
     P = ctypes.POINTER
-    words = [w for w in c.split() if w != "const"]
-    stars = words.count("*")
-    base = " ".join(w for w in words if w != "*")
+    stars, base = c.depth, c.base
     if stars == 0:
         if base in ENUMS or base == "int":
             return ctypes.c_int
@@ -83,7 +65,7 @@ def ctype_of(c):
             return ctypes.c_void_p
         if base == "char":
             # const char * -> c_char_p; writable char * (errbuf) -> char buf
-            return ctypes.c_char_p if "const" in c.split() else P(ctypes.c_char)
+            return ctypes.c_char_p if c.base_const else P(ctypes.c_char)
         if base in ENUMS or base == "int":
             return P(ctypes.c_int)
         return P({"unsigned": ctypes.c_uint, "size_t": ctypes.c_size_t,
@@ -93,16 +75,16 @@ def ctype_of(c):
             return P(ctypes.c_void_p)
         if base == "char":
             return P(ctypes.c_char_p)
-    raise AssertionError("no mapping for C type %r" % c)
+    raise AssertionError("no mapping for C type %r" % c.c_text)
 
 
 def header_macros():
-    return dict(re.findall(r"#define\s+(MCD_\w+)\s+([^\s/]+)", header_text()))
+    """{name: value} of the numeric #define MCD_* macros."""
+    return {n: d.value for n, d in API.defines.items()}
 
 
 def header_enum_values():
-    text = strip_c(header_text())
-    return {k: int(v) for k, v in re.findall(r"\b(MCD_\w+)\s*=\s*(\d+)", text)}
+    return API.enumerators
 
 
 class SignatureTable(unittest.TestCase):
@@ -120,10 +102,11 @@ class SignatureTable(unittest.TestCase):
             with self.subTest(function=name):
                 self.assertEqual(len(argtypes), len(params),
                                  "argument count of %s" % name)
-                self.assertIs(restype, ctype_of(ret), "return type %r" % ret)
+                self.assertIs(restype, ctype_of(ret),
+                              "return type %r" % ret.c_text)
                 for k, (c, t) in enumerate(zip(params, argtypes)):
-                    self.assertIs(t, ctype_of(c),
-                                  "argument %d (%s) of %s" % (k, c, name))
+                    self.assertIs(t, ctype_of(c), "argument %d (%s) of %s"
+                                  % (k, c.c_text, name))
 
     def test_loaded_functions_carry_the_table(self):
         for name, (restype, argtypes) in _native.SIGNATURES.items():
@@ -135,7 +118,7 @@ class SignatureTable(unittest.TestCase):
 class Versions(unittest.TestCase):
     def test_package_version_equals_header_macros(self):
         m = header_macros()
-        built = tuple(int(m["MCD_VERSION_" + k])
+        built = tuple(m["MCD_VERSION_" + k]
                       for k in ("MAJOR", "MINOR", "PATCH"))
         self.assertEqual(mcdiff.BUILT_FOR, built)
         self.assertEqual(mcdiff.__version__, "%d.%d.%d" % built)
@@ -148,17 +131,18 @@ class Versions(unittest.TestCase):
 
     def test_constants_and_enums_equal_the_header(self):
         m = header_macros()
-        self.assertEqual(mcdiff.MAX_SPECIES, int(m["MCD_MAX_SPECIES"]))
-        self.assertEqual(mcdiff.MAX_DIM, int(m["MCD_MAX_DIM"]))
-        self.assertEqual(mcdiff.SUM_TOL, float(m["MCD_SUM_TOL"]))
-        self.assertEqual(mcdiff.GAS_CONSTANT, float(m["MCD_GAS_CONSTANT"]))
-        self.assertEqual(mcdiff.ATM, float(m["MCD_ATM"]))
+        self.assertEqual(mcdiff.MAX_SPECIES, m["MCD_MAX_SPECIES"])
+        self.assertEqual(mcdiff.MAX_DIM, m["MCD_MAX_DIM"])
+        self.assertEqual(mcdiff.SUM_TOL, m["MCD_SUM_TOL"])
+        self.assertEqual(mcdiff.GAS_CONSTANT, m["MCD_GAS_CONSTANT"])
+        self.assertEqual(mcdiff.ATM, m["MCD_ATM"])
         for cls, prefix in ((mcdiff.Warning, "MCD_WARN_"),
                             (mcdiff.Diag, "MCD_DIAG_")):
             for member in cls:
-                self.assertEqual(int(member),
-                                 int(m[prefix + member.name].rstrip("u"), 0),
-                                 member)
+                self.assertEqual(int(member), m[prefix + member.name], member)
+            # and no header bit is missing from the Python flag set
+            self.assertEqual(sorted(k for k in m if k.startswith(prefix)),
+                             sorted(prefix + x.name for x in cls), cls)
         vals = header_enum_values()
         groups = ((mcdiff.Status, "MCD_"), (mcdiff.Param, "MCD_PARAM_"),
                   (mcdiff.Method, "MCD_METHOD_"), (mcdiff.Basis, "MCD_BASIS_"),
