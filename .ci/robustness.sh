@@ -16,9 +16,10 @@
 #             UB and leaks are fatal (halt_on_error=1, detect_leaks=1,
 #             CK_FORK=no so that each Check suite is one process whose
 #             leaks are reported at exit).
-#   valgrind  memcheck on every Check test executable of the plain `build`
-#             directory (built by .ci/run; configured here if missing):
-#             --leak-check=full, any error or definite/indirect leak fails.
+#   valgrind  `meson test --setup valgrind` (tests/meson.build) on the unit
+#             suite of the plain `build` directory (built by .ci/run;
+#             configured here if missing): --leak-check=full, any error or
+#             definite/indirect leak fails.
 #   tsan      gcc -fsanitize=thread, tests/test_threads only.
 #   openmp    gcc, -Dopenmp=enabled: the batched calls parallel over cells;
 #             the batch, allocation and thread suites (results bit-identical
@@ -89,19 +90,8 @@ stage_asan() {
     fi
 }
 
-# One test executable under memcheck; its output goes to $2.log and the
-# file $2.fail exists if it failed. (Runs in a child bash via xargs.)
-valgrind_one() {
-    if ! CK_FORK=no CK_DEFAULT_TIMEOUT=1800 valgrind --quiet --error-exitcode=1 \
-            --leak-check=full --show-leak-kinds=definite,indirect \
-            --errors-for-leak-kinds=definite,indirect "$1" >"$2.log" 2>&1; then
-        touch "$2.fail"
-    fi
-}
-export -f valgrind_one
-
 stage_valgrind() {
-    local log=$LOGDIR/valgrind.log n=0 bad=0 t vdir
+    local log=$LOGDIR/valgrind.log
     if ! command -v valgrind >/dev/null; then
         fail valgrind "valgrind not installed"; return
     fi
@@ -109,31 +99,15 @@ stage_valgrind() {
         meson setup "$PLAIN" >"$log" 2>&1 || { fail valgrind "meson setup, see $log"; return; }
     fi
     ninja -j"$JOBS" -C "$PLAIN" >>"$log" 2>&1 || { fail valgrind "build, see $log"; return; }
-    vdir=$LOGDIR/valgrind
-    mkdir -p "$vdir"
-    # JOBS executables at a time; --track-origins is left out for speed
-    # (add it by hand to locate an uninitialised read that this reports).
-    # shellcheck disable=SC2016 # $1 and $2 expand in the child bash
-    for t in "$PLAIN"/tests/test_*; do
-        if [ -f "$t" ] && [ -x "$t" ]; then
-            printf '%s\0%s\0' "$t" "$vdir/$(basename "$t")"
-        fi
-    done | xargs -0 -n 2 -P "$JOBS" bash -c 'valgrind_one "$1" "$2"' _
-    for t in "$vdir"/*.log; do
-        [ -f "$t" ] || continue
-        n=$((n + 1))
-        { echo "=== $(basename "$t" .log)"; cat "$t"; } >>"$log"
-        if [ -f "${t%.log}.fail" ]; then
-            echo "valgrind: $(basename "$t" .log) FAILED" >>"$log"
-            bad=$((bad + 1))
-        fi
-    done
-    if [ "$n" -eq 0 ]; then
-        fail valgrind "no test executables in $PLAIN/tests"
-    elif [ "$bad" -eq 0 ]; then
-        ok valgrind "$n executables, 0 errors, 0 leaks"
+    # the 'valgrind' test setup of tests/meson.build: memcheck, any error or
+    # definite/indirect leak fails; the kernel-variant repeats and the
+    # Python script checks are left out (--suite unit would bring them back)
+    if meson test -C "$PLAIN" --setup valgrind --suite unit --no-suite kernel-variant \
+            --no-suite script --num-processes "$JOBS" --print-errorlogs \
+            --logbase valgrind >>"$log" 2>&1; then
+        ok valgrind "$(grep -E '^Ok:' "$log" | tr -s ' ') tests, 0 errors, 0 leaks"
     else
-        fail valgrind "$bad of $n executables with errors or leaks, see $log"
+        fail valgrind "$(grep -E '^(Ok|Fail|Timeout):' "$log" | tr -s ' ' | tr '\n' ' ')see $log"
     fi
 }
 
