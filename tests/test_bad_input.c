@@ -1229,6 +1229,7 @@ static const bcase cases[] = {
         C(fn, "Dij NaN", EINVAL_, "Dij", MDA(D, 1, NAN), MDA(D, 3, NAN)),                    \
         C(fn, "Dij 0", EDOM_, "Dij", MDA(D, 5, 0.0), MDA(D, 7, 0.0)),                        \
         C(fn, "Dij not symmetric", EDOM_, "Dij", MDA(D, 2, 1.7e-5)),                         \
+        C(fn, "Dij subnormal", EDOM_, "subnormal", MDA(D, 1, 4.9e-324), MDA(D, 3, 4.9e-324)), \
         C(fn, "c NaN", EINVAL_, "c", MD(c, NAN)), C(fn, "c 0", EDOM_, "c", MD(c, 0.0)),      \
         C(fn, "L inf", EINVAL_, "L", MD(L, INFINITY)), C(fn, "L negative", EDOM_, "L", MD(L, -1e-3)), \
         C(fn, "x0 NULL", EINVAL_, x0w, MN(NB_X)), C(fn, "x0 NaN", EINVAL_, x0w, MDA(x, 1, NAN)), \
