@@ -250,7 +250,6 @@ MCD_API mcd_status mcd_flux_batch_dij(mcd_workspace *ws, mcd_model model,
 {
     mcdi_bjob jb;
     mcd_status st;
-    size_t i;
     int need_M;
     if (ws == NULL)
         return MCD_EINVAL;
@@ -264,26 +263,8 @@ MCD_API mcd_status mcd_flux_batch_dij(mcd_workspace *ws, mcd_model model,
         return mcdi_ws_fail(ws, MCD_EINVAL, "argument c: NULL");
     need_M = comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
              grad_lnP != NULL;
-    if (need_M) {
-        if (M == NULL)
-            return mcdi_ws_fail(ws, MCD_EINVAL,
-                                "argument M: NULL but needed (mass basis or "
-                                "pressure diffusion)");
-        for (i = 0; i < n_species; i++)
-            if (!mcdi_finite(M[i]))
-                return mcdi_ws_fail(ws, MCD_EINVAL,
-                                    "argument M: entry %zu is not finite", i);
-        for (i = 0; i < n_species; i++)
-            if (!(M[i] > 0.0))
-                return mcdi_ws_fail(ws, MCD_EDOM,
-                                    "argument M: entry %zu = %g is not > 0", i,
-                                    M[i]);
-        if (!mcdi_M_span_ok(n_species, M))
-            return mcdi_ws_fail(ws, MCD_EDOM,
-                                "argument M: the molar masses span more than "
-                                "a factor 1e12 (the basis conversions would "
-                                "lose all precision)");
-    }
+    if (need_M && (st = mcdi_flux_check_M(ws, n_species, M)) != MCD_OK)
+        return st;
     job_init(&jb, ws, model, n_species, n_cells, n_dim, comp_basis,
              flux_basis);
     jb.Dij = Dij;
