@@ -72,17 +72,8 @@ static mcd_status bulbs_check(mcd_workspace *ws, size_t n, const double *Dij,
 {
     mcd_status st;
     size_t k;
-    if (ws == NULL)
-        return MCD_EINVAL;
-    mcdi_ws_clear_error(ws);
-    if (n < 2 || n > MCD_MAX_SPECIES)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "n = %zu is not in 2..%d", n,
-                            MCD_MAX_SPECIES);
-    if (n > ws->cap)
-        return mcdi_ws_fail(ws, MCD_EBADLEN,
-                            "n = %zu exceeds the workspace capacity %zu", n,
-                            ws->cap);
-    if ((st = mcdi_flux_check_dij(ws, n, Dij)) != MCD_OK ||
+    if ((st = mcdi_tf_check_ws_n(ws, n)) != MCD_OK ||
+        (st = mcdi_flux_check_dij(ws, n, Dij)) != MCD_OK ||
         (st = mcdi_tf_check_pos(ws, c, "c")) != MCD_OK ||
         (st = mcdi_tf_check_pos(ws, V1, "V1")) != MCD_OK ||
         (st = mcdi_tf_check_pos(ws, V2, "V2")) != MCD_OK ||

@@ -729,7 +729,7 @@ static mcd_status film_iterate(film *f, double *out_N, size_t *out_it,
 /* Public calls                                                        */
 /* ------------------------------------------------------------------ */
 
-static mcd_status check_ws_n(mcd_workspace *ws, size_t n)
+mcd_status mcdi_tf_check_ws_n(mcd_workspace *ws, size_t n)
 {
     if (ws == NULL)
         return MCD_EINVAL;
@@ -758,7 +758,7 @@ MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n,
     double res = 0.0;
     mcd_status st;
 
-    st = check_ws_n(ws, n);
+    st = mcdi_tf_check_ws_n(ws, n);
     if (st != MCD_OK)
         return st;
     if (out_N == NULL)
@@ -844,7 +844,7 @@ MCD_API mcd_status mcd_film_profile(mcd_workspace *ws, size_t n,
     size_t i, j, p;
     mcd_status st;
 
-    st = check_ws_n(ws, n);
+    st = mcdi_tf_check_ws_n(ws, n);
     if (st != MCD_OK)
         return st;
     if ((st = mcdi_flux_check_dij(ws, n, Dij)) != MCD_OK ||

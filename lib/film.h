@@ -11,6 +11,11 @@
  * mcdi_flux_check_dij (flux_core.h), the same rules and messages as the
  * flux calls. */
 
+/* Start of every transfer call: ws not NULL (EINVAL, no message), its
+ * error cleared, n in 2..MCD_MAX_SPECIES (EINVAL) and <= the workspace
+ * capacity (EBADLEN). */
+mcd_status mcdi_tf_check_ws_n(mcd_workspace *ws, size_t n);
+
 /* Validate a scalar: finite (EINVAL) and > 0 (EDOM). */
 mcd_status mcdi_tf_check_pos(mcd_workspace *ws, double v, const char *name);
 
