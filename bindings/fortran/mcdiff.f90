@@ -252,6 +252,22 @@ contains
     end if
   end subroutine finish
 
+  !> finish() for an estimate: on success, its typical relative error and
+  !> warning bits into the optional outputs.
+  subroutine finish_estimate(s, e, w, stat, errmsg, rel_err, warn)
+    integer(c_int), intent(in) :: s, w
+    real(c_double), intent(in) :: e
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    real(c_double), intent(inout), optional :: rel_err
+    integer, intent(inout), optional :: warn
+    if (s == 0) then
+       if (present(rel_err)) rel_err = e
+       if (present(warn)) warn = int(w)
+    end if
+    call finish(s, stat, errmsg)
+  end subroutine finish_estimate
+
   !> finish() with the workspace's last-error detail.
   subroutine finish_ws(ws, s, stat, errmsg)
     type(mcd_workspace_t), intent(in) :: ws
@@ -779,11 +795,7 @@ contains
     w = 0
     s = c_mcd_binary_gas(db%ptr, cidx(a), cidx(b), int(method, c_int), T, P, D, &
          c_loc(e), c_loc(w))
-    if (s == 0) then
-       if (present(rel_err)) rel_err = e
-       if (present(warn)) warn = int(w)
-    end if
-    call finish(s, stat, errmsg)
+    call finish_estimate(s, e, w, stat, errmsg, rel_err, warn)
   end subroutine mcd_binary_gas
 
   !> Wilke-Chang infinite-dilution diffusivity [m^2/s] of species solute in
@@ -805,11 +817,7 @@ contains
     w = 0
     s = c_mcd_binary_liquid(db%ptr, cidx(solute), cidx(solvent), T, mu_solvent, D, &
          c_loc(e), c_loc(w))
-    if (s == 0) then
-       if (present(rel_err)) rel_err = e
-       if (present(warn)) warn = int(w)
-    end if
-    call finish(s, stat, errmsg)
+    call finish_estimate(s, e, w, stat, errmsg, rel_err, warn)
   end subroutine mcd_binary_liquid
 
   ! ==================================================================
