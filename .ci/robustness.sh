@@ -196,6 +196,22 @@ probe_fuzzer_link() {
     return $rc
 }
 
+# A crash is only useful if it can be reproduced where the logs are not
+# kept (CI keeps stdout only): print the harness's own message, the
+# sanitizer's summary and each saved input as base64 (decode with
+# `base64 -d > crash && build-fuzz/tests/fuzz/<harness> crash`).
+report_fuzz_crash() {
+    local h=$1 log=$2 f
+    sed -n "/^=== $h\$/,\$p" "$log" |
+        grep -E 'invariant violated|ERROR: |SUMMARY: |runtime error|leak of|#[0-9]+ 0x.* in (mcd|LLVMFuzzer)' |
+        head -n 20 | sed "s/^/robustness: fuzz $h: /"
+    for f in "$LOGABS/$h-"*; do
+        [ -f "$f" ] || continue
+        echo "robustness: fuzz $h: input $(basename "$f") ($(wc -c <"$f") bytes), base64:"
+        base64 -w 76 "$f" | head -n 40 | sed 's/^/    /'
+    done
+}
+
 stage_fuzz() {
     local log=$LOGDIR/fuzz.log h corpus summary="" bad=0 execs fz
     if ! command -v clang >/dev/null; then
@@ -234,6 +250,7 @@ stage_fuzz() {
         else
             bad=$((bad + 1))
             summary="$summary $h=CRASH"
+            report_fuzz_crash "$h" "$log"
         fi
         rm -rf "$corpus"
     done
