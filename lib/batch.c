@@ -20,6 +20,7 @@
 #include "workspace.h"
 #include "mixture.h"
 #include "batch.h"
+#include "batch_layout.h"
 #include "flux_core.h"
 
 /* Whether some pair of the mixture depends on T through a collision
@@ -35,6 +36,21 @@ static int mixture_has_omega(const mcd_mixture *mix)
                 return 1;
         }
     return 0;
+}
+
+size_t mcdi_batch_scratch_doubles(size_t cap)
+{
+    /* blocks of up to MCDI_LANES cells up to MCDI_LANES_NMAX species, one
+     * cell at a time above; each followed by the AoS staging */
+    const size_t nl = cap < MCDI_LANES_NMAX ? cap : MCDI_LANES_NMAX;
+    size_t need = mcdi_kblock_doubles(nl, MCD_MAX_DIM, MCDI_LANES) +
+                  mcdi_aos_doubles(nl, MCD_MAX_DIM, MCDI_LANES);
+    if (cap > MCDI_LANES_NMAX) {
+        size_t one = mcdi_kblock_doubles(cap, MCD_MAX_DIM, 1) +
+                     mcdi_aos_doubles(cap, MCD_MAX_DIM, 1);
+        need = one > need ? one : need;
+    }
+    return MCDI_STREAM_DOUBLES + need; /* streaming state, then the block */
 }
 
 /* Run the job over cells [0, K) with the workspace's scratch. */
@@ -295,7 +311,8 @@ MCD_API mcd_status mcd_flux_batch_aos(mcd_workspace *ws,
     mcdi_bjob jb;
     mcd_status st;
     size_t n, L, k0, nd = n_dim, iter_used = 0;
-    double *stage, *sT, *sP, *sc, *sg, *sl, *so, iter_err = 0.0;
+    mcdi_aos_stage sg;
+    double iter_err = 0.0;
     if (ws == NULL)
         return MCD_EINVAL;
     mcdi_ws_clear_error(ws);
@@ -317,21 +334,16 @@ MCD_API mcd_status mcd_flux_batch_aos(mcd_workspace *ws,
     if (n_cells == 0)
         return MCD_OK;
     L = mcdi_batch_lanes(n);
-    /* staging at the end of thread 0's region (the kernel uses the front;
-     * mcdi_batch_scratch_doubles reserves the AoS part) */
-    stage = ws->batch_mem + ws->batch_per_thread -
-            (2 + n + 2 * n * MCD_MAX_DIM + MCD_MAX_DIM + 4) * L;
-    sT = stage;
-    sP = sT + L;
-    sc = sP + L;
-    sg = sc + n * L;
-    sl = sg + n * nd * L;
-    so = sl + nd * L;
+    /* staging after the kernel's block scratch in thread 0's region (both
+     * counted by mcdi_batch_scratch_doubles) */
+    mcdi_aos_carve(ws->batch_mem + MCDI_STREAM_DOUBLES +
+                       mcdi_kblock_doubles(n, nd, L),
+                   n, nd, L, &sg);
     job_init(&jb, ws, model, n, L, nd, comp_basis, flux_basis);
     jb.mix = mix;
     jb.mix_has_omega = mixture_has_omega(mix);
-    jb.T = sT;
-    jb.P = sP;
+    jb.T = sg.T;
+    jb.P = sg.P;
     jb.M = (comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
             grad_lnP != NULL) ? mix->M : NULL;
     if (jb.M != NULL && !mcdi_M_span_ok(n, jb.M))
@@ -339,24 +351,24 @@ MCD_API mcd_status mcd_flux_batch_aos(mcd_workspace *ws,
                             "argument mix: the molar masses span more than a "
                             "factor 1e12 (the basis conversions would lose "
                             "all precision)");
-    jb.comp = sc;
-    jb.grad = sg;
-    jb.glnP = grad_lnP != NULL ? sl : NULL;
-    jb.out = so;
+    jb.comp = sg.comp;
+    jb.grad = sg.grad;
+    jb.glnP = grad_lnP != NULL ? sg.glnP : NULL;
+    jb.out = sg.out;
     for (k0 = 0; k0 < n_cells; k0 += L) {
         size_t nv = n_cells - k0 < L ? n_cells - k0 : L, l, i, d;
         mcdi_bres res;
         for (l = 0; l < nv; l++) {
             size_t k = k0 + l;
-            sT[l] = T[k];
-            sP[l] = P[k];
+            sg.T[l] = T[k];
+            sg.P[l] = P[k];
             for (i = 0; i < n; i++)
-                sc[i * L + l] = comp[k * n + i];
+                sg.comp[i * L + l] = comp[k * n + i];
             for (i = 0; i < n * nd; i++)
-                sg[i * L + l] = grad[k * n * nd + i];
+                sg.grad[i * L + l] = grad[k * n * nd + i];
             if (grad_lnP != NULL)
                 for (d = 0; d < nd; d++)
-                    sl[d * L + l] = grad_lnP[k * nd + d];
+                    sg.glnP[d * L + l] = grad_lnP[k * nd + d];
         }
         res.st = MCD_OK;
         res.lane = 0;
@@ -378,7 +390,7 @@ MCD_API mcd_status mcd_flux_batch_aos(mcd_workspace *ws,
             iter_used = res.iter_used;
         for (l = 0; l < nv; l++)
             for (i = 0; i < n * nd; i++)
-                out_flux[(k0 + l) * n * nd + i] = so[i * L + l];
+                out_flux[(k0 + l) * n * nd + i] = sg.out[i * L + l];
     }
     if (model == MCD_MODEL_ITERATIVE) {
         ws->iter_err = iter_err;

@@ -18,8 +18,7 @@
  * actually used depend on the instruction set chosen at run time
  * (mcdi_batch_lanes): 8 with AVX-512, 4 with AVX2, 2 otherwise, i.e. one
  * vector register per lane vector. Above MCDI_LANES_NMAX species one cell
- * at a time (lanes = 1) with LAPACK's blocked Cholesky for the exact
- * model. */
+ * at a time (lanes = 1), through the same stages. */
 #define MCDI_LANES 8
 #define MCDI_LANES_NMAX 128
 
@@ -77,7 +76,9 @@ void mcdi_batch_finish_v1(const mcdi_bjob *job, double *mem);
  * outputs (kernel_isa.c: the last-level cache size, MCDIFF_STREAM_STORES). */
 int mcdi_batch_stream_choice(size_t bytes);
 
-/* Doubles of scratch one thread needs for any call with n <= cap. */
+/* Doubles of scratch one thread needs for any call with n <= cap: the
+ * streaming state, a block's scratch and the AoS staging, both laid out
+ * by batch_layout.h (batch.c). */
 size_t mcdi_batch_scratch_doubles(size_t cap);
 
 /* Process cells k0 .. k0+nv-1 (1 <= nv <= mcdi_batch_lanes(n)) of the job.

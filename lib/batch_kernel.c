@@ -64,6 +64,7 @@
 #include "mcd_internal.h"
 #include "mixture.h"
 #include "batch.h"
+#include "batch_layout.h"
 #include "flux_core.h"
 
 #if defined(__GNUC__) && !defined(__clang__)
@@ -118,33 +119,9 @@
 #define LANES_BAD for (l = 0; l < L; l++)
 #endif
 
-static size_t tri_n(size_t n) { return n * (n + 1) / 2; }
-
 /* Rows factored together above KREG species (ldl_solve_v). */
-#define KTILE 4
+#define KTILE MCDI_KTILE
 
-#if MCDI_KISA == 1
-size_t mcdi_batch_scratch_doubles(size_t cap)
-{
-    size_t best = 0, cfg;
-    for (cfg = 0; cfg < 2; cfg++) {
-        size_t n = cfg == 0 ? (cap < MCDI_LANES_NMAX ? cap : MCDI_LANES_NMAX)
-                            : cap;
-        size_t L = n <= MCDI_LANES_NMAX ? MCDI_LANES : 1, need;
-        if (cfg == 1 && cap <= MCDI_LANES_NMAX)
-            continue;
-        need = tri_n(n) * L            /* invD / A / L factors */
-               + 10 * n * L            /* x w s S num minv Dg iDg wk spare */
-               + KTILE * n * L         /* W rows of a tile (ldl_solve_v) */
-               + 6 * n * MCD_MAX_DIM * L /* d t r v tmp out */
-               + (MCDI_FIT_MAXDEG + 1) * L + 64 * L
-               + (2 * n + 2 * n * MCD_MAX_DIM + MCD_MAX_DIM + 4) * L; /* AoS */
-        if (need > best)
-            best = need;
-    }
-    return MCDI_STREAM_DOUBLES + best; /* streaming state, then blocks */
-}
-#endif
 
 /* Prefetch distance of the input streams, in doubles (8 blocks ahead). */
 #define MCDI_PREFETCH 64
@@ -660,52 +637,24 @@ KINLINE void iter_product_c(const size_t n, const size_t nd,
 }
 
 /* ------------------------------------------------------------------ */
-/* the block body, instantiated for constant n and L                    */
+/* the stages of a block, in the order body() runs them                */
 /* ------------------------------------------------------------------ */
 
-KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
-                  mcdi_bres *res, const size_t n, const size_t L,
-                  const size_t nd)
+/* Each stage reads and writes the regions of the block's scratch
+ * (batch_layout.h) and is inlined into body(), which is instantiated for
+ * constant n, L and nd; a stage that checks inputs returns non-zero when
+ * some lane is out of range (the cell is then named by report_bad_cell).
+ * Adding a driving force means changing stage_forces (and its loader). */
+
+/* Per-cell scalars: c, or T and P (and c = P / (R T)) of a mixture call. */
+KINLINE int stage_load_scalars(const mcdi_bjob *jb, const mcdi_kblock *b,
+                               size_t k0, size_t nv, const size_t L)
 {
-    double *const mem0 = mem; /* the streaming state is just before it */
-    const size_t K = jb->K;
-    const int mass_in = jb->comp_basis == MCD_BASIS_MASS;
-    const int mass_out = jb->flux_basis == MCD_BASIS_MASS;
-    const double *M = jb->M;
-    const size_t nt = tri_n(n);
-    double *restrict tri = mem;  mem += nt * L;
-    double *restrict x = mem;    mem += n * L;
-    double *restrict w = mem;    mem += n * L;
-    double *restrict s = mem;    mem += n * L;
-    double *restrict S = mem;    mem += n * L;
-    double *restrict num = mem;  mem += n * L;
-    double *restrict minv = mem; mem += n * L;
-    double *restrict Dg = mem;   mem += n * L;
-    double *restrict iDg = mem;  mem += n * L;
-    double *restrict wk = mem;   mem += n * L;
-    double *restrict d = mem;    mem += n * nd * L;  /* driving forces */
-    double *restrict t = mem;    mem += n * nd * L;  /* trace J / c */
-    double *restrict r = mem;    mem += n * nd * L;  /* rhs, U */
-    double *restrict v = mem;    mem += n * nd * L;  /* iterate, tmp */
-    double *restrict J = mem;    mem += n * nd * L;
-    double *restrict Wt = mem;   mem += KTILE * n * L;
-    double *restrict cheb = mem; mem += (MCDI_FIT_MAXDEG + 1) * L;
-    double *restrict c = mem;    mem += L;
-    double *restrict aux = mem;  mem += 8 * L;
-    int bad = 0;                 /* != 0: some input out of range */
-    size_t i, j, k, l, dd;
-    /* iterative model on a power-law mixture: the inverse diffusivities
-     * are f_l / coef_ij, used through the shared 1 / coef (Blanc sums,
-     * iter_product_c); the per-lane triangle is filled only for the trace
-     * coupling of blocks with trace species */
-    const int pl = jb->mix != NULL && !jb->mix_has_omega &&
-                   jb->model == MCD_MODEL_ITERATIVE && L == MCDI_VLANES;
-
-    res->st = MCD_OK;
-
-    /* ---- per-cell scalars ---- */
+    double *restrict c = b->c;
+    int bad = 0;
+    size_t l;
     if (jb->mix != NULL) {
-        double *Tl = aux, *Pl = aux + L;
+        double *restrict Tl = b->T, *restrict Pl = b->P;
         load_row(Tl, jb->T + k0, nv, L);
         load_row(Pl, jb->P + k0, nv, L);
         LANES_BAD {
@@ -719,51 +668,77 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
         LANES_BAD
             bad |= !((c[l] >= DBL_MIN) & (c[l] <= DBL_MAX)); /* normal c, as single-state */
     }
+    return bad;
+}
 
-    /* ---- fractions ---- */
-    {
-        double *sum = aux + 2 * L;
-        double *y = mass_in ? w : x;
-        LANES
-            sum[l] = 0.0;
-        for (i = 0; i < n; i++) {
-            load_row(y + i * L, jb->comp + i * K + k0, nv, L);
-            LANES_BAD {
-                double q = y[i * L + l];
-                bad |= !((q >= 0.0) & (q <= DBL_MAX));
-                sum[l] += q;
-            }
-        }
-        LANES_BAD
-            bad |= !(fabs(sum[l] - 1.0) <= MCD_SUM_TOL);
-        if (bad)
-            goto diagnose;
-        for (i = 0; i < n; i++)
-            LANES
-                y[i * L + l] = y[i * L + l] / sum[l];
-        if (mass_in) {
-            /* x_i = (w_i / M_i) / sum_k w_k / M_k */
-            LANES
-                sum[l] = 0.0;
-            for (i = 0; i < n; i++)
-                LANES
-                    sum[l] += w[i * L + l] / M[i];
-            for (i = 0; i < n; i++)
-                LANES
-                    x[i * L + l] = (w[i * L + l] / M[i]) / sum[l];
-        } else if (M != NULL) {
-            LANES
-                sum[l] = 0.0;
-            for (i = 0; i < n; i++)
-                LANES
-                    sum[l] += x[i * L + l] * M[i];
-            for (i = 0; i < n; i++)
-                LANES
-                    w[i * L + l] = x[i * L + l] * M[i] / sum[l];
+/* The composition rows (into x or w) and their sums. */
+KINLINE int stage_load_comp(const mcdi_bjob *jb, const mcdi_kblock *b,
+                            size_t k0, size_t nv, const size_t n,
+                            const size_t L)
+{
+    const size_t K = jb->K;
+    double *restrict sum = b->sum;
+    double *restrict y = jb->comp_basis == MCD_BASIS_MASS ? b->w : b->x;
+    int bad = 0;
+    size_t i, l;
+    LANES
+        sum[l] = 0.0;
+    for (i = 0; i < n; i++) {
+        load_row(y + i * L, jb->comp + i * K + k0, nv, L);
+        LANES_BAD {
+            double q = y[i * L + l];
+            bad |= !((q >= 0.0) & (q <= DBL_MAX));
+            sum[l] += q;
         }
     }
+    LANES_BAD
+        bad |= !(fabs(sum[l] - 1.0) <= MCD_SUM_TOL);
+    return bad;
+}
 
-    /* ---- driving forces d (mole-fraction gradients) ---- */
+/* Fractions scaled to sum 1, and the other basis (w needs M). */
+KINLINE void stage_fractions(const mcdi_bjob *jb, const mcdi_kblock *b,
+                             const size_t n, const size_t L)
+{
+    const int mass_in = jb->comp_basis == MCD_BASIS_MASS;
+    const double *M = jb->M;
+    double *restrict x = b->x, *restrict w = b->w, *restrict sum = b->sum;
+    double *restrict y = mass_in ? w : x;
+    size_t i, l;
+    for (i = 0; i < n; i++)
+        LANES
+            y[i * L + l] = y[i * L + l] / sum[l];
+    if (mass_in) {
+        /* x_i = (w_i / M_i) / sum_k w_k / M_k */
+        LANES
+            sum[l] = 0.0;
+        for (i = 0; i < n; i++)
+            LANES
+                sum[l] += w[i * L + l] / M[i];
+        for (i = 0; i < n; i++)
+            LANES
+                x[i * L + l] = (w[i * L + l] / M[i]) / sum[l];
+    } else if (M != NULL) {
+        LANES
+            sum[l] = 0.0;
+        for (i = 0; i < n; i++)
+            LANES
+                sum[l] += x[i * L + l] * M[i];
+        for (i = 0; i < n; i++)
+            LANES
+                w[i * L + l] = x[i * L + l] * M[i] / sum[l];
+    }
+}
+
+/* The gradients (into d) and grad ln P (into v). */
+KINLINE int stage_load_forces(const mcdi_bjob *jb, const mcdi_kblock *b,
+                              size_t k0, size_t nv, const size_t n,
+                              const size_t L, const size_t nd)
+{
+    const size_t K = jb->K;
+    double *restrict d = b->d, *restrict v = b->v;
+    int bad = 0;
+    size_t i, dd, l;
     for (i = 0; i < n * nd; i++) {
         load_row(d + i * L, jb->grad + i * K + k0, nv, L);
         LANES_BAD
@@ -776,11 +751,22 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
                 bad |= !(fabs(v[dd * L + l]) <= DBL_MAX);
         }
     }
-    if (bad)
-        goto diagnose;
-    if (mass_in) {
+    return bad;
+}
+
+/* Driving forces d_i = grad x_i + (x_i - w_i) grad ln P, projected onto
+ * sum_i d_i = 0 with weights x (the gradients of mass fractions are
+ * turned into those of mole fractions first). */
+KINLINE void stage_forces(const mcdi_bjob *jb, const mcdi_kblock *b,
+                          const size_t n, const size_t L, const size_t nd)
+{
+    const double *M = jb->M;
+    double *restrict d = b->d, *restrict v = b->v;
+    const double *restrict x = b->x, *restrict w = b->w;
+    size_t i, dd, l;
+    if (jb->comp_basis == MCD_BASIS_MASS) {
         /* dx_i = (dw_i - w_i dT/T) / (M_i T), T = sum w_k / M_k */
-        double *Tw = aux + 3 * L, *rr = aux + 4 * L;
+        double *restrict Tw = b->tw, *restrict rr = b->col;
         LANES
             Tw[l] = 0.0;
         for (i = 0; i < n; i++)
@@ -809,7 +795,7 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
                         (x[i * L + l] - w[i * L + l]) * v[dd * L + l];
     /* projection onto sum_i d_i = 0 with weights x */
     for (dd = 0; dd < nd; dd++) {
-        double *sd = aux + 3 * L;
+        double *restrict sd = b->col;
         LANES
             sd[l] = 0.0;
         for (i = 0; i < n; i++)
@@ -819,106 +805,139 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
             LANES
                 d[(i * nd + dd) * L + l] -= x[i * L + l] * sd[l];
     }
+}
 
-    if (n == 1) {
-        /* a single species does not diffuse */
-        for (i = 0; i < nd * L; i++)
-            J[i] = 0.0;
-        goto store;
-    }
-
-    /* ---- inverse binary diffusivities, packed lower (i > j) ---- */
-    if (jb->mix == NULL) {
-        for (i = 1; i < n; i++)
-            for (j = 0; j < i; j++) {
-                double *q = tri + (i * (i + 1) / 2 + j) * L;
-                const double *up = jb->Dij + (j * n + i) * K + k0;
-                const double *lo = jb->Dij + (i * n + j) * K + k0;
-                load_row(q, up, nv, L);
-                load_row(wk, lo, nv, L);
-                LANES_BAD {
-                    double a = q[l], b = wk[l], m = a > b ? a : b;
-                    bad |= !((a >= DBL_MIN) & (a <= DBL_MAX));
-                    bad |= !((b >= DBL_MIN) & (b <= DBL_MAX));
-                    bad |= !(fabs(a - b) <= 1e-12 * m);
-                    q[l] = 1.0 / a;
-                }
+/* Inverse binary diffusivities (packed lower, i > j) from the caller's
+ * per-cell Dij: both triangles checked (normal, finite, symmetric). */
+KINLINE int stage_invdiff_dij(const mcdi_bjob *jb, const mcdi_kblock *b,
+                              size_t k0, size_t nv, const size_t n,
+                              const size_t L)
+{
+    const size_t K = jb->K;
+    double *restrict wk = b->wk;
+    int bad = 0;
+    size_t i, j, l;
+    for (i = 1; i < n; i++)
+        for (j = 0; j < i; j++) {
+            double *q = b->tri + (i * (i + 1) / 2 + j) * L;
+            const double *up = jb->Dij + (j * n + i) * K + k0;
+            const double *lo = jb->Dij + (i * n + j) * K + k0;
+            load_row(q, up, nv, L);
+            load_row(wk, lo, nv, L);
+            LANES_BAD {
+                double a = q[l], bb = wk[l], m = a > bb ? a : bb;
+                bad |= !((a >= DBL_MIN) & (a <= DBL_MAX));
+                bad |= !((bb >= DBL_MIN) & (bb <= DBL_MAX));
+                bad |= !(fabs(a - bb) <= 1e-12 * m);
+                q[l] = 1.0 / a;
             }
-        if (bad)
-            goto diagnose;
-    } else {
-        const mcd_mixture *mx = jb->mix;
-        const double *Tl = aux, *Pl = aux + L;
-        double *f175 = aux + 2 * L, *f15 = aux + 3 * L;
-        const int any_lj = jb->mix_has_omega;
-        int all_fit = 1;
-        double *infit = aux + 4 * L;
+        }
+    return bad;
+}
+
+/* Temperature factors of a mixture call: P / T^1.75 (FSG and user pairs),
+ * P / T^1.5 and, where the mixture has a fit, the Chebyshev polynomials
+ * of ln T. Returns whether every lane lies inside the fit's range. */
+KINLINE int stage_temperature(const mcd_mixture *mx, const mcdi_kblock *b,
+                              int any_lj, const size_t L)
+{
+    const double *restrict Tl = b->T, *restrict Pl = b->P;
+    double *restrict f175 = b->f175, *restrict f15 = b->f15;
+    double *restrict infit = b->infit, *restrict cheb = b->cheb;
+    int all_fit = 1;
+    size_t k, l;
+    LANES {
+        double sq = sqrt(Tl[l]), qq = sqrt(sq);
+        f175[l] = Pl[l] / (Tl[l] * sq * qq); /* P / T^1.75 */
+        f15[l] = Pl[l] / (Tl[l] * sq);       /* P / T^1.5 */
+    }
+    if (any_lj && mx->fit_on) {
         LANES {
-            double sq = sqrt(Tl[l]), qq = sqrt(sq);
-            f175[l] = Pl[l] / (Tl[l] * sq * qq); /* P / T^1.75 */
-            f15[l] = Pl[l] / (Tl[l] * sq);       /* P / T^1.5 */
-        }
-        if (any_lj && mx->fit_on) {
-            LANES {
-                double u = (log(Tl[l]) - mx->fit_lmid) / mx->fit_lhalf;
-                infit[l] = (Tl[l] >= mx->fit_Tmin && Tl[l] <= mx->fit_Tmax);
-                if (!(infit[l] > 0.0)) {
-                    all_fit = 0;
-                    u = 0.0;
-                }
-                cheb[l] = 1.0;
-                cheb[L + l] = u;
+            double u = (log(Tl[l]) - mx->fit_lmid) / mx->fit_lhalf;
+            infit[l] = (Tl[l] >= mx->fit_Tmin && Tl[l] <= mx->fit_Tmax);
+            if (!(infit[l] > 0.0)) {
+                all_fit = 0;
+                u = 0.0;
             }
-            for (k = 2; k <= MCDI_FIT_MAXDEG; k++)
-                LANES
-                    cheb[k * L + l] = 2.0 * cheb[L + l] * cheb[(k - 1) * L + l] -
-                                      cheb[(k - 2) * L + l];
-        } else {
-            all_fit = 0;
+            cheb[l] = 1.0;
+            cheb[L + l] = u;
+        }
+        for (k = 2; k <= MCDI_FIT_MAXDEG; k++)
             LANES
-                infit[l] = 0.0;
-        }
-        if (!any_lj)
-            for (l = 0; l < L; l++)
-                Wt[l] = f175[l]; /* kept for iter_product_c */
-        for (i = 1; i < n && !pl; i++)
-            for (j = 0; j < i; j++) {
-                size_t ij = i * n + j;
-                int m = mx->method[ij];
-                double *q = tri + (i * (i + 1) / 2 + j) * L;
-                if (m == MCD_METHOD_FSG || m == MCD_METHOD_USER) {
-                    double ic = mx->icoef[ij];
-                    LANES
-                        q[l] = f175[l] * ic;
-                } else {
-                    unsigned deg = (mx->fit_on && mx->fit_deg != NULL)
-                                       ? mx->fit_deg[ij] : 0u;
-                    if (deg > 0) {
-                        const double *fq =
-                            mx->fit_q + ij * (MCDI_FIT_MAXDEG + 1);
-                        LANES
-                            q[l] = fq[0];
-                        for (k = 1; k <= deg; k++)
-                            LANES
-                                q[l] += fq[k] * cheb[k * L + l];
-                        LANES
-                            q[l] *= f15[l];
-                    }
-                    if (deg == 0 || !all_fit) {
-                        double e = mx->eps[ij], cf = mx->coef[ij];
-                        LANES
-                            if (deg == 0 || !(infit[l] > 0.0))
-                                q[l] = (Pl[l] * omega_exact(Tl[l] / e)) /
-                                       (cf * Tl[l] * sqrt(Tl[l]));
-                    }
-                }
-            }
+                cheb[k * L + l] = 2.0 * cheb[L + l] * cheb[(k - 1) * L + l] -
+                                  cheb[(k - 2) * L + l];
+    } else {
+        all_fit = 0;
+        LANES
+            infit[l] = 0.0;
     }
+    return all_fit;
+}
 
-    /* ---- Blanc sums S_i = sum_{j != i} x_j / Đ_ij, num_i = 1 - x_i ---- */
+/* Inverse binary diffusivity of pair ij of a mixture at the lanes' T and
+ * P into q: power law, the fit, or the exact collision integral. */
+KINLINE void invdiff_pair(const mcd_mixture *mx, const mcdi_kblock *b,
+                          size_t ij, int all_fit, double *restrict q,
+                          const size_t L)
+{
+    const double *restrict Tl = b->T, *restrict Pl = b->P;
+    const double *restrict infit = b->infit, *restrict cheb = b->cheb;
+    int m = mx->method[ij];
+    size_t k, l;
+    if (m == MCD_METHOD_FSG || m == MCD_METHOD_USER) {
+        const double ic = mx->icoef[ij], *restrict f175 = b->f175;
+        LANES
+            q[l] = f175[l] * ic;
+        return;
+    }
+    {
+        unsigned deg = (mx->fit_on && mx->fit_deg != NULL) ? mx->fit_deg[ij]
+                                                           : 0u;
+        if (deg > 0) {
+            const double *fq = mx->fit_q + ij * (MCDI_FIT_MAXDEG + 1);
+            const double *restrict f15 = b->f15;
+            LANES
+                q[l] = fq[0];
+            for (k = 1; k <= deg; k++)
+                LANES
+                    q[l] += fq[k] * cheb[k * L + l];
+            LANES
+                q[l] *= f15[l];
+        }
+        if (deg == 0 || !all_fit) {
+            double e = mx->eps[ij], cf = mx->coef[ij];
+            LANES
+                if (deg == 0 || !(infit[l] > 0.0))
+                    q[l] = (Pl[l] * omega_exact(Tl[l] / e)) /
+                           (cf * Tl[l] * sqrt(Tl[l]));
+        }
+    }
+}
+
+/* Inverse binary diffusivities of a mixture call (none with the shared
+ * power-law coefficients, pl: iter_product_c reads those directly). */
+KINLINE void stage_invdiff_mixture(const mcdi_bjob *jb, const mcdi_kblock *b,
+                                   int pl, const size_t n, const size_t L)
+{
+    const mcd_mixture *mx = jb->mix;
+    const int all_fit = stage_temperature(mx, b, jb->mix_has_omega, L);
+    size_t i, j;
+    for (i = 1; i < n && !pl; i++)
+        for (j = 0; j < i; j++)
+            invdiff_pair(mx, b, i * n + j, all_fit,
+                         b->tri + (i * (i + 1) / 2 + j) * L, L);
+}
+
+/* Blanc sums S_i = sum_{j != i} x_j / Đ_ij and num_i = sum_{j != i} x_j. */
+KINLINE void stage_blanc(const mcdi_bjob *jb, const mcdi_kblock *b, int pl,
+                         const size_t n, const size_t L)
+{
+    double *restrict S = b->S, *restrict num = b->num;
+    const double *restrict x = b->x;
+    size_t i, j, l;
     if (pl) {
         /* S_i = f sum_j C_ij x_j (C_ii = 0) */
-        const mcdi_vd *xv = (const mcdi_vd *)x, f = *(const mcdi_vd *)Wt;
+        const mcdi_vd *xv = (const mcdi_vd *)x, f = *(const mcdi_vd *)b->f175;
         const double *C = jb->mix->icoef;
         for (i = 0; i < n; i++) {
             mcdi_vd as = {0.0}, an = {0.0};
@@ -933,7 +952,7 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
         }
     } else if (L == MCDI_VLANES) {
         /* row by row, accumulated in registers */
-        const mcdi_vd *xv = (const mcdi_vd *)x, *qv = (const mcdi_vd *)tri;
+        const mcdi_vd *xv = (const mcdi_vd *)x, *qv = (const mcdi_vd *)b->tri;
         for (i = 0; i < n; i++) {
             mcdi_vd as = {0.0}, an = {0.0};
             for (j = 0; j < i; j++) {
@@ -948,377 +967,443 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
             ((mcdi_vd *)num)[i] = an;
         }
     } else {
-    for (i = 0; i < n * L; i++)
-        S[i] = num[i] = 0.0;
-    for (i = 1; i < n; i++)
-        for (j = 0; j < i; j++) {
-            const double *q = tri + (i * (i + 1) / 2 + j) * L;
-            LANES {
-                S[i * L + l] += x[j * L + l] * q[l];
-                S[j * L + l] += x[i * L + l] * q[l];
-                num[i * L + l] += x[j * L + l];
-                num[j * L + l] += x[i * L + l];
-            }
-        }
-    }
-
-    if (jb->model == MCD_MODEL_MIXTURE_AVERAGED) {
-        /* J*_i = -c D_im d_i, D_im = num_i / S_i; J = J* - x sum J* (twice) */
-        int pure = 0;
         for (i = 0; i < n * L; i++)
-            pure |= !(S[i] > 0.0);
-        if (pure) {
-            /* pure species: equal-weight harmonic mean (mixavg.c) */
-            for (i = 0; i < n * L; i++)
-                minv[i] = 0.0;
-            for (i = 1; i < n; i++)
-                for (j = 0; j < i; j++) {
-                    const double *q = tri + (i * (i + 1) / 2 + j) * L;
-                    LANES {
-                        minv[i * L + l] += q[l];
-                        minv[j * L + l] += q[l];
-                    }
+            S[i] = num[i] = 0.0;
+        for (i = 1; i < n; i++)
+            for (j = 0; j < i; j++) {
+                const double *q = b->tri + (i * (i + 1) / 2 + j) * L;
+                LANES {
+                    S[i * L + l] += x[j * L + l] * q[l];
+                    S[j * L + l] += x[i * L + l] * q[l];
+                    num[i * L + l] += x[j * L + l];
+                    num[j * L + l] += x[i * L + l];
                 }
+            }
+    }
+}
+
+/* Mixture-averaged fluxes: J*_i = -c D_im d_i, D_im = num_i / S_i (the
+ * equal-weight harmonic mean for a pure species, as mixavg.c), then
+ * J = J* - x sum J* (the zero-sum clean-up of body() runs it again). */
+KINLINE void stage_mixavg(const mcdi_kblock *b, const size_t n,
+                          const size_t L, const size_t nd)
+{
+    const double *restrict S = b->S, *restrict num = b->num;
+    const double *restrict x = b->x, *restrict c = b->c, *restrict d = b->d;
+    double *restrict minv = b->minv, *restrict wk = b->wk, *restrict J = b->J;
+    int pure = 0;
+    size_t i, j, dd, l;
+    for (i = 0; i < n * L; i++)
+        pure |= !(S[i] > 0.0);
+    if (pure) {
+        for (i = 0; i < n * L; i++)
+            minv[i] = 0.0;
+        for (i = 1; i < n; i++)
+            for (j = 0; j < i; j++) {
+                const double *q = b->tri + (i * (i + 1) / 2 + j) * L;
+                LANES {
+                    minv[i * L + l] += q[l];
+                    minv[j * L + l] += q[l];
+                }
+            }
+    }
+    for (i = 0; i < n; i++)
+        LANES {
+            double Sl = S[i * L + l];
+            double Dim = Sl > 0.0 ? num[i * L + l] / Sl
+                                  : (double)(n - 1) / minv[i * L + l];
+            wk[i * L + l] = -Dim;
         }
+    for (dd = 0; dd < nd; dd++) {
+        double *restrict sj = b->col;
+        LANES
+            sj[l] = 0.0;
         for (i = 0; i < n; i++)
+            LANES {
+                /* c last: c D_im underflows where the flux does not
+                 * (c = 1e-300, Đ = 1e-30: test_edge_cases) */
+                double q = c[l] * (wk[i * L + l] * d[(i * nd + dd) * L + l]);
+                J[(i * nd + dd) * L + l] = q;
+                sj[l] += q;
+            }
+        for (i = 0; i < n; i++)
+            LANES
+                J[(i * nd + dd) * L + l] -= x[i * L + l] * sj[l];
+    }
+}
+
+/* s = sqrt(x); trace fluxes t_i = J_i / c = -d_i / S_i for x_i = 0 (else
+ * 0), and their coupling to the species present moved to the right-hand
+ * side: d_k -= x_k sum_t t_t / Đ_kt. Returns whether a lane has a trace
+ * species. */
+KINLINE int stage_trace(const mcdi_bjob *jb, const mcdi_kblock *b, int pl,
+                        const size_t n, const size_t L, const size_t nd)
+{
+    const double *restrict S = b->S, *restrict x = b->x;
+    double *restrict s = b->s, *restrict t = b->t, *restrict d = b->d;
+    int ntr = 0;
+    size_t i, j, dd, l;
+    for (i = 0; i < n * L; i++) {
+        s[i] = sqrt(x[i]);
+        ntr |= !(x[i] > 0.0);
+    }
+    for (i = 0; i < n * nd * L; i++)
+        t[i] = 0.0;
+    if (!ntr)
+        return 0;
+    for (i = 0; i < n; i++)
+        for (dd = 0; dd < nd; dd++)
             LANES {
                 double Sl = S[i * L + l];
-                double Dim = Sl > 0.0 ? num[i * L + l] / Sl
-                                      : (double)(n - 1) / minv[i * L + l];
-                wk[i * L + l] = -Dim;
+                double q = -d[(i * nd + dd) * L + l] / (Sl > 0.0 ? Sl : 1.0);
+                t[(i * nd + dd) * L + l] = x[i * L + l] > 0.0 ? 0.0 : q;
             }
-        for (dd = 0; dd < nd; dd++) {
-            double *sj = aux + 4 * L;
-            LANES
-                sj[l] = 0.0;
-            for (i = 0; i < n; i++)
-                LANES {
-                    /* c last: c D_im underflows where the flux does not
-                     * (c = 1e-300, Đ = 1e-30: test_edge_cases) */
-                    double q = c[l] * (wk[i * L + l] * d[(i * nd + dd) * L + l]);
-                    J[(i * nd + dd) * L + l] = q;
-                    sj[l] += q;
-                }
-            for (i = 0; i < n; i++)
+    if (pl)
+        for (i = 1; i < n; i++)
+            for (j = 0; j < i; j++) {
+                double *q = b->tri + (i * (i + 1) / 2 + j) * L;
+                const double ic = jb->mix->icoef[i * n + j];
+                const double *restrict f175 = b->f175;
                 LANES
-                    J[(i * nd + dd) * L + l] -= x[i * L + l] * sj[l];
-        }
-    } else {
-        int ntr = 0;
-        double *amax = aux + 4 * L, *amax2 = aux + 5 * L;
-        for (i = 0; i < n * L; i++) {
-            s[i] = sqrt(x[i]);
-            ntr |= !(x[i] > 0.0);
-        }
-        /* trace fluxes t_i = J_i / c = -d_i / S_i for x_i = 0, else 0 */
-        for (i = 0; i < n * nd * L; i++)
-            t[i] = 0.0;
-        if (ntr) {
-            for (i = 0; i < n; i++)
-                for (dd = 0; dd < nd; dd++)
-                    LANES {
-                        double Sl = S[i * L + l];
-                        double q = -d[(i * nd + dd) * L + l] /
-                                   (Sl > 0.0 ? Sl : 1.0);
-                        t[(i * nd + dd) * L + l] = x[i * L + l] > 0.0 ? 0.0 : q;
-                    }
-            if (pl)
-                for (i = 1; i < n; i++)
-                    for (j = 0; j < i; j++) {
-                        double *q = tri + (i * (i + 1) / 2 + j) * L;
-                        const double ic = jb->mix->icoef[i * n + j];
-                        LANES
-                            q[l] = Wt[l] * ic;
-                    }
-            /* coupling of the present species to trace fluxes moved to
-             * the right-hand side: d_k -= x_k sum_t t_t / Đ_kt */
-            for (i = 1; i < n; i++)
-                for (j = 0; j < i; j++) {
-                    const double *q = tri + (i * (i + 1) / 2 + j) * L;
-                    for (dd = 0; dd < nd; dd++)
-                        LANES {
-                            d[(i * nd + dd) * L + l] -=
-                                x[i * L + l] * t[(j * nd + dd) * L + l] * q[l];
-                            d[(j * nd + dd) * L + l] -=
-                                x[j * L + l] * t[(i * nd + dd) * L + l] * q[l];
-                        }
-                }
-        }
-        /* rhs b_i = -d_i / s_i (0 for trace species) */
-        for (i = 0; i < n; i++)
-            LANES
-                wk[i * L + l] = s[i * L + l] > 0.0 ? -1.0 / s[i * L + l] : 0.0;
-        for (i = 0; i < n; i++)
+                    q[l] = f175[l] * ic;
+            }
+    for (i = 1; i < n; i++)
+        for (j = 0; j < i; j++) {
+            const double *q = b->tri + (i * (i + 1) / 2 + j) * L;
             for (dd = 0; dd < nd; dd++)
-                LANES
-                    r[(i * nd + dd) * L + l] =
-                        d[(i * nd + dd) * L + l] * wk[i * L + l];
-
-        if (jb->model == MCD_MODEL_MAXWELL_STEFAN) {
-            /* a = largest Blanc sum of the species present (all species
-             * for a pure component) */
-            LANES
-                amax[l] = amax2[l] = 0.0;
-            for (i = 0; i < n; i++)
                 LANES {
-                    double Sl = S[i * L + l];
-                    double Sp = x[i * L + l] > 0.0 ? Sl : 0.0;
-                    amax[l] = Sp > amax[l] ? Sp : amax[l];
-                    amax2[l] = Sl > amax2[l] ? Sl : amax2[l];
+                    d[(i * nd + dd) * L + l] -=
+                        x[i * L + l] * t[(j * nd + dd) * L + l] * q[l];
+                    d[(j * nd + dd) * L + l] -=
+                        x[j * L + l] * t[(i * nd + dd) * L + l] * q[l];
                 }
-            LANES
-                amax[l] = amax[l] > 0.0 ? amax[l] : amax2[l];
-            if (L == MCDI_VLANES) {
-                /* assembly, LDL^T and both substitutions fused, in
-                 * registers (ldl_solve_v) */
-                if (!ldl_solve_v(n, nd, (mcdi_vd *)tri, (const mcdi_vd *)s,
-                                 (const mcdi_vd *)S, (const mcdi_vd *)x,
-                                 *(const mcdi_vd *)amax, (mcdi_vd *)r,
-                                 (mcdi_vd *)Dg, (mcdi_vd *)iDg,
-                                 (mcdi_vd *)Wt))
-                    goto not_definite;
-            } else {
-                /* A = Gs + a s s^T in place of invD */
-                for (i = 0; i < n; i++) {
-                    double *row = tri + (i * (i + 1) / 2) * L;
-                    for (j = 0; j < i; j++)
-                        LANES
-                            row[j * L + l] = s[i * L + l] * s[j * L + l] *
-                                             (amax[l] - row[j * L + l]);
-                    LANES
-                        row[i * L + l] = S[i * L + l] + amax[l] * x[i * L + l];
-                }
-                {
-                    int sing = 0;
-                    /* LDL^T, left-looking, packed lower */
-                    for (j = 0; j < n; j++) {
-                        double *Lj = tri + (j * (j + 1) / 2) * L;
-                        double *acc = aux + 6 * L;
-                        for (k = 0; k < j; k++)
-                            LANES
-                                wk[k * L + l] = Lj[k * L + l] * Dg[k * L + l];
-                        LANES
-                            acc[l] = Lj[j * L + l];
-                        for (k = 0; k < j; k++)
-                            LANES
-                                acc[l] -= Lj[k * L + l] * wk[k * L + l];
-                        LANES {
-                            Dg[j * L + l] = acc[l];
-                            sing |= !(acc[l] > 0.0);
-                            iDg[j * L + l] = 1.0 / acc[l];
-                        }
-                        for (i = j + 1; i < n; i++) {
-                            double *Li = tri + (i * (i + 1) / 2) * L;
-                            LANES
-                                acc[l] = Li[j * L + l];
-                            for (k = 0; k < j; k++)
-                                LANES
-                                    acc[l] -= Li[k * L + l] * wk[k * L + l];
-                            LANES
-                                Li[j * L + l] = acc[l] * iDg[j * L + l];
-                        }
-                    }
-                    if (sing)
-                        goto not_definite;
-                    /* solve L D L^T U = b for each direction */
-                    for (dd = 0; dd < nd; dd++) {
-                        for (i = 0; i < n; i++) {
-                            const double *Li = tri + (i * (i + 1) / 2) * L;
-                            double *ri = r + (i * nd + dd) * L;
-                            for (k = 0; k < i; k++)
-                                LANES
-                                    ri[l] -= Li[k * L + l] * r[(k * nd + dd) * L + l];
-                        }
-                        for (i = 0; i < n; i++)
-                            LANES
-                                r[(i * nd + dd) * L + l] *= iDg[i * L + l];
-                        for (i = n; i-- > 0;) {
-                            const double *Li = tri + (i * (i + 1) / 2) * L;
-                            double *ri = r + (i * nd + dd) * L;
-                            for (k = 0; k < i; k++)
-                                LANES
-                                    r[(k * nd + dd) * L + l] -= Li[k * L + l] * ri[l];
-                        }
-                    }
-                }
-            }
-        } else {
-            /* Ern-Giovangigli iteration (see the top comment) */
-            double *delta_prev = aux + 4 * L, *est = aux + 5 * L;
-            double *delta_prev2 = aux + 2 * L; /* free once invD is built */
-            double *active = aux + 6 * L, *iters = aux + 7 * L;
-            double *nrm = Dg, *dmax = iDg; /* per-lane maxima */
-            size_t it, maxit = jb->max_iter;
-            for (i = 0; i < n; i++)
-                LANES {
-                    double Sl = S[i * L + l];
-                    minv[i * L + l] = Sl > 0.0 ? num[i * L + l] / Sl : 0.0;
-                }
-            /* U^0 = Ps Minv b */
-            for (i = 0; i < n * nd; i++)
-                LANES
-                    r[i * L + l] *= minv[(i / nd) * L + l];
-            for (dd = 0; dd < nd; dd++) {
-                double *p = aux + 3 * L;
-                LANES
-                    p[l] = 0.0;
-                for (i = 0; i < n; i++)
-                    LANES
-                        p[l] += s[i * L + l] * r[(i * nd + dd) * L + l];
-                for (i = 0; i < n; i++)
-                    LANES
-                        r[(i * nd + dd) * L + l] -= s[i * L + l] * p[l];
-            }
-            /* b is d * wk (recomputed on the fly); v = next iterate */
-            LANES {
-                delta_prev[l] = HUGE_VAL;
-                delta_prev2[l] = HUGE_VAL;
-                est[l] = HUGE_VAL;
-                active[l] = 1.0;
-                iters[l] = 0.0;
-            }
-            for (it = 1; it <= maxit; it++) {
-                double nact = 0.0;
-                /* v_i = x_i U_i + minv_i (s_i sum_j invD_ij s_j U_j + b_i) */
-                if (pl)
-                    iter_product_c(n, nd, jb->mix->icoef,
-                                   *(const mcdi_vd *)Wt, (const mcdi_vd *)s,
-                                   (const mcdi_vd *)x, (const mcdi_vd *)minv,
-                                   (const mcdi_vd *)wk, (const mcdi_vd *)d,
-                                   (const mcdi_vd *)r, (mcdi_vd *)J,
-                                   (mcdi_vd *)v);
-                else if (L == MCDI_VLANES)
-                    iter_product_v(n, nd, (const mcdi_vd *)tri,
-                                   (const mcdi_vd *)s, (const mcdi_vd *)x,
-                                   (const mcdi_vd *)minv, (const mcdi_vd *)wk,
-                                   (const mcdi_vd *)d, (const mcdi_vd *)r,
-                                   (mcdi_vd *)J, (mcdi_vd *)v);
-                else {
-                for (i = 0; i < n * nd * L; i++)
-                    J[i] = 0.0; /* J holds sum_j invD_ij s_j U_j */
-                for (i = 1; i < n; i++)
-                    for (j = 0; j < i; j++) {
-                        const double *q = tri + (i * (i + 1) / 2 + j) * L;
-                        for (dd = 0; dd < nd; dd++)
-                            LANES {
-                                J[(i * nd + dd) * L + l] +=
-                                    q[l] * s[j * L + l] * r[(j * nd + dd) * L + l];
-                                J[(j * nd + dd) * L + l] +=
-                                    q[l] * s[i * L + l] * r[(i * nd + dd) * L + l];
-                            }
-                    }
-                for (i = 0; i < n; i++)
-                    for (dd = 0; dd < nd; dd++)
-                        LANES {
-                            size_t e = (i * nd + dd) * L + l;
-                            v[e] = x[i * L + l] * r[e] +
-                                   minv[i * L + l] *
-                                       (s[i * L + l] * J[e] +
-                                        d[e] * wk[i * L + l]);
-                        }
-                }
-                for (dd = 0; dd < nd; dd++) {
-                    double *p = aux + 3 * L;
-                    LANES
-                        p[l] = 0.0;
-                    for (i = 0; i < n; i++)
-                        LANES
-                            p[l] += s[i * L + l] * v[(i * nd + dd) * L + l];
-                    for (i = 0; i < n; i++)
-                        LANES
-                            v[(i * nd + dd) * L + l] -= s[i * L + l] * p[l];
-                }
-                /* relative change of the fluxes s U, per lane */
-                LANES
-                    nrm[l] = 0.0;
-                LANES
-                    dmax[l] = 0.0;
-                for (i = 0; i < n; i++)
-                    for (dd = 0; dd < nd; dd++)
-                        LANES {
-                            size_t e = (i * nd + dd) * L + l;
-                            double a = fabs(s[i * L + l] * v[e]);
-                            double b = fabs(s[i * L + l] * (v[e] - r[e]));
-                            nrm[l] = a > nrm[l] ? a : nrm[l];
-                            dmax[l] = b > dmax[l] ? b : dmax[l];
-                        }
-                LANES {
-                    double del = nrm[l] > 0.0 ? dmax[l] / nrm[l] : 0.0;
-                    double rho = del / delta_prev[l], e2;
-                    double rho2 = delta_prev[l] / delta_prev2[l];
-                    if (!(active[l] > 0.0))
-                        continue;
-                    /* the larger of the last two contraction ratios (robust
-                     * to oscillating iterates); del / (1 - rho) bounds the
-                     * error of the previous iterate, so it over-estimates
-                     * that of the one returned */
-                    if (it >= 3 && rho2 > rho)
-                        rho = rho2;
-                    if (it == 1)
-                        e2 = HUGE_VAL; /* no contraction observed yet */
-                    else if (rho < 0.999)
-                        e2 = del / (1.0 - rho);
-                    else
-                        e2 = HUGE_VAL;
-                    if (del == 0.0)
-                        e2 = 0.0;
-                    est[l] = e2;
-                    delta_prev2[l] = delta_prev[l];
-                    delta_prev[l] = del;
-                    iters[l] = (double)it;
-                }
-                for (i = 0; i < n * nd; i++)
-                    LANES
-                        if (active[l] > 0.0)
-                            r[i * L + l] = v[i * L + l];
-                LANES {
-                    if (active[l] > 0.0 && it >= 2 && est[l] <= jb->tol)
-                        active[l] = 0.0;
-                    if (l < nv)
-                        nact += active[l];
-                }
-                if (nact == 0.0)
-                    break;
-            }
-            for (l = 0; l < nv; l++) {
-                double e2 = est[l];
-                if (!(e2 <= res->iter_err))
-                    res->iter_err = e2;
-                if ((size_t)iters[l] > res->iter_used)
-                    res->iter_used = (size_t)iters[l];
-            }
         }
+    return 1;
+}
 
-        if (L == MCDI_VLANES && nv == L && !mass_out) {
-            /* full block, mole basis: compose, clean up and store at once */
-            if (emit_mole_v(n, nd, (const mcdi_vd *)s, (const mcdi_vd *)x,
-                            (const mcdi_vd *)r, (const mcdi_vd *)t, ntr,
-                            *(const mcdi_vd *)c, (mcdi_vd *)J,
-                            jb->out, K, k0, jb->stream,
-                            mem0 - MCDI_STREAM_DOUBLES))
-                return;
-            goto store; /* a flux not finite: reported there */
-        }
-        /* J_i = c (s_i U_i + t_i - x_i sum_t t_t) */
-        for (dd = 0; dd < nd; dd++) {
-            double *st = aux + 3 * L;
+/* Right-hand side b_i = -d_i / s_i (0 for trace species) into r; wk keeps
+ * -1 / s_i (the iteration recomputes b from it). */
+KINLINE void stage_rhs(const mcdi_kblock *b, const size_t n, const size_t L,
+                       const size_t nd)
+{
+    const double *restrict s = b->s, *restrict d = b->d;
+    double *restrict wk = b->wk, *restrict r = b->r;
+    size_t i, dd, l;
+    for (i = 0; i < n; i++)
+        LANES
+            wk[i * L + l] = s[i * L + l] > 0.0 ? -1.0 / s[i * L + l] : 0.0;
+    for (i = 0; i < n; i++)
+        for (dd = 0; dd < nd; dd++)
             LANES
-                st[l] = 0.0;
-            for (i = 0; i < n; i++)
+                r[(i * nd + dd) * L + l] =
+                    d[(i * nd + dd) * L + l] * wk[i * L + l];
+}
+
+/* LDL^T of A = Gs + a s s^T one lane row at a time (blocks of L lanes
+ * other than the vector width: one cell of a large n), then the solve of
+ * L D L^T U = b for each direction, in r. Returns 0 on a pivot that is not
+ * > 0 (or NaN). */
+KINLINE int ldl_solve_rows(const mcdi_kblock *b, const size_t n,
+                           const size_t L, const size_t nd)
+{
+    const double *restrict s = b->s, *restrict S = b->S, *restrict x = b->x;
+    const double *restrict amax = b->amax;
+    double *restrict tri = b->tri, *restrict wk = b->wk, *restrict Dg = b->Dg;
+    double *restrict iDg = b->iDg, *restrict r = b->r, *restrict acc = b->acc;
+    int sing = 0;
+    size_t i, j, k, dd, l;
+    /* A = Gs + a s s^T in place of invD */
+    for (i = 0; i < n; i++) {
+        double *row = tri + (i * (i + 1) / 2) * L;
+        for (j = 0; j < i; j++)
+            LANES
+                row[j * L + l] = s[i * L + l] * s[j * L + l] *
+                                 (amax[l] - row[j * L + l]);
+        LANES
+            row[i * L + l] = S[i * L + l] + amax[l] * x[i * L + l];
+    }
+    /* LDL^T, left-looking, packed lower */
+    for (j = 0; j < n; j++) {
+        double *Lj = tri + (j * (j + 1) / 2) * L;
+        for (k = 0; k < j; k++)
+            LANES
+                wk[k * L + l] = Lj[k * L + l] * Dg[k * L + l];
+        LANES
+            acc[l] = Lj[j * L + l];
+        for (k = 0; k < j; k++)
+            LANES
+                acc[l] -= Lj[k * L + l] * wk[k * L + l];
+        LANES {
+            Dg[j * L + l] = acc[l];
+            sing |= !(acc[l] > 0.0);
+            iDg[j * L + l] = 1.0 / acc[l];
+        }
+        for (i = j + 1; i < n; i++) {
+            double *Li = tri + (i * (i + 1) / 2) * L;
+            LANES
+                acc[l] = Li[j * L + l];
+            for (k = 0; k < j; k++)
                 LANES
-                    st[l] += t[(i * nd + dd) * L + l];
-            for (i = 0; i < n; i++)
-                LANES {
-                    size_t e = (i * nd + dd) * L + l;
-                    J[e] = c[l] * (s[i * L + l] * r[e] + t[e] -
-                                   x[i * L + l] * st[l]);
-                }
+                    acc[l] -= Li[k * L + l] * wk[k * L + l];
+            LANES
+                Li[j * L + l] = acc[l] * iDg[j * L + l];
         }
     }
-
-    /* zero-sum clean-up with weights x (trace species stay exact) */
+    if (sing)
+        return 0;
     for (dd = 0; dd < nd; dd++) {
-        double *rs = aux + 3 * L;
+        for (i = 0; i < n; i++) {
+            const double *Li = tri + (i * (i + 1) / 2) * L;
+            double *ri = r + (i * nd + dd) * L;
+            for (k = 0; k < i; k++)
+                LANES
+                    ri[l] -= Li[k * L + l] * r[(k * nd + dd) * L + l];
+        }
+        for (i = 0; i < n; i++)
+            LANES
+                r[(i * nd + dd) * L + l] *= iDg[i * L + l];
+        for (i = n; i-- > 0;) {
+            const double *Li = tri + (i * (i + 1) / 2) * L;
+            double *ri = r + (i * nd + dd) * L;
+            for (k = 0; k < i; k++)
+                LANES
+                    r[(k * nd + dd) * L + l] -= Li[k * L + l] * ri[l];
+        }
+    }
+    return 1;
+}
+
+/* Exact model: a = the largest Blanc sum of the species present (of all
+ * species for a pure component), then (Gs + a s s^T) U = b solved in r.
+ * Returns 0 if some lane's matrix is not positive definite. */
+KINLINE int stage_exact(const mcdi_kblock *b, const size_t n, const size_t L,
+                        const size_t nd)
+{
+    const double *restrict S = b->S, *restrict x = b->x;
+    double *restrict amax = b->amax, *restrict amax2 = b->amax2;
+    size_t i, l;
+    LANES
+        amax[l] = amax2[l] = 0.0;
+    for (i = 0; i < n; i++)
+        LANES {
+            double Sl = S[i * L + l];
+            double Sp = x[i * L + l] > 0.0 ? Sl : 0.0;
+            amax[l] = Sp > amax[l] ? Sp : amax[l];
+            amax2[l] = Sl > amax2[l] ? Sl : amax2[l];
+        }
+    LANES
+        amax[l] = amax[l] > 0.0 ? amax[l] : amax2[l];
+    if (L == MCDI_VLANES)
+        /* assembly, LDL^T and both substitutions fused, in registers */
+        return ldl_solve_v(n, nd, (mcdi_vd *)b->tri, (const mcdi_vd *)b->s,
+                           (const mcdi_vd *)S, (const mcdi_vd *)x,
+                           *(const mcdi_vd *)amax, (mcdi_vd *)b->r,
+                           (mcdi_vd *)b->Dg, (mcdi_vd *)b->iDg,
+                           (mcdi_vd *)b->Wt);
+    return ldl_solve_rows(b, n, L, nd);
+}
+
+/* v = Ps v: projection onto s^T v = 0, per direction. */
+KINLINE void project_s(const mcdi_kblock *b, double *restrict v,
+                       const size_t n, const size_t L, const size_t nd)
+{
+    const double *restrict s = b->s;
+    double *restrict p = b->col;
+    size_t i, dd, l;
+    for (dd = 0; dd < nd; dd++) {
+        LANES
+            p[l] = 0.0;
+        for (i = 0; i < n; i++)
+            LANES
+                p[l] += s[i * L + l] * v[(i * nd + dd) * L + l];
+        for (i = 0; i < n; i++)
+            LANES
+                v[(i * nd + dd) * L + l] -= s[i * L + l] * p[l];
+    }
+}
+
+/* One Ern-Giovangigli step before the projection, one lane row at a time
+ * (blocks other than the vector width): J holds sum_j invD_ij s_j U_j. */
+KINLINE void iter_product_rows(const mcdi_kblock *b, const size_t n,
+                               const size_t L, const size_t nd)
+{
+    const double *restrict s = b->s, *restrict x = b->x, *restrict r = b->r;
+    const double *restrict minv = b->minv, *restrict d = b->d;
+    const double *restrict wk = b->wk;
+    double *restrict J = b->J, *restrict v = b->v;
+    size_t i, j, dd, l;
+    for (i = 0; i < n * nd * L; i++)
+        J[i] = 0.0;
+    for (i = 1; i < n; i++)
+        for (j = 0; j < i; j++) {
+            const double *q = b->tri + (i * (i + 1) / 2 + j) * L;
+            for (dd = 0; dd < nd; dd++)
+                LANES {
+                    J[(i * nd + dd) * L + l] +=
+                        q[l] * s[j * L + l] * r[(j * nd + dd) * L + l];
+                    J[(j * nd + dd) * L + l] +=
+                        q[l] * s[i * L + l] * r[(i * nd + dd) * L + l];
+                }
+        }
+    for (i = 0; i < n; i++)
+        for (dd = 0; dd < nd; dd++)
+            LANES {
+                size_t e = (i * nd + dd) * L + l;
+                v[e] = x[i * L + l] * r[e] +
+                       minv[i * L + l] * (s[i * L + l] * J[e] +
+                                          d[e] * wk[i * L + l]);
+            }
+}
+
+/* Error estimate of one iteration per lane (see the top comment); lanes
+ * that have stopped keep theirs. */
+KINLINE void iter_estimate(const mcdi_kblock *b, size_t it, const size_t n,
+                           const size_t L, const size_t nd)
+{
+    const double *restrict s = b->s, *restrict v = b->v, *restrict r = b->r;
+    const double *restrict active = b->active;
+    double *restrict nrm = b->nrm, *restrict dmax = b->dmax;
+    double *restrict dprev = b->dprev, *restrict dprev2 = b->dprev2;
+    double *restrict est = b->est, *restrict iters = b->iters;
+    size_t i, dd, l;
+    LANES
+        nrm[l] = 0.0;
+    LANES
+        dmax[l] = 0.0;
+    for (i = 0; i < n; i++)
+        for (dd = 0; dd < nd; dd++)
+            LANES {
+                size_t e = (i * nd + dd) * L + l;
+                double a = fabs(s[i * L + l] * v[e]);
+                double q = fabs(s[i * L + l] * (v[e] - r[e]));
+                nrm[l] = a > nrm[l] ? a : nrm[l];
+                dmax[l] = q > dmax[l] ? q : dmax[l];
+            }
+    LANES {
+        double del = nrm[l] > 0.0 ? dmax[l] / nrm[l] : 0.0;
+        double rho = del / dprev[l], e2;
+        double rho2 = dprev[l] / dprev2[l];
+        if (!(active[l] > 0.0))
+            continue;
+        /* the larger of the last two contraction ratios (robust to
+         * oscillating iterates); del / (1 - rho) bounds the error of the
+         * previous iterate, so it over-estimates that of the one returned */
+        if (it >= 3 && rho2 > rho)
+            rho = rho2;
+        if (it == 1)
+            e2 = HUGE_VAL; /* no contraction observed yet */
+        else if (rho < 0.999)
+            e2 = del / (1.0 - rho);
+        else
+            e2 = HUGE_VAL;
+        if (del == 0.0)
+            e2 = 0.0;
+        est[l] = e2;
+        dprev2[l] = dprev[l];
+        dprev[l] = del;
+        iters[l] = (double)it;
+    }
+}
+
+/* Iterative model (Ern-Giovangigli, see the top comment): U in r. */
+KINLINE void stage_iterate(const mcdi_bjob *jb, const mcdi_kblock *b, int pl,
+                           size_t nv, mcdi_bres *res, const size_t n,
+                           const size_t L, const size_t nd)
+{
+    const double *restrict S = b->S, *restrict num = b->num;
+    double *restrict minv = b->minv, *restrict r = b->r, *restrict v = b->v;
+    double *restrict dprev = b->dprev, *restrict dprev2 = b->dprev2;
+    double *restrict est = b->est, *restrict active = b->active;
+    double *restrict iters = b->iters;
+    size_t i, it, l;
+    for (i = 0; i < n; i++)
+        LANES {
+            double Sl = S[i * L + l];
+            minv[i * L + l] = Sl > 0.0 ? num[i * L + l] / Sl : 0.0;
+        }
+    /* U^0 = Ps Minv b */
+    for (i = 0; i < n * nd; i++)
+        LANES
+            r[i * L + l] *= minv[(i / nd) * L + l];
+    project_s(b, r, n, L, nd);
+    LANES {
+        dprev[l] = HUGE_VAL;
+        dprev2[l] = HUGE_VAL;
+        est[l] = HUGE_VAL;
+        active[l] = 1.0;
+        iters[l] = 0.0;
+    }
+    for (it = 1; it <= jb->max_iter; it++) {
+        double nact = 0.0;
+        /* v_i = x_i U_i + minv_i (s_i sum_j invD_ij s_j U_j + b_i), b = d wk */
+        if (pl)
+            iter_product_c(n, nd, jb->mix->icoef, *(const mcdi_vd *)b->f175,
+                           (const mcdi_vd *)b->s, (const mcdi_vd *)b->x,
+                           (const mcdi_vd *)minv, (const mcdi_vd *)b->wk,
+                           (const mcdi_vd *)b->d, (const mcdi_vd *)r,
+                           (mcdi_vd *)b->J, (mcdi_vd *)v);
+        else if (L == MCDI_VLANES)
+            iter_product_v(n, nd, (const mcdi_vd *)b->tri,
+                           (const mcdi_vd *)b->s, (const mcdi_vd *)b->x,
+                           (const mcdi_vd *)minv, (const mcdi_vd *)b->wk,
+                           (const mcdi_vd *)b->d, (const mcdi_vd *)r,
+                           (mcdi_vd *)b->J, (mcdi_vd *)v);
+        else
+            iter_product_rows(b, n, L, nd);
+        project_s(b, v, n, L, nd);
+        iter_estimate(b, it, n, L, nd);
+        for (i = 0; i < n * nd; i++)
+            LANES
+                if (active[l] > 0.0)
+                    r[i * L + l] = v[i * L + l];
+        LANES {
+            if (active[l] > 0.0 && it >= 2 && est[l] <= jb->tol)
+                active[l] = 0.0;
+            if (l < nv)
+                nact += active[l];
+        }
+        if (nact == 0.0)
+            break;
+    }
+    for (l = 0; l < nv; l++) {
+        double e2 = est[l];
+        if (!(e2 <= res->iter_err))
+            res->iter_err = e2;
+        if ((size_t)iters[l] > res->iter_used)
+            res->iter_used = (size_t)iters[l];
+    }
+}
+
+/* Molar fluxes from the solution U: J_i = c (s_i U_i + t_i - x_i sum_t t_t). */
+KINLINE void stage_compose(const mcdi_kblock *b, const size_t n,
+                           const size_t L, const size_t nd)
+{
+    const double *restrict s = b->s, *restrict x = b->x, *restrict r = b->r;
+    const double *restrict t = b->t, *restrict c = b->c;
+    double *restrict J = b->J, *restrict st = b->col;
+    size_t i, dd, l;
+    for (dd = 0; dd < nd; dd++) {
+        LANES
+            st[l] = 0.0;
+        for (i = 0; i < n; i++)
+            LANES
+                st[l] += t[(i * nd + dd) * L + l];
+        for (i = 0; i < n; i++)
+            LANES {
+                size_t e = (i * nd + dd) * L + l;
+                J[e] = c[l] * (s[i * L + l] * r[e] + t[e] - x[i * L + l] * st[l]);
+            }
+    }
+}
+
+/* Zero-sum clean-up J_i -= y_i sum_k J_k with weights y (x for molar
+ * fluxes: trace species stay exact; w for mass fluxes). */
+KINLINE void zero_sum(const mcdi_kblock *b, const double *restrict y,
+                      const size_t n, const size_t L, const size_t nd)
+{
+    double *restrict J = b->J, *restrict rs = b->col;
+    size_t i, dd, l;
+    for (dd = 0; dd < nd; dd++) {
         LANES
             rs[l] = 0.0;
         for (i = 0; i < n; i++)
@@ -1326,50 +1411,68 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
                 rs[l] += J[(i * nd + dd) * L + l];
         for (i = 0; i < n; i++)
             LANES
-                J[(i * nd + dd) * L + l] -= x[i * L + l] * rs[l];
+                J[(i * nd + dd) * L + l] -= y[i * L + l] * rs[l];
     }
-    if (mass_out) {
-        /* j_i = M_i J_i - w_i sum_k M_k J_k, residual removed with w */
-        for (dd = 0; dd < nd; dd++) {
-            double *sm = aux + 3 * L, *rs = aux + 4 * L;
+}
+
+/* Mass fluxes j_i = M_i J_i - w_i sum_k M_k J_k, the residual removed with
+ * w; fails (EDOM in res) where the terms cancelled, as
+ * mcdi_mass_zero_sum_kept (non-finite lanes are left to stage_store).
+ * Returns 0 on failure. */
+KINLINE int stage_mass(const mcdi_bjob *jb, const mcdi_kblock *b, size_t nv,
+                       mcdi_bres *res, const size_t n, const size_t L,
+                       const size_t nd)
+{
+    const double *M = jb->M;
+    const double *restrict w = b->w;
+    double *restrict J = b->J, *restrict sm = b->col, *restrict rs = b->col2;
+    size_t i, dd, l;
+    for (dd = 0; dd < nd; dd++) {
+        LANES
+            sm[l] = rs[l] = 0.0;
+        for (i = 0; i < n; i++)
             LANES
-                sm[l] = rs[l] = 0.0;
-            for (i = 0; i < n; i++)
-                LANES
-                    sm[l] += M[i] * J[(i * nd + dd) * L + l];
-            for (i = 0; i < n; i++)
-                LANES {
-                    size_t e = (i * nd + dd) * L + l;
-                    J[e] = M[i] * J[e] - w[i * L + l] * sm[l];
-                    rs[l] += J[e];
-                }
-            for (i = 0; i < n; i++)
-                LANES
-                    J[(i * nd + dd) * L + l] -= w[i * L + l] * rs[l];
-            /* cancellation check as in mcdi_mass_zero_sum_kept (non-finite
-             * lanes are left to the check below) */
+                sm[l] += M[i] * J[(i * nd + dd) * L + l];
+        for (i = 0; i < n; i++)
+            LANES {
+                size_t e = (i * nd + dd) * L + l;
+                J[e] = M[i] * J[e] - w[i * L + l] * sm[l];
+                rs[l] += J[e];
+            }
+        for (i = 0; i < n; i++)
             LANES
-                sm[l] = rs[l] = 0.0;
-            for (i = 0; i < n; i++)
-                LANES {
-                    const double q = J[(i * nd + dd) * L + l];
-                    sm[l] += q;
-                    rs[l] += fabs(q);
-                }
-            for (l = 0; l < nv; l++)
-                if ((rs[l] <= DBL_MAX) &&
-                    !(fabs(sm[l]) <= MCDI_MASS_SUM_TOL * rs[l] + 1e-300)) {
-                    res->st = MCD_EDOM;
-                    res->lane = l;
-                    res->what = "result: mass fluxes lost to cancellation "
-                                "(the molar masses are too far apart for "
-                                "double precision)";
-                    return;
-                }
-        }
+                J[(i * nd + dd) * L + l] -= w[i * L + l] * rs[l];
+        LANES
+            sm[l] = rs[l] = 0.0;
+        for (i = 0; i < n; i++)
+            LANES {
+                const double q = J[(i * nd + dd) * L + l];
+                sm[l] += q;
+                rs[l] += fabs(q);
+            }
+        for (l = 0; l < nv; l++)
+            if ((rs[l] <= DBL_MAX) &&
+                !(fabs(sm[l]) <= MCDI_MASS_SUM_TOL * rs[l] + 1e-300)) {
+                res->st = MCD_EDOM;
+                res->lane = l;
+                res->what = "result: mass fluxes lost to cancellation "
+                            "(the molar masses are too far apart for "
+                            "double precision)";
+                return 0;
+            }
     }
-store:
-    /* never hand out non-finite fluxes */
+    return 1;
+}
+
+/* Write the block's fluxes, never non-finite ones (EDOM in res). */
+KINLINE void stage_store(const mcdi_bjob *jb, const mcdi_kblock *b,
+                         size_t k0, size_t nv, mcdi_bres *res, const size_t n,
+                         const size_t L, const size_t nd)
+{
+    const double *restrict J = b->J;
+    const size_t K = jb->K;
+    int bad = 0;
+    size_t i, l;
 #if defined(_OPENMP) || defined(MCDI_OMP_SIMD)
 #pragma omp simd reduction(|:bad)
 #endif
@@ -1397,13 +1500,16 @@ store:
                 o[l] = Ji[l];
         }
     }
-    return;
+}
 
-not_definite:
-    /* the lowest lane with a non-positive (or NaN) pivot */
+/* The lowest lane with a non-positive (or NaN) pivot: ESING. */
+static void report_not_definite(const mcdi_kblock *b, size_t nv,
+                                mcdi_bres *res, size_t n, size_t L)
+{
+    size_t j, l;
     for (l = 0; l < nv; l++)
         for (j = 0; j < n; j++)
-            if (!(Dg[j * L + l] > 0.0)) {
+            if (!(b->Dg[j * L + l] > 0.0)) {
                 res->st = MCD_ESING;
                 res->lane = l;
                 res->what = "Maxwell-Stefan matrix not positive definite "
@@ -1413,9 +1519,14 @@ not_definite:
     res->st = MCD_EINTERNAL; /* flagged without a bad pivot */
     res->lane = 0;
     res->what = "internal: pivot check mismatch";
-    return;
+}
 
-diagnose:
+/* A block flagged by a loading stage: the lowest cell out of range, named
+ * by the scalar re-check. */
+static void report_bad_cell(const mcdi_bjob *jb, size_t k0, size_t nv,
+                            mcdi_bres *res)
+{
+    size_t l;
     for (l = 0; l < nv; l++) {
         const char *what = "";
         mcd_status st = check_cell(jb, k0 + l, &what);
@@ -1429,6 +1540,86 @@ diagnose:
     res->st = MCD_EINTERNAL; /* a flagged block without a bad cell */
     res->lane = 0;
     res->what = "internal: validation mismatch";
+}
+
+/* ------------------------------------------------------------------ */
+/* the block body, instantiated for constant n and L                    */
+/* ------------------------------------------------------------------ */
+
+KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
+                  mcdi_bres *res, const size_t n, const size_t L,
+                  const size_t nd)
+{
+    double *const nts = mem - MCDI_STREAM_DOUBLES; /* streaming state */
+    const int mass_out = jb->flux_basis == MCD_BASIS_MASS;
+    /* iterative model on a power-law mixture: the inverse diffusivities
+     * are f_l / coef_ij, used through the shared 1 / coef (Blanc sums,
+     * iter_product_c); the per-lane triangle is filled only for the trace
+     * coupling of blocks with trace species */
+    const int pl = jb->mix != NULL && !jb->mix_has_omega &&
+                   jb->model == MCD_MODEL_ITERATIVE && L == MCDI_VLANES;
+    mcdi_kblock b;
+    size_t i;
+
+    mcdi_kblock_carve(mem, n, nd, L, &b);
+    res->st = MCD_OK;
+    if ((stage_load_scalars(jb, &b, k0, nv, L) |
+         stage_load_comp(jb, &b, k0, nv, n, L)) != 0) {
+        report_bad_cell(jb, k0, nv, res);
+        return;
+    }
+    stage_fractions(jb, &b, n, L);
+    if (stage_load_forces(jb, &b, k0, nv, n, L, nd)) {
+        report_bad_cell(jb, k0, nv, res);
+        return;
+    }
+    stage_forces(jb, &b, n, L, nd);
+    if (n == 1) {
+        /* a single species does not diffuse */
+        for (i = 0; i < nd * L; i++)
+            b.J[i] = 0.0;
+        stage_store(jb, &b, k0, nv, res, n, L, nd);
+        return;
+    }
+    if (jb->mix == NULL) {
+        if (stage_invdiff_dij(jb, &b, k0, nv, n, L)) {
+            report_bad_cell(jb, k0, nv, res);
+            return;
+        }
+    } else {
+        stage_invdiff_mixture(jb, &b, pl, n, L);
+    }
+    stage_blanc(jb, &b, pl, n, L);
+
+    if (jb->model == MCD_MODEL_MIXTURE_AVERAGED) {
+        stage_mixavg(&b, n, L, nd);
+    } else {
+        const int ntr = stage_trace(jb, &b, pl, n, L, nd);
+        stage_rhs(&b, n, L, nd);
+        if (jb->model == MCD_MODEL_MAXWELL_STEFAN) {
+            if (!stage_exact(&b, n, L, nd)) {
+                report_not_definite(&b, nv, res, n, L);
+                return;
+            }
+        } else {
+            stage_iterate(jb, &b, pl, nv, res, n, L, nd);
+        }
+        if (L == MCDI_VLANES && nv == L && !mass_out) {
+            /* full block, mole basis: compose, clean up and store at once
+             * (a flux not finite: J holds them all, stage_store reports) */
+            if (!emit_mole_v(n, nd, (const mcdi_vd *)b.s, (const mcdi_vd *)b.x,
+                             (const mcdi_vd *)b.r, (const mcdi_vd *)b.t, ntr,
+                             *(const mcdi_vd *)b.c, (mcdi_vd *)b.J, jb->out,
+                             jb->K, k0, jb->stream, nts))
+                stage_store(jb, &b, k0, nv, res, n, L, nd);
+            return;
+        }
+        stage_compose(&b, n, L, nd);
+    }
+    zero_sum(&b, b.x, n, L, nd); /* trace species stay exact */
+    if (mass_out && !stage_mass(jb, &b, nv, res, n, L, nd))
+        return;
+    stage_store(jb, &b, k0, nv, res, n, L, nd);
 }
 
 /* ------------------------------------------------------------------ */
