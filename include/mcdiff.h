@@ -853,7 +853,9 @@ MCD_API mcd_status mcd_workspace_set_iterative(mcd_workspace *ws,
 /** Outcome of the last batched ITERATIVE call on this workspace: the
  *  largest error estimate over its cells, relative to the largest flux of
  *  the cell (max_i |J_i - J_i,exact| / max_i |J_i|, estimated from the
- *  observed contraction of successive iterates), and the largest number of
+ *  observed contraction of successive iterates; iterates that differ by
+ *  round-off only, < 64 DBL_EPSILON, and no longer contract count as
+ *  1000 times that change, about 1e-11 at most), and the largest number of
  *  iterations a cell used. A cell that stops at max_iter above tol does not
  *  make the call fail: check the estimate. Both are 0 before any such call.
  *  Either pointer may be NULL. Since 0.1.

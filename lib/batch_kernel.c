@@ -52,7 +52,8 @@
  * rho = max(delta_k / delta_{k-1}, delta_{k-1} / delta_{k-2}), the error is
  * estimated as delta_k / (1 - rho), the geometric-tail bound of the error
  * of U^k, which over-estimates that of the returned U^{k+1} by about
- * 1/rho; rho >= 0.999 counts as not converged (estimate HUGE_VAL). A cell stops when its estimate is <= tol and is then no
+ * 1/rho; rho >= 0.999 counts as not converged (estimate HUGE_VAL) unless
+ * delta_k is round-off (MCDI_ITER_FLOOR). A cell stops when its estimate is <= tol and is then no
  * longer updated, so its result does not depend on the other cells of its
  * block.
  */
@@ -94,6 +95,13 @@
 #endif
 
 #define RGAS MCD_GAS_CONSTANT
+
+/* Relative change of the fluxes below which successive iterates differ by
+ * round-off only: they stop contracting (rho ~ 1, a cycle between two
+ * round-off neighbours), and the estimate is del / (1 - 0.999) instead of
+ * HUGE_VAL (a binary, whose first iterate is exact, ran to max_iter and
+ * reported an infinite estimate). */
+#define MCDI_ITER_FLOOR (64.0 * DBL_EPSILON)
 
 /* Streaming stores of whole output lines (batch.h): the AVX-512 build
  * only, where a block's row of 8 doubles is one 64-byte line. */
@@ -1294,6 +1302,8 @@ KINLINE void iter_estimate(const mcdi_kblock *b, size_t it, const size_t n,
             e2 = HUGE_VAL; /* no contraction observed yet */
         else if (rho < 0.999)
             e2 = del / (1.0 - rho);
+        else if (del <= MCDI_ITER_FLOOR)
+            e2 = del / (1.0 - 0.999); /* stalled at round-off */
         else
             e2 = HUGE_VAL;
         if (del == 0.0)

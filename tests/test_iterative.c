@@ -123,6 +123,35 @@ START_TEST(iterative_converges_to_the_exact_solution)
          * these states) remains */
         ck_assert_msg(e <= 1e-12, "N=%zu error %.3g", Ns[t], e);
         ck_assert_uint_le(used, 500);
+        /* iterates that stall at round-off (N = 2, 3 here: rho ~ 1) still
+         * get a finite estimate that bounds the error (was HUGE_VAL) */
+        ck_assert_msg(est < 1e-10 && e <= est, "N=%zu estimate %.3g, error %.3g",
+                      Ns[t], est, e);
+        prob_free(&p);
+    }
+    mcd_workspace_free(ws);
+}
+END_TEST
+
+/* A binary's first iterate is already exact (the mixture-averaged flux
+ * with the correction velocity is exact for N = 2): the iteration stops as
+ * soon as the change is seen to be round-off, with a small estimate. */
+START_TEST(iterative_binary_stops_at_once)
+{
+    mcd_workspace *ws;
+    sup_seed(&rng, 0x17E4A7004ull);
+    ck_assert_int_eq(mcd_workspace_alloc(2, &ws), MCD_OK);
+    for (int trial = 0; trial < 50; trial++) {
+        prob p;
+        double est;
+        size_t used;
+        prob_make(&p, 2, ws, MCD_MODEL_MAXWELL_STEFAN);
+        ck_assert_int_eq(mcd_workspace_set_iterative(ws, 100, 1e-10), MCD_OK);
+        ck_assert_int_eq(run_iter(ws, &p), MCD_OK);
+        ck_assert_int_eq(mcd_workspace_iterative_info(ws, &est, &used), MCD_OK);
+        ck_assert_msg(used <= 3, "trial %d: %zu iterations", trial, used);
+        ck_assert_msg(est <= 1e-10 && prob_err(&p) <= est, "trial %d: estimate %.3g, error %.3g",
+                      trial, est, prob_err(&p));
         prob_free(&p);
     }
     mcd_workspace_free(ws);
@@ -202,6 +231,7 @@ int main(void)
     TCase *tc = tcase_create("iterative");
     tcase_set_timeout(tc, 300);
     tcase_add_test(tc, iterative_converges_to_the_exact_solution);
+    tcase_add_test(tc, iterative_binary_stops_at_once);
     tcase_add_test(tc, iterative_error_estimate_is_honest);
     tcase_add_test(tc, iterative_first_iterate_is_mixture_averaged_and_counts_iterations);
     suite_add_tcase(s, tc);
