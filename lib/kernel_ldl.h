@@ -1,0 +1,223 @@
+/* kernel_ldl.h - the exact model: (Gs + a s s^T) U = b by L D L^T
+ * without pivoting, on lane vectors or one lane row at a time.
+ * Included only by batch_kernel.c, which is compiled once per instruction
+ * set: everything here is inlined into the block body. Never installed. */
+#ifndef MCD_KERNEL_LDL_H
+#define MCD_KERNEL_LDL_H
+
+/* Assemble A = Gs + a s s^T row by row (A holds the packed lower triangle
+ * of the inverse diffusivities on entry and L on exit), factor A = L D L^T
+ * by rows (W_j = L_ij D_j), run the forward substitution of each row as
+ * soon as it is factored, then the diagonal scaling and the backward
+ * substitution. R: right-hand sides [i * nd + dd] in, solution out; Dg gets
+ * the pivots. Returns 0 if some lane has a pivot that is not > 0 (or NaN).
+ *
+ * Above KREG species the rows are taken KTILE at a time: the columns left
+ * of the tile are done for its rows together, so each loaded L_jk serves
+ * KTILE independent multiply-add chains (the factor is in L2 cache at
+ * large n; one load per FMA was the limit), then the tile's own triangle
+ * row by row. Wm: KTILE * n vectors (the tile's W rows). Up to KREG
+ * species W and 1/D are local arrays, registers after unrolling. */
+KINLINE void ldl_row_tail(const size_t nd, mcdi_vd *restrict A, const size_t i,
+                          const size_t j0, const mcdi_vd *restrict s,
+                          const mcdi_vd a, mcdi_vd *restrict W,
+                          const mcdi_vd *restrict iD, const mcdi_vd *restrict R,
+                          mcdi_vd *restrict f)
+{
+    mcdi_vd *restrict Ai = A + i * (i + 1) / 2;
+    const mcdi_vd si = s[i];
+    size_t j, k, dd;
+    for (j = j0; j < i; j++) {
+        const mcdi_vd *restrict Aj = A + j * (j + 1) / 2;
+        mcdi_vd t = si * s[j] * (a - Ai[j]), lij;
+        for (k = 0; k < j; k++)
+            t -= W[k] * Aj[k];
+        W[j] = t;
+        lij = t * iD[j];
+        Ai[j] = lij;
+        for (dd = 0; dd < nd; dd++)
+            f[dd] -= lij * R[j * nd + dd];
+    }
+}
+
+KINLINE int ldl_solve_v(const size_t n, const size_t nd, mcdi_vd *restrict A,
+                        const mcdi_vd *restrict s, const mcdi_vd *restrict S,
+                        const mcdi_vd *restrict x, const mcdi_vd a,
+                        mcdi_vd *restrict R, mcdi_vd *restrict Dg,
+                        mcdi_vd *restrict iDm, mcdi_vd *restrict Wm)
+{
+    mcdi_vd Wl[KREG], iDl[KREG];
+    mcdi_vd *restrict iD = n <= KREG ? iDl : iDm;
+    const mcdi_vd zero = {0.0};
+    mcdi_vl ok = zero == zero; /* all lanes true */
+    size_t i, i0, j, k, dd, l, r;
+    const size_t step = n <= KREG ? 1 : KTILE; /* rows per tile */
+    for (i0 = 0; i0 < n; i0 += step) {
+        const size_t nr = n - i0 < step ? n - i0 : step;
+        mcdi_vd f[KTILE][MCD_MAX_DIM];
+        for (r = 0; r < nr; r++)
+            for (dd = 0; dd < nd; dd++)
+                f[r][dd] = R[(i0 + r) * nd + dd];
+        if (n > KREG && nr == KTILE) {
+            /* columns j < i0 for the KTILE rows together */
+            for (j = 0; j < i0; j++) {
+                const mcdi_vd *restrict Aj = A + j * (j + 1) / 2;
+                const mcdi_vd sj = s[j];
+                mcdi_vd t[KTILE];
+                for (r = 0; r < KTILE; r++)
+                    t[r] = s[i0 + r] * sj *
+                           (a - A[(i0 + r) * (i0 + r + 1) / 2 + j]);
+                for (k = 0; k < j; k++) {
+                    const mcdi_vd ajk = Aj[k];
+                    for (r = 0; r < KTILE; r++)
+                        t[r] -= Wm[r * n + k] * ajk;
+                }
+                for (r = 0; r < KTILE; r++) {
+                    const mcdi_vd lij = t[r] * iD[j];
+                    Wm[r * n + j] = t[r];
+                    A[(i0 + r) * (i0 + r + 1) / 2 + j] = lij;
+                    for (dd = 0; dd < nd; dd++)
+                        f[r][dd] -= lij * R[j * nd + dd];
+                }
+            }
+        }
+        for (r = 0; r < nr; r++) {
+            const size_t ii = i0 + r;
+            mcdi_vd *restrict W = n <= KREG ? Wl : Wm + r * n;
+            mcdi_vd *restrict Ai = A + ii * (ii + 1) / 2;
+            mcdi_vd dg;
+            ldl_row_tail(nd, A, ii, (n > KREG && nr == KTILE) ? i0 : 0, s, a,
+                         W, iD, R, f[r]);
+            dg = S[ii] + a * x[ii];
+            for (k = 0; k < ii; k++)
+                dg -= W[k] * Ai[k];
+            Dg[ii] = dg;
+            ok &= dg > zero;
+            iD[ii] = 1.0 / dg;
+            for (dd = 0; dd < nd; dd++)
+                R[ii * nd + dd] = f[r][dd];
+        }
+    }
+    for (l = 0; l < MCDI_VLANES; l++)
+        if (ok[l] == 0)
+            return 0;
+    for (i = n; i-- > 0;) {
+        mcdi_vd f[MCD_MAX_DIM];
+        for (dd = 0; dd < nd; dd++)
+            f[dd] = R[i * nd + dd] * iD[i];
+        for (k = i + 1; k < n; k++) {
+            const mcdi_vd lki = A[k * (k + 1) / 2 + i];
+            for (dd = 0; dd < nd; dd++)
+                f[dd] -= lki * R[k * nd + dd];
+        }
+        for (dd = 0; dd < nd; dd++)
+            R[i * nd + dd] = f[dd];
+    }
+    return 1;
+}
+
+/* LDL^T of A = Gs + a s s^T one lane row at a time (blocks of L lanes
+ * other than the vector width: one cell of a large n), then the solve of
+ * L D L^T U = b for each direction, in r. Returns 0 on a pivot that is not
+ * > 0 (or NaN). */
+KINLINE int ldl_solve_rows(const mcdi_kblock *b, const size_t n,
+                           const size_t L, const size_t nd)
+{
+    const double *restrict s = b->s, *restrict S = b->S, *restrict x = b->x;
+    const double *restrict amax = b->amax;
+    double *restrict tri = b->tri, *restrict wk = b->wk, *restrict Dg = b->Dg;
+    double *restrict iDg = b->iDg, *restrict r = b->r, *restrict acc = b->acc;
+    int sing = 0;
+    size_t i, j, k, dd, l;
+    /* A = Gs + a s s^T in place of invD */
+    for (i = 0; i < n; i++) {
+        double *row = tri + (i * (i + 1) / 2) * L;
+        for (j = 0; j < i; j++)
+            LANES
+                row[j * L + l] = s[i * L + l] * s[j * L + l] *
+                                 (amax[l] - row[j * L + l]);
+        LANES
+            row[i * L + l] = S[i * L + l] + amax[l] * x[i * L + l];
+    }
+    /* LDL^T, left-looking, packed lower */
+    for (j = 0; j < n; j++) {
+        double *Lj = tri + (j * (j + 1) / 2) * L;
+        for (k = 0; k < j; k++)
+            LANES
+                wk[k * L + l] = Lj[k * L + l] * Dg[k * L + l];
+        LANES
+            acc[l] = Lj[j * L + l];
+        for (k = 0; k < j; k++)
+            LANES
+                acc[l] -= Lj[k * L + l] * wk[k * L + l];
+        LANES {
+            Dg[j * L + l] = acc[l];
+            sing |= !(acc[l] > 0.0);
+            iDg[j * L + l] = 1.0 / acc[l];
+        }
+        for (i = j + 1; i < n; i++) {
+            double *Li = tri + (i * (i + 1) / 2) * L;
+            LANES
+                acc[l] = Li[j * L + l];
+            for (k = 0; k < j; k++)
+                LANES
+                    acc[l] -= Li[k * L + l] * wk[k * L + l];
+            LANES
+                Li[j * L + l] = acc[l] * iDg[j * L + l];
+        }
+    }
+    if (sing)
+        return 0;
+    for (dd = 0; dd < nd; dd++) {
+        for (i = 0; i < n; i++) {
+            const double *Li = tri + (i * (i + 1) / 2) * L;
+            double *ri = r + (i * nd + dd) * L;
+            for (k = 0; k < i; k++)
+                LANES
+                    ri[l] -= Li[k * L + l] * r[(k * nd + dd) * L + l];
+        }
+        for (i = 0; i < n; i++)
+            LANES
+                r[(i * nd + dd) * L + l] *= iDg[i * L + l];
+        for (i = n; i-- > 0;) {
+            const double *Li = tri + (i * (i + 1) / 2) * L;
+            double *ri = r + (i * nd + dd) * L;
+            for (k = 0; k < i; k++)
+                LANES
+                    r[(k * nd + dd) * L + l] -= Li[k * L + l] * ri[l];
+        }
+    }
+    return 1;
+}
+
+/* Exact model: a = the largest Blanc sum of the species present (of all
+ * species for a pure component), then (Gs + a s s^T) U = b solved in r.
+ * Returns 0 if some lane's matrix is not positive definite. */
+KINLINE int stage_exact(const mcdi_kblock *b, const size_t n, const size_t L,
+                        const size_t nd)
+{
+    const double *restrict S = b->S, *restrict x = b->x;
+    double *restrict amax = b->amax, *restrict amax2 = b->amax2;
+    size_t i, l;
+    LANES
+        amax[l] = amax2[l] = 0.0;
+    for (i = 0; i < n; i++)
+        LANES {
+            double Sl = S[i * L + l];
+            double Sp = x[i * L + l] > 0.0 ? Sl : 0.0;
+            amax[l] = Sp > amax[l] ? Sp : amax[l];
+            amax2[l] = Sl > amax2[l] ? Sl : amax2[l];
+        }
+    LANES
+        amax[l] = amax[l] > 0.0 ? amax[l] : amax2[l];
+    if (L == MCDI_VLANES)
+        /* assembly, LDL^T and both substitutions fused, in registers */
+        return ldl_solve_v(n, nd, (mcdi_vd *)b->tri, (const mcdi_vd *)b->s,
+                           (const mcdi_vd *)S, (const mcdi_vd *)x,
+                           *(const mcdi_vd *)amax, (mcdi_vd *)b->r,
+                           (mcdi_vd *)b->Dg, (mcdi_vd *)b->iDg,
+                           (mcdi_vd *)b->Wt);
+    return ldl_solve_rows(b, n, L, nd);
+}
+
+#endif

@@ -1,0 +1,591 @@
+/* kernel_stages.h - the stages of a block that every model shares:
+ * loading and checking, fractions, driving forces, inverse diffusivities,
+ * Blanc sums, the mixture-averaged fluxes, trace species, right-hand
+ * side, composition, zero-sum, mass basis and store.
+ * Included only by batch_kernel.c, which is compiled once per instruction
+ * set: everything here is inlined into the block body. Never installed. */
+#ifndef MCD_KERNEL_STAGES_H
+#define MCD_KERNEL_STAGES_H
+
+/* Per-cell scalars: c, or T and P (and c = P / (R T)) of a mixture call. */
+KINLINE int stage_load_scalars(const mcdi_bjob *jb, const mcdi_kblock *b,
+                               size_t k0, size_t nv, const size_t L)
+{
+    double *restrict c = b->c;
+    int bad = 0;
+    size_t l;
+    if (jb->mix != NULL) {
+        double *restrict Tl = b->T, *restrict Pl = b->P;
+        load_row(Tl, jb->T + k0, nv, L);
+        load_row(Pl, jb->P + k0, nv, L);
+        LANES_BAD {
+            bad |= !((Tl[l] > 0.0) & (Tl[l] <= DBL_MAX));
+            bad |= !((Pl[l] > 0.0) & (Pl[l] <= DBL_MAX));
+            c[l] = Pl[l] / (RGAS * Tl[l]);
+            bad |= !(c[l] >= DBL_MIN); /* a normal c, as single-state */
+        }
+    } else {
+        load_row(c, jb->c + k0, nv, L);
+        LANES_BAD
+            bad |= !((c[l] >= DBL_MIN) & (c[l] <= DBL_MAX)); /* normal c, as single-state */
+    }
+    return bad;
+}
+
+/* The composition rows (into x or w) and their sums. */
+KINLINE int stage_load_comp(const mcdi_bjob *jb, const mcdi_kblock *b,
+                            size_t k0, size_t nv, const size_t n,
+                            const size_t L)
+{
+    const size_t K = jb->K;
+    double *restrict sum = b->sum;
+    double *restrict y = jb->comp_basis == MCD_BASIS_MASS ? b->w : b->x;
+    int bad = 0;
+    size_t i, l;
+    LANES
+        sum[l] = 0.0;
+    for (i = 0; i < n; i++) {
+        load_row(y + i * L, jb->comp + i * K + k0, nv, L);
+        LANES_BAD {
+            double q = y[i * L + l];
+            bad |= !((q >= 0.0) & (q <= DBL_MAX));
+            sum[l] += q;
+        }
+    }
+    LANES_BAD
+        bad |= !(fabs(sum[l] - 1.0) <= MCD_SUM_TOL);
+    return bad;
+}
+
+/* Fractions scaled to sum 1, and the other basis (w needs M). */
+KINLINE void stage_fractions(const mcdi_bjob *jb, const mcdi_kblock *b,
+                             const size_t n, const size_t L)
+{
+    const int mass_in = jb->comp_basis == MCD_BASIS_MASS;
+    const double *M = jb->M;
+    double *restrict x = b->x, *restrict w = b->w, *restrict sum = b->sum;
+    double *restrict y = mass_in ? w : x;
+    size_t i, l;
+    for (i = 0; i < n; i++)
+        LANES
+            y[i * L + l] = y[i * L + l] / sum[l];
+    if (mass_in) {
+        /* x_i = (w_i / M_i) / sum_k w_k / M_k */
+        LANES
+            sum[l] = 0.0;
+        for (i = 0; i < n; i++)
+            LANES
+                sum[l] += w[i * L + l] / M[i];
+        for (i = 0; i < n; i++)
+            LANES
+                x[i * L + l] = (w[i * L + l] / M[i]) / sum[l];
+    } else if (M != NULL) {
+        LANES
+            sum[l] = 0.0;
+        for (i = 0; i < n; i++)
+            LANES
+                sum[l] += x[i * L + l] * M[i];
+        for (i = 0; i < n; i++)
+            LANES
+                w[i * L + l] = x[i * L + l] * M[i] / sum[l];
+    }
+}
+
+/* The gradients (into d) and grad ln P (into v). */
+KINLINE int stage_load_forces(const mcdi_bjob *jb, const mcdi_kblock *b,
+                              size_t k0, size_t nv, const size_t n,
+                              const size_t L, const size_t nd)
+{
+    const size_t K = jb->K;
+    double *restrict d = b->d, *restrict v = b->v;
+    int bad = 0;
+    size_t i, dd, l;
+    for (i = 0; i < n * nd; i++) {
+        load_row(d + i * L, jb->grad + i * K + k0, nv, L);
+        LANES_BAD
+            bad |= !(fabs(d[i * L + l]) <= DBL_MAX);
+    }
+    if (jb->glnP != NULL) {
+        for (dd = 0; dd < nd; dd++) {
+            load_row(v + dd * L, jb->glnP + dd * K + k0, nv, L);
+            LANES_BAD
+                bad |= !(fabs(v[dd * L + l]) <= DBL_MAX);
+        }
+    }
+    return bad;
+}
+
+/* Driving forces d_i = grad x_i + (x_i - w_i) grad ln P, projected onto
+ * sum_i d_i = 0 with weights x (the gradients of mass fractions are
+ * turned into those of mole fractions first). */
+KINLINE void stage_forces(const mcdi_bjob *jb, const mcdi_kblock *b,
+                          const size_t n, const size_t L, const size_t nd)
+{
+    const double *M = jb->M;
+    double *restrict d = b->d, *restrict v = b->v;
+    const double *restrict x = b->x, *restrict w = b->w;
+    size_t i, dd, l;
+    if (jb->comp_basis == MCD_BASIS_MASS) {
+        /* dx_i = (dw_i - w_i dT/T) / (M_i T), T = sum w_k / M_k */
+        double *restrict Tw = b->tw, *restrict rr = b->col;
+        LANES
+            Tw[l] = 0.0;
+        for (i = 0; i < n; i++)
+            LANES
+                Tw[l] += w[i * L + l] / M[i];
+        for (dd = 0; dd < nd; dd++) {
+            LANES
+                rr[l] = 0.0;
+            for (i = 0; i < n; i++)
+                LANES
+                    rr[l] += d[(i * nd + dd) * L + l] / M[i];
+            LANES
+                rr[l] = rr[l] / Tw[l];
+            for (i = 0; i < n; i++)
+                LANES
+                    d[(i * nd + dd) * L + l] =
+                        (d[(i * nd + dd) * L + l] - w[i * L + l] * rr[l]) /
+                        (M[i] * Tw[l]);
+        }
+    }
+    if (jb->glnP != NULL)
+        for (i = 0; i < n; i++)
+            for (dd = 0; dd < nd; dd++)
+                LANES
+                    d[(i * nd + dd) * L + l] +=
+                        (x[i * L + l] - w[i * L + l]) * v[dd * L + l];
+    /* projection onto sum_i d_i = 0 with weights x */
+    for (dd = 0; dd < nd; dd++) {
+        double *restrict sd = b->col;
+        LANES
+            sd[l] = 0.0;
+        for (i = 0; i < n; i++)
+            LANES
+                sd[l] += d[(i * nd + dd) * L + l];
+        for (i = 0; i < n; i++)
+            LANES
+                d[(i * nd + dd) * L + l] -= x[i * L + l] * sd[l];
+    }
+}
+
+/* Inverse binary diffusivities (packed lower, i > j) from the caller's
+ * per-cell Dij: both triangles checked (normal, finite, symmetric). */
+KINLINE int stage_invdiff_dij(const mcdi_bjob *jb, const mcdi_kblock *b,
+                              size_t k0, size_t nv, const size_t n,
+                              const size_t L)
+{
+    const size_t K = jb->K;
+    double *restrict wk = b->wk;
+    int bad = 0;
+    size_t i, j, l;
+    for (i = 1; i < n; i++)
+        for (j = 0; j < i; j++) {
+            double *q = b->tri + (i * (i + 1) / 2 + j) * L;
+            const double *up = jb->Dij + (j * n + i) * K + k0;
+            const double *lo = jb->Dij + (i * n + j) * K + k0;
+            load_row(q, up, nv, L);
+            load_row(wk, lo, nv, L);
+            LANES_BAD {
+                double a = q[l], bb = wk[l], m = a > bb ? a : bb;
+                bad |= !((a >= DBL_MIN) & (a <= DBL_MAX));
+                bad |= !((bb >= DBL_MIN) & (bb <= DBL_MAX));
+                bad |= !(fabs(a - bb) <= 1e-12 * m);
+                q[l] = 1.0 / a;
+            }
+        }
+    return bad;
+}
+
+/* Temperature factors of a mixture call: P / T^1.75 (FSG and user pairs),
+ * P / T^1.5 and, where the mixture has a fit, the Chebyshev polynomials
+ * of ln T. Returns whether every lane lies inside the fit's range. */
+KINLINE int stage_temperature(const mcd_mixture *mx, const mcdi_kblock *b,
+                              int any_lj, const size_t L)
+{
+    const double *restrict Tl = b->T, *restrict Pl = b->P;
+    double *restrict f175 = b->f175, *restrict f15 = b->f15;
+    double *restrict infit = b->infit, *restrict cheb = b->cheb;
+    int all_fit = 1;
+    size_t k, l;
+    LANES {
+        double sq = sqrt(Tl[l]), qq = sqrt(sq);
+        f175[l] = Pl[l] / (Tl[l] * sq * qq); /* P / T^1.75 */
+        f15[l] = Pl[l] / (Tl[l] * sq);       /* P / T^1.5 */
+    }
+    if (any_lj && mx->fit_on) {
+        LANES {
+            double u = (log(Tl[l]) - mx->fit_lmid) / mx->fit_lhalf;
+            infit[l] = (Tl[l] >= mx->fit_Tmin && Tl[l] <= mx->fit_Tmax);
+            if (!(infit[l] > 0.0)) {
+                all_fit = 0;
+                u = 0.0;
+            }
+            cheb[l] = 1.0;
+            cheb[L + l] = u;
+        }
+        for (k = 2; k <= MCDI_FIT_MAXDEG; k++)
+            LANES
+                cheb[k * L + l] = 2.0 * cheb[L + l] * cheb[(k - 1) * L + l] -
+                                  cheb[(k - 2) * L + l];
+    } else {
+        all_fit = 0;
+        LANES
+            infit[l] = 0.0;
+    }
+    return all_fit;
+}
+
+/* Inverse binary diffusivity of pair ij of a mixture at the lanes' T and
+ * P into q: power law, the fit, or the exact collision integral. */
+KINLINE void invdiff_pair(const mcd_mixture *mx, const mcdi_kblock *b,
+                          size_t ij, int all_fit, double *restrict q,
+                          const size_t L)
+{
+    const double *restrict Tl = b->T, *restrict Pl = b->P;
+    const double *restrict infit = b->infit, *restrict cheb = b->cheb;
+    int m = mx->method[ij];
+    size_t k, l;
+    if (m == MCD_METHOD_FSG || m == MCD_METHOD_USER) {
+        const double ic = mx->icoef[ij], *restrict f175 = b->f175;
+        LANES
+            q[l] = f175[l] * ic;
+        return;
+    }
+    {
+        unsigned deg = (mx->fit_on && mx->fit_deg != NULL) ? mx->fit_deg[ij]
+                                                           : 0u;
+        if (deg > 0) {
+            const double *fq = mx->fit_q + ij * (MCDI_FIT_MAXDEG + 1);
+            const double *restrict f15 = b->f15;
+            LANES
+                q[l] = fq[0];
+            for (k = 1; k <= deg; k++)
+                LANES
+                    q[l] += fq[k] * cheb[k * L + l];
+            LANES
+                q[l] *= f15[l];
+        }
+        if (deg == 0 || !all_fit) {
+            double e = mx->eps[ij], cf = mx->coef[ij];
+            LANES
+                if (deg == 0 || !(infit[l] > 0.0))
+                    q[l] = (Pl[l] * omega_exact(Tl[l] / e)) /
+                           (cf * Tl[l] * sqrt(Tl[l]));
+        }
+    }
+}
+
+/* Inverse binary diffusivities of a mixture call (none with the shared
+ * power-law coefficients, pl: iter_product_c reads those directly). */
+KINLINE void stage_invdiff_mixture(const mcdi_bjob *jb, const mcdi_kblock *b,
+                                   int pl, const size_t n, const size_t L)
+{
+    const mcd_mixture *mx = jb->mix;
+    const int all_fit = stage_temperature(mx, b, jb->mix_has_omega, L);
+    size_t i, j;
+    for (i = 1; i < n && !pl; i++)
+        for (j = 0; j < i; j++)
+            invdiff_pair(mx, b, i * n + j, all_fit,
+                         b->tri + (i * (i + 1) / 2 + j) * L, L);
+}
+
+/* Blanc sums S_i = sum_{j != i} x_j / Đ_ij and num_i = sum_{j != i} x_j. */
+KINLINE void stage_blanc(const mcdi_bjob *jb, const mcdi_kblock *b, int pl,
+                         const size_t n, const size_t L)
+{
+    double *restrict S = b->S, *restrict num = b->num;
+    const double *restrict x = b->x;
+    size_t i, j, l;
+    if (pl) {
+        /* S_i = f sum_j C_ij x_j (C_ii = 0) */
+        const mcdi_vd *xv = (const mcdi_vd *)x, f = *(const mcdi_vd *)b->f175;
+        const double *C = jb->mix->icoef;
+        for (i = 0; i < n; i++) {
+            mcdi_vd as = {0.0}, an = {0.0};
+            for (j = 0; j < n; j++)
+                as += C[i * n + j] * xv[j];
+            for (j = 0; j < i; j++)
+                an += xv[j];
+            for (j = i + 1; j < n; j++)
+                an += xv[j];
+            ((mcdi_vd *)S)[i] = f * as;
+            ((mcdi_vd *)num)[i] = an;
+        }
+    } else if (L == MCDI_VLANES) {
+        /* row by row, accumulated in registers */
+        const mcdi_vd *xv = (const mcdi_vd *)x, *qv = (const mcdi_vd *)b->tri;
+        for (i = 0; i < n; i++) {
+            mcdi_vd as = {0.0}, an = {0.0};
+            for (j = 0; j < i; j++) {
+                as += xv[j] * qv[i * (i + 1) / 2 + j];
+                an += xv[j];
+            }
+            for (j = i + 1; j < n; j++) {
+                as += xv[j] * qv[j * (j + 1) / 2 + i];
+                an += xv[j];
+            }
+            ((mcdi_vd *)S)[i] = as;
+            ((mcdi_vd *)num)[i] = an;
+        }
+    } else {
+        for (i = 0; i < n * L; i++)
+            S[i] = num[i] = 0.0;
+        for (i = 1; i < n; i++)
+            for (j = 0; j < i; j++) {
+                const double *q = b->tri + (i * (i + 1) / 2 + j) * L;
+                LANES {
+                    S[i * L + l] += x[j * L + l] * q[l];
+                    S[j * L + l] += x[i * L + l] * q[l];
+                    num[i * L + l] += x[j * L + l];
+                    num[j * L + l] += x[i * L + l];
+                }
+            }
+    }
+}
+
+/* Mixture-averaged fluxes: J*_i = -c D_im d_i, D_im = num_i / S_i (the
+ * equal-weight harmonic mean for a pure species, as mixavg.c), then
+ * J = J* - x sum J* (the zero-sum clean-up of body() runs it again). */
+KINLINE void stage_mixavg(const mcdi_kblock *b, const size_t n,
+                          const size_t L, const size_t nd)
+{
+    const double *restrict S = b->S, *restrict num = b->num;
+    const double *restrict x = b->x, *restrict c = b->c, *restrict d = b->d;
+    double *restrict minv = b->minv, *restrict wk = b->wk, *restrict J = b->J;
+    int pure = 0;
+    size_t i, j, dd, l;
+    for (i = 0; i < n * L; i++)
+        pure |= !(S[i] > 0.0);
+    if (pure) {
+        for (i = 0; i < n * L; i++)
+            minv[i] = 0.0;
+        for (i = 1; i < n; i++)
+            for (j = 0; j < i; j++) {
+                const double *q = b->tri + (i * (i + 1) / 2 + j) * L;
+                LANES {
+                    minv[i * L + l] += q[l];
+                    minv[j * L + l] += q[l];
+                }
+            }
+    }
+    for (i = 0; i < n; i++)
+        LANES {
+            double Sl = S[i * L + l];
+            double Dim = Sl > 0.0 ? num[i * L + l] / Sl
+                                  : (double)(n - 1) / minv[i * L + l];
+            wk[i * L + l] = -Dim;
+        }
+    for (dd = 0; dd < nd; dd++) {
+        double *restrict sj = b->col;
+        LANES
+            sj[l] = 0.0;
+        for (i = 0; i < n; i++)
+            LANES {
+                /* c last: c D_im underflows where the flux does not
+                 * (c = 1e-300, Đ = 1e-30: test_edge_cases) */
+                double q = c[l] * (wk[i * L + l] * d[(i * nd + dd) * L + l]);
+                J[(i * nd + dd) * L + l] = q;
+                sj[l] += q;
+            }
+        for (i = 0; i < n; i++)
+            LANES
+                J[(i * nd + dd) * L + l] -= x[i * L + l] * sj[l];
+    }
+}
+
+/* s = sqrt(x); trace fluxes t_i = J_i / c = -d_i / S_i for x_i = 0 (else
+ * 0), and their coupling to the species present moved to the right-hand
+ * side: d_k -= x_k sum_t t_t / Đ_kt. Returns whether a lane has a trace
+ * species. */
+KINLINE int stage_trace(const mcdi_bjob *jb, const mcdi_kblock *b, int pl,
+                        const size_t n, const size_t L, const size_t nd)
+{
+    const double *restrict S = b->S, *restrict x = b->x;
+    double *restrict s = b->s, *restrict t = b->t, *restrict d = b->d;
+    int ntr = 0;
+    size_t i, j, dd, l;
+    for (i = 0; i < n * L; i++) {
+        s[i] = sqrt(x[i]);
+        ntr |= !(x[i] > 0.0);
+    }
+    for (i = 0; i < n * nd * L; i++)
+        t[i] = 0.0;
+    if (!ntr)
+        return 0;
+    for (i = 0; i < n; i++)
+        for (dd = 0; dd < nd; dd++)
+            LANES {
+                double Sl = S[i * L + l];
+                double q = -d[(i * nd + dd) * L + l] / (Sl > 0.0 ? Sl : 1.0);
+                t[(i * nd + dd) * L + l] = x[i * L + l] > 0.0 ? 0.0 : q;
+            }
+    if (pl)
+        for (i = 1; i < n; i++)
+            for (j = 0; j < i; j++) {
+                double *q = b->tri + (i * (i + 1) / 2 + j) * L;
+                const double ic = jb->mix->icoef[i * n + j];
+                const double *restrict f175 = b->f175;
+                LANES
+                    q[l] = f175[l] * ic;
+            }
+    for (i = 1; i < n; i++)
+        for (j = 0; j < i; j++) {
+            const double *q = b->tri + (i * (i + 1) / 2 + j) * L;
+            for (dd = 0; dd < nd; dd++)
+                LANES {
+                    d[(i * nd + dd) * L + l] -=
+                        x[i * L + l] * t[(j * nd + dd) * L + l] * q[l];
+                    d[(j * nd + dd) * L + l] -=
+                        x[j * L + l] * t[(i * nd + dd) * L + l] * q[l];
+                }
+        }
+    return 1;
+}
+
+/* Right-hand side b_i = -d_i / s_i (0 for trace species) into r; wk keeps
+ * -1 / s_i (the iteration recomputes b from it). */
+KINLINE void stage_rhs(const mcdi_kblock *b, const size_t n, const size_t L,
+                       const size_t nd)
+{
+    const double *restrict s = b->s, *restrict d = b->d;
+    double *restrict wk = b->wk, *restrict r = b->r;
+    size_t i, dd, l;
+    for (i = 0; i < n; i++)
+        LANES
+            wk[i * L + l] = s[i * L + l] > 0.0 ? -1.0 / s[i * L + l] : 0.0;
+    for (i = 0; i < n; i++)
+        for (dd = 0; dd < nd; dd++)
+            LANES
+                r[(i * nd + dd) * L + l] =
+                    d[(i * nd + dd) * L + l] * wk[i * L + l];
+}
+
+/* Molar fluxes from the solution U: J_i = c (s_i U_i + t_i - x_i sum_t t_t). */
+KINLINE void stage_compose(const mcdi_kblock *b, const size_t n,
+                           const size_t L, const size_t nd)
+{
+    const double *restrict s = b->s, *restrict x = b->x, *restrict r = b->r;
+    const double *restrict t = b->t, *restrict c = b->c;
+    double *restrict J = b->J, *restrict st = b->col;
+    size_t i, dd, l;
+    for (dd = 0; dd < nd; dd++) {
+        LANES
+            st[l] = 0.0;
+        for (i = 0; i < n; i++)
+            LANES
+                st[l] += t[(i * nd + dd) * L + l];
+        for (i = 0; i < n; i++)
+            LANES {
+                size_t e = (i * nd + dd) * L + l;
+                J[e] = c[l] * (s[i * L + l] * r[e] + t[e] - x[i * L + l] * st[l]);
+            }
+    }
+}
+
+/* Zero-sum clean-up J_i -= y_i sum_k J_k with weights y (x for molar
+ * fluxes: trace species stay exact; w for mass fluxes). */
+KINLINE void zero_sum(const mcdi_kblock *b, const double *restrict y,
+                      const size_t n, const size_t L, const size_t nd)
+{
+    double *restrict J = b->J, *restrict rs = b->col;
+    size_t i, dd, l;
+    for (dd = 0; dd < nd; dd++) {
+        LANES
+            rs[l] = 0.0;
+        for (i = 0; i < n; i++)
+            LANES
+                rs[l] += J[(i * nd + dd) * L + l];
+        for (i = 0; i < n; i++)
+            LANES
+                J[(i * nd + dd) * L + l] -= y[i * L + l] * rs[l];
+    }
+}
+
+/* Mass fluxes j_i = M_i J_i - w_i sum_k M_k J_k, the residual removed with
+ * w; fails (EDOM in res) where the terms cancelled, as
+ * mcdi_mass_zero_sum_kept (non-finite lanes are left to stage_store).
+ * Returns 0 on failure. */
+KINLINE int stage_mass(const mcdi_bjob *jb, const mcdi_kblock *b, size_t nv,
+                       mcdi_bres *res, const size_t n, const size_t L,
+                       const size_t nd)
+{
+    const double *M = jb->M;
+    const double *restrict w = b->w;
+    double *restrict J = b->J, *restrict sm = b->col, *restrict rs = b->col2;
+    size_t i, dd, l;
+    for (dd = 0; dd < nd; dd++) {
+        LANES
+            sm[l] = rs[l] = 0.0;
+        for (i = 0; i < n; i++)
+            LANES
+                sm[l] += M[i] * J[(i * nd + dd) * L + l];
+        for (i = 0; i < n; i++)
+            LANES {
+                size_t e = (i * nd + dd) * L + l;
+                J[e] = M[i] * J[e] - w[i * L + l] * sm[l];
+                rs[l] += J[e];
+            }
+        for (i = 0; i < n; i++)
+            LANES
+                J[(i * nd + dd) * L + l] -= w[i * L + l] * rs[l];
+        LANES
+            sm[l] = rs[l] = 0.0;
+        for (i = 0; i < n; i++)
+            LANES {
+                const double q = J[(i * nd + dd) * L + l];
+                sm[l] += q;
+                rs[l] += fabs(q);
+            }
+        for (l = 0; l < nv; l++)
+            if ((rs[l] <= DBL_MAX) &&
+                !(fabs(sm[l]) <= MCDI_MASS_SUM_TOL * rs[l] + 1e-300)) {
+                res->st = MCD_EDOM;
+                res->lane = l;
+                res->what = "result: mass fluxes lost to cancellation "
+                            "(the molar masses are too far apart for "
+                            "double precision)";
+                return 0;
+            }
+    }
+    return 1;
+}
+
+/* Write the block's fluxes, never non-finite ones (EDOM in res). */
+KINLINE void stage_store(const mcdi_bjob *jb, const mcdi_kblock *b,
+                         size_t k0, size_t nv, mcdi_bres *res, const size_t n,
+                         const size_t L, const size_t nd)
+{
+    const double *restrict J = b->J;
+    const size_t K = jb->K;
+    int bad = 0;
+    size_t i, l;
+#if defined(_OPENMP) || defined(MCDI_OMP_SIMD)
+#pragma omp simd reduction(|:bad)
+#endif
+    for (i = 0; i < n * nd * L; i++)
+        bad |= !(fabs(J[i]) <= DBL_MAX);
+    if (bad) {
+        for (l = 0; l < nv; l++)
+            for (i = 0; i < n * nd; i++)
+                if (!(fabs(J[i * L + l]) <= DBL_MAX)) {
+                    res->st = MCD_EDOM;
+                    res->lane = l;
+                    res->what = "result: flux not finite (inputs outside the "
+                                "representable range)";
+                    return;
+                }
+    }
+    for (i = 0; i < n * nd; i++) {
+        double *restrict o = jb->out + i * K + k0;
+        const double *restrict Ji = J + i * L;
+        if (nv == L) {
+            LANES /* full block: vector stores */
+                o[l] = Ji[l];
+        } else {
+            for (l = 0; l < nv; l++)
+                o[l] = Ji[l];
+        }
+    }
+}
+
+#endif
