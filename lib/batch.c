@@ -144,34 +144,17 @@ static mcd_status check_common(mcd_workspace *ws, mcd_model model, size_t n,
                                const double *grad, mcd_basis flux_basis,
                                const double *out)
 {
+    mcd_status st;
     (void)n_cells;
-    if (n < 1)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument n_species: 0 is not >= 1");
-    if (n > ws->cap)
-        return mcdi_ws_fail(ws, MCD_EBADLEN,
-                            "argument n_species: %zu exceeds the workspace "
-                            "capacity %zu", n, ws->cap);
-    if (n_dim < 1 || n_dim > MCD_MAX_DIM)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument n_dim: %zu is not in 1..%d",
-                            n_dim, MCD_MAX_DIM);
-    if (model != MCD_MODEL_MAXWELL_STEFAN &&
-        model != MCD_MODEL_MIXTURE_AVERAGED && model != MCD_MODEL_ITERATIVE)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument model: unknown value %d",
-                            (int)model);
-    if (comp_basis != MCD_BASIS_MOLE && comp_basis != MCD_BASIS_MASS)
-        return mcdi_ws_fail(ws, MCD_EINVAL,
-                            "argument comp_basis: unknown value %d",
-                            (int)comp_basis);
-    if (flux_basis != MCD_BASIS_MOLE && flux_basis != MCD_BASIS_MASS)
-        return mcdi_ws_fail(ws, MCD_EINVAL,
-                            "argument flux_basis: unknown value %d",
-                            (int)flux_basis);
-    if (comp == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument comp: NULL");
-    if (grad == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument grad: NULL");
-    if (out == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument out_flux: NULL");
+    if ((st = mcdi_check_species(ws, n, 1, 0, "n_species")) != MCD_OK ||
+        (st = mcdi_check_dim(ws, n_dim)) != MCD_OK ||
+        (st = mcdi_check_model(ws, model, 1)) != MCD_OK ||
+        (st = mcdi_check_basis(ws, comp_basis, "comp_basis")) != MCD_OK ||
+        (st = mcdi_check_basis(ws, flux_basis, "flux_basis")) != MCD_OK ||
+        (st = mcdi_check_ptr(ws, comp, "comp")) != MCD_OK ||
+        (st = mcdi_check_ptr(ws, grad, "grad")) != MCD_OK ||
+        (st = mcdi_check_ptr(ws, out, "out_flux")) != MCD_OK)
+        return st;
     return MCD_OK;
 }
 
@@ -279,7 +262,7 @@ MCD_API mcd_status mcd_flux_batch_dij(mcd_workspace *ws, mcd_model model,
         return mcdi_ws_fail(ws, MCD_EINVAL, "argument c: NULL");
     need_M = comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
              grad_lnP != NULL;
-    if (need_M && (st = mcdi_flux_check_M(ws, n_species, M)) != MCD_OK)
+    if (need_M && (st = mcdi_check_M(ws, n_species, M)) != MCD_OK)
         return st;
     job_init(&jb, ws, model, n_species, n_cells, n_dim, comp_basis,
              flux_basis);

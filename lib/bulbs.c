@@ -73,27 +73,28 @@ static mcd_status bulbs_check(mcd_workspace *ws, size_t n, const double *Dij,
     mcd_status st;
     size_t k;
     if ((st = mcdi_tf_check_ws_n(ws, n)) != MCD_OK ||
-        (st = mcdi_flux_check_dij(ws, n, Dij)) != MCD_OK ||
-        (st = mcdi_tf_check_pos(ws, c, "c")) != MCD_OK ||
-        (st = mcdi_tf_check_pos(ws, V1, "V1")) != MCD_OK ||
-        (st = mcdi_tf_check_pos(ws, V2, "V2")) != MCD_OK ||
-        (st = mcdi_tf_check_pos(ws, A, "A")) != MCD_OK ||
-        (st = mcdi_tf_check_pos(ws, L, "L")) != MCD_OK ||
+        (st = mcdi_check_dij(ws, n, Dij)) != MCD_OK ||
+        (st = mcdi_check_positive(ws, c, "c")) != MCD_OK ||
+        (st = mcdi_check_positive(ws, V1, "V1")) != MCD_OK ||
+        (st = mcdi_check_positive(ws, V2, "V2")) != MCD_OK ||
+        (st = mcdi_check_positive(ws, A, "A")) != MCD_OK ||
+        (st = mcdi_check_positive(ws, L, "L")) != MCD_OK ||
         (st = mcdi_tf_check_comp(ws, n, x1_0, "x1_0", x1n)) != MCD_OK ||
         (st = mcdi_tf_check_comp(ws, n, x2_0, "x2_0", x2n)) != MCD_OK)
         return st;
     if (n_times == 0)
         return MCD_OK;
     if (t == NULL || out_x1 == NULL || out_x2 == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "t, out_x1 or out_x2 is NULL");
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL",
+                            t == NULL ? "t" : out_x1 == NULL ? "out_x1" : "out_x2");
     for (k = 0; k < n_times; k++) {
         if (!mcdi_finite(t[k]))
-            return mcdi_ws_fail(ws, MCD_EINVAL, "t[%zu] is not finite", k);
+            return mcdi_ws_fail(ws, MCD_EINVAL, "argument t: entry %zu is not finite", k);
         if (!(t[k] >= 0))
-            return mcdi_ws_fail(ws, MCD_EDOM, "t[%zu] = %g is negative", k,
+            return mcdi_ws_fail(ws, MCD_EDOM, "argument t: entry %zu = %g is negative", k,
                                 t[k]);
         if (monotone && k > 0 && !(t[k] >= t[k - 1]))
-            return mcdi_ws_fail(ws, MCD_EDOM, "t[%zu] < t[%zu]", k, k - 1);
+            return mcdi_ws_fail(ws, MCD_EDOM, "argument t: entry %zu is below entry %zu (not ascending)", k, k - 1);
     }
     return MCD_OK;
 }
@@ -419,9 +420,9 @@ MCD_API mcd_status mcd_bulbs_integrate(mcd_workspace *ws, size_t n,
     if (st != MCD_OK)
         return st;
     if (!mcdi_finite(rel_tol))
-        return mcdi_ws_fail(ws, MCD_EINVAL, "rel_tol is not finite");
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument rel_tol: not finite");
     if (!(rel_tol >= 1e-12 && rel_tol <= 1e-2))
-        return mcdi_ws_fail(ws, MCD_EDOM, "rel_tol = %g not in [1e-12, 1e-2]",
+        return mcdi_ws_fail(ws, MCD_EDOM, "argument rel_tol: %g is not in [1e-12, 1e-2]",
                             rel_tol);
     if (n_times == 0)
         return MCD_OK;

@@ -132,19 +132,10 @@ MCD_API mcd_status mcd_fick_matrix(mcd_workspace *ws, size_t n_species,
     if (ws == NULL)
         return MCD_EINVAL;
     mcdi_ws_clear_error(ws);
-    if (n < 1)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument n_species: 0 is not >= 1");
-    if (n > ws->cap)
-        return mcdi_ws_fail(ws, MCD_EBADLEN,
-                            "argument n_species: %zu exceeds the workspace "
-                            "capacity %zu", n, ws->cap);
-    if (comp_basis != MCD_BASIS_MOLE && comp_basis != MCD_BASIS_MASS)
-        return mcdi_ws_fail(ws, MCD_EINVAL,
-                            "argument comp_basis: unknown value %d",
-                            (int)comp_basis);
-    if (basis != MCD_BASIS_MOLE && basis != MCD_BASIS_MASS)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument basis: unknown value %d",
-                            (int)basis);
+    if ((st = mcdi_check_species(ws, n, 1, 0, "n_species")) != MCD_OK ||
+        (st = mcdi_check_basis(ws, comp_basis, "comp_basis")) != MCD_OK ||
+        (st = mcdi_check_basis(ws, basis, "basis")) != MCD_OK)
+        return st;
     if (dependent != MCD_DEPENDENT_AUTO && dependent >= n)
         return mcdi_ws_fail(ws, MCD_EINVAL,
                             "argument dependent: %zu is not a species index "
@@ -152,14 +143,14 @@ MCD_API mcd_status mcd_fick_matrix(mcd_workspace *ws, size_t n_species,
     if (n > 1 && out_D == NULL)
         return mcdi_ws_fail(ws, MCD_EINVAL, "argument out_D: NULL");
     need_M = comp_basis == MCD_BASIS_MASS || basis == MCD_BASIS_MASS;
-    if (need_M && (st = mcdi_flux_check_M(ws, n, M)) != MCD_OK)
+    if (need_M && (st = mcdi_check_M(ws, n, M)) != MCD_OK)
         return st;
-    if ((st = mcdi_flux_check_dij(ws, n, Dij)) != MCD_OK)
+    if ((st = mcdi_check_dij(ws, n, Dij)) != MCD_OK)
         return st;
-    if ((st = mcdi_flux_check_comp(ws, n, comp, "comp")) != MCD_OK)
+    if ((st = mcdi_check_comp(ws, n, comp, "comp")) != MCD_OK)
         return st;
     if (Gamma != NULL &&
-        (st = mcdi_flux_check_finite(ws, n, n, Gamma, "Gamma")) != MCD_OK)
+        (st = mcdi_check_finite(ws, n, n, Gamma, "Gamma")) != MCD_OK)
         return st;
 
     x = ws->core_vec[0];

@@ -93,24 +93,13 @@ _Static_assert(sizeof(lapack_int) == sizeof(int),
 /* Validation helpers                                                  */
 /* ------------------------------------------------------------------ */
 
-mcd_status mcdi_tf_check_pos(mcd_workspace *ws, double v, const char *name)
-{
-    if (!mcdi_finite(v))
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s is not finite",
-                            name);
-    if (!(v > 0))
-        return mcdi_ws_fail(ws, MCD_EDOM, "argument %s: %g is not > 0", name,
-                            v);
-    return MCD_OK;
-}
-
 mcd_status mcdi_tf_check_comp(mcd_workspace *ws, size_t n, const double *x,
                               const char *name, double *out)
 {
     double sum;
     mcd_status st;
     if (x == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s is NULL", name);
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL", name);
     st = mcdi_comp_check(n, x, &sum);
     if (st != MCD_OK)
         return mcdi_ws_fail(ws, st,
@@ -549,7 +538,7 @@ mcd_status mcdi_film_core(mcd_workspace *ws, size_t n, const double *Dij,
     if (kind == MCD_BOOT_STAGNANT) {
         if (!(x0[species] > 0) || !(xL[species] > 0))
             return mcdi_ws_fail(ws, MCD_EDOM,
-                                "stagnant species %zu must be present at "
+                                "argument species: stagnant species %zu must be present at "
                                 "both ends (x0 = %g, xL = %g)",
                                 species, x0[species], xL[species]);
     } else if (kind == MCD_BOOT_WEIGHTS) {
@@ -734,14 +723,7 @@ mcd_status mcdi_tf_check_ws_n(mcd_workspace *ws, size_t n)
     if (ws == NULL)
         return MCD_EINVAL;
     mcdi_ws_clear_error(ws);
-    if (n < 2 || n > MCD_MAX_SPECIES)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "n = %zu is not in 2..%d", n,
-                            MCD_MAX_SPECIES);
-    if (n > ws->cap)
-        return mcdi_ws_fail(ws, MCD_EBADLEN,
-                            "n = %zu exceeds the workspace capacity %zu", n,
-                            ws->cap);
-    return MCD_OK;
+    return mcdi_check_species(ws, n, 2, 1, "n");
 }
 
 MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n,
@@ -762,13 +744,13 @@ MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n,
     if (st != MCD_OK)
         return st;
     if (out_N == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument out_N is NULL");
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument out_N: NULL");
     if (method != MCD_FILM_EXACT && method != MCD_FILM_LINEARIZED)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "unknown film method %d",
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument method: unknown value %d",
                             (int)method);
-    if ((st = mcdi_flux_check_dij(ws, n, Dij)) != MCD_OK ||
-        (st = mcdi_tf_check_pos(ws, c, "c")) != MCD_OK ||
-        (st = mcdi_tf_check_pos(ws, L, "L")) != MCD_OK)
+    if ((st = mcdi_check_dij(ws, n, Dij)) != MCD_OK ||
+        (st = mcdi_check_positive(ws, c, "c")) != MCD_OK ||
+        (st = mcdi_check_positive(ws, L, "L")) != MCD_OK)
         return st;
     x0n = mcdi_ws_aux_vec(ws, 3);
     xLn = x0n + ws->cap;
@@ -783,7 +765,7 @@ MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n,
     case MCD_BOOT_STAGNANT:
         if (species >= n)
             return mcdi_ws_fail(ws, MCD_EINVAL,
-                                "species %zu out of range", species);
+                                "argument species: %zu is not a species index (0..%zu)", species, n - 1);
         break;
     case MCD_BOOT_TOTAL:
         if (values == NULL || !mcdi_finite(values[0]))
@@ -795,17 +777,17 @@ MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n,
     case MCD_BOOT_RATIOS: {
         double sum = 0.0;
         if (values == NULL)
-            return mcdi_ws_fail(ws, MCD_EINVAL, "values is NULL");
+            return mcdi_ws_fail(ws, MCD_EINVAL, "argument values: NULL");
         for (i = 0; i < n; i++) {
             if (!mcdi_finite(values[i]))
                 return mcdi_ws_fail(ws, MCD_EINVAL,
-                                    "values[%zu] is not finite", i);
+                                    "argument values: entry %zu is not finite", i);
             sum += values[i];
         }
         if (kind == MCD_BOOT_RATIOS) {
             if (species >= n)
                 return mcdi_ws_fail(ws, MCD_EINVAL,
-                                    "species %zu out of range", species);
+                                    "argument species: %zu is not a species index (0..%zu)", species, n - 1);
             if (!(fabs(sum - 1.0) <= MCD_SUM_TOL))
                 return mcdi_ws_fail(ws, MCD_EDOM,
                                     "RATIOS: z sums to %g, not 1", sum);
@@ -818,7 +800,7 @@ MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n,
         break;
     }
     default:
-        return mcdi_ws_fail(ws, MCD_EINVAL, "unknown bootstrap %d",
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument kind: unknown value %d",
                             (int)kind);
     }
     st = mcdi_film_core(ws, n, Dij, c, L, x0n, xLn, kind, species, values,
@@ -847,27 +829,27 @@ MCD_API mcd_status mcd_film_profile(mcd_workspace *ws, size_t n,
     st = mcdi_tf_check_ws_n(ws, n);
     if (st != MCD_OK)
         return st;
-    if ((st = mcdi_flux_check_dij(ws, n, Dij)) != MCD_OK ||
-        (st = mcdi_tf_check_pos(ws, c, "c")) != MCD_OK ||
-        (st = mcdi_tf_check_pos(ws, L, "L")) != MCD_OK)
+    if ((st = mcdi_check_dij(ws, n, Dij)) != MCD_OK ||
+        (st = mcdi_check_positive(ws, c, "c")) != MCD_OK ||
+        (st = mcdi_check_positive(ws, L, "L")) != MCD_OK)
         return st;
     x0n = mcdi_ws_aux_vec(ws, 3);
     if ((st = mcdi_tf_check_comp(ws, n, x0, "x0", x0n)) != MCD_OK)
         return st;
     if (N == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument N is NULL");
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument N: NULL");
     for (i = 0; i < n; i++)
         if (!mcdi_finite(N[i]))
-            return mcdi_ws_fail(ws, MCD_EINVAL, "N[%zu] is not finite", i);
+            return mcdi_ws_fail(ws, MCD_EINVAL, "argument N: entry %zu is not finite", i);
     if (n_points == 0)
         return MCD_OK;
     if (z == NULL || out_x == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "z or out_x is NULL");
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL", z == NULL ? "z" : "out_x");
     for (p = 0; p < n_points; p++) {
         if (!mcdi_finite(z[p]))
-            return mcdi_ws_fail(ws, MCD_EINVAL, "z[%zu] is not finite", p);
+            return mcdi_ws_fail(ws, MCD_EINVAL, "argument z: entry %zu is not finite", p);
         if (!(z[p] >= 0 && z[p] <= L))
-            return mcdi_ws_fail(ws, MCD_EDOM, "z[%zu] = %g is not in [0, L]",
+            return mcdi_ws_fail(ws, MCD_EDOM, "argument z: entry %zu = %g is not in [0, L]",
                                 p, z[p]);
     }
     /* rate factor ||(L/c) A||_1 bounded: exp stays finite below */

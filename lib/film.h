@@ -7,17 +7,13 @@
 #include <stddef.h>
 #include "mcdiff.h"
 
-/* Binary-diffusivity matrices are checked by the flux core's
- * mcdi_flux_check_dij (flux_core.h), the same rules and messages as the
- * flux calls. */
+/* Arguments are checked with checks.h (the same rules and messages as the
+ * flux calls); the two helpers below add what only this layer needs. */
 
 /* Start of every transfer call: ws not NULL (EINVAL, no message), its
  * error cleared, n in 2..MCD_MAX_SPECIES (EINVAL) and <= the workspace
  * capacity (EBADLEN). */
 mcd_status mcdi_tf_check_ws_n(mcd_workspace *ws, size_t n);
-
-/* Validate a scalar: finite (EINVAL) and > 0 (EDOM). */
-mcd_status mcdi_tf_check_pos(mcd_workspace *ws, double v, const char *name);
 
 /* Validate and renormalise a composition into out (length n). */
 mcd_status mcdi_tf_check_comp(mcd_workspace *ws, size_t n, const double *x,

@@ -1,38 +1,16 @@
 /* flux_core.h - private declarations shared by the flux core files
  * (maxwell_stefan.c, mixavg.c, fick.c). Never installed.
  *
- * Validators write a detail message into the workspace (mcdi_ws_fail) and
- * return the status; they write nothing else. Kernels do no validation.
+ * Argument checks live in checks.h (included here); kernels do no
+ * validation.
  */
 #ifndef MCD_FLUX_CORE_H
 #define MCD_FLUX_CORE_H
 
 #include <stddef.h>
 #include "mcdiff.h"
+#include "checks.h"
 
-/* Relative tolerance of the symmetry check of Dij (documented in the
- * header: relative difference <= 1e-12). */
-#define MCDI_DIJ_SYM_TOL 1e-12
-
-/* ---- validators (message into ws) ------------------------------------ */
-
-/* Binary diffusivities: off-diagonal entries finite (EINVAL), > 0 (EDOM),
- * not subnormal (>= DBL_MIN, EDOM), symmetric to MCDI_DIJ_SYM_TOL relative
- * (EDOM). Diagonal ignored. The one Dij check of the library: the
- * transfer layer (film.c, bulbs.c) uses it too. */
-mcd_status mcdi_flux_check_dij(mcd_workspace *ws, size_t n, const double *Dij);
-
-/* Fractions as mcd_comp_normalize (uses mcdi_comp_check). `name` is the
- * argument name used in the message. */
-mcd_status mcdi_flux_check_comp(mcd_workspace *ws, size_t n, const double *y,
-                                const char *name);
-
-/* Molar masses finite (EINVAL) and > 0 (EDOM). */
-mcd_status mcdi_flux_check_M(mcd_workspace *ws, size_t n, const double *M);
-
-/* rows x cols array all finite (EINVAL); NULL is EINVAL. */
-mcd_status mcdi_flux_check_finite(mcd_workspace *ws, size_t rows, size_t cols,
-                                  const double *p, const char *name);
 
 /* ---- kernels -------------------------------------------------------- */
 
@@ -54,14 +32,6 @@ size_t mcdi_flux_most_abundant(size_t n, const double *x);
  * the clean-up were lost to cancellation (see mcdi_mass_zero_sum_kept). */
 #define MCDI_MASS_SUM_TOL 1e-10
 
-/* Largest ratio of molar masses accepted where the bases are converted
- * (mass basis, pressure diffusion). Beyond it the conversion of mass- to
- * mole-fraction gradients cancels beyond double precision and the driving
- * forces no longer balance (found by fuzz_flux: 2.8e-306 next to 0.03
- * kg/mol gave molar fluxes whose sum was 3e48 of 2e55). Electrons next to
- * a polymer are about 1e9. mcdi_M_span_ok: every ratio within it. */
-#define MCDI_M_SPAN 1e12
-int mcdi_M_span_ok(size_t n, const double *M);
 int mcdi_mass_zero_sum_kept(size_t n, size_t nd, const double *F);
 
 mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,

@@ -71,159 +71,6 @@
 #include "flux_core.h"
 
 /* ------------------------------------------------------------------ */
-/* validators                                                           */
-/* ------------------------------------------------------------------ */
-
-/* One branch-free pass over the pairs: every off-diagonal entry finite and
- * a normal positive number (>= DBL_MIN), and the two triangles equal to
- * MCDI_DIJ_SYM_TOL. The caller's data
- * almost always pass; the loops below then only name the first failure. */
-static int dij_all_good(size_t n, const double *Dij)
-{
-    int good = 1;
-    size_t i, j;
-    for (i = 0; i < n; i++)
-        for (j = i + 1; j < n; j++) {
-            const double a = Dij[i * n + j], b = Dij[j * n + i];
-            const double big = a > b ? a : b;
-            good &= (a >= DBL_MIN) & (b >= DBL_MIN) & (big <= DBL_MAX) &
-                    (fabs(a - b) <= MCDI_DIJ_SYM_TOL * big);
-        }
-    return good;
-}
-
-mcd_status mcdi_flux_check_dij(mcd_workspace *ws, size_t n, const double *Dij)
-{
-    size_t i, j;
-    if (Dij == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument Dij: NULL");
-    if (dij_all_good(n, Dij))
-        return MCD_OK;
-    for (i = 0; i < n; i++)
-        for (j = 0; j < n; j++)
-            if (i != j && !mcdi_finite(Dij[i * n + j]))
-                return mcdi_ws_fail(ws, MCD_EINVAL,
-                                    "argument Dij: entry (%zu,%zu) is not finite",
-                                    i, j);
-    for (i = 0; i < n; i++)
-        for (j = 0; j < n; j++)
-            if (i != j && !(Dij[i * n + j] > 0.0))
-                return mcdi_ws_fail(ws, MCD_EDOM,
-                                    "argument Dij: entry (%zu,%zu) = %g is not > 0",
-                                    i, j, Dij[i * n + j]);
-    /* a positive subnormal Đ: 1/Đ overflows, and the single-state and
-     * batched paths failed differently on it (OK with -0 fluxes against
-     * ESING); both reject it here */
-    for (i = 0; i < n; i++)
-        for (j = 0; j < n; j++)
-            if (i != j && !(Dij[i * n + j] >= DBL_MIN))
-                return mcdi_ws_fail(ws, MCD_EDOM,
-                                    "argument Dij: entry (%zu,%zu) = %g is "
-                                    "subnormal (< DBL_MIN; 1/Dij overflows)",
-                                    i, j, Dij[i * n + j]);
-    for (i = 0; i < n; i++)
-        for (j = i + 1; j < n; j++) {
-            double a = Dij[i * n + j], b = Dij[j * n + i];
-            double big = a > b ? a : b;
-            if (!(fabs(a - b) <= MCDI_DIJ_SYM_TOL * big))
-                return mcdi_ws_fail(ws, MCD_EDOM,
-                                    "argument Dij: entries (%zu,%zu) = %.17g and "
-                                    "(%zu,%zu) = %.17g differ by more than 1e-12 "
-                                    "relative (not symmetric)",
-                                    i, j, a, j, i, b);
-        }
-    return MCD_OK;
-}
-
-mcd_status mcdi_flux_check_comp(mcd_workspace *ws, size_t n, const double *y,
-                                const char *name)
-{
-    double s = 0.0;
-    int good = 1;
-    size_t i;
-    mcd_status st;
-    if (y == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL", name);
-    /* one branch-free pass for the usual case (every entry finite and
-     * >= 0, sum within MCD_SUM_TOL of 1: the rules of mcdi_comp_check) */
-    for (i = 0; i < n; i++) {
-        good &= (y[i] >= 0.0) & (y[i] <= DBL_MAX);
-        s += y[i];
-    }
-    if (good & (fabs(s - 1.0) <= MCD_SUM_TOL))
-        return MCD_OK;
-    s = 0.0;
-    st = mcdi_comp_check(n, y, NULL);
-    if (st == MCD_OK)
-        return MCD_OK;
-    /* locate the offending entry for the message (same order of checks as
-     * mcdi_comp_check: non-finite first, then negative, then the sum) */
-    for (i = 0; i < n; i++)
-        if (!mcdi_finite(y[i]))
-            return mcdi_ws_fail(ws, st, "argument %s: entry %zu is not finite",
-                                name, i);
-    for (i = 0; i < n; i++)
-        if (!(y[i] >= 0.0))
-            return mcdi_ws_fail(ws, st, "argument %s: entry %zu = %g is negative",
-                                name, i, y[i]);
-    for (i = 0; i < n; i++)
-        s += y[i];
-    /* "1e-6" is MCD_SUM_TOL, written out for a readable message */
-    return mcdi_ws_fail(ws, st,
-                        "argument %s: sum %.10g differs from 1 by more than 1e-6",
-                        name, s);
-}
-
-mcd_status mcdi_flux_check_M(mcd_workspace *ws, size_t n, const double *M)
-{
-    size_t i;
-    mcd_status st;
-    if (M == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL,
-                            "argument M: NULL but needed (mass basis or "
-                            "pressure diffusion)");
-    st = mcdi_comp_check_M(n, M);
-    if (st == MCD_OK) {
-        if (mcdi_M_span_ok(n, M))
-            return MCD_OK;
-        return mcdi_ws_fail(ws, MCD_EDOM,
-                            "argument M: the molar masses span more than a "
-                            "factor 1e12 (the basis conversions would lose "
-                            "all precision)");
-    }
-    for (i = 0; i < n; i++)
-        if (!mcdi_finite(M[i]))
-            return mcdi_ws_fail(ws, st, "argument M: entry %zu is not finite", i);
-    for (i = 0; i < n; i++)
-        if (!(M[i] > 0.0))
-            return mcdi_ws_fail(ws, st, "argument M: entry %zu = %g is not > 0",
-                                i, M[i]);
-    return mcdi_ws_fail(ws, st, "argument M: invalid");
-}
-
-mcd_status mcdi_flux_check_finite(mcd_workspace *ws, size_t rows, size_t cols,
-                                  const double *p, const char *name)
-{
-    size_t i, k;
-    double acc = 0.0;
-    if (p == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL", name);
-    /* p * 0 is 0 for finite p and NaN for inf or NaN: one branch-free
-     * pass; the loop below only names the entry */
-    for (i = 0; i < rows * cols; i++)
-        acc += p[i] * 0.0;
-    if (acc == 0.0)
-        return MCD_OK;
-    for (i = 0; i < rows; i++)
-        for (k = 0; k < cols; k++)
-            if (!mcdi_finite(p[i * cols + k]))
-                return mcdi_ws_fail(ws, MCD_EINVAL,
-                                    "argument %s: entry (%zu,%zu) is not finite",
-                                    name, i, k);
-    return MCD_OK;
-}
-
-/* ------------------------------------------------------------------ */
 /* small kernels                                                        */
 /* ------------------------------------------------------------------ */
 
@@ -374,17 +221,6 @@ not_definite:
                         (size_t)pos[bad - 1]);
 }
 
-int mcdi_M_span_ok(size_t n, const double *M)
-{
-    double lo = M[0], hi = M[0];
-    size_t i;
-    for (i = 1; i < n; i++) {
-        lo = M[i] < lo ? M[i] : lo;
-        hi = M[i] > hi ? M[i] : hi;
-    }
-    return hi <= MCDI_M_SPAN * lo;
-}
-
 /* Whether the mass fluxes F (n x nd) still sum to zero after the
  * clean-up. j_i = M_i J_i - w_i sum_k M_k J_k cancels when the molar
  * masses span many decades (found by fuzz_flux: M = 1.3e-163 next to
@@ -432,29 +268,13 @@ MCD_API mcd_status mcd_flux_compute(mcd_workspace *ws, mcd_model model,
     mcdi_ws_clear_error(ws);
 
     /* ---- validate everything before writing anything ---- */
-    if (n < 1)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument n_species: 0 is not >= 1");
-    if (n > ws->cap)
-        return mcdi_ws_fail(ws, MCD_EBADLEN,
-                            "argument n_species: %zu exceeds the workspace "
-                            "capacity %zu", n, ws->cap);
-    if (nd < 1 || nd > MCD_MAX_DIM)
-        return mcdi_ws_fail(ws, MCD_EINVAL,
-                            "argument n_dim: %zu is not in 1..%d", nd,
-                            MCD_MAX_DIM);
-    if (model != MCD_MODEL_MAXWELL_STEFAN && model != MCD_MODEL_MIXTURE_AVERAGED)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument model: unknown value %d",
-                            (int)model);
-    if (comp_basis != MCD_BASIS_MOLE && comp_basis != MCD_BASIS_MASS)
-        return mcdi_ws_fail(ws, MCD_EINVAL,
-                            "argument comp_basis: unknown value %d",
-                            (int)comp_basis);
-    if (flux_basis != MCD_BASIS_MOLE && flux_basis != MCD_BASIS_MASS)
-        return mcdi_ws_fail(ws, MCD_EINVAL,
-                            "argument flux_basis: unknown value %d",
-                            (int)flux_basis);
-    if (out_flux == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument out_flux: NULL");
+    if ((st = mcdi_check_species(ws, n, 1, 0, "n_species")) != MCD_OK ||
+        (st = mcdi_check_dim(ws, nd)) != MCD_OK ||
+        (st = mcdi_check_model(ws, model, 0)) != MCD_OK ||
+        (st = mcdi_check_basis(ws, comp_basis, "comp_basis")) != MCD_OK ||
+        (st = mcdi_check_basis(ws, flux_basis, "flux_basis")) != MCD_OK ||
+        (st = mcdi_check_ptr(ws, out_flux, "out_flux")) != MCD_OK)
+        return st;
     if (!mcdi_finite(c))
         return mcdi_ws_fail(ws, MCD_EINVAL, "argument c: not finite");
     /* A subnormal c (< DBL_MIN) is rejected: the fluxes would underflow
@@ -464,20 +284,20 @@ MCD_API mcd_status mcd_flux_compute(mcd_workspace *ws, mcd_model model,
                             "argument c: %g is not a normal positive number", c);
     need_M = comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
              grad_lnP != NULL;
-    if (need_M && (st = mcdi_flux_check_M(ws, n, M)) != MCD_OK)
+    if (need_M && (st = mcdi_check_M(ws, n, M)) != MCD_OK)
         return st;
-    if ((st = mcdi_flux_check_dij(ws, n, Dij)) != MCD_OK)
+    if ((st = mcdi_check_dij(ws, n, Dij)) != MCD_OK)
         return st;
-    if ((st = mcdi_flux_check_comp(ws, n, comp, "comp")) != MCD_OK)
+    if ((st = mcdi_check_comp(ws, n, comp, "comp")) != MCD_OK)
         return st;
-    if ((st = mcdi_flux_check_finite(ws, n, nd, grad_comp, "grad_comp")) !=
+    if ((st = mcdi_check_finite(ws, n, nd, grad_comp, "grad_comp")) !=
         MCD_OK)
         return st;
     if (Gamma != NULL &&
-        (st = mcdi_flux_check_finite(ws, n, n, Gamma, "Gamma")) != MCD_OK)
+        (st = mcdi_check_finite(ws, n, n, Gamma, "Gamma")) != MCD_OK)
         return st;
     if (grad_lnP != NULL &&
-        (st = mcdi_flux_check_finite(ws, 1, nd, grad_lnP, "grad_lnP")) !=
+        (st = mcdi_check_finite(ws, 1, nd, grad_lnP, "grad_lnP")) !=
             MCD_OK)
         return st;
 

@@ -1,0 +1,68 @@
+/* checks.h - argument checks shared by every call that takes a workspace
+ * (checks.c). Never installed.
+ *
+ * Each check sets the status and the message together (mcdi_ws_fail):
+ * "argument <name>: <what>", with the entry's index. It writes nothing
+ * else.
+ */
+#ifndef MCD_CHECKS_H
+#define MCD_CHECKS_H
+
+#include <stddef.h>
+#include "mcdiff.h"
+
+/* Relative tolerance of the symmetry check of Dij (documented in the
+ * header: relative difference <= 1e-12). */
+#define MCDI_DIJ_SYM_TOL 1e-12
+
+/* p != NULL (EINVAL). */
+mcd_status mcdi_check_ptr(mcd_workspace *ws, const void *p, const char *name);
+
+/* A species count: lo..MCD_MAX_SPECIES (EINVAL; above MCD_MAX_SPECIES only
+ * with max_is_einval, as the transfer calls have always had it) and at
+ * most the workspace's capacity (EBADLEN). */
+mcd_status mcdi_check_species(mcd_workspace *ws, size_t n, size_t lo,
+                              int max_is_einval, const char *name);
+
+/* n_dim in 1..MCD_MAX_DIM (EINVAL). */
+mcd_status mcdi_check_dim(mcd_workspace *ws, size_t nd);
+
+/* A known mcd_basis value (EINVAL). */
+mcd_status mcdi_check_basis(mcd_workspace *ws, mcd_basis b, const char *name);
+
+/* MAXWELL_STEFAN or MIXTURE_AVERAGED, and ITERATIVE where iterative_ok
+ * (the batched calls) (EINVAL). */
+mcd_status mcdi_check_model(mcd_workspace *ws, mcd_model model,
+                            int iterative_ok);
+
+/* A finite (EINVAL) positive (EDOM) scalar. */
+mcd_status mcdi_check_positive(mcd_workspace *ws, double v, const char *name);
+
+/* Binary diffusivities: off-diagonal entries finite (EINVAL), > 0 (EDOM),
+ * not subnormal (>= DBL_MIN, EDOM), symmetric to MCDI_DIJ_SYM_TOL relative
+ * (EDOM). Diagonal ignored. The one Dij check of the library: the
+ * transfer layer (film.c, bulbs.c) uses it too. */
+mcd_status mcdi_check_dij(mcd_workspace *ws, size_t n, const double *Dij);
+
+/* Fractions as mcd_comp_normalize (uses mcdi_comp_check). `name` is the
+ * argument name used in the message. */
+mcd_status mcdi_check_comp(mcd_workspace *ws, size_t n, const double *y,
+                                const char *name);
+
+/* Molar masses finite (EINVAL) and > 0 (EDOM). */
+mcd_status mcdi_check_M(mcd_workspace *ws, size_t n, const double *M);
+
+/* rows x cols array all finite (EINVAL); NULL is EINVAL. */
+mcd_status mcdi_check_finite(mcd_workspace *ws, size_t rows, size_t cols,
+                                  const double *p, const char *name);
+
+/* Largest ratio of molar masses accepted where the bases are converted
+ * (mass basis, pressure diffusion). Beyond it the conversion of mass- to
+ * mole-fraction gradients cancels beyond double precision and the driving
+ * forces no longer balance (found by fuzz_flux: 2.8e-306 next to 0.03
+ * kg/mol gave molar fluxes whose sum was 3e48 of 2e55). Electrons next to
+ * a polymer are about 1e9. mcdi_M_span_ok: every ratio within it. */
+#define MCDI_M_SPAN 1e12
+int mcdi_M_span_ok(size_t n, const double *M);
+
+#endif
