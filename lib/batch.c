@@ -10,6 +10,7 @@
  * not depend on the order. So the results are bit-for-bit those of the
  * serial run.
  */
+#include <float.h>
 #include <stdint.h>
 #include <string.h>
 #ifdef _OPENMP
@@ -53,6 +54,53 @@ size_t mcdi_batch_scratch_doubles(size_t cap)
     return MCDI_STREAM_DOUBLES + need; /* streaming state, then the block */
 }
 
+/* The first rule that cell k of the job breaks, checked in the order and
+ * with the messages of the single-state calls (checks.c); MCD_OK if the
+ * cell is fine. The rules are those the kernel's loading stages apply. */
+static mcd_status check_cell(mcd_workspace *ws, const mcdi_bjob *jb, size_t k)
+{
+    const size_t n = jb->n, nd = jb->nd, K = jb->K;
+    mcd_status st = MCD_OK;
+    if (jb->mix != NULL) {
+        if ((st = mcdi_check_positive(ws, jb->T[k], "T")) != MCD_OK ||
+            (st = mcdi_check_positive(ws, jb->P[k], "P")) != MCD_OK)
+            return st;
+        if (!(jb->P[k] / (MCD_GAS_CONSTANT * jb->T[k]) >= DBL_MIN))
+            return mcdi_ws_fail(ws, MCD_EDOM,
+                                "argument P: the concentration P / (R T) = %g "
+                                "is not a normal positive number",
+                                jb->P[k] / (MCD_GAS_CONSTANT * jb->T[k]));
+    } else if ((st = mcdi_check_conc(ws, jb->c[k], "c")) != MCD_OK ||
+               (st = mcdi_check_dij_strided(ws, n, jb->Dij + k, K)) != MCD_OK) {
+        return st;
+    }
+    if ((st = mcdi_check_comp_strided(ws, n, jb->comp + k, K, "comp")) != MCD_OK ||
+        (st = mcdi_check_finite_strided(ws, n, nd, jb->grad + k, K, "grad")) != MCD_OK)
+        return st;
+    if (jb->glnP != NULL)
+        st = mcdi_check_finite_strided(ws, 1, nd, jb->glnP + k, K, "grad_lnP");
+    return st;
+}
+
+/* Name the first bad cell of a block [k0, k0 + nv) that the kernel flagged
+ * (res->recheck), as "cell <shown>: argument ...", shown = shift + k. */
+static mcd_status recheck_block(mcd_workspace *ws, const mcdi_bjob *jb,
+                                size_t k0, size_t nv, size_t shift)
+{
+    char msg[MCDI_WS_ERRLEN];
+    size_t k;
+    for (k = k0; k < k0 + nv; k++) {
+        mcd_status st = check_cell(ws, jb, k);
+        if (st != MCD_OK) {
+            memcpy(msg, ws->err, sizeof msg);
+            msg[sizeof msg - 1] = '\0';
+            return mcdi_ws_fail(ws, st, "cell %zu: %s", shift + k, msg);
+        }
+    }
+    return mcdi_ws_fail(ws, MCD_EINTERNAL,
+                        "cell %zu: internal: validation mismatch", shift + k0);
+}
+
 /* Run the job over cells [0, K) with the workspace's scratch. */
 static mcd_status run_job(mcd_workspace *ws, const mcdi_bjob *jb)
 {
@@ -62,6 +110,7 @@ static mcd_status run_job(mcd_workspace *ws, const mcdi_bjob *jb)
     double iter_err = 0.0;
     mcd_status fail_st = MCD_OK;
     const char *fail_what = "";
+    int fail_recheck = 0;
     long b;
     int nthreads = 1;
 #ifdef _OPENMP
@@ -96,6 +145,7 @@ static mcd_status run_job(mcd_workspace *ws, const mcdi_bjob *jb)
             res.st = MCD_OK;
             res.lane = 0;
             res.what = "";
+            res.recheck = 0;
             res.iter_err = 0.0;
             res.iter_used = 0;
             mcdi_batch_block(jb, k0, nv, mem, &res);
@@ -104,10 +154,13 @@ static mcd_status run_job(mcd_workspace *ws, const mcdi_bjob *jb)
 #pragma omp critical
 #endif
                 {
+                    /* a flagged block's bad cell lies in [k0, k0 + nv):
+                     * no other block's cell lies there */
                     if (k0 + res.lane < fail_cell) {
                         fail_cell = k0 + res.lane;
                         fail_st = res.st;
                         fail_what = res.what;
+                        fail_recheck = res.recheck;
                     }
                 }
             } else {
@@ -132,6 +185,9 @@ static mcd_status run_job(mcd_workspace *ws, const mcdi_bjob *jb)
         ws->iter_err = iter_err;
         ws->iter_used = iter_used;
     }
+    if (fail_recheck)
+        return recheck_block(ws, jb, fail_cell,
+                             K - fail_cell < L ? K - fail_cell : L, 0);
     if (fail_st != MCD_OK)
         return mcdi_ws_fail(ws, fail_st, "cell %zu: %s", fail_cell, fail_what);
     return MCD_OK;
@@ -356,6 +412,7 @@ MCD_API mcd_status mcd_flux_batch_aos(mcd_workspace *ws,
         res.st = MCD_OK;
         res.lane = 0;
         res.what = "";
+        res.recheck = 0;
         res.iter_err = 0.0;
         res.iter_used = 0;
         mcdi_batch_block(&jb, 0, nv, ws->batch_mem, &res);
@@ -364,6 +421,8 @@ MCD_API mcd_status mcd_flux_batch_aos(mcd_workspace *ws,
                 ws->iter_err = iter_err;
                 ws->iter_used = iter_used;
             }
+            if (res.recheck)
+                return recheck_block(ws, &jb, 0, nv, k0);
             return mcdi_ws_fail(ws, res.st, "cell %zu: %s", k0 + res.lane,
                                 res.what);
         }

@@ -44,7 +44,9 @@ typedef struct mcdi_bjob {
 typedef struct mcdi_bres {
     mcd_status st;         /* MCD_OK or the failure */
     size_t lane;           /* failing lane (when st != MCD_OK) */
-    const char *what;      /* static text naming the failing input */
+    const char *what;      /* static text naming the failure (results) */
+    int recheck;           /* an input of some lane breaks a rule: batch.c
+                            * names the first bad cell (mcdi_batch_recheck) */
     double iter_err;       /* largest iterative error estimate */
     size_t iter_used;      /* largest number of iterations */
 } mcdi_bres;

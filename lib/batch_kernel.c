@@ -69,85 +69,6 @@
 #include "flux_core.h"
 #include "kernel_lanes.h"
 
-/* Scalar re-check of one cell in the order of mcd_flux_compute; sets what
- * and returns the status (MCD_OK if the cell is fine). */
-static mcd_status check_cell(const mcdi_bjob *jb, size_t k, const char **what)
-{
-    const size_t n = jb->n, nd = jb->nd, K = jb->K;
-    double sum = 0.0;
-    size_t i, j;
-    if (jb->mix != NULL) {
-        if (!mcdi_finite(jb->T[k])) { *what = "T: not finite"; return MCD_EINVAL; }
-        if (!(jb->T[k] > 0.0)) { *what = "T: not > 0"; return MCD_EDOM; }
-        if (!mcdi_finite(jb->P[k])) { *what = "P: not finite"; return MCD_EINVAL; }
-        if (!(jb->P[k] > 0.0)) { *what = "P: not > 0"; return MCD_EDOM; }
-        if (!(jb->P[k] / (RGAS * jb->T[k]) >= DBL_MIN)) {
-            *what = "P / (R T): concentration not a normal positive number";
-            return MCD_EDOM;
-        }
-    } else {
-        if (!mcdi_finite(jb->c[k])) { *what = "c: not finite"; return MCD_EINVAL; }
-        if (!(jb->c[k] >= DBL_MIN)) { *what = "c: not a normal positive number"; return MCD_EDOM; }
-        for (i = 0; i < n; i++)
-            for (j = 0; j < n; j++)
-                if (i != j && !mcdi_finite(jb->Dij[(i * n + j) * K + k])) {
-                    *what = "Dij: entry not finite";
-                    return MCD_EINVAL;
-                }
-        for (i = 0; i < n; i++)
-            for (j = 0; j < n; j++)
-                if (i != j && !(jb->Dij[(i * n + j) * K + k] > 0.0)) {
-                    *what = "Dij: entry not > 0";
-                    return MCD_EDOM;
-                }
-        for (i = 0; i < n; i++)
-            for (j = 0; j < n; j++)
-                if (i != j && !(jb->Dij[(i * n + j) * K + k] >= DBL_MIN)) {
-                    *what = "Dij: entry subnormal (< DBL_MIN)";
-                    return MCD_EDOM;
-                }
-        for (i = 0; i < n; i++)
-            for (j = i + 1; j < n; j++) {
-                double a = jb->Dij[(i * n + j) * K + k];
-                double b = jb->Dij[(j * n + i) * K + k];
-                double big = a > b ? a : b;
-                if (!(fabs(a - b) <= 1e-12 * big)) {
-                    *what = "Dij: not symmetric to 1e-12";
-                    return MCD_EDOM;
-                }
-            }
-    }
-    for (i = 0; i < n; i++)
-        if (!mcdi_finite(jb->comp[i * K + k])) {
-            *what = "comp: entry not finite";
-            return MCD_EINVAL;
-        }
-    for (i = 0; i < n; i++)
-        if (!(jb->comp[i * K + k] >= 0.0)) {
-            *what = "comp: entry negative";
-            return MCD_EDOM;
-        }
-    for (i = 0; i < n; i++)
-        sum += jb->comp[i * K + k];
-    if (!(fabs(sum - 1.0) <= MCD_SUM_TOL)) {
-        *what = "comp: sum differs from 1 by more than 1e-6";
-        return MCD_EDOM;
-    }
-    for (i = 0; i < n * nd; i++)
-        if (!mcdi_finite(jb->grad[i * K + k])) {
-            *what = "grad: entry not finite";
-            return MCD_EINVAL;
-        }
-    if (jb->glnP != NULL)
-        for (i = 0; i < nd; i++)
-            if (!mcdi_finite(jb->glnP[i * K + k])) {
-                *what = "grad_lnP: entry not finite";
-                return MCD_EINVAL;
-            }
-    *what = "";
-    return MCD_OK;
-}
-
 /* Neufeld-Janzen-Aziz collision integral, as binary.c (exact path). */
 static double omega_exact(double Ts) { return mcdi_omega_d(Ts); }
 
@@ -184,25 +105,14 @@ static void report_not_definite(const mcdi_kblock *b, size_t nv,
     res->what = "internal: pivot check mismatch";
 }
 
-/* A block flagged by a loading stage: the lowest cell out of range, named
- * by the scalar re-check. */
-static void report_bad_cell(const mcdi_bjob *jb, size_t k0, size_t nv,
-                            mcdi_bres *res)
+/* A block flagged by a loading stage: the driver names the first bad cell
+ * with the argument checks of the single-state calls (batch.c). */
+static void report_bad_cell(mcdi_bres *res)
 {
-    size_t l;
-    for (l = 0; l < nv; l++) {
-        const char *what = "";
-        mcd_status st = check_cell(jb, k0 + l, &what);
-        if (st != MCD_OK) {
-            res->st = st;
-            res->lane = l;
-            res->what = what;
-            return;
-        }
-    }
-    res->st = MCD_EINTERNAL; /* a flagged block without a bad cell */
+    res->st = MCD_EINVAL; /* replaced by the re-check's status */
     res->lane = 0;
-    res->what = "internal: validation mismatch";
+    res->recheck = 1;
+    res->what = "";
 }
 
 /* ------------------------------------------------------------------ */
@@ -228,12 +138,12 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
     res->st = MCD_OK;
     if ((stage_load_scalars(jb, &b, k0, nv, L) |
          stage_load_comp(jb, &b, k0, nv, n, L)) != 0) {
-        report_bad_cell(jb, k0, nv, res);
+        report_bad_cell(res);
         return;
     }
     stage_fractions(jb, &b, n, L);
     if (stage_load_forces(jb, &b, k0, nv, n, L, nd)) {
-        report_bad_cell(jb, k0, nv, res);
+        report_bad_cell(res);
         return;
     }
     stage_forces(jb, &b, n, L, nd);
@@ -246,7 +156,7 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
     }
     if (jb->mix == NULL) {
         if (stage_invdiff_dij(jb, &b, k0, nv, n, L)) {
-            report_bad_cell(jb, k0, nv, res);
+            report_bad_cell(res);
             return;
         }
     } else {

@@ -99,38 +99,38 @@ static int dij_all_good(size_t n, const double *Dij)
     return good;
 }
 
-mcd_status mcdi_check_dij(mcd_workspace *ws, size_t n, const double *Dij)
+/* The first broken rule of an n x n Dij whose entry (i,j) is at
+ * Dij[(i n + j) s], with its message (MCD_OK if none). */
+static mcd_status dij_locate(mcd_workspace *ws, size_t n, const double *Dij,
+                             size_t s)
 {
     size_t i, j;
-    if (Dij == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument Dij: NULL");
-    if (dij_all_good(n, Dij))
-        return MCD_OK;
+#define DIJ(i, j) Dij[((i) * n + (j)) * s]
     for (i = 0; i < n; i++)
         for (j = 0; j < n; j++)
-            if (i != j && !mcdi_finite(Dij[i * n + j]))
+            if (i != j && !mcdi_finite(DIJ(i, j)))
                 return mcdi_ws_fail(ws, MCD_EINVAL,
                                     "argument Dij: entry (%zu,%zu) is not finite",
                                     i, j);
     for (i = 0; i < n; i++)
         for (j = 0; j < n; j++)
-            if (i != j && !(Dij[i * n + j] > 0.0))
+            if (i != j && !(DIJ(i, j) > 0.0))
                 return mcdi_ws_fail(ws, MCD_EDOM,
                                     "argument Dij: entry (%zu,%zu) = %g is not > 0",
-                                    i, j, Dij[i * n + j]);
+                                    i, j, DIJ(i, j));
     /* a positive subnormal Đ: 1/Đ overflows, and the single-state and
      * batched paths failed differently on it (OK with -0 fluxes against
      * ESING); both reject it here */
     for (i = 0; i < n; i++)
         for (j = 0; j < n; j++)
-            if (i != j && !(Dij[i * n + j] >= DBL_MIN))
+            if (i != j && !(DIJ(i, j) >= DBL_MIN))
                 return mcdi_ws_fail(ws, MCD_EDOM,
                                     "argument Dij: entry (%zu,%zu) = %g is "
                                     "subnormal (< DBL_MIN; 1/Dij overflows)",
-                                    i, j, Dij[i * n + j]);
+                                    i, j, DIJ(i, j));
     for (i = 0; i < n; i++)
         for (j = i + 1; j < n; j++) {
-            double a = Dij[i * n + j], b = Dij[j * n + i];
+            double a = DIJ(i, j), b = DIJ(j, i);
             double big = a > b ? a : b;
             if (!(fabs(a - b) <= MCDI_DIJ_SYM_TOL * big))
                 return mcdi_ws_fail(ws, MCD_EDOM,
@@ -139,46 +139,75 @@ mcd_status mcdi_check_dij(mcd_workspace *ws, size_t n, const double *Dij)
                                     "relative (not symmetric)",
                                     i, j, a, j, i, b);
         }
+#undef DIJ
+    return MCD_OK;
+}
+
+mcd_status mcdi_check_dij(mcd_workspace *ws, size_t n, const double *Dij)
+{
+    if (Dij == NULL)
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument Dij: NULL");
+    if (dij_all_good(n, Dij))
+        return MCD_OK;
+    return dij_locate(ws, n, Dij, 1);
+}
+
+mcd_status mcdi_check_dij_strided(mcd_workspace *ws, size_t n,
+                                  const double *Dij, size_t stride)
+{
+    return dij_locate(ws, n, Dij, stride);
+}
+
+/* The first broken rule of fractions y[i s] (the order of
+ * mcdi_comp_check: non-finite, negative, sum), with its message. */
+static mcd_status comp_locate(mcd_workspace *ws, size_t n, const double *y,
+                              size_t s, const char *name)
+{
+    double sum = 0.0;
+    size_t i;
+    for (i = 0; i < n; i++)
+        if (!mcdi_finite(y[i * s]))
+            return mcdi_ws_fail(ws, MCD_EINVAL,
+                                "argument %s: entry %zu is not finite", name, i);
+    for (i = 0; i < n; i++)
+        if (!(y[i * s] >= 0.0))
+            return mcdi_ws_fail(ws, MCD_EDOM,
+                                "argument %s: entry %zu = %g is negative", name,
+                                i, y[i * s]);
+    for (i = 0; i < n; i++)
+        sum += y[i * s];
+    /* "1e-6" is MCD_SUM_TOL, written out for a readable message */
+    if (!(fabs(sum - 1.0) <= MCD_SUM_TOL))
+        return mcdi_ws_fail(ws, MCD_EDOM,
+                            "argument %s: sum %.10g differs from 1 by more than 1e-6",
+                            name, sum);
     return MCD_OK;
 }
 
 mcd_status mcdi_check_comp(mcd_workspace *ws, size_t n, const double *y,
-                                const char *name)
+                           const char *name)
 {
     double s = 0.0;
     int good = 1;
     size_t i;
-    mcd_status st;
     if (y == NULL)
         return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL", name);
     /* one branch-free pass for the usual case (every entry finite and
-     * >= 0, sum within MCD_SUM_TOL of 1: the rules of mcdi_comp_check) */
+     * >= 0, sum within MCD_SUM_TOL of 1) */
     for (i = 0; i < n; i++) {
         good &= (y[i] >= 0.0) & (y[i] <= DBL_MAX);
         s += y[i];
     }
     if (good & (fabs(s - 1.0) <= MCD_SUM_TOL))
         return MCD_OK;
-    s = 0.0;
-    st = mcdi_comp_check(n, y, NULL);
-    if (st == MCD_OK)
-        return MCD_OK;
-    /* locate the offending entry for the message (same order of checks as
-     * mcdi_comp_check: non-finite first, then negative, then the sum) */
-    for (i = 0; i < n; i++)
-        if (!mcdi_finite(y[i]))
-            return mcdi_ws_fail(ws, st, "argument %s: entry %zu is not finite",
-                                name, i);
-    for (i = 0; i < n; i++)
-        if (!(y[i] >= 0.0))
-            return mcdi_ws_fail(ws, st, "argument %s: entry %zu = %g is negative",
-                                name, i, y[i]);
-    for (i = 0; i < n; i++)
-        s += y[i];
-    /* "1e-6" is MCD_SUM_TOL, written out for a readable message */
-    return mcdi_ws_fail(ws, st,
-                        "argument %s: sum %.10g differs from 1 by more than 1e-6",
-                        name, s);
+    return comp_locate(ws, n, y, 1, name);
+}
+
+mcd_status mcdi_check_comp_strided(mcd_workspace *ws, size_t n,
+                                   const double *y, size_t stride,
+                                   const char *name)
+{
+    return comp_locate(ws, n, y, stride, name);
 }
 
 mcd_status mcdi_check_M(mcd_workspace *ws, size_t n, const double *M)
@@ -208,10 +237,24 @@ mcd_status mcdi_check_M(mcd_workspace *ws, size_t n, const double *M)
     return mcdi_ws_fail(ws, st, "argument M: invalid");
 }
 
-mcd_status mcdi_check_finite(mcd_workspace *ws, size_t rows, size_t cols,
-                                  const double *p, const char *name)
+/* The first non-finite entry (i,k) of p[(i cols + k) s], named. */
+static mcd_status finite_locate(mcd_workspace *ws, size_t rows, size_t cols,
+                                const double *p, size_t s, const char *name)
 {
     size_t i, k;
+    for (i = 0; i < rows; i++)
+        for (k = 0; k < cols; k++)
+            if (!mcdi_finite(p[(i * cols + k) * s]))
+                return mcdi_ws_fail(ws, MCD_EINVAL,
+                                    "argument %s: entry (%zu,%zu) is not finite",
+                                    name, i, k);
+    return MCD_OK;
+}
+
+mcd_status mcdi_check_finite(mcd_workspace *ws, size_t rows, size_t cols,
+                             const double *p, const char *name)
+{
+    size_t i;
     double acc = 0.0;
     if (p == NULL)
         return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL", name);
@@ -221,12 +264,26 @@ mcd_status mcdi_check_finite(mcd_workspace *ws, size_t rows, size_t cols,
         acc += p[i] * 0.0;
     if (acc == 0.0)
         return MCD_OK;
-    for (i = 0; i < rows; i++)
-        for (k = 0; k < cols; k++)
-            if (!mcdi_finite(p[i * cols + k]))
-                return mcdi_ws_fail(ws, MCD_EINVAL,
-                                    "argument %s: entry (%zu,%zu) is not finite",
-                                    name, i, k);
+    return finite_locate(ws, rows, cols, p, 1, name);
+}
+
+mcd_status mcdi_check_finite_strided(mcd_workspace *ws, size_t rows,
+                                     size_t cols, const double *p,
+                                     size_t stride, const char *name)
+{
+    return finite_locate(ws, rows, cols, p, stride, name);
+}
+
+mcd_status mcdi_check_conc(mcd_workspace *ws, double c, const char *name)
+{
+    if (!mcdi_finite(c))
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: not finite", name);
+    /* A subnormal c (< DBL_MIN) is rejected: the fluxes would underflow
+     * unevenly and lose the zero-sum. */
+    if (!(c >= DBL_MIN))
+        return mcdi_ws_fail(ws, MCD_EDOM,
+                            "argument %s: %g is not a normal positive number",
+                            name, c);
     return MCD_OK;
 }
 

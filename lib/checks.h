@@ -65,4 +65,21 @@ mcd_status mcdi_check_finite(mcd_workspace *ws, size_t rows, size_t cols,
 #define MCDI_M_SPAN 1e12
 int mcdi_M_span_ok(size_t n, const double *M);
 
+/* A total concentration [mol/m^3]: finite (EINVAL), a normal positive
+ * number (EDOM). */
+mcd_status mcdi_check_conc(mcd_workspace *ws, double c, const char *name);
+
+/* The same rules and messages as mcdi_check_dij, _comp and _finite for one
+ * cell of a batched call: element e of the cell at p[e * stride] (p
+ * already offset to the cell; not NULL). Used to name the first bad cell
+ * after the kernel flagged its block. */
+mcd_status mcdi_check_dij_strided(mcd_workspace *ws, size_t n,
+                                  const double *Dij, size_t stride);
+mcd_status mcdi_check_comp_strided(mcd_workspace *ws, size_t n,
+                                   const double *y, size_t stride,
+                                   const char *name);
+mcd_status mcdi_check_finite_strided(mcd_workspace *ws, size_t rows,
+                                     size_t cols, const double *p,
+                                     size_t stride, const char *name);
+
 #endif

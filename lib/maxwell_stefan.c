@@ -275,13 +275,8 @@ MCD_API mcd_status mcd_flux_compute(mcd_workspace *ws, mcd_model model,
         (st = mcdi_check_basis(ws, flux_basis, "flux_basis")) != MCD_OK ||
         (st = mcdi_check_ptr(ws, out_flux, "out_flux")) != MCD_OK)
         return st;
-    if (!mcdi_finite(c))
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument c: not finite");
-    /* A subnormal c (< DBL_MIN) is rejected: the fluxes would underflow
-     * unevenly and lose the zero-sum. */
-    if (!(c >= DBL_MIN))
-        return mcdi_ws_fail(ws, MCD_EDOM,
-                            "argument c: %g is not a normal positive number", c);
+    if ((st = mcdi_check_conc(ws, c, "c")) != MCD_OK)
+        return st;
     need_M = comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
              grad_lnP != NULL;
     if (need_M && (st = mcdi_check_M(ws, n, M)) != MCD_OK)

@@ -437,8 +437,30 @@ START_TEST(batch_errors_name_the_cell_and_write_nothing_on_argument_errors)
             *bad[i].p = bad[i].v;
             ck_assert_int_eq(CALL(ws, (mcd_model)(i % 3), N, s.M, s.D, s.c, 0, s.comp, s.grad, 0, out),
                              bad[i].st);
-            ck_assert_msg(strncmp(mcd_workspace_last_error(ws), "cell 9:", 7) == 0,
+            ck_assert_msg(strncmp(mcd_workspace_last_error(ws), "cell 9: ", 8) == 0,
                           "%s", mcd_workspace_last_error(ws));
+            /* the same words as the single-state call on that cell */
+            {
+                double Dc[N * N], xc[N], gc[N * ND], oc[N * ND];
+                char batched[256];
+                size_t q;
+                snprintf(batched, sizeof batched, "%s", mcd_workspace_last_error(ws) + 8);
+                for (q = 0; q < N * N; q++)
+                    Dc[q] = s.D[q * K + 9];
+                for (q = 0; q < N; q++)
+                    xc[q] = s.comp[q * K + 9];
+                for (q = 0; q < N * ND; q++)
+                    gc[q] = s.grad[q * K + 9];
+                ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, N, ND, s.M, Dc,
+                                                  s.c[9], MCD_BASIS_MOLE, xc, gc, NULL, NULL,
+                                                  MCD_BASIS_MOLE, oc),
+                                 bad[i].st);
+                /* (the gradients are the argument grad_comp there) */
+                if (strncmp(batched, "argument grad:", 14) == 0)
+                    ck_assert_str_eq(batched + 14, mcd_workspace_last_error(ws) + 19);
+                else
+                    ck_assert_str_eq(batched, mcd_workspace_last_error(ws));
+            }
             *bad[i].p = keep;
         }
     }
@@ -452,11 +474,11 @@ START_TEST(batch_errors_name_the_cell_and_write_nothing_on_argument_errors)
         ck_assert_int_eq(mcd_flux_batch(small, m, 0, K, ND, s.T, s.P, 0, s.comp, s.grad, NULL, 0, out), MCD_EBADLEN);
         s.T[4] = -3.0;
         ck_assert_int_eq(mcd_flux_batch(ws, m, 0, K, ND, s.T, s.P, 0, s.comp, s.grad, NULL, 0, out), MCD_EDOM);
-        ck_assert_str_eq(mcd_workspace_last_error(ws), "cell 4: T: not > 0");
+        ck_assert_str_eq(mcd_workspace_last_error(ws), "cell 4: argument T: -3 is not > 0");
         s.T[4] = 400.0;
         s.P[10] = NAN;
         ck_assert_int_eq(mcd_flux_batch(ws, m, 0, K, ND, s.T, s.P, 0, s.comp, s.grad, NULL, 0, out), MCD_EINVAL);
-        ck_assert_str_eq(mcd_workspace_last_error(ws), "cell 10: P: not finite");
+        ck_assert_str_eq(mcd_workspace_last_error(ws), "cell 10: argument P: not finite");
         s.P[10] = 1e5;
         ck_assert_int_eq(mcd_flux_batch(ws, m, 0, K, ND, s.T, s.P, 0, s.comp, s.grad, NULL, 0, out), MCD_OK);
         mcd_mixture_free(m);
