@@ -87,13 +87,13 @@ static double omega_exact(double Ts) { return mcdi_omega_d(Ts); }
 #include "kernel_emit.h"   /* fused emit of full mole-basis blocks */
 
 /* The lowest lane with a non-positive (or NaN) pivot: ESING. */
-static void report_not_definite(const mcdi_kblock *b, size_t nv,
-                                mcdi_bres *res, size_t n, size_t L)
+static void report_not_definite(const double *Dg, size_t nv, mcdi_bres *res,
+                                size_t n, size_t L)
 {
     size_t j, l;
     for (l = 0; l < nv; l++)
         for (j = 0; j < n; j++)
-            if (!(b->Dg[j * L + l] > 0.0)) {
+            if (!(Dg[j * L + l] > 0.0)) {
                 res->st = MCD_ESING;
                 res->lane = l;
                 res->what = "Maxwell-Stefan matrix not positive definite "
@@ -171,7 +171,7 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
         stage_rhs(&b, n, L, nd);
         if (jb->model == MCD_MODEL_MAXWELL_STEFAN) {
             if (!stage_exact(&b, n, L, nd)) {
-                report_not_definite(&b, nv, res, n, L);
+                report_not_definite(b.Dg, nv, res, n, L);
                 return;
             }
         } else {

@@ -46,14 +46,6 @@
     R(f15, 1)    /* P / T^1.5 */                                            \
     R(infit, 1)  /* 1 where T is inside the mixture's fit range */          \
     R(sum, 1)    /* sum of the composition */                               \
-    R(tw, 1)     /* sum_k w_k / M_k */                                      \
-    R(col, 1)    /* a sum over species in one direction */                 \
-    R(col2, 1)   /* a second one */                                         \
-    R(amax, 1)   /* regularisation a: largest Blanc sum of those present */ \
-    R(amax2, 1)  /* largest Blanc sum of all */                             \
-    R(acc, 1)    /* pivot accumulator (scalar-lane LDL^T) */                \
-    R(nrm, 1)    /* largest |s U| of an iterate */                          \
-    R(dmax, 1)   /* largest change of s U */                                \
     R(dprev, 1)  /* relative change of the previous iteration */            \
     R(dprev2, 1) /* and of the one before */                                \
     R(est, 1)    /* error estimate of the iteration */                      \

@@ -171,7 +171,7 @@ KINLINE void project_s(const mcdi_kblock *b, double *restrict v,
                        const size_t n, const size_t L, const size_t nd)
 {
     const double *restrict s = b->s;
-    double *restrict p = b->col;
+    double p[MCDI_LANES]; /* in registers (a row of scratch was not) */
     size_t i, dd, l;
     for (dd = 0; dd < nd; dd++) {
         LANES
@@ -225,7 +225,7 @@ KINLINE void iter_estimate(const mcdi_kblock *b, size_t it, const size_t n,
 {
     const double *restrict s = b->s, *restrict v = b->v, *restrict r = b->r;
     const double *restrict active = b->active;
-    double *restrict nrm = b->nrm, *restrict dmax = b->dmax;
+    double nrm[MCDI_LANES], dmax[MCDI_LANES];
     double *restrict dprev = b->dprev, *restrict dprev2 = b->dprev2;
     double *restrict est = b->est, *restrict iters = b->iters;
     size_t i, dd, l;

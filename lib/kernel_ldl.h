@@ -120,13 +120,13 @@ KINLINE int ldl_solve_v(const size_t n, const size_t nd, mcdi_vd *restrict A,
  * other than the vector width: one cell of a large n), then the solve of
  * L D L^T U = b for each direction, in r. Returns 0 on a pivot that is not
  * > 0 (or NaN). */
-KINLINE int ldl_solve_rows(const mcdi_kblock *b, const size_t n,
-                           const size_t L, const size_t nd)
+KINLINE int ldl_solve_rows(const mcdi_kblock *b, const double *amax,
+                           const size_t n, const size_t L, const size_t nd)
 {
     const double *restrict s = b->s, *restrict S = b->S, *restrict x = b->x;
-    const double *restrict amax = b->amax;
     double *restrict tri = b->tri, *restrict wk = b->wk, *restrict Dg = b->Dg;
-    double *restrict iDg = b->iDg, *restrict r = b->r, *restrict acc = b->acc;
+    double *restrict iDg = b->iDg, *restrict r = b->r;
+    double acc[MCDI_LANES];
     int sing = 0;
     size_t i, j, k, dd, l;
     /* A = Gs + a s s^T in place of invD */
@@ -197,7 +197,7 @@ KINLINE int stage_exact(const mcdi_kblock *b, const size_t n, const size_t L,
                         const size_t nd)
 {
     const double *restrict S = b->S, *restrict x = b->x;
-    double *restrict amax = b->amax, *restrict amax2 = b->amax2;
+    double amax[MCDI_LANES], amax2[MCDI_LANES];
     size_t i, l;
     LANES
         amax[l] = amax2[l] = 0.0;
@@ -210,14 +210,17 @@ KINLINE int stage_exact(const mcdi_kblock *b, const size_t n, const size_t L,
         }
     LANES
         amax[l] = amax[l] > 0.0 ? amax[l] : amax2[l];
-    if (L == MCDI_VLANES)
+    if (L == MCDI_VLANES) {
         /* assembly, LDL^T and both substitutions fused, in registers */
+        mcdi_vd av;
+        memcpy(&av, amax, sizeof av);
         return ldl_solve_v(n, nd, (mcdi_vd *)b->tri, (const mcdi_vd *)b->s,
-                           (const mcdi_vd *)S, (const mcdi_vd *)x,
-                           *(const mcdi_vd *)amax, (mcdi_vd *)b->r,
+                           (const mcdi_vd *)S, (const mcdi_vd *)x, av,
+                           (mcdi_vd *)b->r,
                            (mcdi_vd *)b->Dg, (mcdi_vd *)b->iDg,
                            (mcdi_vd *)b->Wt);
-    return ldl_solve_rows(b, n, L, nd);
+    }
+    return ldl_solve_rows(b, amax, n, L, nd);
 }
 
 #endif

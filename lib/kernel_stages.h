@@ -127,7 +127,7 @@ KINLINE void stage_forces(const mcdi_bjob *jb, const mcdi_kblock *b,
     size_t i, dd, l;
     if (jb->comp_basis == MCD_BASIS_MASS) {
         /* dx_i = (dw_i - w_i dT/T) / (M_i T), T = sum w_k / M_k */
-        double *restrict Tw = b->tw, *restrict rr = b->col;
+        double Tw[MCDI_LANES], rr[MCDI_LANES];
         LANES
             Tw[l] = 0.0;
         for (i = 0; i < n; i++)
@@ -156,7 +156,7 @@ KINLINE void stage_forces(const mcdi_bjob *jb, const mcdi_kblock *b,
                         (x[i * L + l] - w[i * L + l]) * v[dd * L + l];
     /* projection onto sum_i d_i = 0 with weights x */
     for (dd = 0; dd < nd; dd++) {
-        double *restrict sd = b->col;
+        double sd[MCDI_LANES];
         LANES
             sd[l] = 0.0;
         for (i = 0; i < n; i++)
@@ -376,7 +376,7 @@ KINLINE void stage_mixavg(const mcdi_kblock *b, const size_t n,
             wk[i * L + l] = -Dim;
         }
     for (dd = 0; dd < nd; dd++) {
-        double *restrict sj = b->col;
+        double sj[MCDI_LANES];
         LANES
             sj[l] = 0.0;
         for (i = 0; i < n; i++)
@@ -466,7 +466,7 @@ KINLINE void stage_compose(const mcdi_kblock *b, const size_t n,
 {
     const double *restrict s = b->s, *restrict x = b->x, *restrict r = b->r;
     const double *restrict t = b->t, *restrict c = b->c;
-    double *restrict J = b->J, *restrict st = b->col;
+    double *restrict J = b->J, st[MCDI_LANES];
     size_t i, dd, l;
     for (dd = 0; dd < nd; dd++) {
         LANES
@@ -487,7 +487,7 @@ KINLINE void stage_compose(const mcdi_kblock *b, const size_t n,
 KINLINE void zero_sum(const mcdi_kblock *b, const double *restrict y,
                       const size_t n, const size_t L, const size_t nd)
 {
-    double *restrict J = b->J, *restrict rs = b->col;
+    double *restrict J = b->J, rs[MCDI_LANES];
     size_t i, dd, l;
     for (dd = 0; dd < nd; dd++) {
         LANES
@@ -511,7 +511,7 @@ KINLINE int stage_mass(const mcdi_bjob *jb, const mcdi_kblock *b, size_t nv,
 {
     const double *M = jb->M;
     const double *restrict w = b->w;
-    double *restrict J = b->J, *restrict sm = b->col, *restrict rs = b->col2;
+    double *restrict J = b->J, sm[MCDI_LANES] = {0.0}, rs[MCDI_LANES] = {0.0};
     size_t i, dd, l;
     for (dd = 0; dd < nd; dd++) {
         LANES
