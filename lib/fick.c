@@ -114,6 +114,121 @@ static size_t gauss_solve_small(size_t m, double *A, double *R)
     return 0;
 }
 
+/* Reduced index (species other than dep, in order) -> species index. */
+static size_t sp(size_t a, size_t dep) { return a < dep ? a : a + 1; }
+
+/* B of Taylor and Krishna (column-major, element (r, q) at r + q m) with
+ * dep the dependent species, and the reduced (projected) thermodynamic
+ * factor in X (the identity when Gamma is NULL). cs: n scratch. */
+static void assemble_B_gamma(size_t n, size_t dep, const double *x,
+                             const double *Dij, const double *Gamma,
+                             double *B, double *X, double *cs)
+{
+    const size_t m = n - 1;
+    size_t r, q, k;
+    for (r = 0; r < m; r++) {
+        size_t i = sp(r, dep);
+        double inv_in = 1.0 / dij_pair(Dij, n, i, dep);
+        double diag = x[i] * inv_in;
+        for (k = 0; k < n; k++)
+            if (k != i)
+                diag += x[k] / dij_pair(Dij, n, i, k);
+        for (q = 0; q < m; q++) {
+            size_t j = sp(q, dep);
+            B[r + q * m] = (j == i)
+                               ? diag
+                               : -x[i] * (1.0 / dij_pair(Dij, n, i, j) - inv_in);
+        }
+    }
+    if (Gamma == NULL) {
+        for (q = 0; q < m; q++)
+            for (r = 0; r < m; r++)
+                X[r + q * m] = r == q ? 1.0 : 0.0;
+        return;
+    }
+    for (k = 0; k < n; k++) {
+        double s = 0.0;
+        size_t i;
+        for (i = 0; i < n; i++)
+            s += Gamma[i * n + k];
+        cs[k] = s;
+    }
+    for (r = 0; r < m; r++) {
+        size_t i = sp(r, dep);
+        for (q = 0; q < m; q++) {
+            size_t j = sp(q, dep);
+            X[r + q * m] = Gamma[i * n + j] - Gamma[i * n + dep] -
+                           x[i] * (cs[j] - cs[dep]);
+        }
+    }
+}
+
+/* X := B^-1 X (m x m, column-major): Gaussian elimination up to
+ * FICK_SMALL_M, LAPACK's LU above. ESING when B is singular. */
+static mcd_status solve_B(mcd_workspace *ws, size_t m, double *B, double *X,
+                          int *ipiv)
+{
+    lapack_int info;
+    if (m <= FICK_SMALL_M) {
+        size_t bad = gauss_solve_small(m, B, X);
+        if (bad != 0)
+            return mcdi_ws_fail(ws, MCD_ESING,
+                                "Maxwell-Stefan matrix B singular at column %zu",
+                                bad - 1);
+        return MCD_OK;
+    }
+    info = LAPACKE_dgetrf_work(LAPACK_COL_MAJOR, (lapack_int)m, (lapack_int)m,
+                               B, (lapack_int)m, ipiv);
+    if (info > 0)
+        return mcdi_ws_fail(ws, MCD_ESING,
+                            "Maxwell-Stefan matrix B singular (dgetrf "
+                            "info %d)", (int)info);
+    if (info < 0)
+        return mcdi_ws_fail(ws, MCD_EINTERNAL, "dgetrf info %d", (int)info);
+    info = LAPACKE_dgetrs_work(LAPACK_COL_MAJOR, 'N', (lapack_int)m,
+                               (lapack_int)m, B, (lapack_int)m, ipiv, X,
+                               (lapack_int)m);
+    if (info != 0)
+        return mcdi_ws_fail(ws, MCD_EINTERNAL, "dgetrs info %d", (int)info);
+    return MCD_OK;
+}
+
+/* Mass-basis Fick matrix in place of the molar one X (column-major):
+ * [D°] = A [D] C, A = diag(M) - w dM^T, C = diag(1/M) - x dI^T with
+ * dM_k = M_k - M_n, dI_k = 1/M_k - 1/M_n (reduced indices). t, qv: m
+ * scratch each. */
+static void fick_to_mass_basis(size_t n, size_t dep, const double *M,
+                               const double *x, const double *w, double *X,
+                               double *t, double *qv)
+{
+    const size_t m = n - 1;
+    const double Mn = M[dep];
+    size_t r, q;
+    for (q = 0; q < m; q++) { /* t = dM^T [D] (row vector) */
+        double s = 0.0;
+        for (r = 0; r < m; r++)
+            s += (M[sp(r, dep)] - Mn) * X[r + q * m];
+        t[q] = s;
+    }
+    for (q = 0; q < m; q++)
+        for (r = 0; r < m; r++) {
+            size_t i = sp(r, dep);
+            X[r + q * m] = M[i] * X[r + q * m] - w[i] * t[q];
+        }
+    for (r = 0; r < m; r++) { /* qv = (A[D]) x */
+        double s = 0.0;
+        for (q = 0; q < m; q++)
+            s += X[r + q * m] * x[sp(q, dep)];
+        qv[r] = s;
+    }
+    for (q = 0; q < m; q++) {
+        size_t j = sp(q, dep);
+        double inv_j = 1.0 / M[j], dI = 1.0 / M[j] - 1.0 / Mn;
+        for (r = 0; r < m; r++)
+            X[r + q * m] = X[r + q * m] * inv_j - qv[r] * dI;
+    }
+}
+
 MCD_API mcd_status mcd_fick_matrix(mcd_workspace *ws, size_t n_species,
                                    const double *M, const double *Dij,
                                    mcd_basis comp_basis, const double *comp,
@@ -122,11 +237,10 @@ MCD_API mcd_status mcd_fick_matrix(mcd_workspace *ws, size_t n_species,
                                    size_t *out_dependent)
 {
     const size_t n = n_species;
-    size_t m, dep, r, q, k;
+    size_t m, dep, r, q;
     int need_M;
     double *x, *w, *B, *X, *cs, *t, *qv;
     int *ipiv;
-    lapack_int info;
     mcd_status st;
 
     if (ws == NULL)
@@ -171,96 +285,11 @@ MCD_API mcd_status mcd_fick_matrix(mcd_workspace *ws, size_t n_species,
     qv = ws->core_vec[4];
     ipiv = ws->core_idx[0];
 
-#define SP(a) ((a) < dep ? (a) : (a) + 1) /* reduced index -> species */
-
-    /* B, column-major: element (r, q) at r + q*m */
-    for (r = 0; r < m; r++) {
-        size_t i = SP(r);
-        double inv_in = 1.0 / dij_pair(Dij, n, i, dep);
-        double diag = x[i] * inv_in;
-        for (k = 0; k < n; k++)
-            if (k != i)
-                diag += x[k] / dij_pair(Dij, n, i, k);
-        for (q = 0; q < m; q++) {
-            size_t j = SP(q);
-            B[r + q * m] = (j == i)
-                               ? diag
-                               : -x[i] * (1.0 / dij_pair(Dij, n, i, j) - inv_in);
-        }
-    }
-    /* reduced (projected) thermodynamic factor, column-major, in X */
-    if (Gamma == NULL) {
-        for (q = 0; q < m; q++)
-            for (r = 0; r < m; r++)
-                X[r + q * m] = r == q ? 1.0 : 0.0;
-    } else {
-        for (k = 0; k < n; k++) {
-            double s = 0.0;
-            size_t i;
-            for (i = 0; i < n; i++)
-                s += Gamma[i * n + k];
-            cs[k] = s;
-        }
-        for (r = 0; r < m; r++) {
-            size_t i = SP(r);
-            for (q = 0; q < m; q++) {
-                size_t j = SP(q);
-                X[r + q * m] = Gamma[i * n + j] - Gamma[i * n + dep] -
-                               x[i] * (cs[j] - cs[dep]);
-            }
-        }
-    }
-    if (m <= FICK_SMALL_M) {
-        size_t bad = gauss_solve_small(m, B, X);
-        if (bad != 0)
-            return mcdi_ws_fail(ws, MCD_ESING,
-                                "Maxwell-Stefan matrix B singular at column %zu",
-                                bad - 1);
-    } else {
-        info = LAPACKE_dgetrf_work(LAPACK_COL_MAJOR, (lapack_int)m,
-                                   (lapack_int)m, B, (lapack_int)m, ipiv);
-        if (info > 0)
-            return mcdi_ws_fail(ws, MCD_ESING,
-                                "Maxwell-Stefan matrix B singular (dgetrf "
-                                "info %d)", (int)info);
-        if (info < 0)
-            return mcdi_ws_fail(ws, MCD_EINTERNAL, "dgetrf info %d", (int)info);
-        info = LAPACKE_dgetrs_work(LAPACK_COL_MAJOR, 'N', (lapack_int)m,
-                                   (lapack_int)m, B, (lapack_int)m, ipiv, X,
-                                   (lapack_int)m);
-        if (info != 0)
-            return mcdi_ws_fail(ws, MCD_EINTERNAL, "dgetrs info %d", (int)info);
-    }
-
-    if (basis == MCD_BASIS_MASS) {
-        /* [D°] = A [D] C, A = diag(M) - w dM^T, C = diag(1/M) - x dI^T with
-         * dM_k = M_k - M_n, dI_k = 1/M_k - 1/M_n (reduced indices). */
-        const double Mn = M[dep];
-        for (q = 0; q < m; q++) { /* t = dM^T [D] (row vector) */
-            double s = 0.0;
-            for (r = 0; r < m; r++)
-                s += (M[SP(r)] - Mn) * X[r + q * m];
-            t[q] = s;
-        }
-        for (q = 0; q < m; q++)
-            for (r = 0; r < m; r++) {
-                size_t i = SP(r);
-                X[r + q * m] = M[i] * X[r + q * m] - w[i] * t[q];
-            }
-        for (r = 0; r < m; r++) { /* qv = (A[D]) x */
-            double s = 0.0;
-            for (q = 0; q < m; q++)
-                s += X[r + q * m] * x[SP(q)];
-            qv[r] = s;
-        }
-        for (q = 0; q < m; q++) {
-            size_t j = SP(q);
-            double inv_j = 1.0 / M[j], dI = 1.0 / M[j] - 1.0 / Mn;
-            for (r = 0; r < m; r++)
-                X[r + q * m] = X[r + q * m] * inv_j - qv[r] * dI;
-        }
-    }
-#undef SP
+    assemble_B_gamma(n, dep, x, Dij, Gamma, B, X, cs);
+    if ((st = solve_B(ws, m, B, X, ipiv)) != MCD_OK)
+        return st;
+    if (basis == MCD_BASIS_MASS)
+        fick_to_mass_basis(n, dep, M, x, w, X, t, qv);
 
     for (r = 0; r < m * m; r++)
         if (!mcdi_finite(X[r]))

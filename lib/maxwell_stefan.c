@@ -246,77 +246,49 @@ int mcdi_mass_zero_sum_kept(size_t n, size_t nd, const double *F)
 /* public entry                                                         */
 /* ------------------------------------------------------------------ */
 
-MCD_API mcd_status mcd_flux_compute(mcd_workspace *ws, mcd_model model,
-                                    size_t n_species, size_t n_dim,
-                                    const double *M, const double *Dij,
-                                    double c, mcd_basis comp_basis,
-                                    const double *comp,
-                                    const double *grad_comp,
-                                    const double *Gamma,
-                                    const double *grad_lnP,
-                                    mcd_basis flux_basis, double *out_flux)
+/* Every argument of mcd_flux_compute, in the documented order (writes
+ * nothing but the message). */
+static mcd_status check_state(mcd_workspace *ws, mcd_model model, size_t n,
+                              size_t nd, const double *M, const double *Dij,
+                              double c, mcd_basis comp_basis,
+                              const double *comp, const double *grad_comp,
+                              const double *Gamma, const double *grad_lnP,
+                              mcd_basis flux_basis, const double *out_flux,
+                              int need_M)
 {
-    const size_t n = n_species, nd = n_dim;
-    int need_M;
-    double *x, *w, *d, *J;
-    const double *gx;
-    size_t i, j, dd;
     mcd_status st;
-
-    if (ws == NULL)
-        return MCD_EINVAL;
-    mcdi_ws_clear_error(ws);
-
-    /* ---- validate everything before writing anything ---- */
     if ((st = mcdi_check_species(ws, n, 1, 0, "n_species")) != MCD_OK ||
         (st = mcdi_check_dim(ws, nd)) != MCD_OK ||
         (st = mcdi_check_model(ws, model, 0)) != MCD_OK ||
         (st = mcdi_check_basis(ws, comp_basis, "comp_basis")) != MCD_OK ||
         (st = mcdi_check_basis(ws, flux_basis, "flux_basis")) != MCD_OK ||
-        (st = mcdi_check_ptr(ws, out_flux, "out_flux")) != MCD_OK)
+        (st = mcdi_check_ptr(ws, out_flux, "out_flux")) != MCD_OK ||
+        (st = mcdi_check_conc(ws, c, "c")) != MCD_OK)
         return st;
-    if ((st = mcdi_check_conc(ws, c, "c")) != MCD_OK)
-        return st;
-    need_M = comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
-             grad_lnP != NULL;
     if (need_M && (st = mcdi_check_M(ws, n, M)) != MCD_OK)
         return st;
-    if ((st = mcdi_check_dij(ws, n, Dij)) != MCD_OK)
-        return st;
-    if ((st = mcdi_check_comp(ws, n, comp, "comp")) != MCD_OK)
-        return st;
-    if ((st = mcdi_check_finite(ws, n, nd, grad_comp, "grad_comp")) !=
-        MCD_OK)
+    if ((st = mcdi_check_dij(ws, n, Dij)) != MCD_OK ||
+        (st = mcdi_check_comp(ws, n, comp, "comp")) != MCD_OK ||
+        (st = mcdi_check_finite(ws, n, nd, grad_comp, "grad_comp")) != MCD_OK)
         return st;
     if (Gamma != NULL &&
         (st = mcdi_check_finite(ws, n, n, Gamma, "Gamma")) != MCD_OK)
         return st;
     if (grad_lnP != NULL &&
-        (st = mcdi_check_finite(ws, 1, nd, grad_lnP, "grad_lnP")) !=
-            MCD_OK)
+        (st = mcdi_check_finite(ws, 1, nd, grad_lnP, "grad_lnP")) != MCD_OK)
         return st;
+    return MCD_OK;
+}
 
-    if (n == 1) {
-        for (dd = 0; dd < nd; dd++)
-            out_flux[dd] = 0.0;
-        return MCD_OK;
-    }
-
-    /* ---- compute into workspace scratch ---- */
-    x = ws->core_vec[0];
-    w = need_M ? ws->core_vec[1] : NULL;
-    d = ws->core_nd[1];
-    J = ws->core_nd[2];
-    mcdi_flux_fractions(n, need_M ? M : NULL, comp_basis, comp, x, w);
-
-    if (comp_basis == MCD_BASIS_MOLE) {
-        gx = grad_comp;
-    } else {
-        mcdi_comp_grad_w_to_x(n, nd, M, w, grad_comp, ws->core_nd[0]);
-        gx = ws->core_nd[0];
-    }
-
-    /* driving forces d_i = sum_j Gamma_ij grad x_j + (x_i - w_i) grad ln P */
+/* Driving forces d_i = sum_j Gamma_ij grad x_j + (x_i - w_i) grad ln P
+ * (Gamma = I and no pressure term when NULL), projected onto
+ * sum_i d_i = 0 with weights x (see the top comment). */
+static void driving_forces(size_t n, size_t nd, const double *x,
+                           const double *w, const double *gx,
+                           const double *Gamma, const double *grad_lnP,
+                           double *d)
+{
+    size_t i, j, dd;
     if (Gamma == NULL && grad_lnP == NULL) {
         /* d = gx projected: the same sums and products as the general
          * route below (copy, then projection), in one pass */
@@ -327,7 +299,7 @@ MCD_API mcd_status mcd_flux_compute(mcd_workspace *ws, mcd_model model,
             for (i = 0; i < n; i++)
                 d[i * nd + dd] = gx[i * nd + dd] - x[i] * s;
         }
-        goto solve;
+        return;
     }
     if (Gamma != NULL) {
         for (i = 0; i < n; i++)
@@ -344,7 +316,6 @@ MCD_API mcd_status mcd_flux_compute(mcd_workspace *ws, mcd_model model,
         for (i = 0; i < n; i++)
             for (dd = 0; dd < nd; dd++)
                 d[i * nd + dd] += (x[i] - w[i]) * grad_lnP[dd];
-    /* projection onto sum_i d_i = 0 with weights x (see the top comment) */
     for (dd = 0; dd < nd; dd++) {
         double s = 0.0;
         for (i = 0; i < n; i++)
@@ -352,55 +323,110 @@ MCD_API mcd_status mcd_flux_compute(mcd_workspace *ws, mcd_model model,
         for (i = 0; i < n; i++)
             d[i * nd + dd] -= x[i] * s;
     }
+}
 
-solve:
-    if (model == MCD_MODEL_MAXWELL_STEFAN) {
-        st = mcdi_ms_fluxes(ws, n, nd, x, d, Dij, c, J);
-        if (st != MCD_OK)
-            return st;
-    } else {
-        mcdi_mixavg_fluxes(n, nd, x, d, Dij, c, J, ws->core_vec[3],
-                           ws->core_vec[4]);
-    }
-
-    if (flux_basis == MCD_BASIS_MASS) {
-        /* j_i = M_i J_i - w_i sum_k M_k J_k, then remove the round-off
-         * residual of sum_i j_i with weights w */
-        for (dd = 0; dd < nd; dd++) {
-            double s = 0.0, r = 0.0;
-            for (i = 0; i < n; i++)
-                s += M[i] * J[i * nd + dd];
-            for (i = 0; i < n; i++) {
-                J[i * nd + dd] = M[i] * J[i * nd + dd] - w[i] * s;
-                r += J[i * nd + dd];
-            }
-            for (i = 0; i < n; i++)
-                J[i * nd + dd] -= w[i] * r;
+/* Mass fluxes j_i = M_i J_i - w_i sum_k M_k J_k in place, then the
+ * round-off residual of sum_i j_i removed with weights w. */
+static void to_mass_basis(size_t n, size_t nd, const double *M,
+                          const double *w, double *J)
+{
+    size_t i, dd;
+    for (dd = 0; dd < nd; dd++) {
+        double s = 0.0, r = 0.0;
+        for (i = 0; i < n; i++)
+            s += M[i] * J[i * nd + dd];
+        for (i = 0; i < n; i++) {
+            J[i * nd + dd] = M[i] * J[i * nd + dd] - w[i] * s;
+            r += J[i * nd + dd];
         }
+        for (i = 0; i < n; i++)
+            J[i * nd + dd] -= w[i] * r;
     }
+}
 
-    /* inputs at the edge of the double range (e.g. Đ ~ 1e-310) can
-     * overflow; never hand out non-finite fluxes (one NaN-propagating
-     * pass, J * 0 is NaN exactly for inf and NaN; the loop names it) */
-    {
-        double acc = 0.0;
+/* Copy the fluxes out unless one is not finite (inputs at the edge of the
+ * double range, e.g. Đ ~ 1e-310, can overflow) or mass fluxes lost their
+ * zero-sum to cancellation: EDOM then, out untouched. */
+static mcd_status emit_checked(mcd_workspace *ws, size_t n, size_t nd,
+                               const double *J, mcd_basis flux_basis,
+                               double *out_flux)
+{
+    double acc = 0.0;
+    size_t i;
+    /* one NaN-propagating pass (J * 0 is NaN exactly for inf and NaN);
+     * the loop names the species */
+    for (i = 0; i < n * nd; i++)
+        acc += J[i] * 0.0;
+    if (acc != 0.0)
         for (i = 0; i < n * nd; i++)
-            acc += J[i] * 0.0;
-        if (acc != 0.0)
-            for (i = 0; i < n * nd; i++)
-                if (!mcdi_finite(J[i]))
-                    return mcdi_ws_fail(ws, MCD_EDOM,
-                                        "result: flux of species %zu is not "
-                                        "finite (inputs outside the "
-                                        "representable range)",
-                                        i / nd);
-    }
-    if (flux_basis == MCD_BASIS_MASS &&
-        !mcdi_mass_zero_sum_kept(n, nd, J))
+            if (!mcdi_finite(J[i]))
+                return mcdi_ws_fail(ws, MCD_EDOM,
+                                    "result: flux of species %zu is not "
+                                    "finite (inputs outside the "
+                                    "representable range)",
+                                    i / nd);
+    if (flux_basis == MCD_BASIS_MASS && !mcdi_mass_zero_sum_kept(n, nd, J))
         return mcdi_ws_fail(ws, MCD_EDOM,
                             "result: mass fluxes lost to cancellation (the "
                             "molar masses are too far apart for double "
                             "precision: %s)", "sum over species not zero");
     memcpy(out_flux, J, n * nd * sizeof(double));
     return MCD_OK;
+}
+
+MCD_API mcd_status mcd_flux_compute(mcd_workspace *ws, mcd_model model,
+                                    size_t n_species, size_t n_dim,
+                                    const double *M, const double *Dij,
+                                    double c, mcd_basis comp_basis,
+                                    const double *comp,
+                                    const double *grad_comp,
+                                    const double *Gamma,
+                                    const double *grad_lnP,
+                                    mcd_basis flux_basis, double *out_flux)
+{
+    const size_t n = n_species, nd = n_dim;
+    const int need_M = comp_basis == MCD_BASIS_MASS ||
+                       flux_basis == MCD_BASIS_MASS || grad_lnP != NULL;
+    double *x, *w, *d, *J;
+    const double *gx;
+    size_t dd;
+    mcd_status st;
+
+    if (ws == NULL)
+        return MCD_EINVAL;
+    mcdi_ws_clear_error(ws);
+    /* validate everything before writing anything */
+    if ((st = check_state(ws, model, n, nd, M, Dij, c, comp_basis, comp,
+                          grad_comp, Gamma, grad_lnP, flux_basis, out_flux,
+                          need_M)) != MCD_OK)
+        return st;
+    if (n == 1) {
+        for (dd = 0; dd < nd; dd++)
+            out_flux[dd] = 0.0;
+        return MCD_OK;
+    }
+
+    /* compute into workspace scratch */
+    x = ws->core_vec[0];
+    w = need_M ? ws->core_vec[1] : NULL;
+    d = ws->core_nd[1];
+    J = ws->core_nd[2];
+    mcdi_flux_fractions(n, need_M ? M : NULL, comp_basis, comp, x, w);
+    if (comp_basis == MCD_BASIS_MOLE) {
+        gx = grad_comp;
+    } else {
+        mcdi_comp_grad_w_to_x(n, nd, M, w, grad_comp, ws->core_nd[0]);
+        gx = ws->core_nd[0];
+    }
+    driving_forces(n, nd, x, w, gx, Gamma, grad_lnP, d);
+    if (model == MCD_MODEL_MAXWELL_STEFAN) {
+        if ((st = mcdi_ms_fluxes(ws, n, nd, x, d, Dij, c, J)) != MCD_OK)
+            return st;
+    } else {
+        mcdi_mixavg_fluxes(n, nd, x, d, Dij, c, J, ws->core_vec[3],
+                           ws->core_vec[4]);
+    }
+    if (flux_basis == MCD_BASIS_MASS)
+        to_mass_basis(n, nd, M, w, J);
+    return emit_checked(ws, n, nd, J, flux_basis, out_flux);
 }
