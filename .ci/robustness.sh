@@ -115,7 +115,7 @@ stage_tsan() {
     local log=$LOGDIR/tsan.log
     rm -rf "${PFX}tsan"
     # Full instrumentation: the kernels are chosen by a plain function
-    # (lib/kernel_isa.c), not by ifunc resolvers, which ran during
+    # (lib/base/isa.c), not by ifunc resolvers, which ran during
     # relocation before the TSan runtime existed and needed
     # --param=tsan-instrument-func-entry-exit=0 here.
     if ! CC=gcc meson setup "${PFX}tsan" -Db_sanitize=thread -Db_lundef=false -Dcli=false \

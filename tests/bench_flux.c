@@ -181,7 +181,7 @@ static lapack_int baseline_cell(size_t n, const double *x, size_t K,
  * streams at a time), eight independent sums, and the outputs written
  * with streaming stores (no read of each output line first) where SSE2
  * has them. The library streams its outputs for calls this large
- * (lib/batch.h), so (m) alone no longer bounds it; (m2) does. */
+ * (lib/batched/batch.h), so (m) alone no longer bounds it; (m2) does. */
 static void sum8(const double *a, size_t len, double *acc)
 {
     size_t i = 0;

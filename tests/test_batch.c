@@ -587,7 +587,7 @@ END_TEST
 
 /* Output rows at every offset inside a 64-byte line. The AVX-512 kernel
  * can write full output lines with streaming stores and hold back the
- * values that do not fill a line yet (lib/batch.h); its tests run again
+ * values that do not fill a line yet (lib/batched/batch.h); its tests run again
  * with MCDIFF_STREAM_STORES=always (the *_stream entries of
  * tests/meson.build). Whatever the store path, the SoA results must equal
  * those of the AoS path (which never streams) bit for bit, for every

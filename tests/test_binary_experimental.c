@@ -18,7 +18,7 @@
  *          Heinz and Dietrich, J. Geophys. Res. 92, 10767 (1987)).
  *
  * Bounds. Published average absolute errors (mcd_method_typical_error,
- * sources in lib/binary.c): FSG 5.4 %, Wilke-Lee 7 %, Chapman-Enskog 8 %,
+ * sources in lib/props/binary.c): FSG 5.4 %, Wilke-Lee 7 %, Chapman-Enskog 8 %,
  * Wilke-Chang 11 %. Per pair we allow 3 times the average (single pairs in
  * the published comparisons reach 15-25 %), and over the whole set the
  * mean absolute error must not exceed the published average. Measured

@@ -357,7 +357,7 @@ START_TEST(duncan_toor_start_n2_flux_without_gradient_is_osmotic)
      * gradient at t = 0, so it is not "reverse". In the alternative
      * quotation the tiny N2 gradient has the other sign, so N2 already
      * moves up it; the header does not say whether OSMOTIC and REVERSE may
-     * be set together (lib/diagnose.c makes them exclusive), so there the
+     * be set together (lib/flux/diagnose.c makes them exclusive), so there the
      * sign is checked directly. */
     if (_i != 1) {
         ck_assert(F[N2] * g[N2] < 0.0);

@@ -544,7 +544,7 @@ START_TEST(edge_cases_mixture_averaged_when_c_times_dij_underflows)
 }
 END_TEST
 
-/* lib/maxwell_stefan.c, internal (the static library exports it) */
+/* lib/flux/maxwell_stefan.c, internal (the static library exports it) */
 int mcdi_mass_zero_sum_kept(size_t n, size_t nd, const double *F);
 
 START_TEST(edge_cases_molar_masses_decades_apart_are_an_error)

@@ -10,7 +10,7 @@
 
 #include "mcdiff.h"
 #include "support.h"
-#include "../lib/mixture.h" /* internal fast path, tested against the API */
+#include "props/mixture.h" /* internal fast path, tested against the API */
 
 #define NS 6
 

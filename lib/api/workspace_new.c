@@ -1,0 +1,187 @@
+/* workspace_new.c - mcd_workspace_alloc and mcd_workspace_free: the
+ * scratch of every layer for up to n_species species (workspace.h for the
+ * banks), sized here, above the layers that use it.
+ *
+ * Every buffer is a separate allocation through the workspace's allocator,
+ * so that a test can make the k-th allocation fail for every k; the
+ * constructor starts from zeroed memory and unwinds through one `goto fail`
+ * that calls mcd_workspace_free.
+ */
+#include <stdlib.h>
+#include <string.h>
+#include <lapacke.h>
+
+#include "base/mcd_internal.h"
+#include "base/workspace.h"
+#include "batched/batch.h"
+#ifdef _OPENMP
+#include <omp.h>
+#endif
+
+static void *default_alloc(void *ud, size_t size)
+{
+    (void)ud;
+    return malloc(size);
+}
+
+static void default_free(void *ud, void *p)
+{
+    (void)ud;
+    free(p);
+}
+
+/* a * b * elem without overflow; 0 on overflow. */
+static size_t mul_size(size_t a, size_t b, size_t elem)
+{
+    if (a != 0 && b > ((size_t)-1) / a)
+        return 0;
+    if (a * b != 0 && elem > ((size_t)-1) / (a * b))
+        return 0;
+    return a * b * elem;
+}
+
+/* Allocate `bytes` (> 0) zeroed; NULL on failure or bytes == 0. */
+static void *ws_calloc(mcd_workspace *ws, size_t bytes)
+{
+    void *p;
+    if (bytes == 0)
+        return NULL;
+    p = ws->al.alloc(ws->al.ud, bytes);
+    if (p != NULL)
+        memset(p, 0, bytes);
+    return p;
+}
+
+MCD_API void mcd_workspace_free(mcd_workspace *ws)
+{
+    size_t k;
+    if (ws == NULL)
+        return;
+    for (k = 0; k < 2; k++)
+        ws->al.free(ws->al.ud, ws->core_mat[k]);
+    for (k = 0; k < 4; k++)
+        ws->al.free(ws->al.ud, ws->core_nd[k]);
+    for (k = 0; k < MCDI_WS_CORE_VECS; k++)
+        ws->al.free(ws->al.ud, ws->core_vec[k]);
+    for (k = 0; k < 2; k++)
+        ws->al.free(ws->al.ud, ws->core_idx[k]);
+    ws->al.free(ws->al.ud, ws->geev_work);
+    for (k = 0; k < MCDI_WS_AUX_MATS; k++)
+        ws->al.free(ws->al.ud, ws->aux_mat[k]);
+    for (k = 0; k < MCDI_WS_AUX_VECS; k++)
+        ws->al.free(ws->al.ud, ws->aux_vec[k]);
+    ws->al.free(ws->al.ud, ws->aux_ipiv);
+    ws->al.free(ws->al.ud, ws->batch_raw);
+    {
+        mcd_allocator al = ws->al;
+        al.free(al.ud, ws);
+    }
+}
+
+MCD_API mcd_status mcd_workspace_alloc_with(size_t n_species,
+                                            const mcd_allocator *allocator,
+                                            mcd_workspace **out_ws)
+{
+    mcd_workspace *ws;
+    size_t mat_bytes, nd_bytes, vec_bytes, int_bytes, aux_vec_bytes;
+    size_t k;
+
+    if (out_ws == NULL || allocator == NULL || allocator->alloc == NULL ||
+        allocator->free == NULL)
+        return MCD_EINVAL;
+    if (n_species < 1 || n_species > MCD_MAX_SPECIES)
+        return MCD_EINVAL;
+
+    mat_bytes = mul_size(n_species, n_species, sizeof(double));
+    nd_bytes = mul_size(n_species, MCD_MAX_DIM, sizeof(double));
+    vec_bytes = mul_size(n_species, 1, sizeof(double));
+    int_bytes = mul_size(n_species, 1, sizeof(int));
+    aux_vec_bytes = mul_size(MCDI_WS_AUX_VECLEN(n_species), 1, sizeof(double));
+    if (mat_bytes == 0 || nd_bytes == 0 || vec_bytes == 0 || int_bytes == 0 ||
+        aux_vec_bytes == 0)
+        return MCD_ENOMEM;
+
+    ws = (mcd_workspace *)allocator->alloc(allocator->ud, sizeof(*ws));
+    if (ws == NULL)
+        return MCD_ENOMEM;
+    memset(ws, 0, sizeof(*ws));
+    ws->cap = n_species;
+    ws->al = *allocator;
+
+    for (k = 0; k < 2; k++)
+        if ((ws->core_mat[k] = (double *)ws_calloc(ws, mat_bytes)) == NULL)
+            goto fail;
+    for (k = 0; k < 4; k++)
+        if ((ws->core_nd[k] = (double *)ws_calloc(ws, nd_bytes)) == NULL)
+            goto fail;
+    for (k = 0; k < MCDI_WS_CORE_VECS; k++)
+        if ((ws->core_vec[k] = (double *)ws_calloc(ws, vec_bytes)) == NULL)
+            goto fail;
+    for (k = 0; k < 2; k++)
+        if ((ws->core_idx[k] = (int *)ws_calloc(ws, int_bytes)) == NULL)
+            goto fail;
+    for (k = 0; k < MCDI_WS_AUX_MATS; k++)
+        if ((ws->aux_mat[k] = (double *)ws_calloc(ws, mat_bytes)) == NULL)
+            goto fail;
+    for (k = 0; k < MCDI_WS_AUX_VECS; k++)
+        if ((ws->aux_vec[k] = (double *)ws_calloc(ws, aux_vec_bytes)) == NULL)
+            goto fail;
+    if ((ws->aux_ipiv = (int *)ws_calloc(ws, int_bytes)) == NULL)
+        goto fail;
+
+    /* batched scratch: one region per OpenMP thread, each a multiple of 8
+     * doubles so that every region starts 64-byte aligned */
+    {
+        size_t per = (mcdi_batch_scratch_doubles(n_species) + 7) & ~(size_t)7;
+        size_t nt = 1, bytes;
+#ifdef _OPENMP
+        nt = (size_t)omp_get_max_threads();
+        if (nt < 1)
+            nt = 1;
+#endif
+        bytes = mul_size(per * nt + 8, 1, sizeof(double));
+        if (bytes == 0 || (ws->batch_raw = ws_calloc(ws, bytes)) == NULL)
+            goto fail;
+        ws->batch_mem = (double *)(((size_t)ws->batch_raw + 63) & ~(size_t)63);
+        ws->batch_per_thread = per;
+        ws->batch_threads = nt;
+        ws->iter_max = 100;
+        ws->iter_tol = 1e-10;
+    }
+
+    /* dgeev workspace query for the largest n with right eigenvectors (the
+     * job that needs the most work). The minimum LAPACK accepts is 4n; the
+     * optimal size from the query is used when it is larger. */
+    {
+        lapack_int n = (lapack_int)n_species, info;
+        double wq = 0.0, dummy_v = 0.0;
+        size_t lwork = 4 * n_species + 16;
+        info = LAPACKE_dgeev_work(LAPACK_COL_MAJOR, 'N', 'V', n,
+                                  ws->core_mat[0], n, ws->core_vec[0],
+                                  ws->core_vec[1], &dummy_v, 1,
+                                  ws->core_mat[1], n, &wq, -1);
+        if (info == 0 && wq > (double)lwork && wq < 1e9)
+            lwork = (size_t)wq;
+        ws->geev_lwork = lwork;
+        if ((ws->geev_work = (double *)ws_calloc(
+                 ws, mul_size(lwork, 1, sizeof(double)))) == NULL)
+            goto fail;
+    }
+
+    *out_ws = ws;
+    return MCD_OK;
+
+fail:
+    mcd_workspace_free(ws);
+    return MCD_ENOMEM;
+}
+
+MCD_API mcd_status mcd_workspace_alloc(size_t n_species,
+                                       mcd_workspace **out_ws)
+{
+    mcd_allocator al;
+    al.alloc = default_alloc;
+    al.free = default_free;
+    al.ud = NULL;
+    return mcd_workspace_alloc_with(n_species, &al, out_ws);
+}

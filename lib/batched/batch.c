@@ -1,0 +1,482 @@
+/* batch.c - batched flux calls: argument checks, the loop over blocks of
+ * cells (optionally OpenMP-parallel), the array-of-structures convenience
+ * path and the iterative-model settings. The arithmetic is in
+ * batch_kernel.c (see there for the equations and methods).
+ *
+ * Determinism: blocks are fixed by cell index (MCDI_LANES consecutive
+ * cells) and every cell is computed by the same code whatever thread runs
+ * its block; the only quantities combined across cells are maxima (error
+ * estimate, iteration count) and the lowest failing cell index, which do
+ * not depend on the order. So the results are bit-for-bit those of the
+ * serial run.
+ */
+#include <float.h>
+#include <stdint.h>
+#include <string.h>
+#ifdef _OPENMP
+#include <omp.h>
+#endif
+
+#include "base/mcd_internal.h"
+#include "base/workspace.h"
+#include "props/mixture.h"
+#include "batched/batch.h"
+#include "batched/batch_layout.h"
+#include "flux/flux_core.h"
+
+/* Whether some pair of the mixture depends on T through a collision
+ * integral (Chapman-Enskog, Wilke-Lee) rather than the exact power law:
+ * decided once per call, not per block. */
+static int mixture_has_omega(const mcd_mixture *mix)
+{
+    size_t i, j, n = mix->n;
+    for (i = 1; i < n; i++)
+        for (j = 0; j < i; j++) {
+            int m = mix->method[i * n + j];
+            if (m != MCD_METHOD_FSG && m != MCD_METHOD_USER)
+                return 1;
+        }
+    return 0;
+}
+
+size_t mcdi_batch_scratch_doubles(size_t cap)
+{
+    /* blocks of up to MCDI_LANES cells up to MCDI_LANES_NMAX species, one
+     * cell at a time above; each followed by the AoS staging */
+    const size_t nl = cap < MCDI_LANES_NMAX ? cap : MCDI_LANES_NMAX;
+    size_t need = mcdi_kblock_doubles(nl, MCD_MAX_DIM, MCDI_LANES) +
+                  mcdi_aos_doubles(nl, MCD_MAX_DIM, MCDI_LANES);
+    if (cap > MCDI_LANES_NMAX) {
+        size_t one = mcdi_kblock_doubles(cap, MCD_MAX_DIM, 1) +
+                     mcdi_aos_doubles(cap, MCD_MAX_DIM, 1);
+        need = one > need ? one : need;
+    }
+    return MCDI_STREAM_DOUBLES + need; /* streaming state, then the block */
+}
+
+/* The first rule that cell k of the job breaks, checked in the order and
+ * with the messages of the single-state calls (checks.c); MCD_OK if the
+ * cell is fine. The rules are those the kernel's loading stages apply. */
+static mcd_status check_cell(mcd_workspace *ws, const mcdi_bjob *jb, size_t k)
+{
+    const size_t n = jb->n, nd = jb->nd, K = jb->K;
+    mcd_status st = MCD_OK;
+    if (jb->mix != NULL) {
+        if ((st = mcdi_check_positive(ws, jb->T[k], "T")) != MCD_OK ||
+            (st = mcdi_check_positive(ws, jb->P[k], "P")) != MCD_OK)
+            return st;
+        if (!(jb->P[k] / (MCD_GAS_CONSTANT * jb->T[k]) >= DBL_MIN))
+            return mcdi_ws_fail(ws, MCD_EDOM,
+                                "argument P: the concentration P / (R T) = %g "
+                                "is not a normal positive number",
+                                jb->P[k] / (MCD_GAS_CONSTANT * jb->T[k]));
+    } else if ((st = mcdi_check_conc(ws, jb->c[k], "c")) != MCD_OK ||
+               (st = mcdi_check_dij_strided(ws, n, jb->Dij + k, K)) != MCD_OK) {
+        return st;
+    }
+    if ((st = mcdi_check_comp_strided(ws, n, jb->comp + k, K, "comp")) != MCD_OK ||
+        (st = mcdi_check_finite_strided(ws, n, nd, jb->grad + k, K, "grad")) != MCD_OK)
+        return st;
+    if (jb->glnP != NULL)
+        st = mcdi_check_finite_strided(ws, 1, nd, jb->glnP + k, K, "grad_lnP");
+    return st;
+}
+
+/* Name the first bad cell of a block [k0, k0 + nv) that the kernel flagged
+ * (res->recheck), as "cell <shown>: argument ...", shown = shift + k. */
+static mcd_status recheck_block(mcd_workspace *ws, const mcdi_bjob *jb,
+                                size_t k0, size_t nv, size_t shift)
+{
+    char msg[MCDI_WS_ERRLEN];
+    size_t k;
+    for (k = k0; k < k0 + nv; k++) {
+        mcd_status st = check_cell(ws, jb, k);
+        if (st != MCD_OK) {
+            memcpy(msg, ws->err, sizeof msg);
+            msg[sizeof msg - 1] = '\0';
+            return mcdi_ws_fail(ws, st, "cell %zu: %s", shift + k, msg);
+        }
+    }
+    return mcdi_ws_fail(ws, MCD_EINTERNAL,
+                        "cell %zu: internal: validation mismatch", shift + k0);
+}
+
+/* Run the job over cells [0, K) with the workspace's scratch. */
+static mcd_status run_job(mcd_workspace *ws, const mcdi_bjob *jb)
+{
+    const size_t K = jb->K, L = mcdi_batch_lanes(jb->n);
+    const size_t nblk = (K + L - 1) / L;
+    size_t fail_cell = (size_t)-1, iter_used = 0;
+    double iter_err = 0.0;
+    mcd_status fail_st = MCD_OK;
+    const char *fail_what = "";
+    int fail_recheck = 0;
+    long b;
+    int nthreads = 1;
+#ifdef _OPENMP
+    nthreads = ws->threads_req > 0 ? (int)ws->threads_req : omp_get_max_threads();
+    if (nthreads > (int)ws->batch_threads)
+        nthreads = (int)ws->batch_threads;
+    if ((size_t)nthreads > nblk)
+        nthreads = nblk > 0 ? (int)nblk : 1;
+    if (nthreads < 1)
+        nthreads = 1;
+#endif
+    (void)nthreads;
+#ifdef _OPENMP
+#pragma omp parallel num_threads(nthreads) if (nthreads > 1)
+#endif
+    {
+        int tid = 0;
+        size_t my_used = 0;
+        double my_err = 0.0;
+        double *mem;
+#ifdef _OPENMP
+        tid = omp_get_thread_num();
+#endif
+        mem = ws->batch_mem + (size_t)tid * ws->batch_per_thread;
+        mcdi_batch_stream_reset(mem);
+#ifdef _OPENMP
+#pragma omp for schedule(static)
+#endif
+        for (b = 0; b < (long)nblk; b++) {
+            size_t k0 = (size_t)b * L, nv = K - k0 < L ? K - k0 : L;
+            mcdi_bres res;
+            res.st = MCD_OK;
+            res.lane = 0;
+            res.what = "";
+            res.recheck = 0;
+            res.iter_err = 0.0;
+            res.iter_used = 0;
+            mcdi_batch_block(jb, k0, nv, mem, &res);
+            if (res.st != MCD_OK) {
+#ifdef _OPENMP
+#pragma omp critical
+#endif
+                {
+                    /* a flagged block's bad cell lies in [k0, k0 + nv):
+                     * no other block's cell lies there */
+                    if (k0 + res.lane < fail_cell) {
+                        fail_cell = k0 + res.lane;
+                        fail_st = res.st;
+                        fail_what = res.what;
+                        fail_recheck = res.recheck;
+                    }
+                }
+            } else {
+                if (res.iter_err > my_err || res.iter_err != res.iter_err)
+                    my_err = res.iter_err;
+                if (res.iter_used > my_used)
+                    my_used = res.iter_used;
+            }
+        }
+        mcdi_batch_finish(jb, mem);
+#ifdef _OPENMP
+#pragma omp critical
+#endif
+        {
+            if (my_err > iter_err || my_err != my_err)
+                iter_err = my_err;
+            if (my_used > iter_used)
+                iter_used = my_used;
+        }
+    }
+    if (jb->model == MCD_MODEL_ITERATIVE) {
+        ws->iter_err = iter_err;
+        ws->iter_used = iter_used;
+    }
+    if (fail_recheck)
+        return recheck_block(ws, jb, fail_cell,
+                             K - fail_cell < L ? K - fail_cell : L, 0);
+    if (fail_st != MCD_OK)
+        return mcdi_ws_fail(ws, fail_st, "cell %zu: %s", fail_cell, fail_what);
+    return MCD_OK;
+}
+
+/* Checks shared by every batched entry point (writes nothing). */
+static mcd_status check_common(mcd_workspace *ws, mcd_model model, size_t n,
+                               size_t n_cells, size_t n_dim,
+                               mcd_basis comp_basis, const double *comp,
+                               const double *grad, mcd_basis flux_basis,
+                               const double *out)
+{
+    mcd_status st;
+    (void)n_cells;
+    if ((st = mcdi_check_species(ws, n, 1, 0, "n_species")) != MCD_OK ||
+        (st = mcdi_check_dim(ws, n_dim)) != MCD_OK ||
+        (st = mcdi_check_model(ws, model, 1)) != MCD_OK ||
+        (st = mcdi_check_basis(ws, comp_basis, "comp_basis")) != MCD_OK ||
+        (st = mcdi_check_basis(ws, flux_basis, "flux_basis")) != MCD_OK ||
+        (st = mcdi_check_ptr(ws, comp, "comp")) != MCD_OK ||
+        (st = mcdi_check_ptr(ws, grad, "grad")) != MCD_OK ||
+        (st = mcdi_check_ptr(ws, out, "out_flux")) != MCD_OK)
+        return st;
+    return MCD_OK;
+}
+
+/* Whether the job streams its outputs: by the bytes it reads and writes
+ * (batch.h, kernel_isa.c). Only the SoA entries ask; the AoS path writes
+ * into staging that it reads back at once. */
+static int stream_choice(const mcdi_bjob *jb)
+{
+    const size_t n = jb->n, nd = jb->nd;
+    size_t per_cell = n + 2 * n * nd + (jb->mix != NULL ? 2 : 1 + n * n) +
+                      (jb->glnP != NULL ? nd : 0);
+    double bytes = 8.0 * (double)per_cell * (double)jb->K;
+    if (((uintptr_t)jb->out & 7u) != 0)
+        return 0; /* lines are found from the address of a double */
+    return mcdi_batch_stream_choice(bytes >= 1e18 ? (size_t)1e18
+                                                  : (size_t)bytes);
+}
+
+static void job_init(mcdi_bjob *jb, const mcd_workspace *ws, mcd_model model,
+                     size_t n, size_t K, size_t nd, mcd_basis cb, mcd_basis fb)
+{
+    memset(jb, 0, sizeof *jb);
+    jb->n = n;
+    jb->nd = nd;
+    jb->K = K;
+    jb->model = (int)model;
+    jb->comp_basis = (int)cb;
+    jb->flux_basis = (int)fb;
+    jb->max_iter = ws->iter_max;
+    jb->tol = ws->iter_tol;
+}
+
+MCD_API mcd_status mcd_flux_batch(mcd_workspace *ws, const mcd_mixture *mix,
+                                  mcd_model model, size_t n_cells,
+                                  size_t n_dim, const double *T,
+                                  const double *P, mcd_basis comp_basis,
+                                  const double *comp, const double *grad,
+                                  const double *grad_lnP,
+                                  mcd_basis flux_basis, double *out_flux)
+{
+    mcdi_bjob jb;
+    mcd_status st;
+    size_t n;
+    if (ws == NULL)
+        return MCD_EINVAL;
+    mcdi_ws_clear_error(ws);
+    if (mix == NULL)
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument mix: NULL");
+    n = mix->n;
+    if ((st = check_common(ws, model, n, n_cells, n_dim, comp_basis, comp,
+                           grad, flux_basis, out_flux)) != MCD_OK)
+        return st;
+    if (T == NULL || P == NULL)
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL",
+                            T == NULL ? "T" : "P");
+    if ((st = mcdi_mixture_ready(mix)) != MCD_OK)
+        return mcdi_ws_fail(ws, st, "argument mix: a pair's method lacks a "
+                                    "parameter");
+    if (!mix->M_ok)
+        return mcdi_ws_fail(ws, MCD_ENODATA, "argument mix: a molar mass is "
+                                             "unknown");
+    job_init(&jb, ws, model, n, n_cells, n_dim, comp_basis, flux_basis);
+    jb.mix = mix;
+    jb.mix_has_omega = mixture_has_omega(mix);
+    jb.T = T;
+    jb.P = P;
+    jb.M = (comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
+            grad_lnP != NULL) ? mix->M : NULL;
+    if (jb.M != NULL && !mcdi_M_span_ok(n, jb.M))
+        return mcdi_ws_fail(ws, MCD_EDOM,
+                            "argument mix: the molar masses span more than a "
+                            "factor 1e12 (the basis conversions would lose "
+                            "all precision)");
+    jb.comp = comp;
+    jb.grad = grad;
+    jb.glnP = grad_lnP;
+    jb.out = out_flux;
+    if (n_cells == 0)
+        return MCD_OK;
+    jb.stream = stream_choice(&jb);
+    return run_job(ws, &jb);
+}
+
+MCD_API mcd_status mcd_flux_batch_dij(mcd_workspace *ws, mcd_model model,
+                                      size_t n_species, size_t n_cells,
+                                      size_t n_dim, const double *M,
+                                      const double *Dij, const double *c,
+                                      mcd_basis comp_basis,
+                                      const double *comp, const double *grad,
+                                      const double *grad_lnP,
+                                      mcd_basis flux_basis, double *out_flux)
+{
+    mcdi_bjob jb;
+    mcd_status st;
+    int need_M;
+    if (ws == NULL)
+        return MCD_EINVAL;
+    mcdi_ws_clear_error(ws);
+    if ((st = check_common(ws, model, n_species, n_cells, n_dim, comp_basis,
+                           comp, grad, flux_basis, out_flux)) != MCD_OK)
+        return st;
+    if (Dij == NULL)
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument Dij: NULL");
+    if (c == NULL)
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument c: NULL");
+    need_M = comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
+             grad_lnP != NULL;
+    if (need_M && (st = mcdi_check_M(ws, n_species, M)) != MCD_OK)
+        return st;
+    job_init(&jb, ws, model, n_species, n_cells, n_dim, comp_basis,
+             flux_basis);
+    jb.Dij = Dij;
+    jb.c = c;
+    jb.M = need_M ? M : NULL;
+    jb.comp = comp;
+    jb.grad = grad;
+    jb.glnP = grad_lnP;
+    jb.out = out_flux;
+    if (n_cells == 0)
+        return MCD_OK;
+    jb.stream = stream_choice(&jb);
+    return run_job(ws, &jb);
+}
+
+/* AoS: each block of L cells is transposed into SoA staging that follows
+ * the kernel's scratch in the thread's region, computed with stride L,
+ * and transposed back. Serial (the staging is per workspace thread 0). */
+MCD_API mcd_status mcd_flux_batch_aos(mcd_workspace *ws,
+                                      const mcd_mixture *mix,
+                                      mcd_model model, size_t n_cells,
+                                      size_t n_dim, const double *T,
+                                      const double *P, mcd_basis comp_basis,
+                                      const double *comp, const double *grad,
+                                      const double *grad_lnP,
+                                      mcd_basis flux_basis, double *out_flux)
+{
+    mcdi_bjob jb;
+    mcd_status st;
+    size_t n, L, k0, nd = n_dim, iter_used = 0;
+    mcdi_aos_stage sg;
+    double iter_err = 0.0;
+    if (ws == NULL)
+        return MCD_EINVAL;
+    mcdi_ws_clear_error(ws);
+    if (mix == NULL)
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument mix: NULL");
+    n = mix->n;
+    if ((st = check_common(ws, model, n, n_cells, n_dim, comp_basis, comp,
+                           grad, flux_basis, out_flux)) != MCD_OK)
+        return st;
+    if (T == NULL || P == NULL)
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL",
+                            T == NULL ? "T" : "P");
+    if ((st = mcdi_mixture_ready(mix)) != MCD_OK)
+        return mcdi_ws_fail(ws, st, "argument mix: a pair's method lacks a "
+                                    "parameter");
+    if (!mix->M_ok)
+        return mcdi_ws_fail(ws, MCD_ENODATA, "argument mix: a molar mass is "
+                                             "unknown");
+    if (n_cells == 0)
+        return MCD_OK;
+    L = mcdi_batch_lanes(n);
+    /* staging after the kernel's block scratch in thread 0's region (both
+     * counted by mcdi_batch_scratch_doubles) */
+    mcdi_aos_carve(ws->batch_mem + MCDI_STREAM_DOUBLES +
+                       mcdi_kblock_doubles(n, nd, L),
+                   n, nd, L, &sg);
+    job_init(&jb, ws, model, n, L, nd, comp_basis, flux_basis);
+    jb.mix = mix;
+    jb.mix_has_omega = mixture_has_omega(mix);
+    jb.T = sg.T;
+    jb.P = sg.P;
+    jb.M = (comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
+            grad_lnP != NULL) ? mix->M : NULL;
+    if (jb.M != NULL && !mcdi_M_span_ok(n, jb.M))
+        return mcdi_ws_fail(ws, MCD_EDOM,
+                            "argument mix: the molar masses span more than a "
+                            "factor 1e12 (the basis conversions would lose "
+                            "all precision)");
+    jb.comp = sg.comp;
+    jb.grad = sg.grad;
+    jb.glnP = grad_lnP != NULL ? sg.glnP : NULL;
+    jb.out = sg.out;
+    for (k0 = 0; k0 < n_cells; k0 += L) {
+        size_t nv = n_cells - k0 < L ? n_cells - k0 : L, l, i, d;
+        mcdi_bres res;
+        for (l = 0; l < nv; l++) {
+            size_t k = k0 + l;
+            sg.T[l] = T[k];
+            sg.P[l] = P[k];
+            for (i = 0; i < n; i++)
+                sg.comp[i * L + l] = comp[k * n + i];
+            for (i = 0; i < n * nd; i++)
+                sg.grad[i * L + l] = grad[k * n * nd + i];
+            if (grad_lnP != NULL)
+                for (d = 0; d < nd; d++)
+                    sg.glnP[d * L + l] = grad_lnP[k * nd + d];
+        }
+        res.st = MCD_OK;
+        res.lane = 0;
+        res.what = "";
+        res.recheck = 0;
+        res.iter_err = 0.0;
+        res.iter_used = 0;
+        mcdi_batch_block(&jb, 0, nv, ws->batch_mem, &res);
+        if (res.st != MCD_OK) {
+            if (model == MCD_MODEL_ITERATIVE) {
+                ws->iter_err = iter_err;
+                ws->iter_used = iter_used;
+            }
+            if (res.recheck)
+                return recheck_block(ws, &jb, 0, nv, k0);
+            return mcdi_ws_fail(ws, res.st, "cell %zu: %s", k0 + res.lane,
+                                res.what);
+        }
+        if (res.iter_err > iter_err || res.iter_err != res.iter_err)
+            iter_err = res.iter_err;
+        if (res.iter_used > iter_used)
+            iter_used = res.iter_used;
+        for (l = 0; l < nv; l++)
+            for (i = 0; i < n * nd; i++)
+                out_flux[(k0 + l) * n * nd + i] = sg.out[i * L + l];
+    }
+    if (model == MCD_MODEL_ITERATIVE) {
+        ws->iter_err = iter_err;
+        ws->iter_used = iter_used;
+    }
+    return MCD_OK;
+}
+
+MCD_API mcd_status mcd_workspace_set_iterative(mcd_workspace *ws,
+                                               size_t max_iter, double tol)
+{
+    if (ws == NULL)
+        return MCD_EINVAL;
+    mcdi_ws_clear_error(ws);
+    if (max_iter < 1 || max_iter > 1000)
+        return mcdi_ws_fail(ws, MCD_EINVAL,
+                            "argument max_iter: %zu is not in 1..1000",
+                            max_iter);
+    if (!mcdi_finite(tol) || !(tol >= 0.0))
+        return mcdi_ws_fail(ws, MCD_EINVAL,
+                            "argument tol: not a finite value >= 0");
+    ws->iter_max = max_iter;
+    ws->iter_tol = tol;
+    return MCD_OK;
+}
+
+MCD_API mcd_status mcd_workspace_iterative_info(const mcd_workspace *ws,
+                                                double *out_max_error,
+                                                size_t *out_max_iter)
+{
+    if (ws == NULL)
+        return MCD_EINVAL;
+    if (out_max_error != NULL)
+        *out_max_error = ws->iter_err;
+    if (out_max_iter != NULL)
+        *out_max_iter = ws->iter_used;
+    return MCD_OK;
+}
+
+MCD_API mcd_status mcd_workspace_set_threads(mcd_workspace *ws,
+                                             size_t n_threads)
+{
+    if (ws == NULL)
+        return MCD_EINVAL;
+    ws->threads_req = n_threads;
+    return MCD_OK;
+}

@@ -1,0 +1,277 @@
+/* batch_kernel.c - lane-vectorised kernels of the batched flux calls
+ * (mcd_flux_batch, mcd_flux_batch_dij, mcd_flux_batch_aos; driver in
+ * batch.c). Compiled with -O3 -fno-math-errno -ffp-contract=fast (see
+ * lib/meson.build); on x86-64 with GCC the file is compiled for AVX-512,
+ * AVX2+FMA and baseline SSE2 and kernel_isa.c picks one object at run
+ * time, so the default build is portable and still uses the machine's
+ * vector width.
+ *
+ * Layout: a block holds L cells ("lanes"); every quantity of species i is
+ * L contiguous doubles, q[i*L + l]. Each step below is a loop over lanes
+ * that the compiler vectorises; the species loops are fully unrolled for
+ * N <= 5 and n_dim = 3 (instantiated for each, see block_lanes).
+ *
+ * Equations: as mcd_flux_compute (maxwell_stefan.c, mixavg.c), with the
+ * same scaled symmetric positive definite form of the Maxwell-Stefan
+ * equations (Ern and Giovangigli 1994):
+ *     (Gs + a s s^T) U = b,   s_i = sqrt(x_i),   J_i = c s_i U_i,
+ *     (Gs)_ii = S_i = sum_{k != i} x_k / Đ_ik,   (Gs)_ij = -s_i s_j / Đ_ij,
+ *     b_i = -(d_i - x_i sum_{t trace} J_t / (c Đ_it)) / s_i,
+ * a = max S_i over the species present (the largest Blanc sum, inside the
+ * spectrum of Gs on s-perp, so it does not worsen the conditioning). Trace
+ * species (x_i = 0) obey Blanc's law exactly, J_i = -c d_i / S_i, and are
+ * carried as decoupled rows (s_i = 0 makes their off-diagonal entries and
+ * right-hand side 0, their diagonal S_i > 0), so every lane runs the same
+ * code whatever its set of trace species; the species present absorb the
+ * trace fluxes through J_k -= x_k sum_t J_t. A pure component (one x_k = 1)
+ * has S_k = 0; then a = max S_i over all species (> 0) keeps the matrix
+ * definite.
+ *
+ * Factorisation (exact model): LDL^T without pivoting and without square
+ * roots, left-looking, packed lower triangle, vectorised across the L
+ * cells: D_j = A_jj - sum_{k<j} L_jk^2 D_k, L_ij = (A_ij - sum_{k<j} L_ik
+ * L_jk D_k) / D_j. The matrix is SPD with a diagonal bounded below by the
+ * Blanc sums, so no pivoting is needed (Golub and Van Loan 2013, sec.
+ * 4.2); a non-positive pivot (round-off on absurd inputs) is MCD_ESING.
+ * Cost N^3/3 flops per cell. For N > MCDI_LANES_NMAX one cell is solved at
+ * a time (lanes = 1) by the same LDL^T. LAPACK's blocked Cholesky is not
+ * used here: a threaded BLAS (OpenBLAS) allocates inside dpotrf for larger
+ * N, which would break the no-allocation guarantee of the batched calls.
+ *
+ * Iterative model (Ern and Giovangigli 1994, "Multicomponent Transport
+ * Algorithms", Springer monograph m24, ch. 5; and J. Comput. Phys.
+ * 120 (1995) 105): the splitting Gs = Ms - Zs with the diagonal
+ * Ms_ii = S_i / (1 - x_i) and the projector Ps = I - s s^T onto the
+ * constraint s^T U = 0 (sum J_i = 0) give the convergent iteration
+ *     U^0 = Ps Ms^-1 b,   U^{k+1} = Ps Ms^-1 (Zs U^k + b),
+ * whose limit is the exact solution; U^0 is the mixture-averaged flux with
+ * the x-weighted correction velocity. With Ms^-1 Zs U = x_i U_i + (1 -
+ * x_i) s_i sum_j s_j U_j / (S_i Đ_ij) one iteration costs O(N^2 n_dim).
+ * Error estimate per cell: with delta_k = max |s (U^{k+1} - U^k)| / max
+ * |s U^{k+1}| (relative change of the fluxes) and the observed contraction
+ * rho = max(delta_k / delta_{k-1}, delta_{k-1} / delta_{k-2}), the error is
+ * estimated as delta_k / (1 - rho), the geometric-tail bound of the error
+ * of U^k, which over-estimates that of the returned U^{k+1} by about
+ * 1/rho; rho >= 0.999 counts as not converged (estimate HUGE_VAL) unless
+ * delta_k is round-off (MCDI_ITER_FLOOR). A cell stops when its estimate is <= tol and is then no
+ * longer updated, so its result does not depend on the other cells of its
+ * block.
+ */
+#include <float.h>
+#include <math.h>
+#include <stdint.h>
+#include <string.h>
+
+#include "base/mcd_internal.h"
+#include "props/mixture.h"
+#include "batched/batch.h"
+#include "batched/batch_layout.h"
+#include "flux/flux_core.h"
+#include "batched/kernel_lanes.h"
+
+/* Neufeld-Janzen-Aziz collision integral, as binary.c (exact path). */
+static double omega_exact(double Ts) { return mcdi_omega_d(Ts); }
+
+/* ------------------------------------------------------------------ */
+/* the stages of a block                                               */
+/* ------------------------------------------------------------------ */
+
+/* Each stage reads and writes the regions of the block's scratch
+ * (batch_layout.h) and is inlined into body(), which is instantiated for
+ * constant n, L and nd; a stage that checks inputs returns non-zero when
+ * some lane is out of range (the cell is then named by report_bad_cell).
+ * Adding a driving force means changing stage_forces (and its loader). */
+#include "batched/kernel_stages.h" /* shared by every model */
+#include "batched/kernel_ldl.h"    /* exact model */
+#include "batched/kernel_iter.h"   /* iterative model */
+#include "batched/kernel_emit.h"   /* fused emit of full mole-basis blocks */
+
+/* The lowest lane with a non-positive (or NaN) pivot: ESING. */
+static void report_not_definite(const double *Dg, size_t nv, mcdi_bres *res,
+                                size_t n, size_t L)
+{
+    size_t j, l;
+    for (l = 0; l < nv; l++)
+        for (j = 0; j < n; j++)
+            if (!(Dg[j * L + l] > 0.0)) {
+                res->st = MCD_ESING;
+                res->lane = l;
+                res->what = "Maxwell-Stefan matrix not positive definite "
+                            "(round-off; check Dij scale)";
+                return;
+            }
+    res->st = MCD_EINTERNAL; /* flagged without a bad pivot */
+    res->lane = 0;
+    res->what = "internal: pivot check mismatch";
+}
+
+/* A block flagged by a loading stage: the driver names the first bad cell
+ * with the argument checks of the single-state calls (batch.c). */
+static void report_bad_cell(mcdi_bres *res)
+{
+    res->st = MCD_EINVAL; /* replaced by the re-check's status */
+    res->lane = 0;
+    res->recheck = 1;
+    res->what = "";
+}
+
+/* ------------------------------------------------------------------ */
+/* the block body, instantiated for constant n and L                    */
+/* ------------------------------------------------------------------ */
+
+KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
+                  mcdi_bres *res, const size_t n, const size_t L,
+                  const size_t nd)
+{
+    double *const nts = mem - MCDI_STREAM_DOUBLES; /* streaming state */
+    const int mass_out = jb->flux_basis == MCD_BASIS_MASS;
+    /* iterative model on a power-law mixture: the inverse diffusivities
+     * are f_l / coef_ij, used through the shared 1 / coef (Blanc sums,
+     * iter_product_c); the per-lane triangle is filled only for the trace
+     * coupling of blocks with trace species */
+    const int pl = jb->mix != NULL && !jb->mix_has_omega &&
+                   jb->model == MCD_MODEL_ITERATIVE && L == MCDI_VLANES;
+    mcdi_kblock b;
+    size_t i;
+
+    mcdi_kblock_carve(mem, n, nd, L, &b);
+    res->st = MCD_OK;
+    if ((stage_load_scalars(jb, &b, k0, nv, L) |
+         stage_load_comp(jb, &b, k0, nv, n, L)) != 0) {
+        report_bad_cell(res);
+        return;
+    }
+    stage_fractions(jb, &b, n, L);
+    if (stage_load_forces(jb, &b, k0, nv, n, L, nd)) {
+        report_bad_cell(res);
+        return;
+    }
+    stage_forces(jb, &b, n, L, nd);
+    if (n == 1) {
+        /* a single species does not diffuse */
+        for (i = 0; i < nd * L; i++)
+            b.J[i] = 0.0;
+        stage_store(jb, &b, k0, nv, res, n, L, nd);
+        return;
+    }
+    if (jb->mix == NULL) {
+        if (stage_invdiff_dij(jb, &b, k0, nv, n, L)) {
+            report_bad_cell(res);
+            return;
+        }
+    } else {
+        stage_invdiff_mixture(jb, &b, pl, n, L);
+    }
+    stage_blanc(jb, &b, pl, n, L);
+
+    if (jb->model == MCD_MODEL_MIXTURE_AVERAGED) {
+        stage_mixavg(&b, n, L, nd);
+    } else {
+        const int ntr = stage_trace(jb, &b, pl, n, L, nd);
+        stage_rhs(&b, n, L, nd);
+        if (jb->model == MCD_MODEL_MAXWELL_STEFAN) {
+            if (!stage_exact(&b, n, L, nd)) {
+                report_not_definite(b.Dg, nv, res, n, L);
+                return;
+            }
+        } else {
+            stage_iterate(jb, &b, pl, nv, res, n, L, nd);
+        }
+        if (L == MCDI_VLANES && nv == L && !mass_out) {
+            /* full block, mole basis: compose, clean up and store at once
+             * (a flux not finite: J holds them all, stage_store reports) */
+            if (!emit_mole_v(n, nd, (const mcdi_vd *)b.s, (const mcdi_vd *)b.x,
+                             (const mcdi_vd *)b.r, (const mcdi_vd *)b.t, ntr,
+                             *(const mcdi_vd *)b.c, (mcdi_vd *)b.J, jb->out,
+                             jb->K, k0, jb->stream, nts))
+                stage_store(jb, &b, k0, nv, res, n, L, nd);
+            return;
+        }
+        stage_compose(&b, n, L, nd);
+    }
+    zero_sum(&b, b.x, n, L, nd); /* trace species stay exact */
+    if (mass_out && !stage_mass(jb, &b, nv, res, n, L, nd))
+        return;
+    stage_store(jb, &b, k0, nv, res, n, L, nd);
+}
+
+/* ------------------------------------------------------------------ */
+/* dispatch on n (constant-folded instances for small n)                */
+/* ------------------------------------------------------------------ */
+
+#define LANES_SMALL MCDI_VLANES
+
+/* n and n_dim = 3 (the common case) as compile-time constants for small
+ * n (2 to 5), so that the species loops unroll; larger n and other n_dim
+ * share one generic instance. The set
+ * of instances is kept small on purpose: every instance is compiled once
+ * per ISA clone, and each costs several seconds of compile time. */
+/* One function per instance, each cloned per ISA on its own: a single
+ * function holding every instance took GCC minutes to optimise (passes
+ * that grow faster than the function size). */
+#define INSTANCE(name, nn, ndd)                                            \
+    __attribute__((noinline)) static void name(                           \
+        const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,          \
+        mcdi_bres *res)                                                   \
+    {                                                                     \
+        body(jb, k0, nv, mem, res, nn, LANES_SMALL, ndd);                 \
+    }
+INSTANCE(block_n2_d3, 2, 3)
+INSTANCE(block_n3_d3, 3, 3)
+INSTANCE(block_n4_d3, 4, 3)
+INSTANCE(block_n5_d3, 5, 3)
+INSTANCE(block_nn_d3, jb->n, 3)
+INSTANCE(block_nn_dd, jb->n, jb->nd)
+
+static void block_lanes(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
+                        mcdi_bres *res)
+{
+    if (jb->nd != 3) {
+        block_nn_dd(jb, k0, nv, mem, res);
+        return;
+    }
+    switch (jb->n) {
+    case 2: block_n2_d3(jb, k0, nv, mem, res); break;
+    case 3: block_n3_d3(jb, k0, nv, mem, res); break;
+    case 4: block_n4_d3(jb, k0, nv, mem, res); break;
+    case 5: block_n5_d3(jb, k0, nv, mem, res); break;
+    default: block_nn_d3(jb, k0, nv, mem, res); break;
+    }
+}
+
+static void block_single(const mcdi_bjob *jb, size_t k0, size_t nv,
+                         double *mem, mcdi_bres *res)
+{
+    body(jb, k0, nv, mem, res, jb->n, 1, jb->nd);
+}
+
+#define KNAME_(isa) mcdi_batch_block_v##isa
+#define KNAME(isa) KNAME_(isa)
+#define FNAME_(isa) mcdi_batch_finish_v##isa
+#define FNAME(isa) FNAME_(isa)
+#define KLANES_(isa) mcdi_batch_lanes_v##isa
+#define KLANES(isa) KLANES_(isa)
+const size_t KLANES(MCDI_KISA) = MCDI_VLANES;
+
+void KNAME(MCDI_KISA)(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
+                      mcdi_bres *res)
+{
+    mem += MCDI_STREAM_DOUBLES; /* streaming state first (batch.h) */
+    if (jb->n > MCDI_LANES_NMAX)
+        block_single(jb, k0, nv, mem, res);
+    else
+        block_lanes(jb, k0, nv, mem, res);
+}
+
+void FNAME(MCDI_KISA)(const mcdi_bjob *jb, double *mem)
+{
+#if MCDI_CAN_STREAM
+    if (!jb->stream)
+        return;
+    stream_flush(jb->n * jb->nd, jb->out, jb->K, mem);
+    _mm_sfence(); /* the streamed lines before anything after the call */
+#else
+    (void)jb;
+    (void)mem;
+#endif
+}

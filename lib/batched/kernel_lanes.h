@@ -1,0 +1,106 @@
+/* kernel_lanes.h - lanes of a block: the per-ISA lane count, the lane
+ * loops, the lane vector type and the row loader.
+ * Included only by batch_kernel.c, which is compiled once per instruction
+ * set: everything here is inlined into the block body. Never installed. */
+#ifndef MCD_KERNEL_LANES_H
+#define MCD_KERNEL_LANES_H
+
+#include <float.h>
+#include <math.h>
+#include <stdint.h>
+#include <string.h>
+
+#include "mcdiff.h"
+#include "batched/batch.h"
+
+#if defined(__GNUC__) && !defined(__clang__)
+#define KINLINE static inline __attribute__((always_inline))
+#else
+#define KINLINE static inline
+#endif
+
+/* batch_kernel.c is compiled once per instruction set (lib/meson.build sets
+ * MCDI_KISA to 4, 3 or 1 with the matching -march); the lanes of a block
+ * are the doubles of one vector register of that set, so that a lane
+ * vector is one register. (Wider generic vectors than the hardware's were
+ * lowered by GCC through the stack: the AVX2 code ran 4-8x slower than
+ * the AVX-512 code before this split.) */
+#ifndef MCDI_KISA
+#define MCDI_KISA 1
+#endif
+#if defined(__AVX512F__)
+#define MCDI_VLANES 8
+#elif defined(__AVX__)
+#define MCDI_VLANES 4
+#else
+#define MCDI_VLANES 2
+#endif
+#if MCDI_VLANES > MCDI_LANES
+#error "MCDI_LANES (batch.h) must be the largest lane count"
+#endif
+
+#define RGAS MCD_GAS_CONSTANT
+
+/* Streaming stores of whole output lines (batch.h): the AVX-512 build
+ * only, where a block's row of 8 doubles is one 64-byte line. */
+#if MCDI_KISA == 4 && defined(__AVX512F__) && MCDI_VLANES == 8
+#define MCDI_CAN_STREAM 1
+#include <immintrin.h>
+#else
+#define MCDI_CAN_STREAM 0
+#endif
+
+/* A loop over the lanes of a block: vectorised (OpenMP SIMD pragma, enabled
+ * by -fopenmp-simd without the OpenMP runtime; ignored elsewhere). */
+#if defined(_OPENMP) || defined(MCDI_OMP_SIMD)
+#define LANES _Pragma("omp simd") for (l = 0; l < L; l++)
+#else
+#define LANES for (l = 0; l < L; l++)
+#endif
+/* The same with an OR-reduction of the int flag `bad` (input checks): the
+ * reduction clause keeps these loops vectorised. */
+#if defined(_OPENMP) || defined(MCDI_OMP_SIMD)
+#define LANES_BAD _Pragma("omp simd reduction(|:bad)") for (l = 0; l < L; l++)
+#else
+#define LANES_BAD for (l = 0; l < L; l++)
+#endif
+
+/* Rows factored together above KREG species (ldl_solve_v). */
+#define KTILE MCDI_KTILE
+
+/* Prefetch distance of the input streams, in doubles (8 blocks ahead). */
+#define MCDI_PREFETCH 64
+
+/* Load row src[k0 .. k0+nv-1] into dst[0..L-1], padding with src[k0]. */
+KINLINE void load_row(double *restrict dst, const double *restrict src,
+                      size_t nv, size_t L)
+{
+    size_t l;
+    /* the next blocks of this input stream (a few dozen streams at once
+     * are more than the hardware prefetchers follow) */
+    __builtin_prefetch(src + MCDI_PREFETCH, 0, 0);
+    if (nv == L) {
+        LANES
+            dst[l] = src[l];
+    } else {
+        for (l = 0; l < nv; l++)
+            dst[l] = src[l];
+        for (; l < L; l++)
+            dst[l] = src[0];
+    }
+}
+
+/* One value per lane of a full block, as a GCC/Clang generic vector: the
+ * compiler maps it onto the clone's registers (one zmm, two ymm or four
+ * xmm). may_alias: scratch rows are accessed both as double and as this. */
+typedef double mcdi_vd
+    __attribute__((vector_size(MCDI_VLANES * sizeof(double)), may_alias));
+typedef long long mcdi_vl
+    __attribute__((vector_size(MCDI_VLANES * sizeof(long long)), may_alias));
+
+/* Up to this many species the pivots and the multipliers W live in local
+ * arrays, which become registers once the loops over a constant n are
+ * unrolled; above it they live in the caller's scratch. */
+#define KREG 8
+
+#endif

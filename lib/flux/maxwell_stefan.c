@@ -1,0 +1,446 @@
+/* maxwell_stefan.c - exact Maxwell-Stefan diffusion fluxes (mcd_flux_compute)
+ * and the argument validators shared by the flux core.
+ *
+ * Equations (Taylor and Krishna 1993, ch. 2; Hirschfelder, Curtiss and Bird
+ * 1954): for species i = 1..N,
+ *     d_i = sum_{j != i} (x_i J_j - x_j J_i) / (c Đ_ij),   sum_i J_i = 0,
+ *     d_i = sum_j Gamma_ij grad x_j + (x_i - w_i) grad ln P.
+ *
+ * Symmetric form. With the diffusion velocities V_i = J_i / (c x_i) the
+ * equations read  G V = -d  with
+ *     G_ij = -x_i x_j / Đ_ij (i != j),   G_ii = sum_{k != i} x_i x_k / Đ_ik,
+ * a symmetric matrix with zero row sums. For x_i > 0 and every Đ_ij > 0 the
+ * graph of G is complete, so G is positive semidefinite with the
+ * one-dimensional null space span(1) (it is a weighted graph Laplacian). The
+ * range of G is therefore {d : sum_i d_i = 0}: the problem is solvable iff
+ * the driving forces sum to zero (which Gibbs-Duhem guarantees physically),
+ * and the solution is unique once the reference velocity is fixed by the
+ * constraint x^T V = sum J_i / c = 0. This is why the method is well posed.
+ *
+ * Consistency of the input: caller gradients need not sum exactly to zero
+ * (round-off, or an approximate Gamma). Before solving, the driving forces
+ * are projected onto the solvable subspace by d_i -= x_i sum_k d_k. The
+ * weights x leave trace species (x_i = 0) untouched and, for a dilute
+ * mixture, put the correction on the abundant carrier, which is the usual
+ * "dependent species" choice; mcd_fick_matrix applies the same projection
+ * to Gamma so that both routes give the same fluxes for any input.
+ *
+ * Regularisation (Ern and Giovangigli 1994, "Multicomponent Transport
+ * Algorithms", the "G + a y y^T" device): the constraint is folded into the
+ * matrix. With the symmetric diagonal scaling X^{-1/2} (s_i = sqrt(x_i),
+ * U_i = s_i V_i) the system becomes
+ *     (Gs + a s s^T) U = -X^{-1/2} d,     Gs = X^{-1/2} G X^{-1/2},
+ *     (Gs)_ii = sum_{k != i} x_k / Đ_ik,  (Gs)_ij = -s_i s_j / Đ_ij.
+ * s is a unit vector (sum x = 1) spanning the null space of Gs, so adding
+ * a s s^T moves only the zero eigenvalue, to a, and leaves the others; the
+ * matrix is symmetric positive definite and solved by Cholesky. We take
+ * a = max_i (Gs)_ii, inside the spectrum of Gs on s-perp, so the
+ * regularisation does not worsen the conditioning. Since the right-hand
+ * side is orthogonal to s, the solution satisfies s^T U = x^T V = 0, i.e.
+ * sum J_i = 0. The scaling makes the diagonal the Blanc sum of each
+ * species, independent of x_i, so near-trace species are as well
+ * conditioned as abundant ones and J_i = c s_i U_i tends continuously to
+ * Blanc's law as x_i -> 0.
+ *
+ * Trace species (x_i = 0 exactly): their equation reduces to
+ *     d_i = -J_i sum_j x_j / (c Đ_ij)   (Blanc's law, exact),
+ * so J_i is explicit. They enter the equations of the other species only
+ * through x_k J_i / (c Đ_ki), which is moved to the right-hand side, and
+ * through the zero-sum, which becomes sum_{x_k > 0} J_k = -S_T with S_T the
+ * sum of the trace fluxes; because G 1 = 0 this is met by adding the uniform
+ * velocity -S_T / c to the species present: J_k -= x_k S_T. No epsilon is
+ * involved. A pure component (one x_k = 1) is the case of a single species
+ * present: it takes J_k = -S_T. N = 1 gives zero flux.
+ *
+ * Factorisation: L D L^T without pivoting or square roots (ms_ldl.c),
+ * fused with the assembly and the solves; the species present are
+ * gathered into compact arrays only when some species is a trace. Cost
+ * m(m-1)/2 + 3m divisions and square roots, m^3/6 + m^2 n_dim multiply-adds.
+ *
+ * Zero-sum clean-up: after the solve the residual r = sum_i J_i (round-off
+ * only) is removed with weights x (J_i -= x_i r), again leaving trace
+ * species exact. In the mass basis j_i = M_i J_i - w_i sum_k M_k J_k and
+ * the residual of sum j_i is removed with weights w.
+ */
+#include <float.h>
+#include <string.h>
+
+#include "base/mcd_internal.h"
+#include "base/workspace.h"
+#include "base/composition.h"
+#include "flux/flux_core.h"
+#include "base/isa.h"
+
+/* ------------------------------------------------------------------ */
+/* small kernels                                                        */
+/* ------------------------------------------------------------------ */
+
+double mcdi_flux_fractions(size_t n, const double *M, mcd_basis basis,
+                           const double *comp, double *x, double *w)
+{
+    double Mbar = 0.0;
+    if (basis == MCD_BASIS_MOLE) {
+        mcdi_comp_scale_to_one(n, comp, x);
+        if (M != NULL && w != NULL)
+            Mbar = mcdi_comp_x_to_w(n, M, x, w);
+    } else {
+        /* mass basis: M is always given (validated by the callers) */
+        mcdi_comp_scale_to_one(n, comp, w);
+        Mbar = mcdi_comp_w_to_x(n, M, w, x);
+    }
+    return Mbar;
+}
+
+size_t mcdi_flux_most_abundant(size_t n, const double *x)
+{
+    size_t i, best = 0;
+    for (i = 1; i < n; i++)
+        if (x[i] > x[best])
+            best = i;
+    return best;
+}
+
+/* Binary diffusivity of pair (i, j), i != j, always read from the upper
+ * triangle so that the assembled matrices are exactly symmetric. */
+static inline double dij_pair(const double *Dij, size_t n, size_t i, size_t j)
+{
+    return i < j ? Dij[i * n + j] : Dij[j * n + i];
+}
+
+/* ------------------------------------------------------------------ */
+/* exact Maxwell-Stefan kernel                                          */
+/* ------------------------------------------------------------------ */
+
+mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
+                          const double *x, const double *d,
+                          const double *Dij, double c, double *J)
+{
+    double *A = ws->core_mat[0];
+    double *Dc = ws->core_mat[1];   /* Đ of the species present (compact) */
+    double *xc = ws->core_vec[5];   /* x of the species present (compact) */
+    double *dc = ws->core_nd[3];    /* corrected driving forces (compact) */
+    double *Y = ws->core_nd[0];     /* fluxes of the present species
+                                     * (compact) */
+    int *pos = ws->core_idx[0];     /* species present (x > 0) */
+    int *tr = ws->core_idx[1];      /* trace species (x = 0) */
+    double ST[MCD_MAX_DIM] = {0.0, 0.0, 0.0};
+    const mcdi_ms_ldl_fn ms_ldl = mcdi_ms_ldl_select();
+    size_t m = 0, nt = 0, i, k, l, dd, bad;
+
+    if (n == 1) {
+        for (dd = 0; dd < nd; dd++)
+            J[dd] = 0.0;
+        return MCD_OK;
+    }
+    for (i = 0; i < n; i++) {
+        if (x[i] > 0.0)
+            pos[m++] = (int)i;
+        else
+            tr[nt++] = (int)i;
+    }
+    /* m >= 1 because the fractions sum to 1. */
+
+    if (nt == 0) {
+        /* every species present: solve in place, no gathering */
+        bad = ms_ldl(n, nd, x, Dij, n, d, c, A, ws->core_vec[2],
+                          ws->core_vec[3], ws->core_vec[4], ws->core_vec[6],
+                          J, dc);
+        if (bad != 0)
+            goto not_definite;
+        goto zero_sum;
+    }
+
+    /* Trace species: Blanc's law, exact. tv = J / c = -d / S is kept
+     * (in Y, which the solve writes only later) for the coupling below. */
+    for (k = 0; k < nt; k++) {
+        size_t it = (size_t)tr[k];
+        double s = 0.0;
+        for (l = 0; l < m; l++)
+            s += x[pos[l]] / dij_pair(Dij, n, it, (size_t)pos[l]);
+        for (dd = 0; dd < nd; dd++) {
+            double tq = -d[it * nd + dd] / s, Ji = c * tq;
+            Y[k * nd + dd] = tq;
+            J[it * nd + dd] = Ji;
+            ST[dd] += Ji;
+        }
+    }
+
+    if (m == 1) {
+        /* pure component: it balances the trace fluxes */
+        size_t ip = (size_t)pos[0];
+        for (dd = 0; dd < nd; dd++)
+            J[ip * nd + dd] = -ST[dd];
+        goto zero_sum;
+    }
+
+    /* Gather the species present: x, Đ (upper triangle), and the driving
+     * forces with the trace terms moved over,
+     * d_i - x_i sum_T (J_t / c) / Đ_it: c-free, as in the batched kernel
+     * (dividing by c Đ underflowed to 0 for c = 1e-300, Đ = 1e-30 although
+     * every flux was representable: test_edge_cases). */
+    for (k = 0; k < m; k++) {
+        size_t ik = (size_t)pos[k];
+        xc[k] = x[ik];
+        for (l = k + 1; l < m; l++)
+            Dc[k * m + l] = dij_pair(Dij, n, ik, (size_t)pos[l]);
+        for (dd = 0; dd < nd; dd++) {
+            double dti = d[ik * nd + dd];
+            for (l = 0; l < nt; l++) {
+                size_t it = (size_t)tr[l];
+                dti -= x[ik] * Y[l * nd + dd] / dij_pair(Dij, n, ik, it);
+            }
+            dc[k * nd + dd] = dti;
+        }
+    }
+    bad = ms_ldl(m, nd, xc, Dc, m, dc, c, A, ws->core_vec[2],
+                      ws->core_vec[3], ws->core_vec[4], ws->core_vec[6], Y,
+                      dc /* dead after the assembly */);
+    if (bad != 0)
+        goto not_definite;
+    /* the species present take the uniform velocity -S_T / c */
+    for (k = 0; k < m; k++) {
+        size_t ik = (size_t)pos[k];
+        for (dd = 0; dd < nd; dd++)
+            J[ik * nd + dd] = Y[k * nd + dd] - x[ik] * ST[dd];
+    }
+
+zero_sum:
+    /* zero-sum clean-up with weights x (trace species stay exact) */
+    for (dd = 0; dd < nd; dd++) {
+        double r = 0.0;
+        for (i = 0; i < n; i++)
+            r += J[i * nd + dd];
+        for (i = 0; i < n; i++)
+            J[i * nd + dd] -= x[i] * r;
+    }
+    return MCD_OK;
+
+not_definite:
+    return mcdi_ws_fail(ws, MCD_ESING,
+                        "Maxwell-Stefan matrix not positive definite at "
+                        "pivot %zu (round-off; check Dij scale)",
+                        (size_t)pos[bad - 1]);
+}
+
+/* Whether the mass fluxes F (n x nd) still sum to zero after the
+ * clean-up. j_i = M_i J_i - w_i sum_k M_k J_k cancels when the molar
+ * masses span many decades (found by fuzz_flux: M = 1.3e-163 next to
+ * 0.03 kg/mol, molar fluxes 1e170, mass fluxes 1e8): the terms lose the
+ * result entirely and no weighting of the residual restores the balance.
+ * Then the call fails rather than hand out fluxes that do not balance. */
+int mcdi_mass_zero_sum_kept(size_t n, size_t nd, const double *F)
+{
+    size_t i, dd;
+    for (dd = 0; dd < nd; dd++) {
+        double s = 0.0, a = 0.0;
+        for (i = 0; i < n; i++) {
+            s += F[i * nd + dd];
+            a += fabs(F[i * nd + dd]);
+        }
+        if (!(fabs(s) <= MCDI_MASS_SUM_TOL * a + 1e-300))
+            return 0;
+    }
+    return 1;
+}
+
+/* ------------------------------------------------------------------ */
+/* public entry                                                         */
+/* ------------------------------------------------------------------ */
+
+/* Every argument of mcd_flux_compute, in the documented order (writes
+ * nothing but the message). */
+static mcd_status check_state(mcd_workspace *ws, mcd_model model, size_t n,
+                              size_t nd, const double *M, const double *Dij,
+                              double c, mcd_basis comp_basis,
+                              const double *comp, const double *grad_comp,
+                              const double *Gamma, const double *grad_lnP,
+                              mcd_basis flux_basis, const double *out_flux,
+                              int need_M)
+{
+    mcd_status st;
+    if ((st = mcdi_check_species(ws, n, 1, 0, "n_species")) != MCD_OK ||
+        (st = mcdi_check_dim(ws, nd)) != MCD_OK ||
+        (st = mcdi_check_model(ws, model, 0)) != MCD_OK ||
+        (st = mcdi_check_basis(ws, comp_basis, "comp_basis")) != MCD_OK ||
+        (st = mcdi_check_basis(ws, flux_basis, "flux_basis")) != MCD_OK ||
+        (st = mcdi_check_ptr(ws, out_flux, "out_flux")) != MCD_OK ||
+        (st = mcdi_check_conc(ws, c, "c")) != MCD_OK)
+        return st;
+    if (need_M && (st = mcdi_check_M(ws, n, M)) != MCD_OK)
+        return st;
+    if ((st = mcdi_check_dij(ws, n, Dij)) != MCD_OK ||
+        (st = mcdi_check_comp(ws, n, comp, "comp")) != MCD_OK ||
+        (st = mcdi_check_finite(ws, n, nd, grad_comp, "grad_comp")) != MCD_OK)
+        return st;
+    if (Gamma != NULL &&
+        (st = mcdi_check_finite(ws, n, n, Gamma, "Gamma")) != MCD_OK)
+        return st;
+    if (grad_lnP != NULL &&
+        (st = mcdi_check_finite(ws, 1, nd, grad_lnP, "grad_lnP")) != MCD_OK)
+        return st;
+    return MCD_OK;
+}
+
+/* Driving forces d_i = sum_j Gamma_ij grad x_j + (x_i - w_i) grad ln P
+ * (Gamma = I and no pressure term when NULL), projected onto
+ * sum_i d_i = 0 with weights x (see the top comment). */
+static void driving_forces(size_t n, size_t nd, const double *x,
+                           const double *w, const double *gx,
+                           const double *Gamma, const double *grad_lnP,
+                           double *d)
+{
+    size_t i, j, dd;
+    if (Gamma == NULL && grad_lnP == NULL) {
+        /* d = gx projected: the same sums and products as the general
+         * route below (copy, then projection), in one pass */
+        for (dd = 0; dd < nd; dd++) {
+            double s = 0.0;
+            for (i = 0; i < n; i++)
+                s += gx[i * nd + dd];
+            for (i = 0; i < n; i++)
+                d[i * nd + dd] = gx[i * nd + dd] - x[i] * s;
+        }
+        return;
+    }
+    if (Gamma != NULL) {
+        for (i = 0; i < n; i++)
+            for (dd = 0; dd < nd; dd++) {
+                double s = 0.0;
+                for (j = 0; j < n; j++)
+                    s += Gamma[i * n + j] * gx[j * nd + dd];
+                d[i * nd + dd] = s;
+            }
+    } else {
+        memcpy(d, gx, n * nd * sizeof(double));
+    }
+    if (grad_lnP != NULL)
+        for (i = 0; i < n; i++)
+            for (dd = 0; dd < nd; dd++)
+                d[i * nd + dd] += (x[i] - w[i]) * grad_lnP[dd];
+    for (dd = 0; dd < nd; dd++) {
+        double s = 0.0;
+        for (i = 0; i < n; i++)
+            s += d[i * nd + dd];
+        for (i = 0; i < n; i++)
+            d[i * nd + dd] -= x[i] * s;
+    }
+}
+
+/* Mass fluxes j_i = M_i J_i - w_i sum_k M_k J_k in place, then the
+ * round-off residual of sum_i j_i removed with weights w. */
+static void to_mass_basis(size_t n, size_t nd, const double *M,
+                          const double *w, double *J)
+{
+    size_t i, dd;
+    for (dd = 0; dd < nd; dd++) {
+        double s = 0.0, r = 0.0;
+        for (i = 0; i < n; i++)
+            s += M[i] * J[i * nd + dd];
+        for (i = 0; i < n; i++) {
+            J[i * nd + dd] = M[i] * J[i * nd + dd] - w[i] * s;
+            r += J[i * nd + dd];
+        }
+        for (i = 0; i < n; i++)
+            J[i * nd + dd] -= w[i] * r;
+    }
+}
+
+/* Copy the fluxes out unless one is not finite (inputs at the edge of the
+ * double range, e.g. Đ ~ 1e-310, can overflow) or mass fluxes lost their
+ * zero-sum to cancellation: EDOM then, out untouched. */
+static mcd_status emit_checked(mcd_workspace *ws, size_t n, size_t nd,
+                               const double *J, mcd_basis flux_basis,
+                               double *out_flux)
+{
+    double acc = 0.0;
+    size_t i;
+    /* one NaN-propagating pass (J * 0 is NaN exactly for inf and NaN);
+     * the loop names the species */
+    for (i = 0; i < n * nd; i++)
+        acc += J[i] * 0.0;
+    if (acc != 0.0)
+        for (i = 0; i < n * nd; i++)
+            if (!mcdi_finite(J[i]))
+                return mcdi_ws_fail(ws, MCD_EDOM,
+                                    "result: flux of species %zu is not "
+                                    "finite (inputs outside the "
+                                    "representable range)",
+                                    i / nd);
+    if (flux_basis == MCD_BASIS_MASS && !mcdi_mass_zero_sum_kept(n, nd, J))
+        return mcdi_ws_fail(ws, MCD_EDOM,
+                            "result: mass fluxes lost to cancellation (the "
+                            "molar masses are too far apart for double "
+                            "precision: %s)", "sum over species not zero");
+    memcpy(out_flux, J, n * nd * sizeof(double));
+    return MCD_OK;
+}
+
+MCD_API mcd_status mcd_flux_compute(mcd_workspace *ws, mcd_model model,
+                                    size_t n_species, size_t n_dim,
+                                    const double *M, const double *Dij,
+                                    double c, mcd_basis comp_basis,
+                                    const double *comp,
+                                    const double *grad_comp,
+                                    const double *Gamma,
+                                    const double *grad_lnP,
+                                    mcd_basis flux_basis, double *out_flux)
+{
+    const size_t n = n_species, nd = n_dim;
+    const int need_M = comp_basis == MCD_BASIS_MASS ||
+                       flux_basis == MCD_BASIS_MASS || grad_lnP != NULL;
+    double *x, *w, *d, *J;
+    const double *gx;
+    size_t dd;
+    mcd_status st;
+
+    if (ws == NULL)
+        return MCD_EINVAL;
+    mcdi_ws_clear_error(ws);
+    /* validate everything before writing anything */
+    if ((st = check_state(ws, model, n, nd, M, Dij, c, comp_basis, comp,
+                          grad_comp, Gamma, grad_lnP, flux_basis, out_flux,
+                          need_M)) != MCD_OK)
+        return st;
+    if (n == 1) {
+        for (dd = 0; dd < nd; dd++)
+            out_flux[dd] = 0.0;
+        return MCD_OK;
+    }
+
+    /* compute into workspace scratch */
+    x = ws->core_vec[0];
+    w = need_M ? ws->core_vec[1] : NULL;
+    d = ws->core_nd[1];
+    J = ws->core_nd[2];
+    mcdi_flux_fractions(n, need_M ? M : NULL, comp_basis, comp, x, w);
+    if (comp_basis == MCD_BASIS_MOLE) {
+        gx = grad_comp;
+    } else {
+        mcdi_comp_grad_w_to_x(n, nd, M, w, grad_comp, ws->core_nd[0]);
+        gx = ws->core_nd[0];
+    }
+    driving_forces(n, nd, x, w, gx, Gamma, grad_lnP, d);
+    if (model == MCD_MODEL_MAXWELL_STEFAN) {
+        if ((st = mcdi_ms_fluxes(ws, n, nd, x, d, Dij, c, J)) != MCD_OK)
+            return st;
+    } else {
+        mcdi_mixavg_fluxes(n, nd, x, d, Dij, c, J, ws->core_vec[3],
+                           ws->core_vec[4]);
+    }
+    if (flux_basis == MCD_BASIS_MASS)
+        to_mass_basis(n, nd, M, w, J);
+    return emit_checked(ws, n, nd, J, flux_basis, out_flux);
+}
+
+/* The single-state core object for the chosen instruction set
+ * (base/isa.c). */
+mcdi_ms_ldl_fn mcdi_ms_ldl_select(void)
+{
+    switch (mcdi_isa()) {
+#if defined(MCDI_HAVE_KISA)
+    case 4: /* the x86-64-v3 build: no gain from AVX-512 on a few species */
+    case 3: return mcdi_ms_ldl_v3;
+#endif
+    default: return mcdi_ms_ldl_v1;
+    }
+}

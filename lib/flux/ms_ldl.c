@@ -1,0 +1,239 @@
+/* ms_ldl.c - the dense core of the single-state exact Maxwell-Stefan solve
+ * (mcd_flux_compute): assembly of the regularised symmetric matrix for the
+ * species present, LDL^T factorisation without pivoting or square roots,
+ * and the two triangular solves, all in one routine on the stack-free
+ * workspace scratch.
+ *
+ * Equations: see the top comment of maxwell_stefan.c. For the m species
+ * present (x_k > 0), with s_k = sqrt(x_k) and R_kl = 1 / Đ_kl,
+ *     A = Gs + a s s^T,   A_kk = S_k + a x_k,   A_kl = s_k s_l (a - R_kl),
+ *     S_k = sum_{l != k} x_l R_kl (Blanc sum),  a = max_k S_k,
+ *     A U = -X^{-1/2} d,   J_k = c s_k U_k.
+ * A is symmetric positive definite (maxwell_stefan.c), so A = L D L^T exists
+ * without pivoting; D_k > 0 is checked and its failure reported.
+ *
+ * Cost per state: m(m-1)/2 reciprocals of Đ, 2m square roots and
+ * reciprocals, m reciprocal pivots (the only divisions: the factor and the
+ * solves multiply by stored reciprocals), m^3/6 + m^2 n_dim fused
+ * multiply-adds. The previous Cholesky route took a square root per pivot
+ * and a division per solve step and right-hand side; at N = 3 that was
+ * 39 divisions and square roots against 12 here.
+ *
+ * The factor is row-oriented ("up-looking"): row i of L is computed from
+ * rows 0..i-1, which are kept twice, as rows of L (lower triangle of A)
+ * and as rows of L^T (upper triangle), so that every inner loop of the
+ * factor and of both solves is a contiguous multiply-add, vectorisable and
+ * free of dot-product dependency chains. (A dot-product formulation with
+ * vectorised reductions ran 1.6x slower at N = 10; without them it ran
+ * within noise of this one.)
+ *
+ * Compiled with -O2 without the loop vectoriser (lib/meson.build), once
+ * per instruction set on x86-64 with GCC (runtime dispatch in
+ * kernel_isa.c; FMA contraction where the set has FMA).
+ */
+#include <math.h>
+#include <lapacke.h>
+
+#include "base/mcd_internal.h"
+#include "flux/flux_core.h"
+
+/* Compiled once per instruction set (MCDI_KISA = 3 or 1 with the matching
+ * -march, see lib/meson.build); kernel_isa.c hands out the one to call. */
+#ifndef MCDI_KISA
+#define MCDI_KISA 1
+#endif
+#define MSNAME_(isa) mcdi_ms_ldl_v##isa
+#define MSNAME(isa) MSNAME_(isa)
+
+#if defined(__GNUC__)
+#define MINLINE static inline __attribute__((always_inline))
+#else
+#define MINLINE static inline
+#endif
+
+/* A loop vectorised on its own (-fopenmp-simd; this file is otherwise built
+ * without the loop vectoriser: see lib/meson.build). */
+#if defined(_OPENMP) || defined(MCDI_OMP_SIMD)
+#define SIMD_LOOP _Pragma("omp simd")
+#else
+#define SIMD_LOOP
+#endif
+
+
+/* Solves after the factor: L y = b (rows of L^T: upper triangle of A),
+ * D z = y, L^T u = z (rows of L: lower triangle), in place in Y (m x nd
+ * row-major). The pivot row's values are held in scalars: copying them
+ * through a small array let GCC merge two 8-byte loads of just-stored
+ * values into one 16-byte load, which defeats store forwarding (measured:
+ * 13 % of the whole N = 3 call on one instruction). */
+MINLINE void solve_ldl3(size_t m, const double *A, const double *dinv,
+                       double *Y)
+{
+    size_t i, j, p;
+    for (p = 0; p + 1 < m; p++) {
+        const double *Up = A + p * m;
+        const double v0 = Y[3 * p], v1 = Y[3 * p + 1], v2 = Y[3 * p + 2];
+        for (j = p + 1; j < m; j++) {
+            const double u = Up[j];
+            Y[3 * j] -= u * v0;
+            Y[3 * j + 1] -= u * v1;
+            Y[3 * j + 2] -= u * v2;
+        }
+    }
+    for (i = 0; i < m; i++) {
+        const double f = dinv[i];
+        Y[3 * i] *= f;
+        Y[3 * i + 1] *= f;
+        Y[3 * i + 2] *= f;
+    }
+    for (p = m; p-- > 1;) {
+        const double *Lp = A + p * m;
+        const double v0 = Y[3 * p], v1 = Y[3 * p + 1], v2 = Y[3 * p + 2];
+        for (i = 0; i < p; i++) {
+            const double l = Lp[i];
+            Y[3 * i] -= l * v0;
+            Y[3 * i + 1] -= l * v1;
+            Y[3 * i + 2] -= l * v2;
+        }
+    }
+}
+
+/* The same for any nd, one direction at a time. */
+MINLINE void solve_ldl(size_t m, size_t nd, const double *A,
+                      const double *dinv, double *Y)
+{
+    size_t i, j, p, dd;
+    for (dd = 0; dd < nd; dd++) {
+        for (p = 0; p + 1 < m; p++) {
+            const double *Up = A + p * m, v = Y[p * nd + dd];
+            for (j = p + 1; j < m; j++)
+                Y[j * nd + dd] -= Up[j] * v;
+        }
+        for (i = 0; i < m; i++)
+            Y[i * nd + dd] *= dinv[i];
+        for (p = m; p-- > 1;) {
+            const double *Lp = A + p * m, v = Y[p * nd + dd];
+            for (i = 0; i < p; i++)
+                Y[i * nd + dd] -= Lp[i] * v;
+        }
+    }
+}
+
+/* Above this many species the factor and the solves are LAPACK's
+ * (blocked Cholesky; faster there, measured: N = 50 in cache 18.8 us
+ * against 23.4 us for the loops below, N = 100 72 us against 140 us). */
+#ifndef MCDI_MS_LAPACK_N
+#define MCDI_MS_LAPACK_N 24
+#endif
+
+/* Cholesky A = U^T U by LAPACK on the assembled lower triangle (row-major
+ * lower = column-major upper) and the solve for Y (m x nd row-major),
+ * through Yt (column-major copy). Returns 0 or k+1 for pivot k. */
+static size_t solve_lapack(size_t m, size_t nd, double *A, double *Y,
+                           double *Yt)
+{
+    lapack_int info;
+    size_t i, dd;
+    info = LAPACKE_dpotrf_work(LAPACK_COL_MAJOR, 'U', (lapack_int)m, A,
+                               (lapack_int)m);
+    if (info != 0) /* < 0 (an argument) cannot happen: report pivot 0 */
+        return info > 0 ? (size_t)info : 1;
+    for (i = 0; i < m; i++)
+        for (dd = 0; dd < nd; dd++)
+            Yt[dd * m + i] = Y[i * nd + dd];
+    LAPACKE_dpotrs_work(LAPACK_COL_MAJOR, 'U', (lapack_int)m,
+                        (lapack_int)nd, A, (lapack_int)m, Yt, (lapack_int)m);
+    for (i = 0; i < m; i++)
+        for (dd = 0; dd < nd; dd++)
+            Y[i * nd + dd] = Yt[dd * m + i];
+    return 0;
+}
+
+size_t MSNAME(MCDI_KISA)(size_t m, size_t nd, const double *xp, const double *Dp,
+                   size_t ld, const double *dp, double c, double *A,
+                   double *sq, double *isq, double *S, double *dinv,
+                   double *Y, double *Yt)
+{
+    double a = 0.0;
+    size_t i, j, p, dd;
+
+    /* vectorised: at m = 10 the divider is the bottleneck of the assembly
+     * (square roots, reciprocals); +8 % of this routine, measured */
+    SIMD_LOOP
+    for (i = 0; i < m; i++) {
+        sq[i] = sqrt(xp[i]);
+        isq[i] = 1.0 / sq[i];
+        S[i] = 0.0;
+    }
+    /* reciprocals R_kl (l > k) into the upper triangle of A: contiguous
+     * rows of Dp, the one loop worth vectorising at small m */
+    for (i = 0; i + 1 < m; i++) {
+        const double *Di = Dp + i * ld;
+        double *Ai = A + i * m;
+        SIMD_LOOP
+        for (j = i + 1; j < m; j++)
+            Ai[j] = 1.0 / Di[j];
+    }
+    /* Blanc sums S_i = sum_{j != i} x_j R_ij */
+    for (i = 0; i + 1 < m; i++) {
+        const double *Ai = A + i * m, xi = xp[i];
+        double t = S[i];
+        for (j = i + 1; j < m; j++) {
+            t += xp[j] * Ai[j];
+            S[j] += xi * Ai[j];
+        }
+        S[i] = t;
+    }
+    for (i = 0; i < m; i++)
+        if (S[i] > a)
+            a = S[i];
+    /* A = Gs + a s s^T into the lower triangle and the diagonal; the
+     * right-hand side -d_k / s_k into Y (m x nd, row-major) */
+    for (i = 0; i < m; i++) {
+        double *Ai = A + i * m, si = sq[i];
+        for (j = 0; j < i; j++)
+            Ai[j] = si * sq[j] * (a - A[j * m + i]);
+        Ai[i] = S[i] + a * xp[i];
+        for (dd = 0; dd < nd; dd++)
+            Y[i * nd + dd] = -dp[i * nd + dd] * isq[i];
+    }
+    if (m > MCDI_MS_LAPACK_N) {
+        size_t bad = solve_lapack(m, nd, A, Y, Yt);
+        if (bad != 0)
+            return bad;
+        goto scale;
+    }
+    /* Up-looking L D L^T. Row i of the lower triangle turns from A_ij into
+     * W_ij = L_ij D_j by updates with rows of L^T, which are kept in the
+     * upper triangle (A[p m + j] = L_jp): each update is a contiguous
+     * multiply-add over j, independent across j (no dot-product chains). */
+    for (i = 0; i < m; i++) {
+        double *Ai = A + i * m, di = Ai[i];
+        for (p = 0; p < i; p++) {
+            double *Up = A + p * m;
+            const double w = Ai[p], l = w * dinv[p];
+            di -= w * l;
+            for (j = p + 1; j < i; j++)
+                Ai[j] -= w * Up[j];
+            Ai[p] = l;
+            Up[i] = l;
+        }
+        if (!(di > 0.0))
+            return i + 1;
+        dinv[i] = 1.0 / di;
+    }
+    /* L y = rhs by rows of L^T, D z = y, L^T u = z by rows of L; the
+     * directions are interleaved in the inner loop (independent chains) */
+    if (nd == 3)
+        solve_ldl3(m, A, dinv, Y);
+    else
+        solve_ldl(m, nd, A, dinv, Y);
+scale:
+    /* J = c (s U), in this order: s U is at most U, while c s can
+     * underflow (c near DBL_MIN, a near-trace species) and lose a flux
+     * the others balance (found by fuzz_flux: c = 7e-304, x = 1.6e-60) */
+    for (i = 0; i < m; i++)
+        for (dd = 0; dd < nd; dd++)
+            Y[i * nd + dd] = c * (sq[i] * Y[i * nd + dd]);
+    return 0;
+}

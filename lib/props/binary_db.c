@@ -1,0 +1,334 @@
+/* binary_db.c - binary diffusivities of species taken from a database, with
+ * the method's typical error and warning bits.
+ *
+ * Species parameters are read only through the public mcd_db_* calls into a
+ * small copy (mcdi_spec) that mixture.c also keeps, so that the database
+ * route and the mixture route run the same code. No allocation.
+ *
+ * Missing Lennard-Jones parameters are estimated with the rules used by
+ * Wilke and Lee (1955) (Poling, Prausnitz and O'Connell 2001, eqs. 11-4.2
+ * and 11-4.3): sigma [A] = 1.18 Vb^(1/3) (Vb in cm^3/mol at the normal
+ * boiling point), eps/k = 1.15 Tb; the result is flagged
+ * MCD_WARN_ESTIMATED_PARAM.
+ *
+ * Warning rules (documented; the thresholds are common practice, not a
+ * published criterion):
+ *  HIGH_PRESSURE  P > 1 MPa (10 bar), or P above 0.3 times the mean critical
+ *                 pressure of the pair when both Pc are known: the
+ *                 low-pressure laws (D P constant) start to fail as the
+ *                 reduced pressure grows (Takahashi's 1974 chart shows a
+ *                 few percent by Pr ~ 0.3-0.5 at moderate Tr; from memory).
+ *  POLAR          dipole moment of either species above 1 debye.
+ *  TEMPERATURE    FSG: T outside 200..1100 K, roughly the span of the
+ *                 1966 data set (common practice); Chapman-Enskog and
+ *                 Wilke-Lee: T* = T/eps_AB outside the 0.3..100 fit range of
+ *                 the Neufeld et al. collision integral; Wilke-Chang: T
+ *                 outside 273.15..373.15 K or at or above the solvent's
+ *                 normal boiling point (common practice).
+ *  QUANTUM        H2, D2 or He in the pair and T < 100 K (common practice).
+ *  ASSOCIATING    water, HF, NH3, alcohols, acids, amines (name or formula
+ *                 rules in mcdi_classify) or an association factor > 1.
+ *  ESTIMATED_PARAM  sigma or eps/k estimated as above; Wilke-Chang
+ *                 association factor missing (1.0 used).
+ */
+#include <ctype.h>
+#include <string.h>
+
+#include "base/mcd_internal.h"
+#include "props/binary.h"
+
+static int has(const mcdi_spec *s, mcd_param p)
+{
+    return (s->known >> (unsigned)p) & 1u;
+}
+
+static int lower_eq(const char *a, const char *b)
+{
+    for (; *a && *b; a++, b++)
+        if (tolower((unsigned char)*a) != tolower((unsigned char)*b))
+            return 0;
+    return *a == *b;
+}
+
+/* Case-insensitive: does s end with suffix? */
+static int ends_with(const char *s, const char *suffix)
+{
+    size_t n = strlen(s), m = strlen(suffix);
+    return n >= m && lower_eq(s + n - m, suffix);
+}
+
+static int contains_nocase(const char *s, const char *needle)
+{
+    size_t m = strlen(needle);
+    for (; *s; s++) {
+        size_t k = 0;
+        while (k < m && s[k] &&
+               tolower((unsigned char)s[k]) == tolower((unsigned char)needle[k]))
+            k++;
+        if (k == m)
+            return 1;
+    }
+    return 0;
+}
+
+unsigned mcdi_classify(const char *name, const char *formula, double assoc)
+{
+    static const char *const quantum[] = {"H2", "D2", "He", "T2", "HD"};
+    static const char *const quantum_names[] = {"hydrogen", "deuterium",
+                                                "helium", "helium-4"};
+    static const char *const assoc_formulas[] = {"H2O", "D2O", "HF", "NH3",
+                                                 "H2O2", "N2H4"};
+    unsigned cls = 0;
+    if (formula != NULL) {
+        for (size_t k = 0; k < sizeof quantum / sizeof quantum[0]; k++)
+            if (strcmp(formula, quantum[k]) == 0)
+                cls |= MCDI_CLS_QUANTUM;
+        for (size_t k = 0; k < sizeof assoc_formulas / sizeof assoc_formulas[0]; k++)
+            if (strcmp(formula, assoc_formulas[k]) == 0)
+                cls |= MCDI_CLS_ASSOC;
+        /* Hydroxyl (alcohols, acids COOH, phenols) or amino groups written
+         * as such in a condensed formula. Case-sensitive on purpose: "OH"
+         * is oxygen + hydrogen, while "Oh" is no element pair. */
+        if (strstr(formula, "OH") != NULL || strstr(formula, "NH2") != NULL)
+            cls |= MCDI_CLS_ASSOC;
+    }
+    if (name != NULL) {
+        for (size_t k = 0; k < sizeof quantum_names / sizeof quantum_names[0]; k++)
+            if (lower_eq(name, quantum_names[k]))
+                cls |= MCDI_CLS_QUANTUM;
+        if (lower_eq(name, "water") || lower_eq(name, "ammonia") ||
+            lower_eq(name, "hydrogen-fluoride") || ends_with(name, "ol") ||
+            contains_nocase(name, "acid") || ends_with(name, "amine"))
+            cls |= MCDI_CLS_ASSOC;
+    }
+    if (assoc > 1.0)
+        cls |= MCDI_CLS_ASSOC;
+    return cls;
+}
+
+mcd_status mcdi_spec_from_db(const mcd_db *db, size_t i, mcdi_spec *out)
+{
+    mcdi_spec s;
+    const char *name;
+    if (db == NULL || out == NULL)
+        return MCD_EINVAL;
+    if (i >= mcd_db_count(db))
+        return MCD_ENOTFOUND;
+    memset(&s, 0, sizeof s);
+    for (int p = 0; p < MCD_PARAM_COUNT; p++) {
+        double v;
+        if (mcd_db_param(db, i, (mcd_param)p, &v) == MCD_OK && mcdi_finite(v)) {
+            s.p[p] = v;
+            s.known |= 1u << (unsigned)p;
+        }
+    }
+    name = mcd_db_name(db, i);
+    if (name != NULL) {
+        strncpy(s.name, name, sizeof s.name - 1);
+        s.name[sizeof s.name - 1] = '\0';
+    }
+    s.cls = mcdi_classify(name, mcd_db_formula(db, i),
+                          has(&s, MCD_PARAM_ASSOC) ? s.p[MCD_PARAM_ASSOC] : -1.0);
+    *out = s;
+    return MCD_OK;
+}
+
+/* Lennard-Jones parameters of one species, tabulated or estimated from the
+ * boiling point (Wilke-Lee rules). Fails: ENODATA. */
+static mcd_status lj_params(const mcdi_spec *s, double *sig, double *eps,
+                            int *estimated)
+{
+    if (has(s, MCD_PARAM_LJ_SIGMA) && s->p[MCD_PARAM_LJ_SIGMA] > 0) {
+        *sig = s->p[MCD_PARAM_LJ_SIGMA];
+    } else if (has(s, MCD_PARAM_VB) && s->p[MCD_PARAM_VB] > 0) {
+        /* sigma [A] = 1.18 (Vb [cm^3/mol])^(1/3) */
+        *sig = 1.18e-10 * cbrt(1e6 * s->p[MCD_PARAM_VB]);
+        *estimated = 1;
+    } else {
+        return MCD_ENODATA;
+    }
+    if (has(s, MCD_PARAM_LJ_EPS_K) && s->p[MCD_PARAM_LJ_EPS_K] > 0) {
+        *eps = s->p[MCD_PARAM_LJ_EPS_K];
+    } else if (has(s, MCD_PARAM_TB) && s->p[MCD_PARAM_TB] > 0) {
+        *eps = 1.15 * s->p[MCD_PARAM_TB]; /* eps/k = 1.15 Tb */
+        *estimated = 1;
+    } else {
+        return MCD_ENODATA;
+    }
+    return MCD_OK;
+}
+
+mcd_status mcdi_pair_coef(const mcdi_spec *a, const mcdi_spec *b,
+                          mcd_method m, double *out_coef, double *out_eps_ab,
+                          int *out_estimated)
+{
+    double sa, sb, ea, eb;
+    int est = 0;
+    mcd_status st;
+    if (m != MCD_METHOD_FSG && m != MCD_METHOD_CHAPMAN_ENSKOG &&
+        m != MCD_METHOD_WILKE_LEE)
+        return MCD_EINVAL;
+    if (!has(a, MCD_PARAM_MOLAR_MASS) || !has(b, MCD_PARAM_MOLAR_MASS) ||
+        !(a->p[MCD_PARAM_MOLAR_MASS] > 0) || !(b->p[MCD_PARAM_MOLAR_MASS] > 0))
+        return MCD_ENODATA;
+    if (m == MCD_METHOD_FSG) {
+        if (!has(a, MCD_PARAM_DIFF_VOLUME) || !has(b, MCD_PARAM_DIFF_VOLUME) ||
+            !(a->p[MCD_PARAM_DIFF_VOLUME] > 0) || !(b->p[MCD_PARAM_DIFF_VOLUME] > 0))
+            return MCD_ENODATA;
+        *out_coef = mcdi_fsg_coef(a->p[MCD_PARAM_MOLAR_MASS],
+                                  b->p[MCD_PARAM_MOLAR_MASS],
+                                  a->p[MCD_PARAM_DIFF_VOLUME],
+                                  b->p[MCD_PARAM_DIFF_VOLUME]);
+        *out_eps_ab = 0.0;
+        *out_estimated = 0;
+        return MCD_OK;
+    }
+    if ((st = lj_params(a, &sa, &ea, &est)) != MCD_OK)
+        return st;
+    if ((st = lj_params(b, &sb, &eb, &est)) != MCD_OK)
+        return st;
+    if (m == MCD_METHOD_CHAPMAN_ENSKOG)
+        *out_coef = mcdi_ce_coef(a->p[MCD_PARAM_MOLAR_MASS],
+                                 b->p[MCD_PARAM_MOLAR_MASS], sa, sb);
+    else
+        *out_coef = mcdi_wl_coef(a->p[MCD_PARAM_MOLAR_MASS],
+                                 b->p[MCD_PARAM_MOLAR_MASS], sa, sb);
+    /* Wilke-Lee's factor 3.03 - 0.98/M_AB^(1/2) is negative below
+     * M_AB = 0.105 g/mol (no real pair; reachable through user molar
+     * masses): outside the correlation's domain. */
+    if (!(*out_coef > 0.0) || !mcdi_finite(*out_coef))
+        return MCD_EDOM;
+    *out_eps_ab = sqrt(ea * eb);
+    *out_estimated = est;
+    return MCD_OK;
+}
+
+/* Warning bits that depend only on the pair and the state (not on the
+ * method's own range). */
+static unsigned pair_state_warnings(const mcdi_spec *a, const mcdi_spec *b,
+                                    double T, double P)
+{
+    unsigned w = 0;
+    if (P > MCDI_HIGH_P)
+        w |= MCD_WARN_HIGH_PRESSURE;
+    if (has(a, MCD_PARAM_PC) && has(b, MCD_PARAM_PC) &&
+        P > MCDI_HIGH_P_REDUCED * 0.5 * (a->p[MCD_PARAM_PC] + b->p[MCD_PARAM_PC]))
+        w |= MCD_WARN_HIGH_PRESSURE;
+    if ((has(a, MCD_PARAM_DIPOLE) && a->p[MCD_PARAM_DIPOLE] > MCDI_DEBYE) ||
+        (has(b, MCD_PARAM_DIPOLE) && b->p[MCD_PARAM_DIPOLE] > MCDI_DEBYE))
+        w |= MCD_WARN_POLAR;
+    if (((a->cls | b->cls) & MCDI_CLS_QUANTUM) && T < MCDI_QUANTUM_T)
+        w |= MCD_WARN_QUANTUM;
+    if ((a->cls | b->cls) & MCDI_CLS_ASSOC)
+        w |= MCD_WARN_ASSOCIATING;
+    return w;
+}
+
+mcd_status mcdi_pair_gas(const mcdi_spec *a, const mcdi_spec *b,
+                         mcd_method m, double T, double P, double *out_D,
+                         double *out_rel_err, unsigned *out_warn)
+{
+    double coef, eps_ab, D;
+    int est;
+    unsigned w;
+    mcd_status st;
+    if (a == NULL || b == NULL || out_D == NULL)
+        return MCD_EINVAL;
+    if (!mcdi_finite(T) || !mcdi_finite(P))
+        return MCD_EINVAL;
+    if (!(T > 0) || !(P > 0))
+        return MCD_EDOM;
+    if ((st = mcdi_pair_coef(a, b, m, &coef, &eps_ab, &est)) != MCD_OK)
+        return st;
+    w = pair_state_warnings(a, b, T, P);
+    if (est)
+        w |= MCD_WARN_ESTIMATED_PARAM;
+    if (m == MCD_METHOD_FSG) {
+        D = coef * pow(T, 1.75) / P;
+        if (T < MCDI_FSG_T_MIN || T > MCDI_FSG_T_MAX)
+            w |= MCD_WARN_TEMPERATURE;
+    } else {
+        double Ts = T / eps_ab;
+        D = coef * pow(T, 1.5) / (P * mcdi_omega_d(Ts));
+        if (Ts < MCDI_TSTAR_MIN || Ts > MCDI_TSTAR_MAX)
+            w |= MCD_WARN_TEMPERATURE;
+    }
+    if (!(D > 0.0) || !mcdi_finite(D))
+        return MCD_EDOM; /* overflow or underflow at an extreme state */
+    *out_D = D;
+    if (out_rel_err != NULL)
+        *out_rel_err = mcd_method_typical_error(m);
+    if (out_warn != NULL)
+        *out_warn = w;
+    return MCD_OK;
+}
+
+MCD_API mcd_status mcd_binary_gas(const mcd_db *db, size_t a, size_t b,
+                                  mcd_method method, double T, double P,
+                                  double *out_D, double *out_rel_err,
+                                  unsigned *out_warn)
+{
+    mcdi_spec sa, sb;
+    mcd_status st;
+    if (db == NULL || out_D == NULL)
+        return MCD_EINVAL;
+    if (!mcdi_finite(T) || !mcdi_finite(P))
+        return MCD_EINVAL;
+    if (!(T > 0) || !(P > 0))
+        return MCD_EDOM;
+    if (method != MCD_METHOD_FSG && method != MCD_METHOD_CHAPMAN_ENSKOG &&
+        method != MCD_METHOD_WILKE_LEE)
+        return MCD_EINVAL;
+    if ((st = mcdi_spec_from_db(db, a, &sa)) != MCD_OK)
+        return st;
+    if ((st = mcdi_spec_from_db(db, b, &sb)) != MCD_OK)
+        return st;
+    return mcdi_pair_gas(&sa, &sb, method, T, P, out_D, out_rel_err, out_warn);
+}
+
+MCD_API mcd_status mcd_binary_liquid(const mcd_db *db, size_t solute,
+                                     size_t solvent, double T,
+                                     double mu_solvent, double *out_D,
+                                     double *out_rel_err, unsigned *out_warn)
+{
+    mcdi_spec sa, sb;
+    mcd_status st;
+    double phi = 1.0, D;
+    unsigned w = 0;
+    if (db == NULL || out_D == NULL)
+        return MCD_EINVAL;
+    if (!mcdi_finite(T) || !mcdi_finite(mu_solvent))
+        return MCD_EINVAL;
+    if (!(T > 0) || !(mu_solvent > 0))
+        return MCD_EDOM;
+    if ((st = mcdi_spec_from_db(db, solute, &sa)) != MCD_OK)
+        return st;
+    if ((st = mcdi_spec_from_db(db, solvent, &sb)) != MCD_OK)
+        return st;
+    if (!has(&sa, MCD_PARAM_VB) || !has(&sb, MCD_PARAM_MOLAR_MASS))
+        return MCD_ENODATA;
+    if (has(&sb, MCD_PARAM_ASSOC) && sb.p[MCD_PARAM_ASSOC] > 0)
+        phi = sb.p[MCD_PARAM_ASSOC];
+    else
+        w |= MCD_WARN_ESTIMATED_PARAM;
+    st = mcd_wilke_chang_raw(T, mu_solvent, sb.p[MCD_PARAM_MOLAR_MASS], phi,
+                             sa.p[MCD_PARAM_VB], &D);
+    if (st != MCD_OK)
+        return st == MCD_EINVAL ? MCD_EDOM : st;
+    if (T < 273.15 || T > 373.15 ||
+        (has(&sb, MCD_PARAM_TB) && T >= sb.p[MCD_PARAM_TB]))
+        w |= MCD_WARN_TEMPERATURE;
+    /* Wilke-Chang is least reliable for associating solutes (e.g. water or
+     * alcohols in organic solvents); an associating solvent is covered by
+     * its association factor. */
+    if (sa.cls & MCDI_CLS_ASSOC)
+        w |= MCD_WARN_ASSOCIATING;
+    if (has(&sa, MCD_PARAM_DIPOLE) && sa.p[MCD_PARAM_DIPOLE] > MCDI_DEBYE)
+        w |= MCD_WARN_POLAR;
+    *out_D = D;
+    if (out_rel_err != NULL)
+        *out_rel_err = mcd_method_typical_error(MCD_METHOD_WILKE_CHANG);
+    if (out_warn != NULL)
+        *out_warn = w;
+    return MCD_OK;
+}

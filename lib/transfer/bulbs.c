@@ -1,0 +1,453 @@
+/* bulbs.c - transient two-bulb diffusion cell.
+ *
+ * Model. Two well-mixed bulbs, volumes V1 and V2, joined by a capillary of
+ * cross-section A and length L; closed, isothermal, isobaric ideal gas
+ * (total concentration c everywhere). Each bulb keeps its number of moles,
+ * so the capillary carries no net molar flux (N_t = 0, equimolar
+ * counter-diffusion). The capillary holds a negligible volume and is
+ * quasi-steady: at every instant its fluxes N (from bulb 1 at z = 0
+ * towards bulb 2 at z = L) are those of a steady film between x1 and x2:
+ *
+ *   c V1 dx1/dt = -A N(x1, x2),   c V2 dx2/dt = +A N(x1, x2).       (1)
+ *
+ * Hence V1 x1 + V2 x2 is constant for every species, and both bulbs tend
+ * to the volume-weighted mean xbar = (V1 x1 + V2 x2)/(V1 + V2).
+ *
+ * Linearized theory (Toor 1964; Stewart and Prober 1964): with [D] (molar
+ * frame, ideal gas, Gamma = I) frozen at xbar, N = J = (c/L) [D] Delta for
+ * Delta = x1 - x2 (N-1 independent species), and (1) gives
+ *   d Delta/dt = -beta [D] Delta,  beta = A (V1 + V2)/(L V1 V2),
+ *   Delta(t) = [P] exp(-beta [Lambda] t) [P]^-1 Delta(0),
+ * with [D] = [P][Lambda][P]^-1 from LAPACK dgeev (right eigenvectors;
+ * dgeev because [D] is not symmetric; its eigenvalues are real and positive
+ * for ideal gases, being those of a product of two symmetric positive
+ * definite matrices). The call uses LAPACKE_dgeev_work in column-major order
+ * with the workspace's dgeev work array, and dgetrf/dgetrs for [P]^-1.
+ * Should [P] be singular or the spectrum complex (round-off with nearly
+ * equal eigenvalues), the scaling-and-squaring exponential of film.c
+ * is used instead: Delta(t) = exp(-beta t [D]) Delta(0).
+ * Then x1 = xbar + V2/(V1+V2) Delta, x2 = xbar - V1/(V1+V2) Delta.
+ *
+ * Integration: (1) with the exact equimolar film fluxes (Krishna-Standart,
+ * mcdi_film_core) by the embedded Runge-Kutta 5(4) pair of Dormand and
+ * Prince (1980), FSAL, with the usual step controller
+ * h_new = h min(5, max(0.2, 0.9 err^-1/5)), err = max |local error| /
+ * rel_tol on the mole fractions. Only x1 is integrated; x2 is recovered
+ * from V1 x1 + V2 x2 = V1 x1(0) + V2 x2(0), so every species is conserved
+ * to round-off by construction. Stage compositions are clipped at 0 and
+ * renormalised before the flux evaluation only (the state itself is never
+ * modified). To leave the outputs untouched on failure, the integration is
+ * run once without writing and, if it succeeds, repeated (identically)
+ * while writing.
+ *
+ * Scratch: AUX vectors 4..7 here; the film solver uses AUX matrices 0..3,
+ * AUX vectors 0..3 and the AUX pivots. The linearized call uses AUX
+ * matrices 0..3, AUX vectors 4..5 and the pivots.
+ */
+#include <math.h>
+#include <string.h>
+#include <lapacke.h>
+
+#include "base/mcd_internal.h"
+#include "base/workspace.h"
+#include "transfer/film.h"
+#include "flux/flux_core.h"
+
+#define BULBS_MAX_STEPS 200000
+
+typedef struct bulbs_in {
+    size_t n;
+    double c, V1, V2, A, L;
+    const double *t;
+    size_t n_times;
+} bulbs_in;
+
+static mcd_status bulbs_check(mcd_workspace *ws, size_t n, const double *Dij,
+                              double c, double V1, double V2, double A,
+                              double L, const double *x1_0,
+                              const double *x2_0, size_t n_times,
+                              const double *t, double *out_x1,
+                              double *out_x2, int monotone, double *x1n,
+                              double *x2n)
+{
+    mcd_status st;
+    size_t k;
+    if ((st = mcdi_tf_check_ws_n(ws, n)) != MCD_OK ||
+        (st = mcdi_check_dij(ws, n, Dij)) != MCD_OK ||
+        (st = mcdi_check_positive(ws, c, "c")) != MCD_OK ||
+        (st = mcdi_check_positive(ws, V1, "V1")) != MCD_OK ||
+        (st = mcdi_check_positive(ws, V2, "V2")) != MCD_OK ||
+        (st = mcdi_check_positive(ws, A, "A")) != MCD_OK ||
+        (st = mcdi_check_positive(ws, L, "L")) != MCD_OK ||
+        (st = mcdi_tf_check_comp(ws, n, x1_0, "x1_0", x1n)) != MCD_OK ||
+        (st = mcdi_tf_check_comp(ws, n, x2_0, "x2_0", x2n)) != MCD_OK)
+        return st;
+    if (n_times == 0)
+        return MCD_OK;
+    if (t == NULL || out_x1 == NULL || out_x2 == NULL)
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL",
+                            t == NULL ? "t" : out_x1 == NULL ? "out_x1" : "out_x2");
+    for (k = 0; k < n_times; k++) {
+        if (!mcdi_finite(t[k]))
+            return mcdi_ws_fail(ws, MCD_EINVAL, "argument t: entry %zu is not finite", k);
+        if (!(t[k] >= 0))
+            return mcdi_ws_fail(ws, MCD_EDOM, "argument t: entry %zu = %g is negative", k,
+                                t[k]);
+        if (monotone && k > 0 && !(t[k] >= t[k - 1]))
+            return mcdi_ws_fail(ws, MCD_EDOM, "argument t: entry %zu is below entry %zu (not ascending)", k, k - 1);
+    }
+    return MCD_OK;
+}
+
+/* ------------------------------------------------------------------ */
+/* Linearized theory                                                   */
+/* ------------------------------------------------------------------ */
+
+MCD_API mcd_status mcd_bulbs_linearized(mcd_workspace *ws, size_t n,
+                                        const double *Dij, double c,
+                                        double V1, double V2, double A,
+                                        double L, const double *x1_0,
+                                        const double *x2_0, size_t n_times,
+                                        const double *t, double *out_x1,
+                                        double *out_x2)
+{
+    double *x1n, *x2n, *xbar, *dl0, *wr, *wi, *coef, *dl;
+    double *Dm, *Ac, *VR, *LU, *work;
+    double beta, f1, f2, wmax = 0.0;
+    size_t m, d, i, j, k, lwork = 0;
+    int use_eig = 1;
+    lapack_int info, *ipiv;
+    mcd_status st;
+
+    if (ws == NULL)
+        return MCD_EINVAL;
+    x1n = mcdi_ws_aux_vec(ws, 4);
+    x2n = x1n + ws->cap;
+    xbar = x1n + 2 * ws->cap;
+    dl0 = x1n + 3 * ws->cap;
+    st = bulbs_check(ws, n, Dij, c, V1, V2, A, L, x1_0, x2_0, n_times, t,
+                     out_x1, out_x2, 0, x1n, x2n);
+    if (st != MCD_OK || n_times == 0)
+        return st;
+    wr = mcdi_ws_aux_vec(ws, 5);
+    wi = wr + ws->cap;
+    coef = wr + 2 * ws->cap;
+    dl = wr + 3 * ws->cap;
+    Dm = mcdi_ws_aux_mat(ws, 0);
+    Ac = mcdi_ws_aux_mat(ws, 1);
+    VR = mcdi_ws_aux_mat(ws, 2);
+    LU = mcdi_ws_aux_mat(ws, 3);
+    ipiv = (lapack_int *)mcdi_ws_aux_ipiv(ws);
+
+    for (i = 0; i < n; i++)
+        xbar[i] = (V1 * x1n[i] + V2 * x2n[i]) / (V1 + V2);
+    st = mcd_fick_matrix(ws, n, NULL, Dij, MCD_BASIS_MOLE, xbar, NULL,
+                         MCD_BASIS_MOLE, MCD_DEPENDENT_AUTO, Dm, &d);
+    if (st != MCD_OK)
+        return st;
+    m = n - 1;
+    beta = A * (V1 + V2) / (L * V1 * V2);
+    f1 = V2 / (V1 + V2);
+    f2 = V1 / (V1 + V2);
+    for (i = 0, k = 0; i < n; i++)
+        if (i != d)
+            dl0[k++] = x1n[i] - x2n[i];
+
+    /* eigen-decomposition: column-major copy (the transpose of row-major) */
+    for (i = 0; i < m; i++)
+        for (j = 0; j < m; j++)
+            Ac[i + j * m] = Dm[i * m + j];
+    work = mcdi_ws_geev_work(ws, &lwork);
+    info = LAPACKE_dgeev_work(LAPACK_COL_MAJOR, 'N', 'V', (lapack_int)m, Ac,
+                              (lapack_int)m, wr, wi, NULL, 1, VR,
+                              (lapack_int)m, work, (lapack_int)lwork);
+    if (info < 0)
+        return mcdi_ws_fail(ws, MCD_EINTERNAL, "dgeev: argument %d",
+                            (int)-info);
+    if (info > 0)
+        use_eig = 0;
+    for (i = 0; use_eig && i < m; i++)
+        wmax = fmax(wmax, fabs(wr[i]));
+    for (i = 0; use_eig && i < m; i++)
+        if (!(fabs(wi[i]) <= 1e-10 * wmax))
+            use_eig = 0;
+    if (use_eig) {
+        memcpy(LU, VR, m * m * sizeof(double));
+        memcpy(coef, dl0, m * sizeof(double));
+        info = LAPACKE_dgetrf_work(LAPACK_COL_MAJOR, (lapack_int)m,
+                                   (lapack_int)m, LU, (lapack_int)m, ipiv);
+        if (info == 0)
+            info = LAPACKE_dgetrs_work(LAPACK_COL_MAJOR, 'N', (lapack_int)m,
+                                       1, LU, (lapack_int)m, ipiv, coef,
+                                       (lapack_int)m);
+        if (info != 0)
+            use_eig = 0;
+        for (i = 0; use_eig && i < m; i++)
+            if (!mcdi_finite(coef[i]))
+                use_eig = 0;
+    }
+
+    /* Check first that the fallback exponential is in range for every t
+     * (so that nothing is written before a failure). */
+    if (!use_eig) {
+        double norm = 0.0, tmax = 0.0;
+        for (j = 0; j < m; j++) {
+            double col = 0.0;
+            for (i = 0; i < m; i++)
+                col += fabs(Dm[i * m + j]);
+            norm = fmax(norm, col);
+        }
+        for (k = 0; k < n_times; k++)
+            tmax = fmax(tmax, t[k]);
+        if (!(beta * tmax * norm <= 1e4))
+            return mcdi_ws_fail(ws, MCD_ESING,
+                                "no real eigen-decomposition of [D] and "
+                                "beta t ||D|| = %g too large for exp",
+                                beta * tmax * norm);
+    }
+
+    for (k = 0; k < n_times; k++) {
+        double sum = 0.0;
+        if (use_eig) {
+            for (i = 0; i < m; i++) {
+                double acc = 0.0;
+                for (j = 0; j < m; j++)
+                    acc += VR[i + j * m] * exp(-beta * wr[j] * t[k]) *
+                           coef[j];
+                dl[i] = acc;
+            }
+        } else {
+            double *slot[3] = {mcdi_ws_aux_mat(ws, 1),
+                               mcdi_ws_aux_mat(ws, 2),
+                               mcdi_ws_aux_mat(ws, 3)};
+            for (i = 0; i < m * m; i++)
+                slot[0][i] = -beta * t[k] * Dm[i];
+            if (mcdi_tf_expm_phi(m, slot) != MCD_OK)
+                return mcdi_ws_fail(ws, MCD_EINTERNAL, "exp overflow");
+            for (i = 0; i < m; i++) {
+                double acc = 0.0;
+                for (j = 0; j < m; j++)
+                    acc += slot[2][i * m + j] * dl0[j];
+                dl[i] = acc;
+            }
+        }
+        for (i = 0, j = 0; i < n; i++) {
+            double di;
+            if (i == d)
+                continue;
+            di = dl[j++];
+            sum += di;
+            out_x1[k * n + i] = xbar[i] + f1 * di;
+            out_x2[k * n + i] = xbar[i] - f2 * di;
+        }
+        out_x1[k * n + d] = xbar[d] - f1 * sum;
+        out_x2[k * n + d] = xbar[d] + f2 * sum;
+    }
+    return MCD_OK;
+}
+
+/* ------------------------------------------------------------------ */
+/* Time integration                                                    */
+/* ------------------------------------------------------------------ */
+
+/* Dormand-Prince 5(4) tableau. */
+static const double DP_C[7] = {0.0, 1.0 / 5, 3.0 / 10, 4.0 / 5, 8.0 / 9, 1.0,
+                               1.0};
+static const double DP_A[7][6] = {
+    {0, 0, 0, 0, 0, 0},
+    {1.0 / 5, 0, 0, 0, 0, 0},
+    {3.0 / 40, 9.0 / 40, 0, 0, 0, 0},
+    {44.0 / 45, -56.0 / 15, 32.0 / 9, 0, 0, 0},
+    {19372.0 / 6561, -25360.0 / 2187, 64448.0 / 6561, -212.0 / 729, 0, 0},
+    {9017.0 / 3168, -355.0 / 33, 46732.0 / 5247, 49.0 / 176,
+     -5103.0 / 18656, 0},
+    {35.0 / 384, 0, 500.0 / 1113, 125.0 / 192, -2187.0 / 6784, 11.0 / 84}};
+/* 5th-order weights = last row of DP_A (plus 0 for k7); 4th-order: */
+static const double DP_BS[7] = {5179.0 / 57600, 0, 7571.0 / 16695,
+                                393.0 / 640,    -92097.0 / 339200,
+                                187.0 / 2100,   1.0 / 40};
+
+typedef struct integ {
+    mcd_workspace *ws;
+    size_t n;
+    const double *Dij;
+    double c, L, rate1;   /* rate1 = A / (c V1) */
+    double V1, V2;
+    const double *tot;    /* V1 x1 + V2 x2 per species */
+    double *x1c, *x2c, *N;
+} integ;
+
+/* f(y) = dx1/dt = -A N / (c V1) with x2 from conservation. */
+static mcd_status rhs(integ *g, const double *y, double *out)
+{
+    size_t i, n = g->n;
+    double s1 = 0.0, s2 = 0.0;
+    mcd_status st;
+    for (i = 0; i < n; i++) {
+        double a = y[i], b = (g->tot[i] - g->V1 * y[i]) / g->V2;
+        g->x1c[i] = a > 0 ? a : 0.0;
+        g->x2c[i] = b > 0 ? b : 0.0;
+        s1 += g->x1c[i];
+        s2 += g->x2c[i];
+    }
+    if (!(s1 > 0) || !(s2 > 0))
+        return MCD_EDOM;
+    for (i = 0; i < n; i++) {
+        g->x1c[i] /= s1;
+        g->x2c[i] /= s2;
+    }
+    st = mcdi_film_core(g->ws, n, g->Dij, g->c, g->L, g->x1c, g->x2c,
+                        MCD_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, g->N,
+                        NULL, NULL);
+    if (st != MCD_OK)
+        return st;
+    for (i = 0; i < n; i++)
+        out[i] = -g->rate1 * g->N[i];
+    return MCD_OK;
+}
+
+/* One full integration; writes outputs only when `write` is set. */
+static mcd_status integrate(integ *g, const double *x1n, size_t n_times,
+                            const double *t, double rel_tol, double h0,
+                            int write, double *out_x1, double *out_x2)
+{
+    mcd_workspace *ws = g->ws;
+    size_t n = g->n, cap = ws->cap, i, s, k, steps = 0;
+    double *kk[7], *ys, *y, *yn;
+    double tc = 0.0, h = h0;
+    mcd_status st;
+
+    for (s = 0; s < 4; s++)
+        kk[s] = mcdi_ws_aux_vec(ws, 5) + s * cap;
+    for (s = 4; s < 7; s++)
+        kk[s] = mcdi_ws_aux_vec(ws, 6) + (s - 4) * cap;
+    ys = mcdi_ws_aux_vec(ws, 6) + 3 * cap;
+    y = mcdi_ws_aux_vec(ws, 7);
+    yn = y + cap;
+
+    memcpy(y, x1n, n * sizeof(double));
+    st = rhs(g, y, kk[0]);
+    if (st != MCD_OK)
+        return st;
+    for (k = 0; k < n_times; k++) {
+        while (tc < t[k]) {
+            double err = 0.0, hs, fac;
+            int last = 0;
+            if (++steps > BULBS_MAX_STEPS)
+                return mcdi_ws_fail(ws, MCD_ENOCONV,
+                                    "bulbs: more than %d steps",
+                                    BULBS_MAX_STEPS);
+            if (tc + h >= t[k]) {
+                hs = t[k] - tc;
+                last = 1;
+            } else {
+                hs = h;
+            }
+            for (s = 1; s < 7; s++) {
+                size_t q;
+                for (i = 0; i < n; i++) {
+                    double acc = y[i];
+                    for (q = 0; q < s; q++)
+                        acc += hs * DP_A[s][q] * kk[q][i];
+                    ys[i] = acc;
+                }
+                if (s == 6)
+                    memcpy(yn, ys, n * sizeof(double));
+                st = rhs(g, ys, kk[s]);
+                if (st != MCD_OK)
+                    return mcdi_ws_fail(ws, st,
+                                        "bulbs: capillary flux failed at "
+                                        "t = %g",
+                                        tc + DP_C[s] * hs);
+            }
+            for (i = 0; i < n; i++) {
+                double e = 0.0;
+                for (s = 0; s < 7; s++) {
+                    double b = (s < 6) ? DP_A[6][s] : 0.0;
+                    e += (b - DP_BS[s]) * kk[s][i];
+                }
+                err = fmax(err, fabs(hs * e) / rel_tol);
+            }
+            if (!mcdi_finite(err))
+                err = 1e10;
+            fac = err > 0 ? 0.9 * pow(err, -0.2) : 5.0;
+            fac = fmin(5.0, fmax(0.2, fac));
+            if (err <= 1.0) {
+                tc = last ? t[k] : tc + hs;
+                memcpy(y, yn, n * sizeof(double));
+                memcpy(kk[0], kk[6], n * sizeof(double)); /* FSAL */
+                if (!last || fac < 1.0)
+                    h = hs * fac;
+            } else {
+                h = hs * fac;
+                if (!(h > 1e-14 * fmax(tc, t[k])) || h == 0.0)
+                    return mcdi_ws_fail(ws, MCD_ENOCONV,
+                                        "bulbs: step size underflow at "
+                                        "t = %g",
+                                        tc);
+            }
+        }
+        if (write) {
+            for (i = 0; i < n; i++) {
+                out_x1[k * n + i] = y[i];
+                out_x2[k * n + i] = (g->tot[i] - g->V1 * y[i]) / g->V2;
+            }
+        }
+    }
+    return MCD_OK;
+}
+
+MCD_API mcd_status mcd_bulbs_integrate(mcd_workspace *ws, size_t n,
+                                       const double *Dij, double c,
+                                       double V1, double V2, double A,
+                                       double L, const double *x1_0,
+                                       const double *x2_0, size_t n_times,
+                                       const double *t, double rel_tol,
+                                       double *out_x1, double *out_x2)
+{
+    double *x1n, *x2n, *tot, Dmax = 0.0, h0;
+    integ g;
+    size_t i;
+    mcd_status st;
+
+    if (ws == NULL)
+        return MCD_EINVAL;
+    x1n = mcdi_ws_aux_vec(ws, 4);
+    x2n = x1n + ws->cap;
+    tot = x1n + 2 * ws->cap;
+    st = bulbs_check(ws, n, Dij, c, V1, V2, A, L, x1_0, x2_0, n_times, t,
+                     out_x1, out_x2, 1, x1n, x2n);
+    if (st != MCD_OK)
+        return st;
+    if (!mcdi_finite(rel_tol))
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument rel_tol: not finite");
+    if (!(rel_tol >= 1e-12 && rel_tol <= 1e-2))
+        return mcdi_ws_fail(ws, MCD_EDOM, "argument rel_tol: %g is not in [1e-12, 1e-2]",
+                            rel_tol);
+    if (n_times == 0)
+        return MCD_OK;
+    for (i = 0; i < n; i++)
+        tot[i] = V1 * x1n[i] + V2 * x2n[i];
+    for (i = 0; i < n * n; i++)
+        if (i / n != i % n && Dij[i] > Dmax)
+            Dmax = Dij[i];
+    memset(&g, 0, sizeof g);
+    g.ws = ws;
+    g.n = n;
+    g.Dij = Dij;
+    g.c = c;
+    g.L = L;
+    g.V1 = V1;
+    g.V2 = V2;
+    g.rate1 = A / (c * V1);
+    g.tot = tot;
+    g.x1c = mcdi_ws_aux_vec(ws, 7) + 2 * ws->cap;
+    g.x2c = mcdi_ws_aux_vec(ws, 7) + 3 * ws->cap;
+    g.N = mcdi_ws_aux_vec(ws, 4) + 3 * ws->cap;
+    /* first step: a small fraction of the fastest relaxation time */
+    h0 = 1e-3 * L * V1 * V2 / (A * (V1 + V2) * Dmax);
+    st = integrate(&g, x1n, n_times, t, rel_tol, h0, 0, NULL, NULL);
+    if (st != MCD_OK)
+        return st;
+    return integrate(&g, x1n, n_times, t, rel_tol, h0, 1, out_x1, out_x2);
+}
