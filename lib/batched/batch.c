@@ -243,20 +243,19 @@ static void job_init(mcdi_bjob *jb, const mcd_workspace *ws, mcd_model model,
     jb->tol = ws->iter_tol;
 }
 
-MCD_API mcd_status mcd_flux_batch(mcd_workspace *ws, const mcd_mixture *mix,
-                                  mcd_model model, size_t n_cells,
-                                  size_t n_dim, const double *T,
-                                  const double *P, mcd_basis comp_basis,
-                                  const double *comp, const double *grad,
-                                  const double *grad_lnP,
-                                  mcd_basis flux_basis, double *out_flux)
+/* The checks of a mixture-driven call (mcd_flux_batch, mcd_flux_batch_aos)
+ * and the job they describe, its inputs at stride K (the caller's arrays,
+ * or the AoS staging). */
+static mcd_status mixture_job(mcd_workspace *ws, const mcd_mixture *mix,
+                              mcd_model model, size_t n_cells, size_t n_dim,
+                              const double *T, const double *P,
+                              mcd_basis comp_basis, const double *comp,
+                              const double *grad, const double *grad_lnP,
+                              mcd_basis flux_basis, double *out_flux,
+                              int aos, mcdi_bjob *jb)
 {
-    mcdi_bjob jb;
     mcd_status st;
     size_t n;
-    if (ws == NULL)
-        return MCD_EINVAL;
-    mcdi_ws_clear_error(ws);
     if (mix == NULL)
         return mcdi_ws_fail(ws, MCD_EINVAL, "argument mix: NULL");
     n = mix->n;
@@ -272,22 +271,43 @@ MCD_API mcd_status mcd_flux_batch(mcd_workspace *ws, const mcd_mixture *mix,
     if (!mix->M_ok)
         return mcdi_ws_fail(ws, MCD_ENODATA, "argument mix: a molar mass is "
                                              "unknown");
-    job_init(&jb, ws, model, n, n_cells, n_dim, comp_basis, flux_basis);
-    jb.mix = mix;
-    jb.mix_has_omega = mixture_has_omega(mix);
-    jb.T = T;
-    jb.P = P;
-    jb.M = (comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
-            grad_lnP != NULL) ? mix->M : NULL;
-    if (jb.M != NULL && !mcdi_M_span_ok(n, jb.M))
+    job_init(jb, ws, model, n, aos ? mcdi_batch_lanes(n) : n_cells, n_dim,
+             comp_basis, flux_basis);
+    jb->mix = mix;
+    jb->mix_has_omega = mixture_has_omega(mix);
+    jb->M = (comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
+             grad_lnP != NULL) ? mix->M : NULL;
+    if (jb->M != NULL && !mcdi_M_span_ok(n, jb->M))
         return mcdi_ws_fail(ws, MCD_EDOM,
                             "argument mix: the molar masses span more than a "
                             "factor 1e12 (the basis conversions would lose "
                             "all precision)");
-    jb.comp = comp;
-    jb.grad = grad;
-    jb.glnP = grad_lnP;
-    jb.out = out_flux;
+    jb->T = T;
+    jb->P = P;
+    jb->comp = comp;
+    jb->grad = grad;
+    jb->glnP = grad_lnP;
+    jb->out = out_flux;
+    return MCD_OK;
+}
+
+MCD_API mcd_status mcd_flux_batch(mcd_workspace *ws, const mcd_mixture *mix,
+                                  mcd_model model, size_t n_cells,
+                                  size_t n_dim, const double *T,
+                                  const double *P, mcd_basis comp_basis,
+                                  const double *comp, const double *grad,
+                                  const double *grad_lnP,
+                                  mcd_basis flux_basis, double *out_flux)
+{
+    mcdi_bjob jb;
+    mcd_status st;
+    if (ws == NULL)
+        return MCD_EINVAL;
+    mcdi_ws_clear_error(ws);
+    if ((st = mixture_job(ws, mix, model, n_cells, n_dim, T, P, comp_basis,
+                          comp, grad, grad_lnP, flux_basis, out_flux, 0,
+                          &jb)) != MCD_OK)
+        return st;
     if (n_cells == 0)
         return MCD_OK;
     jb.stream = stream_choice(&jb);
@@ -355,41 +375,21 @@ MCD_API mcd_status mcd_flux_batch_aos(mcd_workspace *ws,
     if (ws == NULL)
         return MCD_EINVAL;
     mcdi_ws_clear_error(ws);
-    if (mix == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument mix: NULL");
-    n = mix->n;
-    if ((st = check_common(ws, model, n, n_cells, n_dim, comp_basis, comp,
-                           grad, flux_basis, out_flux)) != MCD_OK)
+    if ((st = mixture_job(ws, mix, model, n_cells, n_dim, T, P, comp_basis,
+                          comp, grad, grad_lnP, flux_basis, out_flux, 1,
+                          &jb)) != MCD_OK)
         return st;
-    if (T == NULL || P == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL",
-                            T == NULL ? "T" : "P");
-    if ((st = mcdi_mixture_ready(mix)) != MCD_OK)
-        return mcdi_ws_fail(ws, st, "argument mix: a pair's method lacks a "
-                                    "parameter");
-    if (!mix->M_ok)
-        return mcdi_ws_fail(ws, MCD_ENODATA, "argument mix: a molar mass is "
-                                             "unknown");
     if (n_cells == 0)
         return MCD_OK;
-    L = mcdi_batch_lanes(n);
+    n = jb.n;
+    L = jb.K;
     /* staging after the kernel's block scratch in thread 0's region (both
      * counted by mcdi_batch_scratch_doubles) */
     mcdi_aos_carve(ws->batch_mem + MCDI_STREAM_DOUBLES +
                        mcdi_kblock_doubles(n, nd, L),
                    n, nd, L, &sg);
-    job_init(&jb, ws, model, n, L, nd, comp_basis, flux_basis);
-    jb.mix = mix;
-    jb.mix_has_omega = mixture_has_omega(mix);
     jb.T = sg.T;
     jb.P = sg.P;
-    jb.M = (comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
-            grad_lnP != NULL) ? mix->M : NULL;
-    if (jb.M != NULL && !mcdi_M_span_ok(n, jb.M))
-        return mcdi_ws_fail(ws, MCD_EDOM,
-                            "argument mix: the molar masses span more than a "
-                            "factor 1e12 (the basis conversions would lose "
-                            "all precision)");
     jb.comp = sg.comp;
     jb.grad = sg.grad;
     jb.glnP = grad_lnP != NULL ? sg.glnP : NULL;

@@ -52,59 +52,41 @@
     R(active, 1) /* 1 while the lane iterates */                            \
     R(iters, 1)  /* iterations used */
 
-typedef struct mcdi_kblock {
-#define MCDI_KB_FIELD(name, rows) double *name;
-    MCDI_KBLOCK_REGIONS(MCDI_KB_FIELD)
-#undef MCDI_KB_FIELD
-} mcdi_kblock;
+/* From a region list: the struct of region pointers, the size in doubles
+ * for n species, nd directions, L lanes, and the carving of a block of
+ * memory in list order. One list drives all three, so the size and the
+ * layout cannot disagree. */
+#define MCDI_LAYOUT_FIELD(name, rows) double *name;
+#define MCDI_LAYOUT_COUNT(name, rows) count += (rows);
+#define MCDI_LAYOUT_CARVE(name, rows) out->name = mem; mem += (rows) * L;
+#define MCDI_DEFINE_LAYOUT(type, LIST, doubles_fn, carve_fn)              \
+    typedef struct type { LIST(MCDI_LAYOUT_FIELD) } type;                 \
+    static inline size_t doubles_fn(size_t n, size_t nd, size_t L)        \
+    {                                                                     \
+        size_t count = 0;                                                 \
+        LIST(MCDI_LAYOUT_COUNT)                                           \
+        (void)n;                                                          \
+        (void)nd;                                                         \
+        return count * L;                                                 \
+    }                                                                     \
+    static inline void carve_fn(double *mem, size_t n, size_t nd,         \
+                                size_t L, type *out)                      \
+    {                                                                     \
+        LIST(MCDI_LAYOUT_CARVE)                                           \
+        (void)n;                                                          \
+        (void)nd;                                                         \
+    }
 
-/* Doubles of a block's scratch for n species, nd directions, L lanes. */
-static inline size_t mcdi_kblock_doubles(size_t n, size_t nd, size_t L)
-{
-    size_t rows = 0;
-#define MCDI_KB_COUNT(name, cnt) rows += (cnt);
-    MCDI_KBLOCK_REGIONS(MCDI_KB_COUNT)
-#undef MCDI_KB_COUNT
-    (void)nd;
-    return rows * L;
-}
-
-/* Point the regions of b into mem, in list order. */
-static inline void mcdi_kblock_carve(double *mem, size_t n, size_t nd,
-                                     size_t L, mcdi_kblock *b)
-{
-#define MCDI_KB_CARVE(name, cnt) b->name = mem; mem += (cnt) * L;
-    MCDI_KBLOCK_REGIONS(MCDI_KB_CARVE)
-#undef MCDI_KB_CARVE
-    (void)nd;
-}
+/* mcdi_kblock, mcdi_kblock_doubles, mcdi_kblock_carve: a block's scratch
+ * (the kernels carve it, batch.c sizes a thread's region with it). */
+MCDI_DEFINE_LAYOUT(mcdi_kblock, MCDI_KBLOCK_REGIONS, mcdi_kblock_doubles,
+                   mcdi_kblock_carve)
 
 /* AoS staging (mcd_flux_batch_aos): a block of cells transposed into the
  * SoA layout the kernels read, placed after the kernel's scratch. */
 #define MCDI_AOS_REGIONS(R)                                                 \
     R(T, 1) R(P, 1) R(comp, n) R(grad, n * nd) R(glnP, nd) R(out, n * nd)
-
-typedef struct mcdi_aos_stage {
-#define MCDI_KB_FIELD(name, rows) double *name;
-    MCDI_AOS_REGIONS(MCDI_KB_FIELD)
-#undef MCDI_KB_FIELD
-} mcdi_aos_stage;
-
-static inline size_t mcdi_aos_doubles(size_t n, size_t nd, size_t L)
-{
-    size_t rows = 0;
-#define MCDI_KB_COUNT(name, cnt) rows += (cnt);
-    MCDI_AOS_REGIONS(MCDI_KB_COUNT)
-#undef MCDI_KB_COUNT
-    return rows * L;
-}
-
-static inline void mcdi_aos_carve(double *mem, size_t n, size_t nd, size_t L,
-                                  mcdi_aos_stage *a)
-{
-#define MCDI_KB_CARVE(name, cnt) a->name = mem; mem += (cnt) * L;
-    MCDI_AOS_REGIONS(MCDI_KB_CARVE)
-#undef MCDI_KB_CARVE
-}
+MCDI_DEFINE_LAYOUT(mcdi_aos_stage, MCDI_AOS_REGIONS, mcdi_aos_doubles,
+                   mcdi_aos_carve)
 
 #endif

@@ -166,25 +166,6 @@ KINLINE void iter_product_c(const size_t n, const size_t nd,
     iter_finish(n, nd, f, s, x, minv, wk, d, U, V);
 }
 
-/* v = Ps v: projection onto s^T v = 0, per direction. */
-KINLINE void project_s(const mcdi_kblock *b, double *restrict v,
-                       const size_t n, const size_t L, const size_t nd)
-{
-    const double *restrict s = b->s;
-    double p[MCDI_LANES]; /* in registers (a row of scratch was not) */
-    size_t i, dd, l;
-    for (dd = 0; dd < nd; dd++) {
-        LANES
-            p[l] = 0.0;
-        for (i = 0; i < n; i++)
-            LANES
-                p[l] += s[i * L + l] * v[(i * nd + dd) * L + l];
-        for (i = 0; i < n; i++)
-            LANES
-                v[(i * nd + dd) * L + l] -= s[i * L + l] * p[l];
-    }
-}
-
 /* One Ern-Giovangigli step before the projection, one lane row at a time
  * (blocks other than the vector width): J holds sum_j invD_ij s_j U_j. */
 KINLINE void iter_product_rows(const mcdi_kblock *b, const size_t n,
@@ -290,7 +271,7 @@ KINLINE void stage_iterate(const mcdi_bjob *jb, const mcdi_kblock *b, int pl,
     for (i = 0; i < n * nd; i++)
         LANES
             r[i * L + l] *= minv[(i / nd) * L + l];
-    project_s(b, r, n, L, nd);
+    remove_along(r, b->s, b->s, n, L, nd); /* U^0 onto s^T U = 0 */
     LANES {
         dprev[l] = HUGE_VAL;
         dprev2[l] = HUGE_VAL;
@@ -315,7 +296,7 @@ KINLINE void stage_iterate(const mcdi_bjob *jb, const mcdi_kblock *b, int pl,
                            (mcdi_vd *)b->J, (mcdi_vd *)v);
         else
             iter_product_rows(b, n, L, nd);
-        project_s(b, v, n, L, nd);
+        remove_along(v, b->s, b->s, n, L, nd);
         iter_estimate(b, it, n, L, nd);
         for (i = 0; i < n * nd; i++)
             LANES

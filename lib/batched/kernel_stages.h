@@ -482,22 +482,25 @@ KINLINE void stage_compose(const mcdi_kblock *b, const size_t n,
     }
 }
 
-/* Zero-sum clean-up J_i -= y_i sum_k J_k with weights y (x for molar
- * fluxes: trace species stay exact; w for mass fluxes). */
-KINLINE void zero_sum(const mcdi_kblock *b, const double *restrict y,
-                      const size_t n, const size_t L, const size_t nd)
+/* v_i -= y_i sum_k w_k v_k in each direction, w NULL meaning weights 1:
+ * the zero-sum clean-up (w = 1, y = x for molar fluxes, so trace species
+ * stay exact) and the projection onto s^T v = 0 (w = y = s). The sum lives
+ * in a local array, i.e. in registers. */
+KINLINE void remove_along(double *restrict v, const double *w,
+                          const double *restrict y, const size_t n,
+                          const size_t L, const size_t nd)
 {
-    double *restrict J = b->J, rs[MCDI_LANES];
+    double p[MCDI_LANES];
     size_t i, dd, l;
     for (dd = 0; dd < nd; dd++) {
         LANES
-            rs[l] = 0.0;
+            p[l] = 0.0;
         for (i = 0; i < n; i++)
             LANES
-                rs[l] += J[(i * nd + dd) * L + l];
+                p[l] += (w != NULL ? w[i * L + l] : 1.0) * v[(i * nd + dd) * L + l];
         for (i = 0; i < n; i++)
             LANES
-                J[(i * nd + dd) * L + l] -= y[i * L + l] * rs[l];
+                v[(i * nd + dd) * L + l] -= y[i * L + l] * p[l];
     }
 }
 

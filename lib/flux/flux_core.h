@@ -34,6 +34,10 @@ size_t mcdi_flux_most_abundant(size_t n, const double *x);
 
 int mcdi_mass_zero_sum_kept(size_t n, size_t nd, const double *F);
 
+/* Zero-sum clean-up of molar fluxes J (n x nd): J_i -= x_i sum_k J_k per
+ * direction (weights x: trace species, x_i = 0, stay exact). */
+void mcdi_flux_zero_sum(size_t n, size_t nd, const double *x, double *J);
+
 mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
                           const double *x, const double *d,
                           const double *Dij, double c, double *J);

@@ -205,14 +205,7 @@ mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
     }
 
 zero_sum:
-    /* zero-sum clean-up with weights x (trace species stay exact) */
-    for (dd = 0; dd < nd; dd++) {
-        double r = 0.0;
-        for (i = 0; i < n; i++)
-            r += J[i * nd + dd];
-        for (i = 0; i < n; i++)
-            J[i * nd + dd] -= x[i] * r;
-    }
+    mcdi_flux_zero_sum(n, nd, x, J); /* trace species stay exact */
     return MCD_OK;
 
 not_definite:

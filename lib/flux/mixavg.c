@@ -96,6 +96,12 @@ void mcdi_mixavg_fluxes(size_t n, size_t nd, const double *x, const double *d,
             J[i * nd + dd] -= x[i] * sum[dd];
     /* a second pass removes the round-off left by the first (the weights
      * x sum to 1 only to round-off) */
+    mcdi_flux_zero_sum(n, nd, x, J);
+}
+
+void mcdi_flux_zero_sum(size_t n, size_t nd, const double *x, double *J)
+{
+    size_t i, dd;
     for (dd = 0; dd < nd; dd++) {
         double r = 0.0;
         for (i = 0; i < n; i++)
