@@ -7,6 +7,28 @@
 #ifndef MCD_KERNEL_STAGES_H
 #define MCD_KERNEL_STAGES_H
 
+/* v_i -= y_i sum_k w_k v_k in each direction, w NULL meaning weights 1:
+ * the zero-sum clean-up (w = 1, y = x for molar fluxes, so trace species
+ * stay exact) and the projection onto s^T v = 0 (w = y = s). The sum lives
+ * in a local array, i.e. in registers. */
+KINLINE void remove_along(double *restrict v, const double *w,
+                          const double *restrict y, const size_t n,
+                          const size_t L, const size_t nd)
+{
+    double p[MCDI_LANES];
+    size_t i, dd, l;
+    for (dd = 0; dd < nd; dd++) {
+        LANES
+            p[l] = 0.0;
+        for (i = 0; i < n; i++)
+            LANES
+                p[l] += (w != NULL ? w[i * L + l] : 1.0) * v[(i * nd + dd) * L + l];
+        for (i = 0; i < n; i++)
+            LANES
+                v[(i * nd + dd) * L + l] -= y[i * L + l] * p[l];
+    }
+}
+
 /* Per-cell scalars: c, or T and P (and c = P / (R T)) of a mixture call. */
 KINLINE int stage_load_scalars(const mcdi_bjob *jb, const mcdi_kblock *b,
                                size_t k0, size_t nv, const size_t L)
@@ -154,18 +176,7 @@ KINLINE void stage_forces(const mcdi_bjob *jb, const mcdi_kblock *b,
                 LANES
                     d[(i * nd + dd) * L + l] +=
                         (x[i * L + l] - w[i * L + l]) * v[dd * L + l];
-    /* projection onto sum_i d_i = 0 with weights x */
-    for (dd = 0; dd < nd; dd++) {
-        double sd[MCDI_LANES];
-        LANES
-            sd[l] = 0.0;
-        for (i = 0; i < n; i++)
-            LANES
-                sd[l] += d[(i * nd + dd) * L + l];
-        for (i = 0; i < n; i++)
-            LANES
-                d[(i * nd + dd) * L + l] -= x[i * L + l] * sd[l];
-    }
+    remove_along(d, NULL, x, n, L, nd); /* onto sum_i d_i = 0, weights x */
 }
 
 /* Inverse binary diffusivities (packed lower, i > j) from the caller's
@@ -482,27 +493,6 @@ KINLINE void stage_compose(const mcdi_kblock *b, const size_t n,
     }
 }
 
-/* v_i -= y_i sum_k w_k v_k in each direction, w NULL meaning weights 1:
- * the zero-sum clean-up (w = 1, y = x for molar fluxes, so trace species
- * stay exact) and the projection onto s^T v = 0 (w = y = s). The sum lives
- * in a local array, i.e. in registers. */
-KINLINE void remove_along(double *restrict v, const double *w,
-                          const double *restrict y, const size_t n,
-                          const size_t L, const size_t nd)
-{
-    double p[MCDI_LANES];
-    size_t i, dd, l;
-    for (dd = 0; dd < nd; dd++) {
-        LANES
-            p[l] = 0.0;
-        for (i = 0; i < n; i++)
-            LANES
-                p[l] += (w != NULL ? w[i * L + l] : 1.0) * v[(i * nd + dd) * L + l];
-        for (i = 0; i < n; i++)
-            LANES
-                v[(i * nd + dd) * L + l] -= y[i * L + l] * p[l];
-    }
-}
 
 /* Mass fluxes j_i = M_i J_i - w_i sum_k M_k J_k, the residual removed with
  * w; fails (EDOM in res) where the terms cancelled, as
