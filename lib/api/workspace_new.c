@@ -14,6 +14,7 @@
 #include "base/mcd_internal.h"
 #include "base/workspace.h"
 #include "batched/batch.h"
+#include "transfer/tf_layout.h"
 #ifdef _OPENMP
 #include <omp.h>
 #endif
@@ -66,11 +67,8 @@ MCD_API void mcd_workspace_free(mcd_workspace *ws)
     for (k = 0; k < 2; k++)
         ws->al.free(ws->al.ud, ws->core_idx[k]);
     ws->al.free(ws->al.ud, ws->geev_work);
-    for (k = 0; k < MCDI_WS_AUX_MATS; k++)
-        ws->al.free(ws->al.ud, ws->aux_mat[k]);
-    for (k = 0; k < MCDI_WS_AUX_VECS; k++)
-        ws->al.free(ws->al.ud, ws->aux_vec[k]);
-    ws->al.free(ws->al.ud, ws->aux_ipiv);
+    ws->al.free(ws->al.ud, ws->tf_mem);
+    ws->al.free(ws->al.ud, ws->tf_ipiv);
     ws->al.free(ws->al.ud, ws->batch_raw);
     {
         mcd_allocator al = ws->al;
@@ -83,7 +81,7 @@ MCD_API mcd_status mcd_workspace_alloc_with(size_t n_species,
                                             mcd_workspace **out_ws)
 {
     mcd_workspace *ws;
-    size_t mat_bytes, nd_bytes, vec_bytes, int_bytes, aux_vec_bytes;
+    size_t mat_bytes, nd_bytes, vec_bytes, int_bytes, tf_bytes;
     size_t k;
 
     if (out_ws == NULL || allocator == NULL || allocator->alloc == NULL ||
@@ -96,9 +94,9 @@ MCD_API mcd_status mcd_workspace_alloc_with(size_t n_species,
     nd_bytes = mul_size(n_species, MCD_MAX_DIM, sizeof(double));
     vec_bytes = mul_size(n_species, 1, sizeof(double));
     int_bytes = mul_size(n_species, 1, sizeof(int));
-    aux_vec_bytes = mul_size(MCDI_WS_AUX_VECLEN(n_species), 1, sizeof(double));
+    tf_bytes = mul_size(mcdi_tf_doubles(n_species, 0, 1), 1, sizeof(double));
     if (mat_bytes == 0 || nd_bytes == 0 || vec_bytes == 0 || int_bytes == 0 ||
-        aux_vec_bytes == 0)
+        tf_bytes == 0)
         return MCD_ENOMEM;
 
     ws = (mcd_workspace *)allocator->alloc(allocator->ud, sizeof(*ws));
@@ -120,13 +118,8 @@ MCD_API mcd_status mcd_workspace_alloc_with(size_t n_species,
     for (k = 0; k < 2; k++)
         if ((ws->core_idx[k] = (int *)ws_calloc(ws, int_bytes)) == NULL)
             goto fail;
-    for (k = 0; k < MCDI_WS_AUX_MATS; k++)
-        if ((ws->aux_mat[k] = (double *)ws_calloc(ws, mat_bytes)) == NULL)
-            goto fail;
-    for (k = 0; k < MCDI_WS_AUX_VECS; k++)
-        if ((ws->aux_vec[k] = (double *)ws_calloc(ws, aux_vec_bytes)) == NULL)
-            goto fail;
-    if ((ws->aux_ipiv = (int *)ws_calloc(ws, int_bytes)) == NULL)
+    if ((ws->tf_mem = (double *)ws_calloc(ws, tf_bytes)) == NULL ||
+        (ws->tf_ipiv = (int *)ws_calloc(ws, int_bytes)) == NULL)
         goto fail;
 
     /* batched scratch: one region per OpenMP thread, each a multiple of 8

@@ -37,21 +37,6 @@ void mcdi_ws_clear_error(mcd_workspace *ws)
         ws->err[0] = '\0';
 }
 
-double *mcdi_ws_aux_mat(mcd_workspace *ws, size_t k)
-{
-    return (ws == NULL || k >= MCDI_WS_AUX_MATS) ? NULL : ws->aux_mat[k];
-}
-
-double *mcdi_ws_aux_vec(mcd_workspace *ws, size_t k)
-{
-    return (ws == NULL || k >= MCDI_WS_AUX_VECS) ? NULL : ws->aux_vec[k];
-}
-
-int *mcdi_ws_aux_ipiv(mcd_workspace *ws)
-{
-    return ws == NULL ? NULL : ws->aux_ipiv;
-}
-
 double *mcdi_ws_geev_work(mcd_workspace *ws, size_t *out_lwork)
 {
     if (out_lwork != NULL)

@@ -11,15 +11,14 @@
  *    mcd_flux_compute / mcd_fick_matrix / mcd_fick_eigenvalues. Its contents
  *    are garbage between calls. Other modules must not use it.
  *
- *  - the AUX bank, reserved for other modules (film, bulbs, ...): they get
- *    it through the accessors below. The flux core never touches it, so a
- *    module may keep data in AUX buffers while it calls mcd_flux_compute or
- *    mcd_fick_matrix on the same workspace:
- *      mcdi_ws_aux_mat(ws, k)  k < MCDI_WS_AUX_MATS : cap*cap doubles
- *      mcdi_ws_aux_vec(ws, k)  k < MCDI_WS_AUX_VECS : MCDI_WS_AUX_VECLEN(cap)
- *                                                    doubles (4*cap)
- *      mcdi_ws_aux_ipiv(ws)                          : cap ints (LAPACK pivots)
- *    Out-of-range k returns NULL.
+ *  - the TRANSFER bank (tf_mem, tf_ipiv), used by the transfer layer
+ *    only, laid out by name in transfer/tf_layout.h (which also sizes it
+ *    for the constructor, api/workspace_new.c). The flux core never
+ *    touches it, so a transfer call may keep data there while it calls
+ *    mcd_flux_compute or mcd_fick_matrix on the same workspace.
+ *
+ *  - the BATCH bank (batch_*), per-thread block scratch of the batched
+ *    calls, laid out by batched/batch_layout.h.
  *
  *  - the dgeev work array (mcdi_ws_geev_work) is sized at alloc time by a
  *    workspace query for n = cap with right eigenvectors requested (the
@@ -39,10 +38,7 @@
 #include "mcdiff.h"
 
 #define MCDI_WS_ERRLEN 256
-#define MCDI_WS_AUX_MATS 4
 #define MCDI_WS_CORE_VECS 7
-#define MCDI_WS_AUX_VECS 8
-#define MCDI_WS_AUX_VECLEN(cap) (4 * (cap))
 
 struct mcd_workspace {
     size_t cap;                 /* species capacity, 1..MCD_MAX_SPECIES */
@@ -59,10 +55,9 @@ struct mcd_workspace {
     double *geev_work;
     size_t geev_lwork;
 
-    /* AUX bank (other modules) */
-    double *aux_mat[MCDI_WS_AUX_MATS];
-    double *aux_vec[MCDI_WS_AUX_VECS];
-    int *aux_ipiv;
+    /* TRANSFER bank (transfer/tf_layout.h) */
+    double *tf_mem;
+    int *tf_ipiv;               /* cap ints (LAPACK pivots) */
 
     /* BATCH bank (batch.c only): per-thread scratch of batch_per_thread
      * doubles each, batch_threads of them, 64-byte aligned inside
@@ -91,10 +86,6 @@ mcd_status mcdi_ws_fail(mcd_workspace *ws, mcd_status status, const char *fmt,
  * takes a workspace). ws may be NULL. */
 void mcdi_ws_clear_error(mcd_workspace *ws);
 
-/* AUX bank accessors (NULL for ws == NULL or k out of range). */
-double *mcdi_ws_aux_mat(mcd_workspace *ws, size_t k);
-double *mcdi_ws_aux_vec(mcd_workspace *ws, size_t k);
-int *mcdi_ws_aux_ipiv(mcd_workspace *ws);
 /* dgeev work array and its length (lwork for LAPACKE_dgeev_work). */
 double *mcdi_ws_geev_work(mcd_workspace *ws, size_t *out_lwork);
 

@@ -16,6 +16,7 @@
 #include <stddef.h>
 #include "mcdiff.h"
 #include "props/mixture.h"
+#include "base/layout.h"
 
 /* Rows factored together above KREG species (ldl_solve_v, batch_ldl.h). */
 #define MCDI_KTILE 4
@@ -51,31 +52,6 @@
     R(est, 1)    /* error estimate of the iteration */                      \
     R(active, 1) /* 1 while the lane iterates */                            \
     R(iters, 1)  /* iterations used */
-
-/* From a region list: the struct of region pointers, the size in doubles
- * for n species, nd directions, L lanes, and the carving of a block of
- * memory in list order. One list drives all three, so the size and the
- * layout cannot disagree. */
-#define MCDI_LAYOUT_FIELD(name, rows) double *name;
-#define MCDI_LAYOUT_COUNT(name, rows) count += (rows);
-#define MCDI_LAYOUT_CARVE(name, rows) out->name = mem; mem += (rows) * L;
-#define MCDI_DEFINE_LAYOUT(type, LIST, doubles_fn, carve_fn)              \
-    typedef struct type { LIST(MCDI_LAYOUT_FIELD) } type;                 \
-    static inline size_t doubles_fn(size_t n, size_t nd, size_t L)        \
-    {                                                                     \
-        size_t count = 0;                                                 \
-        LIST(MCDI_LAYOUT_COUNT)                                           \
-        (void)n;                                                          \
-        (void)nd;                                                         \
-        return count * L;                                                 \
-    }                                                                     \
-    static inline void carve_fn(double *mem, size_t n, size_t nd,         \
-                                size_t L, type *out)                      \
-    {                                                                     \
-        LIST(MCDI_LAYOUT_CARVE)                                           \
-        (void)n;                                                          \
-        (void)nd;                                                         \
-    }
 
 /* mcdi_kblock, mcdi_kblock_doubles, mcdi_kblock_carve: a block's scratch
  * (the kernels carve it, batch.c sizes a thread's region with it). */

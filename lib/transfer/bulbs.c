@@ -40,9 +40,9 @@
  * run once without writing and, if it succeeds, repeated (identically)
  * while writing.
  *
- * Scratch: AUX vectors 4..7 here; the film solver uses AUX matrices 0..3,
- * AUX vectors 0..3 and the AUX pivots. The linearized call uses AUX
- * matrices 0..3, AUX vectors 4..5 and the pivots.
+ * Scratch: the b_* regions of the transfer scratch (tf_layout.h), distinct
+ * from the film's, which the integration calls; the linearized call also
+ * uses its matrices and pivots.
  */
 #include <math.h>
 #include <string.h>
@@ -51,6 +51,7 @@
 #include "base/mcd_internal.h"
 #include "base/workspace.h"
 #include "transfer/film.h"
+#include "transfer/tf_layout.h"
 #include "flux/flux_core.h"
 
 #define BULBS_MAX_STEPS 200000
@@ -113,6 +114,7 @@ MCD_API mcd_status mcd_bulbs_linearized(mcd_workspace *ws, size_t n,
 {
     double *x1n, *x2n, *xbar, *dl0, *wr, *wi, *coef, *dl;
     double *Dm, *Ac, *VR, *LU, *work;
+    mcdi_tf tf;
     double beta, f1, f2, wmax = 0.0;
     size_t m, d, i, j, k, lwork = 0;
     int use_eig = 1;
@@ -121,23 +123,24 @@ MCD_API mcd_status mcd_bulbs_linearized(mcd_workspace *ws, size_t n,
 
     if (ws == NULL)
         return MCD_EINVAL;
-    x1n = mcdi_ws_aux_vec(ws, 4);
-    x2n = x1n + ws->cap;
-    xbar = x1n + 2 * ws->cap;
-    dl0 = x1n + 3 * ws->cap;
+    mcdi_tf_scratch(ws, &tf);
+    x1n = tf.b_x1n;
+    x2n = tf.b_x2n;
+    xbar = tf.b_xbar;
+    dl0 = tf.b_dl0;
     st = bulbs_check(ws, n, Dij, c, V1, V2, A, L, x1_0, x2_0, n_times, t,
                      out_x1, out_x2, 0, x1n, x2n);
     if (st != MCD_OK || n_times == 0)
         return st;
-    wr = mcdi_ws_aux_vec(ws, 5);
-    wi = wr + ws->cap;
-    coef = wr + 2 * ws->cap;
-    dl = wr + 3 * ws->cap;
-    Dm = mcdi_ws_aux_mat(ws, 0);
-    Ac = mcdi_ws_aux_mat(ws, 1);
-    VR = mcdi_ws_aux_mat(ws, 2);
-    LU = mcdi_ws_aux_mat(ws, 3);
-    ipiv = (lapack_int *)mcdi_ws_aux_ipiv(ws);
+    wr = tf.b_wr;
+    wi = tf.b_wi;
+    coef = tf.b_coef;
+    dl = tf.b_dl;
+    Dm = tf.mat0;
+    Ac = tf.mat1;
+    VR = tf.mat2;
+    LU = tf.mat3;
+    ipiv = (lapack_int *)ws->tf_ipiv;
 
     for (i = 0; i < n; i++)
         xbar[i] = (V1 * x1n[i] + V2 * x2n[i]) / (V1 + V2);
@@ -217,9 +220,7 @@ MCD_API mcd_status mcd_bulbs_linearized(mcd_workspace *ws, size_t n,
                 dl[i] = acc;
             }
         } else {
-            double *slot[3] = {mcdi_ws_aux_mat(ws, 1),
-                               mcdi_ws_aux_mat(ws, 2),
-                               mcdi_ws_aux_mat(ws, 3)};
+            double *slot[3] = {tf.mat1, tf.mat2, tf.mat3};
             for (i = 0; i < m * m; i++)
                 slot[0][i] = -beta * t[k] * Dm[i];
             if (mcdi_tf_expm_phi(m, slot) != MCD_OK)
@@ -312,18 +313,23 @@ static mcd_status integrate(integ *g, const double *x1n, size_t n_times,
                             int write, double *out_x1, double *out_x2)
 {
     mcd_workspace *ws = g->ws;
-    size_t n = g->n, cap = ws->cap, i, s, k, steps = 0;
+    size_t n = g->n, i, s, k, steps = 0;
     double *kk[7], *ys, *y, *yn;
     double tc = 0.0, h = h0;
+    mcdi_tf tf;
     mcd_status st;
 
-    for (s = 0; s < 4; s++)
-        kk[s] = mcdi_ws_aux_vec(ws, 5) + s * cap;
-    for (s = 4; s < 7; s++)
-        kk[s] = mcdi_ws_aux_vec(ws, 6) + (s - 4) * cap;
-    ys = mcdi_ws_aux_vec(ws, 6) + 3 * cap;
-    y = mcdi_ws_aux_vec(ws, 7);
-    yn = y + cap;
+    mcdi_tf_scratch(ws, &tf);
+    kk[0] = tf.b_k0;
+    kk[1] = tf.b_k1;
+    kk[2] = tf.b_k2;
+    kk[3] = tf.b_k3;
+    kk[4] = tf.b_k4;
+    kk[5] = tf.b_k5;
+    kk[6] = tf.b_k6;
+    ys = tf.b_ys;
+    y = tf.b_y;
+    yn = tf.b_yn;
 
     memcpy(y, x1n, n * sizeof(double));
     st = rhs(g, y, kk[0]);
@@ -406,15 +412,17 @@ MCD_API mcd_status mcd_bulbs_integrate(mcd_workspace *ws, size_t n,
                                        double *out_x1, double *out_x2)
 {
     double *x1n, *x2n, *tot, Dmax = 0.0, h0;
+    mcdi_tf tf;
     integ g;
     size_t i;
     mcd_status st;
 
     if (ws == NULL)
         return MCD_EINVAL;
-    x1n = mcdi_ws_aux_vec(ws, 4);
-    x2n = x1n + ws->cap;
-    tot = x1n + 2 * ws->cap;
+    mcdi_tf_scratch(ws, &tf);
+    x1n = tf.b_x1n;
+    x2n = tf.b_x2n;
+    tot = tf.b_tot;
     st = bulbs_check(ws, n, Dij, c, V1, V2, A, L, x1_0, x2_0, n_times, t,
                      out_x1, out_x2, 1, x1n, x2n);
     if (st != MCD_OK)
@@ -441,9 +449,9 @@ MCD_API mcd_status mcd_bulbs_integrate(mcd_workspace *ws, size_t n,
     g.V2 = V2;
     g.rate1 = A / (c * V1);
     g.tot = tot;
-    g.x1c = mcdi_ws_aux_vec(ws, 7) + 2 * ws->cap;
-    g.x2c = mcdi_ws_aux_vec(ws, 7) + 3 * ws->cap;
-    g.N = mcdi_ws_aux_vec(ws, 4) + 3 * ws->cap;
+    g.x1c = tf.b_x1c;
+    g.x2c = tf.b_x2c;
+    g.N = tf.b_N;
     /* first step: a small fraction of the fastest relaxation time */
     h0 = 1e-3 * L * V1 * V2 / (A * (V1 + V2) * Dmax);
     st = integrate(&g, x1n, n_times, t, rel_tol, h0, 0, NULL, NULL);

@@ -68,7 +68,8 @@
  * product is nonsingular for physical states; dgetrf's info > 0 is
  * reported as MCD_ESING all the same.
  *
- * Scratch: workspace AUX matrices 0..3 and AUX vectors 0..3.
+ * Scratch: the film regions of the transfer scratch (tf_layout.h) and its
+ * matrices.
  */
 #include <math.h>
 #include <string.h>
@@ -78,6 +79,7 @@
 #include "base/workspace.h"
 #include "base/composition.h"
 #include "transfer/film.h"
+#include "transfer/tf_layout.h"
 #include "flux/flux_core.h"
 
 _Static_assert(sizeof(lapack_int) == sizeof(int),
@@ -236,7 +238,8 @@ typedef struct film {
     size_t species;
     const double *values;
     mcd_film_method method;
-    double *mat[4];             /* AUX matrices; mat[3] = B_e */
+    mcdi_tf tf;                 /* the transfer scratch (tf_layout.h) */
+    double *mat[4];             /* tf.mat0..3; mat[3] = B_e */
     double *delta;              /* reduced x0 - xL (m) */
     double *rhs;                /* right-hand side (m) */
     double *J;                  /* diffusion fluxes at the end (n) */
@@ -515,12 +518,15 @@ mcd_status mcdi_film_core(mcd_workspace *ws, size_t n, const double *Dij,
     f.species = species;
     f.values = values;
     f.method = method;
-    for (i = 0; i < 4; i++)
-        f.mat[i] = mcdi_ws_aux_mat(ws, i);
-    f.delta = mcdi_ws_aux_vec(ws, 0);
-    f.rhs = f.delta + ws->cap;
-    f.J = f.delta + 2 * ws->cap;
-    f.ipiv = (lapack_int *)mcdi_ws_aux_ipiv(ws);
+    mcdi_tf_scratch(ws, &f.tf);
+    f.mat[0] = f.tf.mat0;
+    f.mat[1] = f.tf.mat1;
+    f.mat[2] = f.tf.mat2;
+    f.mat[3] = f.tf.mat3;
+    f.delta = f.tf.delta;
+    f.rhs = f.tf.rhs;
+    f.J = f.tf.J;
+    f.ipiv = (lapack_int *)ws->tf_ipiv;
 
     /* dependent species: the most abundant over both ends */
     f.d = 0;
@@ -561,7 +567,7 @@ mcd_status mcdi_film_core(mcd_workspace *ws, size_t n, const double *Dij,
     if (method == MCD_FILM_EXACT) {
         build_B(&f, f.xe, 1.0, f.mat[3]);
     } else {
-        double *xbar = mcdi_ws_aux_vec(ws, 2);
+        double *xbar = f.tf.xbar;
         for (i = 0; i < n; i++)
             xbar[i] = 0.5 * (x0[i] + xL[i]);
         build_B(&f, xbar, 1.0, f.mat[3]);
@@ -601,18 +607,17 @@ static mcd_status film_iterate(film *f, double *out_N, size_t *out_it,
                                double *out_res)
 {
     mcd_workspace *ws = f->ws;
-    size_t n = f->n, cap = ws->cap, i, it, depth = 0, halvings = 0;
-    double *G = f->delta + 3 * cap;
-    double *N = mcdi_ws_aux_vec(ws, 1);
-    double *fprev = N + cap, *Gprev = N + 2 * cap, *Ngood = N + 3 * cap;
+    size_t n = f->n, i, it, depth = 0, halvings = 0;
+    double *G = f->tf.G, *N = f->tf.N, *fprev = f->tf.fprev;
+    double *Gprev = f->tf.Gprev, *Ngood = f->tf.Ngood;
     double *dF[2], *dG[2];
     double r = HUGE_VAL;
     mcd_status st;
 
-    dF[0] = mcdi_ws_aux_vec(ws, 2);
-    dF[1] = dF[0] + cap;
-    dG[0] = dF[0] + 2 * cap;
-    dG[1] = dF[0] + 3 * cap;
+    dF[0] = f->tf.dF0;
+    dF[1] = f->tf.dF1;
+    dG[0] = f->tf.dG0;
+    dG[1] = f->tf.dG1;
     for (i = 0; i < n; i++)
         N[i] = Ngood[i] = 0.0;
     for (it = 1; it <= FILM_MAX_ITER; it++) {
@@ -736,6 +741,7 @@ MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n,
                                   double *out_residual)
 {
     double *x0n, *xLn, *Nres;
+    mcdi_tf tf;
     size_t i, its = 0;
     double res = 0.0;
     mcd_status st;
@@ -752,9 +758,10 @@ MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n,
         (st = mcdi_check_positive(ws, c, "c")) != MCD_OK ||
         (st = mcdi_check_positive(ws, L, "L")) != MCD_OK)
         return st;
-    x0n = mcdi_ws_aux_vec(ws, 3);
-    xLn = x0n + ws->cap;
-    Nres = x0n + 2 * ws->cap;
+    mcdi_tf_scratch(ws, &tf);
+    x0n = tf.x0n;
+    xLn = tf.xLn;
+    Nres = tf.Nres;
     if ((st = mcdi_tf_check_comp(ws, n, x0, "x0", x0n)) != MCD_OK ||
         (st = mcdi_tf_check_comp(ws, n, xL, "xL", xLn)) != MCD_OK)
         return st;
@@ -822,6 +829,7 @@ MCD_API mcd_status mcd_film_profile(mcd_workspace *ws, size_t n,
                                     double *out_x)
 {
     double *x0n, *slot[3];
+    mcdi_tf tf;
     double norm = 0.0;
     size_t i, j, p;
     mcd_status st;
@@ -833,7 +841,8 @@ MCD_API mcd_status mcd_film_profile(mcd_workspace *ws, size_t n,
         (st = mcdi_check_positive(ws, c, "c")) != MCD_OK ||
         (st = mcdi_check_positive(ws, L, "L")) != MCD_OK)
         return st;
-    x0n = mcdi_ws_aux_vec(ws, 3);
+    mcdi_tf_scratch(ws, &tf);
+    x0n = tf.x0n;
     if ((st = mcdi_tf_check_comp(ws, n, x0, "x0", x0n)) != MCD_OK)
         return st;
     if (N == NULL)
@@ -867,8 +876,9 @@ MCD_API mcd_status mcd_film_profile(mcd_workspace *ws, size_t n,
 
     for (p = 0; p < n_points; p++) {
         double sc = z[p] / c;
-        for (i = 0; i < 3; i++)
-            slot[i] = mcdi_ws_aux_mat(ws, i);
+        slot[0] = tf.mat0;
+        slot[1] = tf.mat1;
+        slot[2] = tf.mat2;
         for (i = 0; i < n; i++) {
             double diag = 0.0;
             for (j = 0; j < n; j++) {

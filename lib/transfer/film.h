@@ -31,8 +31,9 @@ void mcdi_tf_matmul(size_t m, const double *A, const double *B, double *C);
 mcd_status mcdi_tf_expm_phi(size_t m, double *slot[3]);
 
 /* Film fluxes on validated, normalised inputs (see mcd_film_solve). Uses
- * workspace AUX matrices 0..3, AUX vectors 0..3 and the AUX pivots; never
- * touches AUX vectors 4..7. Writes out_N only on success. */
+ * the film regions of the transfer scratch, its matrices and pivots
+ * (tf_layout.h), never the two bulbs' regions. Writes out_N only on
+ * success. */
 mcd_status mcdi_film_core(mcd_workspace *ws, size_t n, const double *Dij,
                           double c, double L, const double *x0,
                           const double *xL, mcd_bootstrap kind,
