@@ -15,6 +15,7 @@
 #include "base/workspace.h"
 #include "batched/batch.h"
 #include "transfer/tf_layout.h"
+#include "flux/core_layout.h"
 #ifdef _OPENMP
 #include <omp.h>
 #endif
@@ -55,17 +56,10 @@ static void *ws_calloc(mcd_workspace *ws, size_t bytes)
 
 MCD_API void mcd_workspace_free(mcd_workspace *ws)
 {
-    size_t k;
     if (ws == NULL)
         return;
-    for (k = 0; k < 2; k++)
-        ws->al.free(ws->al.ud, ws->core_mat[k]);
-    for (k = 0; k < 4; k++)
-        ws->al.free(ws->al.ud, ws->core_nd[k]);
-    for (k = 0; k < MCDI_WS_CORE_VECS; k++)
-        ws->al.free(ws->al.ud, ws->core_vec[k]);
-    for (k = 0; k < 2; k++)
-        ws->al.free(ws->al.ud, ws->core_idx[k]);
+    ws->al.free(ws->al.ud, ws->core_mem);
+    ws->al.free(ws->al.ud, ws->core_int);
     ws->al.free(ws->al.ud, ws->geev_work);
     ws->al.free(ws->al.ud, ws->tf_mem);
     ws->al.free(ws->al.ud, ws->tf_ipiv);
@@ -81,8 +75,7 @@ MCD_API mcd_status mcd_workspace_alloc_with(size_t n_species,
                                             mcd_workspace **out_ws)
 {
     mcd_workspace *ws;
-    size_t mat_bytes, nd_bytes, vec_bytes, int_bytes, tf_bytes;
-    size_t k;
+    size_t core_bytes, core_int_bytes, int_bytes, tf_bytes;
 
     if (out_ws == NULL || allocator == NULL || allocator->alloc == NULL ||
         allocator->free == NULL)
@@ -90,14 +83,11 @@ MCD_API mcd_status mcd_workspace_alloc_with(size_t n_species,
     if (n_species < 1 || n_species > MCD_MAX_SPECIES)
         return MCD_EINVAL;
 
-    mat_bytes = mul_size(n_species, n_species, sizeof(double));
-    nd_bytes = mul_size(n_species, MCD_MAX_DIM, sizeof(double));
-    vec_bytes = mul_size(n_species, 1, sizeof(double));
-    int_bytes = mul_size(n_species, 1, sizeof(int));
-    tf_bytes = mul_size(mcdi_tf_doubles(n_species, 0, 1), 1, sizeof(double));
-    if (mat_bytes == 0 || nd_bytes == 0 || vec_bytes == 0 || int_bytes == 0 ||
-        tf_bytes == 0)
-        return MCD_ENOMEM;
+    /* n_species <= MCD_MAX_SPECIES: no size below overflows */
+    core_bytes = mcdi_core_doubles(n_species) * sizeof(double);
+    core_int_bytes = mcdi_core_ints(n_species) * sizeof(int);
+    int_bytes = n_species * sizeof(int);
+    tf_bytes = mcdi_tf_doubles(n_species, 0, 1) * sizeof(double);
 
     ws = (mcd_workspace *)allocator->alloc(allocator->ud, sizeof(*ws));
     if (ws == NULL)
@@ -106,18 +96,9 @@ MCD_API mcd_status mcd_workspace_alloc_with(size_t n_species,
     ws->cap = n_species;
     ws->al = *allocator;
 
-    for (k = 0; k < 2; k++)
-        if ((ws->core_mat[k] = (double *)ws_calloc(ws, mat_bytes)) == NULL)
-            goto fail;
-    for (k = 0; k < 4; k++)
-        if ((ws->core_nd[k] = (double *)ws_calloc(ws, nd_bytes)) == NULL)
-            goto fail;
-    for (k = 0; k < MCDI_WS_CORE_VECS; k++)
-        if ((ws->core_vec[k] = (double *)ws_calloc(ws, vec_bytes)) == NULL)
-            goto fail;
-    for (k = 0; k < 2; k++)
-        if ((ws->core_idx[k] = (int *)ws_calloc(ws, int_bytes)) == NULL)
-            goto fail;
+    if ((ws->core_mem = (double *)ws_calloc(ws, core_bytes)) == NULL ||
+        (ws->core_int = (int *)ws_calloc(ws, core_int_bytes)) == NULL)
+        goto fail;
     if ((ws->tf_mem = (double *)ws_calloc(ws, tf_bytes)) == NULL ||
         (ws->tf_ipiv = (int *)ws_calloc(ws, int_bytes)) == NULL)
         goto fail;
@@ -149,10 +130,10 @@ MCD_API mcd_status mcd_workspace_alloc_with(size_t n_species,
         lapack_int n = (lapack_int)n_species, info;
         double wq = 0.0, dummy_v = 0.0;
         size_t lwork = 4 * n_species + 16;
-        info = LAPACKE_dgeev_work(LAPACK_COL_MAJOR, 'N', 'V', n,
-                                  ws->core_mat[0], n, ws->core_vec[0],
-                                  ws->core_vec[1], &dummy_v, 1,
-                                  ws->core_mat[1], n, &wq, -1);
+        mcdi_fick_view v;
+        mcdi_fick_carve(ws->core_mem, n_species, 0, 1, &v);
+        info = LAPACKE_dgeev_work(LAPACK_COL_MAJOR, 'N', 'V', n, v.B, n,
+                                  v.wr, v.wi, &dummy_v, 1, v.X, n, &wq, -1);
         if (info == 0 && wq > (double)lwork && wq < 1e9)
             lwork = (size_t)wq;
         ws->geev_lwork = lwork;

@@ -20,11 +20,14 @@
  * memory in list order. One list drives all three, so the size and the
  * layout cannot disagree. */
 #define MCDI_LAYOUT_FIELD(name, rows) double *name;
+#define MCDI_LAYOUT_IFIELD(name, rows) int *name;
 #define MCDI_LAYOUT_COUNT(name, rows) count += (rows);
 #define MCDI_LAYOUT_CARVE(name, rows) out->name = mem; mem += (rows) * L;
-#define MCDI_DEFINE_LAYOUT(type, LIST, doubles_fn, carve_fn)              \
-    typedef struct type { LIST(MCDI_LAYOUT_FIELD) } type;                 \
-    static inline size_t doubles_fn(size_t n, size_t nd, size_t L)        \
+/* elem: double or int; FIELD: MCDI_LAYOUT_FIELD or MCDI_LAYOUT_IFIELD to
+ * match. size_fn returns elements of elem. */
+#define MCDI_DEFINE_LAYOUT_OF(type, elem, FIELD, LIST, size_fn, carve_fn)   \
+    typedef struct type { LIST(FIELD) } type;                             \
+    static inline size_t size_fn(size_t n, size_t nd, size_t L)           \
     {                                                                     \
         size_t count = 0;                                                 \
         LIST(MCDI_LAYOUT_COUNT)                                           \
@@ -32,12 +35,15 @@
         (void)nd;                                                         \
         return count * L;                                                 \
     }                                                                     \
-    static inline void carve_fn(double *mem, size_t n, size_t nd,         \
-                                size_t L, type *out)                      \
+    static inline void carve_fn(elem *mem, size_t n, size_t nd, size_t L, \
+                                type *out)                                \
     {                                                                     \
         LIST(MCDI_LAYOUT_CARVE)                                           \
         (void)n;                                                          \
         (void)nd;                                                         \
     }
+#define MCDI_DEFINE_LAYOUT(type, LIST, doubles_fn, carve_fn)              \
+    MCDI_DEFINE_LAYOUT_OF(type, double, MCDI_LAYOUT_FIELD, LIST,          \
+                          doubles_fn, carve_fn)
 
 #endif

@@ -7,9 +7,10 @@
  *
  * Two banks of scratch exist:
  *
- *  - the CORE bank (fields core_*), used only inside one call of
- *    mcd_flux_compute / mcd_fick_matrix / mcd_fick_eigenvalues. Its contents
- *    are garbage between calls. Other modules must not use it.
+ *  - the CORE bank (core_mem, core_int), used only inside one call of
+ *    mcd_flux_compute / mcd_fick_matrix / mcd_fick_eigenvalues, laid out
+ *    by name in flux/core_layout.h. Its contents are garbage between
+ *    calls. Other modules must not use it.
  *
  *  - the TRANSFER bank (tf_mem, tf_ipiv), used by the transfer layer
  *    only, laid out by name in transfer/tf_layout.h (which also sizes it
@@ -38,7 +39,6 @@
 #include "mcdiff.h"
 
 #define MCDI_WS_ERRLEN 256
-#define MCDI_WS_CORE_VECS 7
 
 struct mcd_workspace {
     size_t cap;                 /* species capacity, 1..MCD_MAX_SPECIES */
@@ -46,10 +46,8 @@ struct mcd_workspace {
     char err[MCDI_WS_ERRLEN];   /* last error detail, "" if none */
 
     /* CORE bank (flux core only) */
-    double *core_mat[2];        /* cap*cap each */
-    double *core_nd[4];         /* cap*MCD_MAX_DIM each (n x n_dim arrays) */
-    double *core_vec[MCDI_WS_CORE_VECS]; /* cap each */
-    int *core_idx[2];           /* cap ints each (index lists, pivots) */
+    double *core_mem;           /* flux/core_layout.h */
+    int *core_int;
 
     /* dgeev work array (see above) */
     double *geev_work;

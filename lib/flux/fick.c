@@ -52,6 +52,7 @@
 #include "base/workspace.h"
 #include "base/composition.h"
 #include "flux/flux_core.h"
+#include "flux/core_layout.h"
 
 static inline double dij_pair(const double *Dij, size_t n, size_t i, size_t j)
 {
@@ -241,6 +242,8 @@ MCD_API mcd_status mcd_fick_matrix(mcd_workspace *ws, size_t n_species,
     int need_M;
     double *x, *w, *B, *X, *cs, *t, *qv;
     int *ipiv;
+    mcdi_fick_view v;
+    mcdi_fick_iview iv;
     mcd_status st;
 
     if (ws == NULL)
@@ -267,8 +270,9 @@ MCD_API mcd_status mcd_fick_matrix(mcd_workspace *ws, size_t n_species,
         (st = mcdi_check_finite(ws, n, n, Gamma, "Gamma")) != MCD_OK)
         return st;
 
-    x = ws->core_vec[0];
-    w = ws->core_vec[1];
+    mcdi_fick_scratch(ws, &v, &iv);
+    x = v.x;
+    w = v.w;
     mcdi_flux_fractions(n, need_M ? M : NULL, comp_basis, comp, x, w);
     dep = dependent == MCD_DEPENDENT_AUTO ? mcdi_flux_most_abundant(n, x)
                                           : dependent;
@@ -278,12 +282,12 @@ MCD_API mcd_status mcd_fick_matrix(mcd_workspace *ws, size_t n_species,
         return MCD_OK;
     }
     m = n - 1;
-    B = ws->core_mat[0];
-    X = ws->core_mat[1];
-    cs = ws->core_vec[2];
-    t = ws->core_vec[3];
-    qv = ws->core_vec[4];
-    ipiv = ws->core_idx[0];
+    B = v.B;
+    X = v.X;
+    cs = v.cs;
+    t = v.t;
+    qv = v.qv;
+    ipiv = iv.ipiv;
 
     assemble_B_gamma(n, dep, x, Dij, Gamma, B, X, cs);
     if ((st = solve_B(ws, m, B, X, ipiv)) != MCD_OK)
@@ -377,6 +381,8 @@ MCD_API mcd_status mcd_fick_eigenvalues(mcd_workspace *ws, size_t m,
                                         double *out_im)
 {
     double *A, *wr, *wi, dummy = 0.0;
+    mcdi_fick_view v;
+    mcdi_fick_iview iv;
     size_t k, l;
     lapack_int info;
 
@@ -398,9 +404,10 @@ MCD_API mcd_status mcd_fick_eigenvalues(mcd_workspace *ws, size_t m,
                                 "argument D: entry (%zu,%zu) is not finite",
                                 k / m, k % m);
     /* The row-major D read as column-major is D^T: same eigenvalues. */
-    A = ws->core_mat[0];
-    wr = ws->core_vec[2];
-    wi = ws->core_vec[3];
+    mcdi_fick_scratch(ws, &v, &iv);
+    A = v.B;
+    wr = v.wr;
+    wi = v.wi;
     memcpy(A, D, m * m * sizeof(double));
     info = LAPACKE_dgeev_work(LAPACK_COL_MAJOR, 'N', 'N', (lapack_int)m, A,
                               (lapack_int)m, wr, wi, &dummy, 1, &dummy, 1,

@@ -23,21 +23,24 @@ double mcdi_flux_fractions(size_t n, const double *M, mcd_basis basis,
 /* Index of the most abundant species (first one on ties). */
 size_t mcdi_flux_most_abundant(size_t n, const double *x);
 
-/* Exact Maxwell-Stefan diffusion fluxes J (n x nd, molar frame) for
- * normalised x and driving forces d (n x nd) with sum_i d_i = 0.
- * Scratch used: core_mat[0..1], core_nd[0] and [3], core_vec[2..6],
- * core_idx[0..1]; x, d and J must not be any of those. Fails with ESING
- * (round-off made the matrix indefinite). Defined in maxwell_stefan.c. */
 /* Mass fluxes that no longer sum to zero to this relative tolerance after
  * the clean-up were lost to cancellation (see mcdi_mass_zero_sum_kept). */
 #define MCDI_MASS_SUM_TOL 1e-10
 
+/* 1 if every direction of the mass fluxes F (n x nd) sums to zero to
+ * MCDI_MASS_SUM_TOL of its sum of magnitudes (maxwell_stefan.c). */
 int mcdi_mass_zero_sum_kept(size_t n, size_t nd, const double *F);
 
 /* Zero-sum clean-up of molar fluxes J (n x nd): J_i -= x_i sum_k J_k per
  * direction (weights x: trace species, x_i = 0, stay exact). */
 void mcdi_flux_zero_sum(size_t n, size_t nd, const double *x, double *J);
 
+/* Exact Maxwell-Stefan diffusion fluxes J (n x nd, molar frame) for
+ * normalised x and driving forces d (n x nd) with sum_i d_i = 0.
+ * Scratch: the regions A, Dc, xc, dc, Y, sq, isq, S, dinv, pos, tr of
+ * the core bank (core_layout.h); x, d and J must not be any of those
+ * (mcd_flux_compute passes its x, d, J regions). Fails with ESING
+ * (round-off made the matrix indefinite). Defined in maxwell_stefan.c. */
 mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
                           const double *x, const double *d,
                           const double *Dij, double c, double *J);

@@ -69,6 +69,7 @@
 #include "base/workspace.h"
 #include "base/composition.h"
 #include "flux/flux_core.h"
+#include "flux/core_layout.h"
 #include "base/isa.h"
 
 /* ------------------------------------------------------------------ */
@@ -115,18 +116,22 @@ mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
                           const double *x, const double *d,
                           const double *Dij, double c, double *J)
 {
-    double *A = ws->core_mat[0];
-    double *Dc = ws->core_mat[1];   /* Đ of the species present (compact) */
-    double *xc = ws->core_vec[5];   /* x of the species present (compact) */
-    double *dc = ws->core_nd[3];    /* corrected driving forces (compact) */
-    double *Y = ws->core_nd[0];     /* fluxes of the present species
-                                     * (compact) */
-    int *pos = ws->core_idx[0];     /* species present (x > 0) */
-    int *tr = ws->core_idx[1];      /* trace species (x = 0) */
+    mcdi_flux_view v;
+    mcdi_flux_iview iv;
+    double *A, *Dc, *xc, *dc, *Y; /* flux/core_layout.h */
+    int *pos, *tr;                /* species present (x > 0), trace */
     double ST[MCD_MAX_DIM] = {0.0, 0.0, 0.0};
     const mcdi_ms_ldl_fn ms_ldl = mcdi_ms_ldl_select();
     size_t m = 0, nt = 0, i, k, l, dd, bad;
 
+    mcdi_flux_scratch(ws, &v, &iv);
+    A = v.A;
+    Dc = v.Dc;
+    xc = v.xc;
+    dc = v.dc;
+    Y = v.Y;
+    pos = iv.pos;
+    tr = iv.tr;
     if (n == 1) {
         for (dd = 0; dd < nd; dd++)
             J[dd] = 0.0;
@@ -142,8 +147,7 @@ mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
 
     if (nt == 0) {
         /* every species present: solve in place, no gathering */
-        bad = ms_ldl(n, nd, x, Dij, n, d, c, A, ws->core_vec[2],
-                          ws->core_vec[3], ws->core_vec[4], ws->core_vec[6],
+        bad = ms_ldl(n, nd, x, Dij, n, d, c, A, v.sq, v.isq, v.S, v.dinv,
                           J, dc);
         if (bad != 0)
             goto not_definite;
@@ -192,8 +196,7 @@ mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
             dc[k * nd + dd] = dti;
         }
     }
-    bad = ms_ldl(m, nd, xc, Dc, m, dc, c, A, ws->core_vec[2],
-                      ws->core_vec[3], ws->core_vec[4], ws->core_vec[6], Y,
+    bad = ms_ldl(m, nd, xc, Dc, m, dc, c, A, v.sq, v.isq, v.S, v.dinv, Y,
                       dc /* dead after the assembly */);
     if (bad != 0)
         goto not_definite;
@@ -383,6 +386,8 @@ MCD_API mcd_status mcd_flux_compute(mcd_workspace *ws, mcd_model model,
                        flux_basis == MCD_BASIS_MASS || grad_lnP != NULL;
     double *x, *w, *d, *J;
     const double *gx;
+    mcdi_flux_view v;
+    mcdi_flux_iview iv;
     size_t dd;
     mcd_status st;
 
@@ -401,24 +406,24 @@ MCD_API mcd_status mcd_flux_compute(mcd_workspace *ws, mcd_model model,
     }
 
     /* compute into workspace scratch */
-    x = ws->core_vec[0];
-    w = need_M ? ws->core_vec[1] : NULL;
-    d = ws->core_nd[1];
-    J = ws->core_nd[2];
+    mcdi_flux_scratch(ws, &v, &iv);
+    x = v.x;
+    w = need_M ? v.w : NULL;
+    d = v.d;
+    J = v.J;
     mcdi_flux_fractions(n, need_M ? M : NULL, comp_basis, comp, x, w);
     if (comp_basis == MCD_BASIS_MOLE) {
         gx = grad_comp;
     } else {
-        mcdi_comp_grad_w_to_x(n, nd, M, w, grad_comp, ws->core_nd[0]);
-        gx = ws->core_nd[0];
+        mcdi_comp_grad_w_to_x(n, nd, M, w, grad_comp, v.gx);
+        gx = v.gx;
     }
     driving_forces(n, nd, x, w, gx, Gamma, grad_lnP, d);
     if (model == MCD_MODEL_MAXWELL_STEFAN) {
         if ((st = mcdi_ms_fluxes(ws, n, nd, x, d, Dij, c, J)) != MCD_OK)
             return st;
     } else {
-        mcdi_mixavg_fluxes(n, nd, x, d, Dij, c, J, ws->core_vec[3],
-                           ws->core_vec[4]);
+        mcdi_mixavg_fluxes(n, nd, x, d, Dij, c, J, v.den, v.num);
     }
     if (flux_basis == MCD_BASIS_MASS)
         to_mass_basis(n, nd, M, w, J);

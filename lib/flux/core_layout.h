@@ -1,0 +1,75 @@
+/* core_layout.h - the flux core's scratch in the workspace (its CORE
+ * bank), every region named once (base/layout.h). Never installed.
+ *
+ * The bank belongs to one call of the flux core at a time and holds
+ * nothing between calls; each entry point carves its own view of it
+ * (n = cap below), so the size is the larger of the views. Sized by
+ * api/workspace_new.c (mcdi_core_doubles, mcdi_core_ints).
+ */
+#ifndef MCD_CORE_LAYOUT_H
+#define MCD_CORE_LAYOUT_H
+
+#include "base/layout.h"
+#include "base/workspace.h"
+
+/* mcd_flux_compute, with mcdi_ms_fluxes, the L D L^T core and the
+ * mixture-averaged fluxes */
+#define MCDI_FLUX_REGIONS(R)                                                \
+    R(x, n) R(w, n)              /* mole and mass fractions */             \
+    R(gx, n * MCD_MAX_DIM)       /* mole-fraction gradients (mass input) */ \
+    R(d, n * MCD_MAX_DIM)        /* driving forces */                      \
+    R(J, n * MCD_MAX_DIM)        /* fluxes */                              \
+    R(A, n * n)                  /* Gs + a s s^T and its factor */         \
+    R(Dc, n * n)                 /* Đ of the species present (compact) */  \
+    R(xc, n)                     /* x of the species present */            \
+    R(dc, n * MCD_MAX_DIM)       /* their corrected driving forces */      \
+    R(Y, n * MCD_MAX_DIM)        /* their fluxes */                        \
+    R(sq, n) R(isq, n) R(S, n) R(dinv, n) /* L D L^T core scratch */       \
+    R(den, n) R(num, n)          /* mixture-averaged sums */
+#define MCDI_FLUX_INTS(R) R(pos, n) R(tr, n) /* present, trace species */
+
+/* mcd_fick_matrix and mcd_fick_eigenvalues */
+#define MCDI_FICK_REGIONS(R)                                                \
+    R(x, n) R(w, n)              /* mole and mass fractions */             \
+    R(B, n * n)                  /* [B], then its LU (column-major) */     \
+    R(X, n * n)                  /* Gamma, then [D] (column-major) */      \
+    R(cs, n) R(t, n) R(qv, n)    /* column sums, mass-basis products */    \
+    R(wr, n) R(wi, n)            /* eigenvalues, real and imaginary */
+#define MCDI_FICK_INTS(R) R(ipiv, n) /* LU pivots */
+
+MCDI_DEFINE_LAYOUT(mcdi_flux_view, MCDI_FLUX_REGIONS, mcdi_flux_doubles,
+                   mcdi_flux_carve)
+MCDI_DEFINE_LAYOUT_OF(mcdi_flux_iview, int, MCDI_LAYOUT_IFIELD,
+                      MCDI_FLUX_INTS, mcdi_flux_ints, mcdi_flux_icarve)
+MCDI_DEFINE_LAYOUT(mcdi_fick_view, MCDI_FICK_REGIONS, mcdi_fick_doubles,
+                   mcdi_fick_carve)
+MCDI_DEFINE_LAYOUT_OF(mcdi_fick_iview, int, MCDI_LAYOUT_IFIELD,
+                      MCDI_FICK_INTS, mcdi_fick_ints, mcdi_fick_icarve)
+
+/* Elements of the bank for cap species: the larger view. */
+static inline size_t mcdi_core_doubles(size_t cap)
+{
+    size_t a = mcdi_flux_doubles(cap, 0, 1), b = mcdi_fick_doubles(cap, 0, 1);
+    return a > b ? a : b;
+}
+static inline size_t mcdi_core_ints(size_t cap)
+{
+    size_t a = mcdi_flux_ints(cap, 0, 1), b = mcdi_fick_ints(cap, 0, 1);
+    return a > b ? a : b;
+}
+
+/* The views of ws's core bank. */
+static inline void mcdi_flux_scratch(mcd_workspace *ws, mcdi_flux_view *v,
+                                     mcdi_flux_iview *iv)
+{
+    mcdi_flux_carve(ws->core_mem, ws->cap, 0, 1, v);
+    mcdi_flux_icarve(ws->core_int, ws->cap, 0, 1, iv);
+}
+static inline void mcdi_fick_scratch(mcd_workspace *ws, mcdi_fick_view *v,
+                                     mcdi_fick_iview *iv)
+{
+    mcdi_fick_carve(ws->core_mem, ws->cap, 0, 1, v);
+    mcdi_fick_icarve(ws->core_int, ws->cap, 0, 1, iv);
+}
+
+#endif
