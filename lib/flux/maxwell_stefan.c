@@ -118,20 +118,11 @@ mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
 {
     mcdi_flux_view v;
     mcdi_flux_iview iv;
-    double *A, *Dc, *xc, *dc, *Y; /* flux/core_layout.h */
-    int *pos, *tr;                /* species present (x > 0), trace */
     double ST[MCD_MAX_DIM] = {0.0, 0.0, 0.0};
     const mcdi_ms_ldl_fn ms_ldl = mcdi_ms_ldl_select();
     size_t m = 0, nt = 0, i, k, l, dd, bad;
 
-    mcdi_flux_scratch(ws, &v, &iv);
-    A = v.A;
-    Dc = v.Dc;
-    xc = v.xc;
-    dc = v.dc;
-    Y = v.Y;
-    pos = iv.pos;
-    tr = iv.tr;
+    mcdi_flux_scratch(ws, &v, &iv); /* iv.pos: present, iv.tr: trace */
     if (n == 1) {
         for (dd = 0; dd < nd; dd++)
             J[dd] = 0.0;
@@ -139,31 +130,31 @@ mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
     }
     for (i = 0; i < n; i++) {
         if (x[i] > 0.0)
-            pos[m++] = (int)i;
+            iv.pos[m++] = (int)i;
         else
-            tr[nt++] = (int)i;
+            iv.tr[nt++] = (int)i;
     }
     /* m >= 1 because the fractions sum to 1. */
 
     if (nt == 0) {
         /* every species present: solve in place, no gathering */
-        bad = ms_ldl(n, nd, x, Dij, n, d, c, A, v.sq, v.isq, v.S, v.dinv,
-                          J, dc);
+        bad = ms_ldl(n, nd, x, Dij, n, d, c, v.A, v.sq, v.isq, v.S, v.dinv,
+                     J, v.dc);
         if (bad != 0)
             goto not_definite;
         goto zero_sum;
     }
 
     /* Trace species: Blanc's law, exact. tv = J / c = -d / S is kept
-     * (in Y, which the solve writes only later) for the coupling below. */
+     * (in v.Y, which the solve writes only later) for the coupling below. */
     for (k = 0; k < nt; k++) {
-        size_t it = (size_t)tr[k];
+        size_t it = (size_t)iv.tr[k];
         double s = 0.0;
         for (l = 0; l < m; l++)
-            s += x[pos[l]] / dij_pair(Dij, n, it, (size_t)pos[l]);
+            s += x[iv.pos[l]] / dij_pair(Dij, n, it, (size_t)iv.pos[l]);
         for (dd = 0; dd < nd; dd++) {
             double tq = -d[it * nd + dd] / s, Ji = c * tq;
-            Y[k * nd + dd] = tq;
+            v.Y[k * nd + dd] = tq;
             J[it * nd + dd] = Ji;
             ST[dd] += Ji;
         }
@@ -171,7 +162,7 @@ mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
 
     if (m == 1) {
         /* pure component: it balances the trace fluxes */
-        size_t ip = (size_t)pos[0];
+        size_t ip = (size_t)iv.pos[0];
         for (dd = 0; dd < nd; dd++)
             J[ip * nd + dd] = -ST[dd];
         goto zero_sum;
@@ -183,28 +174,28 @@ mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
      * (dividing by c Đ underflowed to 0 for c = 1e-300, Đ = 1e-30 although
      * every flux was representable: test_edge_cases). */
     for (k = 0; k < m; k++) {
-        size_t ik = (size_t)pos[k];
-        xc[k] = x[ik];
+        size_t ik = (size_t)iv.pos[k];
+        v.xc[k] = x[ik];
         for (l = k + 1; l < m; l++)
-            Dc[k * m + l] = dij_pair(Dij, n, ik, (size_t)pos[l]);
+            v.Dc[k * m + l] = dij_pair(Dij, n, ik, (size_t)iv.pos[l]);
         for (dd = 0; dd < nd; dd++) {
             double dti = d[ik * nd + dd];
             for (l = 0; l < nt; l++) {
-                size_t it = (size_t)tr[l];
-                dti -= x[ik] * Y[l * nd + dd] / dij_pair(Dij, n, ik, it);
+                size_t it = (size_t)iv.tr[l];
+                dti -= x[ik] * v.Y[l * nd + dd] / dij_pair(Dij, n, ik, it);
             }
-            dc[k * nd + dd] = dti;
+            v.dc[k * nd + dd] = dti;
         }
     }
-    bad = ms_ldl(m, nd, xc, Dc, m, dc, c, A, v.sq, v.isq, v.S, v.dinv, Y,
-                      dc /* dead after the assembly */);
+    bad = ms_ldl(m, nd, v.xc, v.Dc, m, v.dc, c, v.A, v.sq, v.isq, v.S,
+                 v.dinv, v.Y, v.dc /* dead after the assembly */);
     if (bad != 0)
         goto not_definite;
     /* the species present take the uniform velocity -S_T / c */
     for (k = 0; k < m; k++) {
-        size_t ik = (size_t)pos[k];
+        size_t ik = (size_t)iv.pos[k];
         for (dd = 0; dd < nd; dd++)
-            J[ik * nd + dd] = Y[k * nd + dd] - x[ik] * ST[dd];
+            J[ik * nd + dd] = v.Y[k * nd + dd] - x[ik] * ST[dd];
     }
 
 zero_sum:
@@ -215,7 +206,7 @@ not_definite:
     return mcdi_ws_fail(ws, MCD_ESING,
                         "Maxwell-Stefan matrix not positive definite at "
                         "pivot %zu (round-off; check Dij scale)",
-                        (size_t)pos[bad - 1]);
+                        (size_t)iv.pos[bad - 1]);
 }
 
 /* Whether the mass fluxes F (n x nd) still sum to zero after the
