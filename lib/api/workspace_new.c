@@ -132,8 +132,8 @@ MCD_API mcd_status mcd_workspace_alloc_with(size_t n_species,
         size_t lwork = 4 * n_species + 16;
         mcdi_fick_view v;
         mcdi_fick_carve(ws->core_mem, n_species, 0, 1, &v);
-        info = LAPACKE_dgeev_work(LAPACK_COL_MAJOR, 'N', 'V', n, v.B, n,
-                                  v.wr, v.wi, &dummy_v, 1, v.X, n, &wq, -1);
+        info = LAPACKE_dgeev_work(LAPACK_COL_MAJOR, 'N', 'V', n, v.B, n, v.wr,
+                                  v.wi, &dummy_v, 1, v.X, n, &wq, -1);
         if (info == 0 && wq > (double)lwork && wq < 1e9)
             lwork = (size_t)wq;
         ws->geev_lwork = lwork;
@@ -150,8 +150,7 @@ fail:
     return MCD_ENOMEM;
 }
 
-MCD_API mcd_status mcd_workspace_alloc(size_t n_species,
-                                       mcd_workspace **out_ws)
+MCD_API mcd_status mcd_workspace_alloc(size_t n_species, mcd_workspace **out_ws)
 {
     mcd_allocator al;
     al.alloc = default_alloc;

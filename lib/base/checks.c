@@ -36,20 +36,23 @@ mcd_status mcdi_check_species(mcd_workspace *ws, size_t n, size_t lo,
                               int max_is_einval, const char *name)
 {
     if (n < lo || (max_is_einval && n > MCD_MAX_SPECIES))
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: %zu is not in %zu..%d",
-                            name, n, lo, MCD_MAX_SPECIES);
+        return mcdi_ws_fail(ws, MCD_EINVAL,
+                            "argument %s: %zu is not in %zu..%d", name, n, lo,
+                            MCD_MAX_SPECIES);
     if (n > ws->cap)
         return mcdi_ws_fail(ws, MCD_EBADLEN,
                             "argument %s: %zu exceeds the workspace "
-                            "capacity %zu", name, n, ws->cap);
+                            "capacity %zu",
+                            name, n, ws->cap);
     return MCD_OK;
 }
 
 mcd_status mcdi_check_dim(mcd_workspace *ws, size_t nd)
 {
     if (nd < 1 || nd > MCD_MAX_DIM)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument n_dim: %zu is not in 1..%d",
-                            nd, MCD_MAX_DIM);
+        return mcdi_ws_fail(ws, MCD_EINVAL,
+                            "argument n_dim: %zu is not in 1..%d", nd,
+                            MCD_MAX_DIM);
     return MCD_OK;
 }
 
@@ -77,7 +80,8 @@ mcd_status mcdi_check_positive(mcd_workspace *ws, double v, const char *name)
     if (!mcdi_finite(v))
         return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: not finite", name);
     if (!(v > 0))
-        return mcdi_ws_fail(ws, MCD_EDOM, "argument %s: %g is not > 0", name, v);
+        return mcdi_ws_fail(ws, MCD_EDOM, "argument %s: %g is not > 0", name,
+                            v);
     return MCD_OK;
 }
 
@@ -105,19 +109,20 @@ static mcd_status dij_locate(mcd_workspace *ws, size_t n, const double *Dij,
                              size_t s)
 {
     size_t i, j;
-#define DIJ(i, j) Dij[((i) * n + (j)) * s]
+#define DIJ(i, j) Dij[((i)*n + (j)) * s]
     for (i = 0; i < n; i++)
         for (j = 0; j < n; j++)
             if (i != j && !mcdi_finite(DIJ(i, j)))
-                return mcdi_ws_fail(ws, MCD_EINVAL,
-                                    "argument Dij: entry (%zu,%zu) is not finite",
-                                    i, j);
+                return mcdi_ws_fail(
+                    ws, MCD_EINVAL,
+                    "argument Dij: entry (%zu,%zu) is not finite", i, j);
     for (i = 0; i < n; i++)
         for (j = 0; j < n; j++)
             if (i != j && !(DIJ(i, j) > 0.0))
-                return mcdi_ws_fail(ws, MCD_EDOM,
-                                    "argument Dij: entry (%zu,%zu) = %g is not > 0",
-                                    i, j, DIJ(i, j));
+                return mcdi_ws_fail(
+                    ws, MCD_EDOM,
+                    "argument Dij: entry (%zu,%zu) = %g is not > 0", i, j,
+                    DIJ(i, j));
     /* a positive subnormal Đ: 1/Đ overflows, and the single-state and
      * batched paths failed differently on it (OK with -0 fluxes against
      * ESING); both reject it here */
@@ -133,11 +138,12 @@ static mcd_status dij_locate(mcd_workspace *ws, size_t n, const double *Dij,
             double a = DIJ(i, j), b = DIJ(j, i);
             double big = a > b ? a : b;
             if (!(fabs(a - b) <= MCDI_DIJ_SYM_TOL * big))
-                return mcdi_ws_fail(ws, MCD_EDOM,
-                                    "argument Dij: entries (%zu,%zu) = %.17g and "
-                                    "(%zu,%zu) = %.17g differ by more than 1e-12 "
-                                    "relative (not symmetric)",
-                                    i, j, a, j, i, b);
+                return mcdi_ws_fail(
+                    ws, MCD_EDOM,
+                    "argument Dij: entries (%zu,%zu) = %.17g and "
+                    "(%zu,%zu) = %.17g differ by more than 1e-12 "
+                    "relative (not symmetric)",
+                    i, j, a, j, i, b);
         }
 #undef DIJ
     return MCD_OK;
@@ -168,7 +174,8 @@ static mcd_status comp_locate(mcd_workspace *ws, size_t n, const double *y,
     for (i = 0; i < n; i++)
         if (!mcdi_finite(y[i * s]))
             return mcdi_ws_fail(ws, MCD_EINVAL,
-                                "argument %s: entry %zu is not finite", name, i);
+                                "argument %s: entry %zu is not finite", name,
+                                i);
     for (i = 0; i < n; i++)
         if (!(y[i * s] >= 0.0))
             return mcdi_ws_fail(ws, MCD_EDOM,
@@ -178,9 +185,10 @@ static mcd_status comp_locate(mcd_workspace *ws, size_t n, const double *y,
         sum += y[i * s];
     /* "1e-6" is MCD_SUM_TOL, written out for a readable message */
     if (!(fabs(sum - 1.0) <= MCD_SUM_TOL))
-        return mcdi_ws_fail(ws, MCD_EDOM,
-                            "argument %s: sum %.10g differs from 1 by more than 1e-6",
-                            name, sum);
+        return mcdi_ws_fail(
+            ws, MCD_EDOM,
+            "argument %s: sum %.10g differs from 1 by more than 1e-6", name,
+            sum);
     return MCD_OK;
 }
 
@@ -203,9 +211,8 @@ mcd_status mcdi_check_comp(mcd_workspace *ws, size_t n, const double *y,
     return comp_locate(ws, n, y, 1, name);
 }
 
-mcd_status mcdi_check_comp_strided(mcd_workspace *ws, size_t n,
-                                   const double *y, size_t stride,
-                                   const char *name)
+mcd_status mcdi_check_comp_strided(mcd_workspace *ws, size_t n, const double *y,
+                                   size_t stride, const char *name)
 {
     return comp_locate(ws, n, y, stride, name);
 }
@@ -229,7 +236,8 @@ mcd_status mcdi_check_M(mcd_workspace *ws, size_t n, const double *M)
     }
     for (i = 0; i < n; i++)
         if (!mcdi_finite(M[i]))
-            return mcdi_ws_fail(ws, st, "argument M: entry %zu is not finite", i);
+            return mcdi_ws_fail(ws, st, "argument M: entry %zu is not finite",
+                                i);
     for (i = 0; i < n; i++)
         if (!(M[i] > 0.0))
             return mcdi_ws_fail(ws, st, "argument M: entry %zu = %g is not > 0",
@@ -245,9 +253,9 @@ static mcd_status finite_locate(mcd_workspace *ws, size_t rows, size_t cols,
     for (i = 0; i < rows; i++)
         for (k = 0; k < cols; k++)
             if (!mcdi_finite(p[(i * cols + k) * s]))
-                return mcdi_ws_fail(ws, MCD_EINVAL,
-                                    "argument %s: entry (%zu,%zu) is not finite",
-                                    name, i, k);
+                return mcdi_ws_fail(
+                    ws, MCD_EINVAL,
+                    "argument %s: entry (%zu,%zu) is not finite", name, i, k);
     return MCD_OK;
 }
 
@@ -286,4 +294,3 @@ mcd_status mcdi_check_conc(mcd_workspace *ws, double c, const char *name)
                             name, c);
     return MCD_OK;
 }
-

@@ -47,14 +47,14 @@ mcd_status mcdi_check_dij(mcd_workspace *ws, size_t n, const double *Dij);
 /* Fractions as mcd_comp_normalize (uses mcdi_comp_check). `name` is the
  * argument name used in the message. */
 mcd_status mcdi_check_comp(mcd_workspace *ws, size_t n, const double *y,
-                                const char *name);
+                           const char *name);
 
 /* Molar masses finite (EINVAL) and > 0 (EDOM). */
 mcd_status mcdi_check_M(mcd_workspace *ws, size_t n, const double *M);
 
 /* rows x cols array all finite (EINVAL); NULL is EINVAL. */
 mcd_status mcdi_check_finite(mcd_workspace *ws, size_t rows, size_t cols,
-                                  const double *p, const char *name);
+                             const double *p, const char *name);
 
 /* Largest ratio of molar masses accepted where the bases are converted
  * (mass basis, pressure diffusion). Beyond it the conversion of mass- to
@@ -75,9 +75,8 @@ mcd_status mcdi_check_conc(mcd_workspace *ws, double c, const char *name);
  * after the kernel flagged its block. */
 mcd_status mcdi_check_dij_strided(mcd_workspace *ws, size_t n,
                                   const double *Dij, size_t stride);
-mcd_status mcdi_check_comp_strided(mcd_workspace *ws, size_t n,
-                                   const double *y, size_t stride,
-                                   const char *name);
+mcd_status mcdi_check_comp_strided(mcd_workspace *ws, size_t n, const double *y,
+                                   size_t stride, const char *name);
 mcd_status mcdi_check_finite_strided(mcd_workspace *ws, size_t rows,
                                      size_t cols, const double *p,
                                      size_t stride, const char *name);

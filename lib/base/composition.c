@@ -190,8 +190,7 @@ void mcdi_comp_grad_w_to_x(size_t n, size_t n_dim, const double *M,
 /* public API                                                           */
 /* ------------------------------------------------------------------ */
 
-MCD_API mcd_status mcd_comp_normalize(size_t n, const double *y,
-                                      double *out_y)
+MCD_API mcd_status mcd_comp_normalize(size_t n, const double *y, double *out_y)
 {
     mcd_status st;
     if (out_y == NULL)
@@ -220,8 +219,8 @@ static mcd_status check_M_y(size_t n, const double *M, const double *y,
     return mcdi_comp_check(n, y, NULL);
 }
 
-MCD_API mcd_status mcd_comp_x_to_w(size_t n, const double *M,
-                                   const double *x, double *out_w)
+MCD_API mcd_status mcd_comp_x_to_w(size_t n, const double *M, const double *x,
+                                   double *out_w)
 {
     mcd_status st = check_M_y(n, M, x, out_w);
     if (st != MCD_OK)
@@ -230,8 +229,8 @@ MCD_API mcd_status mcd_comp_x_to_w(size_t n, const double *M,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_comp_w_to_x(size_t n, const double *M,
-                                   const double *w, double *out_x)
+MCD_API mcd_status mcd_comp_w_to_x(size_t n, const double *M, const double *w,
+                                   double *out_x)
 {
     mcd_status st = check_M_y(n, M, w, out_x);
     if (st != MCD_OK)
@@ -241,8 +240,7 @@ MCD_API mcd_status mcd_comp_w_to_x(size_t n, const double *M,
 }
 
 MCD_API mcd_status mcd_comp_mean_molar_mass_x(size_t n, const double *M,
-                                              const double *x,
-                                              double *out_Mbar)
+                                              const double *x, double *out_Mbar)
 {
     mcd_status st = check_M_y(n, M, x, out_Mbar);
     if (st != MCD_OK)
@@ -252,8 +250,7 @@ MCD_API mcd_status mcd_comp_mean_molar_mass_x(size_t n, const double *M,
 }
 
 MCD_API mcd_status mcd_comp_mean_molar_mass_w(size_t n, const double *M,
-                                              const double *w,
-                                              double *out_Mbar)
+                                              const double *w, double *out_Mbar)
 {
     mcd_status st = check_M_y(n, M, w, out_Mbar);
     if (st != MCD_OK)
@@ -337,9 +334,8 @@ static mcd_status check_grad(size_t n, size_t n_dim, const double *M,
     return check_M_y(n, M, y, out);
 }
 
-MCD_API mcd_status mcd_comp_grad_x_to_w(size_t n, size_t n_dim,
-                                        const double *M, const double *x,
-                                        const double *grad_x,
+MCD_API mcd_status mcd_comp_grad_x_to_w(size_t n, size_t n_dim, const double *M,
+                                        const double *x, const double *grad_x,
                                         double *out_grad_w)
 {
     mcd_status st = check_grad(n, n_dim, M, x, grad_x, out_grad_w);
@@ -349,9 +345,8 @@ MCD_API mcd_status mcd_comp_grad_x_to_w(size_t n, size_t n_dim,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_comp_grad_w_to_x(size_t n, size_t n_dim,
-                                        const double *M, const double *w,
-                                        const double *grad_w,
+MCD_API mcd_status mcd_comp_grad_w_to_x(size_t n, size_t n_dim, const double *M,
+                                        const double *w, const double *grad_w,
                                         double *out_grad_x)
 {
     mcd_status st = check_grad(n, n_dim, M, w, grad_w, out_grad_x);

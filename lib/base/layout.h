@@ -19,6 +19,7 @@
  * for n species, nd directions, L lanes, and the carving of a block of
  * memory in list order. One list drives all three, so the size and the
  * layout cannot disagree. */
+/* clang-format off */
 #define MCDI_LAYOUT_FIELD(name, rows) double *name;
 #define MCDI_LAYOUT_IFIELD(name, rows) int *name;
 #define MCDI_LAYOUT_COUNT(name, rows) count += (rows);
@@ -45,5 +46,6 @@
 #define MCDI_DEFINE_LAYOUT(type, LIST, doubles_fn, carve_fn)              \
     MCDI_DEFINE_LAYOUT_OF(type, double, MCDI_LAYOUT_FIELD, LIST,          \
                           doubles_fn, carve_fn)
+/* clang-format on */
 
 #endif

@@ -5,7 +5,9 @@ MCD_API const char *mcd_status_string(int status)
 {
     switch (status) {
     case MCD_OK: return "success";
-    case MCD_EINVAL: return "invalid argument (NULL pointer, NaN or infinity, bad count or option)";
+    case MCD_EINVAL:
+        return "invalid argument (NULL pointer, NaN or infinity, bad count or "
+               "option)";
     case MCD_EDOM: return "argument outside the model's domain";
     case MCD_EBADLEN: return "array size differs from the workspace or mixture";
     case MCD_ENOMEM: return "out of memory";

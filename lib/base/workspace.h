@@ -41,12 +41,12 @@
 #define MCDI_WS_ERRLEN 256
 
 struct mcd_workspace {
-    size_t cap;                 /* species capacity, 1..MCD_MAX_SPECIES */
-    mcd_allocator al;           /* copy of the caller's allocator */
-    char err[MCDI_WS_ERRLEN];   /* last error detail, "" if none */
+    size_t cap;               /* species capacity, 1..MCD_MAX_SPECIES */
+    mcd_allocator al;         /* copy of the caller's allocator */
+    char err[MCDI_WS_ERRLEN]; /* last error detail, "" if none */
 
     /* CORE bank (flux core only) */
-    double *core_mem;           /* flux/core_layout.h */
+    double *core_mem; /* flux/core_layout.h */
     int *core_int;
 
     /* dgeev work array (see above) */
@@ -55,7 +55,7 @@ struct mcd_workspace {
 
     /* TRANSFER bank (transfer/tf_layout.h) */
     double *tf_mem;
-    int *tf_ipiv;               /* cap ints (LAPACK pivots) */
+    int *tf_ipiv; /* cap ints (LAPACK pivots) */
 
     /* BATCH bank (batch.c only): per-thread scratch of batch_per_thread
      * doubles each, batch_threads of them, 64-byte aligned inside
@@ -63,10 +63,10 @@ struct mcd_workspace {
     void *batch_raw;
     double *batch_mem;
     size_t batch_per_thread, batch_threads;
-    size_t threads_req;         /* mcd_workspace_set_threads (0 = default) */
-    size_t iter_max;            /* MCD_MODEL_ITERATIVE settings */
+    size_t threads_req; /* mcd_workspace_set_threads (0 = default) */
+    size_t iter_max;    /* MCD_MODEL_ITERATIVE settings */
     double iter_tol;
-    double iter_err;            /* outcome of the last ITERATIVE call */
+    double iter_err; /* outcome of the last ITERATIVE call */
     size_t iter_used;
 };
 

@@ -74,8 +74,10 @@ static mcd_status check_cell(mcd_workspace *ws, const mcdi_bjob *jb, size_t k)
                (st = mcdi_check_dij_strided(ws, n, jb->Dij + k, K)) != MCD_OK) {
         return st;
     }
-    if ((st = mcdi_check_comp_strided(ws, n, jb->comp + k, K, "comp")) != MCD_OK ||
-        (st = mcdi_check_finite_strided(ws, n, nd, jb->grad + k, K, "grad")) != MCD_OK)
+    if ((st = mcdi_check_comp_strided(ws, n, jb->comp + k, K, "comp")) !=
+            MCD_OK ||
+        (st = mcdi_check_finite_strided(ws, n, nd, jb->grad + k, K, "grad")) !=
+            MCD_OK)
         return st;
     if (jb->glnP != NULL)
         st = mcdi_check_finite_strided(ws, 1, nd, jb->glnP + k, K, "grad_lnP");
@@ -114,7 +116,8 @@ static mcd_status run_job(mcd_workspace *ws, const mcdi_bjob *jb)
     long b;
     int nthreads = 1;
 #ifdef _OPENMP
-    nthreads = ws->threads_req > 0 ? (int)ws->threads_req : omp_get_max_threads();
+    nthreads =
+        ws->threads_req > 0 ? (int)ws->threads_req : omp_get_max_threads();
     if (nthreads > (int)ws->batch_threads)
         nthreads = (int)ws->batch_threads;
     if ((size_t)nthreads > nblk)
@@ -251,32 +254,36 @@ static mcd_status mixture_job(mcd_workspace *ws, const mcd_mixture *mix,
                               const double *T, const double *P,
                               mcd_basis comp_basis, const double *comp,
                               const double *grad, const double *grad_lnP,
-                              mcd_basis flux_basis, double *out_flux,
-                              int aos, mcdi_bjob *jb)
+                              mcd_basis flux_basis, double *out_flux, int aos,
+                              mcdi_bjob *jb)
 {
     mcd_status st;
     size_t n;
     if (mix == NULL)
         return mcdi_ws_fail(ws, MCD_EINVAL, "argument mix: NULL");
     n = mix->n;
-    if ((st = check_common(ws, model, n, n_cells, n_dim, comp_basis, comp,
-                           grad, flux_basis, out_flux)) != MCD_OK)
+    if ((st = check_common(ws, model, n, n_cells, n_dim, comp_basis, comp, grad,
+                           flux_basis, out_flux)) != MCD_OK)
         return st;
     if (T == NULL || P == NULL)
         return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL",
                             T == NULL ? "T" : "P");
     if ((st = mcdi_mixture_ready(mix)) != MCD_OK)
-        return mcdi_ws_fail(ws, st, "argument mix: a pair's method lacks a "
-                                    "parameter");
+        return mcdi_ws_fail(ws, st,
+                            "argument mix: a pair's method lacks a "
+                            "parameter");
     if (!mix->M_ok)
-        return mcdi_ws_fail(ws, MCD_ENODATA, "argument mix: a molar mass is "
-                                             "unknown");
+        return mcdi_ws_fail(ws, MCD_ENODATA,
+                            "argument mix: a molar mass is "
+                            "unknown");
     job_init(jb, ws, model, n, aos ? mcdi_batch_lanes(n) : n_cells, n_dim,
              comp_basis, flux_basis);
     jb->mix = mix;
     jb->mix_has_omega = mixture_has_omega(mix);
     jb->M = (comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
-             grad_lnP != NULL) ? mix->M : NULL;
+             grad_lnP != NULL)
+                ? mix->M
+                : NULL;
     if (jb->M != NULL && !mcdi_M_span_ok(n, jb->M))
         return mcdi_ws_fail(ws, MCD_EDOM,
                             "argument mix: the molar masses span more than a "
@@ -292,11 +299,10 @@ static mcd_status mixture_job(mcd_workspace *ws, const mcd_mixture *mix,
 }
 
 MCD_API mcd_status mcd_flux_batch(mcd_workspace *ws, const mcd_mixture *mix,
-                                  mcd_model model, size_t n_cells,
-                                  size_t n_dim, const double *T,
-                                  const double *P, mcd_basis comp_basis,
-                                  const double *comp, const double *grad,
-                                  const double *grad_lnP,
+                                  mcd_model model, size_t n_cells, size_t n_dim,
+                                  const double *T, const double *P,
+                                  mcd_basis comp_basis, const double *comp,
+                                  const double *grad, const double *grad_lnP,
                                   mcd_basis flux_basis, double *out_flux)
 {
     mcdi_bjob jb;
@@ -314,14 +320,11 @@ MCD_API mcd_status mcd_flux_batch(mcd_workspace *ws, const mcd_mixture *mix,
     return run_job(ws, &jb);
 }
 
-MCD_API mcd_status mcd_flux_batch_dij(mcd_workspace *ws, mcd_model model,
-                                      size_t n_species, size_t n_cells,
-                                      size_t n_dim, const double *M,
-                                      const double *Dij, const double *c,
-                                      mcd_basis comp_basis,
-                                      const double *comp, const double *grad,
-                                      const double *grad_lnP,
-                                      mcd_basis flux_basis, double *out_flux)
+MCD_API mcd_status mcd_flux_batch_dij(
+    mcd_workspace *ws, mcd_model model, size_t n_species, size_t n_cells,
+    size_t n_dim, const double *M, const double *Dij, const double *c,
+    mcd_basis comp_basis, const double *comp, const double *grad,
+    const double *grad_lnP, mcd_basis flux_basis, double *out_flux)
 {
     mcdi_bjob jb;
     mcd_status st;
@@ -340,8 +343,7 @@ MCD_API mcd_status mcd_flux_batch_dij(mcd_workspace *ws, mcd_model model,
              grad_lnP != NULL;
     if (need_M && (st = mcdi_check_M(ws, n_species, M)) != MCD_OK)
         return st;
-    job_init(&jb, ws, model, n_species, n_cells, n_dim, comp_basis,
-             flux_basis);
+    job_init(&jb, ws, model, n_species, n_cells, n_dim, comp_basis, flux_basis);
     jb.Dij = Dij;
     jb.c = c;
     jb.M = need_M ? M : NULL;
@@ -358,8 +360,7 @@ MCD_API mcd_status mcd_flux_batch_dij(mcd_workspace *ws, mcd_model model,
 /* AoS: each block of L cells is transposed into SoA staging that follows
  * the kernel's scratch in the thread's region, computed with stride L,
  * and transposed back. Serial (the staging is per workspace thread 0). */
-MCD_API mcd_status mcd_flux_batch_aos(mcd_workspace *ws,
-                                      const mcd_mixture *mix,
+MCD_API mcd_status mcd_flux_batch_aos(mcd_workspace *ws, const mcd_mixture *mix,
                                       mcd_model model, size_t n_cells,
                                       size_t n_dim, const double *T,
                                       const double *P, mcd_basis comp_basis,

@@ -25,16 +25,16 @@
 /* One batched call, as the kernel sees it (inputs SoA with stride K). */
 typedef struct mcdi_bjob {
     size_t n, nd, K;
-    int model;                 /* mcd_model */
+    int model; /* mcd_model */
     int comp_basis, flux_basis;
-    const mcd_mixture *mix;    /* mixture mode (T, P used) or NULL */
-    int mix_has_omega;         /* some pair of mix needs Omega_D(T) (CE/WL) */
+    const mcd_mixture *mix; /* mixture mode (T, P used) or NULL */
+    int mix_has_omega;      /* some pair of mix needs Omega_D(T) (CE/WL) */
     const double *T, *P;
-    const double *Dij, *c;     /* per-cell mode */
-    const double *M;           /* molar masses or NULL when not needed */
+    const double *Dij, *c; /* per-cell mode */
+    const double *M;       /* molar masses or NULL when not needed */
     const double *comp, *grad, *glnP;
     double *out;
-    int stream;                /* stream full output lines past the caches
+    int stream; /* stream full output lines past the caches
                                 * (kernels that can: v4; see batch.c) */
     size_t max_iter;
     double tol;
@@ -42,13 +42,13 @@ typedef struct mcdi_bjob {
 
 /* Outcome of one block. */
 typedef struct mcdi_bres {
-    mcd_status st;         /* MCD_OK or the failure */
-    size_t lane;           /* failing lane (when st != MCD_OK) */
-    const char *what;      /* static text naming the failure (results) */
-    int recheck;           /* an input of some lane breaks a rule: batch.c
+    mcd_status st;    /* MCD_OK or the failure */
+    size_t lane;      /* failing lane (when st != MCD_OK) */
+    const char *what; /* static text naming the failure (results) */
+    int recheck;      /* an input of some lane breaks a rule: batch.c
                             * names the first bad cell (mcdi_batch_recheck) */
-    double iter_err;       /* largest iterative error estimate */
-    size_t iter_used;      /* largest number of iterations */
+    double iter_err;  /* largest iterative error estimate */
+    size_t iter_used; /* largest number of iterations */
 } mcdi_bres;
 
 /* Streaming stores. With job->stream set, the v4 kernel writes each
@@ -63,8 +63,8 @@ typedef struct mcdi_bres {
  * then a store fence). Kernels without streaming ignore both. */
 #define MCDI_STREAM_DOUBLES (8 + MCDI_LANES_NMAX * MCD_MAX_DIM * MCDI_LANES)
 typedef struct mcdi_stream_state {
-    size_t pending;  /* a carry is held for the block before next_k0 */
-    size_t next_k0;  /* first cell of the block that can continue it */
+    size_t pending; /* a carry is held for the block before next_k0 */
+    size_t next_k0; /* first cell of the block that can continue it */
 } mcdi_stream_state;
 static inline void mcdi_batch_stream_reset(double *mem)
 {

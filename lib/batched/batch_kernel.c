@@ -209,12 +209,12 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
 /* One function per instance, each cloned per ISA on its own: a single
  * function holding every instance took GCC minutes to optimise (passes
  * that grow faster than the function size). */
-#define INSTANCE(name, nn, ndd)                                            \
-    __attribute__((noinline)) static void name(                           \
-        const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,          \
-        mcdi_bres *res)                                                   \
-    {                                                                     \
-        body(jb, k0, nv, mem, res, nn, LANES_SMALL, ndd);                 \
+#define INSTANCE(name, nn, ndd)                                                \
+    __attribute__((noinline)) static void name(const mcdi_bjob *jb, size_t k0, \
+                                               size_t nv, double *mem,         \
+                                               mcdi_bres *res)                 \
+    {                                                                          \
+        body(jb, k0, nv, mem, res, nn, LANES_SMALL, ndd);                      \
     }
 INSTANCE(block_n2_d3, 2, 3)
 INSTANCE(block_n3_d3, 3, 3)
@@ -239,8 +239,8 @@ static void block_lanes(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
     }
 }
 
-static void block_single(const mcdi_bjob *jb, size_t k0, size_t nv,
-                         double *mem, mcdi_bres *res)
+static void block_single(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
+                         mcdi_bres *res)
 {
     body(jb, k0, nv, mem, res, jb->n, 1, jb->nd);
 }

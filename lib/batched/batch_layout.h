@@ -22,6 +22,7 @@
 #define MCDI_KTILE 4
 
 /* R(name, rows): rows may use n (species), nd (directions). */
+/* clang-format off */
 #define MCDI_KBLOCK_REGIONS(R)                                              \
     R(tri, n * (n + 1) / 2) /* packed lower: 1/Đ, then A, then L of LDL^T */ \
     R(x, n)      /* mole fractions */                                       \
@@ -52,6 +53,7 @@
     R(est, 1)    /* error estimate of the iteration */                      \
     R(active, 1) /* 1 while the lane iterates */                            \
     R(iters, 1)  /* iterations used */
+/* clang-format on */
 
 /* mcdi_kblock, mcdi_kblock_doubles, mcdi_kblock_carve: a block's scratch
  * (the kernels carve it, batch.c sizes a thread's region with it). */
@@ -60,8 +62,10 @@ MCDI_DEFINE_LAYOUT(mcdi_kblock, MCDI_KBLOCK_REGIONS, mcdi_kblock_doubles,
 
 /* AoS staging (mcd_flux_batch_aos): a block of cells transposed into the
  * SoA layout the kernels read, placed after the kernel's scratch. */
+/* clang-format off */
 #define MCDI_AOS_REGIONS(R)                                                 \
     R(T, 1) R(P, 1) R(comp, n) R(grad, n * nd) R(glnP, nd) R(out, n * nd)
+/* clang-format on */
 MCDI_DEFINE_LAYOUT(mcdi_aos_stage, MCDI_AOS_REGIONS, mcdi_aos_doubles,
                    mcdi_aos_carve)
 

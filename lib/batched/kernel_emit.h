@@ -59,9 +59,8 @@ KINLINE void stream_rows(size_t rows, const mcdi_vd *restrict J, double *outb,
             continue;
         }
         if (cont)
-            _mm512_stream_pd(p - o, _mm512_permutex2var_pd(carry[e],
-                                                           stream_index(o),
-                                                           cur));
+            _mm512_stream_pd(
+                p - o, _mm512_permutex2var_pd(carry[e], stream_index(o), cur));
         else
             _mm512_mask_storeu_pd(p, (__mmask8)(0xFFu >> o), cur);
         carry[e] = cur;
@@ -81,8 +80,8 @@ KINLINE int emit_mole_v(const size_t n, const size_t nd,
                         const mcdi_vd *restrict s, const mcdi_vd *restrict x,
                         const mcdi_vd *restrict U, const mcdi_vd *restrict t,
                         const int ntr, const mcdi_vd c, mcdi_vd *restrict J,
-                        double *restrict outb, const size_t K,
-                        const size_t k0, const int stream, double *nts)
+                        double *restrict outb, const size_t K, const size_t k0,
+                        const int stream, double *nts)
 {
     double *restrict out = outb + k0;
     const mcdi_vd zero = {0.0};

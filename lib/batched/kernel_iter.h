@@ -16,9 +16,8 @@
  * iter_su forms SU = s U; iter_finish turns P (held in V) into the next
  * iterate V_e = x_i U_e + minv_i (s_i f P_e + d_e wk_i), with f = 1 when
  * P already holds the inverse diffusivities' scale. */
-KINLINE void iter_su(const size_t n, const size_t nd,
-                     const mcdi_vd *restrict s, const mcdi_vd *restrict U,
-                     mcdi_vd *restrict SU)
+KINLINE void iter_su(const size_t n, const size_t nd, const mcdi_vd *restrict s,
+                     const mcdi_vd *restrict U, mcdi_vd *restrict SU)
 {
     size_t i, dd;
     for (i = 0; i < n; i++)
@@ -29,8 +28,7 @@ KINLINE void iter_su(const size_t n, const size_t nd,
 KINLINE void iter_finish(const size_t n, const size_t nd, const mcdi_vd f,
                          const mcdi_vd *restrict s, const mcdi_vd *restrict x,
                          const mcdi_vd *restrict minv,
-                         const mcdi_vd *restrict wk,
-                         const mcdi_vd *restrict d,
+                         const mcdi_vd *restrict wk, const mcdi_vd *restrict d,
                          const mcdi_vd *restrict U, mcdi_vd *restrict V)
 {
     size_t i, dd;
@@ -50,15 +48,12 @@ KINLINE void iter_finish(const size_t n, const size_t nd, const mcdi_vd f,
  * triangle (L2-resident at large n: 320 kB at n = 100) is read once per
  * iteration instead of twice. Above KREG species the rows are taken KTILE
  * at a time, so that each V_j is loaded and stored once per tile. */
-KINLINE void iter_product_v(const size_t n, const size_t nd,
-                            const mcdi_vd *restrict Q,
-                            const mcdi_vd *restrict s,
-                            const mcdi_vd *restrict x,
-                            const mcdi_vd *restrict minv,
-                            const mcdi_vd *restrict wk,
-                            const mcdi_vd *restrict d,
-                            const mcdi_vd *restrict U, mcdi_vd *restrict SU,
-                            mcdi_vd *restrict V)
+KINLINE void
+iter_product_v(const size_t n, const size_t nd, const mcdi_vd *restrict Q,
+               const mcdi_vd *restrict s, const mcdi_vd *restrict x,
+               const mcdi_vd *restrict minv, const mcdi_vd *restrict wk,
+               const mcdi_vd *restrict d, const mcdi_vd *restrict U,
+               mcdi_vd *restrict SU, mcdi_vd *restrict V)
 {
     const mcdi_vd zero = {0.0}, one = zero + 1.0;
     size_t i, j, dd, r, jj, i0 = 0;
@@ -124,15 +119,13 @@ KINLINE void iter_product_v(const size_t n, const size_t nd,
  * scalars shared by the lanes (broadcast from a small matrix) and no
  * per-lane triangle is read at all; the rows are taken KTILE at a time so
  * that each SU_j load feeds KTILE * nd multiply-adds. f: P / T^1.75. */
-KINLINE void iter_product_c(const size_t n, const size_t nd,
-                            const double *restrict C, const mcdi_vd f,
-                            const mcdi_vd *restrict s,
-                            const mcdi_vd *restrict x,
-                            const mcdi_vd *restrict minv,
-                            const mcdi_vd *restrict wk,
-                            const mcdi_vd *restrict d,
-                            const mcdi_vd *restrict U, mcdi_vd *restrict SU,
-                            mcdi_vd *restrict V)
+KINLINE void
+iter_product_c(const size_t n, const size_t nd, const double *restrict C,
+               const mcdi_vd f, const mcdi_vd *restrict s,
+               const mcdi_vd *restrict x, const mcdi_vd *restrict minv,
+               const mcdi_vd *restrict wk, const mcdi_vd *restrict d,
+               const mcdi_vd *restrict U, mcdi_vd *restrict SU,
+               mcdi_vd *restrict V)
 {
     const mcdi_vd zero = {0.0};
     size_t i, j, dd, r, i0 = 0;
@@ -182,7 +175,7 @@ KINLINE void iter_product_rows(const mcdi_kblock *b, const size_t n,
         for (j = 0; j < i; j++) {
             const double *q = b->tri + (i * (i + 1) / 2 + j) * L;
             for (dd = 0; dd < nd; dd++)
-                LANES {
+                for_lanes (l) {
                     J[(i * nd + dd) * L + l] +=
                         q[l] * s[j * L + l] * r[(j * nd + dd) * L + l];
                     J[(j * nd + dd) * L + l] +=
@@ -191,11 +184,11 @@ KINLINE void iter_product_rows(const mcdi_kblock *b, const size_t n,
         }
     for (i = 0; i < n; i++)
         for (dd = 0; dd < nd; dd++)
-            LANES {
+            for_lanes (l) {
                 size_t e = (i * nd + dd) * L + l;
                 v[e] = x[i * L + l] * r[e] +
-                       minv[i * L + l] * (s[i * L + l] * J[e] +
-                                          d[e] * wk[i * L + l]);
+                       minv[i * L + l] *
+                           (s[i * L + l] * J[e] + d[e] * wk[i * L + l]);
             }
 }
 
@@ -210,20 +203,20 @@ KINLINE void iter_estimate(const mcdi_kblock *b, size_t it, const size_t n,
     double *restrict dprev = b->dprev, *restrict dprev2 = b->dprev2;
     double *restrict est = b->est, *restrict iters = b->iters;
     size_t i, dd, l;
-    LANES
+    for_lanes (l)
         nrm[l] = 0.0;
-    LANES
+    for_lanes (l)
         dmax[l] = 0.0;
     for (i = 0; i < n; i++)
         for (dd = 0; dd < nd; dd++)
-            LANES {
+            for_lanes (l) {
                 size_t e = (i * nd + dd) * L + l;
                 double a = fabs(s[i * L + l] * v[e]);
                 double q = fabs(s[i * L + l] * (v[e] - r[e]));
                 nrm[l] = a > nrm[l] ? a : nrm[l];
                 dmax[l] = q > dmax[l] ? q : dmax[l];
             }
-    LANES {
+    for_lanes (l) {
         double del = nrm[l] > 0.0 ? dmax[l] / nrm[l] : 0.0;
         double rho = del / dprev[l], e2;
         double rho2 = dprev[l] / dprev2[l];
@@ -263,16 +256,16 @@ KINLINE void stage_iterate(const mcdi_bjob *jb, const mcdi_kblock *b, int pl,
     double *restrict iters = b->iters;
     size_t i, it, l;
     for (i = 0; i < n; i++)
-        LANES {
+        for_lanes (l) {
             double Sl = S[i * L + l];
             minv[i * L + l] = Sl > 0.0 ? num[i * L + l] / Sl : 0.0;
         }
     /* U^0 = Ps Minv b */
     for (i = 0; i < n * nd; i++)
-        LANES
+        for_lanes (l)
             r[i * L + l] *= minv[(i / nd) * L + l];
     remove_along(r, b->s, b->s, n, L, nd); /* U^0 onto s^T U = 0 */
-    LANES {
+    for_lanes (l) {
         dprev[l] = HUGE_VAL;
         dprev2[l] = HUGE_VAL;
         est[l] = HUGE_VAL;
@@ -299,10 +292,10 @@ KINLINE void stage_iterate(const mcdi_bjob *jb, const mcdi_kblock *b, int pl,
         remove_along(v, b->s, b->s, n, L, nd);
         iter_estimate(b, it, n, L, nd);
         for (i = 0; i < n * nd; i++)
-            LANES
+            for_lanes (l)
                 if (active[l] > 0.0)
                     r[i * L + l] = v[i * L + l];
-        LANES {
+        for_lanes (l) {
             if (active[l] > 0.0 && it >= 2 && est[l] <= jb->tol)
                 active[l] = 0.0;
             if (l < nv)

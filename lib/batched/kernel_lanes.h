@@ -53,16 +53,17 @@
 /* A loop over the lanes of a block: vectorised (OpenMP SIMD pragma, enabled
  * by -fopenmp-simd without the OpenMP runtime; ignored elsewhere). */
 #if defined(_OPENMP) || defined(MCDI_OMP_SIMD)
-#define LANES _Pragma("omp simd") for (l = 0; l < L; l++)
+#define for_lanes(l) _Pragma("omp simd") for (l = 0; l < L; l++)
 #else
-#define LANES for (l = 0; l < L; l++)
+#define for_lanes(l) for (l = 0; l < L; l++)
 #endif
 /* The same with an OR-reduction of the int flag `bad` (input checks): the
  * reduction clause keeps these loops vectorised. */
 #if defined(_OPENMP) || defined(MCDI_OMP_SIMD)
-#define LANES_BAD _Pragma("omp simd reduction(|:bad)") for (l = 0; l < L; l++)
+#define for_lanes_bad(l)                                                       \
+    _Pragma("omp simd reduction(|:bad)") for (l = 0; l < L; l++)
 #else
-#define LANES_BAD for (l = 0; l < L; l++)
+#define for_lanes_bad(l) for (l = 0; l < L; l++)
 #endif
 
 /* Rows factored together above KREG species (ldl_solve_v). */
@@ -80,7 +81,7 @@ KINLINE void load_row(double *restrict dst, const double *restrict src,
      * are more than the hardware prefetchers follow) */
     __builtin_prefetch(src + MCDI_PREFETCH, 0, 0);
     if (nv == L) {
-        LANES
+        for_lanes (l)
             dst[l] = src[l];
     } else {
         for (l = 0; l < nv; l++)

@@ -86,8 +86,8 @@ KINLINE int ldl_solve_v(const size_t n, const size_t nd, mcdi_vd *restrict A,
             mcdi_vd *restrict W = n <= KREG ? Wl : Wm + r * n;
             mcdi_vd *restrict Ai = A + ii * (ii + 1) / 2;
             mcdi_vd dg;
-            ldl_row_tail(nd, A, ii, (n > KREG && nr == KTILE) ? i0 : 0, s, a,
-                         W, iD, R, f[r]);
+            ldl_row_tail(nd, A, ii, (n > KREG && nr == KTILE) ? i0 : 0, s, a, W,
+                         iD, R, f[r]);
             dg = S[ii] + a * x[ii];
             for (k = 0; k < ii; k++)
                 dg -= W[k] * Ai[k];
@@ -133,36 +133,36 @@ KINLINE int ldl_solve_rows(const mcdi_kblock *b, const double *amax,
     for (i = 0; i < n; i++) {
         double *row = tri + (i * (i + 1) / 2) * L;
         for (j = 0; j < i; j++)
-            LANES
-                row[j * L + l] = s[i * L + l] * s[j * L + l] *
-                                 (amax[l] - row[j * L + l]);
-        LANES
+            for_lanes (l)
+                row[j * L + l] =
+                    s[i * L + l] * s[j * L + l] * (amax[l] - row[j * L + l]);
+        for_lanes (l)
             row[i * L + l] = S[i * L + l] + amax[l] * x[i * L + l];
     }
     /* LDL^T, left-looking, packed lower */
     for (j = 0; j < n; j++) {
         double *Lj = tri + (j * (j + 1) / 2) * L;
         for (k = 0; k < j; k++)
-            LANES
+            for_lanes (l)
                 wk[k * L + l] = Lj[k * L + l] * Dg[k * L + l];
-        LANES
+        for_lanes (l)
             acc[l] = Lj[j * L + l];
         for (k = 0; k < j; k++)
-            LANES
+            for_lanes (l)
                 acc[l] -= Lj[k * L + l] * wk[k * L + l];
-        LANES {
+        for_lanes (l) {
             Dg[j * L + l] = acc[l];
             sing |= !(acc[l] > 0.0);
             iDg[j * L + l] = 1.0 / acc[l];
         }
         for (i = j + 1; i < n; i++) {
             double *Li = tri + (i * (i + 1) / 2) * L;
-            LANES
+            for_lanes (l)
                 acc[l] = Li[j * L + l];
             for (k = 0; k < j; k++)
-                LANES
+                for_lanes (l)
                     acc[l] -= Li[k * L + l] * wk[k * L + l];
-            LANES
+            for_lanes (l)
                 Li[j * L + l] = acc[l] * iDg[j * L + l];
         }
     }
@@ -173,17 +173,17 @@ KINLINE int ldl_solve_rows(const mcdi_kblock *b, const double *amax,
             const double *Li = tri + (i * (i + 1) / 2) * L;
             double *ri = r + (i * nd + dd) * L;
             for (k = 0; k < i; k++)
-                LANES
+                for_lanes (l)
                     ri[l] -= Li[k * L + l] * r[(k * nd + dd) * L + l];
         }
         for (i = 0; i < n; i++)
-            LANES
+            for_lanes (l)
                 r[(i * nd + dd) * L + l] *= iDg[i * L + l];
         for (i = n; i-- > 0;) {
             const double *Li = tri + (i * (i + 1) / 2) * L;
             double *ri = r + (i * nd + dd) * L;
             for (k = 0; k < i; k++)
-                LANES
+                for_lanes (l)
                     r[(k * nd + dd) * L + l] -= Li[k * L + l] * ri[l];
         }
     }
@@ -199,16 +199,16 @@ KINLINE int stage_exact(const mcdi_kblock *b, const size_t n, const size_t L,
     const double *restrict S = b->S, *restrict x = b->x;
     double amax[MCDI_LANES], amax2[MCDI_LANES];
     size_t i, l;
-    LANES
+    for_lanes (l)
         amax[l] = amax2[l] = 0.0;
     for (i = 0; i < n; i++)
-        LANES {
+        for_lanes (l) {
             double Sl = S[i * L + l];
             double Sp = x[i * L + l] > 0.0 ? Sl : 0.0;
             amax[l] = Sp > amax[l] ? Sp : amax[l];
             amax2[l] = Sl > amax2[l] ? Sl : amax2[l];
         }
-    LANES
+    for_lanes (l)
         amax[l] = amax[l] > 0.0 ? amax[l] : amax2[l];
     if (L == MCDI_VLANES) {
         /* assembly, LDL^T and both substitutions fused, in registers */
@@ -216,8 +216,7 @@ KINLINE int stage_exact(const mcdi_kblock *b, const size_t n, const size_t L,
         memcpy(&av, amax, sizeof av);
         return ldl_solve_v(n, nd, (mcdi_vd *)b->tri, (const mcdi_vd *)b->s,
                            (const mcdi_vd *)S, (const mcdi_vd *)x, av,
-                           (mcdi_vd *)b->r,
-                           (mcdi_vd *)b->Dg, (mcdi_vd *)b->iDg,
+                           (mcdi_vd *)b->r, (mcdi_vd *)b->Dg, (mcdi_vd *)b->iDg,
                            (mcdi_vd *)b->Wt);
     }
     return ldl_solve_rows(b, amax, n, L, nd);

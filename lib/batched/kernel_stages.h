@@ -18,13 +18,14 @@ KINLINE void remove_along(double *restrict v, const double *w,
     double p[MCDI_LANES];
     size_t i, dd, l;
     for (dd = 0; dd < nd; dd++) {
-        LANES
+        for_lanes (l)
             p[l] = 0.0;
         for (i = 0; i < n; i++)
-            LANES
-                p[l] += (w != NULL ? w[i * L + l] : 1.0) * v[(i * nd + dd) * L + l];
+            for_lanes (l)
+                p[l] +=
+                    (w != NULL ? w[i * L + l] : 1.0) * v[(i * nd + dd) * L + l];
         for (i = 0; i < n; i++)
-            LANES
+            for_lanes (l)
                 v[(i * nd + dd) * L + l] -= y[i * L + l] * p[l];
     }
 }
@@ -40,7 +41,7 @@ KINLINE int stage_load_scalars(const mcdi_bjob *jb, const mcdi_kblock *b,
         double *restrict Tl = b->T, *restrict Pl = b->P;
         load_row(Tl, jb->T + k0, nv, L);
         load_row(Pl, jb->P + k0, nv, L);
-        LANES_BAD {
+        for_lanes_bad (l) {
             bad |= !((Tl[l] > 0.0) & (Tl[l] <= DBL_MAX));
             bad |= !((Pl[l] > 0.0) & (Pl[l] <= DBL_MAX));
             c[l] = Pl[l] / (RGAS * Tl[l]);
@@ -48,8 +49,9 @@ KINLINE int stage_load_scalars(const mcdi_bjob *jb, const mcdi_kblock *b,
         }
     } else {
         load_row(c, jb->c + k0, nv, L);
-        LANES_BAD
-            bad |= !((c[l] >= DBL_MIN) & (c[l] <= DBL_MAX)); /* normal c, as single-state */
+        for_lanes_bad (l)
+            bad |= !((c[l] >= DBL_MIN) &
+                     (c[l] <= DBL_MAX)); /* normal c, as single-state */
     }
     return bad;
 }
@@ -64,17 +66,17 @@ KINLINE int stage_load_comp(const mcdi_bjob *jb, const mcdi_kblock *b,
     double *restrict y = jb->comp_basis == MCD_BASIS_MASS ? b->w : b->x;
     int bad = 0;
     size_t i, l;
-    LANES
+    for_lanes (l)
         sum[l] = 0.0;
     for (i = 0; i < n; i++) {
         load_row(y + i * L, jb->comp + i * K + k0, nv, L);
-        LANES_BAD {
+        for_lanes_bad (l) {
             double q = y[i * L + l];
             bad |= !((q >= 0.0) & (q <= DBL_MAX));
             sum[l] += q;
         }
     }
-    LANES_BAD
+    for_lanes_bad (l)
         bad |= !(fabs(sum[l] - 1.0) <= MCD_SUM_TOL);
     return bad;
 }
@@ -89,26 +91,26 @@ KINLINE void stage_fractions(const mcdi_bjob *jb, const mcdi_kblock *b,
     double *restrict y = mass_in ? w : x;
     size_t i, l;
     for (i = 0; i < n; i++)
-        LANES
+        for_lanes (l)
             y[i * L + l] = y[i * L + l] / sum[l];
     if (mass_in) {
         /* x_i = (w_i / M_i) / sum_k w_k / M_k */
-        LANES
+        for_lanes (l)
             sum[l] = 0.0;
         for (i = 0; i < n; i++)
-            LANES
+            for_lanes (l)
                 sum[l] += w[i * L + l] / M[i];
         for (i = 0; i < n; i++)
-            LANES
+            for_lanes (l)
                 x[i * L + l] = (w[i * L + l] / M[i]) / sum[l];
     } else if (M != NULL) {
-        LANES
+        for_lanes (l)
             sum[l] = 0.0;
         for (i = 0; i < n; i++)
-            LANES
+            for_lanes (l)
                 sum[l] += x[i * L + l] * M[i];
         for (i = 0; i < n; i++)
-            LANES
+            for_lanes (l)
                 w[i * L + l] = x[i * L + l] * M[i] / sum[l];
     }
 }
@@ -124,13 +126,13 @@ KINLINE int stage_load_forces(const mcdi_bjob *jb, const mcdi_kblock *b,
     size_t i, dd, l;
     for (i = 0; i < n * nd; i++) {
         load_row(d + i * L, jb->grad + i * K + k0, nv, L);
-        LANES_BAD
+        for_lanes_bad (l)
             bad |= !(fabs(d[i * L + l]) <= DBL_MAX);
     }
     if (jb->glnP != NULL) {
         for (dd = 0; dd < nd; dd++) {
             load_row(v + dd * L, jb->glnP + dd * K + k0, nv, L);
-            LANES_BAD
+            for_lanes_bad (l)
                 bad |= !(fabs(v[dd * L + l]) <= DBL_MAX);
         }
     }
@@ -150,21 +152,21 @@ KINLINE void stage_forces(const mcdi_bjob *jb, const mcdi_kblock *b,
     if (jb->comp_basis == MCD_BASIS_MASS) {
         /* dx_i = (dw_i - w_i dT/T) / (M_i T), T = sum w_k / M_k */
         double Tw[MCDI_LANES], rr[MCDI_LANES];
-        LANES
+        for_lanes (l)
             Tw[l] = 0.0;
         for (i = 0; i < n; i++)
-            LANES
+            for_lanes (l)
                 Tw[l] += w[i * L + l] / M[i];
         for (dd = 0; dd < nd; dd++) {
-            LANES
+            for_lanes (l)
                 rr[l] = 0.0;
             for (i = 0; i < n; i++)
-                LANES
+                for_lanes (l)
                     rr[l] += d[(i * nd + dd) * L + l] / M[i];
-            LANES
+            for_lanes (l)
                 rr[l] = rr[l] / Tw[l];
             for (i = 0; i < n; i++)
-                LANES
+                for_lanes (l)
                     d[(i * nd + dd) * L + l] =
                         (d[(i * nd + dd) * L + l] - w[i * L + l] * rr[l]) /
                         (M[i] * Tw[l]);
@@ -173,7 +175,7 @@ KINLINE void stage_forces(const mcdi_bjob *jb, const mcdi_kblock *b,
     if (jb->glnP != NULL)
         for (i = 0; i < n; i++)
             for (dd = 0; dd < nd; dd++)
-                LANES
+                for_lanes (l)
                     d[(i * nd + dd) * L + l] +=
                         (x[i * L + l] - w[i * L + l]) * v[dd * L + l];
     remove_along(d, NULL, x, n, L, nd); /* onto sum_i d_i = 0, weights x */
@@ -196,7 +198,7 @@ KINLINE int stage_invdiff_dij(const mcdi_bjob *jb, const mcdi_kblock *b,
             const double *lo = jb->Dij + (i * n + j) * K + k0;
             load_row(q, up, nv, L);
             load_row(wk, lo, nv, L);
-            LANES_BAD {
+            for_lanes_bad (l) {
                 double a = q[l], bb = wk[l], m = a > bb ? a : bb;
                 bad |= !((a >= DBL_MIN) & (a <= DBL_MAX));
                 bad |= !((bb >= DBL_MIN) & (bb <= DBL_MAX));
@@ -218,13 +220,13 @@ KINLINE int stage_temperature(const mcd_mixture *mx, const mcdi_kblock *b,
     double *restrict infit = b->infit, *restrict cheb = b->cheb;
     int all_fit = 1;
     size_t k, l;
-    LANES {
+    for_lanes (l) {
         double sq = sqrt(Tl[l]), qq = sqrt(sq);
         f175[l] = Pl[l] / (Tl[l] * sq * qq); /* P / T^1.75 */
         f15[l] = Pl[l] / (Tl[l] * sq);       /* P / T^1.5 */
     }
     if (any_lj && mx->fit_on) {
-        LANES {
+        for_lanes (l) {
             double u = (log(Tl[l]) - mx->fit_lmid) / mx->fit_lhalf;
             infit[l] = (Tl[l] >= mx->fit_Tmin && Tl[l] <= mx->fit_Tmax);
             if (!(infit[l] > 0.0)) {
@@ -235,12 +237,12 @@ KINLINE int stage_temperature(const mcd_mixture *mx, const mcdi_kblock *b,
             cheb[L + l] = u;
         }
         for (k = 2; k <= MCDI_FIT_MAXDEG; k++)
-            LANES
+            for_lanes (l)
                 cheb[k * L + l] = 2.0 * cheb[L + l] * cheb[(k - 1) * L + l] -
                                   cheb[(k - 2) * L + l];
     } else {
         all_fit = 0;
-        LANES
+        for_lanes (l)
             infit[l] = 0.0;
     }
     return all_fit;
@@ -258,27 +260,27 @@ KINLINE void invdiff_pair(const mcd_mixture *mx, const mcdi_kblock *b,
     size_t k, l;
     if (m == MCD_METHOD_FSG || m == MCD_METHOD_USER) {
         const double ic = mx->icoef[ij], *restrict f175 = b->f175;
-        LANES
+        for_lanes (l)
             q[l] = f175[l] * ic;
         return;
     }
     {
-        unsigned deg = (mx->fit_on && mx->fit_deg != NULL) ? mx->fit_deg[ij]
-                                                           : 0u;
+        unsigned deg =
+            (mx->fit_on && mx->fit_deg != NULL) ? mx->fit_deg[ij] : 0u;
         if (deg > 0) {
             const double *fq = mx->fit_q + ij * (MCDI_FIT_MAXDEG + 1);
             const double *restrict f15 = b->f15;
-            LANES
+            for_lanes (l)
                 q[l] = fq[0];
             for (k = 1; k <= deg; k++)
-                LANES
+                for_lanes (l)
                     q[l] += fq[k] * cheb[k * L + l];
-            LANES
+            for_lanes (l)
                 q[l] *= f15[l];
         }
         if (deg == 0 || !all_fit) {
             double e = mx->eps[ij], cf = mx->coef[ij];
-            LANES
+            for_lanes (l)
                 if (deg == 0 || !(infit[l] > 0.0))
                     q[l] = (Pl[l] * omega_exact(Tl[l] / e)) /
                            (cf * Tl[l] * sqrt(Tl[l]));
@@ -344,7 +346,7 @@ KINLINE void stage_blanc(const mcdi_bjob *jb, const mcdi_kblock *b, int pl,
         for (i = 1; i < n; i++)
             for (j = 0; j < i; j++) {
                 const double *q = b->tri + (i * (i + 1) / 2 + j) * L;
-                LANES {
+                for_lanes (l) {
                     S[i * L + l] += x[j * L + l] * q[l];
                     S[j * L + l] += x[i * L + l] * q[l];
                     num[i * L + l] += x[j * L + l];
@@ -357,8 +359,8 @@ KINLINE void stage_blanc(const mcdi_bjob *jb, const mcdi_kblock *b, int pl,
 /* Mixture-averaged fluxes: J*_i = -c D_im d_i, D_im = num_i / S_i (the
  * equal-weight harmonic mean for a pure species, as mixavg.c), then
  * J = J* - x sum J* (the zero-sum clean-up of body() runs it again). */
-KINLINE void stage_mixavg(const mcdi_kblock *b, const size_t n,
-                          const size_t L, const size_t nd)
+KINLINE void stage_mixavg(const mcdi_kblock *b, const size_t n, const size_t L,
+                          const size_t nd)
 {
     const double *restrict S = b->S, *restrict num = b->num;
     const double *restrict x = b->x, *restrict c = b->c, *restrict d = b->d;
@@ -373,14 +375,14 @@ KINLINE void stage_mixavg(const mcdi_kblock *b, const size_t n,
         for (i = 1; i < n; i++)
             for (j = 0; j < i; j++) {
                 const double *q = b->tri + (i * (i + 1) / 2 + j) * L;
-                LANES {
+                for_lanes (l) {
                     minv[i * L + l] += q[l];
                     minv[j * L + l] += q[l];
                 }
             }
     }
     for (i = 0; i < n; i++)
-        LANES {
+        for_lanes (l) {
             double Sl = S[i * L + l];
             double Dim = Sl > 0.0 ? num[i * L + l] / Sl
                                   : (double)(n - 1) / minv[i * L + l];
@@ -388,10 +390,10 @@ KINLINE void stage_mixavg(const mcdi_kblock *b, const size_t n,
         }
     for (dd = 0; dd < nd; dd++) {
         double sj[MCDI_LANES];
-        LANES
+        for_lanes (l)
             sj[l] = 0.0;
         for (i = 0; i < n; i++)
-            LANES {
+            for_lanes (l) {
                 /* c last: c D_im underflows where the flux does not
                  * (c = 1e-300, Đ = 1e-30: test_edge_cases) */
                 double q = c[l] * (wk[i * L + l] * d[(i * nd + dd) * L + l]);
@@ -399,7 +401,7 @@ KINLINE void stage_mixavg(const mcdi_kblock *b, const size_t n,
                 sj[l] += q;
             }
         for (i = 0; i < n; i++)
-            LANES
+            for_lanes (l)
                 J[(i * nd + dd) * L + l] -= x[i * L + l] * sj[l];
     }
 }
@@ -425,7 +427,7 @@ KINLINE int stage_trace(const mcdi_bjob *jb, const mcdi_kblock *b, int pl,
         return 0;
     for (i = 0; i < n; i++)
         for (dd = 0; dd < nd; dd++)
-            LANES {
+            for_lanes (l) {
                 double Sl = S[i * L + l];
                 double q = -d[(i * nd + dd) * L + l] / (Sl > 0.0 ? Sl : 1.0);
                 t[(i * nd + dd) * L + l] = x[i * L + l] > 0.0 ? 0.0 : q;
@@ -436,14 +438,14 @@ KINLINE int stage_trace(const mcdi_bjob *jb, const mcdi_kblock *b, int pl,
                 double *q = b->tri + (i * (i + 1) / 2 + j) * L;
                 const double ic = jb->mix->icoef[i * n + j];
                 const double *restrict f175 = b->f175;
-                LANES
+                for_lanes (l)
                     q[l] = f175[l] * ic;
             }
     for (i = 1; i < n; i++)
         for (j = 0; j < i; j++) {
             const double *q = b->tri + (i * (i + 1) / 2 + j) * L;
             for (dd = 0; dd < nd; dd++)
-                LANES {
+                for_lanes (l) {
                     d[(i * nd + dd) * L + l] -=
                         x[i * L + l] * t[(j * nd + dd) * L + l] * q[l];
                     d[(j * nd + dd) * L + l] -=
@@ -462,37 +464,37 @@ KINLINE void stage_rhs(const mcdi_kblock *b, const size_t n, const size_t L,
     double *restrict wk = b->wk, *restrict r = b->r;
     size_t i, dd, l;
     for (i = 0; i < n; i++)
-        LANES
+        for_lanes (l)
             wk[i * L + l] = s[i * L + l] > 0.0 ? -1.0 / s[i * L + l] : 0.0;
     for (i = 0; i < n; i++)
         for (dd = 0; dd < nd; dd++)
-            LANES
+            for_lanes (l)
                 r[(i * nd + dd) * L + l] =
                     d[(i * nd + dd) * L + l] * wk[i * L + l];
 }
 
 /* Molar fluxes from the solution U: J_i = c (s_i U_i + t_i - x_i sum_t t_t). */
-KINLINE void stage_compose(const mcdi_kblock *b, const size_t n,
-                           const size_t L, const size_t nd)
+KINLINE void stage_compose(const mcdi_kblock *b, const size_t n, const size_t L,
+                           const size_t nd)
 {
     const double *restrict s = b->s, *restrict x = b->x, *restrict r = b->r;
     const double *restrict t = b->t, *restrict c = b->c;
     double *restrict J = b->J, st[MCDI_LANES];
     size_t i, dd, l;
     for (dd = 0; dd < nd; dd++) {
-        LANES
+        for_lanes (l)
             st[l] = 0.0;
         for (i = 0; i < n; i++)
-            LANES
+            for_lanes (l)
                 st[l] += t[(i * nd + dd) * L + l];
         for (i = 0; i < n; i++)
-            LANES {
+            for_lanes (l) {
                 size_t e = (i * nd + dd) * L + l;
-                J[e] = c[l] * (s[i * L + l] * r[e] + t[e] - x[i * L + l] * st[l]);
+                J[e] =
+                    c[l] * (s[i * L + l] * r[e] + t[e] - x[i * L + l] * st[l]);
             }
     }
 }
-
 
 /* Mass fluxes j_i = M_i J_i - w_i sum_k M_k J_k, the residual removed with
  * w; fails (EDOM in res) where the terms cancelled, as
@@ -507,24 +509,24 @@ KINLINE int stage_mass(const mcdi_bjob *jb, const mcdi_kblock *b, size_t nv,
     double *restrict J = b->J, sm[MCDI_LANES] = {0.0}, rs[MCDI_LANES] = {0.0};
     size_t i, dd, l;
     for (dd = 0; dd < nd; dd++) {
-        LANES
+        for_lanes (l)
             sm[l] = rs[l] = 0.0;
         for (i = 0; i < n; i++)
-            LANES
+            for_lanes (l)
                 sm[l] += M[i] * J[(i * nd + dd) * L + l];
         for (i = 0; i < n; i++)
-            LANES {
+            for_lanes (l) {
                 size_t e = (i * nd + dd) * L + l;
                 J[e] = M[i] * J[e] - w[i * L + l] * sm[l];
                 rs[l] += J[e];
             }
         for (i = 0; i < n; i++)
-            LANES
+            for_lanes (l)
                 J[(i * nd + dd) * L + l] -= w[i * L + l] * rs[l];
-        LANES
+        for_lanes (l)
             sm[l] = rs[l] = 0.0;
         for (i = 0; i < n; i++)
-            LANES {
+            for_lanes (l) {
                 const double q = J[(i * nd + dd) * L + l];
                 sm[l] += q;
                 rs[l] += fabs(q);
@@ -544,8 +546,8 @@ KINLINE int stage_mass(const mcdi_bjob *jb, const mcdi_kblock *b, size_t nv,
 }
 
 /* Write the block's fluxes, never non-finite ones (EDOM in res). */
-KINLINE void stage_store(const mcdi_bjob *jb, const mcdi_kblock *b,
-                         size_t k0, size_t nv, mcdi_bres *res, const size_t n,
+KINLINE void stage_store(const mcdi_bjob *jb, const mcdi_kblock *b, size_t k0,
+                         size_t nv, mcdi_bres *res, const size_t n,
                          const size_t L, const size_t nd)
 {
     const double *restrict J = b->J;
@@ -553,7 +555,7 @@ KINLINE void stage_store(const mcdi_bjob *jb, const mcdi_kblock *b,
     int bad = 0;
     size_t i, l;
 #if defined(_OPENMP) || defined(MCDI_OMP_SIMD)
-#pragma omp simd reduction(|:bad)
+#pragma omp simd reduction(| : bad)
 #endif
     for (i = 0; i < n * nd * L; i++)
         bad |= !(fabs(J[i]) <= DBL_MAX);
@@ -572,7 +574,7 @@ KINLINE void stage_store(const mcdi_bjob *jb, const mcdi_kblock *b,
         double *restrict o = jb->out + i * K + k0;
         const double *restrict Ji = J + i * L;
         if (nv == L) {
-            LANES /* full block: vector stores */
+            for_lanes (l) /* full block: vector stores */
                 o[l] = Ji[l];
         } else {
             for (l = 0; l < nv; l++)

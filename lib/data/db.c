@@ -33,8 +33,7 @@ static const char SRC_V_INC[] =
 #define M_D2 (2.0 * 2.01410177812e-3)
 
 static const char *const param_names[MCD_PARAM_COUNT] = {
-    "M", "V_diff", "sigma", "eps_k", "dipole", "Vb", "Tb", "assoc", "Tc",
-    "Pc"};
+    "M", "V_diff", "sigma", "eps_k", "dipole", "Vb", "Tb", "assoc", "Tc", "Pc"};
 static const char *const param_units[MCD_PARAM_COUNT] = {
     "kg/mol", "-", "m", "K", "C m", "m^3/mol", "K", "-", "K", "Pa"};
 
@@ -88,11 +87,13 @@ mcd_status mcdi_db_check_name(const char *name, char *errbuf, size_t errlen)
             if (u >= 0x21 && u < 0x7f)
                 mcdi_errbuf_set(errbuf, errlen,
                                 "species name: character %zu '%c' not "
-                                "allowed", i + 1, c);
+                                "allowed",
+                                i + 1, c);
             else
                 mcdi_errbuf_set(errbuf, errlen,
                                 "species name: character %zu (byte 0x%02x) "
-                                "not allowed", i + 1, (unsigned)u);
+                                "not allowed",
+                                i + 1, (unsigned)u);
             return MCD_EPARSE;
         }
     }
@@ -146,8 +147,7 @@ mcd_status mcdi_species_from_formula(const char *name, const char *formula,
     }
     flen = strlen(formula);
     if (flen > MCDI_FORMULA_TEXT_MAX) {
-        mcdi_errbuf_set(errbuf, errlen,
-                        "formula longer than %d characters",
+        mcdi_errbuf_set(errbuf, errlen, "formula longer than %d characters",
                         MCDI_FORMULA_TEXT_MAX);
         return MCD_EPARSE;
     }
@@ -163,8 +163,8 @@ mcd_status mcdi_species_from_formula(const char *name, const char *formula,
     if (mcdi_ieq(formula, "air") || strcmp(formula, "D2") == 0) {
         int air = formula[0] != 'D';
         if (n_rings != 0) {
-            mcdi_errbuf_set(errbuf, errlen,
-                            "n_rings must be 0 for '%s'", formula);
+            mcdi_errbuf_set(errbuf, errlen, "n_rings must be 0 for '%s'",
+                            formula);
             return MCD_EINVAL;
         }
         s.p[MCD_PARAM_MOLAR_MASS] = air ? M_AIR : M_D2;
@@ -185,7 +185,8 @@ mcd_status mcdi_species_from_formula(const char *name, const char *formula,
         if (n_rings != 0) {
             mcdi_errbuf_set(errbuf, errlen,
                             "n_rings must be 0 for the tabulated molecule "
-                            "'%s'", formula);
+                            "'%s'",
+                            formula);
             return MCD_EINVAL;
         }
         s.p[MCD_PARAM_DIFF_VOLUME] = V;
@@ -271,10 +272,7 @@ MCD_API void mcd_db_free(mcd_db *db)
     free(db);
 }
 
-MCD_API size_t mcd_db_count(const mcd_db *db)
-{
-    return db ? db->n : 0;
-}
+MCD_API size_t mcd_db_count(const mcd_db *db) { return db ? db->n : 0; }
 
 MCD_API mcd_status mcd_db_find(const mcd_db *db, const char *name,
                                size_t *out_index)
@@ -334,9 +332,9 @@ MCD_API mcd_status mcd_db_param(const mcd_db *db, size_t i, mcd_param p,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_db_add(mcd_db *db, const char *name,
-                              const char *formula, int n_rings,
-                              size_t *out_index, char *errbuf, size_t errlen)
+MCD_API mcd_status mcd_db_add(mcd_db *db, const char *name, const char *formula,
+                              int n_rings, size_t *out_index, char *errbuf,
+                              size_t errlen)
 {
     mcdi_species s;
     mcd_status st;
@@ -345,8 +343,7 @@ MCD_API mcd_status mcd_db_add(mcd_db *db, const char *name,
         mcdi_errbuf_set(errbuf, errlen, "NULL argument");
         return MCD_EINVAL;
     }
-    st = mcdi_species_from_formula(name, formula, n_rings, &s, errbuf,
-                                   errlen);
+    st = mcdi_species_from_formula(name, formula, n_rings, &s, errbuf, errlen);
     if (st != MCD_OK)
         return st;
     if (mcdi_db_index_of(db, name) == (size_t)-1 &&

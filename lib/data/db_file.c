@@ -40,15 +40,10 @@ typedef struct unit_def {
 } unit_def;
 
 /* Units accepted per parameter, in mcd_param order. NULL list = no unit. */
-static const unit_def units_M[] = {{"kg/mol", 1.0}, {"g/mol", 1e-3},
-                                   {NULL, 0}};
-static const unit_def units_sigma[] = {{"m", 1.0},
-                                       {"nm", 1e-9},
-                                       {"pm", 1e-12},
-                                       {"angstrom", 1e-10},
-                                       {"Angstrom", 1e-10},
-                                       {"A", 1e-10},
-                                       {NULL, 0}};
+static const unit_def units_M[] = {{"kg/mol", 1.0}, {"g/mol", 1e-3}, {NULL, 0}};
+static const unit_def units_sigma[] = {
+    {"m", 1.0},          {"nm", 1e-9}, {"pm", 1e-12}, {"angstrom", 1e-10},
+    {"Angstrom", 1e-10}, {"A", 1e-10}, {NULL, 0}};
 static const unit_def units_K[] = {{"K", 1.0}, {NULL, 0}};
 /* 1 debye = 1e-21/c C m = 3.33564e-30 C m (c = 299792458 m/s). */
 static const unit_def units_dipole[] = {{"C m", 1.0},
@@ -61,9 +56,8 @@ static const unit_def units_Vb[] = {{"m3/mol", 1.0},
                                     {"cm3/mol", 1e-6},
                                     {"cm^3/mol", 1e-6},
                                     {NULL, 0}};
-static const unit_def units_P[] = {{"Pa", 1.0},   {"kPa", 1e3},
-                                   {"MPa", 1e6},  {"bar", 1e5},
-                                   {"atm", MCD_ATM}, {NULL, 0}};
+static const unit_def units_P[] = {{"Pa", 1.0},  {"kPa", 1e3},     {"MPa", 1e6},
+                                   {"bar", 1e5}, {"atm", MCD_ATM}, {NULL, 0}};
 
 static const unit_def *units_of(mcd_param p)
 {
@@ -83,10 +77,10 @@ static const unit_def *units_of(mcd_param p)
 /* State of the block being read. */
 typedef struct block {
     int open;
-    size_t line;                       /* line of its "species" line */
+    size_t line; /* line of its "species" line */
     char name[MCDI_NAME_MAX + 1];
     char formula[MCDI_FORMULA_TEXT_MAX + 1];
-    size_t formula_line;               /* 0 = not given */
+    size_t formula_line; /* 0 = not given */
     int rings;
     size_t rings_line;
     double value[MCD_PARAM_COUNT];
@@ -94,8 +88,8 @@ typedef struct block {
 } block;
 
 typedef struct loader {
-    mcd_db tmp;        /* working copy */
-    size_t *def_line;  /* per tmp index: line defining it in this text */
+    mcd_db tmp;       /* working copy */
+    size_t *def_line; /* per tmp index: line defining it in this text */
     size_t def_cap;
     char *errbuf;
     size_t errlen;
@@ -110,18 +104,18 @@ static int is_space(char c) { return c == ' ' || c == '\t'; }
 
 /* Show a token in a message, truncated to 40 characters. */
 #define TOKFMT "%.*s%s"
-#define TOKARG(t) (int)((t).len > 40 ? 40 : (t).len), (t).s, \
-                  ((t).len > 40 ? "..." : "")
+#define TOKARG(t)                                                              \
+    (int)((t).len > 40 ? 40 : (t).len), (t).s, ((t).len > 40 ? "..." : "")
 
-static mcd_status fail(loader *L, mcd_status st, size_t line,
-                       const char *fmt, ...)
+static mcd_status fail(loader *L, mcd_status st, size_t line, const char *fmt,
+                       ...)
 #if defined(__GNUC__)
     __attribute__((format(printf, 4, 5)))
 #endif
     ;
 
-static mcd_status fail(loader *L, mcd_status st, size_t line,
-                       const char *fmt, ...)
+static mcd_status fail(loader *L, mcd_status st, size_t line, const char *fmt,
+                       ...)
 {
     char msg[256];
     va_list ap;
@@ -161,8 +155,8 @@ static void list_units(const unit_def *u, char *buf, size_t len)
     size_t used = 0;
     buf[0] = '\0';
     for (; u->text != NULL && used + 1 < len; ++u) {
-        int n = snprintf(buf + used, len - used, "%s%s", used ? ", " : "",
-                         u->text);
+        int n =
+            snprintf(buf + used, len - used, "%s%s", used ? ", " : "", u->text);
         if (n < 0)
             break;
         used += (size_t)n;
@@ -204,8 +198,8 @@ static mcd_status close_block(loader *L, block *b)
     st = mcdi_species_from_formula(b->name, b->formula, b->rings, &s, msg,
                                    sizeof msg);
     if (st == MCD_EINVAL) /* n_rings not allowed for this formula */
-        return fail(L, MCD_EPARSE, b->rings_line ? b->rings_line
-                                                 : b->formula_line,
+        return fail(L, MCD_EPARSE,
+                    b->rings_line ? b->rings_line : b->formula_line,
                     "species '%s': %s", b->name, msg);
     if (st != MCD_OK)
         return fail(L, st, b->formula_line, "species '%s': formula: %s",
@@ -226,8 +220,8 @@ static mcd_status close_block(loader *L, block *b)
     return MCD_OK;
 }
 
-static mcd_status start_block(loader *L, block *b, size_t line,
-                              const token *t, size_t nt)
+static mcd_status start_block(loader *L, block *b, size_t line, const token *t,
+                              size_t nt)
 {
     char msg[160];
     mcd_status st;
@@ -279,8 +273,7 @@ static mcd_status key_line(loader *L, block *b, size_t line, const token *t,
                         b->formula_line);
         if (nt != 2)
             return fail(L, MCD_EPARSE, line,
-                        "'formula' takes exactly one value, found %zu",
-                        nt - 1);
+                        "'formula' takes exactly one value, found %zu", nt - 1);
         if (t[1].len > MCDI_FORMULA_TEXT_MAX)
             return fail(L, MCD_EPARSE, line,
                         "formula longer than %d characters",
@@ -304,13 +297,15 @@ static mcd_status key_line(loader *L, block *b, size_t line, const token *t,
             if (c < '0' || c > '9' || r > 1000)
                 return fail(L, MCD_EPARSE, line,
                             "'rings': '" TOKFMT "' is not a non-negative "
-                            "integer up to 1000", TOKARG(t[1]));
+                            "integer up to 1000",
+                            TOKARG(t[1]));
             r = r * 10 + (c - '0');
         }
         if (r > 1000)
             return fail(L, MCD_EPARSE, line,
                         "'rings': '" TOKFMT "' is not a non-negative "
-                        "integer up to 1000", TOKARG(t[1]));
+                        "integer up to 1000",
+                        TOKARG(t[1]));
         b->rings = (int)r;
         b->rings_line = line;
         return MCD_OK;
@@ -352,7 +347,8 @@ static mcd_status key_line(loader *L, block *b, size_t line, const token *t,
         if (ulen)
             return fail(L, MCD_EPARSE, line,
                         "'%s' is dimensionless and takes no unit, found "
-                        "'%s'", mcd_param_name((mcd_param)p), unit);
+                        "'%s'",
+                        mcd_param_name((mcd_param)p), unit);
     } else {
         char list[128];
         list_units(units, list, sizeof list);
@@ -371,8 +367,8 @@ static mcd_status key_line(loader *L, block *b, size_t line, const token *t,
     if (mcdi_param_check((mcd_param)p, v) != MCD_OK)
         return fail(L, MCD_EDOM, line, "'%s' must be %s, found %g",
                     mcd_param_name((mcd_param)p),
-                    (p == MCD_PARAM_DIPOLE || p == MCD_PARAM_ASSOC)
-                        ? ">= 0" : "> 0",
+                    (p == MCD_PARAM_DIPOLE || p == MCD_PARAM_ASSOC) ? ">= 0"
+                                                                    : "> 0",
                     v);
     b->value[p] = v;
     b->value_line[p] = line;
@@ -457,12 +453,12 @@ static mcd_status load_text(mcd_db *db, const char *text, size_t len,
             }
             if (nt >= 1 && tok_eq(t[0], HEADER_NAME))
                 st = fail(&L, MCD_EPARSE, line,
-                          "unsupported format version (expected '"
-                          HEADER_NAME " " HEADER_VERSION "')");
+                          "unsupported format version (expected '" HEADER_NAME
+                          " " HEADER_VERSION "')");
             else
                 st = fail(&L, MCD_EPARSE, line,
-                          "expected the header line '" HEADER_NAME " "
-                          HEADER_VERSION "' first");
+                          "expected the header line '" HEADER_NAME
+                          " " HEADER_VERSION "' first");
             continue;
         }
         if (tok_eq(t[0], "species"))
@@ -472,8 +468,8 @@ static mcd_status load_text(mcd_db *db, const char *text, size_t len,
     }
     if (st == MCD_OK && !have_header)
         st = fail(&L, MCD_EPARSE, line + (line == 0),
-                  "missing the header line '" HEADER_NAME " "
-                  HEADER_VERSION "'");
+                  "missing the header line '" HEADER_NAME " " HEADER_VERSION
+                  "'");
     if (st == MCD_OK)
         st = close_block(&L, &b);
     free(L.def_line);
@@ -496,8 +492,8 @@ MCD_API mcd_status mcd_db_load_string(mcd_db *db, const char *text,
     return load_text(db, text, strlen(text), errbuf, errlen);
 }
 
-MCD_API mcd_status mcd_db_load_file(mcd_db *db, const char *path,
-                                    char *errbuf, size_t errlen)
+MCD_API mcd_status mcd_db_load_file(mcd_db *db, const char *path, char *errbuf,
+                                    size_t errlen)
 {
     FILE *f;
     char *buf = NULL, *p;

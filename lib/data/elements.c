@@ -31,6 +31,7 @@
 
 #define N_ELEMENTS 118
 
+/* clang-format off */
 static const char *const symbols[N_ELEMENTS + 1] = {
     NULL,
     "H",  "He", "Li", "Be", "B",  "C",  "N",  "O",  "F",  "Ne", /* 1-10 */
@@ -46,8 +47,10 @@ static const char *const symbols[N_ELEMENTS + 1] = {
     "Md", "No", "Lr", "Rf", "Db", "Sg", "Bh", "Hs", "Mt", "Ds", /* 101-110 */
     "Rg", "Cn", "Nh", "Fl", "Mc", "Lv", "Ts", "Og",             /* 111-118 */
 };
+/* clang-format on */
 
 /* Standard (or conventional) atomic weights [g/mol]; 0 = none. */
+/* clang-format off */
 static const double weights_g[N_ELEMENTS + 1] = {
     0.0,
     1.008,         /* H  conventional, interval [1.00784, 1.00811] */
@@ -141,6 +144,7 @@ static const double weights_g[N_ELEMENTS + 1] = {
     0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0,
     0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0,
 };
+/* clang-format on */
 
 MCD_API const char *mcd_element_symbol(int Z)
 {

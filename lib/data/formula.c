@@ -84,7 +84,8 @@ static mcd_status read_count(parser *p, long *out)
     if (p->s[p->pos] == '0') {
         mcdi_errbuf_set(p->errbuf, p->errlen,
                         "position %zu: count must be a positive integer "
-                        "without leading zeros", start + 1);
+                        "without leading zeros",
+                        start + 1);
         return MCD_EPARSE;
     }
     while (is_digit(p->s[p->pos])) {
@@ -143,7 +144,8 @@ static mcd_status parse_seq(parser *p, int depth, mcdi_formula *acc)
             if (p->s[p->pos] != ')') {
                 mcdi_errbuf_set(p->errbuf, p->errlen,
                                 "position %zu: expected ')' to close the '(' "
-                                "at position %zu", p->pos + 1, at + 1);
+                                "at position %zu",
+                                p->pos + 1, at + 1);
                 return MCD_EPARSE;
             }
             if (sub.n == 0) {
@@ -158,12 +160,13 @@ static mcd_status parse_seq(parser *p, int depth, mcdi_formula *acc)
                 if (sub.count[i] > MCDI_FORMULA_MAX_COUNT / n) {
                     mcdi_errbuf_set(p->errbuf, p->errlen,
                                     "position %zu: atom count of '%s' exceeds "
-                                    "%ld", at + 1, mcd_element_symbol(sub.Z[i]),
+                                    "%ld",
+                                    at + 1, mcd_element_symbol(sub.Z[i]),
                                     MCDI_FORMULA_MAX_COUNT);
                     return MCD_EPARSE;
                 }
-                if ((st = add_atoms(p, at, acc, sub.Z[i], sub.count[i] * n))
-                    != MCD_OK)
+                if ((st = add_atoms(p, at, acc, sub.Z[i], sub.count[i] * n)) !=
+                    MCD_OK)
                     return st;
             }
         } else {
@@ -172,11 +175,13 @@ static mcd_status parse_seq(parser *p, int depth, mcdi_formula *acc)
             if (is_digit(c))
                 mcdi_errbuf_set(p->errbuf, p->errlen,
                                 "position %zu: count %s without an element or "
-                                "group before it", at + 1, d);
+                                "group before it",
+                                at + 1, d);
             else
                 mcdi_errbuf_set(p->errbuf, p->errlen,
                                 "position %zu: unexpected %s, expected an "
-                                "element symbol or '('", at + 1, d);
+                                "element symbol or '('",
+                                at + 1, d);
             return MCD_EPARSE;
         }
     }
@@ -212,8 +217,8 @@ mcd_status mcdi_formula_parse(const char *formula, mcdi_formula *out,
     return MCD_OK;
 }
 
-mcd_status mcdi_formula_mass(const mcdi_formula *f, double *out_M,
-                             char *errbuf, size_t errlen)
+mcd_status mcdi_formula_mass(const mcdi_formula *f, double *out_M, char *errbuf,
+                             size_t errlen)
 {
     double M = 0.0;
     size_t i;
@@ -245,7 +250,8 @@ mcd_status mcdi_formula_fsg_volume(const mcdi_formula *f, int n_rings,
         if (!(v > 0.0)) {
             mcdi_errbuf_set(errbuf, errlen,
                             "element '%s' has no Fuller-Ensley-Giddings "
-                            "volume increment", mcd_element_symbol(f->Z[i]));
+                            "volume increment",
+                            mcd_element_symbol(f->Z[i]));
             return MCD_ENODATA;
         }
         V += (double)f->count[i] * v;
@@ -254,7 +260,8 @@ mcd_status mcdi_formula_fsg_volume(const mcdi_formula *f, int n_rings,
     if (!(V > 0.0)) {
         mcdi_errbuf_set(errbuf, errlen,
                         "n_rings = %d leaves a non-positive diffusion volume "
-                        "(%g)", n_rings, V);
+                        "(%g)",
+                        n_rings, V);
         return MCD_EINVAL;
     }
     *out_V = V;
@@ -344,8 +351,8 @@ MCD_API mcd_status mcd_formula_diffusion_volume(const char *formula,
     }
     if ((st = mcdi_formula_parse(formula, &f, errbuf, errlen)) != MCD_OK)
         return st;
-    if ((st = mcdi_formula_fsg_volume(&f, n_rings, &V, errbuf, errlen))
-        != MCD_OK)
+    if ((st = mcdi_formula_fsg_volume(&f, n_rings, &V, errbuf, errlen)) !=
+        MCD_OK)
         return st;
     *out_V = V;
     return MCD_OK;

@@ -62,11 +62,10 @@ static const struct {
     const char *formula;
     double V;
 } molecules[] = {
-    {"He", 2.67},  {"Ne", 5.98},  {"Ar", 16.2},  {"Kr", 24.5},
-    {"Xe", 32.7},  {"H2", 6.12},  {"D2", 6.84},  {"N2", 18.5},
-    {"O2", 16.3},  {"air", 19.7}, {"CO", 18.0},  {"CO2", 26.9},
-    {"N2O", 35.9}, {"NH3", 20.7}, {"H2O", 13.1}, {"SF6", 71.3},
-    {"Cl2", 38.4}, {"Br2", 69.0}, {"SO2", 41.8},
+    {"He", 2.67},  {"Ne", 5.98},  {"Ar", 16.2},  {"Kr", 24.5},  {"Xe", 32.7},
+    {"H2", 6.12},  {"D2", 6.84},  {"N2", 18.5},  {"O2", 16.3},  {"air", 19.7},
+    {"CO", 18.0},  {"CO2", 26.9}, {"N2O", 35.9}, {"NH3", 20.7}, {"H2O", 13.1},
+    {"SF6", 71.3}, {"Cl2", 38.4}, {"Br2", 69.0}, {"SO2", 41.8},
 };
 #define N_MOLECULES (sizeof molecules / sizeof molecules[0])
 
@@ -74,8 +73,10 @@ static int ascii_ieq(const char *a, const char *b)
 {
     for (; *a && *b; ++a, ++b) {
         char x = *a, y = *b;
-        if (x >= 'A' && x <= 'Z') x = (char)(x - 'A' + 'a');
-        if (y >= 'A' && y <= 'Z') y = (char)(y - 'A' + 'a');
+        if (x >= 'A' && x <= 'Z')
+            x = (char)(x - 'A' + 'a');
+        if (y >= 'A' && y <= 'Z')
+            y = (char)(y - 'A' + 'a');
         if (x != y)
             return 0;
     }
@@ -103,8 +104,7 @@ int mcdi_fsg_lookup(const char *formula, const mcdi_formula *parsed,
          * and "D2" are not formulas and match by text only. */
         for (i = 0; i < N_MOLECULES; ++i) {
             mcdi_formula m;
-            if (mcdi_formula_parse(molecules[i].formula, &m, NULL, 0)
-                != MCD_OK)
+            if (mcdi_formula_parse(molecules[i].formula, &m, NULL, 0) != MCD_OK)
                 continue;
             if (mcdi_formula_same(&m, parsed)) {
                 *out_V = molecules[i].V;

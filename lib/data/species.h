@@ -6,7 +6,7 @@
 #include <stddef.h>
 #include "mcdiff.h"
 
-#define MCDI_NAME_MAX 63      /* longest species name (characters) */
+#define MCDI_NAME_MAX 63          /* longest species name (characters) */
 #define MCDI_FORMULA_TEXT_MAX 255 /* longest formula text (characters) */
 
 /* One species. Unknown parameters are NaN with src NULL. Sources point to

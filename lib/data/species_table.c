@@ -116,6 +116,7 @@ typedef struct row {
 
 /* name, formula, rings, M, V, V kind, sigma, eps/k, dipole, Vb, Vb kind,
  * Tb, Tc, Pc, assoc, LJ kind */
+/* clang-format off */
 static const row table[] = {
     {"hydrogen", "H2", 0, 2.0160, 6.12, 'T', 2.827, 59.7, 0.0, 14.3, 'T', 20.28, 33.19, 13.13, NODATA, 'S'},
     {"deuterium", "D2", 0, 4.02820355624, 6.84, 'T', 2.948, 39.3, 0.0, NODATA, 0, 23.7, 38.35, 16.65, NODATA, 'H'},
@@ -168,6 +169,7 @@ static const row table[] = {
     {"r32", "CH2F2", 0, 52.0238, 49.92, 'I', NODATA, NODATA, 2.0, (14.8+2*3.7+2*8.7), 'L', 221.5, 351.26, 57.82, NODATA, 'B'},
     {"r22", "CHClF2", 0, 86.4658, 68.61, 'I', NODATA, NODATA, 1.4, (14.8+3.7+24.6+2*8.7), 'L', 232.34, 369.3, 49.71, NODATA, 'B'},
 };
+/* clang-format on */
 
 #define N_ROWS (sizeof table / sizeof table[0])
 
@@ -186,10 +188,10 @@ void mcdi_builtin_fill(size_t i, mcdi_species *s)
         s->src[k] = NULL;
     }
     s->p[MCD_PARAM_MOLAR_MASS] = r->M_g * 1e-3;
-    s->src[MCD_PARAM_MOLAR_MASS] =
-        strcmp(r->name, "air") == 0         ? SRC_M_AIR
-        : strcmp(r->name, "deuterium") == 0 ? SRC_M_D2
-                                            : SRC_M;
+    s->src[MCD_PARAM_MOLAR_MASS] = strcmp(r->name, "air") == 0 ? SRC_M_AIR
+                                   : strcmp(r->name, "deuterium") == 0
+                                       ? SRC_M_D2
+                                       : SRC_M;
     s->p[MCD_PARAM_DIFF_VOLUME] = r->V;
     s->src[MCD_PARAM_DIFF_VOLUME] = r->V_kind == 'T' ? SRC_V_T : SRC_V_I;
     if (r->lj_kind == 'B') {
@@ -215,8 +217,8 @@ void mcdi_builtin_fill(size_t i, mcdi_species *s)
         s->src[MCD_PARAM_VB] = r->Vb_kind == 'T' ? SRC_VB_T : SRC_VB_L;
     }
     {
-        const char *crit = strcmp(r->name, "air") == 0 ? SRC_CRIT_AIR
-                                                       : SRC_CRIT;
+        const char *crit =
+            strcmp(r->name, "air") == 0 ? SRC_CRIT_AIR : SRC_CRIT;
         if (!isnan(r->Tb)) {
             s->p[MCD_PARAM_TB] = r->Tb;
             s->src[MCD_PARAM_TB] = SRC_CRIT;

@@ -14,6 +14,7 @@
 
 /* mcd_flux_compute, with mcdi_ms_fluxes, the L D L^T core and the
  * mixture-averaged fluxes */
+/* clang-format off */
 #define MCDI_FLUX_REGIONS(R)                                                \
     R(x, n) R(w, n)              /* mole and mass fractions */             \
     R(gx, n * MCD_MAX_DIM)       /* mole-fraction gradients (mass input) */ \
@@ -27,8 +28,10 @@
     R(sq, n) R(isq, n) R(S, n) R(dinv, n) /* L D L^T core scratch */       \
     R(den, n) R(num, n)          /* mixture-averaged sums */
 #define MCDI_FLUX_INTS(R) R(pos, n) R(tr, n) /* present, trace species */
+/* clang-format on */
 
 /* mcd_fick_matrix and mcd_fick_eigenvalues */
+/* clang-format off */
 #define MCDI_FICK_REGIONS(R)                                                \
     R(x, n) R(w, n)              /* mole and mass fractions */             \
     R(B, n * n)                  /* [B], then its LU (column-major) */     \
@@ -36,15 +39,16 @@
     R(cs, n) R(t, n) R(qv, n)    /* column sums, mass-basis products */    \
     R(wr, n) R(wi, n)            /* eigenvalues, real and imaginary */
 #define MCDI_FICK_INTS(R) R(ipiv, n) /* LU pivots */
+/* clang-format on */
 
 MCDI_DEFINE_LAYOUT(mcdi_flux_view, MCDI_FLUX_REGIONS, mcdi_flux_doubles,
                    mcdi_flux_carve)
-MCDI_DEFINE_LAYOUT_OF(mcdi_flux_iview, int, MCDI_LAYOUT_IFIELD,
-                      MCDI_FLUX_INTS, mcdi_flux_ints, mcdi_flux_icarve)
+MCDI_DEFINE_LAYOUT_OF(mcdi_flux_iview, int, MCDI_LAYOUT_IFIELD, MCDI_FLUX_INTS,
+                      mcdi_flux_ints, mcdi_flux_icarve)
 MCDI_DEFINE_LAYOUT(mcdi_fick_view, MCDI_FICK_REGIONS, mcdi_fick_doubles,
                    mcdi_fick_carve)
-MCDI_DEFINE_LAYOUT_OF(mcdi_fick_iview, int, MCDI_LAYOUT_IFIELD,
-                      MCDI_FICK_INTS, mcdi_fick_ints, mcdi_fick_icarve)
+MCDI_DEFINE_LAYOUT_OF(mcdi_fick_iview, int, MCDI_LAYOUT_IFIELD, MCDI_FICK_INTS,
+                      mcdi_fick_ints, mcdi_fick_icarve)
 
 /* Elements of the bank for cap species: the larger view. */
 static inline size_t mcdi_core_doubles(size_t cap)

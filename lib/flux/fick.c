@@ -122,8 +122,8 @@ static size_t sp(size_t a, size_t dep) { return a < dep ? a : a + 1; }
  * dep the dependent species, and the reduced (projected) thermodynamic
  * factor in X (the identity when Gamma is NULL). cs: n scratch. */
 static void assemble_B_gamma(size_t n, size_t dep, const double *x,
-                             const double *Dij, const double *Gamma,
-                             double *B, double *X, double *cs)
+                             const double *Dij, const double *Gamma, double *B,
+                             double *X, double *cs)
 {
     const size_t m = n - 1;
     size_t r, q, k;
@@ -136,9 +136,9 @@ static void assemble_B_gamma(size_t n, size_t dep, const double *x,
                 diag += x[k] / dij_pair(Dij, n, i, k);
         for (q = 0; q < m; q++) {
             size_t j = sp(q, dep);
-            B[r + q * m] = (j == i)
-                               ? diag
-                               : -x[i] * (1.0 / dij_pair(Dij, n, i, j) - inv_in);
+            B[r + q * m] =
+                (j == i) ? diag
+                         : -x[i] * (1.0 / dij_pair(Dij, n, i, j) - inv_in);
         }
     }
     if (Gamma == NULL) {
@@ -173,9 +173,9 @@ static mcd_status solve_B(mcd_workspace *ws, size_t m, double *B, double *X,
     if (m <= FICK_SMALL_M) {
         size_t bad = gauss_solve_small(m, B, X);
         if (bad != 0)
-            return mcdi_ws_fail(ws, MCD_ESING,
-                                "Maxwell-Stefan matrix B singular at column %zu",
-                                bad - 1);
+            return mcdi_ws_fail(
+                ws, MCD_ESING, "Maxwell-Stefan matrix B singular at column %zu",
+                bad - 1);
         return MCD_OK;
     }
     info = LAPACKE_dgetrf_work(LAPACK_COL_MAJOR, (lapack_int)m, (lapack_int)m,
@@ -183,12 +183,13 @@ static mcd_status solve_B(mcd_workspace *ws, size_t m, double *B, double *X,
     if (info > 0)
         return mcdi_ws_fail(ws, MCD_ESING,
                             "Maxwell-Stefan matrix B singular (dgetrf "
-                            "info %d)", (int)info);
+                            "info %d)",
+                            (int)info);
     if (info < 0)
         return mcdi_ws_fail(ws, MCD_EINTERNAL, "dgetrf info %d", (int)info);
-    info = LAPACKE_dgetrs_work(LAPACK_COL_MAJOR, 'N', (lapack_int)m,
-                               (lapack_int)m, B, (lapack_int)m, ipiv, X,
-                               (lapack_int)m);
+    info =
+        LAPACKE_dgetrs_work(LAPACK_COL_MAJOR, 'N', (lapack_int)m, (lapack_int)m,
+                            B, (lapack_int)m, ipiv, X, (lapack_int)m);
     if (info != 0)
         return mcdi_ws_fail(ws, MCD_EINTERNAL, "dgetrs info %d", (int)info);
     return MCD_OK;
@@ -256,7 +257,8 @@ MCD_API mcd_status mcd_fick_matrix(mcd_workspace *ws, size_t n_species,
     if (dependent != MCD_DEPENDENT_AUTO && dependent >= n)
         return mcdi_ws_fail(ws, MCD_EINVAL,
                             "argument dependent: %zu is not a species index "
-                            "(0..%zu) nor MCD_DEPENDENT_AUTO", dependent, n - 1);
+                            "(0..%zu) nor MCD_DEPENDENT_AUTO",
+                            dependent, n - 1);
     if (n > 1 && out_D == NULL)
         return mcdi_ws_fail(ws, MCD_EINVAL, "argument out_D: NULL");
     need_M = comp_basis == MCD_BASIS_MASS || basis == MCD_BASIS_MASS;
@@ -392,12 +394,15 @@ MCD_API mcd_status mcd_fick_eigenvalues(mcd_workspace *ws, size_t m,
     if (m > ws->cap - 1)
         return mcdi_ws_fail(ws, MCD_EBADLEN,
                             "argument m: %zu exceeds the workspace capacity "
-                            "minus one (%zu)", m, ws->cap - 1);
+                            "minus one (%zu)",
+                            m, ws->cap - 1);
     if (m == 0)
         return MCD_OK;
     if (D == NULL || out_re == NULL || out_im == NULL)
         return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL",
-                            D == NULL ? "D" : out_re == NULL ? "out_re" : "out_im");
+                            D == NULL        ? "D"
+                            : out_re == NULL ? "out_re"
+                                             : "out_im");
     for (k = 0; k < m * m; k++)
         if (!mcdi_finite(D[k]))
             return mcdi_ws_fail(ws, MCD_EINVAL,

@@ -11,7 +11,6 @@
 #include "mcdiff.h"
 #include "base/checks.h"
 
-
 /* ---- kernels -------------------------------------------------------- */
 
 /* Normalised mole fractions x (length n) from validated fractions in
@@ -42,8 +41,8 @@ void mcdi_flux_zero_sum(size_t n, size_t nd, const double *x, double *J);
  * (mcd_flux_compute passes its x, d, J regions). Fails with ESING
  * (round-off made the matrix indefinite). Defined in maxwell_stefan.c. */
 mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
-                          const double *x, const double *d,
-                          const double *Dij, double c, double *J);
+                          const double *x, const double *d, const double *Dij,
+                          double c, double *J);
 
 /* Dense core of mcdi_ms_fluxes for m >= 2 species all present (xp > 0):
  * assembles Gs + a s s^T from Đ (upper triangle of Dp, row stride ld),
@@ -55,11 +54,10 @@ mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
  * is not positive. Above 24 species the factor and solves are LAPACK's
  * dpotrf/dpotrs (*_work: no allocation). One definition per instruction
  * set (ms_ldl.c compiled once per set). */
-#define MCDI_MS_LDL_DECL(name)                                              \
-    size_t name(size_t m, size_t nd, const double *xp, const double *Dp,    \
-                size_t ld, const double *dp, double c, double *A,           \
-                double *sq, double *isq, double *S, double *dinv,           \
-                double *Y, double *Yt)
+#define MCDI_MS_LDL_DECL(name)                                                 \
+    size_t name(size_t m, size_t nd, const double *xp, const double *Dp,       \
+                size_t ld, const double *dp, double c, double *A, double *sq,  \
+                double *isq, double *S, double *dinv, double *Y, double *Yt)
 MCDI_MS_LDL_DECL(mcdi_ms_ldl_v3);
 MCDI_MS_LDL_DECL(mcdi_ms_ldl_v1);
 typedef MCDI_MS_LDL_DECL((*mcdi_ms_ldl_fn));

@@ -49,8 +49,7 @@ static int basis_ok(mcd_basis b)
 
 static int sizes_ok(size_t n, size_t n_dim)
 {
-    return n >= 1 && n <= MCD_MAX_SPECIES && n_dim >= 1 &&
-           n_dim <= MCD_MAX_DIM;
+    return n >= 1 && n <= MCD_MAX_SPECIES && n_dim >= 1 && n_dim <= MCD_MAX_DIM;
 }
 
 /* M, fractions and flux field: EINVAL checks on all of them first, then the
@@ -138,8 +137,8 @@ MCD_API mcd_status mcd_flux_convert(size_t n_species, size_t n_dim,
 
 MCD_API mcd_status mcd_flux_to_volume_frame(size_t n_species, size_t n_dim,
                                             double c, const double *x,
-                                            const double *Vbar,
-                                            const double *J, double *out_JV)
+                                            const double *Vbar, const double *J,
+                                            double *out_JV)
 {
     const size_t n = n_species;
     double sx, sxv = 0.0;
@@ -246,11 +245,9 @@ MCD_API mcd_status mcd_flux_total(size_t n_species, size_t n_dim,
         if (species >= n)
             return MCD_EINVAL;
         break;
-    case MCD_BOOT_EQUIMOLAR:
-        break;
+    case MCD_BOOT_EQUIMOLAR: break;
     case MCD_BOOT_RATIOS: /* film calls only: not a local bootstrap */
-    default:
-        return MCD_EINVAL;
+    default: return MCD_EINVAL;
     }
     st = check_M_x_F(n, n_dim, NULL, comp, diff, &sy);
     if (st != MCD_OK)

@@ -113,8 +113,8 @@ static inline double dij_pair(const double *Dij, size_t n, size_t i, size_t j)
 /* ------------------------------------------------------------------ */
 
 mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
-                          const double *x, const double *d,
-                          const double *Dij, double c, double *J)
+                          const double *x, const double *d, const double *Dij,
+                          double c, double *J)
 {
     mcdi_flux_view v;
     mcdi_flux_iview iv;
@@ -138,8 +138,8 @@ mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
 
     if (nt == 0) {
         /* every species present: solve in place, no gathering */
-        bad = ms_ldl(n, nd, x, Dij, n, d, c, v.A, v.sq, v.isq, v.S, v.dinv,
-                     J, v.dc);
+        bad = ms_ldl(n, nd, x, Dij, n, d, c, v.A, v.sq, v.isq, v.S, v.dinv, J,
+                     v.dc);
         if (bad != 0)
             goto not_definite;
         goto zero_sum;
@@ -187,8 +187,8 @@ mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
             v.dc[k * nd + dd] = dti;
         }
     }
-    bad = ms_ldl(m, nd, v.xc, v.Dc, m, v.dc, c, v.A, v.sq, v.isq, v.S,
-                 v.dinv, v.Y, v.dc /* dead after the assembly */);
+    bad = ms_ldl(m, nd, v.xc, v.Dc, m, v.dc, c, v.A, v.sq, v.isq, v.S, v.dinv,
+                 v.Y, v.dc /* dead after the assembly */);
     if (bad != 0)
         goto not_definite;
     /* the species present take the uniform velocity -S_T / c */
@@ -315,8 +315,8 @@ static void driving_forces(size_t n, size_t nd, const double *x,
 
 /* Mass fluxes j_i = M_i J_i - w_i sum_k M_k J_k in place, then the
  * round-off residual of sum_i j_i removed with weights w. */
-static void to_mass_basis(size_t n, size_t nd, const double *M,
-                          const double *w, double *J)
+static void to_mass_basis(size_t n, size_t nd, const double *M, const double *w,
+                          double *J)
 {
     size_t i, dd;
     for (dd = 0; dd < nd; dd++) {
@@ -357,7 +357,8 @@ static mcd_status emit_checked(mcd_workspace *ws, size_t n, size_t nd,
         return mcdi_ws_fail(ws, MCD_EDOM,
                             "result: mass fluxes lost to cancellation (the "
                             "molar masses are too far apart for double "
-                            "precision: %s)", "sum over species not zero");
+                            "precision: %s)",
+                            "sum over species not zero");
     memcpy(out_flux, J, n * nd * sizeof(double));
     return MCD_OK;
 }
@@ -366,10 +367,8 @@ MCD_API mcd_status mcd_flux_compute(mcd_workspace *ws, mcd_model model,
                                     size_t n_species, size_t n_dim,
                                     const double *M, const double *Dij,
                                     double c, mcd_basis comp_basis,
-                                    const double *comp,
-                                    const double *grad_comp,
-                                    const double *Gamma,
-                                    const double *grad_lnP,
+                                    const double *comp, const double *grad_comp,
+                                    const double *Gamma, const double *grad_lnP,
                                     mcd_basis flux_basis, double *out_flux)
 {
     const size_t n = n_species, nd = n_dim;

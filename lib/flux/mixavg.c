@@ -81,8 +81,8 @@ void mcdi_mixavg_fluxes(size_t n, size_t nd, const double *x, const double *d,
             num[j] += x[i];
         }
     for (i = 0; i < n; i++) {
-        double Dim = den[i] > 0.0 ? num[i] / den[i]
-                                  : mcdi_mixavg_dim(n, i, x, Dij);
+        double Dim =
+            den[i] > 0.0 ? num[i] / den[i] : mcdi_mixavg_dim(n, i, x, Dij);
         for (dd = 0; dd < nd; dd++) {
             /* c last: c D_im underflows where the flux does not (c =
              * 1e-300, Đ = 1e-30: test_edge_cases) */

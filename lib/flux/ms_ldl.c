@@ -59,7 +59,6 @@
 #define SIMD_LOOP
 #endif
 
-
 /* Solves after the factor: L y = b (rows of L^T: upper triangle of A),
  * D z = y, L^T u = z (rows of L: lower triangle), in place in Y (m x nd
  * row-major). The pivot row's values are held in scalars: copying them
@@ -67,7 +66,7 @@
  * values into one 16-byte load, which defeats store forwarding (measured:
  * 13 % of the whole N = 3 call on one instruction). */
 MINLINE void solve_ldl3(size_t m, const double *A, const double *dinv,
-                       double *Y)
+                        double *Y)
 {
     size_t i, j, p;
     for (p = 0; p + 1 < m; p++) {
@@ -99,8 +98,8 @@ MINLINE void solve_ldl3(size_t m, const double *A, const double *dinv,
 }
 
 /* The same for any nd, one direction at a time. */
-MINLINE void solve_ldl(size_t m, size_t nd, const double *A,
-                      const double *dinv, double *Y)
+MINLINE void solve_ldl(size_t m, size_t nd, const double *A, const double *dinv,
+                       double *Y)
 {
     size_t i, j, p, dd;
     for (dd = 0; dd < nd; dd++) {
@@ -141,18 +140,18 @@ static size_t solve_lapack(size_t m, size_t nd, double *A, double *Y,
     for (i = 0; i < m; i++)
         for (dd = 0; dd < nd; dd++)
             Yt[dd * m + i] = Y[i * nd + dd];
-    LAPACKE_dpotrs_work(LAPACK_COL_MAJOR, 'U', (lapack_int)m,
-                        (lapack_int)nd, A, (lapack_int)m, Yt, (lapack_int)m);
+    LAPACKE_dpotrs_work(LAPACK_COL_MAJOR, 'U', (lapack_int)m, (lapack_int)nd, A,
+                        (lapack_int)m, Yt, (lapack_int)m);
     for (i = 0; i < m; i++)
         for (dd = 0; dd < nd; dd++)
             Y[i * nd + dd] = Yt[dd * m + i];
     return 0;
 }
 
-size_t MSNAME(MCDI_KISA)(size_t m, size_t nd, const double *xp, const double *Dp,
-                   size_t ld, const double *dp, double c, double *A,
-                   double *sq, double *isq, double *S, double *dinv,
-                   double *Y, double *Yt)
+size_t MSNAME(MCDI_KISA)(size_t m, size_t nd, const double *xp,
+                         const double *Dp, size_t ld, const double *dp,
+                         double c, double *A, double *sq, double *isq,
+                         double *S, double *dinv, double *Y, double *Yt)
 {
     double a = 0.0;
     size_t i, j, p, dd;

@@ -40,7 +40,8 @@
  *     = 3.20418e-4 T^1.75 sqrt(1/M_A + 1/M_B) / (P (...)^2).
  * The tests check this against the published bar form and a worked case.
  */
-#define FSG_K_SI (1.00e-3 * 1e-4 * MCD_ATM * 0.031622776601683794) /* sqrt(1e-3) */
+#define FSG_K_SI                                                               \
+    (1.00e-3 * 1e-4 * MCD_ATM * 0.031622776601683794) /* sqrt(1e-3) */
 
 double mcdi_fsg_coef(double MA, double MB, double VA, double VB)
 {
@@ -336,18 +337,17 @@ MCD_API const char *mcd_warning_string(unsigned bit)
     case MCD_WARN_HIGH_PRESSURE:
         return "pressure above the low-pressure range of the method";
     case MCD_WARN_POLAR:
-        return "polar species: Lennard-Jones or diffusion-volume model less reliable";
+        return "polar species: Lennard-Jones or diffusion-volume model less "
+               "reliable";
     case MCD_WARN_TEMPERATURE:
         return "temperature outside the method's tested range";
     case MCD_WARN_QUANTUM:
         return "light quantum gas (H2, D2, He) at low temperature";
-    case MCD_WARN_ASSOCIATING:
-        return "hydrogen-bonding (associating) species";
+    case MCD_WARN_ASSOCIATING: return "hydrogen-bonding (associating) species";
     case MCD_WARN_ESTIMATED_PARAM:
         return "a parameter was estimated, not tabulated";
     case MCD_WARN_SCALED:
         return "user value scaled far from its reference state";
-    default:
-        return NULL;
+    default: return NULL;
     }
 }

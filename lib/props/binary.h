@@ -35,9 +35,9 @@ unsigned mcdi_classify(const char *name, const char *formula, double assoc);
  * (FSG, CHAPMAN_ENSKOG, WILKE_LEE), with the method's typical error and
  * the warning bits. T and P are validated here too.
  * Fails: EINVAL, EDOM, ENODATA. Allocates: no. */
-mcd_status mcdi_pair_gas(const mcdi_spec *a, const mcdi_spec *b,
-                         mcd_method m, double T, double P, double *out_D,
-                         double *out_rel_err, unsigned *out_warn);
+mcd_status mcdi_pair_gas(const mcdi_spec *a, const mcdi_spec *b, mcd_method m,
+                         double T, double P, double *out_D, double *out_rel_err,
+                         unsigned *out_warn);
 
 /* State-independent part of a gas method for a pair, so that
  *   FSG:          D = coef * T^1.75 / P
@@ -45,8 +45,8 @@ mcd_status mcdi_pair_gas(const mcdi_spec *a, const mcdi_spec *b,
  * reproduces mcdi_pair_gas bit for bit. *out_eps_ab is 0 for FSG. Sets
  * *out_estimated to 1 when Lennard-Jones parameters were estimated.
  * Fails: EINVAL (method), ENODATA. Allocates: no. */
-mcd_status mcdi_pair_coef(const mcdi_spec *a, const mcdi_spec *b,
-                          mcd_method m, double *out_coef, double *out_eps_ab,
+mcd_status mcdi_pair_coef(const mcdi_spec *a, const mcdi_spec *b, mcd_method m,
+                          double *out_coef, double *out_eps_ab,
                           int *out_estimated);
 
 /* Pair coefficients from raw parameters (inputs assumed validated). */

@@ -63,7 +63,8 @@ static int contains_nocase(const char *s, const char *needle)
     for (; *s; s++) {
         size_t k = 0;
         while (k < m && s[k] &&
-               tolower((unsigned char)s[k]) == tolower((unsigned char)needle[k]))
+               tolower((unsigned char)s[k]) ==
+                   tolower((unsigned char)needle[k]))
             k++;
         if (k == m)
             return 1;
@@ -76,14 +77,15 @@ unsigned mcdi_classify(const char *name, const char *formula, double assoc)
     static const char *const quantum[] = {"H2", "D2", "He", "T2", "HD"};
     static const char *const quantum_names[] = {"hydrogen", "deuterium",
                                                 "helium", "helium-4"};
-    static const char *const assoc_formulas[] = {"H2O", "D2O", "HF", "NH3",
-                                                 "H2O2", "N2H4"};
+    static const char *const assoc_formulas[] = {"H2O", "D2O",  "HF",
+                                                 "NH3", "H2O2", "N2H4"};
     unsigned cls = 0;
     if (formula != NULL) {
         for (size_t k = 0; k < sizeof quantum / sizeof quantum[0]; k++)
             if (strcmp(formula, quantum[k]) == 0)
                 cls |= MCDI_CLS_QUANTUM;
-        for (size_t k = 0; k < sizeof assoc_formulas / sizeof assoc_formulas[0]; k++)
+        for (size_t k = 0; k < sizeof assoc_formulas / sizeof assoc_formulas[0];
+             k++)
             if (strcmp(formula, assoc_formulas[k]) == 0)
                 cls |= MCDI_CLS_ASSOC;
         /* Hydroxyl (alcohols, acids COOH, phenols) or amino groups written
@@ -93,7 +95,8 @@ unsigned mcdi_classify(const char *name, const char *formula, double assoc)
             cls |= MCDI_CLS_ASSOC;
     }
     if (name != NULL) {
-        for (size_t k = 0; k < sizeof quantum_names / sizeof quantum_names[0]; k++)
+        for (size_t k = 0; k < sizeof quantum_names / sizeof quantum_names[0];
+             k++)
             if (lower_eq(name, quantum_names[k]))
                 cls |= MCDI_CLS_QUANTUM;
         if (lower_eq(name, "water") || lower_eq(name, "ammonia") ||
@@ -127,8 +130,9 @@ mcd_status mcdi_spec_from_db(const mcd_db *db, size_t i, mcdi_spec *out)
         strncpy(s.name, name, sizeof s.name - 1);
         s.name[sizeof s.name - 1] = '\0';
     }
-    s.cls = mcdi_classify(name, mcd_db_formula(db, i),
-                          has(&s, MCD_PARAM_ASSOC) ? s.p[MCD_PARAM_ASSOC] : -1.0);
+    s.cls =
+        mcdi_classify(name, mcd_db_formula(db, i),
+                      has(&s, MCD_PARAM_ASSOC) ? s.p[MCD_PARAM_ASSOC] : -1.0);
     *out = s;
     return MCD_OK;
 }
@@ -158,8 +162,8 @@ static mcd_status lj_params(const mcdi_spec *s, double *sig, double *eps,
     return MCD_OK;
 }
 
-mcd_status mcdi_pair_coef(const mcdi_spec *a, const mcdi_spec *b,
-                          mcd_method m, double *out_coef, double *out_eps_ab,
+mcd_status mcdi_pair_coef(const mcdi_spec *a, const mcdi_spec *b, mcd_method m,
+                          double *out_coef, double *out_eps_ab,
                           int *out_estimated)
 {
     double sa, sb, ea, eb;
@@ -173,12 +177,12 @@ mcd_status mcdi_pair_coef(const mcdi_spec *a, const mcdi_spec *b,
         return MCD_ENODATA;
     if (m == MCD_METHOD_FSG) {
         if (!has(a, MCD_PARAM_DIFF_VOLUME) || !has(b, MCD_PARAM_DIFF_VOLUME) ||
-            !(a->p[MCD_PARAM_DIFF_VOLUME] > 0) || !(b->p[MCD_PARAM_DIFF_VOLUME] > 0))
+            !(a->p[MCD_PARAM_DIFF_VOLUME] > 0) ||
+            !(b->p[MCD_PARAM_DIFF_VOLUME] > 0))
             return MCD_ENODATA;
-        *out_coef = mcdi_fsg_coef(a->p[MCD_PARAM_MOLAR_MASS],
-                                  b->p[MCD_PARAM_MOLAR_MASS],
-                                  a->p[MCD_PARAM_DIFF_VOLUME],
-                                  b->p[MCD_PARAM_DIFF_VOLUME]);
+        *out_coef = mcdi_fsg_coef(
+            a->p[MCD_PARAM_MOLAR_MASS], b->p[MCD_PARAM_MOLAR_MASS],
+            a->p[MCD_PARAM_DIFF_VOLUME], b->p[MCD_PARAM_DIFF_VOLUME]);
         *out_eps_ab = 0.0;
         *out_estimated = 0;
         return MCD_OK;
@@ -212,7 +216,8 @@ static unsigned pair_state_warnings(const mcdi_spec *a, const mcdi_spec *b,
     if (P > MCDI_HIGH_P)
         w |= MCD_WARN_HIGH_PRESSURE;
     if (has(a, MCD_PARAM_PC) && has(b, MCD_PARAM_PC) &&
-        P > MCDI_HIGH_P_REDUCED * 0.5 * (a->p[MCD_PARAM_PC] + b->p[MCD_PARAM_PC]))
+        P > MCDI_HIGH_P_REDUCED * 0.5 *
+                (a->p[MCD_PARAM_PC] + b->p[MCD_PARAM_PC]))
         w |= MCD_WARN_HIGH_PRESSURE;
     if ((has(a, MCD_PARAM_DIPOLE) && a->p[MCD_PARAM_DIPOLE] > MCDI_DEBYE) ||
         (has(b, MCD_PARAM_DIPOLE) && b->p[MCD_PARAM_DIPOLE] > MCDI_DEBYE))
@@ -224,9 +229,9 @@ static unsigned pair_state_warnings(const mcdi_spec *a, const mcdi_spec *b,
     return w;
 }
 
-mcd_status mcdi_pair_gas(const mcdi_spec *a, const mcdi_spec *b,
-                         mcd_method m, double T, double P, double *out_D,
-                         double *out_rel_err, unsigned *out_warn)
+mcd_status mcdi_pair_gas(const mcdi_spec *a, const mcdi_spec *b, mcd_method m,
+                         double T, double P, double *out_D, double *out_rel_err,
+                         unsigned *out_warn)
 {
     double coef, eps_ab, D;
     int est;

@@ -44,7 +44,6 @@ MCD_API void mcd_mixture_free(mcd_mixture *mix)
     free(mix);
 }
 
-
 /* ------------------------------------------------------------------ */
 /* temperature fit of the collision integral (batched calls)           */
 /* ------------------------------------------------------------------ */
@@ -250,14 +249,15 @@ MCD_API mcd_status mcd_mixture_new(const mcd_db *db, size_t n,
         return MCD_EINVAL;
     }
     if (n < 1 || n > MCD_MAX_SPECIES) {
-        mcdi_errbuf_set(errbuf, errlen, "number of species %zu not in 1..%d",
-                        n, MCD_MAX_SPECIES);
+        mcdi_errbuf_set(errbuf, errlen, "number of species %zu not in 1..%d", n,
+                        MCD_MAX_SPECIES);
         return MCD_EINVAL;
     }
     if (!is_gas_method(default_method)) {
         mcdi_errbuf_set(errbuf, errlen,
                         "default method %d is not a gas method (fsg, "
-                        "chapman-enskog, wilke-lee)", (int)default_method);
+                        "chapman-enskog, wilke-lee)",
+                        (int)default_method);
         return MCD_EINVAL;
     }
     mix = calloc(1, sizeof *mix);
@@ -297,9 +297,10 @@ MCD_API mcd_status mcd_mixture_new(const mcd_db *db, size_t n,
         }
         for (size_t k = 0; k < i; k++) {
             if (idx[k] == idx[i]) {
-                mcdi_errbuf_set(errbuf, errlen,
-                                "species '%s' (name %zu) is the same as name %zu",
-                                names[i], i, k);
+                mcdi_errbuf_set(
+                    errbuf, errlen,
+                    "species '%s' (name %zu) is the same as name %zu", names[i],
+                    i, k);
                 st = MCD_EINVAL;
                 goto fail;
             }
@@ -360,8 +361,8 @@ MCD_API mcd_status mcd_mixture_molar_masses(const mcd_mixture *mix,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_mixture_set_method(mcd_mixture *mix, size_t i,
-                                          size_t j, mcd_method m)
+MCD_API mcd_status mcd_mixture_set_method(mcd_mixture *mix, size_t i, size_t j,
+                                          mcd_method m)
 {
     if (mix == NULL)
         return MCD_EINVAL;
@@ -381,9 +382,8 @@ MCD_API mcd_status mcd_mixture_set_method(mcd_mixture *mix, size_t i,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_mixture_set_binary(mcd_mixture *mix, size_t i,
-                                          size_t j, double D, double T_ref,
-                                          double P_ref)
+MCD_API mcd_status mcd_mixture_set_binary(mcd_mixture *mix, size_t i, size_t j,
+                                          double D, double T_ref, double P_ref)
 {
     size_t n;
     if (mix == NULL)
@@ -453,8 +453,7 @@ static unsigned user_warnings(const double *u, double T, double P)
 
 MCD_API mcd_status mcd_mixture_binaries(const mcd_mixture *mix, double T,
                                         double P, double *out_D,
-                                        double *out_rel_err,
-                                        unsigned *out_warn)
+                                        double *out_rel_err, unsigned *out_warn)
 {
     size_t n;
     mcd_status st;

@@ -26,9 +26,9 @@ struct mcd_mixture {
     /* temperature fit of Omega_D for CE/WL pairs (fit_on == 0: none) */
     int fit_on;
     double fit_Tmin, fit_Tmax, fit_err;
-    double fit_lmid, fit_lhalf;   /* ln T = lmid + lhalf u, u in [-1, 1] */
-    unsigned char *fit_deg;       /* n*n degree per pair (0: no fit) */
-    double *fit_q;                /* n*n*(MCDI_FIT_MAXDEG+1): Chebyshev
+    double fit_lmid, fit_lhalf; /* ln T = lmid + lhalf u, u in [-1, 1] */
+    unsigned char *fit_deg;     /* n*n degree per pair (0: no fit) */
+    double *fit_q;              /* n*n*(MCDI_FIT_MAXDEG+1): Chebyshev
                                      coefficients of Omega_D / coef */
 };
 

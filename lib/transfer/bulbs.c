@@ -65,9 +65,8 @@ typedef struct bulbs_in {
 
 static mcd_status bulbs_check(mcd_workspace *ws, size_t n, const double *Dij,
                               double c, double V1, double V2, double A,
-                              double L, const double *x1_0,
-                              const double *x2_0, size_t n_times,
-                              const double *t, double *out_x1,
+                              double L, const double *x1_0, const double *x2_0,
+                              size_t n_times, const double *t, double *out_x1,
                               double *out_x2, int monotone, double *x1n,
                               double *x2n)
 {
@@ -87,15 +86,22 @@ static mcd_status bulbs_check(mcd_workspace *ws, size_t n, const double *Dij,
         return MCD_OK;
     if (t == NULL || out_x1 == NULL || out_x2 == NULL)
         return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL",
-                            t == NULL ? "t" : out_x1 == NULL ? "out_x1" : "out_x2");
+                            t == NULL        ? "t"
+                            : out_x1 == NULL ? "out_x1"
+                                             : "out_x2");
     for (k = 0; k < n_times; k++) {
         if (!mcdi_finite(t[k]))
-            return mcdi_ws_fail(ws, MCD_EINVAL, "argument t: entry %zu is not finite", k);
+            return mcdi_ws_fail(ws, MCD_EINVAL,
+                                "argument t: entry %zu is not finite", k);
         if (!(t[k] >= 0))
-            return mcdi_ws_fail(ws, MCD_EDOM, "argument t: entry %zu = %g is negative", k,
+            return mcdi_ws_fail(ws, MCD_EDOM,
+                                "argument t: entry %zu = %g is negative", k,
                                 t[k]);
         if (monotone && k > 0 && !(t[k] >= t[k - 1]))
-            return mcdi_ws_fail(ws, MCD_EDOM, "argument t: entry %zu is below entry %zu (not ascending)", k, k - 1);
+            return mcdi_ws_fail(
+                ws, MCD_EDOM,
+                "argument t: entry %zu is below entry %zu (not ascending)", k,
+                k - 1);
     }
     return MCD_OK;
 }
@@ -105,12 +111,11 @@ static mcd_status bulbs_check(mcd_workspace *ws, size_t n, const double *Dij,
 /* ------------------------------------------------------------------ */
 
 MCD_API mcd_status mcd_bulbs_linearized(mcd_workspace *ws, size_t n,
-                                        const double *Dij, double c,
-                                        double V1, double V2, double A,
-                                        double L, const double *x1_0,
-                                        const double *x2_0, size_t n_times,
-                                        const double *t, double *out_x1,
-                                        double *out_x2)
+                                        const double *Dij, double c, double V1,
+                                        double V2, double A, double L,
+                                        const double *x1_0, const double *x2_0,
+                                        size_t n_times, const double *t,
+                                        double *out_x1, double *out_x2)
 {
     double *x1n, *x2n, *xbar, *dl0, *wr, *wi, *coef, *dl;
     double *Dm, *Ac, *VR, *LU, *work;
@@ -162,8 +167,8 @@ MCD_API mcd_status mcd_bulbs_linearized(mcd_workspace *ws, size_t n,
             Ac[i + j * m] = Dm[i * m + j];
     work = mcdi_ws_geev_work(ws, &lwork);
     info = LAPACKE_dgeev_work(LAPACK_COL_MAJOR, 'N', 'V', (lapack_int)m, Ac,
-                              (lapack_int)m, wr, wi, NULL, 1, VR,
-                              (lapack_int)m, work, (lapack_int)lwork);
+                              (lapack_int)m, wr, wi, NULL, 1, VR, (lapack_int)m,
+                              work, (lapack_int)lwork);
     if (info < 0)
         return mcdi_ws_fail(ws, MCD_EINTERNAL, "dgeev: argument %d",
                             (int)-info);
@@ -180,9 +185,9 @@ MCD_API mcd_status mcd_bulbs_linearized(mcd_workspace *ws, size_t n,
         info = LAPACKE_dgetrf_work(LAPACK_COL_MAJOR, (lapack_int)m,
                                    (lapack_int)m, LU, (lapack_int)m, ipiv);
         if (info == 0)
-            info = LAPACKE_dgetrs_work(LAPACK_COL_MAJOR, 'N', (lapack_int)m,
-                                       1, LU, (lapack_int)m, ipiv, coef,
-                                       (lapack_int)m);
+            info =
+                LAPACKE_dgetrs_work(LAPACK_COL_MAJOR, 'N', (lapack_int)m, 1, LU,
+                                    (lapack_int)m, ipiv, coef, (lapack_int)m);
         if (info != 0)
             use_eig = 0;
         for (i = 0; use_eig && i < m; i++)
@@ -215,8 +220,7 @@ MCD_API mcd_status mcd_bulbs_linearized(mcd_workspace *ws, size_t n,
             for (i = 0; i < m; i++) {
                 double acc = 0.0;
                 for (j = 0; j < m; j++)
-                    acc += VR[i + j * m] * exp(-beta * wr[j] * t[k]) *
-                           coef[j];
+                    acc += VR[i + j * m] * exp(-beta * wr[j] * t[k]) * coef[j];
                 dl[i] = acc;
             }
         } else {
@@ -252,29 +256,29 @@ MCD_API mcd_status mcd_bulbs_linearized(mcd_workspace *ws, size_t n,
 /* ------------------------------------------------------------------ */
 
 /* Dormand-Prince 5(4) tableau. */
-static const double DP_C[7] = {0.0, 1.0 / 5, 3.0 / 10, 4.0 / 5, 8.0 / 9, 1.0,
-                               1.0};
+static const double DP_C[7] = {0.0,     1.0 / 5, 3.0 / 10, 4.0 / 5,
+                               8.0 / 9, 1.0,     1.0};
 static const double DP_A[7][6] = {
     {0, 0, 0, 0, 0, 0},
     {1.0 / 5, 0, 0, 0, 0, 0},
     {3.0 / 40, 9.0 / 40, 0, 0, 0, 0},
     {44.0 / 45, -56.0 / 15, 32.0 / 9, 0, 0, 0},
     {19372.0 / 6561, -25360.0 / 2187, 64448.0 / 6561, -212.0 / 729, 0, 0},
-    {9017.0 / 3168, -355.0 / 33, 46732.0 / 5247, 49.0 / 176,
-     -5103.0 / 18656, 0},
+    {9017.0 / 3168, -355.0 / 33, 46732.0 / 5247, 49.0 / 176, -5103.0 / 18656,
+     0},
     {35.0 / 384, 0, 500.0 / 1113, 125.0 / 192, -2187.0 / 6784, 11.0 / 84}};
 /* 5th-order weights = last row of DP_A (plus 0 for k7); 4th-order: */
-static const double DP_BS[7] = {5179.0 / 57600, 0, 7571.0 / 16695,
-                                393.0 / 640,    -92097.0 / 339200,
-                                187.0 / 2100,   1.0 / 40};
+static const double DP_BS[7] = {
+    5179.0 / 57600, 0,       7571.0 / 16695, 393.0 / 640, -92097.0 / 339200,
+    187.0 / 2100,   1.0 / 40};
 
 typedef struct integ {
     mcd_workspace *ws;
     size_t n;
     const double *Dij;
-    double c, L, rate1;   /* rate1 = A / (c V1) */
+    double c, L, rate1; /* rate1 = A / (c V1) */
     double V1, V2;
-    const double *tot;    /* V1 x1 + V2 x2 per species */
+    const double *tot; /* V1 x1 + V2 x2 per species */
     double *x1c, *x2c, *N;
 } integ;
 
@@ -298,8 +302,8 @@ static mcd_status rhs(integ *g, const double *y, double *out)
         g->x2c[i] /= s2;
     }
     st = mcdi_film_core(g->ws, n, g->Dij, g->c, g->L, g->x1c, g->x2c,
-                        MCD_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, g->N,
-                        NULL, NULL);
+                        MCD_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, g->N, NULL,
+                        NULL);
     if (st != MCD_OK)
         return st;
     for (i = 0; i < n; i++)
@@ -404,12 +408,12 @@ static mcd_status integrate(integ *g, const double *x1n, size_t n_times,
 }
 
 MCD_API mcd_status mcd_bulbs_integrate(mcd_workspace *ws, size_t n,
-                                       const double *Dij, double c,
-                                       double V1, double V2, double A,
-                                       double L, const double *x1_0,
-                                       const double *x2_0, size_t n_times,
-                                       const double *t, double rel_tol,
-                                       double *out_x1, double *out_x2)
+                                       const double *Dij, double c, double V1,
+                                       double V2, double A, double L,
+                                       const double *x1_0, const double *x2_0,
+                                       size_t n_times, const double *t,
+                                       double rel_tol, double *out_x1,
+                                       double *out_x2)
 {
     double *x1n, *x2n, *tot, Dmax = 0.0, h0;
     mcdi_tf tf;
@@ -430,7 +434,8 @@ MCD_API mcd_status mcd_bulbs_integrate(mcd_workspace *ws, size_t n,
     if (!mcdi_finite(rel_tol))
         return mcdi_ws_fail(ws, MCD_EINVAL, "argument rel_tol: not finite");
     if (!(rel_tol >= 1e-12 && rel_tol <= 1e-2))
-        return mcdi_ws_fail(ws, MCD_EDOM, "argument rel_tol: %g is not in [1e-12, 1e-2]",
+        return mcdi_ws_fail(ws, MCD_EDOM,
+                            "argument rel_tol: %g is not in [1e-12, 1e-2]",
                             rel_tol);
     if (n_times == 0)
         return MCD_OK;

@@ -210,8 +210,8 @@ static mcd_status solve_rowmajor(size_t m, double *M, lapack_int *ipiv,
                                  double *b)
 {
     lapack_int info;
-    info = LAPACKE_dgetrf_work(LAPACK_COL_MAJOR, (lapack_int)m,
-                               (lapack_int)m, M, (lapack_int)m, ipiv);
+    info = LAPACKE_dgetrf_work(LAPACK_COL_MAJOR, (lapack_int)m, (lapack_int)m,
+                               M, (lapack_int)m, ipiv);
     if (info > 0)
         return MCD_ESING;
     if (info < 0)
@@ -229,7 +229,7 @@ static mcd_status solve_rowmajor(size_t m, double *M, lapack_int *ipiv,
 
 typedef struct film {
     mcd_workspace *ws;
-    size_t n, m, d;            /* species, reduced size, dependent index */
+    size_t n, m, d; /* species, reduced size, dependent index */
     const double *Dij;
     double c, L;
     const double *x0, *xL, *xe; /* ends and the bootstrap end */
@@ -238,11 +238,11 @@ typedef struct film {
     size_t species;
     const double *values;
     mcd_film_method method;
-    mcdi_tf tf;                 /* the transfer scratch (tf_layout.h) */
-    double *mat[4];             /* tf.mat0..3; mat[3] = B_e */
-    double *delta;              /* reduced x0 - xL (m) */
-    double *rhs;                /* right-hand side (m) */
-    double *J;                  /* diffusion fluxes at the end (n) */
+    mcdi_tf tf;     /* the transfer scratch (tf_layout.h) */
+    double *mat[4]; /* tf.mat0..3; mat[3] = B_e */
+    double *delta;  /* reduced x0 - xL (m) */
+    double *rhs;    /* right-hand side (m) */
+    double *J;      /* diffusion fluxes at the end (n) */
     lapack_int *ipiv;
 } film;
 
@@ -250,8 +250,7 @@ static size_t red(const film *f, size_t k) { return k < f->d ? k : k + 1; }
 
 /* B[v] (m x m) times `scale`: the Maxwell-Stefan matrix structure
  * B_ii = v_i/Đ_id + sum_{k != i} v_k/Đ_ik, B_ij = -v_i (1/Đ_ij - 1/Đ_id). */
-static void build_B(const film *f, const double *v, double scale,
-                    double *B)
+static void build_B(const film *f, const double *v, double scale, double *B)
 {
     size_t a, b, k, n = f->n, m = f->m, d = f->d;
     for (a = 0; a < m; a++) {
@@ -263,10 +262,10 @@ static void build_B(const film *f, const double *v, double scale,
         for (b = 0; b < m; b++) {
             size_t j = red(f, b);
             B[a * m + b] =
-                (a == b) ? scale * diag
-                         : -scale * v[i] *
-                               (1.0 / f->Dij[i * n + j] -
-                                1.0 / f->Dij[i * n + d]);
+                (a == b)
+                    ? scale * diag
+                    : -scale * v[i] *
+                          (1.0 / f->Dij[i * n + j] - 1.0 / f->Dij[i * n + d]);
         }
     }
 }
@@ -324,15 +323,9 @@ static mcd_status film_map(film *f, const double *N, double *N_out)
     f->J[f->d] = -sJ;
 
     switch (f->kind) {
-    case MCD_BOOT_TOTAL:
-        Nt = f->values[0];
-        break;
-    case MCD_BOOT_EQUIMOLAR:
-        Nt = 0.0;
-        break;
-    case MCD_BOOT_STAGNANT:
-        Nt = -f->J[f->species] / f->xe[f->species];
-        break;
+    case MCD_BOOT_TOTAL: Nt = f->values[0]; break;
+    case MCD_BOOT_EQUIMOLAR: Nt = 0.0; break;
+    case MCD_BOOT_STAGNANT: Nt = -f->J[f->species] / f->xe[f->species]; break;
     default: { /* WEIGHTS */
         double num = 0.0, den = 0.0;
         for (i = 0; i < n; i++) {
@@ -495,10 +488,10 @@ static mcd_status film_iterate(film *f, double *out_N, size_t *out_it,
 
 mcd_status mcdi_film_core(mcd_workspace *ws, size_t n, const double *Dij,
                           double c, double L, const double *x0,
-                          const double *xL, mcd_bootstrap kind,
-                          size_t species, const double *values,
-                          mcd_film_method method, double *out_N,
-                          size_t *out_iterations, double *out_residual)
+                          const double *xL, mcd_bootstrap kind, size_t species,
+                          const double *values, mcd_film_method method,
+                          double *out_N, size_t *out_iterations,
+                          double *out_residual)
 {
     film f;
     size_t i, a;
@@ -543,10 +536,11 @@ mcd_status mcdi_film_core(mcd_workspace *ws, size_t n, const double *Dij,
     /* bootstrap end */
     if (kind == MCD_BOOT_STAGNANT) {
         if (!(x0[species] > 0) || !(xL[species] > 0))
-            return mcdi_ws_fail(ws, MCD_EDOM,
-                                "argument species: stagnant species %zu must be present at "
-                                "both ends (x0 = %g, xL = %g)",
-                                species, x0[species], xL[species]);
+            return mcdi_ws_fail(
+                ws, MCD_EDOM,
+                "argument species: stagnant species %zu must be present at "
+                "both ends (x0 = %g, xL = %g)",
+                species, x0[species], xL[species]);
     } else if (kind == MCD_BOOT_WEIGHTS) {
         double d0 = 0.0, dL = 0.0, vmax = 0.0;
         for (i = 0; i < n; i++) {
@@ -636,8 +630,7 @@ static mcd_status film_iterate(film *f, double *out_N, size_t *out_it,
                                 "(last change %g)",
                                 it, r);
         if (st == MCD_EDOM)
-            return mcdi_ws_fail(ws, MCD_EDOM,
-                                "film: rate factor out of range");
+            return mcdi_ws_fail(ws, MCD_EDOM, "film: rate factor out of range");
         if (st != MCD_OK)
             return mcdi_ws_fail(ws, st, "film: singular matrix");
         memcpy(Ngood, N, n * sizeof(double));
@@ -735,9 +728,8 @@ MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n,
                                   const double *Dij, double c, double L,
                                   const double *x0, const double *xL,
                                   mcd_bootstrap kind, size_t species,
-                                  const double *values,
-                                  mcd_film_method method, double *out_N,
-                                  size_t *out_iterations,
+                                  const double *values, mcd_film_method method,
+                                  double *out_N, size_t *out_iterations,
                                   double *out_residual)
 {
     double *x0n, *xLn, *Nres;
@@ -767,12 +759,13 @@ MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n,
         return st;
 
     switch (kind) {
-    case MCD_BOOT_EQUIMOLAR:
-        break;
+    case MCD_BOOT_EQUIMOLAR: break;
     case MCD_BOOT_STAGNANT:
         if (species >= n)
-            return mcdi_ws_fail(ws, MCD_EINVAL,
-                                "argument species: %zu is not a species index (0..%zu)", species, n - 1);
+            return mcdi_ws_fail(
+                ws, MCD_EINVAL,
+                "argument species: %zu is not a species index (0..%zu)",
+                species, n - 1);
         break;
     case MCD_BOOT_TOTAL:
         if (values == NULL || !mcdi_finite(values[0]))
@@ -788,16 +781,19 @@ MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n,
         for (i = 0; i < n; i++) {
             if (!mcdi_finite(values[i]))
                 return mcdi_ws_fail(ws, MCD_EINVAL,
-                                    "argument values: entry %zu is not finite", i);
+                                    "argument values: entry %zu is not finite",
+                                    i);
             sum += values[i];
         }
         if (kind == MCD_BOOT_RATIOS) {
             if (species >= n)
-                return mcdi_ws_fail(ws, MCD_EINVAL,
-                                    "argument species: %zu is not a species index (0..%zu)", species, n - 1);
+                return mcdi_ws_fail(
+                    ws, MCD_EINVAL,
+                    "argument species: %zu is not a species index (0..%zu)",
+                    species, n - 1);
             if (!(fabs(sum - 1.0) <= MCD_SUM_TOL))
-                return mcdi_ws_fail(ws, MCD_EDOM,
-                                    "RATIOS: z sums to %g, not 1", sum);
+                return mcdi_ws_fail(ws, MCD_EDOM, "RATIOS: z sums to %g, not 1",
+                                    sum);
             if (values[species] == 0.0 && x0n[species] == 0.0)
                 return mcdi_ws_fail(ws, MCD_EDOM,
                                     "RATIOS: species %zu absent and not "
@@ -849,16 +845,20 @@ MCD_API mcd_status mcd_film_profile(mcd_workspace *ws, size_t n,
         return mcdi_ws_fail(ws, MCD_EINVAL, "argument N: NULL");
     for (i = 0; i < n; i++)
         if (!mcdi_finite(N[i]))
-            return mcdi_ws_fail(ws, MCD_EINVAL, "argument N: entry %zu is not finite", i);
+            return mcdi_ws_fail(ws, MCD_EINVAL,
+                                "argument N: entry %zu is not finite", i);
     if (n_points == 0)
         return MCD_OK;
     if (z == NULL || out_x == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL", z == NULL ? "z" : "out_x");
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL",
+                            z == NULL ? "z" : "out_x");
     for (p = 0; p < n_points; p++) {
         if (!mcdi_finite(z[p]))
-            return mcdi_ws_fail(ws, MCD_EINVAL, "argument z: entry %zu is not finite", p);
+            return mcdi_ws_fail(ws, MCD_EINVAL,
+                                "argument z: entry %zu is not finite", p);
         if (!(z[p] >= 0 && z[p] <= L))
-            return mcdi_ws_fail(ws, MCD_EDOM, "argument z: entry %zu = %g is not in [0, L]",
+            return mcdi_ws_fail(ws, MCD_EDOM,
+                                "argument z: entry %zu = %g is not in [0, L]",
                                 p, z[p]);
     }
     /* rate factor ||(L/c) A||_1 bounded: exp stays finite below */

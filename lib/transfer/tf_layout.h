@@ -17,6 +17,7 @@
 #include "base/layout.h"
 #include "base/workspace.h"
 
+/* clang-format off */
 #define MCDI_TF_REGIONS(R)                                                  \
     /* matrices: film (mat3 = B_e), profile and expm slots, or the     */  \
     /* linearized two bulbs (Dm, Ac, VR, LU)                            */  \
@@ -38,6 +39,7 @@
     /* clipped bulb compositions                                       */  \
     R(b_k0, n) R(b_k1, n) R(b_k2, n) R(b_k3, n) R(b_k4, n) R(b_k5, n)       \
     R(b_k6, n) R(b_ys, n) R(b_y, n) R(b_yn, n) R(b_x1c, n) R(b_x2c, n)
+/* clang-format on */
 
 /* mcdi_tf, mcdi_tf_doubles(cap, 0, 1), mcdi_tf_carve(mem, cap, 0, 1, &tf) */
 MCDI_DEFINE_LAYOUT(mcdi_tf, MCDI_TF_REGIONS, mcdi_tf_doubles, mcdi_tf_carve)
