@@ -724,6 +724,35 @@ mcd_status mcdi_tf_check_ws_n(mcd_workspace *ws, size_t n)
     return mcdi_check_species(ws, n, 2, 1, "n");
 }
 
+/* Start of mcd_film_solve and mcd_film_profile, in their order of checks:
+ * workspace and n, the output (when named), the method. */
+static mcd_status film_check_head(mcd_workspace *ws, size_t n,
+                                  const double *out, const char *out_name,
+                                  mcd_film_method method)
+{
+    mcd_status st = mcdi_tf_check_ws_n(ws, n);
+    if (st != MCD_OK)
+        return st;
+    if (out_name != NULL && out == NULL)
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL", out_name);
+    if (method != MCD_FILM_EXACT && method != MCD_FILM_LINEARIZED)
+        return mcdi_ws_fail(ws, MCD_EINVAL, "argument method: unknown value %d",
+                            (int)method);
+    return MCD_OK;
+}
+
+/* The film's state: Dij, c > 0, L > 0. */
+static mcd_status film_check_state(mcd_workspace *ws, size_t n,
+                                   const double *Dij, double c, double L)
+{
+    mcd_status st;
+    if ((st = mcdi_check_dij(ws, n, Dij)) != MCD_OK ||
+        (st = mcdi_check_positive(ws, c, "c")) != MCD_OK ||
+        (st = mcdi_check_positive(ws, L, "L")) != MCD_OK)
+        return st;
+    return MCD_OK;
+}
+
 MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n,
                                   const double *Dij, double c, double L,
                                   const double *x0, const double *xL,
@@ -738,17 +767,8 @@ MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n,
     double res = 0.0;
     mcd_status st;
 
-    st = mcdi_tf_check_ws_n(ws, n);
-    if (st != MCD_OK)
-        return st;
-    if (out_N == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument out_N: NULL");
-    if (method != MCD_FILM_EXACT && method != MCD_FILM_LINEARIZED)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument method: unknown value %d",
-                            (int)method);
-    if ((st = mcdi_check_dij(ws, n, Dij)) != MCD_OK ||
-        (st = mcdi_check_positive(ws, c, "c")) != MCD_OK ||
-        (st = mcdi_check_positive(ws, L, "L")) != MCD_OK)
+    if ((st = film_check_head(ws, n, out_N, "out_N", method)) != MCD_OK ||
+        (st = film_check_state(ws, n, Dij, c, L)) != MCD_OK)
         return st;
     mcdi_tf_scratch(ws, &tf);
     x0n = tf.x0n;
@@ -830,12 +850,8 @@ MCD_API mcd_status mcd_film_profile(mcd_workspace *ws, size_t n,
     size_t i, j, p;
     mcd_status st;
 
-    st = mcdi_tf_check_ws_n(ws, n);
-    if (st != MCD_OK)
-        return st;
-    if ((st = mcdi_check_dij(ws, n, Dij)) != MCD_OK ||
-        (st = mcdi_check_positive(ws, c, "c")) != MCD_OK ||
-        (st = mcdi_check_positive(ws, L, "L")) != MCD_OK)
+    if ((st = film_check_head(ws, n, NULL, NULL, MCD_FILM_EXACT)) != MCD_OK ||
+        (st = film_check_state(ws, n, Dij, c, L)) != MCD_OK)
         return st;
     mcdi_tf_scratch(ws, &tf);
     x0n = tf.x0n;
