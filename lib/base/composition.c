@@ -171,19 +171,7 @@ void mcdi_comp_grad_w_to_x(size_t n, size_t n_dim, const double *M,
                            const double *w, const double *grad_w,
                            double *out_grad_x)
 {
-    double T = 0.0;
-    size_t i, d;
-    for (i = 0; i < n; i++)
-        T += w[i] / M[i];
-    for (d = 0; d < n_dim; d++) {
-        double dT = 0.0, r;
-        for (i = 0; i < n; i++)
-            dT += grad_w[i * n_dim + d] / M[i];
-        r = dT / T;
-        for (i = 0; i < n; i++)
-            out_grad_x[i * n_dim + d] =
-                (grad_w[i * n_dim + d] - w[i] * r) / (M[i] * T);
-    }
+    mcdi_grad_w_to_x_lanes(n, 1, n_dim, M, w, grad_w, out_grad_x);
 }
 
 /* ------------------------------------------------------------------ */

@@ -13,6 +13,7 @@
 
 #include <stddef.h>
 #include "mcdiff.h"
+#include "base/lanes.h"
 
 /* ---- validators (write nothing on error) ---------------------------- */
 
@@ -60,7 +61,40 @@ void mcdi_comp_grad_x_to_w(size_t n, size_t n_dim, const double *M,
 
 /* Exact differential of the map w -> x:
  *   dx_i = (1/(M_i S))(dw_i - w_i dS / S),  S = sum w_k/M_k,
- *   dS = sum dw_k / M_k. */
+ *   dS = sum dw_k / M_k,
+ * on rows of L lanes (base/lanes.h): mass-fraction gradients g in,
+ * mole-fraction gradients out (out may be g: each entry is read before
+ * it is written). The one implementation: the single-state calls run it
+ * with L = 1 (mcdi_comp_grad_w_to_x), the batched kernel with its lanes. */
+KINLINE void mcdi_grad_w_to_x_lanes(const size_t n, const size_t L,
+                                    const size_t nd, const double *M,
+                                    const double *restrict w, const double *g,
+                                    double *out)
+{
+    double S[MCDI_LANES], r[MCDI_LANES];
+    size_t i, dd, l;
+    for_lanes (l)
+        S[l] = 0.0;
+    for (i = 0; i < n; i++)
+        for_lanes (l)
+            S[l] += w[i * L + l] / M[i];
+    for (dd = 0; dd < nd; dd++) {
+        for_lanes (l)
+            r[l] = 0.0;
+        for (i = 0; i < n; i++)
+            for_lanes (l)
+                r[l] += g[(i * nd + dd) * L + l] / M[i];
+        for_lanes (l)
+            r[l] = r[l] / S[l];
+        for (i = 0; i < n; i++)
+            for_lanes (l)
+                out[(i * nd + dd) * L + l] =
+                    (g[(i * nd + dd) * L + l] - w[i * L + l] * r[l]) /
+                    (M[i] * S[l]);
+    }
+}
+
+/* The same for one state (L = 1). */
 void mcdi_comp_grad_w_to_x(size_t n, size_t n_dim, const double *M,
                            const double *w, const double *grad_w,
                            double *out_grad_x);

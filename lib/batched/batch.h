@@ -13,13 +13,13 @@
 
 #include <stddef.h>
 #include "mcdiff.h"
+#include "base/lanes.h" /* MCDI_LANES */
 
-/* Most lanes per block of any kernel (scratch is sized for it). The lanes
- * actually used depend on the instruction set chosen at run time
- * (mcdi_batch_lanes): 8 with AVX-512, 4 with AVX2, 2 otherwise, i.e. one
- * vector register per lane vector. Above MCDI_LANES_NMAX species one cell
- * at a time (lanes = 1), through the same stages. */
-#define MCDI_LANES 8
+/* Lanes per block: at most MCDI_LANES (base/lanes.h; scratch is sized for
+ * it). The lanes actually used depend on the instruction set chosen at
+ * run time (mcdi_batch_lanes): 8 with AVX-512, 4 with AVX2, 2 otherwise,
+ * i.e. one vector register per lane vector. Above MCDI_LANES_NMAX species
+ * one cell at a time (lanes = 1), through the same stages. */
 #define MCDI_LANES_NMAX 128
 
 /* One batched call, as the kernel sees it (inputs SoA with stride K). */

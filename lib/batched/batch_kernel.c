@@ -67,6 +67,8 @@
 #include "batched/batch.h"
 #include "batched/batch_layout.h"
 #include "flux/flux_core.h"
+#include "flux/forces.h"
+#include "base/composition.h"
 #include "batched/kernel_lanes.h"
 
 /* Neufeld-Janzen-Aziz collision integral, as binary.c (exact path). */
@@ -80,7 +82,8 @@ static double omega_exact(double Ts) { return mcdi_omega_d(Ts); }
  * (batch_layout.h) and is inlined into body(), which is instantiated for
  * constant n, L and nd; a stage that checks inputs returns non-zero when
  * some lane is out of range (the cell is then named by report_bad_cell).
- * Adding a driving force means changing stage_forces (and its loader). */
+ * A driving force is added once, in flux/forces.h (shared with the
+ * single-state call), plus its loader in stage_load_forces. */
 #include "batched/kernel_stages.h" /* shared by every model */
 #include "batched/kernel_ldl.h"    /* exact model */
 #include "batched/kernel_iter.h"   /* iterative model */

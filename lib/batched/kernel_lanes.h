@@ -11,13 +11,8 @@
 #include <string.h>
 
 #include "mcdiff.h"
+#include "base/lanes.h"
 #include "batched/batch.h"
-
-#if defined(__GNUC__) && !defined(__clang__)
-#define KINLINE static inline __attribute__((always_inline))
-#else
-#define KINLINE static inline
-#endif
 
 /* batch_kernel.c is compiled once per instruction set (lib/meson.build sets
  * MCDI_KISA to 4, 3 or 1 with the matching -march); the lanes of a block
@@ -36,7 +31,7 @@
 #define MCDI_VLANES 2
 #endif
 #if MCDI_VLANES > MCDI_LANES
-#error "MCDI_LANES (batch.h) must be the largest lane count"
+#error "MCDI_LANES (base/lanes.h) must be the largest lane count"
 #endif
 
 #define RGAS MCD_GAS_CONSTANT
@@ -48,22 +43,6 @@
 #include <immintrin.h>
 #else
 #define MCDI_CAN_STREAM 0
-#endif
-
-/* A loop over the lanes of a block: vectorised (OpenMP SIMD pragma, enabled
- * by -fopenmp-simd without the OpenMP runtime; ignored elsewhere). */
-#if defined(_OPENMP) || defined(MCDI_OMP_SIMD)
-#define for_lanes(l) _Pragma("omp simd") for (l = 0; l < L; l++)
-#else
-#define for_lanes(l) for (l = 0; l < L; l++)
-#endif
-/* The same with an OR-reduction of the int flag `bad` (input checks): the
- * reduction clause keeps these loops vectorised. */
-#if defined(_OPENMP) || defined(MCDI_OMP_SIMD)
-#define for_lanes_bad(l)                                                       \
-    _Pragma("omp simd reduction(|:bad)") for (l = 0; l < L; l++)
-#else
-#define for_lanes_bad(l) for (l = 0; l < L; l++)
 #endif
 
 /* Rows factored together above KREG species (ldl_solve_v). */

@@ -7,29 +7,6 @@
 #ifndef MCD_KERNEL_STAGES_H
 #define MCD_KERNEL_STAGES_H
 
-/* v_i -= y_i sum_k w_k v_k in each direction, w NULL meaning weights 1:
- * the zero-sum clean-up (w = 1, y = x for molar fluxes, so trace species
- * stay exact) and the projection onto s^T v = 0 (w = y = s). The sum lives
- * in a local array, i.e. in registers. */
-KINLINE void remove_along(double *restrict v, const double *w,
-                          const double *restrict y, const size_t n,
-                          const size_t L, const size_t nd)
-{
-    double p[MCDI_LANES];
-    size_t i, dd, l;
-    for (dd = 0; dd < nd; dd++) {
-        for_lanes (l)
-            p[l] = 0.0;
-        for (i = 0; i < n; i++)
-            for_lanes (l)
-                p[l] +=
-                    (w != NULL ? w[i * L + l] : 1.0) * v[(i * nd + dd) * L + l];
-        for (i = 0; i < n; i++)
-            for_lanes (l)
-                v[(i * nd + dd) * L + l] -= y[i * L + l] * p[l];
-    }
-}
-
 /* Per-cell scalars: c, or T and P (and c = P / (R T)) of a mixture call. */
 KINLINE int stage_load_scalars(const mcdi_bjob *jb, const mcdi_kblock *b,
                                size_t k0, size_t nv, const size_t L)
@@ -139,46 +116,16 @@ KINLINE int stage_load_forces(const mcdi_bjob *jb, const mcdi_kblock *b,
     return bad;
 }
 
-/* Driving forces d_i = grad x_i + (x_i - w_i) grad ln P, projected onto
- * sum_i d_i = 0 with weights x (the gradients of mass fractions are
- * turned into those of mole fractions first). */
+/* Driving forces (flux/forces.h, shared with the single-state call): the
+ * gradients of mass fractions turned into those of mole fractions first;
+ * grad ln P was loaded into v. */
 KINLINE void stage_forces(const mcdi_bjob *jb, const mcdi_kblock *b,
                           const size_t n, const size_t L, const size_t nd)
 {
-    const double *M = jb->M;
-    double *restrict d = b->d, *restrict v = b->v;
-    const double *restrict x = b->x, *restrict w = b->w;
-    size_t i, dd, l;
-    if (jb->comp_basis == MCD_BASIS_MASS) {
-        /* dx_i = (dw_i - w_i dT/T) / (M_i T), T = sum w_k / M_k */
-        double Tw[MCDI_LANES], rr[MCDI_LANES];
-        for_lanes (l)
-            Tw[l] = 0.0;
-        for (i = 0; i < n; i++)
-            for_lanes (l)
-                Tw[l] += w[i * L + l] / M[i];
-        for (dd = 0; dd < nd; dd++) {
-            for_lanes (l)
-                rr[l] = 0.0;
-            for (i = 0; i < n; i++)
-                for_lanes (l)
-                    rr[l] += d[(i * nd + dd) * L + l] / M[i];
-            for_lanes (l)
-                rr[l] = rr[l] / Tw[l];
-            for (i = 0; i < n; i++)
-                for_lanes (l)
-                    d[(i * nd + dd) * L + l] =
-                        (d[(i * nd + dd) * L + l] - w[i * L + l] * rr[l]) /
-                        (M[i] * Tw[l]);
-        }
-    }
-    if (jb->glnP != NULL)
-        for (i = 0; i < n; i++)
-            for (dd = 0; dd < nd; dd++)
-                for_lanes (l)
-                    d[(i * nd + dd) * L + l] +=
-                        (x[i * L + l] - w[i * L + l]) * v[dd * L + l];
-    remove_along(d, NULL, x, n, L, nd); /* onto sum_i d_i = 0, weights x */
+    if (jb->comp_basis == MCD_BASIS_MASS)
+        mcdi_grad_w_to_x_lanes(n, L, nd, jb->M, b->w, b->d, b->d);
+    mcdi_driving_forces(n, L, nd, b->x, b->w, b->d, NULL,
+                        jb->glnP != NULL ? b->v : NULL, b->d);
 }
 
 /* Inverse binary diffusivities (packed lower, i > j) from the caller's

@@ -70,6 +70,7 @@
 #include "base/composition.h"
 #include "flux/flux_core.h"
 #include "flux/core_layout.h"
+#include "flux/forces.h"
 #include "base/isa.h"
 
 /* ------------------------------------------------------------------ */
@@ -268,51 +269,6 @@ static mcd_status check_state(mcd_workspace *ws, mcd_model model, size_t n,
     return MCD_OK;
 }
 
-/* Driving forces d_i = sum_j Gamma_ij grad x_j + (x_i - w_i) grad ln P
- * (Gamma = I and no pressure term when NULL), projected onto
- * sum_i d_i = 0 with weights x (see the top comment). */
-static void driving_forces(size_t n, size_t nd, const double *x,
-                           const double *w, const double *gx,
-                           const double *Gamma, const double *grad_lnP,
-                           double *d)
-{
-    size_t i, j, dd;
-    if (Gamma == NULL && grad_lnP == NULL) {
-        /* d = gx projected: the same sums and products as the general
-         * route below (copy, then projection), in one pass */
-        for (dd = 0; dd < nd; dd++) {
-            double s = 0.0;
-            for (i = 0; i < n; i++)
-                s += gx[i * nd + dd];
-            for (i = 0; i < n; i++)
-                d[i * nd + dd] = gx[i * nd + dd] - x[i] * s;
-        }
-        return;
-    }
-    if (Gamma != NULL) {
-        for (i = 0; i < n; i++)
-            for (dd = 0; dd < nd; dd++) {
-                double s = 0.0;
-                for (j = 0; j < n; j++)
-                    s += Gamma[i * n + j] * gx[j * nd + dd];
-                d[i * nd + dd] = s;
-            }
-    } else {
-        memcpy(d, gx, n * nd * sizeof(double));
-    }
-    if (grad_lnP != NULL)
-        for (i = 0; i < n; i++)
-            for (dd = 0; dd < nd; dd++)
-                d[i * nd + dd] += (x[i] - w[i]) * grad_lnP[dd];
-    for (dd = 0; dd < nd; dd++) {
-        double s = 0.0;
-        for (i = 0; i < n; i++)
-            s += d[i * nd + dd];
-        for (i = 0; i < n; i++)
-            d[i * nd + dd] -= x[i] * s;
-    }
-}
-
 /* Mass fluxes j_i = M_i J_i - w_i sum_k M_k J_k in place, then the
  * round-off residual of sum_i j_i removed with weights w. */
 static void to_mass_basis(size_t n, size_t nd, const double *M, const double *w,
@@ -408,7 +364,7 @@ MCD_API mcd_status mcd_flux_compute(mcd_workspace *ws, mcd_model model,
         mcdi_comp_grad_w_to_x(n, nd, M, w, grad_comp, v.gx);
         gx = v.gx;
     }
-    driving_forces(n, nd, x, w, gx, Gamma, grad_lnP, d);
+    mcdi_driving_forces(n, 1, nd, x, w, gx, Gamma, grad_lnP, d);
     if (model == MCD_MODEL_MAXWELL_STEFAN) {
         if ((st = mcdi_ms_fluxes(ws, n, nd, x, d, Dij, c, J)) != MCD_OK)
             return st;

@@ -1,0 +1,65 @@
+/* lanes.h - per-species rows of L lanes, the layout every flux stage
+ * works on: quantity q of species i in lane l at q[i * L + l], and of
+ * species i in direction dd at q[(i * nd + dd) * L + l]. The batched
+ * kernel runs L cells at once (L = the vector width, or 1 above
+ * MCDI_LANES_NMAX species); the single-state call is L = 1, for which
+ * the layout is the plain row-major one. Never installed. */
+#ifndef MCD_LANES_H
+#define MCD_LANES_H
+
+#include <stddef.h>
+
+/* Always inlined where the compiler allows: the stages are instantiated
+ * for constant n, L and nd by their callers. */
+#if defined(__GNUC__) && !defined(__clang__)
+#define KINLINE static inline __attribute__((always_inline))
+#else
+#define KINLINE static inline
+#endif
+
+/* Most lanes of any kernel (8: one AVX-512 register of doubles); local
+ * lane accumulators are arrays of this many. */
+#define MCDI_LANES 8
+
+/* A loop over the L lanes of a row: vectorised (OpenMP SIMD pragma,
+ * enabled by -fopenmp-simd without the OpenMP runtime; ignored
+ * elsewhere). */
+#if defined(_OPENMP) || defined(MCDI_OMP_SIMD)
+#define for_lanes(l) _Pragma("omp simd") for (l = 0; l < L; l++)
+#else
+#define for_lanes(l) for (l = 0; l < L; l++)
+#endif
+/* The same with an OR-reduction of the int flag `bad` (input checks): the
+ * reduction clause keeps these loops vectorised. */
+#if defined(_OPENMP) || defined(MCDI_OMP_SIMD)
+#define for_lanes_bad(l)                                                       \
+    _Pragma("omp simd reduction(|:bad)") for (l = 0; l < L; l++)
+#else
+#define for_lanes_bad(l) for (l = 0; l < L; l++)
+#endif
+
+/* v_i -= y_i sum_k w_k v_k in each direction, w NULL meaning weights 1:
+ * the zero-sum clean-up (w = 1, y = x for molar fluxes, so trace species
+ * stay exact), the projection of driving forces onto sum_i d_i = 0
+ * (w = 1, y = x) and onto s^T v = 0 (w = y = s). The sum lives in a local
+ * array, i.e. in registers. */
+KINLINE void remove_along(double *restrict v, const double *w,
+                          const double *restrict y, const size_t n,
+                          const size_t L, const size_t nd)
+{
+    double p[MCDI_LANES];
+    size_t i, dd, l;
+    for (dd = 0; dd < nd; dd++) {
+        for_lanes (l)
+            p[l] = 0.0;
+        for (i = 0; i < n; i++)
+            for_lanes (l)
+                p[l] +=
+                    (w != NULL ? w[i * L + l] : 1.0) * v[(i * nd + dd) * L + l];
+        for (i = 0; i < n; i++)
+            for_lanes (l)
+                v[(i * nd + dd) * L + l] -= y[i * L + l] * p[l];
+    }
+}
+
+#endif
