@@ -129,8 +129,7 @@ double mcdi_comp_x_to_w(size_t n, const double *M, const double *x,
         s += x[i] * M[i];
         sx += x[i];
     }
-    for (i = 0; i < n; i++)
-        out_w[i] = x[i] * M[i] / s;
+    mcdi_x_to_w_lanes(n, 1, M, x, out_w);
     return s / sx;
 }
 
@@ -143,8 +142,7 @@ double mcdi_comp_w_to_x(size_t n, const double *M, const double *w,
         s += w[i] / M[i];
         sw += w[i];
     }
-    for (i = 0; i < n; i++)
-        out_x[i] = (w[i] / M[i]) / s;
+    mcdi_w_to_x_lanes(n, 1, M, w, out_x);
     return sw / s;
 }
 

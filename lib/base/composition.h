@@ -59,6 +59,40 @@ void mcdi_comp_grad_x_to_w(size_t n, size_t n_dim, const double *M,
                            const double *x, const double *grad_x,
                            double *out_grad_w);
 
+/* x_i = (w_i / M_i) / sum_k w_k / M_k and w_i = x_i M_i / sum_k x_k M_k
+ * from normalised fractions, on rows of L lanes (base/lanes.h): the one
+ * implementation, run with L = 1 by mcdi_comp_w_to_x / _x_to_w and with
+ * its lanes by the batched kernel. */
+KINLINE void mcdi_w_to_x_lanes(const size_t n, const size_t L, const double *M,
+                               const double *restrict w, double *restrict x)
+{
+    double s[MCDI_LANES];
+    size_t i, l;
+    for_lanes (l)
+        s[l] = 0.0;
+    for (i = 0; i < n; i++)
+        for_lanes (l)
+            s[l] += w[i * L + l] / M[i];
+    for (i = 0; i < n; i++)
+        for_lanes (l)
+            x[i * L + l] = (w[i * L + l] / M[i]) / s[l];
+}
+
+KINLINE void mcdi_x_to_w_lanes(const size_t n, const size_t L, const double *M,
+                               const double *restrict x, double *restrict w)
+{
+    double s[MCDI_LANES];
+    size_t i, l;
+    for_lanes (l)
+        s[l] = 0.0;
+    for (i = 0; i < n; i++)
+        for_lanes (l)
+            s[l] += x[i * L + l] * M[i];
+    for (i = 0; i < n; i++)
+        for_lanes (l)
+            w[i * L + l] = x[i * L + l] * M[i] / s[l];
+}
+
 /* Exact differential of the map w -> x:
  *   dx_i = (1/(M_i S))(dw_i - w_i dS / S),  S = sum w_k/M_k,
  *   dS = sum dw_k / M_k,

@@ -67,7 +67,7 @@
 #include "batched/batch.h"
 #include "batched/batch_layout.h"
 #include "flux/flux_core.h"
-#include "flux/forces.h"
+#include "flux/stages.h"
 #include "base/composition.h"
 #include "batched/kernel_lanes.h"
 
@@ -82,7 +82,7 @@ static double omega_exact(double Ts) { return mcdi_omega_d(Ts); }
  * (batch_layout.h) and is inlined into body(), which is instantiated for
  * constant n, L and nd; a stage that checks inputs returns non-zero when
  * some lane is out of range (the cell is then named by report_bad_cell).
- * A driving force is added once, in flux/forces.h (shared with the
+ * A driving force is added once, in flux/stages.h (shared with the
  * single-state call), plus its loader in stage_load_forces. */
 #include "batched/kernel_stages.h" /* shared by every model */
 #include "batched/kernel_ldl.h"    /* exact model */

@@ -64,32 +64,17 @@ KINLINE void stage_fractions(const mcdi_bjob *jb, const mcdi_kblock *b,
 {
     const int mass_in = jb->comp_basis == MCD_BASIS_MASS;
     const double *M = jb->M;
-    double *restrict x = b->x, *restrict w = b->w, *restrict sum = b->sum;
-    double *restrict y = mass_in ? w : x;
+    /* not restrict: y is x or w, which the conversion reads */
+    double *x = b->x, *w = b->w, *y = mass_in ? w : x;
+    const double *restrict sum = b->sum;
     size_t i, l;
     for (i = 0; i < n; i++)
         for_lanes (l)
             y[i * L + l] = y[i * L + l] / sum[l];
-    if (mass_in) {
-        /* x_i = (w_i / M_i) / sum_k w_k / M_k */
-        for_lanes (l)
-            sum[l] = 0.0;
-        for (i = 0; i < n; i++)
-            for_lanes (l)
-                sum[l] += w[i * L + l] / M[i];
-        for (i = 0; i < n; i++)
-            for_lanes (l)
-                x[i * L + l] = (w[i * L + l] / M[i]) / sum[l];
-    } else if (M != NULL) {
-        for_lanes (l)
-            sum[l] = 0.0;
-        for (i = 0; i < n; i++)
-            for_lanes (l)
-                sum[l] += x[i * L + l] * M[i];
-        for (i = 0; i < n; i++)
-            for_lanes (l)
-                w[i * L + l] = x[i * L + l] * M[i] / sum[l];
-    }
+    if (mass_in)
+        mcdi_w_to_x_lanes(n, L, M, w, x); /* base/composition.h */
+    else if (M != NULL)
+        mcdi_x_to_w_lanes(n, L, M, x, w);
 }
 
 /* The gradients (into d) and grad ln P (into v). */
@@ -116,7 +101,7 @@ KINLINE int stage_load_forces(const mcdi_bjob *jb, const mcdi_kblock *b,
     return bad;
 }
 
-/* Driving forces (flux/forces.h, shared with the single-state call): the
+/* Driving forces (flux/stages.h, shared with the single-state call): the
  * gradients of mass fractions turned into those of mole fractions first;
  * grad ln P was loaded into v. */
 KINLINE void stage_forces(const mcdi_bjob *jb, const mcdi_kblock *b,
@@ -451,25 +436,11 @@ KINLINE int stage_mass(const mcdi_bjob *jb, const mcdi_kblock *b, size_t nv,
                        mcdi_bres *res, const size_t n, const size_t L,
                        const size_t nd)
 {
-    const double *M = jb->M;
-    const double *restrict w = b->w;
-    double *restrict J = b->J, sm[MCDI_LANES] = {0.0}, rs[MCDI_LANES] = {0.0};
+    const double *J = b->J; /* written by mcdi_mass_fluxes: not restrict */
+    double sm[MCDI_LANES] = {0.0}, rs[MCDI_LANES] = {0.0};
     size_t i, dd, l;
+    mcdi_mass_fluxes(n, L, nd, jb->M, b->w, b->J); /* flux/stages.h */
     for (dd = 0; dd < nd; dd++) {
-        for_lanes (l)
-            sm[l] = rs[l] = 0.0;
-        for (i = 0; i < n; i++)
-            for_lanes (l)
-                sm[l] += M[i] * J[(i * nd + dd) * L + l];
-        for (i = 0; i < n; i++)
-            for_lanes (l) {
-                size_t e = (i * nd + dd) * L + l;
-                J[e] = M[i] * J[e] - w[i * L + l] * sm[l];
-                rs[l] += J[e];
-            }
-        for (i = 0; i < n; i++)
-            for_lanes (l)
-                J[(i * nd + dd) * L + l] -= w[i * L + l] * rs[l];
         for_lanes (l)
             sm[l] = rs[l] = 0.0;
         for (i = 0; i < n; i++)

@@ -70,7 +70,7 @@
 #include "base/composition.h"
 #include "flux/flux_core.h"
 #include "flux/core_layout.h"
-#include "flux/forces.h"
+#include "flux/stages.h"
 #include "base/isa.h"
 
 /* ------------------------------------------------------------------ */
@@ -269,25 +269,6 @@ static mcd_status check_state(mcd_workspace *ws, mcd_model model, size_t n,
     return MCD_OK;
 }
 
-/* Mass fluxes j_i = M_i J_i - w_i sum_k M_k J_k in place, then the
- * round-off residual of sum_i j_i removed with weights w. */
-static void to_mass_basis(size_t n, size_t nd, const double *M, const double *w,
-                          double *J)
-{
-    size_t i, dd;
-    for (dd = 0; dd < nd; dd++) {
-        double s = 0.0, r = 0.0;
-        for (i = 0; i < n; i++)
-            s += M[i] * J[i * nd + dd];
-        for (i = 0; i < n; i++) {
-            J[i * nd + dd] = M[i] * J[i * nd + dd] - w[i] * s;
-            r += J[i * nd + dd];
-        }
-        for (i = 0; i < n; i++)
-            J[i * nd + dd] -= w[i] * r;
-    }
-}
-
 /* Copy the fluxes out unless one is not finite (inputs at the edge of the
  * double range, e.g. Đ ~ 1e-310, can overflow) or mass fluxes lost their
  * zero-sum to cancellation: EDOM then, out untouched. */
@@ -372,7 +353,7 @@ MCD_API mcd_status mcd_flux_compute(mcd_workspace *ws, mcd_model model,
         mcdi_mixavg_fluxes(n, nd, x, d, Dij, c, J, v.den, v.num);
     }
     if (flux_basis == MCD_BASIS_MASS)
-        to_mass_basis(n, nd, M, w, J);
+        mcdi_mass_fluxes(n, 1, nd, M, w, J);
     return emit_checked(ws, n, nd, J, flux_basis, out_flux);
 }
 

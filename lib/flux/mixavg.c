@@ -34,6 +34,7 @@
  */
 #include "base/mcd_internal.h"
 #include "flux/flux_core.h"
+#include "base/lanes.h"
 
 static inline double dij_pair(const double *Dij, size_t n, size_t i, size_t j)
 {
@@ -101,12 +102,5 @@ void mcdi_mixavg_fluxes(size_t n, size_t nd, const double *x, const double *d,
 
 void mcdi_flux_zero_sum(size_t n, size_t nd, const double *x, double *J)
 {
-    size_t i, dd;
-    for (dd = 0; dd < nd; dd++) {
-        double r = 0.0;
-        for (i = 0; i < n; i++)
-            r += J[i * nd + dd];
-        for (i = 0; i < n; i++)
-            J[i * nd + dd] -= x[i] * r;
-    }
+    remove_along(J, NULL, x, n, 1, nd);
 }

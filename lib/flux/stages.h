@@ -1,0 +1,78 @@
+/* stages.h - the stages of a flux computation that both pipelines run,
+ * written once on rows of L lanes (base/lanes.h): the single-state calls
+ * (maxwell_stefan.c) with L = 1, the batched kernel
+ * (batched/kernel_stages.h) with its lanes. Never installed.
+ *
+ * Driving forces:
+ *   d_i = sum_j Gamma_ij grad x_j + (x_i - w_i) grad ln P,
+ * projected onto sum_i d_i = 0 with weights x (maxwell_stefan.c explains
+ * why). A new driving force (thermal diffusion is next) is one more term
+ * in mcdi_driving_forces, and one more input for the callers to load.
+ * Mass basis: j_i = M_i J_i - w_i sum_k M_k J_k (mcdi_mass_fluxes).
+ */
+#ifndef MCD_FORCES_H
+#define MCD_FORCES_H
+
+#include <string.h>
+#include "base/lanes.h"
+
+/* d from the mole-fraction gradients gx (d may be gx), the thermodynamic
+ * factor Gamma (n x n row-major, one state: L = 1 only; NULL = ideal) and
+ * grad ln P (nd rows of L lanes, NULL = none); x, w: fractions (w may be
+ * NULL without grad ln P). */
+KINLINE void mcdi_driving_forces(const size_t n, const size_t L,
+                                 const size_t nd, const double *restrict x,
+                                 const double *w, const double *gx,
+                                 const double *Gamma, const double *glnP,
+                                 double *d)
+{
+    size_t i, j, dd, l;
+    if (Gamma != NULL) {
+        for (i = 0; i < n; i++)
+            for (dd = 0; dd < nd; dd++) {
+                double s = 0.0;
+                for (j = 0; j < n; j++)
+                    s += Gamma[i * n + j] * gx[j * nd + dd];
+                d[i * nd + dd] = s;
+            }
+    } else if (d != gx) {
+        memcpy(d, gx, n * nd * L * sizeof(double));
+    }
+    if (glnP != NULL)
+        for (i = 0; i < n; i++)
+            for (dd = 0; dd < nd; dd++)
+                for_lanes (l)
+                    d[(i * nd + dd) * L + l] +=
+                        (x[i * L + l] - w[i * L + l]) * glnP[dd * L + l];
+    remove_along(d, NULL, x, n, L, nd); /* onto sum_i d_i = 0, weights x */
+}
+
+/* Mass fluxes in place of the molar fluxes J (n x nd rows of L lanes):
+ * j_i = M_i J_i - w_i sum_k M_k J_k, then the round-off residual of
+ * sum_i j_i removed with weights w. Whether the zero-sum survived is the
+ * caller's check (mcdi_mass_zero_sum_kept, or per lane in the kernel). */
+KINLINE void mcdi_mass_fluxes(const size_t n, const size_t L, const size_t nd,
+                              const double *M, const double *restrict w,
+                              double *restrict J)
+{
+    double sm[MCDI_LANES], rs[MCDI_LANES];
+    size_t i, dd, l;
+    for (dd = 0; dd < nd; dd++) {
+        for_lanes (l)
+            sm[l] = rs[l] = 0.0;
+        for (i = 0; i < n; i++)
+            for_lanes (l)
+                sm[l] += M[i] * J[(i * nd + dd) * L + l];
+        for (i = 0; i < n; i++)
+            for_lanes (l) {
+                size_t e = (i * nd + dd) * L + l;
+                J[e] = M[i] * J[e] - w[i * L + l] * sm[l];
+                rs[l] += J[e];
+            }
+        for (i = 0; i < n; i++)
+            for_lanes (l)
+                J[(i * nd + dd) * L + l] -= w[i * L + l] * rs[l];
+    }
+}
+
+#endif
