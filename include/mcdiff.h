@@ -618,7 +618,8 @@ MCD_API mcd_status mcd_fick_fluxes(size_t n_species, size_t n_dim,
 
 /** Eigenvalues of an m x m Fick matrix (LAPACK dgeev), m <= capacity - 1
  *  of ws (or m = 0). Sorted by decreasing real part. Since 0.1.
- *  Fails: EINVAL, EBADLEN, ESING (no convergence) | Allocates: no */
+ *  Fails: EINVAL, EBADLEN, ESING (no convergence), EDOM (an eigenvalue
+ *  overflows: entries near DBL_MAX) | Allocates: no */
 MCD_API mcd_status mcd_fick_eigenvalues(mcd_workspace *ws, size_t m,
                                         const double *D, double *out_re,
                                         double *out_im);

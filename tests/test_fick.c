@@ -369,6 +369,28 @@ START_TEST(fick_eigenvalues_known_spectra_and_sorting)
 }
 END_TEST
 
+/* Finite entries whose eigenvalues overflow (found by fuzz_flux: an
+ * eigenvalue of inf came back with MCD_OK): EDOM, outputs untouched. The
+ * matrix [[a, a], [a, a]] with a = 1.5e308 has the eigenvalues 0 and
+ * 2a > DBL_MAX; a triangular one keeps its (finite) diagonal. */
+START_TEST(fick_eigenvalues_that_overflow_are_an_error)
+{
+    const double a = 1.5e308;
+    const double over[4] = {a, a, a, a}, tri[4] = {a, 0.0, a, -a};
+    double re[2], im[2];
+    mcd_workspace *w;
+    ck_assert_int_eq(mcd_workspace_alloc(3, &w), MCD_OK);
+    sup_guard_fill(re, 2);
+    sup_guard_fill(im, 2);
+    ck_assert_int_eq(mcd_fick_eigenvalues(w, 2, over, re, im), MCD_EDOM);
+    ck_assert(sup_guard_intact(re, 2) && sup_guard_intact(im, 2));
+    ck_assert_ptr_nonnull(strstr(mcd_workspace_last_error(w), "not finite"));
+    ck_assert_int_eq(mcd_fick_eigenvalues(w, 2, tri, re, im), MCD_OK);
+    ck_assert(re[0] == a && re[1] == -a && im[0] == 0.0 && im[1] == 0.0);
+    mcd_workspace_free(w);
+}
+END_TEST
+
 START_TEST(fick_errors_leave_outputs_untouched)
 {
     enum { N = 3 };
@@ -528,6 +550,7 @@ static Suite *fick_suite(void)
     tcase_add_test(tc, fick_trace_species_row_is_blanc);
     tcase_add_test(tc, fick_eigenvalues_real_positive_and_invariant);
     tcase_add_test(tc, fick_eigenvalues_known_spectra_and_sorting);
+    tcase_add_test(tc, fick_eigenvalues_that_overflow_are_an_error);
     tcase_add_test(tc, fick_errors_leave_outputs_untouched);
     suite_add_tcase(s, tc);
     return s;

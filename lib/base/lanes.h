@@ -38,11 +38,32 @@
 #define for_lanes_bad(l) for (l = 0; l < L; l++)
 #endif
 
-/* v_i -= y_i sum_k w_k v_k in each direction, w NULL meaning weights 1:
- * the zero-sum clean-up (w = 1, y = x for molar fluxes, so trace species
- * stay exact), the projection of driving forces onto sum_i d_i = 0
- * (w = 1, y = x) and onto s^T v = 0 (w = y = s). The sum lives in a local
- * array, i.e. in registers. */
+/* out_i = v_i - y_i sum_k w_k v_k in each direction (out may be v), w
+ * NULL meaning weights 1: the zero-sum clean-up (w = 1, y = x for molar
+ * fluxes, so trace species stay exact), the projection of driving forces
+ * onto sum_i d_i = 0 (w = 1, y = x) and onto s^T v = 0 (w = y = s). The
+ * sum lives in a local array, i.e. in registers. */
+KINLINE void remove_along_into(double *out, const double *v, const double *w,
+                               const double *restrict y, const size_t n,
+                               const size_t L, const size_t nd)
+{
+    double p[MCDI_LANES];
+    size_t i, dd, l;
+    for (dd = 0; dd < nd; dd++) {
+        for_lanes (l)
+            p[l] = 0.0;
+        for (i = 0; i < n; i++)
+            for_lanes (l)
+                p[l] +=
+                    (w != NULL ? w[i * L + l] : 1.0) * v[(i * nd + dd) * L + l];
+        for (i = 0; i < n; i++)
+            for_lanes (l)
+                out[(i * nd + dd) * L + l] =
+                    v[(i * nd + dd) * L + l] - y[i * L + l] * p[l];
+    }
+}
+
+/* The same in place. */
 KINLINE void remove_along(double *restrict v, const double *w,
                           const double *restrict y, const size_t n,
                           const size_t L, const size_t nd)

@@ -423,6 +423,14 @@ MCD_API mcd_status mcd_fick_eigenvalues(mcd_workspace *ws, size_t m,
                             (int)info);
     if (info < 0)
         return mcdi_ws_fail(ws, MCD_EINTERNAL, "dgeev info %d", (int)info);
+    /* finite entries near DBL_MAX can have eigenvalues that overflow
+     * (found by fuzz_flux): never hand them out */
+    for (k = 0; k < m; k++)
+        if (!mcdi_finite(wr[k]) || !mcdi_finite(wi[k]))
+            return mcdi_ws_fail(ws, MCD_EDOM,
+                                "result: eigenvalue %zu is not finite (entries "
+                                "of D too large)",
+                                k);
     /* insertion sort by decreasing real part, then decreasing imaginary
      * part (keeps a conjugate pair together, positive part first) */
     for (k = 1; k < m; k++) {

@@ -10,6 +10,7 @@
 #include <stddef.h>
 #include "mcdiff.h"
 #include "base/checks.h"
+#include "base/lanes.h"
 
 /* ---- kernels -------------------------------------------------------- */
 
@@ -32,7 +33,11 @@ int mcdi_mass_zero_sum_kept(size_t n, size_t nd, const double *F);
 
 /* Zero-sum clean-up of molar fluxes J (n x nd): J_i -= x_i sum_k J_k per
  * direction (weights x: trace species, x_i = 0, stay exact). */
-void mcdi_flux_zero_sum(size_t n, size_t nd, const double *x, double *J);
+static inline void mcdi_flux_zero_sum(size_t n, size_t nd, const double *x,
+                                      double *J)
+{
+    remove_along(J, NULL, x, n, 1, nd);
+}
 
 /* Exact Maxwell-Stefan diffusion fluxes J (n x nd, molar frame) for
  * normalised x and driving forces d (n x nd) with sum_i d_i = 0.

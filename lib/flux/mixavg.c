@@ -99,8 +99,3 @@ void mcdi_mixavg_fluxes(size_t n, size_t nd, const double *x, const double *d,
      * x sum to 1 only to round-off) */
     mcdi_flux_zero_sum(n, nd, x, J);
 }
-
-void mcdi_flux_zero_sum(size_t n, size_t nd, const double *x, double *J)
-{
-    remove_along(J, NULL, x, n, 1, nd);
-}

@@ -13,7 +13,6 @@
 #ifndef MCD_FORCES_H
 #define MCD_FORCES_H
 
-#include <string.h>
 #include "base/lanes.h"
 
 /* d from the mole-fraction gradients gx (d may be gx), the thermodynamic
@@ -26,6 +25,7 @@ KINLINE void mcdi_driving_forces(const size_t n, const size_t L,
                                  const double *Gamma, const double *glnP,
                                  double *d)
 {
+    const double *src = gx; /* the unprojected forces so far */
     size_t i, j, dd, l;
     if (Gamma != NULL) {
         for (i = 0; i < n; i++)
@@ -35,16 +35,19 @@ KINLINE void mcdi_driving_forces(const size_t n, const size_t L,
                     s += Gamma[i * n + j] * gx[j * nd + dd];
                 d[i * nd + dd] = s;
             }
-    } else if (d != gx) {
-        memcpy(d, gx, n * nd * L * sizeof(double));
+        src = d;
     }
-    if (glnP != NULL)
+    if (glnP != NULL) {
         for (i = 0; i < n; i++)
             for (dd = 0; dd < nd; dd++)
                 for_lanes (l)
-                    d[(i * nd + dd) * L + l] +=
+                    d[(i * nd + dd) * L + l] =
+                        src[(i * nd + dd) * L + l] +
                         (x[i * L + l] - w[i * L + l]) * glnP[dd * L + l];
-    remove_along(d, NULL, x, n, L, nd); /* onto sum_i d_i = 0, weights x */
+        src = d;
+    }
+    /* onto sum_i d_i = 0 with weights x, from src in one pass */
+    remove_along_into(d, src, NULL, x, n, L, nd);
 }
 
 /* Mass fluxes in place of the molar fluxes J (n x nd rows of L lanes):
