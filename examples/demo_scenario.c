@@ -72,8 +72,8 @@ int demo_scenario_run(FILE *out, FILE *err)
     if (check(err, "molar masses", mcd_mixture_molar_masses(mix, M), NULL) ||
         check(err, "binary diffusivities",
               mcd_mixture_binaries(mix, T, P, D, rel, warn), NULL) ||
-        check(err, "concentration", mcd_ideal_gas_c(T, P, &c), NULL) ||
-        check(err, "workspace", mcd_workspace_alloc(NS, &ws), NULL))
+        check(err, "concentration", mcd_comp_ideal_gas_c(T, P, &c), NULL) ||
+        check(err, "workspace", mcd_workspace_new(NS, &ws), NULL))
         goto done;
     if (check(err, "exact fluxes",
               mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, NS, 1, M, D, c,

@@ -135,9 +135,9 @@ int fv1d_problem_init(fv1d_problem *p, size_t n_cells, size_t n_steps,
         lib_fail(err, "binary diffusivities",
                  mcd_mixture_binaries(mix, p->T, p->P, p->Dij, NULL, NULL),
                  NULL) ||
-        lib_fail(err, "concentration", mcd_ideal_gas_c(p->T, p->P, &p->c),
+        lib_fail(err, "concentration", mcd_comp_ideal_gas_c(p->T, p->P, &p->c),
                  NULL) ||
-        lib_fail(err, "workspace", mcd_workspace_alloc(NS, &ws), NULL))
+        lib_fail(err, "workspace", mcd_workspace_new(NS, &ws), NULL))
         goto done;
 
     /* Atom matrix from the formulas in the table. */
@@ -236,7 +236,7 @@ int fv1d_solver_init(fv1d_solver *s, const fv1d_problem *p,
 {
     size_t nf = max_cells + 1, f;
     memset(s, 0, sizeof *s);
-    if (lib_fail(err, "workspace", mcd_workspace_alloc(NS, &s->ws), NULL))
+    if (lib_fail(err, "workspace", mcd_workspace_new(NS, &s->ws), NULL))
         return 1;
     s->max_faces = nf;
     s->face_index = malloc(nf * sizeof *s->face_index);

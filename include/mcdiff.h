@@ -165,7 +165,7 @@ MCD_API mcd_status mcd_formula_diffusion_volume(const char *formula,
  *  (H2, D2, He, N2, O2, air, Ar, Kr, Xe, Ne, CO, CO2, N2O, NH3, H2O, SF6,
  *  Cl2, Br2, SO2), looked up by formula. Since 0.1.
  *  Fails: EINVAL, ENOTFOUND (not a tabulated molecule) | Allocates: no */
-MCD_API mcd_status mcd_fsg_molecule_volume(const char *formula, double *out_V);
+MCD_API mcd_status mcd_formula_molecule_volume(const char *formula, double *out_V);
 
 /** Symbol of element Z (1..118), or NULL. Since 0.1. */
 MCD_API const char *mcd_element_symbol(int Z);
@@ -216,7 +216,7 @@ MCD_API mcd_status mcd_db_new_builtin(mcd_db **out_db);
 MCD_API void mcd_db_free(mcd_db *db);
 
 /** Number of species (0 for NULL). Since 0.1. */
-MCD_API size_t mcd_db_count(const mcd_db *db);
+MCD_API size_t mcd_db_species_count(const mcd_db *db);
 /** Index of a species by name (case-insensitive), or else by exact formula
  *  when exactly one species has it. Since 0.1.
  *  Fails: EINVAL, ENOTFOUND | Allocates: no */
@@ -272,50 +272,50 @@ MCD_API mcd_status mcd_db_load_string(mcd_db *db, const char *text,
 
 /** Validate fractions (mole or mass) and renormalise them: every entry
  *  finite and >= 0, sum within MCD_SUM_TOL of 1. out_y may equal y.
- *  Since 0.1.  Fails: EINVAL (NULL, n out of range, NaN/inf), EDOM
+ *  Since 0.1.  Fails: EINVAL (NULL, n_species out of range, NaN/inf), EDOM
  *  (negative entry, sum off by more than MCD_SUM_TOL) | Allocates: no */
-MCD_API mcd_status mcd_comp_normalize(size_t n, const double *y,
+MCD_API mcd_status mcd_comp_normalize(size_t n_species, const double *y,
                                       double *out_y);
 /** Mass fractions from mole fractions: w_i = x_i M_i / Mbar. Validates x as
  *  mcd_comp_normalize does; M finite and > 0. out_w must not alias.
  *  Since 0.1. Fails: EINVAL, EDOM | Allocates: no */
-MCD_API mcd_status mcd_comp_x_to_w(size_t n, const double *M,
+MCD_API mcd_status mcd_comp_x_to_w(size_t n_species, const double *M,
                                    const double *x, double *out_w);
 /** Mole fractions from mass fractions: x_i = (w_i/M_i) / sum_k (w_k/M_k).
  *  Since 0.1. Fails: EINVAL, EDOM | Allocates: no */
-MCD_API mcd_status mcd_comp_w_to_x(size_t n, const double *M,
+MCD_API mcd_status mcd_comp_w_to_x(size_t n_species, const double *M,
                                    const double *w, double *out_x);
 /** Mean molar mass [kg/mol] from mole fractions: sum x_i M_i. Since 0.1.
  *  Fails: EINVAL, EDOM | Allocates: no */
-MCD_API mcd_status mcd_comp_mean_molar_mass_x(size_t n, const double *M,
+MCD_API mcd_status mcd_comp_mean_molar_mass_x(size_t n_species, const double *M,
                                               const double *x,
                                               double *out_Mbar);
 /** Mean molar mass [kg/mol] from mass fractions: 1 / sum (w_i/M_i).
  *  Since 0.1. Fails: EINVAL, EDOM | Allocates: no */
-MCD_API mcd_status mcd_comp_mean_molar_mass_w(size_t n, const double *M,
+MCD_API mcd_status mcd_comp_mean_molar_mass_w(size_t n_species, const double *M,
                                               const double *w,
                                               double *out_Mbar);
 /** Species concentrations [mol/m^3]: c_i = c x_i. Since 0.1.
  *  Fails: EINVAL, EDOM | Allocates: no */
-MCD_API mcd_status mcd_comp_x_to_c(size_t n, double c_total, const double *x,
-                                   double *out_c);
+MCD_API mcd_status mcd_comp_x_to_c(size_t n_species, double c, const double *x,
+                                   double *out_ci);
 /** Mole fractions and total concentration from concentrations [mol/m^3]
- *  (each >= 0, sum > 0); out_c_total must not be NULL. Since 0.1. Fails: EINVAL, EDOM | Allocates: no */
-MCD_API mcd_status mcd_comp_c_to_x(size_t n, const double *c, double *out_x,
-                                   double *out_c_total);
+ *  ci (each >= 0, sum > 0); out_c must not be NULL. Since 0.1. Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_comp_c_to_x(size_t n_species, const double *ci, double *out_x,
+                                   double *out_c);
 /** Ideal-gas total concentration c = P / (R T) [mol/m^3]. Since 0.1.
  *  Fails: EINVAL (NaN/inf), EDOM (T <= 0 or P <= 0) | Allocates: no */
-MCD_API mcd_status mcd_ideal_gas_c(double T, double P, double *out_c);
+MCD_API mcd_status mcd_comp_ideal_gas_c(double T, double P, double *out_c);
 /** Gradients of mass fractions from mole fractions and their gradients
- *  (grad_x is n x n_dim; rows need not sum exactly to zero).
+ *  (grad_x is n_species x n_dim; rows need not sum exactly to zero).
  *  Since 0.1. Fails: EINVAL, EDOM | Allocates: no */
-MCD_API mcd_status mcd_comp_grad_x_to_w(size_t n, size_t n_dim,
+MCD_API mcd_status mcd_comp_grad_x_to_w(size_t n_species, size_t n_dim,
                                         const double *M, const double *x,
                                         const double *grad_x,
                                         double *out_grad_w);
 /** Gradients of mole fractions from mass fractions and their gradients.
  *  Since 0.1. Fails: EINVAL, EDOM | Allocates: no */
-MCD_API mcd_status mcd_comp_grad_w_to_x(size_t n, size_t n_dim,
+MCD_API mcd_status mcd_comp_grad_w_to_x(size_t n_species, size_t n_dim,
                                         const double *M, const double *w,
                                         const double *grad_w,
                                         double *out_grad_x);
@@ -362,20 +362,20 @@ MCD_API const char *mcd_warning_string(unsigned bit);
 /** Fuller-Schettler-Giddings from raw parameters. Since 0.1.
  *  @param MA,MB molar masses [kg/mol]; @param VA,VB diffusion volumes [-].
  *  Fails: EINVAL (NaN/inf), EDOM (non-positive input) | Allocates: no */
-MCD_API mcd_status mcd_fsg_raw(double T, double P, double MA, double MB,
+MCD_API mcd_status mcd_binary_fsg(double T, double P, double MA, double MB,
                                double VA, double VB, double *out_D);
 /** Chapman-Enskog with Lennard-Jones parameters, combining rules
  *  sigma_AB = (sigma_A + sigma_B)/2, eps_AB = sqrt(eps_A eps_B), and the
  *  Neufeld-Janzen-Aziz collision integral. Since 0.1.
  *  @param sigA,sigB [m]; @param epsA,epsB epsilon/k [K].
  *  Fails: EINVAL, EDOM | Allocates: no */
-MCD_API mcd_status mcd_chapman_enskog_raw(double T, double P, double MA,
+MCD_API mcd_status mcd_binary_chapman_enskog(double T, double P, double MA,
                                           double MB, double sigA, double sigB,
                                           double epsA, double epsB,
                                           double *out_D);
 /** Wilke-Lee from raw Lennard-Jones parameters (same conventions as
- *  mcd_chapman_enskog_raw). Since 0.1. Fails: EINVAL, EDOM | Allocates: no */
-MCD_API mcd_status mcd_wilke_lee_raw(double T, double P, double MA, double MB,
+ *  mcd_binary_chapman_enskog). Since 0.1. Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_binary_wilke_lee(double T, double P, double MA, double MB,
                                      double sigA, double sigB, double epsA,
                                      double epsB, double *out_D);
 /** Wilke-Chang infinite-dilution diffusivity of a solute in a liquid.
@@ -384,13 +384,13 @@ MCD_API mcd_status mcd_wilke_lee_raw(double T, double P, double MA, double MB,
  *  @param Vb_solute   solute molar volume at its normal boiling point
  *                     [m^3/mol]. Since 0.1.
  *  Fails: EINVAL, EDOM | Allocates: no */
-MCD_API mcd_status mcd_wilke_chang_raw(double T, double mu_solvent,
+MCD_API mcd_status mcd_binary_wilke_chang(double T, double mu_solvent,
                                        double M_solvent, double phi,
                                        double Vb_solute, double *out_D);
 /** Neufeld-Janzen-Aziz (1972) fit of the diffusion collision integral
  *  Omega_D(T*), T* = k T / eps, valid 0.3 <= T* <= 100. Since 0.1.
  *  Fails: EINVAL, EDOM (T* <= 0) | Allocates: no */
-MCD_API mcd_status mcd_collision_omega_d(double T_star, double *out_omega);
+MCD_API mcd_status mcd_binary_omega_d(double T_star, double *out_omega);
 /** Scale a known gas diffusivity to another state:
  *  D = D_ref (T/T_ref)^exponent (P_ref/P). Use 1.75 for the
  *  Fuller-Schettler-Giddings law. Since 0.1.
@@ -405,7 +405,7 @@ MCD_API mcd_status mcd_binary_scale(double D_ref, double T_ref, double P_ref,
  *  are EINVAL here. Since 0.1.
  *  Fails: EINVAL, EDOM, ENODATA (parameter missing), ENOTFOUND (index)
  *  | Allocates: no */
-MCD_API mcd_status mcd_binary_gas(const mcd_db *db, size_t a, size_t b,
+MCD_API mcd_status mcd_db_binary_gas(const mcd_db *db, size_t a, size_t b,
                                   mcd_method method, double T, double P,
                                   double *out_D, double *out_rel_err,
                                   unsigned *out_warn);
@@ -413,7 +413,7 @@ MCD_API mcd_status mcd_binary_gas(const mcd_db *db, size_t a, size_t b,
  *  a database (solute needs Vb; solvent needs M and an association factor,
  *  1.0 when unknown, flagged). @param mu_solvent  [Pa s] at T. Since 0.1.
  *  Fails: EINVAL, EDOM, ENODATA, ENOTFOUND | Allocates: no */
-MCD_API mcd_status mcd_binary_liquid(const mcd_db *db, size_t solute,
+MCD_API mcd_status mcd_db_binary_liquid(const mcd_db *db, size_t solute,
                                      size_t solvent, double T,
                                      double mu_solvent, double *out_D,
                                      double *out_rel_err, unsigned *out_warn);
@@ -430,7 +430,7 @@ typedef struct mcd_mixture mcd_mixture;
  *  WILKE_LEE). A species named twice is EINVAL. Since 0.1.
  *  Fails: EINVAL, ENOTFOUND (errbuf names the species), ENOMEM
  *  | Allocates: yes */
-MCD_API mcd_status mcd_mixture_new(const mcd_db *db, size_t n,
+MCD_API mcd_status mcd_mixture_new(const mcd_db *db, size_t n_species,
                                    const char *const *names,
                                    mcd_method default_method,
                                    mcd_mixture **out_mix, char *errbuf,
@@ -438,10 +438,10 @@ MCD_API mcd_status mcd_mixture_new(const mcd_db *db, size_t n,
 /** Free a mixture; NULL is a no-op. Since 0.1. */
 MCD_API void mcd_mixture_free(mcd_mixture *mix);
 /** Number of species (0 for NULL). Since 0.1. */
-MCD_API size_t mcd_mixture_count(const mcd_mixture *mix);
+MCD_API size_t mcd_mixture_species_count(const mcd_mixture *mix);
 /** Name of species i or NULL. Since 0.1. */
 MCD_API const char *mcd_mixture_name(const mcd_mixture *mix, size_t i);
-/** Molar masses [kg/mol], length n. Since 0.1.
+/** Molar masses [kg/mol], length n_species. Since 0.1.
  *  Fails: EINVAL, ENODATA | Allocates: no */
 MCD_API mcd_status mcd_mixture_molar_masses(const mcd_mixture *mix,
                                             double *out_M);
@@ -456,8 +456,8 @@ MCD_API mcd_status mcd_mixture_set_method(mcd_mixture *mix, size_t i,
 MCD_API mcd_status mcd_mixture_set_binary(mcd_mixture *mix, size_t i,
                                           size_t j, double D, double T_ref,
                                           double P_ref);
-/** Matrix of binary diffusivities at (T, P): out_D n x n symmetric, diagonal
- *  set to 0. out_rel_err and out_warn (n x n each) may be NULL. Reads the
+/** Matrix of binary diffusivities at (T, P): out_D N x N symmetric, diagonal
+ *  set to 0. out_rel_err and out_warn (N x N each) may be NULL. Reads the
  *  mixture only: may run concurrently on a shared mixture. Since 0.1.
  *  Fails: EINVAL, EDOM, ENODATA (errbuf-free: the pair's method lacks a
  *  parameter) | Allocates: no */
@@ -483,16 +483,16 @@ typedef struct mcd_allocator {
 /** Allocate a workspace for up to n_species species (1..MCD_MAX_SPECIES):
  *  all scratch memory of the flux, Fick-matrix and transfer calls.
  *  Since 0.1. Fails: EINVAL, ENOMEM | Allocates: yes */
-MCD_API mcd_status mcd_workspace_alloc(size_t n_species,
+MCD_API mcd_status mcd_workspace_new(size_t n_species,
                                        mcd_workspace **out_ws);
-/** As mcd_workspace_alloc with a caller allocator (copied). Since 0.1. */
-MCD_API mcd_status mcd_workspace_alloc_with(size_t n_species,
+/** As mcd_workspace_new with a caller allocator (copied). Since 0.1. */
+MCD_API mcd_status mcd_workspace_new_with(size_t n_species,
                                             const mcd_allocator *allocator,
                                             mcd_workspace **out_ws);
 /** Free a workspace; NULL is a no-op. Since 0.1. */
 MCD_API void mcd_workspace_free(mcd_workspace *ws);
 /** Species capacity of a workspace (0 for NULL). Since 0.1. */
-MCD_API size_t mcd_workspace_species(const mcd_workspace *ws);
+MCD_API size_t mcd_workspace_capacity(const mcd_workspace *ws);
 /** Detail of the last error of a call on this workspace (which argument,
  *  which index), "" if none or ws is NULL. Valid until the next call.
  *  Since 0.1. */
@@ -604,23 +604,23 @@ MCD_API mcd_status mcd_fick_matrix(mcd_workspace *ws, size_t n_species,
                                    size_t *out_dependent);
 
 /** Fluxes from a caller's Fick matrix: for i != dependent,
- *  F_i = -conc sum_j D_ij grad_j, F_dependent = -sum of the others.
+ *  F_i = -c_or_rho sum_j D_ij grad_j, F_dependent = -sum of the others.
  *  @param D     (N-1) x (N-1) as produced by mcd_fick_matrix.
- *  @param conc  c [mol/m^3] for molar fluxes, rho [kg/m^3] for mass fluxes.
+ *  @param c_or_rho  c [mol/m^3] for molar fluxes, rho [kg/m^3] for mass fluxes.
  *  @param grad  N x n_dim gradients (the dependent row is ignored and may
  *               hold anything). @param dependent  a species index
  *               (MCD_DEPENDENT_AUTO is EINVAL here). D may be NULL for N = 1.
  *  Since 0.1. Fails: EINVAL, EDOM | Allocates: no */
 MCD_API mcd_status mcd_fick_fluxes(size_t n_species, size_t n_dim,
                                    const double *D, size_t dependent,
-                                   double conc, const double *grad,
+                                   double c_or_rho, const double *grad,
                                    double *out_flux);
 
-/** Eigenvalues of an m x m Fick matrix (LAPACK dgeev), m <= capacity - 1
- *  of ws (or m = 0). Sorted by decreasing real part. Since 0.1.
+/** Eigenvalues of an order x order Fick matrix (LAPACK dgeev), order <=
+ *  capacity - 1 of ws (or 0). Sorted by decreasing real part. Since 0.1.
  *  Fails: EINVAL, EBADLEN, ESING (no convergence), EDOM (an eigenvalue
  *  overflows: entries near DBL_MAX) | Allocates: no */
-MCD_API mcd_status mcd_fick_eigenvalues(mcd_workspace *ws, size_t m,
+MCD_API mcd_status mcd_fick_eigenvalues(mcd_workspace *ws, size_t order,
                                         const double *D, double *out_re,
                                         double *out_im);
 
@@ -677,7 +677,7 @@ MCD_API mcd_status mcd_flux_total(size_t n_species, size_t n_dim,
 /** Difference of the mass- and molar-average velocities [m/s]:
  *  v - u = (1/rho) sum_k M_k J_k with rho = c Mbar. Since 0.1.
  *  Fails: EINVAL, EDOM | Allocates: no */
-MCD_API mcd_status mcd_velocity_difference(size_t n_species, size_t n_dim,
+MCD_API mcd_status mcd_flux_velocity_difference(size_t n_species, size_t n_dim,
                                            const double *M, double c,
                                            const double *x, const double *J,
                                            double *out_v_minus_u);
@@ -766,7 +766,8 @@ MCD_API mcd_status mcd_flux_diagnose(size_t n_species, size_t n_dim,
  *  above). The binary diffusivities of every cell come from the mixture at
  *  the cell's T and P; c = P / (R T) (ideal gas). Since 0.1.
  *
- *  @param ws          workspace with capacity >= N = mcd_mixture_count(mix).
+ *  @param ws          workspace with capacity >= N, the mixture's species
+ *                     count (mcd_mixture_species_count).
  *  @param mix         mixture (read only; may be shared between threads).
  *  @param model       MAXWELL_STEFAN (exact), ITERATIVE (Ern-Giovangigli,
  *                     settings from mcd_workspace_set_iterative) or
@@ -840,7 +841,7 @@ MCD_API mcd_status mcd_flux_batch_aos(mcd_workspace *ws,
 
 /** Settings of MCD_MODEL_ITERATIVE for later calls on this workspace.
  *  Each cell iterates until its error estimate (see
- *  mcd_workspace_iterative_info) is <= tol or max_iter iterations are
+ *  mcd_workspace_iterative_outcome) is <= tol or max_iter iterations are
  *  done; tol = 0 runs exactly max_iter iterations. Defaults: max_iter 100,
  *  tol 1e-10. Since 0.1.
  *  @param max_iter  1..1000 iterations after the start, which is the
@@ -861,14 +862,14 @@ MCD_API mcd_status mcd_workspace_set_iterative(mcd_workspace *ws,
  *  make the call fail: check the estimate. Both are 0 before any such call.
  *  Either pointer may be NULL. Since 0.1.
  *  Fails: EINVAL (ws NULL) | Allocates: no */
-MCD_API mcd_status mcd_workspace_iterative_info(const mcd_workspace *ws,
+MCD_API mcd_status mcd_workspace_iterative_outcome(const mcd_workspace *ws,
                                                 double *out_max_error,
                                                 size_t *out_max_iter);
 
 /** Number of OpenMP threads used by later batched calls on this workspace:
  *  0 (default) means the OpenMP default (OMP_NUM_THREADS), capped at the
  *  thread count the workspace was allocated for (omp_get_max_threads() at
- *  mcd_workspace_alloc time). Ignored, and always 1, in a build without
+ *  mcd_workspace_new time). Ignored, and always 1, in a build without
  *  OpenMP. Since 0.1.
  *  Fails: EINVAL (ws NULL) | Allocates: no */
 MCD_API mcd_status mcd_workspace_set_threads(mcd_workspace *ws,
@@ -941,8 +942,8 @@ typedef enum mcd_film_method {
  *  N_A = (c Đ/L) ln((1 - xA_L)/(1 - xA_0)) (B stagnant) and
  *  N_A = z_A (c Đ/L) ln((z_A - xA_L)/(z_A - xA_0)) (ratios).
  *
- *  @param ws       workspace with capacity >= n.
- *  @param n        number of species N, 2..capacity.
+ *  @param ws       workspace with capacity >= n_species.
+ *  @param n_species number of species N, 2..capacity.
  *  @param Dij      binary diffusivities [m^2/s], N x N row-major, symmetric
  *                  (relative difference <= 1e-12), off-diagonal normal
  *                  positive numbers (>= DBL_MIN; a subnormal one is EDOM,
@@ -974,7 +975,7 @@ typedef enum mcd_film_method {
  *  linearized estimate and give mole fractions outside [0, 1] inside the
  *  film; the workspace message gives the last residual) | Allocates: no
  *  | Threads: one ws per thread */
-MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n,
+MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n_species,
                                   const double *Dij, double c, double L,
                                   const double *x0, const double *xL,
                                   mcd_bootstrap kind, size_t species,
@@ -995,7 +996,7 @@ MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n,
  *  Other parameters as in mcd_film_solve.
  *  Fails: EINVAL, EBADLEN, EDOM | Allocates: no | Threads: one ws per
  *  thread */
-MCD_API mcd_status mcd_film_profile(mcd_workspace *ws, size_t n,
+MCD_API mcd_status mcd_film_profile(mcd_workspace *ws, size_t n_species,
                                     const double *Dij, double c, double L,
                                     const double *x0, const double *N,
                                     size_t n_points, const double *z,
@@ -1016,8 +1017,8 @@ MCD_API mcd_status mcd_film_profile(mcd_workspace *ws, size_t n,
  *  Delta = x1 - x2 obeys d Delta/dt = -beta [D] Delta with
  *  beta = A (V1 + V2) / (L V1 V2), solved through the eigen-decomposition
  *  of [D] (LAPACK dgeev). Since 0.1.
- *  @param ws        workspace with capacity >= n.
- *  @param n         number of species N, 2..capacity.
+ *  @param ws        workspace with capacity >= n_species.
+ *  @param n_species number of species N, 2..capacity.
  *  @param Dij       binary diffusivities as in mcd_film_solve.
  *  @param c         total molar concentration [mol/m^3], > 0.
  *  @param V1,V2     bulb volumes [m^3], > 0.
@@ -1030,7 +1031,7 @@ MCD_API mcd_status mcd_film_profile(mcd_workspace *ws, size_t n,
  *                   (row = time).
  *  Fails: EINVAL, EBADLEN, EDOM, ESING | Allocates: no | Threads: one ws
  *  per thread */
-MCD_API mcd_status mcd_bulbs_linearized(mcd_workspace *ws, size_t n,
+MCD_API mcd_status mcd_bulbs_linearized(mcd_workspace *ws, size_t n_species,
                                         const double *Dij, double c,
                                         double V1, double V2, double A,
                                         double L, const double *x1_0,
@@ -1051,7 +1052,7 @@ MCD_API mcd_status mcd_bulbs_linearized(mcd_workspace *ws, size_t n,
  *  Other parameters as in mcd_bulbs_linearized.
  *  Fails: EINVAL, EBADLEN, EDOM, ESING, ENOCONV (step size underflow or
  *  film not converging) | Allocates: no | Threads: one ws per thread */
-MCD_API mcd_status mcd_bulbs_integrate(mcd_workspace *ws, size_t n,
+MCD_API mcd_status mcd_bulbs_integrate(mcd_workspace *ws, size_t n_species,
                                        const double *Dij, double c,
                                        double V1, double V2, double A,
                                        double L, const double *x1_0,

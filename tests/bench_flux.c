@@ -305,7 +305,7 @@ static int run(mcd_db *db, size_t n, double scale)
 
     if (K < 64)
         K = 64;
-    if (mix == NULL || mcd_workspace_alloc(n, &ws) != MCD_OK) {
+    if (mix == NULL || mcd_workspace_new(n, &ws) != MCD_OK) {
         fprintf(stderr, "setup failed for N=%zu\n", n);
         return 1;
     }
@@ -391,7 +391,7 @@ static int run(mcd_db *db, size_t n, double scale)
         td[r] = now_s() - t0;
         if (r == 0) {
             err_d = maxrel(n, K, out, ref);
-            mcd_workspace_iterative_info(ws, &est_d, &it_d);
+            mcd_workspace_iterative_outcome(ws, &est_d, &it_d);
         }
 
         t0 = now_s();

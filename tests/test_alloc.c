@@ -44,7 +44,7 @@ START_TEST(alloc_batched_calls_do_not_allocate)
     ck_assert_int_eq(mcd_mixture_new(db, 6, names, MCD_METHOD_FSG, &mix, NULL, 0), MCD_OK);
     ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 1, MCD_METHOD_CHAPMAN_ENSKOG), MCD_OK);
     ck_assert_int_eq(mcd_mixture_set_method(mix, 2, 4, MCD_METHOD_WILKE_LEE), MCD_OK);
-    ck_assert_int_eq(mcd_workspace_alloc(NBIG, &ws), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(NBIG, &ws), MCD_OK);
     for (k = 0; k < KC; k++) {
         T[k] = 300.0 + 50.0 * (double)k;
         P[k] = 1e5;
@@ -92,7 +92,7 @@ START_TEST(alloc_batched_calls_do_not_allocate)
                                         MCD_BASIS_MOLE, F);
         }
         st[ns++] = mcd_workspace_set_iterative(ws, 50, 1e-9);
-        st[ns++] = mcd_workspace_iterative_info(ws, &est, &used);
+        st[ns++] = mcd_workspace_iterative_outcome(ws, &est, &used);
         st[ns++] = mcd_workspace_set_threads(ws, 0);
         st[ns++] = mcd_mixture_temperature_fit(mix, NULL, NULL, &e2);
         if (pass == 1)

@@ -172,9 +172,9 @@ static int call_mcd_formula_diffusion_volume(ctx *c)
     return mcd_formula_diffusion_volume(ARG(formula, NB_FORMULA), c->n_rings,
                                         OUT(o1, NB_O1), EB);
 }
-static int call_mcd_fsg_molecule_volume(ctx *c)
+static int call_mcd_formula_molecule_volume(ctx *c)
 {
-    return mcd_fsg_molecule_volume(ARG(mol, NB_FORMULA), OUT(o1, NB_O1));
+    return mcd_formula_molecule_volume(ARG(mol, NB_FORMULA), OUT(o1, NB_O1));
 }
 static int call_mcd_element_symbol(ctx *c) { return ptr_kind(mcd_element_symbol(c->Z)); }
 static int call_mcd_element_weight(ctx *c) { return mcd_element_weight(c->Z, OUT(o1, NB_O1)); }
@@ -199,7 +199,7 @@ static int call_mcd_db_new_builtin(ctx *c)
     return r;
 }
 static int call_mcd_db_free(ctx *c) { mcd_db_free(ARG(db, NB_DB)); if (!NUL_(NB_DB)) c->db = NULL; return R_VOID; }
-static int call_mcd_db_count(ctx *c) { return mcd_db_count(ARG(db, NB_DB)) ? R_VALUE : R_ZERO; }
+static int call_mcd_db_species_count(ctx *c) { return mcd_db_species_count(ARG(db, NB_DB)) ? R_VALUE : R_ZERO; }
 static int call_mcd_db_find(ctx *c)
 {
     return mcd_db_find(ARG(db, NB_DB), ARG(find, NB_NAME), OUT(oz, NB_OZ));
@@ -264,7 +264,7 @@ static int call_mcd_comp_c_to_x(ctx *c)
     /* the concentrations are taken from vals */
     return mcd_comp_c_to_x(c->n, ARG(vals, NB_VALS), OUT(o1, NB_O1), OUT(o2, NB_O2));
 }
-static int call_mcd_ideal_gas_c(ctx *c) { return mcd_ideal_gas_c(c->T, c->P, OUT(o1, NB_O1)); }
+static int call_mcd_comp_ideal_gas_c(ctx *c) { return mcd_comp_ideal_gas_c(c->T, c->P, OUT(o1, NB_O1)); }
 static int call_mcd_comp_grad_x_to_w(ctx *c)
 {
     return mcd_comp_grad_x_to_w(c->n, c->nd, ARG(M, NB_M), ARG(x, NB_X), ARG(grad, NB_GRAD),
@@ -285,40 +285,40 @@ static int call_mcd_method_typical_error(ctx *c)
     return isnan(mcd_method_typical_error((mcd_method)c->method)) ? R_NAN : R_VALUE;
 }
 static int call_mcd_warning_string(ctx *c) { return ptr_kind(mcd_warning_string(c->bit)); }
-static int call_mcd_fsg_raw(ctx *c)
+static int call_mcd_binary_fsg(ctx *c)
 {
-    return mcd_fsg_raw(c->T, c->P, c->MA, c->MB, c->VA, c->VB, OUT(o1, NB_O1));
+    return mcd_binary_fsg(c->T, c->P, c->MA, c->MB, c->VA, c->VB, OUT(o1, NB_O1));
 }
-static int call_mcd_chapman_enskog_raw(ctx *c)
+static int call_mcd_binary_chapman_enskog(ctx *c)
 {
-    return mcd_chapman_enskog_raw(c->T, c->P, c->MA, c->MB, c->sigA, c->sigB, c->epsA,
+    return mcd_binary_chapman_enskog(c->T, c->P, c->MA, c->MB, c->sigA, c->sigB, c->epsA,
                                   c->epsB, OUT(o1, NB_O1));
 }
-static int call_mcd_wilke_lee_raw(ctx *c)
+static int call_mcd_binary_wilke_lee(ctx *c)
 {
-    return mcd_wilke_lee_raw(c->T, c->P, c->MA, c->MB, c->sigA, c->sigB, c->epsA, c->epsB,
+    return mcd_binary_wilke_lee(c->T, c->P, c->MA, c->MB, c->sigA, c->sigB, c->epsA, c->epsB,
                              OUT(o1, NB_O1));
 }
-static int call_mcd_wilke_chang_raw(ctx *c)
+static int call_mcd_binary_wilke_chang(ctx *c)
 {
-    return mcd_wilke_chang_raw(c->T, c->mu, c->Ms, c->phi, c->Vb, OUT(o1, NB_O1));
+    return mcd_binary_wilke_chang(c->T, c->mu, c->Ms, c->phi, c->Vb, OUT(o1, NB_O1));
 }
-static int call_mcd_collision_omega_d(ctx *c)
+static int call_mcd_binary_omega_d(ctx *c)
 {
-    return mcd_collision_omega_d(c->Tstar, OUT(o1, NB_O1));
+    return mcd_binary_omega_d(c->Tstar, OUT(o1, NB_O1));
 }
 static int call_mcd_binary_scale(ctx *c)
 {
     return mcd_binary_scale(c->D_ref, c->T_ref, c->P_ref, c->T, c->P, c->expo, OUT(o1, NB_O1));
 }
-static int call_mcd_binary_gas(ctx *c)
+static int call_mcd_db_binary_gas(ctx *c)
 {
-    return mcd_binary_gas(ARG(db, NB_DB), IDX(c->ga), IDX(c->gb), (mcd_method)c->method, c->T,
+    return mcd_db_binary_gas(ARG(db, NB_DB), IDX(c->ga), IDX(c->gb), (mcd_method)c->method, c->T,
                           c->P, OUT(o1, NB_O1), OUT(o2, NB_O2), OUT(ou, NB_OU));
 }
-static int call_mcd_binary_liquid(ctx *c)
+static int call_mcd_db_binary_liquid(ctx *c)
 {
-    return mcd_binary_liquid(ARG(db, NB_DB), IDX(c->sol), IDX(c->solv), c->T, c->mu,
+    return mcd_db_binary_liquid(ARG(db, NB_DB), IDX(c->sol), IDX(c->solv), c->T, c->mu,
                              OUT(o1, NB_O1), OUT(o2, NB_O2), OUT(ou, NB_OU));
 }
 static int call_mcd_mixture_new(ctx *c)
@@ -340,7 +340,7 @@ static int call_mcd_mixture_free(ctx *c)
         c->mix = NULL;
     return R_VOID;
 }
-static int call_mcd_mixture_count(ctx *c) { return mcd_mixture_count(ARG(mix, NB_MIX)) ? R_VALUE : R_ZERO; }
+static int call_mcd_mixture_species_count(ctx *c) { return mcd_mixture_species_count(ARG(mix, NB_MIX)) ? R_VALUE : R_ZERO; }
 static int call_mcd_mixture_name(ctx *c) { return ptr_kind(mcd_mixture_name(ARG(mix, NB_MIX), c->i)); }
 static int call_mcd_mixture_molar_masses(ctx *c)
 {
@@ -359,21 +359,21 @@ static int call_mcd_mixture_binaries(ctx *c)
     return mcd_mixture_binaries(ARG(mix, NB_MIX), c->T, c->P, OUT(o1, NB_O1), OUT(o2, NB_O2),
                                 OUT(ou, NB_OU));
 }
-static int call_mcd_workspace_alloc(ctx *c)
+static int call_mcd_workspace_new(ctx *c)
 {
-    int r = mcd_workspace_alloc(c->n, OUTP(ows, NB_OWS));
+    int r = mcd_workspace_new(c->n, OUTP(ows, NB_OWS));
     if (r == MCD_OK) {
         mcd_workspace_free(c->o.ows);
         c->o.ows = NULL;
     }
     return r;
 }
-static int call_mcd_workspace_alloc_with(ctx *c)
+static int call_mcd_workspace_new_with(ctx *c)
 {
     int r;
     c->al.alloc = c->fail_alloc ? fail_alloc_fn : ok_alloc_fn;
     c->al.free = ok_free_fn;
-    r = mcd_workspace_alloc_with(c->n, NUL_(NB_ALLOC) ? NULL : &c->al, OUTP(ows, NB_OWS));
+    r = mcd_workspace_new_with(c->n, NUL_(NB_ALLOC) ? NULL : &c->al, OUTP(ows, NB_OWS));
     if (r == MCD_OK) {
         mcd_workspace_free(c->o.ows);
         c->o.ows = NULL;
@@ -387,9 +387,9 @@ static int call_mcd_workspace_free(ctx *c)
         c->ws = NULL;
     return R_VOID;
 }
-static int call_mcd_workspace_species(ctx *c)
+static int call_mcd_workspace_capacity(ctx *c)
 {
-    return mcd_workspace_species(ARG(ws, NB_WS)) ? R_VALUE : R_ZERO;
+    return mcd_workspace_capacity(ARG(ws, NB_WS)) ? R_VALUE : R_ZERO;
 }
 static int call_mcd_workspace_last_error(ctx *c)
 {
@@ -439,9 +439,9 @@ static int call_mcd_flux_total(ctx *c)
                           (mcd_bootstrap)c->kind, c->species, ARG(vals, NB_VALS),
                           OUT(o1, NB_O1), OUT(o2, NB_O2));
 }
-static int call_mcd_velocity_difference(ctx *c)
+static int call_mcd_flux_velocity_difference(ctx *c)
 {
-    return mcd_velocity_difference(c->n, c->nd, ARG(M, NB_M), c->c, ARG(x, NB_X), ARG(J, NB_J),
+    return mcd_flux_velocity_difference(c->n, c->nd, ARG(M, NB_M), c->c, ARG(x, NB_X), ARG(J, NB_J),
                                    OUT(o1, NB_O1));
 }
 static int call_mcd_flux_project(ctx *c)
@@ -504,9 +504,9 @@ static int call_mcd_workspace_set_iterative(ctx *c)
 {
     return mcd_workspace_set_iterative(WS, c->max_iter, c->tol_it);
 }
-static int call_mcd_workspace_iterative_info(ctx *c)
+static int call_mcd_workspace_iterative_outcome(ctx *c)
 {
-    return mcd_workspace_iterative_info(WS, OUT(o1, NB_O1), OUT(oz, NB_OZ));
+    return mcd_workspace_iterative_outcome(WS, OUT(o1, NB_O1), OUT(oz, NB_OZ));
 }
 static int call_mcd_workspace_set_threads(ctx *c)
 {
@@ -618,12 +618,12 @@ static const bcase cases[] = {
     C(mcd_formula_diffusion_volume, "unknown element", MCD_ENOTFOUND, NULL, MS(formula, "Zz")),
     C(mcd_formula_diffusion_volume, "Si has no increment", MCD_ENODATA, "Si",
       MS(formula, "SiH4")),
-    B(mcd_fsg_molecule_volume, MCD_OK),
-    C(mcd_fsg_molecule_volume, "formula NULL", EINVAL_, NULL, MN(NB_FORMULA)),
-    C(mcd_fsg_molecule_volume, "out_V NULL", EINVAL_, NULL, MN(NB_O1)),
-    C(mcd_fsg_molecule_volume, "not tabulated", MCD_ENOTFOUND, NULL, MS(mol, "C6H6")),
-    C(mcd_fsg_molecule_volume, "empty", MCD_ENOTFOUND, NULL, MS(mol, "")),
-    C(mcd_fsg_molecule_volume, "lower case", MCD_ENOTFOUND, NULL, MS(mol, "co2")),
+    B(mcd_formula_molecule_volume, MCD_OK),
+    C(mcd_formula_molecule_volume, "formula NULL", EINVAL_, NULL, MN(NB_FORMULA)),
+    C(mcd_formula_molecule_volume, "out_V NULL", EINVAL_, NULL, MN(NB_O1)),
+    C(mcd_formula_molecule_volume, "not tabulated", MCD_ENOTFOUND, NULL, MS(mol, "C6H6")),
+    C(mcd_formula_molecule_volume, "empty", MCD_ENOTFOUND, NULL, MS(mol, "")),
+    C(mcd_formula_molecule_volume, "lower case", MCD_ENOTFOUND, NULL, MS(mol, "co2")),
     B(mcd_element_symbol, R_VALUE),
     C(mcd_element_symbol, "Z 0", R_NULL, NULL, MI(Z, 0)),
     C(mcd_element_symbol, "Z -1", R_NULL, NULL, MI(Z, -1)),
@@ -649,8 +649,8 @@ static const bcase cases[] = {
     C(mcd_db_new_builtin, "out_db NULL", EINVAL_, NULL, MN(NB_ODB)),
     B(mcd_db_free, R_VOID),
     C(mcd_db_free, "NULL is a no-op", R_VOID, NULL, MN(NB_DB)),
-    B(mcd_db_count, R_VALUE),
-    C(mcd_db_count, "NULL", R_ZERO, NULL, MN(NB_DB)),
+    B(mcd_db_species_count, R_VALUE),
+    C(mcd_db_species_count, "NULL", R_ZERO, NULL, MN(NB_DB)),
     B(mcd_db_find, MCD_OK),
     C(mcd_db_find, "db NULL", EINVAL_, NULL, MN(NB_DB)),
     C(mcd_db_find, "name NULL", EINVAL_, NULL, MN(NB_NAME)),
@@ -778,14 +778,14 @@ static const bcase cases[] = {
     C(mcd_comp_c_to_x, "c_i negative", EDOM_, NULL, MDA(vals, 2, -1.0)),
     C(mcd_comp_c_to_x, "all zero", EDOM_, NULL, MDA(vals, 0, 0.0), MDA(vals, 1, 0.0),
       MDA(vals, 2, 0.0)),
-    B(mcd_ideal_gas_c, MCD_OK),
-    C(mcd_ideal_gas_c, "T NaN", EINVAL_, NULL, MD(T, NAN)),
-    C(mcd_ideal_gas_c, "P inf", EINVAL_, NULL, MD(P, INFINITY)),
-    C(mcd_ideal_gas_c, "T 0", EDOM_, NULL, MD(T, 0.0)),
-    C(mcd_ideal_gas_c, "T negative", EDOM_, NULL, MD(T, -300.0)),
-    C(mcd_ideal_gas_c, "P 0", EDOM_, NULL, MD(P, 0.0)),
-    C(mcd_ideal_gas_c, "P -0", EDOM_, NULL, MD(P, -0.0)),
-    C(mcd_ideal_gas_c, "out NULL", EINVAL_, NULL, MN(NB_O1)),
+    B(mcd_comp_ideal_gas_c, MCD_OK),
+    C(mcd_comp_ideal_gas_c, "T NaN", EINVAL_, NULL, MD(T, NAN)),
+    C(mcd_comp_ideal_gas_c, "P inf", EINVAL_, NULL, MD(P, INFINITY)),
+    C(mcd_comp_ideal_gas_c, "T 0", EDOM_, NULL, MD(T, 0.0)),
+    C(mcd_comp_ideal_gas_c, "T negative", EDOM_, NULL, MD(T, -300.0)),
+    C(mcd_comp_ideal_gas_c, "P 0", EDOM_, NULL, MD(P, 0.0)),
+    C(mcd_comp_ideal_gas_c, "P -0", EDOM_, NULL, MD(P, -0.0)),
+    C(mcd_comp_ideal_gas_c, "out NULL", EINVAL_, NULL, MN(NB_O1)),
 #define GRAD_COMMON(fn, xf, nbx)                                                         \
     COMP_COMMON(fn, xf, nbx), MASS_COMMON(fn),                                             \
         C(fn, "n_dim 0", EINVAL_, NULL, MZ(nd, 0)), C(fn, "n_dim 4", EINVAL_, NULL, MZ(nd, 4)), \
@@ -822,38 +822,38 @@ static const bcase cases[] = {
         C(fn, "out NULL", EINVAL_, NULL, MN(NB_O1)),                                       \
         C(fn, "MA NaN", EINVAL_, NULL, MD(MA, NAN)), C(fn, "MB 0", EDOM_, NULL, MD(MB, 0.0)), \
         C(fn, "MA negative", EDOM_, NULL, MD(MA, -0.028))
-    TP_COMMON(mcd_fsg_raw),
-    C(mcd_fsg_raw, "VA 0", EDOM_, NULL, MD(VA, 0.0)),
-    C(mcd_fsg_raw, "T subnormal: D underflows to 0", EDOM_, NULL, MD(T, 4.9e-324)),
-    C(mcd_fsg_raw, "T 1e300: D overflows", EDOM_, NULL, MD(T, 1e300)),
-    C(mcd_fsg_raw, "VB inf", EINVAL_, NULL, MD(VB, INFINITY)),
-    TP_COMMON(mcd_chapman_enskog_raw),
-    C(mcd_chapman_enskog_raw, "sigA 0", EDOM_, NULL, MD(sigA, 0.0)),
-    C(mcd_chapman_enskog_raw, "sigB NaN", EINVAL_, NULL, MD(sigB, NAN)),
-    C(mcd_chapman_enskog_raw, "epsA negative", EDOM_, NULL, MD(epsA, -10.0)),
-    C(mcd_chapman_enskog_raw, "epsB inf", EINVAL_, NULL, MD(epsB, INFINITY)),
-    C(mcd_chapman_enskog_raw, "P subnormal: D overflows", EDOM_, NULL, MD(P, 4.9e-324)),
-    TP_COMMON(mcd_wilke_lee_raw),
-    C(mcd_wilke_lee_raw, "sigA negative", EDOM_, NULL, MD(sigA, -3e-10)),
-    C(mcd_wilke_lee_raw, "epsB 0", EDOM_, NULL, MD(epsB, 0.0)),
-    C(mcd_wilke_lee_raw, "M_AB 0.01 g/mol: negative correlation", EDOM_, NULL, MD(MA, 1e-5),
+    TP_COMMON(mcd_binary_fsg),
+    C(mcd_binary_fsg, "VA 0", EDOM_, NULL, MD(VA, 0.0)),
+    C(mcd_binary_fsg, "T subnormal: D underflows to 0", EDOM_, NULL, MD(T, 4.9e-324)),
+    C(mcd_binary_fsg, "T 1e300: D overflows", EDOM_, NULL, MD(T, 1e300)),
+    C(mcd_binary_fsg, "VB inf", EINVAL_, NULL, MD(VB, INFINITY)),
+    TP_COMMON(mcd_binary_chapman_enskog),
+    C(mcd_binary_chapman_enskog, "sigA 0", EDOM_, NULL, MD(sigA, 0.0)),
+    C(mcd_binary_chapman_enskog, "sigB NaN", EINVAL_, NULL, MD(sigB, NAN)),
+    C(mcd_binary_chapman_enskog, "epsA negative", EDOM_, NULL, MD(epsA, -10.0)),
+    C(mcd_binary_chapman_enskog, "epsB inf", EINVAL_, NULL, MD(epsB, INFINITY)),
+    C(mcd_binary_chapman_enskog, "P subnormal: D overflows", EDOM_, NULL, MD(P, 4.9e-324)),
+    TP_COMMON(mcd_binary_wilke_lee),
+    C(mcd_binary_wilke_lee, "sigA negative", EDOM_, NULL, MD(sigA, -3e-10)),
+    C(mcd_binary_wilke_lee, "epsB 0", EDOM_, NULL, MD(epsB, 0.0)),
+    C(mcd_binary_wilke_lee, "M_AB 0.01 g/mol: negative correlation", EDOM_, NULL, MD(MA, 1e-5),
       MD(MB, 1e-5)),
-    B(mcd_wilke_chang_raw, MCD_OK),
-    C(mcd_wilke_chang_raw, "T NaN", EINVAL_, NULL, MD(T, NAN)),
-    C(mcd_wilke_chang_raw, "T 0", EDOM_, NULL, MD(T, 0.0)),
-    C(mcd_wilke_chang_raw, "mu 0", EDOM_, NULL, MD(mu, 0.0)),
-    C(mcd_wilke_chang_raw, "mu inf", EINVAL_, NULL, MD(mu, INFINITY)),
-    C(mcd_wilke_chang_raw, "M_solvent negative", EDOM_, NULL, MD(Ms, -0.018)),
-    C(mcd_wilke_chang_raw, "phi 0", EDOM_, NULL, MD(phi, 0.0)),
-    C(mcd_wilke_chang_raw, "Vb NaN", EINVAL_, NULL, MD(Vb, NAN)),
-    C(mcd_wilke_chang_raw, "Vb 0", EDOM_, NULL, MD(Vb, 0.0)),
-    C(mcd_wilke_chang_raw, "out NULL", EINVAL_, NULL, MN(NB_O1)),
-    B(mcd_collision_omega_d, MCD_OK),
-    C(mcd_collision_omega_d, "T* 0", EDOM_, NULL, MD(Tstar, 0.0)),
-    C(mcd_collision_omega_d, "T* negative", EDOM_, NULL, MD(Tstar, -1.0)),
-    C(mcd_collision_omega_d, "T* NaN", EINVAL_, NULL, MD(Tstar, NAN)),
-    C(mcd_collision_omega_d, "T* inf", EINVAL_, NULL, MD(Tstar, INFINITY)),
-    C(mcd_collision_omega_d, "out NULL", EINVAL_, NULL, MN(NB_O1)),
+    B(mcd_binary_wilke_chang, MCD_OK),
+    C(mcd_binary_wilke_chang, "T NaN", EINVAL_, NULL, MD(T, NAN)),
+    C(mcd_binary_wilke_chang, "T 0", EDOM_, NULL, MD(T, 0.0)),
+    C(mcd_binary_wilke_chang, "mu 0", EDOM_, NULL, MD(mu, 0.0)),
+    C(mcd_binary_wilke_chang, "mu inf", EINVAL_, NULL, MD(mu, INFINITY)),
+    C(mcd_binary_wilke_chang, "M_solvent negative", EDOM_, NULL, MD(Ms, -0.018)),
+    C(mcd_binary_wilke_chang, "phi 0", EDOM_, NULL, MD(phi, 0.0)),
+    C(mcd_binary_wilke_chang, "Vb NaN", EINVAL_, NULL, MD(Vb, NAN)),
+    C(mcd_binary_wilke_chang, "Vb 0", EDOM_, NULL, MD(Vb, 0.0)),
+    C(mcd_binary_wilke_chang, "out NULL", EINVAL_, NULL, MN(NB_O1)),
+    B(mcd_binary_omega_d, MCD_OK),
+    C(mcd_binary_omega_d, "T* 0", EDOM_, NULL, MD(Tstar, 0.0)),
+    C(mcd_binary_omega_d, "T* negative", EDOM_, NULL, MD(Tstar, -1.0)),
+    C(mcd_binary_omega_d, "T* NaN", EINVAL_, NULL, MD(Tstar, NAN)),
+    C(mcd_binary_omega_d, "T* inf", EINVAL_, NULL, MD(Tstar, INFINITY)),
+    C(mcd_binary_omega_d, "out NULL", EINVAL_, NULL, MN(NB_O1)),
     B(mcd_binary_scale, MCD_OK),
     C(mcd_binary_scale, "D_ref 0", EDOM_, NULL, MD(D_ref, 0.0)),
     C(mcd_binary_scale, "D_ref NaN", EINVAL_, NULL, MD(D_ref, NAN)),
@@ -864,31 +864,31 @@ static const bcase cases[] = {
     C(mcd_binary_scale, "exponent NaN", EINVAL_, NULL, MD(expo, NAN)),
     C(mcd_binary_scale, "out NULL", EINVAL_, NULL, MN(NB_O1)),
     C(mcd_binary_scale, "result overflows", EDOM_, NULL, MD(expo, 400.0), MD(T, 3000.0)),
-    B(mcd_binary_gas, MCD_OK),
-    C(mcd_binary_gas, "db NULL", EINVAL_, NULL, MN(NB_DB)),
-    C(mcd_binary_gas, "out_D NULL", EINVAL_, NULL, MN(NB_O1)),
-    C(mcd_binary_gas, "a out of range", MCD_ENOTFOUND, NULL, MZ(ga, 100000)),
-    C(mcd_binary_gas, "b SIZE_MAX", MCD_ENOTFOUND, NULL, MZ(gb, SIZE_MAX)),
-    C(mcd_binary_gas, "method WILKE_CHANG", EINVAL_, NULL, MI(method, MCD_METHOD_WILKE_CHANG)),
-    C(mcd_binary_gas, "method USER", EINVAL_, NULL, MI(method, MCD_METHOD_USER)),
-    C(mcd_binary_gas, "method 99", EINVAL_, NULL, MI(method, 99)),
-    C(mcd_binary_gas, "T 0", EDOM_, NULL, MD(T, 0.0)),
-    C(mcd_binary_gas, "P NaN", EINVAL_, NULL, MD(P, NAN)),
-    C(mcd_binary_gas, "T -inf", EINVAL_, NULL, MD(T, -INFINITY)),
-    C(mcd_binary_gas, "sigma missing", MCD_ENODATA, NULL, MZ(ga, PROBE),
+    B(mcd_db_binary_gas, MCD_OK),
+    C(mcd_db_binary_gas, "db NULL", EINVAL_, NULL, MN(NB_DB)),
+    C(mcd_db_binary_gas, "out_D NULL", EINVAL_, NULL, MN(NB_O1)),
+    C(mcd_db_binary_gas, "a out of range", MCD_ENOTFOUND, NULL, MZ(ga, 100000)),
+    C(mcd_db_binary_gas, "b SIZE_MAX", MCD_ENOTFOUND, NULL, MZ(gb, SIZE_MAX)),
+    C(mcd_db_binary_gas, "method WILKE_CHANG", EINVAL_, NULL, MI(method, MCD_METHOD_WILKE_CHANG)),
+    C(mcd_db_binary_gas, "method USER", EINVAL_, NULL, MI(method, MCD_METHOD_USER)),
+    C(mcd_db_binary_gas, "method 99", EINVAL_, NULL, MI(method, 99)),
+    C(mcd_db_binary_gas, "T 0", EDOM_, NULL, MD(T, 0.0)),
+    C(mcd_db_binary_gas, "P NaN", EINVAL_, NULL, MD(P, NAN)),
+    C(mcd_db_binary_gas, "T -inf", EINVAL_, NULL, MD(T, -INFINITY)),
+    C(mcd_db_binary_gas, "sigma missing", MCD_ENODATA, NULL, MZ(ga, PROBE),
       MI(method, MCD_METHOD_CHAPMAN_ENSKOG)),
-    C(mcd_binary_gas, "Wilke-Lee below M_AB 0.105 g/mol", EDOM_, NULL, MZ(ga, PROBE2),
+    C(mcd_db_binary_gas, "Wilke-Lee below M_AB 0.105 g/mol", EDOM_, NULL, MZ(ga, PROBE2),
       MZ(gb, PROBE2), MI(method, MCD_METHOD_WILKE_LEE)),
-    B(mcd_binary_liquid, MCD_OK),
-    C(mcd_binary_liquid, "db NULL", EINVAL_, NULL, MN(NB_DB)),
-    C(mcd_binary_liquid, "out_D NULL", EINVAL_, NULL, MN(NB_O1)),
-    C(mcd_binary_liquid, "solute out of range", MCD_ENOTFOUND, NULL, MZ(sol, 100000)),
-    C(mcd_binary_liquid, "solvent out of range", MCD_ENOTFOUND, NULL, MZ(solv, 100000)),
-    C(mcd_binary_liquid, "T NaN", EINVAL_, NULL, MD(T, NAN)),
-    C(mcd_binary_liquid, "T 0", EDOM_, NULL, MD(T, 0.0)),
-    C(mcd_binary_liquid, "mu 0", EDOM_, NULL, MD(mu, 0.0)),
-    C(mcd_binary_liquid, "mu negative", EDOM_, NULL, MD(mu, -1e-3)),
-    C(mcd_binary_liquid, "solute without Vb", MCD_ENODATA, NULL, MZ(sol, PROBE)),
+    B(mcd_db_binary_liquid, MCD_OK),
+    C(mcd_db_binary_liquid, "db NULL", EINVAL_, NULL, MN(NB_DB)),
+    C(mcd_db_binary_liquid, "out_D NULL", EINVAL_, NULL, MN(NB_O1)),
+    C(mcd_db_binary_liquid, "solute out of range", MCD_ENOTFOUND, NULL, MZ(sol, 100000)),
+    C(mcd_db_binary_liquid, "solvent out of range", MCD_ENOTFOUND, NULL, MZ(solv, 100000)),
+    C(mcd_db_binary_liquid, "T NaN", EINVAL_, NULL, MD(T, NAN)),
+    C(mcd_db_binary_liquid, "T 0", EDOM_, NULL, MD(T, 0.0)),
+    C(mcd_db_binary_liquid, "mu 0", EDOM_, NULL, MD(mu, 0.0)),
+    C(mcd_db_binary_liquid, "mu negative", EDOM_, NULL, MD(mu, -1e-3)),
+    C(mcd_db_binary_liquid, "solute without Vb", MCD_ENODATA, NULL, MZ(sol, PROBE)),
 
     /* ---- mixtures ---- */
     B(mcd_mixture_new, MCD_OK),
@@ -906,8 +906,8 @@ static const bcase cases[] = {
     C(mcd_mixture_new, "method 0", EINVAL_, NULL, MI(method, 0)),
     B(mcd_mixture_free, R_VOID),
     C(mcd_mixture_free, "NULL is a no-op", R_VOID, NULL, MN(NB_MIX)),
-    B(mcd_mixture_count, R_VALUE),
-    C(mcd_mixture_count, "NULL", R_ZERO, NULL, MN(NB_MIX)),
+    B(mcd_mixture_species_count, R_VALUE),
+    C(mcd_mixture_species_count, "NULL", R_ZERO, NULL, MN(NB_MIX)),
     B(mcd_mixture_name, R_VALUE),
     C(mcd_mixture_name, "NULL", R_NULL, NULL, MN(NB_MIX)),
     C(mcd_mixture_name, "i = n", R_NULL, NULL, MZ(i, 3)),
@@ -944,21 +944,21 @@ static const bcase cases[] = {
     C(mcd_mixture_binaries, "P inf", EINVAL_, NULL, MD(P, INFINITY)),
 
     /* ---- workspaces ---- */
-    B(mcd_workspace_alloc, MCD_OK),
-    C(mcd_workspace_alloc, "n 0", EINVAL_, NULL, MZ(n, 0)),
-    C(mcd_workspace_alloc, "n above MCD_MAX_SPECIES", EINVAL_, NULL, MZ(n, BIG)),
-    C(mcd_workspace_alloc, "n SIZE_MAX", EINVAL_, NULL, MZ(n, SIZE_MAX)),
-    C(mcd_workspace_alloc, "out NULL", EINVAL_, NULL, MN(NB_OWS)),
-    B(mcd_workspace_alloc_with, MCD_OK),
-    C(mcd_workspace_alloc_with, "allocator fails", MCD_ENOMEM, NULL, MI(fail_alloc, 1)),
-    C(mcd_workspace_alloc_with, "allocator NULL", EINVAL_, NULL, MN(NB_ALLOC)),
-    C(mcd_workspace_alloc_with, "n 0", EINVAL_, NULL, MZ(n, 0)),
-    C(mcd_workspace_alloc_with, "n above MCD_MAX_SPECIES", EINVAL_, NULL, MZ(n, BIG)),
-    C(mcd_workspace_alloc_with, "out NULL", EINVAL_, NULL, MN(NB_OWS)),
+    B(mcd_workspace_new, MCD_OK),
+    C(mcd_workspace_new, "n 0", EINVAL_, NULL, MZ(n, 0)),
+    C(mcd_workspace_new, "n above MCD_MAX_SPECIES", EINVAL_, NULL, MZ(n, BIG)),
+    C(mcd_workspace_new, "n SIZE_MAX", EINVAL_, NULL, MZ(n, SIZE_MAX)),
+    C(mcd_workspace_new, "out NULL", EINVAL_, NULL, MN(NB_OWS)),
+    B(mcd_workspace_new_with, MCD_OK),
+    C(mcd_workspace_new_with, "allocator fails", MCD_ENOMEM, NULL, MI(fail_alloc, 1)),
+    C(mcd_workspace_new_with, "allocator NULL", EINVAL_, NULL, MN(NB_ALLOC)),
+    C(mcd_workspace_new_with, "n 0", EINVAL_, NULL, MZ(n, 0)),
+    C(mcd_workspace_new_with, "n above MCD_MAX_SPECIES", EINVAL_, NULL, MZ(n, BIG)),
+    C(mcd_workspace_new_with, "out NULL", EINVAL_, NULL, MN(NB_OWS)),
     B(mcd_workspace_free, R_VOID),
     C(mcd_workspace_free, "NULL is a no-op", R_VOID, NULL, MN(NB_WS)),
-    B(mcd_workspace_species, R_VALUE),
-    C(mcd_workspace_species, "NULL", R_ZERO, NULL, MN(NB_WS)),
+    B(mcd_workspace_capacity, R_VALUE),
+    C(mcd_workspace_capacity, "NULL", R_ZERO, NULL, MN(NB_WS)),
     B(mcd_workspace_last_error, R_EMPTY),
     C(mcd_workspace_last_error, "NULL gives \"\"", R_EMPTY, NULL, MN(NB_WS)),
 
@@ -1052,8 +1052,8 @@ static const bcase cases[] = {
     C(mcd_fick_fluxes, "conc negative", EDOM_, NULL, MD(conc, -1.0)),
     B(mcd_fick_eigenvalues, MCD_OK),
     C(mcd_fick_eigenvalues, "ws NULL", EINVAL_, NULL, MN(NB_WS)),
-    C(mcd_fick_eigenvalues, "m = capacity", MCD_EBADLEN, "m", MZ(m, 3)),
-    C(mcd_fick_eigenvalues, "m SIZE_MAX", MCD_EBADLEN, "m", MZ(m, SIZE_MAX)),
+    C(mcd_fick_eigenvalues, "order = capacity", MCD_EBADLEN, "order", MZ(m, 3)),
+    C(mcd_fick_eigenvalues, "order SIZE_MAX", MCD_EBADLEN, "order", MZ(m, SIZE_MAX)),
     C(mcd_fick_eigenvalues, "D NULL", EINVAL_, "D", MN(NB_F)),
     C(mcd_fick_eigenvalues, "out_re NULL", EINVAL_, "out_re", MN(NB_O1)),
     C(mcd_fick_eigenvalues, "out_im NULL", EINVAL_, "out_im", MN(NB_O2)),
@@ -1114,12 +1114,12 @@ static const bcase cases[] = {
       MZ(species, 2), MDA(x, 2, 0.0), MDA(x, 0, 0.7)),
     C(mcd_flux_total, "bulk flux overflows", EDOM_, NULL, MI(kind, MCD_BOOT_STAGNANT),
       MZ(species, 2), MDA(x, 2, 1e-10), MDA(x, 0, 0.7 - 1e-10), MDA(J, 4, 1e300)),
-    FRAME_COMMON(mcd_velocity_difference, 1),
-    C(mcd_velocity_difference, "M NULL", EINVAL_, NULL, MN(NB_M)),
-    C(mcd_velocity_difference, "M negative", EDOM_, NULL, MDA(M, 1, -0.032)),
-    C(mcd_velocity_difference, "c 0", EDOM_, NULL, MD(c, 0.0)),
-    C(mcd_velocity_difference, "c inf", EINVAL_, NULL, MD(c, INFINITY)),
-    C(mcd_velocity_difference, "v - u overflows", EDOM_, NULL, MD(c, 1e-300), MDA(J, 0, 1e300)),
+    FRAME_COMMON(mcd_flux_velocity_difference, 1),
+    C(mcd_flux_velocity_difference, "M NULL", EINVAL_, NULL, MN(NB_M)),
+    C(mcd_flux_velocity_difference, "M negative", EDOM_, NULL, MDA(M, 1, -0.032)),
+    C(mcd_flux_velocity_difference, "c 0", EDOM_, NULL, MD(c, 0.0)),
+    C(mcd_flux_velocity_difference, "c inf", EINVAL_, NULL, MD(c, INFINITY)),
+    C(mcd_flux_velocity_difference, "v - u overflows", EDOM_, NULL, MD(c, 1e-300), MDA(J, 0, 1e300)),
     B(mcd_flux_project, MCD_OK),
     C(mcd_flux_project, "n 0", EINVAL_, NULL, MZ(n, 0)),
     C(mcd_flux_project, "n above MCD_MAX_SPECIES", EINVAL_, NULL, MZ(n, BIG)),
@@ -1204,8 +1204,8 @@ static const bcase cases[] = {
     C(mcd_workspace_set_iterative, "tol NaN", EINVAL_, "tol", MD(tol_it, NAN)),
     C(mcd_workspace_set_iterative, "tol inf", EINVAL_, "tol", MD(tol_it, INFINITY)),
     C(mcd_workspace_set_iterative, "tol negative", EINVAL_, "tol", MD(tol_it, -1e-10)),
-    B(mcd_workspace_iterative_info, MCD_OK),
-    C(mcd_workspace_iterative_info, "ws NULL", EINVAL_, NULL, MN(NB_WS)),
+    B(mcd_workspace_iterative_outcome, MCD_OK),
+    C(mcd_workspace_iterative_outcome, "ws NULL", EINVAL_, NULL, MN(NB_WS)),
     B(mcd_workspace_set_threads, MCD_OK),
     C(mcd_workspace_set_threads, "ws NULL", EINVAL_, NULL, MN(NB_WS)),
     B(mcd_mixture_set_temperature_fit, MCD_OK),
@@ -1222,9 +1222,9 @@ static const bcase cases[] = {
     /* ---- transfer ---- */
 #define XFER_COMMON(fn, x0w)                                                          \
     B(fn, MCD_OK), C(fn, "ws NULL", EINVAL_, NULL, MN(NB_WS)),                              \
-        C(fn, "n 1", EINVAL_, "n", MZ(n, 1)), C(fn, "n 0", EINVAL_, "n", MZ(n, 0)),          \
-        C(fn, "n above capacity", MCD_EBADLEN, "n", MZ(n, 4)),                               \
-        C(fn, "n above MCD_MAX_SPECIES", EINVAL_, "n", MZ(n, BIG)),                          \
+        C(fn, "n 1", EINVAL_, "n_species", MZ(n, 1)), C(fn, "n 0", EINVAL_, "n_species", MZ(n, 0)),          \
+        C(fn, "n above capacity", MCD_EBADLEN, "n_species", MZ(n, 4)),                               \
+        C(fn, "n above MCD_MAX_SPECIES", EINVAL_, "n_species", MZ(n, BIG)),                          \
         C(fn, "Dij NULL", EINVAL_, "Dij", MN(NB_D)),                                        \
         C(fn, "Dij NaN", EINVAL_, "Dij", MDA(D, 1, NAN), MDA(D, 3, NAN)),                    \
         C(fn, "Dij 0", EDOM_, "Dij", MDA(D, 5, 0.0), MDA(D, 7, 0.0)),                        \
@@ -1298,7 +1298,7 @@ static void ctx_init(ctx *c)
     static const char *const mixnames[3] = {"nitrogen", "oxygen", "carbon-dioxide"};
     size_t idx;
     memset(c, 0, sizeof *c);
-    ck_assert_int_eq(mcd_workspace_alloc(3, &c->ws), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(3, &c->ws), MCD_OK);
     ck_assert_int_eq(mcd_db_new_builtin(&c->db), MCD_OK);
     /* probe species: silane has no diffusion-volume increment for Si and no
      * Lennard-Jones or liquid parameters */
@@ -1364,7 +1364,7 @@ static void ctx_init(ctx *c)
     c->Tc[0] = 300.0;
     c->Pc[0] = MCD_ATM;
     c->cc[0] = MCD_ATM / (MCD_GAS_CONSTANT * 300.0);
-    ck_assert_int_eq(mcd_workspace_alloc(2, &c->ws2), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(2, &c->ws2), MCD_OK);
     c->model = MCD_MODEL_MAXWELL_STEFAN;
     c->basis = MCD_BASIS_MOLE;
     c->basis2 = MCD_BASIS_MOLE;
@@ -1451,7 +1451,7 @@ static uint64_t fnv(uint64_t h, const void *p, size_t len)
 static uint64_t db_fingerprint(const mcd_db *db)
 {
     uint64_t h = 0xcbf29ce484222325ull;
-    size_t n = mcd_db_count(db);
+    size_t n = mcd_db_species_count(db);
     h = fnv(h, &n, sizeof n);
     for (size_t i = 0; i < n; i++) {
         const char *s = mcd_db_name(db, i), *f = mcd_db_formula(db, i);

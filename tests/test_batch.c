@@ -158,7 +158,7 @@ START_TEST(batch_dij_matches_single_state_calls)
     size_t ni, n, K, k, cfg;
     mcd_workspace *ws;
     sup_seed(&rng, 0xBA7C4001ull + (uint64_t)_i);
-    ck_assert_int_eq(mcd_workspace_alloc(100, &ws), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(100, &ws), MCD_OK);
     for (ni = (size_t)_i; ni < sizeof Ns / sizeof Ns[0]; ni += 4) {
         n = Ns[ni];
         for (cfg = 0; cfg < 24; cfg++) {
@@ -224,7 +224,7 @@ static mcd_mixture *make_mix(size_t n, int lj)
 {
     const char *names[64];
     mcd_mixture *m = NULL;
-    size_t i, cnt = mcd_db_count(db), got = 0;
+    size_t i, cnt = mcd_db_species_count(db), got = 0;
     for (i = 0; i < cnt && got < n; i++) {
         double v;
         if (lj && (mcd_db_param(db, i, MCD_PARAM_LJ_SIGMA, &v) != MCD_OK ||
@@ -247,7 +247,7 @@ START_TEST(batch_mixture_matches_single_state_calls)
     mcd_workspace *ws;
     sup_seed(&rng, 0xBA7C4002ull);
     ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK);
-    ck_assert_int_eq(mcd_workspace_alloc(30, &ws), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(30, &ws), MCD_OK);
     for (ni = 0; ni < sizeof Ns / sizeof Ns[0]; ni++) {
         size_t n = Ns[ni], K = 13 + ni, nd = 3, k, i, j, pass;
         mcd_mixture *m = make_mix(n, 1);
@@ -338,7 +338,7 @@ START_TEST(batch_power_law_mixture_iterative_matches_exact)
     double worst = 0.0;
     sup_seed(&rng, 0xBA7C4012ull);
     ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK);
-    ck_assert_int_eq(mcd_workspace_alloc(30, &ws), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(30, &ws), MCD_OK);
     for (ni = 0; ni < sizeof Ns / sizeof Ns[0]; ni++) {
         size_t n = Ns[ni], K = 17 + 3 * ni, nd = 3, k, i, j, pass;
         mcd_mixture *m = make_mix(n, 0);
@@ -394,8 +394,8 @@ START_TEST(batch_errors_name_the_cell_and_write_nothing_on_argument_errors)
     mcd_workspace *ws, *small;
     size_t i;
     sup_seed(&rng, 0xBA7C4003ull);
-    ck_assert_int_eq(mcd_workspace_alloc(N, &ws), MCD_OK);
-    ck_assert_int_eq(mcd_workspace_alloc(N - 1, &small), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(N, &ws), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(N - 1, &small), MCD_OK);
     cells_make(&s, N, K, ND);
     sup_guard_fill(out, N * ND * K);
 #define CALL(w, model, n, M, D, c, cb, comp, grad, fb, o) \
@@ -420,7 +420,7 @@ START_TEST(batch_errors_name_the_cell_and_write_nothing_on_argument_errors)
     ck_assert_int_eq(mcd_workspace_set_iterative(ws, 10, -1.0), MCD_EINVAL);
     ck_assert_int_eq(mcd_workspace_set_iterative(ws, 10, NAN), MCD_EINVAL);
     ck_assert_int_eq(mcd_workspace_set_iterative(NULL, 10, 1e-8), MCD_EINVAL);
-    ck_assert_int_eq(mcd_workspace_iterative_info(NULL, NULL, NULL), MCD_EINVAL);
+    ck_assert_int_eq(mcd_workspace_iterative_outcome(NULL, NULL, NULL), MCD_EINVAL);
     ck_assert_int_eq(mcd_workspace_set_threads(NULL, 1), MCD_EINVAL);
 
     /* per-cell errors: status, and the message names the lowest bad cell */
@@ -506,7 +506,7 @@ START_TEST(batch_overflowing_fluxes_are_reported_with_the_cell)
     size_t b, i, j;
     int model;
     sup_seed(&rng, 0xBA7C4011ull);
-    ck_assert_int_eq(mcd_workspace_alloc(N, &ws), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(N, &ws), MCD_OK);
     cells_make(&s, N, K, ND);
     for (b = 0; b < sizeof bad_cells / sizeof bad_cells[0]; b++) {
         const size_t k = bad_cells[b];
@@ -562,7 +562,7 @@ START_TEST(batch_threads_give_identical_results)
     double *o1, *o2;
     mcd_workspace *ws;
     sup_seed(&rng, 0xBA7C4004ull);
-    ck_assert_int_eq(mcd_workspace_alloc(n, &ws), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(n, &ws), MCD_OK);
     cells_make(&s, n, K, nd);
     o1 = xmalloc(n * nd * K * sizeof(double));
     o2 = xmalloc(n * nd * K * sizeof(double));
@@ -602,7 +602,7 @@ START_TEST(batch_outputs_at_every_line_offset_match_the_aos_path)
     mcd_workspace *ws;
     sup_seed(&rng, 0xBA7C4005ull);
     ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK);
-    ck_assert_int_eq(mcd_workspace_alloc(12, &ws), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(12, &ws), MCD_OK);
     for (ni = 0; ni < sizeof Ns / sizeof Ns[0]; ni++)
         for (ki = 0; ki < sizeof Ks / sizeof Ks[0]; ki++) {
             const size_t n = Ns[ni], K = Ks[ki], nd = ni == 0 ? 3 : 2;

@@ -245,13 +245,13 @@ END_TEST
 START_TEST(composition_ideal_gas_at_stp)
 {
     double c = 0.0;
-    ck_assert_int_eq(mcd_ideal_gas_c(273.15, MCD_ATM, &c), MCD_OK);
+    ck_assert_int_eq(mcd_comp_ideal_gas_c(273.15, MCD_ATM, &c), MCD_OK);
     ck_assert_double_eq_tol(c / (1.0 / 22.414e-3), 1.0, 3e-5);
     ck_assert_double_eq_tol(c, 44.615, 44.615 * 3e-5);
     /* scales as P / T */
     {
         double c2 = 0.0;
-        ck_assert_int_eq(mcd_ideal_gas_c(2.0 * 273.15, 3.0 * MCD_ATM, &c2), MCD_OK);
+        ck_assert_int_eq(mcd_comp_ideal_gas_c(2.0 * 273.15, 3.0 * MCD_ATM, &c2), MCD_OK);
         ck_assert_double_eq_tol(c2 / c, 1.5, 1e-15);
     }
 }
@@ -399,14 +399,14 @@ START_TEST(composition_error_paths_leave_outputs_untouched)
     }
 
     /* ideal gas */
-    EXPECT(mcd_ideal_gas_c(300.0, 1e5, NULL), MCD_EINVAL);
-    EXPECT(mcd_ideal_gas_c(nan, 1e5, &o1), MCD_EINVAL);
-    EXPECT(mcd_ideal_gas_c(300.0, inf, &o1), MCD_EINVAL);
-    EXPECT(mcd_ideal_gas_c(0.0, 1e5, &o1), MCD_EDOM);
-    EXPECT(mcd_ideal_gas_c(-300.0, 1e5, &o1), MCD_EDOM);
-    EXPECT(mcd_ideal_gas_c(300.0, 0.0, &o1), MCD_EDOM);
-    EXPECT(mcd_ideal_gas_c(300.0, -1.0, &o1), MCD_EDOM);
-    EXPECT(mcd_ideal_gas_c(1e-320, 1e300, &o1), MCD_EDOM); /* overflow */
+    EXPECT(mcd_comp_ideal_gas_c(300.0, 1e5, NULL), MCD_EINVAL);
+    EXPECT(mcd_comp_ideal_gas_c(nan, 1e5, &o1), MCD_EINVAL);
+    EXPECT(mcd_comp_ideal_gas_c(300.0, inf, &o1), MCD_EINVAL);
+    EXPECT(mcd_comp_ideal_gas_c(0.0, 1e5, &o1), MCD_EDOM);
+    EXPECT(mcd_comp_ideal_gas_c(-300.0, 1e5, &o1), MCD_EDOM);
+    EXPECT(mcd_comp_ideal_gas_c(300.0, 0.0, &o1), MCD_EDOM);
+    EXPECT(mcd_comp_ideal_gas_c(300.0, -1.0, &o1), MCD_EDOM);
+    EXPECT(mcd_comp_ideal_gas_c(1e-320, 1e300, &o1), MCD_EDOM); /* overflow */
 
     /* gradient conversions */
     {

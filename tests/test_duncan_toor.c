@@ -257,7 +257,7 @@ static void integrate_bulbs(const double *Dij, const double *x1_0,
 
 static mcd_workspace *ws;
 
-static void setup(void) { ck_assert_int_eq(mcd_workspace_alloc(NS, &ws), MCD_OK); }
+static void setup(void) { ck_assert_int_eq(mcd_workspace_new(NS, &ws), MCD_OK); }
 static void teardown(void)
 {
     mcd_workspace_free(ws);

@@ -226,7 +226,7 @@ static void check_state(const char *label, size_t n, const double *M, const doub
     long double *Jr = malloc(n * ND * sizeof *Jr), *jr = malloc(n * ND * sizeof *jr);
     size_t dep = 0;
     ck_assert(J && jm && F && JF && Jr && jr);
-    ck_assert_int_eq(mcd_workspace_alloc(n, &ws), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(n, &ws), MCD_OK);
     long double kappa = ref_fluxes(n, D, c, x, grad, Jr);
     const double tol = ACCURACY;
 
@@ -344,7 +344,7 @@ START_TEST(edge_cases_trace_species)
     {
         mcd_workspace *ws;
         double J[8];
-        ck_assert_int_eq(mcd_workspace_alloc(4, &ws), MCD_OK);
+        ck_assert_int_eq(mcd_workspace_new(4, &ws), MCD_OK);
         ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, 4, 2, M, D, C_TOT,
                                           MCD_BASIS_MOLE, x0, grad, NULL, NULL,
                                           MCD_BASIS_MOLE, J),
@@ -440,7 +440,7 @@ START_TEST(edge_cases_tiny_concentration_near_trace_species)
     double D[4] = {0.0, Dv, Dv, 0.0}, x[2] = {x0, 1.0}, g[2] = {g0, 0.0};
     double J[2], want;
     mcd_workspace *ws;
-    ck_assert_int_eq(mcd_workspace_alloc(2, &ws), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(2, &ws), MCD_OK);
     ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, 2, 1, NULL,
                                       D, c, MCD_BASIS_MOLE, x, g, NULL, NULL,
                                       MCD_BASIS_MOLE, J), MCD_OK);
@@ -475,7 +475,7 @@ START_TEST(edge_cases_trace_coupling_when_c_times_dij_underflows)
         D[i] = Dn[i] * 1e-30;
     for (i = 0; i < N * ND; i++)
         g[i] = g1[i] * 1e30;
-    ck_assert_int_eq(mcd_workspace_alloc(N, &ws), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(N, &ws), MCD_OK);
     ck_assert_msg(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, N, ND, NULL, D,
                                    1e-300, MCD_BASIS_MOLE, x, g, NULL, NULL,
                                    MCD_BASIS_MOLE, J) == MCD_OK,
@@ -519,7 +519,7 @@ START_TEST(edge_cases_mixture_averaged_when_c_times_dij_underflows)
         D[i] = Dn[i] * 1e-30;
     for (i = 0; i < N * ND; i++)
         g[i] = g1[i] * 1e30;
-    ck_assert_int_eq(mcd_workspace_alloc(N, &ws), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(N, &ws), MCD_OK);
     ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED, N, ND, NULL,
                                       Dn, 1.0, MCD_BASIS_MOLE, x, g1, NULL, NULL,
                                       MCD_BASIS_MOLE, Jr), MCD_OK);
@@ -575,7 +575,7 @@ START_TEST(edge_cases_molar_masses_decades_apart_are_an_error)
     double out[N * D3], guard = 12345.678, s, a;
     mcd_workspace *ws;
     size_t i, d;
-    ck_assert_int_eq(mcd_workspace_alloc(N, &ws), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(N, &ws), MCD_OK);
     for (i = 0; i < N * D3; i++)
         out[i] = guard;
     ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, N, D3, M, D,

@@ -88,7 +88,7 @@ static void random_state(state *s, size_t n, int allow_zero)
 }
 
 static mcd_workspace *ws;
-static void setup(void) { ck_assert_int_eq(mcd_workspace_alloc(NMAX, &ws), MCD_OK); }
+static void setup(void) { ck_assert_int_eq(mcd_workspace_new(NMAX, &ws), MCD_OK); }
 static void teardown(void)
 {
     mcd_workspace_free(ws);
@@ -379,7 +379,7 @@ START_TEST(fick_eigenvalues_that_overflow_are_an_error)
     const double over[4] = {a, a, a, a}, tri[4] = {a, 0.0, a, -a};
     double re[2], im[2];
     mcd_workspace *w;
-    ck_assert_int_eq(mcd_workspace_alloc(3, &w), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(3, &w), MCD_OK);
     sup_guard_fill(re, 2);
     sup_guard_fill(im, 2);
     ck_assert_int_eq(mcd_fick_eigenvalues(w, 2, over, re, im), MCD_EDOM);
@@ -468,7 +468,7 @@ START_TEST(fick_errors_leave_outputs_untouched)
         FM(MCD_EINVAL, "comp", ws, N, M, D, 0, NULL, NULL, 0, 0, out, &dep);
         FM(MCD_EINVAL, "Gamma", ws, N, M, D, 0, x, Gn, 0, 0, out, &dep);
     }
-    ck_assert_int_eq(mcd_workspace_alloc(2, &small), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(2, &small), MCD_OK);
     GUARDS();
     ck_assert_int_eq(mcd_fick_matrix(small, N, M, D, 0, x, NULL, 0, 0, out, &dep),
                      MCD_EBADLEN);
@@ -477,7 +477,7 @@ START_TEST(fick_errors_leave_outputs_untouched)
     GUARDS();
     ck_assert_int_eq(mcd_fick_eigenvalues(small, 2, out, re, im), MCD_EBADLEN);
     INTACT();
-    ck_assert(strstr(mcd_workspace_last_error(small), "m") != NULL);
+    ck_assert(strstr(mcd_workspace_last_error(small), "argument order") != NULL);
     mcd_workspace_free(small);
     GUARDS();
     ck_assert_int_eq(mcd_fick_eigenvalues(NULL, 2, out, re, im), MCD_EINVAL);

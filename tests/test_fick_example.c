@@ -54,7 +54,7 @@
 
 static mcd_workspace *ws;
 
-static void setup(void) { ck_assert_int_eq(mcd_workspace_alloc(NMAX, &ws), MCD_OK); }
+static void setup(void) { ck_assert_int_eq(mcd_workspace_new(NMAX, &ws), MCD_OK); }
 static void teardown(void)
 {
     mcd_workspace_free(ws);

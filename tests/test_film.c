@@ -661,7 +661,7 @@ static void ratios_film(const ref_film *f, size_t sp, double *x0, double *z,
 
 static mcd_workspace *ws;
 
-static void setup(void) { ck_assert_int_eq(mcd_workspace_alloc(NMAX, &ws), MCD_OK); }
+static void setup(void) { ck_assert_int_eq(mcd_workspace_new(NMAX, &ws), MCD_OK); }
 static void teardown(void) { mcd_workspace_free(ws); }
 
 /* Carty and Schrodt (1975) Stefan tube, data from memory (see top). */
@@ -678,7 +678,7 @@ START_TEST(film_stefan_tube_matches_published_fluxes)
     double c, N[3], z[11], X[33];
     size_t it = 0;
     double res = 1.0;
-    ck_assert_int_eq(mcd_ideal_gas_c(CS_T, CS_P, &c), MCD_OK);
+    ck_assert_int_eq(mcd_comp_ideal_gas_c(CS_T, CS_P, &c), MCD_OK);
     ck_assert_int_eq(mcd_film_solve(ws, 3, CS_D, c, CS_L, CS_X0, CS_XL,
                                     MCD_BOOT_STAGNANT, 2, NULL,
                                     MCD_FILM_EXACT, N, &it, &res),
@@ -723,7 +723,7 @@ END_TEST
 START_TEST(film_stefan_tube_linearized_is_close_to_exact)
 {
     double c, Ne[3], Nl[3];
-    ck_assert_int_eq(mcd_ideal_gas_c(CS_T, CS_P, &c), MCD_OK);
+    ck_assert_int_eq(mcd_comp_ideal_gas_c(CS_T, CS_P, &c), MCD_OK);
     ck_assert_int_eq(mcd_film_solve(ws, 3, CS_D, c, CS_L, CS_X0, CS_XL,
                                     MCD_BOOT_STAGNANT, 2, NULL,
                                     MCD_FILM_EXACT, Ne, NULL, NULL),
@@ -1036,7 +1036,7 @@ START_TEST(film_works_at_full_workspace_capacity)
         }
         for (size_t i = 0; i < n; i++)
             z[i] = (i == 0) ? x0[0] + 0.5 : (0.5 - x0[0]) / (double)(n - 1);
-        ck_assert_int_eq(mcd_workspace_alloc(n, &w), MCD_OK);
+        ck_assert_int_eq(mcd_workspace_new(n, &w), MCD_OK);
         for (int kind = 0; kind < 2; kind++) {
             mcd_bootstrap b = kind ? MCD_BOOT_RATIOS : MCD_BOOT_STAGNANT;
             for (int meth = 0; meth < 2; meth++) {
@@ -1105,7 +1105,7 @@ START_TEST(film_errors_leave_outputs_untouched)
     EXPECT(mcd_film_solve(ws, 1, D, 40, 0.1, x0, xL, MCD_BOOT_EQUIMOLAR, 0,
                           NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EINVAL);
-    ck_assert_int_eq(mcd_workspace_alloc(2, &small), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(2, &small), MCD_OK);
     EXPECT(mcd_film_solve(small, 3, D, 40, 0.1, x0, xL, MCD_BOOT_EQUIMOLAR,
                           0, NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EBADLEN);

@@ -105,7 +105,7 @@ static mcd_workspace *ws;
 
 static void setup(void)
 {
-    ck_assert_int_eq(mcd_workspace_alloc(NMAX, &ws), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(NMAX, &ws), MCD_OK);
 }
 static void teardown(void)
 {
@@ -810,7 +810,7 @@ START_TEST(flux_identities_errors_leave_output_untouched)
            NULL);
     EXPECT(CALL(ws, 0, 0, ND, M, D, 40.0, 0, x, g, NULL, NULL, 0), MCD_EINVAL,
            "n_species");
-    ck_assert_int_eq(mcd_workspace_alloc(2, &small), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(2, &small), MCD_OK);
     sup_guard_fill(out, N * ND);
     ck_assert_int_eq(mcd_flux_compute(small, 0, N, ND, M, D, 40.0, 0, x, g, NULL,
                                       NULL, 0, out),
@@ -951,30 +951,30 @@ START_TEST(flux_identities_workspace_alloc_and_failure_injection)
     counting cnt = {0, 0, 0};
     int total, k;
 
-    ck_assert_int_eq(mcd_workspace_alloc(0, &w), MCD_EINVAL);
-    ck_assert_int_eq(mcd_workspace_alloc(MCD_MAX_SPECIES + 1, &w), MCD_EINVAL);
-    ck_assert_int_eq(mcd_workspace_alloc(3, NULL), MCD_EINVAL);
+    ck_assert_int_eq(mcd_workspace_new(0, &w), MCD_EINVAL);
+    ck_assert_int_eq(mcd_workspace_new(MCD_MAX_SPECIES + 1, &w), MCD_EINVAL);
+    ck_assert_int_eq(mcd_workspace_new(3, NULL), MCD_EINVAL);
     ck_assert_ptr_eq(w, w0);
     mcd_workspace_free(NULL);
-    ck_assert_uint_eq(mcd_workspace_species(NULL), 0);
+    ck_assert_uint_eq(mcd_workspace_capacity(NULL), 0);
     ck_assert_str_eq(mcd_workspace_last_error(NULL), "");
 
     al.alloc = cnt_alloc;
     al.free = cnt_free;
     al.ud = &cnt;
-    ck_assert_int_eq(mcd_workspace_alloc_with(3, NULL, &w), MCD_EINVAL);
+    ck_assert_int_eq(mcd_workspace_new_with(3, NULL, &w), MCD_EINVAL);
     {
         mcd_allocator half = al;
         half.free = NULL;
-        ck_assert_int_eq(mcd_workspace_alloc_with(3, &half, &w), MCD_EINVAL);
+        ck_assert_int_eq(mcd_workspace_new_with(3, &half, &w), MCD_EINVAL);
         half = al;
         half.alloc = NULL;
-        ck_assert_int_eq(mcd_workspace_alloc_with(3, &half, &w), MCD_EINVAL);
+        ck_assert_int_eq(mcd_workspace_new_with(3, &half, &w), MCD_EINVAL);
     }
     ck_assert_int_eq(cnt.n_alloc, 0);
 
-    ck_assert_int_eq(mcd_workspace_alloc_with(7, &al, &w), MCD_OK);
-    ck_assert_uint_eq(mcd_workspace_species(w), 7);
+    ck_assert_int_eq(mcd_workspace_new_with(7, &al, &w), MCD_OK);
+    ck_assert_uint_eq(mcd_workspace_capacity(w), 7);
     ck_assert_str_eq(mcd_workspace_last_error(w), "");
     total = cnt.n_alloc;
     ck_assert_int_gt(total, 1);
@@ -985,14 +985,14 @@ START_TEST(flux_identities_workspace_alloc_and_failure_injection)
         counting c2 = {0, k, 0};
         mcd_workspace *w2 = w0;
         al.ud = &c2;
-        ck_assert_int_eq(mcd_workspace_alloc_with(7, &al, &w2), MCD_ENOMEM);
+        ck_assert_int_eq(mcd_workspace_new_with(7, &al, &w2), MCD_ENOMEM);
         ck_assert_ptr_eq(w2, w0);
         ck_assert_int_eq(c2.live, 0); /* nothing leaked */
     }
 
     /* largest capacity: allocates and reports it */
-    ck_assert_int_eq(mcd_workspace_alloc(MCD_MAX_SPECIES, &w), MCD_OK);
-    ck_assert_uint_eq(mcd_workspace_species(w), MCD_MAX_SPECIES);
+    ck_assert_int_eq(mcd_workspace_new(MCD_MAX_SPECIES, &w), MCD_OK);
+    ck_assert_uint_eq(mcd_workspace_capacity(w), MCD_MAX_SPECIES);
     mcd_workspace_free(w);
 }
 END_TEST
@@ -1006,7 +1006,7 @@ START_TEST(flux_identities_large_capacity_path_matches_small)
     mcd_workspace *big;
     int k;
     sup_seed(&rng, 0x5EED000Bu);
-    ck_assert_int_eq(mcd_workspace_alloc(64, &big), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(64, &big), MCD_OK);
     for (k = 0; k < 50; k++) {
         enum { NB = 60 };
         static double D[NB * NB], x[NB], g[NB], J[NB], sx;
@@ -1074,7 +1074,7 @@ START_TEST(flux_identities_per_state_calls_do_not_allocate)
     size_t i, j, nn, ns = 0;
     int pass, live, st[8];
     sup_seed(&rng, 0x5EED000Du);
-    ck_assert_int_eq(mcd_workspace_alloc(NB, &big), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(NB, &big), MCD_OK);
     for (i = 0; i < NB; i++) {
         x[i] = 1.0 / NB;
         M[i] = sup_range(&rng, 0.002, 0.2);

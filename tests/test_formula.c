@@ -405,17 +405,17 @@ START_TEST(formula_tabulated_molecule_volumes)
     };
     for (size_t i = 0; i < sizeof ref / sizeof ref[0]; ++i) {
         double V = SUP_GUARD;
-        ck_assert_int_eq(mcd_fsg_molecule_volume(ref[i].f, &V), MCD_OK);
+        ck_assert_int_eq(mcd_formula_molecule_volume(ref[i].f, &V), MCD_OK);
         ck_assert_msg(V == ref[i].V, "%s", ref[i].f);
     }
     {
         double V = SUP_GUARD;
-        ck_assert_int_eq(mcd_fsg_molecule_volume("CH4", &V), MCD_ENOTFOUND);
-        ck_assert_int_eq(mcd_fsg_molecule_volume("airx", &V), MCD_ENOTFOUND);
-        ck_assert_int_eq(mcd_fsg_molecule_volume("", &V), MCD_ENOTFOUND);
-        ck_assert_int_eq(mcd_fsg_molecule_volume("C(", &V), MCD_ENOTFOUND);
-        ck_assert_int_eq(mcd_fsg_molecule_volume(NULL, &V), MCD_EINVAL);
-        ck_assert_int_eq(mcd_fsg_molecule_volume("H2", NULL), MCD_EINVAL);
+        ck_assert_int_eq(mcd_formula_molecule_volume("CH4", &V), MCD_ENOTFOUND);
+        ck_assert_int_eq(mcd_formula_molecule_volume("airx", &V), MCD_ENOTFOUND);
+        ck_assert_int_eq(mcd_formula_molecule_volume("", &V), MCD_ENOTFOUND);
+        ck_assert_int_eq(mcd_formula_molecule_volume("C(", &V), MCD_ENOTFOUND);
+        ck_assert_int_eq(mcd_formula_molecule_volume(NULL, &V), MCD_EINVAL);
+        ck_assert_int_eq(mcd_formula_molecule_volume("H2", NULL), MCD_EINVAL);
         ck_assert(V == SUP_GUARD);
     }
 }

@@ -402,7 +402,7 @@ START_TEST(frames_velocity_difference_matches_construction)
         molar_flux(&s, s.u, J);
         for (size_t d = 0; d < s.nd; d++)
             ref[d] = s.vm[d] - s.u[d];
-        ck_assert_int_eq(mcd_velocity_difference(s.n, s.nd, s.M, s.c, s.x, J, dv),
+        ck_assert_int_eq(mcd_flux_velocity_difference(s.n, s.nd, s.M, s.c, s.x, J, dv),
                          MCD_OK);
         /* scale: velocities are O(1) m/s; compare absolutely */
         for (size_t d = 0; d < s.nd; d++)
@@ -626,22 +626,22 @@ START_TEST(frames_error_paths_leave_outputs_untouched)
 
     /* velocity difference */
     RESET();
-    EXPECT(mcd_velocity_difference(3, 2, NULL, 40.0, x, J, ob), MCD_EINVAL);
-    EXPECT(mcd_velocity_difference(3, 2, M, 40.0, NULL, J, ob), MCD_EINVAL);
-    EXPECT(mcd_velocity_difference(3, 2, M, 40.0, x, NULL, ob), MCD_EINVAL);
-    EXPECT(mcd_velocity_difference(3, 2, M, 40.0, x, J, NULL), MCD_EINVAL);
-    EXPECT(mcd_velocity_difference(0, 2, M, 40.0, x, J, ob), MCD_EINVAL);
-    EXPECT(mcd_velocity_difference(3, 5, M, 40.0, x, J, ob), MCD_EINVAL);
-    EXPECT(mcd_velocity_difference(3, 2, M, nan, x, J, ob), MCD_EINVAL);
-    EXPECT(mcd_velocity_difference(3, 2, M, 0.0, x, J, ob), MCD_EDOM);
+    EXPECT(mcd_flux_velocity_difference(3, 2, NULL, 40.0, x, J, ob), MCD_EINVAL);
+    EXPECT(mcd_flux_velocity_difference(3, 2, M, 40.0, NULL, J, ob), MCD_EINVAL);
+    EXPECT(mcd_flux_velocity_difference(3, 2, M, 40.0, x, NULL, ob), MCD_EINVAL);
+    EXPECT(mcd_flux_velocity_difference(3, 2, M, 40.0, x, J, NULL), MCD_EINVAL);
+    EXPECT(mcd_flux_velocity_difference(0, 2, M, 40.0, x, J, ob), MCD_EINVAL);
+    EXPECT(mcd_flux_velocity_difference(3, 5, M, 40.0, x, J, ob), MCD_EINVAL);
+    EXPECT(mcd_flux_velocity_difference(3, 2, M, nan, x, J, ob), MCD_EINVAL);
+    EXPECT(mcd_flux_velocity_difference(3, 2, M, 0.0, x, J, ob), MCD_EDOM);
     Mb[0] = 0.0;
-    EXPECT(mcd_velocity_difference(3, 2, Mb, 40.0, x, J, ob), MCD_EDOM);
+    EXPECT(mcd_flux_velocity_difference(3, 2, Mb, 40.0, x, J, ob), MCD_EDOM);
     Mb[0] = inf;
-    EXPECT(mcd_velocity_difference(3, 2, Mb, 40.0, x, J, ob), MCD_EINVAL);
+    EXPECT(mcd_flux_velocity_difference(3, 2, Mb, 40.0, x, J, ob), MCD_EINVAL);
     xb[1] = 0.31;
-    EXPECT(mcd_velocity_difference(3, 2, M, 40.0, xb, J, ob), MCD_EDOM);
+    EXPECT(mcd_flux_velocity_difference(3, 2, M, 40.0, xb, J, ob), MCD_EDOM);
     Jb[1] = nan;
-    EXPECT(mcd_velocity_difference(3, 2, M, 40.0, x, Jb, ob), MCD_EINVAL);
+    EXPECT(mcd_flux_velocity_difference(3, 2, M, 40.0, x, Jb, ob), MCD_EINVAL);
 
     /* projection: the in-out array and the residual stay untouched */
 #define EXPECT_P(wts, nn, nd, code)                               \

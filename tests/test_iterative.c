@@ -106,7 +106,7 @@ START_TEST(iterative_converges_to_the_exact_solution)
     static const size_t Ns[] = {2, 3, 5, 10, 20, 50, 100};
     mcd_workspace *ws;
     sup_seed(&rng, 0x17E4A7001ull);
-    ck_assert_int_eq(mcd_workspace_alloc(100, &ws), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(100, &ws), MCD_OK);
     for (size_t t = 0; t < sizeof Ns / sizeof Ns[0]; t++) {
         prob p;
         double e, est;
@@ -114,7 +114,7 @@ START_TEST(iterative_converges_to_the_exact_solution)
         prob_make(&p, Ns[t], ws, MCD_MODEL_MAXWELL_STEFAN);
         ck_assert_int_eq(mcd_workspace_set_iterative(ws, 500, 1e-14), MCD_OK);
         ck_assert_int_eq(run_iter(ws, &p), MCD_OK);
-        ck_assert_int_eq(mcd_workspace_iterative_info(ws, &est, &used), MCD_OK);
+        ck_assert_int_eq(mcd_workspace_iterative_outcome(ws, &est, &used), MCD_OK);
         e = prob_err(&p);
         fprintf(stderr, "N=%3zu tol 1e-14: error %.2e, estimate %.2e, %zu iterations\n",
                 Ns[t], e, est, used);
@@ -140,7 +140,7 @@ START_TEST(iterative_binary_stops_at_once)
 {
     mcd_workspace *ws;
     sup_seed(&rng, 0x17E4A7004ull);
-    ck_assert_int_eq(mcd_workspace_alloc(2, &ws), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(2, &ws), MCD_OK);
     for (int trial = 0; trial < 50; trial++) {
         prob p;
         double est;
@@ -148,7 +148,7 @@ START_TEST(iterative_binary_stops_at_once)
         prob_make(&p, 2, ws, MCD_MODEL_MAXWELL_STEFAN);
         ck_assert_int_eq(mcd_workspace_set_iterative(ws, 100, 1e-10), MCD_OK);
         ck_assert_int_eq(run_iter(ws, &p), MCD_OK);
-        ck_assert_int_eq(mcd_workspace_iterative_info(ws, &est, &used), MCD_OK);
+        ck_assert_int_eq(mcd_workspace_iterative_outcome(ws, &est, &used), MCD_OK);
         ck_assert_msg(used <= 3, "trial %d: %zu iterations", trial, used);
         ck_assert_msg(est <= 1e-10 && prob_err(&p) <= est, "trial %d: estimate %.3g, error %.3g",
                       trial, est, prob_err(&p));
@@ -165,7 +165,7 @@ START_TEST(iterative_error_estimate_is_honest)
     mcd_workspace *ws;
     double worst_ratio = 0.0;
     sup_seed(&rng, 0x17E4A7002ull);
-    ck_assert_int_eq(mcd_workspace_alloc(100, &ws), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(100, &ws), MCD_OK);
     for (size_t t = 0; t < sizeof Ns / sizeof Ns[0]; t++) {
         prob p;
         prob_make(&p, Ns[t], ws, MCD_MODEL_MAXWELL_STEFAN);
@@ -174,7 +174,7 @@ START_TEST(iterative_error_estimate_is_honest)
             size_t used;
             ck_assert_int_eq(mcd_workspace_set_iterative(ws, 1000, tols[q]), MCD_OK);
             ck_assert_int_eq(run_iter(ws, &p), MCD_OK);
-            ck_assert_int_eq(mcd_workspace_iterative_info(ws, &est, &used), MCD_OK);
+            ck_assert_int_eq(mcd_workspace_iterative_outcome(ws, &est, &used), MCD_OK);
             e = prob_err(&p);
             if (e / est > worst_ratio)
                 worst_ratio = e / est;
@@ -200,20 +200,20 @@ START_TEST(iterative_first_iterate_is_mixture_averaged_and_counts_iterations)
     double e1, e2, est;
     size_t used;
     sup_seed(&rng, 0x17E4A7003ull);
-    ck_assert_int_eq(mcd_workspace_alloc(12, &ws), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(12, &ws), MCD_OK);
     /* reference = mixture-averaged model: the starting point U^0; one
      * iteration moves away from it towards the exact solution */
     prob_make(&p, 12, ws, MCD_MODEL_MIXTURE_AVERAGED);
     ck_assert_int_eq(mcd_workspace_set_iterative(ws, 1, 0.0), MCD_OK);
     ck_assert_int_eq(run_iter(ws, &p), MCD_OK);
-    ck_assert_int_eq(mcd_workspace_iterative_info(ws, &est, &used), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_iterative_outcome(ws, &est, &used), MCD_OK);
     ck_assert_uint_eq(used, 1);
     /* after one iteration no contraction is known: infinite estimate */
     ck_assert(est > 1e300);
     e1 = prob_err(&p);
     ck_assert_int_eq(mcd_workspace_set_iterative(ws, 7, 0.0), MCD_OK);
     ck_assert_int_eq(run_iter(ws, &p), MCD_OK);
-    ck_assert_int_eq(mcd_workspace_iterative_info(ws, NULL, &used), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_iterative_outcome(ws, NULL, &used), MCD_OK);
     ck_assert_uint_eq(used, 7); /* tol 0: exactly max_iter */
     e2 = prob_err(&p);
     /* distance from the mixture-averaged start grows as the iterates

@@ -1,6 +1,6 @@
 /* test_mixture.c - mixtures of built-in species and their binary
  * diffusivity matrices: symmetry, zero diagonal, agreement with
- * mcd_binary_gas pair by pair, per-pair methods, user values and their
+ * mcd_db_binary_gas pair by pair, per-pair methods, user values and their
  * scaling, error reporting. */
 #include <check.h>
 #include <math.h>
@@ -44,7 +44,7 @@ static size_t dbi(const char *name)
     return i;
 }
 
-/* Compare the mixture matrix with mcd_binary_gas using methods[i*NS+j]. */
+/* Compare the mixture matrix with mcd_db_binary_gas using methods[i*NS+j]. */
 static void check_against_pairs(const mcd_method *methods, double T, double P)
 {
     double D[NS * NS], R[NS * NS];
@@ -62,7 +62,7 @@ static void check_against_pairs(const mcd_method *methods, double T, double P)
             /* Symmetric to the bit: each pair is computed once. */
             ck_assert(D[i * NS + j] == D[j * NS + i]);
             ck_assert_uint_eq(W[i * NS + j], W[j * NS + i]);
-            ck_assert_int_eq(mcd_binary_gas(db, dbi(names6[i]), dbi(names6[j]),
+            ck_assert_int_eq(mcd_db_binary_gas(db, dbi(names6[i]), dbi(names6[j]),
                                             methods[i * NS + j], T, P, &d, &r, &w),
                              MCD_OK);
             /* Same code path (copied parameters, same formula): identical,
@@ -109,7 +109,7 @@ START_TEST(mixture_per_pair_methods_are_used)
     double D[NS * NS];
     ck_assert_int_eq(mcd_mixture_binaries(m2, 300.0, 1e5, D, NULL, NULL), MCD_OK);
     double d = 0;
-    ck_assert_int_eq(mcd_binary_gas(db, dbi("water"), dbi("methane"), MCD_METHOD_WILKE_LEE,
+    ck_assert_int_eq(mcd_db_binary_gas(db, dbi("water"), dbi("methane"), MCD_METHOD_WILKE_LEE,
                                     300.0, 1e5, &d, NULL, NULL),
                      MCD_OK);
     ck_assert(D[3 * NS + 5] == d);
@@ -148,7 +148,7 @@ START_TEST(mixture_user_values_scale_with_t175_over_p)
     ck_assert_double_eq_tol(D[2 * NS + 0] / s, 1.0, 1e-15);
     /* Other pairs unaffected. */
     double d = 0;
-    ck_assert_int_eq(mcd_binary_gas(db, dbi("nitrogen"), dbi("oxygen"), MCD_METHOD_FSG, 415.0,
+    ck_assert_int_eq(mcd_db_binary_gas(db, dbi("nitrogen"), dbi("oxygen"), MCD_METHOD_FSG, 415.0,
                                     3.3e5, &d, NULL, NULL),
                      MCD_OK);
     ck_assert(D[0 * NS + 1] == d);
@@ -300,8 +300,8 @@ START_TEST(mixture_accessors_report_species)
     double M[NS];
     for (size_t i = 0; i < NS; i++)
         M[i] = SUP_GUARD;
-    ck_assert_uint_eq(mcd_mixture_count(mix), NS);
-    ck_assert_uint_eq(mcd_mixture_count(NULL), 0);
+    ck_assert_uint_eq(mcd_mixture_species_count(mix), NS);
+    ck_assert_uint_eq(mcd_mixture_species_count(NULL), 0);
     ck_assert_int_eq(mcd_mixture_molar_masses(mix, M), MCD_OK);
     for (size_t i = 0; i < NS; i++) {
         double m = 0;

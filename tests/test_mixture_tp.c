@@ -24,7 +24,7 @@ static mcd_mixture *lj_mixture(size_t n, mcd_method m)
 {
     const char *names[32];
     mcd_mixture *mix = NULL;
-    size_t got = 0, cnt = mcd_db_count(db);
+    size_t got = 0, cnt = mcd_db_species_count(db);
     for (size_t i = 0; i < cnt && got < n; i++) {
         double v;
         if (mcd_db_param(db, i, MCD_PARAM_LJ_SIGMA, &v) == MCD_OK &&
@@ -68,7 +68,7 @@ START_TEST(mixture_tp_fit_reports_its_error_and_batched_fluxes_honour_it)
     ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK);
     mix = lj_mixture(N, MCD_METHOD_CHAPMAN_ENSKOG);
     ck_assert_int_eq(mcd_mixture_set_method(mix, 1, 4, MCD_METHOD_WILKE_LEE), MCD_OK);
-    ck_assert_int_eq(mcd_workspace_alloc(N, &ws), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(N, &ws), MCD_OK);
     ck_assert_int_eq(mcd_mixture_temperature_fit(mix, &tmin, &tmax, &err), MCD_OK);
     ck_assert(tmin == 0.0 && tmax == 0.0 && err == 0.0);
     /* errors */

@@ -54,7 +54,7 @@ static const char *const canonical[] = {
 
 START_TEST(species_builtin_has_all_canonical_names)
 {
-    size_t n = mcd_db_count(db);
+    size_t n = mcd_db_species_count(db);
     ck_assert_uint_ge(n, 40);
     for (size_t k = 0; k < sizeof canonical / sizeof canonical[0]; ++k) {
         size_t i = find(canonical[k]);
@@ -65,7 +65,7 @@ END_TEST
 
 START_TEST(species_builtin_names_unique_and_valid)
 {
-    size_t n = mcd_db_count(db);
+    size_t n = mcd_db_species_count(db);
     for (size_t i = 0; i < n; ++i) {
         const char *a = mcd_db_name(db, i);
         ck_assert_ptr_nonnull(a);
@@ -86,7 +86,7 @@ START_TEST(species_builtin_molar_mass_agrees_with_formula)
     /* Table M vs M from the formula: 1e-4 relative (table values are
      * rounded to 0.1 mg/mol, i.e. <= 3e-5 relative for M >= 2 g/mol). Air
      * and deuterium have pseudo-formulas; checked against their sources. */
-    size_t n = mcd_db_count(db);
+    size_t n = mcd_db_species_count(db);
     double worst = 0.0;
     for (size_t i = 0; i < n; ++i) {
         const char *name = mcd_db_name(db, i);
@@ -123,14 +123,14 @@ START_TEST(species_builtin_diffusion_volume_from_method)
     /* V_diff is the tabulated molecular volume when the method has one,
      * else the increment sum with 0..2 ring corrections; the source text
      * says which. 1e-9 absolute: round-off of a short sum. */
-    size_t n = mcd_db_count(db);
+    size_t n = mcd_db_species_count(db);
     for (size_t i = 0; i < n; ++i) {
         const char *f = mcd_db_formula(db, i);
         const char *src = mcd_db_source(db, i, MCD_PARAM_DIFF_VOLUME);
         double V, Vt;
         ck_assert_int_eq(mcd_db_param(db, i, MCD_PARAM_DIFF_VOLUME, &V), MCD_OK);
         ck_assert_ptr_nonnull(src);
-        if (mcd_fsg_molecule_volume(f, &Vt) == MCD_OK) {
+        if (mcd_formula_molecule_volume(f, &Vt) == MCD_OK) {
             ck_assert_msg(V == Vt, "%s", f);
             ck_assert_ptr_nonnull(strstr(src, "tabulated"));
         } else {
@@ -155,7 +155,7 @@ END_TEST
 
 START_TEST(species_builtin_parameters_in_physical_ranges)
 {
-    size_t n = mcd_db_count(db);
+    size_t n = mcd_db_species_count(db);
     for (size_t i = 0; i < n; ++i) {
         const char *name = mcd_db_name(db, i);
         double v, Tb, Tc;
@@ -262,8 +262,8 @@ END_TEST
 START_TEST(species_accessors_reject_bad_arguments)
 {
     double v = SUP_GUARD;
-    size_t n = mcd_db_count(db);
-    ck_assert_uint_eq(mcd_db_count(NULL), 0);
+    size_t n = mcd_db_species_count(db);
+    ck_assert_uint_eq(mcd_db_species_count(NULL), 0);
     ck_assert_ptr_null(mcd_db_name(db, n));
     ck_assert_ptr_null(mcd_db_name(NULL, 0));
     ck_assert_ptr_null(mcd_db_formula(db, n));
@@ -303,13 +303,13 @@ END_TEST
 
 START_TEST(species_add_new_species_from_formula)
 {
-    size_t n = mcd_db_count(db), i = 777;
+    size_t n = mcd_db_species_count(db), i = 777;
     double M, V, Mf, s = SUP_GUARD;
     char err[128] = "";
     ck_assert_int_eq(mcd_db_add(db, "methyl-acetate", "CH3COOCH3", 0, &i, err,
                                 sizeof err), MCD_OK);
     ck_assert_uint_eq(i, n);
-    ck_assert_uint_eq(mcd_db_count(db), n + 1);
+    ck_assert_uint_eq(mcd_db_species_count(db), n + 1);
     ck_assert_str_eq(mcd_db_formula(db, i), "CH3COOCH3");
     ck_assert_int_eq(mcd_db_param(db, i, MCD_PARAM_MOLAR_MASS, &M), MCD_OK);
     ck_assert_int_eq(mcd_formula_molar_mass("C3H6O2", &Mf, NULL, 0), MCD_OK);
@@ -346,11 +346,11 @@ END_TEST
 
 START_TEST(species_override_keeps_index_and_resets)
 {
-    size_t iw = find("water"), n = mcd_db_count(db), i = 777;
+    size_t iw = find("water"), n = mcd_db_species_count(db), i = 777;
     double v = SUP_GUARD;
     ck_assert_int_eq(mcd_db_add(db, "Water", "H2O", 0, &i, NULL, 0), MCD_OK);
     ck_assert_uint_eq(i, iw);
-    ck_assert_uint_eq(mcd_db_count(db), n);
+    ck_assert_uint_eq(mcd_db_species_count(db), n);
     ck_assert_str_eq(mcd_db_name(db, iw), "Water"); /* the new spelling */
     ck_assert_int_eq(mcd_db_param(db, iw, MCD_PARAM_LJ_SIGMA, &v), MCD_ENODATA);
     ck_assert_int_eq(mcd_db_param(db, iw, MCD_PARAM_ASSOC, &v), MCD_ENODATA);
@@ -378,7 +378,7 @@ START_TEST(species_add_rejects_bad_input_without_change)
         {"ok", "H2", 1, MCD_EINVAL},   /* volume would be negative */
         {"water", "C(", 0, MCD_EPARSE}, /* failed override keeps the old */
     };
-    size_t n = mcd_db_count(db), iw = find("water"), i = 777;
+    size_t n = mcd_db_species_count(db), iw = find("water"), i = 777;
     double s;
     for (size_t k = 0; k < sizeof bad / sizeof bad[0]; ++k) {
         char err[128] = "";
@@ -386,7 +386,7 @@ START_TEST(species_add_rejects_bad_input_without_change)
                                     bad[k].rings, &i, err, sizeof err),
                          bad[k].st);
         ck_assert_msg(strlen(err) > 0, "no message for %s", bad[k].name);
-        ck_assert_uint_eq(mcd_db_count(db), n);
+        ck_assert_uint_eq(mcd_db_species_count(db), n);
         ck_assert_uint_eq(i, 777);
     }
     ck_assert_int_eq(mcd_db_param(db, iw, MCD_PARAM_LJ_SIGMA, &s), MCD_OK);
@@ -418,7 +418,7 @@ START_TEST(species_set_param_checks_range_and_marks_user)
     ck_assert_int_eq(mcd_db_set_param(db, i, MCD_PARAM_LJ_SIGMA, NAN), MCD_EINVAL);
     ck_assert_int_eq(mcd_db_set_param(db, i, MCD_PARAM_LJ_SIGMA, INFINITY), MCD_EINVAL);
     ck_assert_int_eq(mcd_db_set_param(db, i, MCD_PARAM_COUNT, 1.0), MCD_EINVAL);
-    ck_assert_int_eq(mcd_db_set_param(db, mcd_db_count(db), MCD_PARAM_TB, 1.0),
+    ck_assert_int_eq(mcd_db_set_param(db, mcd_db_species_count(db), MCD_PARAM_TB, 1.0),
                      MCD_EINVAL);
     ck_assert_int_eq(mcd_db_set_param(NULL, 0, MCD_PARAM_TB, 1.0), MCD_EINVAL);
     ck_assert_int_eq(mcd_db_param(db, i, MCD_PARAM_LJ_SIGMA, &v), MCD_OK);
@@ -434,7 +434,7 @@ START_TEST(species_database_grows_and_keeps_indices)
     mcd_db *d = NULL;
     char name[32];
     ck_assert_int_eq(mcd_db_new(&d), MCD_OK);
-    ck_assert_uint_eq(mcd_db_count(d), 0);
+    ck_assert_uint_eq(mcd_db_species_count(d), 0);
     for (int k = 0; k < 300; ++k) {
         size_t i;
         snprintf(name, sizeof name, "s%d", k);

@@ -54,7 +54,7 @@ static snap before, after;
 static void take(snap *s)
 {
     memset(s, 0, sizeof *s);
-    s->n = mcd_db_count(db);
+    s->n = mcd_db_species_count(db);
     ck_assert_uint_le(s->n, SNAP_MAX);
     for (size_t i = 0; i < s->n; ++i) {
         snprintf(s->name[i], 64, "%s", mcd_db_name(db, i));
@@ -86,13 +86,13 @@ static void assert_unchanged(void)
 
 START_TEST(species_file_example_loads)
 {
-    size_t n = mcd_db_count(db), in2 = find("nitrogen");
+    size_t n = mcd_db_species_count(db), in2 = find("nitrogen");
     char err[256] = "";
     mcd_status st = mcd_db_load_file(db, data_path("species-example.txt"), err,
                                      sizeof err);
     ck_assert_msg(st == MCD_OK, "%s", err);
     /* two new species appended, nitrogen replaced in place */
-    ck_assert_uint_eq(mcd_db_count(db), n + 2);
+    ck_assert_uint_eq(mcd_db_species_count(db), n + 2);
     ck_assert_uint_eq(find("methyl-acetate"), n);
     ck_assert_uint_eq(find("pyridine"), n + 1);
     ck_assert_uint_eq(find("nitrogen"), in2);
@@ -135,7 +135,7 @@ START_TEST(species_file_example_loads)
     /* loading the same file again replaces the same species: count same */
     ck_assert_int_eq(mcd_db_load_file(db, data_path("species-example.txt"), err,
                                       sizeof err), MCD_OK);
-    ck_assert_uint_eq(mcd_db_count(db), n + 2);
+    ck_assert_uint_eq(mcd_db_species_count(db), n + 2);
 }
 END_TEST
 
@@ -187,7 +187,7 @@ START_TEST(species_file_layout_variants_accepted)
         "Pc 1.313e6 Pa\n";
     ck_assert_int_eq(mcd_db_new(&d), MCD_OK);
     ck_assert_msg(mcd_db_load_string(d, text, err, sizeof err) == MCD_OK, "%s", err);
-    ck_assert_uint_eq(mcd_db_count(d), 5);
+    ck_assert_uint_eq(mcd_db_species_count(d), 5);
     ck_assert_int_eq(mcd_db_find(d, "a", &i), MCD_OK);
     ck_assert_int_eq(mcd_db_param(d, i, MCD_PARAM_LJ_SIGMA, &v), MCD_OK);
     ck_assert(sup_rel(v, 3.8e-10) < 1e-14);
@@ -210,7 +210,7 @@ START_TEST(species_file_layout_variants_accepted)
     /* a header alone is a valid, empty species file */
     ck_assert_int_eq(mcd_db_load_string(d, "mcdiff-species 1\n", err, sizeof err),
                      MCD_OK);
-    ck_assert_uint_eq(mcd_db_count(d), 5);
+    ck_assert_uint_eq(mcd_db_species_count(d), 5);
     mcd_db_free(d);
 }
 END_TEST

@@ -113,7 +113,7 @@ static void *worker(void *arg)
 {
     job *jb = arg;
     mcd_workspace *ws = NULL;
-    if (mcd_workspace_alloc(NS, &ws) != MCD_OK) {
+    if (mcd_workspace_new(NS, &ws) != MCD_OK) {
         jb->failures = NSTATES;
         return NULL;
     }
@@ -156,7 +156,7 @@ START_TEST(threads_results_bitwise_equal_serial)
     mcd_workspace *ws = NULL;
     pthread_t th[NTHREADS];
     job jobs[NTHREADS];
-    ck_assert_int_eq(mcd_workspace_alloc(NS, &ws), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(NS, &ws), MCD_OK);
     for (int k = 0; k < NSTATES; k++) {
         ck_assert_int_eq(compute_state(ws, k, g_serial[k]), MCD_OK);
         for (int q = 0; q < PER_STATE; q++)
@@ -200,7 +200,7 @@ static void *db_worker(void *arg)
         size_t a, b;
         if (mcd_db_find(g_db, "nitrogen", &a) != MCD_OK ||
             mcd_db_find(g_db, "helium", &b) != MCD_OK ||
-            mcd_binary_gas(g_db, a, b, MCD_METHOD_CHAPMAN_ENSKOG, 300.0 + r, MCD_ATM, &D,
+            mcd_db_binary_gas(g_db, a, b, MCD_METHOD_CHAPMAN_ENSKOG, 300.0 + r, MCD_ATM, &D,
                            NULL, &warn) != MCD_OK ||
             !(D > 0))
             j->bad++;

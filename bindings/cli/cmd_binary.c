@@ -184,10 +184,10 @@ int cli_cmd_binary(int argc, char **argv)
         r->rel_err = NAN;
         r->warn = 0;
         if (r->m == MCD_METHOD_WILKE_CHANG)
-            r->st = mcd_binary_liquid(db, idx[0], idx[1], T, mu, &r->D,
+            r->st = mcd_db_binary_liquid(db, idx[0], idx[1], T, mu, &r->D,
                                       &r->rel_err, &r->warn);
         else
-            r->st = mcd_binary_gas(db, idx[0], idx[1], r->m, T, P, &r->D,
+            r->st = mcd_db_binary_gas(db, idx[0], idx[1], r->m, T, P, &r->D,
                                    &r->rel_err, &r->warn);
         if (r->st == MCD_OK && best < 0)
             best = (int)k;

@@ -111,7 +111,7 @@ static void csv_species(cli_csv *c, const mcd_db *db, size_t i)
 
 static int list_all(const mcd_db *db, int json, int csv)
 {
-    size_t i, n = mcd_db_count(db), k;
+    size_t i, n = mcd_db_species_count(db), k;
     enum { NC = 2 + sizeof shown / sizeof shown[0] };
     cli_table t;
     const char *cells[NC];

@@ -425,7 +425,7 @@ int cli_state_setup(cli_state *s, const char *cmd)
     if (st != MCD_OK)
         return cli_fail(cmd, "converting the composition", st, NULL);
 
-    st = mcd_ideal_gas_c(s->T, s->P, &s->c);
+    st = mcd_comp_ideal_gas_c(s->T, s->P, &s->c);
     if (st != MCD_OK)
         return cli_fail(cmd, "ideal-gas concentration", st, NULL);
     st = mcd_mixture_binaries(s->mix, s->T, s->P, s->Dij, s->rel_err,
@@ -435,7 +435,7 @@ int cli_state_setup(cli_state *s, const char *cmd)
                  mcd_method_name(s->method));
         return cli_fail(cmd, "estimating binary diffusivities", st, err);
     }
-    st = mcd_workspace_alloc(n, &s->ws);
+    st = mcd_workspace_new(n, &s->ws);
     if (st != MCD_OK)
         return cli_fail(cmd, "allocating a workspace", st, NULL);
     return CLI_OK;

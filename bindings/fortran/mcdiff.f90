@@ -50,7 +50,7 @@
 !     grad_lnP(n_dim, n_cells).
 !
 ! Handles. mcd_db_t, mcd_mixture_t and mcd_workspace_t wrap a C pointer that
-! starts as c_null_ptr. Create them with the mcd_*_new / mcd_workspace_alloc
+! starts as c_null_ptr. Create them with the mcd_*_new / mcd_workspace_new
 ! subroutines (which first free what the handle held), release them with
 ! mcd_free (generic) or let them go out of scope (final procedures). Handles
 ! cannot be copied: `b = a` frees what b held and leaves b empty (a keeps the
@@ -83,7 +83,7 @@ module mcdiff
   !     MCD_ATM; MCD_DEPENDENT_AUTO, integer(c_size_t), is C's
   !     (size_t)-1 for the c_mcd_* layer: the wrappers use an absent
   !     `dependent` argument instead);
-  !   * mcd_allocator_t, C's mcd_allocator for mcd_workspace_alloc_with:
+  !   * mcd_allocator_t, C's mcd_allocator for mcd_workspace_new_with:
   !     alloc and free are c_funloc of bind(c) procedures with the C
   !     signatures
   !       type(c_ptr) function alloc(ud, size) (ud: c_ptr value, size:
@@ -140,32 +140,32 @@ module mcdiff
   public :: mcd_version_number, mcd_version_string, mcd_status_string, &
        mcd_free, mcd_associated, mcd_handle_ptr, &
        mcd_formula_molar_mass, mcd_param_name, mcd_param_unit, &
-       mcd_db_new, mcd_db_new_builtin, mcd_db_count, mcd_db_find, &
+       mcd_db_new, mcd_db_new_builtin, mcd_db_species_count, mcd_db_find, &
        mcd_db_name, mcd_db_formula, mcd_db_source, mcd_db_param, mcd_db_add, &
        mcd_db_set_param, mcd_db_load_file, mcd_db_load_string, &
        mcd_comp_normalize, mcd_comp_x_to_w, mcd_comp_w_to_x, &
        mcd_comp_mean_molar_mass_x, mcd_comp_mean_molar_mass_w, &
-       mcd_comp_x_to_c, mcd_comp_c_to_x, mcd_ideal_gas_c, &
+       mcd_comp_x_to_c, mcd_comp_c_to_x, mcd_comp_ideal_gas_c, &
        mcd_comp_grad_x_to_w, mcd_comp_grad_w_to_x, &
        mcd_method_name, mcd_method_from_name, mcd_method_typical_error, &
-       mcd_warning_string, mcd_fsg_raw, mcd_chapman_enskog_raw, &
-       mcd_binary_scale, mcd_binary_gas, &
-       mcd_mixture_new, mcd_mixture_count, mcd_mixture_name, &
+       mcd_warning_string, mcd_binary_fsg, mcd_binary_chapman_enskog, &
+       mcd_binary_scale, mcd_db_binary_gas, &
+       mcd_mixture_new, mcd_mixture_species_count, mcd_mixture_name, &
        mcd_mixture_molar_masses, mcd_mixture_set_method, &
        mcd_mixture_set_binary, mcd_mixture_binaries, &
-       mcd_workspace_alloc, mcd_workspace_species, mcd_workspace_last_error, &
+       mcd_workspace_new, mcd_workspace_capacity, mcd_workspace_last_error, &
        mcd_flux_compute, mcd_fick_matrix, mcd_fick_fluxes, &
        mcd_fick_eigenvalues, mcd_flux_convert, mcd_flux_total, &
        mcd_flux_project, mcd_flux_diagnose, mcd_film_solve, mcd_film_profile, &
        mcd_flux_batch, mcd_flux_batch_dij, mcd_flux_batch_aos, &
-       mcd_workspace_set_iterative, mcd_workspace_iterative_info, &
+       mcd_workspace_set_iterative, mcd_workspace_iterative_outcome, &
        mcd_workspace_set_threads, mcd_mixture_set_temperature_fit, &
        mcd_formula_elements, mcd_formula_diffusion_volume, &
-       mcd_fsg_molecule_volume, mcd_element_symbol, mcd_element_weight, &
-       mcd_collision_omega_d, mcd_workspace_alloc_with, &
-       mcd_wilke_lee_raw, mcd_wilke_chang_raw, mcd_binary_liquid, &
+       mcd_formula_molecule_volume, mcd_element_symbol, mcd_element_weight, &
+       mcd_binary_omega_d, mcd_workspace_new_with, &
+       mcd_binary_wilke_lee, mcd_binary_wilke_chang, mcd_db_binary_liquid, &
        mcd_flux_to_volume_frame, mcd_flux_to_species_frame, &
-       mcd_velocity_difference, mcd_mixture_temperature_fit, &
+       mcd_flux_velocity_difference, mcd_mixture_temperature_fit, &
        mcd_bulbs_linearized, mcd_bulbs_integrate
 
   !> Release a handle (any of the three types); an empty handle is a no-op.
@@ -512,10 +512,10 @@ contains
   end subroutine mcd_db_new_builtin
 
   !> Number of species (0 for an empty handle).
-  integer function mcd_db_count(db)
+  integer function mcd_db_species_count(db)
     type(mcd_db_t), intent(in) :: db
-    mcd_db_count = int(c_mcd_db_count(db%ptr))
-  end function mcd_db_count
+    mcd_db_species_count = int(c_mcd_db_species_count(db%ptr))
+  end function mcd_db_species_count
 
   !> 1-based index of a species by name (case-insensitive) or unique formula.
   subroutine mcd_db_find(db, name, index, stat, errmsg)
@@ -695,13 +695,13 @@ contains
   end subroutine mcd_comp_c_to_x
 
   !> Ideal-gas total concentration c = P/(R T) [mol/m^3].
-  subroutine mcd_ideal_gas_c(T, P, c, stat, errmsg)
+  subroutine mcd_comp_ideal_gas_c(T, P, c, stat, errmsg)
     real(c_double), intent(in) :: T, P
     real(c_double), intent(inout) :: c
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
-    call finish(c_mcd_ideal_gas_c(T, P, c), stat, errmsg)
-  end subroutine mcd_ideal_gas_c
+    call finish(c_mcd_comp_ideal_gas_c(T, P, c), stat, errmsg)
+  end subroutine mcd_comp_ideal_gas_c
 
   !> Mass-fraction gradients, arrays (n_dim, n).
   subroutine mcd_comp_grad_x_to_w(n, n_dim, M, x, grad_x, grad_w, stat, errmsg)
@@ -729,45 +729,45 @@ contains
   ! Binary diffusivities
   ! ==================================================================
 
-  subroutine mcd_fsg_raw(T, P, MA, MB, VA, VB, D, stat, errmsg)
+  subroutine mcd_binary_fsg(T, P, MA, MB, VA, VB, D, stat, errmsg)
     real(c_double), intent(in) :: T, P, MA, MB, VA, VB
     real(c_double), intent(inout) :: D
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
-    call finish(c_mcd_fsg_raw(T, P, MA, MB, VA, VB, D), stat, errmsg)
-  end subroutine mcd_fsg_raw
+    call finish(c_mcd_binary_fsg(T, P, MA, MB, VA, VB, D), stat, errmsg)
+  end subroutine mcd_binary_fsg
 
-  subroutine mcd_chapman_enskog_raw(T, P, MA, MB, sigA, sigB, epsA, epsB, D, stat, errmsg)
+  subroutine mcd_binary_chapman_enskog(T, P, MA, MB, sigA, sigB, epsA, epsB, D, stat, errmsg)
     real(c_double), intent(in) :: T, P, MA, MB, sigA, sigB, epsA, epsB
     real(c_double), intent(inout) :: D
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
-    call finish(c_mcd_chapman_enskog_raw(T, P, MA, MB, sigA, sigB, epsA, epsB, D), &
+    call finish(c_mcd_binary_chapman_enskog(T, P, MA, MB, sigA, sigB, epsA, epsB, D), &
          stat, errmsg)
-  end subroutine mcd_chapman_enskog_raw
+  end subroutine mcd_binary_chapman_enskog
 
   !> Wilke-Lee from raw Lennard-Jones parameters (conventions of
-  !> mcd_chapman_enskog_raw: sigA, sigB [m], epsA, epsB epsilon/k [K]).
-  subroutine mcd_wilke_lee_raw(T, P, MA, MB, sigA, sigB, epsA, epsB, D, stat, errmsg)
+  !> mcd_binary_chapman_enskog: sigA, sigB [m], epsA, epsB epsilon/k [K]).
+  subroutine mcd_binary_wilke_lee(T, P, MA, MB, sigA, sigB, epsA, epsB, D, stat, errmsg)
     real(c_double), intent(in) :: T, P, MA, MB, sigA, sigB, epsA, epsB
     real(c_double), intent(inout) :: D
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
-    call finish(c_mcd_wilke_lee_raw(T, P, MA, MB, sigA, sigB, epsA, epsB, D), &
+    call finish(c_mcd_binary_wilke_lee(T, P, MA, MB, sigA, sigB, epsA, epsB, D), &
          stat, errmsg)
-  end subroutine mcd_wilke_lee_raw
+  end subroutine mcd_binary_wilke_lee
 
   !> Wilke-Chang infinite-dilution diffusivity [m^2/s] of a solute in a
   !> liquid: mu_solvent [Pa s] at T, M_solvent [kg/mol], phi association
   !> factor [-], Vb_solute molar volume at the normal boiling point [m^3/mol].
-  subroutine mcd_wilke_chang_raw(T, mu_solvent, M_solvent, phi, Vb_solute, D, stat, errmsg)
+  subroutine mcd_binary_wilke_chang(T, mu_solvent, M_solvent, phi, Vb_solute, D, stat, errmsg)
     real(c_double), intent(in) :: T, mu_solvent, M_solvent, phi, Vb_solute
     real(c_double), intent(inout) :: D
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
-    call finish(c_mcd_wilke_chang_raw(T, mu_solvent, M_solvent, phi, Vb_solute, D), &
+    call finish(c_mcd_binary_wilke_chang(T, mu_solvent, M_solvent, phi, Vb_solute, D), &
          stat, errmsg)
-  end subroutine mcd_wilke_chang_raw
+  end subroutine mcd_binary_wilke_chang
 
   subroutine mcd_binary_scale(D_ref, T_ref, P_ref, T, P, exponent, D, stat, errmsg)
     real(c_double), intent(in) :: D_ref, T_ref, P_ref, T, P, exponent
@@ -779,7 +779,7 @@ contains
   end subroutine mcd_binary_scale
 
   !> Gas binary diffusivity [m^2/s] of species a and b (1-based) of db.
-  subroutine mcd_binary_gas(db, a, b, method, T, P, D, stat, errmsg, rel_err, warn)
+  subroutine mcd_db_binary_gas(db, a, b, method, T, P, D, stat, errmsg, rel_err, warn)
     type(mcd_db_t), intent(in) :: db
     integer, intent(in) :: a, b, method
     real(c_double), intent(in) :: T, P
@@ -793,14 +793,14 @@ contains
     integer(c_int) :: s
     e = 0
     w = 0
-    s = c_mcd_binary_gas(db%ptr, cidx(a), cidx(b), int(method, c_int), T, P, D, &
+    s = c_mcd_db_binary_gas(db%ptr, cidx(a), cidx(b), int(method, c_int), T, P, D, &
          c_loc(e), c_loc(w))
     call finish_estimate(s, e, w, stat, errmsg, rel_err, warn)
-  end subroutine mcd_binary_gas
+  end subroutine mcd_db_binary_gas
 
   !> Wilke-Chang infinite-dilution diffusivity [m^2/s] of species solute in
   !> species solvent (1-based) of db; mu_solvent [Pa s] at T.
-  subroutine mcd_binary_liquid(db, solute, solvent, T, mu_solvent, D, stat, errmsg, &
+  subroutine mcd_db_binary_liquid(db, solute, solvent, T, mu_solvent, D, stat, errmsg, &
        rel_err, warn)
     type(mcd_db_t), intent(in) :: db
     integer, intent(in) :: solute, solvent
@@ -815,10 +815,10 @@ contains
     integer(c_int) :: s
     e = 0
     w = 0
-    s = c_mcd_binary_liquid(db%ptr, cidx(solute), cidx(solvent), T, mu_solvent, D, &
+    s = c_mcd_db_binary_liquid(db%ptr, cidx(solute), cidx(solvent), T, mu_solvent, D, &
          c_loc(e), c_loc(w))
     call finish_estimate(s, e, w, stat, errmsg, rel_err, warn)
-  end subroutine mcd_binary_liquid
+  end subroutine mcd_db_binary_liquid
 
   ! ==================================================================
   ! Mixtures
@@ -861,10 +861,10 @@ contains
     call finish(s, stat, errmsg, from_buf(buf))
   end subroutine mcd_mixture_new
 
-  integer function mcd_mixture_count(mix)
+  integer function mcd_mixture_species_count(mix)
     type(mcd_mixture_t), intent(in) :: mix
-    mcd_mixture_count = int(c_mcd_mixture_count(mix%ptr))
-  end function mcd_mixture_count
+    mcd_mixture_species_count = int(c_mcd_mixture_species_count(mix%ptr))
+  end function mcd_mixture_species_count
 
   !> Name of species i (1-based), '' when out of range.
   function mcd_mixture_name(mix, i) result(s)
@@ -874,7 +874,7 @@ contains
     s = from_c(c_mcd_mixture_name(mix%ptr, cidx(i)))
   end function mcd_mixture_name
 
-  !> Molar masses [kg/mol]; M must hold mcd_mixture_count(mix) values.
+  !> Molar masses [kg/mol]; M must hold mcd_mixture_species_count(mix) values.
   subroutine mcd_mixture_molar_masses(mix, M, stat, errmsg)
     type(mcd_mixture_t), intent(in) :: mix
     real(c_double), intent(inout) :: M(*)
@@ -927,7 +927,7 @@ contains
   ! ==================================================================
 
   !> Workspace for up to n_species species (what ws held is freed first).
-  subroutine mcd_workspace_alloc(ws, n_species, stat, errmsg)
+  subroutine mcd_workspace_new(ws, n_species, stat, errmsg)
     type(mcd_workspace_t), intent(inout) :: ws
     integer, intent(in) :: n_species
     integer, intent(out) :: stat
@@ -936,13 +936,13 @@ contains
     integer(c_int) :: s
     call ws_final(ws)
     p = c_null_ptr
-    s = c_mcd_workspace_alloc(csz(n_species), p)
+    s = c_mcd_workspace_new(csz(n_species), p)
     if (s == 0) ws%ptr = p
     call finish(s, stat, errmsg)
-  end subroutine mcd_workspace_alloc
+  end subroutine mcd_workspace_new
 
-  !> As mcd_workspace_alloc with the caller's allocator (copied by C).
-  subroutine mcd_workspace_alloc_with(ws, n_species, allocator, stat, errmsg)
+  !> As mcd_workspace_new with the caller's allocator (copied by C).
+  subroutine mcd_workspace_new_with(ws, n_species, allocator, stat, errmsg)
     type(mcd_workspace_t), intent(inout) :: ws
     integer, intent(in) :: n_species
     type(mcd_allocator_t), intent(in) :: allocator
@@ -952,15 +952,15 @@ contains
     integer(c_int) :: s
     call ws_final(ws)
     p = c_null_ptr
-    s = c_mcd_workspace_alloc_with(csz(n_species), allocator, p)
+    s = c_mcd_workspace_new_with(csz(n_species), allocator, p)
     if (s == 0) ws%ptr = p
     call finish(s, stat, errmsg)
-  end subroutine mcd_workspace_alloc_with
+  end subroutine mcd_workspace_new_with
 
-  integer function mcd_workspace_species(ws)
+  integer function mcd_workspace_capacity(ws)
     type(mcd_workspace_t), intent(in) :: ws
-    mcd_workspace_species = int(c_mcd_workspace_species(ws%ptr))
-  end function mcd_workspace_species
+    mcd_workspace_capacity = int(c_mcd_workspace_capacity(ws%ptr))
+  end function mcd_workspace_capacity
 
   !> Detail of the last error of a call on ws ('' if none).
   function mcd_workspace_last_error(ws) result(s)
@@ -1099,15 +1099,15 @@ contains
 
   !> Mass- minus molar-average velocity [m/s], v_minus_u(n_dim), from molar
   !> diffusion fluxes J(n_dim, n): (1/rho) sum_k M(k) J(:, k), rho = c Mbar.
-  subroutine mcd_velocity_difference(n, n_dim, M, c, x, J, v_minus_u, stat, errmsg)
+  subroutine mcd_flux_velocity_difference(n, n_dim, M, c, x, J, v_minus_u, stat, errmsg)
     integer, intent(in) :: n, n_dim
     real(c_double), intent(in) :: M(n), c, x(n), J(n_dim, n)
     real(c_double), intent(inout) :: v_minus_u(n_dim)
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
-    call finish(c_mcd_velocity_difference(csz(n), csz(n_dim), M, c, x, J, v_minus_u), &
+    call finish(c_mcd_flux_velocity_difference(csz(n), csz(n_dim), M, c, x, J, v_minus_u), &
          stat, errmsg)
-  end subroutine mcd_velocity_difference
+  end subroutine mcd_flux_velocity_difference
 
   !> Total fluxes from diffusion fluxes and a bootstrap condition.
   !>   species: 1-based (STAGNANT); values: N_t(n_dim) for TOTAL, nu(n) for
@@ -1255,7 +1255,7 @@ contains
   !> Fluxes of a mixture at n_cells states, structure-of-arrays layout:
   !> T(n_cells), P(n_cells), comp(n_cells, N), grad(n_cells, n_dim, N),
   !> flux(n_cells, n_dim, N), grad_lnP(n_cells, n_dim) optional;
-  !> N = mcd_mixture_count(mix). On a cell error other cells' fluxes may
+  !> N = mcd_mixture_species_count(mix). On a cell error other cells' fluxes may
   !> already be written (errmsg names the lowest failing cell).
   subroutine mcd_flux_batch(ws, mix, model, n_cells, n_dim, T, P, comp_basis, comp, &
        grad, flux_basis, flux, stat, errmsg, grad_lnP)
@@ -1331,7 +1331,7 @@ contains
   end subroutine mcd_workspace_set_iterative
 
   !> Largest error estimate and iteration count of the last ITERATIVE call.
-  subroutine mcd_workspace_iterative_info(ws, max_error, max_iter, stat, errmsg)
+  subroutine mcd_workspace_iterative_outcome(ws, max_error, max_iter, stat, errmsg)
     type(mcd_workspace_t), intent(in) :: ws
     real(c_double), intent(inout) :: max_error
     integer, intent(inout) :: max_iter
@@ -1342,13 +1342,13 @@ contains
     integer(c_int) :: s
     e = 0
     it = 0
-    s = c_mcd_workspace_iterative_info(ws%ptr, c_loc(e), c_loc(it))
+    s = c_mcd_workspace_iterative_outcome(ws%ptr, c_loc(e), c_loc(it))
     if (s == 0) then
        max_error = e
        max_iter = int(it)
     end if
     call finish(s, stat, errmsg)
-  end subroutine mcd_workspace_iterative_info
+  end subroutine mcd_workspace_iterative_outcome
 
   !> OpenMP threads for later batched calls on ws (0 = OpenMP default).
   subroutine mcd_workspace_set_threads(ws, n_threads, stat, errmsg)
@@ -1436,17 +1436,17 @@ contains
   end subroutine mcd_formula_diffusion_volume
 
   !> Tabulated diffusion volume of a simple molecule, by formula.
-  subroutine mcd_fsg_molecule_volume(formula, V, stat, errmsg)
+  subroutine mcd_formula_molecule_volume(formula, V, stat, errmsg)
     character(len=*), intent(in) :: formula
     real(c_double), intent(inout) :: V
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
     real(c_double) :: v_out
     integer(c_int) :: s
-    s = c_mcd_fsg_molecule_volume(to_c(formula), v_out)
+    s = c_mcd_formula_molecule_volume(to_c(formula), v_out)
     if (s == 0) V = v_out
     call finish(s, stat, errmsg, trim(formula))
-  end subroutine mcd_fsg_molecule_volume
+  end subroutine mcd_formula_molecule_volume
 
   !> Symbol of element Z ('' when out of range).
   function mcd_element_symbol(Z) result(sym)
@@ -1469,16 +1469,16 @@ contains
   end subroutine mcd_element_weight
 
   !> Neufeld-Janzen-Aziz diffusion collision integral Omega_D(T*).
-  subroutine mcd_collision_omega_d(T_star, omega, stat, errmsg)
+  subroutine mcd_binary_omega_d(T_star, omega, stat, errmsg)
     real(c_double), intent(in) :: T_star
     real(c_double), intent(inout) :: omega
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
     real(c_double) :: v
     integer(c_int) :: s
-    s = c_mcd_collision_omega_d(T_star, v)
+    s = c_mcd_binary_omega_d(T_star, v)
     if (s == 0) omega = v
     call finish(s, stat, errmsg)
-  end subroutine mcd_collision_omega_d
+  end subroutine mcd_binary_omega_d
 
 end module mcdiff

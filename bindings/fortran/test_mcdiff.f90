@@ -99,7 +99,7 @@ contains
     ! CO2 diffusion volume 26.9 (Fuller, Schettler and Giddings 1966, as
     ! tabulated in Poling, Prausnitz and O'Connell 2001, Table 11-1; from
     ! memory)
-    call mcd_fsg_molecule_volume('CO2', V, stat, msg)
+    call mcd_formula_molecule_volume('CO2', V, stat, msg)
     call check_stat(stat, msg, 'tabulated volume of CO2')
     call check(abs(V - 26.9_c_double) <= 1e-9_c_double, 'CO2 diffusion volume 26.9')
   end subroutine check_formulas
@@ -118,7 +118,7 @@ contains
 
     call mcd_db_new_builtin(db, stat, msg)
     call check_stat(stat, msg, 'builtin database')
-    call check(mcd_db_count(db) >= 40, 'builtin database holds >= 40 species')
+    call check(mcd_db_species_count(db) >= 40, 'builtin database holds >= 40 species')
     ico2 = 0
     in2 = 0
     call mcd_db_find(db, 'carbon-dioxide', ico2, stat, msg)
@@ -129,7 +129,7 @@ contains
     D = GUARD
     err = -1
     warn = -1
-    call mcd_binary_gas(db, ico2, in2, MCD_METHOD_FSG, 298.2_c_double, MCD_ATM, D, &
+    call mcd_db_binary_gas(db, ico2, in2, MCD_METHOD_FSG, 298.2_c_double, MCD_ATM, D, &
          stat, msg, rel_err=err, warn=warn)
     call check_stat(stat, msg, 'FSG CO2-N2')
     rel = abs(D - D_EXP) / D_EXP
@@ -160,9 +160,9 @@ contains
     call check(mcd_mixture_name(mix, 2) == 'carbon-dioxide', 'mixture name 2')
     call mcd_mixture_binaries(mix, 310.0_c_double, 2.0e5_c_double, Dij, stat, msg)
     call check_stat(stat, msg, 'binaries of binary mixture')
-    call mcd_ideal_gas_c(310.0_c_double, 2.0e5_c_double, c, stat, msg)
+    call mcd_comp_ideal_gas_c(310.0_c_double, 2.0e5_c_double, c, stat, msg)
     call check_stat(stat, msg, 'ideal gas c')
-    call mcd_workspace_alloc(ws, 2, stat, msg)
+    call mcd_workspace_new(ws, 2, stat, msg)
     call check_stat(stat, msg, 'workspace')
     worst = 0
     do k = 1, 9
@@ -199,16 +199,16 @@ contains
     call mcd_mixture_new(mix, db, [character(len=16) :: 'hydrogen', 'nitrogen', &
          'carbon-dioxide'], stat, msg)
     call check_stat(stat, msg, 'ternary mixture')
-    call check(mcd_mixture_count(mix) == 3, 'mixture count 3')
+    call check(mcd_mixture_species_count(mix) == 3, 'mixture count 3')
     call mcd_mixture_binaries(mix, 300.0_c_double, MCD_ATM, Dij, stat, msg)
     call check_stat(stat, msg, 'ternary binaries')
     call check(all(abs(Dij - transpose(Dij)) <= 1e-15_c_double * maxval(Dij)), &
          'binary matrix symmetric')
     call mcd_mixture_molar_masses(mix, M, stat, msg)
     call check_stat(stat, msg, 'molar masses')
-    call mcd_ideal_gas_c(300.0_c_double, MCD_ATM, c, stat, msg)
-    call mcd_workspace_alloc(ws, 3, stat, msg)
-    call check(mcd_workspace_species(ws) == 3, 'workspace capacity 3')
+    call mcd_comp_ideal_gas_c(300.0_c_double, MCD_ATM, c, stat, msg)
+    call mcd_workspace_new(ws, 3, stat, msg)
+    call check(mcd_workspace_capacity(ws) == 3, 'workspace capacity 3')
 
     x = [0.2_c_double, 0.5_c_double, 0.3_c_double]
     grad(:, 1) = [12.0_c_double, -4.0_c_double]
@@ -287,7 +287,7 @@ contains
     L = 0.1_c_double
     x0 = [0.4_c_double, 0.6_c_double]
     xL = [0.05_c_double, 0.95_c_double]
-    call mcd_workspace_alloc(ws, 2, stat, msg)
+    call mcd_workspace_new(ws, 2, stat, msg)
     N = GUARD
     it = -1
     call mcd_film_solve(ws, 2, Dij, c, L, x0, xL, MCD_BOOT_STAGNANT, N, stat, msg, &
@@ -318,7 +318,7 @@ contains
     call mcd_db_new_builtin(db, stat, msg)
     call mcd_mixture_new(mix, db, [character(len=16) :: 'hydrogen', 'nitrogen', &
          'carbon-dioxide'], stat, msg)
-    call mcd_workspace_alloc(ws, N, stat, msg)
+    call mcd_workspace_new(ws, N, stat, msg)
     do kk = 1, K
        T(kk) = 280.0_c_double + 25.0_c_double * kk
        P(kk) = MCD_ATM * (0.5_c_double + 0.3_c_double * kk)
@@ -345,7 +345,7 @@ contains
     worst_d = 0
     do kk = 1, K
        call mcd_mixture_binaries(mix, T(kk), P(kk), D1, stat, msg)
-       call mcd_ideal_gas_c(T(kk), P(kk), cc(kk), stat, msg)
+       call mcd_comp_ideal_gas_c(T(kk), P(kk), cc(kk), stat, msg)
        Dk(kk, :, :) = D1
        g1 = grad(kk, :, :)
        call mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, N, ND, D1, cc(kk), &
@@ -405,9 +405,9 @@ contains
     call mcd_db_param(db, ico2, MCD_PARAM_LJ_EPS_K, eB, stat, msg)
     call check_stat(stat, msg, 'Lennard-Jones parameters of N2 and CO2')
     Dwl = GUARD
-    call mcd_wilke_lee_raw(T, P, MA, MB, sA, sB, eA, eB, Dwl, stat, msg)
+    call mcd_binary_wilke_lee(T, P, MA, MB, sA, sB, eA, eB, Dwl, stat, msg)
     call check_stat(stat, msg, 'Wilke-Lee raw')
-    call mcd_chapman_enskog_raw(T, P, MA, MB, sA, sB, eA, eB, Dce, stat, msg)
+    call mcd_binary_chapman_enskog(T, P, MA, MB, sA, sB, eA, eB, Dce, stat, msg)
     call check_stat(stat, msg, 'Chapman-Enskog raw')
     ! Same collision integral in both: their ratio is Wilke-Lee's factor
     ! (3.03 - 0.98/M_AB^0.5) 1e-3 [cm^2/s, bar, A, g/mol] over the first
@@ -418,10 +418,10 @@ contains
     call check(abs(Dwl / Dce - ratio) <= 1e-12_c_double * ratio, &
          'Wilke-Lee / Chapman-Enskog = ratio of their coefficients')
     Dgas = GUARD
-    call mcd_binary_gas(db, in2, ico2, MCD_METHOD_WILKE_LEE, T, P, Dgas, stat, msg)
+    call mcd_db_binary_gas(db, in2, ico2, MCD_METHOD_WILKE_LEE, T, P, Dgas, stat, msg)
     call check_stat(stat, msg, 'Wilke-Lee N2-CO2 from the database')
     call check(abs(Dgas - Dwl) <= 1e-13_c_double * Dwl, &
-         'mcd_binary_gas(WILKE_LEE) equals mcd_wilke_lee_raw with the database values')
+         'mcd_db_binary_gas(WILKE_LEE) equals mcd_binary_wilke_lee with the database values')
 
     ! benzene (solute) infinitely dilute in water at 298.15 K, water
     ! viscosity 0.89 mPa s
@@ -435,7 +435,7 @@ contains
     call mcd_db_param(db, iben, MCD_PARAM_VB, Vb, stat, msg)
     call check_stat(stat, msg, 'Wilke-Chang parameters of benzene and water')
     Dwc = GUARD
-    call mcd_wilke_chang_raw(T, mu, Mw, phi, Vb, Dwc, stat, msg)
+    call mcd_binary_wilke_chang(T, mu, Mw, phi, Vb, Dwc, stat, msg)
     call check_stat(stat, msg, 'Wilke-Chang raw')
     ! D [cm^2/s] = 7.4e-8 (phi M [g/mol])^0.5 T / (mu [cP] Vb [cm^3/mol]^0.6)
     ref = 1e-4_c_double * 7.4e-8_c_double * sqrt(phi * 1000 * Mw) * T &
@@ -446,21 +446,21 @@ contains
     Dliq = GUARD
     err = -1
     warn = -1
-    call mcd_binary_liquid(db, iben, iwat, T, mu, Dliq, stat, msg, rel_err=err, warn=warn)
+    call mcd_db_binary_liquid(db, iben, iwat, T, mu, Dliq, stat, msg, rel_err=err, warn=warn)
     call check_stat(stat, msg, 'Wilke-Chang benzene in water from the database')
     call check(abs(Dliq - Dwc) <= 1e-14_c_double * Dwc, &
-         'mcd_binary_liquid equals mcd_wilke_chang_raw with the database values')
+         'mcd_db_binary_liquid equals mcd_binary_wilke_chang with the database values')
     call check(abs(err - mcd_method_typical_error(MCD_METHOD_WILKE_CHANG)) <= 0, &
          'liquid rel_err is the method''s typical error')
     call check(warn >= 0 .and. iand(warn, MCD_WARN_TEMPERATURE) == 0, &
          'no temperature warning at 298.15 K')
     ! solvent and solute swapped: water's own Vb, benzene's factor (1.0)
-    call mcd_binary_liquid(db, iwat, iben, T, mu, Dliq, stat, msg)
+    call mcd_db_binary_liquid(db, iwat, iben, T, mu, Dliq, stat, msg)
     call check_stat(stat, msg, 'water in benzene (optional outputs absent)')
     call mcd_db_param(db, iben, MCD_PARAM_MOLAR_MASS, Mw, stat, msg)
     call mcd_db_param(db, iben, MCD_PARAM_ASSOC, phi, stat, msg)
     call mcd_db_param(db, iwat, MCD_PARAM_VB, Vb, stat, msg)
-    call mcd_wilke_chang_raw(T, mu, Mw, phi, Vb, Dwc, stat, msg)
+    call mcd_binary_wilke_chang(T, mu, Mw, phi, Vb, Dwc, stat, msg)
     call check(abs(Dliq - Dwc) <= 1e-14_c_double * Dwc, 'solute and solvent by index')
   end subroutine check_raw_and_liquid_binaries
 
@@ -505,7 +505,7 @@ contains
     end do
 
     vmu = GUARD
-    call mcd_velocity_difference(3, 2, M, c, x, J, vmu, stat, msg)
+    call mcd_flux_velocity_difference(3, 2, M, c, x, J, vmu, stat, msg)
     call check_stat(stat, msg, 'velocity difference')
     do d = 1, 2
        ref(d) = sum(M * J(d, :)) / (c * sum(x * M))
@@ -569,7 +569,7 @@ contains
     t = [0.0_c_double, 2.0e4_c_double, 5.0e4_c_double, 1.5e5_c_double]
     beta = A * (V1 + V2) / (L * V1 * V2)
     mean = (V1 * x1_0 + V2 * x2_0) / (V1 + V2)
-    call mcd_workspace_alloc(ws, 2, stat, msg)
+    call mcd_workspace_new(ws, 2, stat, msg)
     x1 = GUARD
     x2 = GUARD
     call mcd_bulbs_linearized(ws, 2, Dij, c, V1, V2, A, L, x1_0, x2_0, NT, t, x1, x2, &
@@ -629,7 +629,7 @@ contains
     grad = 1
     J = GUARD
     c = 40
-    call mcd_workspace_alloc(ws, 3, stat, msg)
+    call mcd_workspace_new(ws, 3, stat, msg)
     call mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, 3, 1, Dij, c, MCD_BASIS_MOLE, &
          x, grad, MCD_BASIS_MOLE, J, stat, msg)
     call check(stat == MCD_EDOM, 'composition summing to 0.9 is MCD_EDOM')
@@ -639,7 +639,7 @@ contains
          'errmsg carries the workspace detail: ' // trim(msg))
 
     ! a workspace too small is EBADLEN
-    call mcd_workspace_alloc(ws, 2, stat, msg)
+    call mcd_workspace_new(ws, 2, stat, msg)
     x = [0.3_c_double, 0.3_c_double, 0.4_c_double]
     call mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, 3, 1, Dij, c, MCD_BASIS_MOLE, &
          x, grad, MCD_BASIS_MOLE, J, stat)
@@ -665,11 +665,11 @@ contains
     b = a
     call check(.not. mcd_associated(b), 'assignment leaves the target empty')
     call check(mcd_associated(a), 'source kept')
-    call check(mcd_db_count(a) >= 40, 'source still holds the species')
+    call check(mcd_db_species_count(a) >= 40, 'source still holds the species')
     call mcd_free(a)
     call mcd_free(a)
     call check(.not. mcd_associated(a), 'double free is a no-op')
-    call check(mcd_db_count(a) == 0, 'count of empty handle is 0')
+    call check(mcd_db_species_count(a) == 0, 'count of empty handle is 0')
   end subroutine check_handles
 
 end program test_mcdiff

@@ -290,7 +290,7 @@ MCD_API mcd_status mcd_comp_c_to_x(size_t n, const double *c, double *out_x,
 }
 
 /* Ideal gas: c = P / (R T), R = MCD_GAS_CONSTANT (CODATA 2018, exact). */
-MCD_API mcd_status mcd_ideal_gas_c(double T, double P, double *out_c)
+MCD_API mcd_status mcd_comp_ideal_gas_c(double T, double P, double *out_c)
 {
     double c;
     if (out_c == NULL || !mcdi_finite(T) || !mcdi_finite(P))

@@ -9,7 +9,7 @@
 #include "base/mcd_internal.h"
 #include "base/workspace.h"
 
-MCD_API size_t mcd_workspace_species(const mcd_workspace *ws)
+MCD_API size_t mcd_workspace_capacity(const mcd_workspace *ws)
 {
     return ws == NULL ? 0 : ws->cap;
 }

@@ -3,7 +3,7 @@
  * A workspace owns every scratch array that the flux core (maxwell_stefan.c,
  * mixavg.c, fick.c) and the transfer layer need for up to `cap` species, so
  * that no per-state call allocates. All memory is obtained at
- * mcd_workspace_alloc time through the workspace's allocator.
+ * mcd_workspace_new time through the workspace's allocator.
  *
  * Two banks of scratch exist:
  *

@@ -460,9 +460,9 @@ MCD_API mcd_status mcd_workspace_set_iterative(mcd_workspace *ws,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_workspace_iterative_info(const mcd_workspace *ws,
-                                                double *out_max_error,
-                                                size_t *out_max_iter)
+MCD_API mcd_status mcd_workspace_iterative_outcome(const mcd_workspace *ws,
+                                                   double *out_max_error,
+                                                   size_t *out_max_iter)
 {
     if (ws == NULL)
         return MCD_EINVAL;

@@ -272,7 +272,7 @@ MCD_API void mcd_db_free(mcd_db *db)
     free(db);
 }
 
-MCD_API size_t mcd_db_count(const mcd_db *db) { return db ? db->n : 0; }
+MCD_API size_t mcd_db_species_count(const mcd_db *db) { return db ? db->n : 0; }
 
 MCD_API mcd_status mcd_db_find(const mcd_db *db, const char *name,
                                size_t *out_index)

@@ -115,7 +115,8 @@ int mcdi_fsg_lookup(const char *formula, const mcdi_formula *parsed,
     return 0;
 }
 
-MCD_API mcd_status mcd_fsg_molecule_volume(const char *formula, double *out_V)
+MCD_API mcd_status mcd_formula_molecule_volume(const char *formula,
+                                               double *out_V)
 {
     mcdi_formula f;
     double V;

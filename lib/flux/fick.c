@@ -392,10 +392,11 @@ MCD_API mcd_status mcd_fick_eigenvalues(mcd_workspace *ws, size_t m,
         return MCD_EINVAL;
     mcdi_ws_clear_error(ws);
     if (m > ws->cap - 1)
-        return mcdi_ws_fail(ws, MCD_EBADLEN,
-                            "argument m: %zu exceeds the workspace capacity "
-                            "minus one (%zu)",
-                            m, ws->cap - 1);
+        return mcdi_ws_fail(
+            ws, MCD_EBADLEN,
+            "argument order: %zu exceeds the workspace capacity "
+            "minus one (%zu)",
+            m, ws->cap - 1);
     if (m == 0)
         return MCD_OK;
     if (D == NULL || out_re == NULL || out_im == NULL)

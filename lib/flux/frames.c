@@ -306,10 +306,11 @@ MCD_API mcd_status mcd_flux_total(size_t n_species, size_t n_dim,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_velocity_difference(size_t n_species, size_t n_dim,
-                                           const double *M, double c,
-                                           const double *x, const double *J,
-                                           double *out_v_minus_u)
+MCD_API mcd_status mcd_flux_velocity_difference(size_t n_species, size_t n_dim,
+                                                const double *M, double c,
+                                                const double *x,
+                                                const double *J,
+                                                double *out_v_minus_u)
 {
     const size_t n = n_species;
     double sx, rho;

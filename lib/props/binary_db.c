@@ -115,7 +115,7 @@ mcd_status mcdi_spec_from_db(const mcd_db *db, size_t i, mcdi_spec *out)
     const char *name;
     if (db == NULL || out == NULL)
         return MCD_EINVAL;
-    if (i >= mcd_db_count(db))
+    if (i >= mcd_db_species_count(db))
         return MCD_ENOTFOUND;
     memset(&s, 0, sizeof s);
     for (int p = 0; p < MCD_PARAM_COUNT; p++) {
@@ -268,10 +268,10 @@ mcd_status mcdi_pair_gas(const mcdi_spec *a, const mcdi_spec *b, mcd_method m,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_binary_gas(const mcd_db *db, size_t a, size_t b,
-                                  mcd_method method, double T, double P,
-                                  double *out_D, double *out_rel_err,
-                                  unsigned *out_warn)
+MCD_API mcd_status mcd_db_binary_gas(const mcd_db *db, size_t a, size_t b,
+                                     mcd_method method, double T, double P,
+                                     double *out_D, double *out_rel_err,
+                                     unsigned *out_warn)
 {
     mcdi_spec sa, sb;
     mcd_status st;
@@ -291,10 +291,10 @@ MCD_API mcd_status mcd_binary_gas(const mcd_db *db, size_t a, size_t b,
     return mcdi_pair_gas(&sa, &sb, method, T, P, out_D, out_rel_err, out_warn);
 }
 
-MCD_API mcd_status mcd_binary_liquid(const mcd_db *db, size_t solute,
-                                     size_t solvent, double T,
-                                     double mu_solvent, double *out_D,
-                                     double *out_rel_err, unsigned *out_warn)
+MCD_API mcd_status mcd_db_binary_liquid(const mcd_db *db, size_t solute,
+                                        size_t solvent, double T,
+                                        double mu_solvent, double *out_D,
+                                        double *out_rel_err, unsigned *out_warn)
 {
     mcdi_spec sa, sb;
     mcd_status st;
@@ -316,8 +316,8 @@ MCD_API mcd_status mcd_binary_liquid(const mcd_db *db, size_t solute,
         phi = sb.p[MCD_PARAM_ASSOC];
     else
         w |= MCD_WARN_ESTIMATED_PARAM;
-    st = mcd_wilke_chang_raw(T, mu_solvent, sb.p[MCD_PARAM_MOLAR_MASS], phi,
-                             sa.p[MCD_PARAM_VB], &D);
+    st = mcd_binary_wilke_chang(T, mu_solvent, sb.p[MCD_PARAM_MOLAR_MASS], phi,
+                                sa.p[MCD_PARAM_VB], &D);
     if (st != MCD_OK)
         return st == MCD_EINVAL ? MCD_EDOM : st;
     if (T < 273.15 || T > 373.15 ||

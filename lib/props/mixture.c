@@ -336,7 +336,7 @@ fail:
     return st;
 }
 
-MCD_API size_t mcd_mixture_count(const mcd_mixture *mix)
+MCD_API size_t mcd_mixture_species_count(const mcd_mixture *mix)
 {
     return mix == NULL ? 0 : mix->n;
 }

@@ -721,7 +721,7 @@ mcd_status mcdi_tf_check_ws_n(mcd_workspace *ws, size_t n)
     if (ws == NULL)
         return MCD_EINVAL;
     mcdi_ws_clear_error(ws);
-    return mcdi_check_species(ws, n, 2, 1, "n");
+    return mcdi_check_species(ws, n, 2, 1, "n_species");
 }
 
 /* Start of mcd_film_solve and mcd_film_profile, in their order of checks:

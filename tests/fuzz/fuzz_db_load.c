@@ -20,7 +20,7 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size);
 static uint64_t fingerprint(const mcd_db *db)
 {
     uint64_t h = 1469598103934665603ull;
-    size_t n = mcd_db_count(db);
+    size_t n = mcd_db_species_count(db);
     for (size_t i = 0; i < n; i++) {
         const char *s = mcd_db_name(db, i);
         for (; s && *s; s++)
@@ -51,12 +51,12 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
     /* a fresh copy each time: the builtin table */
     if (mcd_db_new_builtin(&db) != MCD_OK)
         abort();
-    n0 = mcd_db_count(db);
+    n0 = mcd_db_species_count(db);
     h0 = fingerprint(db);
     memset(err, FUZZ_GUARD_BYTE, sizeof err);
     st = mcd_db_load_string(db, text, err, sizeof err);
     FUZZ_REQUIRE(st == MCD_OK || fuzz_terminated(err, sizeof err), "errbuf not terminated");
-    n1 = mcd_db_count(db);
+    n1 = mcd_db_species_count(db);
     if (st != MCD_OK) {
         FUZZ_REQUIRE(n1 == n0 && fingerprint(db) == h0, "database changed on error %d", st);
         FUZZ_REQUIRE(err[0] != '\0', "no message for error %d", st);
@@ -81,7 +81,7 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
             for (int m = MCD_METHOD_FSG; m <= MCD_METHOD_WILKE_LEE; m++) {
                 double D = -1;
                 unsigned warn = 0;
-                mcd_status bs = mcd_binary_gas(db, i, ref, (mcd_method)m, 300.0, MCD_ATM, &D,
+                mcd_status bs = mcd_db_binary_gas(db, i, ref, (mcd_method)m, 300.0, MCD_ATM, &D,
                                                NULL, &warn);
                 if (bs == MCD_OK)
                     FUZZ_REQUIRE(isfinite(D) && D > 0, "binary %zu-%zu method %d: %g", i, ref,

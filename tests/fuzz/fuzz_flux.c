@@ -3,7 +3,7 @@
  * doubles and sizes: mcd_flux_compute, mcd_fick_matrix, mcd_fick_fluxes,
  * mcd_fick_eigenvalues, the frame functions (mcd_flux_convert,
  * mcd_flux_to_volume_frame, mcd_flux_to_species_frame, mcd_flux_total,
- * mcd_velocity_difference, mcd_flux_project, mcd_flux_diagnose) and the
+ * mcd_flux_velocity_difference, mcd_flux_project, mcd_flux_diagnose) and the
  * batched mcd_flux_batch_dij.
  *
  * Input layout: a 4-byte header (species count, n_dim, flags, extra), then
@@ -81,7 +81,7 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
     double c, sum;
     mcd_status st, st_flux;
 
-    if (ws == NULL && mcd_workspace_alloc(NS, &ws) != MCD_OK)
+    if (ws == NULL && mcd_workspace_new(NS, &ws) != MCD_OK)
         abort();
     b0 = fuzz_u8(&in);
     n = b0 >= 0xF0 ? odd_n[b0 & 3] : (size_t)(1 + b0 % NS);
@@ -242,7 +242,7 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
     {
         double v3[3];
         memset(v3, FUZZ_GUARD_BYTE, sizeof v3);
-        st = mcd_velocity_difference(n, nd, M, c, x, J, v3);
+        st = mcd_flux_velocity_difference(n, nd, M, c, x, J, v3);
         if (st == MCD_OK)
             require_finite("velocity_difference", v3, nd);
         else

@@ -68,7 +68,7 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
             FUZZ_REQUIRE(fuzz_untouched(&V, sizeof V), "V written on error %d", st);
     }
     memset(&V, FUZZ_GUARD_BYTE, sizeof V);
-    st = mcd_fsg_molecule_volume(f, &V);
+    st = mcd_formula_molecule_volume(f, &V);
     if (st == MCD_OK)
         FUZZ_REQUIRE(isfinite(V) && V > 0, "tabulated V = %g", V);
     else
@@ -82,12 +82,12 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
     FUZZ_REQUIRE(st == MCD_OK || fuzz_terminated(err, sizeof err), "errbuf not terminated");
     if (st == MCD_OK) {
         double m;
-        FUZZ_REQUIRE(mcd_db_count(db) == 1 && idx == 0, "count after add");
+        FUZZ_REQUIRE(mcd_db_species_count(db) == 1 && idx == 0, "count after add");
         FUZZ_REQUIRE(mcd_db_param(db, 0, MCD_PARAM_MOLAR_MASS, &m) == MCD_OK && isfinite(m) &&
                          m > 0,
                      "db molar mass");
     } else {
-        FUZZ_REQUIRE(mcd_db_count(db) == 0, "db changed on error %d", st);
+        FUZZ_REQUIRE(mcd_db_species_count(db) == 0, "db changed on error %d", st);
     }
     st = mcd_db_add(db, f, "CH4", 0, &idx, err, sizeof err);
     if (st == MCD_OK) {

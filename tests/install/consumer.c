@@ -42,7 +42,7 @@ int main(void)
     /* CO2-N2, 298.2 K, 1 atm: 0.165 cm^2/s measured (Bird, Stewart and
      * Lightfoot 2002, Table 17.1-1); the estimate must be within the
      * method's own typical error. */
-    check(mcd_binary_gas(db, ico2, in2, MCD_METHOD_FSG, 298.2, MCD_ATM,
+    check(mcd_db_binary_gas(db, ico2, in2, MCD_METHOD_FSG, 298.2, MCD_ATM,
                          &Dco2, &err, NULL) == MCD_OK, "FSG CO2-N2");
     check(fabs(Dco2 - 0.165e-4) <= err * 0.165e-4,
           "FSG CO2-N2 within the typical error of 0.165 cm^2/s");
@@ -52,8 +52,8 @@ int main(void)
                           sizeof msg) == MCD_OK, "mixture");
     check(mcd_mixture_binaries(mix, 300.0, MCD_ATM, D, NULL, NULL) == MCD_OK,
           "binaries");
-    check(mcd_ideal_gas_c(300.0, MCD_ATM, &c) == MCD_OK, "ideal gas c");
-    check(mcd_workspace_alloc(3, &ws) == MCD_OK, "workspace");
+    check(mcd_comp_ideal_gas_c(300.0, MCD_ATM, &c) == MCD_OK, "ideal gas c");
+    check(mcd_workspace_new(3, &ws) == MCD_OK, "workspace");
     check(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, 3, 2, NULL, D, c,
                            MCD_BASIS_MOLE, x, grad, NULL, NULL,
                            MCD_BASIS_MOLE, J) == MCD_OK, "fluxes");

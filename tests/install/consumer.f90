@@ -14,7 +14,7 @@ program consumer
   call mcd_db_find(db, 'carbon-dioxide', a, stat, msg)
   call mcd_db_find(db, 'nitrogen', b, stat, msg)
   if (stat /= MCD_OK) error stop 'find'
-  call mcd_binary_gas(db, a, b, MCD_METHOD_FSG, 298.2_c_double, MCD_ATM, D, stat, &
+  call mcd_db_binary_gas(db, a, b, MCD_METHOD_FSG, 298.2_c_double, MCD_ATM, D, stat, &
        msg, rel_err=err)
   if (stat /= MCD_OK) error stop 'binary'
   ! 0.165 cm^2/s measured: Bird, Stewart and Lightfoot 2002, Table 17.1-1

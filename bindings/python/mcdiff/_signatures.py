@@ -46,7 +46,7 @@ SIGNATURES = {
     # (formula, n_rings, out_V, errbuf, errlen)
     "mcd_formula_diffusion_volume": (_ST, [_S, _I, _PD, _BUF, _SZ]),
     # (formula, out_V)
-    "mcd_fsg_molecule_volume": (_ST, [_S, _PD]),
+    "mcd_formula_molecule_volume": (_ST, [_S, _PD]),
     # (Z)
     "mcd_element_symbol": (_S, [_I]),
     # (Z, out_kg_per_mol)
@@ -64,7 +64,7 @@ SIGNATURES = {
     # (db)
     "mcd_db_free": (None, [_H]),
     # (db)
-    "mcd_db_count": (_SZ, [_H]),
+    "mcd_db_species_count": (_SZ, [_H]),
     # (db, name, out_index)
     "mcd_db_find": (_ST, [_H, _S, _PSZ]),
     # (db, i)
@@ -85,25 +85,25 @@ SIGNATURES = {
     "mcd_db_load_string": (_ST, [_H, _S, _BUF, _SZ]),
 
     # --- Compositions ---
-    # (n, y, out_y)
+    # (n_species, y, out_y)
     "mcd_comp_normalize": (_ST, [_SZ, _PD, _PD]),
-    # (n, M, x, out_w)
+    # (n_species, M, x, out_w)
     "mcd_comp_x_to_w": (_ST, [_SZ, _PD, _PD, _PD]),
-    # (n, M, w, out_x)
+    # (n_species, M, w, out_x)
     "mcd_comp_w_to_x": (_ST, [_SZ, _PD, _PD, _PD]),
-    # (n, M, x, out_Mbar)
+    # (n_species, M, x, out_Mbar)
     "mcd_comp_mean_molar_mass_x": (_ST, [_SZ, _PD, _PD, _PD]),
-    # (n, M, w, out_Mbar)
+    # (n_species, M, w, out_Mbar)
     "mcd_comp_mean_molar_mass_w": (_ST, [_SZ, _PD, _PD, _PD]),
-    # (n, c_total, x, out_c)
+    # (n_species, c, x, out_ci)
     "mcd_comp_x_to_c": (_ST, [_SZ, _D, _PD, _PD]),
-    # (n, c, out_x, out_c_total)
+    # (n_species, ci, out_x, out_c)
     "mcd_comp_c_to_x": (_ST, [_SZ, _PD, _PD, _PD]),
     # (T, P, out_c)
-    "mcd_ideal_gas_c": (_ST, [_D, _D, _PD]),
-    # (n, n_dim, M, x, grad_x, out_grad_w)
+    "mcd_comp_ideal_gas_c": (_ST, [_D, _D, _PD]),
+    # (n_species, n_dim, M, x, grad_x, out_grad_w)
     "mcd_comp_grad_x_to_w": (_ST, [_SZ, _SZ, _PD, _PD, _PD, _PD]),
-    # (n, n_dim, M, w, grad_w, out_grad_x)
+    # (n_species, n_dim, M, w, grad_w, out_grad_x)
     "mcd_comp_grad_w_to_x": (_ST, [_SZ, _SZ, _PD, _PD, _PD, _PD]),
 
     # --- Binary diffusivities ---
@@ -116,29 +116,29 @@ SIGNATURES = {
     # (bit)
     "mcd_warning_string": (_S, [_U]),
     # (T, P, MA, MB, VA, VB, out_D)
-    "mcd_fsg_raw": (_ST, [_D, _D, _D, _D, _D, _D, _PD]),
+    "mcd_binary_fsg": (_ST, [_D, _D, _D, _D, _D, _D, _PD]),
     # (T, P, MA, MB, sigA, sigB, epsA, epsB, out_D)
-    "mcd_chapman_enskog_raw": (_ST, [_D, _D, _D, _D, _D, _D, _D, _D, _PD]),
+    "mcd_binary_chapman_enskog": (_ST, [_D, _D, _D, _D, _D, _D, _D, _D, _PD]),
     # (T, P, MA, MB, sigA, sigB, epsA, epsB, out_D)
-    "mcd_wilke_lee_raw": (_ST, [_D, _D, _D, _D, _D, _D, _D, _D, _PD]),
+    "mcd_binary_wilke_lee": (_ST, [_D, _D, _D, _D, _D, _D, _D, _D, _PD]),
     # (T, mu_solvent, M_solvent, phi, Vb_solute, out_D)
-    "mcd_wilke_chang_raw": (_ST, [_D, _D, _D, _D, _D, _PD]),
+    "mcd_binary_wilke_chang": (_ST, [_D, _D, _D, _D, _D, _PD]),
     # (T_star, out_omega)
-    "mcd_collision_omega_d": (_ST, [_D, _PD]),
+    "mcd_binary_omega_d": (_ST, [_D, _PD]),
     # (D_ref, T_ref, P_ref, T, P, exponent, out_D)
     "mcd_binary_scale": (_ST, [_D, _D, _D, _D, _D, _D, _PD]),
     # (db, a, b, method, T, P, out_D, out_rel_err, out_warn)
-    "mcd_binary_gas": (_ST, [_H, _SZ, _SZ, _E, _D, _D, _PD, _PD, _PU]),
+    "mcd_db_binary_gas": (_ST, [_H, _SZ, _SZ, _E, _D, _D, _PD, _PD, _PU]),
     # (db, solute, solvent, T, mu_solvent, out_D, out_rel_err, out_warn)
-    "mcd_binary_liquid": (_ST, [_H, _SZ, _SZ, _D, _D, _PD, _PD, _PU]),
+    "mcd_db_binary_liquid": (_ST, [_H, _SZ, _SZ, _D, _D, _PD, _PD, _PU]),
 
     # --- Mixtures: N species and their binary diffusivities ---
-    # (db, n, names, default_method, out_mix, errbuf, errlen)
+    # (db, n_species, names, default_method, out_mix, errbuf, errlen)
     "mcd_mixture_new": (_ST, [_H, _SZ, _PS, _E, _PH, _BUF, _SZ]),
     # (mix)
     "mcd_mixture_free": (None, [_H]),
     # (mix)
-    "mcd_mixture_count": (_SZ, [_H]),
+    "mcd_mixture_species_count": (_SZ, [_H]),
     # (mix, i)
     "mcd_mixture_name": (_S, [_H, _SZ]),
     # (mix, out_M)
@@ -152,13 +152,13 @@ SIGNATURES = {
 
     # --- Workspaces ---
     # (n_species, out_ws)
-    "mcd_workspace_alloc": (_ST, [_SZ, _PH]),
+    "mcd_workspace_new": (_ST, [_SZ, _PH]),
     # (n_species, allocator, out_ws)
-    "mcd_workspace_alloc_with": (_ST, [_SZ, _H, _PH]),
+    "mcd_workspace_new_with": (_ST, [_SZ, _H, _PH]),
     # (ws)
     "mcd_workspace_free": (None, [_H]),
     # (ws)
-    "mcd_workspace_species": (_SZ, [_H]),
+    "mcd_workspace_capacity": (_SZ, [_H]),
     # (ws)
     "mcd_workspace_last_error": (_S, [_H]),
 
@@ -171,9 +171,9 @@ SIGNATURES = {
     #  out_dependent)
     "mcd_fick_matrix": (_ST, [_H, _SZ, _PD, _PD, _E, _PD, _PD, _E, _SZ, _PD,
                               _PSZ]),
-    # (n_species, n_dim, D, dependent, conc, grad, out_flux)
+    # (n_species, n_dim, D, dependent, c_or_rho, grad, out_flux)
     "mcd_fick_fluxes": (_ST, [_SZ, _SZ, _PD, _SZ, _D, _PD, _PD]),
-    # (ws, m, D, out_re, out_im)
+    # (ws, order, D, out_re, out_im)
     "mcd_fick_eigenvalues": (_ST, [_H, _SZ, _PD, _PD, _PD]),
 
     # --- Bases, frames and total fluxes ---
@@ -187,7 +187,7 @@ SIGNATURES = {
     #  out_bulk)
     "mcd_flux_total": (_ST, [_SZ, _SZ, _E, _PD, _PD, _E, _SZ, _PD, _PD, _PD]),
     # (n_species, n_dim, M, c, x, J, out_v_minus_u)
-    "mcd_velocity_difference": (_ST, [_SZ, _SZ, _PD, _D, _PD, _PD, _PD]),
+    "mcd_flux_velocity_difference": (_ST, [_SZ, _SZ, _PD, _D, _PD, _PD, _PD]),
     # (n_species, n_dim, weights, inout_flux, out_residual)
     "mcd_flux_project": (_ST, [_SZ, _SZ, _PD, _PD, _PD]),
     # (n_species, n_dim, grad, flux, rel_tol, out_flags)
@@ -209,7 +209,7 @@ SIGNATURES = {
     # (ws, max_iter, tol)
     "mcd_workspace_set_iterative": (_ST, [_H, _SZ, _D]),
     # (ws, out_max_error, out_max_iter)
-    "mcd_workspace_iterative_info": (_ST, [_H, _PD, _PSZ]),
+    "mcd_workspace_iterative_outcome": (_ST, [_H, _PD, _PSZ]),
     # (ws, n_threads)
     "mcd_workspace_set_threads": (_ST, [_H, _SZ]),
     # (mix, T_min, T_max, out_max_rel_err)
@@ -218,17 +218,18 @@ SIGNATURES = {
     "mcd_mixture_temperature_fit": (_ST, [_H, _PD, _PD, _PD]),
 
     # --- Mass transfer: film / Stefan tube, two-bulb cell ---
-    # (ws, n, Dij, c, L, x0, xL, kind, species, values, method, out_N,
+    # (ws, n_species, Dij, c, L, x0, xL, kind, species, values, method, out_N,
     #  out_iterations, out_residual)
     "mcd_film_solve": (_ST, [_H, _SZ, _PD, _D, _D, _PD, _PD, _E, _SZ, _PD, _E,
                              _PD, _PSZ, _PD]),
-    # (ws, n, Dij, c, L, x0, N, n_points, z, out_x)
+    # (ws, n_species, Dij, c, L, x0, N, n_points, z, out_x)
     "mcd_film_profile": (_ST, [_H, _SZ, _PD, _D, _D, _PD, _PD, _SZ, _PD, _PD]),
-    # (ws, n, Dij, c, V1, V2, A, L, x1_0, x2_0, n_times, t, out_x1, out_x2)
+    # (ws, n_species, Dij, c, V1, V2, A, L, x1_0, x2_0, n_times, t, out_x1,
+    #  out_x2)
     "mcd_bulbs_linearized": (_ST, [_H, _SZ, _PD, _D, _D, _D, _D, _D, _PD, _PD,
                                    _SZ, _PD, _PD, _PD]),
-    # (ws, n, Dij, c, V1, V2, A, L, x1_0, x2_0, n_times, t, rel_tol, out_x1,
-    #  out_x2)
+    # (ws, n_species, Dij, c, V1, V2, A, L, x1_0, x2_0, n_times, t, rel_tol,
+    #  out_x1, out_x2)
     "mcd_bulbs_integrate": (_ST, [_H, _SZ, _PD, _D, _D, _D, _D, _D, _PD, _PD,
                                   _SZ, _PD, _D, _PD, _PD]),
 }

@@ -27,19 +27,19 @@ __all__ = [
     "version_number", "version_string",
     # formulas
     "formula_molar_mass", "formula_elements", "formula_diffusion_volume",
-    "fsg_molecule_volume", "element_symbol", "element_weight",
+    "formula_molecule_volume", "element_symbol", "element_weight",
     # compositions
     "normalize", "x_to_w", "w_to_x", "mean_molar_mass_x", "mean_molar_mass_w",
     "x_to_c", "c_to_x", "ideal_gas_c", "grad_x_to_w", "grad_w_to_x",
     # binaries
     "method_name", "method_from_name", "method_typical_error",
-    "warning_string", "warning_strings", "fsg_raw", "chapman_enskog_raw",
-    "wilke_lee_raw", "wilke_chang_raw", "collision_omega_d", "binary_scale",
+    "warning_string", "warning_strings", "binary_fsg", "binary_chapman_enskog",
+    "binary_wilke_lee", "binary_wilke_chang", "binary_omega_d", "binary_scale",
     "binary_gas", "binary_liquid",
     # fluxes
     "flux_compute", "fick_matrix", "fick_fluxes", "fick_eigenvalues",
     "flux_convert", "flux_to_volume_frame", "flux_to_species_frame",
-    "flux_total", "velocity_difference", "flux_project", "flux_diagnose",
+    "flux_total", "flux_velocity_difference", "flux_project", "flux_diagnose",
     # batched
     "flux_batch", "flux_batch_dij",
     # transfer
@@ -181,11 +181,11 @@ def formula_diffusion_volume(formula, n_rings=0):
     return out.value
 
 
-def fsg_molecule_volume(formula):
+def formula_molecule_volume(formula):
     """Tabulated Fuller diffusion volume of a simple molecule."""
     out = ctypes.c_double()
-    st = lib.mcd_fsg_molecule_volume(_fstr(formula), ctypes.byref(out))
-    _check(st, "mcd_fsg_molecule_volume", "formula %r" % formula)
+    st = lib.mcd_formula_molecule_volume(_fstr(formula), ctypes.byref(out))
+    _check(st, "mcd_formula_molecule_volume", "formula %r" % formula)
     return out.value
 
 
@@ -253,19 +253,19 @@ def mean_molar_mass_w(M, w):
     return _mean("mcd_comp_mean_molar_mass_w", M, w, "w")
 
 
-def x_to_c(c_total, x):
+def x_to_c(c, x):
     """Species concentrations c_i = c x_i [mol/m^3]."""
     a = _arrays.vector(x, None, "x")
     n = a.shape[0]
     out = _arrays.Output((n,))
-    _check(lib.mcd_comp_x_to_c(n, _sc(c_total, "c_total"), a.ptr, out.ptr),
+    _check(lib.mcd_comp_x_to_c(n, _sc(c, "c"), a.ptr, out.ptr),
            "mcd_comp_x_to_c")
     return out.result()
 
 
-def c_to_x(c):
+def c_to_x(ci):
     """(mole fractions, total concentration) from concentrations."""
-    a = _arrays.vector(c, None, "c")
+    a = _arrays.vector(ci, None, "ci")
     n = a.shape[0]
     out = _arrays.Output((n,))
     tot = ctypes.c_double()
@@ -277,8 +277,8 @@ def c_to_x(c):
 def ideal_gas_c(T, P):
     """Ideal-gas total concentration P/(R T) [mol/m^3]."""
     out = ctypes.c_double()
-    _check(lib.mcd_ideal_gas_c(_sc(T, "T"), _sc(P, "P"), ctypes.byref(out)),
-           "mcd_ideal_gas_c", "T = %r K, P = %r Pa" % (T, P))
+    _check(lib.mcd_comp_ideal_gas_c(_sc(T, "T"), _sc(P, "P"), ctypes.byref(out)),
+           "mcd_comp_ideal_gas_c", "T = %r K, P = %r Pa" % (T, P))
     return out.value
 
 
@@ -344,31 +344,31 @@ def _raw(fname, *args):
     return out.value
 
 
-def fsg_raw(T, P, MA, MB, VA, VB):
+def binary_fsg(T, P, MA, MB, VA, VB):
     """Fuller-Schettler-Giddings estimate [m^2/s] from raw parameters."""
-    return _raw("mcd_fsg_raw", T, P, MA, MB, VA, VB)
+    return _raw("mcd_binary_fsg", T, P, MA, MB, VA, VB)
 
 
-def chapman_enskog_raw(T, P, MA, MB, sigA, sigB, epsA, epsB):
+def binary_chapman_enskog(T, P, MA, MB, sigA, sigB, epsA, epsB):
     """Chapman-Enskog estimate [m^2/s] from Lennard-Jones parameters."""
-    return _raw("mcd_chapman_enskog_raw", T, P, MA, MB, sigA, sigB, epsA,
+    return _raw("mcd_binary_chapman_enskog", T, P, MA, MB, sigA, sigB, epsA,
                 epsB)
 
 
-def wilke_lee_raw(T, P, MA, MB, sigA, sigB, epsA, epsB):
+def binary_wilke_lee(T, P, MA, MB, sigA, sigB, epsA, epsB):
     """Wilke-Lee estimate [m^2/s] from Lennard-Jones parameters."""
-    return _raw("mcd_wilke_lee_raw", T, P, MA, MB, sigA, sigB, epsA, epsB)
+    return _raw("mcd_binary_wilke_lee", T, P, MA, MB, sigA, sigB, epsA, epsB)
 
 
-def wilke_chang_raw(T, mu_solvent, M_solvent, phi, Vb_solute):
+def binary_wilke_chang(T, mu_solvent, M_solvent, phi, Vb_solute):
     """Wilke-Chang infinite-dilution diffusivity [m^2/s]."""
-    return _raw("mcd_wilke_chang_raw", T, mu_solvent, M_solvent, phi,
+    return _raw("mcd_binary_wilke_chang", T, mu_solvent, M_solvent, phi,
                 Vb_solute)
 
 
-def collision_omega_d(T_star):
+def binary_omega_d(T_star):
     """Neufeld-Janzen-Aziz diffusion collision integral Omega_D(T*)."""
-    return _raw("mcd_collision_omega_d", T_star)
+    return _raw("mcd_binary_omega_d", T_star)
 
 
 def binary_scale(D_ref, T_ref, P_ref, T, P, exponent=1.75):
@@ -573,7 +573,7 @@ def flux_total(comp, diff, bootstrap, *, species=0, values=None,
                      float(bk[0]) if was_1d else bk)
 
 
-def velocity_difference(M, c, x, J):
+def flux_velocity_difference(M, c, x, J):
     """v - u [m/s], mass- minus molar-average velocity (float for 1-D J,
     else length n_dim)."""
     xa = _arrays.vector(x, None, "x")
@@ -581,9 +581,9 @@ def velocity_difference(M, c, x, J):
     m = _arrays.vector(M, n, "M")
     f, nd, was_1d = _arrays.field(J, n, "J")
     o = _arrays.Output((nd,))
-    st = lib.mcd_velocity_difference(n, nd, m.ptr, _sc(c, "c"), xa.ptr,
+    st = lib.mcd_flux_velocity_difference(n, nd, m.ptr, _sc(c, "c"), xa.ptr,
                                      f.ptr, o.ptr)
-    _check(st, "mcd_velocity_difference")
+    _check(st, "mcd_flux_velocity_difference")
     r = o.result()
     return float(r[0]) if was_1d else r
 

@@ -84,7 +84,7 @@ class _Handle:
 
 class Workspace(_Handle):
     """Scratch memory for flux, Fick-matrix and transfer calls of up to
-    ``n_species`` species (mcd_workspace_alloc). One thread at a time.
+    ``n_species`` species (mcd_workspace_new). One thread at a time.
 
     Module-level functions use a per-thread workspace when none is given;
     pass ``workspace=`` to reuse your own in tight loops.
@@ -95,16 +95,16 @@ class Workspace(_Handle):
 
     def __init__(self, n_species):
         out = ctypes.c_void_p()
-        st = lib.mcd_workspace_alloc(int(n_species), ctypes.byref(out))
+        st = lib.mcd_workspace_new(int(n_species), ctypes.byref(out))
         if st:
-            _raise(st, "mcd_workspace_alloc",
+            _raise(st, "mcd_workspace_new",
                    "n_species = %d" % int(n_species))
         super().__init__(out.value)
 
     @property
     def capacity(self):
-        """Largest number of species (mcd_workspace_species)."""
-        return int(lib.mcd_workspace_species(self._p()))
+        """Largest number of species (mcd_workspace_capacity)."""
+        return int(lib.mcd_workspace_capacity(self._p()))
 
     @property
     def last_error(self):
@@ -119,13 +119,13 @@ class Workspace(_Handle):
                                              _arrays.scalar(tol, "tol"))
         self.check(st, "mcd_workspace_set_iterative")
 
-    def iterative_info(self):
+    def iterative_outcome(self):
         """(largest relative error estimate, largest iteration count) of
         the last batched ITERATIVE call on this workspace."""
         err, it = ctypes.c_double(), ctypes.c_size_t()
-        st = lib.mcd_workspace_iterative_info(self._p(), ctypes.byref(err),
+        st = lib.mcd_workspace_iterative_outcome(self._p(), ctypes.byref(err),
                                               ctypes.byref(it))
-        self.check(st, "mcd_workspace_iterative_info")
+        self.check(st, "mcd_workspace_iterative_outcome")
         return err.value, it.value
 
     def set_threads(self, n_threads):
@@ -176,7 +176,7 @@ class Database(_Handle):
 
     # -- look-up ----------------------------------------------------------
     def __len__(self):
-        return int(lib.mcd_db_count(self._p()))
+        return int(lib.mcd_db_species_count(self._p()))
 
     def find(self, name):
         """Index of a species by name (or unique formula)."""
@@ -301,27 +301,27 @@ class Database(_Handle):
 
     # -- estimates ----------------------------------------------------------
     def binary_gas(self, a, b, method, T, P):
-        """Gas binary diffusivity of species a and b (mcd_binary_gas)."""
+        """Gas binary diffusivity of species a and b (mcd_db_binary_gas)."""
         m = coerce(Method, method, "method")
         D, rel, warn = ctypes.c_double(), ctypes.c_double(), ctypes.c_uint()
-        st = lib.mcd_binary_gas(self._p(), self.index(a), self.index(b), m,
+        st = lib.mcd_db_binary_gas(self._p(), self.index(a), self.index(b), m,
                                 _arrays.scalar(T, "T"), _arrays.scalar(P, "P"),
                                 ctypes.byref(D), ctypes.byref(rel),
                                 ctypes.byref(warn))
         if st:
-            _raise(st, "mcd_binary_gas", "%s-%s by %s" % (a, b, m.name))
+            _raise(st, "mcd_db_binary_gas", "%s-%s by %s" % (a, b, m.name))
         return BinaryEstimate(D.value, rel.value, Warning(warn.value))
 
     def binary_liquid(self, solute, solvent, T, mu_solvent):
-        """Wilke-Chang infinite-dilution diffusivity (mcd_binary_liquid)."""
+        """Wilke-Chang infinite-dilution diffusivity (mcd_db_binary_liquid)."""
         D, rel, warn = ctypes.c_double(), ctypes.c_double(), ctypes.c_uint()
-        st = lib.mcd_binary_liquid(self._p(), self.index(solute),
+        st = lib.mcd_db_binary_liquid(self._p(), self.index(solute),
                                    self.index(solvent), _arrays.scalar(T, "T"),
                                    _arrays.scalar(mu_solvent, "mu_solvent"),
                                    ctypes.byref(D), ctypes.byref(rel),
                                    ctypes.byref(warn))
         if st:
-            _raise(st, "mcd_binary_liquid", "%s in %s" % (solute, solvent))
+            _raise(st, "mcd_db_binary_liquid", "%s in %s" % (solute, solvent))
         return BinaryEstimate(D.value, rel.value, Warning(warn.value))
 
     def mixture(self, names, method="fsg"):
@@ -375,7 +375,7 @@ class Mixture(_Handle):
         super().__init__(out.value)
 
     def __len__(self):
-        return int(lib.mcd_mixture_count(self._p()))
+        return int(lib.mcd_mixture_species_count(self._p()))
 
     @property
     def names(self):
@@ -473,10 +473,10 @@ class Mixture(_Handle):
     def gas_state(self, T, P):
         """GasState(c, D, M) of the mixture as an ideal gas at T, P."""
         c = ctypes.c_double()
-        st = lib.mcd_ideal_gas_c(_arrays.scalar(T, "T"),
+        st = lib.mcd_comp_ideal_gas_c(_arrays.scalar(T, "T"),
                                  _arrays.scalar(P, "P"), ctypes.byref(c))
         if st:
-            _raise(st, "mcd_ideal_gas_c", "T = %r K, P = %r Pa" % (T, P))
+            _raise(st, "mcd_comp_ideal_gas_c", "T = %r K, P = %r Pa" % (T, P))
         return GasState(c.value, self.binaries(T, P), self.molar_masses())
 
     def fluxes(self, T, P, comp, grad, **kw):
