@@ -656,16 +656,14 @@ typedef enum mcd_bootstrap {
     MCD_BOOT_TOTAL = 0,     /**< total flux given: values = N_t (or n_t), n_dim */
     MCD_BOOT_STAGNANT = 1,  /**< species `species` does not move */
     MCD_BOOT_EQUIMOLAR = 2, /**< N_t = 0 (MOLE) or n_t = 0 (MASS) */
-    MCD_BOOT_WEIGHTS = 3,   /**< sum_i nu_i N_i = 0; values = nu, length N */
-    MCD_BOOT_RATIOS = 4     /**< N_i = z_i N_t; values = z, length N, sum 1
-                                 (film only; not a local bootstrap) */
+    MCD_BOOT_WEIGHTS = 3    /**< sum_i nu_i N_i = 0; values = nu, length N */
 } mcd_bootstrap;
 
 /** Total fluxes from diffusion fluxes and a bootstrap condition:
  *  N_i = J_i + x_i N_t (MOLE) or n_i = j_i + w_i n_t (MASS).
  *  @param comp  x (MOLE) or w (MASS); @param diff  J or j (N x n_dim).
  *  @param out_total  N x n_dim; @param out_bulk  N_t or n_t (n_dim), may be
- *  NULL. MCD_BOOT_RATIOS is EINVAL here. Since 0.1.
+ *  NULL. Since 0.1.
  *  Fails: EINVAL, EDOM (stagnant species absent; sum nu_i y_i zero or
  *  cancelling to round-off; bulk flux overflows)
  *  | Allocates: no */
@@ -916,11 +914,23 @@ MCD_API mcd_status mcd_mixture_temperature_fit(const mcd_mixture *mix,
  * are linear in x for given N, so the profile is a matrix exponential and
  * the fluxes follow from the exact matrix solution of Krishna and Standart
  * (1976). A bootstrap condition fixes the total flux N_t = sum N_i:
- * MCD_BOOT_STAGNANT (N_species = 0), EQUIMOLAR (N_t = 0), WEIGHTS
+ * MCD_FILM_BOOT_STAGNANT (N_species = 0), EQUIMOLAR (N_t = 0), WEIGHTS
  * (sum nu_i N_i = 0, values = nu), TOTAL (values[0] = N_t) or RATIOS (see
  * mcd_film_solve). Pure-species ends, absent species and zero fluxes are
  * handled exactly.
  */
+
+/** Condition that fixes the total flux of a film (mcd_film_solve): the
+ *  local conditions of mcd_bootstrap (same meaning and numeric values)
+ *  plus RATIOS, which only a film can impose. */
+typedef enum mcd_film_bootstrap {
+    MCD_FILM_BOOT_TOTAL = 0,     /**< values[0] = N_t [mol/(m^2 s)] */
+    MCD_FILM_BOOT_STAGNANT = 1,  /**< species `species` does not move */
+    MCD_FILM_BOOT_EQUIMOLAR = 2, /**< N_t = 0 */
+    MCD_FILM_BOOT_WEIGHTS = 3,   /**< sum_i nu_i N_i = 0; values = nu */
+    MCD_FILM_BOOT_RATIOS = 4     /**< N_i = z_i N_t for every species;
+                                      values = z, length N, sum 1 */
+} mcd_film_bootstrap;
 
 /** Film theory used by mcd_film_solve. */
 typedef enum mcd_film_method {
@@ -953,7 +963,7 @@ typedef enum mcd_film_method {
  *  @param x0       mole fractions at z = 0, length N, validated as by
  *                  mcd_comp_normalize (sum within MCD_SUM_TOL of 1).
  *  @param xL       mole fractions at z = L, same rules.
- *  @param kind     bootstrap condition (mcd_bootstrap).
+ *  @param kind     bootstrap condition (mcd_film_bootstrap).
  *  @param species  for STAGNANT: the species that does not move (present,
  *                  x > 0, at both ends); for RATIOS: the species whose end
  *                  composition is matched; ignored otherwise.
@@ -978,8 +988,8 @@ typedef enum mcd_film_method {
 MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n_species,
                                   const double *Dij, double c, double L,
                                   const double *x0, const double *xL,
-                                  mcd_bootstrap kind, size_t species,
-                                  const double *values,
+                                  mcd_film_bootstrap kind,
+                                  size_t species, const double *values,
                                   mcd_film_method method, double *out_N,
                                   size_t *out_iterations,
                                   double *out_residual);
@@ -1041,7 +1051,7 @@ MCD_API mcd_status mcd_bulbs_linearized(mcd_workspace *ws, size_t n_species,
 
 /** Two-bulb compositions by time integration: the capillary flux at each
  *  instant is the exact steady equimolar film solution between x1 and x2
- *  (mcd_film_solve, EXACT, MCD_BOOT_EQUIMOLAR), and c V1 dx1/dt = -A N
+ *  (mcd_film_solve, EXACT, MCD_FILM_BOOT_EQUIMOLAR), and c V1 dx1/dt = -A N
  *  is integrated by an embedded Runge-Kutta 5(4) pair (Dormand and Prince
  *  1980) with error control; x2 follows from conservation, so every
  *  species is conserved to round-off. Since 0.1.

@@ -94,7 +94,7 @@ START_TEST(bulbs_duncan_toor_nitrogen_osmotic_reverse_then_normal)
         }
         /* capillary flux (bulb 1 -> bulb 2) and mean gradient */
         ck_assert_int_eq(mcd_film_solve(ws, 3, DT_D, c, DT_L, x1 + 3 * k,
-                                        x2 + 3 * k, MCD_BOOT_EQUIMOLAR, 0,
+                                        x2 + 3 * k, MCD_FILM_BOOT_EQUIMOLAR, 0,
                                         NULL, MCD_FILM_EXACT, N, NULL, NULL),
                          MCD_OK);
         for (int i = 0; i < 3; i++)

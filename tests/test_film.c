@@ -208,7 +208,7 @@ static int gauss(size_t m, double *A, double *b)
  * Returns -1 when the matrix is singular or the bootstrap has no solution
  * (neither happens for the films of this test). */
 static int ref_linearized(const ref_film *f, const double *x0,
-                          const double *xL, mcd_bootstrap kind, size_t sp,
+                          const double *xL, mcd_film_bootstrap kind, size_t sp,
                           const double *val, double *N)
 {
     size_t n = f->n, m = n - 1;
@@ -234,17 +234,17 @@ static int ref_linearized(const ref_film *f, const double *x0,
     for (size_t i = 0; i < m; i++)
         J[m] -= J[i];
     switch (kind) { /* N_t = num / den */
-    case MCD_BOOT_STAGNANT:
+    case MCD_FILM_BOOT_STAGNANT:
         num = -J[sp];
         den = xm[sp];
         break;
-    case MCD_BOOT_EQUIMOLAR:
+    case MCD_FILM_BOOT_EQUIMOLAR:
         num = 0.0;
         break;
-    case MCD_BOOT_TOTAL:
+    case MCD_FILM_BOOT_TOTAL:
         num = val[0];
         break;
-    case MCD_BOOT_WEIGHTS:
+    case MCD_FILM_BOOT_WEIGHTS:
         den = 0.0;
         for (size_t i = 0; i < n; i++) {
             num -= val[i] * J[i];
@@ -260,7 +260,7 @@ static int ref_linearized(const ref_film *f, const double *x0,
     if (den == 0.0 || !isfinite(Nt))
         return -1;
     for (size_t i = 0; i < n; i++)
-        N[i] = (kind == MCD_BOOT_RATIOS) ? val[i] * Nt : J[i] + xm[i] * Nt;
+        N[i] = (kind == MCD_FILM_BOOT_RATIOS) ? val[i] * Nt : J[i] + xm[i] * Nt;
     return 0;
 }
 
@@ -287,7 +287,7 @@ static double flux_scale(const ref_film *f, size_t n, const double *N)
 /* Residuals of the shooting problem for the local bootstraps: the first
  * n-1 end compositions, and the bootstrap divided by c Đ_min/L. */
 static void shoot_res(const ref_film *f, const double *x0, const double *xL,
-                      mcd_bootstrap kind, size_t sp, const double *val,
+                      mcd_film_bootstrap kind, size_t sp, const double *val,
                       const double *N, double *F)
 {
     size_t n = f->n;
@@ -296,14 +296,14 @@ static void shoot_res(const ref_film *f, const double *x0, const double *xL,
     for (size_t i = 0; i + 1 < n; i++)
         F[i] = x[i] - xL[i];
     switch (kind) {
-    case MCD_BOOT_STAGNANT:
+    case MCD_FILM_BOOT_STAGNANT:
         s = N[sp];
         break;
-    case MCD_BOOT_EQUIMOLAR:
+    case MCD_FILM_BOOT_EQUIMOLAR:
         for (size_t i = 0; i < n; i++)
             s += N[i];
         break;
-    case MCD_BOOT_TOTAL:
+    case MCD_FILM_BOOT_TOTAL:
         for (size_t i = 0; i < n; i++)
             s += N[i];
         s -= val[0];
@@ -321,7 +321,7 @@ static void shoot_res(const ref_film *f, const double *x0, const double *xL,
  * residual norm drops (Armijo condition with 1e-4, common practice).
  * Returns 0 with the root in N, or -1 with N unchanged. */
 static int ref_newton(const ref_film *f, const double *x0, const double *xL,
-                      mcd_bootstrap kind, size_t sp, const double *val,
+                      mcd_film_bootstrap kind, size_t sp, const double *val,
                       double *N)
 {
     size_t n = f->n;
@@ -378,7 +378,7 @@ static int ref_newton(const ref_film *f, const double *x0, const double *xL,
  * previous solution, a failed step is halved (down to 1/4096), a good one
  * doubles the next. Returns 0 with N, or -1. */
 static int ref_continuation(const ref_film *f, const double *x0,
-                            const double *xL, mcd_bootstrap kind, size_t sp,
+                            const double *xL, mcd_film_bootstrap kind, size_t sp,
                             const double *val, double *N)
 {
     size_t n = f->n;
@@ -541,7 +541,7 @@ static int ref_rk_check(const ref_film *f, const double *x0, const double *N)
  * only the second, with second_only). *used_second tells which method
  * gave N. Returns 0, or -1 when neither gave an accepted answer. */
 static int ref_solve(const ref_film *f, const double *x0, const double *xL,
-                     mcd_bootstrap kind, size_t sp, const double *val,
+                     mcd_film_bootstrap kind, size_t sp, const double *val,
                      int second_only, double *N, int *used_second)
 {
     size_t n = f->n;
@@ -549,7 +549,7 @@ static int ref_solve(const ref_film *f, const double *x0, const double *xL,
     *used_second = 0;
     if (ref_linearized(f, x0, xL, kind, sp, val, Nlin) != 0)
         return -1;
-    if (kind != MCD_BOOT_RATIOS) {
+    if (kind != MCD_FILM_BOOT_RATIOS) {
         memcpy(N, Nlin, n * sizeof(double));
         if (!second_only && ref_newton(f, x0, xL, kind, sp, val, N) == 0 &&
             ref_rk_check(f, x0, N) == 0)
@@ -583,7 +583,7 @@ static int ref_solve(const ref_film *f, const double *x0, const double *xL,
  * the answer. Returns 0, or -1 when the reference gave up (reported by the
  * test as a failure of the reference, not of the library). */
 static int ref_fluxes(const ref_film *f, const double *x0, const double *xL,
-                      mcd_bootstrap kind, size_t sp, const double *val,
+                      mcd_film_bootstrap kind, size_t sp, const double *val,
                       int second_only, double *N, int *used_second,
                       int *steps)
 {
@@ -680,7 +680,7 @@ START_TEST(film_stefan_tube_matches_published_fluxes)
     double res = 1.0;
     ck_assert_int_eq(mcd_comp_ideal_gas_c(CS_T, CS_P, &c), MCD_OK);
     ck_assert_int_eq(mcd_film_solve(ws, 3, CS_D, c, CS_L, CS_X0, CS_XL,
-                                    MCD_BOOT_STAGNANT, 2, NULL,
+                                    MCD_FILM_BOOT_STAGNANT, 2, NULL,
                                     MCD_FILM_EXACT, N, &it, &res),
                      MCD_OK);
     printf("Stefan tube (exact): N1 = %.5e N2 = %.5e N3 = %.1e, "
@@ -725,11 +725,11 @@ START_TEST(film_stefan_tube_linearized_is_close_to_exact)
     double c, Ne[3], Nl[3];
     ck_assert_int_eq(mcd_comp_ideal_gas_c(CS_T, CS_P, &c), MCD_OK);
     ck_assert_int_eq(mcd_film_solve(ws, 3, CS_D, c, CS_L, CS_X0, CS_XL,
-                                    MCD_BOOT_STAGNANT, 2, NULL,
+                                    MCD_FILM_BOOT_STAGNANT, 2, NULL,
                                     MCD_FILM_EXACT, Ne, NULL, NULL),
                      MCD_OK);
     ck_assert_int_eq(mcd_film_solve(ws, 3, CS_D, c, CS_L, CS_X0, CS_XL,
-                                    MCD_BOOT_STAGNANT, 2, NULL,
+                                    MCD_FILM_BOOT_STAGNANT, 2, NULL,
                                     MCD_FILM_LINEARIZED, Nl, NULL, NULL),
                      MCD_OK);
     printf("Stefan tube linearized: N1 = %.5e (%+.2f %%) N2 = %.5e "
@@ -760,7 +760,7 @@ START_TEST(film_binary_equals_closed_forms)
          * (constant Đ), so both methods must match. 1e-10 relative:
          * convergence 1e-12 times the conditioning of ln. */
         ck_assert_int_eq(mcd_film_solve(ws, 2, Dm, c, L, x0, xL,
-                                        MCD_BOOT_STAGNANT, 1, NULL, meth, N,
+                                        MCD_FILM_BOOT_STAGNANT, 1, NULL, meth, N,
                                         NULL, NULL),
                          MCD_OK);
         ref = k * log((1 - aL) / (1 - a0));
@@ -769,7 +769,7 @@ START_TEST(film_binary_equals_closed_forms)
 
         /* equimolar: N_A = c Đ (xA0 - xAL)/L */
         ck_assert_int_eq(mcd_film_solve(ws, 2, Dm, c, L, x0, xL,
-                                        MCD_BOOT_EQUIMOLAR, 0, NULL, meth, N,
+                                        MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, meth, N,
                                         NULL, NULL),
                          MCD_OK);
         ref = k * (a0 - aL);
@@ -781,7 +781,7 @@ START_TEST(film_binary_equals_closed_forms)
             double zA = (a0 > aL) ? a0 + 0.1 + urand() : a0 - 0.1 - urand();
             double zv[2] = {zA, 1 - zA};
             ck_assert_int_eq(mcd_film_solve(ws, 2, Dm, c, L, x0, xL,
-                                            MCD_BOOT_RATIOS, 0, zv, meth, N,
+                                            MCD_FILM_BOOT_RATIOS, 0, zv, meth, N,
                                             NULL, NULL),
                              MCD_OK);
             ref = zA * k * log((zA - aL) / (zA - a0));
@@ -795,15 +795,15 @@ END_TEST
 
 START_TEST(film_agrees_with_independent_shooting)
 {
-    const mcd_bootstrap kinds[5] = {MCD_BOOT_STAGNANT, MCD_BOOT_EQUIMOLAR,
-                                    MCD_BOOT_WEIGHTS, MCD_BOOT_TOTAL,
-                                    MCD_BOOT_RATIOS};
+    const mcd_film_bootstrap kinds[5] = {MCD_FILM_BOOT_STAGNANT, MCD_FILM_BOOT_EQUIMOLAR,
+                                    MCD_FILM_BOOT_WEIGHTS, MCD_FILM_BOOT_TOTAL,
+                                    MCD_FILM_BOOT_RATIOS};
     double worst = 0.0, worst_prof = 0.0, worst_two = 0.0;
     size_t max_it = 0;
     int count = 0, n_second = 0, n_two = 0, n_finer = 0;
     for (int trial = 0; trial < 60; trial++) {
         size_t n = 3 + (size_t)(trial % 4);
-        mcd_bootstrap kind = kinds[(trial / 4) % 5];
+        mcd_film_bootstrap kind = kinds[(trial / 4) % 5];
         double D[NMAX * NMAX], x0[NMAX], xL[NMAX], val[NMAX], N[NMAX];
         double Nref[NMAX], c = 30 + 20 * urand(), L = 0.02 + 0.1 * urand();
         double Dmin = 1.0, nmax = 0.0, err = 0.0;
@@ -817,10 +817,10 @@ START_TEST(film_agrees_with_independent_shooting)
         random_comp(n, 0.1, x0);
         random_comp(n, 0.1, xL);
         sp = (size_t)(urand() * n);
-        if (kind == MCD_BOOT_WEIGHTS)
+        if (kind == MCD_FILM_BOOT_WEIGHTS)
             for (size_t i = 0; i < n; i++)
                 val[i] = 0.5 + 1.5 * urand();
-        if (kind == MCD_BOOT_TOTAL)
+        if (kind == MCD_FILM_BOOT_TOTAL)
             val[0] = (urand() - 0.5) * c * Dmin / L;
         rf.n = n;
         rf.D = D;
@@ -828,7 +828,7 @@ START_TEST(film_agrees_with_independent_shooting)
         rf.L = L;
         rf.fscale = c * Dmin / L;
         rf.steps = RK_STEPS;
-        if (kind == MCD_BOOT_RATIOS)
+        if (kind == MCD_FILM_BOOT_RATIOS)
             ratios_film(&rf, sp, x0, val, xL);
         ck_assert_int_eq(mcd_film_solve(ws, n, D, c, L, x0, xL, kind, sp,
                                         val, MCD_FILM_EXACT, N, &it, NULL),
@@ -915,11 +915,11 @@ START_TEST(film_linearized_approaches_exact_for_small_differences)
         for (int i = 0; i < 4; i++)
             xL[i] = x0[i] + eps * (dir[i] - x0[i]);
         ck_assert_int_eq(mcd_film_solve(ws, 4, D, c, L, x0, xL,
-                                        MCD_BOOT_STAGNANT, 3, NULL,
+                                        MCD_FILM_BOOT_STAGNANT, 3, NULL,
                                         MCD_FILM_EXACT, Ne, NULL, NULL),
                          MCD_OK);
         ck_assert_int_eq(mcd_film_solve(ws, 4, D, c, L, x0, xL,
-                                        MCD_BOOT_STAGNANT, 3, NULL,
+                                        MCD_FILM_BOOT_STAGNANT, 3, NULL,
                                         MCD_FILM_LINEARIZED, Nl, NULL, NULL),
                          MCD_OK);
         for (int i = 0; i < 4; i++) {
@@ -948,7 +948,7 @@ START_TEST(film_profile_ends_at_xL_and_conserves_sum)
         random_comp(n, 0.0, x0);
         random_comp(n, 0.0, xL);
         ck_assert_int_eq(mcd_film_solve(ws, n, D, c, L, x0, xL,
-                                        MCD_BOOT_EQUIMOLAR, 0, NULL,
+                                        MCD_FILM_BOOT_EQUIMOLAR, 0, NULL,
                                         MCD_FILM_EXACT, N, NULL, NULL),
                          MCD_OK);
         ck_assert_int_eq(mcd_film_profile(ws, n, D, c, L, x0, N, 2, z, X),
@@ -972,20 +972,20 @@ START_TEST(film_pure_ends_and_absent_species_are_exact)
      * (common practice), and the header promises it. Checked over many
      * random Dij and every local bootstrap, since round-off in the matrix
      * functions used to leave |N_s| ~ 1e-18 for some Dij (1750 of 10000). */
-    const mcd_bootstrap kinds[4] = {MCD_BOOT_EQUIMOLAR, MCD_BOOT_STAGNANT,
-                                    MCD_BOOT_WEIGHTS, MCD_BOOT_TOTAL};
+    const mcd_film_bootstrap kinds[4] = {MCD_FILM_BOOT_EQUIMOLAR, MCD_FILM_BOOT_STAGNANT,
+                                    MCD_FILM_BOOT_WEIGHTS, MCD_FILM_BOOT_TOTAL};
     for (int trial = 0; trial < 400; trial++) {
-        mcd_bootstrap kind = kinds[trial % 4];
+        mcd_film_bootstrap kind = kinds[trial % 4];
         double D[16], x0[4] = {1, 0, 0, 0}, xL[4] = {0, 0.5, 0.5, 0}, N[4];
         double val[4] = {1.0, 2.0, 0.5, 3.0}, sum;
         size_t sp = 0;
         random_dij(4, D);
-        if (kind == MCD_BOOT_STAGNANT) { /* present at both ends */
+        if (kind == MCD_FILM_BOOT_STAGNANT) { /* present at both ends */
             x0[0] = 0.6;
             x0[2] = 0.4;
             sp = 2;
         }
-        if (kind == MCD_BOOT_TOTAL)
+        if (kind == MCD_FILM_BOOT_TOTAL)
             val[0] = 1e-3;
         for (int meth = 0; meth < 2; meth++) {
             ck_assert_int_eq(mcd_film_solve(ws, 4, D, 40, 0.1, x0, xL, kind,
@@ -995,7 +995,7 @@ START_TEST(film_pure_ends_and_absent_species_are_exact)
             ck_assert_msg(N[3] == 0.0, "trial %d kind %d method %d: N[3] = %g",
                           trial, (int)kind, meth, N[3]);
             sum = N[0] + N[1] + N[2];
-            if (kind == MCD_BOOT_EQUIMOLAR)
+            if (kind == MCD_FILM_BOOT_EQUIMOLAR)
                 ck_assert_double_eq_tol(sum, 0.0, 1e-14 * fabs(N[0]));
         }
     }
@@ -1008,7 +1008,7 @@ START_TEST(film_pure_ends_and_absent_species_are_exact)
         for (int k = 0; k < 16; k++)
             D[k] = (k % 5 == 0) ? 0.0 : 2e-5;
         ck_assert_int_eq(mcd_film_solve(ws, 4, D, 40, 0.1, x0, xL,
-                                        MCD_BOOT_EQUIMOLAR, 0, NULL,
+                                        MCD_FILM_BOOT_EQUIMOLAR, 0, NULL,
                                         MCD_FILM_EXACT, N, NULL, NULL),
                          MCD_OK);
         ck_assert(N[0] > 0 && N[1] < 0 && N[2] < 0 && N[3] == 0.0);
@@ -1038,7 +1038,7 @@ START_TEST(film_works_at_full_workspace_capacity)
             z[i] = (i == 0) ? x0[0] + 0.5 : (0.5 - x0[0]) / (double)(n - 1);
         ck_assert_int_eq(mcd_workspace_new(n, &w), MCD_OK);
         for (int kind = 0; kind < 2; kind++) {
-            mcd_bootstrap b = kind ? MCD_BOOT_RATIOS : MCD_BOOT_STAGNANT;
+            mcd_film_bootstrap b = kind ? MCD_FILM_BOOT_RATIOS : MCD_FILM_BOOT_STAGNANT;
             for (int meth = 0; meth < 2; meth++) {
                 ck_assert_int_eq(mcd_film_solve(w, n, D, 40, 0.03, x0, xL, b,
                                                 kind ? 0 : n - 1, z,
@@ -1099,101 +1099,101 @@ START_TEST(film_errors_leave_outputs_untouched)
         unchanged(N, 3);                                                       \
     } while (0)
 
-    EXPECT(mcd_film_solve(NULL, 3, D, 40, 0.1, x0, xL, MCD_BOOT_EQUIMOLAR, 0,
+    EXPECT(mcd_film_solve(NULL, 3, D, 40, 0.1, x0, xL, MCD_FILM_BOOT_EQUIMOLAR, 0,
                           NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EINVAL);
-    EXPECT(mcd_film_solve(ws, 1, D, 40, 0.1, x0, xL, MCD_BOOT_EQUIMOLAR, 0,
+    EXPECT(mcd_film_solve(ws, 1, D, 40, 0.1, x0, xL, MCD_FILM_BOOT_EQUIMOLAR, 0,
                           NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EINVAL);
     ck_assert_int_eq(mcd_workspace_new(2, &small), MCD_OK);
-    EXPECT(mcd_film_solve(small, 3, D, 40, 0.1, x0, xL, MCD_BOOT_EQUIMOLAR,
+    EXPECT(mcd_film_solve(small, 3, D, 40, 0.1, x0, xL, MCD_FILM_BOOT_EQUIMOLAR,
                           0, NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EBADLEN);
     mcd_workspace_free(small);
-    EXPECT(mcd_film_solve(ws, 3, NULL, 40, 0.1, x0, xL, MCD_BOOT_EQUIMOLAR,
+    EXPECT(mcd_film_solve(ws, 3, NULL, 40, 0.1, x0, xL, MCD_FILM_BOOT_EQUIMOLAR,
                           0, NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EINVAL);
     {
         double Dn[9];
         memcpy(Dn, D, sizeof Dn);
         Dn[1] = NAN;
-        EXPECT(mcd_film_solve(ws, 3, Dn, 40, 0.1, x0, xL, MCD_BOOT_EQUIMOLAR,
+        EXPECT(mcd_film_solve(ws, 3, Dn, 40, 0.1, x0, xL, MCD_FILM_BOOT_EQUIMOLAR,
                               0, NULL, MCD_FILM_EXACT, N, &it, &res),
                MCD_EINVAL);
         memcpy(Dn, D, sizeof Dn);
         Dn[1] *= 1.01; /* asymmetric */
-        EXPECT(mcd_film_solve(ws, 3, Dn, 40, 0.1, x0, xL, MCD_BOOT_EQUIMOLAR,
+        EXPECT(mcd_film_solve(ws, 3, Dn, 40, 0.1, x0, xL, MCD_FILM_BOOT_EQUIMOLAR,
                               0, NULL, MCD_FILM_EXACT, N, &it, &res),
                MCD_EDOM);
         memcpy(Dn, D, sizeof Dn);
         Dn[1] = Dn[3] = -1e-5;
-        EXPECT(mcd_film_solve(ws, 3, Dn, 40, 0.1, x0, xL, MCD_BOOT_EQUIMOLAR,
+        EXPECT(mcd_film_solve(ws, 3, Dn, 40, 0.1, x0, xL, MCD_FILM_BOOT_EQUIMOLAR,
                               0, NULL, MCD_FILM_EXACT, N, &it, &res),
                MCD_EDOM);
     }
-    EXPECT(mcd_film_solve(ws, 3, D, 0.0, 0.1, x0, xL, MCD_BOOT_EQUIMOLAR, 0,
+    EXPECT(mcd_film_solve(ws, 3, D, 0.0, 0.1, x0, xL, MCD_FILM_BOOT_EQUIMOLAR, 0,
                           NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EDOM);
-    EXPECT(mcd_film_solve(ws, 3, D, 40, NAN, x0, xL, MCD_BOOT_EQUIMOLAR, 0,
+    EXPECT(mcd_film_solve(ws, 3, D, 40, NAN, x0, xL, MCD_FILM_BOOT_EQUIMOLAR, 0,
                           NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EINVAL);
-    EXPECT(mcd_film_solve(ws, 3, D, 40, -0.1, x0, xL, MCD_BOOT_EQUIMOLAR, 0,
+    EXPECT(mcd_film_solve(ws, 3, D, 40, -0.1, x0, xL, MCD_FILM_BOOT_EQUIMOLAR, 0,
                           NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EDOM);
-    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, bad, xL, MCD_BOOT_EQUIMOLAR, 0,
+    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, bad, xL, MCD_FILM_BOOT_EQUIMOLAR, 0,
                           NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EDOM);
-    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, neg, MCD_BOOT_EQUIMOLAR, 0,
+    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, neg, MCD_FILM_BOOT_EQUIMOLAR, 0,
                           NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EDOM);
-    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, NULL, MCD_BOOT_EQUIMOLAR, 0,
+    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, NULL, MCD_FILM_BOOT_EQUIMOLAR, 0,
                           NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EINVAL);
-    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, (mcd_bootstrap)99, 0,
+    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, (mcd_film_bootstrap)99, 0,
                           NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EINVAL);
-    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, MCD_BOOT_EQUIMOLAR, 0,
+    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, MCD_FILM_BOOT_EQUIMOLAR, 0,
                           NULL, (mcd_film_method)7, N, &it, &res),
            MCD_EINVAL);
-    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, MCD_BOOT_STAGNANT, 3,
+    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, MCD_FILM_BOOT_STAGNANT, 3,
                           NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EINVAL);
     {
         /* stagnant species absent at both ends, and at one end */
         double a0[3] = {0.5, 0.5, 0}, aL[3] = {0.2, 0.8, 0};
         double b0[3] = {0.5, 0.3, 0.2};
-        EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, a0, aL, MCD_BOOT_STAGNANT,
+        EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, a0, aL, MCD_FILM_BOOT_STAGNANT,
                               2, NULL, MCD_FILM_EXACT, N, &it, &res),
                MCD_EDOM);
-        EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, b0, aL, MCD_BOOT_STAGNANT,
+        EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, b0, aL, MCD_FILM_BOOT_STAGNANT,
                               2, NULL, MCD_FILM_LINEARIZED, N, &it, &res),
                MCD_EDOM);
         /* weights with sum nu_i x_i = 0 at both ends */
         double w0[3] = {0.4, 0.4, 0.2}, wL[3] = {0.1, 0.1, 0.8};
-        EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, w0, wL, MCD_BOOT_WEIGHTS, 0,
+        EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, w0, wL, MCD_FILM_BOOT_WEIGHTS, 0,
                               nu0, MCD_FILM_EXACT, N, &it, &res),
                MCD_EDOM);
     }
-    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, MCD_BOOT_WEIGHTS, 0,
+    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, MCD_FILM_BOOT_WEIGHTS, 0,
                           NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EINVAL);
     {
         double nn[3] = {1, NAN, 1};
-        EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, MCD_BOOT_WEIGHTS, 0,
+        EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, MCD_FILM_BOOT_WEIGHTS, 0,
                               nn, MCD_FILM_EXACT, N, &it, &res),
                MCD_EINVAL);
     }
-    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, MCD_BOOT_TOTAL, 0,
+    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, MCD_FILM_BOOT_TOTAL, 0,
                           &nanv, MCD_FILM_EXACT, N, &it, &res),
            MCD_EINVAL);
-    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, MCD_BOOT_RATIOS, 0, nu,
+    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, MCD_FILM_BOOT_RATIOS, 0, nu,
                           MCD_FILM_EXACT, N, &it, &res),
            MCD_EDOM); /* z sums to 3 */
     {
         /* total flux so large that exp(Phi) overflows: rate factor out of
          * range at the first evaluation */
         tot = 1e9;
-        EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, MCD_BOOT_TOTAL, 0,
+        EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, MCD_FILM_BOOT_TOTAL, 0,
                               &tot, MCD_FILM_EXACT, N, &it, &res),
                MCD_EDOM);
     }
@@ -1202,14 +1202,14 @@ START_TEST(film_errors_leave_outputs_untouched)
          * the last residual in the workspace message */
         double Db[4] = {0, 2e-5, 2e-5, 0};
         double a0[2] = {0.5, 0.5}, aL[2] = {0.1, 0.9}, zr[2] = {0.3, 0.7};
-        EXPECT(mcd_film_solve(ws, 2, Db, 40, 0.1, a0, aL, MCD_BOOT_RATIOS, 0,
+        EXPECT(mcd_film_solve(ws, 2, Db, 40, 0.1, a0, aL, MCD_FILM_BOOT_RATIOS, 0,
                               zr, MCD_FILM_EXACT, N, &it, &res),
                MCD_ENOCONV);
         ck_assert_ptr_nonnull(strstr(mcd_workspace_last_error(ws), "residual"));
     }
     ck_assert_uint_eq(it, 777);
     ck_assert_double_eq(res, GUARD);
-    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, MCD_BOOT_EQUIMOLAR, 0,
+    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, MCD_FILM_BOOT_EQUIMOLAR, 0,
                           NULL, MCD_FILM_EXACT, NULL, &it, &res),
            MCD_EINVAL);
 #undef EXPECT

@@ -596,7 +596,7 @@ START_TEST(frames_error_paths_leave_outputs_untouched)
         EXPECT(mcd_flux_total(0, 2, MO, x, J, MCD_BOOT_EQUIMOLAR, 0, NULL, out, ob), MCD_EINVAL);
         EXPECT(mcd_flux_total(3, 0, MO, x, J, MCD_BOOT_EQUIMOLAR, 0, NULL, out, ob), MCD_EINVAL);
         EXPECT(mcd_flux_total(3, 2, (mcd_basis)5, x, J, MCD_BOOT_EQUIMOLAR, 0, NULL, out, ob), MCD_EINVAL);
-        EXPECT(mcd_flux_total(3, 2, MO, x, J, MCD_BOOT_RATIOS, 0, nub, out, ob), MCD_EINVAL);
+        EXPECT(mcd_flux_total(3, 2, MO, x, J, (mcd_bootstrap)4, 0, nub, out, ob), MCD_EINVAL);
         EXPECT(mcd_flux_total(3, 2, MO, x, J, (mcd_bootstrap)17, 0, nub, out, ob), MCD_EINVAL);
         EXPECT(mcd_flux_total(3, 2, MO, x, J, MCD_BOOT_STAGNANT, 3, NULL, out, ob), MCD_EINVAL);
         nub[1] = nan;

@@ -98,7 +98,7 @@ static mcd_status compute_state(mcd_workspace *ws, int k, double *out)
                              MCD_BASIS_MOLE, 0, F, NULL)) != MCD_OK)
         return r;
     /* Film: equimolar counter-diffusion between x and xL over 1 mm. */
-    return mcd_film_solve(ws, NS, D, st.c, 1e-3, st.x, st.xL, MCD_BOOT_EQUIMOLAR,
+    return mcd_film_solve(ws, NS, D, st.c, 1e-3, st.x, st.xL, MCD_FILM_BOOT_EQUIMOLAR,
                           0, NULL, MCD_FILM_EXACT, Nf, NULL, NULL);
 }
 

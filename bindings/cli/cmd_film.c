@@ -100,7 +100,7 @@ typedef struct film_job {
     double x0in[MCD_MAX_SPECIES], xLin[MCD_MAX_SPECIES];
     size_t nx0, nxL;
     double xL[MCD_MAX_SPECIES];            /* validated xL */
-    mcd_bootstrap kind;
+    mcd_film_bootstrap kind;
     const char *boot_opt;                  /* e.g. "--stagnant" */
     const char *species_name;              /* --stagnant / --match */
     size_t species;                        /* its index */
@@ -116,14 +116,14 @@ typedef struct film_job {
     double *z, *xz;                        /* profile */
 } film_job;
 
-static const char *boot_name(mcd_bootstrap k)
+static const char *boot_name(mcd_film_bootstrap k)
 {
     switch (k) {
-    case MCD_BOOT_STAGNANT: return "stagnant";
-    case MCD_BOOT_EQUIMOLAR: return "equimolar";
-    case MCD_BOOT_WEIGHTS: return "weights";
-    case MCD_BOOT_RATIOS: return "ratios";
-    case MCD_BOOT_TOTAL: return "total";
+    case MCD_FILM_BOOT_STAGNANT: return "stagnant";
+    case MCD_FILM_BOOT_EQUIMOLAR: return "equimolar";
+    case MCD_FILM_BOOT_WEIGHTS: return "weights";
+    case MCD_FILM_BOOT_RATIOS: return "ratios";
+    case MCD_FILM_BOOT_TOTAL: return "total";
     }
     return "?";
 }
@@ -184,12 +184,12 @@ static int parse(film_job *fj, const char *cmd, int argc, char **argv)
                            : id == O_RATIOS  ? "--ratios"
                                              : "--total-flux";
             if (id == O_STAG) {
-                fj->kind = MCD_BOOT_STAGNANT;
+                fj->kind = MCD_FILM_BOOT_STAGNANT;
                 fj->species_name = a.value;
             } else if (id == O_EQUI) {
-                fj->kind = MCD_BOOT_EQUIMOLAR;
+                fj->kind = MCD_FILM_BOOT_EQUIMOLAR;
             } else if (id == O_TOTAL) {
-                fj->kind = MCD_BOOT_TOTAL;
+                fj->kind = MCD_FILM_BOOT_TOTAL;
                 if (cli_parse_number(a.value, &fj->values[0], why,
                                      sizeof why) != 0)
                     return cli_usage_error(cmd, a.spelled,
@@ -198,8 +198,8 @@ static int parse(film_job *fj, const char *cmd, int argc, char **argv)
                                            why);
                 fj->nvalues = 1;
             } else {
-                fj->kind = id == O_WEIGHTS ? MCD_BOOT_WEIGHTS
-                                           : MCD_BOOT_RATIOS;
+                fj->kind = id == O_WEIGHTS ? MCD_FILM_BOOT_WEIGHTS
+                                           : MCD_FILM_BOOT_RATIOS;
                 if (cli_parse_list(a.value, fj->values, MCD_MAX_SPECIES,
                                    &fj->nvalues, why, sizeof why) != 0)
                     return cli_usage_error(cmd, a.spelled, "%s", why);
@@ -265,18 +265,18 @@ static int parse(film_job *fj, const char *cmd, int argc, char **argv)
                                "a bootstrap is required: one of "
                                "--stagnant NAME, --equimolar, --weights, "
                                "--ratios with --match, --total-flux");
-    if ((fj->kind == MCD_BOOT_WEIGHTS || fj->kind == MCD_BOOT_RATIOS) &&
+    if ((fj->kind == MCD_FILM_BOOT_WEIGHTS || fj->kind == MCD_FILM_BOOT_RATIOS) &&
         fj->nvalues != s->n)
         return cli_usage_error(cmd, fj->boot_opt,
                                "has %zu values for %zu species", fj->nvalues,
                                s->n);
-    if (fj->kind == MCD_BOOT_RATIOS && !match)
+    if (fj->kind == MCD_FILM_BOOT_RATIOS && !match)
         return cli_usage_error(cmd, "--match",
                                "is required with --ratios (the species "
                                "whose value at z = L is matched)");
-    if (fj->kind != MCD_BOOT_RATIOS && match)
+    if (fj->kind != MCD_FILM_BOOT_RATIOS && match)
         return cli_usage_error(cmd, "--match", "is only used with --ratios");
-    if (fj->kind == MCD_BOOT_RATIOS)
+    if (fj->kind == MCD_FILM_BOOT_RATIOS)
         fj->species_name = match;
     if (have_points && !fj->profile)
         return cli_usage_error(cmd, "--points",
@@ -298,7 +298,7 @@ static int film_failed(film_job *fj, const char *cmd, mcd_status st)
 
     if (st == MCD_EDOM || st == MCD_EINVAL) {
         switch (fj->kind) {
-        case MCD_BOOT_STAGNANT:
+        case MCD_FILM_BOOT_STAGNANT:
             if (!(s->x[k] > 0.0) || !(fj->xL[k] > 0.0)) {
                 arg = "--stagnant";
                 snprintf(reason, sizeof reason,
@@ -307,7 +307,7 @@ static int film_failed(film_job *fj, const char *cmd, mcd_status st)
                          fj->species_name, !(s->x[k] > 0.0) ? "0" : "L");
             }
             break;
-        case MCD_BOOT_WEIGHTS: {
+        case MCD_FILM_BOOT_WEIGHTS: {
             double d0 = 0.0, dL = 0.0;
             for (i = 0; i < n; i++) {
                 d0 += fj->values[i] * s->x[i];
@@ -320,7 +320,7 @@ static int film_failed(film_job *fj, const char *cmd, mcd_status st)
             }
             break;
         }
-        case MCD_BOOT_RATIOS: {
+        case MCD_FILM_BOOT_RATIOS: {
             double sum = 0.0;
             for (i = 0; i < n; i++)
                 sum += fj->values[i];
@@ -337,7 +337,7 @@ static int film_failed(film_job *fj, const char *cmd, mcd_status st)
             }
             break;
         }
-        case MCD_BOOT_TOTAL:
+        case MCD_FILM_BOOT_TOTAL:
             if (strstr(detail, "TOTAL")) {
                 arg = "--total-flux";
                 snprintf(reason, sizeof reason,
@@ -345,7 +345,7 @@ static int film_failed(film_job *fj, const char *cmd, mcd_status st)
                          fj->values[0]);
             }
             break;
-        case MCD_BOOT_EQUIMOLAR:
+        case MCD_FILM_BOOT_EQUIMOLAR:
             break;
         }
     }
@@ -364,7 +364,7 @@ static int solve(film_job *fj, const char *cmd, mcd_film_method m,
     mcd_status st = mcd_film_solve(
         s->ws, s->n, s->Dij, s->c, fj->L, s->x, fj->xL, fj->kind,
         fj->species,
-        (fj->kind == MCD_BOOT_EQUIMOLAR || fj->kind == MCD_BOOT_STAGNANT)
+        (fj->kind == MCD_FILM_BOOT_EQUIMOLAR || fj->kind == MCD_FILM_BOOT_STAGNANT)
             ? NULL
             : fj->values,
         m, N, it, res);
@@ -459,11 +459,11 @@ static void print_json(const film_job *fj)
     cli_json_numbers(&j, "xL", fj->xL, n);
     cli_json_object_begin(&j, "bootstrap");
     cli_json_string(&j, "kind", boot_name(fj->kind));
-    if (fj->kind == MCD_BOOT_STAGNANT || fj->kind == MCD_BOOT_RATIOS)
+    if (fj->kind == MCD_FILM_BOOT_STAGNANT || fj->kind == MCD_FILM_BOOT_RATIOS)
         cli_json_string(&j, "species", mcd_mixture_name(s->mix, fj->species));
-    if (fj->kind == MCD_BOOT_WEIGHTS || fj->kind == MCD_BOOT_RATIOS)
+    if (fj->kind == MCD_FILM_BOOT_WEIGHTS || fj->kind == MCD_FILM_BOOT_RATIOS)
         cli_json_numbers(&j, "values", fj->values, n);
-    if (fj->kind == MCD_BOOT_TOTAL)
+    if (fj->kind == MCD_FILM_BOOT_TOTAL)
         cli_json_number(&j, "total_flux", fj->values[0]);
     cli_json_object_end(&j);
     cli_json_string(&j, "model", fj->run == RUN_EXACT        ? "exact"
@@ -517,26 +517,26 @@ static void print_table(const film_job *fj)
            n, fj->L, s->T, s->P, s->c);
     printf("bootstrap: ");
     switch (fj->kind) {
-    case MCD_BOOT_STAGNANT:
+    case MCD_FILM_BOOT_STAGNANT:
         printf("%s stagnant (N = 0)\n", mcd_mixture_name(s->mix, fj->species));
         break;
-    case MCD_BOOT_EQUIMOLAR:
+    case MCD_FILM_BOOT_EQUIMOLAR:
         printf("equimolar (sum N_i = 0)\n");
         break;
-    case MCD_BOOT_WEIGHTS:
+    case MCD_FILM_BOOT_WEIGHTS:
         printf("sum nu_i N_i = 0, nu =");
         for (i = 0; i < n; i++)
             printf("%s%.6g", i ? ", " : " ", fj->values[i]);
         printf("\n");
         break;
-    case MCD_BOOT_RATIOS:
+    case MCD_FILM_BOOT_RATIOS:
         printf("N_i = z_i N_t, z =");
         for (i = 0; i < n; i++)
             printf("%s%.6g", i ? ", " : " ", fj->values[i]);
         printf("; x(L) of %s matched\n",
                mcd_mixture_name(s->mix, fj->species));
         break;
-    case MCD_BOOT_TOTAL:
+    case MCD_FILM_BOOT_TOTAL:
         printf("sum N_i = %.6g mol/(m^2 s)\n", fj->values[0]);
         break;
     }
@@ -640,7 +640,7 @@ int cli_cmd_film(int argc, char **argv)
         long k = cli_state_find(s, fj->species_name);
         if (k < 0) {
             rc = cli_usage_error(cmd,
-                                 fj->kind == MCD_BOOT_STAGNANT ? "--stagnant"
+                                 fj->kind == MCD_FILM_BOOT_STAGNANT ? "--stagnant"
                                                                : "--match",
                                  "'%s' is not in the species list",
                                  fj->species_name);

@@ -290,7 +290,7 @@ contains
     call mcd_workspace_new(ws, 2, stat, msg)
     N = GUARD
     it = -1
-    call mcd_film_solve(ws, 2, Dij, c, L, x0, xL, MCD_BOOT_STAGNANT, N, stat, msg, &
+    call mcd_film_solve(ws, 2, Dij, c, L, x0, xL, MCD_FILM_BOOT_STAGNANT, N, stat, msg, &
          species=2, iterations=it, residual=res)
     call check_stat(stat, msg, 'film solve')
     ref = c * Dij(1, 2) / L * log((1 - xL(1)) / (1 - x0(1)))

@@ -246,7 +246,6 @@ MCD_API mcd_status mcd_flux_total(size_t n_species, size_t n_dim,
             return MCD_EINVAL;
         break;
     case MCD_BOOT_EQUIMOLAR: break;
-    case MCD_BOOT_RATIOS: /* film calls only: not a local bootstrap */
     default: return MCD_EINVAL;
     }
     st = check_M_x_F(n, n_dim, NULL, comp, diff, &sy);

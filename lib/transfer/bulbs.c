@@ -302,8 +302,8 @@ static mcd_status rhs(integ *g, const double *y, double *out)
         g->x2c[i] /= s2;
     }
     st = mcdi_film_core(g->ws, n, g->Dij, g->c, g->L, g->x1c, g->x2c,
-                        MCD_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, g->N, NULL,
-                        NULL);
+                        MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, g->N,
+                        NULL, NULL);
     if (st != MCD_OK)
         return st;
     for (i = 0; i < n; i++)

@@ -234,7 +234,7 @@ typedef struct film {
     double c, L;
     const double *x0, *xL, *xe; /* ends and the bootstrap end */
     int end_L;                  /* 1 if the bootstrap uses the end at L */
-    mcd_bootstrap kind;
+    mcd_film_bootstrap kind;
     size_t species;
     const double *values;
     mcd_film_method method;
@@ -323,9 +323,11 @@ static mcd_status film_map(film *f, const double *N, double *N_out)
     f->J[f->d] = -sJ;
 
     switch (f->kind) {
-    case MCD_BOOT_TOTAL: Nt = f->values[0]; break;
-    case MCD_BOOT_EQUIMOLAR: Nt = 0.0; break;
-    case MCD_BOOT_STAGNANT: Nt = -f->J[f->species] / f->xe[f->species]; break;
+    case MCD_FILM_BOOT_TOTAL: Nt = f->values[0]; break;
+    case MCD_FILM_BOOT_EQUIMOLAR: Nt = 0.0; break;
+    case MCD_FILM_BOOT_STAGNANT:
+        Nt = -f->J[f->species] / f->xe[f->species];
+        break;
     default: { /* WEIGHTS */
         double num = 0.0, den = 0.0;
         for (i = 0; i < n; i++) {
@@ -338,7 +340,7 @@ static mcd_status film_map(film *f, const double *N, double *N_out)
     }
     for (i = 0; i < n; i++)
         N_out[i] = f->J[i] + f->xe[i] * Nt;
-    if (f->kind == MCD_BOOT_STAGNANT)
+    if (f->kind == MCD_FILM_BOOT_STAGNANT)
         N_out[f->species] = 0.0;
     return all_finite(n, N_out) ? MCD_OK : MCD_EDOM;
 }
@@ -488,10 +490,10 @@ static mcd_status film_iterate(film *f, double *out_N, size_t *out_it,
 
 mcd_status mcdi_film_core(mcd_workspace *ws, size_t n, const double *Dij,
                           double c, double L, const double *x0,
-                          const double *xL, mcd_bootstrap kind, size_t species,
-                          const double *values, mcd_film_method method,
-                          double *out_N, size_t *out_iterations,
-                          double *out_residual)
+                          const double *xL, mcd_film_bootstrap kind,
+                          size_t species, const double *values,
+                          mcd_film_method method, double *out_N,
+                          size_t *out_iterations, double *out_residual)
 {
     film f;
     size_t i, a;
@@ -534,14 +536,14 @@ mcd_status mcdi_film_core(mcd_workspace *ws, size_t n, const double *Dij,
         f.delta[a] = x0[red(&f, a)] - xL[red(&f, a)];
 
     /* bootstrap end */
-    if (kind == MCD_BOOT_STAGNANT) {
+    if (kind == MCD_FILM_BOOT_STAGNANT) {
         if (!(x0[species] > 0) || !(xL[species] > 0))
             return mcdi_ws_fail(
                 ws, MCD_EDOM,
                 "argument species: stagnant species %zu must be present at "
                 "both ends (x0 = %g, xL = %g)",
                 species, x0[species], xL[species]);
-    } else if (kind == MCD_BOOT_WEIGHTS) {
+    } else if (kind == MCD_FILM_BOOT_WEIGHTS) {
         double d0 = 0.0, dL = 0.0, vmax = 0.0;
         for (i = 0; i < n; i++) {
             d0 += values[i] * x0[i];
@@ -566,7 +568,7 @@ mcd_status mcdi_film_core(mcd_workspace *ws, size_t n, const double *Dij,
             xbar[i] = 0.5 * (x0[i] + xL[i]);
         build_B(&f, xbar, 1.0, f.mat[3]);
     }
-    if (kind == MCD_BOOT_TOTAL) {
+    if (kind == MCD_FILM_BOOT_TOTAL) {
         /* the rate factor is at least |N_t| L/(c Đ_max): reject totals
          * whose exp(Phi) cannot be represented */
         double Dmax = 0.0;
@@ -579,7 +581,7 @@ mcd_status mcdi_film_core(mcd_workspace *ws, size_t n, const double *Dij,
                                 "out of range",
                                 fabs(values[0]) * L / (c * Dmax));
     }
-    if (kind == MCD_BOOT_RATIOS)
+    if (kind == MCD_FILM_BOOT_RATIOS)
         return film_ratios(&f, out_N, out_iterations, out_residual);
 
     return film_iterate(&f, out_N, out_iterations, out_residual);
@@ -756,7 +758,7 @@ static mcd_status film_check_state(mcd_workspace *ws, size_t n,
 MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n,
                                   const double *Dij, double c, double L,
                                   const double *x0, const double *xL,
-                                  mcd_bootstrap kind, size_t species,
+                                  mcd_film_bootstrap kind, size_t species,
                                   const double *values, mcd_film_method method,
                                   double *out_N, size_t *out_iterations,
                                   double *out_residual)
@@ -779,22 +781,22 @@ MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n,
         return st;
 
     switch (kind) {
-    case MCD_BOOT_EQUIMOLAR: break;
-    case MCD_BOOT_STAGNANT:
+    case MCD_FILM_BOOT_EQUIMOLAR: break;
+    case MCD_FILM_BOOT_STAGNANT:
         if (species >= n)
             return mcdi_ws_fail(
                 ws, MCD_EINVAL,
                 "argument species: %zu is not a species index (0..%zu)",
                 species, n - 1);
         break;
-    case MCD_BOOT_TOTAL:
+    case MCD_FILM_BOOT_TOTAL:
         if (values == NULL || !mcdi_finite(values[0]))
             return mcdi_ws_fail(ws, MCD_EINVAL,
                                 "TOTAL: values[0] (N_t) missing or not "
                                 "finite");
         break;
-    case MCD_BOOT_WEIGHTS:
-    case MCD_BOOT_RATIOS: {
+    case MCD_FILM_BOOT_WEIGHTS:
+    case MCD_FILM_BOOT_RATIOS: {
         double sum = 0.0;
         if (values == NULL)
             return mcdi_ws_fail(ws, MCD_EINVAL, "argument values: NULL");
@@ -805,7 +807,7 @@ MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n,
                                     i);
             sum += values[i];
         }
-        if (kind == MCD_BOOT_RATIOS) {
+        if (kind == MCD_FILM_BOOT_RATIOS) {
             if (species >= n)
                 return mcdi_ws_fail(
                     ws, MCD_EINVAL,

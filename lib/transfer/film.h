@@ -36,9 +36,9 @@ mcd_status mcdi_tf_expm_phi(size_t m, double *slot[3]);
  * success. */
 mcd_status mcdi_film_core(mcd_workspace *ws, size_t n, const double *Dij,
                           double c, double L, const double *x0,
-                          const double *xL, mcd_bootstrap kind, size_t species,
-                          const double *values, mcd_film_method method,
-                          double *out_N, size_t *out_iterations,
-                          double *out_residual);
+                          const double *xL, mcd_film_bootstrap kind,
+                          size_t species, const double *values,
+                          mcd_film_method method, double *out_N,
+                          size_t *out_iterations, double *out_residual);
 
 #endif

@@ -560,7 +560,8 @@ class Fluxes(unittest.TestCase):
         N, Nt = mcdiff.flux_total(x, J, "weights", values=nu)
         self.assertAlmostEqual(sum(a * b for a, b in zip(nu, flat(N))), 0.0,
                                delta=1e-14 * max_abs(J))
-        with self.assertRaises(mcdiff.InvalidArgumentError):
+        # ratios fix a film's fluxes, not local ones: not a Bootstrap
+        with self.assertRaisesRegex(ValueError, "unknown Bootstrap 'ratios'"):
             mcdiff.flux_total(x, J, "ratios", values=[0.2, 0.3, 0.5])
         Jm = [[v, -v] for v in J]
         N2, Nt2 = mcdiff.flux_total(x, Jm, "stagnant", species=2)

@@ -147,6 +147,7 @@ class Versions(unittest.TestCase):
         groups = ((mcdiff.Status, "MCD_"), (mcdiff.Param, "MCD_PARAM_"),
                   (mcdiff.Method, "MCD_METHOD_"), (mcdiff.Basis, "MCD_BASIS_"),
                   (mcdiff.Model, "MCD_MODEL_"), (mcdiff.Bootstrap, "MCD_BOOT_"),
+                  (mcdiff.FilmBootstrap, "MCD_FILM_BOOT_"),
                   (mcdiff.FilmMethod, "MCD_FILM_"))
         for cls, prefix in groups:
             for member in cls:

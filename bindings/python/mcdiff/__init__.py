@@ -18,8 +18,8 @@ from ._version import BUILT_FOR, __version__
 from ._native import lib_path as library_path
 from ._arrays import HAVE_NUMPY
 from .enums import (ATM, DEPENDENT_AUTO, GAS_CONSTANT, MAX_DIM, MAX_SPECIES,
-                    SUM_TOL, Basis, Bootstrap, Diag, FilmMethod, Method, Model,
-                    Param, Warning)
+                    SUM_TOL, Basis, Bootstrap, Diag, FilmBootstrap,
+                    FilmMethod, Method, Model, Param, Warning)
 from .errors import (BadLengthError, DomainError, FileError, InternalError,
                      InvalidArgumentError, McdError, NoConvergenceError,
                      NoDataError, NotFoundError, OutOfMemoryError, ParseError,
@@ -32,8 +32,8 @@ from . import api as _api
 __all__ = [
     "__version__", "BUILT_FOR", "library_path", "HAVE_NUMPY",
     "ATM", "DEPENDENT_AUTO", "GAS_CONSTANT", "MAX_DIM", "MAX_SPECIES",
-    "SUM_TOL", "Basis", "Bootstrap", "Diag", "FilmMethod", "Method", "Model",
-    "Param", "Warning",
+    "SUM_TOL", "Basis", "Bootstrap", "Diag", "FilmBootstrap", "FilmMethod",
+    "Method", "Model", "Param", "Warning",
     "McdError", "InvalidArgumentError", "DomainError", "BadLengthError",
     "OutOfMemoryError", "SingularMatrixError", "InternalError",
     "NotFoundError", "ParseError", "NoDataError", "NoConvergenceError",

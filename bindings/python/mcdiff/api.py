@@ -18,7 +18,8 @@ import threading
 from . import _arrays
 from ._arrays import np
 from ._native import lib
-from .enums import Basis, Bootstrap, Diag, FilmMethod, Method, Model, coerce
+from .enums import (Basis, Bootstrap, Diag, FilmBootstrap, FilmMethod, Method,
+                    Model, coerce)
 from .errors import error_for
 from .handles import Workspace
 
@@ -781,14 +782,14 @@ def film_solve(Dij, c, L, x0, xL, bootstrap="stagnant", *, species=None,
     matched). method: "exact" (Krishna-Standart) or "linearized".
     Returns FilmResult(N, iterations, residual).
     """
-    kind = coerce(Bootstrap, bootstrap, "bootstrap")
+    kind = coerce(FilmBootstrap, bootstrap, "bootstrap")
     meth = coerce(FilmMethod, method, "method")
     a0 = _arrays.vector(x0, None, "x0")
     n = a0.shape[0]
     aL = _arrays.vector(xL, n, "xL")
     D = _arrays.matrix(Dij, n, n, "Dij")
     if species is None:
-        if kind in (Bootstrap.STAGNANT, Bootstrap.RATIOS):
+        if kind in (FilmBootstrap.STAGNANT, FilmBootstrap.RATIOS):
             raise ValueError("film_solve: bootstrap %r needs species="
                              % kind.name.lower())
         species = 0
@@ -796,7 +797,7 @@ def film_solve(Dij, c, L, x0, xL, bootstrap="stagnant", *, species=None,
     if values is not None:
         if isinstance(values, (int, float)):
             values = [values]
-        vals = _arrays.vector(values, 1 if kind == Bootstrap.TOTAL else n,
+        vals = _arrays.vector(values, 1 if kind == FilmBootstrap.TOTAL else n,
                               "values")
     ws = _ws(workspace, n)
     o = _arrays.Output((n,))

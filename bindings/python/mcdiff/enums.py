@@ -8,7 +8,8 @@ model="mixture-averaged", bootstrap="stagnant", method="chapman-enskog".
 import enum
 
 __all__ = [
-    "Param", "Method", "Basis", "Model", "Bootstrap", "FilmMethod",
+    "Param", "Method", "Basis", "Model", "Bootstrap", "FilmBootstrap",
+    "FilmMethod",
     "Warning", "Diag", "MAX_SPECIES", "MAX_DIM", "SUM_TOL", "GAS_CONSTANT",
     "ATM", "DEPENDENT_AUTO", "coerce",
 ]
@@ -69,7 +70,15 @@ class Model(enum.IntEnum):
 
 
 class Bootstrap(enum.IntEnum):
-    """Condition that fixes total fluxes (mcd_bootstrap)."""
+    """Condition that fixes total fluxes locally (mcd_bootstrap)."""
+    TOTAL = 0
+    STAGNANT = 1
+    EQUIMOLAR = 2
+    WEIGHTS = 3
+
+
+class FilmBootstrap(enum.IntEnum):
+    """Condition that fixes the total flux of a film (mcd_film_bootstrap)."""
     TOTAL = 0
     STAGNANT = 1
     EQUIMOLAR = 2
