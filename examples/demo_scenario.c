@@ -64,7 +64,7 @@ int demo_scenario_run(FILE *out, FILE *err)
     if (check(err, "opening the species table", mcd_db_new_builtin(&db),
               NULL))
         goto done;
-    if (mcd_mixture_new(db, NS, names, MCD_METHOD_FSG, &mix, ebuf,
+    if (mcd_mixture_new(db, NS, names, MCD_GAS_FSG, &mix, ebuf,
                         sizeof ebuf) != MCD_OK) {
         fprintf(err, "demo: building the mixture failed: %s\n", ebuf);
         goto done;

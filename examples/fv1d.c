@@ -125,7 +125,7 @@ int fv1d_problem_init(fv1d_problem *p, size_t n_cells, size_t n_steps,
     if (lib_fail(err, "opening the species table", mcd_db_new_builtin(&db),
                  NULL))
         goto done;
-    if (mcd_mixture_new(db, NS, names, MCD_METHOD_FSG, &mix, ebuf,
+    if (mcd_mixture_new(db, NS, names, MCD_GAS_FSG, &mix, ebuf,
                         sizeof ebuf) != MCD_OK) {
         fprintf(err, "fv1d: building the mixture failed: %s\n", ebuf);
         goto done;

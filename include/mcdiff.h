@@ -333,6 +333,15 @@ typedef enum mcd_method {
     MCD_METHOD_USER = 5            /**< value supplied by the caller */
 } mcd_method;
 
+/** Gas-phase correlations, the methods a database pair or a mixture pair
+ *  can be estimated by (numerically equal to the mcd_method values of the
+ *  same name, so a gas method can be passed to mcd_method_name). */
+typedef enum mcd_gas_method {
+    MCD_GAS_FSG = 1,            /**< Fuller-Schettler-Giddings */
+    MCD_GAS_CHAPMAN_ENSKOG = 2, /**< Chapman-Enskog, Lennard-Jones */
+    MCD_GAS_WILKE_LEE = 3       /**< Wilke-Lee */
+} mcd_gas_method;
+
 /** Short name of a method ("fsg", "chapman-enskog", "wilke-lee",
  *  "wilke-chang", "user"), or NULL. Since 0.1. */
 MCD_API const char *mcd_method_name(mcd_method m);
@@ -401,12 +410,11 @@ MCD_API mcd_status mcd_binary_scale(double D_ref, double T_ref, double P_ref,
 
 /** Gas binary diffusivity of species a and b of a database by a method.
  *  @param out_rel_err  typical relative error of the method (may be NULL)
- *  @param out_warn     MCD_WARN_* bits (may be NULL). WILKE_CHANG and USER
- *  are EINVAL here. Since 0.1.
+ *  @param out_warn     MCD_WARN_* bits (may be NULL). Since 0.1.
  *  Fails: EINVAL, EDOM, ENODATA (parameter missing), ENOTFOUND (index)
  *  | Allocates: no */
 MCD_API mcd_status mcd_db_binary_gas(const mcd_db *db, size_t a, size_t b,
-                                  mcd_method method, double T, double P,
+                                  mcd_gas_method method, double T, double P,
                                   double *out_D, double *out_rel_err,
                                   unsigned *out_warn);
 /** Wilke-Chang infinite-dilution diffusivity of solute in solvent, both from
@@ -426,13 +434,13 @@ typedef struct mcd_mixture mcd_mixture;
 
 /** New mixture of n species picked by name from db (parameters are copied:
  *  the mixture does not refer to db afterwards). Every pair uses the
- *  default method until changed (a gas method: FSG, CHAPMAN_ENSKOG or
- *  WILKE_LEE). A species named twice is EINVAL. Since 0.1.
+ *  default method until changed. A species named twice is EINVAL.
+ *  Since 0.1.
  *  Fails: EINVAL, ENOTFOUND (errbuf names the species), ENOMEM
  *  | Allocates: yes */
 MCD_API mcd_status mcd_mixture_new(const mcd_db *db, size_t n_species,
                                    const char *const *names,
-                                   mcd_method default_method,
+                                   mcd_gas_method default_method,
                                    mcd_mixture **out_mix, char *errbuf,
                                    size_t errlen);
 /** Free a mixture; NULL is a no-op. Since 0.1. */
@@ -445,11 +453,11 @@ MCD_API const char *mcd_mixture_name(const mcd_mixture *mix, size_t i);
  *  Fails: EINVAL, ENODATA | Allocates: no */
 MCD_API mcd_status mcd_mixture_molar_masses(const mcd_mixture *mix,
                                             double *out_M);
-/** Use method m for pair (i, j) (i != j). MCD_METHOD_USER needs a value
- *  given before with mcd_mixture_set_binary. Since 0.1.
- *  Fails: EINVAL, EBADLEN (index) | Allocates: no */
+/** Estimate pair (i, j) (i != j) by gas method m from now on (a value
+ *  given with mcd_mixture_set_binary is dropped; give it again to use it).
+ *  Since 0.1. Fails: EINVAL, EBADLEN (index) | Allocates: no */
 MCD_API mcd_status mcd_mixture_set_method(mcd_mixture *mix, size_t i,
-                                          size_t j, mcd_method m);
+                                          size_t j, mcd_gas_method m);
 /** Give a measured Đ_ij [m^2/s] at (T_ref, P_ref) for pair (i, j); at other
  *  states it is scaled as (T/T_ref)^1.75 (P_ref/P). Since 0.1.
  *  Fails: EINVAL, EDOM, EBADLEN | Allocates: no */

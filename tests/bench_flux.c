@@ -135,7 +135,7 @@ static mcd_mixture *make_mixture(mcd_db *db, size_t n)
             return NULL;
         names[i] = nm[i];
     }
-    if (mcd_mixture_new(db, n, names, MCD_METHOD_FSG, &mix, NULL, 0) != MCD_OK)
+    if (mcd_mixture_new(db, n, names, MCD_GAS_FSG, &mix, NULL, 0) != MCD_OK)
         return NULL;
     return mix;
 }

@@ -41,9 +41,9 @@ START_TEST(alloc_batched_calls_do_not_allocate)
     size_t used;
 
     ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK);
-    ck_assert_int_eq(mcd_mixture_new(db, 6, names, MCD_METHOD_FSG, &mix, NULL, 0), MCD_OK);
-    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 1, MCD_METHOD_CHAPMAN_ENSKOG), MCD_OK);
-    ck_assert_int_eq(mcd_mixture_set_method(mix, 2, 4, MCD_METHOD_WILKE_LEE), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_new(db, 6, names, MCD_GAS_FSG, &mix, NULL, 0), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 1, MCD_GAS_CHAPMAN_ENSKOG), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 2, 4, MCD_GAS_WILKE_LEE), MCD_OK);
     ck_assert_int_eq(mcd_workspace_new(NBIG, &ws), MCD_OK);
     for (k = 0; k < KC; k++) {
         T[k] = 300.0 + 50.0 * (double)k;

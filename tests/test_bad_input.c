@@ -313,7 +313,7 @@ static int call_mcd_binary_scale(ctx *c)
 }
 static int call_mcd_db_binary_gas(ctx *c)
 {
-    return mcd_db_binary_gas(ARG(db, NB_DB), IDX(c->ga), IDX(c->gb), (mcd_method)c->method, c->T,
+    return mcd_db_binary_gas(ARG(db, NB_DB), IDX(c->ga), IDX(c->gb), (mcd_gas_method)c->method, c->T,
                           c->P, OUT(o1, NB_O1), OUT(o2, NB_O2), OUT(ou, NB_OU));
 }
 static int call_mcd_db_binary_liquid(ctx *c)
@@ -326,7 +326,7 @@ static int call_mcd_mixture_new(ctx *c)
     int r;
     c->msgsrc = MSG_ERRBUF;
     r = mcd_mixture_new(ARG(db, NB_DB), c->n, NUL_(NB_NAMES) ? NULL : c->names,
-                        (mcd_method)c->method, OUTP(omix, NB_OMIX), EB);
+                        (mcd_gas_method)c->method, OUTP(omix, NB_OMIX), EB);
     if (r == MCD_OK) {
         mcd_mixture_free(c->o.omix);
         c->o.omix = NULL;
@@ -348,7 +348,7 @@ static int call_mcd_mixture_molar_masses(ctx *c)
 }
 static int call_mcd_mixture_set_method(ctx *c)
 {
-    return mcd_mixture_set_method(ARG(mix, NB_MIX), c->i, c->j, (mcd_method)c->method);
+    return mcd_mixture_set_method(ARG(mix, NB_MIX), c->i, c->j, (mcd_gas_method)c->method);
 }
 static int call_mcd_mixture_set_binary(ctx *c)
 {
@@ -1309,7 +1309,7 @@ static void ctx_init(ctx *c)
     ck_assert_int_eq(mcd_db_set_param(c->db, c->probe2, MCD_PARAM_MOLAR_MASS, 1e-5), MCD_OK);
     ck_assert_int_eq(mcd_db_set_param(c->db, c->probe2, MCD_PARAM_LJ_SIGMA, 2.5e-10), MCD_OK);
     ck_assert_int_eq(mcd_db_set_param(c->db, c->probe2, MCD_PARAM_LJ_EPS_K, 10.0), MCD_OK);
-    ck_assert_int_eq(mcd_mixture_new(c->db, 3, mixnames, MCD_METHOD_FSG, &c->mix, NULL, 0),
+    ck_assert_int_eq(mcd_mixture_new(c->db, 3, mixnames, MCD_GAS_FSG, &c->mix, NULL, 0),
                      MCD_OK);
     c->n = 3;
     c->nd = 2;

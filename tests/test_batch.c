@@ -235,7 +235,7 @@ static mcd_mixture *make_mix(size_t n, int lj)
         names[got++] = mcd_db_name(db, i);
     }
     ck_assert_uint_eq(got, n);
-    ck_assert_int_eq(mcd_mixture_new(db, n, names, MCD_METHOD_FSG, &m, NULL, 0),
+    ck_assert_int_eq(mcd_mixture_new(db, n, names, MCD_GAS_FSG, &m, NULL, 0),
                      MCD_OK);
     return m;
 }
@@ -263,9 +263,9 @@ START_TEST(batch_mixture_matches_single_state_calls)
             for (j = i + 1; j < n; j++) {
                 int r = (int)((i + 2 * j) % 4);
                 if (r == 1)
-                    ck_assert_int_eq(mcd_mixture_set_method(m, i, j, MCD_METHOD_CHAPMAN_ENSKOG), MCD_OK);
+                    ck_assert_int_eq(mcd_mixture_set_method(m, i, j, MCD_GAS_CHAPMAN_ENSKOG), MCD_OK);
                 else if (r == 2)
-                    ck_assert_int_eq(mcd_mixture_set_method(m, i, j, MCD_METHOD_WILKE_LEE), MCD_OK);
+                    ck_assert_int_eq(mcd_mixture_set_method(m, i, j, MCD_GAS_WILKE_LEE), MCD_OK);
                 else if (r == 3)
                     ck_assert_int_eq(mcd_mixture_set_binary(m, i, j, 1.5e-5, 300.0, 101325.0), MCD_OK);
             }

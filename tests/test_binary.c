@@ -417,9 +417,9 @@ START_TEST(binary_gas_from_db_equals_raw_and_is_symmetric)
             double T = 250 + 60 * (double)a, P = 5e4 + 2e4 * (double)b;
             double d1 = SUP_GUARD, d2 = SUP_GUARD, r, raw;
             unsigned w1, w2;
-            ck_assert_int_eq(mcd_db_binary_gas(db, ia, ib, MCD_METHOD_FSG, T, P, &d1, &r, &w1),
+            ck_assert_int_eq(mcd_db_binary_gas(db, ia, ib, MCD_GAS_FSG, T, P, &d1, &r, &w1),
                              MCD_OK);
-            ck_assert_int_eq(mcd_db_binary_gas(db, ib, ia, MCD_METHOD_FSG, T, P, &d2, NULL, &w2),
+            ck_assert_int_eq(mcd_db_binary_gas(db, ib, ia, MCD_GAS_FSG, T, P, &d2, NULL, &w2),
                              MCD_OK);
             ck_assert(d1 == d2);
             ck_assert_uint_eq(w1, w2);
@@ -437,10 +437,10 @@ START_TEST(binary_gas_from_db_equals_raw_and_is_symmetric)
                 for (int q = 0; q < 2; q++)
                     tab &= mcd_db_param(db, ii[q], MCD_PARAM_LJ_SIGMA, &s[q]) == MCD_OK &&
                            mcd_db_param(db, ii[q], MCD_PARAM_LJ_EPS_K, &e[q]) == MCD_OK;
-                ck_assert_int_eq(mcd_db_binary_gas(db, ia, ib, (mcd_method)m, T, P, &d1, NULL,
+                ck_assert_int_eq(mcd_db_binary_gas(db, ia, ib, (mcd_gas_method)m, T, P, &d1, NULL,
                                                  NULL),
                                  MCD_OK);
-                ck_assert_int_eq(mcd_db_binary_gas(db, ib, ia, (mcd_method)m, T, P, &d2, NULL,
+                ck_assert_int_eq(mcd_db_binary_gas(db, ib, ia, (mcd_gas_method)m, T, P, &d2, NULL,
                                                  NULL),
                                  MCD_OK);
                 ck_assert(d1 == d2);
@@ -465,44 +465,44 @@ START_TEST(binary_gas_warnings_follow_documented_rules)
     double D;
     unsigned w;
     /* Air gases at ambient conditions: no warning. */
-    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_METHOD_FSG, 300, MCD_ATM, &D, NULL, &w),
+    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_GAS_FSG, 300, MCD_ATM, &D, NULL, &w),
                      MCD_OK);
     ck_assert_uint_eq(w, 0u);
     /* 20 bar: above 10 bar. */
-    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_METHOD_FSG, 300, 2e6, &D, NULL, &w), MCD_OK);
+    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_GAS_FSG, 300, 2e6, &D, NULL, &w), MCD_OK);
     ck_assert(w & MCD_WARN_HIGH_PRESSURE);
     /* 3 bar is below 10 bar, but above 0.3 x the mean critical pressure of
      * H2 (13.1 bar) and He (2.27 bar) = 2.3 bar. */
-    ck_assert_int_eq(mcd_db_binary_gas(db, h2, he, MCD_METHOD_FSG, 300, 3e5, &D, NULL, &w), MCD_OK);
+    ck_assert_int_eq(mcd_db_binary_gas(db, h2, he, MCD_GAS_FSG, 300, 3e5, &D, NULL, &w), MCD_OK);
     ck_assert(w & MCD_WARN_HIGH_PRESSURE);
-    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_METHOD_FSG, 300, 3e5, &D, NULL, &w), MCD_OK);
+    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_GAS_FSG, 300, 3e5, &D, NULL, &w), MCD_OK);
     ck_assert(!(w & MCD_WARN_HIGH_PRESSURE));
     /* Water: dipole 1.85 D > 1 D and hydrogen bonding. */
-    ck_assert_int_eq(mcd_db_binary_gas(db, h2o, n2, MCD_METHOD_FSG, 350, MCD_ATM, &D, NULL, &w),
+    ck_assert_int_eq(mcd_db_binary_gas(db, h2o, n2, MCD_GAS_FSG, 350, MCD_ATM, &D, NULL, &w),
                      MCD_OK);
     ck_assert(w & MCD_WARN_POLAR);
     ck_assert(w & MCD_WARN_ASSOCIATING);
     /* Ethanol associates (OH group). */
-    ck_assert_int_eq(mcd_db_binary_gas(db, etoh, n2, MCD_METHOD_FSG, 350, MCD_ATM, &D, NULL, &w),
+    ck_assert_int_eq(mcd_db_binary_gas(db, etoh, n2, MCD_GAS_FSG, 350, MCD_ATM, &D, NULL, &w),
                      MCD_OK);
     ck_assert(w & MCD_WARN_ASSOCIATING);
     /* H2 and He below 100 K: quantum. */
-    ck_assert_int_eq(mcd_db_binary_gas(db, h2, he, MCD_METHOD_CHAPMAN_ENSKOG, 60, 1e4, &D, NULL, &w),
+    ck_assert_int_eq(mcd_db_binary_gas(db, h2, he, MCD_GAS_CHAPMAN_ENSKOG, 60, 1e4, &D, NULL, &w),
                      MCD_OK);
     ck_assert(w & MCD_WARN_QUANTUM);
-    ck_assert_int_eq(mcd_db_binary_gas(db, h2, n2, MCD_METHOD_FSG, 300, MCD_ATM, &D, NULL, &w),
+    ck_assert_int_eq(mcd_db_binary_gas(db, h2, n2, MCD_GAS_FSG, 300, MCD_ATM, &D, NULL, &w),
                      MCD_OK);
     ck_assert(!(w & MCD_WARN_QUANTUM));
     /* FSG outside 200..1100 K; CE with T* = 3000/sqrt(71.4*106.7) in range
      * but 20 K gives T* < 0.3. */
-    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_METHOD_FSG, 1500, MCD_ATM, &D, NULL, &w),
+    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_GAS_FSG, 1500, MCD_ATM, &D, NULL, &w),
                      MCD_OK);
     ck_assert(w & MCD_WARN_TEMPERATURE);
-    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_METHOD_CHAPMAN_ENSKOG, 1500, MCD_ATM, &D,
+    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_GAS_CHAPMAN_ENSKOG, 1500, MCD_ATM, &D,
                                     NULL, &w),
                      MCD_OK);
     ck_assert(!(w & MCD_WARN_TEMPERATURE));
-    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_METHOD_WILKE_LEE, 20, 1e3, &D, NULL, &w),
+    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_GAS_WILKE_LEE, 20, 1e3, &D, NULL, &w),
                      MCD_OK);
     ck_assert(w & MCD_WARN_TEMPERATURE);
 }
@@ -523,15 +523,15 @@ START_TEST(binary_gas_estimates_lennard_jones_from_boiling_point)
     double D = SUP_GUARD, r = SUP_GUARD;
     unsigned w = 0xffu;
     /* Nothing known yet: ENODATA, outputs untouched. */
-    ck_assert_int_eq(mcd_db_binary_gas(d, a, b, MCD_METHOD_WILKE_LEE, 300, 1e5, &D, &r, &w),
+    ck_assert_int_eq(mcd_db_binary_gas(d, a, b, MCD_GAS_WILKE_LEE, 300, 1e5, &D, &r, &w),
                      MCD_ENODATA);
     ck_assert(D == SUP_GUARD && r == SUP_GUARD && w == 0xffu);
     ck_assert_int_eq(mcd_db_set_param(d, a, MCD_PARAM_VB, 140.6e-6), MCD_OK);
-    ck_assert_int_eq(mcd_db_binary_gas(d, a, b, MCD_METHOD_CHAPMAN_ENSKOG, 300, 1e5, &D, &r, &w),
+    ck_assert_int_eq(mcd_db_binary_gas(d, a, b, MCD_GAS_CHAPMAN_ENSKOG, 300, 1e5, &D, &r, &w),
                      MCD_ENODATA);
     ck_assert(D == SUP_GUARD);
     ck_assert_int_eq(mcd_db_set_param(d, a, MCD_PARAM_TB, 341.9), MCD_OK);
-    ck_assert_int_eq(mcd_db_binary_gas(d, a, b, MCD_METHOD_WILKE_LEE, 300, 1e5, &D, &r, &w),
+    ck_assert_int_eq(mcd_db_binary_gas(d, a, b, MCD_GAS_WILKE_LEE, 300, 1e5, &D, &r, &w),
                      MCD_OK);
     ck_assert(w & MCD_WARN_ESTIMATED_PARAM);
     double raw = 0;
@@ -555,28 +555,28 @@ START_TEST(binary_gas_bad_arguments_leave_outputs_untouched)
     double D = SUP_GUARD, r = SUP_GUARD;
     unsigned w = 0xabcu;
     for (size_t b = 0; b < N_BAD; b++) {
-        ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_METHOD_FSG, bad[b].v, 1e5, &D, &r, &w),
+        ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_GAS_FSG, bad[b].v, 1e5, &D, &r, &w),
                          bad[b].st);
-        ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_METHOD_FSG, 300, bad[b].v, &D, &r, &w),
+        ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_GAS_FSG, 300, bad[b].v, &D, &r, &w),
                          bad[b].st);
         ck_assert_int_eq(mcd_db_binary_liquid(db, o2, idx("water"), bad[b].v, 0.89e-3, &D, &r, &w),
                          bad[b].st);
         ck_assert_int_eq(mcd_db_binary_liquid(db, o2, idx("water"), 298.15, bad[b].v, &D, &r, &w),
                          bad[b].st);
     }
-    ck_assert_int_eq(mcd_db_binary_gas(NULL, n2, o2, MCD_METHOD_FSG, 300, 1e5, &D, &r, &w),
+    ck_assert_int_eq(mcd_db_binary_gas(NULL, n2, o2, MCD_GAS_FSG, 300, 1e5, &D, &r, &w),
                      MCD_EINVAL);
-    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_METHOD_FSG, 300, 1e5, NULL, &r, &w),
+    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_GAS_FSG, 300, 1e5, NULL, &r, &w),
                      MCD_EINVAL);
-    ck_assert_int_eq(mcd_db_binary_gas(db, n2, n, MCD_METHOD_FSG, 300, 1e5, &D, &r, &w),
+    ck_assert_int_eq(mcd_db_binary_gas(db, n2, n, MCD_GAS_FSG, 300, 1e5, &D, &r, &w),
                      MCD_ENOTFOUND);
-    ck_assert_int_eq(mcd_db_binary_gas(db, n, n2, MCD_METHOD_FSG, 300, 1e5, &D, &r, &w),
+    ck_assert_int_eq(mcd_db_binary_gas(db, n, n2, MCD_GAS_FSG, 300, 1e5, &D, &r, &w),
                      MCD_ENOTFOUND);
-    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_METHOD_WILKE_CHANG, 300, 1e5, &D, &r, &w),
+    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, (mcd_gas_method)MCD_METHOD_WILKE_CHANG, 300, 1e5, &D, &r, &w),
                      MCD_EINVAL);
-    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_METHOD_USER, 300, 1e5, &D, &r, &w),
+    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, (mcd_gas_method)MCD_METHOD_USER, 300, 1e5, &D, &r, &w),
                      MCD_EINVAL);
-    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, (mcd_method)0, 300, 1e5, &D, &r, &w),
+    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, (mcd_gas_method)0, 300, 1e5, &D, &r, &w),
                      MCD_EINVAL);
     ck_assert_int_eq(mcd_db_binary_liquid(NULL, o2, n2, 298.15, 0.89e-3, &D, &r, &w), MCD_EINVAL);
     ck_assert_int_eq(mcd_db_binary_liquid(db, o2, n2, 298.15, 0.89e-3, NULL, &r, &w), MCD_EINVAL);

@@ -126,7 +126,7 @@ static void check_gas_method(mcd_method m)
         const gas_pair *p = &gas_pairs[k];
         double D = NAN, rel = NAN;
         unsigned w = 0;
-        mcd_status st = mcd_db_binary_gas(db, find(p->a), find(p->b), m, p->T, MCD_ATM, &D,
+        mcd_status st = mcd_db_binary_gas(db, find(p->a), find(p->b), (mcd_gas_method)m, p->T, MCD_ATM, &D,
                                        &rel, &w);
         ck_assert_msg(st == MCD_OK, "%s: %s-%s: %s", mcd_method_name(m), p->a, p->b,
                       mcd_status_string(st));

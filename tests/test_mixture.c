@@ -26,7 +26,7 @@ static void setup(void)
 {
     char err[128] = "";
     ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK);
-    ck_assert_int_eq(mcd_mixture_new(db, NS, names6, MCD_METHOD_FSG, &mix, err, sizeof err),
+    ck_assert_int_eq(mcd_mixture_new(db, NS, names6, MCD_GAS_FSG, &mix, err, sizeof err),
                      MCD_OK);
 }
 static void teardown(void)
@@ -63,7 +63,7 @@ static void check_against_pairs(const mcd_method *methods, double T, double P)
             ck_assert(D[i * NS + j] == D[j * NS + i]);
             ck_assert_uint_eq(W[i * NS + j], W[j * NS + i]);
             ck_assert_int_eq(mcd_db_binary_gas(db, dbi(names6[i]), dbi(names6[j]),
-                                            methods[i * NS + j], T, P, &d, &r, &w),
+                                            (mcd_gas_method)methods[i * NS + j], T, P, &d, &r, &w),
                              MCD_OK);
             /* Same code path (copied parameters, same formula): identical,
              * except that the mixture computes (i, j) with i < j only and
@@ -93,23 +93,23 @@ START_TEST(mixture_per_pair_methods_are_used)
     mcd_method m[NS * NS];
     for (size_t k = 0; k < NS * NS; k++)
         m[k] = MCD_METHOD_FSG;
-    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 1, MCD_METHOD_CHAPMAN_ENSKOG), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 1, MCD_GAS_CHAPMAN_ENSKOG), MCD_OK);
     m[0 * NS + 1] = m[1 * NS + 0] = MCD_METHOD_CHAPMAN_ENSKOG;
     /* Given as (j, i): applies to the pair. */
-    ck_assert_int_eq(mcd_mixture_set_method(mix, 5, 2, MCD_METHOD_WILKE_LEE), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 5, 2, MCD_GAS_WILKE_LEE), MCD_OK);
     m[5 * NS + 2] = m[2 * NS + 5] = MCD_METHOD_WILKE_LEE;
-    ck_assert_int_eq(mcd_mixture_set_method(mix, 3, 4, MCD_METHOD_CHAPMAN_ENSKOG), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 3, 4, MCD_GAS_CHAPMAN_ENSKOG), MCD_OK);
     m[3 * NS + 4] = m[4 * NS + 3] = MCD_METHOD_CHAPMAN_ENSKOG;
     check_against_pairs(m, 350.0, 2.0e5);
     check_against_pairs(m, 800.0, 1.0e4);
     /* A mixture made with another default uses it everywhere. */
     mcd_mixture *m2 = NULL;
-    ck_assert_int_eq(mcd_mixture_new(db, NS, names6, MCD_METHOD_WILKE_LEE, &m2, NULL, 0),
+    ck_assert_int_eq(mcd_mixture_new(db, NS, names6, MCD_GAS_WILKE_LEE, &m2, NULL, 0),
                      MCD_OK);
     double D[NS * NS];
     ck_assert_int_eq(mcd_mixture_binaries(m2, 300.0, 1e5, D, NULL, NULL), MCD_OK);
     double d = 0;
-    ck_assert_int_eq(mcd_db_binary_gas(db, dbi("water"), dbi("methane"), MCD_METHOD_WILKE_LEE,
+    ck_assert_int_eq(mcd_db_binary_gas(db, dbi("water"), dbi("methane"), MCD_GAS_WILKE_LEE,
                                     300.0, 1e5, &d, NULL, NULL),
                      MCD_OK);
     ck_assert(D[3 * NS + 5] == d);
@@ -148,19 +148,21 @@ START_TEST(mixture_user_values_scale_with_t175_over_p)
     ck_assert_double_eq_tol(D[2 * NS + 0] / s, 1.0, 1e-15);
     /* Other pairs unaffected. */
     double d = 0;
-    ck_assert_int_eq(mcd_db_binary_gas(db, dbi("nitrogen"), dbi("oxygen"), MCD_METHOD_FSG, 415.0,
+    ck_assert_int_eq(mcd_db_binary_gas(db, dbi("nitrogen"), dbi("oxygen"), MCD_GAS_FSG, 415.0,
                                     3.3e5, &d, NULL, NULL),
                      MCD_OK);
     ck_assert(D[0 * NS + 1] == d);
-    /* Switch the pair to an estimate and back to the stored user value. */
-    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 2, MCD_METHOD_FSG), MCD_OK);
+    /* Switch the pair to an estimate (the value is dropped), and back by
+     * giving the value again. */
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 2, MCD_GAS_FSG), MCD_OK);
     ck_assert_int_eq(mcd_mixture_binaries(mix, T0, P0, D, NULL, NULL), MCD_OK);
     ck_assert_double_ne_tol(D[0 * NS + 2], D0, 1e-9);
-    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 2, MCD_METHOD_USER), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_binary(mix, 0, 2, D0, T0, P0), MCD_OK);
     ck_assert_int_eq(mcd_mixture_binaries(mix, T0, P0, D, NULL, NULL), MCD_OK);
     ck_assert_double_eq_tol(D[0 * NS + 2] / D0, 1.0, 1e-15);
-    /* USER for a pair without a value is refused. */
-    ck_assert_int_eq(mcd_mixture_set_method(mix, 3, 4, MCD_METHOD_USER), MCD_EINVAL);
+    /* A value outside mcd_gas_method (USER is not one) is refused. */
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 3, 4, (mcd_gas_method)MCD_METHOD_USER),
+                     MCD_EINVAL);
 }
 END_TEST
 
@@ -170,39 +172,39 @@ START_TEST(mixture_unknown_species_is_named_in_errbuf)
     char err[128] = "";
     mcd_mixture *m = (mcd_mixture *)&err; /* sentinel: must not change */
     mcd_mixture *const sentinel = m;
-    ck_assert_int_eq(mcd_mixture_new(db, 3, names, MCD_METHOD_FSG, &m, err, sizeof err),
+    ck_assert_int_eq(mcd_mixture_new(db, 3, names, MCD_GAS_FSG, &m, err, sizeof err),
                      MCD_ENOTFOUND);
     ck_assert_ptr_eq(m, sentinel);
     ck_assert_ptr_nonnull(strstr(err, "unobtainium-x"));
     /* Formula lookup (unique formula) works as in mcd_db_find. */
     const char *byformula[2] = {"CO2", "N2"};
-    ck_assert_int_eq(mcd_mixture_new(db, 2, byformula, MCD_METHOD_FSG, &m, err, sizeof err),
+    ck_assert_int_eq(mcd_mixture_new(db, 2, byformula, MCD_GAS_FSG, &m, err, sizeof err),
                      MCD_OK);
     ck_assert_str_eq(mcd_mixture_name(m, 0), "carbon-dioxide");
     mcd_mixture_free(m);
     /* Duplicates, NULL names, bad counts and methods are EINVAL. */
     const char *dup[2] = {"nitrogen", "N2"};
     m = sentinel;
-    ck_assert_int_eq(mcd_mixture_new(db, 2, dup, MCD_METHOD_FSG, &m, err, sizeof err),
+    ck_assert_int_eq(mcd_mixture_new(db, 2, dup, MCD_GAS_FSG, &m, err, sizeof err),
                      MCD_EINVAL);
     ck_assert_ptr_nonnull(strstr(err, "N2"));
     const char *withnull[2] = {"nitrogen", NULL};
-    ck_assert_int_eq(mcd_mixture_new(db, 2, withnull, MCD_METHOD_FSG, &m, err, sizeof err),
+    ck_assert_int_eq(mcd_mixture_new(db, 2, withnull, MCD_GAS_FSG, &m, err, sizeof err),
                      MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_new(db, 0, names6, MCD_METHOD_FSG, &m, err, sizeof err),
+    ck_assert_int_eq(mcd_mixture_new(db, 0, names6, MCD_GAS_FSG, &m, err, sizeof err),
                      MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_new(db, MCD_MAX_SPECIES + 1, names6, MCD_METHOD_FSG, &m, err,
+    ck_assert_int_eq(mcd_mixture_new(db, MCD_MAX_SPECIES + 1, names6, MCD_GAS_FSG, &m, err,
                                      sizeof err),
                      MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_new(db, 2, names6, MCD_METHOD_USER, &m, err, sizeof err),
+    ck_assert_int_eq(mcd_mixture_new(db, 2, names6, (mcd_gas_method)MCD_METHOD_USER, &m, err, sizeof err),
                      MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_new(db, 2, names6, MCD_METHOD_WILKE_CHANG, &m, NULL, 0),
+    ck_assert_int_eq(mcd_mixture_new(db, 2, names6, (mcd_gas_method)MCD_METHOD_WILKE_CHANG, &m, NULL, 0),
                      MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_new(NULL, 2, names6, MCD_METHOD_FSG, &m, err, sizeof err),
+    ck_assert_int_eq(mcd_mixture_new(NULL, 2, names6, MCD_GAS_FSG, &m, err, sizeof err),
                      MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_new(db, 2, NULL, MCD_METHOD_FSG, &m, err, sizeof err),
+    ck_assert_int_eq(mcd_mixture_new(db, 2, NULL, MCD_GAS_FSG, &m, err, sizeof err),
                      MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_new(db, 2, names6, MCD_METHOD_FSG, NULL, err, sizeof err),
+    ck_assert_int_eq(mcd_mixture_new(db, 2, names6, MCD_GAS_FSG, NULL, err, sizeof err),
                      MCD_EINVAL);
     ck_assert_ptr_eq(m, sentinel);
 }
@@ -237,11 +239,11 @@ START_TEST(mixture_bad_state_and_arguments_leave_outputs_untouched)
     ck_assert_int_eq(mcd_mixture_set_binary(mix, 0, NS, 1e-5, 300, 1e5), MCD_EBADLEN);
     ck_assert_int_eq(mcd_mixture_set_binary(mix, 2, 2, 1e-5, 300, 1e5), MCD_EINVAL);
     ck_assert_int_eq(mcd_mixture_set_binary(NULL, 0, 1, 1e-5, 300, 1e5), MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_set_method(mix, NS, 0, MCD_METHOD_FSG), MCD_EBADLEN);
-    ck_assert_int_eq(mcd_mixture_set_method(mix, 1, 1, MCD_METHOD_FSG), MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 1, MCD_METHOD_WILKE_CHANG), MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 1, (mcd_method)77), MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_set_method(NULL, 0, 1, MCD_METHOD_FSG), MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, NS, 0, MCD_GAS_FSG), MCD_EBADLEN);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 1, 1, MCD_GAS_FSG), MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 1, (mcd_gas_method)MCD_METHOD_WILKE_CHANG), MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 1, (mcd_gas_method)77), MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_set_method(NULL, 0, 1, MCD_GAS_FSG), MCD_EINVAL);
     /* None of the refused calls changed the mixture. */
     mcd_method m[NS * NS];
     for (size_t k = 0; k < NS * NS; k++)
@@ -260,17 +262,17 @@ START_TEST(mixture_missing_parameters_give_enodata)
     ck_assert_int_eq(mcd_db_add(d, "gas-b", "C3H8", 0, &i, NULL, 0), MCD_OK);
     const char *nm[2] = {"gas-a", "gas-b"};
     /* No Lennard-Jones data and nothing to estimate them from. */
-    ck_assert_int_eq(mcd_mixture_new(d, 2, nm, MCD_METHOD_CHAPMAN_ENSKOG, &m, NULL, 0), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_new(d, 2, nm, MCD_GAS_CHAPMAN_ENSKOG, &m, NULL, 0), MCD_OK);
     double D[4] = {SUP_GUARD, SUP_GUARD, SUP_GUARD, SUP_GUARD};
     ck_assert_int_eq(mcd_mixture_binaries(m, 300, 1e5, D, NULL, NULL), MCD_ENODATA);
     for (int k = 0; k < 4; k++)
         ck_assert(D[k] == SUP_GUARD);
     /* FSG needs only M and the diffusion volumes, known from formulas. */
-    ck_assert_int_eq(mcd_mixture_set_method(m, 0, 1, MCD_METHOD_FSG), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_method(m, 0, 1, MCD_GAS_FSG), MCD_OK);
     ck_assert_int_eq(mcd_mixture_binaries(m, 300, 1e5, D, NULL, NULL), MCD_OK);
     ck_assert_double_gt(D[1], 0.0);
     /* A user value works without any parameter. */
-    ck_assert_int_eq(mcd_mixture_set_method(m, 0, 1, MCD_METHOD_WILKE_LEE), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_method(m, 0, 1, MCD_GAS_WILKE_LEE), MCD_OK);
     ck_assert_int_eq(mcd_mixture_set_binary(m, 1, 0, 1.1e-5, 300, 1e5), MCD_OK);
     ck_assert_int_eq(mcd_mixture_binaries(m, 300, 1e5, D, NULL, NULL), MCD_OK);
     ck_assert_double_eq_tol(D[1] / 1.1e-5, 1.0, 1e-15);
@@ -323,8 +325,8 @@ START_TEST(mixture_fast_path_matches_api)
      * API's numbers: identical for estimated pairs (same coefficient, same
      * expression), a few ulp for the user pair (precomputed
      * D_ref P_ref / T_ref^1.75 instead of the scaled form): 1e-14. */
-    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 1, MCD_METHOD_CHAPMAN_ENSKOG), MCD_OK);
-    ck_assert_int_eq(mcd_mixture_set_method(mix, 2, 5, MCD_METHOD_WILKE_LEE), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 1, MCD_GAS_CHAPMAN_ENSKOG), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 2, 5, MCD_GAS_WILKE_LEE), MCD_OK);
     ck_assert_int_eq(mcd_mixture_set_binary(mix, 3, 4, 0.85e-4, 293.0, MCD_ATM), MCD_OK);
     ck_assert_int_eq(mcdi_mixture_ready(mix), MCD_OK);
     sup_seed(&rng, 99);

@@ -33,7 +33,7 @@ static mcd_mixture *lj_mixture(size_t n, mcd_method m)
             names[got++] = mcd_db_name(db, i);
     }
     ck_assert_uint_eq(got, n);
-    ck_assert_int_eq(mcd_mixture_new(db, n, names, m, &mix, NULL, 0), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_new(db, n, names, (mcd_gas_method)m, &mix, NULL, 0), MCD_OK);
     return mix;
 }
 
@@ -67,7 +67,7 @@ START_TEST(mixture_tp_fit_reports_its_error_and_batched_fluxes_honour_it)
     double T[K], P[K], x[N * K], g[N * K], fit[N * K], ex[N * K];
     ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK);
     mix = lj_mixture(N, MCD_METHOD_CHAPMAN_ENSKOG);
-    ck_assert_int_eq(mcd_mixture_set_method(mix, 1, 4, MCD_METHOD_WILKE_LEE), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 1, 4, MCD_GAS_WILKE_LEE), MCD_OK);
     ck_assert_int_eq(mcd_workspace_new(N, &ws), MCD_OK);
     ck_assert_int_eq(mcd_mixture_temperature_fit(mix, &tmin, &tmax, &err), MCD_OK);
     ck_assert(tmin == 0.0 && tmax == 0.0 && err == 0.0);

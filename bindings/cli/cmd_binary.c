@@ -187,7 +187,7 @@ int cli_cmd_binary(int argc, char **argv)
             r->st = mcd_db_binary_liquid(db, idx[0], idx[1], T, mu, &r->D,
                                       &r->rel_err, &r->warn);
         else
-            r->st = mcd_db_binary_gas(db, idx[0], idx[1], r->m, T, P, &r->D,
+            r->st = mcd_db_binary_gas(db, idx[0], idx[1], (mcd_gas_method)r->m, T, P, &r->D,
                                    &r->rel_err, &r->warn);
         if (r->st == MCD_OK && best < 0)
             best = (int)k;

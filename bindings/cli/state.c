@@ -346,7 +346,7 @@ int cli_state_setup(cli_state *s, const char *cmd)
                                    "'%s' names a species already listed",
                                    s->names[i]);
     }
-    st = mcd_mixture_new(s->db, n, (const char *const *)s->names, s->method,
+    st = mcd_mixture_new(s->db, n, (const char *const *)s->names, (mcd_gas_method)s->method,
                          &s->mix, err, sizeof err);
     if (st != MCD_OK)
         return cli_fail(cmd, "building the mixture", st, err);

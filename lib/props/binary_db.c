@@ -269,10 +269,11 @@ mcd_status mcdi_pair_gas(const mcdi_spec *a, const mcdi_spec *b, mcd_method m,
 }
 
 MCD_API mcd_status mcd_db_binary_gas(const mcd_db *db, size_t a, size_t b,
-                                     mcd_method method, double T, double P,
+                                     mcd_gas_method gas, double T, double P,
                                      double *out_D, double *out_rel_err,
                                      unsigned *out_warn)
 {
+    mcd_method method = (mcd_method)gas;
     mcdi_spec sa, sb;
     mcd_status st;
     if (db == NULL || out_D == NULL)

@@ -237,10 +237,11 @@ static int is_gas_method(mcd_method m)
 
 MCD_API mcd_status mcd_mixture_new(const mcd_db *db, size_t n,
                                    const char *const *names,
-                                   mcd_method default_method,
+                                   mcd_gas_method default_gas,
                                    mcd_mixture **out_mix, char *errbuf,
                                    size_t errlen)
 {
+    mcd_method default_method = (mcd_method)default_gas;
     mcd_mixture *mix = NULL;
     size_t *idx = NULL;
     mcd_status st = MCD_OK;
@@ -362,21 +363,15 @@ MCD_API mcd_status mcd_mixture_molar_masses(const mcd_mixture *mix,
 }
 
 MCD_API mcd_status mcd_mixture_set_method(mcd_mixture *mix, size_t i, size_t j,
-                                          mcd_method m)
+                                          mcd_gas_method gas)
 {
+    mcd_method m = (mcd_method)gas;
     if (mix == NULL)
         return MCD_EINVAL;
     if (i >= mix->n || j >= mix->n)
         return MCD_EBADLEN;
-    if (i == j)
+    if (i == j || !is_gas_method(m))
         return MCD_EINVAL;
-    if (m == MCD_METHOD_USER) {
-        /* Back to a value given earlier with mcd_mixture_set_binary. */
-        if (!(mix->user[3 * (i * mix->n + j)] > 0))
-            return MCD_EINVAL;
-    } else if (!is_gas_method(m)) {
-        return MCD_EINVAL;
-    }
     mix->method[i * mix->n + j] = (unsigned char)m;
     update_pair(mix, i, j);
     return MCD_OK;

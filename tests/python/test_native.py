@@ -145,7 +145,8 @@ class Versions(unittest.TestCase):
                              sorted(prefix + x.name for x in cls), cls)
         vals = header_enum_values()
         groups = ((mcdiff.Status, "MCD_"), (mcdiff.Param, "MCD_PARAM_"),
-                  (mcdiff.Method, "MCD_METHOD_"), (mcdiff.Basis, "MCD_BASIS_"),
+                  (mcdiff.Method, "MCD_METHOD_"),
+                  (mcdiff.GasMethod, "MCD_GAS_"), (mcdiff.Basis, "MCD_BASIS_"),
                   (mcdiff.Model, "MCD_MODEL_"), (mcdiff.Bootstrap, "MCD_BOOT_"),
                   (mcdiff.FilmBootstrap, "MCD_FILM_BOOT_"),
                   (mcdiff.FilmMethod, "MCD_FILM_"))

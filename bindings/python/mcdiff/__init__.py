@@ -19,7 +19,7 @@ from ._native import lib_path as library_path
 from ._arrays import HAVE_NUMPY
 from .enums import (ATM, DEPENDENT_AUTO, GAS_CONSTANT, MAX_DIM, MAX_SPECIES,
                     SUM_TOL, Basis, Bootstrap, Diag, FilmBootstrap,
-                    FilmMethod, Method, Model, Param, Warning)
+                    FilmMethod, GasMethod, Method, Model, Param, Warning)
 from .errors import (BadLengthError, DomainError, FileError, InternalError,
                      InvalidArgumentError, McdError, NoConvergenceError,
                      NoDataError, NotFoundError, OutOfMemoryError, ParseError,
@@ -33,7 +33,7 @@ __all__ = [
     "__version__", "BUILT_FOR", "library_path", "HAVE_NUMPY",
     "ATM", "DEPENDENT_AUTO", "GAS_CONSTANT", "MAX_DIM", "MAX_SPECIES",
     "SUM_TOL", "Basis", "Bootstrap", "Diag", "FilmBootstrap", "FilmMethod",
-    "Method", "Model", "Param", "Warning",
+    "GasMethod", "Method", "Model", "Param", "Warning",
     "McdError", "InvalidArgumentError", "DomainError", "BadLengthError",
     "OutOfMemoryError", "SingularMatrixError", "InternalError",
     "NotFoundError", "ParseError", "NoDataError", "NoConvergenceError",

@@ -8,7 +8,7 @@ model="mixture-averaged", bootstrap="stagnant", method="chapman-enskog".
 import enum
 
 __all__ = [
-    "Param", "Method", "Basis", "Model", "Bootstrap", "FilmBootstrap",
+    "Param", "Method", "GasMethod", "Basis", "Model", "Bootstrap", "FilmBootstrap",
     "FilmMethod",
     "Warning", "Diag", "MAX_SPECIES", "MAX_DIM", "SUM_TOL", "GAS_CONSTANT",
     "ATM", "DEPENDENT_AUTO", "coerce",
@@ -54,6 +54,14 @@ class Method(enum.IntEnum):
     WILKE_LEE = 3
     WILKE_CHANG = 4
     USER = 5
+
+
+class GasMethod(enum.IntEnum):
+    """Gas-phase correlation of a pair (mcd_gas_method); equal to the Method
+    of the same name."""
+    FSG = 1
+    CHAPMAN_ENSKOG = 2
+    WILKE_LEE = 3
 
 
 class Basis(enum.IntEnum):

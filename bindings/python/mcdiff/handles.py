@@ -12,7 +12,7 @@ import weakref
 
 from . import _arrays
 from ._native import lib
-from .enums import Method, Param, Warning, coerce
+from .enums import GasMethod, Param, Warning, coerce
 from .errors import error_for
 
 __all__ = ["Workspace", "Database", "Mixture", "BinaryEstimate",
@@ -302,7 +302,7 @@ class Database(_Handle):
     # -- estimates ----------------------------------------------------------
     def binary_gas(self, a, b, method, T, P):
         """Gas binary diffusivity of species a and b (mcd_db_binary_gas)."""
-        m = coerce(Method, method, "method")
+        m = coerce(GasMethod, method, "method")
         D, rel, warn = ctypes.c_double(), ctypes.c_double(), ctypes.c_uint()
         st = lib.mcd_db_binary_gas(self._p(), self.index(a), self.index(b), m,
                                 _arrays.scalar(T, "T"), _arrays.scalar(P, "P"),
@@ -363,7 +363,7 @@ class Mixture(_Handle):
         if isinstance(names, str):
             raise TypeError("names must be a sequence of species names")
         names = list(names)
-        m = coerce(Method, method, "method")
+        m = coerce(GasMethod, method, "method")
         arr = (ctypes.c_char_p * max(len(names), 1))(
             *[str(s).encode() for s in names])
         err = ctypes.create_string_buffer(_ERRLEN)
@@ -402,7 +402,7 @@ class Mixture(_Handle):
 
     def set_method(self, i, j, method):
         """Use a method for pair (i, j)."""
-        m = coerce(Method, method, "method")
+        m = coerce(GasMethod, method, "method")
         st = lib.mcd_mixture_set_method(self._p(), self.index(i),
                                         self.index(j), m)
         if st:
