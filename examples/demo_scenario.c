@@ -31,8 +31,8 @@ static int check(FILE *err, const char *what, mcd_status st,
     if (st == MCD_OK)
         return 0;
     fprintf(err, "demo: %s failed: %s", what, mcd_status_string((int)st));
-    if (ws && *mcd_workspace_last_error(ws))
-        fprintf(err, " (%s)", mcd_workspace_last_error(ws));
+    if (*mcd_last_error())
+        fprintf(err, " (%s)", mcd_last_error());
     fputc('\n', err);
     return 1;
 }
@@ -54,7 +54,6 @@ int demo_scenario_run(FILE *out, FILE *err)
     mcd_db *db = NULL;
     mcd_mixture *mix = NULL;
     mcd_workspace *ws = NULL;
-    char ebuf[256] = "";
     int rc = 1;
     size_t i, j;
     double sum_ms = 0, sum_ma = 0, sum_fk = 0, big = 0, dev = 0;
@@ -64,9 +63,8 @@ int demo_scenario_run(FILE *out, FILE *err)
     if (check(err, "opening the species table", mcd_db_new_builtin(&db),
               NULL))
         goto done;
-    if (mcd_mixture_new(db, NS, names, MCD_GAS_FSG, &mix, ebuf,
-                        sizeof ebuf) != MCD_OK) {
-        fprintf(err, "demo: building the mixture failed: %s\n", ebuf);
+    if (mcd_mixture_new(db, NS, names, MCD_GAS_FSG, &mix) != MCD_OK) {
+        fprintf(err, "demo: building the mixture failed: %s\n", mcd_last_error());
         goto done;
     }
     if (check(err, "molar masses", mcd_mixture_molar_masses(mix, M), NULL) ||

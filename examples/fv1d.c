@@ -52,8 +52,8 @@ static int lib_fail(FILE *err, const char *what, mcd_status st,
     if (st == MCD_OK)
         return 0;
     fprintf(err, "fv1d: %s failed: %s", what, mcd_status_string((int)st));
-    if (ws && *mcd_workspace_last_error(ws))
-        fprintf(err, " (%s)", mcd_workspace_last_error(ws));
+    if (*mcd_last_error())
+        fprintf(err, " (%s)", mcd_last_error());
     fputc('\n', err);
     return 1;
 }
@@ -92,7 +92,6 @@ int fv1d_problem_init(fv1d_problem *p, size_t n_cells, size_t n_steps,
     mcd_db *db = NULL;
     mcd_mixture *mix = NULL;
     mcd_workspace *ws = NULL;
-    char ebuf[256] = "";
     size_t i, j, e;
     double lam, x_mid[NS], d_star, dt_max;
     int rc = 1;
@@ -125,9 +124,8 @@ int fv1d_problem_init(fv1d_problem *p, size_t n_cells, size_t n_steps,
     if (lib_fail(err, "opening the species table", mcd_db_new_builtin(&db),
                  NULL))
         goto done;
-    if (mcd_mixture_new(db, NS, names, MCD_GAS_FSG, &mix, ebuf,
-                        sizeof ebuf) != MCD_OK) {
-        fprintf(err, "fv1d: building the mixture failed: %s\n", ebuf);
+    if (mcd_mixture_new(db, NS, names, MCD_GAS_FSG, &mix) != MCD_OK) {
+        fprintf(err, "fv1d: building the mixture failed: %s\n", mcd_last_error());
         goto done;
     }
     if (lib_fail(err, "molar masses", mcd_mixture_molar_masses(mix, p->M),
@@ -150,9 +148,8 @@ int fv1d_problem_init(fv1d_problem *p, size_t n_cells, size_t n_steps,
                      NULL))
             goto done;
         formula = mcd_db_formula(db, idx);
-        if (mcd_formula_elements(formula, 8, Z, cnt, &n_el, ebuf,
-                                 sizeof ebuf) != MCD_OK) {
-            fprintf(err, "fv1d: formula %s: %s\n", formula, ebuf);
+        if (mcd_formula_elements(formula, 8, Z, cnt, &n_el) != MCD_OK) {
+            fprintf(err, "fv1d: formula %s: %s\n", formula, mcd_last_error());
             goto done;
         }
         for (j = 0; j < n_el; j++) {

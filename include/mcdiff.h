@@ -14,8 +14,9 @@
  * element (i,d) at i*n_dim + d.
  *
  * Errors: every fallible call returns an mcd_status. On error, output arrays
- * are left untouched unless a function's documentation says otherwise.
- * The library never prints, aborts or exits.
+ * are left untouched unless a function's documentation says otherwise, and
+ * mcd_last_error() gives the detail (which argument, which entry, which
+ * missing parameter). The library never prints, aborts or exits.
  *
  * Threads: objects created by mcd_*_new/alloc are owned by the caller. A
  * species database or mixture that is no longer modified may be shared
@@ -97,6 +98,18 @@ typedef enum mcd_status {
  *  Fails: - | Allocates: no */
 MCD_API const char *mcd_status_string(int status);
 
+/** Detail of the last call in the calling thread that returned an
+ *  mcd_status: "" after a success; after a failure, English text naming
+ *  the argument and entry at fault (for example "argument c: -1 is not >
+ *  0", "cell 17: argument T: NaN is not finite", "line 4: unknown unit
+ *  'furlong'", "pair (0, 2) fsg: species 'silane' has no diffusion
+ *  volume"), at least "<function>: <status text>". Calls returning other
+ *  types (names, counts, getters) leave it alone. Thread-local: each
+ *  thread sees its own calls. The pointer stays valid for the thread's
+ *  lifetime; the text changes with its next such call. Since 0.2.
+ *  Fails: - | Allocates: no */
+MCD_API const char *mcd_last_error(void);
+
 /* ------------------------------------------------------------------ */
 /* Limits and tolerances                                               */
 /* ------------------------------------------------------------------ */
@@ -122,20 +135,17 @@ MCD_API const char *mcd_status_string(int status);
  * letter) each followed by an optional positive integer count; parenthesised
  * groups with an optional count, nested up to 8 deep. Examples: "C3H5Cl",
  * "CH3COCH3", "(CH3)2CO", "SF6", "CH3(CH2)4CH3". No spaces, charges or
- * hydrates. Parse errors write a message naming the 1-based character
- * position into errbuf (if errbuf != NULL and errlen > 0; always
- * NUL-terminated).
+ * hydrates. On a parse error mcd_last_error() names the 1-based character
+ * position.
  */
 
 /** Molar mass [kg/mol] of a formula from the IUPAC standard atomic weights
  *  (conventional values for elements given as intervals). Since 0.1.
  *  @param formula  NUL-terminated formula, see the grammar above.
  *  @param out_M    molar mass [kg/mol].
- *  @param errbuf   optional message buffer, @param errlen its size.
  *  Fails: EINVAL (NULL), EPARSE (malformed), ENOTFOUND (unknown element)
  *  | Allocates: no */
-MCD_API mcd_status mcd_formula_molar_mass(const char *formula, double *out_M,
-                                          char *errbuf, size_t errlen);
+MCD_API mcd_status mcd_formula_molar_mass(const char *formula, double *out_M);
 
 /** Element counts of a formula, merged per element in order of first
  *  appearance. Since 0.1.
@@ -146,8 +156,7 @@ MCD_API mcd_status mcd_formula_molar_mass(const char *formula, double *out_M,
  *  | Allocates: no */
 MCD_API mcd_status mcd_formula_elements(const char *formula, size_t cap,
                                         int *out_Z, long *out_count,
-                                        size_t *out_n, char *errbuf,
-                                        size_t errlen);
+                                        size_t *out_n);
 
 /** Fuller-Ensley-Giddings diffusion volume [-] (the sum of atomic and
  *  structural increments, in the method's cm^3-based units) of a formula.
@@ -158,8 +167,7 @@ MCD_API mcd_status mcd_formula_elements(const char *formula, size_t cap,
  *  Fails: EINVAL, EPARSE, ENOTFOUND, ENODATA (element without increment)
  *  | Allocates: no */
 MCD_API mcd_status mcd_formula_diffusion_volume(const char *formula,
-                                                int n_rings, double *out_V,
-                                                char *errbuf, size_t errlen);
+                                                int n_rings, double *out_V);
 
 /** Tabulated Fuller-Ensley-Giddings diffusion volume of a simple molecule
  *  (H2, D2, He, N2, O2, air, Ar, Kr, Xe, Ne, CO, CO2, N2O, NH3, H2O, SF6,
@@ -249,7 +257,7 @@ MCD_API mcd_status mcd_db_param(const mcd_db *db, size_t i, mcd_param p,
  *  | Allocates: yes */
 MCD_API mcd_status mcd_db_add(mcd_db *db, const char *name,
                               const char *formula, int n_rings,
-                              size_t *out_index, char *errbuf, size_t errlen);
+                              size_t *out_index);
 /** Set parameter p of species i (SI units; must be finite and > 0, except a
  *  dipole moment or association factor which may be 0). Source becomes
  *  "user". Since 0.1.
@@ -257,14 +265,12 @@ MCD_API mcd_status mcd_db_add(mcd_db *db, const char *name,
 MCD_API mcd_status mcd_db_set_param(mcd_db *db, size_t i, mcd_param p,
                                     double value);
 /** Load species from a text file in the mcdiff species format (see README).
- *  All or nothing: on any error the database is unchanged and errbuf names
+ *  All or nothing: on any error the database is unchanged and mcd_last_error() names
  *  the line. Since 0.1.
  *  Fails: EINVAL, EIO, EPARSE, ENOTFOUND, EDOM, ENOMEM | Allocates: yes */
-MCD_API mcd_status mcd_db_load_file(mcd_db *db, const char *path,
-                                    char *errbuf, size_t errlen);
+MCD_API mcd_status mcd_db_load_file(mcd_db *db, const char *path);
 /** As mcd_db_load_file, from a NUL-terminated string. Since 0.1. */
-MCD_API mcd_status mcd_db_load_string(mcd_db *db, const char *text,
-                                      char *errbuf, size_t errlen);
+MCD_API mcd_status mcd_db_load_string(mcd_db *db, const char *text);
 
 /* ------------------------------------------------------------------ */
 /* Compositions                                                        */
@@ -436,13 +442,12 @@ typedef struct mcd_mixture mcd_mixture;
  *  the mixture does not refer to db afterwards). Every pair uses the
  *  default method until changed. A species named twice is EINVAL.
  *  Since 0.1.
- *  Fails: EINVAL, ENOTFOUND (errbuf names the species), ENOMEM
+ *  Fails: EINVAL, ENOTFOUND (the detail names the species), ENOMEM
  *  | Allocates: yes */
 MCD_API mcd_status mcd_mixture_new(const mcd_db *db, size_t n_species,
                                    const char *const *names,
                                    mcd_gas_method default_method,
-                                   mcd_mixture **out_mix, char *errbuf,
-                                   size_t errlen);
+                                   mcd_mixture **out_mix);
 /** Free a mixture; NULL is a no-op. Since 0.1. */
 MCD_API void mcd_mixture_free(mcd_mixture *mix);
 /** Number of species (0 for NULL). Since 0.1. */
@@ -467,7 +472,7 @@ MCD_API mcd_status mcd_mixture_set_binary(mcd_mixture *mix, size_t i,
 /** Matrix of binary diffusivities at (T, P): out_D N x N symmetric, diagonal
  *  set to 0. out_rel_err and out_warn (N x N each) may be NULL. Reads the
  *  mixture only: may run concurrently on a shared mixture. Since 0.1.
- *  Fails: EINVAL, EDOM, ENODATA (errbuf-free: the pair's method lacks a
+ *  Fails: EINVAL, EDOM, ENODATA (the pair's method lacks a
  *  parameter) | Allocates: no */
 MCD_API mcd_status mcd_mixture_binaries(const mcd_mixture *mix, double T,
                                         double P, double *out_D,
@@ -501,10 +506,6 @@ MCD_API mcd_status mcd_workspace_new_with(size_t n_species,
 MCD_API void mcd_workspace_free(mcd_workspace *ws);
 /** Species capacity of a workspace (0 for NULL). Since 0.1. */
 MCD_API size_t mcd_workspace_capacity(const mcd_workspace *ws);
-/** Detail of the last error of a call on this workspace (which argument,
- *  which index), "" if none or ws is NULL. Valid until the next call.
- *  Since 0.1. */
-MCD_API const char *mcd_workspace_last_error(const mcd_workspace *ws);
 
 /* ------------------------------------------------------------------ */
 /* Diffusion fluxes                                                    */
@@ -752,7 +753,7 @@ MCD_API mcd_status mcd_flux_diagnose(size_t n_species, size_t n_dim,
  * fractions finite, >= 0 and summing to 1 within MCD_SUM_TOL, gradients
  * finite, Đ finite, >= DBL_MIN and symmetric). Unlike the single-state calls, on
  * an error detected in a cell the output of OTHER cells may already have
- * been written; the workspace message names the lowest failing cell
+ * been written; mcd_last_error() names the lowest failing cell
  * ("cell 17: ..."). Argument errors (NULL, counts, enums) write nothing.
  *
  * Threads: built with the Meson option -Dopenmp=enabled, a batched call
@@ -991,7 +992,7 @@ typedef enum mcd_film_method {
  *  with z_species between the two end values, where no flux reproduces
  *  xL, or RATIOS where the only N_t that reproduce xL lie far from the
  *  linearized estimate and give mole fractions outside [0, 1] inside the
- *  film; the workspace message gives the last residual) | Allocates: no
+ *  film; mcd_last_error() gives the last residual) | Allocates: no
  *  | Threads: one ws per thread */
 MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n_species,
                                   const double *Dij, double c, double L,

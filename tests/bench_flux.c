@@ -131,11 +131,11 @@ static mcd_mixture *make_mixture(mcd_db *db, size_t n)
             snprintf(f, sizeof f, "C%zuH%zuO%zu", cn, 2 * cn + 2, o);
         else if (o == 0)
             snprintf(f, sizeof f, "C%zuH%zuN", cn, 2 * cn + 3);
-        if (mcd_db_add(db, nm[i], f, 0, NULL, NULL, 0) != MCD_OK)
+        if (mcd_db_add(db, nm[i], f, 0, NULL) != MCD_OK)
             return NULL;
         names[i] = nm[i];
     }
-    if (mcd_mixture_new(db, n, names, MCD_GAS_FSG, &mix, NULL, 0) != MCD_OK)
+    if (mcd_mixture_new(db, n, names, MCD_GAS_FSG, &mix) != MCD_OK)
         return NULL;
     return mix;
 }
@@ -420,7 +420,7 @@ static int run(mcd_db *db, size_t n, double scale)
     }
     if (bad) {
         fprintf(stderr, "N=%zu: a call failed (%s)\n", n,
-                mcd_workspace_last_error(ws));
+                mcd_last_error());
         return 1;
     }
     dc = maxrel(n, K, out, ref);

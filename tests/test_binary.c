@@ -516,8 +516,8 @@ START_TEST(binary_gas_estimates_lennard_jones_from_boiling_point)
     mcd_db *d = NULL;
     size_t a, b;
     ck_assert_int_eq(mcd_db_new(&d), MCD_OK);
-    ck_assert_int_eq(mcd_db_add(d, "vapour-x", "C6H14", 0, &a, NULL, 0), MCD_OK);
-    ck_assert_int_eq(mcd_db_add(d, "gas-y", "N2", 0, &b, NULL, 0), MCD_OK);
+    ck_assert_int_eq(mcd_db_add(d, "vapour-x", "C6H14", 0, &a), MCD_OK);
+    ck_assert_int_eq(mcd_db_add(d, "gas-y", "N2", 0, &b), MCD_OK);
     ck_assert_int_eq(mcd_db_set_param(d, b, MCD_PARAM_LJ_SIGMA, 3.798e-10), MCD_OK);
     ck_assert_int_eq(mcd_db_set_param(d, b, MCD_PARAM_LJ_EPS_K, 71.4), MCD_OK);
     double D = SUP_GUARD, r = SUP_GUARD;
@@ -608,8 +608,8 @@ START_TEST(binary_liquid_uses_solvent_association_factor)
     mcd_db *d = NULL;
     size_t a, b;
     ck_assert_int_eq(mcd_db_new(&d), MCD_OK);
-    ck_assert_int_eq(mcd_db_add(d, "solute", "C6H6", 1, &a, NULL, 0), MCD_OK);
-    ck_assert_int_eq(mcd_db_add(d, "solvent", "C7H16", 0, &b, NULL, 0), MCD_OK);
+    ck_assert_int_eq(mcd_db_add(d, "solute", "C6H6", 1, &a), MCD_OK);
+    ck_assert_int_eq(mcd_db_add(d, "solvent", "C7H16", 0, &b), MCD_OK);
     D = SUP_GUARD;
     w = 0x55u;
     ck_assert_int_eq(mcd_db_binary_liquid(d, a, b, 298.15, 0.39e-3, &D, &r, &w), MCD_ENODATA);

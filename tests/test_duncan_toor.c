@@ -276,7 +276,7 @@ static void lib_flux(mcd_model model, const double *Dij, const long double *xm,
                                      MCD_BASIS_MOLE, x, g, NULL, NULL,
                                      flux_basis, F);
     ck_assert_msg(st == MCD_OK, "mcd_flux_compute: %s (%s)",
-                  mcd_status_string(st), mcd_workspace_last_error(ws));
+                  mcd_status_string(st), mcd_last_error());
 }
 
 static double max_absl(const long double *v, size_t n)
@@ -627,7 +627,7 @@ START_TEST(duncan_toor_fick_matrix_has_strong_n2_cross_terms)
     mcd_status st = mcd_fick_matrix(ws, NS, MM, Dij, MCD_BASIS_MOLE, x, NULL,
                                     MCD_BASIS_MOLE, CO2, D, &dep);
     ck_assert_msg(st == MCD_OK, "mcd_fick_matrix: %s (%s)",
-                  mcd_status_string(st), mcd_workspace_last_error(ws));
+                  mcd_status_string(st), mcd_last_error());
     ck_assert_uint_eq(dep, CO2);
     /* 1e-12 relative to the largest entry (7.7e-5): double rounding of a
      * 2x2 inverse with condition number below 10. */

@@ -178,7 +178,7 @@ static void lib_fick(size_t n, const double *M, const double *Dij,
     mcd_status st = mcd_fick_matrix(ws, n, M, Dij, MCD_BASIS_MOLE, x, NULL,
                                     basis, dep, out, used);
     ck_assert_msg(st == MCD_OK, "mcd_fick_matrix: %s (%s)",
-                  mcd_status_string(st), mcd_workspace_last_error(ws));
+                  mcd_status_string(st), mcd_last_error());
 }
 
 static long double max_absl(const long double *v, size_t n)

@@ -1205,7 +1205,7 @@ START_TEST(film_errors_leave_outputs_untouched)
         EXPECT(mcd_film_solve(ws, 2, Db, 40, 0.1, a0, aL, MCD_FILM_BOOT_RATIOS, 0,
                               zr, MCD_FILM_EXACT, N, &it, &res),
                MCD_ENOCONV);
-        ck_assert_ptr_nonnull(strstr(mcd_workspace_last_error(ws), "residual"));
+        ck_assert_ptr_nonnull(strstr(mcd_last_error(), "residual"));
     }
     ck_assert_uint_eq(it, 777);
     ck_assert_double_eq(res, GUARD);

@@ -798,9 +798,9 @@ START_TEST(flux_identities_errors_leave_output_untouched)
         ck_assert_int_eq(r.code, (codev));                                    \
         ck_assert(sup_guard_intact(out, N * ND));                             \
         if (r.arg != NULL)                                                    \
-            ck_assert_msg(strstr(mcd_workspace_last_error(ws), r.arg) != NULL,\
+            ck_assert_msg(strstr(mcd_last_error(), r.arg) != NULL,\
                           "message '%s' lacks '%s'",                          \
-                          mcd_workspace_last_error(ws), r.arg);               \
+                          mcd_last_error(), r.arg);               \
     } while (0)
 #define CALL(ws_, model, n, nd, M_, D_, c, cb, comp, grad, G_, lp, fb)         \
     mcd_flux_compute(ws_, model, n, nd, M_, D_, c, cb, comp, grad, G_, lp, fb, \
@@ -816,7 +816,7 @@ START_TEST(flux_identities_errors_leave_output_untouched)
                                       NULL, 0, out),
                      MCD_EBADLEN);
     ck_assert(sup_guard_intact(out, N * ND));
-    ck_assert(strstr(mcd_workspace_last_error(small), "n_species") != NULL);
+    ck_assert(strstr(mcd_last_error(), "n_species") != NULL);
     mcd_workspace_free(small);
     EXPECT(CALL(ws, 0, NMAX + 1, ND, M, D, 40.0, 0, x, g, NULL, NULL, 0),
            MCD_EBADLEN, "n_species");
@@ -876,7 +876,7 @@ START_TEST(flux_identities_errors_leave_output_untouched)
     sup_guard_fill(out, N * ND);
     ck_assert_int_eq(CALL(ws, 0, N, ND, M, bad, 40.0, 0, x, g, NULL, NULL, 0),
                      MCD_OK);
-    ck_assert_str_eq(mcd_workspace_last_error(ws), "");
+    ck_assert_str_eq(mcd_last_error(), "");
     bad[4] = NAN; /* the diagonal is ignored */
     ck_assert_int_eq(CALL(ws, 0, N, ND, M, bad, 40.0, 0, x, g, NULL, NULL, 0),
                      MCD_OK);
@@ -909,7 +909,7 @@ START_TEST(flux_identities_errors_leave_output_untouched)
            "argument Dij: entry (0,1) = 1e-310 is subnormal");
     /* a success clears the message */
     ck_assert_int_eq(CALL(ws, 0, N, ND, M, D, 40.0, 0, x, g, Gam, glnP, 1), MCD_OK);
-    ck_assert_str_eq(mcd_workspace_last_error(ws), "");
+    ck_assert_str_eq(mcd_last_error(), "");
 #undef EXPECT
 #undef CALL
 }
@@ -957,7 +957,8 @@ START_TEST(flux_identities_workspace_alloc_and_failure_injection)
     ck_assert_ptr_eq(w, w0);
     mcd_workspace_free(NULL);
     ck_assert_uint_eq(mcd_workspace_capacity(NULL), 0);
-    ck_assert_str_eq(mcd_workspace_last_error(NULL), "");
+    /* free and the getters leave the detail of the failure above */
+    ck_assert_str_ne(mcd_last_error(), "");
 
     al.alloc = cnt_alloc;
     al.free = cnt_free;
@@ -975,7 +976,7 @@ START_TEST(flux_identities_workspace_alloc_and_failure_injection)
 
     ck_assert_int_eq(mcd_workspace_new_with(7, &al, &w), MCD_OK);
     ck_assert_uint_eq(mcd_workspace_capacity(w), 7);
-    ck_assert_str_eq(mcd_workspace_last_error(w), "");
+    ck_assert_str_eq(mcd_last_error(), "");
     total = cnt.n_alloc;
     ck_assert_int_gt(total, 1);
     mcd_workspace_free(w);

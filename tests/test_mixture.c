@@ -24,9 +24,8 @@ static mcd_mixture *mix;
 
 static void setup(void)
 {
-    char err[128] = "";
     ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK);
-    ck_assert_int_eq(mcd_mixture_new(db, NS, names6, MCD_GAS_FSG, &mix, err, sizeof err),
+    ck_assert_int_eq(mcd_mixture_new(db, NS, names6, MCD_GAS_FSG, &mix),
                      MCD_OK);
 }
 static void teardown(void)
@@ -104,7 +103,7 @@ START_TEST(mixture_per_pair_methods_are_used)
     check_against_pairs(m, 800.0, 1.0e4);
     /* A mixture made with another default uses it everywhere. */
     mcd_mixture *m2 = NULL;
-    ck_assert_int_eq(mcd_mixture_new(db, NS, names6, MCD_GAS_WILKE_LEE, &m2, NULL, 0),
+    ck_assert_int_eq(mcd_mixture_new(db, NS, names6, MCD_GAS_WILKE_LEE, &m2),
                      MCD_OK);
     double D[NS * NS];
     ck_assert_int_eq(mcd_mixture_binaries(m2, 300.0, 1e5, D, NULL, NULL), MCD_OK);
@@ -166,45 +165,44 @@ START_TEST(mixture_user_values_scale_with_t175_over_p)
 }
 END_TEST
 
-START_TEST(mixture_unknown_species_is_named_in_errbuf)
+START_TEST(mixture_unknown_species_is_named_in_the_error_detail)
 {
     const char *names[3] = {"nitrogen", "unobtainium-x", "oxygen"};
-    char err[128] = "";
-    mcd_mixture *m = (mcd_mixture *)&err; /* sentinel: must not change */
+    static char token;
+    mcd_mixture *m = (mcd_mixture *)&token; /* sentinel: must not change */
     mcd_mixture *const sentinel = m;
-    ck_assert_int_eq(mcd_mixture_new(db, 3, names, MCD_GAS_FSG, &m, err, sizeof err),
+    ck_assert_int_eq(mcd_mixture_new(db, 3, names, MCD_GAS_FSG, &m),
                      MCD_ENOTFOUND);
     ck_assert_ptr_eq(m, sentinel);
-    ck_assert_ptr_nonnull(strstr(err, "unobtainium-x"));
+    ck_assert_ptr_nonnull(strstr(mcd_last_error(), "unobtainium-x"));
     /* Formula lookup (unique formula) works as in mcd_db_find. */
     const char *byformula[2] = {"CO2", "N2"};
-    ck_assert_int_eq(mcd_mixture_new(db, 2, byformula, MCD_GAS_FSG, &m, err, sizeof err),
+    ck_assert_int_eq(mcd_mixture_new(db, 2, byformula, MCD_GAS_FSG, &m),
                      MCD_OK);
     ck_assert_str_eq(mcd_mixture_name(m, 0), "carbon-dioxide");
     mcd_mixture_free(m);
     /* Duplicates, NULL names, bad counts and methods are EINVAL. */
     const char *dup[2] = {"nitrogen", "N2"};
     m = sentinel;
-    ck_assert_int_eq(mcd_mixture_new(db, 2, dup, MCD_GAS_FSG, &m, err, sizeof err),
+    ck_assert_int_eq(mcd_mixture_new(db, 2, dup, MCD_GAS_FSG, &m),
                      MCD_EINVAL);
-    ck_assert_ptr_nonnull(strstr(err, "N2"));
+    ck_assert_ptr_nonnull(strstr(mcd_last_error(), "N2"));
     const char *withnull[2] = {"nitrogen", NULL};
-    ck_assert_int_eq(mcd_mixture_new(db, 2, withnull, MCD_GAS_FSG, &m, err, sizeof err),
+    ck_assert_int_eq(mcd_mixture_new(db, 2, withnull, MCD_GAS_FSG, &m),
                      MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_new(db, 0, names6, MCD_GAS_FSG, &m, err, sizeof err),
+    ck_assert_int_eq(mcd_mixture_new(db, 0, names6, MCD_GAS_FSG, &m),
                      MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_new(db, MCD_MAX_SPECIES + 1, names6, MCD_GAS_FSG, &m, err,
-                                     sizeof err),
+    ck_assert_int_eq(mcd_mixture_new(db, MCD_MAX_SPECIES + 1, names6, MCD_GAS_FSG, &m),
                      MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_new(db, 2, names6, (mcd_gas_method)MCD_METHOD_USER, &m, err, sizeof err),
+    ck_assert_int_eq(mcd_mixture_new(db, 2, names6, (mcd_gas_method)MCD_METHOD_USER, &m),
                      MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_new(db, 2, names6, (mcd_gas_method)MCD_METHOD_WILKE_CHANG, &m, NULL, 0),
+    ck_assert_int_eq(mcd_mixture_new(db, 2, names6, (mcd_gas_method)MCD_METHOD_WILKE_CHANG, &m),
                      MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_new(NULL, 2, names6, MCD_GAS_FSG, &m, err, sizeof err),
+    ck_assert_int_eq(mcd_mixture_new(NULL, 2, names6, MCD_GAS_FSG, &m),
                      MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_new(db, 2, NULL, MCD_GAS_FSG, &m, err, sizeof err),
+    ck_assert_int_eq(mcd_mixture_new(db, 2, NULL, MCD_GAS_FSG, &m),
                      MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_new(db, 2, names6, MCD_GAS_FSG, NULL, err, sizeof err),
+    ck_assert_int_eq(mcd_mixture_new(db, 2, names6, MCD_GAS_FSG, NULL),
                      MCD_EINVAL);
     ck_assert_ptr_eq(m, sentinel);
 }
@@ -258,15 +256,37 @@ START_TEST(mixture_missing_parameters_give_enodata)
     mcd_mixture *m = NULL;
     size_t i;
     ck_assert_int_eq(mcd_db_new(&d), MCD_OK);
-    ck_assert_int_eq(mcd_db_add(d, "gas-a", "N2", 0, &i, NULL, 0), MCD_OK);
-    ck_assert_int_eq(mcd_db_add(d, "gas-b", "C3H8", 0, &i, NULL, 0), MCD_OK);
+    ck_assert_int_eq(mcd_db_add(d, "gas-a", "N2", 0, &i), MCD_OK);
+    ck_assert_int_eq(mcd_db_add(d, "gas-b", "C3H8", 0, &i), MCD_OK);
     const char *nm[2] = {"gas-a", "gas-b"};
     /* No Lennard-Jones data and nothing to estimate them from. */
-    ck_assert_int_eq(mcd_mixture_new(d, 2, nm, MCD_GAS_CHAPMAN_ENSKOG, &m, NULL, 0), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_new(d, 2, nm, MCD_GAS_CHAPMAN_ENSKOG, &m), MCD_OK);
+    ck_assert_str_eq(mcd_last_error(), ""); /* the gap shows when used */
     double D[4] = {SUP_GUARD, SUP_GUARD, SUP_GUARD, SUP_GUARD};
     ck_assert_int_eq(mcd_mixture_binaries(m, 300, 1e5, D, NULL, NULL), MCD_ENODATA);
     for (int k = 0; k < 4; k++)
         ck_assert(D[k] == SUP_GUARD);
+    /* The detail names the pair, the species, the parameter and the method. */
+    ck_assert_str_eq(mcd_last_error(),
+                     "pair (0, 1) gas-a-gas-b by chapman-enskog: species 'gas-a' has no "
+                     "Lennard-Jones sigma nor a molar volume Vb (needed by chapman-enskog)");
+    /* The same words from the database call, and from a batched call. */
+    ck_assert_int_eq(mcd_db_binary_gas(d, 1, 0, MCD_GAS_WILKE_LEE, 300, 1e5, D, NULL, NULL),
+                     MCD_ENODATA);
+    ck_assert_str_eq(mcd_last_error(), "species 'gas-b' has no Lennard-Jones sigma nor a "
+                                       "molar volume Vb (needed by wilke-lee)");
+    {
+        mcd_workspace *ws = NULL;
+        double T = 300, P = 1e5, x[2] = {0.5, 0.5}, g[2] = {1, -1}, J[2] = {0, 0};
+        ck_assert_int_eq(mcd_workspace_new(2, &ws), MCD_OK);
+        ck_assert_int_eq(mcd_flux_batch(ws, m, MCD_MODEL_MAXWELL_STEFAN, 1, 1, &T, &P,
+                                        MCD_BASIS_MOLE, x, g, NULL, MCD_BASIS_MOLE, J),
+                         MCD_ENODATA);
+        ck_assert_ptr_nonnull(strstr(mcd_last_error(), "pair (0, 1) gas-a-gas-b"));
+        mcd_workspace_free(ws);
+    }
+    ck_assert_int_eq(mcd_db_param(d, 0, MCD_PARAM_TB, D), MCD_ENODATA);
+    ck_assert_str_eq(mcd_last_error(), "species 'gas-a' has no Tb (K)");
     /* FSG needs only M and the diffusion volumes, known from formulas. */
     ck_assert_int_eq(mcd_mixture_set_method(m, 0, 1, MCD_GAS_FSG), MCD_OK);
     ck_assert_int_eq(mcd_mixture_binaries(m, 300, 1e5, D, NULL, NULL), MCD_OK);
@@ -353,7 +373,7 @@ int main(void)
     tcase_add_test(tc, mixture_matrix_is_symmetric_and_equals_binary_gas);
     tcase_add_test(tc, mixture_per_pair_methods_are_used);
     tcase_add_test(tc, mixture_user_values_scale_with_t175_over_p);
-    tcase_add_test(tc, mixture_unknown_species_is_named_in_errbuf);
+    tcase_add_test(tc, mixture_unknown_species_is_named_in_the_error_detail);
     tcase_add_test(tc, mixture_bad_state_and_arguments_leave_outputs_untouched);
     tcase_add_test(tc, mixture_missing_parameters_give_enodata);
     tcase_add_test(tc, mixture_is_independent_of_the_database);

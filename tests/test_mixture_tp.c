@@ -33,7 +33,7 @@ static mcd_mixture *lj_mixture(size_t n, mcd_method m)
             names[got++] = mcd_db_name(db, i);
     }
     ck_assert_uint_eq(got, n);
-    ck_assert_int_eq(mcd_mixture_new(db, n, names, (mcd_gas_method)m, &mix, NULL, 0), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_new(db, n, names, (mcd_gas_method)m, &mix), MCD_OK);
     return mix;
 }
 

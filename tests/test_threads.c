@@ -16,6 +16,7 @@
 #include <pthread.h>
 #include <stdint.h>
 #include <stdlib.h>
+#include <stdio.h>
 #include <string.h>
 
 #include "mcdiff.h"
@@ -133,7 +134,7 @@ static void *worker(void *arg)
 static void setup(void)
 {
     ck_assert_int_eq(mcd_db_new_builtin(&g_db), MCD_OK);
-    ck_assert_int_eq(mcd_mixture_new(g_db, NS, names, MCD_GAS_FSG, &g_mix, NULL, 0),
+    ck_assert_int_eq(mcd_mixture_new(g_db, NS, names, MCD_GAS_FSG, &g_mix),
                      MCD_OK);
     /* Two pairs by other methods so that every code path of binaries runs. */
     ck_assert_int_eq(mcd_mixture_set_method(g_mix, 0, 1, MCD_GAS_CHAPMAN_ENSKOG),
@@ -204,7 +205,7 @@ static void *db_worker(void *arg)
             !(D > 0))
             j->bad++;
         double Mf;
-        if (mcd_formula_molar_mass("CH3(CH2)4CH3", &Mf, NULL, 0) != MCD_OK)
+        if (mcd_formula_molar_mass("CH3(CH2)4CH3", &Mf) != MCD_OK)
             j->bad++;
     }
     return NULL;
@@ -224,6 +225,45 @@ START_TEST(threads_shared_database_queries)
 }
 END_TEST
 
+/* Each thread fails with its own unknown element symbol, many times, and
+ * must always read its own detail back: mcd_last_error is per thread. */
+typedef struct {
+    int id, bad;
+} errjob;
+
+static void *err_worker(void *arg)
+{
+    errjob *j = (errjob *)arg;
+    char formula[8], want[32];
+    snprintf(formula, sizeof formula, "X%c2", 'a' + j->id);
+    snprintf(want, sizeof want, "'X%c'", 'a' + j->id);
+    for (int r = 0; r < 2000; r++) {
+        double M;
+        if (mcd_formula_molar_mass(formula, &M) != MCD_ENOTFOUND ||
+            strstr(mcd_last_error(), want) == NULL)
+            j->bad++;
+        if (mcd_formula_molar_mass("H2O", &M) != MCD_OK || mcd_last_error()[0] != '\0')
+            j->bad++;
+    }
+    return NULL;
+}
+
+START_TEST(threads_error_detail_is_per_thread)
+{
+    pthread_t th[NTHREADS];
+    errjob jobs[NTHREADS];
+    memset(jobs, 0, sizeof jobs);
+    for (int t = 0; t < NTHREADS; t++) {
+        jobs[t].id = t;
+        ck_assert_int_eq(pthread_create(&th[t], NULL, err_worker, &jobs[t]), 0);
+    }
+    for (int t = 0; t < NTHREADS; t++)
+        ck_assert_int_eq(pthread_join(th[t], NULL), 0);
+    for (int t = 0; t < NTHREADS; t++)
+        ck_assert_int_eq(jobs[t].bad, 0);
+}
+END_TEST
+
 int main(void)
 {
     Suite *s = suite_create("mcd:threads");
@@ -232,6 +272,7 @@ int main(void)
     tcase_set_timeout(tc, 240);
     tcase_add_test(tc, threads_results_bitwise_equal_serial);
     tcase_add_test(tc, threads_shared_database_queries);
+    tcase_add_test(tc, threads_error_detail_is_per_thread);
     suite_add_tcase(s, tc);
     return sup_run(s);
 }

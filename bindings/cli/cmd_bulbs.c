@@ -355,7 +355,7 @@ int cli_cmd_bulbs(int argc, char **argv)
         rc = cli_fail(cmd,
                       bj->integrated ? "the two-bulb integration"
                                      : "the linearized two-bulb solution",
-                      st, mcd_workspace_last_error(s->ws));
+                      st, mcd_last_error());
         goto done;
     }
     if (s->json) {

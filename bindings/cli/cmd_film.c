@@ -291,7 +291,7 @@ static int parse(film_job *fj, const char *cmd, int argc, char **argv)
 static int film_failed(film_job *fj, const char *cmd, mcd_status st)
 {
     const cli_state *s = &fj->s;
-    const char *detail = mcd_workspace_last_error(s->ws);
+    const char *detail = mcd_last_error();
     const char *arg = NULL;
     char reason[200] = "";
     size_t n = s->n, i, k = fj->species;
@@ -681,7 +681,7 @@ int cli_cmd_film(int argc, char **argv)
                               fj->points, fj->z, fj->xz);
         if (st != MCD_OK) {
             rc = cli_fail(cmd, "the film profile", st,
-                          mcd_workspace_last_error(s->ws));
+                          mcd_last_error());
             goto done;
         }
     }

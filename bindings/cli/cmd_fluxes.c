@@ -89,7 +89,7 @@ int cli_cmd_fluxes(int argc, char **argv)
                           flux);
     if (st != MCD_OK) {
         rc = cli_fail(cmd, "the flux computation", st,
-                      mcd_workspace_last_error(s.ws));
+                      mcd_last_error());
         goto done;
     }
     /* Flags compare each flux with the gradient in the same basis. */

@@ -133,7 +133,7 @@ int cli_cmd_matrix(int argc, char **argv)
     st = mcd_fick_eigenvalues(s.ws, m, D, re, im);
     if (st != MCD_OK) {
         rc = cli_fail(cmd, "the eigenvalues", st,
-                      mcd_workspace_last_error(s.ws));
+                      mcd_last_error());
         goto done;
     }
     if (s.n_dim > 0) {

@@ -53,14 +53,14 @@ void cli_warn_text(unsigned bits, char *buf, size_t len)
 
 int cli_open_db(const char *cmd, const char *extra_file, mcd_db **out_db)
 {
-    char err[256] = "";
     mcd_db *db = NULL;
     mcd_status st = mcd_db_new_builtin(&db);
     if (st != MCD_OK)
         return cli_fail(cmd, "opening the built-in species table", st, NULL);
     if (extra_file) {
-        st = mcd_db_load_file(db, extra_file, err, sizeof err);
+        st = mcd_db_load_file(db, extra_file);
         if (st != MCD_OK) {
+            const char *err = mcd_last_error();
             mcd_db_free(db);
             if (st == MCD_ENOMEM)
                 return cli_fail(cmd, "loading --species-file", st, err);

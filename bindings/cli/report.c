@@ -36,7 +36,7 @@ int cli_state_fick(cli_state *s, const char *cmd, double *D, size_t *out_dep)
                                     D, out_dep);
     if (st != MCD_OK)
         return cli_fail(cmd, "the Fick matrix", st,
-                        mcd_workspace_last_error(s->ws));
+                        mcd_last_error());
     return CLI_OK;
 }
 

@@ -347,9 +347,9 @@ int cli_state_setup(cli_state *s, const char *cmd)
                                    s->names[i]);
     }
     st = mcd_mixture_new(s->db, n, (const char *const *)s->names, (mcd_gas_method)s->method,
-                         &s->mix, err, sizeof err);
+                         &s->mix);
     if (st != MCD_OK)
-        return cli_fail(cmd, "building the mixture", st, err);
+        return cli_fail(cmd, "building the mixture", st, mcd_last_error());
 
     s->user_pair = calloc(n * n, sizeof *s->user_pair);
     if (!s->user_pair)
@@ -431,8 +431,8 @@ int cli_state_setup(cli_state *s, const char *cmd)
     st = mcd_mixture_binaries(s->mix, s->T, s->P, s->Dij, s->rel_err,
                               s->warn);
     if (st != MCD_OK) {
-        snprintf(err, sizeof err, "method %s; try --method or --pair",
-                 mcd_method_name(s->method));
+        snprintf(err, sizeof err, "%s (method %s; try --method or --pair)",
+                 mcd_last_error(), mcd_method_name(s->method));
         return cli_fail(cmd, "estimating binary diffusivities", st, err);
     }
     st = mcd_workspace_new(n, &s->ws);

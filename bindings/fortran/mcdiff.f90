@@ -70,9 +70,6 @@ module mcdiff
   ! ------------------------------------------------------------------
   integer, parameter, public :: mcd_rk = c_double
 
-  !> Length of the error buffers handed to C (messages are truncated there).
-  integer, parameter :: ERRLEN = 512
-
   ! ------------------------------------------------------------------
   ! Generated from include/mcdiff.h by tools/gen_bindings.py (do not edit
   ! the included file; run python3 tools/gen_bindings.py --write):
@@ -153,7 +150,7 @@ module mcdiff
        mcd_mixture_new, mcd_mixture_species_count, mcd_mixture_name, &
        mcd_mixture_molar_masses, mcd_mixture_set_method, &
        mcd_mixture_set_binary, mcd_mixture_binaries, &
-       mcd_workspace_new, mcd_workspace_capacity, mcd_workspace_last_error, &
+       mcd_workspace_new, mcd_workspace_capacity, mcd_last_error, &
        mcd_flux_compute, mcd_fick_matrix, mcd_fick_fluxes, &
        mcd_fick_eigenvalues, mcd_flux_convert, mcd_flux_total, &
        mcd_flux_project, mcd_flux_diagnose, mcd_film_solve, mcd_film_profile, &
@@ -215,38 +212,27 @@ contains
     r = trim(s) // c_null_char
   end function to_c
 
-  !> Text of an error buffer filled by C (up to its NUL).
-  function from_buf(buf) result(s)
-    character(kind=c_char), intent(in) :: buf(:)
-    character(len=:), allocatable :: s
-    integer :: i, n
-    n = 0
-    do i = 1, size(buf)
-       if (buf(i) == c_null_char) exit
-       n = i
-    end do
-    allocate (character(len=n) :: s)
-    do i = 1, n
-       s(i:i) = buf(i)
-    end do
-  end function from_buf
-
   !> stat from a C status and, when asked, errmsg = status text [: detail].
   subroutine finish(s, stat, errmsg, detail)
     integer(c_int), intent(in) :: s
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
     character(len=*), intent(in), optional :: detail
+    character(len=:), allocatable :: d
     stat = int(s)
     if (.not. present(errmsg)) return
     if (s == 0) then
        errmsg = ''
-    else if (present(detail)) then
-       if (len_trim(detail) > 0) then
-          errmsg = from_c(c_mcd_status_string(s)) // ': ' // trim(detail)
-       else
-          errmsg = from_c(c_mcd_status_string(s))
-       end if
+       return
+    end if
+    ! The library's detail of this failing call (mcd_last_error), or the
+    ! wrapper's own words when it has some.
+    d = from_c(c_mcd_last_error())
+    if (present(detail)) then
+       if (len_trim(detail) > 0) d = trim(detail)
+    end if
+    if (len_trim(d) > 0) then
+       errmsg = from_c(c_mcd_status_string(s)) // ': ' // trim(d)
     else
        errmsg = from_c(c_mcd_status_string(s))
     end if
@@ -268,18 +254,6 @@ contains
     call finish(s, stat, errmsg)
   end subroutine finish_estimate
 
-  !> finish() with the workspace's last-error detail.
-  subroutine finish_ws(ws, s, stat, errmsg)
-    type(mcd_workspace_t), intent(in) :: ws
-    integer(c_int), intent(in) :: s
-    integer, intent(out) :: stat
-    character(len=*), intent(out), optional :: errmsg
-    if (s /= 0 .and. c_associated(ws%ptr)) then
-       call finish(s, stat, errmsg, from_c(c_mcd_workspace_last_error(ws%ptr)))
-    else
-       call finish(s, stat, errmsg)
-    end if
-  end subroutine finish_ws
 
   !> 1-based Fortran index to a 0-based C index; indices below 1 map to a
   !> huge value that C rejects as out of range (never to an "auto" value).
@@ -470,13 +444,11 @@ contains
     real(c_double), intent(inout) :: M
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
-    character(kind=c_char) :: buf(ERRLEN)
     real(c_double) :: v
     integer(c_int) :: s
-    buf = c_null_char
-    s = c_mcd_formula_molar_mass(to_c(formula), v, buf, int(ERRLEN, c_size_t))
+    s = c_mcd_formula_molar_mass(to_c(formula), v)
     if (s == 0) M = v
-    call finish(s, stat, errmsg, from_buf(buf))
+    call finish(s, stat, errmsg)
   end subroutine mcd_formula_molar_mass
 
   ! ==================================================================
@@ -577,16 +549,13 @@ contains
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
     integer, intent(in), optional :: n_rings
-    character(kind=c_char) :: buf(ERRLEN)
     integer(c_size_t) :: k
     integer(c_int) :: s, r
     r = 0
     if (present(n_rings)) r = int(n_rings, c_int)
-    buf = c_null_char
-    s = c_mcd_db_add(db%ptr, to_c(name), to_c(formula), r, k, buf, &
-         int(ERRLEN, c_size_t))
+    s = c_mcd_db_add(db%ptr, to_c(name), to_c(formula), r, k)
     if (s == 0) index = int(k) + 1
-    call finish(s, stat, errmsg, from_buf(buf))
+    call finish(s, stat, errmsg)
   end subroutine mcd_db_add
 
   !> Set parameter p of species i (1-based).
@@ -606,11 +575,9 @@ contains
     character(len=*), intent(in) :: path
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
-    character(kind=c_char) :: buf(ERRLEN)
     integer(c_int) :: s
-    buf = c_null_char
-    s = c_mcd_db_load_file(db%ptr, to_c(path), buf, int(ERRLEN, c_size_t))
-    call finish(s, stat, errmsg, from_buf(buf))
+    s = c_mcd_db_load_file(db%ptr, to_c(path))
+    call finish(s, stat, errmsg)
   end subroutine mcd_db_load_file
 
   !> Load species from text in the mcdiff species format. Lines are
@@ -620,11 +587,9 @@ contains
     character(len=*), intent(in) :: text
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
-    character(kind=c_char) :: buf(ERRLEN)
     integer(c_int) :: s
-    buf = c_null_char
-    s = c_mcd_db_load_string(db%ptr, text // c_null_char, buf, int(ERRLEN, c_size_t))
-    call finish(s, stat, errmsg, from_buf(buf))
+    s = c_mcd_db_load_string(db%ptr, text // c_null_char)
+    call finish(s, stat, errmsg)
   end subroutine mcd_db_load_string
 
   ! ==================================================================
@@ -835,7 +800,6 @@ contains
     integer, intent(in), optional :: default_method
     character(kind=c_char), allocatable, target :: cnames(:, :)
     type(c_ptr), allocatable :: ptrs(:)
-    character(kind=c_char) :: buf(ERRLEN)
     type(c_ptr) :: p
     integer(c_int) :: m, s
     integer :: i, k, n, l
@@ -853,12 +817,10 @@ contains
        end do
        ptrs(i) = c_loc(cnames(1, i))
     end do
-    buf = c_null_char
     p = c_null_ptr
-    s = c_mcd_mixture_new(db%ptr, int(n, c_size_t), ptrs, m, p, buf, &
-         int(ERRLEN, c_size_t))
+    s = c_mcd_mixture_new(db%ptr, int(n, c_size_t), ptrs, m, p)
     if (s == 0) mix%ptr = p
-    call finish(s, stat, errmsg, from_buf(buf))
+    call finish(s, stat, errmsg)
   end subroutine mcd_mixture_new
 
   integer function mcd_mixture_species_count(mix)
@@ -962,12 +924,11 @@ contains
     mcd_workspace_capacity = int(c_mcd_workspace_capacity(ws%ptr))
   end function mcd_workspace_capacity
 
-  !> Detail of the last error of a call on ws ('' if none).
-  function mcd_workspace_last_error(ws) result(s)
-    type(mcd_workspace_t), intent(in) :: ws
+  !> Detail of the last failing call of this thread ('' after a success).
+  function mcd_last_error() result(s)
     character(len=:), allocatable :: s
-    s = from_c(c_mcd_workspace_last_error(ws%ptr))
-  end function mcd_workspace_last_error
+    s = from_c(c_mcd_last_error())
+  end function mcd_last_error
 
   ! ==================================================================
   ! Diffusion fluxes
@@ -994,7 +955,7 @@ contains
     if (present(M)) pM = c_loc(M)
     if (present(Gamma)) pG = c_loc(Gamma)
     if (present(grad_lnP)) pL = c_loc(grad_lnP)
-    call finish_ws(ws, c_mcd_flux_compute(ws%ptr, int(model, c_int), csz(n), &
+    call finish(c_mcd_flux_compute(ws%ptr, int(model, c_int), csz(n), &
          csz(n_dim), pM, Dij, c, int(comp_basis, c_int), comp, grad_comp, pG, pL, &
          int(flux_basis, c_int), flux), stat, errmsg)
   end subroutine mcd_flux_compute
@@ -1029,7 +990,7 @@ contains
     s = c_mcd_fick_matrix(ws%ptr, csz(n), pM, Dij, int(comp_basis, c_int), comp, &
          pG, int(basis, c_int), dep, D, c_loc(used))
     if (s == 0 .and. present(dependent_used)) dependent_used = int(used) + 1
-    call finish_ws(ws, s, stat, errmsg)
+    call finish(s, stat, errmsg)
   end subroutine mcd_fick_matrix
 
   !> Fluxes from a Fick matrix as returned by mcd_fick_matrix (the
@@ -1054,7 +1015,7 @@ contains
     real(c_double), intent(inout) :: re(*), im(*)
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
-    call finish_ws(ws, c_mcd_fick_eigenvalues(ws%ptr, csz(m), D, re, im), stat, errmsg)
+    call finish(c_mcd_fick_eigenvalues(ws%ptr, csz(m), D, re, im), stat, errmsg)
   end subroutine mcd_fick_eigenvalues
 
   ! ==================================================================
@@ -1200,7 +1161,7 @@ contains
        if (present(iterations)) iterations = int(it)
        if (present(residual)) residual = res
     end if
-    call finish_ws(ws, s, stat, errmsg)
+    call finish(s, stat, errmsg)
   end subroutine mcd_film_solve
 
   !> Film composition profile: x(n, n_points), x(:, k) at position z(k).
@@ -1211,7 +1172,7 @@ contains
     real(c_double), intent(inout) :: x(n, *)
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
-    call finish_ws(ws, c_mcd_film_profile(ws%ptr, csz(n), Dij, c, L, x0, N_flux, &
+    call finish(c_mcd_film_profile(ws%ptr, csz(n), Dij, c, L, x0, N_flux, &
          csz(n_points), z, x), stat, errmsg)
   end subroutine mcd_film_profile
 
@@ -1228,7 +1189,7 @@ contains
     real(c_double), intent(inout) :: x1(n, *), x2(n, *)
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
-    call finish_ws(ws, c_mcd_bulbs_linearized(ws%ptr, csz(n), Dij, c, V1, V2, A, L, &
+    call finish(c_mcd_bulbs_linearized(ws%ptr, csz(n), Dij, c, V1, V2, A, L, &
          x1_0, x2_0, csz(n_times), t, x1, x2), stat, errmsg)
   end subroutine mcd_bulbs_linearized
 
@@ -1244,7 +1205,7 @@ contains
     real(c_double), intent(inout) :: x1(n, *), x2(n, *)
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
-    call finish_ws(ws, c_mcd_bulbs_integrate(ws%ptr, csz(n), Dij, c, V1, V2, A, L, &
+    call finish(c_mcd_bulbs_integrate(ws%ptr, csz(n), Dij, c, V1, V2, A, L, &
          x1_0, x2_0, csz(n_times), t, rel_tol, x1, x2), stat, errmsg)
   end subroutine mcd_bulbs_integrate
 
@@ -1271,7 +1232,7 @@ contains
     type(c_ptr) :: pL
     pL = c_null_ptr
     if (present(grad_lnP)) pL = c_loc(grad_lnP)
-    call finish_ws(ws, c_mcd_flux_batch(ws%ptr, mix%ptr, int(model, c_int), &
+    call finish(c_mcd_flux_batch(ws%ptr, mix%ptr, int(model, c_int), &
          csz(n_cells), csz(n_dim), T, P, int(comp_basis, c_int), comp, grad, pL, &
          int(flux_basis, c_int), flux), stat, errmsg)
   end subroutine mcd_flux_batch
@@ -1294,7 +1255,7 @@ contains
     pL = c_null_ptr
     if (present(M)) pM = c_loc(M)
     if (present(grad_lnP)) pL = c_loc(grad_lnP)
-    call finish_ws(ws, c_mcd_flux_batch_dij(ws%ptr, int(model, c_int), csz(n), &
+    call finish(c_mcd_flux_batch_dij(ws%ptr, int(model, c_int), csz(n), &
          csz(n_cells), csz(n_dim), pM, Dij, c, int(comp_basis, c_int), comp, grad, &
          pL, int(flux_basis, c_int), flux), stat, errmsg)
   end subroutine mcd_flux_batch_dij
@@ -1314,7 +1275,7 @@ contains
     type(c_ptr) :: pL
     pL = c_null_ptr
     if (present(grad_lnP)) pL = c_loc(grad_lnP)
-    call finish_ws(ws, c_mcd_flux_batch_aos(ws%ptr, mix%ptr, int(model, c_int), &
+    call finish(c_mcd_flux_batch_aos(ws%ptr, mix%ptr, int(model, c_int), &
          csz(n_cells), csz(n_dim), T, P, int(comp_basis, c_int), comp, grad, pL, &
          int(flux_basis, c_int), flux), stat, errmsg)
   end subroutine mcd_flux_batch_aos
@@ -1326,7 +1287,7 @@ contains
     real(c_double), intent(in) :: tol
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
-    call finish_ws(ws, c_mcd_workspace_set_iterative(ws%ptr, csz(max_iter), tol), &
+    call finish(c_mcd_workspace_set_iterative(ws%ptr, csz(max_iter), tol), &
          stat, errmsg)
   end subroutine mcd_workspace_set_iterative
 
@@ -1356,7 +1317,7 @@ contains
     integer, intent(in) :: n_threads
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
-    call finish_ws(ws, c_mcd_workspace_set_threads(ws%ptr, csz(n_threads)), stat, errmsg)
+    call finish(c_mcd_workspace_set_threads(ws%ptr, csz(n_threads)), stat, errmsg)
   end subroutine mcd_workspace_set_threads
 
   !> Declare a temperature range for fitted Chapman-Enskog / Wilke-Lee
@@ -1406,14 +1367,11 @@ contains
     integer, intent(inout) :: n_elements
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
-    character(kind=c_char) :: buf(ERRLEN)
     integer(c_size_t) :: n
     integer(c_int) :: s
-    buf = c_null_char
-    s = c_mcd_formula_elements(to_c(formula), csz(cap), Z, counts, n, buf, &
-         int(ERRLEN, c_size_t))
+    s = c_mcd_formula_elements(to_c(formula), csz(cap), Z, counts, n)
     if (s == 0) n_elements = int(n)
-    call finish(s, stat, errmsg, from_buf(buf))
+    call finish(s, stat, errmsg)
   end subroutine mcd_formula_elements
 
   !> Fuller-Ensley-Giddings diffusion volume of a formula (n_rings aromatic
@@ -1424,15 +1382,13 @@ contains
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
     integer, intent(in), optional :: n_rings
-    character(kind=c_char) :: buf(ERRLEN)
     real(c_double) :: v_out
     integer(c_int) :: s, r
     r = 0
     if (present(n_rings)) r = int(n_rings, c_int)
-    buf = c_null_char
-    s = c_mcd_formula_diffusion_volume(to_c(formula), r, v_out, buf, int(ERRLEN, c_size_t))
+    s = c_mcd_formula_diffusion_volume(to_c(formula), r, v_out)
     if (s == 0) V = v_out
-    call finish(s, stat, errmsg, from_buf(buf))
+    call finish(s, stat, errmsg)
   end subroutine mcd_formula_diffusion_volume
 
   !> Tabulated diffusion volume of a simple molecule, by formula.

@@ -634,9 +634,9 @@ contains
          x, grad, MCD_BASIS_MOLE, J, stat, msg)
     call check(stat == MCD_EDOM, 'composition summing to 0.9 is MCD_EDOM')
     call check(all(abs(J - GUARD) < tiny(c)), 'fluxes untouched on error')
-    call check(len(mcd_workspace_last_error(ws)) > 0, 'workspace last error set')
-    call check(index(msg, mcd_workspace_last_error(ws)) > 0, &
-         'errmsg carries the workspace detail: ' // trim(msg))
+    call check(len(mcd_last_error()) > 0, 'mcd_last_error set')
+    call check(index(msg, mcd_last_error()) > 0, &
+         'errmsg carries the detail: ' // trim(msg))
 
     ! a workspace too small is EBADLEN
     call mcd_workspace_new(ws, 2, stat, msg)

@@ -70,9 +70,9 @@ MCD_API void mcd_workspace_free(mcd_workspace *ws)
     }
 }
 
-MCD_API mcd_status mcd_workspace_new_with(size_t n_species,
-                                          const mcd_allocator *allocator,
-                                          mcd_workspace **out_ws)
+mcd_status mcdi_api_workspace_new_with(size_t n_species,
+                                       const mcd_allocator *allocator,
+                                       mcd_workspace **out_ws)
 {
     mcd_workspace *ws;
     size_t core_bytes, core_int_bytes, int_bytes, tf_bytes;
@@ -150,11 +150,11 @@ fail:
     return MCD_ENOMEM;
 }
 
-MCD_API mcd_status mcd_workspace_new(size_t n_species, mcd_workspace **out_ws)
+mcd_status mcdi_api_workspace_new(size_t n_species, mcd_workspace **out_ws)
 {
     mcd_allocator al;
     al.alloc = default_alloc;
     al.free = default_free;
     al.ud = NULL;
-    return mcd_workspace_new_with(n_species, &al, out_ws);
+    return mcdi_api_workspace_new_with(n_species, &al, out_ws);
 }

@@ -3,7 +3,7 @@
  * One wording everywhere: "argument <name>: <what is wrong>", entries
  * named by index ("entry 3", "entry (0,2)") and, in batched calls, the
  * message prefixed by "cell <k>: " (lib/batch.c). The status and the
- * message are set together by mcdi_ws_fail. Every check writes nothing
+ * message are set together by mcdi_fail. Every check writes nothing
  * but the message; kernels do no validation.
  */
 #include <float.h>
@@ -28,7 +28,7 @@ int mcdi_M_span_ok(size_t n, const double *M)
 mcd_status mcdi_check_ptr(mcd_workspace *ws, const void *p, const char *name)
 {
     if (p == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL", name);
+        return mcdi_fail(MCD_EINVAL, "argument %s: NULL", name);
     return MCD_OK;
 }
 
@@ -36,31 +36,29 @@ mcd_status mcdi_check_species(mcd_workspace *ws, size_t n, size_t lo,
                               int max_is_einval, const char *name)
 {
     if (n < lo || (max_is_einval && n > MCD_MAX_SPECIES))
-        return mcdi_ws_fail(ws, MCD_EINVAL,
-                            "argument %s: %zu is not in %zu..%d", name, n, lo,
-                            MCD_MAX_SPECIES);
+        return mcdi_fail(MCD_EINVAL, "argument %s: %zu is not in %zu..%d", name,
+                         n, lo, MCD_MAX_SPECIES);
     if (n > ws->cap)
-        return mcdi_ws_fail(ws, MCD_EBADLEN,
-                            "argument %s: %zu exceeds the workspace "
-                            "capacity %zu",
-                            name, n, ws->cap);
+        return mcdi_fail(MCD_EBADLEN,
+                         "argument %s: %zu exceeds the workspace "
+                         "capacity %zu",
+                         name, n, ws->cap);
     return MCD_OK;
 }
 
 mcd_status mcdi_check_dim(mcd_workspace *ws, size_t nd)
 {
     if (nd < 1 || nd > MCD_MAX_DIM)
-        return mcdi_ws_fail(ws, MCD_EINVAL,
-                            "argument n_dim: %zu is not in 1..%d", nd,
-                            MCD_MAX_DIM);
+        return mcdi_fail(MCD_EINVAL, "argument n_dim: %zu is not in 1..%d", nd,
+                         MCD_MAX_DIM);
     return MCD_OK;
 }
 
 mcd_status mcdi_check_basis(mcd_workspace *ws, mcd_basis b, const char *name)
 {
     if (b != MCD_BASIS_MOLE && b != MCD_BASIS_MASS)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: unknown value %d",
-                            name, (int)b);
+        return mcdi_fail(MCD_EINVAL, "argument %s: unknown value %d", name,
+                         (int)b);
     return MCD_OK;
 }
 
@@ -70,18 +68,17 @@ mcd_status mcdi_check_model(mcd_workspace *ws, mcd_model model,
     if (model != MCD_MODEL_MAXWELL_STEFAN &&
         model != MCD_MODEL_MIXTURE_AVERAGED &&
         !(iterative_ok && model == MCD_MODEL_ITERATIVE))
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument model: unknown value %d",
-                            (int)model);
+        return mcdi_fail(MCD_EINVAL, "argument model: unknown value %d",
+                         (int)model);
     return MCD_OK;
 }
 
 mcd_status mcdi_check_positive(mcd_workspace *ws, double v, const char *name)
 {
     if (!mcdi_finite(v))
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: not finite", name);
+        return mcdi_fail(MCD_EINVAL, "argument %s: not finite", name);
     if (!(v > 0))
-        return mcdi_ws_fail(ws, MCD_EDOM, "argument %s: %g is not > 0", name,
-                            v);
+        return mcdi_fail(MCD_EDOM, "argument %s: %g is not > 0", name, v);
     return MCD_OK;
 }
 
@@ -113,37 +110,35 @@ static mcd_status dij_locate(mcd_workspace *ws, size_t n, const double *Dij,
     for (i = 0; i < n; i++)
         for (j = 0; j < n; j++)
             if (i != j && !mcdi_finite(DIJ(i, j)))
-                return mcdi_ws_fail(
-                    ws, MCD_EINVAL,
-                    "argument Dij: entry (%zu,%zu) is not finite", i, j);
+                return mcdi_fail(MCD_EINVAL,
+                                 "argument Dij: entry (%zu,%zu) is not finite",
+                                 i, j);
     for (i = 0; i < n; i++)
         for (j = 0; j < n; j++)
             if (i != j && !(DIJ(i, j) > 0.0))
-                return mcdi_ws_fail(
-                    ws, MCD_EDOM,
-                    "argument Dij: entry (%zu,%zu) = %g is not > 0", i, j,
-                    DIJ(i, j));
+                return mcdi_fail(
+                    MCD_EDOM, "argument Dij: entry (%zu,%zu) = %g is not > 0",
+                    i, j, DIJ(i, j));
     /* a positive subnormal Đ: 1/Đ overflows, and the single-state and
      * batched paths failed differently on it (OK with -0 fluxes against
      * ESING); both reject it here */
     for (i = 0; i < n; i++)
         for (j = 0; j < n; j++)
             if (i != j && !(DIJ(i, j) >= DBL_MIN))
-                return mcdi_ws_fail(ws, MCD_EDOM,
-                                    "argument Dij: entry (%zu,%zu) = %g is "
-                                    "subnormal (< DBL_MIN; 1/Dij overflows)",
-                                    i, j, DIJ(i, j));
+                return mcdi_fail(MCD_EDOM,
+                                 "argument Dij: entry (%zu,%zu) = %g is "
+                                 "subnormal (< DBL_MIN; 1/Dij overflows)",
+                                 i, j, DIJ(i, j));
     for (i = 0; i < n; i++)
         for (j = i + 1; j < n; j++) {
             double a = DIJ(i, j), b = DIJ(j, i);
             double big = a > b ? a : b;
             if (!(fabs(a - b) <= MCDI_DIJ_SYM_TOL * big))
-                return mcdi_ws_fail(
-                    ws, MCD_EDOM,
-                    "argument Dij: entries (%zu,%zu) = %.17g and "
-                    "(%zu,%zu) = %.17g differ by more than 1e-12 "
-                    "relative (not symmetric)",
-                    i, j, a, j, i, b);
+                return mcdi_fail(MCD_EDOM,
+                                 "argument Dij: entries (%zu,%zu) = %.17g and "
+                                 "(%zu,%zu) = %.17g differ by more than 1e-12 "
+                                 "relative (not symmetric)",
+                                 i, j, a, j, i, b);
         }
 #undef DIJ
     return MCD_OK;
@@ -152,7 +147,7 @@ static mcd_status dij_locate(mcd_workspace *ws, size_t n, const double *Dij,
 mcd_status mcdi_check_dij(mcd_workspace *ws, size_t n, const double *Dij)
 {
     if (Dij == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument Dij: NULL");
+        return mcdi_fail(MCD_EINVAL, "argument Dij: NULL");
     if (dij_all_good(n, Dij))
         return MCD_OK;
     return dij_locate(ws, n, Dij, 1);
@@ -173,22 +168,20 @@ static mcd_status comp_locate(mcd_workspace *ws, size_t n, const double *y,
     size_t i;
     for (i = 0; i < n; i++)
         if (!mcdi_finite(y[i * s]))
-            return mcdi_ws_fail(ws, MCD_EINVAL,
-                                "argument %s: entry %zu is not finite", name,
-                                i);
+            return mcdi_fail(MCD_EINVAL, "argument %s: entry %zu is not finite",
+                             name, i);
     for (i = 0; i < n; i++)
         if (!(y[i * s] >= 0.0))
-            return mcdi_ws_fail(ws, MCD_EDOM,
-                                "argument %s: entry %zu = %g is negative", name,
-                                i, y[i * s]);
+            return mcdi_fail(MCD_EDOM,
+                             "argument %s: entry %zu = %g is negative", name, i,
+                             y[i * s]);
     for (i = 0; i < n; i++)
         sum += y[i * s];
     /* "1e-6" is MCD_SUM_TOL, written out for a readable message */
     if (!(fabs(sum - 1.0) <= MCD_SUM_TOL))
-        return mcdi_ws_fail(
-            ws, MCD_EDOM,
-            "argument %s: sum %.10g differs from 1 by more than 1e-6", name,
-            sum);
+        return mcdi_fail(
+            MCD_EDOM, "argument %s: sum %.10g differs from 1 by more than 1e-6",
+            name, sum);
     return MCD_OK;
 }
 
@@ -199,7 +192,7 @@ mcd_status mcdi_check_comp(mcd_workspace *ws, size_t n, const double *y,
     int good = 1;
     size_t i;
     if (y == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL", name);
+        return mcdi_fail(MCD_EINVAL, "argument %s: NULL", name);
     /* one branch-free pass for the usual case (every entry finite and
      * >= 0, sum within MCD_SUM_TOL of 1) */
     for (i = 0; i < n; i++) {
@@ -222,27 +215,26 @@ mcd_status mcdi_check_M(mcd_workspace *ws, size_t n, const double *M)
     size_t i;
     mcd_status st;
     if (M == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL,
-                            "argument M: NULL but needed (mass basis or "
-                            "pressure diffusion)");
+        return mcdi_fail(MCD_EINVAL,
+                         "argument M: NULL but needed (mass basis or "
+                         "pressure diffusion)");
     st = mcdi_comp_check_M(n, M);
     if (st == MCD_OK) {
         if (mcdi_M_span_ok(n, M))
             return MCD_OK;
-        return mcdi_ws_fail(ws, MCD_EDOM,
-                            "argument M: the molar masses span more than a "
-                            "factor 1e12 (the basis conversions would lose "
-                            "all precision)");
+        return mcdi_fail(MCD_EDOM,
+                         "argument M: the molar masses span more than a "
+                         "factor 1e12 (the basis conversions would lose "
+                         "all precision)");
     }
     for (i = 0; i < n; i++)
         if (!mcdi_finite(M[i]))
-            return mcdi_ws_fail(ws, st, "argument M: entry %zu is not finite",
-                                i);
+            return mcdi_fail(st, "argument M: entry %zu is not finite", i);
     for (i = 0; i < n; i++)
         if (!(M[i] > 0.0))
-            return mcdi_ws_fail(ws, st, "argument M: entry %zu = %g is not > 0",
-                                i, M[i]);
-    return mcdi_ws_fail(ws, st, "argument M: invalid");
+            return mcdi_fail(st, "argument M: entry %zu = %g is not > 0", i,
+                             M[i]);
+    return mcdi_fail(st, "argument M: invalid");
 }
 
 /* The first non-finite entry (i,k) of p[(i cols + k) s], named. */
@@ -253,9 +245,9 @@ static mcd_status finite_locate(mcd_workspace *ws, size_t rows, size_t cols,
     for (i = 0; i < rows; i++)
         for (k = 0; k < cols; k++)
             if (!mcdi_finite(p[(i * cols + k) * s]))
-                return mcdi_ws_fail(
-                    ws, MCD_EINVAL,
-                    "argument %s: entry (%zu,%zu) is not finite", name, i, k);
+                return mcdi_fail(MCD_EINVAL,
+                                 "argument %s: entry (%zu,%zu) is not finite",
+                                 name, i, k);
     return MCD_OK;
 }
 
@@ -265,7 +257,7 @@ mcd_status mcdi_check_finite(mcd_workspace *ws, size_t rows, size_t cols,
     size_t i;
     double acc = 0.0;
     if (p == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL", name);
+        return mcdi_fail(MCD_EINVAL, "argument %s: NULL", name);
     /* p * 0 is 0 for finite p and NaN for inf or NaN: one branch-free
      * pass; the loop below only names the entry */
     for (i = 0; i < rows * cols; i++)
@@ -285,12 +277,12 @@ mcd_status mcdi_check_finite_strided(mcd_workspace *ws, size_t rows,
 mcd_status mcdi_check_conc(mcd_workspace *ws, double c, const char *name)
 {
     if (!mcdi_finite(c))
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: not finite", name);
+        return mcdi_fail(MCD_EINVAL, "argument %s: not finite", name);
     /* A subnormal c (< DBL_MIN) is rejected: the fluxes would underflow
      * unevenly and lose the zero-sum. */
     if (!(c >= DBL_MIN))
-        return mcdi_ws_fail(ws, MCD_EDOM,
-                            "argument %s: %g is not a normal positive number",
-                            name, c);
+        return mcdi_fail(MCD_EDOM,
+                         "argument %s: %g is not a normal positive number",
+                         name, c);
     return MCD_OK;
 }

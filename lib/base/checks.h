@@ -1,7 +1,7 @@
 /* checks.h - argument checks shared by every call that takes a workspace
  * (checks.c). Never installed.
  *
- * Each check sets the status and the message together (mcdi_ws_fail):
+ * Each check sets the status and the message together (mcdi_fail):
  * "argument <name>: <what>", with the entry's index. It writes nothing
  * else.
  */

@@ -176,7 +176,7 @@ void mcdi_comp_grad_w_to_x(size_t n, size_t n_dim, const double *M,
 /* public API                                                           */
 /* ------------------------------------------------------------------ */
 
-MCD_API mcd_status mcd_comp_normalize(size_t n, const double *y, double *out_y)
+mcd_status mcdi_api_comp_normalize(size_t n, const double *y, double *out_y)
 {
     mcd_status st;
     if (out_y == NULL)
@@ -205,8 +205,8 @@ static mcd_status check_M_y(size_t n, const double *M, const double *y,
     return mcdi_comp_check(n, y, NULL);
 }
 
-MCD_API mcd_status mcd_comp_x_to_w(size_t n, const double *M, const double *x,
-                                   double *out_w)
+mcd_status mcdi_api_comp_x_to_w(size_t n, const double *M, const double *x,
+                                double *out_w)
 {
     mcd_status st = check_M_y(n, M, x, out_w);
     if (st != MCD_OK)
@@ -215,8 +215,8 @@ MCD_API mcd_status mcd_comp_x_to_w(size_t n, const double *M, const double *x,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_comp_w_to_x(size_t n, const double *M, const double *w,
-                                   double *out_x)
+mcd_status mcdi_api_comp_w_to_x(size_t n, const double *M, const double *w,
+                                double *out_x)
 {
     mcd_status st = check_M_y(n, M, w, out_x);
     if (st != MCD_OK)
@@ -225,8 +225,8 @@ MCD_API mcd_status mcd_comp_w_to_x(size_t n, const double *M, const double *w,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_comp_mean_molar_mass_x(size_t n, const double *M,
-                                              const double *x, double *out_Mbar)
+mcd_status mcdi_api_comp_mean_molar_mass_x(size_t n, const double *M,
+                                           const double *x, double *out_Mbar)
 {
     mcd_status st = check_M_y(n, M, x, out_Mbar);
     if (st != MCD_OK)
@@ -235,8 +235,8 @@ MCD_API mcd_status mcd_comp_mean_molar_mass_x(size_t n, const double *M,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_comp_mean_molar_mass_w(size_t n, const double *M,
-                                              const double *w, double *out_Mbar)
+mcd_status mcdi_api_comp_mean_molar_mass_w(size_t n, const double *M,
+                                           const double *w, double *out_Mbar)
 {
     mcd_status st = check_M_y(n, M, w, out_Mbar);
     if (st != MCD_OK)
@@ -245,8 +245,8 @@ MCD_API mcd_status mcd_comp_mean_molar_mass_w(size_t n, const double *M,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_comp_x_to_c(size_t n, double c_total, const double *x,
-                                   double *out_c)
+mcd_status mcdi_api_comp_x_to_c(size_t n, double c_total, const double *x,
+                                double *out_c)
 {
     double s;
     mcd_status st;
@@ -265,8 +265,8 @@ MCD_API mcd_status mcd_comp_x_to_c(size_t n, double c_total, const double *x,
 
 /* Concentrations -> fractions: no sum condition, but each c_i >= 0 and the
  * total must be positive and finite (a sum that overflows is EDOM). */
-MCD_API mcd_status mcd_comp_c_to_x(size_t n, const double *c, double *out_x,
-                                   double *out_c_total)
+mcd_status mcdi_api_comp_c_to_x(size_t n, const double *c, double *out_x,
+                                double *out_c_total)
 {
     double s = 0.0;
     size_t i;
@@ -290,7 +290,7 @@ MCD_API mcd_status mcd_comp_c_to_x(size_t n, const double *c, double *out_x,
 }
 
 /* Ideal gas: c = P / (R T), R = MCD_GAS_CONSTANT (CODATA 2018, exact). */
-MCD_API mcd_status mcd_comp_ideal_gas_c(double T, double P, double *out_c)
+mcd_status mcdi_api_comp_ideal_gas_c(double T, double P, double *out_c)
 {
     double c;
     if (out_c == NULL || !mcdi_finite(T) || !mcdi_finite(P))
@@ -320,9 +320,9 @@ static mcd_status check_grad(size_t n, size_t n_dim, const double *M,
     return check_M_y(n, M, y, out);
 }
 
-MCD_API mcd_status mcd_comp_grad_x_to_w(size_t n, size_t n_dim, const double *M,
-                                        const double *x, const double *grad_x,
-                                        double *out_grad_w)
+mcd_status mcdi_api_comp_grad_x_to_w(size_t n, size_t n_dim, const double *M,
+                                     const double *x, const double *grad_x,
+                                     double *out_grad_w)
 {
     mcd_status st = check_grad(n, n_dim, M, x, grad_x, out_grad_w);
     if (st != MCD_OK)
@@ -331,9 +331,9 @@ MCD_API mcd_status mcd_comp_grad_x_to_w(size_t n, size_t n_dim, const double *M,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_comp_grad_w_to_x(size_t n, size_t n_dim, const double *M,
-                                        const double *w, const double *grad_w,
-                                        double *out_grad_x)
+mcd_status mcdi_api_comp_grad_w_to_x(size_t n, size_t n_dim, const double *M,
+                                     const double *w, const double *grad_w,
+                                     double *out_grad_x)
 {
     mcd_status st = check_grad(n, n_dim, M, w, grad_w, out_grad_x);
     if (st != MCD_OK)

@@ -8,13 +8,8 @@
 #include <math.h>
 #include "mcdiff.h"
 
-/* Write a formatted message into errbuf (if errbuf != NULL && errlen > 0),
- * always NUL-terminated. Never prints. Defined in status.c. */
-void mcdi_errbuf_set(char *errbuf, size_t errlen, const char *fmt, ...)
-#if defined(__GNUC__)
-    __attribute__((format(printf, 3, 4)))
-#endif
-    ;
+#include "base/api_impl.h"
+#include "base/error.h"
 
 /* 1 if v is finite (not NaN, not infinite). */
 static inline int mcdi_finite(double v) { return isfinite(v); }

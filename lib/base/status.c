@@ -21,16 +21,3 @@ MCD_API const char *mcd_status_string(int status)
     default: return "unknown status code";
     }
 }
-
-#include <stdio.h>
-#include "base/mcd_internal.h"
-
-void mcdi_errbuf_set(char *errbuf, size_t errlen, const char *fmt, ...)
-{
-    va_list ap;
-    if (errbuf == NULL || errlen == 0)
-        return;
-    va_start(ap, fmt);
-    vsnprintf(errbuf, errlen, fmt, ap);
-    va_end(ap);
-}

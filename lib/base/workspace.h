@@ -38,12 +38,9 @@
 #include <stddef.h>
 #include "mcdiff.h"
 
-#define MCDI_WS_ERRLEN 256
-
 struct mcd_workspace {
-    size_t cap;               /* species capacity, 1..MCD_MAX_SPECIES */
-    mcd_allocator al;         /* copy of the caller's allocator */
-    char err[MCDI_WS_ERRLEN]; /* last error detail, "" if none */
+    size_t cap;       /* species capacity, 1..MCD_MAX_SPECIES */
+    mcd_allocator al; /* copy of the caller's allocator */
 
     /* CORE bank (flux core only) */
     double *core_mem; /* flux/core_layout.h */
@@ -69,20 +66,6 @@ struct mcd_workspace {
     double iter_err; /* outcome of the last ITERATIVE call */
     size_t iter_used;
 };
-
-/* Write a printf-style detail message into ws->err (ws may be NULL) and
- * return `status` unchanged, so callers write
- *   return mcdi_ws_fail(ws, MCD_EDOM, "argument c: %g is not > 0", c); */
-mcd_status mcdi_ws_fail(mcd_workspace *ws, mcd_status status, const char *fmt,
-                        ...)
-#if defined(__GNUC__)
-    __attribute__((format(printf, 3, 4)))
-#endif
-    ;
-
-/* Clear the last-error message (call at the start of every public call that
- * takes a workspace). ws may be NULL. */
-void mcdi_ws_clear_error(mcd_workspace *ws);
 
 /* dgeev work array and its length (lwork for LAPACKE_dgeev_work). */
 double *mcdi_ws_geev_work(mcd_workspace *ws, size_t *out_lwork);

@@ -12,6 +12,7 @@
  */
 #include <float.h>
 #include <stdint.h>
+#include <stdio.h>
 #include <string.h>
 #ifdef _OPENMP
 #include <omp.h>
@@ -66,10 +67,10 @@ static mcd_status check_cell(mcd_workspace *ws, const mcdi_bjob *jb, size_t k)
             (st = mcdi_check_positive(ws, jb->P[k], "P")) != MCD_OK)
             return st;
         if (!(jb->P[k] / (MCD_GAS_CONSTANT * jb->T[k]) >= DBL_MIN))
-            return mcdi_ws_fail(ws, MCD_EDOM,
-                                "argument P: the concentration P / (R T) = %g "
-                                "is not a normal positive number",
-                                jb->P[k] / (MCD_GAS_CONSTANT * jb->T[k]));
+            return mcdi_fail(MCD_EDOM,
+                             "argument P: the concentration P / (R T) = %g "
+                             "is not a normal positive number",
+                             jb->P[k] / (MCD_GAS_CONSTANT * jb->T[k]));
     } else if ((st = mcdi_check_conc(ws, jb->c[k], "c")) != MCD_OK ||
                (st = mcdi_check_dij_strided(ws, n, jb->Dij + k, K)) != MCD_OK) {
         return st;
@@ -89,18 +90,18 @@ static mcd_status check_cell(mcd_workspace *ws, const mcdi_bjob *jb, size_t k)
 static mcd_status recheck_block(mcd_workspace *ws, const mcdi_bjob *jb,
                                 size_t k0, size_t nv, size_t shift)
 {
-    char msg[MCDI_WS_ERRLEN];
+    char msg[MCDI_ERRLEN];
     size_t k;
     for (k = k0; k < k0 + nv; k++) {
         mcd_status st = check_cell(ws, jb, k);
         if (st != MCD_OK) {
-            memcpy(msg, ws->err, sizeof msg);
+            memcpy(msg, mcdi_err_text(), sizeof msg);
             msg[sizeof msg - 1] = '\0';
-            return mcdi_ws_fail(ws, st, "cell %zu: %s", shift + k, msg);
+            return mcdi_fail(st, "cell %zu: %s", shift + k, msg);
         }
     }
-    return mcdi_ws_fail(ws, MCD_EINTERNAL,
-                        "cell %zu: internal: validation mismatch", shift + k0);
+    return mcdi_fail(MCD_EINTERNAL, "cell %zu: internal: validation mismatch",
+                     shift + k0);
 }
 
 /* Run the job over cells [0, K) with the workspace's scratch. */
@@ -192,7 +193,7 @@ static mcd_status run_job(mcd_workspace *ws, const mcdi_bjob *jb)
         return recheck_block(ws, jb, fail_cell,
                              K - fail_cell < L ? K - fail_cell : L, 0);
     if (fail_st != MCD_OK)
-        return mcdi_ws_fail(ws, fail_st, "cell %zu: %s", fail_cell, fail_what);
+        return mcdi_fail(fail_st, "cell %zu: %s", fail_cell, fail_what);
     return MCD_OK;
 }
 
@@ -260,22 +261,22 @@ static mcd_status mixture_job(mcd_workspace *ws, const mcd_mixture *mix,
     mcd_status st;
     size_t n;
     if (mix == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument mix: NULL");
+        return mcdi_fail(MCD_EINVAL, "argument mix: NULL");
     n = mix->n;
     if ((st = check_common(ws, model, n, n_cells, n_dim, comp_basis, comp, grad,
                            flux_basis, out_flux)) != MCD_OK)
         return st;
     if (T == NULL || P == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL",
-                            T == NULL ? "T" : "P");
-    if ((st = mcdi_mixture_ready(mix)) != MCD_OK)
-        return mcdi_ws_fail(ws, st,
-                            "argument mix: a pair's method lacks a "
-                            "parameter");
+        return mcdi_fail(MCD_EINVAL, "argument %s: NULL",
+                         T == NULL ? "T" : "P");
+    if ((st = mcdi_mixture_ready(mix)) != MCD_OK) {
+        char why[MCDI_ERRLEN]; /* names the pair and what it lacks */
+        snprintf(why, sizeof why, "%s", mcdi_err_text());
+        return mcdi_fail(st, "argument mix: %s", why);
+    }
     if (!mix->M_ok)
-        return mcdi_ws_fail(ws, MCD_ENODATA,
-                            "argument mix: a molar mass is "
-                            "unknown");
+        return mcdi_fail(MCD_ENODATA, "argument mix: a molar mass is "
+                                      "unknown");
     job_init(jb, ws, model, n, aos ? mcdi_batch_lanes(n) : n_cells, n_dim,
              comp_basis, flux_basis);
     jb->mix = mix;
@@ -285,10 +286,10 @@ static mcd_status mixture_job(mcd_workspace *ws, const mcd_mixture *mix,
                 ? mix->M
                 : NULL;
     if (jb->M != NULL && !mcdi_M_span_ok(n, jb->M))
-        return mcdi_ws_fail(ws, MCD_EDOM,
-                            "argument mix: the molar masses span more than a "
-                            "factor 1e12 (the basis conversions would lose "
-                            "all precision)");
+        return mcdi_fail(MCD_EDOM,
+                         "argument mix: the molar masses span more than a "
+                         "factor 1e12 (the basis conversions would lose "
+                         "all precision)");
     jb->T = T;
     jb->P = P;
     jb->comp = comp;
@@ -298,18 +299,17 @@ static mcd_status mixture_job(mcd_workspace *ws, const mcd_mixture *mix,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_flux_batch(mcd_workspace *ws, const mcd_mixture *mix,
-                                  mcd_model model, size_t n_cells, size_t n_dim,
-                                  const double *T, const double *P,
-                                  mcd_basis comp_basis, const double *comp,
-                                  const double *grad, const double *grad_lnP,
-                                  mcd_basis flux_basis, double *out_flux)
+mcd_status mcdi_api_flux_batch(mcd_workspace *ws, const mcd_mixture *mix,
+                               mcd_model model, size_t n_cells, size_t n_dim,
+                               const double *T, const double *P,
+                               mcd_basis comp_basis, const double *comp,
+                               const double *grad, const double *grad_lnP,
+                               mcd_basis flux_basis, double *out_flux)
 {
     mcdi_bjob jb;
     mcd_status st;
     if (ws == NULL)
         return MCD_EINVAL;
-    mcdi_ws_clear_error(ws);
     if ((st = mixture_job(ws, mix, model, n_cells, n_dim, T, P, comp_basis,
                           comp, grad, grad_lnP, flux_basis, out_flux, 0,
                           &jb)) != MCD_OK)
@@ -320,25 +320,26 @@ MCD_API mcd_status mcd_flux_batch(mcd_workspace *ws, const mcd_mixture *mix,
     return run_job(ws, &jb);
 }
 
-MCD_API mcd_status mcd_flux_batch_dij(
-    mcd_workspace *ws, mcd_model model, size_t n_species, size_t n_cells,
-    size_t n_dim, const double *M, const double *Dij, const double *c,
-    mcd_basis comp_basis, const double *comp, const double *grad,
-    const double *grad_lnP, mcd_basis flux_basis, double *out_flux)
+mcd_status mcdi_api_flux_batch_dij(mcd_workspace *ws, mcd_model model,
+                                   size_t n_species, size_t n_cells,
+                                   size_t n_dim, const double *M,
+                                   const double *Dij, const double *c,
+                                   mcd_basis comp_basis, const double *comp,
+                                   const double *grad, const double *grad_lnP,
+                                   mcd_basis flux_basis, double *out_flux)
 {
     mcdi_bjob jb;
     mcd_status st;
     int need_M;
     if (ws == NULL)
         return MCD_EINVAL;
-    mcdi_ws_clear_error(ws);
     if ((st = check_common(ws, model, n_species, n_cells, n_dim, comp_basis,
                            comp, grad, flux_basis, out_flux)) != MCD_OK)
         return st;
     if (Dij == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument Dij: NULL");
+        return mcdi_fail(MCD_EINVAL, "argument Dij: NULL");
     if (c == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument c: NULL");
+        return mcdi_fail(MCD_EINVAL, "argument c: NULL");
     need_M = comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
              grad_lnP != NULL;
     if (need_M && (st = mcdi_check_M(ws, n_species, M)) != MCD_OK)
@@ -360,13 +361,13 @@ MCD_API mcd_status mcd_flux_batch_dij(
 /* AoS: each block of L cells is transposed into SoA staging that follows
  * the kernel's scratch in the thread's region, computed with stride L,
  * and transposed back. Serial (the staging is per workspace thread 0). */
-MCD_API mcd_status mcd_flux_batch_aos(mcd_workspace *ws, const mcd_mixture *mix,
-                                      mcd_model model, size_t n_cells,
-                                      size_t n_dim, const double *T,
-                                      const double *P, mcd_basis comp_basis,
-                                      const double *comp, const double *grad,
-                                      const double *grad_lnP,
-                                      mcd_basis flux_basis, double *out_flux)
+mcd_status mcdi_api_flux_batch_aos(mcd_workspace *ws, const mcd_mixture *mix,
+                                   mcd_model model, size_t n_cells,
+                                   size_t n_dim, const double *T,
+                                   const double *P, mcd_basis comp_basis,
+                                   const double *comp, const double *grad,
+                                   const double *grad_lnP, mcd_basis flux_basis,
+                                   double *out_flux)
 {
     mcdi_bjob jb;
     mcd_status st;
@@ -375,7 +376,6 @@ MCD_API mcd_status mcd_flux_batch_aos(mcd_workspace *ws, const mcd_mixture *mix,
     double iter_err = 0.0;
     if (ws == NULL)
         return MCD_EINVAL;
-    mcdi_ws_clear_error(ws);
     if ((st = mixture_job(ws, mix, model, n_cells, n_dim, T, P, comp_basis,
                           comp, grad, grad_lnP, flux_basis, out_flux, 1,
                           &jb)) != MCD_OK)
@@ -424,8 +424,7 @@ MCD_API mcd_status mcd_flux_batch_aos(mcd_workspace *ws, const mcd_mixture *mix,
             }
             if (res.recheck)
                 return recheck_block(ws, &jb, 0, nv, k0);
-            return mcdi_ws_fail(ws, res.st, "cell %zu: %s", k0 + res.lane,
-                                res.what);
+            return mcdi_fail(res.st, "cell %zu: %s", k0 + res.lane, res.what);
         }
         if (res.iter_err > iter_err || res.iter_err != res.iter_err)
             iter_err = res.iter_err;
@@ -442,27 +441,24 @@ MCD_API mcd_status mcd_flux_batch_aos(mcd_workspace *ws, const mcd_mixture *mix,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_workspace_set_iterative(mcd_workspace *ws,
-                                               size_t max_iter, double tol)
+mcd_status mcdi_api_workspace_set_iterative(mcd_workspace *ws, size_t max_iter,
+                                            double tol)
 {
     if (ws == NULL)
         return MCD_EINVAL;
-    mcdi_ws_clear_error(ws);
     if (max_iter < 1 || max_iter > 1000)
-        return mcdi_ws_fail(ws, MCD_EINVAL,
-                            "argument max_iter: %zu is not in 1..1000",
-                            max_iter);
+        return mcdi_fail(MCD_EINVAL, "argument max_iter: %zu is not in 1..1000",
+                         max_iter);
     if (!mcdi_finite(tol) || !(tol >= 0.0))
-        return mcdi_ws_fail(ws, MCD_EINVAL,
-                            "argument tol: not a finite value >= 0");
+        return mcdi_fail(MCD_EINVAL, "argument tol: not a finite value >= 0");
     ws->iter_max = max_iter;
     ws->iter_tol = tol;
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_workspace_iterative_outcome(const mcd_workspace *ws,
-                                                   double *out_max_error,
-                                                   size_t *out_max_iter)
+mcd_status mcdi_api_workspace_iterative_outcome(const mcd_workspace *ws,
+                                                double *out_max_error,
+                                                size_t *out_max_iter)
 {
     if (ws == NULL)
         return MCD_EINVAL;
@@ -473,8 +469,7 @@ MCD_API mcd_status mcd_workspace_iterative_outcome(const mcd_workspace *ws,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_workspace_set_threads(mcd_workspace *ws,
-                                             size_t n_threads)
+mcd_status mcdi_api_workspace_set_threads(mcd_workspace *ws, size_t n_threads)
 {
     if (ws == NULL)
         return MCD_EINVAL;

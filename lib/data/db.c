@@ -64,13 +64,11 @@ int mcdi_ieq(const char *a, const char *b)
     return *a == *b;
 }
 
-mcd_status mcdi_db_check_name(const char *name, char *errbuf, size_t errlen)
+mcd_status mcdi_db_check_name(const char *name)
 {
     size_t i, len = strlen(name);
     if (len == 0 || len > MCDI_NAME_MAX) {
-        mcdi_errbuf_set(errbuf, errlen,
-                        "species name must have 1 to %d characters",
-                        MCDI_NAME_MAX);
+        mcdi_note("species name must have 1 to %d characters", MCDI_NAME_MAX);
         return MCD_EPARSE;
     }
     for (i = 0; i < len; ++i) {
@@ -78,22 +76,19 @@ mcd_status mcdi_db_check_name(const char *name, char *errbuf, size_t errlen)
         int alnum = (c >= 'A' && c <= 'Z') || (c >= 'a' && c <= 'z') ||
                     (c >= '0' && c <= '9');
         if (i == 0 && !alnum) {
-            mcdi_errbuf_set(errbuf, errlen,
-                            "species name must start with a letter or digit");
+            mcdi_note("species name must start with a letter or digit");
             return MCD_EPARSE;
         }
         if (!alnum && strchr("_+-,()'", c) == NULL) {
             unsigned char u = (unsigned char)c;
             if (u >= 0x21 && u < 0x7f)
-                mcdi_errbuf_set(errbuf, errlen,
-                                "species name: character %zu '%c' not "
-                                "allowed",
-                                i + 1, c);
+                mcdi_note("species name: character %zu '%c' not "
+                          "allowed",
+                          i + 1, c);
             else
-                mcdi_errbuf_set(errbuf, errlen,
-                                "species name: character %zu (byte 0x%02x) "
-                                "not allowed",
-                                i + 1, (unsigned)u);
+                mcdi_note("species name: character %zu (byte 0x%02x) "
+                          "not allowed",
+                          i + 1, (unsigned)u);
             return MCD_EPARSE;
         }
     }
@@ -130,8 +125,7 @@ mcd_status mcdi_db_reserve(mcd_db *db, size_t need)
 }
 
 mcd_status mcdi_species_from_formula(const char *name, const char *formula,
-                                     int n_rings, mcdi_species *out,
-                                     char *errbuf, size_t errlen)
+                                     int n_rings, mcdi_species *out)
 {
     mcdi_species s;
     mcdi_formula f;
@@ -139,16 +133,15 @@ mcd_status mcdi_species_from_formula(const char *name, const char *formula,
     double V;
     int k;
     size_t flen;
-    if ((st = mcdi_db_check_name(name, errbuf, errlen)) != MCD_OK)
+    if ((st = mcdi_db_check_name(name)) != MCD_OK)
         return st;
     if (n_rings < 0) {
-        mcdi_errbuf_set(errbuf, errlen, "n_rings = %d is negative", n_rings);
+        mcdi_note("n_rings = %d is negative", n_rings);
         return MCD_EINVAL;
     }
     flen = strlen(formula);
     if (flen > MCDI_FORMULA_TEXT_MAX) {
-        mcdi_errbuf_set(errbuf, errlen, "formula longer than %d characters",
-                        MCDI_FORMULA_TEXT_MAX);
+        mcdi_note("formula longer than %d characters", MCDI_FORMULA_TEXT_MAX);
         return MCD_EPARSE;
     }
     memset(&s, 0, sizeof s);
@@ -163,8 +156,7 @@ mcd_status mcdi_species_from_formula(const char *name, const char *formula,
     if (mcdi_ieq(formula, "air") || strcmp(formula, "D2") == 0) {
         int air = formula[0] != 'D';
         if (n_rings != 0) {
-            mcdi_errbuf_set(errbuf, errlen, "n_rings must be 0 for '%s'",
-                            formula);
+            mcdi_note("n_rings must be 0 for '%s'", formula);
             return MCD_EINVAL;
         }
         s.p[MCD_PARAM_MOLAR_MASS] = air ? M_AIR : M_D2;
@@ -175,32 +167,31 @@ mcd_status mcdi_species_from_formula(const char *name, const char *formula,
         *out = s;
         return MCD_OK;
     }
-    if ((st = mcdi_formula_parse(formula, &f, errbuf, errlen)) != MCD_OK)
+    if ((st = mcdi_formula_parse(formula, &f)) != MCD_OK)
         return st;
-    if ((st = mcdi_formula_mass(&f, &s.p[MCD_PARAM_MOLAR_MASS], errbuf,
-                                errlen)) != MCD_OK)
+    if ((st = mcdi_formula_mass(&f, &s.p[MCD_PARAM_MOLAR_MASS])) != MCD_OK)
         return st;
     s.src[MCD_PARAM_MOLAR_MASS] = SRC_M_FORMULA;
     if (mcdi_fsg_lookup(formula, &f, &V)) {
         if (n_rings != 0) {
-            mcdi_errbuf_set(errbuf, errlen,
-                            "n_rings must be 0 for the tabulated molecule "
-                            "'%s'",
-                            formula);
+            mcdi_note("n_rings must be 0 for the tabulated molecule "
+                      "'%s'",
+                      formula);
             return MCD_EINVAL;
         }
         s.p[MCD_PARAM_DIFF_VOLUME] = V;
         s.src[MCD_PARAM_DIFF_VOLUME] = SRC_V_TAB;
     } else {
-        st = mcdi_formula_fsg_volume(&f, n_rings, &V, NULL, 0);
+        st = mcdi_formula_fsg_volume(&f, n_rings, &V);
         if (st == MCD_OK) {
             s.p[MCD_PARAM_DIFF_VOLUME] = V;
             s.src[MCD_PARAM_DIFF_VOLUME] = SRC_V_INC;
         } else if (st != MCD_ENODATA) {
             /* non-positive sum: too many rings for the formula */
-            return mcdi_formula_fsg_volume(&f, n_rings, &V, errbuf, errlen);
+            return mcdi_formula_fsg_volume(&f, n_rings, &V);
         }
         /* ENODATA: an element without increment; V stays unknown. */
+        mcdi_err_clear();
     }
     *out = s;
     return MCD_OK;
@@ -231,7 +222,7 @@ mcd_status mcdi_param_check(mcd_param p, double value)
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_db_new(mcd_db **out_db)
+mcd_status mcdi_api_db_new(mcd_db **out_db)
 {
     mcd_db *db;
     if (out_db == NULL)
@@ -243,14 +234,14 @@ MCD_API mcd_status mcd_db_new(mcd_db **out_db)
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_db_new_builtin(mcd_db **out_db)
+mcd_status mcdi_api_db_new_builtin(mcd_db **out_db)
 {
     mcd_db *db = NULL;
     mcd_status st;
     size_t i, n = mcdi_builtin_count();
     if (out_db == NULL)
         return MCD_EINVAL;
-    if ((st = mcd_db_new(&db)) != MCD_OK)
+    if ((st = mcdi_api_db_new(&db)) != MCD_OK)
         return st;
     if ((st = mcdi_db_reserve(db, n)) != MCD_OK)
         goto fail;
@@ -274,8 +265,8 @@ MCD_API void mcd_db_free(mcd_db *db)
 
 MCD_API size_t mcd_db_species_count(const mcd_db *db) { return db ? db->n : 0; }
 
-MCD_API mcd_status mcd_db_find(const mcd_db *db, const char *name,
-                               size_t *out_index)
+mcd_status mcdi_api_db_find(const mcd_db *db, const char *name,
+                            size_t *out_index)
 {
     size_t i, hit = (size_t)-1, hits = 0;
     if (db == NULL || name == NULL || out_index == NULL)
@@ -318,8 +309,8 @@ MCD_API const char *mcd_db_source(const mcd_db *db, size_t i, mcd_param p)
     return db->sp[i].src[p];
 }
 
-MCD_API mcd_status mcd_db_param(const mcd_db *db, size_t i, mcd_param p,
-                                double *out_value)
+mcd_status mcdi_api_db_param(const mcd_db *db, size_t i, mcd_param p,
+                             double *out_value)
 {
     double v;
     if (db == NULL || out_value == NULL || i >= db->n || (int)p < 0 ||
@@ -327,28 +318,28 @@ MCD_API mcd_status mcd_db_param(const mcd_db *db, size_t i, mcd_param p,
         return MCD_EINVAL;
     v = db->sp[i].p[p];
     if (isnan(v))
-        return MCD_ENODATA;
+        return mcdi_fail(MCD_ENODATA, "species '%s' has no %s (%s)",
+                         db->sp[i].name, mcd_param_name(p), mcd_param_unit(p));
     *out_value = v;
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_db_add(mcd_db *db, const char *name, const char *formula,
-                              int n_rings, size_t *out_index, char *errbuf,
-                              size_t errlen)
+mcd_status mcdi_api_db_add(mcd_db *db, const char *name, const char *formula,
+                           int n_rings, size_t *out_index)
 {
     mcdi_species s;
     mcd_status st;
     size_t i;
     if (db == NULL || name == NULL || formula == NULL) {
-        mcdi_errbuf_set(errbuf, errlen, "NULL argument");
+        mcdi_note("NULL argument");
         return MCD_EINVAL;
     }
-    st = mcdi_species_from_formula(name, formula, n_rings, &s, errbuf, errlen);
+    st = mcdi_species_from_formula(name, formula, n_rings, &s);
     if (st != MCD_OK)
         return st;
     if (mcdi_db_index_of(db, name) == (size_t)-1 &&
         (st = mcdi_db_reserve(db, db->n + 1)) != MCD_OK) {
-        mcdi_errbuf_set(errbuf, errlen, "out of memory");
+        mcdi_note("out of memory");
         return st;
     }
     i = mcdi_db_put(db, &s);
@@ -357,8 +348,8 @@ MCD_API mcd_status mcd_db_add(mcd_db *db, const char *name, const char *formula,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_db_set_param(mcd_db *db, size_t i, mcd_param p,
-                                    double value)
+mcd_status mcdi_api_db_set_param(mcd_db *db, size_t i, mcd_param p,
+                                 double value)
 {
     mcd_status st;
     if (db == NULL || i >= db->n)

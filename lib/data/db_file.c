@@ -91,8 +91,6 @@ typedef struct loader {
     mcd_db tmp;       /* working copy */
     size_t *def_line; /* per tmp index: line defining it in this text */
     size_t def_cap;
-    char *errbuf;
-    size_t errlen;
 } loader;
 
 static int tok_eq(token t, const char *s)
@@ -122,7 +120,7 @@ static mcd_status fail(loader *L, mcd_status st, size_t line, const char *fmt,
     va_start(ap, fmt);
     vsnprintf(msg, sizeof msg, fmt, ap);
     va_end(ap);
-    mcdi_errbuf_set(L->errbuf, L->errlen, "line %zu: %s", line, msg);
+    mcdi_note("line %zu: %s", line, msg);
     return st;
 }
 
@@ -195,8 +193,9 @@ static mcd_status close_block(loader *L, block *b)
     if (b->formula_line == 0)
         return fail(L, MCD_EPARSE, b->line, "species '%s' has no formula",
                     b->name);
-    st = mcdi_species_from_formula(b->name, b->formula, b->rings, &s, msg,
-                                   sizeof msg);
+    st = mcdi_species_from_formula(b->name, b->formula, b->rings, &s);
+    if (st != MCD_OK) /* the detail it wrote goes into this file's message */
+        snprintf(msg, sizeof msg, "%s", mcdi_err_text());
     if (st == MCD_EINVAL) /* n_rings not allowed for this formula */
         return fail(L, MCD_EPARSE,
                     b->rings_line ? b->rings_line : b->formula_line,
@@ -239,8 +238,10 @@ static mcd_status start_block(loader *L, block *b, size_t line, const token *t,
     memset(b, 0, sizeof *b);
     memcpy(b->name, t[1].s, t[1].len);
     b->name[t[1].len] = '\0';
-    if (mcdi_db_check_name(b->name, msg, sizeof msg) != MCD_OK)
+    if (mcdi_db_check_name(b->name) != MCD_OK) {
+        snprintf(msg, sizeof msg, "%s", mcdi_err_text());
         return fail(L, MCD_EPARSE, line, "%s", msg);
+    }
     i = mcdi_db_index_of(&L->tmp, b->name);
     if (i != (size_t)-1 && i < L->def_cap && L->def_line[i] != 0)
         return fail(L, MCD_EPARSE, line,
@@ -376,8 +377,7 @@ static mcd_status key_line(loader *L, block *b, size_t line, const token *t,
 }
 
 /* Read text of length len (may contain NUL bytes: reported as errors). */
-static mcd_status load_text(mcd_db *db, const char *text, size_t len,
-                            char *errbuf, size_t errlen)
+static mcd_status load_text(mcd_db *db, const char *text, size_t len)
 {
     loader L;
     block b;
@@ -387,12 +387,10 @@ static mcd_status load_text(mcd_db *db, const char *text, size_t len,
 
     memset(&L, 0, sizeof L);
     memset(&b, 0, sizeof b);
-    L.errbuf = errbuf;
-    L.errlen = errlen;
     /* Working copy of the database. */
     if (db->n > 0) {
         if (mcdi_db_reserve(&L.tmp, db->n) != MCD_OK) {
-            mcdi_errbuf_set(errbuf, errlen, "out of memory");
+            mcdi_note("out of memory");
             return MCD_ENOMEM;
         }
         memcpy(L.tmp.sp, db->sp, db->n * sizeof *db->sp);
@@ -482,30 +480,28 @@ static mcd_status load_text(mcd_db *db, const char *text, size_t len,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_db_load_string(mcd_db *db, const char *text,
-                                      char *errbuf, size_t errlen)
+mcd_status mcdi_api_db_load_string(mcd_db *db, const char *text)
 {
     if (db == NULL || text == NULL) {
-        mcdi_errbuf_set(errbuf, errlen, "NULL argument");
+        mcdi_note("NULL argument");
         return MCD_EINVAL;
     }
-    return load_text(db, text, strlen(text), errbuf, errlen);
+    return load_text(db, text, strlen(text));
 }
 
-MCD_API mcd_status mcd_db_load_file(mcd_db *db, const char *path, char *errbuf,
-                                    size_t errlen)
+mcd_status mcdi_api_db_load_file(mcd_db *db, const char *path)
 {
     FILE *f;
     char *buf = NULL, *p;
     size_t len = 0, cap = 0, got;
     mcd_status st;
     if (db == NULL || path == NULL) {
-        mcdi_errbuf_set(errbuf, errlen, "NULL argument");
+        mcdi_note("NULL argument");
         return MCD_EINVAL;
     }
     f = fopen(path, "rb");
     if (f == NULL) {
-        mcdi_errbuf_set(errbuf, errlen, "cannot open '%s'", path);
+        mcdi_note("cannot open '%s'", path);
         return MCD_EIO;
     }
     for (;;) {
@@ -517,7 +513,7 @@ MCD_API mcd_status mcd_db_load_file(mcd_db *db, const char *path, char *errbuf,
             }
             p = realloc(buf, ncap);
             if (p == NULL) {
-                mcdi_errbuf_set(errbuf, errlen, "out of memory");
+                mcdi_note("out of memory");
                 st = MCD_ENOMEM;
                 goto out;
             }
@@ -528,14 +524,14 @@ MCD_API mcd_status mcd_db_load_file(mcd_db *db, const char *path, char *errbuf,
         len += got;
         if (got == 0) {
             if (ferror(f)) {
-                mcdi_errbuf_set(errbuf, errlen, "cannot read '%s'", path);
+                mcdi_note("cannot read '%s'", path);
                 st = MCD_EIO;
                 goto out;
             }
             break;
         }
     }
-    st = load_text(db, buf, len, errbuf, errlen);
+    st = load_text(db, buf, len);
 out:
     free(buf);
     fclose(f);

@@ -153,7 +153,7 @@ MCD_API const char *mcd_element_symbol(int Z)
     return symbols[Z];
 }
 
-MCD_API mcd_status mcd_element_weight(int Z, double *out_kg_per_mol)
+mcd_status mcdi_api_element_weight(int Z, double *out_kg_per_mol)
 {
     if (out_kg_per_mol == NULL)
         return MCD_EINVAL;

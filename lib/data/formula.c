@@ -27,8 +27,6 @@
 typedef struct parser {
     const char *s;
     size_t pos; /* 0-based index of the next character */
-    char *errbuf;
-    size_t errlen;
 } parser;
 
 static int is_upper(char c) { return c >= 'A' && c <= 'Z'; }
@@ -55,10 +53,9 @@ static mcd_status add_atoms(parser *p, size_t at, mcdi_formula *f, int Z,
     for (i = 0; i < f->n; ++i) {
         if (f->Z[i] == Z) {
             if (count > MCDI_FORMULA_MAX_COUNT - f->count[i]) {
-                mcdi_errbuf_set(p->errbuf, p->errlen,
-                                "position %zu: atom count of '%s' exceeds %ld",
-                                at + 1, mcd_element_symbol(Z),
-                                MCDI_FORMULA_MAX_COUNT);
+                mcdi_note("position %zu: atom count of '%s' exceeds %ld",
+                          at + 1, mcd_element_symbol(Z),
+                          MCDI_FORMULA_MAX_COUNT);
                 return MCD_EPARSE;
             }
             f->count[i] += count;
@@ -82,18 +79,16 @@ static mcd_status read_count(parser *p, long *out)
         return MCD_OK;
     }
     if (p->s[p->pos] == '0') {
-        mcdi_errbuf_set(p->errbuf, p->errlen,
-                        "position %zu: count must be a positive integer "
-                        "without leading zeros",
-                        start + 1);
+        mcdi_note("position %zu: count must be a positive integer "
+                  "without leading zeros",
+                  start + 1);
         return MCD_EPARSE;
     }
     while (is_digit(p->s[p->pos])) {
         int d = p->s[p->pos] - '0';
         if (v > (MCDI_FORMULA_MAX_COUNT - d) / 10) {
-            mcdi_errbuf_set(p->errbuf, p->errlen,
-                            "position %zu: count exceeds %ld", start + 1,
-                            MCDI_FORMULA_MAX_COUNT);
+            mcdi_note("position %zu: count exceeds %ld", start + 1,
+                      MCDI_FORMULA_MAX_COUNT);
             return MCD_EPARSE;
         }
         v = v * 10 + d;
@@ -117,9 +112,8 @@ static mcd_status parse_seq(parser *p, int depth, mcdi_formula *acc)
             int Z = mcdi_element_lookup(p->s + p->pos, len);
             long n;
             if (Z == 0) {
-                mcdi_errbuf_set(p->errbuf, p->errlen,
-                                "position %zu: unknown element '%.*s'", at + 1,
-                                (int)len, p->s + p->pos);
+                mcdi_note("position %zu: unknown element '%.*s'", at + 1,
+                          (int)len, p->s + p->pos);
                 return MCD_ENOTFOUND;
             }
             p->pos += len;
@@ -132,9 +126,8 @@ static mcd_status parse_seq(parser *p, int depth, mcdi_formula *acc)
             long n;
             size_t i;
             if (depth >= MCDI_FORMULA_MAX_DEPTH) {
-                mcdi_errbuf_set(p->errbuf, p->errlen,
-                                "position %zu: groups nested deeper than %d",
-                                at + 1, MCDI_FORMULA_MAX_DEPTH);
+                mcdi_note("position %zu: groups nested deeper than %d", at + 1,
+                          MCDI_FORMULA_MAX_DEPTH);
                 return MCD_EPARSE;
             }
             p->pos++;
@@ -142,15 +135,13 @@ static mcd_status parse_seq(parser *p, int depth, mcdi_formula *acc)
             if ((st = parse_seq(p, depth + 1, &sub)) != MCD_OK)
                 return st;
             if (p->s[p->pos] != ')') {
-                mcdi_errbuf_set(p->errbuf, p->errlen,
-                                "position %zu: expected ')' to close the '(' "
-                                "at position %zu",
-                                p->pos + 1, at + 1);
+                mcdi_note("position %zu: expected ')' to close the '(' "
+                          "at position %zu",
+                          p->pos + 1, at + 1);
                 return MCD_EPARSE;
             }
             if (sub.n == 0) {
-                mcdi_errbuf_set(p->errbuf, p->errlen,
-                                "position %zu: empty group '()'", at + 1);
+                mcdi_note("position %zu: empty group '()'", at + 1);
                 return MCD_EPARSE;
             }
             p->pos++;
@@ -158,11 +149,10 @@ static mcd_status parse_seq(parser *p, int depth, mcdi_formula *acc)
                 return st;
             for (i = 0; i < sub.n; ++i) {
                 if (sub.count[i] > MCDI_FORMULA_MAX_COUNT / n) {
-                    mcdi_errbuf_set(p->errbuf, p->errlen,
-                                    "position %zu: atom count of '%s' exceeds "
-                                    "%ld",
-                                    at + 1, mcd_element_symbol(sub.Z[i]),
-                                    MCDI_FORMULA_MAX_COUNT);
+                    mcdi_note("position %zu: atom count of '%s' exceeds "
+                              "%ld",
+                              at + 1, mcd_element_symbol(sub.Z[i]),
+                              MCDI_FORMULA_MAX_COUNT);
                     return MCD_EPARSE;
                 }
                 if ((st = add_atoms(p, at, acc, sub.Z[i], sub.count[i] * n)) !=
@@ -173,61 +163,53 @@ static mcd_status parse_seq(parser *p, int depth, mcdi_formula *acc)
             char d[24];
             describe_char(c, d, sizeof d);
             if (is_digit(c))
-                mcdi_errbuf_set(p->errbuf, p->errlen,
-                                "position %zu: count %s without an element or "
-                                "group before it",
-                                at + 1, d);
+                mcdi_note("position %zu: count %s without an element or "
+                          "group before it",
+                          at + 1, d);
             else
-                mcdi_errbuf_set(p->errbuf, p->errlen,
-                                "position %zu: unexpected %s, expected an "
-                                "element symbol or '('",
-                                at + 1, d);
+                mcdi_note("position %zu: unexpected %s, expected an "
+                          "element symbol or '('",
+                          at + 1, d);
             return MCD_EPARSE;
         }
     }
 }
 
-mcd_status mcdi_formula_parse(const char *formula, mcdi_formula *out,
-                              char *errbuf, size_t errlen)
+mcd_status mcdi_formula_parse(const char *formula, mcdi_formula *out)
 {
     parser p;
     mcdi_formula f;
     mcd_status st;
     if (formula == NULL || out == NULL) {
-        mcdi_errbuf_set(errbuf, errlen, "formula is NULL");
+        mcdi_note("formula is NULL");
         return MCD_EINVAL;
     }
     if (formula[0] == '\0') {
-        mcdi_errbuf_set(errbuf, errlen, "position 1: empty formula");
+        mcdi_note("position 1: empty formula");
         return MCD_EPARSE;
     }
     p.s = formula;
     p.pos = 0;
-    p.errbuf = errbuf;
-    p.errlen = errlen;
     f.n = 0;
     if ((st = parse_seq(&p, 0, &f)) != MCD_OK)
         return st;
     if (formula[p.pos] == ')') {
-        mcdi_errbuf_set(errbuf, errlen, "position %zu: unbalanced ')'",
-                        p.pos + 1);
+        mcdi_note("position %zu: unbalanced ')'", p.pos + 1);
         return MCD_EPARSE;
     }
     *out = f;
     return MCD_OK;
 }
 
-mcd_status mcdi_formula_mass(const mcdi_formula *f, double *out_M, char *errbuf,
-                             size_t errlen)
+mcd_status mcdi_formula_mass(const mcdi_formula *f, double *out_M)
 {
     double M = 0.0;
     size_t i;
     for (i = 0; i < f->n; ++i) {
         double A = mcdi_element_weight_g(f->Z[i]);
         if (!(A > 0.0)) {
-            mcdi_errbuf_set(errbuf, errlen,
-                            "element '%s' has no standard atomic weight",
-                            mcd_element_symbol(f->Z[i]));
+            mcdi_note("element '%s' has no standard atomic weight",
+                      mcd_element_symbol(f->Z[i]));
             return MCD_ENOTFOUND;
         }
         M += (double)f->count[i] * A;
@@ -237,31 +219,29 @@ mcd_status mcdi_formula_mass(const mcdi_formula *f, double *out_M, char *errbuf,
 }
 
 mcd_status mcdi_formula_fsg_volume(const mcdi_formula *f, int n_rings,
-                                   double *out_V, char *errbuf, size_t errlen)
+                                   double *out_V)
 {
     double V = 0.0;
     size_t i;
     if (n_rings < 0) {
-        mcdi_errbuf_set(errbuf, errlen, "n_rings = %d is negative", n_rings);
+        mcdi_note("n_rings = %d is negative", n_rings);
         return MCD_EINVAL;
     }
     for (i = 0; i < f->n; ++i) {
         double v = mcdi_fsg_atomic_increment(f->Z[i]);
         if (!(v > 0.0)) {
-            mcdi_errbuf_set(errbuf, errlen,
-                            "element '%s' has no Fuller-Ensley-Giddings "
-                            "volume increment",
-                            mcd_element_symbol(f->Z[i]));
+            mcdi_note("element '%s' has no Fuller-Ensley-Giddings "
+                      "volume increment",
+                      mcd_element_symbol(f->Z[i]));
             return MCD_ENODATA;
         }
         V += (double)f->count[i] * v;
     }
     V += (double)n_rings * mcdi_fsg_ring_increment();
     if (!(V > 0.0)) {
-        mcdi_errbuf_set(errbuf, errlen,
-                        "n_rings = %d leaves a non-positive diffusion volume "
-                        "(%g)",
-                        n_rings, V);
+        mcdi_note("n_rings = %d leaves a non-positive diffusion volume "
+                  "(%g)",
+                  n_rings, V);
         return MCD_EINVAL;
     }
     *out_V = V;
@@ -287,43 +267,39 @@ int mcdi_formula_same(const mcdi_formula *a, const mcdi_formula *b)
     return 1;
 }
 
-MCD_API mcd_status mcd_formula_molar_mass(const char *formula, double *out_M,
-                                          char *errbuf, size_t errlen)
+mcd_status mcdi_api_formula_molar_mass(const char *formula, double *out_M)
 {
     mcdi_formula f;
     double M;
     mcd_status st;
     if (formula == NULL || out_M == NULL) {
-        mcdi_errbuf_set(errbuf, errlen, "NULL argument");
+        mcdi_note("NULL argument");
         return MCD_EINVAL;
     }
-    if ((st = mcdi_formula_parse(formula, &f, errbuf, errlen)) != MCD_OK)
+    if ((st = mcdi_formula_parse(formula, &f)) != MCD_OK)
         return st;
-    if ((st = mcdi_formula_mass(&f, &M, errbuf, errlen)) != MCD_OK)
+    if ((st = mcdi_formula_mass(&f, &M)) != MCD_OK)
         return st;
     *out_M = M;
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_formula_elements(const char *formula, size_t cap,
-                                        int *out_Z, long *out_count,
-                                        size_t *out_n, char *errbuf,
-                                        size_t errlen)
+mcd_status mcdi_api_formula_elements(const char *formula, size_t cap,
+                                     int *out_Z, long *out_count, size_t *out_n)
 {
     mcdi_formula f;
     mcd_status st;
     size_t i;
     if (formula == NULL || out_Z == NULL || out_count == NULL ||
         out_n == NULL) {
-        mcdi_errbuf_set(errbuf, errlen, "NULL argument");
+        mcdi_note("NULL argument");
         return MCD_EINVAL;
     }
-    if ((st = mcdi_formula_parse(formula, &f, errbuf, errlen)) != MCD_OK)
+    if ((st = mcdi_formula_parse(formula, &f)) != MCD_OK)
         return st;
     if (f.n > cap) {
-        mcdi_errbuf_set(errbuf, errlen,
-                        "formula has %zu distinct elements, capacity is %zu",
-                        f.n, cap);
+        mcdi_note("formula has %zu distinct elements, capacity is %zu", f.n,
+                  cap);
         return MCD_EBADLEN;
     }
     for (i = 0; i < f.n; ++i) {
@@ -334,25 +310,23 @@ MCD_API mcd_status mcd_formula_elements(const char *formula, size_t cap,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_formula_diffusion_volume(const char *formula,
-                                                int n_rings, double *out_V,
-                                                char *errbuf, size_t errlen)
+mcd_status mcdi_api_formula_diffusion_volume(const char *formula, int n_rings,
+                                             double *out_V)
 {
     mcdi_formula f;
     double V;
     mcd_status st;
     if (formula == NULL || out_V == NULL) {
-        mcdi_errbuf_set(errbuf, errlen, "NULL argument");
+        mcdi_note("NULL argument");
         return MCD_EINVAL;
     }
     if (n_rings < 0) {
-        mcdi_errbuf_set(errbuf, errlen, "n_rings = %d is negative", n_rings);
+        mcdi_note("n_rings = %d is negative", n_rings);
         return MCD_EINVAL;
     }
-    if ((st = mcdi_formula_parse(formula, &f, errbuf, errlen)) != MCD_OK)
+    if ((st = mcdi_formula_parse(formula, &f)) != MCD_OK)
         return st;
-    if ((st = mcdi_formula_fsg_volume(&f, n_rings, &V, errbuf, errlen)) !=
-        MCD_OK)
+    if ((st = mcdi_formula_fsg_volume(&f, n_rings, &V)) != MCD_OK)
         return st;
     *out_V = V;
     return MCD_OK;

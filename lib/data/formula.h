@@ -21,21 +21,19 @@ typedef struct mcdi_formula {
 } mcdi_formula;
 
 /* Parse formula into *out (written only on success). Errors: EINVAL (NULL),
- * EPARSE (malformed), ENOTFOUND (unknown element); errbuf gets
+ * EPARSE (malformed), ENOTFOUND (unknown element); the error detail gets
  * "position K: ...". No allocation. */
-mcd_status mcdi_formula_parse(const char *formula, mcdi_formula *out,
-                              char *errbuf, size_t errlen);
+mcd_status mcdi_formula_parse(const char *formula, mcdi_formula *out);
 
 /* Molar mass [kg/mol] of a parsed formula; ENOTFOUND (with message) if an
  * element has no standard atomic weight. */
-mcd_status mcdi_formula_mass(const mcdi_formula *f, double *out_M, char *errbuf,
-                             size_t errlen);
+mcd_status mcdi_formula_mass(const mcdi_formula *f, double *out_M);
 
 /* Fuller-Ensley-Giddings increment sum of a parsed formula with n_rings ring
  * increments; ENODATA (with message) for an element without increment,
  * EINVAL for n_rings < 0 or a non-positive sum. */
 mcd_status mcdi_formula_fsg_volume(const mcdi_formula *f, int n_rings,
-                                   double *out_V, char *errbuf, size_t errlen);
+                                   double *out_V);
 
 /* 1 if the two parsed formulas have the same elements and counts. */
 int mcdi_formula_same(const mcdi_formula *a, const mcdi_formula *b);

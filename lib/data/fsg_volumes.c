@@ -104,8 +104,10 @@ int mcdi_fsg_lookup(const char *formula, const mcdi_formula *parsed,
          * and "D2" are not formulas and match by text only. */
         for (i = 0; i < N_MOLECULES; ++i) {
             mcdi_formula m;
-            if (mcdi_formula_parse(molecules[i].formula, &m, NULL, 0) != MCD_OK)
+            if (mcdi_formula_parse(molecules[i].formula, &m) != MCD_OK) {
+                mcdi_err_clear(); /* "air", "D2": not formulas */
                 continue;
+            }
             if (mcdi_formula_same(&m, parsed)) {
                 *out_V = molecules[i].V;
                 return 1;
@@ -115,18 +117,19 @@ int mcdi_fsg_lookup(const char *formula, const mcdi_formula *parsed,
     return 0;
 }
 
-MCD_API mcd_status mcd_formula_molecule_volume(const char *formula,
-                                               double *out_V)
+mcd_status mcdi_api_formula_molecule_volume(const char *formula, double *out_V)
 {
     mcdi_formula f;
     double V;
     int found;
     if (formula == NULL || out_V == NULL)
         return MCD_EINVAL;
-    if (mcdi_formula_parse(formula, &f, NULL, 0) == MCD_OK)
+    if (mcdi_formula_parse(formula, &f) == MCD_OK) {
         found = mcdi_fsg_lookup(formula, &f, &V);
-    else
+    } else {
+        mcdi_err_clear(); /* looked up by text below */
         found = mcdi_fsg_lookup(formula, NULL, &V);
+    }
     if (!found)
         return MCD_ENOTFOUND;
     *out_V = V;

@@ -32,15 +32,14 @@ void mcdi_builtin_fill(size_t i, mcdi_species *out);
 
 /* db.c helpers shared with db_file.c. */
 /* Validate a species name; EPARSE with message if bad. */
-mcd_status mcdi_db_check_name(const char *name, char *errbuf, size_t errlen);
+mcd_status mcdi_db_check_name(const char *name);
 /* Index of a name (case-insensitive) or (size_t)-1. */
 size_t mcdi_db_index_of(const mcd_db *db, const char *name);
 /* Ensure room for one more species. */
 mcd_status mcdi_db_reserve(mcd_db *db, size_t need);
 /* Build a record from name and formula as mcd_db_add does (M, V). */
 mcd_status mcdi_species_from_formula(const char *name, const char *formula,
-                                     int n_rings, mcdi_species *out,
-                                     char *errbuf, size_t errlen);
+                                     int n_rings, mcdi_species *out);
 /* Insert or replace (same name keeps index). Caller reserved room. */
 size_t mcdi_db_put(mcd_db *db, const mcdi_species *s);
 /* Range check of mcd_db_set_param: MCD_OK, EINVAL (NaN/inf) or EDOM. */

@@ -66,9 +66,9 @@ static double dot_scaled(const double *u, const double *v, size_t m)
     return s;
 }
 
-MCD_API mcd_status mcd_flux_diagnose(size_t n_species, size_t n_dim,
-                                     const double *grad, const double *flux,
-                                     double rel_tol, unsigned *out_flags)
+mcd_status mcdi_api_flux_diagnose(size_t n_species, size_t n_dim,
+                                  const double *grad, const double *flux,
+                                  double rel_tol, unsigned *out_flags)
 {
     const size_t n = n_species;
     double gmax = 0.0, fmax = 0.0;

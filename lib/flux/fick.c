@@ -173,25 +173,25 @@ static mcd_status solve_B(mcd_workspace *ws, size_t m, double *B, double *X,
     if (m <= FICK_SMALL_M) {
         size_t bad = gauss_solve_small(m, B, X);
         if (bad != 0)
-            return mcdi_ws_fail(
-                ws, MCD_ESING, "Maxwell-Stefan matrix B singular at column %zu",
-                bad - 1);
+            return mcdi_fail(MCD_ESING,
+                             "Maxwell-Stefan matrix B singular at column %zu",
+                             bad - 1);
         return MCD_OK;
     }
     info = LAPACKE_dgetrf_work(LAPACK_COL_MAJOR, (lapack_int)m, (lapack_int)m,
                                B, (lapack_int)m, ipiv);
     if (info > 0)
-        return mcdi_ws_fail(ws, MCD_ESING,
-                            "Maxwell-Stefan matrix B singular (dgetrf "
-                            "info %d)",
-                            (int)info);
+        return mcdi_fail(MCD_ESING,
+                         "Maxwell-Stefan matrix B singular (dgetrf "
+                         "info %d)",
+                         (int)info);
     if (info < 0)
-        return mcdi_ws_fail(ws, MCD_EINTERNAL, "dgetrf info %d", (int)info);
+        return mcdi_fail(MCD_EINTERNAL, "dgetrf info %d", (int)info);
     info =
         LAPACKE_dgetrs_work(LAPACK_COL_MAJOR, 'N', (lapack_int)m, (lapack_int)m,
                             B, (lapack_int)m, ipiv, X, (lapack_int)m);
     if (info != 0)
-        return mcdi_ws_fail(ws, MCD_EINTERNAL, "dgetrs info %d", (int)info);
+        return mcdi_fail(MCD_EINTERNAL, "dgetrs info %d", (int)info);
     return MCD_OK;
 }
 
@@ -231,12 +231,12 @@ static void fick_to_mass_basis(size_t n, size_t dep, const double *M,
     }
 }
 
-MCD_API mcd_status mcd_fick_matrix(mcd_workspace *ws, size_t n_species,
-                                   const double *M, const double *Dij,
-                                   mcd_basis comp_basis, const double *comp,
-                                   const double *Gamma, mcd_basis basis,
-                                   size_t dependent, double *out_D,
-                                   size_t *out_dependent)
+mcd_status mcdi_api_fick_matrix(mcd_workspace *ws, size_t n_species,
+                                const double *M, const double *Dij,
+                                mcd_basis comp_basis, const double *comp,
+                                const double *Gamma, mcd_basis basis,
+                                size_t dependent, double *out_D,
+                                size_t *out_dependent)
 {
     const size_t n = n_species;
     size_t m, dep, r, q;
@@ -249,18 +249,17 @@ MCD_API mcd_status mcd_fick_matrix(mcd_workspace *ws, size_t n_species,
 
     if (ws == NULL)
         return MCD_EINVAL;
-    mcdi_ws_clear_error(ws);
     if ((st = mcdi_check_species(ws, n, 1, 0, "n_species")) != MCD_OK ||
         (st = mcdi_check_basis(ws, comp_basis, "comp_basis")) != MCD_OK ||
         (st = mcdi_check_basis(ws, basis, "basis")) != MCD_OK)
         return st;
     if (dependent != MCD_DEPENDENT_AUTO && dependent >= n)
-        return mcdi_ws_fail(ws, MCD_EINVAL,
-                            "argument dependent: %zu is not a species index "
-                            "(0..%zu) nor MCD_DEPENDENT_AUTO",
-                            dependent, n - 1);
+        return mcdi_fail(MCD_EINVAL,
+                         "argument dependent: %zu is not a species index "
+                         "(0..%zu) nor MCD_DEPENDENT_AUTO",
+                         dependent, n - 1);
     if (n > 1 && out_D == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument out_D: NULL");
+        return mcdi_fail(MCD_EINVAL, "argument out_D: NULL");
     need_M = comp_basis == MCD_BASIS_MASS || basis == MCD_BASIS_MASS;
     if (need_M && (st = mcdi_check_M(ws, n, M)) != MCD_OK)
         return st;
@@ -299,9 +298,9 @@ MCD_API mcd_status mcd_fick_matrix(mcd_workspace *ws, size_t n_species,
 
     for (r = 0; r < m * m; r++)
         if (!mcdi_finite(X[r]))
-            return mcdi_ws_fail(ws, MCD_EDOM,
-                                "result: Fick matrix entry not finite (inputs "
-                                "outside the representable range)");
+            return mcdi_fail(MCD_EDOM,
+                             "result: Fick matrix entry not finite (inputs "
+                             "outside the representable range)");
     for (r = 0; r < m; r++)
         for (q = 0; q < m; q++)
             out_D[r * m + q] = X[r + q * m];
@@ -310,10 +309,9 @@ MCD_API mcd_status mcd_fick_matrix(mcd_workspace *ws, size_t n_species,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_fick_fluxes(size_t n_species, size_t n_dim,
-                                   const double *D, size_t dependent,
-                                   double conc, const double *grad,
-                                   double *out_flux)
+mcd_status mcdi_api_fick_fluxes(size_t n_species, size_t n_dim, const double *D,
+                                size_t dependent, double conc,
+                                const double *grad, double *out_flux)
 {
     const size_t n = n_species, nd = n_dim;
     size_t m, r, q, dd, i;
@@ -378,9 +376,9 @@ MCD_API mcd_status mcd_fick_fluxes(size_t n_species, size_t n_dim,
  * dependent species and under the frame change (similarity). Reference:
  * Taylor and Krishna (1993), ch. 5 (eigenvalues of [D] and the
  * linearized theory of Toor 1964 and Stewart and Prober 1964). */
-MCD_API mcd_status mcd_fick_eigenvalues(mcd_workspace *ws, size_t m,
-                                        const double *D, double *out_re,
-                                        double *out_im)
+mcd_status mcdi_api_fick_eigenvalues(mcd_workspace *ws, size_t m,
+                                     const double *D, double *out_re,
+                                     double *out_im)
 {
     double *A, *wr, *wi, dummy = 0.0;
     mcdi_fick_view v;
@@ -390,25 +388,23 @@ MCD_API mcd_status mcd_fick_eigenvalues(mcd_workspace *ws, size_t m,
 
     if (ws == NULL)
         return MCD_EINVAL;
-    mcdi_ws_clear_error(ws);
     if (m > ws->cap - 1)
-        return mcdi_ws_fail(
-            ws, MCD_EBADLEN,
-            "argument order: %zu exceeds the workspace capacity "
-            "minus one (%zu)",
-            m, ws->cap - 1);
+        return mcdi_fail(MCD_EBADLEN,
+                         "argument order: %zu exceeds the workspace capacity "
+                         "minus one (%zu)",
+                         m, ws->cap - 1);
     if (m == 0)
         return MCD_OK;
     if (D == NULL || out_re == NULL || out_im == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL",
-                            D == NULL        ? "D"
-                            : out_re == NULL ? "out_re"
-                                             : "out_im");
+        return mcdi_fail(MCD_EINVAL, "argument %s: NULL",
+                         D == NULL        ? "D"
+                         : out_re == NULL ? "out_re"
+                                          : "out_im");
     for (k = 0; k < m * m; k++)
         if (!mcdi_finite(D[k]))
-            return mcdi_ws_fail(ws, MCD_EINVAL,
-                                "argument D: entry (%zu,%zu) is not finite",
-                                k / m, k % m);
+            return mcdi_fail(MCD_EINVAL,
+                             "argument D: entry (%zu,%zu) is not finite", k / m,
+                             k % m);
     /* The row-major D read as column-major is D^T: same eigenvalues. */
     mcdi_fick_scratch(ws, &v, &iv);
     A = v.B;
@@ -419,19 +415,19 @@ MCD_API mcd_status mcd_fick_eigenvalues(mcd_workspace *ws, size_t m,
                               (lapack_int)m, wr, wi, &dummy, 1, &dummy, 1,
                               ws->geev_work, (lapack_int)ws->geev_lwork);
     if (info > 0)
-        return mcdi_ws_fail(ws, MCD_ESING,
-                            "dgeev: QR iteration did not converge (info %d)",
-                            (int)info);
+        return mcdi_fail(MCD_ESING,
+                         "dgeev: QR iteration did not converge (info %d)",
+                         (int)info);
     if (info < 0)
-        return mcdi_ws_fail(ws, MCD_EINTERNAL, "dgeev info %d", (int)info);
+        return mcdi_fail(MCD_EINTERNAL, "dgeev info %d", (int)info);
     /* finite entries near DBL_MAX can have eigenvalues that overflow
      * (found by fuzz_flux): never hand them out */
     for (k = 0; k < m; k++)
         if (!mcdi_finite(wr[k]) || !mcdi_finite(wi[k]))
-            return mcdi_ws_fail(ws, MCD_EDOM,
-                                "result: eigenvalue %zu is not finite (entries "
-                                "of D too large)",
-                                k);
+            return mcdi_fail(MCD_EDOM,
+                             "result: eigenvalue %zu is not finite (entries "
+                             "of D too large)",
+                             k);
     /* insertion sort by decreasing real part, then decreasing imaginary
      * part (keeps a conjugate pair together, positive part first) */
     for (k = 1; k < m; k++) {

@@ -77,10 +77,10 @@ static mcd_status check_M_x_F(size_t n, size_t n_dim, const double *M,
     return mcdi_comp_check(n, x, sx);
 }
 
-MCD_API mcd_status mcd_flux_convert(size_t n_species, size_t n_dim,
-                                    const double *M, const double *x,
-                                    mcd_basis from, const double *flux_in,
-                                    mcd_basis to, double *out_flux)
+mcd_status mcdi_api_flux_convert(size_t n_species, size_t n_dim,
+                                 const double *M, const double *x,
+                                 mcd_basis from, const double *flux_in,
+                                 mcd_basis to, double *out_flux)
 {
     const size_t n = n_species;
     double sx, S;
@@ -135,10 +135,10 @@ MCD_API mcd_status mcd_flux_convert(size_t n_species, size_t n_dim,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_flux_to_volume_frame(size_t n_species, size_t n_dim,
-                                            double c, const double *x,
-                                            const double *Vbar, const double *J,
-                                            double *out_JV)
+mcd_status mcdi_api_flux_to_volume_frame(size_t n_species, size_t n_dim,
+                                         double c, const double *x,
+                                         const double *Vbar, const double *J,
+                                         double *out_JV)
 {
     const size_t n = n_species;
     double sx, sxv = 0.0;
@@ -179,9 +179,9 @@ MCD_API mcd_status mcd_flux_to_volume_frame(size_t n_species, size_t n_dim,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_flux_to_species_frame(size_t n_species, size_t n_dim,
-                                             const double *x, const double *J,
-                                             size_t k, double *out_Jk)
+mcd_status mcdi_api_flux_to_species_frame(size_t n_species, size_t n_dim,
+                                          const double *x, const double *J,
+                                          size_t k, double *out_Jk)
 {
     const size_t n = n_species;
     double sx;
@@ -212,11 +212,11 @@ MCD_API mcd_status mcd_flux_to_species_frame(size_t n_species, size_t n_dim,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_flux_total(size_t n_species, size_t n_dim,
-                                  mcd_basis basis, const double *comp,
-                                  const double *diff, mcd_bootstrap kind,
-                                  size_t species, const double *values,
-                                  double *out_total, double *out_bulk)
+mcd_status mcdi_api_flux_total(size_t n_species, size_t n_dim, mcd_basis basis,
+                               const double *comp, const double *diff,
+                               mcd_bootstrap kind, size_t species,
+                               const double *values, double *out_total,
+                               double *out_bulk)
 {
     const size_t n = n_species;
     double sy, bulk[MCD_MAX_DIM];
@@ -305,11 +305,10 @@ MCD_API mcd_status mcd_flux_total(size_t n_species, size_t n_dim,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_flux_velocity_difference(size_t n_species, size_t n_dim,
-                                                const double *M, double c,
-                                                const double *x,
-                                                const double *J,
-                                                double *out_v_minus_u)
+mcd_status mcdi_api_flux_velocity_difference(size_t n_species, size_t n_dim,
+                                             const double *M, double c,
+                                             const double *x, const double *J,
+                                             double *out_v_minus_u)
 {
     const size_t n = n_species;
     double sx, rho;
@@ -346,9 +345,9 @@ MCD_API mcd_status mcd_flux_velocity_difference(size_t n_species, size_t n_dim,
  * velocity); with a_i = 1/N it is the orthogonal projection onto the
  * hyperplane sum F = 0. Applying it twice changes nothing beyond
  * round-off: sum_i (F_i - a_i r) = r - r = 0. */
-MCD_API mcd_status mcd_flux_project(size_t n_species, size_t n_dim,
-                                    const double *weights, double *inout_flux,
-                                    double *out_residual)
+mcd_status mcdi_api_flux_project(size_t n_species, size_t n_dim,
+                                 const double *weights, double *inout_flux,
+                                 double *out_residual)
 {
     const size_t n = n_species;
     double sw = 0.0;

@@ -204,10 +204,10 @@ zero_sum:
     return MCD_OK;
 
 not_definite:
-    return mcdi_ws_fail(ws, MCD_ESING,
-                        "Maxwell-Stefan matrix not positive definite at "
-                        "pivot %zu (round-off; check Dij scale)",
-                        (size_t)iv.pos[bad - 1]);
+    return mcdi_fail(MCD_ESING,
+                     "Maxwell-Stefan matrix not positive definite at "
+                     "pivot %zu (round-off; check Dij scale)",
+                     (size_t)iv.pos[bad - 1]);
 }
 
 /* Whether the mass fluxes F (n x nd) still sum to zero after the
@@ -285,28 +285,28 @@ static mcd_status emit_checked(mcd_workspace *ws, size_t n, size_t nd,
     if (acc != 0.0)
         for (i = 0; i < n * nd; i++)
             if (!mcdi_finite(J[i]))
-                return mcdi_ws_fail(ws, MCD_EDOM,
-                                    "result: flux of species %zu is not "
-                                    "finite (inputs outside the "
-                                    "representable range)",
-                                    i / nd);
+                return mcdi_fail(MCD_EDOM,
+                                 "result: flux of species %zu is not "
+                                 "finite (inputs outside the "
+                                 "representable range)",
+                                 i / nd);
     if (flux_basis == MCD_BASIS_MASS && !mcdi_mass_zero_sum_kept(n, nd, J))
-        return mcdi_ws_fail(ws, MCD_EDOM,
-                            "result: mass fluxes lost to cancellation (the "
-                            "molar masses are too far apart for double "
-                            "precision: %s)",
-                            "sum over species not zero");
+        return mcdi_fail(MCD_EDOM,
+                         "result: mass fluxes lost to cancellation (the "
+                         "molar masses are too far apart for double "
+                         "precision: %s)",
+                         "sum over species not zero");
     memcpy(out_flux, J, n * nd * sizeof(double));
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_flux_compute(mcd_workspace *ws, mcd_model model,
-                                    size_t n_species, size_t n_dim,
-                                    const double *M, const double *Dij,
-                                    double c, mcd_basis comp_basis,
-                                    const double *comp, const double *grad_comp,
-                                    const double *Gamma, const double *grad_lnP,
-                                    mcd_basis flux_basis, double *out_flux)
+mcd_status mcdi_api_flux_compute(mcd_workspace *ws, mcd_model model,
+                                 size_t n_species, size_t n_dim,
+                                 const double *M, const double *Dij, double c,
+                                 mcd_basis comp_basis, const double *comp,
+                                 const double *grad_comp, const double *Gamma,
+                                 const double *grad_lnP, mcd_basis flux_basis,
+                                 double *out_flux)
 {
     const size_t n = n_species, nd = n_dim;
     const int need_M = comp_basis == MCD_BASIS_MASS ||
@@ -320,7 +320,6 @@ MCD_API mcd_status mcd_flux_compute(mcd_workspace *ws, mcd_model model,
 
     if (ws == NULL)
         return MCD_EINVAL;
-    mcdi_ws_clear_error(ws);
     /* validate everything before writing anything */
     if ((st = check_state(ws, model, n, nd, M, Dij, c, comp_basis, comp,
                           grad_comp, Gamma, grad_lnP, flux_basis, out_flux,

@@ -87,8 +87,8 @@ static mcd_status finish_D(double D, double *out_D)
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_binary_fsg(double T, double P, double MA, double MB,
-                                  double VA, double VB, double *out_D)
+mcd_status mcdi_api_binary_fsg(double T, double P, double MA, double MB,
+                               double VA, double VB, double *out_D)
 {
     const double v[6] = {T, P, MA, MB, VA, VB};
     mcd_status s;
@@ -117,7 +117,7 @@ double mcdi_omega_d(double Ts)
            1.03587 / exp(1.52996 * Ts) + 1.76474 / exp(3.89411 * Ts);
 }
 
-MCD_API mcd_status mcd_binary_omega_d(double T_star, double *out_omega)
+mcd_status mcdi_api_binary_omega_d(double T_star, double *out_omega)
 {
     mcd_status s;
     if (out_omega == NULL)
@@ -162,10 +162,10 @@ static mcd_status check_lj(double T, double P, double MA, double MB,
     return check_all_pos(v, 8);
 }
 
-MCD_API mcd_status mcd_binary_chapman_enskog(double T, double P, double MA,
-                                             double MB, double sigA,
-                                             double sigB, double epsA,
-                                             double epsB, double *out_D)
+mcd_status mcdi_api_binary_chapman_enskog(double T, double P, double MA,
+                                          double MB, double sigA, double sigB,
+                                          double epsA, double epsB,
+                                          double *out_D)
 {
     mcd_status s;
     if (out_D == NULL)
@@ -199,9 +199,9 @@ double mcdi_wl_coef(double MA, double MB, double sigA, double sigB)
     return (3.03 - 0.98 / r) * 1e-22 / (r * sig * sig);
 }
 
-MCD_API mcd_status mcd_binary_wilke_lee(double T, double P, double MA,
-                                        double MB, double sigA, double sigB,
-                                        double epsA, double epsB, double *out_D)
+mcd_status mcdi_api_binary_wilke_lee(double T, double P, double MA, double MB,
+                                     double sigA, double sigB, double epsA,
+                                     double epsB, double *out_D)
 {
     mcd_status s;
     if (out_D == NULL)
@@ -226,9 +226,9 @@ MCD_API mcd_status mcd_binary_wilke_lee(double T, double P, double MA,
  * D = 1e-4 D_cgs, M_g = 1000 M, eta_cP = 1000 eta [Pa s],
  * V_cm3 = 1e6 V [m^3/mol].
  */
-MCD_API mcd_status mcd_binary_wilke_chang(double T, double mu_solvent,
-                                          double M_solvent, double phi,
-                                          double Vb_solute, double *out_D)
+mcd_status mcdi_api_binary_wilke_chang(double T, double mu_solvent,
+                                       double M_solvent, double phi,
+                                       double Vb_solute, double *out_D)
 {
     const double v[5] = {T, mu_solvent, M_solvent, phi, Vb_solute};
     mcd_status s;
@@ -247,9 +247,9 @@ MCD_API mcd_status mcd_binary_wilke_chang(double T, double mu_solvent,
 /* D = D_ref (T/T_ref)^n (P_ref/P): the low-pressure gas laws D ~ 1/P and
  * D ~ T^n (n = 1.75 in the Fuller-Schettler-Giddings law; 1.5 to 2 in
  * general). Only the exponent may be zero or negative. */
-MCD_API mcd_status mcd_binary_scale(double D_ref, double T_ref, double P_ref,
-                                    double T, double P, double exponent,
-                                    double *out_D)
+mcd_status mcdi_api_binary_scale(double D_ref, double T_ref, double P_ref,
+                                 double T, double P, double exponent,
+                                 double *out_D)
 {
     const double v[5] = {D_ref, T_ref, P_ref, T, P};
     mcd_status s;
@@ -292,7 +292,7 @@ static int equal_nocase(const char *a, const char *b)
     return *a == *b;
 }
 
-MCD_API mcd_status mcd_method_from_name(const char *name, mcd_method *out_m)
+mcd_status mcdi_api_method_from_name(const char *name, mcd_method *out_m)
 {
     if (name == NULL || out_m == NULL)
         return MCD_EINVAL;

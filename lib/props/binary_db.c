@@ -116,15 +116,20 @@ mcd_status mcdi_spec_from_db(const mcd_db *db, size_t i, mcdi_spec *out)
     if (db == NULL || out == NULL)
         return MCD_EINVAL;
     if (i >= mcd_db_species_count(db))
-        return MCD_ENOTFOUND;
+        return mcdi_fail(MCD_ENOTFOUND,
+                         "species index %zu is not in the database (%zu "
+                         "species)",
+                         i, mcd_db_species_count(db));
     memset(&s, 0, sizeof s);
     for (int p = 0; p < MCD_PARAM_COUNT; p++) {
         double v;
-        if (mcd_db_param(db, i, (mcd_param)p, &v) == MCD_OK && mcdi_finite(v)) {
+        if (mcdi_api_db_param(db, i, (mcd_param)p, &v) == MCD_OK &&
+            mcdi_finite(v)) {
             s.p[p] = v;
             s.known |= 1u << (unsigned)p;
         }
     }
+    mcdi_err_clear(); /* unknown parameters are normal here */
     name = mcd_db_name(db, i);
     if (name != NULL) {
         strncpy(s.name, name, sizeof s.name - 1);
@@ -137,10 +142,18 @@ mcd_status mcdi_spec_from_db(const mcd_db *db, size_t i, mcdi_spec *out)
     return MCD_OK;
 }
 
+/* ENODATA with a detail naming the species, the parameter and the method
+ * that needs it. */
+static mcd_status missing(const mcdi_spec *s, const char *what, mcd_method m)
+{
+    return mcdi_fail(MCD_ENODATA, "species '%s' has no %s (needed by %s)",
+                     s->name, what, mcd_method_name(m));
+}
+
 /* Lennard-Jones parameters of one species, tabulated or estimated from the
- * boiling point (Wilke-Lee rules). Fails: ENODATA. */
-static mcd_status lj_params(const mcdi_spec *s, double *sig, double *eps,
-                            int *estimated)
+ * boiling point (Wilke-Lee rules) for method m. Fails: ENODATA. */
+static mcd_status lj_params(const mcdi_spec *s, mcd_method m, double *sig,
+                            double *eps, int *estimated)
 {
     if (has(s, MCD_PARAM_LJ_SIGMA) && s->p[MCD_PARAM_LJ_SIGMA] > 0) {
         *sig = s->p[MCD_PARAM_LJ_SIGMA];
@@ -149,7 +162,7 @@ static mcd_status lj_params(const mcdi_spec *s, double *sig, double *eps,
         *sig = 1.18e-10 * cbrt(1e6 * s->p[MCD_PARAM_VB]);
         *estimated = 1;
     } else {
-        return MCD_ENODATA;
+        return missing(s, "Lennard-Jones sigma nor a molar volume Vb", m);
     }
     if (has(s, MCD_PARAM_LJ_EPS_K) && s->p[MCD_PARAM_LJ_EPS_K] > 0) {
         *eps = s->p[MCD_PARAM_LJ_EPS_K];
@@ -157,7 +170,7 @@ static mcd_status lj_params(const mcdi_spec *s, double *sig, double *eps,
         *eps = 1.15 * s->p[MCD_PARAM_TB]; /* eps/k = 1.15 Tb */
         *estimated = 1;
     } else {
-        return MCD_ENODATA;
+        return missing(s, "Lennard-Jones epsilon/k nor a boiling point Tb", m);
     }
     return MCD_OK;
 }
@@ -172,14 +185,17 @@ mcd_status mcdi_pair_coef(const mcdi_spec *a, const mcdi_spec *b, mcd_method m,
     if (m != MCD_METHOD_FSG && m != MCD_METHOD_CHAPMAN_ENSKOG &&
         m != MCD_METHOD_WILKE_LEE)
         return MCD_EINVAL;
-    if (!has(a, MCD_PARAM_MOLAR_MASS) || !has(b, MCD_PARAM_MOLAR_MASS) ||
-        !(a->p[MCD_PARAM_MOLAR_MASS] > 0) || !(b->p[MCD_PARAM_MOLAR_MASS] > 0))
-        return MCD_ENODATA;
+    if (!has(a, MCD_PARAM_MOLAR_MASS) || !(a->p[MCD_PARAM_MOLAR_MASS] > 0))
+        return missing(a, "molar mass", m);
+    if (!has(b, MCD_PARAM_MOLAR_MASS) || !(b->p[MCD_PARAM_MOLAR_MASS] > 0))
+        return missing(b, "molar mass", m);
     if (m == MCD_METHOD_FSG) {
-        if (!has(a, MCD_PARAM_DIFF_VOLUME) || !has(b, MCD_PARAM_DIFF_VOLUME) ||
-            !(a->p[MCD_PARAM_DIFF_VOLUME] > 0) ||
+        if (!has(a, MCD_PARAM_DIFF_VOLUME) ||
+            !(a->p[MCD_PARAM_DIFF_VOLUME] > 0))
+            return missing(a, "diffusion volume", m);
+        if (!has(b, MCD_PARAM_DIFF_VOLUME) ||
             !(b->p[MCD_PARAM_DIFF_VOLUME] > 0))
-            return MCD_ENODATA;
+            return missing(b, "diffusion volume", m);
         *out_coef = mcdi_fsg_coef(
             a->p[MCD_PARAM_MOLAR_MASS], b->p[MCD_PARAM_MOLAR_MASS],
             a->p[MCD_PARAM_DIFF_VOLUME], b->p[MCD_PARAM_DIFF_VOLUME]);
@@ -187,9 +203,9 @@ mcd_status mcdi_pair_coef(const mcdi_spec *a, const mcdi_spec *b, mcd_method m,
         *out_estimated = 0;
         return MCD_OK;
     }
-    if ((st = lj_params(a, &sa, &ea, &est)) != MCD_OK)
+    if ((st = lj_params(a, m, &sa, &ea, &est)) != MCD_OK)
         return st;
-    if ((st = lj_params(b, &sb, &eb, &est)) != MCD_OK)
+    if ((st = lj_params(b, m, &sb, &eb, &est)) != MCD_OK)
         return st;
     if (m == MCD_METHOD_CHAPMAN_ENSKOG)
         *out_coef = mcdi_ce_coef(a->p[MCD_PARAM_MOLAR_MASS],
@@ -268,10 +284,10 @@ mcd_status mcdi_pair_gas(const mcdi_spec *a, const mcdi_spec *b, mcd_method m,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_db_binary_gas(const mcd_db *db, size_t a, size_t b,
-                                     mcd_gas_method gas, double T, double P,
-                                     double *out_D, double *out_rel_err,
-                                     unsigned *out_warn)
+mcd_status mcdi_api_db_binary_gas(const mcd_db *db, size_t a, size_t b,
+                                  mcd_gas_method gas, double T, double P,
+                                  double *out_D, double *out_rel_err,
+                                  unsigned *out_warn)
 {
     mcd_method method = (mcd_method)gas;
     mcdi_spec sa, sb;
@@ -292,10 +308,10 @@ MCD_API mcd_status mcd_db_binary_gas(const mcd_db *db, size_t a, size_t b,
     return mcdi_pair_gas(&sa, &sb, method, T, P, out_D, out_rel_err, out_warn);
 }
 
-MCD_API mcd_status mcd_db_binary_liquid(const mcd_db *db, size_t solute,
-                                        size_t solvent, double T,
-                                        double mu_solvent, double *out_D,
-                                        double *out_rel_err, unsigned *out_warn)
+mcd_status mcdi_api_db_binary_liquid(const mcd_db *db, size_t solute,
+                                     size_t solvent, double T,
+                                     double mu_solvent, double *out_D,
+                                     double *out_rel_err, unsigned *out_warn)
 {
     mcdi_spec sa, sb;
     mcd_status st;
@@ -311,14 +327,17 @@ MCD_API mcd_status mcd_db_binary_liquid(const mcd_db *db, size_t solute,
         return st;
     if ((st = mcdi_spec_from_db(db, solvent, &sb)) != MCD_OK)
         return st;
-    if (!has(&sa, MCD_PARAM_VB) || !has(&sb, MCD_PARAM_MOLAR_MASS))
-        return MCD_ENODATA;
+    if (!has(&sa, MCD_PARAM_VB))
+        return missing(&sa, "molar volume at the boiling point (Vb)",
+                       MCD_METHOD_WILKE_CHANG);
+    if (!has(&sb, MCD_PARAM_MOLAR_MASS))
+        return missing(&sb, "molar mass", MCD_METHOD_WILKE_CHANG);
     if (has(&sb, MCD_PARAM_ASSOC) && sb.p[MCD_PARAM_ASSOC] > 0)
         phi = sb.p[MCD_PARAM_ASSOC];
     else
         w |= MCD_WARN_ESTIMATED_PARAM;
-    st = mcd_binary_wilke_chang(T, mu_solvent, sb.p[MCD_PARAM_MOLAR_MASS], phi,
-                                sa.p[MCD_PARAM_VB], &D);
+    st = mcdi_api_binary_wilke_chang(T, mu_solvent, sb.p[MCD_PARAM_MOLAR_MASS],
+                                     phi, sa.p[MCD_PARAM_VB], &D);
     if (st != MCD_OK)
         return st == MCD_EINVAL ? MCD_EDOM : st;
     if (T < 273.15 || T > 373.15 ||

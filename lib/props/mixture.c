@@ -15,6 +15,7 @@
  * nothing; it validates everything and checks that every pair has data
  * before it writes any output.
  */
+#include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
 
@@ -141,9 +142,9 @@ static void fit_all(mcd_mixture *mix)
     mix->fit_err = err;
 }
 
-MCD_API mcd_status mcd_mixture_set_temperature_fit(mcd_mixture *mix,
-                                                   double T_min, double T_max,
-                                                   double *out_max_rel_err)
+mcd_status mcdi_api_mixture_set_temperature_fit(mcd_mixture *mix, double T_min,
+                                                double T_max,
+                                                double *out_max_rel_err)
 {
     size_t n;
     if (mix == NULL)
@@ -182,10 +183,10 @@ MCD_API mcd_status mcd_mixture_set_temperature_fit(mcd_mixture *mix,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_mixture_temperature_fit(const mcd_mixture *mix,
-                                               double *out_T_min,
-                                               double *out_T_max,
-                                               double *out_max_rel_err)
+mcd_status mcdi_api_mixture_temperature_fit(const mcd_mixture *mix,
+                                            double *out_T_min,
+                                            double *out_T_max,
+                                            double *out_max_rel_err)
 {
     if (mix == NULL)
         return MCD_EINVAL;
@@ -214,6 +215,7 @@ static void update_pair(mcd_mixture *mix, size_t i, size_t j)
         if (st != MCD_OK) {
             coef = 0.0;
             eps = 0.0;
+            mcdi_err_clear(); /* kept in pstat; mcdi_mixture_ready names it */
         }
     }
     mix->coef[ij] = mix->coef[ji] = coef;
@@ -235,30 +237,27 @@ static int is_gas_method(mcd_method m)
            m == MCD_METHOD_WILKE_LEE;
 }
 
-MCD_API mcd_status mcd_mixture_new(const mcd_db *db, size_t n,
-                                   const char *const *names,
-                                   mcd_gas_method default_gas,
-                                   mcd_mixture **out_mix, char *errbuf,
-                                   size_t errlen)
+mcd_status mcdi_api_mixture_new(const mcd_db *db, size_t n,
+                                const char *const *names,
+                                mcd_gas_method default_gas,
+                                mcd_mixture **out_mix)
 {
     mcd_method default_method = (mcd_method)default_gas;
     mcd_mixture *mix = NULL;
     size_t *idx = NULL;
     mcd_status st = MCD_OK;
     if (db == NULL || names == NULL || out_mix == NULL) {
-        mcdi_errbuf_set(errbuf, errlen, "NULL argument");
+        mcdi_note("NULL argument");
         return MCD_EINVAL;
     }
     if (n < 1 || n > MCD_MAX_SPECIES) {
-        mcdi_errbuf_set(errbuf, errlen, "number of species %zu not in 1..%d", n,
-                        MCD_MAX_SPECIES);
+        mcdi_note("number of species %zu not in 1..%d", n, MCD_MAX_SPECIES);
         return MCD_EINVAL;
     }
     if (!is_gas_method(default_method)) {
-        mcdi_errbuf_set(errbuf, errlen,
-                        "default method %d is not a gas method (fsg, "
-                        "chapman-enskog, wilke-lee)",
-                        (int)default_method);
+        mcdi_note("default method %d is not a gas method (fsg, "
+                  "chapman-enskog, wilke-lee)",
+                  (int)default_method);
         return MCD_EINVAL;
     }
     mix = calloc(1, sizeof *mix);
@@ -283,33 +282,29 @@ MCD_API mcd_status mcd_mixture_new(const mcd_db *db, size_t n,
     }
     for (size_t i = 0; i < n; i++) {
         if (names[i] == NULL) {
-            mcdi_errbuf_set(errbuf, errlen, "species name %zu is NULL", i);
+            mcdi_note("species name %zu is NULL", i);
             st = MCD_EINVAL;
             goto fail;
         }
-        st = mcd_db_find(db, names[i], &idx[i]);
+        st = mcdi_api_db_find(db, names[i], &idx[i]);
         if (st != MCD_OK) {
-            mcdi_errbuf_set(errbuf, errlen,
-                            "unknown species '%s' (name %zu of the mixture)",
-                            names[i], i);
+            mcdi_note("unknown species '%s' (name %zu of the mixture)",
+                      names[i], i);
             if (st != MCD_EINVAL)
                 st = MCD_ENOTFOUND;
             goto fail;
         }
         for (size_t k = 0; k < i; k++) {
             if (idx[k] == idx[i]) {
-                mcdi_errbuf_set(
-                    errbuf, errlen,
-                    "species '%s' (name %zu) is the same as name %zu", names[i],
-                    i, k);
+                mcdi_note("species '%s' (name %zu) is the same as name %zu",
+                          names[i], i, k);
                 st = MCD_EINVAL;
                 goto fail;
             }
         }
         st = mcdi_spec_from_db(db, idx[i], &mix->spec[i]);
         if (st != MCD_OK) {
-            mcdi_errbuf_set(errbuf, errlen, "species '%s' could not be read",
-                            names[i]);
+            mcdi_note("species '%s' could not be read", names[i]);
             goto fail;
         }
     }
@@ -331,7 +326,7 @@ MCD_API mcd_status mcd_mixture_new(const mcd_db *db, size_t n,
     return MCD_OK;
 fail:
     if (st == MCD_ENOMEM)
-        mcdi_errbuf_set(errbuf, errlen, "out of memory");
+        mcdi_note("out of memory");
     free(idx);
     mcd_mixture_free(mix);
     return st;
@@ -349,21 +344,21 @@ MCD_API const char *mcd_mixture_name(const mcd_mixture *mix, size_t i)
     return mix->spec[i].name;
 }
 
-MCD_API mcd_status mcd_mixture_molar_masses(const mcd_mixture *mix,
-                                            double *out_M)
+mcd_status mcdi_api_mixture_molar_masses(const mcd_mixture *mix, double *out_M)
 {
     if (mix == NULL || out_M == NULL)
         return MCD_EINVAL;
     for (size_t i = 0; i < mix->n; i++)
         if (!((mix->spec[i].known >> MCD_PARAM_MOLAR_MASS) & 1u))
-            return MCD_ENODATA;
+            return mcdi_fail(MCD_ENODATA, "species %zu '%s' has no molar mass",
+                             i, mix->spec[i].name);
     for (size_t i = 0; i < mix->n; i++)
         out_M[i] = mix->spec[i].p[MCD_PARAM_MOLAR_MASS];
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_mixture_set_method(mcd_mixture *mix, size_t i, size_t j,
-                                          mcd_gas_method gas)
+mcd_status mcdi_api_mixture_set_method(mcd_mixture *mix, size_t i, size_t j,
+                                       mcd_gas_method gas)
 {
     mcd_method m = (mcd_method)gas;
     if (mix == NULL)
@@ -377,8 +372,8 @@ MCD_API mcd_status mcd_mixture_set_method(mcd_mixture *mix, size_t i, size_t j,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_mixture_set_binary(mcd_mixture *mix, size_t i, size_t j,
-                                          double D, double T_ref, double P_ref)
+mcd_status mcdi_api_mixture_set_binary(mcd_mixture *mix, size_t i, size_t j,
+                                       double D, double T_ref, double P_ref)
 {
     size_t n;
     if (mix == NULL)
@@ -403,13 +398,31 @@ MCD_API mcd_status mcd_mixture_set_binary(mcd_mixture *mix, size_t i, size_t j,
     return MCD_OK;
 }
 
+/* The status of pair (i, j) whose estimate failed, with a detail naming
+ * the pair and what its method lacks (recomputed: only failures pay). */
+static mcd_status pair_failure(const mcd_mixture *mix, size_t i, size_t j)
+{
+    mcd_method m = (mcd_method)mix->method[i * mix->n + j];
+    double coef, eps;
+    int est;
+    char why[MCDI_ERRLEN];
+    mcd_status st =
+        mcdi_pair_coef(&mix->spec[i], &mix->spec[j], m, &coef, &eps, &est);
+    if (st == MCD_OK) /* cannot happen: pstat is the same computation */
+        st = (mcd_status)mix->pstat[i * mix->n + j];
+    snprintf(why, sizeof why, "%s", mcdi_err_text());
+    return mcdi_fail(st, "pair (%zu, %zu) %s-%s by %s: %s", i, j,
+                     mix->spec[i].name, mix->spec[j].name, mcd_method_name(m),
+                     why);
+}
+
 mcd_status mcdi_mixture_ready(const mcd_mixture *mix)
 {
     if (mix == NULL)
         return MCD_EINVAL;
     for (size_t k = 0; k < mix->n * mix->n; k++)
         if (mix->pstat[k] != MCD_OK)
-            return (mcd_status)mix->pstat[k];
+            return pair_failure(mix, k / mix->n, k % mix->n);
     return MCD_OK;
 }
 
@@ -446,9 +459,9 @@ static unsigned user_warnings(const double *u, double T, double P)
     return w;
 }
 
-MCD_API mcd_status mcd_mixture_binaries(const mcd_mixture *mix, double T,
-                                        double P, double *out_D,
-                                        double *out_rel_err, unsigned *out_warn)
+mcd_status mcdi_api_mixture_binaries(const mcd_mixture *mix, double T, double P,
+                                     double *out_D, double *out_rel_err,
+                                     unsigned *out_warn)
 {
     size_t n;
     mcd_status st;

@@ -85,21 +85,20 @@ static mcd_status bulbs_check(mcd_workspace *ws, size_t n, const double *Dij,
     if (n_times == 0)
         return MCD_OK;
     if (t == NULL || out_x1 == NULL || out_x2 == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL",
-                            t == NULL        ? "t"
-                            : out_x1 == NULL ? "out_x1"
-                                             : "out_x2");
+        return mcdi_fail(MCD_EINVAL, "argument %s: NULL",
+                         t == NULL        ? "t"
+                         : out_x1 == NULL ? "out_x1"
+                                          : "out_x2");
     for (k = 0; k < n_times; k++) {
         if (!mcdi_finite(t[k]))
-            return mcdi_ws_fail(ws, MCD_EINVAL,
-                                "argument t: entry %zu is not finite", k);
+            return mcdi_fail(MCD_EINVAL, "argument t: entry %zu is not finite",
+                             k);
         if (!(t[k] >= 0))
-            return mcdi_ws_fail(ws, MCD_EDOM,
-                                "argument t: entry %zu = %g is negative", k,
-                                t[k]);
+            return mcdi_fail(MCD_EDOM, "argument t: entry %zu = %g is negative",
+                             k, t[k]);
         if (monotone && k > 0 && !(t[k] >= t[k - 1]))
-            return mcdi_ws_fail(
-                ws, MCD_EDOM,
+            return mcdi_fail(
+                MCD_EDOM,
                 "argument t: entry %zu is below entry %zu (not ascending)", k,
                 k - 1);
     }
@@ -110,12 +109,12 @@ static mcd_status bulbs_check(mcd_workspace *ws, size_t n, const double *Dij,
 /* Linearized theory                                                   */
 /* ------------------------------------------------------------------ */
 
-MCD_API mcd_status mcd_bulbs_linearized(mcd_workspace *ws, size_t n,
-                                        const double *Dij, double c, double V1,
-                                        double V2, double A, double L,
-                                        const double *x1_0, const double *x2_0,
-                                        size_t n_times, const double *t,
-                                        double *out_x1, double *out_x2)
+mcd_status mcdi_api_bulbs_linearized(mcd_workspace *ws, size_t n,
+                                     const double *Dij, double c, double V1,
+                                     double V2, double A, double L,
+                                     const double *x1_0, const double *x2_0,
+                                     size_t n_times, const double *t,
+                                     double *out_x1, double *out_x2)
 {
     double *x1n, *x2n, *xbar, *dl0, *wr, *wi, *coef, *dl;
     double *Dm, *Ac, *VR, *LU, *work;
@@ -149,8 +148,8 @@ MCD_API mcd_status mcd_bulbs_linearized(mcd_workspace *ws, size_t n,
 
     for (i = 0; i < n; i++)
         xbar[i] = (V1 * x1n[i] + V2 * x2n[i]) / (V1 + V2);
-    st = mcd_fick_matrix(ws, n, NULL, Dij, MCD_BASIS_MOLE, xbar, NULL,
-                         MCD_BASIS_MOLE, MCD_DEPENDENT_AUTO, Dm, &d);
+    st = mcdi_api_fick_matrix(ws, n, NULL, Dij, MCD_BASIS_MOLE, xbar, NULL,
+                              MCD_BASIS_MOLE, MCD_DEPENDENT_AUTO, Dm, &d);
     if (st != MCD_OK)
         return st;
     m = n - 1;
@@ -170,8 +169,7 @@ MCD_API mcd_status mcd_bulbs_linearized(mcd_workspace *ws, size_t n,
                               (lapack_int)m, wr, wi, NULL, 1, VR, (lapack_int)m,
                               work, (lapack_int)lwork);
     if (info < 0)
-        return mcdi_ws_fail(ws, MCD_EINTERNAL, "dgeev: argument %d",
-                            (int)-info);
+        return mcdi_fail(MCD_EINTERNAL, "dgeev: argument %d", (int)-info);
     if (info > 0)
         use_eig = 0;
     for (i = 0; use_eig && i < m; i++)
@@ -208,10 +206,10 @@ MCD_API mcd_status mcd_bulbs_linearized(mcd_workspace *ws, size_t n,
         for (k = 0; k < n_times; k++)
             tmax = fmax(tmax, t[k]);
         if (!(beta * tmax * norm <= 1e4))
-            return mcdi_ws_fail(ws, MCD_ESING,
-                                "no real eigen-decomposition of [D] and "
-                                "beta t ||D|| = %g too large for exp",
-                                beta * tmax * norm);
+            return mcdi_fail(MCD_ESING,
+                             "no real eigen-decomposition of [D] and "
+                             "beta t ||D|| = %g too large for exp",
+                             beta * tmax * norm);
     }
 
     for (k = 0; k < n_times; k++) {
@@ -228,7 +226,7 @@ MCD_API mcd_status mcd_bulbs_linearized(mcd_workspace *ws, size_t n,
             for (i = 0; i < m * m; i++)
                 slot[0][i] = -beta * t[k] * Dm[i];
             if (mcdi_tf_expm_phi(m, slot) != MCD_OK)
-                return mcdi_ws_fail(ws, MCD_EINTERNAL, "exp overflow");
+                return mcdi_fail(MCD_EINTERNAL, "exp overflow");
             for (i = 0; i < m; i++) {
                 double acc = 0.0;
                 for (j = 0; j < m; j++)
@@ -344,9 +342,8 @@ static mcd_status integrate(integ *g, const double *x1n, size_t n_times,
             double err = 0.0, hs, fac;
             int last = 0;
             if (++steps > BULBS_MAX_STEPS)
-                return mcdi_ws_fail(ws, MCD_ENOCONV,
-                                    "bulbs: more than %d steps",
-                                    BULBS_MAX_STEPS);
+                return mcdi_fail(MCD_ENOCONV, "bulbs: more than %d steps",
+                                 BULBS_MAX_STEPS);
             if (tc + h >= t[k]) {
                 hs = t[k] - tc;
                 last = 1;
@@ -365,10 +362,10 @@ static mcd_status integrate(integ *g, const double *x1n, size_t n_times,
                     memcpy(yn, ys, n * sizeof(double));
                 st = rhs(g, ys, kk[s]);
                 if (st != MCD_OK)
-                    return mcdi_ws_fail(ws, st,
-                                        "bulbs: capillary flux failed at "
-                                        "t = %g",
-                                        tc + DP_C[s] * hs);
+                    return mcdi_fail(st,
+                                     "bulbs: capillary flux failed at "
+                                     "t = %g",
+                                     tc + DP_C[s] * hs);
             }
             for (i = 0; i < n; i++) {
                 double e = 0.0;
@@ -391,10 +388,10 @@ static mcd_status integrate(integ *g, const double *x1n, size_t n_times,
             } else {
                 h = hs * fac;
                 if (!(h > 1e-14 * fmax(tc, t[k])) || h == 0.0)
-                    return mcdi_ws_fail(ws, MCD_ENOCONV,
-                                        "bulbs: step size underflow at "
-                                        "t = %g",
-                                        tc);
+                    return mcdi_fail(MCD_ENOCONV,
+                                     "bulbs: step size underflow at "
+                                     "t = %g",
+                                     tc);
             }
         }
         if (write) {
@@ -407,13 +404,13 @@ static mcd_status integrate(integ *g, const double *x1n, size_t n_times,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_bulbs_integrate(mcd_workspace *ws, size_t n,
-                                       const double *Dij, double c, double V1,
-                                       double V2, double A, double L,
-                                       const double *x1_0, const double *x2_0,
-                                       size_t n_times, const double *t,
-                                       double rel_tol, double *out_x1,
-                                       double *out_x2)
+mcd_status mcdi_api_bulbs_integrate(mcd_workspace *ws, size_t n,
+                                    const double *Dij, double c, double V1,
+                                    double V2, double A, double L,
+                                    const double *x1_0, const double *x2_0,
+                                    size_t n_times, const double *t,
+                                    double rel_tol, double *out_x1,
+                                    double *out_x2)
 {
     double *x1n, *x2n, *tot, Dmax = 0.0, h0;
     mcdi_tf tf;
@@ -432,11 +429,10 @@ MCD_API mcd_status mcd_bulbs_integrate(mcd_workspace *ws, size_t n,
     if (st != MCD_OK)
         return st;
     if (!mcdi_finite(rel_tol))
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument rel_tol: not finite");
+        return mcdi_fail(MCD_EINVAL, "argument rel_tol: not finite");
     if (!(rel_tol >= 1e-12 && rel_tol <= 1e-2))
-        return mcdi_ws_fail(ws, MCD_EDOM,
-                            "argument rel_tol: %g is not in [1e-12, 1e-2]",
-                            rel_tol);
+        return mcdi_fail(
+            MCD_EDOM, "argument rel_tol: %g is not in [1e-12, 1e-2]", rel_tol);
     if (n_times == 0)
         return MCD_OK;
     for (i = 0; i < n; i++)

@@ -101,13 +101,13 @@ mcd_status mcdi_tf_check_comp(mcd_workspace *ws, size_t n, const double *x,
     double sum;
     mcd_status st;
     if (x == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL", name);
+        return mcdi_fail(MCD_EINVAL, "argument %s: NULL", name);
     st = mcdi_comp_check(n, x, &sum);
     if (st != MCD_OK)
-        return mcdi_ws_fail(ws, st,
-                            "argument %s: entries must be finite, >= 0 and "
-                            "sum to 1",
-                            name);
+        return mcdi_fail(st,
+                         "argument %s: entries must be finite, >= 0 and "
+                         "sum to 1",
+                         name);
     mcdi_comp_scale_to_one(n, x, out);
     return MCD_OK;
 }
@@ -417,7 +417,7 @@ static mcd_status film_ratios(film *f, double *out_N, size_t *out_it,
     memcpy(f->rhs, f->delta, m * sizeof(double));
     st = solve_rowmajor(m, f->mat[0], f->ipiv, f->rhs);
     if (st != MCD_OK)
-        return mcdi_ws_fail(f->ws, st, "RATIOS: singular matrix [B(x0)]");
+        return mcdi_fail(st, "RATIOS: singular matrix [B(x0)]");
     {
         double sum = 0.0;
         for (a = 0; a < m; a++) {
@@ -435,22 +435,20 @@ static mcd_status film_ratios(film *f, double *out_N, size_t *out_it,
     Nt = Js / dz;
     st = ratios_end(f, Nt, &r);
     if (st != MCD_OK)
-        return mcdi_ws_fail(f->ws, st,
-                            "RATIOS: rate factor out of range at the start");
+        return mcdi_fail(st, "RATIOS: rate factor out of range at the start");
     r -= target;
     for (it = 1; it <= FILM_MAX_ITER; it++) {
         double h = 1e-7 * (fabs(Nt) + 1e-3 * fscale), rp, slope, step;
         double lam = 1.0;
         st = ratios_end(f, Nt + h, &rp);
         if (st != MCD_OK)
-            return mcdi_ws_fail(f->ws, MCD_ENOCONV,
-                                "RATIOS: diverged, residual %g", r);
+            return mcdi_fail(MCD_ENOCONV, "RATIOS: diverged, residual %g", r);
         slope = (rp - target - r) / h;
         if (!(fabs(slope) > 0) || !mcdi_finite(slope))
-            return mcdi_ws_fail(f->ws, MCD_EDOM,
-                                "RATIOS: end composition of species %zu "
-                                "does not depend on the total flux",
-                                s);
+            return mcdi_fail(MCD_EDOM,
+                             "RATIOS: end composition of species %zu "
+                             "does not depend on the total flux",
+                             s);
         step = -r / slope;
         for (;;) { /* backtracking on |r| */
             double rn;
@@ -464,8 +462,8 @@ static mcd_status film_ratios(film *f, double *out_N, size_t *out_it,
             if (lam < 1e-6) {
                 if (fabs(r) <= 1e-14)
                     goto done;
-                return mcdi_ws_fail(f->ws, MCD_ENOCONV,
-                                    "RATIOS: no progress, residual %g", r);
+                return mcdi_fail(MCD_ENOCONV,
+                                 "RATIOS: no progress, residual %g", r);
             }
         }
         if (fabs(lam * step) <= FILM_TOL * fabs(Nt) || fabs(r) <= 1e-15) {
@@ -479,10 +477,10 @@ static mcd_status film_ratios(film *f, double *out_N, size_t *out_it,
             return MCD_OK;
         }
     }
-    return mcdi_ws_fail(f->ws, MCD_ENOCONV,
-                        "RATIOS: no convergence in %d iterations, residual "
-                        "%g",
-                        FILM_MAX_ITER, r);
+    return mcdi_fail(MCD_ENOCONV,
+                     "RATIOS: no convergence in %d iterations, residual "
+                     "%g",
+                     FILM_MAX_ITER, r);
 }
 
 static mcd_status film_iterate(film *f, double *out_N, size_t *out_it,
@@ -538,8 +536,8 @@ mcd_status mcdi_film_core(mcd_workspace *ws, size_t n, const double *Dij,
     /* bootstrap end */
     if (kind == MCD_FILM_BOOT_STAGNANT) {
         if (!(x0[species] > 0) || !(xL[species] > 0))
-            return mcdi_ws_fail(
-                ws, MCD_EDOM,
+            return mcdi_fail(
+                MCD_EDOM,
                 "argument species: stagnant species %zu must be present at "
                 "both ends (x0 = %g, xL = %g)",
                 species, x0[species], xL[species]);
@@ -551,9 +549,8 @@ mcd_status mcdi_film_core(mcd_workspace *ws, size_t n, const double *Dij,
             vmax = fmax(vmax, fabs(values[i]));
         }
         if (!(fmax(fabs(d0), fabs(dL)) > 1e-12 * vmax))
-            return mcdi_ws_fail(ws, MCD_EDOM,
-                                "WEIGHTS: sum nu_i x_i is zero at both "
-                                "ends");
+            return mcdi_fail(MCD_EDOM, "WEIGHTS: sum nu_i x_i is zero at both "
+                                       "ends");
         if (fabs(dL) > fabs(d0)) {
             f.end_L = 1;
             f.xe = xL;
@@ -576,10 +573,10 @@ mcd_status mcdi_film_core(mcd_workspace *ws, size_t n, const double *Dij,
             if (i / n != i % n && Dij[i] > Dmax)
                 Dmax = Dij[i];
         if (!(fabs(values[0]) * L / (c * Dmax) <= EXPM_MAX_NORM))
-            return mcdi_ws_fail(ws, MCD_EDOM,
-                                "TOTAL: rate factor |N_t| L/(c D) = %g is "
-                                "out of range",
-                                fabs(values[0]) * L / (c * Dmax));
+            return mcdi_fail(MCD_EDOM,
+                             "TOTAL: rate factor |N_t| L/(c D) = %g is "
+                             "out of range",
+                             fabs(values[0]) * L / (c * Dmax));
     }
     if (kind == MCD_FILM_BOOT_RATIOS)
         return film_ratios(&f, out_N, out_iterations, out_residual);
@@ -602,7 +599,6 @@ mcd_status mcdi_film_core(mcd_workspace *ws, size_t n, const double *Dij,
 static mcd_status film_iterate(film *f, double *out_N, size_t *out_it,
                                double *out_res)
 {
-    mcd_workspace *ws = f->ws;
     size_t n = f->n, i, it, depth = 0, halvings = 0;
     double *G = f->tf.G, *N = f->tf.N, *fprev = f->tf.fprev;
     double *Gprev = f->tf.Gprev, *Ngood = f->tf.Ngood;
@@ -627,14 +623,14 @@ static mcd_status film_iterate(film *f, double *out_N, size_t *out_it,
             continue;
         }
         if (st == MCD_EDOM && it > 1)
-            return mcdi_ws_fail(ws, MCD_ENOCONV,
-                                "film: fluxes diverged at iteration %zu "
-                                "(last change %g)",
-                                it, r);
+            return mcdi_fail(MCD_ENOCONV,
+                             "film: fluxes diverged at iteration %zu "
+                             "(last change %g)",
+                             it, r);
         if (st == MCD_EDOM)
-            return mcdi_ws_fail(ws, MCD_EDOM, "film: rate factor out of range");
+            return mcdi_fail(MCD_EDOM, "film: rate factor out of range");
         if (st != MCD_OK)
-            return mcdi_ws_fail(ws, st, "film: singular matrix");
+            return mcdi_fail(st, "film: singular matrix");
         memcpy(Ngood, N, n * sizeof(double));
         for (i = 0; i < n; i++) {
             dmax = fmax(dmax, fabs(G[i] - N[i]));
@@ -708,10 +704,10 @@ static mcd_status film_iterate(film *f, double *out_N, size_t *out_it,
             }
         }
     }
-    return mcdi_ws_fail(ws, MCD_ENOCONV,
-                        "film: no convergence in %d iterations, last "
-                        "relative change %g",
-                        FILM_MAX_ITER, r);
+    return mcdi_fail(MCD_ENOCONV,
+                     "film: no convergence in %d iterations, last "
+                     "relative change %g",
+                     FILM_MAX_ITER, r);
 }
 
 /* ------------------------------------------------------------------ */
@@ -722,7 +718,6 @@ mcd_status mcdi_tf_check_ws_n(mcd_workspace *ws, size_t n)
 {
     if (ws == NULL)
         return MCD_EINVAL;
-    mcdi_ws_clear_error(ws);
     return mcdi_check_species(ws, n, 2, 1, "n_species");
 }
 
@@ -736,10 +731,10 @@ static mcd_status film_check_head(mcd_workspace *ws, size_t n,
     if (st != MCD_OK)
         return st;
     if (out_name != NULL && out == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL", out_name);
+        return mcdi_fail(MCD_EINVAL, "argument %s: NULL", out_name);
     if (method != MCD_FILM_EXACT && method != MCD_FILM_LINEARIZED)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument method: unknown value %d",
-                            (int)method);
+        return mcdi_fail(MCD_EINVAL, "argument method: unknown value %d",
+                         (int)method);
     return MCD_OK;
 }
 
@@ -755,13 +750,12 @@ static mcd_status film_check_state(mcd_workspace *ws, size_t n,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n,
-                                  const double *Dij, double c, double L,
-                                  const double *x0, const double *xL,
-                                  mcd_film_bootstrap kind, size_t species,
-                                  const double *values, mcd_film_method method,
-                                  double *out_N, size_t *out_iterations,
-                                  double *out_residual)
+mcd_status mcdi_api_film_solve(mcd_workspace *ws, size_t n, const double *Dij,
+                               double c, double L, const double *x0,
+                               const double *xL, mcd_film_bootstrap kind,
+                               size_t species, const double *values,
+                               mcd_film_method method, double *out_N,
+                               size_t *out_iterations, double *out_residual)
 {
     double *x0n, *xLn, *Nres;
     mcdi_tf tf;
@@ -784,49 +778,47 @@ MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n,
     case MCD_FILM_BOOT_EQUIMOLAR: break;
     case MCD_FILM_BOOT_STAGNANT:
         if (species >= n)
-            return mcdi_ws_fail(
-                ws, MCD_EINVAL,
+            return mcdi_fail(
+                MCD_EINVAL,
                 "argument species: %zu is not a species index (0..%zu)",
                 species, n - 1);
         break;
     case MCD_FILM_BOOT_TOTAL:
         if (values == NULL || !mcdi_finite(values[0]))
-            return mcdi_ws_fail(ws, MCD_EINVAL,
-                                "TOTAL: values[0] (N_t) missing or not "
-                                "finite");
+            return mcdi_fail(MCD_EINVAL,
+                             "TOTAL: values[0] (N_t) missing or not "
+                             "finite");
         break;
     case MCD_FILM_BOOT_WEIGHTS:
     case MCD_FILM_BOOT_RATIOS: {
         double sum = 0.0;
         if (values == NULL)
-            return mcdi_ws_fail(ws, MCD_EINVAL, "argument values: NULL");
+            return mcdi_fail(MCD_EINVAL, "argument values: NULL");
         for (i = 0; i < n; i++) {
             if (!mcdi_finite(values[i]))
-                return mcdi_ws_fail(ws, MCD_EINVAL,
-                                    "argument values: entry %zu is not finite",
-                                    i);
+                return mcdi_fail(MCD_EINVAL,
+                                 "argument values: entry %zu is not finite", i);
             sum += values[i];
         }
         if (kind == MCD_FILM_BOOT_RATIOS) {
             if (species >= n)
-                return mcdi_ws_fail(
-                    ws, MCD_EINVAL,
+                return mcdi_fail(
+                    MCD_EINVAL,
                     "argument species: %zu is not a species index (0..%zu)",
                     species, n - 1);
             if (!(fabs(sum - 1.0) <= MCD_SUM_TOL))
-                return mcdi_ws_fail(ws, MCD_EDOM, "RATIOS: z sums to %g, not 1",
-                                    sum);
+                return mcdi_fail(MCD_EDOM, "RATIOS: z sums to %g, not 1", sum);
             if (values[species] == 0.0 && x0n[species] == 0.0)
-                return mcdi_ws_fail(ws, MCD_EDOM,
-                                    "RATIOS: species %zu absent and not "
-                                    "moving: N_t undetermined",
-                                    species);
+                return mcdi_fail(MCD_EDOM,
+                                 "RATIOS: species %zu absent and not "
+                                 "moving: N_t undetermined",
+                                 species);
         }
         break;
     }
     default:
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument kind: unknown value %d",
-                            (int)kind);
+        return mcdi_fail(MCD_EINVAL, "argument kind: unknown value %d",
+                         (int)kind);
     }
     st = mcdi_film_core(ws, n, Dij, c, L, x0n, xLn, kind, species, values,
                         method, Nres, &its, &res);
@@ -840,11 +832,10 @@ MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n,
     return MCD_OK;
 }
 
-MCD_API mcd_status mcd_film_profile(mcd_workspace *ws, size_t n,
-                                    const double *Dij, double c, double L,
-                                    const double *x0, const double *N,
-                                    size_t n_points, const double *z,
-                                    double *out_x)
+mcd_status mcdi_api_film_profile(mcd_workspace *ws, size_t n, const double *Dij,
+                                 double c, double L, const double *x0,
+                                 const double *N, size_t n_points,
+                                 const double *z, double *out_x)
 {
     double *x0n, *slot[3];
     mcdi_tf tf;
@@ -860,24 +851,24 @@ MCD_API mcd_status mcd_film_profile(mcd_workspace *ws, size_t n,
     if ((st = mcdi_tf_check_comp(ws, n, x0, "x0", x0n)) != MCD_OK)
         return st;
     if (N == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument N: NULL");
+        return mcdi_fail(MCD_EINVAL, "argument N: NULL");
     for (i = 0; i < n; i++)
         if (!mcdi_finite(N[i]))
-            return mcdi_ws_fail(ws, MCD_EINVAL,
-                                "argument N: entry %zu is not finite", i);
+            return mcdi_fail(MCD_EINVAL, "argument N: entry %zu is not finite",
+                             i);
     if (n_points == 0)
         return MCD_OK;
     if (z == NULL || out_x == NULL)
-        return mcdi_ws_fail(ws, MCD_EINVAL, "argument %s: NULL",
-                            z == NULL ? "z" : "out_x");
+        return mcdi_fail(MCD_EINVAL, "argument %s: NULL",
+                         z == NULL ? "z" : "out_x");
     for (p = 0; p < n_points; p++) {
         if (!mcdi_finite(z[p]))
-            return mcdi_ws_fail(ws, MCD_EINVAL,
-                                "argument z: entry %zu is not finite", p);
+            return mcdi_fail(MCD_EINVAL, "argument z: entry %zu is not finite",
+                             p);
         if (!(z[p] >= 0 && z[p] <= L))
-            return mcdi_ws_fail(ws, MCD_EDOM,
-                                "argument z: entry %zu = %g is not in [0, L]",
-                                p, z[p]);
+            return mcdi_fail(MCD_EDOM,
+                             "argument z: entry %zu = %g is not in [0, L]", p,
+                             z[p]);
     }
     /* rate factor ||(L/c) A||_1 bounded: exp stays finite below */
     for (j = 0; j < n; j++) {
@@ -889,8 +880,8 @@ MCD_API mcd_status mcd_film_profile(mcd_workspace *ws, size_t n,
     }
     norm *= L / c;
     if (!(norm <= PROFILE_MAX_RATE))
-        return mcdi_ws_fail(ws, MCD_EDOM,
-                            "rate factor %g too large for a profile", norm);
+        return mcdi_fail(MCD_EDOM, "rate factor %g too large for a profile",
+                         norm);
 
     for (p = 0; p < n_points; p++) {
         double sc = z[p] / c;
@@ -909,7 +900,7 @@ MCD_API mcd_status mcd_film_profile(mcd_workspace *ws, size_t n,
         }
         st = mcdi_tf_expm_phi(n, slot);
         if (st != MCD_OK) /* cannot happen after the bound above */
-            return mcdi_ws_fail(ws, MCD_EINTERNAL, "profile overflow");
+            return mcdi_fail(MCD_EINTERNAL, "profile overflow");
         for (i = 0; i < n; i++) {
             double acc = 0.0;
             for (j = 0; j < n; j++)

@@ -15,6 +15,8 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "mcdiff.h"
+
 #define FUZZ_REQUIRE(cond, ...)                                          \
     do {                                                                 \
         if (!(cond)) {                                                   \
@@ -42,6 +44,14 @@ static inline int fuzz_untouched(const void *p, size_t n)
 static inline int fuzz_terminated(const char *buf, size_t len)
 {
     return memchr(buf, '\0', len) != NULL;
+}
+
+/* The error detail agrees with the status: none after a success, some
+ * (shorter than the library's 256-byte buffer) after a failure. */
+static inline int fuzz_detail_ok(mcd_status st)
+{
+    const char *d = mcd_last_error();
+    return st == MCD_OK ? d[0] == '\0' : d[0] != '\0' && fuzz_terminated(d, 256);
 }
 
 /* A NUL-terminated copy of the fuzz input (caller frees). */

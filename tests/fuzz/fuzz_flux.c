@@ -167,7 +167,7 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
         memcpy(J, out, n * nd * sizeof(double)); /* a consistent flux set */
     } else {
         FUZZ_REQUIRE(fuzz_untouched(out, sizeof out), "flux_compute wrote on error %d", st_flux);
-        FUZZ_REQUIRE(mcd_workspace_last_error(ws)[0] != '\0', "no message for %d", st_flux);
+        FUZZ_REQUIRE(mcd_last_error()[0] != '\0', "no message for %d", st_flux);
     }
 
     /* 2. Fick matrix, its fluxes and eigenvalues */

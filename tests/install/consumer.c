@@ -48,8 +48,7 @@ int main(void)
           "FSG CO2-N2 within the typical error of 0.165 cm^2/s");
 
     /* ternary fluxes sum to zero (to round-off of three terms) */
-    check(mcd_mixture_new(db, 3, names, MCD_METHOD_FSG, &mix, msg,
-                          sizeof msg) == MCD_OK, "mixture");
+    check(mcd_mixture_new(db, 3, names, MCD_METHOD_FSG, &mix) == MCD_OK, "mixture");
     check(mcd_mixture_binaries(mix, 300.0, MCD_ATM, D, NULL, NULL) == MCD_OK,
           "binaries");
     check(mcd_comp_ideal_gas_c(300.0, MCD_ATM, &c) == MCD_OK, "ideal gas c");

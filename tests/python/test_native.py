@@ -301,13 +301,24 @@ class Exceptions(unittest.TestCase):
         e = cm.exception
         self.assertEqual(e.status, mcdiff.Status.EDOM)
         self.assertEqual(e.function, "mcd_flux_compute")
-        self.assertTrue(e.detail, "workspace last-error text expected")
+        self.assertTrue(e.detail, "mcd_last_error text expected")
         self.assertIn(e.detail, str(e))
 
-    def test_errbuf_detail_is_carried(self):
+    def test_library_detail_is_carried(self):
         with self.assertRaises(mcdiff.ParseError) as cm:
             mcdiff.formula_molar_mass("C3H(")
         self.assertIn("position", cm.exception.detail)
+        self.assertEqual(mcdiff.last_error(), cm.exception.detail)
+        mcdiff.formula_molar_mass("C3H8")
+        self.assertEqual(mcdiff.last_error(), "")
+        # ENODATA names the species and the parameter
+        db = mcdiff.Database()
+        db.add("silane", "SiH4")
+        db.add("argon", "Ar")
+        with self.assertRaises(mcdiff.NoDataError) as cm:
+            db.binary_gas("silane", "argon", "fsg", 300.0, 1e5)
+        self.assertIn("'silane' has no diffusion volume", str(cm.exception))
+        db.close()
         db = mcdiff.Database()
         with self.assertRaises(mcdiff.ParseError) as cm:
             db.load_string("mcdiff-species 1\nspecies x\n  bogus 1\n")

@@ -23,7 +23,8 @@ from .enums import (ATM, DEPENDENT_AUTO, GAS_CONSTANT, MAX_DIM, MAX_SPECIES,
 from .errors import (BadLengthError, DomainError, FileError, InternalError,
                      InvalidArgumentError, McdError, NoConvergenceError,
                      NoDataError, NotFoundError, OutOfMemoryError, ParseError,
-                     SingularMatrixError, Status, status_string)
+                     SingularMatrixError, Status, last_error,
+                     status_string)
 from .handles import (BinaryEstimate, BinaryMatrices, Database, GasState,
                       Mixture, Workspace, param_name, param_unit)
 from .api import *  # noqa: F401,F403 - the function API, listed in api.__all__
@@ -37,7 +38,7 @@ __all__ = [
     "McdError", "InvalidArgumentError", "DomainError", "BadLengthError",
     "OutOfMemoryError", "SingularMatrixError", "InternalError",
     "NotFoundError", "ParseError", "NoDataError", "NoConvergenceError",
-    "FileError", "Status", "status_string",
+    "FileError", "Status", "status_string", "last_error",
     "Database", "Mixture", "Workspace", "BinaryEstimate", "BinaryMatrices",
     "GasState", "param_name", "param_unit",
 ] + list(_api.__all__)

@@ -21,7 +21,6 @@ _PU = ctypes.POINTER(ctypes.c_uint)
 _PL = ctypes.POINTER(ctypes.c_long)
 _S = ctypes.c_char_p  # const char *
 _PS = ctypes.POINTER(ctypes.c_char_p)  # const char *const *
-_BUF = ctypes.POINTER(ctypes.c_char)  # char * (create_string_buffer)
 _H = ctypes.c_void_p  # handles, struct pointers, void *
 _PH = ctypes.POINTER(ctypes.c_void_p)  # pointer to a handle
 _ST = ctypes.c_int  # mcd_status
@@ -37,14 +36,16 @@ SIGNATURES = {
     # --- Status codes (numeric values never change once released) ---
     # (status)
     "mcd_status_string": (_S, [_I]),
+    # (void)
+    "mcd_last_error": (_S, []),
 
     # --- Chemical formulas and elements ---
-    # (formula, out_M, errbuf, errlen)
-    "mcd_formula_molar_mass": (_ST, [_S, _PD, _BUF, _SZ]),
-    # (formula, cap, out_Z, out_count, out_n, errbuf, errlen)
-    "mcd_formula_elements": (_ST, [_S, _SZ, _PI, _PL, _PSZ, _BUF, _SZ]),
-    # (formula, n_rings, out_V, errbuf, errlen)
-    "mcd_formula_diffusion_volume": (_ST, [_S, _I, _PD, _BUF, _SZ]),
+    # (formula, out_M)
+    "mcd_formula_molar_mass": (_ST, [_S, _PD]),
+    # (formula, cap, out_Z, out_count, out_n)
+    "mcd_formula_elements": (_ST, [_S, _SZ, _PI, _PL, _PSZ]),
+    # (formula, n_rings, out_V)
+    "mcd_formula_diffusion_volume": (_ST, [_S, _I, _PD]),
     # (formula, out_V)
     "mcd_formula_molecule_volume": (_ST, [_S, _PD]),
     # (Z)
@@ -75,14 +76,14 @@ SIGNATURES = {
     "mcd_db_source": (_S, [_H, _SZ, _E]),
     # (db, i, p, out_value)
     "mcd_db_param": (_ST, [_H, _SZ, _E, _PD]),
-    # (db, name, formula, n_rings, out_index, errbuf, errlen)
-    "mcd_db_add": (_ST, [_H, _S, _S, _I, _PSZ, _BUF, _SZ]),
+    # (db, name, formula, n_rings, out_index)
+    "mcd_db_add": (_ST, [_H, _S, _S, _I, _PSZ]),
     # (db, i, p, value)
     "mcd_db_set_param": (_ST, [_H, _SZ, _E, _D]),
-    # (db, path, errbuf, errlen)
-    "mcd_db_load_file": (_ST, [_H, _S, _BUF, _SZ]),
-    # (db, text, errbuf, errlen)
-    "mcd_db_load_string": (_ST, [_H, _S, _BUF, _SZ]),
+    # (db, path)
+    "mcd_db_load_file": (_ST, [_H, _S]),
+    # (db, text)
+    "mcd_db_load_string": (_ST, [_H, _S]),
 
     # --- Compositions ---
     # (n_species, y, out_y)
@@ -133,8 +134,8 @@ SIGNATURES = {
     "mcd_db_binary_liquid": (_ST, [_H, _SZ, _SZ, _D, _D, _PD, _PD, _PU]),
 
     # --- Mixtures: N species and their binary diffusivities ---
-    # (db, n_species, names, default_method, out_mix, errbuf, errlen)
-    "mcd_mixture_new": (_ST, [_H, _SZ, _PS, _E, _PH, _BUF, _SZ]),
+    # (db, n_species, names, default_method, out_mix)
+    "mcd_mixture_new": (_ST, [_H, _SZ, _PS, _E, _PH]),
     # (mix)
     "mcd_mixture_free": (None, [_H]),
     # (mix)
@@ -159,8 +160,6 @@ SIGNATURES = {
     "mcd_workspace_free": (None, [_H]),
     # (ws)
     "mcd_workspace_capacity": (_SZ, [_H]),
-    # (ws)
-    "mcd_workspace_last_error": (_S, [_H]),
 
     # --- Diffusion fluxes ---
     # (ws, model, n_species, n_dim, M, Dij, c, comp_basis, comp, grad_comp,

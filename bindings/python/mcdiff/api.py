@@ -63,7 +63,6 @@ and the last relative change (RATIOS: the end-composition residual)."""
 BulbsResult = collections.namedtuple("BulbsResult", "x1 x2")
 BulbsResult.__doc__ = """Two-bulb mole fractions, each n_times x n."""
 
-_ERRLEN = 512
 _tls = threading.local()
 
 
@@ -152,10 +151,8 @@ def _fstr(formula):
 def formula_molar_mass(formula):
     """Molar mass [kg/mol] of a chemical formula."""
     out = ctypes.c_double()
-    err = ctypes.create_string_buffer(_ERRLEN)
-    st = lib.mcd_formula_molar_mass(_fstr(formula), ctypes.byref(out), err,
-                                    _ERRLEN)
-    _check(st, "mcd_formula_molar_mass", _text(err.value))
+    st = lib.mcd_formula_molar_mass(_fstr(formula), ctypes.byref(out))
+    _check(st, "mcd_formula_molar_mass")
     return out.value
 
 
@@ -165,20 +162,18 @@ def formula_elements(formula):
     Z = (ctypes.c_int * cap)()
     cnt = (ctypes.c_long * cap)()
     n = ctypes.c_size_t()
-    err = ctypes.create_string_buffer(_ERRLEN)
     st = lib.mcd_formula_elements(_fstr(formula), cap, Z, cnt,
-                                  ctypes.byref(n), err, _ERRLEN)
-    _check(st, "mcd_formula_elements", _text(err.value))
+                                  ctypes.byref(n))
+    _check(st, "mcd_formula_elements")
     return {element_symbol(Z[k]): int(cnt[k]) for k in range(n.value)}
 
 
 def formula_diffusion_volume(formula, n_rings=0):
     """Fuller-Ensley-Giddings diffusion volume [-] from increments."""
     out = ctypes.c_double()
-    err = ctypes.create_string_buffer(_ERRLEN)
     st = lib.mcd_formula_diffusion_volume(_fstr(formula), int(n_rings),
-                                          ctypes.byref(out), err, _ERRLEN)
-    _check(st, "mcd_formula_diffusion_volume", _text(err.value))
+                                          ctypes.byref(out))
+    _check(st, "mcd_formula_diffusion_volume")
     return out.value
 
 

@@ -3,9 +3,9 @@
 Every non-zero mcd_status becomes an McdError subclass chosen by its code.
 The exception carries the code (``status``), the library's text for it
 (``status_string``, from mcd_status_string), the C function that failed
-(``function``) and the detail the library gave: the workspace's last-error
-text (mcd_workspace_last_error) or the text written to an error buffer
-(errbuf), when there is one.
+(``function``) and the detail the library gave for the failing call
+(mcd_last_error, read in the calling thread right after the call), followed
+by the binding's own context when it adds some.
 
 Where a standard Python exception has the same meaning the subclass also
 derives from it, so ``except ValueError`` catches a domain error.
@@ -20,6 +20,7 @@ __all__ = [
     "BadLengthError", "OutOfMemoryError", "SingularMatrixError",
     "InternalError", "NotFoundError", "ParseError", "NoDataError",
     "NoConvergenceError", "FileError", "status_string", "error_for",
+    "last_error",
 ]
 
 
@@ -42,6 +43,12 @@ class Status(enum.IntEnum):
 def status_string(code):
     """The library's static English text for a status code."""
     return lib.mcd_status_string(int(code)).decode("utf-8", "replace")
+
+
+def last_error():
+    """Detail of this thread's last library call that returned a status:
+    '' after a success (mcd_last_error)."""
+    return lib.mcd_last_error().decode("utf-8", "replace")
 
 
 class McdError(Exception):
@@ -131,6 +138,14 @@ _BY_CODE = {
 
 def error_for(status, function="", detail=""):
     """The exception object for a non-zero status (McdError for a code this
-    package does not know)."""
+    package does not know). Call it right after the failing call: the
+    library's detail (last_error) leads, detail adds context."""
+    lib_detail = last_error()
+    if function and lib_detail.startswith(function + ": "):
+        lib_detail = ""  # the generic "<function>: <status>" adds nothing
+    if lib_detail and detail and detail not in lib_detail:
+        detail = "%s; %s" % (lib_detail, detail)
+    elif lib_detail:
+        detail = lib_detail
     cls = _BY_CODE.get(status, McdError)
     return cls(status, function, detail)

@@ -18,7 +18,6 @@ from .errors import error_for
 __all__ = ["Workspace", "Database", "Mixture", "BinaryEstimate",
            "BinaryMatrices", "GasState"]
 
-_ERRLEN = 512
 
 BinaryEstimate = collections.namedtuple("BinaryEstimate",
                                         "D rel_err warnings")
@@ -106,11 +105,6 @@ class Workspace(_Handle):
         """Largest number of species (mcd_workspace_capacity)."""
         return int(lib.mcd_workspace_capacity(self._p()))
 
-    @property
-    def last_error(self):
-        """Detail of the last failed call on this workspace ('' if none)."""
-        return _text(lib.mcd_workspace_last_error(self._p())) or ""
-
     def set_iterative(self, max_iter=100, tol=1e-10):
         """Settings of Model.ITERATIVE for later batched calls on this
         workspace (max_iter 1..1000, tol >= 0; 0 runs max_iter
@@ -137,7 +131,7 @@ class Workspace(_Handle):
     def check(self, st, function):
         """Raise the McdError for status st with this workspace's detail."""
         if st:
-            _raise(st, function, self.last_error)
+            _raise(st, function)
 
     def __repr__(self):
         if self.closed:
@@ -264,12 +258,11 @@ class Database(_Handle):
     # -- changes ----------------------------------------------------------
     def add(self, name, formula, n_rings=0):
         """Add (or reset) a species from its formula; returns its index."""
-        err = ctypes.create_string_buffer(_ERRLEN)
         out = ctypes.c_size_t()
         st = lib.mcd_db_add(self._p(), name.encode(), formula.encode(),
-                            int(n_rings), ctypes.byref(out), err, _ERRLEN)
+                            int(n_rings), ctypes.byref(out))
         if st:
-            _raise(st, "mcd_db_add", _text(err.value))
+            _raise(st, "mcd_db_add")
         return out.value
 
     def set_param(self, species, p, value):
@@ -287,17 +280,15 @@ class Database(_Handle):
         """Load species from a file in the mcdiff species format (all or
         nothing; the error names the line)."""
         import os
-        err = ctypes.create_string_buffer(_ERRLEN)
-        st = lib.mcd_db_load_file(self._p(), os.fsencode(path), err, _ERRLEN)
+        st = lib.mcd_db_load_file(self._p(), os.fsencode(path))
         if st:
-            _raise(st, "mcd_db_load_file", _text(err.value))
+            _raise(st, "mcd_db_load_file")
 
     def load_string(self, text):
         """Load species from text in the mcdiff species format."""
-        err = ctypes.create_string_buffer(_ERRLEN)
-        st = lib.mcd_db_load_string(self._p(), text.encode(), err, _ERRLEN)
+        st = lib.mcd_db_load_string(self._p(), text.encode())
         if st:
-            _raise(st, "mcd_db_load_string", _text(err.value))
+            _raise(st, "mcd_db_load_string")
 
     # -- estimates ----------------------------------------------------------
     def binary_gas(self, a, b, method, T, P):
@@ -366,12 +357,11 @@ class Mixture(_Handle):
         m = coerce(GasMethod, method, "method")
         arr = (ctypes.c_char_p * max(len(names), 1))(
             *[str(s).encode() for s in names])
-        err = ctypes.create_string_buffer(_ERRLEN)
         out = ctypes.c_void_p()
         st = lib.mcd_mixture_new(db._p(), len(names), arr, m,
-                                 ctypes.byref(out), err, _ERRLEN)
+                                 ctypes.byref(out))
         if st:
-            _raise(st, "mcd_mixture_new", _text(err.value))
+            _raise(st, "mcd_mixture_new")
         super().__init__(out.value)
 
     def __len__(self):
