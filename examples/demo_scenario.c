@@ -74,14 +74,10 @@ int demo_scenario_run(FILE *out, FILE *err)
         check(err, "workspace", mcd_workspace_new(NS, &ws), NULL))
         goto done;
     if (check(err, "exact fluxes",
-              mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, NS, 1, M, D, c,
-                               MCD_BASIS_MOLE, x, grad, NULL, NULL,
-                               MCD_BASIS_MOLE, J_ms),
+              mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = NS, .n_dim = 1, .M = M, .Dij = D, .c = c, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = grad}, MCD_BASIS_MOLE, J_ms),
               ws) ||
         check(err, "mixture-averaged fluxes",
-              mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED, NS, 1, M, D,
-                               c, MCD_BASIS_MOLE, x, grad, NULL, NULL,
-                               MCD_BASIS_MOLE, J_ma),
+              mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED, &(mcd_state){.n_species = NS, .n_dim = 1, .M = M, .Dij = D, .c = c, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = grad}, MCD_BASIS_MOLE, J_ma),
               ws) ||
         check(err, "coupling diagnosis",
               mcd_flux_diagnose(NS, 1, grad, J_ms, 1e-3, flags), NULL))

@@ -69,9 +69,7 @@ static int fick_lambda_max(mcd_workspace *ws, const fv1d_problem *p,
     double D[(NS - 1) * (NS - 1)], re[NS - 1], im[NS - 1];
     size_t dep;
     if (lib_fail(err, "Fick matrix",
-                 mcd_fick_matrix(ws, NS, p->M, p->Dij, MCD_BASIS_MOLE, x,
-                                 NULL, MCD_BASIS_MOLE, MCD_DEPENDENT_AUTO, D,
-                                 &dep),
+                 mcd_fick_matrix(ws, &(mcd_state){.n_species = NS, .M = p->M, .Dij = p->Dij, .comp_basis = MCD_BASIS_MOLE, .comp = x}, MCD_BASIS_MOLE, MCD_DEPENDENT_AUTO, D, &dep),
                  ws) ||
         lib_fail(err, "Fick eigenvalues",
                  mcd_fick_eigenvalues(ws, NS - 1, D, re, im), ws))
@@ -299,9 +297,7 @@ static int face_fluxes(fv1d_solver *s, const fv1d_problem *p, size_t nf,
             xf[i] = s->face_x[i * nf + f];
             gf[i] = s->face_grad[i * nf + f];
         }
-        st = mcd_flux_compute(s->ws, p->model, NS, 1, p->M, p->Dij, p->c,
-                              MCD_BASIS_MOLE, xf, gf, NULL, NULL,
-                              MCD_BASIS_MOLE, Jf);
+        st = mcd_flux_compute(s->ws, p->model, &(mcd_state){.n_species = NS, .n_dim = 1, .M = p->M, .Dij = p->Dij, .c = p->c, .comp_basis = MCD_BASIS_MOLE, .comp = xf, .grad = gf}, MCD_BASIS_MOLE, Jf);
         s->calls++;
         if (lib_fail(err, "face flux", st, s->ws))
             return 1;

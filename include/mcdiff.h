@@ -533,6 +533,27 @@ typedef enum mcd_model {
                                           N = 100 (tol 1e-7). Since 0.1. */
 } mcd_model;
 
+/** One state of a mixture with its gradients: the input of
+ *  mcd_flux_compute and mcd_fick_matrix. Zero-initialise it (in C,
+ *  `mcd_state s = {0};` or a designated initialiser) and set the fields the
+ *  call uses; a field that a later version adds keeps its old meaning when
+ *  left 0 or NULL. Pointers are borrowed for the duration of the call.
+ *  Since 0.2. */
+typedef struct mcd_state {
+    size_t n_species;       /**< N, 1..capacity of the workspace */
+    size_t n_dim;           /**< directions, 1..MCD_MAX_DIM (fluxes only) */
+    mcd_basis comp_basis;   /**< comp and grad: mole or mass fractions */
+    double c;               /**< total molar concentration [mol/m^3]
+                                 (fluxes only) */
+    const double *M;        /**< molar masses [kg/mol], N, or NULL */
+    const double *Dij;      /**< binary diffusivities [m^2/s], N x N */
+    const double *comp;     /**< fractions, N */
+    const double *grad;     /**< their gradients [1/m], N x n_dim (fluxes
+                                 only) */
+    const double *Gamma;    /**< thermodynamic factors, N x N, or NULL */
+    const double *grad_lnP; /**< gradient of ln P [1/m], n_dim, or NULL */
+} mcd_state;
+
 /** Diffusion fluxes of all species at one state. Since 0.1.
  *
  *  Solves the Maxwell-Stefan equations
@@ -543,25 +564,28 @@ typedef enum mcd_model {
  *  proportional to x_i (mole basis) or w_i (mass basis) that restores the
  *  zero-sum (MIXTURE_AVERAGED). Species with x_i = 0 obey Blanc's law.
  *
- *  @param ws          workspace with capacity >= n_species.
- *  @param n_species   N, 1..capacity; @param n_dim 1..MCD_MAX_DIM.
- *  @param M           molar masses [kg/mol], length N (needed for the mass
+ *  @param ws          workspace with capacity >= state->n_species.
+ *  @param state       the state (mcd_state); its fields are checked as
+ *                     follows, and messages name them ("argument comp:
+ *                     entry 2 = -0.1 is negative").
+ *    n_species        N, 1..capacity; n_dim 1..MCD_MAX_DIM.
+ *    M                molar masses [kg/mol], length N (needed for the mass
  *                     basis and pressure diffusion; may be NULL otherwise);
  *                     largest / smallest <= 1e12 where needed (beyond, the
  *                     basis conversions lose all precision: EDOM).
- *  @param Dij         binary diffusivities [m^2/s], N x N, symmetric
+ *    Dij              binary diffusivities [m^2/s], N x N, symmetric
  *                     (relative difference <= 1e-12), off-diagonal normal
  *                     positive numbers (>= DBL_MIN; a subnormal one is
  *                     EDOM), diagonal ignored.
- *  @param c           total molar concentration [mol/m^3], a normal positive
+ *    c                total molar concentration [mol/m^3], a normal positive
  *                     number (>= DBL_MIN; a subnormal c is EDOM).
- *  @param comp_basis  whether comp/grad_comp are mole or mass fractions.
- *  @param comp        fractions, length N, validated as mcd_comp_normalize.
- *  @param grad_comp   their gradients [1/m], N x n_dim.
- *  @param Gamma       thermodynamic factor matrix [-], N x N in mole
+ *    comp_basis       whether comp/grad are mole or mass fractions.
+ *    comp             fractions, length N, validated as mcd_comp_normalize.
+ *    grad             their gradients [1/m], N x n_dim.
+ *    Gamma            thermodynamic factor matrix [-], N x N in mole
  *                     fractions, or NULL for an ideal mixture (identity).
  *                     Row i gives d_i = sum_j Gamma_ij grad x_j.
- *  @param grad_lnP    gradient of ln P [1/m], length n_dim, or NULL.
+ *    grad_lnP         gradient of ln P [1/m], length n_dim, or NULL.
  *  @param flux_basis  MOLE: out_flux = J_i; MASS: out_flux = j_i.
  *  @param out_flux    N x n_dim; sums to zero over species to round-off.
  *  The driving forces are first projected onto sum_i d_i = 0 by
@@ -578,13 +602,7 @@ typedef enum mcd_model {
  *  | Allocates: no
  *  | Threads: one ws per thread */
 MCD_API mcd_status mcd_flux_compute(mcd_workspace *ws, mcd_model model,
-                                    size_t n_species, size_t n_dim,
-                                    const double *M, const double *Dij,
-                                    double c, mcd_basis comp_basis,
-                                    const double *comp,
-                                    const double *grad_comp,
-                                    const double *Gamma,
-                                    const double *grad_lnP,
+                                    const mcd_state *state,
                                     mcd_basis flux_basis, double *out_flux);
 
 /** Value for `dependent` arguments: pick the most abundant species. */
@@ -595,22 +613,21 @@ MCD_API mcd_status mcd_flux_compute(mcd_workspace *ws, mcd_model model,
  *  J = -c [D] grad x (MOLE basis, molar-average frame) or
  *  j = -rho [D°] grad w (MASS basis, mass-average frame, obtained from the
  *  molar one by the frame transformation). [D] = [B]^-1 [Gamma].
+ *  @param state           as for mcd_flux_compute; n_dim, c and grad are
+ *                         not used; M is needed for the MASS basis.
+ *  @param basis           basis of the matrix (MOLE or MASS).
  *  @param dependent       index of the species left out, or
  *                         MCD_DEPENDENT_AUTO (the most abundant).
- *  @param out_dependent   index used (may be NULL). Other parameters as in
- *                         mcd_flux_compute; M needed for MASS. For N = 1
+ *  @param out_dependent   index used (may be NULL). For N = 1
  *                         nothing is written to out_D. The matrix carries no
  *                         concentration: pass c (MOLE) or rho = c Mbar (MASS)
  *                         to mcd_fick_fluxes. Its fluxes equal those of
  *                         mcd_flux_compute when the gradients sum to zero
  *                         (Gamma is projected the same way). Since 0.1.
  *  Fails: EINVAL, EDOM, EBADLEN, ESING | Allocates: no */
-MCD_API mcd_status mcd_fick_matrix(mcd_workspace *ws, size_t n_species,
-                                   const double *M, const double *Dij,
-                                   mcd_basis comp_basis, const double *comp,
-                                   const double *Gamma, mcd_basis basis,
-                                   size_t dependent, double *out_D,
-                                   size_t *out_dependent);
+MCD_API mcd_status mcd_fick_matrix(mcd_workspace *ws, const mcd_state *state,
+                                   mcd_basis basis, size_t dependent,
+                                   double *out_D, size_t *out_dependent);
 
 /** Fluxes from a caller's Fick matrix: for i != dependent,
  *  F_i = -c_or_rho sum_j D_ij grad_j, F_dependent = -sum of the others.

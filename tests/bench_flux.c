@@ -366,10 +366,7 @@ static int run(mcd_db *db, size_t n, double scale)
         for (size_t k = 0; k < K; k++) {
             double xs[128], gs[128 * ND];
             caller_gather(n, K, k, T, P, coef, x, g, Dc, xs, gs);
-            if (mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, n, ND, NULL, Dc,
-                                 P[k] / (MCD_GAS_CONSTANT * T[k]),
-                                 MCD_BASIS_MOLE, xs, gs, NULL, NULL,
-                                 MCD_BASIS_MOLE, Jc) != MCD_OK)
+            if (mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = n, .n_dim = ND, .Dij = Dc, .c = P[k] / (MCD_GAS_CONSTANT * T[k]), .comp_basis = MCD_BASIS_MOLE, .comp = xs, .grad = gs}, MCD_BASIS_MOLE, Jc) != MCD_OK)
                 bad = 1;
         }
         tb[r] = now_s() - t0;

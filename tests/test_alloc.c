@@ -87,9 +87,7 @@ START_TEST(alloc_batched_calls_do_not_allocate)
                 continue; /* single-state LAPACK path: see test_flux_identities */
             for (i = 0; i < n * n; i++)
                 Dcell[i] = Dsoa[i * KC];
-            st[ns++] = mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, n, ND, M, Dcell,
-                                        40.0, MCD_BASIS_MOLE, xsoa, gsoa, NULL, NULL,
-                                        MCD_BASIS_MOLE, F);
+            st[ns++] = mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = n, .n_dim = ND, .M = M, .Dij = Dcell, .c = 40.0, .comp_basis = MCD_BASIS_MOLE, .comp = xsoa, .grad = gsoa}, MCD_BASIS_MOLE, F);
         }
         st[ns++] = mcd_workspace_set_iterative(ws, 50, 1e-9);
         st[ns++] = mcd_workspace_iterative_outcome(ws, &est, &used);

@@ -272,9 +272,7 @@ static void lib_flux(mcd_model model, const double *Dij, const long double *xm,
         x[i] = (double)xm[i];
         g[i] = (double)gx[i];
     }
-    mcd_status st = mcd_flux_compute(ws, model, NS, 1, MM, Dij, conc(),
-                                     MCD_BASIS_MOLE, x, g, NULL, NULL,
-                                     flux_basis, F);
+    mcd_status st = mcd_flux_compute(ws, model, &(mcd_state){.n_species = NS, .n_dim = 1, .M = MM, .Dij = Dij, .c = conc(), .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g}, flux_basis, F);
     ck_assert_msg(st == MCD_OK, "mcd_flux_compute: %s (%s)",
                   mcd_status_string(st), mcd_last_error());
 }
@@ -624,8 +622,7 @@ START_TEST(duncan_toor_fick_matrix_has_strong_n2_cross_terms)
     ref_ms(Dij, xm, gx, (long double)conc(), CO2, Jdummy, Fref);
     double D[4] = {12345.678, 12345.678, 12345.678, 12345.678};
     size_t dep = 99;
-    mcd_status st = mcd_fick_matrix(ws, NS, MM, Dij, MCD_BASIS_MOLE, x, NULL,
-                                    MCD_BASIS_MOLE, CO2, D, &dep);
+    mcd_status st = mcd_fick_matrix(ws, &(mcd_state){.n_species = NS, .M = MM, .Dij = Dij, .comp_basis = MCD_BASIS_MOLE, .comp = x}, MCD_BASIS_MOLE, CO2, D, &dep);
     ck_assert_msg(st == MCD_OK, "mcd_fick_matrix: %s (%s)",
                   mcd_status_string(st), mcd_last_error());
     ck_assert_uint_eq(dep, CO2);
@@ -666,8 +663,7 @@ START_TEST(duncan_toor_fick_matrix_has_strong_n2_cross_terms)
     for (int k = 0; k < 2; k++) {
         double D2[4], r2[2], i2[2];
         size_t d2 = 99;
-        ck_assert_int_eq(mcd_fick_matrix(ws, NS, MM, Dij, MCD_BASIS_MOLE, x,
-                                         NULL, MCD_BASIS_MOLE, deps[k], D2, &d2),
+        ck_assert_int_eq(mcd_fick_matrix(ws, &(mcd_state){.n_species = NS, .M = MM, .Dij = Dij, .comp_basis = MCD_BASIS_MOLE, .comp = x}, MCD_BASIS_MOLE, deps[k], D2, &d2),
                          MCD_OK);
         ck_assert_uint_eq(d2, expect_dep[k]);
         ck_assert_int_eq(mcd_fick_eigenvalues(ws, 2, D2, r2, i2), MCD_OK);

@@ -231,8 +231,7 @@ static void check_state(const char *label, size_t n, const double *M, const doub
     const double tol = ACCURACY;
 
     /* Maxwell-Stefan, molar */
-    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, n, ND, M, D, c,
-                                      MCD_BASIS_MOLE, x, grad, NULL, NULL, MCD_BASIS_MOLE, J),
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = n, .n_dim = ND, .M = M, .Dij = D, .c = c, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = grad}, MCD_BASIS_MOLE, J),
                      MCD_OK);
     check_zero_sum(n, J);
     double e = rel_err(n * ND, J, Jr);
@@ -242,8 +241,7 @@ static void check_state(const char *label, size_t n, const double *M, const doub
         worst_ms = e;
 
     /* Maxwell-Stefan, mass fluxes: j_i = M_i J_i - w_i sum_k M_k J_k */
-    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, n, ND, M, D, c,
-                                      MCD_BASIS_MOLE, x, grad, NULL, NULL, MCD_BASIS_MASS, jm),
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = n, .n_dim = ND, .M = M, .Dij = D, .c = c, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = grad}, MCD_BASIS_MASS, jm),
                      MCD_OK);
     check_zero_sum(n, jm);
     {
@@ -267,8 +265,7 @@ static void check_state(const char *label, size_t n, const double *M, const doub
 
     /* Fick route: J = -c [D] grad x over the independent species */
     if (n >= 2) {
-        ck_assert_int_eq(mcd_fick_matrix(ws, n, M, D, MCD_BASIS_MOLE, x, NULL, MCD_BASIS_MOLE,
-                                         MCD_DEPENDENT_AUTO, F, &dep),
+        ck_assert_int_eq(mcd_fick_matrix(ws, &(mcd_state){.n_species = n, .M = M, .Dij = D, .comp_basis = MCD_BASIS_MOLE, .comp = x}, MCD_BASIS_MOLE, MCD_DEPENDENT_AUTO, F, &dep),
                          MCD_OK);
         ck_assert_int_eq(mcd_fick_fluxes(n, ND, F, dep, c, grad, JF), MCD_OK);
         double ef = rel_err(n * ND, JF, Jr);
@@ -280,12 +277,10 @@ static void check_state(const char *label, size_t n, const double *M, const doub
     }
 
     /* mixture-averaged: finite, zero-sum (no reference: an approximation) */
-    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED, n, ND, M, D, c,
-                                      MCD_BASIS_MOLE, x, grad, NULL, NULL, MCD_BASIS_MOLE, J),
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED, &(mcd_state){.n_species = n, .n_dim = ND, .M = M, .Dij = D, .c = c, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = grad}, MCD_BASIS_MOLE, J),
                      MCD_OK);
     check_zero_sum(n, J);
-    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED, n, ND, M, D, c,
-                                      MCD_BASIS_MOLE, x, grad, NULL, NULL, MCD_BASIS_MASS, J),
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED, &(mcd_state){.n_species = n, .n_dim = ND, .M = M, .Dij = D, .c = c, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = grad}, MCD_BASIS_MASS, J),
                      MCD_OK);
     check_zero_sum(n, J);
 
@@ -345,9 +340,7 @@ START_TEST(edge_cases_trace_species)
         mcd_workspace *ws;
         double J[8];
         ck_assert_int_eq(mcd_workspace_new(4, &ws), MCD_OK);
-        ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, 4, 2, M, D, C_TOT,
-                                          MCD_BASIS_MOLE, x0, grad, NULL, NULL,
-                                          MCD_BASIS_MOLE, J),
+        ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = 4, .n_dim = 2, .M = M, .Dij = D, .c = C_TOT, .comp_basis = MCD_BASIS_MOLE, .comp = x0, .grad = grad}, MCD_BASIS_MOLE, J),
                          MCD_OK);
         double s = x0[1] / D[1] + x0[2] / D[2] + x0[3] / D[3];
         for (int d = 0; d < 2; d++)
@@ -441,9 +434,7 @@ START_TEST(edge_cases_tiny_concentration_near_trace_species)
     double J[2], want;
     mcd_workspace *ws;
     ck_assert_int_eq(mcd_workspace_new(2, &ws), MCD_OK);
-    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, 2, 1, NULL,
-                                      D, c, MCD_BASIS_MOLE, x, g, NULL, NULL,
-                                      MCD_BASIS_MOLE, J), MCD_OK);
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = 2, .n_dim = 1, .Dij = D, .c = c, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g}, MCD_BASIS_MOLE, J), MCD_OK);
     want = -c * (Dv * (g0 * (1.0 - x0))); /* ordered to stay representable */
     ck_assert_msg(fabs(J[0] - want) <= 1e-12 * fabs(want), "J0 %.17g want %.17g",
                   J[0], want);
@@ -476,13 +467,9 @@ START_TEST(edge_cases_trace_coupling_when_c_times_dij_underflows)
     for (i = 0; i < N * ND; i++)
         g[i] = g1[i] * 1e30;
     ck_assert_int_eq(mcd_workspace_new(N, &ws), MCD_OK);
-    ck_assert_msg(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, N, ND, NULL, D,
-                                   1e-300, MCD_BASIS_MOLE, x, g, NULL, NULL,
-                                   MCD_BASIS_MOLE, J) == MCD_OK,
+    ck_assert_msg(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = N, .n_dim = ND, .Dij = D, .c = 1e-300, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g}, MCD_BASIS_MOLE, J) == MCD_OK,
                   "%s", mcd_last_error());
-    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, N, ND, NULL,
-                                      Dn, 1.0, MCD_BASIS_MOLE, x, g1, NULL, NULL,
-                                      MCD_BASIS_MOLE, Jr), MCD_OK);
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = N, .n_dim = ND, .Dij = Dn, .c = 1.0, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g1}, MCD_BASIS_MOLE, Jr), MCD_OK);
     for (i = 0; i < N * ND; i++)
         if (fabs(Jr[i]) > scale)
             scale = fabs(Jr[i]);
@@ -520,12 +507,8 @@ START_TEST(edge_cases_mixture_averaged_when_c_times_dij_underflows)
     for (i = 0; i < N * ND; i++)
         g[i] = g1[i] * 1e30;
     ck_assert_int_eq(mcd_workspace_new(N, &ws), MCD_OK);
-    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED, N, ND, NULL,
-                                      Dn, 1.0, MCD_BASIS_MOLE, x, g1, NULL, NULL,
-                                      MCD_BASIS_MOLE, Jr), MCD_OK);
-    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED, N, ND, NULL,
-                                      D, c, MCD_BASIS_MOLE, x, g, NULL, NULL,
-                                      MCD_BASIS_MOLE, J), MCD_OK);
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED, &(mcd_state){.n_species = N, .n_dim = ND, .Dij = Dn, .c = 1.0, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g1}, MCD_BASIS_MOLE, Jr), MCD_OK);
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED, &(mcd_state){.n_species = N, .n_dim = ND, .Dij = D, .c = c, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g}, MCD_BASIS_MOLE, J), MCD_OK);
     /* one cell, SoA with K = 1 is the same memory order */
     ck_assert_int_eq(mcd_flux_batch_dij(ws, MCD_MODEL_MIXTURE_AVERAGED, N, 1, ND,
                                         NULL, D, &c, MCD_BASIS_MOLE, x, g, NULL,
@@ -578,9 +561,7 @@ START_TEST(edge_cases_molar_masses_decades_apart_are_an_error)
     ck_assert_int_eq(mcd_workspace_new(N, &ws), MCD_OK);
     for (i = 0; i < N * D3; i++)
         out[i] = guard;
-    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, N, D3, M, D,
-                                      c, MCD_BASIS_MASS, w, g, NULL, NULL,
-                                      MCD_BASIS_MASS, out), MCD_EDOM);
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = N, .n_dim = D3, .M = M, .Dij = D, .c = c, .comp_basis = MCD_BASIS_MASS, .comp = w, .grad = g}, MCD_BASIS_MASS, out), MCD_EDOM);
     ck_assert_ptr_nonnull(strstr(mcd_last_error(), "span"));
     for (i = 0; i < N * D3; i++)
         ck_assert(out[i] == guard);
@@ -598,9 +579,7 @@ START_TEST(edge_cases_molar_masses_decades_apart_are_an_error)
             sxm += w[i] / M[i];
         for (i = 0; i < N; i++)
             x[i] = w[i] / M[i] / sxm;
-        ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, N, D3,
-                                          NULL, D, c, MCD_BASIS_MOLE, x, g, NULL,
-                                          NULL, MCD_BASIS_MOLE, out), MCD_OK);
+        ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = N, .n_dim = D3, .Dij = D, .c = c, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g}, MCD_BASIS_MOLE, out), MCD_OK);
     }
     for (d = 0; d < D3; d++) {
         s = a = 0.0;

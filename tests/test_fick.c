@@ -129,15 +129,12 @@ START_TEST(fick_fluxes_equal_flux_compute_for_any_dependent)
             double F[NMAX * DMAX];
             const double *comp = b ? s.w : s.x, *grad = b ? s.gw : s.g;
             double conc = b ? s.rho : s.c;
-            ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, n, s.nd,
-                                              s.M, s.D, s.c, (mcd_basis)b, comp,
-                                              grad, G, NULL, (mcd_basis)b, F),
+            ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = n, .n_dim = s.nd, .M = s.M, .Dij = s.D, .c = s.c, .comp_basis = (mcd_basis)b, .comp = comp, .grad = grad, .Gamma = G}, (mcd_basis)b, F),
                              MCD_OK);
             for (dep = 0; dep <= n; dep++) {
                 double Df[(NMAX - 1) * (NMAX - 1)], Ff[NMAX * DMAX], e;
                 size_t want = dep == n ? MCD_DEPENDENT_AUTO : dep, used = 999;
-                mcd_status st = mcd_fick_matrix(ws, n, s.M, s.D, (mcd_basis)b, comp,
-                                                G, (mcd_basis)b, want, Df, &used);
+                mcd_status st = mcd_fick_matrix(ws, &(mcd_state){.n_species = n, .M = s.M, .Dij = s.D, .comp_basis = (mcd_basis)b, .comp = comp, .Gamma = G}, (mcd_basis)b, want, Df, &used);
                 ck_assert_msg(st == MCD_OK, "fick_matrix N=%zu dep %zu: %d %s", n,
                               dep, (int)st, mcd_last_error());
                 if (dep < n)
@@ -199,8 +196,7 @@ START_TEST(fick_ternary_matrix_matches_hand_formula)
         ref[1] = (B[3] * Gr[1] - B[1] * Gr[3]) / det;
         ref[2] = (-B[2] * Gr[0] + B[0] * Gr[2]) / det;
         ref[3] = (-B[2] * Gr[1] + B[0] * Gr[3]) / det;
-        ck_assert_int_eq(mcd_fick_matrix(ws, 3, s.M, s.D, MCD_BASIS_MOLE, s.x, G,
-                                         MCD_BASIS_MOLE, 2, Df, NULL),
+        ck_assert_int_eq(mcd_fick_matrix(ws, &(mcd_state){.n_species = 3, .M = s.M, .Dij = s.D, .comp_basis = MCD_BASIS_MOLE, .comp = s.x, .Gamma = G}, MCD_BASIS_MOLE, 2, Df, NULL),
                          MCD_OK);
         ck_assert_msg(sup_rel_diff(Df, ref, 4) <= 1e-12, "ternary %g",
                       sup_rel_diff(Df, ref, 4));
@@ -221,14 +217,11 @@ START_TEST(fick_binary_is_fick_diffusivity_in_both_frames)
         random_state(&s, 2, 0);
         G[0] = Gb; G[1] = 0.0; G[2] = 0.0; G[3] = Gb;
         for (b = 0; b < 2; b++) {
-            ck_assert_int_eq(mcd_fick_matrix(ws, 2, s.M, s.D, MCD_BASIS_MOLE, s.x,
-                                             NULL, (mcd_basis)b,
-                                             MCD_DEPENDENT_AUTO, &Df, &used),
+            ck_assert_int_eq(mcd_fick_matrix(ws, &(mcd_state){.n_species = 2, .M = s.M, .Dij = s.D, .comp_basis = MCD_BASIS_MOLE, .comp = s.x}, (mcd_basis)b, MCD_DEPENDENT_AUTO, &Df, &used),
                              MCD_OK);
             ck_assert(fabs(Df - s.D[1]) <= 1e-13 * s.D[1]);
             ck_assert_uint_eq(used, s.x[1] > s.x[0] ? 1u : 0u);
-            ck_assert_int_eq(mcd_fick_matrix(ws, 2, s.M, s.D, MCD_BASIS_MOLE, s.x,
-                                             G, (mcd_basis)b, 0, &Df, &used),
+            ck_assert_int_eq(mcd_fick_matrix(ws, &(mcd_state){.n_species = 2, .M = s.M, .Dij = s.D, .comp_basis = MCD_BASIS_MOLE, .comp = s.x, .Gamma = G}, (mcd_basis)b, 0, &Df, &used),
                              MCD_OK);
             ck_assert(fabs(Df - s.D[1] * Gb) <= 1e-13 * s.D[1] * Gb);
         }
@@ -260,9 +253,7 @@ START_TEST(fick_trace_species_row_is_blanc)
             for (r = 0; r < n; r++)
                 s.x[r] /= rr;
         }
-        ck_assert_int_eq(mcd_fick_matrix(ws, n, s.M, s.D, MCD_BASIS_MOLE, s.x,
-                                         NULL, MCD_BASIS_MOLE, MCD_DEPENDENT_AUTO,
-                                         Df, &used),
+        ck_assert_int_eq(mcd_fick_matrix(ws, &(mcd_state){.n_species = n, .M = s.M, .Dij = s.D, .comp_basis = MCD_BASIS_MOLE, .comp = s.x}, MCD_BASIS_MOLE, MCD_DEPENDENT_AUTO, Df, &used),
                          MCD_OK);
         ck_assert_uint_ne(used, t);
         r = t < used ? t : t - 1;
@@ -317,9 +308,7 @@ START_TEST(fick_eigenvalues_real_positive_and_invariant)
         for (b = 0; b < 2; b++)
             for (dep = 0; dep < n; dep += 1 + (size_t)(sup_next(&rng) % 3)) {
                 double e = 0.0;
-                ck_assert_int_eq(mcd_fick_matrix(ws, n, s.M, s.D, MCD_BASIS_MOLE,
-                                                 s.x, NULL, (mcd_basis)b, dep, Df,
-                                                 NULL),
+                ck_assert_int_eq(mcd_fick_matrix(ws, &(mcd_state){.n_species = n, .M = s.M, .Dij = s.D, .comp_basis = MCD_BASIS_MOLE, .comp = s.x}, (mcd_basis)b, dep, Df, NULL),
                                  MCD_OK);
                 ck_assert_int_eq(mcd_fick_eigenvalues(ws, m, Df, re, im), MCD_OK);
                 for (i = 0; i + 1 < m; i++)
@@ -391,6 +380,21 @@ START_TEST(fick_eigenvalues_that_overflow_are_an_error)
 }
 END_TEST
 
+/* mcd_fick_matrix with the state's fields as arguments (table rows below). */
+static mcd_status fick_args(mcd_workspace *w, size_t n, const double *M, const double *D,
+                            mcd_basis cb, const double *x, const double *G, mcd_basis basis,
+                            size_t dep, double *out, size_t *out_dep)
+{
+    mcd_state s = {0};
+    s.n_species = n;
+    s.M = M;
+    s.Dij = D;
+    s.comp_basis = cb;
+    s.comp = x;
+    s.Gamma = G;
+    return mcd_fick_matrix(w, &s, basis, dep, out, out_dep);
+}
+
 START_TEST(fick_errors_leave_outputs_untouched)
 {
     enum { N = 3 };
@@ -420,7 +424,7 @@ START_TEST(fick_errors_leave_outputs_untouched)
 #define FM(code, arg, ...)                                                    \
     do {                                                                      \
         GUARDS();                                                             \
-        ck_assert_int_eq(mcd_fick_matrix(__VA_ARGS__), code);                 \
+        ck_assert_int_eq(fick_args(__VA_ARGS__), code);                       \
         INTACT();                                                             \
         {                                                                     \
             const char *a_ = (arg);                                           \
@@ -470,7 +474,7 @@ START_TEST(fick_errors_leave_outputs_untouched)
     }
     ck_assert_int_eq(mcd_workspace_new(2, &small), MCD_OK);
     GUARDS();
-    ck_assert_int_eq(mcd_fick_matrix(small, N, M, D, 0, x, NULL, 0, 0, out, &dep),
+    ck_assert_int_eq(mcd_fick_matrix(small, &(mcd_state){.n_species = N, .M = M, .Dij = D, .comp_basis = 0, .comp = x}, 0, 0, out, &dep),
                      MCD_EBADLEN);
     INTACT();
     /* eigenvalues: m above capacity - 1, NULL, NaN */
@@ -524,8 +528,7 @@ START_TEST(fick_errors_leave_outputs_untouched)
         double g1[2] = {0.5, 0.5};
         out[0] = SUP_GUARD;
         dep = 777;
-        ck_assert_int_eq(mcd_fick_matrix(ws, 1, &M1, &D1, 0, &one, NULL, 1,
-                                         MCD_DEPENDENT_AUTO, out, &dep),
+        ck_assert_int_eq(mcd_fick_matrix(ws, &(mcd_state){.n_species = 1, .M = &M1, .Dij = &D1, .comp_basis = 0, .comp = &one}, 1, MCD_DEPENDENT_AUTO, out, &dep),
                          MCD_OK);
         ck_assert(out[0] == SUP_GUARD);
         ck_assert_uint_eq(dep, 0);

@@ -118,8 +118,7 @@ static mcd_status flux(const state *s, mcd_model model, mcd_basis cb,
                        const double *Gamma, const double *glnP, mcd_basis fb,
                        double *out)
 {
-    return mcd_flux_compute(ws, model, s->n, s->nd, s->M, s->D, s->c, cb, comp,
-                            grad, Gamma, glnP, fb, out);
+    return mcd_flux_compute(ws, model, &(mcd_state){.n_species = s->n, .n_dim = s->nd, .M = s->M, .Dij = s->D, .c = s->c, .comp_basis = cb, .comp = comp, .grad = grad, .Gamma = Gamma, .grad_lnP = glnP}, fb, out);
 }
 
 /* ------------------------------------------------------------------ */
@@ -258,10 +257,7 @@ START_TEST(flux_identities_onsager_symmetry_of_velocity_map)
                 g[q] = 0.0;
             g[j] = 1.0;
             g[ref] = -1.0;
-            ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, n, 1,
-                                              NULL, s.D, s.c, MCD_BASIS_MOLE,
-                                              s.x, g, Gam, NULL, MCD_BASIS_MOLE,
-                                              J),
+            ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = n, .n_dim = 1, .Dij = s.D, .c = s.c, .comp_basis = MCD_BASIS_MOLE, .comp = s.x, .grad = g, .Gamma = Gam}, MCD_BASIS_MOLE, J),
                              MCD_OK);
             for (i = 0; i < n; i++)
                 S[i * n + j] = J[i] / (s.c * s.x[i]) - J[ref] / (s.c * s.x[ref]);
@@ -538,9 +534,7 @@ START_TEST(flux_identities_pure_component_and_single_species)
     {
         double M1 = 0.028, D1 = 0.0, x1 = 1.0, g1[3] = {1.0, 2.0, 3.0};
         double F[3] = {SUP_GUARD, SUP_GUARD, SUP_GUARD};
-        ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, 1, 3, &M1,
-                                          &D1, 40.0, MCD_BASIS_MOLE, &x1, g1,
-                                          NULL, NULL, MCD_BASIS_MASS, F),
+        ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = 1, .n_dim = 3, .M = &M1, .Dij = &D1, .c = 40.0, .comp_basis = MCD_BASIS_MOLE, .comp = &x1, .grad = g1}, MCD_BASIS_MASS, F),
                          MCD_OK);
         ck_assert(F[0] == 0.0 && F[1] == 0.0 && F[2] == 0.0);
     }
@@ -802,9 +796,13 @@ START_TEST(flux_identities_errors_leave_output_untouched)
                           "message '%s' lacks '%s'",                          \
                           mcd_last_error(), r.arg);               \
     } while (0)
-#define CALL(ws_, model, n, nd, M_, D_, c, cb, comp, grad, G_, lp, fb)         \
-    mcd_flux_compute(ws_, model, n, nd, M_, D_, c, cb, comp, grad, G_, lp, fb, \
-                     out)
+#define CALL(ws_, model_, n_, nd_, M_, D_, c_, cb_, x_, g_, G_, lp_, fb_)     \
+    mcd_flux_compute(ws_, model_,                                             \
+                     &(mcd_state){.n_species = n_, .n_dim = nd_, .M = M_,     \
+                                  .Dij = D_, .c = c_, .comp_basis = cb_,      \
+                                  .comp = x_, .grad = g_, .Gamma = G_,        \
+                                  .grad_lnP = lp_},                           \
+                     fb_, out)
 
     EXPECT(CALL(NULL, 0, N, ND, M, D, 40.0, 0, x, g, NULL, NULL, 0), MCD_EINVAL,
            NULL);
@@ -812,8 +810,7 @@ START_TEST(flux_identities_errors_leave_output_untouched)
            "n_species");
     ck_assert_int_eq(mcd_workspace_new(2, &small), MCD_OK);
     sup_guard_fill(out, N * ND);
-    ck_assert_int_eq(mcd_flux_compute(small, 0, N, ND, M, D, 40.0, 0, x, g, NULL,
-                                      NULL, 0, out),
+    ck_assert_int_eq(mcd_flux_compute(small, 0, &(mcd_state){.n_species = N, .n_dim = ND, .M = M, .Dij = D, .c = 40.0, .comp_basis = 0, .comp = x, .grad = g}, 0, out),
                      MCD_EBADLEN);
     ck_assert(sup_guard_intact(out, N * ND));
     ck_assert(strstr(mcd_last_error(), "n_species") != NULL);
@@ -835,15 +832,15 @@ START_TEST(flux_identities_errors_leave_output_untouched)
     EXPECT(CALL(ws, 0, N, ND, M, D, 40.0, 0, NULL, g, NULL, NULL, 0), MCD_EINVAL,
            "comp");
     EXPECT(CALL(ws, 0, N, ND, M, D, 40.0, 0, x, NULL, NULL, NULL, 0), MCD_EINVAL,
-           "grad_comp");
+           "grad");
+    EXPECT(mcd_flux_compute(ws, 0, NULL, 0, out), MCD_EINVAL, "argument state: NULL");
     EXPECT(CALL(ws, 0, N, ND, NULL, D, 40.0, 1, x, g, NULL, NULL, 0), MCD_EINVAL,
            "M");
     EXPECT(CALL(ws, 0, N, ND, NULL, D, 40.0, 0, x, g, NULL, NULL, 1), MCD_EINVAL,
            "M");
     EXPECT(CALL(ws, 0, N, ND, NULL, D, 40.0, 0, x, g, NULL, glnP, 0), MCD_EINVAL,
            "M");
-    ck_assert_int_eq(mcd_flux_compute(ws, 0, N, ND, M, D, 40.0, 0, x, g, NULL,
-                                      NULL, 0, NULL),
+    ck_assert_int_eq(mcd_flux_compute(ws, 0, &(mcd_state){.n_species = N, .n_dim = ND, .M = M, .Dij = D, .c = 40.0, .comp_basis = 0, .comp = x, .grad = g}, 0, NULL),
                      MCD_EINVAL);
     EXPECT(CALL(ws, 0, N, ND, M, D, 0.0, 0, x, g, NULL, NULL, 0), MCD_EDOM, "c");
     EXPECT(CALL(ws, 0, N, ND, M, D, -40.0, 0, x, g, NULL, NULL, 0), MCD_EDOM, "c");
@@ -895,7 +892,7 @@ START_TEST(flux_identities_errors_leave_output_untouched)
         double Gn[N * N] = {1, 0, 0, 0, INFINITY, 0, 0, 0, 1};
         double ln[ND] = {0.0, NAN};
         EXPECT(CALL(ws, 0, N, ND, M, D, 40.0, 0, x, gn, NULL, NULL, 0), MCD_EINVAL,
-               "grad_comp");
+               "argument grad");
         EXPECT(CALL(ws, 0, N, ND, M, D, 40.0, 0, x, g, Gn, NULL, 0), MCD_EINVAL,
                "Gamma");
         EXPECT(CALL(ws, 0, N, ND, M, D, 40.0, 0, x, g, NULL, ln, 0), MCD_EINVAL,
@@ -1029,9 +1026,7 @@ START_TEST(flux_identities_large_capacity_path_matches_small)
                 g[i] -= m / NB;
         }
         sup_dij_decades(&rng, NB, D, -6.0, -4.0);
-        ck_assert_int_eq(mcd_flux_compute(big, MCD_MODEL_MAXWELL_STEFAN, NB, 1,
-                                          NULL, D, 30.0, MCD_BASIS_MOLE, x, g,
-                                          NULL, NULL, MCD_BASIS_MOLE, J),
+        ck_assert_int_eq(mcd_flux_compute(big, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = NB, .n_dim = 1, .Dij = D, .c = 30.0, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g}, MCD_BASIS_MOLE, J),
                          MCD_OK);
         for (i = 0; i < NB; i++) {
             long double r = g[i], sc = fabsl(r);
@@ -1100,14 +1095,9 @@ START_TEST(flux_identities_per_state_calls_do_not_allocate)
             for (i = 0; i < nn; i++)
                 for (j = 0; j < nn; j++)
                     Dn[i * nn + j] = D[i * NB + j];
-            st[ns++] = mcd_flux_compute(big, MCD_MODEL_MAXWELL_STEFAN, nn, 2, M, Dn,
-                                        40.0, MCD_BASIS_MASS, xs, g, NULL, NULL,
-                                        MCD_BASIS_MASS, F);
-            st[ns++] = mcd_flux_compute(big, MCD_MODEL_MIXTURE_AVERAGED, nn, 2, M,
-                                        Dn, 40.0, MCD_BASIS_MOLE, xs, g, NULL, NULL,
-                                        MCD_BASIS_MASS, F);
-            st[ns++] = mcd_fick_matrix(big, nn, M, Dn, MCD_BASIS_MOLE, xs, NULL,
-                                       MCD_BASIS_MASS, MCD_DEPENDENT_AUTO, Df, NULL);
+            st[ns++] = mcd_flux_compute(big, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = nn, .n_dim = 2, .M = M, .Dij = Dn, .c = 40.0, .comp_basis = MCD_BASIS_MASS, .comp = xs, .grad = g}, MCD_BASIS_MASS, F);
+            st[ns++] = mcd_flux_compute(big, MCD_MODEL_MIXTURE_AVERAGED, &(mcd_state){.n_species = nn, .n_dim = 2, .M = M, .Dij = Dn, .c = 40.0, .comp_basis = MCD_BASIS_MOLE, .comp = xs, .grad = g}, MCD_BASIS_MASS, F);
+            st[ns++] = mcd_fick_matrix(big, &(mcd_state){.n_species = nn, .M = M, .Dij = Dn, .comp_basis = MCD_BASIS_MOLE, .comp = xs}, MCD_BASIS_MASS, MCD_DEPENDENT_AUTO, Df, NULL);
             st[ns++] = mcd_fick_eigenvalues(big, nn - 1, Df, re, im);
         }
         if (pass == 1)

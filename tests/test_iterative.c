@@ -64,9 +64,7 @@ static void prob_make(prob *p, size_t n, mcd_workspace *ws, mcd_model refm)
         }
         for (i = 0; i < n * n; i++)
             p->D[i * KC + k] = Dk[i];
-        ck_assert_int_eq(mcd_flux_compute(ws, refm, n, ND, NULL, Dk, p->c[k],
-                                          MCD_BASIS_MOLE, xk, gk, NULL, NULL,
-                                          MCD_BASIS_MOLE, F), MCD_OK);
+        ck_assert_int_eq(mcd_flux_compute(ws, refm, &(mcd_state){.n_species = n, .n_dim = ND, .Dij = Dk, .c = p->c[k], .comp_basis = MCD_BASIS_MOLE, .comp = xk, .grad = gk}, MCD_BASIS_MOLE, F), MCD_OK);
         for (i = 0; i < n * ND; i++)
             p->ref[i * KC + k] = F[i];
     }

@@ -83,20 +83,13 @@ static mcd_status compute_state(mcd_workspace *ws, int k, double *out)
     make_state(k, &st);
     if ((r = mcd_mixture_binaries(g_mix, st.T, st.P, D, NULL, NULL)) != MCD_OK)
         return r;
-    if ((r = mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, NS, ND, g_M, D, st.c,
-                              MCD_BASIS_MOLE, st.x, st.grad, NULL, NULL,
-                              MCD_BASIS_MOLE, Jms)) != MCD_OK)
+    if ((r = mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = NS, .n_dim = ND, .M = g_M, .Dij = D, .c = st.c, .comp_basis = MCD_BASIS_MOLE, .comp = st.x, .grad = st.grad}, MCD_BASIS_MOLE, Jms)) != MCD_OK)
         return r;
-    if ((r = mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED, NS, ND, g_M, D, st.c,
-                              MCD_BASIS_MOLE, st.x, st.grad, NULL, NULL,
-                              MCD_BASIS_MOLE, Jma)) != MCD_OK)
+    if ((r = mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED, &(mcd_state){.n_species = NS, .n_dim = ND, .M = g_M, .Dij = D, .c = st.c, .comp_basis = MCD_BASIS_MOLE, .comp = st.x, .grad = st.grad}, MCD_BASIS_MOLE, Jma)) != MCD_OK)
         return r;
-    if ((r = mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, NS, ND, g_M, D, st.c,
-                              MCD_BASIS_MOLE, st.x, st.grad, NULL, NULL,
-                              MCD_BASIS_MASS, jms)) != MCD_OK)
+    if ((r = mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = NS, .n_dim = ND, .M = g_M, .Dij = D, .c = st.c, .comp_basis = MCD_BASIS_MOLE, .comp = st.x, .grad = st.grad}, MCD_BASIS_MASS, jms)) != MCD_OK)
         return r;
-    if ((r = mcd_fick_matrix(ws, NS, g_M, D, MCD_BASIS_MOLE, st.x, NULL,
-                             MCD_BASIS_MOLE, 0, F, NULL)) != MCD_OK)
+    if ((r = mcd_fick_matrix(ws, &(mcd_state){.n_species = NS, .M = g_M, .Dij = D, .comp_basis = MCD_BASIS_MOLE, .comp = st.x}, MCD_BASIS_MOLE, 0, F, NULL)) != MCD_OK)
         return r;
     /* Film: equimolar counter-diffusion between x and xL over 1 mm. */
     return mcd_film_solve(ws, NS, D, st.c, 1e-3, st.x, st.xL, MCD_FILM_BOOT_EQUIMOLAR,

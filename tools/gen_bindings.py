@@ -726,6 +726,36 @@ def _wrap_list(prefix, items, indent, width=79, close=""):
     return lines
 
 
+_PY_FIELD = {"size_t": "ctypes.c_size_t", "double": "ctypes.c_double",
+             "int": "ctypes.c_int", "unsigned": "ctypes.c_uint",
+             "long": "ctypes.c_long"}
+
+
+def _python_structs(api):
+    """ctypes.Structure mirrors of the header's data structs (those without
+    function pointers), same names as in C; pass them with ctypes.byref."""
+    out = []
+    for st in api.structs.values():
+        if st.opaque or any(isinstance(t, Function) for _, t in st.fields):
+            continue
+        out += ["", "class %s(ctypes.Structure):" % st.name,
+                '    """struct %s of include/mcdiff.h."""' % st.name,
+                "    _fields_ = ["]
+        for fname, ft in st.fields:
+            if ft.depth == 1 and ft.base == "double":
+                ctype = "ctypes.POINTER(ctypes.c_double)"
+            elif ft.depth == 0 and api.type_kind(ft.base) == "enum":
+                ctype = "ctypes.c_int"
+            elif ft.depth == 0 and ft.base in _PY_FIELD:
+                ctype = _PY_FIELD[ft.base]
+            else:
+                raise ValueError("struct %s field %s: no Python mapping"
+                                 % (st.name, fname))
+            out.append('        ("%s", %s),' % (fname, ctype))
+        out += ["    ]", ""]
+    return out
+
+
 def generate_python(api):
     rows, used = [], set()
     section = None
@@ -756,7 +786,11 @@ def generate_python(api):
            "",
            "import ctypes",
            "",
-           '__all__ = ["SIGNATURES"]',
+           "__all__ = [%s]" % ", ".join(
+               '"%s"' % n for n in ["SIGNATURES"] + [
+                   st.name for st in api.structs.values()
+                   if not st.opaque and not any(
+                       isinstance(t, Function) for _, t in st.fields)]),
            ""]
     for alias, expr in _PY_ALIASES:
         if alias in used:
@@ -764,6 +798,7 @@ def generate_python(api):
             out.append("%s = %s%s" % (alias, expr,
                                       "  # " + doc if doc else ""))
     out += ["", "SIGNATURES = {"] + rows + ["}", ""]
+    out += _python_structs(api)
     for ln in out:
         if len(ln) > 79:
             raise ValueError("generated Python line too long: %r" % ln)
@@ -820,6 +855,8 @@ FORTRAN_SCALAR = {
     "mcd_db_binary_gas": ["out_D"],
     "mcd_db_binary_liquid": ["out_D"],
     "mcd_workspace_new_with": ["allocator"],
+    "mcd_flux_compute": ["state"],
+    "mcd_fick_matrix": ["state"],
 }
 # FORTRAN_NULLABLE: pointer parameters that may be NULL (bound as
 # type(c_ptr), value: pass c_null_ptr or c_loc(x)).
@@ -827,8 +864,7 @@ FORTRAN_NULLABLE = {
     "mcd_db_binary_gas": ["out_rel_err", "out_warn"],
     "mcd_db_binary_liquid": ["out_rel_err", "out_warn"],
     "mcd_mixture_binaries": ["out_rel_err", "out_warn"],
-    "mcd_flux_compute": ["M", "Gamma", "grad_lnP"],
-    "mcd_fick_matrix": ["M", "Gamma", "out_dependent"],
+    "mcd_fick_matrix": ["out_dependent"],
     "mcd_flux_total": ["values", "out_bulk"],
     "mcd_flux_project": ["weights", "out_residual"],
     "mcd_flux_batch": ["grad_lnP"],

@@ -83,10 +83,7 @@ int cli_cmd_fluxes(int argc, char **argv)
         rc = cli_fail(cmd, "setting up", MCD_ENOMEM, NULL);
         goto done;
     }
-    st = mcd_flux_compute(s.ws, s.model, n, s.n_dim, s.M, s.Dij, s.c,
-                          s.comp_basis, s.comp, s.grad, NULL,
-                          s.have_grad_lnP ? s.grad_lnP : NULL, s.out_basis,
-                          flux);
+    st = mcd_flux_compute(s.ws, s.model, &(mcd_state){.n_species = n, .n_dim = s.n_dim, .M = s.M, .Dij = s.Dij, .c = s.c, .comp_basis = s.comp_basis, .comp = s.comp, .grad = s.grad, .grad_lnP = s.have_grad_lnP ? s.grad_lnP : NULL}, s.out_basis, flux);
     if (st != MCD_OK) {
         rc = cli_fail(cmd, "the flux computation", st,
                       mcd_last_error());

@@ -31,9 +31,7 @@ int cli_state_grad_in(const cli_state *s, const char *cmd, mcd_basis basis,
 
 int cli_state_fick(cli_state *s, const char *cmd, double *D, size_t *out_dep)
 {
-    mcd_status st = mcd_fick_matrix(s->ws, s->n, s->M, s->Dij, s->comp_basis,
-                                    s->comp, NULL, s->out_basis, s->dependent,
-                                    D, out_dep);
+    mcd_status st = mcd_fick_matrix(s->ws, &(mcd_state){.n_species = s->n, .M = s->M, .Dij = s->Dij, .comp_basis = s->comp_basis, .comp = s->comp}, s->out_basis, s->dependent, D, out_dep);
     if (st != MCD_OK)
         return cli_fail(cmd, "the Fick matrix", st,
                         mcd_last_error());

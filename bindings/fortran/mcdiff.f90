@@ -943,20 +943,24 @@ contains
        grad_comp, flux_basis, flux, stat, errmsg, M, Gamma, grad_lnP)
     type(mcd_workspace_t), intent(inout) :: ws
     integer, intent(in) :: model, n, n_dim, comp_basis, flux_basis
-    real(c_double), intent(in) :: Dij(n, n), c, comp(n), grad_comp(n_dim, n)
+    real(c_double), intent(in), target :: Dij(n, n), comp(n), grad_comp(n_dim, n)
+    real(c_double), intent(in) :: c
     real(c_double), intent(inout) :: flux(n_dim, n)
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
     real(c_double), intent(in), optional, target :: M(n), Gamma(n, n), grad_lnP(n_dim)
-    type(c_ptr) :: pM, pG, pL
-    pM = c_null_ptr
-    pG = c_null_ptr
-    pL = c_null_ptr
-    if (present(M)) pM = c_loc(M)
-    if (present(Gamma)) pG = c_loc(Gamma)
-    if (present(grad_lnP)) pL = c_loc(grad_lnP)
-    call finish(c_mcd_flux_compute(ws%ptr, int(model, c_int), csz(n), &
-         csz(n_dim), pM, Dij, c, int(comp_basis, c_int), comp, grad_comp, pG, pL, &
+    type(mcd_state_t) :: st
+    st%n_species = csz(n)
+    st%n_dim = csz(n_dim)
+    st%comp_basis = int(comp_basis, c_int)
+    st%c = c
+    st%Dij = c_loc(Dij)
+    st%comp = c_loc(comp)
+    st%grad = c_loc(grad_comp)
+    if (present(M)) st%M = c_loc(M)
+    if (present(Gamma)) st%Gamma = c_loc(Gamma)
+    if (present(grad_lnP)) st%grad_lnP = c_loc(grad_lnP)
+    call finish(c_mcd_flux_compute(ws%ptr, int(model, c_int), st, &
          int(flux_basis, c_int), flux), stat, errmsg)
   end subroutine mcd_flux_compute
 
@@ -969,7 +973,7 @@ contains
        M, Gamma, dependent, dependent_used)
     type(mcd_workspace_t), intent(inout) :: ws
     integer, intent(in) :: n, comp_basis, basis
-    real(c_double), intent(in) :: Dij(n, n), comp(n)
+    real(c_double), intent(in), target :: Dij(n, n), comp(n)
     real(c_double), intent(inout) :: D(*)
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
@@ -978,17 +982,18 @@ contains
     integer, intent(inout), optional :: dependent_used
     integer(c_size_t), target :: used
     integer(c_size_t) :: dep
-    type(c_ptr) :: pM, pG
+    type(mcd_state_t) :: st
     integer(c_int) :: s
-    pM = c_null_ptr
-    pG = c_null_ptr
-    if (present(M)) pM = c_loc(M)
-    if (present(Gamma)) pG = c_loc(Gamma)
+    st%n_species = csz(n)
+    st%comp_basis = int(comp_basis, c_int)
+    st%Dij = c_loc(Dij)
+    st%comp = c_loc(comp)
+    if (present(M)) st%M = c_loc(M)
+    if (present(Gamma)) st%Gamma = c_loc(Gamma)
     dep = MCD_DEPENDENT_AUTO
     if (present(dependent)) dep = cidx(dependent)
     used = 0
-    s = c_mcd_fick_matrix(ws%ptr, csz(n), pM, Dij, int(comp_basis, c_int), comp, &
-         pG, int(basis, c_int), dep, D, c_loc(used))
+    s = c_mcd_fick_matrix(ws%ptr, st, int(basis, c_int), dep, D, c_loc(used))
     if (s == 0 .and. present(dependent_used)) dependent_used = int(used) + 1
     call finish(s, stat, errmsg)
   end subroutine mcd_fick_matrix

@@ -456,35 +456,25 @@ MCD_API mcd_status mcd_workspace_new_with(size_t n_species,
 }
 
 MCD_API mcd_status mcd_flux_compute(mcd_workspace *ws, mcd_model model,
-                                    size_t n_species, size_t n_dim,
-                                    const double *M, const double *Dij,
-                                    double c, mcd_basis comp_basis,
-                                    const double *comp,
-                                    const double *grad_comp,
-                                    const double *Gamma,
-                                    const double *grad_lnP,
+                                    const mcd_state *state,
                                     mcd_basis flux_basis, double *out_flux)
 {
     mcd_status st;
     mcdi_err_clear();
-    st = mcdi_api_flux_compute(ws, model, n_species, n_dim, M, Dij, c,
-        comp_basis, comp, grad_comp, Gamma, grad_lnP, flux_basis, out_flux);
+    st = mcdi_api_flux_compute(ws, model, state, flux_basis, out_flux);
     if (st != MCD_OK)
         mcdi_err_settle(st, "mcd_flux_compute");
     return st;
 }
 
-MCD_API mcd_status mcd_fick_matrix(mcd_workspace *ws, size_t n_species,
-                                   const double *M, const double *Dij,
-                                   mcd_basis comp_basis, const double *comp,
-                                   const double *Gamma, mcd_basis basis,
-                                   size_t dependent, double *out_D,
-                                   size_t *out_dependent)
+MCD_API mcd_status mcd_fick_matrix(mcd_workspace *ws, const mcd_state *state,
+                                   mcd_basis basis, size_t dependent,
+                                   double *out_D, size_t *out_dependent)
 {
     mcd_status st;
     mcdi_err_clear();
-    st = mcdi_api_fick_matrix(ws, n_species, M, Dij, comp_basis, comp, Gamma,
-        basis, dependent, out_D, out_dependent);
+    st = mcdi_api_fick_matrix(ws, state, basis, dependent, out_D,
+        out_dependent);
     if (st != MCD_OK)
         mcdi_err_settle(st, "mcd_fick_matrix");
     return st;

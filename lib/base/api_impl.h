@@ -92,18 +92,11 @@ mcd_status mcdi_api_workspace_new_with(size_t n_species,
                                        const mcd_allocator *allocator,
                                        mcd_workspace **out_ws);
 mcd_status mcdi_api_flux_compute(mcd_workspace *ws, mcd_model model,
-                                 size_t n_species, size_t n_dim,
-                                 const double *M, const double *Dij, double c,
-                                 mcd_basis comp_basis, const double *comp,
-                                 const double *grad_comp, const double *Gamma,
-                                 const double *grad_lnP, mcd_basis flux_basis,
+                                 const mcd_state *state, mcd_basis flux_basis,
                                  double *out_flux);
-mcd_status mcdi_api_fick_matrix(mcd_workspace *ws, size_t n_species,
-                                const double *M, const double *Dij,
-                                mcd_basis comp_basis, const double *comp,
-                                const double *Gamma, mcd_basis basis,
-                                size_t dependent, double *out_D,
-                                size_t *out_dependent);
+mcd_status mcdi_api_fick_matrix(mcd_workspace *ws, const mcd_state *state,
+                                mcd_basis basis, size_t dependent,
+                                double *out_D, size_t *out_dependent);
 mcd_status mcdi_api_fick_fluxes(size_t n_species, size_t n_dim,
                                 const double *D, size_t dependent,
                                 double c_or_rho, const double *grad,

@@ -231,12 +231,12 @@ static void fick_to_mass_basis(size_t n, size_t dep, const double *M,
     }
 }
 
-mcd_status mcdi_api_fick_matrix(mcd_workspace *ws, size_t n_species,
-                                const double *M, const double *Dij,
-                                mcd_basis comp_basis, const double *comp,
-                                const double *Gamma, mcd_basis basis,
-                                size_t dependent, double *out_D,
-                                size_t *out_dependent)
+mcd_status mcdi_fick_matrix_args(mcd_workspace *ws, size_t n_species,
+                                 const double *M, const double *Dij,
+                                 mcd_basis comp_basis, const double *comp,
+                                 const double *Gamma, mcd_basis basis,
+                                 size_t dependent, double *out_D,
+                                 size_t *out_dependent)
 {
     const size_t n = n_species;
     size_t m, dep, r, q;

@@ -82,4 +82,21 @@ void mcdi_mixavg_fluxes(size_t n, size_t nd, const double *x, const double *d,
  * the x_i = 1 limit). */
 double mcdi_mixavg_dim(size_t n, size_t i, const double *x, const double *Dij);
 
+/* The single-state calls with the fields of mcd_state as arguments
+ * (flux/state.c unpacks the struct; the transfer layer calls them
+ * directly). Same checks, messages and results as the public calls. */
+mcd_status mcdi_flux_compute_args(mcd_workspace *ws, mcd_model model,
+                                  size_t n_species, size_t n_dim,
+                                  const double *M, const double *Dij, double c,
+                                  mcd_basis comp_basis, const double *comp,
+                                  const double *grad_comp, const double *Gamma,
+                                  const double *grad_lnP, mcd_basis flux_basis,
+                                  double *out_flux);
+mcd_status mcdi_fick_matrix_args(mcd_workspace *ws, size_t n_species,
+                                 const double *M, const double *Dij,
+                                 mcd_basis comp_basis, const double *comp,
+                                 const double *Gamma, mcd_basis basis,
+                                 size_t dependent, double *out_D,
+                                 size_t *out_dependent);
+
 #endif

@@ -258,7 +258,7 @@ static mcd_status check_state(mcd_workspace *ws, mcd_model model, size_t n,
         return st;
     if ((st = mcdi_check_dij(ws, n, Dij)) != MCD_OK ||
         (st = mcdi_check_comp(ws, n, comp, "comp")) != MCD_OK ||
-        (st = mcdi_check_finite(ws, n, nd, grad_comp, "grad_comp")) != MCD_OK)
+        (st = mcdi_check_finite(ws, n, nd, grad_comp, "grad")) != MCD_OK)
         return st;
     if (Gamma != NULL &&
         (st = mcdi_check_finite(ws, n, n, Gamma, "Gamma")) != MCD_OK)
@@ -300,13 +300,13 @@ static mcd_status emit_checked(mcd_workspace *ws, size_t n, size_t nd,
     return MCD_OK;
 }
 
-mcd_status mcdi_api_flux_compute(mcd_workspace *ws, mcd_model model,
-                                 size_t n_species, size_t n_dim,
-                                 const double *M, const double *Dij, double c,
-                                 mcd_basis comp_basis, const double *comp,
-                                 const double *grad_comp, const double *Gamma,
-                                 const double *grad_lnP, mcd_basis flux_basis,
-                                 double *out_flux)
+mcd_status mcdi_flux_compute_args(mcd_workspace *ws, mcd_model model,
+                                  size_t n_species, size_t n_dim,
+                                  const double *M, const double *Dij, double c,
+                                  mcd_basis comp_basis, const double *comp,
+                                  const double *grad_comp, const double *Gamma,
+                                  const double *grad_lnP, mcd_basis flux_basis,
+                                  double *out_flux)
 {
     const size_t n = n_species, nd = n_dim;
     const int need_M = comp_basis == MCD_BASIS_MASS ||

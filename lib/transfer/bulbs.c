@@ -148,8 +148,8 @@ mcd_status mcdi_api_bulbs_linearized(mcd_workspace *ws, size_t n,
 
     for (i = 0; i < n; i++)
         xbar[i] = (V1 * x1n[i] + V2 * x2n[i]) / (V1 + V2);
-    st = mcdi_api_fick_matrix(ws, n, NULL, Dij, MCD_BASIS_MOLE, xbar, NULL,
-                              MCD_BASIS_MOLE, MCD_DEPENDENT_AUTO, Dm, &d);
+    st = mcdi_fick_matrix_args(ws, n, NULL, Dij, MCD_BASIS_MOLE, xbar, NULL,
+                               MCD_BASIS_MOLE, MCD_DEPENDENT_AUTO, Dm, &d);
     if (st != MCD_OK)
         return st;
     m = n - 1;

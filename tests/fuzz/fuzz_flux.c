@@ -160,8 +160,7 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
 
     /* 1. mcd_flux_compute */
     memset(out, FUZZ_GUARD_BYTE, sizeof out);
-    st_flux = mcd_flux_compute(ws, model, n, nd, (fl & 0x40) ? NULL : M, D, c, cb, x, grad,
-                               (fl & 0x10) ? Gamma : NULL, (fl & 0x20) ? glnP : NULL, fb, out);
+    st_flux = mcd_flux_compute(ws, model, &(mcd_state){.n_species = n, .n_dim = nd, .M = (fl & 0x40) ? NULL : M, .Dij = D, .c = c, .comp_basis = cb, .comp = x, .grad = grad, .Gamma = (fl & 0x10) ? Gamma : NULL, .grad_lnP = (fl & 0x20) ? glnP : NULL}, fb, out);
     if (st_flux == MCD_OK) {
         require_zero_sum("flux_compute", n, nd, out, 1);
         memcpy(J, out, n * nd * sizeof(double)); /* a consistent flux set */
@@ -173,8 +172,7 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
     /* 2. Fick matrix, its fluxes and eigenvalues */
     memset(F, FUZZ_GUARD_BYTE, sizeof F);
     memset(&dep, FUZZ_GUARD_BYTE, sizeof dep);
-    st = mcd_fick_matrix(ws, n, (fl & 0x40) ? NULL : M, D, cb, x, (fl & 0x10) ? Gamma : NULL, fb,
-                         (ex & 2) ? MCD_DEPENDENT_AUTO : (size_t)(ex >> 4), F, &dep);
+    st = mcd_fick_matrix(ws, &(mcd_state){.n_species = n, .M = (fl & 0x40) ? NULL : M, .Dij = D, .comp_basis = cb, .comp = x, .Gamma = (fl & 0x10) ? Gamma : NULL}, fb, (ex & 2) ? MCD_DEPENDENT_AUTO : (size_t)(ex >> 4), F, &dep);
     if (st == MCD_OK) {
         FUZZ_REQUIRE(dep < n, "dependent %zu", dep);
         require_finite("fick_matrix", F, (n - 1) * (n - 1));

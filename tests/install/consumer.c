@@ -53,9 +53,7 @@ int main(void)
           "binaries");
     check(mcd_comp_ideal_gas_c(300.0, MCD_ATM, &c) == MCD_OK, "ideal gas c");
     check(mcd_workspace_new(3, &ws) == MCD_OK, "workspace");
-    check(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, 3, 2, NULL, D, c,
-                           MCD_BASIS_MOLE, x, grad, NULL, NULL,
-                           MCD_BASIS_MOLE, J) == MCD_OK, "fluxes");
+    check(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = 3, .n_dim = 2, .Dij = D, .c = c, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = grad}, MCD_BASIS_MOLE, J) == MCD_OK, "fluxes");
     for (d = 0; d < 2; d++) {
         double s = J[d] + J[2 + d] + J[4 + d];
         double m = fmax(fabs(J[d]), fmax(fabs(J[2 + d]), fabs(J[4 + d])));

@@ -8,7 +8,7 @@ Handles are opaque: c_void_p, never a mirrored struct. Every enum is c_int.
 
 import ctypes
 
-__all__ = ["SIGNATURES"]
+__all__ = ["SIGNATURES", "mcd_state"]
 
 _D = ctypes.c_double
 _PD = ctypes.POINTER(ctypes.c_double)
@@ -162,14 +162,10 @@ SIGNATURES = {
     "mcd_workspace_capacity": (_SZ, [_H]),
 
     # --- Diffusion fluxes ---
-    # (ws, model, n_species, n_dim, M, Dij, c, comp_basis, comp, grad_comp,
-    #  Gamma, grad_lnP, flux_basis, out_flux)
-    "mcd_flux_compute": (_ST, [_H, _E, _SZ, _SZ, _PD, _PD, _D, _E, _PD, _PD,
-                               _PD, _PD, _E, _PD]),
-    # (ws, n_species, M, Dij, comp_basis, comp, Gamma, basis, dependent, out_D,
-    #  out_dependent)
-    "mcd_fick_matrix": (_ST, [_H, _SZ, _PD, _PD, _E, _PD, _PD, _E, _SZ, _PD,
-                              _PSZ]),
+    # (ws, model, state, flux_basis, out_flux)
+    "mcd_flux_compute": (_ST, [_H, _E, _H, _E, _PD]),
+    # (ws, state, basis, dependent, out_D, out_dependent)
+    "mcd_fick_matrix": (_ST, [_H, _H, _E, _SZ, _PD, _PSZ]),
     # (n_species, n_dim, D, dependent, c_or_rho, grad, out_flux)
     "mcd_fick_fluxes": (_ST, [_SZ, _SZ, _PD, _SZ, _D, _PD, _PD]),
     # (ws, order, D, out_re, out_im)
@@ -232,3 +228,19 @@ SIGNATURES = {
     "mcd_bulbs_integrate": (_ST, [_H, _SZ, _PD, _D, _D, _D, _D, _D, _PD, _PD,
                                   _SZ, _PD, _D, _PD, _PD]),
 }
+
+
+class mcd_state(ctypes.Structure):
+    """struct mcd_state of include/mcdiff.h."""
+    _fields_ = [
+        ("n_species", ctypes.c_size_t),
+        ("n_dim", ctypes.c_size_t),
+        ("comp_basis", ctypes.c_int),
+        ("c", ctypes.c_double),
+        ("M", ctypes.POINTER(ctypes.c_double)),
+        ("Dij", ctypes.POINTER(ctypes.c_double)),
+        ("comp", ctypes.POINTER(ctypes.c_double)),
+        ("grad", ctypes.POINTER(ctypes.c_double)),
+        ("Gamma", ctypes.POINTER(ctypes.c_double)),
+        ("grad_lnP", ctypes.POINTER(ctypes.c_double)),
+    ]

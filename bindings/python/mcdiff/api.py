@@ -18,6 +18,7 @@ import threading
 from . import _arrays
 from ._arrays import np
 from ._native import lib
+from ._signatures import mcd_state
 from .enums import (Basis, Bootstrap, Diag, FilmBootstrap, FilmMethod, Method,
                     Model, coerce)
 from .errors import error_for
@@ -416,9 +417,11 @@ def flux_compute(Dij, c, comp, grad, *, M=None, model="maxwell-stefan",
         [v] if isinstance(v, (int, float)) else v, nd, "grad_lnP"))
     ws = _ws(workspace, n)
     o, was_1d = _field_out(n, nd, was_1d, out)
-    st = lib.mcd_flux_compute(ws._p(), model, n, nd, _ptr(m), D.ptr,
-                              _sc(c, "c"), cb, x.ptr, g.ptr, _ptr(G),
-                              _ptr(lp), fb, o.ptr)
+    state = mcd_state(n_species=n, n_dim=nd, comp_basis=cb, c=_sc(c, "c"),
+                      M=_ptr(m), Dij=D.ptr, comp=x.ptr, grad=g.ptr,
+                      Gamma=_ptr(G), grad_lnP=_ptr(lp))
+    st = lib.mcd_flux_compute(ws._p(), model, ctypes.byref(state), fb,
+                              o.ptr)
     ws.check(st, "mcd_flux_compute")
     if out is not None:
         return out
@@ -446,8 +449,10 @@ def fick_matrix(Dij, comp, *, M=None, comp_basis="mole", Gamma=None,
     k = max(n - 1, 0)
     o = _arrays.Output((k, k))
     used = ctypes.c_size_t()
-    st = lib.mcd_fick_matrix(ws._p(), n, _ptr(m), D.ptr, cb, x.ptr, _ptr(G),
-                             b, dep.value, o.ptr, ctypes.byref(used))
+    state = mcd_state(n_species=n, comp_basis=cb, M=_ptr(m), Dij=D.ptr,
+                      comp=x.ptr, Gamma=_ptr(G))
+    st = lib.mcd_fick_matrix(ws._p(), ctypes.byref(state), b, dep.value,
+                             o.ptr, ctypes.byref(used))
     ws.check(st, "mcd_fick_matrix")
     return FickMatrix(o.result(), used.value)
 
