@@ -284,10 +284,7 @@ static int face_fluxes(fv1d_solver *s, const fv1d_problem *p, size_t nf,
          * and p->c up to round-off. */
         s->calls++;
         return lib_fail(err, "batched face fluxes",
-                        mcd_flux_batch(s->ws, p->mix, p->model, nf, 1,
-                                       s->face_T, s->face_P, MCD_BASIS_MOLE,
-                                       s->face_x, s->face_grad, NULL,
-                                       MCD_BASIS_MOLE, s->face_flux),
+                        mcd_flux_batch(s->ws, p->mix, p->model, s->face_T, s->face_P, &(mcd_cells){.n_cells = nf, .n_dim = 1, .comp_basis = MCD_BASIS_MOLE, .comp = s->face_x, .grad = s->face_grad}, MCD_BASIS_MOLE, s->face_flux),
                         s->ws);
     }
     for (f = 0; f < nf; f++) {

@@ -786,6 +786,21 @@ MCD_API mcd_status mcd_flux_diagnose(size_t n_species, size_t n_dim,
  * The values are the same either way.
  */
 
+/** The per-cell inputs every batched call takes: K cells' fractions and
+ *  gradients in the layout of the call (SoA for mcd_flux_batch and
+ *  mcd_flux_batch_dij, per-cell arrays for mcd_flux_batch_aos).
+ *  Zero-initialise it and set the fields; a field added in a later version
+ *  keeps its old meaning when left 0 or NULL. Since 0.2. */
+typedef struct mcd_cells {
+    size_t n_cells;         /**< K (0 is allowed and writes nothing) */
+    size_t n_dim;           /**< 1..MCD_MAX_DIM */
+    mcd_basis comp_basis;   /**< comp and grad: mole or mass fractions */
+    const double *comp;     /**< fractions [-], N x K (comp[i*K + k]) */
+    const double *grad;     /**< their gradients [1/m], (N n_dim) x K */
+    const double *grad_lnP; /**< gradient of ln P [1/m], n_dim x K, or
+                                 NULL (no pressure diffusion) */
+} mcd_cells;
+
 /** Batched diffusion fluxes of a mixture at many states (SoA layout, see
  *  above). The binary diffusivities of every cell come from the mixture at
  *  the cell's T and P; c = P / (R T) (ideal gas). Since 0.1.
@@ -796,16 +811,11 @@ MCD_API mcd_status mcd_flux_diagnose(size_t n_species, size_t n_dim,
  *  @param model       MAXWELL_STEFAN (exact), ITERATIVE (Ern-Giovangigli,
  *                     settings from mcd_workspace_set_iterative) or
  *                     MIXTURE_AVERAGED.
- *  @param n_cells     K, number of cells (0 is allowed and writes nothing).
- *  @param n_dim       1..MCD_MAX_DIM.
  *  @param T           temperatures [K], length K, each > 0.
  *  @param P           pressures [Pa], length K, each > 0 (and c = P / (R T)
  *                     a normal number, >= DBL_MIN).
- *  @param comp_basis  whether comp and grad hold mole or mass fractions.
- *  @param comp        fractions [-], N x K (comp[i*K + k]).
- *  @param grad        their gradients [1/m], (N n_dim) x K.
- *  @param grad_lnP    gradient of ln P [1/m], n_dim x K, or NULL (no
- *                     pressure diffusion).
+ *  @param cells       K, n_dim, comp_basis, comp, grad, grad_lnP
+ *                     (mcd_cells); messages name the fields.
  *  @param flux_basis  MOLE: J_i [mol/(m^2 s)]; MASS: j_i [kg/(m^2 s)].
  *  @param out_flux    (N n_dim) x K; must not alias an input. Sums to zero
  *                     over species in each cell to round-off.
@@ -814,11 +824,8 @@ MCD_API mcd_status mcd_flux_diagnose(size_t n_species, size_t n_dim,
  *  parameter or M unknown), ESING, EINTERNAL | Allocates: no
  *  | Threads: one ws per thread */
 MCD_API mcd_status mcd_flux_batch(mcd_workspace *ws, const mcd_mixture *mix,
-                                  mcd_model model, size_t n_cells,
-                                  size_t n_dim, const double *T,
-                                  const double *P, mcd_basis comp_basis,
-                                  const double *comp, const double *grad,
-                                  const double *grad_lnP,
+                                  mcd_model model, const double *T,
+                                  const double *P, const mcd_cells *cells,
                                   mcd_basis flux_basis, double *out_flux);
 
 /** Batched diffusion fluxes with the caller's own per-cell binary
@@ -838,17 +845,14 @@ MCD_API mcd_status mcd_flux_batch(mcd_workspace *ws, const mcd_mixture *mix,
  *  Fails: EINVAL, EDOM, EBADLEN, ESING, EINTERNAL | Allocates: no
  *  | Threads: one ws per thread */
 MCD_API mcd_status mcd_flux_batch_dij(mcd_workspace *ws, mcd_model model,
-                                      size_t n_species, size_t n_cells,
-                                      size_t n_dim, const double *M,
+                                      size_t n_species, const double *M,
                                       const double *Dij, const double *c,
-                                      mcd_basis comp_basis,
-                                      const double *comp, const double *grad,
-                                      const double *grad_lnP,
+                                      const mcd_cells *cells,
                                       mcd_basis flux_basis, double *out_flux);
 
 /** As mcd_flux_batch with per-cell (array of structures) arrays, the
- *  layout of K consecutive single-state calls: comp[k*N + i],
- *  grad[(k*N + i)*n_dim + d], grad_lnP[k*n_dim + d] (or NULL),
+ *  layout of K consecutive single-state calls: cells->comp[k*N + i],
+ *  cells->grad[(k*N + i)*n_dim + d], cells->grad_lnP[k*n_dim + d] (or NULL),
  *  out_flux[(k*N + i)*n_dim + d]; T and P length K. Cells are transposed
  *  block by block into workspace memory (serially: no OpenMP here), so it
  *  is a little slower than the SoA call but much faster than K calls of
@@ -856,11 +860,8 @@ MCD_API mcd_status mcd_flux_batch_dij(mcd_workspace *ws, mcd_model model,
  *  Fails: as mcd_flux_batch | Allocates: no | Threads: one ws per thread */
 MCD_API mcd_status mcd_flux_batch_aos(mcd_workspace *ws,
                                       const mcd_mixture *mix,
-                                      mcd_model model, size_t n_cells,
-                                      size_t n_dim, const double *T,
-                                      const double *P, mcd_basis comp_basis,
-                                      const double *comp, const double *grad,
-                                      const double *grad_lnP,
+                                      mcd_model model, const double *T,
+                                      const double *P, const mcd_cells *cells,
                                       mcd_basis flux_basis, double *out_flux);
 
 /** Settings of MCD_MODEL_ITERATIVE for later calls on this workspace.

@@ -381,9 +381,7 @@ static int run(mcd_db *db, size_t n, double scale)
         t0b[r] = now_s() - t0;
 
         t0 = now_s();
-        if (mcd_flux_batch(ws, mix, MCD_MODEL_ITERATIVE, K, ND, T, P,
-                           MCD_BASIS_MOLE, x, g, NULL, MCD_BASIS_MOLE,
-                           out) != MCD_OK)
+        if (mcd_flux_batch(ws, mix, MCD_MODEL_ITERATIVE, T, P, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g}, MCD_BASIS_MOLE, out) != MCD_OK)
             bad = 1;
         td[r] = now_s() - t0;
         if (r == 0) {
@@ -392,18 +390,14 @@ static int run(mcd_db *db, size_t n, double scale)
         }
 
         t0 = now_s();
-        if (mcd_flux_batch(ws, mix, MCD_MODEL_MIXTURE_AVERAGED, K, ND, T, P,
-                           MCD_BASIS_MOLE, x, g, NULL, MCD_BASIS_MOLE,
-                           out) != MCD_OK)
+        if (mcd_flux_batch(ws, mix, MCD_MODEL_MIXTURE_AVERAGED, T, P, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g}, MCD_BASIS_MOLE, out) != MCD_OK)
             bad = 1;
         te[r] = now_s() - t0;
         if (r == 0)
             de = maxrel(n, K, out, ref);
 
         t0 = now_s();
-        if (mcd_flux_batch(ws, mix, MCD_MODEL_MAXWELL_STEFAN, K, ND, T, P,
-                           MCD_BASIS_MOLE, x, g, NULL, MCD_BASIS_MOLE,
-                           out) != MCD_OK)
+        if (mcd_flux_batch(ws, mix, MCD_MODEL_MAXWELL_STEFAN, T, P, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g}, MCD_BASIS_MOLE, out) != MCD_OK)
             bad = 1;
         tc[r] = now_s() - t0;
 
@@ -467,8 +461,7 @@ static int run(mcd_db *db, size_t n, double scale)
             mcd_workspace_set_threads(ws, (size_t)th);
             for (int r = 0; r < REPS; r++) {
                 double t0 = now_s();
-                mcd_flux_batch(ws, mix, MCD_MODEL_MAXWELL_STEFAN, K, ND, T, P,
-                               MCD_BASIS_MOLE, x, g, NULL, MCD_BASIS_MOLE, out);
+                mcd_flux_batch(ws, mix, MCD_MODEL_MAXWELL_STEFAN, T, P, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g}, MCD_BASIS_MOLE, out);
                 tt[r] = now_s() - t0;
             }
             if (th == 1)

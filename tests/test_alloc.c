@@ -71,16 +71,10 @@ START_TEST(alloc_batched_calls_do_not_allocate)
                     lsoa[j * KC + k] = 0.1;
             }
             for (int model = 0; model < 3; model++) {
-                st[ns++] = mcd_flux_batch_dij(ws, (mcd_model)model, n, KC, ND, M, Dsoa,
-                                              csoa, MCD_BASIS_MASS, xsoa, gsoa, lsoa,
-                                              MCD_BASIS_MASS, out);
+                st[ns++] = mcd_flux_batch_dij(ws, (mcd_model)model, n, M, Dsoa, csoa, &(mcd_cells){.n_cells = KC, .n_dim = ND, .comp_basis = MCD_BASIS_MASS, .comp = xsoa, .grad = gsoa, .grad_lnP = lsoa}, MCD_BASIS_MASS, out);
                 if (n == 6) {
-                    st[ns++] = mcd_flux_batch(ws, mix, (mcd_model)model, KC, ND, T, P,
-                                              MCD_BASIS_MOLE, xsoa, gsoa, lsoa,
-                                              MCD_BASIS_MASS, out);
-                    st[ns++] = mcd_flux_batch_aos(ws, mix, (mcd_model)model, KC, ND, T,
-                                                  P, MCD_BASIS_MOLE, xsoa, gsoa, NULL,
-                                                  MCD_BASIS_MOLE, out);
+                    st[ns++] = mcd_flux_batch(ws, mix, (mcd_model)model, T, P, &(mcd_cells){.n_cells = KC, .n_dim = ND, .comp_basis = MCD_BASIS_MOLE, .comp = xsoa, .grad = gsoa, .grad_lnP = lsoa}, MCD_BASIS_MASS, out);
+                    st[ns++] = mcd_flux_batch_aos(ws, mix, (mcd_model)model, T, P, &(mcd_cells){.n_cells = KC, .n_dim = ND, .comp_basis = MCD_BASIS_MOLE, .comp = xsoa, .grad = gsoa}, MCD_BASIS_MOLE, out);
                 }
             }
             if (n > 24)

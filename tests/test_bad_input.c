@@ -464,24 +464,15 @@ static int call_mcd_bulbs_integrate(ctx *c)
 
 static int call_mcd_flux_batch(ctx *c)
 {
-    return mcd_flux_batch(WS, ARG(mix, NB_MIX), (mcd_model)c->model, c->K, c->nd,
-                          ARG(Tc, NB_T), ARG(Pc, NB_VBAR), (mcd_basis)c->basis, ARG(x, NB_X),
-                          ARG(grad, NB_GRAD), c->use_glnp ? c->glnP : NULL,
-                          (mcd_basis)c->basis2, OUT(o1, NB_O1));
+    return mcd_flux_batch(WS, ARG(mix, NB_MIX), (mcd_model)c->model, ARG(Tc, NB_T), ARG(Pc, NB_VBAR), &(mcd_cells){.n_cells = c->K, .n_dim = c->nd, .comp_basis = (mcd_basis)c->basis, .comp = ARG(x, NB_X), .grad = ARG(grad, NB_GRAD), .grad_lnP = c->use_glnp ? c->glnP : NULL}, (mcd_basis)c->basis2, OUT(o1, NB_O1));
 }
 static int call_mcd_flux_batch_dij(ctx *c)
 {
-    return mcd_flux_batch_dij(WS, (mcd_model)c->model, c->n, c->K, c->nd, ARG(M, NB_M),
-                              ARG(D, NB_D), ARG(cc, NB_VALS), (mcd_basis)c->basis,
-                              ARG(x, NB_X), ARG(grad, NB_GRAD), c->use_glnp ? c->glnP : NULL,
-                              (mcd_basis)c->basis2, OUT(o1, NB_O1));
+    return mcd_flux_batch_dij(WS, (mcd_model)c->model, c->n, ARG(M, NB_M), ARG(D, NB_D), ARG(cc, NB_VALS), &(mcd_cells){.n_cells = c->K, .n_dim = c->nd, .comp_basis = (mcd_basis)c->basis, .comp = ARG(x, NB_X), .grad = ARG(grad, NB_GRAD), .grad_lnP = c->use_glnp ? c->glnP : NULL}, (mcd_basis)c->basis2, OUT(o1, NB_O1));
 }
 static int call_mcd_flux_batch_aos(ctx *c)
 {
-    return mcd_flux_batch_aos(WS, ARG(mix, NB_MIX), (mcd_model)c->model, c->K, c->nd,
-                              ARG(Tc, NB_T), ARG(Pc, NB_VBAR), (mcd_basis)c->basis,
-                              ARG(x, NB_X), ARG(grad, NB_GRAD), c->use_glnp ? c->glnP : NULL,
-                              (mcd_basis)c->basis2, OUT(o1, NB_O1));
+    return mcd_flux_batch_aos(WS, ARG(mix, NB_MIX), (mcd_model)c->model, ARG(Tc, NB_T), ARG(Pc, NB_VBAR), &(mcd_cells){.n_cells = c->K, .n_dim = c->nd, .comp_basis = (mcd_basis)c->basis, .comp = ARG(x, NB_X), .grad = ARG(grad, NB_GRAD), .grad_lnP = c->use_glnp ? c->glnP : NULL}, (mcd_basis)c->basis2, OUT(o1, NB_O1));
 }
 static int call_mcd_workspace_set_iterative(ctx *c)
 {

@@ -179,9 +179,7 @@ START_TEST(batch_dij_matches_single_state_calls)
             sup_guard_fill(out, n * nd * (K + 1));
             if (model == MCD_MODEL_ITERATIVE)
                 ck_assert_int_eq(mcd_workspace_set_iterative(ws, 1000, 0.0), MCD_OK);
-            ck_assert_msg(mcd_flux_batch_dij(ws, model, n, K, nd, s.M, s.D, s.c,
-                                             cb, s.comp, s.grad,
-                                             use_p ? s.glnP : NULL, fb, out) ==
+            ck_assert_msg(mcd_flux_batch_dij(ws, model, n, s.M, s.D, s.c, &(mcd_cells){.n_cells = K, .n_dim = nd, .comp_basis = cb, .comp = s.comp, .grad = s.grad, .grad_lnP = use_p ? s.glnP : NULL}, fb, out) ==
                               MCD_OK,
                           "N=%zu K=%zu: %s", n, K, mcd_last_error());
             /* nothing written past the K cells (K=0 writes nothing) */
@@ -276,12 +274,9 @@ START_TEST(batch_mixture_matches_single_state_calls)
             const double *gl = pass % 2 ? s.glnP : NULL;
             if (model == MCD_MODEL_ITERATIVE)
                 ck_assert_int_eq(mcd_workspace_set_iterative(ws, 1000, 0.0), MCD_OK);
-            ck_assert_msg(mcd_flux_batch(ws, m, model, K, nd, s.T, s.P, cb, s.comp,
-                                         s.grad, gl, fb, out) == MCD_OK,
+            ck_assert_msg(mcd_flux_batch(ws, m, model, s.T, s.P, &(mcd_cells){.n_cells = K, .n_dim = nd, .comp_basis = cb, .comp = s.comp, .grad = s.grad, .grad_lnP = gl}, fb, out) == MCD_OK,
                           "%s", mcd_last_error());
-            ck_assert_int_eq(mcd_flux_batch_aos(ws, m, model, K, nd, s.T, s.P, cb,
-                                                ac, ag, gl ? al : NULL, fb,
-                                                aos_out), MCD_OK);
+            ck_assert_int_eq(mcd_flux_batch_aos(ws, m, model, s.T, s.P, &(mcd_cells){.n_cells = K, .n_dim = nd, .comp_basis = cb, .comp = ac, .grad = ag, .grad_lnP = gl ? al : NULL}, fb, aos_out), MCD_OK);
             for (k = 0; k < K; k++) {
                 double D[32 * 32], y[32], g[96], F[96], e;
                 double c = s.P[k] / (MCD_GAS_CONSTANT * s.T[k]);
@@ -349,12 +344,9 @@ START_TEST(batch_power_law_mixture_iterative_matches_exact)
             mcd_basis cb = pass % 2 ? MCD_BASIS_MASS : MCD_BASIS_MOLE;
             mcd_basis fb = pass / 2 ? MCD_BASIS_MASS : MCD_BASIS_MOLE;
             const double *gl = pass == 3 ? s.glnP : NULL;
-            ck_assert_int_eq(mcd_flux_batch(ws, m, MCD_MODEL_MAXWELL_STEFAN, K, nd,
-                                            s.T, s.P, cb, s.comp, s.grad, gl, fb,
-                                            ex), MCD_OK);
+            ck_assert_int_eq(mcd_flux_batch(ws, m, MCD_MODEL_MAXWELL_STEFAN, s.T, s.P, &(mcd_cells){.n_cells = K, .n_dim = nd, .comp_basis = cb, .comp = s.comp, .grad = s.grad, .grad_lnP = gl}, fb, ex), MCD_OK);
             ck_assert_int_eq(mcd_workspace_set_iterative(ws, 1000, 0.0), MCD_OK);
-            ck_assert_msg(mcd_flux_batch(ws, m, MCD_MODEL_ITERATIVE, K, nd, s.T,
-                                         s.P, cb, s.comp, s.grad, gl, fb, it) ==
+            ck_assert_msg(mcd_flux_batch(ws, m, MCD_MODEL_ITERATIVE, s.T, s.P, &(mcd_cells){.n_cells = K, .n_dim = nd, .comp_basis = cb, .comp = s.comp, .grad = s.grad, .grad_lnP = gl}, fb, it) ==
                               MCD_OK,
                           "%s", mcd_last_error());
             for (k = 0; k < K; k++) {
@@ -392,9 +384,15 @@ START_TEST(batch_errors_name_the_cell_and_write_nothing_on_argument_errors)
     ck_assert_int_eq(mcd_workspace_new(N - 1, &small), MCD_OK);
     cells_make(&s, N, K, ND);
     sup_guard_fill(out, N * ND * K);
-#define CALL(w, model, n, M, D, c, cb, comp, grad, fb, o) \
-    mcd_flux_batch_dij(w, model, n, K, ND, M, D, c, cb, comp, grad, NULL, fb, o)
+#define CALL(w, model, n, M_, D_, c_, cb_, x_, g_, fb, o)                     \
+    mcd_flux_batch_dij(w, model, n, M_, D_, c_,                               \
+                       &(mcd_cells){.n_cells = K, .n_dim = ND,                \
+                                    .comp_basis = cb_, .comp = x_,            \
+                                    .grad = g_},                              \
+                       fb, o)
     ck_assert_int_eq(CALL(NULL, 0, N, s.M, s.D, s.c, 0, s.comp, s.grad, 0, out), MCD_EINVAL);
+    ck_assert_int_eq(mcd_flux_batch_dij(ws, 0, N, s.M, s.D, s.c, NULL, 0, out), MCD_EINVAL);
+    ck_assert_str_eq(mcd_last_error(), "argument cells: NULL");
     ck_assert_int_eq(CALL(small, 0, N, s.M, s.D, s.c, 0, s.comp, s.grad, 0, out), MCD_EBADLEN);
     ck_assert_int_eq(CALL(ws, 0, 0, s.M, s.D, s.c, 0, s.comp, s.grad, 0, out), MCD_EINVAL);
     ck_assert_int_eq(CALL(ws, (mcd_model)7, N, s.M, s.D, s.c, 0, s.comp, s.grad, 0, out), MCD_EINVAL);
@@ -456,19 +454,19 @@ START_TEST(batch_errors_name_the_cell_and_write_nothing_on_argument_errors)
     ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK);
     {
         mcd_mixture *m = make_mix(N, 0);
-        ck_assert_int_eq(mcd_flux_batch(ws, NULL, 0, K, ND, s.T, s.P, 0, s.comp, s.grad, NULL, 0, out), MCD_EINVAL);
-        ck_assert_int_eq(mcd_flux_batch(ws, m, 0, K, ND, NULL, s.P, 0, s.comp, s.grad, NULL, 0, out), MCD_EINVAL);
-        ck_assert_int_eq(mcd_flux_batch_aos(ws, m, 0, K, ND, s.T, NULL, 0, s.comp, s.grad, NULL, 0, out), MCD_EINVAL);
-        ck_assert_int_eq(mcd_flux_batch(small, m, 0, K, ND, s.T, s.P, 0, s.comp, s.grad, NULL, 0, out), MCD_EBADLEN);
+        ck_assert_int_eq(mcd_flux_batch(ws, NULL, 0, s.T, s.P, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = 0, .comp = s.comp, .grad = s.grad}, 0, out), MCD_EINVAL);
+        ck_assert_int_eq(mcd_flux_batch(ws, m, 0, NULL, s.P, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = 0, .comp = s.comp, .grad = s.grad}, 0, out), MCD_EINVAL);
+        ck_assert_int_eq(mcd_flux_batch_aos(ws, m, 0, s.T, NULL, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = 0, .comp = s.comp, .grad = s.grad}, 0, out), MCD_EINVAL);
+        ck_assert_int_eq(mcd_flux_batch(small, m, 0, s.T, s.P, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = 0, .comp = s.comp, .grad = s.grad}, 0, out), MCD_EBADLEN);
         s.T[4] = -3.0;
-        ck_assert_int_eq(mcd_flux_batch(ws, m, 0, K, ND, s.T, s.P, 0, s.comp, s.grad, NULL, 0, out), MCD_EDOM);
+        ck_assert_int_eq(mcd_flux_batch(ws, m, 0, s.T, s.P, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = 0, .comp = s.comp, .grad = s.grad}, 0, out), MCD_EDOM);
         ck_assert_str_eq(mcd_last_error(), "cell 4: argument T: -3 is not > 0");
         s.T[4] = 400.0;
         s.P[10] = NAN;
-        ck_assert_int_eq(mcd_flux_batch(ws, m, 0, K, ND, s.T, s.P, 0, s.comp, s.grad, NULL, 0, out), MCD_EINVAL);
+        ck_assert_int_eq(mcd_flux_batch(ws, m, 0, s.T, s.P, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = 0, .comp = s.comp, .grad = s.grad}, 0, out), MCD_EINVAL);
         ck_assert_str_eq(mcd_last_error(), "cell 10: argument P: not finite");
         s.P[10] = 1e5;
-        ck_assert_int_eq(mcd_flux_batch(ws, m, 0, K, ND, s.T, s.P, 0, s.comp, s.grad, NULL, 0, out), MCD_OK);
+        ck_assert_int_eq(mcd_flux_batch(ws, m, 0, s.T, s.P, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = 0, .comp = s.comp, .grad = s.grad}, 0, out), MCD_OK);
         mcd_mixture_free(m);
     }
     mcd_db_free(db);
@@ -512,9 +510,7 @@ START_TEST(batch_overflowing_fluxes_are_reported_with_the_cell)
             mcd_model md = model ? MCD_MODEL_MIXTURE_AVERAGED
                                  : MCD_MODEL_MAXWELL_STEFAN;
             ck_assert_int_eq(mcd_flux_compute(ws, md, &(mcd_state){.n_species = N, .n_dim = ND, .M = s.M, .Dij = Dc, .c = s.c[k], .comp_basis = MCD_BASIS_MOLE, .comp = y, .grad = g}, MCD_BASIS_MOLE, J), MCD_EDOM);
-            ck_assert_int_eq(mcd_flux_batch_dij(ws, md, N, K, ND, s.M, s.D, s.c,
-                                                MCD_BASIS_MOLE, s.comp, s.grad,
-                                                NULL, MCD_BASIS_MOLE, out),
+            ck_assert_int_eq(mcd_flux_batch_dij(ws, md, N, s.M, s.D, s.c, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = MCD_BASIS_MOLE, .comp = s.comp, .grad = s.grad}, MCD_BASIS_MOLE, out),
                              MCD_EDOM);
             ck_assert_msg(strncmp(mcd_last_error(), want,
                                   strlen(want)) == 0,
@@ -528,9 +524,7 @@ START_TEST(batch_overflowing_fluxes_are_reported_with_the_cell)
         for (i = 0; i < N * ND; i++)
             s.grad[i * K + k] = 0.5;
     }
-    ck_assert_int_eq(mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, N, K, ND,
-                                        s.M, s.D, s.c, MCD_BASIS_MOLE, s.comp,
-                                        s.grad, NULL, MCD_BASIS_MOLE, out),
+    ck_assert_int_eq(mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, N, s.M, s.D, s.c, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = MCD_BASIS_MOLE, .comp = s.comp, .grad = s.grad}, MCD_BASIS_MOLE, out),
                      MCD_OK);
     for (i = 0; i < N * ND * K; i++)
         ck_assert(isfinite(out[i]));
@@ -554,13 +548,9 @@ START_TEST(batch_threads_give_identical_results)
     o2 = xmalloc(n * nd * K * sizeof(double));
     for (int model = 0; model < 3; model++) {
         ck_assert_int_eq(mcd_workspace_set_threads(ws, 1), MCD_OK);
-        ck_assert_int_eq(mcd_flux_batch_dij(ws, (mcd_model)model, n, K, nd, s.M, s.D, s.c,
-                                            MCD_BASIS_MOLE, s.comp, s.grad, NULL,
-                                            MCD_BASIS_MASS, o1), MCD_OK);
+        ck_assert_int_eq(mcd_flux_batch_dij(ws, (mcd_model)model, n, s.M, s.D, s.c, &(mcd_cells){.n_cells = K, .n_dim = nd, .comp_basis = MCD_BASIS_MOLE, .comp = s.comp, .grad = s.grad}, MCD_BASIS_MASS, o1), MCD_OK);
         ck_assert_int_eq(mcd_workspace_set_threads(ws, 2), MCD_OK);
-        ck_assert_int_eq(mcd_flux_batch_dij(ws, (mcd_model)model, n, K, nd, s.M, s.D, s.c,
-                                            MCD_BASIS_MOLE, s.comp, s.grad, NULL,
-                                            MCD_BASIS_MASS, o2), MCD_OK);
+        ck_assert_int_eq(mcd_flux_batch_dij(ws, (mcd_model)model, n, s.M, s.D, s.c, &(mcd_cells){.n_cells = K, .n_dim = nd, .comp_basis = MCD_BASIS_MOLE, .comp = s.comp, .grad = s.grad}, MCD_BASIS_MASS, o2), MCD_OK);
         for (i = 0; i < n * nd * K; i++)
             ck_assert(o1[i] == o2[i]);
     }
@@ -607,19 +597,14 @@ START_TEST(batch_outputs_at_every_line_offset_match_the_aos_path)
             for (model = 0; model < 2; model++) {
                 const mcd_model md = model ? MCD_MODEL_ITERATIVE
                                            : MCD_MODEL_MAXWELL_STEFAN;
-                ck_assert_int_eq(mcd_flux_batch_aos(ws, m, md, K, nd, s.T, s.P,
-                                                    MCD_BASIS_MOLE, ac, ag, NULL,
-                                                    MCD_BASIS_MOLE, ref), MCD_OK);
+                ck_assert_int_eq(mcd_flux_batch_aos(ws, m, md, s.T, s.P, &(mcd_cells){.n_cells = K, .n_dim = nd, .comp_basis = MCD_BASIS_MOLE, .comp = ac, .grad = ag}, MCD_BASIS_MOLE, ref), MCD_OK);
                 for (th = 1; th <= 2; th++)
                     for (off = 0; off < 8; off++) {
                         double *out = buf + 8 + off;
                         ck_assert_int_eq(mcd_workspace_set_threads(ws, (size_t)th),
                                          MCD_OK);
                         sup_guard_fill(buf, tot);
-                        ck_assert_msg(mcd_flux_batch(ws, m, md, K, nd, s.T, s.P,
-                                                     MCD_BASIS_MOLE, s.comp, s.grad,
-                                                     NULL, MCD_BASIS_MOLE,
-                                                     out) == MCD_OK,
+                        ck_assert_msg(mcd_flux_batch(ws, m, md, s.T, s.P, &(mcd_cells){.n_cells = K, .n_dim = nd, .comp_basis = MCD_BASIS_MOLE, .comp = s.comp, .grad = s.grad}, MCD_BASIS_MOLE, out) == MCD_OK,
                                       "%s", mcd_last_error());
                         ck_assert_msg(sup_guard_intact(buf, 8 + off),
                                       "N=%zu K=%zu offset %u: wrote before "

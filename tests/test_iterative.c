@@ -94,9 +94,7 @@ static double prob_err(const prob *p)
 
 static mcd_status run_iter(mcd_workspace *ws, prob *p)
 {
-    return mcd_flux_batch_dij(ws, MCD_MODEL_ITERATIVE, p->n, KC, ND, NULL, p->D,
-                              p->c, MCD_BASIS_MOLE, p->x, p->g, NULL,
-                              MCD_BASIS_MOLE, p->out);
+    return mcd_flux_batch_dij(ws, MCD_MODEL_ITERATIVE, p->n, NULL, p->D, p->c, &(mcd_cells){.n_cells = KC, .n_dim = ND, .comp_basis = MCD_BASIS_MOLE, .comp = p->x, .grad = p->g}, MCD_BASIS_MOLE, p->out);
 }
 
 START_TEST(iterative_converges_to_the_exact_solution)

@@ -279,8 +279,7 @@ START_TEST(mixture_missing_parameters_give_enodata)
         mcd_workspace *ws = NULL;
         double T = 300, P = 1e5, x[2] = {0.5, 0.5}, g[2] = {1, -1}, J[2] = {0, 0};
         ck_assert_int_eq(mcd_workspace_new(2, &ws), MCD_OK);
-        ck_assert_int_eq(mcd_flux_batch(ws, m, MCD_MODEL_MAXWELL_STEFAN, 1, 1, &T, &P,
-                                        MCD_BASIS_MOLE, x, g, NULL, MCD_BASIS_MOLE, J),
+        ck_assert_int_eq(mcd_flux_batch(ws, m, MCD_MODEL_MAXWELL_STEFAN, &T, &P, &(mcd_cells){.n_cells = 1, .n_dim = 1, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g}, MCD_BASIS_MOLE, J),
                          MCD_ENODATA);
         ck_assert_ptr_nonnull(strstr(mcd_last_error(), "pair (0, 1) gas-a-gas-b"));
         mcd_workspace_free(ws);

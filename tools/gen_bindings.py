@@ -857,6 +857,9 @@ FORTRAN_SCALAR = {
     "mcd_workspace_new_with": ["allocator"],
     "mcd_flux_compute": ["state"],
     "mcd_fick_matrix": ["state"],
+    "mcd_flux_batch": ["cells"],
+    "mcd_flux_batch_dij": ["cells"],
+    "mcd_flux_batch_aos": ["cells"],
 }
 # FORTRAN_NULLABLE: pointer parameters that may be NULL (bound as
 # type(c_ptr), value: pass c_null_ptr or c_loc(x)).
@@ -867,9 +870,7 @@ FORTRAN_NULLABLE = {
     "mcd_fick_matrix": ["out_dependent"],
     "mcd_flux_total": ["values", "out_bulk"],
     "mcd_flux_project": ["weights", "out_residual"],
-    "mcd_flux_batch": ["grad_lnP"],
-    "mcd_flux_batch_dij": ["M", "grad_lnP"],
-    "mcd_flux_batch_aos": ["grad_lnP"],
+    "mcd_flux_batch_dij": ["M"],
     "mcd_workspace_iterative_outcome": ["out_max_error", "out_max_iter"],
     "mcd_mixture_set_temperature_fit": ["out_max_rel_err"],
     "mcd_mixture_temperature_fit": ["out_T_min", "out_T_max",

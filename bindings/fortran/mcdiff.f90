@@ -1218,6 +1218,19 @@ contains
   ! Batched fluxes (layout: see the module header)
   ! ==================================================================
 
+  !> The per-cell inputs shared by the batched calls (C: mcd_cells).
+  subroutine set_cells(cells, n_cells, n_dim, comp_basis, comp, grad)
+    type(mcd_cells_t), intent(out) :: cells
+    integer, intent(in) :: n_cells, n_dim, comp_basis
+    type(c_ptr), intent(in) :: comp, grad
+    cells%n_cells = csz(n_cells)
+    cells%n_dim = csz(n_dim)
+    cells%comp_basis = int(comp_basis, c_int)
+    cells%comp = comp
+    cells%grad = grad
+    cells%grad_lnP = c_null_ptr
+  end subroutine set_cells
+
   !> Fluxes of a mixture at n_cells states, structure-of-arrays layout:
   !> T(n_cells), P(n_cells), comp(n_cells, N), grad(n_cells, n_dim, N),
   !> flux(n_cells, n_dim, N), grad_lnP(n_cells, n_dim) optional;
@@ -1228,18 +1241,17 @@ contains
     type(mcd_workspace_t), intent(inout) :: ws
     type(mcd_mixture_t), intent(in) :: mix
     integer, intent(in) :: model, n_cells, n_dim, comp_basis, flux_basis
-    real(c_double), intent(in) :: T(n_cells), P(n_cells), comp(n_cells, *)
-    real(c_double), intent(in) :: grad(n_cells, n_dim, *)
+    real(c_double), intent(in) :: T(n_cells), P(n_cells)
+    real(c_double), intent(in), target :: comp(n_cells, *), grad(n_cells, n_dim, *)
     real(c_double), intent(inout) :: flux(n_cells, n_dim, *)
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
     real(c_double), intent(in), optional, target :: grad_lnP(n_cells, n_dim)
-    type(c_ptr) :: pL
-    pL = c_null_ptr
-    if (present(grad_lnP)) pL = c_loc(grad_lnP)
-    call finish(c_mcd_flux_batch(ws%ptr, mix%ptr, int(model, c_int), &
-         csz(n_cells), csz(n_dim), T, P, int(comp_basis, c_int), comp, grad, pL, &
-         int(flux_basis, c_int), flux), stat, errmsg)
+    type(mcd_cells_t) :: cells
+    call set_cells(cells, n_cells, n_dim, comp_basis, c_loc(comp), c_loc(grad))
+    if (present(grad_lnP)) cells%grad_lnP = c_loc(grad_lnP)
+    call finish(c_mcd_flux_batch(ws%ptr, mix%ptr, int(model, c_int), T, P, &
+         cells, int(flux_basis, c_int), flux), stat, errmsg)
   end subroutine mcd_flux_batch
 
   !> Batched fluxes with the caller's binary diffusivities Dij(n_cells, n, n)
@@ -1249,20 +1261,20 @@ contains
        comp, grad, flux_basis, flux, stat, errmsg, M, grad_lnP)
     type(mcd_workspace_t), intent(inout) :: ws
     integer, intent(in) :: model, n, n_cells, n_dim, comp_basis, flux_basis
-    real(c_double), intent(in) :: Dij(n_cells, n, n), c(n_cells), comp(n_cells, n)
-    real(c_double), intent(in) :: grad(n_cells, n_dim, n)
+    real(c_double), intent(in) :: Dij(n_cells, n, n), c(n_cells)
+    real(c_double), intent(in), target :: comp(n_cells, n), grad(n_cells, n_dim, n)
     real(c_double), intent(inout) :: flux(n_cells, n_dim, n)
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
     real(c_double), intent(in), optional, target :: M(n), grad_lnP(n_cells, n_dim)
-    type(c_ptr) :: pM, pL
+    type(c_ptr) :: pM
+    type(mcd_cells_t) :: cells
     pM = c_null_ptr
-    pL = c_null_ptr
     if (present(M)) pM = c_loc(M)
-    if (present(grad_lnP)) pL = c_loc(grad_lnP)
-    call finish(c_mcd_flux_batch_dij(ws%ptr, int(model, c_int), csz(n), &
-         csz(n_cells), csz(n_dim), pM, Dij, c, int(comp_basis, c_int), comp, grad, &
-         pL, int(flux_basis, c_int), flux), stat, errmsg)
+    call set_cells(cells, n_cells, n_dim, comp_basis, c_loc(comp), c_loc(grad))
+    if (present(grad_lnP)) cells%grad_lnP = c_loc(grad_lnP)
+    call finish(c_mcd_flux_batch_dij(ws%ptr, int(model, c_int), csz(n), pM, Dij, &
+         c, cells, int(flux_basis, c_int), flux), stat, errmsg)
   end subroutine mcd_flux_batch_dij
 
   !> As mcd_flux_batch with per-cell arrays: comp(N, n_cells), grad and
@@ -1272,17 +1284,17 @@ contains
     type(mcd_workspace_t), intent(inout) :: ws
     type(mcd_mixture_t), intent(in) :: mix
     integer, intent(in) :: model, n_cells, n_dim, comp_basis, flux_basis
-    real(c_double), intent(in) :: T(n_cells), P(n_cells), comp(*), grad(*)
+    real(c_double), intent(in) :: T(n_cells), P(n_cells)
+    real(c_double), intent(in), target :: comp(*), grad(*)
     real(c_double), intent(inout) :: flux(*)
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
     real(c_double), intent(in), optional, target :: grad_lnP(n_dim, n_cells)
-    type(c_ptr) :: pL
-    pL = c_null_ptr
-    if (present(grad_lnP)) pL = c_loc(grad_lnP)
-    call finish(c_mcd_flux_batch_aos(ws%ptr, mix%ptr, int(model, c_int), &
-         csz(n_cells), csz(n_dim), T, P, int(comp_basis, c_int), comp, grad, pL, &
-         int(flux_basis, c_int), flux), stat, errmsg)
+    type(mcd_cells_t) :: cells
+    call set_cells(cells, n_cells, n_dim, comp_basis, c_loc(comp), c_loc(grad))
+    if (present(grad_lnP)) cells%grad_lnP = c_loc(grad_lnP)
+    call finish(c_mcd_flux_batch_aos(ws%ptr, mix%ptr, int(model, c_int), T, P, &
+         cells, int(flux_basis, c_int), flux), stat, errmsg)
   end subroutine mcd_flux_batch_aos
 
   !> Settings of MCD_MODEL_ITERATIVE for later batched calls on ws.

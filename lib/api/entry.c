@@ -603,35 +603,29 @@ MCD_API mcd_status mcd_flux_diagnose(size_t n_species, size_t n_dim,
 }
 
 MCD_API mcd_status mcd_flux_batch(mcd_workspace *ws, const mcd_mixture *mix,
-                                  mcd_model model, size_t n_cells,
-                                  size_t n_dim, const double *T,
-                                  const double *P, mcd_basis comp_basis,
-                                  const double *comp, const double *grad,
-                                  const double *grad_lnP, mcd_basis flux_basis,
-                                  double *out_flux)
+                                  mcd_model model, const double *T,
+                                  const double *P, const mcd_cells *cells,
+                                  mcd_basis flux_basis, double *out_flux)
 {
     mcd_status st;
     mcdi_err_clear();
-    st = mcdi_api_flux_batch(ws, mix, model, n_cells, n_dim, T, P, comp_basis,
-        comp, grad, grad_lnP, flux_basis, out_flux);
+    st = mcdi_api_flux_batch(ws, mix, model, T, P, cells, flux_basis,
+        out_flux);
     if (st != MCD_OK)
         mcdi_err_settle(st, "mcd_flux_batch");
     return st;
 }
 
 MCD_API mcd_status mcd_flux_batch_dij(mcd_workspace *ws, mcd_model model,
-                                      size_t n_species, size_t n_cells,
-                                      size_t n_dim, const double *M,
+                                      size_t n_species, const double *M,
                                       const double *Dij, const double *c,
-                                      mcd_basis comp_basis, const double *comp,
-                                      const double *grad,
-                                      const double *grad_lnP,
+                                      const mcd_cells *cells,
                                       mcd_basis flux_basis, double *out_flux)
 {
     mcd_status st;
     mcdi_err_clear();
-    st = mcdi_api_flux_batch_dij(ws, model, n_species, n_cells, n_dim, M, Dij,
-        c, comp_basis, comp, grad, grad_lnP, flux_basis, out_flux);
+    st = mcdi_api_flux_batch_dij(ws, model, n_species, M, Dij, c, cells,
+        flux_basis, out_flux);
     if (st != MCD_OK)
         mcdi_err_settle(st, "mcd_flux_batch_dij");
     return st;
@@ -639,17 +633,14 @@ MCD_API mcd_status mcd_flux_batch_dij(mcd_workspace *ws, mcd_model model,
 
 MCD_API mcd_status mcd_flux_batch_aos(mcd_workspace *ws,
                                       const mcd_mixture *mix, mcd_model model,
-                                      size_t n_cells, size_t n_dim,
                                       const double *T, const double *P,
-                                      mcd_basis comp_basis, const double *comp,
-                                      const double *grad,
-                                      const double *grad_lnP,
+                                      const mcd_cells *cells,
                                       mcd_basis flux_basis, double *out_flux)
 {
     mcd_status st;
     mcdi_err_clear();
-    st = mcdi_api_flux_batch_aos(ws, mix, model, n_cells, n_dim, T, P,
-        comp_basis, comp, grad, grad_lnP, flux_basis, out_flux);
+    st = mcdi_api_flux_batch_aos(ws, mix, model, T, P, cells, flux_basis,
+        out_flux);
     if (st != MCD_OK)
         mcdi_err_settle(st, "mcd_flux_batch_aos");
     return st;

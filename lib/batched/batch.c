@@ -299,12 +299,12 @@ static mcd_status mixture_job(mcd_workspace *ws, const mcd_mixture *mix,
     return MCD_OK;
 }
 
-mcd_status mcdi_api_flux_batch(mcd_workspace *ws, const mcd_mixture *mix,
-                               mcd_model model, size_t n_cells, size_t n_dim,
-                               const double *T, const double *P,
-                               mcd_basis comp_basis, const double *comp,
-                               const double *grad, const double *grad_lnP,
-                               mcd_basis flux_basis, double *out_flux)
+mcd_status mcdi_flux_batch_args(mcd_workspace *ws, const mcd_mixture *mix,
+                                mcd_model model, size_t n_cells, size_t n_dim,
+                                const double *T, const double *P,
+                                mcd_basis comp_basis, const double *comp,
+                                const double *grad, const double *grad_lnP,
+                                mcd_basis flux_basis, double *out_flux)
 {
     mcdi_bjob jb;
     mcd_status st;
@@ -320,13 +320,13 @@ mcd_status mcdi_api_flux_batch(mcd_workspace *ws, const mcd_mixture *mix,
     return run_job(ws, &jb);
 }
 
-mcd_status mcdi_api_flux_batch_dij(mcd_workspace *ws, mcd_model model,
-                                   size_t n_species, size_t n_cells,
-                                   size_t n_dim, const double *M,
-                                   const double *Dij, const double *c,
-                                   mcd_basis comp_basis, const double *comp,
-                                   const double *grad, const double *grad_lnP,
-                                   mcd_basis flux_basis, double *out_flux)
+mcd_status mcdi_flux_batch_dij_args(mcd_workspace *ws, mcd_model model,
+                                    size_t n_species, size_t n_cells,
+                                    size_t n_dim, const double *M,
+                                    const double *Dij, const double *c,
+                                    mcd_basis comp_basis, const double *comp,
+                                    const double *grad, const double *grad_lnP,
+                                    mcd_basis flux_basis, double *out_flux)
 {
     mcdi_bjob jb;
     mcd_status st;
@@ -361,13 +361,13 @@ mcd_status mcdi_api_flux_batch_dij(mcd_workspace *ws, mcd_model model,
 /* AoS: each block of L cells is transposed into SoA staging that follows
  * the kernel's scratch in the thread's region, computed with stride L,
  * and transposed back. Serial (the staging is per workspace thread 0). */
-mcd_status mcdi_api_flux_batch_aos(mcd_workspace *ws, const mcd_mixture *mix,
-                                   mcd_model model, size_t n_cells,
-                                   size_t n_dim, const double *T,
-                                   const double *P, mcd_basis comp_basis,
-                                   const double *comp, const double *grad,
-                                   const double *grad_lnP, mcd_basis flux_basis,
-                                   double *out_flux)
+mcd_status mcdi_flux_batch_aos_args(mcd_workspace *ws, const mcd_mixture *mix,
+                                    mcd_model model, size_t n_cells,
+                                    size_t n_dim, const double *T,
+                                    const double *P, mcd_basis comp_basis,
+                                    const double *comp, const double *grad,
+                                    const double *grad_lnP,
+                                    mcd_basis flux_basis, double *out_flux)
 {
     mcdi_bjob jb;
     mcd_status st;

@@ -280,8 +280,7 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
             gk[q * K + k] = grad[q];
     }
     memset(outk, FUZZ_GUARD_BYTE, sizeof outk);
-    st = mcd_flux_batch_dij(ws, model, n, K, nd, (fl & 0x40) ? NULL : M, Dk, cvec, cb, xk, gk,
-                            NULL, fb, outk);
+    st = mcd_flux_batch_dij(ws, model, n, (fl & 0x40) ? NULL : M, Dk, cvec, &(mcd_cells){.n_cells = K, .n_dim = nd, .comp_basis = cb, .comp = xk, .grad = gk}, fb, outk);
     if (st == MCD_OK) {
         for (size_t k = 0; k < K; k++)
             require_zero_sum("flux_batch_dij", n, nd, outk + k, K);

@@ -8,7 +8,7 @@ Handles are opaque: c_void_p, never a mirrored struct. Every enum is c_int.
 
 import ctypes
 
-__all__ = ["SIGNATURES", "mcd_state"]
+__all__ = ["SIGNATURES", "mcd_state", "mcd_cells"]
 
 _D = ctypes.c_double
 _PD = ctypes.POINTER(ctypes.c_double)
@@ -189,18 +189,12 @@ SIGNATURES = {
     "mcd_flux_diagnose": (_ST, [_SZ, _SZ, _PD, _PD, _D, _PU]),
 
     # --- Batched fluxes (many states per call) ---
-    # (ws, mix, model, n_cells, n_dim, T, P, comp_basis, comp, grad, grad_lnP,
-    #  flux_basis, out_flux)
-    "mcd_flux_batch": (_ST, [_H, _H, _E, _SZ, _SZ, _PD, _PD, _E, _PD, _PD, _PD,
-                             _E, _PD]),
-    # (ws, model, n_species, n_cells, n_dim, M, Dij, c, comp_basis, comp, grad,
-    #  grad_lnP, flux_basis, out_flux)
-    "mcd_flux_batch_dij": (_ST, [_H, _E, _SZ, _SZ, _SZ, _PD, _PD, _PD, _E, _PD,
-                                 _PD, _PD, _E, _PD]),
-    # (ws, mix, model, n_cells, n_dim, T, P, comp_basis, comp, grad, grad_lnP,
-    #  flux_basis, out_flux)
-    "mcd_flux_batch_aos": (_ST, [_H, _H, _E, _SZ, _SZ, _PD, _PD, _E, _PD, _PD,
-                                 _PD, _E, _PD]),
+    # (ws, mix, model, T, P, cells, flux_basis, out_flux)
+    "mcd_flux_batch": (_ST, [_H, _H, _E, _PD, _PD, _H, _E, _PD]),
+    # (ws, model, n_species, M, Dij, c, cells, flux_basis, out_flux)
+    "mcd_flux_batch_dij": (_ST, [_H, _E, _SZ, _PD, _PD, _PD, _H, _E, _PD]),
+    # (ws, mix, model, T, P, cells, flux_basis, out_flux)
+    "mcd_flux_batch_aos": (_ST, [_H, _H, _E, _PD, _PD, _H, _E, _PD]),
     # (ws, max_iter, tol)
     "mcd_workspace_set_iterative": (_ST, [_H, _SZ, _D]),
     # (ws, out_max_error, out_max_iter)
@@ -242,5 +236,17 @@ class mcd_state(ctypes.Structure):
         ("comp", ctypes.POINTER(ctypes.c_double)),
         ("grad", ctypes.POINTER(ctypes.c_double)),
         ("Gamma", ctypes.POINTER(ctypes.c_double)),
+        ("grad_lnP", ctypes.POINTER(ctypes.c_double)),
+    ]
+
+
+class mcd_cells(ctypes.Structure):
+    """struct mcd_cells of include/mcdiff.h."""
+    _fields_ = [
+        ("n_cells", ctypes.c_size_t),
+        ("n_dim", ctypes.c_size_t),
+        ("comp_basis", ctypes.c_int),
+        ("comp", ctypes.POINTER(ctypes.c_double)),
+        ("grad", ctypes.POINTER(ctypes.c_double)),
         ("grad_lnP", ctypes.POINTER(ctypes.c_double)),
     ]

@@ -18,7 +18,7 @@ import threading
 from . import _arrays
 from ._arrays import np
 from ._native import lib
-from ._signatures import mcd_state
+from ._signatures import mcd_cells, mcd_state
 from .enums import (Basis, Bootstrap, Diag, FilmBootstrap, FilmMethod, Method,
                     Model, coerce)
 from .errors import error_for
@@ -728,8 +728,10 @@ def flux_batch(mixture, T, P, comp, grad, *, model="maxwell-stefan",
     ws = _ws(workspace, N)
     o = _arrays.Output(g.shape, out)
     fname = "mcd_flux_batch" if layout == "soa" else "mcd_flux_batch_aos"
-    st = getattr(lib, fname)(ws._p(), mixture._p(), mdl, K, nd, Ta.ptr,
-                             Pa.ptr, cb, a.ptr, g.ptr, _ptr(lp), fb, o.ptr)
+    cells = mcd_cells(n_cells=K, n_dim=nd, comp_basis=cb, comp=a.ptr,
+                      grad=g.ptr, grad_lnP=_ptr(lp))
+    st = getattr(lib, fname)(ws._p(), mixture._p(), mdl, Ta.ptr, Pa.ptr,
+                             ctypes.byref(cells), fb, o.ptr)
     ws.check(st, fname)
     return out if out is not None else o.result()
 
@@ -762,8 +764,10 @@ def flux_batch_dij(Dij, c, comp, grad, *, M=None, model="maxwell-stefan",
     m = _opt(M, lambda v: _arrays.vector(v, N, "M"))
     ws = _ws(workspace, N)
     o = _arrays.Output(g.shape, out)
-    st = lib.mcd_flux_batch_dij(ws._p(), mdl, N, K, nd, _ptr(m), D.ptr,
-                                ca.ptr, cb, a.ptr, g.ptr, _ptr(lp), fb, o.ptr)
+    cells = mcd_cells(n_cells=K, n_dim=nd, comp_basis=cb, comp=a.ptr,
+                      grad=g.ptr, grad_lnP=_ptr(lp))
+    st = lib.mcd_flux_batch_dij(ws._p(), mdl, N, _ptr(m), D.ptr, ca.ptr,
+                                ctypes.byref(cells), fb, o.ptr)
     ws.check(st, "mcd_flux_batch_dij")
     return out if out is not None else o.result()
 
