@@ -968,6 +968,18 @@ typedef enum mcd_film_method {
                                  the mean composition (x0 + xL)/2 */
 } mcd_film_method;
 
+/** A steady film or Stefan tube: the input of mcd_film_solve and
+ *  mcd_film_profile. Zero-initialise it and set the fields. Since 0.2. */
+typedef struct mcd_film {
+    size_t n_species;  /**< N, 2..capacity of the workspace */
+    double c;          /**< total molar concentration [mol/m^3], > 0 */
+    double L;          /**< film thickness or tube length [m], > 0 */
+    const double *Dij; /**< binary diffusivities [m^2/s], N x N */
+    const double *x0;  /**< mole fractions at z = 0, length N */
+    const double *xL;  /**< mole fractions at z = L, length N
+                            (mcd_film_solve only) */
+} mcd_film;
+
 /** Steady fluxes through a film between two compositions. Since 0.1.
  *
  *  Iterates on the fluxes (successive substitution with Anderson mixing)
@@ -979,17 +991,19 @@ typedef enum mcd_film_method {
  *  N_A = (c Đ/L) ln((1 - xA_L)/(1 - xA_0)) (B stagnant) and
  *  N_A = z_A (c Đ/L) ln((z_A - xA_L)/(z_A - xA_0)) (ratios).
  *
- *  @param ws       workspace with capacity >= n_species.
- *  @param n_species number of species N, 2..capacity.
- *  @param Dij      binary diffusivities [m^2/s], N x N row-major, symmetric
+ *  @param ws       workspace with capacity >= film->n_species.
+ *  @param film     the film (mcd_film); its fields are checked as follows
+ *                  and messages name them ("argument x0: entry 1 ..."):
+ *    n_species     number of species N, 2..capacity.
+ *    Dij           binary diffusivities [m^2/s], N x N row-major, symmetric
  *                  (relative difference <= 1e-12), off-diagonal normal
  *                  positive numbers (>= DBL_MIN; a subnormal one is EDOM,
  *                  as in the flux calls), diagonal ignored.
- *  @param c        total molar concentration [mol/m^3], > 0.
- *  @param L        film thickness or tube length [m], > 0.
- *  @param x0       mole fractions at z = 0, length N, validated as by
+ *    c             total molar concentration [mol/m^3], > 0.
+ *    L             film thickness or tube length [m], > 0.
+ *    x0            mole fractions at z = 0, length N, validated as by
  *                  mcd_comp_normalize (sum within MCD_SUM_TOL of 1).
- *  @param xL       mole fractions at z = L, same rules.
+ *    xL            mole fractions at z = L, same rules.
  *  @param kind     bootstrap condition (mcd_film_bootstrap).
  *  @param species  for STAGNANT: the species that does not move (present,
  *                  x > 0, at both ends); for RATIOS: the species whose end
@@ -1012,11 +1026,9 @@ typedef enum mcd_film_method {
  *  linearized estimate and give mole fractions outside [0, 1] inside the
  *  film; mcd_last_error() gives the last residual) | Allocates: no
  *  | Threads: one ws per thread */
-MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n_species,
-                                  const double *Dij, double c, double L,
-                                  const double *x0, const double *xL,
-                                  mcd_film_bootstrap kind,
-                                  size_t species, const double *values,
+MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, const mcd_film *film,
+                                  mcd_film_bootstrap kind, size_t species,
+                                  const double *values,
                                   mcd_film_method method, double *out_N,
                                   size_t *out_iterations,
                                   double *out_residual);
@@ -1030,14 +1042,12 @@ MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n_species,
  *  @param n_points  number of positions (0 writes nothing).
  *  @param z         positions [m], length n_points, each in [0, L].
  *  @param out_x     mole fractions, n_points x N row-major (row = position).
- *  Other parameters as in mcd_film_solve.
+ *  @param film      as in mcd_film_solve; xL is not used.
  *  Fails: EINVAL, EBADLEN, EDOM | Allocates: no | Threads: one ws per
  *  thread */
-MCD_API mcd_status mcd_film_profile(mcd_workspace *ws, size_t n_species,
-                                    const double *Dij, double c, double L,
-                                    const double *x0, const double *N,
-                                    size_t n_points, const double *z,
-                                    double *out_x);
+MCD_API mcd_status mcd_film_profile(mcd_workspace *ws, const mcd_film *film,
+                                    const double *N, size_t n_points,
+                                    const double *z, double *out_x);
 
 /*
  * Two-bulb diffusion cell: well-mixed bulbs of volumes V1 and V2 [m^3]
@@ -1048,33 +1058,40 @@ MCD_API mcd_status mcd_film_profile(mcd_workspace *ws, size_t n_species,
  * both bulbs tend to the volume-weighted mean composition.
  */
 
+/** A two-bulb cell and its initial state: the input of mcd_bulbs_linearized
+ *  and mcd_bulbs_integrate. Zero-initialise it and set the fields.
+ *  Since 0.2. */
+typedef struct mcd_bulbs {
+    size_t n_species;   /**< N, 2..capacity of the workspace */
+    double c;           /**< total molar concentration [mol/m^3], > 0 */
+    double V1;          /**< volume of bulb 1 [m^3], > 0 */
+    double V2;          /**< volume of bulb 2 [m^3], > 0 */
+    double A;           /**< capillary cross-section [m^2], > 0 */
+    double L;           /**< capillary length [m], > 0 */
+    const double *Dij;  /**< binary diffusivities as in mcd_film */
+    const double *x1_0; /**< initial mole fractions of bulb 1, length N */
+    const double *x2_0; /**< initial mole fractions of bulb 2, length N */
+} mcd_bulbs;
+
 /** Two-bulb compositions by the linearized theory (Toor 1964; Stewart and
  *  Prober 1964): [D] (molar frame, ideal gas) constant at the
  *  volume-weighted mean composition, so that the difference
  *  Delta = x1 - x2 obeys d Delta/dt = -beta [D] Delta with
  *  beta = A (V1 + V2) / (L V1 V2), solved through the eigen-decomposition
  *  of [D] (LAPACK dgeev). Since 0.1.
- *  @param ws        workspace with capacity >= n_species.
- *  @param n_species number of species N, 2..capacity.
- *  @param Dij       binary diffusivities as in mcd_film_solve.
- *  @param c         total molar concentration [mol/m^3], > 0.
- *  @param V1,V2     bulb volumes [m^3], > 0.
- *  @param A         capillary cross-section [m^2], > 0.
- *  @param L         capillary length [m], > 0.
- *  @param x1_0,x2_0 initial mole fractions of bulb 1 and 2, length N each.
+ *  @param ws        workspace with capacity >= bulbs->n_species.
+ *  @param bulbs     the cell and its initial state (mcd_bulbs); messages
+ *                   name its fields.
  *  @param n_times   number of output times (0 writes nothing).
  *  @param t         output times [s], length n_times, each >= 0.
  *  @param out_x1,out_x2  mole fractions, n_times x N row-major each
  *                   (row = time).
  *  Fails: EINVAL, EBADLEN, EDOM, ESING | Allocates: no | Threads: one ws
  *  per thread */
-MCD_API mcd_status mcd_bulbs_linearized(mcd_workspace *ws, size_t n_species,
-                                        const double *Dij, double c,
-                                        double V1, double V2, double A,
-                                        double L, const double *x1_0,
-                                        const double *x2_0, size_t n_times,
-                                        const double *t, double *out_x1,
-                                        double *out_x2);
+MCD_API mcd_status mcd_bulbs_linearized(mcd_workspace *ws,
+                                        const mcd_bulbs *bulbs,
+                                        size_t n_times, const double *t,
+                                        double *out_x1, double *out_x2);
 
 /** Two-bulb compositions by time integration: the capillary flux at each
  *  instant is the exact steady equimolar film solution between x1 and x2
@@ -1089,11 +1106,8 @@ MCD_API mcd_status mcd_bulbs_linearized(mcd_workspace *ws, size_t n_species,
  *  Other parameters as in mcd_bulbs_linearized.
  *  Fails: EINVAL, EBADLEN, EDOM, ESING, ENOCONV (step size underflow or
  *  film not converging) | Allocates: no | Threads: one ws per thread */
-MCD_API mcd_status mcd_bulbs_integrate(mcd_workspace *ws, size_t n_species,
-                                       const double *Dij, double c,
-                                       double V1, double V2, double A,
-                                       double L, const double *x1_0,
-                                       const double *x2_0, size_t n_times,
+MCD_API mcd_status mcd_bulbs_integrate(mcd_workspace *ws,
+                                       const mcd_bulbs *bulbs, size_t n_times,
                                        const double *t, double rel_tol,
                                        double *out_x1, double *out_x2);
 

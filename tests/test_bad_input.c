@@ -439,27 +439,19 @@ static int call_mcd_flux_diagnose(ctx *c)
 }
 static int call_mcd_film_solve(ctx *c)
 {
-    return mcd_film_solve(WS, c->n, ARG(D, NB_D), c->c, c->L, ARG(x, NB_X), ARG(x2, NB_X2),
-                          (mcd_film_bootstrap)c->kind, c->species, ARG(vals, NB_VALS),
-                          (mcd_film_method)c->film_method, OUT(o1, NB_O1), OUT(oz, NB_OZ),
-                          OUT(o2, NB_O2));
+    return mcd_film_solve(WS, &(mcd_film){.n_species = c->n, .c = c->c, .L = c->L, .Dij = ARG(D, NB_D), .x0 = ARG(x, NB_X), .xL = ARG(x2, NB_X2)}, (mcd_film_bootstrap)c->kind, c->species, ARG(vals, NB_VALS), (mcd_film_method)c->film_method, OUT(o1, NB_O1), OUT(oz, NB_OZ), OUT(o2, NB_O2));
 }
 static int call_mcd_film_profile(ctx *c)
 {
-    return mcd_film_profile(WS, c->n, ARG(D, NB_D), c->c, c->L, ARG(x, NB_X), ARG(Nf, NB_NF),
-                            c->np, ARG(zz, NB_Z), OUT(o1, NB_O1));
+    return mcd_film_profile(WS, &(mcd_film){.n_species = c->n, .c = c->c, .L = c->L, .Dij = ARG(D, NB_D), .x0 = ARG(x, NB_X)}, ARG(Nf, NB_NF), c->np, ARG(zz, NB_Z), OUT(o1, NB_O1));
 }
 static int call_mcd_bulbs_linearized(ctx *c)
 {
-    return mcd_bulbs_linearized(WS, c->n, ARG(D, NB_D), c->c, c->V1, c->V2, c->A, c->L,
-                                ARG(x, NB_X), ARG(x2, NB_X2), c->nt, ARG(tt, NB_T),
-                                OUT(o1, NB_O1), OUT(o2, NB_O2));
+    return mcd_bulbs_linearized(WS, &(mcd_bulbs){.n_species = c->n, .c = c->c, .V1 = c->V1, .V2 = c->V2, .A = c->A, .L = c->L, .Dij = ARG(D, NB_D), .x1_0 = ARG(x, NB_X), .x2_0 = ARG(x2, NB_X2)}, c->nt, ARG(tt, NB_T), OUT(o1, NB_O1), OUT(o2, NB_O2));
 }
 static int call_mcd_bulbs_integrate(ctx *c)
 {
-    return mcd_bulbs_integrate(WS, c->n, ARG(D, NB_D), c->c, c->V1, c->V2, c->A, c->L,
-                               ARG(x, NB_X), ARG(x2, NB_X2), c->nt, ARG(tt, NB_T), c->tol_ode,
-                               OUT(o1, NB_O1), OUT(o2, NB_O2));
+    return mcd_bulbs_integrate(WS, &(mcd_bulbs){.n_species = c->n, .c = c->c, .V1 = c->V1, .V2 = c->V2, .A = c->A, .L = c->L, .Dij = ARG(D, NB_D), .x1_0 = ARG(x, NB_X), .x2_0 = ARG(x2, NB_X2)}, c->nt, ARG(tt, NB_T), c->tol_ode, OUT(o1, NB_O1), OUT(o2, NB_O2));
 }
 
 static int call_mcd_flux_batch(ctx *c)

@@ -68,12 +68,9 @@ START_TEST(bulbs_duncan_toor_nitrogen_osmotic_reverse_then_normal)
     for (int k = 0; k < NT - 1; k++)
         t[k] = 900.0 * k;
     t[NT - 1] = 400 * 3600.0;
-    ck_assert_int_eq(mcd_bulbs_integrate(ws, 3, DT_D, c, DT_V1, DT_V2, A,
-                                         DT_L, DT_X1, DT_X2, NT, t, 1e-9,
-                                         x1, x2),
+    ck_assert_int_eq(mcd_bulbs_integrate(ws, &(mcd_bulbs){.n_species = 3, .c = c, .V1 = DT_V1, .V2 = DT_V2, .A = A, .L = DT_L, .Dij = DT_D, .x1_0 = DT_X1, .x2_0 = DT_X2}, NT, t, 1e-9, x1, x2),
                      MCD_OK);
-    ck_assert_int_eq(mcd_bulbs_linearized(ws, 3, DT_D, c, DT_V1, DT_V2, A,
-                                          DT_L, DT_X1, DT_X2, NT, t, l1, l2),
+    ck_assert_int_eq(mcd_bulbs_linearized(ws, &(mcd_bulbs){.n_species = 3, .c = c, .V1 = DT_V1, .V2 = DT_V2, .A = A, .L = DT_L, .Dij = DT_D, .x1_0 = DT_X1, .x2_0 = DT_X2}, NT, t, l1, l2),
                      MCD_OK);
     for (int i = 0; i < 3; i++)
         tot[i] = DT_V1 * DT_X1[i] + DT_V2 * DT_X2[i];
@@ -93,9 +90,7 @@ START_TEST(bulbs_duncan_toor_nitrogen_osmotic_reverse_then_normal)
             maxdiff = fmax(maxdiff, fabs(x2[3 * k + i] - l2[3 * k + i]));
         }
         /* capillary flux (bulb 1 -> bulb 2) and mean gradient */
-        ck_assert_int_eq(mcd_film_solve(ws, 3, DT_D, c, DT_L, x1 + 3 * k,
-                                        x2 + 3 * k, MCD_FILM_BOOT_EQUIMOLAR, 0,
-                                        NULL, MCD_FILM_EXACT, N, NULL, NULL),
+        ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = c, .L = DT_L, .Dij = DT_D, .x0 = x1 + 3 * k, .xL = x2 + 3 * k}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, NULL, NULL),
                          MCD_OK);
         for (int i = 0; i < 3; i++)
             grad[i] = (x2[3 * k + i] - x1[3 * k + i]) / DT_L;
@@ -173,12 +168,9 @@ START_TEST(bulbs_binary_decays_exponentially)
         double x1[12], x2[12], l1[12], l2[12];
         for (int k = 0; k < 6; k++)
             t[k] = k * 0.4 / (beta * D);
-        ck_assert_int_eq(mcd_bulbs_integrate(ws, 2, Dm, c, V1, V2, A, L,
-                                             x1_0, x2_0, 6, t, 1e-10, x1,
-                                             x2),
+        ck_assert_int_eq(mcd_bulbs_integrate(ws, &(mcd_bulbs){.n_species = 2, .c = c, .V1 = V1, .V2 = V2, .A = A, .L = L, .Dij = Dm, .x1_0 = x1_0, .x2_0 = x2_0}, 6, t, 1e-10, x1, x2),
                          MCD_OK);
-        ck_assert_int_eq(mcd_bulbs_linearized(ws, 2, Dm, c, V1, V2, A, L,
-                                              x1_0, x2_0, 6, t, l1, l2),
+        ck_assert_int_eq(mcd_bulbs_linearized(ws, &(mcd_bulbs){.n_species = 2, .c = c, .V1 = V1, .V2 = V2, .A = A, .L = L, .Dij = Dm, .x1_0 = x1_0, .x2_0 = x2_0}, 6, t, l1, l2),
                          MCD_OK);
         for (int k = 0; k < 6; k++) {
             double d = (a1 - a2) * exp(-beta * D * t[k]);
@@ -218,11 +210,9 @@ START_TEST(bulbs_random_mixtures_conserve_and_equilibrate)
         t[1] = 0.3 / (beta * Dmin);
         t[2] = 2.0 / (beta * Dmin);
         t[3] = 40.0 / (beta * Dmin); /* ~e^-40 of the slowest mode */
-        ck_assert_int_eq(mcd_bulbs_integrate(ws, n, D, c, V1, V2, A, L,
-                                             x1_0, x2_0, 4, t, 1e-8, x1, x2),
+        ck_assert_int_eq(mcd_bulbs_integrate(ws, &(mcd_bulbs){.n_species = n, .c = c, .V1 = V1, .V2 = V2, .A = A, .L = L, .Dij = D, .x1_0 = x1_0, .x2_0 = x2_0}, 4, t, 1e-8, x1, x2),
                          MCD_OK);
-        ck_assert_int_eq(mcd_bulbs_linearized(ws, n, D, c, V1, V2, A, L,
-                                              x1_0, x2_0, 4, t, l1, l2),
+        ck_assert_int_eq(mcd_bulbs_linearized(ws, &(mcd_bulbs){.n_species = n, .c = c, .V1 = V1, .V2 = V2, .A = A, .L = L, .Dij = D, .x1_0 = x1_0, .x2_0 = x2_0}, 4, t, l1, l2),
                          MCD_OK);
         for (size_t i = 0; i < n; i++) {
             double tot = V1 * x1_0[i] + V2 * x2_0[i], mean = tot / (V1 + V2);
@@ -259,22 +249,14 @@ START_TEST(bulbs_work_at_full_workspace_capacity)
         ck_assert_int_eq(mcd_workspace_new(n, &w), MCD_OK);
         for (int lin = 0; lin < 2; lin++) {
             if (lin) {
-                ck_assert_int_eq(mcd_bulbs_linearized(w, n, D, 40, 1e-4, 1e-4,
-                                                      3e-6, 0.05, a, b, 2, t,
-                                                      p1, p2),
+                ck_assert_int_eq(mcd_bulbs_linearized(w, &(mcd_bulbs){.n_species = n, .c = 40, .V1 = 1e-4, .V2 = 1e-4, .A = 3e-6, .L = 0.05, .Dij = D, .x1_0 = a, .x2_0 = b}, 2, t, p1, p2),
                                  MCD_OK);
-                ck_assert_int_eq(mcd_bulbs_linearized(ws, n, D, 40, 1e-4,
-                                                      1e-4, 3e-6, 0.05, a, b,
-                                                      2, t, q1, q2),
+                ck_assert_int_eq(mcd_bulbs_linearized(ws, &(mcd_bulbs){.n_species = n, .c = 40, .V1 = 1e-4, .V2 = 1e-4, .A = 3e-6, .L = 0.05, .Dij = D, .x1_0 = a, .x2_0 = b}, 2, t, q1, q2),
                                  MCD_OK);
             } else {
-                ck_assert_int_eq(mcd_bulbs_integrate(w, n, D, 40, 1e-4, 1e-4,
-                                                     3e-6, 0.05, a, b, 2, t,
-                                                     1e-8, p1, p2),
+                ck_assert_int_eq(mcd_bulbs_integrate(w, &(mcd_bulbs){.n_species = n, .c = 40, .V1 = 1e-4, .V2 = 1e-4, .A = 3e-6, .L = 0.05, .Dij = D, .x1_0 = a, .x2_0 = b}, 2, t, 1e-8, p1, p2),
                                  MCD_OK);
-                ck_assert_int_eq(mcd_bulbs_integrate(ws, n, D, 40, 1e-4, 1e-4,
-                                                     3e-6, 0.05, a, b, 2, t,
-                                                     1e-8, q1, q2),
+                ck_assert_int_eq(mcd_bulbs_integrate(ws, &(mcd_bulbs){.n_species = n, .c = 40, .V1 = 1e-4, .V2 = 1e-4, .A = 3e-6, .L = 0.05, .Dij = D, .x1_0 = a, .x2_0 = b}, 2, t, 1e-8, q1, q2),
                                  MCD_OK);
             }
             for (size_t i = 0; i < 2 * n; i++) {
@@ -303,11 +285,25 @@ START_TEST(bulbs_errors_leave_outputs_untouched)
         ck_assert(sup_guard_intact(o2, 6));                                    \
     } while (0)
     for (int lin = 0; lin < 2; lin++) {
-#define CALL(W, N_, DD, C, V1, V2, A, L, X1, X2, T)                            \
-    (lin ? mcd_bulbs_linearized(W, N_, DD, C, V1, V2, A, L, X1, X2, 2, T, o1, \
-                                o2)                                            \
-         : mcd_bulbs_integrate(W, N_, DD, C, V1, V2, A, L, X1, X2, 2, T, 1e-8,\
-                               o1, o2))
+#define CALL(W, N_, DD, C_, V1_, V2_, A_, L_, X1, X2, T)                        \
+    (lin ? mcd_bulbs_linearized(W,                                            \
+                                &(mcd_bulbs){.n_species = N_, .c = C_,        \
+                                             .V1 = V1_, .V2 = V2_, .A = A_,   \
+                                             .L = L_, .Dij = DD, .x1_0 = X1,  \
+                                             .x2_0 = X2},                     \
+                                2, T, o1, o2)                                 \
+         : mcd_bulbs_integrate(W,                                             \
+                               &(mcd_bulbs){.n_species = N_, .c = C_,         \
+                                            .V1 = V1_, .V2 = V2_, .A = A_,    \
+                                            .L = L_, .Dij = DD, .x1_0 = X1,   \
+                                            .x2_0 = X2},                      \
+                               2, T, 1e-8, o1, o2))
+        ck_assert_int_eq(mcd_workspace_new(3, &small), MCD_OK);
+        EXPECT2(lin ? mcd_bulbs_linearized(small, NULL, 2, t, o1, o2)
+                    : mcd_bulbs_integrate(small, NULL, 2, t, 1e-8, o1, o2),
+                MCD_EINVAL);
+        ck_assert_str_eq(mcd_last_error(), "argument bulbs: NULL");
+        mcd_workspace_free(small);
         EXPECT2(CALL(NULL, 3, D, 40, 1e-4, 1e-4, 1e-6, 0.05, a, b, t),
                 MCD_EINVAL);
         EXPECT2(CALL(ws, 1, D, 40, 1e-4, 1e-4, 1e-6, 0.05, a, b, t),
@@ -337,22 +333,17 @@ START_TEST(bulbs_errors_leave_outputs_untouched)
 #undef CALL
     }
     /* integration only: decreasing times, rel_tol out of range or NaN */
-    EXPECT2(mcd_bulbs_integrate(ws, 3, D, 40, 1e-4, 1e-4, 1e-6, 0.05, a, b, 2,
-                                tdec, 1e-8, o1, o2),
+    EXPECT2(mcd_bulbs_integrate(ws, &(mcd_bulbs){.n_species = 3, .c = 40, .V1 = 1e-4, .V2 = 1e-4, .A = 1e-6, .L = 0.05, .Dij = D, .x1_0 = a, .x2_0 = b}, 2, tdec, 1e-8, o1, o2),
             MCD_EDOM);
-    EXPECT2(mcd_bulbs_integrate(ws, 3, D, 40, 1e-4, 1e-4, 1e-6, 0.05, a, b, 2,
-                                t, 0.5, o1, o2),
+    EXPECT2(mcd_bulbs_integrate(ws, &(mcd_bulbs){.n_species = 3, .c = 40, .V1 = 1e-4, .V2 = 1e-4, .A = 1e-6, .L = 0.05, .Dij = D, .x1_0 = a, .x2_0 = b}, 2, t, 0.5, o1, o2),
             MCD_EDOM);
-    EXPECT2(mcd_bulbs_integrate(ws, 3, D, 40, 1e-4, 1e-4, 1e-6, 0.05, a, b, 2,
-                                t, NAN, o1, o2),
+    EXPECT2(mcd_bulbs_integrate(ws, &(mcd_bulbs){.n_species = 3, .c = 40, .V1 = 1e-4, .V2 = 1e-4, .A = 1e-6, .L = 0.05, .Dij = D, .x1_0 = a, .x2_0 = b}, 2, t, NAN, o1, o2),
             MCD_EINVAL);
     /* decreasing times are fine for the closed-form linearized theory */
-    ck_assert_int_eq(mcd_bulbs_linearized(ws, 3, D, 40, 1e-4, 1e-4, 1e-6,
-                                          0.05, a, b, 2, tdec, o1, o2),
+    ck_assert_int_eq(mcd_bulbs_linearized(ws, &(mcd_bulbs){.n_species = 3, .c = 40, .V1 = 1e-4, .V2 = 1e-4, .A = 1e-6, .L = 0.05, .Dij = D, .x1_0 = a, .x2_0 = b}, 2, tdec, o1, o2),
                      MCD_OK);
     /* n_times = 0 writes nothing */
-    EXPECT2(mcd_bulbs_integrate(ws, 3, D, 40, 1e-4, 1e-4, 1e-6, 0.05, a, b, 0,
-                                t, 1e-8, o1, o2),
+    EXPECT2(mcd_bulbs_integrate(ws, &(mcd_bulbs){.n_species = 3, .c = 40, .V1 = 1e-4, .V2 = 1e-4, .A = 1e-6, .L = 0.05, .Dij = D, .x1_0 = a, .x2_0 = b}, 0, t, 1e-8, o1, o2),
             MCD_OK);
 #undef EXPECT2
 }

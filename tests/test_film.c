@@ -679,9 +679,7 @@ START_TEST(film_stefan_tube_matches_published_fluxes)
     size_t it = 0;
     double res = 1.0;
     ck_assert_int_eq(mcd_comp_ideal_gas_c(CS_T, CS_P, &c), MCD_OK);
-    ck_assert_int_eq(mcd_film_solve(ws, 3, CS_D, c, CS_L, CS_X0, CS_XL,
-                                    MCD_FILM_BOOT_STAGNANT, 2, NULL,
-                                    MCD_FILM_EXACT, N, &it, &res),
+    ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = c, .L = CS_L, .Dij = CS_D, .x0 = CS_X0, .xL = CS_XL}, MCD_FILM_BOOT_STAGNANT, 2, NULL, MCD_FILM_EXACT, N, &it, &res),
                      MCD_OK);
     printf("Stefan tube (exact): N1 = %.5e N2 = %.5e N3 = %.1e, "
            "%zu iterations, residual %.2e\n",
@@ -701,8 +699,7 @@ START_TEST(film_stefan_tube_matches_published_fluxes)
      * practice), and the profile must end at xL. */
     for (int p = 0; p <= 10; p++)
         z[p] = CS_L * p / 10.0;
-    ck_assert_int_eq(mcd_film_profile(ws, 3, CS_D, c, CS_L, CS_X0, N, 11, z,
-                                      X),
+    ck_assert_int_eq(mcd_film_profile(ws, &(mcd_film){.n_species = 3, .c = c, .L = CS_L, .Dij = CS_D, .x0 = CS_X0}, N, 11, z, X),
                      MCD_OK);
     for (int p = 1; p <= 10; p++) {
         double air = CS_X0[2] * exp(z[p] / c * (N[0] / CS_D[2] + N[1] / CS_D[5]));
@@ -724,13 +721,9 @@ START_TEST(film_stefan_tube_linearized_is_close_to_exact)
 {
     double c, Ne[3], Nl[3];
     ck_assert_int_eq(mcd_comp_ideal_gas_c(CS_T, CS_P, &c), MCD_OK);
-    ck_assert_int_eq(mcd_film_solve(ws, 3, CS_D, c, CS_L, CS_X0, CS_XL,
-                                    MCD_FILM_BOOT_STAGNANT, 2, NULL,
-                                    MCD_FILM_EXACT, Ne, NULL, NULL),
+    ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = c, .L = CS_L, .Dij = CS_D, .x0 = CS_X0, .xL = CS_XL}, MCD_FILM_BOOT_STAGNANT, 2, NULL, MCD_FILM_EXACT, Ne, NULL, NULL),
                      MCD_OK);
-    ck_assert_int_eq(mcd_film_solve(ws, 3, CS_D, c, CS_L, CS_X0, CS_XL,
-                                    MCD_FILM_BOOT_STAGNANT, 2, NULL,
-                                    MCD_FILM_LINEARIZED, Nl, NULL, NULL),
+    ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = c, .L = CS_L, .Dij = CS_D, .x0 = CS_X0, .xL = CS_XL}, MCD_FILM_BOOT_STAGNANT, 2, NULL, MCD_FILM_LINEARIZED, Nl, NULL, NULL),
                      MCD_OK);
     printf("Stefan tube linearized: N1 = %.5e (%+.2f %%) N2 = %.5e "
            "(%+.2f %%)\n",
@@ -759,18 +752,14 @@ START_TEST(film_binary_equals_closed_forms)
         /* B stagnant. Linearized theory is exact for a binary ideal gas
          * (constant Đ), so both methods must match. 1e-10 relative:
          * convergence 1e-12 times the conditioning of ln. */
-        ck_assert_int_eq(mcd_film_solve(ws, 2, Dm, c, L, x0, xL,
-                                        MCD_FILM_BOOT_STAGNANT, 1, NULL, meth, N,
-                                        NULL, NULL),
+        ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = 2, .c = c, .L = L, .Dij = Dm, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_STAGNANT, 1, NULL, meth, N, NULL, NULL),
                          MCD_OK);
         ref = k * log((1 - aL) / (1 - a0));
         ck_assert_double_eq_tol(N[0], ref, 1e-10 * fabs(ref) + 1e-300);
         ck_assert_double_eq(N[1], 0.0);
 
         /* equimolar: N_A = c Đ (xA0 - xAL)/L */
-        ck_assert_int_eq(mcd_film_solve(ws, 2, Dm, c, L, x0, xL,
-                                        MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, meth, N,
-                                        NULL, NULL),
+        ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = 2, .c = c, .L = L, .Dij = Dm, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, meth, N, NULL, NULL),
                          MCD_OK);
         ref = k * (a0 - aL);
         ck_assert_double_eq_tol(N[0], ref, 1e-10 * fabs(ref) + 1e-18);
@@ -780,9 +769,7 @@ START_TEST(film_binary_equals_closed_forms)
         {
             double zA = (a0 > aL) ? a0 + 0.1 + urand() : a0 - 0.1 - urand();
             double zv[2] = {zA, 1 - zA};
-            ck_assert_int_eq(mcd_film_solve(ws, 2, Dm, c, L, x0, xL,
-                                            MCD_FILM_BOOT_RATIOS, 0, zv, meth, N,
-                                            NULL, NULL),
+            ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = 2, .c = c, .L = L, .Dij = Dm, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_RATIOS, 0, zv, meth, N, NULL, NULL),
                              MCD_OK);
             ref = zA * k * log((zA - aL) / (zA - a0));
             ck_assert_double_eq_tol(N[0], ref, 1e-9 * fabs(ref) + 1e-18);
@@ -830,8 +817,7 @@ START_TEST(film_agrees_with_independent_shooting)
         rf.steps = RK_STEPS;
         if (kind == MCD_FILM_BOOT_RATIOS)
             ratios_film(&rf, sp, x0, val, xL);
-        ck_assert_int_eq(mcd_film_solve(ws, n, D, c, L, x0, xL, kind, sp,
-                                        val, MCD_FILM_EXACT, N, &it, NULL),
+        ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = n, .c = c, .L = L, .Dij = D, .x0 = x0, .xL = xL}, kind, sp, val, MCD_FILM_EXACT, N, &it, NULL),
                          MCD_OK);
         if (it > max_it)
             max_it = it;
@@ -879,8 +865,7 @@ START_TEST(film_agrees_with_independent_shooting)
         {
             double zm = 0.37 * L, xr[NMAX], xp[NMAX];
             rk4(&rf, x0, N, zm, RK_STEPS, xr);
-            ck_assert_int_eq(mcd_film_profile(ws, n, D, c, L, x0, N, 1, &zm,
-                                              xp),
+            ck_assert_int_eq(mcd_film_profile(ws, &(mcd_film){.n_species = n, .c = c, .L = L, .Dij = D, .x0 = x0}, N, 1, &zm, xp),
                              MCD_OK);
             for (size_t i = 0; i < n; i++) {
                 worst_prof = fmax(worst_prof, fabs(xp[i] - xr[i]));
@@ -914,13 +899,9 @@ START_TEST(film_linearized_approaches_exact_for_small_differences)
         double eps = k ? 0.01 : 0.1, e = 0, nm = 0;
         for (int i = 0; i < 4; i++)
             xL[i] = x0[i] + eps * (dir[i] - x0[i]);
-        ck_assert_int_eq(mcd_film_solve(ws, 4, D, c, L, x0, xL,
-                                        MCD_FILM_BOOT_STAGNANT, 3, NULL,
-                                        MCD_FILM_EXACT, Ne, NULL, NULL),
+        ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = 4, .c = c, .L = L, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_STAGNANT, 3, NULL, MCD_FILM_EXACT, Ne, NULL, NULL),
                          MCD_OK);
-        ck_assert_int_eq(mcd_film_solve(ws, 4, D, c, L, x0, xL,
-                                        MCD_FILM_BOOT_STAGNANT, 3, NULL,
-                                        MCD_FILM_LINEARIZED, Nl, NULL, NULL),
+        ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = 4, .c = c, .L = L, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_STAGNANT, 3, NULL, MCD_FILM_LINEARIZED, Nl, NULL, NULL),
                          MCD_OK);
         for (int i = 0; i < 4; i++) {
             e = fmax(e, fabs(Ne[i] - Nl[i]));
@@ -947,11 +928,9 @@ START_TEST(film_profile_ends_at_xL_and_conserves_sum)
         random_dij(n, D);
         random_comp(n, 0.0, x0);
         random_comp(n, 0.0, xL);
-        ck_assert_int_eq(mcd_film_solve(ws, n, D, c, L, x0, xL,
-                                        MCD_FILM_BOOT_EQUIMOLAR, 0, NULL,
-                                        MCD_FILM_EXACT, N, NULL, NULL),
+        ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = n, .c = c, .L = L, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, NULL, NULL),
                          MCD_OK);
-        ck_assert_int_eq(mcd_film_profile(ws, n, D, c, L, x0, N, 2, z, X),
+        ck_assert_int_eq(mcd_film_profile(ws, &(mcd_film){.n_species = n, .c = c, .L = L, .Dij = D, .x0 = x0}, N, 2, z, X),
                          MCD_OK);
         for (size_t i = 0; i < n; i++) {
             /* z = 0 is exp(0) = I exactly; x0 is renormalised by its
@@ -988,9 +967,7 @@ START_TEST(film_pure_ends_and_absent_species_are_exact)
         if (kind == MCD_FILM_BOOT_TOTAL)
             val[0] = 1e-3;
         for (int meth = 0; meth < 2; meth++) {
-            ck_assert_int_eq(mcd_film_solve(ws, 4, D, 40, 0.1, x0, xL, kind,
-                                            sp, val, (mcd_film_method)meth, N,
-                                            NULL, NULL),
+            ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = 4, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, kind, sp, val, (mcd_film_method)meth, N, NULL, NULL),
                              MCD_OK);
             ck_assert_msg(N[3] == 0.0, "trial %d kind %d method %d: N[3] = %g",
                           trial, (int)kind, meth, N[3]);
@@ -1007,9 +984,7 @@ START_TEST(film_pure_ends_and_absent_species_are_exact)
         double D[16], x0[4] = {1, 0, 0, 0}, xL[4] = {0, 0.5, 0.5, 0}, N[4];
         for (int k = 0; k < 16; k++)
             D[k] = (k % 5 == 0) ? 0.0 : 2e-5;
-        ck_assert_int_eq(mcd_film_solve(ws, 4, D, 40, 0.1, x0, xL,
-                                        MCD_FILM_BOOT_EQUIMOLAR, 0, NULL,
-                                        MCD_FILM_EXACT, N, NULL, NULL),
+        ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = 4, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, NULL, NULL),
                          MCD_OK);
         ck_assert(N[0] > 0 && N[1] < 0 && N[2] < 0 && N[3] == 0.0);
     }
@@ -1040,25 +1015,17 @@ START_TEST(film_works_at_full_workspace_capacity)
         for (int kind = 0; kind < 2; kind++) {
             mcd_film_bootstrap b = kind ? MCD_FILM_BOOT_RATIOS : MCD_FILM_BOOT_STAGNANT;
             for (int meth = 0; meth < 2; meth++) {
-                ck_assert_int_eq(mcd_film_solve(w, n, D, 40, 0.03, x0, xL, b,
-                                                kind ? 0 : n - 1, z,
-                                                (mcd_film_method)meth, N1,
-                                                NULL, NULL),
+                ck_assert_int_eq(mcd_film_solve(w, &(mcd_film){.n_species = n, .c = 40, .L = 0.03, .Dij = D, .x0 = x0, .xL = xL}, b, kind ? 0 : n - 1, z, (mcd_film_method)meth, N1, NULL, NULL),
                                  MCD_OK);
-                ck_assert_int_eq(mcd_film_solve(ws, n, D, 40, 0.03, x0, xL, b,
-                                                kind ? 0 : n - 1, z,
-                                                (mcd_film_method)meth, N2,
-                                                NULL, NULL),
+                ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = n, .c = 40, .L = 0.03, .Dij = D, .x0 = x0, .xL = xL}, b, kind ? 0 : n - 1, z, (mcd_film_method)meth, N2, NULL, NULL),
                                  MCD_OK);
                 for (size_t i = 0; i < n; i++)
                     ck_assert_double_eq(N1[i], N2[i]);
             }
         }
-        ck_assert_int_eq(mcd_film_profile(w, n, D, 40, 0.03, x0, N1, 1, &zz,
-                                          X1),
+        ck_assert_int_eq(mcd_film_profile(w, &(mcd_film){.n_species = n, .c = 40, .L = 0.03, .Dij = D, .x0 = x0}, N1, 1, &zz, X1),
                          MCD_OK);
-        ck_assert_int_eq(mcd_film_profile(ws, n, D, 40, 0.03, x0, N1, 1, &zz,
-                                          X2),
+        ck_assert_int_eq(mcd_film_profile(ws, &(mcd_film){.n_species = n, .c = 40, .L = 0.03, .Dij = D, .x0 = x0}, N1, 1, &zz, X2),
                          MCD_OK);
         for (size_t i = 0; i < n; i++)
             ck_assert_double_eq(X1[i], X2[i]);
@@ -1099,102 +1066,86 @@ START_TEST(film_errors_leave_outputs_untouched)
         unchanged(N, 3);                                                       \
     } while (0)
 
-    EXPECT(mcd_film_solve(NULL, 3, D, 40, 0.1, x0, xL, MCD_FILM_BOOT_EQUIMOLAR, 0,
-                          NULL, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(NULL, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EINVAL);
-    EXPECT(mcd_film_solve(ws, 1, D, 40, 0.1, x0, xL, MCD_FILM_BOOT_EQUIMOLAR, 0,
-                          NULL, MCD_FILM_EXACT, N, &it, &res),
+    ck_assert_int_eq(mcd_workspace_new(3, &small), MCD_OK);
+    EXPECT(mcd_film_solve(small, NULL, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it,
+                          &res),
+           MCD_EINVAL);
+    ck_assert_str_eq(mcd_last_error(), "argument film: NULL");
+    EXPECT(mcd_film_profile(small, NULL, N, 1, x0, N), MCD_EINVAL);
+    ck_assert_str_eq(mcd_last_error(), "argument film: NULL");
+    mcd_workspace_free(small);
+    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 1, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EINVAL);
     ck_assert_int_eq(mcd_workspace_new(2, &small), MCD_OK);
-    EXPECT(mcd_film_solve(small, 3, D, 40, 0.1, x0, xL, MCD_FILM_BOOT_EQUIMOLAR,
-                          0, NULL, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(small, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EBADLEN);
     mcd_workspace_free(small);
-    EXPECT(mcd_film_solve(ws, 3, NULL, 40, 0.1, x0, xL, MCD_FILM_BOOT_EQUIMOLAR,
-                          0, NULL, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EINVAL);
     {
         double Dn[9];
         memcpy(Dn, D, sizeof Dn);
         Dn[1] = NAN;
-        EXPECT(mcd_film_solve(ws, 3, Dn, 40, 0.1, x0, xL, MCD_FILM_BOOT_EQUIMOLAR,
-                              0, NULL, MCD_FILM_EXACT, N, &it, &res),
+        EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = Dn, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
                MCD_EINVAL);
         memcpy(Dn, D, sizeof Dn);
         Dn[1] *= 1.01; /* asymmetric */
-        EXPECT(mcd_film_solve(ws, 3, Dn, 40, 0.1, x0, xL, MCD_FILM_BOOT_EQUIMOLAR,
-                              0, NULL, MCD_FILM_EXACT, N, &it, &res),
+        EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = Dn, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
                MCD_EDOM);
         memcpy(Dn, D, sizeof Dn);
         Dn[1] = Dn[3] = -1e-5;
-        EXPECT(mcd_film_solve(ws, 3, Dn, 40, 0.1, x0, xL, MCD_FILM_BOOT_EQUIMOLAR,
-                              0, NULL, MCD_FILM_EXACT, N, &it, &res),
+        EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = Dn, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
                MCD_EDOM);
     }
-    EXPECT(mcd_film_solve(ws, 3, D, 0.0, 0.1, x0, xL, MCD_FILM_BOOT_EQUIMOLAR, 0,
-                          NULL, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 0.0, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EDOM);
-    EXPECT(mcd_film_solve(ws, 3, D, 40, NAN, x0, xL, MCD_FILM_BOOT_EQUIMOLAR, 0,
-                          NULL, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = NAN, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EINVAL);
-    EXPECT(mcd_film_solve(ws, 3, D, 40, -0.1, x0, xL, MCD_FILM_BOOT_EQUIMOLAR, 0,
-                          NULL, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = -0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EDOM);
-    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, bad, xL, MCD_FILM_BOOT_EQUIMOLAR, 0,
-                          NULL, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = bad, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EDOM);
-    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, neg, MCD_FILM_BOOT_EQUIMOLAR, 0,
-                          NULL, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = neg}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EDOM);
-    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, NULL, MCD_FILM_BOOT_EQUIMOLAR, 0,
-                          NULL, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EINVAL);
-    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, (mcd_film_bootstrap)99, 0,
-                          NULL, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, (mcd_film_bootstrap)99, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EINVAL);
-    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, MCD_FILM_BOOT_EQUIMOLAR, 0,
-                          NULL, (mcd_film_method)7, N, &it, &res),
+    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, (mcd_film_method)7, N, &it, &res),
            MCD_EINVAL);
-    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, MCD_FILM_BOOT_STAGNANT, 3,
-                          NULL, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_STAGNANT, 3, NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EINVAL);
     {
         /* stagnant species absent at both ends, and at one end */
         double a0[3] = {0.5, 0.5, 0}, aL[3] = {0.2, 0.8, 0};
         double b0[3] = {0.5, 0.3, 0.2};
-        EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, a0, aL, MCD_FILM_BOOT_STAGNANT,
-                              2, NULL, MCD_FILM_EXACT, N, &it, &res),
+        EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = a0, .xL = aL}, MCD_FILM_BOOT_STAGNANT, 2, NULL, MCD_FILM_EXACT, N, &it, &res),
                MCD_EDOM);
-        EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, b0, aL, MCD_FILM_BOOT_STAGNANT,
-                              2, NULL, MCD_FILM_LINEARIZED, N, &it, &res),
+        EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = b0, .xL = aL}, MCD_FILM_BOOT_STAGNANT, 2, NULL, MCD_FILM_LINEARIZED, N, &it, &res),
                MCD_EDOM);
         /* weights with sum nu_i x_i = 0 at both ends */
         double w0[3] = {0.4, 0.4, 0.2}, wL[3] = {0.1, 0.1, 0.8};
-        EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, w0, wL, MCD_FILM_BOOT_WEIGHTS, 0,
-                              nu0, MCD_FILM_EXACT, N, &it, &res),
+        EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = w0, .xL = wL}, MCD_FILM_BOOT_WEIGHTS, 0, nu0, MCD_FILM_EXACT, N, &it, &res),
                MCD_EDOM);
     }
-    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, MCD_FILM_BOOT_WEIGHTS, 0,
-                          NULL, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_WEIGHTS, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
            MCD_EINVAL);
     {
         double nn[3] = {1, NAN, 1};
-        EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, MCD_FILM_BOOT_WEIGHTS, 0,
-                              nn, MCD_FILM_EXACT, N, &it, &res),
+        EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_WEIGHTS, 0, nn, MCD_FILM_EXACT, N, &it, &res),
                MCD_EINVAL);
     }
-    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, MCD_FILM_BOOT_TOTAL, 0,
-                          &nanv, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_TOTAL, 0, &nanv, MCD_FILM_EXACT, N, &it, &res),
            MCD_EINVAL);
-    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, MCD_FILM_BOOT_RATIOS, 0, nu,
-                          MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_RATIOS, 0, nu, MCD_FILM_EXACT, N, &it, &res),
            MCD_EDOM); /* z sums to 3 */
     {
         /* total flux so large that exp(Phi) overflows: rate factor out of
          * range at the first evaluation */
         tot = 1e9;
-        EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, MCD_FILM_BOOT_TOTAL, 0,
-                              &tot, MCD_FILM_EXACT, N, &it, &res),
+        EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_TOTAL, 0, &tot, MCD_FILM_EXACT, N, &it, &res),
                MCD_EDOM);
     }
     {
@@ -1202,15 +1153,13 @@ START_TEST(film_errors_leave_outputs_untouched)
          * the last residual in the workspace message */
         double Db[4] = {0, 2e-5, 2e-5, 0};
         double a0[2] = {0.5, 0.5}, aL[2] = {0.1, 0.9}, zr[2] = {0.3, 0.7};
-        EXPECT(mcd_film_solve(ws, 2, Db, 40, 0.1, a0, aL, MCD_FILM_BOOT_RATIOS, 0,
-                              zr, MCD_FILM_EXACT, N, &it, &res),
+        EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 2, .c = 40, .L = 0.1, .Dij = Db, .x0 = a0, .xL = aL}, MCD_FILM_BOOT_RATIOS, 0, zr, MCD_FILM_EXACT, N, &it, &res),
                MCD_ENOCONV);
         ck_assert_ptr_nonnull(strstr(mcd_last_error(), "residual"));
     }
     ck_assert_uint_eq(it, 777);
     ck_assert_double_eq(res, GUARD);
-    EXPECT(mcd_film_solve(ws, 3, D, 40, 0.1, x0, xL, MCD_FILM_BOOT_EQUIMOLAR, 0,
-                          NULL, MCD_FILM_EXACT, NULL, &it, &res),
+    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, NULL, &it, &res),
            MCD_EINVAL);
 #undef EXPECT
 }
@@ -1228,17 +1177,17 @@ START_TEST(film_profile_errors_leave_outputs_untouched)
         ck_assert_int_eq((call), (code));                                      \
         unchanged(X, 6);                                                       \
     } while (0)
-    EXPECTP(mcd_film_profile(NULL, 3, D, 40, 0.1, x0, N, 2, z, X), MCD_EINVAL);
-    EXPECTP(mcd_film_profile(ws, 3, D, 40, 0.1, x0, N, 2, zbad, X), MCD_EDOM);
-    EXPECTP(mcd_film_profile(ws, 3, D, 40, 0.1, x0, Nbig, 2, z, X), MCD_EDOM);
-    EXPECTP(mcd_film_profile(ws, 3, D, 40, 0.1, x0, Nn, 2, z, X), MCD_EINVAL);
-    EXPECTP(mcd_film_profile(ws, 3, D, 40, 0.1, bad, N, 2, z, X), MCD_EDOM);
-    EXPECTP(mcd_film_profile(ws, 3, D, -40, 0.1, x0, N, 2, z, X), MCD_EDOM);
-    EXPECTP(mcd_film_profile(ws, 3, D, 40, 0.1, x0, N, 2, NULL, X),
+    EXPECTP(mcd_film_profile(NULL, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0}, N, 2, z, X), MCD_EINVAL);
+    EXPECTP(mcd_film_profile(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0}, N, 2, zbad, X), MCD_EDOM);
+    EXPECTP(mcd_film_profile(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0}, Nbig, 2, z, X), MCD_EDOM);
+    EXPECTP(mcd_film_profile(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0}, Nn, 2, z, X), MCD_EINVAL);
+    EXPECTP(mcd_film_profile(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = bad}, N, 2, z, X), MCD_EDOM);
+    EXPECTP(mcd_film_profile(ws, &(mcd_film){.n_species = 3, .c = -40, .L = 0.1, .Dij = D, .x0 = x0}, N, 2, z, X), MCD_EDOM);
+    EXPECTP(mcd_film_profile(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0}, N, 2, NULL, X),
             MCD_EINVAL);
-    EXPECTP(mcd_film_profile(ws, 9, D, 40, 0.1, x0, N, 2, z, X), MCD_EBADLEN);
+    EXPECTP(mcd_film_profile(ws, &(mcd_film){.n_species = 9, .c = 40, .L = 0.1, .Dij = D, .x0 = x0}, N, 2, z, X), MCD_EBADLEN);
     /* zero points: nothing written, success */
-    EXPECTP(mcd_film_profile(ws, 3, D, 40, 0.1, x0, N, 0, z, X), MCD_OK);
+    EXPECTP(mcd_film_profile(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0}, N, 0, z, X), MCD_OK);
 #undef EXPECTP
 }
 END_TEST

@@ -92,8 +92,7 @@ static mcd_status compute_state(mcd_workspace *ws, int k, double *out)
     if ((r = mcd_fick_matrix(ws, &(mcd_state){.n_species = NS, .M = g_M, .Dij = D, .comp_basis = MCD_BASIS_MOLE, .comp = st.x}, MCD_BASIS_MOLE, 0, F, NULL)) != MCD_OK)
         return r;
     /* Film: equimolar counter-diffusion between x and xL over 1 mm. */
-    return mcd_film_solve(ws, NS, D, st.c, 1e-3, st.x, st.xL, MCD_FILM_BOOT_EQUIMOLAR,
-                          0, NULL, MCD_FILM_EXACT, Nf, NULL, NULL);
+    return mcd_film_solve(ws, &(mcd_film){.n_species = NS, .c = st.c, .L = 1e-3, .Dij = D, .x0 = st.x, .xL = st.xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, Nf, NULL, NULL);
 }
 
 typedef struct job {

@@ -860,6 +860,10 @@ FORTRAN_SCALAR = {
     "mcd_flux_batch": ["cells"],
     "mcd_flux_batch_dij": ["cells"],
     "mcd_flux_batch_aos": ["cells"],
+    "mcd_film_solve": ["film"],
+    "mcd_film_profile": ["film"],
+    "mcd_bulbs_linearized": ["bulbs"],
+    "mcd_bulbs_integrate": ["bulbs"],
 }
 # FORTRAN_NULLABLE: pointer parameters that may be NULL (bound as
 # type(c_ptr), value: pass c_null_ptr or c_loc(x)).

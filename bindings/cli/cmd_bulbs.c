@@ -344,13 +344,9 @@ int cli_cmd_bulbs(int argc, char **argv)
         goto done;
     }
     if (bj->integrated)
-        st = mcd_bulbs_integrate(s->ws, n, s->Dij, s->c, bj->V1, bj->V2,
-                                 bj->A, bj->L, s->x, bj->x2, bj->nt, bj->t,
-                                 bj->tol, bj->x1t, bj->x2t);
+        st = mcd_bulbs_integrate(s->ws, &(mcd_bulbs){.n_species = n, .c = s->c, .V1 = bj->V1, .V2 = bj->V2, .A = bj->A, .L = bj->L, .Dij = s->Dij, .x1_0 = s->x, .x2_0 = bj->x2}, bj->nt, bj->t, bj->tol, bj->x1t, bj->x2t);
     else
-        st = mcd_bulbs_linearized(s->ws, n, s->Dij, s->c, bj->V1, bj->V2,
-                                  bj->A, bj->L, s->x, bj->x2, bj->nt, bj->t,
-                                  bj->x1t, bj->x2t);
+        st = mcd_bulbs_linearized(s->ws, &(mcd_bulbs){.n_species = n, .c = s->c, .V1 = bj->V1, .V2 = bj->V2, .A = bj->A, .L = bj->L, .Dij = s->Dij, .x1_0 = s->x, .x2_0 = bj->x2}, bj->nt, bj->t, bj->x1t, bj->x2t);
     if (st != MCD_OK) {
         rc = cli_fail(cmd,
                       bj->integrated ? "the two-bulb integration"

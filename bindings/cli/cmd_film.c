@@ -361,13 +361,9 @@ static int solve(film_job *fj, const char *cmd, mcd_film_method m,
                  double *N, size_t *it, double *res)
 {
     cli_state *s = &fj->s;
-    mcd_status st = mcd_film_solve(
-        s->ws, s->n, s->Dij, s->c, fj->L, s->x, fj->xL, fj->kind,
-        fj->species,
-        (fj->kind == MCD_FILM_BOOT_EQUIMOLAR || fj->kind == MCD_FILM_BOOT_STAGNANT)
+    mcd_status st = mcd_film_solve(s->ws, &(mcd_film){.n_species = s->n, .c = s->c, .L = fj->L, .Dij = s->Dij, .x0 = s->x, .xL = fj->xL}, fj->kind, fj->species, (fj->kind == MCD_FILM_BOOT_EQUIMOLAR || fj->kind == MCD_FILM_BOOT_STAGNANT)
             ? NULL
-            : fj->values,
-        m, N, it, res);
+            : fj->values, m, N, it, res);
     if (st != MCD_OK)
         return film_failed(fj, cmd, st);
     return CLI_OK;
@@ -677,8 +673,7 @@ int cli_cmd_film(int argc, char **argv)
         for (i = 0; i < fj->points; i++)
             fj->z[i] = fj->L * ((double)i / (double)(fj->points - 1));
         fj->z[fj->points - 1] = fj->L;
-        st = mcd_film_profile(s->ws, n, s->Dij, s->c, fj->L, s->x, fj->Ne,
-                              fj->points, fj->z, fj->xz);
+        st = mcd_film_profile(s->ws, &(mcd_film){.n_species = n, .c = s->c, .L = fj->L, .Dij = s->Dij, .x0 = s->x}, fj->Ne, fj->points, fj->z, fj->xz);
         if (st != MCD_OK) {
             rc = cli_fail(cmd, "the film profile", st,
                           mcd_last_error());

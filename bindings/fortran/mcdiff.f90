@@ -1139,7 +1139,8 @@ contains
        species, values, method, iterations, residual)
     type(mcd_workspace_t), intent(inout) :: ws
     integer, intent(in) :: n, kind
-    real(c_double), intent(in) :: Dij(n, n), c, L, x0(n), xL(n)
+    real(c_double), intent(in), target :: Dij(n, n), x0(n), xL(n)
+    real(c_double), intent(in) :: c, L
     real(c_double), intent(inout) :: N_flux(n)
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
@@ -1160,8 +1161,8 @@ contains
     if (present(method)) meth = int(method, c_int)
     it = 0
     res = 0
-    s = c_mcd_film_solve(ws%ptr, csz(n), Dij, c, L, x0, xL, int(kind, c_int), k, pv, &
-         meth, N_flux, c_loc(it), c_loc(res))
+    s = c_mcd_film_solve(ws%ptr, film_of(n, Dij, c, L, x0, xL), int(kind, c_int), &
+         k, pv, meth, N_flux, c_loc(it), c_loc(res))
     if (s == 0) then
        if (present(iterations)) iterations = int(it)
        if (present(residual)) residual = res
@@ -1173,11 +1174,12 @@ contains
   subroutine mcd_film_profile(ws, n, Dij, c, L, x0, N_flux, n_points, z, x, stat, errmsg)
     type(mcd_workspace_t), intent(inout) :: ws
     integer, intent(in) :: n, n_points
-    real(c_double), intent(in) :: Dij(n, n), c, L, x0(n), N_flux(n), z(*)
+    real(c_double), intent(in), target :: Dij(n, n), x0(n)
+    real(c_double), intent(in) :: c, L, N_flux(n), z(*)
     real(c_double), intent(inout) :: x(n, *)
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
-    call finish(c_mcd_film_profile(ws%ptr, csz(n), Dij, c, L, x0, N_flux, &
+    call finish(c_mcd_film_profile(ws%ptr, film_of(n, Dij, c, L, x0, x0), N_flux, &
          csz(n_points), z, x), stat, errmsg)
   end subroutine mcd_film_profile
 
@@ -1189,13 +1191,15 @@ contains
        x1, x2, stat, errmsg)
     type(mcd_workspace_t), intent(inout) :: ws
     integer, intent(in) :: n, n_times
-    real(c_double), intent(in) :: Dij(n, n), c, V1, V2, A, L, x1_0(n), x2_0(n)
+    real(c_double), intent(in), target :: Dij(n, n), x1_0(n), x2_0(n)
+    real(c_double), intent(in) :: c, V1, V2, A, L
     real(c_double), intent(in) :: t(*)
     real(c_double), intent(inout) :: x1(n, *), x2(n, *)
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
-    call finish(c_mcd_bulbs_linearized(ws%ptr, csz(n), Dij, c, V1, V2, A, L, &
-         x1_0, x2_0, csz(n_times), t, x1, x2), stat, errmsg)
+    call finish(c_mcd_bulbs_linearized(ws%ptr, &
+         bulbs_of(n, Dij, c, V1, V2, A, L, x1_0, x2_0), csz(n_times), t, x1, x2), &
+         stat, errmsg)
   end subroutine mcd_bulbs_linearized
 
   !> Two-bulb cell by time integration of the exact equimolar film flux
@@ -1205,18 +1209,51 @@ contains
        rel_tol, x1, x2, stat, errmsg)
     type(mcd_workspace_t), intent(inout) :: ws
     integer, intent(in) :: n, n_times
-    real(c_double), intent(in) :: Dij(n, n), c, V1, V2, A, L, x1_0(n), x2_0(n)
+    real(c_double), intent(in), target :: Dij(n, n), x1_0(n), x2_0(n)
+    real(c_double), intent(in) :: c, V1, V2, A, L
     real(c_double), intent(in) :: t(*), rel_tol
     real(c_double), intent(inout) :: x1(n, *), x2(n, *)
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
-    call finish(c_mcd_bulbs_integrate(ws%ptr, csz(n), Dij, c, V1, V2, A, L, &
-         x1_0, x2_0, csz(n_times), t, rel_tol, x1, x2), stat, errmsg)
+    call finish(c_mcd_bulbs_integrate(ws%ptr, &
+         bulbs_of(n, Dij, c, V1, V2, A, L, x1_0, x2_0), csz(n_times), t, rel_tol, &
+         x1, x2), stat, errmsg)
   end subroutine mcd_bulbs_integrate
 
   ! ==================================================================
   ! Batched fluxes (layout: see the module header)
   ! ==================================================================
+
+  !> A film (C: mcd_film) over the caller's arrays.
+  function film_of(n, Dij, c, L, x0, xL) result(f)
+    integer, intent(in) :: n
+    real(c_double), intent(in), target :: Dij(n, n), x0(n), xL(n)
+    real(c_double), intent(in) :: c, L
+    type(mcd_film_t) :: f
+    f%n_species = csz(n)
+    f%c = c
+    f%L = L
+    f%Dij = c_loc(Dij)
+    f%x0 = c_loc(x0)
+    f%xL = c_loc(xL)
+  end function film_of
+
+  !> A two-bulb cell (C: mcd_bulbs) over the caller's arrays.
+  function bulbs_of(n, Dij, c, V1, V2, A, L, x1_0, x2_0) result(b)
+    integer, intent(in) :: n
+    real(c_double), intent(in), target :: Dij(n, n), x1_0(n), x2_0(n)
+    real(c_double), intent(in) :: c, V1, V2, A, L
+    type(mcd_bulbs_t) :: b
+    b%n_species = csz(n)
+    b%c = c
+    b%V1 = V1
+    b%V2 = V2
+    b%A = A
+    b%L = L
+    b%Dij = c_loc(Dij)
+    b%x1_0 = c_loc(x1_0)
+    b%x2_0 = c_loc(x2_0)
+  end function bulbs_of
 
   !> The per-cell inputs shared by the batched calls (C: mcd_cells).
   subroutine set_cells(cells, n_cells, n_dim, comp_basis, comp, grad)

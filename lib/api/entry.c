@@ -707,9 +707,7 @@ MCD_API mcd_status mcd_mixture_temperature_fit(const mcd_mixture *mix,
     return st;
 }
 
-MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n_species,
-                                  const double *Dij, double c, double L,
-                                  const double *x0, const double *xL,
+MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, const mcd_film *film,
                                   mcd_film_bootstrap kind, size_t species,
                                   const double *values, mcd_film_method method,
                                   double *out_N, size_t *out_iterations,
@@ -717,56 +715,47 @@ MCD_API mcd_status mcd_film_solve(mcd_workspace *ws, size_t n_species,
 {
     mcd_status st;
     mcdi_err_clear();
-    st = mcdi_api_film_solve(ws, n_species, Dij, c, L, x0, xL, kind, species,
-        values, method, out_N, out_iterations, out_residual);
+    st = mcdi_api_film_solve(ws, film, kind, species, values, method, out_N,
+        out_iterations, out_residual);
     if (st != MCD_OK)
         mcdi_err_settle(st, "mcd_film_solve");
     return st;
 }
 
-MCD_API mcd_status mcd_film_profile(mcd_workspace *ws, size_t n_species,
-                                    const double *Dij, double c, double L,
-                                    const double *x0, const double *N,
-                                    size_t n_points, const double *z,
-                                    double *out_x)
+MCD_API mcd_status mcd_film_profile(mcd_workspace *ws, const mcd_film *film,
+                                    const double *N, size_t n_points,
+                                    const double *z, double *out_x)
 {
     mcd_status st;
     mcdi_err_clear();
-    st = mcdi_api_film_profile(ws, n_species, Dij, c, L, x0, N, n_points, z,
-        out_x);
+    st = mcdi_api_film_profile(ws, film, N, n_points, z, out_x);
     if (st != MCD_OK)
         mcdi_err_settle(st, "mcd_film_profile");
     return st;
 }
 
-MCD_API mcd_status mcd_bulbs_linearized(mcd_workspace *ws, size_t n_species,
-                                        const double *Dij, double c, double V1,
-                                        double V2, double A, double L,
-                                        const double *x1_0, const double *x2_0,
-                                        size_t n_times, const double *t,
-                                        double *out_x1, double *out_x2)
+MCD_API mcd_status mcd_bulbs_linearized(mcd_workspace *ws,
+                                        const mcd_bulbs *bulbs, size_t n_times,
+                                        const double *t, double *out_x1,
+                                        double *out_x2)
 {
     mcd_status st;
     mcdi_err_clear();
-    st = mcdi_api_bulbs_linearized(ws, n_species, Dij, c, V1, V2, A, L, x1_0,
-        x2_0, n_times, t, out_x1, out_x2);
+    st = mcdi_api_bulbs_linearized(ws, bulbs, n_times, t, out_x1, out_x2);
     if (st != MCD_OK)
         mcdi_err_settle(st, "mcd_bulbs_linearized");
     return st;
 }
 
-MCD_API mcd_status mcd_bulbs_integrate(mcd_workspace *ws, size_t n_species,
-                                       const double *Dij, double c, double V1,
-                                       double V2, double A, double L,
-                                       const double *x1_0, const double *x2_0,
-                                       size_t n_times, const double *t,
-                                       double rel_tol, double *out_x1,
-                                       double *out_x2)
+MCD_API mcd_status mcd_bulbs_integrate(mcd_workspace *ws,
+                                       const mcd_bulbs *bulbs, size_t n_times,
+                                       const double *t, double rel_tol,
+                                       double *out_x1, double *out_x2)
 {
     mcd_status st;
     mcdi_err_clear();
-    st = mcdi_api_bulbs_integrate(ws, n_species, Dij, c, V1, V2, A, L, x1_0,
-        x2_0, n_times, t, rel_tol, out_x1, out_x2);
+    st = mcdi_api_bulbs_integrate(ws, bulbs, n_times, t, rel_tol, out_x1,
+        out_x2);
     if (st != MCD_OK)
         mcdi_err_settle(st, "mcd_bulbs_integrate");
     return st;

@@ -109,12 +109,12 @@ static mcd_status bulbs_check(mcd_workspace *ws, size_t n, const double *Dij,
 /* Linearized theory                                                   */
 /* ------------------------------------------------------------------ */
 
-mcd_status mcdi_api_bulbs_linearized(mcd_workspace *ws, size_t n,
-                                     const double *Dij, double c, double V1,
-                                     double V2, double A, double L,
-                                     const double *x1_0, const double *x2_0,
-                                     size_t n_times, const double *t,
-                                     double *out_x1, double *out_x2)
+mcd_status mcdi_bulbs_linearized_args(mcd_workspace *ws, size_t n,
+                                      const double *Dij, double c, double V1,
+                                      double V2, double A, double L,
+                                      const double *x1_0, const double *x2_0,
+                                      size_t n_times, const double *t,
+                                      double *out_x1, double *out_x2)
 {
     double *x1n, *x2n, *xbar, *dl0, *wr, *wi, *coef, *dl;
     double *Dm, *Ac, *VR, *LU, *work;
@@ -404,13 +404,13 @@ static mcd_status integrate(integ *g, const double *x1n, size_t n_times,
     return MCD_OK;
 }
 
-mcd_status mcdi_api_bulbs_integrate(mcd_workspace *ws, size_t n,
-                                    const double *Dij, double c, double V1,
-                                    double V2, double A, double L,
-                                    const double *x1_0, const double *x2_0,
-                                    size_t n_times, const double *t,
-                                    double rel_tol, double *out_x1,
-                                    double *out_x2)
+mcd_status mcdi_bulbs_integrate_args(mcd_workspace *ws, size_t n,
+                                     const double *Dij, double c, double V1,
+                                     double V2, double A, double L,
+                                     const double *x1_0, const double *x2_0,
+                                     size_t n_times, const double *t,
+                                     double rel_tol, double *out_x1,
+                                     double *out_x2)
 {
     double *x1n, *x2n, *tot, Dmax = 0.0, h0;
     mcdi_tf tf;

@@ -750,12 +750,12 @@ static mcd_status film_check_state(mcd_workspace *ws, size_t n,
     return MCD_OK;
 }
 
-mcd_status mcdi_api_film_solve(mcd_workspace *ws, size_t n, const double *Dij,
-                               double c, double L, const double *x0,
-                               const double *xL, mcd_film_bootstrap kind,
-                               size_t species, const double *values,
-                               mcd_film_method method, double *out_N,
-                               size_t *out_iterations, double *out_residual)
+mcd_status mcdi_film_solve_args(mcd_workspace *ws, size_t n, const double *Dij,
+                                double c, double L, const double *x0,
+                                const double *xL, mcd_film_bootstrap kind,
+                                size_t species, const double *values,
+                                mcd_film_method method, double *out_N,
+                                size_t *out_iterations, double *out_residual)
 {
     double *x0n, *xLn, *Nres;
     mcdi_tf tf;
@@ -832,10 +832,11 @@ mcd_status mcdi_api_film_solve(mcd_workspace *ws, size_t n, const double *Dij,
     return MCD_OK;
 }
 
-mcd_status mcdi_api_film_profile(mcd_workspace *ws, size_t n, const double *Dij,
-                                 double c, double L, const double *x0,
-                                 const double *N, size_t n_points,
-                                 const double *z, double *out_x)
+mcd_status mcdi_film_profile_args(mcd_workspace *ws, size_t n,
+                                  const double *Dij, double c, double L,
+                                  const double *x0, const double *N,
+                                  size_t n_points, const double *z,
+                                  double *out_x)
 {
     double *x0n, *slot[3];
     mcdi_tf tf;

@@ -8,7 +8,7 @@ Handles are opaque: c_void_p, never a mirrored struct. Every enum is c_int.
 
 import ctypes
 
-__all__ = ["SIGNATURES", "mcd_state", "mcd_cells"]
+__all__ = ["SIGNATURES", "mcd_state", "mcd_cells", "mcd_film", "mcd_bulbs"]
 
 _D = ctypes.c_double
 _PD = ctypes.POINTER(ctypes.c_double)
@@ -207,20 +207,15 @@ SIGNATURES = {
     "mcd_mixture_temperature_fit": (_ST, [_H, _PD, _PD, _PD]),
 
     # --- Mass transfer: film / Stefan tube, two-bulb cell ---
-    # (ws, n_species, Dij, c, L, x0, xL, kind, species, values, method, out_N,
-    #  out_iterations, out_residual)
-    "mcd_film_solve": (_ST, [_H, _SZ, _PD, _D, _D, _PD, _PD, _E, _SZ, _PD, _E,
-                             _PD, _PSZ, _PD]),
-    # (ws, n_species, Dij, c, L, x0, N, n_points, z, out_x)
-    "mcd_film_profile": (_ST, [_H, _SZ, _PD, _D, _D, _PD, _PD, _SZ, _PD, _PD]),
-    # (ws, n_species, Dij, c, V1, V2, A, L, x1_0, x2_0, n_times, t, out_x1,
-    #  out_x2)
-    "mcd_bulbs_linearized": (_ST, [_H, _SZ, _PD, _D, _D, _D, _D, _D, _PD, _PD,
-                                   _SZ, _PD, _PD, _PD]),
-    # (ws, n_species, Dij, c, V1, V2, A, L, x1_0, x2_0, n_times, t, rel_tol,
-    #  out_x1, out_x2)
-    "mcd_bulbs_integrate": (_ST, [_H, _SZ, _PD, _D, _D, _D, _D, _D, _PD, _PD,
-                                  _SZ, _PD, _D, _PD, _PD]),
+    # (ws, film, kind, species, values, method, out_N, out_iterations,
+    #  out_residual)
+    "mcd_film_solve": (_ST, [_H, _H, _E, _SZ, _PD, _E, _PD, _PSZ, _PD]),
+    # (ws, film, N, n_points, z, out_x)
+    "mcd_film_profile": (_ST, [_H, _H, _PD, _SZ, _PD, _PD]),
+    # (ws, bulbs, n_times, t, out_x1, out_x2)
+    "mcd_bulbs_linearized": (_ST, [_H, _H, _SZ, _PD, _PD, _PD]),
+    # (ws, bulbs, n_times, t, rel_tol, out_x1, out_x2)
+    "mcd_bulbs_integrate": (_ST, [_H, _H, _SZ, _PD, _D, _PD, _PD]),
 }
 
 
@@ -249,4 +244,31 @@ class mcd_cells(ctypes.Structure):
         ("comp", ctypes.POINTER(ctypes.c_double)),
         ("grad", ctypes.POINTER(ctypes.c_double)),
         ("grad_lnP", ctypes.POINTER(ctypes.c_double)),
+    ]
+
+
+class mcd_film(ctypes.Structure):
+    """struct mcd_film of include/mcdiff.h."""
+    _fields_ = [
+        ("n_species", ctypes.c_size_t),
+        ("c", ctypes.c_double),
+        ("L", ctypes.c_double),
+        ("Dij", ctypes.POINTER(ctypes.c_double)),
+        ("x0", ctypes.POINTER(ctypes.c_double)),
+        ("xL", ctypes.POINTER(ctypes.c_double)),
+    ]
+
+
+class mcd_bulbs(ctypes.Structure):
+    """struct mcd_bulbs of include/mcdiff.h."""
+    _fields_ = [
+        ("n_species", ctypes.c_size_t),
+        ("c", ctypes.c_double),
+        ("V1", ctypes.c_double),
+        ("V2", ctypes.c_double),
+        ("A", ctypes.c_double),
+        ("L", ctypes.c_double),
+        ("Dij", ctypes.POINTER(ctypes.c_double)),
+        ("x1_0", ctypes.POINTER(ctypes.c_double)),
+        ("x2_0", ctypes.POINTER(ctypes.c_double)),
     ]

@@ -18,7 +18,7 @@ import threading
 from . import _arrays
 from ._arrays import np
 from ._native import lib
-from ._signatures import mcd_cells, mcd_state
+from ._signatures import mcd_bulbs, mcd_cells, mcd_film, mcd_state
 from .enums import (Basis, Bootstrap, Diag, FilmBootstrap, FilmMethod, Method,
                     Model, coerce)
 from .errors import error_for
@@ -807,9 +807,11 @@ def film_solve(Dij, c, L, x0, xL, bootstrap="stagnant", *, species=None,
     o = _arrays.Output((n,))
     it = ctypes.c_size_t()
     res = ctypes.c_double()
-    st = lib.mcd_film_solve(ws._p(), n, D.ptr, _sc(c, "c"), _sc(L, "L"),
-                            a0.ptr, aL.ptr, kind, int(species), _ptr(vals),
-                            meth, o.ptr, ctypes.byref(it), ctypes.byref(res))
+    film = mcd_film(n_species=n, c=_sc(c, "c"), L=_sc(L, "L"), Dij=D.ptr,
+                    x0=a0.ptr, xL=aL.ptr)
+    st = lib.mcd_film_solve(ws._p(), ctypes.byref(film), kind, int(species),
+                            _ptr(vals), meth, o.ptr, ctypes.byref(it),
+                            ctypes.byref(res))
     ws.check(st, "mcd_film_solve")
     return FilmResult(o.result(), it.value, res.value)
 
@@ -827,8 +829,10 @@ def film_profile(Dij, c, L, x0, N, z, *, workspace=None):
     npt = zz.shape[0]
     ws = _ws(workspace, n)
     o = _arrays.Output((npt, n))
-    st = lib.mcd_film_profile(ws._p(), n, D.ptr, _sc(c, "c"), _sc(L, "L"),
-                              a0.ptr, fl.ptr, npt, zz.ptr, o.ptr)
+    film = mcd_film(n_species=n, c=_sc(c, "c"), L=_sc(L, "L"), Dij=D.ptr,
+                    x0=a0.ptr)
+    st = lib.mcd_film_profile(ws._p(), ctypes.byref(film), fl.ptr, npt,
+                              zz.ptr, o.ptr)
     ws.check(st, "mcd_film_profile")
     return o.result()
 
@@ -845,8 +849,10 @@ def _bulbs(fname, Dij, c, V1, V2, A, L, x1_0, x2_0, t, extra, workspace):
     ws = _ws(workspace, n)
     o1 = _arrays.Output((nt, n))
     o2 = _arrays.Output((nt, n))
-    args = [ws._p(), n, D.ptr, _sc(c, "c"), _sc(V1, "V1"), _sc(V2, "V2"),
-            _sc(A, "A"), _sc(L, "L"), a1.ptr, a2.ptr, nt, tt.ptr]
+    cell = mcd_bulbs(n_species=n, c=_sc(c, "c"), V1=_sc(V1, "V1"),
+                     V2=_sc(V2, "V2"), A=_sc(A, "A"), L=_sc(L, "L"),
+                     Dij=D.ptr, x1_0=a1.ptr, x2_0=a2.ptr)
+    args = [ws._p(), ctypes.byref(cell), nt, tt.ptr]
     args += extra + [o1.ptr, o2.ptr]
     ws.check(getattr(lib, fname)(*args), fname)
     return BulbsResult(o1.result(), o2.result())
