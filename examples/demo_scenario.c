@@ -60,11 +60,11 @@ int demo_scenario_run(FILE *out, FILE *err)
 
     grad[CARRIER] = -(grad[0] + grad[1] + grad[2]);
 
-    if (check(err, "opening the species table", mcd_db_new_builtin(&db),
-              NULL))
+    if (check(err, "opening the species table", mcd_db_new_builtin(&db), NULL))
         goto done;
     if (mcd_mixture_new(db, NS, names, MCD_GAS_FSG, &mix) != MCD_OK) {
-        fprintf(err, "demo: building the mixture failed: %s\n", mcd_last_error());
+        fprintf(err, "demo: building the mixture failed: %s\n",
+                mcd_last_error());
         goto done;
     }
     if (check(err, "molar masses", mcd_mixture_molar_masses(mix, M), NULL) ||
@@ -74,10 +74,28 @@ int demo_scenario_run(FILE *out, FILE *err)
         check(err, "workspace", mcd_workspace_new(NS, &ws), NULL))
         goto done;
     if (check(err, "exact fluxes",
-              mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = NS, .n_dim = 1, .M = M, .Dij = D, .c = c, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = grad}, MCD_BASIS_MOLE, J_ms),
+              mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
+                               &(mcd_state){.n_species = NS,
+                                            .n_dim = 1,
+                                            .M = M,
+                                            .Dij = D,
+                                            .c = c,
+                                            .comp_basis = MCD_BASIS_MOLE,
+                                            .comp = x,
+                                            .grad = grad},
+                               MCD_BASIS_MOLE, J_ms),
               ws) ||
         check(err, "mixture-averaged fluxes",
-              mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED, &(mcd_state){.n_species = NS, .n_dim = 1, .M = M, .Dij = D, .c = c, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = grad}, MCD_BASIS_MOLE, J_ma),
+              mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED,
+                               &(mcd_state){.n_species = NS,
+                                            .n_dim = 1,
+                                            .M = M,
+                                            .Dij = D,
+                                            .c = c,
+                                            .comp_basis = MCD_BASIS_MOLE,
+                                            .comp = x,
+                                            .grad = grad},
+                               MCD_BASIS_MOLE, J_ma),
               ws) ||
         check(err, "coupling diagnosis",
               mcd_flux_diagnose(NS, 1, grad, J_ms, 1e-3, flags), NULL))
@@ -98,15 +116,17 @@ int demo_scenario_run(FILE *out, FILE *err)
 
     fprintf(out, "mcdiff demo - INVENTED scenario, made-up numbers, for "
                  "illustration only\n");
-    fprintf(out, "A lacquer wet with ethanol and ethyl acetate dries under "
-                 "humid nitrogen at\n45 C and 1 atm. Midway through a 2 mm "
-                 "gas film (c = %.4g mol/m^3):\n",
+    fprintf(out,
+            "A lacquer wet with ethanol and ethyl acetate dries under "
+            "humid nitrogen at\n45 C and 1 atm. Midway through a 2 mm "
+            "gas film (c = %.4g mol/m^3):\n",
             c);
     fprintf(out, "  %-14s %6s %12s\n", "species", "x", "dx/dz [1/m]");
     for (i = 0; i < NS; i++)
         fprintf(out, "  %-14s %6.3f %12.1f\n", names[i], x[i], grad[i]);
-    fprintf(out, "Binary diffusivities D_ij [cm^2/s], %s estimates "
-                 "(typical error %.1f %%):\n",
+    fprintf(out,
+            "Binary diffusivities D_ij [cm^2/s], %s estimates "
+            "(typical error %.1f %%):\n",
             mcd_method_name(MCD_METHOD_FSG),
             100.0 * mcd_method_typical_error(MCD_METHOD_FSG));
     fprintf(out, "  %-6s", "");
@@ -143,21 +163,25 @@ int demo_scenario_run(FILE *out, FILE *err)
             1e3 * sum_ms, 1e3 * sum_ma, 1e3 * sum_fk);
     for (i = 0; i < NS; i++) {
         if (flags[i] & MCD_DIAG_OSMOTIC)
-            fprintf(out, "Coupling: %s diffuses with no gradient of its own "
-                         "(osmotic diffusion).\n",
+            fprintf(out,
+                    "Coupling: %s diffuses with no gradient of its own "
+                    "(osmotic diffusion).\n",
                     names[i]);
         if (flags[i] & MCD_DIAG_REVERSE)
-            fprintf(out, "Coupling: %s diffuses up its own gradient (reverse "
-                         "diffusion).\n",
+            fprintf(out,
+                    "Coupling: %s diffuses up its own gradient (reverse "
+                    "diffusion).\n",
                     names[i]);
         if (flags[i] & MCD_DIAG_BARRIER)
-            fprintf(out, "Coupling: %s does not move despite its gradient "
-                         "(diffusion barrier).\n",
+            fprintf(out,
+                    "Coupling: %s does not move despite its gradient "
+                    "(diffusion barrier).\n",
                     names[i]);
     }
-    fprintf(out, "Mixture-averaged differs from exact by up to %.1f %% of "
-                 "the largest flux;\nthe naive Fick fluxes miss the coupling "
-                 "and leave %.2g mmol/(m^2 s) unbalanced.\n",
+    fprintf(out,
+            "Mixture-averaged differs from exact by up to %.1f %% of "
+            "the largest flux;\nthe naive Fick fluxes miss the coupling "
+            "and leave %.2g mmol/(m^2 s) unbalanced.\n",
             big > 0 ? 100.0 * dev / big : 0.0, 1e3 * sum_fk);
     if (allwarn) {
         unsigned b;

@@ -69,7 +69,13 @@ static int fick_lambda_max(mcd_workspace *ws, const fv1d_problem *p,
     double D[(NS - 1) * (NS - 1)], re[NS - 1], im[NS - 1];
     size_t dep;
     if (lib_fail(err, "Fick matrix",
-                 mcd_fick_matrix(ws, &(mcd_state){.n_species = NS, .M = p->M, .Dij = p->Dij, .comp_basis = MCD_BASIS_MOLE, .comp = x}, MCD_BASIS_MOLE, MCD_DEPENDENT_AUTO, D, &dep),
+                 mcd_fick_matrix(ws,
+                                 &(mcd_state){.n_species = NS,
+                                              .M = p->M,
+                                              .Dij = p->Dij,
+                                              .comp_basis = MCD_BASIS_MOLE,
+                                              .comp = x},
+                                 MCD_BASIS_MOLE, MCD_DEPENDENT_AUTO, D, &dep),
                  ws) ||
         lib_fail(err, "Fick eigenvalues",
                  mcd_fick_eigenvalues(ws, NS - 1, D, re, im), ws))
@@ -81,9 +87,8 @@ static int fick_lambda_max(mcd_workspace *ws, const fv1d_problem *p,
 int fv1d_problem_init(fv1d_problem *p, size_t n_cells, size_t n_steps,
                       double t_end, int react, mcd_model model, FILE *err)
 {
-    static const char *const names[NS] = {"carbon-monoxide", "water",
-                                          "carbon-dioxide", "hydrogen",
-                                          "nitrogen"};
+    static const char *const names[NS] = {
+        "carbon-monoxide", "water", "carbon-dioxide", "hydrogen", "nitrogen"};
     static const char *const shortn[NS] = {"CO", "H2O", "CO2", "H2", "N2"};
     static const char *const elem[FV1D_NE] = {"C", "H", "O", "N"};
     static const double nu[NS] = {-1.0, -1.0, 1.0, 1.0, 0.0};
@@ -104,9 +109,9 @@ int fv1d_problem_init(fv1d_problem *p, size_t n_cells, size_t n_steps,
         return 1;
     }
     p->n_cells = n_cells;
-    p->L = 0.01;        /* invented: 1 cm gap */
+    p->L = 0.01; /* invented: 1 cm gap */
     p->dz = p->L / (double)n_cells;
-    p->T = 600.0;       /* invented */
+    p->T = 600.0; /* invented */
     p->P = MCD_ATM;
     p->t_end = t_end;
     p->k_rate = react ? 1.0 : 0.0; /* invented rate constant */
@@ -123,7 +128,8 @@ int fv1d_problem_init(fv1d_problem *p, size_t n_cells, size_t n_steps,
                  NULL))
         goto done;
     if (mcd_mixture_new(db, NS, names, MCD_GAS_FSG, &mix) != MCD_OK) {
-        fprintf(err, "fv1d: building the mixture failed: %s\n", mcd_last_error());
+        fprintf(err, "fv1d: building the mixture failed: %s\n",
+                mcd_last_error());
         goto done;
     }
     if (lib_fail(err, "molar masses", mcd_mixture_molar_masses(mix, p->M),
@@ -159,8 +165,7 @@ int fv1d_problem_init(fv1d_problem *p, size_t n_cells, size_t n_steps,
                     found = 1;
                 }
             if (!found) {
-                fprintf(err, "fv1d: element %s not tracked\n",
-                        sym ? sym : "?");
+                fprintf(err, "fv1d: element %s not tracked\n", sym ? sym : "?");
                 goto done;
             }
         }
@@ -219,15 +224,14 @@ void fv1d_initial(const fv1d_problem *p, size_t first, size_t n, double *x)
 {
     size_t k, i;
     for (k = 0; k < n; k++) {
-        const double *src =
-            (2 * (first + k) < p->n_cells) ? x_left : x_right;
+        const double *src = (2 * (first + k) < p->n_cells) ? x_left : x_right;
         for (i = 0; i < NS; i++)
             x[k * NS + i] = src[i];
     }
 }
 
-int fv1d_solver_init(fv1d_solver *s, const fv1d_problem *p,
-                     size_t max_cells, FILE *err)
+int fv1d_solver_init(fv1d_solver *s, const fv1d_problem *p, size_t max_cells,
+                     FILE *err)
 {
     size_t nf = max_cells + 1, f;
     memset(s, 0, sizeof *s);
@@ -283,9 +287,16 @@ static int face_fluxes(fv1d_solver *s, const fv1d_problem *p, size_t nf,
          * the face's T and P, and c = P/(R T): the same numbers as p->Dij
          * and p->c up to round-off. */
         s->calls++;
-        return lib_fail(err, "batched face fluxes",
-                        mcd_flux_batch(s->ws, p->mix, p->model, s->face_T, s->face_P, &(mcd_cells){.n_cells = nf, .n_dim = 1, .comp_basis = MCD_BASIS_MOLE, .comp = s->face_x, .grad = s->face_grad}, MCD_BASIS_MOLE, s->face_flux),
-                        s->ws);
+        return lib_fail(
+            err, "batched face fluxes",
+            mcd_flux_batch(s->ws, p->mix, p->model, s->face_T, s->face_P,
+                           &(mcd_cells){.n_cells = nf,
+                                        .n_dim = 1,
+                                        .comp_basis = MCD_BASIS_MOLE,
+                                        .comp = s->face_x,
+                                        .grad = s->face_grad},
+                           MCD_BASIS_MOLE, s->face_flux),
+            s->ws);
     }
     for (f = 0; f < nf; f++) {
         double xf[NS], gf[NS], Jf[NS];
@@ -294,7 +305,16 @@ static int face_fluxes(fv1d_solver *s, const fv1d_problem *p, size_t nf,
             xf[i] = s->face_x[i * nf + f];
             gf[i] = s->face_grad[i * nf + f];
         }
-        st = mcd_flux_compute(s->ws, p->model, &(mcd_state){.n_species = NS, .n_dim = 1, .M = p->M, .Dij = p->Dij, .c = p->c, .comp_basis = MCD_BASIS_MOLE, .comp = xf, .grad = gf}, MCD_BASIS_MOLE, Jf);
+        st = mcd_flux_compute(s->ws, p->model,
+                              &(mcd_state){.n_species = NS,
+                                           .n_dim = 1,
+                                           .M = p->M,
+                                           .Dij = p->Dij,
+                                           .c = p->c,
+                                           .comp_basis = MCD_BASIS_MOLE,
+                                           .comp = xf,
+                                           .grad = gf},
+                              MCD_BASIS_MOLE, Jf);
         s->calls++;
         if (lib_fail(err, "face flux", st, s->ws))
             return 1;
@@ -314,8 +334,10 @@ int fv1d_step(fv1d_solver *s, const fv1d_problem *p, size_t first,
     double extent = 0.0;
 
     if (n_local == 0 || n_local + 1 > s->max_faces) {
-        fprintf(err, "fv1d: block of %zu cells is empty or larger than the "
-                     "solver's\n", n_local);
+        fprintf(err,
+                "fv1d: block of %zu cells is empty or larger than the "
+                "solver's\n",
+                n_local);
         return 1;
     }
     /* Face f lies between ghost-indexed cells f and f + 1; the wall faces

@@ -28,24 +28,24 @@ enum { FV1D_CO = 0, FV1D_H2O, FV1D_CO2, FV1D_H2, FV1D_N2, FV1D_NS };
 
 /* Everything that defines one run; identical on every MPI rank. */
 typedef struct fv1d_problem {
-    size_t n_cells;             /* cells over the whole domain */
-    size_t n_steps;             /* explicit Euler steps */
-    double L, dz;               /* domain length and cell size [m] */
-    double T, P, c;             /* [K], [Pa], [mol/m^3] */
-    double t_end, dt;           /* [s] */
-    double M[FV1D_NS];          /* molar masses [kg/mol] */
+    size_t n_cells;                /* cells over the whole domain */
+    size_t n_steps;                /* explicit Euler steps */
+    double L, dz;                  /* domain length and cell size [m] */
+    double T, P, c;                /* [K], [Pa], [mol/m^3] */
+    double t_end, dt;              /* [s] */
+    double M[FV1D_NS];             /* molar masses [kg/mol] */
     double Dij[FV1D_NS * FV1D_NS]; /* binary diffusivities [m^2/s] */
-    double D_max;               /* largest binary diffusivity [m^2/s] */
-    double D_star;              /* D_max or the largest Fick-matrix
+    double D_max;                  /* largest binary diffusivity [m^2/s] */
+    double D_star;                 /* D_max or the largest Fick-matrix
                                    eigenvalue at the initial states, if
                                    larger: sets the stable dt [m^2/s] */
-    double nu[FV1D_NS];         /* stoichiometric coefficients [-] */
-    double k_rate;              /* rate constant [m^3/(mol s)], 0 = inert */
-    size_t zone_lo, zone_hi;    /* catalyst cells [zone_lo, zone_hi) */
-    mcd_model model;            /* flux model */
-    int per_face;               /* 1: one mcd_flux_compute call per face
+    double nu[FV1D_NS];            /* stoichiometric coefficients [-] */
+    double k_rate;                 /* rate constant [m^3/(mol s)], 0 = inert */
+    size_t zone_lo, zone_hi;       /* catalyst cells [zone_lo, zone_hi) */
+    mcd_model model;               /* flux model */
+    int per_face;                  /* 1: one mcd_flux_compute call per face
                                    instead of one batched call per step */
-    mcd_mixture *mix;           /* the mixture (owned; fv1d_problem_free) */
+    mcd_mixture *mix;              /* the mixture (owned; fv1d_problem_free) */
     double atoms[FV1D_NE * FV1D_NS]; /* atoms of element e in species i */
     const char *names[FV1D_NS];      /* species names (built-in table) */
     const char *short_names[FV1D_NS];
@@ -56,14 +56,14 @@ typedef struct fv1d_problem {
 typedef struct fv1d_solver {
     mcd_workspace *ws;
     size_t max_faces;
-    size_t *face_index;  /* which local face each batch entry is */
-    double *face_T;      /* face temperatures [K] (all p->T) */
-    double *face_P;      /* face pressures [Pa] (all p->P) */
-    double *face_x;      /* face compositions, SoA: [i * n_faces + f] */
-    double *face_grad;   /* face gradients, SoA: [i * n_faces + f] */
-    double *face_flux;   /* face fluxes from the library, SoA */
-    double *flux;        /* fluxes on all local faces, face-major, N per face */
-    size_t calls;        /* library flux calls made */
+    size_t *face_index; /* which local face each batch entry is */
+    double *face_T;     /* face temperatures [K] (all p->T) */
+    double *face_P;     /* face pressures [Pa] (all p->P) */
+    double *face_x;     /* face compositions, SoA: [i * n_faces + f] */
+    double *face_grad;  /* face gradients, SoA: [i * n_faces + f] */
+    double *face_flux;  /* face fluxes from the library, SoA */
+    double *flux;       /* fluxes on all local faces, face-major, N per face */
+    size_t calls;       /* library flux calls made */
 } fv1d_solver;
 
 /* Set up the invented scenario. n_cells >= 3; n_steps == 0 picks the
@@ -81,8 +81,8 @@ void fv1d_initial(const fv1d_problem *p, size_t first, size_t n, double *x);
 
 /* Allocate / free the scratch for blocks of up to max_cells cells of
  * problem p. */
-int fv1d_solver_init(fv1d_solver *s, const fv1d_problem *p,
-                     size_t max_cells, FILE *err);
+int fv1d_solver_init(fv1d_solver *s, const fv1d_problem *p, size_t max_cells,
+                     FILE *err);
 void fv1d_solver_free(fv1d_solver *s);
 
 /* One explicit Euler step on a block of n_local cells whose first cell is
@@ -111,7 +111,6 @@ void fv1d_inventory(const fv1d_problem *p, size_t n, const double *x,
                     double *out_inv);
 
 /* Element inventories sum_i atoms_ei inv_i [mol/m^2] from species ones. */
-void fv1d_elements(const fv1d_problem *p, const double *inv,
-                   double *out_el);
+void fv1d_elements(const fv1d_problem *p, const double *inv, double *out_el);
 
 #endif

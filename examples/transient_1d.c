@@ -79,12 +79,12 @@ static void usage(FILE *f)
 
 /* One run and its conservation numbers. */
 typedef struct run_result {
-    double *x;              /* final mole fractions, n_cells x NS */
-    double extent;          /* reaction extent [mol/m^2] */
-    double species_err;     /* inert: max_i |dI_i|/I_i(0); reacting: max_i
+    double *x;          /* final mole fractions, n_cells x NS */
+    double extent;      /* reaction extent [mol/m^2] */
+    double species_err; /* inert: max_i |dI_i|/I_i(0); reacting: max_i
                                |dI_i - nu_i extent| / sum I(0) */
-    double element_err;     /* max_e |dE_e| / E_e(0) */
-    double sum_err;         /* max_k |sum_i x_ik - 1| */
+    double element_err; /* max_e |dE_e| / E_e(0) */
+    double sum_err;     /* max_k |sum_i x_ik - 1| */
     double seconds;
     size_t calls;
 } run_result;
@@ -131,9 +131,9 @@ static int run_case(size_t n_cells, size_t n_steps, double t_end, int react,
     for (i = 0; i < NS; i++)
         total0 += inv0[i];
     for (i = 0; i < NS; i++) {
-        double d = react ? fabs(inv1[i] - inv0[i] - p->nu[i] * res->extent) /
-                               total0
-                         : fabs(inv1[i] - inv0[i]) / inv0[i];
+        double d =
+            react ? fabs(inv1[i] - inv0[i] - p->nu[i] * res->extent) / total0
+                  : fabs(inv1[i] - inv0[i]) / inv0[i];
         if (d > res->species_err)
             res->species_err = d;
     }
@@ -262,16 +262,15 @@ int main(int argc, char **argv)
     }
 
     tol = 4.0 * (double)(p.n_steps + p.n_cells) * DBL_EPSILON;
-    printf("\nConservation (tolerance %.2e = 4 (steps + cells) eps):\n",
-           tol);
+    printf("\nConservation (tolerance %.2e = 4 (steps + cells) eps):\n", tol);
     printf("  %-30s %12s %12s %12s %9s\n", "run", "species", "elements",
            "|sum x - 1|", "cpu [s]");
     for (c = 0; c < 5; c++) {
         int ok = r[c].species_err <= tol && r[c].element_err <= tol &&
                  r[c].sum_err <= tol;
         printf("  %-30s %12.2e %12.2e %12.2e %9.3f %s\n", label[c],
-               r[c].species_err, r[c].element_err, r[c].sum_err,
-               r[c].seconds, ok ? "ok" : "FAILED");
+               r[c].species_err, r[c].element_err, r[c].sum_err, r[c].seconds,
+               ok ? "ok" : "FAILED");
         if (!ok)
             fails++;
     }
@@ -293,8 +292,10 @@ int main(int argc, char **argv)
            "%.3e (bound 1e-10), cpu %.3f s vs %.3f s.\n",
            d_path, r[2].seconds, r[4].seconds);
     if (!(d_path <= 1e-10)) {
-        fprintf(stderr, "transient_1d: batched and single-state results "
-                        "differ by %.3e\n", d_path);
+        fprintf(stderr,
+                "transient_1d: batched and single-state results "
+                "differ by %.3e\n",
+                d_path);
         fails++;
     }
 

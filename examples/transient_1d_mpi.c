@@ -156,8 +156,7 @@ static int run_and_compare(size_t n_cells, size_t n_steps, double t_end,
     }
     MPI_Gatherv(x + NS, (int)(n_local * NS), MPI_DOUBLE, all, counts, displs,
                 MPI_DOUBLE, 0, MPI_COMM_WORLD);
-    MPI_Reduce(&extent, &extent_all, 1, MPI_DOUBLE, MPI_SUM, 0,
-               MPI_COMM_WORLD);
+    MPI_Reduce(&extent, &extent_all, 1, MPI_DOUBLE, MPI_SUM, 0, MPI_COMM_WORLD);
 
     if (rank == 0) {
         fv1d_solver s_ser;
@@ -195,8 +194,8 @@ static int run_and_compare(size_t n_cells, size_t n_steps, double t_end,
         printf("%-18s element balance error %.2e (tolerance %.2e), extent "
                "%.9e vs serial %.9e mol/m^2\n",
                "", el_err, tol, extent_all, extent_ser);
-        printf("%-18s wall time: parallel %.3f s, serial %.3f s\n", "",
-               t_par, t_ser);
+        printf("%-18s wall time: parallel %.3f s, serial %.3f s\n", "", t_par,
+               t_ser);
         if (n_diff != 0 || !(el_err <= tol))
             rc = 1;
     }
@@ -228,8 +227,9 @@ int main(int argc, char **argv)
     }
     if (n_cells < (size_t)size || n_cells < 3) {
         if (rank == 0)
-            fprintf(stderr, "transient_1d_mpi: need at least max(3, ranks) "
-                            "cells, got %zu for %d ranks\n",
+            fprintf(stderr,
+                    "transient_1d_mpi: need at least max(3, ranks) "
+                    "cells, got %zu for %d ranks\n",
                     n_cells, size);
         MPI_Finalize();
         return 2;
@@ -240,8 +240,8 @@ int main(int argc, char **argv)
                n_cells, size);
     rc |= run_and_compare(n_cells, n_steps, t_end, MCD_MODEL_MAXWELL_STEFAN,
                           rank, size);
-    rc |= run_and_compare(n_cells, n_steps, t_end,
-                          MCD_MODEL_MIXTURE_AVERAGED, rank, size);
+    rc |= run_and_compare(n_cells, n_steps, t_end, MCD_MODEL_MIXTURE_AVERAGED,
+                          rank, size);
     /* Every rank exits with rank 0's verdict. */
     MPI_Bcast(&rc, 1, MPI_INT, 0, MPI_COMM_WORLD);
     if (rank == 0)

@@ -90,7 +90,9 @@ static void caller_gather(size_t n, size_t K, size_t k, const double *T,
 /* (b0): an empty callee the compiler cannot see through */
 static void empty_call(const double *a, const double *b, const double *c)
 {
-    (void)a; (void)b; (void)c;
+    (void)a;
+    (void)b;
+    (void)c;
 }
 static void (*volatile empty_fn)(const double *, const double *,
                                  const double *) = empty_call;
@@ -102,7 +104,9 @@ static int cmp_double(const void *a, const void *b)
 }
 
 /* rates from times: med, min, max cells/s */
-typedef struct rate { double med, lo, hi; } rate;
+typedef struct rate {
+    double med, lo, hi;
+} rate;
 static rate rates(double *t, size_t ncell)
 {
     rate r;
@@ -124,7 +128,8 @@ static mcd_mixture *make_mixture(mcd_db *db, size_t n)
         char f[32];
         size_t cn = 1 + i % 9, o = (i / 9) % 3, nn = (i / 27) % 2;
         snprintf(nm[i], sizeof nm[i], "bench%03zu", i);
-        snprintf(f, sizeof f, "C%zuH%zuO%zuN%zu", cn, 2 * cn + 2, o + 0, nn + 0);
+        snprintf(f, sizeof f, "C%zuH%zuO%zuN%zu", cn, 2 * cn + 2, o + 0,
+                 nn + 0);
         if (o == 0 && nn == 0)
             snprintf(f, sizeof f, "C%zuH%zu", cn, 2 * cn + 2);
         else if (nn == 0)
@@ -142,9 +147,9 @@ static mcd_mixture *make_mixture(mcd_db *db, size_t n)
 
 /* Baseline: one cell. B and rhs column-major. */
 static lapack_int baseline_cell(size_t n, const double *x, size_t K,
-                                const double *g, const double *coef,
-                                double T, double P, double *D, double *B,
-                                double *rhs, lapack_int *ipiv, double *J)
+                                const double *g, const double *coef, double T,
+                                double P, double *D, double *B, double *rhs,
+                                lapack_int *ipiv, double *J)
 {
     const size_t m = n - 1, N = n - 1;
     const double c = P / (MCD_GAS_CONSTANT * T), f = pow(T, 1.75) / P;
@@ -240,8 +245,10 @@ static double maxrel(size_t n, size_t K, const double *soa, const double *ref)
         double sc = 0.0, e = 0.0;
         for (size_t i = 0; i < n * ND; i++) {
             double b = ref[k * n * ND + i], a = soa[i * K + k];
-            if (fabs(b) > sc) sc = fabs(b);
-            if (fabs(a - b) > e) e = fabs(a - b);
+            if (fabs(b) > sc)
+                sc = fabs(b);
+            if (fabs(a - b) > e)
+                e = fabs(a - b);
         }
         if (sc > 0.0 && e / sc > worst)
             worst = e / sc;
@@ -251,11 +258,10 @@ static double maxrel(size_t n, size_t K, const double *soa, const double *ref)
 
 static void dgemm_reference(void)
 {
-    typedef void (*dgemm_fn)(const char *, const char *, const int *,
-                             const int *, const int *, const double *,
-                             const double *, const int *, const double *,
-                             const int *, const double *, double *,
-                             const int *);
+    typedef void (*dgemm_fn)(
+        const char *, const char *, const int *, const int *, const int *,
+        const double *, const double *, const int *, const double *,
+        const int *, const double *, double *, const int *);
     typedef char *(*cfg_fn)(void);
     dgemm_fn dg = (dgemm_fn)(uintptr_t)dlsym(RTLD_DEFAULT, "dgemm_");
     cfg_fn cfg = (cfg_fn)(uintptr_t)dlsym(RTLD_DEFAULT, "openblas_get_config");
@@ -282,7 +288,8 @@ static void dgemm_reference(void)
     }
     qsort(t, 3, sizeof(double), cmp_double);
     printf("DGEMM reference (n = %d, one call at a time): %.1f GFLOP/s "
-           "(median of 3)\n", n, 2.0 * n * n * n / t[1] * 1e-9);
+           "(median of 3)\n",
+           n, 2.0 * n * n * n / t[1] * 1e-9);
     free(a);
     free(b);
     free(c);
@@ -323,8 +330,8 @@ static int run(mcd_db *db, size_t n, double scale)
     rhs = malloc(n * ND * sizeof(double));
     Jc = malloc(n * ND * sizeof(double));
     ipiv = malloc(n * sizeof(lapack_int));
-    if (!T || !P || !x || !g || !ref || !ref2 || !out || !coef || !D || !B || !rhs ||
-        !ipiv || !Jc || !Dc) {
+    if (!T || !P || !x || !g || !ref || !ref2 || !out || !coef || !D || !B ||
+        !rhs || !ipiv || !Jc || !Dc) {
         fprintf(stderr, "out of memory\n");
         return 1;
     }
@@ -366,7 +373,16 @@ static int run(mcd_db *db, size_t n, double scale)
         for (size_t k = 0; k < K; k++) {
             double xs[128], gs[128 * ND];
             caller_gather(n, K, k, T, P, coef, x, g, Dc, xs, gs);
-            if (mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = n, .n_dim = ND, .Dij = Dc, .c = P[k] / (MCD_GAS_CONSTANT * T[k]), .comp_basis = MCD_BASIS_MOLE, .comp = xs, .grad = gs}, MCD_BASIS_MOLE, Jc) != MCD_OK)
+            if (mcd_flux_compute(
+                    ws, MCD_MODEL_MAXWELL_STEFAN,
+                    &(mcd_state){.n_species = n,
+                                 .n_dim = ND,
+                                 .Dij = Dc,
+                                 .c = P[k] / (MCD_GAS_CONSTANT * T[k]),
+                                 .comp_basis = MCD_BASIS_MOLE,
+                                 .comp = xs,
+                                 .grad = gs},
+                    MCD_BASIS_MOLE, Jc) != MCD_OK)
                 bad = 1;
         }
         tb[r] = now_s() - t0;
@@ -381,7 +397,13 @@ static int run(mcd_db *db, size_t n, double scale)
         t0b[r] = now_s() - t0;
 
         t0 = now_s();
-        if (mcd_flux_batch(ws, mix, MCD_MODEL_ITERATIVE, T, P, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g}, MCD_BASIS_MOLE, out) != MCD_OK)
+        if (mcd_flux_batch(ws, mix, MCD_MODEL_ITERATIVE, T, P,
+                           &(mcd_cells){.n_cells = K,
+                                        .n_dim = ND,
+                                        .comp_basis = MCD_BASIS_MOLE,
+                                        .comp = x,
+                                        .grad = g},
+                           MCD_BASIS_MOLE, out) != MCD_OK)
             bad = 1;
         td[r] = now_s() - t0;
         if (r == 0) {
@@ -390,14 +412,26 @@ static int run(mcd_db *db, size_t n, double scale)
         }
 
         t0 = now_s();
-        if (mcd_flux_batch(ws, mix, MCD_MODEL_MIXTURE_AVERAGED, T, P, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g}, MCD_BASIS_MOLE, out) != MCD_OK)
+        if (mcd_flux_batch(ws, mix, MCD_MODEL_MIXTURE_AVERAGED, T, P,
+                           &(mcd_cells){.n_cells = K,
+                                        .n_dim = ND,
+                                        .comp_basis = MCD_BASIS_MOLE,
+                                        .comp = x,
+                                        .grad = g},
+                           MCD_BASIS_MOLE, out) != MCD_OK)
             bad = 1;
         te[r] = now_s() - t0;
         if (r == 0)
             de = maxrel(n, K, out, ref);
 
         t0 = now_s();
-        if (mcd_flux_batch(ws, mix, MCD_MODEL_MAXWELL_STEFAN, T, P, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g}, MCD_BASIS_MOLE, out) != MCD_OK)
+        if (mcd_flux_batch(ws, mix, MCD_MODEL_MAXWELL_STEFAN, T, P,
+                           &(mcd_cells){.n_cells = K,
+                                        .n_dim = ND,
+                                        .comp_basis = MCD_BASIS_MOLE,
+                                        .comp = x,
+                                        .grad = g},
+                           MCD_BASIS_MOLE, out) != MCD_OK)
             bad = 1;
         tc[r] = now_s() - t0;
 
@@ -410,8 +444,7 @@ static int run(mcd_db *db, size_t n, double scale)
         tm2[r] = now_s() - t0;
     }
     if (bad) {
-        fprintf(stderr, "N=%zu: a call failed (%s)\n", n,
-                mcd_last_error());
+        fprintf(stderr, "N=%zu: a call failed (%s)\n", n, mcd_last_error());
         return 1;
     }
     dc = maxrel(n, K, out, ref);
@@ -420,8 +453,10 @@ static int run(mcd_db *db, size_t n, double scale)
         double sc = 0.0, e = 0.0;
         for (size_t i = 0; i < n * ND; i++) {
             double b = ref[(K - 1) * n * ND + i];
-            if (fabs(b) > sc) sc = fabs(b);
-            if (fabs(Jc[i] - b) > e) e = fabs(Jc[i] - b);
+            if (fabs(b) > sc)
+                sc = fabs(b);
+            if (fabs(Jc[i] - b) > e)
+                e = fabs(Jc[i] - b);
         }
         db_ = e / sc;
     }
@@ -435,23 +470,33 @@ static int run(mcd_db *db, size_t n, double scale)
     rb0 = rates(t0b, K);
     rm2 = rates(tm2, K);
     printf("\nN = %zu, %zu cells, cells/s median [min, max] of %d runs, ratio "
-           "of medians to (a), max rel diff from (a)\n", n, K, REPS);
-    printf("  (a) baseline B+dgesv   %11.4g [%10.4g, %10.4g]\n", ra.med, ra.lo, ra.hi);
-    printf("  (b) mcd_flux_compute   %11.4g [%10.4g, %10.4g]  x%6.2f  diff %.1e (last cell)\n",
+           "of medians to (a), max rel diff from (a)\n",
+           n, K, REPS);
+    printf("  (a) baseline B+dgesv   %11.4g [%10.4g, %10.4g]\n", ra.med, ra.lo,
+           ra.hi);
+    printf("  (b) mcd_flux_compute   %11.4g [%10.4g, %10.4g]  x%6.2f  diff "
+           "%.1e (last cell)\n",
            rb.med, rb.lo, rb.hi, rb.med / ra.med, db_);
-    printf("  (b0) caller's share    %11.4g [%10.4g, %10.4g]  (b) at 5x (a) needs <= %.0f ns/cell, "
+    printf("  (b0) caller's share    %11.4g [%10.4g, %10.4g]  (b) at 5x (a) "
+           "needs <= %.0f ns/cell, "
            "%.0f ns of it the caller's loop\n",
            rb0.med, rb0.lo, rb0.hi, 1e9 / (5.0 * ra.med), 1e9 / rb0.med);
-    printf("  (c) batch exact        %11.4g [%10.4g, %10.4g]  x%6.2f  diff %.1e  %.2f GFLOP/s\n",
+    printf("  (c) batch exact        %11.4g [%10.4g, %10.4g]  x%6.2f  diff "
+           "%.1e  %.2f GFLOP/s\n",
            rc.med, rc.lo, rc.hi, rc.med / ra.med, dc,
-           rc.med * ((double)n * n * n / 3.0 + 2.0 * n * n * ND + 4.0 * n * n) * 1e-9);
-    printf("  (d) batch iterative    %11.4g [%10.4g, %10.4g]  x%6.2f  diff %.1e  estimate %.1e  iterations <= %zu\n",
+           rc.med * ((double)n * n * n / 3.0 + 2.0 * n * n * ND + 4.0 * n * n) *
+               1e-9);
+    printf("  (d) batch iterative    %11.4g [%10.4g, %10.4g]  x%6.2f  diff "
+           "%.1e  estimate %.1e  iterations <= %zu\n",
            rd.med, rd.lo, rd.hi, rd.med / ra.med, dd, est_d, it_d);
-    printf("  (e) batch mixture-avg  %11.4g [%10.4g, %10.4g]  x%6.2f  diff %.1e (model difference)\n",
+    printf("  (e) batch mixture-avg  %11.4g [%10.4g, %10.4g]  x%6.2f  diff "
+           "%.1e (model difference)\n",
            re.med, re.lo, re.hi, re.med / ra.med, de);
-    printf("  (m) memory floor       %11.4g [%10.4g, %10.4g]  x%6.2f  (read inputs, write outputs, cell by cell)\n",
+    printf("  (m) memory floor       %11.4g [%10.4g, %10.4g]  x%6.2f  (read "
+           "inputs, write outputs, cell by cell)\n",
            rm.med, rm.lo, rm.hi, rm.med / ra.med);
-    printf("  (m2) floor, streamed   %11.4g [%10.4g, %10.4g]  x%6.2f  (each array alone, outputs past the cache: the ceiling)\n",
+    printf("  (m2) floor, streamed   %11.4g [%10.4g, %10.4g]  x%6.2f  (each "
+           "array alone, outputs past the cache: the ceiling)\n",
            rm2.med, rm2.lo, rm2.hi, rm2.med / ra.med);
     /* thread scaling of (c) (OpenMP builds only) */
 #ifdef _OPENMP
@@ -461,7 +506,13 @@ static int run(mcd_db *db, size_t n, double scale)
             mcd_workspace_set_threads(ws, (size_t)th);
             for (int r = 0; r < REPS; r++) {
                 double t0 = now_s();
-                mcd_flux_batch(ws, mix, MCD_MODEL_MAXWELL_STEFAN, T, P, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g}, MCD_BASIS_MOLE, out);
+                mcd_flux_batch(ws, mix, MCD_MODEL_MAXWELL_STEFAN, T, P,
+                               &(mcd_cells){.n_cells = K,
+                                            .n_dim = ND,
+                                            .comp_basis = MCD_BASIS_MOLE,
+                                            .comp = x,
+                                            .grad = g},
+                               MCD_BASIS_MOLE, out);
                 tt[r] = now_s() - t0;
             }
             if (th == 1)
@@ -470,8 +521,8 @@ static int run(mcd_db *db, size_t n, double scale)
                 r2 = rates(tt, K);
         }
         printf("  (c) threads: 1: %.4g [%.4g, %.4g]  2: %.4g [%.4g, %.4g]  "
-               "speed-up %.2f\n", r1.med, r1.lo, r1.hi, r2.med, r2.lo, r2.hi,
-               r2.med / r1.med);
+               "speed-up %.2f\n",
+               r1.med, r1.lo, r1.hi, r2.med, r2.lo, r2.hi, r2.med / r1.med);
     }
 #else
     (void)tt;
@@ -479,8 +530,20 @@ static int run(mcd_db *db, size_t n, double scale)
     fflush(stdout);
     mcd_workspace_free(ws);
     mcd_mixture_free(mix);
-    free(T); free(P); free(x); free(g); free(ref); free(ref2); free(out); free(coef);
-    free(D); free(Dc); free(B); free(rhs); free(Jc); free(ipiv);
+    free(T);
+    free(P);
+    free(x);
+    free(g);
+    free(ref);
+    free(ref2);
+    free(out);
+    free(coef);
+    free(D);
+    free(Dc);
+    free(B);
+    free(rhs);
+    free(Jc);
+    free(ipiv);
     return 0;
 }
 
@@ -494,7 +557,8 @@ int main(int argc, char **argv)
         char *end;
         scale = strtod(argv[1], &end);
         if (*end != '\0' || !(scale > 0.0 && scale <= 100.0)) {
-            fprintf(stderr, "usage: %s [cell-count scale in (0, 100]] [N ...]\n",
+            fprintf(stderr,
+                    "usage: %s [cell-count scale in (0, 100]] [N ...]\n",
                     argv[0]);
             return 2;
         }
@@ -502,11 +566,13 @@ int main(int argc, char **argv)
     {
         const char *ob = getenv("OPENBLAS_NUM_THREADS");
         const char *omp = getenv("OMP_NUM_THREADS");
-        printf("mcdiff %s flux benchmark: mole basis, %d directions, one core\n",
-               mcd_version_string(), ND);
-        printf("OPENBLAS_NUM_THREADS=%s OMP_NUM_THREADS=%s MCD_BENCH_THREADS=%s\n",
-               ob ? ob : "(unset)", omp ? omp : "(unset)",
-               getenv("MCD_BENCH_THREADS") ? "set" : "(unset: no thread scaling)");
+        printf(
+            "mcdiff %s flux benchmark: mole basis, %d directions, one core\n",
+            mcd_version_string(), ND);
+        printf(
+            "OPENBLAS_NUM_THREADS=%s OMP_NUM_THREADS=%s MCD_BENCH_THREADS=%s\n",
+            ob ? ob : "(unset)", omp ? omp : "(unset)",
+            getenv("MCD_BENCH_THREADS") ? "set" : "(unset: no thread scaling)");
     }
     dgemm_reference();
     if (mcd_db_new(&db) != MCD_OK)

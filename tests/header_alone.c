@@ -7,7 +7,8 @@
 int main(void)
 {
     if (mcd_version_number() != MCD_VERSION_NUMBER) {
-        fprintf(stderr, "runtime %u != header %d\n", mcd_version_number(), MCD_VERSION_NUMBER);
+        fprintf(stderr, "runtime %u != header %d\n", mcd_version_number(),
+                MCD_VERSION_NUMBER);
         return 1;
     }
     return 0;

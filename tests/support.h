@@ -41,7 +41,11 @@
  *                      state times 0x2545F4914F6CDD1D. Seed must not be 0.
  *  SUP_XORSHIFT64      xorshift with shifts 13, 7, 17; the output is the
  *                      state itself. Seed must not be 0. */
-typedef enum sup_gen { SUP_SPLITMIX64, SUP_XORSHIFT64STAR, SUP_XORSHIFT64 } sup_gen;
+typedef enum sup_gen {
+    SUP_SPLITMIX64,
+    SUP_XORSHIFT64STAR,
+    SUP_XORSHIFT64
+} sup_gen;
 
 typedef struct sup_rng {
     uint64_t s;
@@ -49,7 +53,10 @@ typedef struct sup_rng {
 } sup_rng;
 
 /* Initializer: static sup_rng rng = SUP_RNG(SUP_SPLITMIX64, 1001); */
-#define SUP_RNG(gen, seed) {(uint64_t)(seed), (gen)}
+#define SUP_RNG(gen, seed)                                                     \
+    {                                                                          \
+        (uint64_t)(seed), (gen)                                                \
+    }
 
 /* Restart the generator's sequence from seed (the algorithm is kept). */
 static inline void sup_seed(sup_rng *r, uint64_t seed) { r->s = seed; }
@@ -79,7 +86,10 @@ static inline uint64_t sup_next(sup_rng *r)
 }
 
 /* Uniform in [0, 1): the top 53 bits of one draw. */
-static inline double sup_u01(sup_rng *r) { return (double)(sup_next(r) >> 11) * 0x1p-53; }
+static inline double sup_u01(sup_rng *r)
+{
+    return (double)(sup_next(r) >> 11) * 0x1p-53;
+}
 
 /* Uniform in [a, b). */
 static inline double sup_range(sup_rng *r, double a, double b)
@@ -128,7 +138,8 @@ static inline void sup_fractions(sup_rng *r, size_t n, double lo, double *x)
 /* Symmetric n x n matrix (row-major) of binary diffusivities with a zero
  * diagonal; the upper triangle is drawn row by row, log-uniform over the
  * decades [lo, hi) (sup_decades). */
-static inline void sup_dij_decades(sup_rng *r, size_t n, double *D, double lo, double hi)
+static inline void sup_dij_decades(sup_rng *r, size_t n, double *D, double lo,
+                                   double hi)
 {
     for (size_t i = 0; i < n; i++) {
         D[i * n + i] = 0.0;
@@ -138,8 +149,8 @@ static inline void sup_dij_decades(sup_rng *r, size_t n, double *D, double lo, d
 }
 
 /* The same with entries log-uniform in [lo, lo * ratio) (sup_log_uniform). */
-static inline void sup_dij_log_uniform(sup_rng *r, size_t n, double *D, double lo,
-                                       double ratio)
+static inline void sup_dij_log_uniform(sup_rng *r, size_t n, double *D,
+                                       double lo, double ratio)
 {
     for (size_t i = 0; i < n; i++) {
         D[i * n + i] = 0.0;
@@ -151,8 +162,8 @@ static inline void sup_dij_log_uniform(sup_rng *r, size_t n, double *D, double l
 /* Gradients g[i * nd + d] of n species in nd directions, uniform in
  * [lo, hi), drawn direction by direction, then shifted so that each
  * direction has a zero mean over the species. */
-static inline void sup_gradients_zero_mean(sup_rng *r, size_t n, size_t nd, double lo,
-                                           double hi, double *g)
+static inline void sup_gradients_zero_mean(sup_rng *r, size_t n, size_t nd,
+                                           double lo, double hi, double *g)
 {
     for (size_t d = 0; d < nd; d++) {
         double m = 0.0;
@@ -171,7 +182,10 @@ static inline void sup_gradients_zero_mean(sup_rng *r, size_t n, size_t nd, doub
 /* ------------------------------------------------------------------ */
 
 /* |a - b| / |b| */
-static inline double sup_rel(double a, double b) { return fabs(a - b) / fabs(b); }
+static inline double sup_rel(double a, double b)
+{
+    return fabs(a - b) / fabs(b);
+}
 
 /* max |a_i| (0 for len 0) */
 static inline double sup_max_abs(const double *a, size_t len)

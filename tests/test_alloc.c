@@ -33,8 +33,8 @@ START_TEST(alloc_batched_calls_do_not_allocate)
     mcd_db *db;
     mcd_mixture *mix;
     mcd_workspace *ws;
-    const char *names[6] = {"nitrogen", "oxygen", "carbon-dioxide", "water",
-                            "methane", "argon"};
+    const char *names[6] = {"nitrogen", "oxygen",  "carbon-dioxide",
+                            "water",    "methane", "argon"};
     int st[64], ns = 0, pass, live;
     size_t n, i, j, k;
     double est, e2;
@@ -42,8 +42,10 @@ START_TEST(alloc_batched_calls_do_not_allocate)
 
     ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK);
     ck_assert_int_eq(mcd_mixture_new(db, 6, names, MCD_GAS_FSG, &mix), MCD_OK);
-    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 1, MCD_GAS_CHAPMAN_ENSKOG), MCD_OK);
-    ck_assert_int_eq(mcd_mixture_set_method(mix, 2, 4, MCD_GAS_WILKE_LEE), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 1, MCD_GAS_CHAPMAN_ENSKOG),
+                     MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 2, 4, MCD_GAS_WILKE_LEE),
+                     MCD_OK);
     ck_assert_int_eq(mcd_workspace_new(NBIG, &ws), MCD_OK);
     for (k = 0; k < KC; k++) {
         T[k] = 300.0 + 50.0 * (double)k;
@@ -62,7 +64,8 @@ START_TEST(alloc_batched_calls_do_not_allocate)
                 for (i = 0; i < n; i++) {
                     xsoa[i * KC + k] = 1.0 / (double)n;
                     for (j = 0; j < ND; j++)
-                        gsoa[(i * ND + j) * KC + k] = (double)((i + j + k) % 3) - 1.0;
+                        gsoa[(i * ND + j) * KC + k] =
+                            (double)((i + j + k) % 3) - 1.0;
                     for (j = 0; j < n; j++)
                         Dsoa[(i * n + j) * KC + k] =
                             i == j ? 0.0 : 1e-5 * (1.0 + (double)((i + j) % 7));
@@ -71,17 +74,50 @@ START_TEST(alloc_batched_calls_do_not_allocate)
                     lsoa[j * KC + k] = 0.1;
             }
             for (int model = 0; model < 3; model++) {
-                st[ns++] = mcd_flux_batch_dij(ws, (mcd_model)model, n, M, Dsoa, csoa, &(mcd_cells){.n_cells = KC, .n_dim = ND, .comp_basis = MCD_BASIS_MASS, .comp = xsoa, .grad = gsoa, .grad_lnP = lsoa}, MCD_BASIS_MASS, out);
+                st[ns++] = mcd_flux_batch_dij(
+                    ws, (mcd_model)model, n, M, Dsoa, csoa,
+                    &(mcd_cells){.n_cells = KC,
+                                 .n_dim = ND,
+                                 .comp_basis = MCD_BASIS_MASS,
+                                 .comp = xsoa,
+                                 .grad = gsoa,
+                                 .grad_lnP = lsoa},
+                    MCD_BASIS_MASS, out);
                 if (n == 6) {
-                    st[ns++] = mcd_flux_batch(ws, mix, (mcd_model)model, T, P, &(mcd_cells){.n_cells = KC, .n_dim = ND, .comp_basis = MCD_BASIS_MOLE, .comp = xsoa, .grad = gsoa, .grad_lnP = lsoa}, MCD_BASIS_MASS, out);
-                    st[ns++] = mcd_flux_batch_aos(ws, mix, (mcd_model)model, T, P, &(mcd_cells){.n_cells = KC, .n_dim = ND, .comp_basis = MCD_BASIS_MOLE, .comp = xsoa, .grad = gsoa}, MCD_BASIS_MOLE, out);
+                    st[ns++] = mcd_flux_batch(
+                        ws, mix, (mcd_model)model, T, P,
+                        &(mcd_cells){.n_cells = KC,
+                                     .n_dim = ND,
+                                     .comp_basis = MCD_BASIS_MOLE,
+                                     .comp = xsoa,
+                                     .grad = gsoa,
+                                     .grad_lnP = lsoa},
+                        MCD_BASIS_MASS, out);
+                    st[ns++] = mcd_flux_batch_aos(
+                        ws, mix, (mcd_model)model, T, P,
+                        &(mcd_cells){.n_cells = KC,
+                                     .n_dim = ND,
+                                     .comp_basis = MCD_BASIS_MOLE,
+                                     .comp = xsoa,
+                                     .grad = gsoa},
+                        MCD_BASIS_MOLE, out);
                 }
             }
             if (n > 24)
                 continue; /* single-state LAPACK path: see test_flux_identities */
             for (i = 0; i < n * n; i++)
                 Dcell[i] = Dsoa[i * KC];
-            st[ns++] = mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = n, .n_dim = ND, .M = M, .Dij = Dcell, .c = 40.0, .comp_basis = MCD_BASIS_MOLE, .comp = xsoa, .grad = gsoa}, MCD_BASIS_MOLE, F);
+            st[ns++] =
+                mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
+                                 &(mcd_state){.n_species = n,
+                                              .n_dim = ND,
+                                              .M = M,
+                                              .Dij = Dcell,
+                                              .c = 40.0,
+                                              .comp_basis = MCD_BASIS_MOLE,
+                                              .comp = xsoa,
+                                              .grad = gsoa},
+                                 MCD_BASIS_MOLE, F);
         }
         st[ns++] = mcd_workspace_set_iterative(ws, 50, 1e-9);
         st[ns++] = mcd_workspace_iterative_outcome(ws, &est, &used);
@@ -96,8 +132,9 @@ START_TEST(alloc_batched_calls_do_not_allocate)
     live = sup_alloc_close();
     for (i = 0; i < (size_t)ns; i++)
         ck_assert_int_eq(st[i], MCD_OK);
-    fprintf(stderr, "allocation hook %s; allocations in the window: %ld "
-                    "(the probe included) over %d calls\n",
+    fprintf(stderr,
+            "allocation hook %s; allocations in the window: %ld "
+            "(the probe included) over %d calls\n",
             live ? "live" : "not live", (long)sup_alloc_count, ns);
     if (live)
         ck_assert_int_eq(sup_alloc_count, 1); /* the probe only */

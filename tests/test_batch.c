@@ -43,8 +43,14 @@ static void *xmalloc(size_t b)
 
 static void cells_free(cells *s)
 {
-    free(s->M); free(s->D); free(s->c); free(s->comp); free(s->grad);
-    free(s->glnP); free(s->T); free(s->P);
+    free(s->M);
+    free(s->D);
+    free(s->c);
+    free(s->comp);
+    free(s->grad);
+    free(s->glnP);
+    free(s->T);
+    free(s->P);
 }
 
 /* Random fractions of one cell into y (stride K). kind: 0 uniform, 1
@@ -58,7 +64,10 @@ static void random_fracs(double *y, size_t n, size_t K, size_t k, int kind)
         switch (kind) {
         case 0: v = sup_range(&rng, 0.01, 1.0); break;
         case 1: v = sup_decades(&rng, -8.0, 0.0); break;
-        case 2: v = (sup_next(&rng) % 3 == 0 && i != p) ? 0.0 : sup_u01(&rng) + 1e-3; break;
+        case 2:
+            v = (sup_next(&rng) % 3 == 0 && i != p) ? 0.0
+                                                    : sup_u01(&rng) + 1e-3;
+            break;
         default: v = i == p ? 1.0 : 0.0; break;
         }
         y[i * K + k] = v;
@@ -71,7 +80,9 @@ static void random_fracs(double *y, size_t n, size_t K, size_t k, int kind)
 static void cells_make(cells *s, size_t n, size_t K, size_t nd)
 {
     size_t i, j, k;
-    s->n = n; s->K = K; s->nd = nd;
+    s->n = n;
+    s->K = K;
+    s->nd = nd;
     s->M = xmalloc(n * sizeof(double));
     s->D = xmalloc(n * n * K * sizeof(double));
     s->c = xmalloc(K * sizeof(double));
@@ -120,8 +131,8 @@ static void cells_to_aos(const cells *s, double *ac, double *ag, double *al)
 }
 
 /* Gather cell k into single-state arrays. */
-static void cell_get(const cells *s, size_t k, double *D, double *y,
-                     double *g, double *gl)
+static void cell_get(const cells *s, size_t k, double *D, double *y, double *g,
+                     double *gl)
 {
     size_t n = s->n, K = s->K, i;
     for (i = 0; i < n * n; i++)
@@ -142,8 +153,10 @@ static double cell_rel(const double *out, size_t K, size_t k, const double *F,
     double sc = 0.0, e = 0.0;
     size_t i;
     for (i = 0; i < m; i++) {
-        if (fabs(F[i]) > sc) sc = fabs(F[i]);
-        if (fabs(out[i * K + k] - F[i]) > e) e = fabs(out[i * K + k] - F[i]);
+        if (fabs(F[i]) > sc)
+            sc = fabs(F[i]);
+        if (fabs(out[i * K + k] - F[i]) > e)
+            e = fabs(out[i * K + k] - F[i]);
     }
     return sc > 0.0 ? e / sc : e;
 }
@@ -152,8 +165,8 @@ static double worst_dij, worst_mix;
 
 START_TEST(batch_dij_matches_single_state_calls)
 {
-    static const size_t Ns[] = {1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 12, 15, 16, 17,
-                                20, 24, 25, 29, 30, 100};
+    static const size_t Ns[] = {1,  2,  3,  4,  5,  6,  7,  8,  9,  10,
+                                12, 15, 16, 17, 20, 24, 25, 29, 30, 100};
     static const size_t Ks[] = {0, 1, 7, 8, 9, 37};
     size_t ni, n, K, k, cfg;
     mcd_workspace *ws;
@@ -162,7 +175,7 @@ START_TEST(batch_dij_matches_single_state_calls)
     for (ni = (size_t)_i; ni < sizeof Ns / sizeof Ns[0]; ni += 4) {
         n = Ns[ni];
         for (cfg = 0; cfg < 24; cfg++) {
-            mcd_model model = cfg % 3 == 0 ? MCD_MODEL_MAXWELL_STEFAN
+            mcd_model model = cfg % 3 == 0   ? MCD_MODEL_MAXWELL_STEFAN
                               : cfg % 3 == 1 ? MCD_MODEL_MIXTURE_AVERAGED
                                              : MCD_MODEL_ITERATIVE;
             mcd_basis cb = (cfg / 3) % 2 ? MCD_BASIS_MASS : MCD_BASIS_MOLE;
@@ -178,9 +191,17 @@ START_TEST(batch_dij_matches_single_state_calls)
             out = xmalloc(n * nd * (K + 1) * sizeof(double));
             sup_guard_fill(out, n * nd * (K + 1));
             if (model == MCD_MODEL_ITERATIVE)
-                ck_assert_int_eq(mcd_workspace_set_iterative(ws, 1000, 0.0), MCD_OK);
-            ck_assert_msg(mcd_flux_batch_dij(ws, model, n, s.M, s.D, s.c, &(mcd_cells){.n_cells = K, .n_dim = nd, .comp_basis = cb, .comp = s.comp, .grad = s.grad, .grad_lnP = use_p ? s.glnP : NULL}, fb, out) ==
-                              MCD_OK,
+                ck_assert_int_eq(mcd_workspace_set_iterative(ws, 1000, 0.0),
+                                 MCD_OK);
+            ck_assert_msg(mcd_flux_batch_dij(
+                              ws, model, n, s.M, s.D, s.c,
+                              &(mcd_cells){.n_cells = K,
+                                           .n_dim = nd,
+                                           .comp_basis = cb,
+                                           .comp = s.comp,
+                                           .grad = s.grad,
+                                           .grad_lnP = use_p ? s.glnP : NULL},
+                              fb, out) == MCD_OK,
                           "N=%zu K=%zu: %s", n, K, mcd_last_error());
             /* nothing written past the K cells (K=0 writes nothing) */
             ck_assert(sup_guard_intact(out + n * nd * K, n * nd));
@@ -188,8 +209,20 @@ START_TEST(batch_dij_matches_single_state_calls)
                 double D[100 * 100], y[100], g[300], gl[3], F[300], e;
                 cell_get(&s, k, D, y, g, gl);
                 ck_assert_int_eq(
-                    mcd_flux_compute(ws, model == MCD_MODEL_ITERATIVE
-                                         ? MCD_MODEL_MAXWELL_STEFAN : model, &(mcd_state){.n_species = n, .n_dim = nd, .M = s.M, .Dij = D, .c = s.c[k], .comp_basis = cb, .comp = y, .grad = g, .grad_lnP = use_p ? gl : NULL}, fb, F),
+                    mcd_flux_compute(
+                        ws,
+                        model == MCD_MODEL_ITERATIVE ? MCD_MODEL_MAXWELL_STEFAN
+                                                     : model,
+                        &(mcd_state){.n_species = n,
+                                     .n_dim = nd,
+                                     .M = s.M,
+                                     .Dij = D,
+                                     .c = s.c[k],
+                                     .comp_basis = cb,
+                                     .comp = y,
+                                     .grad = g,
+                                     .grad_lnP = use_p ? gl : NULL},
+                        fb, F),
                     MCD_OK);
                 e = cell_rel(out, K, k, F, n * nd);
                 if (e > worst_dij)
@@ -200,8 +233,8 @@ START_TEST(batch_dij_matches_single_state_calls)
                  * up to 1000 iterations) meets it as well. */
                 ck_assert_msg(e <= 1e-12,
                               "N=%zu model=%d cb=%d fb=%d p=%d cell %zu: rel "
-                              "diff %.3g", n, (int)model, (int)cb, (int)fb,
-                              use_p, k, e);
+                              "diff %.3g",
+                              n, (int)model, (int)cb, (int)fb, use_p, k, e);
             }
             free(out);
             cells_free(&s);
@@ -230,8 +263,7 @@ static mcd_mixture *make_mix(size_t n, int lj)
         names[got++] = mcd_db_name(db, i);
     }
     ck_assert_uint_eq(got, n);
-    ck_assert_int_eq(mcd_mixture_new(db, n, names, MCD_GAS_FSG, &m),
-                     MCD_OK);
+    ck_assert_int_eq(mcd_mixture_new(db, n, names, MCD_GAS_FSG, &m), MCD_OK);
     return m;
 }
 
@@ -258,11 +290,17 @@ START_TEST(batch_mixture_matches_single_state_calls)
             for (j = i + 1; j < n; j++) {
                 int r = (int)((i + 2 * j) % 4);
                 if (r == 1)
-                    ck_assert_int_eq(mcd_mixture_set_method(m, i, j, MCD_GAS_CHAPMAN_ENSKOG), MCD_OK);
+                    ck_assert_int_eq(
+                        mcd_mixture_set_method(m, i, j, MCD_GAS_CHAPMAN_ENSKOG),
+                        MCD_OK);
                 else if (r == 2)
-                    ck_assert_int_eq(mcd_mixture_set_method(m, i, j, MCD_GAS_WILKE_LEE), MCD_OK);
+                    ck_assert_int_eq(
+                        mcd_mixture_set_method(m, i, j, MCD_GAS_WILKE_LEE),
+                        MCD_OK);
                 else if (r == 3)
-                    ck_assert_int_eq(mcd_mixture_set_binary(m, i, j, 1.5e-5, 300.0, 101325.0), MCD_OK);
+                    ck_assert_int_eq(mcd_mixture_set_binary(m, i, j, 1.5e-5,
+                                                            300.0, 101325.0),
+                                     MCD_OK);
             }
         ck_assert_int_eq(mcd_mixture_molar_masses(m, Mm), MCD_OK);
         cells_make(&s, n, K, nd);
@@ -273,40 +311,75 @@ START_TEST(batch_mixture_matches_single_state_calls)
             mcd_basis fb = (pass / 6) % 2 ? MCD_BASIS_MASS : MCD_BASIS_MOLE;
             const double *gl = pass % 2 ? s.glnP : NULL;
             if (model == MCD_MODEL_ITERATIVE)
-                ck_assert_int_eq(mcd_workspace_set_iterative(ws, 1000, 0.0), MCD_OK);
-            ck_assert_msg(mcd_flux_batch(ws, m, model, s.T, s.P, &(mcd_cells){.n_cells = K, .n_dim = nd, .comp_basis = cb, .comp = s.comp, .grad = s.grad, .grad_lnP = gl}, fb, out) == MCD_OK,
+                ck_assert_int_eq(mcd_workspace_set_iterative(ws, 1000, 0.0),
+                                 MCD_OK);
+            ck_assert_msg(mcd_flux_batch(ws, m, model, s.T, s.P,
+                                         &(mcd_cells){.n_cells = K,
+                                                      .n_dim = nd,
+                                                      .comp_basis = cb,
+                                                      .comp = s.comp,
+                                                      .grad = s.grad,
+                                                      .grad_lnP = gl},
+                                         fb, out) == MCD_OK,
                           "%s", mcd_last_error());
-            ck_assert_int_eq(mcd_flux_batch_aos(ws, m, model, s.T, s.P, &(mcd_cells){.n_cells = K, .n_dim = nd, .comp_basis = cb, .comp = ac, .grad = ag, .grad_lnP = gl ? al : NULL}, fb, aos_out), MCD_OK);
+            ck_assert_int_eq(
+                mcd_flux_batch_aos(ws, m, model, s.T, s.P,
+                                   &(mcd_cells){.n_cells = K,
+                                                .n_dim = nd,
+                                                .comp_basis = cb,
+                                                .comp = ac,
+                                                .grad = ag,
+                                                .grad_lnP = gl ? al : NULL},
+                                   fb, aos_out),
+                MCD_OK);
             for (k = 0; k < K; k++) {
                 double D[32 * 32], y[32], g[96], F[96], e;
                 double c = s.P[k] / (MCD_GAS_CONSTANT * s.T[k]);
-                ck_assert_int_eq(mcd_mixture_binaries(m, s.T[k], s.P[k], D, NULL, NULL),
-                                 MCD_OK);
+                ck_assert_int_eq(
+                    mcd_mixture_binaries(m, s.T[k], s.P[k], D, NULL, NULL),
+                    MCD_OK);
                 for (i = 0; i < n; i++)
                     y[i] = s.comp[i * K + k];
                 for (i = 0; i < n * nd; i++)
                     g[i] = s.grad[i * K + k];
-                ck_assert_int_eq(mcd_flux_compute(ws, model == MCD_MODEL_ITERATIVE
-                                                      ? MCD_MODEL_MAXWELL_STEFAN
-                                                      : model, &(mcd_state){.n_species = n, .n_dim = nd, .M = Mm, .Dij = D, .c = c, .comp_basis = cb, .comp = y, .grad = g, .grad_lnP = gl ? al + k * nd : NULL}, fb, F),
-                                 MCD_OK);
+                ck_assert_int_eq(
+                    mcd_flux_compute(
+                        ws,
+                        model == MCD_MODEL_ITERATIVE ? MCD_MODEL_MAXWELL_STEFAN
+                                                     : model,
+                        &(mcd_state){.n_species = n,
+                                     .n_dim = nd,
+                                     .M = Mm,
+                                     .Dij = D,
+                                     .c = c,
+                                     .comp_basis = cb,
+                                     .comp = y,
+                                     .grad = g,
+                                     .grad_lnP = gl ? al + k * nd : NULL},
+                        fb, F),
+                    MCD_OK);
                 e = cell_rel(out, K, k, F, n * nd);
                 if (e > worst_mix)
                     worst_mix = e;
                 /* 1e-12 as above; Đ itself differs only by rounding
                  * (reciprocal coefficients, T^1.75 from square roots) */
-                ck_assert_msg(e <= 1e-12, "N=%zu pass %zu cell %zu: %.3g", n, pass,
-                              k, e);
+                ck_assert_msg(e <= 1e-12, "N=%zu pass %zu cell %zu: %.3g", n,
+                              pass, k, e);
                 /* the AoS path runs the same kernel: identical bits */
                 for (i = 0; i < n * nd; i++)
                     ck_assert(aos_out[k * n * nd + i] == out[i * K + k]);
             }
         }
-        free(out); free(aos_out); free(ac); free(ag); free(al);
+        free(out);
+        free(aos_out);
+        free(ac);
+        free(ag);
+        free(al);
         cells_free(&s);
         mcd_mixture_free(m);
     }
-    fprintf(stderr, "batch_mixture: largest relative difference %.3g\n", worst_mix);
+    fprintf(stderr, "batch_mixture: largest relative difference %.3g\n",
+            worst_mix);
     mcd_workspace_free(ws);
     mcd_db_free(db);
 }
@@ -337,17 +410,35 @@ START_TEST(batch_power_law_mixture_iterative_matches_exact)
         for (i = 0; i < n; i++)
             for (j = i + 1; j < n; j++)
                 if ((i + j) % 3 == 0)
-                    ck_assert_int_eq(mcd_mixture_set_binary(m, i, j, 1.1e-5 + 1e-6 * (double)j,
-                                                            300.0, 101325.0), MCD_OK);
+                    ck_assert_int_eq(mcd_mixture_set_binary(
+                                         m, i, j, 1.1e-5 + 1e-6 * (double)j,
+                                         300.0, 101325.0),
+                                     MCD_OK);
         cells_make(&s, n, K, nd);
         for (pass = 0; pass < 4; pass++) {
             mcd_basis cb = pass % 2 ? MCD_BASIS_MASS : MCD_BASIS_MOLE;
             mcd_basis fb = pass / 2 ? MCD_BASIS_MASS : MCD_BASIS_MOLE;
             const double *gl = pass == 3 ? s.glnP : NULL;
-            ck_assert_int_eq(mcd_flux_batch(ws, m, MCD_MODEL_MAXWELL_STEFAN, s.T, s.P, &(mcd_cells){.n_cells = K, .n_dim = nd, .comp_basis = cb, .comp = s.comp, .grad = s.grad, .grad_lnP = gl}, fb, ex), MCD_OK);
-            ck_assert_int_eq(mcd_workspace_set_iterative(ws, 1000, 0.0), MCD_OK);
-            ck_assert_msg(mcd_flux_batch(ws, m, MCD_MODEL_ITERATIVE, s.T, s.P, &(mcd_cells){.n_cells = K, .n_dim = nd, .comp_basis = cb, .comp = s.comp, .grad = s.grad, .grad_lnP = gl}, fb, it) ==
-                              MCD_OK,
+            ck_assert_int_eq(mcd_flux_batch(ws, m, MCD_MODEL_MAXWELL_STEFAN,
+                                            s.T, s.P,
+                                            &(mcd_cells){.n_cells = K,
+                                                         .n_dim = nd,
+                                                         .comp_basis = cb,
+                                                         .comp = s.comp,
+                                                         .grad = s.grad,
+                                                         .grad_lnP = gl},
+                                            fb, ex),
+                             MCD_OK);
+            ck_assert_int_eq(mcd_workspace_set_iterative(ws, 1000, 0.0),
+                             MCD_OK);
+            ck_assert_msg(mcd_flux_batch(ws, m, MCD_MODEL_ITERATIVE, s.T, s.P,
+                                         &(mcd_cells){.n_cells = K,
+                                                      .n_dim = nd,
+                                                      .comp_basis = cb,
+                                                      .comp = s.comp,
+                                                      .grad = s.grad,
+                                                      .grad_lnP = gl},
+                                         fb, it) == MCD_OK,
                           "%s", mcd_last_error());
             for (k = 0; k < K; k++) {
                 double F[96], e;
@@ -365,7 +456,8 @@ START_TEST(batch_power_law_mixture_iterative_matches_exact)
         cells_free(&s);
         mcd_mixture_free(m);
     }
-    fprintf(stderr, "batch_power_law_iterative: largest relative difference %.3g\n",
+    fprintf(stderr,
+            "batch_power_law_iterative: largest relative difference %.3g\n",
             worst);
     mcd_workspace_free(ws);
     mcd_db_free(db);
@@ -384,53 +476,83 @@ START_TEST(batch_errors_name_the_cell_and_write_nothing_on_argument_errors)
     ck_assert_int_eq(mcd_workspace_new(N - 1, &small), MCD_OK);
     cells_make(&s, N, K, ND);
     sup_guard_fill(out, N * ND * K);
-#define CALL(w, model, n, M_, D_, c_, cb_, x_, g_, fb, o)                     \
-    mcd_flux_batch_dij(w, model, n, M_, D_, c_,                               \
-                       &(mcd_cells){.n_cells = K, .n_dim = ND,                \
-                                    .comp_basis = cb_, .comp = x_,            \
-                                    .grad = g_},                              \
+#define CALL(w, model, n, M_, D_, c_, cb_, x_, g_, fb, o)                      \
+    mcd_flux_batch_dij(w, model, n, M_, D_, c_,                                \
+                       &(mcd_cells){.n_cells = K,                              \
+                                    .n_dim = ND,                               \
+                                    .comp_basis = cb_,                         \
+                                    .comp = x_,                                \
+                                    .grad = g_},                               \
                        fb, o)
-    ck_assert_int_eq(CALL(NULL, 0, N, s.M, s.D, s.c, 0, s.comp, s.grad, 0, out), MCD_EINVAL);
-    ck_assert_int_eq(mcd_flux_batch_dij(ws, 0, N, s.M, s.D, s.c, NULL, 0, out), MCD_EINVAL);
+    ck_assert_int_eq(CALL(NULL, 0, N, s.M, s.D, s.c, 0, s.comp, s.grad, 0, out),
+                     MCD_EINVAL);
+    ck_assert_int_eq(mcd_flux_batch_dij(ws, 0, N, s.M, s.D, s.c, NULL, 0, out),
+                     MCD_EINVAL);
     ck_assert_str_eq(mcd_last_error(), "argument cells: NULL");
-    ck_assert_int_eq(CALL(small, 0, N, s.M, s.D, s.c, 0, s.comp, s.grad, 0, out), MCD_EBADLEN);
-    ck_assert_int_eq(CALL(ws, 0, 0, s.M, s.D, s.c, 0, s.comp, s.grad, 0, out), MCD_EINVAL);
-    ck_assert_int_eq(CALL(ws, (mcd_model)7, N, s.M, s.D, s.c, 0, s.comp, s.grad, 0, out), MCD_EINVAL);
-    ck_assert_int_eq(CALL(ws, 0, N, s.M, s.D, s.c, (mcd_basis)5, s.comp, s.grad, 0, out), MCD_EINVAL);
-    ck_assert_int_eq(CALL(ws, 0, N, s.M, s.D, s.c, 0, s.comp, s.grad, (mcd_basis)5, out), MCD_EINVAL);
-    ck_assert_int_eq(CALL(ws, 0, N, NULL, s.D, s.c, 1, s.comp, s.grad, 0, out), MCD_EINVAL);
-    ck_assert_int_eq(CALL(ws, 0, N, s.M, NULL, s.c, 0, s.comp, s.grad, 0, out), MCD_EINVAL);
-    ck_assert_int_eq(CALL(ws, 0, N, s.M, s.D, NULL, 0, s.comp, s.grad, 0, out), MCD_EINVAL);
-    ck_assert_int_eq(CALL(ws, 0, N, s.M, s.D, s.c, 0, NULL, s.grad, 0, out), MCD_EINVAL);
-    ck_assert_int_eq(CALL(ws, 0, N, s.M, s.D, s.c, 0, s.comp, NULL, 0, out), MCD_EINVAL);
-    ck_assert_int_eq(CALL(ws, 0, N, s.M, s.D, s.c, 0, s.comp, s.grad, 0, NULL), MCD_EINVAL);
+    ck_assert_int_eq(
+        CALL(small, 0, N, s.M, s.D, s.c, 0, s.comp, s.grad, 0, out),
+        MCD_EBADLEN);
+    ck_assert_int_eq(CALL(ws, 0, 0, s.M, s.D, s.c, 0, s.comp, s.grad, 0, out),
+                     MCD_EINVAL);
+    ck_assert_int_eq(
+        CALL(ws, (mcd_model)7, N, s.M, s.D, s.c, 0, s.comp, s.grad, 0, out),
+        MCD_EINVAL);
+    ck_assert_int_eq(
+        CALL(ws, 0, N, s.M, s.D, s.c, (mcd_basis)5, s.comp, s.grad, 0, out),
+        MCD_EINVAL);
+    ck_assert_int_eq(
+        CALL(ws, 0, N, s.M, s.D, s.c, 0, s.comp, s.grad, (mcd_basis)5, out),
+        MCD_EINVAL);
+    ck_assert_int_eq(CALL(ws, 0, N, NULL, s.D, s.c, 1, s.comp, s.grad, 0, out),
+                     MCD_EINVAL);
+    ck_assert_int_eq(CALL(ws, 0, N, s.M, NULL, s.c, 0, s.comp, s.grad, 0, out),
+                     MCD_EINVAL);
+    ck_assert_int_eq(CALL(ws, 0, N, s.M, s.D, NULL, 0, s.comp, s.grad, 0, out),
+                     MCD_EINVAL);
+    ck_assert_int_eq(CALL(ws, 0, N, s.M, s.D, s.c, 0, NULL, s.grad, 0, out),
+                     MCD_EINVAL);
+    ck_assert_int_eq(CALL(ws, 0, N, s.M, s.D, s.c, 0, s.comp, NULL, 0, out),
+                     MCD_EINVAL);
+    ck_assert_int_eq(CALL(ws, 0, N, s.M, s.D, s.c, 0, s.comp, s.grad, 0, NULL),
+                     MCD_EINVAL);
     s.M[2] = -1.0;
-    ck_assert_int_eq(CALL(ws, 0, N, s.M, s.D, s.c, 1, s.comp, s.grad, 0, out), MCD_EDOM);
+    ck_assert_int_eq(CALL(ws, 0, N, s.M, s.D, s.c, 1, s.comp, s.grad, 0, out),
+                     MCD_EDOM);
     s.M[2] = 0.03;
     ck_assert(sup_guard_intact(out, N * ND * K));
     ck_assert_int_eq(mcd_workspace_set_iterative(ws, 0, 1e-8), MCD_EINVAL);
     ck_assert_int_eq(mcd_workspace_set_iterative(ws, 10, -1.0), MCD_EINVAL);
     ck_assert_int_eq(mcd_workspace_set_iterative(ws, 10, NAN), MCD_EINVAL);
     ck_assert_int_eq(mcd_workspace_set_iterative(NULL, 10, 1e-8), MCD_EINVAL);
-    ck_assert_int_eq(mcd_workspace_iterative_outcome(NULL, NULL, NULL), MCD_EINVAL);
+    ck_assert_int_eq(mcd_workspace_iterative_outcome(NULL, NULL, NULL),
+                     MCD_EINVAL);
     ck_assert_int_eq(mcd_workspace_set_threads(NULL, 1), MCD_EINVAL);
 
     /* per-cell errors: status, and the message names the lowest bad cell */
     {
-        struct { double *p; double v; mcd_status st; } bad[] = {
-            {&s.c[9], NAN, MCD_EINVAL}, {&s.c[9], -1.0, MCD_EDOM},
-            {&s.comp[1 * K + 9], -0.1, MCD_EDOM}, {&s.comp[2 * K + 9], NAN, MCD_EINVAL},
-            {&s.comp[0 * K + 9], 3.0, MCD_EDOM}, {&s.grad[3 * K + 9], INFINITY, MCD_EINVAL},
-            {&s.D[(0 * N + 1) * K + 9], 0.0, MCD_EDOM}, {&s.D[(2 * N + 1) * K + 9], NAN, MCD_EINVAL},
+        struct {
+            double *p;
+            double v;
+            mcd_status st;
+        } bad[] = {
+            {&s.c[9], NAN, MCD_EINVAL},
+            {&s.c[9], -1.0, MCD_EDOM},
+            {&s.comp[1 * K + 9], -0.1, MCD_EDOM},
+            {&s.comp[2 * K + 9], NAN, MCD_EINVAL},
+            {&s.comp[0 * K + 9], 3.0, MCD_EDOM},
+            {&s.grad[3 * K + 9], INFINITY, MCD_EINVAL},
+            {&s.D[(0 * N + 1) * K + 9], 0.0, MCD_EDOM},
+            {&s.D[(2 * N + 1) * K + 9], NAN, MCD_EINVAL},
             {&s.D[(1 * N + 3) * K + 9], 1.1e-5, MCD_EDOM} /* asymmetric */,
         };
         for (i = 0; i < sizeof bad / sizeof bad[0]; i++) {
             double keep = *bad[i].p;
             *bad[i].p = bad[i].v;
-            ck_assert_int_eq(CALL(ws, (mcd_model)(i % 3), N, s.M, s.D, s.c, 0, s.comp, s.grad, 0, out),
+            ck_assert_int_eq(CALL(ws, (mcd_model)(i % 3), N, s.M, s.D, s.c, 0,
+                                  s.comp, s.grad, 0, out),
                              bad[i].st);
-            ck_assert_msg(strncmp(mcd_last_error(), "cell 9: ", 8) == 0,
-                          "%s", mcd_last_error());
+            ck_assert_msg(strncmp(mcd_last_error(), "cell 9: ", 8) == 0, "%s",
+                          mcd_last_error());
             /* the same words as the single-state call on that cell */
             {
                 double Dc[N * N], xc[N], gc[N * ND], oc[N * ND];
@@ -443,8 +565,18 @@ START_TEST(batch_errors_name_the_cell_and_write_nothing_on_argument_errors)
                     xc[q] = s.comp[q * K + 9];
                 for (q = 0; q < N * ND; q++)
                     gc[q] = s.grad[q * K + 9];
-                ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = N, .n_dim = ND, .M = s.M, .Dij = Dc, .c = s.c[9], .comp_basis = MCD_BASIS_MOLE, .comp = xc, .grad = gc}, MCD_BASIS_MOLE, oc),
-                                 bad[i].st);
+                ck_assert_int_eq(
+                    mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
+                                     &(mcd_state){.n_species = N,
+                                                  .n_dim = ND,
+                                                  .M = s.M,
+                                                  .Dij = Dc,
+                                                  .c = s.c[9],
+                                                  .comp_basis = MCD_BASIS_MOLE,
+                                                  .comp = xc,
+                                                  .grad = gc},
+                                     MCD_BASIS_MOLE, oc),
+                    bad[i].st);
                 ck_assert_str_eq(batched, mcd_last_error());
             }
             *bad[i].p = keep;
@@ -454,19 +586,68 @@ START_TEST(batch_errors_name_the_cell_and_write_nothing_on_argument_errors)
     ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK);
     {
         mcd_mixture *m = make_mix(N, 0);
-        ck_assert_int_eq(mcd_flux_batch(ws, NULL, 0, s.T, s.P, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = 0, .comp = s.comp, .grad = s.grad}, 0, out), MCD_EINVAL);
-        ck_assert_int_eq(mcd_flux_batch(ws, m, 0, NULL, s.P, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = 0, .comp = s.comp, .grad = s.grad}, 0, out), MCD_EINVAL);
-        ck_assert_int_eq(mcd_flux_batch_aos(ws, m, 0, s.T, NULL, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = 0, .comp = s.comp, .grad = s.grad}, 0, out), MCD_EINVAL);
-        ck_assert_int_eq(mcd_flux_batch(small, m, 0, s.T, s.P, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = 0, .comp = s.comp, .grad = s.grad}, 0, out), MCD_EBADLEN);
+        ck_assert_int_eq(mcd_flux_batch(ws, NULL, 0, s.T, s.P,
+                                        &(mcd_cells){.n_cells = K,
+                                                     .n_dim = ND,
+                                                     .comp_basis = 0,
+                                                     .comp = s.comp,
+                                                     .grad = s.grad},
+                                        0, out),
+                         MCD_EINVAL);
+        ck_assert_int_eq(mcd_flux_batch(ws, m, 0, NULL, s.P,
+                                        &(mcd_cells){.n_cells = K,
+                                                     .n_dim = ND,
+                                                     .comp_basis = 0,
+                                                     .comp = s.comp,
+                                                     .grad = s.grad},
+                                        0, out),
+                         MCD_EINVAL);
+        ck_assert_int_eq(mcd_flux_batch_aos(ws, m, 0, s.T, NULL,
+                                            &(mcd_cells){.n_cells = K,
+                                                         .n_dim = ND,
+                                                         .comp_basis = 0,
+                                                         .comp = s.comp,
+                                                         .grad = s.grad},
+                                            0, out),
+                         MCD_EINVAL);
+        ck_assert_int_eq(mcd_flux_batch(small, m, 0, s.T, s.P,
+                                        &(mcd_cells){.n_cells = K,
+                                                     .n_dim = ND,
+                                                     .comp_basis = 0,
+                                                     .comp = s.comp,
+                                                     .grad = s.grad},
+                                        0, out),
+                         MCD_EBADLEN);
         s.T[4] = -3.0;
-        ck_assert_int_eq(mcd_flux_batch(ws, m, 0, s.T, s.P, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = 0, .comp = s.comp, .grad = s.grad}, 0, out), MCD_EDOM);
+        ck_assert_int_eq(mcd_flux_batch(ws, m, 0, s.T, s.P,
+                                        &(mcd_cells){.n_cells = K,
+                                                     .n_dim = ND,
+                                                     .comp_basis = 0,
+                                                     .comp = s.comp,
+                                                     .grad = s.grad},
+                                        0, out),
+                         MCD_EDOM);
         ck_assert_str_eq(mcd_last_error(), "cell 4: argument T: -3 is not > 0");
         s.T[4] = 400.0;
         s.P[10] = NAN;
-        ck_assert_int_eq(mcd_flux_batch(ws, m, 0, s.T, s.P, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = 0, .comp = s.comp, .grad = s.grad}, 0, out), MCD_EINVAL);
+        ck_assert_int_eq(mcd_flux_batch(ws, m, 0, s.T, s.P,
+                                        &(mcd_cells){.n_cells = K,
+                                                     .n_dim = ND,
+                                                     .comp_basis = 0,
+                                                     .comp = s.comp,
+                                                     .grad = s.grad},
+                                        0, out),
+                         MCD_EINVAL);
         ck_assert_str_eq(mcd_last_error(), "cell 10: argument P: not finite");
         s.P[10] = 1e5;
-        ck_assert_int_eq(mcd_flux_batch(ws, m, 0, s.T, s.P, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = 0, .comp = s.comp, .grad = s.grad}, 0, out), MCD_OK);
+        ck_assert_int_eq(mcd_flux_batch(ws, m, 0, s.T, s.P,
+                                        &(mcd_cells){.n_cells = K,
+                                                     .n_dim = ND,
+                                                     .comp_basis = 0,
+                                                     .comp = s.comp,
+                                                     .grad = s.grad},
+                                        0, out),
+                         MCD_OK);
         mcd_mixture_free(m);
     }
     mcd_db_free(db);
@@ -507,13 +688,30 @@ START_TEST(batch_overflowing_fluxes_are_reported_with_the_cell)
         cell_get(&s, k, Dc, y, g, gl);
         snprintf(want, sizeof want, "cell %zu: result:", k);
         for (model = 0; model <= 1; model++) {
-            mcd_model md = model ? MCD_MODEL_MIXTURE_AVERAGED
-                                 : MCD_MODEL_MAXWELL_STEFAN;
-            ck_assert_int_eq(mcd_flux_compute(ws, md, &(mcd_state){.n_species = N, .n_dim = ND, .M = s.M, .Dij = Dc, .c = s.c[k], .comp_basis = MCD_BASIS_MOLE, .comp = y, .grad = g}, MCD_BASIS_MOLE, J), MCD_EDOM);
-            ck_assert_int_eq(mcd_flux_batch_dij(ws, md, N, s.M, s.D, s.c, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = MCD_BASIS_MOLE, .comp = s.comp, .grad = s.grad}, MCD_BASIS_MOLE, out),
-                             MCD_EDOM);
-            ck_assert_msg(strncmp(mcd_last_error(), want,
-                                  strlen(want)) == 0,
+            mcd_model md =
+                model ? MCD_MODEL_MIXTURE_AVERAGED : MCD_MODEL_MAXWELL_STEFAN;
+            ck_assert_int_eq(
+                mcd_flux_compute(ws, md,
+                                 &(mcd_state){.n_species = N,
+                                              .n_dim = ND,
+                                              .M = s.M,
+                                              .Dij = Dc,
+                                              .c = s.c[k],
+                                              .comp_basis = MCD_BASIS_MOLE,
+                                              .comp = y,
+                                              .grad = g},
+                                 MCD_BASIS_MOLE, J),
+                MCD_EDOM);
+            ck_assert_int_eq(
+                mcd_flux_batch_dij(ws, md, N, s.M, s.D, s.c,
+                                   &(mcd_cells){.n_cells = K,
+                                                .n_dim = ND,
+                                                .comp_basis = MCD_BASIS_MOLE,
+                                                .comp = s.comp,
+                                                .grad = s.grad},
+                                   MCD_BASIS_MOLE, out),
+                MCD_EDOM);
+            ck_assert_msg(strncmp(mcd_last_error(), want, strlen(want)) == 0,
                           "model %d: %s", model, mcd_last_error());
         }
         /* restore an ordinary cell */
@@ -524,8 +722,15 @@ START_TEST(batch_overflowing_fluxes_are_reported_with_the_cell)
         for (i = 0; i < N * ND; i++)
             s.grad[i * K + k] = 0.5;
     }
-    ck_assert_int_eq(mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, N, s.M, s.D, s.c, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = MCD_BASIS_MOLE, .comp = s.comp, .grad = s.grad}, MCD_BASIS_MOLE, out),
-                     MCD_OK);
+    ck_assert_int_eq(
+        mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, N, s.M, s.D, s.c,
+                           &(mcd_cells){.n_cells = K,
+                                        .n_dim = ND,
+                                        .comp_basis = MCD_BASIS_MOLE,
+                                        .comp = s.comp,
+                                        .grad = s.grad},
+                           MCD_BASIS_MOLE, out),
+        MCD_OK);
     for (i = 0; i < N * ND * K; i++)
         ck_assert(isfinite(out[i]));
     cells_free(&s);
@@ -548,9 +753,25 @@ START_TEST(batch_threads_give_identical_results)
     o2 = xmalloc(n * nd * K * sizeof(double));
     for (int model = 0; model < 3; model++) {
         ck_assert_int_eq(mcd_workspace_set_threads(ws, 1), MCD_OK);
-        ck_assert_int_eq(mcd_flux_batch_dij(ws, (mcd_model)model, n, s.M, s.D, s.c, &(mcd_cells){.n_cells = K, .n_dim = nd, .comp_basis = MCD_BASIS_MOLE, .comp = s.comp, .grad = s.grad}, MCD_BASIS_MASS, o1), MCD_OK);
+        ck_assert_int_eq(
+            mcd_flux_batch_dij(ws, (mcd_model)model, n, s.M, s.D, s.c,
+                               &(mcd_cells){.n_cells = K,
+                                            .n_dim = nd,
+                                            .comp_basis = MCD_BASIS_MOLE,
+                                            .comp = s.comp,
+                                            .grad = s.grad},
+                               MCD_BASIS_MASS, o1),
+            MCD_OK);
         ck_assert_int_eq(mcd_workspace_set_threads(ws, 2), MCD_OK);
-        ck_assert_int_eq(mcd_flux_batch_dij(ws, (mcd_model)model, n, s.M, s.D, s.c, &(mcd_cells){.n_cells = K, .n_dim = nd, .comp_basis = MCD_BASIS_MOLE, .comp = s.comp, .grad = s.grad}, MCD_BASIS_MASS, o2), MCD_OK);
+        ck_assert_int_eq(
+            mcd_flux_batch_dij(ws, (mcd_model)model, n, s.M, s.D, s.c,
+                               &(mcd_cells){.n_cells = K,
+                                            .n_dim = nd,
+                                            .comp_basis = MCD_BASIS_MOLE,
+                                            .comp = s.comp,
+                                            .grad = s.grad},
+                               MCD_BASIS_MASS, o2),
+            MCD_OK);
         for (i = 0; i < n * nd * K; i++)
             ck_assert(o1[i] == o2[i]);
     }
@@ -595,31 +816,51 @@ START_TEST(batch_outputs_at_every_line_offset_match_the_aos_path)
             cells_make(&s, n, K, nd);
             cells_to_aos(&s, ac, ag, NULL);
             for (model = 0; model < 2; model++) {
-                const mcd_model md = model ? MCD_MODEL_ITERATIVE
-                                           : MCD_MODEL_MAXWELL_STEFAN;
-                ck_assert_int_eq(mcd_flux_batch_aos(ws, m, md, s.T, s.P, &(mcd_cells){.n_cells = K, .n_dim = nd, .comp_basis = MCD_BASIS_MOLE, .comp = ac, .grad = ag}, MCD_BASIS_MOLE, ref), MCD_OK);
+                const mcd_model md =
+                    model ? MCD_MODEL_ITERATIVE : MCD_MODEL_MAXWELL_STEFAN;
+                ck_assert_int_eq(mcd_flux_batch_aos(
+                                     ws, m, md, s.T, s.P,
+                                     &(mcd_cells){.n_cells = K,
+                                                  .n_dim = nd,
+                                                  .comp_basis = MCD_BASIS_MOLE,
+                                                  .comp = ac,
+                                                  .grad = ag},
+                                     MCD_BASIS_MOLE, ref),
+                                 MCD_OK);
                 for (th = 1; th <= 2; th++)
                     for (off = 0; off < 8; off++) {
                         double *out = buf + 8 + off;
-                        ck_assert_int_eq(mcd_workspace_set_threads(ws, (size_t)th),
-                                         MCD_OK);
+                        ck_assert_int_eq(
+                            mcd_workspace_set_threads(ws, (size_t)th), MCD_OK);
                         sup_guard_fill(buf, tot);
-                        ck_assert_msg(mcd_flux_batch(ws, m, md, s.T, s.P, &(mcd_cells){.n_cells = K, .n_dim = nd, .comp_basis = MCD_BASIS_MOLE, .comp = s.comp, .grad = s.grad}, MCD_BASIS_MOLE, out) == MCD_OK,
-                                      "%s", mcd_last_error());
+                        ck_assert_msg(
+                            mcd_flux_batch(
+                                ws, m, md, s.T, s.P,
+                                &(mcd_cells){.n_cells = K,
+                                             .n_dim = nd,
+                                             .comp_basis = MCD_BASIS_MOLE,
+                                             .comp = s.comp,
+                                             .grad = s.grad},
+                                MCD_BASIS_MOLE, out) == MCD_OK,
+                            "%s", mcd_last_error());
                         ck_assert_msg(sup_guard_intact(buf, 8 + off),
                                       "N=%zu K=%zu offset %u: wrote before "
-                                      "the output", n, K, off);
-                        ck_assert_msg(sup_guard_intact(buf + 8 + off + n * nd * K,
-                                                       tot - (8 + off + n * nd * K)),
-                                      "N=%zu K=%zu offset %u: wrote after "
-                                      "the output", n, K, off);
+                                      "the output",
+                                      n, K, off);
+                        ck_assert_msg(
+                            sup_guard_intact(buf + 8 + off + n * nd * K,
+                                             tot - (8 + off + n * nd * K)),
+                            "N=%zu K=%zu offset %u: wrote after "
+                            "the output",
+                            n, K, off);
                         for (k = 0; k < K; k++)
                             for (i = 0; i < n * nd; i++)
-                                ck_assert_msg(out[i * K + k] == ref[k * n * nd + i],
-                                              "N=%zu K=%zu offset %u threads %d "
-                                              "cell %zu row %zu: %.17g vs %.17g",
-                                              n, K, off, th, k, i, out[i * K + k],
-                                              ref[k * n * nd + i]);
+                                ck_assert_msg(
+                                    out[i * K + k] == ref[k * n * nd + i],
+                                    "N=%zu K=%zu offset %u threads %d "
+                                    "cell %zu row %zu: %.17g vs %.17g",
+                                    n, K, off, th, k, i, out[i * K + k],
+                                    ref[k * n * nd + i]);
                     }
             }
             free(buf);
@@ -642,7 +883,8 @@ int main(void)
     tcase_add_loop_test(tc, batch_dij_matches_single_state_calls, 0, 4);
     tcase_add_test(tc, batch_mixture_matches_single_state_calls);
     tcase_add_test(tc, batch_power_law_mixture_iterative_matches_exact);
-    tcase_add_test(tc, batch_errors_name_the_cell_and_write_nothing_on_argument_errors);
+    tcase_add_test(
+        tc, batch_errors_name_the_cell_and_write_nothing_on_argument_errors);
     tcase_add_test(tc, batch_overflowing_fluxes_are_reported_with_the_cell);
     tcase_add_test(tc, batch_threads_give_identical_results);
     tcase_add_test(tc, batch_outputs_at_every_line_offset_match_the_aos_path);

@@ -37,7 +37,8 @@ START_TEST(binary_fsg_constant_matches_published_forms)
     /* Same equation, only unit conversions differ: round-off only. */
     ck_assert_double_eq_tol(D / d_atm, 1.0, 1e-12);
     double MAB = 2.0 / (1 / MAg + 1 / MBg);
-    double d_bar = 0.00143 * pow(T, 1.75) / ((P / 1e5) * sqrt(MAB) * S * S) * 1e-4;
+    double d_bar =
+        0.00143 * pow(T, 1.75) / ((P / 1e5) * sqrt(MAB) * S * S) * 1e-4;
     /* 0.00143 is 1e-3 sqrt(2) 1.01325 = 0.0014330 rounded to 3 digits:
      * 0.21 % apart, so 0.3 %. */
     ck_assert_double_eq_tol(D / d_bar, 1.0, 3e-3);
@@ -56,12 +57,14 @@ START_TEST(binary_fsg_reproduces_worked_example)
      * 0.0975 cm^2/s, Lugg 1968). The printed estimate has two digits:
      * half a unit of the last digit is 0.5 %, so 1 %. */
     double D = SUP_GUARD;
-    ck_assert_int_eq(mcd_binary_fsg(298.0, 1e5, 76.53e-3, 28.97e-3, 80.25, 19.7, &D),
-                     MCD_OK);
+    ck_assert_int_eq(
+        mcd_binary_fsg(298.0, 1e5, 76.53e-3, 28.97e-3, 80.25, 19.7, &D),
+        MCD_OK);
     ck_assert_double_eq_tol(D / 0.096e-4, 1.0, 0.01);
     /* And the experimental value within the method's typical error x 3
      * (documented bound, see test_binary_experimental.c). */
-    ck_assert_double_le(sup_rel(D, 0.0975e-4), 3 * mcd_method_typical_error(MCD_METHOD_FSG));
+    ck_assert_double_le(sup_rel(D, 0.0975e-4),
+                        3 * mcd_method_typical_error(MCD_METHOD_FSG));
 }
 END_TEST
 
@@ -73,18 +76,20 @@ START_TEST(binary_chapman_enskog_constant_is_0_00266)
     double T = 400.0, P = 2.0e5, MA = 0.032, MB = 0.044;
     double sA = 3.467e-10, sB = 3.941e-10, eA = 106.7, eB = 195.2;
     double D = SUP_GUARD, om = SUP_GUARD;
-    ck_assert_int_eq(mcd_binary_chapman_enskog(T, P, MA, MB, sA, sB, eA, eB, &D), MCD_OK);
+    ck_assert_int_eq(
+        mcd_binary_chapman_enskog(T, P, MA, MB, sA, sB, eA, eB, &D), MCD_OK);
     ck_assert_int_eq(mcd_binary_omega_d(T / sqrt(eA * eB), &om), MCD_OK);
     double MAB = 2.0 / (1 / (1000 * MA) + 1 / (1000 * MB));
     double sig_A = 0.5 * (sA + sB) * 1e10;
-    double k = D * 1e4 * (P / 1e5) * sqrt(MAB) * sig_A * sig_A * om / pow(T, 1.5);
+    double k =
+        D * 1e4 * (P / 1e5) * sqrt(MAB) * sig_A * sig_A * om / pow(T, 1.5);
     /* 0.00266 has 3 digits; the derived value is 0.0026628: 0.1 %; 0.2 %. */
     ck_assert_double_eq_tol(k / 0.00266, 1.0, 2e-3);
     /* First-principles value (3/16) sqrt(4 pi k^3 N_A / 1e-3) / pi in the
      * same units, computed here independently: agreement to round-off. */
     double kb = 1.380649e-23, na = 6.02214076e23, pi = 3.14159265358979323846;
-    double k_exact = 3.0 / 16.0 * sqrt(4 * pi * kb * kb * kb * na / 1e-3) / pi
-                     / (1e5 * 1e-20) * 1e4;
+    double k_exact = 3.0 / 16.0 * sqrt(4 * pi * kb * kb * kb * na / 1e-3) / pi /
+                     (1e5 * 1e-20) * 1e4;
     ck_assert_double_eq_tol(k / k_exact, 1.0, 1e-12);
 }
 END_TEST
@@ -95,7 +100,8 @@ START_TEST(binary_wilke_lee_matches_published_form)
     double T = 310.0, P = 101325.0, MA = 0.07811, MB = 0.02897;
     double sA = 5.349e-10, sB = 3.711e-10, eA = 412.3, eB = 78.6;
     double D = SUP_GUARD, om = SUP_GUARD;
-    ck_assert_int_eq(mcd_binary_wilke_lee(T, P, MA, MB, sA, sB, eA, eB, &D), MCD_OK);
+    ck_assert_int_eq(mcd_binary_wilke_lee(T, P, MA, MB, sA, sB, eA, eB, &D),
+                     MCD_OK);
     ck_assert_int_eq(mcd_binary_omega_d(T / sqrt(eA * eB), &om), MCD_OK);
     double MAB = 2.0 / (1 / (1000 * MA) + 1 / (1000 * MB));
     double sg = 0.5 * (sA + sB) * 1e10;
@@ -106,7 +112,8 @@ START_TEST(binary_wilke_lee_matches_published_form)
     /* Wilke-Lee exceeds plain Chapman-Enskog by (3.03 - 0.98/MAB^.5)/2.66
      * (Mab ~ 42 g/mol): both from the same Omega_D and sigma. */
     double Dce = SUP_GUARD;
-    ck_assert_int_eq(mcd_binary_chapman_enskog(T, P, MA, MB, sA, sB, eA, eB, &Dce), MCD_OK);
+    ck_assert_int_eq(
+        mcd_binary_chapman_enskog(T, P, MA, MB, sA, sB, eA, eB, &Dce), MCD_OK);
     ck_assert_double_eq_tol(D / Dce, (3.03 - 0.98 / sqrt(MAB)) / 2.6628, 1e-3);
 }
 END_TEST
@@ -117,9 +124,11 @@ START_TEST(binary_wilke_chang_matches_published_form)
      * cm^2/s. Water (phi 2.6, 18.015 g/mol, 0.8900 cP at 25 C) and a solute
      * with V_A = 96.0 cm^3/mol. */
     double D = SUP_GUARD;
-    ck_assert_int_eq(mcd_binary_wilke_chang(298.15, 0.8900e-3, 18.015e-3, 2.6, 96.0e-6, &D),
-                     MCD_OK);
-    double d = 7.4e-8 * sqrt(2.6 * 18.015) * 298.15 / (0.8900 * pow(96.0, 0.6)) * 1e-4;
+    ck_assert_int_eq(
+        mcd_binary_wilke_chang(298.15, 0.8900e-3, 18.015e-3, 2.6, 96.0e-6, &D),
+        MCD_OK);
+    double d =
+        7.4e-8 * sqrt(2.6 * 18.015) * 298.15 / (0.8900 * pow(96.0, 0.6)) * 1e-4;
     ck_assert_double_eq_tol(D / d, 1.0, 1e-12);
 }
 END_TEST
@@ -143,8 +152,8 @@ START_TEST(binary_omega_d_matches_tables)
     for (size_t i = 0; i < sizeof hcb / sizeof hcb[0]; i++) {
         double om = SUP_GUARD;
         ck_assert_int_eq(mcd_binary_omega_d(hcb[i][0], &om), MCD_OK);
-        ck_assert_msg(sup_rel(om, hcb[i][1]) < 5e-3, "T*=%g: %g vs %g", hcb[i][0], om,
-                      hcb[i][1]);
+        ck_assert_msg(sup_rel(om, hcb[i][1]) < 5e-3, "T*=%g: %g vs %g",
+                      hcb[i][0], om, hcb[i][1]);
         if (hcb[i][0] >= 0.5)
             ck_assert_msg(sup_rel(om, hcb[i][1]) < 1.5e-3, "T*=%g", hcb[i][0]);
     }
@@ -152,14 +161,14 @@ START_TEST(binary_omega_d_matches_tables)
      * Monchick and Mason (1961). Largest measured deviation 0.25 % at the
      * end of the fit range (T* = 100), below 0.1 % elsewhere: bound 0.3 %. */
     static const double bsl[][2] = {
-        {0.30, 2.649}, {1.00, 1.440}, {3.0, 0.9500}, {5.0, 0.8428},
+        {0.30, 2.649},  {1.00, 1.440},  {3.0, 0.9500},  {5.0, 0.8428},
         {10.0, 0.7422}, {20.0, 0.6640}, {50.0, 0.5763}, {100.0, 0.5180},
     };
     for (size_t i = 0; i < sizeof bsl / sizeof bsl[0]; i++) {
         double om = SUP_GUARD;
         ck_assert_int_eq(mcd_binary_omega_d(bsl[i][0], &om), MCD_OK);
-        ck_assert_msg(sup_rel(om, bsl[i][1]) < 3e-3, "T*=%g: %g vs %g", bsl[i][0], om,
-                      bsl[i][1]);
+        ck_assert_msg(sup_rel(om, bsl[i][1]) < 3e-3, "T*=%g: %g vs %g",
+                      bsl[i][0], om, bsl[i][1]);
     }
 }
 END_TEST
@@ -185,22 +194,33 @@ START_TEST(binary_raw_methods_are_symmetric)
 {
     sup_seed(&rng, 20240601);
     for (int k = 0; k < 2000; k++) {
-        double T = sup_exp_range(&rng, 50, 3000), P = sup_exp_range(&rng, 1e3, 1e7);
-        double MA = sup_exp_range(&rng, 2e-3, 0.3), MB = sup_exp_range(&rng, 2e-3, 0.3);
-        double VA = sup_exp_range(&rng, 2, 300), VB = sup_exp_range(&rng, 2, 300);
-        double sA = sup_range(&rng, 2.5e-10, 7e-10), sB = sup_range(&rng, 2.5e-10, 7e-10);
-        double eA = sup_exp_range(&rng, 10, 800), eB = sup_exp_range(&rng, 10, 800);
+        double T = sup_exp_range(&rng, 50, 3000),
+               P = sup_exp_range(&rng, 1e3, 1e7);
+        double MA = sup_exp_range(&rng, 2e-3, 0.3),
+               MB = sup_exp_range(&rng, 2e-3, 0.3);
+        double VA = sup_exp_range(&rng, 2, 300),
+               VB = sup_exp_range(&rng, 2, 300);
+        double sA = sup_range(&rng, 2.5e-10, 7e-10),
+               sB = sup_range(&rng, 2.5e-10, 7e-10);
+        double eA = sup_exp_range(&rng, 10, 800),
+               eB = sup_exp_range(&rng, 10, 800);
         double d1, d2;
         /* Each formula combines A and B by commutative IEEE operations
          * (a+b, a*b), so swapping them gives the identical double. */
         ck_assert_int_eq(mcd_binary_fsg(T, P, MA, MB, VA, VB, &d1), MCD_OK);
         ck_assert_int_eq(mcd_binary_fsg(T, P, MB, MA, VB, VA, &d2), MCD_OK);
         ck_assert(d1 == d2);
-        ck_assert_int_eq(mcd_binary_chapman_enskog(T, P, MA, MB, sA, sB, eA, eB, &d1), MCD_OK);
-        ck_assert_int_eq(mcd_binary_chapman_enskog(T, P, MB, MA, sB, sA, eB, eA, &d2), MCD_OK);
+        ck_assert_int_eq(
+            mcd_binary_chapman_enskog(T, P, MA, MB, sA, sB, eA, eB, &d1),
+            MCD_OK);
+        ck_assert_int_eq(
+            mcd_binary_chapman_enskog(T, P, MB, MA, sB, sA, eB, eA, &d2),
+            MCD_OK);
         ck_assert(d1 == d2);
-        ck_assert_int_eq(mcd_binary_wilke_lee(T, P, MA, MB, sA, sB, eA, eB, &d1), MCD_OK);
-        ck_assert_int_eq(mcd_binary_wilke_lee(T, P, MB, MA, sB, sA, eB, eA, &d2), MCD_OK);
+        ck_assert_int_eq(
+            mcd_binary_wilke_lee(T, P, MA, MB, sA, sB, eA, eB, &d1), MCD_OK);
+        ck_assert_int_eq(
+            mcd_binary_wilke_lee(T, P, MB, MA, sB, sA, eB, eA, &d2), MCD_OK);
         ck_assert(d1 == d2);
     }
 }
@@ -210,22 +230,33 @@ START_TEST(binary_gas_methods_scale_exactly_with_pressure_and_fsg_with_t175)
 {
     sup_seed(&rng, 777);
     for (int k = 0; k < 2000; k++) {
-        double T = sup_exp_range(&rng, 100, 2000), P = sup_exp_range(&rng, 1e3, 1e7);
+        double T = sup_exp_range(&rng, 100, 2000),
+               P = sup_exp_range(&rng, 1e3, 1e7);
         double f = sup_exp_range(&rng, 0.01, 100);
-        double MA = sup_exp_range(&rng, 2e-3, 0.3), MB = sup_exp_range(&rng, 2e-3, 0.3);
-        double VA = sup_exp_range(&rng, 2, 300), VB = sup_exp_range(&rng, 2, 300);
-        double sA = sup_range(&rng, 2.5e-10, 7e-10), sB = sup_range(&rng, 2.5e-10, 7e-10);
-        double eA = sup_exp_range(&rng, 10, 800), eB = sup_exp_range(&rng, 10, 800);
+        double MA = sup_exp_range(&rng, 2e-3, 0.3),
+               MB = sup_exp_range(&rng, 2e-3, 0.3);
+        double VA = sup_exp_range(&rng, 2, 300),
+               VB = sup_exp_range(&rng, 2, 300);
+        double sA = sup_range(&rng, 2.5e-10, 7e-10),
+               sB = sup_range(&rng, 2.5e-10, 7e-10);
+        double eA = sup_exp_range(&rng, 10, 800),
+               eB = sup_exp_range(&rng, 10, 800);
         double a, b;
         /* D P is independent of P: one division each, a few ulp. */
         ck_assert_int_eq(mcd_binary_fsg(T, P, MA, MB, VA, VB, &a), MCD_OK);
         ck_assert_int_eq(mcd_binary_fsg(T, f * P, MA, MB, VA, VB, &b), MCD_OK);
         ck_assert_double_eq_tol(b * f / a, 1.0, 1e-14);
-        ck_assert_int_eq(mcd_binary_chapman_enskog(T, P, MA, MB, sA, sB, eA, eB, &a), MCD_OK);
-        ck_assert_int_eq(mcd_binary_chapman_enskog(T, f * P, MA, MB, sA, sB, eA, eB, &b), MCD_OK);
+        ck_assert_int_eq(
+            mcd_binary_chapman_enskog(T, P, MA, MB, sA, sB, eA, eB, &a),
+            MCD_OK);
+        ck_assert_int_eq(
+            mcd_binary_chapman_enskog(T, f * P, MA, MB, sA, sB, eA, eB, &b),
+            MCD_OK);
         ck_assert_double_eq_tol(b * f / a, 1.0, 1e-14);
-        ck_assert_int_eq(mcd_binary_wilke_lee(T, P, MA, MB, sA, sB, eA, eB, &a), MCD_OK);
-        ck_assert_int_eq(mcd_binary_wilke_lee(T, f * P, MA, MB, sA, sB, eA, eB, &b), MCD_OK);
+        ck_assert_int_eq(mcd_binary_wilke_lee(T, P, MA, MB, sA, sB, eA, eB, &a),
+                         MCD_OK);
+        ck_assert_int_eq(
+            mcd_binary_wilke_lee(T, f * P, MA, MB, sA, sB, eA, eB, &b), MCD_OK);
         ck_assert_double_eq_tol(b * f / a, 1.0, 1e-14);
         /* FSG: D ~ T^1.75 exactly; pow() of T and of the ratio: 1e-13. */
         double g = sup_exp_range(&rng, 0.2, 5.0);
@@ -258,7 +289,8 @@ static const struct {
 
 START_TEST(binary_raw_bad_inputs_leave_output_untouched)
 {
-    const double good8[8] = {300.0, 1e5, 0.028, 0.032, 3.7e-10, 3.4e-10, 90.0, 110.0};
+    const double good8[8] = {300.0,   1e5,     0.028, 0.032,
+                             3.7e-10, 3.4e-10, 90.0,  110.0};
     for (size_t b = 0; b < N_BAD; b++) {
         for (int arg = 0; arg < 8; arg++) {
             double a[8], D = SUP_GUARD;
@@ -266,18 +298,24 @@ START_TEST(binary_raw_bad_inputs_leave_output_untouched)
             a[arg] = bad[b].v;
             if (arg < 6) {
                 /* FSG: T, P, MA, MB, VA, VB (volumes reuse slots 4, 5). */
-                double f[6] = {a[0], a[1], a[2], a[3], arg == 4 ? a[4] : 18.5,
+                double f[6] = {a[0],
+                               a[1],
+                               a[2],
+                               a[3],
+                               arg == 4 ? a[4] : 18.5,
                                arg == 5 ? a[5] : 16.3};
-                ck_assert_int_eq(mcd_binary_fsg(f[0], f[1], f[2], f[3], f[4], f[5], &D),
-                                 bad[b].st);
+                ck_assert_int_eq(
+                    mcd_binary_fsg(f[0], f[1], f[2], f[3], f[4], f[5], &D),
+                    bad[b].st);
                 ck_assert(D == SUP_GUARD);
             }
-            ck_assert_int_eq(mcd_binary_chapman_enskog(a[0], a[1], a[2], a[3], a[4], a[5],
-                                                    a[6], a[7], &D),
+            ck_assert_int_eq(mcd_binary_chapman_enskog(a[0], a[1], a[2], a[3],
+                                                       a[4], a[5], a[6], a[7],
+                                                       &D),
                              bad[b].st);
             ck_assert(D == SUP_GUARD);
-            ck_assert_int_eq(mcd_binary_wilke_lee(a[0], a[1], a[2], a[3], a[4], a[5], a[6],
-                                               a[7], &D),
+            ck_assert_int_eq(mcd_binary_wilke_lee(a[0], a[1], a[2], a[3], a[4],
+                                                  a[5], a[6], a[7], &D),
                              bad[b].st);
             ck_assert(D == SUP_GUARD);
         }
@@ -286,14 +324,16 @@ START_TEST(binary_raw_bad_inputs_leave_output_untouched)
             double a[5], D = SUP_GUARD;
             memcpy(a, good5, sizeof a);
             a[arg] = bad[b].v;
-            ck_assert_int_eq(mcd_binary_wilke_chang(a[0], a[1], a[2], a[3], a[4], &D),
-                             bad[b].st);
+            ck_assert_int_eq(
+                mcd_binary_wilke_chang(a[0], a[1], a[2], a[3], a[4], &D),
+                bad[b].st);
             ck_assert(D == SUP_GUARD);
             /* mcd_binary_scale: D_ref, T_ref, P_ref, T, P. */
             double s[5] = {1e-5, 300, 1e5, 350, 2e5};
             s[arg] = bad[b].v;
-            ck_assert_int_eq(mcd_binary_scale(s[0], s[1], s[2], s[3], s[4], 1.75, &D),
-                             bad[b].st);
+            ck_assert_int_eq(
+                mcd_binary_scale(s[0], s[1], s[2], s[3], s[4], 1.75, &D),
+                bad[b].st);
             ck_assert(D == SUP_GUARD);
         }
         double om = SUP_GUARD;
@@ -302,19 +342,27 @@ START_TEST(binary_raw_bad_inputs_leave_output_untouched)
     }
     /* NULL outputs and a non-finite exponent. */
     double D = SUP_GUARD;
-    ck_assert_int_eq(mcd_binary_fsg(300, 1e5, 0.028, 0.032, 18.5, 16.3, NULL), MCD_EINVAL);
-    ck_assert_int_eq(mcd_binary_chapman_enskog(300, 1e5, .028, .032, 3e-10, 3e-10, 90, 90, NULL),
+    ck_assert_int_eq(mcd_binary_fsg(300, 1e5, 0.028, 0.032, 18.5, 16.3, NULL),
                      MCD_EINVAL);
-    ck_assert_int_eq(mcd_binary_wilke_lee(300, 1e5, .028, .032, 3e-10, 3e-10, 90, 90, NULL),
+    ck_assert_int_eq(mcd_binary_chapman_enskog(300, 1e5, .028, .032, 3e-10,
+                                               3e-10, 90, 90, NULL),
                      MCD_EINVAL);
-    ck_assert_int_eq(mcd_binary_wilke_chang(298, 1e-3, .018, 2.6, 1e-4, NULL), MCD_EINVAL);
+    ck_assert_int_eq(
+        mcd_binary_wilke_lee(300, 1e5, .028, .032, 3e-10, 3e-10, 90, 90, NULL),
+        MCD_EINVAL);
+    ck_assert_int_eq(mcd_binary_wilke_chang(298, 1e-3, .018, 2.6, 1e-4, NULL),
+                     MCD_EINVAL);
     ck_assert_int_eq(mcd_binary_omega_d(1.0, NULL), MCD_EINVAL);
-    ck_assert_int_eq(mcd_binary_scale(1e-5, 300, 1e5, 300, 1e5, 1.75, NULL), MCD_EINVAL);
-    ck_assert_int_eq(mcd_binary_scale(1e-5, 300, 1e5, 300, 1e5, NAN, &D), MCD_EINVAL);
-    ck_assert_int_eq(mcd_binary_scale(1e-5, 300, 1e5, 300, 1e5, INFINITY, &D), MCD_EINVAL);
+    ck_assert_int_eq(mcd_binary_scale(1e-5, 300, 1e5, 300, 1e5, 1.75, NULL),
+                     MCD_EINVAL);
+    ck_assert_int_eq(mcd_binary_scale(1e-5, 300, 1e5, 300, 1e5, NAN, &D),
+                     MCD_EINVAL);
+    ck_assert_int_eq(mcd_binary_scale(1e-5, 300, 1e5, 300, 1e5, INFINITY, &D),
+                     MCD_EINVAL);
     ck_assert(D == SUP_GUARD);
     /* A zero or negative exponent is allowed. */
-    ck_assert_int_eq(mcd_binary_scale(1e-5, 300, 1e5, 600, 1e5, 0.0, &D), MCD_OK);
+    ck_assert_int_eq(mcd_binary_scale(1e-5, 300, 1e5, 600, 1e5, 0.0, &D),
+                     MCD_OK);
     ck_assert_double_eq_tol(D, 1e-5, 1e-20);
 }
 END_TEST
@@ -326,8 +374,8 @@ END_TEST
 START_TEST(binary_method_names_round_trip)
 {
     static const mcd_method all[] = {MCD_METHOD_FSG, MCD_METHOD_CHAPMAN_ENSKOG,
-                                     MCD_METHOD_WILKE_LEE, MCD_METHOD_WILKE_CHANG,
-                                     MCD_METHOD_USER};
+                                     MCD_METHOD_WILKE_LEE,
+                                     MCD_METHOD_WILKE_CHANG, MCD_METHOD_USER};
     static const char *const names[] = {"fsg", "chapman-enskog", "wilke-lee",
                                         "wilke-chang", "user"};
     for (size_t i = 0; i < 5; i++) {
@@ -369,10 +417,10 @@ END_TEST
 
 START_TEST(binary_warning_strings_cover_each_bit)
 {
-    static const unsigned bits[] = {MCD_WARN_HIGH_PRESSURE, MCD_WARN_POLAR,
-                                    MCD_WARN_TEMPERATURE,   MCD_WARN_QUANTUM,
-                                    MCD_WARN_ASSOCIATING,   MCD_WARN_ESTIMATED_PARAM,
-                                    MCD_WARN_SCALED};
+    static const unsigned bits[] = {
+        MCD_WARN_HIGH_PRESSURE, MCD_WARN_POLAR,       MCD_WARN_TEMPERATURE,
+        MCD_WARN_QUANTUM,       MCD_WARN_ASSOCIATING, MCD_WARN_ESTIMATED_PARAM,
+        MCD_WARN_SCALED};
     for (size_t i = 0; i < 7; i++) {
         const char *s = mcd_warning_string(bits[i]);
         ck_assert_ptr_nonnull(s);
@@ -391,13 +439,21 @@ END_TEST
 /* ------------------------------------------------------------------ */
 
 static mcd_db *db;
-static void db_setup(void) { ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK); }
-static void db_teardown(void) { mcd_db_free(db); db = NULL; }
+static void db_setup(void)
+{
+    ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK);
+}
+static void db_teardown(void)
+{
+    mcd_db_free(db);
+    db = NULL;
+}
 
 static size_t idx(const char *name)
 {
     size_t i = (size_t)-1;
-    ck_assert_msg(mcd_db_find(db, name, &i) == MCD_OK, "species %s missing", name);
+    ck_assert_msg(mcd_db_find(db, name, &i) == MCD_OK, "species %s missing",
+                  name);
     return i;
 }
 
@@ -410,46 +466,58 @@ static double par(size_t i, mcd_param p)
 
 START_TEST(binary_gas_from_db_equals_raw_and_is_symmetric)
 {
-    const char *names[] = {"nitrogen", "carbon-dioxide", "hydrogen", "argon", "methane"};
+    const char *names[] = {"nitrogen", "carbon-dioxide", "hydrogen", "argon",
+                           "methane"};
     for (size_t a = 0; a < 5; a++) {
         for (size_t b = 0; b < 5; b++) {
             size_t ia = idx(names[a]), ib = idx(names[b]);
             double T = 250 + 60 * (double)a, P = 5e4 + 2e4 * (double)b;
             double d1 = SUP_GUARD, d2 = SUP_GUARD, r, raw;
             unsigned w1, w2;
-            ck_assert_int_eq(mcd_db_binary_gas(db, ia, ib, MCD_GAS_FSG, T, P, &d1, &r, &w1),
-                             MCD_OK);
-            ck_assert_int_eq(mcd_db_binary_gas(db, ib, ia, MCD_GAS_FSG, T, P, &d2, NULL, &w2),
+            ck_assert_int_eq(
+                mcd_db_binary_gas(db, ia, ib, MCD_GAS_FSG, T, P, &d1, &r, &w1),
+                MCD_OK);
+            ck_assert_int_eq(mcd_db_binary_gas(db, ib, ia, MCD_GAS_FSG, T, P,
+                                               &d2, NULL, &w2),
                              MCD_OK);
             ck_assert(d1 == d2);
             ck_assert_uint_eq(w1, w2);
             ck_assert(r == mcd_method_typical_error(MCD_METHOD_FSG));
             ck_assert_int_eq(mcd_binary_fsg(T, P, par(ia, MCD_PARAM_MOLAR_MASS),
-                                         par(ib, MCD_PARAM_MOLAR_MASS),
-                                         par(ia, MCD_PARAM_DIFF_VOLUME),
-                                         par(ib, MCD_PARAM_DIFF_VOLUME), &raw),
+                                            par(ib, MCD_PARAM_MOLAR_MASS),
+                                            par(ia, MCD_PARAM_DIFF_VOLUME),
+                                            par(ib, MCD_PARAM_DIFF_VOLUME),
+                                            &raw),
                              MCD_OK);
             ck_assert_double_eq_tol(d1 / raw, 1.0, 1e-14);
-            for (int m = MCD_METHOD_CHAPMAN_ENSKOG; m <= MCD_METHOD_WILKE_LEE; m++) {
+            for (int m = MCD_METHOD_CHAPMAN_ENSKOG; m <= MCD_METHOD_WILKE_LEE;
+                 m++) {
                 double s[2] = {NAN, NAN}, e[2] = {NAN, NAN};
                 size_t ii[2] = {ia, ib};
                 int tab = 1;
                 for (int q = 0; q < 2; q++)
-                    tab &= mcd_db_param(db, ii[q], MCD_PARAM_LJ_SIGMA, &s[q]) == MCD_OK &&
-                           mcd_db_param(db, ii[q], MCD_PARAM_LJ_EPS_K, &e[q]) == MCD_OK;
-                ck_assert_int_eq(mcd_db_binary_gas(db, ia, ib, (mcd_gas_method)m, T, P, &d1, NULL,
-                                                 NULL),
+                    tab &= mcd_db_param(db, ii[q], MCD_PARAM_LJ_SIGMA, &s[q]) ==
+                               MCD_OK &&
+                           mcd_db_param(db, ii[q], MCD_PARAM_LJ_EPS_K, &e[q]) ==
+                               MCD_OK;
+                ck_assert_int_eq(mcd_db_binary_gas(db, ia, ib,
+                                                   (mcd_gas_method)m, T, P, &d1,
+                                                   NULL, NULL),
                                  MCD_OK);
-                ck_assert_int_eq(mcd_db_binary_gas(db, ib, ia, (mcd_gas_method)m, T, P, &d2, NULL,
-                                                 NULL),
+                ck_assert_int_eq(mcd_db_binary_gas(db, ib, ia,
+                                                   (mcd_gas_method)m, T, P, &d2,
+                                                   NULL, NULL),
                                  MCD_OK);
                 ck_assert(d1 == d2);
                 if (tab) {
-                    double M0 = par(ia, MCD_PARAM_MOLAR_MASS), M1 = par(ib, MCD_PARAM_MOLAR_MASS);
+                    double M0 = par(ia, MCD_PARAM_MOLAR_MASS),
+                           M1 = par(ib, MCD_PARAM_MOLAR_MASS);
                     if (m == MCD_METHOD_CHAPMAN_ENSKOG)
-                        mcd_binary_chapman_enskog(T, P, M0, M1, s[0], s[1], e[0], e[1], &raw);
+                        mcd_binary_chapman_enskog(T, P, M0, M1, s[0], s[1],
+                                                  e[0], e[1], &raw);
                     else
-                        mcd_binary_wilke_lee(T, P, M0, M1, s[0], s[1], e[0], e[1], &raw);
+                        mcd_binary_wilke_lee(T, P, M0, M1, s[0], s[1], e[0],
+                                             e[1], &raw);
                     ck_assert_double_eq_tol(d1 / raw, 1.0, 1e-14);
                 }
             }
@@ -465,45 +533,58 @@ START_TEST(binary_gas_warnings_follow_documented_rules)
     double D;
     unsigned w;
     /* Air gases at ambient conditions: no warning. */
-    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_GAS_FSG, 300, MCD_ATM, &D, NULL, &w),
-                     MCD_OK);
+    ck_assert_int_eq(
+        mcd_db_binary_gas(db, n2, o2, MCD_GAS_FSG, 300, MCD_ATM, &D, NULL, &w),
+        MCD_OK);
     ck_assert_uint_eq(w, 0u);
     /* 20 bar: above 10 bar. */
-    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_GAS_FSG, 300, 2e6, &D, NULL, &w), MCD_OK);
+    ck_assert_int_eq(
+        mcd_db_binary_gas(db, n2, o2, MCD_GAS_FSG, 300, 2e6, &D, NULL, &w),
+        MCD_OK);
     ck_assert(w & MCD_WARN_HIGH_PRESSURE);
     /* 3 bar is below 10 bar, but above 0.3 x the mean critical pressure of
      * H2 (13.1 bar) and He (2.27 bar) = 2.3 bar. */
-    ck_assert_int_eq(mcd_db_binary_gas(db, h2, he, MCD_GAS_FSG, 300, 3e5, &D, NULL, &w), MCD_OK);
+    ck_assert_int_eq(
+        mcd_db_binary_gas(db, h2, he, MCD_GAS_FSG, 300, 3e5, &D, NULL, &w),
+        MCD_OK);
     ck_assert(w & MCD_WARN_HIGH_PRESSURE);
-    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_GAS_FSG, 300, 3e5, &D, NULL, &w), MCD_OK);
+    ck_assert_int_eq(
+        mcd_db_binary_gas(db, n2, o2, MCD_GAS_FSG, 300, 3e5, &D, NULL, &w),
+        MCD_OK);
     ck_assert(!(w & MCD_WARN_HIGH_PRESSURE));
     /* Water: dipole 1.85 D > 1 D and hydrogen bonding. */
-    ck_assert_int_eq(mcd_db_binary_gas(db, h2o, n2, MCD_GAS_FSG, 350, MCD_ATM, &D, NULL, &w),
-                     MCD_OK);
+    ck_assert_int_eq(
+        mcd_db_binary_gas(db, h2o, n2, MCD_GAS_FSG, 350, MCD_ATM, &D, NULL, &w),
+        MCD_OK);
     ck_assert(w & MCD_WARN_POLAR);
     ck_assert(w & MCD_WARN_ASSOCIATING);
     /* Ethanol associates (OH group). */
-    ck_assert_int_eq(mcd_db_binary_gas(db, etoh, n2, MCD_GAS_FSG, 350, MCD_ATM, &D, NULL, &w),
+    ck_assert_int_eq(mcd_db_binary_gas(db, etoh, n2, MCD_GAS_FSG, 350, MCD_ATM,
+                                       &D, NULL, &w),
                      MCD_OK);
     ck_assert(w & MCD_WARN_ASSOCIATING);
     /* H2 and He below 100 K: quantum. */
-    ck_assert_int_eq(mcd_db_binary_gas(db, h2, he, MCD_GAS_CHAPMAN_ENSKOG, 60, 1e4, &D, NULL, &w),
+    ck_assert_int_eq(mcd_db_binary_gas(db, h2, he, MCD_GAS_CHAPMAN_ENSKOG, 60,
+                                       1e4, &D, NULL, &w),
                      MCD_OK);
     ck_assert(w & MCD_WARN_QUANTUM);
-    ck_assert_int_eq(mcd_db_binary_gas(db, h2, n2, MCD_GAS_FSG, 300, MCD_ATM, &D, NULL, &w),
-                     MCD_OK);
+    ck_assert_int_eq(
+        mcd_db_binary_gas(db, h2, n2, MCD_GAS_FSG, 300, MCD_ATM, &D, NULL, &w),
+        MCD_OK);
     ck_assert(!(w & MCD_WARN_QUANTUM));
     /* FSG outside 200..1100 K; CE with T* = 3000/sqrt(71.4*106.7) in range
      * but 20 K gives T* < 0.3. */
-    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_GAS_FSG, 1500, MCD_ATM, &D, NULL, &w),
-                     MCD_OK);
+    ck_assert_int_eq(
+        mcd_db_binary_gas(db, n2, o2, MCD_GAS_FSG, 1500, MCD_ATM, &D, NULL, &w),
+        MCD_OK);
     ck_assert(w & MCD_WARN_TEMPERATURE);
-    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_GAS_CHAPMAN_ENSKOG, 1500, MCD_ATM, &D,
-                                    NULL, &w),
+    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_GAS_CHAPMAN_ENSKOG, 1500,
+                                       MCD_ATM, &D, NULL, &w),
                      MCD_OK);
     ck_assert(!(w & MCD_WARN_TEMPERATURE));
-    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_GAS_WILKE_LEE, 20, 1e3, &D, NULL, &w),
-                     MCD_OK);
+    ck_assert_int_eq(
+        mcd_db_binary_gas(db, n2, o2, MCD_GAS_WILKE_LEE, 20, 1e3, &D, NULL, &w),
+        MCD_OK);
     ck_assert(w & MCD_WARN_TEMPERATURE);
 }
 END_TEST
@@ -518,26 +599,30 @@ START_TEST(binary_gas_estimates_lennard_jones_from_boiling_point)
     ck_assert_int_eq(mcd_db_new(&d), MCD_OK);
     ck_assert_int_eq(mcd_db_add(d, "vapour-x", "C6H14", 0, &a), MCD_OK);
     ck_assert_int_eq(mcd_db_add(d, "gas-y", "N2", 0, &b), MCD_OK);
-    ck_assert_int_eq(mcd_db_set_param(d, b, MCD_PARAM_LJ_SIGMA, 3.798e-10), MCD_OK);
+    ck_assert_int_eq(mcd_db_set_param(d, b, MCD_PARAM_LJ_SIGMA, 3.798e-10),
+                     MCD_OK);
     ck_assert_int_eq(mcd_db_set_param(d, b, MCD_PARAM_LJ_EPS_K, 71.4), MCD_OK);
     double D = SUP_GUARD, r = SUP_GUARD;
     unsigned w = 0xffu;
     /* Nothing known yet: ENODATA, outputs untouched. */
-    ck_assert_int_eq(mcd_db_binary_gas(d, a, b, MCD_GAS_WILKE_LEE, 300, 1e5, &D, &r, &w),
-                     MCD_ENODATA);
+    ck_assert_int_eq(
+        mcd_db_binary_gas(d, a, b, MCD_GAS_WILKE_LEE, 300, 1e5, &D, &r, &w),
+        MCD_ENODATA);
     ck_assert(D == SUP_GUARD && r == SUP_GUARD && w == 0xffu);
     ck_assert_int_eq(mcd_db_set_param(d, a, MCD_PARAM_VB, 140.6e-6), MCD_OK);
-    ck_assert_int_eq(mcd_db_binary_gas(d, a, b, MCD_GAS_CHAPMAN_ENSKOG, 300, 1e5, &D, &r, &w),
+    ck_assert_int_eq(mcd_db_binary_gas(d, a, b, MCD_GAS_CHAPMAN_ENSKOG, 300,
+                                       1e5, &D, &r, &w),
                      MCD_ENODATA);
     ck_assert(D == SUP_GUARD);
     ck_assert_int_eq(mcd_db_set_param(d, a, MCD_PARAM_TB, 341.9), MCD_OK);
-    ck_assert_int_eq(mcd_db_binary_gas(d, a, b, MCD_GAS_WILKE_LEE, 300, 1e5, &D, &r, &w),
-                     MCD_OK);
+    ck_assert_int_eq(
+        mcd_db_binary_gas(d, a, b, MCD_GAS_WILKE_LEE, 300, 1e5, &D, &r, &w),
+        MCD_OK);
     ck_assert(w & MCD_WARN_ESTIMATED_PARAM);
     double raw = 0;
     ck_assert_int_eq(mcd_binary_wilke_lee(300, 1e5, 0.0861754, 0.0280134,
-                                       1.18e-10 * cbrt(140.6), 3.798e-10, 1.15 * 341.9, 71.4,
-                                       &raw),
+                                          1.18e-10 * cbrt(140.6), 3.798e-10,
+                                          1.15 * 341.9, 71.4, &raw),
                      MCD_OK);
     double Ma = 0, Mb = 0;
     mcd_db_param(d, a, MCD_PARAM_MOLAR_MASS, &Ma);
@@ -551,37 +636,59 @@ END_TEST
 
 START_TEST(binary_gas_bad_arguments_leave_outputs_untouched)
 {
-    size_t n2 = idx("nitrogen"), o2 = idx("oxygen"), n = mcd_db_species_count(db);
+    size_t n2 = idx("nitrogen"), o2 = idx("oxygen"),
+           n = mcd_db_species_count(db);
     double D = SUP_GUARD, r = SUP_GUARD;
     unsigned w = 0xabcu;
     for (size_t b = 0; b < N_BAD; b++) {
-        ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_GAS_FSG, bad[b].v, 1e5, &D, &r, &w),
+        ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_GAS_FSG, bad[b].v,
+                                           1e5, &D, &r, &w),
                          bad[b].st);
-        ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_GAS_FSG, 300, bad[b].v, &D, &r, &w),
+        ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_GAS_FSG, 300,
+                                           bad[b].v, &D, &r, &w),
                          bad[b].st);
-        ck_assert_int_eq(mcd_db_binary_liquid(db, o2, idx("water"), bad[b].v, 0.89e-3, &D, &r, &w),
+        ck_assert_int_eq(mcd_db_binary_liquid(db, o2, idx("water"), bad[b].v,
+                                              0.89e-3, &D, &r, &w),
                          bad[b].st);
-        ck_assert_int_eq(mcd_db_binary_liquid(db, o2, idx("water"), 298.15, bad[b].v, &D, &r, &w),
+        ck_assert_int_eq(mcd_db_binary_liquid(db, o2, idx("water"), 298.15,
+                                              bad[b].v, &D, &r, &w),
                          bad[b].st);
     }
-    ck_assert_int_eq(mcd_db_binary_gas(NULL, n2, o2, MCD_GAS_FSG, 300, 1e5, &D, &r, &w),
+    ck_assert_int_eq(
+        mcd_db_binary_gas(NULL, n2, o2, MCD_GAS_FSG, 300, 1e5, &D, &r, &w),
+        MCD_EINVAL);
+    ck_assert_int_eq(
+        mcd_db_binary_gas(db, n2, o2, MCD_GAS_FSG, 300, 1e5, NULL, &r, &w),
+        MCD_EINVAL);
+    ck_assert_int_eq(
+        mcd_db_binary_gas(db, n2, n, MCD_GAS_FSG, 300, 1e5, &D, &r, &w),
+        MCD_ENOTFOUND);
+    ck_assert_int_eq(
+        mcd_db_binary_gas(db, n, n2, MCD_GAS_FSG, 300, 1e5, &D, &r, &w),
+        MCD_ENOTFOUND);
+    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2,
+                                       (mcd_gas_method)MCD_METHOD_WILKE_CHANG,
+                                       300, 1e5, &D, &r, &w),
                      MCD_EINVAL);
-    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, MCD_GAS_FSG, 300, 1e5, NULL, &r, &w),
+    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2,
+                                       (mcd_gas_method)MCD_METHOD_USER, 300,
+                                       1e5, &D, &r, &w),
                      MCD_EINVAL);
-    ck_assert_int_eq(mcd_db_binary_gas(db, n2, n, MCD_GAS_FSG, 300, 1e5, &D, &r, &w),
-                     MCD_ENOTFOUND);
-    ck_assert_int_eq(mcd_db_binary_gas(db, n, n2, MCD_GAS_FSG, 300, 1e5, &D, &r, &w),
-                     MCD_ENOTFOUND);
-    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, (mcd_gas_method)MCD_METHOD_WILKE_CHANG, 300, 1e5, &D, &r, &w),
-                     MCD_EINVAL);
-    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, (mcd_gas_method)MCD_METHOD_USER, 300, 1e5, &D, &r, &w),
-                     MCD_EINVAL);
-    ck_assert_int_eq(mcd_db_binary_gas(db, n2, o2, (mcd_gas_method)0, 300, 1e5, &D, &r, &w),
-                     MCD_EINVAL);
-    ck_assert_int_eq(mcd_db_binary_liquid(NULL, o2, n2, 298.15, 0.89e-3, &D, &r, &w), MCD_EINVAL);
-    ck_assert_int_eq(mcd_db_binary_liquid(db, o2, n2, 298.15, 0.89e-3, NULL, &r, &w), MCD_EINVAL);
-    ck_assert_int_eq(mcd_db_binary_liquid(db, n, n2, 298.15, 0.89e-3, &D, &r, &w), MCD_ENOTFOUND);
-    ck_assert_int_eq(mcd_db_binary_liquid(db, o2, n, 298.15, 0.89e-3, &D, &r, &w), MCD_ENOTFOUND);
+    ck_assert_int_eq(
+        mcd_db_binary_gas(db, n2, o2, (mcd_gas_method)0, 300, 1e5, &D, &r, &w),
+        MCD_EINVAL);
+    ck_assert_int_eq(
+        mcd_db_binary_liquid(NULL, o2, n2, 298.15, 0.89e-3, &D, &r, &w),
+        MCD_EINVAL);
+    ck_assert_int_eq(
+        mcd_db_binary_liquid(db, o2, n2, 298.15, 0.89e-3, NULL, &r, &w),
+        MCD_EINVAL);
+    ck_assert_int_eq(
+        mcd_db_binary_liquid(db, n, n2, 298.15, 0.89e-3, &D, &r, &w),
+        MCD_ENOTFOUND);
+    ck_assert_int_eq(
+        mcd_db_binary_liquid(db, o2, n, 298.15, 0.89e-3, &D, &r, &w),
+        MCD_ENOTFOUND);
     ck_assert(D == SUP_GUARD && r == SUP_GUARD && w == 0xabcu);
 }
 END_TEST
@@ -592,17 +699,24 @@ START_TEST(binary_liquid_uses_solvent_association_factor)
     size_t hex = idx("n-hexane");
     double D = SUP_GUARD, r = SUP_GUARD, raw = 0;
     unsigned w = 0;
-    ck_assert_int_eq(mcd_db_binary_liquid(db, co2, h2o, 298.15, 0.8900e-3, &D, &r, &w), MCD_OK);
-    ck_assert_int_eq(mcd_binary_wilke_chang(298.15, 0.8900e-3, par(h2o, MCD_PARAM_MOLAR_MASS),
-                                         par(h2o, MCD_PARAM_ASSOC), par(co2, MCD_PARAM_VB), &raw),
+    ck_assert_int_eq(
+        mcd_db_binary_liquid(db, co2, h2o, 298.15, 0.8900e-3, &D, &r, &w),
+        MCD_OK);
+    ck_assert_int_eq(mcd_binary_wilke_chang(298.15, 0.8900e-3,
+                                            par(h2o, MCD_PARAM_MOLAR_MASS),
+                                            par(h2o, MCD_PARAM_ASSOC),
+                                            par(co2, MCD_PARAM_VB), &raw),
                      MCD_OK);
     ck_assert(D == raw);
     ck_assert(r == mcd_method_typical_error(MCD_METHOD_WILKE_CHANG));
     ck_assert_uint_eq(w & MCD_WARN_ESTIMATED_PARAM, 0u);
     /* Water as solute associates; outside 0..100 C flagged. */
-    ck_assert_int_eq(mcd_db_binary_liquid(db, h2o, hex, 298.15, 0.30e-3, &D, &r, &w), MCD_OK);
+    ck_assert_int_eq(
+        mcd_db_binary_liquid(db, h2o, hex, 298.15, 0.30e-3, &D, &r, &w),
+        MCD_OK);
     ck_assert(w & MCD_WARN_ASSOCIATING);
-    ck_assert_int_eq(mcd_db_binary_liquid(db, bz, h2o, 390.0, 0.22e-3, &D, &r, &w), MCD_OK);
+    ck_assert_int_eq(
+        mcd_db_binary_liquid(db, bz, h2o, 390.0, 0.22e-3, &D, &r, &w), MCD_OK);
     ck_assert(w & MCD_WARN_TEMPERATURE);
     /* A solvent without an association factor: 1.0 is used and flagged. */
     mcd_db *d = NULL;
@@ -612,14 +726,18 @@ START_TEST(binary_liquid_uses_solvent_association_factor)
     ck_assert_int_eq(mcd_db_add(d, "solvent", "C7H16", 0, &b), MCD_OK);
     D = SUP_GUARD;
     w = 0x55u;
-    ck_assert_int_eq(mcd_db_binary_liquid(d, a, b, 298.15, 0.39e-3, &D, &r, &w), MCD_ENODATA);
+    ck_assert_int_eq(mcd_db_binary_liquid(d, a, b, 298.15, 0.39e-3, &D, &r, &w),
+                     MCD_ENODATA);
     ck_assert(D == SUP_GUARD && w == 0x55u);
     ck_assert_int_eq(mcd_db_set_param(d, a, MCD_PARAM_VB, 96.0e-6), MCD_OK);
-    ck_assert_int_eq(mcd_db_binary_liquid(d, a, b, 298.15, 0.39e-3, &D, &r, &w), MCD_OK);
+    ck_assert_int_eq(mcd_db_binary_liquid(d, a, b, 298.15, 0.39e-3, &D, &r, &w),
+                     MCD_OK);
     ck_assert(w & MCD_WARN_ESTIMATED_PARAM);
     double Mb = 0;
     mcd_db_param(d, b, MCD_PARAM_MOLAR_MASS, &Mb);
-    ck_assert_int_eq(mcd_binary_wilke_chang(298.15, 0.39e-3, Mb, 1.0, 96.0e-6, &raw), MCD_OK);
+    ck_assert_int_eq(
+        mcd_binary_wilke_chang(298.15, 0.39e-3, Mb, 1.0, 96.0e-6, &raw),
+        MCD_OK);
     ck_assert(D == raw);
     mcd_db_free(d);
 }
@@ -637,7 +755,8 @@ int main(void)
     tcase_add_test(raw, binary_omega_d_matches_tables);
     tcase_add_test(raw, binary_omega_d_decreases_with_temperature);
     tcase_add_test(raw, binary_raw_methods_are_symmetric);
-    tcase_add_test(raw, binary_gas_methods_scale_exactly_with_pressure_and_fsg_with_t175);
+    tcase_add_test(
+        raw, binary_gas_methods_scale_exactly_with_pressure_and_fsg_with_t175);
     tcase_add_test(raw, binary_raw_bad_inputs_leave_output_untouched);
     tcase_add_test(raw, binary_method_names_round_trip);
     tcase_add_test(raw, binary_typical_errors_are_published_sized);

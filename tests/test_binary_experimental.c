@@ -77,33 +77,53 @@ static const gas_pair gas_pairs[] = {
     {"air", "methanol", 298.0, 0.162, "Welty et al. 1984, Benitez Tab. A.1", 0},
     {"air", "toluene", 298.0, 0.0844, "Welty et al. 1984, Benitez Tab. A.1", 0},
     {"air", "water", 298.0, 0.260, "Welty et al. 1984, Benitez Tab. A.1", 0},
-    {"air", "n-octane", 298.0, 0.0602, "Welty et al. 1984, Benitez Tab. A.1", 0},
+    {"air", "n-octane", 298.0, 0.0602, "Welty et al. 1984, Benitez Tab. A.1",
+     0},
     {"air", "chlorine", 273.0, 0.124, "Welty et al. 1984, Benitez Tab. A.1", 0},
-    {"air", "sulfur-dioxide", 273.0, 0.122, "Welty et al. 1984, Benitez Tab. A.1", 0},
-    {"air", "ethyl-acetate", 273.0, 0.0709, "Welty et al. 1984, Benitez Tab. A.1", 0},
-    {"carbon-dioxide", "nitrogen", 298.0, 0.165, "Welty et al. 1984, Benitez Tab. A.1", 0},
-    {"carbon-dioxide", "hydrogen", 273.0, 0.550, "Welty et al. 1984, Benitez Tab. A.1", 0},
-    {"carbon-dioxide", "nitrous-oxide", 298.0, 0.117, "Welty et al. 1984, Benitez Tab. A.1", 0},
-    {"carbon-dioxide", "propane", 298.0, 0.0863, "Welty et al. 1984, Benitez Tab. A.1", 0},
+    {"air", "sulfur-dioxide", 273.0, 0.122,
+     "Welty et al. 1984, Benitez Tab. A.1", 0},
+    {"air", "ethyl-acetate", 273.0, 0.0709,
+     "Welty et al. 1984, Benitez Tab. A.1", 0},
+    {"carbon-dioxide", "nitrogen", 298.0, 0.165,
+     "Welty et al. 1984, Benitez Tab. A.1", 0},
+    {"carbon-dioxide", "hydrogen", 273.0, 0.550,
+     "Welty et al. 1984, Benitez Tab. A.1", 0},
+    {"carbon-dioxide", "nitrous-oxide", 298.0, 0.117,
+     "Welty et al. 1984, Benitez Tab. A.1", 0},
+    {"carbon-dioxide", "propane", 298.0, 0.0863,
+     "Welty et al. 1984, Benitez Tab. A.1", 0},
     /* Disputed: FSG is +27 % from this value, Chapman-Enskog -10 %; other
      * compilations list CO2-H2O near 0.198 cm^2/s at 307 K (Cussler,
      * Diffusion, Table 5.1-1; from memory), i.e. about 0.19 at 298 K. */
-    {"carbon-dioxide", "water", 298.0, 0.164, "Welty et al. 1984, Benitez Tab. A.1", 1},
-    {"carbon-monoxide", "nitrogen", 288.0, 0.192, "Welty et al. 1984, Benitez Tab. A.1", 0},
-    {"hydrogen", "ethane", 273.0, 0.439, "Welty et al. 1984, Benitez Tab. A.1", 0},
-    {"hydrogen", "oxygen", 273.0, 0.697, "Welty et al. 1984, Benitez Tab. A.1", 0},
-    {"hydrogen", "ammonia", 293.0, 0.849, "Welty et al. 1984, Benitez Tab. A.1", 0},
-    {"nitrogen", "ammonia", 293.0, 0.241, "Welty et al. 1984, Benitez Tab. A.1", 0},
-    {"nitrogen", "ethylene", 298.0, 0.163, "Welty et al. 1984, Benitez Tab. A.1", 0},
-    {"nitrogen", "oxygen", 273.0, 0.181, "Welty et al. 1984, Benitez Tab. A.1", 0},
+    {"carbon-dioxide", "water", 298.0, 0.164,
+     "Welty et al. 1984, Benitez Tab. A.1", 1},
+    {"carbon-monoxide", "nitrogen", 288.0, 0.192,
+     "Welty et al. 1984, Benitez Tab. A.1", 0},
+    {"hydrogen", "ethane", 273.0, 0.439, "Welty et al. 1984, Benitez Tab. A.1",
+     0},
+    {"hydrogen", "oxygen", 273.0, 0.697, "Welty et al. 1984, Benitez Tab. A.1",
+     0},
+    {"hydrogen", "ammonia", 293.0, 0.849, "Welty et al. 1984, Benitez Tab. A.1",
+     0},
+    {"nitrogen", "ammonia", 293.0, 0.241, "Welty et al. 1984, Benitez Tab. A.1",
+     0},
+    {"nitrogen", "ethylene", 298.0, 0.163,
+     "Welty et al. 1984, Benitez Tab. A.1", 0},
+    {"nitrogen", "oxygen", 273.0, 0.181, "Welty et al. 1984, Benitez Tab. A.1",
+     0},
     {"helium", "water", 298.0, 0.908, "Welty et al. 1984, Benitez Tab. A.1", 0},
-    {"oxygen", "benzene", 296.0, 0.0939, "Welty et al. 1984, Benitez Tab. A.1", 0},
+    {"oxygen", "benzene", 296.0, 0.0939, "Welty et al. 1984, Benitez Tab. A.1",
+     0},
 };
 #define N_GAS (sizeof gas_pairs / sizeof gas_pairs[0])
 
 static mcd_db *db;
 static void setup(void) { ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK); }
-static void teardown(void) { mcd_db_free(db); db = NULL; }
+static void teardown(void)
+{
+    mcd_db_free(db);
+    db = NULL;
+}
 
 static size_t find(const char *name)
 {
@@ -126,16 +146,19 @@ static void check_gas_method(mcd_method m)
         const gas_pair *p = &gas_pairs[k];
         double D = NAN, rel = NAN;
         unsigned w = 0;
-        mcd_status st = mcd_db_binary_gas(db, find(p->a), find(p->b), (mcd_gas_method)m, p->T, MCD_ATM, &D,
-                                       &rel, &w);
-        ck_assert_msg(st == MCD_OK, "%s: %s-%s: %s", mcd_method_name(m), p->a, p->b,
-                      mcd_status_string(st));
+        mcd_status st =
+            mcd_db_binary_gas(db, find(p->a), find(p->b), (mcd_gas_method)m,
+                              p->T, MCD_ATM, &D, &rel, &w);
+        ck_assert_msg(st == MCD_OK, "%s: %s-%s: %s", mcd_method_name(m), p->a,
+                      p->b, mcd_status_string(st));
         double dexp = p->D_cgs * 1e-4;
         double e = fabs(D - dexp) / dexp;
-        printf("  %-15s %-16s %-15s %7.2f K  exp %.4f  est %.4f cm2/s  %+6.1f %%  warn 0x%02x  [%s]\n",
+        printf("  %-15s %-16s %-15s %7.2f K  exp %.4f  est %.4f cm2/s  %+6.1f "
+               "%%  warn 0x%02x  [%s]\n",
                mcd_method_name(m), p->a, p->b, p->T, p->D_cgs, D * 1e4,
                100 * (D - dexp) / dexp, w, p->src);
-        ck_assert_msg(p->disputed || e <= 3 * avg, "%s %s-%s at %g K: error %.1f %% > %.1f %%",
+        ck_assert_msg(p->disputed || e <= 3 * avg,
+                      "%s %s-%s at %g K: error %.1f %% > %.1f %%",
                       mcd_method_name(m), p->a, p->b, p->T, 100 * e, 300 * avg);
         ck_assert(rel == avg);
         sum += e;
@@ -145,9 +168,10 @@ static void check_gas_method(mcd_method m)
         }
     }
     double mean = sum / (double)N_GAS;
-    printf("%s: %zu pairs, mean absolute error %.1f %% (published %.1f %%), worst %.1f %% (%s-%s)\n",
-           mcd_method_name(m), (size_t)N_GAS, 100 * mean, 100 * avg, 100 * worst,
-           gas_pairs[worst_k].a, gas_pairs[worst_k].b);
+    printf("%s: %zu pairs, mean absolute error %.1f %% (published %.1f %%), "
+           "worst %.1f %% (%s-%s)\n",
+           mcd_method_name(m), (size_t)N_GAS, 100 * mean, 100 * avg,
+           100 * worst, gas_pairs[worst_k].a, gas_pairs[worst_k].b);
     ck_assert_msg(mean <= avg, "%s mean error %.1f %% > %.1f %%",
                   mcd_method_name(m), 100 * mean, 100 * avg);
 }
@@ -182,9 +206,9 @@ END_TEST
 /* Liquids at infinite dilution. */
 typedef struct {
     const char *solute, *solvent;
-    double T;       /* K */
-    double mu;      /* solvent viscosity at T, Pa s */
-    double D_cgs;   /* measured, cm^2/s */
+    double T;     /* K */
+    double mu;    /* solvent viscosity at T, Pa s */
+    double D_cgs; /* measured, cm^2/s */
     const char *src;
 } liq_pair;
 
@@ -193,12 +217,16 @@ typedef struct {
  * Ethyl acetate at 20 C: 0.455 mPa s (CRC Handbook, "Viscosity of
  * liquids"; from memory). */
 static const liq_pair liq_pairs[] = {
-    {"carbon-dioxide", "water", 298.15, 0.8900e-3, 1.91e-5, "CRC gases in water (Jaehne 1987)"},
-    {"methane", "water", 298.15, 0.8900e-3, 1.84e-5, "CRC gases in water (Jaehne 1987)"},
-    {"air", "water", 298.0, 0.8900e-3, 2.00e-5, "Welty et al. 1984, Benitez Table A.2"},
+    {"carbon-dioxide", "water", 298.15, 0.8900e-3, 1.91e-5,
+     "CRC gases in water (Jaehne 1987)"},
+    {"methane", "water", 298.15, 0.8900e-3, 1.84e-5,
+     "CRC gases in water (Jaehne 1987)"},
+    {"air", "water", 298.0, 0.8900e-3, 2.00e-5,
+     "Welty et al. 1984, Benitez Table A.2"},
     {"benzene", "water", 298.15, 0.8900e-3, 1.02e-5,
      "Witherspoon and Bonoli 1969 (from memory)"},
-    {"acetone", "ethyl-acetate", 293.0, 0.455e-3, 3.18e-5, "Welty et al. 1984, Benitez Table A.2"},
+    {"acetone", "ethyl-acetate", 293.0, 0.455e-3, 3.18e-5,
+     "Welty et al. 1984, Benitez Table A.2"},
 };
 #define N_LIQ (sizeof liq_pairs / sizeof liq_pairs[0])
 
@@ -214,18 +242,21 @@ START_TEST(binary_experimental_wilke_chang_within_published_error)
         const liq_pair *p = &liq_pairs[k];
         double D = NAN, rel = NAN;
         unsigned w = 0;
-        mcd_status st = mcd_db_binary_liquid(db, find(p->solute), find(p->solvent), p->T, p->mu,
-                                          &D, &rel, &w);
+        mcd_status st = mcd_db_binary_liquid(
+            db, find(p->solute), find(p->solvent), p->T, p->mu, &D, &rel, &w);
         ck_assert_msg(st == MCD_OK, "%s in %s: %s", p->solute, p->solvent,
                       mcd_status_string(st));
         double e = fabs(D - p->D_cgs * 1e-4) / (p->D_cgs * 1e-4);
-        printf("  wilke-chang %-15s in %-14s %6.2f K  exp %.3g  est %.3g cm2/s  %+6.1f %%  warn 0x%02x  [%s]\n",
+        printf("  wilke-chang %-15s in %-14s %6.2f K  exp %.3g  est %.3g cm2/s "
+               " %+6.1f %%  warn 0x%02x  [%s]\n",
                p->solute, p->solvent, p->T, p->D_cgs, D * 1e4,
                100 * (D * 1e4 - p->D_cgs) / p->D_cgs, w, p->src);
-        ck_assert_msg(e <= 2 * avg, "%s in %s: %.1f %%", p->solute, p->solvent, 100 * e);
+        ck_assert_msg(e <= 2 * avg, "%s in %s: %.1f %%", p->solute, p->solvent,
+                      100 * e);
         sum += e;
     }
-    printf("wilke-chang: %zu solutes, mean absolute error %.1f %% (published %.1f %%)\n",
+    printf("wilke-chang: %zu solutes, mean absolute error %.1f %% (published "
+           "%.1f %%)\n",
            (size_t)N_LIQ, 100 * sum / (double)N_LIQ, 100 * avg);
     ck_assert_double_le(sum / (double)N_LIQ, avg);
 }
@@ -238,7 +269,8 @@ int main(void)
     tcase_add_checked_fixture(tc, setup, teardown);
     tcase_add_test(tc, binary_experimental_set_has_twenty_pairs);
     tcase_add_test(tc, binary_experimental_fsg_within_published_error);
-    tcase_add_test(tc, binary_experimental_chapman_enskog_within_published_error);
+    tcase_add_test(tc,
+                   binary_experimental_chapman_enskog_within_published_error);
     tcase_add_test(tc, binary_experimental_wilke_lee_within_published_error);
     tcase_add_test(tc, binary_experimental_wilke_chang_within_published_error);
     suite_add_tcase(s, tc);

@@ -38,28 +38,32 @@
 static sup_rng rng = SUP_RNG(SUP_XORSHIFT64STAR, 0x243f6a8885a308d3ULL);
 
 static mcd_workspace *ws;
-static void setup(void) { ck_assert_int_eq(mcd_workspace_new(NMAX, &ws), MCD_OK); }
+static void setup(void)
+{
+    ck_assert_int_eq(mcd_workspace_new(NMAX, &ws), MCD_OK);
+}
 static void teardown(void) { mcd_workspace_free(ws); }
 
 /* Duncan and Toor (1962), from memory (see top). */
 enum { H2 = 0, N2 = 1, CO2 = 2 };
-static const double DT_D[9] = {0, 83.3e-6, 68.0e-6, 83.3e-6, 0, 16.8e-6,
-                               68.0e-6, 16.8e-6, 0};
+static const double DT_D[9] = {0,       83.3e-6, 68.0e-6, 83.3e-6, 0,
+                               16.8e-6, 68.0e-6, 16.8e-6, 0};
 static const double DT_X1[3] = {0.0, 0.50086, 0.49914};
 static const double DT_X2[3] = {0.50121, 0.49879, 0.0};
-static const double DT_L = 85.9e-3;      /* m */
-static const double DT_DIAM = 2.08e-3;   /* m */
-static const double DT_V1 = 77.99e-6;    /* m^3 */
-static const double DT_V2 = 78.63e-6;    /* m^3 */
-static const double DT_T = 308.35;       /* K, 35.2 C */
-static const double DT_P = 101325.0;     /* Pa, about 1 atm */
+static const double DT_L = 85.9e-3;    /* m */
+static const double DT_DIAM = 2.08e-3; /* m */
+static const double DT_V1 = 77.99e-6;  /* m^3 */
+static const double DT_V2 = 78.63e-6;  /* m^3 */
+static const double DT_T = 308.35;     /* K, 35.2 C */
+static const double DT_P = 101325.0;   /* Pa, about 1 atm */
 
 #define NT 242 /* 0 to 60 h by 0.25 h, then 400 h */
 
 START_TEST(bulbs_duncan_toor_nitrogen_osmotic_reverse_then_normal)
 {
     static double t[NT], x1[NT * 3], x2[NT * 3], l1[NT * 3], l2[NT * 3];
-    double c, A = 0.78539816339744831 * DT_DIAM * DT_DIAM, /* pi/4 d^2 */ tot[3], maxdiff = 0.0;
+    double c, A = 0.78539816339744831 * DT_DIAM * DT_DIAM,
+              /* pi/4 d^2 */ tot[3], maxdiff = 0.0;
     int phase = 0; /* 0 osmotic start, 1 reverse, 2 normal */
     double t_rev_start = -1, t_rev_end = -1, t_barrier = -1;
     double prevN = 0.0;
@@ -68,9 +72,29 @@ START_TEST(bulbs_duncan_toor_nitrogen_osmotic_reverse_then_normal)
     for (int k = 0; k < NT - 1; k++)
         t[k] = 900.0 * k;
     t[NT - 1] = 400 * 3600.0;
-    ck_assert_int_eq(mcd_bulbs_integrate(ws, &(mcd_bulbs){.n_species = 3, .c = c, .V1 = DT_V1, .V2 = DT_V2, .A = A, .L = DT_L, .Dij = DT_D, .x1_0 = DT_X1, .x2_0 = DT_X2}, NT, t, 1e-9, x1, x2),
+    ck_assert_int_eq(mcd_bulbs_integrate(ws,
+                                         &(mcd_bulbs){.n_species = 3,
+                                                      .c = c,
+                                                      .V1 = DT_V1,
+                                                      .V2 = DT_V2,
+                                                      .A = A,
+                                                      .L = DT_L,
+                                                      .Dij = DT_D,
+                                                      .x1_0 = DT_X1,
+                                                      .x2_0 = DT_X2},
+                                         NT, t, 1e-9, x1, x2),
                      MCD_OK);
-    ck_assert_int_eq(mcd_bulbs_linearized(ws, &(mcd_bulbs){.n_species = 3, .c = c, .V1 = DT_V1, .V2 = DT_V2, .A = A, .L = DT_L, .Dij = DT_D, .x1_0 = DT_X1, .x2_0 = DT_X2}, NT, t, l1, l2),
+    ck_assert_int_eq(mcd_bulbs_linearized(ws,
+                                          &(mcd_bulbs){.n_species = 3,
+                                                       .c = c,
+                                                       .V1 = DT_V1,
+                                                       .V2 = DT_V2,
+                                                       .A = A,
+                                                       .L = DT_L,
+                                                       .Dij = DT_D,
+                                                       .x1_0 = DT_X1,
+                                                       .x2_0 = DT_X2},
+                                          NT, t, l1, l2),
                      MCD_OK);
     for (int i = 0; i < 3; i++)
         tot[i] = DT_V1 * DT_X1[i] + DT_V2 * DT_X2[i];
@@ -90,13 +114,20 @@ START_TEST(bulbs_duncan_toor_nitrogen_osmotic_reverse_then_normal)
             maxdiff = fmax(maxdiff, fabs(x2[3 * k + i] - l2[3 * k + i]));
         }
         /* capillary flux (bulb 1 -> bulb 2) and mean gradient */
-        ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = c, .L = DT_L, .Dij = DT_D, .x0 = x1 + 3 * k, .xL = x2 + 3 * k}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, NULL, NULL),
+        ck_assert_int_eq(mcd_film_solve(ws,
+                                        &(mcd_film){.n_species = 3,
+                                                    .c = c,
+                                                    .L = DT_L,
+                                                    .Dij = DT_D,
+                                                    .x0 = x1 + 3 * k,
+                                                    .xL = x2 + 3 * k},
+                                        MCD_FILM_BOOT_EQUIMOLAR, 0, NULL,
+                                        MCD_FILM_EXACT, N, NULL, NULL),
                          MCD_OK);
         for (int i = 0; i < 3; i++)
             grad[i] = (x2[3 * k + i] - x1[3 * k + i]) / DT_L;
         /* "nearly zero" = 1 % of the largest gradient or flux */
-        ck_assert_int_eq(mcd_flux_diagnose(3, 1, grad, N, 0.01, flags),
-                         MCD_OK);
+        ck_assert_int_eq(mcd_flux_diagnose(3, 1, grad, N, 0.01, flags), MCD_OK);
         if (k == 0) {
             ck_assert_uint_eq(flags[N2], MCD_DIAG_OSMOTIC);
             ck_assert(N[N2] > 0); /* N2 leaves the CO2 bulb */
@@ -141,7 +172,8 @@ START_TEST(bulbs_duncan_toor_nitrogen_osmotic_reverse_then_normal)
             mnl = fmin(mnl, l1[3 * k + N2]);
         }
         printf("Duncan-Toor: min x(N2) in bulb 1 = %.4f (integrated), "
-               "%.4f (linearized)\n", mn, mnl);
+               "%.4f (linearized)\n",
+               mn, mnl);
         ck_assert(mn < 0.45 && mnl < 0.45);
     }
     /* final state: the volume-weighted mean; after 400 h (~25 time
@@ -160,17 +192,39 @@ START_TEST(bulbs_binary_decays_exponentially)
 {
     for (int trial = 0; trial < 10; trial++) {
         double D = 1e-5 + 5e-5 * sup_u01(&rng), Dm[4] = {0, D, D, 0};
-        double V1 = 5e-5 + 1e-4 * sup_u01(&rng), V2 = 5e-5 + 1e-4 * sup_u01(&rng);
-        double A = 1e-6 + 5e-6 * sup_u01(&rng), L = 0.02 + 0.1 * sup_u01(&rng), c = 40;
+        double V1 = 5e-5 + 1e-4 * sup_u01(&rng),
+               V2 = 5e-5 + 1e-4 * sup_u01(&rng);
+        double A = 1e-6 + 5e-6 * sup_u01(&rng), L = 0.02 + 0.1 * sup_u01(&rng),
+               c = 40;
         double a1 = sup_u01(&rng), a2 = sup_u01(&rng);
         double x1_0[2] = {a1, 1 - a1}, x2_0[2] = {a2, 1 - a2};
         double beta = A * (V1 + V2) / (L * V1 * V2), t[6];
         double x1[12], x2[12], l1[12], l2[12];
         for (int k = 0; k < 6; k++)
             t[k] = k * 0.4 / (beta * D);
-        ck_assert_int_eq(mcd_bulbs_integrate(ws, &(mcd_bulbs){.n_species = 2, .c = c, .V1 = V1, .V2 = V2, .A = A, .L = L, .Dij = Dm, .x1_0 = x1_0, .x2_0 = x2_0}, 6, t, 1e-10, x1, x2),
+        ck_assert_int_eq(mcd_bulbs_integrate(ws,
+                                             &(mcd_bulbs){.n_species = 2,
+                                                          .c = c,
+                                                          .V1 = V1,
+                                                          .V2 = V2,
+                                                          .A = A,
+                                                          .L = L,
+                                                          .Dij = Dm,
+                                                          .x1_0 = x1_0,
+                                                          .x2_0 = x2_0},
+                                             6, t, 1e-10, x1, x2),
                          MCD_OK);
-        ck_assert_int_eq(mcd_bulbs_linearized(ws, &(mcd_bulbs){.n_species = 2, .c = c, .V1 = V1, .V2 = V2, .A = A, .L = L, .Dij = Dm, .x1_0 = x1_0, .x2_0 = x2_0}, 6, t, l1, l2),
+        ck_assert_int_eq(mcd_bulbs_linearized(ws,
+                                              &(mcd_bulbs){.n_species = 2,
+                                                           .c = c,
+                                                           .V1 = V1,
+                                                           .V2 = V2,
+                                                           .A = A,
+                                                           .L = L,
+                                                           .Dij = Dm,
+                                                           .x1_0 = x1_0,
+                                                           .x2_0 = x2_0},
+                                              6, t, l1, l2),
                          MCD_OK);
         for (int k = 0; k < 6; k++) {
             double d = (a1 - a2) * exp(-beta * D * t[k]);
@@ -210,9 +264,29 @@ START_TEST(bulbs_random_mixtures_conserve_and_equilibrate)
         t[1] = 0.3 / (beta * Dmin);
         t[2] = 2.0 / (beta * Dmin);
         t[3] = 40.0 / (beta * Dmin); /* ~e^-40 of the slowest mode */
-        ck_assert_int_eq(mcd_bulbs_integrate(ws, &(mcd_bulbs){.n_species = n, .c = c, .V1 = V1, .V2 = V2, .A = A, .L = L, .Dij = D, .x1_0 = x1_0, .x2_0 = x2_0}, 4, t, 1e-8, x1, x2),
+        ck_assert_int_eq(mcd_bulbs_integrate(ws,
+                                             &(mcd_bulbs){.n_species = n,
+                                                          .c = c,
+                                                          .V1 = V1,
+                                                          .V2 = V2,
+                                                          .A = A,
+                                                          .L = L,
+                                                          .Dij = D,
+                                                          .x1_0 = x1_0,
+                                                          .x2_0 = x2_0},
+                                             4, t, 1e-8, x1, x2),
                          MCD_OK);
-        ck_assert_int_eq(mcd_bulbs_linearized(ws, &(mcd_bulbs){.n_species = n, .c = c, .V1 = V1, .V2 = V2, .A = A, .L = L, .Dij = D, .x1_0 = x1_0, .x2_0 = x2_0}, 4, t, l1, l2),
+        ck_assert_int_eq(mcd_bulbs_linearized(ws,
+                                              &(mcd_bulbs){.n_species = n,
+                                                           .c = c,
+                                                           .V1 = V1,
+                                                           .V2 = V2,
+                                                           .A = A,
+                                                           .L = L,
+                                                           .Dij = D,
+                                                           .x1_0 = x1_0,
+                                                           .x2_0 = x2_0},
+                                              4, t, l1, l2),
                          MCD_OK);
         for (size_t i = 0; i < n; i++) {
             double tot = V1 * x1_0[i] + V2 * x2_0[i], mean = tot / (V1 + V2);
@@ -249,15 +323,59 @@ START_TEST(bulbs_work_at_full_workspace_capacity)
         ck_assert_int_eq(mcd_workspace_new(n, &w), MCD_OK);
         for (int lin = 0; lin < 2; lin++) {
             if (lin) {
-                ck_assert_int_eq(mcd_bulbs_linearized(w, &(mcd_bulbs){.n_species = n, .c = 40, .V1 = 1e-4, .V2 = 1e-4, .A = 3e-6, .L = 0.05, .Dij = D, .x1_0 = a, .x2_0 = b}, 2, t, p1, p2),
-                                 MCD_OK);
-                ck_assert_int_eq(mcd_bulbs_linearized(ws, &(mcd_bulbs){.n_species = n, .c = 40, .V1 = 1e-4, .V2 = 1e-4, .A = 3e-6, .L = 0.05, .Dij = D, .x1_0 = a, .x2_0 = b}, 2, t, q1, q2),
-                                 MCD_OK);
+                ck_assert_int_eq(
+                    mcd_bulbs_linearized(w,
+                                         &(mcd_bulbs){.n_species = n,
+                                                      .c = 40,
+                                                      .V1 = 1e-4,
+                                                      .V2 = 1e-4,
+                                                      .A = 3e-6,
+                                                      .L = 0.05,
+                                                      .Dij = D,
+                                                      .x1_0 = a,
+                                                      .x2_0 = b},
+                                         2, t, p1, p2),
+                    MCD_OK);
+                ck_assert_int_eq(
+                    mcd_bulbs_linearized(ws,
+                                         &(mcd_bulbs){.n_species = n,
+                                                      .c = 40,
+                                                      .V1 = 1e-4,
+                                                      .V2 = 1e-4,
+                                                      .A = 3e-6,
+                                                      .L = 0.05,
+                                                      .Dij = D,
+                                                      .x1_0 = a,
+                                                      .x2_0 = b},
+                                         2, t, q1, q2),
+                    MCD_OK);
             } else {
-                ck_assert_int_eq(mcd_bulbs_integrate(w, &(mcd_bulbs){.n_species = n, .c = 40, .V1 = 1e-4, .V2 = 1e-4, .A = 3e-6, .L = 0.05, .Dij = D, .x1_0 = a, .x2_0 = b}, 2, t, 1e-8, p1, p2),
-                                 MCD_OK);
-                ck_assert_int_eq(mcd_bulbs_integrate(ws, &(mcd_bulbs){.n_species = n, .c = 40, .V1 = 1e-4, .V2 = 1e-4, .A = 3e-6, .L = 0.05, .Dij = D, .x1_0 = a, .x2_0 = b}, 2, t, 1e-8, q1, q2),
-                                 MCD_OK);
+                ck_assert_int_eq(
+                    mcd_bulbs_integrate(w,
+                                        &(mcd_bulbs){.n_species = n,
+                                                     .c = 40,
+                                                     .V1 = 1e-4,
+                                                     .V2 = 1e-4,
+                                                     .A = 3e-6,
+                                                     .L = 0.05,
+                                                     .Dij = D,
+                                                     .x1_0 = a,
+                                                     .x2_0 = b},
+                                        2, t, 1e-8, p1, p2),
+                    MCD_OK);
+                ck_assert_int_eq(
+                    mcd_bulbs_integrate(ws,
+                                        &(mcd_bulbs){.n_species = n,
+                                                     .c = 40,
+                                                     .V1 = 1e-4,
+                                                     .V2 = 1e-4,
+                                                     .A = 3e-6,
+                                                     .L = 0.05,
+                                                     .Dij = D,
+                                                     .x1_0 = a,
+                                                     .x2_0 = b},
+                                        2, t, 1e-8, q1, q2),
+                    MCD_OK);
             }
             for (size_t i = 0; i < 2 * n; i++) {
                 ck_assert_double_eq(p1[i], q1[i]);
@@ -285,18 +403,28 @@ START_TEST(bulbs_errors_leave_outputs_untouched)
         ck_assert(sup_guard_intact(o2, 6));                                    \
     } while (0)
     for (int lin = 0; lin < 2; lin++) {
-#define CALL(W, N_, DD, C_, V1_, V2_, A_, L_, X1, X2, T)                        \
-    (lin ? mcd_bulbs_linearized(W,                                            \
-                                &(mcd_bulbs){.n_species = N_, .c = C_,        \
-                                             .V1 = V1_, .V2 = V2_, .A = A_,   \
-                                             .L = L_, .Dij = DD, .x1_0 = X1,  \
-                                             .x2_0 = X2},                     \
-                                2, T, o1, o2)                                 \
-         : mcd_bulbs_integrate(W,                                             \
-                               &(mcd_bulbs){.n_species = N_, .c = C_,         \
-                                            .V1 = V1_, .V2 = V2_, .A = A_,    \
-                                            .L = L_, .Dij = DD, .x1_0 = X1,   \
-                                            .x2_0 = X2},                      \
+#define CALL(W, N_, DD, C_, V1_, V2_, A_, L_, X1, X2, T)                       \
+    (lin ? mcd_bulbs_linearized(W,                                             \
+                                &(mcd_bulbs){.n_species = N_,                  \
+                                             .c = C_,                          \
+                                             .V1 = V1_,                        \
+                                             .V2 = V2_,                        \
+                                             .A = A_,                          \
+                                             .L = L_,                          \
+                                             .Dij = DD,                        \
+                                             .x1_0 = X1,                       \
+                                             .x2_0 = X2},                      \
+                                2, T, o1, o2)                                  \
+         : mcd_bulbs_integrate(W,                                              \
+                               &(mcd_bulbs){.n_species = N_,                   \
+                                            .c = C_,                           \
+                                            .V1 = V1_,                         \
+                                            .V2 = V2_,                         \
+                                            .A = A_,                           \
+                                            .L = L_,                           \
+                                            .Dij = DD,                         \
+                                            .x1_0 = X1,                        \
+                                            .x2_0 = X2},                       \
                                2, T, 1e-8, o1, o2))
         ck_assert_int_eq(mcd_workspace_new(3, &small), MCD_OK);
         EXPECT2(lin ? mcd_bulbs_linearized(small, NULL, 2, t, o1, o2)
@@ -313,8 +441,7 @@ START_TEST(bulbs_errors_leave_outputs_untouched)
         EXPECT2(CALL(ws, 3, D, NAN, 1e-4, 1e-4, 1e-6, 0.05, a, b, t),
                 MCD_EINVAL);
         EXPECT2(CALL(ws, 3, D, 40, 0.0, 1e-4, 1e-6, 0.05, a, b, t), MCD_EDOM);
-        EXPECT2(CALL(ws, 3, D, 40, 1e-4, -1e-4, 1e-6, 0.05, a, b, t),
-                MCD_EDOM);
+        EXPECT2(CALL(ws, 3, D, 40, 1e-4, -1e-4, 1e-6, 0.05, a, b, t), MCD_EDOM);
         EXPECT2(CALL(ws, 3, D, 40, 1e-4, 1e-4, 0.0, 0.05, a, b, t), MCD_EDOM);
         EXPECT2(CALL(ws, 3, D, 40, 1e-4, 1e-4, 1e-6, INFINITY, a, b, t),
                 MCD_EINVAL);
@@ -333,17 +460,67 @@ START_TEST(bulbs_errors_leave_outputs_untouched)
 #undef CALL
     }
     /* integration only: decreasing times, rel_tol out of range or NaN */
-    EXPECT2(mcd_bulbs_integrate(ws, &(mcd_bulbs){.n_species = 3, .c = 40, .V1 = 1e-4, .V2 = 1e-4, .A = 1e-6, .L = 0.05, .Dij = D, .x1_0 = a, .x2_0 = b}, 2, tdec, 1e-8, o1, o2),
+    EXPECT2(mcd_bulbs_integrate(ws,
+                                &(mcd_bulbs){.n_species = 3,
+                                             .c = 40,
+                                             .V1 = 1e-4,
+                                             .V2 = 1e-4,
+                                             .A = 1e-6,
+                                             .L = 0.05,
+                                             .Dij = D,
+                                             .x1_0 = a,
+                                             .x2_0 = b},
+                                2, tdec, 1e-8, o1, o2),
             MCD_EDOM);
-    EXPECT2(mcd_bulbs_integrate(ws, &(mcd_bulbs){.n_species = 3, .c = 40, .V1 = 1e-4, .V2 = 1e-4, .A = 1e-6, .L = 0.05, .Dij = D, .x1_0 = a, .x2_0 = b}, 2, t, 0.5, o1, o2),
+    EXPECT2(mcd_bulbs_integrate(ws,
+                                &(mcd_bulbs){.n_species = 3,
+                                             .c = 40,
+                                             .V1 = 1e-4,
+                                             .V2 = 1e-4,
+                                             .A = 1e-6,
+                                             .L = 0.05,
+                                             .Dij = D,
+                                             .x1_0 = a,
+                                             .x2_0 = b},
+                                2, t, 0.5, o1, o2),
             MCD_EDOM);
-    EXPECT2(mcd_bulbs_integrate(ws, &(mcd_bulbs){.n_species = 3, .c = 40, .V1 = 1e-4, .V2 = 1e-4, .A = 1e-6, .L = 0.05, .Dij = D, .x1_0 = a, .x2_0 = b}, 2, t, NAN, o1, o2),
+    EXPECT2(mcd_bulbs_integrate(ws,
+                                &(mcd_bulbs){.n_species = 3,
+                                             .c = 40,
+                                             .V1 = 1e-4,
+                                             .V2 = 1e-4,
+                                             .A = 1e-6,
+                                             .L = 0.05,
+                                             .Dij = D,
+                                             .x1_0 = a,
+                                             .x2_0 = b},
+                                2, t, NAN, o1, o2),
             MCD_EINVAL);
     /* decreasing times are fine for the closed-form linearized theory */
-    ck_assert_int_eq(mcd_bulbs_linearized(ws, &(mcd_bulbs){.n_species = 3, .c = 40, .V1 = 1e-4, .V2 = 1e-4, .A = 1e-6, .L = 0.05, .Dij = D, .x1_0 = a, .x2_0 = b}, 2, tdec, o1, o2),
+    ck_assert_int_eq(mcd_bulbs_linearized(ws,
+                                          &(mcd_bulbs){.n_species = 3,
+                                                       .c = 40,
+                                                       .V1 = 1e-4,
+                                                       .V2 = 1e-4,
+                                                       .A = 1e-6,
+                                                       .L = 0.05,
+                                                       .Dij = D,
+                                                       .x1_0 = a,
+                                                       .x2_0 = b},
+                                          2, tdec, o1, o2),
                      MCD_OK);
     /* n_times = 0 writes nothing */
-    EXPECT2(mcd_bulbs_integrate(ws, &(mcd_bulbs){.n_species = 3, .c = 40, .V1 = 1e-4, .V2 = 1e-4, .A = 1e-6, .L = 0.05, .Dij = D, .x1_0 = a, .x2_0 = b}, 0, t, 1e-8, o1, o2),
+    EXPECT2(mcd_bulbs_integrate(ws,
+                                &(mcd_bulbs){.n_species = 3,
+                                             .c = 40,
+                                             .V1 = 1e-4,
+                                             .V2 = 1e-4,
+                                             .A = 1e-6,
+                                             .L = 0.05,
+                                             .Dij = D,
+                                             .x1_0 = a,
+                                             .x2_0 = b},
+                                0, t, 1e-8, o1, o2),
             MCD_OK);
 #undef EXPECT2
 }
@@ -364,7 +541,4 @@ static Suite *bulbs_suite(void)
     return s;
 }
 
-int main(void)
-{
-    return sup_run(bulbs_suite());
-}
+int main(void) { return sup_run(bulbs_suite()); }

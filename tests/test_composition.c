@@ -95,8 +95,8 @@ END_TEST
 
 START_TEST(composition_gradient_round_trip)
 {
-    double M[NMAX], x[NMAX], gx[NMAX * 3], w[NMAX], gw[NMAX * 3],
-        gx2[NMAX * 3], worst = 0.0, worst_sum = 0.0;
+    double M[NMAX], x[NMAX], gx[NMAX * 3], w[NMAX], gw[NMAX * 3], gx2[NMAX * 3],
+        worst = 0.0, worst_sum = 0.0;
     sup_seed(&rng, 1003);
     for (int k = 0; k < N_STATES; k++) {
         size_t n_dim = 1 + (size_t)(sup_next(&rng) % 3);
@@ -134,8 +134,8 @@ END_TEST
  * central finite difference of x -> w along a random zero-sum direction. */
 START_TEST(composition_gradient_matches_finite_difference)
 {
-    double M[NMAX], x[NMAX], gx[NMAX], gw[NMAX], xp[NMAX], xm[NMAX],
-        wp[NMAX], wm[NMAX];
+    double M[NMAX], x[NMAX], gx[NMAX], gw[NMAX], xp[NMAX], xm[NMAX], wp[NMAX],
+        wm[NMAX];
     sup_seed(&rng, 1004);
     for (int k = 0; k < 500; k++) {
         size_t n = random_state(M, x, gx, 1);
@@ -179,7 +179,8 @@ START_TEST(composition_gradient_ignores_normalisation_direction)
                 scale = fabs(gx[i]);
         }
         ck_assert_int_eq(mcd_comp_grad_x_to_w(n, 1, M, x, gx, gw), MCD_OK);
-        ck_assert_int_eq(mcd_comp_grad_x_to_w(n, 1, M, x, gx_shift, gw2), MCD_OK);
+        ck_assert_int_eq(mcd_comp_grad_x_to_w(n, 1, M, x, gx_shift, gw2),
+                         MCD_OK);
         for (size_t i = 0; i < n; i++)
             /* cancellation of a*x_i terms of size <= 3: ~1e-15 each */
             ck_assert_double_eq_tol(gw[i], gw2[i], 1e-13 * (1.0 + scale));
@@ -199,8 +200,10 @@ START_TEST(composition_mean_molar_mass_both_ways_agree)
         ck_assert_int_eq(mcd_comp_mean_molar_mass_w(n, M, w, &mw), MCD_OK);
         for (size_t i = 0; i < n; i++)
             if (x[i] > 0.0) {
-                if (M[i] < mmin) mmin = M[i];
-                if (M[i] > mmax) mmax = M[i];
+                if (M[i] < mmin)
+                    mmin = M[i];
+                if (M[i] > mmax)
+                    mmax = M[i];
             }
         /* a mean lies between the extremes of the species present */
         ck_assert(mx >= mmin * (1 - 1e-14) && mx <= mmax * (1 + 1e-14));
@@ -251,7 +254,8 @@ START_TEST(composition_ideal_gas_at_stp)
     /* scales as P / T */
     {
         double c2 = 0.0;
-        ck_assert_int_eq(mcd_comp_ideal_gas_c(2.0 * 273.15, 3.0 * MCD_ATM, &c2), MCD_OK);
+        ck_assert_int_eq(mcd_comp_ideal_gas_c(2.0 * 273.15, 3.0 * MCD_ATM, &c2),
+                         MCD_OK);
         ck_assert_double_eq_tol(c2 / c, 1.5, 1e-15);
     }
 }
@@ -314,13 +318,13 @@ START_TEST(composition_error_paths_leave_outputs_untouched)
     double Mb[3];
     const double nan = NAN, inf = INFINITY;
 
-#define EXPECT(call, code)                        \
-    do {                                          \
-        sup_guard_fill(out, 6);                   \
-        o1 = SUP_GUARD;                           \
-        ck_assert_int_eq((call), (code));         \
-        ck_assert(sup_guard_intact(out, 6));      \
-        ck_assert(o1 == SUP_GUARD);               \
+#define EXPECT(call, code)                                                     \
+    do {                                                                       \
+        sup_guard_fill(out, 6);                                                \
+        o1 = SUP_GUARD;                                                        \
+        ck_assert_int_eq((call), (code));                                      \
+        ck_assert(sup_guard_intact(out, 6));                                   \
+        ck_assert(o1 == SUP_GUARD);                                            \
     } while (0)
 
     /* normalize */
@@ -328,13 +332,15 @@ START_TEST(composition_error_paths_leave_outputs_untouched)
     EXPECT(mcd_comp_normalize(3, x, NULL), MCD_EINVAL);
     EXPECT(mcd_comp_normalize(0, x, out), MCD_EINVAL);
     EXPECT(mcd_comp_normalize(MCD_MAX_SPECIES + 1, x, out), MCD_EINVAL);
-    memcpy(bad, x, sizeof bad); bad[1] = nan;
+    memcpy(bad, x, sizeof bad);
+    bad[1] = nan;
     EXPECT(mcd_comp_normalize(3, bad, out), MCD_EINVAL);
     bad[1] = inf;
     EXPECT(mcd_comp_normalize(3, bad, out), MCD_EINVAL);
     bad[1] = -inf;
     EXPECT(mcd_comp_normalize(3, bad, out), MCD_EINVAL);
-    bad[1] = -0.1; bad[2] = 0.9;
+    bad[1] = -0.1;
+    bad[2] = 0.9;
     EXPECT(mcd_comp_normalize(3, bad, out), MCD_EDOM);
     /* NaN anywhere wins over a negative entry elsewhere */
     bad[2] = nan;
@@ -358,12 +364,15 @@ START_TEST(composition_error_paths_leave_outputs_untouched)
     EXPECT(mcd_comp_mean_molar_mass_w(3, Mb, x, &o1), MCD_EDOM);
     Mb[0] = -2e-3;
     EXPECT(mcd_comp_x_to_w(3, Mb, x, out), MCD_EDOM);
-    memcpy(bad, x, sizeof bad); bad[0] = -1e-3; bad[1] = 0.301;
+    memcpy(bad, x, sizeof bad);
+    bad[0] = -1e-3;
+    bad[1] = 0.301;
     EXPECT(mcd_comp_x_to_w(3, M, bad, out), MCD_EDOM);
     EXPECT(mcd_comp_w_to_x(3, M, bad, out), MCD_EDOM);
     EXPECT(mcd_comp_mean_molar_mass_x(3, M, bad, &o1), MCD_EDOM);
     EXPECT(mcd_comp_mean_molar_mass_w(3, M, bad, &o1), MCD_EDOM);
-    memcpy(bad, x, sizeof bad); bad[0] = 0.25;
+    memcpy(bad, x, sizeof bad);
+    bad[0] = 0.25;
     EXPECT(mcd_comp_w_to_x(3, M, bad, out), MCD_EDOM);
     bad[0] = nan;
     EXPECT(mcd_comp_w_to_x(3, M, bad, out), MCD_EINVAL);
@@ -378,7 +387,8 @@ START_TEST(composition_error_paths_leave_outputs_untouched)
     EXPECT(mcd_comp_x_to_c(3, inf, x, out), MCD_EINVAL);
     EXPECT(mcd_comp_x_to_c(3, 0.0, x, out), MCD_EDOM);
     EXPECT(mcd_comp_x_to_c(3, -1.0, x, out), MCD_EDOM);
-    memcpy(bad, x, sizeof bad); bad[2] = 0.6;
+    memcpy(bad, x, sizeof bad);
+    bad[2] = 0.6;
     EXPECT(mcd_comp_x_to_c(3, 40.0, bad, out), MCD_EDOM);
 
     /* c_to_x */
@@ -429,7 +439,8 @@ START_TEST(composition_error_paths_leave_outputs_untouched)
         Mb[0] = 0.0;
         EXPECT(mcd_comp_grad_x_to_w(3, 2, Mb, x, g, out), MCD_EDOM);
         EXPECT(mcd_comp_grad_w_to_x(3, 2, Mb, x, g, out), MCD_EDOM);
-        memcpy(bad, x, sizeof bad); bad[0] = 0.3;
+        memcpy(bad, x, sizeof bad);
+        bad[0] = 0.3;
         EXPECT(mcd_comp_grad_x_to_w(3, 2, M, bad, g, out), MCD_EDOM);
         EXPECT(mcd_comp_grad_w_to_x(3, 2, M, bad, g, out), MCD_EDOM);
     }

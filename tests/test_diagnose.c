@@ -32,7 +32,7 @@ END_TEST
 START_TEST(diagnose_threshold_is_inclusive_and_relative)
 {
     /* species 1 gradient exactly rel_tol times the largest: nearly zero */
-    const double g[2] = {2.0, 2.0 * 0.125};    /* 0.125 exact in binary */
+    const double g[2] = {2.0, 2.0 * 0.125}; /* 0.125 exact in binary */
     const double F[2] = {-1.0, 0.5};
     unsigned fl[2];
     ck_assert_int_eq(mcd_flux_diagnose(2, 1, g, F, 0.125, fl), MCD_OK);
@@ -112,7 +112,8 @@ START_TEST(diagnose_invariant_under_scaling_and_permutation)
     size_t perm[30];
     sup_seed(&rng, 3001);
     for (int t = 0; t < 2000; t++) {
-        size_t n = 1 + (size_t)(sup_next(&rng) % 30), nd = 1 + (size_t)(sup_next(&rng) % 3);
+        size_t n = 1 + (size_t)(sup_next(&rng) % 30),
+               nd = 1 + (size_t)(sup_next(&rng) % 3);
         double sg = pow(10.0, -200.0 + 400.0 * sup_u01(&rng));
         double sf = pow(10.0, -200.0 + 400.0 * sup_u01(&rng));
         for (size_t i = 0; i < n * nd; i++) {
@@ -224,12 +225,12 @@ START_TEST(diagnose_error_paths_leave_outputs_untouched)
     const double g[4] = {1.0, 0.0, -1.0, 0.0}, F[4] = {-1.0, 0.0, 1.0, 0.0};
     double bad[4];
     unsigned fl[2];
-#define EXPECT(call)                                    \
-    do {                                                \
-        fl[0] = fl[1] = GUARD_FLAGS;                    \
-        ck_assert_int_eq((call), MCD_EINVAL);           \
-        ck_assert_uint_eq(fl[0], GUARD_FLAGS);          \
-        ck_assert_uint_eq(fl[1], GUARD_FLAGS);          \
+#define EXPECT(call)                                                           \
+    do {                                                                       \
+        fl[0] = fl[1] = GUARD_FLAGS;                                           \
+        ck_assert_int_eq((call), MCD_EINVAL);                                  \
+        ck_assert_uint_eq(fl[0], GUARD_FLAGS);                                 \
+        ck_assert_uint_eq(fl[1], GUARD_FLAGS);                                 \
     } while (0)
     EXPECT(mcd_flux_diagnose(0, 2, g, F, 1e-3, fl));
     EXPECT(mcd_flux_diagnose(MCD_MAX_SPECIES + 1, 2, g, F, 1e-3, fl));

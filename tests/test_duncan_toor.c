@@ -47,10 +47,10 @@
 enum { H2 = 0, N2 = 1, CO2 = 2 };
 
 /* Binary diffusivities [m^2/s], see the header comment for the source. */
-static const double D_H2_N2 = 83.3e-6;   /* Duncan and Toor (1962) via T&K */
+static const double D_H2_N2 = 83.3e-6;     /* Duncan and Toor (1962) via T&K */
 static const double D_H2_N2_ALT = 83.8e-6; /* from memory (first recall) */
-static const double D_H2_CO2 = 68.0e-6;  /* Duncan and Toor (1962) via T&K */
-static const double D_N2_CO2 = 16.8e-6;  /* Duncan and Toor (1962) via T&K */
+static const double D_H2_CO2 = 68.0e-6;    /* Duncan and Toor (1962) via T&K */
+static const double D_N2_CO2 = 16.8e-6;    /* Duncan and Toor (1962) via T&K */
 
 /* Molar masses [kg/mol] from the IUPAC standard atomic weights
  * (H 1.00794, C 12.0107, N 14.0067, O 15.9994; common practice). */
@@ -58,10 +58,10 @@ static const double MM[NS] = {2.01588e-3, 28.0134e-3, 44.0095e-3};
 
 /* Conditions: 35.2 C (secondary quotation of Duncan and Toor 1962), 1 atm. */
 static const double T_K = 308.35;
-static const double L_CAP = 85.9e-3;    /* m, capillary length */
-static const double D_CAP = 2.08e-3;    /* m, capillary diameter */
-static const double V_B1 = 77.99e-6;    /* m^3, bulb 1 */
-static const double V_B2 = 78.63e-6;    /* m^3, bulb 2 */
+static const double L_CAP = 85.9e-3; /* m, capillary length */
+static const double D_CAP = 2.08e-3; /* m, capillary diameter */
+static const double V_B1 = 77.99e-6; /* m^3, bulb 1 */
+static const double V_B2 = 78.63e-6; /* m^3, bulb 2 */
 
 /* Initial bulb compositions, order H2, N2, CO2 (sources in the header). */
 static const double X_B1[NS] = {0.0, 0.50086, 0.49914};
@@ -95,7 +95,8 @@ static void ref_ms(const double *Dij, const long double *x,
     long double B[NS][NS], R[NS][NS + 1];
     size_t idx[NS], m = 0;
     for (size_t i = 0; i < NS; i++)
-        if (i != n) idx[m++] = i;
+        if (i != n)
+            idx[m++] = i;
     for (size_t a = 0; a < m; a++) {
         size_t i = idx[a];
         for (size_t b = 0; b < m; b++) {
@@ -103,7 +104,8 @@ static void ref_ms(const double *Dij, const long double *x,
             if (a == b) {
                 long double s = x[i] / (long double)Dij[i * NS + n];
                 for (size_t k = 0; k < NS; k++)
-                    if (k != i) s += x[k] / (long double)Dij[i * NS + k];
+                    if (k != i)
+                        s += x[k] / (long double)Dij[i * NS + k];
                 B[a][b] = s;
             } else {
                 B[a][b] = -x[i] * (1.0L / (long double)Dij[i * NS + j] -
@@ -115,13 +117,15 @@ static void ref_ms(const double *Dij, const long double *x,
     long double Inv[NS][NS];
     for (size_t col = 0; col < m; col++) {
         for (size_t a = 0; a < m; a++) {
-            for (size_t b = 0; b < m; b++) R[a][b] = B[a][b];
+            for (size_t b = 0; b < m; b++)
+                R[a][b] = B[a][b];
             R[a][m] = (a == col) ? 1.0L : 0.0L;
         }
         for (size_t p = 0; p < m; p++) {
             size_t piv = p;
             for (size_t a = p + 1; a < m; a++)
-                if (fabsl(R[a][p]) > fabsl(R[piv][p])) piv = a;
+                if (fabsl(R[a][p]) > fabsl(R[piv][p]))
+                    piv = a;
             if (piv != p)
                 for (size_t b = 0; b <= m; b++) {
                     long double t = R[p][b];
@@ -129,24 +133,29 @@ static void ref_ms(const double *Dij, const long double *x,
                     R[piv][b] = t;
                 }
             for (size_t a = 0; a < m; a++) {
-                if (a == p) continue;
+                if (a == p)
+                    continue;
                 long double f = R[a][p] / R[p][p];
-                for (size_t b = p; b <= m; b++) R[a][b] -= f * R[p][b];
+                for (size_t b = p; b <= m; b++)
+                    R[a][b] -= f * R[p][b];
             }
         }
-        for (size_t a = 0; a < m; a++) Inv[a][col] = R[a][m] / R[a][a];
+        for (size_t a = 0; a < m; a++)
+            Inv[a][col] = R[a][m] / R[a][a];
     }
     long double sum = 0.0L;
     for (size_t a = 0; a < m; a++) {
         long double s = 0.0L;
-        for (size_t b = 0; b < m; b++) s += Inv[a][b] * gx[idx[b]];
+        for (size_t b = 0; b < m; b++)
+            s += Inv[a][b] * gx[idx[b]];
         J[idx[a]] = -c * s;
         sum += J[idx[a]];
     }
     J[n] = -sum;
     if (Fout)
         for (size_t a = 0; a < m; a++)
-            for (size_t b = 0; b < m; b++) Fout[a * m + b] = Inv[a][b];
+            for (size_t b = 0; b < m; b++)
+                Fout[a * m + b] = Inv[a][b];
 }
 
 /* Mixture-averaged fluxes as the header defines them: D_im = (1 - x_i) /
@@ -160,11 +169,13 @@ static void ref_mixavg(const double *Dij, const long double *x,
     for (size_t i = 0; i < NS; i++) {
         long double den = 0.0L;
         for (size_t j = 0; j < NS; j++)
-            if (j != i) den += x[j] / (long double)Dij[i * NS + j];
+            if (j != i)
+                den += x[j] / (long double)Dij[i * NS + j];
         Jraw[i] = -c * ((1.0L - x[i]) / den) * gx[i];
         s += Jraw[i];
     }
-    for (size_t i = 0; i < NS; i++) J[i] = Jraw[i] - x[i] * s;
+    for (size_t i = 0; i < NS; i++)
+        J[i] = Jraw[i] - x[i] * s;
 }
 
 /* Capillary state between two bulb compositions: linearized theory
@@ -184,7 +195,8 @@ static size_t most_abundant(const long double *x)
 {
     size_t n = 0;
     for (size_t i = 1; i < NS; i++)
-        if (x[i] > x[n]) n = i;
+        if (x[i] > x[n])
+            n = i;
     return n;
 }
 
@@ -196,8 +208,8 @@ static void bulbs_rhs(const double *Dij, const long double *b1,
 {
     long double xm[NS], gx[NS], J[NS];
     const long double c = (long double)conc();
-    const long double A = 0.25L * 3.14159265358979323846L *
-                          (long double)D_CAP * (long double)D_CAP;
+    const long double A = 0.25L * 3.14159265358979323846L * (long double)D_CAP *
+                          (long double)D_CAP;
     capillary_state(b1, b2, xm, gx);
     ref_ms(Dij, xm, gx, c, most_abundant(xm), J, NULL);
     for (size_t i = 0; i < NS; i++) {
@@ -210,8 +222,8 @@ static void bulbs_rhs(const double *Dij, const long double *b1,
 static void rk4_step(const double *Dij, long double h, long double *b1,
                      long double *b2)
 {
-    long double k1a[NS], k1b[NS], k2a[NS], k2b[NS], k3a[NS], k3b[NS],
-        k4a[NS], k4b[NS], ta[NS], tb[NS];
+    long double k1a[NS], k1b[NS], k2a[NS], k2b[NS], k3a[NS], k3b[NS], k4a[NS],
+        k4b[NS], ta[NS], tb[NS];
     bulbs_rhs(Dij, b1, b2, k1a, k1b);
     for (size_t i = 0; i < NS; i++) {
         ta[i] = b1[i] + 0.5L * h * k1a[i];
@@ -246,9 +258,11 @@ static void integrate_bulbs(const double *Dij, const double *x1_0,
         b2[i] = x2_0[i];
     }
     long nsteps = lround(t_end / h);
-    if (nsteps <= 0) return;
+    if (nsteps <= 0)
+        return;
     long double hl = (long double)t_end / (long double)nsteps;
-    for (long s = 0; s < nsteps; s++) rk4_step(Dij, hl, b1, b2);
+    for (long s = 0; s < nsteps; s++)
+        rk4_step(Dij, hl, b1, b2);
 }
 
 /* ------------------------------------------------------------------ */
@@ -257,7 +271,10 @@ static void integrate_bulbs(const double *Dij, const double *x1_0,
 
 static mcd_workspace *ws;
 
-static void setup(void) { ck_assert_int_eq(mcd_workspace_new(NS, &ws), MCD_OK); }
+static void setup(void)
+{
+    ck_assert_int_eq(mcd_workspace_new(NS, &ws), MCD_OK);
+}
 static void teardown(void)
 {
     mcd_workspace_free(ws);
@@ -272,7 +289,16 @@ static void lib_flux(mcd_model model, const double *Dij, const long double *xm,
         x[i] = (double)xm[i];
         g[i] = (double)gx[i];
     }
-    mcd_status st = mcd_flux_compute(ws, model, &(mcd_state){.n_species = NS, .n_dim = 1, .M = MM, .Dij = Dij, .c = conc(), .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g}, flux_basis, F);
+    mcd_status st = mcd_flux_compute(ws, model,
+                                     &(mcd_state){.n_species = NS,
+                                                  .n_dim = 1,
+                                                  .M = MM,
+                                                  .Dij = Dij,
+                                                  .c = conc(),
+                                                  .comp_basis = MCD_BASIS_MOLE,
+                                                  .comp = x,
+                                                  .grad = g},
+                                     flux_basis, F);
     ck_assert_msg(st == MCD_OK, "mcd_flux_compute: %s (%s)",
                   mcd_status_string(st), mcd_last_error());
 }
@@ -281,7 +307,8 @@ static double max_absl(const long double *v, size_t n)
 {
     long double m = 0.0L;
     for (size_t i = 0; i < n; i++)
-        if (fabsl(v[i]) > m) m = fabsl(v[i]);
+        if (fabsl(v[i]) > m)
+            m = fabsl(v[i]);
     return (double)m;
 }
 
@@ -294,9 +321,9 @@ static void expect_flux_matches(const double *F, const long double *Jref)
 {
     double scale = max_absl(Jref, NS);
     for (size_t i = 0; i < NS; i++)
-        ck_assert_msg(fabs((double)((long double)F[i] - Jref[i])) <= 1e-11 * scale,
-                      "species %zu: library %.17g reference %.17Lg", i, F[i],
-                      Jref[i]);
+        ck_assert_msg(
+            fabs((double)((long double)F[i] - Jref[i])) <= 1e-11 * scale,
+            "species %zu: library %.17g reference %.17Lg", i, F[i], Jref[i]);
 }
 
 /* ------------------------------------------------------------------ */
@@ -327,7 +354,8 @@ START_TEST(duncan_toor_start_n2_flux_without_gradient_is_osmotic)
     double F[NS], g[NS];
     lib_flux(MCD_MODEL_MAXWELL_STEFAN, Dij, xm, gx, MCD_BASIS_MOLE, F);
     expect_flux_matches(F, Jref);
-    for (size_t i = 0; i < NS; i++) g[i] = (double)gx[i];
+    for (size_t i = 0; i < NS; i++)
+        g[i] = (double)gx[i];
 
     /* The N2 gradient is tiny: the published bulb compositions differ by
      * 0.00207 (or 0.00024 in the alternative quotation) against 0.5 for
@@ -338,7 +366,8 @@ START_TEST(duncan_toor_start_n2_flux_without_gradient_is_osmotic)
      * the H2 flux): it is dragged along by CO2 (Đ(N2-CO2) is the smallest
      * binary diffusivity). "Clearly non-zero" = more than 30 % of max. */
     double fmax = sup_max_abs(F, NS);
-    ck_assert_msg(fabs(F[N2]) > 0.3 * fmax, "N2 flux %g vs max %g", F[N2], fmax);
+    ck_assert_msg(fabs(F[N2]) > 0.3 * fmax, "N2 flux %g vs max %g", F[N2],
+                  fmax);
     /* Direction: N2 moves with CO2 from bulb 1 towards the H2-rich bulb 2
      * (positive z), which is what raised the N2 fraction in the H2 bulb in
      * the experiment (Duncan and Toor 1962, from memory). */
@@ -384,7 +413,8 @@ START_TEST(duncan_toor_start_at_bulb1_end_handles_absent_hydrogen)
     double F[NS], g[NS];
     lib_flux(MCD_MODEL_MAXWELL_STEFAN, Dij, x, gx, MCD_BASIS_MOLE, F);
     expect_flux_matches(F, Jref);
-    for (size_t i = 0; i < NS; i++) g[i] = (double)gx[i];
+    for (size_t i = 0; i < NS; i++)
+        g[i] = (double)gx[i];
     ck_assert(fabs(F[N2]) > 0.3 * sup_max_abs(F, NS));
     unsigned flags[NS];
     ck_assert_int_eq(mcd_flux_diagnose(NS, 1, g, F, 1e-2, flags), MCD_OK);
@@ -421,7 +451,8 @@ START_TEST(duncan_toor_history_n2_diffuses_up_its_gradient)
     double F[NS], g[NS];
     lib_flux(MCD_MODEL_MAXWELL_STEFAN, Dij, xm, gx, MCD_BASIS_MOLE, F);
     expect_flux_matches(F, Jref);
-    for (size_t i = 0; i < NS; i++) g[i] = (double)gx[i];
+    for (size_t i = 0; i < NS; i++)
+        g[i] = (double)gx[i];
 
     /* N2 gradient small compared with the others (13 % and 36 % of the
      * largest at 1 h and 3 h) and flux up that gradient (F.grad > 0). */
@@ -479,7 +510,8 @@ START_TEST(duncan_toor_history_passes_a_diffusion_barrier)
     capillary_state(best_b1, best_b2, xm, gx);
     double F[NS], g[NS];
     lib_flux(MCD_MODEL_MAXWELL_STEFAN, Dij, xm, gx, MCD_BASIS_MOLE, F);
-    for (size_t i = 0; i < NS; i++) g[i] = (double)gx[i];
+    for (size_t i = 0; i < NS; i++)
+        g[i] = (double)gx[i];
     ck_assert(fabs(g[N2]) > 0.3 * sup_max_abs(g, NS)); /* a real gradient */
     unsigned flags[NS];
     ck_assert_int_eq(mcd_flux_diagnose(NS, 1, g, F, 2e-3, flags), MCD_OK);
@@ -542,7 +574,8 @@ START_TEST(duncan_toor_mixture_averaged_misses_the_coupling)
     ref_mixavg(Dij, xm, gx, c, Jma, Jraw);
     expect_flux_matches(Fms, Jms);
     expect_flux_matches(Fma, Jma);
-    for (size_t i = 0; i < NS; i++) g[i] = (double)gx[i];
+    for (size_t i = 0; i < NS; i++)
+        g[i] = (double)gx[i];
     unsigned fms[NS], fma[NS];
     ck_assert_int_eq(mcd_flux_diagnose(NS, 1, g, Fms, 1e-3, fms), MCD_OK);
     ck_assert_int_eq(mcd_flux_diagnose(NS, 1, g, Fma, 1e-3, fma), MCD_OK);
@@ -572,8 +605,8 @@ START_TEST(duncan_toor_fluxes_sum_to_zero)
                 double s = F[0] + F[1] + F[2];
                 double a = fabs(F[0]) + fabs(F[1]) + fabs(F[2]);
                 ck_assert_msg(fabs(s) <= 8.0 * DBL_EPSILON * a,
-                              "t=%g h model %d basis %d sum %g of %g",
-                              hours[k], model, fb, s, a);
+                              "t=%g h model %d basis %d sum %g of %g", hours[k],
+                              model, fb, s, a);
                 ck_assert(a > 0.0);
             }
         }
@@ -589,7 +622,8 @@ START_TEST(duncan_toor_fluxes_sum_to_zero)
             sMJ += (long double)MM[i] * Jm[i];
         }
         double jscale = 0.0;
-        for (size_t i = 0; i < NS; i++) jscale = fmax(jscale, fabs(MM[i] * Jm[i]));
+        for (size_t i = 0; i < NS; i++)
+            jscale = fmax(jscale, fabs(MM[i] * Jm[i]));
         for (size_t i = 0; i < NS; i++) {
             long double w = xm[i] * MM[i] / Mbar;
             long double jref = (long double)MM[i] * Jm[i] - w * sMJ;
@@ -616,13 +650,20 @@ START_TEST(duncan_toor_fick_matrix_has_strong_n2_cross_terms)
     }
     capillary_state(b1l, b2l, xm, gx);
     double x[NS];
-    for (size_t i = 0; i < NS; i++) x[i] = (double)xm[i];
+    for (size_t i = 0; i < NS; i++)
+        x[i] = (double)xm[i];
 
     /* Dependent species CO2 keeps H2 and N2 in the matrix. */
     ref_ms(Dij, xm, gx, (long double)conc(), CO2, Jdummy, Fref);
     double D[4] = {12345.678, 12345.678, 12345.678, 12345.678};
     size_t dep = 99;
-    mcd_status st = mcd_fick_matrix(ws, &(mcd_state){.n_species = NS, .M = MM, .Dij = Dij, .comp_basis = MCD_BASIS_MOLE, .comp = x}, MCD_BASIS_MOLE, CO2, D, &dep);
+    mcd_status st = mcd_fick_matrix(ws,
+                                    &(mcd_state){.n_species = NS,
+                                                 .M = MM,
+                                                 .Dij = Dij,
+                                                 .comp_basis = MCD_BASIS_MOLE,
+                                                 .comp = x},
+                                    MCD_BASIS_MOLE, CO2, D, &dep);
     ck_assert_msg(st == MCD_OK, "mcd_fick_matrix: %s (%s)",
                   mcd_status_string(st), mcd_last_error());
     ck_assert_uint_eq(dep, CO2);
@@ -663,8 +704,15 @@ START_TEST(duncan_toor_fick_matrix_has_strong_n2_cross_terms)
     for (int k = 0; k < 2; k++) {
         double D2[4], r2[2], i2[2];
         size_t d2 = 99;
-        ck_assert_int_eq(mcd_fick_matrix(ws, &(mcd_state){.n_species = NS, .M = MM, .Dij = Dij, .comp_basis = MCD_BASIS_MOLE, .comp = x}, MCD_BASIS_MOLE, deps[k], D2, &d2),
-                         MCD_OK);
+        ck_assert_int_eq(
+            mcd_fick_matrix(ws,
+                            &(mcd_state){.n_species = NS,
+                                         .M = MM,
+                                         .Dij = Dij,
+                                         .comp_basis = MCD_BASIS_MOLE,
+                                         .comp = x},
+                            MCD_BASIS_MOLE, deps[k], D2, &d2),
+            MCD_OK);
         ck_assert_uint_eq(d2, expect_dep[k]);
         ck_assert_int_eq(mcd_fick_eigenvalues(ws, 2, D2, r2, i2), MCD_OK);
         ck_assert(fabsl(r2[0] - l1) <= 1e-12L * l1);
@@ -673,7 +721,8 @@ START_TEST(duncan_toor_fick_matrix_has_strong_n2_cross_terms)
 
     /* Fluxes from the matrix equal the direct fluxes. */
     double g[NS], Ffick[NS], Fdir[NS];
-    for (size_t i = 0; i < NS; i++) g[i] = (double)gx[i];
+    for (size_t i = 0; i < NS; i++)
+        g[i] = (double)gx[i];
     ck_assert_int_eq(mcd_fick_fluxes(NS, 1, D, CO2, conc(), g, Ffick), MCD_OK);
     lib_flux(MCD_MODEL_MAXWELL_STEFAN, Dij, xm, gx, MCD_BASIS_MOLE, Fdir);
     double fmax = sup_max_abs(Fdir, NS);
@@ -687,9 +736,11 @@ static Suite *duncan_toor_suite(void)
     Suite *s = suite_create("mcd:duncan_toor");
     TCase *tc = tcase_create("duncan_toor");
     tcase_add_checked_fixture(tc, setup, teardown);
-    tcase_add_loop_test(tc, duncan_toor_start_n2_flux_without_gradient_is_osmotic, 0, 3);
+    tcase_add_loop_test(
+        tc, duncan_toor_start_n2_flux_without_gradient_is_osmotic, 0, 3);
     tcase_add_test(tc, duncan_toor_start_at_bulb1_end_handles_absent_hydrogen);
-    tcase_add_loop_test(tc, duncan_toor_history_n2_diffuses_up_its_gradient, 0, 2);
+    tcase_add_loop_test(tc, duncan_toor_history_n2_diffuses_up_its_gradient, 0,
+                        2);
     tcase_add_test(tc, duncan_toor_history_passes_a_diffusion_barrier);
     tcase_add_test(tc, duncan_toor_mixture_averaged_misses_the_coupling);
     tcase_add_test(tc, duncan_toor_fluxes_sum_to_zero);
@@ -698,7 +749,4 @@ static Suite *duncan_toor_suite(void)
     return s;
 }
 
-int main(void)
-{
-    return sup_run(duncan_toor_suite());
-}
+int main(void) { return sup_run(duncan_toor_suite()); }

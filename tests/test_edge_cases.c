@@ -81,21 +81,21 @@ static long double ref_solve(size_t n, const long double *A, size_t nrhs,
         }
     }
     /* solve one right-hand side in place */
-#define LU_SOLVE(v)                                                   \
-    do {                                                              \
-        for (size_t k = 0; k < n; k++) {                              \
-            long double t = v[piv[k]];                                \
-            v[piv[k]] = v[k];                                         \
-            v[k] = t;                                                 \
-        }                                                             \
-        for (size_t i = 1; i < n; i++)                                \
-            for (size_t j = 0; j < i; j++)                            \
-                v[i] -= LU[i * n + j] * v[j];                         \
-        for (size_t i = n; i-- > 0;) {                                \
-            for (size_t j = i + 1; j < n; j++)                        \
-                v[i] -= LU[i * n + j] * v[j];                         \
-            v[i] /= LU[i * n + i];                                    \
-        }                                                             \
+#define LU_SOLVE(v)                                                            \
+    do {                                                                       \
+        for (size_t k = 0; k < n; k++) {                                       \
+            long double t = v[piv[k]];                                         \
+            v[piv[k]] = v[k];                                                  \
+            v[k] = t;                                                          \
+        }                                                                      \
+        for (size_t i = 1; i < n; i++)                                         \
+            for (size_t j = 0; j < i; j++)                                     \
+                v[i] -= LU[i * n + j] * v[j];                                  \
+        for (size_t i = n; i-- > 0;) {                                         \
+            for (size_t j = i + 1; j < n; j++)                                 \
+                v[i] -= LU[i * n + j] * v[j];                                  \
+            v[i] /= LU[i * n + i];                                             \
+        }                                                                      \
     } while (0)
     for (size_t q = 0; q < nrhs; q++) {
         long double *x = malloc(n * sizeof *x);
@@ -146,8 +146,9 @@ static long double ref_solve(size_t n, const long double *A, size_t nrhs,
 }
 
 /* Reference molar fluxes J (n x ND) of an ideal mixture. */
-static long double ref_fluxes(size_t n, const double *D, double c, const double *x,
-                              const double *grad, long double *J)
+static long double ref_fluxes(size_t n, const double *D, double c,
+                              const double *x, const double *grad,
+                              long double *J)
 {
     long double *A = calloc(n * n, sizeof *A), *B = calloc(n * ND, sizeof *B);
     size_t r = 0;
@@ -160,7 +161,8 @@ static long double ref_fluxes(size_t n, const double *D, double c, const double 
         for (size_t k = 0; k < n; k++)
             s += grad[k * ND + d];
         for (size_t i = 0; i < n; i++)
-            B[i * ND + d] = (long double)grad[i * ND + d] - (long double)x[i] * s;
+            B[i * ND + d] =
+                (long double)grad[i * ND + d] - (long double)x[i] * s;
     }
     for (size_t i = 0; i < n; i++) {
         if (i == r) {
@@ -204,7 +206,8 @@ static void check_zero_sum(size_t n, const double *F)
     for (size_t d = 0; d < ND; d++) {
         double s = 0.0, a = 0.0;
         for (size_t i = 0; i < n; i++) {
-            ck_assert_msg(isfinite(F[i * ND + d]), "flux (%zu,%zu) not finite", i, d);
+            ck_assert_msg(isfinite(F[i * ND + d]), "flux (%zu,%zu) not finite",
+                          i, d);
             s += F[i * ND + d];
             a += fabs(F[i * ND + d]);
         }
@@ -217,13 +220,15 @@ static void check_zero_sum(size_t n, const double *F)
 
 /* One state: MS mole fluxes vs reference, mass fluxes vs converted
  * reference, Fick route vs reference, MA model finite and zero-sum. */
-static void check_state(const char *label, size_t n, const double *M, const double *D,
-                        double c, const double *x, const double *grad)
+static void check_state(const char *label, size_t n, const double *M,
+                        const double *D, double c, const double *x,
+                        const double *grad)
 {
     mcd_workspace *ws = NULL;
     double *J = malloc(n * ND * sizeof *J), *jm = malloc(n * ND * sizeof *jm);
     double *F = malloc(n * n * sizeof *F), *JF = malloc(n * ND * sizeof *JF);
-    long double *Jr = malloc(n * ND * sizeof *Jr), *jr = malloc(n * ND * sizeof *jr);
+    long double *Jr = malloc(n * ND * sizeof *Jr),
+                *jr = malloc(n * ND * sizeof *jr);
     size_t dep = 0;
     ck_assert(J && jm && F && JF && Jr && jr);
     ck_assert_int_eq(mcd_workspace_new(n, &ws), MCD_OK);
@@ -231,17 +236,36 @@ static void check_state(const char *label, size_t n, const double *M, const doub
     const double tol = ACCURACY;
 
     /* Maxwell-Stefan, molar */
-    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = n, .n_dim = ND, .M = M, .Dij = D, .c = c, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = grad}, MCD_BASIS_MOLE, J),
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
+                                      &(mcd_state){.n_species = n,
+                                                   .n_dim = ND,
+                                                   .M = M,
+                                                   .Dij = D,
+                                                   .c = c,
+                                                   .comp_basis = MCD_BASIS_MOLE,
+                                                   .comp = x,
+                                                   .grad = grad},
+                                      MCD_BASIS_MOLE, J),
                      MCD_OK);
     check_zero_sum(n, J);
     double e = rel_err(n * ND, J, Jr);
-    printf("edge %-36s N=%3zu kappa_1=%9.3Le  MS rel err %.2e\n", label, n, kappa, e);
+    printf("edge %-36s N=%3zu kappa_1=%9.3Le  MS rel err %.2e\n", label, n,
+           kappa, e);
     ck_assert_msg(e <= tol, "%s: MS relative error %g above %g", label, e, tol);
     if (e > worst_ms)
         worst_ms = e;
 
     /* Maxwell-Stefan, mass fluxes: j_i = M_i J_i - w_i sum_k M_k J_k */
-    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = n, .n_dim = ND, .M = M, .Dij = D, .c = c, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = grad}, MCD_BASIS_MASS, jm),
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
+                                      &(mcd_state){.n_species = n,
+                                                   .n_dim = ND,
+                                                   .M = M,
+                                                   .Dij = D,
+                                                   .c = c,
+                                                   .comp_basis = MCD_BASIS_MOLE,
+                                                   .comp = x,
+                                                   .grad = grad},
+                                      MCD_BASIS_MASS, jm),
                      MCD_OK);
     check_zero_sum(n, jm);
     {
@@ -258,29 +282,55 @@ static void check_state(const char *label, size_t n, const double *M, const doub
         }
         double em = rel_err(n * ND, jm, jr);
         /* the conversion adds a few roundings per entry: same bound */
-        ck_assert_msg(em <= tol, "%s: mass-flux relative error %g above %g", label, em, tol);
+        ck_assert_msg(em <= tol, "%s: mass-flux relative error %g above %g",
+                      label, em, tol);
         if (em > worst_mass)
             worst_mass = em;
     }
 
     /* Fick route: J = -c [D] grad x over the independent species */
     if (n >= 2) {
-        ck_assert_int_eq(mcd_fick_matrix(ws, &(mcd_state){.n_species = n, .M = M, .Dij = D, .comp_basis = MCD_BASIS_MOLE, .comp = x}, MCD_BASIS_MOLE, MCD_DEPENDENT_AUTO, F, &dep),
-                         MCD_OK);
+        ck_assert_int_eq(
+            mcd_fick_matrix(ws,
+                            &(mcd_state){.n_species = n,
+                                         .M = M,
+                                         .Dij = D,
+                                         .comp_basis = MCD_BASIS_MOLE,
+                                         .comp = x},
+                            MCD_BASIS_MOLE, MCD_DEPENDENT_AUTO, F, &dep),
+            MCD_OK);
         ck_assert_int_eq(mcd_fick_fluxes(n, ND, F, dep, c, grad, JF), MCD_OK);
         double ef = rel_err(n * ND, JF, Jr);
         /* [D] = [B]^-1 then a product: a few more roundings, same bound */
-        ck_assert_msg(ef <= tol, "%s: Fick-route relative error %g above %g", label, ef,
-                      tol);
+        ck_assert_msg(ef <= tol, "%s: Fick-route relative error %g above %g",
+                      label, ef, tol);
         if (ef > worst_fick)
             worst_fick = ef;
     }
 
     /* mixture-averaged: finite, zero-sum (no reference: an approximation) */
-    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED, &(mcd_state){.n_species = n, .n_dim = ND, .M = M, .Dij = D, .c = c, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = grad}, MCD_BASIS_MOLE, J),
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED,
+                                      &(mcd_state){.n_species = n,
+                                                   .n_dim = ND,
+                                                   .M = M,
+                                                   .Dij = D,
+                                                   .c = c,
+                                                   .comp_basis = MCD_BASIS_MOLE,
+                                                   .comp = x,
+                                                   .grad = grad},
+                                      MCD_BASIS_MOLE, J),
                      MCD_OK);
     check_zero_sum(n, J);
-    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED, &(mcd_state){.n_species = n, .n_dim = ND, .M = M, .Dij = D, .c = c, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = grad}, MCD_BASIS_MASS, J),
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED,
+                                      &(mcd_state){.n_species = n,
+                                                   .n_dim = ND,
+                                                   .M = M,
+                                                   .Dij = D,
+                                                   .c = c,
+                                                   .comp_basis = MCD_BASIS_MOLE,
+                                                   .comp = x,
+                                                   .grad = grad},
+                                      MCD_BASIS_MASS, J),
                      MCD_OK);
     check_zero_sum(n, J);
 
@@ -328,8 +378,9 @@ START_TEST(edge_cases_trace_species)
 {
     /* x_1 = 0 exactly and x_2 = 1e-30: Blanc's law for the trace species */
     double M[4] = {0.002, 0.028, 0.032, 0.044};
-    double D[16] = {0, 7.8e-5, 7.0e-5, 6.5e-5, 7.8e-5, 0, 2.1e-5, 1.6e-5,
-                    7.0e-5, 2.1e-5, 0, 1.5e-5, 6.5e-5, 1.6e-5, 1.5e-5, 0};
+    double D[16] = {0,      7.8e-5, 7.0e-5, 6.5e-5, 7.8e-5, 0,
+                    2.1e-5, 1.6e-5, 7.0e-5, 2.1e-5, 0,      1.5e-5,
+                    6.5e-5, 1.6e-5, 1.5e-5, 0};
     double x0[4] = {0.0, 0.5, 0.3, 0.2};
     double x1[4] = {1e-30, 0.5, 0.3, 0.2 - 1e-30};
     double grad[8] = {3.0, -1.0, -1.0, 0.5, -1.5, 0.2, -0.5, 0.3};
@@ -340,12 +391,23 @@ START_TEST(edge_cases_trace_species)
         mcd_workspace *ws;
         double J[8];
         ck_assert_int_eq(mcd_workspace_new(4, &ws), MCD_OK);
-        ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = 4, .n_dim = 2, .M = M, .Dij = D, .c = C_TOT, .comp_basis = MCD_BASIS_MOLE, .comp = x0, .grad = grad}, MCD_BASIS_MOLE, J),
-                         MCD_OK);
+        ck_assert_int_eq(
+            mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
+                             &(mcd_state){.n_species = 4,
+                                          .n_dim = 2,
+                                          .M = M,
+                                          .Dij = D,
+                                          .c = C_TOT,
+                                          .comp_basis = MCD_BASIS_MOLE,
+                                          .comp = x0,
+                                          .grad = grad},
+                             MCD_BASIS_MOLE, J),
+            MCD_OK);
         double s = x0[1] / D[1] + x0[2] / D[2] + x0[3] / D[3];
         for (int d = 0; d < 2; d++)
             /* explicit formula, a few roundings: 1e-14 relative */
-            ck_assert_double_eq_tol(J[d], -C_TOT * grad[d] / s, 1e-14 * fabs(J[d]));
+            ck_assert_double_eq_tol(J[d], -C_TOT * grad[d] / s,
+                                    1e-14 * fabs(J[d]));
         mcd_workspace_free(ws);
     }
 }
@@ -399,7 +461,8 @@ START_TEST(edge_cases_hundred_species)
         zero[i] = i != 17;
     random_state(&g, NMAX, 1e-9, 6.0, zero, M, D, x, grad);
     check_state("N = 100, x_17 = 1", NMAX, M, D, C_TOT, x, grad);
-    printf("edge worst relative errors: MS molar %.2e, MS mass %.2e, Fick route %.2e\n",
+    printf("edge worst relative errors: MS molar %.2e, MS mass %.2e, Fick "
+           "route %.2e\n",
            worst_ms, worst_mass, worst_fick);
 }
 END_TEST
@@ -434,10 +497,19 @@ START_TEST(edge_cases_tiny_concentration_near_trace_species)
     double J[2], want;
     mcd_workspace *ws;
     ck_assert_int_eq(mcd_workspace_new(2, &ws), MCD_OK);
-    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = 2, .n_dim = 1, .Dij = D, .c = c, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g}, MCD_BASIS_MOLE, J), MCD_OK);
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
+                                      &(mcd_state){.n_species = 2,
+                                                   .n_dim = 1,
+                                                   .Dij = D,
+                                                   .c = c,
+                                                   .comp_basis = MCD_BASIS_MOLE,
+                                                   .comp = x,
+                                                   .grad = g},
+                                      MCD_BASIS_MOLE, J),
+                     MCD_OK);
     want = -c * (Dv * (g0 * (1.0 - x0))); /* ordered to stay representable */
-    ck_assert_msg(fabs(J[0] - want) <= 1e-12 * fabs(want), "J0 %.17g want %.17g",
-                  J[0], want);
+    ck_assert_msg(fabs(J[0] - want) <= 1e-12 * fabs(want),
+                  "J0 %.17g want %.17g", J[0], want);
     ck_assert_msg(fabs(J[0] + J[1]) <= 1e-12 * fabs(want), "sum %.3g",
                   J[0] + J[1]);
     mcd_workspace_free(ws);
@@ -467,9 +539,26 @@ START_TEST(edge_cases_trace_coupling_when_c_times_dij_underflows)
     for (i = 0; i < N * ND; i++)
         g[i] = g1[i] * 1e30;
     ck_assert_int_eq(mcd_workspace_new(N, &ws), MCD_OK);
-    ck_assert_msg(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = N, .n_dim = ND, .Dij = D, .c = 1e-300, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g}, MCD_BASIS_MOLE, J) == MCD_OK,
+    ck_assert_msg(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
+                                   &(mcd_state){.n_species = N,
+                                                .n_dim = ND,
+                                                .Dij = D,
+                                                .c = 1e-300,
+                                                .comp_basis = MCD_BASIS_MOLE,
+                                                .comp = x,
+                                                .grad = g},
+                                   MCD_BASIS_MOLE, J) == MCD_OK,
                   "%s", mcd_last_error());
-    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = N, .n_dim = ND, .Dij = Dn, .c = 1.0, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g1}, MCD_BASIS_MOLE, Jr), MCD_OK);
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
+                                      &(mcd_state){.n_species = N,
+                                                   .n_dim = ND,
+                                                   .Dij = Dn,
+                                                   .c = 1.0,
+                                                   .comp_basis = MCD_BASIS_MOLE,
+                                                   .comp = x,
+                                                   .grad = g1},
+                                      MCD_BASIS_MOLE, Jr),
+                     MCD_OK);
     for (i = 0; i < N * ND; i++)
         if (fabs(Jr[i]) > scale)
             scale = fabs(Jr[i]);
@@ -507,19 +596,47 @@ START_TEST(edge_cases_mixture_averaged_when_c_times_dij_underflows)
     for (i = 0; i < N * ND; i++)
         g[i] = g1[i] * 1e30;
     ck_assert_int_eq(mcd_workspace_new(N, &ws), MCD_OK);
-    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED, &(mcd_state){.n_species = N, .n_dim = ND, .Dij = Dn, .c = 1.0, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g1}, MCD_BASIS_MOLE, Jr), MCD_OK);
-    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED, &(mcd_state){.n_species = N, .n_dim = ND, .Dij = D, .c = c, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g}, MCD_BASIS_MOLE, J), MCD_OK);
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED,
+                                      &(mcd_state){.n_species = N,
+                                                   .n_dim = ND,
+                                                   .Dij = Dn,
+                                                   .c = 1.0,
+                                                   .comp_basis = MCD_BASIS_MOLE,
+                                                   .comp = x,
+                                                   .grad = g1},
+                                      MCD_BASIS_MOLE, Jr),
+                     MCD_OK);
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED,
+                                      &(mcd_state){.n_species = N,
+                                                   .n_dim = ND,
+                                                   .Dij = D,
+                                                   .c = c,
+                                                   .comp_basis = MCD_BASIS_MOLE,
+                                                   .comp = x,
+                                                   .grad = g},
+                                      MCD_BASIS_MOLE, J),
+                     MCD_OK);
     /* one cell, SoA with K = 1 is the same memory order */
-    ck_assert_int_eq(mcd_flux_batch_dij(ws, MCD_MODEL_MIXTURE_AVERAGED, N, NULL, D, &c, &(mcd_cells){.n_cells = 1, .n_dim = ND, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g}, MCD_BASIS_MOLE, Jb), MCD_OK);
+    ck_assert_int_eq(
+        mcd_flux_batch_dij(ws, MCD_MODEL_MIXTURE_AVERAGED, N, NULL, D, &c,
+                           &(mcd_cells){.n_cells = 1,
+                                        .n_dim = ND,
+                                        .comp_basis = MCD_BASIS_MOLE,
+                                        .comp = x,
+                                        .grad = g},
+                           MCD_BASIS_MOLE, Jb),
+        MCD_OK);
     for (i = 0; i < N * ND; i++)
         if (fabs(Jr[i]) > scale)
             scale = fabs(Jr[i]);
     ck_assert(scale > 0.1);
     for (i = 0; i < N * ND; i++) {
         ck_assert_msg(fabs(J[i] / c - Jr[i]) <= 1e-12 * scale,
-                      "single J[%zu] = %.17g, want %.17g e-300", i, J[i], Jr[i]);
+                      "single J[%zu] = %.17g, want %.17g e-300", i, J[i],
+                      Jr[i]);
         ck_assert_msg(fabs(Jb[i] / c - Jr[i]) <= 1e-12 * scale,
-                      "batched J[%zu] = %.17g, want %.17g e-300", i, Jb[i], Jr[i]);
+                      "batched J[%zu] = %.17g, want %.17g e-300", i, Jb[i],
+                      Jr[i]);
     }
     mcd_workspace_free(ws);
 }
@@ -547,8 +664,8 @@ START_TEST(edge_cases_molar_masses_decades_apart_are_an_error)
      * (common practice: their definition). */
     enum { N = 4, D3 = 3 };
     const double M[N] = {1.3075051478364073e-163, 0.03, 0.03, 0.03};
-    const double D[N * N] = {0, 10, 10, 10, 10, 0, 1e-5, 1e-5,
-                             10, 1e-5, 0, 1e-5, 10, 1e-5, 1e-5, 0};
+    const double D[N * N] = {0,  10,   10, 10,   10, 0,    1e-5, 1e-5,
+                             10, 1e-5, 0,  1e-5, 10, 1e-5, 1e-5, 0};
     const double w[N] = {8.9062438251681993e-164, 1.0 / 3.0, 1.0 / 3.0,
                          1.0 / 3.0};
     const double g[N * D3] = {0, 1e7, 10, 10, 10, 10, 10, 10, 10, 10, 5, 10};
@@ -559,12 +676,30 @@ START_TEST(edge_cases_molar_masses_decades_apart_are_an_error)
     ck_assert_int_eq(mcd_workspace_new(N, &ws), MCD_OK);
     for (i = 0; i < N * D3; i++)
         out[i] = guard;
-    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = N, .n_dim = D3, .M = M, .Dij = D, .c = c, .comp_basis = MCD_BASIS_MASS, .comp = w, .grad = g}, MCD_BASIS_MASS, out), MCD_EDOM);
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
+                                      &(mcd_state){.n_species = N,
+                                                   .n_dim = D3,
+                                                   .M = M,
+                                                   .Dij = D,
+                                                   .c = c,
+                                                   .comp_basis = MCD_BASIS_MASS,
+                                                   .comp = w,
+                                                   .grad = g},
+                                      MCD_BASIS_MASS, out),
+                     MCD_EDOM);
     ck_assert_ptr_nonnull(strstr(mcd_last_error(), "span"));
     for (i = 0; i < N * D3; i++)
         ck_assert(out[i] == guard);
     /* batched, one cell (SoA with K = 1 is the same memory order) */
-    ck_assert_int_eq(mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, N, M, D, &c, &(mcd_cells){.n_cells = 1, .n_dim = D3, .comp_basis = MCD_BASIS_MASS, .comp = w, .grad = g}, MCD_BASIS_MASS, out), MCD_EDOM);
+    ck_assert_int_eq(
+        mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, N, M, D, &c,
+                           &(mcd_cells){.n_cells = 1,
+                                        .n_dim = D3,
+                                        .comp_basis = MCD_BASIS_MASS,
+                                        .comp = w,
+                                        .grad = g},
+                           MCD_BASIS_MASS, out),
+        MCD_EDOM);
     ck_assert_ptr_nonnull(strstr(mcd_last_error(), "span"));
     for (i = 0; i < N * D3; i++)
         ck_assert(out[i] == guard);
@@ -575,7 +710,17 @@ START_TEST(edge_cases_molar_masses_decades_apart_are_an_error)
             sxm += w[i] / M[i];
         for (i = 0; i < N; i++)
             x[i] = w[i] / M[i] / sxm;
-        ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = N, .n_dim = D3, .Dij = D, .c = c, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g}, MCD_BASIS_MOLE, out), MCD_OK);
+        ck_assert_int_eq(
+            mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
+                             &(mcd_state){.n_species = N,
+                                          .n_dim = D3,
+                                          .Dij = D,
+                                          .c = c,
+                                          .comp_basis = MCD_BASIS_MOLE,
+                                          .comp = x,
+                                          .grad = g},
+                             MCD_BASIS_MOLE, out),
+            MCD_OK);
     }
     for (d = 0; d < D3; d++) {
         s = a = 0.0;

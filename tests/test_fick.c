@@ -54,9 +54,10 @@ static void random_state(state *s, size_t n, int allow_zero)
     s->c = sup_decades(&rng, -1.0, 4.0);
     for (i = 0; i < n; i++) {
         s->M[i] = sup_molar_mass(&rng);
-        s->x[i] = kind == 0   ? sup_range(&rng, 0.01, 1.0)
-                  : kind == 1 ? sup_decades(&rng, -6.0, 0.0)
-                              : ((sup_next(&rng) % 3 == 0) ? 0.0 : sup_u01(&rng));
+        s->x[i] = kind == 0 ? sup_range(&rng, 0.01, 1.0)
+                  : kind == 1
+                      ? sup_decades(&rng, -6.0, 0.0)
+                      : ((sup_next(&rng) % 3 == 0) ? 0.0 : sup_u01(&rng));
         sx += s->x[i];
     }
     if (sx == 0.0) {
@@ -88,7 +89,10 @@ static void random_state(state *s, size_t n, int allow_zero)
 }
 
 static mcd_workspace *ws;
-static void setup(void) { ck_assert_int_eq(mcd_workspace_new(NMAX, &ws), MCD_OK); }
+static void setup(void)
+{
+    ck_assert_int_eq(mcd_workspace_new(NMAX, &ws), MCD_OK);
+}
 static void teardown(void)
 {
     mcd_workspace_free(ws);
@@ -122,33 +126,53 @@ START_TEST(fick_fluxes_equal_flux_compute_for_any_dependent)
         n = s.n;
         if (k % 2) {
             for (i = 0; i < n * n; i++)
-                Gam[i] = sup_range(&rng, -0.3, 0.3) + ((i % (n + 1)) == 0 ? 1.0 : 0.0);
+                Gam[i] = sup_range(&rng, -0.3, 0.3) +
+                         ((i % (n + 1)) == 0 ? 1.0 : 0.0);
             G = Gam;
         }
         for (b = 0; b < 2; b++) {
             double F[NMAX * DMAX];
             const double *comp = b ? s.w : s.x, *grad = b ? s.gw : s.g;
             double conc = b ? s.rho : s.c;
-            ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = n, .n_dim = s.nd, .M = s.M, .Dij = s.D, .c = s.c, .comp_basis = (mcd_basis)b, .comp = comp, .grad = grad, .Gamma = G}, (mcd_basis)b, F),
-                             MCD_OK);
+            ck_assert_int_eq(
+                mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
+                                 &(mcd_state){.n_species = n,
+                                              .n_dim = s.nd,
+                                              .M = s.M,
+                                              .Dij = s.D,
+                                              .c = s.c,
+                                              .comp_basis = (mcd_basis)b,
+                                              .comp = comp,
+                                              .grad = grad,
+                                              .Gamma = G},
+                                 (mcd_basis)b, F),
+                MCD_OK);
             for (dep = 0; dep <= n; dep++) {
                 double Df[(NMAX - 1) * (NMAX - 1)], Ff[NMAX * DMAX], e;
                 size_t want = dep == n ? MCD_DEPENDENT_AUTO : dep, used = 999;
-                mcd_status st = mcd_fick_matrix(ws, &(mcd_state){.n_species = n, .M = s.M, .Dij = s.D, .comp_basis = (mcd_basis)b, .comp = comp, .Gamma = G}, (mcd_basis)b, want, Df, &used);
-                ck_assert_msg(st == MCD_OK, "fick_matrix N=%zu dep %zu: %d %s", n,
-                              dep, (int)st, mcd_last_error());
+                mcd_status st =
+                    mcd_fick_matrix(ws,
+                                    &(mcd_state){.n_species = n,
+                                                 .M = s.M,
+                                                 .Dij = s.D,
+                                                 .comp_basis = (mcd_basis)b,
+                                                 .comp = comp,
+                                                 .Gamma = G},
+                                    (mcd_basis)b, want, Df, &used);
+                ck_assert_msg(st == MCD_OK, "fick_matrix N=%zu dep %zu: %d %s",
+                              n, dep, (int)st, mcd_last_error());
                 if (dep < n)
                     ck_assert_uint_eq(used, dep);
                 else
                     for (i = 0; i < n; i++)
                         ck_assert(s.x[i] <= s.x[used]);
-                ck_assert_int_eq(mcd_fick_fluxes(n, s.nd, Df, used, conc, grad, Ff),
-                                 MCD_OK);
+                ck_assert_int_eq(
+                    mcd_fick_fluxes(n, s.nd, Df, used, conc, grad, Ff), MCD_OK);
                 e = sup_rel_diff(Ff, F, n * s.nd);
                 if (e > worst[b])
                     worst[b] = e;
-                ck_assert_msg(e <= 1e-11, "N=%zu basis %d dep %zu: %g", n, b, used,
-                              e);
+                ck_assert_msg(e <= 1e-11, "N=%zu basis %d dep %zu: %g", n, b,
+                              used, e);
             }
         }
     }
@@ -187,7 +211,8 @@ START_TEST(fick_ternary_matrix_matches_hand_formula)
                             t += s.x[q] / s.D[i * 3 + q];
                     B[i * 2 + j] = t;
                 } else {
-                    B[i * 2 + j] = -s.x[i] * (1.0 / s.D[i * 3 + j] - 1.0 / s.D[i * 3 + 2]);
+                    B[i * 2 + j] =
+                        -s.x[i] * (1.0 / s.D[i * 3 + j] - 1.0 / s.D[i * 3 + 2]);
                 }
                 Gr[i * 2 + j] = G[i * 3 + j] - G[i * 3 + 2];
             }
@@ -196,8 +221,16 @@ START_TEST(fick_ternary_matrix_matches_hand_formula)
         ref[1] = (B[3] * Gr[1] - B[1] * Gr[3]) / det;
         ref[2] = (-B[2] * Gr[0] + B[0] * Gr[2]) / det;
         ref[3] = (-B[2] * Gr[1] + B[0] * Gr[3]) / det;
-        ck_assert_int_eq(mcd_fick_matrix(ws, &(mcd_state){.n_species = 3, .M = s.M, .Dij = s.D, .comp_basis = MCD_BASIS_MOLE, .comp = s.x, .Gamma = G}, MCD_BASIS_MOLE, 2, Df, NULL),
-                         MCD_OK);
+        ck_assert_int_eq(
+            mcd_fick_matrix(ws,
+                            &(mcd_state){.n_species = 3,
+                                         .M = s.M,
+                                         .Dij = s.D,
+                                         .comp_basis = MCD_BASIS_MOLE,
+                                         .comp = s.x,
+                                         .Gamma = G},
+                            MCD_BASIS_MOLE, 2, Df, NULL),
+            MCD_OK);
         ck_assert_msg(sup_rel_diff(Df, ref, 4) <= 1e-12, "ternary %g",
                       sup_rel_diff(Df, ref, 4));
     }
@@ -215,14 +248,32 @@ START_TEST(fick_binary_is_fick_diffusivity_in_both_frames)
         double Gb = sup_range(&rng, 0.2, 3.0), G[4], Df = SUP_GUARD;
         size_t used = 9;
         random_state(&s, 2, 0);
-        G[0] = Gb; G[1] = 0.0; G[2] = 0.0; G[3] = Gb;
+        G[0] = Gb;
+        G[1] = 0.0;
+        G[2] = 0.0;
+        G[3] = Gb;
         for (b = 0; b < 2; b++) {
-            ck_assert_int_eq(mcd_fick_matrix(ws, &(mcd_state){.n_species = 2, .M = s.M, .Dij = s.D, .comp_basis = MCD_BASIS_MOLE, .comp = s.x}, (mcd_basis)b, MCD_DEPENDENT_AUTO, &Df, &used),
-                             MCD_OK);
+            ck_assert_int_eq(
+                mcd_fick_matrix(ws,
+                                &(mcd_state){.n_species = 2,
+                                             .M = s.M,
+                                             .Dij = s.D,
+                                             .comp_basis = MCD_BASIS_MOLE,
+                                             .comp = s.x},
+                                (mcd_basis)b, MCD_DEPENDENT_AUTO, &Df, &used),
+                MCD_OK);
             ck_assert(fabs(Df - s.D[1]) <= 1e-13 * s.D[1]);
             ck_assert_uint_eq(used, s.x[1] > s.x[0] ? 1u : 0u);
-            ck_assert_int_eq(mcd_fick_matrix(ws, &(mcd_state){.n_species = 2, .M = s.M, .Dij = s.D, .comp_basis = MCD_BASIS_MOLE, .comp = s.x, .Gamma = G}, (mcd_basis)b, 0, &Df, &used),
-                             MCD_OK);
+            ck_assert_int_eq(
+                mcd_fick_matrix(ws,
+                                &(mcd_state){.n_species = 2,
+                                             .M = s.M,
+                                             .Dij = s.D,
+                                             .comp_basis = MCD_BASIS_MOLE,
+                                             .comp = s.x,
+                                             .Gamma = G},
+                                (mcd_basis)b, 0, &Df, &used),
+                MCD_OK);
             ck_assert(fabs(Df - s.D[1] * Gb) <= 1e-13 * s.D[1] * Gb);
         }
     }
@@ -253,8 +304,15 @@ START_TEST(fick_trace_species_row_is_blanc)
             for (r = 0; r < n; r++)
                 s.x[r] /= rr;
         }
-        ck_assert_int_eq(mcd_fick_matrix(ws, &(mcd_state){.n_species = n, .M = s.M, .Dij = s.D, .comp_basis = MCD_BASIS_MOLE, .comp = s.x}, MCD_BASIS_MOLE, MCD_DEPENDENT_AUTO, Df, &used),
-                         MCD_OK);
+        ck_assert_int_eq(
+            mcd_fick_matrix(ws,
+                            &(mcd_state){.n_species = n,
+                                         .M = s.M,
+                                         .Dij = s.D,
+                                         .comp_basis = MCD_BASIS_MOLE,
+                                         .comp = s.x},
+                            MCD_BASIS_MOLE, MCD_DEPENDENT_AUTO, Df, &used),
+            MCD_OK);
         ck_assert_uint_ne(used, t);
         r = t < used ? t : t - 1;
         for (q = 0; q < n - 1; q++) {
@@ -308,9 +366,17 @@ START_TEST(fick_eigenvalues_real_positive_and_invariant)
         for (b = 0; b < 2; b++)
             for (dep = 0; dep < n; dep += 1 + (size_t)(sup_next(&rng) % 3)) {
                 double e = 0.0;
-                ck_assert_int_eq(mcd_fick_matrix(ws, &(mcd_state){.n_species = n, .M = s.M, .Dij = s.D, .comp_basis = MCD_BASIS_MOLE, .comp = s.x}, (mcd_basis)b, dep, Df, NULL),
+                ck_assert_int_eq(
+                    mcd_fick_matrix(ws,
+                                    &(mcd_state){.n_species = n,
+                                                 .M = s.M,
+                                                 .Dij = s.D,
+                                                 .comp_basis = MCD_BASIS_MOLE,
+                                                 .comp = s.x},
+                                    (mcd_basis)b, dep, Df, NULL),
+                    MCD_OK);
+                ck_assert_int_eq(mcd_fick_eigenvalues(ws, m, Df, re, im),
                                  MCD_OK);
-                ck_assert_int_eq(mcd_fick_eigenvalues(ws, m, Df, re, im), MCD_OK);
                 for (i = 0; i + 1 < m; i++)
                     ck_assert(re[i] >= re[i + 1]);
                 for (i = 0; i < m; i++) {
@@ -329,7 +395,8 @@ START_TEST(fick_eigenvalues_real_positive_and_invariant)
                         e = fabs(re[i] - ref[i]) / ref[0];
                 if (e > worst)
                     worst = e;
-                ck_assert_msg(e <= 1e-9, "N=%zu basis %d dep %zu: %g", n, b, dep, e);
+                ck_assert_msg(e <= 1e-9, "N=%zu basis %d dep %zu: %g", n, b,
+                              dep, e);
             }
     }
     fprintf(stderr, "eigenvalues: largest relative spread %.3g\n", worst);
@@ -381,9 +448,10 @@ START_TEST(fick_eigenvalues_that_overflow_are_an_error)
 END_TEST
 
 /* mcd_fick_matrix with the state's fields as arguments (table rows below). */
-static mcd_status fick_args(mcd_workspace *w, size_t n, const double *M, const double *D,
-                            mcd_basis cb, const double *x, const double *G, mcd_basis basis,
-                            size_t dep, double *out, size_t *out_dep)
+static mcd_status fick_args(mcd_workspace *w, size_t n, const double *M,
+                            const double *D, mcd_basis cb, const double *x,
+                            const double *G, mcd_basis basis, size_t dep,
+                            double *out, size_t *out_dep)
 {
     mcd_state s = {0};
     s.n_species = n;
@@ -406,32 +474,32 @@ START_TEST(fick_errors_leave_outputs_untouched)
     size_t dep = 777;
     mcd_workspace *small;
 
-#define GUARDS()                                                              \
-    do {                                                                      \
-        sup_guard_fill(out, 4);                                               \
-        sup_guard_fill(re, 2);                                                \
-        sup_guard_fill(im, 2);                                                \
-        sup_guard_fill(F, N * 2);                                             \
-        dep = 777;                                                            \
+#define GUARDS()                                                               \
+    do {                                                                       \
+        sup_guard_fill(out, 4);                                                \
+        sup_guard_fill(re, 2);                                                 \
+        sup_guard_fill(im, 2);                                                 \
+        sup_guard_fill(F, N * 2);                                              \
+        dep = 777;                                                             \
     } while (0)
-#define INTACT()                                                              \
-    do {                                                                      \
-        ck_assert(sup_guard_intact(out, 4));                                  \
-        ck_assert(sup_guard_intact(re, 2) && sup_guard_intact(im, 2));        \
-        ck_assert(sup_guard_intact(F, N * 2));                                \
-        ck_assert_uint_eq(dep, 777);                                          \
+#define INTACT()                                                               \
+    do {                                                                       \
+        ck_assert(sup_guard_intact(out, 4));                                   \
+        ck_assert(sup_guard_intact(re, 2) && sup_guard_intact(im, 2));         \
+        ck_assert(sup_guard_intact(F, N * 2));                                 \
+        ck_assert_uint_eq(dep, 777);                                           \
     } while (0)
-#define FM(code, arg, ...)                                                    \
-    do {                                                                      \
-        GUARDS();                                                             \
-        ck_assert_int_eq(fick_args(__VA_ARGS__), code);                       \
-        INTACT();                                                             \
-        {                                                                     \
-            const char *a_ = (arg);                                           \
-            if (a_ != NULL)                                                   \
-                ck_assert_msg(strstr(mcd_last_error(), a_) != NULL, \
-                              "'%s' lacks '%s'", mcd_last_error(), a_); \
-        }                                                                     \
+#define FM(code, arg, ...)                                                     \
+    do {                                                                       \
+        GUARDS();                                                              \
+        ck_assert_int_eq(fick_args(__VA_ARGS__), code);                        \
+        INTACT();                                                              \
+        {                                                                      \
+            const char *a_ = (arg);                                            \
+            if (a_ != NULL)                                                    \
+                ck_assert_msg(strstr(mcd_last_error(), a_) != NULL,            \
+                              "'%s' lacks '%s'", mcd_last_error(), a_);        \
+        }                                                                      \
     } while (0)
 
     FM(MCD_EINVAL, NULL, NULL, N, M, D, 0, x, NULL, 0, MCD_DEPENDENT_AUTO, out,
@@ -467,15 +535,20 @@ START_TEST(fick_errors_leave_outputs_untouched)
         double Gn[N * N] = {1, 0, 0, 0, 1, 0, 0, NAN, 1};
         FM(MCD_EDOM, "argument comp: sum", ws, N, M, D, 0, xs, NULL, 0, 0, out,
            &dep);
-        FM(MCD_EDOM, "argument comp: entry 0", ws, N, M, D, 1, xn, NULL, 0, 0, out,
-           &dep);
+        FM(MCD_EDOM, "argument comp: entry 0", ws, N, M, D, 1, xn, NULL, 0, 0,
+           out, &dep);
         FM(MCD_EINVAL, "comp", ws, N, M, D, 0, NULL, NULL, 0, 0, out, &dep);
         FM(MCD_EINVAL, "Gamma", ws, N, M, D, 0, x, Gn, 0, 0, out, &dep);
     }
     ck_assert_int_eq(mcd_workspace_new(2, &small), MCD_OK);
     GUARDS();
-    ck_assert_int_eq(mcd_fick_matrix(small, &(mcd_state){.n_species = N, .M = M, .Dij = D, .comp_basis = 0, .comp = x}, 0, 0, out, &dep),
-                     MCD_EBADLEN);
+    ck_assert_int_eq(
+        mcd_fick_matrix(
+            small,
+            &(mcd_state){
+                .n_species = N, .M = M, .Dij = D, .comp_basis = 0, .comp = x},
+            0, 0, out, &dep),
+        MCD_EBADLEN);
     INTACT();
     /* eigenvalues: m above capacity - 1, NULL, NaN */
     GUARDS();
@@ -501,11 +574,15 @@ START_TEST(fick_errors_leave_outputs_untouched)
         ck_assert_int_eq(mcd_fick_fluxes(N, 0, Dm, 0, 40.0, g, F), MCD_EINVAL);
         ck_assert_int_eq(mcd_fick_fluxes(N, 4, Dm, 0, 40.0, g, F), MCD_EINVAL);
         ck_assert_int_eq(mcd_fick_fluxes(N, 2, Dm, N, 40.0, g, F), MCD_EINVAL);
-        ck_assert_int_eq(mcd_fick_fluxes(N, 2, Dm, MCD_DEPENDENT_AUTO, 40.0, g, F),
+        ck_assert_int_eq(
+            mcd_fick_fluxes(N, 2, Dm, MCD_DEPENDENT_AUTO, 40.0, g, F),
+            MCD_EINVAL);
+        ck_assert_int_eq(mcd_fick_fluxes(N, 2, NULL, 0, 40.0, g, F),
                          MCD_EINVAL);
-        ck_assert_int_eq(mcd_fick_fluxes(N, 2, NULL, 0, 40.0, g, F), MCD_EINVAL);
-        ck_assert_int_eq(mcd_fick_fluxes(N, 2, Dm, 0, 40.0, NULL, F), MCD_EINVAL);
-        ck_assert_int_eq(mcd_fick_fluxes(N, 2, Dm, 0, 40.0, g, NULL), MCD_EINVAL);
+        ck_assert_int_eq(mcd_fick_fluxes(N, 2, Dm, 0, 40.0, NULL, F),
+                         MCD_EINVAL);
+        ck_assert_int_eq(mcd_fick_fluxes(N, 2, Dm, 0, 40.0, g, NULL),
+                         MCD_EINVAL);
         ck_assert_int_eq(mcd_fick_fluxes(N, 2, Dm, 0, 0.0, g, F), MCD_EDOM);
         ck_assert_int_eq(mcd_fick_fluxes(N, 2, Dm, 0, -1.0, g, F), MCD_EDOM);
         ck_assert_int_eq(mcd_fick_fluxes(N, 2, Dm, 0, NAN, g, F), MCD_EINVAL);
@@ -528,7 +605,13 @@ START_TEST(fick_errors_leave_outputs_untouched)
         double g1[2] = {0.5, 0.5};
         out[0] = SUP_GUARD;
         dep = 777;
-        ck_assert_int_eq(mcd_fick_matrix(ws, &(mcd_state){.n_species = 1, .M = &M1, .Dij = &D1, .comp_basis = 0, .comp = &one}, 1, MCD_DEPENDENT_AUTO, out, &dep),
+        ck_assert_int_eq(mcd_fick_matrix(ws,
+                                         &(mcd_state){.n_species = 1,
+                                                      .M = &M1,
+                                                      .Dij = &D1,
+                                                      .comp_basis = 0,
+                                                      .comp = &one},
+                                         1, MCD_DEPENDENT_AUTO, out, &dep),
                          MCD_OK);
         ck_assert(out[0] == SUP_GUARD);
         ck_assert_uint_eq(dep, 0);
@@ -559,7 +642,4 @@ static Suite *fick_suite(void)
     return s;
 }
 
-int main(void)
-{
-    return sup_run(fick_suite());
-}
+int main(void) { return sup_run(fick_suite()); }

@@ -54,7 +54,10 @@
 
 static mcd_workspace *ws;
 
-static void setup(void) { ck_assert_int_eq(mcd_workspace_new(NMAX, &ws), MCD_OK); }
+static void setup(void)
+{
+    ck_assert_int_eq(mcd_workspace_new(NMAX, &ws), MCD_OK);
+}
 static void teardown(void)
 {
     mcd_workspace_free(ws);
@@ -95,7 +98,8 @@ static void ref_fick(size_t n, const double *Dij, const double *x, size_t dep,
     size_t idx[NMAX], m = 0;
     long double R[NMAX][2 * NMAX];
     for (size_t i = 0; i < n; i++)
-        if (i != dep) idx[m++] = i;
+        if (i != dep)
+            idx[m++] = i;
     for (size_t a = 0; a < m; a++) {
         size_t i = idx[a];
         for (size_t b = 0; b < m; b++) {
@@ -104,7 +108,8 @@ static void ref_fick(size_t n, const double *Dij, const double *x, size_t dep,
             if (a == b) {
                 v = (long double)x[i] / Dij[i * n + dep];
                 for (size_t k = 0; k < n; k++)
-                    if (k != i) v += (long double)x[k] / Dij[i * n + k];
+                    if (k != i)
+                        v += (long double)x[k] / Dij[i * n + k];
             } else {
                 v = -(long double)x[i] *
                     (1.0L / Dij[i * n + j] - 1.0L / Dij[i * n + dep]);
@@ -116,22 +121,27 @@ static void ref_fick(size_t n, const double *Dij, const double *x, size_t dep,
     for (size_t p = 0; p < m; p++) {
         size_t piv = p;
         for (size_t a = p + 1; a < m; a++)
-            if (fabsl(R[a][p]) > fabsl(R[piv][p])) piv = a;
+            if (fabsl(R[a][p]) > fabsl(R[piv][p]))
+                piv = a;
         for (size_t b = 0; b < 2 * m; b++) {
             long double t = R[p][b];
             R[p][b] = R[piv][b];
             R[piv][b] = t;
         }
         long double d = R[p][p];
-        for (size_t b = 0; b < 2 * m; b++) R[p][b] /= d;
+        for (size_t b = 0; b < 2 * m; b++)
+            R[p][b] /= d;
         for (size_t a = 0; a < m; a++) {
-            if (a == p) continue;
+            if (a == p)
+                continue;
             long double f = R[a][p];
-            for (size_t b = 0; b < 2 * m; b++) R[a][b] -= f * R[p][b];
+            for (size_t b = 0; b < 2 * m; b++)
+                R[a][b] -= f * R[p][b];
         }
     }
     for (size_t a = 0; a < m; a++)
-        for (size_t b = 0; b < m; b++) F[a * m + b] = R[a][m + b];
+        for (size_t b = 0; b < m; b++)
+            F[a * m + b] = R[a][m + b];
 }
 
 /* Molar -> mass frame: [D°] = (1/Mbar) [A] [D] [Q] with
@@ -145,28 +155,34 @@ static void ref_mass_frame(size_t n, const double *M, const double *x,
     size_t idx[NMAX], m = 0;
     long double Mbar = 0.0L, w[NMAX];
     long double A[NMAX][NMAX], Q[NMAX][NMAX], T[NMAX][NMAX];
-    for (size_t i = 0; i < n; i++) Mbar += (long double)x[i] * M[i];
-    for (size_t i = 0; i < n; i++) w[i] = (long double)x[i] * M[i] / Mbar;
     for (size_t i = 0; i < n; i++)
-        if (i != dep) idx[m++] = i;
+        Mbar += (long double)x[i] * M[i];
+    for (size_t i = 0; i < n; i++)
+        w[i] = (long double)x[i] * M[i] / Mbar;
+    for (size_t i = 0; i < n; i++)
+        if (i != dep)
+            idx[m++] = i;
     long double Mn = M[dep];
     for (size_t a = 0; a < m; a++)
         for (size_t b = 0; b < m; b++) {
             size_t i = idx[a], k = idx[b];
-            A[a][b] = (a == b ? (long double)M[i] : 0.0L) - w[i] * ((long double)M[k] - Mn);
+            A[a][b] = (a == b ? (long double)M[i] : 0.0L) -
+                      w[i] * ((long double)M[k] - Mn);
             Q[a][b] = Mbar * ((a == b ? 1.0L / M[i] : 0.0L) -
                               (long double)x[i] * (1.0L / M[k] - 1.0L / Mn));
         }
     for (size_t a = 0; a < m; a++)
         for (size_t b = 0; b < m; b++) {
             long double s = 0.0L;
-            for (size_t k = 0; k < m; k++) s += F[a * m + k] * Q[k][b];
+            for (size_t k = 0; k < m; k++)
+                s += F[a * m + k] * Q[k][b];
             T[a][b] = s;
         }
     for (size_t a = 0; a < m; a++)
         for (size_t b = 0; b < m; b++) {
             long double s = 0.0L;
-            for (size_t k = 0; k < m; k++) s += A[a][k] * T[k][b];
+            for (size_t k = 0; k < m; k++)
+                s += A[a][k] * T[k][b];
             Fo[a * m + b] = s / Mbar;
         }
 }
@@ -175,7 +191,13 @@ static void lib_fick(size_t n, const double *M, const double *Dij,
                      const double *x, mcd_basis basis, size_t dep, double *out,
                      size_t *used)
 {
-    mcd_status st = mcd_fick_matrix(ws, &(mcd_state){.n_species = n, .M = M, .Dij = Dij, .comp_basis = MCD_BASIS_MOLE, .comp = x}, basis, dep, out, used);
+    mcd_status st = mcd_fick_matrix(ws,
+                                    &(mcd_state){.n_species = n,
+                                                 .M = M,
+                                                 .Dij = Dij,
+                                                 .comp_basis = MCD_BASIS_MOLE,
+                                                 .comp = x},
+                                    basis, dep, out, used);
     ck_assert_msg(st == MCD_OK, "mcd_fick_matrix: %s (%s)",
                   mcd_status_string(st), mcd_last_error());
 }
@@ -184,7 +206,8 @@ static long double max_absl(const long double *v, size_t n)
 {
     long double m = 0.0L;
     for (size_t i = 0; i < n; i++)
-        if (fabsl(v[i]) > m) m = fabsl(v[i]);
+        if (fabsl(v[i]) > m)
+            m = fabsl(v[i]);
     return m;
 }
 
@@ -194,7 +217,8 @@ static double rel_dev(const double *D, const long double *R, size_t len)
     long double s = max_absl(R, len), e = 0.0L;
     for (size_t k = 0; k < len; k++) {
         long double d = fabsl((long double)D[k] - R[k]);
-        if (d > e) e = d;
+        if (d > e)
+            e = d;
     }
     return (double)(e / s);
 }
@@ -245,7 +269,8 @@ START_TEST(fick_example_stefan_tube_matches_published_formula)
      * D11 = 11.1712, D12 = 2.23467, D21 = 5.55975, D22 = 15.0355 mm^2/s
      * (6 digits, so tolerance 1e-5 relative). Positive cross terms here:
      * Đ13 > Đ12 and Đ23 > Đ12. */
-    static const double hand[4] = {11.1712e-6, 2.23467e-6, 5.55975e-6, 15.0355e-6};
+    static const double hand[4] = {11.1712e-6, 2.23467e-6, 5.55975e-6,
+                                   15.0355e-6};
     for (int k = 0; k < 4; k++)
         ck_assert_msg(fabs(D[k] - hand[k]) <= 1e-5 * fabs(hand[k]),
                       "D[%d] = %.8g vs hand %.8g", k, D[k], hand[k]);
@@ -268,7 +293,8 @@ START_TEST(fick_example_duncan_toor_mean_state_matches_published_formula)
      * D11 = 68.0 * 66.675 / S = 76.8132, D12 = 4.2 * (-15.3) / S = -1.08869,
      * D21 = 34.0 * (-66.5) / S = -38.3058, D22 = 16.8 * 75.65 / S = 21.5319
      * mm^2/s (rounded to 6 digits, so tolerance 1e-5 relative). */
-    static const double hand[4] = {76.8132e-6, -1.08869e-6, -38.3058e-6, 21.5319e-6};
+    static const double hand[4] = {76.8132e-6, -1.08869e-6, -38.3058e-6,
+                                   21.5319e-6};
     for (int k = 0; k < 4; k++)
         ck_assert_msg(fabs(D[k] - hand[k]) <= 1e-5 * fabs(hand[k]),
                       "D[%d] = %.8g vs hand %.8g", k, D[k], hand[k]);
@@ -328,7 +354,8 @@ START_TEST(fick_example_binary_same_in_both_frames)
         double Dm = 0.0, Dw = 0.0;
         lib_fick(2, M, Dij, x, MCD_BASIS_MOLE, MCD_DEPENDENT_AUTO, &Dm, NULL);
         lib_fick(2, M, Dij, x, MCD_BASIS_MASS, MCD_DEPENDENT_AUTO, &Dw, NULL);
-        ck_assert_msg(fabs(Dm - 68.0e-6) <= 1e-14 * 68.0e-6 * 10, "molar %g", Dm);
+        ck_assert_msg(fabs(Dm - 68.0e-6) <= 1e-14 * 68.0e-6 * 10, "molar %g",
+                      Dm);
         ck_assert_msg(fabs(Dw - 68.0e-6) <= 1e-13 * 68.0e-6, "mass %.17g", Dw);
     }
 }
@@ -354,15 +381,18 @@ static void check_mass_frame_and_eigen(const double *M, const double *Dij,
 
     /* Same eigenvalues in both frames (similarity transform), real,
      * positive, and equal to the roots of the characteristic polynomial. */
-    long double tr = Fref[0] + Fref[3], det = Fref[0] * Fref[3] - Fref[1] * Fref[2];
+    long double tr = Fref[0] + Fref[3],
+                det = Fref[0] * Fref[3] - Fref[1] * Fref[2];
     long double disc = tr * tr - 4.0L * det;
     ck_assert(disc > 0.0L);
     long double l1 = 0.5L * (tr + sqrtl(disc)), l2 = det / l1;
     double re[2], im[2], reo[2], imo[2];
     ck_assert_int_eq(mcd_fick_eigenvalues(ws, 2, D, re, im), MCD_OK);
     ck_assert_int_eq(mcd_fick_eigenvalues(ws, 2, Do, reo, imo), MCD_OK);
-    ck_assert(fabsl(re[0] - l1) <= 1e-12L * l1 && fabsl(re[1] - l2) <= 1e-12L * l1);
-    ck_assert(fabsl(reo[0] - l1) <= 1e-11L * l1 && fabsl(reo[1] - l2) <= 1e-11L * l1);
+    ck_assert(fabsl(re[0] - l1) <= 1e-12L * l1 &&
+              fabsl(re[1] - l2) <= 1e-12L * l1);
+    ck_assert(fabsl(reo[0] - l1) <= 1e-11L * l1 &&
+              fabsl(reo[1] - l2) <= 1e-11L * l1);
     ck_assert(im[0] == 0.0 && im[1] == 0.0 && imo[0] == 0.0 && imo[1] == 0.0);
     ck_assert(re[1] > 0.0 && reo[1] > 0.0);
 
@@ -371,7 +401,8 @@ static void check_mass_frame_and_eigen(const double *M, const double *Dij,
         double D2[4], r2[2], i2[2];
         lib_fick(3, M, Dij, x, MCD_BASIS_MOLE, dep, D2, NULL);
         ck_assert_int_eq(mcd_fick_eigenvalues(ws, 2, D2, r2, i2), MCD_OK);
-        ck_assert(fabsl(r2[0] - l1) <= 1e-12L * l1 && fabsl(r2[1] - l2) <= 1e-12L * l1);
+        ck_assert(fabsl(r2[0] - l1) <= 1e-12L * l1 &&
+                  fabsl(r2[1] - l2) <= 1e-12L * l1);
     }
 }
 
@@ -398,21 +429,32 @@ START_TEST(fick_example_mass_frame_matrix_gives_mass_fluxes)
 {
     double Dij[9];
     sym3(CS_D12, CS_D13, CS_D23, Dij);
-    const double c = 99.4e3 / (MCD_GAS_CONSTANT * 328.5); /* T&K example (from memory) */
+    const double c =
+        99.4e3 / (MCD_GAS_CONSTANT * 328.5);  /* T&K example (from memory) */
     double w[3], gw[3] = {-25.0, 11.0, 14.0}; /* invented gradient [1/m] */
     ck_assert_int_eq(mcd_comp_x_to_w(3, CS_M, CS_X, w), MCD_OK);
     double Mbar = 0.0;
-    for (int i = 0; i < 3; i++) Mbar += CS_X[i] * CS_M[i];
+    for (int i = 0; i < 3; i++)
+        Mbar += CS_X[i] * CS_M[i];
     double rho = c * Mbar;
     double Do[4], jlib[3], jfick[3];
     lib_fick(3, CS_M, Dij, CS_X, MCD_BASIS_MASS, 2, Do, NULL);
     ck_assert_int_eq(mcd_fick_fluxes(3, 1, Do, 2, rho, gw, jfick), MCD_OK);
-    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = 3, .n_dim = 1, .M = CS_M, .Dij = Dij, .c = c, .comp_basis = MCD_BASIS_MASS, .comp = w, .grad = gw}, MCD_BASIS_MASS, jlib),
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
+                                      &(mcd_state){.n_species = 3,
+                                                   .n_dim = 1,
+                                                   .M = CS_M,
+                                                   .Dij = Dij,
+                                                   .c = c,
+                                                   .comp_basis = MCD_BASIS_MASS,
+                                                   .comp = w,
+                                                   .grad = gw},
+                                      MCD_BASIS_MASS, jlib),
                      MCD_OK);
     double s = fmax(fabs(jlib[0]), fmax(fabs(jlib[1]), fabs(jlib[2])));
     for (int i = 0; i < 3; i++)
-        ck_assert_msg(fabs(jlib[i] - jfick[i]) <= 1e-11 * s, "j[%d] %g vs %g", i,
-                      jlib[i], jfick[i]);
+        ck_assert_msg(fabs(jlib[i] - jfick[i]) <= 1e-11 * s, "j[%d] %g vs %g",
+                      i, jlib[i], jfick[i]);
 }
 END_TEST
 
@@ -428,22 +470,26 @@ START_TEST(fick_example_formula_holds_over_random_ternaries)
         double d13 = 1e-6 * pow(100.0, sup_u01(&rng));
         double d23 = 1e-6 * pow(100.0, sup_u01(&rng));
         double x[3], M[3], Dij[9];
-        double a = 0.02 + sup_u01(&rng), b = 0.02 + sup_u01(&rng), cc = 0.02 + sup_u01(&rng);
+        double a = 0.02 + sup_u01(&rng), b = 0.02 + sup_u01(&rng),
+               cc = 0.02 + sup_u01(&rng);
         x[0] = a / (a + b + cc);
         x[1] = b / (a + b + cc);
         x[2] = 1.0 - x[0] - x[1];
-        for (int i = 0; i < 3; i++) M[i] = 2e-3 + 0.2 * sup_u01(&rng);
+        for (int i = 0; i < 3; i++)
+            M[i] = 2e-3 + 0.2 * sup_u01(&rng);
         sym3(d12, d13, d23, Dij);
         long double Ftk[4], Foref[4];
         tk_ternary(d12, d13, d23, x, Ftk);
         double D[4], Do[4];
         lib_fick(3, M, Dij, x, MCD_BASIS_MOLE, 2, D, NULL);
         double e = rel_dev(D, Ftk, 4);
-        if (e > worst) worst = e;
+        if (e > worst)
+            worst = e;
         ref_mass_frame(3, M, x, 2, Ftk, Foref);
         lib_fick(3, M, Dij, x, MCD_BASIS_MASS, 2, Do, NULL);
         double em = rel_dev(Do, Foref, 4);
-        if (em > worst_mass) worst_mass = em;
+        if (em > worst_mass)
+            worst_mass = em;
         /* Eigenvalues real and positive for every ideal-gas state. */
         double re[2], im[2];
         ck_assert_int_eq(mcd_fick_eigenvalues(ws, 2, D, re, im), MCD_OK);
@@ -470,20 +516,24 @@ START_TEST(fick_example_b_inverse_holds_for_more_species)
             s += x[i];
             Dij[i * n + i] = 0.0;
             for (size_t j = 0; j < i; j++)
-                Dij[i * n + j] = Dij[j * n + i] = 1e-6 * pow(100.0, sup_u01(&rng));
+                Dij[i * n + j] = Dij[j * n + i] =
+                    1e-6 * pow(100.0, sup_u01(&rng));
         }
-        for (size_t i = 0; i < n; i++) x[i] /= s;
+        for (size_t i = 0; i < n; i++)
+            x[i] /= s;
         size_t used = 99;
         double D[(NMAX - 1) * (NMAX - 1)];
         lib_fick(n, NULL, Dij, x, MCD_BASIS_MOLE, MCD_DEPENDENT_AUTO, D, &used);
         size_t am = 0;
         for (size_t i = 1; i < n; i++)
-            if (x[i] > x[am]) am = i;
+            if (x[i] > x[am])
+                am = i;
         ck_assert_uint_eq(used, am);
         long double F[(NMAX - 1) * (NMAX - 1)];
         ref_fick(n, Dij, x, used, F);
         double e = rel_dev(D, F, (n - 1) * (n - 1));
-        if (e > worst) worst = e;
+        if (e > worst)
+            worst = e;
     }
     ck_assert_msg(worst <= 1e-10, "n=%zu worst deviation %g", n, worst);
 }
@@ -495,7 +545,8 @@ static Suite *fick_example_suite(void)
     TCase *tc = tcase_create("fick_example");
     tcase_add_checked_fixture(tc, setup, teardown);
     tcase_add_test(tc, fick_example_stefan_tube_matches_published_formula);
-    tcase_add_test(tc, fick_example_duncan_toor_mean_state_matches_published_formula);
+    tcase_add_test(
+        tc, fick_example_duncan_toor_mean_state_matches_published_formula);
     tcase_add_test(tc, fick_example_hand_calculation_exact_fractions);
     tcase_add_test(tc, fick_example_limiting_cases);
     tcase_add_test(tc, fick_example_binary_same_in_both_frames);
@@ -503,12 +554,10 @@ static Suite *fick_example_suite(void)
     tcase_add_test(tc, fick_example_duncan_toor_mass_frame_and_eigenvalues);
     tcase_add_test(tc, fick_example_mass_frame_matrix_gives_mass_fluxes);
     tcase_add_test(tc, fick_example_formula_holds_over_random_ternaries);
-    tcase_add_loop_test(tc, fick_example_b_inverse_holds_for_more_species, 4, NMAX + 1);
+    tcase_add_loop_test(tc, fick_example_b_inverse_holds_for_more_species, 4,
+                        NMAX + 1);
     suite_add_tcase(s, tc);
     return s;
 }
 
-int main(void)
-{
-    return sup_run(fick_example_suite());
-}
+int main(void) { return sup_run(fick_example_suite()); }

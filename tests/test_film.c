@@ -207,9 +207,9 @@ static int gauss(size_t m, double *A, double *b)
  *   z_sp N_t = J_sp + xm_sp N_t.
  * Returns -1 when the matrix is singular or the bootstrap has no solution
  * (neither happens for the films of this test). */
-static int ref_linearized(const ref_film *f, const double *x0,
-                          const double *xL, mcd_film_bootstrap kind, size_t sp,
-                          const double *val, double *N)
+static int ref_linearized(const ref_film *f, const double *x0, const double *xL,
+                          mcd_film_bootstrap kind, size_t sp, const double *val,
+                          double *N)
 {
     size_t n = f->n, m = n - 1;
     const double *D = f->D;
@@ -238,12 +238,8 @@ static int ref_linearized(const ref_film *f, const double *x0,
         num = -J[sp];
         den = xm[sp];
         break;
-    case MCD_FILM_BOOT_EQUIMOLAR:
-        num = 0.0;
-        break;
-    case MCD_FILM_BOOT_TOTAL:
-        num = val[0];
-        break;
+    case MCD_FILM_BOOT_EQUIMOLAR: num = 0.0; break;
+    case MCD_FILM_BOOT_TOTAL: num = val[0]; break;
     case MCD_FILM_BOOT_WEIGHTS:
         den = 0.0;
         for (size_t i = 0; i < n; i++) {
@@ -296,9 +292,7 @@ static void shoot_res(const ref_film *f, const double *x0, const double *xL,
     for (size_t i = 0; i + 1 < n; i++)
         F[i] = x[i] - xL[i];
     switch (kind) {
-    case MCD_FILM_BOOT_STAGNANT:
-        s = N[sp];
-        break;
+    case MCD_FILM_BOOT_STAGNANT: s = N[sp]; break;
     case MCD_FILM_BOOT_EQUIMOLAR:
         for (size_t i = 0; i < n; i++)
             s += N[i];
@@ -378,8 +372,8 @@ static int ref_newton(const ref_film *f, const double *x0, const double *xL,
  * previous solution, a failed step is halved (down to 1/4096), a good one
  * doubles the next. Returns 0 with N, or -1. */
 static int ref_continuation(const ref_film *f, const double *x0,
-                            const double *xL, mcd_film_bootstrap kind, size_t sp,
-                            const double *val, double *N)
+                            const double *xL, mcd_film_bootstrap kind,
+                            size_t sp, const double *val, double *N)
 {
     size_t n = f->n;
     double s = 0.0, ds = 0.125, Ns[NMAX], xs[NMAX];
@@ -405,9 +399,8 @@ static int ref_continuation(const ref_film *f, const double *x0,
 }
 
 /* RATIOS: N = z N_t, one unknown N_t; residual x_sp(L) - xL_sp. */
-static double ratio_res(const ref_film *f, const double *x0,
-                        const double *xL, size_t sp, const double *z,
-                        double Nt)
+static double ratio_res(const ref_film *f, const double *x0, const double *xL,
+                        size_t sp, const double *z, double Nt)
 {
     double N[NMAX], x[NMAX];
     for (size_t i = 0; i < f->n; i++)
@@ -584,13 +577,12 @@ static int ref_solve(const ref_film *f, const double *x0, const double *xL,
  * test as a failure of the reference, not of the library). */
 static int ref_fluxes(const ref_film *f, const double *x0, const double *xL,
                       mcd_film_bootstrap kind, size_t sp, const double *val,
-                      int second_only, double *N, int *used_second,
-                      int *steps)
+                      int second_only, double *N, int *used_second, int *steps)
 {
     ref_film g = *f;
     for (g.steps = RK_STEPS; g.steps <= 4 * RK_STEPS; g.steps *= 2)
-        if (ref_solve(&g, x0, xL, kind, sp, val, second_only, N,
-                      used_second) == 0) {
+        if (ref_solve(&g, x0, xL, kind, sp, val, second_only, N, used_second) ==
+            0) {
             *steps = g.steps;
             return 0;
         }
@@ -661,15 +653,18 @@ static void ratios_film(const ref_film *f, size_t sp, double *x0, double *z,
 
 static mcd_workspace *ws;
 
-static void setup(void) { ck_assert_int_eq(mcd_workspace_new(NMAX, &ws), MCD_OK); }
+static void setup(void)
+{
+    ck_assert_int_eq(mcd_workspace_new(NMAX, &ws), MCD_OK);
+}
 static void teardown(void) { mcd_workspace_free(ws); }
 
 /* Carty and Schrodt (1975) Stefan tube, data from memory (see top). */
-static const double CS_T = 328.5;     /* K */
-static const double CS_P = 99.4e3;    /* Pa */
-static const double CS_L = 0.238;     /* m */
-static const double CS_D[9] = {0, 8.48e-6, 13.72e-6, 8.48e-6, 0, 19.91e-6,
-                               13.72e-6, 19.91e-6, 0};
+static const double CS_T = 328.5;  /* K */
+static const double CS_P = 99.4e3; /* Pa */
+static const double CS_L = 0.238;  /* m */
+static const double CS_D[9] = {0,        8.48e-6,  13.72e-6, 8.48e-6, 0,
+                               19.91e-6, 13.72e-6, 19.91e-6, 0};
 static const double CS_X0[3] = {0.319, 0.528, 0.153};
 static const double CS_XL[3] = {0.0, 0.0, 1.0};
 
@@ -679,7 +674,15 @@ START_TEST(film_stefan_tube_matches_published_fluxes)
     size_t it = 0;
     double res = 1.0;
     ck_assert_int_eq(mcd_comp_ideal_gas_c(CS_T, CS_P, &c), MCD_OK);
-    ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = c, .L = CS_L, .Dij = CS_D, .x0 = CS_X0, .xL = CS_XL}, MCD_FILM_BOOT_STAGNANT, 2, NULL, MCD_FILM_EXACT, N, &it, &res),
+    ck_assert_int_eq(mcd_film_solve(ws,
+                                    &(mcd_film){.n_species = 3,
+                                                .c = c,
+                                                .L = CS_L,
+                                                .Dij = CS_D,
+                                                .x0 = CS_X0,
+                                                .xL = CS_XL},
+                                    MCD_FILM_BOOT_STAGNANT, 2, NULL,
+                                    MCD_FILM_EXACT, N, &it, &res),
                      MCD_OK);
     printf("Stefan tube (exact): N1 = %.5e N2 = %.5e N3 = %.1e, "
            "%zu iterations, residual %.2e\n",
@@ -699,10 +702,16 @@ START_TEST(film_stefan_tube_matches_published_fluxes)
      * practice), and the profile must end at xL. */
     for (int p = 0; p <= 10; p++)
         z[p] = CS_L * p / 10.0;
-    ck_assert_int_eq(mcd_film_profile(ws, &(mcd_film){.n_species = 3, .c = c, .L = CS_L, .Dij = CS_D, .x0 = CS_X0}, N, 11, z, X),
-                     MCD_OK);
+    ck_assert_int_eq(
+        mcd_film_profile(
+            ws,
+            &(mcd_film){
+                .n_species = 3, .c = c, .L = CS_L, .Dij = CS_D, .x0 = CS_X0},
+            N, 11, z, X),
+        MCD_OK);
     for (int p = 1; p <= 10; p++) {
-        double air = CS_X0[2] * exp(z[p] / c * (N[0] / CS_D[2] + N[1] / CS_D[5]));
+        double air =
+            CS_X0[2] * exp(z[p] / c * (N[0] / CS_D[2] + N[1] / CS_D[5]));
         ck_assert(X[3 * p + 0] < X[3 * (p - 1) + 0]);
         ck_assert(X[3 * p + 1] < X[3 * (p - 1) + 1]);
         ck_assert(X[3 * p + 2] > X[3 * (p - 1) + 2]);
@@ -721,9 +730,25 @@ START_TEST(film_stefan_tube_linearized_is_close_to_exact)
 {
     double c, Ne[3], Nl[3];
     ck_assert_int_eq(mcd_comp_ideal_gas_c(CS_T, CS_P, &c), MCD_OK);
-    ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = c, .L = CS_L, .Dij = CS_D, .x0 = CS_X0, .xL = CS_XL}, MCD_FILM_BOOT_STAGNANT, 2, NULL, MCD_FILM_EXACT, Ne, NULL, NULL),
+    ck_assert_int_eq(mcd_film_solve(ws,
+                                    &(mcd_film){.n_species = 3,
+                                                .c = c,
+                                                .L = CS_L,
+                                                .Dij = CS_D,
+                                                .x0 = CS_X0,
+                                                .xL = CS_XL},
+                                    MCD_FILM_BOOT_STAGNANT, 2, NULL,
+                                    MCD_FILM_EXACT, Ne, NULL, NULL),
                      MCD_OK);
-    ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = c, .L = CS_L, .Dij = CS_D, .x0 = CS_X0, .xL = CS_XL}, MCD_FILM_BOOT_STAGNANT, 2, NULL, MCD_FILM_LINEARIZED, Nl, NULL, NULL),
+    ck_assert_int_eq(mcd_film_solve(ws,
+                                    &(mcd_film){.n_species = 3,
+                                                .c = c,
+                                                .L = CS_L,
+                                                .Dij = CS_D,
+                                                .x0 = CS_X0,
+                                                .xL = CS_XL},
+                                    MCD_FILM_BOOT_STAGNANT, 2, NULL,
+                                    MCD_FILM_LINEARIZED, Nl, NULL, NULL),
                      MCD_OK);
     printf("Stefan tube linearized: N1 = %.5e (%+.2f %%) N2 = %.5e "
            "(%+.2f %%)\n",
@@ -746,20 +771,36 @@ START_TEST(film_binary_equals_closed_forms)
         double a0 = 0.05 + 0.9 * urand(), aL = 0.9 * urand();
         double x0[2] = {a0, 1 - a0}, xL[2] = {aL, 1 - aL}, N[2], ref;
         double k = c * D / L;
-        mcd_film_method meth = (trial % 2) ? MCD_FILM_LINEARIZED
-                                           : MCD_FILM_EXACT;
+        mcd_film_method meth =
+            (trial % 2) ? MCD_FILM_LINEARIZED : MCD_FILM_EXACT;
 
         /* B stagnant. Linearized theory is exact for a binary ideal gas
          * (constant Đ), so both methods must match. 1e-10 relative:
          * convergence 1e-12 times the conditioning of ln. */
-        ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = 2, .c = c, .L = L, .Dij = Dm, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_STAGNANT, 1, NULL, meth, N, NULL, NULL),
+        ck_assert_int_eq(mcd_film_solve(ws,
+                                        &(mcd_film){.n_species = 2,
+                                                    .c = c,
+                                                    .L = L,
+                                                    .Dij = Dm,
+                                                    .x0 = x0,
+                                                    .xL = xL},
+                                        MCD_FILM_BOOT_STAGNANT, 1, NULL, meth,
+                                        N, NULL, NULL),
                          MCD_OK);
         ref = k * log((1 - aL) / (1 - a0));
         ck_assert_double_eq_tol(N[0], ref, 1e-10 * fabs(ref) + 1e-300);
         ck_assert_double_eq(N[1], 0.0);
 
         /* equimolar: N_A = c Đ (xA0 - xAL)/L */
-        ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = 2, .c = c, .L = L, .Dij = Dm, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, meth, N, NULL, NULL),
+        ck_assert_int_eq(mcd_film_solve(ws,
+                                        &(mcd_film){.n_species = 2,
+                                                    .c = c,
+                                                    .L = L,
+                                                    .Dij = Dm,
+                                                    .x0 = x0,
+                                                    .xL = xL},
+                                        MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, meth,
+                                        N, NULL, NULL),
                          MCD_OK);
         ref = k * (a0 - aL);
         ck_assert_double_eq_tol(N[0], ref, 1e-10 * fabs(ref) + 1e-18);
@@ -769,7 +810,15 @@ START_TEST(film_binary_equals_closed_forms)
         {
             double zA = (a0 > aL) ? a0 + 0.1 + urand() : a0 - 0.1 - urand();
             double zv[2] = {zA, 1 - zA};
-            ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = 2, .c = c, .L = L, .Dij = Dm, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_RATIOS, 0, zv, meth, N, NULL, NULL),
+            ck_assert_int_eq(mcd_film_solve(ws,
+                                            &(mcd_film){.n_species = 2,
+                                                        .c = c,
+                                                        .L = L,
+                                                        .Dij = Dm,
+                                                        .x0 = x0,
+                                                        .xL = xL},
+                                            MCD_FILM_BOOT_RATIOS, 0, zv, meth,
+                                            N, NULL, NULL),
                              MCD_OK);
             ref = zA * k * log((zA - aL) / (zA - a0));
             ck_assert_double_eq_tol(N[0], ref, 1e-9 * fabs(ref) + 1e-18);
@@ -782,9 +831,9 @@ END_TEST
 
 START_TEST(film_agrees_with_independent_shooting)
 {
-    const mcd_film_bootstrap kinds[5] = {MCD_FILM_BOOT_STAGNANT, MCD_FILM_BOOT_EQUIMOLAR,
-                                    MCD_FILM_BOOT_WEIGHTS, MCD_FILM_BOOT_TOTAL,
-                                    MCD_FILM_BOOT_RATIOS};
+    const mcd_film_bootstrap kinds[5] = {
+        MCD_FILM_BOOT_STAGNANT, MCD_FILM_BOOT_EQUIMOLAR, MCD_FILM_BOOT_WEIGHTS,
+        MCD_FILM_BOOT_TOTAL, MCD_FILM_BOOT_RATIOS};
     double worst = 0.0, worst_prof = 0.0, worst_two = 0.0;
     size_t max_it = 0;
     int count = 0, n_second = 0, n_two = 0, n_finer = 0;
@@ -817,13 +866,21 @@ START_TEST(film_agrees_with_independent_shooting)
         rf.steps = RK_STEPS;
         if (kind == MCD_FILM_BOOT_RATIOS)
             ratios_film(&rf, sp, x0, val, xL);
-        ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = n, .c = c, .L = L, .Dij = D, .x0 = x0, .xL = xL}, kind, sp, val, MCD_FILM_EXACT, N, &it, NULL),
+        ck_assert_int_eq(mcd_film_solve(ws,
+                                        &(mcd_film){.n_species = n,
+                                                    .c = c,
+                                                    .L = L,
+                                                    .Dij = D,
+                                                    .x0 = x0,
+                                                    .xL = xL},
+                                        kind, sp, val, MCD_FILM_EXACT, N, &it,
+                                        NULL),
                          MCD_OK);
         if (it > max_it)
             max_it = it;
         /* the reference starts from its own linearized fluxes */
-        ck_assert_msg(ref_fluxes(&rf, x0, xL, kind, sp, val, 0, Nref,
-                                 &second, &steps) == 0,
+        ck_assert_msg(ref_fluxes(&rf, x0, xL, kind, sp, val, 0, Nref, &second,
+                                 &steps) == 0,
                       "trial %d n %zu kind %d: the REFERENCE (the shooting "
                       "written in this test) did not converge with either "
                       "method; this is not a library failure",
@@ -839,8 +896,8 @@ START_TEST(film_agrees_with_independent_shooting)
          * step of 1e-10 (REF_TOL), the library at a relative change of
          * 1e-12, and RK4 with 3000 steps is good to ~4e-13 (see
          * RK_STEPS): 1e-6 leaves a wide margin (the brief's criterion). */
-        ck_assert_msg(err <= 1e-6, "trial %d n %zu kind %d: err %g", trial,
-                      n, (int)kind, err);
+        ck_assert_msg(err <= 1e-6, "trial %d n %zu kind %d: err %g", trial, n,
+                      (int)kind, err);
 
         /* The second method on its own, on every 7th film (all kinds and
          * sizes among them), so that it is exercised even when the first
@@ -848,16 +905,18 @@ START_TEST(film_agrees_with_independent_shooting)
          * a step of 1e-10 times the flux scale. */
         if (trial % 7 == 0) {
             double N2[NMAX], e2 = 0.0;
-            ck_assert_msg(ref_fluxes(&rf, x0, xL, kind, sp, val, 1, N2,
-                                     &second, &steps) == 0,
+            ck_assert_msg(ref_fluxes(&rf, x0, xL, kind, sp, val, 1, N2, &second,
+                                     &steps) == 0,
                           "trial %d n %zu kind %d: the REFERENCE's second "
                           "method did not converge; not a library failure",
                           trial, n, (int)kind);
             for (size_t i = 0; i < n; i++)
                 e2 = fmax(e2, fabs(N2[i] - Nref[i]) / nmax);
             worst_two = fmax(worst_two, e2);
-            ck_assert_msg(e2 <= 1e-8, "trial %d: reference methods differ "
-                          "by %g", trial, e2);
+            ck_assert_msg(e2 <= 1e-8,
+                          "trial %d: reference methods differ "
+                          "by %g",
+                          trial, e2);
             n_two++;
         }
 
@@ -865,8 +924,13 @@ START_TEST(film_agrees_with_independent_shooting)
         {
             double zm = 0.37 * L, xr[NMAX], xp[NMAX];
             rk4(&rf, x0, N, zm, RK_STEPS, xr);
-            ck_assert_int_eq(mcd_film_profile(ws, &(mcd_film){.n_species = n, .c = c, .L = L, .Dij = D, .x0 = x0}, N, 1, &zm, xp),
-                             MCD_OK);
+            ck_assert_int_eq(
+                mcd_film_profile(
+                    ws,
+                    &(mcd_film){
+                        .n_species = n, .c = c, .L = L, .Dij = D, .x0 = x0},
+                    N, 1, &zm, xp),
+                MCD_OK);
             for (size_t i = 0; i < n; i++) {
                 worst_prof = fmax(worst_prof, fabs(xp[i] - xr[i]));
                 /* both accurate to ~1e-12; 1e-9 absolute margin */
@@ -899,9 +963,25 @@ START_TEST(film_linearized_approaches_exact_for_small_differences)
         double eps = k ? 0.01 : 0.1, e = 0, nm = 0;
         for (int i = 0; i < 4; i++)
             xL[i] = x0[i] + eps * (dir[i] - x0[i]);
-        ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = 4, .c = c, .L = L, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_STAGNANT, 3, NULL, MCD_FILM_EXACT, Ne, NULL, NULL),
+        ck_assert_int_eq(mcd_film_solve(ws,
+                                        &(mcd_film){.n_species = 4,
+                                                    .c = c,
+                                                    .L = L,
+                                                    .Dij = D,
+                                                    .x0 = x0,
+                                                    .xL = xL},
+                                        MCD_FILM_BOOT_STAGNANT, 3, NULL,
+                                        MCD_FILM_EXACT, Ne, NULL, NULL),
                          MCD_OK);
-        ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = 4, .c = c, .L = L, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_STAGNANT, 3, NULL, MCD_FILM_LINEARIZED, Nl, NULL, NULL),
+        ck_assert_int_eq(mcd_film_solve(ws,
+                                        &(mcd_film){.n_species = 4,
+                                                    .c = c,
+                                                    .L = L,
+                                                    .Dij = D,
+                                                    .x0 = x0,
+                                                    .xL = xL},
+                                        MCD_FILM_BOOT_STAGNANT, 3, NULL,
+                                        MCD_FILM_LINEARIZED, Nl, NULL, NULL),
                          MCD_OK);
         for (int i = 0; i < 4; i++) {
             e = fmax(e, fabs(Ne[i] - Nl[i]));
@@ -912,8 +992,8 @@ START_TEST(film_linearized_approaches_exact_for_small_differences)
         else
             d1 = e / nm;
     }
-    printf("linearized vs exact: rel. diff %.2e (dx 0.1), %.2e (dx 0.01)\n",
-           d1, d2);
+    printf("linearized vs exact: rel. diff %.2e (dx 0.1), %.2e (dx 0.01)\n", d1,
+           d2);
     ck_assert(d1 < 0.05);
     ck_assert(d2 < d1 / 30.0); /* second order: ideal ratio 100 */
 }
@@ -928,10 +1008,22 @@ START_TEST(film_profile_ends_at_xL_and_conserves_sum)
         random_dij(n, D);
         random_comp(n, 0.0, x0);
         random_comp(n, 0.0, xL);
-        ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = n, .c = c, .L = L, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, NULL, NULL),
+        ck_assert_int_eq(mcd_film_solve(ws,
+                                        &(mcd_film){.n_species = n,
+                                                    .c = c,
+                                                    .L = L,
+                                                    .Dij = D,
+                                                    .x0 = x0,
+                                                    .xL = xL},
+                                        MCD_FILM_BOOT_EQUIMOLAR, 0, NULL,
+                                        MCD_FILM_EXACT, N, NULL, NULL),
                          MCD_OK);
-        ck_assert_int_eq(mcd_film_profile(ws, &(mcd_film){.n_species = n, .c = c, .L = L, .Dij = D, .x0 = x0}, N, 2, z, X),
-                         MCD_OK);
+        ck_assert_int_eq(
+            mcd_film_profile(
+                ws,
+                &(mcd_film){.n_species = n, .c = c, .L = L, .Dij = D, .x0 = x0},
+                N, 2, z, X),
+            MCD_OK);
         for (size_t i = 0; i < n; i++) {
             /* z = 0 is exp(0) = I exactly; x0 is renormalised by its
              * sum (1 +- a few ulp): 1e-15 */
@@ -951,8 +1043,9 @@ START_TEST(film_pure_ends_and_absent_species_are_exact)
      * (common practice), and the header promises it. Checked over many
      * random Dij and every local bootstrap, since round-off in the matrix
      * functions used to leave |N_s| ~ 1e-18 for some Dij (1750 of 10000). */
-    const mcd_film_bootstrap kinds[4] = {MCD_FILM_BOOT_EQUIMOLAR, MCD_FILM_BOOT_STAGNANT,
-                                    MCD_FILM_BOOT_WEIGHTS, MCD_FILM_BOOT_TOTAL};
+    const mcd_film_bootstrap kinds[4] = {
+        MCD_FILM_BOOT_EQUIMOLAR, MCD_FILM_BOOT_STAGNANT, MCD_FILM_BOOT_WEIGHTS,
+        MCD_FILM_BOOT_TOTAL};
     for (int trial = 0; trial < 400; trial++) {
         mcd_film_bootstrap kind = kinds[trial % 4];
         double D[16], x0[4] = {1, 0, 0, 0}, xL[4] = {0, 0.5, 0.5, 0}, N[4];
@@ -967,7 +1060,16 @@ START_TEST(film_pure_ends_and_absent_species_are_exact)
         if (kind == MCD_FILM_BOOT_TOTAL)
             val[0] = 1e-3;
         for (int meth = 0; meth < 2; meth++) {
-            ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = 4, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, kind, sp, val, (mcd_film_method)meth, N, NULL, NULL),
+            ck_assert_int_eq(mcd_film_solve(ws,
+                                            &(mcd_film){.n_species = 4,
+                                                        .c = 40,
+                                                        .L = 0.1,
+                                                        .Dij = D,
+                                                        .x0 = x0,
+                                                        .xL = xL},
+                                            kind, sp, val,
+                                            (mcd_film_method)meth, N, NULL,
+                                            NULL),
                              MCD_OK);
             ck_assert_msg(N[3] == 0.0, "trial %d kind %d method %d: N[3] = %g",
                           trial, (int)kind, meth, N[3]);
@@ -984,7 +1086,15 @@ START_TEST(film_pure_ends_and_absent_species_are_exact)
         double D[16], x0[4] = {1, 0, 0, 0}, xL[4] = {0, 0.5, 0.5, 0}, N[4];
         for (int k = 0; k < 16; k++)
             D[k] = (k % 5 == 0) ? 0.0 : 2e-5;
-        ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = 4, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, NULL, NULL),
+        ck_assert_int_eq(mcd_film_solve(ws,
+                                        &(mcd_film){.n_species = 4,
+                                                    .c = 40,
+                                                    .L = 0.1,
+                                                    .Dij = D,
+                                                    .x0 = x0,
+                                                    .xL = xL},
+                                        MCD_FILM_BOOT_EQUIMOLAR, 0, NULL,
+                                        MCD_FILM_EXACT, N, NULL, NULL),
                          MCD_OK);
         ck_assert(N[0] > 0 && N[1] < 0 && N[2] < 0 && N[3] == 0.0);
     }
@@ -998,8 +1108,8 @@ START_TEST(film_works_at_full_workspace_capacity)
      * operations in the same order). */
     for (size_t n = 2; n <= 6; n++) {
         mcd_workspace *w;
-        double D[NMAX * NMAX], x0[NMAX], xL[NMAX], z[NMAX], N1[NMAX],
-            N2[NMAX], zz = 0.01, X1[NMAX], X2[NMAX];
+        double D[NMAX * NMAX], x0[NMAX], xL[NMAX], z[NMAX], N1[NMAX], N2[NMAX],
+            zz = 0.01, X1[NMAX], X2[NMAX];
         random_dij(n, D);
         random_comp(n, 0.1, x0);
         random_comp(n, 0.1, xL);
@@ -1013,20 +1123,49 @@ START_TEST(film_works_at_full_workspace_capacity)
             z[i] = (i == 0) ? x0[0] + 0.5 : (0.5 - x0[0]) / (double)(n - 1);
         ck_assert_int_eq(mcd_workspace_new(n, &w), MCD_OK);
         for (int kind = 0; kind < 2; kind++) {
-            mcd_film_bootstrap b = kind ? MCD_FILM_BOOT_RATIOS : MCD_FILM_BOOT_STAGNANT;
+            mcd_film_bootstrap b =
+                kind ? MCD_FILM_BOOT_RATIOS : MCD_FILM_BOOT_STAGNANT;
             for (int meth = 0; meth < 2; meth++) {
-                ck_assert_int_eq(mcd_film_solve(w, &(mcd_film){.n_species = n, .c = 40, .L = 0.03, .Dij = D, .x0 = x0, .xL = xL}, b, kind ? 0 : n - 1, z, (mcd_film_method)meth, N1, NULL, NULL),
+                ck_assert_int_eq(mcd_film_solve(w,
+                                                &(mcd_film){.n_species = n,
+                                                            .c = 40,
+                                                            .L = 0.03,
+                                                            .Dij = D,
+                                                            .x0 = x0,
+                                                            .xL = xL},
+                                                b, kind ? 0 : n - 1, z,
+                                                (mcd_film_method)meth, N1, NULL,
+                                                NULL),
                                  MCD_OK);
-                ck_assert_int_eq(mcd_film_solve(ws, &(mcd_film){.n_species = n, .c = 40, .L = 0.03, .Dij = D, .x0 = x0, .xL = xL}, b, kind ? 0 : n - 1, z, (mcd_film_method)meth, N2, NULL, NULL),
+                ck_assert_int_eq(mcd_film_solve(ws,
+                                                &(mcd_film){.n_species = n,
+                                                            .c = 40,
+                                                            .L = 0.03,
+                                                            .Dij = D,
+                                                            .x0 = x0,
+                                                            .xL = xL},
+                                                b, kind ? 0 : n - 1, z,
+                                                (mcd_film_method)meth, N2, NULL,
+                                                NULL),
                                  MCD_OK);
                 for (size_t i = 0; i < n; i++)
                     ck_assert_double_eq(N1[i], N2[i]);
             }
         }
-        ck_assert_int_eq(mcd_film_profile(w, &(mcd_film){.n_species = n, .c = 40, .L = 0.03, .Dij = D, .x0 = x0}, N1, 1, &zz, X1),
-                         MCD_OK);
-        ck_assert_int_eq(mcd_film_profile(ws, &(mcd_film){.n_species = n, .c = 40, .L = 0.03, .Dij = D, .x0 = x0}, N1, 1, &zz, X2),
-                         MCD_OK);
+        ck_assert_int_eq(
+            mcd_film_profile(
+                w,
+                &(mcd_film){
+                    .n_species = n, .c = 40, .L = 0.03, .Dij = D, .x0 = x0},
+                N1, 1, &zz, X1),
+            MCD_OK);
+        ck_assert_int_eq(
+            mcd_film_profile(
+                ws,
+                &(mcd_film){
+                    .n_species = n, .c = 40, .L = 0.03, .Dij = D, .x0 = x0},
+                N1, 1, &zz, X2),
+            MCD_OK);
         for (size_t i = 0; i < n; i++)
             ck_assert_double_eq(X1[i], X2[i]);
         mcd_workspace_free(w);
@@ -1066,86 +1205,270 @@ START_TEST(film_errors_leave_outputs_untouched)
         unchanged(N, 3);                                                       \
     } while (0)
 
-    EXPECT(mcd_film_solve(NULL, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(NULL,
+                          &(mcd_film){.n_species = 3,
+                                      .c = 40,
+                                      .L = 0.1,
+                                      .Dij = D,
+                                      .x0 = x0,
+                                      .xL = xL},
+                          MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N,
+                          &it, &res),
            MCD_EINVAL);
     ck_assert_int_eq(mcd_workspace_new(3, &small), MCD_OK);
-    EXPECT(mcd_film_solve(small, NULL, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it,
-                          &res),
+    EXPECT(mcd_film_solve(small, NULL, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL,
+                          MCD_FILM_EXACT, N, &it, &res),
            MCD_EINVAL);
     ck_assert_str_eq(mcd_last_error(), "argument film: NULL");
     EXPECT(mcd_film_profile(small, NULL, N, 1, x0, N), MCD_EINVAL);
     ck_assert_str_eq(mcd_last_error(), "argument film: NULL");
     mcd_workspace_free(small);
-    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 1, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(ws,
+                          &(mcd_film){.n_species = 1,
+                                      .c = 40,
+                                      .L = 0.1,
+                                      .Dij = D,
+                                      .x0 = x0,
+                                      .xL = xL},
+                          MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N,
+                          &it, &res),
            MCD_EINVAL);
     ck_assert_int_eq(mcd_workspace_new(2, &small), MCD_OK);
-    EXPECT(mcd_film_solve(small, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(small,
+                          &(mcd_film){.n_species = 3,
+                                      .c = 40,
+                                      .L = 0.1,
+                                      .Dij = D,
+                                      .x0 = x0,
+                                      .xL = xL},
+                          MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N,
+                          &it, &res),
            MCD_EBADLEN);
     mcd_workspace_free(small);
-    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
-           MCD_EINVAL);
+    EXPECT(
+        mcd_film_solve(
+            ws,
+            &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .x0 = x0, .xL = xL},
+            MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
+        MCD_EINVAL);
     {
         double Dn[9];
         memcpy(Dn, D, sizeof Dn);
         Dn[1] = NAN;
-        EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = Dn, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
+        EXPECT(mcd_film_solve(ws,
+                              &(mcd_film){.n_species = 3,
+                                          .c = 40,
+                                          .L = 0.1,
+                                          .Dij = Dn,
+                                          .x0 = x0,
+                                          .xL = xL},
+                              MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT,
+                              N, &it, &res),
                MCD_EINVAL);
         memcpy(Dn, D, sizeof Dn);
         Dn[1] *= 1.01; /* asymmetric */
-        EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = Dn, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
+        EXPECT(mcd_film_solve(ws,
+                              &(mcd_film){.n_species = 3,
+                                          .c = 40,
+                                          .L = 0.1,
+                                          .Dij = Dn,
+                                          .x0 = x0,
+                                          .xL = xL},
+                              MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT,
+                              N, &it, &res),
                MCD_EDOM);
         memcpy(Dn, D, sizeof Dn);
         Dn[1] = Dn[3] = -1e-5;
-        EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = Dn, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
+        EXPECT(mcd_film_solve(ws,
+                              &(mcd_film){.n_species = 3,
+                                          .c = 40,
+                                          .L = 0.1,
+                                          .Dij = Dn,
+                                          .x0 = x0,
+                                          .xL = xL},
+                              MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT,
+                              N, &it, &res),
                MCD_EDOM);
     }
-    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 0.0, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(ws,
+                          &(mcd_film){.n_species = 3,
+                                      .c = 0.0,
+                                      .L = 0.1,
+                                      .Dij = D,
+                                      .x0 = x0,
+                                      .xL = xL},
+                          MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N,
+                          &it, &res),
            MCD_EDOM);
-    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = NAN, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(ws,
+                          &(mcd_film){.n_species = 3,
+                                      .c = 40,
+                                      .L = NAN,
+                                      .Dij = D,
+                                      .x0 = x0,
+                                      .xL = xL},
+                          MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N,
+                          &it, &res),
            MCD_EINVAL);
-    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = -0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(ws,
+                          &(mcd_film){.n_species = 3,
+                                      .c = 40,
+                                      .L = -0.1,
+                                      .Dij = D,
+                                      .x0 = x0,
+                                      .xL = xL},
+                          MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N,
+                          &it, &res),
            MCD_EDOM);
-    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = bad, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(ws,
+                          &(mcd_film){.n_species = 3,
+                                      .c = 40,
+                                      .L = 0.1,
+                                      .Dij = D,
+                                      .x0 = bad,
+                                      .xL = xL},
+                          MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N,
+                          &it, &res),
            MCD_EDOM);
-    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = neg}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(ws,
+                          &(mcd_film){.n_species = 3,
+                                      .c = 40,
+                                      .L = 0.1,
+                                      .Dij = D,
+                                      .x0 = x0,
+                                      .xL = neg},
+                          MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N,
+                          &it, &res),
            MCD_EDOM);
-    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(
+        mcd_film_solve(
+            ws,
+            &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0},
+            MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
+        MCD_EINVAL);
+    EXPECT(mcd_film_solve(ws,
+                          &(mcd_film){.n_species = 3,
+                                      .c = 40,
+                                      .L = 0.1,
+                                      .Dij = D,
+                                      .x0 = x0,
+                                      .xL = xL},
+                          (mcd_film_bootstrap)99, 0, NULL, MCD_FILM_EXACT, N,
+                          &it, &res),
            MCD_EINVAL);
-    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, (mcd_film_bootstrap)99, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(ws,
+                          &(mcd_film){.n_species = 3,
+                                      .c = 40,
+                                      .L = 0.1,
+                                      .Dij = D,
+                                      .x0 = x0,
+                                      .xL = xL},
+                          MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, (mcd_film_method)7,
+                          N, &it, &res),
            MCD_EINVAL);
-    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, (mcd_film_method)7, N, &it, &res),
-           MCD_EINVAL);
-    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_STAGNANT, 3, NULL, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(ws,
+                          &(mcd_film){.n_species = 3,
+                                      .c = 40,
+                                      .L = 0.1,
+                                      .Dij = D,
+                                      .x0 = x0,
+                                      .xL = xL},
+                          MCD_FILM_BOOT_STAGNANT, 3, NULL, MCD_FILM_EXACT, N,
+                          &it, &res),
            MCD_EINVAL);
     {
         /* stagnant species absent at both ends, and at one end */
         double a0[3] = {0.5, 0.5, 0}, aL[3] = {0.2, 0.8, 0};
         double b0[3] = {0.5, 0.3, 0.2};
-        EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = a0, .xL = aL}, MCD_FILM_BOOT_STAGNANT, 2, NULL, MCD_FILM_EXACT, N, &it, &res),
+        EXPECT(mcd_film_solve(ws,
+                              &(mcd_film){.n_species = 3,
+                                          .c = 40,
+                                          .L = 0.1,
+                                          .Dij = D,
+                                          .x0 = a0,
+                                          .xL = aL},
+                              MCD_FILM_BOOT_STAGNANT, 2, NULL, MCD_FILM_EXACT,
+                              N, &it, &res),
                MCD_EDOM);
-        EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = b0, .xL = aL}, MCD_FILM_BOOT_STAGNANT, 2, NULL, MCD_FILM_LINEARIZED, N, &it, &res),
+        EXPECT(mcd_film_solve(ws,
+                              &(mcd_film){.n_species = 3,
+                                          .c = 40,
+                                          .L = 0.1,
+                                          .Dij = D,
+                                          .x0 = b0,
+                                          .xL = aL},
+                              MCD_FILM_BOOT_STAGNANT, 2, NULL,
+                              MCD_FILM_LINEARIZED, N, &it, &res),
                MCD_EDOM);
         /* weights with sum nu_i x_i = 0 at both ends */
         double w0[3] = {0.4, 0.4, 0.2}, wL[3] = {0.1, 0.1, 0.8};
-        EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = w0, .xL = wL}, MCD_FILM_BOOT_WEIGHTS, 0, nu0, MCD_FILM_EXACT, N, &it, &res),
+        EXPECT(mcd_film_solve(ws,
+                              &(mcd_film){.n_species = 3,
+                                          .c = 40,
+                                          .L = 0.1,
+                                          .Dij = D,
+                                          .x0 = w0,
+                                          .xL = wL},
+                              MCD_FILM_BOOT_WEIGHTS, 0, nu0, MCD_FILM_EXACT, N,
+                              &it, &res),
                MCD_EDOM);
     }
-    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_WEIGHTS, 0, NULL, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(ws,
+                          &(mcd_film){.n_species = 3,
+                                      .c = 40,
+                                      .L = 0.1,
+                                      .Dij = D,
+                                      .x0 = x0,
+                                      .xL = xL},
+                          MCD_FILM_BOOT_WEIGHTS, 0, NULL, MCD_FILM_EXACT, N,
+                          &it, &res),
            MCD_EINVAL);
     {
         double nn[3] = {1, NAN, 1};
-        EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_WEIGHTS, 0, nn, MCD_FILM_EXACT, N, &it, &res),
+        EXPECT(mcd_film_solve(ws,
+                              &(mcd_film){.n_species = 3,
+                                          .c = 40,
+                                          .L = 0.1,
+                                          .Dij = D,
+                                          .x0 = x0,
+                                          .xL = xL},
+                              MCD_FILM_BOOT_WEIGHTS, 0, nn, MCD_FILM_EXACT, N,
+                              &it, &res),
                MCD_EINVAL);
     }
-    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_TOTAL, 0, &nanv, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(ws,
+                          &(mcd_film){.n_species = 3,
+                                      .c = 40,
+                                      .L = 0.1,
+                                      .Dij = D,
+                                      .x0 = x0,
+                                      .xL = xL},
+                          MCD_FILM_BOOT_TOTAL, 0, &nanv, MCD_FILM_EXACT, N, &it,
+                          &res),
            MCD_EINVAL);
-    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_RATIOS, 0, nu, MCD_FILM_EXACT, N, &it, &res),
+    EXPECT(mcd_film_solve(ws,
+                          &(mcd_film){.n_species = 3,
+                                      .c = 40,
+                                      .L = 0.1,
+                                      .Dij = D,
+                                      .x0 = x0,
+                                      .xL = xL},
+                          MCD_FILM_BOOT_RATIOS, 0, nu, MCD_FILM_EXACT, N, &it,
+                          &res),
            MCD_EDOM); /* z sums to 3 */
     {
         /* total flux so large that exp(Phi) overflows: rate factor out of
          * range at the first evaluation */
         tot = 1e9;
-        EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_TOTAL, 0, &tot, MCD_FILM_EXACT, N, &it, &res),
+        EXPECT(mcd_film_solve(ws,
+                              &(mcd_film){.n_species = 3,
+                                          .c = 40,
+                                          .L = 0.1,
+                                          .Dij = D,
+                                          .x0 = x0,
+                                          .xL = xL},
+                              MCD_FILM_BOOT_TOTAL, 0, &tot, MCD_FILM_EXACT, N,
+                              &it, &res),
                MCD_EDOM);
     }
     {
@@ -1153,13 +1476,29 @@ START_TEST(film_errors_leave_outputs_untouched)
          * the last residual in the workspace message */
         double Db[4] = {0, 2e-5, 2e-5, 0};
         double a0[2] = {0.5, 0.5}, aL[2] = {0.1, 0.9}, zr[2] = {0.3, 0.7};
-        EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 2, .c = 40, .L = 0.1, .Dij = Db, .x0 = a0, .xL = aL}, MCD_FILM_BOOT_RATIOS, 0, zr, MCD_FILM_EXACT, N, &it, &res),
+        EXPECT(mcd_film_solve(ws,
+                              &(mcd_film){.n_species = 2,
+                                          .c = 40,
+                                          .L = 0.1,
+                                          .Dij = Db,
+                                          .x0 = a0,
+                                          .xL = aL},
+                              MCD_FILM_BOOT_RATIOS, 0, zr, MCD_FILM_EXACT, N,
+                              &it, &res),
                MCD_ENOCONV);
         ck_assert_ptr_nonnull(strstr(mcd_last_error(), "residual"));
     }
     ck_assert_uint_eq(it, 777);
     ck_assert_double_eq(res, GUARD);
-    EXPECT(mcd_film_solve(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0, .xL = xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, NULL, &it, &res),
+    EXPECT(mcd_film_solve(ws,
+                          &(mcd_film){.n_species = 3,
+                                      .c = 40,
+                                      .L = 0.1,
+                                      .Dij = D,
+                                      .x0 = x0,
+                                      .xL = xL},
+                          MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT,
+                          NULL, &it, &res),
            MCD_EINVAL);
 #undef EXPECT
 }
@@ -1177,17 +1516,61 @@ START_TEST(film_profile_errors_leave_outputs_untouched)
         ck_assert_int_eq((call), (code));                                      \
         unchanged(X, 6);                                                       \
     } while (0)
-    EXPECTP(mcd_film_profile(NULL, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0}, N, 2, z, X), MCD_EINVAL);
-    EXPECTP(mcd_film_profile(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0}, N, 2, zbad, X), MCD_EDOM);
-    EXPECTP(mcd_film_profile(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0}, Nbig, 2, z, X), MCD_EDOM);
-    EXPECTP(mcd_film_profile(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0}, Nn, 2, z, X), MCD_EINVAL);
-    EXPECTP(mcd_film_profile(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = bad}, N, 2, z, X), MCD_EDOM);
-    EXPECTP(mcd_film_profile(ws, &(mcd_film){.n_species = 3, .c = -40, .L = 0.1, .Dij = D, .x0 = x0}, N, 2, z, X), MCD_EDOM);
-    EXPECTP(mcd_film_profile(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0}, N, 2, NULL, X),
-            MCD_EINVAL);
-    EXPECTP(mcd_film_profile(ws, &(mcd_film){.n_species = 9, .c = 40, .L = 0.1, .Dij = D, .x0 = x0}, N, 2, z, X), MCD_EBADLEN);
+    EXPECTP(
+        mcd_film_profile(
+            NULL,
+            &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0},
+            N, 2, z, X),
+        MCD_EINVAL);
+    EXPECTP(
+        mcd_film_profile(
+            ws,
+            &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0},
+            N, 2, zbad, X),
+        MCD_EDOM);
+    EXPECTP(
+        mcd_film_profile(
+            ws,
+            &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0},
+            Nbig, 2, z, X),
+        MCD_EDOM);
+    EXPECTP(
+        mcd_film_profile(
+            ws,
+            &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0},
+            Nn, 2, z, X),
+        MCD_EINVAL);
+    EXPECTP(
+        mcd_film_profile(
+            ws,
+            &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = bad},
+            N, 2, z, X),
+        MCD_EDOM);
+    EXPECTP(
+        mcd_film_profile(
+            ws,
+            &(mcd_film){.n_species = 3, .c = -40, .L = 0.1, .Dij = D, .x0 = x0},
+            N, 2, z, X),
+        MCD_EDOM);
+    EXPECTP(
+        mcd_film_profile(
+            ws,
+            &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0},
+            N, 2, NULL, X),
+        MCD_EINVAL);
+    EXPECTP(
+        mcd_film_profile(
+            ws,
+            &(mcd_film){.n_species = 9, .c = 40, .L = 0.1, .Dij = D, .x0 = x0},
+            N, 2, z, X),
+        MCD_EBADLEN);
     /* zero points: nothing written, success */
-    EXPECTP(mcd_film_profile(ws, &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0}, N, 0, z, X), MCD_OK);
+    EXPECTP(
+        mcd_film_profile(
+            ws,
+            &(mcd_film){.n_species = 3, .c = 40, .L = 0.1, .Dij = D, .x0 = x0},
+            N, 0, z, X),
+        MCD_OK);
 #undef EXPECTP
 }
 END_TEST

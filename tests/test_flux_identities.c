@@ -68,7 +68,9 @@ static void random_state(state *s, size_t n, int allow_zero)
         switch (kind) {
         case 0: s->x[i] = sup_range(&rng, 0.01, 1.0); break;
         case 1: s->x[i] = sup_decades(&rng, -8.0, 0.0); break;
-        case 2: s->x[i] = (sup_next(&rng) % 3 == 0) ? 0.0 : sup_u01(&rng); break;
+        case 2:
+            s->x[i] = (sup_next(&rng) % 3 == 0) ? 0.0 : sup_u01(&rng);
+            break;
         default: s->x[i] = sup_decades(&rng, -6.0, -2.0); break;
         }
     }
@@ -118,7 +120,18 @@ static mcd_status flux(const state *s, mcd_model model, mcd_basis cb,
                        const double *Gamma, const double *glnP, mcd_basis fb,
                        double *out)
 {
-    return mcd_flux_compute(ws, model, &(mcd_state){.n_species = s->n, .n_dim = s->nd, .M = s->M, .Dij = s->D, .c = s->c, .comp_basis = cb, .comp = comp, .grad = grad, .Gamma = Gamma, .grad_lnP = glnP}, fb, out);
+    return mcd_flux_compute(ws, model,
+                            &(mcd_state){.n_species = s->n,
+                                         .n_dim = s->nd,
+                                         .M = s->M,
+                                         .Dij = s->D,
+                                         .c = s->c,
+                                         .comp_basis = cb,
+                                         .comp = comp,
+                                         .grad = grad,
+                                         .Gamma = Gamma,
+                                         .grad_lnP = glnP},
+                            fb, out);
 }
 
 /* ------------------------------------------------------------------ */
@@ -140,8 +153,8 @@ START_TEST(flux_identities_zero_sum_in_both_bases)
             for (b = 0; b < 2; b++) {
                 double F[NMAX * DMAX];
                 size_t i, d;
-                ck_assert_int_eq(flux(&s, (mcd_model)m, MCD_BASIS_MOLE, s.x, s.g,
-                                      NULL, NULL, (mcd_basis)b, F),
+                ck_assert_int_eq(flux(&s, (mcd_model)m, MCD_BASIS_MOLE, s.x,
+                                      s.g, NULL, NULL, (mcd_basis)b, F),
                                  MCD_OK);
                 for (d = 0; d < s.nd; d++) {
                     double sum = 0.0, sabs = 0.0;
@@ -168,8 +181,7 @@ END_TEST
 
 /* Residual of the Maxwell-Stefan equations in long double, row by row,
  * relative to the size of the terms of that row. */
-static long double ms_residual(const state *s, const double *d,
-                               const double *J)
+static long double ms_residual(const state *s, const double *d, const double *J)
 {
     long double worst = 0.0L;
     size_t n = s->n, nd = s->nd, i, j, q;
@@ -208,8 +220,8 @@ START_TEST(flux_identities_fluxes_satisfy_maxwell_stefan_equations)
         double J[NMAX * DMAX];
         long double r;
         random_state(&s, 2 + (size_t)(sup_next(&rng) % (NMAX - 1)), 1);
-        ck_assert_int_eq(flux(&s, MCD_MODEL_MAXWELL_STEFAN, MCD_BASIS_MOLE,
-                              s.x, s.g, NULL, NULL, MCD_BASIS_MOLE, J),
+        ck_assert_int_eq(flux(&s, MCD_MODEL_MAXWELL_STEFAN, MCD_BASIS_MOLE, s.x,
+                              s.g, NULL, NULL, MCD_BASIS_MOLE, J),
                          MCD_OK);
         r = ms_residual(&s, s.g, J);
         if (r > worst)
@@ -257,10 +269,21 @@ START_TEST(flux_identities_onsager_symmetry_of_velocity_map)
                 g[q] = 0.0;
             g[j] = 1.0;
             g[ref] = -1.0;
-            ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = n, .n_dim = 1, .Dij = s.D, .c = s.c, .comp_basis = MCD_BASIS_MOLE, .comp = s.x, .grad = g, .Gamma = Gam}, MCD_BASIS_MOLE, J),
-                             MCD_OK);
+            ck_assert_int_eq(
+                mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
+                                 &(mcd_state){.n_species = n,
+                                              .n_dim = 1,
+                                              .Dij = s.D,
+                                              .c = s.c,
+                                              .comp_basis = MCD_BASIS_MOLE,
+                                              .comp = s.x,
+                                              .grad = g,
+                                              .Gamma = Gam},
+                                 MCD_BASIS_MOLE, J),
+                MCD_OK);
             for (i = 0; i < n; i++)
-                S[i * n + j] = J[i] / (s.c * s.x[i]) - J[ref] / (s.c * s.x[ref]);
+                S[i * n + j] =
+                    J[i] / (s.c * s.x[i]) - J[ref] / (s.c * s.x[ref]);
         }
         for (i = 0; i < n; i++)
             for (j = 0; j < n; j++)
@@ -274,7 +297,8 @@ START_TEST(flux_identities_onsager_symmetry_of_velocity_map)
                 e = fabs(S[i * n + j] - S[j * n + i]) / smax;
                 if (e > worst)
                     worst = e;
-                ck_assert_msg(e <= 1e-12, "N=%zu S(%zu,%zu) asym %g", n, i, j, e);
+                ck_assert_msg(e <= 1e-12, "N=%zu S(%zu,%zu) asym %g", n, i, j,
+                              e);
             }
         /* the map is also negative definite: S_jj < 0 (flux down the
          * gradient of its own driving force difference) */
@@ -313,8 +337,9 @@ START_TEST(flux_identities_equal_diffusivities_give_mixture_averaged)
             for (fb = 0; fb < 2; fb++) {
                 double Fms[NMAX * DMAX], Fma[NMAX * DMAX], e;
                 const double *comp = cb ? s.w : s.x, *grad = cb ? gw : s.g;
-                ck_assert_int_eq(flux(&s, MCD_MODEL_MAXWELL_STEFAN, (mcd_basis)cb,
-                                      comp, grad, NULL, NULL, (mcd_basis)fb, Fms),
+                ck_assert_int_eq(flux(&s, MCD_MODEL_MAXWELL_STEFAN,
+                                      (mcd_basis)cb, comp, grad, NULL, NULL,
+                                      (mcd_basis)fb, Fms),
                                  MCD_OK);
                 ck_assert_int_eq(flux(&s, MCD_MODEL_MIXTURE_AVERAGED,
                                       (mcd_basis)cb, comp, grad, NULL, NULL,
@@ -323,16 +348,19 @@ START_TEST(flux_identities_equal_diffusivities_give_mixture_averaged)
                 e = sup_rel_diff(Fma, Fms, s.n * s.nd);
                 if (e > worst)
                     worst = e;
-                ck_assert_msg(e <= 1e-12, "N=%zu cb %d fb %d: %g", s.n, cb, fb, e);
+                ck_assert_msg(e <= 1e-12, "N=%zu cb %d fb %d: %g", s.n, cb, fb,
+                              e);
                 if (cb == 0 && fb == 0 && s.n > 1) {
                     /* and both equal -c Đ grad x */
                     for (i = 0; i < s.n * s.nd; i++)
                         ck_assert(fabs(Fms[i] + s.c * Dv * s.g[i]) <=
-                                  1e-12 * s.c * Dv * sup_max_abs(s.g, s.n * s.nd));
+                                  1e-12 * s.c * Dv *
+                                      sup_max_abs(s.g, s.n * s.nd));
                 }
             }
     }
-    fprintf(stderr, "equal_D: largest relative MS - MA difference %.3g\n", worst);
+    fprintf(stderr, "equal_D: largest relative MS - MA difference %.3g\n",
+            worst);
 }
 END_TEST
 
@@ -371,7 +399,8 @@ START_TEST(flux_identities_mixture_averaged_matches_hand_formula)
             for (d = 0; d < s.nd; d++) {
                 long double sum = 0.0L;
                 for (i = 0; i < n; i++) {
-                    long double f = -(long double)s.c * Dim[i] * s.g[i * s.nd + d];
+                    long double f =
+                        -(long double)s.c * Dim[i] * s.g[i * s.nd + d];
                     if (b)
                         f *= s.M[i];
                     ref[i * s.nd + d] = f;
@@ -382,8 +411,9 @@ START_TEST(flux_identities_mixture_averaged_matches_hand_formula)
             }
             for (i = 0; i < n * s.nd; i++)
                 R[i] = (double)ref[i];
-            ck_assert_int_eq(flux(&s, MCD_MODEL_MIXTURE_AVERAGED, MCD_BASIS_MOLE,
-                                  s.x, s.g, NULL, NULL, (mcd_basis)b, F),
+            ck_assert_int_eq(flux(&s, MCD_MODEL_MIXTURE_AVERAGED,
+                                  MCD_BASIS_MOLE, s.x, s.g, NULL, NULL,
+                                  (mcd_basis)b, F),
                              MCD_OK);
             e = sup_rel_diff(F, R, n * s.nd);
             if (e > worst)
@@ -424,7 +454,8 @@ START_TEST(flux_identities_binary_reduces_to_fick)
                 double ref = -s.c * s.D[1] * s.g[d];
                 double refm = -rho * s.D[1] * gw[d];
                 ck_assert(fabs(J[d] - ref) <= 1e-13 * fabs(ref) + 1e-300);
-                ck_assert(fabs(J[s.nd + d] + ref) <= 1e-13 * fabs(ref) + 1e-300);
+                ck_assert(fabs(J[s.nd + d] + ref) <=
+                          1e-13 * fabs(ref) + 1e-300);
                 ck_assert_msg(fabs(j[d] - refm) <= 1e-12 * fabs(refm) + 1e-300,
                               "mass binary %g vs %g", j[d], refm);
             }
@@ -472,15 +503,17 @@ START_TEST(flux_identities_trace_species_obey_blanc_law)
                 for (i = 0; i < s.n; i++) {
                     sx += (long double)s.x[i];
                     if (i != t)
-                        sum += (long double)s.x[i] / (long double)s.D[t * s.n + i];
+                        sum +=
+                            (long double)s.x[i] / (long double)s.D[t * s.n + i];
                 }
-                ref = -(long double)s.c * (long double)s.g[t * s.nd + d] * sx / sum;
+                ref = -(long double)s.c * (long double)s.g[t * s.nd + d] * sx /
+                      sum;
                 e = (double)(fabsl((long double)J0[t * s.nd + d] - ref) /
                              (fabsl(ref) + 1e-300L));
                 if (e > worst_exact)
                     worst_exact = e;
-                ck_assert_msg(e <= 4.0 * NMAX * DBL_EPSILON, "Blanc %g model %d N %zu",
-                              e, m, s.n);
+                ck_assert_msg(e <= 4.0 * NMAX * DBL_EPSILON,
+                              "Blanc %g model %d N %zu", e, m, s.n);
             }
             if (m == 0) {
                 double e;
@@ -534,8 +567,18 @@ START_TEST(flux_identities_pure_component_and_single_species)
     {
         double M1 = 0.028, D1 = 0.0, x1 = 1.0, g1[3] = {1.0, 2.0, 3.0};
         double F[3] = {SUP_GUARD, SUP_GUARD, SUP_GUARD};
-        ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = 1, .n_dim = 3, .M = &M1, .Dij = &D1, .c = 40.0, .comp_basis = MCD_BASIS_MOLE, .comp = &x1, .grad = g1}, MCD_BASIS_MASS, F),
-                         MCD_OK);
+        ck_assert_int_eq(
+            mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
+                             &(mcd_state){.n_species = 1,
+                                          .n_dim = 3,
+                                          .M = &M1,
+                                          .Dij = &D1,
+                                          .c = 40.0,
+                                          .comp_basis = MCD_BASIS_MOLE,
+                                          .comp = &x1,
+                                          .grad = g1},
+                             MCD_BASIS_MASS, F),
+            MCD_OK);
         ck_assert(F[0] == 0.0 && F[1] == 0.0 && F[2] == 0.0);
     }
 }
@@ -574,11 +617,11 @@ START_TEST(flux_identities_permutation_invariance)
         for (m = 0; m < 2; m++)
             for (b = 0; b < 2; b++) {
                 double F[NMAX * DMAX], G[NMAX * DMAX], Fp[NMAX * DMAX], e;
-                ck_assert_int_eq(flux(&s, (mcd_model)m, MCD_BASIS_MOLE, s.x, s.g,
-                                      NULL, NULL, (mcd_basis)b, F),
+                ck_assert_int_eq(flux(&s, (mcd_model)m, MCD_BASIS_MOLE, s.x,
+                                      s.g, NULL, NULL, (mcd_basis)b, F),
                                  MCD_OK);
-                ck_assert_int_eq(flux(&p, (mcd_model)m, MCD_BASIS_MOLE, p.x, p.g,
-                                      NULL, NULL, (mcd_basis)b, G),
+                ck_assert_int_eq(flux(&p, (mcd_model)m, MCD_BASIS_MOLE, p.x,
+                                      p.g, NULL, NULL, (mcd_basis)b, G),
                                  MCD_OK);
                 for (i = 0; i < s.n; i++)
                     for (d = 0; d < s.nd; d++)
@@ -618,8 +661,9 @@ START_TEST(flux_identities_mass_and_mole_bases_are_consistent)
             ck_assert_int_eq(flux(&s, (mcd_model)m, MCD_BASIS_MOLE, s.x, s.g,
                                   NULL, NULL, MCD_BASIS_MASS, j),
                              MCD_OK);
-            ck_assert_int_eq(mcd_flux_convert(s.n, s.nd, s.M, s.x, MCD_BASIS_MOLE,
-                                              J, MCD_BASIS_MASS, jc),
+            ck_assert_int_eq(mcd_flux_convert(s.n, s.nd, s.M, s.x,
+                                              MCD_BASIS_MOLE, J, MCD_BASIS_MASS,
+                                              jc),
                              MCD_OK);
             e = sup_rel_diff(j, jc, s.n * s.nd);
             if (e > worst_a)
@@ -673,7 +717,10 @@ START_TEST(flux_identities_gamma_and_pressure_driving_forces)
         }
         for (m = 0; m < 2; m++) {
             double Gb = sup_range(&rng, 0.1, 3.0);
-            G[0] = Gb; G[1] = 0.0; G[2] = 0.0; G[3] = Gb;
+            G[0] = Gb;
+            G[1] = 0.0;
+            G[2] = 0.0;
+            G[3] = Gb;
             ck_assert_int_eq(flux(&s, (mcd_model)m, MCD_BASIS_MOLE, s.x, s.g, G,
                                   NULL, MCD_BASIS_MOLE, J),
                              MCD_OK);
@@ -681,16 +728,20 @@ START_TEST(flux_identities_gamma_and_pressure_driving_forces)
                 double ref = -s.c * s.D[1] * Gb * s.g[d];
                 ck_assert(fabs(J[d] - ref) <= 1e-12 * fabs(ref) + 1e-300);
             }
-            G[0] = sup_range(&rng, -2, 2); G[1] = sup_range(&rng, -2, 2);
-            G[2] = sup_range(&rng, -2, 2); G[3] = sup_range(&rng, -2, 2);
+            G[0] = sup_range(&rng, -2, 2);
+            G[1] = sup_range(&rng, -2, 2);
+            G[2] = sup_range(&rng, -2, 2);
+            G[3] = sup_range(&rng, -2, 2);
             ck_assert_int_eq(flux(&s, (mcd_model)m, MCD_BASIS_MOLE, s.x, s.g, G,
                                   NULL, MCD_BASIS_MOLE, J),
                              MCD_OK);
             for (d = 0; d < s.nd; d++) {
-                double g = s.g[d], d1 = (G[0] - G[1]) * g, d2 = (G[2] - G[3]) * g;
+                double g = s.g[d], d1 = (G[0] - G[1]) * g,
+                       d2 = (G[2] - G[3]) * g;
                 double ref = -s.c * s.D[1] * (s.x[1] * d1 - s.x[0] * d2);
                 ck_assert(fabs(J[d] - ref) <=
-                          1e-12 * s.c * s.D[1] * (fabs(d1) + fabs(d2)) + 1e-300);
+                          1e-12 * s.c * s.D[1] * (fabs(d1) + fabs(d2)) +
+                              1e-300);
             }
             ck_assert_int_eq(flux(&s, (mcd_model)m, MCD_BASIS_MOLE, s.x, s.g,
                                   NULL, glnP, MCD_BASIS_MOLE, J),
@@ -698,10 +749,11 @@ START_TEST(flux_identities_gamma_and_pressure_driving_forces)
             for (d = 0; d < s.nd; d++) {
                 double dr = s.g[d] + (s.x[0] - s.w[0]) * glnP[d];
                 double ref = -s.c * s.D[1] * dr;
-                ck_assert(fabs(J[d] - ref) <=
-                          1e-12 * s.c * s.D[1] *
-                              (fabs(s.g[d]) + fabs((s.x[0] - s.w[0]) * glnP[d])) +
-                              1e-300);
+                ck_assert(
+                    fabs(J[d] - ref) <=
+                    1e-12 * s.c * s.D[1] *
+                            (fabs(s.g[d]) + fabs((s.x[0] - s.w[0]) * glnP[d])) +
+                        1e-300);
             }
         }
     }
@@ -713,7 +765,8 @@ START_TEST(flux_identities_gamma_and_pressure_driving_forces)
         random_state(&s, 2 + (size_t)(sup_next(&rng) % (NMAX - 1)), 1);
         n = s.n;
         for (i = 0; i < n * n; i++)
-            Gam[i] = sup_range(&rng, -0.5, 0.5) + ((i % (n + 1)) == 0 ? 1.5 : 0.0);
+            Gam[i] =
+                sup_range(&rng, -0.5, 0.5) + ((i % (n + 1)) == 0 ? 1.5 : 0.0);
         for (j = 0; j < n; j++) { /* equal column sums (= 1) */
             double cs = 0.0;
             for (i = 0; i + 1 < n; i++)
@@ -730,26 +783,26 @@ START_TEST(flux_identities_gamma_and_pressure_driving_forces)
         for (d = 0; d < s.nd; d++)
             glnP[d] = sup_range(&rng, -50.0, 50.0);
         for (m = 0; m < 2; m++) {
-            ck_assert_int_eq(flux(&s, (mcd_model)m, MCD_BASIS_MOLE, s.x, s.g, Gam,
-                                  NULL, MCD_BASIS_MOLE, F1),
+            ck_assert_int_eq(flux(&s, (mcd_model)m, MCD_BASIS_MOLE, s.x, s.g,
+                                  Gam, NULL, MCD_BASIS_MOLE, F1),
                              MCD_OK);
-            ck_assert_int_eq(flux(&s, (mcd_model)m, MCD_BASIS_MOLE, s.x, dg, NULL,
-                                  NULL, MCD_BASIS_MOLE, F2),
+            ck_assert_int_eq(flux(&s, (mcd_model)m, MCD_BASIS_MOLE, s.x, dg,
+                                  NULL, NULL, MCD_BASIS_MOLE, F2),
                              MCD_OK);
-            ck_assert_msg(sup_rel_diff(F1, F2, n * s.nd) <= 1e-12, "Gamma N=%zu %g",
-                          n, sup_rel_diff(F1, F2, n * s.nd));
+            ck_assert_msg(sup_rel_diff(F1, F2, n * s.nd) <= 1e-12,
+                          "Gamma N=%zu %g", n, sup_rel_diff(F1, F2, n * s.nd));
             for (i = 0; i < n; i++)
                 for (d = 0; d < s.nd; d++)
-                    dg[i * s.nd + d] = s.g[i * s.nd + d] +
-                                       (s.x[i] - s.w[i]) * glnP[d];
+                    dg[i * s.nd + d] =
+                        s.g[i * s.nd + d] + (s.x[i] - s.w[i]) * glnP[d];
             ck_assert_int_eq(flux(&s, (mcd_model)m, MCD_BASIS_MOLE, s.x, s.g,
                                   NULL, glnP, MCD_BASIS_MOLE, F1),
                              MCD_OK);
-            ck_assert_int_eq(flux(&s, (mcd_model)m, MCD_BASIS_MOLE, s.x, dg, NULL,
-                                  NULL, MCD_BASIS_MOLE, F2),
+            ck_assert_int_eq(flux(&s, (mcd_model)m, MCD_BASIS_MOLE, s.x, dg,
+                                  NULL, NULL, MCD_BASIS_MOLE, F2),
                              MCD_OK);
-            ck_assert_msg(sup_rel_diff(F1, F2, n * s.nd) <= 1e-12, "lnP N=%zu %g", n,
-                          sup_rel_diff(F1, F2, n * s.nd));
+            ck_assert_msg(sup_rel_diff(F1, F2, n * s.nd) <= 1e-12,
+                          "lnP N=%zu %g", n, sup_rel_diff(F1, F2, n * s.nd));
             /* restore dg for the next model */
             for (i = 0; i < n; i++)
                 for (d = 0; d < s.nd; d++) {
@@ -784,24 +837,29 @@ START_TEST(flux_identities_errors_leave_output_untouched)
     } r;
     mcd_workspace *small;
 
-#define EXPECT(call, codev, argname)                                          \
-    do {                                                                      \
-        sup_guard_fill(out, N * ND);                                          \
-        r.code = (int)(call);                                                 \
-        r.arg = (argname);                                                    \
-        ck_assert_int_eq(r.code, (codev));                                    \
-        ck_assert(sup_guard_intact(out, N * ND));                             \
-        if (r.arg != NULL)                                                    \
-            ck_assert_msg(strstr(mcd_last_error(), r.arg) != NULL,\
-                          "message '%s' lacks '%s'",                          \
-                          mcd_last_error(), r.arg);               \
+#define EXPECT(call, codev, argname)                                           \
+    do {                                                                       \
+        sup_guard_fill(out, N *ND);                                            \
+        r.code = (int)(call);                                                  \
+        r.arg = (argname);                                                     \
+        ck_assert_int_eq(r.code, (codev));                                     \
+        ck_assert(sup_guard_intact(out, N *ND));                               \
+        if (r.arg != NULL)                                                     \
+            ck_assert_msg(strstr(mcd_last_error(), r.arg) != NULL,             \
+                          "message '%s' lacks '%s'", mcd_last_error(), r.arg); \
     } while (0)
-#define CALL(ws_, model_, n_, nd_, M_, D_, c_, cb_, x_, g_, G_, lp_, fb_)     \
-    mcd_flux_compute(ws_, model_,                                             \
-                     &(mcd_state){.n_species = n_, .n_dim = nd_, .M = M_,     \
-                                  .Dij = D_, .c = c_, .comp_basis = cb_,      \
-                                  .comp = x_, .grad = g_, .Gamma = G_,        \
-                                  .grad_lnP = lp_},                           \
+#define CALL(ws_, model_, n_, nd_, M_, D_, c_, cb_, x_, g_, G_, lp_, fb_)      \
+    mcd_flux_compute(ws_, model_,                                              \
+                     &(mcd_state){.n_species = n_,                             \
+                                  .n_dim = nd_,                                \
+                                  .M = M_,                                     \
+                                  .Dij = D_,                                   \
+                                  .c = c_,                                     \
+                                  .comp_basis = cb_,                           \
+                                  .comp = x_,                                  \
+                                  .grad = g_,                                  \
+                                  .Gamma = G_,                                 \
+                                  .grad_lnP = lp_},                            \
                      fb_, out)
 
     EXPECT(CALL(NULL, 0, N, ND, M, D, 40.0, 0, x, g, NULL, NULL, 0), MCD_EINVAL,
@@ -810,7 +868,16 @@ START_TEST(flux_identities_errors_leave_output_untouched)
            "n_species");
     ck_assert_int_eq(mcd_workspace_new(2, &small), MCD_OK);
     sup_guard_fill(out, N * ND);
-    ck_assert_int_eq(mcd_flux_compute(small, 0, &(mcd_state){.n_species = N, .n_dim = ND, .M = M, .Dij = D, .c = 40.0, .comp_basis = 0, .comp = x, .grad = g}, 0, out),
+    ck_assert_int_eq(mcd_flux_compute(small, 0,
+                                      &(mcd_state){.n_species = N,
+                                                   .n_dim = ND,
+                                                   .M = M,
+                                                   .Dij = D,
+                                                   .c = 40.0,
+                                                   .comp_basis = 0,
+                                                   .comp = x,
+                                                   .grad = g},
+                                      0, out),
                      MCD_EBADLEN);
     ck_assert(sup_guard_intact(out, N * ND));
     ck_assert(strstr(mcd_last_error(), "n_species") != NULL);
@@ -827,30 +894,43 @@ START_TEST(flux_identities_errors_leave_output_untouched)
            MCD_EINVAL, "comp_basis");
     EXPECT(CALL(ws, 0, N, ND, M, D, 40.0, 0, x, g, NULL, NULL, (mcd_basis)9),
            MCD_EINVAL, "flux_basis");
-    EXPECT(CALL(ws, 0, N, ND, M, NULL, 40.0, 0, x, g, NULL, NULL, 0), MCD_EINVAL,
-           "Dij");
-    EXPECT(CALL(ws, 0, N, ND, M, D, 40.0, 0, NULL, g, NULL, NULL, 0), MCD_EINVAL,
-           "comp");
-    EXPECT(CALL(ws, 0, N, ND, M, D, 40.0, 0, x, NULL, NULL, NULL, 0), MCD_EINVAL,
-           "grad");
-    EXPECT(mcd_flux_compute(ws, 0, NULL, 0, out), MCD_EINVAL, "argument state: NULL");
-    EXPECT(CALL(ws, 0, N, ND, NULL, D, 40.0, 1, x, g, NULL, NULL, 0), MCD_EINVAL,
-           "M");
-    EXPECT(CALL(ws, 0, N, ND, NULL, D, 40.0, 0, x, g, NULL, NULL, 1), MCD_EINVAL,
-           "M");
-    EXPECT(CALL(ws, 0, N, ND, NULL, D, 40.0, 0, x, g, NULL, glnP, 0), MCD_EINVAL,
-           "M");
-    ck_assert_int_eq(mcd_flux_compute(ws, 0, &(mcd_state){.n_species = N, .n_dim = ND, .M = M, .Dij = D, .c = 40.0, .comp_basis = 0, .comp = x, .grad = g}, 0, NULL),
+    EXPECT(CALL(ws, 0, N, ND, M, NULL, 40.0, 0, x, g, NULL, NULL, 0),
+           MCD_EINVAL, "Dij");
+    EXPECT(CALL(ws, 0, N, ND, M, D, 40.0, 0, NULL, g, NULL, NULL, 0),
+           MCD_EINVAL, "comp");
+    EXPECT(CALL(ws, 0, N, ND, M, D, 40.0, 0, x, NULL, NULL, NULL, 0),
+           MCD_EINVAL, "grad");
+    EXPECT(mcd_flux_compute(ws, 0, NULL, 0, out), MCD_EINVAL,
+           "argument state: NULL");
+    EXPECT(CALL(ws, 0, N, ND, NULL, D, 40.0, 1, x, g, NULL, NULL, 0),
+           MCD_EINVAL, "M");
+    EXPECT(CALL(ws, 0, N, ND, NULL, D, 40.0, 0, x, g, NULL, NULL, 1),
+           MCD_EINVAL, "M");
+    EXPECT(CALL(ws, 0, N, ND, NULL, D, 40.0, 0, x, g, NULL, glnP, 0),
+           MCD_EINVAL, "M");
+    ck_assert_int_eq(mcd_flux_compute(ws, 0,
+                                      &(mcd_state){.n_species = N,
+                                                   .n_dim = ND,
+                                                   .M = M,
+                                                   .Dij = D,
+                                                   .c = 40.0,
+                                                   .comp_basis = 0,
+                                                   .comp = x,
+                                                   .grad = g},
+                                      0, NULL),
                      MCD_EINVAL);
-    EXPECT(CALL(ws, 0, N, ND, M, D, 0.0, 0, x, g, NULL, NULL, 0), MCD_EDOM, "c");
-    EXPECT(CALL(ws, 0, N, ND, M, D, -40.0, 0, x, g, NULL, NULL, 0), MCD_EDOM, "c");
-    EXPECT(CALL(ws, 0, N, ND, M, D, NAN, 0, x, g, NULL, NULL, 0), MCD_EINVAL, "c");
-    EXPECT(CALL(ws, 0, N, ND, M, D, INFINITY, 0, x, g, NULL, NULL, 0), MCD_EINVAL,
+    EXPECT(CALL(ws, 0, N, ND, M, D, 0.0, 0, x, g, NULL, NULL, 0), MCD_EDOM,
            "c");
+    EXPECT(CALL(ws, 0, N, ND, M, D, -40.0, 0, x, g, NULL, NULL, 0), MCD_EDOM,
+           "c");
+    EXPECT(CALL(ws, 0, N, ND, M, D, NAN, 0, x, g, NULL, NULL, 0), MCD_EINVAL,
+           "c");
+    EXPECT(CALL(ws, 0, N, ND, M, D, INFINITY, 0, x, g, NULL, NULL, 0),
+           MCD_EINVAL, "c");
     {
         double Mb[N] = {0.002, -0.028, 0.044}, Mn[N] = {0.002, NAN, 0.044};
-        EXPECT(CALL(ws, 0, N, ND, Mb, D, 40.0, 1, x, g, NULL, NULL, 0), MCD_EDOM,
-               "argument M: entry 1");
+        EXPECT(CALL(ws, 0, N, ND, Mb, D, 40.0, 1, x, g, NULL, NULL, 0),
+               MCD_EDOM, "argument M: entry 1");
         EXPECT(CALL(ws, 0, N, ND, Mn, D, 40.0, 0, x, g, NULL, NULL, 1),
                MCD_EINVAL, "argument M: entry 1");
     }
@@ -880,19 +960,20 @@ START_TEST(flux_identities_errors_leave_output_untouched)
     {
         double xn[N] = {0.2, -0.1, 0.9}, xs[N] = {0.2, 0.27, 0.5};
         double xq[N] = {0.2, NAN, 0.5};
-        EXPECT(CALL(ws, 0, N, ND, M, D, 40.0, 0, xn, g, NULL, NULL, 0), MCD_EDOM,
-               "argument comp: entry 1 = -0.1 is negative");
-        EXPECT(CALL(ws, 0, N, ND, M, D, 40.0, 0, xs, g, NULL, NULL, 0), MCD_EDOM,
+        EXPECT(CALL(ws, 0, N, ND, M, D, 40.0, 0, xn, g, NULL, NULL, 0),
+               MCD_EDOM, "argument comp: entry 1 = -0.1 is negative");
+        EXPECT(CALL(ws, 0, N, ND, M, D, 40.0, 0, xs, g, NULL, NULL, 0),
+               MCD_EDOM,
                "argument comp: sum 0.97 differs from 1 by more than 1e-6");
-        EXPECT(CALL(ws, 1, N, ND, M, D, 40.0, 1, xq, g, NULL, NULL, 1), MCD_EINVAL,
-               "comp");
+        EXPECT(CALL(ws, 1, N, ND, M, D, 40.0, 1, xq, g, NULL, NULL, 1),
+               MCD_EINVAL, "comp");
     }
     {
         double gn[N * ND] = {1, -1, 2, 0, -3, NAN};
         double Gn[N * N] = {1, 0, 0, 0, INFINITY, 0, 0, 0, 1};
         double ln[ND] = {0.0, NAN};
-        EXPECT(CALL(ws, 0, N, ND, M, D, 40.0, 0, x, gn, NULL, NULL, 0), MCD_EINVAL,
-               "argument grad");
+        EXPECT(CALL(ws, 0, N, ND, M, D, 40.0, 0, x, gn, NULL, NULL, 0),
+               MCD_EINVAL, "argument grad");
         EXPECT(CALL(ws, 0, N, ND, M, D, 40.0, 0, x, g, Gn, NULL, 0), MCD_EINVAL,
                "Gamma");
         EXPECT(CALL(ws, 0, N, ND, M, D, 40.0, 0, x, g, NULL, ln, 0), MCD_EINVAL,
@@ -905,7 +986,8 @@ START_TEST(flux_identities_errors_leave_output_untouched)
     EXPECT(CALL(ws, 0, N, ND, M, bad, 40.0, 0, x, g, NULL, NULL, 0), MCD_EDOM,
            "argument Dij: entry (0,1) = 1e-310 is subnormal");
     /* a success clears the message */
-    ck_assert_int_eq(CALL(ws, 0, N, ND, M, D, 40.0, 0, x, g, Gam, glnP, 1), MCD_OK);
+    ck_assert_int_eq(CALL(ws, 0, N, ND, M, D, 40.0, 0, x, g, Gam, glnP, 1),
+                     MCD_OK);
     ck_assert_str_eq(mcd_last_error(), "");
 #undef EXPECT
 #undef CALL
@@ -1026,8 +1108,17 @@ START_TEST(flux_identities_large_capacity_path_matches_small)
                 g[i] -= m / NB;
         }
         sup_dij_decades(&rng, NB, D, -6.0, -4.0);
-        ck_assert_int_eq(mcd_flux_compute(big, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = NB, .n_dim = 1, .Dij = D, .c = 30.0, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g}, MCD_BASIS_MOLE, J),
-                         MCD_OK);
+        ck_assert_int_eq(
+            mcd_flux_compute(big, MCD_MODEL_MAXWELL_STEFAN,
+                             &(mcd_state){.n_species = NB,
+                                          .n_dim = 1,
+                                          .Dij = D,
+                                          .c = 30.0,
+                                          .comp_basis = MCD_BASIS_MOLE,
+                                          .comp = x,
+                                          .grad = g},
+                             MCD_BASIS_MOLE, J),
+            MCD_OK);
         for (i = 0; i < NB; i++) {
             long double r = g[i], sc = fabsl(r);
             for (j = 0; j < NB; j++) {
@@ -1077,7 +1168,8 @@ START_TEST(flux_identities_per_state_calls_do_not_allocate)
         g[2 * i] = (i % 2) ? 1.0 : -1.0;
         g[2 * i + 1] = (i % 3 == 0) ? 2.0 : (i % 3 == 1 ? -1.0 : -1.0);
         for (j = i; j < NB; j++)
-            D[i * NB + j] = D[j * NB + i] = (i == j) ? 0.0 : sup_range(&rng, 1e-5, 1e-4);
+            D[i * NB + j] = D[j * NB + i] =
+                (i == j) ? 0.0 : sup_range(&rng, 1e-5, 1e-4);
     }
     /* Check's assertions allocate (messages to the parent process), so the
      * statuses are collected inside the window and checked after it. */
@@ -1095,9 +1187,36 @@ START_TEST(flux_identities_per_state_calls_do_not_allocate)
             for (i = 0; i < nn; i++)
                 for (j = 0; j < nn; j++)
                     Dn[i * nn + j] = D[i * NB + j];
-            st[ns++] = mcd_flux_compute(big, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = nn, .n_dim = 2, .M = M, .Dij = Dn, .c = 40.0, .comp_basis = MCD_BASIS_MASS, .comp = xs, .grad = g}, MCD_BASIS_MASS, F);
-            st[ns++] = mcd_flux_compute(big, MCD_MODEL_MIXTURE_AVERAGED, &(mcd_state){.n_species = nn, .n_dim = 2, .M = M, .Dij = Dn, .c = 40.0, .comp_basis = MCD_BASIS_MOLE, .comp = xs, .grad = g}, MCD_BASIS_MASS, F);
-            st[ns++] = mcd_fick_matrix(big, &(mcd_state){.n_species = nn, .M = M, .Dij = Dn, .comp_basis = MCD_BASIS_MOLE, .comp = xs}, MCD_BASIS_MASS, MCD_DEPENDENT_AUTO, Df, NULL);
+            st[ns++] =
+                mcd_flux_compute(big, MCD_MODEL_MAXWELL_STEFAN,
+                                 &(mcd_state){.n_species = nn,
+                                              .n_dim = 2,
+                                              .M = M,
+                                              .Dij = Dn,
+                                              .c = 40.0,
+                                              .comp_basis = MCD_BASIS_MASS,
+                                              .comp = xs,
+                                              .grad = g},
+                                 MCD_BASIS_MASS, F);
+            st[ns++] =
+                mcd_flux_compute(big, MCD_MODEL_MIXTURE_AVERAGED,
+                                 &(mcd_state){.n_species = nn,
+                                              .n_dim = 2,
+                                              .M = M,
+                                              .Dij = Dn,
+                                              .c = 40.0,
+                                              .comp_basis = MCD_BASIS_MOLE,
+                                              .comp = xs,
+                                              .grad = g},
+                                 MCD_BASIS_MASS, F);
+            st[ns++] =
+                mcd_fick_matrix(big,
+                                &(mcd_state){.n_species = nn,
+                                             .M = M,
+                                             .Dij = Dn,
+                                             .comp_basis = MCD_BASIS_MOLE,
+                                             .comp = xs},
+                                MCD_BASIS_MASS, MCD_DEPENDENT_AUTO, Df, NULL);
             st[ns++] = mcd_fick_eigenvalues(big, nn - 1, Df, re, im);
         }
         if (pass == 1)
@@ -1108,8 +1227,9 @@ START_TEST(flux_identities_per_state_calls_do_not_allocate)
     live = sup_alloc_close();
     for (i = 0; i < ns; i++)
         ck_assert_int_eq(st[i], MCD_OK);
-    fprintf(stderr, "allocation hook %s; allocations in the window: %ld "
-                    "(the probe included)\n",
+    fprintf(stderr,
+            "allocation hook %s; allocations in the window: %ld "
+            "(the probe included)\n",
             live ? "live" : "not live", (long)sup_alloc_count);
     if (live)
         ck_assert_int_eq(sup_alloc_count, 1); /* the probe only */
@@ -1126,7 +1246,8 @@ static Suite *flux_suite(void)
     tcase_add_test(tc, flux_identities_zero_sum_in_both_bases);
     tcase_add_test(tc, flux_identities_fluxes_satisfy_maxwell_stefan_equations);
     tcase_add_test(tc, flux_identities_onsager_symmetry_of_velocity_map);
-    tcase_add_test(tc, flux_identities_equal_diffusivities_give_mixture_averaged);
+    tcase_add_test(tc,
+                   flux_identities_equal_diffusivities_give_mixture_averaged);
     tcase_add_test(tc, flux_identities_mixture_averaged_matches_hand_formula);
     tcase_add_test(tc, flux_identities_binary_reduces_to_fick);
     tcase_add_test(tc, flux_identities_trace_species_obey_blanc_law);
@@ -1144,7 +1265,4 @@ static Suite *flux_suite(void)
     return s;
 }
 
-int main(void)
-{
-    return sup_run(flux_suite());
-}
+int main(void) { return sup_run(flux_suite()); }

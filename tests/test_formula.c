@@ -22,11 +22,15 @@ START_TEST(formula_element_weights_match_iupac_conventional_values)
      * Appl. Chem. 94 (2022) 573), conventional values for the interval
      * elements, as printed in the abridged table (from memory). Exact
      * equality up to the g -> kg conversion (1e-15 relative). */
-    static const struct { int Z; const char *sym; double A; } ref[] = {
-        {1, "H", 1.008},    {2, "He", 4.002602}, {6, "C", 12.011},
-        {7, "N", 14.007},   {8, "O", 15.999},    {9, "F", 18.998403162},
-        {16, "S", 32.06},   {17, "Cl", 35.45},   {18, "Ar", 39.95},
-        {35, "Br", 79.904}, {53, "I", 126.90447}, {54, "Xe", 131.293},
+    static const struct {
+        int Z;
+        const char *sym;
+        double A;
+    } ref[] = {
+        {1, "H", 1.008},      {2, "He", 4.002602},  {6, "C", 12.011},
+        {7, "N", 14.007},     {8, "O", 15.999},     {9, "F", 18.998403162},
+        {16, "S", 32.06},     {17, "Cl", 35.45},    {18, "Ar", 39.95},
+        {35, "Br", 79.904},   {53, "I", 126.90447}, {54, "Xe", 131.293},
         {92, "U", 238.02891},
     };
     for (size_t i = 0; i < sizeof ref / sizeof ref[0]; ++i) {
@@ -52,8 +56,7 @@ START_TEST(formula_elements_without_standard_weight_are_not_found)
     ck_assert_int_eq(mcd_element_weight(-5, &w), MCD_ENOTFOUND);
     ck_assert_int_eq(mcd_element_weight(1, NULL), MCD_EINVAL);
     ck_assert(w == SUP_GUARD);
-    ck_assert_int_eq(mcd_formula_molar_mass("TcO2", &M),
-                     MCD_ENOTFOUND);
+    ck_assert_int_eq(mcd_formula_molar_mass("TcO2", &M), MCD_ENOTFOUND);
     ck_assert_ptr_nonnull(strstr(mcd_last_error(), "Tc"));
     ck_assert(M == SUP_GUARD);
 }
@@ -72,8 +75,7 @@ START_TEST(formula_every_symbol_round_trips)
         const char *s = mcd_element_symbol(Z);
         double w, M;
         ck_assert_ptr_nonnull(s);
-        ck_assert_int_eq(mcd_formula_elements(s, 4, zz, cc, &n),
-                         MCD_OK);
+        ck_assert_int_eq(mcd_formula_elements(s, 4, zz, cc, &n), MCD_OK);
         ck_assert_uint_eq(n, 1);
         ck_assert_int_eq(zz[0], Z);
         ck_assert_int_eq(cc[0], 1);
@@ -94,17 +96,19 @@ START_TEST(formula_molar_masses_match_handbook)
      * S 32.065, Cl 35.453); the conventional 2021 values differ by up to
      * 1.6e-4 relative in S, so a tolerance of 1e-4 relative on the molecule
      * covers the edition difference and nothing else. */
-    static const struct { const char *f; double M; } ref[] = {
+    static const struct {
+        const char *f;
+        double M;
+    } ref[] = {
         {"CH3COCH3", 58.0791}, /* acetone */
-        {"H2O", 18.0153},      {"CO2", 44.0095},   {"SF6", 146.0554},
-        {"C3H5Cl", 76.5248},   /* allyl chloride */
-        {"C6H6", 78.1118},     {"CH4", 16.0425},   {"C2H5OH", 46.0684},
-        {"CCl4", 153.823},     {"NH3", 17.0305},   {"SO2", 64.064},
+        {"H2O", 18.0153},      {"CO2", 44.0095}, {"SF6", 146.0554},
+        {"C3H5Cl", 76.5248}, /* allyl chloride */
+        {"C6H6", 78.1118},     {"CH4", 16.0425}, {"C2H5OH", 46.0684},
+        {"CCl4", 153.823},     {"NH3", 17.0305}, {"SO2", 64.064},
     };
     for (size_t i = 0; i < sizeof ref / sizeof ref[0]; ++i) {
         double M = SUP_GUARD;
-        ck_assert_int_eq(mcd_formula_molar_mass(ref[i].f, &M),
-                         MCD_OK);
+        ck_assert_int_eq(mcd_formula_molar_mass(ref[i].f, &M), MCD_OK);
         ck_assert_msg(sup_rel(M * 1e3, ref[i].M) < 1e-4, "%s: %.5f vs %.5f",
                       ref[i].f, M * 1e3, ref[i].M);
     }
@@ -112,8 +116,7 @@ START_TEST(formula_molar_masses_match_handbook)
      * 58.080 with the conventional 2021 weights -> within 2e-5). */
     {
         double M;
-        ck_assert_int_eq(mcd_formula_molar_mass("CH3COCH3", &M),
-                         MCD_OK);
+        ck_assert_int_eq(mcd_formula_molar_mass("CH3COCH3", &M), MCD_OK);
         ck_assert_double_eq_tol(M, 58.079e-3, 1.5e-6);
     }
 }
@@ -145,13 +148,13 @@ START_TEST(formula_groups_equal_expanded_formulas)
         }
         ck_assert_int_eq(sa, MCD_OK);
         ck_assert_int_eq(sb, MCD_OK);
-        ck_assert_msg(sup_rel(a, b) < 1e-15, "%s vs %s: %.17g %.17g", pairs[i][0],
-                      pairs[i][1], a, b);
+        ck_assert_msg(sup_rel(a, b) < 1e-15, "%s vs %s: %.17g %.17g",
+                      pairs[i][0], pairs[i][1], a, b);
     }
     {
         double a, b;
-        ck_assert_int_eq(mcd_formula_molar_mass("((((((((C2)2)2)2)2)2)2)2)",
-                                                &a), MCD_OK);
+        ck_assert_int_eq(
+            mcd_formula_molar_mass("((((((((C2)2)2)2)2)2)2)2)", &a), MCD_OK);
         ck_assert_int_eq(mcd_formula_molar_mass("C256", &b), MCD_OK);
         ck_assert(sup_rel(a, b) < 1e-15);
     }
@@ -163,19 +166,24 @@ START_TEST(formula_elements_merge_in_order_of_first_appearance)
     int Z[8];
     long c[8];
     size_t n = 99;
-    ck_assert_int_eq(mcd_formula_elements("CH3COCH3", 8, Z, c, &n),
-                     MCD_OK);
+    ck_assert_int_eq(mcd_formula_elements("CH3COCH3", 8, Z, c, &n), MCD_OK);
     ck_assert_uint_eq(n, 3);
-    ck_assert_int_eq(Z[0], 6); ck_assert_int_eq(c[0], 3);
-    ck_assert_int_eq(Z[1], 1); ck_assert_int_eq(c[1], 6);
-    ck_assert_int_eq(Z[2], 8); ck_assert_int_eq(c[2], 1);
-    ck_assert_int_eq(mcd_formula_elements("(NH4)2SO4", 8, Z, c, &n),
-                     MCD_OK);
+    ck_assert_int_eq(Z[0], 6);
+    ck_assert_int_eq(c[0], 3);
+    ck_assert_int_eq(Z[1], 1);
+    ck_assert_int_eq(c[1], 6);
+    ck_assert_int_eq(Z[2], 8);
+    ck_assert_int_eq(c[2], 1);
+    ck_assert_int_eq(mcd_formula_elements("(NH4)2SO4", 8, Z, c, &n), MCD_OK);
     ck_assert_uint_eq(n, 4);
-    ck_assert_int_eq(Z[0], 7); ck_assert_int_eq(c[0], 2);
-    ck_assert_int_eq(Z[1], 1); ck_assert_int_eq(c[1], 8);
-    ck_assert_int_eq(Z[2], 16); ck_assert_int_eq(c[2], 1);
-    ck_assert_int_eq(Z[3], 8); ck_assert_int_eq(c[3], 4);
+    ck_assert_int_eq(Z[0], 7);
+    ck_assert_int_eq(c[0], 2);
+    ck_assert_int_eq(Z[1], 1);
+    ck_assert_int_eq(c[1], 8);
+    ck_assert_int_eq(Z[2], 16);
+    ck_assert_int_eq(c[2], 1);
+    ck_assert_int_eq(Z[3], 8);
+    ck_assert_int_eq(c[3], 4);
 }
 END_TEST
 
@@ -184,21 +192,18 @@ START_TEST(formula_elements_capacity_too_small_leaves_outputs)
     int Z[3] = {-1, -1, -1};
     long c[3] = {-1, -1, -1};
     size_t n = 777;
-    ck_assert_int_eq(mcd_formula_elements("CH3COCH3", 2, Z, c, &n), MCD_EBADLEN);
+    ck_assert_int_eq(mcd_formula_elements("CH3COCH3", 2, Z, c, &n),
+                     MCD_EBADLEN);
     ck_assert_int_gt((int)strlen(mcd_last_error()), 0);
     for (int i = 0; i < 3; ++i) {
         ck_assert_int_eq(Z[i], -1);
         ck_assert_int_eq(c[i], -1);
     }
     ck_assert_uint_eq(n, 777);
-    ck_assert_int_eq(mcd_formula_elements(NULL, 3, Z, c, &n),
-                     MCD_EINVAL);
-    ck_assert_int_eq(mcd_formula_elements("H2", 3, NULL, c, &n),
-                     MCD_EINVAL);
-    ck_assert_int_eq(mcd_formula_elements("H2", 3, Z, NULL, &n),
-                     MCD_EINVAL);
-    ck_assert_int_eq(mcd_formula_elements("H2", 3, Z, c, NULL),
-                     MCD_EINVAL);
+    ck_assert_int_eq(mcd_formula_elements(NULL, 3, Z, c, &n), MCD_EINVAL);
+    ck_assert_int_eq(mcd_formula_elements("H2", 3, NULL, c, &n), MCD_EINVAL);
+    ck_assert_int_eq(mcd_formula_elements("H2", 3, Z, NULL, &n), MCD_EINVAL);
+    ck_assert_int_eq(mcd_formula_elements("H2", 3, Z, c, NULL), MCD_EINVAL);
     ck_assert_uint_eq(n, 777);
 }
 END_TEST
@@ -215,8 +220,9 @@ static const struct {
     {"CH3)", MCD_EPARSE, "position 4: unbalanced ')'"},
     {"C(H2O)2)", MCD_EPARSE, "position 8: unbalanced ')'"},
     {"C(H", MCD_EPARSE, "position 4: expected ')'"},
-    {"((CH3)2", MCD_EPARSE, "position 8: expected ')' to close the '(' at "
-                            "position 1"},
+    {"((CH3)2", MCD_EPARSE,
+     "position 8: expected ')' to close the '(' at "
+     "position 1"},
     {"C()", MCD_EPARSE, "position 2: empty group"},
     {"2C", MCD_EPARSE, "position 1: count"},
     {"(2)", MCD_EPARSE, "position 2: count"},
@@ -243,17 +249,18 @@ START_TEST(formula_malformed_reports_position_and_leaves_outputs)
         int Z[4] = {-1, -1, -1, -1};
         long c[4] = {-1, -1, -1, -1};
         size_t n = 777;
-        ck_assert_int_eq(mcd_formula_molar_mass(bad[i].f, &M),
-                         bad[i].st);
+        ck_assert_int_eq(mcd_formula_molar_mass(bad[i].f, &M), bad[i].st);
         ck_assert_msg(strstr(mcd_last_error(), bad[i].msg) != NULL,
-                      "'%s': got '%s', want '%s'", bad[i].f, mcd_last_error(), bad[i].msg);
+                      "'%s': got '%s', want '%s'", bad[i].f, mcd_last_error(),
+                      bad[i].msg);
         ck_assert(M == SUP_GUARD);
         ck_assert_int_eq(mcd_formula_elements(bad[i].f, 4, Z, c, &n),
                          bad[i].st);
         ck_assert_int_eq(Z[0], -1);
         ck_assert_int_eq(c[0], -1);
         ck_assert_uint_eq(n, 777);
-        ck_assert_int_eq(mcd_formula_diffusion_volume(bad[i].f, 0, &V), bad[i].st);
+        ck_assert_int_eq(mcd_formula_diffusion_volume(bad[i].f, 0, &V),
+                         bad[i].st);
         ck_assert(V == SUP_GUARD);
     }
 }
@@ -288,8 +295,8 @@ START_TEST(formula_random_formulas_sum_atomic_weights)
      * counts of mcd_formula_elements; M("(F)k") = k M(F); M(F G) = M(F) +
      * M(G). Tolerance 1e-13 relative: a few dozen additions of numbers of
      * one sign, each rounding by 1.1e-16 relative. */
-    static const char *sym[] = {"C", "H", "O", "N", "S", "Cl", "F", "Br",
-                                "Si", "Na", "Fe", "I", "P", "He"};
+    static const char *sym[] = {"C",  "H",  "O",  "N",  "S", "Cl", "F",
+                                "Br", "Si", "Na", "Fe", "I", "P",  "He"};
     sup_seed(&rng, 0x9e3779b97f4a7c15ULL);
     for (int trial = 0; trial < 2000; ++trial) {
         char f[128], g[160], fg[300];
@@ -299,11 +306,13 @@ START_TEST(formula_random_formulas_sum_atomic_weights)
             const char *s = sym[rnd(sizeof sym / sizeof sym[0])];
             unsigned k = rnd(4);
             int grp = rnd(4) == 0;
-            len += (size_t)snprintf(f + len, sizeof f - len, "%s%s", grp ? "(" : "", s);
+            len += (size_t)snprintf(f + len, sizeof f - len, "%s%s",
+                                    grp ? "(" : "", s);
             if (k > 1)
                 len += (size_t)snprintf(f + len, sizeof f - len, "%u", k);
             if (grp)
-                len += (size_t)snprintf(f + len, sizeof f - len, ")%u", 1 + rnd(3));
+                len += (size_t)snprintf(f + len, sizeof f - len, ")%u",
+                                        1 + rnd(3));
         }
         int Z[16];
         long c[16];
@@ -339,7 +348,11 @@ START_TEST(formula_diffusion_volume_matches_method_examples)
      * C3H5Cl: 3(15.9) + 5(2.31) + 21.0 = 80.25. Benzene with one aromatic
      * ring: 6(15.9) + 6(2.31) - 18.3 = 90.96. The sums are short, so 1e-9
      * absolute is round-off only. */
-    static const struct { const char *f; int rings; double V; } ref[] = {
+    static const struct {
+        const char *f;
+        int rings;
+        double V;
+    } ref[] = {
         {"C3H5Cl", 0, 80.25},
         {"C6H6", 1, 90.96},
         {"CH3COCH3", 0, 3 * 15.9 + 6 * 2.31 + 6.11},
@@ -352,8 +365,8 @@ START_TEST(formula_diffusion_volume_matches_method_examples)
     };
     for (size_t i = 0; i < sizeof ref / sizeof ref[0]; ++i) {
         double V = SUP_GUARD;
-        ck_assert_int_eq(mcd_formula_diffusion_volume(ref[i].f, ref[i].rings,
-                                                      &V), MCD_OK);
+        ck_assert_int_eq(
+            mcd_formula_diffusion_volume(ref[i].f, ref[i].rings, &V), MCD_OK);
         ck_assert_msg(fabs(V - ref[i].V) < 1e-9, "%s: %g vs %g", ref[i].f, V,
                       ref[i].V);
     }
@@ -366,17 +379,12 @@ START_TEST(formula_diffusion_volume_errors)
     /* Si has no increment in the 1969 set. */
     ck_assert_int_eq(mcd_formula_diffusion_volume("SiH4", 0, &V), MCD_ENODATA);
     ck_assert_ptr_nonnull(strstr(mcd_last_error(), "'Si'"));
-    ck_assert_int_eq(mcd_formula_diffusion_volume("He", 0, &V),
-                     MCD_ENODATA);
-    ck_assert_int_eq(mcd_formula_diffusion_volume("C6H6", -1, &V),
-                     MCD_EINVAL);
+    ck_assert_int_eq(mcd_formula_diffusion_volume("He", 0, &V), MCD_ENODATA);
+    ck_assert_int_eq(mcd_formula_diffusion_volume("C6H6", -1, &V), MCD_EINVAL);
     /* More ring corrections than the atoms can carry. */
-    ck_assert_int_eq(mcd_formula_diffusion_volume("H2", 1, &V),
-                     MCD_EINVAL);
-    ck_assert_int_eq(mcd_formula_diffusion_volume(NULL, 0, &V),
-                     MCD_EINVAL);
-    ck_assert_int_eq(mcd_formula_diffusion_volume("H2", 0, NULL),
-                     MCD_EINVAL);
+    ck_assert_int_eq(mcd_formula_diffusion_volume("H2", 1, &V), MCD_EINVAL);
+    ck_assert_int_eq(mcd_formula_diffusion_volume(NULL, 0, &V), MCD_EINVAL);
+    ck_assert_int_eq(mcd_formula_diffusion_volume("H2", 0, NULL), MCD_EINVAL);
     ck_assert(V == SUP_GUARD);
 }
 END_TEST
@@ -386,14 +394,34 @@ START_TEST(formula_tabulated_molecule_volumes)
     /* Fuller, Ensley and Giddings (1969) simple-molecule volumes, Reid,
      * Prausnitz and Poling (1987) Table 11-1 (from memory). Exact: table
      * look-up. */
-    static const struct { const char *f; double V; } ref[] = {
-        {"He", 2.67},  {"Ne", 5.98},  {"Ar", 16.2},  {"Kr", 24.5},
-        {"Xe", 32.7},  {"H2", 6.12},  {"D2", 6.84},  {"N2", 18.5},
-        {"O2", 16.3},  {"air", 19.7}, {"CO", 18.0},  {"CO2", 26.9},
-        {"N2O", 35.9}, {"NH3", 20.7}, {"H2O", 13.1}, {"SF6", 71.3},
-        {"Cl2", 38.4}, {"Br2", 69.0}, {"SO2", 41.8},
+    static const struct {
+        const char *f;
+        double V;
+    } ref[] = {
+        {"He", 2.67},
+        {"Ne", 5.98},
+        {"Ar", 16.2},
+        {"Kr", 24.5},
+        {"Xe", 32.7},
+        {"H2", 6.12},
+        {"D2", 6.84},
+        {"N2", 18.5},
+        {"O2", 16.3},
+        {"air", 19.7},
+        {"CO", 18.0},
+        {"CO2", 26.9},
+        {"N2O", 35.9},
+        {"NH3", 20.7},
+        {"H2O", 13.1},
+        {"SF6", 71.3},
+        {"Cl2", 38.4},
+        {"Br2", 69.0},
+        {"SO2", 41.8},
         /* air case-insensitively, same composition written otherwise */
-        {"AIR", 19.7}, {"Air", 19.7}, {"OH2", 13.1}, {"OC", 18.0},
+        {"AIR", 19.7},
+        {"Air", 19.7},
+        {"OH2", 13.1},
+        {"OC", 18.0},
     };
     for (size_t i = 0; i < sizeof ref / sizeof ref[0]; ++i) {
         double V = SUP_GUARD;
@@ -403,7 +431,8 @@ START_TEST(formula_tabulated_molecule_volumes)
     {
         double V = SUP_GUARD;
         ck_assert_int_eq(mcd_formula_molecule_volume("CH4", &V), MCD_ENOTFOUND);
-        ck_assert_int_eq(mcd_formula_molecule_volume("airx", &V), MCD_ENOTFOUND);
+        ck_assert_int_eq(mcd_formula_molecule_volume("airx", &V),
+                         MCD_ENOTFOUND);
         ck_assert_int_eq(mcd_formula_molecule_volume("", &V), MCD_ENOTFOUND);
         ck_assert_int_eq(mcd_formula_molecule_volume("C(", &V), MCD_ENOTFOUND);
         ck_assert_int_eq(mcd_formula_molecule_volume(NULL, &V), MCD_EINVAL);

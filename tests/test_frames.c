@@ -34,8 +34,8 @@ typedef struct state {
     size_t n, nd;
     double c, rho, Mbar;
     double M[NMAX], x[NMAX], w[NMAX];
-    double v[NMAX * DMAX];     /* species velocities [m/s] */
-    double u[DMAX], vm[DMAX];  /* molar and mass averages */
+    double v[NMAX * DMAX];    /* species velocities [m/s] */
+    double u[DMAX], vm[DMAX]; /* molar and mass averages */
 } state;
 
 static void averages(state *s)
@@ -91,7 +91,8 @@ static void mass_flux(const state *s, const double *ref, double *j)
 {
     for (size_t i = 0; i < s->n; i++)
         for (size_t d = 0; d < s->nd; d++)
-            j[i * s->nd + d] = s->rho * s->w[i] * (s->v[i * s->nd + d] - ref[d]);
+            j[i * s->nd + d] =
+                s->rho * s->w[i] * (s->v[i * s->nd + d] - ref[d]);
 }
 
 /* Largest |a - b| relative to the flux scale of the state: the largest
@@ -135,18 +136,25 @@ START_TEST(frames_mass_flux_from_molar_matches_definition)
         molar_flux(&s, s.u, J);
         mass_flux(&s, s.vm, j);
         ck_assert_int_eq(mcd_flux_convert(s.n, s.nd, s.M, s.x, MCD_BASIS_MOLE,
-                                          J, MCD_BASIS_MASS, jc), MCD_OK);
+                                          J, MCD_BASIS_MASS, jc),
+                         MCD_OK);
         ck_assert_int_eq(mcd_flux_convert(s.n, s.nd, s.M, s.x, MCD_BASIS_MASS,
-                                          j, MCD_BASIS_MOLE, Jc), MCD_OK);
+                                          j, MCD_BASIS_MOLE, Jc),
+                         MCD_OK);
         /* scale: the fluxes are c x_i (or rho w_i) * O(1) velocities */
         floor_scale = s.rho;
-        if (relerr(jc, j, s.n * s.nd) > e1) e1 = relerr(jc, j, s.n * s.nd);
+        if (relerr(jc, j, s.n * s.nd) > e1)
+            e1 = relerr(jc, j, s.n * s.nd);
         floor_scale = s.c;
-        if (relerr(Jc, J, s.n * s.nd) > e2) e2 = relerr(Jc, J, s.n * s.nd);
-        if (sumerr(jc, s.n, s.nd) > e3) e3 = sumerr(jc, s.n, s.nd);
+        if (relerr(Jc, J, s.n * s.nd) > e2)
+            e2 = relerr(Jc, J, s.n * s.nd);
+        if (sumerr(jc, s.n, s.nd) > e3)
+            e3 = sumerr(jc, s.n, s.nd);
     }
-    fprintf(stderr, "J->j vs definition %.3g, j->J vs definition %.3g, "
-            "sum j %.3g\n", e1, e2, e3);
+    fprintf(stderr,
+            "J->j vs definition %.3g, j->J vs definition %.3g, "
+            "sum j %.3g\n",
+            e1, e2, e3);
     ck_assert_double_le(e1, TOL);
     ck_assert_double_le(e2, TOL);
     ck_assert_double_le(e3, 1e-13);
@@ -163,15 +171,21 @@ START_TEST(frames_convert_round_trip_and_zero_sum)
         random_state(&s, 1);
         molar_flux(&s, s.u, J);
         ck_assert_int_eq(mcd_flux_convert(s.n, s.nd, s.M, s.x, MCD_BASIS_MOLE,
-                                          J, MCD_BASIS_MASS, j), MCD_OK);
+                                          J, MCD_BASIS_MASS, j),
+                         MCD_OK);
         ck_assert_int_eq(mcd_flux_convert(s.n, s.nd, s.M, s.x, MCD_BASIS_MASS,
-                                          j, MCD_BASIS_MOLE, J2), MCD_OK);
-        if (relerr(J2, J, s.n * s.nd) > e1) e1 = relerr(J2, J, s.n * s.nd);
-        if (sumerr(j, s.n, s.nd) > e2) e2 = sumerr(j, s.n, s.nd);
-        if (sumerr(J2, s.n, s.nd) > e3) e3 = sumerr(J2, s.n, s.nd);
+                                          j, MCD_BASIS_MOLE, J2),
+                         MCD_OK);
+        if (relerr(J2, J, s.n * s.nd) > e1)
+            e1 = relerr(J2, J, s.n * s.nd);
+        if (sumerr(j, s.n, s.nd) > e2)
+            e2 = sumerr(j, s.n, s.nd);
+        if (sumerr(J2, s.n, s.nd) > e3)
+            e3 = sumerr(J2, s.n, s.nd);
         /* same basis copies */
         ck_assert_int_eq(mcd_flux_convert(s.n, s.nd, s.M, s.x, MCD_BASIS_MASS,
-                                          j, MCD_BASIS_MASS, cp), MCD_OK);
+                                          j, MCD_BASIS_MASS, cp),
+                         MCD_OK);
         ck_assert(memcmp(cp, j, s.n * s.nd * sizeof(double)) == 0);
     }
     fprintf(stderr, "molar->mass->molar %.3g, sums %.3g %.3g\n", e1, e2, e3);
@@ -192,8 +206,11 @@ START_TEST(frames_convert_output_always_sums_to_zero)
         random_state(&s, 1);
         for (size_t i = 0; i < s.n * s.nd; i++)
             F[i] = sup_range(&rng, -1.0, 1.0);
-        ck_assert_int_eq(mcd_flux_convert(s.n, s.nd, s.M, s.x, k % 2 ? MCD_BASIS_MASS : MCD_BASIS_MOLE,
-                                          F, k % 2 ? MCD_BASIS_MOLE : MCD_BASIS_MASS, out), MCD_OK);
+        ck_assert_int_eq(
+            mcd_flux_convert(s.n, s.nd, s.M, s.x,
+                             k % 2 ? MCD_BASIS_MASS : MCD_BASIS_MOLE, F,
+                             k % 2 ? MCD_BASIS_MOLE : MCD_BASIS_MASS, out),
+            MCD_OK);
         if (sumerr(out, s.n, s.nd) > e)
             e = sumerr(out, s.n, s.nd);
     }
@@ -231,15 +248,18 @@ START_TEST(frames_volume_frame_matches_definition)
         }
         molar_flux(&s, s.u, J);
         molar_flux(&s, vV, JVref);
-        ck_assert_int_eq(mcd_flux_to_volume_frame(s.n, s.nd, s.c, s.x, Vb, J, JV),
-                         MCD_OK);
+        ck_assert_int_eq(
+            mcd_flux_to_volume_frame(s.n, s.nd, s.c, s.x, Vb, J, JV), MCD_OK);
         double e = relerr(JV, JVref, s.n * s.nd);
-        if (ideal && e > e_ideal) e_ideal = e;
-        if (!ideal && e > e_non) e_non = e;
+        if (ideal && e > e_ideal)
+            e_ideal = e;
+        if (!ideal && e > e_non)
+            e_non = e;
         if (ideal) /* J^V = J: only round-off of sum_k J_k */
             ck_assert_double_le(relerr(JV, J, s.n * s.nd), 1e-13);
     }
-    fprintf(stderr, "volume frame: ideal %.3g, non-ideal %.3g\n", e_ideal, e_non);
+    fprintf(stderr, "volume frame: ideal %.3g, non-ideal %.3g\n", e_ideal,
+            e_non);
     ck_assert_double_le(e_ideal, TOL);
     /* the non-ideal volumes up to ~40/c after rescaling amplify round-off
      * by at most ~40 */
@@ -260,7 +280,8 @@ START_TEST(frames_species_frame_matches_definition)
         while (s.x[k] == 0.0);
         molar_flux(&s, s.u, J);
         molar_flux(&s, s.v + k * s.nd, ref);
-        ck_assert_int_eq(mcd_flux_to_species_frame(s.n, s.nd, s.x, J, k, Jk), MCD_OK);
+        ck_assert_int_eq(mcd_flux_to_species_frame(s.n, s.nd, s.x, J, k, Jk),
+                         MCD_OK);
         for (size_t d = 0; d < s.nd; d++)
             ck_assert(Jk[k * s.nd + d] == 0.0);
         /* the reference J^k_i = c_i (v_i - v_k) is as large as c |v| ~ c;
@@ -302,7 +323,8 @@ static void check_total(mcd_basis basis, uint64_t seed)
              * holds: sum nu_i y_i (v_i + a) = 0 (nu = 1 for equimolar) */
             double syn = 0.0;
             for (size_t i = 0; i < s.n; i++) {
-                nu[i] = kind == MCD_BOOT_EQUIMOLAR ? 1.0 : sup_range(&rng, -1.0, 2.0);
+                nu[i] = kind == MCD_BOOT_EQUIMOLAR ? 1.0
+                                                   : sup_range(&rng, -1.0, 2.0);
                 syn += nu[i] * y[i];
             }
             if (fabs(syn) < 0.05) {
@@ -332,9 +354,11 @@ static void check_total(mcd_basis basis, uint64_t seed)
             vals[d] = rho_or_c * (basis == MCD_BASIS_MOLE ? s.u[d] : s.vm[d]);
         sup_guard_fill(bulk, DMAX);
         ck_assert_int_eq(mcd_flux_total(s.n, s.nd, basis, y, F, kind, sp,
-                                        kind == MCD_BOOT_TOTAL ? vals
-                                        : kind == MCD_BOOT_WEIGHTS ? nu : NULL,
-                                        tot, bulk), MCD_OK);
+                                        kind == MCD_BOOT_TOTAL     ? vals
+                                        : kind == MCD_BOOT_WEIGHTS ? nu
+                                                                   : NULL,
+                                        tot, bulk),
+                         MCD_OK);
         double e = relerr(tot, ref, s.n * s.nd);
         /* bulk flux: c u or rho v of the construction */
         double eb = 0.0, scb = sup_max_abs(ref, s.n * s.nd);
@@ -349,12 +373,15 @@ static void check_total(mcd_basis basis, uint64_t seed)
             worst[kind] = e;
         if (kind == MCD_BOOT_STAGNANT)
             for (size_t d = 0; d < s.nd; d++)
-                ck_assert_double_le(fabs(tot[sp * s.nd + d]),
-                                    TOL * (sup_max_abs(ref, s.n * s.nd) + floor_scale));
+                ck_assert_double_le(
+                    fabs(tot[sp * s.nd + d]),
+                    TOL * (sup_max_abs(ref, s.n * s.nd) + floor_scale));
     }
-    fprintf(stderr, "total (%s): TOTAL %.3g STAGNANT %.3g EQUIMOLAR %.3g "
-            "WEIGHTS %.3g\n", basis == MCD_BASIS_MOLE ? "mole" : "mass",
-            worst[0], worst[1], worst[2], worst[3]);
+    fprintf(stderr,
+            "total (%s): TOTAL %.3g STAGNANT %.3g EQUIMOLAR %.3g "
+            "WEIGHTS %.3g\n",
+            basis == MCD_BASIS_MOLE ? "mole" : "mass", worst[0], worst[1],
+            worst[2], worst[3]);
     /* TOTAL and EQUIMOLAR: a few roundings per entry. STAGNANT divides by
      * y_s (random, can be ~1e-3: amplifies by up to 1/y_s times eps);
      * WEIGHTS divides by |sum nu y| >= 0.05 */
@@ -381,12 +408,14 @@ START_TEST(frames_total_binary_stefan_flow_and_null_bulk)
     const double x[2] = {0.4, 0.6}, J[2] = {1.0, -1.0};
     double out[2];
     ck_assert_int_eq(mcd_flux_total(2, 1, MCD_BASIS_MOLE, x, J,
-                                    MCD_BOOT_EQUIMOLAR, 0, NULL, out, NULL), MCD_OK);
+                                    MCD_BOOT_EQUIMOLAR, 0, NULL, out, NULL),
+                     MCD_OK);
     ck_assert(out[0] == 1.0 && out[1] == -1.0);
     /* Stefan tube with species 1 stagnant: N_1 = 0, N_0 = J_0 / (1 - x_0)
      * (binary Stefan flow, common practice) */
     ck_assert_int_eq(mcd_flux_total(2, 1, MCD_BASIS_MOLE, x, J,
-                                    MCD_BOOT_STAGNANT, 1, NULL, out, NULL), MCD_OK);
+                                    MCD_BOOT_STAGNANT, 1, NULL, out, NULL),
+                     MCD_OK);
     ck_assert_double_eq_tol(out[0], 1.0 / 0.6, 1e-15);
     ck_assert_double_eq_tol(out[1], 0.0, 1e-15);
 }
@@ -402,8 +431,9 @@ START_TEST(frames_velocity_difference_matches_construction)
         molar_flux(&s, s.u, J);
         for (size_t d = 0; d < s.nd; d++)
             ref[d] = s.vm[d] - s.u[d];
-        ck_assert_int_eq(mcd_flux_velocity_difference(s.n, s.nd, s.M, s.c, s.x, J, dv),
-                         MCD_OK);
+        ck_assert_int_eq(
+            mcd_flux_velocity_difference(s.n, s.nd, s.M, s.c, s.x, J, dv),
+            MCD_OK);
         /* scale: velocities are O(1) m/s; compare absolutely */
         for (size_t d = 0; d < s.nd; d++)
             if (fabs(dv[d] - ref[d]) > e)
@@ -435,7 +465,8 @@ START_TEST(frames_projection_removes_residual)
             sw = 0.5;
         }
         sc = sup_max_abs(F0, n * nd);
-        ck_assert_int_eq(mcd_flux_project(n, nd, use_w ? wts : NULL, F, r), MCD_OK);
+        ck_assert_int_eq(mcd_flux_project(n, nd, use_w ? wts : NULL, F, r),
+                         MCD_OK);
         for (size_t d = 0; d < nd; d++) {
             double s0 = 0.0, s1 = 0.0;
             for (size_t i = 0; i < n; i++) {
@@ -449,13 +480,14 @@ START_TEST(frames_projection_removes_residual)
             /* exactly a_i r removed */
             for (size_t i = 0; i < n; i++) {
                 double a = use_w ? wts[i] / sw : 1.0 / (double)n;
-                ck_assert_double_eq_tol(F0[i * nd + d] - F[i * nd + d], a * r[d],
-                                        1e-14 * sc);
+                ck_assert_double_eq_tol(F0[i * nd + d] - F[i * nd + d],
+                                        a * r[d], 1e-14 * sc);
             }
         }
         /* idempotent: second projection removes only round-off */
         memcpy(F1, F, n * nd * sizeof(double));
-        ck_assert_int_eq(mcd_flux_project(n, nd, use_w ? wts : NULL, F1, r2), MCD_OK);
+        ck_assert_int_eq(mcd_flux_project(n, nd, use_w ? wts : NULL, F1, r2),
+                         MCD_OK);
         for (size_t d = 0; d < nd; d++)
             ck_assert_double_le(fabs(r2[d]), 1e-13 * sc);
         for (size_t i = 0; i < n * nd; i++)
@@ -477,7 +509,8 @@ START_TEST(frames_projection_with_x_is_uniform_velocity_shift)
          * a wrong reference (0) */
         for (size_t i = 0; i < s.n; i++)
             for (size_t d = 0; d < s.nd; d++)
-                F[i * s.nd + d] = F0[i * s.nd + d] = s.c * s.x[i] * s.v[i * s.nd + d];
+                F[i * s.nd + d] = F0[i * s.nd + d] =
+                    s.c * s.x[i] * s.v[i * s.nd + d];
         ck_assert_int_eq(mcd_flux_project(s.n, s.nd, s.x, F, r), MCD_OK);
         for (size_t d = 0; d < s.nd; d++) {
             /* residual = c u, shift = -u for every species */
@@ -487,7 +520,8 @@ START_TEST(frames_projection_with_x_is_uniform_velocity_shift)
                     ck_assert(F[i * s.nd + d] == F0[i * s.nd + d]);
                     continue;
                 }
-                double dvel = (F[i * s.nd + d] - F0[i * s.nd + d]) / (s.c * s.x[i]);
+                double dvel =
+                    (F[i * s.nd + d] - F0[i * s.nd + d]) / (s.c * s.x[i]);
                 /* velocities O(1); round-off of F/(c x_i) relative to the
                  * flux scale c, divided by x_i: bounded by 1e-14 / x_i */
                 ck_assert_double_eq_tol(dvel, -s.u[d], 1e-14 / s.x[i] + 1e-13);
@@ -506,26 +540,27 @@ START_TEST(frames_error_paths_leave_outputs_untouched)
     double out[6], ob[3], Mb[3], xb[3], Jb[6], Vbb[3], F[6];
     const mcd_basis MO = MCD_BASIS_MOLE, MA = MCD_BASIS_MASS;
 
-#define EXPECT(call, code)                          \
-    do {                                            \
-        sup_guard_fill(out, 6);                     \
-        sup_guard_fill(ob, 3);                      \
-        ck_assert_int_eq((call), (code));           \
-        ck_assert(sup_guard_intact(out, 6));        \
-        ck_assert(sup_guard_intact(ob, 3));         \
+#define EXPECT(call, code)                                                     \
+    do {                                                                       \
+        sup_guard_fill(out, 6);                                                \
+        sup_guard_fill(ob, 3);                                                 \
+        ck_assert_int_eq((call), (code));                                      \
+        ck_assert(sup_guard_intact(out, 6));                                   \
+        ck_assert(sup_guard_intact(ob, 3));                                    \
     } while (0)
-#define RESET()                                     \
-    do {                                            \
-        memcpy(Mb, M, sizeof Mb);                   \
-        memcpy(xb, x, sizeof xb);                   \
-        memcpy(Jb, J, sizeof Jb);                   \
-        memcpy(Vbb, Vb, sizeof Vbb);                \
+#define RESET()                                                                \
+    do {                                                                       \
+        memcpy(Mb, M, sizeof Mb);                                              \
+        memcpy(xb, x, sizeof xb);                                              \
+        memcpy(Jb, J, sizeof Jb);                                              \
+        memcpy(Vbb, Vb, sizeof Vbb);                                           \
     } while (0)
 
     RESET();
     /* convert */
     EXPECT(mcd_flux_convert(0, 2, M, x, MO, J, MA, out), MCD_EINVAL);
-    EXPECT(mcd_flux_convert(MCD_MAX_SPECIES + 1, 2, M, x, MO, J, MA, out), MCD_EINVAL);
+    EXPECT(mcd_flux_convert(MCD_MAX_SPECIES + 1, 2, M, x, MO, J, MA, out),
+           MCD_EINVAL);
     EXPECT(mcd_flux_convert(3, 0, M, x, MO, J, MA, out), MCD_EINVAL);
     EXPECT(mcd_flux_convert(3, 4, M, x, MO, J, MA, out), MCD_EINVAL);
     EXPECT(mcd_flux_convert(3, 2, NULL, x, MO, J, MA, out), MCD_EINVAL);
@@ -538,13 +573,17 @@ START_TEST(frames_error_paths_leave_outputs_untouched)
     EXPECT(mcd_flux_convert(3, 2, Mb, x, MO, J, MA, out), MCD_EINVAL);
     Mb[1] = -1.0;
     EXPECT(mcd_flux_convert(3, 2, Mb, x, MO, J, MA, out), MCD_EDOM);
-    RESET(); xb[0] = inf;
+    RESET();
+    xb[0] = inf;
     EXPECT(mcd_flux_convert(3, 2, M, xb, MO, J, MA, out), MCD_EINVAL);
-    xb[0] = -0.2; xb[1] = 0.7;
+    xb[0] = -0.2;
+    xb[1] = 0.7;
     EXPECT(mcd_flux_convert(3, 2, M, xb, MO, J, MA, out), MCD_EDOM);
-    xb[0] = 0.3; xb[1] = 0.3;
+    xb[0] = 0.3;
+    xb[1] = 0.3;
     EXPECT(mcd_flux_convert(3, 2, M, xb, MA, J, MO, out), MCD_EDOM);
-    RESET(); Jb[4] = nan;
+    RESET();
+    Jb[4] = nan;
     EXPECT(mcd_flux_convert(3, 2, M, x, MO, Jb, MA, out), MCD_EINVAL);
     EXPECT(mcd_flux_convert(3, 2, M, x, MO, Jb, MO, out), MCD_EINVAL);
 
@@ -560,10 +599,12 @@ START_TEST(frames_error_paths_leave_outputs_untouched)
     EXPECT(mcd_flux_to_volume_frame(3, 2, 0.0, x, Vb, J, out), MCD_EDOM);
     EXPECT(mcd_flux_to_volume_frame(3, 2, -40.0, x, Vb, J, out), MCD_EDOM);
     /* sum x Vbar = 1/c violated by 1e-5 relative */
-    EXPECT(mcd_flux_to_volume_frame(3, 2, 40.0 * (1 + 1e-5), x, Vb, J, out), MCD_EDOM);
+    EXPECT(mcd_flux_to_volume_frame(3, 2, 40.0 * (1 + 1e-5), x, Vb, J, out),
+           MCD_EDOM);
     Vbb[2] = nan;
     EXPECT(mcd_flux_to_volume_frame(3, 2, 40.0, x, Vbb, J, out), MCD_EINVAL);
-    RESET(); xb[2] = 0.6;
+    RESET();
+    xb[2] = 0.6;
     EXPECT(mcd_flux_to_volume_frame(3, 2, 40.0, xb, Vb, J, out), MCD_EDOM);
     Jb[0] = inf;
     EXPECT(mcd_flux_to_volume_frame(3, 2, 40.0, x, Vb, Jb, out), MCD_EINVAL);
@@ -575,7 +616,8 @@ START_TEST(frames_error_paths_leave_outputs_untouched)
     EXPECT(mcd_flux_to_species_frame(3, 2, x, J, 0, NULL), MCD_EINVAL);
     EXPECT(mcd_flux_to_species_frame(3, 2, x, J, 3, out), MCD_EINVAL);
     EXPECT(mcd_flux_to_species_frame(3, 4, x, J, 0, out), MCD_EINVAL);
-    xb[0] = 0.0; xb[1] = 0.5;
+    xb[0] = 0.0;
+    xb[1] = 0.5;
     EXPECT(mcd_flux_to_species_frame(3, 2, xb, J, 0, out), MCD_EDOM);
     xb[0] = nan;
     EXPECT(mcd_flux_to_species_frame(3, 2, xb, J, 1, out), MCD_EINVAL);
@@ -588,47 +630,91 @@ START_TEST(frames_error_paths_leave_outputs_untouched)
         const double nt[2] = {0.5, -0.5};
         const double nu0[3] = {1.0, 1.0, -1.0}; /* sum nu x = 0.2+0.3-0.5 = 0 */
         double nub[3] = {1.0, 2.0, 3.0};
-        EXPECT(mcd_flux_total(3, 2, MO, NULL, J, MCD_BOOT_TOTAL, 0, nt, out, ob), MCD_EINVAL);
-        EXPECT(mcd_flux_total(3, 2, MO, x, NULL, MCD_BOOT_TOTAL, 0, nt, out, ob), MCD_EINVAL);
-        EXPECT(mcd_flux_total(3, 2, MO, x, J, MCD_BOOT_TOTAL, 0, nt, NULL, ob), MCD_EINVAL);
-        EXPECT(mcd_flux_total(3, 2, MO, x, J, MCD_BOOT_TOTAL, 0, NULL, out, ob), MCD_EINVAL);
-        EXPECT(mcd_flux_total(3, 2, MO, x, J, MCD_BOOT_WEIGHTS, 0, NULL, out, ob), MCD_EINVAL);
-        EXPECT(mcd_flux_total(0, 2, MO, x, J, MCD_BOOT_EQUIMOLAR, 0, NULL, out, ob), MCD_EINVAL);
-        EXPECT(mcd_flux_total(3, 0, MO, x, J, MCD_BOOT_EQUIMOLAR, 0, NULL, out, ob), MCD_EINVAL);
-        EXPECT(mcd_flux_total(3, 2, (mcd_basis)5, x, J, MCD_BOOT_EQUIMOLAR, 0, NULL, out, ob), MCD_EINVAL);
-        EXPECT(mcd_flux_total(3, 2, MO, x, J, (mcd_bootstrap)4, 0, nub, out, ob), MCD_EINVAL);
-        EXPECT(mcd_flux_total(3, 2, MO, x, J, (mcd_bootstrap)17, 0, nub, out, ob), MCD_EINVAL);
-        EXPECT(mcd_flux_total(3, 2, MO, x, J, MCD_BOOT_STAGNANT, 3, NULL, out, ob), MCD_EINVAL);
+        EXPECT(
+            mcd_flux_total(3, 2, MO, NULL, J, MCD_BOOT_TOTAL, 0, nt, out, ob),
+            MCD_EINVAL);
+        EXPECT(
+            mcd_flux_total(3, 2, MO, x, NULL, MCD_BOOT_TOTAL, 0, nt, out, ob),
+            MCD_EINVAL);
+        EXPECT(mcd_flux_total(3, 2, MO, x, J, MCD_BOOT_TOTAL, 0, nt, NULL, ob),
+               MCD_EINVAL);
+        EXPECT(mcd_flux_total(3, 2, MO, x, J, MCD_BOOT_TOTAL, 0, NULL, out, ob),
+               MCD_EINVAL);
+        EXPECT(
+            mcd_flux_total(3, 2, MO, x, J, MCD_BOOT_WEIGHTS, 0, NULL, out, ob),
+            MCD_EINVAL);
+        EXPECT(mcd_flux_total(0, 2, MO, x, J, MCD_BOOT_EQUIMOLAR, 0, NULL, out,
+                              ob),
+               MCD_EINVAL);
+        EXPECT(mcd_flux_total(3, 0, MO, x, J, MCD_BOOT_EQUIMOLAR, 0, NULL, out,
+                              ob),
+               MCD_EINVAL);
+        EXPECT(mcd_flux_total(3, 2, (mcd_basis)5, x, J, MCD_BOOT_EQUIMOLAR, 0,
+                              NULL, out, ob),
+               MCD_EINVAL);
+        EXPECT(
+            mcd_flux_total(3, 2, MO, x, J, (mcd_bootstrap)4, 0, nub, out, ob),
+            MCD_EINVAL);
+        EXPECT(
+            mcd_flux_total(3, 2, MO, x, J, (mcd_bootstrap)17, 0, nub, out, ob),
+            MCD_EINVAL);
+        EXPECT(
+            mcd_flux_total(3, 2, MO, x, J, MCD_BOOT_STAGNANT, 3, NULL, out, ob),
+            MCD_EINVAL);
         nub[1] = nan;
-        EXPECT(mcd_flux_total(3, 2, MO, x, J, MCD_BOOT_WEIGHTS, 0, nub, out, ob), MCD_EINVAL);
-        EXPECT(mcd_flux_total(3, 2, MO, x, J, MCD_BOOT_TOTAL, 0, nub + 1, out, ob), MCD_EINVAL);
+        EXPECT(
+            mcd_flux_total(3, 2, MO, x, J, MCD_BOOT_WEIGHTS, 0, nub, out, ob),
+            MCD_EINVAL);
+        EXPECT(
+            mcd_flux_total(3, 2, MO, x, J, MCD_BOOT_TOTAL, 0, nub + 1, out, ob),
+            MCD_EINVAL);
         Jb[2] = nan;
-        EXPECT(mcd_flux_total(3, 2, MA, x, Jb, MCD_BOOT_EQUIMOLAR, 0, NULL, out, ob), MCD_EINVAL);
-        xb[1] = -0.3; xb[2] = 1.1;
-        EXPECT(mcd_flux_total(3, 2, MA, xb, J, MCD_BOOT_EQUIMOLAR, 0, NULL, out, ob), MCD_EDOM);
-        xb[0] = 0.0; xb[1] = 0.5; xb[2] = 0.5;
+        EXPECT(mcd_flux_total(3, 2, MA, x, Jb, MCD_BOOT_EQUIMOLAR, 0, NULL, out,
+                              ob),
+               MCD_EINVAL);
+        xb[1] = -0.3;
+        xb[2] = 1.1;
+        EXPECT(mcd_flux_total(3, 2, MA, xb, J, MCD_BOOT_EQUIMOLAR, 0, NULL, out,
+                              ob),
+               MCD_EDOM);
+        xb[0] = 0.0;
+        xb[1] = 0.5;
+        xb[2] = 0.5;
         /* stagnant species absent */
-        EXPECT(mcd_flux_total(3, 2, MO, xb, J, MCD_BOOT_STAGNANT, 0, NULL, out, ob), MCD_EDOM);
-        EXPECT(mcd_flux_total(3, 2, MA, xb, J, MCD_BOOT_STAGNANT, 0, NULL, out, ob), MCD_EDOM);
+        EXPECT(mcd_flux_total(3, 2, MO, xb, J, MCD_BOOT_STAGNANT, 0, NULL, out,
+                              ob),
+               MCD_EDOM);
+        EXPECT(mcd_flux_total(3, 2, MA, xb, J, MCD_BOOT_STAGNANT, 0, NULL, out,
+                              ob),
+               MCD_EDOM);
         /* sum nu_i y_i = 0 (exactly, and to round-off) */
-        EXPECT(mcd_flux_total(3, 2, MO, x, J, MCD_BOOT_WEIGHTS, 0, nu0, out, ob), MCD_EDOM);
+        EXPECT(
+            mcd_flux_total(3, 2, MO, x, J, MCD_BOOT_WEIGHTS, 0, nu0, out, ob),
+            MCD_EDOM);
         {
             double xr[3] = {0.1, 0.2, 0.7}, nur[3] = {7.0, 0.0, -1.0};
             /* 0.1*7 - 0.7 cancels to round-off */
-            EXPECT(mcd_flux_total(3, 2, MO, xr, J, MCD_BOOT_WEIGHTS, 0, nur, out, ob), MCD_EDOM);
+            EXPECT(mcd_flux_total(3, 2, MO, xr, J, MCD_BOOT_WEIGHTS, 0, nur,
+                                  out, ob),
+                   MCD_EDOM);
         }
         {
             double xt[3] = {1e-320, 0.5, 0.5};
             /* tiny stagnant fraction: bulk flux overflows */
-            EXPECT(mcd_flux_total(3, 2, MO, xt, J, MCD_BOOT_STAGNANT, 0, NULL, out, ob), MCD_EDOM);
+            EXPECT(mcd_flux_total(3, 2, MO, xt, J, MCD_BOOT_STAGNANT, 0, NULL,
+                                  out, ob),
+                   MCD_EDOM);
         }
     }
 
     /* velocity difference */
     RESET();
-    EXPECT(mcd_flux_velocity_difference(3, 2, NULL, 40.0, x, J, ob), MCD_EINVAL);
-    EXPECT(mcd_flux_velocity_difference(3, 2, M, 40.0, NULL, J, ob), MCD_EINVAL);
-    EXPECT(mcd_flux_velocity_difference(3, 2, M, 40.0, x, NULL, ob), MCD_EINVAL);
+    EXPECT(mcd_flux_velocity_difference(3, 2, NULL, 40.0, x, J, ob),
+           MCD_EINVAL);
+    EXPECT(mcd_flux_velocity_difference(3, 2, M, 40.0, NULL, J, ob),
+           MCD_EINVAL);
+    EXPECT(mcd_flux_velocity_difference(3, 2, M, 40.0, x, NULL, ob),
+           MCD_EINVAL);
     EXPECT(mcd_flux_velocity_difference(3, 2, M, 40.0, x, J, NULL), MCD_EINVAL);
     EXPECT(mcd_flux_velocity_difference(0, 2, M, 40.0, x, J, ob), MCD_EINVAL);
     EXPECT(mcd_flux_velocity_difference(3, 5, M, 40.0, x, J, ob), MCD_EINVAL);
@@ -644,13 +730,13 @@ START_TEST(frames_error_paths_leave_outputs_untouched)
     EXPECT(mcd_flux_velocity_difference(3, 2, M, 40.0, x, Jb, ob), MCD_EINVAL);
 
     /* projection: the in-out array and the residual stay untouched */
-#define EXPECT_P(wts, nn, nd, code)                               \
-    do {                                                          \
-        memcpy(F, J, sizeof F);                                   \
-        sup_guard_fill(ob, 3);                                    \
-        ck_assert_int_eq(mcd_flux_project((nn), (nd), (wts), F, ob), (code)); \
-        ck_assert(memcmp(F, J, sizeof F) == 0);                   \
-        ck_assert(sup_guard_intact(ob, 3));                       \
+#define EXPECT_P(wts, nn, nd, code)                                            \
+    do {                                                                       \
+        memcpy(F, J, sizeof F);                                                \
+        sup_guard_fill(ob, 3);                                                 \
+        ck_assert_int_eq(mcd_flux_project((nn), (nd), (wts), F, ob), (code));  \
+        ck_assert(memcmp(F, J, sizeof F) == 0);                                \
+        ck_assert(sup_guard_intact(ob, 3));                                    \
     } while (0)
     {
         double wb[3] = {1.0, 2.0, 3.0};

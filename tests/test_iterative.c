@@ -24,7 +24,7 @@
 
 static sup_rng rng = SUP_RNG(SUP_SPLITMIX64, 0);
 
-#define KC 9   /* cells per call: one full vector block and one lane */
+#define KC 9 /* cells per call: one full vector block and one lane */
 #define ND 2
 
 typedef struct prob {
@@ -48,14 +48,16 @@ static void prob_make(prob *p, size_t n, mcd_workspace *ws, mcd_model refm)
         double s = 0.0, Dk[100 * 100], xk[100], gk[200], F[200];
         p->c[k] = 10.0 + 50.0 * sup_u01(&rng);
         for (i = 0; i < n; i++) {
-            xk[i] = (k % 3 == 2 && i % 4 == 1 && n > 2) ? 0.0 : 0.01 + sup_u01(&rng);
+            xk[i] = (k % 3 == 2 && i % 4 == 1 && n > 2) ? 0.0
+                                                        : 0.01 + sup_u01(&rng);
             s += xk[i];
         }
         for (i = 0; i < n; i++) {
             xk[i] /= s;
             p->x[i * KC + k] = xk[i];
             for (j = 0; j < ND; j++)
-                p->g[(i * ND + j) * KC + k] = gk[i * ND + j] = 2.0 * sup_u01(&rng) - 1.0;
+                p->g[(i * ND + j) * KC + k] = gk[i * ND + j] =
+                    2.0 * sup_u01(&rng) - 1.0;
         }
         for (i = 0; i < n; i++) {
             Dk[i * n + i] = 0.0;
@@ -64,7 +66,17 @@ static void prob_make(prob *p, size_t n, mcd_workspace *ws, mcd_model refm)
         }
         for (i = 0; i < n * n; i++)
             p->D[i * KC + k] = Dk[i];
-        ck_assert_int_eq(mcd_flux_compute(ws, refm, &(mcd_state){.n_species = n, .n_dim = ND, .Dij = Dk, .c = p->c[k], .comp_basis = MCD_BASIS_MOLE, .comp = xk, .grad = gk}, MCD_BASIS_MOLE, F), MCD_OK);
+        ck_assert_int_eq(
+            mcd_flux_compute(ws, refm,
+                             &(mcd_state){.n_species = n,
+                                          .n_dim = ND,
+                                          .Dij = Dk,
+                                          .c = p->c[k],
+                                          .comp_basis = MCD_BASIS_MOLE,
+                                          .comp = xk,
+                                          .grad = gk},
+                             MCD_BASIS_MOLE, F),
+            MCD_OK);
         for (i = 0; i < n * ND; i++)
             p->ref[i * KC + k] = F[i];
     }
@@ -72,7 +84,12 @@ static void prob_make(prob *p, size_t n, mcd_workspace *ws, mcd_model refm)
 
 static void prob_free(prob *p)
 {
-    free(p->D); free(p->c); free(p->x); free(p->g); free(p->ref); free(p->out);
+    free(p->D);
+    free(p->c);
+    free(p->x);
+    free(p->g);
+    free(p->ref);
+    free(p->out);
 }
 
 /* Largest per-cell error relative to the cell's largest exact flux. */
@@ -83,8 +100,10 @@ static double prob_err(const prob *p)
         double sc = 0.0, e = 0.0;
         for (size_t i = 0; i < p->n * ND; i++) {
             double a = p->out[i * KC + k], b = p->ref[i * KC + k];
-            if (fabs(b) > sc) sc = fabs(b);
-            if (fabs(a - b) > e) e = fabs(a - b);
+            if (fabs(b) > sc)
+                sc = fabs(b);
+            if (fabs(a - b) > e)
+                e = fabs(a - b);
         }
         if (e / sc > worst)
             worst = e / sc;
@@ -94,7 +113,13 @@ static double prob_err(const prob *p)
 
 static mcd_status run_iter(mcd_workspace *ws, prob *p)
 {
-    return mcd_flux_batch_dij(ws, MCD_MODEL_ITERATIVE, p->n, NULL, p->D, p->c, &(mcd_cells){.n_cells = KC, .n_dim = ND, .comp_basis = MCD_BASIS_MOLE, .comp = p->x, .grad = p->g}, MCD_BASIS_MOLE, p->out);
+    return mcd_flux_batch_dij(ws, MCD_MODEL_ITERATIVE, p->n, NULL, p->D, p->c,
+                              &(mcd_cells){.n_cells = KC,
+                                           .n_dim = ND,
+                                           .comp_basis = MCD_BASIS_MOLE,
+                                           .comp = p->x,
+                                           .grad = p->g},
+                              MCD_BASIS_MOLE, p->out);
 }
 
 START_TEST(iterative_converges_to_the_exact_solution)
@@ -110,9 +135,11 @@ START_TEST(iterative_converges_to_the_exact_solution)
         prob_make(&p, Ns[t], ws, MCD_MODEL_MAXWELL_STEFAN);
         ck_assert_int_eq(mcd_workspace_set_iterative(ws, 500, 1e-14), MCD_OK);
         ck_assert_int_eq(run_iter(ws, &p), MCD_OK);
-        ck_assert_int_eq(mcd_workspace_iterative_outcome(ws, &est, &used), MCD_OK);
+        ck_assert_int_eq(mcd_workspace_iterative_outcome(ws, &est, &used),
+                         MCD_OK);
         e = prob_err(&p);
-        fprintf(stderr, "N=%3zu tol 1e-14: error %.2e, estimate %.2e, %zu iterations\n",
+        fprintf(stderr,
+                "N=%3zu tol 1e-14: error %.2e, estimate %.2e, %zu iterations\n",
                 Ns[t], e, est, used);
         /* 1e-12: the iteration converges to the exact solution; at tol
          * 1e-14 only round-off (~1e-15 x the modest condition number of
@@ -121,8 +148,8 @@ START_TEST(iterative_converges_to_the_exact_solution)
         ck_assert_uint_le(used, 500);
         /* iterates that stall at round-off (N = 2, 3 here: rho ~ 1) still
          * get a finite estimate that bounds the error (was HUGE_VAL) */
-        ck_assert_msg(est < 1e-10 && e <= est, "N=%zu estimate %.3g, error %.3g",
-                      Ns[t], est, e);
+        ck_assert_msg(est < 1e-10 && e <= est,
+                      "N=%zu estimate %.3g, error %.3g", Ns[t], est, e);
         prob_free(&p);
     }
     mcd_workspace_free(ws);
@@ -144,10 +171,12 @@ START_TEST(iterative_binary_stops_at_once)
         prob_make(&p, 2, ws, MCD_MODEL_MAXWELL_STEFAN);
         ck_assert_int_eq(mcd_workspace_set_iterative(ws, 100, 1e-10), MCD_OK);
         ck_assert_int_eq(run_iter(ws, &p), MCD_OK);
-        ck_assert_int_eq(mcd_workspace_iterative_outcome(ws, &est, &used), MCD_OK);
+        ck_assert_int_eq(mcd_workspace_iterative_outcome(ws, &est, &used),
+                         MCD_OK);
         ck_assert_msg(used <= 3, "trial %d: %zu iterations", trial, used);
-        ck_assert_msg(est <= 1e-10 && prob_err(&p) <= est, "trial %d: estimate %.3g, error %.3g",
-                      trial, est, prob_err(&p));
+        ck_assert_msg(est <= 1e-10 && prob_err(&p) <= est,
+                      "trial %d: estimate %.3g, error %.3g", trial, est,
+                      prob_err(&p));
         prob_free(&p);
     }
     mcd_workspace_free(ws);
@@ -168,19 +197,24 @@ START_TEST(iterative_error_estimate_is_honest)
         for (size_t q = 0; q < sizeof tols / sizeof tols[0]; q++) {
             double e, est;
             size_t used;
-            ck_assert_int_eq(mcd_workspace_set_iterative(ws, 1000, tols[q]), MCD_OK);
+            ck_assert_int_eq(mcd_workspace_set_iterative(ws, 1000, tols[q]),
+                             MCD_OK);
             ck_assert_int_eq(run_iter(ws, &p), MCD_OK);
-            ck_assert_int_eq(mcd_workspace_iterative_outcome(ws, &est, &used), MCD_OK);
+            ck_assert_int_eq(mcd_workspace_iterative_outcome(ws, &est, &used),
+                             MCD_OK);
             e = prob_err(&p);
             if (e / est > worst_ratio)
                 worst_ratio = e / est;
-            fprintf(stderr, "N=%3zu tol %.0e: error %.2e, estimate %.2e, %zu iterations\n",
-                    Ns[t], tols[q], e, est, used);
+            fprintf(
+                stderr,
+                "N=%3zu tol %.0e: error %.2e, estimate %.2e, %zu iterations\n",
+                Ns[t], tols[q], e, est, used);
             /* honest: the estimate bounds the true error (no slack), and
              * the tolerance is met */
             ck_assert_msg(e <= est, "N=%zu tol %g: error %.3g > estimate %.3g",
                           Ns[t], tols[q], e, est);
-            ck_assert_msg(est <= tols[q], "estimate %.3g above tol %g", est, tols[q]);
+            ck_assert_msg(est <= tols[q], "estimate %.3g above tol %g", est,
+                          tols[q]);
         }
         prob_free(&p);
     }
@@ -229,7 +263,8 @@ int main(void)
     tcase_add_test(tc, iterative_converges_to_the_exact_solution);
     tcase_add_test(tc, iterative_binary_stops_at_once);
     tcase_add_test(tc, iterative_error_estimate_is_honest);
-    tcase_add_test(tc, iterative_first_iterate_is_mixture_averaged_and_counts_iterations);
+    tcase_add_test(
+        tc, iterative_first_iterate_is_mixture_averaged_and_counts_iterations);
     suite_add_tcase(s, tc);
     return sup_run(s);
 }

@@ -14,8 +14,8 @@
 
 #define NS 6
 
-static const char *const names6[NS] = {"nitrogen", "oxygen", "carbon-dioxide",
-                                       "water", "hydrogen", "methane"};
+static const char *const names6[NS] = {"nitrogen", "oxygen",   "carbon-dioxide",
+                                       "water",    "hydrogen", "methane"};
 
 static sup_rng rng = SUP_RNG(SUP_XORSHIFT64STAR, 0); /* seeded by each test */
 
@@ -61,13 +61,16 @@ static void check_against_pairs(const mcd_method *methods, double T, double P)
             /* Symmetric to the bit: each pair is computed once. */
             ck_assert(D[i * NS + j] == D[j * NS + i]);
             ck_assert_uint_eq(W[i * NS + j], W[j * NS + i]);
-            ck_assert_int_eq(mcd_db_binary_gas(db, dbi(names6[i]), dbi(names6[j]),
-                                            (mcd_gas_method)methods[i * NS + j], T, P, &d, &r, &w),
-                             MCD_OK);
+            ck_assert_int_eq(
+                mcd_db_binary_gas(db, dbi(names6[i]), dbi(names6[j]),
+                                  (mcd_gas_method)methods[i * NS + j], T, P, &d,
+                                  &r, &w),
+                MCD_OK);
             /* Same code path (copied parameters, same formula): identical,
              * except that the mixture computes (i, j) with i < j only and
              * each method is symmetric to the bit (test_binary.c). */
-            ck_assert_msg(D[i * NS + j] == d, "(%zu,%zu) %g vs %g", i, j, D[i * NS + j], d);
+            ck_assert_msg(D[i * NS + j] == d, "(%zu,%zu) %g vs %g", i, j,
+                          D[i * NS + j], d);
             ck_assert(R[i * NS + j] == r);
             ck_assert_uint_eq(W[i * NS + j], w);
         }
@@ -81,7 +84,8 @@ START_TEST(mixture_matrix_is_symmetric_and_equals_binary_gas)
         m[k] = MCD_METHOD_FSG;
     sup_seed(&rng, 4242);
     for (int t = 0; t < 50; t++) {
-        double T = sup_range(&rng, 220, 1200), P = sup_exp_range(&rng, 1e3, 5e6);
+        double T = sup_range(&rng, 220, 1200),
+               P = sup_exp_range(&rng, 1e3, 5e6);
         check_against_pairs(m, T, P);
     }
 }
@@ -92,12 +96,15 @@ START_TEST(mixture_per_pair_methods_are_used)
     mcd_method m[NS * NS];
     for (size_t k = 0; k < NS * NS; k++)
         m[k] = MCD_METHOD_FSG;
-    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 1, MCD_GAS_CHAPMAN_ENSKOG), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 1, MCD_GAS_CHAPMAN_ENSKOG),
+                     MCD_OK);
     m[0 * NS + 1] = m[1 * NS + 0] = MCD_METHOD_CHAPMAN_ENSKOG;
     /* Given as (j, i): applies to the pair. */
-    ck_assert_int_eq(mcd_mixture_set_method(mix, 5, 2, MCD_GAS_WILKE_LEE), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 5, 2, MCD_GAS_WILKE_LEE),
+                     MCD_OK);
     m[5 * NS + 2] = m[2 * NS + 5] = MCD_METHOD_WILKE_LEE;
-    ck_assert_int_eq(mcd_mixture_set_method(mix, 3, 4, MCD_GAS_CHAPMAN_ENSKOG), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 3, 4, MCD_GAS_CHAPMAN_ENSKOG),
+                     MCD_OK);
     m[3 * NS + 4] = m[4 * NS + 3] = MCD_METHOD_CHAPMAN_ENSKOG;
     check_against_pairs(m, 350.0, 2.0e5);
     check_against_pairs(m, 800.0, 1.0e4);
@@ -106,10 +113,12 @@ START_TEST(mixture_per_pair_methods_are_used)
     ck_assert_int_eq(mcd_mixture_new(db, NS, names6, MCD_GAS_WILKE_LEE, &m2),
                      MCD_OK);
     double D[NS * NS];
-    ck_assert_int_eq(mcd_mixture_binaries(m2, 300.0, 1e5, D, NULL, NULL), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_binaries(m2, 300.0, 1e5, D, NULL, NULL),
+                     MCD_OK);
     double d = 0;
-    ck_assert_int_eq(mcd_db_binary_gas(db, dbi("water"), dbi("methane"), MCD_GAS_WILKE_LEE,
-                                    300.0, 1e5, &d, NULL, NULL),
+    ck_assert_int_eq(mcd_db_binary_gas(db, dbi("water"), dbi("methane"),
+                                       MCD_GAS_WILKE_LEE, 300.0, 1e5, &d, NULL,
+                                       NULL),
                      MCD_OK);
     ck_assert(D[3 * NS + 5] == d);
     mcd_mixture_free(m2);
@@ -130,8 +139,10 @@ START_TEST(mixture_user_values_scale_with_t175_over_p)
     ck_assert(isnan(R[0 * NS + 2]));
     ck_assert_uint_eq(W[0 * NS + 2], 0u);
     /* Twice T, three times P: D0 2^1.75 / 3 (a few ulp). */
-    ck_assert_int_eq(mcd_mixture_binaries(mix, 2 * T0, 3 * P0, D, R, W), MCD_OK);
-    ck_assert_double_eq_tol(D[0 * NS + 2] / (D0 * pow(2.0, 1.75) / 3.0), 1.0, 1e-14);
+    ck_assert_int_eq(mcd_mixture_binaries(mix, 2 * T0, 3 * P0, D, R, W),
+                     MCD_OK);
+    ck_assert_double_eq_tol(D[0 * NS + 2] / (D0 * pow(2.0, 1.75) / 3.0), 1.0,
+                            1e-14);
     ck_assert_uint_eq(W[0 * NS + 2] & MCD_WARN_SCALED, 0u);
     /* Far from the reference: > 2x in T or > 10x in P is flagged. */
     ck_assert_int_eq(mcd_mixture_binaries(mix, 2.1 * T0, P0, D, R, W), MCD_OK);
@@ -142,13 +153,16 @@ START_TEST(mixture_user_values_scale_with_t175_over_p)
     ck_assert(W[0 * NS + 2] & MCD_WARN_SCALED);
     /* Agrees with mcd_binary_scale. */
     double s = 0;
-    ck_assert_int_eq(mcd_binary_scale(D0, T0, P0, 415.0, 3.3e5, 1.75, &s), MCD_OK);
-    ck_assert_int_eq(mcd_mixture_binaries(mix, 415.0, 3.3e5, D, NULL, NULL), MCD_OK);
+    ck_assert_int_eq(mcd_binary_scale(D0, T0, P0, 415.0, 3.3e5, 1.75, &s),
+                     MCD_OK);
+    ck_assert_int_eq(mcd_mixture_binaries(mix, 415.0, 3.3e5, D, NULL, NULL),
+                     MCD_OK);
     ck_assert_double_eq_tol(D[2 * NS + 0] / s, 1.0, 1e-15);
     /* Other pairs unaffected. */
     double d = 0;
-    ck_assert_int_eq(mcd_db_binary_gas(db, dbi("nitrogen"), dbi("oxygen"), MCD_GAS_FSG, 415.0,
-                                    3.3e5, &d, NULL, NULL),
+    ck_assert_int_eq(mcd_db_binary_gas(db, dbi("nitrogen"), dbi("oxygen"),
+                                       MCD_GAS_FSG, 415.0, 3.3e5, &d, NULL,
+                                       NULL),
                      MCD_OK);
     ck_assert(D[0 * NS + 1] == d);
     /* Switch the pair to an estimate (the value is dropped), and back by
@@ -160,8 +174,9 @@ START_TEST(mixture_user_values_scale_with_t175_over_p)
     ck_assert_int_eq(mcd_mixture_binaries(mix, T0, P0, D, NULL, NULL), MCD_OK);
     ck_assert_double_eq_tol(D[0 * NS + 2] / D0, 1.0, 1e-15);
     /* A value outside mcd_gas_method (USER is not one) is refused. */
-    ck_assert_int_eq(mcd_mixture_set_method(mix, 3, 4, (mcd_gas_method)MCD_METHOD_USER),
-                     MCD_EINVAL);
+    ck_assert_int_eq(
+        mcd_mixture_set_method(mix, 3, 4, (mcd_gas_method)MCD_METHOD_USER),
+        MCD_EINVAL);
 }
 END_TEST
 
@@ -184,24 +199,26 @@ START_TEST(mixture_unknown_species_is_named_in_the_error_detail)
     /* Duplicates, NULL names, bad counts and methods are EINVAL. */
     const char *dup[2] = {"nitrogen", "N2"};
     m = sentinel;
-    ck_assert_int_eq(mcd_mixture_new(db, 2, dup, MCD_GAS_FSG, &m),
-                     MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_new(db, 2, dup, MCD_GAS_FSG, &m), MCD_EINVAL);
     ck_assert_ptr_nonnull(strstr(mcd_last_error(), "N2"));
     const char *withnull[2] = {"nitrogen", NULL};
     ck_assert_int_eq(mcd_mixture_new(db, 2, withnull, MCD_GAS_FSG, &m),
                      MCD_EINVAL);
     ck_assert_int_eq(mcd_mixture_new(db, 0, names6, MCD_GAS_FSG, &m),
                      MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_new(db, MCD_MAX_SPECIES + 1, names6, MCD_GAS_FSG, &m),
-                     MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_new(db, 2, names6, (mcd_gas_method)MCD_METHOD_USER, &m),
-                     MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_new(db, 2, names6, (mcd_gas_method)MCD_METHOD_WILKE_CHANG, &m),
+    ck_assert_int_eq(
+        mcd_mixture_new(db, MCD_MAX_SPECIES + 1, names6, MCD_GAS_FSG, &m),
+        MCD_EINVAL);
+    ck_assert_int_eq(
+        mcd_mixture_new(db, 2, names6, (mcd_gas_method)MCD_METHOD_USER, &m),
+        MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_new(db, 2, names6,
+                                     (mcd_gas_method)MCD_METHOD_WILKE_CHANG,
+                                     &m),
                      MCD_EINVAL);
     ck_assert_int_eq(mcd_mixture_new(NULL, 2, names6, MCD_GAS_FSG, &m),
                      MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_new(db, 2, NULL, MCD_GAS_FSG, &m),
-                     MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_new(db, 2, NULL, MCD_GAS_FSG, &m), MCD_EINVAL);
     ck_assert_int_eq(mcd_mixture_new(db, 2, names6, MCD_GAS_FSG, NULL),
                      MCD_EINVAL);
     ck_assert_ptr_eq(m, sentinel);
@@ -218,30 +235,47 @@ START_TEST(mixture_bad_state_and_arguments_leave_outputs_untouched)
     }
     const double badv[] = {NAN, INFINITY, -INFINITY};
     for (size_t b = 0; b < 3; b++) {
-        ck_assert_int_eq(mcd_mixture_binaries(mix, badv[b], 1e5, D, R, W), MCD_EINVAL);
-        ck_assert_int_eq(mcd_mixture_binaries(mix, 300, badv[b], D, R, W), MCD_EINVAL);
-        ck_assert_int_eq(mcd_mixture_set_binary(mix, 0, 1, badv[b], 300, 1e5), MCD_EINVAL);
-        ck_assert_int_eq(mcd_mixture_set_binary(mix, 0, 1, 1e-5, badv[b], 1e5), MCD_EINVAL);
-        ck_assert_int_eq(mcd_mixture_set_binary(mix, 0, 1, 1e-5, 300, badv[b]), MCD_EINVAL);
+        ck_assert_int_eq(mcd_mixture_binaries(mix, badv[b], 1e5, D, R, W),
+                         MCD_EINVAL);
+        ck_assert_int_eq(mcd_mixture_binaries(mix, 300, badv[b], D, R, W),
+                         MCD_EINVAL);
+        ck_assert_int_eq(mcd_mixture_set_binary(mix, 0, 1, badv[b], 300, 1e5),
+                         MCD_EINVAL);
+        ck_assert_int_eq(mcd_mixture_set_binary(mix, 0, 1, 1e-5, badv[b], 1e5),
+                         MCD_EINVAL);
+        ck_assert_int_eq(mcd_mixture_set_binary(mix, 0, 1, 1e-5, 300, badv[b]),
+                         MCD_EINVAL);
     }
     ck_assert_int_eq(mcd_mixture_binaries(mix, 0.0, 1e5, D, R, W), MCD_EDOM);
     ck_assert_int_eq(mcd_mixture_binaries(mix, 300, -1.0, D, R, W), MCD_EDOM);
     ck_assert_int_eq(mcd_mixture_binaries(NULL, 300, 1e5, D, R, W), MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_binaries(mix, 300, 1e5, NULL, R, W), MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_binaries(mix, 300, 1e5, NULL, R, W),
+                     MCD_EINVAL);
     for (size_t k = 0; k < NS * NS; k++) {
         ck_assert(D[k] == SUP_GUARD && R[k] == SUP_GUARD);
         ck_assert_uint_eq(W[k], 0xdeadu);
     }
-    ck_assert_int_eq(mcd_mixture_set_binary(mix, 0, 1, -1e-5, 300, 1e5), MCD_EDOM);
-    ck_assert_int_eq(mcd_mixture_set_binary(mix, 0, 1, 1e-5, 0.0, 1e5), MCD_EDOM);
-    ck_assert_int_eq(mcd_mixture_set_binary(mix, 0, NS, 1e-5, 300, 1e5), MCD_EBADLEN);
-    ck_assert_int_eq(mcd_mixture_set_binary(mix, 2, 2, 1e-5, 300, 1e5), MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_set_binary(NULL, 0, 1, 1e-5, 300, 1e5), MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_set_method(mix, NS, 0, MCD_GAS_FSG), MCD_EBADLEN);
-    ck_assert_int_eq(mcd_mixture_set_method(mix, 1, 1, MCD_GAS_FSG), MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 1, (mcd_gas_method)MCD_METHOD_WILKE_CHANG), MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 1, (mcd_gas_method)77), MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_set_method(NULL, 0, 1, MCD_GAS_FSG), MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_set_binary(mix, 0, 1, -1e-5, 300, 1e5),
+                     MCD_EDOM);
+    ck_assert_int_eq(mcd_mixture_set_binary(mix, 0, 1, 1e-5, 0.0, 1e5),
+                     MCD_EDOM);
+    ck_assert_int_eq(mcd_mixture_set_binary(mix, 0, NS, 1e-5, 300, 1e5),
+                     MCD_EBADLEN);
+    ck_assert_int_eq(mcd_mixture_set_binary(mix, 2, 2, 1e-5, 300, 1e5),
+                     MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_set_binary(NULL, 0, 1, 1e-5, 300, 1e5),
+                     MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, NS, 0, MCD_GAS_FSG),
+                     MCD_EBADLEN);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 1, 1, MCD_GAS_FSG),
+                     MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_set_method(
+                         mix, 0, 1, (mcd_gas_method)MCD_METHOD_WILKE_CHANG),
+                     MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 1, (mcd_gas_method)77),
+                     MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_set_method(NULL, 0, 1, MCD_GAS_FSG),
+                     MCD_EINVAL);
     /* None of the refused calls changed the mixture. */
     mcd_method m[NS * NS];
     for (size_t k = 0; k < NS * NS; k++)
@@ -260,28 +294,42 @@ START_TEST(mixture_missing_parameters_give_enodata)
     ck_assert_int_eq(mcd_db_add(d, "gas-b", "C3H8", 0, &i), MCD_OK);
     const char *nm[2] = {"gas-a", "gas-b"};
     /* No Lennard-Jones data and nothing to estimate them from. */
-    ck_assert_int_eq(mcd_mixture_new(d, 2, nm, MCD_GAS_CHAPMAN_ENSKOG, &m), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_new(d, 2, nm, MCD_GAS_CHAPMAN_ENSKOG, &m),
+                     MCD_OK);
     ck_assert_str_eq(mcd_last_error(), ""); /* the gap shows when used */
     double D[4] = {SUP_GUARD, SUP_GUARD, SUP_GUARD, SUP_GUARD};
-    ck_assert_int_eq(mcd_mixture_binaries(m, 300, 1e5, D, NULL, NULL), MCD_ENODATA);
+    ck_assert_int_eq(mcd_mixture_binaries(m, 300, 1e5, D, NULL, NULL),
+                     MCD_ENODATA);
     for (int k = 0; k < 4; k++)
         ck_assert(D[k] == SUP_GUARD);
     /* The detail names the pair, the species, the parameter and the method. */
-    ck_assert_str_eq(mcd_last_error(),
-                     "pair (0, 1) gas-a-gas-b by chapman-enskog: species 'gas-a' has no "
-                     "Lennard-Jones sigma nor a molar volume Vb (needed by chapman-enskog)");
+    ck_assert_str_eq(
+        mcd_last_error(),
+        "pair (0, 1) gas-a-gas-b by chapman-enskog: species 'gas-a' has no "
+        "Lennard-Jones sigma nor a molar volume Vb (needed by chapman-enskog)");
     /* The same words from the database call, and from a batched call. */
-    ck_assert_int_eq(mcd_db_binary_gas(d, 1, 0, MCD_GAS_WILKE_LEE, 300, 1e5, D, NULL, NULL),
-                     MCD_ENODATA);
-    ck_assert_str_eq(mcd_last_error(), "species 'gas-b' has no Lennard-Jones sigma nor a "
-                                       "molar volume Vb (needed by wilke-lee)");
+    ck_assert_int_eq(
+        mcd_db_binary_gas(d, 1, 0, MCD_GAS_WILKE_LEE, 300, 1e5, D, NULL, NULL),
+        MCD_ENODATA);
+    ck_assert_str_eq(mcd_last_error(),
+                     "species 'gas-b' has no Lennard-Jones sigma nor a "
+                     "molar volume Vb (needed by wilke-lee)");
     {
         mcd_workspace *ws = NULL;
-        double T = 300, P = 1e5, x[2] = {0.5, 0.5}, g[2] = {1, -1}, J[2] = {0, 0};
+        double T = 300, P = 1e5, x[2] = {0.5, 0.5}, g[2] = {1, -1},
+               J[2] = {0, 0};
         ck_assert_int_eq(mcd_workspace_new(2, &ws), MCD_OK);
-        ck_assert_int_eq(mcd_flux_batch(ws, m, MCD_MODEL_MAXWELL_STEFAN, &T, &P, &(mcd_cells){.n_cells = 1, .n_dim = 1, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g}, MCD_BASIS_MOLE, J),
-                         MCD_ENODATA);
-        ck_assert_ptr_nonnull(strstr(mcd_last_error(), "pair (0, 1) gas-a-gas-b"));
+        ck_assert_int_eq(
+            mcd_flux_batch(ws, m, MCD_MODEL_MAXWELL_STEFAN, &T, &P,
+                           &(mcd_cells){.n_cells = 1,
+                                        .n_dim = 1,
+                                        .comp_basis = MCD_BASIS_MOLE,
+                                        .comp = x,
+                                        .grad = g},
+                           MCD_BASIS_MOLE, J),
+            MCD_ENODATA);
+        ck_assert_ptr_nonnull(
+            strstr(mcd_last_error(), "pair (0, 1) gas-a-gas-b"));
         mcd_workspace_free(ws);
     }
     ck_assert_int_eq(mcd_db_param(d, 0, MCD_PARAM_TB, D), MCD_ENODATA);
@@ -291,7 +339,8 @@ START_TEST(mixture_missing_parameters_give_enodata)
     ck_assert_int_eq(mcd_mixture_binaries(m, 300, 1e5, D, NULL, NULL), MCD_OK);
     ck_assert_double_gt(D[1], 0.0);
     /* A user value works without any parameter. */
-    ck_assert_int_eq(mcd_mixture_set_method(m, 0, 1, MCD_GAS_WILKE_LEE), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_method(m, 0, 1, MCD_GAS_WILKE_LEE),
+                     MCD_OK);
     ck_assert_int_eq(mcd_mixture_set_binary(m, 1, 0, 1.1e-5, 300, 1e5), MCD_OK);
     ck_assert_int_eq(mcd_mixture_binaries(m, 300, 1e5, D, NULL, NULL), MCD_OK);
     ck_assert_double_eq_tol(D[1] / 1.1e-5, 1.0, 1e-15);
@@ -303,13 +352,17 @@ END_TEST
 START_TEST(mixture_is_independent_of_the_database)
 {
     double before[NS * NS], after[NS * NS];
-    ck_assert_int_eq(mcd_mixture_binaries(mix, 333.0, 9e4, before, NULL, NULL), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_binaries(mix, 333.0, 9e4, before, NULL, NULL),
+                     MCD_OK);
     /* Change a parameter in the db, then free it: the mixture keeps its
      * copy. */
-    ck_assert_int_eq(mcd_db_set_param(db, dbi("nitrogen"), MCD_PARAM_DIFF_VOLUME, 99.0), MCD_OK);
+    ck_assert_int_eq(
+        mcd_db_set_param(db, dbi("nitrogen"), MCD_PARAM_DIFF_VOLUME, 99.0),
+        MCD_OK);
     mcd_db_free(db);
     db = NULL;
-    ck_assert_int_eq(mcd_mixture_binaries(mix, 333.0, 9e4, after, NULL, NULL), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_binaries(mix, 333.0, 9e4, after, NULL, NULL),
+                     MCD_OK);
     for (size_t k = 0; k < NS * NS; k++)
         ck_assert(before[k] == after[k]);
     ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK); /* for teardown */
@@ -326,8 +379,10 @@ START_TEST(mixture_accessors_report_species)
     ck_assert_int_eq(mcd_mixture_molar_masses(mix, M), MCD_OK);
     for (size_t i = 0; i < NS; i++) {
         double m = 0;
-        ck_assert_str_eq(mcd_mixture_name(mix, i), mcd_db_name(db, dbi(names6[i])));
-        ck_assert_int_eq(mcd_db_param(db, dbi(names6[i]), MCD_PARAM_MOLAR_MASS, &m), MCD_OK);
+        ck_assert_str_eq(mcd_mixture_name(mix, i),
+                         mcd_db_name(db, dbi(names6[i])));
+        ck_assert_int_eq(
+            mcd_db_param(db, dbi(names6[i]), MCD_PARAM_MOLAR_MASS, &m), MCD_OK);
         ck_assert(M[i] == m);
     }
     ck_assert_ptr_null(mcd_mixture_name(mix, NS));
@@ -344,15 +399,20 @@ START_TEST(mixture_fast_path_matches_api)
      * API's numbers: identical for estimated pairs (same coefficient, same
      * expression), a few ulp for the user pair (precomputed
      * D_ref P_ref / T_ref^1.75 instead of the scaled form): 1e-14. */
-    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 1, MCD_GAS_CHAPMAN_ENSKOG), MCD_OK);
-    ck_assert_int_eq(mcd_mixture_set_method(mix, 2, 5, MCD_GAS_WILKE_LEE), MCD_OK);
-    ck_assert_int_eq(mcd_mixture_set_binary(mix, 3, 4, 0.85e-4, 293.0, MCD_ATM), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 0, 1, MCD_GAS_CHAPMAN_ENSKOG),
+                     MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 2, 5, MCD_GAS_WILKE_LEE),
+                     MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_binary(mix, 3, 4, 0.85e-4, 293.0, MCD_ATM),
+                     MCD_OK);
     ck_assert_int_eq(mcdi_mixture_ready(mix), MCD_OK);
     sup_seed(&rng, 99);
     for (int t = 0; t < 100; t++) {
-        double T = sup_range(&rng, 200, 1500), P = sup_exp_range(&rng, 1e3, 1e7);
+        double T = sup_range(&rng, 200, 1500),
+               P = sup_exp_range(&rng, 1e3, 1e7);
         double A[NS * NS], B[NS * NS];
-        ck_assert_int_eq(mcd_mixture_binaries(mix, T, P, A, NULL, NULL), MCD_OK);
+        ck_assert_int_eq(mcd_mixture_binaries(mix, T, P, A, NULL, NULL),
+                         MCD_OK);
         mcdi_mixture_binaries_fast(mix, T, P, B);
         for (size_t k = 0; k < NS * NS; k++) {
             if (k == 3 * NS + 4 || k == 4 * NS + 3)

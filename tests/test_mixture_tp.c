@@ -33,7 +33,8 @@ static mcd_mixture *lj_mixture(size_t n, mcd_method m)
             names[got++] = mcd_db_name(db, i);
     }
     ck_assert_uint_eq(got, n);
-    ck_assert_int_eq(mcd_mixture_new(db, n, names, (mcd_gas_method)m, &mix), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_new(db, n, names, (mcd_gas_method)m, &mix),
+                     MCD_OK);
     return mix;
 }
 
@@ -44,9 +45,12 @@ START_TEST(mixture_tp_fsg_and_user_scale_exactly)
     mcd_mixture *mix;
     ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK);
     mix = lj_mixture(N, MCD_METHOD_FSG);
-    ck_assert_int_eq(mcd_mixture_set_binary(mix, 0, 3, 2.0e-5, 298.15, MCD_ATM), MCD_OK);
-    ck_assert_int_eq(mcd_mixture_binaries(mix, 300.0, 1e5, D1, NULL, NULL), MCD_OK);
-    ck_assert_int_eq(mcd_mixture_binaries(mix, 900.0, 3e5, D2, NULL, NULL), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_binary(mix, 0, 3, 2.0e-5, 298.15, MCD_ATM),
+                     MCD_OK);
+    ck_assert_int_eq(mcd_mixture_binaries(mix, 300.0, 1e5, D1, NULL, NULL),
+                     MCD_OK);
+    ck_assert_int_eq(mcd_mixture_binaries(mix, 900.0, 3e5, D2, NULL, NULL),
+                     MCD_OK);
     for (size_t i = 0; i < N; i++)
         for (size_t j = 0; j < N; j++)
             if (i != j)
@@ -67,20 +71,27 @@ START_TEST(mixture_tp_fit_reports_its_error_and_batched_fluxes_honour_it)
     double T[K], P[K], x[N * K], g[N * K], fit[N * K], ex[N * K];
     ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK);
     mix = lj_mixture(N, MCD_METHOD_CHAPMAN_ENSKOG);
-    ck_assert_int_eq(mcd_mixture_set_method(mix, 1, 4, MCD_GAS_WILKE_LEE), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_method(mix, 1, 4, MCD_GAS_WILKE_LEE),
+                     MCD_OK);
     ck_assert_int_eq(mcd_workspace_new(N, &ws), MCD_OK);
-    ck_assert_int_eq(mcd_mixture_temperature_fit(mix, &tmin, &tmax, &err), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_temperature_fit(mix, &tmin, &tmax, &err),
+                     MCD_OK);
     ck_assert(tmin == 0.0 && tmax == 0.0 && err == 0.0);
     /* errors */
-    ck_assert_int_eq(mcd_mixture_set_temperature_fit(NULL, 300, 1000, NULL), MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_set_temperature_fit(mix, NAN, 1000, NULL), MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_set_temperature_fit(mix, 1000, 300, NULL), MCD_EDOM);
-    ck_assert_int_eq(mcd_mixture_set_temperature_fit(mix, -1, 300, NULL), MCD_EDOM);
-    ck_assert_int_eq(mcd_mixture_temperature_fit(NULL, NULL, NULL, NULL), MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_set_temperature_fit(NULL, 300, 1000, NULL),
+                     MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_set_temperature_fit(mix, NAN, 1000, NULL),
+                     MCD_EINVAL);
+    ck_assert_int_eq(mcd_mixture_set_temperature_fit(mix, 1000, 300, NULL),
+                     MCD_EDOM);
+    ck_assert_int_eq(mcd_mixture_set_temperature_fit(mix, -1, 300, NULL),
+                     MCD_EDOM);
+    ck_assert_int_eq(mcd_mixture_temperature_fit(NULL, NULL, NULL, NULL),
+                     MCD_EINVAL);
 
     for (size_t k = 0; k < K; k++) {
         double s = 0.0;
-        T[k] = 250.0 + 30.0 * (double)k;   /* 250 .. 1420 K: some outside */
+        T[k] = 250.0 + 30.0 * (double)k; /* 250 .. 1420 K: some outside */
         P[k] = 1e5 + 2e3 * (double)k;
         for (size_t i = 0; i < N; i++) {
             x[i * K + k] = 0.05 + 0.1 * (double)((i * 7 + k) % 5);
@@ -90,27 +101,44 @@ START_TEST(mixture_tp_fit_reports_its_error_and_batched_fluxes_honour_it)
         for (size_t i = 0; i < N; i++)
             x[i * K + k] /= s;
     }
-    ck_assert_int_eq(mcd_flux_batch(ws, mix, MCD_MODEL_MAXWELL_STEFAN, T, P, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g}, MCD_BASIS_MOLE, ex),
+    ck_assert_int_eq(mcd_flux_batch(ws, mix, MCD_MODEL_MAXWELL_STEFAN, T, P,
+                                    &(mcd_cells){.n_cells = K,
+                                                 .n_dim = ND,
+                                                 .comp_basis = MCD_BASIS_MOLE,
+                                                 .comp = x,
+                                                 .grad = g},
+                                    MCD_BASIS_MOLE, ex),
                      MCD_OK);
-    ck_assert_int_eq(mcd_mixture_set_temperature_fit(mix, 300.0, 1200.0, &err), MCD_OK);
-    ck_assert_int_eq(mcd_mixture_temperature_fit(mix, &tmin, &tmax, &e2), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_temperature_fit(mix, 300.0, 1200.0, &err),
+                     MCD_OK);
+    ck_assert_int_eq(mcd_mixture_temperature_fit(mix, &tmin, &tmax, &e2),
+                     MCD_OK);
     ck_assert(tmin == 300.0 && tmax == 1200.0 && e2 == err);
-    fprintf(stderr, "fit 300..1200 K: reported max relative error of D %.3g\n", err);
+    fprintf(stderr, "fit 300..1200 K: reported max relative error of D %.3g\n",
+            err);
     /* Omega_D is smooth in ln T: a degree <= 24 Chebyshev fit over a
      * factor-4 range reaches 1e-12 (the fit's target) */
     ck_assert(err > 0.0 && err <= 1e-11);
-    ck_assert_int_eq(mcd_flux_batch(ws, mix, MCD_MODEL_MAXWELL_STEFAN, T, P, &(mcd_cells){.n_cells = K, .n_dim = ND, .comp_basis = MCD_BASIS_MOLE, .comp = x, .grad = g}, MCD_BASIS_MOLE, fit),
+    ck_assert_int_eq(mcd_flux_batch(ws, mix, MCD_MODEL_MAXWELL_STEFAN, T, P,
+                                    &(mcd_cells){.n_cells = K,
+                                                 .n_dim = ND,
+                                                 .comp_basis = MCD_BASIS_MOLE,
+                                                 .comp = x,
+                                                 .grad = g},
+                                    MCD_BASIS_MOLE, fit),
                      MCD_OK);
     for (size_t k = 0; k < K; k++) {
         double sc = 0.0, e = 0.0;
         for (size_t i = 0; i < N; i++) {
-            if (fabs(ex[i * K + k]) > sc) sc = fabs(ex[i * K + k]);
+            if (fabs(ex[i * K + k]) > sc)
+                sc = fabs(ex[i * K + k]);
             if (fabs(fit[i * K + k] - ex[i * K + k]) > e)
                 e = fabs(fit[i * K + k] - ex[i * K + k]);
         }
         /* fluxes move by at most ~ the relative change of 1/Đ times a
          * modest amplification; 100 x the reported error + round-off */
-        ck_assert_msg(e / sc <= 100.0 * err + 1e-13, "cell %zu (T %g): %.3g", k, T[k], e / sc);
+        ck_assert_msg(e / sc <= 100.0 * err + 1e-13, "cell %zu (T %g): %.3g", k,
+                      T[k], e / sc);
         /* cells outside the range are evaluated exactly */
         if (T[k] < 300.0 || T[k] > 1200.0)
             ck_assert_msg(e / sc <= 1e-13, "outside cell %zu: %.3g", k, e / sc);
@@ -120,12 +148,16 @@ START_TEST(mixture_tp_fit_reports_its_error_and_batched_fluxes_honour_it)
      * sub-problem is implicit above; here only monotonicity of effort */
     {
         double wide;
-        ck_assert_int_eq(mcd_mixture_set_temperature_fit(mix, 100.0, 5000.0, &wide), MCD_OK);
-        fprintf(stderr, "fit 100..5000 K: reported max relative error of D %.3g\n", wide);
+        ck_assert_int_eq(
+            mcd_mixture_set_temperature_fit(mix, 100.0, 5000.0, &wide), MCD_OK);
+        fprintf(stderr,
+                "fit 100..5000 K: reported max relative error of D %.3g\n",
+                wide);
         ck_assert(wide >= 0.0 && wide < 1e-3);
     }
     /* removing the fit */
-    ck_assert_int_eq(mcd_mixture_set_temperature_fit(mix, 0.0, 0.0, &err), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_temperature_fit(mix, 0.0, 0.0, &err),
+                     MCD_OK);
     ck_assert(err == 0.0);
     mcd_workspace_free(ws);
     mcd_mixture_free(mix);
@@ -138,7 +170,8 @@ int main(void)
     Suite *s = suite_create("mcd:mixture_tp");
     TCase *tc = tcase_create("mixture_tp");
     tcase_add_test(tc, mixture_tp_fsg_and_user_scale_exactly);
-    tcase_add_test(tc, mixture_tp_fit_reports_its_error_and_batched_fluxes_honour_it);
+    tcase_add_test(
+        tc, mixture_tp_fit_reports_its_error_and_batched_fluxes_honour_it);
     suite_add_tcase(s, tc);
     return sup_run(s);
 }

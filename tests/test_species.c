@@ -21,7 +21,11 @@ static int ieq(const char *a, const char *b)
 }
 
 static void setup(void) { ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK); }
-static void teardown(void) { mcd_db_free(db); db = NULL; }
+static void teardown(void)
+{
+    mcd_db_free(db);
+    db = NULL;
+}
 
 static size_t find(const char *name)
 {
@@ -33,23 +37,63 @@ static size_t find(const char *name)
 static double param(const char *name, mcd_param p)
 {
     double v = SUP_GUARD;
-    ck_assert_msg(mcd_db_param(db, find(name), p, &v) == MCD_OK, "%s %s",
-                  name, mcd_param_name(p));
+    ck_assert_msg(mcd_db_param(db, find(name), p, &v) == MCD_OK, "%s %s", name,
+                  mcd_param_name(p));
     return v;
 }
 
 /* Canonical names agreed across modules (notes/species-names.md). */
 static const char *const canonical[] = {
-    "hydrogen", "deuterium", "helium", "neon", "argon", "krypton", "xenon",
-    "nitrogen", "oxygen", "air", "carbon-monoxide", "carbon-dioxide",
-    "water", "ammonia", "hydrogen-sulfide", "sulfur-dioxide",
-    "sulfur-hexafluoride", "nitrous-oxide", "nitric-oxide", "chlorine",
-    "hydrogen-chloride", "methane", "ethane", "propane", "n-butane",
-    "isobutane", "n-pentane", "n-hexane", "n-heptane", "n-octane",
-    "ethylene", "propylene", "acetylene", "benzene", "toluene",
-    "cyclohexane", "methanol", "ethanol", "1-propanol", "acetone",
-    "diethyl-ether", "ethyl-acetate", "chloroform", "carbon-tetrachloride",
-    "dichloromethane", "r134a", "r32", "r22", "hydrogen-fluoride", "bromine",
+    "hydrogen",
+    "deuterium",
+    "helium",
+    "neon",
+    "argon",
+    "krypton",
+    "xenon",
+    "nitrogen",
+    "oxygen",
+    "air",
+    "carbon-monoxide",
+    "carbon-dioxide",
+    "water",
+    "ammonia",
+    "hydrogen-sulfide",
+    "sulfur-dioxide",
+    "sulfur-hexafluoride",
+    "nitrous-oxide",
+    "nitric-oxide",
+    "chlorine",
+    "hydrogen-chloride",
+    "methane",
+    "ethane",
+    "propane",
+    "n-butane",
+    "isobutane",
+    "n-pentane",
+    "n-hexane",
+    "n-heptane",
+    "n-octane",
+    "ethylene",
+    "propylene",
+    "acetylene",
+    "benzene",
+    "toluene",
+    "cyclohexane",
+    "methanol",
+    "ethanol",
+    "1-propanol",
+    "acetone",
+    "diethyl-ether",
+    "ethyl-acetate",
+    "chloroform",
+    "carbon-tetrachloride",
+    "dichloromethane",
+    "r134a",
+    "r32",
+    "r22",
+    "hydrogen-fluoride",
+    "bromine",
 };
 
 START_TEST(species_builtin_has_all_canonical_names)
@@ -92,7 +136,8 @@ START_TEST(species_builtin_molar_mass_agrees_with_formula)
         const char *name = mcd_db_name(db, i);
         double M = SUP_GUARD, Mf = SUP_GUARD, V = SUP_GUARD;
         ck_assert_int_eq(mcd_db_param(db, i, MCD_PARAM_MOLAR_MASS, &M), MCD_OK);
-        ck_assert_int_eq(mcd_db_param(db, i, MCD_PARAM_DIFF_VOLUME, &V), MCD_OK);
+        ck_assert_int_eq(mcd_db_param(db, i, MCD_PARAM_DIFF_VOLUME, &V),
+                         MCD_OK);
         ck_assert(M > 1e-3 && M < 0.5);
         ck_assert(V > 1.0 && V < 500.0);
         if (strcmp(name, "air") == 0) {
@@ -108,7 +153,8 @@ START_TEST(species_builtin_molar_mass_agrees_with_formula)
             ck_assert(sup_rel(M, 4.02820355624e-3) < 1e-12);
             continue;
         }
-        ck_assert_int_eq(mcd_formula_molar_mass(mcd_db_formula(db, i), &Mf), MCD_OK);
+        ck_assert_int_eq(mcd_formula_molar_mass(mcd_db_formula(db, i), &Mf),
+                         MCD_OK);
         ck_assert_msg(sup_rel(M, Mf) < 1e-4, "%s", name);
         if (sup_rel(M, Mf) > worst)
             worst = sup_rel(M, Mf);
@@ -127,7 +173,8 @@ START_TEST(species_builtin_diffusion_volume_from_method)
         const char *f = mcd_db_formula(db, i);
         const char *src = mcd_db_source(db, i, MCD_PARAM_DIFF_VOLUME);
         double V, Vt;
-        ck_assert_int_eq(mcd_db_param(db, i, MCD_PARAM_DIFF_VOLUME, &V), MCD_OK);
+        ck_assert_int_eq(mcd_db_param(db, i, MCD_PARAM_DIFF_VOLUME, &V),
+                         MCD_OK);
         ck_assert_ptr_nonnull(src);
         if (mcd_formula_molecule_volume(f, &Vt) == MCD_OK) {
             ck_assert_msg(V == Vt, "%s", f);
@@ -171,7 +218,8 @@ START_TEST(species_builtin_parameters_in_physical_ranges)
         }
         if (mcd_db_param(db, i, MCD_PARAM_LJ_SIGMA, &v) == MCD_OK) {
             ck_assert_msg(v >= 2e-10 && v <= 1e-9, "%s sigma %g", name, v);
-            ck_assert_int_eq(mcd_db_param(db, i, MCD_PARAM_LJ_EPS_K, &v), MCD_OK);
+            ck_assert_int_eq(mcd_db_param(db, i, MCD_PARAM_LJ_EPS_K, &v),
+                             MCD_OK);
             ck_assert_msg(v > 5.0 && v < 2000.0, "%s eps %g", name, v);
         }
         if (mcd_db_param(db, i, MCD_PARAM_DIPOLE, &v) == MCD_OK)
@@ -192,8 +240,9 @@ START_TEST(species_builtin_parameters_in_physical_ranges)
     /* At least the LJ parameters of all canonical species are known. */
     for (size_t k = 0; k < sizeof canonical / sizeof canonical[0]; ++k) {
         double s;
-        ck_assert_int_eq(mcd_db_param(db, find(canonical[k]),
-                                      MCD_PARAM_LJ_SIGMA, &s), MCD_OK);
+        ck_assert_int_eq(
+            mcd_db_param(db, find(canonical[k]), MCD_PARAM_LJ_SIGMA, &s),
+            MCD_OK);
     }
 }
 END_TEST
@@ -221,15 +270,18 @@ START_TEST(species_builtin_spot_checks_against_reference_data)
      * 3.941 A / 195.2 K). Exact table values: 1e-6 relative. */
     ck_assert(sup_rel(param("nitrogen", MCD_PARAM_LJ_SIGMA), 3.798e-10) < 1e-6);
     ck_assert(sup_rel(param("nitrogen", MCD_PARAM_LJ_EPS_K), 71.4) < 1e-6);
-    ck_assert(sup_rel(param("carbon-dioxide", MCD_PARAM_LJ_SIGMA), 3.941e-10) < 1e-6);
-    ck_assert(sup_rel(param("carbon-dioxide", MCD_PARAM_LJ_EPS_K), 195.2) < 1e-6);
+    ck_assert(sup_rel(param("carbon-dioxide", MCD_PARAM_LJ_SIGMA), 3.941e-10) <
+              1e-6);
+    ck_assert(sup_rel(param("carbon-dioxide", MCD_PARAM_LJ_EPS_K), 195.2) <
+              1e-6);
     /* Wilke and Chang (1955) association factors. */
     ck_assert(param("water", MCD_PARAM_ASSOC) == 2.6);
     ck_assert(param("methanol", MCD_PARAM_ASSOC) == 1.9);
     ck_assert(param("ethanol", MCD_PARAM_ASSOC) == 1.5);
     ck_assert(param("benzene", MCD_PARAM_ASSOC) == 1.0);
     /* Dipole of water 1.8 D in SI (1 D = 3.33564e-30 C m). */
-    ck_assert(sup_rel(param("water", MCD_PARAM_DIPOLE), 1.8 * 3.33564e-30) < 1e-12);
+    ck_assert(sup_rel(param("water", MCD_PARAM_DIPOLE), 1.8 * 3.33564e-30) <
+              1e-12);
     /* Le Bas volume of benzene: 6(14.8) + 6(3.7) - 15.0 = 96.0 cm^3/mol. */
     ck_assert(sup_rel(param("benzene", MCD_PARAM_VB), 96.0e-6) < 1e-12);
 }
@@ -251,8 +303,7 @@ START_TEST(species_find_by_name_case_and_formula)
     ck_assert_int_eq(mcd_db_find(db, "water", NULL), MCD_EINVAL);
     ck_assert_uint_eq(i, 777);
     /* A second species with formula CO2 makes the formula ambiguous. */
-    ck_assert_int_eq(mcd_db_add(db, "dry-ice-vapour", "CO2", 0, NULL),
-                     MCD_OK);
+    ck_assert_int_eq(mcd_db_add(db, "dry-ice-vapour", "CO2", 0, NULL), MCD_OK);
     ck_assert_int_eq(mcd_db_find(db, "CO2", &i), MCD_ENOTFOUND);
     ck_assert_uint_eq(i, 777);
 }
@@ -272,8 +323,10 @@ START_TEST(species_accessors_reject_bad_arguments)
     ck_assert_int_eq(mcd_db_param(db, n, MCD_PARAM_MOLAR_MASS, &v), MCD_EINVAL);
     ck_assert_int_eq(mcd_db_param(db, 0, MCD_PARAM_COUNT, &v), MCD_EINVAL);
     ck_assert_int_eq(mcd_db_param(db, 0, (mcd_param)-1, &v), MCD_EINVAL);
-    ck_assert_int_eq(mcd_db_param(NULL, 0, MCD_PARAM_MOLAR_MASS, &v), MCD_EINVAL);
-    ck_assert_int_eq(mcd_db_param(db, 0, MCD_PARAM_MOLAR_MASS, NULL), MCD_EINVAL);
+    ck_assert_int_eq(mcd_db_param(NULL, 0, MCD_PARAM_MOLAR_MASS, &v),
+                     MCD_EINVAL);
+    ck_assert_int_eq(mcd_db_param(db, 0, MCD_PARAM_MOLAR_MASS, NULL),
+                     MCD_EINVAL);
     /* unknown value: ENODATA, output untouched (CO2 has no normal Tb) */
     ck_assert_int_eq(mcd_db_param(db, find("CO2"), MCD_PARAM_TB, &v),
                      MCD_ENODATA);
@@ -286,9 +339,9 @@ END_TEST
 
 START_TEST(species_param_names_and_units)
 {
-    static const char *names[] = {"M", "V_diff", "sigma", "eps_k", "dipole",
-                                  "Vb", "Tb", "assoc", "Tc", "Pc"};
-    static const char *units[] = {"kg/mol", "-", "m", "K", "C m",
+    static const char *names[] = {"M",  "V_diff", "sigma", "eps_k", "dipole",
+                                  "Vb", "Tb",     "assoc", "Tc",    "Pc"};
+    static const char *units[] = {"kg/mol",  "-", "m", "K", "C m",
                                   "m^3/mol", "K", "-", "K", "Pa"};
     for (int p = 0; p < MCD_PARAM_COUNT; ++p) {
         ck_assert_str_eq(mcd_param_name((mcd_param)p), names[p]);
@@ -304,7 +357,8 @@ START_TEST(species_add_new_species_from_formula)
 {
     size_t n = mcd_db_species_count(db), i = 777;
     double M, V, Mf, s = SUP_GUARD;
-    ck_assert_int_eq(mcd_db_add(db, "methyl-acetate", "CH3COOCH3", 0, &i), MCD_OK);
+    ck_assert_int_eq(mcd_db_add(db, "methyl-acetate", "CH3COOCH3", 0, &i),
+                     MCD_OK);
     ck_assert_uint_eq(i, n);
     ck_assert_uint_eq(mcd_db_species_count(db), n + 1);
     ck_assert_str_eq(mcd_db_formula(db, i), "CH3COOCH3");
@@ -319,8 +373,8 @@ START_TEST(species_add_new_species_from_formula)
     ck_assert_int_eq(mcd_db_add(db, "steam", "H2O", 0, &i), MCD_OK);
     ck_assert_int_eq(mcd_db_param(db, i, MCD_PARAM_DIFF_VOLUME, &V), MCD_OK);
     ck_assert(V == 13.1);
-    ck_assert_ptr_nonnull(strstr(mcd_db_source(db, i, MCD_PARAM_DIFF_VOLUME),
-                                 "tabulated"));
+    ck_assert_ptr_nonnull(
+        strstr(mcd_db_source(db, i, MCD_PARAM_DIFF_VOLUME), "tabulated"));
     /* rings for a ring compound */
     ck_assert_int_eq(mcd_db_add(db, "pyridine", "C5H5N", 1, &i), MCD_OK);
     ck_assert_int_eq(mcd_db_param(db, i, MCD_PARAM_DIFF_VOLUME, &V), MCD_OK);
@@ -334,7 +388,8 @@ START_TEST(species_add_new_species_from_formula)
     ck_assert(V == 6.84);
     /* element without FEG increment: added, V unknown */
     ck_assert_int_eq(mcd_db_add(db, "silane", "SiH4", 0, &i), MCD_OK);
-    ck_assert_int_eq(mcd_db_param(db, i, MCD_PARAM_DIFF_VOLUME, &V), MCD_ENODATA);
+    ck_assert_int_eq(mcd_db_param(db, i, MCD_PARAM_DIFF_VOLUME, &V),
+                     MCD_ENODATA);
     ck_assert_int_eq(mcd_db_param(db, i, MCD_PARAM_MOLAR_MASS, &M), MCD_OK);
     /* out_index may be NULL */
     ck_assert_int_eq(mcd_db_add(db, "x1", "C", 0, NULL), MCD_OK);
@@ -359,7 +414,11 @@ END_TEST
 
 START_TEST(species_add_rejects_bad_input_without_change)
 {
-    static const struct { const char *name, *formula; int rings; mcd_status st; } bad[] = {
+    static const struct {
+        const char *name, *formula;
+        int rings;
+        mcd_status st;
+    } bad[] = {
         {"", "H2", 0, MCD_EPARSE},
         {"-lead", "H2", 0, MCD_EPARSE},
         {"has space", "H2", 0, MCD_EPARSE},
@@ -371,17 +430,18 @@ START_TEST(species_add_rejects_bad_input_without_change)
         {"ok", "Xq2", 0, MCD_ENOTFOUND},
         {"ok", "TcO2", 0, MCD_ENOTFOUND},
         {"ok", "C6H6", -1, MCD_EINVAL},
-        {"ok", "H2O", 1, MCD_EINVAL},  /* tabulated molecule has no ring */
-        {"ok", "H2", 1, MCD_EINVAL},   /* volume would be negative */
+        {"ok", "H2O", 1, MCD_EINVAL},   /* tabulated molecule has no ring */
+        {"ok", "H2", 1, MCD_EINVAL},    /* volume would be negative */
         {"water", "C(", 0, MCD_EPARSE}, /* failed override keeps the old */
     };
     size_t n = mcd_db_species_count(db), iw = find("water"), i = 777;
     double s;
     for (size_t k = 0; k < sizeof bad / sizeof bad[0]; ++k) {
-        ck_assert_int_eq(mcd_db_add(db, bad[k].name, bad[k].formula,
-                                    bad[k].rings, &i),
-                         bad[k].st);
-        ck_assert_msg(strlen(mcd_last_error()) > 0, "no message for %s", bad[k].name);
+        ck_assert_int_eq(
+            mcd_db_add(db, bad[k].name, bad[k].formula, bad[k].rings, &i),
+            bad[k].st);
+        ck_assert_msg(strlen(mcd_last_error()) > 0, "no message for %s",
+                      bad[k].name);
         ck_assert_uint_eq(mcd_db_species_count(db), n);
         ck_assert_uint_eq(i, 777);
     }
@@ -391,9 +451,12 @@ START_TEST(species_add_rejects_bad_input_without_change)
     ck_assert_int_eq(mcd_db_add(db, "a", NULL, 0, &i), MCD_EINVAL);
     /* all allowed name characters */
     ck_assert_int_eq(mcd_db_add(db, "9a_Z+-,()'", "H2", 0, &i), MCD_OK);
-    ck_assert_int_eq(mcd_db_add(db,
-        "123456789012345678901234567890123456789012345678901234567890123",
-        "H2", 0, &i), MCD_OK); /* 63 characters */
+    ck_assert_int_eq(
+        mcd_db_add(
+            db,
+            "123456789012345678901234567890123456789012345678901234567890123",
+            "H2", 0, &i),
+        MCD_OK); /* 63 characters */
 }
 END_TEST
 
@@ -401,7 +464,8 @@ START_TEST(species_set_param_checks_range_and_marks_user)
 {
     size_t i = find("methane");
     double v = SUP_GUARD;
-    ck_assert_int_eq(mcd_db_set_param(db, i, MCD_PARAM_LJ_SIGMA, 3.7e-10), MCD_OK);
+    ck_assert_int_eq(mcd_db_set_param(db, i, MCD_PARAM_LJ_SIGMA, 3.7e-10),
+                     MCD_OK);
     ck_assert_int_eq(mcd_db_param(db, i, MCD_PARAM_LJ_SIGMA, &v), MCD_OK);
     ck_assert(v == 3.7e-10);
     ck_assert_str_eq(mcd_db_source(db, i, MCD_PARAM_LJ_SIGMA), "user");
@@ -409,18 +473,24 @@ START_TEST(species_set_param_checks_range_and_marks_user)
     ck_assert_int_eq(mcd_db_set_param(db, i, MCD_PARAM_DIPOLE, 0.0), MCD_OK);
     ck_assert_int_eq(mcd_db_set_param(db, i, MCD_PARAM_ASSOC, 0.0), MCD_OK);
     ck_assert_int_eq(mcd_db_set_param(db, i, MCD_PARAM_TB, 0.0), MCD_EDOM);
-    ck_assert_int_eq(mcd_db_set_param(db, i, MCD_PARAM_DIPOLE, -1e-30), MCD_EDOM);
-    ck_assert_int_eq(mcd_db_set_param(db, i, MCD_PARAM_LJ_SIGMA, -3e-10), MCD_EDOM);
-    ck_assert_int_eq(mcd_db_set_param(db, i, MCD_PARAM_LJ_SIGMA, NAN), MCD_EINVAL);
-    ck_assert_int_eq(mcd_db_set_param(db, i, MCD_PARAM_LJ_SIGMA, INFINITY), MCD_EINVAL);
-    ck_assert_int_eq(mcd_db_set_param(db, i, MCD_PARAM_COUNT, 1.0), MCD_EINVAL);
-    ck_assert_int_eq(mcd_db_set_param(db, mcd_db_species_count(db), MCD_PARAM_TB, 1.0),
+    ck_assert_int_eq(mcd_db_set_param(db, i, MCD_PARAM_DIPOLE, -1e-30),
+                     MCD_EDOM);
+    ck_assert_int_eq(mcd_db_set_param(db, i, MCD_PARAM_LJ_SIGMA, -3e-10),
+                     MCD_EDOM);
+    ck_assert_int_eq(mcd_db_set_param(db, i, MCD_PARAM_LJ_SIGMA, NAN),
                      MCD_EINVAL);
+    ck_assert_int_eq(mcd_db_set_param(db, i, MCD_PARAM_LJ_SIGMA, INFINITY),
+                     MCD_EINVAL);
+    ck_assert_int_eq(mcd_db_set_param(db, i, MCD_PARAM_COUNT, 1.0), MCD_EINVAL);
+    ck_assert_int_eq(
+        mcd_db_set_param(db, mcd_db_species_count(db), MCD_PARAM_TB, 1.0),
+        MCD_EINVAL);
     ck_assert_int_eq(mcd_db_set_param(NULL, 0, MCD_PARAM_TB, 1.0), MCD_EINVAL);
     ck_assert_int_eq(mcd_db_param(db, i, MCD_PARAM_LJ_SIGMA, &v), MCD_OK);
     ck_assert(v == 3.7e-10);
     /* set a missing one: CO2 Tb */
-    ck_assert_int_eq(mcd_db_set_param(db, find("CO2"), MCD_PARAM_TB, 194.7), MCD_OK);
+    ck_assert_int_eq(mcd_db_set_param(db, find("CO2"), MCD_PARAM_TB, 194.7),
+                     MCD_OK);
     ck_assert(param("CO2", MCD_PARAM_TB) == 194.7);
 }
 END_TEST
@@ -434,7 +504,8 @@ START_TEST(species_database_grows_and_keeps_indices)
     for (int k = 0; k < 300; ++k) {
         size_t i;
         snprintf(name, sizeof name, "s%d", k);
-        ck_assert_int_eq(mcd_db_add(d, name, k % 2 ? "CH4" : "C2H6", 0, &i), MCD_OK);
+        ck_assert_int_eq(mcd_db_add(d, name, k % 2 ? "CH4" : "C2H6", 0, &i),
+                         MCD_OK);
         ck_assert_uint_eq(i, (size_t)k);
     }
     for (int k = 0; k < 300; k += 37) {

@@ -12,7 +12,11 @@
 
 static mcd_db *db;
 static void setup(void) { ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK); }
-static void teardown(void) { mcd_db_free(db); db = NULL; }
+static void teardown(void)
+{
+    mcd_db_free(db);
+    db = NULL;
+}
 
 static const char *data_path(const char *file)
 {
@@ -33,8 +37,8 @@ static size_t find(const char *name)
 static double param(const char *name, mcd_param p)
 {
     double v = SUP_GUARD;
-    ck_assert_msg(mcd_db_param(db, find(name), p, &v) == MCD_OK, "%s %s",
-                  name, mcd_param_name(p));
+    ck_assert_msg(mcd_db_param(db, find(name), p, &v) == MCD_OK, "%s %s", name,
+                  mcd_param_name(p));
     return v;
 }
 
@@ -76,7 +80,8 @@ static void assert_unchanged(void)
         ck_assert_str_eq(after.formula[i], before.formula[i]);
         for (int p = 0; p < MCD_PARAM_COUNT; ++p) {
             ck_assert_int_eq(after.st[i][p], before.st[i][p]);
-            ck_assert(memcmp(&after.v[i][p], &before.v[i][p], sizeof(double)) == 0);
+            ck_assert(memcmp(&after.v[i][p], &before.v[i][p], sizeof(double)) ==
+                      0);
             ck_assert(after.src[i][p] == before.src[i][p]);
         }
     }
@@ -95,43 +100,53 @@ START_TEST(species_file_example_loads)
     ck_assert_uint_eq(find("pyridine"), n + 1);
     ck_assert_uint_eq(find("nitrogen"), in2);
     /* unit conversions: exact factors, so 1e-14 relative (one multiply) */
-    ck_assert(sup_rel(param("methyl-acetate", MCD_PARAM_LJ_SIGMA), 4.936e-10) < 1e-14);
-    ck_assert(sup_rel(param("methyl-acetate", MCD_PARAM_DIPOLE), 1.7 * 3.33564e-30) < 1e-14);
+    ck_assert(sup_rel(param("methyl-acetate", MCD_PARAM_LJ_SIGMA), 4.936e-10) <
+              1e-14);
+    ck_assert(sup_rel(param("methyl-acetate", MCD_PARAM_DIPOLE),
+                      1.7 * 3.33564e-30) < 1e-14);
     ck_assert(sup_rel(param("methyl-acetate", MCD_PARAM_VB), 83.0e-6) < 1e-14);
     ck_assert(sup_rel(param("methyl-acetate", MCD_PARAM_PC), 47.50e5) < 1e-14);
     ck_assert(param("methyl-acetate", MCD_PARAM_ASSOC) == 1.0);
     ck_assert(sup_rel(param("pyridine", MCD_PARAM_PC), 5.63e6) < 1e-14);
-    ck_assert(sup_rel(param("pyridine", MCD_PARAM_DIPOLE), 2.3 * 3.33564e-30) < 1e-14);
-    ck_assert(sup_rel(param("nitrogen", MCD_PARAM_LJ_SIGMA), 3.798e-10) < 1e-14);
+    ck_assert(sup_rel(param("pyridine", MCD_PARAM_DIPOLE), 2.3 * 3.33564e-30) <
+              1e-14);
+    ck_assert(sup_rel(param("nitrogen", MCD_PARAM_LJ_SIGMA), 3.798e-10) <
+              1e-14);
     ck_assert(sup_rel(param("nitrogen", MCD_PARAM_VB), 3.12e-5) < 1e-14);
     ck_assert(param("nitrogen", MCD_PARAM_DIPOLE) == 0.0);
-    ck_assert(sup_rel(param("nitrogen", MCD_PARAM_MOLAR_MASS), 28.0134e-3) < 1e-14);
+    ck_assert(sup_rel(param("nitrogen", MCD_PARAM_MOLAR_MASS), 28.0134e-3) <
+              1e-14);
     ck_assert(sup_rel(param("nitrogen", MCD_PARAM_PC), 3.398e6) < 1e-14);
     /* computed values: M from the formula, V from increments with a ring */
     {
         double M;
         ck_assert_int_eq(mcd_formula_molar_mass("C3H6O2", &M), MCD_OK);
-        ck_assert(sup_rel(param("methyl-acetate", MCD_PARAM_MOLAR_MASS), M) < 1e-15);
+        ck_assert(sup_rel(param("methyl-acetate", MCD_PARAM_MOLAR_MASS), M) <
+                  1e-15);
         ck_assert_double_eq_tol(param("pyridine", MCD_PARAM_DIFF_VOLUME),
                                 5 * 15.9 + 5 * 2.31 + 4.54 - 18.3, 1e-9);
         ck_assert(param("nitrogen", MCD_PARAM_DIFF_VOLUME) == 18.5);
     }
     /* sources: "user" for given values, the method for computed ones */
-    ck_assert_str_eq(mcd_db_source(db, find("nitrogen"), MCD_PARAM_MOLAR_MASS), "user");
+    ck_assert_str_eq(mcd_db_source(db, find("nitrogen"), MCD_PARAM_MOLAR_MASS),
+                     "user");
     ck_assert_str_eq(mcd_db_source(db, find("pyridine"), MCD_PARAM_TB), "user");
-    ck_assert_ptr_nonnull(strstr(mcd_db_source(db, find("pyridine"),
-                                               MCD_PARAM_DIFF_VOLUME), "Fuller"));
+    ck_assert_ptr_nonnull(strstr(
+        mcd_db_source(db, find("pyridine"), MCD_PARAM_DIFF_VOLUME), "Fuller"));
     /* not given: unknown */
     {
         double v = SUP_GUARD;
-        ck_assert_int_eq(mcd_db_param(db, find("pyridine"), MCD_PARAM_LJ_SIGMA, &v),
-                         MCD_ENODATA);
-        ck_assert_int_eq(mcd_db_param(db, find("nitrogen"), MCD_PARAM_ASSOC, &v),
-                         MCD_ENODATA);
+        ck_assert_int_eq(
+            mcd_db_param(db, find("pyridine"), MCD_PARAM_LJ_SIGMA, &v),
+            MCD_ENODATA);
+        ck_assert_int_eq(
+            mcd_db_param(db, find("nitrogen"), MCD_PARAM_ASSOC, &v),
+            MCD_ENODATA);
         ck_assert(v == SUP_GUARD);
     }
     /* loading the same file again replaces the same species: count same */
-    ck_assert_int_eq(mcd_db_load_file(db, data_path("species-example.txt")), MCD_OK);
+    ck_assert_int_eq(mcd_db_load_file(db, data_path("species-example.txt")),
+                     MCD_OK);
     ck_assert_uint_eq(mcd_db_species_count(db), n + 2);
 }
 END_TEST
@@ -143,46 +158,46 @@ START_TEST(species_file_layout_variants_accepted)
     mcd_db *d = NULL;
     size_t i;
     double v;
-    const char *text =
-        "# leading comment\r\n"
-        "\r\n"
-        "  mcdiff-species\t1   # header\r\n"
-        "species\ta\r\n"
-        "\tformula\tCH4\r\n"
-        "\tsigma 380 pm\r\n"
-        "\teps_k 150 K\r\n"
-        "\tdipole 0 C*m\r\n"
-        "\tVb 37.7 cm^3/mol\r\n"
-        "\tPc 4.6 MPa\r\n"
-        "\tTc 190.6 K\r\n"
-        "\tTb 111.7 K\r\n"
-        "\tM 0.016043 kg/mol\r\n"
-        "\tV_diff 25.14\r\n"
-        "\tassoc 1\r\n"
-        "species b\n"
-        "formula CO2\n"
-        "sigma 3.941 Angstrom\n"
-        "Pc 72.8 atm\n"
-        "Vb 3.4e-5 m^3/mol\n"
-        "dipole 0.0 D\n"
-        "species c\n"
-        "formula CO\n"
-        "sigma 3.69 A\n"
-        "Pc 3494 kPa\n"
-        "dipole 3.3e-31 C m\n"
-        "species d\n"
-        "formula NO\n"
-        "sigma 3.492e-10 m\n"
-        "Pc 64.8 bar\n"
-        "Vb 23.6 cm3/mol\n"
-        "dipole 0.2 debye\n"
-        "species e\n"
-        "formula H2\n"
-        "sigma 0.2827 nm\n"
-        "M 2.016 g/mol\n"
-        "Pc 1.313e6 Pa\n";
+    const char *text = "# leading comment\r\n"
+                       "\r\n"
+                       "  mcdiff-species\t1   # header\r\n"
+                       "species\ta\r\n"
+                       "\tformula\tCH4\r\n"
+                       "\tsigma 380 pm\r\n"
+                       "\teps_k 150 K\r\n"
+                       "\tdipole 0 C*m\r\n"
+                       "\tVb 37.7 cm^3/mol\r\n"
+                       "\tPc 4.6 MPa\r\n"
+                       "\tTc 190.6 K\r\n"
+                       "\tTb 111.7 K\r\n"
+                       "\tM 0.016043 kg/mol\r\n"
+                       "\tV_diff 25.14\r\n"
+                       "\tassoc 1\r\n"
+                       "species b\n"
+                       "formula CO2\n"
+                       "sigma 3.941 Angstrom\n"
+                       "Pc 72.8 atm\n"
+                       "Vb 3.4e-5 m^3/mol\n"
+                       "dipole 0.0 D\n"
+                       "species c\n"
+                       "formula CO\n"
+                       "sigma 3.69 A\n"
+                       "Pc 3494 kPa\n"
+                       "dipole 3.3e-31 C m\n"
+                       "species d\n"
+                       "formula NO\n"
+                       "sigma 3.492e-10 m\n"
+                       "Pc 64.8 bar\n"
+                       "Vb 23.6 cm3/mol\n"
+                       "dipole 0.2 debye\n"
+                       "species e\n"
+                       "formula H2\n"
+                       "sigma 0.2827 nm\n"
+                       "M 2.016 g/mol\n"
+                       "Pc 1.313e6 Pa\n";
     ck_assert_int_eq(mcd_db_new(&d), MCD_OK);
-    ck_assert_msg(mcd_db_load_string(d, text) == MCD_OK, "%s", mcd_last_error());
+    ck_assert_msg(mcd_db_load_string(d, text) == MCD_OK, "%s",
+                  mcd_last_error());
     ck_assert_uint_eq(mcd_db_species_count(d), 5);
     ck_assert_int_eq(mcd_db_find(d, "a", &i), MCD_OK);
     ck_assert_int_eq(mcd_db_param(d, i, MCD_PARAM_LJ_SIGMA, &v), MCD_OK);
@@ -204,8 +219,7 @@ START_TEST(species_file_layout_variants_accepted)
     ck_assert_int_eq(mcd_db_param(d, i, MCD_PARAM_MOLAR_MASS, &v), MCD_OK);
     ck_assert(sup_rel(v, 2.016e-3) < 1e-14);
     /* a header alone is a valid, empty species file */
-    ck_assert_int_eq(mcd_db_load_string(d, "mcdiff-species 1\n"),
-                     MCD_OK);
+    ck_assert_int_eq(mcd_db_load_string(d, "mcdiff-species 1\n"), MCD_OK);
     ck_assert_uint_eq(mcd_db_species_count(d), 5);
     mcd_db_free(d);
 }
@@ -231,65 +245,86 @@ static const struct {
      "line 2: 'species' takes exactly one name"},
     {"bad name", "mcdiff-species 1\nspecies a;b\nformula H2\n", MCD_EPARSE,
      "line 2: species name"},
-    {"duplicate species", "mcdiff-species 1\nspecies a\nformula H2\n"
-     "species A\nformula H2\n", MCD_EPARSE,
-     "line 4: species 'A' already defined on line 2"},
+    {"duplicate species",
+     "mcdiff-species 1\nspecies a\nformula H2\n"
+     "species A\nformula H2\n",
+     MCD_EPARSE, "line 4: species 'A' already defined on line 2"},
     {"unknown key", "mcdiff-species 1\nspecies a\nformula H2\nsigmaa 3 A\n",
      MCD_EPARSE, "line 4: unknown key 'sigmaa'"},
-    {"duplicate key", "mcdiff-species 1\nspecies a\nformula H2\nTb 20 K\n"
-     "Tb 21 K\n", MCD_EPARSE, "line 5: duplicate key 'Tb' (first on line 4)"},
-    {"duplicate formula", "mcdiff-species 1\nspecies a\nformula H2\n"
-     "formula H2\n", MCD_EPARSE, "line 4: duplicate key 'formula'"},
-    {"missing formula (last block)", "mcdiff-species 1\nspecies a\nformula H2\n"
-     "species b\nTb 20 K\n", MCD_EPARSE, "line 4: species 'b' has no formula"},
-    {"missing formula (inner block)", "mcdiff-species 1\nspecies a\nTb 20 K\n"
-     "species b\nformula H2\n", MCD_EPARSE, "line 2: species 'a' has no formula"},
+    {"duplicate key",
+     "mcdiff-species 1\nspecies a\nformula H2\nTb 20 K\n"
+     "Tb 21 K\n",
+     MCD_EPARSE, "line 5: duplicate key 'Tb' (first on line 4)"},
+    {"duplicate formula",
+     "mcdiff-species 1\nspecies a\nformula H2\n"
+     "formula H2\n",
+     MCD_EPARSE, "line 4: duplicate key 'formula'"},
+    {"missing formula (last block)",
+     "mcdiff-species 1\nspecies a\nformula H2\n"
+     "species b\nTb 20 K\n",
+     MCD_EPARSE, "line 4: species 'b' has no formula"},
+    {"missing formula (inner block)",
+     "mcdiff-species 1\nspecies a\nTb 20 K\n"
+     "species b\nformula H2\n",
+     MCD_EPARSE, "line 2: species 'a' has no formula"},
     {"formula with two values", "mcdiff-species 1\nspecies a\nformula H2 O\n",
      MCD_EPARSE, "line 3: 'formula' takes exactly one value"},
     {"malformed formula", "mcdiff-species 1\nspecies a\nTb 1 K\nformula C(H\n",
      MCD_EPARSE, "line 4: species 'a': formula: position 4: expected ')'"},
     {"unknown element", "mcdiff-species 1\nspecies a\nformula CH3Xq\n",
-     MCD_ENOTFOUND, "line 3: species 'a': formula: position 4: unknown element 'Xq'"},
+     MCD_ENOTFOUND,
+     "line 3: species 'a': formula: position 4: unknown element 'Xq'"},
     {"bad rings", "mcdiff-species 1\nspecies a\nformula C6H6\nrings -1\n",
      MCD_EPARSE, "line 4: 'rings': '-1' is not a non-negative integer"},
-    {"rings with unit", "mcdiff-species 1\nspecies a\nformula C6H6\nrings 1 K\n",
-     MCD_EPARSE, "line 4: 'rings' takes one integer"},
-    {"rings on tabulated molecule", "mcdiff-species 1\nspecies a\nformula H2O\n"
-     "rings 1\n", MCD_EPARSE, "line 4: species 'a': n_rings must be 0"},
+    {"rings with unit",
+     "mcdiff-species 1\nspecies a\nformula C6H6\nrings 1 K\n", MCD_EPARSE,
+     "line 4: 'rings' takes one integer"},
+    {"rings on tabulated molecule",
+     "mcdiff-species 1\nspecies a\nformula H2O\n"
+     "rings 1\n",
+     MCD_EPARSE, "line 4: species 'a': n_rings must be 0"},
     {"missing value", "mcdiff-species 1\nspecies a\nformula H2\nTb\n",
      MCD_EPARSE, "line 4: 'Tb' needs a value"},
     {"bad number", "mcdiff-species 1\nspecies a\nformula H2\nsigma 4.6x A\n",
      MCD_EPARSE, "line 4: 'sigma': '4.6x' is not a finite decimal number"},
-    {"nan", "mcdiff-species 1\nspecies a\nformula H2\nTb nan K\n",
-     MCD_EPARSE, "line 4: 'Tb': 'nan' is not a finite"},
-    {"inf", "mcdiff-species 1\nspecies a\nformula H2\nTb inf K\n",
-     MCD_EPARSE, "line 4: 'Tb': 'inf' is not a finite"},
+    {"nan", "mcdiff-species 1\nspecies a\nformula H2\nTb nan K\n", MCD_EPARSE,
+     "line 4: 'Tb': 'nan' is not a finite"},
+    {"inf", "mcdiff-species 1\nspecies a\nformula H2\nTb inf K\n", MCD_EPARSE,
+     "line 4: 'Tb': 'inf' is not a finite"},
     {"overflow", "mcdiff-species 1\nspecies a\nformula H2\nTb 1e999 K\n",
      MCD_EPARSE, "line 4: 'Tb': '1e999' is not a finite"},
-    {"hex", "mcdiff-species 1\nspecies a\nformula H2\nTb 0x10 K\n",
-     MCD_EPARSE, "line 4: 'Tb': '0x10' is not a finite"},
+    {"hex", "mcdiff-species 1\nspecies a\nformula H2\nTb 0x10 K\n", MCD_EPARSE,
+     "line 4: 'Tb': '0x10' is not a finite"},
     {"two numbers", "mcdiff-species 1\nspecies a\nformula H2\nTb 1.2.3 K\n",
      MCD_EPARSE, "line 4: 'Tb': '1.2.3' is not a finite"},
     {"missing unit", "mcdiff-species 1\nspecies a\nformula H2\nsigma 2.8\n",
      MCD_EPARSE, "line 4: 'sigma' needs a unit (m, nm, pm, angstrom"},
     {"bad unit", "mcdiff-species 1\nspecies a\nformula H2\nsigma 2.8 furlong\n",
      MCD_EPARSE, "line 4: 'sigma': unknown unit 'furlong'"},
-    {"unit of another quantity", "mcdiff-species 1\nspecies a\nformula H2\n"
-     "Pc 13 K\n", MCD_EPARSE, "line 4: 'Pc': unknown unit 'K'"},
+    {"unit of another quantity",
+     "mcdiff-species 1\nspecies a\nformula H2\n"
+     "Pc 13 K\n",
+     MCD_EPARSE, "line 4: 'Pc': unknown unit 'K'"},
     {"wrong case unit", "mcdiff-species 1\nspecies a\nformula H2\nTb 20 k\n",
      MCD_EPARSE, "line 4: 'Tb': unknown unit 'k'"},
-    {"unit on dimensionless", "mcdiff-species 1\nspecies a\nformula H2\n"
-     "assoc 1 K\n", MCD_EPARSE, "line 4: 'assoc' is dimensionless"},
+    {"unit on dimensionless",
+     "mcdiff-species 1\nspecies a\nformula H2\n"
+     "assoc 1 K\n",
+     MCD_EPARSE, "line 4: 'assoc' is dimensionless"},
     {"negative value", "mcdiff-species 1\nspecies a\nformula H2\nTc -5 K\n",
      MCD_EDOM, "line 4: 'Tc' must be > 0"},
     {"zero sigma", "mcdiff-species 1\nspecies a\nformula H2\nsigma 0 A\n",
      MCD_EDOM, "line 4: 'sigma' must be > 0"},
-    {"negative dipole", "mcdiff-species 1\nspecies a\nformula H2\n"
-     "dipole -1 D\n", MCD_EDOM, "line 4: 'dipole' must be >= 0"},
+    {"negative dipole",
+     "mcdiff-species 1\nspecies a\nformula H2\n"
+     "dipole -1 D\n",
+     MCD_EDOM, "line 4: 'dipole' must be >= 0"},
     {"control character", "mcdiff-species 1\nspecies a\nformula H2\x01\n",
      MCD_EPARSE, "line 3: control character (byte 0x01) at column 11"},
-    {"too many fields", "mcdiff-species 1\nspecies a\nformula H2\n"
-     "Tb 1 2 3 4 5 6 7 8\n", MCD_EPARSE, "line 4: too many fields"},
+    {"too many fields",
+     "mcdiff-species 1\nspecies a\nformula H2\n"
+     "Tb 1 2 3 4 5 6 7 8\n",
+     MCD_EPARSE, "line 4: too many fields"},
 };
 
 START_TEST(species_file_each_error_names_its_line)
@@ -301,8 +336,10 @@ START_TEST(species_file_each_error_names_its_line)
         mcd_status st = mcd_db_load_string(db, bad[k].text);
         ck_assert_msg(st == bad[k].st, "%s: status %d, want %d (%s)",
                       bad[k].what, st, bad[k].st, mcd_last_error());
-        ck_assert_msg(strncmp(mcd_last_error(), bad[k].msg, strlen(bad[k].msg)) == 0,
-                      "%s: got '%s', want '%s'", bad[k].what, mcd_last_error(), bad[k].msg);
+        ck_assert_msg(
+            strncmp(mcd_last_error(), bad[k].msg, strlen(bad[k].msg)) == 0,
+            "%s: got '%s', want '%s'", bad[k].what, mcd_last_error(),
+            bad[k].msg);
         assert_unchanged();
     }
 }
@@ -316,7 +353,8 @@ START_TEST(species_file_failure_after_valid_blocks_changes_nothing)
                        "species bad\nformula CH4\nTc 190 Kelvin\n";
     take(&before);
     ck_assert_int_eq(mcd_db_load_string(db, text), MCD_EPARSE);
-    ck_assert_msg(strncmp(mcd_last_error(), "line 10:", 8) == 0, "%s", mcd_last_error());
+    ck_assert_msg(strncmp(mcd_last_error(), "line 10:", 8) == 0, "%s",
+                  mcd_last_error());
     assert_unchanged();
     {
         size_t i;
@@ -327,8 +365,13 @@ END_TEST
 
 START_TEST(species_file_bad_files_name_their_line)
 {
-    static const struct { const char *file; mcd_status st; const char *msg; } f[] = {
-        {"species-bad-unit.txt", MCD_EPARSE, "line 5: 'sigma': unknown unit 'furlong'"},
+    static const struct {
+        const char *file;
+        mcd_status st;
+        const char *msg;
+    } f[] = {
+        {"species-bad-unit.txt", MCD_EPARSE,
+         "line 5: 'sigma': unknown unit 'furlong'"},
         {"species-missing-formula.txt", MCD_EPARSE,
          "line 7: species 'no-formula' has no formula"},
         {"species-duplicate-key.txt", MCD_EPARSE,
@@ -337,7 +380,8 @@ START_TEST(species_file_bad_files_name_their_line)
     take(&before);
     for (size_t k = 0; k < sizeof f / sizeof f[0]; ++k) {
         ck_assert_int_eq(mcd_db_load_file(db, data_path(f[k].file)), f[k].st);
-        ck_assert_msg(strncmp(mcd_last_error(), f[k].msg, strlen(f[k].msg)) == 0,
+        ck_assert_msg(strncmp(mcd_last_error(), f[k].msg, strlen(f[k].msg)) ==
+                          0,
                       "%s: got '%s'", f[k].file, mcd_last_error());
         assert_unchanged();
     }
@@ -347,7 +391,8 @@ END_TEST
 START_TEST(species_file_io_and_argument_errors)
 {
     take(&before);
-    ck_assert_int_eq(mcd_db_load_file(db, data_path("species-does-not-exist.txt")), MCD_EIO);
+    ck_assert_int_eq(
+        mcd_db_load_file(db, data_path("species-does-not-exist.txt")), MCD_EIO);
     ck_assert_ptr_nonnull(strstr(mcd_last_error(), "cannot open"));
     /* a directory opens on Linux but cannot be read */
     ck_assert_int_eq(mcd_db_load_file(db, getenv("MCD_TEST_DATA")), MCD_EIO);
@@ -371,13 +416,16 @@ START_TEST(species_file_nul_byte_is_rejected)
     ck_assert_int_ge(fd, 0);
     fp = fdopen(fd, "wb");
     ck_assert_ptr_nonnull(fp);
-    ck_assert_uint_eq(fwrite(content, 1, sizeof content - 1, fp), sizeof content - 1);
+    ck_assert_uint_eq(fwrite(content, 1, sizeof content - 1, fp),
+                      sizeof content - 1);
     fclose(fp);
     take(&before);
     ck_assert_int_eq(mcd_db_load_file(db, path), MCD_EPARSE);
     remove(path);
-    ck_assert_msg(strcmp(mcd_last_error(), "line 3: control character (byte 0x00) at column 11") == 0,
-                  "%s", mcd_last_error());
+    ck_assert_msg(
+        strcmp(mcd_last_error(),
+               "line 3: control character (byte 0x00) at column 11") == 0,
+        "%s", mcd_last_error());
     assert_unchanged();
 }
 END_TEST

@@ -47,8 +47,8 @@ END_TEST
 START_TEST(status_runtime_version_matches_header)
 {
     char expect[32];
-    snprintf(expect, sizeof expect, "%d.%d.%d", MCD_VERSION_MAJOR, MCD_VERSION_MINOR,
-             MCD_VERSION_PATCH);
+    snprintf(expect, sizeof expect, "%d.%d.%d", MCD_VERSION_MAJOR,
+             MCD_VERSION_MINOR, MCD_VERSION_PATCH);
     ck_assert_str_eq(mcd_version_string(), expect);
     ck_assert_uint_eq(mcd_version_number(), (unsigned)MCD_VERSION_NUMBER);
 }

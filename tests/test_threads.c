@@ -44,8 +44,9 @@ typedef struct state {
 
 static void make_state(int k, state *st)
 {
-    sup_rng s = SUP_RNG(SUP_XORSHIFT64,
-                        0x9E3779B97F4A7C15ull ^ (uint64_t)(k + 1) * 0xD1B54A32D192ED03ull);
+    sup_rng s =
+        SUP_RNG(SUP_XORSHIFT64, 0x9E3779B97F4A7C15ull ^
+                                    (uint64_t)(k + 1) * 0xD1B54A32D192ED03ull);
     double sum = 0.0, sumL = 0.0;
     for (int r = 0; r < 4; r++)
         sup_next(&s);
@@ -79,26 +80,68 @@ static mcd_status compute_state(mcd_workspace *ws, int k, double *out)
     state st;
     mcd_status r;
     double *D = out, *Jms = D + NS * NS, *Jma = Jms + NS * ND;
-    double *jms = Jma + NS * ND, *F = jms + NS * ND, *Nf = F + (NS - 1) * (NS - 1);
+    double *jms = Jma + NS * ND, *F = jms + NS * ND,
+           *Nf = F + (NS - 1) * (NS - 1);
     make_state(k, &st);
     if ((r = mcd_mixture_binaries(g_mix, st.T, st.P, D, NULL, NULL)) != MCD_OK)
         return r;
-    if ((r = mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = NS, .n_dim = ND, .M = g_M, .Dij = D, .c = st.c, .comp_basis = MCD_BASIS_MOLE, .comp = st.x, .grad = st.grad}, MCD_BASIS_MOLE, Jms)) != MCD_OK)
+    if ((r = mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
+                              &(mcd_state){.n_species = NS,
+                                           .n_dim = ND,
+                                           .M = g_M,
+                                           .Dij = D,
+                                           .c = st.c,
+                                           .comp_basis = MCD_BASIS_MOLE,
+                                           .comp = st.x,
+                                           .grad = st.grad},
+                              MCD_BASIS_MOLE, Jms)) != MCD_OK)
         return r;
-    if ((r = mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED, &(mcd_state){.n_species = NS, .n_dim = ND, .M = g_M, .Dij = D, .c = st.c, .comp_basis = MCD_BASIS_MOLE, .comp = st.x, .grad = st.grad}, MCD_BASIS_MOLE, Jma)) != MCD_OK)
+    if ((r = mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED,
+                              &(mcd_state){.n_species = NS,
+                                           .n_dim = ND,
+                                           .M = g_M,
+                                           .Dij = D,
+                                           .c = st.c,
+                                           .comp_basis = MCD_BASIS_MOLE,
+                                           .comp = st.x,
+                                           .grad = st.grad},
+                              MCD_BASIS_MOLE, Jma)) != MCD_OK)
         return r;
-    if ((r = mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &(mcd_state){.n_species = NS, .n_dim = ND, .M = g_M, .Dij = D, .c = st.c, .comp_basis = MCD_BASIS_MOLE, .comp = st.x, .grad = st.grad}, MCD_BASIS_MASS, jms)) != MCD_OK)
+    if ((r = mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
+                              &(mcd_state){.n_species = NS,
+                                           .n_dim = ND,
+                                           .M = g_M,
+                                           .Dij = D,
+                                           .c = st.c,
+                                           .comp_basis = MCD_BASIS_MOLE,
+                                           .comp = st.x,
+                                           .grad = st.grad},
+                              MCD_BASIS_MASS, jms)) != MCD_OK)
         return r;
-    if ((r = mcd_fick_matrix(ws, &(mcd_state){.n_species = NS, .M = g_M, .Dij = D, .comp_basis = MCD_BASIS_MOLE, .comp = st.x}, MCD_BASIS_MOLE, 0, F, NULL)) != MCD_OK)
+    if ((r = mcd_fick_matrix(ws,
+                             &(mcd_state){.n_species = NS,
+                                          .M = g_M,
+                                          .Dij = D,
+                                          .comp_basis = MCD_BASIS_MOLE,
+                                          .comp = st.x},
+                             MCD_BASIS_MOLE, 0, F, NULL)) != MCD_OK)
         return r;
     /* Film: equimolar counter-diffusion between x and xL over 1 mm. */
-    return mcd_film_solve(ws, &(mcd_film){.n_species = NS, .c = st.c, .L = 1e-3, .Dij = D, .x0 = st.x, .xL = st.xL}, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, Nf, NULL, NULL);
+    return mcd_film_solve(ws,
+                          &(mcd_film){.n_species = NS,
+                                      .c = st.c,
+                                      .L = 1e-3,
+                                      .Dij = D,
+                                      .x0 = st.x,
+                                      .xL = st.xL},
+                          MCD_FILM_BOOT_EQUIMOLAR, 0, NULL, MCD_FILM_EXACT, Nf,
+                          NULL, NULL);
 }
 
 typedef struct job {
     int id;
-    int mismatches;   /* states whose result differs from serial */
-    int failures;     /* calls that did not return MCD_OK */
+    int mismatches; /* states whose result differs from serial */
+    int failures;   /* calls that did not return MCD_OK */
     double out[PER_STATE];
 } job;
 
@@ -129,9 +172,10 @@ static void setup(void)
     ck_assert_int_eq(mcd_mixture_new(g_db, NS, names, MCD_GAS_FSG, &g_mix),
                      MCD_OK);
     /* Two pairs by other methods so that every code path of binaries runs. */
-    ck_assert_int_eq(mcd_mixture_set_method(g_mix, 0, 1, MCD_GAS_CHAPMAN_ENSKOG),
-                     MCD_OK);
-    ck_assert_int_eq(mcd_mixture_set_binary(g_mix, 2, 3, 1.6e-5, 298.15, MCD_ATM), MCD_OK);
+    ck_assert_int_eq(
+        mcd_mixture_set_method(g_mix, 0, 1, MCD_GAS_CHAPMAN_ENSKOG), MCD_OK);
+    ck_assert_int_eq(
+        mcd_mixture_set_binary(g_mix, 2, 3, 1.6e-5, 298.15, MCD_ATM), MCD_OK);
     ck_assert_int_eq(mcd_mixture_molar_masses(g_mix, g_M), MCD_OK);
 }
 
@@ -166,8 +210,9 @@ START_TEST(threads_results_bitwise_equal_serial)
     for (int t = 0; t < NTHREADS; t++) {
         ck_assert_msg(jobs[t].failures == 0, "thread %d: %d failed calls", t,
                       jobs[t].failures);
-        ck_assert_msg(jobs[t].mismatches == 0, "thread %d: %d states differ from serial",
-                      t, jobs[t].mismatches);
+        ck_assert_msg(jobs[t].mismatches == 0,
+                      "thread %d: %d states differ from serial", t,
+                      jobs[t].mismatches);
     }
 }
 END_TEST
@@ -192,8 +237,8 @@ static void *db_worker(void *arg)
         size_t a, b;
         if (mcd_db_find(g_db, "nitrogen", &a) != MCD_OK ||
             mcd_db_find(g_db, "helium", &b) != MCD_OK ||
-            mcd_db_binary_gas(g_db, a, b, MCD_GAS_CHAPMAN_ENSKOG, 300.0 + r, MCD_ATM, &D,
-                           NULL, &warn) != MCD_OK ||
+            mcd_db_binary_gas(g_db, a, b, MCD_GAS_CHAPMAN_ENSKOG, 300.0 + r,
+                              MCD_ATM, &D, NULL, &warn) != MCD_OK ||
             !(D > 0))
             j->bad++;
         double Mf;
@@ -234,7 +279,8 @@ static void *err_worker(void *arg)
         if (mcd_formula_molar_mass(formula, &M) != MCD_ENOTFOUND ||
             strstr(mcd_last_error(), want) == NULL)
             j->bad++;
-        if (mcd_formula_molar_mass("H2O", &M) != MCD_OK || mcd_last_error()[0] != '\0')
+        if (mcd_formula_molar_mass("H2O", &M) != MCD_OK ||
+            mcd_last_error()[0] != '\0')
             j->bad++;
     }
     return NULL;

@@ -1,8 +1,9 @@
 #!/usr/bin/env bash
-# check_format.sh ROOT - lib/ is formatted as .clang-format says.
+# check_format.sh ROOT - the C sources (lib/, tests/, bindings/cli/,
+# examples/) are formatted as .clang-format says.
 # Formatting differs between clang-format releases: the check runs with
 # release 14 (Debian 12's) and skips (exit 77) with any other or none.
-# Fix a failure with: clang-format -i lib/*/*.[ch]
+# Fix a failure with the command it prints.
 set -u
 root=${1:-.}
 cf=$(command -v clang-format || true)
@@ -17,13 +18,15 @@ if [ "$major" != "14" ]; then
 fi
 cd "$root" || exit 1
 # Generated files (first line "... do not edit") keep the generator's layout.
-files=$(for f in lib/*/*.c lib/*/*.h; do
+files=$(for f in lib/*/*.[ch] tests/*.[ch] tests/fuzz/*.[ch] tests/install/*.c \
+    bindings/cli/*.[ch] examples/*.[ch]; do
+    [ -f "$f" ] || continue
     head -n 1 "$f" | grep -q 'do not edit' || echo "$f"
 done)
 # shellcheck disable=SC2086
 if "$cf" --dry-run -Werror $files; then
-    echo "check_format: lib/ matches .clang-format"
+    echo "check_format: the C sources match .clang-format"
     exit 0
 fi
-echo "check_format: run clang-format -i lib/*/*.[ch]"
+echo "check_format: run clang-format -i on the files named above"
 exit 1

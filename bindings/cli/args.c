@@ -26,8 +26,7 @@ static void name_option(cli_args *a, const cli_opt *o)
         snprintf(a->spelled_buf, sizeof a->spelled_buf, "-%c/--%s",
                  o->short_name, o->long_name);
     else if (o->long_name)
-        snprintf(a->spelled_buf, sizeof a->spelled_buf, "--%s",
-                 o->long_name);
+        snprintf(a->spelled_buf, sizeof a->spelled_buf, "--%s", o->long_name);
     else
         snprintf(a->spelled_buf, sizeof a->spelled_buf, "-%c", o->short_name);
     a->spelled = a->spelled_buf;

@@ -9,30 +9,30 @@
 
 /* Exit codes of the tool. */
 enum {
-    CLI_OK = 0,        /* success */
-    CLI_FAIL = 1,      /* the computation failed */
-    CLI_USAGE = 2      /* bad command line */
+    CLI_OK = 0,   /* success */
+    CLI_FAIL = 1, /* the computation failed */
+    CLI_USAGE = 2 /* bad command line */
 };
 
 /* One-line caution printed with every estimate (tables: short; JSON: long). */
-#define CLI_CAUTION_SHORT \
-    "Note: estimates carry typical errors; not a substitute for validated " \
+#define CLI_CAUTION_SHORT                                                      \
+    "Note: estimates carry typical errors; not a substitute for validated "    \
     "data, local codes or licensed engineering review."
-#define CLI_CAUTION_LONG \
-    "Diffusivities here are estimates with the typical errors listed; they " \
-    "do not replace validated data, local codes and licensed engineering " \
+#define CLI_CAUTION_LONG                                                       \
+    "Diffusivities here are estimates with the typical errors listed; they "   \
+    "do not replace validated data, local codes and licensed engineering "     \
     "review."
 /* The transfer commands (film, bulbs) add the hazard of sizing equipment. */
-#define CLI_CAUTION_TRANSFER_SHORT \
-    "Note: estimated diffusivities and idealised film/bulb models; do not " \
-    "size absorbers, condensers or other equipment handling hazardous " \
-    "gases on them without validated data, local codes and licensed " \
+#define CLI_CAUTION_TRANSFER_SHORT                                             \
+    "Note: estimated diffusivities and idealised film/bulb models; do not "    \
+    "size absorbers, condensers or other equipment handling hazardous "        \
+    "gases on them without validated data, local codes and licensed "          \
     "engineering review."
-#define CLI_CAUTION_TRANSFER_LONG \
-    "Fluxes and compositions here rest on estimated diffusivities with the " \
-    "typical errors listed and on idealised film and two-bulb models; they " \
-    "do not replace validated data, local codes and licensed engineering " \
-    "review, least of all in the design of absorbers, condensers or other " \
+#define CLI_CAUTION_TRANSFER_LONG                                              \
+    "Fluxes and compositions here rest on estimated diffusivities with the "   \
+    "typical errors listed and on idealised film and two-bulb models; they "   \
+    "do not replace validated data, local codes and licensed engineering "     \
+    "review, least of all in the design of absorbers, condensers or other "    \
     "equipment handling hazardous gases."
 
 /* ---- messages (main.c) ---- */
@@ -59,12 +59,12 @@ typedef struct cli_opt {
 typedef struct cli_args {
     int argc;
     char **argv;
-    int pos;              /* next index in argv */
-    int only_positional;  /* after "--" */
+    int pos;             /* next index in argv */
+    int only_positional; /* after "--" */
     const cli_opt *opts;
-    const char *cmd;      /* command name for messages */
-    const char *value;    /* value of the last option (or positional text) */
-    const char *spelled;  /* the option for messages, e.g. "-T/--temperature" */
+    const char *cmd;     /* command name for messages */
+    const char *value;   /* value of the last option (or positional text) */
+    const char *spelled; /* the option for messages, e.g. "-T/--temperature" */
     char spelled_buf[80];
 } cli_args;
 
@@ -91,20 +91,18 @@ int cli_parse_diffusivity(const char *text, double *out, char *why,
 int cli_parse_viscosity(const char *text, double *out, char *why,
                         size_t whylen);
 /* Length: bare = m; suffixes "m", "cm", "mm". Must be > 0. */
-int cli_parse_length(const char *text, double *out, char *why,
-                     size_t whylen);
+int cli_parse_length(const char *text, double *out, char *why, size_t whylen);
 /* Area: bare = m^2; suffixes "m2", "cm2", "mm2". Must be > 0. */
 int cli_parse_area(const char *text, double *out, char *why, size_t whylen);
 /* Volume: bare = m^3; suffixes "m3", "L", "mL", "cm3". Must be > 0. */
-int cli_parse_volume(const char *text, double *out, char *why,
-                     size_t whylen);
+int cli_parse_volume(const char *text, double *out, char *why, size_t whylen);
 /* Time: bare = s; suffixes "s", "min", "h". Must be >= 0. */
 int cli_parse_time(const char *text, double *out, char *why, size_t whylen);
 /* Times: a comma-separated list of times, non-decreasing, or
  * START:STOP:COUNT (COUNT >= 2 equally spaced times, START <= STOP).
  * *out is malloc'ed (caller frees); *out_n receives the count. */
-int cli_parse_times(const char *text, double **out, size_t *out_n,
-                    char *why, size_t whylen);
+int cli_parse_times(const char *text, double **out, size_t *out_n, char *why,
+                    size_t whylen);
 /* Comma-separated plain numbers; *out_n receives the count (<= cap). */
 int cli_parse_list(const char *text, double *out, size_t cap, size_t *out_n,
                    char *why, size_t whylen);
@@ -133,8 +131,7 @@ void cli_json_integer(cli_json *j, const char *key, long long v);
 void cli_json_bool(cli_json *j, const char *key, int v);
 void cli_json_null(cli_json *j, const char *key);
 /* Array of n numbers on one line. */
-void cli_json_numbers(cli_json *j, const char *key, const double *v,
-                      size_t n);
+void cli_json_numbers(cli_json *j, const char *key, const double *v, size_t n);
 /* Finish the document with a newline. */
 void cli_json_finish(cli_json *j);
 
@@ -148,7 +145,7 @@ typedef struct cli_csv {
 } cli_csv;
 
 void cli_csv_init(cli_csv *c, FILE *f);
-void cli_csv_text(cli_csv *c, const char *s);   /* NULL = empty field */
+void cli_csv_text(cli_csv *c, const char *s); /* NULL = empty field */
 void cli_csv_number(cli_csv *c, double v);
 void cli_csv_integer(cli_csv *c, long long v);
 /* A header name made of prefix, name and an SI unit: "x1_" + "air" + ""
@@ -162,8 +159,8 @@ void cli_csv_end_row(cli_csv *c);
 typedef struct cli_table {
     size_t ncols;
     size_t nrows, cap;
-    char **cells;                    /* nrows x ncols strings (heap) */
-    int right[CLI_TABLE_MAX_COLS];   /* 1: right-align the column */
+    char **cells;                  /* nrows x ncols strings (heap) */
+    int right[CLI_TABLE_MAX_COLS]; /* 1: right-align the column */
 } cli_table;
 
 /* ncols columns; the first two rows added are usually header and units. */
@@ -178,67 +175,75 @@ void cli_fmt_num(char *buf, size_t len, double v);
 
 /* ---- shared state options of fluxes and matrix (state.c) ---- */
 typedef struct cli_state {
-    size_t n;                       /* species */
-    size_t n_dim;                   /* 0 when no gradients were given */
-    char *names_buf;                /* owned copy of the species list */
-    char *names[MCD_MAX_SPECIES];   /* species as typed */
-    double T, P, c;                 /* K, Pa, mol/m^3 */
-    mcd_basis comp_basis;           /* -x (mole) or -w (mass) */
-    mcd_basis out_basis;            /* --basis */
-    mcd_model model;                /* --model */
-    mcd_method method;              /* --method */
-    double *comp;                   /* n */
-    double *grad;                   /* n x n_dim, in comp_basis */
+    size_t n;                     /* species */
+    size_t n_dim;                 /* 0 when no gradients were given */
+    char *names_buf;              /* owned copy of the species list */
+    char *names[MCD_MAX_SPECIES]; /* species as typed */
+    double T, P, c;               /* K, Pa, mol/m^3 */
+    mcd_basis comp_basis;         /* -x (mole) or -w (mass) */
+    mcd_basis out_basis;          /* --basis */
+    mcd_model model;              /* --model */
+    mcd_method method;            /* --method */
+    double *comp;                 /* n */
+    double *grad;                 /* n x n_dim, in comp_basis */
     double grad_lnP[MCD_MAX_DIM];
     int have_grad_lnP;
-    size_t dependent;               /* MCD_DEPENDENT_AUTO or index */
+    size_t dependent; /* MCD_DEPENDENT_AUTO or index */
     const char *dependent_name;
-    const char *file;               /* --species-file or NULL */
+    const char *file; /* --species-file or NULL */
     int json;
     int csv;
-    const char *comp_opt;           /* option named for a bad composition
+    const char *comp_opt; /* option named for a bad composition
                                        (NULL: -x/--mole-fractions or
                                        -w/--mass-fractions) */
     /* pairs given on the command line, resolved after the mixture exists */
     size_t n_pairs;
     struct cli_pair {
         const char *a, *b;
-        double D, T_ref, P_ref;     /* T_ref/P_ref NaN: use the state */
+        double D, T_ref, P_ref; /* T_ref/P_ref NaN: use the state */
         const char *text;
     } pairs[64];
-    char *pair_bufs[64];            /* owned parsed copies of the pairs */
-    size_t *dbidx;                  /* n: database index of each species */
+    char *pair_bufs[64]; /* owned parsed copies of the pairs */
+    size_t *dbidx;       /* n: database index of each species */
     /* results */
     mcd_db *db;
     mcd_mixture *mix;
     mcd_workspace *ws;
-    double *M;                      /* n */
-    double *x;                      /* n mole fractions */
-    double *w;                      /* n mass fractions */
-    double *Dij, *rel_err;          /* n x n */
-    unsigned *warn;                 /* n x n */
-    unsigned *user_pair;            /* n x n: 1 if given on the command line */
+    double *M;             /* n */
+    double *x;             /* n mole fractions */
+    double *w;             /* n mass fractions */
+    double *Dij, *rel_err; /* n x n */
+    unsigned *warn;        /* n x n */
+    unsigned *user_pair;   /* n x n: 1 if given on the command line */
 } cli_state;
 
 /* Option ids shared by every command that builds a mixture (fluxes,
  * matrix, film, bulbs); a command's own ids stay below 100. */
 enum {
-    CLI_O_SPECIES = 100, CLI_O_T, CLI_O_P, CLI_O_METHOD, CLI_O_PAIR,
-    CLI_O_FILE, CLI_O_JSON, CLI_O_CSV, CLI_O_HELP
+    CLI_O_SPECIES = 100,
+    CLI_O_T,
+    CLI_O_P,
+    CLI_O_METHOD,
+    CLI_O_PAIR,
+    CLI_O_FILE,
+    CLI_O_JSON,
+    CLI_O_CSV,
+    CLI_O_HELP
 };
 /* Entries for these options in a cli_opt table. */
-#define CLI_MIXTURE_OPTIONS                                                \
-    {"species", 's', 1, CLI_O_SPECIES}, {"temperature", 'T', 1, CLI_O_T},  \
-    {"pressure", 'P', 1, CLI_O_P}, {"method", 'm', 1, CLI_O_METHOD},       \
-    {"pair", 0, 1, CLI_O_PAIR}, {"species-file", 0, 1, CLI_O_FILE},        \
-    {"json", 0, 0, CLI_O_JSON}, {"csv", 0, 0, CLI_O_CSV},                  \
-    {"help", 'h', 0, CLI_O_HELP}
+#define CLI_MIXTURE_OPTIONS                                                    \
+    {"species", 's', 1, CLI_O_SPECIES}, {"temperature", 'T', 1, CLI_O_T},      \
+        {"pressure", 'P', 1, CLI_O_P}, {"method", 'm', 1, CLI_O_METHOD},       \
+        {"pair", 0, 1, CLI_O_PAIR}, {"species-file", 0, 1, CLI_O_FILE},        \
+        {"json", 0, 0, CLI_O_JSON}, {"csv", 0, 0, CLI_O_CSV},                  \
+    {                                                                          \
+        "help", 'h', 0, CLI_O_HELP                                             \
+    }
 /* Reset s to its defaults (no species, T and P not given, fsg). */
 void cli_state_defaults(cli_state *s);
 /* Handle one shared option (id >= CLI_O_SPECIES, not CLI_O_HELP).
  * Returns CLI_OK, CLI_USAGE or CLI_FAIL (message printed). */
-int cli_state_option(cli_state *s, const char *cmd, const cli_args *a,
-                     int id);
+int cli_state_option(cli_state *s, const char *cmd, const cli_args *a, int id);
 /* After the scan: species, T and P given, not both --json and --csv.
  * CLI_OK or CLI_USAGE. */
 int cli_state_require(const cli_state *s, const char *cmd);
@@ -264,10 +269,8 @@ int cli_state_grad_in(const cli_state *s, const char *cmd, mcd_basis basis,
                       double *out);
 /* Exact generalized Fick matrix in the output basis; *out_dep receives the
  * dependent species. D has room for (n-1)^2. CLI_OK or CLI_FAIL. */
-int cli_state_fick(cli_state *s, const char *cmd, double *D,
-                   size_t *out_dep);
-void cli_print_fick(const cli_state *s, const double *D, size_t dep,
-                    FILE *f);
+int cli_state_fick(cli_state *s, const char *cmd, double *D, size_t *out_dep);
+void cli_print_fick(const cli_state *s, const double *D, size_t dep, FILE *f);
 void cli_json_fick(const cli_state *s, const double *D, size_t dep,
                    cli_json *j);
 /* Flux table with gradients, zero-sum row and flags (flags may be NULL). */

@@ -7,7 +7,8 @@
 static void help(FILE *f)
 {
     fputs(
-        "usage: mcdiff binary A B -T TEMP -P PRES [--method NAME] [--json|--csv]\n"
+        "usage: mcdiff binary A B -T TEMP -P PRES [--method NAME] "
+        "[--json|--csv]\n"
         "\n"
         "Binary diffusivity of species A and B (names or formulas from\n"
         "'mcdiff species') estimated by every method that applies, or by the\n"
@@ -22,15 +23,19 @@ static void help(FILE *f)
         "                          bare = Pa (101325, 1atm, 1.01325bar);\n"
         "                          not used for liquids\n"
         "  -m, --method NAME       fsg, chapman-enskog, wilke-lee or\n"
-        "                          wilke-chang (liquid: A dilute in solvent B,\n"
+        "                          wilke-chang (liquid: A dilute in solvent "
+        "B,\n"
         "                          needs --viscosity)\n"
-        "  --viscosity MU          liquid solvent B's viscosity at TEMP; selects\n"
+        "  --viscosity MU          liquid solvent B's viscosity at TEMP; "
+        "selects\n"
         "                          wilke-chang; Pa.s, mPa.s or cP suffix,\n"
         "                          bare = Pa.s\n"
         "  --json                  one JSON object; D in m^2/s under \"D\"\n"
         "  --csv                   one row per method, SI: header\n"
-        "                          species_a,species_b,T_K,P_Pa,method,status,\n"
-        "                          D_m2_per_s,typical_error,recommended,warnings\n"
+        "                          "
+        "species_a,species_b,T_K,P_Pa,method,status,\n"
+        "                          "
+        "D_m2_per_s,typical_error,recommended,warnings\n"
         "  --species-file FILE     also load species from FILE\n"
         "  -h, --help              this text\n"
         "\n"
@@ -86,20 +91,11 @@ int cli_cmd_binary(int argc, char **argv)
     cli_args_init(&a, cmd, argc, argv, opts);
     while ((id = cli_args_next(&a)) != CLI_ARG_END) {
         switch (id) {
-        case CLI_ARG_ERROR:
-            return CLI_USAGE;
-        case O_HELP:
-            help(stdout);
-            return CLI_OK;
-        case O_JSON:
-            json = 1;
-            break;
-        case O_CSV:
-            csv = 1;
-            break;
-        case O_FILE:
-            file = a.value;
-            break;
+        case CLI_ARG_ERROR: return CLI_USAGE;
+        case O_HELP: help(stdout); return CLI_OK;
+        case O_JSON: json = 1; break;
+        case O_CSV: csv = 1; break;
+        case O_FILE: file = a.value; break;
         case O_T:
             if (cli_parse_temperature(a.value, &T, why, sizeof why) != 0)
                 return cli_usage_error(cmd, a.spelled, "%s", why);
@@ -132,8 +128,7 @@ int cli_cmd_binary(int argc, char **argv)
                                        "only two species may be given");
             names[npos++] = a.value;
             break;
-        default:
-            return CLI_USAGE;
+        default: return CLI_USAGE;
         }
     }
     if (npos < 2)
@@ -185,16 +180,15 @@ int cli_cmd_binary(int argc, char **argv)
         r->warn = 0;
         if (r->m == MCD_METHOD_WILKE_CHANG)
             r->st = mcd_db_binary_liquid(db, idx[0], idx[1], T, mu, &r->D,
-                                      &r->rel_err, &r->warn);
+                                         &r->rel_err, &r->warn);
         else
-            r->st = mcd_db_binary_gas(db, idx[0], idx[1], (mcd_gas_method)r->m, T, P, &r->D,
-                                   &r->rel_err, &r->warn);
+            r->st = mcd_db_binary_gas(db, idx[0], idx[1], (mcd_gas_method)r->m,
+                                      T, P, &r->D, &r->rel_err, &r->warn);
         if (r->st == MCD_OK && best < 0)
             best = (int)k;
     }
     if (best < 0) {
-        rc = cli_fail(cmd,
-                      nres == 1 ? "the estimate" : "every estimate",
+        rc = cli_fail(cmd, nres == 1 ? "the estimate" : "every estimate",
                       res[0].st, mcd_method_name(res[0].m));
         mcd_db_free(db);
         return rc;
@@ -275,13 +269,11 @@ int cli_cmd_binary(int argc, char **argv)
             printf("%s (%s) dilute in liquid %s (%s) at T = %.6g K, solvent "
                    "viscosity %.6g Pa s\n",
                    mcd_db_name(db, idx[0]), mcd_db_formula(db, idx[0]),
-                   mcd_db_name(db, idx[1]), mcd_db_formula(db, idx[1]), T,
-                   mu);
+                   mcd_db_name(db, idx[1]), mcd_db_formula(db, idx[1]), T, mu);
         else
             printf("%s (%s) + %s (%s) at T = %.6g K, P = %.6g Pa\n",
                    mcd_db_name(db, idx[0]), mcd_db_formula(db, idx[0]),
-                   mcd_db_name(db, idx[1]), mcd_db_formula(db, idx[1]), T,
-                   P);
+                   mcd_db_name(db, idx[1]), mcd_db_formula(db, idx[1]), T, P);
         cli_table_init(&t, 5);
         t.right[1] = t.right[2] = t.right[3] = 1;
         cells[0] = "method";

@@ -67,38 +67,39 @@ static void help(FILE *f)
 }
 
 enum {
-    O_X1 = 1, O_X2, O_V1, O_V2, O_LEN, O_AREA, O_DIAM, O_TIMES, O_MODEL,
+    O_X1 = 1,
+    O_X2,
+    O_V1,
+    O_V2,
+    O_LEN,
+    O_AREA,
+    O_DIAM,
+    O_TIMES,
+    O_MODEL,
     O_TOL
 };
 
 static const cli_opt bulbs_opts[] = {
-    CLI_MIXTURE_OPTIONS,
-    {"x1", 0, 1, O_X1},
-    {"x2", 0, 1, O_X2},
-    {"v1", 0, 1, O_V1},
-    {"v2", 0, 1, O_V2},
-    {"V1", 0, 1, O_V1},
-    {"V2", 0, 1, O_V2},
-    {"length", 'L', 1, O_LEN},
-    {"area", 0, 1, O_AREA},
-    {"diameter", 0, 1, O_DIAM},
-    {"times", 't', 1, O_TIMES},
-    {"model", 0, 1, O_MODEL},
-    {"tolerance", 0, 1, O_TOL},
-    {NULL, 0, 0, 0}};
+    CLI_MIXTURE_OPTIONS,        {"x1", 0, 1, O_X1},
+    {"x2", 0, 1, O_X2},         {"v1", 0, 1, O_V1},
+    {"v2", 0, 1, O_V2},         {"V1", 0, 1, O_V1},
+    {"V2", 0, 1, O_V2},         {"length", 'L', 1, O_LEN},
+    {"area", 0, 1, O_AREA},     {"diameter", 0, 1, O_DIAM},
+    {"times", 't', 1, O_TIMES}, {"model", 0, 1, O_MODEL},
+    {"tolerance", 0, 1, O_TOL}, {NULL, 0, 0, 0}};
 
 typedef struct bulbs_job {
     cli_state s;
     double x1in[MCD_MAX_SPECIES], x2in[MCD_MAX_SPECIES];
     size_t nx1, nx2;
-    double x2[MCD_MAX_SPECIES];    /* validated x2 */
+    double x2[MCD_MAX_SPECIES]; /* validated x2 */
     double V1, V2, L, A;
     int integrated;
     double tol;
     int have_tol;
     double *t;
     size_t nt;
-    double *x1t, *x2t;             /* nt x n each */
+    double *x1t, *x2t; /* nt x n each */
 } bulbs_job;
 
 static int parse(bulbs_job *bj, const char *cmd, int argc, char **argv)
@@ -122,25 +123,21 @@ static int parse(bulbs_job *bj, const char *cmd, int argc, char **argv)
             continue;
         }
         switch (id) {
-        case CLI_ARG_ERROR:
-            return CLI_USAGE;
-        case CLI_O_HELP:
-            help(stdout);
-            return -1;
+        case CLI_ARG_ERROR: return CLI_USAGE;
+        case CLI_O_HELP: help(stdout); return -1;
         case O_X1:
         case O_X2:
             if ((id == O_X1 && bj->nx1) || (id == O_X2 && bj->nx2))
                 return cli_usage_error(cmd, a.spelled, "given twice");
-            if (cli_parse_list(a.value, id == O_X1 ? bj->x1in : bj->x2in,
-                               MCD_MAX_SPECIES,
-                               id == O_X1 ? &bj->nx1 : &bj->nx2, why,
-                               sizeof why) != 0)
+            if (cli_parse_list(
+                    a.value, id == O_X1 ? bj->x1in : bj->x2in, MCD_MAX_SPECIES,
+                    id == O_X1 ? &bj->nx1 : &bj->nx2, why, sizeof why) != 0)
                 return cli_usage_error(cmd, a.spelled, "%s", why);
             break;
         case O_V1:
         case O_V2:
-            if (cli_parse_volume(a.value, id == O_V1 ? &bj->V1 : &bj->V2,
-                                 why, sizeof why) != 0)
+            if (cli_parse_volume(a.value, id == O_V1 ? &bj->V1 : &bj->V2, why,
+                                 sizeof why) != 0)
                 return cli_usage_error(cmd, a.spelled, "%s", why);
             break;
         case O_LEN:
@@ -172,8 +169,7 @@ static int parse(bulbs_job *bj, const char *cmd, int argc, char **argv)
         case O_TIMES:
             if (bj->t)
                 return cli_usage_error(cmd, a.spelled, "given twice");
-            if (cli_parse_times(a.value, &bj->t, &bj->nt, why, sizeof why) !=
-                0)
+            if (cli_parse_times(a.value, &bj->t, &bj->nt, why, sizeof why) != 0)
                 return cli_usage_error(cmd, a.spelled, "%s", why);
             break;
         case O_MODEL:
@@ -192,16 +188,14 @@ static int parse(bulbs_job *bj, const char *cmd, int argc, char **argv)
                 return cli_usage_error(cmd, a.spelled, "%s", why);
             if (!(bj->tol >= 1e-12 && bj->tol <= 1e-2))
                 return cli_usage_error(cmd, a.spelled,
-                                       "'%s' is not in 1e-12..1e-2",
-                                       a.value);
+                                       "'%s' is not in 1e-12..1e-2", a.value);
             bj->have_tol = 1;
             break;
         case CLI_ARG_POSITIONAL:
             return cli_usage_error(cmd, a.value,
                                    "unexpected argument (options only; see "
                                    "--help)");
-        default:
-            return CLI_USAGE;
+        default: return CLI_USAGE;
         }
     }
     if ((rc = cli_state_require(s, cmd)) != CLI_OK)
@@ -344,9 +338,29 @@ int cli_cmd_bulbs(int argc, char **argv)
         goto done;
     }
     if (bj->integrated)
-        st = mcd_bulbs_integrate(s->ws, &(mcd_bulbs){.n_species = n, .c = s->c, .V1 = bj->V1, .V2 = bj->V2, .A = bj->A, .L = bj->L, .Dij = s->Dij, .x1_0 = s->x, .x2_0 = bj->x2}, bj->nt, bj->t, bj->tol, bj->x1t, bj->x2t);
+        st = mcd_bulbs_integrate(s->ws,
+                                 &(mcd_bulbs){.n_species = n,
+                                              .c = s->c,
+                                              .V1 = bj->V1,
+                                              .V2 = bj->V2,
+                                              .A = bj->A,
+                                              .L = bj->L,
+                                              .Dij = s->Dij,
+                                              .x1_0 = s->x,
+                                              .x2_0 = bj->x2},
+                                 bj->nt, bj->t, bj->tol, bj->x1t, bj->x2t);
     else
-        st = mcd_bulbs_linearized(s->ws, &(mcd_bulbs){.n_species = n, .c = s->c, .V1 = bj->V1, .V2 = bj->V2, .A = bj->A, .L = bj->L, .Dij = s->Dij, .x1_0 = s->x, .x2_0 = bj->x2}, bj->nt, bj->t, bj->x1t, bj->x2t);
+        st = mcd_bulbs_linearized(s->ws,
+                                  &(mcd_bulbs){.n_species = n,
+                                               .c = s->c,
+                                               .V1 = bj->V1,
+                                               .V2 = bj->V2,
+                                               .A = bj->A,
+                                               .L = bj->L,
+                                               .Dij = s->Dij,
+                                               .x1_0 = s->x,
+                                               .x2_0 = bj->x2},
+                                  bj->nt, bj->t, bj->x1t, bj->x2t);
     if (st != MCD_OK) {
         rc = cli_fail(cmd,
                       bj->integrated ? "the two-bulb integration"

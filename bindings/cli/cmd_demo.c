@@ -26,8 +26,7 @@ static void help(FILE *f)
 int cli_cmd_demo(int argc, char **argv)
 {
     enum { O_HELP = 1 };
-    static const cli_opt opts[] = {{"help", 'h', 0, O_HELP},
-                                   {NULL, 0, 0, 0}};
+    static const cli_opt opts[] = {{"help", 'h', 0, O_HELP}, {NULL, 0, 0, 0}};
     cli_args a;
     int id;
     cli_args_init(&a, "demo", argc, argv, opts);

@@ -53,7 +53,8 @@ static void help(FILE *f)
         "  --points N                points of the profile, 2 to 100000\n"
         "                            (default 11, equally spaced)\n"
         "  --json                    one JSON object (SI): fluxes under\n"
-        "                            \"fluxes\" [mol/(m^2 s)], \"iterations\",\n"
+        "                            \"fluxes\" [mol/(m^2 s)], "
+        "\"iterations\",\n"
         "                            \"residual\"; with --profile also\n"
         "                            \"profile\"\n"
         "  --csv                     the flux table as CSV: header row\n"
@@ -70,26 +71,35 @@ static void help(FILE *f)
 }
 
 enum {
-    O_X0 = 1, O_XL, O_LEN, O_STAG, O_EQUI, O_WEIGHTS, O_RATIOS, O_MATCH,
-    O_TOTAL, O_MODEL, O_PROFILE, O_POINTS
+    O_X0 = 1,
+    O_XL,
+    O_LEN,
+    O_STAG,
+    O_EQUI,
+    O_WEIGHTS,
+    O_RATIOS,
+    O_MATCH,
+    O_TOTAL,
+    O_MODEL,
+    O_PROFILE,
+    O_POINTS
 };
 
-static const cli_opt film_opts[] = {
-    CLI_MIXTURE_OPTIONS,
-    {"x0", 0, 1, O_X0},
-    {"xL", 0, 1, O_XL},
-    {"xl", 0, 1, O_XL},
-    {"length", 'L', 1, O_LEN},
-    {"stagnant", 0, 1, O_STAG},
-    {"equimolar", 0, 0, O_EQUI},
-    {"weights", 0, 1, O_WEIGHTS},
-    {"ratios", 0, 1, O_RATIOS},
-    {"match", 0, 1, O_MATCH},
-    {"total-flux", 0, 1, O_TOTAL},
-    {"model", 0, 1, O_MODEL},
-    {"profile", 0, 0, O_PROFILE},
-    {"points", 0, 1, O_POINTS},
-    {NULL, 0, 0, 0}};
+static const cli_opt film_opts[] = {CLI_MIXTURE_OPTIONS,
+                                    {"x0", 0, 1, O_X0},
+                                    {"xL", 0, 1, O_XL},
+                                    {"xl", 0, 1, O_XL},
+                                    {"length", 'L', 1, O_LEN},
+                                    {"stagnant", 0, 1, O_STAG},
+                                    {"equimolar", 0, 0, O_EQUI},
+                                    {"weights", 0, 1, O_WEIGHTS},
+                                    {"ratios", 0, 1, O_RATIOS},
+                                    {"match", 0, 1, O_MATCH},
+                                    {"total-flux", 0, 1, O_TOTAL},
+                                    {"model", 0, 1, O_MODEL},
+                                    {"profile", 0, 0, O_PROFILE},
+                                    {"points", 0, 1, O_POINTS},
+                                    {NULL, 0, 0, 0}};
 
 /* Which film theories to run. */
 enum { RUN_EXACT = 1, RUN_LINEARIZED = 2, RUN_BOTH = 3 };
@@ -99,21 +109,21 @@ typedef struct film_job {
     double L;
     double x0in[MCD_MAX_SPECIES], xLin[MCD_MAX_SPECIES];
     size_t nx0, nxL;
-    double xL[MCD_MAX_SPECIES];            /* validated xL */
+    double xL[MCD_MAX_SPECIES]; /* validated xL */
     mcd_film_bootstrap kind;
-    const char *boot_opt;                  /* e.g. "--stagnant" */
-    const char *species_name;              /* --stagnant / --match */
-    size_t species;                        /* its index */
-    double values[MCD_MAX_SPECIES];        /* weights, ratios or N_t */
+    const char *boot_opt;           /* e.g. "--stagnant" */
+    const char *species_name;       /* --stagnant / --match */
+    size_t species;                 /* its index */
+    double values[MCD_MAX_SPECIES]; /* weights, ratios or N_t */
     size_t nvalues;
-    int run;                               /* RUN_* */
+    int run; /* RUN_* */
     int profile;
     size_t points;
     /* results */
     double Ne[MCD_MAX_SPECIES], Nl[MCD_MAX_SPECIES];
     size_t it_e, it_l;
     double res_e, res_l;
-    double *z, *xz;                        /* profile */
+    double *z, *xz; /* profile */
 } film_job;
 
 static const char *boot_name(mcd_film_bootstrap k)
@@ -149,19 +159,15 @@ static int parse(film_job *fj, const char *cmd, int argc, char **argv)
             continue;
         }
         switch (id) {
-        case CLI_ARG_ERROR:
-            return CLI_USAGE;
-        case CLI_O_HELP:
-            help(stdout);
-            return -1;
+        case CLI_ARG_ERROR: return CLI_USAGE;
+        case CLI_O_HELP: help(stdout); return -1;
         case O_X0:
         case O_XL:
             if ((id == O_X0 && fj->nx0) || (id == O_XL && fj->nxL))
                 return cli_usage_error(cmd, a.spelled, "given twice");
-            if (cli_parse_list(a.value, id == O_X0 ? fj->x0in : fj->xLin,
-                               MCD_MAX_SPECIES,
-                               id == O_X0 ? &fj->nx0 : &fj->nxL, why,
-                               sizeof why) != 0)
+            if (cli_parse_list(
+                    a.value, id == O_X0 ? fj->x0in : fj->xLin, MCD_MAX_SPECIES,
+                    id == O_X0 ? &fj->nx0 : &fj->nxL, why, sizeof why) != 0)
                 return cli_usage_error(cmd, a.spelled, "%s", why);
             break;
         case O_LEN:
@@ -205,9 +211,7 @@ static int parse(film_job *fj, const char *cmd, int argc, char **argv)
                     return cli_usage_error(cmd, a.spelled, "%s", why);
             }
             break;
-        case O_MATCH:
-            match = a.value;
-            break;
+        case O_MATCH: match = a.value; break;
         case O_MODEL:
             if (strcmp(a.value, "exact") == 0)
                 fj->run = RUN_EXACT;
@@ -221,9 +225,7 @@ static int parse(film_job *fj, const char *cmd, int argc, char **argv)
                                        "linearized or both)",
                                        a.value);
             break;
-        case O_PROFILE:
-            fj->profile = 1;
-            break;
+        case O_PROFILE: fj->profile = 1; break;
         case O_POINTS: {
             double v;
             if (cli_parse_number(a.value, &v, why, sizeof why) != 0 ||
@@ -240,18 +242,19 @@ static int parse(film_job *fj, const char *cmd, int argc, char **argv)
             return cli_usage_error(cmd, a.value,
                                    "unexpected argument (options only; see "
                                    "--help)");
-        default:
-            return CLI_USAGE;
+        default: return CLI_USAGE;
         }
     }
     if ((rc = cli_state_require(s, cmd)) != CLI_OK)
         return rc;
     if (fj->nx0 == 0)
-        return cli_usage_error(cmd, "--x0", "is required (mole fractions "
-                                            "at z = 0)");
+        return cli_usage_error(cmd, "--x0",
+                               "is required (mole fractions "
+                               "at z = 0)");
     if (fj->nxL == 0)
-        return cli_usage_error(cmd, "--xL", "is required (mole fractions "
-                                            "at z = L)");
+        return cli_usage_error(cmd, "--xL",
+                               "is required (mole fractions "
+                               "at z = L)");
     if (fj->nx0 != s->n)
         return cli_usage_error(cmd, "--x0", "has %zu values for %zu species",
                                fj->nx0, s->n);
@@ -265,7 +268,8 @@ static int parse(film_job *fj, const char *cmd, int argc, char **argv)
                                "a bootstrap is required: one of "
                                "--stagnant NAME, --equimolar, --weights, "
                                "--ratios with --match, --total-flux");
-    if ((fj->kind == MCD_FILM_BOOT_WEIGHTS || fj->kind == MCD_FILM_BOOT_RATIOS) &&
+    if ((fj->kind == MCD_FILM_BOOT_WEIGHTS ||
+         fj->kind == MCD_FILM_BOOT_RATIOS) &&
         fj->nvalues != s->n)
         return cli_usage_error(cmd, fj->boot_opt,
                                "has %zu values for %zu species", fj->nvalues,
@@ -279,8 +283,7 @@ static int parse(film_job *fj, const char *cmd, int argc, char **argv)
     if (fj->kind == MCD_FILM_BOOT_RATIOS)
         fj->species_name = match;
     if (have_points && !fj->profile)
-        return cli_usage_error(cmd, "--points",
-                               "is only used with --profile");
+        return cli_usage_error(cmd, "--points", "is only used with --profile");
     return CLI_OK;
 }
 
@@ -345,25 +348,33 @@ static int film_failed(film_job *fj, const char *cmd, mcd_status st)
                          fj->values[0]);
             }
             break;
-        case MCD_FILM_BOOT_EQUIMOLAR:
-            break;
+        case MCD_FILM_BOOT_EQUIMOLAR: break;
         }
     }
     if (arg)
         return cli_usage_error(cmd, arg, "%s: %s%s%s%s", reason,
-                               mcd_status_string((int)st),
-                               *detail ? " (" : "", detail,
-                               *detail ? ")" : "");
+                               mcd_status_string((int)st), *detail ? " (" : "",
+                               detail, *detail ? ")" : "");
     return cli_fail(cmd, "the film solution", st, detail);
 }
 
-static int solve(film_job *fj, const char *cmd, mcd_film_method m,
-                 double *N, size_t *it, double *res)
+static int solve(film_job *fj, const char *cmd, mcd_film_method m, double *N,
+                 size_t *it, double *res)
 {
     cli_state *s = &fj->s;
-    mcd_status st = mcd_film_solve(s->ws, &(mcd_film){.n_species = s->n, .c = s->c, .L = fj->L, .Dij = s->Dij, .x0 = s->x, .xL = fj->xL}, fj->kind, fj->species, (fj->kind == MCD_FILM_BOOT_EQUIMOLAR || fj->kind == MCD_FILM_BOOT_STAGNANT)
-            ? NULL
-            : fj->values, m, N, it, res);
+    mcd_status st = mcd_film_solve(s->ws,
+                                   &(mcd_film){.n_species = s->n,
+                                               .c = s->c,
+                                               .L = fj->L,
+                                               .Dij = s->Dij,
+                                               .x0 = s->x,
+                                               .xL = fj->xL},
+                                   fj->kind, fj->species,
+                                   (fj->kind == MCD_FILM_BOOT_EQUIMOLAR ||
+                                    fj->kind == MCD_FILM_BOOT_STAGNANT)
+                                       ? NULL
+                                       : fj->values,
+                                   m, N, it, res);
     if (st != MCD_OK)
         return film_failed(fj, cmd, st);
     return CLI_OK;
@@ -462,16 +473,17 @@ static void print_json(const film_job *fj)
     if (fj->kind == MCD_FILM_BOOT_TOTAL)
         cli_json_number(&j, "total_flux", fj->values[0]);
     cli_json_object_end(&j);
-    cli_json_string(&j, "model", fj->run == RUN_EXACT        ? "exact"
-                                 : fj->run == RUN_LINEARIZED ? "linearized"
-                                                             : "both");
+    cli_json_string(&j, "model",
+                    fj->run == RUN_EXACT        ? "exact"
+                    : fj->run == RUN_LINEARIZED ? "linearized"
+                                                : "both");
     cli_state_json_binaries(s, &j);
     cli_json_string(&j, "flux_unit", "mol/(m^2 s)");
     cli_json_numbers(&j, "fluxes", N, n);
     cli_json_number(&j, "total_flux", sum_of(n, N));
-    cli_json_integer(&j, "iterations",
-                     (long long)(fj->run == RUN_LINEARIZED ? fj->it_l
-                                                           : fj->it_e));
+    cli_json_integer(
+        &j, "iterations",
+        (long long)(fj->run == RUN_LINEARIZED ? fj->it_l : fj->it_e));
     cli_json_number(&j, "residual",
                     fj->run == RUN_LINEARIZED ? fj->res_l : fj->res_e);
     if (fj->run == RUN_BOTH) {
@@ -516,9 +528,7 @@ static void print_table(const film_job *fj)
     case MCD_FILM_BOOT_STAGNANT:
         printf("%s stagnant (N = 0)\n", mcd_mixture_name(s->mix, fj->species));
         break;
-    case MCD_FILM_BOOT_EQUIMOLAR:
-        printf("equimolar (sum N_i = 0)\n");
-        break;
+    case MCD_FILM_BOOT_EQUIMOLAR: printf("equimolar (sum N_i = 0)\n"); break;
     case MCD_FILM_BOOT_WEIGHTS:
         printf("sum nu_i N_i = 0, nu =");
         for (i = 0; i < n; i++)
@@ -529,8 +539,7 @@ static void print_table(const film_job *fj)
         printf("N_i = z_i N_t, z =");
         for (i = 0; i < n; i++)
             printf("%s%.6g", i ? ", " : " ", fj->values[i]);
-        printf("; x(L) of %s matched\n",
-               mcd_mixture_name(s->mix, fj->species));
+        printf("; x(L) of %s matched\n", mcd_mixture_name(s->mix, fj->species));
         break;
     case MCD_FILM_BOOT_TOTAL:
         printf("sum N_i = %.6g mol/(m^2 s)\n", fj->values[0]);
@@ -584,8 +593,7 @@ static void print_table(const film_job *fj)
     cli_table_print(&t, stdout, "  ");
     cli_table_free(&t);
     if (fj->run & RUN_EXACT)
-        printf("  exact: %zu iterations, residual %.1e\n", fj->it_e,
-               fj->res_e);
+        printf("  exact: %zu iterations, residual %.1e\n", fj->it_e, fj->res_e);
     if (fj->run & RUN_LINEARIZED)
         printf("  linearized: %zu iterations, residual %.1e\n", fj->it_l,
                fj->res_l);
@@ -635,11 +643,10 @@ int cli_cmd_film(int argc, char **argv)
     if (fj->species_name) {
         long k = cli_state_find(s, fj->species_name);
         if (k < 0) {
-            rc = cli_usage_error(cmd,
-                                 fj->kind == MCD_FILM_BOOT_STAGNANT ? "--stagnant"
-                                                               : "--match",
-                                 "'%s' is not in the species list",
-                                 fj->species_name);
+            rc = cli_usage_error(
+                cmd,
+                fj->kind == MCD_FILM_BOOT_STAGNANT ? "--stagnant" : "--match",
+                "'%s' is not in the species list", fj->species_name);
             goto done;
         }
         fj->species = (size_t)k;
@@ -651,16 +658,14 @@ int cli_cmd_film(int argc, char **argv)
             goto done;
     }
     if (fj->run & RUN_LINEARIZED) {
-        rc = solve(fj, cmd, MCD_FILM_LINEARIZED, fj->Nl, &fj->it_l,
-                   &fj->res_l);
+        rc = solve(fj, cmd, MCD_FILM_LINEARIZED, fj->Nl, &fj->it_l, &fj->res_l);
         if (rc != CLI_OK)
             goto done;
     }
     if (fj->profile) {
         /* The profile is the exact solution for the exact fluxes. */
         if (!(fj->run & RUN_EXACT)) {
-            rc = solve(fj, cmd, MCD_FILM_EXACT, fj->Ne, &fj->it_e,
-                       &fj->res_e);
+            rc = solve(fj, cmd, MCD_FILM_EXACT, fj->Ne, &fj->it_e, &fj->res_e);
             if (rc != CLI_OK)
                 goto done;
         }
@@ -673,10 +678,15 @@ int cli_cmd_film(int argc, char **argv)
         for (i = 0; i < fj->points; i++)
             fj->z[i] = fj->L * ((double)i / (double)(fj->points - 1));
         fj->z[fj->points - 1] = fj->L;
-        st = mcd_film_profile(s->ws, &(mcd_film){.n_species = n, .c = s->c, .L = fj->L, .Dij = s->Dij, .x0 = s->x}, fj->Ne, fj->points, fj->z, fj->xz);
+        st = mcd_film_profile(s->ws,
+                              &(mcd_film){.n_species = n,
+                                          .c = s->c,
+                                          .L = fj->L,
+                                          .Dij = s->Dij,
+                                          .x0 = s->x},
+                              fj->Ne, fj->points, fj->z, fj->xz);
         if (st != MCD_OK) {
-            rc = cli_fail(cmd, "the film profile", st,
-                          mcd_last_error());
+            rc = cli_fail(cmd, "the film profile", st, mcd_last_error());
             goto done;
         }
     }

@@ -20,7 +20,8 @@ static void help(FILE *f)
         "order of -s):\n"
         "  -s, --species LIST        species names or formulas (2 or more)\n"
         "  -x, --mole-fractions LIST mole fractions [-], sum 1\n"
-        "  -w, --mass-fractions LIST mass fractions [-], sum 1 (instead of -x;\n"
+        "  -w, --mass-fractions LIST mass fractions [-], sum 1 (instead of "
+        "-x;\n"
         "                            -g is then in mass fractions too)\n"
         "  -g, --gradient LIST       gradients of the fractions [1/m]; repeat\n"
         "                            once per direction (1 to 3)\n"
@@ -42,7 +43,8 @@ static void help(FILE *f)
         "  --dependent NAME          species left out of the Fick matrix\n"
         "                            (default: the most abundant)\n"
         "  --json                    one JSON object (SI): fluxes under\n"
-        "                            \"fluxes\", Fick matrix under \"fick_matrix\"\n"
+        "                            \"fluxes\", Fick matrix under "
+        "\"fick_matrix\"\n"
         "  --csv                     the flux table as CSV: header row\n"
         "                            species,x,dx_dz1_per_m,...,\n"
         "                            J_1_mol_per_m2_s,...,flags; one row per\n"
@@ -51,7 +53,8 @@ static void help(FILE *f)
         "  -h, --help                this text\n"
         "\n"
         "example:\n"
-        "  mcdiff fluxes -s H2,N2,CO2 -x 0.3,0.4,0.3 -g -20,0,20 -T 35C -P 1atm \\\n"
+        "  mcdiff fluxes -s H2,N2,CO2 -x 0.3,0.4,0.3 -g -20,0,20 -T 35C -P "
+        "1atm \\\n"
         "      --pair H2:N2=8.38e-5\n",
         f);
 }
@@ -83,10 +86,20 @@ int cli_cmd_fluxes(int argc, char **argv)
         rc = cli_fail(cmd, "setting up", MCD_ENOMEM, NULL);
         goto done;
     }
-    st = mcd_flux_compute(s.ws, s.model, &(mcd_state){.n_species = n, .n_dim = s.n_dim, .M = s.M, .Dij = s.Dij, .c = s.c, .comp_basis = s.comp_basis, .comp = s.comp, .grad = s.grad, .grad_lnP = s.have_grad_lnP ? s.grad_lnP : NULL}, s.out_basis, flux);
+    st = mcd_flux_compute(
+        s.ws, s.model,
+        &(mcd_state){.n_species = n,
+                     .n_dim = s.n_dim,
+                     .M = s.M,
+                     .Dij = s.Dij,
+                     .c = s.c,
+                     .comp_basis = s.comp_basis,
+                     .comp = s.comp,
+                     .grad = s.grad,
+                     .grad_lnP = s.have_grad_lnP ? s.grad_lnP : NULL},
+        s.out_basis, flux);
     if (st != MCD_OK) {
-        rc = cli_fail(cmd, "the flux computation", st,
-                      mcd_last_error());
+        rc = cli_fail(cmd, "the flux computation", st, mcd_last_error());
         goto done;
     }
     /* Flags compare each flux with the gradient in the same basis. */
@@ -111,9 +124,9 @@ int cli_cmd_fluxes(int argc, char **argv)
         cli_json_init(&j, stdout);
         cli_json_object_begin(&j, NULL);
         cli_state_json_header(&s, &j);
-        cli_json_string(&j, "model", s.model == MCD_MODEL_MAXWELL_STEFAN
-                                         ? "exact"
-                                         : "mixture-averaged");
+        cli_json_string(
+            &j, "model",
+            s.model == MCD_MODEL_MAXWELL_STEFAN ? "exact" : "mixture-averaged");
         cli_json_string(&j, "composition_basis",
                         s.comp_basis == MCD_BASIS_MOLE ? "mole" : "mass");
         cli_json_array_begin(&j, "gradients");

@@ -20,19 +20,24 @@ static void help(FILE *f)
         "order of -s):\n"
         "  -s, --species LIST        species names or formulas (2 or more)\n"
         "  -x, --mole-fractions LIST mole fractions [-], sum 1\n"
-        "  -w, --mass-fractions LIST mass fractions [-], sum 1 (instead of -x)\n"
+        "  -w, --mass-fractions LIST mass fractions [-], sum 1 (instead of "
+        "-x)\n"
         "  -T, --temperature TEMP    K or C suffix, bare = K\n"
         "  -P, --pressure PRES       Pa, kPa, MPa, bar or atm, bare = Pa\n"
         "  --basis NAME              mole (molar-average frame, default with\n"
         "                            -x) or mass (mass-average frame)\n"
-        "  --dependent NAME          species left out (default: most abundant)\n"
+        "  --dependent NAME          species left out (default: most "
+        "abundant)\n"
         "  -m, --method NAME         fsg (default), chapman-enskog, wilke-lee\n"
-        "  --pair A:B=D[@T,P]        given binary diffusivity [m^2/s, or cm2/s\n"
+        "  --pair A:B=D[@T,P]        given binary diffusivity [m^2/s, or "
+        "cm2/s\n"
         "                            suffix], as for 'mcdiff fluxes'\n"
-        "  -g, --gradient LIST       optional gradients of the fractions [1/m],\n"
+        "  -g, --gradient LIST       optional gradients of the fractions "
+        "[1/m],\n"
         "                            one -g per direction (1 to 3)\n"
         "  --json                    one JSON object (SI): \"fick_matrix\",\n"
-        "                            \"binary_D\", \"eigenvalues\", \"fluxes\"\n"
+        "                            \"binary_D\", \"eigenvalues\", "
+        "\"fluxes\"\n"
         "  --csv                     the matrices as CSV rows\n"
         "                            quantity,row,column,value_m2_per_s with\n"
         "                            quantity binary, fick or eigenvalue (not\n"
@@ -132,8 +137,7 @@ int cli_cmd_matrix(int argc, char **argv)
         goto done;
     st = mcd_fick_eigenvalues(s.ws, m, D, re, im);
     if (st != MCD_OK) {
-        rc = cli_fail(cmd, "the eigenvalues", st,
-                      mcd_last_error());
+        rc = cli_fail(cmd, "the eigenvalues", st, mcd_last_error());
         goto done;
     }
     if (s.n_dim > 0) {

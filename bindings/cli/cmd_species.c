@@ -31,7 +31,8 @@ static void help(FILE *f)
         "in the units given under each heading (M g/mol, sigma Å, eps/k K,\n"
         "dipole debye, Tb K, Vb cm3/mol; '-' = not known).\n"
         "With NAME (a species name, case-insensitive, or a formula that only\n"
-        "one species has): every parameter with its SI value, unit and source.\n"
+        "one species has): every parameter with its SI value, unit and "
+        "source.\n"
         "\n"
         "options:\n"
         "  --json               one JSON object, SI values, key \"species\"\n"
@@ -166,8 +167,7 @@ static int list_all(const mcd_db *db, int json, int csv)
         }
         if (cli_table_row(&t, cells) != 0) {
             cli_table_free(&t);
-            return cli_fail("species", "building the table", MCD_ENOMEM,
-                            NULL);
+            return cli_fail("species", "building the table", MCD_ENOMEM, NULL);
         }
     }
     cli_table_print(&t, stdout, "");
@@ -229,8 +229,7 @@ static int show_one(const mcd_db *db, const char *name, int json, int csv)
             cells[0] = mcd_param_name((mcd_param)p);
             cells[1] = val;
             cells[2] = mcd_param_unit((mcd_param)p);
-            cells[3] = known ? mcd_db_source(db, i, (mcd_param)p)
-                             : "not known";
+            cells[3] = known ? mcd_db_source(db, i, (mcd_param)p) : "not known";
             cli_table_row(&t, cells);
         }
         cli_table_print(&t, stdout, "  ");
@@ -255,28 +254,18 @@ int cli_cmd_species(int argc, char **argv)
     cli_args_init(&a, "species", argc, argv, opts);
     while ((id = cli_args_next(&a)) != CLI_ARG_END) {
         switch (id) {
-        case CLI_ARG_ERROR:
-            return CLI_USAGE;
-        case O_HELP:
-            help(stdout);
-            return CLI_OK;
-        case O_JSON:
-            json = 1;
-            break;
-        case O_CSV:
-            csv = 1;
-            break;
-        case O_FILE:
-            file = a.value;
-            break;
+        case CLI_ARG_ERROR: return CLI_USAGE;
+        case O_HELP: help(stdout); return CLI_OK;
+        case O_JSON: json = 1; break;
+        case O_CSV: csv = 1; break;
+        case O_FILE: file = a.value; break;
         case CLI_ARG_POSITIONAL:
             if (name)
                 return cli_usage_error("species", a.value,
                                        "only one species name may be given");
             name = a.value;
             break;
-        default:
-            return CLI_USAGE;
+        default: return CLI_USAGE;
         }
     }
     if (json && csv)

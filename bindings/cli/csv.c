@@ -62,8 +62,7 @@ void cli_csv_head(cli_csv *c, const char *prefix, const char *name,
     char buf[200];
     size_t used = 0;
     const char *p;
-    snprintf(buf, sizeof buf, "%s%s", prefix ? prefix : "",
-             name ? name : "");
+    snprintf(buf, sizeof buf, "%s%s", prefix ? prefix : "", name ? name : "");
     used = strlen(buf);
     if (unit && *unit && strcmp(unit, "-") != 0) {
         /* "m^2/s" -> "_m2_per_s", "C m" -> "_C_m", "mol/(m^2 s)" ->

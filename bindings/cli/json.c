@@ -138,8 +138,7 @@ void cli_json_null(cli_json *j, const char *key)
     fputs("null", j->f);
 }
 
-void cli_json_numbers(cli_json *j, const char *key, const double *v,
-                      size_t n)
+void cli_json_numbers(cli_json *j, const char *key, const double *v, size_t n)
 {
     size_t i;
     lead(j, key);

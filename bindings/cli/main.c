@@ -24,8 +24,8 @@ int cli_usage_error(const char *cmd, const char *arg, const char *fmt, ...)
 int cli_fail(const char *cmd, const char *what, mcd_status st,
              const char *detail)
 {
-    fprintf(stderr, "mcdiff%s%s: %s failed: %s", cmd ? " " : "",
-            cmd ? cmd : "", what, mcd_status_string((int)st));
+    fprintf(stderr, "mcdiff%s%s: %s failed: %s", cmd ? " " : "", cmd ? cmd : "",
+            what, mcd_status_string((int)st));
     if (detail && *detail)
         fprintf(stderr, " (%s)", detail);
     fputc('\n', stderr);
@@ -76,18 +76,22 @@ int cli_open_db(const char *cmd, const char *extra_file, mcd_db **out_db)
 static void main_help(FILE *f)
 {
     fputs(
-        "mcdiff - binary and multicomponent gas diffusion: diffusivities, fluxes,\n"
+        "mcdiff - binary and multicomponent gas diffusion: diffusivities, "
+        "fluxes,\n"
         "Fick matrices, films and two-bulb cells\n"
         "\n"
         "usage: mcdiff [--version | --help] COMMAND [OPTIONS]\n"
         "\n"
         "commands:\n"
-        "  species [NAME]   the built-in species table, or one species in full\n"
-        "  binary A B       binary diffusivity of a pair by each estimation method\n"
+        "  species [NAME]   the built-in species table, or one species in "
+        "full\n"
+        "  binary A B       binary diffusivity of a pair by each estimation "
+        "method\n"
         "  fluxes           diffusion fluxes of N species for given gradients\n"
         "  matrix           binary and generalized Fick matrices of a mixture\n"
         "  film             steady fluxes through a film or Stefan tube\n"
-        "  bulbs            composition histories of a two-bulb diffusion cell\n"
+        "  bulbs            composition histories of a two-bulb diffusion "
+        "cell\n"
         "  demo             a short worked scenario with invented numbers\n"
         "\n"
         "Run 'mcdiff COMMAND --help' for the options of a command.\n"

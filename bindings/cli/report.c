@@ -31,23 +31,28 @@ int cli_state_grad_in(const cli_state *s, const char *cmd, mcd_basis basis,
 
 int cli_state_fick(cli_state *s, const char *cmd, double *D, size_t *out_dep)
 {
-    mcd_status st = mcd_fick_matrix(s->ws, &(mcd_state){.n_species = s->n, .M = s->M, .Dij = s->Dij, .comp_basis = s->comp_basis, .comp = s->comp}, s->out_basis, s->dependent, D, out_dep);
+    mcd_status st = mcd_fick_matrix(s->ws,
+                                    &(mcd_state){.n_species = s->n,
+                                                 .M = s->M,
+                                                 .Dij = s->Dij,
+                                                 .comp_basis = s->comp_basis,
+                                                 .comp = s->comp},
+                                    s->out_basis, s->dependent, D, out_dep);
     if (st != MCD_OK)
-        return cli_fail(cmd, "the Fick matrix", st,
-                        mcd_last_error());
+        return cli_fail(cmd, "the Fick matrix", st, mcd_last_error());
     return CLI_OK;
 }
 
-void cli_print_fick(const cli_state *s, const double *D, size_t dep,
-                    FILE *f)
+void cli_print_fick(const cli_state *s, const double *D, size_t dep, FILE *f)
 {
     size_t n = s->n, m = n - 1, i, k, r, c;
     cli_table t;
     const char *cells[CLI_TABLE_MAX_COLS];
     char buf[CLI_TABLE_MAX_COLS][48];
 
-    fprintf(f, "generalized Fick matrix [m^2/s] (exact; dependent species "
-               "%s),\n  %s:\n",
+    fprintf(f,
+            "generalized Fick matrix [m^2/s] (exact; dependent species "
+            "%s),\n  %s:\n",
             mcd_mixture_name(s->mix, dep),
             s->out_basis == MCD_BASIS_MOLE
                 ? "J = -c [D] grad x, molar-average frame"
@@ -79,8 +84,7 @@ void cli_print_fick(const cli_state *s, const double *D, size_t dep,
     cli_table_free(&t);
 }
 
-void cli_json_fick(const cli_state *s, const double *D, size_t dep,
-                   cli_json *j)
+void cli_json_fick(const cli_state *s, const double *D, size_t dep, cli_json *j)
 {
     size_t n = s->n, m = n - 1, i, r;
     cli_json_array_begin(j, "fick_matrix");

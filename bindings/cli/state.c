@@ -8,25 +8,21 @@
 #include <string.h>
 #include "cli.h"
 
-enum {
-    O_X = 1, O_W, O_GRAD, O_DLNP, O_MODEL, O_BASIS, O_DEP
-};
+enum { O_X = 1, O_W, O_GRAD, O_DLNP, O_MODEL, O_BASIS, O_DEP };
 
-static const cli_opt state_opts[] = {
-    CLI_MIXTURE_OPTIONS,
-    {"mole-fractions", 'x', 1, O_X},
-    {"mass-fractions", 'w', 1, O_W},
-    {"gradient", 'g', 1, O_GRAD},
-    {"grad-lnp", 0, 1, O_DLNP},
-    {"model", 0, 1, O_MODEL},
-    {"basis", 0, 1, O_BASIS},
-    {"dependent", 0, 1, O_DEP},
-    {NULL, 0, 0, 0}};
+static const cli_opt state_opts[] = {CLI_MIXTURE_OPTIONS,
+                                     {"mole-fractions", 'x', 1, O_X},
+                                     {"mass-fractions", 'w', 1, O_W},
+                                     {"gradient", 'g', 1, O_GRAD},
+                                     {"grad-lnp", 0, 1, O_DLNP},
+                                     {"model", 0, 1, O_MODEL},
+                                     {"basis", 0, 1, O_BASIS},
+                                     {"dependent", 0, 1, O_DEP},
+                                     {NULL, 0, 0, 0}};
 
 /* Parse "A:B=D" or "A:B=D@T,P" into p (text is modified: kept by the
  * caller's argv). */
-static int parse_pair(char *text, struct cli_pair *p, char *why,
-                      size_t whylen)
+static int parse_pair(char *text, struct cli_pair *p, char *why, size_t whylen)
 {
     char *colon = strchr(text, ':');
     char *eq = strchr(text, '=');
@@ -68,20 +64,13 @@ void cli_state_defaults(cli_state *s)
     s->dependent = MCD_DEPENDENT_AUTO;
 }
 
-int cli_state_option(cli_state *s, const char *cmd, const cli_args *a,
-                     int id)
+int cli_state_option(cli_state *s, const char *cmd, const cli_args *a, int id)
 {
     char why[200];
     switch (id) {
-    case CLI_O_JSON:
-        s->json = 1;
-        return CLI_OK;
-    case CLI_O_CSV:
-        s->csv = 1;
-        return CLI_OK;
-    case CLI_O_FILE:
-        s->file = a->value;
-        return CLI_OK;
+    case CLI_O_JSON: s->json = 1; return CLI_OK;
+    case CLI_O_CSV: s->csv = 1; return CLI_OK;
+    case CLI_O_FILE: s->file = a->value; return CLI_OK;
     case CLI_O_SPECIES: {
         int n;
         size_t i, j;
@@ -118,8 +107,7 @@ int cli_state_option(cli_state *s, const char *cmd, const cli_args *a,
         return CLI_OK;
     case CLI_O_METHOD:
         if (mcd_method_from_name(a->value, &s->method) != MCD_OK ||
-            s->method == MCD_METHOD_USER ||
-            s->method == MCD_METHOD_WILKE_CHANG)
+            s->method == MCD_METHOD_USER || s->method == MCD_METHOD_WILKE_CHANG)
             return cli_usage_error(cmd, a->spelled,
                                    "'%s' is not a gas estimation method "
                                    "(fsg, chapman-enskog, wilke-lee)",
@@ -135,13 +123,11 @@ int cli_state_option(cli_state *s, const char *cmd, const cli_args *a,
             return cli_fail(cmd, "reading arguments", MCD_ENOMEM, NULL);
         strcpy(copy, a->value);
         s->pair_bufs[s->n_pairs++] = copy; /* freed by cli_state_free */
-        if (parse_pair(copy, &s->pairs[s->n_pairs - 1], why, sizeof why) !=
-            0)
+        if (parse_pair(copy, &s->pairs[s->n_pairs - 1], why, sizeof why) != 0)
             return cli_usage_error(cmd, "--pair", "'%s': %s", a->value, why);
         return CLI_OK;
     }
-    default:
-        return CLI_USAGE;
+    default: return CLI_USAGE;
     }
 }
 
@@ -181,19 +167,16 @@ int cli_state_parse(cli_state *s, const char *cmd, int argc, char **argv,
             continue;
         }
         switch (id) {
-        case CLI_ARG_ERROR:
-            return CLI_USAGE;
-        case CLI_O_HELP:
-            help(stdout);
-            return -1;
+        case CLI_ARG_ERROR: return CLI_USAGE;
+        case CLI_O_HELP: help(stdout); return -1;
         case O_X:
         case O_W:
             if (have_x || have_w)
                 return cli_usage_error(cmd, a.spelled,
                                        "give one composition: either -x or "
                                        "-w, once");
-            if (cli_parse_list(a.value, comp_tmp, MCD_MAX_SPECIES, &ncomp,
-                               why, sizeof why) != 0)
+            if (cli_parse_list(a.value, comp_tmp, MCD_MAX_SPECIES, &ncomp, why,
+                               sizeof why) != 0)
                 return cli_usage_error(cmd, a.spelled, "%s", why);
             if (id == O_X)
                 have_x = 1;
@@ -214,8 +197,8 @@ int cli_state_parse(cli_state *s, const char *cmd, int argc, char **argv,
         case O_DLNP:
             if (s->have_grad_lnP)
                 return cli_usage_error(cmd, a.spelled, "given twice");
-            if (cli_parse_list(a.value, s->grad_lnP, MCD_MAX_DIM, &ndlnp,
-                               why, sizeof why) != 0)
+            if (cli_parse_list(a.value, s->grad_lnP, MCD_MAX_DIM, &ndlnp, why,
+                               sizeof why) != 0)
                 return cli_usage_error(cmd, a.spelled, "%s", why);
             s->have_grad_lnP = 1;
             break;
@@ -245,15 +228,12 @@ int cli_state_parse(cli_state *s, const char *cmd, int argc, char **argv,
                                        a.value);
             have_basis = 1;
             break;
-        case O_DEP:
-            s->dependent_name = a.value;
-            break;
+        case O_DEP: s->dependent_name = a.value; break;
         case CLI_ARG_POSITIONAL:
             return cli_usage_error(cmd, a.value,
                                    "unexpected argument (options only; see "
                                    "--help)");
-        default:
-            return CLI_USAGE;
+        default: return CLI_USAGE;
         }
     }
     if ((rc = cli_state_require(s, cmd)) != CLI_OK)
@@ -263,10 +243,9 @@ int cli_state_parse(cli_state *s, const char *cmd, int argc, char **argv,
                                "a composition is required (or "
                                "-w/--mass-fractions)");
     if (ncomp != s->n)
-        return cli_usage_error(cmd, have_x ? "-x/--mole-fractions"
-                                           : "-w/--mass-fractions",
-                               "has %zu values for %zu species", ncomp,
-                               s->n);
+        return cli_usage_error(
+            cmd, have_x ? "-x/--mole-fractions" : "-w/--mass-fractions",
+            "has %zu values for %zu species", ncomp, s->n);
     if (need_grad && s->n_dim == 0)
         return cli_usage_error(cmd, "-g/--gradient",
                                "is required (one per direction)");
@@ -346,8 +325,8 @@ int cli_state_setup(cli_state *s, const char *cmd)
                                    "'%s' names a species already listed",
                                    s->names[i]);
     }
-    st = mcd_mixture_new(s->db, n, (const char *const *)s->names, (mcd_gas_method)s->method,
-                         &s->mix);
+    st = mcd_mixture_new(s->db, n, (const char *const *)s->names,
+                         (mcd_gas_method)s->method, &s->mix);
     if (st != MCD_OK)
         return cli_fail(cmd, "building the mixture", st, mcd_last_error());
 
@@ -428,8 +407,7 @@ int cli_state_setup(cli_state *s, const char *cmd)
     st = mcd_comp_ideal_gas_c(s->T, s->P, &s->c);
     if (st != MCD_OK)
         return cli_fail(cmd, "ideal-gas concentration", st, NULL);
-    st = mcd_mixture_binaries(s->mix, s->T, s->P, s->Dij, s->rel_err,
-                              s->warn);
+    st = mcd_mixture_binaries(s->mix, s->T, s->P, s->Dij, s->rel_err, s->warn);
     if (st != MCD_OK) {
         snprintf(err, sizeof err, "%s (method %s; try --method or --pair)",
                  mcd_last_error(), mcd_method_name(s->method));

@@ -99,7 +99,7 @@ int cli_parse_number(const char *text, double *out, char *why, size_t whylen)
 
 typedef struct unit_def {
     const char *word;
-    double scale;  /* SI = value * scale + offset */
+    double scale; /* SI = value * scale + offset */
     double offset;
 } unit_def;
 
@@ -155,8 +155,8 @@ int cli_parse_temperature(const char *text, double *out_K, char *why,
     static const unit_def units[] = {
         {"K", 1.0, 0.0}, {"C", 1.0, 273.15}, {NULL, 0, 0}};
     double T;
-    if (parse_quantity(text, units, "temperature", "K or C; bare = K", &T,
-                       why, whylen) != 0)
+    if (parse_quantity(text, units, "temperature", "K or C; bare = K", &T, why,
+                       whylen) != 0)
         return -1;
     if (!(T > 0.0)) {
         snprintf(why, whylen, "'%s' is not above absolute zero", text);
@@ -169,9 +169,9 @@ int cli_parse_temperature(const char *text, double *out_K, char *why,
 int cli_parse_pressure(const char *text, double *out_Pa, char *why,
                        size_t whylen)
 {
-    static const unit_def units[] = {
-        {"Pa", 1.0, 0.0},  {"kPa", 1e3, 0.0},       {"MPa", 1e6, 0.0},
-        {"bar", 1e5, 0.0}, {"atm", MCD_ATM, 0.0}, {NULL, 0, 0}};
+    static const unit_def units[] = {{"Pa", 1.0, 0.0},      {"kPa", 1e3, 0.0},
+                                     {"MPa", 1e6, 0.0},     {"bar", 1e5, 0.0},
+                                     {"atm", MCD_ATM, 0.0}, {NULL, 0, 0}};
     double P;
     if (parse_quantity(text, units, "pressure",
                        "Pa, kPa, MPa, bar or atm; bare = Pa", &P, why,
@@ -191,8 +191,8 @@ int cli_parse_diffusivity(const char *text, double *out, char *why,
     static const unit_def units[] = {
         {"m2/s", 1.0, 0.0}, {"cm2/s", 1e-4, 0.0}, {NULL, 0, 0}};
     double D;
-    if (parse_quantity(text, units, "diffusivity",
-                       "m2/s or cm2/s; bare = m2/s", &D, why, whylen) != 0)
+    if (parse_quantity(text, units, "diffusivity", "m2/s or cm2/s; bare = m2/s",
+                       &D, why, whylen) != 0)
         return -1;
     if (!(D > 0.0)) {
         snprintf(why, whylen, "'%s' is not a positive diffusivity", text);
@@ -202,8 +202,7 @@ int cli_parse_diffusivity(const char *text, double *out, char *why,
     return 0;
 }
 
-int cli_parse_viscosity(const char *text, double *out, char *why,
-                        size_t whylen)
+int cli_parse_viscosity(const char *text, double *out, char *why, size_t whylen)
 {
     static const unit_def units[] = {{"Pa.s", 1.0, 0.0},
                                      {"mPa.s", 1e-3, 0.0},
@@ -211,8 +210,7 @@ int cli_parse_viscosity(const char *text, double *out, char *why,
                                      {NULL, 0, 0}};
     double mu;
     if (parse_quantity(text, units, "viscosity",
-                       "Pa.s, mPa.s or cP; bare = Pa.s", &mu, why,
-                       whylen) != 0)
+                       "Pa.s, mPa.s or cP; bare = Pa.s", &mu, why, whylen) != 0)
         return -1;
     if (!(mu > 0.0)) {
         snprintf(why, whylen, "'%s' is not a positive viscosity", text);
@@ -238,43 +236,37 @@ static int parse_positive(const char *text, const unit_def *units,
     return 0;
 }
 
-int cli_parse_length(const char *text, double *out, char *why,
-                     size_t whylen)
+int cli_parse_length(const char *text, double *out, char *why, size_t whylen)
 {
     static const unit_def units[] = {
         {"m", 1.0, 0.0}, {"cm", 1e-2, 0.0}, {"mm", 1e-3, 0.0}, {NULL, 0, 0}};
-    return parse_positive(text, units, "length", "m, cm or mm; bare = m",
-                          out, why, whylen);
+    return parse_positive(text, units, "length", "m, cm or mm; bare = m", out,
+                          why, whylen);
 }
 
 int cli_parse_area(const char *text, double *out, char *why, size_t whylen)
 {
-    static const unit_def units[] = {{"m2", 1.0, 0.0},
-                                     {"cm2", 1e-4, 0.0},
-                                     {"mm2", 1e-6, 0.0},
-                                     {NULL, 0, 0}};
-    return parse_positive(text, units, "area", "m2, cm2 or mm2; bare = m2",
-                          out, why, whylen);
+    static const unit_def units[] = {
+        {"m2", 1.0, 0.0}, {"cm2", 1e-4, 0.0}, {"mm2", 1e-6, 0.0}, {NULL, 0, 0}};
+    return parse_positive(text, units, "area", "m2, cm2 or mm2; bare = m2", out,
+                          why, whylen);
 }
 
-int cli_parse_volume(const char *text, double *out, char *why,
-                     size_t whylen)
+int cli_parse_volume(const char *text, double *out, char *why, size_t whylen)
 {
     static const unit_def units[] = {{"m3", 1.0, 0.0},
                                      {"L", 1e-3, 0.0},
                                      {"mL", 1e-6, 0.0},
                                      {"cm3", 1e-6, 0.0},
                                      {NULL, 0, 0}};
-    return parse_positive(text, units, "volume",
-                          "m3, L, mL or cm3; bare = m3", out, why, whylen);
+    return parse_positive(text, units, "volume", "m3, L, mL or cm3; bare = m3",
+                          out, why, whylen);
 }
 
 int cli_parse_time(const char *text, double *out, char *why, size_t whylen)
 {
-    static const unit_def units[] = {{"s", 1.0, 0.0},
-                                     {"min", 60.0, 0.0},
-                                     {"h", 3600.0, 0.0},
-                                     {NULL, 0, 0}};
+    static const unit_def units[] = {
+        {"s", 1.0, 0.0}, {"min", 60.0, 0.0}, {"h", 3600.0, 0.0}, {NULL, 0, 0}};
     double v;
     if (parse_quantity(text, units, "time", "s, min or h; bare = s", &v, why,
                        whylen) != 0)
@@ -290,8 +282,8 @@ int cli_parse_time(const char *text, double *out, char *why, size_t whylen)
 /* Largest number of output times accepted. */
 #define CLI_MAX_TIMES 1000000
 
-int cli_parse_times(const char *text, double **out, size_t *out_n,
-                    char *why, size_t whylen)
+int cli_parse_times(const char *text, double **out, size_t *out_n, char *why,
+                    size_t whylen)
 {
     char item[128];
     const char *colon = text ? strchr(text, ':') : NULL;
@@ -324,8 +316,7 @@ int cli_parse_times(const char *text, double **out, size_t *out_n,
             return -1;
         if (cli_parse_number(colon2 + 1, &cnt, why, whylen) != 0 ||
             cnt != floor(cnt) || cnt < 2 || cnt > CLI_MAX_TIMES) {
-            snprintf(why, whylen,
-                     "COUNT '%s' is not a whole number in 2..%d",
+            snprintf(why, whylen, "COUNT '%s' is not a whole number in 2..%d",
                      colon2 + 1, CLI_MAX_TIMES);
             return -1;
         }
@@ -366,8 +357,10 @@ int cli_parse_times(const char *text, double **out, size_t *out_n,
             return -1;
         }
         if (n > 0 && v < t[n - 1]) {
-            snprintf(why, whylen, "item %zu ('%s') is before the one before "
-                     "it: times must not decrease", n + 1, item);
+            snprintf(why, whylen,
+                     "item %zu ('%s') is before the one before "
+                     "it: times must not decrease",
+                     n + 1, item);
             free(t);
             return -1;
         }

@@ -50,19 +50,23 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
         break;
     case 1:
         r = cli_parse_temperature(t, &v, why, sizeof why);
-        FUZZ_REQUIRE(r != 0 || (isfinite(v) && v > 0), "temperature '%s' -> %g", t, v);
+        FUZZ_REQUIRE(r != 0 || (isfinite(v) && v > 0), "temperature '%s' -> %g",
+                     t, v);
         break;
     case 2:
         r = cli_parse_pressure(t, &v, why, sizeof why);
-        FUZZ_REQUIRE(r != 0 || (isfinite(v) && v > 0), "pressure '%s' -> %g", t, v);
+        FUZZ_REQUIRE(r != 0 || (isfinite(v) && v > 0), "pressure '%s' -> %g", t,
+                     v);
         break;
     case 3:
         r = cli_parse_diffusivity(t, &v, why, sizeof why);
-        FUZZ_REQUIRE(r != 0 || (isfinite(v) && v > 0), "diffusivity '%s' -> %g", t, v);
+        FUZZ_REQUIRE(r != 0 || (isfinite(v) && v > 0), "diffusivity '%s' -> %g",
+                     t, v);
         break;
     case 4:
         r = cli_parse_viscosity(t, &v, why, sizeof why);
-        FUZZ_REQUIRE(r != 0 || (isfinite(v) && v > 0), "viscosity '%s' -> %g", t, v);
+        FUZZ_REQUIRE(r != 0 || (isfinite(v) && v > 0), "viscosity '%s' -> %g",
+                     t, v);
         break;
     case 5:
         memset(list, FUZZ_GUARD_BYTE, sizeof list);
@@ -72,14 +76,16 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
             for (size_t k = 0; k < n; k++)
                 FUZZ_REQUIRE(isfinite(list[k]), "item %zu", k);
         }
-        FUZZ_REQUIRE(fuzz_untouched(list + 5, sizeof list[5]), "list written past cap");
+        FUZZ_REQUIRE(fuzz_untouched(list + 5, sizeof list[5]),
+                     "list written past cap");
         break;
     case 6: {
         char *words[5];
         r = cli_split_words(t, words, 4);
         FUZZ_REQUIRE(r <= 4 && r >= -1, "split count %d", r);
         for (int k = 0; k < r; k++)
-            FUZZ_REQUIRE(words[k] != NULL && words[k][0] != '\0', "empty word %d", k);
+            FUZZ_REQUIRE(words[k] != NULL && words[k][0] != '\0',
+                         "empty word %d", k);
         r = 0;
         break;
     }
@@ -106,7 +112,8 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
     }
     }
     if (r != 0)
-        FUZZ_REQUIRE(fuzz_terminated(why, sizeof why) && why[0] != '\0', "no reason given");
+        FUZZ_REQUIRE(fuzz_terminated(why, sizeof why) && why[0] != '\0',
+                     "no reason given");
     free(t);
     return 0;
 }

@@ -17,15 +17,15 @@
 
 #include "mcdiff.h"
 
-#define FUZZ_REQUIRE(cond, ...)                                          \
-    do {                                                                 \
-        if (!(cond)) {                                                   \
-            fprintf(stderr, "invariant violated at %s:%d: %s: ", __FILE__, \
-                    __LINE__, #cond);                                    \
-            fprintf(stderr, __VA_ARGS__);                                \
-            fputc('\n', stderr);                                         \
-            abort();                                                     \
-        }                                                                \
+#define FUZZ_REQUIRE(cond, ...)                                                \
+    do {                                                                       \
+        if (!(cond)) {                                                         \
+            fprintf(stderr, "invariant violated at %s:%d: %s: ", __FILE__,     \
+                    __LINE__, #cond);                                          \
+            fprintf(stderr, __VA_ARGS__);                                      \
+            fputc('\n', stderr);                                               \
+            abort();                                                           \
+        }                                                                      \
     } while (0)
 
 #define FUZZ_GUARD_BYTE 0x5A
@@ -51,7 +51,8 @@ static inline int fuzz_terminated(const char *buf, size_t len)
 static inline int fuzz_detail_ok(mcd_status st)
 {
     const char *d = mcd_last_error();
-    return st == MCD_OK ? d[0] == '\0' : d[0] != '\0' && fuzz_terminated(d, 256);
+    return st == MCD_OK ? d[0] == '\0'
+                        : d[0] != '\0' && fuzz_terminated(d, 256);
 }
 
 /* A NUL-terminated copy of the fuzz input (caller frees). */

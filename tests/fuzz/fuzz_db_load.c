@@ -53,20 +53,24 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
     n0 = mcd_db_species_count(db);
     h0 = fingerprint(db);
     st = mcd_db_load_string(db, text);
-    FUZZ_REQUIRE(fuzz_detail_ok(st), "detail \"%s\" after status %d", mcd_last_error(), st);
+    FUZZ_REQUIRE(fuzz_detail_ok(st), "detail \"%s\" after status %d",
+                 mcd_last_error(), st);
     n1 = mcd_db_species_count(db);
     if (st != MCD_OK) {
-        FUZZ_REQUIRE(n1 == n0 && fingerprint(db) == h0, "database changed on error %d", st);
+        FUZZ_REQUIRE(n1 == n0 && fingerprint(db) == h0,
+                     "database changed on error %d", st);
     } else {
         if (mcd_db_find(db, "nitrogen", &ref) != MCD_OK)
             ref = 0;
         for (size_t i = 0; i < n1; i++) {
-            FUZZ_REQUIRE(mcd_db_name(db, i) != NULL && mcd_db_formula(db, i) != NULL,
+            FUZZ_REQUIRE(mcd_db_name(db, i) != NULL &&
+                             mcd_db_formula(db, i) != NULL,
                          "species %zu lacks name or formula", i);
             for (int p = 0; p < MCD_PARAM_COUNT; p++) {
                 double v;
                 mcd_status ps = mcd_db_param(db, i, (mcd_param)p, &v);
-                FUZZ_REQUIRE(ps == MCD_OK || ps == MCD_ENODATA, "param status %d", ps);
+                FUZZ_REQUIRE(ps == MCD_OK || ps == MCD_ENODATA,
+                             "param status %d", ps);
                 if (ps == MCD_OK) {
                     int zero_ok = p == MCD_PARAM_DIPOLE || p == MCD_PARAM_ASSOC;
                     FUZZ_REQUIRE(isfinite(v) && (v > 0 || (zero_ok && v == 0)),
@@ -78,11 +82,11 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
             for (int m = MCD_METHOD_FSG; m <= MCD_METHOD_WILKE_LEE; m++) {
                 double D = -1;
                 unsigned warn = 0;
-                mcd_status bs = mcd_db_binary_gas(db, i, ref, (mcd_method)m, 300.0, MCD_ATM, &D,
-                                               NULL, &warn);
+                mcd_status bs = mcd_db_binary_gas(
+                    db, i, ref, (mcd_method)m, 300.0, MCD_ATM, &D, NULL, &warn);
                 if (bs == MCD_OK)
-                    FUZZ_REQUIRE(isfinite(D) && D > 0, "binary %zu-%zu method %d: %g", i, ref,
-                                 m, D);
+                    FUZZ_REQUIRE(isfinite(D) && D > 0,
+                                 "binary %zu-%zu method %d: %g", i, ref, m, D);
             }
         }
     }

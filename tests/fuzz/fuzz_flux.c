@@ -35,8 +35,9 @@ static mcd_workspace *ws;
  * be round-off only). */
 static double g_abs_scale; /* extra absolute scale of the flux sums */
 
-static void require_zero_sum_ref(const char *what, size_t n, size_t nd, const double *F,
-                                 size_t stride, const double *scale_from)
+static void require_zero_sum_ref(const char *what, size_t n, size_t nd,
+                                 const double *F, size_t stride,
+                                 const double *scale_from)
 {
     for (size_t d = 0; d < nd; d++) {
         double s = 0, a = 0;
@@ -47,13 +48,14 @@ static void require_zero_sum_ref(const char *what, size_t n, size_t nd, const do
             a += fabs(scale_from ? scale_from[i * nd + d] : v);
         }
         /* 1e-300: subnormal sums keep only a few significant bits */
-        FUZZ_REQUIRE(fabs(s) <= 1e-9 * (a + g_abs_scale) + 1e-300 || !isfinite(a),
+        FUZZ_REQUIRE(fabs(s) <= 1e-9 * (a + g_abs_scale) + 1e-300 ||
+                         !isfinite(a),
                      "%s: sum %g over |F| %g", what, s, a);
     }
 }
 
-static void require_zero_sum(const char *what, size_t n, size_t nd, const double *F,
-                             size_t stride)
+static void require_zero_sum(const char *what, size_t n, size_t nd,
+                             const double *F, size_t stride)
 {
     require_zero_sum_ref(what, n, nd, F, stride, NULL);
 }
@@ -151,7 +153,8 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
             pm = fmax(pm, fabs(glnP[q]));
         for (size_t q = 0; q < nn; q++)
             Mm = fmax(Mm, fabs(M[q]));
-        g_abs_scale = fabs(c) * Dm * (gm * (1 + Gm * (double)nn) + pm) * Mm * (double)nn;
+        g_abs_scale =
+            fabs(c) * Dm * (gm * (1 + Gm * (double)nn) + pm) * Mm * (double)nn;
         if (!isfinite(g_abs_scale))
             g_abs_scale = INFINITY;
         /* A subnormal c is rejected (EDOM) by the library, so the
@@ -160,19 +163,40 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
 
     /* 1. mcd_flux_compute */
     memset(out, FUZZ_GUARD_BYTE, sizeof out);
-    st_flux = mcd_flux_compute(ws, model, &(mcd_state){.n_species = n, .n_dim = nd, .M = (fl & 0x40) ? NULL : M, .Dij = D, .c = c, .comp_basis = cb, .comp = x, .grad = grad, .Gamma = (fl & 0x10) ? Gamma : NULL, .grad_lnP = (fl & 0x20) ? glnP : NULL}, fb, out);
+    st_flux =
+        mcd_flux_compute(ws, model,
+                         &(mcd_state){.n_species = n,
+                                      .n_dim = nd,
+                                      .M = (fl & 0x40) ? NULL : M,
+                                      .Dij = D,
+                                      .c = c,
+                                      .comp_basis = cb,
+                                      .comp = x,
+                                      .grad = grad,
+                                      .Gamma = (fl & 0x10) ? Gamma : NULL,
+                                      .grad_lnP = (fl & 0x20) ? glnP : NULL},
+                         fb, out);
     if (st_flux == MCD_OK) {
         require_zero_sum("flux_compute", n, nd, out, 1);
         memcpy(J, out, n * nd * sizeof(double)); /* a consistent flux set */
     } else {
-        FUZZ_REQUIRE(fuzz_untouched(out, sizeof out), "flux_compute wrote on error %d", st_flux);
+        FUZZ_REQUIRE(fuzz_untouched(out, sizeof out),
+                     "flux_compute wrote on error %d", st_flux);
         FUZZ_REQUIRE(mcd_last_error()[0] != '\0', "no message for %d", st_flux);
     }
 
     /* 2. Fick matrix, its fluxes and eigenvalues */
     memset(F, FUZZ_GUARD_BYTE, sizeof F);
     memset(&dep, FUZZ_GUARD_BYTE, sizeof dep);
-    st = mcd_fick_matrix(ws, &(mcd_state){.n_species = n, .M = (fl & 0x40) ? NULL : M, .Dij = D, .comp_basis = cb, .comp = x, .Gamma = (fl & 0x10) ? Gamma : NULL}, fb, (ex & 2) ? MCD_DEPENDENT_AUTO : (size_t)(ex >> 4), F, &dep);
+    st = mcd_fick_matrix(ws,
+                         &(mcd_state){.n_species = n,
+                                      .M = (fl & 0x40) ? NULL : M,
+                                      .Dij = D,
+                                      .comp_basis = cb,
+                                      .comp = x,
+                                      .Gamma = (fl & 0x10) ? Gamma : NULL},
+                         fb, (ex & 2) ? MCD_DEPENDENT_AUTO : (size_t)(ex >> 4),
+                         F, &dep);
     if (st == MCD_OK) {
         FUZZ_REQUIRE(dep < n, "dependent %zu", dep);
         require_finite("fick_matrix", F, (n - 1) * (n - 1));
@@ -181,7 +205,8 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
         if (st == MCD_OK)
             require_zero_sum("fick_fluxes", n, nd, out2, 1);
         else
-            FUZZ_REQUIRE(fuzz_untouched(out2, sizeof out2), "fick_fluxes wrote on error %d", st);
+            FUZZ_REQUIRE(fuzz_untouched(out2, sizeof out2),
+                         "fick_fluxes wrote on error %d", st);
         memset(re, FUZZ_GUARD_BYTE, sizeof re);
         memset(im, FUZZ_GUARD_BYTE, sizeof im);
         st = mcd_fick_eigenvalues(ws, n - 1, F, re, im);
@@ -189,11 +214,13 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
             require_finite("eigen re", re, n - 1);
             require_finite("eigen im", im, n - 1);
         } else {
-            FUZZ_REQUIRE(fuzz_untouched(re, sizeof re) && fuzz_untouched(im, sizeof im),
+            FUZZ_REQUIRE(fuzz_untouched(re, sizeof re) &&
+                             fuzz_untouched(im, sizeof im),
                          "eigenvalues wrote on error %d", st);
         }
     } else {
-        FUZZ_REQUIRE(fuzz_untouched(F, sizeof F) && fuzz_untouched(&dep, sizeof dep),
+        FUZZ_REQUIRE(fuzz_untouched(F, sizeof F) &&
+                         fuzz_untouched(&dep, sizeof dep),
                      "fick_matrix wrote on error %d", st);
     }
     /* Calls without a workspace accept any n up to MCD_MAX_SPECIES: n = 9
@@ -203,40 +230,47 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
         return 0;
     /* fick_fluxes with the raw (fuzzed) matrix too */
     memset(out2, FUZZ_GUARD_BYTE, sizeof out2);
-    st = mcd_fick_fluxes(n, nd, Gamma, (size_t)(ex >> 5), fuzz_double(&in, 40.0), grad, out2);
+    st = mcd_fick_fluxes(n, nd, Gamma, (size_t)(ex >> 5),
+                         fuzz_double(&in, 40.0), grad, out2);
     if (st == MCD_OK)
         require_zero_sum("fick_fluxes raw", n, nd, out2, 1);
     else
-        FUZZ_REQUIRE(fuzz_untouched(out2, sizeof out2), "fick_fluxes wrote on error %d", st);
+        FUZZ_REQUIRE(fuzz_untouched(out2, sizeof out2),
+                     "fick_fluxes wrote on error %d", st);
 
-    /* 3. frames */
-#define FRAME_CALL(what, call, zsum)                                             \
-    do {                                                                         \
-        memset(out2, FUZZ_GUARD_BYTE, sizeof out2);                              \
-        st = call;                                                               \
-        if (st == MCD_OK) {                                                      \
-            if (zsum)                                                            \
-                require_zero_sum(what, n, nd, out2, 1);                          \
-            else                                                                 \
-                require_finite(what, out2, n * nd);                              \
-        } else {                                                                 \
-            FUZZ_REQUIRE(fuzz_untouched(out2, sizeof out2), "%s wrote on error %d", \
-                         what, st);                                              \
-        }                                                                        \
+        /* 3. frames */
+#define FRAME_CALL(what, call, zsum)                                           \
+    do {                                                                       \
+        memset(out2, FUZZ_GUARD_BYTE, sizeof out2);                            \
+        st = call;                                                             \
+        if (st == MCD_OK) {                                                    \
+            if (zsum)                                                          \
+                require_zero_sum(what, n, nd, out2, 1);                        \
+            else                                                               \
+                require_finite(what, out2, n *nd);                             \
+        } else {                                                               \
+            FUZZ_REQUIRE(fuzz_untouched(out2, sizeof out2),                    \
+                         "%s wrote on error %d", what, st);                    \
+        }                                                                      \
     } while (0)
-    FRAME_CALL("flux_convert", mcd_flux_convert(n, nd, M, x, cb, J, fb, out2), 0);
-    FRAME_CALL("volume_frame", mcd_flux_to_volume_frame(n, nd, c, x, Vbar, J, out2), 0);
-    FRAME_CALL("species_frame",
-               mcd_flux_to_species_frame(n, nd, x, J, nn ? (size_t)ex % nn : 0, out2), 0);
+    FRAME_CALL("flux_convert", mcd_flux_convert(n, nd, M, x, cb, J, fb, out2),
+               0);
+    FRAME_CALL("volume_frame",
+               mcd_flux_to_volume_frame(n, nd, c, x, Vbar, J, out2), 0);
+    FRAME_CALL(
+        "species_frame",
+        mcd_flux_to_species_frame(n, nd, x, J, nn ? (size_t)ex % nn : 0, out2),
+        0);
     memset(bulk, FUZZ_GUARD_BYTE, sizeof bulk);
     FRAME_CALL("flux_total",
-               mcd_flux_total(n, nd, cb, x, J, (mcd_bootstrap)(ex % 6), (size_t)(ex >> 4) % 9,
-                              vals, out2, bulk),
+               mcd_flux_total(n, nd, cb, x, J, (mcd_bootstrap)(ex % 6),
+                              (size_t)(ex >> 4) % 9, vals, out2, bulk),
                0);
     if (st == MCD_OK)
         require_finite("bulk", bulk, nd);
     else
-        FUZZ_REQUIRE(fuzz_untouched(bulk, sizeof bulk), "bulk written on error");
+        FUZZ_REQUIRE(fuzz_untouched(bulk, sizeof bulk),
+                     "bulk written on error");
     {
         double v3[3];
         memset(v3, FUZZ_GUARD_BYTE, sizeof v3);
@@ -244,7 +278,8 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
         if (st == MCD_OK)
             require_finite("velocity_difference", v3, nd);
         else
-            FUZZ_REQUIRE(fuzz_untouched(v3, sizeof v3), "v - u written on error %d", st);
+            FUZZ_REQUIRE(fuzz_untouched(v3, sizeof v3),
+                         "v - u written on error %d", st);
     }
     {
         double io[NS * 3], keep[NS * 3], res[3];
@@ -255,17 +290,20 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
         if (st == MCD_OK)
             require_zero_sum_ref("flux_project", n, nd, io, 1, keep);
         else
-            FUZZ_REQUIRE(memcmp(io, keep, sizeof io) == 0 && fuzz_untouched(res, sizeof res),
+            FUZZ_REQUIRE(memcmp(io, keep, sizeof io) == 0 &&
+                             fuzz_untouched(res, sizeof res),
                          "flux_project changed its array on error %d", st);
     }
     memset(flags, FUZZ_GUARD_BYTE, sizeof flags);
     st = mcd_flux_diagnose(n, nd, grad, J, fuzz_double(&in, 1e-3), flags);
     if (st == MCD_OK) {
         for (size_t i = 0; i < n; i++)
-            FUZZ_REQUIRE((flags[i] & ~7u) == 0 && (flags[i] & (flags[i] - 1)) == 0,
+            FUZZ_REQUIRE((flags[i] & ~7u) == 0 &&
+                             (flags[i] & (flags[i] - 1)) == 0,
                          "flags %u not exclusive", flags[i]);
     } else {
-        FUZZ_REQUIRE(fuzz_untouched(flags, sizeof flags), "flags written on error %d", st);
+        FUZZ_REQUIRE(fuzz_untouched(flags, sizeof flags),
+                     "flags written on error %d", st);
     }
 
     /* 4. batched, K cells that replicate this state (SoA layout) */
@@ -280,7 +318,13 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
             gk[q * K + k] = grad[q];
     }
     memset(outk, FUZZ_GUARD_BYTE, sizeof outk);
-    st = mcd_flux_batch_dij(ws, model, n, (fl & 0x40) ? NULL : M, Dk, cvec, &(mcd_cells){.n_cells = K, .n_dim = nd, .comp_basis = cb, .comp = xk, .grad = gk}, fb, outk);
+    st = mcd_flux_batch_dij(ws, model, n, (fl & 0x40) ? NULL : M, Dk, cvec,
+                            &(mcd_cells){.n_cells = K,
+                                         .n_dim = nd,
+                                         .comp_basis = cb,
+                                         .comp = xk,
+                                         .grad = gk},
+                            fb, outk);
     if (st == MCD_OK) {
         for (size_t k = 0; k < K; k++)
             require_zero_sum("flux_batch_dij", n, nd, outk + k, K);

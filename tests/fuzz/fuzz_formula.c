@@ -28,7 +28,8 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
     /* molar mass */
     memset(&M, FUZZ_GUARD_BYTE, sizeof M);
     st = mcd_formula_molar_mass(f, &M);
-    FUZZ_REQUIRE(fuzz_detail_ok(st), "detail \"%s\" after status %d", mcd_last_error(), st);
+    FUZZ_REQUIRE(fuzz_detail_ok(st), "detail \"%s\" after status %d",
+                 mcd_last_error(), st);
     if (st == MCD_OK)
         FUZZ_REQUIRE(isfinite(M) && M > 0, "M = %g for '%s'", M, f);
     else
@@ -40,15 +41,20 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
         memset(cnt, FUZZ_GUARD_BYTE, sizeof cnt);
         memset(&n, FUZZ_GUARD_BYTE, sizeof n);
         st = mcd_formula_elements(f, cap, Z, cnt, &n);
-        FUZZ_REQUIRE(fuzz_detail_ok(st), "detail \"%s\" after status %d", mcd_last_error(), st);
+        FUZZ_REQUIRE(fuzz_detail_ok(st), "detail \"%s\" after status %d",
+                     mcd_last_error(), st);
         if (st == MCD_OK) {
             FUZZ_REQUIRE(n >= 1 && n <= cap, "n = %zu cap %zu", n, cap);
             for (k = 0; k < n; k++)
-                FUZZ_REQUIRE(Z[k] >= 1 && Z[k] <= 118 && cnt[k] > 0, "element %zu", k);
-            FUZZ_REQUIRE(fuzz_untouched(Z + cap, sizeof Z - cap * sizeof Z[0]) || cap == 8,
-                         "out_Z written past cap");
+                FUZZ_REQUIRE(Z[k] >= 1 && Z[k] <= 118 && cnt[k] > 0,
+                             "element %zu", k);
+            FUZZ_REQUIRE(
+                fuzz_untouched(Z + cap, sizeof Z - cap * sizeof Z[0]) ||
+                    cap == 8,
+                "out_Z written past cap");
         } else {
-            FUZZ_REQUIRE(fuzz_untouched(Z, sizeof Z) && fuzz_untouched(cnt, sizeof cnt) &&
+            FUZZ_REQUIRE(fuzz_untouched(Z, sizeof Z) &&
+                             fuzz_untouched(cnt, sizeof cnt) &&
                              fuzz_untouched(&n, sizeof n),
                          "elements written on error %d", st);
         }
@@ -61,7 +67,8 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
         if (st == MCD_OK)
             FUZZ_REQUIRE(isfinite(V), "V = %g", V);
         else
-            FUZZ_REQUIRE(fuzz_untouched(&V, sizeof V), "V written on error %d", st);
+            FUZZ_REQUIRE(fuzz_untouched(&V, sizeof V), "V written on error %d",
+                         st);
     }
     memset(&V, FUZZ_GUARD_BYTE, sizeof V);
     st = mcd_formula_molecule_volume(f, &V);
@@ -74,20 +81,24 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
     if (mcd_db_new(&db) != MCD_OK)
         abort();
     st = mcd_db_add(db, "fuzzed", f, (int)(size & 1), &idx);
-    FUZZ_REQUIRE(fuzz_detail_ok(st), "detail \"%s\" after status %d", mcd_last_error(), st);
+    FUZZ_REQUIRE(fuzz_detail_ok(st), "detail \"%s\" after status %d",
+                 mcd_last_error(), st);
     if (st == MCD_OK) {
         double m;
-        FUZZ_REQUIRE(mcd_db_species_count(db) == 1 && idx == 0, "count after add");
-        FUZZ_REQUIRE(mcd_db_param(db, 0, MCD_PARAM_MOLAR_MASS, &m) == MCD_OK && isfinite(m) &&
-                         m > 0,
+        FUZZ_REQUIRE(mcd_db_species_count(db) == 1 && idx == 0,
+                     "count after add");
+        FUZZ_REQUIRE(mcd_db_param(db, 0, MCD_PARAM_MOLAR_MASS, &m) == MCD_OK &&
+                         isfinite(m) && m > 0,
                      "db molar mass");
     } else {
-        FUZZ_REQUIRE(mcd_db_species_count(db) == 0, "db changed on error %d", st);
+        FUZZ_REQUIRE(mcd_db_species_count(db) == 0, "db changed on error %d",
+                     st);
     }
     st = mcd_db_add(db, f, "CH4", 0, &idx);
     if (st == MCD_OK) {
         size_t found;
-        FUZZ_REQUIRE(mcd_db_find(db, f, &found) == MCD_OK && found == idx, "name not found");
+        FUZZ_REQUIRE(mcd_db_find(db, f, &found) == MCD_OK && found == idx,
+                     "name not found");
     }
     mcd_db_free(db);
     free(f);
