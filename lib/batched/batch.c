@@ -199,20 +199,21 @@ static mcd_status run_job(mcd_workspace *ws, const mcdi_bjob *jb)
 
 /* Checks shared by every batched entry point (writes nothing). */
 static mcd_status check_common(mcd_workspace *ws, mcd_model model, size_t n,
-                               size_t n_cells, size_t n_dim,
-                               mcd_basis comp_basis, const double *comp,
-                               const double *grad, mcd_basis flux_basis,
+                               const mcd_cells *cl, mcd_basis flux_basis,
                                const double *out)
 {
     mcd_status st;
-    (void)n_cells;
+    if (ws == NULL)
+        return MCD_EINVAL;
+    if (cl == NULL)
+        return mcdi_fail(MCD_EINVAL, "argument cells: NULL");
     if ((st = mcdi_check_species(ws, n, 1, 0, "n_species")) != MCD_OK ||
-        (st = mcdi_check_dim(ws, n_dim)) != MCD_OK ||
+        (st = mcdi_check_dim(ws, cl->n_dim)) != MCD_OK ||
         (st = mcdi_check_model(ws, model, 1)) != MCD_OK ||
-        (st = mcdi_check_basis(ws, comp_basis, "comp_basis")) != MCD_OK ||
+        (st = mcdi_check_basis(ws, cl->comp_basis, "comp_basis")) != MCD_OK ||
         (st = mcdi_check_basis(ws, flux_basis, "flux_basis")) != MCD_OK ||
-        (st = mcdi_check_ptr(ws, comp, "comp")) != MCD_OK ||
-        (st = mcdi_check_ptr(ws, grad, "grad")) != MCD_OK ||
+        (st = mcdi_check_ptr(ws, cl->comp, "comp")) != MCD_OK ||
+        (st = mcdi_check_ptr(ws, cl->grad, "grad")) != MCD_OK ||
         (st = mcdi_check_ptr(ws, out, "out_flux")) != MCD_OK)
         return st;
     return MCD_OK;
@@ -251,20 +252,18 @@ static void job_init(mcdi_bjob *jb, const mcd_workspace *ws, mcd_model model,
  * and the job they describe, its inputs at stride K (the caller's arrays,
  * or the AoS staging). */
 static mcd_status mixture_job(mcd_workspace *ws, const mcd_mixture *mix,
-                              mcd_model model, size_t n_cells, size_t n_dim,
-                              const double *T, const double *P,
-                              mcd_basis comp_basis, const double *comp,
-                              const double *grad, const double *grad_lnP,
-                              mcd_basis flux_basis, double *out_flux, int aos,
-                              mcdi_bjob *jb)
+                              mcd_model model, const double *T, const double *P,
+                              const mcd_cells *cl, mcd_basis flux_basis,
+                              double *out_flux, int aos, mcdi_bjob *jb)
 {
     mcd_status st;
     size_t n;
+    if (ws == NULL)
+        return MCD_EINVAL;
     if (mix == NULL)
         return mcdi_fail(MCD_EINVAL, "argument mix: NULL");
     n = mix->n;
-    if ((st = check_common(ws, model, n, n_cells, n_dim, comp_basis, comp, grad,
-                           flux_basis, out_flux)) != MCD_OK)
+    if ((st = check_common(ws, model, n, cl, flux_basis, out_flux)) != MCD_OK)
         return st;
     if (T == NULL || P == NULL)
         return mcdi_fail(MCD_EINVAL, "argument %s: NULL",
@@ -277,12 +276,12 @@ static mcd_status mixture_job(mcd_workspace *ws, const mcd_mixture *mix,
     if (!mix->M_ok)
         return mcdi_fail(MCD_ENODATA, "argument mix: a molar mass is "
                                       "unknown");
-    job_init(jb, ws, model, n, aos ? mcdi_batch_lanes(n) : n_cells, n_dim,
-             comp_basis, flux_basis);
+    job_init(jb, ws, model, n, aos ? mcdi_batch_lanes(n) : cl->n_cells,
+             cl->n_dim, cl->comp_basis, flux_basis);
     jb->mix = mix;
     jb->mix_has_omega = mixture_has_omega(mix);
-    jb->M = (comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
-             grad_lnP != NULL)
+    jb->M = (cl->comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
+             cl->grad_lnP != NULL)
                 ? mix->M
                 : NULL;
     if (jb->M != NULL && !mcdi_M_span_ok(n, jb->M))
@@ -292,67 +291,60 @@ static mcd_status mixture_job(mcd_workspace *ws, const mcd_mixture *mix,
                          "all precision)");
     jb->T = T;
     jb->P = P;
-    jb->comp = comp;
-    jb->grad = grad;
-    jb->glnP = grad_lnP;
+    jb->comp = cl->comp;
+    jb->grad = cl->grad;
+    jb->glnP = cl->grad_lnP;
     jb->out = out_flux;
     return MCD_OK;
 }
 
-mcd_status mcdi_flux_batch_args(mcd_workspace *ws, const mcd_mixture *mix,
-                                mcd_model model, size_t n_cells, size_t n_dim,
-                                const double *T, const double *P,
-                                mcd_basis comp_basis, const double *comp,
-                                const double *grad, const double *grad_lnP,
-                                mcd_basis flux_basis, double *out_flux)
+mcd_status mcdi_api_flux_batch(mcd_workspace *ws, const mcd_mixture *mix,
+                               mcd_model model, const double *T,
+                               const double *P, const mcd_cells *cells,
+                               mcd_basis flux_basis, double *out_flux)
 {
     mcdi_bjob jb;
     mcd_status st;
-    if (ws == NULL)
-        return MCD_EINVAL;
-    if ((st = mixture_job(ws, mix, model, n_cells, n_dim, T, P, comp_basis,
-                          comp, grad, grad_lnP, flux_basis, out_flux, 0,
+    if ((st = mixture_job(ws, mix, model, T, P, cells, flux_basis, out_flux, 0,
                           &jb)) != MCD_OK)
         return st;
-    if (n_cells == 0)
+    if (cells->n_cells == 0)
         return MCD_OK;
     jb.stream = stream_choice(&jb);
     return run_job(ws, &jb);
 }
 
-mcd_status mcdi_flux_batch_dij_args(mcd_workspace *ws, mcd_model model,
-                                    size_t n_species, size_t n_cells,
-                                    size_t n_dim, const double *M,
-                                    const double *Dij, const double *c,
-                                    mcd_basis comp_basis, const double *comp,
-                                    const double *grad, const double *grad_lnP,
-                                    mcd_basis flux_basis, double *out_flux)
+mcd_status mcdi_api_flux_batch_dij(mcd_workspace *ws, mcd_model model,
+                                   size_t n_species, const double *M,
+                                   const double *Dij, const double *c,
+                                   const mcd_cells *cells, mcd_basis flux_basis,
+                                   double *out_flux)
 {
+    const mcd_cells *cl = cells;
     mcdi_bjob jb;
     mcd_status st;
     int need_M;
-    if (ws == NULL)
-        return MCD_EINVAL;
-    if ((st = check_common(ws, model, n_species, n_cells, n_dim, comp_basis,
-                           comp, grad, flux_basis, out_flux)) != MCD_OK)
+    if ((st = check_common(ws, model, n_species, cl, flux_basis, out_flux)) !=
+        MCD_OK)
         return st;
     if (Dij == NULL)
         return mcdi_fail(MCD_EINVAL, "argument Dij: NULL");
     if (c == NULL)
         return mcdi_fail(MCD_EINVAL, "argument c: NULL");
-    need_M = comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
-             grad_lnP != NULL;
+    need_M = cl->comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
+             cl->grad_lnP != NULL;
     if (need_M && (st = mcdi_check_M(ws, n_species, M)) != MCD_OK)
         return st;
-    job_init(&jb, ws, model, n_species, n_cells, n_dim, comp_basis, flux_basis);
+    job_init(&jb, ws, model, n_species, cl->n_cells, cl->n_dim, cl->comp_basis,
+             flux_basis);
     jb.Dij = Dij;
     jb.c = c;
     jb.M = need_M ? M : NULL;
-    jb.comp = comp;
-    jb.grad = grad;
-    jb.glnP = grad_lnP;
+    jb.comp = cl->comp;
+    jb.grad = cl->grad;
+    jb.glnP = cl->grad_lnP;
     jb.out = out_flux;
-    if (n_cells == 0)
+    if (cl->n_cells == 0)
         return MCD_OK;
     jb.stream = stream_choice(&jb);
     return run_job(ws, &jb);
@@ -361,25 +353,25 @@ mcd_status mcdi_flux_batch_dij_args(mcd_workspace *ws, mcd_model model,
 /* AoS: each block of L cells is transposed into SoA staging that follows
  * the kernel's scratch in the thread's region, computed with stride L,
  * and transposed back. Serial (the staging is per workspace thread 0). */
-mcd_status mcdi_flux_batch_aos_args(mcd_workspace *ws, const mcd_mixture *mix,
-                                    mcd_model model, size_t n_cells,
-                                    size_t n_dim, const double *T,
-                                    const double *P, mcd_basis comp_basis,
-                                    const double *comp, const double *grad,
-                                    const double *grad_lnP,
-                                    mcd_basis flux_basis, double *out_flux)
+mcd_status mcdi_api_flux_batch_aos(mcd_workspace *ws, const mcd_mixture *mix,
+                                   mcd_model model, const double *T,
+                                   const double *P, const mcd_cells *cells,
+                                   mcd_basis flux_basis, double *out_flux)
 {
     mcdi_bjob jb;
     mcd_status st;
-    size_t n, L, k0, nd = n_dim, iter_used = 0;
+    size_t n, L, k0, nd, n_cells, iter_used = 0;
+    const double *comp, *grad, *grad_lnP;
     mcdi_aos_stage sg;
     double iter_err = 0.0;
-    if (ws == NULL)
-        return MCD_EINVAL;
-    if ((st = mixture_job(ws, mix, model, n_cells, n_dim, T, P, comp_basis,
-                          comp, grad, grad_lnP, flux_basis, out_flux, 1,
+    if ((st = mixture_job(ws, mix, model, T, P, cells, flux_basis, out_flux, 1,
                           &jb)) != MCD_OK)
         return st;
+    n_cells = cells->n_cells;
+    nd = cells->n_dim;
+    comp = cells->comp;
+    grad = cells->grad;
+    grad_lnP = cells->grad_lnP;
     if (n_cells == 0)
         return MCD_OK;
     n = jb.n;

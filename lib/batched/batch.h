@@ -107,27 +107,4 @@ void mcdi_batch_block_v1(const mcdi_bjob *job, size_t k0, size_t nv,
 extern const size_t mcdi_batch_lanes_v4, mcdi_batch_lanes_v3,
     mcdi_batch_lanes_v1;
 
-/* The batched calls with the fields of mcd_cells as arguments (batch.c;
- * batched/cells.c unpacks the struct for the public calls). */
-mcd_status mcdi_flux_batch_args(mcd_workspace *ws, const mcd_mixture *mix,
-                                mcd_model model, size_t n_cells, size_t n_dim,
-                                const double *T, const double *P,
-                                mcd_basis comp_basis, const double *comp,
-                                const double *grad, const double *grad_lnP,
-                                mcd_basis flux_basis, double *out_flux);
-mcd_status mcdi_flux_batch_dij_args(mcd_workspace *ws, mcd_model model,
-                                    size_t n_species, size_t n_cells,
-                                    size_t n_dim, const double *M,
-                                    const double *Dij, const double *c,
-                                    mcd_basis comp_basis, const double *comp,
-                                    const double *grad, const double *grad_lnP,
-                                    mcd_basis flux_basis, double *out_flux);
-mcd_status mcdi_flux_batch_aos_args(mcd_workspace *ws, const mcd_mixture *mix,
-                                    mcd_model model, size_t n_cells,
-                                    size_t n_dim, const double *T,
-                                    const double *P, mcd_basis comp_basis,
-                                    const double *comp, const double *grad,
-                                    const double *grad_lnP,
-                                    mcd_basis flux_basis, double *out_flux);
-
 #endif

@@ -63,24 +63,22 @@ typedef struct bulbs_in {
     size_t n_times;
 } bulbs_in;
 
-static mcd_status bulbs_check(mcd_workspace *ws, size_t n, const double *Dij,
-                              double c, double V1, double V2, double A,
-                              double L, const double *x1_0, const double *x2_0,
+static mcd_status bulbs_check(mcd_workspace *ws, const mcd_bulbs *b,
                               size_t n_times, const double *t, double *out_x1,
                               double *out_x2, int monotone, double *x1n,
                               double *x2n)
 {
     mcd_status st;
-    size_t k;
+    size_t k, n = b->n_species;
     if ((st = mcdi_tf_check_ws_n(ws, n)) != MCD_OK ||
-        (st = mcdi_check_dij(ws, n, Dij)) != MCD_OK ||
-        (st = mcdi_check_positive(ws, c, "c")) != MCD_OK ||
-        (st = mcdi_check_positive(ws, V1, "V1")) != MCD_OK ||
-        (st = mcdi_check_positive(ws, V2, "V2")) != MCD_OK ||
-        (st = mcdi_check_positive(ws, A, "A")) != MCD_OK ||
-        (st = mcdi_check_positive(ws, L, "L")) != MCD_OK ||
-        (st = mcdi_tf_check_comp(ws, n, x1_0, "x1_0", x1n)) != MCD_OK ||
-        (st = mcdi_tf_check_comp(ws, n, x2_0, "x2_0", x2n)) != MCD_OK)
+        (st = mcdi_check_dij(ws, n, b->Dij)) != MCD_OK ||
+        (st = mcdi_check_positive(ws, b->c, "c")) != MCD_OK ||
+        (st = mcdi_check_positive(ws, b->V1, "V1")) != MCD_OK ||
+        (st = mcdi_check_positive(ws, b->V2, "V2")) != MCD_OK ||
+        (st = mcdi_check_positive(ws, b->A, "A")) != MCD_OK ||
+        (st = mcdi_check_positive(ws, b->L, "L")) != MCD_OK ||
+        (st = mcdi_tf_check_comp(ws, n, b->x1_0, "x1_0", x1n)) != MCD_OK ||
+        (st = mcdi_tf_check_comp(ws, n, b->x2_0, "x2_0", x2n)) != MCD_OK)
         return st;
     if (n_times == 0)
         return MCD_OK;
@@ -109,31 +107,36 @@ static mcd_status bulbs_check(mcd_workspace *ws, size_t n, const double *Dij,
 /* Linearized theory                                                   */
 /* ------------------------------------------------------------------ */
 
-mcd_status mcdi_bulbs_linearized_args(mcd_workspace *ws, size_t n,
-                                      const double *Dij, double c, double V1,
-                                      double V2, double A, double L,
-                                      const double *x1_0, const double *x2_0,
-                                      size_t n_times, const double *t,
-                                      double *out_x1, double *out_x2)
+mcd_status mcdi_api_bulbs_linearized(mcd_workspace *ws, const mcd_bulbs *bulbs,
+                                     size_t n_times, const double *t,
+                                     double *out_x1, double *out_x2)
 {
     double *x1n, *x2n, *xbar, *dl0, *wr, *wi, *coef, *dl;
     double *Dm, *Ac, *VR, *LU, *work;
     mcdi_tf tf;
-    double beta, f1, f2, wmax = 0.0;
-    size_t m, d, i, j, k, lwork = 0;
+    double beta, f1, f2, wmax = 0.0, V1, V2, A, L;
+    const double *Dij;
+    size_t n, m, d, i, j, k, lwork = 0;
     int use_eig = 1;
     lapack_int info, *ipiv;
     mcd_status st;
 
     if (ws == NULL)
         return MCD_EINVAL;
+    if (bulbs == NULL)
+        return mcdi_fail(MCD_EINVAL, "argument bulbs: NULL");
+    n = bulbs->n_species;
+    Dij = bulbs->Dij;
+    V1 = bulbs->V1;
+    V2 = bulbs->V2;
+    A = bulbs->A;
+    L = bulbs->L;
     mcdi_tf_scratch(ws, &tf);
     x1n = tf.b_x1n;
     x2n = tf.b_x2n;
     xbar = tf.b_xbar;
     dl0 = tf.b_dl0;
-    st = bulbs_check(ws, n, Dij, c, V1, V2, A, L, x1_0, x2_0, n_times, t,
-                     out_x1, out_x2, 0, x1n, x2n);
+    st = bulbs_check(ws, bulbs, n_times, t, out_x1, out_x2, 0, x1n, x2n);
     if (st != MCD_OK || n_times == 0)
         return st;
     wr = tf.b_wr;
@@ -404,28 +407,34 @@ static mcd_status integrate(integ *g, const double *x1n, size_t n_times,
     return MCD_OK;
 }
 
-mcd_status mcdi_bulbs_integrate_args(mcd_workspace *ws, size_t n,
-                                     const double *Dij, double c, double V1,
-                                     double V2, double A, double L,
-                                     const double *x1_0, const double *x2_0,
-                                     size_t n_times, const double *t,
-                                     double rel_tol, double *out_x1,
-                                     double *out_x2)
+mcd_status mcdi_api_bulbs_integrate(mcd_workspace *ws, const mcd_bulbs *bulbs,
+                                    size_t n_times, const double *t,
+                                    double rel_tol, double *out_x1,
+                                    double *out_x2)
 {
-    double *x1n, *x2n, *tot, Dmax = 0.0, h0;
+    double *x1n, *x2n, *tot, Dmax = 0.0, h0, c, V1, V2, A, L;
+    const double *Dij;
     mcdi_tf tf;
     integ g;
-    size_t i;
+    size_t n, i;
     mcd_status st;
 
     if (ws == NULL)
         return MCD_EINVAL;
+    if (bulbs == NULL)
+        return mcdi_fail(MCD_EINVAL, "argument bulbs: NULL");
+    n = bulbs->n_species;
+    Dij = bulbs->Dij;
+    c = bulbs->c;
+    V1 = bulbs->V1;
+    V2 = bulbs->V2;
+    A = bulbs->A;
+    L = bulbs->L;
     mcdi_tf_scratch(ws, &tf);
     x1n = tf.b_x1n;
     x2n = tf.b_x2n;
     tot = tf.b_tot;
-    st = bulbs_check(ws, n, Dij, c, V1, V2, A, L, x1_0, x2_0, n_times, t,
-                     out_x1, out_x2, 1, x1n, x2n);
+    st = bulbs_check(ws, bulbs, n_times, t, out_x1, out_x2, 1, x1n, x2n);
     if (st != MCD_OK)
         return st;
     if (!mcdi_finite(rel_tol))

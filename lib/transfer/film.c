@@ -750,19 +750,27 @@ static mcd_status film_check_state(mcd_workspace *ws, size_t n,
     return MCD_OK;
 }
 
-mcd_status mcdi_film_solve_args(mcd_workspace *ws, size_t n, const double *Dij,
-                                double c, double L, const double *x0,
-                                const double *xL, mcd_film_bootstrap kind,
-                                size_t species, const double *values,
-                                mcd_film_method method, double *out_N,
-                                size_t *out_iterations, double *out_residual)
+mcd_status mcdi_api_film_solve(mcd_workspace *ws, const mcd_film *fm,
+                               mcd_film_bootstrap kind, size_t species,
+                               const double *values, mcd_film_method method,
+                               double *out_N, size_t *out_iterations,
+                               double *out_residual)
 {
     double *x0n, *xLn, *Nres;
     mcdi_tf tf;
-    size_t i, its = 0;
-    double res = 0.0;
+    size_t n, i, its = 0;
+    const double *Dij, *x0, *xL;
+    double c, L, res = 0.0;
     mcd_status st;
 
+    if (fm == NULL)
+        return mcdi_fail(MCD_EINVAL, "argument film: NULL");
+    n = fm->n_species;
+    Dij = fm->Dij;
+    c = fm->c;
+    L = fm->L;
+    x0 = fm->x0;
+    xL = fm->xL;
     if ((st = film_check_head(ws, n, out_N, "out_N", method)) != MCD_OK ||
         (st = film_check_state(ws, n, Dij, c, L)) != MCD_OK)
         return st;
@@ -832,18 +840,24 @@ mcd_status mcdi_film_solve_args(mcd_workspace *ws, size_t n, const double *Dij,
     return MCD_OK;
 }
 
-mcd_status mcdi_film_profile_args(mcd_workspace *ws, size_t n,
-                                  const double *Dij, double c, double L,
-                                  const double *x0, const double *N,
-                                  size_t n_points, const double *z,
-                                  double *out_x)
+mcd_status mcdi_api_film_profile(mcd_workspace *ws, const mcd_film *fm,
+                                 const double *N, size_t n_points,
+                                 const double *z, double *out_x)
 {
     double *x0n, *slot[3];
     mcdi_tf tf;
-    double norm = 0.0;
-    size_t i, j, p;
+    double norm = 0.0, c, L;
+    const double *Dij, *x0;
+    size_t n, i, j, p;
     mcd_status st;
 
+    if (fm == NULL)
+        return mcdi_fail(MCD_EINVAL, "argument film: NULL");
+    n = fm->n_species;
+    Dij = fm->Dij;
+    c = fm->c;
+    L = fm->L;
+    x0 = fm->x0;
     if ((st = film_check_head(ws, n, NULL, NULL, MCD_FILM_EXACT)) != MCD_OK ||
         (st = film_check_state(ws, n, Dij, c, L)) != MCD_OK)
         return st;

@@ -41,32 +41,4 @@ mcd_status mcdi_film_core(mcd_workspace *ws, size_t n, const double *Dij,
                           mcd_film_method method, double *out_N,
                           size_t *out_iterations, double *out_residual);
 
-/* The film and bulb calls with the fields of mcd_film / mcd_bulbs as
- * arguments (film.c, bulbs.c); transfer/problems.c unpacks the structs of
- * the public calls. */
-mcd_status mcdi_film_solve_args(mcd_workspace *ws, size_t n, const double *Dij,
-                                double c, double L, const double *x0,
-                                const double *xL, mcd_film_bootstrap kind,
-                                size_t species, const double *values,
-                                mcd_film_method method, double *out_N,
-                                size_t *out_iterations, double *out_residual);
-mcd_status mcdi_film_profile_args(mcd_workspace *ws, size_t n,
-                                  const double *Dij, double c, double L,
-                                  const double *x0, const double *N,
-                                  size_t n_points, const double *z,
-                                  double *out_x);
-mcd_status mcdi_bulbs_linearized_args(mcd_workspace *ws, size_t n,
-                                      const double *Dij, double c, double V1,
-                                      double V2, double A, double L,
-                                      const double *x1_0, const double *x2_0,
-                                      size_t n_times, const double *t,
-                                      double *out_x1, double *out_x2);
-mcd_status mcdi_bulbs_integrate_args(mcd_workspace *ws, size_t n,
-                                     const double *Dij, double c, double V1,
-                                     double V2, double A, double L,
-                                     const double *x1_0, const double *x2_0,
-                                     size_t n_times, const double *t,
-                                     double rel_tol, double *out_x1,
-                                     double *out_x2);
-
 #endif
