@@ -11,6 +11,7 @@
 #include "mcdiff.h"
 #include "base/checks.h"
 #include "base/lanes.h"
+#include "flux/core_layout.h"
 
 /* ---- kernels -------------------------------------------------------- */
 
@@ -42,10 +43,13 @@ static inline void mcdi_flux_zero_sum(size_t n, size_t nd, const double *x,
 /* Exact Maxwell-Stefan diffusion fluxes J (n x nd, molar frame) for
  * normalised x and driving forces d (n x nd) with sum_i d_i = 0.
  * Scratch: the regions A, Dc, xc, dc, Y, sq, isq, S, dinv, pos, tr of
- * the core bank (core_layout.h); x, d and J must not be any of those
- * (mcd_flux_compute passes its x, d, J regions). Fails with ESING
- * (round-off made the matrix indefinite). Defined in maxwell_stefan.c. */
-mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
+ * the caller's view v, iv of the core bank (core_layout.h: carved once
+ * per call, by the caller); x, d and J must not be any of those
+ * (mcd_flux_compute passes its x, d, J regions). ws only takes the
+ * message. Fails with ESING (round-off made the matrix indefinite).
+ * Defined in maxwell_stefan.c. */
+mcd_status mcdi_ms_fluxes(mcd_workspace *ws, const mcdi_flux_view *v,
+                          const mcdi_flux_iview *iv, size_t n, size_t nd,
                           const double *x, const double *d, const double *Dij,
                           double c, double *J);
 

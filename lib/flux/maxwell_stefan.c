@@ -113,17 +113,17 @@ static inline double dij_pair(const double *Dij, size_t n, size_t i, size_t j)
 /* exact Maxwell-Stefan kernel                                          */
 /* ------------------------------------------------------------------ */
 
-mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
+mcd_status mcdi_ms_fluxes(mcd_workspace *ws, const mcdi_flux_view *vp,
+                          const mcdi_flux_iview *ivp, size_t n, size_t nd,
                           const double *x, const double *d, const double *Dij,
                           double c, double *J)
 {
-    mcdi_flux_view v;
-    mcdi_flux_iview iv;
+    const mcdi_flux_view v = *vp;
+    const mcdi_flux_iview iv = *ivp; /* iv.pos: present, iv.tr: trace */
     double ST[MCD_MAX_DIM] = {0.0, 0.0, 0.0};
     const mcdi_ms_ldl_fn ms_ldl = mcdi_ms_ldl_select();
     size_t m = 0, nt = 0, i, k, l, dd, bad;
 
-    mcdi_flux_scratch(ws, &v, &iv); /* iv.pos: present, iv.tr: trace */
     if (n == 1) {
         for (dd = 0; dd < nd; dd++)
             J[dd] = 0.0;
@@ -347,7 +347,8 @@ MCD_API mcd_status mcd_flux_compute(mcd_workspace *ws, mcd_model model,
     }
     mcdi_driving_forces(n, 1, nd, x, w, gx, Gamma, grad_lnP, d);
     if (model == MCD_MODEL_MAXWELL_STEFAN) {
-        if ((st = mcdi_ms_fluxes(ws, n, nd, x, d, Dij, c, J)) != MCD_OK)
+        if ((st = mcdi_ms_fluxes(ws, &v, &iv, n, nd, x, d, Dij, c, J)) !=
+            MCD_OK)
             return st;
     } else {
         mcdi_mixavg_fluxes(n, nd, x, d, Dij, c, J, v.den, v.num);
