@@ -190,7 +190,7 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
                 stage_store(jb, &b, k0, nv, res, n, L, nd);
             return;
         }
-        stage_compose(&b, n, L, nd);
+        stage_compose(&b, ntr, n, L, nd);
     }
     remove_along(b.J, NULL, b.x, n, L, nd); /* zero-sum, weights x */
     if (mass_out && !stage_mass(jb, &b, nv, res, n, L, nd))
