@@ -81,9 +81,42 @@ KINLINE void mcdi_blanc_rows(const mcdi_rows *R, const int want_num,
     }
 }
 
-/* Mixture-averaged fluxes: J*_i = -c D_im d_i, D_im = num_i / S_i (for a
- * pure species the equal-weight harmonic mean (N - 1) / sum_j 1/Đ_ij, the
- * limit along x_j = (1 - x_i) / (N - 1): flux/mixavg.c), then
+/* Mixture-averaged (Hirschfelder-Curtiss / Blanc) diffusion fluxes
+ * (MCD_MODEL_MIXTURE_AVERAGED, single-state and batched calls).
+ *
+ * Effective diffusivity of species i in the mixture (Hirschfelder, Curtiss
+ * and Bird 1954; the form of Blanc's law for a species in a mixture):
+ *     D_im = (1 - x_i) / sum_{j != i} x_j / Đ_ij.
+ * 1 - x_i is evaluated as sum_{j != i} x_j (no cancellation near x_i = 1).
+ * For a trace species (x_i = 0) this is exactly Blanc's law
+ * 1 / D_im = sum_j x_j / Đ_ij, the same value as the exact Maxwell-Stefan
+ * solution gives for that species.
+ * Pure species i (x_i = 1, all others 0): numerator and denominator vanish
+ * and the limit depends on the direction of approach. We define it as the
+ * equal-weight harmonic mean D_im = (N - 1) / sum_{j != i} 1 / Đ_ij, i.e.
+ * the limit along x_j = (1 - x_i)/(N - 1). It only matters through the
+ * correction flux (the pure species' flux is minus the sum of the others).
+ *
+ * Mole basis (molar-average frame):
+ *     J*_i = -c D_im d_i,   J_i = J*_i - x_i sum_k J*_k,
+ * with d_i the driving force (grad x_i for an ideal mixture without
+ * pressure diffusion). The correction velocity sum_k J*_k / c restores the
+ * zero-sum; trace species are not affected by it.
+ *
+ * Mass basis (mass-average frame), Hirschfelder-Curtiss form:
+ *     j*_i = -rho (M_i / Mbar) D_im d_i = M_i J*_i,
+ *     j_i  = j*_i - w_i sum_k j*_k.
+ * Substituting J_i above into the basis change j_i = M_i J_i -
+ * w_i sum_k M_k J_k gives exactly the same j_i (the x_i-correction terms
+ * cancel because w_i Mbar = x_i M_i), so both pipelines obtain the mass
+ * basis by converting the molar fluxes; the two routes agree identically.
+ *
+ * When all Đ_ij are equal to Đ, D_im = Đ, sum_k J*_k = -c Đ sum_k d_k = 0
+ * and J_i = -c Đ d_i: the exact Maxwell-Stefan solution.
+ * Cost O(N^2) (one division per pair) + O(N n_dim); no linear solve.
+ *
+ * Here: J*_i = -c D_im d_i, D_im = num_i / S_i from the Blanc sums (for a
+ * pure species the harmonic mean above, from minv), then
  * J = J* - x sum J* (the callers' zero-sum clean-up runs it again). */
 KINLINE void mcdi_mixavg_rows(const mcdi_rows *R, const size_t n,
                               const size_t L, const size_t nd)
