@@ -258,9 +258,17 @@ size_t RNAME(MCDI_KISA)(const mcdi_rows *R, const mcdi_dense *D,
         for (j = 0; j < i; j++)
             Ti[j] = 1.0 / Dij[j * n + i];
     }
-    if (nd == 3)
-        return rows_body(R, D, model, n, 3);
-    return rows_body(R, D, model, n, nd);
+    if (nd != 3)
+        return rows_body(R, D, model, n, nd);
+    /* a few species as constants, so that the species loops unroll (the
+     * states that reach here at small n have a trace species, or are
+     * mixture-averaged) */
+    switch (n) {
+    case 3: return rows_body(R, D, model, 3, 3);
+    case 4: return rows_body(R, D, model, 4, 3);
+    case 5: return rows_body(R, D, model, 5, 3);
+    default: return rows_body(R, D, model, n, 3);
+    }
 }
 
 /* The exact model for a state without trace species and at most

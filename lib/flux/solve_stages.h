@@ -61,7 +61,7 @@ KINLINE void mcdi_blanc_rows(const mcdi_rows *R, const int want_num,
     for (i = 0; i < n; i++) {
         const double *q = R->tri + i * (i + 1) / 2 * L;
         for_lanes (l)
-            as[l] = an[l] = 0.0;
+            as[l] = 0.0;
         for (j = 0; j < i; j++)
             for_lanes (l) {
                 as[l] = MCDI_FMA(x[j * L + l], q[j * L + l], as[l]);
@@ -71,6 +71,8 @@ KINLINE void mcdi_blanc_rows(const mcdi_rows *R, const int want_num,
             S[i * L + l] = as[l];
         if (!want_num)
             continue;
+        for_lanes (l)
+            an[l] = 0.0;
         for (j = 0; j < i; j++)
             for_lanes (l) {
                 an[l] += x[j * L + l];
