@@ -7,6 +7,7 @@
 #ifndef MCD_LANES_H
 #define MCD_LANES_H
 
+#include <math.h>
 #include <stddef.h>
 
 /* Always inlined where the compiler allows: the stages are instantiated
@@ -36,6 +37,29 @@
     _Pragma("omp simd reduction(|:bad)") for (l = 0; l < L; l++)
 #else
 #define for_lanes_bad(l) for (l = 0; l < L; l++)
+#endif
+
+/* a * b + c, fused where the instruction set has FMA (as -ffp-contract=fast
+ * contracts the same expression elsewhere). Written out where a sum is
+ * accumulated in a local: GCC's -O3 in-order ("fold-left") vectorisation
+ * of such a sum multiplies first and adds after, not fused, so the same
+ * source gave other bits in the -O3 kernels than in the -O2 objects. */
+#if defined(__FMA__)
+#define MCDI_FMA(a, b, c) fma(a, b, c)
+#else
+#define MCDI_FMA(a, b, c) ((a) * (b) + (c))
+#endif
+
+/* A loop over species (not lanes) that is worth vectorising even where
+ * the loop vectoriser is off (the single-state objects: flux/ms_ldl.c),
+ * e.g. square roots and reciprocals, where the divider is the limit; the
+ * second form with an OR-reduction of the int flag `ntr`. */
+#if defined(_OPENMP) || defined(MCDI_OMP_SIMD)
+#define MCDI_SIMD _Pragma("omp simd")
+#define MCDI_SIMD_OR_NTR _Pragma("omp simd reduction(|:ntr)")
+#else
+#define MCDI_SIMD
+#define MCDI_SIMD_OR_NTR
 #endif
 
 /* out_i = v_i - y_i sum_k w_k v_k in each direction (out may be v), w

@@ -1,7 +1,7 @@
 /* workspace.h - private view of struct mcd_workspace. Never installed.
  *
  * A workspace owns every scratch array that the flux core (maxwell_stefan.c,
- * mixavg.c, fick.c) and the transfer layer need for up to `cap` species, so
+ * ms_ldl.c, fick.c) and the transfer layer need for up to `cap` species, so
  * that no per-state call allocates. All memory is obtained at
  * mcd_workspace_new time through the workspace's allocator.
  *

@@ -11,7 +11,8 @@
  * that the compiler vectorises; the species loops are fully unrolled for
  * N <= 5 and n_dim = 3 (instantiated for each, see block_lanes).
  *
- * Equations: as mcd_flux_compute (maxwell_stefan.c, mixavg.c), with the
+ * Equations: as mcd_flux_compute (maxwell_stefan.c, flux/solve_stages.h),
+ * with the
  * same scaled symmetric positive definite form of the Maxwell-Stefan
  * equations (Ern and Giovangigli 1994):
  *     (Gs + a s s^T) U = b,   s_i = sqrt(x_i),   J_i = c s_i U_i,
@@ -190,7 +191,7 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
                 stage_store(jb, &b, k0, nv, res, n, L, nd);
             return;
         }
-        stage_compose(&b, n, L, nd);
+        stage_compose(&b, ntr, n, L, nd);
     }
     remove_along(b.J, NULL, b.x, n, L, nd); /* zero-sum, weights x */
     if (mass_out && !stage_mass(jb, &b, nv, res, n, L, nd))

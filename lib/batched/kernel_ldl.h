@@ -116,110 +116,26 @@ KINLINE int ldl_solve_v(const size_t n, const size_t nd, mcdi_vd *restrict A,
     return 1;
 }
 
-/* LDL^T of A = Gs + a s s^T one lane row at a time (blocks of L lanes
- * other than the vector width: one cell of a large n), then the solve of
- * L D L^T U = b for each direction, in r. Returns 0 on a pivot that is not
- * > 0 (or NaN). */
-KINLINE int ldl_solve_rows(const mcdi_kblock *b, const double *amax,
-                           const size_t n, const size_t L, const size_t nd)
-{
-    const double *restrict s = b->s, *restrict S = b->S, *restrict x = b->x;
-    double *restrict tri = b->tri, *restrict wk = b->wk, *restrict Dg = b->Dg;
-    double *restrict iDg = b->iDg, *restrict r = b->r;
-    double acc[MCDI_LANES];
-    int sing = 0;
-    size_t i, j, k, dd, l;
-    /* A = Gs + a s s^T in place of invD */
-    for (i = 0; i < n; i++) {
-        double *row = tri + (i * (i + 1) / 2) * L;
-        for (j = 0; j < i; j++)
-            for_lanes (l)
-                row[j * L + l] =
-                    s[i * L + l] * s[j * L + l] * (amax[l] - row[j * L + l]);
-        for_lanes (l)
-            row[i * L + l] = S[i * L + l] + amax[l] * x[i * L + l];
-    }
-    /* LDL^T, left-looking, packed lower */
-    for (j = 0; j < n; j++) {
-        double *Lj = tri + (j * (j + 1) / 2) * L;
-        for (k = 0; k < j; k++)
-            for_lanes (l)
-                wk[k * L + l] = Lj[k * L + l] * Dg[k * L + l];
-        for_lanes (l)
-            acc[l] = Lj[j * L + l];
-        for (k = 0; k < j; k++)
-            for_lanes (l)
-                acc[l] -= Lj[k * L + l] * wk[k * L + l];
-        for_lanes (l) {
-            Dg[j * L + l] = acc[l];
-            sing |= !(acc[l] > 0.0);
-            iDg[j * L + l] = 1.0 / acc[l];
-        }
-        for (i = j + 1; i < n; i++) {
-            double *Li = tri + (i * (i + 1) / 2) * L;
-            for_lanes (l)
-                acc[l] = Li[j * L + l];
-            for (k = 0; k < j; k++)
-                for_lanes (l)
-                    acc[l] -= Li[k * L + l] * wk[k * L + l];
-            for_lanes (l)
-                Li[j * L + l] = acc[l] * iDg[j * L + l];
-        }
-    }
-    if (sing)
-        return 0;
-    for (dd = 0; dd < nd; dd++) {
-        for (i = 0; i < n; i++) {
-            const double *Li = tri + (i * (i + 1) / 2) * L;
-            double *ri = r + (i * nd + dd) * L;
-            for (k = 0; k < i; k++)
-                for_lanes (l)
-                    ri[l] -= Li[k * L + l] * r[(k * nd + dd) * L + l];
-        }
-        for (i = 0; i < n; i++)
-            for_lanes (l)
-                r[(i * nd + dd) * L + l] *= iDg[i * L + l];
-        for (i = n; i-- > 0;) {
-            const double *Li = tri + (i * (i + 1) / 2) * L;
-            double *ri = r + (i * nd + dd) * L;
-            for (k = 0; k < i; k++)
-                for_lanes (l)
-                    r[(k * nd + dd) * L + l] -= Li[k * L + l] * ri[l];
-        }
-    }
-    return 1;
-}
-
-/* Exact model: a = the largest Blanc sum of the species present (of all
- * species for a pure component), then (Gs + a s s^T) U = b solved in r.
- * Returns 0 if some lane's matrix is not positive definite. */
+/* Exact model: the shift a (flux/solve_stages.h), then
+ * (Gs + a s s^T) U = b solved in r: fused on lane vectors for a full
+ * vector block, else by the shared one-lane-row stage. Returns 0 if some
+ * lane's matrix is not positive definite. */
 KINLINE int stage_exact(const mcdi_kblock *b, const size_t n, const size_t L,
                         const size_t nd)
 {
-    const double *restrict S = b->S, *restrict x = b->x;
-    double amax[MCDI_LANES], amax2[MCDI_LANES];
-    size_t i, l;
-    for_lanes (l)
-        amax[l] = amax2[l] = 0.0;
-    for (i = 0; i < n; i++)
-        for_lanes (l) {
-            double Sl = S[i * L + l];
-            double Sp = x[i * L + l] > 0.0 ? Sl : 0.0;
-            amax[l] = Sp > amax[l] ? Sp : amax[l];
-            amax2[l] = Sl > amax2[l] ? Sl : amax2[l];
-        }
-    for_lanes (l)
-        amax[l] = amax[l] > 0.0 ? amax[l] : amax2[l];
+    const mcdi_rows R = rows_of(b);
+    double amax[MCDI_LANES];
+    mcdi_shift_rows(&R, amax, n, L);
     if (L == MCDI_VLANES) {
         /* assembly, LDL^T and both substitutions fused, in registers */
         mcdi_vd av;
         memcpy(&av, amax, sizeof av);
         return ldl_solve_v(n, nd, (mcdi_vd *)b->tri, (const mcdi_vd *)b->s,
-                           (const mcdi_vd *)S, (const mcdi_vd *)x, av,
+                           (const mcdi_vd *)b->S, (const mcdi_vd *)b->x, av,
                            (mcdi_vd *)b->r, (mcdi_vd *)b->Dg, (mcdi_vd *)b->iDg,
                            (mcdi_vd *)b->Wt);
     }
-    return ldl_solve_rows(b, amax, n, L, nd);
+    return mcdi_ldl_rows(&R, amax, n, L, nd);
 }
 
 #endif

@@ -7,6 +7,17 @@
 #ifndef MCD_KERNEL_STAGES_H
 #define MCD_KERNEL_STAGES_H
 
+#include "flux/solve_stages.h"
+
+/* The rows of a block as the shared stages (flux/solve_stages.h) take
+ * them. */
+KINLINE mcdi_rows rows_of(const mcdi_kblock *b)
+{
+    const mcdi_rows R = {b->tri, b->x,  b->s, b->S, b->num, b->minv, b->Dg,
+                         b->iDg, b->wk, b->d, b->t, b->r,   b->J,    b->c};
+    return R;
+}
+
 /* Per-cell scalars: c, or T and P (and c = P / (R T)) of a mixture call. */
 KINLINE int stage_load_scalars(const mcdi_bjob *jb, const mcdi_kblock *b,
                                size_t k0, size_t nv, const size_t L)
@@ -240,7 +251,7 @@ KINLINE void stage_blanc(const mcdi_bjob *jb, const mcdi_kblock *b, int pl,
 {
     double *restrict S = b->S, *restrict num = b->num;
     const double *restrict x = b->x;
-    size_t i, j, l;
+    size_t i, j;
     if (pl) {
         /* S_i = f sum_j C_ij x_j (C_ii = 0) */
         const mcdi_vd *xv = (const mcdi_vd *)x, f = *(const mcdi_vd *)b->f175;
@@ -273,97 +284,32 @@ KINLINE void stage_blanc(const mcdi_bjob *jb, const mcdi_kblock *b, int pl,
             ((mcdi_vd *)num)[i] = an;
         }
     } else {
-        for (i = 0; i < n * L; i++)
-            S[i] = num[i] = 0.0;
-        for (i = 1; i < n; i++)
-            for (j = 0; j < i; j++) {
-                const double *q = b->tri + (i * (i + 1) / 2 + j) * L;
-                for_lanes (l) {
-                    S[i * L + l] += x[j * L + l] * q[l];
-                    S[j * L + l] += x[i * L + l] * q[l];
-                    num[i * L + l] += x[j * L + l];
-                    num[j * L + l] += x[i * L + l];
-                }
-            }
+        const mcdi_rows R = rows_of(b);
+        mcdi_blanc_rows(&R, jb->model != MCD_MODEL_MAXWELL_STEFAN, n, L);
     }
 }
 
-/* Mixture-averaged fluxes: J*_i = -c D_im d_i, D_im = num_i / S_i (the
- * equal-weight harmonic mean for a pure species, as mixavg.c), then
- * J = J* - x sum J* (the zero-sum clean-up of body() runs it again). */
+/* Mixture-averaged fluxes (flux/solve_stages.h); the zero-sum clean-up
+ * of body() runs after them. */
 KINLINE void stage_mixavg(const mcdi_kblock *b, const size_t n, const size_t L,
                           const size_t nd)
 {
-    const double *restrict S = b->S, *restrict num = b->num;
-    const double *restrict x = b->x, *restrict c = b->c, *restrict d = b->d;
-    double *restrict minv = b->minv, *restrict wk = b->wk, *restrict J = b->J;
-    int pure = 0;
-    size_t i, j, dd, l;
-    for (i = 0; i < n * L; i++)
-        pure |= !(S[i] > 0.0);
-    if (pure) {
-        for (i = 0; i < n * L; i++)
-            minv[i] = 0.0;
-        for (i = 1; i < n; i++)
-            for (j = 0; j < i; j++) {
-                const double *q = b->tri + (i * (i + 1) / 2 + j) * L;
-                for_lanes (l) {
-                    minv[i * L + l] += q[l];
-                    minv[j * L + l] += q[l];
-                }
-            }
-    }
-    for (i = 0; i < n; i++)
-        for_lanes (l) {
-            double Sl = S[i * L + l];
-            double Dim = Sl > 0.0 ? num[i * L + l] / Sl
-                                  : (double)(n - 1) / minv[i * L + l];
-            wk[i * L + l] = -Dim;
-        }
-    for (dd = 0; dd < nd; dd++) {
-        double sj[MCDI_LANES];
-        for_lanes (l)
-            sj[l] = 0.0;
-        for (i = 0; i < n; i++)
-            for_lanes (l) {
-                /* c last: c D_im underflows where the flux does not
-                 * (c = 1e-300, Đ = 1e-30: test_edge_cases) */
-                double q = c[l] * (wk[i * L + l] * d[(i * nd + dd) * L + l]);
-                J[(i * nd + dd) * L + l] = q;
-                sj[l] += q;
-            }
-        for (i = 0; i < n; i++)
-            for_lanes (l)
-                J[(i * nd + dd) * L + l] -= x[i * L + l] * sj[l];
-    }
+    const mcdi_rows R = rows_of(b);
+    mcdi_mixavg_rows(&R, n, L, nd);
 }
 
 /* s = sqrt(x); trace fluxes t_i = J_i / c = -d_i / S_i for x_i = 0 (else
- * 0), and their coupling to the species present moved to the right-hand
- * side: d_k -= x_k sum_t t_t / Đ_kt. Returns whether a lane has a trace
- * species. */
+ * 0), and their coupling to the other species moved to the right-hand
+ * side (flux/solve_stages.h); with the shared power-law coefficients (pl)
+ * the inverse diffusivities the coupling reads are filled first. Returns
+ * whether a lane has a trace species (t is written only then). */
 KINLINE int stage_trace(const mcdi_bjob *jb, const mcdi_kblock *b, int pl,
                         const size_t n, const size_t L, const size_t nd)
 {
-    const double *restrict S = b->S, *restrict x = b->x;
-    double *restrict s = b->s, *restrict t = b->t, *restrict d = b->d;
-    int ntr = 0;
-    size_t i, j, dd, l;
-    for (i = 0; i < n * L; i++) {
-        s[i] = sqrt(x[i]);
-        ntr |= !(x[i] > 0.0);
-    }
-    for (i = 0; i < n * nd * L; i++)
-        t[i] = 0.0;
-    if (!ntr)
+    const mcdi_rows R = rows_of(b);
+    size_t i, j, l;
+    if (!mcdi_trace_rows(&R, n, L, nd))
         return 0;
-    for (i = 0; i < n; i++)
-        for (dd = 0; dd < nd; dd++)
-            for_lanes (l) {
-                double Sl = S[i * L + l];
-                double q = -d[(i * nd + dd) * L + l] / (Sl > 0.0 ? Sl : 1.0);
-                t[(i * nd + dd) * L + l] = x[i * L + l] > 0.0 ? 0.0 : q;
-            }
     if (pl)
         for (i = 1; i < n; i++)
             for (j = 0; j < i; j++) {
@@ -373,59 +319,26 @@ KINLINE int stage_trace(const mcdi_bjob *jb, const mcdi_kblock *b, int pl,
                 for_lanes (l)
                     q[l] = f175[l] * ic;
             }
-    for (i = 1; i < n; i++)
-        for (j = 0; j < i; j++) {
-            const double *q = b->tri + (i * (i + 1) / 2 + j) * L;
-            for (dd = 0; dd < nd; dd++)
-                for_lanes (l) {
-                    d[(i * nd + dd) * L + l] -=
-                        x[i * L + l] * t[(j * nd + dd) * L + l] * q[l];
-                    d[(j * nd + dd) * L + l] -=
-                        x[j * L + l] * t[(i * nd + dd) * L + l] * q[l];
-                }
-        }
+    mcdi_trace_couple_rows(&R, n, L, nd);
     return 1;
 }
 
 /* Right-hand side b_i = -d_i / s_i (0 for trace species) into r; wk keeps
- * -1 / s_i (the iteration recomputes b from it). */
+ * -1 / s_i (flux/solve_stages.h). */
 KINLINE void stage_rhs(const mcdi_kblock *b, const size_t n, const size_t L,
                        const size_t nd)
 {
-    const double *restrict s = b->s, *restrict d = b->d;
-    double *restrict wk = b->wk, *restrict r = b->r;
-    size_t i, dd, l;
-    for (i = 0; i < n; i++)
-        for_lanes (l)
-            wk[i * L + l] = s[i * L + l] > 0.0 ? -1.0 / s[i * L + l] : 0.0;
-    for (i = 0; i < n; i++)
-        for (dd = 0; dd < nd; dd++)
-            for_lanes (l)
-                r[(i * nd + dd) * L + l] =
-                    d[(i * nd + dd) * L + l] * wk[i * L + l];
+    const mcdi_rows R = rows_of(b);
+    mcdi_rhs_rows(&R, n, L, nd);
 }
 
-/* Molar fluxes from the solution U: J_i = c (s_i U_i + t_i - x_i sum_t t_t). */
-KINLINE void stage_compose(const mcdi_kblock *b, const size_t n, const size_t L,
-                           const size_t nd)
+/* Molar fluxes from the solution U (flux/solve_stages.h); ntr: the
+ * return of stage_trace. */
+KINLINE void stage_compose(const mcdi_kblock *b, const int ntr, const size_t n,
+                           const size_t L, const size_t nd)
 {
-    const double *restrict s = b->s, *restrict x = b->x, *restrict r = b->r;
-    const double *restrict t = b->t, *restrict c = b->c;
-    double *restrict J = b->J, st[MCDI_LANES];
-    size_t i, dd, l;
-    for (dd = 0; dd < nd; dd++) {
-        for_lanes (l)
-            st[l] = 0.0;
-        for (i = 0; i < n; i++)
-            for_lanes (l)
-                st[l] += t[(i * nd + dd) * L + l];
-        for (i = 0; i < n; i++)
-            for_lanes (l) {
-                size_t e = (i * nd + dd) * L + l;
-                J[e] =
-                    c[l] * (s[i * L + l] * r[e] + t[e] - x[i * L + l] * st[l]);
-            }
-    }
+    const mcdi_rows R = rows_of(b);
+    mcdi_compose_rows(&R, ntr, n, L, nd);
 }
 
 /* Mass fluxes j_i = M_i J_i - w_i sum_k M_k J_k, the residual removed with

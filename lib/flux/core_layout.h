@@ -12,22 +12,26 @@
 #include "base/layout.h"
 #include "base/workspace.h"
 
-/* mcd_flux_compute, with mcdi_ms_fluxes, the L D L^T core and the
- * mixture-averaged fluxes */
+/* mcd_flux_compute and its stages (ms_ldl.c, flux/solve_stages.h: the
+ * rows of mcdi_rows with one lane, and the dense exact solve) */
 /* clang-format off */
 #define MCDI_FLUX_REGIONS(R)                                                \
     R(x, n) R(w, n)              /* mole and mass fractions */             \
     R(gx, n * MCD_MAX_DIM)       /* mole-fraction gradients (mass input) */ \
     R(d, n * MCD_MAX_DIM)        /* driving forces */                      \
     R(J, n * MCD_MAX_DIM)        /* fluxes */                              \
+    R(tri, n * (n + 1) / 2)      /* 1/Đ, packed lower triangle */          \
+    R(s, n)                      /* sqrt(x) */                             \
+    R(S, n)                      /* Blanc sums */                          \
+    R(num, n)                    /* sum_{j != i} x_j */                    \
+    R(minv, n)                   /* harmonic sums of a pure species */     \
+    R(wk, n)                     /* -D_im, -1/s_i */                       \
+    R(t, n * MCD_MAX_DIM)        /* trace fluxes J / c */                  \
+    R(r, n * MCD_MAX_DIM)        /* right-hand side, then U */             \
     R(A, n * n)                  /* Gs + a s s^T and its factor */         \
-    R(Dc, n * n)                 /* Đ of the species present (compact) */  \
-    R(xc, n)                     /* x of the species present */            \
-    R(dc, n * MCD_MAX_DIM)       /* their corrected driving forces */      \
-    R(Y, n * MCD_MAX_DIM)        /* their fluxes */                        \
-    R(sq, n) R(isq, n) R(S, n) R(dinv, n) /* L D L^T core scratch */       \
-    R(den, n) R(num, n)          /* mixture-averaged sums */
-#define MCDI_FLUX_INTS(R) R(pos, n) R(tr, n) /* present, trace species */
+    R(dinv, n)                   /* inverse pivots */                      \
+    R(isq, n)                    /* 1/sqrt(x) (fused exact kernel) */      \
+    R(Yt, n * MCD_MAX_DIM)       /* LAPACK's right-hand sides */
 /* clang-format on */
 
 /* mcd_fick_matrix and mcd_fick_eigenvalues */
@@ -43,8 +47,6 @@
 
 MCDI_DEFINE_LAYOUT(mcdi_flux_view, MCDI_FLUX_REGIONS, mcdi_flux_doubles,
                    mcdi_flux_carve)
-MCDI_DEFINE_LAYOUT_OF(mcdi_flux_iview, int, MCDI_LAYOUT_IFIELD, MCDI_FLUX_INTS,
-                      mcdi_flux_ints, mcdi_flux_icarve)
 MCDI_DEFINE_LAYOUT(mcdi_fick_view, MCDI_FICK_REGIONS, mcdi_fick_doubles,
                    mcdi_fick_carve)
 MCDI_DEFINE_LAYOUT_OF(mcdi_fick_iview, int, MCDI_LAYOUT_IFIELD, MCDI_FICK_INTS,
@@ -58,16 +60,13 @@ static inline size_t mcdi_core_doubles(size_t cap)
 }
 static inline size_t mcdi_core_ints(size_t cap)
 {
-    size_t a = mcdi_flux_ints(cap, 0, 1), b = mcdi_fick_ints(cap, 0, 1);
-    return a > b ? a : b;
+    return mcdi_fick_ints(cap, 0, 1);
 }
 
 /* The views of ws's core bank. */
-static inline void mcdi_flux_scratch(mcd_workspace *ws, mcdi_flux_view *v,
-                                     mcdi_flux_iview *iv)
+static inline void mcdi_flux_scratch(mcd_workspace *ws, mcdi_flux_view *v)
 {
     mcdi_flux_carve(ws->core_mem, ws->cap, 0, 1, v);
-    mcdi_flux_icarve(ws->core_int, ws->cap, 0, 1, iv);
 }
 static inline void mcdi_fick_scratch(mcd_workspace *ws, mcdi_fick_view *v,
                                      mcdi_fick_iview *iv)

@@ -231,14 +231,15 @@ static void fick_to_mass_basis(size_t n, size_t dep, const double *M,
     }
 }
 
-mcd_status mcdi_fick_matrix_args(mcd_workspace *ws, size_t n_species,
-                                 const double *M, const double *Dij,
-                                 mcd_basis comp_basis, const double *comp,
-                                 const double *Gamma, mcd_basis basis,
-                                 size_t dependent, double *out_D,
-                                 size_t *out_dependent)
+mcd_status mcdi_api_fick_matrix(mcd_workspace *ws, const mcd_state *state,
+                                mcd_basis basis, size_t dependent,
+                                double *out_D, size_t *out_dependent)
 {
-    const size_t n = n_species;
+    static const mcd_state none; /* read only after the NULL check below */
+    const mcd_state *s = state != NULL ? state : &none;
+    const size_t n = s->n_species;
+    const double *M = s->M, *Dij = s->Dij, *comp = s->comp, *Gamma = s->Gamma;
+    const mcd_basis comp_basis = s->comp_basis;
     size_t m, dep, r, q;
     int need_M;
     double *x, *w, *B, *X, *cs, *t, *qv;
@@ -249,6 +250,8 @@ mcd_status mcdi_fick_matrix_args(mcd_workspace *ws, size_t n_species,
 
     if (ws == NULL)
         return MCD_EINVAL;
+    if (state == NULL)
+        return mcdi_fail(MCD_EINVAL, "argument state: NULL");
     if ((st = mcdi_check_species(ws, n, 1, 0, "n_species")) != MCD_OK ||
         (st = mcdi_check_basis(ws, comp_basis, "comp_basis")) != MCD_OK ||
         (st = mcdi_check_basis(ws, basis, "basis")) != MCD_OK)

@@ -1,5 +1,5 @@
 /* flux_core.h - private declarations shared by the flux core files
- * (maxwell_stefan.c, mixavg.c, fick.c). Never installed.
+ * (maxwell_stefan.c, ms_ldl.c, fick.c). Never installed.
  *
  * Argument checks live in checks.h (included here); kernels do no
  * validation.
@@ -39,26 +39,42 @@ static inline void mcdi_flux_zero_sum(size_t n, size_t nd, const double *x,
     remove_along(J, NULL, x, n, 1, nd);
 }
 
-/* Exact Maxwell-Stefan diffusion fluxes J (n x nd, molar frame) for
- * normalised x and driving forces d (n x nd) with sum_i d_i = 0.
- * Scratch: the regions A, Dc, xc, dc, Y, sq, isq, S, dinv, pos, tr of
- * the core bank (core_layout.h); x, d and J must not be any of those
- * (mcd_flux_compute passes its x, d, J regions). Fails with ESING
- * (round-off made the matrix indefinite). Defined in maxwell_stefan.c. */
-mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
-                          const double *x, const double *d, const double *Dij,
-                          double c, double *J);
+/* The dense scratch of the one-lane exact solve (ms_ldl.c): A (n*n),
+ * dinv (n), Yt (n*nd, LAPACK's column-major right-hand sides). */
+typedef struct mcdi_dense {
+    double *A, *dinv, *Yt;
+} mcdi_dense;
 
-/* Dense core of mcdi_ms_fluxes for m >= 2 species all present (xp > 0):
- * assembles Gs + a s s^T from Đ (upper triangle of Dp, row stride ld),
- * factors it as L D L^T and solves for the fluxes c s U, returned in Y
- * (m x nd, row-major) for the driving forces dp (m x nd row-major,
- * summing to zero). Scratch: A (m*m),
- * sq, isq, S, dinv (m each), Yt (m*nd; may be dp, which is read only by
- * the assembly); Y (m*nd) distinct from dp. Returns 0, or k+1 when pivot k
- * is not positive. Above 24 species the factor and solves are LAPACK's
- * dpotrf/dpotrs (*_work: no allocation). One definition per instruction
- * set (ms_ldl.c compiled once per set). */
+/* The fluxes of one state after its driving forces, by the stages the
+ * batched kernel runs (flux/solve_stages.h) with one lane: R->x
+ * (normalised mole fractions), R->d (driving forces projected onto
+ * sum_i d_i = 0) and R->c in; R->J out (molar frame, before the zero-sum
+ * clean-up); the other rows of R and D are scratch (R->Dg, R->iDg
+ * unused). model: exact (MCD_MODEL_MAXWELL_STEFAN) or
+ * MCD_MODEL_MIXTURE_AVERAGED; Dij: n x n, read from the upper triangle.
+ * The exact solve is a dense up-looking L D L^T (LAPACK's dpotrf/dpotrs
+ * `_work` above 24 species: no allocation). Returns 0, or k+1 when the
+ * pivot of species k is not positive. One definition per instruction set
+ * (ms_ldl.c compiled once per set). */
+struct mcdi_rows;
+#define MCDI_MS_ROWS_DECL(name)                                                \
+    size_t name(const struct mcdi_rows *R, const mcdi_dense *D,                \
+                mcd_model model, size_t n, size_t nd, const double *Dij)
+MCDI_MS_ROWS_DECL(mcdi_ms_rows_v3);
+MCDI_MS_ROWS_DECL(mcdi_ms_rows_v1);
+typedef MCDI_MS_ROWS_DECL((*mcdi_ms_rows_fn));
+mcdi_ms_rows_fn mcdi_ms_rows_select(void);
+
+/* The exact model for m >= 2 species, all present (xp > 0), and at most
+ * MCDI_MS_FUSED_N of them: the same equations and the same L D L^T as
+ * mcdi_ms_rows with the Blanc sums, shift, assembly and right-hand side
+ * fused into a few passes (the stages' separate passes cost 4-8 % of a
+ * call at N = 3..20, measured). Đ: upper triangle of Dp (row stride ld);
+ * dp: driving forces (m x nd row-major, summing to zero); fluxes c s U
+ * into Y (m x nd), distinct from dp. Scratch: A (m*m), sq, isq, S, dinv
+ * (m each), Yt (m*nd; may be dp). Returns 0, or k+1 when pivot k is not
+ * positive. One definition per instruction set (ms_ldl.c). */
+#define MCDI_MS_FUSED_N 24
 #define MCDI_MS_LDL_DECL(name)                                                 \
     size_t name(size_t m, size_t nd, const double *xp, const double *Dp,       \
                 size_t ld, const double *dp, double c, double *A, double *sq,  \
@@ -66,37 +82,9 @@ mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
 MCDI_MS_LDL_DECL(mcdi_ms_ldl_v3);
 MCDI_MS_LDL_DECL(mcdi_ms_ldl_v1);
 typedef MCDI_MS_LDL_DECL((*mcdi_ms_ldl_fn));
-/* The variant for the instruction set chosen at run time (kernel_isa.c);
- * returned as a pointer so that the caller's call is direct (forwarding
+/* The variants for the instruction set chosen at run time (base/isa.c);
+ * returned as pointers so that the caller's call is direct (forwarding
  * 14 arguments through a dispatching function cost 8 % of an N = 3 call). */
 mcdi_ms_ldl_fn mcdi_ms_ldl_select(void);
-
-/* Mixture-averaged diffusion fluxes J (n x nd, molar frame, zero-sum
- * restored with weights x). den and num are scratch arrays of length n
- * (distinct from x, d, J). Defined in mixavg.c. */
-void mcdi_mixavg_fluxes(size_t n, size_t nd, const double *x, const double *d,
-                        const double *Dij, double c, double *J, double *den,
-                        double *num);
-
-/* Mixture-averaged diffusivity D_im [m^2/s] of species i (see mixavg.c for
- * the x_i = 1 limit). */
-double mcdi_mixavg_dim(size_t n, size_t i, const double *x, const double *Dij);
-
-/* The single-state calls with the fields of mcd_state as arguments
- * (flux/state.c unpacks the struct; the transfer layer calls them
- * directly). Same checks, messages and results as the public calls. */
-mcd_status mcdi_flux_compute_args(mcd_workspace *ws, mcd_model model,
-                                  size_t n_species, size_t n_dim,
-                                  const double *M, const double *Dij, double c,
-                                  mcd_basis comp_basis, const double *comp,
-                                  const double *grad_comp, const double *Gamma,
-                                  const double *grad_lnP, mcd_basis flux_basis,
-                                  double *out_flux);
-mcd_status mcdi_fick_matrix_args(mcd_workspace *ws, size_t n_species,
-                                 const double *M, const double *Dij,
-                                 mcd_basis comp_basis, const double *comp,
-                                 const double *Gamma, mcd_basis basis,
-                                 size_t dependent, double *out_D,
-                                 size_t *out_dependent);
 
 #endif

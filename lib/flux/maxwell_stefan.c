@@ -52,10 +52,16 @@
  * involved. A pure component (one x_k = 1) is the case of a single species
  * present: it takes J_k = -S_T. N = 1 gives zero flux.
  *
- * Factorisation: L D L^T without pivoting or square roots (ms_ldl.c),
- * fused with the assembly and the solves; the species present are
- * gathered into compact arrays only when some species is a trace. Cost
- * m(m-1)/2 + 3m divisions and square roots, m^3/6 + m^2 n_dim multiply-adds.
+ * The pipeline after the driving forces is the batched kernel's
+ * (flux/solve_stages.h) with one lane, in ms_ldl.c: inverse diffusivities,
+ * Blanc sums, then the mixture-averaged fluxes, or the trace fluxes and
+ * their coupling, the right-hand side, the shift a, L D L^T without
+ * pivoting or square roots on the dense matrix (trace species are
+ * decoupled rows: s_i = 0) and the composition J = c (s U + t - x S_T).
+ * States without trace species up to MCDI_MS_FUSED_N species take the
+ * fused kernel of the same equations and the same factor (flux_core.h).
+ * Cost n(n-1)/2 + 3n divisions and square roots, n^3/6 + n^2 n_dim
+ * multiply-adds.
  *
  * Zero-sum clean-up: after the solve the residual r = sum_i J_i (round-off
  * only) is removed with weights x (J_i -= x_i r), again leaving trace
@@ -71,6 +77,7 @@
 #include "flux/flux_core.h"
 #include "flux/core_layout.h"
 #include "flux/stages.h"
+#include "flux/solve_stages.h"
 #include "base/isa.h"
 
 /* ------------------------------------------------------------------ */
@@ -102,114 +109,6 @@ size_t mcdi_flux_most_abundant(size_t n, const double *x)
     return best;
 }
 
-/* Binary diffusivity of pair (i, j), i != j, always read from the upper
- * triangle so that the assembled matrices are exactly symmetric. */
-static inline double dij_pair(const double *Dij, size_t n, size_t i, size_t j)
-{
-    return i < j ? Dij[i * n + j] : Dij[j * n + i];
-}
-
-/* ------------------------------------------------------------------ */
-/* exact Maxwell-Stefan kernel                                          */
-/* ------------------------------------------------------------------ */
-
-mcd_status mcdi_ms_fluxes(mcd_workspace *ws, size_t n, size_t nd,
-                          const double *x, const double *d, const double *Dij,
-                          double c, double *J)
-{
-    mcdi_flux_view v;
-    mcdi_flux_iview iv;
-    double ST[MCD_MAX_DIM] = {0.0, 0.0, 0.0};
-    const mcdi_ms_ldl_fn ms_ldl = mcdi_ms_ldl_select();
-    size_t m = 0, nt = 0, i, k, l, dd, bad;
-
-    mcdi_flux_scratch(ws, &v, &iv); /* iv.pos: present, iv.tr: trace */
-    if (n == 1) {
-        for (dd = 0; dd < nd; dd++)
-            J[dd] = 0.0;
-        return MCD_OK;
-    }
-    for (i = 0; i < n; i++) {
-        if (x[i] > 0.0)
-            iv.pos[m++] = (int)i;
-        else
-            iv.tr[nt++] = (int)i;
-    }
-    /* m >= 1 because the fractions sum to 1. */
-
-    if (nt == 0) {
-        /* every species present: solve in place, no gathering */
-        bad = ms_ldl(n, nd, x, Dij, n, d, c, v.A, v.sq, v.isq, v.S, v.dinv, J,
-                     v.dc);
-        if (bad != 0)
-            goto not_definite;
-        goto zero_sum;
-    }
-
-    /* Trace species: Blanc's law, exact. tv = J / c = -d / S is kept
-     * (in v.Y, which the solve writes only later) for the coupling below. */
-    for (k = 0; k < nt; k++) {
-        size_t it = (size_t)iv.tr[k];
-        double s = 0.0;
-        for (l = 0; l < m; l++)
-            s += x[iv.pos[l]] / dij_pair(Dij, n, it, (size_t)iv.pos[l]);
-        for (dd = 0; dd < nd; dd++) {
-            double tq = -d[it * nd + dd] / s, Ji = c * tq;
-            v.Y[k * nd + dd] = tq;
-            J[it * nd + dd] = Ji;
-            ST[dd] += Ji;
-        }
-    }
-
-    if (m == 1) {
-        /* pure component: it balances the trace fluxes */
-        size_t ip = (size_t)iv.pos[0];
-        for (dd = 0; dd < nd; dd++)
-            J[ip * nd + dd] = -ST[dd];
-        goto zero_sum;
-    }
-
-    /* Gather the species present: x, Đ (upper triangle), and the driving
-     * forces with the trace terms moved over,
-     * d_i - x_i sum_T (J_t / c) / Đ_it: c-free, as in the batched kernel
-     * (dividing by c Đ underflowed to 0 for c = 1e-300, Đ = 1e-30 although
-     * every flux was representable: test_edge_cases). */
-    for (k = 0; k < m; k++) {
-        size_t ik = (size_t)iv.pos[k];
-        v.xc[k] = x[ik];
-        for (l = k + 1; l < m; l++)
-            v.Dc[k * m + l] = dij_pair(Dij, n, ik, (size_t)iv.pos[l]);
-        for (dd = 0; dd < nd; dd++) {
-            double dti = d[ik * nd + dd];
-            for (l = 0; l < nt; l++) {
-                size_t it = (size_t)iv.tr[l];
-                dti -= x[ik] * v.Y[l * nd + dd] / dij_pair(Dij, n, ik, it);
-            }
-            v.dc[k * nd + dd] = dti;
-        }
-    }
-    bad = ms_ldl(m, nd, v.xc, v.Dc, m, v.dc, c, v.A, v.sq, v.isq, v.S, v.dinv,
-                 v.Y, v.dc /* dead after the assembly */);
-    if (bad != 0)
-        goto not_definite;
-    /* the species present take the uniform velocity -S_T / c */
-    for (k = 0; k < m; k++) {
-        size_t ik = (size_t)iv.pos[k];
-        for (dd = 0; dd < nd; dd++)
-            J[ik * nd + dd] = v.Y[k * nd + dd] - x[ik] * ST[dd];
-    }
-
-zero_sum:
-    mcdi_flux_zero_sum(n, nd, x, J); /* trace species stay exact */
-    return MCD_OK;
-
-not_definite:
-    return mcdi_fail(MCD_ESING,
-                     "Maxwell-Stefan matrix not positive definite at "
-                     "pivot %zu (round-off; check Dij scale)",
-                     (size_t)iv.pos[bad - 1]);
-}
-
 /* Whether the mass fluxes F (n x nd) still sum to zero after the
  * clean-up. j_i = M_i J_i - w_i sum_k M_k J_k cancels when the molar
  * masses span many decades (found by fuzz_flux: M = 1.3e-163 next to
@@ -235,36 +134,33 @@ int mcdi_mass_zero_sum_kept(size_t n, size_t nd, const double *F)
 /* public entry                                                         */
 /* ------------------------------------------------------------------ */
 
-/* Every argument of mcd_flux_compute, in the documented order (writes
- * nothing but the message). */
-static mcd_status check_state(mcd_workspace *ws, mcd_model model, size_t n,
-                              size_t nd, const double *M, const double *Dij,
-                              double c, mcd_basis comp_basis,
-                              const double *comp, const double *grad_comp,
-                              const double *Gamma, const double *grad_lnP,
-                              mcd_basis flux_basis, const double *out_flux,
-                              int need_M)
+/* Every argument of mcd_flux_compute and field of its state, in the
+ * documented order (writes nothing but the message). */
+static mcd_status check_state(mcd_workspace *ws, mcd_model model,
+                              const mcd_state *s, mcd_basis flux_basis,
+                              const double *out_flux, int need_M)
 {
+    const size_t n = s->n_species, nd = s->n_dim;
     mcd_status st;
     if ((st = mcdi_check_species(ws, n, 1, 0, "n_species")) != MCD_OK ||
         (st = mcdi_check_dim(ws, nd)) != MCD_OK ||
         (st = mcdi_check_model(ws, model, 0)) != MCD_OK ||
-        (st = mcdi_check_basis(ws, comp_basis, "comp_basis")) != MCD_OK ||
+        (st = mcdi_check_basis(ws, s->comp_basis, "comp_basis")) != MCD_OK ||
         (st = mcdi_check_basis(ws, flux_basis, "flux_basis")) != MCD_OK ||
         (st = mcdi_check_ptr(ws, out_flux, "out_flux")) != MCD_OK ||
-        (st = mcdi_check_conc(ws, c, "c")) != MCD_OK)
+        (st = mcdi_check_conc(ws, s->c, "c")) != MCD_OK)
         return st;
-    if (need_M && (st = mcdi_check_M(ws, n, M)) != MCD_OK)
+    if (need_M && (st = mcdi_check_M(ws, n, s->M)) != MCD_OK)
         return st;
-    if ((st = mcdi_check_dij(ws, n, Dij)) != MCD_OK ||
-        (st = mcdi_check_comp(ws, n, comp, "comp")) != MCD_OK ||
-        (st = mcdi_check_finite(ws, n, nd, grad_comp, "grad")) != MCD_OK)
+    if ((st = mcdi_check_dij(ws, n, s->Dij)) != MCD_OK ||
+        (st = mcdi_check_comp(ws, n, s->comp, "comp")) != MCD_OK ||
+        (st = mcdi_check_finite(ws, n, nd, s->grad, "grad")) != MCD_OK)
         return st;
-    if (Gamma != NULL &&
-        (st = mcdi_check_finite(ws, n, n, Gamma, "Gamma")) != MCD_OK)
+    if (s->Gamma != NULL &&
+        (st = mcdi_check_finite(ws, n, n, s->Gamma, "Gamma")) != MCD_OK)
         return st;
-    if (grad_lnP != NULL &&
-        (st = mcdi_check_finite(ws, 1, nd, grad_lnP, "grad_lnP")) != MCD_OK)
+    if (s->grad_lnP != NULL &&
+        (st = mcdi_check_finite(ws, 1, nd, s->grad_lnP, "grad_lnP")) != MCD_OK)
         return st;
     return MCD_OK;
 }
@@ -300,30 +196,70 @@ static mcd_status emit_checked(mcd_workspace *ws, size_t n, size_t nd,
     return MCD_OK;
 }
 
-mcd_status mcdi_flux_compute_args(mcd_workspace *ws, mcd_model model,
-                                  size_t n_species, size_t n_dim,
-                                  const double *M, const double *Dij, double c,
-                                  mcd_basis comp_basis, const double *comp,
-                                  const double *grad_comp, const double *Gamma,
-                                  const double *grad_lnP, mcd_basis flux_basis,
-                                  double *out_flux)
+/* Whether every species is present (x_i > 0): one branch-free pass. */
+static int all_present(size_t n, const double *x)
 {
-    const size_t n = n_species, nd = n_dim;
+    int ok = 1;
+    size_t i;
+    for (i = 0; i < n; i++)
+        ok &= x[i] > 0.0;
+    return ok;
+}
+
+/* The fluxes of the state in v (x, d) into v.J, then the zero-sum
+ * clean-up (weights x: trace species stay exact). The stages the batched
+ * kernel runs, with one lane (ms_ldl.c, flux/solve_stages.h); the exact
+ * model without trace species up to MCDI_MS_FUSED_N species by the fused
+ * kernel of the same equations (flux_core.h says why). */
+static mcd_status solve_state(mcd_workspace *ws, const mcdi_flux_view *v,
+                              mcd_model model, size_t n, size_t nd,
+                              const double *Dij, double c)
+{
+    size_t bad;
+    if (model == MCD_MODEL_MAXWELL_STEFAN && n <= MCDI_MS_FUSED_N &&
+        all_present(n, v->x)) {
+        bad = mcdi_ms_ldl_select()(n, nd, v->x, Dij, n, v->d, c, v->A, v->s,
+                                   v->isq, v->S, v->dinv, v->J, v->Yt);
+    } else {
+        /* no Dg, iDg: the one-lane exact solve keeps its pivots in D */
+        const mcdi_rows R = {v->tri, v->x,  v->s, v->S, v->num, v->minv, NULL,
+                             NULL,   v->wk, v->d, v->t, v->r,   v->J,    &c};
+        const mcdi_dense D = {v->A, v->dinv, v->Yt};
+        bad = mcdi_ms_rows_select()(&R, &D, model, n, nd, Dij);
+    }
+    if (bad != 0)
+        return mcdi_fail(MCD_ESING,
+                         "Maxwell-Stefan matrix not positive definite at "
+                         "pivot %zu (round-off; check Dij scale)",
+                         bad - 1);
+    mcdi_flux_zero_sum(n, nd, v->x, v->J);
+    return MCD_OK;
+}
+
+mcd_status mcdi_api_flux_compute(mcd_workspace *ws, mcd_model model,
+                                 const mcd_state *state, mcd_basis flux_basis,
+                                 double *out_flux)
+{
+    static const mcd_state none; /* read only after the NULL check below */
+    const mcd_state *s = state != NULL ? state : &none;
+    const size_t n = s->n_species, nd = s->n_dim;
+    const double *M = s->M, *Dij = s->Dij, c = s->c;
+    const mcd_basis comp_basis = s->comp_basis;
     const int need_M = comp_basis == MCD_BASIS_MASS ||
-                       flux_basis == MCD_BASIS_MASS || grad_lnP != NULL;
+                       flux_basis == MCD_BASIS_MASS || s->grad_lnP != NULL;
     double *x, *w, *d, *J;
     const double *gx;
     mcdi_flux_view v;
-    mcdi_flux_iview iv;
     size_t dd;
     mcd_status st;
 
     if (ws == NULL)
         return MCD_EINVAL;
+    if (state == NULL)
+        return mcdi_fail(MCD_EINVAL, "argument state: NULL");
     /* validate everything before writing anything */
-    if ((st = check_state(ws, model, n, nd, M, Dij, c, comp_basis, comp,
-                          grad_comp, Gamma, grad_lnP, flux_basis, out_flux,
-                          need_M)) != MCD_OK)
+    if ((st = check_state(ws, model, s, flux_basis, out_flux, need_M)) !=
+        MCD_OK)
         return st;
     if (n == 1) {
         for (dd = 0; dd < nd; dd++)
@@ -332,25 +268,21 @@ mcd_status mcdi_flux_compute_args(mcd_workspace *ws, mcd_model model,
     }
 
     /* compute into workspace scratch */
-    mcdi_flux_scratch(ws, &v, &iv);
+    mcdi_flux_scratch(ws, &v);
     x = v.x;
     w = need_M ? v.w : NULL;
     d = v.d;
     J = v.J;
-    mcdi_flux_fractions(n, need_M ? M : NULL, comp_basis, comp, x, w);
+    mcdi_flux_fractions(n, need_M ? M : NULL, comp_basis, s->comp, x, w);
     if (comp_basis == MCD_BASIS_MOLE) {
-        gx = grad_comp;
+        gx = s->grad;
     } else {
-        mcdi_comp_grad_w_to_x(n, nd, M, w, grad_comp, v.gx);
+        mcdi_comp_grad_w_to_x(n, nd, M, w, s->grad, v.gx);
         gx = v.gx;
     }
-    mcdi_driving_forces(n, 1, nd, x, w, gx, Gamma, grad_lnP, d);
-    if (model == MCD_MODEL_MAXWELL_STEFAN) {
-        if ((st = mcdi_ms_fluxes(ws, n, nd, x, d, Dij, c, J)) != MCD_OK)
-            return st;
-    } else {
-        mcdi_mixavg_fluxes(n, nd, x, d, Dij, c, J, v.den, v.num);
-    }
+    mcdi_driving_forces(n, 1, nd, x, w, gx, s->Gamma, s->grad_lnP, d);
+    if ((st = solve_state(ws, &v, model, n, nd, Dij, c)) != MCD_OK)
+        return st;
     if (flux_basis == MCD_BASIS_MASS)
         mcdi_mass_fluxes(n, 1, nd, M, w, J);
     return emit_checked(ws, n, nd, J, flux_basis, out_flux);
@@ -366,5 +298,16 @@ mcdi_ms_ldl_fn mcdi_ms_ldl_select(void)
     case 3: return mcdi_ms_ldl_v3;
 #endif
     default: return mcdi_ms_ldl_v1;
+    }
+}
+
+mcdi_ms_rows_fn mcdi_ms_rows_select(void)
+{
+    switch (mcdi_isa()) {
+#if defined(MCDI_HAVE_KISA)
+    case 4:
+    case 3: return mcdi_ms_rows_v3;
+#endif
+    default: return mcdi_ms_rows_v1;
     }
 }

@@ -1,8 +1,11 @@
-/* ms_ldl.c - the dense core of the single-state exact Maxwell-Stefan solve
- * (mcd_flux_compute): assembly of the regularised symmetric matrix for the
- * species present, LDL^T factorisation without pivoting or square roots,
- * and the two triangular solves, all in one routine on the stack-free
- * workspace scratch.
+/* ms_ldl.c - the single-state fluxes after the driving forces
+ * (mcd_flux_compute): the stages of flux/solve_stages.h, the batched
+ * kernel's, run with one lane (mcdi_ms_rows), with the exact solve on a
+ * dense matrix: assembly of the regularised symmetric matrix, LDL^T
+ * factorisation without pivoting or square roots, and the two triangular
+ * solves (LAPACK above MCDI_MS_LAPACK_N species). States without trace
+ * species and at most MCDI_MS_FUSED_N species take mcdi_ms_ldl, the same
+ * equations and the same factor with the assembly fused (flux_core.h).
  *
  * Equations: see the top comment of maxwell_stefan.c. For the m species
  * present (x_k > 0), with s_k = sqrt(x_k) and R_kl = 1 / Đ_kl,
@@ -36,6 +39,7 @@
 
 #include "base/mcd_internal.h"
 #include "flux/flux_core.h"
+#include "flux/solve_stages.h"
 
 /* Compiled once per instruction set (MCDI_KISA = 3 or 1 with the matching
  * -march, see lib/meson.build); kernel_isa.c hands out the one to call. */
@@ -44,6 +48,8 @@
 #endif
 #define MSNAME_(isa) mcdi_ms_ldl_v##isa
 #define MSNAME(isa) MSNAME_(isa)
+#define RNAME_(isa) mcdi_ms_rows_v##isa
+#define RNAME(isa) RNAME_(isa)
 
 #if defined(__GNUC__)
 #define MINLINE static inline __attribute__((always_inline))
@@ -148,13 +154,135 @@ static size_t solve_lapack(size_t m, size_t nd, double *A, double *Y,
     return 0;
 }
 
+/* Factor A = L D L^T (lower triangle and diagonal of the dense m x m A
+ * hold the matrix) and solve in place for U in Y (m x nd row-major):
+ * LAPACK above MCDI_MS_LAPACK_N species, else the up-looking loops.
+ * skip_zero (a constant at each call): skip zero multipliers, the rows and
+ * columns of trace species (a branch per multiplier that costs the fused
+ * no-trace kernel 2-3 % at N = 10). Returns 0 or k+1 for pivot k. */
+MINLINE size_t ldl_dense(size_t m, size_t nd, double *A, double *dinv,
+                         double *Y, double *Yt, const int skip_zero)
+{
+    size_t i, j, p;
+    if (m > MCDI_MS_LAPACK_N)
+        return solve_lapack(m, nd, A, Y, Yt);
+    /* Up-looking L D L^T. Row i of the lower triangle turns from A_ij into
+     * W_ij = L_ij D_j by updates with rows of L^T, which are kept in the
+     * upper triangle (A[p m + j] = L_jp): each update is a contiguous
+     * multiply-add over j, independent across j (no dot-product chains). */
+    for (i = 0; i < m; i++) {
+        double *Ai = A + i * m, di = Ai[i];
+        for (p = 0; p < i; p++) {
+            double *Up = A + p * m;
+            const double w = Ai[p], l = w * dinv[p];
+            if (skip_zero &&
+                w == 0.0) { /* a trace species' row or column: nothing */
+                Ai[p] = Up[i] = 0.0;
+                continue;
+            }
+            di -= w * l;
+            for (j = p + 1; j < i; j++)
+                Ai[j] -= w * Up[j];
+            Ai[p] = l;
+            Up[i] = l;
+        }
+        if (!(di > 0.0))
+            return i + 1;
+        dinv[i] = 1.0 / di;
+    }
+    /* L y = rhs by rows of L^T, D z = y, L^T u = z by rows of L; the
+     * directions are interleaved in the inner loop (independent chains) */
+    if (nd == 3)
+        solve_ldl3(m, A, dinv, Y);
+    else
+        solve_ldl(m, nd, A, dinv, Y);
+    return 0;
+}
+
+/* The exact solve of one state in the stages (L = 1): A = Gs + a s s^T
+ * assembled into the lower triangle and the diagonal of the dense A
+ * (m x m) from the stage rows (1/Đ packed in tri, s, S, x, a), then
+ * ldl_dense on Y (the rows' r). Trace species are decoupled rows
+ * (s_i = 0: zero off-diagonal entries). Returns 0 or k+1 for pivot k. */
+MINLINE size_t exact_dense(size_t m, size_t nd, const mcdi_rows *R, double a,
+                           double *A, double *dinv, double *Y, double *Yt)
+{
+    const double *tri = R->tri, *s = R->s, *S = R->S, *x = R->x;
+    size_t i, j;
+    for (i = 0; i < m; i++) {
+        double *Ai = A + i * m;
+        const double *Ti = tri + i * (i + 1) / 2, si = s[i];
+        for (j = 0; j < i; j++)
+            Ai[j] = si * s[j] * (a - Ti[j]);
+        Ai[i] = S[i] + a * x[i];
+    }
+    return ldl_dense(m, nd, A, dinv, Y, Yt, 1);
+}
+
+/* The stages after the driving forces for constant nd (flux/solve_stages.h,
+ * the same as the batched kernel's, with one lane). */
+MINLINE size_t rows_body(const mcdi_rows *R, const mcdi_dense *D,
+                         mcd_model model, const size_t n, const size_t nd)
+{
+    double a;
+    size_t bad;
+    int ntr;
+    mcdi_blanc_rows(R, model == MCD_MODEL_MIXTURE_AVERAGED, n, 1);
+    if (model == MCD_MODEL_MIXTURE_AVERAGED) {
+        mcdi_mixavg_rows(R, n, 1, nd);
+        return 0;
+    }
+    ntr = mcdi_trace_rows(R, n, 1, nd);
+    if (ntr)
+        mcdi_trace_couple_rows(R, n, 1, nd);
+    mcdi_rhs_rows(R, n, 1, nd);
+    mcdi_shift_rows(R, &a, n, 1);
+    bad = exact_dense(n, nd, R, a, D->A, D->dinv, R->r, D->Yt);
+    if (bad != 0)
+        return bad;
+    mcdi_compose_rows(R, ntr, n, 1, nd);
+    return 0;
+}
+
+size_t RNAME(MCDI_KISA)(const mcdi_rows *R, const mcdi_dense *D,
+                        mcd_model model, size_t n, size_t nd, const double *Dij)
+{
+    size_t i, j;
+    /* 1/Đ from the upper triangle (exactly symmetric matrices, as the
+     * batched kernel) into the packed lower one: row i is column i of
+     * the upper triangle (vectorised: the divider is the bottleneck here,
+     * 190 reciprocals at n = 20) */
+    for (i = 1; i < n; i++) {
+        double *Ti = R->tri + i * (i + 1) / 2;
+        SIMD_LOOP
+        for (j = 0; j < i; j++)
+            Ti[j] = 1.0 / Dij[j * n + i];
+    }
+    if (nd != 3)
+        return rows_body(R, D, model, n, nd);
+    /* a few species as constants, so that the species loops unroll (the
+     * states that reach here at small n have a trace species, or are
+     * mixture-averaged) */
+    switch (n) {
+    case 3: return rows_body(R, D, model, 3, 3);
+    case 4: return rows_body(R, D, model, 4, 3);
+    case 5: return rows_body(R, D, model, 5, 3);
+    default: return rows_body(R, D, model, n, 3);
+    }
+}
+
+/* The exact model for a state without trace species and at most
+ * MCDI_MS_FUSED_N species (see maxwell_stefan.c): the Blanc sums, the
+ * shift, the assembly and the right-hand side fused into a few passes
+ * over the dense A (the stages cost 4-8 % more there, measured), then
+ * the same ldl_dense. */
 size_t MSNAME(MCDI_KISA)(size_t m, size_t nd, const double *xp,
                          const double *Dp, size_t ld, const double *dp,
                          double c, double *A, double *sq, double *isq,
                          double *S, double *dinv, double *Y, double *Yt)
 {
     double a = 0.0;
-    size_t i, j, p, dd;
+    size_t i, j, dd;
 
     /* vectorised: at m = 10 the divider is the bottleneck of the assembly
      * (square roots, reciprocals); +8 % of this routine, measured */
@@ -196,38 +324,11 @@ size_t MSNAME(MCDI_KISA)(size_t m, size_t nd, const double *xp,
         for (dd = 0; dd < nd; dd++)
             Y[i * nd + dd] = -dp[i * nd + dd] * isq[i];
     }
-    if (m > MCDI_MS_LAPACK_N) {
-        size_t bad = solve_lapack(m, nd, A, Y, Yt);
+    {
+        size_t bad = ldl_dense(m, nd, A, dinv, Y, Yt, 0);
         if (bad != 0)
             return bad;
-        goto scale;
     }
-    /* Up-looking L D L^T. Row i of the lower triangle turns from A_ij into
-     * W_ij = L_ij D_j by updates with rows of L^T, which are kept in the
-     * upper triangle (A[p m + j] = L_jp): each update is a contiguous
-     * multiply-add over j, independent across j (no dot-product chains). */
-    for (i = 0; i < m; i++) {
-        double *Ai = A + i * m, di = Ai[i];
-        for (p = 0; p < i; p++) {
-            double *Up = A + p * m;
-            const double w = Ai[p], l = w * dinv[p];
-            di -= w * l;
-            for (j = p + 1; j < i; j++)
-                Ai[j] -= w * Up[j];
-            Ai[p] = l;
-            Up[i] = l;
-        }
-        if (!(di > 0.0))
-            return i + 1;
-        dinv[i] = 1.0 / di;
-    }
-    /* L y = rhs by rows of L^T, D z = y, L^T u = z by rows of L; the
-     * directions are interleaved in the inner loop (independent chains) */
-    if (nd == 3)
-        solve_ldl3(m, A, dinv, Y);
-    else
-        solve_ldl(m, nd, A, dinv, Y);
-scale:
     /* J = c (s U), in this order: s U is at most U, while c s can
      * underflow (c near DBL_MIN, a near-trace species) and lose a flux
      * the others balance (found by fuzz_flux: c = 7e-304, x = 1.6e-60) */

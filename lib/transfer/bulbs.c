@@ -107,6 +107,21 @@ static mcd_status bulbs_check(mcd_workspace *ws, const mcd_bulbs *b,
 /* Linearized theory                                                   */
 /* ------------------------------------------------------------------ */
 
+/* The Fick matrix (molar frame, ideal gas) at the mean composition xbar,
+ * the most abundant species dependent (its index into *dep). */
+static mcd_status mean_fick_matrix(mcd_workspace *ws, size_t n,
+                                   const double *Dij, const double *xbar,
+                                   double *Dm, size_t *dep)
+{
+    mcd_state mean = {0};
+    mean.n_species = n;
+    mean.comp_basis = MCD_BASIS_MOLE;
+    mean.Dij = Dij;
+    mean.comp = xbar;
+    return mcdi_api_fick_matrix(ws, &mean, MCD_BASIS_MOLE, MCD_DEPENDENT_AUTO,
+                                Dm, dep);
+}
+
 mcd_status mcdi_api_bulbs_linearized(mcd_workspace *ws, const mcd_bulbs *bulbs,
                                      size_t n_times, const double *t,
                                      double *out_x1, double *out_x2)
@@ -151,8 +166,7 @@ mcd_status mcdi_api_bulbs_linearized(mcd_workspace *ws, const mcd_bulbs *bulbs,
 
     for (i = 0; i < n; i++)
         xbar[i] = (V1 * x1n[i] + V2 * x2n[i]) / (V1 + V2);
-    st = mcdi_fick_matrix_args(ws, n, NULL, Dij, MCD_BASIS_MOLE, xbar, NULL,
-                               MCD_BASIS_MOLE, MCD_DEPENDENT_AUTO, Dm, &d);
+    st = mean_fick_matrix(ws, n, Dij, xbar, Dm, &d);
     if (st != MCD_OK)
         return st;
     m = n - 1;
