@@ -524,10 +524,11 @@ typedef enum mcd_model {
                                           species with a zero-sum correction */
     MCD_MODEL_ITERATIVE = 2          /**< Maxwell-Stefan by the convergent
                                           iteration of Ern and Giovangigli
-                                          (1994), O(N^2) per iteration;
-                                          batched calls only (EINVAL in
-                                          mcd_flux_compute). It pays off
-                                          only for large N: measured slower
+                                          (1994), O(N^2) per iteration
+                                          (in mcd_flux_compute too since
+                                          0.2, as a batch of one cell).
+                                          It pays off only for large N in
+                                          batched calls: measured slower
                                           than the exact batched model up
                                           to N = 50, 1.5x faster at
                                           N = 100 (tol 1e-7). Since 0.1. */
@@ -877,7 +878,8 @@ MCD_API mcd_status mcd_flux_batch_aos(mcd_workspace *ws,
 MCD_API mcd_status mcd_workspace_set_iterative(mcd_workspace *ws,
                                                size_t max_iter, double tol);
 
-/** Outcome of the last batched ITERATIVE call on this workspace: the
+/** Outcome of the last ITERATIVE call on this workspace (batched, or
+ *  mcd_flux_compute, which counts as one cell): the
  *  largest error estimate over its cells, relative to the largest flux of
  *  the cell (max_i |J_i - J_i,exact| / max_i |J_i|, estimated from the
  *  observed contraction of successive iterates; iterates that differ by

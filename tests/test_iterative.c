@@ -255,6 +255,83 @@ START_TEST(iterative_first_iterate_is_mixture_averaged_and_counts_iterations)
 }
 END_TEST
 
+/* mcd_flux_compute with MCD_MODEL_ITERATIVE is the batched iteration on a
+ * batch of one cell: mcd_flux_batch_dij with K = 1 to round-off (the single
+ * state hands over its projected forces, projected once more there); with a thermodynamic factor, mass fractions or
+ * trace species it agrees with the exact model to the reported error
+ * estimate; the workspace's outcome is that call's. */
+START_TEST(iterative_single_state_is_a_batch_of_one)
+{
+    enum { NMAX = 12 };
+    mcd_workspace *ws = NULL;
+    double D[NMAX * NMAX], x[NMAX], M[NMAX], g[NMAX * 3], G[NMAX * NMAX];
+    double Ji[NMAX * 3], Jb[NMAX * 3], Jx[NMAX * 3], c = 40.0;
+    ck_assert_int_eq(mcd_workspace_new(NMAX, &ws), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_set_iterative(ws, 1000, 1e-13), MCD_OK);
+    sup_seed(&rng, 77);
+    for (int trial = 0; trial < 300; trial++) {
+        size_t n = 2 + (size_t)(sup_u01(&rng) * (NMAX - 1)), nd = 1 + trial % 3;
+        int kind = trial % 4; /* 0 ideal mole, 1 Gamma, 2 mass, 3 trace */
+        double err = -1.0, scale;
+        size_t its = 0;
+        sup_dij_decades(&rng, n, D, -6.0, -4.0);
+        sup_fractions(&rng, n, 0.05, x);
+        if (kind == 3) { /* a trace species */
+            double rest = 1.0 - x[n - 1];
+            x[n - 1] = 0.0;
+            for (size_t i = 0; i + 1 < n; i++)
+                x[i] /= rest;
+        }
+        for (size_t i = 0; i < n; i++)
+            M[i] = sup_molar_mass(&rng);
+        sup_gradients_zero_mean(&rng, n, nd, -50.0, 50.0, g);
+        for (size_t i = 0; i < n; i++)
+            for (size_t j = 0; j < n; j++)
+                G[i * n + j] = (i == j) + 0.05 * sup_range(&rng, -1.0, 1.0);
+        mcd_state st = {.n_species = n,
+                        .n_dim = nd,
+                        .c = c,
+                        .M = M,
+                        .Dij = D,
+                        .comp = x,
+                        .grad = g};
+        if (kind == 1)
+            st.Gamma = G;
+        if (kind == 2)
+            st.comp_basis = MCD_BASIS_MASS;
+        {
+            mcd_status r = mcd_flux_compute(ws, MCD_MODEL_ITERATIVE, &st,
+                                            MCD_BASIS_MOLE, Ji);
+            ck_assert_msg(r == MCD_OK, "trial %d kind %d n %zu: %d %s", trial,
+                          kind, n, r, mcd_last_error());
+        }
+        ck_assert_int_eq(mcd_workspace_iterative_outcome(ws, &err, &its),
+                         MCD_OK);
+        ck_assert(err >= 0.0 && err <= 1e-12 && its >= 1);
+        ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &st,
+                                          MCD_BASIS_MOLE, Jx),
+                         MCD_OK);
+        scale = sup_max_abs(Jx, n * nd);
+        for (size_t k = 0; k < n * nd; k++)
+            ck_assert_msg(fabs(Ji[k] - Jx[k]) <= 1e-10 * scale,
+                          "trial %d kind %d n %zu: %g vs %g", trial, kind, n,
+                          Ji[k], Jx[k]);
+        if (kind == 0) {
+            mcd_cells one = {.n_cells = 1, .n_dim = nd, .comp = x, .grad = g};
+            ck_assert_int_eq(mcd_flux_batch_dij(ws, MCD_MODEL_ITERATIVE, n,
+                                                NULL, D, &c, &one,
+                                                MCD_BASIS_MOLE, Jb),
+                             MCD_OK);
+            for (size_t k = 0; k < n * nd; k++)
+                ck_assert_msg(fabs(Ji[k] - Jb[k]) <= 1e-13 * scale,
+                              "trial %d: entry %zu %g vs %g", trial, k, Ji[k],
+                              Jb[k]);
+        }
+    }
+    mcd_workspace_free(ws);
+}
+END_TEST
+
 int main(void)
 {
     Suite *s = suite_create("mcd:iterative");
@@ -265,6 +342,7 @@ int main(void)
     tcase_add_test(tc, iterative_error_estimate_is_honest);
     tcase_add_test(
         tc, iterative_first_iterate_is_mixture_averaged_and_counts_iterations);
+    tcase_add_test(tc, iterative_single_state_is_a_batch_of_one);
     suite_add_tcase(s, tc);
     return sup_run(s);
 }

@@ -468,3 +468,17 @@ mcd_status mcdi_api_workspace_set_threads(mcd_workspace *ws, size_t n_threads)
     ws->threads_req = n_threads;
     return MCD_OK;
 }
+
+mcd_status mcdi_batch_iterate_one(mcd_workspace *ws, size_t n, size_t nd,
+                                  const double *x, const double *d,
+                                  const double *Dij, double c, double *J)
+{
+    mcd_cells one = {0};
+    one.n_cells = 1;
+    one.n_dim = nd;
+    one.comp_basis = MCD_BASIS_MOLE;
+    one.comp = x;
+    one.grad = d; /* the forces, already with Gamma and grad ln P terms */
+    return mcdi_api_flux_batch_dij(ws, MCD_MODEL_ITERATIVE, n, NULL, Dij, &c,
+                                   &one, MCD_BASIS_MOLE, J);
+}

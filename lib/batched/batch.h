@@ -107,4 +107,13 @@ void mcdi_batch_block_v1(const mcdi_bjob *job, size_t k0, size_t nv,
 extern const size_t mcdi_batch_lanes_v4, mcdi_batch_lanes_v3,
     mcdi_batch_lanes_v1;
 
+/* MCD_MODEL_ITERATIVE for one state (mcd_flux_compute): the molar fluxes
+ * J (n x nd) from mole fractions x and driving forces d, as a batched call
+ * of one cell (the layouts coincide for K = 1); the workspace's iteration
+ * outcome is that call's. Inputs already validated. An mcdi_state_solver
+ * (flux/flux_core.h). */
+mcd_status mcdi_batch_iterate_one(mcd_workspace *ws, size_t n, size_t nd,
+                                  const double *x, const double *d,
+                                  const double *Dij, double c, double *J);
+
 #endif

@@ -87,4 +87,18 @@ typedef MCDI_MS_LDL_DECL((*mcdi_ms_ldl_fn));
  * 14 arguments through a dispatching function cost 8 % of an N = 3 call). */
 mcdi_ms_ldl_fn mcdi_ms_ldl_select(void);
 
+/* Molar diffusion fluxes J (n x nd, molar frame) of one state from its
+ * mole fractions x and driving forces d by a solver of another layer (the
+ * iterative model runs in the batched layer: mcdi_batch_iterate_one). */
+typedef mcd_status (*mcdi_state_solver)(mcd_workspace *ws, size_t n, size_t nd,
+                                        const double *x, const double *d,
+                                        const double *Dij, double c, double *J);
+
+/* mcd_flux_compute (maxwell_stefan.c) with the solver of
+ * MCD_MODEL_ITERATIVE given by the caller (api/flux_compute.c); iterate
+ * NULL makes that model EINVAL. */
+mcd_status mcdi_flux_state(mcd_workspace *ws, mcd_model model,
+                           const mcd_state *state, mcd_basis flux_basis,
+                           double *out_flux, mcdi_state_solver iterate);
+
 #endif

@@ -138,13 +138,14 @@ int mcdi_mass_zero_sum_kept(size_t n, size_t nd, const double *F)
  * documented order (writes nothing but the message). */
 static mcd_status check_state(mcd_workspace *ws, mcd_model model,
                               const mcd_state *s, mcd_basis flux_basis,
-                              const double *out_flux, int need_M)
+                              const double *out_flux, int need_M,
+                              int iterative_ok)
 {
     const size_t n = s->n_species, nd = s->n_dim;
     mcd_status st;
     if ((st = mcdi_check_species(ws, n, 1, 0, "n_species")) != MCD_OK ||
         (st = mcdi_check_dim(ws, nd)) != MCD_OK ||
-        (st = mcdi_check_model(ws, model, 0)) != MCD_OK ||
+        (st = mcdi_check_model(ws, model, iterative_ok)) != MCD_OK ||
         (st = mcdi_check_basis(ws, s->comp_basis, "comp_basis")) != MCD_OK ||
         (st = mcdi_check_basis(ws, flux_basis, "flux_basis")) != MCD_OK ||
         (st = mcdi_check_ptr(ws, out_flux, "out_flux")) != MCD_OK ||
@@ -236,9 +237,9 @@ static mcd_status solve_state(mcd_workspace *ws, const mcdi_flux_view *v,
     return MCD_OK;
 }
 
-mcd_status mcdi_api_flux_compute(mcd_workspace *ws, mcd_model model,
-                                 const mcd_state *state, mcd_basis flux_basis,
-                                 double *out_flux)
+mcd_status mcdi_flux_state(mcd_workspace *ws, mcd_model model,
+                           const mcd_state *state, mcd_basis flux_basis,
+                           double *out_flux, mcdi_state_solver iterate)
 {
     static const mcd_state none; /* read only after the NULL check below */
     const mcd_state *s = state != NULL ? state : &none;
@@ -258,8 +259,8 @@ mcd_status mcdi_api_flux_compute(mcd_workspace *ws, mcd_model model,
     if (state == NULL)
         return mcdi_fail(MCD_EINVAL, "argument state: NULL");
     /* validate everything before writing anything */
-    if ((st = check_state(ws, model, s, flux_basis, out_flux, need_M)) !=
-        MCD_OK)
+    if ((st = check_state(ws, model, s, flux_basis, out_flux, need_M,
+                          iterate != NULL)) != MCD_OK)
         return st;
     if (n == 1) {
         for (dd = 0; dd < nd; dd++)
@@ -281,7 +282,10 @@ mcd_status mcdi_api_flux_compute(mcd_workspace *ws, mcd_model model,
         gx = v.gx;
     }
     mcdi_driving_forces(n, 1, nd, x, w, gx, s->Gamma, s->grad_lnP, d);
-    if ((st = solve_state(ws, &v, model, n, nd, Dij, c)) != MCD_OK)
+    st = model == MCD_MODEL_ITERATIVE
+             ? iterate(ws, n, nd, x, d, Dij, c, J)
+             : solve_state(ws, &v, model, n, nd, Dij, c);
+    if (st != MCD_OK)
         return st;
     if (flux_basis == MCD_BASIS_MASS)
         mcdi_mass_fluxes(n, 1, nd, M, w, J);

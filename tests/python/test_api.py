@@ -518,8 +518,10 @@ class Fluxes(unittest.TestCase):
         Jp = mcdiff.flux_compute(D, c, x, g, M=M, grad_lnP=[50.0])
         self.assertGreater(max_abs_diff(Jp, mcdiff.flux_compute(D, c, x, g)),
                            0.0)
-        with self.assertRaises(mcdiff.InvalidArgumentError):
-            mcdiff.flux_compute(D, c, x, g, model="iterative")
+        # the iterative model at one state: the exact fluxes to its tolerance
+        Jx = flat(mcdiff.flux_compute(D, c, x, g))
+        Ji = flat(mcdiff.flux_compute(D, c, x, g, model="iterative"))
+        self.assertLess(max_abs_diff(Ji, Jx), 1e-8 * max_abs(Jx))
 
     def test_fick_matrix_options_and_eigenvalues(self):
         rng = Rng(9)

@@ -74,7 +74,7 @@ class Model(enum.IntEnum):
     """Flux model (mcd_model)."""
     MAXWELL_STEFAN = 0
     MIXTURE_AVERAGED = 1
-    ITERATIVE = 2  # batched calls only
+    ITERATIVE = 2
 
 
 class Bootstrap(enum.IntEnum):
