@@ -40,7 +40,7 @@ extern "C" {
 /* ------------------------------------------------------------------ */
 
 #define MCD_VERSION_MAJOR 0
-#define MCD_VERSION_MINOR 1
+#define MCD_VERSION_MINOR 2
 #define MCD_VERSION_PATCH 0
 #define MCD_VERSION_NUMBER \
     (MCD_VERSION_MAJOR * 10000 + MCD_VERSION_MINOR * 100 + MCD_VERSION_PATCH)
