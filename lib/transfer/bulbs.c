@@ -129,8 +129,7 @@ mcd_status mcdi_api_bulbs_linearized(mcd_workspace *ws, const mcd_bulbs *bulbs,
     double *x1n, *x2n, *xbar, *dl0, *wr, *wi, *coef, *dl;
     double *Dm, *Ac, *VR, *LU, *work;
     mcdi_tf tf;
-    double beta, f1, f2, wmax = 0.0, V1, V2, A, L;
-    const double *Dij;
+    double beta, f1, f2, wmax = 0.0;
     size_t n, m, d, i, j, k, lwork = 0;
     int use_eig = 1;
     lapack_int info, *ipiv;
@@ -141,11 +140,6 @@ mcd_status mcdi_api_bulbs_linearized(mcd_workspace *ws, const mcd_bulbs *bulbs,
     if (bulbs == NULL)
         return mcdi_fail(MCD_EINVAL, "argument bulbs: NULL");
     n = bulbs->n_species;
-    Dij = bulbs->Dij;
-    V1 = bulbs->V1;
-    V2 = bulbs->V2;
-    A = bulbs->A;
-    L = bulbs->L;
     mcdi_tf_scratch(ws, &tf);
     x1n = tf.b_x1n;
     x2n = tf.b_x2n;
@@ -165,14 +159,16 @@ mcd_status mcdi_api_bulbs_linearized(mcd_workspace *ws, const mcd_bulbs *bulbs,
     ipiv = (lapack_int *)ws->tf_ipiv;
 
     for (i = 0; i < n; i++)
-        xbar[i] = (V1 * x1n[i] + V2 * x2n[i]) / (V1 + V2);
-    st = mean_fick_matrix(ws, n, Dij, xbar, Dm, &d);
+        xbar[i] =
+            (bulbs->V1 * x1n[i] + bulbs->V2 * x2n[i]) / (bulbs->V1 + bulbs->V2);
+    st = mean_fick_matrix(ws, n, bulbs->Dij, xbar, Dm, &d);
     if (st != MCD_OK)
         return st;
     m = n - 1;
-    beta = A * (V1 + V2) / (L * V1 * V2);
-    f1 = V2 / (V1 + V2);
-    f2 = V1 / (V1 + V2);
+    beta =
+        bulbs->A * (bulbs->V1 + bulbs->V2) / (bulbs->L * bulbs->V1 * bulbs->V2);
+    f1 = bulbs->V2 / (bulbs->V1 + bulbs->V2);
+    f2 = bulbs->V1 / (bulbs->V1 + bulbs->V2);
     for (i = 0, k = 0; i < n; i++)
         if (i != d)
             dl0[k++] = x1n[i] - x2n[i];
@@ -426,8 +422,7 @@ mcd_status mcdi_api_bulbs_integrate(mcd_workspace *ws, const mcd_bulbs *bulbs,
                                     double rel_tol, double *out_x1,
                                     double *out_x2)
 {
-    double *x1n, *x2n, *tot, Dmax = 0.0, h0, c, V1, V2, A, L;
-    const double *Dij;
+    double *x1n, *x2n, *tot, Dmax = 0.0, h0;
     mcdi_tf tf;
     integ g;
     size_t n, i;
@@ -438,12 +433,6 @@ mcd_status mcdi_api_bulbs_integrate(mcd_workspace *ws, const mcd_bulbs *bulbs,
     if (bulbs == NULL)
         return mcdi_fail(MCD_EINVAL, "argument bulbs: NULL");
     n = bulbs->n_species;
-    Dij = bulbs->Dij;
-    c = bulbs->c;
-    V1 = bulbs->V1;
-    V2 = bulbs->V2;
-    A = bulbs->A;
-    L = bulbs->L;
     mcdi_tf_scratch(ws, &tf);
     x1n = tf.b_x1n;
     x2n = tf.b_x2n;
@@ -459,25 +448,26 @@ mcd_status mcdi_api_bulbs_integrate(mcd_workspace *ws, const mcd_bulbs *bulbs,
     if (n_times == 0)
         return MCD_OK;
     for (i = 0; i < n; i++)
-        tot[i] = V1 * x1n[i] + V2 * x2n[i];
+        tot[i] = bulbs->V1 * x1n[i] + bulbs->V2 * x2n[i];
     for (i = 0; i < n * n; i++)
-        if (i / n != i % n && Dij[i] > Dmax)
-            Dmax = Dij[i];
+        if (i / n != i % n && bulbs->Dij[i] > Dmax)
+            Dmax = bulbs->Dij[i];
     memset(&g, 0, sizeof g);
     g.ws = ws;
     g.n = n;
-    g.Dij = Dij;
-    g.c = c;
-    g.L = L;
-    g.V1 = V1;
-    g.V2 = V2;
-    g.rate1 = A / (c * V1);
+    g.Dij = bulbs->Dij;
+    g.c = bulbs->c;
+    g.L = bulbs->L;
+    g.V1 = bulbs->V1;
+    g.V2 = bulbs->V2;
+    g.rate1 = bulbs->A / (bulbs->c * bulbs->V1);
     g.tot = tot;
     g.x1c = tf.b_x1c;
     g.x2c = tf.b_x2c;
     g.N = tf.b_N;
     /* first step: a small fraction of the fastest relaxation time */
-    h0 = 1e-3 * L * V1 * V2 / (A * (V1 + V2) * Dmax);
+    h0 = 1e-3 * bulbs->L * bulbs->V1 * bulbs->V2 /
+         (bulbs->A * (bulbs->V1 + bulbs->V2) * Dmax);
     st = integrate(&g, x1n, n_times, t, rel_tol, h0, 0, NULL, NULL);
     if (st != MCD_OK)
         return st;

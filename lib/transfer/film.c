@@ -759,27 +759,21 @@ mcd_status mcdi_api_film_solve(mcd_workspace *ws, const mcd_film *fm,
     double *x0n, *xLn, *Nres;
     mcdi_tf tf;
     size_t n, i, its = 0;
-    const double *Dij, *x0, *xL;
-    double c, L, res = 0.0;
+    double res = 0.0;
     mcd_status st;
 
     if (fm == NULL)
         return mcdi_fail(MCD_EINVAL, "argument film: NULL");
     n = fm->n_species;
-    Dij = fm->Dij;
-    c = fm->c;
-    L = fm->L;
-    x0 = fm->x0;
-    xL = fm->xL;
     if ((st = film_check_head(ws, n, out_N, "out_N", method)) != MCD_OK ||
-        (st = film_check_state(ws, n, Dij, c, L)) != MCD_OK)
+        (st = film_check_state(ws, n, fm->Dij, fm->c, fm->L)) != MCD_OK)
         return st;
     mcdi_tf_scratch(ws, &tf);
     x0n = tf.x0n;
     xLn = tf.xLn;
     Nres = tf.Nres;
-    if ((st = mcdi_tf_check_comp(ws, n, x0, "x0", x0n)) != MCD_OK ||
-        (st = mcdi_tf_check_comp(ws, n, xL, "xL", xLn)) != MCD_OK)
+    if ((st = mcdi_tf_check_comp(ws, n, fm->x0, "x0", x0n)) != MCD_OK ||
+        (st = mcdi_tf_check_comp(ws, n, fm->xL, "xL", xLn)) != MCD_OK)
         return st;
 
     switch (kind) {
@@ -828,8 +822,8 @@ mcd_status mcdi_api_film_solve(mcd_workspace *ws, const mcd_film *fm,
         return mcdi_fail(MCD_EINVAL, "argument kind: unknown value %d",
                          (int)kind);
     }
-    st = mcdi_film_core(ws, n, Dij, c, L, x0n, xLn, kind, species, values,
-                        method, Nres, &its, &res);
+    st = mcdi_film_core(ws, n, fm->Dij, fm->c, fm->L, x0n, xLn, kind, species,
+                        values, method, Nres, &its, &res);
     if (st != MCD_OK)
         return st;
     memcpy(out_N, Nres, n * sizeof(double));
@@ -846,24 +840,19 @@ mcd_status mcdi_api_film_profile(mcd_workspace *ws, const mcd_film *fm,
 {
     double *x0n, *slot[3];
     mcdi_tf tf;
-    double norm = 0.0, c, L;
-    const double *Dij, *x0;
+    double norm = 0.0;
     size_t n, i, j, p;
     mcd_status st;
 
     if (fm == NULL)
         return mcdi_fail(MCD_EINVAL, "argument film: NULL");
     n = fm->n_species;
-    Dij = fm->Dij;
-    c = fm->c;
-    L = fm->L;
-    x0 = fm->x0;
     if ((st = film_check_head(ws, n, NULL, NULL, MCD_FILM_EXACT)) != MCD_OK ||
-        (st = film_check_state(ws, n, Dij, c, L)) != MCD_OK)
+        (st = film_check_state(ws, n, fm->Dij, fm->c, fm->L)) != MCD_OK)
         return st;
     mcdi_tf_scratch(ws, &tf);
     x0n = tf.x0n;
-    if ((st = mcdi_tf_check_comp(ws, n, x0, "x0", x0n)) != MCD_OK)
+    if ((st = mcdi_tf_check_comp(ws, n, fm->x0, "x0", x0n)) != MCD_OK)
         return st;
     if (N == NULL)
         return mcdi_fail(MCD_EINVAL, "argument N: NULL");
@@ -880,7 +869,7 @@ mcd_status mcdi_api_film_profile(mcd_workspace *ws, const mcd_film *fm,
         if (!mcdi_finite(z[p]))
             return mcdi_fail(MCD_EINVAL, "argument z: entry %zu is not finite",
                              p);
-        if (!(z[p] >= 0 && z[p] <= L))
+        if (!(z[p] >= 0 && z[p] <= fm->L))
             return mcdi_fail(MCD_EDOM,
                              "argument z: entry %zu = %g is not in [0, L]", p,
                              z[p]);
@@ -890,16 +879,16 @@ mcd_status mcdi_api_film_profile(mcd_workspace *ws, const mcd_film *fm,
         double col = 0.0;
         for (i = 0; i < n; i++)
             if (i != j)
-                col += 2.0 * fabs(N[i]) / Dij[i * n + j];
+                col += 2.0 * fabs(N[i]) / fm->Dij[i * n + j];
         norm = fmax(norm, col);
     }
-    norm *= L / c;
+    norm *= fm->L / fm->c;
     if (!(norm <= PROFILE_MAX_RATE))
         return mcdi_fail(MCD_EDOM, "rate factor %g too large for a profile",
                          norm);
 
     for (p = 0; p < n_points; p++) {
-        double sc = z[p] / c;
+        double sc = z[p] / fm->c;
         slot[0] = tf.mat0;
         slot[1] = tf.mat1;
         slot[2] = tf.mat2;
@@ -908,8 +897,8 @@ mcd_status mcdi_api_film_profile(mcd_workspace *ws, const mcd_film *fm,
             for (j = 0; j < n; j++) {
                 if (j == i)
                     continue;
-                diag += N[j] / Dij[i * n + j];
-                slot[0][i * n + j] = -sc * N[i] / Dij[i * n + j];
+                diag += N[j] / fm->Dij[i * n + j];
+                slot[0][i * n + j] = -sc * N[i] / fm->Dij[i * n + j];
             }
             slot[0][i * n + i] = sc * diag;
         }
