@@ -65,11 +65,19 @@ typedef struct bulbs_in {
 
 static mcd_status bulbs_check(mcd_workspace *ws, const mcd_bulbs *b,
                               size_t n_times, const double *t, double *out_x1,
-                              double *out_x2, int monotone, double *x1n,
-                              double *x2n)
+                              double *out_x2, int monotone, mcdi_tf *tf)
 {
     mcd_status st;
-    size_t k, n = b->n_species;
+    size_t k, n;
+    double *x1n, *x2n;
+    if (ws == NULL)
+        return MCD_EINVAL;
+    if (b == NULL)
+        return mcdi_fail(MCD_EINVAL, "argument bulbs: NULL");
+    n = b->n_species;
+    mcdi_tf_scratch(ws, tf);
+    x1n = tf->b_x1n;
+    x2n = tf->b_x2n;
     if ((st = mcdi_tf_check_ws_n(ws, n)) != MCD_OK ||
         (st = mcdi_check_dij(ws, n, b->Dij)) != MCD_OK ||
         (st = mcdi_check_positive(ws, b->c, "c")) != MCD_OK ||
@@ -135,19 +143,14 @@ mcd_status mcdi_api_bulbs_linearized(mcd_workspace *ws, const mcd_bulbs *bulbs,
     lapack_int info, *ipiv;
     mcd_status st;
 
-    if (ws == NULL)
-        return MCD_EINVAL;
-    if (bulbs == NULL)
-        return mcdi_fail(MCD_EINVAL, "argument bulbs: NULL");
+    st = bulbs_check(ws, bulbs, n_times, t, out_x1, out_x2, 0, &tf);
+    if (st != MCD_OK || n_times == 0)
+        return st;
     n = bulbs->n_species;
-    mcdi_tf_scratch(ws, &tf);
     x1n = tf.b_x1n;
     x2n = tf.b_x2n;
     xbar = tf.b_xbar;
     dl0 = tf.b_dl0;
-    st = bulbs_check(ws, bulbs, n_times, t, out_x1, out_x2, 0, x1n, x2n);
-    if (st != MCD_OK || n_times == 0)
-        return st;
     wr = tf.b_wr;
     wi = tf.b_wi;
     coef = tf.b_coef;
@@ -428,18 +431,13 @@ mcd_status mcdi_api_bulbs_integrate(mcd_workspace *ws, const mcd_bulbs *bulbs,
     size_t n, i;
     mcd_status st;
 
-    if (ws == NULL)
-        return MCD_EINVAL;
-    if (bulbs == NULL)
-        return mcdi_fail(MCD_EINVAL, "argument bulbs: NULL");
+    st = bulbs_check(ws, bulbs, n_times, t, out_x1, out_x2, 1, &tf);
+    if (st != MCD_OK)
+        return st;
     n = bulbs->n_species;
-    mcdi_tf_scratch(ws, &tf);
     x1n = tf.b_x1n;
     x2n = tf.b_x2n;
     tot = tf.b_tot;
-    st = bulbs_check(ws, bulbs, n_times, t, out_x1, out_x2, 1, x1n, x2n);
-    if (st != MCD_OK)
-        return st;
     if (!mcdi_finite(rel_tol))
         return mcdi_fail(MCD_EINVAL, "argument rel_tol: not finite");
     if (!(rel_tol >= 1e-12 && rel_tol <= 1e-2))
