@@ -1223,52 +1223,59 @@ def _wrapped(api):
             if f.ret.c_text == "mcd_status"]
 
 
-def _c_call(head, items, tail, indent):
-    """head(item, item, ...)tail wrapped at 79 columns."""
-    lines, cur = [], head
-    for k, it in enumerate(items):
-        piece = it + (", " if k + 1 < len(items) else tail)
-        if len(cur) + len(piece.rstrip()) > 79 and cur.strip():
-            lines.append(cur.rstrip())
-            cur = " " * indent
-        cur += piece
-    lines.append(cur.rstrip())
-    return lines
-
-
 def generate_c_impl_header(api):
+    """One row per wrapped call in the list macro MCDI_API_LIST(X):
+    X(name without "mcd_", (parameters), (arguments)). The header
+    expands it once into the prototypes of mcdi_api_<name>; entry.c
+    expands it into the exported wrappers. One row each, so that the
+    wrappers are not hundreds of lines of the same shape."""
     L = ["/* " + STAMP + ".",
-         " * Prototypes of the implementations behind the exported wrappers",
-         " * of lib/api/entry.c: mcdi_api_<name> implements mcd_<name> (same",
-         " * parameters). Included by base/mcd_internal.h. */",
+         " * The public calls that return an mcd_status, as the list macro",
+         " * MCDI_API_LIST(X): X(name without \"mcd_\", (parameters),",
+         " * (arguments)). Expanded here into the prototypes of the",
+         " * implementations (mcdi_api_<name> implements mcd_<name>, same",
+         " * parameters) and in lib/api/entry.c into the exported wrappers.",
+         " * Included by base/mcd_internal.h. */",
          "#ifndef MCD_API_IMPL_H", "#define MCD_API_IMPL_H", "",
-         '#include "mcdiff.h"', ""]
+         '#include "mcdiff.h"', "", "/* clang-format off */",
+         "#define MCDI_API_LIST(X) \\"]
+    rows = []
     for f in _wrapped(api):
-        head = "mcd_status %s(" % impl_name(f.name)
-        L += _c_call(head, [p.c_text for p in f.params] or ["void"], ");",
-                     len(head))
-    L += ["", "#endif", ""]
+        params = ", ".join(p.c_text for p in f.params) or "void"
+        args = ", ".join(p.name for p in f.params)
+        rows.append("    X(%s, (%s), (%s))" % (f.name[len("mcd_"):],
+                                            params, args))
+    L += [r + " \\" for r in rows[:-1]] + rows[-1:]
+    L += ["/* clang-format on */", "",
+          "#define MCDI_API_PROTOTYPE(name, params, args) \\",
+          "    mcd_status mcdi_api_##name params;",
+          "MCDI_API_LIST(MCDI_API_PROTOTYPE)",
+          "#undef MCDI_API_PROTOTYPE", "", "#endif", ""]
     return "\n".join(L)
 
 
 def generate_c_entry(api):
     L = ["/* " + STAMP + ".",
          " * The exported definition of every public call that returns an",
-         " * mcd_status. Each clears the calling thread's error detail, runs",
-         " * its implementation (mcdi_api_<name>, base/api_impl.h) and, on a",
-         " * failure that wrote no detail, writes \"<function>: <status>\",",
-         " * so that mcd_last_error describes every failing call. */",
-         '#include "base/error.h"', '#include "base/mcd_internal.h"', ""]
-    for f in _wrapped(api):
-        head = "MCD_API mcd_status %s(" % f.name
-        L += _c_call(head, [p.c_text for p in f.params] or ["void"], ")",
-                     len(head))
-        L += ["{", "    mcd_status st;", "    mcdi_err_clear();"]
-        L += _c_call("    st = %s(" % impl_name(f.name),
-                     [p.name for p in f.params], ");", 8)
-        L += ["    if (st != MCD_OK)",
-              '        mcdi_err_settle(st, "%s");' % f.name,
-              "    return st;", "}", ""]
+         " * mcd_status, one per row of MCDI_API_LIST (base/api_impl.h).",
+         " * Each clears the calling thread's error detail, runs its",
+         " * implementation mcdi_api_<name> and, on a failure that wrote no",
+         " * detail, writes \"<function>: <status>\", so that mcd_last_error",
+         " * describes every failing call. The prototypes the wrappers",
+         " * define are the header's (mcdiff.h), so the compiler checks",
+         " * that the list and the header agree. */",
+         '#include "base/error.h"', '#include "base/mcd_internal.h"', "",
+         "#define MCDI_API_ENTRY(name, params, args) \\",
+         "    MCD_API mcd_status mcd_##name params \\",
+         "    { \\",
+         "        mcd_status st; \\",
+         "        mcdi_err_clear(); \\",
+         "        st = mcdi_api_##name args; \\",
+         "        if (st != MCD_OK) \\",
+         "            mcdi_err_settle(st, \"mcd_\" #name); \\",
+         "        return st; \\",
+         "    }", "",
+         "MCDI_API_LIST(MCDI_API_ENTRY)", ""]
     return "\n".join(L)
 
 

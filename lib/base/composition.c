@@ -59,6 +59,21 @@ mcd_status mcdi_comp_check(size_t n, const double *y, double *out_sum)
     return MCD_OK;
 }
 
+mcd_status mcdi_comp_nonneg_total(size_t n, const double *v, double *out_sum)
+{
+    double s = 0.0;
+    size_t i;
+    for (i = 0; i < n; i++) {
+        if (!(v[i] >= 0.0))
+            return MCD_EDOM;
+        s += v[i];
+    }
+    if (!(s > 0.0) || !mcdi_finite(s))
+        return MCD_EDOM;
+    *out_sum = s;
+    return MCD_OK;
+}
+
 mcd_status mcdi_comp_check_M(size_t n, const double *M)
 {
     size_t i;
@@ -123,27 +138,17 @@ double mcdi_comp_mbar_w(size_t n, const double *M, const double *w)
 double mcdi_comp_x_to_w(size_t n, const double *M, const double *x,
                         double *out_w)
 {
-    double s = 0.0, sx = 0.0;
-    size_t i;
-    for (i = 0; i < n; i++) {
-        s += x[i] * M[i];
-        sx += x[i];
-    }
+    const double mbar = mcdi_comp_mbar_x(n, M, x);
     mcdi_x_to_w_lanes(n, 1, M, x, out_w);
-    return s / sx;
+    return mbar;
 }
 
 double mcdi_comp_w_to_x(size_t n, const double *M, const double *w,
                         double *out_x)
 {
-    double s = 0.0, sw = 0.0;
-    size_t i;
-    for (i = 0; i < n; i++) {
-        s += w[i] / M[i];
-        sw += w[i];
-    }
+    const double mbar = mcdi_comp_mbar_w(n, M, w);
     mcdi_w_to_x_lanes(n, 1, M, w, out_x);
-    return sw / s;
+    return mbar;
 }
 
 void mcdi_comp_grad_x_to_w(size_t n, size_t n_dim, const double *M,
@@ -205,44 +210,46 @@ static mcd_status check_M_y(size_t n, const double *M, const double *y,
     return mcdi_comp_check(n, y, NULL);
 }
 
+/* The four calls on (M, y): the same checks, then one conversion. */
+typedef enum { M_Y_X_TO_W, M_Y_W_TO_X, M_Y_MBAR_X, M_Y_MBAR_W } m_y_op;
+
+static mcd_status on_M_y(m_y_op op, size_t n, const double *M, const double *y,
+                         double *out)
+{
+    mcd_status st = check_M_y(n, M, y, out);
+    if (st != MCD_OK)
+        return st;
+    switch (op) {
+    case M_Y_X_TO_W: (void)mcdi_comp_x_to_w(n, M, y, out); break;
+    case M_Y_W_TO_X: (void)mcdi_comp_w_to_x(n, M, y, out); break;
+    case M_Y_MBAR_X: *out = mcdi_comp_mbar_x(n, M, y); break;
+    case M_Y_MBAR_W: *out = mcdi_comp_mbar_w(n, M, y); break;
+    }
+    return MCD_OK;
+}
+
 mcd_status mcdi_api_comp_x_to_w(size_t n, const double *M, const double *x,
                                 double *out_w)
 {
-    mcd_status st = check_M_y(n, M, x, out_w);
-    if (st != MCD_OK)
-        return st;
-    (void)mcdi_comp_x_to_w(n, M, x, out_w);
-    return MCD_OK;
+    return on_M_y(M_Y_X_TO_W, n, M, x, out_w);
 }
 
 mcd_status mcdi_api_comp_w_to_x(size_t n, const double *M, const double *w,
                                 double *out_x)
 {
-    mcd_status st = check_M_y(n, M, w, out_x);
-    if (st != MCD_OK)
-        return st;
-    (void)mcdi_comp_w_to_x(n, M, w, out_x);
-    return MCD_OK;
+    return on_M_y(M_Y_W_TO_X, n, M, w, out_x);
 }
 
 mcd_status mcdi_api_comp_mean_molar_mass_x(size_t n, const double *M,
                                            const double *x, double *out_Mbar)
 {
-    mcd_status st = check_M_y(n, M, x, out_Mbar);
-    if (st != MCD_OK)
-        return st;
-    *out_Mbar = mcdi_comp_mbar_x(n, M, x);
-    return MCD_OK;
+    return on_M_y(M_Y_MBAR_X, n, M, x, out_Mbar);
 }
 
 mcd_status mcdi_api_comp_mean_molar_mass_w(size_t n, const double *M,
                                            const double *w, double *out_Mbar)
 {
-    mcd_status st = check_M_y(n, M, w, out_Mbar);
-    if (st != MCD_OK)
-        return st;
-    *out_Mbar = mcdi_comp_mbar_w(n, M, w);
-    return MCD_OK;
+    return on_M_y(M_Y_MBAR_W, n, M, w, out_Mbar);
 }
 
 mcd_status mcdi_api_comp_x_to_c(size_t n, double c_total, const double *x,
@@ -268,7 +275,7 @@ mcd_status mcdi_api_comp_x_to_c(size_t n, double c_total, const double *x,
 mcd_status mcdi_api_comp_c_to_x(size_t n, const double *c, double *out_x,
                                 double *out_c_total)
 {
-    double s = 0.0;
+    double s;
     size_t i;
     if (c == NULL || out_x == NULL || out_c_total == NULL || n < 1 ||
         n > MCD_MAX_SPECIES)
@@ -276,12 +283,7 @@ mcd_status mcdi_api_comp_c_to_x(size_t n, const double *c, double *out_x,
     for (i = 0; i < n; i++)
         if (!mcdi_finite(c[i]))
             return MCD_EINVAL;
-    for (i = 0; i < n; i++) {
-        if (!(c[i] >= 0.0))
-            return MCD_EDOM;
-        s += c[i];
-    }
-    if (!(s > 0.0) || !mcdi_finite(s))
+    if (mcdi_comp_nonneg_total(n, c, &s) != MCD_OK)
         return MCD_EDOM;
     for (i = 0; i < n; i++)
         out_x[i] = c[i] / s;

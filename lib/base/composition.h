@@ -24,6 +24,10 @@
  * EINVAL takes precedence over EDOM (all entries are scanned for NaN first). */
 mcd_status mcdi_comp_check(size_t n, const double *y, double *out_sum);
 
+/* Finite v (checked by the caller) with every v_i >= 0 and a positive
+ * finite sum, written to *out_sum; EDOM otherwise (nothing written). */
+mcd_status mcdi_comp_nonneg_total(size_t n, const double *v, double *out_sum);
+
 /* Molar masses: M != NULL and finite (EINVAL), > 0 (EDOM). */
 mcd_status mcdi_comp_check_M(size_t n, const double *M);
 
@@ -63,8 +67,9 @@ void mcdi_comp_grad_x_to_w(size_t n, size_t n_dim, const double *M,
  * from normalised fractions, on rows of L lanes (base/lanes.h): the one
  * implementation, run with L = 1 by mcdi_comp_w_to_x / _x_to_w and with
  * its lanes by the batched kernel. */
-KINLINE void mcdi_w_to_x_lanes(const size_t n, const size_t L, const double *M,
-                               const double *restrict w, double *restrict x)
+KINLINE void mcdi_basis_lanes(const size_t n, const size_t L, const double *M,
+                              const int to_x, const double *restrict y,
+                              double *restrict out)
 {
     double s[MCDI_LANES];
     size_t i, l;
@@ -72,25 +77,23 @@ KINLINE void mcdi_w_to_x_lanes(const size_t n, const size_t L, const double *M,
         s[l] = 0.0;
     for (i = 0; i < n; i++)
         for_lanes (l)
-            s[l] += w[i * L + l] / M[i];
+            s[l] += to_x ? y[i * L + l] / M[i] : y[i * L + l] * M[i];
     for (i = 0; i < n; i++)
         for_lanes (l)
-            x[i * L + l] = (w[i * L + l] / M[i]) / s[l];
+            out[i * L + l] =
+                (to_x ? y[i * L + l] / M[i] : y[i * L + l] * M[i]) / s[l];
+}
+
+KINLINE void mcdi_w_to_x_lanes(const size_t n, const size_t L, const double *M,
+                               const double *restrict w, double *restrict x)
+{
+    mcdi_basis_lanes(n, L, M, 1, w, x);
 }
 
 KINLINE void mcdi_x_to_w_lanes(const size_t n, const size_t L, const double *M,
                                const double *restrict x, double *restrict w)
 {
-    double s[MCDI_LANES];
-    size_t i, l;
-    for_lanes (l)
-        s[l] = 0.0;
-    for (i = 0; i < n; i++)
-        for_lanes (l)
-            s[l] += x[i * L + l] * M[i];
-    for (i = 0; i < n; i++)
-        for_lanes (l)
-            w[i * L + l] = x[i * L + l] * M[i] / s[l];
+    mcdi_basis_lanes(n, L, M, 0, x, w);
 }
 
 /* Exact differential of the map w -> x:

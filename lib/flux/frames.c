@@ -364,15 +364,8 @@ mcd_status mcdi_api_flux_project(size_t n_species, size_t n_dim,
     st = mcdi_comp_check_field(n, n_dim, inout_flux);
     if (st != MCD_OK)
         return st;
-    if (weights != NULL) {
-        for (i = 0; i < n; i++) {
-            if (!(weights[i] >= 0.0))
-                return MCD_EDOM;
-            sw += weights[i];
-        }
-        if (!(sw > 0.0) || !mcdi_finite(sw))
-            return MCD_EDOM;
-    }
+    if (weights != NULL && mcdi_comp_nonneg_total(n, weights, &sw) != MCD_OK)
+        return MCD_EDOM;
     /* pass 0: no sum or projected flux may overflow (nothing written);
      * pass 1: project (column d is read for r before it is changed, and
      * the columns are independent, so both passes see the same values) */
