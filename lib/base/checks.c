@@ -32,6 +32,16 @@ mcd_status mcdi_check_ptr(mcd_workspace *ws, const void *p, const char *name)
     return MCD_OK;
 }
 
+mcd_status mcdi_check_ptrs(size_t count, const void *const *p,
+                           const char *const *names)
+{
+    size_t k;
+    for (k = 0; k < count; k++)
+        if (p[k] == NULL)
+            return mcdi_fail(MCD_EINVAL, "argument %s: NULL", names[k]);
+    return MCD_OK;
+}
+
 mcd_status mcdi_check_species(mcd_workspace *ws, size_t n, size_t lo,
                               int max_is_einval, const char *name)
 {
@@ -265,6 +275,19 @@ mcd_status mcdi_check_finite(mcd_workspace *ws, size_t rows, size_t cols,
     if (acc == 0.0)
         return MCD_OK;
     return finite_locate(ws, rows, cols, p, 1, name);
+}
+
+mcd_status mcdi_check_finite_vec(mcd_workspace *ws, size_t n, const double *p,
+                                 const char *name)
+{
+    size_t i;
+    if (p == NULL)
+        return mcdi_fail(MCD_EINVAL, "argument %s: NULL", name);
+    for (i = 0; i < n; i++)
+        if (!mcdi_finite(p[i]))
+            return mcdi_fail(MCD_EINVAL, "argument %s: entry %zu is not finite",
+                             name, i);
+    return MCD_OK;
 }
 
 mcd_status mcdi_check_finite_strided(mcd_workspace *ws, size_t rows,

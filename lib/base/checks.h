@@ -18,6 +18,22 @@
 /* p != NULL (EINVAL). */
 mcd_status mcdi_check_ptr(mcd_workspace *ws, const void *p, const char *name);
 
+/* The first NULL of count pointers p[k], named names[k] (EINVAL);
+ * MCDI_CHECK_PTRS2/3 name each by its expression, which must be the
+ * argument's name. */
+mcd_status mcdi_check_ptrs(size_t count, const void *const *p,
+                           const char *const *names);
+#define MCDI_CHECK_PTRS2(a, b)                                                 \
+    mcdi_check_ptrs(2, (const void *const[]){a, b},                            \
+                    (const char *const[]){#a, #b})
+#define MCDI_CHECK_PTRS3(a, b, c)                                              \
+    mcdi_check_ptrs(3, (const void *const[]){a, b, c},                         \
+                    (const char *const[]){#a, #b, #c})
+
+/* n entries finite (EINVAL, "entry i"); NULL is EINVAL. */
+mcd_status mcdi_check_finite_vec(mcd_workspace *ws, size_t n, const double *p,
+                                 const char *name);
+
 /* A species count: lo..MCD_MAX_SPECIES (EINVAL; above MCD_MAX_SPECIES only
  * with max_is_einval, as the transfer calls have always had it) and at
  * most the workspace's capacity (EBADLEN). */

@@ -88,23 +88,10 @@ KINLINE void remove_along_into(double *out, const double *v, const double *w,
 }
 
 /* The same in place. */
-KINLINE void remove_along(double *restrict v, const double *w,
-                          const double *restrict y, const size_t n,
-                          const size_t L, const size_t nd)
+KINLINE void remove_along(double *v, const double *w, const double *restrict y,
+                          const size_t n, const size_t L, const size_t nd)
 {
-    double p[MCDI_LANES];
-    size_t i, dd, l;
-    for (dd = 0; dd < nd; dd++) {
-        for_lanes (l)
-            p[l] = 0.0;
-        for (i = 0; i < n; i++)
-            for_lanes (l)
-                p[l] +=
-                    (w != NULL ? w[i * L + l] : 1.0) * v[(i * nd + dd) * L + l];
-        for (i = 0; i < n; i++)
-            for_lanes (l)
-                v[(i * nd + dd) * L + l] -= y[i * L + l] * p[l];
-    }
+    remove_along_into(v, v, w, y, n, L, nd);
 }
 
 #endif

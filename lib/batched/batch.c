@@ -104,6 +104,38 @@ static mcd_status recheck_block(mcd_workspace *ws, const mcdi_bjob *jb,
                      shift + k0);
 }
 
+/* One block of the kernel, its result record reset first. */
+static void run_block(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
+                      mcdi_bres *res)
+{
+    res->st = MCD_OK;
+    res->lane = 0;
+    res->what = "";
+    res->recheck = 0;
+    res->iter_err = 0.0;
+    res->iter_used = 0;
+    mcdi_batch_block(jb, k0, nv, mem, res);
+}
+
+/* The largest error estimate (NaN wins) and iteration count so far. */
+static void merge_iter(double *err, size_t *used, double e, size_t u)
+{
+    if (e > *err || e != e)
+        *err = e;
+    if (u > *used)
+        *used = u;
+}
+
+/* What mcd_workspace_iterative_outcome reports after an iterative call. */
+static void note_iter(mcd_workspace *ws, const mcdi_bjob *jb, double err,
+                      size_t used)
+{
+    if (jb->model == MCD_MODEL_ITERATIVE) {
+        ws->iter_err = err;
+        ws->iter_used = used;
+    }
+}
+
 /* Run the job over cells [0, K) with the workspace's scratch. */
 static mcd_status run_job(mcd_workspace *ws, const mcdi_bjob *jb)
 {
@@ -146,13 +178,7 @@ static mcd_status run_job(mcd_workspace *ws, const mcdi_bjob *jb)
         for (b = 0; b < (long)nblk; b++) {
             size_t k0 = (size_t)b * L, nv = K - k0 < L ? K - k0 : L;
             mcdi_bres res;
-            res.st = MCD_OK;
-            res.lane = 0;
-            res.what = "";
-            res.recheck = 0;
-            res.iter_err = 0.0;
-            res.iter_used = 0;
-            mcdi_batch_block(jb, k0, nv, mem, &res);
+            run_block(jb, k0, nv, mem, &res);
             if (res.st != MCD_OK) {
 #ifdef _OPENMP
 #pragma omp critical
@@ -168,27 +194,16 @@ static mcd_status run_job(mcd_workspace *ws, const mcdi_bjob *jb)
                     }
                 }
             } else {
-                if (res.iter_err > my_err || res.iter_err != res.iter_err)
-                    my_err = res.iter_err;
-                if (res.iter_used > my_used)
-                    my_used = res.iter_used;
+                merge_iter(&my_err, &my_used, res.iter_err, res.iter_used);
             }
         }
         mcdi_batch_finish(jb, mem);
 #ifdef _OPENMP
 #pragma omp critical
 #endif
-        {
-            if (my_err > iter_err || my_err != my_err)
-                iter_err = my_err;
-            if (my_used > iter_used)
-                iter_used = my_used;
-        }
+        merge_iter(&iter_err, &iter_used, my_err, my_used);
     }
-    if (jb->model == MCD_MODEL_ITERATIVE) {
-        ws->iter_err = iter_err;
-        ws->iter_used = iter_used;
-    }
+    note_iter(ws, jb, iter_err, iter_used);
     if (fail_recheck)
         return recheck_block(ws, jb, fail_cell,
                              K - fail_cell < L ? K - fail_cell : L, 0);
@@ -234,18 +249,37 @@ static int stream_choice(const mcdi_bjob *jb)
                                                   : (size_t)bytes);
 }
 
+/* The job of a batched call: sizes, models and the cells' arrays; *need_M
+ * says whether the molar masses are needed (mass basis on either side,
+ * or pressure diffusion). */
 static void job_init(mcdi_bjob *jb, const mcd_workspace *ws, mcd_model model,
-                     size_t n, size_t K, size_t nd, mcd_basis cb, mcd_basis fb)
+                     size_t n, size_t K, const mcd_cells *cl, mcd_basis fb,
+                     double *out_flux, int *need_M)
 {
     memset(jb, 0, sizeof *jb);
     jb->n = n;
-    jb->nd = nd;
+    jb->nd = cl->n_dim;
     jb->K = K;
     jb->model = (int)model;
-    jb->comp_basis = (int)cb;
+    jb->comp_basis = (int)cl->comp_basis;
     jb->flux_basis = (int)fb;
     jb->max_iter = ws->iter_max;
     jb->tol = ws->iter_tol;
+    jb->comp = cl->comp;
+    jb->grad = cl->grad;
+    jb->glnP = cl->grad_lnP;
+    jb->out = out_flux;
+    *need_M = cl->comp_basis == MCD_BASIS_MASS || fb == MCD_BASIS_MASS ||
+              cl->grad_lnP != NULL;
+}
+
+/* Run a job on the caller's (SoA) arrays. */
+static mcd_status run_soa(mcd_workspace *ws, mcdi_bjob *jb)
+{
+    if (jb->K == 0)
+        return MCD_OK;
+    jb->stream = stream_choice(jb);
+    return run_job(ws, jb);
 }
 
 /* The checks of a mixture-driven call (mcd_flux_batch, mcd_flux_batch_aos)
@@ -258,6 +292,7 @@ static mcd_status mixture_job(mcd_workspace *ws, const mcd_mixture *mix,
 {
     mcd_status st;
     size_t n;
+    int need_M;
     if (ws == NULL)
         return MCD_EINVAL;
     if (mix == NULL)
@@ -265,9 +300,8 @@ static mcd_status mixture_job(mcd_workspace *ws, const mcd_mixture *mix,
     n = mix->n;
     if ((st = check_common(ws, model, n, cl, flux_basis, out_flux)) != MCD_OK)
         return st;
-    if (T == NULL || P == NULL)
-        return mcdi_fail(MCD_EINVAL, "argument %s: NULL",
-                         T == NULL ? "T" : "P");
+    if ((st = MCDI_CHECK_PTRS2(T, P)) != MCD_OK)
+        return st;
     if ((st = mcdi_mixture_ready(mix)) != MCD_OK) {
         char why[MCDI_ERRLEN]; /* names the pair and what it lacks */
         snprintf(why, sizeof why, "%s", mcdi_err_text());
@@ -276,14 +310,11 @@ static mcd_status mixture_job(mcd_workspace *ws, const mcd_mixture *mix,
     if (!mix->M_ok)
         return mcdi_fail(MCD_ENODATA, "argument mix: a molar mass is "
                                       "unknown");
-    job_init(jb, ws, model, n, aos ? mcdi_batch_lanes(n) : cl->n_cells,
-             cl->n_dim, cl->comp_basis, flux_basis);
+    job_init(jb, ws, model, n, aos ? mcdi_batch_lanes(n) : cl->n_cells, cl,
+             flux_basis, out_flux, &need_M);
     jb->mix = mix;
     jb->mix_has_omega = mixture_has_omega(mix);
-    jb->M = (cl->comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
-             cl->grad_lnP != NULL)
-                ? mix->M
-                : NULL;
+    jb->M = need_M ? mix->M : NULL;
     if (jb->M != NULL && !mcdi_M_span_ok(n, jb->M))
         return mcdi_fail(MCD_EDOM,
                          "argument mix: the molar masses span more than a "
@@ -291,27 +322,7 @@ static mcd_status mixture_job(mcd_workspace *ws, const mcd_mixture *mix,
                          "all precision)");
     jb->T = T;
     jb->P = P;
-    jb->comp = cl->comp;
-    jb->grad = cl->grad;
-    jb->glnP = cl->grad_lnP;
-    jb->out = out_flux;
     return MCD_OK;
-}
-
-mcd_status mcdi_api_flux_batch(mcd_workspace *ws, const mcd_mixture *mix,
-                               mcd_model model, const double *T,
-                               const double *P, const mcd_cells *cells,
-                               mcd_basis flux_basis, double *out_flux)
-{
-    mcdi_bjob jb;
-    mcd_status st;
-    if ((st = mixture_job(ws, mix, model, T, P, cells, flux_basis, out_flux, 0,
-                          &jb)) != MCD_OK)
-        return st;
-    if (cells->n_cells == 0)
-        return MCD_OK;
-    jb.stream = stream_choice(&jb);
-    return run_job(ws, &jb);
 }
 
 mcd_status mcdi_api_flux_batch_dij(mcd_workspace *ws, mcd_model model,
@@ -327,66 +338,43 @@ mcd_status mcdi_api_flux_batch_dij(mcd_workspace *ws, mcd_model model,
     if ((st = check_common(ws, model, n_species, cl, flux_basis, out_flux)) !=
         MCD_OK)
         return st;
-    if (Dij == NULL)
-        return mcdi_fail(MCD_EINVAL, "argument Dij: NULL");
-    if (c == NULL)
-        return mcdi_fail(MCD_EINVAL, "argument c: NULL");
-    need_M = cl->comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||
-             cl->grad_lnP != NULL;
+    if ((st = MCDI_CHECK_PTRS2(Dij, c)) != MCD_OK)
+        return st;
+    job_init(&jb, ws, model, n_species, cl->n_cells, cl, flux_basis, out_flux,
+             &need_M);
     if (need_M && (st = mcdi_check_M(ws, n_species, M)) != MCD_OK)
         return st;
-    job_init(&jb, ws, model, n_species, cl->n_cells, cl->n_dim, cl->comp_basis,
-             flux_basis);
     jb.Dij = Dij;
     jb.c = c;
     jb.M = need_M ? M : NULL;
-    jb.comp = cl->comp;
-    jb.grad = cl->grad;
-    jb.glnP = cl->grad_lnP;
-    jb.out = out_flux;
-    if (cl->n_cells == 0)
-        return MCD_OK;
-    jb.stream = stream_choice(&jb);
-    return run_job(ws, &jb);
+    return run_soa(ws, &jb);
 }
 
 /* AoS: each block of L cells is transposed into SoA staging that follows
  * the kernel's scratch in the thread's region, computed with stride L,
- * and transposed back. Serial (the staging is per workspace thread 0). */
-mcd_status mcdi_api_flux_batch_aos(mcd_workspace *ws, const mcd_mixture *mix,
-                                   mcd_model model, const double *T,
-                                   const double *P, const mcd_cells *cells,
-                                   mcd_basis flux_basis, double *out_flux)
+ * and transposed back. Serial (the staging is per workspace thread 0).
+ * jb describes the caller's arrays on entry. */
+static mcd_status run_aos(mcd_workspace *ws, mcdi_bjob *jb, size_t n_cells)
 {
-    mcdi_bjob jb;
-    mcd_status st;
-    size_t n, L, k0, nd, n_cells, iter_used = 0;
-    const double *comp, *grad, *grad_lnP;
+    const double *T = jb->T, *P = jb->P, *comp = jb->comp, *grad = jb->grad,
+                 *grad_lnP = jb->glnP;
+    double *out_flux = jb->out, iter_err = 0.0;
+    const size_t n = jb->n, nd = jb->nd, L = jb->K;
+    size_t k0, iter_used = 0;
     mcdi_aos_stage sg;
-    double iter_err = 0.0;
-    if ((st = mixture_job(ws, mix, model, T, P, cells, flux_basis, out_flux, 1,
-                          &jb)) != MCD_OK)
-        return st;
-    n_cells = cells->n_cells;
-    nd = cells->n_dim;
-    comp = cells->comp;
-    grad = cells->grad;
-    grad_lnP = cells->grad_lnP;
     if (n_cells == 0)
         return MCD_OK;
-    n = jb.n;
-    L = jb.K;
     /* staging after the kernel's block scratch in thread 0's region (both
      * counted by mcdi_batch_scratch_doubles) */
     mcdi_aos_carve(ws->batch_mem + MCDI_STREAM_DOUBLES +
                        mcdi_kblock_doubles(n, nd, L),
                    n, nd, L, &sg);
-    jb.T = sg.T;
-    jb.P = sg.P;
-    jb.comp = sg.comp;
-    jb.grad = sg.grad;
-    jb.glnP = grad_lnP != NULL ? sg.glnP : NULL;
-    jb.out = sg.out;
+    jb->T = sg.T;
+    jb->P = sg.P;
+    jb->comp = sg.comp;
+    jb->grad = sg.grad;
+    jb->glnP = grad_lnP != NULL ? sg.glnP : NULL;
+    jb->out = sg.out;
     for (k0 = 0; k0 < n_cells; k0 += L) {
         size_t nv = n_cells - k0 < L ? n_cells - k0 : L, l, i, d;
         mcdi_bres res;
@@ -402,35 +390,50 @@ mcd_status mcdi_api_flux_batch_aos(mcd_workspace *ws, const mcd_mixture *mix,
                 for (d = 0; d < nd; d++)
                     sg.glnP[d * L + l] = grad_lnP[k * nd + d];
         }
-        res.st = MCD_OK;
-        res.lane = 0;
-        res.what = "";
-        res.recheck = 0;
-        res.iter_err = 0.0;
-        res.iter_used = 0;
-        mcdi_batch_block(&jb, 0, nv, ws->batch_mem, &res);
+        run_block(jb, 0, nv, ws->batch_mem, &res);
         if (res.st != MCD_OK) {
-            if (model == MCD_MODEL_ITERATIVE) {
-                ws->iter_err = iter_err;
-                ws->iter_used = iter_used;
-            }
+            note_iter(ws, jb, iter_err, iter_used);
             if (res.recheck)
-                return recheck_block(ws, &jb, 0, nv, k0);
+                return recheck_block(ws, jb, 0, nv, k0);
             return mcdi_fail(res.st, "cell %zu: %s", k0 + res.lane, res.what);
         }
-        if (res.iter_err > iter_err || res.iter_err != res.iter_err)
-            iter_err = res.iter_err;
-        if (res.iter_used > iter_used)
-            iter_used = res.iter_used;
+        merge_iter(&iter_err, &iter_used, res.iter_err, res.iter_used);
         for (l = 0; l < nv; l++)
             for (i = 0; i < n * nd; i++)
                 out_flux[(k0 + l) * n * nd + i] = sg.out[i * L + l];
     }
-    if (model == MCD_MODEL_ITERATIVE) {
-        ws->iter_err = iter_err;
-        ws->iter_used = iter_used;
-    }
+    note_iter(ws, jb, iter_err, iter_used);
     return MCD_OK;
+}
+
+/* mcd_flux_batch (SoA) and mcd_flux_batch_aos. */
+static mcd_status batch_mixture(mcd_workspace *ws, const mcd_mixture *mix,
+                                mcd_model model, const double *T,
+                                const double *P, const mcd_cells *cells,
+                                mcd_basis flux_basis, double *out_flux, int aos)
+{
+    mcdi_bjob jb;
+    mcd_status st;
+    if ((st = mixture_job(ws, mix, model, T, P, cells, flux_basis, out_flux,
+                          aos, &jb)) != MCD_OK)
+        return st;
+    return aos ? run_aos(ws, &jb, cells->n_cells) : run_soa(ws, &jb);
+}
+
+mcd_status mcdi_api_flux_batch(mcd_workspace *ws, const mcd_mixture *mix,
+                               mcd_model model, const double *T,
+                               const double *P, const mcd_cells *cells,
+                               mcd_basis flux_basis, double *out_flux)
+{
+    return batch_mixture(ws, mix, model, T, P, cells, flux_basis, out_flux, 0);
+}
+
+mcd_status mcdi_api_flux_batch_aos(mcd_workspace *ws, const mcd_mixture *mix,
+                                   mcd_model model, const double *T,
+                                   const double *P, const mcd_cells *cells,
+                                   mcd_basis flux_basis, double *out_flux)
+{
+    return batch_mixture(ws, mix, model, T, P, cells, flux_basis, out_flux, 1);
 }
 
 mcd_status mcdi_api_workspace_set_iterative(mcd_workspace *ws, size_t max_iter,

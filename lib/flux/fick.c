@@ -388,6 +388,7 @@ mcd_status mcdi_api_fick_eigenvalues(mcd_workspace *ws, size_t m,
     mcdi_fick_iview iv;
     size_t k, l;
     lapack_int info;
+    mcd_status st;
 
     if (ws == NULL)
         return MCD_EINVAL;
@@ -398,16 +399,9 @@ mcd_status mcdi_api_fick_eigenvalues(mcd_workspace *ws, size_t m,
                          m, ws->cap - 1);
     if (m == 0)
         return MCD_OK;
-    if (D == NULL || out_re == NULL || out_im == NULL)
-        return mcdi_fail(MCD_EINVAL, "argument %s: NULL",
-                         D == NULL        ? "D"
-                         : out_re == NULL ? "out_re"
-                                          : "out_im");
-    for (k = 0; k < m * m; k++)
-        if (!mcdi_finite(D[k]))
-            return mcdi_fail(MCD_EINVAL,
-                             "argument D: entry (%zu,%zu) is not finite", k / m,
-                             k % m);
+    if ((st = MCDI_CHECK_PTRS3(D, out_re, out_im)) != MCD_OK ||
+        (st = mcdi_check_finite(ws, m, m, D, "D")) != MCD_OK)
+        return st;
     /* The row-major D read as column-major is D^T: same eigenvalues. */
     mcdi_fick_scratch(ws, &v, &iv);
     A = v.B;

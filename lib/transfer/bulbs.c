@@ -90,11 +90,8 @@ static mcd_status bulbs_check(mcd_workspace *ws, const mcd_bulbs *b,
         return st;
     if (n_times == 0)
         return MCD_OK;
-    if (t == NULL || out_x1 == NULL || out_x2 == NULL)
-        return mcdi_fail(MCD_EINVAL, "argument %s: NULL",
-                         t == NULL        ? "t"
-                         : out_x1 == NULL ? "out_x1"
-                                          : "out_x2");
+    if ((st = MCDI_CHECK_PTRS3(t, out_x1, out_x2)) != MCD_OK)
+        return st;
     for (k = 0; k < n_times; k++) {
         if (!mcdi_finite(t[k]))
             return mcdi_fail(MCD_EINVAL, "argument t: entry %zu is not finite",
@@ -130,41 +127,128 @@ static mcd_status mean_fick_matrix(mcd_workspace *ws, size_t n,
                                 Dm, dep);
 }
 
+/* The modes of the linearized system: dgeev of the (n-1) x (n-1) matrix
+ * tf->mat0 (row-major) into eigenvalues tf->b_wr (+ i tf->b_wi) and
+ * column-major eigenvectors tf->mat2, and the initial difference tf->b_dl0
+ * in that basis (tf->b_coef). 0 when there is no usable real
+ * decomposition (the caller then uses the matrix exponential); the
+ * negative LAPACK argument error is EINTERNAL in *st. */
+static int bulbs_modes(mcd_workspace *ws, size_t m, mcdi_tf *tf, mcd_status *st)
+{
+    double *Ac = tf->mat1, *VR = tf->mat2, *LU = tf->mat3, *work;
+    double wmax = 0.0;
+    size_t i, j, lwork = 0;
+    lapack_int info, *ipiv = (lapack_int *)ws->tf_ipiv;
+
+    /* column-major copy (the transpose of row-major) */
+    for (i = 0; i < m; i++)
+        for (j = 0; j < m; j++)
+            Ac[i + j * m] = tf->mat0[i * m + j];
+    work = mcdi_ws_geev_work(ws, &lwork);
+    info = LAPACKE_dgeev_work(LAPACK_COL_MAJOR, 'N', 'V', (lapack_int)m, Ac,
+                              (lapack_int)m, tf->b_wr, tf->b_wi, NULL, 1, VR,
+                              (lapack_int)m, work, (lapack_int)lwork);
+    if (info < 0) {
+        *st = mcdi_fail(MCD_EINTERNAL, "dgeev: argument %d", (int)-info);
+        return 0;
+    }
+    if (info > 0)
+        return 0;
+    for (i = 0; i < m; i++)
+        wmax = fmax(wmax, fabs(tf->b_wr[i]));
+    for (i = 0; i < m; i++)
+        if (!(fabs(tf->b_wi[i]) <= 1e-10 * wmax))
+            return 0;
+    memcpy(LU, VR, m * m * sizeof(double));
+    memcpy(tf->b_coef, tf->b_dl0, m * sizeof(double));
+    info = LAPACKE_dgetrf_work(LAPACK_COL_MAJOR, (lapack_int)m, (lapack_int)m,
+                               LU, (lapack_int)m, ipiv);
+    if (info == 0)
+        info =
+            LAPACKE_dgetrs_work(LAPACK_COL_MAJOR, 'N', (lapack_int)m, 1, LU,
+                                (lapack_int)m, ipiv, tf->b_coef, (lapack_int)m);
+    if (info != 0)
+        return 0;
+    for (i = 0; i < m; i++)
+        if (!mcdi_finite(tf->b_coef[i]))
+            return 0;
+    return 1;
+}
+
+/* Without modes, exp(-beta t [D]) must stay in range for every t: checked
+ * before anything is written. */
+static mcd_status bulbs_exp_range(size_t m, const double *Dm, double beta,
+                                  size_t n_times, const double *t)
+{
+    double norm = 0.0, tmax = 0.0;
+    size_t i, j, k;
+    for (j = 0; j < m; j++) {
+        double col = 0.0;
+        for (i = 0; i < m; i++)
+            col += fabs(Dm[i * m + j]);
+        norm = fmax(norm, col);
+    }
+    for (k = 0; k < n_times; k++)
+        tmax = fmax(tmax, t[k]);
+    if (!(beta * tmax * norm <= 1e4))
+        return mcdi_fail(MCD_ESING,
+                         "no real eigen-decomposition of [D] and "
+                         "beta t ||D|| = %g too large for exp",
+                         beta * tmax * norm);
+    return MCD_OK;
+}
+
+/* The independent differences x1 - x2 at time tk into tf->b_dl: from the
+ * modes, or from exp(-beta tk [D]) applied to tf->b_dl0. */
+static mcd_status bulbs_diff_at(size_t m, mcdi_tf *tf, int use_eig, double beta,
+                                double tk)
+{
+    size_t i, j;
+    if (use_eig) {
+        for (i = 0; i < m; i++) {
+            double acc = 0.0;
+            for (j = 0; j < m; j++)
+                acc += tf->mat2[i + j * m] * exp(-beta * tf->b_wr[j] * tk) *
+                       tf->b_coef[j];
+            tf->b_dl[i] = acc;
+        }
+        return MCD_OK;
+    }
+    {
+        double *slot[3] = {tf->mat1, tf->mat2, tf->mat3};
+        for (i = 0; i < m * m; i++)
+            slot[0][i] = -beta * tk * tf->mat0[i];
+        if (mcdi_tf_expm_phi(m, slot) != MCD_OK)
+            return mcdi_fail(MCD_EINTERNAL, "exp overflow");
+        for (i = 0; i < m; i++) {
+            double acc = 0.0;
+            for (j = 0; j < m; j++)
+                acc += slot[2][i * m + j] * tf->b_dl0[j];
+            tf->b_dl[i] = acc;
+        }
+    }
+    return MCD_OK;
+}
+
 mcd_status mcdi_api_bulbs_linearized(mcd_workspace *ws, const mcd_bulbs *bulbs,
                                      size_t n_times, const double *t,
                                      double *out_x1, double *out_x2)
 {
-    double *x1n, *x2n, *xbar, *dl0, *wr, *wi, *coef, *dl;
-    double *Dm, *Ac, *VR, *LU, *work;
     mcdi_tf tf;
-    double beta, f1, f2, wmax = 0.0;
-    size_t n, m, d, i, j, k, lwork = 0;
-    int use_eig = 1;
-    lapack_int info, *ipiv;
+    double beta, f1, f2, *xbar;
+    size_t n, m, d, i, j, k;
+    int use_eig;
     mcd_status st;
 
     st = bulbs_check(ws, bulbs, n_times, t, out_x1, out_x2, 0, &tf);
     if (st != MCD_OK || n_times == 0)
         return st;
     n = bulbs->n_species;
-    x1n = tf.b_x1n;
-    x2n = tf.b_x2n;
     xbar = tf.b_xbar;
-    dl0 = tf.b_dl0;
-    wr = tf.b_wr;
-    wi = tf.b_wi;
-    coef = tf.b_coef;
-    dl = tf.b_dl;
-    Dm = tf.mat0;
-    Ac = tf.mat1;
-    VR = tf.mat2;
-    LU = tf.mat3;
-    ipiv = (lapack_int *)ws->tf_ipiv;
-
     for (i = 0; i < n; i++)
-        xbar[i] =
-            (bulbs->V1 * x1n[i] + bulbs->V2 * x2n[i]) / (bulbs->V1 + bulbs->V2);
-    st = mean_fick_matrix(ws, n, bulbs->Dij, xbar, Dm, &d);
+        xbar[i] = (bulbs->V1 * tf.b_x1n[i] + bulbs->V2 * tf.b_x2n[i]) /
+                  (bulbs->V1 + bulbs->V2);
+    st = mean_fick_matrix(ws, n, bulbs->Dij, xbar, tf.mat0, &d);
     if (st != MCD_OK)
         return st;
     m = n - 1;
@@ -174,87 +258,25 @@ mcd_status mcdi_api_bulbs_linearized(mcd_workspace *ws, const mcd_bulbs *bulbs,
     f2 = bulbs->V1 / (bulbs->V1 + bulbs->V2);
     for (i = 0, k = 0; i < n; i++)
         if (i != d)
-            dl0[k++] = x1n[i] - x2n[i];
+            tf.b_dl0[k++] = tf.b_x1n[i] - tf.b_x2n[i];
 
-    /* eigen-decomposition: column-major copy (the transpose of row-major) */
-    for (i = 0; i < m; i++)
-        for (j = 0; j < m; j++)
-            Ac[i + j * m] = Dm[i * m + j];
-    work = mcdi_ws_geev_work(ws, &lwork);
-    info = LAPACKE_dgeev_work(LAPACK_COL_MAJOR, 'N', 'V', (lapack_int)m, Ac,
-                              (lapack_int)m, wr, wi, NULL, 1, VR, (lapack_int)m,
-                              work, (lapack_int)lwork);
-    if (info < 0)
-        return mcdi_fail(MCD_EINTERNAL, "dgeev: argument %d", (int)-info);
-    if (info > 0)
-        use_eig = 0;
-    for (i = 0; use_eig && i < m; i++)
-        wmax = fmax(wmax, fabs(wr[i]));
-    for (i = 0; use_eig && i < m; i++)
-        if (!(fabs(wi[i]) <= 1e-10 * wmax))
-            use_eig = 0;
-    if (use_eig) {
-        memcpy(LU, VR, m * m * sizeof(double));
-        memcpy(coef, dl0, m * sizeof(double));
-        info = LAPACKE_dgetrf_work(LAPACK_COL_MAJOR, (lapack_int)m,
-                                   (lapack_int)m, LU, (lapack_int)m, ipiv);
-        if (info == 0)
-            info =
-                LAPACKE_dgetrs_work(LAPACK_COL_MAJOR, 'N', (lapack_int)m, 1, LU,
-                                    (lapack_int)m, ipiv, coef, (lapack_int)m);
-        if (info != 0)
-            use_eig = 0;
-        for (i = 0; use_eig && i < m; i++)
-            if (!mcdi_finite(coef[i]))
-                use_eig = 0;
-    }
-
-    /* Check first that the fallback exponential is in range for every t
-     * (so that nothing is written before a failure). */
-    if (!use_eig) {
-        double norm = 0.0, tmax = 0.0;
-        for (j = 0; j < m; j++) {
-            double col = 0.0;
-            for (i = 0; i < m; i++)
-                col += fabs(Dm[i * m + j]);
-            norm = fmax(norm, col);
-        }
-        for (k = 0; k < n_times; k++)
-            tmax = fmax(tmax, t[k]);
-        if (!(beta * tmax * norm <= 1e4))
-            return mcdi_fail(MCD_ESING,
-                             "no real eigen-decomposition of [D] and "
-                             "beta t ||D|| = %g too large for exp",
-                             beta * tmax * norm);
-    }
+    st = MCD_OK;
+    use_eig = bulbs_modes(ws, m, &tf, &st);
+    if (st != MCD_OK)
+        return st;
+    if (!use_eig &&
+        (st = bulbs_exp_range(m, tf.mat0, beta, n_times, t)) != MCD_OK)
+        return st;
 
     for (k = 0; k < n_times; k++) {
         double sum = 0.0;
-        if (use_eig) {
-            for (i = 0; i < m; i++) {
-                double acc = 0.0;
-                for (j = 0; j < m; j++)
-                    acc += VR[i + j * m] * exp(-beta * wr[j] * t[k]) * coef[j];
-                dl[i] = acc;
-            }
-        } else {
-            double *slot[3] = {tf.mat1, tf.mat2, tf.mat3};
-            for (i = 0; i < m * m; i++)
-                slot[0][i] = -beta * t[k] * Dm[i];
-            if (mcdi_tf_expm_phi(m, slot) != MCD_OK)
-                return mcdi_fail(MCD_EINTERNAL, "exp overflow");
-            for (i = 0; i < m; i++) {
-                double acc = 0.0;
-                for (j = 0; j < m; j++)
-                    acc += slot[2][i * m + j] * dl0[j];
-                dl[i] = acc;
-            }
-        }
+        if ((st = bulbs_diff_at(m, &tf, use_eig, beta, t[k])) != MCD_OK)
+            return st;
         for (i = 0, j = 0; i < n; i++) {
             double di;
             if (i == d)
                 continue;
-            di = dl[j++];
+            di = tf.b_dl[j++];
             sum += di;
             out_x1[k * n + i] = xbar[i] + f1 * di;
             out_x2[k * n + i] = xbar[i] - f2 * di;

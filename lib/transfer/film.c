@@ -854,17 +854,12 @@ mcd_status mcdi_api_film_profile(mcd_workspace *ws, const mcd_film *fm,
     x0n = tf.x0n;
     if ((st = mcdi_tf_check_comp(ws, n, fm->x0, "x0", x0n)) != MCD_OK)
         return st;
-    if (N == NULL)
-        return mcdi_fail(MCD_EINVAL, "argument N: NULL");
-    for (i = 0; i < n; i++)
-        if (!mcdi_finite(N[i]))
-            return mcdi_fail(MCD_EINVAL, "argument N: entry %zu is not finite",
-                             i);
+    if ((st = mcdi_check_finite_vec(ws, n, N, "N")) != MCD_OK)
+        return st;
     if (n_points == 0)
         return MCD_OK;
-    if (z == NULL || out_x == NULL)
-        return mcdi_fail(MCD_EINVAL, "argument %s: NULL",
-                         z == NULL ? "z" : "out_x");
+    if ((st = MCDI_CHECK_PTRS2(z, out_x)) != MCD_OK)
+        return st;
     for (p = 0; p < n_points; p++) {
         if (!mcdi_finite(z[p]))
             return mcdi_fail(MCD_EINVAL, "argument z: entry %zu is not finite",
