@@ -279,7 +279,7 @@ START_TEST(formula_error_detail_follows_each_call)
     ck_assert_str_eq(mcd_last_error(), "");
     M = SUP_GUARD;
     ck_assert_int_eq(mcd_formula_molar_mass(NULL, &M), MCD_EINVAL);
-    ck_assert_str_eq(mcd_last_error(), "NULL argument");
+    ck_assert_str_eq(mcd_last_error(), "argument formula: NULL");
     ck_assert_int_eq(mcd_formula_molar_mass("H2", NULL), MCD_EINVAL);
     ck_assert(strlen(mcd_last_error()) > 0);
     ck_assert(M == SUP_GUARD);

@@ -322,24 +322,30 @@ static mcd_status check_grad(size_t n, size_t n_dim, const double *M,
     return check_M_y(n, M, y, out);
 }
 
+/* Both gradient conversions: the same checks, then one of them. */
+static mcd_status on_grad(int to_x, size_t n, size_t n_dim, const double *M,
+                          const double *y, const double *grad, double *out)
+{
+    mcd_status st = check_grad(n, n_dim, M, y, grad, out);
+    if (st != MCD_OK)
+        return st;
+    if (to_x)
+        mcdi_comp_grad_w_to_x(n, n_dim, M, y, grad, out);
+    else
+        mcdi_comp_grad_x_to_w(n, n_dim, M, y, grad, out);
+    return MCD_OK;
+}
+
 mcd_status mcdi_api_comp_grad_x_to_w(size_t n, size_t n_dim, const double *M,
                                      const double *x, const double *grad_x,
                                      double *out_grad_w)
 {
-    mcd_status st = check_grad(n, n_dim, M, x, grad_x, out_grad_w);
-    if (st != MCD_OK)
-        return st;
-    mcdi_comp_grad_x_to_w(n, n_dim, M, x, grad_x, out_grad_w);
-    return MCD_OK;
+    return on_grad(0, n, n_dim, M, x, grad_x, out_grad_w);
 }
 
 mcd_status mcdi_api_comp_grad_w_to_x(size_t n, size_t n_dim, const double *M,
                                      const double *w, const double *grad_w,
                                      double *out_grad_x)
 {
-    mcd_status st = check_grad(n, n_dim, M, w, grad_w, out_grad_x);
-    if (st != MCD_OK)
-        return st;
-    mcdi_comp_grad_w_to_x(n, n_dim, M, w, grad_w, out_grad_x);
-    return MCD_OK;
+    return on_grad(1, n, n_dim, M, w, grad_w, out_grad_x);
 }

@@ -14,19 +14,6 @@
 
 const char mcdi_src_user[] = "user";
 
-static const char SRC_M_FORMULA[] =
-    "computed from the formula, IUPAC CIAAW 2021 standard atomic weights";
-static const char SRC_M_AIR[] =
-    "U.S. Standard Atmosphere 1976, dry air 28.9644 g/mol (from memory)";
-static const char SRC_M_D2[] =
-    "2 x atomic mass of 2H, AME 2020 (Wang et al. 2021) (from memory)";
-static const char SRC_V_TAB[] =
-    "Fuller, Ensley and Giddings 1969, tabulated molecular volume "
-    "(Reid, Prausnitz and Poling 1987, Table 11-1)";
-static const char SRC_V_INC[] =
-    "Fuller, Ensley and Giddings 1969, sum of atomic increments "
-    "(Reid, Prausnitz and Poling 1987, Table 11-1)";
-
 /* Molar mass of dry air [kg/mol], U.S. Standard Atmosphere 1976. */
 #define M_AIR 28.9644e-3
 /* Molar mass of D2 [kg/mol]: 2 x 2.01410177812 g/mol (AME 2020). */
@@ -160,10 +147,10 @@ mcd_status mcdi_species_from_formula(const char *name, const char *formula,
             return MCD_EINVAL;
         }
         s.p[MCD_PARAM_MOLAR_MASS] = air ? M_AIR : M_D2;
-        s.src[MCD_PARAM_MOLAR_MASS] = air ? SRC_M_AIR : SRC_M_D2;
+        s.src[MCD_PARAM_MOLAR_MASS] = air ? mcdi_src_m_air : mcdi_src_m_d2;
         (void)mcdi_fsg_lookup(formula, NULL, &V);
         s.p[MCD_PARAM_DIFF_VOLUME] = V;
-        s.src[MCD_PARAM_DIFF_VOLUME] = SRC_V_TAB;
+        s.src[MCD_PARAM_DIFF_VOLUME] = mcdi_src_v_table;
         *out = s;
         return MCD_OK;
     }
@@ -171,7 +158,7 @@ mcd_status mcdi_species_from_formula(const char *name, const char *formula,
         return st;
     if ((st = mcdi_formula_mass(&f, &s.p[MCD_PARAM_MOLAR_MASS])) != MCD_OK)
         return st;
-    s.src[MCD_PARAM_MOLAR_MASS] = SRC_M_FORMULA;
+    s.src[MCD_PARAM_MOLAR_MASS] = mcdi_src_m_formula;
     if (mcdi_fsg_lookup(formula, &f, &V)) {
         if (n_rings != 0) {
             mcdi_note("n_rings must be 0 for the tabulated molecule "
@@ -180,12 +167,12 @@ mcd_status mcdi_species_from_formula(const char *name, const char *formula,
             return MCD_EINVAL;
         }
         s.p[MCD_PARAM_DIFF_VOLUME] = V;
-        s.src[MCD_PARAM_DIFF_VOLUME] = SRC_V_TAB;
+        s.src[MCD_PARAM_DIFF_VOLUME] = mcdi_src_v_table;
     } else {
         st = mcdi_formula_fsg_volume(&f, n_rings, &V);
         if (st == MCD_OK) {
             s.p[MCD_PARAM_DIFF_VOLUME] = V;
-            s.src[MCD_PARAM_DIFF_VOLUME] = SRC_V_INC;
+            s.src[MCD_PARAM_DIFF_VOLUME] = mcdi_src_v_increments;
         } else if (st != MCD_ENODATA) {
             /* non-positive sum: too many rings for the formula */
             return mcdi_formula_fsg_volume(&f, n_rings, &V);

@@ -22,6 +22,7 @@
 #include <stdio.h>
 #include <string.h>
 #include "base/mcd_internal.h"
+#include "base/checks.h"
 #include "data/formula.h"
 
 typedef struct parser {
@@ -248,22 +249,24 @@ mcd_status mcdi_formula_fsg_volume(const mcdi_formula *f, int n_rings,
     return MCD_OK;
 }
 
+/* The count of element Z in f; 0 when absent (counts are >= 1). */
+static long count_of(const mcdi_formula *f, int Z)
+{
+    size_t j;
+    for (j = 0; j < f->n; ++j)
+        if (f->Z[j] == Z)
+            return f->count[j];
+    return 0;
+}
+
 int mcdi_formula_same(const mcdi_formula *a, const mcdi_formula *b)
 {
-    size_t i, j;
+    size_t i;
     if (a->n != b->n)
         return 0;
-    for (i = 0; i < a->n; ++i) {
-        int found = 0;
-        for (j = 0; j < b->n; ++j) {
-            if (b->Z[j] == a->Z[i]) {
-                found = b->count[j] == a->count[i];
-                break;
-            }
-        }
-        if (!found)
+    for (i = 0; i < a->n; ++i)
+        if (count_of(b, a->Z[i]) != a->count[i])
             return 0;
-    }
     return 1;
 }
 
@@ -272,13 +275,9 @@ mcd_status mcdi_api_formula_molar_mass(const char *formula, double *out_M)
     mcdi_formula f;
     double M;
     mcd_status st;
-    if (formula == NULL || out_M == NULL) {
-        mcdi_note("NULL argument");
-        return MCD_EINVAL;
-    }
-    if ((st = mcdi_formula_parse(formula, &f)) != MCD_OK)
-        return st;
-    if ((st = mcdi_formula_mass(&f, &M)) != MCD_OK)
+    if ((st = MCDI_CHECK_PTRS2(formula, out_M)) != MCD_OK ||
+        (st = mcdi_formula_parse(formula, &f)) != MCD_OK ||
+        (st = mcdi_formula_mass(&f, &M)) != MCD_OK)
         return st;
     *out_M = M;
     return MCD_OK;
@@ -290,12 +289,9 @@ mcd_status mcdi_api_formula_elements(const char *formula, size_t cap,
     mcdi_formula f;
     mcd_status st;
     size_t i;
-    if (formula == NULL || out_Z == NULL || out_count == NULL ||
-        out_n == NULL) {
-        mcdi_note("NULL argument");
-        return MCD_EINVAL;
-    }
-    if ((st = mcdi_formula_parse(formula, &f)) != MCD_OK)
+    if ((st = MCDI_CHECK_PTRS2(formula, out_n)) != MCD_OK ||
+        (st = MCDI_CHECK_PTRS2(out_Z, out_count)) != MCD_OK ||
+        (st = mcdi_formula_parse(formula, &f)) != MCD_OK)
         return st;
     if (f.n > cap) {
         mcdi_note("formula has %zu distinct elements, capacity is %zu", f.n,
@@ -316,17 +312,13 @@ mcd_status mcdi_api_formula_diffusion_volume(const char *formula, int n_rings,
     mcdi_formula f;
     double V;
     mcd_status st;
-    if (formula == NULL || out_V == NULL) {
-        mcdi_note("NULL argument");
-        return MCD_EINVAL;
-    }
-    if (n_rings < 0) {
-        mcdi_note("n_rings = %d is negative", n_rings);
-        return MCD_EINVAL;
-    }
-    if ((st = mcdi_formula_parse(formula, &f)) != MCD_OK)
+    if ((st = MCDI_CHECK_PTRS2(formula, out_V)) != MCD_OK)
         return st;
-    if ((st = mcdi_formula_fsg_volume(&f, n_rings, &V)) != MCD_OK)
+    if (n_rings < 0)
+        return mcdi_fail(MCD_EINVAL, "argument n_rings: %d is negative",
+                         n_rings);
+    if ((st = mcdi_formula_parse(formula, &f)) != MCD_OK ||
+        (st = mcdi_formula_fsg_volume(&f, n_rings, &V)) != MCD_OK)
         return st;
     *out_V = V;
     return MCD_OK;

@@ -25,6 +25,7 @@
  */
 #include <string.h>
 #include "base/mcd_internal.h"
+#include "base/checks.h"
 #include "data/formula.h"
 
 /* Atomic increments, 1969 set (RPP 4th ed. Table 11-1). */
@@ -122,8 +123,9 @@ mcd_status mcdi_api_formula_molecule_volume(const char *formula, double *out_V)
     mcdi_formula f;
     double V;
     int found;
-    if (formula == NULL || out_V == NULL)
-        return MCD_EINVAL;
+    mcd_status st;
+    if ((st = MCDI_CHECK_PTRS2(formula, out_V)) != MCD_OK)
+        return st;
     if (mcdi_formula_parse(formula, &f) == MCD_OK) {
         found = mcdi_fsg_lookup(formula, &f, &V);
     } else {

@@ -26,6 +26,11 @@ struct mcd_db {
 /* Source text for values set through the API or a file. */
 extern const char mcdi_src_user[];
 
+/* Source texts of molar masses and diffusion volumes, shared by the
+ * built-in table and mcd_db_add (species_table.c). */
+extern const char mcdi_src_m_formula[], mcdi_src_m_air[], mcdi_src_m_d2[];
+extern const char mcdi_src_v_table[], mcdi_src_v_increments[];
+
 /* species_table.c: number of built-in species and filling record i. */
 size_t mcdi_builtin_count(void);
 void mcdi_builtin_fill(size_t i, mcdi_species *out);

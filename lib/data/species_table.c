@@ -60,16 +60,16 @@
 #define DEBYE 3.33564e-30 /* C m per debye (1e-21/c, c = 299792458 m/s) */
 #define BAR 1e5           /* Pa */
 
-static const char SRC_M[] =
+const char mcdi_src_m_formula[] =
     "computed from the formula, IUPAC CIAAW 2021 standard atomic weights";
-static const char SRC_M_AIR[] =
+const char mcdi_src_m_air[] =
     "U.S. Standard Atmosphere 1976, dry air 28.9644 g/mol (from memory)";
-static const char SRC_M_D2[] =
+const char mcdi_src_m_d2[] =
     "2 x atomic mass of 2H, AME 2020 (Wang et al. 2021) (from memory)";
-static const char SRC_V_T[] =
+const char mcdi_src_v_table[] =
     "Fuller, Ensley and Giddings 1969, tabulated molecular volume "
     "(Reid, Prausnitz and Poling 1987, Table 11-1)";
-static const char SRC_V_I[] =
+const char mcdi_src_v_increments[] =
     "Fuller, Ensley and Giddings 1969, sum of atomic increments "
     "(Reid, Prausnitz and Poling 1987, Table 11-1)";
 static const char SRC_LJ_S[] =
@@ -188,12 +188,13 @@ void mcdi_builtin_fill(size_t i, mcdi_species *s)
         s->src[k] = NULL;
     }
     s->p[MCD_PARAM_MOLAR_MASS] = r->M_g * 1e-3;
-    s->src[MCD_PARAM_MOLAR_MASS] = strcmp(r->name, "air") == 0 ? SRC_M_AIR
+    s->src[MCD_PARAM_MOLAR_MASS] = strcmp(r->name, "air") == 0 ? mcdi_src_m_air
                                    : strcmp(r->name, "deuterium") == 0
-                                       ? SRC_M_D2
-                                       : SRC_M;
+                                       ? mcdi_src_m_d2
+                                       : mcdi_src_m_formula;
     s->p[MCD_PARAM_DIFF_VOLUME] = r->V;
-    s->src[MCD_PARAM_DIFF_VOLUME] = r->V_kind == 'T' ? SRC_V_T : SRC_V_I;
+    s->src[MCD_PARAM_DIFF_VOLUME] =
+        r->V_kind == 'T' ? mcdi_src_v_table : mcdi_src_v_increments;
     if (r->lj_kind == 'B') {
         /* Bird, Stewart and Lightfoot (2002) eqs. 1.4-11, 1.4-13. */
         double Pc_atm = r->Pc_bar * BAR / MCD_ATM;

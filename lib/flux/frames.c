@@ -47,6 +47,16 @@ static int basis_ok(mcd_basis b)
     return b == MCD_BASIS_MOLE || b == MCD_BASIS_MASS;
 }
 
+/* The two passes of every call: pass 0 only checks that v is finite (0
+ * when not), pass 1 stores it. */
+static int put(int pass, double v, double *dst)
+{
+    if (pass == 0)
+        return mcdi_finite(v);
+    *dst = v;
+    return 1;
+}
+
 static int sizes_ok(size_t n, size_t n_dim)
 {
     return n >= 1 && n <= MCD_MAX_SPECIES && n_dim >= 1 && n_dim <= MCD_MAX_DIM;
@@ -114,10 +124,8 @@ mcd_status mcdi_api_flux_convert(size_t n_species, size_t n_dim,
                     t += M[i] * flux_in[i * n_dim + d];
                 for (i = 0; i < n; i++) {
                     v = M[i] * flux_in[i * n_dim + d] - (x[i] * M[i] / S) * t;
-                    if (pass == 0 && !mcdi_finite(v))
+                    if (!put(pass, v, &out_flux[i * n_dim + d]))
                         return MCD_EDOM;
-                    if (pass == 1)
-                        out_flux[i * n_dim + d] = v;
                 }
             } else {
                 /* J_i = j_i/M_i - x_i sum_k j_k/M_k */
@@ -125,10 +133,8 @@ mcd_status mcdi_api_flux_convert(size_t n_species, size_t n_dim,
                     t += flux_in[i * n_dim + d] / M[i];
                 for (i = 0; i < n; i++) {
                     v = flux_in[i * n_dim + d] / M[i] - (x[i] / sx) * t;
-                    if (pass == 0 && !mcdi_finite(v))
+                    if (!put(pass, v, &out_flux[i * n_dim + d]))
                         return MCD_EDOM;
-                    if (pass == 1)
-                        out_flux[i * n_dim + d] = v;
                 }
             }
         }
@@ -170,10 +176,8 @@ mcd_status mcdi_api_flux_to_volume_frame(size_t n_species, size_t n_dim,
                 t += Vbar[i] * J[i * n_dim + d];
             for (i = 0; i < n; i++) {
                 double v = J[i * n_dim + d] - c * (x[i] / sx) * t;
-                if (pass == 0 && !mcdi_finite(v))
+                if (!put(pass, v, &out_JV[i * n_dim + d]))
                     return MCD_EDOM;
-                if (pass == 1)
-                    out_JV[i * n_dim + d] = v;
             }
         }
     return MCD_OK;
@@ -203,10 +207,9 @@ mcd_status mcdi_api_flux_to_species_frame(size_t n_species, size_t n_dim,
             double r = J[k * n_dim + d] / x[k];
             for (i = 0; i < n; i++) {
                 double v = (i == k) ? 0.0 : J[i * n_dim + d] - x[i] * r;
-                if (pass == 0 && !mcdi_finite(v))
-                    return MCD_EDOM; /* J_k / x_k overflows */
-                if (pass == 1)
-                    out_Jk[i * n_dim + d] = v;
+                /* J_k / x_k may overflow */
+                if (!put(pass, v, &out_Jk[i * n_dim + d]))
+                    return MCD_EDOM;
             }
         }
     return MCD_OK;
@@ -332,10 +335,8 @@ mcd_status mcdi_api_flux_velocity_difference(size_t n_species, size_t n_dim,
             double t = 0.0;
             for (i = 0; i < n; i++)
                 t += M[i] * J[i * n_dim + d];
-            if (pass == 0 && !mcdi_finite(t / rho))
+            if (!put(pass, t / rho, &out_v_minus_u[d]))
                 return MCD_EDOM;
-            if (pass == 1)
-                out_v_minus_u[d] = t / rho;
         }
     return MCD_OK;
 }
@@ -379,10 +380,8 @@ mcd_status mcdi_api_flux_project(size_t n_species, size_t n_dim,
             for (i = 0; i < n; i++) {
                 double a = weights != NULL ? weights[i] / sw : 1.0 / (double)n;
                 double v = inout_flux[i * n_dim + d] - a * r;
-                if (pass == 0 && !mcdi_finite(v))
+                if (!put(pass, v, &inout_flux[i * n_dim + d]))
                     return MCD_EDOM;
-                if (pass == 1)
-                    inout_flux[i * n_dim + d] = v;
             }
             if (pass == 1 && out_residual != NULL)
                 out_residual[d] = r;
