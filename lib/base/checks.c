@@ -92,6 +92,18 @@ mcd_status mcdi_check_positive(mcd_workspace *ws, double v, const char *name)
     return MCD_OK;
 }
 
+mcd_status mcdi_check_positive2(double a, const char *name_a, double b,
+                                const char *name_b)
+{
+    if (!mcdi_finite(a) || !mcdi_finite(b))
+        return mcdi_fail(MCD_EINVAL, "argument %s: not finite",
+                         mcdi_finite(a) ? name_b : name_a);
+    if (!(a > 0) || !(b > 0))
+        return mcdi_fail(MCD_EDOM, "argument %s: %g is not > 0",
+                         a > 0 ? name_b : name_a, a > 0 ? b : a);
+    return MCD_OK;
+}
+
 /* One branch-free pass over the pairs: every off-diagonal entry finite and
  * a normal positive number (>= DBL_MIN), and the two triangles equal to
  * MCDI_DIJ_SYM_TOL. The caller's data

@@ -54,6 +54,11 @@ mcd_status mcdi_check_model(mcd_workspace *ws, mcd_model model,
 /* A finite (EINVAL) positive (EDOM) scalar. */
 mcd_status mcdi_check_positive(mcd_workspace *ws, double v, const char *name);
 
+/* Two such scalars, both finiteness tests (EINVAL) before both domain
+ * tests (EDOM), e.g. T and P. */
+mcd_status mcdi_check_positive2(double a, const char *name_a, double b,
+                                const char *name_b);
+
 /* Binary diffusivities: off-diagonal entries finite (EINVAL), > 0 (EDOM),
  * not subnormal (>= DBL_MIN, EDOM), symmetric to MCDI_DIJ_SYM_TOL relative
  * (EDOM). Diagonal ignored. The one Dij check of the library: the

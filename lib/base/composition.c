@@ -38,15 +38,23 @@
 /* validators                                                           */
 /* ------------------------------------------------------------------ */
 
+int mcdi_comp_vec_ok(size_t n, const double *y)
+{
+    size_t i;
+    if (y == NULL || n < 1 || n > MCD_MAX_SPECIES)
+        return 0;
+    for (i = 0; i < n; i++)
+        if (!mcdi_finite(y[i]))
+            return 0;
+    return 1;
+}
+
 mcd_status mcdi_comp_check(size_t n, const double *y, double *out_sum)
 {
     double s = 0.0;
     size_t i;
-    if (y == NULL || n < 1 || n > MCD_MAX_SPECIES)
+    if (!mcdi_comp_vec_ok(n, y))
         return MCD_EINVAL;
-    for (i = 0; i < n; i++)
-        if (!mcdi_finite(y[i]))
-            return MCD_EINVAL;
     for (i = 0; i < n; i++) {
         if (!(y[i] >= 0.0))
             return MCD_EDOM;
@@ -77,11 +85,8 @@ mcd_status mcdi_comp_nonneg_total(size_t n, const double *v, double *out_sum)
 mcd_status mcdi_comp_check_M(size_t n, const double *M)
 {
     size_t i;
-    if (M == NULL || n < 1 || n > MCD_MAX_SPECIES)
+    if (!mcdi_comp_vec_ok(n, M))
         return MCD_EINVAL;
-    for (i = 0; i < n; i++)
-        if (!mcdi_finite(M[i]))
-            return MCD_EINVAL;
     for (i = 0; i < n; i++)
         if (!(M[i] > 0.0))
             return MCD_EDOM;

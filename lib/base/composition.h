@@ -24,6 +24,9 @@
  * EINVAL takes precedence over EDOM (all entries are scanned for NaN first). */
 mcd_status mcdi_comp_check(size_t n, const double *y, double *out_sum);
 
+/* 1 if y is not NULL, 1 <= n <= MCD_MAX_SPECIES and every y_i finite. */
+int mcdi_comp_vec_ok(size_t n, const double *y);
+
 /* Finite v (checked by the caller) with every v_i >= 0 and a positive
  * finite sum, written to *out_sum; EDOM otherwise (nothing written). */
 mcd_status mcdi_comp_nonneg_total(size_t n, const double *v, double *out_sum);

@@ -124,6 +124,14 @@ static mcd_status fail(loader *L, mcd_status st, size_t line, const char *fmt,
     return st;
 }
 
+/* A key given twice in one species block. */
+static mcd_status duplicate(loader *L, size_t line, const char *key,
+                            size_t first)
+{
+    return fail(L, MCD_EPARSE, line, "duplicate key '%s' (first on line %zu)",
+                key, first);
+}
+
 /* Strict decimal number: the whole token, finite. */
 static int parse_number(token t, double *out)
 {
@@ -269,9 +277,7 @@ static mcd_status key_line(loader *L, block *b, size_t line, const token *t,
                     TOKARG(t[0]));
     if (tok_eq(t[0], "formula")) {
         if (b->formula_line)
-            return fail(L, MCD_EPARSE, line,
-                        "duplicate key 'formula' (first on line %zu)",
-                        b->formula_line);
+            return duplicate(L, line, "formula", b->formula_line);
         if (nt != 2)
             return fail(L, MCD_EPARSE, line,
                         "'formula' takes exactly one value, found %zu", nt - 1);
@@ -287,20 +293,13 @@ static mcd_status key_line(loader *L, block *b, size_t line, const token *t,
     if (tok_eq(t[0], "rings")) {
         long r = 0;
         if (b->rings_line)
-            return fail(L, MCD_EPARSE, line,
-                        "duplicate key 'rings' (first on line %zu)",
-                        b->rings_line);
+            return duplicate(L, line, "rings", b->rings_line);
         if (nt != 2)
             return fail(L, MCD_EPARSE, line,
                         "'rings' takes one integer and no unit");
-        for (i = 0; i < t[1].len; ++i) {
+        for (i = 0; i < t[1].len && r <= 1000; ++i) {
             char c = t[1].s[i];
-            if (c < '0' || c > '9' || r > 1000)
-                return fail(L, MCD_EPARSE, line,
-                            "'rings': '" TOKFMT "' is not a non-negative "
-                            "integer up to 1000",
-                            TOKARG(t[1]));
-            r = r * 10 + (c - '0');
+            r = (c < '0' || c > '9') ? 1001 : r * 10 + (c - '0');
         }
         if (r > 1000)
             return fail(L, MCD_EPARSE, line,
@@ -320,9 +319,8 @@ static mcd_status key_line(loader *L, block *b, size_t line, const token *t,
                     "V_diff, sigma, eps_k, dipole, Vb, Tb, Tc, Pc or assoc)",
                     TOKARG(t[0]));
     if (b->value_line[p])
-        return fail(L, MCD_EPARSE, line,
-                    "duplicate key '%s' (first on line %zu)",
-                    mcd_param_name((mcd_param)p), b->value_line[p]);
+        return duplicate(L, line, mcd_param_name((mcd_param)p),
+                         b->value_line[p]);
     if (nt < 2)
         return fail(L, MCD_EPARSE, line, "'%s' needs a value",
                     mcd_param_name((mcd_param)p));

@@ -57,6 +57,18 @@ static int put(int pass, double v, double *dst)
     return 1;
 }
 
+/* v not NULL and its len entries finite. */
+static int all_finite(const double *v, size_t len)
+{
+    size_t i;
+    if (v == NULL)
+        return 0;
+    for (i = 0; i < len; i++)
+        if (!mcdi_finite(v[i]))
+            return 0;
+    return 1;
+}
+
 static int sizes_ok(size_t n, size_t n_dim)
 {
     return n >= 1 && n <= MCD_MAX_SPECIES && n_dim >= 1 && n_dim <= MCD_MAX_DIM;
@@ -231,18 +243,12 @@ mcd_status mcdi_api_flux_total(size_t n_species, size_t n_dim, mcd_basis basis,
         return MCD_EINVAL;
     switch (kind) {
     case MCD_BOOT_TOTAL:
-        if (values == NULL)
+        if (!all_finite(values, n_dim))
             return MCD_EINVAL;
-        for (d = 0; d < n_dim; d++)
-            if (!mcdi_finite(values[d]))
-                return MCD_EINVAL;
         break;
     case MCD_BOOT_WEIGHTS:
-        if (values == NULL)
+        if (!all_finite(values, n))
             return MCD_EINVAL;
-        for (i = 0; i < n; i++)
-            if (!mcdi_finite(values[i]))
-                return MCD_EINVAL;
         break;
     case MCD_BOOT_STAGNANT:
         if (species >= n)

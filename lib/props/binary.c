@@ -162,19 +162,28 @@ static mcd_status check_lj(double T, double P, double MA, double MB,
     return check_all_pos(v, 8);
 }
 
-mcd_status mcdi_api_binary_chapman_enskog(double T, double P, double MA,
-                                          double MB, double sigA, double sigB,
-                                          double epsA, double epsB,
-                                          double *out_D)
+/* Chapman-Enskog and Wilke-Lee: coef(M, sigma) T^1.5 / (P Omega_D). */
+static mcd_status lj_binary(double (*coef)(double, double, double, double),
+                            double T, double P, double MA, double MB,
+                            double sigA, double sigB, double epsA, double epsB,
+                            double *out_D)
 {
     mcd_status s;
     if (out_D == NULL)
         return MCD_EINVAL;
     if ((s = check_lj(T, P, MA, MB, sigA, sigB, epsA, epsB)) != MCD_OK)
         return s;
-    return finish_D(mcdi_ce_coef(MA, MB, sigA, sigB) * pow(T, 1.5) /
+    return finish_D(coef(MA, MB, sigA, sigB) * pow(T, 1.5) /
                         (P * mcdi_omega_d(T / sqrt(epsA * epsB))),
                     out_D);
+}
+
+mcd_status mcdi_api_binary_chapman_enskog(double T, double P, double MA,
+                                          double MB, double sigA, double sigB,
+                                          double epsA, double epsB,
+                                          double *out_D)
+{
+    return lj_binary(mcdi_ce_coef, T, P, MA, MB, sigA, sigB, epsA, epsB, out_D);
 }
 
 /* ------------------------------------------------------------------ */
@@ -203,14 +212,7 @@ mcd_status mcdi_api_binary_wilke_lee(double T, double P, double MA, double MB,
                                      double sigA, double sigB, double epsA,
                                      double epsB, double *out_D)
 {
-    mcd_status s;
-    if (out_D == NULL)
-        return MCD_EINVAL;
-    if ((s = check_lj(T, P, MA, MB, sigA, sigB, epsA, epsB)) != MCD_OK)
-        return s;
-    return finish_D(mcdi_wl_coef(MA, MB, sigA, sigB) * pow(T, 1.5) /
-                        (P * mcdi_omega_d(T / sqrt(epsA * epsB))),
-                    out_D);
+    return lj_binary(mcdi_wl_coef, T, P, MA, MB, sigA, sigB, epsA, epsB, out_D);
 }
 
 /* ------------------------------------------------------------------ */

@@ -35,6 +35,7 @@
 #include <string.h>
 
 #include "base/mcd_internal.h"
+#include "base/checks.h"
 #include "props/binary.h"
 
 static int has(const mcdi_spec *s, mcd_param p)
@@ -292,12 +293,9 @@ mcd_status mcdi_api_db_binary_gas(const mcd_db *db, size_t a, size_t b,
     mcd_method method = (mcd_method)gas;
     mcdi_spec sa, sb;
     mcd_status st;
-    if (db == NULL || out_D == NULL)
-        return MCD_EINVAL;
-    if (!mcdi_finite(T) || !mcdi_finite(P))
-        return MCD_EINVAL;
-    if (!(T > 0) || !(P > 0))
-        return MCD_EDOM;
+    if ((st = MCDI_CHECK_PTRS2(db, out_D)) != MCD_OK ||
+        (st = mcdi_check_positive2(T, "T", P, "P")) != MCD_OK)
+        return st;
     if (method != MCD_METHOD_FSG && method != MCD_METHOD_CHAPMAN_ENSKOG &&
         method != MCD_METHOD_WILKE_LEE)
         return MCD_EINVAL;
@@ -317,12 +315,9 @@ mcd_status mcdi_api_db_binary_liquid(const mcd_db *db, size_t solute,
     mcd_status st;
     double phi = 1.0, D;
     unsigned w = 0;
-    if (db == NULL || out_D == NULL)
-        return MCD_EINVAL;
-    if (!mcdi_finite(T) || !mcdi_finite(mu_solvent))
-        return MCD_EINVAL;
-    if (!(T > 0) || !(mu_solvent > 0))
-        return MCD_EDOM;
+    if ((st = MCDI_CHECK_PTRS2(db, out_D)) != MCD_OK ||
+        (st = mcdi_check_positive2(T, "T", mu_solvent, "mu_solvent")) != MCD_OK)
+        return st;
     if ((st = mcdi_spec_from_db(db, solute, &sa)) != MCD_OK)
         return st;
     if ((st = mcdi_spec_from_db(db, solvent, &sb)) != MCD_OK)

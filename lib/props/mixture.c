@@ -20,6 +20,7 @@
 #include <string.h>
 
 #include "base/mcd_internal.h"
+#include "base/checks.h"
 #include "props/binary.h"
 #include "props/mixture.h"
 
@@ -465,12 +466,9 @@ mcd_status mcdi_api_mixture_binaries(const mcd_mixture *mix, double T, double P,
 {
     size_t n;
     mcd_status st;
-    if (mix == NULL || out_D == NULL)
-        return MCD_EINVAL;
-    if (!mcdi_finite(T) || !mcdi_finite(P))
-        return MCD_EINVAL;
-    if (!(T > 0) || !(P > 0))
-        return MCD_EDOM;
+    if ((st = MCDI_CHECK_PTRS2(mix, out_D)) != MCD_OK ||
+        (st = mcdi_check_positive2(T, "T", P, "P")) != MCD_OK)
+        return st;
     if ((st = mcdi_mixture_ready(mix)) != MCD_OK)
         return st;
     n = mix->n;

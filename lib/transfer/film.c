@@ -345,6 +345,25 @@ static mcd_status film_map(film *f, const double *N, double *N_out)
     return all_finite(n, N_out) ? MCD_OK : MCD_EDOM;
 }
 
+/* The Maxwell-Stefan rate matrix of fluxes N, scaled: out_ij =
+ * -scale N_i / D_ij (i != j), out_ii = scale sum_j N_j / D_ij, so that
+ * dx/dz = (1/c) A x integrates to x(z) = exp((z/c) A) x(0). */
+static void rate_matrix(size_t n, const double *Dij, const double *N,
+                        double scale, double *out)
+{
+    size_t i, j;
+    for (i = 0; i < n; i++) {
+        double diag = 0.0;
+        for (j = 0; j < n; j++) {
+            if (j == i)
+                continue;
+            diag += N[j] / Dij[i * n + j];
+            out[i * n + j] = -scale * N[i] / Dij[i * n + j];
+        }
+        out[i * n + i] = scale * diag;
+    }
+}
+
 /* End composition of species s for N = z N_t (RATIOS). */
 static mcd_status ratios_end(film *f, double Nt, double *out_xs)
 {
@@ -357,16 +376,7 @@ static mcd_status ratios_end(film *f, double Nt, double *out_xs)
         /* full form: x(L) = exp((L/c) A) x0 */
         for (i = 0; i < n; i++)
             Nv[i] = f->values[i] * Nt;
-        for (i = 0; i < n; i++) {
-            double diag = 0.0;
-            for (j = 0; j < n; j++) {
-                if (j == i)
-                    continue;
-                diag += Nv[j] / f->Dij[i * n + j];
-                slot[0][i * n + j] = -f->L / f->c * Nv[i] / f->Dij[i * n + j];
-            }
-            slot[0][i * n + i] = f->L / f->c * diag;
-        }
+        rate_matrix(n, f->Dij, Nv, f->L / f->c, slot[0]);
         st = mcdi_tf_expm_phi(n, slot);
         if (st != MCD_OK)
             return st;
@@ -887,16 +897,7 @@ mcd_status mcdi_api_film_profile(mcd_workspace *ws, const mcd_film *fm,
         slot[0] = tf.mat0;
         slot[1] = tf.mat1;
         slot[2] = tf.mat2;
-        for (i = 0; i < n; i++) {
-            double diag = 0.0;
-            for (j = 0; j < n; j++) {
-                if (j == i)
-                    continue;
-                diag += N[j] / fm->Dij[i * n + j];
-                slot[0][i * n + j] = -sc * N[i] / fm->Dij[i * n + j];
-            }
-            slot[0][i * n + i] = sc * diag;
-        }
+        rate_matrix(n, fm->Dij, N, sc, slot[0]);
         st = mcdi_tf_expm_phi(n, slot);
         if (st != MCD_OK) /* cannot happen after the bound above */
             return mcdi_fail(MCD_EINTERNAL, "profile overflow");
