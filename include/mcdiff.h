@@ -40,7 +40,7 @@ extern "C" {
 /* ------------------------------------------------------------------ */
 
 #define MCD_VERSION_MAJOR 0
-#define MCD_VERSION_MINOR 2
+#define MCD_VERSION_MINOR 3
 #define MCD_VERSION_PATCH 0
 #define MCD_VERSION_NUMBER \
     (MCD_VERSION_MAJOR * 10000 + MCD_VERSION_MINOR * 100 + MCD_VERSION_PATCH)
@@ -553,13 +553,18 @@ typedef struct mcd_state {
                                  only) */
     const double *Gamma;    /**< thermodynamic factors, N x N, or NULL */
     const double *grad_lnP; /**< gradient of ln P [1/m], n_dim, or NULL */
+    const double *kT;       /**< thermal diffusion ratios k_T,i [-], N, or
+                                 NULL (fluxes only; Since 0.3) */
+    const double *grad_lnT; /**< gradient of ln T [1/m], n_dim, or NULL
+                                 (fluxes only; Since 0.3) */
 } mcd_state;
 
 /** Diffusion fluxes of all species at one state. Since 0.1.
  *
  *  Solves the Maxwell-Stefan equations
  *    d_i = sum_{j != i} (x_i J_j - x_j J_i) / (c Đ_ij),  sum_i J_i = 0,
- *    d_i = sum_j Gamma_ij grad x_j + (x_i - w_i) grad ln P,
+ *    d_i = sum_j Gamma_ij grad x_j + (x_i - w_i) grad ln P
+ *          + k_T,i grad ln T,
  *  exactly (MAXWELL_STEFAN) or with mixture-averaged diffusivities
  *  D_im = (1 - x_i) / sum_{j != i} x_j / Đ_ij and a correction flux
  *  proportional to x_i (mole basis) or w_i (mass basis) that restores the
@@ -587,6 +592,17 @@ typedef struct mcd_state {
  *                     fractions, or NULL for an ideal mixture (identity).
  *                     Row i gives d_i = sum_j Gamma_ij grad x_j.
  *    grad_lnP         gradient of ln P [1/m], length n_dim, or NULL.
+ *    kT, grad_lnT     thermal diffusion: the thermal diffusion ratios
+ *                     k_T,i [-] (length N, finite, summing to zero as
+ *                     kinetic theory gives them; mcd_thermal_ratios makes
+ *                     them from thermal diffusion coefficients D_i^T) and
+ *                     grad ln T [1/m] (length n_dim, finite). Both or
+ *                     neither: one without the other is EINVAL. For two
+ *                     species J_1 = -c D_12 (grad x_1 + k_T grad ln T),
+ *                     k_T = k_T,1 = -k_T,2 > 0 when species 1 moves to
+ *                     the cold side. The term enters every model the same
+ *                     way (mixture-averaged: k_T,i are the thermal
+ *                     diffusion ratios of V_i = -(D_im / x_i)(d_i)).
  *  @param flux_basis  MOLE: out_flux = J_i; MASS: out_flux = j_i.
  *  @param out_flux    N x n_dim; sums to zero over species to round-off.
  *  The driving forces are first projected onto sum_i d_i = 0 by
@@ -605,6 +621,36 @@ typedef struct mcd_state {
 MCD_API mcd_status mcd_flux_compute(mcd_workspace *ws, mcd_model model,
                                     const mcd_state *state,
                                     mcd_basis flux_basis, double *out_flux);
+
+/** Thermal diffusion ratios k_T,i [-] from thermal diffusion coefficients
+ *  D_i^T [kg/(m s)], for mcd_state.kT / mcd_cells.kT. Since 0.3.
+ *
+ *  The Maxwell-Stefan equations with thermal diffusion (Hirschfelder,
+ *  Curtiss and Bird 1954, sec. 7.4; Taylor and Krishna 1993, sec. 2.3)
+ *    d_i = -sum_{j != i} (x_i x_j / Đ_ij)
+ *          (v_i - v_j + (D_i^T / rho_i - D_j^T / rho_j) grad ln T)
+ *  are the ones mcd_flux_compute solves with the driving force
+ *  d_i + k_T,i grad ln T, where (rho_i = c x_i M_i)
+ *    k_T,i = (1/c) sum_{j != i} (x_j D_i^T / M_i - x_i D_j^T / M_j) / Đ_ij,
+ *  which sums to zero over i and needs no division by x_i (trace species
+ *  are fine). With these k_T the mass fluxes of mcd_flux_compute are the
+ *  ones without the thermal term minus D_i^T grad ln T, the usual form
+ *  j_i = ... - D_i^T grad ln T (Bird, Stewart and Lightfoot 2002, sec.
+ *  24.2). For two species k_T = k_T,1 = rho D_1^T / (c^2 M_1 M_2 Đ_12).
+ *
+ *  @param ws     workspace with capacity >= N (scratch only).
+ *  @param state  n_species, comp_basis, c, M (required), Dij and comp as
+ *                in mcd_flux_compute (the other fields are not read).
+ *  @param DT     thermal diffusion coefficients [kg/(m s)], length N,
+ *                finite; kinetic theory gives sum_i D_i^T = 0, and the
+ *                sum is first made exactly zero by D_i^T -= w_i sum_k
+ *                D_k^T (mass fractions w: the mass fluxes then balance).
+ *  @param out_kT length N; sums to zero to round-off.
+ *  Fails: EINVAL (NULL, N < 1, NaN/inf), EBADLEN (N > capacity), EDOM
+ *  (fractions, Dij, c, M out of range) | Allocates: no */
+MCD_API mcd_status mcd_thermal_ratios(mcd_workspace *ws,
+                                      const mcd_state *state,
+                                      const double *DT, double *out_kT);
 
 /** Value for `dependent` arguments: pick the most abundant species. */
 #define MCD_DEPENDENT_AUTO ((size_t)-1)
@@ -800,6 +846,10 @@ typedef struct mcd_cells {
     const double *grad;     /**< their gradients [1/m], (N n_dim) x K */
     const double *grad_lnP; /**< gradient of ln P [1/m], n_dim x K, or
                                  NULL (no pressure diffusion) */
+    const double *kT;       /**< thermal diffusion ratios [-], N x K, or
+                                 NULL (as mcd_state.kT; Since 0.3) */
+    const double *grad_lnT; /**< gradient of ln T [1/m], n_dim x K, or
+                                 NULL (with kT: both or neither) */
 } mcd_cells;
 
 /** Batched diffusion fluxes of a mixture at many states (SoA layout, see
@@ -815,8 +865,8 @@ typedef struct mcd_cells {
  *  @param T           temperatures [K], length K, each > 0.
  *  @param P           pressures [Pa], length K, each > 0 (and c = P / (R T)
  *                     a normal number, >= DBL_MIN).
- *  @param cells       K, n_dim, comp_basis, comp, grad, grad_lnP
- *                     (mcd_cells); messages name the fields.
+ *  @param cells       K, n_dim, comp_basis, comp, grad, grad_lnP, kT,
+ *                     grad_lnT (mcd_cells); messages name the fields.
  *  @param flux_basis  MOLE: J_i [mol/(m^2 s)]; MASS: j_i [kg/(m^2 s)].
  *  @param out_flux    (N n_dim) x K; must not alias an input. Sums to zero
  *                     over species in each cell to round-off.
@@ -854,6 +904,7 @@ MCD_API mcd_status mcd_flux_batch_dij(mcd_workspace *ws, mcd_model model,
 /** As mcd_flux_batch with per-cell (array of structures) arrays, the
  *  layout of K consecutive single-state calls: cells->comp[k*N + i],
  *  cells->grad[(k*N + i)*n_dim + d], cells->grad_lnP[k*n_dim + d] (or NULL),
+ *  cells->kT[k*N + i] and cells->grad_lnT[k*n_dim + d] (or NULL),
  *  out_flux[(k*N + i)*n_dim + d]; T and P length K. Cells are transposed
  *  block by block into workspace memory (serially: no OpenMP here), so it
  *  is a little slower than the SoA call but much faster than K calls of

@@ -122,12 +122,14 @@ typedef struct ctx {
     /* enums and ints */
     int model, basis, basis2, kind, method, param, n_rings, Z, film_method;
     int status, use_gamma, use_glnp, fail_alloc;
+    int use_kT; /* bit 0: kT, bit 1: grad_lnT */
     unsigned bit;
     unsigned long long nul; /* NB_* bits */
     /* arrays */
     double M[NA], x[NA], x2[NA], y[NA], grad[NA * 3], D[NA * NA];
     double Gamma[NA * NA], glnP[3], vals[NA], Vbar[NA], J[NA * 3], Nf[NA];
     double zz[NA], tt[NA], F[NA * NA];
+    double kT[NA], glnT[3], DT[NA];
     const char *formula, *name, *text, *path, *mname, *mol, *find;
     const char *names[NA];
     /* results */
@@ -495,8 +497,21 @@ static int call_mcd_flux_compute(ctx *c)
                      .comp = ARG(x, NB_X),
                      .grad = ARG(grad, NB_GRAD),
                      .Gamma = c->use_gamma ? c->Gamma : NULL,
-                     .grad_lnP = c->use_glnp ? c->glnP : NULL},
+                     .grad_lnP = c->use_glnp ? c->glnP : NULL,
+                     .kT = (c->use_kT & 1) ? c->kT : NULL,
+                     .grad_lnT = (c->use_kT & 2) ? c->glnT : NULL},
         (mcd_basis)c->basis2, OUT(o1, NB_O1));
+}
+static int call_mcd_thermal_ratios(ctx *c)
+{
+    return mcd_thermal_ratios(WS,
+                              &(mcd_state){.n_species = c->n,
+                                           .M = ARG(M, NB_M),
+                                           .Dij = ARG(D, NB_D),
+                                           .c = c->c,
+                                           .comp_basis = (mcd_basis)c->basis,
+                                           .comp = ARG(x, NB_X)},
+                              ARG(DT, NB_VALS), OUT(o1, NB_O1));
 }
 static int call_mcd_fick_matrix(ctx *c)
 {
@@ -625,7 +640,9 @@ static int call_mcd_flux_batch(ctx *c)
                      .comp_basis = (mcd_basis)c->basis,
                      .comp = ARG(x, NB_X),
                      .grad = ARG(grad, NB_GRAD),
-                     .grad_lnP = c->use_glnp ? c->glnP : NULL},
+                     .grad_lnP = c->use_glnp ? c->glnP : NULL,
+                     .kT = (c->use_kT & 1) ? c->kT : NULL,
+                     .grad_lnT = (c->use_kT & 2) ? c->glnT : NULL},
         (mcd_basis)c->basis2, OUT(o1, NB_O1));
 }
 static int call_mcd_flux_batch_dij(ctx *c)
@@ -638,7 +655,9 @@ static int call_mcd_flux_batch_dij(ctx *c)
                      .comp_basis = (mcd_basis)c->basis,
                      .comp = ARG(x, NB_X),
                      .grad = ARG(grad, NB_GRAD),
-                     .grad_lnP = c->use_glnp ? c->glnP : NULL},
+                     .grad_lnP = c->use_glnp ? c->glnP : NULL,
+                     .kT = (c->use_kT & 1) ? c->kT : NULL,
+                     .grad_lnT = (c->use_kT & 2) ? c->glnT : NULL},
         (mcd_basis)c->basis2, OUT(o1, NB_O1));
 }
 static int call_mcd_flux_batch_aos(ctx *c)
@@ -651,7 +670,9 @@ static int call_mcd_flux_batch_aos(ctx *c)
                      .comp_basis = (mcd_basis)c->basis,
                      .comp = ARG(x, NB_X),
                      .grad = ARG(grad, NB_GRAD),
-                     .grad_lnP = c->use_glnp ? c->glnP : NULL},
+                     .grad_lnP = c->use_glnp ? c->glnP : NULL,
+                     .kT = (c->use_kT & 1) ? c->kT : NULL,
+                     .grad_lnT = (c->use_kT & 2) ? c->glnT : NULL},
         (mcd_basis)c->basis2, OUT(o1, NB_O1));
 }
 static int call_mcd_workspace_set_iterative(ctx *c)
@@ -1265,6 +1286,15 @@ static const bcase cases[] = {
     C(mcd_flux_compute, "grad inf", EINVAL_, "grad", MDA(grad, 5, INFINITY)),
     C(mcd_flux_compute, "grad_lnP NaN", EINVAL_, "grad_lnP", MI(use_glnp, 1),
       MDA(glnP, 1, NAN)),
+    C(mcd_flux_compute, "kT without grad_lnT", EINVAL_, "grad_lnT",
+      MI(use_kT, 1)),
+    C(mcd_flux_compute, "grad_lnT without kT", EINVAL_, "kT", MI(use_kT, 2)),
+    C(mcd_flux_compute, "kT NaN", EINVAL_, "kT", MI(use_kT, 3),
+      MDA(kT, 1, NAN)),
+    C(mcd_flux_compute, "grad_lnT inf", EINVAL_, "grad_lnT", MI(use_kT, 3),
+      MDA(glnT, 1, INFINITY)),
+    C(mcd_flux_compute, "MA model, kT inf", EINVAL_, "kT", MI(use_kT, 3),
+      MI(model, MCD_MODEL_MIXTURE_AVERAGED), MDA(kT, 2, -INFINITY)),
     C(mcd_flux_compute, "c NaN", EINVAL_, "c", MD(c, NAN)),
     C(mcd_flux_compute, "c inf", EINVAL_, "c", MD(c, INFINITY)),
     C(mcd_flux_compute, "c 0", EDOM_, "c", MD(c, 0.0)),
@@ -1280,6 +1310,23 @@ static const bcase cases[] = {
       MI(model, MCD_MODEL_MIXTURE_AVERAGED), MDA(x, 1, -0.1), MDA(x, 0, 0.9)),
     C(mcd_flux_compute, "MA model, c 0", EDOM_, "c",
       MI(model, MCD_MODEL_MIXTURE_AVERAGED), MD(c, 0.0)),
+    B(mcd_thermal_ratios, MCD_OK),
+    C(mcd_thermal_ratios, "ws NULL", EINVAL_, NULL, MN(NB_WS)),
+    C(mcd_thermal_ratios, "n 0", EINVAL_, "n_species", MZ(n, 0)),
+    C(mcd_thermal_ratios, "n above capacity", MCD_EBADLEN, "n_species",
+      MZ(n, 4)),
+    C(mcd_thermal_ratios, "M NULL", EINVAL_, "M", MN(NB_M)),
+    C(mcd_thermal_ratios, "M 0", EDOM_, "M", MDA(M, 1, 0.0)),
+    C(mcd_thermal_ratios, "Dij NULL", EINVAL_, "Dij", MN(NB_D)),
+    C(mcd_thermal_ratios, "Dij 0", EDOM_, "Dij", MDA(D, 1, 0.0),
+      MDA(D, 3, 0.0)),
+    C(mcd_thermal_ratios, "comp NaN", EINVAL_, "comp", MDA(x, 1, NAN)),
+    C(mcd_thermal_ratios, "comp sum 0.5", EDOM_, "comp", MDA(x, 0, 0.0)),
+    C(mcd_thermal_ratios, "c 0", EDOM_, "c", MD(c, 0.0)),
+    C(mcd_thermal_ratios, "DT NULL", EINVAL_, "DT", MN(NB_VALS)),
+    C(mcd_thermal_ratios, "DT NaN", EINVAL_, "DT", MDA(DT, 2, NAN)),
+    C(mcd_thermal_ratios, "out NULL", EINVAL_, "out_kT", MN(NB_O1)),
+    C(mcd_thermal_ratios, "comp basis 7", EINVAL_, "comp_basis", MI(basis, 7)),
     FLUX_COMMON(mcd_fick_matrix),
     /* as above */
     C(mcd_fick_matrix, "Dij subnormal", EDOM_, "subnormal", MDA(D, 1, 4.9e-324),
@@ -1441,7 +1488,11 @@ static const bcase cases[] = {
         C(fn, "comp sum 0.5", EDOM_, "cell", MDA(x, 0, 0.0)),                  \
         C(fn, "grad inf", EINVAL_, "cell", MDA(grad, 3, INFINITY)),            \
         C(fn, "grad_lnP NaN", EINVAL_, "cell", MI(use_glnp, 1),                \
-          MDA(glnP, 1, NAN))
+          MDA(glnP, 1, NAN)),                                                  \
+        C(fn, "kT NaN", EINVAL_, "cell", MI(use_kT, 3), MDA(kT, 1, NAN)),      \
+        C(fn, "grad_lnT inf", EINVAL_, "cell", MI(use_kT, 3),                  \
+          MDA(glnT, 0, INFINITY)),                                             \
+        C(fn, "kT without grad_lnT", EINVAL_, "grad_lnT", MI(use_kT, 1))
 #define BATCH_MIX(fn)                                                          \
     BATCH_COMMON(fn), C(fn, "mix NULL", EINVAL_, "mix", MN(NB_MIX)),           \
         C(fn, "T NULL", EINVAL_, "T", MN(NB_T)),                               \
@@ -1710,6 +1761,13 @@ static void ctx_init(ctx *c)
         c->D[2] = c->D[6] = Dp[1];
         c->D[5] = c->D[7] = Dp[2];
         c->glnP[0] = 0.1;
+        c->kT[0] = 0.01;
+        c->kT[1] = -0.004;
+        c->kT[2] = -0.006;
+        c->glnT[0] = 0.5;
+        c->DT[0] = 1e-6;
+        c->DT[1] = -4e-7;
+        c->DT[2] = -6e-7;
         c->F[0] = 2e-5;
         c->F[1] = 1e-6;
         c->F[2] = 2e-6;
@@ -1825,6 +1883,7 @@ typedef struct inputs {
         Gamma[NA * NA];
     double glnP[3], vals[NA], Vbar[NA], J[NA * 3], Nf[NA], zz[NA], tt[NA],
         F[NA * NA];
+    double kT[NA], glnT[3], DT[NA];
 } inputs;
 
 static void snap_inputs(const ctx *c, inputs *in)
@@ -1845,6 +1904,9 @@ static void snap_inputs(const ctx *c, inputs *in)
     CP(zz);
     CP(tt);
     CP(F);
+    CP(kT);
+    CP(glnT);
+    CP(DT);
 #undef CP
 }
 

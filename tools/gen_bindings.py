@@ -857,6 +857,7 @@ FORTRAN_SCALAR = {
     "mcd_workspace_new_with": ["allocator"],
     "mcd_flux_compute": ["state"],
     "mcd_fick_matrix": ["state"],
+    "mcd_thermal_ratios": ["state"],
     "mcd_flux_batch": ["cells"],
     "mcd_flux_batch_dij": ["cells"],
     "mcd_flux_batch_aos": ["cells"],

@@ -188,6 +188,10 @@ typedef struct cli_state {
     double *grad;                 /* n x n_dim, in comp_basis */
     double grad_lnP[MCD_MAX_DIM];
     int have_grad_lnP;
+    double kT[MCD_MAX_SPECIES]; /* --thermal-ratios [-] */
+    int have_kT;
+    double dTdz[MCD_MAX_DIM]; /* --temperature-gradient [K/m] */
+    int have_dTdz;
     size_t dependent; /* MCD_DEPENDENT_AUTO or index */
     const char *dependent_name;
     const char *file; /* --species-file or NULL */

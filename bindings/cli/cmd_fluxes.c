@@ -40,6 +40,13 @@ static void help(FILE *f)
         "                            repeat per pair, the rest are estimated\n"
         "  --grad-lnp LIST           gradient of ln P [1/m], one value per\n"
         "                            direction (pressure diffusion)\n"
+        "  --thermal-ratios LIST     thermal diffusion ratios k_T [-], one\n"
+        "                            per species, summing to 0 (k_T > 0:\n"
+        "                            the species moves to the cold side)\n"
+        "  --temperature-gradient LIST\n"
+        "                            dT/dz [K/m], one value per direction;\n"
+        "                            with --thermal-ratios (both or "
+        "neither)\n"
         "  --dependent NAME          species left out of the Fick matrix\n"
         "                            (default: the most abundant)\n"
         "  --json                    one JSON object (SI): fluxes under\n"
@@ -64,7 +71,7 @@ int cli_cmd_fluxes(int argc, char **argv)
     const char *cmd = "fluxes";
     cli_state s;
     int rc;
-    double *flux = NULL, *gout = NULL, *D = NULL;
+    double *flux = NULL, *gout = NULL, *D = NULL, glnT[MCD_MAX_DIM];
     unsigned *flags = NULL;
     size_t dep = 0, n;
     mcd_status st;
@@ -86,6 +93,9 @@ int cli_cmd_fluxes(int argc, char **argv)
         rc = cli_fail(cmd, "setting up", MCD_ENOMEM, NULL);
         goto done;
     }
+    for (dep = 0; dep < s.n_dim; dep++) /* grad ln T = (dT/dz) / T */
+        glnT[dep] = s.have_dTdz ? s.dTdz[dep] / s.T : 0.0;
+    dep = 0;
     st = mcd_flux_compute(
         s.ws, s.model,
         &(mcd_state){.n_species = n,
@@ -96,7 +106,9 @@ int cli_cmd_fluxes(int argc, char **argv)
                      .comp_basis = s.comp_basis,
                      .comp = s.comp,
                      .grad = s.grad,
-                     .grad_lnP = s.have_grad_lnP ? s.grad_lnP : NULL},
+                     .grad_lnP = s.have_grad_lnP ? s.grad_lnP : NULL,
+                     .kT = s.have_kT ? s.kT : NULL,
+                     .grad_lnT = s.have_kT ? glnT : NULL},
         s.out_basis, flux);
     if (st != MCD_OK) {
         rc = cli_fail(cmd, "the flux computation", st, mcd_last_error());
@@ -135,6 +147,12 @@ int cli_cmd_fluxes(int argc, char **argv)
         cli_json_array_end(&j);
         if (s.have_grad_lnP)
             cli_json_numbers(&j, "grad_lnP", s.grad_lnP, s.n_dim);
+        if (s.have_kT) {
+            cli_json_numbers(&j, "thermal_ratios", s.kT, n);
+            cli_json_numbers(&j, "temperature_gradient_K_per_m", s.dTdz,
+                             s.n_dim);
+            cli_json_numbers(&j, "grad_lnT", glnT, s.n_dim);
+        }
         cli_state_json_binaries(&s, &j);
         cli_json_fluxes(&s, flux, flags, &j);
         cli_json_fick(&s, D, dep, &j);
@@ -155,6 +173,9 @@ int cli_cmd_fluxes(int argc, char **argv)
                    : "mass, relative to the mass-average velocity");
         if (s.have_grad_lnP)
             printf("  (including pressure diffusion)\n");
+        if (s.have_kT)
+            printf("  (including thermal diffusion, the given k_T; the flags "
+                   "compare with the composition gradients only)\n");
         cli_print_fluxes(&s, flux, flags, stdout);
         cli_print_fick(&s, D, dep, stdout);
         printf("%s\n", CLI_CAUTION_SHORT);

@@ -8,13 +8,15 @@
 #include <string.h>
 #include "cli.h"
 
-enum { O_X = 1, O_W, O_GRAD, O_DLNP, O_MODEL, O_BASIS, O_DEP };
+enum { O_X = 1, O_W, O_GRAD, O_DLNP, O_KT, O_DTDZ, O_MODEL, O_BASIS, O_DEP };
 
 static const cli_opt state_opts[] = {CLI_MIXTURE_OPTIONS,
                                      {"mole-fractions", 'x', 1, O_X},
                                      {"mass-fractions", 'w', 1, O_W},
                                      {"gradient", 'g', 1, O_GRAD},
                                      {"grad-lnp", 0, 1, O_DLNP},
+                                     {"thermal-ratios", 0, 1, O_KT},
+                                     {"temperature-gradient", 0, 1, O_DTDZ},
                                      {"model", 0, 1, O_MODEL},
                                      {"basis", 0, 1, O_BASIS},
                                      {"dependent", 0, 1, O_DEP},
@@ -145,6 +147,34 @@ int cli_state_require(const cli_state *s, const char *cmd)
     return CLI_OK;
 }
 
+/* --thermal-ratios (one value per species) and --temperature-gradient (one
+ * per direction): both or neither, fluxes only. */
+static int thermal_options(const cli_state *s, const char *cmd, int need_grad,
+                           size_t nkT, size_t ndT)
+{
+    if (!s->have_kT && !s->have_dTdz)
+        return CLI_OK;
+    if (!need_grad)
+        return cli_usage_error(
+            cmd, s->have_kT ? "--thermal-ratios" : "--temperature-gradient",
+            "not used here: thermal diffusion changes "
+            "the fluxes, not the Fick matrix");
+    if (!s->have_kT || !s->have_dTdz)
+        return cli_usage_error(
+            cmd, s->have_kT ? "--temperature-gradient" : "--thermal-ratios",
+            "is required with %s (thermal diffusion "
+            "needs both)",
+            s->have_kT ? "--thermal-ratios" : "--temperature-gradient");
+    if (nkT != s->n)
+        return cli_usage_error(cmd, "--thermal-ratios",
+                               "has %zu values for %zu species", nkT, s->n);
+    if (ndT != s->n_dim)
+        return cli_usage_error(cmd, "--temperature-gradient",
+                               "needs one value per direction (%zu given, "
+                               "%zu directions)",
+                               ndT, s->n_dim);
+    return CLI_OK;
+}
 int cli_state_parse(cli_state *s, const char *cmd, int argc, char **argv,
                     int need_grad, void (*help)(FILE *))
 {
@@ -155,7 +185,7 @@ int cli_state_parse(cli_state *s, const char *cmd, int argc, char **argv,
     size_t nrow[MCD_MAX_DIM] = {0};
     char why[200];
     double comp_tmp[MCD_MAX_SPECIES];
-    size_t ndlnp = 0;
+    size_t ndlnp = 0, nkT = 0, ndT = 0;
 
     cli_state_defaults(s);
     cli_args_init(&a, cmd, argc, argv, state_opts);
@@ -201,6 +231,22 @@ int cli_state_parse(cli_state *s, const char *cmd, int argc, char **argv,
                                sizeof why) != 0)
                 return cli_usage_error(cmd, a.spelled, "%s", why);
             s->have_grad_lnP = 1;
+            break;
+        case O_KT:
+            if (s->have_kT)
+                return cli_usage_error(cmd, a.spelled, "given twice");
+            if (cli_parse_list(a.value, s->kT, MCD_MAX_SPECIES, &nkT, why,
+                               sizeof why) != 0)
+                return cli_usage_error(cmd, a.spelled, "%s", why);
+            s->have_kT = 1;
+            break;
+        case O_DTDZ:
+            if (s->have_dTdz)
+                return cli_usage_error(cmd, a.spelled, "given twice");
+            if (cli_parse_list(a.value, s->dTdz, MCD_MAX_DIM, &ndT, why,
+                               sizeof why) != 0)
+                return cli_usage_error(cmd, a.spelled, "%s", why);
+            s->have_dTdz = 1;
             break;
         case O_MODEL:
             if (need_grad == 0)
@@ -260,6 +306,8 @@ int cli_state_parse(cli_state *s, const char *cmd, int argc, char **argv,
                                "needs one value per direction (%zu given, "
                                "%zu directions)",
                                ndlnp, s->n_dim);
+    if ((rc = thermal_options(s, cmd, need_grad, nkT, ndT)) != CLI_OK)
+        return rc;
 
     s->comp_basis = have_x ? MCD_BASIS_MOLE : MCD_BASIS_MASS;
     if (!have_basis)

@@ -151,7 +151,7 @@ module mcdiff
        mcd_mixture_molar_masses, mcd_mixture_set_method, &
        mcd_mixture_set_binary, mcd_mixture_binaries, &
        mcd_workspace_new, mcd_workspace_capacity, mcd_last_error, &
-       mcd_flux_compute, mcd_fick_matrix, mcd_fick_fluxes, &
+       mcd_flux_compute, mcd_thermal_ratios, mcd_fick_matrix, mcd_fick_fluxes, &
        mcd_fick_eigenvalues, mcd_flux_convert, mcd_flux_total, &
        mcd_flux_project, mcd_flux_diagnose, mcd_film_solve, mcd_film_profile, &
        mcd_flux_batch, mcd_flux_batch_dij, mcd_flux_batch_aos, &
@@ -939,8 +939,10 @@ contains
   !>   M(n) needed for MASS bases and pressure diffusion.
   !>   Gamma(n, n): pass the TRANSPOSE of the thermodynamic factor matrix
   !>   (Gamma(j, i) = Gamma_ij); absent = ideal. grad_lnP(n_dim) optional.
+  !>   Thermal diffusion: kT(n) thermal diffusion ratios with grad_lnT(n_dim),
+  !>   both or neither (mcd_thermal_ratios makes kT from D^T).
   subroutine mcd_flux_compute(ws, model, n, n_dim, Dij, c, comp_basis, comp, &
-       grad_comp, flux_basis, flux, stat, errmsg, M, Gamma, grad_lnP)
+       grad_comp, flux_basis, flux, stat, errmsg, M, Gamma, grad_lnP, kT, grad_lnT)
     type(mcd_workspace_t), intent(inout) :: ws
     integer, intent(in) :: model, n, n_dim, comp_basis, flux_basis
     real(c_double), intent(in), target :: Dij(n, n), comp(n), grad_comp(n_dim, n)
@@ -949,6 +951,7 @@ contains
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
     real(c_double), intent(in), optional, target :: M(n), Gamma(n, n), grad_lnP(n_dim)
+    real(c_double), intent(in), optional, target :: kT(n), grad_lnT(n_dim)
     type(mcd_state_t) :: st
     st%n_species = csz(n)
     st%n_dim = csz(n_dim)
@@ -960,9 +963,32 @@ contains
     if (present(M)) st%M = c_loc(M)
     if (present(Gamma)) st%Gamma = c_loc(Gamma)
     if (present(grad_lnP)) st%grad_lnP = c_loc(grad_lnP)
+    if (present(kT)) st%kT = c_loc(kT)
+    if (present(grad_lnT)) st%grad_lnT = c_loc(grad_lnT)
     call finish(c_mcd_flux_compute(ws%ptr, int(model, c_int), st, &
          int(flux_basis, c_int), flux), stat, errmsg)
   end subroutine mcd_flux_compute
+
+  !> Thermal diffusion ratios kT(n) from thermal diffusion coefficients
+  !> DT(n) [kg/(m s)] at a state (M(n) required).
+  subroutine mcd_thermal_ratios(ws, n, Dij, c, comp_basis, comp, M, DT, kT, &
+       stat, errmsg)
+    type(mcd_workspace_t), intent(inout) :: ws
+    integer, intent(in) :: n, comp_basis
+    real(c_double), intent(in), target :: Dij(n, n), comp(n), M(n)
+    real(c_double), intent(in) :: c, DT(n)
+    real(c_double), intent(inout) :: kT(n)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    type(mcd_state_t) :: st
+    st%n_species = csz(n)
+    st%comp_basis = int(comp_basis, c_int)
+    st%c = c
+    st%Dij = c_loc(Dij)
+    st%comp = c_loc(comp)
+    st%M = c_loc(M)
+    call finish(c_mcd_thermal_ratios(ws%ptr, st, DT, kT), stat, errmsg)
+  end subroutine mcd_thermal_ratios
 
   !> Generalized Fick matrix. D(n-1, n-1) receives the TRANSPOSE of [D]
   !> (D(j, i) = [D]_ij over the species other than the dependent one, in
@@ -1270,11 +1296,12 @@ contains
 
   !> Fluxes of a mixture at n_cells states, structure-of-arrays layout:
   !> T(n_cells), P(n_cells), comp(n_cells, N), grad(n_cells, n_dim, N),
-  !> flux(n_cells, n_dim, N), grad_lnP(n_cells, n_dim) optional;
+  !> flux(n_cells, n_dim, N), grad_lnP(n_cells, n_dim) optional, thermal
+  !> diffusion kT(n_cells, N) with grad_lnT(n_cells, n_dim) optional;
   !> N = mcd_mixture_species_count(mix). On a cell error other cells' fluxes may
   !> already be written (errmsg names the lowest failing cell).
   subroutine mcd_flux_batch(ws, mix, model, n_cells, n_dim, T, P, comp_basis, comp, &
-       grad, flux_basis, flux, stat, errmsg, grad_lnP)
+       grad, flux_basis, flux, stat, errmsg, grad_lnP, kT, grad_lnT)
     type(mcd_workspace_t), intent(inout) :: ws
     type(mcd_mixture_t), intent(in) :: mix
     integer, intent(in) :: model, n_cells, n_dim, comp_basis, flux_basis
@@ -1284,18 +1311,22 @@ contains
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
     real(c_double), intent(in), optional, target :: grad_lnP(n_cells, n_dim)
+    real(c_double), intent(in), optional, target :: kT(n_cells, *), grad_lnT(n_cells, n_dim)
     type(mcd_cells_t) :: cells
     call set_cells(cells, n_cells, n_dim, comp_basis, c_loc(comp), c_loc(grad))
     if (present(grad_lnP)) cells%grad_lnP = c_loc(grad_lnP)
+    if (present(kT)) cells%kT = c_loc(kT)
+    if (present(grad_lnT)) cells%grad_lnT = c_loc(grad_lnT)
     call finish(c_mcd_flux_batch(ws%ptr, mix%ptr, int(model, c_int), T, P, &
          cells, int(flux_basis, c_int), flux), stat, errmsg)
   end subroutine mcd_flux_batch
 
   !> Batched fluxes with the caller's binary diffusivities Dij(n_cells, n, n)
   !> and concentrations c(n_cells); comp(n_cells, n), grad and flux
-  !> (n_cells, n_dim, n); M(n) and grad_lnP(n_cells, n_dim) optional.
+  !> (n_cells, n_dim, n); M(n) and grad_lnP(n_cells, n_dim) optional;
+  !> kT(n_cells, n) with grad_lnT(n_cells, n_dim) optional.
   subroutine mcd_flux_batch_dij(ws, model, n, n_cells, n_dim, Dij, c, comp_basis, &
-       comp, grad, flux_basis, flux, stat, errmsg, M, grad_lnP)
+       comp, grad, flux_basis, flux, stat, errmsg, M, grad_lnP, kT, grad_lnT)
     type(mcd_workspace_t), intent(inout) :: ws
     integer, intent(in) :: model, n, n_cells, n_dim, comp_basis, flux_basis
     real(c_double), intent(in) :: Dij(n_cells, n, n), c(n_cells)
@@ -1304,20 +1335,24 @@ contains
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
     real(c_double), intent(in), optional, target :: M(n), grad_lnP(n_cells, n_dim)
+    real(c_double), intent(in), optional, target :: kT(n_cells, n), grad_lnT(n_cells, n_dim)
     type(c_ptr) :: pM
     type(mcd_cells_t) :: cells
     pM = c_null_ptr
     if (present(M)) pM = c_loc(M)
     call set_cells(cells, n_cells, n_dim, comp_basis, c_loc(comp), c_loc(grad))
     if (present(grad_lnP)) cells%grad_lnP = c_loc(grad_lnP)
+    if (present(kT)) cells%kT = c_loc(kT)
+    if (present(grad_lnT)) cells%grad_lnT = c_loc(grad_lnT)
     call finish(c_mcd_flux_batch_dij(ws%ptr, int(model, c_int), csz(n), pM, Dij, &
          c, cells, int(flux_basis, c_int), flux), stat, errmsg)
   end subroutine mcd_flux_batch_dij
 
   !> As mcd_flux_batch with per-cell arrays: comp(N, n_cells), grad and
-  !> flux (n_dim, N, n_cells), grad_lnP(n_dim, n_cells) optional.
+  !> flux (n_dim, N, n_cells), grad_lnP(n_dim, n_cells) optional, kT(N,
+  !> n_cells) with grad_lnT(n_dim, n_cells) optional.
   subroutine mcd_flux_batch_aos(ws, mix, model, n_cells, n_dim, T, P, comp_basis, &
-       comp, grad, flux_basis, flux, stat, errmsg, grad_lnP)
+       comp, grad, flux_basis, flux, stat, errmsg, grad_lnP, kT, grad_lnT)
     type(mcd_workspace_t), intent(inout) :: ws
     type(mcd_mixture_t), intent(in) :: mix
     integer, intent(in) :: model, n_cells, n_dim, comp_basis, flux_basis
@@ -1327,9 +1362,12 @@ contains
     integer, intent(out) :: stat
     character(len=*), intent(out), optional :: errmsg
     real(c_double), intent(in), optional, target :: grad_lnP(n_dim, n_cells)
+    real(c_double), intent(in), optional, target :: kT(*), grad_lnT(n_dim, n_cells)
     type(mcd_cells_t) :: cells
     call set_cells(cells, n_cells, n_dim, comp_basis, c_loc(comp), c_loc(grad))
     if (present(grad_lnP)) cells%grad_lnP = c_loc(grad_lnP)
+    if (present(kT)) cells%kT = c_loc(kT)
+    if (present(grad_lnT)) cells%grad_lnT = c_loc(grad_lnT)
     call finish(c_mcd_flux_batch_aos(ws%ptr, mix%ptr, int(model, c_int), T, P, &
          cells, int(flux_basis, c_int), flux), stat, errmsg)
   end subroutine mcd_flux_batch_aos

@@ -13,6 +13,7 @@ program test_mcdiff
   call check_formulas()
   call check_fsg_against_experiment()
   call check_binary_limit()
+  call check_thermal_binary()
   call check_ternary()
   call check_film_stagnant()
   call check_batch()
@@ -182,6 +183,38 @@ contains
     write (*, '(a, es10.3)') 'binary limit: largest relative deviation ', worst
     call check(worst <= 1e-12_c_double, 'binary limit J1 = -c D12 grad x1')
   end subroutine check_binary_limit
+
+  ! Thermal diffusion, two species: k_T = rho D_1^T / (c^2 M_1 M_2 D_12)
+  ! and J_1 = -c D_12 (grad x_1 + k_T grad ln T) (Bird, Stewart and
+  ! Lightfoot 2002, sec. 24.2; from memory).
+  subroutine check_thermal_binary()
+    type(mcd_workspace_t) :: ws
+    real(c_double) :: Dij(2, 2), M(2), x(2), DT(2), kT(2), grad(1, 2), J(1, 2)
+    real(c_double) :: c, rho, want, ref, glnT(1)
+    integer :: stat
+    character(len=256) :: msg
+    Dij = reshape([0.0_c_double, 7.3e-5_c_double, 7.3e-5_c_double, 0.0_c_double], [2, 2])
+    M = [0.004_c_double, 0.040_c_double]
+    x = [0.4_c_double, 0.6_c_double]
+    DT = [3e-6_c_double, -3e-6_c_double]
+    c = 41.6_c_double
+    call mcd_workspace_new(ws, 2, stat, msg)
+    call check_stat(stat, msg, 'workspace')
+    kT = GUARD
+    call mcd_thermal_ratios(ws, 2, Dij, c, MCD_BASIS_MOLE, x, M, DT, kT, stat, msg)
+    call check_stat(stat, msg, 'thermal ratios')
+    rho = c * (x(1) * M(1) + x(2) * M(2))
+    want = rho * DT(1) / (c * c * M(1) * M(2) * Dij(1, 2))
+    call check(abs(kT(1) - want) <= 1e-13_c_double * want, 'k_T closed form')
+    grad(1, :) = [5.0_c_double, -5.0_c_double]
+    glnT = [20.0_c_double]
+    call mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, 2, 1, Dij, c, &
+         MCD_BASIS_MOLE, x, grad, MCD_BASIS_MOLE, J, stat, msg, kT=kT, grad_lnT=glnT)
+    call check_stat(stat, msg, 'thermal flux')
+    ref = -c * Dij(1, 2) * (grad(1, 1) + kT(1) * glnT(1))
+    call check(abs(J(1, 1) - ref) <= 1e-13_c_double * abs(ref), &
+         'thermal binary law J1 = -c D12 (grad x1 + kT grad ln T)')
+  end subroutine check_thermal_binary
 
   ! Ternary ideal gas H2 / N2 / CO2 (an invented state): fluxes sum to zero
   ! in both bases, and the Fick matrix in the documented transposed layout

@@ -289,17 +289,24 @@ mcd_status mcdi_check_finite(mcd_workspace *ws, size_t rows, size_t cols,
     return finite_locate(ws, rows, cols, p, 1, name);
 }
 
-mcd_status mcdi_check_finite_vec(mcd_workspace *ws, size_t n, const double *p,
-                                 const char *name)
+/* The first non-finite entry i of p[i s], named "entry i". */
+static mcd_status vec_locate(size_t n, const double *p, size_t s,
+                             const char *name)
 {
     size_t i;
-    if (p == NULL)
-        return mcdi_fail(MCD_EINVAL, "argument %s: NULL", name);
     for (i = 0; i < n; i++)
-        if (!mcdi_finite(p[i]))
+        if (!mcdi_finite(p[i * s]))
             return mcdi_fail(MCD_EINVAL, "argument %s: entry %zu is not finite",
                              name, i);
     return MCD_OK;
+}
+
+mcd_status mcdi_check_finite_vec(mcd_workspace *ws, size_t n, const double *p,
+                                 const char *name)
+{
+    if (p == NULL)
+        return mcdi_fail(MCD_EINVAL, "argument %s: NULL", name);
+    return vec_locate(n, p, 1, name);
 }
 
 mcd_status mcdi_check_finite_strided(mcd_workspace *ws, size_t rows,
@@ -307,6 +314,30 @@ mcd_status mcdi_check_finite_strided(mcd_workspace *ws, size_t rows,
                                      size_t stride, const char *name)
 {
     return finite_locate(ws, rows, cols, p, stride, name);
+}
+
+mcd_status mcdi_check_thermal(mcd_workspace *ws, size_t n, size_t nd,
+                              const double *kT, const double *grad_lnT)
+{
+    if (kT == NULL && grad_lnT == NULL)
+        return MCD_OK;
+    if (kT == NULL || grad_lnT == NULL)
+        return mcdi_fail(MCD_EINVAL,
+                         "argument %s: NULL while %s is given (thermal "
+                         "diffusion needs both)",
+                         kT == NULL ? "kT" : "grad_lnT",
+                         kT == NULL ? "grad_lnT" : "kT");
+    return mcdi_check_thermal_strided(ws, n, nd, kT, grad_lnT, 1);
+}
+
+mcd_status mcdi_check_thermal_strided(mcd_workspace *ws, size_t n, size_t nd,
+                                      const double *kT, const double *grad_lnT,
+                                      size_t stride)
+{
+    mcd_status st = vec_locate(n, kT, stride, "kT");
+    if (st != MCD_OK)
+        return st;
+    return finite_locate(ws, 1, nd, grad_lnT, stride, "grad_lnT");
 }
 
 mcd_status mcdi_check_conc(mcd_workspace *ws, double c, const char *name)

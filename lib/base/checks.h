@@ -86,6 +86,16 @@ mcd_status mcdi_check_finite(mcd_workspace *ws, size_t rows, size_t cols,
 #define MCDI_M_SPAN 1e12
 int mcdi_M_span_ok(size_t n, const double *M);
 
+/* Thermal diffusion inputs: the ratios kT (n, finite) and grad ln T (nd,
+ * finite), both given or both NULL (EINVAL naming the missing one). */
+mcd_status mcdi_check_thermal(mcd_workspace *ws, size_t n, size_t nd,
+                              const double *kT, const double *grad_lnT);
+/* The same rules and messages for one cell of a batched call (both
+ * given; entry e at p[e * stride]). */
+mcd_status mcdi_check_thermal_strided(mcd_workspace *ws, size_t n, size_t nd,
+                                      const double *kT, const double *grad_lnT,
+                                      size_t stride);
+
 /* A total concentration [mol/m^3]: finite (EINVAL), a normal positive
  * number (EDOM). */
 mcd_status mcdi_check_conc(mcd_workspace *ws, double c, const char *name);

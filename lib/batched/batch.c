@@ -80,8 +80,12 @@ static mcd_status check_cell(mcd_workspace *ws, const mcdi_bjob *jb, size_t k)
         (st = mcdi_check_finite_strided(ws, n, nd, jb->grad + k, K, "grad")) !=
             MCD_OK)
         return st;
-    if (jb->glnP != NULL)
-        st = mcdi_check_finite_strided(ws, 1, nd, jb->glnP + k, K, "grad_lnP");
+    if (jb->glnP != NULL &&
+        (st = mcdi_check_finite_strided(ws, 1, nd, jb->glnP + k, K,
+                                        "grad_lnP")) != MCD_OK)
+        return st;
+    if (jb->kT != NULL)
+        st = mcdi_check_thermal_strided(ws, n, nd, jb->kT + k, jb->glnT + k, K);
     return st;
 }
 
@@ -231,6 +235,12 @@ static mcd_status check_common(mcd_workspace *ws, mcd_model model, size_t n,
         (st = mcdi_check_ptr(ws, cl->grad, "grad")) != MCD_OK ||
         (st = mcdi_check_ptr(ws, out, "out_flux")) != MCD_OK)
         return st;
+    if ((cl->kT == NULL) != (cl->grad_lnT == NULL))
+        return mcdi_fail(MCD_EINVAL,
+                         "argument %s: NULL while %s is given (thermal "
+                         "diffusion needs both)",
+                         cl->kT == NULL ? "kT" : "grad_lnT",
+                         cl->kT == NULL ? "grad_lnT" : "kT");
     return MCD_OK;
 }
 
@@ -241,7 +251,8 @@ static int stream_choice(const mcdi_bjob *jb)
 {
     const size_t n = jb->n, nd = jb->nd;
     size_t per_cell = n + 2 * n * nd + (jb->mix != NULL ? 2 : 1 + n * n) +
-                      (jb->glnP != NULL ? nd : 0);
+                      (jb->glnP != NULL ? nd : 0) +
+                      (jb->kT != NULL ? n + nd : 0);
     double bytes = 8.0 * (double)per_cell * (double)jb->K;
     if (((uintptr_t)jb->out & 7u) != 0)
         return 0; /* lines are found from the address of a double */
@@ -268,6 +279,8 @@ static void job_init(mcdi_bjob *jb, const mcd_workspace *ws, mcd_model model,
     jb->comp = cl->comp;
     jb->grad = cl->grad;
     jb->glnP = cl->grad_lnP;
+    jb->kT = cl->kT;
+    jb->glnT = cl->grad_lnT;
     jb->out = out_flux;
     *need_M = cl->comp_basis == MCD_BASIS_MASS || fb == MCD_BASIS_MASS ||
               cl->grad_lnP != NULL;
@@ -357,7 +370,7 @@ mcd_status mcdi_api_flux_batch_dij(mcd_workspace *ws, mcd_model model,
 static mcd_status run_aos(mcd_workspace *ws, mcdi_bjob *jb, size_t n_cells)
 {
     const double *T = jb->T, *P = jb->P, *comp = jb->comp, *grad = jb->grad,
-                 *grad_lnP = jb->glnP;
+                 *grad_lnP = jb->glnP, *kT = jb->kT, *glnT = jb->glnT;
     double *out_flux = jb->out, iter_err = 0.0;
     const size_t n = jb->n, nd = jb->nd, L = jb->K;
     size_t k0, iter_used = 0;
@@ -374,6 +387,8 @@ static mcd_status run_aos(mcd_workspace *ws, mcdi_bjob *jb, size_t n_cells)
     jb->comp = sg.comp;
     jb->grad = sg.grad;
     jb->glnP = grad_lnP != NULL ? sg.glnP : NULL;
+    jb->kT = kT != NULL ? sg.kT : NULL;
+    jb->glnT = glnT != NULL ? sg.glnT : NULL;
     jb->out = sg.out;
     for (k0 = 0; k0 < n_cells; k0 += L) {
         size_t nv = n_cells - k0 < L ? n_cells - k0 : L, l, i, d;
@@ -389,6 +404,12 @@ static mcd_status run_aos(mcd_workspace *ws, mcdi_bjob *jb, size_t n_cells)
             if (grad_lnP != NULL)
                 for (d = 0; d < nd; d++)
                     sg.glnP[d * L + l] = grad_lnP[k * nd + d];
+            if (kT != NULL) {
+                for (i = 0; i < n; i++)
+                    sg.kT[i * L + l] = kT[k * n + i];
+                for (d = 0; d < nd; d++)
+                    sg.glnT[d * L + l] = glnT[k * nd + d];
+            }
         }
         run_block(jb, 0, nv, ws->batch_mem, &res);
         if (res.st != MCD_OK) {

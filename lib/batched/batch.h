@@ -33,6 +33,7 @@ typedef struct mcdi_bjob {
     const double *Dij, *c; /* per-cell mode */
     const double *M;       /* molar masses or NULL when not needed */
     const double *comp, *grad, *glnP;
+    const double *kT, *glnT; /* thermal diffusion: both or neither */
     double *out;
     int stream; /* stream full output lines past the caches
                                 * (kernels that can: v4; see batch.c) */

@@ -39,6 +39,8 @@
     R(r, n * nd) /* right-hand side, then the solution U */                 \
     R(v, n * nd) /* next iterate; grad ln P while loading */                \
     R(J, n * nd) /* fluxes */                                               \
+    R(kT, n)     /* thermal diffusion ratios */                             \
+    R(gT, nd)    /* grad ln T */                                            \
     R(Wt, MCDI_KTILE * n) /* W rows of a tile (ldl_solve_v) */              \
     R(cheb, MCDI_FIT_MAXDEG + 1) /* Chebyshev polynomials of ln T */        \
     R(c, 1)      /* concentration */                                        \
@@ -64,7 +66,8 @@ MCDI_DEFINE_LAYOUT(mcdi_kblock, MCDI_KBLOCK_REGIONS, mcdi_kblock_doubles,
  * SoA layout the kernels read, placed after the kernel's scratch. */
 /* clang-format off */
 #define MCDI_AOS_REGIONS(R)                                                 \
-    R(T, 1) R(P, 1) R(comp, n) R(grad, n * nd) R(glnP, nd) R(out, n * nd)
+    R(T, 1) R(P, 1) R(comp, n) R(grad, n * nd) R(glnP, nd) R(kT, n)        \
+    R(glnT, nd) R(out, n * nd)
 /* clang-format on */
 MCDI_DEFINE_LAYOUT(mcdi_aos_stage, MCDI_AOS_REGIONS, mcdi_aos_doubles,
                    mcdi_aos_carve)

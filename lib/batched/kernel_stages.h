@@ -88,7 +88,8 @@ KINLINE void stage_fractions(const mcdi_bjob *jb, const mcdi_kblock *b,
         mcdi_x_to_w_lanes(n, L, M, x, w);
 }
 
-/* The gradients (into d) and grad ln P (into v). */
+/* The gradients (into d), grad ln P (into v) and the thermal diffusion
+ * ratios and grad ln T (into kT, gT). */
 KINLINE int stage_load_forces(const mcdi_bjob *jb, const mcdi_kblock *b,
                               size_t k0, size_t nv, const size_t n,
                               const size_t L, const size_t nd)
@@ -109,6 +110,18 @@ KINLINE int stage_load_forces(const mcdi_bjob *jb, const mcdi_kblock *b,
                 bad |= !(fabs(v[dd * L + l]) <= DBL_MAX);
         }
     }
+    if (jb->kT != NULL) {
+        for (i = 0; i < n; i++) {
+            load_row(b->kT + i * L, jb->kT + i * K + k0, nv, L);
+            for_lanes_bad (l)
+                bad |= !(fabs(b->kT[i * L + l]) <= DBL_MAX);
+        }
+        for (dd = 0; dd < nd; dd++) {
+            load_row(b->gT + dd * L, jb->glnT + dd * K + k0, nv, L);
+            for_lanes_bad (l)
+                bad |= !(fabs(b->gT[dd * L + l]) <= DBL_MAX);
+        }
+    }
     return bad;
 }
 
@@ -121,7 +134,8 @@ KINLINE void stage_forces(const mcdi_bjob *jb, const mcdi_kblock *b,
     if (jb->comp_basis == MCD_BASIS_MASS)
         mcdi_grad_w_to_x_lanes(n, L, nd, jb->M, b->w, b->d, b->d);
     mcdi_driving_forces(n, L, nd, b->x, b->w, b->d, NULL,
-                        jb->glnP != NULL ? b->v : NULL, b->d);
+                        jb->glnP != NULL ? b->v : NULL,
+                        jb->kT != NULL ? b->kT : NULL, b->gT, b->d);
 }
 
 /* Inverse binary diffusivities (packed lower, i > j) from the caller's

@@ -13,7 +13,8 @@
 #include "base/workspace.h"
 
 /* mcd_flux_compute and its stages (ms_ldl.c, flux/solve_stages.h: the
- * rows of mcdi_rows with one lane, and the dense exact solve) */
+ * rows of mcdi_rows with one lane, and the dense exact solve), and
+ * mcd_thermal_ratios (x, w, DT, kT) */
 /* clang-format off */
 #define MCDI_FLUX_REGIONS(R)                                                \
     R(x, n) R(w, n)              /* mole and mass fractions */             \
@@ -31,7 +32,8 @@
     R(A, n * n)                  /* Gs + a s s^T and its factor */         \
     R(dinv, n)                   /* inverse pivots */                      \
     R(isq, n)                    /* 1/sqrt(x) (fused exact kernel) */      \
-    R(Yt, n * MCD_MAX_DIM)       /* LAPACK's right-hand sides */
+    R(Yt, n * MCD_MAX_DIM)       /* LAPACK's right-hand sides */          \
+    R(DT, n) R(kT, n)            /* mcd_thermal_ratios: D^T, k_T */
 /* clang-format on */
 
 /* mcd_fick_matrix and mcd_fick_eigenvalues */

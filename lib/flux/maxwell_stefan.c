@@ -163,7 +163,7 @@ static mcd_status check_state(mcd_workspace *ws, mcd_model model,
     if (s->grad_lnP != NULL &&
         (st = mcdi_check_finite(ws, 1, nd, s->grad_lnP, "grad_lnP")) != MCD_OK)
         return st;
-    return MCD_OK;
+    return mcdi_check_thermal(ws, n, nd, s->kT, s->grad_lnT);
 }
 
 /* Copy the fluxes out unless one is not finite (inputs at the edge of the
@@ -281,7 +281,8 @@ mcd_status mcdi_flux_state(mcd_workspace *ws, mcd_model model,
         mcdi_comp_grad_w_to_x(n, nd, M, w, s->grad, v.gx);
         gx = v.gx;
     }
-    mcdi_driving_forces(n, 1, nd, x, w, gx, s->Gamma, s->grad_lnP, d);
+    mcdi_driving_forces(n, 1, nd, x, w, gx, s->Gamma, s->grad_lnP, s->kT,
+                        s->grad_lnT, d);
     st = model == MCD_MODEL_ITERATIVE
              ? iterate(ws, n, nd, x, d, Dij, c, J)
              : solve_state(ws, &v, model, n, nd, Dij, c);

@@ -4,10 +4,13 @@
  * (batched/kernel_stages.h) with its lanes. Never installed.
  *
  * Driving forces:
- *   d_i = sum_j Gamma_ij grad x_j + (x_i - w_i) grad ln P,
+ *   d_i = sum_j Gamma_ij grad x_j + (x_i - w_i) grad ln P
+ *         + k_T,i grad ln T,
  * projected onto sum_i d_i = 0 with weights x (maxwell_stefan.c explains
- * why). A new driving force (thermal diffusion is next) is one more term
- * in mcdi_driving_forces, and one more input for the callers to load.
+ * why). The thermal term is that of the Maxwell-Stefan equations with
+ * thermal diffusion (flux/thermal.c derives k_T,i from the coefficients
+ * D_i^T). A new driving force is one more term in mcdi_driving_forces,
+ * and one more input for the callers to load and check.
  * Mass basis: j_i = M_i J_i - w_i sum_k M_k J_k (mcdi_mass_fluxes).
  */
 #ifndef MCD_FORCES_H
@@ -16,13 +19,15 @@
 #include "base/lanes.h"
 
 /* d from the mole-fraction gradients gx (d may be gx), the thermodynamic
- * factor Gamma (n x n row-major, one state: L = 1 only; NULL = ideal) and
- * grad ln P (nd rows of L lanes, NULL = none); x, w: fractions (w may be
- * NULL without grad ln P). */
+ * factor Gamma (n x n row-major, one state: L = 1 only; NULL = ideal),
+ * grad ln P (nd rows of L lanes, NULL = none; then w may be NULL) and
+ * thermal diffusion: the ratios kT (n rows of L lanes) with grad ln T (nd
+ * rows of L lanes), both NULL for none. x, w: fractions. */
 KINLINE void mcdi_driving_forces(const size_t n, const size_t L,
                                  const size_t nd, const double *restrict x,
                                  const double *w, const double *gx,
                                  const double *Gamma, const double *glnP,
+                                 const double *kT, const double *glnT,
                                  double *d)
 {
     const double *src = gx; /* the unprojected forces so far */
@@ -44,6 +49,14 @@ KINLINE void mcdi_driving_forces(const size_t n, const size_t L,
                     d[(i * nd + dd) * L + l] =
                         src[(i * nd + dd) * L + l] +
                         (x[i * L + l] - w[i * L + l]) * glnP[dd * L + l];
+        src = d;
+    }
+    if (kT != NULL) {
+        for (i = 0; i < n; i++)
+            for (dd = 0; dd < nd; dd++)
+                for_lanes (l)
+                    d[(i * nd + dd) * L + l] = src[(i * nd + dd) * L + l] +
+                                               kT[i * L + l] * glnT[dd * L + l];
         src = d;
     }
     /* onto sum_i d_i = 0 with weights x, from src in one pass */

@@ -394,6 +394,26 @@ class Fluxes(unittest.TestCase):
                                delta=1e-12)
         self.assertAlmostEqual(d["fick_matrix"][0][0] / D, 1.0, delta=1e-12)
 
+    def test_thermal_diffusion_binary_law(self):
+        # J_1 = -c D_12 (grad x_1 + k_T grad ln T), grad ln T = (dT/dz)/T
+        # (Bird, Stewart and Lightfoot 2002, sec. 24.2; from memory)
+        D, T, gx, kT, dTdz = 7.5e-5, 300.0, -10.0, 0.02, 600.0
+        d = run_json("fluxes", "-s", "H2,N2", "-x", "0.4,0.6", "-g",
+                     f"{gx},{-gx}", "-T", str(T), "-P", "1atm", "--pair",
+                     f"H2:N2={D}", "--thermal-ratios", f"{kT},{-kT}",
+                     "--temperature-gradient", str(dTdz))
+        c = ATM / (R * T)
+        want = -c * D * (gx + kT * dTdz / T)
+        self.assertAlmostEqual(d["fluxes"][0][0] / want, 1.0, delta=1e-12)
+        self.assertEqual(d["thermal_ratios"], [kT, -kT])
+        self.assertAlmostEqual(d["grad_lnT"][0], dTdz / T, delta=1e-15)
+        # one without the other names the missing option
+        code, _, err = run("fluxes", "-s", "H2,N2", "-x", "0.4,0.6", "-g",
+                           "1,-1", "-T", "300", "-P", "1atm",
+                           "--thermal-ratios", "0.02,-0.02")
+        self.assertEqual(code, 2)
+        self.assertIn("--temperature-gradient", err)
+
     def test_pair_in_cm2_per_s_and_scaled(self):
         a = run_json("fluxes", *STATE3, "-g", "1,0,-1", "--pair",
                      "H2:N2=0.8cm2/s")

@@ -456,6 +456,35 @@ class Fluxes(unittest.TestCase):
         print("\n  identities: worst relative differences %s"
               % ", ".join("%s %.1e" % kv for kv in sorted(worst.items())))
 
+    def test_thermal_diffusion_binary_law_and_batch(self):
+        # J_1 = -c D_12 (grad x_1 + k_T grad ln T) (Bird, Stewart and
+        # Lightfoot 2002, sec. 24.2; from memory), k_T from D^T by
+        # k_T = rho D_1^T / (c^2 M_1 M_2 D_12) (same source)
+        D = [[0, 7.3e-5], [7.3e-5, 0]]
+        M = [0.004, 0.040]
+        x = [0.4, 0.6]
+        c = 41.6
+        kT = flat(mcdiff.thermal_ratios(D, c, x, M, [3e-6, -3e-6]))
+        rho = c * (x[0] * M[0] + x[1] * M[1])
+        want = rho * 3e-6 / (c * c * M[0] * M[1] * 7.3e-5)
+        self.assertAlmostEqual(kT[0], want, delta=1e-13 * want)
+        self.assertAlmostEqual(kT[1], -want, delta=1e-13 * want)
+        J = flat(mcdiff.flux_compute(D, c, x, [5.0, -5.0], kT=kT,
+                                     grad_lnT=[20.0]))
+        ref = -c * 7.3e-5 * (5.0 + kT[0] * 20.0)
+        self.assertAlmostEqual(J[0], ref, delta=1e-13 * abs(ref))
+        # the batched call takes per-cell k_T (N, K) and grad ln T (K,)
+        K = 3
+        Jb = flat(mcdiff.flux_batch_dij(
+            [[[0] * K, [7.3e-5] * K], [[7.3e-5] * K, [0] * K]], [c] * K,
+            [[x[0]] * K, [x[1]] * K], [[5.0] * K, [-5.0] * K],
+            kT=[[kT[0]] * K, [kT[1]] * K], grad_lnT=[20.0] * K))
+        for k in range(K):
+            self.assertAlmostEqual(Jb[k], ref, delta=1e-13 * abs(ref))
+        with self.assertRaises(mcdiff.InvalidArgumentError) as e:
+            mcdiff.flux_compute(D, c, x, [5.0, -5.0], kT=kT)
+        self.assertIn("grad_lnT", str(e.exception))
+
     def test_result_shapes_follow_the_gradient(self):
         D = [[0, 2e-5, 3e-5], [2e-5, 0, 1e-5], [3e-5, 1e-5, 0]]
         x = [0.2, 0.3, 0.5]

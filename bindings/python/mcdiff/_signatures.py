@@ -164,6 +164,8 @@ SIGNATURES = {
     # --- Diffusion fluxes ---
     # (ws, model, state, flux_basis, out_flux)
     "mcd_flux_compute": (_ST, [_H, _E, _H, _E, _PD]),
+    # (ws, state, DT, out_kT)
+    "mcd_thermal_ratios": (_ST, [_H, _H, _PD, _PD]),
     # (ws, state, basis, dependent, out_D, out_dependent)
     "mcd_fick_matrix": (_ST, [_H, _H, _E, _SZ, _PD, _PSZ]),
     # (n_species, n_dim, D, dependent, c_or_rho, grad, out_flux)
@@ -232,6 +234,8 @@ class mcd_state(ctypes.Structure):
         ("grad", ctypes.POINTER(ctypes.c_double)),
         ("Gamma", ctypes.POINTER(ctypes.c_double)),
         ("grad_lnP", ctypes.POINTER(ctypes.c_double)),
+        ("kT", ctypes.POINTER(ctypes.c_double)),
+        ("grad_lnT", ctypes.POINTER(ctypes.c_double)),
     ]
 
 
@@ -244,6 +248,8 @@ class mcd_cells(ctypes.Structure):
         ("comp", ctypes.POINTER(ctypes.c_double)),
         ("grad", ctypes.POINTER(ctypes.c_double)),
         ("grad_lnP", ctypes.POINTER(ctypes.c_double)),
+        ("kT", ctypes.POINTER(ctypes.c_double)),
+        ("grad_lnT", ctypes.POINTER(ctypes.c_double)),
     ]
 
 

@@ -39,7 +39,8 @@ __all__ = [
     "binary_wilke_lee", "binary_wilke_chang", "binary_omega_d", "binary_scale",
     "binary_gas", "binary_liquid",
     # fluxes
-    "flux_compute", "fick_matrix", "fick_fluxes", "fick_eigenvalues",
+    "flux_compute", "thermal_ratios", "fick_matrix", "fick_fluxes",
+    "fick_eigenvalues",
     "flux_convert", "flux_to_volume_frame", "flux_to_species_frame",
     "flux_total", "flux_velocity_difference", "flux_project", "flux_diagnose",
     # batched
@@ -391,7 +392,8 @@ def binary_liquid(db, solute, solvent, T, mu_solvent):
 
 def flux_compute(Dij, c, comp, grad, *, M=None, model="maxwell-stefan",
                  comp_basis="mole", flux_basis=None, Gamma=None,
-                 grad_lnP=None, workspace=None, out=None):
+                 grad_lnP=None, kT=None, grad_lnT=None, workspace=None,
+                 out=None):
     """Diffusion fluxes of all species at one state (mcd_flux_compute).
 
     Dij: binary diffusivities (n x n) [m^2/s]; c: total concentration
@@ -401,7 +403,9 @@ def flux_compute(Dij, c, comp, grad, *, M=None, model="maxwell-stefan",
     comp_basis: "mole" gives J_i [mol/(m^2 s)] relative to the
     molar-average velocity, "mass" gives j_i [kg/(m^2 s)] relative to the
     mass-average velocity. Gamma: thermodynamic factors (n x n) or None
-    (ideal). grad_lnP: length n_dim or None. out: optional numpy array of
+    (ideal). grad_lnP: length n_dim or None. Thermal diffusion: kT, the
+    thermal diffusion ratios (length n, see thermal_ratios), with grad_lnT
+    [1/m] (length n_dim); both or neither. out: optional numpy array of
     the result's shape.
     """
     model = coerce(Model, model, "model")
@@ -415,17 +419,43 @@ def flux_compute(Dij, c, comp, grad, *, M=None, model="maxwell-stefan",
     G = _opt(Gamma, lambda v: _arrays.matrix(v, n, n, "Gamma"))
     lp = _opt(grad_lnP, lambda v: _arrays.vector(
         [v] if isinstance(v, (int, float)) else v, nd, "grad_lnP"))
+    kt = _opt(kT, lambda v: _arrays.vector(v, n, "kT"))
+    lt = _opt(grad_lnT, lambda v: _arrays.vector(
+        [v] if isinstance(v, (int, float)) else v, nd, "grad_lnT"))
     ws = _ws(workspace, n)
     o, was_1d = _field_out(n, nd, was_1d, out)
     state = mcd_state(n_species=n, n_dim=nd, comp_basis=cb, c=_sc(c, "c"),
                       M=_ptr(m), Dij=D.ptr, comp=x.ptr, grad=g.ptr,
-                      Gamma=_ptr(G), grad_lnP=_ptr(lp))
+                      Gamma=_ptr(G), grad_lnP=_ptr(lp), kT=_ptr(kt),
+                      grad_lnT=_ptr(lt))
     st = lib.mcd_flux_compute(ws._p(), model, ctypes.byref(state), fb,
                               o.ptr)
     ws.check(st, "mcd_flux_compute")
     if out is not None:
         return out
     return _field_result(o, was_1d)
+
+
+def thermal_ratios(Dij, c, comp, M, DT, *, comp_basis="mole",
+                   workspace=None):
+    """Thermal diffusion ratios k_T,i [-] from thermal diffusion
+    coefficients DT [kg/(m s)] (mcd_thermal_ratios), for flux_compute's
+    kT. Dij (n x n) [m^2/s], c [mol/m^3], comp (mole or mass fractions,
+    comp_basis), M [kg/mol] (required). DT is first made to sum to zero
+    (D_i^T -= w_i sum D^T); the result sums to zero."""
+    cb = coerce(Basis, comp_basis, "comp_basis")
+    x = _arrays.vector(comp, None, "comp")
+    n = x.shape[0]
+    D = _arrays.matrix(Dij, n, n, "Dij")
+    m = _arrays.vector(M, n, "M")
+    dt = _arrays.vector(DT, n, "DT")
+    ws = _ws(workspace, n)
+    o = _arrays.Output((n,))
+    state = mcd_state(n_species=n, comp_basis=cb, c=_sc(c, "c"), M=m.ptr,
+                      Dij=D.ptr, comp=x.ptr)
+    st = lib.mcd_thermal_ratios(ws._p(), ctypes.byref(state), dt.ptr, o.ptr)
+    ws.check(st, "mcd_thermal_ratios")
+    return o.result()
 
 
 def fick_matrix(Dij, comp, *, M=None, comp_basis="mole", Gamma=None,
@@ -692,9 +722,25 @@ def _batch_fields(N, K, comp, grad, grad_lnP, layout):
     return a, g, nd, lp
 
 
+def _batch_thermal(N, K, nd, kT, grad_lnT):
+    """Batched kT (N x K values) and grad_lnT (n_dim x K) or None."""
+    kt = lt = None
+    if kT is not None:
+        kt = _arrays.as_doubles(kT, "kT")
+        if kt.size != N * K:
+            raise ValueError("kT: expected %d values (N x K), got %d"
+                             % (N * K, kt.size))
+    if grad_lnT is not None:
+        lt = _arrays.as_doubles(grad_lnT, "grad_lnT")
+        if lt.size != nd * K:
+            raise ValueError("grad_lnT: expected %d values (n_dim x K), got "
+                             "%d" % (nd * K, lt.size))
+    return kt, lt
+
+
 def flux_batch(mixture, T, P, comp, grad, *, model="maxwell-stefan",
-               comp_basis="mole", flux_basis=None, grad_lnP=None,
-               layout="soa", workspace=None, out=None):
+               comp_basis="mole", flux_basis=None, grad_lnP=None, kT=None,
+               grad_lnT=None, layout="soa", workspace=None, out=None):
     """Diffusion fluxes of a Mixture at many states (cells) in one call
     (mcd_flux_batch, or mcd_flux_batch_aos with layout="aos").
 
@@ -702,6 +748,8 @@ def flux_batch(mixture, T, P, comp, grad, *, model="maxwell-stefan",
     K) or (N, K) for one direction, grad_lnP (n_dim, K) or (K,).
     layout "aos" (cells first): comp (K, N), grad (K, N, n_dim) or (K, N),
     grad_lnP (K, n_dim) or (K,). T [K] and P [Pa]: length K or scalars.
+    Thermal diffusion: kT (N, K) for "soa", (K, N) for "aos", with
+    grad_lnT laid out as grad_lnP; both or neither.
     The result has the shape of grad. model may also be "iterative"
     (settings: Workspace.set_iterative).
     """
@@ -725,11 +773,13 @@ def flux_batch(mixture, T, P, comp, grad, *, model="maxwell-stefan",
     Ta = _per_cell(T, K, "T")
     Pa = _per_cell(P, K, "P")
     a, g, nd, lp = _batch_fields(N, K, comp, grad, grad_lnP, layout)
+    kt, lt = _batch_thermal(N, K, nd, kT, grad_lnT)
     ws = _ws(workspace, N)
     o = _arrays.Output(g.shape, out)
     fname = "mcd_flux_batch" if layout == "soa" else "mcd_flux_batch_aos"
     cells = mcd_cells(n_cells=K, n_dim=nd, comp_basis=cb, comp=a.ptr,
-                      grad=g.ptr, grad_lnP=_ptr(lp))
+                      grad=g.ptr, grad_lnP=_ptr(lp), kT=_ptr(kt),
+                      grad_lnT=_ptr(lt))
     st = getattr(lib, fname)(ws._p(), mixture._p(), mdl, Ta.ptr, Pa.ptr,
                              ctypes.byref(cells), fb, o.ptr)
     ws.check(st, fname)
@@ -738,12 +788,13 @@ def flux_batch(mixture, T, P, comp, grad, *, model="maxwell-stefan",
 
 def flux_batch_dij(Dij, c, comp, grad, *, M=None, model="maxwell-stefan",
                    comp_basis="mole", flux_basis=None, grad_lnP=None,
-                   workspace=None, out=None):
+                   kT=None, grad_lnT=None, workspace=None, out=None):
     """Batched fluxes with your own per-cell binary diffusivities
     (mcd_flux_batch_dij, cells last): Dij (N, N, K) [m^2/s], c (K,)
     [mol/m^3], comp (N, K), grad (N, n_dim, K) or (N, K), grad_lnP
     (n_dim, K) or (K,). M (N,) [kg/mol] for the mass basis or pressure
-    diffusion. The result has the shape of grad."""
+    diffusion. Thermal diffusion: kT (N, K) with grad_lnT (n_dim, K).
+    The result has the shape of grad."""
     mdl = coerce(Model, model, "model")
     cb = coerce(Basis, comp_basis, "comp_basis")
     fb = cb if flux_basis is None else coerce(Basis, flux_basis, "flux_basis")
@@ -761,11 +812,13 @@ def flux_batch_dij(Dij, c, comp, grad, *, M=None, model="maxwell-stefan",
         raise ValueError("Dij: expected shape %s, got %s"
                          % ((N, N, K), D.shape))
     a, g, nd, lp = _batch_fields(N, K, a0, grad, grad_lnP, "soa")
+    kt, lt = _batch_thermal(N, K, nd, kT, grad_lnT)
     m = _opt(M, lambda v: _arrays.vector(v, N, "M"))
     ws = _ws(workspace, N)
     o = _arrays.Output(g.shape, out)
     cells = mcd_cells(n_cells=K, n_dim=nd, comp_basis=cb, comp=a.ptr,
-                      grad=g.ptr, grad_lnP=_ptr(lp))
+                      grad=g.ptr, grad_lnP=_ptr(lp), kT=_ptr(kt),
+                      grad_lnT=_ptr(lt))
     st = lib.mcd_flux_batch_dij(ws._p(), mdl, N, _ptr(m), D.ptr, ca.ptr,
                                 ctypes.byref(cells), fb, o.ptr)
     ws.check(st, "mcd_flux_batch_dij")
