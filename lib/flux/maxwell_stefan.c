@@ -142,14 +142,28 @@ static mcd_status check_state(mcd_workspace *ws, mcd_model model,
                               int iterative_ok)
 {
     const size_t n = s->n_species, nd = s->n_dim;
+    const double c = s->c;
     mcd_status st;
-    if ((st = mcdi_check_species(ws, n, 1, 0, "n_species")) != MCD_OK ||
-        (st = mcdi_check_dim(ws, nd)) != MCD_OK ||
-        (st = mcdi_check_model(ws, model, iterative_ok)) != MCD_OK ||
-        (st = mcdi_check_basis(ws, s->comp_basis, "comp_basis")) != MCD_OK ||
-        (st = mcdi_check_basis(ws, flux_basis, "flux_basis")) != MCD_OK ||
-        (st = mcdi_check_ptr(ws, out_flux, "out_flux")) != MCD_OK ||
-        (st = mcdi_check_conc(ws, s->c, "c")) != MCD_OK)
+    /* The usual call passes every scalar check: one test of them all
+     * (each condition is the one its check below tests; c finite and
+     * normal as c in [DBL_MIN, DBL_MAX], false for NaN), and the checks,
+     * in the documented order, name the first failure otherwise. */
+    const int scalars_ok =
+        n >= 1 && n <= ws->cap && nd >= 1 && nd <= MCD_MAX_DIM &&
+        (model == MCD_MODEL_MAXWELL_STEFAN ||
+         model == MCD_MODEL_MIXTURE_AVERAGED ||
+         (iterative_ok && model == MCD_MODEL_ITERATIVE)) &&
+        (s->comp_basis == MCD_BASIS_MOLE || s->comp_basis == MCD_BASIS_MASS) &&
+        (flux_basis == MCD_BASIS_MOLE || flux_basis == MCD_BASIS_MASS) &&
+        out_flux != NULL && c >= DBL_MIN && c <= DBL_MAX;
+    if (!scalars_ok &&
+        ((st = mcdi_check_species(ws, n, 1, 0, "n_species")) != MCD_OK ||
+         (st = mcdi_check_dim(ws, nd)) != MCD_OK ||
+         (st = mcdi_check_model(ws, model, iterative_ok)) != MCD_OK ||
+         (st = mcdi_check_basis(ws, s->comp_basis, "comp_basis")) != MCD_OK ||
+         (st = mcdi_check_basis(ws, flux_basis, "flux_basis")) != MCD_OK ||
+         (st = mcdi_check_ptr(ws, out_flux, "out_flux")) != MCD_OK ||
+         (st = mcdi_check_conc(ws, c, "c")) != MCD_OK))
         return st;
     if (need_M && (st = mcdi_check_M(ws, n, s->M)) != MCD_OK)
         return st;
