@@ -10,10 +10,24 @@
 
 #include <stddef.h>
 #include "mcdiff.h"
+#include "base/error.h"
 
 /* Relative tolerance of the symmetry check of Dij (documented in the
  * header: relative difference <= 1e-12). */
 #define MCDI_DIJ_SYM_TOL 1e-12
+
+/* The workspace and the call's main object: ws NULL is EINVAL without
+ * words (the entry's fallback names the call), obj NULL is EINVAL
+ * "argument <name>: NULL". */
+static inline mcd_status mcdi_check_ws_obj(const mcd_workspace *ws,
+                                           const void *obj, const char *name)
+{
+    if (ws == NULL)
+        return MCD_EINVAL;
+    if (obj == NULL)
+        return mcdi_fail(MCD_EINVAL, "argument %s: NULL", name);
+    return MCD_OK;
+}
 
 /* p != NULL (EINVAL). */
 mcd_status mcdi_check_ptr(mcd_workspace *ws, const void *p, const char *name);

@@ -222,10 +222,8 @@ static mcd_status check_common(mcd_workspace *ws, mcd_model model, size_t n,
                                const double *out)
 {
     mcd_status st;
-    if (ws == NULL)
-        return MCD_EINVAL;
-    if (cl == NULL)
-        return mcdi_fail(MCD_EINVAL, "argument cells: NULL");
+    if ((st = mcdi_check_ws_obj(ws, cl, "cells")) != MCD_OK)
+        return st;
     if ((st = mcdi_check_species(ws, n, 1, 0, "n_species")) != MCD_OK ||
         (st = mcdi_check_dim(ws, cl->n_dim)) != MCD_OK ||
         (st = mcdi_check_model(ws, model, 1)) != MCD_OK ||
@@ -306,10 +304,8 @@ static mcd_status mixture_job(mcd_workspace *ws, const mcd_mixture *mix,
     mcd_status st;
     size_t n;
     int need_M;
-    if (ws == NULL)
-        return MCD_EINVAL;
-    if (mix == NULL)
-        return mcdi_fail(MCD_EINVAL, "argument mix: NULL");
+    if ((st = mcdi_check_ws_obj(ws, mix, "mix")) != MCD_OK)
+        return st;
     n = mix->n;
     if ((st = check_common(ws, model, n, cl, flux_basis, out_flux)) != MCD_OK)
         return st;

@@ -248,10 +248,8 @@ mcd_status mcdi_api_fick_matrix(mcd_workspace *ws, const mcd_state *state,
     mcdi_fick_iview iv;
     mcd_status st;
 
-    if (ws == NULL)
-        return MCD_EINVAL;
-    if (state == NULL)
-        return mcdi_fail(MCD_EINVAL, "argument state: NULL");
+    if ((st = mcdi_check_ws_obj(ws, state, "state")) != MCD_OK)
+        return st;
     if ((st = mcdi_check_species(ws, n, 1, 0, "n_species")) != MCD_OK ||
         (st = mcdi_check_basis(ws, comp_basis, "comp_basis")) != MCD_OK ||
         (st = mcdi_check_basis(ws, basis, "basis")) != MCD_OK)

@@ -268,10 +268,8 @@ mcd_status mcdi_flux_state(mcd_workspace *ws, mcd_model model,
     size_t dd;
     mcd_status st;
 
-    if (ws == NULL)
-        return MCD_EINVAL;
-    if (state == NULL)
-        return mcdi_fail(MCD_EINVAL, "argument state: NULL");
+    if ((st = mcdi_check_ws_obj(ws, state, "state")) != MCD_OK)
+        return st;
     /* validate everything before writing anything */
     if ((st = check_state(ws, model, s, flux_basis, out_flux, need_M,
                           iterate != NULL)) != MCD_OK)

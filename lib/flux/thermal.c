@@ -54,10 +54,8 @@ mcd_status mcdi_api_thermal_ratios(mcd_workspace *ws, const mcd_state *state,
     double sum = 0.0;
     size_t n, i, j;
     mcd_status st;
-    if (ws == NULL)
-        return MCD_EINVAL;
-    if (state == NULL)
-        return mcdi_fail(MCD_EINVAL, "argument state: NULL");
+    if ((st = mcdi_check_ws_obj(ws, state, "state")) != MCD_OK)
+        return st;
     if ((st = check_ratios(ws, state, DT, out_kT)) != MCD_OK)
         return st;
     n = state->n_species;

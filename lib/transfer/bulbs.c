@@ -70,10 +70,8 @@ static mcd_status bulbs_check(mcd_workspace *ws, const mcd_bulbs *b,
     mcd_status st;
     size_t k, n;
     double *x1n, *x2n;
-    if (ws == NULL)
-        return MCD_EINVAL;
-    if (b == NULL)
-        return mcdi_fail(MCD_EINVAL, "argument bulbs: NULL");
+    if ((st = mcdi_check_ws_obj(ws, b, "bulbs")) != MCD_OK)
+        return st;
     n = b->n_species;
     mcdi_tf_scratch(ws, tf);
     x1n = tf->b_x1n;
