@@ -225,9 +225,16 @@ MCD_API void mcd_db_free(mcd_db *db);
 
 /** Number of species (0 for NULL). Since 0.1. */
 MCD_API size_t mcd_db_species_count(const mcd_db *db);
-/** Index of a species by name (case-insensitive), or else by exact formula
- *  when exactly one species has it. Since 0.1.
- *  Fails: EINVAL, ENOTFOUND | Allocates: no */
+/** Index of a species by what a user types. Since 0.1 (the rules after
+ *  the first two since 0.3). The first rule that gives one species wins:
+ *  the name, case-insensitive; the name with spaces and '_' read as '-'
+ *  ("carbon dioxide"); a common synonym of a built-in species ("propene",
+ *  "R-134a", "sulphur dioxide"); a formula by composition ("C2H6O" finds
+ *  ethanol, written C2H5OH); text that is not a formula but matches one
+ *  species' formula in another case ("h2o").
+ *  Fails: EINVAL, ENOTFOUND (the detail names the species when a formula
+ *  fits several, e.g. C4H10, and suggests the closest names on a miss)
+ *  | Allocates: no */
 MCD_API mcd_status mcd_db_find(const mcd_db *db, const char *name,
                                size_t *out_index);
 /** Name of species i, or NULL when out of range. Pointer valid until the

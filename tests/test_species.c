@@ -294,8 +294,11 @@ START_TEST(species_find_by_name_case_and_formula)
     ck_assert_uint_eq(find("H2O"), find("water"));
     ck_assert_uint_eq(find("CO2"), find("carbon-dioxide"));
     ck_assert_uint_eq(find("Air"), find("air"));
-    /* formula match is exact (case-sensitive) */
-    ck_assert_int_eq(mcd_db_find(db, "h2o", &i), MCD_ENOTFOUND);
+    /* text that is no formula but a formula in another case */
+    ck_assert_uint_eq(find("h2o"), find("water"));
+    ck_assert_uint_eq(find("co2"), find("carbon-dioxide"));
+    /* "Co" is a formula (cobalt), not carbon monoxide */
+    ck_assert_int_eq(mcd_db_find(db, "Co", &i), MCD_ENOTFOUND);
     ck_assert_int_eq(mcd_db_find(db, "unobtainium", &i), MCD_ENOTFOUND);
     ck_assert_int_eq(mcd_db_find(db, "", &i), MCD_ENOTFOUND);
     ck_assert_int_eq(mcd_db_find(NULL, "water", &i), MCD_EINVAL);
@@ -305,6 +308,38 @@ START_TEST(species_find_by_name_case_and_formula)
     /* A second species with formula CO2 makes the formula ambiguous. */
     ck_assert_int_eq(mcd_db_add(db, "dry-ice-vapour", "CO2", 0, NULL), MCD_OK);
     ck_assert_int_eq(mcd_db_find(db, "CO2", &i), MCD_ENOTFOUND);
+    ck_assert_uint_eq(i, 777);
+}
+END_TEST
+
+START_TEST(species_find_by_composition_synonym_and_suggestion)
+{
+    size_t i = 777;
+    /* formulas by composition, whatever the order of the groups */
+    ck_assert_uint_eq(find("C2H6O"), find("ethanol")); /* C2H5OH */
+    ck_assert_uint_eq(find("CH4O"), find("methanol")); /* CH3OH */
+    ck_assert_uint_eq(find("C3H6O"), find("acetone")); /* CH3COCH3 */
+    ck_assert_uint_eq(find("OH2"), find("water"));
+    /* names with spaces or '_' for '-', and synonyms (common practice) */
+    ck_assert_uint_eq(find("carbon dioxide"), find("carbon-dioxide"));
+    ck_assert_uint_eq(find("Carbon_Monoxide"), find("carbon-monoxide"));
+    ck_assert_uint_eq(find("propene"), find("propylene"));
+    ck_assert_uint_eq(find("ethyl alcohol"), find("ethanol"));
+    ck_assert_uint_eq(find("R-134a"), find("r134a"));
+    ck_assert_uint_eq(find("sulphur dioxide"), find("sulfur-dioxide"));
+    ck_assert_uint_eq(find("steam"), find("water"));
+    /* a composition two species share: refused, both named */
+    ck_assert_int_eq(mcd_db_find(db, "C4H10", &i), MCD_ENOTFOUND);
+    ck_assert_msg(strstr(mcd_last_error(), "n-butane") != NULL &&
+                      strstr(mcd_last_error(), "isobutane") != NULL,
+                  "%s", mcd_last_error());
+    ck_assert_uint_eq(find("butane"), find("n-butane"));
+    /* a miss suggests the closest names */
+    ck_assert_int_eq(mcd_db_find(db, "nitrogn", &i), MCD_ENOTFOUND);
+    ck_assert_msg(strstr(mcd_last_error(), "did you mean nitrogen") != NULL,
+                  "%s", mcd_last_error());
+    ck_assert_int_eq(mcd_db_find(db, "zzzzzzzzzzzz", &i), MCD_ENOTFOUND);
+    ck_assert_ptr_null(strstr(mcd_last_error(), "did you mean"));
     ck_assert_uint_eq(i, 777);
 }
 END_TEST
@@ -530,6 +565,7 @@ int main(void)
     tcase_add_test(tc, species_builtin_parameters_in_physical_ranges);
     tcase_add_test(tc, species_builtin_spot_checks_against_reference_data);
     tcase_add_test(tc, species_find_by_name_case_and_formula);
+    tcase_add_test(tc, species_find_by_composition_synonym_and_suggestion);
     tcase_add_test(tc, species_accessors_reject_bad_arguments);
     tcase_add_test(tc, species_param_names_and_units);
     tcase_add_test(tc, species_add_new_species_from_formula);

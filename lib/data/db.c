@@ -252,29 +252,6 @@ MCD_API void mcd_db_free(mcd_db *db)
 
 MCD_API size_t mcd_db_species_count(const mcd_db *db) { return db ? db->n : 0; }
 
-mcd_status mcdi_api_db_find(const mcd_db *db, const char *name,
-                            size_t *out_index)
-{
-    size_t i, hit = (size_t)-1, hits = 0;
-    if (db == NULL || name == NULL || out_index == NULL)
-        return MCD_EINVAL;
-    i = mcdi_db_index_of(db, name);
-    if (i != (size_t)-1) {
-        *out_index = i;
-        return MCD_OK;
-    }
-    for (i = 0; i < db->n; ++i) {
-        if (strcmp(db->sp[i].formula, name) == 0) {
-            hit = i;
-            hits++;
-        }
-    }
-    if (hits != 1)
-        return MCD_ENOTFOUND;
-    *out_index = hit;
-    return MCD_OK;
-}
-
 MCD_API const char *mcd_db_name(const mcd_db *db, size_t i)
 {
     if (db == NULL || i >= db->n)
