@@ -158,8 +158,8 @@ int cli_cmd_binary(int argc, char **argv)
             mcd_db_free(db);
             if (st == MCD_ENOTFOUND)
                 return cli_usage_error(cmd, names[k],
-                                       "no such species (see 'mcdiff "
-                                       "species')");
+                                       "%s (see 'mcdiff species')",
+                                       mcd_last_error());
             return cli_fail(cmd, "looking up a species", st, names[k]);
         }
     }

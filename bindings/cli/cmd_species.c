@@ -184,8 +184,8 @@ static int show_one(const mcd_db *db, const char *name, int json, int csv)
     int p;
     mcd_status st = mcd_db_find(db, name, &i);
     if (st == MCD_ENOTFOUND)
-        return cli_usage_error("species", name,
-                               "no such species (see 'mcdiff species')");
+        return cli_usage_error("species", name, "%s (see 'mcdiff species')",
+                               mcd_last_error());
     if (st != MCD_OK)
         return cli_fail("species", "looking up the species", st, name);
     if (csv) {

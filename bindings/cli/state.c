@@ -364,8 +364,8 @@ int cli_state_setup(cli_state *s, const char *cmd)
         st = mcd_db_find(s->db, s->names[i], &s->dbidx[i]);
         if (st == MCD_ENOTFOUND)
             return cli_usage_error(cmd, "-s/--species",
-                                   "no species '%s' (see 'mcdiff species')",
-                                   s->names[i]);
+                                   "%s (see 'mcdiff species')",
+                                   mcd_last_error());
         if (st != MCD_OK)
             return cli_fail(cmd, "looking up species", st, s->names[i]);
         if (list_position(s, s->dbidx[i]) != (long)i)

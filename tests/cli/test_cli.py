@@ -394,6 +394,20 @@ class Fluxes(unittest.TestCase):
                                delta=1e-12)
         self.assertAlmostEqual(d["fick_matrix"][0][0] / D, 1.0, delta=1e-12)
 
+    def test_species_lookup_suggests_and_refuses_ambiguous_formulas(self):
+        code, _, err = run("species", "nitrogn")
+        self.assertEqual(code, 2)
+        self.assertIn("did you mean nitrogen", err)
+        code, _, err = run("binary", "C4H10", "N2", "-T", "300", "-P",
+                           "1atm")
+        self.assertEqual(code, 2)
+        self.assertIn("n-butane", err)
+        self.assertIn("isobutane", err)
+        d = run_json("fluxes", "-s", "h2o,carbon dioxide,N2", "-x",
+                     "0.1,0.2,0.7", "-g", "1,0,-1", "-T", "300", "-P", "1atm")
+        self.assertEqual(d["species"], ["water", "carbon-dioxide",
+                                        "nitrogen"])
+
     def test_thermal_diffusion_binary_law(self):
         # J_1 = -c D_12 (grad x_1 + k_T grad ln T), grad ln T = (dT/dz)/T
         # (Bird, Stewart and Lightfoot 2002, sec. 24.2; from memory)
