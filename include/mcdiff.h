@@ -629,6 +629,35 @@ MCD_API mcd_status mcd_flux_compute(mcd_workspace *ws, mcd_model model,
                                     const mcd_state *state,
                                     mcd_basis flux_basis, double *out_flux);
 
+/** Derivatives of the exact Maxwell-Stefan diffusion fluxes with respect
+ *  to the mole fractions, at fixed gradients, for implicit and Newton
+ *  solvers. Since 0.3.
+ *
+ *  The x_k are taken as independent variables of the equations of
+ *  mcd_flux_compute (read with the fractions as given, not renormalised):
+ *  d_i = sum_{j != i} (x_i J_j - x_j J_i) / (c Đ_ij) is linear in x and J,
+ *  so dJ/dx_k solves the same equations with the driving force
+ *    dd/dx_k - (sum_{j != i} J_j / (c Đ_ij) if i = k, else
+ *               -J_i / (c Đ_ik)),
+ *  where dd/dx_k is the derivative of the projected driving forces
+ *  (pressure diffusion included through w(x); Gamma, grad, grad ln P, k_T
+ *  and grad ln T held fixed). Cost: N + 1 solves. On the simplex (sum of
+ *  the changes zero) the result is the derivative of mcd_flux_compute;
+ *  along (1, ..., 1) it carries the homogeneity sum_k x_k dJ/dx_k = -J of
+ *  an ideal mixture without pressure diffusion. The derivative with
+ *  respect to the gradients is -c times the Fick matrix (mcd_fick_matrix).
+ *
+ *  @param state   as mcd_flux_compute, comp_basis MOLE (the mass basis is
+ *                 EINVAL in this version).
+ *  @param out_dJ  N n_dim x N: out_dJ[(i*n_dim + d)*N + k] =
+ *                 dJ_{i,d}/dx_k [mol/(m^2 s)], molar fluxes relative to
+ *                 the molar-average velocity.
+ *  Fails: as mcd_flux_compute; EINVAL (mass basis); EDOM (a derivative
+ *  not finite) | Allocates: no */
+MCD_API mcd_status mcd_flux_jacobian_comp(mcd_workspace *ws,
+                                          const mcd_state *state,
+                                          double *out_dJ);
+
 /** Thermal diffusion ratios k_T,i [-] from thermal diffusion coefficients
  *  D_i^T [kg/(m s)], for mcd_state.kT / mcd_cells.kT. Since 0.3.
  *

@@ -502,6 +502,21 @@ static int call_mcd_flux_compute(ctx *c)
                      .grad_lnT = (c->use_kT & 2) ? c->glnT : NULL},
         (mcd_basis)c->basis2, OUT(o1, NB_O1));
 }
+static int call_mcd_flux_jacobian_comp(ctx *c)
+{
+    return mcd_flux_jacobian_comp(
+        WS,
+        &(mcd_state){.n_species = c->n,
+                     .n_dim = c->nd,
+                     .M = ARG(M, NB_M),
+                     .Dij = ARG(D, NB_D),
+                     .c = c->c,
+                     .comp_basis = (mcd_basis)c->basis,
+                     .comp = ARG(x, NB_X),
+                     .grad = ARG(grad, NB_GRAD),
+                     .grad_lnP = c->use_glnp ? c->glnP : NULL},
+        OUT(o1, NB_O1));
+}
 static int call_mcd_thermal_ratios(ctx *c)
 {
     return mcd_thermal_ratios(WS,
@@ -1310,6 +1325,21 @@ static const bcase cases[] = {
       MI(model, MCD_MODEL_MIXTURE_AVERAGED), MDA(x, 1, -0.1), MDA(x, 0, 0.9)),
     C(mcd_flux_compute, "MA model, c 0", EDOM_, "c",
       MI(model, MCD_MODEL_MIXTURE_AVERAGED), MD(c, 0.0)),
+    B(mcd_flux_jacobian_comp, MCD_OK),
+    C(mcd_flux_jacobian_comp, "ws NULL", EINVAL_, NULL, MN(NB_WS)),
+    C(mcd_flux_jacobian_comp, "mass basis", EINVAL_, "comp_basis",
+      MI(basis, MCD_BASIS_MASS)),
+    C(mcd_flux_jacobian_comp, "out NULL", EINVAL_, "out_dJ", MN(NB_O1)),
+    C(mcd_flux_jacobian_comp, "n above capacity", MCD_EBADLEN, "n_species",
+      MZ(n, 4)),
+    C(mcd_flux_jacobian_comp, "comp negative", EDOM_, "comp", MDA(x, 1, -0.1),
+      MDA(x, 0, 0.9)),
+    C(mcd_flux_jacobian_comp, "Dij 0", EDOM_, "Dij", MDA(D, 1, 0.0),
+      MDA(D, 3, 0.0)),
+    C(mcd_flux_jacobian_comp, "grad NaN", EINVAL_, "grad", MDA(grad, 2, NAN)),
+    C(mcd_flux_jacobian_comp, "c 0", EDOM_, "c", MD(c, 0.0)),
+    C(mcd_flux_jacobian_comp, "pressure gradient without M", EINVAL_, "M",
+      MI(use_glnp, 1), MN(NB_M)),
     B(mcd_thermal_ratios, MCD_OK),
     C(mcd_thermal_ratios, "ws NULL", EINVAL_, NULL, MN(NB_WS)),
     C(mcd_thermal_ratios, "n 0", EINVAL_, "n_species", MZ(n, 0)),

@@ -858,6 +858,7 @@ FORTRAN_SCALAR = {
     "mcd_flux_compute": ["state"],
     "mcd_fick_matrix": ["state"],
     "mcd_thermal_ratios": ["state"],
+    "mcd_flux_jacobian_comp": ["state"],
     "mcd_flux_batch": ["cells"],
     "mcd_flux_batch_dij": ["cells"],
     "mcd_flux_batch_aos": ["cells"],

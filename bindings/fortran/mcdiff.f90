@@ -151,7 +151,8 @@ module mcdiff
        mcd_mixture_molar_masses, mcd_mixture_set_method, &
        mcd_mixture_set_binary, mcd_mixture_binaries, &
        mcd_workspace_new, mcd_workspace_capacity, mcd_last_error, &
-       mcd_flux_compute, mcd_thermal_ratios, mcd_fick_matrix, mcd_fick_fluxes, &
+       mcd_flux_compute, mcd_thermal_ratios, mcd_flux_jacobian_comp, &
+       mcd_fick_matrix, mcd_fick_fluxes, &
        mcd_fick_eigenvalues, mcd_flux_convert, mcd_flux_total, &
        mcd_flux_project, mcd_flux_diagnose, mcd_film_solve, mcd_film_profile, &
        mcd_flux_batch, mcd_flux_batch_dij, mcd_flux_batch_aos, &
@@ -968,6 +969,37 @@ contains
     call finish(c_mcd_flux_compute(ws%ptr, int(model, c_int), st, &
          int(flux_basis, c_int), flux), stat, errmsg)
   end subroutine mcd_flux_compute
+
+  !> Derivatives of the exact fluxes with respect to the mole fractions at
+  !> fixed gradients: dJ(n, n_dim, n), dJ(k, d, i) = dJ_{i,d}/dx_k (the
+  !> C array (N n_dim) x N read column-major). Arguments as mcd_flux_compute
+  !> (mole fractions only).
+  subroutine mcd_flux_jacobian_comp(ws, n, n_dim, Dij, c, comp, grad_comp, dJ, &
+       stat, errmsg, M, Gamma, grad_lnP, kT, grad_lnT)
+    type(mcd_workspace_t), intent(inout) :: ws
+    integer, intent(in) :: n, n_dim
+    real(c_double), intent(in), target :: Dij(n, n), comp(n), grad_comp(n_dim, n)
+    real(c_double), intent(in) :: c
+    real(c_double), intent(inout) :: dJ(n, n_dim, n)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    real(c_double), intent(in), optional, target :: M(n), Gamma(n, n), grad_lnP(n_dim)
+    real(c_double), intent(in), optional, target :: kT(n), grad_lnT(n_dim)
+    type(mcd_state_t) :: st
+    st%n_species = csz(n)
+    st%n_dim = csz(n_dim)
+    st%comp_basis = int(MCD_BASIS_MOLE, c_int)
+    st%c = c
+    st%Dij = c_loc(Dij)
+    st%comp = c_loc(comp)
+    st%grad = c_loc(grad_comp)
+    if (present(M)) st%M = c_loc(M)
+    if (present(Gamma)) st%Gamma = c_loc(Gamma)
+    if (present(grad_lnP)) st%grad_lnP = c_loc(grad_lnP)
+    if (present(kT)) st%kT = c_loc(kT)
+    if (present(grad_lnT)) st%grad_lnT = c_loc(grad_lnT)
+    call finish(c_mcd_flux_jacobian_comp(ws%ptr, st, dJ), stat, errmsg)
+  end subroutine mcd_flux_jacobian_comp
 
   !> Thermal diffusion ratios kT(n) from thermal diffusion coefficients
   !> DT(n) [kg/(m s)] at a state (M(n) required).

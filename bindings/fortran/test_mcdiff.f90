@@ -190,7 +190,7 @@ contains
   subroutine check_thermal_binary()
     type(mcd_workspace_t) :: ws
     real(c_double) :: Dij(2, 2), M(2), x(2), DT(2), kT(2), grad(1, 2), J(1, 2)
-    real(c_double) :: c, rho, want, ref, glnT(1)
+    real(c_double) :: c, rho, want, ref, glnT(1), dJ(2, 1, 2)
     integer :: stat
     character(len=256) :: msg
     Dij = reshape([0.0_c_double, 7.3e-5_c_double, 7.3e-5_c_double, 0.0_c_double], [2, 2])
@@ -214,6 +214,12 @@ contains
     ref = -c * Dij(1, 2) * (grad(1, 1) + kT(1) * glnT(1))
     call check(abs(J(1, 1) - ref) <= 1e-13_c_double * abs(ref), &
          'thermal binary law J1 = -c D12 (grad x1 + kT grad ln T)')
+    ! without thermal or pressure terms J_1 = -c D12 grad x_1 whatever x:
+    ! its derivatives vanish
+    call mcd_flux_jacobian_comp(ws, 2, 1, Dij, c, x, grad, dJ, stat, msg)
+    call check_stat(stat, msg, 'jacobian')
+    call check(maxval(abs(dJ)) <= 1e-12_c_double * abs(ref), &
+         'jacobian of a binary without pressure diffusion is zero')
   end subroutine check_thermal_binary
 
   ! Ternary ideal gas H2 / N2 / CO2 (an invented state): fluxes sum to zero

@@ -52,6 +52,7 @@
     X(workspace_new, (size_t n_species, mcd_workspace **out_ws), (n_species, out_ws)) \
     X(workspace_new_with, (size_t n_species, const mcd_allocator *allocator, mcd_workspace **out_ws), (n_species, allocator, out_ws)) \
     X(flux_compute, (mcd_workspace *ws, mcd_model model, const mcd_state *state, mcd_basis flux_basis, double *out_flux), (ws, model, state, flux_basis, out_flux)) \
+    X(flux_jacobian_comp, (mcd_workspace *ws, const mcd_state *state, double *out_dJ), (ws, state, out_dJ)) \
     X(thermal_ratios, (mcd_workspace *ws, const mcd_state *state, const double *DT, double *out_kT), (ws, state, DT, out_kT)) \
     X(fick_matrix, (mcd_workspace *ws, const mcd_state *state, mcd_basis basis, size_t dependent, double *out_D, size_t *out_dependent), (ws, state, basis, dependent, out_D, out_dependent)) \
     X(fick_fluxes, (size_t n_species, size_t n_dim, const double *D, size_t dependent, double c_or_rho, const double *grad, double *out_flux), (n_species, n_dim, D, dependent, c_or_rho, grad, out_flux)) \

@@ -14,7 +14,8 @@
 
 /* mcd_flux_compute and its stages (ms_ldl.c, flux/solve_stages.h: the
  * rows of mcdi_rows with one lane, and the dense exact solve), and
- * mcd_thermal_ratios (x, w, DT, kT) */
+ * mcd_thermal_ratios (x, w, DT, kT) and mcd_flux_jacobian_comp (jJ, jd,
+ * jac: regions the flux solve it calls does not touch) */
 /* clang-format off */
 #define MCDI_FLUX_REGIONS(R)                                                \
     R(x, n) R(w, n)              /* mole and mass fractions */             \
@@ -33,7 +34,10 @@
     R(dinv, n)                   /* inverse pivots */                      \
     R(isq, n)                    /* 1/sqrt(x) (fused exact kernel) */      \
     R(Yt, n * MCD_MAX_DIM)       /* LAPACK's right-hand sides */          \
-    R(DT, n) R(kT, n)            /* mcd_thermal_ratios: D^T, k_T */
+    R(DT, n) R(kT, n)            /* mcd_thermal_ratios: D^T, k_T */       \
+    R(jJ, n * MCD_MAX_DIM)       /* mcd_flux_jacobian_comp: J, */          \
+    R(jd, n * MCD_MAX_DIM)       /* the forces of one column, */           \
+    R(jac, n * n * MCD_MAX_DIM)  /* and the columns dJ/dx_k */
 /* clang-format on */
 
 /* mcd_fick_matrix and mcd_fick_eigenvalues */

@@ -485,6 +485,22 @@ class Fluxes(unittest.TestCase):
             mcdiff.flux_compute(D, c, x, [5.0, -5.0], kT=kT)
         self.assertIn("grad_lnT", str(e.exception))
 
+    def test_flux_jacobian_two_species_pressure_diffusion(self):
+        # J_1 = -c D (grad x_1 + (x_1 - w_1) grad ln P) (Bird, Stewart and
+        # Lightfoot 2002, sec. 24.2; from memory): along e_1 - x the
+        # derivative is (1 - x_1)(-c D grad ln P (1 - M_1 M_2 / Mbar^2))
+        M = [0.002, 0.044]
+        x = [0.35, 0.65]
+        D = [[0, 6e-5], [6e-5, 0]]
+        c, glnP = 40.0, 25.0
+        A = mcdiff.flux_jacobian(D, c, x, [[8.0], [-8.0]], M=M,
+                                 grad_lnP=[glnP])
+        Mbar = x[0] * M[0] + x[1] * M[1]
+        want = (1 - x[0]) * (-c * 6e-5 * glnP * (1 - M[0] * M[1] / Mbar**2))
+        a = flat(A)  # [i][d][k]
+        self.assertAlmostEqual(a[0], want, delta=1e-12 * abs(want))
+        self.assertAlmostEqual(a[2], -want, delta=1e-12 * abs(want))
+
     def test_result_shapes_follow_the_gradient(self):
         D = [[0, 2e-5, 3e-5], [2e-5, 0, 1e-5], [3e-5, 1e-5, 0]]
         x = [0.2, 0.3, 0.5]

@@ -164,6 +164,8 @@ SIGNATURES = {
     # --- Diffusion fluxes ---
     # (ws, model, state, flux_basis, out_flux)
     "mcd_flux_compute": (_ST, [_H, _E, _H, _E, _PD]),
+    # (ws, state, out_dJ)
+    "mcd_flux_jacobian_comp": (_ST, [_H, _H, _PD]),
     # (ws, state, DT, out_kT)
     "mcd_thermal_ratios": (_ST, [_H, _H, _PD, _PD]),
     # (ws, state, basis, dependent, out_D, out_dependent)

@@ -39,7 +39,8 @@ __all__ = [
     "binary_wilke_lee", "binary_wilke_chang", "binary_omega_d", "binary_scale",
     "binary_gas", "binary_liquid",
     # fluxes
-    "flux_compute", "thermal_ratios", "fick_matrix", "fick_fluxes",
+    "flux_compute", "thermal_ratios", "flux_jacobian", "fick_matrix",
+    "fick_fluxes",
     "fick_eigenvalues",
     "flux_convert", "flux_to_volume_frame", "flux_to_species_frame",
     "flux_total", "flux_velocity_difference", "flux_project", "flux_diagnose",
@@ -434,6 +435,34 @@ def flux_compute(Dij, c, comp, grad, *, M=None, model="maxwell-stefan",
     if out is not None:
         return out
     return _field_result(o, was_1d)
+
+
+def flux_jacobian(Dij, c, comp, grad, *, M=None, Gamma=None, grad_lnP=None,
+                  kT=None, grad_lnT=None, workspace=None):
+    """Derivatives of the exact Maxwell-Stefan fluxes with respect to the
+    mole fractions at fixed gradients (mcd_flux_jacobian_comp): shape
+    (n, n_dim, n), [i][d][k] = dJ_{i,d}/dx_k [mol/(m^2 s)]. Arguments as
+    flux_compute (mole fractions only); grad of shape (n, n_dim)."""
+    x = _arrays.vector(comp, None, "comp")
+    n = x.shape[0]
+    D = _arrays.matrix(Dij, n, n, "Dij")
+    g, nd, _ = _arrays.field(grad, n, "grad")
+    m = _opt(M, lambda v: _arrays.vector(v, n, "M"))
+    G = _opt(Gamma, lambda v: _arrays.matrix(v, n, n, "Gamma"))
+    lp = _opt(grad_lnP, lambda v: _arrays.vector(
+        [v] if isinstance(v, (int, float)) else v, nd, "grad_lnP"))
+    kt = _opt(kT, lambda v: _arrays.vector(v, n, "kT"))
+    lt = _opt(grad_lnT, lambda v: _arrays.vector(
+        [v] if isinstance(v, (int, float)) else v, nd, "grad_lnT"))
+    ws = _ws(workspace, n)
+    o = _arrays.Output((n, nd, n))
+    state = mcd_state(n_species=n, n_dim=nd, comp_basis=Basis.MOLE,
+                      c=_sc(c, "c"), M=_ptr(m), Dij=D.ptr, comp=x.ptr,
+                      grad=g.ptr, Gamma=_ptr(G), grad_lnP=_ptr(lp),
+                      kT=_ptr(kt), grad_lnT=_ptr(lt))
+    st = lib.mcd_flux_jacobian_comp(ws._p(), ctypes.byref(state), o.ptr)
+    ws.check(st, "mcd_flux_jacobian_comp")
+    return o.result()
 
 
 def thermal_ratios(Dij, c, comp, M, DT, *, comp_basis="mole",
