@@ -216,6 +216,24 @@ SIGNATURES = {
     "mcd_bulbs_linearized": (_ST, [_H, _H, _SZ, _PD, _PD, _PD]),
     # (ws, bulbs, n_times, t, rel_tol, out_x1, out_x2)
     "mcd_bulbs_integrate": (_ST, [_H, _H, _SZ, _PD, _D, _PD, _PD]),
+
+    # --- Liquids: activity, thermodynamic factors, diffusivities ---
+    # (n_species, model, out_liq)
+    "mcd_liquid_new": (_ST, [_SZ, _E, _PH]),
+    # (liq)
+    "mcd_liquid_free": (None, [_H]),
+    # (liq, i, p, value)
+    "mcd_liquid_set_species": (_ST, [_H, _SZ, _E, _D]),
+    # (liq, i, j, coef_ij, coef_ji, alpha, T_min, T_max)
+    "mcd_liquid_set_pair": (_ST, [_H, _SZ, _SZ, _PD, _PD, _D, _D, _D]),
+    # (liq, i, j, D_i_in_j, D_j_in_i)
+    "mcd_liquid_set_dinf": (_ST, [_H, _SZ, _SZ, _D, _D]),
+    # (ws, liq, T, x, out_lngamma, out_Gamma, out_Dij, out_warn)
+    "mcd_liquid_eval": (_ST, [_H, _H, _D, _PD, _PD, _PD, _PD, _PU]),
+    # (T, mu_solvent, Vb_solute, Vb_solvent, out_D)
+    "mcd_binary_tyn_calus": (_ST, [_D, _D, _D, _D, _PD]),
+    # (T, mu_water, Vb_solute, out_D)
+    "mcd_binary_hayduk_minhas": (_ST, [_D, _D, _D, _PD]),
 }
 
 
