@@ -120,6 +120,15 @@ module mcdiff
      final :: ws_final
   end type mcd_workspace_t
 
+  type, public :: mcd_liquid_t
+     private
+     type(c_ptr) :: ptr = c_null_ptr
+   contains
+     procedure, private :: liq_assign
+     generic :: assignment(=) => liq_assign
+     final :: liq_final
+  end type mcd_liquid_t
+
   ! ------------------------------------------------------------------
   ! C library helpers used by the wrappers
   ! ------------------------------------------------------------------
@@ -163,22 +172,25 @@ module mcdiff
        mcd_binary_wilke_lee, mcd_binary_wilke_chang, mcd_db_binary_liquid, &
        mcd_flux_to_volume_frame, mcd_flux_to_species_frame, &
        mcd_flux_velocity_difference, mcd_mixture_temperature_fit, &
-       mcd_bulbs_linearized, mcd_bulbs_integrate
+       mcd_bulbs_linearized, mcd_bulbs_integrate, &
+       mcd_liquid_new, mcd_liquid_set_species, mcd_liquid_set_pair, &
+       mcd_liquid_set_dinf, mcd_liquid_eval, mcd_binary_tyn_calus, &
+       mcd_binary_hayduk_minhas
 
   !> Release a handle (any of the three types); an empty handle is a no-op.
   interface mcd_free
-     module procedure db_free, mix_free, ws_free
+     module procedure db_free, mix_free, ws_free, liq_free
   end interface mcd_free
 
   !> .true. when the handle holds an object.
   interface mcd_associated
-     module procedure db_associated, mix_associated, ws_associated
+     module procedure db_associated, mix_associated, ws_associated, liq_associated
   end interface mcd_associated
 
   !> The C pointer inside a handle, for the c_mcd_* layer. The handle keeps
   !> ownership: do not free the pointer yourself.
   interface mcd_handle_ptr
-     module procedure db_ptr, mix_ptr, ws_ptr
+     module procedure db_ptr, mix_ptr, ws_ptr, liq_ptr
   end interface mcd_handle_ptr
 
 contains
@@ -334,6 +346,35 @@ contains
     type(mcd_mixture_t), intent(inout) :: h
     call mix_final(h)
   end subroutine mix_free
+
+  impure elemental subroutine liq_final(self)
+    type(mcd_liquid_t), intent(inout) :: self
+    call c_mcd_liquid_free(self%ptr)
+    self%ptr = c_null_ptr
+  end subroutine liq_final
+
+  subroutine liq_assign(lhs, rhs)
+    class(mcd_liquid_t), intent(inout) :: lhs
+    type(mcd_liquid_t), intent(in) :: rhs
+    if (c_associated(lhs%ptr, rhs%ptr)) return
+    call c_mcd_liquid_free(lhs%ptr)
+    lhs%ptr = c_null_ptr
+  end subroutine liq_assign
+
+  subroutine liq_free(h)
+    type(mcd_liquid_t), intent(inout) :: h
+    call liq_final(h)
+  end subroutine liq_free
+
+  logical function liq_associated(h)
+    type(mcd_liquid_t), intent(in) :: h
+    liq_associated = c_associated(h%ptr)
+  end function liq_associated
+
+  type(c_ptr) function liq_ptr(h)
+    type(mcd_liquid_t), intent(in) :: h
+    liq_ptr = h%ptr
+  end function liq_ptr
 
   subroutine ws_free(h)
     type(mcd_workspace_t), intent(inout) :: h
@@ -1490,5 +1531,103 @@ contains
     if (s == 0) omega = v
     call finish(s, stat, errmsg)
   end subroutine mcd_binary_omega_d
+
+  ! ==================================================================
+  ! Liquids
+  ! ==================================================================
+
+  !> New liquid of n species with an activity model (MCD_ACTIVITY_*).
+  subroutine mcd_liquid_new(liq, n, model, stat, errmsg)
+    type(mcd_liquid_t), intent(inout) :: liq
+    integer, intent(in) :: n, model
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    type(c_ptr) :: p
+    integer(c_int) :: s
+    call liq_final(liq)
+    p = c_null_ptr
+    s = c_mcd_liquid_new(csz(n), int(model, c_int), p)
+    if (s == 0) liq%ptr = p
+    call finish(s, stat, errmsg)
+  end subroutine mcd_liquid_new
+
+  !> Species parameter p (MCD_LIQ_*) of species i (1-based).
+  subroutine mcd_liquid_set_species(liq, i, p, val, stat, errmsg)
+    type(mcd_liquid_t), intent(inout) :: liq
+    integer, intent(in) :: i, p
+    real(c_double), intent(in) :: val
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_liquid_set_species(liq%ptr, cidx(i), int(p, c_int), val), &
+         stat, errmsg)
+  end subroutine mcd_liquid_set_species
+
+  !> Pair parameters of (i, j) (1-based): coef_ij(3), coef_ji(3), alpha and
+  !> the fitted range [T_min, T_max] (both 0: none).
+  subroutine mcd_liquid_set_pair(liq, i, j, coef_ij, coef_ji, alpha, T_min, T_max, &
+       stat, errmsg)
+    type(mcd_liquid_t), intent(inout) :: liq
+    integer, intent(in) :: i, j
+    real(c_double), intent(in) :: coef_ij(3), coef_ji(3), alpha, T_min, T_max
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_liquid_set_pair(liq%ptr, cidx(i), cidx(j), coef_ij, coef_ji, &
+         alpha, T_min, T_max), stat, errmsg)
+  end subroutine mcd_liquid_set_pair
+
+  !> Infinite-dilution diffusivities [m^2/s] of i in j and of j in i.
+  subroutine mcd_liquid_set_dinf(liq, i, j, D_i_in_j, D_j_in_i, stat, errmsg)
+    type(mcd_liquid_t), intent(inout) :: liq
+    integer, intent(in) :: i, j
+    real(c_double), intent(in) :: D_i_in_j, D_j_in_i
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_liquid_set_dinf(liq%ptr, cidx(i), cidx(j), D_i_in_j, D_j_in_i), &
+         stat, errmsg)
+  end subroutine mcd_liquid_set_dinf
+
+  !> ln gamma(n), Gamma(n, n) and Dij(n, n) of the liquid at (T, x), each
+  !> optional. Gamma comes in C order: the Fortran array holds the
+  !> transpose (Gamma(j, i) = Gamma_ij), which is what mcd_flux_compute's
+  !> Gamma argument expects back; Dij is symmetric. warn: MCD_WARN_* bits.
+  subroutine mcd_liquid_eval(ws, liq, T, x, stat, errmsg, lngamma, Gamma, Dij, warn)
+    type(mcd_workspace_t), intent(in) :: ws
+    type(mcd_liquid_t), intent(in) :: liq
+    real(c_double), intent(in) :: T, x(*)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    real(c_double), intent(inout), optional, target :: lngamma(*), Gamma(*), Dij(*)
+    integer, intent(inout), optional :: warn
+    type(c_ptr) :: pl, pg, pd
+    integer(c_int), target :: w
+    integer(c_int) :: s
+    pl = c_null_ptr
+    pg = c_null_ptr
+    pd = c_null_ptr
+    if (present(lngamma)) pl = c_loc(lngamma(1))
+    if (present(Gamma)) pg = c_loc(Gamma(1))
+    if (present(Dij)) pd = c_loc(Dij(1))
+    w = 0
+    s = c_mcd_liquid_eval(ws%ptr, liq%ptr, T, x, pl, pg, pd, c_loc(w))
+    if (s == 0 .and. present(warn)) warn = int(w)
+    call finish(s, stat, errmsg)
+  end subroutine mcd_liquid_eval
+
+  subroutine mcd_binary_tyn_calus(T, mu_solvent, Vb_solute, Vb_solvent, D, stat, errmsg)
+    real(c_double), intent(in) :: T, mu_solvent, Vb_solute, Vb_solvent
+    real(c_double), intent(inout) :: D
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_binary_tyn_calus(T, mu_solvent, Vb_solute, Vb_solvent, D), &
+         stat, errmsg)
+  end subroutine mcd_binary_tyn_calus
+
+  subroutine mcd_binary_hayduk_minhas(T, mu_water, Vb_solute, D, stat, errmsg)
+    real(c_double), intent(in) :: T, mu_water, Vb_solute
+    real(c_double), intent(inout) :: D
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_binary_hayduk_minhas(T, mu_water, Vb_solute, D), stat, errmsg)
+  end subroutine mcd_binary_hayduk_minhas
 
 end module mcdiff
