@@ -1274,9 +1274,10 @@ MCD_API mcd_status mcd_liquid_eval(mcd_workspace *ws, const mcd_liquid *liq,
 
 /** Tyn-Calus infinite-dilution diffusivity of a solute in a liquid
  *  solvent, in the form without parachors of Poling, Prausnitz and
- *  O'Connell (2001, sec. 11-9): D = 8.93e-8 V_A^0.267 V_B^-0.433 T / mu_B
- *  (cm^2/s, V in cm^3/mol at the normal boiling point, mu in cP), in SI
- *  here. Not for water as the solute or viscous solvents (> 20 cP).
+ *  O'Connell (2001, sec. 11-9): D = 8.93e-8 V_B^0.267 V_A^-0.433 T / mu_B
+ *  (A solute, B solvent; cm^2/s, V in cm^3/mol at the normal boiling
+ *  point, mu in cP), in SI here. For organic liquid solutes; not for water
+ *  as the solute or viscous solvents (> 20 cP).
  *  Typical error: mcd_method_typical_error(MCD_METHOD_TYN_CALUS). Since 0.3.
  *  @param mu_solvent  solvent viscosity at T [Pa s].
  *  @param Vb_solute, Vb_solvent  molar volumes at the normal boiling

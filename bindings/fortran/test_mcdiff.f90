@@ -721,9 +721,9 @@ contains
     call mcd_binary_tyn_calus(T, 0.89e-3_c_double, 96e-6_c_double, 18.9e-6_c_double, &
          Dtc, stat, msg)
     call check_stat(stat, msg, 'Tyn-Calus')
-    ! D [cm^2/s] = 8.93e-8 V_A^0.267 V_B^-0.433 T / mu [cP]
-    call check(abs(Dtc - 1e-4_c_double * 8.93e-8_c_double * 96.0_c_double**0.267_c_double &
-         * 18.9_c_double**(-0.433_c_double) * T / 0.89_c_double) <= 1e-12_c_double * Dtc, &
+    ! D [cm^2/s] = 8.93e-8 V_B^0.267 V_A^-0.433 T / mu [cP]
+    call check(abs(Dtc - 1e-4_c_double * 8.93e-8_c_double * 18.9_c_double**0.267_c_double &
+         * 96.0_c_double**(-0.433_c_double) * T / 0.89_c_double) <= 1e-12_c_double * Dtc, &
          'Tyn-Calus closed form')
     call mcd_binary_hayduk_minhas(T, 0.89e-3_c_double, 96e-6_c_double, Dhm, stat, msg)
     call check_stat(stat, msg, 'Hayduk-Minhas')

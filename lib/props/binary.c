@@ -247,8 +247,10 @@ mcd_status mcdi_api_binary_wilke_chang(double T, double mu_solvent,
  * Tyn and Calus, J. Chem. Eng. Data 20, 106 (1975), in the form without
  * parachors given by Poling, Prausnitz and O'Connell, The Properties of
  * Gases and Liquids, 5th ed. (2001), sec. 11-9 (from memory):
- *   D [cm^2/s] = 8.93e-8 V_A^0.267 V_B^-0.433 T / mu_B,
- * V at the normal boiling point in cm^3/mol, mu_B in cP (mPa s). In SI:
+ *   D [cm^2/s] = 8.93e-8 V_B^0.267 V_A^-0.433 T / mu_B,
+ * (A the solute, B the solvent: the original (V_A / V_B^2)^(1/6)
+ * (P_B / P_A)^0.6 with parachors proportional to the molar volumes), V at
+ * the normal boiling point in cm^3/mol, mu_B in cP (mPa s). In SI:
  * V [cm^3/mol] = 1e6 V, mu [cP] = 1e3 mu, D [m^2/s] = 1e-4 D [cm^2/s].
  */
 mcd_status mcdi_api_binary_tyn_calus(double T, double mu_solvent,
@@ -261,8 +263,8 @@ mcd_status mcdi_api_binary_tyn_calus(double T, double mu_solvent,
         return MCD_EINVAL;
     if ((s = check_all_pos(v, 4)) != MCD_OK)
         return s;
-    return finish_D(1e-4 * 8.93e-8 * pow(1e6 * Vb_solute, 0.267) *
-                        pow(1e6 * Vb_solvent, -0.433) * T / (1e3 * mu_solvent),
+    return finish_D(1e-4 * 8.93e-8 * pow(1e6 * Vb_solvent, 0.267) *
+                        pow(1e6 * Vb_solute, -0.433) * T / (1e3 * mu_solvent),
                     out_D);
 }
 
