@@ -1272,6 +1272,76 @@ MCD_API mcd_status mcd_liquid_eval(mcd_workspace *ws, const mcd_liquid *liq,
                                    double *out_lngamma, double *out_Gamma,
                                    double *out_Dij, unsigned *out_warn);
 
+/** Set the Antoine constants of species i: log10(P^sat / Pa) = A - B /
+ *  (T / K + C), valid over [T_min, T_max] [K] (0 < T_min < T_max, T_min +
+ *  C > 0; B > 0). Constants published for mmHg and degrees Celsius
+ *  convert as A + log10(133.322368) and C - 273.15; for bar and K, A + 5.
+ *  Name the source of the constants next to them in your code. A species
+ *  without Antoine constants is not volatile (partial pressure 0). Since
+ *  0.3.
+ *  Fails: EINVAL (NULL, i out of range, NaN), EDOM (B <= 0, bad range)
+ *  | Allocates: no */
+MCD_API mcd_status mcd_liquid_set_antoine(mcd_liquid *liq, size_t i, double A,
+                                          double B, double C, double T_min,
+                                          double T_max);
+
+/** Vapour-liquid equilibrium at an interface by the modified Raoult's law
+ *  (ideal vapour, Poynting factor 1: low pressure): partial pressures
+ *  p_i = x_i gamma_i(T, x) P_i^sat(T) [Pa] with the activity model and the
+ *  Antoine constants (0 for species without them). The bubble pressure is
+ *  sum p_i; over a gas at total pressure P the interface vapour mole
+ *  fractions are y_i = p_i / P. Since 0.3.
+ *  @param x        liquid mole fractions, length N (as mcd_liquid_eval).
+ *  @param out_p    partial pressures [Pa], length N.
+ *  @param out_warn MCD_WARN_TEMPERATURE outside a pair's or an Antoine
+ *                  range (may be NULL).
+ *  Fails: as mcd_liquid_eval (ENODATA for missing activity parameters;
+ *  EDOM where the liquid splits or a vapour pressure overflows)
+ *  | Allocates: no | Threads: one ws per thread */
+MCD_API mcd_status mcd_liquid_vle(mcd_workspace *ws, const mcd_liquid *liq,
+                                  double T, const double *x, double *out_p,
+                                  unsigned *out_warn);
+
+/** Evaporation of a liquid through a stagnant gas film or Stefan tube into
+ *  an inert gas. The gas holds the liquid's N species (same order) and one
+ *  inert, insoluble species last (N + 1 species): at the liquid surface
+ *  (z = 0) the vapour is in equilibrium with the liquid x_liq
+ *  (mcd_liquid_vle: y_i = p_i / P, the inert the rest), at z = L the gas
+ *  has gas->xL, the inert does not move (MCD_FILM_BOOT_STAGNANT), and the
+ *  fluxes are the exact Maxwell-Stefan film solution (mcd_film_solve,
+ *  MCD_FILM_EXACT). Isothermal and quasi-steady: the liquid composition
+ *  and level are frozen while the film is solved; for a mixture the rate
+ *  is the instantaneous one. Since 0.3.
+ *  @param gas       the gas film: n_species = N + 1 (capacity of ws at
+ *                   least that), c [mol/m^3] (for an ideal gas P / (R T)),
+ *                   L [m], Dij (N + 1) x (N + 1) gas diffusivities, xL
+ *                   (N + 1); gas->x0 is ignored (computed).
+ *  @param T, P      temperature [K] and total gas pressure [Pa], > 0; the
+ *                   bubble pressure must stay below P (else the liquid
+ *                   boils: EDOM).
+ *  @param x_liq     liquid mole fractions, length N.
+ *  @param M         molar masses [kg/mol], length N + 1.
+ *  @param rho_liquid liquid density [kg/m^3], > 0.
+ *  @param out_y0    interface gas mole fractions, N + 1 (may be NULL).
+ *  @param out_N     molar fluxes [mol/(m^2 s)], N + 1, positive from the
+ *                   liquid into the gas; the inert's is 0.
+ *  @param out_mass_rate  evaporation rate sum_i N_i M_i [kg/(m^2 s)] (may
+ *                   be NULL).
+ *  @param out_level_rate fall of the liquid level, mass rate / rho_liquid,
+ *                   in mm/h (may be NULL).
+ *  @param out_warn  warning bits of mcd_liquid_vle (may be NULL).
+ *  Caution: evaporating solvents are often flammable or toxic; these are
+ *  estimates for design studies, not a substitute for validated data and
+ *  engineering review.
+ *  Fails: EINVAL, EBADLEN, EDOM (as mcd_liquid_vle and mcd_film_solve;
+ *  the liquid boils), ENODATA, ESING, ENOCONV | Allocates: no | Threads:
+ *  one ws per thread */
+MCD_API mcd_status mcd_liquid_evaporation(
+    mcd_workspace *ws, const mcd_liquid *liq, const mcd_film *gas, double T,
+    double P, const double *x_liq, const double *M, double rho_liquid,
+    double *out_y0, double *out_N, double *out_mass_rate,
+    double *out_level_rate, unsigned *out_warn);
+
 /** Tyn-Calus infinite-dilution diffusivity of a solute in a liquid
  *  solvent, in the form without parachors of Poling, Prausnitz and
  *  O'Connell (2001, sec. 11-9): D = 8.93e-8 V_B^0.267 V_A^-0.433 T / mu_B

@@ -866,6 +866,7 @@ FORTRAN_SCALAR = {
     "mcd_bulbs_integrate": ["bulbs"],
     "mcd_binary_tyn_calus": ["out_D"],
     "mcd_binary_hayduk_minhas": ["out_D"],
+    "mcd_liquid_evaporation": ["gas"],
 }
 # FORTRAN_NULLABLE: pointer parameters that may be NULL (bound as
 # type(c_ptr), value: pass c_null_ptr or c_loc(x)).
@@ -883,6 +884,9 @@ FORTRAN_NULLABLE = {
                                     "out_max_rel_err"],
     "mcd_film_solve": ["values", "out_iterations", "out_residual"],
     "mcd_liquid_eval": ["out_lngamma", "out_Gamma", "out_Dij", "out_warn"],
+    "mcd_liquid_vle": ["out_warn"],
+    "mcd_liquid_evaporation": ["out_y0", "out_mass_rate", "out_level_rate",
+                               "out_warn"],
 }
 # FORTRAN_DUMMY_NAMES: dummy argument names that differ from the C names
 # (Fortran names are case-insensitive, so film_profile's n and N clash;

@@ -183,6 +183,57 @@ static void vignes(size_t n, const double *dinf, const double *x, double *D)
     }
 }
 
+mcd_status mcdi_liquid_partial(const mcd_liquid *liq, double T, const double *x,
+                               const double *lng, double *p, unsigned *warn)
+{
+    for (size_t i = 0; i < liq->n; i++) {
+        const double *a = liq->ant + 5 * i;
+        double lg;
+        if (!mcdi_finite(a[0])) {
+            p[i] = 0.0;
+            continue;
+        }
+        if (!(T >= a[3] && T <= a[4]))
+            *warn |= MCD_WARN_TEMPERATURE;
+        if (!(T + a[2] > 0))
+            return mcdi_fail(MCD_EDOM,
+                             "species %zu: T = %g K is below the pole of its "
+                             "Antoine equation (T + C <= 0)",
+                             i, T);
+        lg = a[0] - a[1] / (T + a[2]);
+        p[i] = x[i] * exp(lng[i] + lg * 2.302585092994046); /* ln 10 */
+        if (!mcdi_finite(p[i]))
+            return mcdi_fail(MCD_EDOM,
+                             "species %zu: vapour pressure overflows at T = "
+                             "%g K",
+                             i, T);
+    }
+    return MCD_OK;
+}
+
+/* Modified Raoult's law at the interface: the liquid's activity
+ * coefficients (stable states only) and the Antoine vapour pressures. */
+mcd_status mcdi_api_liquid_vle(mcd_workspace *ws, const mcd_liquid *liq,
+                               double T, const double *x, double *out_p,
+                               unsigned *out_warn)
+{
+    mcdi_liq l;
+    unsigned warn = 0;
+    mcd_status st;
+    if ((st = MCDI_CHECK_PTRS3(ws, liq, out_p)) != MCD_OK ||
+        (st = mcdi_api_liquid_eval(ws, liq, T, x, NULL, NULL, NULL, &warn)) !=
+            MCD_OK)
+        return st;
+    /* eval left ln gamma and the normalised x in the liquid scratch */
+    mcdi_liq_scratch(ws, &l);
+    if ((st = mcdi_liquid_partial(liq, T, l.x, l.lng, l.s1, &warn)) != MCD_OK)
+        return st;
+    memcpy(out_p, l.s1, liq->n * sizeof(double));
+    if (out_warn != NULL)
+        *out_warn = warn;
+    return MCD_OK;
+}
+
 mcd_status mcdi_api_liquid_eval(mcd_workspace *ws, const mcd_liquid *liq,
                                 double T, const double *x, double *out_lngamma,
                                 double *out_Gamma, double *out_Dij,

@@ -19,6 +19,7 @@ MCD_API void mcd_liquid_free(mcd_liquid *liq)
     free(liq->trange);
     free(liq->pset);
     free(liq->dinf);
+    free(liq->ant);
     free(liq);
 }
 
@@ -46,13 +47,16 @@ mcd_status mcdi_api_liquid_new(size_t n, mcd_activity_model model,
     liq->trange = calloc(2 * n * n, sizeof(double));
     liq->pset = calloc(n * n, 1);
     liq->dinf = calloc(n * n, sizeof(double));
+    liq->ant = malloc(5 * n * sizeof(double));
     if (!liq->sp || !liq->coef || !liq->alpha || !liq->trange || !liq->pset ||
-        !liq->dinf) {
+        !liq->dinf || !liq->ant) {
         mcd_liquid_free(liq);
         return MCD_ENOMEM;
     }
     for (size_t k = 0; k < n * MCDI_LIQ_NSP; k++)
         liq->sp[k] = NAN;
+    for (size_t k = 0; k < 5 * n; k++)
+        liq->ant[k] = NAN;
     *out_liq = liq;
     return MCD_OK;
 }
@@ -149,5 +153,37 @@ mcd_status mcdi_api_liquid_set_dinf(mcd_liquid *liq, size_t i, size_t j,
                          D_i_in_j >= DBL_MIN ? D_j_in_i : D_i_in_j);
     liq->dinf[i * liq->n + j] = D_i_in_j;
     liq->dinf[j * liq->n + i] = D_j_in_i;
+    return MCD_OK;
+}
+
+/*
+ * Antoine's equation, log10(P^sat / Pa) = A - B / (T / K + C) (Antoine
+ * 1888; the usual three-constant form). Constants published for mmHg and
+ * degrees Celsius convert as A_Pa = A + log10(133.322368), C_K = C -
+ * 273.15; for bar and K, A_Pa = A + 5. The correlation holds only over the
+ * range it was fitted on: outside [T_min, T_max] the evaluation warns.
+ */
+mcd_status mcdi_api_liquid_set_antoine(mcd_liquid *liq, size_t i, double A,
+                                       double B, double C, double T_min,
+                                       double T_max)
+{
+    const double v[5] = {A, B, C, T_min, T_max};
+    static const char *const nm[5] = {"A", "B", "C", "T_min", "T_max"};
+    if (liq == NULL)
+        return mcdi_fail(MCD_EINVAL, "argument liq: NULL");
+    if (i >= liq->n)
+        return mcdi_fail(MCD_EINVAL, "argument i: %zu is not below %zu", i,
+                         liq->n);
+    for (size_t k = 0; k < 5; k++)
+        if (!mcdi_finite(v[k]))
+            return mcdi_fail(MCD_EINVAL, "argument %s: not finite", nm[k]);
+    if (!(B > 0))
+        return mcdi_fail(MCD_EDOM, "argument B: %g is not > 0", B);
+    if (!(T_min > 0 && T_max > T_min && T_min + C > 0))
+        return mcdi_fail(MCD_EDOM,
+                         "arguments T_min, T_max: [%g, %g] is not a range "
+                         "0 < T_min < T_max with T_min + C > 0",
+                         T_min, T_max);
+    memcpy(liq->ant + 5 * i, v, sizeof v);
     return MCD_OK;
 }

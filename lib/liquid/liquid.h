@@ -21,7 +21,16 @@ struct mcd_liquid {
     double *trange;      /* n x n x 2: T_min, T_max (0, 0: none) */
     unsigned char *pset; /* n x n: pair parameters set */
     double *dinf;        /* n x n: D° of i infinitely dilute in j */
+    double *ant;         /* n x 5 Antoine A, B, C, T_min, T_max (A NaN:
+                            not set, the species is not volatile) */
 };
+
+/* Partial pressures p_i = x_i gamma_i P_i^sat(T) [Pa] of the species with
+ * Antoine constants (0 for the others) into p, from validated x (sum 1)
+ * and ln gamma; warning bits for T outside an Antoine range. EDOM when a
+ * vapour pressure overflows. */
+mcd_status mcdi_liquid_partial(const mcd_liquid *liq, double T, const double *x,
+                               const double *lng, double *p, unsigned *warn);
 
 /* Activity model at one state: from the pair matrix t (n x n, model's
  * meaning: NRTL tau_ij, Wilson Lambda_ij, UNIQUAC tau_ij), the NRTL

@@ -230,6 +230,14 @@ SIGNATURES = {
     "mcd_liquid_set_dinf": (_ST, [_H, _SZ, _SZ, _D, _D]),
     # (ws, liq, T, x, out_lngamma, out_Gamma, out_Dij, out_warn)
     "mcd_liquid_eval": (_ST, [_H, _H, _D, _PD, _PD, _PD, _PD, _PU]),
+    # (liq, i, A, B, C, T_min, T_max)
+    "mcd_liquid_set_antoine": (_ST, [_H, _SZ, _D, _D, _D, _D, _D]),
+    # (ws, liq, T, x, out_p, out_warn)
+    "mcd_liquid_vle": (_ST, [_H, _H, _D, _PD, _PD, _PU]),
+    # (ws, liq, gas, T, P, x_liq, M, rho_liquid, out_y0, out_N, out_mass_rate,
+    #  out_level_rate, out_warn)
+    "mcd_liquid_evaporation": (_ST, [_H, _H, _H, _D, _D, _PD, _PD, _D, _PD,
+                                     _PD, _PD, _PD, _PU]),
     # (T, mu_solvent, Vb_solute, Vb_solvent, out_D)
     "mcd_binary_tyn_calus": (_ST, [_D, _D, _D, _D, _PD]),
     # (T, mu_water, Vb_solute, out_D)
