@@ -88,7 +88,8 @@ enum {
     NB_OM,
     NB_LIQ,
     NB_OLIQ,
-    NB_CIJ
+    NB_CIJ,
+    NB_LIQ2
 };
 
 /* Every output of every call (guarded as one block). */
@@ -110,7 +111,8 @@ typedef struct ctx {
     mcd_workspace *ws;
     mcd_db *db;
     mcd_mixture *mix;
-    mcd_liquid *liq; /* NRTL, 3 species, every parameter set */
+    mcd_liquid *liq;  /* NRTL, 3 species, every parameter set */
+    mcd_liquid *liq2; /* ideal, 2 species with water's vapour pressure */
     mcd_allocator al;
     size_t probe;  /* database index of a species lacking params */
     size_t probe2; /* a species with M = 1e-5 kg/mol (0.01 g/mol) */
@@ -121,6 +123,7 @@ typedef struct ctx {
     double MA, MB, VA, VB, sigA, sigB, epsA, epsB, mu, Ms, phi, Vb;
     double D_ref, T_ref, P_ref, expo, conc, Tlo, Thi, tol_it;
     double cij[3], alpha, Tmin, Tmax, Din1, Din2; /* liquid setters */
+    double antA, antB, antC, rhoL, xl2[2];
     int lmodel, lparam;
     size_t K, max_iter, nthreads;
     int use_small_ws;
@@ -486,6 +489,25 @@ static int call_mcd_liquid_eval(ctx *c)
     return mcd_liquid_eval(WS, ARG(liq, NB_LIQ), c->T, ARG(x, NB_X),
                            OUT(o1, NB_O1), OUT(o2, NB_O2), OUT(o3, NB_O3),
                            OUT(ou, NB_OU));
+}
+static int call_mcd_liquid_set_antoine(ctx *c)
+{
+    return mcd_liquid_set_antoine(ARG(liq, NB_LIQ), c->i, c->antA, c->antB,
+                                  c->antC, c->Tmin, c->Tmax);
+}
+static int call_mcd_liquid_vle(ctx *c)
+{
+    return mcd_liquid_vle(WS, ARG(liq, NB_LIQ), c->T, ARG(x, NB_X),
+                          OUT(o1, NB_O1), OUT(ou, NB_OU));
+}
+static int call_mcd_liquid_evaporation(ctx *c)
+{
+    mcd_film gas = {
+        .n_species = c->n, .c = c->c, .L = c->L, .Dij = c->D, .xL = c->x2};
+    return mcd_liquid_evaporation(
+        WS, ARG(liq2, NB_LIQ2), &gas, c->T, c->P, ARG(xl2, NB_X), ARG(M, NB_M),
+        c->rhoL, OUT(o1, NB_O1), OUT(o2, NB_O2), OUT(o3, NB_O3),
+        OUT(o3, NB_O3) + 1, OUT(ou, NB_OU));
 }
 static int call_mcd_binary_tyn_calus(ctx *c)
 {
@@ -1682,6 +1704,40 @@ static const bcase cases[] = {
     C(mcd_liquid_eval, "x NaN", EINVAL_, "x", MDA(x, 1, NAN)),
     C(mcd_liquid_eval, "workspace too small", MCD_EBADLEN, NULL,
       MI(use_small_ws, 1)),
+    B(mcd_liquid_set_antoine, MCD_OK),
+    C(mcd_liquid_set_antoine, "liq NULL", EINVAL_, "liq", MN(NB_LIQ)),
+    C(mcd_liquid_set_antoine, "i = n", EINVAL_, "i", MZ(i, 3)),
+    C(mcd_liquid_set_antoine, "A NaN", EINVAL_, "A", MD(antA, NAN)),
+    C(mcd_liquid_set_antoine, "B 0", EDOM_, "B", MD(antB, 0.0)),
+    C(mcd_liquid_set_antoine, "range reversed", EDOM_, "T_min",
+      MD(Tmin, 400.0)),
+    C(mcd_liquid_set_antoine, "T_min below the pole", EDOM_, "T_min",
+      MD(antC, -300.0)),
+    B(mcd_liquid_vle, MCD_OK),
+    C(mcd_liquid_vle, "ws NULL", EINVAL_, "ws", MN(NB_WS)),
+    C(mcd_liquid_vle, "liq NULL", EINVAL_, "liq", MN(NB_LIQ)),
+    C(mcd_liquid_vle, "out_p NULL", EINVAL_, "out_p", MN(NB_O1)),
+    C(mcd_liquid_vle, "x NULL", EINVAL_, "x", MN(NB_X)),
+    C(mcd_liquid_vle, "T 0", EDOM_, "T", MD(T, 0.0)),
+    C(mcd_liquid_vle, "x sum 1.5", EDOM_, "x", MDA(x, 0, 1.0)),
+    C(mcd_liquid_vle, "workspace too small", MCD_EBADLEN, NULL,
+      MI(use_small_ws, 1)),
+    B(mcd_liquid_evaporation, MCD_OK),
+    C(mcd_liquid_evaporation, "ws NULL", EINVAL_, "ws", MN(NB_WS)),
+    C(mcd_liquid_evaporation, "liq NULL", EINVAL_, "liq", MN(NB_LIQ2)),
+    C(mcd_liquid_evaporation, "x_liq NULL", EINVAL_, "x_liq", MN(NB_X)),
+    C(mcd_liquid_evaporation, "M NULL", EINVAL_, "M", MN(NB_M)),
+    C(mcd_liquid_evaporation, "out_N NULL", EINVAL_, "out_N", MN(NB_O2)),
+    C(mcd_liquid_evaporation, "gas n_species not N + 1", EINVAL_, "gas",
+      MZ(n, 2)),
+    C(mcd_liquid_evaporation, "P 0", EDOM_, "P", MD(P, 0.0)),
+    C(mcd_liquid_evaporation, "rho_liquid NaN", EINVAL_, "rho_liquid",
+      MD(rhoL, NAN)),
+    C(mcd_liquid_evaporation, "boiling", EDOM_, "P", MD(P, 1000.0)),
+    C(mcd_liquid_evaporation, "x_liq negative", EDOM_, "x", MDA(xl2, 0, -0.4)),
+    C(mcd_liquid_evaporation, "L 0", EDOM_, "L", MD(L, 0.0)),
+    C(mcd_liquid_evaporation, "workspace too small", MCD_EBADLEN, NULL,
+      MI(use_small_ws, 1)),
     B(mcd_binary_tyn_calus, MCD_OK),
     C(mcd_binary_tyn_calus, "T NaN", EINVAL_, NULL, MD(T, NAN)),
     C(mcd_binary_tyn_calus, "mu 0", EDOM_, NULL, MD(mu, 0.0)),
@@ -1775,6 +1831,17 @@ static void ctx_init(ctx *c)
     c->Tmax = 350.0;
     c->Din1 = 1.2e-9;
     c->Din2 = 0.8e-9;
+    c->antA = 9.6543;
+    c->antB = 1435.264;
+    c->antC = -64.848;
+    c->rhoL = 997.0;
+    c->xl2[0] = 0.4;
+    c->xl2[1] = 0.6;
+    ck_assert_int_eq(mcd_liquid_new(2, MCD_ACTIVITY_IDEAL, &c->liq2), MCD_OK);
+    for (size_t a = 0; a < 2; a++)
+        ck_assert_int_eq(mcd_liquid_set_antoine(c->liq2, a, c->antA, c->antB,
+                                                c->antC, 255.9, 373.0),
+                         MCD_OK);
     ck_assert_int_eq(mcd_liquid_new(3, MCD_ACTIVITY_NRTL, &c->liq), MCD_OK);
     for (size_t a = 0; a < 3; a++)
         for (size_t b = a + 1; b < 3; b++) {
@@ -1868,6 +1935,7 @@ static void ctx_free(ctx *c)
     mcd_workspace_free(c->ws2);
     mcd_mixture_free(c->mix);
     mcd_liquid_free(c->liq);
+    mcd_liquid_free(c->liq2);
     mcd_db_free(c->db);
 }
 

@@ -175,7 +175,8 @@ module mcdiff
        mcd_bulbs_linearized, mcd_bulbs_integrate, &
        mcd_liquid_new, mcd_liquid_set_species, mcd_liquid_set_pair, &
        mcd_liquid_set_dinf, mcd_liquid_eval, mcd_binary_tyn_calus, &
-       mcd_binary_hayduk_minhas
+       mcd_binary_hayduk_minhas, mcd_liquid_set_antoine, mcd_liquid_vle, &
+       mcd_liquid_evaporation
 
   !> Release a handle (any of the three types); an empty handle is a no-op.
   interface mcd_free
@@ -1629,5 +1630,71 @@ contains
     character(len=*), intent(out), optional :: errmsg
     call finish(c_mcd_binary_hayduk_minhas(T, mu_water, Vb_solute, D), stat, errmsg)
   end subroutine mcd_binary_hayduk_minhas
+
+  !> Antoine constants of species i (1-based): log10(P/Pa) = A - B/(T/K + C)
+  !> over [T_min, T_max].
+  subroutine mcd_liquid_set_antoine(liq, i, A, B, C, T_min, T_max, stat, errmsg)
+    type(mcd_liquid_t), intent(inout) :: liq
+    integer, intent(in) :: i
+    real(c_double), intent(in) :: A, B, C, T_min, T_max
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_liquid_set_antoine(liq%ptr, cidx(i), A, B, C, T_min, T_max), &
+         stat, errmsg)
+  end subroutine mcd_liquid_set_antoine
+
+  !> Partial pressures p(n) [Pa] over the liquid x(n) at T (modified
+  !> Raoult's law).
+  subroutine mcd_liquid_vle(ws, liq, T, x, p, stat, errmsg, warn)
+    type(mcd_workspace_t), intent(in) :: ws
+    type(mcd_liquid_t), intent(in) :: liq
+    real(c_double), intent(in) :: T, x(*)
+    real(c_double), intent(inout) :: p(*)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    integer, intent(inout), optional :: warn
+    integer(c_int), target :: w
+    integer(c_int) :: s
+    w = 0
+    s = c_mcd_liquid_vle(ws%ptr, liq%ptr, T, x, p, c_loc(w))
+    if (s == 0 .and. present(warn)) warn = int(w)
+    call finish(s, stat, errmsg)
+  end subroutine mcd_liquid_vle
+
+  !> Evaporation of the liquid x_liq(n) through a stagnant gas film of the
+  !> liquid's n species plus one inert (ng = n + 1 species, inert last):
+  !> Dij(ng, ng), xL(ng) at the open end, c, L; M(ng); rho_liquid. N_flux(ng)
+  !> [mol/(m^2 s)]; optional y0(ng), mass_rate [kg/(m^2 s)], level_rate
+  !> [mm/h], warn.
+  subroutine mcd_liquid_evaporation(ws, liq, ng, Dij, c, L, xL, T, P, x_liq, M, &
+       rho_liquid, N_flux, stat, errmsg, y0, mass_rate, level_rate, warn)
+    type(mcd_workspace_t), intent(in) :: ws
+    type(mcd_liquid_t), intent(in) :: liq
+    integer, intent(in) :: ng
+    real(c_double), intent(in), target :: Dij(ng, ng), xL(ng)
+    real(c_double), intent(in) :: c, L, T, P, x_liq(*), M(*), rho_liquid
+    real(c_double), intent(inout) :: N_flux(ng)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    real(c_double), intent(inout), optional, target :: y0(ng)
+    real(c_double), intent(inout), optional :: mass_rate, level_rate
+    integer, intent(inout), optional :: warn
+    real(c_double), target :: r(2)
+    integer(c_int), target :: w
+    type(c_ptr) :: py
+    integer(c_int) :: s
+    py = c_null_ptr
+    if (present(y0)) py = c_loc(y0(1))
+    w = 0
+    r = 0
+    s = c_mcd_liquid_evaporation(ws%ptr, liq%ptr, film_of(ng, Dij, c, L, xL, xL), T, P, &
+         x_liq, M, rho_liquid, py, N_flux, c_loc(r(1)), c_loc(r(2)), c_loc(w))
+    if (s == 0) then
+       if (present(mass_rate)) mass_rate = r(1)
+       if (present(level_rate)) level_rate = r(2)
+       if (present(warn)) warn = int(w)
+    end if
+    call finish(s, stat, errmsg)
+  end subroutine mcd_liquid_evaporation
 
 end module mcdiff

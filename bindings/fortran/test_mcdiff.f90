@@ -729,6 +729,41 @@ contains
     call check_stat(stat, msg, 'Hayduk-Minhas')
     call check(Dhm > 5e-10_c_double .and. Dhm < 2e-9_c_double, 'Hayduk-Minhas magnitude')
     call mcd_free(ws)
+    call check_liquid_evaporation()
   end subroutine check_liquid
+
+  ! Water into dry air through 5 cm at 298.15 K, 1 atm: Stefan's law
+  ! N = (c D / L) ln(1 / (1 - y0)), y0 = P^sat / P with the Antoine
+  ! constants of water (Stull 1947 via the NIST WebBook, from memory).
+  subroutine check_liquid_evaporation()
+    type(mcd_liquid_t) :: liq
+    type(mcd_workspace_t) :: ws
+    real(c_double) :: D(2, 2), xL(2), M(2), x(1), p(1), N(2), y0(2), rate, level, c, ref
+    real(c_double), parameter :: T = 298.15_c_double, P0 = 101325.0_c_double
+    integer :: stat
+    character(len=256) :: msg
+    call mcd_workspace_new(ws, 2, stat, msg)
+    call mcd_liquid_new(liq, 1, MCD_ACTIVITY_IDEAL, stat, msg)
+    call mcd_liquid_set_antoine(liq, 1, 9.6543_c_double, 1435.264_c_double, &
+         -64.848_c_double, 255.9_c_double, 373.0_c_double, stat, msg)
+    call check_stat(stat, msg, 'mcd_liquid_set_antoine')
+    x = 1
+    call mcd_liquid_vle(ws, liq, T, x, p, stat, msg)
+    call check_stat(stat, msg, 'mcd_liquid_vle')
+    call check(abs(p(1) / 3169.9_c_double - 1) < 0.02_c_double, 'water vapour pressure')
+    D = reshape([0.0_c_double, 2.6e-5_c_double, 2.6e-5_c_double, 0.0_c_double], [2, 2])
+    xL = [0.0_c_double, 1.0_c_double]
+    M = [0.018015_c_double, 0.028964_c_double]
+    c = P0 / (MCD_GAS_CONSTANT * T)
+    call mcd_liquid_evaporation(ws, liq, 2, D, c, 0.05_c_double, xL, T, P0, x, M, &
+         997.05_c_double, N, stat, msg, y0=y0, mass_rate=rate, level_rate=level)
+    call check_stat(stat, msg, 'mcd_liquid_evaporation')
+    ref = c * 2.6e-5_c_double / 0.05_c_double * log(1 / (1 - p(1) / P0))
+    call check(abs(N(1) / ref - 1) < 1e-10_c_double, 'Stefan law')
+    call check(abs(level - rate / 997.05_c_double * 3.6e6_c_double) <= 1e-12_c_double * level, &
+         'level rate in mm/h')
+    call mcd_free(liq)
+    call mcd_free(ws)
+  end subroutine check_liquid_evaporation
 
 end program test_mcdiff
