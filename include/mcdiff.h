@@ -1177,7 +1177,8 @@ MCD_API mcd_status mcd_bulbs_integrate(mcd_workspace *ws,
  *   Đ_ij = (D°_ij)^x_j (D°_ji)^x_i prod_{k != i,j} (D°_ik D°_jk)^(x_k/2).
  * Vignes reproduces mutual diffusion in nearly ideal binaries within about
  * 10-20 % and is poorer for associating (hydrogen-bonding) mixtures
- * (common practice; Taylor and Krishna 1993, ch. 4). The D° are used as
+ * (Taylor and Krishna 1993, ch. 4; from memory, not checked against
+ * concentrated-liquid data in the tests). The D° are used as
  * given at every temperature: set them for the temperature of use (for
  * example from mcd_binary_wilke_chang, _tyn_calus, _hayduk_minhas).
  *
