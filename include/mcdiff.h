@@ -343,7 +343,11 @@ typedef enum mcd_method {
                                         Neufeld collision integral */
     MCD_METHOD_WILKE_LEE = 3,      /**< Wilke-Lee (gases) */
     MCD_METHOD_WILKE_CHANG = 4,    /**< Wilke-Chang (dilute solute in liquid) */
-    MCD_METHOD_USER = 5            /**< value supplied by the caller */
+    MCD_METHOD_USER = 5,           /**< value supplied by the caller */
+    MCD_METHOD_TYN_CALUS = 6,      /**< Tyn-Calus (dilute solute in liquid)
+                                        Since 0.3. */
+    MCD_METHOD_HAYDUK_MINHAS = 7   /**< Hayduk-Minhas (dilute solute in
+                                        water). Since 0.3. */
 } mcd_method;
 
 /** Gas-phase correlations, the methods a database pair or a mixture pair
@@ -356,7 +360,8 @@ typedef enum mcd_gas_method {
 } mcd_gas_method;
 
 /** Short name of a method ("fsg", "chapman-enskog", "wilke-lee",
- *  "wilke-chang", "user"), or NULL. Since 0.1. */
+ *  "wilke-chang", "user", "tyn-calus", "hayduk-minhas"), or NULL.
+ *  Since 0.1. */
 MCD_API const char *mcd_method_name(mcd_method m);
 /** Method from its short name (case-insensitive). Since 0.1.
  *  Fails: EINVAL, ENOTFOUND | Allocates: no */
@@ -1199,6 +1204,258 @@ MCD_API mcd_status mcd_bulbs_integrate(mcd_workspace *ws,
                                        const mcd_bulbs *bulbs, size_t n_times,
                                        const double *t, double rel_tol,
                                        double *out_x1, double *out_x2);
+
+/* ------------------------------------------------------------------ */
+/* Liquids: activity, thermodynamic factors, diffusivities          */
+/* ------------------------------------------------------------------ */
+
+/*
+ * A liquid mixture of N species described by an activity-coefficient model
+ * with the caller's parameters. For a composition x and temperature T,
+ * mcd_liquid_eval gives ln gamma_i, the thermodynamic factor matrix Gamma
+ * and the Maxwell-Stefan diffusivities Đ_ij of the concentrated liquid,
+ * ready for the mcd_state of mcd_flux_compute and mcd_fick_matrix (Gamma
+ * and Dij fields; c is the liquid's molar concentration, which the caller
+ * supplies).
+ *
+ * Models (pair parameter p_ij(T) = a_ij + b_ij / T + e_ij ln T, T in K;
+ * a and e dimensionless, b in K; ordered pairs: p_ij and p_ji differ):
+ *   NRTL (Renon and Prausnitz 1968): tau_ij = p_ij, G_ij = exp(-alpha_ij
+ *     tau_ij), alpha_ij = alpha_ji the non-randomness parameter.
+ *     ln gamma_i = sum_j x_j tau_ji G_ji / sum_k x_k G_ki
+ *       + sum_j x_j G_ij / (sum_k x_k G_kj) (tau_ij - sum_m x_m tau_mj G_mj
+ *         / sum_k x_k G_kj).
+ *     Parameters given as Delta g_ij [J/mol] (tau_ij = Delta g_ij / (R T))
+ *     are b_ij = Delta g_ij / R; the form Delta g_ij = A + B T gives
+ *     b_ij = A / R, a_ij = B / R.
+ *   Wilson (1964): Lambda_ij = (V_j / V_i) exp(-p_ij), with p_ij =
+ *     (lambda_ij - lambda_ii) / (R T) (so b_ij = (lambda_ij - lambda_ii) /
+ *     R) and V_i the liquid molar volumes (MCD_LIQ_MOLAR_VOLUME).
+ *     ln gamma_i = 1 - ln sum_j x_j Lambda_ij - sum_k x_k Lambda_ki /
+ *     sum_j x_j Lambda_kj. Wilson's model cannot describe two liquid
+ *     phases.
+ *   UNIQUAC (Abrams and Prausnitz 1975): tau_ij = exp(-p_ij), p_ij =
+ *     (u_ij - u_jj) / (R T); volume and area parameters r_i, q_i
+ *     (MCD_LIQ_UNIQUAC_R, _Q), coordination number z = 10.
+ *   IDEAL: gamma_i = 1, Gamma = I; no parameters.
+ *
+ * Thermodynamic factor: the N x N matrix Gamma_ij = delta_ij + x_i
+ * n_T d ln gamma_i / d n_j (derivatives with respect to mole numbers at
+ * fixed T and P; n_T the total). It gives d_i = sum_j Gamma_ij grad x_j
+ * for any gradients that sum to zero, which is the convention of
+ * mcd_state.Gamma, and every column sums to 1 (Gibbs-Duhem), so the
+ * projection of mcd_flux_compute leaves it unchanged. The (N-1) x (N-1)
+ * matrix of Taylor and Krishna (1993), Gamma_ij = delta_ij + x_i
+ * d ln gamma_i / d x_j with x_k (the dependent species) eliminated, is
+ * Gamma_ij - Gamma_ik for i, j != k: exactly the matrix mcd_fick_matrix
+ * forms with dependent = k. Derivatives are analytic.
+ *
+ * Phase stability: where the mixture would split into two liquids (the
+ * Hessian of the Gibbs energy of mixing is not positive definite on the
+ * composition changes of the species present, i.e. beyond a spinodal, where
+ * det Gamma = 0), mcd_liquid_eval fails with MCD_EDOM and says so: fluxes
+ * there would be meaningless. Between the binodal and the spinodal the
+ * mixture is metastable and is accepted.
+ *
+ * Diffusivities: from the infinite-dilution values D°_ij (i infinitely
+ * dilute in j; mcd_liquid_set_dinf) by Vignes (1966) for N = 2,
+ *   Đ_12 = (D°_12)^x_2 (D°_21)^x_1,
+ * and its multicomponent generalisation of Kooijman and Taylor (1991),
+ *   Đ_ij = (D°_ij)^x_j (D°_ji)^x_i prod_{k != i,j} (D°_ik D°_jk)^(x_k/2).
+ * Vignes reproduces mutual diffusion in nearly ideal binaries within about
+ * 10-20 % and is poorer for associating (hydrogen-bonding) mixtures
+ * (Taylor and Krishna 1993, ch. 4; from memory, not checked against
+ * concentrated-liquid data in the tests). The D° are used as
+ * given at every temperature: set them for the temperature of use (for
+ * example from mcd_binary_wilke_chang, _tyn_calus, _hayduk_minhas).
+ *
+ * Caution: activity parameters fitted to vapour-liquid data may predict
+ * spurious phase splits or wrong Gamma away from their fitted range; the
+ * results do not replace validated data and engineering review.
+ */
+
+typedef struct mcd_liquid mcd_liquid;
+
+/** Activity-coefficient models of a liquid. */
+typedef enum mcd_activity_model {
+    MCD_ACTIVITY_IDEAL = 0,  /**< gamma = 1 (Raoult) */
+    MCD_ACTIVITY_NRTL = 1,   /**< Renon and Prausnitz (1968) */
+    MCD_ACTIVITY_WILSON = 2, /**< Wilson (1964) */
+    MCD_ACTIVITY_UNIQUAC = 3 /**< Abrams and Prausnitz (1975) */
+} mcd_activity_model;
+
+/** Species parameters of a liquid. */
+typedef enum mcd_liquid_param {
+    MCD_LIQ_MOLAR_VOLUME = 0, /**< liquid molar volume V_i [m^3/mol]
+                                   (Wilson) */
+    MCD_LIQ_UNIQUAC_R = 1,    /**< UNIQUAC volume parameter r_i [-] */
+    MCD_LIQ_UNIQUAC_Q = 2     /**< UNIQUAC area parameter q_i [-] */
+} mcd_liquid_param;
+
+/** New liquid of n_species species (1..MCD_MAX_SPECIES) with an activity
+ *  model. Every pair and species parameter the model needs starts unset
+ *  (mcd_liquid_eval names the first missing one). Free with
+ *  mcd_liquid_free. Since 0.3.
+ *  Fails: EINVAL (NULL, n or model out of range), ENOMEM | Allocates: yes */
+MCD_API mcd_status mcd_liquid_new(size_t n_species, mcd_activity_model model,
+                                  mcd_liquid **out_liq);
+/** Free a liquid; NULL is a no-op. Since 0.3. */
+MCD_API void mcd_liquid_free(mcd_liquid *liq);
+
+/** Set species parameter p of species i: Wilson's molar volume [m^3/mol]
+ *  or UNIQUAC's r, q [-] (finite, > 0). Since 0.3.
+ *  Fails: EINVAL (NULL, i or p out of range, NaN), EDOM (value <= 0)
+ *  | Allocates: no */
+MCD_API mcd_status mcd_liquid_set_species(mcd_liquid *liq, size_t i,
+                                          mcd_liquid_param p, double value);
+
+/** Set the interaction parameters of the pair (i, j), i != j, of the
+ *  model (see the section's introduction): p_ij(T) = coef_ij[0] +
+ *  coef_ij[1] / T + coef_ij[2] ln T and p_ji from coef_ji (each length 3,
+ *  finite), for NRTL the non-randomness alpha (= alpha_ji, finite, in
+ *  [-1, 1]; ignored by the other models), and the temperature range
+ *  [T_min, T_max] [K] over which the parameters were fitted (0 < T_min <
+ *  T_max; both 0: no range): mcd_liquid_eval flags MCD_WARN_TEMPERATURE
+ *  outside it. Since 0.3.
+ *  Fails: EINVAL (NULL, i == j or out of range, NaN), EDOM (alpha or range
+ *  out of range) | Allocates: no */
+MCD_API mcd_status mcd_liquid_set_pair(mcd_liquid *liq, size_t i, size_t j,
+                                       const double *coef_ij,
+                                       const double *coef_ji, double alpha,
+                                       double T_min, double T_max);
+
+/** Set the infinite-dilution diffusivities of the pair (i, j), i != j:
+ *  D_i_in_j of i infinitely dilute in j and D_j_in_i [m^2/s] (finite,
+ *  >= DBL_MIN). Needed for Đ by mcd_liquid_eval. Since 0.3.
+ *  Fails: EINVAL (NULL, indices, NaN), EDOM (<= 0) | Allocates: no */
+MCD_API mcd_status mcd_liquid_set_dinf(mcd_liquid *liq, size_t i, size_t j,
+                                       double D_i_in_j, double D_j_in_i);
+
+/** Activity coefficients, thermodynamic factor and Maxwell-Stefan
+ *  diffusivities of the liquid at (T, x). Any output may be NULL; those
+ *  given are written only on success. Reads the liquid only (may be
+ *  shared between threads, one workspace each). Since 0.3.
+ *  @param ws          workspace with capacity >= the liquid's N.
+ *  @param T           temperature [K], > 0.
+ *  @param x           mole fractions, length N, validated as by
+ *                     mcd_comp_normalize; species may be absent (x = 0).
+ *  @param out_lngamma ln gamma_i [-], length N.
+ *  @param out_Gamma   thermodynamic factor [-], N x N row-major (see the
+ *                     section's introduction): the mcd_state.Gamma of this
+ *                     state.
+ *  @param out_Dij     Maxwell-Stefan diffusivities [m^2/s], N x N
+ *                     symmetric, diagonal 0 (Vignes / Kooijman-Taylor):
+ *                     the mcd_state.Dij of this state. Requires every
+ *                     pair's mcd_liquid_set_dinf.
+ *  @param out_warn    MCD_WARN_TEMPERATURE when T lies outside a pair's
+ *                     declared range (may be NULL).
+ *  Fails: EINVAL (NULL ws, liq or x, NaN), EBADLEN (N > capacity), EDOM
+ *  (T <= 0, composition out of range, the liquid splits into two phases
+ *  at this state: the detail says "not stable"; a parameter giving an
+ *  overflow), ENODATA (a pair's or species' parameter is missing; the
+ *  detail names the pair or species and the parameter) | Allocates: no
+ *  | Threads: one ws per thread */
+MCD_API mcd_status mcd_liquid_eval(mcd_workspace *ws, const mcd_liquid *liq,
+                                   double T, const double *x,
+                                   double *out_lngamma, double *out_Gamma,
+                                   double *out_Dij, unsigned *out_warn);
+
+/** Set the Antoine constants of species i: log10(P^sat / Pa) = A - B /
+ *  (T / K + C), valid over [T_min, T_max] [K] (0 < T_min < T_max, T_min +
+ *  C > 0; B > 0). Constants published for mmHg and degrees Celsius
+ *  convert as A + log10(133.322368) and C - 273.15; for bar and K, A + 5.
+ *  Name the source of the constants next to them in your code. A species
+ *  without Antoine constants is not volatile (partial pressure 0). Since
+ *  0.3.
+ *  Fails: EINVAL (NULL, i out of range, NaN), EDOM (B <= 0, bad range)
+ *  | Allocates: no */
+MCD_API mcd_status mcd_liquid_set_antoine(mcd_liquid *liq, size_t i, double A,
+                                          double B, double C, double T_min,
+                                          double T_max);
+
+/** Vapour-liquid equilibrium at an interface by the modified Raoult's law
+ *  (ideal vapour, Poynting factor 1: low pressure): partial pressures
+ *  p_i = x_i gamma_i(T, x) P_i^sat(T) [Pa] with the activity model and the
+ *  Antoine constants (0 for species without them). The bubble pressure is
+ *  sum p_i; over a gas at total pressure P the interface vapour mole
+ *  fractions are y_i = p_i / P. Since 0.3.
+ *  @param x        liquid mole fractions, length N (as mcd_liquid_eval).
+ *  @param out_p    partial pressures [Pa], length N.
+ *  @param out_warn MCD_WARN_TEMPERATURE outside a pair's or an Antoine
+ *                  range (may be NULL).
+ *  Fails: as mcd_liquid_eval (ENODATA for missing activity parameters;
+ *  EDOM where the liquid splits or a vapour pressure overflows)
+ *  | Allocates: no | Threads: one ws per thread */
+MCD_API mcd_status mcd_liquid_vle(mcd_workspace *ws, const mcd_liquid *liq,
+                                  double T, const double *x, double *out_p,
+                                  unsigned *out_warn);
+
+/** Evaporation of a liquid through a stagnant gas film or Stefan tube into
+ *  an inert gas. The gas holds the liquid's N species (same order) and one
+ *  inert, insoluble species last (N + 1 species): at the liquid surface
+ *  (z = 0) the vapour is in equilibrium with the liquid x_liq
+ *  (mcd_liquid_vle: y_i = p_i / P, the inert the rest), at z = L the gas
+ *  has gas->xL, the inert does not move (MCD_FILM_BOOT_STAGNANT), and the
+ *  fluxes are the exact Maxwell-Stefan film solution (mcd_film_solve,
+ *  MCD_FILM_EXACT). Isothermal and quasi-steady: the liquid composition
+ *  and level are frozen while the film is solved; for a mixture the rate
+ *  is the instantaneous one. Since 0.3.
+ *  @param gas       the gas film: n_species = N + 1 (capacity of ws at
+ *                   least that), c [mol/m^3] (for an ideal gas P / (R T)),
+ *                   L [m], Dij (N + 1) x (N + 1) gas diffusivities, xL
+ *                   (N + 1); gas->x0 is ignored (computed).
+ *  @param T, P      temperature [K] and total gas pressure [Pa], > 0; the
+ *                   bubble pressure must stay below P (else the liquid
+ *                   boils: EDOM).
+ *  @param x_liq     liquid mole fractions, length N.
+ *  @param M         molar masses [kg/mol], length N + 1.
+ *  @param rho_liquid liquid density [kg/m^3], > 0.
+ *  @param out_y0    interface gas mole fractions, N + 1 (may be NULL).
+ *  @param out_N     molar fluxes [mol/(m^2 s)], N + 1, positive from the
+ *                   liquid into the gas; the inert's is 0.
+ *  @param out_mass_rate  evaporation rate sum_i N_i M_i [kg/(m^2 s)] (may
+ *                   be NULL).
+ *  @param out_level_rate fall of the liquid level, mass rate / rho_liquid,
+ *                   in mm/h (may be NULL).
+ *  @param out_warn  warning bits of mcd_liquid_vle (may be NULL).
+ *  Caution: evaporating solvents are often flammable or toxic; these are
+ *  estimates for design studies, not a substitute for validated data and
+ *  engineering review.
+ *  Fails: EINVAL, EBADLEN, EDOM (as mcd_liquid_vle and mcd_film_solve;
+ *  the liquid boils), ENODATA, ESING, ENOCONV | Allocates: no | Threads:
+ *  one ws per thread */
+MCD_API mcd_status mcd_liquid_evaporation(
+    mcd_workspace *ws, const mcd_liquid *liq, const mcd_film *gas, double T,
+    double P, const double *x_liq, const double *M, double rho_liquid,
+    double *out_y0, double *out_N, double *out_mass_rate,
+    double *out_level_rate, unsigned *out_warn);
+
+/** Tyn-Calus infinite-dilution diffusivity of a solute in a liquid
+ *  solvent, in the form without parachors of Poling, Prausnitz and
+ *  O'Connell (2001, sec. 11-9): D = 8.93e-8 V_B^0.267 V_A^-0.433 T / mu_B
+ *  (A solute, B solvent; cm^2/s, V in cm^3/mol at the normal boiling
+ *  point, mu in cP), in SI here. For organic liquid solutes; not for water
+ *  as the solute or viscous solvents (> 20 cP).
+ *  Typical error: mcd_method_typical_error(MCD_METHOD_TYN_CALUS). Since 0.3.
+ *  @param mu_solvent  solvent viscosity at T [Pa s].
+ *  @param Vb_solute, Vb_solvent  molar volumes at the normal boiling
+ *                     points [m^3/mol].
+ *  Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_binary_tyn_calus(double T, double mu_solvent,
+                                        double Vb_solute, double Vb_solvent,
+                                        double *out_D);
+
+/** Hayduk-Minhas (1982) infinite-dilution diffusivity of a solute in
+ *  water: D = 1.25e-8 (V_A^-0.19 - 0.292) T^1.52 mu_w^(9.58 / V_A - 1.12)
+ *  (cm^2/s, V_A in cm^3/mol at the normal boiling point, mu_w in cP), in
+ *  SI here. Typical error: mcd_method_typical_error(
+ *  MCD_METHOD_HAYDUK_MINHAS). Since 0.3.
+ *  @param mu_water  viscosity of water at T [Pa s].
+ *  @param Vb_solute molar volume of the solute at its normal boiling point
+ *                   [m^3/mol].
+ *  Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_binary_hayduk_minhas(double T, double mu_water,
+                                            double Vb_solute, double *out_D);
 
 #ifdef __cplusplus
 }

@@ -1,5 +1,6 @@
 /* test_alloc.c - no heap allocation in any per-call API of the batched
- * flux layer (and the single-state flux call it is compared with).
+ * flux layer (and the single-state flux call it is compared with), nor in
+ * the liquid's per-state calls.
  *
  * On glibc the executable interposes malloc, calloc, realloc and
  * posix_memalign (forwarding to the __libc_* entry points: SUP_ALLOC_HOOK
@@ -144,12 +145,74 @@ START_TEST(alloc_batched_calls_do_not_allocate)
 }
 END_TEST
 
+/* The liquid's per-state calls (mcd_liquid_eval, _vle, _evaporation) for
+ * every activity model: no allocation inside the window. */
+START_TEST(alloc_liquid_calls_do_not_allocate)
+{
+    const mcd_activity_model models[4] = {MCD_ACTIVITY_IDEAL, MCD_ACTIVITY_NRTL,
+                                          MCD_ACTIVITY_WILSON,
+                                          MCD_ACTIVITY_UNIQUAC};
+    const double cf[3] = {0.05, 40.0, 0.0};
+    double x[4] = {0.4, 0.3, 0.2, 0.1}, lng[4], G[16], D[16], p[4];
+    double Dg[25], xL[5] = {0, 0, 0, 0, 1}, Mg[5], y0[5], N[5], rate, lvl;
+    mcd_liquid *liq[4];
+    mcd_workspace *ws;
+    int st[16], ns = 0, pass, live;
+    unsigned w;
+    ck_assert_int_eq(mcd_workspace_new(5, &ws), MCD_OK);
+    for (size_t i = 0; i < 25; i++)
+        Dg[i] = i % 6 == 0 ? 0.0 : 1.5e-5;
+    for (size_t i = 0; i < 5; i++)
+        Mg[i] = 0.02 + 0.01 * (double)i;
+    for (int m = 0; m < 4; m++) {
+        ck_assert_int_eq(mcd_liquid_new(4, models[m], &liq[m]), MCD_OK);
+        for (size_t i = 0; i < 4; i++) {
+            mcd_liquid_set_species(liq[m], i, MCD_LIQ_MOLAR_VOLUME, 5e-5);
+            mcd_liquid_set_species(liq[m], i, MCD_LIQ_UNIQUAC_R, 2.0);
+            mcd_liquid_set_species(liq[m], i, MCD_LIQ_UNIQUAC_Q, 2.0);
+            mcd_liquid_set_antoine(liq[m], i, 9.0, 1500.0, -50.0, 250.0, 400.0);
+            for (size_t j = i + 1; j < 4; j++) {
+                mcd_liquid_set_pair(liq[m], i, j, cf, cf, 0.3, 0, 0);
+                mcd_liquid_set_dinf(liq[m], i, j, 1e-9, 2e-9);
+            }
+        }
+    }
+    for (pass = 0; pass < 2; pass++) {
+        ns = 0;
+        if (pass == 1)
+            sup_alloc_open();
+        for (int m = 0; m < 4; m++) {
+            st[ns++] = mcd_liquid_eval(ws, liq[m], 300.0, x, lng, G, D, &w);
+            st[ns++] = mcd_liquid_vle(ws, liq[m], 300.0, x, p, &w);
+            st[ns++] = mcd_liquid_evaporation(
+                ws, liq[m],
+                &(mcd_film){
+                    .n_species = 5, .c = 40.0, .L = 0.01, .Dij = Dg, .xL = xL},
+                300.0, 1e5, x, Mg, 800.0, y0, N, &rate, &lvl, &w);
+        }
+        if (pass == 0)
+            for (int i = 0; i < ns; i++)
+                ck_assert_msg(st[i] == MCD_OK, "call %d: %s", i,
+                              mcd_last_error());
+    }
+    live = sup_alloc_close();
+    for (int i = 0; i < ns; i++)
+        ck_assert_int_eq(st[i], MCD_OK);
+    if (live)
+        ck_assert_int_eq(sup_alloc_count, 1); /* the probe only */
+    for (int m = 0; m < 4; m++)
+        mcd_liquid_free(liq[m]);
+    mcd_workspace_free(ws);
+}
+END_TEST
+
 int main(void)
 {
     Suite *s = suite_create("mcd:alloc");
     TCase *tc = tcase_create("alloc");
     tcase_set_timeout(tc, 120);
     tcase_add_test(tc, alloc_batched_calls_do_not_allocate);
+    tcase_add_test(tc, alloc_liquid_calls_do_not_allocate);
     suite_add_tcase(s, tc);
     return sup_run(s);
 }

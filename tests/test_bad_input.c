@@ -85,7 +85,11 @@ enum {
     NB_ODB,
     NB_OMIX,
     NB_OWS,
-    NB_OM
+    NB_OM,
+    NB_LIQ,
+    NB_OLIQ,
+    NB_CIJ,
+    NB_LIQ2
 };
 
 /* Every output of every call (guarded as one block). */
@@ -99,6 +103,7 @@ typedef struct outs {
     mcd_mixture *omix;
     mcd_workspace *ows;
     mcd_method om;
+    mcd_liquid *oliq;
 } outs;
 
 typedef struct ctx {
@@ -106,6 +111,8 @@ typedef struct ctx {
     mcd_workspace *ws;
     mcd_db *db;
     mcd_mixture *mix;
+    mcd_liquid *liq;  /* NRTL, 3 species, every parameter set */
+    mcd_liquid *liq2; /* ideal, 2 species with water's vapour pressure */
     mcd_allocator al;
     size_t probe;  /* database index of a species lacking params */
     size_t probe2; /* a species with M = 1e-5 kg/mol (0.01 g/mol) */
@@ -115,6 +122,9 @@ typedef struct ctx {
     double T, P, c, L, V1, V2, A, tol_diag, tol_ode, value, Tstar;
     double MA, MB, VA, VB, sigA, sigB, epsA, epsB, mu, Ms, phi, Vb;
     double D_ref, T_ref, P_ref, expo, conc, Tlo, Thi, tol_it;
+    double cij[3], alpha, Tmin, Tmax, Din1, Din2; /* liquid setters */
+    double antA, antB, antC, rhoL, xl2[2];
+    int lmodel, lparam;
     size_t K, max_iter, nthreads;
     int use_small_ws;
     mcd_workspace *ws2; /* capacity 2 < n */
@@ -444,6 +454,71 @@ static int call_mcd_mixture_binaries(ctx *c)
 {
     return mcd_mixture_binaries(ARG(mix, NB_MIX), c->T, c->P, OUT(o1, NB_O1),
                                 OUT(o2, NB_O2), OUT(ou, NB_OU));
+}
+static int call_mcd_liquid_new(ctx *c)
+{
+    int r = mcd_liquid_new(c->n, (mcd_activity_model)c->lmodel,
+                           OUTP(oliq, NB_OLIQ));
+    if (r == MCD_OK) {
+        mcd_liquid_free(c->o.oliq);
+        c->o.oliq = NULL;
+    }
+    return r;
+}
+static int call_mcd_liquid_free(ctx *c)
+{
+    mcd_liquid_free(ARG(liq, NB_LIQ));
+    if (!NUL_(NB_LIQ))
+        c->liq = NULL;
+    return R_VOID;
+}
+static int call_mcd_liquid_set_species(ctx *c)
+{
+    return mcd_liquid_set_species(ARG(liq, NB_LIQ), c->i,
+                                  (mcd_liquid_param)c->lparam, c->value);
+}
+static int call_mcd_liquid_set_pair(ctx *c)
+{
+    return mcd_liquid_set_pair(ARG(liq, NB_LIQ), c->i, c->j, ARG(cij, NB_CIJ),
+                               c->cij, c->alpha, c->Tmin, c->Tmax);
+}
+static int call_mcd_liquid_set_dinf(ctx *c)
+{
+    return mcd_liquid_set_dinf(ARG(liq, NB_LIQ), c->i, c->j, c->Din1, c->Din2);
+}
+static int call_mcd_liquid_eval(ctx *c)
+{
+    return mcd_liquid_eval(WS, ARG(liq, NB_LIQ), c->T, ARG(x, NB_X),
+                           OUT(o1, NB_O1), OUT(o2, NB_O2), OUT(o3, NB_O3),
+                           OUT(ou, NB_OU));
+}
+static int call_mcd_liquid_set_antoine(ctx *c)
+{
+    return mcd_liquid_set_antoine(ARG(liq, NB_LIQ), c->i, c->antA, c->antB,
+                                  c->antC, c->Tmin, c->Tmax);
+}
+static int call_mcd_liquid_vle(ctx *c)
+{
+    return mcd_liquid_vle(WS, ARG(liq, NB_LIQ), c->T, ARG(x, NB_X),
+                          OUT(o1, NB_O1), OUT(ou, NB_OU));
+}
+static int call_mcd_liquid_evaporation(ctx *c)
+{
+    mcd_film gas = {
+        .n_species = c->n, .c = c->c, .L = c->L, .Dij = c->D, .xL = c->x2};
+    return mcd_liquid_evaporation(
+        WS, ARG(liq2, NB_LIQ2), &gas, c->T, c->P, ARG(xl2, NB_X), ARG(M, NB_M),
+        c->rhoL, OUT(o1, NB_O1), OUT(o2, NB_O2), OUT(o3, NB_O3),
+        OUT(o3, NB_O3) + 1, OUT(ou, NB_OU));
+}
+static int call_mcd_binary_tyn_calus(ctx *c)
+{
+    return mcd_binary_tyn_calus(c->T, c->mu, c->Vb, c->VA * 1e-6,
+                                OUT(o1, NB_O1));
+}
+static int call_mcd_binary_hayduk_minhas(ctx *c)
+{
+    return mcd_binary_hayduk_minhas(c->T, c->mu, c->Vb, OUT(o1, NB_O1));
 }
 static int call_mcd_workspace_new(ctx *c)
 {
@@ -1060,7 +1135,7 @@ static const bcase cases[] = {
     /* ---- methods and binary estimates ---- */
     B(mcd_method_name, R_VALUE),
     C(mcd_method_name, "m 0", R_NULL, NULL, MI(method, 0)),
-    C(mcd_method_name, "m 6", R_NULL, NULL, MI(method, 6)),
+    C(mcd_method_name, "m 8", R_NULL, NULL, MI(method, 8)),
     C(mcd_method_name, "m -1", R_NULL, NULL, MI(method, -1)),
     B(mcd_method_from_name, MCD_OK),
     C(mcd_method_from_name, "name NULL", EINVAL_, NULL, MN(NB_NAME)),
@@ -1667,6 +1742,96 @@ static const bcase cases[] = {
     C(mcd_bulbs_integrate, "rel_tol 0", EDOM_, "rel_tol", MD(tol_ode, 0.0)),
     C(mcd_bulbs_integrate, "rel_tol 0.5", EDOM_, "rel_tol", MD(tol_ode, 0.5)),
     C(mcd_bulbs_integrate, "rel_tol NaN", EINVAL_, "rel_tol", MD(tol_ode, NAN)),
+    B(mcd_liquid_new, MCD_OK),
+    C(mcd_liquid_new, "out_liq NULL", EINVAL_, "out_liq", MN(NB_OLIQ)),
+    C(mcd_liquid_new, "n 0", EINVAL_, "n_species", MZ(n, 0)),
+    C(mcd_liquid_new, "n above MCD_MAX_SPECIES", EINVAL_, "n_species",
+      MZ(n, BIG)),
+    C(mcd_liquid_new, "model 4", EINVAL_, "model", MI(lmodel, 4)),
+    C(mcd_liquid_new, "model -1", EINVAL_, "model", MI(lmodel, -1)),
+    B(mcd_liquid_free, R_VOID),
+    C(mcd_liquid_free, "NULL is a no-op", R_VOID, NULL, MN(NB_LIQ)),
+    B(mcd_liquid_set_species, MCD_OK),
+    C(mcd_liquid_set_species, "liq NULL", EINVAL_, "liq", MN(NB_LIQ)),
+    C(mcd_liquid_set_species, "i = n", EINVAL_, "i", MZ(i, 3)),
+    C(mcd_liquid_set_species, "p 3", EINVAL_, "p", MI(lparam, 3)),
+    C(mcd_liquid_set_species, "p -1", EINVAL_, "p", MI(lparam, -1)),
+    C(mcd_liquid_set_species, "value NaN", EINVAL_, "value", MD(value, NAN)),
+    C(mcd_liquid_set_species, "value 0", EDOM_, "value", MD(value, 0.0)),
+    B(mcd_liquid_set_pair, MCD_OK),
+    C(mcd_liquid_set_pair, "liq NULL", EINVAL_, "liq", MN(NB_LIQ)),
+    C(mcd_liquid_set_pair, "coef_ij NULL", EINVAL_, "coef_ij", MN(NB_CIJ)),
+    C(mcd_liquid_set_pair, "i == j", EINVAL_, "pair", MZ(j, 0)),
+    C(mcd_liquid_set_pair, "j = n", EINVAL_, "pair", MZ(j, 3)),
+    C(mcd_liquid_set_pair, "coef NaN", EINVAL_, "coef_ij", MDA(cij, 1, NAN)),
+    C(mcd_liquid_set_pair, "alpha NaN", EINVAL_, "alpha", MD(alpha, NAN)),
+    C(mcd_liquid_set_pair, "alpha 1.5", EDOM_, "alpha", MD(alpha, 1.5)),
+    C(mcd_liquid_set_pair, "T range reversed", EDOM_, "T_min", MD(Tmin, 400.0)),
+    C(mcd_liquid_set_pair, "T_max inf", EINVAL_, "T_max", MD(Tmax, INFINITY)),
+    B(mcd_liquid_set_dinf, MCD_OK),
+    C(mcd_liquid_set_dinf, "liq NULL", EINVAL_, "liq", MN(NB_LIQ)),
+    C(mcd_liquid_set_dinf, "i == j", EINVAL_, "pair", MZ(j, 0)),
+    C(mcd_liquid_set_dinf, "i = n", EINVAL_, "pair", MZ(i, 3)),
+    C(mcd_liquid_set_dinf, "D NaN", EINVAL_, "D_i_in_j", MD(Din1, NAN)),
+    C(mcd_liquid_set_dinf, "D 0", EDOM_, "D_j_in_i", MD(Din2, 0.0)),
+    C(mcd_liquid_set_dinf, "D subnormal", EDOM_, "D_i_in_j", MD(Din1, 1e-310)),
+    B(mcd_liquid_eval, MCD_OK),
+    C(mcd_liquid_eval, "ws NULL", EINVAL_, "ws", MN(NB_WS)),
+    C(mcd_liquid_eval, "liq NULL", EINVAL_, "liq", MN(NB_LIQ)),
+    C(mcd_liquid_eval, "x NULL", EINVAL_, "x", MN(NB_X)),
+    C(mcd_liquid_eval, "T 0", EDOM_, "T", MD(T, 0.0)),
+    C(mcd_liquid_eval, "T NaN", EINVAL_, "T", MD(T, NAN)),
+    C(mcd_liquid_eval, "x negative", EDOM_, "x", MDA(x, 0, -0.5)),
+    C(mcd_liquid_eval, "x NaN", EINVAL_, "x", MDA(x, 1, NAN)),
+    C(mcd_liquid_eval, "workspace too small", MCD_EBADLEN, NULL,
+      MI(use_small_ws, 1)),
+    B(mcd_liquid_set_antoine, MCD_OK),
+    C(mcd_liquid_set_antoine, "liq NULL", EINVAL_, "liq", MN(NB_LIQ)),
+    C(mcd_liquid_set_antoine, "i = n", EINVAL_, "i", MZ(i, 3)),
+    C(mcd_liquid_set_antoine, "A NaN", EINVAL_, "A", MD(antA, NAN)),
+    C(mcd_liquid_set_antoine, "B 0", EDOM_, "B", MD(antB, 0.0)),
+    C(mcd_liquid_set_antoine, "range reversed", EDOM_, "T_min",
+      MD(Tmin, 400.0)),
+    C(mcd_liquid_set_antoine, "T_min below the pole", EDOM_, "T_min",
+      MD(antC, -300.0)),
+    B(mcd_liquid_vle, MCD_OK),
+    C(mcd_liquid_vle, "ws NULL", EINVAL_, "ws", MN(NB_WS)),
+    C(mcd_liquid_vle, "liq NULL", EINVAL_, "liq", MN(NB_LIQ)),
+    C(mcd_liquid_vle, "out_p NULL", EINVAL_, "out_p", MN(NB_O1)),
+    C(mcd_liquid_vle, "x NULL", EINVAL_, "x", MN(NB_X)),
+    C(mcd_liquid_vle, "T 0", EDOM_, "T", MD(T, 0.0)),
+    C(mcd_liquid_vle, "x sum 1.5", EDOM_, "x", MDA(x, 0, 1.0)),
+    C(mcd_liquid_vle, "workspace too small", MCD_EBADLEN, NULL,
+      MI(use_small_ws, 1)),
+    B(mcd_liquid_evaporation, MCD_OK),
+    C(mcd_liquid_evaporation, "ws NULL", EINVAL_, "ws", MN(NB_WS)),
+    C(mcd_liquid_evaporation, "liq NULL", EINVAL_, "liq", MN(NB_LIQ2)),
+    C(mcd_liquid_evaporation, "x_liq NULL", EINVAL_, "x_liq", MN(NB_X)),
+    C(mcd_liquid_evaporation, "M NULL", EINVAL_, "M", MN(NB_M)),
+    C(mcd_liquid_evaporation, "out_N NULL", EINVAL_, "out_N", MN(NB_O2)),
+    C(mcd_liquid_evaporation, "gas n_species not N + 1", EINVAL_, "gas",
+      MZ(n, 2)),
+    C(mcd_liquid_evaporation, "P 0", EDOM_, "P", MD(P, 0.0)),
+    C(mcd_liquid_evaporation, "rho_liquid NaN", EINVAL_, "rho_liquid",
+      MD(rhoL, NAN)),
+    C(mcd_liquid_evaporation, "boiling", EDOM_, "P", MD(P, 1000.0)),
+    C(mcd_liquid_evaporation, "x_liq negative", EDOM_, "x", MDA(xl2, 0, -0.4)),
+    C(mcd_liquid_evaporation, "L 0", EDOM_, "L", MD(L, 0.0)),
+    C(mcd_liquid_evaporation, "workspace too small", MCD_EBADLEN, NULL,
+      MI(use_small_ws, 1)),
+    B(mcd_binary_tyn_calus, MCD_OK),
+    C(mcd_binary_tyn_calus, "T NaN", EINVAL_, NULL, MD(T, NAN)),
+    C(mcd_binary_tyn_calus, "mu 0", EDOM_, NULL, MD(mu, 0.0)),
+    C(mcd_binary_tyn_calus, "Vb 0", EDOM_, NULL, MD(Vb, 0.0)),
+    C(mcd_binary_tyn_calus, "Vb solvent negative", EDOM_, NULL, MD(VA, -1.0)),
+    C(mcd_binary_tyn_calus, "out NULL", EINVAL_, NULL, MN(NB_O1)),
+    B(mcd_binary_hayduk_minhas, MCD_OK),
+    C(mcd_binary_hayduk_minhas, "T 0", EDOM_, NULL, MD(T, 0.0)),
+    C(mcd_binary_hayduk_minhas, "mu inf", EINVAL_, NULL, MD(mu, INFINITY)),
+    C(mcd_binary_hayduk_minhas, "Vb NaN", EINVAL_, NULL, MD(Vb, NAN)),
+    C(mcd_binary_hayduk_minhas, "Vb beyond the correlation", EDOM_, NULL,
+      MD(Vb, 1e-3)),
+    C(mcd_binary_hayduk_minhas, "out NULL", EINVAL_, NULL, MN(NB_O1)),
 };
 
 #define NCASES (sizeof cases / sizeof cases[0])
@@ -1739,6 +1904,34 @@ static void ctx_init(ctx *c)
     c->Ms = 0.018;
     c->phi = 2.6;
     c->Vb = 4.2e-5;
+    c->lmodel = MCD_ACTIVITY_NRTL;
+    c->lparam = MCD_LIQ_MOLAR_VOLUME;
+    c->cij[0] = 0.1, c->cij[1] = 100.0, c->cij[2] = 0.0;
+    c->alpha = 0.3;
+    c->Tmin = 280.0;
+    c->Tmax = 350.0;
+    c->Din1 = 1.2e-9;
+    c->Din2 = 0.8e-9;
+    c->antA = 9.6543;
+    c->antB = 1435.264;
+    c->antC = -64.848;
+    c->rhoL = 997.0;
+    c->xl2[0] = 0.4;
+    c->xl2[1] = 0.6;
+    ck_assert_int_eq(mcd_liquid_new(2, MCD_ACTIVITY_IDEAL, &c->liq2), MCD_OK);
+    for (size_t a = 0; a < 2; a++)
+        ck_assert_int_eq(mcd_liquid_set_antoine(c->liq2, a, c->antA, c->antB,
+                                                c->antC, 255.9, 373.0),
+                         MCD_OK);
+    ck_assert_int_eq(mcd_liquid_new(3, MCD_ACTIVITY_NRTL, &c->liq), MCD_OK);
+    for (size_t a = 0; a < 3; a++)
+        for (size_t b = a + 1; b < 3; b++) {
+            ck_assert_int_eq(
+                mcd_liquid_set_pair(c->liq, a, b, c->cij, c->cij, 0.3, 0, 0),
+                MCD_OK);
+            ck_assert_int_eq(mcd_liquid_set_dinf(c->liq, a, b, 1e-9, 2e-9),
+                             MCD_OK);
+        }
     c->D_ref = 2e-5;
     c->T_ref = 298.15;
     c->P_ref = MCD_ATM;
@@ -1829,6 +2022,8 @@ static void ctx_free(ctx *c)
     mcd_workspace_free(c->ws);
     mcd_workspace_free(c->ws2);
     mcd_mixture_free(c->mix);
+    mcd_liquid_free(c->liq);
+    mcd_liquid_free(c->liq2);
     mcd_db_free(c->db);
 }
 

@@ -7,9 +7,9 @@
  * mixture, each owns its workspace, and every thread computes the same
  * NSTATES states (binaries from the mixture, Maxwell-Stefan and
  * mixture-averaged fluxes, the Fick matrix and a film solve). Every result
- * must be bitwise identical to the serial run: the library keeps no hidden
- * shared mutable state, so there is nothing that could differ. Run under
- * ThreadSanitizer by .ci/robustness.sh.
+ * must be bitwise identical to the serial run (a shared liquid too): the
+ * library keeps no hidden shared mutable state, so there is nothing that
+ * could differ. Run under ThreadSanitizer by .ci/robustness.sh.
  */
 #include <check.h>
 #include <math.h>
@@ -302,6 +302,69 @@ START_TEST(threads_error_detail_is_per_thread)
 }
 END_TEST
 
+/* A liquid shared read-only by every thread (the header: it may be, one
+ * workspace each): each thread evaluates ln gamma, Gamma and Dij at the
+ * same compositions, which must equal the serial results bit for bit. */
+#define LQ_N 4
+#define LQ_STATES 32
+static mcd_liquid *g_liq;
+static double g_lq_ref[LQ_STATES][LQ_N + 2 * LQ_N * LQ_N];
+
+static int liquid_state(mcd_workspace *ws, int k, double *out)
+{
+    double x[LQ_N] = {0.1 + 0.01 * k, 0.2, 0.3, 0.4 - 0.01 * k};
+    return mcd_liquid_eval(ws, g_liq, 300.0 + k, x, out, out + LQ_N,
+                           out + LQ_N + LQ_N * LQ_N, NULL);
+}
+
+static void *liquid_worker(void *arg)
+{
+    int *bad = (int *)arg;
+    mcd_workspace *ws = NULL;
+    double out[LQ_N + 2 * LQ_N * LQ_N];
+    if (mcd_workspace_new(LQ_N, &ws) != MCD_OK) {
+        (*bad)++;
+        return NULL;
+    }
+    for (int r = 0; r < 50; r++)
+        for (int k = 0; k < LQ_STATES; k++)
+            if (liquid_state(ws, k, out) != MCD_OK ||
+                memcmp(out, g_lq_ref[k], sizeof out) != 0)
+                (*bad)++;
+    mcd_workspace_free(ws);
+    return NULL;
+}
+
+START_TEST(threads_shared_liquid_equals_serial)
+{
+    const double c[3] = {0.1, 80.0, 0.0};
+    pthread_t th[NTHREADS];
+    int bad[NTHREADS] = {0};
+    mcd_workspace *ws = NULL;
+    ck_assert_int_eq(mcd_liquid_new(LQ_N, MCD_ACTIVITY_NRTL, &g_liq), MCD_OK);
+    for (size_t i = 0; i < LQ_N; i++)
+        for (size_t j = i + 1; j < LQ_N; j++) {
+            ck_assert_int_eq(mcd_liquid_set_pair(g_liq, i, j, c, c, 0.3, 0, 0),
+                             MCD_OK);
+            ck_assert_int_eq(mcd_liquid_set_dinf(g_liq, i, j, 1e-9 * (1 + i),
+                                                 1e-9 * (1 + j)),
+                             MCD_OK);
+        }
+    ck_assert_int_eq(mcd_workspace_new(LQ_N, &ws), MCD_OK);
+    for (int k = 0; k < LQ_STATES; k++)
+        ck_assert_int_eq(liquid_state(ws, k, g_lq_ref[k]), MCD_OK);
+    mcd_workspace_free(ws);
+    for (int t = 0; t < NTHREADS; t++)
+        ck_assert_int_eq(pthread_create(&th[t], NULL, liquid_worker, &bad[t]),
+                         0);
+    for (int t = 0; t < NTHREADS; t++)
+        ck_assert_int_eq(pthread_join(th[t], NULL), 0);
+    for (int t = 0; t < NTHREADS; t++)
+        ck_assert_int_eq(bad[t], 0);
+    mcd_liquid_free(g_liq);
+}
+END_TEST
+
 int main(void)
 {
     Suite *s = suite_create("mcd:threads");
@@ -311,6 +374,7 @@ int main(void)
     tcase_add_test(tc, threads_results_bitwise_equal_serial);
     tcase_add_test(tc, threads_shared_database_queries);
     tcase_add_test(tc, threads_error_detail_is_per_thread);
+    tcase_add_test(tc, threads_shared_liquid_equals_serial);
     suite_add_tcase(s, tc);
     return sup_run(s);
 }

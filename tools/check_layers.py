@@ -27,6 +27,7 @@ RANK = {
     "data": 1,     # elements, formulas, species table, databases
     "props": 2,    # binary diffusivities, mixtures
     "flux": 3,     # single-state flux core
+    "liquid": 3,   # activity models, thermodynamic factors, liquid diffusivities
     "batched": 4,  # batched fluxes and their kernels
     "transfer": 4, # films, two bulbs
     "api": 5,      # constructors that size every layer's scratch

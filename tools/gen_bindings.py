@@ -866,6 +866,9 @@ FORTRAN_SCALAR = {
     "mcd_film_profile": ["film"],
     "mcd_bulbs_linearized": ["bulbs"],
     "mcd_bulbs_integrate": ["bulbs"],
+    "mcd_binary_tyn_calus": ["out_D"],
+    "mcd_binary_hayduk_minhas": ["out_D"],
+    "mcd_liquid_evaporation": ["gas"],
 }
 # FORTRAN_NULLABLE: pointer parameters that may be NULL (bound as
 # type(c_ptr), value: pass c_null_ptr or c_loc(x)).
@@ -882,6 +885,10 @@ FORTRAN_NULLABLE = {
     "mcd_mixture_temperature_fit": ["out_T_min", "out_T_max",
                                     "out_max_rel_err"],
     "mcd_film_solve": ["values", "out_iterations", "out_residual"],
+    "mcd_liquid_eval": ["out_lngamma", "out_Gamma", "out_Dij", "out_warn"],
+    "mcd_liquid_vle": ["out_warn"],
+    "mcd_liquid_evaporation": ["out_y0", "out_mass_rate", "out_level_rate",
+                               "out_warn"],
 }
 # FORTRAN_DUMMY_NAMES: dummy argument names that differ from the C names
 # (Fortran names are case-insensitive, so film_profile's n and N clash;
@@ -901,7 +908,8 @@ FORTRAN_SKIP_DEFINES = {"MCD_VERSION_MAJOR", "MCD_VERSION_MINOR",
 # Functions whose Fortran wrapper has another name.
 FORTRAN_WRAPPED_AS = {"mcd_db_free": "mcd_free",
                       "mcd_mixture_free": "mcd_free",
-                      "mcd_workspace_free": "mcd_free"}
+                      "mcd_workspace_free": "mcd_free",
+                      "mcd_liquid_free": "mcd_free"}
 
 _F_KIND = {"int": "integer(c_int)", "unsigned": "integer(c_int)",
            "size_t": "integer(c_size_t)", "double": "real(c_double)",

@@ -120,6 +120,15 @@ module mcdiff
      final :: ws_final
   end type mcd_workspace_t
 
+  type, public :: mcd_liquid_t
+     private
+     type(c_ptr) :: ptr = c_null_ptr
+   contains
+     procedure, private :: liq_assign
+     generic :: assignment(=) => liq_assign
+     final :: liq_final
+  end type mcd_liquid_t
+
   ! ------------------------------------------------------------------
   ! C library helpers used by the wrappers
   ! ------------------------------------------------------------------
@@ -164,22 +173,26 @@ module mcdiff
        mcd_binary_wilke_lee, mcd_binary_wilke_chang, mcd_db_binary_liquid, &
        mcd_flux_to_volume_frame, mcd_flux_to_species_frame, &
        mcd_flux_velocity_difference, mcd_mixture_temperature_fit, &
-       mcd_bulbs_linearized, mcd_bulbs_integrate
+       mcd_bulbs_linearized, mcd_bulbs_integrate, &
+       mcd_liquid_new, mcd_liquid_set_species, mcd_liquid_set_pair, &
+       mcd_liquid_set_dinf, mcd_liquid_eval, mcd_binary_tyn_calus, &
+       mcd_binary_hayduk_minhas, mcd_liquid_set_antoine, mcd_liquid_vle, &
+       mcd_liquid_evaporation
 
   !> Release a handle (any of the three types); an empty handle is a no-op.
   interface mcd_free
-     module procedure db_free, mix_free, ws_free
+     module procedure db_free, mix_free, ws_free, liq_free
   end interface mcd_free
 
   !> .true. when the handle holds an object.
   interface mcd_associated
-     module procedure db_associated, mix_associated, ws_associated
+     module procedure db_associated, mix_associated, ws_associated, liq_associated
   end interface mcd_associated
 
   !> The C pointer inside a handle, for the c_mcd_* layer. The handle keeps
   !> ownership: do not free the pointer yourself.
   interface mcd_handle_ptr
-     module procedure db_ptr, mix_ptr, ws_ptr
+     module procedure db_ptr, mix_ptr, ws_ptr, liq_ptr
   end interface mcd_handle_ptr
 
 contains
@@ -335,6 +348,35 @@ contains
     type(mcd_mixture_t), intent(inout) :: h
     call mix_final(h)
   end subroutine mix_free
+
+  impure elemental subroutine liq_final(self)
+    type(mcd_liquid_t), intent(inout) :: self
+    call c_mcd_liquid_free(self%ptr)
+    self%ptr = c_null_ptr
+  end subroutine liq_final
+
+  subroutine liq_assign(lhs, rhs)
+    class(mcd_liquid_t), intent(inout) :: lhs
+    type(mcd_liquid_t), intent(in) :: rhs
+    if (c_associated(lhs%ptr, rhs%ptr)) return
+    call c_mcd_liquid_free(lhs%ptr)
+    lhs%ptr = c_null_ptr
+  end subroutine liq_assign
+
+  subroutine liq_free(h)
+    type(mcd_liquid_t), intent(inout) :: h
+    call liq_final(h)
+  end subroutine liq_free
+
+  logical function liq_associated(h)
+    type(mcd_liquid_t), intent(in) :: h
+    liq_associated = c_associated(h%ptr)
+  end function liq_associated
+
+  type(c_ptr) function liq_ptr(h)
+    type(mcd_liquid_t), intent(in) :: h
+    liq_ptr = h%ptr
+  end function liq_ptr
 
   subroutine ws_free(h)
     type(mcd_workspace_t), intent(inout) :: h
@@ -1560,5 +1602,169 @@ contains
     if (s == 0) omega = v
     call finish(s, stat, errmsg)
   end subroutine mcd_binary_omega_d
+
+  ! ==================================================================
+  ! Liquids
+  ! ==================================================================
+
+  !> New liquid of n species with an activity model (MCD_ACTIVITY_*).
+  subroutine mcd_liquid_new(liq, n, model, stat, errmsg)
+    type(mcd_liquid_t), intent(inout) :: liq
+    integer, intent(in) :: n, model
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    type(c_ptr) :: p
+    integer(c_int) :: s
+    call liq_final(liq)
+    p = c_null_ptr
+    s = c_mcd_liquid_new(csz(n), int(model, c_int), p)
+    if (s == 0) liq%ptr = p
+    call finish(s, stat, errmsg)
+  end subroutine mcd_liquid_new
+
+  !> Species parameter p (MCD_LIQ_*) of species i (1-based).
+  subroutine mcd_liquid_set_species(liq, i, p, val, stat, errmsg)
+    type(mcd_liquid_t), intent(inout) :: liq
+    integer, intent(in) :: i, p
+    real(c_double), intent(in) :: val
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_liquid_set_species(liq%ptr, cidx(i), int(p, c_int), val), &
+         stat, errmsg)
+  end subroutine mcd_liquid_set_species
+
+  !> Pair parameters of (i, j) (1-based): coef_ij(3), coef_ji(3), alpha and
+  !> the fitted range [T_min, T_max] (both 0: none).
+  subroutine mcd_liquid_set_pair(liq, i, j, coef_ij, coef_ji, alpha, T_min, T_max, &
+       stat, errmsg)
+    type(mcd_liquid_t), intent(inout) :: liq
+    integer, intent(in) :: i, j
+    real(c_double), intent(in) :: coef_ij(3), coef_ji(3), alpha, T_min, T_max
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_liquid_set_pair(liq%ptr, cidx(i), cidx(j), coef_ij, coef_ji, &
+         alpha, T_min, T_max), stat, errmsg)
+  end subroutine mcd_liquid_set_pair
+
+  !> Infinite-dilution diffusivities [m^2/s] of i in j and of j in i.
+  subroutine mcd_liquid_set_dinf(liq, i, j, D_i_in_j, D_j_in_i, stat, errmsg)
+    type(mcd_liquid_t), intent(inout) :: liq
+    integer, intent(in) :: i, j
+    real(c_double), intent(in) :: D_i_in_j, D_j_in_i
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_liquid_set_dinf(liq%ptr, cidx(i), cidx(j), D_i_in_j, D_j_in_i), &
+         stat, errmsg)
+  end subroutine mcd_liquid_set_dinf
+
+  !> ln gamma(n), Gamma(n, n) and Dij(n, n) of the liquid at (T, x), each
+  !> optional. Gamma comes in C order: the Fortran array holds the
+  !> transpose (Gamma(j, i) = Gamma_ij), which is what mcd_flux_compute's
+  !> Gamma argument expects back; Dij is symmetric. warn: MCD_WARN_* bits.
+  subroutine mcd_liquid_eval(ws, liq, T, x, stat, errmsg, lngamma, Gamma, Dij, warn)
+    type(mcd_workspace_t), intent(in) :: ws
+    type(mcd_liquid_t), intent(in) :: liq
+    real(c_double), intent(in) :: T, x(*)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    real(c_double), intent(inout), optional, target :: lngamma(*), Gamma(*), Dij(*)
+    integer, intent(inout), optional :: warn
+    type(c_ptr) :: pl, pg, pd
+    integer(c_int), target :: w
+    integer(c_int) :: s
+    pl = c_null_ptr
+    pg = c_null_ptr
+    pd = c_null_ptr
+    if (present(lngamma)) pl = c_loc(lngamma(1))
+    if (present(Gamma)) pg = c_loc(Gamma(1))
+    if (present(Dij)) pd = c_loc(Dij(1))
+    w = 0
+    s = c_mcd_liquid_eval(ws%ptr, liq%ptr, T, x, pl, pg, pd, c_loc(w))
+    if (s == 0 .and. present(warn)) warn = int(w)
+    call finish(s, stat, errmsg)
+  end subroutine mcd_liquid_eval
+
+  subroutine mcd_binary_tyn_calus(T, mu_solvent, Vb_solute, Vb_solvent, D, stat, errmsg)
+    real(c_double), intent(in) :: T, mu_solvent, Vb_solute, Vb_solvent
+    real(c_double), intent(inout) :: D
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_binary_tyn_calus(T, mu_solvent, Vb_solute, Vb_solvent, D), &
+         stat, errmsg)
+  end subroutine mcd_binary_tyn_calus
+
+  subroutine mcd_binary_hayduk_minhas(T, mu_water, Vb_solute, D, stat, errmsg)
+    real(c_double), intent(in) :: T, mu_water, Vb_solute
+    real(c_double), intent(inout) :: D
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_binary_hayduk_minhas(T, mu_water, Vb_solute, D), stat, errmsg)
+  end subroutine mcd_binary_hayduk_minhas
+
+  !> Antoine constants of species i (1-based): log10(P/Pa) = A - B/(T/K + C)
+  !> over [T_min, T_max].
+  subroutine mcd_liquid_set_antoine(liq, i, A, B, C, T_min, T_max, stat, errmsg)
+    type(mcd_liquid_t), intent(inout) :: liq
+    integer, intent(in) :: i
+    real(c_double), intent(in) :: A, B, C, T_min, T_max
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_liquid_set_antoine(liq%ptr, cidx(i), A, B, C, T_min, T_max), &
+         stat, errmsg)
+  end subroutine mcd_liquid_set_antoine
+
+  !> Partial pressures p(n) [Pa] over the liquid x(n) at T (modified
+  !> Raoult's law).
+  subroutine mcd_liquid_vle(ws, liq, T, x, p, stat, errmsg, warn)
+    type(mcd_workspace_t), intent(in) :: ws
+    type(mcd_liquid_t), intent(in) :: liq
+    real(c_double), intent(in) :: T, x(*)
+    real(c_double), intent(inout) :: p(*)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    integer, intent(inout), optional :: warn
+    integer(c_int), target :: w
+    integer(c_int) :: s
+    w = 0
+    s = c_mcd_liquid_vle(ws%ptr, liq%ptr, T, x, p, c_loc(w))
+    if (s == 0 .and. present(warn)) warn = int(w)
+    call finish(s, stat, errmsg)
+  end subroutine mcd_liquid_vle
+
+  !> Evaporation of the liquid x_liq(n) through a stagnant gas film of the
+  !> liquid's n species plus one inert (ng = n + 1 species, inert last):
+  !> Dij(ng, ng), xL(ng) at the open end, c, L; M(ng); rho_liquid. N_flux(ng)
+  !> [mol/(m^2 s)]; optional y0(ng), mass_rate [kg/(m^2 s)], level_rate
+  !> [mm/h], warn.
+  subroutine mcd_liquid_evaporation(ws, liq, ng, Dij, c, L, xL, T, P, x_liq, M, &
+       rho_liquid, N_flux, stat, errmsg, y0, mass_rate, level_rate, warn)
+    type(mcd_workspace_t), intent(in) :: ws
+    type(mcd_liquid_t), intent(in) :: liq
+    integer, intent(in) :: ng
+    real(c_double), intent(in), target :: Dij(ng, ng), xL(ng)
+    real(c_double), intent(in) :: c, L, T, P, x_liq(*), M(*), rho_liquid
+    real(c_double), intent(inout) :: N_flux(ng)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    real(c_double), intent(inout), optional, target :: y0(ng)
+    real(c_double), intent(inout), optional :: mass_rate, level_rate
+    integer, intent(inout), optional :: warn
+    real(c_double), target :: r(2)
+    integer(c_int), target :: w
+    type(c_ptr) :: py
+    integer(c_int) :: s
+    py = c_null_ptr
+    if (present(y0)) py = c_loc(y0(1))
+    w = 0
+    r = 0
+    s = c_mcd_liquid_evaporation(ws%ptr, liq%ptr, film_of(ng, Dij, c, L, xL, xL), T, P, &
+         x_liq, M, rho_liquid, py, N_flux, c_loc(r(1)), c_loc(r(2)), c_loc(w))
+    if (s == 0) then
+       if (present(mass_rate)) mass_rate = r(1)
+       if (present(level_rate)) level_rate = r(2)
+       if (present(warn)) warn = int(w)
+    end if
+    call finish(s, stat, errmsg)
+  end subroutine mcd_liquid_evaporation
 
 end module mcdiff

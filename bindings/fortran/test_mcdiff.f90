@@ -23,6 +23,7 @@ program test_mcdiff
   call check_bulbs()
   call check_errors()
   call check_handles()
+  call check_liquid()
 
   write (*, '(a, i0, a, i0, a)') 'fortran: ', nchecks - nfail, ' of ', nchecks, &
        ' checks passed'
@@ -710,5 +711,98 @@ contains
     call check(.not. mcd_associated(a), 'double free is a no-op')
     call check(mcd_db_species_count(a) == 0, 'count of empty handle is 0')
   end subroutine check_handles
+
+  ! Liquids: a binary NRTL liquid with alpha = 0 is the two-suffix Margules
+  ! equation (Renon and Prausnitz 1968): ln gamma_1 = A x_2^2, reduced
+  ! Gamma = 1 - 2 A x_1 x_2 (A = tau_12 + tau_21); Vignes Đ = D12^x2 D21^x1;
+  ! the binary flux through mcd_flux_compute is -c Đ Gamma grad x_1; an
+  ! unstable composition fails with MCD_EDOM; a missing pair is ENODATA.
+  subroutine check_liquid()
+    type(mcd_liquid_t) :: liq
+    type(mcd_workspace_t) :: ws
+    real(c_double) :: x(2), lng(2), G(4), D(4), c12(3), T, Dtc, Dhm
+    integer :: stat, warn
+    character(len=256) :: msg
+    c12 = [1.0_c_double, 0.0_c_double, 0.0_c_double]
+    call mcd_workspace_new(ws, 2, stat, msg)
+    call check_stat(stat, msg, 'liquid workspace')
+    call mcd_liquid_new(liq, 2, MCD_ACTIVITY_NRTL, stat, msg)
+    call check_stat(stat, msg, 'mcd_liquid_new')
+    x = [0.3_c_double, 0.7_c_double]
+    call mcd_liquid_eval(ws, liq, 300.0_c_double, x, stat, msg, lngamma=lng)
+    call check(stat == MCD_ENODATA .and. index(msg, 'pair (0, 1)') > 0, &
+         'missing pair names the pair: ' // trim(msg))
+    call mcd_liquid_set_pair(liq, 1, 2, c12, c12, 0.0_c_double, 0.0_c_double, &
+         0.0_c_double, stat, msg)
+    call check_stat(stat, msg, 'mcd_liquid_set_pair')
+    call mcd_liquid_set_dinf(liq, 1, 2, 2.0e-9_c_double, 1.0e-9_c_double, stat, msg)
+    call check_stat(stat, msg, 'mcd_liquid_set_dinf')
+    call mcd_liquid_set_species(liq, 1, MCD_LIQ_MOLAR_VOLUME, 4e-5_c_double, stat, msg)
+    call check_stat(stat, msg, 'mcd_liquid_set_species')
+    warn = -1
+    call mcd_liquid_eval(ws, liq, 300.0_c_double, x, stat, msg, lngamma=lng, &
+         Gamma=G, Dij=D, warn=warn)
+    call check_stat(stat, msg, 'mcd_liquid_eval')
+    call check(abs(lng(1) - 2 * 0.49_c_double) <= 1e-14_c_double, 'Margules ln gamma_1')
+    ! G in C order: G(1) = Gamma_11, G(2) = Gamma_12
+    call check(abs(G(1) - G(2) - (1 - 4 * 0.21_c_double)) <= 1e-13_c_double, &
+         'Margules reduced Gamma')
+    call check(abs(D(2) / (2.0e-9_c_double**0.7_c_double * 1.0e-9_c_double**0.3_c_double) &
+         - 1) <= 1e-14_c_double, 'Vignes')
+    call check(warn == 0, 'no warning')
+    x = [0.5_c_double, 0.5_c_double]
+    call mcd_liquid_eval(ws, liq, 300.0_c_double, x, stat, msg, Gamma=G)
+    call check(stat == MCD_EDOM .and. index(msg, 'not stable') > 0, &
+         'unstable liquid refused: ' // trim(msg))
+    call mcd_free(liq)
+    call check(.not. mcd_associated(liq), 'liquid freed')
+    T = 298.15_c_double
+    call mcd_binary_tyn_calus(T, 0.89e-3_c_double, 96e-6_c_double, 18.9e-6_c_double, &
+         Dtc, stat, msg)
+    call check_stat(stat, msg, 'Tyn-Calus')
+    ! D [cm^2/s] = 8.93e-8 V_B^0.267 V_A^-0.433 T / mu [cP]
+    call check(abs(Dtc - 1e-4_c_double * 8.93e-8_c_double * 18.9_c_double**0.267_c_double &
+         * 96.0_c_double**(-0.433_c_double) * T / 0.89_c_double) <= 1e-12_c_double * Dtc, &
+         'Tyn-Calus closed form')
+    call mcd_binary_hayduk_minhas(T, 0.89e-3_c_double, 96e-6_c_double, Dhm, stat, msg)
+    call check_stat(stat, msg, 'Hayduk-Minhas')
+    call check(Dhm > 5e-10_c_double .and. Dhm < 2e-9_c_double, 'Hayduk-Minhas magnitude')
+    call mcd_free(ws)
+    call check_liquid_evaporation()
+  end subroutine check_liquid
+
+  ! Water into dry air through 5 cm at 298.15 K, 1 atm: Stefan's law
+  ! N = (c D / L) ln(1 / (1 - y0)), y0 = P^sat / P with the Antoine
+  ! constants of water (Stull 1947 via the NIST WebBook, from memory).
+  subroutine check_liquid_evaporation()
+    type(mcd_liquid_t) :: liq
+    type(mcd_workspace_t) :: ws
+    real(c_double) :: D(2, 2), xL(2), M(2), x(1), p(1), N(2), y0(2), rate, level, c, ref
+    real(c_double), parameter :: T = 298.15_c_double, P0 = 101325.0_c_double
+    integer :: stat
+    character(len=256) :: msg
+    call mcd_workspace_new(ws, 2, stat, msg)
+    call mcd_liquid_new(liq, 1, MCD_ACTIVITY_IDEAL, stat, msg)
+    call mcd_liquid_set_antoine(liq, 1, 9.6543_c_double, 1435.264_c_double, &
+         -64.848_c_double, 255.9_c_double, 373.0_c_double, stat, msg)
+    call check_stat(stat, msg, 'mcd_liquid_set_antoine')
+    x = 1
+    call mcd_liquid_vle(ws, liq, T, x, p, stat, msg)
+    call check_stat(stat, msg, 'mcd_liquid_vle')
+    call check(abs(p(1) / 3169.9_c_double - 1) < 0.02_c_double, 'water vapour pressure')
+    D = reshape([0.0_c_double, 2.6e-5_c_double, 2.6e-5_c_double, 0.0_c_double], [2, 2])
+    xL = [0.0_c_double, 1.0_c_double]
+    M = [0.018015_c_double, 0.028964_c_double]
+    c = P0 / (MCD_GAS_CONSTANT * T)
+    call mcd_liquid_evaporation(ws, liq, 2, D, c, 0.05_c_double, xL, T, P0, x, M, &
+         997.05_c_double, N, stat, msg, y0=y0, mass_rate=rate, level_rate=level)
+    call check_stat(stat, msg, 'mcd_liquid_evaporation')
+    ref = c * 2.6e-5_c_double / 0.05_c_double * log(1 / (1 - p(1) / P0))
+    call check(abs(N(1) / ref - 1) < 1e-10_c_double, 'Stefan law')
+    call check(abs(level - rate / 997.05_c_double * 3.6e6_c_double) <= 1e-12_c_double * level, &
+         'level rate in mm/h')
+    call mcd_free(liq)
+    call mcd_free(ws)
+  end subroutine check_liquid_evaporation
 
 end program test_mcdiff

@@ -75,7 +75,17 @@
     X(film_solve, (mcd_workspace *ws, const mcd_film *film, mcd_film_bootstrap kind, size_t species, const double *values, mcd_film_method method, double *out_N, size_t *out_iterations, double *out_residual), (ws, film, kind, species, values, method, out_N, out_iterations, out_residual)) \
     X(film_profile, (mcd_workspace *ws, const mcd_film *film, const double *N, size_t n_points, const double *z, double *out_x), (ws, film, N, n_points, z, out_x)) \
     X(bulbs_linearized, (mcd_workspace *ws, const mcd_bulbs *bulbs, size_t n_times, const double *t, double *out_x1, double *out_x2), (ws, bulbs, n_times, t, out_x1, out_x2)) \
-    X(bulbs_integrate, (mcd_workspace *ws, const mcd_bulbs *bulbs, size_t n_times, const double *t, double rel_tol, double *out_x1, double *out_x2), (ws, bulbs, n_times, t, rel_tol, out_x1, out_x2))
+    X(bulbs_integrate, (mcd_workspace *ws, const mcd_bulbs *bulbs, size_t n_times, const double *t, double rel_tol, double *out_x1, double *out_x2), (ws, bulbs, n_times, t, rel_tol, out_x1, out_x2)) \
+    X(liquid_new, (size_t n_species, mcd_activity_model model, mcd_liquid **out_liq), (n_species, model, out_liq)) \
+    X(liquid_set_species, (mcd_liquid *liq, size_t i, mcd_liquid_param p, double value), (liq, i, p, value)) \
+    X(liquid_set_pair, (mcd_liquid *liq, size_t i, size_t j, const double *coef_ij, const double *coef_ji, double alpha, double T_min, double T_max), (liq, i, j, coef_ij, coef_ji, alpha, T_min, T_max)) \
+    X(liquid_set_dinf, (mcd_liquid *liq, size_t i, size_t j, double D_i_in_j, double D_j_in_i), (liq, i, j, D_i_in_j, D_j_in_i)) \
+    X(liquid_eval, (mcd_workspace *ws, const mcd_liquid *liq, double T, const double *x, double *out_lngamma, double *out_Gamma, double *out_Dij, unsigned *out_warn), (ws, liq, T, x, out_lngamma, out_Gamma, out_Dij, out_warn)) \
+    X(liquid_set_antoine, (mcd_liquid *liq, size_t i, double A, double B, double C, double T_min, double T_max), (liq, i, A, B, C, T_min, T_max)) \
+    X(liquid_vle, (mcd_workspace *ws, const mcd_liquid *liq, double T, const double *x, double *out_p, unsigned *out_warn), (ws, liq, T, x, out_p, out_warn)) \
+    X(liquid_evaporation, (mcd_workspace *ws, const mcd_liquid *liq, const mcd_film *gas, double T, double P, const double *x_liq, const double *M, double rho_liquid, double *out_y0, double *out_N, double *out_mass_rate, double *out_level_rate, unsigned *out_warn), (ws, liq, gas, T, P, x_liq, M, rho_liquid, out_y0, out_N, out_mass_rate, out_level_rate, out_warn)) \
+    X(binary_tyn_calus, (double T, double mu_solvent, double Vb_solute, double Vb_solvent, double *out_D), (T, mu_solvent, Vb_solute, Vb_solvent, out_D)) \
+    X(binary_hayduk_minhas, (double T, double mu_water, double Vb_solute, double *out_D), (T, mu_water, Vb_solute, out_D))
 /* clang-format on */
 
 #define MCDI_API_PROTOTYPE(name, params, args) \

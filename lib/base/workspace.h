@@ -18,6 +18,9 @@
  *    touches it, so a transfer call may keep data there while it calls
  *    mcd_flux_compute or mcd_fick_matrix on the same workspace.
  *
+ *  - the LIQUID bank (liq_mem), used by mcd_liquid_eval only, laid out
+ *    by name in liquid/liq_layout.h.
+ *
  *  - the BATCH bank (batch_*), per-thread block scratch of the batched
  *    calls, laid out by batched/batch_layout.h.
  *
@@ -53,6 +56,9 @@ struct mcd_workspace {
     /* TRANSFER bank (transfer/tf_layout.h) */
     double *tf_mem;
     int *tf_ipiv; /* cap ints (LAPACK pivots) */
+
+    /* LIQUID bank (liquid/liq_layout.h): mcd_liquid_eval only */
+    double *liq_mem;
 
     /* BATCH bank (batch.c only): per-thread scratch of batch_per_thread
      * doubles each, batch_threads of them, 64-byte aligned inside

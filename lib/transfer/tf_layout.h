@@ -38,7 +38,10 @@
     /* integration: Runge-Kutta stages, stage state, state, next state, */ \
     /* clipped bulb compositions                                       */  \
     R(b_k0, n) R(b_k1, n) R(b_k2, n) R(b_k3, n) R(b_k4, n) R(b_k5, n)       \
-    R(b_k6, n) R(b_ys, n) R(b_y, n) R(b_yn, n) R(b_x1c, n) R(b_x2c, n)
+    R(b_k6, n) R(b_ys, n) R(b_y, n) R(b_yn, n) R(b_x1c, n) R(b_x2c, n)      \
+    /* evaporation: interface gas composition, fluxes, partial         */  \
+    /* pressures (kept while it calls the film)                        */  \
+    R(e_y0, n) R(e_N, n) R(e_p, n)
 /* clang-format on */
 
 /* mcdi_tf, mcdi_tf_doubles(cap, 0, 1), mcdi_tf_carve(mem, cap, 0, 1, &tf) */

@@ -774,5 +774,58 @@ class Transfer(unittest.TestCase):
                                            delta=1e-15 * (V1 + V2))
 
 
+
+class Liquids(unittest.TestCase):
+    """The Liquid class: a binary NRTL liquid with alpha = 0 is the
+    two-suffix Margules equation (Renon and Prausnitz 1968), ln gamma_1 =
+    A x_2^2 with A = tau_12 + tau_21 and reduced Gamma 1 - 2 A x_1 x_2;
+    Vignes Dij; the binary liquid flux -c Đ Gamma grad x_1; Stefan's law
+    for water evaporating into dry air (Antoine constants of water, Stull
+    1947 via the NIST WebBook, from memory)."""
+
+    def test_margules_limit_vignes_and_flux(self):
+        liq = mcdiff.Liquid(2, "nrtl")
+        liq.set_pair(0, 1, [1.0, 0, 0], [1.0, 0, 0], alpha=0.0)
+        liq.set_dinf(0, 1, 2e-9, 1e-9)
+        s = liq.eval(300.0, [0.3, 0.7])
+        G = rows(s.Gamma)
+        self.assertAlmostEqual(flat(s.lngamma)[0], 2.0 * 0.49, delta=1e-14)
+        self.assertAlmostEqual(G[0][0] - G[0][1], 1 - 4 * 0.21, delta=1e-13)
+        D = rows(s.Dij)
+        self.assertAlmostEqual(D[0][1] / (2e-9 ** 0.7 * 1e-9 ** 0.3), 1.0,
+                               delta=1e-14)
+        J = flat(liq.fluxes(300.0, 1.5e4, [0.3, 0.7], [2.0, -2.0]))
+        ref = -1.5e4 * D[0][1] * (G[0][0] - G[0][1]) * 2.0
+        self.assertAlmostEqual(J[0] / ref, 1.0, delta=1e-12)
+        with self.assertRaises(mcdiff.DomainError):
+            liq.eval(300.0, [0.5, 0.5])  # beyond the spinodal
+        liq.close()
+
+    def test_stefan_tube_water(self):
+        liq = mcdiff.Liquid(1, "ideal")
+        liq.set_antoine(0, 9.6543, 1435.264, -64.848, 255.9, 373.0)
+        T, L, Dwa = 298.15, 0.05, 2.6e-5
+        p = flat(liq.vle(T, [1.0]))[0]
+        self.assertAlmostEqual(p / 3169.9, 1.0, delta=0.02)  # IAPWS-95
+        c = ATM / (R * T)
+        ev = liq.evaporation(T, ATM, [1.0], Dij=[[0, Dwa], [Dwa, 0]], c=c,
+                             L=L, xL=[0.0, 1.0], M=[0.018015, 0.028964],
+                             rho_liquid=997.05)
+        ref = c * Dwa / L * math.log(1.0 / (1.0 - p / ATM))
+        self.assertAlmostEqual(flat(ev.N)[0] / ref, 1.0, delta=1e-10)
+        self.assertAlmostEqual(ev.level_rate,
+                               ev.mass_rate / 997.05 * 3.6e6, delta=1e-12)
+
+    def test_infinite_dilution_correlations(self):
+        # closed forms of the header (Tyn-Calus V_B^0.267 V_A^-0.433 T/mu,
+        # Hayduk-Minhas for water), cgs to SI
+        D = mcdiff.binary_tyn_calus(298.15, 0.89e-3, 96e-6, 18.9e-6)
+        ref = 1e-4 * 8.93e-8 * 18.9 ** 0.267 * 96 ** -0.433 * 298.15 / 0.89
+        self.assertAlmostEqual(D / ref, 1.0, delta=1e-12)
+        D = mcdiff.binary_hayduk_minhas(298.15, 0.89e-3, 96e-6)
+        ref = (1e-4 * 1.25e-8 * (96 ** -0.19 - 0.292) * 298.15 ** 1.52
+               * 0.89 ** (9.58 / 96 - 1.12))
+        self.assertAlmostEqual(D / ref, 1.0, delta=1e-12)
+
 if __name__ == "__main__":
     sys.exit(_support.run(__name__))

@@ -25,8 +25,9 @@ from .errors import (BadLengthError, DomainError, FileError, InternalError,
                      NoDataError, NotFoundError, OutOfMemoryError, ParseError,
                      SingularMatrixError, Status, last_error,
                      status_string)
-from .handles import (BinaryEstimate, BinaryMatrices, Database, GasState,
-                      Mixture, Workspace, param_name, param_unit)
+from .handles import (BinaryEstimate, BinaryMatrices, Database, Evaporation,
+                      GasState, Liquid, LiquidState, Mixture, Workspace,
+                      param_name, param_unit)
 from .api import *  # noqa: F401,F403 - the function API, listed in api.__all__
 from . import api as _api
 
@@ -39,6 +40,7 @@ __all__ = [
     "OutOfMemoryError", "SingularMatrixError", "InternalError",
     "NotFoundError", "ParseError", "NoDataError", "NoConvergenceError",
     "FileError", "Status", "status_string", "last_error",
-    "Database", "Mixture", "Workspace", "BinaryEstimate", "BinaryMatrices",
+    "Database", "Mixture", "Workspace", "Liquid", "LiquidState",
+    "Evaporation", "BinaryEstimate", "BinaryMatrices",
     "GasState", "param_name", "param_unit",
 ] + list(_api.__all__)

@@ -220,6 +220,32 @@ SIGNATURES = {
     "mcd_bulbs_linearized": (_ST, [_H, _H, _SZ, _PD, _PD, _PD]),
     # (ws, bulbs, n_times, t, rel_tol, out_x1, out_x2)
     "mcd_bulbs_integrate": (_ST, [_H, _H, _SZ, _PD, _D, _PD, _PD]),
+
+    # --- Liquids: activity, thermodynamic factors, diffusivities ---
+    # (n_species, model, out_liq)
+    "mcd_liquid_new": (_ST, [_SZ, _E, _PH]),
+    # (liq)
+    "mcd_liquid_free": (None, [_H]),
+    # (liq, i, p, value)
+    "mcd_liquid_set_species": (_ST, [_H, _SZ, _E, _D]),
+    # (liq, i, j, coef_ij, coef_ji, alpha, T_min, T_max)
+    "mcd_liquid_set_pair": (_ST, [_H, _SZ, _SZ, _PD, _PD, _D, _D, _D]),
+    # (liq, i, j, D_i_in_j, D_j_in_i)
+    "mcd_liquid_set_dinf": (_ST, [_H, _SZ, _SZ, _D, _D]),
+    # (ws, liq, T, x, out_lngamma, out_Gamma, out_Dij, out_warn)
+    "mcd_liquid_eval": (_ST, [_H, _H, _D, _PD, _PD, _PD, _PD, _PU]),
+    # (liq, i, A, B, C, T_min, T_max)
+    "mcd_liquid_set_antoine": (_ST, [_H, _SZ, _D, _D, _D, _D, _D]),
+    # (ws, liq, T, x, out_p, out_warn)
+    "mcd_liquid_vle": (_ST, [_H, _H, _D, _PD, _PD, _PU]),
+    # (ws, liq, gas, T, P, x_liq, M, rho_liquid, out_y0, out_N, out_mass_rate,
+    #  out_level_rate, out_warn)
+    "mcd_liquid_evaporation": (_ST, [_H, _H, _H, _D, _D, _PD, _PD, _D, _PD,
+                                     _PD, _PD, _PD, _PU]),
+    # (T, mu_solvent, Vb_solute, Vb_solvent, out_D)
+    "mcd_binary_tyn_calus": (_ST, [_D, _D, _D, _D, _PD]),
+    # (T, mu_water, Vb_solute, out_D)
+    "mcd_binary_hayduk_minhas": (_ST, [_D, _D, _D, _PD]),
 }
 
 

@@ -37,7 +37,8 @@ __all__ = [
     "method_name", "method_from_name", "method_typical_error",
     "warning_string", "warning_strings", "binary_fsg", "binary_chapman_enskog",
     "binary_wilke_lee", "binary_wilke_chang", "binary_omega_d", "binary_scale",
-    "binary_gas", "binary_liquid",
+    "binary_gas", "binary_liquid", "binary_tyn_calus",
+    "binary_hayduk_minhas",
     # fluxes
     "flux_compute", "thermal_ratios", "flux_jacobian", "fick_matrix",
     "fick_fluxes",
@@ -363,6 +364,16 @@ def binary_wilke_chang(T, mu_solvent, M_solvent, phi, Vb_solute):
     """Wilke-Chang infinite-dilution diffusivity [m^2/s]."""
     return _raw("mcd_binary_wilke_chang", T, mu_solvent, M_solvent, phi,
                 Vb_solute)
+
+
+def binary_tyn_calus(T, mu_solvent, Vb_solute, Vb_solvent):
+    """Tyn-Calus infinite-dilution diffusivity [m^2/s] (organic solutes)."""
+    return _raw("mcd_binary_tyn_calus", T, mu_solvent, Vb_solute, Vb_solvent)
+
+
+def binary_hayduk_minhas(T, mu_water, Vb_solute):
+    """Hayduk-Minhas infinite-dilution diffusivity [m^2/s] in water."""
+    return _raw("mcd_binary_hayduk_minhas", T, mu_water, Vb_solute)
 
 
 def binary_omega_d(T_star):

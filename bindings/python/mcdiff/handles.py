@@ -16,7 +16,8 @@ from .enums import GasMethod, Param, Warning, coerce
 from .errors import error_for
 
 __all__ = ["Workspace", "Database", "Mixture", "BinaryEstimate",
-           "BinaryMatrices", "GasState"]
+           "BinaryMatrices", "GasState", "Liquid", "LiquidState",
+           "Evaporation"]
 
 
 BinaryEstimate = collections.namedtuple("BinaryEstimate",
@@ -34,6 +35,21 @@ of Warning flags)."""
 GasState = collections.namedtuple("GasState", "c D M")
 GasState.__doc__ = """Ideal-gas state of a mixture: c [mol/m^3], binary
 diffusivities D (n x n) [m^2/s] and molar masses M [kg/mol]."""
+
+
+LiquidState = collections.namedtuple("LiquidState",
+                                     "lngamma Gamma Dij warnings")
+LiquidState.__doc__ = """A liquid at (T, x): ln gamma (n), the thermodynamic
+factor Gamma (n x n, the Gamma of flux_compute), the Maxwell-Stefan
+diffusivities Dij (n x n, [m^2/s], or None when not asked) and Warning
+flags."""
+
+Evaporation = collections.namedtuple(
+    "Evaporation", "y0 N mass_rate level_rate warnings")
+Evaporation.__doc__ = """Evaporation through a stagnant gas film: interface
+gas mole fractions y0 (n + 1), molar fluxes N (n + 1) [mol/(m^2 s)], the
+evaporation rate [kg/(m^2 s)], the fall of the liquid level [mm/h] and
+Warning flags."""
 
 
 def _text(b):
@@ -487,3 +503,146 @@ class Mixture(_Handle):
         if self.closed:
             return "<mcdiff.Mixture closed>"
         return "<mcdiff.Mixture %s>" % ", ".join(self.names)
+
+
+# ---------------------------------------------------------------------------
+# Liquid
+# ---------------------------------------------------------------------------
+
+class Liquid(_Handle):
+    """A liquid mixture of n species with an activity model ("ideal",
+    "nrtl", "wilson" or "uniquac") and the caller's parameters
+    (mcd_liquid_new; see include/mcdiff.h for the forms). Indices are
+    0-based. Parameter setters: set_species ("molar_volume" [m^3/mol] for
+    Wilson, "r" and "q" for UNIQUAC), set_pair (p(T) = a + b/T + e ln T
+    for each direction, alpha for NRTL, the fitted T range), set_dinf
+    (infinite-dilution diffusivities), set_antoine (log10(P/Pa) = A -
+    B/(T/K + C)).
+    """
+
+    _free_name = "mcd_liquid_free"
+    _kind = "liquid"
+    MODELS = {"ideal": 0, "nrtl": 1, "wilson": 2, "uniquac": 3}
+    PARAMS = {"molar_volume": 0, "r": 1, "q": 2}
+
+    def __init__(self, n_species, model="nrtl"):
+        m = self.MODELS.get(str(model).lower()) if not isinstance(
+            model, int) else model
+        if m is None:
+            raise ValueError("model must be one of %s" % sorted(self.MODELS))
+        out = ctypes.c_void_p()
+        st = lib.mcd_liquid_new(int(n_species), int(m), ctypes.byref(out))
+        if st:
+            _raise(st, "mcd_liquid_new")
+        super().__init__(out.value)
+        self._n = int(n_species)
+
+    def __len__(self):
+        return self._n
+
+    def _st(self, st, fn):
+        if st:
+            _raise(st, fn)
+
+    def set_species(self, i, param, value):
+        p = self.PARAMS.get(param) if isinstance(param, str) else int(param)
+        if p is None:
+            raise ValueError("param must be one of %s" % sorted(self.PARAMS))
+        self._st(lib.mcd_liquid_set_species(self._p(), int(i), p,
+                                            _arrays.scalar(value, "value")),
+                 "mcd_liquid_set_species")
+
+    def set_pair(self, i, j, coef_ij, coef_ji, alpha=0.0, T_range=(0.0, 0.0)):
+        a = _arrays.vector(coef_ij, 3, "coef_ij")
+        b = _arrays.vector(coef_ji, 3, "coef_ji")
+        self._st(lib.mcd_liquid_set_pair(
+            self._p(), int(i), int(j), a.ptr, b.ptr,
+            _arrays.scalar(alpha, "alpha"),
+            _arrays.scalar(T_range[0], "T_min"),
+            _arrays.scalar(T_range[1], "T_max")), "mcd_liquid_set_pair")
+
+    def set_dinf(self, i, j, D_i_in_j, D_j_in_i):
+        self._st(lib.mcd_liquid_set_dinf(
+            self._p(), int(i), int(j), _arrays.scalar(D_i_in_j, "D_i_in_j"),
+            _arrays.scalar(D_j_in_i, "D_j_in_i")), "mcd_liquid_set_dinf")
+
+    def set_antoine(self, i, A, B, C, T_min, T_max):
+        self._st(lib.mcd_liquid_set_antoine(
+            self._p(), int(i), *[_arrays.scalar(v, k) for v, k in
+                                 ((A, "A"), (B, "B"), (C, "C"),
+                                  (T_min, "T_min"), (T_max, "T_max"))]),
+            "mcd_liquid_set_antoine")
+
+    def _ws(self, workspace, n):
+        from .api import _ws
+        return _ws(workspace, n)
+
+    def eval(self, T, x, *, diffusivities=True, workspace=None):
+        """LiquidState(lngamma, Gamma, Dij, warnings) at T [K] and mole
+        fractions x (mcd_liquid_eval)."""
+        n = self._n
+        ax = _arrays.vector(x, n, "x")
+        lg, G = _arrays.Output((n,)), _arrays.Output((n, n))
+        D = _arrays.Output((n, n)) if diffusivities else None
+        w = ctypes.c_uint()
+        ws = self._ws(workspace, n)
+        st = lib.mcd_liquid_eval(ws._p(), self._p(), _arrays.scalar(T, "T"),
+                                 ax.ptr, lg.ptr, G.ptr,
+                                 None if D is None else D.ptr,
+                                 ctypes.byref(w))
+        self._st(st, "mcd_liquid_eval")
+        return LiquidState(lg.result(), G.result(),
+                           None if D is None else D.result(),
+                           Warning(w.value))
+
+    def vle(self, T, x, *, workspace=None):
+        """Partial pressures [Pa] over the liquid (modified Raoult's
+        law, mcd_liquid_vle)."""
+        n = self._n
+        ax = _arrays.vector(x, n, "x")
+        o = _arrays.Output((n,))
+        ws = self._ws(workspace, n)
+        st = lib.mcd_liquid_vle(ws._p(), self._p(), _arrays.scalar(T, "T"),
+                                ax.ptr, o.ptr, None)
+        self._st(st, "mcd_liquid_vle")
+        return o.result()
+
+    def fluxes(self, T, c, x, grad, **kw):
+        """Diffusion fluxes of the liquid at T with total concentration c
+        [mol/m^3]: Gamma and Dij from eval, then mcdiff.flux_compute (the
+        arguments after grad are those of flux_compute)."""
+        from .api import flux_compute
+        s = self.eval(T, x)
+        return flux_compute(s.Dij, c, x, grad, Gamma=s.Gamma, **kw)
+
+    def evaporation(self, T, P, x_liq, *, Dij, c, L, xL, M, rho_liquid,
+                    workspace=None):
+        """Evaporation through a stagnant gas film of the liquid's species
+        plus one inert last (mcd_liquid_evaporation): Dij, xL and M have
+        n + 1 entries. Returns Evaporation(y0, N, mass_rate, level_rate,
+        warnings)."""
+        from ._signatures import mcd_film
+        n = self._n + 1
+        D = _arrays.matrix(Dij, n, n, "Dij")
+        aL = _arrays.vector(xL, n, "xL")
+        aM = _arrays.vector(M, n, "M")
+        ax = _arrays.vector(x_liq, self._n, "x_liq")
+        y0, N = _arrays.Output((n,)), _arrays.Output((n,))
+        rate, level, w = ctypes.c_double(), ctypes.c_double(), ctypes.c_uint()
+        film = mcd_film(n_species=n, c=_arrays.scalar(c, "c"),
+                        L=_arrays.scalar(L, "L"), Dij=D.ptr, x0=aL.ptr,
+                        xL=aL.ptr)
+        ws = self._ws(workspace, n)
+        st = lib.mcd_liquid_evaporation(
+            ws._p(), self._p(), ctypes.byref(film), _arrays.scalar(T, "T"),
+            _arrays.scalar(P, "P"), ax.ptr, aM.ptr,
+            _arrays.scalar(rho_liquid, "rho_liquid"), y0.ptr, N.ptr,
+            ctypes.byref(rate), ctypes.byref(level), ctypes.byref(w))
+        self._st(st, "mcd_liquid_evaporation")
+        return Evaporation(y0.result(), N.result(), rate.value, level.value,
+                           Warning(w.value))
+
+    def __repr__(self):
+        if self.closed:
+            return "<mcdiff.Liquid closed>"
+        return "<mcdiff.Liquid n=%d>" % self._n
