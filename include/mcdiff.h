@@ -480,6 +480,78 @@ MCD_API mcd_status mcd_mixture_binaries(const mcd_mixture *mix, double T,
                                         unsigned *out_warn);
 
 /* ------------------------------------------------------------------ */
+/* Gas viscosity                                                       */
+/* ------------------------------------------------------------------ */
+
+/** Typical relative error of a pure-gas viscosity by Chapman-Enskog with
+ *  Lennard-Jones parameters fitted to viscosity, for non-polar gases
+ *  (Poling, Prausnitz and O'Connell 2001, sec. 9-4, from memory). Polar
+ *  gases are flagged MCD_WARN_POLAR and are worse. Since 0.3. */
+#define MCD_VISC_CE_TYPICAL_ERROR 0.015
+/** Typical relative error added by Wilke's mixing rule for non-polar
+ *  mixtures (same source, sec. 9-5, from memory); mixtures of H2 or He
+ *  with heavy gases are worse. Since 0.3. */
+#define MCD_VISC_WILKE_TYPICAL_ERROR 0.02
+
+/** Neufeld-Janzen-Aziz (1972) fit of the Lennard-Jones collision integral
+ *  Omega(2,2)* for viscosity, valid 0.3 <= T* <= 100 (T* = k T / eps).
+ *  Since 0.3.
+ *  Fails: EINVAL (NULL, NaN), EDOM (T* <= 0) | Allocates: no */
+MCD_API mcd_status mcd_viscosity_omega22(double T_star, double *out_omega);
+
+/** Viscosity [Pa s] of a pure gas at low pressure by the first
+ *  Chapman-Enskog approximation, mu = (5/16) sqrt(M k T / (pi N_A)) /
+ *  (sigma^2 Omega(2,2)*(T / eps_k)). Typical error
+ *  MCD_VISC_CE_TYPICAL_ERROR for non-polar gases. Since 0.3.
+ *  @param T      temperature [K], > 0.
+ *  @param M      molar mass [kg/mol], > 0.
+ *  @param sigma  Lennard-Jones sigma [m], > 0.
+ *  @param eps_k  Lennard-Jones epsilon/k [K], > 0.
+ *  @param out_mu viscosity [Pa s].
+ *  Fails: EINVAL (NULL, NaN), EDOM (non-positive input, overflow)
+ *  | Allocates: no */
+MCD_API mcd_status mcd_viscosity_chapman_enskog(double T, double M,
+                                                double sigma, double eps_k,
+                                                double *out_mu);
+
+/** Viscosity [Pa s] of a gas mixture from its species' viscosities by
+ *  Wilke's (1950) mixing rule: mu = sum_i x_i mu_i / sum_j x_j Phi_ij,
+ *  Phi_ij = [1 + (mu_i/mu_j)^(1/2) (M_j/M_i)^(1/4)]^2 / [8 (1 +
+ *  M_i/M_j)]^(1/2). Typical error MCD_VISC_WILKE_TYPICAL_ERROR beyond the
+ *  species' own. Since 0.3.
+ *  @param n_species  N, 1..MCD_MAX_SPECIES.
+ *  @param M      molar masses [kg/mol], length N, > 0.
+ *  @param mu     species viscosities [Pa s] at the mixture's T, length N,
+ *                > 0 (measured, or from mcd_viscosity_chapman_enskog).
+ *  @param x      mole fractions, length N, validated as mcd_comp_normalize.
+ *  @param out_mu mixture viscosity [Pa s].
+ *  Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_viscosity_wilke(size_t n_species, const double *M,
+                                       const double *mu, const double *x,
+                                       double *out_mu);
+
+/** Viscosity [Pa s] of species i of a database at low pressure by
+ *  Chapman-Enskog from its molar mass and Lennard-Jones parameters.
+ *  Since 0.3.
+ *  @param out_rel_err  MCD_VISC_CE_TYPICAL_ERROR (may be NULL).
+ *  @param out_warn     MCD_WARN_* bits: TEMPERATURE (T* outside the fit
+ *                      range), POLAR (dipole > 1 debye), QUANTUM (H2, D2,
+ *                      He below 100 K), ASSOCIATING (may be NULL).
+ *  Fails: EINVAL, EDOM, ENOTFOUND (index), ENODATA (M, sigma or eps/k
+ *  missing) | Allocates: no */
+MCD_API mcd_status mcd_db_viscosity_gas(const mcd_db *db, size_t i, double T,
+                                        double *out_mu, double *out_rel_err,
+                                        unsigned *out_warn);
+
+/** Viscosities [Pa s] of every species of a mixture at T, as
+ *  mcd_db_viscosity_gas (out_mu length N, written only when every species
+ *  succeeds); out_warn is the OR of their warning bits (may be NULL). Pass
+ *  them to mcd_viscosity_wilke for the mixture's viscosity. Since 0.3.
+ *  Fails: EINVAL, EDOM, ENODATA | Allocates: no */
+MCD_API mcd_status mcd_mixture_viscosities(const mcd_mixture *mix, double T,
+                                           double *out_mu, unsigned *out_warn);
+
+/* ------------------------------------------------------------------ */
 /* Workspaces                                                          */
 /* ------------------------------------------------------------------ */
 
@@ -1112,6 +1184,151 @@ MCD_API mcd_status mcd_bulbs_integrate(mcd_workspace *ws,
                                        const mcd_bulbs *bulbs, size_t n_times,
                                        const double *t, double rel_tol,
                                        double *out_x1, double *out_x2);
+
+/* ------------------------------------------------------------------ */
+/* Porous media: Knudsen diffusion and the Dusty Gas Model             */
+/* ------------------------------------------------------------------ */
+
+/*
+ * Gas transport in the pores of a catalyst pellet, electrode, membrane
+ * support or adsorbent, where molecules hit the walls as often as each
+ * other and a pressure gradient drives viscous flow. The Dusty Gas Model
+ * (Mason and Malinauskas 1983) treats the walls as one more, motionless
+ * species. Isothermal ideal gas; for total molar fluxes N_i
+ * [mol/(m^2 s)] per unit cross-section of the medium:
+ *   sum_{j != i} (x_j N_i - x_i N_j) / D^e_ij + N_i / D^e_K,i
+ *       = -(1/(R T)) [P grad x_i + x_i (1 + B0 P / (mu D^e_K,i)) grad P],
+ * with effective binary diffusivities D^e_ij = (porosity/tortuosity) Đ_ij,
+ * effective Knudsen diffusivities D^e_K,i = (porosity/tortuosity)
+ * (d_pore/3) sqrt(8 R T / (pi M_i)), the permeability B0 and the mixture
+ * viscosity mu. Limits: tiny pores give Knudsen diffusion,
+ * N_i = -D^e_K,i grad c_i; large pores without a pressure gradient give
+ * the open-gas Maxwell-Stefan fluxes scaled by porosity/tortuosity; a
+ * uniform composition under a pressure gradient gives Darcy flow plus
+ * Knudsen slip. Under a uniform pressure, sum_i N_i sqrt(M_i) = 0 at
+ * every pore size (Graham's law of diffusion).
+ *
+ * Cautions: porosity, tortuosity, pore diameter and permeability are
+ * properties of the medium that are usually FITTED to permeation and
+ * diffusion measurements of that medium; the parallel-pore relations used
+ * when they are not given are rough. Results are estimates for design
+ * studies, not a substitute for measured data, and designs that handle
+ * toxic, flammable or pressurised gases need validated data, the
+ * applicable codes and licensed engineering review.
+ */
+
+/** Pore structure of a porous medium (the caller's values; usually
+ *  fitted). Zero-initialise it and set the fields. Since 0.3. */
+typedef struct mcd_pore {
+    double porosity;     /**< void fraction epsilon [-], in (0, 1] */
+    double tortuosity;   /**< tortuosity factor tau [-], >= 1 */
+    double d_pore;       /**< mean pore diameter [m], > 0 */
+    double permeability; /**< B0 [m^2] of the medium, > 0; or 0: from the
+                              pore diameter for a bundle of straight
+                              cylindrical pores (Poiseuille),
+                              B0 = (porosity/tortuosity) d_pore^2 / 32
+                              (d_pore^2/32 for one straight pore) */
+} mcd_pore;
+
+/** Permeability B0 [m^2] that the Dusty Gas Model calls use for a pore
+ *  structure (given, or from d_pore as documented in mcd_pore); also the
+ *  check of a pore structure. Since 0.3.
+ *  Fails: EINVAL (NULL, NaN), EDOM (porosity outside (0, 1], tortuosity
+ *  < 1, d_pore <= 0, permeability < 0) | Allocates: no */
+MCD_API mcd_status mcd_pore_permeability(const mcd_pore *pore,
+                                         double *out_B0);
+
+/** Effective diffusivity D^e = (porosity/tortuosity) D [m^2/s] of an open
+ *  gas (binary or Knudsen) diffusivity D [m^2/s] (> 0). Since 0.3.
+ *  Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_pore_effective(const mcd_pore *pore, double D,
+                                      double *out_De);
+
+/** Knudsen diffusivity [m^2/s] of a gas in a cylindrical pore,
+ *  D_K = (d_pore/3) sqrt(8 R T / (pi M)) (not yet scaled by
+ *  porosity/tortuosity; see mcd_pore_effective). Since 0.3.
+ *  @param T [K] > 0; @param M [kg/mol] > 0; @param d_pore [m] > 0.
+ *  Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_knudsen_diffusivity(double T, double M, double d_pore,
+                                           double *out_DK);
+
+/** Bosanquet interpolation 1/D = 1/D_m + 1/D_K [m^2/s] between a
+ *  molecular diffusivity D_m (e.g. a species' mixture diffusivity) and its
+ *  Knudsen diffusivity D_K, both > 0. A simpler alternative to the Dusty
+ *  Gas Model: exact for a trace species under a uniform pressure,
+ *  otherwise an approximation that misses the coupling of the fluxes
+ *  (Graham's law) and the viscous flux. Since 0.3.
+ *  Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_bosanquet(double D_m, double D_K, double *out_D);
+
+/** One state of a gas in a porous medium: the input of the mcd_dgm_*
+ *  calls. Zero-initialise it and set the fields; pointers are borrowed
+ *  for the call. Since 0.3. */
+typedef struct mcd_dgm {
+    size_t n_species;     /**< N, 1..capacity of the workspace */
+    size_t n_dim;         /**< directions, 1..MCD_MAX_DIM */
+    double T;             /**< temperature [K], > 0 (uniform) */
+    double P;             /**< pressure [Pa], > 0 */
+    double mu;            /**< mixture viscosity [Pa s], > 0 (the caller's
+                               value, or mcd_viscosity_wilke) */
+    const double *M;      /**< molar masses [kg/mol], N */
+    const double *Dij;    /**< open-gas binary diffusivities at (T, P)
+                               [m^2/s], N x N, as for mcd_flux_compute
+                               (not yet scaled by porosity/tortuosity) */
+    const double *x;      /**< mole fractions, N (as mcd_comp_normalize) */
+    const double *grad_x; /**< their gradients [1/m], N x n_dim (projected
+                               onto sum_i grad x_i = 0 by grad x_i -= x_i
+                               sum_k grad x_k); unused by
+                               mcd_dgm_gradients */
+    const double *grad_P; /**< pressure gradient [Pa/m], n_dim, or NULL
+                               (uniform pressure); used by mcd_dgm_fluxes
+                               only */
+} mcd_dgm;
+
+/** Total molar fluxes N_i [mol/(m^2 s)] (per unit cross-section of the
+ *  medium) at one state by the Dusty Gas Model (equations above), for
+ *  given composition and pressure gradients. With grad_P NULL or zero
+ *  this is the isobaric case: the total flux N_t = sum N_i is then the
+ *  unknown the model fixes (Graham's law). Solved by Gaussian elimination
+ *  of the N x N column-dominant matrix in the workspace (no pivoting
+ *  needed, no allocation). Since 0.3.
+ *  @param ws     workspace with capacity >= dgm->n_species.
+ *  @param pore   pore structure (checked as mcd_pore_permeability).
+ *  @param dgm    the state; messages name its fields ("argument mu: ...").
+ *  @param out_N  N x n_dim total molar fluxes.
+ *  Fails: EINVAL (NULL, NaN, counts), EBADLEN (N > capacity), EDOM (out
+ *  of range, overflow), ESING | Allocates: no | Threads: one ws per
+ *  thread */
+MCD_API mcd_status mcd_dgm_fluxes(mcd_workspace *ws, const mcd_pore *pore,
+                                  const mcd_dgm *dgm, double *out_N);
+
+/** Dusty Gas Model with the total flux given and the pressure gradient
+ *  unknown: the closed-end case (N_t = 0: a dead-end pore or a closed
+ *  diffusion cell, where a pressure gradient builds up) or a known net
+ *  flow. dgm->grad_P is ignored. Since 0.3.
+ *  @param N_t        total molar flux sum_i N_i [mol/(m^2 s)], n_dim.
+ *  @param out_N      N x n_dim total molar fluxes.
+ *  @param out_grad_P the pressure gradient [Pa/m] that carries them,
+ *                    n_dim.
+ *  Other parameters and failures as mcd_dgm_fluxes. Since 0.3.
+ *  Fails: EINVAL, EBADLEN, EDOM, ESING | Allocates: no */
+MCD_API mcd_status mcd_dgm_closed(mcd_workspace *ws, const mcd_pore *pore,
+                                  const mcd_dgm *dgm, const double *N_t,
+                                  double *out_N, double *out_grad_P);
+
+/** Inverse Dusty Gas Model: the mole-fraction gradients and the pressure
+ *  gradient that carry given total fluxes N at the state dgm (whose
+ *  grad_x and grad_P are ignored). Explicit, no solve: grad P from the sum
+ *  of the equations (sum_i N_i / D^e_K,i), then grad x_i from equation i.
+ *  The gradients sum to zero to round-off; mcd_dgm_fluxes with them
+ *  returns N. Since 0.3.
+ *  @param N           total molar fluxes [mol/(m^2 s)], N x n_dim.
+ *  @param out_grad_x  N x n_dim [1/m].
+ *  @param out_grad_P  n_dim [Pa/m].
+ *  Fails: EINVAL, EBADLEN, EDOM | Allocates: no */
+MCD_API mcd_status mcd_dgm_gradients(mcd_workspace *ws, const mcd_pore *pore,
+                                     const mcd_dgm *dgm, const double *N,
+                                     double *out_grad_x, double *out_grad_P);
 
 #ifdef __cplusplus
 }

@@ -29,6 +29,7 @@ RANK = {
     "flux": 3,     # single-state flux core
     "batched": 4,  # batched fluxes and their kernels
     "transfer": 4, # films, two bulbs
+    "porous": 4,   # pore structure, Knudsen, Dusty Gas Model
     "api": 5,      # constructors that size every layer's scratch
 }
 MAX_LINES = 150

@@ -786,11 +786,12 @@ def generate_python(api):
            "",
            "import ctypes",
            "",
-           "__all__ = [%s]" % ", ".join(
-               '"%s"' % n for n in ["SIGNATURES"] + [
-                   st.name for st in api.structs.values()
-                   if not st.opaque and not any(
-                       isinstance(t, Function) for _, t in st.fields)]),
+           "__all__ = [",
+           ] + ['    "%s",' % n for n in ["SIGNATURES"] + [
+               st.name for st in api.structs.values()
+               if not st.opaque and not any(
+                   isinstance(t, Function) for _, t in st.fields)]] + [
+           "]",
            ""]
     for alias, expr in _PY_ALIASES:
         if alias in used:
@@ -864,6 +865,17 @@ FORTRAN_SCALAR = {
     "mcd_film_profile": ["film"],
     "mcd_bulbs_linearized": ["bulbs"],
     "mcd_bulbs_integrate": ["bulbs"],
+    "mcd_viscosity_omega22": ["out_omega"],
+    "mcd_viscosity_chapman_enskog": ["out_mu"],
+    "mcd_viscosity_wilke": ["out_mu"],
+    "mcd_db_viscosity_gas": ["out_mu"],
+    "mcd_pore_permeability": ["pore", "out_B0"],
+    "mcd_pore_effective": ["pore", "out_De"],
+    "mcd_knudsen_diffusivity": ["out_DK"],
+    "mcd_bosanquet": ["out_D"],
+    "mcd_dgm_fluxes": ["pore", "dgm"],
+    "mcd_dgm_closed": ["pore", "dgm"],
+    "mcd_dgm_gradients": ["pore", "dgm"],
 }
 # FORTRAN_NULLABLE: pointer parameters that may be NULL (bound as
 # type(c_ptr), value: pass c_null_ptr or c_loc(x)).
@@ -880,6 +892,8 @@ FORTRAN_NULLABLE = {
     "mcd_mixture_temperature_fit": ["out_T_min", "out_T_max",
                                     "out_max_rel_err"],
     "mcd_film_solve": ["values", "out_iterations", "out_residual"],
+    "mcd_db_viscosity_gas": ["out_rel_err", "out_warn"],
+    "mcd_mixture_viscosities": ["out_warn"],
 }
 # FORTRAN_DUMMY_NAMES: dummy argument names that differ from the C names
 # (Fortran names are case-insensitive, so film_profile's n and N clash;

@@ -49,6 +49,11 @@
     X(mixture_set_method, (mcd_mixture *mix, size_t i, size_t j, mcd_gas_method m), (mix, i, j, m)) \
     X(mixture_set_binary, (mcd_mixture *mix, size_t i, size_t j, double D, double T_ref, double P_ref), (mix, i, j, D, T_ref, P_ref)) \
     X(mixture_binaries, (const mcd_mixture *mix, double T, double P, double *out_D, double *out_rel_err, unsigned *out_warn), (mix, T, P, out_D, out_rel_err, out_warn)) \
+    X(viscosity_omega22, (double T_star, double *out_omega), (T_star, out_omega)) \
+    X(viscosity_chapman_enskog, (double T, double M, double sigma, double eps_k, double *out_mu), (T, M, sigma, eps_k, out_mu)) \
+    X(viscosity_wilke, (size_t n_species, const double *M, const double *mu, const double *x, double *out_mu), (n_species, M, mu, x, out_mu)) \
+    X(db_viscosity_gas, (const mcd_db *db, size_t i, double T, double *out_mu, double *out_rel_err, unsigned *out_warn), (db, i, T, out_mu, out_rel_err, out_warn)) \
+    X(mixture_viscosities, (const mcd_mixture *mix, double T, double *out_mu, unsigned *out_warn), (mix, T, out_mu, out_warn)) \
     X(workspace_new, (size_t n_species, mcd_workspace **out_ws), (n_species, out_ws)) \
     X(workspace_new_with, (size_t n_species, const mcd_allocator *allocator, mcd_workspace **out_ws), (n_species, allocator, out_ws)) \
     X(flux_compute, (mcd_workspace *ws, mcd_model model, const mcd_state *state, mcd_basis flux_basis, double *out_flux), (ws, model, state, flux_basis, out_flux)) \
@@ -73,7 +78,14 @@
     X(film_solve, (mcd_workspace *ws, const mcd_film *film, mcd_film_bootstrap kind, size_t species, const double *values, mcd_film_method method, double *out_N, size_t *out_iterations, double *out_residual), (ws, film, kind, species, values, method, out_N, out_iterations, out_residual)) \
     X(film_profile, (mcd_workspace *ws, const mcd_film *film, const double *N, size_t n_points, const double *z, double *out_x), (ws, film, N, n_points, z, out_x)) \
     X(bulbs_linearized, (mcd_workspace *ws, const mcd_bulbs *bulbs, size_t n_times, const double *t, double *out_x1, double *out_x2), (ws, bulbs, n_times, t, out_x1, out_x2)) \
-    X(bulbs_integrate, (mcd_workspace *ws, const mcd_bulbs *bulbs, size_t n_times, const double *t, double rel_tol, double *out_x1, double *out_x2), (ws, bulbs, n_times, t, rel_tol, out_x1, out_x2))
+    X(bulbs_integrate, (mcd_workspace *ws, const mcd_bulbs *bulbs, size_t n_times, const double *t, double rel_tol, double *out_x1, double *out_x2), (ws, bulbs, n_times, t, rel_tol, out_x1, out_x2)) \
+    X(pore_permeability, (const mcd_pore *pore, double *out_B0), (pore, out_B0)) \
+    X(pore_effective, (const mcd_pore *pore, double D, double *out_De), (pore, D, out_De)) \
+    X(knudsen_diffusivity, (double T, double M, double d_pore, double *out_DK), (T, M, d_pore, out_DK)) \
+    X(bosanquet, (double D_m, double D_K, double *out_D), (D_m, D_K, out_D)) \
+    X(dgm_fluxes, (mcd_workspace *ws, const mcd_pore *pore, const mcd_dgm *dgm, double *out_N), (ws, pore, dgm, out_N)) \
+    X(dgm_closed, (mcd_workspace *ws, const mcd_pore *pore, const mcd_dgm *dgm, const double *N_t, double *out_N, double *out_grad_P), (ws, pore, dgm, N_t, out_N, out_grad_P)) \
+    X(dgm_gradients, (mcd_workspace *ws, const mcd_pore *pore, const mcd_dgm *dgm, const double *N, double *out_grad_x, double *out_grad_P), (ws, pore, dgm, N, out_grad_x, out_grad_P))
 /* clang-format on */
 
 #define MCDI_API_PROTOTYPE(name, params, args) \

@@ -18,6 +18,10 @@
  *    touches it, so a transfer call may keep data there while it calls
  *    mcd_flux_compute or mcd_fick_matrix on the same workspace.
  *
+ *  - the POROUS bank (pm_mem), used by the porous-media layer only
+ *    (Dusty Gas Model), laid out by name in porous/pm_layout.h. It holds
+ *    nothing between calls.
+ *
  *  - the BATCH bank (batch_*), per-thread block scratch of the batched
  *    calls, laid out by batched/batch_layout.h.
  *
@@ -53,6 +57,9 @@ struct mcd_workspace {
     /* TRANSFER bank (transfer/tf_layout.h) */
     double *tf_mem;
     int *tf_ipiv; /* cap ints (LAPACK pivots) */
+
+    /* POROUS bank (porous/pm_layout.h) */
+    double *pm_mem;
 
     /* BATCH bank (batch.c only): per-thread scratch of batch_per_thread
      * doubles each, batch_threads of them, 64-byte aligned inside
