@@ -729,5 +729,54 @@ class Transfer(unittest.TestCase):
                                            delta=1e-15 * (V1 + V2))
 
 
+class Porous(unittest.TestCase):
+    """Viscosity and the Dusty Gas Model through Python."""
+
+    def test_viscosity_of_nitrogen_against_the_crc_table(self):
+        # CRC Handbook, Viscosity of Gases (Huber and Harvey): N2 17.9 uPa s
+        # at 300 K; bound: typical error 1.5 % plus the table's 3 %
+        db = mcdiff.Database.builtin()
+        est = mcdiff.viscosity_gas(db, "nitrogen", 300.0)
+        self.assertLess(abs(est.mu / 17.9e-6 - 1), 0.045)
+        self.assertAlmostEqual(est.rel_err, 0.015)
+        mix = db.mixture(["nitrogen", "oxygen"])
+        mus = mcdiff.mixture_viscosities(mix, 300.0)
+        self.assertEqual(flat(mus)[0], est.mu)
+        m = mcdiff.viscosity_wilke([0.028014, 0.031998], mus, [1.0, 0.0])
+        self.assertAlmostEqual(m, est.mu, delta=1e-15 * est.mu)
+        self.assertAlmostEqual(mcdiff.viscosity_omega22(1.0), 1.593,
+                               delta=6e-3 * 1.593)
+
+    def test_dgm_graham_closed_end_and_inverse(self):
+        M = [0.004, 0.040]
+        D = [[0, 7e-5], [7e-5, 0]]
+        x = [0.3, 0.7]
+        pore = dict(porosity=0.4, tortuosity=3.0, d_pore=1e-7)
+        N = rows(mcdiff.dgm_fluxes(D, M, x, [-20.0, 20.0], 300.0, 1e5,
+                                   2e-5, **pore))
+        # Graham's law: N_A / N_B = -sqrt(M_B / M_A)
+        self.assertAlmostEqual(N[0] / N[1], -math.sqrt(10.0), delta=1e-12)
+        r = mcdiff.dgm_closed(D, M, x, [-20.0, 20.0], 300.0, 1e5, 2e-5,
+                              **pore)
+        Nc = rows(r.N)
+        self.assertAlmostEqual(Nc[0] + Nc[1], 0.0, delta=1e-12 * abs(Nc[0]))
+        inv = mcdiff.dgm_gradients(D, M, x, Nc, 300.0, 1e5, 2e-5, **pore)
+        self.assertAlmostEqual(inv.grad_P, r.grad_P,
+                               delta=1e-9 * abs(r.grad_P))
+        g = rows(inv.grad_x)
+        self.assertAlmostEqual(g[0], -20.0, delta=1e-8)
+        self.assertAlmostEqual(mcdiff.pore_permeability(**pore),
+                               0.4 / 3 * 1e-14 / 32, delta=1e-30)
+        dk = mcdiff.knudsen_diffusivity(300.0, 0.004, 1e-7)
+        self.assertAlmostEqual(mcdiff.pore_effective(dk, 0.4, 3.0),
+                               dk * 0.4 / 3, delta=1e-15 * dk)
+        self.assertAlmostEqual(mcdiff.bosanquet(1e-5, 1e-5), 5e-6,
+                               delta=1e-20)
+        with self.assertRaises(mcdiff.DomainError) as cm:
+            mcdiff.dgm_fluxes(D, M, x, [-20.0, 20.0], 300.0, 1e5, 2e-5,
+                              porosity=1.5, tortuosity=3.0, d_pore=1e-7)
+        self.assertIn("porosity", str(cm.exception))
+
+
 if __name__ == "__main__":
     sys.exit(_support.run(__name__))
