@@ -92,6 +92,7 @@ static void main_help(FILE *f)
         "  film             steady fluxes through a film or Stefan tube\n"
         "  bulbs            composition histories of a two-bulb diffusion "
         "cell\n"
+        "  porous           fluxes in a porous medium (Dusty Gas Model)\n"
         "  demo             a short worked scenario with invented numbers\n"
         "\n"
         "Run 'mcdiff COMMAND --help' for the options of a command.\n"
@@ -135,11 +136,15 @@ typedef struct command {
     int (*run)(int argc, char **argv);
 } command;
 
-static const command commands[] = {
-    {"species", cli_cmd_species}, {"binary", cli_cmd_binary},
-    {"fluxes", cli_cmd_fluxes},   {"matrix", cli_cmd_matrix},
-    {"demo", cli_cmd_demo},       {"film", cli_cmd_film},
-    {"bulbs", cli_cmd_bulbs},     {NULL, NULL}};
+static const command commands[] = {{"species", cli_cmd_species},
+                                   {"binary", cli_cmd_binary},
+                                   {"fluxes", cli_cmd_fluxes},
+                                   {"matrix", cli_cmd_matrix},
+                                   {"demo", cli_cmd_demo},
+                                   {"film", cli_cmd_film},
+                                   {"bulbs", cli_cmd_bulbs},
+                                   {"porous", cli_cmd_porous},
+                                   {NULL, NULL}};
 
 int main(int argc, char **argv)
 {
@@ -171,5 +176,5 @@ int main(int argc, char **argv)
                                "(try --help)");
     return cli_usage_error(NULL, argv[1],
                            "unknown command (species, binary, fluxes, "
-                           "matrix, film, bulbs, demo)");
+                           "matrix, film, bulbs, porous, demo)");
 }
