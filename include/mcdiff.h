@@ -1330,6 +1330,47 @@ MCD_API mcd_status mcd_dgm_gradients(mcd_workspace *ws, const mcd_pore *pore,
                                      const mcd_dgm *dgm, const double *N,
                                      double *out_grad_x, double *out_grad_P);
 
+/** Many states ("cells") of one gas mixture in one porous medium: the
+ *  input of mcd_dgm_fluxes_batch, in the structure-of-arrays layout of
+ *  the batched flux calls (K = n_cells, N species): every quantity is a
+ *  contiguous row of K values. Zero-initialise it and set the fields.
+ *  Since 0.3. */
+typedef struct mcd_dgm_cells {
+    size_t n_cells;       /**< K (0 is allowed and writes nothing) */
+    size_t n_dim;         /**< 1..MCD_MAX_DIM */
+    const double *T;      /**< temperatures [K], K */
+    const double *P;      /**< pressures [Pa], K */
+    const double *mu;     /**< mixture viscosities [Pa s], K */
+    const double *Dij;    /**< open-gas binary diffusivities [m^2/s],
+                               (N N) x K: Dij[(i*N + j)*K + k] */
+    const double *x;      /**< mole fractions, N x K: x[i*K + k] */
+    const double *grad_x; /**< gradients [1/m], (N n_dim) x K:
+                               grad_x[(i*n_dim + d)*K + k] */
+    const double *grad_P; /**< pressure gradients [Pa/m], n_dim x K, or
+                               NULL (uniform pressure in every cell) */
+} mcd_dgm_cells;
+
+/** Dusty Gas Model fluxes of K cells (mcd_dgm_fluxes for each; the same
+ *  code, so the same values). Each cell is gathered into the workspace:
+ *  no allocation. Every cell is checked before any output is written, so
+ *  bad input leaves out_N untouched and mcd_last_error() names the first
+ *  bad cell ("cell 17: argument x: ..."); only an overflow inside a
+ *  cell's solve (EDOM, ESING: extreme but valid input) can leave the
+ *  cells before it written. Since 0.3.
+ *  @param pore       pore structure shared by all cells.
+ *  @param n_species  N, 1..capacity of ws.
+ *  @param M          molar masses [kg/mol], N, shared by all cells.
+ *  @param cells      the cells (mcd_dgm_cells).
+ *  @param out_N      total molar fluxes [mol/(m^2 s)], (N n_dim) x K:
+ *                    out_N[(i*n_dim + d)*K + k].
+ *  Fails: EINVAL, EBADLEN, EDOM, ESING | Allocates: no | Threads: one ws
+ *  per thread */
+MCD_API mcd_status mcd_dgm_fluxes_batch(mcd_workspace *ws,
+                                        const mcd_pore *pore, size_t n_species,
+                                        const double *M,
+                                        const mcd_dgm_cells *cells,
+                                        double *out_N);
+
 #ifdef __cplusplus
 }
 #endif

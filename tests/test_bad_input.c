@@ -759,6 +759,23 @@ static int call_mcd_dgm_gradients(ctx *c)
                              OUT(o1, NB_O1), OUT(o2, NB_O2));
 }
 
+static int call_mcd_dgm_fluxes_batch(ctx *c)
+{
+    /* one cell: the fixture's state in SoA layout with K = 1 */
+    return mcd_dgm_fluxes_batch(
+        WS, PORE, c->n, ARG(M, NB_M),
+        NUL_(NB_DGM) ? NULL
+                     : &(mcd_dgm_cells){.n_cells = c->K,
+                                        .n_dim = c->nd,
+                                        .T = ARG(Tc, NB_T),
+                                        .P = c->Pc,
+                                        .mu = c->mus,
+                                        .Dij = ARG(D, NB_D),
+                                        .x = ARG(x, NB_X),
+                                        .grad_x = ARG(grad, NB_GRAD),
+                                        .grad_P = c->use_gp ? c->gP : NULL},
+        OUT(o1, NB_O1));
+}
 /* ------------------------------------------------------------------ */
 /* The table                                                          */
 /* ------------------------------------------------------------------ */
@@ -1778,6 +1795,20 @@ static const bcase cases[] = {
     C(mcd_dgm_gradients, "out_grad_x NULL", EINVAL_, "out_grad_x", MN(NB_O1)),
     C(mcd_dgm_gradients, "d_pore NaN", EINVAL_, "d_pore", MD(pore.d_pore, NAN)),
     C(mcd_dgm_gradients, "mu negative", EDOM_, "mu", MD(mug, -2e-5)),
+    B(mcd_dgm_fluxes_batch, MCD_OK),
+    C(mcd_dgm_fluxes_batch, "cells NULL", EINVAL_, "cells", MN(NB_DGM)),
+    C(mcd_dgm_fluxes_batch, "M NULL", EINVAL_, "M", MN(NB_M)),
+    C(mcd_dgm_fluxes_batch, "out NULL", EINVAL_, "out_N", MN(NB_O1)),
+    C(mcd_dgm_fluxes_batch, "T NULL", EINVAL_, "T", MN(NB_T)),
+    C(mcd_dgm_fluxes_batch, "porosity 0", EDOM_, "porosity",
+      MD(pore.porosity, 0.0)),
+    C(mcd_dgm_fluxes_batch, "n above capacity", MCD_EBADLEN, "n_species",
+      MZ(n, 4)),
+    C(mcd_dgm_fluxes_batch, "cell T negative", EDOM_, "cell", MDA(Tc, 0, -1.0)),
+    C(mcd_dgm_fluxes_batch, "cell P 0", EDOM_, "P", MDA(Pc, 0, 0.0)),
+    C(mcd_dgm_fluxes_batch, "cell x negative", EDOM_, "x", MDA(x, 1, -0.1)),
+    C(mcd_dgm_fluxes_batch, "cell grad NaN", EINVAL_, "grad_x",
+      MDA(grad, 2, NAN)),
 };
 
 #define NCASES (sizeof cases / sizeof cases[0])

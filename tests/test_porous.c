@@ -636,6 +636,66 @@ START_TEST(porous_closed_end_and_inverse_round_trips)
 }
 END_TEST
 
+START_TEST(porous_batched_equals_single_state)
+{
+    /* the batched call runs the single-state stages on gathered cells:
+     * the same bits */
+    enum { K = 7 };
+    for (int rep = 0; rep < 40; rep++) {
+        size_t n = 1 + sup_next(&rng) % NMAX, nd = 1 + rep % 3;
+        rstate s[K];
+        double T[K], P[K], mu[K], D[NMAX * NMAX * K], x[NMAX * K],
+            gx[NMAX * 3 * K], gP[3 * K], out[NMAX * 3 * K], N[NMAX * 3];
+        int with_gP = rep % 2;
+        double d = sup_log_uniform(&rng, 1e-9, 1e5);
+        for (size_t k = 0; k < K; k++) {
+            random_state(&s[k], n, nd, d);
+            memcpy(s[k].M, s[0].M, sizeof s[0].M);
+            s[k].p = s[0].p;
+            T[k] = s[k].g.T;
+            P[k] = s[k].g.P;
+            mu[k] = s[k].g.mu;
+            for (size_t e = 0; e < n * n; e++)
+                D[e * K + k] = s[k].D[e];
+            for (size_t i = 0; i < n; i++)
+                x[i * K + k] = s[k].x[i];
+            for (size_t e = 0; e < n * nd; e++)
+                gx[e * K + k] = s[k].gx[e];
+            for (size_t e = 0; e < nd; e++)
+                gP[e * K + k] = s[k].gP[e];
+            if (!with_gP)
+                s[k].g.grad_P = NULL;
+        }
+        mcd_dgm_cells cl = {.n_cells = K,
+                            .n_dim = nd,
+                            .T = T,
+                            .P = P,
+                            .mu = mu,
+                            .Dij = D,
+                            .x = x,
+                            .grad_x = gx,
+                            .grad_P = with_gP ? gP : NULL};
+        ck_assert_int_eq(mcd_dgm_fluxes_batch(ws, &s[0].p, n, s[0].M, &cl, out),
+                         MCD_OK);
+        for (size_t k = 0; k < K; k++) {
+            ck_assert_int_eq(mcd_dgm_fluxes(ws, &s[0].p, &s[k].g, N), MCD_OK);
+            for (size_t e = 0; e < n * nd; e++)
+                ck_assert_msg(N[e] == out[e * K + k],
+                              "rep %d cell %zu entry %zu: %.17g vs %.17g", rep,
+                              k, e, N[e], out[e * K + k]);
+        }
+        /* a bad cell is named and nothing is written */
+        x[0 * K + 3] = -0.5;
+        sup_guard_fill(out, n * nd * K);
+        ck_assert_int_eq(mcd_dgm_fluxes_batch(ws, &s[0].p, n, s[0].M, &cl, out),
+                         MCD_EDOM);
+        ck_assert_msg(strstr(mcd_last_error(), "cell 3: argument x") != NULL,
+                      "%s", mcd_last_error());
+        ck_assert(sup_guard_intact(out, n * nd * K));
+    }
+}
+END_TEST
+
 /* ------------------------------------------------------------------ */
 /* Errors                                                               */
 /* ------------------------------------------------------------------ */
@@ -757,6 +817,7 @@ static Suite *porous_suite(void)
     tcase_add_test(tc, porous_viscous_limit_is_darcy_flow);
     tcase_add_test(tc, porous_trace_species_obeys_bosanquet);
     tcase_add_test(tc, porous_closed_end_and_inverse_round_trips);
+    tcase_add_test(tc, porous_batched_equals_single_state);
     tcase_add_test(tc, porous_errors_name_argument_and_leave_outputs);
     suite_add_tcase(s, tc);
     return s;

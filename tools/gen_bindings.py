@@ -876,6 +876,7 @@ FORTRAN_SCALAR = {
     "mcd_dgm_fluxes": ["pore", "dgm"],
     "mcd_dgm_closed": ["pore", "dgm"],
     "mcd_dgm_gradients": ["pore", "dgm"],
+    "mcd_dgm_fluxes_batch": ["pore", "cells"],
 }
 # FORTRAN_NULLABLE: pointer parameters that may be NULL (bound as
 # type(c_ptr), value: pass c_null_ptr or c_loc(x)).

@@ -167,7 +167,7 @@ module mcdiff
        mcd_viscosity_omega22, mcd_viscosity_chapman_enskog, mcd_viscosity_wilke, &
        mcd_db_viscosity_gas, mcd_mixture_viscosities, mcd_pore_permeability, &
        mcd_pore_effective, mcd_knudsen_diffusivity, mcd_bosanquet, &
-       mcd_dgm_fluxes, mcd_dgm_closed, mcd_dgm_gradients
+       mcd_dgm_fluxes, mcd_dgm_closed, mcd_dgm_gradients, mcd_dgm_fluxes_batch
 
   !> Release a handle (any of the three types); an empty handle is a no-op.
   interface mcd_free
@@ -1391,6 +1391,36 @@ contains
     call finish(c_mcd_dgm_gradients(ws%ptr, pore, dgm_of(n, n_dim, T, P, mu, M, Dij, x), &
          N_flux, grad_x, grad_P), stat, errmsg)
   end subroutine mcd_dgm_gradients
+
+  !> Dusty Gas Model fluxes of n_cells cells (SoA layout, as
+  !> mcd_flux_batch_dij): T, P, mu(n_cells); Dij(n_cells, n, n);
+  !> x(n_cells, n); grad_x and N_flux (n_cells, n_dim, n); grad_P(n_cells,
+  !> n_dim) optional (absent = uniform pressure); M(n) shared.
+  subroutine mcd_dgm_fluxes_batch(ws, pore, n, M, n_cells, n_dim, T, P, mu, Dij, x, &
+       grad_x, N_flux, stat, errmsg, grad_P)
+    type(mcd_workspace_t), intent(inout) :: ws
+    type(mcd_pore_t), intent(in) :: pore
+    integer, intent(in) :: n, n_cells, n_dim
+    real(c_double), intent(in) :: M(n)
+    real(c_double), intent(in), target :: T(n_cells), P(n_cells), mu(n_cells)
+    real(c_double), intent(in), target :: Dij(n_cells, n, n), x(n_cells, n)
+    real(c_double), intent(in), target :: grad_x(n_cells, n_dim, n)
+    real(c_double), intent(inout) :: N_flux(n_cells, n_dim, n)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    real(c_double), intent(in), optional, target :: grad_P(n_cells, n_dim)
+    type(mcd_dgm_cells_t) :: cl
+    cl%n_cells = csz(n_cells)
+    cl%n_dim = csz(n_dim)
+    cl%T = c_loc(T)
+    cl%P = c_loc(P)
+    cl%mu = c_loc(mu)
+    cl%Dij = c_loc(Dij)
+    cl%x = c_loc(x)
+    cl%grad_x = c_loc(grad_x)
+    if (present(grad_P)) cl%grad_P = c_loc(grad_P)
+    call finish(c_mcd_dgm_fluxes_batch(ws%ptr, pore, csz(n), M, cl, N_flux), stat, errmsg)
+  end subroutine mcd_dgm_fluxes_batch
 
   !> A Dusty Gas Model state (C: mcd_dgm) over the caller's arrays; grad_x
   !> and grad_P are left NULL.

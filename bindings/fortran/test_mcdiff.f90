@@ -667,6 +667,26 @@ contains
     call check(stat == MCD_OK .and. abs(gP2(1) - gP(1)) <= 1e-9_c_double * abs(gP(1)) &
          .and. maxval(abs(gx2 - gx)) <= 1e-9_c_double * 20, &
          'inverse Dusty Gas Model returns the gradients')
+    ! two cells of the batched call equal two single-state calls
+    block
+      real(c_double) :: Tb(2), Pb(2), mub(2), Db(2, 2, 2), xb(2, 2), gb(2, 1, 2), Nb(2, 1, 2)
+      integer :: k
+      Tb = [300.0_c_double, 400.0_c_double]
+      Pb = [1e5_c_double, 2e5_c_double]
+      mub = [2e-5_c_double, 2.4e-5_c_double]
+      do k = 1, 2
+         Db(k, :, :) = Dij
+         xb(k, :) = x
+         gb(k, 1, :) = gx(1, :) * k
+      end do
+      call mcd_dgm_fluxes_batch(ws, pore, 2, M, 2, 1, Tb, Pb, mub, Db, xb, gb, Nb, stat, msg)
+      call check_stat(stat, msg, 'batched Dusty Gas Model')
+      do k = 1, 2
+         call mcd_dgm_fluxes(ws, pore, 2, 1, Tb(k), Pb(k), mub(k), M, Dij, x, &
+              gb(k, :, :), N, stat, msg)
+         call check(all(abs(N(1, :) - Nb(k, 1, :)) <= 0), 'batched = single-state fluxes')
+      end do
+    end block
     pore%porosity = 1.5_c_double
     N = GUARD
     call mcd_dgm_fluxes(ws, pore, 2, 1, 300.0_c_double, 1e5_c_double, 2e-5_c_double, M, &

@@ -85,7 +85,8 @@
     X(bosanquet, (double D_m, double D_K, double *out_D), (D_m, D_K, out_D)) \
     X(dgm_fluxes, (mcd_workspace *ws, const mcd_pore *pore, const mcd_dgm *dgm, double *out_N), (ws, pore, dgm, out_N)) \
     X(dgm_closed, (mcd_workspace *ws, const mcd_pore *pore, const mcd_dgm *dgm, const double *N_t, double *out_N, double *out_grad_P), (ws, pore, dgm, N_t, out_N, out_grad_P)) \
-    X(dgm_gradients, (mcd_workspace *ws, const mcd_pore *pore, const mcd_dgm *dgm, const double *N, double *out_grad_x, double *out_grad_P), (ws, pore, dgm, N, out_grad_x, out_grad_P))
+    X(dgm_gradients, (mcd_workspace *ws, const mcd_pore *pore, const mcd_dgm *dgm, const double *N, double *out_grad_x, double *out_grad_P), (ws, pore, dgm, N, out_grad_x, out_grad_P)) \
+    X(dgm_fluxes_batch, (mcd_workspace *ws, const mcd_pore *pore, size_t n_species, const double *M, const mcd_dgm_cells *cells, double *out_N), (ws, pore, n_species, M, cells, out_N))
 /* clang-format on */
 
 #define MCDI_API_PROTOTYPE(name, params, args) \

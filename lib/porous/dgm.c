@@ -1,7 +1,8 @@
 /* dgm.c - the Dusty Gas Model at one state: total molar fluxes from the
  * gradients (mcd_dgm_fluxes), with the total flux given and the pressure
  * gradient unknown (mcd_dgm_closed), and the gradients that carry given
- * fluxes (mcd_dgm_gradients).
+ * fluxes (mcd_dgm_gradients), and the fluxes of many cells
+ * (mcd_dgm_fluxes_batch).
  *
  * Equations (Mason and Malinauskas, Gas Transport in Porous Media: The
  * Dusty-Gas Model, 1983, ch. 5, for an isothermal ideal gas; recalled
@@ -45,26 +46,16 @@
 #include "porous/porous.h"
 #include "porous/pm_layout.h"
 
-/* Checks shared by the three calls, and the state's derived values in the
- * workspace: xn, DK, kv, H. need_gx: grad_x is read (and projected into
- * gx); need_gP: grad_P is read (may be NULL). */
-static mcd_status dgm_setup(mcd_workspace *ws, const mcd_pore *pore,
-                            const mcd_dgm *g, int need_gx, mcdi_pm *pm,
-                            mcdi_pore_eff *e)
+/* The checks of one state (writes nothing but the detail): the
+ * state's fields after the counts, as the three calls and every cell of
+ * the batched call apply them. need_gx: grad_x is read. The Knudsen
+ * diffusivities must be finite (they overflow only for absurd d_pore). */
+static mcd_status dgm_check_state(mcd_workspace *ws, const mcd_dgm *g,
+                                  const mcdi_pore_eff *e, int need_gx)
 {
     mcd_status st;
-    size_t n, nd, i, j;
-    double sum;
-    if (ws == NULL)
-        return mcdi_fail(MCD_EINVAL, "argument ws: NULL");
-    if (g == NULL)
-        return mcdi_fail(MCD_EINVAL, "argument dgm: NULL");
-    n = g->n_species;
-    nd = g->n_dim;
-    if ((st = mcdi_check_species(ws, n, 1, 0, "n_species")) != MCD_OK ||
-        (st = mcdi_check_dim(ws, nd)) != MCD_OK ||
-        (st = mcdi_pore_check(pore, e)) != MCD_OK ||
-        (st = mcdi_check_positive2(g->T, "T", g->P, "P")) != MCD_OK ||
+    size_t n = g->n_species, nd = g->n_dim, i;
+    if ((st = mcdi_check_positive2(g->T, "T", g->P, "P")) != MCD_OK ||
         (st = mcdi_check_positive(ws, g->mu, "mu")) != MCD_OK ||
         (st = mcdi_check_M(ws, n, g->M)) != MCD_OK ||
         (st = mcdi_check_dij(ws, n, g->Dij)) != MCD_OK ||
@@ -76,9 +67,6 @@ static mcd_status dgm_setup(mcd_workspace *ws, const mcd_pore *pore,
     if (g->grad_P != NULL &&
         (st = mcdi_check_finite_vec(ws, nd, g->grad_P, "grad_P")) != MCD_OK)
         return st;
-
-    mcdi_pm_scratch(ws, pm);
-    mcdi_comp_scale_to_one(n, g->x, pm->xn);
     for (i = 0; i < n; i++) {
         double DK = e->f * mcdi_knudsen(g->T, g->M[i], e->d);
         if (!(DK > 0.0) || !mcdi_finite(DK))
@@ -86,8 +74,34 @@ static mcd_status dgm_setup(mcd_workspace *ws, const mcd_pore *pore,
                              "argument d_pore: Knudsen diffusivity of "
                              "species %zu outside the double range",
                              i);
-        pm->DK[i] = DK;
-        pm->kv[i] = 1.0 + e->B0 * g->P / (g->mu * DK);
+    }
+    return MCD_OK;
+}
+
+/* The counts, the workspace and the pore structure (writes nothing). */
+static mcd_status dgm_check_head(mcd_workspace *ws, const mcd_pore *pore,
+                                 size_t n, size_t nd, mcdi_pore_eff *e)
+{
+    mcd_status st;
+    if (ws == NULL)
+        return mcdi_fail(MCD_EINVAL, "argument ws: NULL");
+    if ((st = mcdi_check_species(ws, n, 1, 0, "n_species")) != MCD_OK ||
+        (st = mcdi_check_dim(ws, nd)) != MCD_OK ||
+        (st = mcdi_pore_check(pore, e)) != MCD_OK)
+        return st;
+    return MCD_OK;
+}
+
+/* The state's derived values in the workspace: xn, DK, kv, H, and the
+ * projected gradients gx when need_gx. Inputs checked. */
+static void dgm_prepare(const mcd_dgm *g, const mcdi_pore_eff *e, int need_gx,
+                        mcdi_pm *pm)
+{
+    size_t n = g->n_species, nd = g->n_dim, i, j, k;
+    mcdi_comp_scale_to_one(n, g->x, pm->xn);
+    for (i = 0; i < n; i++) {
+        pm->DK[i] = e->f * mcdi_knudsen(g->T, g->M[i], e->d);
+        pm->kv[i] = 1.0 + e->B0 * g->P / (g->mu * pm->DK[i]);
     }
     /* H_ii = 1/D^e_K,i + sum_{j != i} x_j / D^e_ij, H_ij = -x_i / D^e_ij */
     for (i = 0; i < n; i++) {
@@ -103,14 +117,31 @@ static mcd_status dgm_setup(mcd_workspace *ws, const mcd_pore *pore,
         pm->H[i * n + i] = d;
     }
     if (need_gx)
-        for (size_t k = 0; k < nd; k++) {
-            sum = 0.0;
+        for (k = 0; k < nd; k++) {
+            double sum = 0.0;
             for (i = 0; i < n; i++)
                 sum += g->grad_x[i * nd + k];
             for (i = 0; i < n; i++)
                 pm->gx[i * MCD_MAX_DIM + k] =
                     g->grad_x[i * nd + k] - pm->xn[i] * sum;
         }
+}
+
+/* Checks of a single-state call, then the derived values in the
+ * workspace. */
+static mcd_status dgm_setup(mcd_workspace *ws, const mcd_pore *pore,
+                            const mcd_dgm *g, int need_gx, mcdi_pm *pm,
+                            mcdi_pore_eff *e)
+{
+    mcd_status st;
+    if (g == NULL)
+        return ws == NULL ? mcdi_fail(MCD_EINVAL, "argument ws: NULL")
+                          : mcdi_fail(MCD_EINVAL, "argument dgm: NULL");
+    if ((st = dgm_check_head(ws, pore, g->n_species, g->n_dim, e)) != MCD_OK ||
+        (st = dgm_check_state(ws, g, e, need_gx)) != MCD_OK)
+        return st;
+    mcdi_pm_scratch(ws, pm);
+    dgm_prepare(g, e, need_gx, pm);
     return MCD_OK;
 }
 
@@ -155,6 +186,23 @@ static mcd_status dgm_solve(size_t n, size_t cols, mcdi_pm *pm)
     return MCD_OK;
 }
 
+/* The fluxes of a prepared state into pm->rhs (columns 0..nd-1):
+ * rhs_i = -(P grad x_i + x_i k_i grad P) / (R T), then the solve. */
+static mcd_status dgm_forward(const mcd_dgm *g, mcdi_pm *pm)
+{
+    size_t n = g->n_species, nd = g->n_dim, i, k;
+    double RT = MCD_GAS_CONSTANT * g->T;
+    for (i = 0; i < n; i++)
+        for (k = 0; k < nd; k++) {
+            double gP = g->grad_P != NULL ? g->grad_P[k] : 0.0;
+            pm->rhs[i * MCDI_PM_COLS + k] =
+                -(g->P * pm->gx[i * MCD_MAX_DIM + k] +
+                  pm->xn[i] * pm->kv[i] * gP) /
+                RT;
+        }
+    return dgm_solve(n, nd, pm);
+}
+
 mcd_status mcdi_api_dgm_fluxes(mcd_workspace *ws, const mcd_pore *pore,
                                const mcd_dgm *dgm, double *out_N)
 {
@@ -162,28 +210,96 @@ mcd_status mcdi_api_dgm_fluxes(mcd_workspace *ws, const mcd_pore *pore,
     mcdi_pore_eff e;
     mcd_status st;
     size_t n, nd, i, k;
-    double RT;
     if ((st = dgm_setup(ws, pore, dgm, 1, &pm, &e)) != MCD_OK)
         return st;
     if (out_N == NULL)
         return mcdi_fail(MCD_EINVAL, "argument out_N: NULL");
+    if ((st = dgm_forward(dgm, &pm)) != MCD_OK)
+        return st;
     n = dgm->n_species;
     nd = dgm->n_dim;
-    RT = MCD_GAS_CONSTANT * dgm->T;
-    /* rhs_i = -(P grad x_i + x_i k_i grad P) / (R T) */
-    for (i = 0; i < n; i++)
-        for (k = 0; k < nd; k++) {
-            double gP = dgm->grad_P != NULL ? dgm->grad_P[k] : 0.0;
-            pm.rhs[i * MCDI_PM_COLS + k] =
-                -(dgm->P * pm.gx[i * MCD_MAX_DIM + k] +
-                  pm.xn[i] * pm.kv[i] * gP) /
-                RT;
-        }
-    if ((st = dgm_solve(n, nd, &pm)) != MCD_OK)
-        return st;
     for (i = 0; i < n; i++)
         for (k = 0; k < nd; k++)
             out_N[i * nd + k] = pm.rhs[i * MCDI_PM_COLS + k];
+    return MCD_OK;
+}
+
+/* Cell k of a batched call gathered into the workspace (regions cD, cx,
+ * cg, cgP) as a single state g. */
+static void dgm_gather(const mcd_dgm_cells *cl, size_t n, const double *M,
+                       size_t k, mcdi_pm *pm, mcd_dgm *g)
+{
+    size_t K = cl->n_cells, nd = cl->n_dim, i;
+    for (i = 0; i < n * n; i++)
+        pm->cD[i] = cl->Dij[i * K + k];
+    for (i = 0; i < n; i++)
+        pm->cx[i] = cl->x[i * K + k];
+    for (i = 0; i < n * nd; i++)
+        pm->cg[i] = cl->grad_x[i * K + k];
+    if (cl->grad_P != NULL)
+        for (i = 0; i < nd; i++)
+            pm->cgP[i] = cl->grad_P[i * K + k];
+    *g = (mcd_dgm){.n_species = n,
+                   .n_dim = nd,
+                   .T = cl->T[k],
+                   .P = cl->P[k],
+                   .mu = cl->mu[k],
+                   .M = M,
+                   .Dij = pm->cD,
+                   .x = pm->cx,
+                   .grad_x = pm->cg,
+                   .grad_P = cl->grad_P != NULL ? pm->cgP : NULL};
+}
+
+/*
+ * Batched fluxes: every cell is gathered into the workspace and run
+ * through the single-state stages (the same code, so the same bits as
+ * mcd_dgm_fluxes). Two passes: the first checks every cell and names the
+ * first bad one, so that bad input writes nothing; the second computes.
+ */
+mcd_status mcdi_api_dgm_fluxes_batch(mcd_workspace *ws, const mcd_pore *pore,
+                                     size_t n_species, const double *M,
+                                     const mcd_dgm_cells *cells, double *out_N)
+{
+    mcdi_pm pm;
+    mcdi_pore_eff e;
+    mcd_dgm g;
+    mcd_status st;
+    size_t K, nd, n = n_species, k, i;
+    if (cells == NULL)
+        return mcdi_fail(MCD_EINVAL, "argument cells: NULL");
+    K = cells->n_cells;
+    nd = cells->n_dim;
+    if ((st = dgm_check_head(ws, pore, n, nd, &e)) != MCD_OK ||
+        (st = MCDI_CHECK_PTRS2(M, out_N)) != MCD_OK)
+        return st;
+    if (K > 0 &&
+        ((st = MCDI_CHECK_PTRS3(cells->T, cells->P, cells->mu)) != MCD_OK ||
+         (st = MCDI_CHECK_PTRS3(cells->Dij, cells->x, cells->grad_x)) !=
+             MCD_OK))
+        return st;
+    mcdi_pm_scratch(ws, &pm);
+    for (k = 0; k < K; k++) {
+        dgm_gather(cells, n, M, k, &pm, &g);
+        if ((st = dgm_check_state(ws, &g, &e, 1)) != MCD_OK) {
+            char msg[MCDI_ERRLEN];
+            memcpy(msg, mcdi_err_text(), sizeof msg);
+            msg[sizeof msg - 1] = '\0';
+            return mcdi_fail(st, "cell %zu: %s", k, msg);
+        }
+    }
+    for (k = 0; k < K; k++) {
+        dgm_gather(cells, n, M, k, &pm, &g);
+        dgm_prepare(&g, &e, 1, &pm);
+        if ((st = dgm_forward(&g, &pm)) != MCD_OK) {
+            char msg[MCDI_ERRLEN];
+            memcpy(msg, mcdi_err_text(), sizeof msg);
+            msg[sizeof msg - 1] = '\0';
+            return mcdi_fail(st, "cell %zu: %s", k, msg);
+        }
+        for (i = 0; i < n * nd; i++)
+            out_N[i * K + k] = pm.rhs[(i / nd) * MCDI_PM_COLS + i % nd];
+    }
     return MCD_OK;
 }
 

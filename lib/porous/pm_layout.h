@@ -25,7 +25,9 @@
     /* effective Knudsen diffusivities, viscous factors k_i             */  \
     R(xn, n) R(gx, n * MCD_MAX_DIM) R(DK, n) R(kv, n)                       \
     /* results before they are copied out: fluxes or gradients           */ \
-    R(out, n * MCD_MAX_DIM)
+    R(out, n * MCD_MAX_DIM)                                                 \
+    /* one cell of the batched call, gathered: Dij, x, grad x, grad P    */ \
+    R(cD, n * n) R(cx, n) R(cg, n * MCD_MAX_DIM) R(cgP, MCD_MAX_DIM)
 /* clang-format on */
 
 /* mcdi_pm, mcdi_pm_doubles(cap, 0, 1), mcdi_pm_carve(mem, cap, 0, 1, &pm) */

@@ -772,6 +772,19 @@ class Porous(unittest.TestCase):
                                dk * 0.4 / 3, delta=1e-15 * dk)
         self.assertAlmostEqual(mcdiff.bosanquet(1e-5, 1e-5), 5e-6,
                                delta=1e-20)
+        # batched: two cells (cells last) equal the single-state calls
+        Db = [[[0, 0], [7e-5, 6e-5]], [[7e-5, 6e-5], [0, 0]]]
+        xb = [[0.3, 0.6], [0.7, 0.4]]
+        gb = [[-20.0, -5.0], [20.0, 5.0]]
+        Nb = rows(mcdiff.dgm_fluxes_batch(Db, M, xb, gb, [300.0, 350.0],
+                                          [1e5, 2e5], [2e-5, 2.2e-5],
+                                          **pore))
+        for k, (Dk, xk, gk, Tk, Pk, mk) in enumerate(
+                [(7e-5, [0.3, 0.7], [-20.0, 20.0], 300.0, 1e5, 2e-5),
+                 (6e-5, [0.6, 0.4], [-5.0, 5.0], 350.0, 2e5, 2.2e-5)]):
+            Nk = rows(mcdiff.dgm_fluxes([[0, Dk], [Dk, 0]], M, xk, gk, Tk,
+                                        Pk, mk, **pore))
+            self.assertEqual([Nb[0][k], Nb[1][k]], Nk)
         with self.assertRaises(mcdiff.DomainError) as cm:
             mcdiff.dgm_fluxes(D, M, x, [-20.0, 20.0], 300.0, 1e5, 2e-5,
                               porosity=1.5, tortuosity=3.0, d_pore=1e-7)

@@ -16,6 +16,7 @@ __all__ = [
     "mcd_bulbs",
     "mcd_pore",
     "mcd_dgm",
+    "mcd_dgm_cells",
 ]
 
 _D = ctypes.c_double
@@ -252,6 +253,8 @@ SIGNATURES = {
     "mcd_dgm_closed": (_ST, [_H, _H, _H, _PD, _PD, _PD]),
     # (ws, pore, dgm, N, out_grad_x, out_grad_P)
     "mcd_dgm_gradients": (_ST, [_H, _H, _H, _PD, _PD, _PD]),
+    # (ws, pore, n_species, M, cells, out_N)
+    "mcd_dgm_fluxes_batch": (_ST, [_H, _H, _SZ, _PD, _H, _PD]),
 }
 
 
@@ -329,6 +332,21 @@ class mcd_dgm(ctypes.Structure):
         ("P", ctypes.c_double),
         ("mu", ctypes.c_double),
         ("M", ctypes.POINTER(ctypes.c_double)),
+        ("Dij", ctypes.POINTER(ctypes.c_double)),
+        ("x", ctypes.POINTER(ctypes.c_double)),
+        ("grad_x", ctypes.POINTER(ctypes.c_double)),
+        ("grad_P", ctypes.POINTER(ctypes.c_double)),
+    ]
+
+
+class mcd_dgm_cells(ctypes.Structure):
+    """struct mcd_dgm_cells of include/mcdiff.h."""
+    _fields_ = [
+        ("n_cells", ctypes.c_size_t),
+        ("n_dim", ctypes.c_size_t),
+        ("T", ctypes.POINTER(ctypes.c_double)),
+        ("P", ctypes.POINTER(ctypes.c_double)),
+        ("mu", ctypes.POINTER(ctypes.c_double)),
         ("Dij", ctypes.POINTER(ctypes.c_double)),
         ("x", ctypes.POINTER(ctypes.c_double)),
         ("grad_x", ctypes.POINTER(ctypes.c_double)),

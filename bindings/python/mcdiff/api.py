@@ -18,8 +18,8 @@ import threading
 from . import _arrays
 from ._arrays import np
 from ._native import lib
-from ._signatures import (mcd_bulbs, mcd_cells, mcd_dgm, mcd_film, mcd_pore,
-                          mcd_state)
+from ._signatures import (mcd_bulbs, mcd_cells, mcd_dgm, mcd_dgm_cells,
+                          mcd_film, mcd_pore, mcd_state)
 from .enums import (Basis, Bootstrap, Diag, FilmBootstrap, FilmMethod, Method,
                     Model, Warning, coerce)
 from .errors import error_for
@@ -52,7 +52,7 @@ __all__ = [
     "viscosity_gas", "mixture_viscosities",
     # porous media
     "pore_permeability", "pore_effective", "knudsen_diffusivity", "bosanquet",
-    "dgm_fluxes", "dgm_closed", "dgm_gradients",
+    "dgm_fluxes", "dgm_closed", "dgm_gradients", "dgm_fluxes_batch",
     # results
     "FickMatrix", "TotalFlux", "ProjectedFlux", "FilmResult", "BulbsResult",
     "ViscosityEstimate", "DgmClosed", "DgmGradients",
@@ -1063,3 +1063,34 @@ def dgm_gradients(Dij, M, x, N, T, P, mu, *, porosity, tortuosity, d_pore,
                                f.ptr, o.ptr, gp.ptr)
     ws.check(st, "mcd_dgm_gradients")
     return DgmGradients(_field_result(o, was_1d), _dir_result(gp, was_1d))
+
+
+def dgm_fluxes_batch(Dij, M, x, grad_x, T, P, mu, *, porosity, tortuosity,
+                     d_pore, permeability=0.0, grad_P=None, workspace=None):
+    """Dusty Gas Model fluxes of K cells (mcd_dgm_fluxes_batch, cells
+    last): Dij (N, N, K) [m^2/s], M (N,) [kg/mol], x (N, K), grad_x
+    (N, n_dim, K) or (N, K) [1/m], T, P, mu (K,) [K, Pa, Pa s], grad_P
+    (n_dim, K) or (K,) [Pa/m] or None; one pore structure for all cells.
+    The result [mol/(m^2 s)] has the shape of grad_x."""
+    Ta = _arrays.vector([T] if isinstance(T, (int, float)) else T, None, "T")
+    K = Ta.shape[0]
+    Pa = _arrays.vector([P] if isinstance(P, (int, float)) else P, K, "P")
+    mua = _arrays.vector([mu] if isinstance(mu, (int, float)) else mu, K,
+                         "mu")
+    m = _arrays.vector(M, None, "M")
+    N = m.shape[0]
+    D = _arrays.as_doubles(Dij, "Dij")
+    if not (D.shape == (N, N, K) or (D.ndim == 1 and D.size == N * N * K)):
+        raise ValueError("Dij: expected shape %s, got %s"
+                         % ((N, N, K), D.shape))
+    a, g, nd, gp = _batch_fields(N, K, x, grad_x, grad_P, "soa")
+    ws = _ws(workspace, N)
+    o = _arrays.Output(g.shape)
+    p = _pore(porosity, tortuosity, d_pore, permeability)
+    cells = mcd_dgm_cells(n_cells=K, n_dim=nd, T=Ta.ptr, P=Pa.ptr,
+                          mu=mua.ptr, Dij=D.ptr, x=a.ptr, grad_x=g.ptr,
+                          grad_P=_ptr(gp))
+    st = lib.mcd_dgm_fluxes_batch(ws._p(), ctypes.byref(p), N, m.ptr,
+                                  ctypes.byref(cells), o.ptr)
+    ws.check(st, "mcd_dgm_fluxes_batch")
+    return o.result()
