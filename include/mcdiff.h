@@ -1371,6 +1371,85 @@ MCD_API mcd_status mcd_dgm_fluxes_batch(mcd_workspace *ws,
                                         const mcd_dgm_cells *cells,
                                         double *out_N);
 
+/*
+ * Porous slab: steady Dusty Gas Model fluxes through an isothermal slab of
+ * thickness L between two gas states, x0 and P0 at z = 0 and xL (and PL)
+ * at z = L. The total fluxes N_i are constant across the slab (no
+ * reaction). Open-gas binary diffusivities follow the low-pressure law
+ * Đ_ij(P) = Đ_ij(P_ref) P_ref / P along the slab; the mixture viscosity
+ * is taken constant (the caller's value, e.g. at the mean composition).
+ * The same cautions as for the single-state calls apply.
+ */
+
+/** Which condition completes a slab problem (mcd_slab_solve). */
+typedef enum mcd_slab_kind {
+    MCD_SLAB_PRESSURES = 0, /**< both end pressures given: the model fixes
+                                 every flux (no bootstrap needed) */
+    MCD_SLAB_STAGNANT = 1,  /**< species `species` does not move; PL is a
+                                 result */
+    MCD_SLAB_TOTAL = 2      /**< sum_i N_i = value [mol/(m^2 s)]; PL is a
+                                 result */
+} mcd_slab_kind;
+
+/** A porous slab and its end states: the input of mcd_slab_solve and
+ *  mcd_slab_profile. Zero-initialise it and set the fields. Since 0.3. */
+typedef struct mcd_slab {
+    size_t n_species;  /**< N, 1..capacity of the workspace */
+    double T;          /**< temperature [K], > 0 (uniform) */
+    double mu;         /**< mixture viscosity [Pa s], > 0 (constant) */
+    double L;          /**< slab thickness [m], > 0 */
+    double P_ref;      /**< pressure [Pa] at which Dij are given, > 0 */
+    const double *M;   /**< molar masses [kg/mol], N */
+    const double *Dij; /**< open-gas binary diffusivities at P_ref
+                            [m^2/s], N x N */
+    const double *x0;  /**< mole fractions at z = 0, N */
+    double P0;         /**< pressure at z = 0 [Pa], > 0 */
+    const double *xL;  /**< mole fractions at z = L, N (mcd_slab_solve) */
+    double PL;         /**< pressure at z = L [Pa], > 0 (PRESSURES) */
+} mcd_slab;
+
+/** Steady fluxes through a porous slab by the Dusty Gas Model: a
+ *  converged numerical solution of the boundary-value problem (shooting:
+ *  the ODE dy/dz = f(y; N) for y = (x, P) from the explicit inverse model,
+ *  fourth-order Runge-Kutta with the step count doubled until the fluxes
+ *  change by less than 1e-10 relative, Newton's method on N to end
+ *  residuals of 1e-12). Since 0.3.
+ *  @param ws       workspace with capacity >= slab->n_species.
+ *  @param pore     pore structure (as mcd_pore_permeability).
+ *  @param slab     the slab and its end states; messages name its fields.
+ *  @param kind     MCD_SLAB_PRESSURES, _STAGNANT or _TOTAL.
+ *  @param species  STAGNANT: the species that does not move.
+ *  @param value    TOTAL: sum_i N_i [mol/(m^2 s)]; ignored otherwise.
+ *  @param out_N    total molar fluxes [mol/(m^2 s)], N, positive towards
+ *                  z = L.
+ *  @param out_PL   pressure at z = L [Pa] (the given one for PRESSURES;
+ *                  may be NULL).
+ *  @param out_iterations  Newton iterations over all step counts (may be
+ *                  NULL).
+ *  Fails: EINVAL, EBADLEN, EDOM (out of range; the pressure going
+ *  negative inside the slab), ESING, ENOCONV (Newton stalls, e.g. end
+ *  states no steady flux connects) | Allocates: no | Threads: one ws per
+ *  thread */
+MCD_API mcd_status mcd_slab_solve(mcd_workspace *ws, const mcd_pore *pore,
+                                  const mcd_slab *slab, mcd_slab_kind kind,
+                                  size_t species, double value, double *out_N,
+                                  double *out_PL, size_t *out_iterations);
+
+/** Profile across a slab for given fluxes N (e.g. from mcd_slab_solve):
+ *  the ODE integrated from z = 0 (x0, P0) by fourth-order Runge-Kutta
+ *  with steps of at most L/1024. xL and PL are not used. Since 0.3.
+ *  @param N         total molar fluxes [mol/(m^2 s)], N.
+ *  @param n_points  number of positions (0 writes nothing).
+ *  @param z         positions [m], each in [0, L].
+ *  @param out_x     mole fractions, n_points x N (row = position).
+ *  @param out_P     pressures [Pa], n_points.
+ *  Fails: EINVAL, EBADLEN, EDOM (also a pressure going negative) |
+ *  Allocates: no */
+MCD_API mcd_status mcd_slab_profile(mcd_workspace *ws, const mcd_pore *pore,
+                                    const mcd_slab *slab, const double *N,
+                                    size_t n_points, const double *z,
+                                    double *out_x, double *out_P);
+
 #ifdef __cplusplus
 }
 #endif

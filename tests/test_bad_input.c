@@ -776,6 +776,38 @@ static int call_mcd_dgm_fluxes_batch(ctx *c)
                                         .grad_P = c->use_gp ? c->gP : NULL},
         OUT(o1, NB_O1));
 }
+static const mcd_slab *slab_of(ctx *c, mcd_slab *sl)
+{
+    *sl = (mcd_slab){.n_species = c->n,
+                     .T = c->T,
+                     .mu = c->mug,
+                     .L = c->L,
+                     .P_ref = c->P_ref,
+                     .M = ARG(M, NB_M),
+                     .Dij = ARG(D, NB_D),
+                     .x0 = ARG(x, NB_X),
+                     .P0 = c->P,
+                     .xL = ARG(x2, NB_X2),
+                     .PL = c->Pc[1]};
+    return NUL_(NB_DGM) ? NULL : sl;
+}
+static int call_mcd_slab_solve(ctx *c)
+{
+    mcd_slab sl;
+    /* kind counts from the fixture's default (MCD_BOOT_EQUIMOLAR), so
+     * that the default is MCD_SLAB_PRESSURES */
+    return mcd_slab_solve(WS, PORE, slab_of(c, &sl),
+                          (mcd_slab_kind)(c->kind - MCD_BOOT_EQUIMOLAR),
+                          c->species, c->value, OUT(o1, NB_O1), OUT(o2, NB_O2),
+                          OUT(oz, NB_OZ));
+}
+static int call_mcd_slab_profile(ctx *c)
+{
+    mcd_slab sl;
+    return mcd_slab_profile(WS, PORE, slab_of(c, &sl), ARG(Nt, NB_NF), c->np,
+                            ARG(zz, NB_Z), OUT(o1, NB_O1), OUT(o2, NB_O2));
+}
+
 /* ------------------------------------------------------------------ */
 /* The table                                                          */
 /* ------------------------------------------------------------------ */
@@ -1809,6 +1841,33 @@ static const bcase cases[] = {
     C(mcd_dgm_fluxes_batch, "cell x negative", EDOM_, "x", MDA(x, 1, -0.1)),
     C(mcd_dgm_fluxes_batch, "cell grad NaN", EINVAL_, "grad_x",
       MDA(grad, 2, NAN)),
+    B(mcd_slab_solve, MCD_OK),
+    C(mcd_slab_solve, "slab NULL", EINVAL_, "slab", MN(NB_DGM)),
+    C(mcd_slab_solve, "pore NULL", EINVAL_, "pore", MN(NB_PORE)),
+    C(mcd_slab_solve, "out_N NULL", EINVAL_, "out_N", MN(NB_O1)),
+    C(mcd_slab_solve, "PL negative", EDOM_, "PL", MDA(Pc, 1, -1.0)),
+    C(mcd_slab_solve, "P0 0", EDOM_, "P0", MD(P, 0.0)),
+    C(mcd_slab_solve, "L 0", EDOM_, "L", MD(L, 0.0)),
+    C(mcd_slab_solve, "mu NaN", EINVAL_, "mu", MD(mug, NAN)),
+    C(mcd_slab_solve, "P_ref 0", EDOM_, "P_ref", MD(P_ref, 0.0)),
+    C(mcd_slab_solve, "tortuosity 0.5", EDOM_, "tortuosity",
+      MD(pore.tortuosity, 0.5)),
+    C(mcd_slab_solve, "xL NULL", EINVAL_, "xL", MN(NB_X2)),
+    C(mcd_slab_solve, "x0 negative", EDOM_, "x0", MDA(x, 0, -0.5)),
+    C(mcd_slab_solve, "kind 9", EINVAL_, "kind",
+      MI(kind, MCD_BOOT_EQUIMOLAR + 9)),
+    C(mcd_slab_solve, "stagnant species 7", EINVAL_, "species",
+      MI(kind, MCD_BOOT_EQUIMOLAR + MCD_SLAB_STAGNANT), MZ(species, 7)),
+    C(mcd_slab_solve, "total NaN", EINVAL_, "value",
+      MI(kind, MCD_BOOT_EQUIMOLAR + MCD_SLAB_TOTAL), MD(value, NAN)),
+    B(mcd_slab_profile, MCD_OK),
+    C(mcd_slab_profile, "N NULL", EINVAL_, "N", MN(NB_NF)),
+    C(mcd_slab_profile, "N NaN", EINVAL_, "N", MDA(Nt, 1, NAN)),
+    C(mcd_slab_profile, "z NULL", EINVAL_, "z", MN(NB_Z)),
+    C(mcd_slab_profile, "z beyond L", EDOM_, "z", MDA(zz, 1, 1.0)),
+    C(mcd_slab_profile, "out_P NULL", EINVAL_, "out_P", MN(NB_O2)),
+    C(mcd_slab_profile, "porosity 0", EDOM_, "porosity",
+      MD(pore.porosity, 0.0)),
 };
 
 #define NCASES (sizeof cases / sizeof cases[0])
@@ -1894,6 +1953,7 @@ static void ctx_init(ctx *c)
     c->nthreads = 1;
     c->Tc[0] = 300.0;
     c->Pc[0] = MCD_ATM;
+    c->Pc[1] = 0.9 * MCD_ATM; /* far-end pressure of the slab */
     c->cc[0] = MCD_ATM / (MCD_GAS_CONSTANT * 300.0);
     ck_assert_int_eq(mcd_workspace_new(2, &c->ws2), MCD_OK);
     c->model = MCD_MODEL_MAXWELL_STEFAN;

@@ -877,6 +877,8 @@ FORTRAN_SCALAR = {
     "mcd_dgm_closed": ["pore", "dgm"],
     "mcd_dgm_gradients": ["pore", "dgm"],
     "mcd_dgm_fluxes_batch": ["pore", "cells"],
+    "mcd_slab_solve": ["pore", "slab"],
+    "mcd_slab_profile": ["pore", "slab"],
 }
 # FORTRAN_NULLABLE: pointer parameters that may be NULL (bound as
 # type(c_ptr), value: pass c_null_ptr or c_loc(x)).
@@ -895,6 +897,7 @@ FORTRAN_NULLABLE = {
     "mcd_film_solve": ["values", "out_iterations", "out_residual"],
     "mcd_db_viscosity_gas": ["out_rel_err", "out_warn"],
     "mcd_mixture_viscosities": ["out_warn"],
+    "mcd_slab_solve": ["out_PL", "out_iterations"],
 }
 # FORTRAN_DUMMY_NAMES: dummy argument names that differ from the C names
 # (Fortran names are case-insensitive, so film_profile's n and N clash;

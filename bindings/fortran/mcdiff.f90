@@ -167,7 +167,8 @@ module mcdiff
        mcd_viscosity_omega22, mcd_viscosity_chapman_enskog, mcd_viscosity_wilke, &
        mcd_db_viscosity_gas, mcd_mixture_viscosities, mcd_pore_permeability, &
        mcd_pore_effective, mcd_knudsen_diffusivity, mcd_bosanquet, &
-       mcd_dgm_fluxes, mcd_dgm_closed, mcd_dgm_gradients, mcd_dgm_fluxes_batch
+       mcd_dgm_fluxes, mcd_dgm_closed, mcd_dgm_gradients, mcd_dgm_fluxes_batch, &
+       mcd_slab_solve, mcd_slab_profile
 
   !> Release a handle (any of the three types); an empty handle is a no-op.
   interface mcd_free
@@ -1421,6 +1422,81 @@ contains
     if (present(grad_P)) cl%grad_P = c_loc(grad_P)
     call finish(c_mcd_dgm_fluxes_batch(ws%ptr, pore, csz(n), M, cl, N_flux), stat, errmsg)
   end subroutine mcd_dgm_fluxes_batch
+
+  !> Steady Dusty Gas Model fluxes N_flux(n) through a porous slab of
+  !> thickness L [m] between (x0, P0) and (xL, PL); Dij(n, n) open-gas
+  !> binary diffusivities at P_ref [Pa]; mu [Pa s] constant; kind
+  !> MCD_SLAB_PRESSURES, _STAGNANT (species, 1-based) or _TOTAL (value =
+  !> sum N); PL_out the pressure at z = L.
+  subroutine mcd_slab_solve(ws, pore, n, T, mu, L, P_ref, M, Dij, x0, P0, xL, PL, kind, &
+       N_flux, stat, errmsg, species, value, PL_out, iterations)
+    type(mcd_workspace_t), intent(inout) :: ws
+    type(mcd_pore_t), intent(in) :: pore
+    integer, intent(in) :: n, kind
+    real(c_double), intent(in) :: T, mu, L, P_ref, P0, PL
+    real(c_double), intent(in), target :: M(n), Dij(n, n), x0(n), xL(n)
+    real(c_double), intent(inout) :: N_flux(n)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    integer, intent(in), optional :: species
+    real(c_double), intent(in), optional :: value
+    real(c_double), intent(inout), optional :: PL_out
+    integer, intent(inout), optional :: iterations
+    real(c_double), target :: pl_c
+    integer(c_size_t), target :: it
+    integer(c_size_t) :: k
+    real(c_double) :: v
+    integer(c_int) :: s
+    k = 0
+    if (present(species)) k = cidx(species)
+    v = 0
+    if (present(value)) v = value
+    pl_c = 0
+    it = 0
+    s = c_mcd_slab_solve(ws%ptr, pore, slab_of(n, T, mu, L, P_ref, M, Dij, x0, P0, xL, PL), &
+         int(kind, c_int), k, v, N_flux, c_loc(pl_c), c_loc(it))
+    if (s == 0) then
+       if (present(PL_out)) PL_out = pl_c
+       if (present(iterations)) iterations = int(it)
+    end if
+    call finish(s, stat, errmsg)
+  end subroutine mcd_slab_solve
+
+  !> Slab profile for fluxes N_flux(n): x(n, n_points) and P(n_points) at
+  !> positions z(n_points) [m].
+  subroutine mcd_slab_profile(ws, pore, n, T, mu, L, P_ref, M, Dij, x0, P0, N_flux, &
+       n_points, z, x, P, stat, errmsg)
+    type(mcd_workspace_t), intent(inout) :: ws
+    type(mcd_pore_t), intent(in) :: pore
+    integer, intent(in) :: n, n_points
+    real(c_double), intent(in) :: T, mu, L, P_ref, P0, N_flux(n), z(*)
+    real(c_double), intent(in), target :: M(n), Dij(n, n), x0(n)
+    real(c_double), intent(inout) :: x(n, *), P(*)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_slab_profile(ws%ptr, pore, &
+         slab_of(n, T, mu, L, P_ref, M, Dij, x0, P0, x0, P0), N_flux, csz(n_points), z, &
+         x, P), stat, errmsg)
+  end subroutine mcd_slab_profile
+
+  !> A porous slab (C: mcd_slab) over the caller's arrays.
+  function slab_of(n, T, mu, L, P_ref, M, Dij, x0, P0, xL, PL) result(sl)
+    integer, intent(in) :: n
+    real(c_double), intent(in) :: T, mu, L, P_ref, P0, PL
+    real(c_double), intent(in), target :: M(n), Dij(n, n), x0(n), xL(n)
+    type(mcd_slab_t) :: sl
+    sl%n_species = csz(n)
+    sl%T = T
+    sl%mu = mu
+    sl%L = L
+    sl%P_ref = P_ref
+    sl%M = c_loc(M)
+    sl%Dij = c_loc(Dij)
+    sl%x0 = c_loc(x0)
+    sl%P0 = P0
+    sl%xL = c_loc(xL)
+    sl%PL = PL
+  end function slab_of
 
   !> A Dusty Gas Model state (C: mcd_dgm) over the caller's arrays; grad_x
   !> and grad_P are left NULL.

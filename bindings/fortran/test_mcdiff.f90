@@ -687,6 +687,26 @@ contains
          call check(all(abs(N(1, :) - Nb(k, 1, :)) <= 0), 'batched = single-state fluxes')
       end do
     end block
+    ! slab with equal end pressures: the isobaric binary closed form
+    ! (Cunningham and Williams 1980), N_A L = (De c / a) ln((b - a xL) /
+    ! (b - a x0)), a = 1 - sqrt(M_A/M_B), b = 1 + De / DeK_A
+    block
+      real(c_double) :: Ns(2), x0s(2), xLs(2), PLo, De, DKe, a, b, cc, ref
+      x0s = [0.8_c_double, 0.2_c_double]
+      xLs = [0.1_c_double, 0.9_c_double]
+      call mcd_slab_solve(ws, pore, 2, 300.0_c_double, 2e-5_c_double, 1e-3_c_double, &
+           1e5_c_double, M, Dij, x0s, 1e5_c_double, xLs, 1e5_c_double, MCD_SLAB_PRESSURES, &
+           Ns, stat, msg, PL_out=PLo)
+      call check_stat(stat, msg, 'slab solve')
+      call mcd_pore_effective(pore, Dij(1, 2), De, stat, msg)
+      call mcd_knudsen_diffusivity(300.0_c_double, M(1), pore%d_pore, DKe, stat, msg)
+      DKe = DKe * pore%porosity / pore%tortuosity
+      a = 1 - sqrt(M(1) / M(2))
+      b = 1 + De / DKe
+      cc = 1e5_c_double / (8.31446261815324_c_double * 300)
+      ref = De * cc / a * log((b - a * xLs(1)) / (b - a * x0s(1))) / 1e-3_c_double
+      call check(abs(Ns(1) - ref) <= 1e-8_c_double * abs(ref), 'slab = isobaric closed form')
+    end block
     pore%porosity = 1.5_c_double
     N = GUARD
     call mcd_dgm_fluxes(ws, pore, 2, 1, 300.0_c_double, 1e5_c_double, 2e-5_c_double, M, &

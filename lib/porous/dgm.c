@@ -94,8 +94,8 @@ static mcd_status dgm_check_head(mcd_workspace *ws, const mcd_pore *pore,
 
 /* The state's derived values in the workspace: xn, DK, kv, H, and the
  * projected gradients gx when need_gx. Inputs checked. */
-static void dgm_prepare(const mcd_dgm *g, const mcdi_pore_eff *e, int need_gx,
-                        mcdi_pm *pm)
+void mcdi_dgm_prepare(const mcd_dgm *g, const mcdi_pore_eff *e, int need_gx,
+                      mcdi_pm *pm)
 {
     size_t n = g->n_species, nd = g->n_dim, i, j, k;
     mcdi_comp_scale_to_one(n, g->x, pm->xn);
@@ -141,7 +141,7 @@ static mcd_status dgm_setup(mcd_workspace *ws, const mcd_pore *pore,
         (st = dgm_check_state(ws, g, e, need_gx)) != MCD_OK)
         return st;
     mcdi_pm_scratch(ws, pm);
-    dgm_prepare(g, e, need_gx, pm);
+    mcdi_dgm_prepare(g, e, need_gx, pm);
     return MCD_OK;
 }
 
@@ -290,7 +290,7 @@ mcd_status mcdi_api_dgm_fluxes_batch(mcd_workspace *ws, const mcd_pore *pore,
     }
     for (k = 0; k < K; k++) {
         dgm_gather(cells, n, M, k, &pm, &g);
-        dgm_prepare(&g, &e, 1, &pm);
+        mcdi_dgm_prepare(&g, &e, 1, &pm);
         if ((st = dgm_forward(&g, &pm)) != MCD_OK) {
             char msg[MCDI_ERRLEN];
             memcpy(msg, mcdi_err_text(), sizeof msg);
@@ -375,6 +375,25 @@ mcd_status mcdi_api_dgm_closed(mcd_workspace *ws, const mcd_pore *pore,
  * then have a flux only through its own gradient, which is what this
  * gives; the gradients sum to zero to round-off.
  */
+void mcdi_dgm_grad1(const mcd_dgm *g, const mcdi_pm *pm, const double *N,
+                    double *out_gx, double *out_gP)
+{
+    size_t n = g->n_species, i, j;
+    double RT = MCD_GAS_CONSTANT * g->T, sxk = 0.0, s = 0.0, gP;
+    for (i = 0; i < n; i++) {
+        sxk += pm->xn[i] * pm->kv[i];
+        s += N[i] / pm->DK[i];
+    }
+    gP = -RT * s / sxk;
+    for (i = 0; i < n; i++) {
+        double r = 0.0;
+        for (j = 0; j < n; j++)
+            r += pm->H[i * n + j] * N[j];
+        out_gx[i] = -(RT * r + pm->xn[i] * pm->kv[i] * gP) / g->P;
+    }
+    *out_gP = gP;
+}
+
 mcd_status mcdi_api_dgm_gradients(mcd_workspace *ws, const mcd_pore *pore,
                                   const mcd_dgm *dgm, const double *N,
                                   double *out_grad_x, double *out_grad_P)

@@ -785,6 +785,18 @@ class Porous(unittest.TestCase):
             Nk = rows(mcdiff.dgm_fluxes([[0, Dk], [Dk, 0]], M, xk, gk, Tk,
                                         Pk, mk, **pore))
             self.assertEqual([Nb[0][k], Nb[1][k]], Nk)
+        # slab with equal end pressures: the isobaric binary closed form
+        # (Cunningham and Williams 1980)
+        r = mcdiff.slab_solve(D, M, [0.8, 0.2], 1e5, [0.1, 0.9], 1e5, 300.0,
+                              2e-5, 1e-3, **pore)
+        De = 7e-5 * 0.4 / 3
+        DKe = mcdiff.knudsen_diffusivity(300.0, M[0], 1e-7) * 0.4 / 3
+        a, b, cc = 1 - math.sqrt(M[0] / M[1]), 1 + De / DKe, 1e5 / (R * 300)
+        ref = De * cc / a * math.log((b - a * 0.1) / (b - a * 0.8)) / 1e-3
+        self.assertAlmostEqual(flat(r.N)[0], ref, delta=1e-8 * abs(ref))
+        xs, Ps = mcdiff.slab_profile(D, M, [0.8, 0.2], 1e5, r.N,
+                                     [0.0, 1e-3], 300.0, 2e-5, 1e-3, **pore)
+        self.assertAlmostEqual(rows(xs)[1][0], 0.1, delta=1e-8)
         with self.assertRaises(mcdiff.DomainError) as cm:
             mcdiff.dgm_fluxes(D, M, x, [-20.0, 20.0], 300.0, 1e5, 2e-5,
                               porosity=1.5, tortuosity=3.0, d_pore=1e-7)

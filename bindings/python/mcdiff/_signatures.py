@@ -17,6 +17,7 @@ __all__ = [
     "mcd_pore",
     "mcd_dgm",
     "mcd_dgm_cells",
+    "mcd_slab",
 ]
 
 _D = ctypes.c_double
@@ -255,6 +256,10 @@ SIGNATURES = {
     "mcd_dgm_gradients": (_ST, [_H, _H, _H, _PD, _PD, _PD]),
     # (ws, pore, n_species, M, cells, out_N)
     "mcd_dgm_fluxes_batch": (_ST, [_H, _H, _SZ, _PD, _H, _PD]),
+    # (ws, pore, slab, kind, species, value, out_N, out_PL, out_iterations)
+    "mcd_slab_solve": (_ST, [_H, _H, _H, _E, _SZ, _D, _PD, _PD, _PSZ]),
+    # (ws, pore, slab, N, n_points, z, out_x, out_P)
+    "mcd_slab_profile": (_ST, [_H, _H, _H, _PD, _SZ, _PD, _PD, _PD]),
 }
 
 
@@ -351,4 +356,21 @@ class mcd_dgm_cells(ctypes.Structure):
         ("x", ctypes.POINTER(ctypes.c_double)),
         ("grad_x", ctypes.POINTER(ctypes.c_double)),
         ("grad_P", ctypes.POINTER(ctypes.c_double)),
+    ]
+
+
+class mcd_slab(ctypes.Structure):
+    """struct mcd_slab of include/mcdiff.h."""
+    _fields_ = [
+        ("n_species", ctypes.c_size_t),
+        ("T", ctypes.c_double),
+        ("mu", ctypes.c_double),
+        ("L", ctypes.c_double),
+        ("P_ref", ctypes.c_double),
+        ("M", ctypes.POINTER(ctypes.c_double)),
+        ("Dij", ctypes.POINTER(ctypes.c_double)),
+        ("x0", ctypes.POINTER(ctypes.c_double)),
+        ("P0", ctypes.c_double),
+        ("xL", ctypes.POINTER(ctypes.c_double)),
+        ("PL", ctypes.c_double),
     ]

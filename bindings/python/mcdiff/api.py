@@ -19,7 +19,7 @@ from . import _arrays
 from ._arrays import np
 from ._native import lib
 from ._signatures import (mcd_bulbs, mcd_cells, mcd_dgm, mcd_dgm_cells,
-                          mcd_film, mcd_pore, mcd_state)
+                          mcd_film, mcd_pore, mcd_slab, mcd_state)
 from .enums import (Basis, Bootstrap, Diag, FilmBootstrap, FilmMethod, Method,
                     Model, Warning, coerce)
 from .errors import error_for
@@ -53,9 +53,10 @@ __all__ = [
     # porous media
     "pore_permeability", "pore_effective", "knudsen_diffusivity", "bosanquet",
     "dgm_fluxes", "dgm_closed", "dgm_gradients", "dgm_fluxes_batch",
+    "slab_solve", "slab_profile",
     # results
     "FickMatrix", "TotalFlux", "ProjectedFlux", "FilmResult", "BulbsResult",
-    "ViscosityEstimate", "DgmClosed", "DgmGradients",
+    "ViscosityEstimate", "DgmClosed", "DgmGradients", "SlabResult",
     "default_workspace",
 ]
 
@@ -1094,3 +1095,68 @@ def dgm_fluxes_batch(Dij, M, x, grad_x, T, P, mu, *, porosity, tortuosity,
                                   ctypes.byref(cells), o.ptr)
     ws.check(st, "mcd_dgm_fluxes_batch")
     return o.result()
+
+
+SlabResult = collections.namedtuple("SlabResult", "N PL iterations")
+SlabResult.__doc__ = """Steady fluxes N [mol/(m^2 s)] through a porous slab,
+the pressure PL [Pa] at z = L, and the Newton iterations used."""
+_SLAB_KINDS = {"pressures": 0, "stagnant": 1, "total": 2}
+
+
+def _slab(Dij, M, x0, P0, xL, PL, T, mu, L, P_ref):
+    a0 = _arrays.vector(x0, None, "x0")
+    n = a0.shape[0]
+    keep = {"x0": a0, "M": _arrays.vector(M, n, "M"),
+            "D": _arrays.matrix(Dij, n, n, "Dij"),
+            "xL": _arrays.vector(x0 if xL is None else xL, n, "xL")}
+    sl = mcd_slab(n_species=n, T=_sc(T, "T"), mu=_sc(mu, "mu"),
+                  L=_sc(L, "L"), P_ref=_sc(P0 if P_ref is None else P_ref,
+                                           "P_ref"),
+                  M=keep["M"].ptr, Dij=keep["D"].ptr, x0=a0.ptr,
+                  P0=_sc(P0, "P0"), xL=keep["xL"].ptr,
+                  PL=_sc(P0 if PL is None else PL, "PL"))
+    return n, sl, keep
+
+
+def slab_solve(Dij, M, x0, P0, xL, PL, T, mu, L, *, porosity, tortuosity,
+               d_pore, permeability=0.0, P_ref=None, kind="pressures",
+               species=0, value=0.0, workspace=None):
+    """Steady Dusty Gas Model fluxes through a porous slab of thickness L
+    [m] between (x0, P0 [Pa]) and (xL, PL) (mcd_slab_solve). Dij: open-gas
+    binary diffusivities [m^2/s] at P_ref (default P0); mu [Pa s]
+    constant. kind: "pressures" (both end pressures given), "stagnant"
+    (species does not move; PL ignored and returned) or "total" (sum N =
+    value). Returns SlabResult(N, PL, iterations)."""
+    if kind not in _SLAB_KINDS:
+        raise ValueError("kind: one of %s" % ", ".join(_SLAB_KINDS))
+    n, sl, keep = _slab(Dij, M, x0, P0, xL, PL, T, mu, L, P_ref)
+    p = _pore(porosity, tortuosity, d_pore, permeability)
+    ws = _ws(workspace, n)
+    o = _arrays.Output((n,))
+    pl = ctypes.c_double()
+    it = ctypes.c_size_t()
+    st = lib.mcd_slab_solve(ws._p(), ctypes.byref(p), ctypes.byref(sl),
+                            _SLAB_KINDS[kind], int(species),
+                            _sc(value, "value"), o.ptr, ctypes.byref(pl),
+                            ctypes.byref(it))
+    ws.check(st, "mcd_slab_solve")
+    return SlabResult(o.result(), pl.value, it.value)
+
+
+def slab_profile(Dij, M, x0, P0, N, z, T, mu, L, *, porosity, tortuosity,
+                 d_pore, permeability=0.0, P_ref=None, workspace=None):
+    """Profile across a porous slab for fluxes N (mcd_slab_profile):
+    (x, P) with x an (n_points x n) array and P the pressures [Pa] at the
+    positions z [m] in [0, L]."""
+    n, sl, keep = _slab(Dij, M, x0, P0, None, None, T, mu, L, P_ref)
+    p = _pore(porosity, tortuosity, d_pore, permeability)
+    fl = _arrays.vector(N, n, "N")
+    zz = _arrays.vector([z] if isinstance(z, (int, float)) else z, None, "z")
+    npt = zz.shape[0]
+    ws = _ws(workspace, n)
+    ox = _arrays.Output((npt, n))
+    oP = _arrays.Output((npt,))
+    st = lib.mcd_slab_profile(ws._p(), ctypes.byref(p), ctypes.byref(sl),
+                              fl.ptr, npt, zz.ptr, ox.ptr, oP.ptr)
+    ws.check(st, "mcd_slab_profile")
+    return ox.result(), oP.result()
