@@ -908,6 +908,54 @@ START_TEST(porous_slab_matches_independent_shooting)
 }
 END_TEST
 
+START_TEST(porous_slab_small_differences_match_single_state)
+{
+    /* ends close together (x_L = x_0 + eps d, P_L = P_0 (1 - eps)): the
+     * slab's fluxes equal the single-state fluxes at the mean state with
+     * the mean gradients to O(eps^2) relative (the profile's curvature);
+     * eps = 1e-4, bound 1e-6 (100 eps^2 plus the slab's 1e-10
+     * refinement). */
+    for (int rep = 0; rep < 20; rep++) {
+        size_t n = 2 + rep % 3;
+        rslab r;
+        double N[NMAX], N1[NMAX], d[NMAX], eps = 1e-4;
+        random_slab(&r, n, sup_log_uniform(&rng, 1e-8, 1e-4), 0.0);
+        sup_gradients_zero_mean(&rng, n, 1, -1.0, 1.0, d);
+        for (size_t i = 0; i < n; i++)
+            r.xL[i] = r.s.x[i] + eps * d[i];
+        r.sl.PL = r.sl.P0 * (1 - eps);
+        ck_assert_int_eq(mcd_slab_solve(ws, &r.s.p, &r.sl, MCD_SLAB_PRESSURES,
+                                        0, 0.0, N, NULL, NULL),
+                         MCD_OK);
+        double xm[NMAX], gm[NMAX], Dm[NMAX * NMAX];
+        double Pm = 0.5 * (r.sl.P0 + r.sl.PL),
+               gP = (r.sl.PL - r.sl.P0) / r.sl.L;
+        for (size_t i = 0; i < n; i++) {
+            xm[i] = 0.5 * (r.s.x[i] + r.xL[i]);
+            gm[i] = (r.xL[i] - r.s.x[i]) / r.sl.L;
+        }
+        for (size_t e = 0; e < n * n; e++)
+            Dm[e] = r.s.D[e] * r.sl.P_ref / Pm;
+        mcd_dgm g = {.n_species = n,
+                     .n_dim = 1,
+                     .T = r.sl.T,
+                     .P = Pm,
+                     .mu = r.sl.mu,
+                     .M = r.s.M,
+                     .Dij = Dm,
+                     .x = xm,
+                     .grad_x = gm,
+                     .grad_P = &gP};
+        ck_assert_int_eq(mcd_dgm_fluxes(ws, &r.s.p, &g, N1), MCD_OK);
+        double big = sup_max_abs(N1, n);
+        for (size_t i = 0; i < n; i++)
+            ck_assert_msg(fabs(N[i] - N1[i]) <= 1e-6 * big,
+                          "rep %d species %zu: slab %.12g, single %.12g", rep,
+                          i, N[i], N1[i]);
+    }
+}
+END_TEST
+
 START_TEST(porous_slab_bootstraps)
 {
     /* STAGNANT: the named flux is 0 and the profile ends at xL; TOTAL: the
@@ -1085,6 +1133,7 @@ static Suite *porous_suite(void)
     tcase_add_test(tc, porous_slab_isobaric_binary_closed_form);
     tcase_add_test(tc, porous_slab_matches_independent_shooting);
     tcase_add_test(tc, porous_slab_bootstraps);
+    tcase_add_test(tc, porous_slab_small_differences_match_single_state);
     tcase_add_test(tc, porous_errors_name_argument_and_leave_outputs);
     suite_add_tcase(s, tc);
     return s;
