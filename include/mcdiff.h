@@ -492,6 +492,78 @@ MCD_API mcd_status mcd_mixture_binaries(const mcd_mixture *mix, double T,
                                         unsigned *out_warn);
 
 /* ------------------------------------------------------------------ */
+/* Gas viscosity                                                       */
+/* ------------------------------------------------------------------ */
+
+/** Typical relative error of a pure-gas viscosity by Chapman-Enskog with
+ *  Lennard-Jones parameters fitted to viscosity, for non-polar gases
+ *  (Poling, Prausnitz and O'Connell 2001, sec. 9-4, from memory). Polar
+ *  gases are flagged MCD_WARN_POLAR and are worse. Since 0.3. */
+#define MCD_VISC_CE_TYPICAL_ERROR 0.015
+/** Typical relative error added by Wilke's mixing rule for non-polar
+ *  mixtures (same source, sec. 9-5, from memory); mixtures of H2 or He
+ *  with heavy gases are worse. Since 0.3. */
+#define MCD_VISC_WILKE_TYPICAL_ERROR 0.02
+
+/** Neufeld-Janzen-Aziz (1972) fit of the Lennard-Jones collision integral
+ *  Omega(2,2)* for viscosity, valid 0.3 <= T* <= 100 (T* = k T / eps).
+ *  Since 0.3.
+ *  Fails: EINVAL (NULL, NaN), EDOM (T* <= 0) | Allocates: no */
+MCD_API mcd_status mcd_viscosity_omega22(double T_star, double *out_omega);
+
+/** Viscosity [Pa s] of a pure gas at low pressure by the first
+ *  Chapman-Enskog approximation, mu = (5/16) sqrt(M k T / (pi N_A)) /
+ *  (sigma^2 Omega(2,2)*(T / eps_k)). Typical error
+ *  MCD_VISC_CE_TYPICAL_ERROR for non-polar gases. Since 0.3.
+ *  @param T      temperature [K], > 0.
+ *  @param M      molar mass [kg/mol], > 0.
+ *  @param sigma  Lennard-Jones sigma [m], > 0.
+ *  @param eps_k  Lennard-Jones epsilon/k [K], > 0.
+ *  @param out_mu viscosity [Pa s].
+ *  Fails: EINVAL (NULL, NaN), EDOM (non-positive input, overflow)
+ *  | Allocates: no */
+MCD_API mcd_status mcd_viscosity_chapman_enskog(double T, double M,
+                                                double sigma, double eps_k,
+                                                double *out_mu);
+
+/** Viscosity [Pa s] of a gas mixture from its species' viscosities by
+ *  Wilke's (1950) mixing rule: mu = sum_i x_i mu_i / sum_j x_j Phi_ij,
+ *  Phi_ij = [1 + (mu_i/mu_j)^(1/2) (M_j/M_i)^(1/4)]^2 / [8 (1 +
+ *  M_i/M_j)]^(1/2). Typical error MCD_VISC_WILKE_TYPICAL_ERROR beyond the
+ *  species' own. Since 0.3.
+ *  @param n_species  N, 1..MCD_MAX_SPECIES.
+ *  @param M      molar masses [kg/mol], length N, > 0.
+ *  @param mu     species viscosities [Pa s] at the mixture's T, length N,
+ *                > 0 (measured, or from mcd_viscosity_chapman_enskog).
+ *  @param x      mole fractions, length N, validated as mcd_comp_normalize.
+ *  @param out_mu mixture viscosity [Pa s].
+ *  Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_viscosity_wilke(size_t n_species, const double *M,
+                                       const double *mu, const double *x,
+                                       double *out_mu);
+
+/** Viscosity [Pa s] of species i of a database at low pressure by
+ *  Chapman-Enskog from its molar mass and Lennard-Jones parameters.
+ *  Since 0.3.
+ *  @param out_rel_err  MCD_VISC_CE_TYPICAL_ERROR (may be NULL).
+ *  @param out_warn     MCD_WARN_* bits: TEMPERATURE (T* outside the fit
+ *                      range), POLAR (dipole > 1 debye), QUANTUM (H2, D2,
+ *                      He below 100 K), ASSOCIATING (may be NULL).
+ *  Fails: EINVAL, EDOM, ENOTFOUND (index), ENODATA (M, sigma or eps/k
+ *  missing) | Allocates: no */
+MCD_API mcd_status mcd_db_viscosity_gas(const mcd_db *db, size_t i, double T,
+                                        double *out_mu, double *out_rel_err,
+                                        unsigned *out_warn);
+
+/** Viscosities [Pa s] of every species of a mixture at T, as
+ *  mcd_db_viscosity_gas (out_mu length N, written only when every species
+ *  succeeds); out_warn is the OR of their warning bits (may be NULL). Pass
+ *  them to mcd_viscosity_wilke for the mixture's viscosity. Since 0.3.
+ *  Fails: EINVAL, EDOM, ENODATA | Allocates: no */
+MCD_API mcd_status mcd_mixture_viscosities(const mcd_mixture *mix, double T,
+                                           double *out_mu, unsigned *out_warn);
+
+/* ------------------------------------------------------------------ */
 /* Workspaces                                                          */
 /* ------------------------------------------------------------------ */
 
@@ -1456,6 +1528,271 @@ MCD_API mcd_status mcd_binary_tyn_calus(double T, double mu_solvent,
  *  Fails: EINVAL, EDOM | Allocates: no */
 MCD_API mcd_status mcd_binary_hayduk_minhas(double T, double mu_water,
                                             double Vb_solute, double *out_D);
+
+/* ------------------------------------------------------------------ */
+/* Porous media: Knudsen diffusion and the Dusty Gas Model             */
+/* ------------------------------------------------------------------ */
+
+/*
+ * Gas transport in the pores of a catalyst pellet, electrode, membrane
+ * support or adsorbent, where molecules hit the walls as often as each
+ * other and a pressure gradient drives viscous flow. The Dusty Gas Model
+ * (Mason and Malinauskas 1983) treats the walls as one more, motionless
+ * species. Isothermal ideal gas; for total molar fluxes N_i
+ * [mol/(m^2 s)] per unit cross-section of the medium:
+ *   sum_{j != i} (x_j N_i - x_i N_j) / D^e_ij + N_i / D^e_K,i
+ *       = -(1/(R T)) [P grad x_i + x_i (1 + B0 P / (mu D^e_K,i)) grad P],
+ * with effective binary diffusivities D^e_ij = (porosity/tortuosity) Đ_ij,
+ * effective Knudsen diffusivities D^e_K,i = (porosity/tortuosity)
+ * (d_pore/3) sqrt(8 R T / (pi M_i)), the permeability B0 and the mixture
+ * viscosity mu. Limits: tiny pores give Knudsen diffusion,
+ * N_i = -D^e_K,i grad c_i; large pores without a pressure gradient give
+ * the open-gas Maxwell-Stefan fluxes scaled by porosity/tortuosity; a
+ * uniform composition under a pressure gradient gives Darcy flow plus
+ * Knudsen slip. Under a uniform pressure, sum_i N_i sqrt(M_i) = 0 at
+ * every pore size (Graham's law of diffusion).
+ *
+ * Cautions: porosity, tortuosity, pore diameter and permeability are
+ * properties of the medium that are usually FITTED to permeation and
+ * diffusion measurements of that medium; the parallel-pore relations used
+ * when they are not given are rough. Results are estimates for design
+ * studies, not a substitute for measured data, and designs that handle
+ * toxic, flammable or pressurised gases need validated data, the
+ * applicable codes and licensed engineering review.
+ */
+
+/** Pore structure of a porous medium (the caller's values; usually
+ *  fitted). Zero-initialise it and set the fields. Since 0.3. */
+typedef struct mcd_pore {
+    double porosity;     /**< void fraction epsilon [-], in (0, 1] */
+    double tortuosity;   /**< tortuosity factor tau [-], >= 1 */
+    double d_pore;       /**< mean pore diameter [m], > 0 */
+    double permeability; /**< B0 [m^2] of the medium, > 0; or 0: from the
+                              pore diameter for a bundle of straight
+                              cylindrical pores (Poiseuille),
+                              B0 = (porosity/tortuosity) d_pore^2 / 32
+                              (d_pore^2/32 for one straight pore) */
+} mcd_pore;
+
+/** Permeability B0 [m^2] that the Dusty Gas Model calls use for a pore
+ *  structure (given, or from d_pore as documented in mcd_pore); also the
+ *  check of a pore structure. Since 0.3.
+ *  Fails: EINVAL (NULL, NaN), EDOM (porosity outside (0, 1], tortuosity
+ *  < 1, d_pore <= 0, permeability < 0) | Allocates: no */
+MCD_API mcd_status mcd_pore_permeability(const mcd_pore *pore,
+                                         double *out_B0);
+
+/** Effective diffusivity D^e = (porosity/tortuosity) D [m^2/s] of an open
+ *  gas (binary or Knudsen) diffusivity D [m^2/s] (> 0). Since 0.3.
+ *  Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_pore_effective(const mcd_pore *pore, double D,
+                                      double *out_De);
+
+/** Knudsen diffusivity [m^2/s] of a gas in a cylindrical pore,
+ *  D_K = (d_pore/3) sqrt(8 R T / (pi M)) (not yet scaled by
+ *  porosity/tortuosity; see mcd_pore_effective). Since 0.3.
+ *  @param T [K] > 0; @param M [kg/mol] > 0; @param d_pore [m] > 0.
+ *  Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_knudsen_diffusivity(double T, double M, double d_pore,
+                                           double *out_DK);
+
+/** Bosanquet interpolation 1/D = 1/D_m + 1/D_K [m^2/s] between a
+ *  molecular diffusivity D_m (e.g. a species' mixture diffusivity) and its
+ *  Knudsen diffusivity D_K, both > 0. A simpler alternative to the Dusty
+ *  Gas Model: exact for a trace species under a uniform pressure,
+ *  otherwise an approximation that misses the coupling of the fluxes
+ *  (Graham's law) and the viscous flux. Since 0.3.
+ *  Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_bosanquet(double D_m, double D_K, double *out_D);
+
+/** One state of a gas in a porous medium: the input of the mcd_dgm_*
+ *  calls. Zero-initialise it and set the fields; pointers are borrowed
+ *  for the call. Since 0.3. */
+typedef struct mcd_dgm {
+    size_t n_species;     /**< N, 1..capacity of the workspace */
+    size_t n_dim;         /**< directions, 1..MCD_MAX_DIM */
+    double T;             /**< temperature [K], > 0 (uniform) */
+    double P;             /**< pressure [Pa], > 0 */
+    double mu;            /**< mixture viscosity [Pa s], > 0 (the caller's
+                               value, or mcd_viscosity_wilke) */
+    const double *M;      /**< molar masses [kg/mol], N */
+    const double *Dij;    /**< open-gas binary diffusivities at (T, P)
+                               [m^2/s], N x N, as for mcd_flux_compute
+                               (not yet scaled by porosity/tortuosity) */
+    const double *x;      /**< mole fractions, N (as mcd_comp_normalize) */
+    const double *grad_x; /**< their gradients [1/m], N x n_dim (projected
+                               onto sum_i grad x_i = 0 by grad x_i -= x_i
+                               sum_k grad x_k); unused by
+                               mcd_dgm_gradients */
+    const double *grad_P; /**< pressure gradient [Pa/m], n_dim, or NULL
+                               (uniform pressure); used by mcd_dgm_fluxes
+                               only */
+} mcd_dgm;
+
+/** Total molar fluxes N_i [mol/(m^2 s)] (per unit cross-section of the
+ *  medium) at one state by the Dusty Gas Model (equations above), for
+ *  given composition and pressure gradients. With grad_P NULL or zero
+ *  this is the isobaric case: the total flux N_t = sum N_i is then the
+ *  unknown the model fixes (Graham's law). Solved by Gaussian elimination
+ *  of the N x N column-dominant matrix in the workspace (no pivoting
+ *  needed, no allocation). Since 0.3.
+ *  @param ws     workspace with capacity >= dgm->n_species.
+ *  @param pore   pore structure (checked as mcd_pore_permeability).
+ *  @param dgm    the state; messages name its fields ("argument mu: ...").
+ *  @param out_N  N x n_dim total molar fluxes.
+ *  Fails: EINVAL (NULL, NaN, counts), EBADLEN (N > capacity), EDOM (out
+ *  of range, overflow), ESING | Allocates: no | Threads: one ws per
+ *  thread */
+MCD_API mcd_status mcd_dgm_fluxes(mcd_workspace *ws, const mcd_pore *pore,
+                                  const mcd_dgm *dgm, double *out_N);
+
+/** Dusty Gas Model with the total flux given and the pressure gradient
+ *  unknown: the closed-end case (N_t = 0: a dead-end pore or a closed
+ *  diffusion cell, where a pressure gradient builds up) or a known net
+ *  flow. dgm->grad_P is ignored. Since 0.3.
+ *  @param N_t        total molar flux sum_i N_i [mol/(m^2 s)], n_dim.
+ *  @param out_N      N x n_dim total molar fluxes.
+ *  @param out_grad_P the pressure gradient [Pa/m] that carries them,
+ *                    n_dim.
+ *  Other parameters and failures as mcd_dgm_fluxes. Since 0.3.
+ *  Fails: EINVAL, EBADLEN, EDOM, ESING | Allocates: no */
+MCD_API mcd_status mcd_dgm_closed(mcd_workspace *ws, const mcd_pore *pore,
+                                  const mcd_dgm *dgm, const double *N_t,
+                                  double *out_N, double *out_grad_P);
+
+/** Inverse Dusty Gas Model: the mole-fraction gradients and the pressure
+ *  gradient that carry given total fluxes N at the state dgm (whose
+ *  grad_x and grad_P are ignored). Explicit, no solve: grad P from the sum
+ *  of the equations (sum_i N_i / D^e_K,i), then grad x_i from equation i.
+ *  The gradients sum to zero to round-off; mcd_dgm_fluxes with them
+ *  returns N. Since 0.3.
+ *  @param N           total molar fluxes [mol/(m^2 s)], N x n_dim.
+ *  @param out_grad_x  N x n_dim [1/m].
+ *  @param out_grad_P  n_dim [Pa/m].
+ *  Fails: EINVAL, EBADLEN, EDOM | Allocates: no */
+MCD_API mcd_status mcd_dgm_gradients(mcd_workspace *ws, const mcd_pore *pore,
+                                     const mcd_dgm *dgm, const double *N,
+                                     double *out_grad_x, double *out_grad_P);
+
+/** Many states ("cells") of one gas mixture in one porous medium: the
+ *  input of mcd_dgm_fluxes_batch, in the structure-of-arrays layout of
+ *  the batched flux calls (K = n_cells, N species): every quantity is a
+ *  contiguous row of K values. Zero-initialise it and set the fields.
+ *  Since 0.3. */
+typedef struct mcd_dgm_cells {
+    size_t n_cells;       /**< K (0 is allowed and writes nothing) */
+    size_t n_dim;         /**< 1..MCD_MAX_DIM */
+    const double *T;      /**< temperatures [K], K */
+    const double *P;      /**< pressures [Pa], K */
+    const double *mu;     /**< mixture viscosities [Pa s], K */
+    const double *Dij;    /**< open-gas binary diffusivities [m^2/s],
+                               (N N) x K: Dij[(i*N + j)*K + k] */
+    const double *x;      /**< mole fractions, N x K: x[i*K + k] */
+    const double *grad_x; /**< gradients [1/m], (N n_dim) x K:
+                               grad_x[(i*n_dim + d)*K + k] */
+    const double *grad_P; /**< pressure gradients [Pa/m], n_dim x K, or
+                               NULL (uniform pressure in every cell) */
+} mcd_dgm_cells;
+
+/** Dusty Gas Model fluxes of K cells (mcd_dgm_fluxes for each; the same
+ *  code, so the same values). Each cell is gathered into the workspace:
+ *  no allocation. Every cell is checked before any output is written, so
+ *  bad input leaves out_N untouched and mcd_last_error() names the first
+ *  bad cell ("cell 17: argument x: ..."); only an overflow inside a
+ *  cell's solve (EDOM, ESING: extreme but valid input) can leave the
+ *  cells before it written. Since 0.3.
+ *  @param pore       pore structure shared by all cells.
+ *  @param n_species  N, 1..capacity of ws.
+ *  @param M          molar masses [kg/mol], N, shared by all cells.
+ *  @param cells      the cells (mcd_dgm_cells).
+ *  @param out_N      total molar fluxes [mol/(m^2 s)], (N n_dim) x K:
+ *                    out_N[(i*n_dim + d)*K + k].
+ *  Fails: EINVAL, EBADLEN, EDOM, ESING | Allocates: no | Threads: one ws
+ *  per thread */
+MCD_API mcd_status mcd_dgm_fluxes_batch(mcd_workspace *ws,
+                                        const mcd_pore *pore, size_t n_species,
+                                        const double *M,
+                                        const mcd_dgm_cells *cells,
+                                        double *out_N);
+
+/*
+ * Porous slab: steady Dusty Gas Model fluxes through an isothermal slab of
+ * thickness L between two gas states, x0 and P0 at z = 0 and xL (and PL)
+ * at z = L. The total fluxes N_i are constant across the slab (no
+ * reaction). Open-gas binary diffusivities follow the low-pressure law
+ * Đ_ij(P) = Đ_ij(P_ref) P_ref / P along the slab; the mixture viscosity
+ * is taken constant (the caller's value, e.g. at the mean composition).
+ * The same cautions as for the single-state calls apply.
+ */
+
+/** Which condition completes a slab problem (mcd_slab_solve). */
+typedef enum mcd_slab_kind {
+    MCD_SLAB_PRESSURES = 0, /**< both end pressures given: the model fixes
+                                 every flux (no bootstrap needed) */
+    MCD_SLAB_STAGNANT = 1,  /**< species `species` does not move; PL is a
+                                 result */
+    MCD_SLAB_TOTAL = 2      /**< sum_i N_i = value [mol/(m^2 s)]; PL is a
+                                 result */
+} mcd_slab_kind;
+
+/** A porous slab and its end states: the input of mcd_slab_solve and
+ *  mcd_slab_profile. Zero-initialise it and set the fields. Since 0.3. */
+typedef struct mcd_slab {
+    size_t n_species;  /**< N, 1..capacity of the workspace */
+    double T;          /**< temperature [K], > 0 (uniform) */
+    double mu;         /**< mixture viscosity [Pa s], > 0 (constant) */
+    double L;          /**< slab thickness [m], > 0 */
+    double P_ref;      /**< pressure [Pa] at which Dij are given, > 0 */
+    const double *M;   /**< molar masses [kg/mol], N */
+    const double *Dij; /**< open-gas binary diffusivities at P_ref
+                            [m^2/s], N x N */
+    const double *x0;  /**< mole fractions at z = 0, N */
+    double P0;         /**< pressure at z = 0 [Pa], > 0 */
+    const double *xL;  /**< mole fractions at z = L, N (mcd_slab_solve) */
+    double PL;         /**< pressure at z = L [Pa], > 0 (PRESSURES) */
+} mcd_slab;
+
+/** Steady fluxes through a porous slab by the Dusty Gas Model: a
+ *  converged numerical solution of the boundary-value problem (shooting:
+ *  the ODE dy/dz = f(y; N) for y = (x, P) from the explicit inverse model,
+ *  fourth-order Runge-Kutta with the step count doubled until the fluxes
+ *  change by less than 1e-10 relative, Newton's method on N to end
+ *  residuals of 1e-12). Since 0.3.
+ *  @param ws       workspace with capacity >= slab->n_species.
+ *  @param pore     pore structure (as mcd_pore_permeability).
+ *  @param slab     the slab and its end states; messages name its fields.
+ *  @param kind     MCD_SLAB_PRESSURES, _STAGNANT or _TOTAL.
+ *  @param species  STAGNANT: the species that does not move.
+ *  @param value    TOTAL: sum_i N_i [mol/(m^2 s)]; ignored otherwise.
+ *  @param out_N    total molar fluxes [mol/(m^2 s)], N, positive towards
+ *                  z = L.
+ *  @param out_PL   pressure at z = L [Pa] (the given one for PRESSURES;
+ *                  may be NULL).
+ *  @param out_iterations  Newton iterations over all step counts (may be
+ *                  NULL).
+ *  Fails: EINVAL, EBADLEN, EDOM (out of range; the pressure going
+ *  negative inside the slab), ESING, ENOCONV (Newton stalls, e.g. end
+ *  states no steady flux connects) | Allocates: no | Threads: one ws per
+ *  thread */
+MCD_API mcd_status mcd_slab_solve(mcd_workspace *ws, const mcd_pore *pore,
+                                  const mcd_slab *slab, mcd_slab_kind kind,
+                                  size_t species, double value, double *out_N,
+                                  double *out_PL, size_t *out_iterations);
+
+/** Profile across a slab for given fluxes N (e.g. from mcd_slab_solve):
+ *  the ODE integrated from z = 0 (x0, P0) by fourth-order Runge-Kutta
+ *  with steps of at most L/1024. xL and PL are not used. Since 0.3.
+ *  @param N         total molar fluxes [mol/(m^2 s)], N.
+ *  @param n_points  number of positions (0 writes nothing).
+ *  @param z         positions [m], each in [0, L].
+ *  @param out_x     mole fractions, n_points x N (row = position).
+ *  @param out_P     pressures [Pa], n_points.
+ *  Fails: EINVAL, EBADLEN, EDOM (also a pressure going negative) |
+ *  Allocates: no */
+MCD_API mcd_status mcd_slab_profile(mcd_workspace *ws, const mcd_pore *pore,
+                                    const mcd_slab *slab, const double *N,
+                                    size_t n_points, const double *z,
+                                    double *out_x, double *out_P);
 
 #ifdef __cplusplus
 }

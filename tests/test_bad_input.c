@@ -89,7 +89,9 @@ enum {
     NB_LIQ,
     NB_OLIQ,
     NB_CIJ,
-    NB_LIQ2
+    NB_LIQ2,
+    NB_PORE,
+    NB_DGM
 };
 
 /* Every output of every call (guarded as one block). */
@@ -140,6 +142,12 @@ typedef struct ctx {
     double Gamma[NA * NA], glnP[3], vals[NA], Vbar[NA], J[NA * 3], Nf[NA];
     double zz[NA], tt[NA], F[NA * NA];
     double kT[NA], glnT[3], DT[NA];
+    /* porous media: pore structure, gas viscosity and species viscosities,
+     * pressure gradient (used when use_gp), total flux, a Knudsen
+     * diffusivity */
+    mcd_pore pore;
+    double mug, mus[NA], gP[3], Nt[3], Dk;
+    int use_gp;
     const char *formula, *name, *text, *path, *mname, *mol, *find;
     const char *names[NA];
     /* results */
@@ -786,6 +794,129 @@ static int call_mcd_mixture_temperature_fit(ctx *c)
 {
     return mcd_mixture_temperature_fit(ARG(mix, NB_MIX), OUT(o1, NB_O1),
                                        OUT(o2, NB_O2), OUT(o3, NB_O3));
+}
+
+static int call_mcd_viscosity_omega22(ctx *c)
+{
+    return mcd_viscosity_omega22(c->Tstar, OUT(o1, NB_O1));
+}
+static int call_mcd_viscosity_chapman_enskog(ctx *c)
+{
+    return mcd_viscosity_chapman_enskog(c->T, c->MA, c->sigA, c->epsA,
+                                        OUT(o1, NB_O1));
+}
+static int call_mcd_viscosity_wilke(ctx *c)
+{
+    return mcd_viscosity_wilke(c->n, ARG(M, NB_M), ARG(mus, NB_VALS),
+                               ARG(x, NB_X), OUT(o1, NB_O1));
+}
+static int call_mcd_db_viscosity_gas(ctx *c)
+{
+    return mcd_db_viscosity_gas(ARG(db, NB_DB), IDX(c->ga), c->T,
+                                OUT(o1, NB_O1), OUT(o2, NB_O2), OUT(ou, NB_OU));
+}
+static int call_mcd_mixture_viscosities(ctx *c)
+{
+    return mcd_mixture_viscosities(ARG(mix, NB_MIX), c->T, OUT(o1, NB_O1),
+                                   OUT(ou, NB_OU));
+}
+#define PORE (NUL_(NB_PORE) ? NULL : &c->pore)
+static int call_mcd_pore_permeability(ctx *c)
+{
+    return mcd_pore_permeability(PORE, OUT(o1, NB_O1));
+}
+static int call_mcd_pore_effective(ctx *c)
+{
+    return mcd_pore_effective(PORE, c->D_ref, OUT(o1, NB_O1));
+}
+static int call_mcd_knudsen_diffusivity(ctx *c)
+{
+    return mcd_knudsen_diffusivity(c->T, c->MA, c->pore.d_pore, OUT(o1, NB_O1));
+}
+static int call_mcd_bosanquet(ctx *c)
+{
+    return mcd_bosanquet(c->D_ref, c->Dk, OUT(o1, NB_O1));
+}
+/* The Dusty Gas Model state of the fixture (NULL with NB_DGM). */
+static const mcd_dgm *dgm_of(ctx *c, mcd_dgm *g)
+{
+    *g = (mcd_dgm){.n_species = c->n,
+                   .n_dim = c->nd,
+                   .T = c->T,
+                   .P = c->P,
+                   .mu = c->mug,
+                   .M = ARG(M, NB_M),
+                   .Dij = ARG(D, NB_D),
+                   .x = ARG(x, NB_X),
+                   .grad_x = ARG(grad, NB_GRAD),
+                   .grad_P = c->use_gp ? c->gP : NULL};
+    return NUL_(NB_DGM) ? NULL : g;
+}
+static int call_mcd_dgm_fluxes(ctx *c)
+{
+    mcd_dgm g;
+    return mcd_dgm_fluxes(WS, PORE, dgm_of(c, &g), OUT(o1, NB_O1));
+}
+static int call_mcd_dgm_closed(ctx *c)
+{
+    mcd_dgm g;
+    return mcd_dgm_closed(WS, PORE, dgm_of(c, &g), ARG(Nt, NB_NF),
+                          OUT(o1, NB_O1), OUT(o2, NB_O2));
+}
+static int call_mcd_dgm_gradients(ctx *c)
+{
+    mcd_dgm g;
+    return mcd_dgm_gradients(WS, PORE, dgm_of(c, &g), ARG(J, NB_J),
+                             OUT(o1, NB_O1), OUT(o2, NB_O2));
+}
+
+static int call_mcd_dgm_fluxes_batch(ctx *c)
+{
+    /* one cell: the fixture's state in SoA layout with K = 1 */
+    return mcd_dgm_fluxes_batch(
+        WS, PORE, c->n, ARG(M, NB_M),
+        NUL_(NB_DGM) ? NULL
+                     : &(mcd_dgm_cells){.n_cells = c->K,
+                                        .n_dim = c->nd,
+                                        .T = ARG(Tc, NB_T),
+                                        .P = c->Pc,
+                                        .mu = c->mus,
+                                        .Dij = ARG(D, NB_D),
+                                        .x = ARG(x, NB_X),
+                                        .grad_x = ARG(grad, NB_GRAD),
+                                        .grad_P = c->use_gp ? c->gP : NULL},
+        OUT(o1, NB_O1));
+}
+static const mcd_slab *slab_of(ctx *c, mcd_slab *sl)
+{
+    *sl = (mcd_slab){.n_species = c->n,
+                     .T = c->T,
+                     .mu = c->mug,
+                     .L = c->L,
+                     .P_ref = c->P_ref,
+                     .M = ARG(M, NB_M),
+                     .Dij = ARG(D, NB_D),
+                     .x0 = ARG(x, NB_X),
+                     .P0 = c->P,
+                     .xL = ARG(x2, NB_X2),
+                     .PL = c->Pc[1]};
+    return NUL_(NB_DGM) ? NULL : sl;
+}
+static int call_mcd_slab_solve(ctx *c)
+{
+    mcd_slab sl;
+    /* kind counts from the fixture's default (MCD_BOOT_EQUIMOLAR), so
+     * that the default is MCD_SLAB_PRESSURES */
+    return mcd_slab_solve(WS, PORE, slab_of(c, &sl),
+                          (mcd_slab_kind)(c->kind - MCD_BOOT_EQUIMOLAR),
+                          c->species, c->value, OUT(o1, NB_O1), OUT(o2, NB_O2),
+                          OUT(oz, NB_OZ));
+}
+static int call_mcd_slab_profile(ctx *c)
+{
+    mcd_slab sl;
+    return mcd_slab_profile(WS, PORE, slab_of(c, &sl), ARG(Nt, NB_NF), c->np,
+                            ARG(zz, NB_Z), OUT(o1, NB_O1), OUT(o2, NB_O2));
 }
 
 /* ------------------------------------------------------------------ */
@@ -1832,6 +1963,157 @@ static const bcase cases[] = {
     C(mcd_binary_hayduk_minhas, "Vb beyond the correlation", EDOM_, NULL,
       MD(Vb, 1e-3)),
     C(mcd_binary_hayduk_minhas, "out NULL", EINVAL_, NULL, MN(NB_O1)),
+
+    /* ---- gas viscosity ---- */
+    B(mcd_viscosity_omega22, MCD_OK),
+    C(mcd_viscosity_omega22, "T* 0", EDOM_, "T_star", MD(Tstar, 0.0)),
+    C(mcd_viscosity_omega22, "T* NaN", EINVAL_, "T_star", MD(Tstar, NAN)),
+    C(mcd_viscosity_omega22, "out NULL", EINVAL_, "out_omega", MN(NB_O1)),
+    B(mcd_viscosity_chapman_enskog, MCD_OK),
+    C(mcd_viscosity_chapman_enskog, "T negative", EDOM_, "T", MD(T, -1.0)),
+    C(mcd_viscosity_chapman_enskog, "M 0", EDOM_, "M", MD(MA, 0.0)),
+    C(mcd_viscosity_chapman_enskog, "sigma inf", EINVAL_, "sigma",
+      MD(sigA, INFINITY)),
+    C(mcd_viscosity_chapman_enskog, "eps_k 0", EDOM_, "eps_k", MD(epsA, 0.0)),
+    C(mcd_viscosity_chapman_enskog, "out NULL", EINVAL_, "out_mu", MN(NB_O1)),
+    B(mcd_viscosity_wilke, MCD_OK),
+    C(mcd_viscosity_wilke, "n 0", EINVAL_, "n_species", MZ(n, 0)),
+    C(mcd_viscosity_wilke, "n too big", EINVAL_, "n_species", MZ(n, BIG)),
+    C(mcd_viscosity_wilke, "M NULL", EINVAL_, "M", MN(NB_M)),
+    C(mcd_viscosity_wilke, "mu NULL", EINVAL_, "mu", MN(NB_VALS)),
+    C(mcd_viscosity_wilke, "x NULL", EINVAL_, "x", MN(NB_X)),
+    C(mcd_viscosity_wilke, "mu negative", EDOM_, "mu", MDA(mus, 1, -1e-5)),
+    C(mcd_viscosity_wilke, "mu NaN", EINVAL_, "mu", MDA(mus, 2, NAN)),
+    C(mcd_viscosity_wilke, "M 0", EDOM_, "M", MDA(M, 0, 0.0)),
+    C(mcd_viscosity_wilke, "x sum 1.5", EDOM_, "x", MDA(x, 0, 1.0)),
+    C(mcd_viscosity_wilke, "out NULL", EINVAL_, "out_mu", MN(NB_O1)),
+    B(mcd_db_viscosity_gas, MCD_OK),
+    C(mcd_db_viscosity_gas, "db NULL", EINVAL_, "db", MN(NB_DB)),
+    C(mcd_db_viscosity_gas, "out NULL", EINVAL_, "out_mu", MN(NB_O1)),
+    C(mcd_db_viscosity_gas, "index out of range", MCD_ENOTFOUND, "i",
+      MZ(ga, 100000)),
+    C(mcd_db_viscosity_gas, "species without sigma", MCD_ENODATA, "sigma",
+      MZ(ga, PROBE)),
+    C(mcd_db_viscosity_gas, "T 0", EDOM_, "T", MD(T, 0.0)),
+    C(mcd_db_viscosity_gas, "T NaN", EINVAL_, "T", MD(T, NAN)),
+    B(mcd_mixture_viscosities, MCD_OK),
+    C(mcd_mixture_viscosities, "mix NULL", EINVAL_, "mix", MN(NB_MIX)),
+    C(mcd_mixture_viscosities, "out NULL", EINVAL_, "out_mu", MN(NB_O1)),
+    C(mcd_mixture_viscosities, "T negative", EDOM_, "T", MD(T, -300.0)),
+
+    /* ---- porous media ---- */
+    B(mcd_pore_permeability, MCD_OK),
+    C(mcd_pore_permeability, "pore NULL", EINVAL_, "pore", MN(NB_PORE)),
+    C(mcd_pore_permeability, "out NULL", EINVAL_, "out_B0", MN(NB_O1)),
+    C(mcd_pore_permeability, "porosity 0", EDOM_, "porosity",
+      MD(pore.porosity, 0.0)),
+    C(mcd_pore_permeability, "porosity 1.2", EDOM_, "porosity",
+      MD(pore.porosity, 1.2)),
+    C(mcd_pore_permeability, "porosity NaN", EINVAL_, "porosity",
+      MD(pore.porosity, NAN)),
+    C(mcd_pore_permeability, "tortuosity 0.5", EDOM_, "tortuosity",
+      MD(pore.tortuosity, 0.5)),
+    C(mcd_pore_permeability, "d_pore 0", EDOM_, "d_pore", MD(pore.d_pore, 0.0)),
+    C(mcd_pore_permeability, "permeability negative", EDOM_, "permeability",
+      MD(pore.permeability, -1e-15)),
+    C(mcd_pore_permeability, "permeability inf", EINVAL_, "permeability",
+      MD(pore.permeability, INFINITY)),
+    B(mcd_pore_effective, MCD_OK),
+    C(mcd_pore_effective, "pore NULL", EINVAL_, "pore", MN(NB_PORE)),
+    C(mcd_pore_effective, "D 0", EDOM_, "D", MD(D_ref, 0.0)),
+    C(mcd_pore_effective, "tortuosity NaN", EINVAL_, "tortuosity",
+      MD(pore.tortuosity, NAN)),
+    C(mcd_pore_effective, "out NULL", EINVAL_, "out_De", MN(NB_O1)),
+    B(mcd_knudsen_diffusivity, MCD_OK),
+    C(mcd_knudsen_diffusivity, "d_pore negative", EDOM_, "d_pore",
+      MD(pore.d_pore, -1e-9)),
+    C(mcd_knudsen_diffusivity, "M NaN", EINVAL_, "M", MD(MA, NAN)),
+    C(mcd_knudsen_diffusivity, "T 0", EDOM_, "T", MD(T, 0.0)),
+    C(mcd_knudsen_diffusivity, "out NULL", EINVAL_, "out_DK", MN(NB_O1)),
+    B(mcd_bosanquet, MCD_OK),
+    C(mcd_bosanquet, "D_m 0", EDOM_, "D_m", MD(D_ref, 0.0)),
+    C(mcd_bosanquet, "D_K NaN", EINVAL_, "D_K", MD(Dk, NAN)),
+    C(mcd_bosanquet, "out NULL", EINVAL_, "out_D", MN(NB_O1)),
+    B(mcd_dgm_fluxes, MCD_OK),
+    C(mcd_dgm_fluxes, "ws NULL", EINVAL_, "ws", MN(NB_WS)),
+    C(mcd_dgm_fluxes, "pore NULL", EINVAL_, "pore", MN(NB_PORE)),
+    C(mcd_dgm_fluxes, "dgm NULL", EINVAL_, "dgm", MN(NB_DGM)),
+    C(mcd_dgm_fluxes, "out NULL", EINVAL_, "out_N", MN(NB_O1)),
+    C(mcd_dgm_fluxes, "n 0", EINVAL_, "n_species", MZ(n, 0)),
+    C(mcd_dgm_fluxes, "n above capacity", MCD_EBADLEN, "n_species", MZ(n, 4)),
+    C(mcd_dgm_fluxes, "n_dim 4", EINVAL_, "n_dim", MZ(nd, 4)),
+    C(mcd_dgm_fluxes, "porosity 1.5", EDOM_, "porosity",
+      MD(pore.porosity, 1.5)),
+    C(mcd_dgm_fluxes, "tortuosity 0.99", EDOM_, "tortuosity",
+      MD(pore.tortuosity, 0.99)),
+    C(mcd_dgm_fluxes, "d_pore 0", EDOM_, "d_pore", MD(pore.d_pore, 0.0)),
+    C(mcd_dgm_fluxes, "permeability negative", EDOM_, "permeability",
+      MD(pore.permeability, -1.0)),
+    C(mcd_dgm_fluxes, "P negative", EDOM_, "P", MD(P, -1.0)),
+    C(mcd_dgm_fluxes, "T NaN", EINVAL_, "T", MD(T, NAN)),
+    C(mcd_dgm_fluxes, "mu 0", EDOM_, "mu", MD(mug, 0.0)),
+    C(mcd_dgm_fluxes, "M NULL", EINVAL_, "M", MN(NB_M)),
+    C(mcd_dgm_fluxes, "Dij NULL", EINVAL_, "Dij", MN(NB_D)),
+    C(mcd_dgm_fluxes, "Dij negative", EDOM_, "Dij", MDA(D, 1, -1e-5),
+      MDA(D, 3, -1e-5)),
+    C(mcd_dgm_fluxes, "x negative", EDOM_, "x", MDA(x, 1, -0.1)),
+    C(mcd_dgm_fluxes, "x NULL", EINVAL_, "x", MN(NB_X)),
+    C(mcd_dgm_fluxes, "grad_x NULL", EINVAL_, "grad_x", MN(NB_GRAD)),
+    C(mcd_dgm_fluxes, "grad_x NaN", EINVAL_, "grad_x", MDA(grad, 3, NAN)),
+    C(mcd_dgm_fluxes, "grad_P inf", EINVAL_, "grad_P", MDA(gP, 1, INFINITY)),
+    B(mcd_dgm_closed, MCD_OK),
+    C(mcd_dgm_closed, "N_t NULL", EINVAL_, "N_t", MN(NB_NF)),
+    C(mcd_dgm_closed, "N_t NaN", EINVAL_, "N_t", MDA(Nt, 0, NAN)),
+    C(mcd_dgm_closed, "out_grad_P NULL", EINVAL_, "out_grad_P", MN(NB_O2)),
+    C(mcd_dgm_closed, "porosity 0", EDOM_, "porosity", MD(pore.porosity, 0.0)),
+    C(mcd_dgm_closed, "P 0", EDOM_, "P", MD(P, 0.0)),
+    B(mcd_dgm_gradients, MCD_OK),
+    C(mcd_dgm_gradients, "N NULL", EINVAL_, "N", MN(NB_J)),
+    C(mcd_dgm_gradients, "N NaN", EINVAL_, "N", MDA(J, 2, NAN)),
+    C(mcd_dgm_gradients, "out_grad_x NULL", EINVAL_, "out_grad_x", MN(NB_O1)),
+    C(mcd_dgm_gradients, "d_pore NaN", EINVAL_, "d_pore", MD(pore.d_pore, NAN)),
+    C(mcd_dgm_gradients, "mu negative", EDOM_, "mu", MD(mug, -2e-5)),
+    B(mcd_dgm_fluxes_batch, MCD_OK),
+    C(mcd_dgm_fluxes_batch, "cells NULL", EINVAL_, "cells", MN(NB_DGM)),
+    C(mcd_dgm_fluxes_batch, "M NULL", EINVAL_, "M", MN(NB_M)),
+    C(mcd_dgm_fluxes_batch, "out NULL", EINVAL_, "out_N", MN(NB_O1)),
+    C(mcd_dgm_fluxes_batch, "T NULL", EINVAL_, "T", MN(NB_T)),
+    C(mcd_dgm_fluxes_batch, "porosity 0", EDOM_, "porosity",
+      MD(pore.porosity, 0.0)),
+    C(mcd_dgm_fluxes_batch, "n above capacity", MCD_EBADLEN, "n_species",
+      MZ(n, 4)),
+    C(mcd_dgm_fluxes_batch, "cell T negative", EDOM_, "cell", MDA(Tc, 0, -1.0)),
+    C(mcd_dgm_fluxes_batch, "cell P 0", EDOM_, "P", MDA(Pc, 0, 0.0)),
+    C(mcd_dgm_fluxes_batch, "cell x negative", EDOM_, "x", MDA(x, 1, -0.1)),
+    C(mcd_dgm_fluxes_batch, "cell grad NaN", EINVAL_, "grad_x",
+      MDA(grad, 2, NAN)),
+    B(mcd_slab_solve, MCD_OK),
+    C(mcd_slab_solve, "slab NULL", EINVAL_, "slab", MN(NB_DGM)),
+    C(mcd_slab_solve, "pore NULL", EINVAL_, "pore", MN(NB_PORE)),
+    C(mcd_slab_solve, "out_N NULL", EINVAL_, "out_N", MN(NB_O1)),
+    C(mcd_slab_solve, "PL negative", EDOM_, "PL", MDA(Pc, 1, -1.0)),
+    C(mcd_slab_solve, "P0 0", EDOM_, "P0", MD(P, 0.0)),
+    C(mcd_slab_solve, "L 0", EDOM_, "L", MD(L, 0.0)),
+    C(mcd_slab_solve, "mu NaN", EINVAL_, "mu", MD(mug, NAN)),
+    C(mcd_slab_solve, "P_ref 0", EDOM_, "P_ref", MD(P_ref, 0.0)),
+    C(mcd_slab_solve, "tortuosity 0.5", EDOM_, "tortuosity",
+      MD(pore.tortuosity, 0.5)),
+    C(mcd_slab_solve, "xL NULL", EINVAL_, "xL", MN(NB_X2)),
+    C(mcd_slab_solve, "x0 negative", EDOM_, "x0", MDA(x, 0, -0.5)),
+    C(mcd_slab_solve, "kind 9", EINVAL_, "kind",
+      MI(kind, MCD_BOOT_EQUIMOLAR + 9)),
+    C(mcd_slab_solve, "stagnant species 7", EINVAL_, "species",
+      MI(kind, MCD_BOOT_EQUIMOLAR + MCD_SLAB_STAGNANT), MZ(species, 7)),
+    C(mcd_slab_solve, "total NaN", EINVAL_, "value",
+      MI(kind, MCD_BOOT_EQUIMOLAR + MCD_SLAB_TOTAL), MD(value, NAN)),
+    B(mcd_slab_profile, MCD_OK),
+    C(mcd_slab_profile, "N NULL", EINVAL_, "N", MN(NB_NF)),
+    C(mcd_slab_profile, "N NaN", EINVAL_, "N", MDA(Nt, 1, NAN)),
+    C(mcd_slab_profile, "z NULL", EINVAL_, "z", MN(NB_Z)),
+    C(mcd_slab_profile, "z beyond L", EDOM_, "z", MDA(zz, 1, 1.0)),
+    C(mcd_slab_profile, "out_P NULL", EINVAL_, "out_P", MN(NB_O2)),
+    C(mcd_slab_profile, "porosity 0", EDOM_, "porosity",
+      MD(pore.porosity, 0.0)),
 };
 
 #define NCASES (sizeof cases / sizeof cases[0])
@@ -1945,6 +2227,7 @@ static void ctx_init(ctx *c)
     c->nthreads = 1;
     c->Tc[0] = 300.0;
     c->Pc[0] = MCD_ATM;
+    c->Pc[1] = 0.9 * MCD_ATM; /* far-end pressure of the slab */
     c->cc[0] = MCD_ATM / (MCD_GAS_CONSTANT * 300.0);
     ck_assert_int_eq(mcd_workspace_new(2, &c->ws2), MCD_OK);
     c->model = MCD_MODEL_MAXWELL_STEFAN;
@@ -2000,6 +2283,19 @@ static void ctx_init(ctx *c)
         c->tt[0] = 0.0;
         c->tt[1] = 10.0;
     }
+    c->pore.porosity = 0.4;
+    c->pore.tortuosity = 3.0;
+    c->pore.d_pore = 1e-7;
+    c->mug = 1.8e-5;
+    c->use_gp = 1;
+    c->gP[0] = 1e4;
+    c->gP[1] = -2e3;
+    c->Nt[0] = 1e-3;
+    c->Nt[1] = 0.0;
+    c->Dk = 3e-6;
+    c->mus[0] = 17.9e-6;
+    c->mus[1] = 20.7e-6;
+    c->mus[2] = 15.0e-6;
     c->formula = "CH3COCH3";
     c->name = "my-gas";
     c->text = HDR "species my-gas\n formula C3H6O\n Tb 329.2 K\n";

@@ -30,6 +30,7 @@ RANK = {
     "liquid": 3,   # activity models, thermodynamic factors, liquid diffusivities
     "batched": 4,  # batched fluxes and their kernels
     "transfer": 4, # films, two bulbs
+    "porous": 4,   # pore structure, Knudsen, Dusty Gas Model
     "api": 5,      # constructors that size every layer's scratch
 }
 MAX_LINES = 150

@@ -786,11 +786,12 @@ def generate_python(api):
            "",
            "import ctypes",
            "",
-           "__all__ = [%s]" % ", ".join(
-               '"%s"' % n for n in ["SIGNATURES"] + [
-                   st.name for st in api.structs.values()
-                   if not st.opaque and not any(
-                       isinstance(t, Function) for _, t in st.fields)]),
+           "__all__ = [",
+           ] + ['    "%s",' % n for n in ["SIGNATURES"] + [
+               st.name for st in api.structs.values()
+               if not st.opaque and not any(
+                   isinstance(t, Function) for _, t in st.fields)]] + [
+           "]",
            ""]
     for alias, expr in _PY_ALIASES:
         if alias in used:
@@ -869,6 +870,20 @@ FORTRAN_SCALAR = {
     "mcd_binary_tyn_calus": ["out_D"],
     "mcd_binary_hayduk_minhas": ["out_D"],
     "mcd_liquid_evaporation": ["gas"],
+    "mcd_viscosity_omega22": ["out_omega"],
+    "mcd_viscosity_chapman_enskog": ["out_mu"],
+    "mcd_viscosity_wilke": ["out_mu"],
+    "mcd_db_viscosity_gas": ["out_mu"],
+    "mcd_pore_permeability": ["pore", "out_B0"],
+    "mcd_pore_effective": ["pore", "out_De"],
+    "mcd_knudsen_diffusivity": ["out_DK"],
+    "mcd_bosanquet": ["out_D"],
+    "mcd_dgm_fluxes": ["pore", "dgm"],
+    "mcd_dgm_closed": ["pore", "dgm"],
+    "mcd_dgm_gradients": ["pore", "dgm"],
+    "mcd_dgm_fluxes_batch": ["pore", "cells"],
+    "mcd_slab_solve": ["pore", "slab"],
+    "mcd_slab_profile": ["pore", "slab"],
 }
 # FORTRAN_NULLABLE: pointer parameters that may be NULL (bound as
 # type(c_ptr), value: pass c_null_ptr or c_loc(x)).
@@ -889,6 +904,9 @@ FORTRAN_NULLABLE = {
     "mcd_liquid_vle": ["out_warn"],
     "mcd_liquid_evaporation": ["out_y0", "out_mass_rate", "out_level_rate",
                                "out_warn"],
+    "mcd_db_viscosity_gas": ["out_rel_err", "out_warn"],
+    "mcd_mixture_viscosities": ["out_warn"],
+    "mcd_slab_solve": ["out_PL", "out_iterations"],
 }
 # FORTRAN_DUMMY_NAMES: dummy argument names that differ from the C names
 # (Fortran names are case-insensitive, so film_profile's n and N clash;

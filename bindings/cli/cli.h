@@ -301,6 +301,7 @@ int cli_cmd_demo(int argc, char **argv);
 int cli_cmd_film(int argc, char **argv);
 int cli_cmd_bulbs(int argc, char **argv);
 int cli_cmd_liquid(int argc, char **argv);
+int cli_cmd_porous(int argc, char **argv);
 
 /* Open the built-in database, then load extra_file if not NULL.
  * Returns CLI_OK, CLI_USAGE (bad file) or CLI_FAIL. */

@@ -94,6 +94,7 @@ static void main_help(FILE *f)
         "cell\n"
         "  liquid           activity coefficients, thermodynamic factor and\n"
         "                   diffusivities of a liquid mixture\n"
+        "  porous           fluxes in a porous medium (Dusty Gas Model)\n"
         "  demo             a short worked scenario with invented numbers\n"
         "\n"
         "Run 'mcdiff COMMAND --help' for the options of a command.\n"
@@ -137,15 +138,12 @@ typedef struct command {
     int (*run)(int argc, char **argv);
 } command;
 
-static const command commands[] = {{"species", cli_cmd_species},
-                                   {"binary", cli_cmd_binary},
-                                   {"fluxes", cli_cmd_fluxes},
-                                   {"matrix", cli_cmd_matrix},
-                                   {"demo", cli_cmd_demo},
-                                   {"film", cli_cmd_film},
-                                   {"bulbs", cli_cmd_bulbs},
-                                   {"liquid", cli_cmd_liquid},
-                                   {NULL, NULL}};
+static const command commands[] = {
+    {"species", cli_cmd_species}, {"binary", cli_cmd_binary},
+    {"fluxes", cli_cmd_fluxes},   {"matrix", cli_cmd_matrix},
+    {"demo", cli_cmd_demo},       {"film", cli_cmd_film},
+    {"bulbs", cli_cmd_bulbs},     {"liquid", cli_cmd_liquid},
+    {"porous", cli_cmd_porous},   {NULL, NULL}};
 
 int main(int argc, char **argv)
 {
@@ -177,5 +175,5 @@ int main(int argc, char **argv)
                                "(try --help)");
     return cli_usage_error(NULL, argv[1],
                            "unknown command (species, binary, fluxes, "
-                           "matrix, film, bulbs, liquid, demo)");
+                           "matrix, film, bulbs, liquid, porous, demo)");
 }

@@ -177,7 +177,12 @@ module mcdiff
        mcd_liquid_new, mcd_liquid_set_species, mcd_liquid_set_pair, &
        mcd_liquid_set_dinf, mcd_liquid_eval, mcd_binary_tyn_calus, &
        mcd_binary_hayduk_minhas, mcd_liquid_set_antoine, mcd_liquid_vle, &
-       mcd_liquid_evaporation
+       mcd_liquid_evaporation, &
+       mcd_viscosity_omega22, mcd_viscosity_chapman_enskog, mcd_viscosity_wilke, &
+       mcd_db_viscosity_gas, mcd_mixture_viscosities, mcd_pore_permeability, &
+       mcd_pore_effective, mcd_knudsen_diffusivity, mcd_bosanquet, &
+       mcd_dgm_fluxes, mcd_dgm_closed, mcd_dgm_gradients, mcd_dgm_fluxes_batch, &
+       mcd_slab_solve, mcd_slab_profile
 
   !> Release a handle (any of the three types); an empty handle is a no-op.
   interface mcd_free
@@ -1319,6 +1324,296 @@ contains
          bulbs_of(n, Dij, c, V1, V2, A, L, x1_0, x2_0), csz(n_times), t, rel_tol, &
          x1, x2), stat, errmsg)
   end subroutine mcd_bulbs_integrate
+
+  ! ==================================================================
+  ! Gas viscosity
+  ! ==================================================================
+
+  !> Neufeld-Janzen-Aziz Omega(2,2)* at T* = k T / eps.
+  subroutine mcd_viscosity_omega22(T_star, omega, stat, errmsg)
+    real(c_double), intent(in) :: T_star
+    real(c_double), intent(inout) :: omega
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_viscosity_omega22(T_star, omega), stat, errmsg)
+  end subroutine mcd_viscosity_omega22
+
+  !> Pure-gas viscosity mu [Pa s] by Chapman-Enskog: T [K], M [kg/mol],
+  !> sigma [m], eps_k epsilon/k [K].
+  subroutine mcd_viscosity_chapman_enskog(T, M, sigma, eps_k, mu, stat, errmsg)
+    real(c_double), intent(in) :: T, M, sigma, eps_k
+    real(c_double), intent(inout) :: mu
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_viscosity_chapman_enskog(T, M, sigma, eps_k, mu), stat, errmsg)
+  end subroutine mcd_viscosity_chapman_enskog
+
+  !> Mixture viscosity mu_mix [Pa s] by Wilke's rule from M(n), the species'
+  !> viscosities mu(n) [Pa s] and mole fractions x(n).
+  subroutine mcd_viscosity_wilke(n, M, mu, x, mu_mix, stat, errmsg)
+    integer, intent(in) :: n
+    real(c_double), intent(in) :: M(n), mu(n), x(n)
+    real(c_double), intent(inout) :: mu_mix
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_viscosity_wilke(csz(n), M, mu, x, mu_mix), stat, errmsg)
+  end subroutine mcd_viscosity_wilke
+
+  !> Viscosity mu [Pa s] of species i (1-based) of db at T [K].
+  subroutine mcd_db_viscosity_gas(db, i, T, mu, stat, errmsg, rel_err, warn)
+    type(mcd_db_t), intent(in) :: db
+    integer, intent(in) :: i
+    real(c_double), intent(in) :: T
+    real(c_double), intent(inout) :: mu
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    real(c_double), intent(inout), optional :: rel_err
+    integer, intent(inout), optional :: warn
+    real(c_double), target :: e
+    integer(c_int), target :: w
+    integer(c_int) :: s
+    e = 0
+    w = 0
+    s = c_mcd_db_viscosity_gas(db%ptr, cidx(i), T, mu, c_loc(e), c_loc(w))
+    call finish_estimate(s, e, w, stat, errmsg, rel_err, warn)
+  end subroutine mcd_db_viscosity_gas
+
+  !> Viscosities mu(n) [Pa s] of the species of a mixture at T [K]; warn is
+  !> the OR of their warning bits.
+  subroutine mcd_mixture_viscosities(mix, T, mu, stat, errmsg, warn)
+    type(mcd_mixture_t), intent(in) :: mix
+    real(c_double), intent(in) :: T
+    real(c_double), intent(inout) :: mu(*)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    integer, intent(inout), optional :: warn
+    integer(c_int), target :: w
+    integer(c_int) :: s
+    w = 0
+    s = c_mcd_mixture_viscosities(mix%ptr, T, mu, c_loc(w))
+    if (s == 0 .and. present(warn)) warn = int(w)
+    call finish(s, stat, errmsg)
+  end subroutine mcd_mixture_viscosities
+
+  ! ==================================================================
+  ! Porous media
+  ! ==================================================================
+
+  !> Permeability B0 [m^2] of a pore structure (given, or from d_pore).
+  subroutine mcd_pore_permeability(pore, B0, stat, errmsg)
+    type(mcd_pore_t), intent(in) :: pore
+    real(c_double), intent(inout) :: B0
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_pore_permeability(pore, B0), stat, errmsg)
+  end subroutine mcd_pore_permeability
+
+  !> Effective diffusivity De = (porosity/tortuosity) D [m^2/s].
+  subroutine mcd_pore_effective(pore, D, De, stat, errmsg)
+    type(mcd_pore_t), intent(in) :: pore
+    real(c_double), intent(in) :: D
+    real(c_double), intent(inout) :: De
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_pore_effective(pore, D, De), stat, errmsg)
+  end subroutine mcd_pore_effective
+
+  !> Knudsen diffusivity DK [m^2/s] at T [K] of molar mass M [kg/mol] in a
+  !> pore of diameter d_pore [m].
+  subroutine mcd_knudsen_diffusivity(T, M, d_pore, DK, stat, errmsg)
+    real(c_double), intent(in) :: T, M, d_pore
+    real(c_double), intent(inout) :: DK
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_knudsen_diffusivity(T, M, d_pore, DK), stat, errmsg)
+  end subroutine mcd_knudsen_diffusivity
+
+  !> Bosanquet interpolation 1/D = 1/D_m + 1/D_K [m^2/s].
+  subroutine mcd_bosanquet(D_m, D_K, D, stat, errmsg)
+    real(c_double), intent(in) :: D_m, D_K
+    real(c_double), intent(inout) :: D
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_bosanquet(D_m, D_K, D), stat, errmsg)
+  end subroutine mcd_bosanquet
+
+  !> Dusty Gas Model fluxes N_flux(n_dim, n) [mol/(m^2 s)] at one state:
+  !> T [K], P [Pa], mu mixture viscosity [Pa s], M(n), Dij(n, n) open-gas
+  !> binary diffusivities, x(n), grad_x(n_dim, n) [1/m]; grad_P(n_dim)
+  !> [Pa/m] optional (absent = uniform pressure).
+  subroutine mcd_dgm_fluxes(ws, pore, n, n_dim, T, P, mu, M, Dij, x, grad_x, N_flux, &
+       stat, errmsg, grad_P)
+    type(mcd_workspace_t), intent(inout) :: ws
+    type(mcd_pore_t), intent(in) :: pore
+    integer, intent(in) :: n, n_dim
+    real(c_double), intent(in) :: T, P, mu
+    real(c_double), intent(in), target :: M(n), Dij(n, n), x(n), grad_x(n_dim, n)
+    real(c_double), intent(inout) :: N_flux(n_dim, n)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    real(c_double), intent(in), optional, target :: grad_P(n_dim)
+    type(mcd_dgm_t) :: g
+    g = dgm_of(n, n_dim, T, P, mu, M, Dij, x)
+    g%grad_x = c_loc(grad_x)
+    if (present(grad_P)) g%grad_P = c_loc(grad_P)
+    call finish(c_mcd_dgm_fluxes(ws%ptr, pore, g, N_flux), stat, errmsg)
+  end subroutine mcd_dgm_fluxes
+
+  !> Dusty Gas Model with the total flux N_t(n_dim) given (0: closed end):
+  !> fluxes N_flux(n_dim, n) and the pressure gradient grad_P(n_dim) [Pa/m].
+  subroutine mcd_dgm_closed(ws, pore, n, n_dim, T, P, mu, M, Dij, x, grad_x, N_t, &
+       N_flux, grad_P, stat, errmsg)
+    type(mcd_workspace_t), intent(inout) :: ws
+    type(mcd_pore_t), intent(in) :: pore
+    integer, intent(in) :: n, n_dim
+    real(c_double), intent(in) :: T, P, mu, N_t(n_dim)
+    real(c_double), intent(in), target :: M(n), Dij(n, n), x(n), grad_x(n_dim, n)
+    real(c_double), intent(inout) :: N_flux(n_dim, n), grad_P(n_dim)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    type(mcd_dgm_t) :: g
+    g = dgm_of(n, n_dim, T, P, mu, M, Dij, x)
+    g%grad_x = c_loc(grad_x)
+    call finish(c_mcd_dgm_closed(ws%ptr, pore, g, N_t, N_flux, grad_P), stat, errmsg)
+  end subroutine mcd_dgm_closed
+
+  !> Inverse Dusty Gas Model: the gradients grad_x(n_dim, n) [1/m] and
+  !> grad_P(n_dim) [Pa/m] that carry the fluxes N_flux(n_dim, n).
+  subroutine mcd_dgm_gradients(ws, pore, n, n_dim, T, P, mu, M, Dij, x, N_flux, &
+       grad_x, grad_P, stat, errmsg)
+    type(mcd_workspace_t), intent(inout) :: ws
+    type(mcd_pore_t), intent(in) :: pore
+    integer, intent(in) :: n, n_dim
+    real(c_double), intent(in) :: T, P, mu, N_flux(n_dim, n)
+    real(c_double), intent(in), target :: M(n), Dij(n, n), x(n)
+    real(c_double), intent(inout) :: grad_x(n_dim, n), grad_P(n_dim)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_dgm_gradients(ws%ptr, pore, dgm_of(n, n_dim, T, P, mu, M, Dij, x), &
+         N_flux, grad_x, grad_P), stat, errmsg)
+  end subroutine mcd_dgm_gradients
+
+  !> Dusty Gas Model fluxes of n_cells cells (SoA layout, as
+  !> mcd_flux_batch_dij): T, P, mu(n_cells); Dij(n_cells, n, n);
+  !> x(n_cells, n); grad_x and N_flux (n_cells, n_dim, n); grad_P(n_cells,
+  !> n_dim) optional (absent = uniform pressure); M(n) shared.
+  subroutine mcd_dgm_fluxes_batch(ws, pore, n, M, n_cells, n_dim, T, P, mu, Dij, x, &
+       grad_x, N_flux, stat, errmsg, grad_P)
+    type(mcd_workspace_t), intent(inout) :: ws
+    type(mcd_pore_t), intent(in) :: pore
+    integer, intent(in) :: n, n_cells, n_dim
+    real(c_double), intent(in) :: M(n)
+    real(c_double), intent(in), target :: T(n_cells), P(n_cells), mu(n_cells)
+    real(c_double), intent(in), target :: Dij(n_cells, n, n), x(n_cells, n)
+    real(c_double), intent(in), target :: grad_x(n_cells, n_dim, n)
+    real(c_double), intent(inout) :: N_flux(n_cells, n_dim, n)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    real(c_double), intent(in), optional, target :: grad_P(n_cells, n_dim)
+    type(mcd_dgm_cells_t) :: cl
+    cl%n_cells = csz(n_cells)
+    cl%n_dim = csz(n_dim)
+    cl%T = c_loc(T)
+    cl%P = c_loc(P)
+    cl%mu = c_loc(mu)
+    cl%Dij = c_loc(Dij)
+    cl%x = c_loc(x)
+    cl%grad_x = c_loc(grad_x)
+    if (present(grad_P)) cl%grad_P = c_loc(grad_P)
+    call finish(c_mcd_dgm_fluxes_batch(ws%ptr, pore, csz(n), M, cl, N_flux), stat, errmsg)
+  end subroutine mcd_dgm_fluxes_batch
+
+  !> Steady Dusty Gas Model fluxes N_flux(n) through a porous slab of
+  !> thickness L [m] between (x0, P0) and (xL, PL); Dij(n, n) open-gas
+  !> binary diffusivities at P_ref [Pa]; mu [Pa s] constant; kind
+  !> MCD_SLAB_PRESSURES, _STAGNANT (species, 1-based) or _TOTAL (value =
+  !> sum N); PL_out the pressure at z = L.
+  subroutine mcd_slab_solve(ws, pore, n, T, mu, L, P_ref, M, Dij, x0, P0, xL, PL, kind, &
+       N_flux, stat, errmsg, species, value, PL_out, iterations)
+    type(mcd_workspace_t), intent(inout) :: ws
+    type(mcd_pore_t), intent(in) :: pore
+    integer, intent(in) :: n, kind
+    real(c_double), intent(in) :: T, mu, L, P_ref, P0, PL
+    real(c_double), intent(in), target :: M(n), Dij(n, n), x0(n), xL(n)
+    real(c_double), intent(inout) :: N_flux(n)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    integer, intent(in), optional :: species
+    real(c_double), intent(in), optional :: value
+    real(c_double), intent(inout), optional :: PL_out
+    integer, intent(inout), optional :: iterations
+    real(c_double), target :: pl_c
+    integer(c_size_t), target :: it
+    integer(c_size_t) :: k
+    real(c_double) :: v
+    integer(c_int) :: s
+    k = 0
+    if (present(species)) k = cidx(species)
+    v = 0
+    if (present(value)) v = value
+    pl_c = 0
+    it = 0
+    s = c_mcd_slab_solve(ws%ptr, pore, slab_of(n, T, mu, L, P_ref, M, Dij, x0, P0, xL, PL), &
+         int(kind, c_int), k, v, N_flux, c_loc(pl_c), c_loc(it))
+    if (s == 0) then
+       if (present(PL_out)) PL_out = pl_c
+       if (present(iterations)) iterations = int(it)
+    end if
+    call finish(s, stat, errmsg)
+  end subroutine mcd_slab_solve
+
+  !> Slab profile for fluxes N_flux(n): x(n, n_points) and P(n_points) at
+  !> positions z(n_points) [m].
+  subroutine mcd_slab_profile(ws, pore, n, T, mu, L, P_ref, M, Dij, x0, P0, N_flux, &
+       n_points, z, x, P, stat, errmsg)
+    type(mcd_workspace_t), intent(inout) :: ws
+    type(mcd_pore_t), intent(in) :: pore
+    integer, intent(in) :: n, n_points
+    real(c_double), intent(in) :: T, mu, L, P_ref, P0, N_flux(n), z(*)
+    real(c_double), intent(in), target :: M(n), Dij(n, n), x0(n)
+    real(c_double), intent(inout) :: x(n, *), P(*)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_slab_profile(ws%ptr, pore, &
+         slab_of(n, T, mu, L, P_ref, M, Dij, x0, P0, x0, P0), N_flux, csz(n_points), z, &
+         x, P), stat, errmsg)
+  end subroutine mcd_slab_profile
+
+  !> A porous slab (C: mcd_slab) over the caller's arrays.
+  function slab_of(n, T, mu, L, P_ref, M, Dij, x0, P0, xL, PL) result(sl)
+    integer, intent(in) :: n
+    real(c_double), intent(in) :: T, mu, L, P_ref, P0, PL
+    real(c_double), intent(in), target :: M(n), Dij(n, n), x0(n), xL(n)
+    type(mcd_slab_t) :: sl
+    sl%n_species = csz(n)
+    sl%T = T
+    sl%mu = mu
+    sl%L = L
+    sl%P_ref = P_ref
+    sl%M = c_loc(M)
+    sl%Dij = c_loc(Dij)
+    sl%x0 = c_loc(x0)
+    sl%P0 = P0
+    sl%xL = c_loc(xL)
+    sl%PL = PL
+  end function slab_of
+
+  !> A Dusty Gas Model state (C: mcd_dgm) over the caller's arrays; grad_x
+  !> and grad_P are left NULL.
+  function dgm_of(n, n_dim, T, P, mu, M, Dij, x) result(g)
+    integer, intent(in) :: n, n_dim
+    real(c_double), intent(in) :: T, P, mu
+    real(c_double), intent(in), target :: M(n), Dij(n, n), x(n)
+    type(mcd_dgm_t) :: g
+    g%n_species = csz(n)
+    g%n_dim = csz(n_dim)
+    g%T = T
+    g%P = P
+    g%mu = mu
+    g%M = c_loc(M)
+    g%Dij = c_loc(Dij)
+    g%x = c_loc(x)
+  end function dgm_of
 
   ! ==================================================================
   ! Batched fluxes (layout: see the module header)

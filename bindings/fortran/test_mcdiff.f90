@@ -21,6 +21,7 @@ program test_mcdiff
   call check_frames()
   call check_temperature_fit()
   call check_bulbs()
+  call check_porous()
   call check_errors()
   call check_handles()
   call check_liquid()
@@ -642,6 +643,119 @@ contains
     call check(worst_cons <= 1e-14_c_double, 'every species conserved')
     call check(all(abs(x1(:, 1) - x1_0) <= 1e-15_c_double), 'x1(t = 0) = x1_0')
   end subroutine check_bulbs
+
+  ! Viscosity against the CRC Handbook (Viscosity of Gases, Huber and
+  ! Harvey: N2 17.9 uPa s at 300 K), Wilke's pure-species limit, and the
+  ! Dusty Gas Model: Graham's law under uniform pressure, the closed end
+  ! (fluxes summing to 0) and the inverse returning the gradients.
+  subroutine check_porous()
+    type(mcd_db_t) :: db
+    type(mcd_workspace_t) :: ws
+    type(mcd_pore_t) :: pore
+    integer :: stat, i, w
+    character(len=256) :: msg
+    real(c_double) :: mu, err, mix, B0, DK, De, Dbos, om
+    real(c_double) :: M(2), Dij(2, 2), x(2), gx(1, 2), N(1, 2), gP(1), Nt(1)
+    real(c_double) :: gx2(1, 2), gP2(1), mus(2)
+    call mcd_db_new_builtin(db, stat, msg)
+    call check_stat(stat, msg, 'builtin db for viscosity')
+    call mcd_db_find(db, 'nitrogen', i, stat, msg)
+    call mcd_db_viscosity_gas(db, i, 300.0_c_double, mu, stat, msg, rel_err=err, warn=w)
+    call check_stat(stat, msg, 'viscosity of nitrogen')
+    ! bound: typical error 1.5 % plus the table's 3 %
+    call check(abs(mu / 17.9e-6_c_double - 1) < 0.045_c_double, 'N2 viscosity at 300 K')
+    call check(abs(err - MCD_VISC_CE_TYPICAL_ERROR) < 1e-15_c_double, 'viscosity typical error')
+    call mcd_viscosity_omega22(1.0_c_double, om, stat, msg)
+    call check(stat == MCD_OK .and. abs(om / 1.593_c_double - 1) < 6e-3_c_double, &
+         'Omega22(1) (Bird, Stewart and Lightfoot, Table E.2)')
+    call mcd_viscosity_chapman_enskog(300.0_c_double, 28.014e-3_c_double, 3.798e-10_c_double, &
+         71.4_c_double, mix, stat, msg)
+    call check(stat == MCD_OK .and. abs(mix - mu) <= 1e-14_c_double * mu, &
+         'raw Chapman-Enskog viscosity = database route')
+    M = [28.014e-3_c_double, 4.0026e-3_c_double]
+    mus = [17.9e-6_c_double, 19.9e-6_c_double]
+    x = [1.0_c_double, 0.0_c_double]
+    call mcd_viscosity_wilke(2, M, mus, x, mix, stat, msg)
+    call check(stat == MCD_OK .and. abs(mix - mus(1)) <= 1e-15_c_double * mix, &
+         'Wilke pure-species limit')
+    pore%porosity = 0.4_c_double
+    pore%tortuosity = 3.0_c_double
+    pore%d_pore = 1e-7_c_double
+    call mcd_pore_permeability(pore, B0, stat, msg)
+    call check(stat == MCD_OK .and. abs(B0 - 0.4_c_double / 3 * 1e-14_c_double / 32) &
+         <= 1e-12_c_double * B0, 'permeability of a bundle of straight pores')
+    call mcd_knudsen_diffusivity(300.0_c_double, M(1), pore%d_pore, DK, stat, msg)
+    call mcd_pore_effective(pore, DK, De, stat, msg)
+    call mcd_bosanquet(1e-5_c_double, 1e-5_c_double, Dbos, stat, msg)
+    call check(stat == MCD_OK .and. abs(Dbos - 5e-6_c_double) < 1e-18_c_double, 'Bosanquet')
+    Dij = reshape([0.0_c_double, 7e-5_c_double, 7e-5_c_double, 0.0_c_double], [2, 2])
+    x = [0.3_c_double, 0.7_c_double]
+    gx(1, :) = [-20.0_c_double, 20.0_c_double]
+    call mcd_workspace_new(ws, 2, stat, msg)
+    call mcd_dgm_fluxes(ws, pore, 2, 1, 300.0_c_double, 1e5_c_double, 2e-5_c_double, M, &
+         Dij, x, gx, N, stat, msg)
+    call check_stat(stat, msg, 'Dusty Gas Model fluxes')
+    call check(abs(N(1, 1) / N(1, 2) + sqrt(M(2) / M(1))) <= 1e-12_c_double * &
+         sqrt(M(2) / M(1)), "Graham's law N_A/N_B = -sqrt(M_B/M_A)")
+    Nt = 0
+    call mcd_dgm_closed(ws, pore, 2, 1, 300.0_c_double, 1e5_c_double, 2e-5_c_double, M, &
+         Dij, x, gx, Nt, N, gP, stat, msg)
+    call check(stat == MCD_OK .and. abs(N(1, 1) + N(1, 2)) <= 1e-12_c_double * &
+         abs(N(1, 1)), 'closed end: zero total flux')
+    call mcd_dgm_gradients(ws, pore, 2, 1, 300.0_c_double, 1e5_c_double, 2e-5_c_double, &
+         M, Dij, x, N, gx2, gP2, stat, msg)
+    call check(stat == MCD_OK .and. abs(gP2(1) - gP(1)) <= 1e-9_c_double * abs(gP(1)) &
+         .and. maxval(abs(gx2 - gx)) <= 1e-9_c_double * 20, &
+         'inverse Dusty Gas Model returns the gradients')
+    ! two cells of the batched call equal two single-state calls
+    block
+      real(c_double) :: Tb(2), Pb(2), mub(2), Db(2, 2, 2), xb(2, 2), gb(2, 1, 2), Nb(2, 1, 2)
+      integer :: k
+      Tb = [300.0_c_double, 400.0_c_double]
+      Pb = [1e5_c_double, 2e5_c_double]
+      mub = [2e-5_c_double, 2.4e-5_c_double]
+      do k = 1, 2
+         Db(k, :, :) = Dij
+         xb(k, :) = x
+         gb(k, 1, :) = gx(1, :) * k
+      end do
+      call mcd_dgm_fluxes_batch(ws, pore, 2, M, 2, 1, Tb, Pb, mub, Db, xb, gb, Nb, stat, msg)
+      call check_stat(stat, msg, 'batched Dusty Gas Model')
+      do k = 1, 2
+         call mcd_dgm_fluxes(ws, pore, 2, 1, Tb(k), Pb(k), mub(k), M, Dij, x, &
+              gb(k, :, :), N, stat, msg)
+         call check(all(abs(N(1, :) - Nb(k, 1, :)) <= 0), 'batched = single-state fluxes')
+      end do
+    end block
+    ! slab with equal end pressures: the isobaric binary closed form
+    ! (Cunningham and Williams 1980), N_A L = (De c / a) ln((b - a xL) /
+    ! (b - a x0)), a = 1 - sqrt(M_A/M_B), b = 1 + De / DeK_A
+    block
+      real(c_double) :: Ns(2), x0s(2), xLs(2), PLo, De, DKe, a, b, cc, ref
+      x0s = [0.8_c_double, 0.2_c_double]
+      xLs = [0.1_c_double, 0.9_c_double]
+      call mcd_slab_solve(ws, pore, 2, 300.0_c_double, 2e-5_c_double, 1e-3_c_double, &
+           1e5_c_double, M, Dij, x0s, 1e5_c_double, xLs, 1e5_c_double, MCD_SLAB_PRESSURES, &
+           Ns, stat, msg, PL_out=PLo)
+      call check_stat(stat, msg, 'slab solve')
+      call mcd_pore_effective(pore, Dij(1, 2), De, stat, msg)
+      call mcd_knudsen_diffusivity(300.0_c_double, M(1), pore%d_pore, DKe, stat, msg)
+      DKe = DKe * pore%porosity / pore%tortuosity
+      a = 1 - sqrt(M(1) / M(2))
+      b = 1 + De / DKe
+      cc = 1e5_c_double / (8.31446261815324_c_double * 300)
+      ref = De * cc / a * log((b - a * xLs(1)) / (b - a * x0s(1))) / 1e-3_c_double
+      call check(abs(Ns(1) - ref) <= 1e-8_c_double * abs(ref), 'slab = isobaric closed form')
+    end block
+    pore%porosity = 1.5_c_double
+    N = GUARD
+    call mcd_dgm_fluxes(ws, pore, 2, 1, 300.0_c_double, 1e5_c_double, 2e-5_c_double, M, &
+         Dij, x, gx, N, stat, msg)
+    call check(stat == MCD_EDOM .and. index(msg, 'porosity') > 0 .and. all(abs(N - GUARD) < tiny(B0)), &
+         'porosity out of range: EDOM naming it, output untouched')
+    call mcd_free(ws)
+    call mcd_free(db)
+  end subroutine check_porous
 
   ! Error paths: status codes and messages reach Fortran, outputs untouched.
   subroutine check_errors()

@@ -15,6 +15,7 @@
 #include "base/workspace.h"
 #include "batched/batch.h"
 #include "transfer/tf_layout.h"
+#include "porous/pm_layout.h"
 #include "flux/core_layout.h"
 #include "liquid/liq_layout.h"
 #ifdef _OPENMP
@@ -65,6 +66,7 @@ MCD_API void mcd_workspace_free(mcd_workspace *ws)
     ws->al.free(ws->al.ud, ws->tf_mem);
     ws->al.free(ws->al.ud, ws->tf_ipiv);
     ws->al.free(ws->al.ud, ws->liq_mem);
+    ws->al.free(ws->al.ud, ws->pm_mem);
     ws->al.free(ws->al.ud, ws->batch_raw);
     {
         mcd_allocator al = ws->al;
@@ -78,6 +80,7 @@ mcd_status mcdi_api_workspace_new_with(size_t n_species,
 {
     mcd_workspace *ws;
     size_t core_bytes, core_int_bytes, int_bytes, tf_bytes, liq_bytes;
+    size_t pm_bytes;
 
     if (out_ws == NULL || allocator == NULL || allocator->alloc == NULL ||
         allocator->free == NULL)
@@ -91,6 +94,7 @@ mcd_status mcdi_api_workspace_new_with(size_t n_species,
     int_bytes = n_species * sizeof(int);
     tf_bytes = mcdi_tf_doubles(n_species, 0, 1) * sizeof(double);
     liq_bytes = mcdi_liq_doubles(n_species, 0, 1) * sizeof(double);
+    pm_bytes = mcdi_pm_doubles(n_species, 0, 1) * sizeof(double);
 
     ws = (mcd_workspace *)allocator->alloc(allocator->ud, sizeof(*ws));
     if (ws == NULL)
@@ -104,7 +108,8 @@ mcd_status mcdi_api_workspace_new_with(size_t n_species,
         goto fail;
     if ((ws->tf_mem = (double *)ws_calloc(ws, tf_bytes)) == NULL ||
         (ws->tf_ipiv = (int *)ws_calloc(ws, int_bytes)) == NULL ||
-        (ws->liq_mem = (double *)ws_calloc(ws, liq_bytes)) == NULL)
+        (ws->liq_mem = (double *)ws_calloc(ws, liq_bytes)) == NULL ||
+        (ws->pm_mem = (double *)ws_calloc(ws, pm_bytes)) == NULL)
         goto fail;
 
     /* batched scratch: one region per OpenMP thread, each a multiple of 8

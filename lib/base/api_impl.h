@@ -49,6 +49,11 @@
     X(mixture_set_method, (mcd_mixture *mix, size_t i, size_t j, mcd_gas_method m), (mix, i, j, m)) \
     X(mixture_set_binary, (mcd_mixture *mix, size_t i, size_t j, double D, double T_ref, double P_ref), (mix, i, j, D, T_ref, P_ref)) \
     X(mixture_binaries, (const mcd_mixture *mix, double T, double P, double *out_D, double *out_rel_err, unsigned *out_warn), (mix, T, P, out_D, out_rel_err, out_warn)) \
+    X(viscosity_omega22, (double T_star, double *out_omega), (T_star, out_omega)) \
+    X(viscosity_chapman_enskog, (double T, double M, double sigma, double eps_k, double *out_mu), (T, M, sigma, eps_k, out_mu)) \
+    X(viscosity_wilke, (size_t n_species, const double *M, const double *mu, const double *x, double *out_mu), (n_species, M, mu, x, out_mu)) \
+    X(db_viscosity_gas, (const mcd_db *db, size_t i, double T, double *out_mu, double *out_rel_err, unsigned *out_warn), (db, i, T, out_mu, out_rel_err, out_warn)) \
+    X(mixture_viscosities, (const mcd_mixture *mix, double T, double *out_mu, unsigned *out_warn), (mix, T, out_mu, out_warn)) \
     X(workspace_new, (size_t n_species, mcd_workspace **out_ws), (n_species, out_ws)) \
     X(workspace_new_with, (size_t n_species, const mcd_allocator *allocator, mcd_workspace **out_ws), (n_species, allocator, out_ws)) \
     X(flux_compute, (mcd_workspace *ws, mcd_model model, const mcd_state *state, mcd_basis flux_basis, double *out_flux), (ws, model, state, flux_basis, out_flux)) \
@@ -85,7 +90,17 @@
     X(liquid_vle, (mcd_workspace *ws, const mcd_liquid *liq, double T, const double *x, double *out_p, unsigned *out_warn), (ws, liq, T, x, out_p, out_warn)) \
     X(liquid_evaporation, (mcd_workspace *ws, const mcd_liquid *liq, const mcd_film *gas, double T, double P, const double *x_liq, const double *M, double rho_liquid, double *out_y0, double *out_N, double *out_mass_rate, double *out_level_rate, unsigned *out_warn), (ws, liq, gas, T, P, x_liq, M, rho_liquid, out_y0, out_N, out_mass_rate, out_level_rate, out_warn)) \
     X(binary_tyn_calus, (double T, double mu_solvent, double Vb_solute, double Vb_solvent, double *out_D), (T, mu_solvent, Vb_solute, Vb_solvent, out_D)) \
-    X(binary_hayduk_minhas, (double T, double mu_water, double Vb_solute, double *out_D), (T, mu_water, Vb_solute, out_D))
+    X(binary_hayduk_minhas, (double T, double mu_water, double Vb_solute, double *out_D), (T, mu_water, Vb_solute, out_D)) \
+    X(pore_permeability, (const mcd_pore *pore, double *out_B0), (pore, out_B0)) \
+    X(pore_effective, (const mcd_pore *pore, double D, double *out_De), (pore, D, out_De)) \
+    X(knudsen_diffusivity, (double T, double M, double d_pore, double *out_DK), (T, M, d_pore, out_DK)) \
+    X(bosanquet, (double D_m, double D_K, double *out_D), (D_m, D_K, out_D)) \
+    X(dgm_fluxes, (mcd_workspace *ws, const mcd_pore *pore, const mcd_dgm *dgm, double *out_N), (ws, pore, dgm, out_N)) \
+    X(dgm_closed, (mcd_workspace *ws, const mcd_pore *pore, const mcd_dgm *dgm, const double *N_t, double *out_N, double *out_grad_P), (ws, pore, dgm, N_t, out_N, out_grad_P)) \
+    X(dgm_gradients, (mcd_workspace *ws, const mcd_pore *pore, const mcd_dgm *dgm, const double *N, double *out_grad_x, double *out_grad_P), (ws, pore, dgm, N, out_grad_x, out_grad_P)) \
+    X(dgm_fluxes_batch, (mcd_workspace *ws, const mcd_pore *pore, size_t n_species, const double *M, const mcd_dgm_cells *cells, double *out_N), (ws, pore, n_species, M, cells, out_N)) \
+    X(slab_solve, (mcd_workspace *ws, const mcd_pore *pore, const mcd_slab *slab, mcd_slab_kind kind, size_t species, double value, double *out_N, double *out_PL, size_t *out_iterations), (ws, pore, slab, kind, species, value, out_N, out_PL, out_iterations)) \
+    X(slab_profile, (mcd_workspace *ws, const mcd_pore *pore, const mcd_slab *slab, const double *N, size_t n_points, const double *z, double *out_x, double *out_P), (ws, pore, slab, N, n_points, z, out_x, out_P))
 /* clang-format on */
 
 #define MCDI_API_PROTOTYPE(name, params, args) \

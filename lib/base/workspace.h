@@ -20,6 +20,9 @@
  *
  *  - the LIQUID bank (liq_mem), used by mcd_liquid_eval only, laid out
  *    by name in liquid/liq_layout.h.
+ *  - the POROUS bank (pm_mem), used by the porous-media layer only
+ *    (Dusty Gas Model), laid out by name in porous/pm_layout.h. It holds
+ *    nothing between calls.
  *
  *  - the BATCH bank (batch_*), per-thread block scratch of the batched
  *    calls, laid out by batched/batch_layout.h.
@@ -59,6 +62,8 @@ struct mcd_workspace {
 
     /* LIQUID bank (liquid/liq_layout.h): mcd_liquid_eval only */
     double *liq_mem;
+    /* POROUS bank (porous/pm_layout.h) */
+    double *pm_mem;
 
     /* BATCH bank (batch.c only): per-thread scratch of batch_per_thread
      * doubles each, batch_threads of them, 64-byte aligned inside

@@ -24,8 +24,8 @@ MAN_PAGE = os.environ.get("MCDIFF_MAN") or os.path.join(
 R = 8.31446261815324  # J/(mol K), exact in the 2019 SI (CODATA 2018)
 ATM = 101325.0        # Pa, exact by definition
 
-COMMANDS = ["species", "binary", "fluxes", "matrix", "film", "bulbs", "demo",
-            "liquid"]
+COMMANDS = ["species", "binary", "fluxes", "matrix", "film", "bulbs",
+            "porous", "demo", "liquid"]
 
 
 def run(*args):
@@ -64,6 +64,8 @@ class Help(unittest.TestCase):
                           "z_m"],
                  "bulbs": ["m3, L", "s, min or h", "cm2", "K or C", "atm",
                            "t_s"],
+                 "porous": ["[1/m]", "K or C", "atm", "mol/(m^2 s)", "nm",
+                            "m^2", "Pa/m", "cP"],
                  "demo": ["cm^2/s", "mmol/(m^2 s)"],
                  "liquid": ["K or C", "m^3/mol", "m^2/s", "[Pa]"]}
         for c in COMMANDS:
@@ -952,6 +954,66 @@ class Bulbs(unittest.TestCase):
                 self.assertEqual(code, 2, (out, err))
                 self.assertIn(name, err)
                 self.assertEqual(out, "")
+
+
+POROUS = ["porous", "-s", "H2,N2", "-x", "0.5,0.5", "-g", "-100,100",
+          "-T", "300", "-P", "1atm", "--porosity", "0.4", "--tortuosity",
+          "3", "--pore-diameter", "100nm"]
+
+
+class Porous(unittest.TestCase):
+    """mcdiff porous: Graham's law, the closed end, CSV, bad input."""
+
+    def test_graham_law_under_uniform_pressure(self):
+        # Graham (1833): N_H2 / N_N2 = -sqrt(M_N2 / M_H2) at any pore size
+        for d in ("10nm", "1um", "1mm"):
+            r = run_json(*POROUS[:-1], d)
+            N = [row[0] for row in r["fluxes"]]
+            M = r["M"]
+            self.assertAlmostEqual(N[0] / N[1], -math.sqrt(M[1] / M[0]),
+                                   delta=1e-9)
+            self.assertIn("fitted", r["caution"])
+
+    def test_closed_end_has_zero_total_flux_and_a_pressure_gradient(self):
+        r = run_json(*POROUS, "--closed")
+        N = [row[0] for row in r["fluxes"]]
+        self.assertAlmostEqual(N[0] + N[1], 0.0, delta=1e-12 * abs(N[0]))
+        # hydrogen diffuses out faster: the pressure rises towards +z
+        self.assertGreater(r["grad_P"][0], 0.0)
+        # the same pressure gradient given back reproduces the fluxes
+        r2 = run_json(*POROUS, "--grad-p", repr(r["grad_P"][0]))
+        for a, b in zip(r["fluxes"], r2["fluxes"]):
+            self.assertAlmostEqual(a[0], b[0], delta=1e-9 * abs(N[0]))
+
+    def test_csv_and_given_viscosity(self):
+        header, rows, err = run_csv(*POROUS, "--viscosity", "0.018cP")
+        self.assertEqual(header, ["species", "x", "dx_dz1_per_m",
+                                  "N_1_mol_per_m2_s", "DKe_m2_per_s"])
+        self.assertEqual(len(rows), 2)
+        self.assertIn("review", err)
+        r = run_json(*POROUS, "--viscosity", "0.018cP")
+        self.assertAlmostEqual(r["viscosity"], 1.8e-5, delta=1e-20)
+        self.assertEqual(r["viscosity_source"], "user")
+
+    def test_bad_input_names_the_option(self):
+        cases = [(["--porosity", "1.5"], "--porosity"),
+                 (["--tortuosity", "0.5"], "--tortuosity"),
+                 (["--pore-diameter", "-3nm"], "--pore-diameter"),
+                 (["--permeability", "0"], "--permeability"),
+                 (["--viscosity", "-1"], "--viscosity"),
+                 (["--grad-p", "1,2"], "--grad-p"),
+                 (["--closed", "--grad-p", "5"], "--grad-p"),
+                 (["--total-flux", "1,2"], "--total-flux")]
+        for extra, name in cases:
+            with self.subTest(extra=extra):
+                code, out, err = run(*POROUS, *extra)
+                self.assertEqual(code, 2, (out, err))
+                self.assertIn(name, err)
+                self.assertEqual(out, "")
+        code, out, err = run(*[w for w in POROUS if w != "--porosity"
+                               and w != "0.4"])
+        self.assertEqual(code, 2)
+        self.assertIn("--porosity", err)
 
 
 class Csv(unittest.TestCase):

@@ -826,6 +826,79 @@ class Liquids(unittest.TestCase):
         ref = (1e-4 * 1.25e-8 * (96 ** -0.19 - 0.292) * 298.15 ** 1.52
                * 0.89 ** (9.58 / 96 - 1.12))
         self.assertAlmostEqual(D / ref, 1.0, delta=1e-12)
+class Porous(unittest.TestCase):
+    """Viscosity and the Dusty Gas Model through Python."""
+
+    def test_viscosity_of_nitrogen_against_the_crc_table(self):
+        # CRC Handbook, Viscosity of Gases (Huber and Harvey): N2 17.9 uPa s
+        # at 300 K; bound: typical error 1.5 % plus the table's 3 %
+        db = mcdiff.Database.builtin()
+        est = mcdiff.viscosity_gas(db, "nitrogen", 300.0)
+        self.assertLess(abs(est.mu / 17.9e-6 - 1), 0.045)
+        self.assertAlmostEqual(est.rel_err, 0.015)
+        mix = db.mixture(["nitrogen", "oxygen"])
+        mus = mcdiff.mixture_viscosities(mix, 300.0)
+        self.assertEqual(flat(mus)[0], est.mu)
+        m = mcdiff.viscosity_wilke([0.028014, 0.031998], mus, [1.0, 0.0])
+        self.assertAlmostEqual(m, est.mu, delta=1e-15 * est.mu)
+        self.assertAlmostEqual(mcdiff.viscosity_omega22(1.0), 1.593,
+                               delta=6e-3 * 1.593)
+
+    def test_dgm_graham_closed_end_and_inverse(self):
+        M = [0.004, 0.040]
+        D = [[0, 7e-5], [7e-5, 0]]
+        x = [0.3, 0.7]
+        pore = dict(porosity=0.4, tortuosity=3.0, d_pore=1e-7)
+        N = rows(mcdiff.dgm_fluxes(D, M, x, [-20.0, 20.0], 300.0, 1e5,
+                                   2e-5, **pore))
+        # Graham's law: N_A / N_B = -sqrt(M_B / M_A)
+        self.assertAlmostEqual(N[0] / N[1], -math.sqrt(10.0), delta=1e-12)
+        r = mcdiff.dgm_closed(D, M, x, [-20.0, 20.0], 300.0, 1e5, 2e-5,
+                              **pore)
+        Nc = rows(r.N)
+        self.assertAlmostEqual(Nc[0] + Nc[1], 0.0, delta=1e-12 * abs(Nc[0]))
+        inv = mcdiff.dgm_gradients(D, M, x, Nc, 300.0, 1e5, 2e-5, **pore)
+        self.assertAlmostEqual(inv.grad_P, r.grad_P,
+                               delta=1e-9 * abs(r.grad_P))
+        g = rows(inv.grad_x)
+        self.assertAlmostEqual(g[0], -20.0, delta=1e-8)
+        self.assertAlmostEqual(mcdiff.pore_permeability(**pore),
+                               0.4 / 3 * 1e-14 / 32, delta=1e-30)
+        dk = mcdiff.knudsen_diffusivity(300.0, 0.004, 1e-7)
+        self.assertAlmostEqual(mcdiff.pore_effective(dk, 0.4, 3.0),
+                               dk * 0.4 / 3, delta=1e-15 * dk)
+        self.assertAlmostEqual(mcdiff.bosanquet(1e-5, 1e-5), 5e-6,
+                               delta=1e-20)
+        # batched: two cells (cells last) equal the single-state calls
+        Db = [[[0, 0], [7e-5, 6e-5]], [[7e-5, 6e-5], [0, 0]]]
+        xb = [[0.3, 0.6], [0.7, 0.4]]
+        gb = [[-20.0, -5.0], [20.0, 5.0]]
+        Nb = rows(mcdiff.dgm_fluxes_batch(Db, M, xb, gb, [300.0, 350.0],
+                                          [1e5, 2e5], [2e-5, 2.2e-5],
+                                          **pore))
+        for k, (Dk, xk, gk, Tk, Pk, mk) in enumerate(
+                [(7e-5, [0.3, 0.7], [-20.0, 20.0], 300.0, 1e5, 2e-5),
+                 (6e-5, [0.6, 0.4], [-5.0, 5.0], 350.0, 2e5, 2.2e-5)]):
+            Nk = rows(mcdiff.dgm_fluxes([[0, Dk], [Dk, 0]], M, xk, gk, Tk,
+                                        Pk, mk, **pore))
+            self.assertEqual([Nb[0][k], Nb[1][k]], Nk)
+        # slab with equal end pressures: the isobaric binary closed form
+        # (Cunningham and Williams 1980)
+        r = mcdiff.slab_solve(D, M, [0.8, 0.2], 1e5, [0.1, 0.9], 1e5, 300.0,
+                              2e-5, 1e-3, **pore)
+        De = 7e-5 * 0.4 / 3
+        DKe = mcdiff.knudsen_diffusivity(300.0, M[0], 1e-7) * 0.4 / 3
+        a, b, cc = 1 - math.sqrt(M[0] / M[1]), 1 + De / DKe, 1e5 / (R * 300)
+        ref = De * cc / a * math.log((b - a * 0.1) / (b - a * 0.8)) / 1e-3
+        self.assertAlmostEqual(flat(r.N)[0], ref, delta=1e-8 * abs(ref))
+        xs, Ps = mcdiff.slab_profile(D, M, [0.8, 0.2], 1e5, r.N,
+                                     [0.0, 1e-3], 300.0, 2e-5, 1e-3, **pore)
+        self.assertAlmostEqual(rows(xs)[1][0], 0.1, delta=1e-8)
+        with self.assertRaises(mcdiff.DomainError) as cm:
+            mcdiff.dgm_fluxes(D, M, x, [-20.0, 20.0], 300.0, 1e5, 2e-5,
+                              porosity=1.5, tortuosity=3.0, d_pore=1e-7)
+        self.assertIn("porosity", str(cm.exception))
+
 
 if __name__ == "__main__":
     sys.exit(_support.run(__name__))

@@ -8,7 +8,17 @@ Handles are opaque: c_void_p, never a mirrored struct. Every enum is c_int.
 
 import ctypes
 
-__all__ = ["SIGNATURES", "mcd_state", "mcd_cells", "mcd_film", "mcd_bulbs"]
+__all__ = [
+    "SIGNATURES",
+    "mcd_state",
+    "mcd_cells",
+    "mcd_film",
+    "mcd_bulbs",
+    "mcd_pore",
+    "mcd_dgm",
+    "mcd_dgm_cells",
+    "mcd_slab",
+]
 
 _D = ctypes.c_double
 _PD = ctypes.POINTER(ctypes.c_double)
@@ -151,6 +161,18 @@ SIGNATURES = {
     # (mix, T, P, out_D, out_rel_err, out_warn)
     "mcd_mixture_binaries": (_ST, [_H, _D, _D, _PD, _PD, _PU]),
 
+    # --- Gas viscosity ---
+    # (T_star, out_omega)
+    "mcd_viscosity_omega22": (_ST, [_D, _PD]),
+    # (T, M, sigma, eps_k, out_mu)
+    "mcd_viscosity_chapman_enskog": (_ST, [_D, _D, _D, _D, _PD]),
+    # (n_species, M, mu, x, out_mu)
+    "mcd_viscosity_wilke": (_ST, [_SZ, _PD, _PD, _PD, _PD]),
+    # (db, i, T, out_mu, out_rel_err, out_warn)
+    "mcd_db_viscosity_gas": (_ST, [_H, _SZ, _D, _PD, _PD, _PU]),
+    # (mix, T, out_mu, out_warn)
+    "mcd_mixture_viscosities": (_ST, [_H, _D, _PD, _PU]),
+
     # --- Workspaces ---
     # (n_species, out_ws)
     "mcd_workspace_new": (_ST, [_SZ, _PH]),
@@ -246,6 +268,28 @@ SIGNATURES = {
     "mcd_binary_tyn_calus": (_ST, [_D, _D, _D, _D, _PD]),
     # (T, mu_water, Vb_solute, out_D)
     "mcd_binary_hayduk_minhas": (_ST, [_D, _D, _D, _PD]),
+
+    # --- Porous media: Knudsen diffusion and the Dusty Gas Model ---
+    # (pore, out_B0)
+    "mcd_pore_permeability": (_ST, [_H, _PD]),
+    # (pore, D, out_De)
+    "mcd_pore_effective": (_ST, [_H, _D, _PD]),
+    # (T, M, d_pore, out_DK)
+    "mcd_knudsen_diffusivity": (_ST, [_D, _D, _D, _PD]),
+    # (D_m, D_K, out_D)
+    "mcd_bosanquet": (_ST, [_D, _D, _PD]),
+    # (ws, pore, dgm, out_N)
+    "mcd_dgm_fluxes": (_ST, [_H, _H, _H, _PD]),
+    # (ws, pore, dgm, N_t, out_N, out_grad_P)
+    "mcd_dgm_closed": (_ST, [_H, _H, _H, _PD, _PD, _PD]),
+    # (ws, pore, dgm, N, out_grad_x, out_grad_P)
+    "mcd_dgm_gradients": (_ST, [_H, _H, _H, _PD, _PD, _PD]),
+    # (ws, pore, n_species, M, cells, out_N)
+    "mcd_dgm_fluxes_batch": (_ST, [_H, _H, _SZ, _PD, _H, _PD]),
+    # (ws, pore, slab, kind, species, value, out_N, out_PL, out_iterations)
+    "mcd_slab_solve": (_ST, [_H, _H, _H, _E, _SZ, _D, _PD, _PD, _PSZ]),
+    # (ws, pore, slab, N, n_points, z, out_x, out_P)
+    "mcd_slab_profile": (_ST, [_H, _H, _H, _PD, _SZ, _PD, _PD, _PD]),
 }
 
 
@@ -305,4 +349,62 @@ class mcd_bulbs(ctypes.Structure):
         ("Dij", ctypes.POINTER(ctypes.c_double)),
         ("x1_0", ctypes.POINTER(ctypes.c_double)),
         ("x2_0", ctypes.POINTER(ctypes.c_double)),
+    ]
+
+
+class mcd_pore(ctypes.Structure):
+    """struct mcd_pore of include/mcdiff.h."""
+    _fields_ = [
+        ("porosity", ctypes.c_double),
+        ("tortuosity", ctypes.c_double),
+        ("d_pore", ctypes.c_double),
+        ("permeability", ctypes.c_double),
+    ]
+
+
+class mcd_dgm(ctypes.Structure):
+    """struct mcd_dgm of include/mcdiff.h."""
+    _fields_ = [
+        ("n_species", ctypes.c_size_t),
+        ("n_dim", ctypes.c_size_t),
+        ("T", ctypes.c_double),
+        ("P", ctypes.c_double),
+        ("mu", ctypes.c_double),
+        ("M", ctypes.POINTER(ctypes.c_double)),
+        ("Dij", ctypes.POINTER(ctypes.c_double)),
+        ("x", ctypes.POINTER(ctypes.c_double)),
+        ("grad_x", ctypes.POINTER(ctypes.c_double)),
+        ("grad_P", ctypes.POINTER(ctypes.c_double)),
+    ]
+
+
+class mcd_dgm_cells(ctypes.Structure):
+    """struct mcd_dgm_cells of include/mcdiff.h."""
+    _fields_ = [
+        ("n_cells", ctypes.c_size_t),
+        ("n_dim", ctypes.c_size_t),
+        ("T", ctypes.POINTER(ctypes.c_double)),
+        ("P", ctypes.POINTER(ctypes.c_double)),
+        ("mu", ctypes.POINTER(ctypes.c_double)),
+        ("Dij", ctypes.POINTER(ctypes.c_double)),
+        ("x", ctypes.POINTER(ctypes.c_double)),
+        ("grad_x", ctypes.POINTER(ctypes.c_double)),
+        ("grad_P", ctypes.POINTER(ctypes.c_double)),
+    ]
+
+
+class mcd_slab(ctypes.Structure):
+    """struct mcd_slab of include/mcdiff.h."""
+    _fields_ = [
+        ("n_species", ctypes.c_size_t),
+        ("T", ctypes.c_double),
+        ("mu", ctypes.c_double),
+        ("L", ctypes.c_double),
+        ("P_ref", ctypes.c_double),
+        ("M", ctypes.POINTER(ctypes.c_double)),
+        ("Dij", ctypes.POINTER(ctypes.c_double)),
+        ("x0", ctypes.POINTER(ctypes.c_double)),
+        ("P0", ctypes.c_double),
+        ("xL", ctypes.POINTER(ctypes.c_double)),
+        ("PL", ctypes.c_double),
     ]

@@ -18,9 +18,10 @@ import threading
 from . import _arrays
 from ._arrays import np
 from ._native import lib
-from ._signatures import mcd_bulbs, mcd_cells, mcd_film, mcd_state
+from ._signatures import (mcd_bulbs, mcd_cells, mcd_dgm, mcd_dgm_cells,
+                          mcd_film, mcd_pore, mcd_slab, mcd_state)
 from .enums import (Basis, Bootstrap, Diag, FilmBootstrap, FilmMethod, Method,
-                    Model, coerce)
+                    Model, Warning, coerce)
 from .errors import error_for
 from .handles import Workspace
 
@@ -49,8 +50,16 @@ __all__ = [
     "flux_batch", "flux_batch_dij",
     # transfer
     "film_solve", "film_profile", "bulbs_linearized", "bulbs_integrate",
+    # viscosity
+    "viscosity_omega22", "viscosity_chapman_enskog", "viscosity_wilke",
+    "viscosity_gas", "mixture_viscosities",
+    # porous media
+    "pore_permeability", "pore_effective", "knudsen_diffusivity", "bosanquet",
+    "dgm_fluxes", "dgm_closed", "dgm_gradients", "dgm_fluxes_batch",
+    "slab_solve", "slab_profile",
     # results
     "FickMatrix", "TotalFlux", "ProjectedFlux", "FilmResult", "BulbsResult",
+    "ViscosityEstimate", "DgmClosed", "DgmGradients", "SlabResult",
     "default_workspace",
 ]
 
@@ -966,3 +975,281 @@ def bulbs_integrate(Dij, c, V1, V2, A, L, x1_0, x2_0, t, rel_tol=1e-8, *,
     return _bulbs("mcd_bulbs_integrate", Dij, c, V1, V2, A, L, x1_0, x2_0,
                   t, [_sc(rel_tol, "rel_tol")], workspace)
 
+
+
+# ---------------------------------------------------------------------------
+# Gas viscosity
+# ---------------------------------------------------------------------------
+
+ViscosityEstimate = collections.namedtuple("ViscosityEstimate",
+                                           "mu rel_err warnings")
+ViscosityEstimate.__doc__ = """A pure-gas viscosity estimate: mu [Pa s], the
+method's typical relative error [-] and its Warning flags."""
+
+
+def viscosity_omega22(T_star):
+    """Neufeld-Janzen-Aziz collision integral Omega(2,2)*(T*) for
+    viscosity (mcd_viscosity_omega22)."""
+    return _raw("mcd_viscosity_omega22", T_star)
+
+
+def viscosity_chapman_enskog(T, M, sigma, eps_k):
+    """Pure-gas viscosity [Pa s] by Chapman-Enskog: T [K], M [kg/mol],
+    Lennard-Jones sigma [m] and epsilon/k [K]."""
+    return _raw("mcd_viscosity_chapman_enskog", T, M, sigma, eps_k)
+
+
+def viscosity_wilke(M, mu, x):
+    """Mixture viscosity [Pa s] by Wilke's rule from molar masses M
+    [kg/mol], species viscosities mu [Pa s] and mole fractions x."""
+    m = _arrays.vector(M, None, "M")
+    n = m.shape[0]
+    v = _arrays.vector(mu, n, "mu")
+    xx = _arrays.vector(x, n, "x")
+    out = ctypes.c_double()
+    _check(lib.mcd_viscosity_wilke(n, m.ptr, v.ptr, xx.ptr,
+                                   ctypes.byref(out)), "mcd_viscosity_wilke")
+    return out.value
+
+
+def viscosity_gas(db, species, T):
+    """Viscosity of one species of a Database at T [K] by Chapman-Enskog
+    (mcd_db_viscosity_gas): ViscosityEstimate(mu, rel_err, warnings)."""
+    mu, rel, warn = ctypes.c_double(), ctypes.c_double(), ctypes.c_uint()
+    st = lib.mcd_db_viscosity_gas(db._p(), db.index(species), _sc(T, "T"),
+                                  ctypes.byref(mu), ctypes.byref(rel),
+                                  ctypes.byref(warn))
+    _check(st, "mcd_db_viscosity_gas")
+    return ViscosityEstimate(mu.value, rel.value, Warning(warn.value))
+
+
+def mixture_viscosities(mix, T):
+    """Viscosities [Pa s] of every species of a Mixture at T [K]
+    (mcd_mixture_viscosities); pass them to viscosity_wilke."""
+    n = len(mix)
+    o = _arrays.Output((n,))
+    _check(lib.mcd_mixture_viscosities(mix._p(), _sc(T, "T"), o.ptr, None),
+           "mcd_mixture_viscosities")
+    return o.result()
+
+
+# ---------------------------------------------------------------------------
+# Porous media
+# ---------------------------------------------------------------------------
+# Pore-structure parameters are usually fitted to measurements of the
+# medium; results are estimates for design studies, not a substitute for
+# measured data, codes and licensed engineering review.
+
+DgmClosed = collections.namedtuple("DgmClosed", "N grad_P")
+DgmClosed.__doc__ = """Dusty Gas Model fluxes N [mol/(m^2 s)] with the total
+flux given, and the pressure gradient grad_P [Pa/m] that carries them."""
+DgmGradients = collections.namedtuple("DgmGradients", "grad_x grad_P")
+DgmGradients.__doc__ = """Mole-fraction gradients [1/m] and pressure
+gradient [Pa/m] that carry given Dusty Gas Model fluxes."""
+
+
+def _pore(porosity, tortuosity, d_pore, permeability):
+    return mcd_pore(porosity=_sc(porosity, "porosity"),
+                    tortuosity=_sc(tortuosity, "tortuosity"),
+                    d_pore=_sc(d_pore, "d_pore"),
+                    permeability=_sc(permeability, "permeability"))
+
+
+def pore_permeability(porosity, tortuosity, d_pore, permeability=0.0):
+    """Permeability B0 [m^2] the Dusty Gas Model uses: the given one, or
+    (porosity/tortuosity) d_pore^2 / 32 when permeability is 0."""
+    p = _pore(porosity, tortuosity, d_pore, permeability)
+    out = ctypes.c_double()
+    _check(lib.mcd_pore_permeability(ctypes.byref(p), ctypes.byref(out)),
+           "mcd_pore_permeability")
+    return out.value
+
+
+def pore_effective(D, porosity, tortuosity, d_pore=1.0, permeability=0.0):
+    """Effective diffusivity (porosity/tortuosity) D [m^2/s]."""
+    p = _pore(porosity, tortuosity, d_pore, permeability)
+    out = ctypes.c_double()
+    _check(lib.mcd_pore_effective(ctypes.byref(p), _sc(D, "D"),
+                                  ctypes.byref(out)), "mcd_pore_effective")
+    return out.value
+
+
+def knudsen_diffusivity(T, M, d_pore):
+    """Knudsen diffusivity (d_pore/3) sqrt(8 R T / (pi M)) [m^2/s]."""
+    return _raw("mcd_knudsen_diffusivity", T, M, d_pore)
+
+
+def bosanquet(D_m, D_K):
+    """Bosanquet interpolation 1 / (1/D_m + 1/D_K) [m^2/s]."""
+    return _raw("mcd_bosanquet", D_m, D_K)
+
+
+def _dgm(Dij, M, x, T, P, mu, porosity, tortuosity, d_pore, permeability):
+    xx = _arrays.vector(x, None, "x")
+    n = xx.shape[0]
+    keep = {"x": xx, "M": _arrays.vector(M, n, "M"),
+            "D": _arrays.matrix(Dij, n, n, "Dij")}
+    g = mcd_dgm(n_species=n, T=_sc(T, "T"), P=_sc(P, "P"), mu=_sc(mu, "mu"),
+                M=keep["M"].ptr, Dij=keep["D"].ptr, x=xx.ptr)
+    return n, g, _pore(porosity, tortuosity, d_pore, permeability), keep
+
+
+def dgm_fluxes(Dij, M, x, grad_x, T, P, mu, *, porosity, tortuosity, d_pore,
+               permeability=0.0, grad_P=None, workspace=None):
+    """Total molar fluxes N [mol/(m^2 s)] in a porous medium by the Dusty
+    Gas Model (mcd_dgm_fluxes). Dij: open-gas binary diffusivities at (T,
+    P) [m^2/s]; M [kg/mol]; x mole fractions; grad_x [1/m], shape (n,) or
+    (n, n_dim); T [K], P [Pa]; mu: mixture viscosity [Pa s]; pore
+    structure: porosity, tortuosity, d_pore [m], permeability [m^2] (0:
+    from d_pore); grad_P [Pa/m] (None: uniform pressure)."""
+    n, g, p, keep = _dgm(Dij, M, x, T, P, mu, porosity, tortuosity, d_pore,
+                         permeability)
+    gx, nd, was_1d = _arrays.field(grad_x, n, "grad_x")
+    gp = _opt(grad_P, lambda v: _arrays.vector(
+        [v] if isinstance(v, (int, float)) else v, nd, "grad_P"))
+    g.n_dim, g.grad_x, g.grad_P = nd, gx.ptr, _ptr(gp)
+    ws = _ws(workspace, n)
+    o, was_1d = _field_out(n, nd, was_1d, None)
+    st = lib.mcd_dgm_fluxes(ws._p(), ctypes.byref(p), ctypes.byref(g), o.ptr)
+    ws.check(st, "mcd_dgm_fluxes")
+    return _field_result(o, was_1d)
+
+
+def _dirs(v, nd, name):
+    return _arrays.vector([v] if isinstance(v, (int, float)) else v, nd, name)
+
+
+def _dir_result(o, was_1d):
+    r = o.result()
+    return r[0] if was_1d else r
+
+
+def dgm_closed(Dij, M, x, grad_x, T, P, mu, *, porosity, tortuosity, d_pore,
+               permeability=0.0, N_t=0.0, workspace=None):
+    """Dusty Gas Model with the total flux N_t given (0: closed end) and
+    the pressure gradient unknown (mcd_dgm_closed): DgmClosed(N, grad_P)."""
+    n, g, p, keep = _dgm(Dij, M, x, T, P, mu, porosity, tortuosity, d_pore,
+                         permeability)
+    gx, nd, was_1d = _arrays.field(grad_x, n, "grad_x")
+    nt = _dirs(N_t, nd, "N_t")
+    g.n_dim, g.grad_x = nd, gx.ptr
+    ws = _ws(workspace, n)
+    o, was_1d = _field_out(n, nd, was_1d, None)
+    gp = _arrays.Output((nd,))
+    st = lib.mcd_dgm_closed(ws._p(), ctypes.byref(p), ctypes.byref(g),
+                            nt.ptr, o.ptr, gp.ptr)
+    ws.check(st, "mcd_dgm_closed")
+    return DgmClosed(_field_result(o, was_1d), _dir_result(gp, was_1d))
+
+
+def dgm_gradients(Dij, M, x, N, T, P, mu, *, porosity, tortuosity, d_pore,
+                  permeability=0.0, workspace=None):
+    """Inverse Dusty Gas Model (mcd_dgm_gradients): the gradients that
+    carry total fluxes N, DgmGradients(grad_x, grad_P)."""
+    n, g, p, keep = _dgm(Dij, M, x, T, P, mu, porosity, tortuosity, d_pore,
+                         permeability)
+    f, nd, was_1d = _arrays.field(N, n, "N")
+    g.n_dim = nd
+    ws = _ws(workspace, n)
+    o, was_1d = _field_out(n, nd, was_1d, None)
+    gp = _arrays.Output((nd,))
+    st = lib.mcd_dgm_gradients(ws._p(), ctypes.byref(p), ctypes.byref(g),
+                               f.ptr, o.ptr, gp.ptr)
+    ws.check(st, "mcd_dgm_gradients")
+    return DgmGradients(_field_result(o, was_1d), _dir_result(gp, was_1d))
+
+
+def dgm_fluxes_batch(Dij, M, x, grad_x, T, P, mu, *, porosity, tortuosity,
+                     d_pore, permeability=0.0, grad_P=None, workspace=None):
+    """Dusty Gas Model fluxes of K cells (mcd_dgm_fluxes_batch, cells
+    last): Dij (N, N, K) [m^2/s], M (N,) [kg/mol], x (N, K), grad_x
+    (N, n_dim, K) or (N, K) [1/m], T, P, mu (K,) [K, Pa, Pa s], grad_P
+    (n_dim, K) or (K,) [Pa/m] or None; one pore structure for all cells.
+    The result [mol/(m^2 s)] has the shape of grad_x."""
+    Ta = _arrays.vector([T] if isinstance(T, (int, float)) else T, None, "T")
+    K = Ta.shape[0]
+    Pa = _arrays.vector([P] if isinstance(P, (int, float)) else P, K, "P")
+    mua = _arrays.vector([mu] if isinstance(mu, (int, float)) else mu, K,
+                         "mu")
+    m = _arrays.vector(M, None, "M")
+    N = m.shape[0]
+    D = _arrays.as_doubles(Dij, "Dij")
+    if not (D.shape == (N, N, K) or (D.ndim == 1 and D.size == N * N * K)):
+        raise ValueError("Dij: expected shape %s, got %s"
+                         % ((N, N, K), D.shape))
+    a, g, nd, gp = _batch_fields(N, K, x, grad_x, grad_P, "soa")
+    ws = _ws(workspace, N)
+    o = _arrays.Output(g.shape)
+    p = _pore(porosity, tortuosity, d_pore, permeability)
+    cells = mcd_dgm_cells(n_cells=K, n_dim=nd, T=Ta.ptr, P=Pa.ptr,
+                          mu=mua.ptr, Dij=D.ptr, x=a.ptr, grad_x=g.ptr,
+                          grad_P=_ptr(gp))
+    st = lib.mcd_dgm_fluxes_batch(ws._p(), ctypes.byref(p), N, m.ptr,
+                                  ctypes.byref(cells), o.ptr)
+    ws.check(st, "mcd_dgm_fluxes_batch")
+    return o.result()
+
+
+SlabResult = collections.namedtuple("SlabResult", "N PL iterations")
+SlabResult.__doc__ = """Steady fluxes N [mol/(m^2 s)] through a porous slab,
+the pressure PL [Pa] at z = L, and the Newton iterations used."""
+_SLAB_KINDS = {"pressures": 0, "stagnant": 1, "total": 2}
+
+
+def _slab(Dij, M, x0, P0, xL, PL, T, mu, L, P_ref):
+    a0 = _arrays.vector(x0, None, "x0")
+    n = a0.shape[0]
+    keep = {"x0": a0, "M": _arrays.vector(M, n, "M"),
+            "D": _arrays.matrix(Dij, n, n, "Dij"),
+            "xL": _arrays.vector(x0 if xL is None else xL, n, "xL")}
+    sl = mcd_slab(n_species=n, T=_sc(T, "T"), mu=_sc(mu, "mu"),
+                  L=_sc(L, "L"), P_ref=_sc(P0 if P_ref is None else P_ref,
+                                           "P_ref"),
+                  M=keep["M"].ptr, Dij=keep["D"].ptr, x0=a0.ptr,
+                  P0=_sc(P0, "P0"), xL=keep["xL"].ptr,
+                  PL=_sc(P0 if PL is None else PL, "PL"))
+    return n, sl, keep
+
+
+def slab_solve(Dij, M, x0, P0, xL, PL, T, mu, L, *, porosity, tortuosity,
+               d_pore, permeability=0.0, P_ref=None, kind="pressures",
+               species=0, value=0.0, workspace=None):
+    """Steady Dusty Gas Model fluxes through a porous slab of thickness L
+    [m] between (x0, P0 [Pa]) and (xL, PL) (mcd_slab_solve). Dij: open-gas
+    binary diffusivities [m^2/s] at P_ref (default P0); mu [Pa s]
+    constant. kind: "pressures" (both end pressures given), "stagnant"
+    (species does not move; PL ignored and returned) or "total" (sum N =
+    value). Returns SlabResult(N, PL, iterations)."""
+    if kind not in _SLAB_KINDS:
+        raise ValueError("kind: one of %s" % ", ".join(_SLAB_KINDS))
+    n, sl, keep = _slab(Dij, M, x0, P0, xL, PL, T, mu, L, P_ref)
+    p = _pore(porosity, tortuosity, d_pore, permeability)
+    ws = _ws(workspace, n)
+    o = _arrays.Output((n,))
+    pl = ctypes.c_double()
+    it = ctypes.c_size_t()
+    st = lib.mcd_slab_solve(ws._p(), ctypes.byref(p), ctypes.byref(sl),
+                            _SLAB_KINDS[kind], int(species),
+                            _sc(value, "value"), o.ptr, ctypes.byref(pl),
+                            ctypes.byref(it))
+    ws.check(st, "mcd_slab_solve")
+    return SlabResult(o.result(), pl.value, it.value)
+
+
+def slab_profile(Dij, M, x0, P0, N, z, T, mu, L, *, porosity, tortuosity,
+                 d_pore, permeability=0.0, P_ref=None, workspace=None):
+    """Profile across a porous slab for fluxes N (mcd_slab_profile):
+    (x, P) with x an (n_points x n) array and P the pressures [Pa] at the
+    positions z [m] in [0, L]."""
+    n, sl, keep = _slab(Dij, M, x0, P0, None, None, T, mu, L, P_ref)
+    p = _pore(porosity, tortuosity, d_pore, permeability)
+    fl = _arrays.vector(N, n, "N")
+    zz = _arrays.vector([z] if isinstance(z, (int, float)) else z, None, "z")
+    npt = zz.shape[0]
+    ws = _ws(workspace, n)
+    ox = _arrays.Output((npt, n))
+    oP = _arrays.Output((npt,))
+    st = lib.mcd_slab_profile(ws._p(), ctypes.byref(p), ctypes.byref(sl),
+                              fl.ptr, npt, zz.ptr, ox.ptr, oP.ptr)
+    ws.check(st, "mcd_slab_profile")
+    return ox.result(), oP.result()
