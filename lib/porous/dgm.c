@@ -303,6 +303,19 @@ mcd_status mcdi_api_dgm_fluxes_batch(mcd_workspace *ws, const mcd_pore *pore,
     return MCD_OK;
 }
 
+/* The checked results (rows of stride MCD_MAX_DIM) and the pressure
+ * gradient out to the caller. */
+static void emit(size_t n, size_t nd, const double *rows, const double *gP,
+                 double *out, double *out_grad_P)
+{
+    size_t i, k;
+    for (i = 0; i < n; i++)
+        for (k = 0; k < nd; k++)
+            out[i * nd + k] = rows[i * MCD_MAX_DIM + k];
+    for (k = 0; k < nd; k++)
+        out_grad_P[k] = gP[k];
+}
+
 /*
  * Total flux given (N_t = sum_i N_i per direction; 0 for a closed end),
  * pressure gradient unknown. The fluxes are linear in grad P:
@@ -358,11 +371,7 @@ mcd_status mcdi_api_dgm_closed(mcd_workspace *ws, const mcd_pore *pore,
                                            "overflow");
             pm.out[i * MCD_MAX_DIM + k] = v;
         }
-    for (i = 0; i < n; i++)
-        for (k = 0; k < nd; k++)
-            out_N[i * nd + k] = pm.out[i * MCD_MAX_DIM + k];
-    for (k = 0; k < nd; k++)
-        out_grad_P[k] = gP[k];
+    emit(n, nd, pm.out, gP, out_N, out_grad_P);
     return MCD_OK;
 }
 
@@ -430,10 +439,6 @@ mcd_status mcdi_api_dgm_gradients(mcd_workspace *ws, const mcd_pore *pore,
                                            "overflow");
             pm.out[i * MCD_MAX_DIM + k] = v;
         }
-    for (i = 0; i < n; i++)
-        for (k = 0; k < nd; k++)
-            out_grad_x[i * nd + k] = pm.out[i * MCD_MAX_DIM + k];
-    for (k = 0; k < nd; k++)
-        out_grad_P[k] = gP[k];
+    emit(n, nd, pm.out, gP, out_grad_x, out_grad_P);
     return MCD_OK;
 }
