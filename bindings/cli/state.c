@@ -3,6 +3,7 @@
  * diffusivities (estimated by a method, or given per pair).
  */
 #include <math.h>
+#include <stdarg.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -13,7 +14,7 @@ enum { O_X = 1, O_W, O_GRAD, O_DLNP, O_MODEL, O_BASIS, O_DEP };
 static const cli_opt state_opts[] = {CLI_MIXTURE_OPTIONS,
                                      {"mole-fractions", 'x', 1, O_X},
                                      {"mass-fractions", 'w', 1, O_W},
-                                     {"gradient", 'g', 1, O_GRAD},
+                                     {"gradient", 'g', CLI_REPEAT, O_GRAD},
                                      {"grad-lnp", 0, 1, O_DLNP},
                                      {"model", 0, 1, O_MODEL},
                                      {"basis", 0, 1, O_BASIS},
@@ -52,6 +53,52 @@ static int parse_pair(char *text, struct cli_pair *p, char *why, size_t whylen)
             return -1;
     }
     return cli_parse_diffusivity(eq + 1, &p->D, why, whylen);
+}
+
+void cli_state_note(cli_state *s, const char *cmd, const char *fmt, ...)
+{
+    va_list ap;
+    char buf[sizeof s->notes[0]];
+    va_start(ap, fmt);
+    vsnprintf(buf, sizeof buf, fmt, ap);
+    va_end(ap);
+    fprintf(stderr, "mcdiff %s: warning: %s\n", cmd, buf);
+    if (s->n_notes < sizeof s->notes / sizeof s->notes[0])
+        memcpy(s->notes[s->n_notes++], buf, sizeof buf);
+}
+
+/* Gradients of fractions that sum to one sum to zero. Other ones are used
+ * as the library uses them, projected (g_i -= f_i sum_k g_k, f the
+ * fractions): say so and show the projected values. */
+static void project_gradients(cli_state *s, const char *cmd)
+{
+    const double *f = s->comp_basis == MCD_BASIS_MOLE ? s->x : s->w;
+    size_t n = s->n, nd = s->n_dim, d, k;
+    for (d = 0; d < nd; d++) {
+        double sum = 0.0, big = 0.0;
+        char list[300];
+        size_t used = 0;
+        for (k = 0; k < n; k++) {
+            sum += s->grad[k * nd + d];
+            big = fmax(big, fabs(s->grad[k * nd + d]));
+        }
+        if (!(fabs(sum) > 1e-9 * big))
+            continue;
+        list[0] = '\0';
+        for (k = 0; k < n; k++) {
+            s->grad[k * nd + d] -= f[k] * sum;
+            if (used + 1 < sizeof list)
+                used +=
+                    (size_t)snprintf(list + used, sizeof list - used, "%s%.6g",
+                                     k ? "," : "", s->grad[k * nd + d]);
+        }
+        cli_state_note(s, cmd,
+                       "-g/--gradient%s%.0d: the gradients sum to %.6g 1/m, "
+                       "not 0 (fractions summing to 1 have gradients summing "
+                       "to 0); used projected: %s",
+                       nd > 1 ? " direction " : "", nd > 1 ? (int)d + 1 : 0,
+                       sum, list);
+    }
 }
 
 void cli_state_defaults(cli_state *s)
@@ -354,6 +401,10 @@ int cli_state_setup(cli_state *s, const char *cmd)
         if (s->user_pair[(size_t)pa * n + (size_t)pb])
             return cli_usage_error(cmd, "--pair", "'%s': pair given twice",
                                    p->text);
+        if (cli_implausible_gas_D(strchr(p->text, '=') + 1, p->D,
+                                  isnan(p->P_ref) ? s->P : p->P_ref, err,
+                                  sizeof err))
+            cli_state_note(s, cmd, "--pair %s: %s", p->text, err);
         st = mcd_mixture_set_binary(s->mix, (size_t)pa, (size_t)pb, p->D,
                                     isnan(p->T_ref) ? s->T : p->T_ref,
                                     isnan(p->P_ref) ? s->P : p->P_ref);
@@ -396,13 +447,19 @@ int cli_state_setup(cli_state *s, const char *cmd)
         if (st == MCD_OK)
             st = mcd_comp_w_to_x(n, s->M, s->w, s->x);
     }
-    if (st == MCD_EDOM || st == MCD_EINVAL)
+    if (st == MCD_EDOM || st == MCD_EINVAL) {
+        double sum = 0.0;
+        for (k = 0; k < n; k++)
+            sum += s->comp[k];
         return cli_usage_error(cmd, comp_opt,
                                "%s: fractions must be >= 0 and sum to 1 "
-                               "(within %g)",
-                               mcd_status_string(st), MCD_SUM_TOL);
+                               "(within %g); these sum to %.10g",
+                               mcd_status_string(st), MCD_SUM_TOL, sum);
+    }
     if (st != MCD_OK)
         return cli_fail(cmd, "converting the composition", st, NULL);
+    if (s->n_dim > 0 && s->grad)
+        project_gradients(s, cmd);
 
     st = mcd_comp_ideal_gas_c(s->T, s->P, &s->c);
     if (st != MCD_OK)
@@ -540,5 +597,9 @@ void cli_state_json_binaries(const cli_state *s, cli_json *j)
     for (b = 1; b != 0 && b <= all; b <<= 1)
         if (all & b)
             cli_json_string(j, NULL, mcd_warning_string(b));
+    cli_json_array_end(j);
+    cli_json_array_begin(j, "input_warnings");
+    for (k = 0; k < s->n_notes; k++)
+        cli_json_string(j, NULL, s->notes[k]);
     cli_json_array_end(j);
 }
