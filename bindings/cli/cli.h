@@ -46,6 +46,12 @@ int cli_usage_error(const char *cmd, const char *arg, const char *fmt, ...)
 int cli_fail(const char *cmd, const char *what, mcd_status st,
              const char *detail);
 
+/* Names of the species of the command (kept, not copied), so that library
+ * details saying "species K" (0-based) are shown with the name. */
+void cli_species_names(char *const *names, size_t n);
+/* detail with each "species K" replaced by the name (static buffer). */
+const char *cli_detail(const char *detail);
+
 /* ---- argument scanning (args.c) ---- */
 /* A tiny option scanner: options are "--long", "--long=value", "-s", "-svalue"
  * or "-s value". Everything else is positional. A lone "--" ends options. */

@@ -3,7 +3,9 @@
  *
  * Exit codes: 0 success, 1 the computation failed, 2 bad command line.
  */
+#include <ctype.h>
 #include <stdarg.h>
+#include <stdlib.h>
 #include <stdio.h>
 #include <string.h>
 #include "cli.h"
@@ -21,9 +23,58 @@ int cli_usage_error(const char *cmd, const char *arg, const char *fmt, ...)
     return CLI_USAGE;
 }
 
+/* Species names of the current command, for library details. */
+static char *const *cli_names;
+static size_t cli_n_names;
+
+void cli_species_names(char *const *names, size_t n)
+{
+    cli_names = names;
+    cli_n_names = n;
+}
+
+/* The library numbers species from 0 (C indices); people read names: each
+ * "species K" of a library detail becomes "species 'NAME'". */
+const char *cli_detail(const char *detail)
+{
+    static char buf[1024];
+    const char *p = detail;
+    size_t used = 0;
+    if (!detail || !cli_names)
+        return detail;
+    buf[0] = '\0';
+    while (*p && used + 1 < sizeof buf) {
+        const char *q = strstr(p, "species ");
+        char *end;
+        unsigned long k;
+        if (!q) {
+            used += (size_t)snprintf(buf + used, sizeof buf - used, "%s", p);
+            break;
+        }
+        q += strlen("species ");
+        used += (size_t)snprintf(buf + used, sizeof buf - used, "%.*s",
+                                 (int)(q - p), p);
+        if (used >= sizeof buf)
+            break;
+        if (isdigit((unsigned char)*q) &&
+            (k = strtoul(q, &end, 10)) < cli_n_names) {
+            used += (size_t)snprintf(buf + used, sizeof buf - used, "'%s'",
+                                     cli_names[k]);
+            p = end;
+            if (p[0] == ' ' && p[1] == '\'' && strchr(p + 2, '\''))
+                p = strchr(p + 2, '\'') + 1; /* the name followed already */
+        } else {
+            p = q;
+        }
+    }
+    buf[sizeof buf - 1] = '\0';
+    return buf;
+}
+
 int cli_fail(const char *cmd, const char *what, mcd_status st,
              const char *detail)
 {
+    detail = cli_detail(detail);
     fprintf(stderr, "mcdiff%s%s: %s failed: %s", cmd ? " " : "", cmd ? cmd : "",
             what, mcd_status_string((int)st));
     if (detail && *detail)

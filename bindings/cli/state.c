@@ -254,13 +254,16 @@ int cli_state_parse(cli_state *s, const char *cmd, int argc, char **argv,
                 return cli_usage_error(cmd, a.spelled,
                                        "not used here: the Fick matrix is "
                                        "always the exact Maxwell-Stefan one");
-            if (strcmp(a.value, "exact") == 0)
+            /* the vocabulary of the Python package too */
+            if (strcmp(a.value, "exact") == 0 ||
+                strcmp(a.value, "maxwell-stefan") == 0)
                 s->model = MCD_MODEL_MAXWELL_STEFAN;
             else if (strcmp(a.value, "mixture-averaged") == 0)
                 s->model = MCD_MODEL_MIXTURE_AVERAGED;
             else
                 return cli_usage_error(cmd, a.spelled,
-                                       "'%s' is not a model (exact or "
+                                       "'%s' is not a model (exact, also "
+                                       "written maxwell-stefan, or "
                                        "mixture-averaged)",
                                        a.value);
             break;
@@ -372,6 +375,7 @@ int cli_state_setup(cli_state *s, const char *cmd)
                                    "'%s' names a species already listed",
                                    s->names[i]);
     }
+    cli_species_names(s->names, n);
     st = mcd_mixture_new(s->db, n, (const char *const *)s->names,
                          (mcd_gas_method)s->method, &s->mix);
     if (st != MCD_OK)

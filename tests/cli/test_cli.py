@@ -368,6 +368,27 @@ class PractitionerTraps(unittest.TestCase):
         for a, b in zip(d["fluxes"], ref["fluxes"]):
             self.assertAlmostEqual(a[0], b[0], delta=1e-12 * abs(b[0]) + 1e-15)
 
+    def test_total_flux_beyond_the_film_says_what_is_wrong(self):
+        film = ["film", "-s", "H2,N2,CO2", "--x0", "0.4,0.3,0.3", "--xL",
+                "0.1,0.5,0.4", "-L", "5mm", "-T", "300", "-P", "1atm"]
+        code, out, err = run(*film, "--total-flux", "100")
+        self.assertEqual(code, 2, err)
+        self.assertEqual(out, "")
+        self.assertIn("--total-flux", err)
+        self.assertIn("c D/L", err)
+        self.assertNotIn("failed: singular", err)
+        code, _, err = run(*film, "--total-flux", "1")
+        self.assertEqual(code, 0, err)
+
+    def test_messages_name_species_not_indices(self):
+        code, _, err = run("film", "-s", "acetone,methanol,air", "--x0",
+                           "0.319,0.528,0.153", "--xL", "0.5,0.5,0", "-L",
+                           "23.8cm", "-T", "328.5", "-P", "99.4kPa",
+                           "--stagnant", "air")
+        self.assertEqual(code, 2)
+        self.assertIn("stagnant species 'air'", err)
+        self.assertNotIn("species 2", err)
+
     def test_fractions_not_summing_to_one_print_their_sum(self):
         code, out, err = run("fluxes", "-s", "H2,N2,CO2", "-x",
                              "0.3,0.4,0.35", "-T", "300", "-P", "1atm",
