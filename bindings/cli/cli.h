@@ -257,6 +257,10 @@ typedef struct cli_state {
     char notes[8][400];
     size_t n_notes;
 } cli_state;
+/* The usage error for fractions v[n] that mcd_comp_normalize refused
+ * (status st): what is required and what they sum to. CLI_USAGE. */
+int cli_fractions_error(const char *cmd, const char *opt, mcd_status st,
+                        const double *v, size_t n);
 /* Print "mcdiff CMD: warning: ..." on stderr and keep it in s->notes. */
 void cli_state_note(cli_state *s, const char *cmd, const char *fmt, ...)
 #if defined(__GNUC__)

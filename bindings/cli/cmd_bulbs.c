@@ -331,10 +331,7 @@ int cli_cmd_bulbs(int argc, char **argv)
         goto done;
     st = mcd_comp_normalize(n, bj->x2in, bj->x2);
     if (st == MCD_EDOM || st == MCD_EINVAL) {
-        rc = cli_usage_error(cmd, "--x2",
-                             "%s: fractions must be >= 0 and sum to 1 "
-                             "(within %g)",
-                             mcd_status_string(st), MCD_SUM_TOL);
+        rc = cli_fractions_error(cmd, "--x2", st, bj->x2in, n);
         goto done;
     }
     if (bj->integrated)

@@ -657,10 +657,7 @@ int cli_cmd_film(int argc, char **argv)
         goto done;
     st = mcd_comp_normalize(n, fj->xLin, fj->xL);
     if (st == MCD_EDOM || st == MCD_EINVAL) {
-        rc = cli_usage_error(cmd, "--xL",
-                             "%s: fractions must be >= 0 and sum to 1 "
-                             "(within %g)",
-                             mcd_status_string(st), MCD_SUM_TOL);
+        rc = cli_fractions_error(cmd, "--xL", st, fj->xLin, n);
         goto done;
     }
     if (fj->species_name) {

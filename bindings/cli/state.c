@@ -101,6 +101,19 @@ static void project_gradients(cli_state *s, const char *cmd)
     }
 }
 
+int cli_fractions_error(const char *cmd, const char *opt, mcd_status st,
+                        const double *v, size_t n)
+{
+    double sum = 0.0;
+    size_t k;
+    for (k = 0; k < n; k++)
+        sum += v[k];
+    return cli_usage_error(cmd, opt,
+                           "%s: fractions must be >= 0 and sum to 1 (within "
+                           "%g); these sum to %.10g",
+                           mcd_status_string(st), MCD_SUM_TOL, sum);
+}
+
 void cli_state_defaults(cli_state *s)
 {
     memset(s, 0, sizeof *s);
@@ -451,15 +464,8 @@ int cli_state_setup(cli_state *s, const char *cmd)
         if (st == MCD_OK)
             st = mcd_comp_w_to_x(n, s->M, s->w, s->x);
     }
-    if (st == MCD_EDOM || st == MCD_EINVAL) {
-        double sum = 0.0;
-        for (k = 0; k < n; k++)
-            sum += s->comp[k];
-        return cli_usage_error(cmd, comp_opt,
-                               "%s: fractions must be >= 0 and sum to 1 "
-                               "(within %g); these sum to %.10g",
-                               mcd_status_string(st), MCD_SUM_TOL, sum);
-    }
+    if (st == MCD_EDOM || st == MCD_EINVAL)
+        return cli_fractions_error(cmd, comp_opt, st, s->comp, n);
     if (st != MCD_OK)
         return cli_fail(cmd, "converting the composition", st, NULL);
     if (s->n_dim > 0 && s->grad)

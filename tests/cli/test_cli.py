@@ -395,6 +395,19 @@ class PractitionerTraps(unittest.TestCase):
                              "-g", "-1,0,1")
         self.assertEqual(code, 2)
         self.assertIn("sum to 1.05", err)
+        code, _, err = run("film", "-s", "H2,N2", "--x0", "0.4,0.6", "--xL",
+                           "0.1,0.8", "-L", "5mm", "-T", "300", "-P", "1atm",
+                           "--equimolar")
+        self.assertEqual(code, 2)
+        self.assertIn("--xL", err)
+        self.assertIn("sum to 0.9", err)
+        code, _, err = run("bulbs", "-s", "H2,N2", "--x1", "1,0", "--x2",
+                           "0,0.5", "--v1", "1L", "--v2", "1L", "-L", "5cm",
+                           "--area", "1cm2", "-T", "300", "-P", "1atm", "-t",
+                           "0,1h")
+        self.assertEqual(code, 2)
+        self.assertIn("--x2", err)
+        self.assertIn("sum to 0.5", err)
 
 
 class Json(unittest.TestCase):
