@@ -1,5 +1,5 @@
-/*
- * mcdiff.h - multicomponent diffusion fluxes for simulators.
+/** @file mcdiff.h
+ * @brief Multicomponent diffusion fluxes for simulators.
  *
  * The only installed header of libmcdiff. Self-contained C99; usable from C++.
  *
@@ -39,14 +39,21 @@ extern "C" {
 /* Version                                                             */
 /* ------------------------------------------------------------------ */
 
+/** Major version of this header; a change breaks the API and ABI. */
 #define MCD_VERSION_MAJOR 0
+/** Minor version of this header (adds symbols). */
 #define MCD_VERSION_MINOR 3
+/** Patch version of this header (changes no symbols). */
 #define MCD_VERSION_PATCH 0
+/** Version of this header as MAJOR*10000 + MINOR*100 + PATCH; compare
+ *  with mcd_version_number() for the library running. */
 #define MCD_VERSION_NUMBER \
     (MCD_VERSION_MAJOR * 10000 + MCD_VERSION_MINOR * 100 + MCD_VERSION_PATCH)
 
-/* Export control: default visibility on GCC/Clang; dllexport/dllimport on
- * Windows; empty for static use (define MCD_STATIC). */
+/** @def MCD_API
+ *  Export control of the public functions: default visibility on GCC and
+ *  Clang; dllexport/dllimport on Windows; empty for static use (define
+ *  MCD_STATIC). */
 #if defined(MCD_STATIC)
 #define MCD_API
 #elif defined(_WIN32)
@@ -61,6 +68,9 @@ extern "C" {
 #define MCD_API
 #endif
 
+/** @def MCD_DEPRECATED(msg)
+ *  Marks a function that a later version removes; the compiler warns with
+ *  msg where it is used. */
 #if defined(__GNUC__) || defined(__clang__)
 #define MCD_DEPRECATED(msg) __attribute__((deprecated(msg)))
 #elif defined(_MSC_VER)
@@ -78,8 +88,10 @@ MCD_API const char *mcd_version_string(void);
 /* Status codes (numeric values never change once released)            */
 /* ------------------------------------------------------------------ */
 
+/** Status of every fallible call: MCD_OK or the reason it failed
+ *  (mcd_status_string gives the text, mcd_last_error the detail). */
 typedef enum mcd_status {
-    MCD_OK = 0,
+    MCD_OK = 0,        /**< success */
     MCD_EINVAL = 1,    /**< NULL pointer, NaN or infinity, bad count or enum */
     MCD_EDOM = 2,      /**< outside the model's domain (negative fraction, sum
                             not 1, non-positive T, P, c or D, asymmetric D) */
@@ -186,6 +198,8 @@ MCD_API mcd_status mcd_element_weight(int Z, double *out_kg_per_mol);
 /* Species database                                                    */
 /* ------------------------------------------------------------------ */
 
+/** A species database: the built-in table and species the caller adds
+ *  (opaque; mcd_db_new_builtin, mcd_db_free). */
 typedef struct mcd_db mcd_db;
 
 /** Species parameters. A parameter that is not known is reported as
@@ -337,6 +351,7 @@ MCD_API mcd_status mcd_comp_grad_w_to_x(size_t n_species, size_t n_dim,
 /* Binary diffusivities                                                */
 /* ------------------------------------------------------------------ */
 
+/** Methods of estimating a binary diffusivity. */
 typedef enum mcd_method {
     MCD_METHOD_FSG = 1,            /**< Fuller-Schettler-Giddings (gases) */
     MCD_METHOD_CHAPMAN_ENSKOG = 2, /**< Chapman-Enskog, Lennard-Jones,
@@ -448,6 +463,8 @@ MCD_API mcd_status mcd_db_binary_liquid(const mcd_db *db, size_t solute,
 /* Mixtures: N species and their binary diffusivities                  */
 /* ------------------------------------------------------------------ */
 
+/** N species with their binary diffusivities, estimated or given
+ *  (opaque; mcd_mixture_new, mcd_mixture_free). */
 typedef struct mcd_mixture mcd_mixture;
 
 /** New mixture of n species picked by name from db (parameters are copied:
@@ -567,14 +584,16 @@ MCD_API mcd_status mcd_mixture_viscosities(const mcd_mixture *mix, double T,
 /* Workspaces                                                          */
 /* ------------------------------------------------------------------ */
 
+/** Scratch memory and the last error of one thread's calls (opaque;
+ *  mcd_workspace_new, mcd_workspace_free). */
 typedef struct mcd_workspace mcd_workspace;
 
 /** Custom allocator. alloc(ud, size) returns memory aligned for double or
  *  NULL; free(ud, p) releases it (p may be NULL). */
 typedef struct mcd_allocator {
-    void *(*alloc)(void *ud, size_t size);
-    void (*free)(void *ud, void *p);
-    void *ud;
+    void *(*alloc)(void *ud, size_t size); /**< allocate size bytes */
+    void (*free)(void *ud, void *p);       /**< release p (may be NULL) */
+    void *ud; /**< the caller's data, passed to alloc and free */
 } mcd_allocator;
 
 /** Allocate a workspace for up to n_species species (1..MCD_MAX_SPECIES):
@@ -595,6 +614,8 @@ MCD_API size_t mcd_workspace_capacity(const mcd_workspace *ws);
 /* Diffusion fluxes                                                    */
 /* ------------------------------------------------------------------ */
 
+/** Composition basis: mole or mass fractions, and the fluxes that go
+ *  with them. */
 typedef enum mcd_basis {
     MCD_BASIS_MOLE = 0, /**< mole fractions; molar fluxes J_i relative to the
                              molar-average velocity [mol/(m^2 s)] */
@@ -602,6 +623,7 @@ typedef enum mcd_basis {
                              mass-average velocity [kg/(m^2 s)] */
 } mcd_basis;
 
+/** Flux models of mcd_flux_compute and the batched calls. */
 typedef enum mcd_model {
     MCD_MODEL_MAXWELL_STEFAN = 0,    /**< exact Maxwell-Stefan */
     MCD_MODEL_MIXTURE_AVERAGED = 1,  /**< effective (Blanc) diffusivity per
@@ -838,6 +860,7 @@ MCD_API mcd_status mcd_flux_to_species_frame(size_t n_species, size_t n_dim,
                                              const double *x, const double *J,
                                              size_t k, double *out_Jk);
 
+/** Condition that fixes the total flux (bootstrap) of mcd_flux_total. */
 typedef enum mcd_bootstrap {
     MCD_BOOT_TOTAL = 0,     /**< total flux given: values = N_t (or n_t), n_dim */
     MCD_BOOT_STAGNANT = 1,  /**< species `species` does not move */

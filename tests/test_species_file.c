@@ -430,6 +430,47 @@ START_TEST(species_file_nul_byte_is_rejected)
 }
 END_TEST
 
+/* Units a practitioner writes: the angstrom sign, Celsius temperatures
+ * (t/degC + 273.15 = T/K, by definition of the Celsius scale), psi
+ * (1 psi = 6894.757293168 Pa from the exact pound-force and inch; common
+ * practice); gauge pressures are refused with a message saying so. */
+START_TEST(species_file_practical_units)
+{
+    const char *text = "mcdiff-species 1\n"
+                       "species u1\n formula N2\n sigma 3.798 \xc3\x85\n"
+                       " Tb 77.1 C\n Tc 100 \xc2\xb0"
+                       "C\n Pc 500 psi\n"
+                       "species u2\n formula O2\n sigma 3.467 \xe2\x84\xab\n"
+                       " Tb -183 degC\n";
+    ck_assert_int_eq(mcd_db_load_string(db, text), MCD_OK);
+    ck_assert_double_eq_tol(param("u1", MCD_PARAM_LJ_SIGMA), 3.798e-10, 1e-22);
+    ck_assert_double_eq_tol(param("u1", MCD_PARAM_TB), 350.25, 1e-9);
+    ck_assert_double_eq_tol(param("u1", MCD_PARAM_TC), 373.15, 1e-9);
+    ck_assert_double_eq_tol(param("u1", MCD_PARAM_PC), 3447378.646584, 1e-3);
+    ck_assert_double_eq_tol(param("u2", MCD_PARAM_LJ_SIGMA), 3.467e-10, 1e-22);
+    ck_assert_double_eq_tol(param("u2", MCD_PARAM_TB), 90.15, 1e-9);
+
+    take(&before);
+    ck_assert_int_eq(mcd_db_load_string(db, "mcdiff-species 1\nspecies u3\n"
+                                            " formula N2\n Pc 30 barg\n"),
+                     MCD_EPARSE);
+    ck_assert_msg(strstr(mcd_last_error(), "line 4") != NULL &&
+                      strstr(mcd_last_error(), "gauge") != NULL &&
+                      strstr(mcd_last_error(), "absolute") != NULL,
+                  "%s", mcd_last_error());
+    ck_assert_int_eq(mcd_db_load_string(db, "mcdiff-species 1\nspecies u3\n"
+                                            " formula N2\n Pc 400 psig\n"),
+                     MCD_EPARSE);
+    ck_assert_msg(strstr(mcd_last_error(), "gauge") != NULL, "%s",
+                  mcd_last_error());
+    /* an offset unit is not accepted where only a scale makes sense */
+    ck_assert_int_eq(mcd_db_load_string(db, "mcdiff-species 1\nspecies u3\n"
+                                            " formula N2\n eps_k 71 C\n"),
+                     MCD_EPARSE);
+    assert_unchanged();
+}
+END_TEST
+
 int main(void)
 {
     Suite *s = suite_create("mcd:species_file");
@@ -442,6 +483,7 @@ int main(void)
     tcase_add_test(tc, species_file_bad_files_name_their_line);
     tcase_add_test(tc, species_file_io_and_argument_errors);
     tcase_add_test(tc, species_file_nul_byte_is_rejected);
+    tcase_add_test(tc, species_file_practical_units);
     suite_add_tcase(s, tc);
     return sup_run(s);
 }

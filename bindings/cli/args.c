@@ -32,19 +32,42 @@ static void name_option(cli_args *a, const cli_opt *o)
     a->spelled = a->spelled_buf;
 }
 
+/* The rule on repeated options: one with a value may be given once unless
+ * it is CLI_REPEAT (its spellings share the id, so --v1 then --V1 is a
+ * repeat too). Returns the id or CLI_ARG_ERROR (message printed). */
+static int note_value(cli_args *a, const cli_opt *o)
+{
+    int k;
+    a->last_number = cli_is_plain_number(a->value) ? a->value : NULL;
+    if (o->takes_value == CLI_REPEAT)
+        return o->id;
+    for (k = 0; k < a->n_seen; k++)
+        if (a->seen_id[k] == o->id) {
+            cli_usage_error(a->cmd, a->spelled,
+                            "given twice ('%s', then '%s'); give it once",
+                            a->seen_value[k], a->value);
+            return CLI_ARG_ERROR;
+        }
+    if (a->n_seen < CLI_MAX_SEEN) {
+        a->seen_id[a->n_seen] = o->id;
+        a->seen_value[a->n_seen++] = a->value;
+    }
+    return o->id;
+}
+
 static int take_value(cli_args *a, const cli_opt *o, const char *attached)
 {
     name_option(a, o);
     if (attached) {
         a->value = attached;
-        return o->id;
+        return note_value(a, o);
     }
     if (a->pos >= a->argc) {
         return cli_usage_error(a->cmd, a->spelled, "needs a value"),
                CLI_ARG_ERROR;
     }
     a->value = a->argv[a->pos++];
-    return o->id;
+    return note_value(a, o);
 }
 
 int cli_args_next(cli_args *a)
@@ -58,9 +81,20 @@ int cli_args_next(cli_args *a)
         return CLI_ARG_END;
     w = a->argv[a->pos++];
     if (a->only_positional || w[0] != '-' || w[1] == '\0') {
+        /* "-T 60 C": the unit was split off by a space */
+        const char *num = a->last_number;
+        a->last_number = NULL;
+        if (!a->only_positional && num && cli_is_unit_word(w)) {
+            cli_usage_error(a->cmd, a->spelled_buf,
+                            "'%s' after '%s' looks like its unit: write it "
+                            "without a space (%s%s) or quote both (\"%s %s\")",
+                            w, num, num, w, num, w);
+            return CLI_ARG_ERROR;
+        }
         a->value = w;
         return CLI_ARG_POSITIONAL;
     }
+    a->last_number = NULL;
     if (strcmp(w, "--") == 0) {
         a->only_positional = 1;
         return cli_args_next(a);

@@ -46,15 +46,28 @@ int cli_usage_error(const char *cmd, const char *arg, const char *fmt, ...)
 int cli_fail(const char *cmd, const char *what, mcd_status st,
              const char *detail);
 
+/* Names of the species of the command (kept, not copied), so that library
+ * details saying "species K" (0-based) are shown with the name. */
+void cli_species_names(char *const *names, size_t n);
+/* detail with each "species K" replaced by the name (static buffer). */
+const char *cli_detail(const char *detail);
+
 /* ---- argument scanning (args.c) ---- */
 /* A tiny option scanner: options are "--long", "--long=value", "-s", "-svalue"
  * or "-s value". Everything else is positional. A lone "--" ends options. */
 typedef struct cli_opt {
     const char *long_name; /* without the dashes */
     char short_name;       /* 0 if none */
-    int takes_value;       /* 1: needs a value */
+    int takes_value;       /* 1: needs a value; CLI_REPEAT: a value, and the
+                              option may be given several times */
     int id;                /* returned by cli_args_next */
 } cli_opt;
+
+/* takes_value of an option given once per item (-g per direction, --pair
+ * per pair). Every other option with a value may be given only once: a
+ * second one (under any of its spellings) is a usage error naming it. */
+#define CLI_REPEAT 2
+#define CLI_MAX_SEEN 64
 
 typedef struct cli_args {
     int argc;
@@ -66,6 +79,13 @@ typedef struct cli_args {
     const char *value;   /* value of the last option (or positional text) */
     const char *spelled; /* the option for messages, e.g. "-T/--temperature" */
     char spelled_buf[80];
+    /* options with a value seen so far (id, first value), for the rule on
+       repeated options */
+    int seen_id[CLI_MAX_SEEN];
+    const char *seen_value[CLI_MAX_SEEN];
+    int n_seen;
+    const char *last_number; /* the previous word, when it was an option's
+                                plain number (else NULL) */
 } cli_args;
 
 #define CLI_ARG_END (-1)        /* no more arguments */
@@ -80,6 +100,11 @@ int cli_args_next(cli_args *a);
 /* All parsers return 0 on success or write a reason (without the argument
  * name) into why[whylen] and return -1. Values are SI. */
 int cli_parse_number(const char *text, double *out, char *why, size_t whylen);
+/* 1 if text is a whole plain number (as cli_parse_number accepts). */
+int cli_is_plain_number(const char *text);
+/* 1 if text is one of the unit words the tool accepts (C, K, bar, cm2/s
+ * ...): a positional word like this after a number was meant as its unit. */
+int cli_is_unit_word(const char *text);
 int cli_parse_temperature(const char *text, double *out_K, char *why,
                           size_t whylen);
 int cli_parse_pressure(const char *text, double *out_Pa, char *why,
@@ -103,6 +128,18 @@ int cli_parse_time(const char *text, double *out, char *why, size_t whylen);
  * *out is malloc'ed (caller frees); *out_n receives the count. */
 int cli_parse_times(const char *text, double **out, size_t *out_n, char *why,
                     size_t whylen);
+/* Plausibility of a value already in SI units: 0 when it is inside the
+ * deliberately wide range of its quantity, else 1 with a sentence in
+ * why[whylen] saying so and naming the unit that would make the number
+ * plausible. Gas diffusivity at pressure P [Pa]: D P within 0.01..1000
+ * Pa m^2/s (D = 1e-7..1e-2 m^2/s at 1 atm; gas pairs in handbook tables
+ * lie within 0.05..1.5 cm^2/s at 1 atm, from memory of Reid, Prausnitz and
+ * Poling 1987). Solvent viscosity: 1e-4..0.1 Pa s (0.1..100 cP; water
+ * 0.89 mPa s at 25 C, common practice). */
+int cli_implausible_gas_D(const char *text, double D, double P, char *why,
+                          size_t whylen);
+int cli_implausible_viscosity(const char *text, double mu, char *why,
+                              size_t whylen);
 /* Comma-separated plain numbers; *out_n receives the count (<= cap). */
 int cli_parse_list(const char *text, double *out, size_t cap, size_t *out_n,
                    char *why, size_t whylen);
@@ -219,7 +256,21 @@ typedef struct cli_state {
     double *Dij, *rel_err; /* n x n */
     unsigned *warn;        /* n x n */
     unsigned *user_pair;   /* n x n: 1 if given on the command line */
+    /* warnings about the input (implausible values, projected gradients):
+       printed on stderr when found, listed as "input_warnings" in JSON */
+    char notes[8][400];
+    size_t n_notes;
 } cli_state;
+/* The usage error for fractions v[n] that mcd_comp_normalize refused
+ * (status st): what is required and what they sum to. CLI_USAGE. */
+int cli_fractions_error(const char *cmd, const char *opt, mcd_status st,
+                        const double *v, size_t n);
+/* Print "mcdiff CMD: warning: ..." on stderr and keep it in s->notes. */
+void cli_state_note(cli_state *s, const char *cmd, const char *fmt, ...)
+#if defined(__GNUC__)
+    __attribute__((format(printf, 3, 4)))
+#endif
+    ;
 
 /* Option ids shared by every command that builds a mixture (fluxes,
  * matrix, film, bulbs); a command's own ids stay below 100. */
@@ -238,8 +289,9 @@ enum {
 #define CLI_MIXTURE_OPTIONS                                                    \
     {"species", 's', 1, CLI_O_SPECIES}, {"temperature", 'T', 1, CLI_O_T},      \
         {"pressure", 'P', 1, CLI_O_P}, {"method", 'm', 1, CLI_O_METHOD},       \
-        {"pair", 0, 1, CLI_O_PAIR}, {"species-file", 0, 1, CLI_O_FILE},        \
-        {"json", 0, 0, CLI_O_JSON}, {"csv", 0, 0, CLI_O_CSV},                  \
+        {"pair", 0, CLI_REPEAT, CLI_O_PAIR},                                   \
+        {"species-file", 0, 1, CLI_O_FILE}, {"json", 0, 0, CLI_O_JSON},        \
+        {"csv", 0, 0, CLI_O_CSV},                                              \
     {                                                                          \
         "help", 'h', 0, CLI_O_HELP                                             \
     }

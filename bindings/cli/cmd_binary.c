@@ -17,9 +17,11 @@ static void help(FILE *f)
         "is the recommended one.\n"
         "\n"
         "options:\n"
-        "  -T, --temperature TEMP  temperature; K or C suffix, bare = K\n"
+        "  -T, --temperature TEMP  temperature; K or C suffix (also F), bare = "
+        "K\n"
         "                          (298.15, 298.15K, 25C)\n"
-        "  -P, --pressure PRES     pressure; Pa, kPa, MPa, bar or atm suffix,\n"
+        "  -P, --pressure PRES     pressure; Pa, kPa, MPa, bar, atm or psi "
+        "suffix,\n"
         "                          bare = Pa (101325, 1atm, 1.01325bar);\n"
         "                          not used for liquids\n"
         "  -m, --method NAME       fsg, chapman-enskog, wilke-lee or\n"
@@ -86,7 +88,7 @@ int cli_cmd_binary(int argc, char **argv)
     mcd_method method = MCD_METHOD_FSG;
     mcd_db *db = NULL;
     result res[4];
-    char why[200];
+    char why[200], note[400] = "";
 
     cli_args_init(&a, cmd, argc, argv, opts);
     while ((id = cli_args_next(&a)) != CLI_ARG_END) {
@@ -107,6 +109,10 @@ int cli_cmd_binary(int argc, char **argv)
         case O_VISC:
             if (cli_parse_viscosity(a.value, &mu, why, sizeof why) != 0)
                 return cli_usage_error(cmd, a.spelled, "%s", why);
+            if (cli_implausible_viscosity(a.value, mu, why, sizeof why)) {
+                snprintf(note, sizeof note, "--viscosity %s: %s", a.value, why);
+                fprintf(stderr, "mcdiff %s: warning: %s\n", cmd, note);
+            }
             break;
         case O_METHOD:
             if (mcd_method_from_name(a.value, &method) != MCD_OK)
@@ -257,6 +263,10 @@ int cli_cmd_binary(int argc, char **argv)
             json_warnings(&j, res[k].warn);
             cli_json_object_end(&j);
         }
+        cli_json_array_end(&j);
+        cli_json_array_begin(&j, "input_warnings");
+        if (note[0])
+            cli_json_string(&j, NULL, note);
         cli_json_array_end(&j);
         cli_json_string(&j, "caution", CLI_CAUTION_LONG);
         cli_json_object_end(&j);

@@ -37,8 +37,8 @@ static void help(FILE *f)
         "                            s: a list (0,30min,1h,2h; not\n"
         "                            decreasing) or START:STOP:COUNT\n"
         "                            (0:10h:21 = 21 equally spaced times)\n"
-        "  -T, --temperature TEMP    K or C suffix, bare = K\n"
-        "  -P, --pressure PRES       Pa, kPa, MPa, bar or atm, bare = Pa\n"
+        "  -T, --temperature TEMP    K or C suffix (also F), bare = K\n"
+        "  -P, --pressure PRES       Pa, kPa, MPa, bar, atm or psi, bare = Pa\n"
         "  --model NAME              integrated (default: exact film fluxes\n"
         "                            at every instant, Runge-Kutta with error\n"
         "                            control) or linearized ([D] frozen at\n"
@@ -331,10 +331,7 @@ int cli_cmd_bulbs(int argc, char **argv)
         goto done;
     st = mcd_comp_normalize(n, bj->x2in, bj->x2);
     if (st == MCD_EDOM || st == MCD_EINVAL) {
-        rc = cli_usage_error(cmd, "--x2",
-                             "%s: fractions must be >= 0 and sum to 1 "
-                             "(within %g)",
-                             mcd_status_string(st), MCD_SUM_TOL);
+        rc = cli_fractions_error(cmd, "--x2", st, bj->x2in, n);
         goto done;
     }
     if (bj->integrated)

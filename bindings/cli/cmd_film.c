@@ -28,8 +28,8 @@ static void help(FILE *f)
         "  --xL LIST                 mole fractions [-] at z = L, sum 1\n"
         "  -L, --length LEN          film thickness or tube length; m, cm or\n"
         "                            mm suffix, bare = m\n"
-        "  -T, --temperature TEMP    K or C suffix, bare = K\n"
-        "  -P, --pressure PRES       Pa, kPa, MPa, bar or atm, bare = Pa\n"
+        "  -T, --temperature TEMP    K or C suffix (also F), bare = K\n"
+        "  -P, --pressure PRES       Pa, kPa, MPa, bar, atm or psi, bare = Pa\n"
         "bootstrap (exactly one):\n"
         "  --stagnant NAME           species NAME does not move (N = 0); it\n"
         "                            must be present at both ends\n"
@@ -294,11 +294,34 @@ static int parse(film_job *fj, const char *cmd, int argc, char **argv)
 static int film_failed(film_job *fj, const char *cmd, mcd_status st)
 {
     const cli_state *s = &fj->s;
-    const char *detail = mcd_last_error();
+    const char *detail = cli_detail(mcd_last_error());
     const char *arg = NULL;
     char reason[200] = "";
     size_t n = s->n, i, k = fj->species;
 
+    if (fj->kind == MCD_FILM_BOOT_TOTAL &&
+        (st == MCD_ESING || st == MCD_ENOCONV ||
+         (st == MCD_EDOM && strstr(detail, "rate factor")))) {
+        /* a total flux far above the film's diffusive scale c D/L: the
+         * profiles are exponential layers too thin to resolve */
+        double Dmin = HUGE_VAL, Dmax = 0.0;
+        for (i = 0; i < n; i++)
+            for (k = 0; k < n; k++)
+                if (i != k) {
+                    Dmin = fmin(Dmin, s->Dij[i * n + k]);
+                    Dmax = fmax(Dmax, s->Dij[i * n + k]);
+                }
+        return cli_usage_error(
+            cmd, "--total-flux",
+            "%g mol/(m^2 s) is %.3g to %.3g times the diffusive flux "
+            "scale c D/L of this film (%.3g to %.3g mol/(m^2 s)): "
+            "convection swamps diffusion and the profiles become layers "
+            "too thin to resolve; give a total flux within a few tens of "
+            "c D/L (in mol/(m^2 s)) (%s: %s)",
+            fj->values[0], fabs(fj->values[0]) * fj->L / (s->c * Dmax),
+            fabs(fj->values[0]) * fj->L / (s->c * Dmin), s->c * Dmin / fj->L,
+            s->c * Dmax / fj->L, mcd_status_string((int)st), detail);
+    }
     if (st == MCD_EDOM || st == MCD_EINVAL) {
         switch (fj->kind) {
         case MCD_FILM_BOOT_STAGNANT:
@@ -634,10 +657,7 @@ int cli_cmd_film(int argc, char **argv)
         goto done;
     st = mcd_comp_normalize(n, fj->xLin, fj->xL);
     if (st == MCD_EDOM || st == MCD_EINVAL) {
-        rc = cli_usage_error(cmd, "--xL",
-                             "%s: fractions must be >= 0 and sum to 1 "
-                             "(within %g)",
-                             mcd_status_string(st), MCD_SUM_TOL);
+        rc = cli_fractions_error(cmd, "--xL", st, fj->xLin, n);
         goto done;
     }
     if (fj->species_name) {

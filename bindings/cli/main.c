@@ -3,7 +3,9 @@
  *
  * Exit codes: 0 success, 1 the computation failed, 2 bad command line.
  */
+#include <ctype.h>
 #include <stdarg.h>
+#include <stdlib.h>
 #include <stdio.h>
 #include <string.h>
 #include "cli.h"
@@ -21,9 +23,58 @@ int cli_usage_error(const char *cmd, const char *arg, const char *fmt, ...)
     return CLI_USAGE;
 }
 
+/* Species names of the current command, for library details. */
+static char *const *cli_names;
+static size_t cli_n_names;
+
+void cli_species_names(char *const *names, size_t n)
+{
+    cli_names = names;
+    cli_n_names = n;
+}
+
+/* The library numbers species from 0 (C indices); people read names: each
+ * "species K" of a library detail becomes "species 'NAME'". */
+const char *cli_detail(const char *detail)
+{
+    static char buf[1024];
+    const char *p = detail;
+    size_t used = 0;
+    if (!detail || !cli_names)
+        return detail;
+    buf[0] = '\0';
+    while (*p && used + 1 < sizeof buf) {
+        const char *q = strstr(p, "species ");
+        char *end;
+        unsigned long k;
+        if (!q) {
+            used += (size_t)snprintf(buf + used, sizeof buf - used, "%s", p);
+            break;
+        }
+        q += strlen("species ");
+        used += (size_t)snprintf(buf + used, sizeof buf - used, "%.*s",
+                                 (int)(q - p), p);
+        if (used >= sizeof buf)
+            break;
+        if (isdigit((unsigned char)*q) &&
+            (k = strtoul(q, &end, 10)) < cli_n_names) {
+            used += (size_t)snprintf(buf + used, sizeof buf - used, "'%s'",
+                                     cli_names[k]);
+            p = end;
+            if (p[0] == ' ' && p[1] == '\'' && strchr(p + 2, '\''))
+                p = strchr(p + 2, '\'') + 1; /* the name followed already */
+        } else {
+            p = q;
+        }
+    }
+    buf[sizeof buf - 1] = '\0';
+    return buf;
+}
+
 int cli_fail(const char *cmd, const char *what, mcd_status st,
              const char *detail)
 {
+    detail = cli_detail(detail);
     fprintf(stderr, "mcdiff%s%s: %s failed: %s", cmd ? " " : "", cmd ? cmd : "",
             what, mcd_status_string((int)st));
     if (detail && *detail)
@@ -98,9 +149,13 @@ static void main_help(FILE *f)
         "  demo             a short worked scenario with invented numbers\n"
         "\n"
         "Run 'mcdiff COMMAND --help' for the options of a command.\n"
-        "Quantities accept units: temperature K or C (bare = K), pressure\n"
-        "Pa, kPa, MPa, bar or atm (bare = Pa); lengths m, cm, mm; volumes\n"
-        "m3, L, mL, cm3; times s, min, h. Results are SI unless a column\n"
+        "Quantities accept units: temperature K or C (also F; bare = K),\n"
+        "absolute pressure Pa, kPa, MPa, bar, atm or psi (bare = Pa); lengths\n"
+        "m, cm, mm, in; volumes m3, L, mL, cm3; times s, min, h. Write the\n"
+        "unit next to the number (25C) or quote both (\"25 C\"). An option\n"
+        "with a value is given once (-g and --pair once per item). Values\n"
+        "far outside the usual range of their quantity are warned about on\n"
+        "stderr (JSON: input_warnings). Results are SI unless a column\n"
         "heading says otherwise. --json and --csv give machine-readable\n"
         "output (CSV headers carry SI units, e.g. D_m2_per_s).\n"
         "\n"

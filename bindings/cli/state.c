@@ -3,6 +3,7 @@
  * diffusivities (estimated by a method, or given per pair).
  */
 #include <math.h>
+#include <stdarg.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -13,7 +14,7 @@ enum { O_X = 1, O_W, O_GRAD, O_DLNP, O_KT, O_DTDZ, O_MODEL, O_BASIS, O_DEP };
 static const cli_opt state_opts[] = {CLI_MIXTURE_OPTIONS,
                                      {"mole-fractions", 'x', 1, O_X},
                                      {"mass-fractions", 'w', 1, O_W},
-                                     {"gradient", 'g', 1, O_GRAD},
+                                     {"gradient", 'g', CLI_REPEAT, O_GRAD},
                                      {"grad-lnp", 0, 1, O_DLNP},
                                      {"thermal-ratios", 0, 1, O_KT},
                                      {"temperature-gradient", 0, 1, O_DTDZ},
@@ -54,6 +55,65 @@ static int parse_pair(char *text, struct cli_pair *p, char *why, size_t whylen)
             return -1;
     }
     return cli_parse_diffusivity(eq + 1, &p->D, why, whylen);
+}
+
+void cli_state_note(cli_state *s, const char *cmd, const char *fmt, ...)
+{
+    va_list ap;
+    char buf[sizeof s->notes[0]];
+    va_start(ap, fmt);
+    vsnprintf(buf, sizeof buf, fmt, ap);
+    va_end(ap);
+    fprintf(stderr, "mcdiff %s: warning: %s\n", cmd, buf);
+    if (s->n_notes < sizeof s->notes / sizeof s->notes[0])
+        memcpy(s->notes[s->n_notes++], buf, sizeof buf);
+}
+
+/* Gradients of fractions that sum to one sum to zero. Other ones are used
+ * as the library uses them, projected (g_i -= f_i sum_k g_k, f the
+ * fractions): say so and show the projected values. */
+static void project_gradients(cli_state *s, const char *cmd)
+{
+    const double *f = s->comp_basis == MCD_BASIS_MOLE ? s->x : s->w;
+    size_t n = s->n, nd = s->n_dim, d, k;
+    for (d = 0; d < nd; d++) {
+        double sum = 0.0, big = 0.0;
+        char list[300];
+        size_t used = 0;
+        for (k = 0; k < n; k++) {
+            sum += s->grad[k * nd + d];
+            big = fmax(big, fabs(s->grad[k * nd + d]));
+        }
+        if (!(fabs(sum) > 1e-9 * big))
+            continue;
+        list[0] = '\0';
+        for (k = 0; k < n; k++) {
+            s->grad[k * nd + d] -= f[k] * sum;
+            if (used + 1 < sizeof list)
+                used +=
+                    (size_t)snprintf(list + used, sizeof list - used, "%s%.6g",
+                                     k ? "," : "", s->grad[k * nd + d]);
+        }
+        cli_state_note(s, cmd,
+                       "-g/--gradient%s%.0d: the gradients sum to %.6g 1/m, "
+                       "not 0 (fractions summing to 1 have gradients summing "
+                       "to 0); used projected: %s",
+                       nd > 1 ? " direction " : "", nd > 1 ? (int)d + 1 : 0,
+                       sum, list);
+    }
+}
+
+int cli_fractions_error(const char *cmd, const char *opt, mcd_status st,
+                        const double *v, size_t n)
+{
+    double sum = 0.0;
+    size_t k;
+    for (k = 0; k < n; k++)
+        sum += v[k];
+    return cli_usage_error(cmd, opt,
+                           "%s: fractions must be >= 0 and sum to 1 (within "
+                           "%g); these sum to %.10g",
+                           mcd_status_string(st), MCD_SUM_TOL, sum);
 }
 
 void cli_state_defaults(cli_state *s)
@@ -253,13 +313,16 @@ int cli_state_parse(cli_state *s, const char *cmd, int argc, char **argv,
                 return cli_usage_error(cmd, a.spelled,
                                        "not used here: the Fick matrix is "
                                        "always the exact Maxwell-Stefan one");
-            if (strcmp(a.value, "exact") == 0)
+            /* the vocabulary of the Python package too */
+            if (strcmp(a.value, "exact") == 0 ||
+                strcmp(a.value, "maxwell-stefan") == 0)
                 s->model = MCD_MODEL_MAXWELL_STEFAN;
             else if (strcmp(a.value, "mixture-averaged") == 0)
                 s->model = MCD_MODEL_MIXTURE_AVERAGED;
             else
                 return cli_usage_error(cmd, a.spelled,
-                                       "'%s' is not a model (exact or "
+                                       "'%s' is not a model (exact, also "
+                                       "written maxwell-stefan, or "
                                        "mixture-averaged)",
                                        a.value);
             break;
@@ -373,6 +436,7 @@ int cli_state_setup(cli_state *s, const char *cmd)
                                    "'%s' names a species already listed",
                                    s->names[i]);
     }
+    cli_species_names(s->names, n);
     st = mcd_mixture_new(s->db, n, (const char *const *)s->names,
                          (mcd_gas_method)s->method, &s->mix);
     if (st != MCD_OK)
@@ -402,6 +466,10 @@ int cli_state_setup(cli_state *s, const char *cmd)
         if (s->user_pair[(size_t)pa * n + (size_t)pb])
             return cli_usage_error(cmd, "--pair", "'%s': pair given twice",
                                    p->text);
+        if (cli_implausible_gas_D(strchr(p->text, '=') + 1, p->D,
+                                  isnan(p->P_ref) ? s->P : p->P_ref, err,
+                                  sizeof err))
+            cli_state_note(s, cmd, "--pair %s: %s", p->text, err);
         st = mcd_mixture_set_binary(s->mix, (size_t)pa, (size_t)pb, p->D,
                                     isnan(p->T_ref) ? s->T : p->T_ref,
                                     isnan(p->P_ref) ? s->P : p->P_ref);
@@ -445,12 +513,11 @@ int cli_state_setup(cli_state *s, const char *cmd)
             st = mcd_comp_w_to_x(n, s->M, s->w, s->x);
     }
     if (st == MCD_EDOM || st == MCD_EINVAL)
-        return cli_usage_error(cmd, comp_opt,
-                               "%s: fractions must be >= 0 and sum to 1 "
-                               "(within %g)",
-                               mcd_status_string(st), MCD_SUM_TOL);
+        return cli_fractions_error(cmd, comp_opt, st, s->comp, n);
     if (st != MCD_OK)
         return cli_fail(cmd, "converting the composition", st, NULL);
+    if (s->n_dim > 0 && s->grad)
+        project_gradients(s, cmd);
 
     st = mcd_comp_ideal_gas_c(s->T, s->P, &s->c);
     if (st != MCD_OK)
@@ -588,5 +655,9 @@ void cli_state_json_binaries(const cli_state *s, cli_json *j)
     for (b = 1; b != 0 && b <= all; b <<= 1)
         if (all & b)
             cli_json_string(j, NULL, mcd_warning_string(b));
+    cli_json_array_end(j);
+    cli_json_array_begin(j, "input_warnings");
+    for (k = 0; k < s->n_notes; k++)
+        cli_json_string(j, NULL, s->notes[k]);
     cli_json_array_end(j);
 }

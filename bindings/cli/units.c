@@ -97,6 +97,63 @@ int cli_parse_number(const char *text, double *out, char *why, size_t whylen)
     return convert(text, len, out, why, whylen);
 }
 
+#define PSI 6894.757293168 /* Pa */
+
+int cli_is_plain_number(const char *text)
+{
+    size_t len = text ? scan_number(text) : 0;
+    return len > 0 && text[len] == '\0';
+}
+
+int cli_is_unit_word(const char *text)
+{
+    static const char *const words[] = {"K",
+                                        "C",
+                                        "degC",
+                                        "\xc2\xb0"
+                                        "C",
+                                        "F",
+                                        "degF",
+                                        "\xc2\xb0"
+                                        "F",
+                                        "Pa",
+                                        "kPa",
+                                        "MPa",
+                                        "bar",
+                                        "bara",
+                                        "atm",
+                                        "psi",
+                                        "psia",
+                                        "barg",
+                                        "psig",
+                                        "m",
+                                        "cm",
+                                        "mm",
+                                        "in",
+                                        "inch",
+                                        "m2",
+                                        "cm2",
+                                        "mm2",
+                                        "m3",
+                                        "L",
+                                        "mL",
+                                        "cm3",
+                                        "s",
+                                        "min",
+                                        "h",
+                                        "m2/s",
+                                        "cm2/s",
+                                        "Pa.s",
+                                        "mPa.s",
+                                        "cP",
+                                        NULL};
+    size_t k;
+    for (k = 0; words[k]; k++)
+        if (strcmp(text, words[k]) == 0)
+            return 1;
+    return 0;
+}
+
 typedef struct unit_def {
     const char *word;
     double scale; /* SI = value * scale + offset */
@@ -123,21 +180,32 @@ static int parse_quantity(const char *text, const unit_def *units,
     if (convert(text, len, &v, why, whylen) != 0)
         return -1;
     unit = text + len;
+    while (*unit == ' ') /* "60 C", quoted as one word */
+        unit++;
     if (*unit == '\0') {
         *out = v * units[0].scale + units[0].offset;
     } else {
         for (u = units; u->word; u++)
             if (strcmp(u->word, unit) == 0)
                 break;
+        if (!u->word && strcmp(quantity, "pressure") == 0 && strlen(unit) > 1 &&
+            unit[strlen(unit) - 1] == 'g') {
+            snprintf(why, whylen,
+                     "'%s' is a gauge pressure: give the absolute pressure "
+                     "(gauge plus the ambient pressure; %s)",
+                     text, allowed);
+            return -1;
+        }
         if (!u->word) {
             snprintf(why, whylen, "unknown %s unit '%s' (use %s)", quantity,
                      unit, allowed);
             return -1;
         }
-        /* Sub-units divide by an exact power of ten (23.8 cm -> 23.8/100,
-         * the double nearest 0.238) rather than multiply by an inexact
-         * 0.01. */
-        if (u->scale < 1.0)
+        /* Decimal sub-units divide by an exact power of ten (23.8 cm ->
+         * 23.8/100, the double nearest 0.238) rather than multiply by an
+         * inexact 0.01. */
+        if (u->scale < 1.0 &&
+            fabs(1.0 / u->scale - floor(1.0 / u->scale + 0.5)) < 1e-9)
             *out = v / floor(1.0 / u->scale + 0.5) + u->offset;
         else
             *out = v * u->scale + u->offset;
@@ -152,10 +220,23 @@ static int parse_quantity(const char *text, const unit_def *units,
 int cli_parse_temperature(const char *text, double *out_K, char *why,
                           size_t whylen)
 {
-    static const unit_def units[] = {
-        {"K", 1.0, 0.0}, {"C", 1.0, 273.15}, {NULL, 0, 0}};
+    /* T/K = t/degC + 273.15 = (t/degF + 459.67) * 5/9 (definitions of
+       the scales; common practice) */
+    static const unit_def units[] = {{"K", 1.0, 0.0},
+                                     {"C", 1.0, 273.15},
+                                     {"degC", 1.0, 273.15},
+                                     {"\xc2\xb0"
+                                      "C",
+                                      1.0, 273.15},
+                                     {"F", 5.0 / 9.0, 459.67 * 5.0 / 9.0},
+                                     {"degF", 5.0 / 9.0, 459.67 * 5.0 / 9.0},
+                                     {"\xc2\xb0"
+                                      "F",
+                                      5.0 / 9.0, 459.67 * 5.0 / 9.0},
+                                     {NULL, 0, 0}};
     double T;
-    if (parse_quantity(text, units, "temperature", "K or C; bare = K", &T, why,
+    if (parse_quantity(text, units, "temperature",
+                       "K, C (degC) or F (degF); bare = K", &T, why,
                        whylen) != 0)
         return -1;
     if (!(T > 0.0)) {
@@ -169,13 +250,17 @@ int cli_parse_temperature(const char *text, double *out_K, char *why,
 int cli_parse_pressure(const char *text, double *out_Pa, char *why,
                        size_t whylen)
 {
-    static const unit_def units[] = {{"Pa", 1.0, 0.0},      {"kPa", 1e3, 0.0},
-                                     {"MPa", 1e6, 0.0},     {"bar", 1e5, 0.0},
-                                     {"atm", MCD_ATM, 0.0}, {NULL, 0, 0}};
+    /* 1 psi = 4.4482216152605 N / (0.0254 m)^2 = 6894.757293168 Pa
+       (exact definitions of the pound-force and the inch; common
+       practice). Absolute pressures only: "barg", "psig" are refused. */
+    static const unit_def units[] = {
+        {"Pa", 1.0, 0.0},  {"kPa", 1e3, 0.0},  {"MPa", 1e6, 0.0},
+        {"bar", 1e5, 0.0}, {"bara", 1e5, 0.0}, {"atm", MCD_ATM, 0.0},
+        {"psi", PSI, 0.0}, {"psia", PSI, 0.0}, {NULL, 0, 0}};
     double P;
     if (parse_quantity(text, units, "pressure",
-                       "Pa, kPa, MPa, bar or atm; bare = Pa", &P, why,
-                       whylen) != 0)
+                       "Pa, kPa, MPa, bar, atm or psi, absolute; bare = Pa", &P,
+                       why, whylen) != 0)
         return -1;
     if (!(P > 0.0)) {
         snprintf(why, whylen, "'%s' is not a positive pressure", text);
@@ -238,10 +323,12 @@ static int parse_positive(const char *text, const unit_def *units,
 
 int cli_parse_length(const char *text, double *out, char *why, size_t whylen)
 {
-    static const unit_def units[] = {
-        {"m", 1.0, 0.0}, {"cm", 1e-2, 0.0}, {"mm", 1e-3, 0.0}, {NULL, 0, 0}};
-    return parse_positive(text, units, "length", "m, cm or mm; bare = m", out,
-                          why, whylen);
+    /* 1 in = 0.0254 m exactly (international inch) */
+    static const unit_def units[] = {{"m", 1.0, 0.0},       {"cm", 1e-2, 0.0},
+                                     {"mm", 1e-3, 0.0},     {"in", 0.0254, 0.0},
+                                     {"inch", 0.0254, 0.0}, {NULL, 0, 0}};
+    return parse_positive(text, units, "length", "m, cm, mm or in; bare = m",
+                          out, why, whylen);
 }
 
 int cli_parse_area(const char *text, double *out, char *why, size_t whylen)
@@ -449,4 +536,58 @@ int cli_split_words(char *buf, char **out, size_t cap)
         p = comma + 1;
     }
     return (int)n;
+}
+
+/* The number part of text, for suggestions ("8.38" of "8.38" or "8.38m2/s"). */
+static void number_part(const char *text, char *buf, size_t len)
+{
+    size_t n = scan_number(text);
+    if (n >= len)
+        n = len - 1;
+    memcpy(buf, text, n);
+    buf[n] = '\0';
+}
+
+int cli_implausible_gas_D(const char *text, double D, double P, char *why,
+                          size_t whylen)
+{
+    const double lo = 0.01, hi = 1000.0; /* D P [Pa m^2/s] */
+    char num[64];
+    if (D * P >= lo && D * P <= hi)
+        return 0;
+    number_part(text, num, sizeof num);
+    if (D * 1e-4 * P >= lo && D * 1e-4 * P <= hi)
+        snprintf(why, whylen,
+                 "%.6g m2/s is far outside the range of gas diffusivities "
+                 "(%.3g to %.3g m2/s at %.6g Pa); %scm2/s would be inside "
+                 "it: write the unit",
+                 D, lo / P, hi / P, P, num);
+    else
+        snprintf(why, whylen,
+                 "%.6g m2/s is far outside the range of gas diffusivities "
+                 "(%.3g to %.3g m2/s at %.6g Pa)",
+                 D, lo / P, hi / P, P);
+    return 1;
+}
+
+int cli_implausible_viscosity(const char *text, double mu, char *why,
+                              size_t whylen)
+{
+    const double lo = 1e-4, hi = 0.1; /* Pa s */
+    char num[64];
+    if (mu >= lo && mu <= hi)
+        return 0;
+    number_part(text, num, sizeof num);
+    if (mu * 1e-3 >= lo && mu * 1e-3 <= hi)
+        snprintf(why, whylen,
+                 "%.6g Pa.s is outside the usual range of solvent "
+                 "viscosities (0.1 to 100 cP); %scP would be inside it: "
+                 "write the unit",
+                 mu, num);
+    else
+        snprintf(why, whylen,
+                 "%.6g Pa.s is outside the usual range of solvent "
+                 "viscosities (0.1 to 100 cP) for these correlations",
+                 mu);
+    return 1;
 }

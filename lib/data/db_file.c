@@ -36,28 +36,52 @@ typedef struct token {
 
 typedef struct unit_def {
     const char *text;
-    double factor; /* value in the unit times factor = SI value */
+    double factor; /* SI value = value in the unit * factor + offset */
+    double offset;
 } unit_def;
 
-/* Units accepted per parameter, in mcd_param order. NULL list = no unit. */
-static const unit_def units_M[] = {{"kg/mol", 1.0}, {"g/mol", 1e-3}, {NULL, 0}};
-static const unit_def units_sigma[] = {
-    {"m", 1.0},          {"nm", 1e-9}, {"pm", 1e-12}, {"angstrom", 1e-10},
-    {"Angstrom", 1e-10}, {"A", 1e-10}, {NULL, 0}};
-static const unit_def units_K[] = {{"K", 1.0}, {NULL, 0}};
+/* Units accepted per parameter, in mcd_param order. NULL list = no unit.
+   Non-ASCII spellings are UTF-8: the angstrom sign as U+00C5 and U+212B,
+   the degree sign U+00B0. */
+static const unit_def units_M[] = {
+    {"kg/mol", 1.0, 0}, {"g/mol", 1e-3, 0}, {NULL, 0, 0}};
+static const unit_def units_sigma[] = {{"m", 1.0, 0},
+                                       {"nm", 1e-9, 0},
+                                       {"pm", 1e-12, 0},
+                                       {"angstrom", 1e-10, 0},
+                                       {"Angstrom", 1e-10, 0},
+                                       {"A", 1e-10, 0},
+                                       {"\xc3\x85", 1e-10, 0},
+                                       {"\xe2\x84\xab", 1e-10, 0},
+                                       {NULL, 0, 0}};
+/* An energy over k_B: kelvin only (no offset scale makes sense). */
+static const unit_def units_K[] = {{"K", 1.0, 0}, {NULL, 0, 0}};
+/* Temperatures: kelvin or Celsius (T/K = t/degC + 273.15, by definition). */
+static const unit_def units_T[] = {{"K", 1.0, 0},
+                                   {"C", 1.0, 273.15},
+                                   {"degC", 1.0, 273.15},
+                                   {"\xc2\xb0"
+                                    "C",
+                                    1.0, 273.15},
+                                   {NULL, 0, 0}};
 /* 1 debye = 1e-21/c C m = 3.33564e-30 C m (c = 299792458 m/s). */
-static const unit_def units_dipole[] = {{"C m", 1.0},
-                                        {"C*m", 1.0},
-                                        {"debye", 3.33564e-30},
-                                        {"D", 3.33564e-30},
-                                        {NULL, 0}};
-static const unit_def units_Vb[] = {{"m3/mol", 1.0},
-                                    {"m^3/mol", 1.0},
-                                    {"cm3/mol", 1e-6},
-                                    {"cm^3/mol", 1e-6},
-                                    {NULL, 0}};
-static const unit_def units_P[] = {{"Pa", 1.0},  {"kPa", 1e3},     {"MPa", 1e6},
-                                   {"bar", 1e5}, {"atm", MCD_ATM}, {NULL, 0}};
+static const unit_def units_dipole[] = {{"C m", 1.0, 0},
+                                        {"C*m", 1.0, 0},
+                                        {"debye", 3.33564e-30, 0},
+                                        {"D", 3.33564e-30, 0},
+                                        {NULL, 0, 0}};
+static const unit_def units_Vb[] = {{"m3/mol", 1.0, 0},
+                                    {"m^3/mol", 1.0, 0},
+                                    {"cm3/mol", 1e-6, 0},
+                                    {"cm^3/mol", 1e-6, 0},
+                                    {NULL, 0, 0}};
+/* Absolute pressures. 1 psi = 1 lbf/in^2 = 4.4482216152605 N /
+   (0.0254 m)^2 = 6894.757293168 Pa (exact definitions of the pound, g_n
+   and the inch; common practice). */
+static const unit_def units_P[] = {
+    {"Pa", 1.0, 0},  {"kPa", 1e3, 0},     {"MPa", 1e6, 0},
+    {"bar", 1e5, 0}, {"atm", MCD_ATM, 0}, {"psi", 6894.757293168, 0},
+    {NULL, 0, 0}};
 
 static const unit_def *units_of(mcd_param p)
 {
@@ -67,8 +91,8 @@ static const unit_def *units_of(mcd_param p)
     case MCD_PARAM_LJ_EPS_K: return units_K;
     case MCD_PARAM_DIPOLE: return units_dipole;
     case MCD_PARAM_VB: return units_Vb;
-    case MCD_PARAM_TB: return units_K;
-    case MCD_PARAM_TC: return units_K;
+    case MCD_PARAM_TB: return units_T;
+    case MCD_PARAM_TC: return units_T;
     case MCD_PARAM_PC: return units_P;
     default: return NULL; /* V_diff, assoc: dimensionless */
     }
@@ -357,11 +381,17 @@ static mcd_status key_line(loader *L, block *b, size_t line, const token *t,
         for (u = units; u->text != NULL; ++u)
             if (strcmp(u->text, unit) == 0)
                 break;
+        if (u->text == NULL && units == units_P && ulen > 1 &&
+            unit[ulen - 1] == 'g')
+            return fail(L, MCD_EPARSE, line,
+                        "'%s': '%s' is a gauge pressure; give the absolute "
+                        "pressure (%s)",
+                        mcd_param_name((mcd_param)p), unit, list);
         if (u->text == NULL)
             return fail(L, MCD_EPARSE, line,
                         "'%s': unknown unit '%s' (expected %s)",
                         mcd_param_name((mcd_param)p), unit, list);
-        v *= u->factor;
+        v = v * u->factor + u->offset;
     }
     if (mcdi_param_check((mcd_param)p, v) != MCD_OK)
         return fail(L, MCD_EDOM, line, "'%s' must be %s, found %g",

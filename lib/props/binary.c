@@ -60,18 +60,23 @@ static mcd_status check_pos(double v)
 }
 
 /* First failing status over a list of values that must be finite and > 0;
- * EINVAL (NaN/inf) takes precedence over EDOM. */
-static mcd_status check_all_pos(const double *v, size_t n)
+ * EINVAL (NaN/inf) takes precedence over EDOM. The detail names the
+ * argument (names[i], the header's parameter names). */
+static mcd_status check_all_pos(const double *v, const char *const *names,
+                                size_t n)
 {
-    mcd_status worst = MCD_OK;
+    size_t bad = n;
     for (size_t i = 0; i < n; i++) {
         mcd_status s = check_pos(v[i]);
         if (s == MCD_EINVAL)
-            return s;
-        if (s != MCD_OK)
-            worst = s;
+            return mcdi_fail(s, "argument %s is not finite", names[i]);
+        if (s != MCD_OK && bad == n)
+            bad = i;
     }
-    return worst;
+    if (bad < n)
+        return mcdi_fail(MCD_EDOM, "argument %s: %g is not > 0", names[bad],
+                         v[bad]);
+    return MCD_OK;
 }
 
 /* Store an estimate only if it is finite and > 0. Valid inputs can still
@@ -90,14 +95,14 @@ static mcd_status finish_D(double D, double *out_D)
 mcd_status mcdi_api_binary_fsg(double T, double P, double MA, double MB,
                                double VA, double VB, double *out_D)
 {
+    static const char *const names[6] = {"T", "P", "MA", "MB", "VA", "VB"};
     const double v[6] = {T, P, MA, MB, VA, VB};
     mcd_status s;
     if (out_D == NULL)
         return MCD_EINVAL;
-    if ((s = check_all_pos(v, 6)) != MCD_OK)
+    if ((s = check_all_pos(v, names, 6)) != MCD_OK)
         return s;
     return finish_D(mcdi_fsg_coef(MA, MB, VA, VB) * pow(T, 1.75) / P, out_D);
-    return MCD_OK;
 }
 
 /* ------------------------------------------------------------------ */
@@ -158,8 +163,10 @@ double mcdi_ce_coef(double MA, double MB, double sigA, double sigB)
 static mcd_status check_lj(double T, double P, double MA, double MB,
                            double sigA, double sigB, double epsA, double epsB)
 {
+    static const char *const names[8] = {"T",    "P",    "MA",   "MB",
+                                         "sigA", "sigB", "epsA", "epsB"};
     const double v[8] = {T, P, MA, MB, sigA, sigB, epsA, epsB};
-    return check_all_pos(v, 8);
+    return check_all_pos(v, names, 8);
 }
 
 /* Chapman-Enskog and Wilke-Lee: coef(M, sigma) T^1.5 / (P Omega_D). */
@@ -232,11 +239,13 @@ mcd_status mcdi_api_binary_wilke_chang(double T, double mu_solvent,
                                        double M_solvent, double phi,
                                        double Vb_solute, double *out_D)
 {
+    static const char *const names[5] = {"T", "mu_solvent", "M_solvent", "phi",
+                                         "Vb_solute"};
     const double v[5] = {T, mu_solvent, M_solvent, phi, Vb_solute};
     mcd_status s;
     if (out_D == NULL)
         return MCD_EINVAL;
-    if ((s = check_all_pos(v, 5)) != MCD_OK)
+    if ((s = check_all_pos(v, names, 5)) != MCD_OK)
         return s;
     return finish_D(1e-4 * 7.4e-8 * sqrt(phi * 1000.0 * M_solvent) * T /
                         (1000.0 * mu_solvent * pow(1e6 * Vb_solute, 0.6)),
@@ -257,11 +266,13 @@ mcd_status mcdi_api_binary_tyn_calus(double T, double mu_solvent,
                                      double Vb_solute, double Vb_solvent,
                                      double *out_D)
 {
+    static const char *const names[4] = {"T", "mu_solvent", "Vb_solute",
+                                         "Vb_solvent"};
     const double v[4] = {T, mu_solvent, Vb_solute, Vb_solvent};
     mcd_status s;
     if (out_D == NULL)
         return MCD_EINVAL;
-    if ((s = check_all_pos(v, 4)) != MCD_OK)
+    if ((s = check_all_pos(v, names, 4)) != MCD_OK)
         return s;
     return finish_D(1e-4 * 8.93e-8 * pow(1e6 * Vb_solvent, 0.267) *
                         pow(1e6 * Vb_solute, -0.433) * T / (1e3 * mu_solvent),
@@ -280,12 +291,13 @@ mcd_status mcdi_api_binary_tyn_calus(double T, double mu_solvent,
 mcd_status mcdi_api_binary_hayduk_minhas(double T, double mu_water,
                                          double Vb_solute, double *out_D)
 {
+    static const char *const names[3] = {"T", "mu_water", "Vb_solute"};
     const double v[3] = {T, mu_water, Vb_solute};
     double V, f;
     mcd_status s;
     if (out_D == NULL)
         return MCD_EINVAL;
-    if ((s = check_all_pos(v, 3)) != MCD_OK)
+    if ((s = check_all_pos(v, names, 3)) != MCD_OK)
         return s;
     V = 1e6 * Vb_solute;
     f = pow(V, -0.19) - 0.292;
@@ -306,11 +318,12 @@ mcd_status mcdi_api_binary_scale(double D_ref, double T_ref, double P_ref,
                                  double T, double P, double exponent,
                                  double *out_D)
 {
+    static const char *const names[5] = {"D_ref", "T_ref", "P_ref", "T", "P"};
     const double v[5] = {D_ref, T_ref, P_ref, T, P};
     mcd_status s;
     if (out_D == NULL || !mcdi_finite(exponent))
         return MCD_EINVAL;
-    if ((s = check_all_pos(v, 5)) != MCD_OK)
+    if ((s = check_all_pos(v, names, 5)) != MCD_OK)
         return s;
     return finish_D(D_ref * pow(T / T_ref, exponent) * (P_ref / P), out_D);
 }

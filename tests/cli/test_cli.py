@@ -128,7 +128,7 @@ class ExitCodes(unittest.TestCase):
     def test_bad_input_exits_2_and_names_the_argument(self):
         cases = [
             (["binary", "CO2", "N2", "-T", "abc", "-P", "1atm"], "-T"),
-            (["binary", "CO2", "N2", "-T", "300", "-P", "1psi"], "-P"),
+            (["binary", "CO2", "N2", "-T", "300", "-P", "1torr"], "-P"),
             (["binary", "CO2", "N2", "--temperature", "300x", "-P", "1atm"],
              "--temperature"),
             (["binary", "CO2", "N2", "-T", "nan", "-P", "1atm"], "-T"),
@@ -247,6 +247,171 @@ class Units(unittest.TestCase):
         r = self.binary("2.9815e2", "+1.01325e5")
         self.assertAlmostEqual(r["T"], 298.15, delta=1e-12)
         self.assertAlmostEqual(r["P"], ATM, delta=1e-9)
+
+
+class PractitionerTraps(unittest.TestCase):
+    """Units and silent traps met in a first hour with the tool."""
+
+    def binary(self, *args):
+        return run_json("binary", "CO2", "N2", "--method", "fsg", *args)
+
+    def test_practical_temperature_and_pressure_units(self):
+        ref = self.binary("-T", "370.15", "-P", "101325")
+        # 97 C = 370.15 K (Celsius scale); 206.6 F = 370.15 K
+        # ((206.6 + 459.67) * 5/9, Fahrenheit scale); 1 psi =
+        # 6894.757293168 Pa (pound-force and inch; common practice)
+        for T in ("97 C", "97C", "97degC", "97\u00b0C", "206.6F",
+                  "206.6degF", "206.6 \u00b0F"):
+            with self.subTest(T=T):
+                r = self.binary("-T", T, "-P", "101325")
+                self.assertAlmostEqual(r["T"], 370.15, delta=1e-9)
+        r = self.binary("-T", "370.15", "-P", "14.6959487755psi")
+        self.assertAlmostEqual(r["P"] / ATM, 1.0, delta=1e-11)
+        self.assertAlmostEqual(r["D"] / ref["D"], 1.0, delta=1e-10)
+        code, out, err = run("film", "-s", "H2,N2", "--x0", "0.4,0.6",
+                             "--xL", "0.1,0.9", "-L", "0.19685in", "-T",
+                             "300", "-P", "1atm", "--equimolar", "--json")
+        self.assertEqual(code, 0, err)
+        self.assertAlmostEqual(json.loads(out)["L"], 0.19685 * 0.0254,
+                               delta=1e-15)
+
+    def test_gauge_pressure_is_refused_with_the_reason(self):
+        for P in ("2barg", "30psig", "150kPag"):
+            with self.subTest(P=P):
+                code, out, err = run("binary", "CO2", "N2", "-T", "300",
+                                     "-P", P)
+                self.assertEqual(code, 2)
+                self.assertEqual(out, "")
+                self.assertIn("-P/--pressure", err)
+                self.assertIn("gauge", err)
+                self.assertIn("absolute", err)
+
+    def test_unit_split_off_by_a_space_says_how_to_write_it(self):
+        code, out, err = run("binary", "CO2", "N2", "-T", "60", "C",
+                             "-P", "1atm")
+        self.assertEqual(code, 2)
+        self.assertEqual(out, "")
+        self.assertIn("-T/--temperature", err)
+        self.assertIn("60C", err)
+        self.assertIn('"60 C"', err)
+        self.assertNotIn("only two species", err)
+        code, _, err = run("fluxes", *STATE3[:6], "-P", "1", "atm",
+                           "-g", "-1,0,1")
+        self.assertEqual(code, 2)
+        self.assertIn("1atm", err)
+
+    def test_repeated_options_are_an_error_naming_the_option(self):
+        cases = [
+            (["binary", "CO2", "N2", "-T", "300", "-T", "400", "-P", "1atm"],
+             "-T/--temperature"),
+            (["binary", "CO2", "N2", "-T", "300", "--temperature=400", "-P",
+              "1atm"], "-T/--temperature"),
+            (["fluxes", *STATE3, "-P", "2atm", "-g", "-1,0,1"],
+             "-P/--pressure"),
+            (["bulbs", "-s", "H2,N2", "--x1", "1,0", "--x2", "0,1",
+              "--v1", "1L", "--V1", "2L", "--v2", "1L", "-L", "5cm",
+              "--area", "1cm2", "-T", "300", "-P", "1atm", "-t", "0,1h"],
+             "--V1"),
+            (["film", "-s", "H2,N2", "--x0", "0.4,0.6", "--xL", "0.1,0.9",
+              "--xl", "0.2,0.8", "-L", "5mm", "-T", "300", "-P", "1atm",
+              "--equimolar"], "--xl"),
+        ]
+        for args, name in cases:
+            with self.subTest(args=args):
+                code, out, err = run(*args)
+                self.assertEqual(code, 2, err)
+                self.assertEqual(out, "")
+                self.assertIn(name, err)
+                self.assertIn("given twice", err)
+        # options meant to repeat still do: one -g per direction, one
+        # --pair per pair
+        d = run_json("fluxes", *STATE3, "-g", "-1,0,1", "-g", "1,0,-1",
+                     "--pair", "H2:N2=0.8cm2/s", "--pair", "N2:CO2=0.16cm2/s")
+        self.assertEqual(len(d["gradients"][0]), 2)
+
+    def test_implausible_diffusivity_warns_and_names_the_unit(self):
+        # 8.38 meant in cm^2/s: H2-N2 near 35 C, 1 atm is about 0.8 cm^2/s
+        # (from memory of handbook tables)
+        code, out, err = run("fluxes", *STATE3, "-g", "-1,0,1", "--pair",
+                             "H2:N2=8.38", "--json")
+        self.assertEqual(code, 0, err)
+        self.assertIn("warning", err)
+        self.assertIn("8.38cm2/s", err)
+        d = json.loads(out)
+        self.assertEqual(len(d["input_warnings"]), 1)
+        self.assertIn("8.38cm2/s", d["input_warnings"][0])
+        d = run_json("fluxes", *STATE3, "-g", "-1,0,1", "--pair",
+                     "H2:N2=8.38cm2/s")
+        self.assertEqual(d["input_warnings"], [])
+
+    def test_implausible_viscosity_warns_and_names_the_unit(self):
+        # water at 25 C: 0.89 mPa s (common practice)
+        code, out, err = run("binary", "ethanol", "water", "-T", "25C",
+                             "--viscosity", "0.89", "--json")
+        self.assertEqual(code, 0, err)
+        self.assertIn("0.89cP", err)
+        self.assertIn("0.89cP", json.loads(out)["input_warnings"][0])
+        code, out, err = run("binary", "ethanol", "water", "-T", "25C",
+                             "--viscosity", "0.89cP", "--json")
+        self.assertEqual((code, err), (0, ""))
+        self.assertEqual(json.loads(out)["input_warnings"], [])
+
+    def test_gradients_not_summing_to_zero_are_shown_projected(self):
+        code, out, err = run("fluxes", *STATE3, "-g", "-20,0,20.5", "--json")
+        self.assertEqual(code, 0, err)
+        self.assertIn("sum to 0.5", err)
+        d = json.loads(out)
+        # g_i - x_i * 0.5 with x = 0.3, 0.4, 0.3
+        g = [row[0] for row in d["gradients"]]
+        for a, b in zip(g, [-20.15, -0.2, 20.35]):
+            self.assertAlmostEqual(a, b, delta=1e-12)
+        self.assertIn("-20.15,-0.2,20.35", d["input_warnings"][0])
+        # the same fluxes as the projected gradients given directly
+        ref = run_json("fluxes", *STATE3, "-g", "-20.15,-0.2,20.35")
+        self.assertEqual(ref["input_warnings"], [])
+        for a, b in zip(d["fluxes"], ref["fluxes"]):
+            self.assertAlmostEqual(a[0], b[0], delta=1e-12 * abs(b[0]) + 1e-15)
+
+    def test_total_flux_beyond_the_film_says_what_is_wrong(self):
+        film = ["film", "-s", "H2,N2,CO2", "--x0", "0.4,0.3,0.3", "--xL",
+                "0.1,0.5,0.4", "-L", "5mm", "-T", "300", "-P", "1atm"]
+        code, out, err = run(*film, "--total-flux", "100")
+        self.assertEqual(code, 2, err)
+        self.assertEqual(out, "")
+        self.assertIn("--total-flux", err)
+        self.assertIn("c D/L", err)
+        self.assertNotIn("failed: singular", err)
+        code, _, err = run(*film, "--total-flux", "1")
+        self.assertEqual(code, 0, err)
+
+    def test_messages_name_species_not_indices(self):
+        code, _, err = run("film", "-s", "acetone,methanol,air", "--x0",
+                           "0.319,0.528,0.153", "--xL", "0.5,0.5,0", "-L",
+                           "23.8cm", "-T", "328.5", "-P", "99.4kPa",
+                           "--stagnant", "air")
+        self.assertEqual(code, 2)
+        self.assertIn("stagnant species 'air'", err)
+        self.assertNotIn("species 2", err)
+
+    def test_fractions_not_summing_to_one_print_their_sum(self):
+        code, out, err = run("fluxes", "-s", "H2,N2,CO2", "-x",
+                             "0.3,0.4,0.35", "-T", "300", "-P", "1atm",
+                             "-g", "-1,0,1")
+        self.assertEqual(code, 2)
+        self.assertIn("sum to 1.05", err)
+        code, _, err = run("film", "-s", "H2,N2", "--x0", "0.4,0.6", "--xL",
+                           "0.1,0.8", "-L", "5mm", "-T", "300", "-P", "1atm",
+                           "--equimolar")
+        self.assertEqual(code, 2)
+        self.assertIn("--xL", err)
+        self.assertIn("sum to 0.9", err)
+        code, _, err = run("bulbs", "-s", "H2,N2", "--x1", "1,0", "--x2",
+                           "0,0.5", "--v1", "1L", "--v2", "1L", "-L", "5cm",
+                           "--area", "1cm2", "-T", "300", "-P", "1atm", "-t",
+                           "0,1h")
+        self.assertEqual(code, 2)
+        self.assertIn("--x2", err)
+        self.assertIn("sum to 0.5", err)
 
 
 class Json(unittest.TestCase):
@@ -932,7 +1097,7 @@ class Bulbs(unittest.TestCase):
             (cell("--v1", "-1L") + T, "--v1"),
             (cell("--v2", "5gal") + T, "--v2"),
             (cell("--area", "0") + T, "--area"),
-            (cell("-L", "3in") + T, "-L"),
+            (cell("-L", "3ft") + T, "-L"),
             (cell("--x2", "0,0.3,0.6") + T, "--x2"),
             (cell("--x1", "0.5,0.5") + T, "--x1"),
             (cell("--x1", "0.5,0.6,-0.1") + T, "--x1"),

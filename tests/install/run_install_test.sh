@@ -6,8 +6,9 @@
 #      package files; the CLI, its man page and the Fortran module when they
 #      were installed)
 #   3. compile tests/install/consumer.c with cc and pkg-config (sysroot into
-#      the DESTDIR), run it with LD_LIBRARY_PATH into the DESTDIR and check
-#      that it loaded the staged library
+#      the DESTDIR, a run path to the staged library directory as a user
+#      outside the system directories writes it), run it and check that it
+#      loaded the staged library
 #   4. if cmake is installed: the same through find_package(mcdiff CONFIG
 #      REQUIRED) with CMAKE_PREFIX_PATH into the DESTDIR, plus version checks
 #   5. if the Fortran module was installed and its compiler is here: compile
@@ -16,10 +17,15 @@
 # A missing cmake or pkg-config skips only that part (reported).
 #
 # Usage (from install/meson.build):
-#   run_install_test.sh BUILDDIR MESON PREFIX LIBDIR INCLUDEDIR BINDIR MANDIR SRCDIR
+#   run_install_test.sh BUILDDIR MESON PREFIX LIBDIR INCLUDEDIR BINDIR MANDIR SRCDIR [DATADIR [PYTHON]]
+# Everything staged is run with no LD_LIBRARY_PATH: the installed programs
+# and libraries carry run paths relative to themselves ($ORIGIN), so the
+# staged tree works as an installation under any prefix would.
 set -u
 
 BUILD=$1 MESON=$2 PREFIX=$3 LIBDIR=$4 INCLUDEDIR=$5 BINDIR=$6 MANDIR=$7 SRC=$8
+DATADIR=${9:-share} PYTHON=${10:-}
+unset LD_LIBRARY_PATH DYLD_LIBRARY_PATH
 
 skip() { echo "SKIP: $*"; exit 77; }
 fail() { echo "FAIL: $*"; exit 1; }
@@ -31,6 +37,7 @@ LIBDIR=$(abspath "$LIBDIR")
 INCLUDEDIR=$(abspath "$INCLUDEDIR")
 BINDIR=$(abspath "$BINDIR")
 MANDIR=$(abspath "$MANDIR")
+DATADIR=$(abspath "$DATADIR")
 
 [ -n "$MESON" ] || skip "the meson command was not found when configuring"
 CC=${CC:-cc}
@@ -62,9 +69,16 @@ CMDIR=$R$LIBDIR/cmake/mcdiff
 grep -q "$BUILD" "$PCDIR/mcdiff.pc" "$CMDIR/mcdiffConfig.cmake" &&
     fail "installed package files refer to the build directory $BUILD"
 
-LD_VAR=LD_LIBRARY_PATH
-[ "$(uname -s)" = Darwin ] && LD_VAR=DYLD_LIBRARY_PATH
-runlib() { env "$LD_VAR=$R$LIBDIR" "$@"; }
+# no library search path: run paths must do
+runlib() { "$@"; }
+RPATH_FLAG="-Wl,-rpath,$R$LIBDIR"
+if command -v readelf >/dev/null 2>&1; then
+    for f in "$R$LIBDIR"/libmcdiff.so.* "$R$LIBDIR"/libmcdiff_fortran.so.* "$R$BINDIR/mcdiff"; do
+        [ -f "$f" ] && [ ! -h "$f" ] || continue
+        readelf -d "$f" | grep -q 'R\(UN\)\{0,1\}PATH.*\$ORIGIN' ||
+            fail "${f#"$R"} has no run path relative to \$ORIGIN: $(readelf -d "$f" | grep PATH)"
+    done
+fi
 
 if [ -x "$R$BINDIR/mcdiff" ]; then
     runlib "$R$BINDIR/mcdiff" --version >"$TMP/cli.txt" 2>&1 ||
@@ -73,6 +87,13 @@ if [ -x "$R$BINDIR/mcdiff" ]; then
 else
     note "CLI not installed (built with -Dcli=false?): not checked"
 fi
+MAN5=
+for f in "$R$MANDIR"/man5/mcdiff-species.5*; do
+    if [ -f "$f" ]; then MAN5=$f; break; fi
+done
+[ -n "$MAN5" ] || fail "the species-file format page is not installed: $MANDIR/man5/mcdiff-species.5"
+[ -f "$R$DATADIR/doc/mcdiff/README.md" ] || fail "README not installed in $DATADIR/doc/mcdiff"
+note "species-file page and README installed: ${MAN5#"$R"}, $DATADIR/doc/mcdiff/README.md"
 MAN=
 for f in "$R$MANDIR"/man1/mcdiff.1*; do
     if [ -f "$f" ]; then MAN=$f; break; fi
@@ -98,6 +119,11 @@ if command -v pkg-config >/dev/null 2>&1; then
         fail "pkg-config --cflags --libs mcdiff"
     note "pkg-config: $FLAGS"
     case $FLAGS in *"$R"*) ;; *) fail "pkg-config flags do not point into the DESTDIR";; esac
+    # the header's directory only: no multiarch or library directory
+    CFLAGS_PC=$(PKG_CONFIG_PATH="$PCDIR${PKG_CONFIG_PATH:+:$PKG_CONFIG_PATH}" \
+            PKG_CONFIG_SYSROOT_DIR="$R" pkg-config --cflags mcdiff)
+    [ "$(echo $CFLAGS_PC)" = "-I$R$INCLUDEDIR" ] ||
+        fail "pkg-config --cflags mcdiff gives '$CFLAGS_PC', expected -I$R$INCLUDEDIR"
 else
     note "pkg-config not found: pkg-config part SKIPPED, using -I/-L directly"
     FLAGS="-I$R$INCLUDEDIR -L$R$LIBDIR -lmcdiff"
@@ -105,7 +131,7 @@ else
     PCSTATIC=
 fi
 # shellcheck disable=SC2086 # word splitting of CC and FLAGS is intended
-$CC -o "$TMP/consumer" "$SRC/consumer.c" $FLAGS -lm >"$TMP/cc.log" 2>&1 ||
+$CC -o "$TMP/consumer" "$SRC/consumer.c" $FLAGS "$RPATH_FLAG" -lm >"$TMP/cc.log" 2>&1 ||
     { cat "$TMP/cc.log"; fail "compiling consumer.c against the installed copy"; }
 runlib "$TMP/consumer" || fail "consumer (pkg-config build)"
 if command -v ldd >/dev/null 2>&1 && [ "${LIBFILE##*.}" != a ]; then
@@ -185,7 +211,7 @@ if [ -f "$R$INCLUDEDIR/mcdiff.mod" ]; then
                  PKG_CONFIG_SYSROOT_DIR="$R" pkg-config $PCSTATIC --cflags --libs mcdiff-fortran) ||
             fail "pkg-config mcdiff-fortran"
         # shellcheck disable=SC2086
-        "$FC" -o "$TMP/fconsumer" "$SRC/consumer.f90" $FFLAGS >"$TMP/fc.log" 2>&1 ||
+        "$FC" -o "$TMP/fconsumer" "$SRC/consumer.f90" $FFLAGS "$RPATH_FLAG" >"$TMP/fc.log" 2>&1 ||
             { cat "$TMP/fc.log"; fail "compiling consumer.f90 with the installed mcdiff.mod"; }
         runlib "$TMP/fconsumer" || fail "Fortran consumer"
     else
@@ -193,6 +219,23 @@ if [ -f "$R$INCLUDEDIR/mcdiff.mod" ]; then
     fi
 else
     note "Fortran module not installed: not checked"
+fi
+
+# --- Python package -----------------------------------------------------------
+if [ -n "$PYTHON" ] && [ -x "$PYTHON" ]; then
+    PYFILE=$(cd "$R" && find . -path '*/mcdiff/_native.py' | head -n 1)
+    [ -n "$PYFILE" ] || fail "Python package not installed"
+    PYDIR=$(dirname "$(dirname "${PYFILE#.}")")
+    note "Python package: $PYDIR/mcdiff"
+    # where the interpreter it was installed for looks, when the prefix is
+    # one it searches (as /usr/local for Debian's python3)
+    if "$PYTHON" -c 'import sys; sys.exit(0 if any(p.startswith(sys.argv[1] + "/") for p in sys.path) else 1)' "$PREFIX"; then
+        "$PYTHON" -c 'import sys; sys.exit(0 if sys.argv[1] in sys.path else 1)' "$PYDIR" ||
+            fail "$PYDIR is not on the sys.path of $PYTHON"
+    fi
+    (cd "$TMP" && PYTHONPATH="$R$PYDIR" MCDIFF_LIBRARY="$(ls "$R$LIBDIR"/libmcdiff.so.[0-9]* | head -n 1)" \
+        "$PYTHON" -c 'import mcdiff, sys; sys.exit(0 if mcdiff.__file__.startswith(sys.argv[1]) else 1)' "$R") ||
+        fail "the staged Python package does not import"
 fi
 
 note "all checks passed"

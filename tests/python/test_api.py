@@ -174,7 +174,7 @@ class Binaries(unittest.TestCase):
         wl = db.binary_gas("carbon-dioxide", "nitrogen", "wilke-lee", T, P)
         self.assertEqual(wl.D, mcdiff.binary_wilke_lee(
             T, P, pa[M], pb[M], pa[S], pb[S], pa[E], pb[E]))
-        self.assertIsInstance(est.warnings, mcdiff.Warning)
+        self.assertIsInstance(est.warnings, mcdiff.EstimateWarning)
 
     def test_fsg_equation(self):
         # Fuller, Schettler and Giddings (1966): D = 1.00e-3 T^1.75
@@ -234,8 +234,8 @@ class Binaries(unittest.TestCase):
         self.assertIsNone(mcdiff.method_name(99))
         with self.assertRaises(mcdiff.NotFoundError):
             mcdiff.method_from_name("guess")
-        texts = mcdiff.warning_strings(mcdiff.Warning.POLAR |
-                                       mcdiff.Warning.QUANTUM)
+        texts = mcdiff.warning_strings(mcdiff.EstimateWarning.POLAR |
+                                       mcdiff.EstimateWarning.QUANTUM)
         self.assertEqual(len(texts), 2)
         self.assertTrue(all(texts))
         self.assertIsNone(mcdiff.warning_string(1 << 20))
@@ -327,7 +327,7 @@ class MixtureTests(unittest.TestCase):
                                                      "fsg", 300.0, ATM).D)
         det = self.mix.binaries_detail(300.0, ATM)
         self.assertEqual(rows(det.D), D)
-        self.assertEqual(det.warnings[0][0], mcdiff.Warning(0))
+        self.assertEqual(det.warnings[0][0], mcdiff.EstimateWarning(0))
 
     def test_user_binary_scales_as_documented(self):
         self.mix.set_binary("hydrogen", "nitrogen", 7.7e-5, 298.0, ATM)
@@ -826,6 +826,8 @@ class Liquids(unittest.TestCase):
         ref = (1e-4 * 1.25e-8 * (96 ** -0.19 - 0.292) * 298.15 ** 1.52
                * 0.89 ** (9.58 / 96 - 1.12))
         self.assertAlmostEqual(D / ref, 1.0, delta=1e-12)
+
+
 class Porous(unittest.TestCase):
     """Viscosity and the Dusty Gas Model through Python."""
 
@@ -898,6 +900,97 @@ class Porous(unittest.TestCase):
             mcdiff.dgm_fluxes(D, M, x, [-20.0, 20.0], 300.0, 1e5, 2e-5,
                               porosity=1.5, tortuosity=3.0, d_pore=1e-7)
         self.assertIn("porosity", str(cm.exception))
+
+
+class PractitionerMessages(unittest.TestCase):
+    """Messages that say what to fix; one vocabulary with the CLI."""
+
+    def test_raw_estimates_name_the_bad_argument(self):
+        with self.assertRaises(mcdiff.DomainError) as cm:
+            mcdiff.binary_fsg(300.0, -5.0, 2.016e-3, 28.0e-3, 6.12, 18.5)
+        self.assertIn("argument P", str(cm.exception))
+        with self.assertRaises(mcdiff.DomainError) as cm:
+            mcdiff.binary_chapman_enskog(300.0, 1e5, 2e-3, 28e-3, 2.9e-10,
+                                         -3.7e-10, 38.0, 71.0)
+        self.assertIn("argument sigB", str(cm.exception))
+        with self.assertRaises(mcdiff.InvalidArgumentError) as cm:
+            mcdiff.binary_wilke_chang(float("nan"), 8.9e-4, 18e-3, 2.6, 6e-5)
+        self.assertIn("argument T", str(cm.exception))
+        db = mcdiff.Database.builtin()
+        with self.assertRaises(mcdiff.DomainError) as cm:
+            mcdiff.binary_gas(db, "hydrogen", "nitrogen", "fsg", 300.0, -5.0)
+        self.assertIn("argument P", str(cm.exception))
+
+    def test_film_species_by_name(self):
+        rng = Rng(33)
+        D = rng.dij(3)
+        x0, xL = [0.3, 0.4, 0.3], [0.1, 0.3, 0.6]
+        names = ["hydrogen", "nitrogen", "carbon-dioxide"]
+        by_index = mcdiff.film_solve(D, 40.0, 0.05, x0, xL, "stagnant",
+                                     species=2)
+        by_name = mcdiff.film_solve(D, 40.0, 0.05, x0, xL, "stagnant",
+                                    species="Carbon-Dioxide", names=names)
+        self.assertEqual(flat(by_index.N), flat(by_name.N))
+        self.assertEqual(flat(by_name.N)[2], 0.0)
+        with self.assertRaises(TypeError) as cm:
+            mcdiff.film_solve(D, 40.0, 0.05, x0, xL, "stagnant",
+                              species="carbon-dioxide")
+        self.assertIn("names=", str(cm.exception))
+        self.assertNotIn("invalid literal", str(cm.exception))
+        with self.assertRaises(ValueError) as cm:
+            mcdiff.film_solve(D, 40.0, 0.05, x0, xL, "stagnant",
+                              species="argon", names=names)
+        self.assertIn("carbon-dioxide", str(cm.exception))
+        F = mcdiff.fick_matrix(D, x0, dependent="nitrogen", names=names)
+        self.assertEqual(F.dependent, 1)
+
+    def test_import_star_does_not_shadow_builtin_warning(self):
+        ns = {}
+        exec("from mcdiff import *", ns)
+        self.assertNotIn("Warning", ns)
+        self.assertIn("EstimateWarning", ns)
+        self.assertIs(mcdiff.Warning, mcdiff.EstimateWarning)
+
+    def test_one_vocabulary_with_the_cli(self):
+        rng = Rng(34)
+        D = rng.dij(3)
+        x, g = [0.3, 0.4, 0.3], [-1.0, 0.0, 1.0]
+        ref = mcdiff.flux_compute(D, 40.0, x, g, model="maxwell-stefan")
+        same = mcdiff.flux_compute(D, 40.0, x, g, model="exact")
+        self.assertEqual(flat(ref), flat(same))
+        for kw in ({"model": "ms"}, {"model": "mixavg"},
+                   {"comp_basis": "molar"}, {"comp_basis": "mol"}):
+            with self.subTest(kw=kw), self.assertRaises(ValueError):
+                mcdiff.flux_compute(D, 40.0, x, g, **kw)
+        db = mcdiff.Database.builtin()
+        for m in ("ce", "chapman"):
+            with self.subTest(method=m), self.assertRaises(ValueError):
+                db.binary_gas("hydrogen", "nitrogen", m, 300.0, 1e5)
+        cli = os.environ.get("MCDIFF_CLI")
+        if not cli:
+            return
+        state = ["fluxes", "-s", "H2,N2,CO2", "-x", "0.3,0.4,0.3", "-g",
+                 "-1,0,1", "-T", "300", "-P", "1atm"]
+        for word, ok in (("exact", True), ("maxwell-stefan", True),
+                         ("mixture-averaged", True), ("ms", False)):
+            p = subprocess.run([cli, *state, "--model", word],
+                               capture_output=True, text=True)
+            self.assertEqual(p.returncode == 0, ok, (word, p.stderr))
+            try:
+                mcdiff.flux_compute(D, 40.0, x, g, model=word)
+                py_ok = True
+            except ValueError:
+                py_ok = False
+            self.assertEqual(py_ok, ok, word)
+        for word, ok in (("mole", True), ("mass", True), ("molar", False)):
+            p = subprocess.run([cli, *state, "--basis", word],
+                               capture_output=True, text=True)
+            self.assertEqual(p.returncode == 0, ok, (word, p.stderr))
+        for word, ok in (("chapman-enskog", True), ("ce", False)):
+            p = subprocess.run([cli, "binary", "H2", "N2", "-T", "300", "-P",
+                                "1atm", "-m", word],
+                               capture_output=True, text=True)
+            self.assertEqual(p.returncode == 0, ok, (word, p.stderr))
 
 
 if __name__ == "__main__":

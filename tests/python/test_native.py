@@ -136,7 +136,7 @@ class Versions(unittest.TestCase):
         self.assertEqual(mcdiff.SUM_TOL, m["MCD_SUM_TOL"])
         self.assertEqual(mcdiff.GAS_CONSTANT, m["MCD_GAS_CONSTANT"])
         self.assertEqual(mcdiff.ATM, m["MCD_ATM"])
-        for cls, prefix in ((mcdiff.Warning, "MCD_WARN_"),
+        for cls, prefix in ((mcdiff.EstimateWarning, "MCD_WARN_"),
                             (mcdiff.Diag, "MCD_DIAG_")):
             for member in cls:
                 self.assertEqual(int(member), m[prefix + member.name], member)

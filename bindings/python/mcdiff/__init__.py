@@ -19,7 +19,8 @@ from ._native import lib_path as library_path
 from ._arrays import HAVE_NUMPY
 from .enums import (ATM, DEPENDENT_AUTO, GAS_CONSTANT, MAX_DIM, MAX_SPECIES,
                     SUM_TOL, Basis, Bootstrap, Diag, FilmBootstrap,
-                    FilmMethod, GasMethod, Method, Model, Param, Warning)
+                    FilmMethod, GasMethod, Method, Model, Param,
+                    EstimateWarning, Warning)
 from .errors import (BadLengthError, DomainError, FileError, InternalError,
                      InvalidArgumentError, McdError, NoConvergenceError,
                      NoDataError, NotFoundError, OutOfMemoryError, ParseError,
@@ -35,7 +36,7 @@ __all__ = [
     "__version__", "BUILT_FOR", "library_path", "HAVE_NUMPY",
     "ATM", "DEPENDENT_AUTO", "GAS_CONSTANT", "MAX_DIM", "MAX_SPECIES",
     "SUM_TOL", "Basis", "Bootstrap", "Diag", "FilmBootstrap", "FilmMethod",
-    "GasMethod", "Method", "Model", "Param", "Warning",
+    "GasMethod", "Method", "Model", "Param", "EstimateWarning",
     "McdError", "InvalidArgumentError", "DomainError", "BadLengthError",
     "OutOfMemoryError", "SingularMatrixError", "InternalError",
     "NotFoundError", "ParseError", "NoDataError", "NoConvergenceError",

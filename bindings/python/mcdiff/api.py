@@ -120,6 +120,31 @@ def _ptr(arg):
     return None if arg is None else arg.ptr
 
 
+def _species_index(value, n, names, fn, arg="species"):
+    """A species index 0..n-1 from an index or, with names (the species
+    in the order of the arrays), a name (case-insensitive)."""
+    if isinstance(value, str):
+        if names is None:
+            raise TypeError(
+                "%s: %s=%r is a name: also pass names=[...] (the species in "
+                "the order of the arrays) to refer to species by name, or "
+                "give the index 0..%d" % (fn, arg, value, n - 1))
+        names = [str(v) for v in names]
+        if len(names) != n:
+            raise ValueError("%s: names has %d entries for %d species"
+                             % (fn, len(names), n))
+        low = [v.lower() for v in names]
+        if value.lower() not in low:
+            raise ValueError("%s: %s=%r is not one of names (%s)"
+                             % (fn, arg, value, ", ".join(names)))
+        return low.index(value.lower())
+    if isinstance(value, bool) or not hasattr(value, "__index__"):
+        raise TypeError("%s: %s=%r: expected a species index 0..%d or, with "
+                        "names=[...], a species name"
+                        % (fn, arg, value, n - 1))
+    return int(value)
+
+
 def _field_result(out, was_1d):
     """Drop the direction axis of a (n, 1) result when the input was 1-D."""
     r = out.result()
@@ -508,12 +533,13 @@ def thermal_ratios(Dij, c, comp, M, DT, *, comp_basis="mole",
 
 
 def fick_matrix(Dij, comp, *, M=None, comp_basis="mole", Gamma=None,
-                basis="mole", dependent=None, workspace=None):
+                basis="mole", dependent=None, workspace=None, names=None):
     """Generalized Fick matrix (mcd_fick_matrix): FickMatrix(D, dependent).
 
     J = -c [D] grad x (basis "mole") or j = -rho [D] grad w (basis "mass"),
-    over the species other than `dependent` (index; None picks the most
-    abundant). D is (n-1) x (n-1) [m^2/s].
+    over the species other than `dependent` (an index or, with names = the
+    species in the order of comp, a name; None picks the most abundant).
+    D is (n-1) x (n-1) [m^2/s].
     """
     cb = coerce(Basis, comp_basis, "comp_basis")
     b = coerce(Basis, basis, "basis")
@@ -523,7 +549,8 @@ def fick_matrix(Dij, comp, *, M=None, comp_basis="mole", Gamma=None,
     m = _opt(M, lambda v: _arrays.vector(v, n, "M"))
     G = _opt(Gamma, lambda v: _arrays.matrix(v, n, n, "Gamma"))
     dep = ctypes.c_size_t(ctypes.c_size_t(-1).value if dependent is None
-                          else int(dependent))
+                          else _species_index(dependent, n, names,
+                                              "fick_matrix", "dependent"))
     ws = _ws(workspace, n)
     k = max(n - 1, 0)
     o = _arrays.Output((k, k))
@@ -625,11 +652,12 @@ def flux_to_species_frame(x, J, k):
 
 
 def flux_total(comp, diff, bootstrap, *, species=0, values=None,
-               basis="mole"):
+               basis="mole", names=None):
     """Total fluxes N_i = J_i + x_i N_t (basis "mole") or
     n_i = j_i + w_i n_t ("mass") under a bootstrap condition:
     "total" (values = N_t per direction), "stagnant" (species does not
-    move), "equimolar", "weights" (values = nu, length n).
+    move), "equimolar", "weights" (values = nu, length n). species: an
+    index or, with names (the species in the order of comp), a name.
     Returns TotalFlux(total, bulk)."""
     b = coerce(Basis, basis, "basis")
     kind = coerce(Bootstrap, bootstrap, "bootstrap")
@@ -645,7 +673,8 @@ def flux_total(comp, diff, bootstrap, *, species=0, values=None,
         vals = _arrays.vector(values, want, "values")
     o = _arrays.Output((n, nd))
     bulk = _arrays.Output((nd,))
-    st = lib.mcd_flux_total(n, nd, b, y.ptr, f.ptr, kind, int(species),
+    species = _species_index(species, n, names, "flux_total")
+    st = lib.mcd_flux_total(n, nd, b, y.ptr, f.ptr, kind, species,
                             _ptr(vals), o.ptr, bulk.ptr)
     _check(st, "mcd_flux_total", "bootstrap %s" % kind.name.lower())
     bk = bulk.result()
@@ -879,13 +908,15 @@ def flux_batch_dij(Dij, c, comp, grad, *, M=None, model="maxwell-stefan",
 # ---------------------------------------------------------------------------
 
 def film_solve(Dij, c, L, x0, xL, bootstrap="stagnant", *, species=None,
-               values=None, method="exact", workspace=None):
+               values=None, method="exact", workspace=None, names=None):
     """Steady fluxes through a film / Stefan tube (mcd_film_solve).
 
-    bootstrap: "stagnant" (species = the index that does not move),
+    bootstrap: "stagnant" (species = the species that does not move),
     "equimolar", "weights" (values = nu), "total" (values = N_t) or
-    "ratios" (values = z, species = index whose end composition is
-    matched). method: "exact" (Krishna-Standart) or "linearized".
+    "ratios" (values = z, species = the species whose end composition is
+    matched). species is an index 0..n-1 or, when names (the species in
+    the order of x0) is given, a name. method: "exact" (Krishna-Standart)
+    or "linearized".
     Returns FilmResult(N, iterations, residual).
     """
     kind = coerce(FilmBootstrap, bootstrap, "bootstrap")
@@ -899,6 +930,7 @@ def film_solve(Dij, c, L, x0, xL, bootstrap="stagnant", *, species=None,
             raise ValueError("film_solve: bootstrap %r needs species="
                              % kind.name.lower())
         species = 0
+    species = _species_index(species, n, names, "film_solve")
     vals = None
     if values is not None:
         if isinstance(values, (int, float)):
@@ -911,7 +943,7 @@ def film_solve(Dij, c, L, x0, xL, bootstrap="stagnant", *, species=None,
     res = ctypes.c_double()
     film = mcd_film(n_species=n, c=_sc(c, "c"), L=_sc(L, "L"), Dij=D.ptr,
                     x0=a0.ptr, xL=aL.ptr)
-    st = lib.mcd_film_solve(ws._p(), ctypes.byref(film), kind, int(species),
+    st = lib.mcd_film_solve(ws._p(), ctypes.byref(film), kind, species,
                             _ptr(vals), meth, o.ptr, ctypes.byref(it),
                             ctypes.byref(res))
     ws.check(st, "mcd_film_solve")

@@ -10,7 +10,7 @@ import enum
 __all__ = [
     "Param", "Method", "GasMethod", "Basis", "Model", "Bootstrap", "FilmBootstrap",
     "FilmMethod",
-    "Warning", "Diag", "MAX_SPECIES", "MAX_DIM", "SUM_TOL", "GAS_CONSTANT",
+    "EstimateWarning", "Diag", "MAX_SPECIES", "MAX_DIM", "SUM_TOL", "GAS_CONSTANT",
     "ATM", "DEPENDENT_AUTO", "coerce",
 ]
 
@@ -100,7 +100,7 @@ class FilmMethod(enum.IntEnum):
     LINEARIZED = 1
 
 
-class Warning(enum.IntFlag):  # noqa: A001 - mirrors MCD_WARN_*
+class EstimateWarning(enum.IntFlag):
     """Warning bits of binary estimates (MCD_WARN_*)."""
     HIGH_PRESSURE = 0x01
     POLAR = 0x02
@@ -111,6 +111,11 @@ class Warning(enum.IntFlag):  # noqa: A001 - mirrors MCD_WARN_*
     SCALED = 0x40
 
 
+#: The name of this class before 0.2; not exported by `import *`, where it
+#: would shadow the built-in Warning.
+Warning = EstimateWarning  # noqa: A001
+
+
 class Diag(enum.IntFlag):
     """Per-species coupling diagnostics (MCD_DIAG_*)."""
     REVERSE = 0x1
@@ -118,12 +123,12 @@ class Diag(enum.IntFlag):
     BARRIER = 0x4
 
 
+# One vocabulary with the command line: names are the enumeration's own
+# (maxwell-stefan, mixture-averaged, mole, mass, chapman-enskog, ...), plus
+# the command line's "exact" for the Maxwell-Stefan model; no other
+# abbreviations (the CLI refuses them too).
 _ALIASES = {
-    Basis: {"molar": Basis.MOLE, "mol": Basis.MOLE},
-    Model: {"exact": Model.MAXWELL_STEFAN, "ms": Model.MAXWELL_STEFAN,
-            "mixavg": Model.MIXTURE_AVERAGED,
-            "mixture_avg": Model.MIXTURE_AVERAGED},
-    Method: {"chapman": Method.CHAPMAN_ENSKOG, "ce": Method.CHAPMAN_ENSKOG},
+    Model: {"exact": Model.MAXWELL_STEFAN},
     Param: {k: Param(v) for k, v in _PARAM_SHORT.items()},
 }
 

@@ -12,7 +12,7 @@ import weakref
 
 from . import _arrays
 from ._native import lib
-from .enums import GasMethod, Param, Warning, coerce
+from .enums import GasMethod, Param, EstimateWarning, coerce
 from .errors import error_for
 
 __all__ = ["Workspace", "Database", "Mixture", "BinaryEstimate",
@@ -23,14 +23,14 @@ __all__ = ["Workspace", "Database", "Mixture", "BinaryEstimate",
 BinaryEstimate = collections.namedtuple("BinaryEstimate",
                                         "D rel_err warnings")
 BinaryEstimate.__doc__ = """A binary diffusivity estimate: D [m^2/s], the
-method's typical relative error [-] and its Warning flags."""
+method's typical relative error [-] and its EstimateWarning flags."""
 
 BinaryMatrices = collections.namedtuple("BinaryMatrices",
                                         "D rel_err warnings")
 BinaryMatrices.__doc__ = """Binary diffusivities of a mixture at (T, P):
 D (n x n, [m^2/s], diagonal 0), rel_err (n x n typical relative errors,
 NaN for user values and on the diagonal) and warnings (n x n nested list
-of Warning flags)."""
+of EstimateWarning flags)."""
 
 GasState = collections.namedtuple("GasState", "c D M")
 GasState.__doc__ = """Ideal-gas state of a mixture: c [mol/m^3], binary
@@ -317,7 +317,7 @@ class Database(_Handle):
                                 ctypes.byref(warn))
         if st:
             _raise(st, "mcd_db_binary_gas", "%s-%s by %s" % (a, b, m.name))
-        return BinaryEstimate(D.value, rel.value, Warning(warn.value))
+        return BinaryEstimate(D.value, rel.value, EstimateWarning(warn.value))
 
     def binary_liquid(self, solute, solvent, T, mu_solvent):
         """Wilke-Chang infinite-dilution diffusivity (mcd_db_binary_liquid)."""
@@ -329,7 +329,7 @@ class Database(_Handle):
                                    ctypes.byref(warn))
         if st:
             _raise(st, "mcd_db_binary_liquid", "%s in %s" % (solute, solvent))
-        return BinaryEstimate(D.value, rel.value, Warning(warn.value))
+        return BinaryEstimate(D.value, rel.value, EstimateWarning(warn.value))
 
     def mixture(self, names, method="fsg"):
         """A Mixture of the named species (parameters are copied)."""
@@ -447,7 +447,8 @@ class Mixture(_Handle):
                                       _arrays.scalar(P, "P"), d.ptr, r.ptr, w)
         if st:
             _raise(st, "mcd_mixture_binaries", "T = %r K, P = %r Pa" % (T, P))
-        warns = [[Warning(w[i * n + j]) for j in range(n)] for i in range(n)]
+        warns = [[EstimateWarning(w[i * n + j]) for j in range(n)]
+                 for i in range(n)]
         return BinaryMatrices(d.result(), r.result(), warns)
 
     def set_temperature_fit(self, T_min, T_max):
