@@ -1369,6 +1369,8 @@ MCD_API mcd_status mcd_bulbs_integrate(mcd_workspace *ws,
  * results do not replace validated data and engineering review.
  */
 
+/** A liquid mixture: its activity model, parameters and infinite-dilution
+ *  diffusivities (opaque; mcd_liquid_new, mcd_liquid_free). */
 typedef struct mcd_liquid mcd_liquid;
 
 /** Activity-coefficient models of a liquid. */
