@@ -2,11 +2,14 @@
  *
  * Objects and arrays nest up to CLI_JSON_MAX_DEPTH levels, each level on its
  * own lines with two-space indentation (number arrays stay on one line).
- * Strings are escaped per RFC 8259; numbers print with %.17g so that they
- * read back to the same double; NaN and infinities become null.
+ * Strings are escaped per RFC 8259; numbers print as the shortest of %.1g
+ * .. %.17g that reads back to the same double (0.07, not
+ * 0.070000000000000007); NaN and infinities become null.
  */
 #include <math.h>
 #include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
 #include "cli.h"
 
 void cli_json_init(cli_json *j, FILE *f)
@@ -108,10 +111,27 @@ void cli_json_string(cli_json *j, const char *key, const char *s)
 
 static void put_number(FILE *f, double v)
 {
-    if (isfinite(v))
-        fprintf(f, "%.17g", v);
-    else
+    char buf[40];
+    int prec;
+    if (!isfinite(v)) {
         fputs("null", f);
+        return;
+    }
+    /* %.17g always reads back (IEEE 754 double); the first shorter one
+     * that does is the shortest decimal of the same value */
+    for (prec = 1; prec <= 17; prec++) {
+        snprintf(buf, sizeof buf, "%.*g", prec, v);
+        if (strtod(buf, NULL) == v)
+            break;
+    }
+    /* whole-number magnitudes without an exponent (300, not 3e+02); more
+     * digits than the shortest still read back */
+    if (strchr(buf, 'e') != NULL && fabs(v) >= 1.0 && fabs(v) < 1e17) {
+        int digits = (int)floor(log10(fabs(v))) + 1;
+        if (digits > prec)
+            snprintf(buf, sizeof buf, "%.*g", digits, v);
+    }
+    fputs(buf, f);
 }
 
 void cli_json_number(cli_json *j, const char *key, double v)

@@ -563,6 +563,19 @@ class Fluxes(unittest.TestCase):
                                delta=1e-12)
         self.assertAlmostEqual(d["fick_matrix"][0][0] / D, 1.0, delta=1e-12)
 
+    def test_json_numbers_are_the_shortest_that_read_back(self):
+        # 0.07 prints as 0.07, not 0.070000000000000007, and every number
+        # still reads back to the double the tool computed (common
+        # practice: shortest round-trip decimal)
+        code, out, err = run("fluxes", "-s", "H2,N2,CO2", "-x",
+                             "0.07,0.63,0.3", "-g", "1,0,-1", "-T", "300",
+                             "-P", "1atm", "--json")
+        self.assertEqual(code, 0, err)
+        self.assertIn("0.07,", out.replace(" ", ""))
+        self.assertNotIn("0.070000000000000007", out)
+        d = json.loads(out)
+        self.assertEqual(d["mole_fractions"][0], 0.07)
+
     def test_species_lookup_suggests_and_refuses_ambiguous_formulas(self):
         code, _, err = run("species", "nitrogn")
         self.assertEqual(code, 2)
