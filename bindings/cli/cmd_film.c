@@ -124,6 +124,10 @@ typedef struct film_job {
     size_t it_e, it_l;
     double res_e, res_l;
     double *z, *xz; /* profile */
+    /* --ratios: the end state the solved fluxes reach (only the matched
+     * species' value is imposed; the others follow from the film) */
+    double xLs[MCD_MAX_SPECIES];
+    int have_xLs;
 } film_job;
 
 static const char *boot_name(mcd_film_bootstrap k)
@@ -487,6 +491,11 @@ static void print_json(const film_job *fj)
     cli_json_number(&j, "L", fj->L);
     cli_json_numbers(&j, "x0", s->x, n);
     cli_json_numbers(&j, "xL", fj->xL, n);
+    if (fj->have_xLs) {
+        cli_json_numbers(&j, "xL_solved", fj->xLs, n);
+        cli_json_string(&j, "xL_imposed",
+                        mcd_mixture_name(s->mix, fj->species));
+    }
     cli_json_object_begin(&j, "bootstrap");
     cli_json_string(&j, "kind", boot_name(fj->kind));
     if (fj->kind == MCD_FILM_BOOT_STAGNANT || fj->kind == MCD_FILM_BOOT_RATIOS)
@@ -591,7 +600,11 @@ static void print_table(const film_job *fj)
     for (i = 0; i < n; i++) {
         cells[0] = mcd_mixture_name(s->mix, i);
         snprintf(b[1], sizeof b[1], "%.5g", s->x[i]);
-        snprintf(b[2], sizeof b[2], "%.5g", fj->xL[i]);
+        if (fj->have_xLs)
+            snprintf(b[2], sizeof b[2], "%.5g%s", fj->xLs[i],
+                     i == fj->species ? " *" : "");
+        else
+            snprintf(b[2], sizeof b[2], "%.5g", fj->xL[i]);
         snprintf(b[3], sizeof b[3], "%.5e", N[i]);
         snprintf(b[4], sizeof b[4], "%.5e", fj->Nl[i]);
         {
@@ -622,6 +635,9 @@ static void print_table(const film_job *fj)
                fj->res_l);
     if (both)
         printf("  deviation = (N linearized - N exact) / |N exact|\n");
+    if (fj->have_xLs)
+        printf("  x(z=L): the end state the fluxes reach; * = imposed "
+               "(--match), the others follow from the film\n");
     printf("%s\n", CLI_CAUTION_TRANSFER_SHORT);
 }
 
@@ -681,6 +697,26 @@ int cli_cmd_film(int argc, char **argv)
         rc = solve(fj, cmd, MCD_FILM_LINEARIZED, fj->Nl, &fj->it_l, &fj->res_l);
         if (rc != CLI_OK)
             goto done;
+    }
+    if (fj->kind == MCD_FILM_BOOT_RATIOS) {
+        const double zL = fj->L;
+        st = mcd_film_profile(s->ws,
+                              &(mcd_film){.n_species = n,
+                                          .c = s->c,
+                                          .L = fj->L,
+                                          .Dij = s->Dij,
+                                          .x0 = s->x},
+                              fj->run & RUN_EXACT ? fj->Ne : fj->Nl, 1, &zL,
+                              fj->xLs);
+        if (st != MCD_OK) {
+            rc = cli_fail(cmd, "the end state of the film", st,
+                          mcd_last_error());
+            goto done;
+        }
+        /* the matched value is the imposed one (the solve's mismatch is
+         * the residual printed with the fluxes), not its round-off */
+        fj->xLs[fj->species] = fj->xL[fj->species];
+        fj->have_xLs = 1;
     }
     if (fj->profile) {
         /* The profile is the exact solution for the exact fluxes. */

@@ -563,6 +563,27 @@ class Fluxes(unittest.TestCase):
                                delta=1e-12)
         self.assertAlmostEqual(d["fick_matrix"][0][0] / D, 1.0, delta=1e-12)
 
+    def test_film_ratios_print_the_solved_end_state(self):
+        # with --ratios only the matched species' end value is imposed; the
+        # others follow from the film. Check the printed end state against
+        # the exact profile at z = L and the sum of fractions there.
+        args = ["film", "-s", "acetone,methanol,air", "--x0",
+                "0.319,0.528,0.153", "--xL", "0,0,1", "-L", "23.8cm", "-T",
+                "328.5", "-P", "99.4kPa", "--ratios", "0.4,0.6,0", "--match",
+                "acetone"]
+        d = run_json(*args)
+        self.assertEqual(d["xL_imposed"], "acetone")
+        xs = d["xL_solved"]
+        self.assertEqual(xs[0], 0.0)
+        self.assertAlmostEqual(sum(xs), 1.0, delta=1e-12)
+        self.assertNotAlmostEqual(xs[2], 1.0, delta=0.1)  # not the input
+        p = run_json(*args, "--profile", "--points", "3")
+        for a, b in zip(xs[1:], p["profile"]["x"][-1][1:]):
+            self.assertAlmostEqual(a, b, delta=1e-12)
+        code, out, _ = run(*args)
+        self.assertEqual(code, 0)
+        self.assertIn("* = imposed", out)
+
     def test_json_numbers_are_the_shortest_that_read_back(self):
         # 0.07 prints as 0.07, not 0.070000000000000007, and every number
         # still reads back to the double the tool computed (common
