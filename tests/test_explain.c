@@ -15,32 +15,37 @@
 #define PI 3.14159265358979323846
 
 static sup_rng rng = SUP_RNG(SUP_SPLITMIX64, 0); /* seeded by each test */
+
+/* Species of the built-in table used here, looked up once by the fixture:
+ * gases with every parameter the three gas methods need (some polar or
+ * light, so that warnings occur), then Wilke-Chang solutes and solvents. */
+static const char *const names[] = {
+    /* gases, G0.. */
+    "nitrogen", "oxygen", "carbon-dioxide", "methane", "hydrogen", "helium",
+    "argon", "water", "ethanol", "ammonia",
+    /* solutes, S0.. */
+    "benzene", "ethanol", "methanol", "acetone", "water", "toluene",
+    /* solvents, L0.. */
+    "water", "ethanol", "methanol", "benzene"};
+enum { G0 = 0, N_GAS = 10, S0 = 10, N_SOL = 6, L0 = 16, N_SOLV = 4 };
+#define N_NAMES (sizeof names / sizeof names[0])
+enum { N2 = G0, CO2 = G0 + 2 };
+
 static mcd_db *db;
+static size_t ix[N_NAMES]; /* database index of names[k] */
 
 static void db_setup(void)
 {
     ck_assert_int_eq(mcd_db_new_builtin(&db), MCD_OK);
+    for (size_t k = 0; k < N_NAMES; k++)
+        ck_assert_msg(mcd_db_find(db, names[k], &ix[k]) == MCD_OK,
+                      "species %s missing", names[k]);
 }
 static void db_teardown(void)
 {
     mcd_db_free(db);
     db = NULL;
 }
-
-static size_t idx(const char *name)
-{
-    size_t i = (size_t)-1;
-    ck_assert_msg(mcd_db_find(db, name, &i) == MCD_OK, "species %s missing",
-                  name);
-    return i;
-}
-
-/* Gas pairs of the built-in table with every parameter the three gas
- * methods need (some polar or light, so that warnings occur). */
-static const char *const gas_species[] = {
-    "nitrogen", "oxygen", "carbon-dioxide", "methane", "hydrogen",
-    "helium",   "argon",  "water",          "ethanol", "ammonia"};
-#define N_GAS (sizeof gas_species / sizeof gas_species[0])
 
 /* D rebuilt from the slots by the method's formula in its published units
  * (cm^2/s, g/mol, atm or bar, Angstrom, cP, cm^3/mol), then to SI. */
@@ -124,8 +129,8 @@ START_TEST(explain_gas_intermediates_rebuild_the_estimate)
                                      MCD_METHOD_WILKE_LEE};
     sup_seed(&rng, 4711);
     for (int trial = 0; trial < 400; trial++) {
-        size_t a = idx(gas_species[sup_next(&rng) % N_GAS]);
-        size_t b = idx(gas_species[sup_next(&rng) % N_GAS]);
+        size_t a = ix[G0 + sup_next(&rng) % N_GAS];
+        size_t b = ix[G0 + sup_next(&rng) % N_GAS];
         mcd_method m = ms[sup_next(&rng) % 3];
         double T = sup_exp_range(&rng, 150.0, 2000.0);
         double P = sup_exp_range(&rng, 1e3, 5e7);
@@ -161,14 +166,10 @@ END_TEST
 
 START_TEST(explain_wilke_chang_intermediates_rebuild_the_estimate)
 {
-    static const char *const solutes[] = {"benzene", "ethanol", "methanol",
-                                          "acetone", "water",   "toluene"};
-    static const char *const solvents[] = {"water", "ethanol", "methanol",
-                                           "benzene"};
     sup_seed(&rng, 815);
     for (int trial = 0; trial < 200; trial++) {
-        size_t a = idx(solutes[sup_next(&rng) % 6]);
-        size_t b = idx(solvents[sup_next(&rng) % 4]);
+        size_t a = ix[S0 + sup_next(&rng) % N_SOL];
+        size_t b = ix[L0 + sup_next(&rng) % N_SOLV];
         double T = sup_range(&rng, 275.0, 370.0);
         double mu = sup_exp_range(&rng, 2e-4, 3e-3);
         double v[MCD_EXPLAIN_COUNT], D = SUP_GUARD, err = SUP_GUARD;
@@ -202,10 +203,10 @@ START_TEST(explain_matches_worked_example_co2_n2)
      * D = 0.52 cm^2/s (measured 0.58 cm^2/s). The tolerances are half a
      * unit of the last printed digit (relative). */
     double v[MCD_EXPLAIN_COUNT];
-    ck_assert_int_eq(
-        mcd_db_binary_explain(db, idx("carbon-dioxide"), idx("nitrogen"),
-                              MCD_METHOD_CHAPMAN_ENSKOG, 590.0, 1e5, NAN, v),
-        MCD_OK);
+    ck_assert_int_eq(mcd_db_binary_explain(db, ix[CO2], ix[N2],
+                                           MCD_METHOD_CHAPMAN_ENSKOG, 590.0,
+                                           1e5, NAN, v),
+                     MCD_OK);
     ck_assert_double_eq_tol(1000 * v[MCD_EXPLAIN_M_AB], 34.2, 0.05);
     ck_assert_double_eq_tol(1e10 * v[MCD_EXPLAIN_SIGMA_AB], 3.87, 0.005);
     ck_assert_double_eq_tol(v[MCD_EXPLAIN_EPS_AB], 118.0, 0.5);
@@ -221,7 +222,7 @@ END_TEST
 START_TEST(explain_bad_arguments_leave_output_untouched)
 {
     double v[MCD_EXPLAIN_COUNT];
-    size_t n2 = idx("nitrogen"), co2 = idx("carbon-dioxide");
+    size_t n2 = ix[N2], co2 = ix[CO2];
     size_t n = mcd_db_species_count(db);
     struct {
         const mcd_db *d;

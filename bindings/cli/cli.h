@@ -191,6 +191,22 @@ void cli_csv_head(cli_csv *c, const char *prefix, const char *name,
                   const char *unit);
 void cli_csv_end_row(cli_csv *c);
 
+/* ---- binary --explain (explain.c) ---- */
+/* The slots of mcd_db_binary_explain: as an "explain" JSON object (named
+ * slots that are not NaN, SI) and as hand-check text. */
+void cli_explain_json(cli_json *j, const double *v);
+void cli_explain_text(mcd_method m, const double *v, FILE *f);
+
+/* ---- typical errors under warnings (main.c) ---- */
+/* mcd_typical_error_widened, NaN when it fails or has no value. */
+double cli_widened_error(mcd_method m, unsigned warn);
+/* One line that says how stated errors were widened. */
+#define CLI_WIDEN_NOTE                                                         \
+    "typical errors are the method's published average widened by its "        \
+    "warnings: x2 for each polar, associating, quantum-gas or high-pressure "  \
+    "warning, x1.5 for each temperature, estimated-parameter or scaling "      \
+    "warning, at most 100 % (a rule of thumb, not a published law)"
+
 /* ---- aligned tables (table.c) ---- */
 #define CLI_TABLE_MAX_COLS 16
 typedef struct cli_table {

@@ -485,6 +485,129 @@ class Json(unittest.TestCase):
         self.assertEqual(d["fick_dependent"], "nitrogen")
 
 
+class BinaryExplain(unittest.TestCase):
+    """binary --explain, errors widened under warnings, the recommended
+    mark and the pair named by each warning."""
+
+    K_B, N_A = 1.380649e-23, 6.02214076e23  # exact (SI 2019)
+
+    def explain(self, *args):
+        d = run_json("binary", *args, "--explain")
+        return d, [r["explain"] for r in d["results"]]
+
+    def test_intermediates_rebuild_each_estimate_by_hand(self):
+        d, ex = self.explain("CO2", "N2", "-T", "400", "-P", "2bar")
+        self.assertEqual([r["method"] for r in d["results"]],
+                         ["fsg", "chapman-enskog", "wilke-lee"])
+        fsg, ce, wl = ex
+        # Fuller et al. (1966) eq. 10, atm form; Chapman-Enskog first
+        # approximation (Hirschfelder, Curtiss and Bird 1954 eq. 8.2-44);
+        # Wilke-Lee (Poling et al. 2001 eq. 11-4.1). The JSON carries the
+        # shortest round-trip decimals: the hand values agree to round-off
+        # (some 20 operations: 1e-13).
+        T, P = fsg["T"], fsg["P"]
+        mab_g = 1e3 * fsg["M_AB"]
+        self.assertAlmostEqual(
+            fsg["M_AB"] * (1 / fsg["M_A"] + 1 / fsg["M_B"]) / 2, 1, delta=1e-15)
+        self.assertAlmostEqual(fsg["V_roots"], fsg["V_A"] ** (1 / 3)
+                               + fsg["V_B"] ** (1 / 3), delta=1e-13)
+        d_fsg = 1e-4 * 1e-3 * T ** 1.75 * math.sqrt(2 / mab_g) / (
+            P / 101325 * fsg["V_roots"] ** 2)
+        self.assertAlmostEqual(d_fsg / fsg["D"], 1, delta=1e-13)
+        self.assertAlmostEqual(ce["sigma_AB"],
+                               (ce["sigma_A"] + ce["sigma_B"]) / 2,
+                               delta=1e-24)
+        self.assertAlmostEqual(ce["eps_AB_over_k"], math.sqrt(
+            ce["eps_A_over_k"] * ce["eps_B_over_k"]), delta=1e-12)
+        self.assertAlmostEqual(ce["T_star"], T / ce["eps_AB_over_k"],
+                               delta=1e-13)
+        mu = ce["M_AB"] / (2 * self.N_A)
+        d_ce = 3 / 16 * math.sqrt(2 * math.pi * (self.K_B * T) ** 3 / mu) / (
+            P * math.pi * ce["sigma_AB"] ** 2 * ce["Omega_D"])
+        self.assertAlmostEqual(d_ce / ce["D"], 1, delta=1e-13)
+        f = 3.03 - 0.98 / math.sqrt(mab_g)
+        self.assertAlmostEqual(wl["wilke_lee_factor"], f, delta=1e-14)
+        d_wl = 1e-4 * f * 1e-3 * T ** 1.5 / (
+            P / 1e5 * math.sqrt(mab_g) * (1e10 * wl["sigma_AB"]) ** 2
+            * wl["Omega_D"])
+        self.assertAlmostEqual(d_wl / wl["D"], 1, delta=1e-13)
+        for r, e in zip(d["results"], ex):
+            self.assertEqual(r["D"], e["D"])
+
+    def test_wilke_chang_pieces_and_no_gas_warning(self):
+        d, (wc,) = self.explain("ethanol", "water", "-T", "25C",
+                                "--viscosity", "0.89cP")
+        # Wilke and Chang (1955): 7.4e-8 (phi M_B)^0.5 T / (mu V_A^0.6)
+        # in cm^2/s, g/mol, cP, cm^3/mol
+        hand = 1e-4 * 7.4e-8 * math.sqrt(wc["phi"] * 1e3 * wc["M_B"]) \
+            * wc["T"] / (1e3 * wc["mu_B"] * (1e6 * wc["Vb_A"]) ** 0.6)
+        self.assertAlmostEqual(hand / d["D"], 1, delta=1e-13)
+        self.assertEqual(wc["phi"], 2.6)
+        # ethanol is polar (1.7 D) but "polar" is a gas-model warning
+        warns = " ".join(d["results"][0]["warnings"])
+        self.assertNotIn("Lennard-Jones", warns)
+        self.assertNotIn("polar", warns)
+
+    def test_explain_text_shows_the_pieces(self):
+        code, out, _ = run("binary", "CO2", "N2", "-T", "590", "-P", "1bar",
+                           "--method", "chapman-enskog", "--explain")
+        self.assertEqual(code, 0)
+        for piece in ("sigma_AB", "eps_AB/k", "T*", "Omega_D", "M_AB",
+                      "by hand"):
+            self.assertIn(piece, out)
+        code, out, _ = run("binary", "CO2", "N2", "-T", "590", "-P", "1bar",
+                           "--method", "fsg", "--explain")
+        self.assertIn("V_A^(1/3) + V_B^(1/3)", out)
+
+    def test_high_pressure_widens_the_stated_error(self):
+        d = run_json("binary", "CO2", "N2", "-T", "300", "-P", "200bar",
+                     "--method", "fsg")
+        # published 5.4 %, one high-pressure warning: x2 (documented rule)
+        self.assertAlmostEqual(d["published_error"], 0.054, delta=1e-15)
+        self.assertAlmostEqual(d["typical_error"], 0.108, delta=1e-15)
+        code, out, _ = run("binary", "CO2", "N2", "-T", "300", "-P",
+                           "200bar", "--method", "fsg")
+        self.assertIn("10.8 %", out)
+        self.assertNotIn(" 5.4 %", out)
+        self.assertIn("rule of thumb", out)
+        d = run_json("binary", "CO2", "N2", "-T", "300", "-P", "1atm",
+                     "--method", "fsg")
+        self.assertEqual(d["typical_error"], d["published_error"])
+
+    def test_only_an_auto_chosen_method_is_recommended(self):
+        code, out, _ = run("binary", "CO2", "N2", "-T", "300", "-P", "1atm",
+                           "--method", "wilke-lee")
+        self.assertNotIn("recommended", out)
+        d = run_json("binary", "CO2", "N2", "-T", "300", "-P", "1atm",
+                     "--method", "wilke-lee")
+        self.assertFalse(d["recommended"])
+        self.assertFalse(d["results"][0]["recommended"])
+        code, out, _ = run("binary", "CO2", "N2", "-T", "300", "-P", "1atm")
+        self.assertEqual(out.count("recommended"), 1)
+        d = run_json("binary", "CO2", "N2", "-T", "300", "-P", "1atm")
+        self.assertTrue(d["recommended"])
+
+    def test_mixture_warnings_name_their_pair(self):
+        args = ("fluxes", "-s", "H2O,N2,CO2", "-x", "0.2,0.5,0.3", "-g",
+                "1,-1,0", "-T", "300", "-P", "1atm")
+        code, out, _ = run(*args)
+        self.assertEqual(code, 0)
+        self.assertIn("warning (water / nitrogen):", out)
+        self.assertIn("warning (water / carbon-dioxide):", out)
+        self.assertNotIn("warning (nitrogen / carbon-dioxide)", out)
+        d = run_json(*args)
+        pairs = [tuple(w["pair"]) for w in d["pair_warnings"]]
+        self.assertEqual(pairs, [("water", "nitrogen"),
+                                 ("water", "carbon-dioxide")])
+        # polar and associating: 5.4 % x 2 x 2 (documented rule)
+        self.assertAlmostEqual(d["binary_typical_error"][0][1], 0.216,
+                               delta=1e-15)
+        self.assertAlmostEqual(d["binary_published_error"][0][1], 0.054,
+                               delta=1e-15)
+        self.assertAlmostEqual(d["binary_typical_error"][1][2], 0.054,
+                               delta=1e-15)
+
+
 class Reference(unittest.TestCase):
     """The D printed by the tool against handbook experiments."""
 
@@ -1248,8 +1371,8 @@ class Csv(unittest.TestCase):
                                     "-P", "1atm")
         self.assertEqual(header, ["species_a", "species_b", "T_K", "P_Pa",
                                   "method", "status", "D_m2_per_s",
-                                  "typical_error", "recommended",
-                                  "warnings"])
+                                  "typical_error", "published_error",
+                                  "recommended", "warnings"])
         self.assertIn("review", err)
         d = run_json("binary", "CO2", "N2", "-T", "300", "-P", "1atm")
         self.assertEqual(len(rows), len(d["results"]))
