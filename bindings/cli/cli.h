@@ -223,6 +223,18 @@ int cli_table_row(cli_table *t, const char *const *cells);
 /* Print with columns padded to their widest cell, two spaces apart. */
 void cli_table_print(const cli_table *t, FILE *f, const char *indent);
 void cli_table_free(cli_table *t);
+/* Round-off shown as data: text tables and CSV print a value whose
+ * magnitude is at most CLI_ROUNDOFF_REL (64 units of round-off, 2^-46 =
+ * 1.4e-14) times the scale of its column as 0; JSON keeps every double as
+ * computed. The scale of a column is its largest magnitude; the columns
+ * of one quantity over several species (fluxes) share one scale, and
+ * mole fractions have scale 1 (they sum to 1, so their round-off is
+ * relative to 1). */
+#define CLI_ROUNDOFF_REL 0x1p-46
+/* Largest finite magnitude of v[0], v[stride], ... (n values). */
+double cli_scale(const double *v, size_t n, size_t stride);
+/* v, or 0 when |v| <= CLI_ROUNDOFF_REL scale (NaN stays NaN). */
+double cli_shown(double v, double scale);
 /* Format a number for tables: %.4g style, "-" when NaN. */
 void cli_fmt_num(char *buf, size_t len, double v);
 
@@ -346,6 +358,10 @@ void cli_print_fick(const cli_state *s, const double *D, size_t dep, FILE *f);
 void cli_json_fick(const cli_state *s, const double *D, size_t dep,
                    cli_json *j);
 /* Flux table with gradients, zero-sum row and flags (flags may be NULL). */
+/* MCD_DIAG_* bits as words ("reverse", "osmotic", "barrier"; "-" for
+ * none) and as one JSON array of those words (empty for none). */
+void cli_flag_text(unsigned fl, char *buf, size_t len);
+void cli_json_flags(cli_json *j, unsigned fl);
 void cli_print_fluxes(const cli_state *s, const double *flux,
                       const unsigned *flags, FILE *f);
 void cli_json_fluxes(const cli_state *s, const double *flux,
