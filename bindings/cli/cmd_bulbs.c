@@ -392,15 +392,10 @@ static void print_json(const bulbs_job *bj)
     cli_json_numbers(&j, "x_final", xbar, n);
     cli_json_numbers(&j, "t", bj->t, bj->nt);
     cli_json_string(&j, "time_unit", time_units[bj->tunit].name);
-    {
-        double tu[1] = {0};
-        cli_json_array_begin(&j, "t_in_unit");
-        for (k = 0; k < bj->nt; k++) {
-            tu[0] = bj->t[k] / time_units[bj->tunit].s;
-            cli_json_number(&j, NULL, tu[0]);
-        }
-        cli_json_array_end(&j);
-    }
+    cli_json_array_begin(&j, "t_in_unit");
+    for (k = 0; k < bj->nt; k++)
+        cli_json_number(&j, NULL, bj->t[k] / time_units[bj->tunit].s);
+    cli_json_array_end(&j);
     cli_json_array_begin(&j, "x1");
     for (k = 0; k < bj->nt; k++)
         cli_json_numbers(&j, NULL, bj->x1t + k * n, n);
