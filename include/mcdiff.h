@@ -459,6 +459,95 @@ MCD_API mcd_status mcd_db_binary_liquid(const mcd_db *db, size_t solute,
                                      double mu_solvent, double *out_D,
                                      double *out_rel_err, unsigned *out_warn);
 
+/** Widening factors of the typical error under warnings (a rule of thumb,
+ *  common practice, not a published law): the stated error is the
+ *  method's published average times the factor of every warning class
+ *  that applies, capped at 1 (100 %). Polar, associating, quantum gas and
+ *  high pressure double it each (polar and hydrogen-bonding pairs show
+ *  errors of 20-27 % where the published average of a gas method is
+ *  5-8 %); temperature out of range, an estimated parameter and a value
+ *  scaled far from its reference state multiply it by 1.5 each. */
+#define MCD_WIDEN_MAJOR 2.0
+/** Factor of MCD_WARN_TEMPERATURE, _ESTIMATED_PARAM and _SCALED. */
+#define MCD_WIDEN_MINOR 1.5
+/** Cap of the widened error [-] (beyond it an estimate gives an order of
+ *  magnitude only). */
+#define MCD_WIDEN_CAP 1.0
+
+/** Typical relative error of an estimate by method m that carries the
+ *  MCD_WARN_* bits warn: mcd_method_typical_error(m) times
+ *  MCD_WIDEN_MAJOR for each of HIGH_PRESSURE, POLAR, QUANTUM,
+ *  ASSOCIATING and MCD_WIDEN_MINOR for each of TEMPERATURE,
+ *  ESTIMATED_PARAM, SCALED that is set, at most MCD_WIDEN_CAP. NaN (status
+ *  OK) when the method has no published error (MCD_METHOD_USER).
+ *  @param m       a method of mcd_method
+ *  @param warn    MCD_WARN_* bits as returned with the estimate
+ *  @param out_rel_err  widened relative error [-]. Since 0.4.
+ *  Fails: EINVAL (NULL, unknown method, unknown warning bit)
+ *  | Allocates: no */
+MCD_API mcd_status mcd_typical_error_widened(mcd_method m, unsigned warn,
+                                             double *out_rel_err);
+
+/** @name Slots of mcd_db_binary_explain's output
+ *  Indices into the array of MCD_EXPLAIN_COUNT doubles; a slot the method
+ *  does not use is NaN. Slots from MCD_EXPLAIN_RESERVED on are NaN and
+ *  reserved for later methods. Since 0.4.
+ *  @{ */
+#define MCD_EXPLAIN_D 0         /**< the estimate D [m^2/s] */
+#define MCD_EXPLAIN_T 1         /**< temperature [K] */
+#define MCD_EXPLAIN_P 2         /**< pressure [Pa] (gas methods) */
+#define MCD_EXPLAIN_M_A 3       /**< molar mass of A (solute) [kg/mol] */
+#define MCD_EXPLAIN_M_B 4       /**< molar mass of B (solvent) [kg/mol] */
+#define MCD_EXPLAIN_M_AB 5      /**< 2 / (1/M_A + 1/M_B) [kg/mol] (gas) */
+#define MCD_EXPLAIN_V_A 6       /**< diffusion volume of A [-] (FSG) */
+#define MCD_EXPLAIN_V_B 7       /**< diffusion volume of B [-] (FSG) */
+#define MCD_EXPLAIN_V_ROOTS 8   /**< V_A^(1/3) + V_B^(1/3) [-] (FSG) */
+#define MCD_EXPLAIN_SIGMA_A 9   /**< Lennard-Jones sigma of A [m] */
+#define MCD_EXPLAIN_SIGMA_B 10  /**< Lennard-Jones sigma of B [m] */
+#define MCD_EXPLAIN_SIGMA_AB 11 /**< (sigma_A + sigma_B) / 2 [m] */
+#define MCD_EXPLAIN_EPS_A 12    /**< epsilon/k of A [K] */
+#define MCD_EXPLAIN_EPS_B 13    /**< epsilon/k of B [K] */
+#define MCD_EXPLAIN_EPS_AB 14   /**< sqrt(eps_A eps_B) [K] */
+#define MCD_EXPLAIN_T_STAR 15   /**< T / eps_AB [-] */
+#define MCD_EXPLAIN_OMEGA_D 16  /**< collision integral Omega_D(T*) [-] */
+#define MCD_EXPLAIN_WL_FACTOR 17 /**< Wilke-Lee 3.03 - 0.98 / M_AB^(1/2),
+                                      M_AB in g/mol [-] */
+#define MCD_EXPLAIN_PHI 18      /**< Wilke-Chang association factor of the
+                                     solvent [-] */
+#define MCD_EXPLAIN_MU_B 19     /**< solvent viscosity [Pa s] */
+#define MCD_EXPLAIN_VB_A 20     /**< solute molar volume at its normal
+                                     boiling point [m^3/mol] */
+#define MCD_EXPLAIN_REL_ERR 21  /**< method's published typical error [-] */
+#define MCD_EXPLAIN_REL_ERR_WIDENED 22 /**< mcd_typical_error_widened [-] */
+#define MCD_EXPLAIN_WARN 23     /**< MCD_WARN_* bits (an integer) */
+#define MCD_EXPLAIN_ESTIMATED 24 /**< 1 when sigma or eps/k was estimated
+                                      from Vb or Tb, else 0 (LJ methods) */
+#define MCD_EXPLAIN_RESERVED 25 /**< first reserved slot */
+#define MCD_EXPLAIN_COUNT 32    /**< length of the output array */
+/** @} */
+
+/** The intermediates behind a binary estimate, so that it can be checked
+ *  by hand: the same estimate as mcd_db_binary_gas (a, b, gas methods) or
+ *  mcd_db_binary_liquid (a the solute, b the solvent, MCD_METHOD_WILKE_CHANG)
+ *  with the quantities its formula combines, each in its MCD_EXPLAIN_*
+ *  slot (SI units as listed there; unused slots NaN). D in the D slot is
+ *  bit for bit the value of the estimating call.
+ *  @param db          species database
+ *  @param a,b         species indices (0-based)
+ *  @param method      MCD_METHOD_FSG, _CHAPMAN_ENSKOG, _WILKE_LEE or
+ *                     _WILKE_CHANG
+ *  @param T           temperature [K]
+ *  @param P           pressure [Pa] (gas methods; ignored by Wilke-Chang)
+ *  @param mu_solvent  viscosity of b [Pa s] (Wilke-Chang; ignored by gas
+ *                     methods)
+ *  @param out_values  MCD_EXPLAIN_COUNT doubles, written only on success.
+ *  Since 0.4.
+ *  Fails: EINVAL (NULL, method), EDOM, ENODATA, ENOTFOUND | Allocates: no */
+MCD_API mcd_status mcd_db_binary_explain(const mcd_db *db, size_t a, size_t b,
+                                         mcd_method method, double T,
+                                         double P, double mu_solvent,
+                                         double *out_values);
+
 /* ------------------------------------------------------------------ */
 /* Mixtures: N species and their binary diffusivities                  */
 /* ------------------------------------------------------------------ */

@@ -418,6 +418,18 @@ static int call_mcd_db_binary_liquid(ctx *c)
                                 c->mu, OUT(o1, NB_O1), OUT(o2, NB_O2),
                                 OUT(ou, NB_OU));
 }
+static int call_mcd_typical_error_widened(ctx *c)
+{
+    return mcd_typical_error_widened((mcd_method)c->method, c->bit,
+                                     OUT(o1, NB_O1));
+}
+static int call_mcd_db_binary_explain(ctx *c)
+{
+    /* o1 holds NA * NA >= MCD_EXPLAIN_COUNT doubles */
+    return mcd_db_binary_explain(ARG(db, NB_DB), IDX(c->ga), IDX(c->gb),
+                                 (mcd_method)c->method, c->T, c->P, c->mu,
+                                 OUT(o1, NB_O1));
+}
 static int call_mcd_mixture_new(ctx *c)
 {
     int r;
@@ -1373,6 +1385,24 @@ static const bcase cases[] = {
     C(mcd_db_binary_liquid, "mu negative", EDOM_, NULL, MD(mu, -1e-3)),
     C(mcd_db_binary_liquid, "solute without Vb", MCD_ENODATA, NULL,
       MZ(sol, PROBE)),
+    B(mcd_typical_error_widened, MCD_OK),
+    C(mcd_typical_error_widened, "out NULL", EINVAL_, NULL, MN(NB_O1)),
+    C(mcd_typical_error_widened, "m 0", EINVAL_, "m", MI(method, 0)),
+    C(mcd_typical_error_widened, "bit 0x80", EINVAL_, "warn", MU(bit, 0x80u)),
+    B(mcd_db_binary_explain, MCD_OK),
+    C(mcd_db_binary_explain, "db NULL", EINVAL_, NULL, MN(NB_DB)),
+    C(mcd_db_binary_explain, "out NULL", EINVAL_, NULL, MN(NB_O1)),
+    C(mcd_db_binary_explain, "method USER", EINVAL_, "method",
+      MI(method, MCD_METHOD_USER)),
+    C(mcd_db_binary_explain, "method 99", EINVAL_, "method", MI(method, 99)),
+    C(mcd_db_binary_explain, "a out of range", MCD_ENOTFOUND, NULL,
+      MZ(ga, 100000)),
+    C(mcd_db_binary_explain, "T NaN", EINVAL_, NULL, MD(T, NAN)),
+    C(mcd_db_binary_explain, "P 0", EDOM_, NULL, MD(P, 0.0)),
+    C(mcd_db_binary_explain, "sigma missing", MCD_ENODATA, NULL, MZ(ga, PROBE),
+      MI(method, MCD_METHOD_CHAPMAN_ENSKOG)),
+    C(mcd_db_binary_explain, "Wilke-Chang mu 0", EDOM_, NULL,
+      MI(method, MCD_METHOD_WILKE_CHANG), MD(mu, 0.0)),
 
     /* ---- mixtures ---- */
     B(mcd_mixture_new, MCD_OK),

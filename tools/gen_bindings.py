@@ -855,6 +855,7 @@ FORTRAN_SCALAR = {
     "mcd_binary_scale": ["out_D"],
     "mcd_db_binary_gas": ["out_D"],
     "mcd_db_binary_liquid": ["out_D"],
+    "mcd_typical_error_widened": ["out_rel_err"],
     "mcd_workspace_new_with": ["allocator"],
     "mcd_flux_compute": ["state"],
     "mcd_fick_matrix": ["state"],

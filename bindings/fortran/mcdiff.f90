@@ -171,6 +171,7 @@ module mcdiff
        mcd_formula_molecule_volume, mcd_element_symbol, mcd_element_weight, &
        mcd_binary_omega_d, mcd_workspace_new_with, &
        mcd_binary_wilke_lee, mcd_binary_wilke_chang, mcd_db_binary_liquid, &
+       mcd_typical_error_widened, mcd_db_binary_explain, &
        mcd_flux_to_volume_frame, mcd_flux_to_species_frame, &
        mcd_flux_velocity_difference, mcd_mixture_temperature_fit, &
        mcd_bulbs_linearized, mcd_bulbs_integrate, &
@@ -832,6 +833,37 @@ contains
          c_loc(e), c_loc(w))
     call finish_estimate(s, e, w, stat, errmsg, rel_err, warn)
   end subroutine mcd_db_binary_liquid
+
+  !> Typical error of method m widened by the MCD_WARN_* bits warn
+  !> (MCD_WIDEN_* factors); NaN for MCD_METHOD_USER.
+  subroutine mcd_typical_error_widened(m, warn, rel_err, stat, errmsg)
+    integer, intent(in) :: m, warn
+    real(c_double), intent(inout) :: rel_err
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    real(c_double) :: v
+    integer(c_int) :: s
+    s = c_mcd_typical_error_widened(int(m, c_int), int(warn, c_int), v)
+    if (s == 0) rel_err = v
+    call finish(s, stat, errmsg)
+  end subroutine mcd_typical_error_widened
+
+  !> Intermediates of the estimate of species a and b (1-based; a the solute
+  !> for MCD_METHOD_WILKE_CHANG) in values(MCD_EXPLAIN_COUNT): the C slot
+  !> MCD_EXPLAIN_X is values(MCD_EXPLAIN_X + 1). Unused slots are NaN.
+  subroutine mcd_db_binary_explain(db, a, b, method, T, P, mu_solvent, values, &
+       stat, errmsg)
+    type(mcd_db_t), intent(in) :: db
+    integer, intent(in) :: a, b, method
+    real(c_double), intent(in) :: T, P, mu_solvent
+    real(c_double), intent(inout) :: values(MCD_EXPLAIN_COUNT)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    integer(c_int) :: s
+    s = c_mcd_db_binary_explain(db%ptr, cidx(a), cidx(b), int(method, c_int), &
+         T, P, mu_solvent, values)
+    call finish(s, stat, errmsg)
+  end subroutine mcd_db_binary_explain
 
   ! ==================================================================
   ! Mixtures

@@ -429,7 +429,7 @@ contains
     type(mcd_db_t) :: db
     integer :: stat, in2, ico2, iben, iwat, warn
     real(c_double) :: T, P, MA, MB, sA, sB, eA, eB, Dwl, Dce, Dgas, Mab, ratio, ref
-    real(c_double) :: mu, Mw, phi, Vb, Dwc, Dliq, err
+    real(c_double) :: mu, Mw, phi, Vb, Dwc, Dliq, err, xv(MCD_EXPLAIN_COUNT)
     character(len=256) :: msg
 
     call mcd_db_new_builtin(db, stat, msg)
@@ -495,6 +495,20 @@ contains
          'liquid rel_err is the method''s typical error')
     call check(warn >= 0 .and. iand(warn, MCD_WARN_TEMPERATURE) == 0, &
          'no temperature warning at 298.15 K')
+    ! the intermediates of the same estimate: D the same, pieces that
+    ! rebuild it by the Wilke-Chang formula above
+    xv = GUARD
+    call mcd_db_binary_explain(db, iben, iwat, MCD_METHOD_WILKE_CHANG, T, 1e5_c_double, &
+         mu, xv, stat, msg)
+    call check_stat(stat, msg, 'mcd_db_binary_explain Wilke-Chang')
+    call check(xv(MCD_EXPLAIN_D + 1) == Dliq, 'explain: D equals the estimate')
+    call check(xv(MCD_EXPLAIN_PHI + 1) == phi .and. xv(MCD_EXPLAIN_VB_A + 1) == Vb, &
+         'explain: phi and V_A of the database (1-based slot = C slot + 1)')
+    call mcd_typical_error_widened(MCD_METHOD_WILKE_CHANG, MCD_WARN_ASSOCIATING, err, &
+         stat, msg)
+    call check_stat(stat, msg, 'mcd_typical_error_widened')
+    call check(abs(err - MCD_WIDEN_MAJOR * mcd_method_typical_error(MCD_METHOD_WILKE_CHANG)) &
+         <= 0, 'widened error: one major warning doubles it')
     ! solvent and solute swapped: water's own Vb, benzene's factor (1.0)
     call mcd_db_binary_liquid(db, iwat, iben, T, mu, Dliq, stat, msg)
     call check_stat(stat, msg, 'water in benzene (optional outputs absent)')

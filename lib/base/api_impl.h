@@ -44,6 +44,8 @@
     X(binary_scale, (double D_ref, double T_ref, double P_ref, double T, double P, double exponent, double *out_D), (D_ref, T_ref, P_ref, T, P, exponent, out_D)) \
     X(db_binary_gas, (const mcd_db *db, size_t a, size_t b, mcd_gas_method method, double T, double P, double *out_D, double *out_rel_err, unsigned *out_warn), (db, a, b, method, T, P, out_D, out_rel_err, out_warn)) \
     X(db_binary_liquid, (const mcd_db *db, size_t solute, size_t solvent, double T, double mu_solvent, double *out_D, double *out_rel_err, unsigned *out_warn), (db, solute, solvent, T, mu_solvent, out_D, out_rel_err, out_warn)) \
+    X(typical_error_widened, (mcd_method m, unsigned warn, double *out_rel_err), (m, warn, out_rel_err)) \
+    X(db_binary_explain, (const mcd_db *db, size_t a, size_t b, mcd_method method, double T, double P, double mu_solvent, double *out_values), (db, a, b, method, T, P, mu_solvent, out_values)) \
     X(mixture_new, (const mcd_db *db, size_t n_species, const char *const *names, mcd_gas_method default_method, mcd_mixture **out_mix), (db, n_species, names, default_method, out_mix)) \
     X(mixture_molar_masses, (const mcd_mixture *mix, double *out_M), (mix, out_M)) \
     X(mixture_set_method, (mcd_mixture *mix, size_t i, size_t j, mcd_gas_method m), (mix, i, j, m)) \

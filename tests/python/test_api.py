@@ -241,6 +241,45 @@ class Binaries(unittest.TestCase):
         self.assertIsNone(mcdiff.warning_string(1 << 20))
 
 
+class Explain(unittest.TestCase):
+    """mcd_db_binary_explain and mcd_typical_error_widened from Python."""
+
+    def test_slot_names_follow_the_header(self):
+        import re
+        from mcdiff import handles
+        with open(_support.HEADER) as f:
+            text = f.read()
+        slots = {int(v): k.lower() for k, v in
+                 re.findall(r"#define MCD_EXPLAIN_(\w+) (\d+)", text)
+                 if k not in ("RESERVED", "COUNT")}
+        count = int(re.search(r"#define MCD_EXPLAIN_COUNT (\d+)", text)[1])
+        self.assertEqual(count, handles.EXPLAIN_COUNT)
+        self.assertEqual(tuple(slots[k] for k in sorted(slots)),
+                         handles.EXPLAIN_SLOTS)
+
+    def test_explain_rebuilds_chapman_enskog(self):
+        with mcdiff.Database.builtin() as db:
+            est = db.binary_gas("CO2", "N2", "chapman-enskog", 400.0, 2e5)
+            v = db.binary_explain("CO2", "N2", "chapman-enskog", 400.0, 2e5)
+        self.assertEqual(v["d"], est.D)
+        self.assertEqual(v["warn"], est.warnings)
+        # Chapman-Enskog in the form 0.002663 T^1.5 / (P_bar M_AB^0.5
+        # sigma^2 Omega_D) [cm^2/s] (Poling et al. 2001 eq. 11-3.2, the
+        # constant to 4 digits: 2e-4 relative)
+        d = 0.002663 * v["t"] ** 1.5 / (v["p"] / 1e5 * math.sqrt(
+            1000 * v["m_ab"]) * (1e10 * v["sigma_ab"]) ** 2 * v["omega_d"])
+        self.assertAlmostEqual(d * 1e-4 / est.D, 1.0, delta=2e-4)
+        self.assertNotIn("v_a", v)
+
+    def test_widened_error(self):
+        W = mcdiff.EstimateWarning
+        self.assertAlmostEqual(mcdiff.typical_error_widened(
+            "fsg", W.HIGH_PRESSURE), 0.108, delta=1e-15)
+        self.assertTrue(math.isnan(mcdiff.typical_error_widened("user", 0)))
+        with self.assertRaises(mcdiff.InvalidArgumentError):
+            mcdiff.typical_error_widened("fsg", 0x80)
+
+
 class Compositions(unittest.TestCase):
     M = [2.016e-3, 28.014e-3, 44.009e-3, 39.948e-3]
 

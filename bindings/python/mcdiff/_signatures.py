@@ -142,6 +142,10 @@ SIGNATURES = {
     "mcd_db_binary_gas": (_ST, [_H, _SZ, _SZ, _E, _D, _D, _PD, _PD, _PU]),
     # (db, solute, solvent, T, mu_solvent, out_D, out_rel_err, out_warn)
     "mcd_db_binary_liquid": (_ST, [_H, _SZ, _SZ, _D, _D, _PD, _PD, _PU]),
+    # (m, warn, out_rel_err)
+    "mcd_typical_error_widened": (_ST, [_E, _U, _PD]),
+    # (db, a, b, method, T, P, mu_solvent, out_values)
+    "mcd_db_binary_explain": (_ST, [_H, _SZ, _SZ, _E, _D, _D, _D, _PD]),
 
     # --- Mixtures: N species and their binary diffusivities ---
     # (db, n_species, names, default_method, out_mix)

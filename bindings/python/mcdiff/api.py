@@ -36,6 +36,7 @@ __all__ = [
     "x_to_c", "c_to_x", "ideal_gas_c", "grad_x_to_w", "grad_w_to_x",
     # binaries
     "method_name", "method_from_name", "method_typical_error",
+    "typical_error_widened", "binary_explain",
     "warning_string", "warning_strings", "binary_fsg", "binary_chapman_enskog",
     "binary_wilke_lee", "binary_wilke_chang", "binary_omega_d", "binary_scale",
     "binary_gas", "binary_liquid", "binary_tyn_calus",
@@ -358,6 +359,25 @@ def method_from_name(name):
 def method_typical_error(method):
     """Published average relative error of a method (NaN for USER)."""
     return lib.mcd_method_typical_error(coerce(Method, method, "method"))
+
+
+def typical_error_widened(method, warnings):
+    """Typical relative error of a method widened by an estimate's warning
+    bits (mcd_typical_error_widened: factor 2 for each of high pressure,
+    polar, quantum, associating; 1.5 for each of temperature, estimated
+    parameter, scaled; at most 1). NaN for USER. A rule of thumb."""
+    out = ctypes.c_double()
+    st = lib.mcd_typical_error_widened(coerce(Method, method, "method"),
+                                       int(warnings), ctypes.byref(out))
+    _check(st, "mcd_typical_error_widened")
+    return out.value
+
+
+def binary_explain(db, a, b, method, T, P=float("nan"),
+                   mu_solvent=float("nan")):
+    """Intermediates behind a binary estimate as a dict (see
+    Database.binary_explain)."""
+    return db.binary_explain(a, b, method, T, P, mu_solvent)
 
 
 def warning_string(bit):
