@@ -182,7 +182,7 @@ module mcdiff
        mcd_db_viscosity_gas, mcd_mixture_viscosities, mcd_pore_permeability, &
        mcd_pore_effective, mcd_knudsen_diffusivity, mcd_bosanquet, &
        mcd_dgm_fluxes, mcd_dgm_closed, mcd_dgm_gradients, mcd_dgm_fluxes_batch, &
-       mcd_slab_solve, mcd_slab_profile
+       mcd_slab_solve, mcd_slab_solve_ratios, mcd_slab_profile
 
   !> Release a handle (any of the three types); an empty handle is a no-op.
   interface mcd_free
@@ -1555,12 +1555,49 @@ contains
     it = 0
     s = c_mcd_slab_solve(ws%ptr, pore, slab_of(n, T, mu, L, P_ref, M, Dij, x0, P0, xL, PL), &
          int(kind, c_int), k, v, N_flux, c_loc(pl_c), c_loc(it))
+    call finish_slab(s, pl_c, it, stat, errmsg, PL_out, iterations)
+  end subroutine mcd_slab_solve
+
+  !> The optional outputs of a slab solve (on success) and its status.
+  subroutine finish_slab(s, pl_c, it, stat, errmsg, PL_out, iterations)
+    integer(c_int), intent(in) :: s
+    real(c_double), intent(in) :: pl_c
+    integer(c_size_t), intent(in) :: it
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    real(c_double), intent(inout), optional :: PL_out
+    integer, intent(inout), optional :: iterations
     if (s == 0) then
        if (present(PL_out)) PL_out = pl_c
        if (present(iterations)) iterations = int(it)
     end if
     call finish(s, stat, errmsg)
-  end subroutine mcd_slab_solve
+  end subroutine finish_slab
+
+  !> Steady slab fluxes in given ratios, N_flux = ratios * N_t (sum of
+  !> ratios 1), matching xL(species) (1-based) at z = L; PL_out the
+  !> resulting pressure there. Other arguments as mcd_slab_solve.
+  subroutine mcd_slab_solve_ratios(ws, pore, n, T, mu, L, P_ref, M, Dij, x0, P0, xL, &
+       species, ratios, N_flux, stat, errmsg, PL_out, iterations)
+    type(mcd_workspace_t), intent(inout) :: ws
+    type(mcd_pore_t), intent(in) :: pore
+    integer, intent(in) :: n, species
+    real(c_double), intent(in) :: T, mu, L, P_ref, P0, ratios(n)
+    real(c_double), intent(in), target :: M(n), Dij(n, n), x0(n), xL(n)
+    real(c_double), intent(inout) :: N_flux(n)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    real(c_double), intent(inout), optional :: PL_out
+    integer, intent(inout), optional :: iterations
+    real(c_double), target :: pl_c
+    integer(c_size_t), target :: it
+    integer(c_int) :: s
+    pl_c = 0
+    it = 0
+    s = c_mcd_slab_solve_ratios(ws%ptr, pore, slab_of(n, T, mu, L, P_ref, M, Dij, x0, P0, &
+         xL, P0), cidx(species), ratios, N_flux, c_loc(pl_c), c_loc(it))
+    call finish_slab(s, pl_c, it, stat, errmsg, PL_out, iterations)
+  end subroutine mcd_slab_solve_ratios
 
   !> Slab profile for fluxes N_flux(n): x(n, n_points) and P(n_points) at
   !> positions z(n_points) [m].

@@ -100,6 +100,7 @@
     X(dgm_gradients, (mcd_workspace *ws, const mcd_pore *pore, const mcd_dgm *dgm, const double *N, double *out_grad_x, double *out_grad_P), (ws, pore, dgm, N, out_grad_x, out_grad_P)) \
     X(dgm_fluxes_batch, (mcd_workspace *ws, const mcd_pore *pore, size_t n_species, const double *M, const mcd_dgm_cells *cells, double *out_N), (ws, pore, n_species, M, cells, out_N)) \
     X(slab_solve, (mcd_workspace *ws, const mcd_pore *pore, const mcd_slab *slab, mcd_slab_kind kind, size_t species, double value, double *out_N, double *out_PL, size_t *out_iterations), (ws, pore, slab, kind, species, value, out_N, out_PL, out_iterations)) \
+    X(slab_solve_ratios, (mcd_workspace *ws, const mcd_pore *pore, const mcd_slab *slab, size_t species, const double *ratios, double *out_N, double *out_PL, size_t *out_iterations), (ws, pore, slab, species, ratios, out_N, out_PL, out_iterations)) \
     X(slab_profile, (mcd_workspace *ws, const mcd_pore *pore, const mcd_slab *slab, const double *N, size_t n_points, const double *z, double *out_x, double *out_P), (ws, pore, slab, N, n_points, z, out_x, out_P))
 /* clang-format on */
 

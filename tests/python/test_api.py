@@ -896,6 +896,23 @@ class Porous(unittest.TestCase):
         xs, Ps = mcdiff.slab_profile(D, M, [0.8, 0.2], 1e5, r.N,
                                      [0.0, 1e-3], 300.0, 2e-5, 1e-3, **pore)
         self.assertAlmostEqual(rows(xs)[1][0], 0.1, delta=1e-8)
+        # flux ratios of 2 A -> B: N_B = -N_A / 2, the profile ends at the
+        # matched x_A and the returned far pressure
+        r = mcdiff.slab_solve(D, M, [0.9, 0.1], 1e5, [0.6, 0.4], None,
+                              300.0, 2e-5, 1e-3, kind="ratios", species=0,
+                              ratios=[2.0, -1.0], **pore)
+        NA, NB = flat(r.N)
+        self.assertGreater(NA, 0.0)
+        self.assertAlmostEqual(NB, -0.5 * NA, delta=1e-15 * NA)
+        xs, Ps = mcdiff.slab_profile(D, M, [0.9, 0.1], 1e5, r.N, [1e-3],
+                                     300.0, 2e-5, 1e-3, **pore)
+        self.assertAlmostEqual(rows(xs)[0][0], 0.6, delta=1e-8)
+        self.assertAlmostEqual(flat(Ps)[0], r.PL, delta=1e-8 * r.PL)
+        with self.assertRaises(mcdiff.DomainError) as cm:
+            mcdiff.slab_solve(D, M, [0.9, 0.1], 1e5, [0.6, 0.4], None,
+                              300.0, 2e-5, 1e-3, kind="ratios",
+                              ratios=[2.0, -0.5], **pore)
+        self.assertIn("argument ratios", str(cm.exception))
         with self.assertRaises(mcdiff.DomainError) as cm:
             mcdiff.dgm_fluxes(D, M, x, [-20.0, 20.0], 300.0, 1e5, 2e-5,
                               porosity=1.5, tortuosity=3.0, d_pore=1e-7)

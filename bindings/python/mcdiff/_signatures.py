@@ -288,6 +288,8 @@ SIGNATURES = {
     "mcd_dgm_fluxes_batch": (_ST, [_H, _H, _SZ, _PD, _H, _PD]),
     # (ws, pore, slab, kind, species, value, out_N, out_PL, out_iterations)
     "mcd_slab_solve": (_ST, [_H, _H, _H, _E, _SZ, _D, _PD, _PD, _PSZ]),
+    # (ws, pore, slab, species, ratios, out_N, out_PL, out_iterations)
+    "mcd_slab_solve_ratios": (_ST, [_H, _H, _H, _SZ, _PD, _PD, _PD, _PSZ]),
     # (ws, pore, slab, N, n_points, z, out_x, out_P)
     "mcd_slab_profile": (_ST, [_H, _H, _H, _PD, _SZ, _PD, _PD, _PD]),
 }

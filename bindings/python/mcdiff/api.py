@@ -1245,21 +1245,34 @@ def _slab(Dij, M, x0, P0, xL, PL, T, mu, L, P_ref):
 
 def slab_solve(Dij, M, x0, P0, xL, PL, T, mu, L, *, porosity, tortuosity,
                d_pore, permeability=0.0, P_ref=None, kind="pressures",
-               species=0, value=0.0, workspace=None):
+               species=0, value=0.0, ratios=None, workspace=None):
     """Steady Dusty Gas Model fluxes through a porous slab of thickness L
     [m] between (x0, P0 [Pa]) and (xL, PL) (mcd_slab_solve). Dij: open-gas
     binary diffusivities [m^2/s] at P_ref (default P0); mu [Pa s]
     constant. kind: "pressures" (both end pressures given), "stagnant"
     (species does not move; PL ignored and returned) or "total" (sum N =
-    value). Returns SlabResult(N, PL, iterations)."""
-    if kind not in _SLAB_KINDS:
-        raise ValueError("kind: one of %s" % ", ".join(_SLAB_KINDS))
+    value) or "ratios" (N = ratios * N_t, ratios summing to 1, as a
+    reaction's stoichiometry fixes them; xL[species] is matched, PL
+    ignored and returned: mcd_slab_solve_ratios). Returns
+    SlabResult(N, PL, iterations)."""
+    if kind not in _SLAB_KINDS and kind != "ratios":
+        raise ValueError("kind: one of %s, ratios" % ", ".join(_SLAB_KINDS))
     n, sl, keep = _slab(Dij, M, x0, P0, xL, PL, T, mu, L, P_ref)
     p = _pore(porosity, tortuosity, d_pore, permeability)
     ws = _ws(workspace, n)
     o = _arrays.Output((n,))
     pl = ctypes.c_double()
     it = ctypes.c_size_t()
+    if kind == "ratios":
+        if ratios is None:
+            raise ValueError("ratios: required with kind='ratios'")
+        z = _arrays.vector(ratios, n, "ratios")
+        st = lib.mcd_slab_solve_ratios(ws._p(), ctypes.byref(p),
+                                       ctypes.byref(sl), int(species), z.ptr,
+                                       o.ptr, ctypes.byref(pl),
+                                       ctypes.byref(it))
+        ws.check(st, "mcd_slab_solve_ratios")
+        return SlabResult(o.result(), pl.value, it.value)
     st = lib.mcd_slab_solve(ws._p(), ctypes.byref(p), ctypes.byref(sl),
                             _SLAB_KINDS[kind], int(species),
                             _sc(value, "value"), o.ptr, ctypes.byref(pl),
