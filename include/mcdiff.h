@@ -1554,6 +1554,23 @@ MCD_API mcd_status mcd_binary_tyn_calus(double T, double mu_solvent,
 MCD_API mcd_status mcd_binary_hayduk_minhas(double T, double mu_water,
                                             double Vb_solute, double *out_D);
 
+/** Temperature range [K] of an infinite-dilution correlation for liquids
+ *  (MCD_METHOD_WILKE_CHANG, _TYN_CALUS, _HAYDUK_MINHAS), and the warning
+ *  bit for a temperature T: MCD_WARN_TEMPERATURE when T lies outside it
+ *  (the estimate is still made by the raw call; flag or refuse it). The
+ *  range is the liquid range of water at 1 atm, 273.15 K to 373.15 K, for
+ *  all three: their data sets are near-ambient liquids and none states a
+ *  sharp limit (the database route of Wilke-Chang flags the same range).
+ *  Any output may be NULL. Since 0.4.
+ *  @param T           temperature [K], > 0.
+ *  @param out_T_min, out_T_max  the range [K].
+ *  @param out_warn    MCD_WARN_TEMPERATURE or 0.
+ *  Fails: EINVAL (another method, NaN), EDOM (T <= 0) | Allocates: no */
+MCD_API mcd_status mcd_method_temperature_range(mcd_method method, double T,
+                                                double *out_T_min,
+                                                double *out_T_max,
+                                                unsigned *out_warn);
+
 /* ------------------------------------------------------------------ */
 /* Porous media: Knudsen diffusion and the Dusty Gas Model             */
 /* ------------------------------------------------------------------ */

@@ -525,6 +525,14 @@ static int call_mcd_binary_tyn_calus(ctx *c)
     return mcd_binary_tyn_calus(c->T, c->mu, c->Vb, c->VA * 1e-6,
                                 OUT(o1, NB_O1));
 }
+static int call_mcd_method_temperature_range(ctx *c)
+{
+    /* method counts from the fixture's default (MCD_METHOD_FSG), so that
+     * the default is MCD_METHOD_WILKE_CHANG */
+    return mcd_method_temperature_range(
+        (mcd_method)(c->method - MCD_METHOD_FSG + MCD_METHOD_WILKE_CHANG), c->T,
+        OUT(o1, NB_O1), OUT(o2, NB_O2), OUT(ou, NB_OU));
+}
 static int call_mcd_binary_hayduk_minhas(ctx *c)
 {
     return mcd_binary_hayduk_minhas(c->T, c->mu, c->Vb, OUT(o1, NB_O1));
@@ -1964,6 +1972,11 @@ static const bcase cases[] = {
     C(mcd_binary_tyn_calus, "Vb 0", EDOM_, NULL, MD(Vb, 0.0)),
     C(mcd_binary_tyn_calus, "Vb solvent negative", EDOM_, NULL, MD(VA, -1.0)),
     C(mcd_binary_tyn_calus, "out NULL", EINVAL_, NULL, MN(NB_O1)),
+    B(mcd_method_temperature_range, MCD_OK),
+    C(mcd_method_temperature_range, "method fsg", EINVAL_, "method",
+      MI(method, 2 * MCD_METHOD_FSG - MCD_METHOD_WILKE_CHANG)),
+    C(mcd_method_temperature_range, "T NaN", EINVAL_, "T", MD(T, NAN)),
+    C(mcd_method_temperature_range, "T 0", EDOM_, "T", MD(T, 0.0)),
     B(mcd_binary_hayduk_minhas, MCD_OK),
     C(mcd_binary_hayduk_minhas, "T 0", EDOM_, NULL, MD(T, 0.0)),
     C(mcd_binary_hayduk_minhas, "mu inf", EINVAL_, NULL, MD(mu, INFINITY)),

@@ -909,6 +909,7 @@ FORTRAN_NULLABLE = {
     "mcd_mixture_viscosities": ["out_warn"],
     "mcd_slab_solve": ["out_PL", "out_iterations"],
     "mcd_slab_solve_ratios": ["out_PL", "out_iterations"],
+    "mcd_method_temperature_range": ["out_T_min", "out_T_max", "out_warn"],
 }
 # FORTRAN_DUMMY_NAMES: dummy argument names that differ from the C names
 # (Fortran names are case-insensitive, so film_profile's n and N clash;

@@ -176,7 +176,8 @@ module mcdiff
        mcd_bulbs_linearized, mcd_bulbs_integrate, &
        mcd_liquid_new, mcd_liquid_set_species, mcd_liquid_set_pair, &
        mcd_liquid_set_dinf, mcd_liquid_eval, mcd_binary_tyn_calus, &
-       mcd_binary_hayduk_minhas, mcd_liquid_set_antoine, mcd_liquid_vle, &
+       mcd_binary_hayduk_minhas, mcd_method_temperature_range, mcd_liquid_set_antoine, &
+       mcd_liquid_vle, &
        mcd_liquid_evaporation, &
        mcd_viscosity_omega22, mcd_viscosity_chapman_enskog, mcd_viscosity_wilke, &
        mcd_db_viscosity_gas, mcd_mixture_viscosities, mcd_pore_permeability, &
@@ -2032,6 +2033,31 @@ contains
     character(len=*), intent(out), optional :: errmsg
     call finish(c_mcd_binary_hayduk_minhas(T, mu_water, Vb_solute, D), stat, errmsg)
   end subroutine mcd_binary_hayduk_minhas
+
+  !> Temperature range [K] of a liquid correlation (MCD_METHOD_WILKE_CHANG,
+  !> _TYN_CALUS, _HAYDUK_MINHAS) and the warning bits at T:
+  !> MCD_WARN_TEMPERATURE outside it.
+  subroutine mcd_method_temperature_range(method, T, T_min, T_max, warn, stat, errmsg)
+    integer, intent(in) :: method
+    real(c_double), intent(in) :: T
+    real(c_double), intent(inout) :: T_min, T_max
+    integer, intent(inout) :: warn
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    real(c_double), target :: lo, hi
+    integer(c_int), target :: w
+    integer(c_int) :: s
+    lo = 0
+    hi = 0
+    w = 0
+    s = c_mcd_method_temperature_range(int(method, c_int), T, c_loc(lo), c_loc(hi), c_loc(w))
+    if (s == 0) then
+       T_min = lo
+       T_max = hi
+       warn = int(w)
+    end if
+    call finish(s, stat, errmsg)
+  end subroutine mcd_method_temperature_range
 
   !> Antoine constants of species i (1-based): log10(P/Pa) = A - B/(T/K + C)
   !> over [T_min, T_max].

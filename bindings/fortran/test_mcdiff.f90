@@ -900,6 +900,15 @@ contains
     call mcd_binary_hayduk_minhas(T, 0.89e-3_c_double, 96e-6_c_double, Dhm, stat, msg)
     call check_stat(stat, msg, 'Hayduk-Minhas')
     call check(Dhm > 5e-10_c_double .and. Dhm < 2e-9_c_double, 'Hayduk-Minhas magnitude')
+    block
+      real(c_double) :: tlo, thi
+      integer :: w
+      call mcd_method_temperature_range(MCD_METHOD_HAYDUK_MINHAS, 400.0_c_double, tlo, thi, &
+           w, stat, msg)
+      call check_stat(stat, msg, 'correlation range')
+      call check(w == MCD_WARN_TEMPERATURE .and. tlo == 273.15_c_double .and. &
+           thi == 373.15_c_double, 'Hayduk-Minhas at 400 K flagged')
+    end block
     call mcd_free(ws)
     call check_liquid_evaporation()
   end subroutine check_liquid

@@ -826,6 +826,14 @@ class Liquids(unittest.TestCase):
         ref = (1e-4 * 1.25e-8 * (96 ** -0.19 - 0.292) * 298.15 ** 1.52
                * 0.89 ** (9.58 / 96 - 1.12))
         self.assertAlmostEqual(D / ref, 1.0, delta=1e-12)
+        # the correlations' temperature range: flagged outside
+        for m in ("wilke-chang", "tyn-calus", "hayduk-minhas"):
+            r = mcdiff.method_temperature_range(m, 298.15)
+            self.assertEqual((r.T_min, r.T_max, r.warn), (273.15, 373.15, 0))
+            r = mcdiff.method_temperature_range(m, 400.0)
+            self.assertEqual(r.warn, mcdiff.EstimateWarning.TEMPERATURE)
+        with self.assertRaises(mcdiff.InvalidArgumentError):
+            mcdiff.method_temperature_range("fsg", 300.0)
 
 
 class Porous(unittest.TestCase):

@@ -268,6 +268,8 @@ SIGNATURES = {
     "mcd_binary_tyn_calus": (_ST, [_D, _D, _D, _D, _PD]),
     # (T, mu_water, Vb_solute, out_D)
     "mcd_binary_hayduk_minhas": (_ST, [_D, _D, _D, _PD]),
+    # (method, T, out_T_min, out_T_max, out_warn)
+    "mcd_method_temperature_range": (_ST, [_E, _D, _PD, _PD, _PU]),
 
     # --- Porous media: Knudsen diffusion and the Dusty Gas Model ---
     # (pore, out_B0)

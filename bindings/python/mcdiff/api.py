@@ -39,7 +39,7 @@ __all__ = [
     "warning_string", "warning_strings", "binary_fsg", "binary_chapman_enskog",
     "binary_wilke_lee", "binary_wilke_chang", "binary_omega_d", "binary_scale",
     "binary_gas", "binary_liquid", "binary_tyn_calus",
-    "binary_hayduk_minhas",
+    "binary_hayduk_minhas", "method_temperature_range",
     # fluxes
     "flux_compute", "thermal_ratios", "flux_jacobian", "fick_matrix",
     "fick_fluxes",
@@ -60,6 +60,7 @@ __all__ = [
     # results
     "FickMatrix", "TotalFlux", "ProjectedFlux", "FilmResult", "BulbsResult",
     "ViscosityEstimate", "DgmClosed", "DgmGradients", "SlabResult",
+    "TemperatureRange",
     "default_workspace",
 ]
 
@@ -408,6 +409,23 @@ def binary_tyn_calus(T, mu_solvent, Vb_solute, Vb_solvent):
 def binary_hayduk_minhas(T, mu_water, Vb_solute):
     """Hayduk-Minhas infinite-dilution diffusivity [m^2/s] in water."""
     return _raw("mcd_binary_hayduk_minhas", T, mu_water, Vb_solute)
+
+
+TemperatureRange = collections.namedtuple("TemperatureRange",
+                                          "T_min T_max warn")
+TemperatureRange.__doc__ = """Temperature range [K] of a liquid correlation
+and the warning bits (MCD_WARN_TEMPERATURE outside it) for a temperature."""
+
+
+def method_temperature_range(method, T):
+    """Temperature range of wilke-chang, tyn-calus or hayduk-minhas and
+    the warning bits at T [K] (mcd_method_temperature_range)."""
+    lo, hi, w = ctypes.c_double(), ctypes.c_double(), ctypes.c_uint()
+    st = lib.mcd_method_temperature_range(coerce(Method, method, "method"),
+                                          _sc(T, "T"), ctypes.byref(lo),
+                                          ctypes.byref(hi), ctypes.byref(w))
+    _check(st, "mcd_method_temperature_range")
+    return TemperatureRange(lo.value, hi.value, w.value)
 
 
 def binary_omega_d(T_star):
