@@ -154,6 +154,7 @@ typedef struct porous_job {
     size_t nx0, nxL, nratios, points, its;
     double L, PL;
     const char *boot_opt, *species_name; /* --stagnant / --match */
+    const char *match;                   /* --match as given */
     mcd_slab_kind kind;
     size_t species;
     /* results */
@@ -234,7 +235,7 @@ static int slab_option(porous_job *pj, const char *cmd, const cli_args *a,
                                   &pj->nratios, why, sizeof why) != 0)
             return cli_usage_error(cmd, a->spelled, "%s", why);
         return CLI_OK;
-    case O_MATCH: pj->species_name = a->value; return CLI_OK;
+    case O_MATCH: pj->match = a->value; return CLI_OK;
     case O_PROFILE: pj->profile = 1; return CLI_OK;
     case O_POINTS:
         if (cli_parse_number(a->value, &v, why, sizeof why) != 0 ||
@@ -466,12 +467,14 @@ static int slab_check_options(porous_job *pj, const char *cmd)
         return cli_usage_error(cmd, "--ratios",
                                "has %zu values for %zu species", pj->nratios,
                                s->n);
-    if (pj->nratios && !pj->species_name)
+    if (pj->nratios && !pj->match)
         return cli_usage_error(cmd, "--match",
                                "is required with --ratios (the species "
                                "whose xL is matched)");
-    if (!pj->nratios && pj->species_name && pj->kind != MCD_SLAB_STAGNANT)
+    if (!pj->nratios && pj->match)
         return cli_usage_error(cmd, "--match", "is only used with --ratios");
+    if (pj->nratios)
+        pj->species_name = pj->match;
     if (pj->points && !pj->profile)
         return cli_usage_error(cmd, "--points", "is only used with --profile");
     return CLI_OK;

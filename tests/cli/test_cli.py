@@ -1270,6 +1270,7 @@ class PorousSlab(unittest.TestCase):
                  (["--ratios", "2,-2", "--match", "H2"], "--ratios"),
                  (["--ratios", "2,-1", "--match", "O2"], "--match"),
                  (["--stagnant", "Ar"], "--stagnant"),
+                 (["--stagnant", "N2", "--match", "H2"], "--match"),
                  (["--total-flux", "1,2"], "--total-flux"),
                  (["--pL", "-1"], "--pL"),
                  (["--pL", "1atm", "--points", "5"], "--points"),
