@@ -1643,6 +1643,23 @@ MCD_API mcd_status mcd_binary_tyn_calus(double T, double mu_solvent,
 MCD_API mcd_status mcd_binary_hayduk_minhas(double T, double mu_water,
                                             double Vb_solute, double *out_D);
 
+/** Temperature range [K] of an infinite-dilution correlation for liquids
+ *  (MCD_METHOD_WILKE_CHANG, _TYN_CALUS, _HAYDUK_MINHAS), and the warning
+ *  bit for a temperature T: MCD_WARN_TEMPERATURE when T lies outside it
+ *  (the estimate is still made by the raw call; flag or refuse it). The
+ *  range is the liquid range of water at 1 atm, 273.15 K to 373.15 K, for
+ *  all three: their data sets are near-ambient liquids and none states a
+ *  sharp limit (the database route of Wilke-Chang flags the same range).
+ *  Any output may be NULL. Since 0.4.
+ *  @param T           temperature [K], > 0.
+ *  @param out_T_min, out_T_max  the range [K].
+ *  @param out_warn    MCD_WARN_TEMPERATURE or 0.
+ *  Fails: EINVAL (another method, NaN), EDOM (T <= 0) | Allocates: no */
+MCD_API mcd_status mcd_method_temperature_range(mcd_method method, double T,
+                                                double *out_T_min,
+                                                double *out_T_max,
+                                                unsigned *out_warn);
+
 /* ------------------------------------------------------------------ */
 /* Porous media: Knudsen diffusion and the Dusty Gas Model             */
 /* ------------------------------------------------------------------ */
@@ -1892,6 +1909,35 @@ MCD_API mcd_status mcd_slab_solve(mcd_workspace *ws, const mcd_pore *pore,
                                   const mcd_slab *slab, mcd_slab_kind kind,
                                   size_t species, double value, double *out_N,
                                   double *out_PL, size_t *out_iterations);
+
+/** Steady fluxes through a porous slab with given flux ratios, as a
+ *  reaction's stoichiometry fixes them at a catalyst surface (A -> 2B:
+ *  ratios (-1, 2)/(-1 + 2) = (-1, 2)): N_i = ratios_i N_t for every
+ *  species, N_t the one unknown. The far-end fraction of species
+ *  `species` is matched (xL must still be a valid composition; its other
+ *  entries are not imposed); the other far-end fractions and PL (slab->PL
+ *  is ignored) are results, as with the open film's
+ *  MCD_FILM_BOOT_RATIOS. The same converged shooting as mcd_slab_solve
+ *  (Newton on N_t). Since 0.4.
+ *  @param species  the species whose fraction at z = L is matched.
+ *  @param ratios   z_i [-], N, finite, sum 1 (within MCD_SUM_TOL).
+ *  @param out_N    total molar fluxes [mol/(m^2 s)], N, exactly ratios_i
+ *                  N_t, positive towards z = L.
+ *  @param out_PL   the resulting pressure at z = L [Pa] (may be NULL).
+ *  @param out_iterations  Newton iterations (may be NULL).
+ *  Other parameters as mcd_slab_solve; mcd_slab_profile with out_N gives
+ *  the profile and the far-end state.
+ *  Fails: EINVAL (NULL, NaN, species out of range), EBADLEN, EDOM (out of
+ *  range, ratios not summing to 1, species absent at z = 0 with ratio 0,
+ *  the pressure going negative), ESING, ENOCONV (no N_t reaches xL of the
+ *  species, e.g. its ratio lies between its two end fractions in a
+ *  binary) | Allocates: no | Threads: one ws per thread */
+MCD_API mcd_status mcd_slab_solve_ratios(mcd_workspace *ws,
+                                         const mcd_pore *pore,
+                                         const mcd_slab *slab, size_t species,
+                                         const double *ratios, double *out_N,
+                                         double *out_PL,
+                                         size_t *out_iterations);
 
 /** Profile across a slab for given fluxes N (e.g. from mcd_slab_solve):
  *  the ODE integrated from z = 0 (x0, P0) by fourth-order Runge-Kutta

@@ -1439,6 +1439,82 @@ class Porous(unittest.TestCase):
         self.assertIn("--porosity", err)
 
 
+SLAB = ["porous", "slab", "-s", "H2,N2", "--x0", "0.8,0.2", "--xL",
+        "0.1,0.9", "-L", "2mm", "-T", "300", "-P", "1atm", "--porosity",
+        "0.4", "--tortuosity", "3", "--pore-diameter", "100nm"]
+
+
+class PorousSlab(unittest.TestCase):
+    """mcdiff porous slab: the four conditions, profile, CSV, bad input."""
+
+    def test_equal_pressures_follow_graham(self):
+        # equal end pressures: the pressure stays uniform, Graham's law
+        # (1833) holds at every point, N_H2 / N_N2 = -sqrt(M_N2 / M_H2)
+        r = run_json(*SLAB, "--pL", "1atm")
+        N, M = r["fluxes"], r["M"]
+        self.assertAlmostEqual(N[0] / N[1], -math.sqrt(M[1] / M[0]),
+                               delta=1e-7)
+        self.assertEqual(r["condition"], "pressures")
+        self.assertIn("fitted", r["caution"])
+        for a, b in zip(r["xL_solved"], [0.1, 0.9]):
+            self.assertAlmostEqual(a, b, delta=1e-8)
+
+    def test_stagnant_total_and_ratios(self):
+        r = run_json(*SLAB, "--stagnant", "N2")
+        self.assertEqual(r["fluxes"][1], 0.0)
+        # the hydrogen flux needs a falling pressure across the slab
+        self.assertLess(r["PL"], r["P0"])
+        t = run_json(*SLAB, "--total-flux", "0.01")
+        self.assertAlmostEqual(sum(t["fluxes"]), 0.01, delta=1e-11)
+        # 2 H2 -> N2 at the far face (a made-up stoichiometry): N_N2 =
+        # -N_H2 / 2; only x_H2 at z = L is matched
+        q = run_json(*SLAB, "--ratios", "2,-1", "--match", "H2")
+        NA, NB = q["fluxes"]
+        self.assertAlmostEqual(NB, -0.5 * NA, delta=1e-15 * abs(NA))
+        self.assertAlmostEqual(q["xL_solved"][0], 0.1, delta=1e-8)
+        self.assertEqual(q["matched"], "hydrogen")
+
+    def test_profile_and_csv(self):
+        header, rows, err = run_csv(*SLAB, "--pL", "0.5atm", "--profile",
+                                    "--points", "5")
+        self.assertEqual(header, ["z_m", "x_hydrogen", "x_nitrogen", "P_Pa"])
+        self.assertEqual(len(rows), 5)
+        self.assertAlmostEqual(float(rows[-1][3]), 0.5 * 101325,
+                               delta=1e-6 * 101325)
+        self.assertAlmostEqual(float(rows[-1][0]), 2e-3, delta=1e-18)
+        self.assertIn("review", err)
+        header, rows, err = run_csv(*SLAB, "--pL", "0.5atm")
+        self.assertEqual(header, ["species", "x0", "xL", "xL_solved",
+                                  "N_mol_per_m2_s"])
+        self.assertEqual(len(rows), 2)
+
+    def test_bad_input_names_the_option(self):
+        cases = [(["--pL", "1atm", "--stagnant", "N2"], "--stagnant"),
+                 (["--ratios", "2,-1"], "--match"),
+                 (["--ratios", "2,-2", "--match", "H2"], "--ratios"),
+                 (["--ratios", "2,-1", "--match", "O2"], "--match"),
+                 (["--stagnant", "Ar"], "--stagnant"),
+                 (["--stagnant", "N2", "--match", "H2"], "--match"),
+                 (["--total-flux", "1,2"], "--total-flux"),
+                 (["--pL", "-1"], "--pL"),
+                 (["--pL", "1atm", "--points", "5"], "--points"),
+                 (["--porosity", "0.5", "--pL", "1atm"], "--porosity"),
+                 ([], "--pL")]
+        for extra, name in cases:
+            with self.subTest(extra=extra):
+                code, out, err = run(*SLAB, *extra)
+                self.assertEqual(code, 2, (out, err))
+                self.assertIn(name, err)
+                self.assertEqual(out, "")
+        code, out, err = run(*[w for w in SLAB if w not in ("-L", "2mm")],
+                             "--pL", "1atm")
+        self.assertEqual(code, 2)
+        self.assertIn("--length", err)
+        code, out, err = run("porous", "slab", "--help")
+        self.assertEqual(code, 0)
+        self.assertIn("usage: mcdiff porous slab", out)
+
+
 class Csv(unittest.TestCase):
     """--csv of every command that prints a table parses with the csv
     module: one header row with SI units in the names, then data rows."""

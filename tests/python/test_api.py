@@ -865,6 +865,14 @@ class Liquids(unittest.TestCase):
         ref = (1e-4 * 1.25e-8 * (96 ** -0.19 - 0.292) * 298.15 ** 1.52
                * 0.89 ** (9.58 / 96 - 1.12))
         self.assertAlmostEqual(D / ref, 1.0, delta=1e-12)
+        # the correlations' temperature range: flagged outside
+        for m in ("wilke-chang", "tyn-calus", "hayduk-minhas"):
+            r = mcdiff.method_temperature_range(m, 298.15)
+            self.assertEqual((r.T_min, r.T_max, r.warn), (273.15, 373.15, 0))
+            r = mcdiff.method_temperature_range(m, 400.0)
+            self.assertEqual(r.warn, mcdiff.EstimateWarning.TEMPERATURE)
+        with self.assertRaises(mcdiff.InvalidArgumentError):
+            mcdiff.method_temperature_range("fsg", 300.0)
 
 
 class Porous(unittest.TestCase):
@@ -935,6 +943,23 @@ class Porous(unittest.TestCase):
         xs, Ps = mcdiff.slab_profile(D, M, [0.8, 0.2], 1e5, r.N,
                                      [0.0, 1e-3], 300.0, 2e-5, 1e-3, **pore)
         self.assertAlmostEqual(rows(xs)[1][0], 0.1, delta=1e-8)
+        # flux ratios of 2 A -> B: N_B = -N_A / 2, the profile ends at the
+        # matched x_A and the returned far pressure
+        r = mcdiff.slab_solve(D, M, [0.9, 0.1], 1e5, [0.6, 0.4], None,
+                              300.0, 2e-5, 1e-3, kind="ratios", species=0,
+                              ratios=[2.0, -1.0], **pore)
+        NA, NB = flat(r.N)
+        self.assertGreater(NA, 0.0)
+        self.assertAlmostEqual(NB, -0.5 * NA, delta=1e-15 * NA)
+        xs, Ps = mcdiff.slab_profile(D, M, [0.9, 0.1], 1e5, r.N, [1e-3],
+                                     300.0, 2e-5, 1e-3, **pore)
+        self.assertAlmostEqual(rows(xs)[0][0], 0.6, delta=1e-8)
+        self.assertAlmostEqual(flat(Ps)[0], r.PL, delta=1e-8 * r.PL)
+        with self.assertRaises(mcdiff.DomainError) as cm:
+            mcdiff.slab_solve(D, M, [0.9, 0.1], 1e5, [0.6, 0.4], None,
+                              300.0, 2e-5, 1e-3, kind="ratios",
+                              ratios=[2.0, -0.5], **pore)
+        self.assertIn("argument ratios", str(cm.exception))
         with self.assertRaises(mcdiff.DomainError) as cm:
             mcdiff.dgm_fluxes(D, M, x, [-20.0, 20.0], 300.0, 1e5, 2e-5,
                               porosity=1.5, tortuosity=3.0, d_pore=1e-7)

@@ -272,6 +272,8 @@ SIGNATURES = {
     "mcd_binary_tyn_calus": (_ST, [_D, _D, _D, _D, _PD]),
     # (T, mu_water, Vb_solute, out_D)
     "mcd_binary_hayduk_minhas": (_ST, [_D, _D, _D, _PD]),
+    # (method, T, out_T_min, out_T_max, out_warn)
+    "mcd_method_temperature_range": (_ST, [_E, _D, _PD, _PD, _PU]),
 
     # --- Porous media: Knudsen diffusion and the Dusty Gas Model ---
     # (pore, out_B0)
@@ -292,6 +294,8 @@ SIGNATURES = {
     "mcd_dgm_fluxes_batch": (_ST, [_H, _H, _SZ, _PD, _H, _PD]),
     # (ws, pore, slab, kind, species, value, out_N, out_PL, out_iterations)
     "mcd_slab_solve": (_ST, [_H, _H, _H, _E, _SZ, _D, _PD, _PD, _PSZ]),
+    # (ws, pore, slab, species, ratios, out_N, out_PL, out_iterations)
+    "mcd_slab_solve_ratios": (_ST, [_H, _H, _H, _SZ, _PD, _PD, _PD, _PSZ]),
     # (ws, pore, slab, N, n_points, z, out_x, out_P)
     "mcd_slab_profile": (_ST, [_H, _H, _H, _PD, _SZ, _PD, _PD, _PD]),
 }
