@@ -101,4 +101,14 @@ mcd_status mcdi_flux_state(mcd_workspace *ws, mcd_model model,
                            const mcd_state *state, mcd_basis flux_basis,
                            double *out_flux, mcdi_state_solver iterate);
 
+/* mcd_flux_jacobian with the fluxes as well (tangent.c): out_jac
+ * (N n_dim x N, as mcd_flux_jacobian) and, unless NULL, out_flux (N x
+ * n_dim, equal to mcd_flux_compute's to the bit); both written only on
+ * success; jac_name names out_jac in messages. The per-cell core of
+ * mcd_flux_batch_jacobian. */
+mcd_status mcdi_flux_jacobian_state(mcd_workspace *ws, mcd_model model,
+                                    const mcd_state *state, mcd_basis fb,
+                                    double *out_flux, double *out_jac,
+                                    const char *jac_name);
+
 #endif
