@@ -45,6 +45,7 @@
     R(ts, n * MCD_MAX_DIM)       /* unprojected forces, */                 \
     R(td, n * MCD_MAX_DIM)       /* projected forces, */                   \
     R(tS, n) R(tDm, n)           /* Blanc sums, D_im (mixture-averaged), */ \
+    R(tiD, n * n)                /* 1/Đ_ij, full (diagonal 0), */          \
     R(tJs, n * MCD_MAX_DIM)      /* uncorrected fluxes J* (the same), */   \
     R(tdx, n) R(tdw, n)          /* and of one direction: dx, dw, */       \
     R(tdg, n * MCD_MAX_DIM)      /* d grad x, */                           \

@@ -251,6 +251,23 @@ static mcd_status solve_state(mcd_workspace *ws, const mcdi_flux_view *v,
     return MCD_OK;
 }
 
+mcd_status mcdi_flux_solve_exact(mcd_workspace *ws, size_t n, size_t nd,
+                                 const double *x, const double *f,
+                                 const double *Dij, double c, double *J)
+{
+    mcdi_flux_view v;
+    mcd_status st;
+    mcdi_flux_scratch(ws, &v);
+    memcpy(v.x, x, n * sizeof(double));
+    /* the projection of mcdi_driving_forces (f sums to zero already) */
+    remove_along_into(v.d, f, NULL, v.x, n, 1, nd);
+    if ((st = solve_state(ws, &v, MCD_MODEL_MAXWELL_STEFAN, n, nd, Dij, c)) !=
+        MCD_OK)
+        return st;
+    memcpy(J, v.J, n * nd * sizeof(double));
+    return MCD_OK;
+}
+
 mcd_status mcdi_flux_state(mcd_workspace *ws, mcd_model model,
                            const mcd_state *state, mcd_basis flux_basis,
                            double *out_flux, mcdi_state_solver iterate)

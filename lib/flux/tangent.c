@@ -152,16 +152,19 @@ static void tan_base(tan_ctx *t)
         for (i = 0; i < n; i++)
             v->td[i * nd + d] = v->ts[i * nd + d] - x[i] * S;
     }
+    for (i = 0; i < n; i++)
+        for (j = i; j < n; j++)
+            v->tiD[i * n + j] = v->tiD[j * n + i] =
+                j == i ? 0.0 : 1.0 / s->Dij[i * n + j];
     t->m = mcdi_flux_most_abundant(n, x);
     if (t->model == MCD_MODEL_MIXTURE_AVERAGED)
         for (i = 0; i < n; i++) {
             double S = 0.0, num = 0.0, h = 0.0;
             for (j = 0; j < n; j++)
                 if (j != i) {
-                    const double D = upper(s->Dij, n, i, j);
-                    S += x[j] / D;
+                    S += x[j] * v->tiD[i * n + j];
                     num += x[j];
-                    h += 1.0 / D;
+                    h += v->tiD[i * n + j];
                 }
             v->tS[i] = S;
             v->tDm[i] = S > 0.0 ? num / S : (double)(n - 1) / h;
@@ -250,35 +253,24 @@ static mcd_status tan_exact(mcd_workspace *ws, const tan_ctx *t,
 {
     const mcd_state *s = t->s;
     const size_t n = t->n, nd = t->nd;
-    const double *x = t->v.tx, *J = t->v.jJ, c = s->c;
+    const double *x = t->v.tx, *J = t->v.jJ, *iD = t->v.tiD, c = s->c;
     double *f = t->v.jd;
-    mcd_state col;
     size_t i, j, d;
     for (i = 0; i < n; i++)
         for (d = 0; d < nd; d++) {
-            double a = 0.0;
+            double a = 0.0; /* j = i adds 0 (iD_ii = 0, q = 0) */
             for (j = 0; j < n; j++) {
-                double D, r, q;
-                if (j == i)
-                    continue;
-                D = upper(s->Dij, n, i, j);
-                r = dc / c + (dD != NULL ? upper(dD, n, i, j) / D : 0.0);
+                const double e = iD[i * n + j];
+                double r = dc / c, q;
+                if (dD != NULL)
+                    r += upper(dD, n, i, j) * e;
                 q = dx[i] * J[j * nd + d] - dx[j] * J[i * nd + d];
                 q -= (x[i] * J[j * nd + d] - x[j] * J[i * nd + d]) * r;
-                a += q / D;
+                a += q * e;
             }
             f[i * nd + d] = dd[i * nd + d] - a / c;
         }
-    memset(&col, 0, sizeof col);
-    col.n_species = n;
-    col.n_dim = nd;
-    col.comp_basis = MCD_BASIS_MOLE;
-    col.c = c;
-    col.Dij = s->Dij;
-    col.comp = x;
-    col.grad = f;
-    return mcdi_flux_state(ws, MCD_MODEL_MAXWELL_STEFAN, &col, MCD_BASIS_MOLE,
-                           dJ, NULL);
+    return mcdi_flux_solve_exact(ws, n, nd, x, f, s->Dij, c, dJ);
 }
 
 /* Stage 4b: dJ (molar) of the mixture-averaged model. */
@@ -292,16 +284,18 @@ static void tan_mixavg(const tan_ctx *t, const double *dx, const double *dd,
     size_t i, j, d;
     for (i = 0; i < n; i++) {
         double dnum = 0.0, dS = 0.0, h = 0.0, dDm;
-        for (j = 0; j < n; j++) {
-            double D, e;
-            if (j == i)
-                continue;
-            D = upper(s->Dij, n, i, j);
-            e = dD != NULL ? upper(dD, n, i, j) / D : 0.0;
-            dnum += dx[j];
-            dS += (dx[j] - x[j] * e) / D;
-            h += e / D;
-        }
+        const double *iD = t->v.tiD + i * n;
+        for (j = 0; j < n; j++)
+            if (j != i) {
+                dnum += dx[j];
+                dS += dx[j] * iD[j];
+            }
+        for (j = 0; dD != NULL && j < n; j++)
+            if (j != i) {
+                const double e = upper(dD, n, i, j) * iD[j];
+                dS -= x[j] * e * iD[j];
+                h += e * iD[j];
+            }
         if (i == m)
             for (j = 0; j < n; j++)
                 num_m += j != m ? x[j] : 0.0;
