@@ -50,7 +50,8 @@
     R(tdx, n) R(tdw, n)          /* and of one direction: dx, dw, */       \
     R(tdg, n * MCD_MAX_DIM)      /* d grad x, */                           \
     R(tdd, n * MCD_MAX_DIM)      /* d forces, */                           \
-    R(tdJ, n * MCD_MAX_DIM)      /* d fluxes */
+    R(tdJ, n * MCD_MAX_DIM)      /* d fluxes, */                           \
+    R(tF, n * n * MCD_MAX_DIM)   /* the forces of all columns */
 /* clang-format on */
 
 /* mcd_fick_matrix and mcd_fick_eigenvalues */

@@ -111,6 +111,15 @@ mcd_status mcdi_flux_solve_exact(mcd_workspace *ws, size_t n, size_t nd,
                                  const double *x, const double *f,
                                  const double *Dij, double c, double *J);
 
+/* The same for ncol right-hand sides at once with one factorisation
+ * (F: n x ncol row-major, projected in place, then overwritten; Y: n x
+ * ncol): every species present (x_i > 0), n >= 2 (the fused kernel,
+ * LAPACK's Cholesky above MCDI_MS_LAPACK_N; ncol is its n_dim, any
+ * size). */
+mcd_status mcdi_flux_solve_exact_wide(mcd_workspace *ws, size_t n, size_t ncol,
+                                      const double *x, double *F,
+                                      const double *Dij, double c, double *Y);
+
 /* mcd_flux_jacobian with the fluxes as well (tangent.c): out_jac
  * (N n_dim x N, as mcd_flux_jacobian) and, unless NULL, out_flux (N x
  * n_dim, equal to mcd_flux_compute's to the bit); both written only on

@@ -268,6 +268,25 @@ mcd_status mcdi_flux_solve_exact(mcd_workspace *ws, size_t n, size_t nd,
     return MCD_OK;
 }
 
+mcd_status mcdi_flux_solve_exact_wide(mcd_workspace *ws, size_t n, size_t ncol,
+                                      const double *x, double *F,
+                                      const double *Dij, double c, double *Y)
+{
+    mcdi_flux_view v;
+    size_t bad;
+    mcdi_flux_scratch(ws, &v);
+    remove_along(F, NULL, x, n, 1, ncol);
+    bad = mcdi_ms_ldl_select()(n, ncol, x, Dij, n, F, c, v.A, v.s, v.isq, v.S,
+                               v.dinv, Y, F);
+    if (bad != 0)
+        return mcdi_fail(MCD_ESING,
+                         "Maxwell-Stefan matrix not positive definite at "
+                         "pivot %zu (round-off; check Dij scale)",
+                         bad - 1);
+    mcdi_flux_zero_sum(n, ncol, x, Y);
+    return MCD_OK;
+}
+
 mcd_status mcdi_flux_state(mcd_workspace *ws, mcd_model model,
                            const mcd_state *state, mcd_basis flux_basis,
                            double *out_flux, mcdi_state_solver iterate)

@@ -247,14 +247,13 @@ static void tan_forces(const tan_ctx *t, const double *dx, const double *dw,
 }
 
 /* Stage 4a: dJ (molar) of the exact model by one flux solve. */
-static mcd_status tan_exact(mcd_workspace *ws, const tan_ctx *t,
-                            const double *dx, const double *dd, double dc,
-                            const double *dD, double *dJ)
+/* Stage 4a's driving force f (entries f[i * ld + d]) of one direction. */
+static void tan_exact_force(const tan_ctx *t, const double *dx,
+                            const double *dd, double dc, const double *dD,
+                            double *f, size_t ld)
 {
-    const mcd_state *s = t->s;
     const size_t n = t->n, nd = t->nd;
-    const double *x = t->v.tx, *J = t->v.jJ, *iD = t->v.tiD, c = s->c;
-    double *f = t->v.jd;
+    const double *x = t->v.tx, *J = t->v.jJ, *iD = t->v.tiD, c = t->s->c;
     size_t i, j, d;
     for (i = 0; i < n; i++)
         for (d = 0; d < nd; d++) {
@@ -268,9 +267,18 @@ static mcd_status tan_exact(mcd_workspace *ws, const tan_ctx *t,
                 q -= (x[i] * J[j * nd + d] - x[j] * J[i * nd + d]) * r;
                 a += q * e;
             }
-            f[i * nd + d] = dd[i * nd + d] - a / c;
+            f[i * ld + d] = dd[i * nd + d] - a / c;
         }
-    return mcdi_flux_solve_exact(ws, n, nd, x, f, s->Dij, c, dJ);
+}
+
+/* Stage 4a: dJ (molar) of the exact model by one flux solve. */
+static mcd_status tan_exact(mcd_workspace *ws, const tan_ctx *t,
+                            const double *dx, const double *dd, double dc,
+                            const double *dD, double *dJ)
+{
+    tan_exact_force(t, dx, dd, dc, dD, t->v.jd, t->nd);
+    return mcdi_flux_solve_exact(ws, t->n, t->nd, t->v.tx, t->v.jd, t->s->Dij,
+                                 t->s->c, dJ);
 }
 
 /* Stage 4b: dJ (molar) of the mixture-averaged model. */
@@ -318,14 +326,29 @@ static void tan_mixavg(const tan_ctx *t, const double *dx, const double *dd,
     }
 }
 
+/* Stage 5 in place: molar tangents dJ (entries dJ[i * ld + d]) to mass
+ * fluxes; dw NULL: 0. */
+static void tan_mass(const tan_ctx *t, const double *dw, double *dJ, size_t ld)
+{
+    const size_t n = t->n, nd = t->nd;
+    size_t i, d;
+    for (d = 0; d < nd; d++) {
+        double sm = 0.0;
+        for (i = 0; i < n; i++)
+            sm += t->s->M[i] * dJ[i * ld + d];
+        for (i = 0; i < n; i++)
+            dJ[i * ld + d] = t->s->M[i] * dJ[i * ld + d] -
+                             (dw != NULL ? dw[i] * t->SMJ[d] : 0.0) -
+                             t->v.tw[i] * sm;
+    }
+}
+
 /* Stages 4 and 5: the flux tangent of one direction into dJ (n x nd) in
  * the flux basis. dx, dw: stage 1 tangents (dw NULL: none). */
 static mcd_status tan_flux(mcd_workspace *ws, const tan_ctx *t,
                            const double *dx, const double *dw, const double *dd,
                            double dc, const double *dD, double *dJ)
 {
-    const size_t n = t->n, nd = t->nd;
-    size_t i, d;
     if (t->model == MCD_MODEL_MIXTURE_AVERAGED) {
         tan_mixavg(t, dx, dd, dc, dD, dJ);
     } else {
@@ -333,16 +356,49 @@ static mcd_status tan_flux(mcd_workspace *ws, const tan_ctx *t,
         if (st != MCD_OK)
             return st;
     }
-    if (t->fb != MCD_BASIS_MASS)
-        return MCD_OK;
-    for (d = 0; d < nd; d++) {
-        double sm = 0.0;
-        for (i = 0; i < n; i++)
-            sm += t->s->M[i] * dJ[i * nd + d];
-        for (i = 0; i < n; i++)
-            dJ[i * nd + d] = t->s->M[i] * dJ[i * nd + d] -
-                             (dw != NULL ? dw[i] * t->SMJ[d] : 0.0) -
-                             t->v.tw[i] * sm;
+    if (t->fb == MCD_BASIS_MASS)
+        tan_mass(t, dw, dJ, t->nd);
+    return MCD_OK;
+}
+
+/* Whether the exact model's columns can share one factorisation: every
+ * species present (the fused solve, flux_core.h, which takes LAPACK's
+ * blocked Cholesky above MCDI_MS_LAPACK_N species; trace species take
+ * the column-by-column path). */
+static int tan_wide(const tan_ctx *t)
+{
+    size_t i;
+    if (t->model != MCD_MODEL_MAXWELL_STEFAN || t->n < 2)
+        return 0;
+    for (i = 0; i < t->n; i++)
+        if (!(t->v.tx[i] > 0.0))
+            return 0;
+    return 1;
+}
+
+/* The N columns of the exact model with one factorisation: the forces of
+ * all columns side by side (n x N n_dim, column k's at k n_dim) into
+ * v.tF, one solve with N n_dim right-hand sides into v.jac (the same
+ * layout), then the mass basis per column. */
+static mcd_status tan_columns_wide(mcd_workspace *ws, tan_ctx *t)
+{
+    const size_t n = t->n, nd = t->nd, ld = n * nd;
+    const mcdi_flux_view *v = &t->v;
+    const double *dw = t->need_w ? v->tdw : NULL;
+    mcd_status st;
+    size_t k;
+    for (k = 0; k < n; k++) {
+        tan_dir_comp(t, k, v->tdx, v->tdw, v->tdg);
+        tan_forces(t, v->tdx, dw, v->tdg, v->tdd);
+        tan_exact_force(t, v->tdx, v->tdd, 0.0, NULL, v->tF + k * nd, ld);
+    }
+    st = mcdi_flux_solve_exact_wide(ws, n, ld, v->tx, v->tF, t->s->Dij, t->s->c,
+                                    v->jac);
+    if (st != MCD_OK || t->fb != MCD_BASIS_MASS)
+        return st;
+    for (k = 0; k < n; k++) {
+        tan_dir_comp(t, k, v->tdx, v->tdw, v->tdg);
+        tan_mass(t, dw, v->jac + k * nd, ld);
     }
     return MCD_OK;
 }
@@ -410,12 +466,16 @@ mcd_status mcdi_flux_jacobian_state(mcd_workspace *ws, mcd_model model,
 {
     tan_ctx t;
     size_t n, nd, k, e;
+    int wide;
     mcd_status st = tan_setup(ws, &t, model, state, fb, out_jac, jac_name);
     if (st != MCD_OK)
         return st;
     n = t.n;
     nd = t.nd;
-    for (k = 0; n >= 2 && k < n; k++) {
+    wide = tan_wide(&t);
+    if (wide && (st = tan_columns_wide(ws, &t)) != MCD_OK)
+        return st;
+    for (k = 0; !wide && n >= 2 && k < n; k++) {
         const mcdi_flux_view *v = &t.v;
         tan_dir_comp(&t, k, v->tdx, v->tdw, v->tdg);
         tan_forces(&t, v->tdx, t.need_w ? v->tdw : NULL, v->tdg, v->tdd);
@@ -431,9 +491,14 @@ mcd_status mcdi_flux_jacobian_state(mcd_workspace *ws, mcd_model model,
     if (out_flux != NULL &&
         (st = mcdi_flux_state(ws, model, state, fb, t.v.jd, NULL)) != MCD_OK)
         return st;
+    /* column k of entry e = i nd + d: at jac[k n nd + e], or (wide) at
+     * jac[i n nd + k nd + d] */
     for (e = 0; e < n * nd; e++)
         for (k = 0; k < n; k++)
-            out_jac[e * n + k] = n >= 2 ? t.v.jac[k * n * nd + e] : 0.0;
+            out_jac[e * n + k] =
+                n < 2  ? 0.0
+                : wide ? t.v.jac[(e / nd) * n * nd + k * nd + e % nd]
+                       : t.v.jac[k * n * nd + e];
     if (out_flux != NULL)
         memcpy(out_flux, t.v.jd, n * nd * sizeof(double));
     return MCD_OK;
