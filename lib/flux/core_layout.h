@@ -46,6 +46,7 @@
     R(td, n * MCD_MAX_DIM)       /* projected forces, */                   \
     R(tS, n) R(tDm, n)           /* Blanc sums, D_im (mixture-averaged), */ \
     R(tiD, n * n)                /* 1/Đ_ij, full (diagonal 0), */          \
+    R(tP, n * MCD_MAX_DIM)       /* sum_j J_j / Đ_ij, */                   \
     R(tJs, n * MCD_MAX_DIM)      /* uncorrected fluxes J* (the same), */   \
     R(tdx, n) R(tdw, n)          /* and of one direction: dx, dw, */       \
     R(tdg, n * MCD_MAX_DIM)      /* d grad x, */                           \

@@ -157,18 +157,23 @@ static void tan_base(tan_ctx *t)
             v->tiD[i * n + j] = v->tiD[j * n + i] =
                 j == i ? 0.0 : 1.0 / s->Dij[i * n + j];
     t->m = mcdi_flux_most_abundant(n, x);
-    if (t->model == MCD_MODEL_MIXTURE_AVERAGED)
-        for (i = 0; i < n; i++) {
-            double S = 0.0, num = 0.0, h = 0.0;
+    for (i = 0; i < n; i++) {
+        double S = 0.0, num = 0.0, h = 0.0;
+        for (j = 0; j < n; j++)
+            if (j != i) {
+                S += x[j] * v->tiD[i * n + j];
+                num += x[j];
+                h += v->tiD[i * n + j];
+            }
+        v->tS[i] = S;
+        v->tDm[i] = S > 0.0 ? num / S : (double)(n - 1) / h;
+        for (d = 0; d < nd; d++) {
+            double p = 0.0;
             for (j = 0; j < n; j++)
-                if (j != i) {
-                    S += x[j] * v->tiD[i * n + j];
-                    num += x[j];
-                    h += v->tiD[i * n + j];
-                }
-            v->tS[i] = S;
-            v->tDm[i] = S > 0.0 ? num / S : (double)(n - 1) / h;
+                p += v->tiD[i * n + j] * v->jJ[j * nd + d];
+            v->tP[i * nd + d] = p;
         }
+    }
     for (d = 0; d < nd; d++) {
         double a = 0.0, b = 0.0;
         for (i = 0; i < n; i++) {
@@ -246,29 +251,35 @@ static void tan_forces(const tan_ctx *t, const double *dx, const double *dw,
     }
 }
 
-/* Stage 4a: dJ (molar) of the exact model by one flux solve. */
-/* Stage 4a's driving force f (entries f[i * ld + d]) of one direction. */
+/* Stage 4a's driving force f (entries f[i * ld + d]) of one direction:
+ * with R_ij = 1/Đ_ij, P_i = sum_j R_ij J_j and S_i = sum_j R_ij x_j (at
+ * the state) and Q_i = sum_j R_ij dx_j, the sum of 4a is
+ *   dx_i P_i - J_i Q_i - (dc / c)(x_i P_i - J_i S_i)
+ *   - sum_j (x_i J_j - x_j J_i) dĐ_ij R_ij^2,
+ * O(N^2) a direction (the last sum only for dĐ). */
 static void tan_exact_force(const tan_ctx *t, const double *dx,
                             const double *dd, double dc, const double *dD,
                             double *f, size_t ld)
 {
     const size_t n = t->n, nd = t->nd;
     const double *x = t->v.tx, *J = t->v.jJ, *iD = t->v.tiD, c = t->s->c;
+    const double *P = t->v.tP, *S = t->v.tS, r = dc / c;
     size_t i, j, d;
-    for (i = 0; i < n; i++)
+    for (i = 0; i < n; i++) {
+        double Q = 0.0;
+        for (j = 0; j < n; j++)
+            Q += iD[i * n + j] * dx[j];
         for (d = 0; d < nd; d++) {
-            double a = 0.0; /* j = i adds 0 (iD_ii = 0, q = 0) */
-            for (j = 0; j < n; j++) {
+            const double Pi = P[i * nd + d], Ji = J[i * nd + d];
+            double a = dx[i] * Pi - Ji * Q - r * (x[i] * Pi - Ji * S[i]);
+            for (j = 0; dD != NULL && j < n; j++) {
                 const double e = iD[i * n + j];
-                double r = dc / c, q;
-                if (dD != NULL)
-                    r += upper(dD, n, i, j) * e;
-                q = dx[i] * J[j * nd + d] - dx[j] * J[i * nd + d];
-                q -= (x[i] * J[j * nd + d] - x[j] * J[i * nd + d]) * r;
-                a += q * e;
+                a -= (x[i] * J[j * nd + d] - x[j] * Ji) * upper(dD, n, i, j) *
+                     e * e;
             }
             f[i * ld + d] = dd[i * nd + d] - a / c;
         }
+    }
 }
 
 /* Stage 4a: dJ (molar) of the exact model by one flux solve. */
@@ -288,16 +299,15 @@ static void tan_mixavg(const tan_ctx *t, const double *dx, const double *dd,
     const mcd_state *s = t->s;
     const size_t n = t->n, nd = t->nd, m = t->m;
     const double *x = t->v.tx, *Dm = t->v.tDm, *dv = t->v.td, c = s->c;
-    double num_m = 0.0;
+    double num_m = 0.0, sdx = 0.0;
     size_t i, j, d;
+    for (j = 0; j < n; j++)
+        sdx += dx[j];
     for (i = 0; i < n; i++) {
-        double dnum = 0.0, dS = 0.0, h = 0.0, dDm;
+        double dnum = sdx - dx[i], dS = 0.0, h = 0.0, dDm;
         const double *iD = t->v.tiD + i * n;
-        for (j = 0; j < n; j++)
-            if (j != i) {
-                dnum += dx[j];
-                dS += dx[j] * iD[j];
-            }
+        for (j = 0; j < n; j++) /* iD[i] = 0 */
+            dS += dx[j] * iD[j];
         for (j = 0; dD != NULL && j < n; j++)
             if (j != i) {
                 const double e = upper(dD, n, i, j) * iD[j];
