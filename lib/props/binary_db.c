@@ -151,10 +151,8 @@ static mcd_status missing(const mcdi_spec *s, const char *what, mcd_method m)
                      s->name, what, mcd_method_name(m));
 }
 
-/* Lennard-Jones parameters of one species, tabulated or estimated from the
- * boiling point (Wilke-Lee rules) for method m. Fails: ENODATA. */
-static mcd_status lj_params(const mcdi_spec *s, mcd_method m, double *sig,
-                            double *eps, int *estimated)
+mcd_status mcdi_spec_lj(const mcdi_spec *s, mcd_method m, double *sig,
+                        double *eps, int *estimated)
 {
     if (has(s, MCD_PARAM_LJ_SIGMA) && s->p[MCD_PARAM_LJ_SIGMA] > 0) {
         *sig = s->p[MCD_PARAM_LJ_SIGMA];
@@ -204,9 +202,9 @@ mcd_status mcdi_pair_coef(const mcdi_spec *a, const mcdi_spec *b, mcd_method m,
         *out_estimated = 0;
         return MCD_OK;
     }
-    if ((st = lj_params(a, m, &sa, &ea, &est)) != MCD_OK)
+    if ((st = mcdi_spec_lj(a, m, &sa, &ea, &est)) != MCD_OK)
         return st;
-    if ((st = lj_params(b, m, &sb, &eb, &est)) != MCD_OK)
+    if ((st = mcdi_spec_lj(b, m, &sb, &eb, &est)) != MCD_OK)
         return st;
     if (m == MCD_METHOD_CHAPMAN_ENSKOG)
         *out_coef = mcdi_ce_coef(a->p[MCD_PARAM_MOLAR_MASS],
@@ -224,10 +222,8 @@ mcd_status mcdi_pair_coef(const mcdi_spec *a, const mcdi_spec *b, mcd_method m,
     return MCD_OK;
 }
 
-/* Warning bits that depend only on the pair and the state (not on the
- * method's own range). */
-static unsigned pair_state_warnings(const mcdi_spec *a, const mcdi_spec *b,
-                                    double T, double P)
+unsigned mcdi_pair_state_warnings(const mcdi_spec *a, const mcdi_spec *b,
+                                  double T, double P)
 {
     unsigned w = 0;
     if (P > MCDI_HIGH_P)
@@ -262,7 +258,7 @@ mcd_status mcdi_pair_gas(const mcdi_spec *a, const mcdi_spec *b, mcd_method m,
         return MCD_EDOM;
     if ((st = mcdi_pair_coef(a, b, m, &coef, &eps_ab, &est)) != MCD_OK)
         return st;
-    w = pair_state_warnings(a, b, T, P);
+    w = mcdi_pair_state_warnings(a, b, T, P);
     if (est)
         w |= MCD_WARN_ESTIMATED_PARAM;
     if (m == MCD_METHOD_FSG) {
