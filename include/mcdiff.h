@@ -670,6 +670,130 @@ MCD_API mcd_status mcd_mixture_viscosities(const mcd_mixture *mix, double T,
                                            double *out_mu, unsigned *out_warn);
 
 /* ------------------------------------------------------------------ */
+/* Thermal diffusion factors from kinetic theory                       */
+/* ------------------------------------------------------------------ */
+
+/** Typical relative error of a binary thermal diffusion factor alpha_T by
+ *  the first Chapman-Enskog approximation with Lennard-Jones parameters
+ *  fitted to viscosity, for pairs of non-polar gases near room
+ *  temperature (our reading of the comparisons with measurements reviewed
+ *  by Grew and Ibbs 1952 and by Mason, Munn and Smith 1966, from memory;
+ *  tests/test_thermal_kt.c compares five pairs). Thermal diffusion
+ *  estimates are much less accurate than diffusivity estimates: the first
+ *  approximation lies below the converged theory by up to some 10 % for
+ *  very unequal masses, polyatomic gases lose part of the effect to
+ *  inelastic collisions, and alpha_T is a small difference of large terms
+ *  that changes sign at low T*, where the relative error is unbounded.
+ *  Since 0.4. */
+#define MCD_THERMAL_CE_TYPICAL_ERROR 0.2
+/** Typical relative error of the pairwise thermal diffusion ratios of a
+ *  mixture of three or more species (mcd_mixture_thermal_ratios): an
+ *  estimate of ours, not a published figure; fair for light species in
+ *  heavier gases, worse between heavy species. Since 0.4. */
+#define MCD_THERMAL_MIX_TYPICAL_ERROR 0.3
+
+/** Reduced collision integrals of the Lennard-Jones (12-6) potential and
+ *  their ratios, at T* = k T / eps in 0.3..100. Since 0.4.
+ *
+ *  From a table computed once by direct quadrature of the kinetic-theory
+ *  definitions (classical deflection angle, cross sections, thermal
+ *  average; Hirschfelder, Curtiss and Bird 1954, eqs. 8.2-1 to 8.2-5;
+ *  tools/gen_collision.c), interpolated in ln T*. Omega(1,1)* and
+ *  Omega(2,2)* agree with the Neufeld-Janzen-Aziz fits
+ *  (mcd_binary_omega_d, mcd_viscosity_omega22) to about 0.1 %.
+ *  @param T_star      reduced temperature [-], 0.3..100.
+ *  @param out_omega   length 4: Omega(1,1)*, Omega(1,2)*, Omega(1,3)*,
+ *                     Omega(2,2)* (may be NULL).
+ *  @param out_ratios  length 3: A* = Omega(2,2)* / Omega(1,1)*,
+ *                     B* = (5 Omega(1,2)* - 4 Omega(1,3)*) / Omega(1,1)*,
+ *                     C* = Omega(1,2)* / Omega(1,1)* (may be NULL; not both).
+ *  Fails: EINVAL (NaN, both outputs NULL), EDOM (T* outside 0.3..100)
+ *  | Allocates: no */
+MCD_API mcd_status mcd_lj_collision_integrals(double T_star,
+                                              double *out_omega,
+                                              double *out_ratios);
+
+/** Binary thermal diffusion factor alpha_T [-] in the first Chapman-Enskog
+ *  approximation from given collision quantities (any potential): the
+ *  formula of Chapman and Cowling and of Hirschfelder, Curtiss and Bird
+ *  (1954, eqs. 8.2-50 ff.; lib/props/thermal_ce.c writes it out),
+ *  alpha_T = (6 C - 5) (x1 S1 - x2 S2) / (x1^2 Q1 + x2^2 Q2 + x1 x2 Q12).
+ *  It vanishes for Maxwell molecules (C = 5/6). k_T = x1 x2 alpha_T;
+ *  alpha_T > 0 when species 1 moves to the cold side. Since 0.4.
+ *  @param M1,M2  molar masses [kg/mol], > 0.
+ *  @param x1     mole fraction of species 1, 0..1.
+ *  @param A,B,C  the unlike pair's ratios A*, B*, C* [-], > 0.
+ *  @param R1,R2  sigma_i^2 Omega(2,2)*_i / (sigma_12^2 Omega(1,1)*_12)
+ *                [-], > 0 (the like pairs' viscosity cross sections over
+ *                the unlike pair's diffusion cross section).
+ *  @param out_alpha  alpha_T [-].
+ *  Fails: EINVAL (NULL, NaN), EDOM (out of range, result not finite)
+ *  | Allocates: no */
+MCD_API mcd_status mcd_thermal_factor_kinetic(double M1, double M2, double x1,
+                                              double A, double B, double C,
+                                              double R1, double R2,
+                                              double *out_alpha);
+
+/** Binary thermal diffusion factor alpha_T [-] of two Lennard-Jones gases
+ *  in the first Chapman-Enskog approximation (mcd_thermal_factor_kinetic
+ *  with mcd_lj_collision_integrals; sigma_12 = (sigma_1 + sigma_2)/2,
+ *  eps_12 = sqrt(eps_1 eps_2)). Typical error
+ *  MCD_THERMAL_CE_TYPICAL_ERROR: far less accurate than a diffusivity.
+ *  A reduced temperature outside 0.3..100 is clamped to the table's end
+ *  and flagged. Since 0.4.
+ *  @param T          temperature [K], > 0.
+ *  @param M1,M2      molar masses [kg/mol]; @param sig1,sig2 sigma [m];
+ *  @param eps1,eps2  epsilon/k [K]; all > 0.
+ *  @param x1         mole fraction of species 1, 0..1.
+ *  @param out_alpha  alpha_T [-], > 0 when species 1 goes to the cold side.
+ *  @param out_warn   MCD_WARN_TEMPERATURE (may be NULL).
+ *  Fails: EINVAL, EDOM | Allocates: no */
+MCD_API mcd_status mcd_thermal_factor_ce(double T, double M1, double M2,
+                                         double sig1, double sig2,
+                                         double eps1, double eps2, double x1,
+                                         double *out_alpha,
+                                         unsigned *out_warn);
+
+/** Binary thermal diffusion factor alpha_T [-] of species a and b of a
+ *  database at x_a (as mcd_thermal_factor_ce; Lennard-Jones parameters
+ *  estimated as for mcd_db_binary_gas when missing). Since 0.4.
+ *  @param out_rel_err  MCD_THERMAL_CE_TYPICAL_ERROR (may be NULL).
+ *  @param out_warn     MCD_WARN_* bits: TEMPERATURE (a T* outside
+ *                      0.3..100), POLAR, QUANTUM, ASSOCIATING,
+ *                      ESTIMATED_PARAM (may be NULL).
+ *  Fails: EINVAL (a == b), EDOM, ENOTFOUND (index), ENODATA
+ *  | Allocates: no */
+MCD_API mcd_status mcd_db_thermal_factor(const mcd_db *db, size_t a, size_t b,
+                                         double T, double x_a,
+                                         double *out_alpha,
+                                         double *out_rel_err,
+                                         unsigned *out_warn);
+
+/** Thermal diffusion ratios k_T,i [-] of a gas mixture for mcd_state.kT,
+ *  pairwise from binary first approximations:
+ *  k_T,i = sum_{j != i} x_i x_j alpha_T,ij(x_i / (x_i + x_j)). They sum to
+ *  zero exactly; N = 2 gives the binary k_T = x1 x2 alpha_T; a trace
+ *  species gets x_i sum_j x_j alpha_T,ij(0), the usual estimate for a light
+ *  trace species (H2, He) in a mixture. The coupling through third
+ *  species is ignored: fair for light species in heavier gases, rough
+ *  between heavy species. Typical error MCD_THERMAL_CE_TYPICAL_ERROR for
+ *  two species, MCD_THERMAL_MIX_TYPICAL_ERROR beyond. Since 0.4.
+ *  @param T       temperature [K], > 0.
+ *  @param x       mole fractions, length N, validated as mcd_comp_normalize.
+ *  @param out_kT  length N, k_T,i > 0 when species i moves to the cold side.
+ *  @param out_theta  length N, theta_i = k_T,i / x_i = sum_j x_j
+ *                 alpha_T,ij, finite also for a species with x_i = 0 (the
+ *                 input of mcd_dufour_heat_flux); may be NULL.
+ *  @param out_rel_err  typical relative error (may be NULL).
+ *  @param out_warn     OR of the pairs' warning bits (may be NULL).
+ *  Fails: EINVAL, EDOM, ENODATA | Allocates: no */
+MCD_API mcd_status mcd_mixture_thermal_ratios(const mcd_mixture *mix, double T,
+                                              const double *x, double *out_kT,
+                                              double *out_theta,
+                                              double *out_rel_err,
+                                              unsigned *out_warn);
+
+/* ------------------------------------------------------------------ */
 /* Workspaces                                                          */
 /* ------------------------------------------------------------------ */
 
@@ -925,6 +1049,41 @@ MCD_API mcd_status mcd_flux_jacobian_tp(mcd_workspace *ws, mcd_model model,
                                         double P, const double *dDij_dT,
                                         const double *dDij_dP, double *out_dT,
                                         double *out_dP);
+
+/** Dufour heat flux q_D [W/m^2]: the heat that diffusion fluxes carry
+ *  through thermal diffusion's reciprocal effect, an optional output
+ *  computed from fluxes already solved (it costs nothing when not
+ *  called). Since 0.4.
+ *
+ *  From the linear laws of irreversible thermodynamics with Onsager's
+ *  reciprocal relations (de Groot and Mazur 1962, ch. 11; Hirschfelder,
+ *  Curtiss and Bird 1954, sec. 7.4; derivation in lib/flux/thermal.c):
+ *    q_D = R T sum_i theta_i J_i,   theta_i = k_T,i / x_i,
+ *  for molar fluxes J_i relative to the molar-average velocity, and
+ *  q_D = R T sum_i (theta_i - sum_k x_k theta_k) j_i / M_i for mass fluxes
+ *  (the same number). The coefficient that couples the heat flux to the
+ *  composition forces is then the one that couples the species fluxes to
+ *  grad ln T (tests/test_thermal_kt.c checks the reciprocity). The total
+ *  heat flux adds -lambda grad T and the enthalpy carried by the fluxes.
+ *  Like the thermal diffusion ratios it rests on, q_D is far less
+ *  accurate than the fluxes (MCD_THERMAL_CE_TYPICAL_ERROR at best).
+ *  @param n_species  N, 1..MCD_MAX_SPECIES; @param n_dim 1..MCD_MAX_DIM.
+ *  @param x      mole fractions, length N, validated as mcd_comp_normalize.
+ *  @param M      molar masses [kg/mol], length N (mass fluxes only; may be
+ *                NULL for molar fluxes).
+ *  @param theta  k_T,i / x_i [-], length N, finite; for a species with
+ *                x_i = 0 the limit (mcd_mixture_thermal_ratios gives it).
+ *  @param T      temperature [K], > 0.
+ *  @param flux_basis  MOLE: flux holds J_i [mol/(m^2 s)]; MASS: j_i
+ *                [kg/(m^2 s)] (as from mcd_flux_compute).
+ *  @param flux   N x n_dim, finite.
+ *  @param out_q  length n_dim [W/m^2].
+ *  Fails: EINVAL (NULL, NaN, counts), EDOM | Allocates: no */
+MCD_API mcd_status mcd_dufour_heat_flux(size_t n_species, size_t n_dim,
+                                        const double *x, const double *M,
+                                        const double *theta, double T,
+                                        mcd_basis flux_basis,
+                                        const double *flux, double *out_q);
 
 /** Thermal diffusion ratios k_T,i [-] from thermal diffusion coefficients
  *  D_i^T [kg/(m s)], for mcd_state.kT / mcd_cells.kT. Since 0.3.

@@ -884,6 +884,39 @@ static int call_mcd_mixture_viscosities(ctx *c)
     return mcd_mixture_viscosities(ARG(mix, NB_MIX), c->T, OUT(o1, NB_O1),
                                    OUT(ou, NB_OU));
 }
+static int call_mcd_lj_collision_integrals(ctx *c)
+{
+    return mcd_lj_collision_integrals(c->Tstar, OUT(o1, NB_O1), OUT(o2, NB_O2));
+}
+static int call_mcd_thermal_factor_kinetic(ctx *c)
+{
+    return mcd_thermal_factor_kinetic(c->MA, c->MB, c->x[0], 1.1, 1.2, 0.9, 1.0,
+                                      1.0, OUT(o1, NB_O1));
+}
+static int call_mcd_thermal_factor_ce(ctx *c)
+{
+    return mcd_thermal_factor_ce(c->T, c->MA, c->MB, c->sigA, c->sigB, c->epsA,
+                                 c->epsB, c->x[0], OUT(o1, NB_O1),
+                                 OUT(ou, NB_OU));
+}
+static int call_mcd_db_thermal_factor(ctx *c)
+{
+    return mcd_db_thermal_factor(ARG(db, NB_DB), IDX(c->ga), IDX(c->gb), c->T,
+                                 c->x[0], OUT(o1, NB_O1), OUT(o2, NB_O2),
+                                 OUT(ou, NB_OU));
+}
+static int call_mcd_mixture_thermal_ratios(ctx *c)
+{
+    return mcd_mixture_thermal_ratios(ARG(mix, NB_MIX), c->T, ARG(x, NB_X),
+                                      OUT(o1, NB_O1), OUT(o2, NB_O2),
+                                      OUT(o3, NB_O3), OUT(ou, NB_OU));
+}
+static int call_mcd_dufour_heat_flux(ctx *c)
+{
+    return mcd_dufour_heat_flux(c->n, c->nd, ARG(x, NB_X), ARG(M, NB_M),
+                                ARG(vals, NB_VALS), c->T, MCD_BASIS_MASS,
+                                ARG(J, NB_J), OUT(o1, NB_O1));
+}
 #define PORE (NUL_(NB_PORE) ? NULL : &c->pore)
 static int call_mcd_pore_permeability(ctx *c)
 {
@@ -2139,6 +2172,40 @@ static const bcase cases[] = {
     C(mcd_mixture_viscosities, "out NULL", EINVAL_, "out_mu", MN(NB_O1)),
     C(mcd_mixture_viscosities, "T negative", EDOM_, "T", MD(T, -300.0)),
 
+    B(mcd_lj_collision_integrals, MCD_OK),
+    C(mcd_lj_collision_integrals, "T* 0", EDOM_, "T_star", MD(Tstar, 0.0)),
+    C(mcd_lj_collision_integrals, "T* above the table", EDOM_, "T_star",
+      MD(Tstar, 200.0)),
+    C(mcd_lj_collision_integrals, "T* NaN", EINVAL_, "T_star", MD(Tstar, NAN)),
+    B(mcd_thermal_factor_kinetic, MCD_OK),
+    C(mcd_thermal_factor_kinetic, "M1 0", EDOM_, "M1", MD(MA, 0.0)),
+    C(mcd_thermal_factor_kinetic, "x1 NaN", EINVAL_, "x1", MDA(x, 0, NAN)),
+    C(mcd_thermal_factor_kinetic, "out NULL", EINVAL_, "out_alpha", MN(NB_O1)),
+    B(mcd_thermal_factor_ce, MCD_OK),
+    C(mcd_thermal_factor_ce, "T 0", EDOM_, "T", MD(T, 0.0)),
+    C(mcd_thermal_factor_ce, "sigma NaN", EINVAL_, "sig1", MD(sigA, NAN)),
+    C(mcd_thermal_factor_ce, "out NULL", EINVAL_, "out_alpha", MN(NB_O1)),
+    B(mcd_db_thermal_factor, MCD_OK),
+    C(mcd_db_thermal_factor, "db NULL", EINVAL_, "db", MN(NB_DB)),
+    C(mcd_db_thermal_factor, "out NULL", EINVAL_, "out_alpha", MN(NB_O1)),
+    C(mcd_db_thermal_factor, "index out of range", MCD_ENOTFOUND, "a",
+      MZ(ga, 100000)),
+    C(mcd_db_thermal_factor, "species without sigma", MCD_ENODATA, "sigma",
+      MZ(ga, PROBE)),
+    C(mcd_db_thermal_factor, "T NaN", EINVAL_, "T", MD(T, NAN)),
+    B(mcd_mixture_thermal_ratios, MCD_OK),
+    C(mcd_mixture_thermal_ratios, "mix NULL", EINVAL_, "mix", MN(NB_MIX)),
+    C(mcd_mixture_thermal_ratios, "x NULL", EINVAL_, "x", MN(NB_X)),
+    C(mcd_mixture_thermal_ratios, "out NULL", EINVAL_, "out_kT", MN(NB_O1)),
+    C(mcd_mixture_thermal_ratios, "T negative", EDOM_, "T", MD(T, -300.0)),
+    B(mcd_dufour_heat_flux, MCD_OK),
+    C(mcd_dufour_heat_flux, "x NULL", EINVAL_, "x", MN(NB_X)),
+    C(mcd_dufour_heat_flux, "theta NULL", EINVAL_, "theta", MN(NB_VALS)),
+    C(mcd_dufour_heat_flux, "flux NULL", EINVAL_, "flux", MN(NB_J)),
+    C(mcd_dufour_heat_flux, "M NULL", EINVAL_, "M", MN(NB_M)),
+    C(mcd_dufour_heat_flux, "T 0", EDOM_, "T", MD(T, 0.0)),
+    C(mcd_dufour_heat_flux, "n_dim 0", EINVAL_, "n_dim", MZ(nd, 0)),
+    C(mcd_dufour_heat_flux, "out NULL", EINVAL_, "out_q", MN(NB_O1)),
     /* ---- porous media ---- */
     B(mcd_pore_permeability, MCD_OK),
     C(mcd_pore_permeability, "pore NULL", EINVAL_, "pore", MN(NB_PORE)),

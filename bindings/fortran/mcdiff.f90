@@ -183,6 +183,8 @@ module mcdiff
        mcd_liquid_evaporation, &
        mcd_viscosity_omega22, mcd_viscosity_chapman_enskog, mcd_viscosity_wilke, &
        mcd_db_viscosity_gas, mcd_mixture_viscosities, mcd_pore_permeability, &
+       mcd_lj_collision_integrals, mcd_thermal_factor_kinetic, mcd_thermal_factor_ce, &
+       mcd_db_thermal_factor, mcd_mixture_thermal_ratios, mcd_dufour_heat_flux, &
        mcd_pore_effective, mcd_knudsen_diffusivity, mcd_bosanquet, &
        mcd_dgm_fluxes, mcd_dgm_closed, mcd_dgm_gradients, mcd_dgm_fluxes_batch, &
        mcd_slab_solve, mcd_slab_solve_ratios, mcd_slab_profile
@@ -1498,6 +1500,108 @@ contains
     if (s == 0 .and. present(warn)) warn = int(w)
     call finish(s, stat, errmsg)
   end subroutine mcd_mixture_viscosities
+
+  !> Lennard-Jones collision integrals omega(4) = Omega(1,1)*, Omega(1,2)*,
+  !> Omega(1,3)*, Omega(2,2)* and ratios(3) = A*, B*, C* at T_star in
+  !> 0.3..100.
+  subroutine mcd_lj_collision_integrals(T_star, omega, ratios, stat, errmsg)
+    real(c_double), intent(in) :: T_star
+    real(c_double), intent(inout), target :: omega(4), ratios(3)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_lj_collision_integrals(T_star, c_loc(omega), &
+         c_loc(ratios)), stat, errmsg)
+  end subroutine mcd_lj_collision_integrals
+
+  !> Binary thermal diffusion factor alpha [-] (first Chapman-Enskog
+  !> approximation) from molar masses M1, M2 [kg/mol], x1 and the
+  !> collision quantities A, B, C, R1, R2.
+  subroutine mcd_thermal_factor_kinetic(M1, M2, x1, A, B, C, R1, R2, alpha, &
+       stat, errmsg)
+    real(c_double), intent(in) :: M1, M2, x1, A, B, C, R1, R2
+    real(c_double), intent(inout) :: alpha
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_thermal_factor_kinetic(M1, M2, x1, A, B, C, R1, R2, &
+         alpha), stat, errmsg)
+  end subroutine mcd_thermal_factor_kinetic
+
+  !> Binary thermal diffusion factor alpha [-] of two Lennard-Jones gases:
+  !> T [K], M [kg/mol], sigma [m], eps epsilon/k [K], x1 [-].
+  subroutine mcd_thermal_factor_ce(T, M1, M2, sig1, sig2, eps1, eps2, x1, &
+       alpha, stat, errmsg, warn)
+    real(c_double), intent(in) :: T, M1, M2, sig1, sig2, eps1, eps2, x1
+    real(c_double), intent(inout) :: alpha
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    integer, intent(inout), optional :: warn
+    integer(c_int), target :: w
+    integer(c_int) :: s
+    w = 0
+    s = c_mcd_thermal_factor_ce(T, M1, M2, sig1, sig2, eps1, eps2, x1, alpha, &
+         c_loc(w))
+    if (s == 0 .and. present(warn)) warn = int(w)
+    call finish(s, stat, errmsg)
+  end subroutine mcd_thermal_factor_ce
+
+  !> Thermal diffusion factor alpha [-] of species a and b (1-based) of db
+  !> at T [K] and mole fraction x_a of a.
+  subroutine mcd_db_thermal_factor(db, a, b, T, x_a, alpha, stat, errmsg, &
+       rel_err, warn)
+    type(mcd_db_t), intent(in) :: db
+    integer, intent(in) :: a, b
+    real(c_double), intent(in) :: T, x_a
+    real(c_double), intent(inout) :: alpha
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    real(c_double), intent(inout), optional :: rel_err
+    integer, intent(inout), optional :: warn
+    real(c_double), target :: e
+    integer(c_int), target :: w
+    integer(c_int) :: s
+    e = 0
+    w = 0
+    s = c_mcd_db_thermal_factor(db%ptr, cidx(a), cidx(b), T, x_a, alpha, &
+         c_loc(e), c_loc(w))
+    call finish_estimate(s, e, w, stat, errmsg, rel_err, warn)
+  end subroutine mcd_db_thermal_factor
+
+  !> Thermal diffusion ratios kT(n) and theta(n) = kT / x of a mixture at
+  !> T [K] and mole fractions x(n) (pairwise first approximations).
+  subroutine mcd_mixture_thermal_ratios(mix, T, x, kT, theta, stat, errmsg, &
+       rel_err, warn)
+    type(mcd_mixture_t), intent(in) :: mix
+    real(c_double), intent(in) :: T, x(*)
+    real(c_double), intent(inout) :: kT(*)
+    real(c_double), intent(inout), target :: theta(*)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    real(c_double), intent(inout), optional :: rel_err
+    integer, intent(inout), optional :: warn
+    real(c_double), target :: e
+    integer(c_int), target :: w
+    integer(c_int) :: s
+    e = 0
+    w = 0
+    s = c_mcd_mixture_thermal_ratios(mix%ptr, T, x, kT, c_loc(theta), &
+         c_loc(e), c_loc(w))
+    call finish_estimate(s, e, w, stat, errmsg, rel_err, warn)
+  end subroutine mcd_mixture_thermal_ratios
+
+  !> Dufour heat flux q(n_dim) [W/m^2] from fluxes flux(n_dim, n) (species
+  !> in the second index) in flux_basis, mole fractions x(n), molar masses
+  !> M(n) [kg/mol], theta(n) = kT / x and T [K].
+  subroutine mcd_dufour_heat_flux(n, n_dim, x, M, theta, T, flux_basis, &
+       flux, q, stat, errmsg)
+    integer, intent(in) :: n, n_dim, flux_basis
+    real(c_double), intent(in) :: x(n), theta(n), T, flux(n_dim, n)
+    real(c_double), intent(in), target :: M(n)
+    real(c_double), intent(inout) :: q(n_dim)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_dufour_heat_flux(csz(n), csz(n_dim), x, c_loc(M), &
+         theta, T, int(flux_basis, c_int), flux, q), stat, errmsg)
+  end subroutine mcd_dufour_heat_flux
 
   ! ==================================================================
   ! Porous media

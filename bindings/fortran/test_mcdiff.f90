@@ -23,6 +23,7 @@ program test_mcdiff
   call check_temperature_fit()
   call check_bulbs()
   call check_porous()
+  call check_thermal_kt()
   call check_errors()
   call check_handles()
   call check_liquid()
@@ -712,6 +713,55 @@ contains
     call check(worst_cons <= 1e-14_c_double, 'every species conserved')
     call check(all(abs(x1(:, 1) - x1_0) <= 1e-15_c_double), 'x1(t = 0) = x1_0')
   end subroutine check_bulbs
+
+  ! Thermal diffusion from kinetic theory: Omega(1,1)* against Bird,
+  ! Stewart and Lightfoot (2002), Table E.2 (1.440 at T* = 1), the
+  ! rigid-sphere isotopic limit 105/118 (from memory), the heavier species
+  ! to the cold side, zero-sum mixture ratios, and the Dufour flux
+  ! R T sum_i theta_i J_i of a hand-made binary state.
+  subroutine check_thermal_kt()
+    type(mcd_db_t) :: db
+    type(mcd_mixture_t) :: mix
+    integer :: stat, ia, ih, w
+    character(len=256) :: msg
+    real(c_double) :: om(4), r(3), a, b, err, kT(2), th(2), q(1), J(1, 2)
+    call mcd_lj_collision_integrals(1.0_c_double, om, r, stat, msg)
+    call check(stat == MCD_OK .and. abs(om(1) / 1.440_c_double - 1) < 2e-3_c_double, &
+         'Omega11(1) (Bird, Stewart and Lightfoot, Table E.2)')
+    call check(abs(r(3) - om(2) / om(1)) < 1e-15_c_double, 'C* = Omega12 / Omega11')
+    call mcd_thermal_factor_kinetic(1.0_c_double + 1e-7_c_double, 1.0_c_double - 1e-7_c_double, &
+         0.4_c_double, 1.0_c_double, 1.0_c_double, 1.0_c_double, 1.0_c_double, 1.0_c_double, &
+         a, stat, msg)
+    call check(stat == MCD_OK .and. abs(a / 1e-7_c_double - 105.0_c_double / 118) < 1e-6_c_double, &
+         'rigid-sphere isotopic limit 105/118')
+    call mcd_db_new_builtin(db, stat, msg)
+    call mcd_db_find(db, 'argon', ia, stat, msg)
+    call mcd_db_find(db, 'helium', ih, stat, msg)
+    call mcd_db_thermal_factor(db, ia, ih, 300.0_c_double, 0.5_c_double, a, stat, msg, &
+         rel_err=err, warn=w)
+    call check_stat(stat, msg, 'thermal diffusion factor Ar-He')
+    call check(a > 0 .and. abs(err - MCD_THERMAL_CE_TYPICAL_ERROR) < 1e-15_c_double, &
+         'argon to the cold side; typical error')
+    call mcd_thermal_factor_ce(300.0_c_double, 39.95e-3_c_double, 4.0026e-3_c_double, &
+         3.542e-10_c_double, 2.551e-10_c_double, 93.3_c_double, 10.22_c_double, 0.5_c_double, &
+         b, stat, msg, warn=w)
+    call check(stat == MCD_OK .and. abs(a - b) <= 1e-14_c_double, 'raw = database route')
+    call mcd_mixture_new(mix, db, [character(len=16) :: 'argon', 'helium'], &
+         stat, msg, default_method=MCD_GAS_CHAPMAN_ENSKOG)
+    call mcd_mixture_thermal_ratios(mix, 300.0_c_double, [0.5_c_double, 0.5_c_double], kT, th, &
+         stat, msg)
+    call check_stat(stat, msg, 'mixture thermal ratios')
+    call check(abs(kT(1) + kT(2)) < 1e-16_c_double .and. abs(kT(1) - 0.25_c_double * a) &
+         < 1e-15_c_double .and. abs(th(1) - 0.5_c_double * a) < 1e-15_c_double, &
+         'binary mixture ratios = x1 x2 alpha')
+    J(1, :) = [1.0_c_double, -1.0_c_double]
+    call mcd_dufour_heat_flux(2, 1, [0.5_c_double, 0.5_c_double], [0.04_c_double, 0.004_c_double], &
+         [0.2_c_double, -0.2_c_double], 300.0_c_double, MCD_BASIS_MOLE, J, q, stat, msg)
+    call check(stat == MCD_OK .and. abs(q(1) - 0.4_c_double * MCD_GAS_CONSTANT * 300) &
+         <= 1e-12_c_double * q(1), 'Dufour heat flux R T sum theta J')
+    call mcd_free(mix)
+    call mcd_free(db)
+  end subroutine check_thermal_kt
 
   ! Viscosity against the CRC Handbook (Viscosity of Gases, Huber and
   ! Harvey: N2 17.9 uPa s at 300 K), Wilke's pure-species limit, and the

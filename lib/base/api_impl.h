@@ -56,12 +56,18 @@
     X(viscosity_wilke, (size_t n_species, const double *M, const double *mu, const double *x, double *out_mu), (n_species, M, mu, x, out_mu)) \
     X(db_viscosity_gas, (const mcd_db *db, size_t i, double T, double *out_mu, double *out_rel_err, unsigned *out_warn), (db, i, T, out_mu, out_rel_err, out_warn)) \
     X(mixture_viscosities, (const mcd_mixture *mix, double T, double *out_mu, unsigned *out_warn), (mix, T, out_mu, out_warn)) \
+    X(lj_collision_integrals, (double T_star, double *out_omega, double *out_ratios), (T_star, out_omega, out_ratios)) \
+    X(thermal_factor_kinetic, (double M1, double M2, double x1, double A, double B, double C, double R1, double R2, double *out_alpha), (M1, M2, x1, A, B, C, R1, R2, out_alpha)) \
+    X(thermal_factor_ce, (double T, double M1, double M2, double sig1, double sig2, double eps1, double eps2, double x1, double *out_alpha, unsigned *out_warn), (T, M1, M2, sig1, sig2, eps1, eps2, x1, out_alpha, out_warn)) \
+    X(db_thermal_factor, (const mcd_db *db, size_t a, size_t b, double T, double x_a, double *out_alpha, double *out_rel_err, unsigned *out_warn), (db, a, b, T, x_a, out_alpha, out_rel_err, out_warn)) \
+    X(mixture_thermal_ratios, (const mcd_mixture *mix, double T, const double *x, double *out_kT, double *out_theta, double *out_rel_err, unsigned *out_warn), (mix, T, x, out_kT, out_theta, out_rel_err, out_warn)) \
     X(workspace_new, (size_t n_species, mcd_workspace **out_ws), (n_species, out_ws)) \
     X(workspace_new_with, (size_t n_species, const mcd_allocator *allocator, mcd_workspace **out_ws), (n_species, allocator, out_ws)) \
     X(flux_compute, (mcd_workspace *ws, mcd_model model, const mcd_state *state, mcd_basis flux_basis, double *out_flux), (ws, model, state, flux_basis, out_flux)) \
     X(flux_jacobian_comp, (mcd_workspace *ws, const mcd_state *state, double *out_dJ), (ws, state, out_dJ)) \
     X(flux_jacobian, (mcd_workspace *ws, mcd_model model, const mcd_state *state, mcd_basis flux_basis, double *out_dflux), (ws, model, state, flux_basis, out_dflux)) \
     X(flux_jacobian_tp, (mcd_workspace *ws, mcd_model model, const mcd_state *state, mcd_basis flux_basis, double T, double P, const double *dDij_dT, const double *dDij_dP, double *out_dT, double *out_dP), (ws, model, state, flux_basis, T, P, dDij_dT, dDij_dP, out_dT, out_dP)) \
+    X(dufour_heat_flux, (size_t n_species, size_t n_dim, const double *x, const double *M, const double *theta, double T, mcd_basis flux_basis, const double *flux, double *out_q), (n_species, n_dim, x, M, theta, T, flux_basis, flux, out_q)) \
     X(thermal_ratios, (mcd_workspace *ws, const mcd_state *state, const double *DT, double *out_kT), (ws, state, DT, out_kT)) \
     X(fick_matrix, (mcd_workspace *ws, const mcd_state *state, mcd_basis basis, size_t dependent, double *out_D, size_t *out_dependent), (ws, state, basis, dependent, out_D, out_dependent)) \
     X(fick_fluxes, (size_t n_species, size_t n_dim, const double *D, size_t dependent, double c_or_rho, const double *grad, double *out_flux), (n_species, n_dim, D, dependent, c_or_rho, grad, out_flux)) \

@@ -55,6 +55,12 @@ mcd_status mcdi_pair_coef(const mcdi_spec *a, const mcdi_spec *b, mcd_method m,
 mcd_status mcdi_lj_params(const mcdi_spec *s, mcd_method m, double *sig,
                           double *eps, int *estimated);
 
+/* Warning bits that depend only on the pair and the state (not on a
+ * method's own range): HIGH_PRESSURE (P = 0: none), POLAR, QUANTUM,
+ * ASSOCIATING. */
+unsigned mcdi_pair_state_warnings(const mcdi_spec *a, const mcdi_spec *b,
+                                  double T, double P);
+
 /* Pair coefficients from raw parameters (inputs assumed validated). */
 double mcdi_fsg_coef(double MA, double MB, double VA, double VB);
 double mcdi_ce_coef(double MA, double MB, double sigA, double sigB);

@@ -224,10 +224,8 @@ mcd_status mcdi_pair_coef(const mcdi_spec *a, const mcdi_spec *b, mcd_method m,
     return MCD_OK;
 }
 
-/* Warning bits that depend only on the pair and the state (not on the
- * method's own range). */
-static unsigned pair_state_warnings(const mcdi_spec *a, const mcdi_spec *b,
-                                    double T, double P)
+unsigned mcdi_pair_state_warnings(const mcdi_spec *a, const mcdi_spec *b,
+                                  double T, double P)
 {
     unsigned w = 0;
     if (P > MCDI_HIGH_P)
@@ -262,7 +260,7 @@ mcd_status mcdi_pair_gas(const mcdi_spec *a, const mcdi_spec *b, mcd_method m,
         return MCD_EDOM;
     if ((st = mcdi_pair_coef(a, b, m, &coef, &eps_ab, &est)) != MCD_OK)
         return st;
-    w = pair_state_warnings(a, b, T, P);
+    w = mcdi_pair_state_warnings(a, b, T, P);
     if (est)
         w |= MCD_WARN_ESTIMATED_PARAM;
     if (m == MCD_METHOD_FSG) {

@@ -961,6 +961,39 @@ class Porous(unittest.TestCase):
         self.assertAlmostEqual(mcdiff.viscosity_omega22(1.0), 1.593,
                                delta=6e-3 * 1.593)
 
+    def test_thermal_diffusion_from_kinetic_theory(self):
+        # Omega(1,1)*(1) = 1.440: Bird, Stewart and Lightfoot (2002),
+        # Table E.2; rigid-sphere isotopic limit 105/118 (from memory);
+        # heavier species (argon) to the cold side (common practice)
+        ci = mcdiff.lj_collision_integrals(1.0)
+        self.assertAlmostEqual(ci.omega11, 1.440, delta=2e-3 * 1.440)
+        self.assertEqual(ci.C, ci.omega12 / ci.omega11)
+        e = 1e-7
+        a = mcdiff.thermal_factor_kinetic(1 + e, 1 - e, 0.4, 1, 1, 1, 1, 1)
+        self.assertAlmostEqual(a / e, 105 / 118, delta=1e-6)
+        self.assertEqual(mcdiff.thermal_factor_kinetic(0.04, 0.004, 0.5, 1.1,
+                                                       1.2, 5 / 6, 1, 1),
+                         0.0)
+        db = mcdiff.Database.builtin()
+        est = mcdiff.thermal_factor(db, "argon", "helium", 300.0, 0.5)
+        self.assertGreater(est.alpha, 0.0)
+        self.assertEqual(est.rel_err, mcdiff.THERMAL_CE_TYPICAL_ERROR)
+        raw = mcdiff.thermal_factor_ce(300.0, 39.95e-3, 4.0026e-3, 3.542e-10,
+                                       2.551e-10, 93.3, 10.22, 0.5)
+        self.assertAlmostEqual(raw.alpha, est.alpha, delta=1e-14)
+        mix = db.mixture(["argon", "helium", "nitrogen"])
+        r = mcdiff.mixture_thermal_ratios(mix, 400.0, [0.5, 0.5, 0.0])
+        k, th = flat(r.kT), flat(r.theta)
+        self.assertAlmostEqual(sum(k), 0.0, delta=1e-16)
+        self.assertEqual(k[2], 0.0)
+        self.assertAlmostEqual(k[0], 0.5 * th[0], delta=1e-16)
+        q = mcdiff.dufour_heat_flux([0.5, 0.5], [0.2, -0.2], 300.0,
+                                    [[1.0], [-1.0]])
+        self.assertAlmostEqual(flat(q)[0], 0.4 * 8.31446261815324 * 300,
+                               delta=1e-9)
+        with self.assertRaises(mcdiff.DomainError):
+            mcdiff.lj_collision_integrals(0.1)
+
     def test_dgm_graham_closed_end_and_inverse(self):
         M = [0.004, 0.040]
         D = [[0, 7e-5], [7e-5, 0]]

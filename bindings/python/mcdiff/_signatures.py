@@ -177,6 +177,18 @@ SIGNATURES = {
     # (mix, T, out_mu, out_warn)
     "mcd_mixture_viscosities": (_ST, [_H, _D, _PD, _PU]),
 
+    # --- Thermal diffusion factors from kinetic theory ---
+    # (T_star, out_omega, out_ratios)
+    "mcd_lj_collision_integrals": (_ST, [_D, _PD, _PD]),
+    # (M1, M2, x1, A, B, C, R1, R2, out_alpha)
+    "mcd_thermal_factor_kinetic": (_ST, [_D, _D, _D, _D, _D, _D, _D, _D, _PD]),
+    # (T, M1, M2, sig1, sig2, eps1, eps2, x1, out_alpha, out_warn)
+    "mcd_thermal_factor_ce": (_ST, [_D, _D, _D, _D, _D, _D, _D, _D, _PD, _PU]),
+    # (db, a, b, T, x_a, out_alpha, out_rel_err, out_warn)
+    "mcd_db_thermal_factor": (_ST, [_H, _SZ, _SZ, _D, _D, _PD, _PD, _PU]),
+    # (mix, T, x, out_kT, out_theta, out_rel_err, out_warn)
+    "mcd_mixture_thermal_ratios": (_ST, [_H, _D, _PD, _PD, _PD, _PD, _PU]),
+
     # --- Workspaces ---
     # (n_species, out_ws)
     "mcd_workspace_new": (_ST, [_SZ, _PH]),
@@ -197,6 +209,8 @@ SIGNATURES = {
     # (ws, model, state, flux_basis, T, P, dDij_dT, dDij_dP, out_dT, out_dP)
     "mcd_flux_jacobian_tp": (_ST, [_H, _E, _H, _E, _D, _D, _PD, _PD, _PD,
                                    _PD]),
+    # (n_species, n_dim, x, M, theta, T, flux_basis, flux, out_q)
+    "mcd_dufour_heat_flux": (_ST, [_SZ, _SZ, _PD, _PD, _PD, _D, _E, _PD, _PD]),
     # (ws, state, DT, out_kT)
     "mcd_thermal_ratios": (_ST, [_H, _H, _PD, _PD]),
     # (ws, state, basis, dependent, out_D, out_dependent)

@@ -55,6 +55,11 @@ __all__ = [
     # viscosity
     "viscosity_omega22", "viscosity_chapman_enskog", "viscosity_wilke",
     "viscosity_gas", "mixture_viscosities",
+    # thermal diffusion from kinetic theory
+    "lj_collision_integrals", "thermal_factor_kinetic", "thermal_factor_ce",
+    "thermal_factor", "mixture_thermal_ratios", "dufour_heat_flux",
+    "ThermalEstimate", "ThermalRatios", "CollisionIntegrals",
+    "THERMAL_CE_TYPICAL_ERROR",
     # porous media
     "pore_permeability", "pore_effective", "knudsen_diffusivity", "bosanquet",
     "dgm_fluxes", "dgm_closed", "dgm_gradients", "dgm_fluxes_batch",
@@ -1186,6 +1191,113 @@ def mixture_viscosities(mix, T):
     o = _arrays.Output((n,))
     _check(lib.mcd_mixture_viscosities(mix._p(), _sc(T, "T"), o.ptr, None),
            "mcd_mixture_viscosities")
+    return o.result()
+
+
+# ---------------------------------------------------------------------------
+# Thermal diffusion from kinetic theory
+# ---------------------------------------------------------------------------
+# Thermal diffusion estimates are far less accurate than diffusivities
+# (MCD_THERMAL_CE_TYPICAL_ERROR, 20 % at best for non-polar pairs).
+
+THERMAL_CE_TYPICAL_ERROR = 0.2  # MCD_THERMAL_CE_TYPICAL_ERROR (mcdiff.h)
+
+CollisionIntegrals = collections.namedtuple(
+    "CollisionIntegrals", "omega11 omega12 omega13 omega22 A B C")
+CollisionIntegrals.__doc__ = """Lennard-Jones reduced collision integrals
+Omega(1,1)*, Omega(1,2)*, Omega(1,3)*, Omega(2,2)* and the ratios A*, B*,
+C* at one reduced temperature."""
+ThermalEstimate = collections.namedtuple("ThermalEstimate",
+                                         "alpha rel_err warnings")
+ThermalEstimate.__doc__ = """A binary thermal diffusion factor alpha_T [-]
+(> 0 when the first species goes to the cold side), the method's typical
+relative error [-] and its Warning flags."""
+ThermalRatios = collections.namedtuple("ThermalRatios",
+                                       "kT theta rel_err warnings")
+ThermalRatios.__doc__ = """Thermal diffusion ratios k_T,i [-] of a mixture
+(for flux_compute's kT), theta_i = k_T,i / x_i (for dufour_heat_flux), the
+typical relative error and the OR of the pairs' Warning flags."""
+
+
+def lj_collision_integrals(T_star):
+    """Lennard-Jones collision integrals and A*, B*, C* at T* in 0.3..100
+    (mcd_lj_collision_integrals): CollisionIntegrals."""
+    o, r = (ctypes.c_double * 4)(), (ctypes.c_double * 3)()
+    _check(lib.mcd_lj_collision_integrals(_sc(T_star, "T_star"), o, r),
+           "mcd_lj_collision_integrals")
+    return CollisionIntegrals(*(list(o) + list(r)))
+
+
+def thermal_factor_kinetic(M1, M2, x1, A, B, C, R1, R2):
+    """Binary thermal diffusion factor alpha_T [-] in the first
+    Chapman-Enskog approximation from given collision quantities
+    (mcd_thermal_factor_kinetic)."""
+    return _raw("mcd_thermal_factor_kinetic", M1, M2, x1, A, B, C, R1, R2)
+
+
+def thermal_factor_ce(T, M1, M2, sig1, sig2, eps1, eps2, x1):
+    """Binary thermal diffusion factor alpha_T [-] of two Lennard-Jones
+    gases (mcd_thermal_factor_ce): ThermalEstimate (rel_err is
+    MCD_THERMAL_CE_TYPICAL_ERROR)."""
+    out, warn = ctypes.c_double(), ctypes.c_uint()
+    vals = [_sc(v, "argument %d" % k)
+            for k, v in enumerate((T, M1, M2, sig1, sig2, eps1, eps2, x1))]
+    _check(lib.mcd_thermal_factor_ce(*vals, ctypes.byref(out),
+                                     ctypes.byref(warn)),
+           "mcd_thermal_factor_ce")
+    return ThermalEstimate(out.value, THERMAL_CE_TYPICAL_ERROR,
+                           Warning(warn.value))
+
+
+def thermal_factor(db, a, b, T, x_a):
+    """Thermal diffusion factor of species a and b of a Database at T [K]
+    and mole fraction x_a of a (mcd_db_thermal_factor): ThermalEstimate."""
+    out, rel, warn = ctypes.c_double(), ctypes.c_double(), ctypes.c_uint()
+    st = lib.mcd_db_thermal_factor(db._p(), db.index(a), db.index(b),
+                                   _sc(T, "T"), _sc(x_a, "x_a"),
+                                   ctypes.byref(out), ctypes.byref(rel),
+                                   ctypes.byref(warn))
+    _check(st, "mcd_db_thermal_factor")
+    return ThermalEstimate(out.value, rel.value, Warning(warn.value))
+
+
+def mixture_thermal_ratios(mix, T, x):
+    """Pairwise thermal diffusion ratios of a Mixture at T [K] and mole
+    fractions x (mcd_mixture_thermal_ratios): ThermalRatios."""
+    n = len(mix)
+    xx = _arrays.vector(x, n, "x")
+    k, th = _arrays.Output((n,)), _arrays.Output((n,))
+    rel, warn = ctypes.c_double(), ctypes.c_uint()
+    _check(lib.mcd_mixture_thermal_ratios(mix._p(), _sc(T, "T"), xx.ptr,
+                                          k.ptr, th.ptr, ctypes.byref(rel),
+                                          ctypes.byref(warn)),
+           "mcd_mixture_thermal_ratios")
+    return ThermalRatios(k.result(), th.result(), rel.value,
+                         Warning(warn.value))
+
+
+def dufour_heat_flux(x, theta, T, flux, *, M=None, flux_basis="mole"):
+    """Dufour heat flux q_D [W/m^2] (length n_dim) carried by diffusion
+    fluxes flux (n x n_dim; J_i [mol/(m^2 s)] or, with flux_basis="mass"
+    and M, j_i [kg/(m^2 s)]) through theta_i = k_T,i / x_i
+    (mcd_dufour_heat_flux): q_D = R T sum_i theta_i J_i."""
+    fb = coerce(Basis, flux_basis, "flux_basis")
+    xx = _arrays.vector(x, None, "x")
+    n = xx.shape[0]
+    th = _arrays.vector(theta, n, "theta")
+    f = _arrays.as_doubles(flux, "flux")
+    size = 1
+    for d in f.shape:
+        size *= d
+    nd = size // n if n else 0
+    if nd < 1 or size != n * nd:
+        raise ValueError("flux: expected n x n_dim values")
+    fm = _arrays.matrix(flux, n, nd, "flux")
+    m = _arrays.vector(M, n, "M") if M is not None else None
+    o = _arrays.Output((nd,))
+    _check(lib.mcd_dufour_heat_flux(n, nd, xx.ptr, m.ptr if m else None,
+                                    th.ptr, _sc(T, "T"), fb, fm.ptr, o.ptr),
+           "mcd_dufour_heat_flux")
     return o.result()
 
 
