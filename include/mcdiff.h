@@ -42,7 +42,7 @@ extern "C" {
 /** Major version of this header; a change breaks the API and ABI. */
 #define MCD_VERSION_MAJOR 0
 /** Minor version of this header (adds symbols). */
-#define MCD_VERSION_MINOR 3
+#define MCD_VERSION_MINOR 4
 /** Patch version of this header (changes no symbols). */
 #define MCD_VERSION_PATCH 0
 /** Version of this header as MAJOR*10000 + MINOR*100 + PATCH; compare
