@@ -13,8 +13,9 @@ static void help(FILE *f)
         "Binary diffusivity of species A and B (names or formulas from\n"
         "'mcdiff species') estimated by every method that applies, or by the\n"
         "one named, each with its typical error and warnings. The first\n"
-        "method that applies (in the order fsg, chapman-enskog, wilke-lee)\n"
-        "is the recommended one.\n"
+        "method that applies (in the order fsg, chapman-enskog, wilke-lee,\n"
+        "brokaw) is the recommended one; when a species is polar (dipole\n"
+        "above 1 debye) brokaw is, if it applies.\n"
         "\n"
         "options:\n"
         "  -T, --temperature TEMP  temperature; K or C suffix (also F), bare = "
@@ -24,7 +25,8 @@ static void help(FILE *f)
         "suffix,\n"
         "                          bare = Pa (101325, 1atm, 1.01325bar);\n"
         "                          not used for liquids\n"
-        "  -m, --method NAME       fsg, chapman-enskog, wilke-lee or\n"
+        "  -m, --method NAME       fsg, chapman-enskog, wilke-lee, brokaw "
+        "or\n"
         "                          wilke-chang (liquid: A dilute in solvent "
         "B,\n"
         "                          needs --viscosity)\n"
@@ -78,7 +80,8 @@ int cli_cmd_binary(int argc, char **argv)
                                    {"species-file", 0, 1, O_FILE},
                                    {NULL, 0, 0, 0}};
     static const mcd_method gas_methods[] = {
-        MCD_METHOD_FSG, MCD_METHOD_CHAPMAN_ENSKOG, MCD_METHOD_WILKE_LEE};
+        MCD_METHOD_FSG, MCD_METHOD_CHAPMAN_ENSKOG, MCD_METHOD_WILKE_LEE,
+        MCD_METHOD_BROKAW};
     const char *cmd = "binary";
     cli_args a;
     int id, json = 0, csv = 0, rc, have_method = 0, best = -1, liquid;
@@ -87,7 +90,7 @@ int cli_cmd_binary(int argc, char **argv)
     double T = NAN, P = NAN, mu = NAN;
     mcd_method method = MCD_METHOD_FSG;
     mcd_db *db = NULL;
-    result res[4];
+    result res[5];
     char why[200], note[400] = "";
 
     cli_args_init(&a, cmd, argc, argv, opts);
@@ -118,7 +121,7 @@ int cli_cmd_binary(int argc, char **argv)
             if (mcd_method_from_name(a.value, &method) != MCD_OK)
                 return cli_usage_error(cmd, a.spelled,
                                        "unknown method '%s' (fsg, "
-                                       "chapman-enskog, wilke-lee, "
+                                       "chapman-enskog, wilke-lee, brokaw, "
                                        "wilke-chang)",
                                        a.value);
             if (method == MCD_METHOD_USER)
@@ -193,6 +196,16 @@ int cli_cmd_binary(int argc, char **argv)
         if (r->st == MCD_OK && best < 0)
             best = (int)k;
     }
+    /* A polar pair (another method's estimate carries MCD_WARN_POLAR):
+     * Brokaw's correction, when it applies, is the recommended one. */
+    for (k = 0; k < nres && nres > 1; k++)
+        if (res[k].st == MCD_OK && (res[k].warn & MCD_WARN_POLAR)) {
+            size_t b;
+            for (b = 0; b < nres; b++)
+                if (res[b].m == MCD_METHOD_BROKAW && res[b].st == MCD_OK)
+                    best = (int)b;
+            break;
+        }
     if (best < 0) {
         rc = cli_fail(cmd, nres == 1 ? "the estimate" : "every estimate",
                       res[0].st, mcd_method_name(res[0].m));

@@ -54,6 +54,7 @@ class Method(enum.IntEnum):
     WILKE_LEE = 3
     WILKE_CHANG = 4
     USER = 5
+    BROKAW = 8
 
 
 class GasMethod(enum.IntEnum):
@@ -62,6 +63,7 @@ class GasMethod(enum.IntEnum):
     FSG = 1
     CHAPMAN_ENSKOG = 2
     WILKE_LEE = 3
+    BROKAW = 8
 
 
 class Basis(enum.IntEnum):
