@@ -391,6 +391,16 @@ static double brokaw_cgs(double T, double P_bar, double MA_g, double MB_g,
            (P_bar * sqrt(2.0 / (1.0 / MA_g + 1.0 / MB_g)) * sA * sB * om);
 }
 
+/* A random gas state and pair of molar masses: T [K], P [Pa], MA, MB
+ * [kg/mol]. */
+static void brokaw_state(double st[4])
+{
+    st[0] = sup_exp_range(&rng, 200, 1500);
+    st[1] = sup_exp_range(&rng, 1e4, 1e6);
+    st[2] = sup_exp_range(&rng, 2e-3, 0.3);
+    st[3] = sup_exp_range(&rng, 2e-3, 0.3);
+}
+
 START_TEST(binary_brokaw_matches_published_form)
 {
     /* Random states and species, dipoles 0..3 debye; both polar, one polar
@@ -400,10 +410,9 @@ START_TEST(binary_brokaw_matches_published_form)
     const double debye = 3.33564e-30;
     sup_seed(&rng, 0xB20CA469ull);
     for (int k = 0; k < 300; k++) {
-        double T = sup_exp_range(&rng, 200, 1500),
-               P = sup_exp_range(&rng, 1e4, 1e6);
-        double MA = sup_exp_range(&rng, 2e-3, 0.3),
-               MB = sup_exp_range(&rng, 2e-3, 0.3);
+        double st[4], T, P, MA, MB;
+        brokaw_state(st);
+        T = st[0], P = st[1], MA = st[2], MB = st[3];
         double muA = k % 3 == 2 ? 0.0 : sup_range(&rng, 0.0, 3.0),
                muB = k % 3 == 0 ? sup_range(&rng, 0.0, 3.0) : 0.0;
         double VbA = sup_range(&rng, 15, 250), VbB = sup_range(&rng, 15, 250);
@@ -429,10 +438,9 @@ START_TEST(binary_brokaw_symmetric_and_nonpolar_limit_is_chapman_enskog)
      * order of a few roundings, 1e-14 relative. */
     sup_seed(&rng, 0xB20CA470ull);
     for (int k = 0; k < 200; k++) {
-        double T = sup_exp_range(&rng, 200, 1500),
-               P = sup_exp_range(&rng, 1e4, 1e6);
-        double MA = sup_exp_range(&rng, 2e-3, 0.3),
-               MB = sup_exp_range(&rng, 2e-3, 0.3);
+        double st[4], T, P, MA, MB;
+        brokaw_state(st);
+        T = st[0], P = st[1], MA = st[2], MB = st[3];
         double dA = sup_range(&rng, 0, 1e-29), dB = sup_range(&rng, 0, 1e-29);
         double VbA = sup_range(&rng, 15e-6, 250e-6),
                VbB = sup_range(&rng, 15e-6, 250e-6);
