@@ -1262,6 +1262,19 @@ class Csv(unittest.TestCase):
         self.assertEqual(rows2[0][h2.index("P_Pa")], "")  # liquid: no P
         self.assertEqual(rows2[0][h2.index("method")], "wilke-chang")
 
+    def test_binary_recommends_brokaw_for_polar_pairs(self):
+        # water (1.8 debye) + air: Brokaw's polar correction is recommended;
+        # N2 + O2 (nonpolar): the first method that applies, fsg
+        d = run_json("binary", "water", "air", "-T", "25C", "-P", "1atm")
+        self.assertEqual(d["method"], "brokaw")
+        self.assertIn("brokaw", [r["method"] for r in d["results"]])
+        d = run_json("binary", "N2", "O2", "-T", "25C", "-P", "1atm")
+        self.assertEqual(d["method"], "fsg")
+        d = run_json("binary", "ammonia", "H2", "-T", "293", "-P", "1atm",
+                     "--method", "brokaw")
+        self.assertEqual(d["method"], "brokaw")
+        self.assertEqual(len(d["results"]), 1)
+
     def test_fluxes_csv(self):
         header, rows, _ = run_csv("fluxes", *STATE3, "-g", "-20,0,20",
                                   "-g", "1,2,-3")
