@@ -484,6 +484,98 @@ MCD_API mcd_status mcd_db_binary_liquid(const mcd_db *db, size_t solute,
                                      double mu_solvent, double *out_D,
                                      double *out_rel_err, unsigned *out_warn);
 
+/** Widening factors of the typical error under warnings (a rule of thumb,
+ *  common practice, not a published law): the stated error is the
+ *  method's published average times the factor of every warning class
+ *  that applies, capped at 1 (100 %). Polar, associating, quantum gas and
+ *  high pressure double it each (polar and hydrogen-bonding pairs show
+ *  errors of 20-27 % where the published average of a gas method is
+ *  5-8 %); temperature out of range, an estimated parameter and a value
+ *  scaled far from its reference state multiply it by 1.5 each. */
+#define MCD_WIDEN_MAJOR 2.0
+/** Factor of MCD_WARN_TEMPERATURE, _ESTIMATED_PARAM and _SCALED. */
+#define MCD_WIDEN_MINOR 1.5
+/** Cap of the widened error [-] (beyond it an estimate gives an order of
+ *  magnitude only). */
+#define MCD_WIDEN_CAP 1.0
+
+/** Typical relative error of an estimate by method m that carries the
+ *  MCD_WARN_* bits warn: mcd_method_typical_error(m) times
+ *  MCD_WIDEN_MAJOR for each of HIGH_PRESSURE, POLAR, QUANTUM,
+ *  ASSOCIATING and MCD_WIDEN_MINOR for each of TEMPERATURE,
+ *  ESTIMATED_PARAM, SCALED that is set, at most MCD_WIDEN_CAP. NaN (status
+ *  OK) when the method has no published error (MCD_METHOD_USER).
+ *  @param m       a method of mcd_method
+ *  @param warn    MCD_WARN_* bits as returned with the estimate
+ *  @param out_rel_err  widened relative error [-]. Since 0.4.
+ *  Fails: EINVAL (NULL, unknown method, unknown warning bit)
+ *  | Allocates: no */
+MCD_API mcd_status mcd_typical_error_widened(mcd_method m, unsigned warn,
+                                             double *out_rel_err);
+
+/** @name Slots of mcd_db_binary_explain's output
+ *  Indices into the array of MCD_EXPLAIN_COUNT doubles; a slot the method
+ *  does not use is NaN. Slots from MCD_EXPLAIN_RESERVED on are NaN and
+ *  reserved for later methods. Since 0.4.
+ *  @{ */
+#define MCD_EXPLAIN_D 0         /**< the estimate D [m^2/s] */
+#define MCD_EXPLAIN_T 1         /**< temperature [K] */
+#define MCD_EXPLAIN_P 2         /**< pressure [Pa] (gas methods) */
+#define MCD_EXPLAIN_M_A 3       /**< molar mass of A (solute) [kg/mol] */
+#define MCD_EXPLAIN_M_B 4       /**< molar mass of B (solvent) [kg/mol] */
+#define MCD_EXPLAIN_M_AB 5      /**< 2 / (1/M_A + 1/M_B) [kg/mol] (gas) */
+#define MCD_EXPLAIN_V_A 6       /**< diffusion volume of A [-] (FSG) */
+#define MCD_EXPLAIN_V_B 7       /**< diffusion volume of B [-] (FSG) */
+#define MCD_EXPLAIN_V_ROOTS 8   /**< V_A^(1/3) + V_B^(1/3) [-] (FSG) */
+#define MCD_EXPLAIN_SIGMA_A 9   /**< Lennard-Jones sigma of A [m] */
+#define MCD_EXPLAIN_SIGMA_B 10  /**< Lennard-Jones sigma of B [m] */
+#define MCD_EXPLAIN_SIGMA_AB 11 /**< (sigma_A + sigma_B) / 2 [m]; Brokaw:
+                                     (sigma_A sigma_B)^(1/2), sigma and
+                                     eps/k from Vb, Tb and the dipole */
+#define MCD_EXPLAIN_EPS_A 12    /**< epsilon/k of A [K] */
+#define MCD_EXPLAIN_EPS_B 13    /**< epsilon/k of B [K] */
+#define MCD_EXPLAIN_EPS_AB 14   /**< sqrt(eps_A eps_B) [K] */
+#define MCD_EXPLAIN_T_STAR 15   /**< T / eps_AB [-] */
+#define MCD_EXPLAIN_OMEGA_D 16  /**< collision integral Omega_D(T*) [-];
+                                     Brokaw: + 0.19 delta_AB^2 / T* */
+#define MCD_EXPLAIN_WL_FACTOR 17 /**< Wilke-Lee 3.03 - 0.98 / M_AB^(1/2),
+                                      M_AB in g/mol [-] */
+#define MCD_EXPLAIN_PHI 18      /**< Wilke-Chang association factor of the
+                                     solvent [-] */
+#define MCD_EXPLAIN_MU_B 19     /**< solvent viscosity [Pa s] */
+#define MCD_EXPLAIN_VB_A 20     /**< solute molar volume at its normal
+                                     boiling point [m^3/mol] */
+#define MCD_EXPLAIN_REL_ERR 21  /**< method's published typical error [-] */
+#define MCD_EXPLAIN_REL_ERR_WIDENED 22 /**< mcd_typical_error_widened [-] */
+#define MCD_EXPLAIN_WARN 23     /**< MCD_WARN_* bits (an integer) */
+#define MCD_EXPLAIN_ESTIMATED 24 /**< 1 when sigma or eps/k was estimated
+                                      from Vb or Tb, else 0 (LJ methods) */
+#define MCD_EXPLAIN_RESERVED 25 /**< first reserved slot */
+#define MCD_EXPLAIN_COUNT 32    /**< length of the output array */
+/** @} */
+
+/** The intermediates behind a binary estimate, so that it can be checked
+ *  by hand: the same estimate as mcd_db_binary_gas (a, b, gas methods) or
+ *  mcd_db_binary_liquid (a the solute, b the solvent, MCD_METHOD_WILKE_CHANG)
+ *  with the quantities its formula combines, each in its MCD_EXPLAIN_*
+ *  slot (SI units as listed there; unused slots NaN). D in the D slot is
+ *  bit for bit the value of the estimating call.
+ *  @param db          species database
+ *  @param a,b         species indices (0-based)
+ *  @param method      MCD_METHOD_FSG, _CHAPMAN_ENSKOG, _WILKE_LEE or
+ *                     _WILKE_CHANG
+ *  @param T           temperature [K]
+ *  @param P           pressure [Pa] (gas methods; ignored by Wilke-Chang)
+ *  @param mu_solvent  viscosity of b [Pa s] (Wilke-Chang; ignored by gas
+ *                     methods)
+ *  @param out_values  MCD_EXPLAIN_COUNT doubles, written only on success.
+ *  Since 0.4.
+ *  Fails: EINVAL (NULL, method), EDOM, ENODATA, ENOTFOUND | Allocates: no */
+MCD_API mcd_status mcd_db_binary_explain(const mcd_db *db, size_t a, size_t b,
+                                         mcd_method method, double T,
+                                         double P, double mu_solvent,
+                                         double *out_values);
+
 /* ------------------------------------------------------------------ */
 /* Mixtures: N species and their binary diffusivities                  */
 /* ------------------------------------------------------------------ */
@@ -1579,6 +1671,23 @@ MCD_API mcd_status mcd_binary_tyn_calus(double T, double mu_solvent,
 MCD_API mcd_status mcd_binary_hayduk_minhas(double T, double mu_water,
                                             double Vb_solute, double *out_D);
 
+/** Temperature range [K] of an infinite-dilution correlation for liquids
+ *  (MCD_METHOD_WILKE_CHANG, _TYN_CALUS, _HAYDUK_MINHAS), and the warning
+ *  bit for a temperature T: MCD_WARN_TEMPERATURE when T lies outside it
+ *  (the estimate is still made by the raw call; flag or refuse it). The
+ *  range is the liquid range of water at 1 atm, 273.15 K to 373.15 K, for
+ *  all three: their data sets are near-ambient liquids and none states a
+ *  sharp limit (the database route of Wilke-Chang flags the same range).
+ *  Any output may be NULL. Since 0.4.
+ *  @param T           temperature [K], > 0.
+ *  @param out_T_min, out_T_max  the range [K].
+ *  @param out_warn    MCD_WARN_TEMPERATURE or 0.
+ *  Fails: EINVAL (another method, NaN), EDOM (T <= 0) | Allocates: no */
+MCD_API mcd_status mcd_method_temperature_range(mcd_method method, double T,
+                                                double *out_T_min,
+                                                double *out_T_max,
+                                                unsigned *out_warn);
+
 /* ------------------------------------------------------------------ */
 /* Porous media: Knudsen diffusion and the Dusty Gas Model             */
 /* ------------------------------------------------------------------ */
@@ -1828,6 +1937,35 @@ MCD_API mcd_status mcd_slab_solve(mcd_workspace *ws, const mcd_pore *pore,
                                   const mcd_slab *slab, mcd_slab_kind kind,
                                   size_t species, double value, double *out_N,
                                   double *out_PL, size_t *out_iterations);
+
+/** Steady fluxes through a porous slab with given flux ratios, as a
+ *  reaction's stoichiometry fixes them at a catalyst surface (A -> 2B:
+ *  ratios (-1, 2)/(-1 + 2) = (-1, 2)): N_i = ratios_i N_t for every
+ *  species, N_t the one unknown. The far-end fraction of species
+ *  `species` is matched (xL must still be a valid composition; its other
+ *  entries are not imposed); the other far-end fractions and PL (slab->PL
+ *  is ignored) are results, as with the open film's
+ *  MCD_FILM_BOOT_RATIOS. The same converged shooting as mcd_slab_solve
+ *  (Newton on N_t). Since 0.4.
+ *  @param species  the species whose fraction at z = L is matched.
+ *  @param ratios   z_i [-], N, finite, sum 1 (within MCD_SUM_TOL).
+ *  @param out_N    total molar fluxes [mol/(m^2 s)], N, exactly ratios_i
+ *                  N_t, positive towards z = L.
+ *  @param out_PL   the resulting pressure at z = L [Pa] (may be NULL).
+ *  @param out_iterations  Newton iterations (may be NULL).
+ *  Other parameters as mcd_slab_solve; mcd_slab_profile with out_N gives
+ *  the profile and the far-end state.
+ *  Fails: EINVAL (NULL, NaN, species out of range), EBADLEN, EDOM (out of
+ *  range, ratios not summing to 1, species absent at z = 0 with ratio 0,
+ *  the pressure going negative), ESING, ENOCONV (no N_t reaches xL of the
+ *  species, e.g. its ratio lies between its two end fractions in a
+ *  binary) | Allocates: no | Threads: one ws per thread */
+MCD_API mcd_status mcd_slab_solve_ratios(mcd_workspace *ws,
+                                         const mcd_pore *pore,
+                                         const mcd_slab *slab, size_t species,
+                                         const double *ratios, double *out_N,
+                                         double *out_PL,
+                                         size_t *out_iterations);
 
 /** Profile across a slab for given fluxes N (e.g. from mcd_slab_solve):
  *  the ODE integrated from z = 0 (x0, P0) by fourth-order Runge-Kutta

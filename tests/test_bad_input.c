@@ -148,6 +148,7 @@ typedef struct ctx {
      * diffusivity */
     mcd_pore pore;
     double mug, mus[NA], gP[3], Nt[3], Dk;
+    double zr[NA]; /* slab flux ratios, A + B -> C: (1, 1, -1) */
     int use_gp;
     const char *formula, *name, *text, *path, *mname, *mol, *find;
     const char *names[NA];
@@ -424,6 +425,18 @@ static int call_mcd_db_binary_liquid(ctx *c)
                                 c->mu, OUT(o1, NB_O1), OUT(o2, NB_O2),
                                 OUT(ou, NB_OU));
 }
+static int call_mcd_typical_error_widened(ctx *c)
+{
+    return mcd_typical_error_widened((mcd_method)c->method, c->bit,
+                                     OUT(o1, NB_O1));
+}
+static int call_mcd_db_binary_explain(ctx *c)
+{
+    /* o1 holds NA * NA >= MCD_EXPLAIN_COUNT doubles */
+    return mcd_db_binary_explain(ARG(db, NB_DB), IDX(c->ga), IDX(c->gb),
+                                 (mcd_method)c->method, c->T, c->P, c->mu,
+                                 OUT(o1, NB_O1));
+}
 static int call_mcd_mixture_new(ctx *c)
 {
     int r;
@@ -529,6 +542,14 @@ static int call_mcd_binary_tyn_calus(ctx *c)
 {
     return mcd_binary_tyn_calus(c->T, c->mu, c->Vb, c->VA * 1e-6,
                                 OUT(o1, NB_O1));
+}
+static int call_mcd_method_temperature_range(ctx *c)
+{
+    /* method counts from the fixture's default (MCD_METHOD_FSG), so that
+     * the default is MCD_METHOD_WILKE_CHANG */
+    return mcd_method_temperature_range(
+        (mcd_method)(c->method - MCD_METHOD_FSG + MCD_METHOD_WILKE_CHANG), c->T,
+        OUT(o1, NB_O1), OUT(o2, NB_O2), OUT(ou, NB_OU));
 }
 static int call_mcd_binary_hayduk_minhas(ctx *c)
 {
@@ -917,6 +938,13 @@ static int call_mcd_slab_solve(ctx *c)
                           (mcd_slab_kind)(c->kind - MCD_BOOT_EQUIMOLAR),
                           c->species, c->value, OUT(o1, NB_O1), OUT(o2, NB_O2),
                           OUT(oz, NB_OZ));
+}
+static int call_mcd_slab_solve_ratios(ctx *c)
+{
+    mcd_slab sl;
+    return mcd_slab_solve_ratios(WS, PORE, slab_of(c, &sl), c->species,
+                                 ARG(zr, NB_VALS), OUT(o1, NB_O1),
+                                 OUT(o2, NB_O2), OUT(oz, NB_OZ));
 }
 static int call_mcd_slab_profile(ctx *c)
 {
@@ -1385,6 +1413,24 @@ static const bcase cases[] = {
     C(mcd_db_binary_liquid, "mu negative", EDOM_, NULL, MD(mu, -1e-3)),
     C(mcd_db_binary_liquid, "solute without Vb", MCD_ENODATA, NULL,
       MZ(sol, PROBE)),
+    B(mcd_typical_error_widened, MCD_OK),
+    C(mcd_typical_error_widened, "out NULL", EINVAL_, NULL, MN(NB_O1)),
+    C(mcd_typical_error_widened, "m 0", EINVAL_, "m", MI(method, 0)),
+    C(mcd_typical_error_widened, "bit 0x80", EINVAL_, "warn", MU(bit, 0x80u)),
+    B(mcd_db_binary_explain, MCD_OK),
+    C(mcd_db_binary_explain, "db NULL", EINVAL_, NULL, MN(NB_DB)),
+    C(mcd_db_binary_explain, "out NULL", EINVAL_, NULL, MN(NB_O1)),
+    C(mcd_db_binary_explain, "method USER", EINVAL_, "method",
+      MI(method, MCD_METHOD_USER)),
+    C(mcd_db_binary_explain, "method 99", EINVAL_, "method", MI(method, 99)),
+    C(mcd_db_binary_explain, "a out of range", MCD_ENOTFOUND, NULL,
+      MZ(ga, 100000)),
+    C(mcd_db_binary_explain, "T NaN", EINVAL_, NULL, MD(T, NAN)),
+    C(mcd_db_binary_explain, "P 0", EDOM_, NULL, MD(P, 0.0)),
+    C(mcd_db_binary_explain, "sigma missing", MCD_ENODATA, NULL, MZ(ga, PROBE),
+      MI(method, MCD_METHOD_CHAPMAN_ENSKOG)),
+    C(mcd_db_binary_explain, "Wilke-Chang mu 0", EDOM_, NULL,
+      MI(method, MCD_METHOD_WILKE_CHANG), MD(mu, 0.0)),
 
     /* ---- mixtures ---- */
     B(mcd_mixture_new, MCD_OK),
@@ -1968,6 +2014,11 @@ static const bcase cases[] = {
     C(mcd_binary_tyn_calus, "Vb 0", EDOM_, NULL, MD(Vb, 0.0)),
     C(mcd_binary_tyn_calus, "Vb solvent negative", EDOM_, NULL, MD(VA, -1.0)),
     C(mcd_binary_tyn_calus, "out NULL", EINVAL_, NULL, MN(NB_O1)),
+    B(mcd_method_temperature_range, MCD_OK),
+    C(mcd_method_temperature_range, "method fsg", EINVAL_, "method",
+      MI(method, 2 * MCD_METHOD_FSG - MCD_METHOD_WILKE_CHANG)),
+    C(mcd_method_temperature_range, "T NaN", EINVAL_, "T", MD(T, NAN)),
+    C(mcd_method_temperature_range, "T 0", EDOM_, "T", MD(T, 0.0)),
     B(mcd_binary_hayduk_minhas, MCD_OK),
     C(mcd_binary_hayduk_minhas, "T 0", EDOM_, NULL, MD(T, 0.0)),
     C(mcd_binary_hayduk_minhas, "mu inf", EINVAL_, NULL, MD(mu, INFINITY)),
@@ -2118,6 +2169,15 @@ static const bcase cases[] = {
       MI(kind, MCD_BOOT_EQUIMOLAR + MCD_SLAB_STAGNANT), MZ(species, 7)),
     C(mcd_slab_solve, "total NaN", EINVAL_, "value",
       MI(kind, MCD_BOOT_EQUIMOLAR + MCD_SLAB_TOTAL), MD(value, NAN)),
+    B(mcd_slab_solve_ratios, MCD_OK),
+    C(mcd_slab_solve_ratios, "slab NULL", EINVAL_, "slab", MN(NB_DGM)),
+    C(mcd_slab_solve_ratios, "ratios NULL", EINVAL_, "ratios", MN(NB_VALS)),
+    C(mcd_slab_solve_ratios, "out_N NULL", EINVAL_, "out_N", MN(NB_O1)),
+    C(mcd_slab_solve_ratios, "ratios NaN", EINVAL_, "ratios", MDA(zr, 1, NAN)),
+    C(mcd_slab_solve_ratios, "ratios sum 2", EDOM_, "ratios", MDA(zr, 0, 2.0)),
+    C(mcd_slab_solve_ratios, "species 7", EINVAL_, "species", MZ(species, 7)),
+    C(mcd_slab_solve_ratios, "xL NULL", EINVAL_, "xL", MN(NB_X2)),
+    C(mcd_slab_solve_ratios, "P0 0", EDOM_, "P0", MD(P, 0.0)),
     B(mcd_slab_profile, MCD_OK),
     C(mcd_slab_profile, "N NULL", EINVAL_, "N", MN(NB_NF)),
     C(mcd_slab_profile, "N NaN", EINVAL_, "N", MDA(Nt, 1, NAN)),
@@ -2299,6 +2359,9 @@ static void ctx_init(ctx *c)
         c->tt[1] = 10.0;
     }
     c->pore.porosity = 0.4;
+    c->zr[0] = 1.0;
+    c->zr[1] = 1.0;
+    c->zr[2] = -1.0;
     c->pore.tortuosity = 3.0;
     c->pore.d_pore = 1e-7;
     c->mug = 1.8e-5;

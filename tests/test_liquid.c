@@ -782,6 +782,49 @@ START_TEST(liquid_antoine_water_against_steam_table)
 }
 END_TEST
 
+START_TEST(liquid_correlation_temperature_ranges)
+{
+    /* Wilke-Chang, Tyn-Calus and Hayduk-Minhas: MCD_WARN_TEMPERATURE
+     * outside 273.15 K to 373.15 K (the range the header states), nothing
+     * inside or at the ends; other methods have no stored range; the
+     * Antoine constants' range is flagged by mcd_liquid_vle
+     * (liquid_antoine_water_against_steam_table). */
+    static const mcd_method m[3] = {
+        MCD_METHOD_WILKE_CHANG, MCD_METHOD_TYN_CALUS, MCD_METHOD_HAYDUK_MINHAS};
+    static const double T[6] = {200.0, 273.0, 273.15, 298.15, 373.15, 373.2};
+    static const unsigned want[6] = {
+        MCD_WARN_TEMPERATURE, MCD_WARN_TEMPERATURE, 0u, 0u, 0u,
+        MCD_WARN_TEMPERATURE};
+    for (int k = 0; k < 3; k++)
+        for (int t = 0; t < 6; t++) {
+            double lo = 0, hi = 0;
+            unsigned w = 0xAAu;
+            ck_assert_int_eq(
+                mcd_method_temperature_range(m[k], T[t], &lo, &hi, &w), MCD_OK);
+            ck_assert_uint_eq(w, want[t]);
+            ck_assert_double_eq(lo, 273.15);
+            ck_assert_double_eq(hi, 373.15);
+            /* NULL outputs are allowed */
+            ck_assert_int_eq(
+                mcd_method_temperature_range(m[k], T[t], NULL, NULL, NULL),
+                MCD_OK);
+        }
+    {
+        double lo = 7.0;
+        unsigned w = 7u;
+        ck_assert_int_eq(
+            mcd_method_temperature_range(MCD_METHOD_FSG, 300.0, &lo, NULL, &w),
+            MCD_EINVAL);
+        ck_assert(strstr(mcd_last_error(), "argument method") != NULL);
+        ck_assert_int_eq(mcd_method_temperature_range(MCD_METHOD_TYN_CALUS,
+                                                      -1.0, &lo, NULL, &w),
+                         MCD_EDOM);
+        ck_assert(strstr(mcd_last_error(), "argument T") != NULL);
+        ck_assert(lo == 7.0 && w == 7u);
+    }
+}
+END_TEST
+
 /*
  * Stefan tube: water evaporating into dry air at 298.15 K and 1 atm. With
  * one evaporating species the exact film is Stefan's law, N = (c Đ / L)
@@ -907,6 +950,7 @@ static Suite *liquid_suite(void)
     tcase_add_test(tc, liquid_fluxes_through_the_flux_core);
     tcase_add_test(tc, liquid_errors_and_warnings);
     tcase_add_test(tc, liquid_antoine_water_against_steam_table);
+    tcase_add_test(tc, liquid_correlation_temperature_ranges);
     tcase_add_test(tc, liquid_evaporation_single_species_is_stefan_law);
     tcase_add_test(tc, liquid_evaporation_mixture_matches_vle_and_film);
     suite_add_tcase(s, tc);

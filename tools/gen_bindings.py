@@ -856,6 +856,7 @@ FORTRAN_SCALAR = {
     "mcd_binary_scale": ["out_D"],
     "mcd_db_binary_gas": ["out_D"],
     "mcd_db_binary_liquid": ["out_D"],
+    "mcd_typical_error_widened": ["out_rel_err"],
     "mcd_workspace_new_with": ["allocator"],
     "mcd_flux_compute": ["state"],
     "mcd_fick_matrix": ["state"],
@@ -884,6 +885,7 @@ FORTRAN_SCALAR = {
     "mcd_dgm_gradients": ["pore", "dgm"],
     "mcd_dgm_fluxes_batch": ["pore", "cells"],
     "mcd_slab_solve": ["pore", "slab"],
+    "mcd_slab_solve_ratios": ["pore", "slab"],
     "mcd_slab_profile": ["pore", "slab"],
 }
 # FORTRAN_NULLABLE: pointer parameters that may be NULL (bound as
@@ -908,6 +910,8 @@ FORTRAN_NULLABLE = {
     "mcd_db_viscosity_gas": ["out_rel_err", "out_warn"],
     "mcd_mixture_viscosities": ["out_warn"],
     "mcd_slab_solve": ["out_PL", "out_iterations"],
+    "mcd_slab_solve_ratios": ["out_PL", "out_iterations"],
+    "mcd_method_temperature_range": ["out_T_min", "out_T_max", "out_warn"],
 }
 # FORTRAN_DUMMY_NAMES: dummy argument names that differ from the C names
 # (Fortran names are case-insensitive, so film_profile's n and N clash;

@@ -191,6 +191,22 @@ void cli_csv_head(cli_csv *c, const char *prefix, const char *name,
                   const char *unit);
 void cli_csv_end_row(cli_csv *c);
 
+/* ---- binary --explain (explain.c) ---- */
+/* The slots of mcd_db_binary_explain: as an "explain" JSON object (named
+ * slots that are not NaN, SI) and as hand-check text. */
+void cli_explain_json(cli_json *j, const double *v);
+void cli_explain_text(mcd_method m, const double *v, FILE *f);
+
+/* ---- typical errors under warnings (main.c) ---- */
+/* mcd_typical_error_widened, NaN when it fails or has no value. */
+double cli_widened_error(mcd_method m, unsigned warn);
+/* One line that says how stated errors were widened. */
+#define CLI_WIDEN_NOTE                                                         \
+    "typical errors are the method's published average widened by its "        \
+    "warnings: x2 for each polar, associating, quantum-gas or high-pressure "  \
+    "warning, x1.5 for each temperature, estimated-parameter or scaling "      \
+    "warning, at most 100 % (a rule of thumb, not a published law)"
+
 /* ---- aligned tables (table.c) ---- */
 #define CLI_TABLE_MAX_COLS 16
 typedef struct cli_table {
@@ -207,6 +223,18 @@ int cli_table_row(cli_table *t, const char *const *cells);
 /* Print with columns padded to their widest cell, two spaces apart. */
 void cli_table_print(const cli_table *t, FILE *f, const char *indent);
 void cli_table_free(cli_table *t);
+/* Round-off shown as data: text tables and CSV print a value whose
+ * magnitude is at most CLI_ROUNDOFF_REL (64 units of round-off, 2^-46 =
+ * 1.4e-14) times the scale of its column as 0; JSON keeps every double as
+ * computed. The scale of a column is its largest magnitude; the columns
+ * of one quantity over several species (fluxes) share one scale, and
+ * mole fractions have scale 1 (they sum to 1, so their round-off is
+ * relative to 1). */
+#define CLI_ROUNDOFF_REL 0x1p-46
+/* Largest finite magnitude of v[0], v[stride], ... (n values). */
+double cli_scale(const double *v, size_t n, size_t stride);
+/* v, or 0 when |v| <= CLI_ROUNDOFF_REL scale (NaN stays NaN). */
+double cli_shown(double v, double scale);
 /* Format a number for tables: %.4g style, "-" when NaN. */
 void cli_fmt_num(char *buf, size_t len, double v);
 
@@ -330,6 +358,10 @@ void cli_print_fick(const cli_state *s, const double *D, size_t dep, FILE *f);
 void cli_json_fick(const cli_state *s, const double *D, size_t dep,
                    cli_json *j);
 /* Flux table with gradients, zero-sum row and flags (flags may be NULL). */
+/* MCD_DIAG_* bits as words ("reverse", "osmotic", "barrier"; "-" for
+ * none) and as one JSON array of those words (empty for none). */
+void cli_flag_text(unsigned fl, char *buf, size_t len);
+void cli_json_flags(cli_json *j, unsigned fl);
 void cli_print_fluxes(const cli_state *s, const double *flux,
                       const unsigned *flags, FILE *f);
 void cli_json_fluxes(const cli_state *s, const double *flux,

@@ -8,14 +8,19 @@ static void help(FILE *f)
 {
     fputs(
         "usage: mcdiff binary A B -T TEMP -P PRES [--method NAME] "
-        "[--json|--csv]\n"
+        "[--explain]\n"
+        "                     [--json|--csv]\n"
         "\n"
         "Binary diffusivity of species A and B (names or formulas from\n"
         "'mcdiff species') estimated by every method that applies, or by the\n"
-        "one named, each with its typical error and warnings. The first\n"
-        "method that applies (in the order fsg, chapman-enskog, wilke-lee,\n"
-        "brokaw) is the recommended one; when a species is polar (dipole\n"
-        "above 1 debye) brokaw is, if it applies.\n"
+        "one named, each with its typical error and warnings. Without\n"
+        "--method, the first method that applies (in the order fsg,\n"
+        "chapman-enskog, wilke-lee, brokaw) is marked recommended; when a\n"
+        "species is polar (dipole above 1 debye) brokaw is, if it applies.\n"
+        "The typical error is the method's published average widened by\n"
+        "its warnings (x2 for each polar, associating, quantum-gas or\n"
+        "high-pressure warning, x1.5 for each temperature or\n"
+        "estimated-parameter warning, at most 100 %; a rule of thumb).\n"
         "\n"
         "options:\n"
         "  -T, --temperature TEMP  temperature; K or C suffix (also F), bare = "
@@ -34,18 +39,27 @@ static void help(FILE *f)
         "selects\n"
         "                          wilke-chang; Pa.s, mPa.s or cP suffix,\n"
         "                          bare = Pa.s\n"
+        "  --explain               also show the intermediates of each\n"
+        "                          estimate (M_AB, diffusion volumes, "
+        "sigma_AB,\n"
+        "                          eps_AB/k, T*, Omega_D, phi, ...) and its\n"
+        "                          formula, to check it by hand; JSON: an\n"
+        "                          \"explain\" object per result (SI)\n"
         "  --json                  one JSON object; D in m^2/s under \"D\"\n"
         "  --csv                   one row per method, SI: header\n"
         "                          "
         "species_a,species_b,T_K,P_Pa,method,status,\n"
         "                          "
-        "D_m2_per_s,typical_error,recommended,warnings\n"
+        "D_m2_per_s,typical_error,published_error,\n"
+        "                          recommended,warnings\n"
         "  --species-file FILE     also load species from FILE\n"
         "  -h, --help              this text\n"
         "\n"
         "examples:\n"
         "  mcdiff binary carbon-dioxide nitrogen -T 25C -P 1atm\n"
         "  mcdiff binary H2 N2 -T 350 -P 2bar --method chapman-enskog --json\n"
+        "  mcdiff binary CO2 N2 -T 590 -P 1bar --method chapman-enskog "
+        "--explain\n"
         "  mcdiff binary ethanol water -T 25C --viscosity 0.89cP\n",
         f);
 }
@@ -53,8 +67,9 @@ static void help(FILE *f)
 typedef struct result {
     mcd_method m;
     mcd_status st;
-    double D, rel_err;
+    double D, rel_err, pub_err; /* stated (widened) and published error */
     unsigned warn;
+    double ex[MCD_EXPLAIN_COUNT]; /* --explain: mcd_db_binary_explain */
 } result;
 
 static void json_warnings(cli_json *j, unsigned bits)
@@ -69,22 +84,30 @@ static void json_warnings(cli_json *j, unsigned bits)
 
 int cli_cmd_binary(int argc, char **argv)
 {
-    enum { O_T = 1, O_P, O_METHOD, O_VISC, O_JSON, O_HELP, O_FILE, O_CSV };
-    static const cli_opt opts[] = {{"temperature", 'T', 1, O_T},
-                                   {"pressure", 'P', 1, O_P},
-                                   {"method", 'm', 1, O_METHOD},
-                                   {"viscosity", 0, 1, O_VISC},
-                                   {"json", 0, 0, O_JSON},
-                                   {"csv", 0, 0, O_CSV},
-                                   {"help", 'h', 0, O_HELP},
-                                   {"species-file", 0, 1, O_FILE},
-                                   {NULL, 0, 0, 0}};
+    enum {
+        O_T = 1,
+        O_P,
+        O_METHOD,
+        O_VISC,
+        O_JSON,
+        O_HELP,
+        O_FILE,
+        O_CSV,
+        O_EXPLAIN
+    };
+    static const cli_opt opts[] = {
+        {"temperature", 'T', 1, O_T},   {"pressure", 'P', 1, O_P},
+        {"method", 'm', 1, O_METHOD},   {"viscosity", 0, 1, O_VISC},
+        {"json", 0, 0, O_JSON},         {"csv", 0, 0, O_CSV},
+        {"explain", 0, 0, O_EXPLAIN},   {"help", 'h', 0, O_HELP},
+        {"species-file", 0, 1, O_FILE}, {NULL, 0, 0, 0}};
     static const mcd_method gas_methods[] = {
         MCD_METHOD_FSG, MCD_METHOD_CHAPMAN_ENSKOG, MCD_METHOD_WILKE_LEE,
         MCD_METHOD_BROKAW};
     const char *cmd = "binary";
     cli_args a;
     int id, json = 0, csv = 0, rc, have_method = 0, best = -1, liquid;
+    int explain = 0, widened = 0, recommend;
     const char *names[2] = {NULL, NULL}, *file = NULL;
     size_t npos = 0, idx[2], k, nres = 0;
     double T = NAN, P = NAN, mu = NAN;
@@ -100,6 +123,7 @@ int cli_cmd_binary(int argc, char **argv)
         case O_HELP: help(stdout); return CLI_OK;
         case O_JSON: json = 1; break;
         case O_CSV: csv = 1; break;
+        case O_EXPLAIN: explain = 1; break;
         case O_FILE: file = a.value; break;
         case O_T:
             if (cli_parse_temperature(a.value, &T, why, sizeof why) != 0)
@@ -193,6 +217,17 @@ int cli_cmd_binary(int argc, char **argv)
         else
             r->st = mcd_db_binary_gas(db, idx[0], idx[1], (mcd_gas_method)r->m,
                                       T, P, &r->D, &r->rel_err, &r->warn);
+        r->pub_err = r->rel_err;
+        if (r->st == MCD_OK) {
+            r->rel_err = cli_widened_error(r->m, r->warn);
+            widened |= r->rel_err != r->pub_err && !isnan(r->pub_err);
+        }
+        if (r->st == MCD_OK && explain &&
+            mcd_db_binary_explain(db, idx[0], idx[1], r->m, T, P, mu, r->ex) !=
+                MCD_OK)
+            r->st = MCD_EINTERNAL; /* the estimate above succeeded */
+        /* Only an estimate the tool chose is recommended: a method the
+         * user named is simply the answer. */
         if (r->st == MCD_OK && best < 0)
             best = (int)k;
     }
@@ -206,6 +241,7 @@ int cli_cmd_binary(int argc, char **argv)
                     best = (int)b;
             break;
         }
+    recommend = !have_method;
     if (best < 0) {
         rc = cli_fail(cmd, nres == 1 ? "the estimate" : "every estimate",
                       res[0].st, mcd_method_name(res[0].m));
@@ -226,6 +262,7 @@ int cli_cmd_binary(int argc, char **argv)
         cli_csv_text(&c, "status");
         cli_csv_head(&c, "D", "", "m^2/s");
         cli_csv_text(&c, "typical_error");
+        cli_csv_text(&c, "published_error");
         cli_csv_text(&c, "recommended");
         cli_csv_text(&c, "warnings");
         cli_csv_end_row(&c);
@@ -241,7 +278,8 @@ int cli_cmd_binary(int argc, char **argv)
             cli_csv_text(&c, mcd_status_string(res[k].st));
             cli_csv_number(&c, res[k].D);
             cli_csv_number(&c, res[k].rel_err);
-            cli_csv_integer(&c, (int)k == best);
+            cli_csv_number(&c, res[k].pub_err);
+            cli_csv_integer(&c, recommend && (int)k == best);
             if (res[k].st == MCD_OK)
                 cli_warn_text(res[k].warn, w, sizeof w);
             cli_csv_text(&c, w);
@@ -266,6 +304,8 @@ int cli_cmd_binary(int argc, char **argv)
         cli_json_number(&j, "D", res[best].D);
         cli_json_string(&j, "method", mcd_method_name(res[best].m));
         cli_json_number(&j, "typical_error", res[best].rel_err);
+        cli_json_number(&j, "published_error", res[best].pub_err);
+        cli_json_bool(&j, "recommended", recommend);
         cli_json_array_begin(&j, "results");
         for (k = 0; k < nres; k++) {
             cli_json_object_begin(&j, NULL);
@@ -273,7 +313,11 @@ int cli_cmd_binary(int argc, char **argv)
             cli_json_string(&j, "status", mcd_status_string(res[k].st));
             cli_json_number(&j, "D", res[k].D);
             cli_json_number(&j, "typical_error", res[k].rel_err);
+            cli_json_number(&j, "published_error", res[k].pub_err);
+            cli_json_bool(&j, "recommended", recommend && (int)k == best);
             json_warnings(&j, res[k].warn);
+            if (explain && res[k].st == MCD_OK)
+                cli_explain_json(&j, res[k].ex);
             cli_json_object_end(&j);
         }
         cli_json_array_end(&j);
@@ -317,7 +361,7 @@ int cli_cmd_binary(int argc, char **argv)
                 cells[1] = d1;
                 cells[2] = d2;
                 cells[3] = e;
-                cells[4] = (int)k == best ? "<- recommended" : "";
+                cells[4] = recommend && (int)k == best ? "<- recommended" : "";
             } else {
                 cells[1] = "-";
                 cells[2] = "-";
@@ -335,6 +379,11 @@ int cli_cmd_binary(int argc, char **argv)
             cli_warn_text(res[k].warn, w, sizeof w);
             printf("  warning (%s): %s\n", mcd_method_name(res[k].m), w);
         }
+        if (widened)
+            printf("  %s\n", CLI_WIDEN_NOTE);
+        for (k = 0; explain && k < nres; k++)
+            if (res[k].st == MCD_OK)
+                cli_explain_text(res[k].m, res[k].ex, stdout);
         printf("%s\n", CLI_CAUTION_SHORT);
     }
     mcd_db_free(db);

@@ -33,10 +33,12 @@ static void help(FILE *f)
         "                            bare = m2\n"
         "  --diameter LEN            or its inner diameter (area pi d^2/4);\n"
         "                            m, cm or mm, bare = m\n"
-        "  -t, --times TIMES         output times, s, min or h suffix, bare =\n"
-        "                            s: a list (0,30min,1h,2h; not\n"
+        "  -t, --times TIMES         output times, s, min, h or d suffix,\n"
+        "                            bare = s: a list (0,30min,1h,2d; not\n"
         "                            decreasing) or START:STOP:COUNT\n"
         "                            (0:10h:21 = 21 equally spaced times)\n"
+        "  --time-unit UNIT          s (default), min, h or d: the unit of\n"
+        "                            the printed times (CSV column t_UNIT)\n"
         "  -T, --temperature TEMP    K or C suffix (also F), bare = K\n"
         "  -P, --pressure PRES       Pa, kPa, MPa, bar, atm or psi, bare = Pa\n"
         "  --model NAME              integrated (default: exact film fluxes\n"
@@ -51,12 +53,24 @@ static void help(FILE *f)
         "  --pair A:B=D[@T,P]        binary diffusivity of a pair [m^2/s, or\n"
         "                            cm2/s suffix], as for 'mcdiff fluxes'\n"
         "  --csv                     CSV (the default): header row\n"
-        "                            t_s,x1_A,...,x2_A,... then one row per\n"
-        "                            time; the caution goes to stderr\n"
+        "                            t_s,x1_A,...,x2_A,...,N_A_mol_per_m2_s,\n"
+        "                            ...,flags_A,... then one row per time;\n"
+        "                            the caution goes to stderr\n"
         "  --json                    one JSON object (SI): \"t\" [s], \"x1\",\n"
-        "                            \"x2\" (rows = times), \"x_final\"\n"
+        "                            \"x2\", \"N\", \"flags\" (rows = times),\n"
+        "                            \"x_final\"\n"
         "  --species-file FILE       also load species from FILE\n"
         "  -h, --help                this text\n"
+        "\n"
+        "N_i is the flux from bulb 1 to bulb 2 through the capillary at\n"
+        "that instant: the exact equimolar film between the two bulb\n"
+        "compositions (for --model linearized too). Coupling flags of each\n"
+        "species against its mean gradient (x2 - x1)/L: osmotic = a flux\n"
+        "with no gradient of its own, reverse = a flux up its own gradient,\n"
+        "barrier = no flux despite a gradient; 'no' and 'zero' mean at most\n"
+        "1e-3 of the largest gradient or flux of that time. Mole fractions\n"
+        "within 1.4e-14 of 0 and fluxes within 1.4e-14 of the largest flux\n"
+        "print as 0 (round-off; JSON keeps the computed doubles).\n"
         "\n"
         "example (invented cell: hydrogen against carbon dioxide, nitrogen\n"
         "in both bulbs):\n"
@@ -76,17 +90,36 @@ enum {
     O_DIAM,
     O_TIMES,
     O_MODEL,
-    O_TOL
+    O_TOL,
+    O_TUNIT
 };
 
-static const cli_opt bulbs_opts[] = {
-    CLI_MIXTURE_OPTIONS,        {"x1", 0, 1, O_X1},
-    {"x2", 0, 1, O_X2},         {"v1", 0, 1, O_V1},
-    {"v2", 0, 1, O_V2},         {"V1", 0, 1, O_V1},
-    {"V2", 0, 1, O_V2},         {"length", 'L', 1, O_LEN},
-    {"area", 0, 1, O_AREA},     {"diameter", 0, 1, O_DIAM},
-    {"times", 't', 1, O_TIMES}, {"model", 0, 1, O_MODEL},
-    {"tolerance", 0, 1, O_TOL}, {NULL, 0, 0, 0}};
+static const cli_opt bulbs_opts[] = {CLI_MIXTURE_OPTIONS,
+                                     {"x1", 0, 1, O_X1},
+                                     {"x2", 0, 1, O_X2},
+                                     {"v1", 0, 1, O_V1},
+                                     {"v2", 0, 1, O_V2},
+                                     {"V1", 0, 1, O_V1},
+                                     {"V2", 0, 1, O_V2},
+                                     {"length", 'L', 1, O_LEN},
+                                     {"area", 0, 1, O_AREA},
+                                     {"diameter", 0, 1, O_DIAM},
+                                     {"times", 't', 1, O_TIMES},
+                                     {"model", 0, 1, O_MODEL},
+                                     {"tolerance", 0, 1, O_TOL},
+                                     {"time-unit", 0, 1, O_TUNIT},
+                                     {NULL, 0, 0, 0}};
+
+/* Output time units (--time-unit): name and seconds per unit. */
+static const struct {
+    const char *name;
+    double s;
+} time_units[] = {{"s", 1.0}, {"min", 60.0}, {"h", 3600.0}, {"d", 86400.0}};
+
+/* Tolerance of the coupling flags: a gradient or flux counts as zero when
+ * its magnitude is at most this fraction of the largest over the species
+ * at that time (mcd_flux_diagnose; the same as 'mcdiff fluxes'). */
+#define BULBS_FLAG_TOL 1e-3
 
 typedef struct bulbs_job {
     cli_state s;
@@ -100,6 +133,10 @@ typedef struct bulbs_job {
     double *t;
     size_t nt;
     double *x1t, *x2t; /* nt x n each */
+    size_t tunit;      /* index into time_units */
+    double *Nt;        /* nt x n capillary fluxes [mol/(m^2 s)], 1 -> 2 */
+    unsigned *flags;   /* nt x n MCD_DIAG_* bits */
+    int *flux_ok;      /* nt: 1 when the film solve gave the fluxes */
 } bulbs_job;
 
 static int parse(bulbs_job *bj, const char *cmd, int argc, char **argv)
@@ -191,6 +228,18 @@ static int parse(bulbs_job *bj, const char *cmd, int argc, char **argv)
                                        "'%s' is not in 1e-12..1e-2", a.value);
             bj->have_tol = 1;
             break;
+        case O_TUNIT: {
+            size_t k, nu = sizeof time_units / sizeof time_units[0];
+            for (k = 0; k < nu && strcmp(a.value, time_units[k].name); k++)
+                ;
+            if (k == nu)
+                return cli_usage_error(cmd, a.spelled,
+                                       "'%s' is not a time unit (s, min, h "
+                                       "or d)",
+                                       a.value);
+            bj->tunit = k;
+            break;
+        }
         case CLI_ARG_POSITIONAL:
             return cli_usage_error(cmd, a.value,
                                    "unexpected argument (options only; see "
@@ -233,21 +282,78 @@ static void print_csv(const bulbs_job *bj)
 {
     const cli_state *s = &bj->s;
     size_t n = s->n, i, k;
+    double sN = cli_scale(bj->Nt, bj->nt * n, 1); /* round-off scale */
     cli_csv c;
     cli_csv_init(&c, stdout);
-    cli_csv_head(&c, "t", "", "s");
+    cli_csv_head(&c, "t", "", time_units[bj->tunit].name);
     for (i = 0; i < n; i++)
         cli_csv_head(&c, "x1_", mcd_mixture_name(s->mix, i), "-");
     for (i = 0; i < n; i++)
         cli_csv_head(&c, "x2_", mcd_mixture_name(s->mix, i), "-");
+    for (i = 0; i < n; i++)
+        cli_csv_head(&c, "N_", mcd_mixture_name(s->mix, i), "mol/(m^2 s)");
+    for (i = 0; i < n; i++)
+        cli_csv_head(&c, "flags_", mcd_mixture_name(s->mix, i), "-");
     cli_csv_end_row(&c);
     for (k = 0; k < bj->nt; k++) {
-        cli_csv_number(&c, bj->t[k]);
+        cli_csv_number(&c, bj->t[k] / time_units[bj->tunit].s);
+        /* mole fractions: round-off relative to 1 (CLI_ROUNDOFF_REL) */
         for (i = 0; i < n; i++)
-            cli_csv_number(&c, bj->x1t[k * n + i]);
+            cli_csv_number(&c, cli_shown(bj->x1t[k * n + i], 1.0));
         for (i = 0; i < n; i++)
-            cli_csv_number(&c, bj->x2t[k * n + i]);
+            cli_csv_number(&c, cli_shown(bj->x2t[k * n + i], 1.0));
+        for (i = 0; i < n; i++)
+            cli_csv_number(&c, bj->flux_ok[k] ? cli_shown(bj->Nt[k * n + i], sN)
+                                              : (double)NAN);
+        for (i = 0; i < n; i++) {
+            char buf[64];
+            cli_flag_text(bj->flags[k * n + i], buf, sizeof buf);
+            /* none: empty, as in 'mcdiff fluxes --csv' */
+            cli_csv_text(&c, !bj->flux_ok[k]         ? "n/a"
+                             : strcmp(buf, "-") == 0 ? ""
+                                                     : buf);
+        }
         cli_csv_end_row(&c);
+    }
+}
+
+/* Capillary fluxes at each output time, N_i from bulb 1 to bulb 2: the
+ * exact steady equimolar film between x1(t) and x2(t) (the flux the
+ * integrated model uses at that instant), and their coupling flags
+ * against the mean gradient (x2 - x1) / L along the capillary. A time at
+ * which the film does not solve gets no fluxes (flux_ok 0) and a note. */
+static void capillary_fluxes(bulbs_job *bj, const char *cmd)
+{
+    cli_state *s = &bj->s;
+    size_t n = s->n, k, i;
+    for (k = 0; k < bj->nt; k++) {
+        double grad[MCD_MAX_SPECIES], x1[MCD_MAX_SPECIES], x2[MCD_MAX_SPECIES];
+        mcd_film f = {.n_species = n,
+                      .c = s->c,
+                      .L = bj->L,
+                      .Dij = s->Dij,
+                      .x0 = x1,
+                      .xL = x2};
+        mcd_status st;
+        /* Round-off (-5.6e-17 for an absent species) is no composition:
+         * the film takes fractions in [0, 1]. */
+        for (i = 0; i < n; i++) {
+            x1[i] = cli_shown(bj->x1t[k * n + i], 1.0);
+            x2[i] = cli_shown(bj->x2t[k * n + i], 1.0);
+        }
+        st = mcd_film_solve(s->ws, &f, MCD_FILM_BOOT_EQUIMOLAR, 0, NULL,
+                            MCD_FILM_EXACT, bj->Nt + k * n, NULL, NULL);
+        for (i = 0; i < n; i++)
+            grad[i] = (x2[i] - x1[i]) / bj->L;
+        if (st == MCD_OK)
+            st = mcd_flux_diagnose(n, 1, grad, bj->Nt + k * n, BULBS_FLAG_TOL,
+                                   bj->flags + k * n);
+        bj->flux_ok[k] = st == MCD_OK;
+        if (st != MCD_OK)
+            fprintf(stderr,
+                    "mcdiff %s: warning: no capillary fluxes at t = %g s "
+                    "(%s: %s)\n",
+                    cmd, bj->t[k], mcd_status_string(st), mcd_last_error());
     }
 }
 
@@ -285,6 +391,11 @@ static void print_json(const bulbs_job *bj)
     cli_json_numbers(&j, "x2_initial", bj->x2, n);
     cli_json_numbers(&j, "x_final", xbar, n);
     cli_json_numbers(&j, "t", bj->t, bj->nt);
+    cli_json_string(&j, "time_unit", time_units[bj->tunit].name);
+    cli_json_array_begin(&j, "t_in_unit");
+    for (k = 0; k < bj->nt; k++)
+        cli_json_number(&j, NULL, bj->t[k] / time_units[bj->tunit].s);
+    cli_json_array_end(&j);
     cli_json_array_begin(&j, "x1");
     for (k = 0; k < bj->nt; k++)
         cli_json_numbers(&j, NULL, bj->x1t + k * n, n);
@@ -292,6 +403,29 @@ static void print_json(const bulbs_job *bj)
     cli_json_array_begin(&j, "x2");
     for (k = 0; k < bj->nt; k++)
         cli_json_numbers(&j, NULL, bj->x2t + k * n, n);
+    cli_json_array_end(&j);
+    cli_json_string(&j, "flux_unit", "mol/(m^2 s)");
+    cli_json_array_begin(&j, "N");
+    for (k = 0; k < bj->nt; k++) {
+        if (bj->flux_ok[k]) {
+            cli_json_numbers(&j, NULL, bj->Nt + k * n, n);
+        } else {
+            cli_json_null(&j, NULL);
+        }
+    }
+    cli_json_array_end(&j);
+    cli_json_number(&j, "flag_tolerance", BULBS_FLAG_TOL);
+    cli_json_array_begin(&j, "flags");
+    for (k = 0; k < bj->nt; k++) {
+        if (!bj->flux_ok[k]) {
+            cli_json_null(&j, NULL);
+            continue;
+        }
+        cli_json_array_begin(&j, NULL);
+        for (i = 0; i < n; i++)
+            cli_json_flags(&j, bj->flags[k * n + i]);
+        cli_json_array_end(&j);
+    }
     cli_json_array_end(&j);
     cli_json_string(&j, "caution", CLI_CAUTION_TRANSFER_LONG);
     cli_json_object_end(&j);
@@ -321,7 +455,11 @@ int cli_cmd_bulbs(int argc, char **argv)
     s->comp = malloc(n * sizeof *s->comp);
     bj->x1t = malloc(bj->nt * n * sizeof *bj->x1t);
     bj->x2t = malloc(bj->nt * n * sizeof *bj->x2t);
-    if (!s->comp || !bj->x1t || !bj->x2t) {
+    bj->Nt = calloc(bj->nt * n, sizeof *bj->Nt);
+    bj->flags = calloc(bj->nt * n, sizeof *bj->flags);
+    bj->flux_ok = calloc(bj->nt, sizeof *bj->flux_ok);
+    if (!s->comp || !bj->x1t || !bj->x2t || !bj->Nt || !bj->flags ||
+        !bj->flux_ok) {
         rc = cli_fail(cmd, "setting up", MCD_ENOMEM, NULL);
         goto done;
     }
@@ -365,6 +503,7 @@ int cli_cmd_bulbs(int argc, char **argv)
                       st, mcd_last_error());
         goto done;
     }
+    capillary_fluxes(bj, cmd);
     if (s->json) {
         print_json(bj);
     } else {
@@ -376,6 +515,9 @@ done:
     free(bj->t);
     free(bj->x1t);
     free(bj->x2t);
+    free(bj->Nt);
+    free(bj->flags);
+    free(bj->flux_ok);
     cli_state_free(s);
     free(bj);
     return rc;

@@ -429,7 +429,7 @@ static void print_profile_csv(const film_job *fj)
     for (p = 0; p < fj->points; p++) {
         cli_csv_number(&c, fj->z[p]);
         for (i = 0; i < n; i++)
-            cli_csv_number(&c, fj->xz[p * n + i]);
+            cli_csv_number(&c, cli_shown(fj->xz[p * n + i], 1.0));
         cli_csv_end_row(&c);
     }
 }
@@ -440,6 +440,7 @@ static void print_flux_csv(const film_job *fj)
     cli_csv c;
     size_t i, n = s->n;
     const double *N = fj->run == RUN_LINEARIZED ? fj->Nl : fj->Ne;
+    double sN = cli_scale(N, n, 1), sNl = cli_scale(fj->Nl, n, 1);
     cli_csv_init(&c, stdout);
     cli_csv_text(&c, "species");
     cli_csv_text(&c, "x0");
@@ -453,10 +454,10 @@ static void print_flux_csv(const film_job *fj)
     for (i = 0; i < n; i++) {
         cli_csv_text(&c, mcd_mixture_name(s->mix, i));
         cli_csv_number(&c, s->x[i]);
-        cli_csv_number(&c, fj->xL[i]);
-        cli_csv_number(&c, N[i]);
+        cli_csv_number(&c, cli_shown(fj->xL[i], 1.0));
+        cli_csv_number(&c, cli_shown(N[i], sN));
         if (fj->run == RUN_BOTH) {
-            cli_csv_number(&c, fj->Nl[i]);
+            cli_csv_number(&c, cli_shown(fj->Nl[i], sNl));
             cli_csv_number(&c, deviation(fj->Ne[i], fj->Nl[i]));
         }
         cli_csv_end_row(&c);
@@ -551,6 +552,7 @@ static void print_table(const film_job *fj)
     char b[6][64];
     int both = fj->run == RUN_BOTH;
     const double *N = fj->run == RUN_LINEARIZED ? fj->Nl : fj->Ne;
+    double sN = cli_scale(N, n, 1), sNl = cli_scale(fj->Nl, n, 1);
 
     printf("film: %zu species, L = %.6g m, T = %.6g K, P = %.6g Pa, "
            "c = %.5g mol/m^3 (ideal gas)\n",
@@ -601,12 +603,12 @@ static void print_table(const film_job *fj)
         cells[0] = mcd_mixture_name(s->mix, i);
         snprintf(b[1], sizeof b[1], "%.5g", s->x[i]);
         if (fj->have_xLs)
-            snprintf(b[2], sizeof b[2], "%.5g%s", fj->xLs[i],
+            snprintf(b[2], sizeof b[2], "%.5g%s", cli_shown(fj->xLs[i], 1.0),
                      i == fj->species ? " *" : "");
         else
-            snprintf(b[2], sizeof b[2], "%.5g", fj->xL[i]);
-        snprintf(b[3], sizeof b[3], "%.5e", N[i]);
-        snprintf(b[4], sizeof b[4], "%.5e", fj->Nl[i]);
+            snprintf(b[2], sizeof b[2], "%.5g", cli_shown(fj->xL[i], 1.0));
+        snprintf(b[3], sizeof b[3], "%.5e", cli_shown(N[i], sN));
+        snprintf(b[4], sizeof b[4], "%.5e", cli_shown(fj->Nl[i], sNl));
         {
             double d = deviation(fj->Ne[i], fj->Nl[i]);
             if (isnan(d))

@@ -4,6 +4,7 @@
  * Exit codes: 0 success, 1 the computation failed, 2 bad command line.
  */
 #include <ctype.h>
+#include <math.h>
 #include <stdarg.h>
 #include <stdlib.h>
 #include <stdio.h>
@@ -100,6 +101,14 @@ void cli_warn_text(unsigned bits, char *buf, size_t len)
             break;
         used += (size_t)k;
     }
+}
+
+double cli_widened_error(mcd_method m, unsigned warn)
+{
+    double e = NAN;
+    if (mcd_typical_error_widened(m, warn, &e) != MCD_OK)
+        return NAN;
+    return e;
 }
 
 int cli_open_db(const char *cmd, const char *extra_file, mcd_db **out_db)

@@ -115,7 +115,7 @@ void cli_zero_sum(size_t n, size_t n_dim, const double *flux, double *sum,
     }
 }
 
-static void flag_text(unsigned fl, char *buf, size_t len)
+void cli_flag_text(unsigned fl, char *buf, size_t len)
 {
     snprintf(buf, len, "%s%s%s%s", (fl & MCD_DIAG_REVERSE) ? "reverse " : "",
              (fl & MCD_DIAG_OSMOTIC) ? "osmotic " : "",
@@ -124,10 +124,23 @@ static void flag_text(unsigned fl, char *buf, size_t len)
         buf[strlen(buf) - 1] = '\0';
 }
 
+void cli_json_flags(cli_json *j, unsigned fl)
+{
+    cli_json_array_begin(j, NULL);
+    if (fl & MCD_DIAG_REVERSE)
+        cli_json_string(j, NULL, "reverse");
+    if (fl & MCD_DIAG_OSMOTIC)
+        cli_json_string(j, NULL, "osmotic");
+    if (fl & MCD_DIAG_BARRIER)
+        cli_json_string(j, NULL, "barrier");
+    cli_json_array_end(j);
+}
+
 void cli_print_fluxes(const cli_state *s, const double *flux,
                       const unsigned *flags, FILE *f)
 {
     size_t n = s->n, nd = s->n_dim, i, d, nc = 2 + 2 * nd + 1;
+    double sF = cli_scale(flux, n * nd, 1); /* round-off scale */
     cli_table t;
     const char *cells[CLI_TABLE_MAX_COLS];
     char buf[CLI_TABLE_MAX_COLS][64];
@@ -159,11 +172,11 @@ void cli_print_fluxes(const cli_state *s, const double *flux,
                      s->grad[i * nd + d]);
             cells[2 + d] = buf[1 + d];
             snprintf(buf[1 + nd + d], sizeof buf[1 + nd + d], "%.5e",
-                     flux[i * nd + d]);
+                     cli_shown(flux[i * nd + d], sF));
             cells[2 + nd + d] = buf[1 + nd + d];
         }
         if (flags)
-            flag_text(flags[i], buf[2 * nd + 1], sizeof buf[2 * nd + 1]);
+            cli_flag_text(flags[i], buf[2 * nd + 1], sizeof buf[2 * nd + 1]);
         else
             snprintf(buf[2 * nd + 1], sizeof buf[2 * nd + 1], "-");
         cells[nc - 1] = buf[2 * nd + 1];
@@ -206,16 +219,8 @@ void cli_json_fluxes(const cli_state *s, const double *flux,
     cli_json_numbers(j, "zero_sum_relative", rel, nd);
     if (flags) {
         cli_json_array_begin(j, "flags");
-        for (i = 0; i < n; i++) {
-            cli_json_array_begin(j, NULL);
-            if (flags[i] & MCD_DIAG_REVERSE)
-                cli_json_string(j, NULL, "reverse");
-            if (flags[i] & MCD_DIAG_OSMOTIC)
-                cli_json_string(j, NULL, "osmotic");
-            if (flags[i] & MCD_DIAG_BARRIER)
-                cli_json_string(j, NULL, "barrier");
-            cli_json_array_end(j);
-        }
+        for (i = 0; i < n; i++)
+            cli_json_flags(j, flags[i]);
         cli_json_array_end(j);
     }
 }
@@ -224,6 +229,7 @@ void cli_csv_fluxes(const cli_state *s, const double *flux,
                     const unsigned *flags, FILE *f)
 {
     size_t n = s->n, nd = s->n_dim, i, d;
+    double sF = cli_scale(flux, n * nd, 1); /* round-off scale */
     cli_csv c;
     char name[32];
     const char *fr = s->comp_basis == MCD_BASIS_MOLE ? "x" : "w";
@@ -249,10 +255,10 @@ void cli_csv_fluxes(const cli_state *s, const double *flux,
         for (d = 0; d < nd; d++)
             cli_csv_number(&c, s->grad[i * nd + d]);
         for (d = 0; d < nd; d++)
-            cli_csv_number(&c, flux[i * nd + d]);
+            cli_csv_number(&c, cli_shown(flux[i * nd + d], sF));
         if (flags) {
             char buf[64];
-            flag_text(flags[i], buf, sizeof buf);
+            cli_flag_text(flags[i], buf, sizeof buf);
             cli_csv_text(&c, strcmp(buf, "-") == 0 ? "" : buf);
         }
         cli_csv_end_row(&c);

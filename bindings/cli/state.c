@@ -561,6 +561,16 @@ static const char *pair_source(const cli_state *s, size_t i, size_t j)
     return s->user_pair[i * s->n + j] ? "given" : mcd_method_name(s->method);
 }
 
+/* The stated error of pair (i, j): the published one of its method
+ * widened by the pair's warnings (NaN for a given value). */
+static double pair_error(const cli_state *s, size_t i, size_t j)
+{
+    size_t ij = i * s->n + j;
+    if (s->user_pair[ij] || isnan(s->rel_err[ij]))
+        return NAN;
+    return cli_widened_error(s->method, s->warn[ij]);
+}
+
 void cli_state_print_binaries(const cli_state *s, FILE *f)
 {
     cli_table t;
@@ -579,7 +589,7 @@ void cli_state_print_binaries(const cli_state *s, FILE *f)
     cli_table_row(&t, cells);
     for (i = 0; i < n; i++)
         for (j = i + 1; j < n; j++) {
-            double D = s->Dij[i * n + j], re = s->rel_err[i * n + j];
+            double D = s->Dij[i * n + j], re = pair_error(s, i, j);
             snprintf(pair, sizeof pair, "%s / %s", mcd_mixture_name(s->mix, i),
                      mcd_mixture_name(s->mix, j));
             snprintf(d1, sizeof d1, "%.4e", D);
@@ -598,11 +608,17 @@ void cli_state_print_binaries(const cli_state *s, FILE *f)
         }
     cli_table_print(&t, f, "  ");
     cli_table_free(&t);
-    if (all) {
-        char w[512];
-        cli_warn_text(all, w, sizeof w);
-        fprintf(f, "  warnings: %s\n", w);
-    }
+    for (i = 0; i < n; i++)
+        for (j = i + 1; j < n; j++) {
+            char w[512];
+            if (s->warn[i * n + j] == 0)
+                continue;
+            cli_warn_text(s->warn[i * n + j], w, sizeof w);
+            fprintf(f, "  warning (%s / %s): %s\n", mcd_mixture_name(s->mix, i),
+                    mcd_mixture_name(s->mix, j), w);
+        }
+    if (all)
+        fprintf(f, "  %s\n", CLI_WIDEN_NOTE);
 }
 
 void cli_state_json_header(const cli_state *s, cli_json *j)
@@ -634,9 +650,35 @@ void cli_state_json_binaries(const cli_state *s, cli_json *j)
     for (i = 0; i < n; i++) {
         double row[MCD_MAX_SPECIES];
         for (k = 0; k < n; k++)
+            row[k] = i == k ? (double)NAN : pair_error(s, i, k);
+        cli_json_numbers(j, NULL, row, n);
+    }
+    cli_json_array_end(j);
+    cli_json_array_begin(j, "binary_published_error");
+    for (i = 0; i < n; i++) {
+        double row[MCD_MAX_SPECIES];
+        for (k = 0; k < n; k++)
             row[k] = i == k ? (double)NAN : s->rel_err[i * n + k];
         cli_json_numbers(j, NULL, row, n);
     }
+    cli_json_array_end(j);
+    cli_json_array_begin(j, "pair_warnings");
+    for (i = 0; i < n; i++)
+        for (k = i + 1; k < n; k++) {
+            if (s->warn[i * n + k] == 0)
+                continue;
+            cli_json_object_begin(j, NULL);
+            cli_json_array_begin(j, "pair");
+            cli_json_string(j, NULL, mcd_mixture_name(s->mix, i));
+            cli_json_string(j, NULL, mcd_mixture_name(s->mix, k));
+            cli_json_array_end(j);
+            cli_json_array_begin(j, "warnings");
+            for (b = 1; b != 0 && b <= s->warn[i * n + k]; b <<= 1)
+                if (s->warn[i * n + k] & b)
+                    cli_json_string(j, NULL, mcd_warning_string(b));
+            cli_json_array_end(j);
+            cli_json_object_end(j);
+        }
     cli_json_array_end(j);
     cli_json_array_begin(j, "binary_source");
     for (i = 0; i < n; i++) {

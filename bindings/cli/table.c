@@ -110,3 +110,17 @@ void cli_fmt_num(char *buf, size_t len, double v)
     else
         snprintf(buf, len, "%.4g", v);
 }
+
+double cli_scale(const double *v, size_t n, size_t stride)
+{
+    double m = 0.0;
+    for (size_t k = 0; k < n; k++)
+        if (isfinite(v[k * stride]) && fabs(v[k * stride]) > m)
+            m = fabs(v[k * stride]);
+    return m;
+}
+
+double cli_shown(double v, double scale)
+{
+    return fabs(v) <= CLI_ROUNDOFF_REL * scale ? 0.0 : v;
+}

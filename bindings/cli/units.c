@@ -352,10 +352,13 @@ int cli_parse_volume(const char *text, double *out, char *why, size_t whylen)
 
 int cli_parse_time(const char *text, double *out, char *why, size_t whylen)
 {
-    static const unit_def units[] = {
-        {"s", 1.0, 0.0}, {"min", 60.0, 0.0}, {"h", 3600.0, 0.0}, {NULL, 0, 0}};
+    static const unit_def units[] = {{"s", 1.0, 0.0},
+                                     {"min", 60.0, 0.0},
+                                     {"h", 3600.0, 0.0},
+                                     {"d", 86400.0, 0.0},
+                                     {NULL, 0, 0}};
     double v;
-    if (parse_quantity(text, units, "time", "s, min or h; bare = s", &v, why,
+    if (parse_quantity(text, units, "time", "s, min, h or d; bare = s", &v, why,
                        whylen) != 0)
         return -1;
     if (!(v >= 0.0)) {

@@ -172,18 +172,20 @@ module mcdiff
        mcd_binary_omega_d, mcd_workspace_new_with, &
        mcd_binary_wilke_lee, mcd_binary_wilke_chang, mcd_db_binary_liquid, &
        mcd_binary_brokaw, &
+       mcd_typical_error_widened, mcd_db_binary_explain, &
        mcd_flux_to_volume_frame, mcd_flux_to_species_frame, &
        mcd_flux_velocity_difference, mcd_mixture_temperature_fit, &
        mcd_bulbs_linearized, mcd_bulbs_integrate, &
        mcd_liquid_new, mcd_liquid_set_species, mcd_liquid_set_pair, &
        mcd_liquid_set_dinf, mcd_liquid_eval, mcd_binary_tyn_calus, &
-       mcd_binary_hayduk_minhas, mcd_liquid_set_antoine, mcd_liquid_vle, &
+       mcd_binary_hayduk_minhas, mcd_method_temperature_range, mcd_liquid_set_antoine, &
+       mcd_liquid_vle, &
        mcd_liquid_evaporation, &
        mcd_viscosity_omega22, mcd_viscosity_chapman_enskog, mcd_viscosity_wilke, &
        mcd_db_viscosity_gas, mcd_mixture_viscosities, mcd_pore_permeability, &
        mcd_pore_effective, mcd_knudsen_diffusivity, mcd_bosanquet, &
        mcd_dgm_fluxes, mcd_dgm_closed, mcd_dgm_gradients, mcd_dgm_fluxes_batch, &
-       mcd_slab_solve, mcd_slab_profile
+       mcd_slab_solve, mcd_slab_solve_ratios, mcd_slab_profile
 
   !> Release a handle (any of the three types); an empty handle is a no-op.
   interface mcd_free
@@ -846,6 +848,37 @@ contains
          c_loc(e), c_loc(w))
     call finish_estimate(s, e, w, stat, errmsg, rel_err, warn)
   end subroutine mcd_db_binary_liquid
+
+  !> Typical error of method m widened by the MCD_WARN_* bits warn
+  !> (MCD_WIDEN_* factors); NaN for MCD_METHOD_USER.
+  subroutine mcd_typical_error_widened(m, warn, rel_err, stat, errmsg)
+    integer, intent(in) :: m, warn
+    real(c_double), intent(inout) :: rel_err
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    real(c_double) :: v
+    integer(c_int) :: s
+    s = c_mcd_typical_error_widened(int(m, c_int), int(warn, c_int), v)
+    if (s == 0) rel_err = v
+    call finish(s, stat, errmsg)
+  end subroutine mcd_typical_error_widened
+
+  !> Intermediates of the estimate of species a and b (1-based; a the solute
+  !> for MCD_METHOD_WILKE_CHANG) in values(MCD_EXPLAIN_COUNT): the C slot
+  !> MCD_EXPLAIN_X is values(MCD_EXPLAIN_X + 1). Unused slots are NaN.
+  subroutine mcd_db_binary_explain(db, a, b, method, T, P, mu_solvent, values, &
+       stat, errmsg)
+    type(mcd_db_t), intent(in) :: db
+    integer, intent(in) :: a, b, method
+    real(c_double), intent(in) :: T, P, mu_solvent
+    real(c_double), intent(inout) :: values(MCD_EXPLAIN_COUNT)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    integer(c_int) :: s
+    s = c_mcd_db_binary_explain(db%ptr, cidx(a), cidx(b), int(method, c_int), &
+         T, P, mu_solvent, values)
+    call finish(s, stat, errmsg)
+  end subroutine mcd_db_binary_explain
 
   ! ==================================================================
   ! Mixtures
@@ -1569,12 +1602,49 @@ contains
     it = 0
     s = c_mcd_slab_solve(ws%ptr, pore, slab_of(n, T, mu, L, P_ref, M, Dij, x0, P0, xL, PL), &
          int(kind, c_int), k, v, N_flux, c_loc(pl_c), c_loc(it))
+    call finish_slab(s, pl_c, it, stat, errmsg, PL_out, iterations)
+  end subroutine mcd_slab_solve
+
+  !> The optional outputs of a slab solve (on success) and its status.
+  subroutine finish_slab(s, pl_c, it, stat, errmsg, PL_out, iterations)
+    integer(c_int), intent(in) :: s
+    real(c_double), intent(in) :: pl_c
+    integer(c_size_t), intent(in) :: it
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    real(c_double), intent(inout), optional :: PL_out
+    integer, intent(inout), optional :: iterations
     if (s == 0) then
        if (present(PL_out)) PL_out = pl_c
        if (present(iterations)) iterations = int(it)
     end if
     call finish(s, stat, errmsg)
-  end subroutine mcd_slab_solve
+  end subroutine finish_slab
+
+  !> Steady slab fluxes in given ratios, N_flux = ratios * N_t (sum of
+  !> ratios 1), matching xL(species) (1-based) at z = L; PL_out the
+  !> resulting pressure there. Other arguments as mcd_slab_solve.
+  subroutine mcd_slab_solve_ratios(ws, pore, n, T, mu, L, P_ref, M, Dij, x0, P0, xL, &
+       species, ratios, N_flux, stat, errmsg, PL_out, iterations)
+    type(mcd_workspace_t), intent(inout) :: ws
+    type(mcd_pore_t), intent(in) :: pore
+    integer, intent(in) :: n, species
+    real(c_double), intent(in) :: T, mu, L, P_ref, P0, ratios(n)
+    real(c_double), intent(in), target :: M(n), Dij(n, n), x0(n), xL(n)
+    real(c_double), intent(inout) :: N_flux(n)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    real(c_double), intent(inout), optional :: PL_out
+    integer, intent(inout), optional :: iterations
+    real(c_double), target :: pl_c
+    integer(c_size_t), target :: it
+    integer(c_int) :: s
+    pl_c = 0
+    it = 0
+    s = c_mcd_slab_solve_ratios(ws%ptr, pore, slab_of(n, T, mu, L, P_ref, M, Dij, x0, P0, &
+         xL, P0), cidx(species), ratios, N_flux, c_loc(pl_c), c_loc(it))
+    call finish_slab(s, pl_c, it, stat, errmsg, PL_out, iterations)
+  end subroutine mcd_slab_solve_ratios
 
   !> Slab profile for fluxes N_flux(n): x(n, n_points) and P(n_points) at
   !> positions z(n_points) [m].
@@ -2009,6 +2079,31 @@ contains
     character(len=*), intent(out), optional :: errmsg
     call finish(c_mcd_binary_hayduk_minhas(T, mu_water, Vb_solute, D), stat, errmsg)
   end subroutine mcd_binary_hayduk_minhas
+
+  !> Temperature range [K] of a liquid correlation (MCD_METHOD_WILKE_CHANG,
+  !> _TYN_CALUS, _HAYDUK_MINHAS) and the warning bits at T:
+  !> MCD_WARN_TEMPERATURE outside it.
+  subroutine mcd_method_temperature_range(method, T, T_min, T_max, warn, stat, errmsg)
+    integer, intent(in) :: method
+    real(c_double), intent(in) :: T
+    real(c_double), intent(inout) :: T_min, T_max
+    integer, intent(inout) :: warn
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    real(c_double), target :: lo, hi
+    integer(c_int), target :: w
+    integer(c_int) :: s
+    lo = 0
+    hi = 0
+    w = 0
+    s = c_mcd_method_temperature_range(int(method, c_int), T, c_loc(lo), c_loc(hi), c_loc(w))
+    if (s == 0) then
+       T_min = lo
+       T_max = hi
+       warn = int(w)
+    end if
+    call finish(s, stat, errmsg)
+  end subroutine mcd_method_temperature_range
 
   !> Antoine constants of species i (1-based): log10(P/Pa) = A - B/(T/K + C)
   !> over [T_min, T_max].

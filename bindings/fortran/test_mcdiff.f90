@@ -429,7 +429,7 @@ contains
     type(mcd_db_t) :: db
     integer :: stat, in2, ico2, iben, iwat, warn
     real(c_double) :: T, P, MA, MB, sA, sB, eA, eB, Dwl, Dce, Dgas, Mab, ratio, ref
-    real(c_double) :: mu, Mw, phi, Vb, Dwc, Dliq, err
+    real(c_double) :: mu, Mw, phi, Vb, Dwc, Dliq, err, xv(MCD_EXPLAIN_COUNT)
     character(len=256) :: msg
 
     call mcd_db_new_builtin(db, stat, msg)
@@ -495,6 +495,20 @@ contains
          'liquid rel_err is the method''s typical error')
     call check(warn >= 0 .and. iand(warn, MCD_WARN_TEMPERATURE) == 0, &
          'no temperature warning at 298.15 K')
+    ! the intermediates of the same estimate: D the same, pieces that
+    ! rebuild it by the Wilke-Chang formula above
+    xv = GUARD
+    call mcd_db_binary_explain(db, iben, iwat, MCD_METHOD_WILKE_CHANG, T, 1e5_c_double, &
+         mu, xv, stat, msg)
+    call check_stat(stat, msg, 'mcd_db_binary_explain Wilke-Chang')
+    call check(xv(MCD_EXPLAIN_D + 1) == Dliq, 'explain: D equals the estimate')
+    call check(xv(MCD_EXPLAIN_PHI + 1) == phi .and. xv(MCD_EXPLAIN_VB_A + 1) == Vb, &
+         'explain: phi and V_A of the database (1-based slot = C slot + 1)')
+    call mcd_typical_error_widened(MCD_METHOD_WILKE_CHANG, MCD_WARN_ASSOCIATING, err, &
+         stat, msg)
+    call check_stat(stat, msg, 'mcd_typical_error_widened')
+    call check(abs(err - MCD_WIDEN_MAJOR * mcd_method_typical_error(MCD_METHOD_WILKE_CHANG)) &
+         <= 0, 'widened error: one major warning doubles it')
     ! solvent and solute swapped: water's own Vb, benzene's factor (1.0)
     call mcd_db_binary_liquid(db, iwat, iben, T, mu, Dliq, stat, msg)
     call check_stat(stat, msg, 'water in benzene (optional outputs absent)')
@@ -747,6 +761,25 @@ contains
       ref = De * cc / a * log((b - a * xLs(1)) / (b - a * x0s(1))) / 1e-3_c_double
       call check(abs(Ns(1) - ref) <= 1e-8_c_double * abs(ref), 'slab = isobaric closed form')
     end block
+    ! slab with the flux ratios of 2 A -> B at the far face: N_B = -N_A / 2
+    ! exactly, and the profile of those fluxes ends at the matched x_A
+    block
+      real(c_double) :: Ns(2), x0s(2), xLs(2), zr(2), PLo, zL(1), xe(2, 1), Pe(1)
+      x0s = [0.9_c_double, 0.1_c_double]
+      xLs = [0.6_c_double, 0.4_c_double]
+      zr = [2.0_c_double, -1.0_c_double]
+      call mcd_slab_solve_ratios(ws, pore, 2, 300.0_c_double, 2e-5_c_double, 1e-3_c_double, &
+           1e5_c_double, M, Dij, x0s, 1e5_c_double, xLs, 1, zr, Ns, stat, msg, PL_out=PLo)
+      call check_stat(stat, msg, 'slab solve with ratios')
+      call check(abs(Ns(2) + 0.5_c_double * Ns(1)) <= 1e-15_c_double * abs(Ns(1)) &
+           .and. Ns(1) > 0, 'slab ratios: N_B = -N_A/2, A moves towards z = L')
+      zL(1) = 1e-3_c_double
+      call mcd_slab_profile(ws, pore, 2, 300.0_c_double, 2e-5_c_double, 1e-3_c_double, &
+           1e5_c_double, M, Dij, x0s, 1e5_c_double, Ns, 1, zL, xe, Pe, stat, msg)
+      call check_stat(stat, msg, 'slab profile with ratios')
+      call check(abs(xe(1, 1) - 0.6_c_double) <= 1e-8_c_double .and. &
+           abs(Pe(1) - PLo) <= 1e-8_c_double * PLo, 'slab ratios: profile ends at xL_A, PL')
+    end block
     pore%porosity = 1.5_c_double
     N = GUARD
     call mcd_dgm_fluxes(ws, pore, 2, 1, 300.0_c_double, 1e5_c_double, 2e-5_c_double, M, &
@@ -881,6 +914,15 @@ contains
     call mcd_binary_hayduk_minhas(T, 0.89e-3_c_double, 96e-6_c_double, Dhm, stat, msg)
     call check_stat(stat, msg, 'Hayduk-Minhas')
     call check(Dhm > 5e-10_c_double .and. Dhm < 2e-9_c_double, 'Hayduk-Minhas magnitude')
+    block
+      real(c_double) :: tlo, thi
+      integer :: w
+      call mcd_method_temperature_range(MCD_METHOD_HAYDUK_MINHAS, 400.0_c_double, tlo, thi, &
+           w, stat, msg)
+      call check_stat(stat, msg, 'correlation range')
+      call check(w == MCD_WARN_TEMPERATURE .and. tlo == 273.15_c_double .and. &
+           thi == 373.15_c_double, 'Hayduk-Minhas at 400 K flagged')
+    end block
     call mcd_free(ws)
     call check_liquid_evaporation()
   end subroutine check_liquid

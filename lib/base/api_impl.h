@@ -45,6 +45,8 @@
     X(binary_scale, (double D_ref, double T_ref, double P_ref, double T, double P, double exponent, double *out_D), (D_ref, T_ref, P_ref, T, P, exponent, out_D)) \
     X(db_binary_gas, (const mcd_db *db, size_t a, size_t b, mcd_gas_method method, double T, double P, double *out_D, double *out_rel_err, unsigned *out_warn), (db, a, b, method, T, P, out_D, out_rel_err, out_warn)) \
     X(db_binary_liquid, (const mcd_db *db, size_t solute, size_t solvent, double T, double mu_solvent, double *out_D, double *out_rel_err, unsigned *out_warn), (db, solute, solvent, T, mu_solvent, out_D, out_rel_err, out_warn)) \
+    X(typical_error_widened, (mcd_method m, unsigned warn, double *out_rel_err), (m, warn, out_rel_err)) \
+    X(db_binary_explain, (const mcd_db *db, size_t a, size_t b, mcd_method method, double T, double P, double mu_solvent, double *out_values), (db, a, b, method, T, P, mu_solvent, out_values)) \
     X(mixture_new, (const mcd_db *db, size_t n_species, const char *const *names, mcd_gas_method default_method, mcd_mixture **out_mix), (db, n_species, names, default_method, out_mix)) \
     X(mixture_molar_masses, (const mcd_mixture *mix, double *out_M), (mix, out_M)) \
     X(mixture_set_method, (mcd_mixture *mix, size_t i, size_t j, mcd_gas_method m), (mix, i, j, m)) \
@@ -92,6 +94,7 @@
     X(liquid_evaporation, (mcd_workspace *ws, const mcd_liquid *liq, const mcd_film *gas, double T, double P, const double *x_liq, const double *M, double rho_liquid, double *out_y0, double *out_N, double *out_mass_rate, double *out_level_rate, unsigned *out_warn), (ws, liq, gas, T, P, x_liq, M, rho_liquid, out_y0, out_N, out_mass_rate, out_level_rate, out_warn)) \
     X(binary_tyn_calus, (double T, double mu_solvent, double Vb_solute, double Vb_solvent, double *out_D), (T, mu_solvent, Vb_solute, Vb_solvent, out_D)) \
     X(binary_hayduk_minhas, (double T, double mu_water, double Vb_solute, double *out_D), (T, mu_water, Vb_solute, out_D)) \
+    X(method_temperature_range, (mcd_method method, double T, double *out_T_min, double *out_T_max, unsigned *out_warn), (method, T, out_T_min, out_T_max, out_warn)) \
     X(pore_permeability, (const mcd_pore *pore, double *out_B0), (pore, out_B0)) \
     X(pore_effective, (const mcd_pore *pore, double D, double *out_De), (pore, D, out_De)) \
     X(knudsen_diffusivity, (double T, double M, double d_pore, double *out_DK), (T, M, d_pore, out_DK)) \
@@ -101,6 +104,7 @@
     X(dgm_gradients, (mcd_workspace *ws, const mcd_pore *pore, const mcd_dgm *dgm, const double *N, double *out_grad_x, double *out_grad_P), (ws, pore, dgm, N, out_grad_x, out_grad_P)) \
     X(dgm_fluxes_batch, (mcd_workspace *ws, const mcd_pore *pore, size_t n_species, const double *M, const mcd_dgm_cells *cells, double *out_N), (ws, pore, n_species, M, cells, out_N)) \
     X(slab_solve, (mcd_workspace *ws, const mcd_pore *pore, const mcd_slab *slab, mcd_slab_kind kind, size_t species, double value, double *out_N, double *out_PL, size_t *out_iterations), (ws, pore, slab, kind, species, value, out_N, out_PL, out_iterations)) \
+    X(slab_solve_ratios, (mcd_workspace *ws, const mcd_pore *pore, const mcd_slab *slab, size_t species, const double *ratios, double *out_N, double *out_PL, size_t *out_iterations), (ws, pore, slab, species, ratios, out_N, out_PL, out_iterations)) \
     X(slab_profile, (mcd_workspace *ws, const mcd_pore *pore, const mcd_slab *slab, const double *N, size_t n_points, const double *z, double *out_x, double *out_P), (ws, pore, slab, N, n_points, z, out_x, out_P))
 /* clang-format on */
 

@@ -76,6 +76,8 @@ struct mcd_workspace {
     double iter_tol;
     double iter_err; /* outcome of the last ITERATIVE call */
     size_t iter_used;
+    int stage_cut; /* batched blocks stop after this stage (bench_stages
+                    * only; 0 = run all; see mcdi_bjob.cut) */
 };
 
 /* dgeev work array and its length (lwork for LAPACKE_dgeev_work). */

@@ -274,6 +274,7 @@ static void job_init(mcdi_bjob *jb, const mcd_workspace *ws, mcd_model model,
     jb->flux_basis = (int)fb;
     jb->max_iter = ws->iter_max;
     jb->tol = ws->iter_tol;
+    jb->cut = ws->stage_cut;
     jb->comp = cl->comp;
     jb->grad = cl->grad;
     jb->glnP = cl->grad_lnP;

@@ -39,6 +39,10 @@ typedef struct mcdi_bjob {
                                 * (kernels that can: v4; see batch.c) */
     size_t max_iter;
     double tol;
+    int cut; /* stage profile (tests/bench_stages.c): a block returns after
+              * its stage number `cut` without writing outputs; 0 = run all
+              * (copied from the workspace's stage_cut, never set by a
+              * public call) */
 } mcdi_bjob;
 
 /* Outcome of one block. */

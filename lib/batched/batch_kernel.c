@@ -123,6 +123,14 @@ static void report_bad_cell(mcdi_bres *res)
 /* the block body, instantiated for constant n and L                    */
 /* ------------------------------------------------------------------ */
 
+/* Stage profile (tests/bench_stages.c): return after stage k when the
+ * job asks for it; one predictable branch per stage and block. */
+#define CUT(k)                                                                 \
+    do {                                                                       \
+        if (__builtin_expect(jb->cut == (k), 0))                               \
+            return;                                                            \
+    } while (0)
+
 KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
                   mcdi_bres *res, const size_t n, const size_t L,
                   const size_t nd)
@@ -138,19 +146,28 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
     mcdi_kblock b;
     size_t i;
 
+    /* lanes whose inputs break a rule (the loading stages OR 1 in); the
+     * stages in between compute on every lane (IEEE arithmetic, no traps)
+     * and a flagged block is reported before anything is stored */
+    long long bl[MCDI_LANES] = {0};
+
     mcdi_kblock_carve(mem, n, nd, L, &b);
     res->st = MCD_OK;
-    if ((stage_load_scalars(jb, &b, k0, nv, L) |
-         stage_load_comp(jb, &b, k0, nv, n, L)) != 0) {
-        report_bad_cell(res);
-        return;
-    }
+    stage_load_scalars(jb, &b, bl, k0, nv, L);
+    stage_load_comp(jb, &b, bl, k0, nv, n, L);
+    CUT(1);
     stage_fractions(jb, &b, n, L);
-    if (stage_load_forces(jb, &b, k0, nv, n, L, nd)) {
+    CUT(2);
+    stage_load_forces(jb, &b, bl, k0, nv, n, L, nd);
+    CUT(3);
+    stage_forces(jb, &b, n, L, nd);
+    CUT(4);
+    if (jb->mix == NULL && n > 1)
+        stage_invdiff_dij(jb, &b, bl, k0, nv, n, L);
+    if (lanes_any(bl, L)) {
         report_bad_cell(res);
         return;
     }
-    stage_forces(jb, &b, n, L, nd);
     if (n == 1) {
         /* a single species does not diffuse */
         for (i = 0; i < nd * L; i++)
@@ -158,21 +175,19 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
         stage_store(jb, &b, k0, nv, res, n, L, nd);
         return;
     }
-    if (jb->mix == NULL) {
-        if (stage_invdiff_dij(jb, &b, k0, nv, n, L)) {
-            report_bad_cell(res);
-            return;
-        }
-    } else {
+    if (jb->mix != NULL)
         stage_invdiff_mixture(jb, &b, pl, n, L);
-    }
+    CUT(5);
     stage_blanc(jb, &b, pl, n, L);
+    CUT(6);
 
     if (jb->model == MCD_MODEL_MIXTURE_AVERAGED) {
         stage_mixavg(&b, n, L, nd);
     } else {
         const int ntr = stage_trace(jb, &b, pl, n, L, nd);
+        CUT(7);
         stage_rhs(&b, n, L, nd);
+        CUT(8);
         if (jb->model == MCD_MODEL_MAXWELL_STEFAN) {
             if (!stage_exact(&b, n, L, nd)) {
                 report_not_definite(b.Dg, nv, res, n, L);
@@ -181,6 +196,7 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
         } else {
             stage_iterate(jb, &b, pl, nv, res, n, L, nd);
         }
+        CUT(9);
         if (L == MCDI_VLANES && nv == L && !mass_out) {
             /* full block, mole basis: compose, clean up and store at once
              * (a flux not finite: J holds them all, stage_store reports) */

@@ -18,55 +18,64 @@ KINLINE mcdi_rows rows_of(const mcdi_kblock *b)
     return R;
 }
 
+/* The loading stages flag a lane whose input breaks a rule by OR-ing 1
+ * into bl[l] (a lane vector of flags: no reduction per row); the body
+ * tests the flags once, after the last loading stage (lanes_any). */
+KINLINE int lanes_any(const long long *restrict bl, const size_t L)
+{
+    long long any = 0;
+    size_t l;
+    for (l = 0; l < L; l++)
+        any |= bl[l];
+    return any != 0;
+}
+
 /* Per-cell scalars: c, or T and P (and c = P / (R T)) of a mixture call. */
-KINLINE int stage_load_scalars(const mcdi_bjob *jb, const mcdi_kblock *b,
-                               size_t k0, size_t nv, const size_t L)
+KINLINE void stage_load_scalars(const mcdi_bjob *jb, const mcdi_kblock *b,
+                                long long *restrict bl, size_t k0, size_t nv,
+                                const size_t L)
 {
     double *restrict c = b->c;
-    int bad = 0;
     size_t l;
     if (jb->mix != NULL) {
         double *restrict Tl = b->T, *restrict Pl = b->P;
         load_row(Tl, jb->T + k0, nv, L);
         load_row(Pl, jb->P + k0, nv, L);
-        for_lanes_bad (l) {
-            bad |= !((Tl[l] > 0.0) & (Tl[l] <= DBL_MAX));
-            bad |= !((Pl[l] > 0.0) & (Pl[l] <= DBL_MAX));
+        for_lanes (l) {
+            bl[l] |= !((Tl[l] > 0.0) & (Tl[l] <= DBL_MAX));
+            bl[l] |= !((Pl[l] > 0.0) & (Pl[l] <= DBL_MAX));
             c[l] = Pl[l] / (RGAS * Tl[l]);
-            bad |= !(c[l] >= DBL_MIN); /* a normal c, as single-state */
+            bl[l] |= !(c[l] >= DBL_MIN); /* a normal c, as single-state */
         }
     } else {
         load_row(c, jb->c + k0, nv, L);
-        for_lanes_bad (l)
-            bad |= !((c[l] >= DBL_MIN) &
-                     (c[l] <= DBL_MAX)); /* normal c, as single-state */
+        for_lanes (l)
+            bl[l] |= !((c[l] >= DBL_MIN) &
+                       (c[l] <= DBL_MAX)); /* normal c, as single-state */
     }
-    return bad;
 }
 
 /* The composition rows (into x or w) and their sums. */
-KINLINE int stage_load_comp(const mcdi_bjob *jb, const mcdi_kblock *b,
-                            size_t k0, size_t nv, const size_t n,
-                            const size_t L)
+KINLINE void stage_load_comp(const mcdi_bjob *jb, const mcdi_kblock *b,
+                             long long *restrict bl, size_t k0, size_t nv,
+                             const size_t n, const size_t L)
 {
     const size_t K = jb->K;
     double *restrict sum = b->sum;
     double *restrict y = jb->comp_basis == MCD_BASIS_MASS ? b->w : b->x;
-    int bad = 0;
     size_t i, l;
     for_lanes (l)
         sum[l] = 0.0;
     for (i = 0; i < n; i++) {
         load_row(y + i * L, jb->comp + i * K + k0, nv, L);
-        for_lanes_bad (l) {
+        for_lanes (l) {
             double q = y[i * L + l];
-            bad |= !((q >= 0.0) & (q <= DBL_MAX));
+            bl[l] |= !((q >= 0.0) & (q <= DBL_MAX));
             sum[l] += q;
         }
     }
-    for_lanes_bad (l)
-        bad |= !(fabs(sum[l] - 1.0) <= MCD_SUM_TOL);
-    return bad;
+    for_lanes (l)
+        bl[l] |= !(fabs(sum[l] - 1.0) <= MCD_SUM_TOL);
 }
 
 /* Fractions scaled to sum 1, and the other basis (w needs M). */
@@ -90,39 +99,37 @@ KINLINE void stage_fractions(const mcdi_bjob *jb, const mcdi_kblock *b,
 
 /* The gradients (into d), grad ln P (into v) and the thermal diffusion
  * ratios and grad ln T (into kT, gT). */
-KINLINE int stage_load_forces(const mcdi_bjob *jb, const mcdi_kblock *b,
-                              size_t k0, size_t nv, const size_t n,
-                              const size_t L, const size_t nd)
+KINLINE void stage_load_forces(const mcdi_bjob *jb, const mcdi_kblock *b,
+                               long long *restrict bl, size_t k0, size_t nv,
+                               const size_t n, const size_t L, const size_t nd)
 {
     const size_t K = jb->K;
     double *restrict d = b->d, *restrict v = b->v;
-    int bad = 0;
     size_t i, dd, l;
     for (i = 0; i < n * nd; i++) {
         load_row(d + i * L, jb->grad + i * K + k0, nv, L);
-        for_lanes_bad (l)
-            bad |= !(fabs(d[i * L + l]) <= DBL_MAX);
+        for_lanes (l)
+            bl[l] |= !(fabs(d[i * L + l]) <= DBL_MAX);
     }
     if (jb->glnP != NULL) {
         for (dd = 0; dd < nd; dd++) {
             load_row(v + dd * L, jb->glnP + dd * K + k0, nv, L);
-            for_lanes_bad (l)
-                bad |= !(fabs(v[dd * L + l]) <= DBL_MAX);
+            for_lanes (l)
+                bl[l] |= !(fabs(v[dd * L + l]) <= DBL_MAX);
         }
     }
     if (jb->kT != NULL) {
         for (i = 0; i < n; i++) {
             load_row(b->kT + i * L, jb->kT + i * K + k0, nv, L);
-            for_lanes_bad (l)
-                bad |= !(fabs(b->kT[i * L + l]) <= DBL_MAX);
+            for_lanes (l)
+                bl[l] |= !(fabs(b->kT[i * L + l]) <= DBL_MAX);
         }
         for (dd = 0; dd < nd; dd++) {
             load_row(b->gT + dd * L, jb->glnT + dd * K + k0, nv, L);
-            for_lanes_bad (l)
-                bad |= !(fabs(b->gT[dd * L + l]) <= DBL_MAX);
+            for_lanes (l)
+                bl[l] |= !(fabs(b->gT[dd * L + l]) <= DBL_MAX);
         }
     }
-    return bad;
 }
 
 /* Driving forces (flux/stages.h, shared with the single-state call): the
@@ -140,13 +147,12 @@ KINLINE void stage_forces(const mcdi_bjob *jb, const mcdi_kblock *b,
 
 /* Inverse binary diffusivities (packed lower, i > j) from the caller's
  * per-cell Dij: both triangles checked (normal, finite, symmetric). */
-KINLINE int stage_invdiff_dij(const mcdi_bjob *jb, const mcdi_kblock *b,
-                              size_t k0, size_t nv, const size_t n,
-                              const size_t L)
+KINLINE void stage_invdiff_dij(const mcdi_bjob *jb, const mcdi_kblock *b,
+                               long long *restrict bl, size_t k0, size_t nv,
+                               const size_t n, const size_t L)
 {
     const size_t K = jb->K;
     double *restrict wk = b->wk;
-    int bad = 0;
     size_t i, j, l;
     for (i = 1; i < n; i++)
         for (j = 0; j < i; j++) {
@@ -155,15 +161,14 @@ KINLINE int stage_invdiff_dij(const mcdi_bjob *jb, const mcdi_kblock *b,
             const double *lo = jb->Dij + (i * n + j) * K + k0;
             load_row(q, up, nv, L);
             load_row(wk, lo, nv, L);
-            for_lanes_bad (l) {
+            for_lanes (l) {
                 double a = q[l], bb = wk[l], m = a > bb ? a : bb;
-                bad |= !((a >= DBL_MIN) & (a <= DBL_MAX));
-                bad |= !((bb >= DBL_MIN) & (bb <= DBL_MAX));
-                bad |= !(fabs(a - bb) <= 1e-12 * m);
+                bl[l] |= !((a >= DBL_MIN) & (a <= DBL_MAX));
+                bl[l] |= !((bb >= DBL_MIN) & (bb <= DBL_MAX));
+                bl[l] |= !(fabs(a - bb) <= 1e-12 * m);
                 q[l] = 1.0 / a;
             }
         }
-    return bad;
 }
 
 /* Temperature factors of a mixture call: P / T^1.75 (FSG and user pairs),

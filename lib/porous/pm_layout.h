@@ -31,11 +31,12 @@
     /* slab: Dij at the local pressure, end compositions (given, aimed   */ \
     /* at by the continuation), mean state,                             */ \
     /* states (n fractions + P), Runge-Kutta stages, Newton fluxes,     */ \
-    /* trial and previous fluxes, step, residuals, Jacobian             */ \
+    /* trial and previous fluxes, step, residuals, Jacobian, the fluxes */ \
+    /* z N_t of given ratios                                             */ \
     R(sD, n * n) R(x0n, n) R(xLn, n) R(xLt, n) R(xm, n) R(gm, n)                     \
     R(y0, n + 1) R(yL, n + 1) R(yt, n + 1) R(k1, n + 1) R(k2, n + 1)        \
     R(k3, n + 1) R(k4, n + 1) R(N, n) R(Nt, n) R(Nprev, n) R(dN, n)         \
-    R(r, n) R(rt, n) R(J, n * n)
+    R(r, n) R(rt, n) R(J, n * n) R(Nz, n)
 /* clang-format on */
 
 /* mcdi_pm, mcdi_pm_doubles(cap, 0, 1), mcdi_pm_carve(mem, cap, 0, 1, &pm) */

@@ -15,6 +15,12 @@
  *   STAGNANT:  N_k = 0 for the named species (P(L) is then a result);
  *   TOTAL:     sum_i N_i = N_t (P(L) is a result).
  * (sum_i x_i(L) = 1 holds by construction, so N - 1 compositions suffice.)
+ * With given flux ratios (mcd_slab_solve_ratios: N_i = z_i N_t, as a
+ * reaction's stoichiometry fixes them at a catalyst surface) N_t is the
+ * one unknown and the residual is x_s(L) - xL_s of the named species s
+ * alone; the other far-end fractions and P(L) are results (the open
+ * film's RATIOS bootstrap, film.c). Its start: the inverse model at the
+ * mean composition gives grad x_s = a N_t, so N_t = (xL_s - x0_s)/(a L).
  *
  * Method: the ODE is integrated by the classical fourth-order Runge-Kutta
  * method with m equal steps (a smooth residual in N), and Newton's method
@@ -42,6 +48,18 @@
 #define SLAB_NEWTON 60   /* Newton iterations per step count */
 #define SLAB_TOL 1e-12   /* residual (mole fractions) */
 #define SLAB_REFINE 1e-10
+
+/* The condition that completes a slab problem. For RATIOS (z != NULL)
+ * the one unknown is N_t, held in N[0] (the other entries stay 0), the
+ * fluxes are z N_t and the residual is x_s(L) - xL_s alone. */
+typedef struct slab_prob {
+    mcd_slab_kind kind; /* PRESSURES, STAGNANT, TOTAL (z == NULL) */
+    size_t species;     /* STAGNANT: the still species; RATIOS: matched */
+    double value;       /* TOTAL: sum_i N_i */
+    double scale;       /* flux scale of the bootstrap condition */
+    const double *z;    /* RATIOS: N_i = z_i N_t; else NULL */
+    size_t nu;          /* unknowns: n, or 1 (RATIOS) */
+} slab_prob;
 
 /* Context of one slab problem. */
 typedef struct slab_ctx {
@@ -116,30 +134,39 @@ static mcd_status slab_integrate(slab_ctx *c, const double *y0, double len,
     return MCD_OK;
 }
 
-/* Residual r(N) (n entries) with m steps; scale: flux scale of the
- * bootstrap condition. */
-static mcd_status slab_residual(slab_ctx *c, mcd_slab_kind kind, size_t species,
-                                double value, double scale, size_t m,
-                                const double *N, double *r)
+/* Residual r(u) (p->nu entries) with m steps for the unknowns u: the
+ * fluxes, or N_t (RATIOS). */
+static mcd_status slab_residual(slab_ctx *c, const slab_prob *p, size_t m,
+                                const double *u, double *r)
 {
     size_t n = c->n, i;
     double *y = c->pm.yL;
+    const double *N = u;
     mcd_status st;
+    if (p->z != NULL) {
+        for (i = 0; i < n; i++)
+            c->pm.Nz[i] = p->z[i] * u[0];
+        N = c->pm.Nz;
+    }
     c->pm.y0[n] = c->sl->P0;
     memcpy(c->pm.y0, c->pm.x0n, n * sizeof *y);
     if ((st = slab_integrate(c, c->pm.y0, c->sl->L, m, N, y)) != MCD_OK)
         return st;
+    if (p->z != NULL) {
+        r[0] = y[p->species] - c->pm.xLt[p->species];
+        return MCD_OK;
+    }
     for (i = 0; i + 1 < n; i++)
         r[i] = y[i] - c->pm.xLt[i];
-    if (kind == MCD_SLAB_PRESSURES)
+    if (p->kind == MCD_SLAB_PRESSURES)
         r[n - 1] = (y[n] - c->PLt) / c->PLt;
-    else if (kind == MCD_SLAB_STAGNANT)
-        r[n - 1] = N[species] / scale;
+    else if (p->kind == MCD_SLAB_STAGNANT)
+        r[n - 1] = N[p->species] / p->scale;
     else {
         double t = 0.0;
         for (i = 0; i < n; i++)
             t += N[i];
-        r[n - 1] = (t - value) / scale;
+        r[n - 1] = (t - p->value) / p->scale;
     }
     return MCD_OK;
 }
@@ -195,10 +222,11 @@ static double max_abs(size_t n, const double *v)
 }
 
 /* Newton on N (pm.N, updated in place) with m steps. */
-static mcd_status slab_newton(slab_ctx *c, mcd_slab_kind kind, size_t species,
-                              double value, double scale, size_t m, size_t *its)
+static mcd_status slab_newton(slab_ctx *c, const slab_prob *p, size_t m,
+                              size_t *its)
 {
-    size_t n = c->n, it, i, j;
+    size_t n = p->nu, it, i, j;
+    double scale = p->scale;
     double *N = c->pm.N, *r = c->pm.r, *rt = c->pm.rt, *J = c->pm.J,
            *Nt = c->pm.Nt, *d = c->pm.dN;
     mcd_status st;
@@ -206,16 +234,14 @@ static mcd_status slab_newton(slab_ctx *c, mcd_slab_kind kind, size_t species,
     /* a start whose profile leaves the domain (a pressure going negative:
      * strongly non-linear slabs) is pulled towards N = 0, where the
      * profile is constant, until it stays inside */
-    while ((st = slab_residual(c, kind, species, value, scale, m, N, r)) !=
-           MCD_OK) {
+    while ((st = slab_residual(c, p, m, N, r)) != MCD_OK) {
         if (st != MCD_EDOM || ++shrink > 60)
             return st;
         mcdi_err_clear();
         for (i = 0; i < n; i++)
             N[i] *= 0.5;
         /* and once more, away from the edge of the domain */
-        if ((st = slab_residual(c, kind, species, value, scale, m, N, r)) ==
-            MCD_OK) {
+        if ((st = slab_residual(c, p, m, N, r)) == MCD_OK) {
             for (i = 0; i < n; i++)
                 N[i] *= 0.5;
         }
@@ -232,14 +258,12 @@ static mcd_status slab_newton(slab_ctx *c, mcd_slab_kind kind, size_t species,
                 1e-7 * fmax(fmax(fabs(N[j]), max_abs(n, N)), 1e-9 * scale);
             memcpy(Nt, N, n * sizeof *N);
             Nt[j] += h;
-            if (slab_residual(c, kind, species, value, scale, m, Nt, rt) !=
-                MCD_OK) {
+            if (slab_residual(c, p, m, Nt, rt) != MCD_OK) {
                 /* at the edge of the domain: the backward difference */
                 mcdi_err_clear();
                 h = -h;
                 Nt[j] = N[j] + h;
-                if ((st = slab_residual(c, kind, species, value, scale, m, Nt,
-                                        rt)) != MCD_OK)
+                if ((st = slab_residual(c, p, m, Nt, rt)) != MCD_OK)
                     return st;
             }
             for (i = 0; i < n; i++)
@@ -252,7 +276,7 @@ static mcd_status slab_newton(slab_ctx *c, mcd_slab_kind kind, size_t species,
         for (;;) {
             for (i = 0; i < n; i++)
                 Nt[i] = N[i] + lam * d[i];
-            st = slab_residual(c, kind, species, value, scale, m, Nt, rt);
+            st = slab_residual(c, p, m, Nt, rt);
             if (st == MCD_OK && max_abs(n, rt) < rn)
                 break;
             mcdi_err_clear();
@@ -312,19 +336,34 @@ static mcd_status slab_check(mcd_workspace *ws, const mcd_pore *pore,
     return MCD_OK;
 }
 
-/* The linearized start (pm.N) and the flux scale: the single-state
- * fluxes at the mean state with the mean gradients, the pressure gradient
- * given (PRESSURES) or chosen to meet the bootstrap. */
+/* The linearized start for RATIOS (pm.N[0] = N_t, the rest 0): the
+ * inverse model at the mean composition and P0 gives grad x_s = a N_t for
+ * the fluxes z N_t, and N_t = (xL_s - x0_s) / (a L). */
+static void slab_start_ratios(slab_ctx *c, mcd_dgm *g, const slab_prob *p)
+{
+    size_t n = c->n, s = p->species;
+    double gP, a;
+    mcdi_dgm_prepare(g, &c->e, 0, &c->pm);
+    mcdi_dgm_grad1(g, &c->pm, p->z, c->pm.k1, &gP);
+    a = c->pm.k1[s];
+    memset(c->pm.N, 0, n * sizeof *c->pm.N);
+    c->pm.N[0] = a != 0.0 ? c->pm.gm[s] / a : 0.0;
+    if (!mcdi_finite(c->pm.N[0]))
+        c->pm.N[0] = 0.0;
+}
+
+/* The linearized start (pm.N) and the flux scale p->scale: the
+ * single-state fluxes at the mean state with the mean gradients, the
+ * pressure gradient given (PRESSURES) or chosen to meet the bootstrap. */
 static mcd_status slab_start(mcd_workspace *ws, const mcd_pore *pore,
-                             slab_ctx *c, mcd_slab_kind kind, size_t species,
-                             double value, double *scale)
+                             slab_ctx *c, slab_prob *p)
 {
     const mcd_slab *sl = c->sl;
     size_t n = c->n, i;
     double Pm = sl->P0, gP = 0.0, Dmax = 0.0, Nt, *N = c->pm.N;
     mcd_dgm g;
     mcd_status st;
-    if (kind == MCD_SLAB_PRESSURES) {
+    if (p->z == NULL && p->kind == MCD_SLAB_PRESSURES) {
         Pm = 0.5 * (sl->P0 + sl->PL);
         gP = (sl->PL - sl->P0) / sl->L;
     }
@@ -338,7 +377,7 @@ static mcd_status slab_start(mcd_workspace *ws, const mcd_pore *pore,
     }
     if (n == 1)
         Dmax = c->e.f * mcdi_knudsen(sl->T, sl->M[0], c->e.d);
-    *scale = Pm / (MCD_GAS_CONSTANT * sl->T) * c->e.f * Dmax / sl->L;
+    p->scale = Pm / (MCD_GAS_CONSTANT * sl->T) * c->e.f * Dmax / sl->L;
     g = (mcd_dgm){.n_species = n,
                   .n_dim = 1,
                   .T = sl->T,
@@ -349,20 +388,24 @@ static mcd_status slab_start(mcd_workspace *ws, const mcd_pore *pore,
                   .x = c->pm.xm,
                   .grad_x = c->pm.gm,
                   .grad_P = &gP};
-    if (kind == MCD_SLAB_PRESSURES)
+    if (p->z != NULL) {
+        slab_start_ratios(c, &g, p);
+        return MCD_OK;
+    }
+    if (p->kind == MCD_SLAB_PRESSURES)
         return mcdi_api_dgm_fluxes(ws, pore, &g, N);
-    if (kind == MCD_SLAB_TOTAL)
-        return mcdi_api_dgm_closed(ws, pore, &g, &value, N, &gP);
+    if (p->kind == MCD_SLAB_TOTAL)
+        return mcdi_api_dgm_closed(ws, pore, &g, &p->value, N, &gP);
     /* STAGNANT: N is affine in N_t; two closed-end solutions fix the
      * N_t that stops the species */
     Nt = 0.0;
     if ((st = mcdi_api_dgm_closed(ws, pore, &g, &Nt, c->pm.Nt, &gP)) !=
             MCD_OK ||
-        (st = mcdi_api_dgm_closed(ws, pore, &g, scale, N, &gP)) != MCD_OK)
+        (st = mcdi_api_dgm_closed(ws, pore, &g, &p->scale, N, &gP)) != MCD_OK)
         return st;
     {
-        double a = c->pm.Nt[species], b = N[species] - a;
-        Nt = b != 0.0 ? -a * *scale / b : 0.0;
+        double a0 = c->pm.Nt[p->species], b = N[p->species] - a0;
+        Nt = b != 0.0 ? -a0 * p->scale / b : 0.0;
     }
     return mcdi_api_dgm_closed(ws, pore, &g, &Nt, N, &gP);
 }
@@ -380,8 +423,7 @@ static void slab_target(slab_ctx *c, double t)
  * whose fraction changes several-fold), continuation: the far end moves
  * from the near end to the real one in up to 64 steps, each Newton solve
  * starting from the last, the step halved on failure. */
-static mcd_status slab_continuation(slab_ctx *c, mcd_slab_kind kind,
-                                    size_t species, double value, double scale,
+static mcd_status slab_continuation(slab_ctx *c, const slab_prob *p,
                                     size_t *its)
 {
     size_t n = c->n;
@@ -389,7 +431,7 @@ static mcd_status slab_continuation(slab_ctx *c, mcd_slab_kind kind,
     mcd_status st;
     slab_target(c, 1.0);
     memcpy(c->pm.Nprev, c->pm.N, n * sizeof *c->pm.N);
-    if (slab_newton(c, kind, species, value, scale, SLAB_M0, its) == MCD_OK)
+    if (slab_newton(c, p, SLAB_M0, its) == MCD_OK)
         return MCD_OK;
     mcdi_err_clear();
     memcpy(c->pm.N, c->pm.Nprev, n * sizeof *c->pm.N);
@@ -397,7 +439,7 @@ static mcd_status slab_continuation(slab_ctx *c, mcd_slab_kind kind,
         double tn = fmin(1.0, t + dt);
         slab_target(c, tn);
         memcpy(c->pm.Nprev, c->pm.N, n * sizeof *c->pm.N);
-        st = slab_newton(c, kind, species, value, scale, SLAB_M0, its);
+        st = slab_newton(c, p, SLAB_M0, its);
         if (st == MCD_OK) {
             t = tn;
             dt = fmin(2.0 * dt, 0.25);
@@ -412,20 +454,59 @@ static mcd_status slab_continuation(slab_ctx *c, mcd_slab_kind kind,
     return MCD_OK;
 }
 
+/* Start, continuation and step-count refinement of a checked problem;
+ * the fluxes to out_N (z N_t for RATIOS), the far pressure and the
+ * iteration count to the optional outputs. */
+static mcd_status slab_run(mcd_workspace *ws, const mcd_pore *pore, slab_ctx *c,
+                           slab_prob *p, double *out_N, double *out_PL,
+                           size_t *out_iterations)
+{
+    mcd_status st;
+    size_t n = c->n, m, its = 0, i;
+    if ((st = slab_start(ws, pore, c, p)) != MCD_OK ||
+        (st = slab_continuation(c, p, &its)) != MCD_OK)
+        return st;
+    for (m = SLAB_M0;; m *= 2) {
+        memcpy(c->pm.Nprev, c->pm.N, n * sizeof *c->pm.N);
+        if ((st = slab_newton(c, p, m, &its)) != MCD_OK)
+            return st;
+        if (m > SLAB_M0) {
+            double dmax = 0.0;
+            for (i = 0; i < n; i++)
+                dmax = fmax(dmax, fabs(c->pm.N[i] - c->pm.Nprev[i]));
+            if (dmax <= SLAB_REFINE * fmax(max_abs(n, c->pm.N), p->scale))
+                break;
+        }
+        if (m >= SLAB_M_MAX)
+            return mcdi_fail(MCD_ENOCONV,
+                             "slab: fluxes still change with %zu steps "
+                             "(profile too steep)",
+                             m);
+    }
+    for (i = 0; i < n; i++)
+        out_N[i] = p->z != NULL ? p->z[i] * c->pm.N[0] : c->pm.N[i];
+    if (out_PL != NULL)
+        *out_PL = c->pm.yL[n];
+    if (out_iterations != NULL)
+        *out_iterations = its;
+    return MCD_OK;
+}
+
 mcd_status mcdi_api_slab_solve(mcd_workspace *ws, const mcd_pore *pore,
                                const mcd_slab *slab, mcd_slab_kind kind,
                                size_t species, double value, double *out_N,
                                double *out_PL, size_t *out_iterations)
 {
     slab_ctx c;
+    slab_prob p = {.kind = kind, .species = species, .value = value};
     mcd_status st;
-    size_t n, m, its = 0, i;
-    double scale;
+    size_t n;
     if ((st = slab_check(ws, pore, slab, 1, kind == MCD_SLAB_PRESSURES, &c)) !=
             MCD_OK ||
         (st = mcdi_check_ptr(ws, out_N, "out_N")) != MCD_OK)
         return st;
     n = c.n;
+    p.nu = n;
     if (kind != MCD_SLAB_PRESSURES && kind != MCD_SLAB_STAGNANT &&
         kind != MCD_SLAB_TOTAL)
         return mcdi_fail(MCD_EINVAL, "argument kind: unknown value %d",
@@ -437,35 +518,41 @@ mcd_status mcdi_api_slab_solve(mcd_workspace *ws, const mcd_pore *pore,
                          species, n - 1);
     if (kind == MCD_SLAB_TOTAL && !mcdi_finite(value))
         return mcdi_fail(MCD_EINVAL, "argument value: not finite");
-    if ((st = slab_start(ws, pore, &c, kind, species, value, &scale)) != MCD_OK)
-        return st;
-    if ((st = slab_continuation(&c, kind, species, value, scale, &its)) !=
-        MCD_OK)
-        return st;
-    for (m = SLAB_M0;; m *= 2) {
-        memcpy(c.pm.Nprev, c.pm.N, n * sizeof *c.pm.N);
-        if ((st = slab_newton(&c, kind, species, value, scale, m, &its)) !=
+    return slab_run(ws, pore, &c, &p, out_N, out_PL, out_iterations);
+}
+
+mcd_status mcdi_api_slab_solve_ratios(mcd_workspace *ws, const mcd_pore *pore,
+                                      const mcd_slab *slab, size_t species,
+                                      const double *ratios, double *out_N,
+                                      double *out_PL, size_t *out_iterations)
+{
+    slab_ctx c;
+    slab_prob p = {
+        .kind = MCD_SLAB_TOTAL, .species = species, .z = ratios, .nu = 1};
+    mcd_status st;
+    size_t n, i;
+    double sum = 0.0;
+    if ((st = slab_check(ws, pore, slab, 1, 0, &c)) != MCD_OK ||
+        (st = MCDI_CHECK_PTRS2(ratios, out_N)) != MCD_OK ||
+        (st = mcdi_check_finite_vec(ws, slab->n_species, ratios, "ratios")) !=
             MCD_OK)
-            return st;
-        if (m > SLAB_M0) {
-            double dmax = 0.0;
-            for (i = 0; i < n; i++)
-                dmax = fmax(dmax, fabs(c.pm.N[i] - c.pm.Nprev[i]));
-            if (dmax <= SLAB_REFINE * fmax(max_abs(n, c.pm.N), scale))
-                break;
-        }
-        if (m >= SLAB_M_MAX)
-            return mcdi_fail(MCD_ENOCONV,
-                             "slab: fluxes still change with %zu steps "
-                             "(profile too steep)",
-                             m);
-    }
-    memcpy(out_N, c.pm.N, n * sizeof *out_N);
-    if (out_PL != NULL)
-        *out_PL = c.pm.yL[n];
-    if (out_iterations != NULL)
-        *out_iterations = its;
-    return MCD_OK;
+        return st;
+    n = c.n;
+    if (species >= n)
+        return mcdi_fail(MCD_EINVAL,
+                         "argument species: %zu is not a species index "
+                         "(0..%zu)",
+                         species, n - 1);
+    for (i = 0; i < n; i++)
+        sum += ratios[i];
+    if (!(fabs(sum - 1.0) <= MCD_SUM_TOL))
+        return mcdi_fail(MCD_EDOM, "argument ratios: sum to %g, not 1", sum);
+    if (ratios[species] == 0.0 && c.pm.x0n[species] == 0.0)
+        return mcdi_fail(MCD_EDOM,
+                         "argument species: %zu is absent at z = 0 and its "
+                         "ratio is 0 (it never appears): N_t undetermined",
+                         species);
+    return slab_run(ws, pore, &c, &p, out_N, out_PL, out_iterations);
 }
 
 mcd_status mcdi_api_slab_profile(mcd_workspace *ws, const mcd_pore *pore,

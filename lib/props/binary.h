@@ -49,6 +49,12 @@ mcd_status mcdi_pair_coef(const mcdi_spec *a, const mcdi_spec *b, mcd_method m,
                           double *out_coef, double *out_eps_ab,
                           int *out_estimated);
 
+/* Lennard-Jones sigma [m] and eps/k [K] of one species for method m:
+ * tabulated, or estimated from Vb and Tb (then *estimated is set to 1).
+ * Fails: ENODATA (the detail names the species). Allocates: no. */
+mcd_status mcdi_lj_params(const mcdi_spec *s, mcd_method m, double *sig,
+                          double *eps, int *estimated);
+
 /* Pair coefficients from raw parameters (inputs assumed validated). */
 double mcdi_fsg_coef(double MA, double MB, double VA, double VB);
 double mcdi_ce_coef(double MA, double MB, double sigA, double sigB);

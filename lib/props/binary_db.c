@@ -157,8 +157,8 @@ static mcd_status missing(const mcdi_spec *s, const char *what, mcd_method m)
 
 /* Lennard-Jones parameters of one species, tabulated or estimated from the
  * boiling point (Wilke-Lee rules) for method m. Fails: ENODATA. */
-static mcd_status lj_params(const mcdi_spec *s, mcd_method m, double *sig,
-                            double *eps, int *estimated)
+mcd_status mcdi_lj_params(const mcdi_spec *s, mcd_method m, double *sig,
+                          double *eps, int *estimated)
 {
     if (has(s, MCD_PARAM_LJ_SIGMA) && s->p[MCD_PARAM_LJ_SIGMA] > 0) {
         *sig = s->p[MCD_PARAM_LJ_SIGMA];
@@ -208,9 +208,9 @@ mcd_status mcdi_pair_coef(const mcdi_spec *a, const mcdi_spec *b, mcd_method m,
         *out_estimated = 0;
         return MCD_OK;
     }
-    if ((st = lj_params(a, m, &sa, &ea, &est)) != MCD_OK)
+    if ((st = mcdi_lj_params(a, m, &sa, &ea, &est)) != MCD_OK)
         return st;
-    if ((st = lj_params(b, m, &sb, &eb, &est)) != MCD_OK)
+    if ((st = mcdi_lj_params(b, m, &sb, &eb, &est)) != MCD_OK)
         return st;
     if (m == MCD_METHOD_CHAPMAN_ENSKOG)
         *out_coef = mcdi_ce_coef(a->p[MCD_PARAM_MOLAR_MASS],
@@ -391,11 +391,11 @@ mcd_status mcdi_api_db_binary_liquid(const mcd_db *db, size_t solute,
         w |= MCD_WARN_TEMPERATURE;
     /* Wilke-Chang is least reliable for associating solutes (e.g. water or
      * alcohols in organic solvents); an associating solvent is covered by
-     * its association factor. */
+     * its association factor. MCD_WARN_POLAR is a gas-model warning (the
+     * Lennard-Jones or diffusion-volume picture of a polar molecule) and is
+     * not set here: polar solutes are part of Wilke and Chang's data. */
     if (sa.cls & MCDI_CLS_ASSOC)
         w |= MCD_WARN_ASSOCIATING;
-    if (has(&sa, MCD_PARAM_DIPOLE) && sa.p[MCD_PARAM_DIPOLE] > MCDI_DEBYE)
-        w |= MCD_WARN_POLAR;
     *out_D = D;
     if (out_rel_err != NULL)
         *out_rel_err = mcd_method_typical_error(MCD_METHOD_WILKE_CHANG);

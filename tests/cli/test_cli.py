@@ -62,7 +62,7 @@ class Help(unittest.TestCase):
                  "matrix": ["[1/m]", "K or C", "atm", "m^2/s"],
                  "film": ["mol/(m^2 s)", "K or C", "atm", "m, cm or",
                           "z_m"],
-                 "bulbs": ["m3, L", "s, min or h", "cm2", "K or C", "atm",
+                 "bulbs": ["m3, L", "s, min, h or d", "cm2", "K or C", "atm",
                            "t_s"],
                  "porous": ["[1/m]", "K or C", "atm", "mol/(m^2 s)", "nm",
                             "m^2", "Pa/m", "cP"],
@@ -483,6 +483,147 @@ class Json(unittest.TestCase):
         self.assertIsNone(d["fluxes"])
         # most abundant species is the default dependent one
         self.assertEqual(d["fick_dependent"], "nitrogen")
+
+
+class BinaryExplain(unittest.TestCase):
+    """binary --explain, errors widened under warnings, the recommended
+    mark and the pair named by each warning."""
+
+    K_B, N_A = 1.380649e-23, 6.02214076e23  # exact (SI 2019)
+
+    def explain(self, *args):
+        d = run_json("binary", *args, "--explain")
+        # a method that gave no value (brokaw without CO2's Tb) has none
+        return d, [r.get("explain") for r in d["results"]]
+
+    def test_intermediates_rebuild_each_estimate_by_hand(self):
+        d, ex = self.explain("CO2", "N2", "-T", "400", "-P", "2bar")
+        self.assertEqual([r["method"] for r in d["results"]],
+                         ["fsg", "chapman-enskog", "wilke-lee", "brokaw"])
+        self.assertIsNone(ex[3])  # CO2 sublimes: no Tb for brokaw
+        fsg, ce, wl = ex[:3]
+        # Fuller et al. (1966) eq. 10, atm form; Chapman-Enskog first
+        # approximation (Hirschfelder, Curtiss and Bird 1954 eq. 8.2-44);
+        # Wilke-Lee (Poling et al. 2001 eq. 11-4.1). The JSON carries the
+        # shortest round-trip decimals: the hand values agree to round-off
+        # (some 20 operations: 1e-13).
+        T, P = fsg["T"], fsg["P"]
+        mab_g = 1e3 * fsg["M_AB"]
+        self.assertAlmostEqual(
+            fsg["M_AB"] * (1 / fsg["M_A"] + 1 / fsg["M_B"]) / 2, 1, delta=1e-15)
+        self.assertAlmostEqual(fsg["V_roots"], fsg["V_A"] ** (1 / 3)
+                               + fsg["V_B"] ** (1 / 3), delta=1e-13)
+        d_fsg = 1e-4 * 1e-3 * T ** 1.75 * math.sqrt(2 / mab_g) / (
+            P / 101325 * fsg["V_roots"] ** 2)
+        self.assertAlmostEqual(d_fsg / fsg["D"], 1, delta=1e-13)
+        self.assertAlmostEqual(ce["sigma_AB"],
+                               (ce["sigma_A"] + ce["sigma_B"]) / 2,
+                               delta=1e-24)
+        self.assertAlmostEqual(ce["eps_AB_over_k"], math.sqrt(
+            ce["eps_A_over_k"] * ce["eps_B_over_k"]), delta=1e-12)
+        self.assertAlmostEqual(ce["T_star"], T / ce["eps_AB_over_k"],
+                               delta=1e-13)
+        mu = ce["M_AB"] / (2 * self.N_A)
+        d_ce = 3 / 16 * math.sqrt(2 * math.pi * (self.K_B * T) ** 3 / mu) / (
+            P * math.pi * ce["sigma_AB"] ** 2 * ce["Omega_D"])
+        self.assertAlmostEqual(d_ce / ce["D"], 1, delta=1e-13)
+        f = 3.03 - 0.98 / math.sqrt(mab_g)
+        self.assertAlmostEqual(wl["wilke_lee_factor"], f, delta=1e-14)
+        d_wl = 1e-4 * f * 1e-3 * T ** 1.5 / (
+            P / 1e5 * math.sqrt(mab_g) * (1e10 * wl["sigma_AB"]) ** 2
+            * wl["Omega_D"])
+        self.assertAlmostEqual(d_wl / wl["D"], 1, delta=1e-13)
+        for r, e in zip(d["results"][:3], ex[:3]):
+            self.assertEqual(r["D"], e["D"])
+
+    def test_brokaw_pieces_rebuild_the_estimate(self):
+        # water + air: Brokaw (1969) is recommended; sigma_AB is the
+        # geometric mean and Omega_D carries the polar term, so the first
+        # Chapman-Enskog approximation with them rebuilds D (1e-13)
+        d, ex = self.explain("water", "air", "-T", "298.15", "-P", "1atm")
+        self.assertEqual(d["method"], "brokaw")
+        b = ex[[r["method"] for r in d["results"]].index("brokaw")]
+        self.assertAlmostEqual(
+            b["sigma_AB"] / math.sqrt(b["sigma_A"] * b["sigma_B"]), 1,
+            delta=1e-15)
+        T, P = b["T"], b["P"]
+        mu = b["M_AB"] / (2 * self.N_A)
+        d_b = 3 / 16 * math.sqrt(2 * math.pi * (self.K_B * T) ** 3 / mu) / (
+            P * math.pi * b["sigma_AB"] ** 2 * b["Omega_D"])
+        self.assertAlmostEqual(d_b / b["D"], 1, delta=1e-13)
+
+    def test_wilke_chang_pieces_and_no_gas_warning(self):
+        d, (wc,) = self.explain("ethanol", "water", "-T", "25C",
+                                "--viscosity", "0.89cP")
+        # Wilke and Chang (1955): 7.4e-8 (phi M_B)^0.5 T / (mu V_A^0.6)
+        # in cm^2/s, g/mol, cP, cm^3/mol
+        hand = 1e-4 * 7.4e-8 * math.sqrt(wc["phi"] * 1e3 * wc["M_B"]) \
+            * wc["T"] / (1e3 * wc["mu_B"] * (1e6 * wc["Vb_A"]) ** 0.6)
+        self.assertAlmostEqual(hand / d["D"], 1, delta=1e-13)
+        self.assertEqual(wc["phi"], 2.6)
+        # ethanol is polar (1.7 D) but "polar" is a gas-model warning
+        warns = " ".join(d["results"][0]["warnings"])
+        self.assertNotIn("Lennard-Jones", warns)
+        self.assertNotIn("polar", warns)
+
+    def test_explain_text_shows_the_pieces(self):
+        code, out, _ = run("binary", "CO2", "N2", "-T", "590", "-P", "1bar",
+                           "--method", "chapman-enskog", "--explain")
+        self.assertEqual(code, 0)
+        for piece in ("sigma_AB", "eps_AB/k", "T*", "Omega_D", "M_AB",
+                      "by hand"):
+            self.assertIn(piece, out)
+        code, out, _ = run("binary", "CO2", "N2", "-T", "590", "-P", "1bar",
+                           "--method", "fsg", "--explain")
+        self.assertIn("V_A^(1/3) + V_B^(1/3)", out)
+
+    def test_high_pressure_widens_the_stated_error(self):
+        d = run_json("binary", "CO2", "N2", "-T", "300", "-P", "200bar",
+                     "--method", "fsg")
+        # published 5.4 %, one high-pressure warning: x2 (documented rule)
+        self.assertAlmostEqual(d["published_error"], 0.054, delta=1e-15)
+        self.assertAlmostEqual(d["typical_error"], 0.108, delta=1e-15)
+        code, out, _ = run("binary", "CO2", "N2", "-T", "300", "-P",
+                           "200bar", "--method", "fsg")
+        self.assertIn("10.8 %", out)
+        self.assertNotIn(" 5.4 %", out)
+        self.assertIn("rule of thumb", out)
+        d = run_json("binary", "CO2", "N2", "-T", "300", "-P", "1atm",
+                     "--method", "fsg")
+        self.assertEqual(d["typical_error"], d["published_error"])
+
+    def test_only_an_auto_chosen_method_is_recommended(self):
+        code, out, _ = run("binary", "CO2", "N2", "-T", "300", "-P", "1atm",
+                           "--method", "wilke-lee")
+        self.assertNotIn("recommended", out)
+        d = run_json("binary", "CO2", "N2", "-T", "300", "-P", "1atm",
+                     "--method", "wilke-lee")
+        self.assertFalse(d["recommended"])
+        self.assertFalse(d["results"][0]["recommended"])
+        code, out, _ = run("binary", "CO2", "N2", "-T", "300", "-P", "1atm")
+        self.assertEqual(out.count("recommended"), 1)
+        d = run_json("binary", "CO2", "N2", "-T", "300", "-P", "1atm")
+        self.assertTrue(d["recommended"])
+
+    def test_mixture_warnings_name_their_pair(self):
+        args = ("fluxes", "-s", "H2O,N2,CO2", "-x", "0.2,0.5,0.3", "-g",
+                "1,-1,0", "-T", "300", "-P", "1atm")
+        code, out, _ = run(*args)
+        self.assertEqual(code, 0)
+        self.assertIn("warning (water / nitrogen):", out)
+        self.assertIn("warning (water / carbon-dioxide):", out)
+        self.assertNotIn("warning (nitrogen / carbon-dioxide)", out)
+        d = run_json(*args)
+        pairs = [tuple(w["pair"]) for w in d["pair_warnings"]]
+        self.assertEqual(pairs, [("water", "nitrogen"),
+                                 ("water", "carbon-dioxide")])
+        # polar and associating: 5.4 % x 2 x 2 (documented rule)
+        self.assertAlmostEqual(d["binary_typical_error"][0][1], 0.216,
+                               delta=1e-15)
+        self.assertAlmostEqual(d["binary_published_error"][0][1], 0.054,
+                               delta=1e-15)
+        self.assertAlmostEqual(d["binary_typical_error"][1][2], 0.054,
+                               delta=1e-15)
 
 
 class Reference(unittest.TestCase):
@@ -975,17 +1116,23 @@ X1_0, X2_0 = [0.5, 0.5, 0.0], [0.0, 0.3, 0.7]
 class Bulbs(unittest.TestCase):
     def histories(self, *extra, flag=None):
         header, rows, err = run_csv("bulbs", *CELL, *extra, flag=flag)
-        vals = [[float(v) for v in r] for r in rows]
+        # numbers: t, x1 (3), x2 (3), N (3); then the flags (words)
+        vals = [[float(v) for v in r[:10]] for r in rows]
         return header, vals, err
 
     def test_csv_parses_with_header_and_times(self):
         header, vals, err = self.histories("-t", "0:2h:5")
         self.assertEqual(header, ["t_s", "x1_hydrogen", "x1_nitrogen",
                                   "x1_carbon-dioxide", "x2_hydrogen",
-                                  "x2_nitrogen", "x2_carbon-dioxide"])
+                                  "x2_nitrogen", "x2_carbon-dioxide",
+                                  "N_hydrogen_mol_per_m2_s",
+                                  "N_nitrogen_mol_per_m2_s",
+                                  "N_carbon-dioxide_mol_per_m2_s",
+                                  "flags_hydrogen", "flags_nitrogen",
+                                  "flags_carbon-dioxide"])
         self.assertEqual([v[0] for v in vals], [0, 1800, 3600, 5400, 7200])
         self.assertIn("hazardous", err)  # caution on stderr, CSV clean
-        self.assertEqual(vals[0][1:], X1_0 + X2_0)
+        self.assertEqual(vals[0][1:7], X1_0 + X2_0)
         # --csv gives the same output as the default
         _, vals2, _ = self.histories("-t", "0:2h:5", flag="--csv")
         self.assertEqual(vals, vals2)
@@ -1054,6 +1201,101 @@ class Bulbs(unittest.TestCase):
                 self.assertAlmostEqual(d["x2"][k][i], vals[k][4 + i],
                                        delta=1e-14)
         self.assertIn("hazardous", d["caution"])
+
+    def test_times_in_other_units(self):
+        # input in d, output in h: the same instants as in seconds
+        header, vals, _ = self.histories("-t", "0,90min,1.5h,0.25d",
+                                         "--time-unit", "h")
+        self.assertEqual(header[0], "t_h")
+        self.assertEqual([v[0] for v in vals], [0, 1.5, 1.5, 6])
+        _, vs, _ = self.histories("-t", "0,5400,5400,21600")
+        for a, b in zip(vals, vs):
+            self.assertEqual(a[1:], b[1:])
+        d = run_json("bulbs", *CELL, "-t", "0,2d", "--time-unit", "d")
+        self.assertEqual(d["t"], [0, 172800])  # JSON t stays in s
+        self.assertEqual(d["time_unit"], "d")
+        self.assertEqual(d["t_in_unit"], [0, 2])
+        code, out, err = run("bulbs", *CELL, "-t", "0,1h", "--time-unit",
+                             "week")
+        self.assertEqual(code, 2)
+        self.assertIn("--time-unit", err)
+
+    def test_coupling_flags_follow_fluxes_and_gradients(self):
+        # The documented rules recomputed from the printed N and x at every
+        # time: with g_i = (x2_i - x1_i)/L, zero meaning at most 1e-3 of the
+        # largest |g| or |N| of that time.
+        d = run_json("bulbs", *CELL, "-t", "0,1min,10min,1h,5h,20h")
+        self.assertEqual(d["flag_tolerance"], 1e-3)
+        L = d["L"]
+        seen = set()
+        for k, t in enumerate(d["t"]):
+            x1, x2, N = d["x1"][k], d["x2"][k], d["N"][k]
+            g = [(b - a) / L for a, b in zip(x1, x2)]
+            gmax, nmax = max(map(abs, g)), max(map(abs, N))
+            # equimolar capillary: the fluxes sum to zero (round-off of
+            # the largest)
+            self.assertLess(abs(sum(N)), 1e-12 * nmax)
+            for i in range(3):
+                small_g = abs(g[i]) <= 1e-3 * gmax
+                small_n = abs(N[i]) <= 1e-3 * nmax
+                want = []
+                if small_g and not small_n:
+                    want = ["osmotic"]
+                elif small_n and not small_g:
+                    want = ["barrier"]
+                elif not small_g and not small_n and N[i] * g[i] > 0:
+                    want = ["reverse"]
+                self.assertEqual(d["flags"][k][i], want, (t, i))
+                seen.update(want)
+        # hydrogen and carbon dioxide move down their gradients at t = 0
+        self.assertEqual(d["flags"][0][0], [])
+        self.assertEqual(d["flags"][0][2], [])
+        # CSV carries the same words
+        header, rows, _ = run_csv("bulbs", *CELL, "-t",
+                                  "0,1min,10min,1h,5h,20h")
+        j = header.index("flags_hydrogen")
+        for k, r in enumerate(rows):
+            self.assertEqual([w for w in r[j:j + 3]],
+                             [" ".join(f) for f in d["flags"][k]])
+
+    def test_osmotic_and_reverse_diffusion_of_a_species_without_gradient(self):
+        # nitrogen at 0.5 in both bulbs between hydrogen and carbon dioxide
+        # (an invented cell of the Duncan-Toor kind): at t = 0 nitrogen has
+        # a flux but no gradient (osmotic), soon after it flows up its own
+        # gradient (reverse); the flux direction is the library's, the
+        # flags are the documented rule.
+        cell = ["-s", "H2,N2,CO2", "--x1", "0.5,0.5,0", "--x2", "0,0.5,0.5",
+                "--v1", "80cm3", "--v2", "0.1L", "-L", "9cm", "--diameter",
+                "2mm", "-T", "35C", "-P", "1atm"]
+        d = run_json("bulbs", *cell, "-t", "0,5min,1h")
+        self.assertEqual(d["flags"][0][1], ["osmotic"])
+        self.assertEqual(d["flags"][1][1], ["reverse"])
+        self.assertEqual(d["flags"][2][1], ["reverse"])
+
+    def test_round_off_prints_as_zero_in_csv_and_stays_in_json(self):
+        # the linearized solution at t = 0 leaves round-off where a species
+        # is absent; the CSV prints 0 and JSON the computed double, below
+        # the documented bound 2^-46 (mole fractions: scale 1)
+        _, rows, _ = run_csv("bulbs", *CELL, "-t", "0,1h", "--model",
+                             "linearized")
+        d = run_json("bulbs", *CELL, "-t", "0,1h", "--model", "linearized")
+        for r, x in ((rows[0][3], d["x1"][0][2]), (rows[0][4], d["x2"][0][0])):
+            self.assertEqual(float(r), 0.0)
+            self.assertFalse(r.startswith("-"))
+            self.assertLessEqual(abs(x), 2.0 ** -46)
+        self.assertTrue(d["x1"][0][2] != 0.0 or d["x2"][0][0] != 0.0,
+                        "no round-off left at t = 0: the check shows nothing")
+
+    def test_film_profile_end_prints_zero_not_round_off(self):
+        # the Stefan tube ends in pure air: acetone and methanol are 0
+        # there; the profile's last row prints 0 (round-off bound 2^-46 of
+        # the fraction scale 1), JSON the computed doubles within it
+        _, rows, _ = run_csv("film", *STEFAN, "--stagnant", "air",
+                             "--profile", flag=None)
+        self.assertEqual(rows[-1][1:3], ["0", "0"])
+        d = run_json("film", *STEFAN, "--stagnant", "air", "--profile")
+        for v in d["profile"]["x"][-1][:2]:
+            self.assertLessEqual(abs(v), 2.0 ** -46)
 
     def test_diameter_equals_area(self):
         # A = pi d^2/4 (common practice)
@@ -1215,6 +1457,82 @@ class Porous(unittest.TestCase):
         self.assertIn("--porosity", err)
 
 
+SLAB = ["porous", "slab", "-s", "H2,N2", "--x0", "0.8,0.2", "--xL",
+        "0.1,0.9", "-L", "2mm", "-T", "300", "-P", "1atm", "--porosity",
+        "0.4", "--tortuosity", "3", "--pore-diameter", "100nm"]
+
+
+class PorousSlab(unittest.TestCase):
+    """mcdiff porous slab: the four conditions, profile, CSV, bad input."""
+
+    def test_equal_pressures_follow_graham(self):
+        # equal end pressures: the pressure stays uniform, Graham's law
+        # (1833) holds at every point, N_H2 / N_N2 = -sqrt(M_N2 / M_H2)
+        r = run_json(*SLAB, "--pL", "1atm")
+        N, M = r["fluxes"], r["M"]
+        self.assertAlmostEqual(N[0] / N[1], -math.sqrt(M[1] / M[0]),
+                               delta=1e-7)
+        self.assertEqual(r["condition"], "pressures")
+        self.assertIn("fitted", r["caution"])
+        for a, b in zip(r["xL_solved"], [0.1, 0.9]):
+            self.assertAlmostEqual(a, b, delta=1e-8)
+
+    def test_stagnant_total_and_ratios(self):
+        r = run_json(*SLAB, "--stagnant", "N2")
+        self.assertEqual(r["fluxes"][1], 0.0)
+        # the hydrogen flux needs a falling pressure across the slab
+        self.assertLess(r["PL"], r["P0"])
+        t = run_json(*SLAB, "--total-flux", "0.01")
+        self.assertAlmostEqual(sum(t["fluxes"]), 0.01, delta=1e-11)
+        # 2 H2 -> N2 at the far face (a made-up stoichiometry): N_N2 =
+        # -N_H2 / 2; only x_H2 at z = L is matched
+        q = run_json(*SLAB, "--ratios", "2,-1", "--match", "H2")
+        NA, NB = q["fluxes"]
+        self.assertAlmostEqual(NB, -0.5 * NA, delta=1e-15 * abs(NA))
+        self.assertAlmostEqual(q["xL_solved"][0], 0.1, delta=1e-8)
+        self.assertEqual(q["matched"], "hydrogen")
+
+    def test_profile_and_csv(self):
+        header, rows, err = run_csv(*SLAB, "--pL", "0.5atm", "--profile",
+                                    "--points", "5")
+        self.assertEqual(header, ["z_m", "x_hydrogen", "x_nitrogen", "P_Pa"])
+        self.assertEqual(len(rows), 5)
+        self.assertAlmostEqual(float(rows[-1][3]), 0.5 * 101325,
+                               delta=1e-6 * 101325)
+        self.assertAlmostEqual(float(rows[-1][0]), 2e-3, delta=1e-18)
+        self.assertIn("review", err)
+        header, rows, err = run_csv(*SLAB, "--pL", "0.5atm")
+        self.assertEqual(header, ["species", "x0", "xL", "xL_solved",
+                                  "N_mol_per_m2_s"])
+        self.assertEqual(len(rows), 2)
+
+    def test_bad_input_names_the_option(self):
+        cases = [(["--pL", "1atm", "--stagnant", "N2"], "--stagnant"),
+                 (["--ratios", "2,-1"], "--match"),
+                 (["--ratios", "2,-2", "--match", "H2"], "--ratios"),
+                 (["--ratios", "2,-1", "--match", "O2"], "--match"),
+                 (["--stagnant", "Ar"], "--stagnant"),
+                 (["--stagnant", "N2", "--match", "H2"], "--match"),
+                 (["--total-flux", "1,2"], "--total-flux"),
+                 (["--pL", "-1"], "--pL"),
+                 (["--pL", "1atm", "--points", "5"], "--points"),
+                 (["--porosity", "0.5", "--pL", "1atm"], "--porosity"),
+                 ([], "--pL")]
+        for extra, name in cases:
+            with self.subTest(extra=extra):
+                code, out, err = run(*SLAB, *extra)
+                self.assertEqual(code, 2, (out, err))
+                self.assertIn(name, err)
+                self.assertEqual(out, "")
+        code, out, err = run(*[w for w in SLAB if w not in ("-L", "2mm")],
+                             "--pL", "1atm")
+        self.assertEqual(code, 2)
+        self.assertIn("--length", err)
+        code, out, err = run("porous", "slab", "--help")
+        self.assertEqual(code, 0)
+        self.assertIn("usage: mcdiff porous slab", out)
+
+
 class Csv(unittest.TestCase):
     """--csv of every command that prints a table parses with the csv
     module: one header row with SI units in the names, then data rows."""
@@ -1248,8 +1566,8 @@ class Csv(unittest.TestCase):
                                     "-P", "1atm")
         self.assertEqual(header, ["species_a", "species_b", "T_K", "P_Pa",
                                   "method", "status", "D_m2_per_s",
-                                  "typical_error", "recommended",
-                                  "warnings"])
+                                  "typical_error", "published_error",
+                                  "recommended", "warnings"])
         self.assertIn("review", err)
         d = run_json("binary", "CO2", "N2", "-T", "300", "-P", "1atm")
         self.assertEqual(len(rows), len(d["results"]))

@@ -249,6 +249,45 @@ class Binaries(unittest.TestCase):
         self.assertIsNone(mcdiff.warning_string(1 << 20))
 
 
+class Explain(unittest.TestCase):
+    """mcd_db_binary_explain and mcd_typical_error_widened from Python."""
+
+    def test_slot_names_follow_the_header(self):
+        import re
+        from mcdiff import handles
+        with open(_support.HEADER) as f:
+            text = f.read()
+        slots = {int(v): k.lower() for k, v in
+                 re.findall(r"#define MCD_EXPLAIN_(\w+) (\d+)", text)
+                 if k not in ("RESERVED", "COUNT")}
+        count = int(re.search(r"#define MCD_EXPLAIN_COUNT (\d+)", text)[1])
+        self.assertEqual(count, handles.EXPLAIN_COUNT)
+        self.assertEqual(tuple(slots[k] for k in sorted(slots)),
+                         handles.EXPLAIN_SLOTS)
+
+    def test_explain_rebuilds_chapman_enskog(self):
+        with mcdiff.Database.builtin() as db:
+            est = db.binary_gas("CO2", "N2", "chapman-enskog", 400.0, 2e5)
+            v = db.binary_explain("CO2", "N2", "chapman-enskog", 400.0, 2e5)
+        self.assertEqual(v["d"], est.D)
+        self.assertEqual(v["warn"], est.warnings)
+        # Chapman-Enskog in the form 0.002663 T^1.5 / (P_bar M_AB^0.5
+        # sigma^2 Omega_D) [cm^2/s] (Poling et al. 2001 eq. 11-3.2, the
+        # constant to 4 digits: 2e-4 relative)
+        d = 0.002663 * v["t"] ** 1.5 / (v["p"] / 1e5 * math.sqrt(
+            1000 * v["m_ab"]) * (1e10 * v["sigma_ab"]) ** 2 * v["omega_d"])
+        self.assertAlmostEqual(d * 1e-4 / est.D, 1.0, delta=2e-4)
+        self.assertNotIn("v_a", v)
+
+    def test_widened_error(self):
+        W = mcdiff.EstimateWarning
+        self.assertAlmostEqual(mcdiff.typical_error_widened(
+            "fsg", W.HIGH_PRESSURE), 0.108, delta=1e-15)
+        self.assertTrue(math.isnan(mcdiff.typical_error_widened("user", 0)))
+        with self.assertRaises(mcdiff.InvalidArgumentError):
+            mcdiff.typical_error_widened("fsg", 0x80)
+
+
 class Compositions(unittest.TestCase):
     M = [2.016e-3, 28.014e-3, 44.009e-3, 39.948e-3]
 
@@ -834,6 +873,14 @@ class Liquids(unittest.TestCase):
         ref = (1e-4 * 1.25e-8 * (96 ** -0.19 - 0.292) * 298.15 ** 1.52
                * 0.89 ** (9.58 / 96 - 1.12))
         self.assertAlmostEqual(D / ref, 1.0, delta=1e-12)
+        # the correlations' temperature range: flagged outside
+        for m in ("wilke-chang", "tyn-calus", "hayduk-minhas"):
+            r = mcdiff.method_temperature_range(m, 298.15)
+            self.assertEqual((r.T_min, r.T_max, r.warn), (273.15, 373.15, 0))
+            r = mcdiff.method_temperature_range(m, 400.0)
+            self.assertEqual(r.warn, mcdiff.EstimateWarning.TEMPERATURE)
+        with self.assertRaises(mcdiff.InvalidArgumentError):
+            mcdiff.method_temperature_range("fsg", 300.0)
 
 
 class Porous(unittest.TestCase):
@@ -904,6 +951,23 @@ class Porous(unittest.TestCase):
         xs, Ps = mcdiff.slab_profile(D, M, [0.8, 0.2], 1e5, r.N,
                                      [0.0, 1e-3], 300.0, 2e-5, 1e-3, **pore)
         self.assertAlmostEqual(rows(xs)[1][0], 0.1, delta=1e-8)
+        # flux ratios of 2 A -> B: N_B = -N_A / 2, the profile ends at the
+        # matched x_A and the returned far pressure
+        r = mcdiff.slab_solve(D, M, [0.9, 0.1], 1e5, [0.6, 0.4], None,
+                              300.0, 2e-5, 1e-3, kind="ratios", species=0,
+                              ratios=[2.0, -1.0], **pore)
+        NA, NB = flat(r.N)
+        self.assertGreater(NA, 0.0)
+        self.assertAlmostEqual(NB, -0.5 * NA, delta=1e-15 * NA)
+        xs, Ps = mcdiff.slab_profile(D, M, [0.9, 0.1], 1e5, r.N, [1e-3],
+                                     300.0, 2e-5, 1e-3, **pore)
+        self.assertAlmostEqual(rows(xs)[0][0], 0.6, delta=1e-8)
+        self.assertAlmostEqual(flat(Ps)[0], r.PL, delta=1e-8 * r.PL)
+        with self.assertRaises(mcdiff.DomainError) as cm:
+            mcdiff.slab_solve(D, M, [0.9, 0.1], 1e5, [0.6, 0.4], None,
+                              300.0, 2e-5, 1e-3, kind="ratios",
+                              ratios=[2.0, -0.5], **pore)
+        self.assertIn("argument ratios", str(cm.exception))
         with self.assertRaises(mcdiff.DomainError) as cm:
             mcdiff.dgm_fluxes(D, M, x, [-20.0, 20.0], 300.0, 1e5, 2e-5,
                               porosity=1.5, tortuosity=3.0, d_pore=1e-7)

@@ -144,6 +144,10 @@ SIGNATURES = {
     "mcd_db_binary_gas": (_ST, [_H, _SZ, _SZ, _E, _D, _D, _PD, _PD, _PU]),
     # (db, solute, solvent, T, mu_solvent, out_D, out_rel_err, out_warn)
     "mcd_db_binary_liquid": (_ST, [_H, _SZ, _SZ, _D, _D, _PD, _PD, _PU]),
+    # (m, warn, out_rel_err)
+    "mcd_typical_error_widened": (_ST, [_E, _U, _PD]),
+    # (db, a, b, method, T, P, mu_solvent, out_values)
+    "mcd_db_binary_explain": (_ST, [_H, _SZ, _SZ, _E, _D, _D, _D, _PD]),
 
     # --- Mixtures: N species and their binary diffusivities ---
     # (db, n_species, names, default_method, out_mix)
@@ -270,6 +274,8 @@ SIGNATURES = {
     "mcd_binary_tyn_calus": (_ST, [_D, _D, _D, _D, _PD]),
     # (T, mu_water, Vb_solute, out_D)
     "mcd_binary_hayduk_minhas": (_ST, [_D, _D, _D, _PD]),
+    # (method, T, out_T_min, out_T_max, out_warn)
+    "mcd_method_temperature_range": (_ST, [_E, _D, _PD, _PD, _PU]),
 
     # --- Porous media: Knudsen diffusion and the Dusty Gas Model ---
     # (pore, out_B0)
@@ -290,6 +296,8 @@ SIGNATURES = {
     "mcd_dgm_fluxes_batch": (_ST, [_H, _H, _SZ, _PD, _H, _PD]),
     # (ws, pore, slab, kind, species, value, out_N, out_PL, out_iterations)
     "mcd_slab_solve": (_ST, [_H, _H, _H, _E, _SZ, _D, _PD, _PD, _PSZ]),
+    # (ws, pore, slab, species, ratios, out_N, out_PL, out_iterations)
+    "mcd_slab_solve_ratios": (_ST, [_H, _H, _H, _SZ, _PD, _PD, _PD, _PSZ]),
     # (ws, pore, slab, N, n_points, z, out_x, out_P)
     "mcd_slab_profile": (_ST, [_H, _H, _H, _PD, _SZ, _PD, _PD, _PD]),
 }

@@ -36,11 +36,12 @@ __all__ = [
     "x_to_c", "c_to_x", "ideal_gas_c", "grad_x_to_w", "grad_w_to_x",
     # binaries
     "method_name", "method_from_name", "method_typical_error",
+    "typical_error_widened", "binary_explain",
     "warning_string", "warning_strings", "binary_fsg", "binary_chapman_enskog",
     "binary_wilke_lee", "binary_brokaw", "binary_wilke_chang",
     "binary_omega_d", "binary_scale",
     "binary_gas", "binary_liquid", "binary_tyn_calus",
-    "binary_hayduk_minhas",
+    "binary_hayduk_minhas", "method_temperature_range",
     # fluxes
     "flux_compute", "thermal_ratios", "flux_jacobian", "fick_matrix",
     "fick_fluxes",
@@ -61,6 +62,7 @@ __all__ = [
     # results
     "FickMatrix", "TotalFlux", "ProjectedFlux", "FilmResult", "BulbsResult",
     "ViscosityEstimate", "DgmClosed", "DgmGradients", "SlabResult",
+    "TemperatureRange",
     "default_workspace",
 ]
 
@@ -361,6 +363,25 @@ def method_typical_error(method):
     return lib.mcd_method_typical_error(coerce(Method, method, "method"))
 
 
+def typical_error_widened(method, warnings):
+    """Typical relative error of a method widened by an estimate's warning
+    bits (mcd_typical_error_widened: factor 2 for each of high pressure,
+    polar, quantum, associating; 1.5 for each of temperature, estimated
+    parameter, scaled; at most 1). NaN for USER. A rule of thumb."""
+    out = ctypes.c_double()
+    st = lib.mcd_typical_error_widened(coerce(Method, method, "method"),
+                                       int(warnings), ctypes.byref(out))
+    _check(st, "mcd_typical_error_widened")
+    return out.value
+
+
+def binary_explain(db, a, b, method, T, P=float("nan"),
+                   mu_solvent=float("nan")):
+    """Intermediates behind a binary estimate as a dict (see
+    Database.binary_explain)."""
+    return db.binary_explain(a, b, method, T, P, mu_solvent)
+
+
 def warning_string(bit):
     """Text of one warning bit, or None."""
     return _text(lib.mcd_warning_string(int(bit)))
@@ -417,6 +438,23 @@ def binary_tyn_calus(T, mu_solvent, Vb_solute, Vb_solvent):
 def binary_hayduk_minhas(T, mu_water, Vb_solute):
     """Hayduk-Minhas infinite-dilution diffusivity [m^2/s] in water."""
     return _raw("mcd_binary_hayduk_minhas", T, mu_water, Vb_solute)
+
+
+TemperatureRange = collections.namedtuple("TemperatureRange",
+                                          "T_min T_max warn")
+TemperatureRange.__doc__ = """Temperature range [K] of a liquid correlation
+and the warning bits (MCD_WARN_TEMPERATURE outside it) for a temperature."""
+
+
+def method_temperature_range(method, T):
+    """Temperature range of wilke-chang, tyn-calus or hayduk-minhas and
+    the warning bits at T [K] (mcd_method_temperature_range)."""
+    lo, hi, w = ctypes.c_double(), ctypes.c_double(), ctypes.c_uint()
+    st = lib.mcd_method_temperature_range(coerce(Method, method, "method"),
+                                          _sc(T, "T"), ctypes.byref(lo),
+                                          ctypes.byref(hi), ctypes.byref(w))
+    _check(st, "mcd_method_temperature_range")
+    return TemperatureRange(lo.value, hi.value, w.value)
 
 
 def binary_omega_d(T_star):
@@ -1254,21 +1292,34 @@ def _slab(Dij, M, x0, P0, xL, PL, T, mu, L, P_ref):
 
 def slab_solve(Dij, M, x0, P0, xL, PL, T, mu, L, *, porosity, tortuosity,
                d_pore, permeability=0.0, P_ref=None, kind="pressures",
-               species=0, value=0.0, workspace=None):
+               species=0, value=0.0, ratios=None, workspace=None):
     """Steady Dusty Gas Model fluxes through a porous slab of thickness L
     [m] between (x0, P0 [Pa]) and (xL, PL) (mcd_slab_solve). Dij: open-gas
     binary diffusivities [m^2/s] at P_ref (default P0); mu [Pa s]
     constant. kind: "pressures" (both end pressures given), "stagnant"
     (species does not move; PL ignored and returned) or "total" (sum N =
-    value). Returns SlabResult(N, PL, iterations)."""
-    if kind not in _SLAB_KINDS:
-        raise ValueError("kind: one of %s" % ", ".join(_SLAB_KINDS))
+    value) or "ratios" (N = ratios * N_t, ratios summing to 1, as a
+    reaction's stoichiometry fixes them; xL[species] is matched, PL
+    ignored and returned: mcd_slab_solve_ratios). Returns
+    SlabResult(N, PL, iterations)."""
+    if kind not in _SLAB_KINDS and kind != "ratios":
+        raise ValueError("kind: one of %s, ratios" % ", ".join(_SLAB_KINDS))
     n, sl, keep = _slab(Dij, M, x0, P0, xL, PL, T, mu, L, P_ref)
     p = _pore(porosity, tortuosity, d_pore, permeability)
     ws = _ws(workspace, n)
     o = _arrays.Output((n,))
     pl = ctypes.c_double()
     it = ctypes.c_size_t()
+    if kind == "ratios":
+        if ratios is None:
+            raise ValueError("ratios: required with kind='ratios'")
+        z = _arrays.vector(ratios, n, "ratios")
+        st = lib.mcd_slab_solve_ratios(ws._p(), ctypes.byref(p),
+                                       ctypes.byref(sl), int(species), z.ptr,
+                                       o.ptr, ctypes.byref(pl),
+                                       ctypes.byref(it))
+        ws.check(st, "mcd_slab_solve_ratios")
+        return SlabResult(o.result(), pl.value, it.value)
     st = lib.mcd_slab_solve(ws._p(), ctypes.byref(p), ctypes.byref(sl),
                             _SLAB_KINDS[kind], int(species),
                             _sc(value, "value"), o.ptr, ctypes.byref(pl),

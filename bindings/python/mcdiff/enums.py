@@ -54,6 +54,8 @@ class Method(enum.IntEnum):
     WILKE_LEE = 3
     WILKE_CHANG = 4
     USER = 5
+    TYN_CALUS = 6
+    HAYDUK_MINHAS = 7
     BROKAW = 8
 
 

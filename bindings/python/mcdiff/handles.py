@@ -12,13 +12,22 @@ import weakref
 
 from . import _arrays
 from ._native import lib
-from .enums import GasMethod, Param, EstimateWarning, coerce
+from .enums import GasMethod, Method, Param, EstimateWarning, coerce
 from .errors import error_for
 
 __all__ = ["Workspace", "Database", "Mixture", "BinaryEstimate",
            "BinaryMatrices", "GasState", "Liquid", "LiquidState",
            "Evaporation"]
 
+
+# Names of the slots of mcd_db_binary_explain, in the order of their
+# MCD_EXPLAIN_* indices (tests/python/test_api.py checks them against the
+# header).
+EXPLAIN_SLOTS = ("d", "t", "p", "m_a", "m_b", "m_ab", "v_a", "v_b", "v_roots",
+                 "sigma_a", "sigma_b", "sigma_ab", "eps_a", "eps_b", "eps_ab",
+                 "t_star", "omega_d", "wl_factor", "phi", "mu_b", "vb_a",
+                 "rel_err", "rel_err_widened", "warn", "estimated")
+EXPLAIN_COUNT = 32
 
 BinaryEstimate = collections.namedtuple("BinaryEstimate",
                                         "D rel_err warnings")
@@ -330,6 +339,28 @@ class Database(_Handle):
         if st:
             _raise(st, "mcd_db_binary_liquid", "%s in %s" % (solute, solvent))
         return BinaryEstimate(D.value, rel.value, EstimateWarning(warn.value))
+
+    def binary_explain(self, a, b, method, T, P=float("nan"),
+                       mu_solvent=float("nan")):
+        """The intermediates of an estimate (mcd_db_binary_explain): a dict
+        from the slot names of EXPLAIN_SLOTS (lower case: "d", "sigma_ab",
+        "t_star", ...) to values in SI units; slots the method does not use
+        are left out. For "wilke-chang" a is the solute, b the solvent and
+        mu_solvent [Pa s] is needed; gas methods need P [Pa]."""
+        m = coerce(Method, method, "method")
+        out = (ctypes.c_double * EXPLAIN_COUNT)()
+        st = lib.mcd_db_binary_explain(
+            self._p(), self.index(a), self.index(b), m, _arrays.scalar(T, "T"),
+            float(P), float(mu_solvent), out)
+        if st:
+            _raise(st, "mcd_db_binary_explain", "%s-%s by %s" % (a, b, m.name))
+        res = {}
+        for k, name in enumerate(EXPLAIN_SLOTS):
+            if out[k] == out[k]:  # not NaN
+                res[name] = out[k]
+        if "warn" in res:
+            res["warn"] = EstimateWarning(int(res["warn"]))
+        return res
 
     def mixture(self, names, method="fsg"):
         """A Mixture of the named species (parameters are copied)."""
