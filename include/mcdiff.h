@@ -874,6 +874,86 @@ MCD_API mcd_status mcd_flux_jacobian_comp(mcd_workspace *ws,
                                           const mcd_state *state,
                                           double *out_dJ);
 
+/** Derivatives of the fluxes of mcd_flux_compute with respect to its
+ *  input fractions (comp, in state->comp_basis), at fixed gradients, for
+ *  the exact and the mixture-averaged models, in either flux basis: the
+ *  Jacobian an implicit or Newton solver needs. Since 0.4.
+ *
+ *  It is the derivative of what mcd_flux_compute returns, renormalisation
+ *  of the fractions (x = y / sum y) included, so every row satisfies
+ *  sum_k y_k dF_i/dy_k = 0 and every column sums to zero over species
+ *  (the fluxes' zero-sum in their frame). Held fixed: the gradients as
+ *  given (state->grad; with mass fractions the mole-fraction gradients
+ *  that follow from them move with w, and that is included), Gamma,
+ *  grad ln P, k_T, grad ln T, c and Dij. Pressure diffusion enters
+ *  through w(x). The derivative with respect to the gradients is
+ *  -c [D] (mcd_fick_matrix).
+ *    MAXWELL_STEFAN: one extra flux solve per column (N + 1 in all), the
+ *      same solver as mcd_flux_compute (trace species included).
+ *    MIXTURE_AVERAGED: D_im = (1 - x_i) / sum_{j != i} x_j / Đ_ij and the
+ *      correction flux differentiated in closed form, O(N^3) without a
+ *      solve. At a pure component (one x_m = 1) that flux is not
+ *      differentiable (the limit of D_mm depends on the direction of
+ *      approach); the call returns the derivative with D_mm held at the
+ *      value mcd_flux_compute uses there, (N - 1) / sum_j 1 / Đ_mj.
+ *    ITERATIVE: EINVAL (use MAXWELL_STEFAN, which it approximates).
+ *  Checked against fourth-order finite differences of mcd_flux_compute
+ *  over thousands of random states, N = 2..30, trace species and nearly
+ *  pure components (tests/test_flux_tangent.c).
+ *
+ *  @param ws         workspace with capacity >= N.
+ *  @param model      MAXWELL_STEFAN or MIXTURE_AVERAGED.
+ *  @param state      as mcd_flux_compute (either comp_basis).
+ *  @param flux_basis MOLE: molar fluxes J_i; MASS: mass fluxes j_i (M
+ *                    required).
+ *  @param out_dflux  N n_dim x N: out_dflux[(i*n_dim + d)*N + k] =
+ *                    dF_{i,d}/dy_k, [mol/(m^2 s)] or [kg/(m^2 s)] per
+ *                    unit fraction. Written only on success.
+ *  Fails: as mcd_flux_compute; EINVAL (ITERATIVE); EDOM (a derivative not
+ *  finite) | Allocates: no | Threads: one ws per thread */
+MCD_API mcd_status mcd_flux_jacobian(mcd_workspace *ws, mcd_model model,
+                                     const mcd_state *state,
+                                     mcd_basis flux_basis, double *out_dflux);
+
+/** Derivatives of the fluxes of mcd_flux_compute with respect to the
+ *  temperature and the pressure, at fixed composition, gradients,
+ *  grad ln P, grad ln T, Gamma and k_T. Since 0.4.
+ *
+ *  The state's T and P enter the fluxes only through c and Dij, so this
+ *  call includes exactly two dependences and says which: c = P / (R T)
+ *  (ideal gas: dc/dT = -c / T, dc/dP = c / P, with the state's c), and
+ *  the binary diffusivities' own, which the caller passes (dDij_dT,
+ *  dDij_dP). For the power-law scaling of the Fuller-Schettler-Giddings
+ *  estimate and of a mixture's caller values, Đ = a T^1.75 / P, pass
+ *  dĐ/dT = 1.75 Đ / T and dĐ/dP = -Đ / P; for a tabulated or fitted Đ the
+ *  slope of that fit. A zero matrix declares Dij independent of T or P.
+ *  Not included: a temperature dependence of Gamma or k_T, and the change
+ *  of grad ln T or grad ln P with T or P (held as given).
+ *
+ *  @param ws          workspace with capacity >= N.
+ *  @param model       MAXWELL_STEFAN or MIXTURE_AVERAGED.
+ *  @param state       as mcd_flux_compute.
+ *  @param flux_basis  MOLE or MASS (as mcd_flux_compute).
+ *  @param T           temperature [K] of the state, > 0 (read only when
+ *                     out_dT is requested).
+ *  @param P           pressure [Pa] of the state, > 0 (read only when
+ *                     out_dP is requested).
+ *  @param dDij_dT     dĐ_ij/dT [m^2/(s K)], N x N, finite, upper triangle
+ *                     read (as Dij); required when out_dT is given.
+ *  @param dDij_dP     dĐ_ij/dP [m^2/(s Pa)], likewise with out_dP.
+ *  @param out_dT      N x n_dim: dF_{i,d}/dT, or NULL.
+ *  @param out_dP      N x n_dim: dF_{i,d}/dP, or NULL (not both NULL).
+ *                     Written only on success.
+ *  Fails: as mcd_flux_jacobian; EINVAL (both outputs NULL, a needed
+ *  dDij NULL, NaN); EDOM (T or P not > 0) | Allocates: no
+ *  | Threads: one ws per thread */
+MCD_API mcd_status mcd_flux_jacobian_tp(mcd_workspace *ws, mcd_model model,
+                                        const mcd_state *state,
+                                        mcd_basis flux_basis, double T,
+                                        double P, const double *dDij_dT,
+                                        const double *dDij_dP, double *out_dT,
+                                        double *out_dP);
+
 /** Thermal diffusion ratios k_T,i [-] from thermal diffusion coefficients
  *  D_i^T [kg/(m s)], for mcd_state.kT / mcd_cells.kT. Since 0.3.
  *
@@ -1168,6 +1248,41 @@ MCD_API mcd_status mcd_flux_batch_aos(mcd_workspace *ws,
                                       mcd_model model, const double *T,
                                       const double *P, const mcd_cells *cells,
                                       mcd_basis flux_basis, double *out_flux);
+
+/** Batched fluxes with their composition Jacobians (as mcd_flux_jacobian
+ *  per cell), the caller's own per-cell binary diffusivities and
+ *  concentrations, SoA layout as mcd_flux_batch_dij. A sibling of the
+ *  batched flux calls, so that those pay nothing for it. Since 0.4.
+ *
+ *  Each cell is computed by the single-state code of mcd_flux_jacobian
+ *  (and its fluxes by that of mcd_flux_compute): the results equal K
+ *  single-state calls to the bit, serially, cell after cell through
+ *  workspace staging. The fluxes can differ from mcd_flux_batch_dij's in
+ *  the last bits (another kernel; both within the accuracy stated at
+ *  mcd_flux_compute).
+ *
+ *  @param ws          workspace with capacity >= n_species.
+ *  @param model       MAXWELL_STEFAN or MIXTURE_AVERAGED.
+ *  @param n_species   N, as mcd_flux_batch_dij.
+ *  @param M           molar masses [kg/mol], as mcd_flux_batch_dij.
+ *  @param Dij         binary diffusivities [m^2/s], (N N) x K, as
+ *                     mcd_flux_batch_dij.
+ *  @param c           total molar concentrations [mol/m^3], length K.
+ *  @param cells       K, n_dim, comp_basis, comp, grad, grad_lnP, kT,
+ *                     grad_lnT (mcd_cells).
+ *  @param flux_basis  MOLE or MASS (fluxes and Jacobians).
+ *  @param out_flux    (N n_dim) x K as mcd_flux_batch_dij, or NULL.
+ *  @param out_jac     (N n_dim N) x K:
+ *                     out_jac[((i*n_dim + d)*N + k)*K + cell] =
+ *                     dF_{i,d}/dy_k of that cell (mcd_flux_jacobian).
+ *  Fails: as mcd_flux_batch_dij (messages "cell <k>: ..."), EINVAL
+ *  (ITERATIVE) | Allocates: no | Threads: one ws per thread */
+MCD_API mcd_status mcd_flux_batch_jacobian(mcd_workspace *ws, mcd_model model,
+                                           size_t n_species, const double *M,
+                                           const double *Dij, const double *c,
+                                           const mcd_cells *cells,
+                                           mcd_basis flux_basis,
+                                           double *out_flux, double *out_jac);
 
 /** Settings of MCD_MODEL_ITERATIVE for later calls on this workspace.
  *  Each cell iterates until its error estimate (see

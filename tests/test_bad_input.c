@@ -770,6 +770,49 @@ static int call_mcd_flux_batch(ctx *c)
                      .grad_lnT = (c->use_kT & 2) ? c->glnT : NULL},
         (mcd_basis)c->basis2, OUT(o1, NB_O1));
 }
+static mcd_state flux_state_of(ctx *c)
+{
+    return (mcd_state){.n_species = c->n,
+                       .n_dim = c->nd,
+                       .M = ARG(M, NB_M),
+                       .Dij = ARG(D, NB_D),
+                       .c = c->c,
+                       .comp_basis = (mcd_basis)c->basis,
+                       .comp = ARG(x, NB_X),
+                       .grad = ARG(grad, NB_GRAD),
+                       .grad_lnP = c->use_glnp ? c->glnP : NULL};
+}
+static int call_mcd_flux_jacobian(ctx *c)
+{
+    mcd_state st = flux_state_of(c);
+    return mcd_flux_jacobian(WS, (mcd_model)c->model, &st, (mcd_basis)c->basis2,
+                             OUT(o1, NB_O1));
+}
+/* dDij/dT and dDij/dP: the fixture's Gamma (finite), NULL by NB_GAMMA and
+ * NB_F */
+static int call_mcd_flux_jacobian_tp(ctx *c)
+{
+    mcd_state st = flux_state_of(c);
+    return mcd_flux_jacobian_tp(
+        WS, (mcd_model)c->model, &st, (mcd_basis)c->basis2, c->T, c->P,
+        ARG(Gamma, NB_GAMMA), NUL_(NB_F) ? NULL : c->Gamma, OUT(o1, NB_O1),
+        OUT(o2, NB_O2));
+}
+static int call_mcd_flux_batch_jacobian(ctx *c)
+{
+    return mcd_flux_batch_jacobian(
+        WS, (mcd_model)c->model, c->n, ARG(M, NB_M), ARG(D, NB_D),
+        ARG(cc, NB_VALS),
+        &(mcd_cells){.n_cells = c->K,
+                     .n_dim = c->nd,
+                     .comp_basis = (mcd_basis)c->basis,
+                     .comp = ARG(x, NB_X),
+                     .grad = ARG(grad, NB_GRAD),
+                     .grad_lnP = c->use_glnp ? c->glnP : NULL,
+                     .kT = (c->use_kT & 1) ? c->kT : NULL,
+                     .grad_lnT = (c->use_kT & 2) ? c->glnT : NULL},
+        (mcd_basis)c->basis2, OUT(o2, NB_O2), OUT(o1, NB_O1));
+}
 static int call_mcd_flux_batch_dij(ctx *c)
 {
     return mcd_flux_batch_dij(
@@ -1604,6 +1647,50 @@ static const bcase cases[] = {
     C(mcd_flux_jacobian_comp, "c 0", EDOM_, "c", MD(c, 0.0)),
     C(mcd_flux_jacobian_comp, "pressure gradient without M", EINVAL_, "M",
       MI(use_glnp, 1), MN(NB_M)),
+    B(mcd_flux_jacobian, MCD_OK),
+    C(mcd_flux_jacobian, "ws NULL", EINVAL_, NULL, MN(NB_WS)),
+    C(mcd_flux_jacobian, "iterative model", EINVAL_, "model",
+      MI(model, MCD_MODEL_ITERATIVE)),
+    C(mcd_flux_jacobian, "model 9", EINVAL_, "model", MI(model, 9)),
+    C(mcd_flux_jacobian, "flux basis 5", EINVAL_, "flux_basis", MI(basis2, 5)),
+    C(mcd_flux_jacobian, "out NULL", EINVAL_, "out_dflux", MN(NB_O1)),
+    C(mcd_flux_jacobian, "n above capacity", MCD_EBADLEN, "n_species",
+      MZ(n, 4)),
+    C(mcd_flux_jacobian, "comp negative", EDOM_, "comp", MDA(x, 1, -0.1),
+      MDA(x, 0, 0.9)),
+    C(mcd_flux_jacobian, "Dij 0", EDOM_, "Dij", MDA(D, 1, 0.0), MDA(D, 3, 0.0)),
+    C(mcd_flux_jacobian, "c 0", EDOM_, "c", MD(c, 0.0)),
+    C(mcd_flux_jacobian, "mass fluxes without M", EINVAL_, "M",
+      MI(basis2, MCD_BASIS_MASS), MN(NB_M)),
+    B(mcd_flux_jacobian_tp, MCD_OK),
+    C(mcd_flux_jacobian_tp, "ws NULL", EINVAL_, NULL, MN(NB_WS)),
+    C(mcd_flux_jacobian_tp, "iterative model", EINVAL_, "model",
+      MI(model, MCD_MODEL_ITERATIVE)),
+    C(mcd_flux_jacobian_tp, "both outputs NULL", EINVAL_, "out_dT", MN(NB_O1),
+      MN(NB_O2)),
+    C(mcd_flux_jacobian_tp, "T 0", EDOM_, "argument T", MD(T, 0.0)),
+    C(mcd_flux_jacobian_tp, "P NaN", EINVAL_, "argument P", MD(P, NAN)),
+    C(mcd_flux_jacobian_tp, "dDij_dT NULL", EINVAL_, "dDij_dT", MN(NB_GAMMA)),
+    C(mcd_flux_jacobian_tp, "dDij_dP NULL", EINVAL_, "dDij_dP", MN(NB_F)),
+    C(mcd_flux_jacobian_tp, "comp negative", EDOM_, "comp", MDA(x, 1, -0.1),
+      MDA(x, 0, 0.9)),
+    B(mcd_flux_batch_jacobian, MCD_OK),
+    C(mcd_flux_batch_jacobian, "ws NULL", EINVAL_, NULL, MN(NB_WS)),
+    C(mcd_flux_batch_jacobian, "iterative model", EINVAL_, "model",
+      MI(model, MCD_MODEL_ITERATIVE)),
+    C(mcd_flux_batch_jacobian, "n_dim 0", EINVAL_, "n_dim", MZ(nd, 0)),
+    C(mcd_flux_batch_jacobian, "out_jac NULL", EINVAL_, "out_jac", MN(NB_O1)),
+    C(mcd_flux_batch_jacobian, "comp NULL", EINVAL_, "comp", MN(NB_X)),
+    C(mcd_flux_batch_jacobian, "Dij NULL", EINVAL_, "Dij", MN(NB_D)),
+    C(mcd_flux_batch_jacobian, "c NULL", EINVAL_, "c", MN(NB_VALS)),
+    C(mcd_flux_batch_jacobian, "capacity 2 < N", MCD_EBADLEN, NULL,
+      MI(use_small_ws, 1)),
+    C(mcd_flux_batch_jacobian, "comp negative", EDOM_, "cell 0: argument comp",
+      MDA(x, 1, -0.1), MDA(x, 0, 0.9)),
+    C(mcd_flux_batch_jacobian, "kT without grad_lnT", EINVAL_, "grad_lnT",
+      MI(use_kT, 1)),
+    C(mcd_flux_batch_jacobian, "mass fluxes without M", EINVAL_, "M",
+      MI(basis2, MCD_BASIS_MASS), MN(NB_M)),
     B(mcd_thermal_ratios, MCD_OK),
     C(mcd_thermal_ratios, "ws NULL", EINVAL_, NULL, MN(NB_WS)),
     C(mcd_thermal_ratios, "n 0", EINVAL_, "n_species", MZ(n, 0)),

@@ -161,6 +161,7 @@ module mcdiff
        mcd_mixture_set_binary, mcd_mixture_binaries, &
        mcd_workspace_new, mcd_workspace_capacity, mcd_last_error, &
        mcd_flux_compute, mcd_thermal_ratios, mcd_flux_jacobian_comp, &
+       mcd_flux_jacobian, mcd_flux_jacobian_tp, mcd_flux_batch_jacobian, &
        mcd_fick_matrix, mcd_fick_fluxes, &
        mcd_fick_eigenvalues, mcd_flux_convert, mcd_flux_total, &
        mcd_flux_project, mcd_flux_diagnose, mcd_film_solve, mcd_film_profile, &
@@ -1095,6 +1096,76 @@ contains
     call finish(c_mcd_flux_jacobian_comp(ws%ptr, st, dJ), stat, errmsg)
   end subroutine mcd_flux_jacobian_comp
 
+  !> Derivatives of the fluxes of mcd_flux_compute (model MAXWELL_STEFAN or
+  !> MIXTURE_AVERAGED, either basis) with respect to the input fractions at
+  !> fixed gradients: dF(n, n_dim, n), dF(k, d, i) = dF_{i,d}/dy_k (the C
+  !> array (N n_dim) x N read column-major). Arguments as mcd_flux_compute.
+  subroutine mcd_flux_jacobian(ws, model, n, n_dim, Dij, c, comp_basis, comp, &
+       grad_comp, flux_basis, dF, stat, errmsg, M, Gamma, grad_lnP, kT, grad_lnT)
+    type(mcd_workspace_t), intent(inout) :: ws
+    integer, intent(in) :: model, n, n_dim, comp_basis, flux_basis
+    real(c_double), intent(in), target :: Dij(n, n), comp(n), grad_comp(n_dim, n)
+    real(c_double), intent(in) :: c
+    real(c_double), intent(inout) :: dF(n, n_dim, n)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    real(c_double), intent(in), optional, target :: M(n), Gamma(n, n), grad_lnP(n_dim)
+    real(c_double), intent(in), optional, target :: kT(n), grad_lnT(n_dim)
+    type(mcd_state_t) :: st
+    call jac_state(st, n, n_dim, Dij, c, comp_basis, comp, grad_comp, M, Gamma, &
+         grad_lnP, kT, grad_lnT)
+    call finish(c_mcd_flux_jacobian(ws%ptr, int(model, c_int), st, &
+         int(flux_basis, c_int), dF), stat, errmsg)
+  end subroutine mcd_flux_jacobian
+
+  !> Derivatives of the fluxes with respect to T [K] and P [Pa] through
+  !> c = P / (R T) and the caller's dDij_dT, dDij_dP (n, n; symmetric, so
+  !> the transpose is the same): dF_dT(n_dim, n), dF_dP(n_dim, n). Both
+  !> outputs are required here (pass zero matrices for no dependence).
+  subroutine mcd_flux_jacobian_tp(ws, model, n, n_dim, Dij, c, comp_basis, comp, &
+       grad_comp, flux_basis, T, P, dDij_dT, dDij_dP, dF_dT, dF_dP, stat, errmsg, &
+       M, Gamma, grad_lnP, kT, grad_lnT)
+    type(mcd_workspace_t), intent(inout) :: ws
+    integer, intent(in) :: model, n, n_dim, comp_basis, flux_basis
+    real(c_double), intent(in), target :: Dij(n, n), comp(n), grad_comp(n_dim, n)
+    real(c_double), intent(in) :: c, T, P
+    real(c_double), intent(in), target :: dDij_dT(n, n), dDij_dP(n, n)
+    real(c_double), intent(inout), target :: dF_dT(n_dim, n), dF_dP(n_dim, n)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    real(c_double), intent(in), optional, target :: M(n), Gamma(n, n), grad_lnP(n_dim)
+    real(c_double), intent(in), optional, target :: kT(n), grad_lnT(n_dim)
+    type(mcd_state_t) :: st
+    call jac_state(st, n, n_dim, Dij, c, comp_basis, comp, grad_comp, M, Gamma, &
+         grad_lnP, kT, grad_lnT)
+    call finish(c_mcd_flux_jacobian_tp(ws%ptr, int(model, c_int), st, &
+         int(flux_basis, c_int), T, P, c_loc(dDij_dT), c_loc(dDij_dP), &
+         c_loc(dF_dT), c_loc(dF_dP)), stat, errmsg)
+  end subroutine mcd_flux_jacobian_tp
+
+  !> The mcd_state of the Jacobian wrappers.
+  subroutine jac_state(st, n, n_dim, Dij, c, comp_basis, comp, grad_comp, M, Gamma, &
+       grad_lnP, kT, grad_lnT)
+    type(mcd_state_t), intent(out) :: st
+    integer, intent(in) :: n, n_dim, comp_basis
+    real(c_double), intent(in), target :: Dij(n, n), comp(n), grad_comp(n_dim, n)
+    real(c_double), intent(in) :: c
+    real(c_double), intent(in), optional, target :: M(n), Gamma(n, n), grad_lnP(n_dim)
+    real(c_double), intent(in), optional, target :: kT(n), grad_lnT(n_dim)
+    st%n_species = csz(n)
+    st%n_dim = csz(n_dim)
+    st%comp_basis = int(comp_basis, c_int)
+    st%c = c
+    st%Dij = c_loc(Dij)
+    st%comp = c_loc(comp)
+    st%grad = c_loc(grad_comp)
+    if (present(M)) st%M = c_loc(M)
+    if (present(Gamma)) st%Gamma = c_loc(Gamma)
+    if (present(grad_lnP)) st%grad_lnP = c_loc(grad_lnP)
+    if (present(kT)) st%kT = c_loc(kT)
+    if (present(grad_lnT)) st%grad_lnT = c_loc(grad_lnT)
+  end subroutine jac_state
+
   !> Thermal diffusion ratios kT(n) from thermal diffusion coefficients
   !> DT(n) [kg/(m s)] at a state (M(n) required).
   subroutine mcd_thermal_ratios(ws, n, Dij, c, comp_basis, comp, M, DT, kT, &
@@ -1800,6 +1871,36 @@ contains
     call finish(c_mcd_flux_batch_dij(ws%ptr, int(model, c_int), csz(n), pM, Dij, &
          c, cells, int(flux_basis, c_int), flux), stat, errmsg)
   end subroutine mcd_flux_batch_dij
+
+  !> Batched fluxes (optional) and composition Jacobians with per-cell Dij
+  !> and c, arrays as mcd_flux_batch_dij; jac(n_cells, n, n_dim, n):
+  !> jac(cell, k, d, i) = dF_{i,d}/dy_k of that cell.
+  subroutine mcd_flux_batch_jacobian(ws, model, n, n_cells, n_dim, Dij, c, &
+       comp_basis, comp, grad, flux_basis, jac, stat, errmsg, M, grad_lnP, kT, &
+       grad_lnT, flux)
+    type(mcd_workspace_t), intent(inout) :: ws
+    integer, intent(in) :: model, n, n_cells, n_dim, comp_basis, flux_basis
+    real(c_double), intent(in) :: Dij(n_cells, n, n), c(n_cells)
+    real(c_double), intent(in), target :: comp(n_cells, n), grad(n_cells, n_dim, n)
+    real(c_double), intent(inout) :: jac(n_cells, n, n_dim, n)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    real(c_double), intent(in), optional, target :: M(n), grad_lnP(n_cells, n_dim)
+    real(c_double), intent(in), optional, target :: kT(n_cells, n), grad_lnT(n_cells, n_dim)
+    real(c_double), intent(inout), optional, target :: flux(n_cells, n_dim, n)
+    type(c_ptr) :: pM, pF
+    type(mcd_cells_t) :: cells
+    pM = c_null_ptr
+    pF = c_null_ptr
+    if (present(M)) pM = c_loc(M)
+    if (present(flux)) pF = c_loc(flux)
+    call set_cells(cells, n_cells, n_dim, comp_basis, c_loc(comp), c_loc(grad))
+    if (present(grad_lnP)) cells%grad_lnP = c_loc(grad_lnP)
+    if (present(kT)) cells%kT = c_loc(kT)
+    if (present(grad_lnT)) cells%grad_lnT = c_loc(grad_lnT)
+    call finish(c_mcd_flux_batch_jacobian(ws%ptr, int(model, c_int), csz(n), pM, &
+         Dij, c, cells, int(flux_basis, c_int), pF, jac), stat, errmsg)
+  end subroutine mcd_flux_batch_jacobian
 
   !> As mcd_flux_batch with per-cell arrays: comp(N, n_cells), grad and
   !> flux (n_dim, N, n_cells), grad_lnP(n_dim, n_cells) optional, kT(N,

@@ -14,6 +14,7 @@ program test_mcdiff
   call check_fsg_against_experiment()
   call check_binary_limit()
   call check_thermal_binary()
+  call check_jacobians()
   call check_ternary()
   call check_film_stagnant()
   call check_batch()
@@ -223,6 +224,60 @@ contains
     call check(maxval(abs(dJ)) <= 1e-12_c_double * abs(ref), &
          'jacobian of a binary without pressure diffusion is zero')
   end subroutine check_thermal_binary
+
+  ! Jacobians, two species (Bird, Stewart and Lightfoot 2002, sec. 24.2;
+  ! from memory): the mass flux j_1 = -c Mbar D12 grad w_1 with
+  ! 1/Mbar = sum w/M, so along e_1 - w dj_1 = c D12 grad w_1 Mbar^2
+  ! (1/M_1 - 1/Mbar); with D ~ T^1.75 / P and c = P/(R T) the flux goes as
+  ! T^0.75 (dJ/dT = 0.75 J/T, dJ/dP = 0); the batched call equals the
+  ! single-state one (the same code per cell).
+  subroutine check_jacobians()
+    type(mcd_workspace_t) :: ws
+    real(c_double) :: Dij(2, 2), M(2), w(2), grad(1, 2), dF(2, 1, 2), J(1, 2)
+    real(c_double) :: dT(2, 2), dP(2, 2), oT(1, 2), oP(1, 2), c, Mb, want, T, P
+    real(c_double) :: Db(1, 2, 2), cb(1), wb(1, 2), gb(1, 1, 2), jac(1, 2, 1, 2)
+    integer :: stat, mo
+    character(len=256) :: msg
+    Dij = reshape([0.0_c_double, 6e-5_c_double, 6e-5_c_double, 0.0_c_double], [2, 2])
+    M = [0.002_c_double, 0.044_c_double]
+    w = [0.35_c_double, 0.65_c_double]
+    grad(1, :) = [8.0_c_double, -8.0_c_double]
+    c = 40.0_c_double
+    call mcd_workspace_new(ws, 2, stat, msg)
+    call check_stat(stat, msg, 'workspace')
+    do mo = 0, 1
+      call mcd_flux_jacobian(ws, mo, 2, 1, Dij, c, MCD_BASIS_MASS, w, grad, &
+           MCD_BASIS_MASS, dF, stat, msg, M=M)
+      call check_stat(stat, msg, 'flux_jacobian')
+      Mb = 1.0_c_double / (w(1) / M(1) + w(2) / M(2))
+      want = c * 6e-5_c_double * grad(1, 1) * Mb**2 * (1.0_c_double / M(1) - 1.0_c_double / Mb)
+      call check(abs(dF(1, 1, 1) - want) <= 1e-12_c_double * abs(want), &
+           'mass-basis binary Jacobian closed form')
+    end do
+    T = 600.0_c_double
+    P = 2e5_c_double
+    dT = 1.75_c_double * Dij / T
+    dP = -Dij / P
+    call mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, 2, 1, Dij, c, &
+         MCD_BASIS_MOLE, w, grad, MCD_BASIS_MOLE, J, stat, msg)
+    call check_stat(stat, msg, 'flux')
+    call mcd_flux_jacobian_tp(ws, MCD_MODEL_MAXWELL_STEFAN, 2, 1, Dij, c, &
+         MCD_BASIS_MOLE, w, grad, MCD_BASIS_MOLE, T, P, dT, dP, oT, oP, stat, msg)
+    call check_stat(stat, msg, 'flux_jacobian_tp')
+    call check(abs(oT(1, 1) - 0.75_c_double * J(1, 1) / T) <= 1e-12_c_double * abs(J(1, 1)) / T, &
+         'dJ/dT = 0.75 J / T for D ~ T^1.75 / P')
+    call check(abs(oP(1, 1)) <= 1e-12_c_double * abs(J(1, 1)) / P, 'dJ/dP = 0')
+    Db(1, :, :) = Dij
+    cb = c
+    wb(1, :) = w
+    gb(1, 1, :) = grad(1, :)
+    call mcd_flux_batch_jacobian(ws, MCD_MODEL_MIXTURE_AVERAGED, 2, 1, 1, Db, cb, &
+         MCD_BASIS_MASS, wb, gb, MCD_BASIS_MASS, jac, stat, msg, M=M)
+    call check_stat(stat, msg, 'flux_batch_jacobian')
+    call check(maxval(abs(jac(1, :, :, :) - dF)) <= 1e-13_c_double * maxval(abs(dF)), &
+         'batched Jacobian equals the single-state one')
+    call mcd_free(ws)
+  end subroutine check_jacobians
 
   ! Ternary ideal gas H2 / N2 / CO2 (an invented state): fluxes sum to zero
   ! in both bases, and the Fick matrix in the documented transposed layout

@@ -61,6 +61,8 @@
     X(workspace_new_with, (size_t n_species, const mcd_allocator *allocator, mcd_workspace **out_ws), (n_species, allocator, out_ws)) \
     X(flux_compute, (mcd_workspace *ws, mcd_model model, const mcd_state *state, mcd_basis flux_basis, double *out_flux), (ws, model, state, flux_basis, out_flux)) \
     X(flux_jacobian_comp, (mcd_workspace *ws, const mcd_state *state, double *out_dJ), (ws, state, out_dJ)) \
+    X(flux_jacobian, (mcd_workspace *ws, mcd_model model, const mcd_state *state, mcd_basis flux_basis, double *out_dflux), (ws, model, state, flux_basis, out_dflux)) \
+    X(flux_jacobian_tp, (mcd_workspace *ws, mcd_model model, const mcd_state *state, mcd_basis flux_basis, double T, double P, const double *dDij_dT, const double *dDij_dP, double *out_dT, double *out_dP), (ws, model, state, flux_basis, T, P, dDij_dT, dDij_dP, out_dT, out_dP)) \
     X(thermal_ratios, (mcd_workspace *ws, const mcd_state *state, const double *DT, double *out_kT), (ws, state, DT, out_kT)) \
     X(fick_matrix, (mcd_workspace *ws, const mcd_state *state, mcd_basis basis, size_t dependent, double *out_D, size_t *out_dependent), (ws, state, basis, dependent, out_D, out_dependent)) \
     X(fick_fluxes, (size_t n_species, size_t n_dim, const double *D, size_t dependent, double c_or_rho, const double *grad, double *out_flux), (n_species, n_dim, D, dependent, c_or_rho, grad, out_flux)) \
@@ -75,6 +77,7 @@
     X(flux_batch, (mcd_workspace *ws, const mcd_mixture *mix, mcd_model model, const double *T, const double *P, const mcd_cells *cells, mcd_basis flux_basis, double *out_flux), (ws, mix, model, T, P, cells, flux_basis, out_flux)) \
     X(flux_batch_dij, (mcd_workspace *ws, mcd_model model, size_t n_species, const double *M, const double *Dij, const double *c, const mcd_cells *cells, mcd_basis flux_basis, double *out_flux), (ws, model, n_species, M, Dij, c, cells, flux_basis, out_flux)) \
     X(flux_batch_aos, (mcd_workspace *ws, const mcd_mixture *mix, mcd_model model, const double *T, const double *P, const mcd_cells *cells, mcd_basis flux_basis, double *out_flux), (ws, mix, model, T, P, cells, flux_basis, out_flux)) \
+    X(flux_batch_jacobian, (mcd_workspace *ws, mcd_model model, size_t n_species, const double *M, const double *Dij, const double *c, const mcd_cells *cells, mcd_basis flux_basis, double *out_flux, double *out_jac), (ws, model, n_species, M, Dij, c, cells, flux_basis, out_flux, out_jac)) \
     X(workspace_set_iterative, (mcd_workspace *ws, size_t max_iter, double tol), (ws, max_iter, tol)) \
     X(workspace_iterative_outcome, (const mcd_workspace *ws, double *out_max_error, size_t *out_max_iter), (ws, out_max_error, out_max_iter)) \
     X(workspace_set_threads, (mcd_workspace *ws, size_t n_threads), (ws, n_threads)) \

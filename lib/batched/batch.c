@@ -52,6 +52,10 @@ size_t mcdi_batch_scratch_doubles(size_t cap)
                      mcdi_aos_doubles(cap, MCD_MAX_DIM, 1);
         need = one > need ? one : need;
     }
+    {
+        size_t jc = mcdi_jcell_doubles(cap, MCD_MAX_DIM, 1);
+        need = jc > need ? jc : need;
+    }
     return MCDI_STREAM_DOUBLES + need; /* streaming state, then the block */
 }
 
@@ -217,9 +221,9 @@ static mcd_status run_job(mcd_workspace *ws, const mcdi_bjob *jb)
 }
 
 /* Checks shared by every batched entry point (writes nothing). */
-static mcd_status check_common(mcd_workspace *ws, mcd_model model, size_t n,
-                               const mcd_cells *cl, mcd_basis flux_basis,
-                               const double *out)
+mcd_status mcdi_batch_check_common(mcd_workspace *ws, mcd_model model, size_t n,
+                                   const mcd_cells *cl, mcd_basis flux_basis,
+                                   const double *out, const char *out_name)
 {
     mcd_status st;
     if ((st = mcdi_check_ws_obj(ws, cl, "cells")) != MCD_OK)
@@ -231,7 +235,7 @@ static mcd_status check_common(mcd_workspace *ws, mcd_model model, size_t n,
         (st = mcdi_check_basis(ws, flux_basis, "flux_basis")) != MCD_OK ||
         (st = mcdi_check_ptr(ws, cl->comp, "comp")) != MCD_OK ||
         (st = mcdi_check_ptr(ws, cl->grad, "grad")) != MCD_OK ||
-        (st = mcdi_check_ptr(ws, out, "out_flux")) != MCD_OK)
+        (st = mcdi_check_ptr(ws, out, out_name)) != MCD_OK)
         return st;
     if ((cl->kT == NULL) != (cl->grad_lnT == NULL))
         return mcdi_fail(MCD_EINVAL,
@@ -308,7 +312,8 @@ static mcd_status mixture_job(mcd_workspace *ws, const mcd_mixture *mix,
     if ((st = mcdi_check_ws_obj(ws, mix, "mix")) != MCD_OK)
         return st;
     n = mix->n;
-    if ((st = check_common(ws, model, n, cl, flux_basis, out_flux)) != MCD_OK)
+    if ((st = mcdi_batch_check_common(ws, model, n, cl, flux_basis, out_flux,
+                                      "out_flux")) != MCD_OK)
         return st;
     if ((st = MCDI_CHECK_PTRS2(T, P)) != MCD_OK)
         return st;
@@ -345,8 +350,8 @@ mcd_status mcdi_api_flux_batch_dij(mcd_workspace *ws, mcd_model model,
     mcdi_bjob jb;
     mcd_status st;
     int need_M;
-    if ((st = check_common(ws, model, n_species, cl, flux_basis, out_flux)) !=
-        MCD_OK)
+    if ((st = mcdi_batch_check_common(ws, model, n_species, cl, flux_basis,
+                                      out_flux, "out_flux")) != MCD_OK)
         return st;
     if ((st = MCDI_CHECK_PTRS2(Dij, c)) != MCD_OK)
         return st;

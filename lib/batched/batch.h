@@ -88,6 +88,13 @@ int mcdi_batch_stream_choice(size_t bytes);
  * by batch_layout.h (batch.c). */
 size_t mcdi_batch_scratch_doubles(size_t cap);
 
+/* The argument checks every batched call starts with (batch.c): ws,
+ * cells, n, n_dim, model, bases, comp, grad, the output (named out_name)
+ * and the thermal pair. */
+mcd_status mcdi_batch_check_common(mcd_workspace *ws, mcd_model model, size_t n,
+                                   const mcd_cells *cl, mcd_basis flux_basis,
+                                   const double *out, const char *out_name);
+
 /* Process cells k0 .. k0+nv-1 (1 <= nv <= mcdi_batch_lanes(n)) of the job.
  * mem: scratch of mcdi_batch_scratch_doubles(n) doubles, 64-byte aligned.
  * Writes the block's outputs unless res->st != MCD_OK. Dispatches to the

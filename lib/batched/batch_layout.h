@@ -72,4 +72,15 @@ MCDI_DEFINE_LAYOUT(mcdi_kblock, MCDI_KBLOCK_REGIONS, mcdi_kblock_doubles,
 MCDI_DEFINE_LAYOUT(mcdi_aos_stage, MCDI_AOS_REGIONS, mcdi_aos_doubles,
                    mcdi_aos_carve)
 
+/* mcd_flux_batch_jacobian (batch_jac.c): one cell gathered from the SoA
+ * arrays into the arrays of an mcd_state, and its results, at the start
+ * of thread 0's region after the streaming state (the call is serial). */
+/* clang-format off */
+#define MCDI_JCELL_REGIONS(R)                                               \
+    R(comp, n) R(grad, n * nd) R(glnP, nd) R(kT, n) R(glnT, nd)           \
+    R(Dij, n * n) R(flux, n * nd) R(jac, n * nd * n)
+/* clang-format on */
+MCDI_DEFINE_LAYOUT(mcdi_jcell, MCDI_JCELL_REGIONS, mcdi_jcell_doubles,
+                   mcdi_jcell_carve)
+
 #endif

@@ -14,8 +14,10 @@
 
 /* mcd_flux_compute and its stages (ms_ldl.c, flux/solve_stages.h: the
  * rows of mcdi_rows with one lane, and the dense exact solve), and
- * mcd_thermal_ratios (x, w, DT, kT) and mcd_flux_jacobian_comp (jJ, jd,
- * jac: regions the flux solve it calls does not touch) */
+ * mcd_thermal_ratios (x, w, DT, kT), mcd_flux_jacobian_comp (jJ, jd,
+ * jac: regions the flux solve it calls does not touch) and the tangents
+ * of flux/tangent.c (jJ, jd, jac and the t* regions, untouched by the
+ * flux solve as well) */
 /* clang-format off */
 #define MCDI_FLUX_REGIONS(R)                                                \
     R(x, n) R(w, n)              /* mole and mass fractions */             \
@@ -37,7 +39,20 @@
     R(DT, n) R(kT, n)            /* mcd_thermal_ratios: D^T, k_T */       \
     R(jJ, n * MCD_MAX_DIM)       /* mcd_flux_jacobian_comp: J, */          \
     R(jd, n * MCD_MAX_DIM)       /* the forces of one column, */           \
-    R(jac, n * n * MCD_MAX_DIM)  /* and the columns dJ/dx_k */
+    R(jac, n * n * MCD_MAX_DIM)  /* and the columns dJ/dx_k */          \
+    R(tx, n) R(tw, n)            /* tangent.c: the state's x, w, */        \
+    R(tgx, n * MCD_MAX_DIM)      /* mole-fraction gradients, */            \
+    R(ts, n * MCD_MAX_DIM)       /* unprojected forces, */                 \
+    R(td, n * MCD_MAX_DIM)       /* projected forces, */                   \
+    R(tS, n) R(tDm, n)           /* Blanc sums, D_im (mixture-averaged), */ \
+    R(tiD, n * n)                /* 1/Đ_ij, full (diagonal 0), */          \
+    R(tP, n * MCD_MAX_DIM)       /* sum_j J_j / Đ_ij, */                   \
+    R(tJs, n * MCD_MAX_DIM)      /* uncorrected fluxes J* (the same), */   \
+    R(tdx, n) R(tdw, n)          /* and of one direction: dx, dw, */       \
+    R(tdg, n * MCD_MAX_DIM)      /* d grad x, */                           \
+    R(tdd, n * MCD_MAX_DIM)      /* d forces, */                           \
+    R(tdJ, n * MCD_MAX_DIM)      /* d fluxes, */                           \
+    R(tF, n * n * MCD_MAX_DIM)   /* the forces of all columns */
 /* clang-format on */
 
 /* mcd_fick_matrix and mcd_fick_eigenvalues */

@@ -101,4 +101,33 @@ mcd_status mcdi_flux_state(mcd_workspace *ws, mcd_model model,
                            const mcd_state *state, mcd_basis flux_basis,
                            double *out_flux, mcdi_state_solver iterate);
 
+/* The exact model's molar fluxes J (n x nd) of a state already
+ * validated by mcdi_flux_state: x normalised (n >= 2), driving forces f
+ * (n x nd, projected again onto sum_i f_i = 0 as mcdi_flux_state does);
+ * no checks, no finiteness test of J (the caller's). The flux solve of
+ * mcd_flux_compute (maxwell_stefan.c); uses the core bank's flux view
+ * except jJ, jd, jac and the t* regions. */
+mcd_status mcdi_flux_solve_exact(mcd_workspace *ws, size_t n, size_t nd,
+                                 const double *x, const double *f,
+                                 const double *Dij, double c, double *J);
+
+/* The same for ncol right-hand sides at once with one factorisation
+ * (F: n x ncol row-major, projected in place, then overwritten; Y: n x
+ * ncol): every species present (x_i > 0), n >= 2 (the fused kernel,
+ * LAPACK's Cholesky above MCDI_MS_LAPACK_N; ncol is its n_dim, any
+ * size). */
+mcd_status mcdi_flux_solve_exact_wide(mcd_workspace *ws, size_t n, size_t ncol,
+                                      const double *x, double *F,
+                                      const double *Dij, double c, double *Y);
+
+/* mcd_flux_jacobian with the fluxes as well (tangent.c): out_jac
+ * (N n_dim x N, as mcd_flux_jacobian) and, unless NULL, out_flux (N x
+ * n_dim, equal to mcd_flux_compute's to the bit); both written only on
+ * success; jac_name names out_jac in messages. The per-cell core of
+ * mcd_flux_batch_jacobian. */
+mcd_status mcdi_flux_jacobian_state(mcd_workspace *ws, mcd_model model,
+                                    const mcd_state *state, mcd_basis fb,
+                                    double *out_flux, double *out_jac,
+                                    const char *jac_name);
+
 #endif

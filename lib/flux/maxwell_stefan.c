@@ -251,6 +251,42 @@ static mcd_status solve_state(mcd_workspace *ws, const mcdi_flux_view *v,
     return MCD_OK;
 }
 
+mcd_status mcdi_flux_solve_exact(mcd_workspace *ws, size_t n, size_t nd,
+                                 const double *x, const double *f,
+                                 const double *Dij, double c, double *J)
+{
+    mcdi_flux_view v;
+    mcd_status st;
+    mcdi_flux_scratch(ws, &v);
+    memcpy(v.x, x, n * sizeof(double));
+    /* the projection of mcdi_driving_forces (f sums to zero already) */
+    remove_along_into(v.d, f, NULL, v.x, n, 1, nd);
+    if ((st = solve_state(ws, &v, MCD_MODEL_MAXWELL_STEFAN, n, nd, Dij, c)) !=
+        MCD_OK)
+        return st;
+    memcpy(J, v.J, n * nd * sizeof(double));
+    return MCD_OK;
+}
+
+mcd_status mcdi_flux_solve_exact_wide(mcd_workspace *ws, size_t n, size_t ncol,
+                                      const double *x, double *F,
+                                      const double *Dij, double c, double *Y)
+{
+    mcdi_flux_view v;
+    size_t bad;
+    mcdi_flux_scratch(ws, &v);
+    remove_along(F, NULL, x, n, 1, ncol);
+    bad = mcdi_ms_ldl_select()(n, ncol, x, Dij, n, F, c, v.A, v.s, v.isq, v.S,
+                               v.dinv, Y, F);
+    if (bad != 0)
+        return mcdi_fail(MCD_ESING,
+                         "Maxwell-Stefan matrix not positive definite at "
+                         "pivot %zu (round-off; check Dij scale)",
+                         bad - 1);
+    mcdi_flux_zero_sum(n, ncol, x, Y);
+    return MCD_OK;
+}
+
 mcd_status mcdi_flux_state(mcd_workspace *ws, mcd_model model,
                            const mcd_state *state, mcd_basis flux_basis,
                            double *out_flux, mcdi_state_solver iterate)

@@ -548,6 +548,74 @@ class Fluxes(unittest.TestCase):
         self.assertAlmostEqual(a[0], want, delta=1e-12 * abs(want))
         self.assertAlmostEqual(a[2], -want, delta=1e-12 * abs(want))
 
+    def test_flux_jacobian_models_bases_and_finite_differences(self):
+        # both models, mass fractions and mass fluxes: every column sums to
+        # zero, and column k matches a fourth-order central difference of
+        # flux_compute along e_k - w (step 1e-4 of the smallest fraction
+        # 0.2: truncation ~ (5e-4)^4, round-off ~ 1e-16 / 2e-5 relative;
+        # bound 1e-8 of the largest entry)
+        D = [[0, 2e-5, 3e-5], [2e-5, 0, 1e-5], [3e-5, 1e-5, 0]]
+        M = [0.004, 0.028, 0.044]
+        w = [0.2, 0.3, 0.5]
+        g = [[1.0], [2.0], [-3.0]]
+        for model in ("maxwell-stefan", "mixture-averaged"):
+            A = flat(mcdiff.flux_jacobian(D, 40.0, w, g, M=M, model=model,
+                                          comp_basis="mass"))
+            scale = max(abs(v) for v in A)
+            for k in range(3):
+                self.assertLess(abs(A[k] + A[3 + k] + A[6 + k]),
+                                1e-12 * scale)
+                h = 2e-5
+
+                def f(t):
+                    y = [w[j] + t * ((j == k) - w[j]) for j in range(3)]
+                    return flat(mcdiff.flux_compute(D, 40.0, y, g, M=M,
+                                                    model=model,
+                                                    comp_basis="mass"))
+                fp2, fp1, fm1, fm2 = f(2 * h), f(h), f(-h), f(-2 * h)
+                for i in range(3):
+                    fd = (-fp2[i] + 8 * fp1[i] - 8 * fm1[i] + fm2[i]) / (12 * h)
+                    self.assertAlmostEqual(fd, A[3 * i + k],
+                                           delta=1e-8 * scale)
+        with self.assertRaises(mcdiff.InvalidArgumentError):
+            mcdiff.flux_jacobian(D, 40.0, w, g, model="iterative")
+
+    def test_flux_jacobian_tp_power_law(self):
+        # D ~ T^1.75 / P and c = P / (R T): the fluxes go as T^0.75
+        # (Fuller-Schettler-Giddings scaling; common practice), so
+        # dJ/dT = 0.75 J / T and dJ/dP = 0
+        D = [[0, 2e-5, 3e-5], [2e-5, 0, 1e-5], [3e-5, 1e-5, 0]]
+        x = [0.2, 0.3, 0.5]
+        g = [[1.0], [2.0], [-3.0]]
+        T, P = 500.0, 2e5
+        dT = [[1.75 * v / T for v in r] for r in D]
+        dP = [[-v / P for v in r] for r in D]
+        J = flat(mcdiff.flux_compute(D, 40.0, x, g,
+                                     model="mixture-averaged"))
+        oT, oP = mcdiff.flux_jacobian_tp(D, 40.0, x, g, T, P, dT, dP,
+                                         model="mixture-averaged")
+        big = max(abs(v) for v in J)
+        for i, (a, b) in enumerate(zip(flat(oT), flat(oP))):
+            self.assertAlmostEqual(a, 0.75 * J[i] / T, delta=1e-12 * big / T)
+            self.assertLess(abs(b), 1e-12 * big / P)
+
+    def test_flux_batch_jacobian_equals_single_state(self):
+        D = [[0, 2e-5, 3e-5], [2e-5, 0, 1e-5], [3e-5, 1e-5, 0]]
+        xs = [[0.2, 0.3, 0.5], [0.6, 0.0, 0.4]]
+        g = [[1.0], [2.0], [-3.0]]
+        K = 2
+        Dc = [[[D[i][j]] * K for j in range(3)] for i in range(3)]
+        comp = [[xs[k][i] for k in range(K)] for i in range(3)]
+        grad = [[[g[i][0]] * K] for i in range(3)]
+        F, Jb = mcdiff.flux_batch_jacobian(Dc, [40.0] * K, comp, grad)
+        Jb = flat(Jb)  # [i][d][k][cell]
+        for cell in range(K):
+            A = flat(mcdiff.flux_jacobian(D, 40.0, xs[cell], g))
+            scale = max(abs(v) for v in A)
+            for e in range(9):
+                self.assertAlmostEqual(Jb[e * K + cell], A[e],
+                                       delta=1e-13 * scale)
+
     def test_result_shapes_follow_the_gradient(self):
         D = [[0, 2e-5, 3e-5], [2e-5, 0, 1e-5], [3e-5, 1e-5, 0]]
         x = [0.2, 0.3, 0.5]

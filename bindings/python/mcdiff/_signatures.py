@@ -194,6 +194,11 @@ SIGNATURES = {
     "mcd_flux_compute": (_ST, [_H, _E, _H, _E, _PD]),
     # (ws, state, out_dJ)
     "mcd_flux_jacobian_comp": (_ST, [_H, _H, _PD]),
+    # (ws, model, state, flux_basis, out_dflux)
+    "mcd_flux_jacobian": (_ST, [_H, _E, _H, _E, _PD]),
+    # (ws, model, state, flux_basis, T, P, dDij_dT, dDij_dP, out_dT, out_dP)
+    "mcd_flux_jacobian_tp": (_ST, [_H, _E, _H, _E, _D, _D, _PD, _PD, _PD,
+                                   _PD]),
     # (ws, state, DT, out_kT)
     "mcd_thermal_ratios": (_ST, [_H, _H, _PD, _PD]),
     # (ws, state, basis, dependent, out_D, out_dependent)
@@ -227,6 +232,9 @@ SIGNATURES = {
     "mcd_flux_batch_dij": (_ST, [_H, _E, _SZ, _PD, _PD, _PD, _H, _E, _PD]),
     # (ws, mix, model, T, P, cells, flux_basis, out_flux)
     "mcd_flux_batch_aos": (_ST, [_H, _H, _E, _PD, _PD, _H, _E, _PD]),
+    # (ws, model, n_species, M, Dij, c, cells, flux_basis, out_flux, out_jac)
+    "mcd_flux_batch_jacobian": (_ST, [_H, _E, _SZ, _PD, _PD, _PD, _H, _E, _PD,
+                                      _PD]),
     # (ws, max_iter, tol)
     "mcd_workspace_set_iterative": (_ST, [_H, _SZ, _D]),
     # (ws, out_max_error, out_max_iter)

@@ -43,7 +43,8 @@ __all__ = [
     "binary_gas", "binary_liquid", "binary_tyn_calus",
     "binary_hayduk_minhas", "method_temperature_range",
     # fluxes
-    "flux_compute", "thermal_ratios", "flux_jacobian", "fick_matrix",
+    "flux_compute", "thermal_ratios", "flux_jacobian", "flux_jacobian_tp",
+    "flux_batch_jacobian", "fick_matrix",
     "fick_fluxes",
     "fick_eigenvalues",
     "flux_convert", "flux_to_volume_frame", "flux_to_species_frame",
@@ -529,12 +530,10 @@ def flux_compute(Dij, c, comp, grad, *, M=None, model="maxwell-stefan",
     return _field_result(o, was_1d)
 
 
-def flux_jacobian(Dij, c, comp, grad, *, M=None, Gamma=None, grad_lnP=None,
-                  kT=None, grad_lnT=None, workspace=None):
-    """Derivatives of the exact Maxwell-Stefan fluxes with respect to the
-    mole fractions at fixed gradients (mcd_flux_jacobian_comp): shape
-    (n, n_dim, n), [i][d][k] = dJ_{i,d}/dx_k [mol/(m^2 s)]. Arguments as
-    flux_compute (mole fractions only); grad of shape (n, n_dim)."""
+def _jac_state(Dij, c, comp, grad, M, Gamma, grad_lnP, kT, grad_lnT, cb,
+               workspace):
+    """The mcd_state of the Jacobian calls, its arrays (kept alive by the
+    caller) and the workspace."""
     x = _arrays.vector(comp, None, "comp")
     n = x.shape[0]
     D = _arrays.matrix(Dij, n, n, "Dij")
@@ -547,14 +546,61 @@ def flux_jacobian(Dij, c, comp, grad, *, M=None, Gamma=None, grad_lnP=None,
     lt = _opt(grad_lnT, lambda v: _arrays.vector(
         [v] if isinstance(v, (int, float)) else v, nd, "grad_lnT"))
     ws = _ws(workspace, n)
-    o = _arrays.Output((n, nd, n))
-    state = mcd_state(n_species=n, n_dim=nd, comp_basis=Basis.MOLE,
+    state = mcd_state(n_species=n, n_dim=nd, comp_basis=cb,
                       c=_sc(c, "c"), M=_ptr(m), Dij=D.ptr, comp=x.ptr,
                       grad=g.ptr, Gamma=_ptr(G), grad_lnP=_ptr(lp),
                       kT=_ptr(kt), grad_lnT=_ptr(lt))
-    st = lib.mcd_flux_jacobian_comp(ws._p(), ctypes.byref(state), o.ptr)
-    ws.check(st, "mcd_flux_jacobian_comp")
+    return state, (x, D, g, m, G, lp, kt, lt), ws, n, nd
+
+
+def flux_jacobian(Dij, c, comp, grad, *, M=None, Gamma=None, grad_lnP=None,
+                  kT=None, grad_lnT=None, model="maxwell-stefan",
+                  comp_basis="mole", flux_basis=None, workspace=None):
+    """Derivatives of the fluxes of flux_compute with respect to the input
+    fractions at fixed gradients (mcd_flux_jacobian): shape (n, n_dim, n),
+    [i][d][k] = dF_{i,d}/dy_k, [mol/(m^2 s)] (molar fluxes) or
+    [kg/(m^2 s)] (mass fluxes) per unit fraction. model
+    "maxwell-stefan" or "mixture-averaged"; comp_basis and flux_basis
+    (default: comp_basis) as flux_compute; other arguments as
+    flux_compute, grad of shape (n, n_dim). Renormalisation of the
+    fractions is included: every row satisfies sum_k y_k dF/dy_k = 0."""
+    mdl = coerce(Model, model, "model")
+    cb = coerce(Basis, comp_basis, "comp_basis")
+    fb = cb if flux_basis is None else coerce(Basis, flux_basis, "flux_basis")
+    state, keep, ws, n, nd = _jac_state(Dij, c, comp, grad, M, Gamma,
+                                        grad_lnP, kT, grad_lnT, cb, workspace)
+    o = _arrays.Output((n, nd, n))
+    st = lib.mcd_flux_jacobian(ws._p(), mdl, ctypes.byref(state), fb, o.ptr)
+    ws.check(st, "mcd_flux_jacobian")
+    del keep
     return o.result()
+
+
+def flux_jacobian_tp(Dij, c, comp, grad, T, P, dDij_dT, dDij_dP, *, M=None,
+                     Gamma=None, grad_lnP=None, kT=None, grad_lnT=None,
+                     model="maxwell-stefan", comp_basis="mole",
+                     flux_basis=None, workspace=None):
+    """Derivatives of the fluxes with respect to T [K] and P [Pa]
+    (mcd_flux_jacobian_tp): through c = P / (R T) and your dDij_dT
+    [m^2/(s K)], dDij_dP [m^2/(s Pa)] (n x n; for D ~ T^1.75 / P pass
+    1.75 D / T and -D / P; zeros for no dependence). Composition,
+    gradients, Gamma, kT held fixed. Returns (dF_dT, dF_dP), each of shape
+    (n, n_dim)."""
+    mdl = coerce(Model, model, "model")
+    cb = coerce(Basis, comp_basis, "comp_basis")
+    fb = cb if flux_basis is None else coerce(Basis, flux_basis, "flux_basis")
+    state, keep, ws, n, nd = _jac_state(Dij, c, comp, grad, M, Gamma,
+                                        grad_lnP, kT, grad_lnT, cb, workspace)
+    dT = _arrays.matrix(dDij_dT, n, n, "dDij_dT")
+    dP = _arrays.matrix(dDij_dP, n, n, "dDij_dP")
+    oT = _arrays.Output((n, nd))
+    oP = _arrays.Output((n, nd))
+    st = lib.mcd_flux_jacobian_tp(ws._p(), mdl, ctypes.byref(state), fb,
+                                  _sc(T, "T"), _sc(P, "P"), dT.ptr, dP.ptr,
+                                  oT.ptr, oP.ptr)
+    ws.check(st, "mcd_flux_jacobian_tp")
+    del keep
+    return oT.result(), oP.result()
 
 
 def thermal_ratios(Dij, c, comp, M, DT, *, comp_basis="mole",
@@ -948,6 +994,46 @@ def flux_batch_dij(Dij, c, comp, grad, *, M=None, model="maxwell-stefan",
                                 ctypes.byref(cells), fb, o.ptr)
     ws.check(st, "mcd_flux_batch_dij")
     return out if out is not None else o.result()
+
+
+def flux_batch_jacobian(Dij, c, comp, grad, *, M=None,
+                        model="maxwell-stefan", comp_basis="mole",
+                        flux_basis=None, grad_lnP=None, kT=None,
+                        grad_lnT=None, workspace=None):
+    """Batched fluxes and composition Jacobians with your own per-cell
+    binary diffusivities (mcd_flux_batch_jacobian, cells last; arguments
+    as flux_batch_dij, grad of shape (N, n_dim, K)). Returns (flux, jac):
+    flux of shape (N, n_dim, K), jac of shape (N, n_dim, N, K) with
+    jac[i, d, k, cell] = dF_{i,d}/dy_k of that cell (flux_jacobian)."""
+    mdl = coerce(Model, model, "model")
+    cb = coerce(Basis, comp_basis, "comp_basis")
+    fb = cb if flux_basis is None else coerce(Basis, flux_basis, "flux_basis")
+    ca = _arrays.vector([c] if isinstance(c, (int, float)) else c, None, "c")
+    K = ca.shape[0]
+    a0 = _arrays.as_doubles(comp, "comp")
+    if a0.ndim == 2:
+        N = a0.shape[0]
+    elif K:
+        N = a0.size // K
+    else:
+        raise ValueError("comp: give shape (N, K) when K = 0")
+    D = _arrays.as_doubles(Dij, "Dij")
+    if not (D.shape == (N, N, K) or (D.ndim == 1 and D.size == N * N * K)):
+        raise ValueError("Dij: expected shape %s, got %s"
+                         % ((N, N, K), D.shape))
+    a, g, nd, lp = _batch_fields(N, K, a0, grad, grad_lnP, "soa")
+    kt, lt = _batch_thermal(N, K, nd, kT, grad_lnT)
+    m = _opt(M, lambda v: _arrays.vector(v, N, "M"))
+    ws = _ws(workspace, N)
+    o = _arrays.Output((N, nd, K))
+    oj = _arrays.Output((N, nd, N, K))
+    cells = mcd_cells(n_cells=K, n_dim=nd, comp_basis=cb, comp=a.ptr,
+                      grad=g.ptr, grad_lnP=_ptr(lp), kT=_ptr(kt),
+                      grad_lnT=_ptr(lt))
+    st = lib.mcd_flux_batch_jacobian(ws._p(), mdl, N, _ptr(m), D.ptr, ca.ptr,
+                                     ctypes.byref(cells), fb, o.ptr, oj.ptr)
+    ws.check(st, "mcd_flux_batch_jacobian")
+    return o.result(), oj.result()
 
 
 # ---------------------------------------------------------------------------
