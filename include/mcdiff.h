@@ -361,8 +361,11 @@ typedef enum mcd_method {
     MCD_METHOD_USER = 5,           /**< value supplied by the caller */
     MCD_METHOD_TYN_CALUS = 6,      /**< Tyn-Calus (dilute solute in liquid)
                                         Since 0.3. */
-    MCD_METHOD_HAYDUK_MINHAS = 7   /**< Hayduk-Minhas (dilute solute in
+    MCD_METHOD_HAYDUK_MINHAS = 7,  /**< Hayduk-Minhas (dilute solute in
                                         water). Since 0.3. */
+    MCD_METHOD_BROKAW = 8          /**< Chapman-Enskog with Brokaw's (1969)
+                                        polar (Stockmayer) correction
+                                        (gases). Since 0.4. */
 } mcd_method;
 
 /** Gas-phase correlations, the methods a database pair or a mixture pair
@@ -371,11 +374,14 @@ typedef enum mcd_method {
 typedef enum mcd_gas_method {
     MCD_GAS_FSG = 1,            /**< Fuller-Schettler-Giddings */
     MCD_GAS_CHAPMAN_ENSKOG = 2, /**< Chapman-Enskog, Lennard-Jones */
-    MCD_GAS_WILKE_LEE = 3       /**< Wilke-Lee */
+    MCD_GAS_WILKE_LEE = 3,      /**< Wilke-Lee */
+    MCD_GAS_BROKAW = 8          /**< Brokaw's polar correction; database
+                                     pairs only (a mixture refuses it with
+                                     EINVAL). Since 0.4. */
 } mcd_gas_method;
 
 /** Short name of a method ("fsg", "chapman-enskog", "wilke-lee",
- *  "wilke-chang", "user", "tyn-calus", "hayduk-minhas"), or NULL.
+ *  "wilke-chang", "user", "tyn-calus", "hayduk-minhas", "brokaw"), or NULL.
  *  Since 0.1. */
 MCD_API const char *mcd_method_name(mcd_method m);
 /** Method from its short name (case-insensitive). Since 0.1.
@@ -420,6 +426,21 @@ MCD_API mcd_status mcd_binary_chapman_enskog(double T, double P, double MA,
 MCD_API mcd_status mcd_binary_wilke_lee(double T, double P, double MA, double MB,
                                      double sigA, double sigB, double epsA,
                                      double epsB, double *out_D);
+/** Chapman-Enskog with Brokaw's (1969) polar correction (Stockmayer
+ *  potential): per species delta = 1.94e3 mu^2 / (Vb Tb) (mu in debye, Vb
+ *  in cm^3/mol), eps/k = 1.18 (1 + 1.3 delta^2) Tb, sigma = (1.585 Vb /
+ *  (1 + 1.3 delta^2))^(1/3) Angstrom; geometric-mean combining rules; and
+ *  Omega_D = Omega_D(T*) + 0.19 delta_AB^2 / T*. Meant for pairs with a
+ *  polar species (a nonpolar one has dipole 0). Since 0.4.
+ *  @param MA,MB molar masses [kg/mol]; @param dipA,dipB dipole moments
+ *  [C m] (>= 0); @param VbA,VbB liquid molar volumes at the normal boiling
+ *  point [m^3/mol]; @param TbA,TbB normal boiling points [K].
+ *  Fails: EINVAL (NaN/inf, NULL), EDOM (non-positive input, negative
+ *  dipole) | Allocates: no */
+MCD_API mcd_status mcd_binary_brokaw(double T, double P, double MA, double MB,
+                                     double dipA, double dipB, double VbA,
+                                     double VbB, double TbA, double TbB,
+                                     double *out_D);
 /** Wilke-Chang infinite-dilution diffusivity of a solute in a liquid.
  *  @param mu_solvent  solvent viscosity at T [Pa s]
  *  @param M_solvent   [kg/mol]; @param phi association factor [-] (> 0)
@@ -442,6 +463,10 @@ MCD_API mcd_status mcd_binary_scale(double D_ref, double T_ref, double P_ref,
                                     double *out_D);
 
 /** Gas binary diffusivity of species a and b of a database by a method.
+ *  MCD_GAS_BROKAW (Since 0.4) needs the dipole, Vb and Tb of both species
+ *  and is the method to prefer when either is polar (MCD_WARN_POLAR of the
+ *  other methods: dipole above 1 debye); its own estimate does not carry
+ *  MCD_WARN_POLAR.
  *  @param out_rel_err  typical relative error of the method (may be NULL)
  *  @param out_warn     MCD_WARN_* bits (may be NULL). Since 0.1.
  *  Fails: EINVAL, EDOM, ENODATA (parameter missing), ENOTFOUND (index)
@@ -504,12 +529,15 @@ MCD_API mcd_status mcd_typical_error_widened(mcd_method m, unsigned warn,
 #define MCD_EXPLAIN_V_ROOTS 8   /**< V_A^(1/3) + V_B^(1/3) [-] (FSG) */
 #define MCD_EXPLAIN_SIGMA_A 9   /**< Lennard-Jones sigma of A [m] */
 #define MCD_EXPLAIN_SIGMA_B 10  /**< Lennard-Jones sigma of B [m] */
-#define MCD_EXPLAIN_SIGMA_AB 11 /**< (sigma_A + sigma_B) / 2 [m] */
+#define MCD_EXPLAIN_SIGMA_AB 11 /**< (sigma_A + sigma_B) / 2 [m]; Brokaw:
+                                     (sigma_A sigma_B)^(1/2), sigma and
+                                     eps/k from Vb, Tb and the dipole */
 #define MCD_EXPLAIN_EPS_A 12    /**< epsilon/k of A [K] */
 #define MCD_EXPLAIN_EPS_B 13    /**< epsilon/k of B [K] */
 #define MCD_EXPLAIN_EPS_AB 14   /**< sqrt(eps_A eps_B) [K] */
 #define MCD_EXPLAIN_T_STAR 15   /**< T / eps_AB [-] */
-#define MCD_EXPLAIN_OMEGA_D 16  /**< collision integral Omega_D(T*) [-] */
+#define MCD_EXPLAIN_OMEGA_D 16  /**< collision integral Omega_D(T*) [-];
+                                     Brokaw: + 0.19 delta_AB^2 / T* */
 #define MCD_EXPLAIN_WL_FACTOR 17 /**< Wilke-Lee 3.03 - 0.98 / M_AB^(1/2),
                                       M_AB in g/mol [-] */
 #define MCD_EXPLAIN_PHI 18      /**< Wilke-Chang association factor of the

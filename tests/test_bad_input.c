@@ -123,6 +123,7 @@ typedef struct ctx {
     /* scalars */
     double T, P, c, L, V1, V2, A, tol_diag, tol_ode, value, Tstar;
     double MA, MB, VA, VB, sigA, sigB, epsA, epsB, mu, Ms, phi, Vb;
+    double dipA, VbB, TbA; /* Brokaw: species A polar, B fixed nonpolar */
     double D_ref, T_ref, P_ref, expo, conc, Tlo, Thi, tol_it;
     double cij[3], alpha, Tmin, Tmax, Din1, Din2; /* liquid setters */
     double antA, antB, antC, rhoL, xl2[2];
@@ -392,6 +393,11 @@ static int call_mcd_binary_wilke_lee(ctx *c)
 {
     return mcd_binary_wilke_lee(c->T, c->P, c->MA, c->MB, c->sigA, c->sigB,
                                 c->epsA, c->epsB, OUT(o1, NB_O1));
+}
+static int call_mcd_binary_brokaw(ctx *c)
+{
+    return mcd_binary_brokaw(c->T, c->P, c->MA, c->MB, c->dipA, 0.0, c->Vb,
+                             c->VbB, c->TbA, 77.35, OUT(o1, NB_O1));
 }
 static int call_mcd_binary_wilke_chang(ctx *c)
 {
@@ -1370,7 +1376,7 @@ static const bcase cases[] = {
     /* ---- methods and binary estimates ---- */
     B(mcd_method_name, R_VALUE),
     C(mcd_method_name, "m 0", R_NULL, NULL, MI(method, 0)),
-    C(mcd_method_name, "m 8", R_NULL, NULL, MI(method, 8)),
+    C(mcd_method_name, "m 9", R_NULL, NULL, MI(method, 9)),
     C(mcd_method_name, "m -1", R_NULL, NULL, MI(method, -1)),
     B(mcd_method_from_name, MCD_OK),
     C(mcd_method_from_name, "name NULL", EINVAL_, NULL, MN(NB_NAME)),
@@ -1419,6 +1425,12 @@ static const bcase cases[] = {
     C(mcd_binary_wilke_lee, "epsB 0", EDOM_, NULL, MD(epsB, 0.0)),
     C(mcd_binary_wilke_lee, "M_AB 0.01 g/mol: negative correlation", EDOM_,
       NULL, MD(MA, 1e-5), MD(MB, 1e-5)),
+    TP_COMMON(mcd_binary_brokaw),
+    C(mcd_binary_brokaw, "dipA negative", EDOM_, NULL, MD(dipA, -1e-30)),
+    C(mcd_binary_brokaw, "dipA NaN", EINVAL_, NULL, MD(dipA, NAN)),
+    C(mcd_binary_brokaw, "VbA 0", EDOM_, NULL, MD(Vb, 0.0)),
+    C(mcd_binary_brokaw, "VbB inf", EINVAL_, NULL, MD(VbB, INFINITY)),
+    C(mcd_binary_brokaw, "TbA negative", EDOM_, NULL, MD(TbA, -300.0)),
     B(mcd_binary_wilke_chang, MCD_OK),
     C(mcd_binary_wilke_chang, "T NaN", EINVAL_, NULL, MD(T, NAN)),
     C(mcd_binary_wilke_chang, "T 0", EDOM_, NULL, MD(T, 0.0)),
@@ -2400,6 +2412,9 @@ static void ctx_init(ctx *c)
     c->Ms = 0.018;
     c->phi = 2.6;
     c->Vb = 4.2e-5;
+    c->dipA = 1.8 * 3.33564e-30; /* water-like */
+    c->VbB = 31.2e-6;
+    c->TbA = 373.15;
     c->lmodel = MCD_ACTIVITY_NRTL;
     c->lparam = MCD_LIQ_MOLAR_VOLUME;
     c->cij[0] = 0.1, c->cij[1] = 100.0, c->cij[2] = 0.0;

@@ -368,17 +368,144 @@ START_TEST(binary_raw_bad_inputs_leave_output_untouched)
 END_TEST
 
 /* ------------------------------------------------------------------ */
+/* Brokaw's polar correction                                           */
+/* ------------------------------------------------------------------ */
+
+/* Brokaw (1969) in the units of Reid, Prausnitz and Poling (1987) section
+ * 11-3 (from memory, as in binary.c), written out here independently:
+ * cm^3/mol, debye, Angstrom, bar, g/mol, cm^2/s. */
+static double brokaw_cgs(double T, double P_bar, double MA_g, double MB_g,
+                         double muA, double muB, double VbA, double VbB,
+                         double TbA, double TbB)
+{
+    double dA = 1.94e3 * muA * muA / (VbA * TbA);
+    double dB = 1.94e3 * muB * muB / (VbB * TbB);
+    double eA = 1.18 * (1 + 1.3 * dA * dA) * TbA;
+    double eB = 1.18 * (1 + 1.3 * dB * dB) * TbB;
+    double sA = cbrt(1.585 * VbA / (1 + 1.3 * dA * dA));
+    double sB = cbrt(1.585 * VbB / (1 + 1.3 * dB * dB));
+    double Ts = T / sqrt(eA * eB), om;
+    ck_assert_int_eq(mcd_binary_omega_d(Ts, &om), MCD_OK);
+    om += 0.19 * dA * dB / Ts;
+    return 0.00266 * pow(T, 1.5) /
+           (P_bar * sqrt(2.0 / (1.0 / MA_g + 1.0 / MB_g)) * sA * sB * om);
+}
+
+/* A random gas state and pair of molar masses: T [K], P [Pa], MA, MB
+ * [kg/mol]. */
+static void brokaw_state(double st[4])
+{
+    st[0] = sup_exp_range(&rng, 200, 1500);
+    st[1] = sup_exp_range(&rng, 1e4, 1e6);
+    st[2] = sup_exp_range(&rng, 2e-3, 0.3);
+    st[3] = sup_exp_range(&rng, 2e-3, 0.3);
+}
+
+START_TEST(binary_brokaw_matches_published_form)
+{
+    /* Random states and species, dipoles 0..3 debye; both polar, one polar
+     * and none. The published constant 0.00266 has 3 digits (the derived
+     * one is 0.0026628, see binary_chapman_enskog_constant_is_0_00266):
+     * 2e-3 relative. */
+    const double debye = 3.33564e-30;
+    sup_seed(&rng, 0xB20CA469ull);
+    for (int k = 0; k < 300; k++) {
+        double st[4], T, P, MA, MB;
+        brokaw_state(st);
+        T = st[0], P = st[1], MA = st[2], MB = st[3];
+        double muA = k % 3 == 2 ? 0.0 : sup_range(&rng, 0.0, 3.0),
+               muB = k % 3 == 0 ? sup_range(&rng, 0.0, 3.0) : 0.0;
+        double VbA = sup_range(&rng, 15, 250), VbB = sup_range(&rng, 15, 250);
+        double TbA = sup_range(&rng, 20, 500), TbB = sup_range(&rng, 20, 500);
+        double D = SUP_GUARD, ref;
+        ck_assert_int_eq(mcd_binary_brokaw(T, P, MA, MB, muA * debye,
+                                           muB * debye, VbA * 1e-6, VbB * 1e-6,
+                                           TbA, TbB, &D),
+                         MCD_OK);
+        ref = 1e-4 * brokaw_cgs(T, P / 1e5, MA * 1e3, MB * 1e3, muA, muB, VbA,
+                                VbB, TbA, TbB);
+        ck_assert_msg(sup_rel(D, ref) < 2e-3, "k %d: %g vs %g", k, D, ref);
+    }
+}
+END_TEST
+
+START_TEST(binary_brokaw_symmetric_and_nonpolar_limit_is_chapman_enskog)
+{
+    /* Swapping the species changes no operation's result (products and
+     * sums of two terms commute exactly): equal bits. With both dipoles 0
+     * Brokaw is Chapman-Enskog with sigma = (1.585 Vb)^(1/3), eps = 1.18
+     * Tb and sigma_AB the geometric mean: the same operations up to the
+     * order of a few roundings, 1e-14 relative. */
+    sup_seed(&rng, 0xB20CA470ull);
+    for (int k = 0; k < 200; k++) {
+        double st[4], T, P, MA, MB;
+        brokaw_state(st);
+        T = st[0], P = st[1], MA = st[2], MB = st[3];
+        double dA = sup_range(&rng, 0, 1e-29), dB = sup_range(&rng, 0, 1e-29);
+        double VbA = sup_range(&rng, 15e-6, 250e-6),
+               VbB = sup_range(&rng, 15e-6, 250e-6);
+        double TbA = sup_range(&rng, 20, 500), TbB = sup_range(&rng, 20, 500);
+        double D1, D2, D0, Dce, s;
+        ck_assert_int_eq(
+            mcd_binary_brokaw(T, P, MA, MB, dA, dB, VbA, VbB, TbA, TbB, &D1),
+            MCD_OK);
+        ck_assert_int_eq(
+            mcd_binary_brokaw(T, P, MB, MA, dB, dA, VbB, VbA, TbB, TbA, &D2),
+            MCD_OK);
+        ck_assert(D1 == D2);
+        ck_assert_int_eq(
+            mcd_binary_brokaw(T, P, MA, MB, 0.0, 0.0, VbA, VbB, TbA, TbB, &D0),
+            MCD_OK);
+        s = sqrt(1e-10 * cbrt(1.585 * 1e6 * VbA) * 1e-10 *
+                 cbrt(1.585 * 1e6 * VbB));
+        ck_assert_int_eq(mcd_binary_chapman_enskog(
+                             T, P, MA, MB, s, s, 1.18 * TbA, 1.18 * TbB, &Dce),
+                         MCD_OK);
+        ck_assert_msg(sup_rel(D0, Dce) < 1e-14, "%g vs %g", D0, Dce);
+    }
+}
+END_TEST
+
+START_TEST(binary_brokaw_bad_inputs_leave_output_untouched)
+{
+    const double good[10] = {300.0, 1e5,   0.018, 0.029, 6e-30,
+                             0.0,   19e-6, 30e-6, 373.,  79.};
+    for (size_t b = 0; b < N_BAD; b++) {
+        for (int arg = 0; arg < 10; arg++) {
+            double a[10], D = SUP_GUARD;
+            mcd_status want = bad[b].st;
+            memcpy(a, good, sizeof a);
+            a[arg] = bad[b].v;
+            /* a dipole may be 0 (nonpolar); only negative is EDOM */
+            if ((arg == 4 || arg == 5) && bad[b].v == 0.0)
+                want = MCD_OK;
+            ck_assert_int_eq(mcd_binary_brokaw(a[0], a[1], a[2], a[3], a[4],
+                                               a[5], a[6], a[7], a[8], a[9],
+                                               &D),
+                             want);
+            ck_assert(want == MCD_OK || D == SUP_GUARD);
+            ck_assert(want != MCD_OK || strlen(mcd_last_error()) == 0);
+            ck_assert(want == MCD_OK || strlen(mcd_last_error()) > 0);
+        }
+    }
+    ck_assert_int_eq(mcd_binary_brokaw(300, 1e5, .018, .029, 6e-30, 0, 19e-6,
+                                       30e-6, 373, 79, NULL),
+                     MCD_EINVAL);
+}
+END_TEST
+
+/* ------------------------------------------------------------------ */
 /* Names, typical errors, warnings                                     */
 /* ------------------------------------------------------------------ */
 
 START_TEST(binary_method_names_round_trip)
 {
-    static const mcd_method all[] = {MCD_METHOD_FSG, MCD_METHOD_CHAPMAN_ENSKOG,
-                                     MCD_METHOD_WILKE_LEE,
-                                     MCD_METHOD_WILKE_CHANG, MCD_METHOD_USER};
-    static const char *const names[] = {"fsg", "chapman-enskog", "wilke-lee",
-                                        "wilke-chang", "user"};
-    for (size_t i = 0; i < 5; i++) {
+    static const mcd_method all[] = {
+        MCD_METHOD_FSG,         MCD_METHOD_CHAPMAN_ENSKOG, MCD_METHOD_WILKE_LEE,
+        MCD_METHOD_WILKE_CHANG, MCD_METHOD_USER,           MCD_METHOD_BROKAW};
+    static const char *const names[] = {
+        "fsg", "chapman-enskog", "wilke-lee", "wilke-chang", "user", "brokaw"};
+    for (size_t i = 0; i < 6; i++) {
         mcd_method m = (mcd_method)0;
         ck_assert_str_eq(mcd_method_name(all[i]), names[i]);
         ck_assert_int_eq(mcd_method_from_name(names[i], &m), MCD_OK);
@@ -407,6 +534,8 @@ START_TEST(binary_typical_errors_are_published_sized)
         ck_assert(e >= 0.04 && e <= 0.15);
     }
     ck_assert(isnan(mcd_method_typical_error(MCD_METHOD_USER)));
+    /* Brokaw: a project validation figure (binary.c), 10 % */
+    ck_assert(mcd_method_typical_error(MCD_METHOD_BROKAW) == 0.10);
     ck_assert(isnan(mcd_method_typical_error((mcd_method)42)));
     /* FSG is the most accurate gas method of the three in every comparison
      * of Fuller et al. (1966) and Reid et al. */
@@ -743,6 +872,52 @@ START_TEST(binary_liquid_uses_solvent_association_factor)
 }
 END_TEST
 
+START_TEST(binary_brokaw_from_db_equals_raw_and_names_missing_parameters)
+{
+    size_t w = idx("water"), air = idx("air"), he = idx("helium");
+    double p[2][4], D = SUP_GUARD, raw = 0.0, rel = SUP_GUARD;
+    unsigned warn = 0;
+    const size_t sp[2] = {w, air};
+    const mcd_param need[4] = {MCD_PARAM_MOLAR_MASS, MCD_PARAM_DIPOLE,
+                               MCD_PARAM_VB, MCD_PARAM_TB};
+    for (int k = 0; k < 2; k++)
+        for (int q = 0; q < 4; q++)
+            ck_assert_int_eq(mcd_db_param(db, sp[k], need[q], &p[k][q]),
+                             MCD_OK);
+    ck_assert_int_eq(mcd_binary_brokaw(298.15, MCD_ATM, p[0][0], p[1][0],
+                                       p[0][1], p[1][1], p[0][2], p[1][2],
+                                       p[0][3], p[1][3], &raw),
+                     MCD_OK);
+    ck_assert_int_eq(mcd_db_binary_gas(db, w, air, MCD_GAS_BROKAW, 298.15,
+                                       MCD_ATM, &D, &rel, &warn),
+                     MCD_OK);
+    ck_assert(D == raw);
+    ck_assert(rel == mcd_method_typical_error(MCD_METHOD_BROKAW));
+    /* polarity is corrected, not flagged; water still hydrogen-bonds */
+    ck_assert(!(warn & MCD_WARN_POLAR));
+    ck_assert(warn & MCD_WARN_ASSOCIATING);
+    /* helium has no Vb: ENODATA naming it, outputs untouched */
+    D = rel = SUP_GUARD;
+    warn = 0xabcu;
+    ck_assert_int_eq(mcd_db_binary_gas(db, w, he, MCD_GAS_BROKAW, 298.15,
+                                       MCD_ATM, &D, &rel, &warn),
+                     MCD_ENODATA);
+    ck_assert_msg(strstr(mcd_last_error(), "helium") != NULL &&
+                      strstr(mcd_last_error(), "Vb") != NULL,
+                  "%s", mcd_last_error());
+    ck_assert(D == SUP_GUARD && rel == SUP_GUARD && warn == 0xabcu);
+    /* a mixture refuses the method (database pairs only) */
+    {
+        const char *names[2] = {"water", "air"};
+        mcd_mixture *m = NULL;
+        ck_assert_int_eq(mcd_mixture_new(db, 2, names, MCD_GAS_BROKAW, &m),
+                         MCD_EINVAL);
+        ck_assert_ptr_null(m);
+        ck_assert_ptr_nonnull(strstr(mcd_last_error(), "brokaw"));
+    }
+}
+END_TEST
+
 int main(void)
 {
     Suite *s = suite_create("mcd:binary");
@@ -758,6 +933,10 @@ int main(void)
     tcase_add_test(
         raw, binary_gas_methods_scale_exactly_with_pressure_and_fsg_with_t175);
     tcase_add_test(raw, binary_raw_bad_inputs_leave_output_untouched);
+    tcase_add_test(raw, binary_brokaw_matches_published_form);
+    tcase_add_test(
+        raw, binary_brokaw_symmetric_and_nonpolar_limit_is_chapman_enskog);
+    tcase_add_test(raw, binary_brokaw_bad_inputs_leave_output_untouched);
     tcase_add_test(raw, binary_method_names_round_trip);
     tcase_add_test(raw, binary_typical_errors_are_published_sized);
     tcase_add_test(raw, binary_warning_strings_cover_each_bit);
@@ -769,6 +948,8 @@ int main(void)
     tcase_add_test(dbc, binary_gas_estimates_lennard_jones_from_boiling_point);
     tcase_add_test(dbc, binary_gas_bad_arguments_leave_outputs_untouched);
     tcase_add_test(dbc, binary_liquid_uses_solvent_association_factor);
+    tcase_add_test(
+        dbc, binary_brokaw_from_db_equals_raw_and_names_missing_parameters);
     suite_add_tcase(s, dbc);
     return sup_run(s);
 }

@@ -850,6 +850,7 @@ FORTRAN_SCALAR = {
     "mcd_binary_fsg": ["out_D"],
     "mcd_binary_chapman_enskog": ["out_D"],
     "mcd_binary_wilke_lee": ["out_D"],
+    "mcd_binary_brokaw": ["out_D"],
     "mcd_binary_wilke_chang": ["out_D"],
     "mcd_binary_omega_d": ["out_omega"],
     "mcd_binary_scale": ["out_D"],

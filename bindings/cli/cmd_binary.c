@@ -15,11 +15,12 @@ static void help(FILE *f)
         "'mcdiff species') estimated by every method that applies, or by the\n"
         "one named, each with its typical error and warnings. Without\n"
         "--method, the first method that applies (in the order fsg,\n"
-        "chapman-enskog, wilke-lee) is marked recommended. The typical\n"
-        "error is the method's published average widened by its warnings\n"
-        "(x2 for each polar, associating, quantum-gas or high-pressure\n"
-        "warning, x1.5 for each temperature or estimated-parameter\n"
-        "warning, at most 100 %; a rule of thumb).\n"
+        "chapman-enskog, wilke-lee, brokaw) is marked recommended; when a\n"
+        "species is polar (dipole above 1 debye) brokaw is, if it applies.\n"
+        "The typical error is the method's published average widened by\n"
+        "its warnings (x2 for each polar, associating, quantum-gas or\n"
+        "high-pressure warning, x1.5 for each temperature or\n"
+        "estimated-parameter warning, at most 100 %; a rule of thumb).\n"
         "\n"
         "options:\n"
         "  -T, --temperature TEMP  temperature; K or C suffix (also F), bare = "
@@ -29,7 +30,8 @@ static void help(FILE *f)
         "suffix,\n"
         "                          bare = Pa (101325, 1atm, 1.01325bar);\n"
         "                          not used for liquids\n"
-        "  -m, --method NAME       fsg, chapman-enskog, wilke-lee or\n"
+        "  -m, --method NAME       fsg, chapman-enskog, wilke-lee, brokaw "
+        "or\n"
         "                          wilke-chang (liquid: A dilute in solvent "
         "B,\n"
         "                          needs --viscosity)\n"
@@ -100,7 +102,8 @@ int cli_cmd_binary(int argc, char **argv)
         {"explain", 0, 0, O_EXPLAIN},   {"help", 'h', 0, O_HELP},
         {"species-file", 0, 1, O_FILE}, {NULL, 0, 0, 0}};
     static const mcd_method gas_methods[] = {
-        MCD_METHOD_FSG, MCD_METHOD_CHAPMAN_ENSKOG, MCD_METHOD_WILKE_LEE};
+        MCD_METHOD_FSG, MCD_METHOD_CHAPMAN_ENSKOG, MCD_METHOD_WILKE_LEE,
+        MCD_METHOD_BROKAW};
     const char *cmd = "binary";
     cli_args a;
     int id, json = 0, csv = 0, rc, have_method = 0, best = -1, liquid;
@@ -110,7 +113,7 @@ int cli_cmd_binary(int argc, char **argv)
     double T = NAN, P = NAN, mu = NAN;
     mcd_method method = MCD_METHOD_FSG;
     mcd_db *db = NULL;
-    result res[4];
+    result res[5];
     char why[200], note[400] = "";
 
     cli_args_init(&a, cmd, argc, argv, opts);
@@ -142,7 +145,7 @@ int cli_cmd_binary(int argc, char **argv)
             if (mcd_method_from_name(a.value, &method) != MCD_OK)
                 return cli_usage_error(cmd, a.spelled,
                                        "unknown method '%s' (fsg, "
-                                       "chapman-enskog, wilke-lee, "
+                                       "chapman-enskog, wilke-lee, brokaw, "
                                        "wilke-chang)",
                                        a.value);
             if (method == MCD_METHOD_USER)
@@ -228,6 +231,16 @@ int cli_cmd_binary(int argc, char **argv)
         if (r->st == MCD_OK && best < 0)
             best = (int)k;
     }
+    /* A polar pair (another method's estimate carries MCD_WARN_POLAR):
+     * Brokaw's correction, when it applies, is the recommended one. */
+    for (k = 0; k < nres && nres > 1; k++)
+        if (res[k].st == MCD_OK && (res[k].warn & MCD_WARN_POLAR)) {
+            size_t b;
+            for (b = 0; b < nres; b++)
+                if (res[b].m == MCD_METHOD_BROKAW && res[b].st == MCD_OK)
+                    best = (int)b;
+            break;
+        }
     recommend = !have_method;
     if (best < 0) {
         rc = cli_fail(cmd, nres == 1 ? "the estimate" : "every estimate",

@@ -64,17 +64,22 @@ static void rows_masses(cli_table *t, const double *v)
     row(t, "M_AB = 2 / (1/M_A + 1/M_B)", 6, 1e3 * v[MCD_EXPLAIN_M_AB], "g/mol");
 }
 
-static void rows_lj(cli_table *t, const double *v)
+static void rows_lj(cli_table *t, const double *v, int brokaw)
 {
     row(t, "sigma_A", 5, 1e10 * v[MCD_EXPLAIN_SIGMA_A], "Angstrom");
     row(t, "sigma_B", 5, 1e10 * v[MCD_EXPLAIN_SIGMA_B], "Angstrom");
-    row(t, "sigma_AB = (sigma_A + sigma_B) / 2", 5,
-        1e10 * v[MCD_EXPLAIN_SIGMA_AB], "Angstrom");
+    row(t,
+        brokaw ? "sigma_AB = (sigma_A sigma_B)^(1/2)"
+               : "sigma_AB = (sigma_A + sigma_B) / 2",
+        5, 1e10 * v[MCD_EXPLAIN_SIGMA_AB], "Angstrom");
     row(t, "eps_A/k", 5, v[MCD_EXPLAIN_EPS_A], "K");
     row(t, "eps_B/k", 5, v[MCD_EXPLAIN_EPS_B], "K");
     row(t, "eps_AB/k = sqrt(eps_A eps_B) / k", 5, v[MCD_EXPLAIN_EPS_AB], "K");
     row(t, "T* = T / (eps_AB/k)", 5, v[MCD_EXPLAIN_T_STAR], "");
-    row(t, "Omega_D(T*) (Neufeld et al. 1972)", 5, v[MCD_EXPLAIN_OMEGA_D], "");
+    row(t,
+        brokaw ? "Omega_D(T*) + 0.19 delta_AB^2 / T*"
+               : "Omega_D(T*) (Neufeld et al. 1972)",
+        5, v[MCD_EXPLAIN_OMEGA_D], "");
 }
 
 /* The method's formula in practical units, evaluated from the printed
@@ -94,6 +99,14 @@ static double formula(mcd_method m, const double *v, FILE *f)
     case MCD_METHOD_CHAPMAN_ENSKOG:
         fputs("    D [cm^2/s] = 2.6635e-3 T^1.5 / (P[bar] M_AB^(1/2) "
               "sigma_AB^2 Omega_D)  (first Chapman-Enskog approximation)\n",
+              f);
+        return 2.6635e-3 * pow(T, 1.5) /
+               (Pbar * sqrt(Mab) * s * s * v[MCD_EXPLAIN_OMEGA_D]);
+    case MCD_METHOD_BROKAW:
+        fputs("    D [cm^2/s] = 2.6635e-3 T^1.5 / (P[bar] M_AB^(1/2) "
+              "sigma_AB^2 Omega_D)  (Brokaw 1969: sigma, eps/k from Vb, Tb "
+              "and the dipole; sigma_AB geometric mean; Omega_D includes "
+              "+ 0.19 delta_AB^2 / T*)\n",
               f);
         return 2.6635e-3 * pow(T, 1.5) /
                (Pbar * sqrt(Mab) * s * s * v[MCD_EXPLAIN_OMEGA_D]);
@@ -138,7 +151,7 @@ void cli_explain_text(mcd_method m, const double *v, FILE *f)
         row(&t, "V_B (diffusion volume)", 5, v[MCD_EXPLAIN_V_B], "");
         row(&t, "S = V_A^(1/3) + V_B^(1/3)", 6, v[MCD_EXPLAIN_V_ROOTS], "");
     } else if (m != MCD_METHOD_WILKE_CHANG) {
-        rows_lj(&t, v);
+        rows_lj(&t, v, m == MCD_METHOD_BROKAW);
         if (m == MCD_METHOD_WILKE_LEE)
             row(&t, "F = 3.03 - 0.98 / M_AB^(1/2)", 5, v[MCD_EXPLAIN_WL_FACTOR],
                 "");

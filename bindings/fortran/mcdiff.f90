@@ -172,6 +172,7 @@ module mcdiff
        mcd_formula_molecule_volume, mcd_element_symbol, mcd_element_weight, &
        mcd_binary_omega_d, mcd_workspace_new_with, &
        mcd_binary_wilke_lee, mcd_binary_wilke_chang, mcd_db_binary_liquid, &
+       mcd_binary_brokaw, &
        mcd_typical_error_widened, mcd_db_binary_explain, &
        mcd_flux_to_volume_frame, mcd_flux_to_species_frame, &
        mcd_flux_velocity_difference, mcd_mixture_temperature_fit, &
@@ -774,6 +775,19 @@ contains
     call finish(c_mcd_binary_wilke_lee(T, P, MA, MB, sigA, sigB, epsA, epsB, D), &
          stat, errmsg)
   end subroutine mcd_binary_wilke_lee
+
+  !> Chapman-Enskog with Brokaw's polar correction [m^2/s]: MA, MB
+  !> [kg/mol], dipA, dipB dipole moments [C m], VbA, VbB molar volumes at
+  !> the normal boiling point [m^3/mol], TbA, TbB normal boiling points [K].
+  subroutine mcd_binary_brokaw(T, P, MA, MB, dipA, dipB, VbA, VbB, TbA, TbB, &
+       D, stat, errmsg)
+    real(c_double), intent(in) :: T, P, MA, MB, dipA, dipB, VbA, VbB, TbA, TbB
+    real(c_double), intent(inout) :: D
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_binary_brokaw(T, P, MA, MB, dipA, dipB, VbA, VbB, TbA, &
+         TbB, D), stat, errmsg)
+  end subroutine mcd_binary_brokaw
 
   !> Wilke-Chang infinite-dilution diffusivity [m^2/s] of a solute in a
   !> liquid: mu_solvent [Pa s] at T, M_solvent [kg/mol], phi association

@@ -39,6 +39,7 @@
     X(binary_fsg, (double T, double P, double MA, double MB, double VA, double VB, double *out_D), (T, P, MA, MB, VA, VB, out_D)) \
     X(binary_chapman_enskog, (double T, double P, double MA, double MB, double sigA, double sigB, double epsA, double epsB, double *out_D), (T, P, MA, MB, sigA, sigB, epsA, epsB, out_D)) \
     X(binary_wilke_lee, (double T, double P, double MA, double MB, double sigA, double sigB, double epsA, double epsB, double *out_D), (T, P, MA, MB, sigA, sigB, epsA, epsB, out_D)) \
+    X(binary_brokaw, (double T, double P, double MA, double MB, double dipA, double dipB, double VbA, double VbB, double TbA, double TbB, double *out_D), (T, P, MA, MB, dipA, dipB, VbA, VbB, TbA, TbB, out_D)) \
     X(binary_wilke_chang, (double T, double mu_solvent, double M_solvent, double phi, double Vb_solute, double *out_D), (T, mu_solvent, M_solvent, phi, Vb_solute, out_D)) \
     X(binary_omega_d, (double T_star, double *out_omega), (T_star, out_omega)) \
     X(binary_scale, (double D_ref, double T_ref, double P_ref, double T, double P, double exponent, double *out_D), (D_ref, T_ref, P_ref, T, P, exponent, out_D)) \

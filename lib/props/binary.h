@@ -68,6 +68,16 @@ double mcdi_wl_coef(double MA, double MB, double sigA, double sigB);
 /* Neufeld-Janzen-Aziz Omega_D without argument checks (T* > 0). */
 double mcdi_omega_d(double T_star);
 
+/* Brokaw (1969): per-species delta [-], sigma [m] and eps/k [K] from the
+ * dipole [C m], Vb [m^3/mol] and Tb [K] (inputs assumed validated); the
+ * polar collision integral; and D [m^2/s] from the two parameter triples
+ * {delta, sigma, eps}. See binary.c. */
+void mcdi_brokaw_params(double dip, double Vb, double Tb, double *out_delta,
+                        double *out_sigma, double *out_eps);
+double mcdi_brokaw_omega(double T_star, double delta_ab);
+double mcdi_brokaw_d(double T, double P, double MA, double MB,
+                     const double pa[3], const double pb[3]);
+
 /* Gas methods' tested temperature ranges used for MCD_WARN_TEMPERATURE. */
 #define MCDI_FSG_T_MIN 200.0  /* K, common practice, see binary.c */
 #define MCDI_FSG_T_MAX 1100.0 /* K */

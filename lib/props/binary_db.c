@@ -18,11 +18,15 @@
  *                 low-pressure laws (D P constant) start to fail as the
  *                 reduced pressure grows (Takahashi's 1974 chart shows a
  *                 few percent by Pr ~ 0.3-0.5 at moderate Tr; from memory).
- *  POLAR          dipole moment of either species above 1 debye.
+ *  POLAR          dipole moment of either species above 1 debye. Not set
+ *                 on Brokaw's estimate, which corrects for the dipole: for
+ *                 such pairs it is the method to prefer (the CLI marks it
+ *                 recommended when the other methods carry POLAR).
  *  TEMPERATURE    FSG: T outside 200..1100 K, roughly the span of the
- *                 1966 data set (common practice); Chapman-Enskog and
- *                 Wilke-Lee: T* = T/eps_AB outside the 0.3..100 fit range of
- *                 the Neufeld et al. collision integral; Wilke-Chang: T
+ *                 1966 data set (common practice); Chapman-Enskog,
+ *                 Wilke-Lee and Brokaw: T* = T/eps_AB outside the 0.3..100
+ *                 fit range of the Neufeld et al. collision integral;
+ *                 Wilke-Chang: T
  *                 outside 273.15..373.15 K or at or above the solvent's
  *                 normal boiling point (common practice).
  *  QUANTUM        H2, D2 or He in the pair and T < 100 K (common practice).
@@ -244,6 +248,48 @@ unsigned mcdi_pair_state_warnings(const mcdi_spec *a, const mcdi_spec *b,
     return w;
 }
 
+/* Brokaw's parameters {delta, sigma, eps/k} of one species from its
+ * dipole, Vb and Tb (binary.c). Fails: ENODATA naming what is missing. */
+static mcd_status brokaw_params(const mcdi_spec *s, double out[3])
+{
+    static const struct {
+        mcd_param p;
+        const char *what;
+    } need[] = {
+        {MCD_PARAM_MOLAR_MASS, "molar mass"},
+        {MCD_PARAM_DIPOLE, "dipole moment"},
+        {MCD_PARAM_VB, "molar volume at the boiling point (Vb)"},
+        {MCD_PARAM_TB, "normal boiling point (Tb)"},
+    };
+    for (size_t k = 0; k < sizeof need / sizeof need[0]; k++)
+        if (!has(s, need[k].p) ||
+            !(s->p[need[k].p] > 0 || need[k].p == MCD_PARAM_DIPOLE))
+            return missing(s, need[k].what, MCD_METHOD_BROKAW);
+    mcdi_brokaw_params(s->p[MCD_PARAM_DIPOLE], s->p[MCD_PARAM_VB],
+                       s->p[MCD_PARAM_TB], &out[0], &out[1], &out[2]);
+    return MCD_OK;
+}
+
+/* Brokaw's estimate of a pair and its method-range warning: T* outside
+ * the fit range of the Lennard-Jones collision integral. Its own polar
+ * correction replaces the POLAR flag. */
+static mcd_status brokaw_pair(const mcdi_spec *a, const mcdi_spec *b, double T,
+                              double P, double *out_D, unsigned *io_warn)
+{
+    double pa[3], pb[3], Ts;
+    mcd_status st;
+    if ((st = brokaw_params(a, pa)) != MCD_OK ||
+        (st = brokaw_params(b, pb)) != MCD_OK)
+        return st;
+    *out_D = mcdi_brokaw_d(T, P, a->p[MCD_PARAM_MOLAR_MASS],
+                           b->p[MCD_PARAM_MOLAR_MASS], pa, pb);
+    Ts = T / sqrt(pa[2] * pb[2]);
+    *io_warn &= ~MCD_WARN_POLAR;
+    if (Ts < MCDI_TSTAR_MIN || Ts > MCDI_TSTAR_MAX)
+        *io_warn |= MCD_WARN_TEMPERATURE;
+    return MCD_OK;
+}
+
 mcd_status mcdi_pair_gas(const mcdi_spec *a, const mcdi_spec *b, mcd_method m,
                          double T, double P, double *out_D, double *out_rel_err,
                          unsigned *out_warn)
@@ -258,20 +304,25 @@ mcd_status mcdi_pair_gas(const mcdi_spec *a, const mcdi_spec *b, mcd_method m,
         return MCD_EINVAL;
     if (!(T > 0) || !(P > 0))
         return MCD_EDOM;
-    if ((st = mcdi_pair_coef(a, b, m, &coef, &eps_ab, &est)) != MCD_OK)
-        return st;
     w = mcdi_pair_state_warnings(a, b, T, P);
-    if (est)
-        w |= MCD_WARN_ESTIMATED_PARAM;
-    if (m == MCD_METHOD_FSG) {
-        D = coef * pow(T, 1.75) / P;
-        if (T < MCDI_FSG_T_MIN || T > MCDI_FSG_T_MAX)
-            w |= MCD_WARN_TEMPERATURE;
+    if (m == MCD_METHOD_BROKAW) {
+        if ((st = brokaw_pair(a, b, T, P, &D, &w)) != MCD_OK)
+            return st;
     } else {
-        double Ts = T / eps_ab;
-        D = coef * pow(T, 1.5) / (P * mcdi_omega_d(Ts));
-        if (Ts < MCDI_TSTAR_MIN || Ts > MCDI_TSTAR_MAX)
-            w |= MCD_WARN_TEMPERATURE;
+        if ((st = mcdi_pair_coef(a, b, m, &coef, &eps_ab, &est)) != MCD_OK)
+            return st;
+        if (est)
+            w |= MCD_WARN_ESTIMATED_PARAM;
+        if (m == MCD_METHOD_FSG) {
+            D = coef * pow(T, 1.75) / P;
+            if (T < MCDI_FSG_T_MIN || T > MCDI_FSG_T_MAX)
+                w |= MCD_WARN_TEMPERATURE;
+        } else {
+            double Ts = T / eps_ab;
+            D = coef * pow(T, 1.5) / (P * mcdi_omega_d(Ts));
+            if (Ts < MCDI_TSTAR_MIN || Ts > MCDI_TSTAR_MAX)
+                w |= MCD_WARN_TEMPERATURE;
+        }
     }
     if (!(D > 0.0) || !mcdi_finite(D))
         return MCD_EDOM; /* overflow or underflow at an extreme state */
@@ -295,7 +346,7 @@ mcd_status mcdi_api_db_binary_gas(const mcd_db *db, size_t a, size_t b,
         (st = mcdi_check_positive2(T, "T", P, "P")) != MCD_OK)
         return st;
     if (method != MCD_METHOD_FSG && method != MCD_METHOD_CHAPMAN_ENSKOG &&
-        method != MCD_METHOD_WILKE_LEE)
+        method != MCD_METHOD_WILKE_LEE && method != MCD_METHOD_BROKAW)
         return MCD_EINVAL;
     if ((st = mcdi_spec_from_db(db, a, &sa)) != MCD_OK)
         return st;

@@ -77,6 +77,23 @@ static void explain_gas(const mcdi_spec *sa, const mcdi_spec *sb, mcd_method m,
         v[MCD_EXPLAIN_V_B] = sb->p[MCD_PARAM_DIFF_VOLUME];
         v[MCD_EXPLAIN_V_ROOTS] =
             cbrt(v[MCD_EXPLAIN_V_A]) + cbrt(v[MCD_EXPLAIN_V_B]);
+    } else if (m == MCD_METHOD_BROKAW) {
+        double pa[3], pb[3], dab;
+        /* The estimate read the dipole, Vb and Tb of both. */
+        mcdi_brokaw_params(sa->p[MCD_PARAM_DIPOLE], sa->p[MCD_PARAM_VB],
+                           sa->p[MCD_PARAM_TB], &pa[0], &pa[1], &pa[2]);
+        mcdi_brokaw_params(sb->p[MCD_PARAM_DIPOLE], sb->p[MCD_PARAM_VB],
+                           sb->p[MCD_PARAM_TB], &pb[0], &pb[1], &pb[2]);
+        dab = sqrt(pa[0] * pb[0]);
+        v[MCD_EXPLAIN_SIGMA_A] = pa[1];
+        v[MCD_EXPLAIN_SIGMA_B] = pb[1];
+        v[MCD_EXPLAIN_SIGMA_AB] = sqrt(pa[1] * pb[1]);
+        v[MCD_EXPLAIN_EPS_A] = pa[2];
+        v[MCD_EXPLAIN_EPS_B] = pb[2];
+        v[MCD_EXPLAIN_EPS_AB] = sqrt(pa[2] * pb[2]);
+        v[MCD_EXPLAIN_T_STAR] = T / v[MCD_EXPLAIN_EPS_AB];
+        v[MCD_EXPLAIN_OMEGA_D] = mcdi_brokaw_omega(v[MCD_EXPLAIN_T_STAR], dab);
+        v[MCD_EXPLAIN_ESTIMATED] = 0;
     } else {
         double sga, sgb, ea, eb;
         int est = 0;
@@ -128,13 +145,13 @@ mcd_status mcdi_api_db_binary_explain(const mcd_db *db, size_t a, size_t b,
         st =
             mcdi_api_db_binary_liquid(db, a, b, T, mu_solvent, &D, &err, &warn);
     else if (method == MCD_METHOD_FSG || method == MCD_METHOD_CHAPMAN_ENSKOG ||
-             method == MCD_METHOD_WILKE_LEE)
+             method == MCD_METHOD_WILKE_LEE || method == MCD_METHOD_BROKAW)
         st = mcdi_api_db_binary_gas(db, a, b, (mcd_gas_method)method, T, P, &D,
                                     &err, &warn);
     else
         return mcdi_fail(MCD_EINVAL,
                          "argument method: %d is not fsg, chapman-enskog, "
-                         "wilke-lee or wilke-chang",
+                         "wilke-lee, brokaw or wilke-chang",
                          (int)method);
     if (st != MCD_OK)
         return st;

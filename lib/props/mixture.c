@@ -256,8 +256,9 @@ mcd_status mcdi_api_mixture_new(const mcd_db *db, size_t n,
         return MCD_EINVAL;
     }
     if (!is_gas_method(default_method)) {
-        mcdi_note("default method %d is not a gas method (fsg, "
-                  "chapman-enskog, wilke-lee)",
+        mcdi_note("default method %d is not a mixture gas method (fsg, "
+                  "chapman-enskog, wilke-lee; brokaw is for database pairs "
+                  "only)",
                   (int)default_method);
         return MCD_EINVAL;
     }

@@ -493,13 +493,15 @@ class BinaryExplain(unittest.TestCase):
 
     def explain(self, *args):
         d = run_json("binary", *args, "--explain")
-        return d, [r["explain"] for r in d["results"]]
+        # a method that gave no value (brokaw without CO2's Tb) has none
+        return d, [r.get("explain") for r in d["results"]]
 
     def test_intermediates_rebuild_each_estimate_by_hand(self):
         d, ex = self.explain("CO2", "N2", "-T", "400", "-P", "2bar")
         self.assertEqual([r["method"] for r in d["results"]],
-                         ["fsg", "chapman-enskog", "wilke-lee"])
-        fsg, ce, wl = ex
+                         ["fsg", "chapman-enskog", "wilke-lee", "brokaw"])
+        self.assertIsNone(ex[3])  # CO2 sublimes: no Tb for brokaw
+        fsg, ce, wl = ex[:3]
         # Fuller et al. (1966) eq. 10, atm form; Chapman-Enskog first
         # approximation (Hirschfelder, Curtiss and Bird 1954 eq. 8.2-44);
         # Wilke-Lee (Poling et al. 2001 eq. 11-4.1). The JSON carries the
@@ -531,8 +533,24 @@ class BinaryExplain(unittest.TestCase):
             P / 1e5 * math.sqrt(mab_g) * (1e10 * wl["sigma_AB"]) ** 2
             * wl["Omega_D"])
         self.assertAlmostEqual(d_wl / wl["D"], 1, delta=1e-13)
-        for r, e in zip(d["results"], ex):
+        for r, e in zip(d["results"][:3], ex[:3]):
             self.assertEqual(r["D"], e["D"])
+
+    def test_brokaw_pieces_rebuild_the_estimate(self):
+        # water + air: Brokaw (1969) is recommended; sigma_AB is the
+        # geometric mean and Omega_D carries the polar term, so the first
+        # Chapman-Enskog approximation with them rebuilds D (1e-13)
+        d, ex = self.explain("water", "air", "-T", "298.15", "-P", "1atm")
+        self.assertEqual(d["method"], "brokaw")
+        b = ex[[r["method"] for r in d["results"]].index("brokaw")]
+        self.assertAlmostEqual(
+            b["sigma_AB"] / math.sqrt(b["sigma_A"] * b["sigma_B"]), 1,
+            delta=1e-15)
+        T, P = b["T"], b["P"]
+        mu = b["M_AB"] / (2 * self.N_A)
+        d_b = 3 / 16 * math.sqrt(2 * math.pi * (self.K_B * T) ** 3 / mu) / (
+            P * math.pi * b["sigma_AB"] ** 2 * b["Omega_D"])
+        self.assertAlmostEqual(d_b / b["D"], 1, delta=1e-13)
 
     def test_wilke_chang_pieces_and_no_gas_warning(self):
         d, (wc,) = self.explain("ethanol", "water", "-T", "25C",
@@ -1561,6 +1579,19 @@ class Csv(unittest.TestCase):
         self.assertIn("viscosity_Pa_s", h2)
         self.assertEqual(rows2[0][h2.index("P_Pa")], "")  # liquid: no P
         self.assertEqual(rows2[0][h2.index("method")], "wilke-chang")
+
+    def test_binary_recommends_brokaw_for_polar_pairs(self):
+        # water (1.8 debye) + air: Brokaw's polar correction is recommended;
+        # N2 + O2 (nonpolar): the first method that applies, fsg
+        d = run_json("binary", "water", "air", "-T", "25C", "-P", "1atm")
+        self.assertEqual(d["method"], "brokaw")
+        self.assertIn("brokaw", [r["method"] for r in d["results"]])
+        d = run_json("binary", "N2", "O2", "-T", "25C", "-P", "1atm")
+        self.assertEqual(d["method"], "fsg")
+        d = run_json("binary", "ammonia", "H2", "-T", "293", "-P", "1atm",
+                     "--method", "brokaw")
+        self.assertEqual(d["method"], "brokaw")
+        self.assertEqual(len(d["results"]), 1)
 
     def test_fluxes_csv(self):
         header, rows, _ = run_csv("fluxes", *STATE3, "-g", "-20,0,20",

@@ -175,6 +175,14 @@ class Binaries(unittest.TestCase):
         self.assertEqual(wl.D, mcdiff.binary_wilke_lee(
             T, P, pa[M], pb[M], pa[S], pb[S], pa[E], pb[E]))
         self.assertIsInstance(est.warnings, mcdiff.EstimateWarning)
+        # Brokaw's polar correction: water + air, dipole, Vb, Tb of both
+        w, air = db.params("water"), db.params("air")
+        Dp, Vb, Tb = (mcdiff.Param.DIPOLE, mcdiff.Param.VB, mcdiff.Param.TB)
+        br = db.binary_gas("water", "air", "brokaw", T, P)
+        self.assertEqual(br.D, mcdiff.binary_brokaw(
+            T, P, w[M], air[M], w[Dp], air[Dp], w[Vb], air[Vb], w[Tb],
+            air[Tb]))
+        self.assertFalse(br.warnings & mcdiff.EstimateWarning.POLAR)
 
     def test_fsg_equation(self):
         # Fuller, Schettler and Giddings (1966): D = 1.00e-3 T^1.75

@@ -132,6 +132,8 @@ SIGNATURES = {
     "mcd_binary_chapman_enskog": (_ST, [_D, _D, _D, _D, _D, _D, _D, _D, _PD]),
     # (T, P, MA, MB, sigA, sigB, epsA, epsB, out_D)
     "mcd_binary_wilke_lee": (_ST, [_D, _D, _D, _D, _D, _D, _D, _D, _PD]),
+    # (T, P, MA, MB, dipA, dipB, VbA, VbB, TbA, TbB, out_D)
+    "mcd_binary_brokaw": (_ST, [_D, _D, _D, _D, _D, _D, _D, _D, _D, _D, _PD]),
     # (T, mu_solvent, M_solvent, phi, Vb_solute, out_D)
     "mcd_binary_wilke_chang": (_ST, [_D, _D, _D, _D, _D, _PD]),
     # (T_star, out_omega)

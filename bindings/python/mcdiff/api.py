@@ -38,7 +38,8 @@ __all__ = [
     "method_name", "method_from_name", "method_typical_error",
     "typical_error_widened", "binary_explain",
     "warning_string", "warning_strings", "binary_fsg", "binary_chapman_enskog",
-    "binary_wilke_lee", "binary_wilke_chang", "binary_omega_d", "binary_scale",
+    "binary_wilke_lee", "binary_brokaw", "binary_wilke_chang",
+    "binary_omega_d", "binary_scale",
     "binary_gas", "binary_liquid", "binary_tyn_calus",
     "binary_hayduk_minhas", "method_temperature_range",
     # fluxes
@@ -419,6 +420,14 @@ def binary_chapman_enskog(T, P, MA, MB, sigA, sigB, epsA, epsB):
 def binary_wilke_lee(T, P, MA, MB, sigA, sigB, epsA, epsB):
     """Wilke-Lee estimate [m^2/s] from Lennard-Jones parameters."""
     return _raw("mcd_binary_wilke_lee", T, P, MA, MB, sigA, sigB, epsA, epsB)
+
+
+def binary_brokaw(T, P, MA, MB, dipA, dipB, VbA, VbB, TbA, TbB):
+    """Chapman-Enskog with Brokaw's polar correction [m^2/s] from dipole
+    moments [C m], molar volumes at the boiling point [m^3/mol] and normal
+    boiling points [K] (mcd_binary_brokaw)."""
+    return _raw("mcd_binary_brokaw", T, P, MA, MB, dipA, dipB, VbA, VbB, TbA,
+                TbB)
 
 
 def binary_wilke_chang(T, mu_solvent, M_solvent, phi, Vb_solute):

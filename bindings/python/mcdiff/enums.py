@@ -56,6 +56,7 @@ class Method(enum.IntEnum):
     USER = 5
     TYN_CALUS = 6
     HAYDUK_MINHAS = 7
+    BROKAW = 8
 
 
 class GasMethod(enum.IntEnum):
@@ -64,6 +65,7 @@ class GasMethod(enum.IntEnum):
     FSG = 1
     CHAPMAN_ENSKOG = 2
     WILKE_LEE = 3
+    BROKAW = 8
 
 
 class Basis(enum.IntEnum):
