@@ -724,7 +724,7 @@ contains
     type(mcd_mixture_t) :: mix
     integer :: stat, ia, ih, w
     character(len=256) :: msg
-    real(c_double) :: om(4), r(3), a, b, err, kT(2), th(2), q(1), J(1, 2)
+    real(c_double) :: om(4), r(3), a, b, err, kT(2), th(2), q(1), J(1, 2), pa(6)
     call mcd_lj_collision_integrals(1.0_c_double, om, r, stat, msg)
     call check(stat == MCD_OK .and. abs(om(1) / 1.440_c_double - 1) < 2e-3_c_double, &
          'Omega11(1) (Bird, Stewart and Lightfoot, Table E.2)')
@@ -742,9 +742,15 @@ contains
     call check_stat(stat, msg, 'thermal diffusion factor Ar-He')
     call check(a > 0 .and. abs(err - MCD_THERMAL_CE_TYPICAL_ERROR) < 1e-15_c_double, &
          'argon to the cold side; typical error')
-    call mcd_thermal_factor_ce(300.0_c_double, 39.95e-3_c_double, 4.0026e-3_c_double, &
-         3.542e-10_c_double, 2.551e-10_c_double, 93.3_c_double, 10.22_c_double, 0.5_c_double, &
-         b, stat, msg, warn=w)
+    ! the raw call with the table's own parameters gives the database route's number
+    call mcd_db_param(db, ia, MCD_PARAM_MOLAR_MASS, pa(1), stat, msg)
+    call mcd_db_param(db, ih, MCD_PARAM_MOLAR_MASS, pa(2), stat, msg)
+    call mcd_db_param(db, ia, MCD_PARAM_LJ_SIGMA, pa(3), stat, msg)
+    call mcd_db_param(db, ih, MCD_PARAM_LJ_SIGMA, pa(4), stat, msg)
+    call mcd_db_param(db, ia, MCD_PARAM_LJ_EPS_K, pa(5), stat, msg)
+    call mcd_db_param(db, ih, MCD_PARAM_LJ_EPS_K, pa(6), stat, msg)
+    call mcd_thermal_factor_ce(300.0_c_double, pa(1), pa(2), pa(3), pa(4), pa(5), pa(6), &
+         0.5_c_double, b, stat, msg, warn=w)
     call check(stat == MCD_OK .and. abs(a - b) <= 1e-14_c_double, 'raw = database route')
     call mcd_mixture_new(mix, db, [character(len=16) :: 'argon', 'helium'], &
          stat, msg, default_method=MCD_GAS_CHAPMAN_ENSKOG)

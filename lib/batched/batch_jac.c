@@ -69,12 +69,8 @@ mcd_status mcdi_api_flux_batch_jacobian(mcd_workspace *ws, mcd_model model,
     mcdi_jcell g;
     size_t n = n_species, nd, K, k, e;
     mcd_status st;
-    if (model == MCD_MODEL_ITERATIVE)
-        return mcdi_fail(MCD_EINVAL,
-                         "argument model: the derivatives are those of "
-                         "MCD_MODEL_MAXWELL_STEFAN (which the iterative "
-                         "model approximates) or "
-                         "MCD_MODEL_MIXTURE_AVERAGED");
+    if ((st = mcdi_jac_model_ok(model)) != MCD_OK)
+        return st;
     if ((st = mcdi_batch_check_common(ws, model, n, cl, flux_basis, out_jac,
                                       "out_jac")) != MCD_OK ||
         (st = MCDI_CHECK_PTRS2(Dij, c)) != MCD_OK)

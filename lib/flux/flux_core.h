@@ -130,4 +130,10 @@ mcd_status mcdi_flux_jacobian_state(mcd_workspace *ws, mcd_model model,
                                     double *out_flux, double *out_jac,
                                     const char *jac_name);
 
+/* The models the Jacobians are defined for (tangent.c): MCD_OK for
+ * MAXWELL_STEFAN and MIXTURE_AVERAGED; EINVAL with the one message that
+ * says why not for ITERATIVE. Other values: MCD_OK (mcdi_check_model
+ * names them). */
+mcd_status mcdi_jac_model_ok(mcd_model model);
+
 #endif

@@ -413,6 +413,17 @@ static mcd_status tan_columns_wide(mcd_workspace *ws, tan_ctx *t)
     return MCD_OK;
 }
 
+mcd_status mcdi_jac_model_ok(mcd_model model)
+{
+    if (model == MCD_MODEL_ITERATIVE)
+        return mcdi_fail(MCD_EINVAL,
+                         "argument model: the derivatives are those of "
+                         "MCD_MODEL_MAXWELL_STEFAN (which the iterative "
+                         "model approximates) or "
+                         "MCD_MODEL_MIXTURE_AVERAGED");
+    return MCD_OK;
+}
+
 /* Validation and the base state: the checks of mcd_flux_compute (its
  * flux solve runs on the state, into v.jJ), then the model, flux basis,
  * output and M for mass fluxes. On success *t is ready (n >= 2) or
@@ -425,12 +436,8 @@ static mcd_status tan_setup(mcd_workspace *ws, tan_ctx *t, mcd_model model,
     memset(t, 0, sizeof *t);
     if ((st = mcdi_check_ws_obj(ws, state, "state")) != MCD_OK)
         return st;
-    if (model == MCD_MODEL_ITERATIVE)
-        return mcdi_fail(MCD_EINVAL,
-                         "argument model: the derivatives are those of "
-                         "MCD_MODEL_MAXWELL_STEFAN (which the iterative "
-                         "model approximates) or "
-                         "MCD_MODEL_MIXTURE_AVERAGED");
+    if ((st = mcdi_jac_model_ok(model)) != MCD_OK)
+        return st;
     if ((st = mcdi_check_model(ws, model, 0)) != MCD_OK ||
         (st = mcdi_check_basis(ws, fb, "flux_basis")) != MCD_OK ||
         (st = mcdi_check_ptr(ws, out, out_name)) != MCD_OK)

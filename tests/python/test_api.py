@@ -986,8 +986,13 @@ class Porous(unittest.TestCase):
         est = mcdiff.thermal_factor(db, "argon", "helium", 300.0, 0.5)
         self.assertGreater(est.alpha, 0.0)
         self.assertEqual(est.rel_err, mcdiff.THERMAL_CE_TYPICAL_ERROR)
-        raw = mcdiff.thermal_factor_ce(300.0, 39.95e-3, 4.0026e-3, 3.542e-10,
-                                       2.551e-10, 93.3, 10.22, 0.5)
+        # the raw call with the table's own parameters (Svehla's LJ values,
+        # M from the formula) gives the database route's number
+        pa = [db.param(s, p) for p in (mcdiff.Param.MOLAR_MASS,
+                                       mcdiff.Param.LJ_SIGMA,
+                                       mcdiff.Param.LJ_EPS_K)
+              for s in ("argon", "helium")]
+        raw = mcdiff.thermal_factor_ce(300.0, *pa, 0.5)
         self.assertAlmostEqual(raw.alpha, est.alpha, delta=1e-14)
         mix = db.mixture(["argon", "helium", "nitrogen"])
         r = mcdiff.mixture_thermal_ratios(mix, 400.0, [0.5, 0.5, 0.0])

@@ -962,15 +962,11 @@ def flux_batch(mixture, T, P, comp, grad, *, model="maxwell-stefan",
     return out if out is not None else o.result()
 
 
-def flux_batch_dij(Dij, c, comp, grad, *, M=None, model="maxwell-stefan",
-                   comp_basis="mole", flux_basis=None, grad_lnP=None,
-                   kT=None, grad_lnT=None, workspace=None, out=None):
-    """Batched fluxes with your own per-cell binary diffusivities
-    (mcd_flux_batch_dij, cells last): Dij (N, N, K) [m^2/s], c (K,)
-    [mol/m^3], comp (N, K), grad (N, n_dim, K) or (N, K), grad_lnP
-    (n_dim, K) or (K,). M (N,) [kg/mol] for the mass basis or pressure
-    diffusion. Thermal diffusion: kT (N, K) with grad_lnT (n_dim, K).
-    The result has the shape of grad."""
+def _dij_call(Dij, c, comp, grad, M, model, comp_basis, flux_basis,
+              grad_lnP, kT, grad_lnT, workspace):
+    """The arguments of a batched call with per-cell Dij, checked and
+    converted: (model, flux basis, N, K, n_dim, M, Dij, c, workspace,
+    grad array, the mcd_cells)."""
     mdl = coerce(Model, model, "model")
     cb = coerce(Basis, comp_basis, "comp_basis")
     fb = cb if flux_basis is None else coerce(Basis, flux_basis, "flux_basis")
@@ -991,10 +987,26 @@ def flux_batch_dij(Dij, c, comp, grad, *, M=None, model="maxwell-stefan",
     kt, lt = _batch_thermal(N, K, nd, kT, grad_lnT)
     m = _opt(M, lambda v: _arrays.vector(v, N, "M"))
     ws = _ws(workspace, N)
-    o = _arrays.Output(g.shape, out)
     cells = mcd_cells(n_cells=K, n_dim=nd, comp_basis=cb, comp=a.ptr,
                       grad=g.ptr, grad_lnP=_ptr(lp), kT=_ptr(kt),
                       grad_lnT=_ptr(lt))
+    # the arrays the cells point into stay alive with the tuple
+    return mdl, fb, N, K, nd, m, D, ca, ws, g, cells, (a, lp, kt, lt)
+
+
+def flux_batch_dij(Dij, c, comp, grad, *, M=None, model="maxwell-stefan",
+                   comp_basis="mole", flux_basis=None, grad_lnP=None,
+                   kT=None, grad_lnT=None, workspace=None, out=None):
+    """Batched fluxes with your own per-cell binary diffusivities
+    (mcd_flux_batch_dij, cells last): Dij (N, N, K) [m^2/s], c (K,)
+    [mol/m^3], comp (N, K), grad (N, n_dim, K) or (N, K), grad_lnP
+    (n_dim, K) or (K,). M (N,) [kg/mol] for the mass basis or pressure
+    diffusion. Thermal diffusion: kT (N, K) with grad_lnT (n_dim, K).
+    The result has the shape of grad."""
+    mdl, fb, N, K, nd, m, D, ca, ws, g, cells, _keep = _dij_call(
+        Dij, c, comp, grad, M, model, comp_basis, flux_basis, grad_lnP, kT,
+        grad_lnT, workspace)
+    o = _arrays.Output(g.shape, out)
     st = lib.mcd_flux_batch_dij(ws._p(), mdl, N, _ptr(m), D.ptr, ca.ptr,
                                 ctypes.byref(cells), fb, o.ptr)
     ws.check(st, "mcd_flux_batch_dij")
@@ -1010,31 +1022,11 @@ def flux_batch_jacobian(Dij, c, comp, grad, *, M=None,
     as flux_batch_dij, grad of shape (N, n_dim, K)). Returns (flux, jac):
     flux of shape (N, n_dim, K), jac of shape (N, n_dim, N, K) with
     jac[i, d, k, cell] = dF_{i,d}/dy_k of that cell (flux_jacobian)."""
-    mdl = coerce(Model, model, "model")
-    cb = coerce(Basis, comp_basis, "comp_basis")
-    fb = cb if flux_basis is None else coerce(Basis, flux_basis, "flux_basis")
-    ca = _arrays.vector([c] if isinstance(c, (int, float)) else c, None, "c")
-    K = ca.shape[0]
-    a0 = _arrays.as_doubles(comp, "comp")
-    if a0.ndim == 2:
-        N = a0.shape[0]
-    elif K:
-        N = a0.size // K
-    else:
-        raise ValueError("comp: give shape (N, K) when K = 0")
-    D = _arrays.as_doubles(Dij, "Dij")
-    if not (D.shape == (N, N, K) or (D.ndim == 1 and D.size == N * N * K)):
-        raise ValueError("Dij: expected shape %s, got %s"
-                         % ((N, N, K), D.shape))
-    a, g, nd, lp = _batch_fields(N, K, a0, grad, grad_lnP, "soa")
-    kt, lt = _batch_thermal(N, K, nd, kT, grad_lnT)
-    m = _opt(M, lambda v: _arrays.vector(v, N, "M"))
-    ws = _ws(workspace, N)
+    mdl, fb, N, K, nd, m, D, ca, ws, g, cells, _keep = _dij_call(
+        Dij, c, comp, grad, M, model, comp_basis, flux_basis, grad_lnP, kT,
+        grad_lnT, workspace)
     o = _arrays.Output((N, nd, K))
     oj = _arrays.Output((N, nd, N, K))
-    cells = mcd_cells(n_cells=K, n_dim=nd, comp_basis=cb, comp=a.ptr,
-                      grad=g.ptr, grad_lnP=_ptr(lp), kT=_ptr(kt),
-                      grad_lnT=_ptr(lt))
     st = lib.mcd_flux_batch_jacobian(ws._p(), mdl, N, _ptr(m), D.ptr, ca.ptr,
                                      ctypes.byref(cells), fb, o.ptr, oj.ptr)
     ws.check(st, "mcd_flux_batch_jacobian")
