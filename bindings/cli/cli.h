@@ -255,6 +255,9 @@ typedef struct cli_state {
     int have_grad_lnP;
     double kT[MCD_MAX_SPECIES]; /* --thermal-ratios [-] */
     int have_kT;
+    int kT_estimated;         /* --thermal-ratios estimate: kinetic theory */
+    double kT_rel_err;        /* its typical relative error */
+    unsigned kT_warn;         /* its warning bits */
     double dTdz[MCD_MAX_DIM]; /* --temperature-gradient [K/m] */
     int have_dTdz;
     size_t dependent; /* MCD_DEPENDENT_AUTO or index */

@@ -42,7 +42,11 @@ static void help(FILE *f)
         "                            direction (pressure diffusion)\n"
         "  --thermal-ratios LIST     thermal diffusion ratios k_T [-], one\n"
         "                            per species, summing to 0 (k_T > 0:\n"
-        "                            the species moves to the cold side)\n"
+        "                            the species moves to the cold side),\n"
+        "                            or `estimate': kinetic theory (first\n"
+        "                            Chapman-Enskog approximation, pairwise;\n"
+        "                            typical error 20-30 %, far less\n"
+        "                            accurate than the diffusivities)\n"
         "  --temperature-gradient LIST\n"
         "                            dT/dz [K/m], one value per direction;\n"
         "                            with --thermal-ratios (both or "
@@ -64,6 +68,24 @@ static void help(FILE *f)
         "1atm \\\n"
         "      --pair H2:N2=8.38e-5\n",
         f);
+}
+
+/* The estimated thermal diffusion ratios, with their caution: kinetic
+ * theory's k_T are far less accurate than the diffusivities. */
+static void thermal_note(const cli_state *s)
+{
+    char w[256];
+    size_t i;
+    printf("  (including thermal diffusion; k_T estimated by kinetic theory, "
+           "first Chapman-Enskog\n   approximation, pairwise: typical error "
+           "%.0f %%, far less accurate than the\n   diffusivities; use "
+           "measured values where they matter)\n  k_T:",
+           100.0 * s->kT_rel_err);
+    for (i = 0; i < s->n; i++)
+        printf(" %s %.4g%s", s->names[i], s->kT[i], i + 1 < s->n ? "," : "\n");
+    cli_warn_text(s->kT_warn, w, sizeof w);
+    if (w[0] != '\0')
+        printf("  warning (k_T): %s\n", w);
 }
 
 int cli_cmd_fluxes(int argc, char **argv)
@@ -149,6 +171,14 @@ int cli_cmd_fluxes(int argc, char **argv)
             cli_json_numbers(&j, "grad_lnP", s.grad_lnP, s.n_dim);
         if (s.have_kT) {
             cli_json_numbers(&j, "thermal_ratios", s.kT, n);
+            cli_json_bool(&j, "thermal_ratios_estimated", s.kT_estimated);
+            if (s.kT_estimated) {
+                char w[256];
+                cli_json_number(&j, "thermal_ratios_typical_error",
+                                s.kT_rel_err);
+                cli_warn_text(s.kT_warn, w, sizeof w);
+                cli_json_string(&j, "thermal_ratios_warnings", w);
+            }
             cli_json_numbers(&j, "temperature_gradient_K_per_m", s.dTdz,
                              s.n_dim);
             cli_json_numbers(&j, "grad_lnT", glnT, s.n_dim);
@@ -173,7 +203,9 @@ int cli_cmd_fluxes(int argc, char **argv)
                    : "mass, relative to the mass-average velocity");
         if (s.have_grad_lnP)
             printf("  (including pressure diffusion)\n");
-        if (s.have_kT)
+        if (s.have_kT && s.kT_estimated)
+            thermal_note(&s);
+        else if (s.have_kT)
             printf("  (including thermal diffusion, the given k_T; the flags "
                    "compare with the composition gradients only)\n");
         cli_print_fluxes(&s, flux, flags, stdout);

@@ -4,6 +4,7 @@
  */
 #include <math.h>
 #include <stdarg.h>
+#include <stdint.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -225,7 +226,7 @@ static int thermal_options(const cli_state *s, const char *cmd, int need_grad,
             "is required with %s (thermal diffusion "
             "needs both)",
             s->have_kT ? "--thermal-ratios" : "--temperature-gradient");
-    if (nkT != s->n)
+    if (nkT != s->n && !s->kT_estimated)
         return cli_usage_error(cmd, "--thermal-ratios",
                                "has %zu values for %zu species", nkT, s->n);
     if (ndT != s->n_dim)
@@ -295,10 +296,15 @@ int cli_state_parse(cli_state *s, const char *cmd, int argc, char **argv,
         case O_KT:
             if (s->have_kT)
                 return cli_usage_error(cmd, a.spelled, "given twice");
+            s->have_kT = 1;
+            if (strcmp(a.value, "estimate") == 0) {
+                s->kT_estimated = 1; /* filled in cli_state_setup */
+                nkT = SIZE_MAX;
+                break;
+            }
             if (cli_parse_list(a.value, s->kT, MCD_MAX_SPECIES, &nkT, why,
                                sizeof why) != 0)
                 return cli_usage_error(cmd, a.spelled, "%s", why);
-            s->have_kT = 1;
             break;
         case O_DTDZ:
             if (s->have_dTdz)
@@ -527,6 +533,13 @@ int cli_state_setup(cli_state *s, const char *cmd)
         snprintf(err, sizeof err, "%s (method %s; try --method or --pair)",
                  mcd_last_error(), mcd_method_name(s->method));
         return cli_fail(cmd, "estimating binary diffusivities", st, err);
+    }
+    if (s->kT_estimated) {
+        st = mcd_mixture_thermal_ratios(s->mix, s->T, s->x, s->kT, NULL,
+                                        &s->kT_rel_err, &s->kT_warn);
+        if (st != MCD_OK)
+            return cli_fail(cmd, "estimating thermal diffusion ratios", st,
+                            mcd_last_error());
     }
     st = mcd_workspace_new(n, &s->ws);
     if (st != MCD_OK)

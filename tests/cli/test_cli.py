@@ -772,6 +772,33 @@ class Fluxes(unittest.TestCase):
         self.assertEqual(code, 2)
         self.assertIn("--temperature-gradient", err)
 
+    def test_thermal_ratios_estimated_by_kinetic_theory(self):
+        # `--thermal-ratios estimate`: the library's pairwise kinetic-theory
+        # ratios (mcd_mixture_thermal_ratios), which sum to zero; helium,
+        # the lightest, goes to the hot side (k_T < 0) and the heavier
+        # species to the cold side (common practice); the typical error is
+        # printed with the caution
+        args = ("fluxes", "-s", "He,Ar,N2", "-x", "0.2,0.5,0.3", "-g",
+                "-20,0,20", "-T", "300", "-P", "1atm", "--thermal-ratios",
+                "estimate", "--temperature-gradient", "1000")
+        d = run_json(*args)
+        kT = d["thermal_ratios"]
+        self.assertTrue(d["thermal_ratios_estimated"])
+        self.assertAlmostEqual(sum(kT), 0.0, delta=1e-15)
+        self.assertLess(kT[0], 0.0)
+        self.assertGreater(kT[1], 0.0)
+        self.assertGreaterEqual(d["thermal_ratios_typical_error"], 0.2)
+        # the fluxes are those of the same k_T given by hand
+        given = run_json(*args[:-3], ",".join(repr(v) for v in kT),
+                         "--temperature-gradient", "1000")
+        self.assertFalse(given["thermal_ratios_estimated"])
+        for a, b in zip(d["fluxes"], given["fluxes"]):
+            self.assertAlmostEqual(a[0], b[0], delta=1e-12 * abs(b[0]))
+        code, out, _ = run(*args)
+        self.assertEqual(code, 0)
+        self.assertIn("far less accurate", out)
+        self.assertIn("typical error 30 %", out)
+
     def test_pair_in_cm2_per_s_and_scaled(self):
         a = run_json("fluxes", *STATE3, "-g", "1,0,-1", "--pair",
                      "H2:N2=0.8cm2/s")
