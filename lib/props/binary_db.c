@@ -384,8 +384,13 @@ mcd_status mcdi_api_db_binary_liquid(const mcd_db *db, size_t solute,
                                      phi, sa.p[MCD_PARAM_VB], &D);
     if (st != MCD_OK)
         return st == MCD_EINVAL ? MCD_EDOM : st;
-    if (T < 273.15 || T > 373.15 ||
-        (has(&sb, MCD_PARAM_TB) && T >= sb.p[MCD_PARAM_TB]))
+    {
+        unsigned wr = 0; /* the correlation's range (liquid_range.c) */
+        (void)mcdi_api_method_temperature_range(MCD_METHOD_WILKE_CHANG, T, NULL,
+                                                NULL, &wr);
+        w |= wr; /* T > 0 and finite here: the call cannot fail */
+    }
+    if (has(&sb, MCD_PARAM_TB) && T >= sb.p[MCD_PARAM_TB])
         w |= MCD_WARN_TEMPERATURE;
     /* Wilke-Chang is least reliable for associating solutes (e.g. water or
      * alcohols in organic solvents); an associating solvent is covered by
