@@ -550,7 +550,12 @@ MCD_API mcd_status mcd_typical_error_widened(mcd_method m, unsigned warn,
 #define MCD_EXPLAIN_WARN 23     /**< MCD_WARN_* bits (an integer) */
 #define MCD_EXPLAIN_ESTIMATED 24 /**< 1 when sigma or eps/k was estimated
                                       from Vb or Tb, else 0 (LJ methods) */
-#define MCD_EXPLAIN_RESERVED 25 /**< first reserved slot */
+#define MCD_EXPLAIN_DELTA_A 25  /**< Brokaw's polar parameter of A,
+                                     1.94e3 mu_p^2 / (Vb Tb) (mu_p in
+                                     debye, Vb in cm^3/mol, Tb in K) [-] */
+#define MCD_EXPLAIN_DELTA_B 26  /**< the same of B [-] */
+#define MCD_EXPLAIN_DELTA_AB 27 /**< (delta_A delta_B)^(1/2) [-] */
+#define MCD_EXPLAIN_RESERVED 28 /**< first reserved slot */
 #define MCD_EXPLAIN_COUNT 32    /**< length of the output array */
 /** @} */
 

@@ -219,6 +219,64 @@ START_TEST(explain_matches_worked_example_co2_n2)
 }
 END_TEST
 
+START_TEST(explain_brokaw_polar_parameters)
+{
+    /* Brokaw (1969) as the library states it (from memory): delta =
+     * 1.94e3 mu_p^2 / (Vb Tb) with mu_p in debye, Vb in cm^3/mol, Tb in K;
+     * delta_AB the geometric mean; Omega_D = Omega_D(T*) + 0.19
+     * delta_AB^2 / T*; D by the Chapman-Enskog formula with those. Each
+     * slot is a few operations on the database's values: 16 ulp; D rebuilt
+     * by the Chapman-Enskog expression in SI: 1e-12 (the constants of the
+     * two expressions round differently). Pairs of water, ethanol and
+     * ammonia with nitrogen and each other, 300-900 K. */
+    static const size_t pol[3] = {G0 + 7, G0 + 8, G0 + 9};
+    const double tol = 16 * 2.2e-16;
+    size_t a, b;
+    for (a = 0; a < 3; a++)
+        for (b = 0; b < 4; b++) {
+            const size_t ia = ix[pol[a]], ib = b < 3 ? ix[pol[b]] : ix[N2];
+            const double T = 300.0 + 200.0 * (double)b;
+            double v[MCD_EXPLAIN_COUNT], D = 0.0, dl[2];
+            size_t k, sp[2] = {ia, ib};
+            ck_assert_int_eq(mcd_db_binary_explain(
+                                 db, ia, ib, MCD_METHOD_BROKAW, T, 1e5, NAN, v),
+                             MCD_OK);
+            ck_assert_int_eq(mcd_db_binary_gas(db, ia, ib, MCD_GAS_BROKAW, T,
+                                               1e5, &D, NULL, NULL),
+                             MCD_OK);
+            ck_assert(v[MCD_EXPLAIN_D] == D);
+            for (k = 0; k < 2; k++) {
+                double mu = 0, Vb = 0, Tb = 0;
+                ck_assert_int_eq(mcd_db_param(db, sp[k], MCD_PARAM_DIPOLE, &mu),
+                                 MCD_OK);
+                ck_assert_int_eq(mcd_db_param(db, sp[k], MCD_PARAM_VB, &Vb),
+                                 MCD_OK);
+                ck_assert_int_eq(mcd_db_param(db, sp[k], MCD_PARAM_TB, &Tb),
+                                 MCD_OK);
+                mu /= 1e-21 / 299792458.0; /* C m per debye: 1e-21 / c */
+                dl[k] = 1.94e3 * mu * mu / (1e6 * Vb * Tb);
+            }
+            ck_assert_double_eq_tol(v[MCD_EXPLAIN_DELTA_A], dl[0],
+                                    tol * (dl[0] + 1e-300));
+            ck_assert_double_eq_tol(v[MCD_EXPLAIN_DELTA_B], dl[1],
+                                    tol * (dl[1] + 1e-300));
+            ck_assert_double_eq_tol(v[MCD_EXPLAIN_DELTA_AB],
+                                    sqrt(dl[0] * dl[1]),
+                                    tol * (sqrt(dl[0] * dl[1]) + 1e-300));
+            {
+                double om = 0.0, Ts = v[MCD_EXPLAIN_T_STAR];
+                double dab = v[MCD_EXPLAIN_DELTA_AB];
+                ck_assert_int_eq(mcd_binary_omega_d(Ts, &om), MCD_OK);
+                ck_assert_double_eq_tol(v[MCD_EXPLAIN_OMEGA_D] /
+                                            (om + 0.19 * dab * dab / Ts),
+                                        1.0, tol);
+            }
+            ck_assert_double_eq_tol(rebuild(MCD_METHOD_CHAPMAN_ENSKOG, v) / D,
+                                    1.0, 1e-12);
+        }
+}
+END_TEST
+
 START_TEST(explain_bad_arguments_leave_output_untouched)
 {
     double v[MCD_EXPLAIN_COUNT];
@@ -320,6 +378,7 @@ int main(void)
     tcase_add_test(tc, explain_gas_intermediates_rebuild_the_estimate);
     tcase_add_test(tc, explain_wilke_chang_intermediates_rebuild_the_estimate);
     tcase_add_test(tc, explain_matches_worked_example_co2_n2);
+    tcase_add_test(tc, explain_brokaw_polar_parameters);
     tcase_add_test(tc, explain_bad_arguments_leave_output_untouched);
     suite_add_tcase(s, tc);
     TCase *wd = tcase_create("widen");

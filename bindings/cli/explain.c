@@ -31,7 +31,10 @@ static const char *const slot_keys[MCD_EXPLAIN_RESERVED] = {"D",
                                                             "published_error",
                                                             "typical_error",
                                                             "warning_bits",
-                                                            "lj_estimated"};
+                                                            "lj_estimated",
+                                                            "delta_A",
+                                                            "delta_B",
+                                                            "delta_AB"};
 
 void cli_explain_json(cli_json *j, const double *v)
 {
@@ -66,6 +69,13 @@ static void rows_masses(cli_table *t, const double *v)
 
 static void rows_lj(cli_table *t, const double *v, int brokaw)
 {
+    if (brokaw) {
+        row(t, "delta_A = 1.94e3 mu_p^2 / (Vb Tb)", 4, v[MCD_EXPLAIN_DELTA_A],
+            "");
+        row(t, "delta_B", 4, v[MCD_EXPLAIN_DELTA_B], "");
+        row(t, "delta_AB = (delta_A delta_B)^(1/2)", 4, v[MCD_EXPLAIN_DELTA_AB],
+            "");
+    }
     row(t, "sigma_A", 5, 1e10 * v[MCD_EXPLAIN_SIGMA_A], "Angstrom");
     row(t, "sigma_B", 5, 1e10 * v[MCD_EXPLAIN_SIGMA_B], "Angstrom");
     row(t,

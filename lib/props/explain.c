@@ -93,6 +93,9 @@ static void explain_gas(const mcdi_spec *sa, const mcdi_spec *sb, mcd_method m,
         v[MCD_EXPLAIN_EPS_AB] = sqrt(pa[2] * pb[2]);
         v[MCD_EXPLAIN_T_STAR] = T / v[MCD_EXPLAIN_EPS_AB];
         v[MCD_EXPLAIN_OMEGA_D] = mcdi_brokaw_omega(v[MCD_EXPLAIN_T_STAR], dab);
+        v[MCD_EXPLAIN_DELTA_A] = pa[0];
+        v[MCD_EXPLAIN_DELTA_B] = pb[0];
+        v[MCD_EXPLAIN_DELTA_AB] = dab;
         v[MCD_EXPLAIN_ESTIMATED] = 0;
     } else {
         double sga, sgb, ea, eb;

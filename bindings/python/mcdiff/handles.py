@@ -26,7 +26,8 @@ __all__ = ["Workspace", "Database", "Mixture", "BinaryEstimate",
 EXPLAIN_SLOTS = ("d", "t", "p", "m_a", "m_b", "m_ab", "v_a", "v_b", "v_roots",
                  "sigma_a", "sigma_b", "sigma_ab", "eps_a", "eps_b", "eps_ab",
                  "t_star", "omega_d", "wl_factor", "phi", "mu_b", "vb_a",
-                 "rel_err", "rel_err_widened", "warn", "estimated")
+                 "rel_err", "rel_err_widened", "warn", "estimated",
+                 "delta_a", "delta_b", "delta_ab")
 EXPLAIN_COUNT = 32
 
 BinaryEstimate = collections.namedtuple("BinaryEstimate",
