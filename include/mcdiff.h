@@ -370,14 +370,29 @@ typedef enum mcd_method {
 
 /** Gas-phase correlations, the methods a database pair or a mixture pair
  *  can be estimated by (numerically equal to the mcd_method values of the
- *  same name, so a gas method can be passed to mcd_method_name). */
+ *  same name, so a gas method can be passed to mcd_method_name), and the
+ *  per-pair choice MCD_GAS_RECOMMENDED of a mixture. */
 typedef enum mcd_gas_method {
     MCD_GAS_FSG = 1,            /**< Fuller-Schettler-Giddings */
     MCD_GAS_CHAPMAN_ENSKOG = 2, /**< Chapman-Enskog, Lennard-Jones */
     MCD_GAS_WILKE_LEE = 3,      /**< Wilke-Lee */
-    MCD_GAS_BROKAW = 8          /**< Brokaw's polar correction; database
-                                     pairs only (a mixture refuses it with
-                                     EINVAL). Since 0.4. */
+    MCD_GAS_BROKAW = 8,         /**< Brokaw's polar correction, for database
+                                     pairs (Since 0.4) and mixture pairs
+                                     (Since 0.4: mcd_mixture_new,
+                                     mcd_mixture_set_method). */
+    MCD_GAS_RECOMMENDED = 100   /**< Mixtures only: each pair gets the
+                                     method `mcdiff binary` recommends for
+                                     it: MCD_GAS_BROKAW when either species
+                                     is polar (dipole above 1 debye, the
+                                     rule of MCD_WARN_POLAR) and both have
+                                     Brokaw's data (dipole, Vb, Tb); else
+                                     the first of FSG, Chapman-Enskog,
+                                     Wilke-Lee whose parameters the pair
+                                     has (FSG when none has). Not an
+                                     mcd_method: mcd_mixture_pair_method
+                                     tells the method picked. A database
+                                     pair (mcd_db_binary_gas) refuses it
+                                     with EINVAL. Since 0.4. */
 } mcd_gas_method;
 
 /** Short name of a method ("fsg", "chapman-enskog", "wilke-lee",
@@ -591,7 +606,11 @@ typedef struct mcd_mixture mcd_mixture;
 
 /** New mixture of n species picked by name from db (parameters are copied:
  *  the mixture does not refer to db afterwards). Every pair uses the
- *  default method until changed. A species named twice is EINVAL.
+ *  default method until changed (MCD_GAS_RECOMMENDED: each pair its
+ *  recommended one; MCD_GAS_BROKAW and MCD_GAS_RECOMMENDED Since 0.4).
+ *  A species named twice is EINVAL. A pair whose method lacks a parameter
+ *  is no failure here: mcd_mixture_binaries and the flux calls return
+ *  ENODATA naming the pair, the species and the parameter.
  *  Since 0.1.
  *  Fails: EINVAL, ENOTFOUND (the detail names the species), ENOMEM
  *  | Allocates: yes */
@@ -611,9 +630,19 @@ MCD_API mcd_status mcd_mixture_molar_masses(const mcd_mixture *mix,
                                             double *out_M);
 /** Estimate pair (i, j) (i != j) by gas method m from now on (a value
  *  given with mcd_mixture_set_binary is dropped; give it again to use it).
- *  Since 0.1. Fails: EINVAL, EBADLEN (index) | Allocates: no */
+ *  MCD_GAS_RECOMMENDED picks the pair's recommended method (see
+ *  mcd_gas_method). Since 0.1 (MCD_GAS_BROKAW, MCD_GAS_RECOMMENDED Since
+ *  0.4). Fails: EINVAL, EBADLEN (index) | Allocates: no */
 MCD_API mcd_status mcd_mixture_set_method(mcd_mixture *mix, size_t i,
                                           size_t j, mcd_gas_method m);
+/** The method pair (i, j) (i != j) is estimated by: the gas method set
+ *  (for MCD_GAS_RECOMMENDED the one it picked: MCD_METHOD_BROKAW,
+ *  _FSG, _CHAPMAN_ENSKOG or _WILKE_LEE), or MCD_METHOD_USER for a value
+ *  given with mcd_mixture_set_binary. Since 0.4.
+ *  @param out_method  the pair's mcd_method (untouched on failure).
+ *  Fails: EINVAL (NULL, i == j), EBADLEN (index) | Allocates: no */
+MCD_API mcd_status mcd_mixture_pair_method(const mcd_mixture *mix, size_t i,
+                                           size_t j, mcd_method *out_method);
 /** Give a measured Đ_ij [m^2/s] at (T_ref, P_ref) for pair (i, j); at other
  *  states it is scaled as (T/T_ref)^1.75 (P_ref/P). Since 0.1.
  *  Fails: EINVAL, EDOM, EBADLEN | Allocates: no */
@@ -1486,9 +1515,9 @@ MCD_API mcd_status mcd_workspace_set_threads(mcd_workspace *ws,
                                              size_t n_threads);
 
 /** Declare a temperature range [T_min, T_max] over which batched calls may
- *  evaluate the Chapman-Enskog and Wilke-Lee pairs of this mixture from a
- *  fit instead of exactly: for each such pair, Omega_D(T / eps) is fitted
- *  by a Chebyshev polynomial in ln T (interpolation at Chebyshev nodes, the
+ *  evaluate the Chapman-Enskog, Wilke-Lee and Brokaw pairs of this
+ *  mixture from a fit instead of exactly: for each such pair, Omega_D(T /
+ *  eps) (Brokaw: with its polar term, Since 0.4) is fitted by a Chebyshev polynomial in ln T (interpolation at Chebyshev nodes, the
  *  degree raised up to 24 until the error is below 1e-12 or stops
  *  improving). The fit's largest relative error on Đ over the range
  *  (checked on a fine grid) is returned. Cells outside the range, and

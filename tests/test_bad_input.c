@@ -472,6 +472,11 @@ static int call_mcd_mixture_set_method(ctx *c)
     return mcd_mixture_set_method(ARG(mix, NB_MIX), c->i, c->j,
                                   (mcd_gas_method)c->method);
 }
+static int call_mcd_mixture_pair_method(ctx *c)
+{
+    return mcd_mixture_pair_method(ARG(mix, NB_MIX), c->i, c->j,
+                                   OUTP(om, NB_OM));
+}
 static int call_mcd_mixture_set_binary(ctx *c)
 {
     return mcd_mixture_set_binary(ARG(mix, NB_MIX), c->i, c->j, c->value,
@@ -1469,6 +1474,8 @@ static const bcase cases[] = {
     C(mcd_db_binary_gas, "method USER", EINVAL_, NULL,
       MI(method, MCD_METHOD_USER)),
     C(mcd_db_binary_gas, "method 99", EINVAL_, NULL, MI(method, 99)),
+    C(mcd_db_binary_gas, "method RECOMMENDED (mixtures only)", EINVAL_,
+      "method", MI(method, MCD_GAS_RECOMMENDED)),
     C(mcd_db_binary_gas, "T 0", EDOM_, NULL, MD(T, 0.0)),
     C(mcd_db_binary_gas, "P NaN", EINVAL_, NULL, MD(P, NAN)),
     C(mcd_db_binary_gas, "T -inf", EINVAL_, NULL, MD(T, -INFINITY)),
@@ -1546,6 +1553,13 @@ static const bcase cases[] = {
       MI(method, MCD_METHOD_USER)),
     C(mcd_mixture_set_method, "liquid method", EINVAL_, NULL,
       MI(method, MCD_METHOD_WILKE_CHANG)),
+    B(mcd_mixture_pair_method, MCD_OK),
+    C(mcd_mixture_pair_method, "mix NULL", EINVAL_, NULL, MN(NB_MIX)),
+    C(mcd_mixture_pair_method, "out NULL", EINVAL_, NULL, MN(NB_OM)),
+    C(mcd_mixture_pair_method, "i == j", EINVAL_, "i, j", MZ(j, 0)),
+    C(mcd_mixture_pair_method, "i = n", MCD_EBADLEN, "argument i", MZ(i, 3)),
+    C(mcd_mixture_pair_method, "j SIZE_MAX", MCD_EBADLEN, "argument j",
+      MZ(j, SIZE_MAX)),
     B(mcd_mixture_set_binary, MCD_OK),
     C(mcd_mixture_set_binary, "mix NULL", EINVAL_, NULL, MN(NB_MIX)),
     C(mcd_mixture_set_binary, "i == j", EINVAL_, NULL, MZ(j, 0)),

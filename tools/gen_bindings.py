@@ -847,6 +847,7 @@ FORTRAN_SCALAR = {
     "mcd_comp_c_to_x": ["out_c"],
     "mcd_comp_ideal_gas_c": ["out_c"],
     "mcd_method_from_name": ["out_m"],
+    "mcd_mixture_pair_method": ["out_method"],
     "mcd_binary_fsg": ["out_D"],
     "mcd_binary_chapman_enskog": ["out_D"],
     "mcd_binary_wilke_lee": ["out_D"],

@@ -157,7 +157,7 @@ module mcdiff
        mcd_warning_string, mcd_binary_fsg, mcd_binary_chapman_enskog, &
        mcd_binary_scale, mcd_db_binary_gas, &
        mcd_mixture_new, mcd_mixture_species_count, mcd_mixture_name, &
-       mcd_mixture_molar_masses, mcd_mixture_set_method, &
+       mcd_mixture_molar_masses, mcd_mixture_set_method, mcd_mixture_pair_method, &
        mcd_mixture_set_binary, mcd_mixture_binaries, &
        mcd_workspace_new, mcd_workspace_capacity, mcd_last_error, &
        mcd_flux_compute, mcd_thermal_ratios, mcd_flux_jacobian_comp, &
@@ -952,6 +952,21 @@ contains
     call finish(c_mcd_mixture_set_method(mix%ptr, cidx(i), cidx(j), &
          int(method, c_int)), stat, errmsg)
   end subroutine mcd_mixture_set_method
+
+  !> Method of pair (i, j), 1-based: the one set, the one MCD_GAS_RECOMMENDED
+  !> picked, or MCD_METHOD_USER for a given value (untouched on failure).
+  subroutine mcd_mixture_pair_method(mix, i, j, method, stat, errmsg)
+    type(mcd_mixture_t), intent(in) :: mix
+    integer, intent(in) :: i, j
+    integer, intent(inout) :: method
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    integer(c_int) :: m, s
+    m = 0
+    s = c_mcd_mixture_pair_method(mix%ptr, cidx(i), cidx(j), m)
+    if (s == 0) method = int(m)
+    call finish(s, stat, errmsg)
+  end subroutine mcd_mixture_pair_method
 
   !> Measured D [m^2/s] at (T_ref, P_ref) for pair (i, j), 1-based.
   subroutine mcd_mixture_set_binary(mix, i, j, D, T_ref, P_ref, stat, errmsg)

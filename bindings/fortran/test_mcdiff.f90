@@ -21,6 +21,7 @@ program test_mcdiff
   call check_raw_and_liquid_binaries()
   call check_frames()
   call check_temperature_fit()
+  call check_recommended_mixture()
   call check_bulbs()
   call check_porous()
   call check_thermal_kt()
@@ -658,6 +659,45 @@ contains
     call mcd_mixture_temperature_fit(mix, lo, hi, e_get, stat, msg)
     call check(max(abs(lo), abs(hi), abs(e_get)) <= 0, 'fit removed')
   end subroutine check_temperature_fit
+
+  ! A mixture with MCD_GAS_RECOMMENDED: the polar pair water/air takes
+  ! Brokaw's correction and gives the database pair's Brokaw value; the
+  ! nonpolar pair nitrogen/air takes FSG; a given value reads back as USER.
+  subroutine check_recommended_mixture()
+    type(mcd_db_t) :: db
+    type(mcd_mixture_t) :: mix
+    real(c_double) :: Dij(3, 3), Ddb
+    integer :: stat, m, iw, ia
+    character(len=256) :: msg
+    call mcd_db_new_builtin(db, stat, msg)
+    call mcd_mixture_new(mix, db, [character(len=16) :: 'water', 'air', 'nitrogen'], &
+         stat, msg, default_method=MCD_GAS_RECOMMENDED)
+    call check_stat(stat, msg, 'recommended mixture')
+    m = -1
+    call mcd_mixture_pair_method(mix, 1, 2, m, stat, msg)
+    call check_stat(stat, msg, 'pair method water/air')
+    call check(m == MCD_METHOD_BROKAW, 'water/air recommended: brokaw')
+    call mcd_mixture_pair_method(mix, 3, 2, m, stat, msg)
+    call check(m == MCD_METHOD_FSG, 'nitrogen/air recommended: fsg')
+    call mcd_mixture_binaries(mix, 313.15_c_double, MCD_ATM, Dij, stat, msg)
+    call check_stat(stat, msg, 'recommended binaries')
+    call mcd_db_find(db, 'water', iw, stat, msg)
+    call mcd_db_find(db, 'air', ia, stat, msg)
+    call mcd_db_binary_gas(db, iw, ia, MCD_GAS_BROKAW, 313.15_c_double, MCD_ATM, Ddb, &
+         stat, msg)
+    call check_stat(stat, msg, 'database Brokaw water/air')
+    ! the same expression from the same parameters: equal to round-off
+    call check(abs(Dij(1, 2) - Ddb) <= 1e-14_c_double * Ddb, &
+         'mixture Brokaw pair equals the database pair')
+    ! any value: only the method it sets is checked
+    call mcd_mixture_set_binary(mix, 1, 2, 2.6e-5_c_double, 313.15_c_double, MCD_ATM, &
+         stat, msg)
+    call mcd_mixture_pair_method(mix, 2, 1, m, stat, msg)
+    call check(m == MCD_METHOD_USER, 'a given value reads back as user')
+    m = -7
+    call mcd_mixture_pair_method(mix, 2, 2, m, stat, msg)
+    call check(stat == MCD_EINVAL .and. m == -7, 'pair (i, i) refused, output untouched')
+  end subroutine check_recommended_mixture
 
   ! Two-bulb cell, binary: [D] = D12 at every composition and the
   ! equimolar binary film carries N = c D12 (x1 - x2) / L, so both

@@ -50,6 +50,7 @@
     X(mixture_new, (const mcd_db *db, size_t n_species, const char *const *names, mcd_gas_method default_method, mcd_mixture **out_mix), (db, n_species, names, default_method, out_mix)) \
     X(mixture_molar_masses, (const mcd_mixture *mix, double *out_M), (mix, out_M)) \
     X(mixture_set_method, (mcd_mixture *mix, size_t i, size_t j, mcd_gas_method m), (mix, i, j, m)) \
+    X(mixture_pair_method, (const mcd_mixture *mix, size_t i, size_t j, mcd_method *out_method), (mix, i, j, out_method)) \
     X(mixture_set_binary, (mcd_mixture *mix, size_t i, size_t j, double D, double T_ref, double P_ref), (mix, i, j, D, T_ref, P_ref)) \
     X(mixture_binaries, (const mcd_mixture *mix, double T, double P, double *out_D, double *out_rel_err, unsigned *out_warn), (mix, T, P, out_D, out_rel_err, out_warn)) \
     X(viscosity_omega22, (double T_star, double *out_omega), (T_star, out_omega)) \

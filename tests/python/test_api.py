@@ -184,6 +184,39 @@ class Binaries(unittest.TestCase):
             air[Tb]))
         self.assertFalse(br.warnings & mcdiff.EstimateWarning.POLAR)
 
+    def test_mixture_recommended_and_brokaw_pairs(self):
+        # MCD_GAS_RECOMMENDED: water (polar) pairs take Brokaw's correction
+        # and give the database pair's Brokaw value (same parameters, same
+        # expression: equal); nitrogen/air (nonpolar) takes fsg.
+        db = self.db
+        T, P = 313.15, 101325.0
+        names = ["water", "air", "nitrogen"]
+        for how in ("recommended", mcdiff.GasMethod.RECOMMENDED, 100):
+            mix = db.mixture(names, how)
+            self.assertEqual(mix.pair_method(0, 1), mcdiff.Method.BROKAW)
+            self.assertEqual(mix.pair_method("nitrogen", "water"),
+                             mcdiff.Method.BROKAW)
+            self.assertEqual(mix.pair_method(2, 1), mcdiff.Method.FSG)
+            D = mix.binaries(T, P)
+            self.assertEqual(D[0][1], db.binary_gas("water", "air", "brokaw",
+                                                    T, P).D)
+            self.assertEqual(D[1][2], db.binary_gas("air", "nitrogen", "fsg",
+                                                    T, P).D)
+            mix.close()
+        # Brokaw as the default and per pair; a given value reads as user
+        mix = db.mixture(names, "brokaw")
+        self.assertEqual(mix.pair_method(1, 2), mcdiff.Method.BROKAW)
+        mix.set_method(1, 2, "recommended")
+        self.assertEqual(mix.pair_method(1, 2), mcdiff.Method.FSG)
+        mix.set_binary(0, 2, 2.5e-5, T)  # any value: only its method is read
+        self.assertEqual(mix.pair_method(2, 0), mcdiff.Method.USER)
+        with self.assertRaises(mcdiff.McdError):
+            mix.pair_method(1, 1)
+        mix.close()
+        # a database pair refuses the per-pair choice
+        with self.assertRaises(mcdiff.McdError):
+            db.binary_gas("water", "air", "recommended", T, P)
+
     def test_fsg_equation(self):
         # Fuller, Schettler and Giddings (1966): D = 1.00e-3 T^1.75
         # (1/M_A + 1/M_B)^0.5 / (P (V_A^(1/3) + V_B^(1/3))^2) cm^2/s, P in

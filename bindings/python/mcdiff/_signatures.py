@@ -162,6 +162,8 @@ SIGNATURES = {
     "mcd_mixture_molar_masses": (_ST, [_H, _PD]),
     # (mix, i, j, m)
     "mcd_mixture_set_method": (_ST, [_H, _SZ, _SZ, _E]),
+    # (mix, i, j, out_method)
+    "mcd_mixture_pair_method": (_ST, [_H, _SZ, _SZ, _PI]),
     # (mix, i, j, D, T_ref, P_ref)
     "mcd_mixture_set_binary": (_ST, [_H, _SZ, _SZ, _D, _D, _D]),
     # (mix, T, P, out_D, out_rel_err, out_warn)
