@@ -248,7 +248,7 @@ typedef struct cli_state {
     mcd_basis comp_basis;         /* -x (mole) or -w (mass) */
     mcd_basis out_basis;          /* --basis */
     mcd_model model;              /* --model */
-    mcd_method method;            /* --method */
+    mcd_gas_method method;        /* --method (MCD_GAS_RECOMMENDED too) */
     double *comp;                 /* n */
     double *grad;                 /* n x n_dim, in comp_basis */
     double grad_lnP[MCD_MAX_DIM];
@@ -327,6 +327,22 @@ enum {
         "help", 'h', 0, CLI_O_HELP                                             \
     }
 /* Reset s to its defaults (no species, T and P not given, fsg). */
+/* --method NAME of the mixture commands: fsg, chapman-enskog, wilke-lee,
+ * brokaw or recommended (each pair the method 'mcdiff binary' recommends
+ * for it). 0 or -1 (unknown). */
+int cli_gas_method_from_name(const char *name, mcd_gas_method *out);
+/* Name of a gas method for messages ("recommended" too). */
+const char *cli_gas_method_name(mcd_gas_method g);
+/* Help text of --method shared by the mixture commands (two lines, the
+ * first after the option, the second indented like the others). */
+#define CLI_METHOD_HELP                                                        \
+    "  -m, --method NAME         estimate of the binary diffusivities:\n"      \
+    "                            fsg (default), chapman-enskog, wilke-lee,\n"  \
+    "                            brokaw, or recommended: each pair the one\n"  \
+    "                            'mcdiff binary' recommends (brokaw for a\n"   \
+    "                            polar pair with its data, else the first\n"   \
+    "                            of fsg, chapman-enskog, wilke-lee that\n"     \
+    "                            applies)\n"
 void cli_state_defaults(cli_state *s);
 /* Handle one shared option (id >= CLI_O_SPECIES, not CLI_O_HELP).
  * Returns CLI_OK, CLI_USAGE or CLI_FAIL (message printed). */

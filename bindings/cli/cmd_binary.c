@@ -82,6 +82,22 @@ static void json_warnings(cli_json *j, unsigned bits)
     cli_json_array_end(j);
 }
 
+/* The method the library recommends for the pair (the per-pair rule of
+ * MCD_GAS_RECOMMENDED, read back from a mixture of the two), or 0 when
+ * it cannot tell (the same species twice). */
+static mcd_method recommended(const mcd_db *db, const size_t idx[2])
+{
+    const char *names[2] = {mcd_db_name(db, idx[0]), mcd_db_name(db, idx[1])};
+    mcd_mixture *mix = NULL;
+    mcd_method m = (mcd_method)0;
+    if (idx[0] != idx[1] &&
+        mcd_mixture_new(db, 2, names, MCD_GAS_RECOMMENDED, &mix) == MCD_OK &&
+        mcd_mixture_pair_method(mix, 0, 1, &m) != MCD_OK)
+        m = (mcd_method)0;
+    mcd_mixture_free(mix);
+    return m;
+}
+
 int cli_cmd_binary(int argc, char **argv)
 {
     enum {
@@ -231,16 +247,14 @@ int cli_cmd_binary(int argc, char **argv)
         if (r->st == MCD_OK && best < 0)
             best = (int)k;
     }
-    /* A polar pair (another method's estimate carries MCD_WARN_POLAR):
-     * Brokaw's correction, when it applies, is the recommended one. */
-    for (k = 0; k < nres && nres > 1; k++)
-        if (res[k].st == MCD_OK && (res[k].warn & MCD_WARN_POLAR)) {
-            size_t b;
-            for (b = 0; b < nres; b++)
-                if (res[b].m == MCD_METHOD_BROKAW && res[b].st == MCD_OK)
-                    best = (int)b;
-            break;
-        }
+    /* The library's rule (MCD_GAS_RECOMMENDED, asked of a mixture of the
+     * pair): Brokaw's correction for a polar pair with its data. */
+    if (nres > 1) {
+        mcd_method rec = recommended(db, idx);
+        for (k = 0; k < nres; k++)
+            if (res[k].m == rec && res[k].st == MCD_OK)
+                best = (int)k;
+    }
     recommend = !have_method;
     if (best < 0) {
         rc = cli_fail(cmd, nres == 1 ? "the estimate" : "every estimate",

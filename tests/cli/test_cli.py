@@ -684,6 +684,63 @@ class Fluxes(unittest.TestCase):
                 for r in d["zero_sum_residual"]:
                     self.assertLessEqual(abs(r), 1e-15)
 
+    def test_method_recommended_and_brokaw_per_pair(self):
+        # --method recommended: each pair the method `binary` recommends for
+        # it (water, 1.8 debye, is polar: brokaw; air/methane: fsg), with
+        # binary's value and typical error for that pair; the tables name
+        # each pair's method. --method brokaw: every pair by Brokaw.
+        state = ["-s", "water,air,methane", "-x", "0.1,0.7,0.2",
+                 "-T", "313.15", "-P", "1atm"]
+        for cmd, extra in (("fluxes", ["-g", "1,-0.5,-0.5"]), ("matrix", [])):
+            with self.subTest(cmd=cmd):
+                d = run_json(cmd, *state, *extra, "--method", "recommended")
+                src = d["binary_source"]
+                self.assertEqual(src[0][1], "brokaw")
+                self.assertEqual(src[2][0], "brokaw")
+                self.assertEqual(src[1][2], "fsg")
+                for i, j in ((0, 1), (0, 2), (1, 2)):
+                    names = d["species"]
+                    b = run_json("binary", names[i], names[j], "-T",
+                                 "313.15", "-P", "1atm", "--method",
+                                 src[i][j])
+                    self.assertEqual(d["binary_D"][i][j], b["D"])
+                    self.assertEqual(d["binary_typical_error"][i][j],
+                                     b["typical_error"])
+                    # and `binary` alone recommends that same method
+                    r = run_json("binary", names[i], names[j], "-T",
+                                 "313.15", "-P", "1atm")
+                    self.assertEqual(r["method"], src[i][j])
+                d = run_json(cmd, *state, *extra, "--method", "brokaw")
+                self.assertEqual({m for row in d["binary_source"]
+                                  for m in row if m}, {"brokaw"})
+        code, out, _ = run("fluxes", *state, "-g", "1,-0.5,-0.5", "-m",
+                           "recommended", "--pair", "air:methane=0.22cm2/s")
+        self.assertEqual(code, 0)
+        # the text table's last column names each pair's method
+        rows = {tuple(ln.split()[0:3:2]): ln.split()[-1]
+                for ln in out.splitlines()
+                if ln.startswith("  ") and " / " in ln
+                and not ln.strip().startswith("warning")}
+        self.assertEqual(rows.get(("water", "air")), "brokaw")
+        self.assertEqual(rows.get(("air", "methane")), "given")
+        # a polar species without Brokaw's data (CO2 has no Tb): fsg
+        d = run_json("matrix", "-s", "ammonia,carbon-dioxide,nitrogen", "-x",
+                     "0.2,0.3,0.5", "-T", "300", "-P", "1atm", "--method",
+                     "recommended")
+        self.assertEqual(d["binary_source"][0][1], "fsg")
+        self.assertEqual(d["binary_source"][0][2], "brokaw")
+        code, _, err = run("fluxes", *state, "-g", "1,-0.5,-0.5", "-m",
+                           "wilke-chang")
+        self.assertEqual(code, 2)
+        self.assertIn("recommended", err)
+        # Brokaw needs CO2's Tb: the error names the pair and the parameter
+        code, _, err = run("matrix", "-s", "ammonia,carbon-dioxide", "-x",
+                           "0.5,0.5", "-T", "300", "-P", "1atm", "-m",
+                           "brokaw")
+        self.assertEqual(code, 1)
+        self.assertIn("carbon-dioxide", err)
+        self.assertIn("Tb", err)
+
     def test_mass_fraction_input(self):
         d = run_json("fluxes", "-s", "CO2,N2,water", "-w", "0.3,0.6,0.1",
                      "-g", "2,-1,-1", "-T", "400", "-P", "2bar")
