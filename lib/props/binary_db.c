@@ -20,8 +20,9 @@
  *                 few percent by Pr ~ 0.3-0.5 at moderate Tr; from memory).
  *  POLAR          dipole moment of either species above 1 debye. Not set
  *                 on Brokaw's estimate, which corrects for the dipole: for
- *                 such pairs it is the method to prefer (the CLI marks it
- *                 recommended when the other methods carry POLAR).
+ *                 such pairs it is the method to prefer
+ *                 (mcdi_pair_recommended picks it when the pair is polar
+ *                 by this rule and has its data).
  *  TEMPERATURE    FSG: T outside 200..1100 K, roughly the span of the
  *                 1966 data set (common practice); Chapman-Enskog,
  *                 Wilke-Lee and Brokaw: T* = T/eps_AB outside the 0.3..100
