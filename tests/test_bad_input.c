@@ -928,6 +928,12 @@ static int call_mcd_dufour_heat_flux(ctx *c)
                                 ARG(vals, NB_VALS), c->T, MCD_BASIS_MASS,
                                 ARG(J, NB_J), OUT(o1, NB_O1));
 }
+static int call_mcd_dufour_heat_flux_batch(ctx *c)
+{
+    return mcd_dufour_heat_flux_batch(
+        c->n, c->K, c->nd, ARG(x, NB_X), ARG(M, NB_M), ARG(vals, NB_VALS),
+        ARG(Tc, NB_T), MCD_BASIS_MASS, ARG(J, NB_J), OUT(o1, NB_O1));
+}
 #define PORE (NUL_(NB_PORE) ? NULL : &c->pore)
 static int call_mcd_pore_permeability(ctx *c)
 {
@@ -2232,6 +2238,24 @@ static const bcase cases[] = {
     C(mcd_dufour_heat_flux, "T 0", EDOM_, "T", MD(T, 0.0)),
     C(mcd_dufour_heat_flux, "n_dim 0", EINVAL_, "n_dim", MZ(nd, 0)),
     C(mcd_dufour_heat_flux, "out NULL", EINVAL_, "out_q", MN(NB_O1)),
+    /* one cell (K = 1): the failing cell is the only one */
+    B(mcd_dufour_heat_flux_batch, MCD_OK),
+    C(mcd_dufour_heat_flux_batch, "n 0", EINVAL_, "n_species", MZ(n, 0)),
+    C(mcd_dufour_heat_flux_batch, "x NULL", EINVAL_, "x", MN(NB_X)),
+    C(mcd_dufour_heat_flux_batch, "theta NULL", EINVAL_, "theta", MN(NB_VALS)),
+    C(mcd_dufour_heat_flux_batch, "T NULL", EINVAL_, "T", MN(NB_T)),
+    C(mcd_dufour_heat_flux_batch, "flux NULL", EINVAL_, "flux", MN(NB_J)),
+    C(mcd_dufour_heat_flux_batch, "M NULL", EINVAL_, "M", MN(NB_M)),
+    C(mcd_dufour_heat_flux_batch, "out NULL", EINVAL_, "out_q", MN(NB_O1)),
+    C(mcd_dufour_heat_flux_batch, "n_dim 0", EINVAL_, "n_dim", MZ(nd, 0)),
+    C(mcd_dufour_heat_flux_batch, "T 0", EDOM_, "cell", MDA(Tc, 0, 0.0)),
+    C(mcd_dufour_heat_flux_batch, "T NaN", EINVAL_, "cell", MDA(Tc, 0, NAN)),
+    C(mcd_dufour_heat_flux_batch, "x negative", EDOM_, "cell", MDA(x, 1, -0.1),
+      MDA(x, 0, 0.9)),
+    C(mcd_dufour_heat_flux_batch, "theta NaN", EINVAL_, "theta",
+      MDA(vals, 1, NAN)),
+    C(mcd_dufour_heat_flux_batch, "flux inf", EINVAL_, "flux",
+      MDA(J, 1, INFINITY)),
     /* ---- porous media ---- */
     B(mcd_pore_permeability, MCD_OK),
     C(mcd_pore_permeability, "pore NULL", EINVAL_, "pore", MN(NB_PORE)),

@@ -922,6 +922,7 @@ FORTRAN_NULLABLE = {
     "mcd_db_thermal_factor": ["out_rel_err", "out_warn"],
     "mcd_mixture_thermal_ratios": ["out_theta", "out_rel_err", "out_warn"],
     "mcd_dufour_heat_flux": ["M"],
+    "mcd_dufour_heat_flux_batch": ["M"],
     "mcd_mixture_viscosities": ["out_warn"],
     "mcd_slab_solve": ["out_PL", "out_iterations"],
     "mcd_slab_solve_ratios": ["out_PL", "out_iterations"],

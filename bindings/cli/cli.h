@@ -197,6 +197,24 @@ void cli_csv_end_row(cli_csv *c);
 void cli_explain_json(cli_json *j, const double *v);
 void cli_explain_text(mcd_method m, const double *v, FILE *f);
 
+/* ---- binary --thermal-factor (binary_thermal.c) ---- */
+/* The pair's thermal diffusion factor at x_a (mcd_db_thermal_factor), with
+ * its typical error and warnings; printed with the caution that thermal
+ * diffusion estimates are far less accurate than diffusivities. */
+typedef struct cli_thermal_factor {
+    double x_a, alpha, rel_err;
+    unsigned warn;
+} cli_thermal_factor;
+/* Fills alpha, rel_err, warn (x_a set by the caller); CLI_FAIL with the
+ * library's message on failure. */
+int cli_thermal_factor_estimate(const char *cmd, const mcd_db *db, size_t a,
+                                size_t b, double T, cli_thermal_factor *out);
+void cli_thermal_factor_text(const cli_thermal_factor *t, const char *name_a,
+                             FILE *f);
+/* A "thermal_diffusion" object: x_A, alpha_T, k_T, typical_error, method,
+ * warnings, caution. */
+void cli_thermal_factor_json(cli_json *j, const cli_thermal_factor *t);
+
 /* ---- typical errors under warnings (main.c) ---- */
 /* mcd_typical_error_widened, NaN when it fails or has no value. */
 double cli_widened_error(mcd_method m, unsigned warn);

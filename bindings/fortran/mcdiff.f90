@@ -186,6 +186,7 @@ module mcdiff
        mcd_db_viscosity_gas, mcd_mixture_viscosities, mcd_pore_permeability, &
        mcd_lj_collision_integrals, mcd_thermal_factor_kinetic, mcd_thermal_factor_ce, &
        mcd_db_thermal_factor, mcd_mixture_thermal_ratios, mcd_dufour_heat_flux, &
+       mcd_dufour_heat_flux_batch, &
        mcd_pore_effective, mcd_knudsen_diffusivity, mcd_bosanquet, &
        mcd_dgm_fluxes, mcd_dgm_closed, mcd_dgm_gradients, mcd_dgm_fluxes_batch, &
        mcd_slab_solve, mcd_slab_solve_ratios, mcd_slab_profile
@@ -1631,6 +1632,23 @@ contains
     call finish(c_mcd_dufour_heat_flux(csz(n), csz(n_dim), x, c_loc(M), &
          theta, T, int(flux_basis, c_int), flux, q), stat, errmsg)
   end subroutine mcd_dufour_heat_flux
+
+  !> Dufour heat flux of n_cells cells (mcd_dufour_heat_flux_batch), arrays
+  !> with the cell in the first index as mcd_flux_batch_dij: x(n_cells, n),
+  !> theta(n_cells, n), T(n_cells) [K], flux(n_cells, n_dim, n) in
+  !> flux_basis, M(n) [kg/mol] (mass fluxes); q(n_cells, n_dim) [W/m^2].
+  subroutine mcd_dufour_heat_flux_batch(n, n_cells, n_dim, x, M, theta, T, &
+       flux_basis, flux, q, stat, errmsg)
+    integer, intent(in) :: n, n_cells, n_dim, flux_basis
+    real(c_double), intent(in) :: x(n_cells, n), theta(n_cells, n), T(n_cells)
+    real(c_double), intent(in) :: flux(n_cells, n_dim, n)
+    real(c_double), intent(in), target :: M(n)
+    real(c_double), intent(inout) :: q(n_cells, n_dim)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_dufour_heat_flux_batch(csz(n), csz(n_cells), csz(n_dim), &
+         x, c_loc(M), theta, T, int(flux_basis, c_int), flux, q), stat, errmsg)
+  end subroutine mcd_dufour_heat_flux_batch
 
   ! ==================================================================
   ! Porous media

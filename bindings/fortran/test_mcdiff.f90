@@ -767,6 +767,8 @@ contains
     integer :: stat, ia, ih, w
     character(len=256) :: msg
     real(c_double) :: om(4), r(3), a, b, err, kT(2), th(2), q(1), J(1, 2), pa(6)
+    real(c_double) :: xb(2, 2), thb(2, 2), Tb(2), fb(2, 2, 2), qb(2, 2), q1(2)
+    integer :: k
     call mcd_lj_collision_integrals(1.0_c_double, om, r, stat, msg)
     call check(stat == MCD_OK .and. abs(om(1) / 1.440_c_double - 1) < 2e-3_c_double, &
          'Omega11(1) (Bird, Stewart and Lightfoot, Table E.2)')
@@ -807,6 +809,25 @@ contains
          [0.2_c_double, -0.2_c_double], 300.0_c_double, MCD_BASIS_MOLE, J, q, stat, msg)
     call check(stat == MCD_OK .and. abs(q(1) - 0.4_c_double * MCD_GAS_CONSTANT * 300) &
          <= 1e-12_c_double * q(1), 'Dufour heat flux R T sum theta J')
+    ! batched (cell first) = the single-state call per cell, to the bit
+    xb(1, :) = [0.3_c_double, 0.7_c_double]
+    xb(2, :) = [0.0_c_double, 1.0_c_double]
+    thb(1, :) = [0.21_c_double, -0.09_c_double]
+    thb(2, :) = [0.35_c_double, 0.0_c_double]
+    Tb = [300.0_c_double, 1250.0_c_double]
+    fb(1, :, 1) = [1.0e-3_c_double, -2.0e-3_c_double]
+    fb(1, :, 2) = [-1.0e-3_c_double, 2.0e-3_c_double]
+    fb(2, :, 1) = [5.0e-4_c_double, 0.0_c_double]
+    fb(2, :, 2) = [-5.0e-4_c_double, 0.0_c_double]
+    call mcd_dufour_heat_flux_batch(2, 2, 2, xb, [0.04_c_double, 0.004_c_double], thb, Tb, &
+         MCD_BASIS_MASS, fb, qb, stat, msg)
+    call check_stat(stat, msg, 'batched Dufour heat flux')
+    do k = 1, 2
+      call mcd_dufour_heat_flux(2, 2, xb(k, :), [0.04_c_double, 0.004_c_double], thb(k, :), &
+           Tb(k), MCD_BASIS_MASS, fb(k, :, :), q1, stat, msg)
+      call check(stat == MCD_OK .and. maxval(abs(qb(k, :) - q1)) <= 0, &
+           'batched Dufour = single-state per cell')
+    end do
     call mcd_free(mix)
     call mcd_free(db)
   end subroutine check_thermal_kt

@@ -856,6 +856,62 @@ class Fluxes(unittest.TestCase):
         self.assertIn("far less accurate", out)
         self.assertIn("typical error 30 %", out)
 
+    def test_binary_thermal_factor(self):
+        # `binary --thermal-factor X_A`: alpha_T of the pair in the first
+        # Chapman-Enskog approximation (mcd_db_thermal_factor). Checks:
+        # argon, the heavier, goes to the cold side (alpha_T > 0: "the
+        # heavier and larger molecules diffusing towards the cooler side",
+        # T. L. Ibbs, "Some Experiments on Thermal Diffusion", 1921,
+        # p. 385, stored copy at archive.org); exchanging the species
+        # changes the sign only; k_T = x_A x_B alpha_T equals the mixture
+        # route of `fluxes --thermal-ratios estimate` for the same pair
+        # (exact for two species; the same arithmetic up to rounding,
+        # 1e-15 absolute on values of order 0.1); the typical error and the
+        # caution are printed in text and JSON.
+        base = ("-T", "300", "-P", "1atm", "--method", "chapman-enskog")
+        for xa in (0.5, 0.2):
+            d = run_json("binary", "argon", "helium", *base,
+                         "--thermal-factor", repr(xa))
+            t = d["thermal_diffusion"]
+            self.assertEqual(t["x_A"], xa)
+            self.assertGreater(t["alpha_T"], 0.0)
+            self.assertAlmostEqual(t["k_T"], xa * (1 - xa) * t["alpha_T"],
+                                   delta=1e-16)
+            self.assertGreaterEqual(t["typical_error"], 0.2)
+            self.assertIn("far less accurate", t["caution"])
+            swapped = run_json("binary", "helium", "argon", *base,
+                               "--thermal-factor", repr(1 - xa))
+            self.assertAlmostEqual(swapped["thermal_diffusion"]["alpha_T"],
+                                   -t["alpha_T"], delta=1e-15)
+            f = run_json("fluxes", "-s", "argon,helium", "-x",
+                         f"{xa!r},{1 - xa!r}", "-g", "-20,20", "-T", "300",
+                         "-P", "1atm", "--thermal-ratios", "estimate",
+                         "--temperature-gradient", "1000")
+            self.assertAlmostEqual(f["thermal_ratios"][0], t["k_T"],
+                                   delta=1e-15)
+        code, out, _ = run("binary", "argon", "helium", *base,
+                           "--thermal-factor", "0.5")
+        self.assertEqual(code, 0)
+        for text in ("alpha_T", "typical error 20 %", "far less accurate",
+                     "argon moves to the cold side"):
+            self.assertIn(text, out)
+        for bad in (("--thermal-factor", "1.5"), ("--thermal-factor", "-0.1"),
+                    ("--thermal-factor", "half"),
+                    ("--thermal-factor", "0.5", "--csv")):
+            code, _, err = run("binary", "argon", "helium", *base, *bad)
+            self.assertEqual(code, 2, bad)
+            self.assertIn("--thermal-factor", err)
+        code, _, err = run("binary", "ethanol", "water", "-T", "25C",
+                           "--viscosity", "0.89cP", "--thermal-factor", "0.5")
+        self.assertEqual(code, 2)
+        self.assertIn("gases only", err)
+        # a species without Lennard-Jones parameters: a failed estimate
+        code, out, err = run("binary", "hydroperoxyl", "nitrogen", "-T",
+                             "300", "-P", "1atm", "--thermal-factor", "0.5")
+        self.assertEqual(code, 1)
+        self.assertEqual(out, "")
+        self.assertIn("thermal diffusion factor", err)
+
     def test_pair_in_cm2_per_s_and_scaled(self):
         a = run_json("fluxes", *STATE3, "-g", "1,0,-1", "--pair",
                      "H2:N2=0.8cm2/s")

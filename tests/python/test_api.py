@@ -1037,6 +1037,23 @@ class Porous(unittest.TestCase):
                                     [[1.0], [-1.0]])
         self.assertAlmostEqual(flat(q)[0], 0.4 * 8.31446261815324 * 300,
                                delta=1e-9)
+        # batched (cells last) = the single-state call per cell, exactly
+        xb = [[0.3, 0.0], [0.7, 1.0]]
+        thb = [[0.21, 0.35], [-0.09, 0.0]]
+        fb = [[[1e-3, 5e-4], [-2e-3, 0.0]], [[-1e-3, -5e-4], [2e-3, 0.0]]]
+        Mb = [0.04, 0.004]
+        qb = rows(mcdiff.dufour_heat_flux_batch(xb, thb, [300.0, 1250.0], fb,
+                                                M=Mb, flux_basis="mass"))
+        for k, T in enumerate((300.0, 1250.0)):
+            q1 = flat(mcdiff.dufour_heat_flux(
+                [xb[0][k], xb[1][k]], [thb[0][k], thb[1][k]], T,
+                [[fb[i][d][k] for d in range(2)] for i in range(2)], M=Mb,
+                flux_basis="mass"))
+            self.assertEqual([qb[0][k], qb[1][k]], q1)
+        self.assertNotEqual(qb[0][1], 0.0)
+        with self.assertRaises(mcdiff.DomainError):
+            mcdiff.dufour_heat_flux_batch(xb, thb, [300.0, -1.0], fb, M=Mb,
+                                          flux_basis="mass")
         with self.assertRaises(mcdiff.DomainError):
             mcdiff.lj_collision_integrals(0.1)
 

@@ -215,6 +215,9 @@ SIGNATURES = {
                                    _PD]),
     # (n_species, n_dim, x, M, theta, T, flux_basis, flux, out_q)
     "mcd_dufour_heat_flux": (_ST, [_SZ, _SZ, _PD, _PD, _PD, _D, _E, _PD, _PD]),
+    # (n_species, n_cells, n_dim, x, M, theta, T, flux_basis, flux, out_q)
+    "mcd_dufour_heat_flux_batch": (_ST, [_SZ, _SZ, _SZ, _PD, _PD, _PD, _PD, _E,
+                                         _PD, _PD]),
     # (ws, state, DT, out_kT)
     "mcd_thermal_ratios": (_ST, [_H, _H, _PD, _PD]),
     # (ws, state, basis, dependent, out_D, out_dependent)
