@@ -355,12 +355,12 @@ const char *cli_gas_method_name(mcd_gas_method g);
  * first after the option, the second indented like the others). */
 #define CLI_METHOD_HELP                                                        \
     "  -m, --method NAME         estimate of the binary diffusivities:\n"      \
-    "                            fsg (default), chapman-enskog, wilke-lee,\n"  \
-    "                            brokaw, or recommended: each pair the one\n"  \
+    "                            recommended (default): each pair the one\n"   \
     "                            'mcdiff binary' recommends (brokaw for a\n"   \
     "                            polar pair with its data, else the first\n"   \
     "                            of fsg, chapman-enskog, wilke-lee that\n"     \
-    "                            applies)\n"
+    "                            applies); or one method for every pair:\n"   \
+    "                            fsg, chapman-enskog, wilke-lee, brokaw\n"
 void cli_state_defaults(cli_state *s);
 /* Handle one shared option (id >= CLI_O_SPECIES, not CLI_O_HELP).
  * Returns CLI_OK, CLI_USAGE or CLI_FAIL (message printed). */

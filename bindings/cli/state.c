@@ -144,7 +144,7 @@ void cli_state_defaults(cli_state *s)
     s->T = NAN;
     s->P = NAN;
     s->model = MCD_MODEL_MAXWELL_STEFAN;
-    s->method = MCD_GAS_FSG;
+    s->method = MCD_GAS_RECOMMENDED;
     s->dependent = MCD_DEPENDENT_AUTO;
 }
 

@@ -606,8 +606,17 @@ class BinaryExplain(unittest.TestCase):
         self.assertTrue(d["recommended"])
 
     def test_mixture_warnings_name_their_pair(self):
-        args = ("fluxes", "-s", "H2O,N2,CO2", "-x", "0.2,0.5,0.3", "-g",
+        base = ("fluxes", "-s", "H2O,N2,CO2", "-x", "0.2,0.5,0.3", "-g",
                 "1,-1,0", "-T", "300", "-P", "1atm")
+        # the default is the per-pair recommended method: Brokaw for the
+        # polar pair water/N2; water/CO2 falls back to Fuller-Schettler-
+        # Giddings (CO2 sublimes: no normal boiling point for Brokaw's
+        # parameters), as does the non-polar N2/CO2
+        d = run_json(*base)
+        self.assertEqual(d["binary_source"][0][1], "brokaw")
+        self.assertEqual(d["binary_source"][0][2], "fsg")
+        self.assertEqual(d["binary_source"][1][2], "fsg")
+        args = base + ("--method", "fsg")
         code, out, _ = run(*args)
         self.assertEqual(code, 0)
         self.assertIn("warning (water / nitrogen):", out)
