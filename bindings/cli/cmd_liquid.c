@@ -486,7 +486,7 @@ int cli_cmd_liquid(int argc, char **argv)
         return cli_fail(cmd, "setting up", MCD_ENOMEM, NULL);
     memset(&t, 0, sizeof t);
     liq_def_init(&r->def);
-    r->T = r->conc = r->density = r->P = r->L = NAN;
+    r->T = r->conc = r->density = r->P = r->L = (double)NAN;
     r->basis = -1;
     cli_args_init(&a, cmd, argc, argv, opts);
     while (rc == CLI_OK && (id = cli_args_next(&a)) != CLI_ARG_END)

@@ -61,6 +61,8 @@ void liq_def_init(liq_def *d);
 /* Read the parameter file into d (d->file is set). CLI_OK or CLI_USAGE
  * after a message "FILE:LINE: ..." naming the field. */
 int liq_file_load(liq_def *d, const char *cmd, const char *path);
+/* The same from an open stream; path names it in messages (kept). */
+int liq_file_read(liq_def *d, const char *cmd, const char *path, FILE *f);
 /* Text naming where a value came from: "FILE:LINE" or the option. */
 const char *liq_origin_text(const liq_def *d, liq_origin at, const char *option,
                             char *buf, size_t len);

@@ -31,9 +31,9 @@ void liq_def_init(liq_def *d)
     memset(d, 0, sizeof *d);
     d->model = -1;
     for (i = 0; i < LIQ_MAX; i++) {
-        d->M[i] = NAN;
+        d->M[i] = (double)NAN;
         for (j = 0; j < LIQ_MAX; j++)
-            d->pair[i][j].alpha = NAN;
+            d->pair[i][j].alpha = (double)NAN;
     }
 }
 

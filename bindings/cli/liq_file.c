@@ -282,7 +282,7 @@ static int rec_pair(file_ctx *c, char **tok, int nt)
                                          "a21", "b21", "e21"};
     liq_def *d = c->d;
     size_t i = 0, j = 0, k, f;
-    double co[6] = {0, 0, 0, 0, 0, 0}, alpha = NAN, lo = 0, hi = 0;
+    double co[6] = {0, 0, 0, 0, 0, 0}, alpha = (double)NAN, lo = 0, hi = 0;
     unsigned seen = 0;
     liq_pair *p;
     if (two_species(c, tok, nt, &i, &j) != CLI_OK)
@@ -338,7 +338,7 @@ static int rec_dinf(file_ctx *c, char **tok, int nt)
 {
     liq_def *d = c->d;
     size_t i = 0, j = 0, k;
-    double D[2] = {NAN, NAN};
+    double D[2] = {(double)NAN, (double)NAN};
     char why[200];
     if (two_species(c, tok, nt, &i, &j) != CLI_OK)
         return CLI_USAGE;
@@ -514,14 +514,11 @@ static int one_line(file_ctx *c, char *text)
                 tok[0]);
 }
 
-int liq_file_load(liq_def *d, const char *cmd, const char *path)
+int liq_file_read(liq_def *d, const char *cmd, const char *path, FILE *f)
 {
     file_ctx c = {.d = d, .cmd = cmd, .path = path};
     char buf[2048];
-    FILE *f = fopen(path, "r");
     int rc = CLI_OK;
-    if (!f)
-        return cli_usage_error(cmd, "--params", "cannot open '%s'", path);
     d->file = path;
     while (rc == CLI_OK && fgets(buf, sizeof buf, f)) {
         c.line++;
@@ -531,11 +528,18 @@ int liq_file_load(liq_def *d, const char *cmd, const char *path)
         } else
             rc = one_line(&c, buf);
     }
-    fclose(f);
-    if (rc == CLI_OK && d->n == 0) {
-        c.rec = NULL;
-        c.line = c.line ? c.line : 1;
+    if (rc == CLI_OK && d->n == 0)
         rc = cli_usage_error(cmd, path, "no 'species' record");
-    }
+    return rc;
+}
+
+int liq_file_load(liq_def *d, const char *cmd, const char *path)
+{
+    FILE *f = fopen(path, "r");
+    int rc;
+    if (!f)
+        return cli_usage_error(cmd, "--params", "cannot open '%s'", path);
+    rc = liq_file_read(d, cmd, path, f);
+    fclose(f);
     return rc;
 }

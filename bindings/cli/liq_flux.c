@@ -230,6 +230,9 @@ static int inputs(liq_run *r, const char *cmd, liq_res *o)
     size_t n = r->def.n, nd = r->n_dim, k, i;
     mcd_status st;
     int rc;
+    if (n < 2)
+        return cli_usage_error(cmd, "-g/--gradient",
+                               "fluxes need two or more species");
     for (k = 0; k < nd; k++)
         if (r->nrow[k] != n)
             return cli_usage_error(cmd, "-g/--gradient",

@@ -1968,6 +1968,10 @@ class LiquidFluxes(unittest.TestCase):
                 self.assertEqual(code, 2, err)
                 self.assertEqual(out, "")
                 self.assertTrue(err.startswith(f"mcdiff liquid: {opt}"), err)
+        code, _, err = run("liquid", "-x", "1", "-T", "300", "--model",
+                           "ideal", "-g", "0", "--concentration", "1e4")
+        self.assertEqual(code, 2, err)
+        self.assertIn("-g/--gradient: fluxes need two or more species", err)
 
 
 class LiquidParamFile(unittest.TestCase):
