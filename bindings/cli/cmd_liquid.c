@@ -38,6 +38,9 @@ static void help(FILE *f)
         "                            both is an error naming the file line\n"
         "  -s, --species LIST        species names (without a file)\n"
         "  -x, --mole-fractions LIST liquid mole fractions [-], sum 1\n"
+        "  -w, --mass-fractions LIST liquid mass fractions [-], sum 1\n"
+        "                            (instead of -x; needs molar masses;\n"
+        "                            -g is then in mass fractions too)\n"
         "  -T, --temperature TEMP    K or C suffix, bare = K\n"
         "  --model NAME              ideal, nrtl (default without a file),\n"
         "                            wilson, uniquac\n"
@@ -67,8 +70,9 @@ static void help(FILE *f)
         "  --partial-volumes LIST    partial molar volumes [m^3/mol]:\n"
         "                            c = 1 / sum x_i V_i (one of the three)\n"
         "  --basis NAME              mole (J_i [mol/(m^2 s)], molar-average\n"
-        "                            velocity; default), mass (j_i\n"
-        "                            [kg/(m^2 s)], mass-average velocity) or\n"
+        "                            velocity; default with -x), mass (j_i\n"
+        "                            [kg/(m^2 s)], mass-average velocity;\n"
+        "                            default with -w) or\n"
         "                            volume (J^V_i [mol/(m^2 s)],\n"
         "                            volume-average velocity; needs\n"
         "                            --partial-volumes)\n"
@@ -256,7 +260,8 @@ enum {
     O_LEN,
     O_GPAIR,
     O_METHOD,
-    O_XL
+    O_XL,
+    O_W
 };
 
 static const cli_opt opts[] = {{"x", 'x', 1, O_X},
@@ -287,6 +292,7 @@ static const cli_opt opts[] = {{"x", 'x', 1, O_X},
                                {"gas-pair", 0, CLI_REPEAT, O_GPAIR},
                                {"method", 'm', 1, O_METHOD},
                                {"xL", 0, 1, O_XL},
+                               {"mass-fractions", 'w', 1, O_W},
                                {NULL, 0, 0, 0}};
 
 /* Options kept as text until the file is read (they refer to species). */
@@ -309,8 +315,15 @@ static int option(liq_run *r, liq_texts *t, const char *cmd, cli_args *a,
     case O_JSON: r->json = 1; return CLI_OK;
     case O_CSV: r->csv = 1; return CLI_OK;
     case O_X:
-        if (cli_parse_list(a->value, r->x, LIQ_MAX, &r->nx, why, sizeof why))
+    case O_W:
+        if (r->nx || r->nw)
+            return cli_usage_error(cmd, a->spelled,
+                                   "give one composition: either -x or -w, "
+                                   "once");
+        if (cli_parse_list(a->value, id == O_X ? r->x : r->win, LIQ_MAX,
+                           id == O_X ? &r->nx : &r->nw, why, sizeof why))
             return cli_usage_error(cmd, a->spelled, "%s", why);
+        r->mass_comp = id == O_W;
         return CLI_OK;
     case O_XL:
         if (cli_parse_list(a->value, r->xtop, LIQ_MAX + 1, &r->nxtop, why,
@@ -388,6 +401,24 @@ static int option(liq_run *r, liq_texts *t, const char *cmd, cli_args *a,
     return CLI_OK;
 }
 
+/* -w: the mole fractions of the liquid from its mass fractions. */
+static int mole_fractions(liq_run *r, const char *cmd)
+{
+    double M[LIQ_MAX], w[LIQ_MAX];
+    size_t n = r->def.n;
+    mcd_status st;
+    int rc = liq_molar_masses(r, cmd, "-w/--mass-fractions", M);
+    if (rc != CLI_OK)
+        return rc;
+    if ((st = mcd_comp_normalize(n, r->win, w)) != MCD_OK)
+        return cli_fractions_error(cmd, "-w/--mass-fractions", st, r->win, n);
+    if ((st = mcd_comp_w_to_x(n, M, w, r->x)) != MCD_OK)
+        return cli_usage_error(cmd, "-w/--mass-fractions", "%s",
+                               mcd_last_error());
+    r->nx = n;
+    return CLI_OK;
+}
+
 /* The definition: file, then the options in a fixed order. */
 static int define(liq_run *r, liq_texts *t, const char *cmd)
 {
@@ -401,15 +432,19 @@ static int define(liq_run *r, liq_texts *t, const char *cmd)
     if (t->species &&
         (rc = liq_def_species_option(d, cmd, "-s/--species", t->species)))
         return rc;
-    if (r->nx == 0)
-        return cli_usage_error(cmd, "-x/--mole-fractions", "is required");
+    if (r->nx == 0 && r->nw == 0)
+        return cli_usage_error(cmd, "-x/--mole-fractions",
+                               "a composition is required (or "
+                               "-w/--mass-fractions)");
     if (d->n == 0) {
-        d->n = r->nx;
+        d->n = r->mass_comp ? r->nw : r->nx;
         d->n_at = LIQ_FROM_CLI;
     }
-    if (r->nx != d->n)
-        return cli_usage_error(cmd, "-x/--mole-fractions",
-                               "has %zu values for %zu species", r->nx, d->n);
+    if ((r->mass_comp ? r->nw : r->nx) != d->n)
+        return cli_usage_error(
+            cmd, r->mass_comp ? "-w/--mass-fractions" : "-x/--mole-fractions",
+            "has %zu values for %zu species", r->mass_comp ? r->nw : r->nx,
+            d->n);
     if (isnan(r->T))
         return cli_usage_error(cmd, "-T/--temperature", "is required");
     if (t->model &&
@@ -434,7 +469,7 @@ static int define(liq_run *r, liq_texts *t, const char *cmd)
     for (k = 0; k < t->nant; k++)
         if ((rc = liq_def_antoine_option(d, cmd, t->ant[k])) != CLI_OK)
             return rc;
-    return CLI_OK;
+    return r->mass_comp ? mole_fractions(r, cmd) : CLI_OK;
 }
 
 /* Options of one path given on another: a usage error naming them. */

@@ -106,6 +106,9 @@ typedef struct liq_run {
     double T;          /* K */
     double x[LIQ_MAX]; /* liquid mole fractions */
     size_t nx;
+    double win[LIQ_MAX]; /* -w: mass fractions as given */
+    size_t nw;
+    int mass_comp; /* 1: -w given (x follows from it and the masses) */
     double grad[LIQ_MAX * MCD_MAX_DIM]; /* n x n_dim, mole fractions [1/m] */
     double rows[MCD_MAX_DIM][LIQ_MAX];
     size_t nrow[MCD_MAX_DIM];

@@ -190,9 +190,13 @@ static void print_json(const liq_run *r, const cli_state *s, const liq_res *o)
     cli_json_number(&j, "T", r->T);
     cli_json_number(&j, "c", o->c);
     cli_json_string(&j, "c_from", o->c_from);
+    cli_json_string(&j, "composition_basis",
+                    s->comp_basis == MCD_BASIS_MOLE ? "mole" : "mass");
     cli_json_numbers(&j, "mole_fractions", o->x, n);
-    if (o->have_M)
+    if (o->have_M) {
+        cli_json_numbers(&j, "mass_fractions", o->w, n);
         cli_json_numbers(&j, "M", o->M, n);
+    }
     cli_json_numbers(&j, "ln_gamma", o->lng, n);
     cli_json_numbers(&j, "gamma", g, n);
     liq_json_matrix(&j, "Gamma", n, o->G);
@@ -247,12 +251,17 @@ static int inputs(liq_run *r, const char *cmd, liq_res *o)
                                "volume needs --partial-volumes");
     if ((st = mcd_comp_normalize(n, r->x, o->x)) != MCD_OK)
         return cli_fractions_error(cmd, "-x/--mole-fractions", st, r->x, n);
-    o->have_M = r->basis == 1 || !isnan(r->density);
-    if (o->have_M && (rc = liq_molar_masses(
-                          r, cmd, r->basis == 1 ? "--basis mass" : "--density",
-                          o->M)) != CLI_OK)
+    if (r->mass_comp && (st = mcd_comp_normalize(n, r->win, o->w)) != MCD_OK)
+        return cli_fractions_error(cmd, "-w/--mass-fractions", st, r->win, n);
+    o->have_M = r->basis == 1 || !isnan(r->density) || r->mass_comp;
+    if (o->have_M && (rc = liq_molar_masses(r, cmd,
+                                            r->mass_comp    ? "-w"
+                                            : r->basis == 1 ? "--basis mass"
+                                                            : "--density",
+                                            o->M)) != CLI_OK)
         return rc;
-    if (o->have_M && mcd_comp_x_to_w(n, o->M, o->x, o->w) != MCD_OK)
+    if (o->have_M && !r->mass_comp &&
+        mcd_comp_x_to_w(n, o->M, o->x, o->w) != MCD_OK)
         return cli_usage_error(cmd, "-x/--mole-fractions",
                                "no mass fractions from these molar masses");
     for (i = 0; i < n; i++)
@@ -287,11 +296,11 @@ static int compute(liq_run *r, const char *cmd, mcd_workspace *ws,
     st = mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
                           &(mcd_state){.n_species = n,
                                        .n_dim = nd,
-                                       .comp_basis = MCD_BASIS_MOLE,
+                                       .comp_basis = s->comp_basis,
                                        .c = o->c,
                                        .M = o->have_M ? o->M : NULL,
                                        .Dij = o->Dij,
-                                       .comp = o->x,
+                                       .comp = s->comp,
                                        .grad = o->grad,
                                        .Gamma = o->G},
                           b, o->flux);
@@ -313,8 +322,8 @@ static int compute(liq_run *r, const char *cmd, mcd_workspace *ws,
                          &(mcd_state){.n_species = n,
                                       .M = o->have_M ? o->M : NULL,
                                       .Dij = o->Dij,
-                                      .comp_basis = MCD_BASIS_MOLE,
-                                      .comp = o->x,
+                                      .comp_basis = s->comp_basis,
+                                      .comp = s->comp,
                                       .Gamma = o->G},
                          b, o->dep, o->fick, &o->dep);
     if (st != MCD_OK)
@@ -345,10 +354,12 @@ int liq_run_fluxes(liq_run *r, const char *cmd)
         s->n_dim = r->n_dim;
         for (i = 0; i < s->n; i++)
             s->names[i] = r->name_ptr[i];
-        s->comp_basis = MCD_BASIS_MOLE;
-        s->out_basis = r->basis == 1 ? MCD_BASIS_MASS : MCD_BASIS_MOLE;
+        s->comp_basis = r->mass_comp ? MCD_BASIS_MASS : MCD_BASIS_MOLE;
+        s->out_basis = r->basis == 1 || (r->basis < 0 && r->mass_comp)
+                           ? MCD_BASIS_MASS
+                           : MCD_BASIS_MOLE;
         s->volume_frame = r->basis == 2;
-        s->comp = o->x;
+        s->comp = r->mass_comp ? o->w : o->x;
         s->x = o->x;
         s->w = o->w;
         s->M = o->have_M ? o->M : NULL;

@@ -1915,6 +1915,37 @@ class LiquidFluxes(unittest.TestCase):
                                    -cv * (Dm[r][0] * g[0] + Dm[r][1] * g[1]),
                                    delta=1e-10 * bigJ)
 
+    def test_mass_fraction_input_is_the_same_state(self):
+        # -w W -g dW describes the state -x X -g dX with x_i = (w_i/M_i)/S,
+        # S = sum_k w_k/M_k, and dx_i = (dw_i/M_i - x_i sum_k dw_k/M_k)/S
+        # (differentiating the definition; common practice): the molar
+        # fluxes agree to round-off (1e-12 of the largest)
+        M = [0.05808, 0.032042, 0.018015]
+        w = [0.3, 0.25, 0.45]
+        dw = [-30.0, 50.0, -20.0]
+        S = sum(w[k] / M[k] for k in range(3))
+        x = [w[i] / M[i] / S for i in range(3)]
+        T = sum(dw[k] / M[k] for k in range(3))
+        dx = [(dw[i] / M[i] - x[i] * T) / S for i in range(3)]
+        common = ["liquid", "--params", self.f3, "-T", "310",
+                  "--concentration", "3e4", "--basis", "mole"]
+        a = run_json(*common, "-w", ",".join(map(repr, w)), "-g",
+                     ",".join(map(repr, dw)))
+        b = run_json(*common, "-x", ",".join(map(repr, x)), "-g",
+                     ",".join(map(repr, dx)))
+        self.assertEqual(a["composition_basis"], "mass")
+        big = max(abs(r[0]) for r in b["fluxes"])
+        for i in range(3):
+            self.assertAlmostEqual(a["mole_fractions"][i], x[i], delta=1e-15)
+            self.assertAlmostEqual(a["fluxes"][i][0], b["fluxes"][i][0],
+                                   delta=1e-12 * big)
+        # default basis follows the composition: mass fluxes with -w
+        m = run_json("liquid", "--params", self.f3, "-T", "310",
+                     "--concentration", "3e4", "-w", ",".join(map(repr, w)),
+                     "-g", ",".join(map(repr, dw)))
+        self.assertEqual(m["basis"], "mass")
+        self.assertEqual(m["flux_unit"], "kg/(m^2 s)")
+
     def test_file_and_options_give_the_same_liquid(self):
         opts = ["-s", "acetone,methanol,water", "--model", "nrtl",
                 "--pair", "acetone:methanol=0.3,10,0,0.2,0,0,0.3",
