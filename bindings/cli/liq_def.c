@@ -133,14 +133,13 @@ int liq_def_model_option(liq_def *d, const char *cmd, const char *opt,
 static const char *parse_ref(const liq_def *d, const char *s, int want_j,
                              size_t *i, size_t *j)
 {
-    char buf[2 * LIQ_NAME + 4], *eq, *colon;
+    char buf[2 * LIQ_NAME + 4], *colon;
     long a, b = 0;
     const char *e = strchr(s, '=');
     if (!e || (size_t)(e - s) >= sizeof buf)
         return NULL;
     memcpy(buf, s, (size_t)(e - s));
     buf[e - s] = '\0';
-    eq = buf + (e - s);
     colon = strchr(buf, ':');
     if ((colon != NULL) != (want_j != 0))
         return NULL;
@@ -149,7 +148,6 @@ static const char *parse_ref(const liq_def *d, const char *s, int want_j,
         if ((b = liq_def_species(d, colon + 1)) < 0)
             return NULL;
     }
-    (void)eq;
     if ((a = liq_def_species(d, buf)) < 0 || (want_j && a == b))
         return NULL;
     *i = (size_t)a;

@@ -263,8 +263,8 @@ static int rec_species(file_ctx *c, char **tok, int nt)
     return CLI_OK;
 }
 
-/* The pair (i, j) of a record on names 1, 2 in line order; swap tells
- * whether 1 is the larger index. */
+/* The species indices i, j of NAME1 and NAME2 of a pair record (line
+ * order: i may be the larger). */
 static int two_species(file_ctx *c, char **tok, int nt, size_t *i, size_t *j)
 {
     if (nt < 3 || strchr(tok[1], '=') || strchr(tok[2], '='))
