@@ -8,7 +8,9 @@
  *   R_k = x_k - x_k^old - a (J_{k-1/2} - J_{k+1/2}) - dt nu r_k / c,
  * with the face flux J_f = J(x_f, g_f) of mcd_flux_compute at
  * x_f = (x_L + x_R)/2, g_f = (x_R - x_L)/dz (exact Maxwell-Stefan). Its
- * derivatives: dJ/dx from mcd_flux_jacobian_comp, and dJ/dg, linear in g,
+ * derivatives: dJ/dx from mcd_flux_jacobian (the derivative of what
+ * mcd_flux_compute returns, its renormalisation x / sum x included), and
+ * dJ/dg, linear in g,
  * column j = the flux for the unit gradient e_j (one mcd_flux_compute
  * each), so
  *   dJ_f/dx_L = A_f / 2 - G_f / dz,   dJ_f/dx_R = A_f / 2 + G_f / dz.
@@ -153,7 +155,8 @@ static int face(mcd_workspace *ws, const fv1d_problem *p, const double *xL,
     st.grad = g;
     if (failed("face flux",
                mcd_flux_compute(ws, p->model, &st, MCD_BASIS_MOLE, J)) ||
-        failed("flux Jacobian", mcd_flux_jacobian_comp(ws, &st, A)))
+        failed("flux Jacobian",
+               mcd_flux_jacobian(ws, p->model, &st, MCD_BASIS_MOLE, A)))
         return 1;
     st.grad = e;
     for (j = 0; j < NS; j++) { /* dJ/dg_j: the flux of the unit gradient */

@@ -370,14 +370,29 @@ typedef enum mcd_method {
 
 /** Gas-phase correlations, the methods a database pair or a mixture pair
  *  can be estimated by (numerically equal to the mcd_method values of the
- *  same name, so a gas method can be passed to mcd_method_name). */
+ *  same name, so a gas method can be passed to mcd_method_name), and the
+ *  per-pair choice MCD_GAS_RECOMMENDED of a mixture. */
 typedef enum mcd_gas_method {
     MCD_GAS_FSG = 1,            /**< Fuller-Schettler-Giddings */
     MCD_GAS_CHAPMAN_ENSKOG = 2, /**< Chapman-Enskog, Lennard-Jones */
     MCD_GAS_WILKE_LEE = 3,      /**< Wilke-Lee */
-    MCD_GAS_BROKAW = 8          /**< Brokaw's polar correction; database
-                                     pairs only (a mixture refuses it with
-                                     EINVAL). Since 0.4. */
+    MCD_GAS_BROKAW = 8,         /**< Brokaw's polar correction, for database
+                                     pairs (Since 0.4) and mixture pairs
+                                     (Since 0.4: mcd_mixture_new,
+                                     mcd_mixture_set_method). */
+    MCD_GAS_RECOMMENDED = 100   /**< Mixtures only: each pair gets the
+                                     method `mcdiff binary` recommends for
+                                     it: MCD_GAS_BROKAW when either species
+                                     is polar (dipole above 1 debye, the
+                                     rule of MCD_WARN_POLAR) and both have
+                                     Brokaw's data (dipole, Vb, Tb); else
+                                     the first of FSG, Chapman-Enskog,
+                                     Wilke-Lee whose parameters the pair
+                                     has (FSG when none has). Not an
+                                     mcd_method: mcd_mixture_pair_method
+                                     tells the method picked. A database
+                                     pair (mcd_db_binary_gas) refuses it
+                                     with EINVAL. Since 0.4. */
 } mcd_gas_method;
 
 /** Short name of a method ("fsg", "chapman-enskog", "wilke-lee",
@@ -591,7 +606,11 @@ typedef struct mcd_mixture mcd_mixture;
 
 /** New mixture of n species picked by name from db (parameters are copied:
  *  the mixture does not refer to db afterwards). Every pair uses the
- *  default method until changed. A species named twice is EINVAL.
+ *  default method until changed (MCD_GAS_RECOMMENDED: each pair its
+ *  recommended one; MCD_GAS_BROKAW and MCD_GAS_RECOMMENDED Since 0.4).
+ *  A species named twice is EINVAL. A pair whose method lacks a parameter
+ *  is no failure here: mcd_mixture_binaries and the flux calls return
+ *  ENODATA naming the pair, the species and the parameter.
  *  Since 0.1.
  *  Fails: EINVAL, ENOTFOUND (the detail names the species), ENOMEM
  *  | Allocates: yes */
@@ -611,9 +630,19 @@ MCD_API mcd_status mcd_mixture_molar_masses(const mcd_mixture *mix,
                                             double *out_M);
 /** Estimate pair (i, j) (i != j) by gas method m from now on (a value
  *  given with mcd_mixture_set_binary is dropped; give it again to use it).
- *  Since 0.1. Fails: EINVAL, EBADLEN (index) | Allocates: no */
+ *  MCD_GAS_RECOMMENDED picks the pair's recommended method (see
+ *  mcd_gas_method). Since 0.1 (MCD_GAS_BROKAW, MCD_GAS_RECOMMENDED Since
+ *  0.4). Fails: EINVAL, EBADLEN (index) | Allocates: no */
 MCD_API mcd_status mcd_mixture_set_method(mcd_mixture *mix, size_t i,
                                           size_t j, mcd_gas_method m);
+/** The method pair (i, j) (i != j) is estimated by: the gas method set
+ *  (for MCD_GAS_RECOMMENDED the one it picked: MCD_METHOD_BROKAW,
+ *  _FSG, _CHAPMAN_ENSKOG or _WILKE_LEE), or MCD_METHOD_USER for a value
+ *  given with mcd_mixture_set_binary. Since 0.4.
+ *  @param out_method  the pair's mcd_method (untouched on failure).
+ *  Fails: EINVAL (NULL, i == j), EBADLEN (index) | Allocates: no */
+MCD_API mcd_status mcd_mixture_pair_method(const mcd_mixture *mix, size_t i,
+                                           size_t j, mcd_method *out_method);
 /** Give a measured Đ_ij [m^2/s] at (T_ref, P_ref) for pair (i, j); at other
  *  states it is scaled as (T/T_ref)^1.75 (P_ref/P). Since 0.1.
  *  Fails: EINVAL, EDOM, EBADLEN | Allocates: no */
@@ -1118,6 +1147,42 @@ MCD_API mcd_status mcd_dufour_heat_flux(size_t n_species, size_t n_dim,
                                         mcd_basis flux_basis,
                                         const double *flux, double *out_q);
 
+/** The Dufour heat flux of mcd_dufour_heat_flux for K cells at once, in
+ *  the structure-of-arrays layout of the batched calls (mcd_cells,
+ *  mcd_flux_batch_dij), from fluxes already solved (e.g. the out_flux of
+ *  mcd_flux_batch or mcd_flux_batch_dij); a separate call, so that a
+ *  caller who does not want q_D pays nothing. Each cell is computed by
+ *  the code of mcd_dufour_heat_flux: the result equals K single-state
+ *  calls to the bit. As accurate as the thermal diffusion ratios behind
+ *  theta: far less than the fluxes (MCD_THERMAL_CE_TYPICAL_ERROR at best).
+ *  Since 0.4.
+ *  @param n_species  N, 1..MCD_MAX_SPECIES.
+ *  @param n_cells    K (0 is allowed and writes nothing).
+ *  @param n_dim      1..MCD_MAX_DIM.
+ *  @param x      mole fractions, N x K (x[i*K + k]), each cell validated
+ *                as mcd_comp_normalize.
+ *  @param M      molar masses [kg/mol], length N, shared by all cells
+ *                (mass fluxes only; may be NULL for molar fluxes).
+ *  @param theta  k_T,i / x_i [-], N x K (theta[i*K + k]), finite; for a
+ *                species with x_i = 0 the limit (mcd_mixture_thermal_ratios
+ *                gives it per cell).
+ *  @param T      temperatures [K], length K, each > 0.
+ *  @param flux_basis  MOLE: flux holds J_i [mol/(m^2 s)]; MASS: j_i
+ *                [kg/(m^2 s)].
+ *  @param flux   (N n_dim) x K (flux[(i*n_dim + d)*K + k]), finite.
+ *  @param out_q  n_dim x K [W/m^2] (out_q[d*K + k]); written only on
+ *                success.
+ *  Fails: EINVAL (NULL, NaN, counts), EDOM (messages "cell <k>: ...")
+ *  | Allocates: no */
+MCD_API mcd_status mcd_dufour_heat_flux_batch(size_t n_species,
+                                              size_t n_cells, size_t n_dim,
+                                              const double *x, const double *M,
+                                              const double *theta,
+                                              const double *T,
+                                              mcd_basis flux_basis,
+                                              const double *flux,
+                                              double *out_q);
+
 /** Thermal diffusion ratios k_T,i [-] from thermal diffusion coefficients
  *  D_i^T [kg/(m s)], for mcd_state.kT / mcd_cells.kT. Since 0.3.
  *
@@ -1486,9 +1551,9 @@ MCD_API mcd_status mcd_workspace_set_threads(mcd_workspace *ws,
                                              size_t n_threads);
 
 /** Declare a temperature range [T_min, T_max] over which batched calls may
- *  evaluate the Chapman-Enskog and Wilke-Lee pairs of this mixture from a
- *  fit instead of exactly: for each such pair, Omega_D(T / eps) is fitted
- *  by a Chebyshev polynomial in ln T (interpolation at Chebyshev nodes, the
+ *  evaluate the Chapman-Enskog, Wilke-Lee and Brokaw pairs of this
+ *  mixture from a fit instead of exactly: for each such pair, Omega_D(T /
+ *  eps) (Brokaw: with its polar term, Since 0.4) is fitted by a Chebyshev polynomial in ln T (interpolation at Chebyshev nodes, the
  *  degree raised up to 24 until the error is below 1e-12 or stops
  *  improving). The fit's largest relative error on Đ over the range
  *  (checked on a fine grid) is returned. Cells outside the range, and
@@ -1755,8 +1820,10 @@ MCD_API mcd_status mcd_bulbs_integrate(mcd_workspace *ws,
  *   Đ_ij = (D°_ij)^x_j (D°_ji)^x_i prod_{k != i,j} (D°_ik D°_jk)^(x_k/2).
  * Vignes reproduces mutual diffusion in nearly ideal binaries within about
  * 10-20 % and is poorer for associating (hydrogen-bonding) mixtures
- * (Taylor and Krishna 1993, ch. 4; from memory, not checked against
- * concentrated-liquid data in the tests). The D° are used as
+ * (Taylor and Krishna 1993, ch. 4; from memory). Against measured data
+ * of two nearly ideal binaries across the composition range (toluene /
+ * CCl4, CCl4 / cyclohexane; tests/test_liquid_data.c) it is within 5 %;
+ * associating mixtures are not checked yet. The D° are used as
  * given at every temperature: set them for the temperature of use (for
  * example from mcd_binary_wilke_chang, _tyn_calus, _hayduk_minhas).
  *

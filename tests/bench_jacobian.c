@@ -1,4 +1,5 @@
-/* bench_jacobian.c - the cost of flux Jacobians in the batched calls.
+/* bench_jacobian.c - the cost of flux Jacobians and of thermal diffusion
+ * in the batched calls.
  *
  * Run with `meson test -C <build> --benchmark` (or the executable
  * directly; an optional argument scales the number of cells, then
@@ -10,10 +11,16 @@
  *   (f) mcd_flux_batch_dij: fluxes only, the batched kernel;
  *   (j) mcd_flux_batch_jacobian: fluxes and composition Jacobians
  *       (N n_dim x N per cell), the single-state core per cell.
- * Each side runs REPS times in the same run, interleaved; the median,
- * min and max cells/s are printed with the ratio of the medians
- * (j) / (f). A caller who does not ask for Jacobians calls (f), which
- * the Jacobian work does not touch, so it pays nothing for them.
+ * and both again with thermal diffusion (per-cell k_T,i summing to zero,
+ * |k_T,i| <= 0.05, and grad ln T in [-100, 100] 1/m given in mcd_cells):
+ *   (fT) mcd_flux_batch_dij with kT and grad_lnT;
+ *   (jT) mcd_flux_batch_jacobian with kT and grad_lnT.
+ * Each side runs REPS times in the same run, interleaved (f, fT, j, jT
+ * in every repetition); the median, min and max cells/s are printed with
+ * the ratios of the medians (j) / (f), (fT) / (f) and (jT) / (j). A
+ * caller who does not ask for Jacobians calls (f), which the Jacobian
+ * work does not touch, so it pays nothing for them; a caller without
+ * thermal diffusion leaves kT and grad_lnT NULL.
  */
 #define _GNU_SOURCE /* clock_gettime */
 #include <stdio.h>
@@ -56,7 +63,7 @@ static int run(size_t n, double scale)
 {
     /* the Jacobians are N^2 n_dim doubles a cell: about 40 MB of them */
     size_t K = (size_t)(scale * 5e6 / (double)(n * n * ND));
-    double *x, *g, *D, *c, *F, *Jc, xs[64], Dm[64 * 64];
+    double *x, *g, *D, *c, *F, *Jc, *kT, *glT, xs[64], Dm[64 * 64];
     mcd_workspace *ws = NULL;
     size_t k, i, j;
     int mo, rc = 0;
@@ -70,7 +77,9 @@ static int run(size_t n, double scale)
     c = malloc(K * sizeof(double));
     F = malloc(n * ND * K * sizeof(double));
     Jc = malloc(n * ND * n * K * sizeof(double));
-    if (!x || !g || !D || !c || !F || !Jc) {
+    kT = malloc(n * K * sizeof(double));
+    glT = malloc(ND * K * sizeof(double));
+    if (!x || !g || !D || !c || !F || !Jc || !kT || !glT) {
         rc = 1;
         goto done;
     }
@@ -87,6 +96,17 @@ static int run(size_t n, double scale)
             for (j = 0; j < n; j++)
                 D[(i * n + j) * K + k] = Dm[i * n + j];
         c[k] = sup_range(&rng, 10.0, 60.0);
+        {
+            double m = 0.0;
+            for (i = 0; i < n; i++) {
+                kT[i * K + k] = sup_range(&rng, -0.05, 0.05);
+                m += kT[i * K + k];
+            }
+            for (i = 0; i < n; i++)
+                kT[i * K + k] -= m / (double)n;
+            for (i = 0; i < ND; i++)
+                glT[i * K + k] = sup_range(&rng, -100.0, 100.0);
+        }
     }
     printf("\nN = %zu, %zu cells, cells/s median [min, max] of %d runs\n", n, K,
            REPS);
@@ -98,24 +118,45 @@ static int run(size_t n, double scale)
                               .comp_basis = MCD_BASIS_MOLE,
                               .comp = x,
                               .grad = g};
-        double tf[REPS], tj[REPS], rf[3], rj[3];
+        mcd_cells clT = cl;
+        double tf[REPS], tj[REPS], tfT[REPS], tjT[REPS];
+        double rf[3], rj[3], rfT[3], rjT[3];
         int r;
+        clT.kT = kT;
+        clT.grad_lnT = glT;
         for (r = 0; r < REPS; r++) {
             double t0 = now_s();
             rc |= mcd_flux_batch_dij(ws, model, n, NULL, D, c, &cl,
                                      MCD_BASIS_MOLE, F) != MCD_OK;
             tf[r] = now_s() - t0;
             t0 = now_s();
+            rc |= mcd_flux_batch_dij(ws, model, n, NULL, D, c, &clT,
+                                     MCD_BASIS_MOLE, F) != MCD_OK;
+            tfT[r] = now_s() - t0;
+            t0 = now_s();
             rc |= mcd_flux_batch_jacobian(ws, model, n, NULL, D, c, &cl,
                                           MCD_BASIS_MOLE, F, Jc) != MCD_OK;
             tj[r] = now_s() - t0;
+            t0 = now_s();
+            rc |= mcd_flux_batch_jacobian(ws, model, n, NULL, D, c, &clT,
+                                          MCD_BASIS_MOLE, F, Jc) != MCD_OK;
+            tjT[r] = now_s() - t0;
         }
         rates(tf, K, rf);
         rates(tj, K, rj);
-        printf("  %-16s (f) fluxes %11.4g [%10.4g, %10.4g]  (j) with "
-               "Jacobian %11.4g [%10.4g, %10.4g]  ratio (j)/(f) %.3f\n",
-               mo ? "mixture-avg" : "exact", rf[0], rf[1], rf[2], rj[0], rj[1],
-               rj[2], rj[0] / rf[0]);
+        rates(tfT, K, rfT);
+        rates(tjT, K, rjT);
+        printf("  %-12s (f)  fluxes            %11.4g [%10.4g, %10.4g]\n"
+               "  %-12s (fT) fluxes, thermal   %11.4g [%10.4g, %10.4g]  "
+               "ratio (fT)/(f) %.3f\n",
+               mo ? "mixture-avg" : "exact", rf[0], rf[1], rf[2], "", rfT[0],
+               rfT[1], rfT[2], rfT[0] / rf[0]);
+        printf("  %-12s (j)  Jacobian          %11.4g [%10.4g, %10.4g]  "
+               "ratio (j)/(f) %.3f\n"
+               "  %-12s (jT) Jacobian, thermal %11.4g [%10.4g, %10.4g]  "
+               "ratio (jT)/(j) %.3f\n",
+               "", rj[0], rj[1], rj[2], rj[0] / rf[0], "", rjT[0], rjT[1],
+               rjT[2], rjT[0] / rj[0]);
     }
     if (rc)
         fprintf(stderr, "N = %zu: a call failed: %s\n", n, mcd_last_error());
@@ -127,6 +168,8 @@ done:
     free(c);
     free(F);
     free(Jc);
+    free(kT);
+    free(glT);
     mcd_workspace_free(ws);
     return rc;
 }

@@ -472,6 +472,11 @@ static int call_mcd_mixture_set_method(ctx *c)
     return mcd_mixture_set_method(ARG(mix, NB_MIX), c->i, c->j,
                                   (mcd_gas_method)c->method);
 }
+static int call_mcd_mixture_pair_method(ctx *c)
+{
+    return mcd_mixture_pair_method(ARG(mix, NB_MIX), c->i, c->j,
+                                   OUTP(om, NB_OM));
+}
 static int call_mcd_mixture_set_binary(ctx *c)
 {
     return mcd_mixture_set_binary(ARG(mix, NB_MIX), c->i, c->j, c->value,
@@ -922,6 +927,12 @@ static int call_mcd_dufour_heat_flux(ctx *c)
     return mcd_dufour_heat_flux(c->n, c->nd, ARG(x, NB_X), ARG(M, NB_M),
                                 ARG(vals, NB_VALS), c->T, MCD_BASIS_MASS,
                                 ARG(J, NB_J), OUT(o1, NB_O1));
+}
+static int call_mcd_dufour_heat_flux_batch(ctx *c)
+{
+    return mcd_dufour_heat_flux_batch(
+        c->n, c->K, c->nd, ARG(x, NB_X), ARG(M, NB_M), ARG(vals, NB_VALS),
+        ARG(Tc, NB_T), MCD_BASIS_MASS, ARG(J, NB_J), OUT(o1, NB_O1));
 }
 #define PORE (NUL_(NB_PORE) ? NULL : &c->pore)
 static int call_mcd_pore_permeability(ctx *c)
@@ -1469,6 +1480,8 @@ static const bcase cases[] = {
     C(mcd_db_binary_gas, "method USER", EINVAL_, NULL,
       MI(method, MCD_METHOD_USER)),
     C(mcd_db_binary_gas, "method 99", EINVAL_, NULL, MI(method, 99)),
+    C(mcd_db_binary_gas, "method RECOMMENDED (mixtures only)", EINVAL_,
+      "method", MI(method, MCD_GAS_RECOMMENDED)),
     C(mcd_db_binary_gas, "T 0", EDOM_, NULL, MD(T, 0.0)),
     C(mcd_db_binary_gas, "P NaN", EINVAL_, NULL, MD(P, NAN)),
     C(mcd_db_binary_gas, "T -inf", EINVAL_, NULL, MD(T, -INFINITY)),
@@ -1546,6 +1559,13 @@ static const bcase cases[] = {
       MI(method, MCD_METHOD_USER)),
     C(mcd_mixture_set_method, "liquid method", EINVAL_, NULL,
       MI(method, MCD_METHOD_WILKE_CHANG)),
+    B(mcd_mixture_pair_method, MCD_OK),
+    C(mcd_mixture_pair_method, "mix NULL", EINVAL_, NULL, MN(NB_MIX)),
+    C(mcd_mixture_pair_method, "out NULL", EINVAL_, NULL, MN(NB_OM)),
+    C(mcd_mixture_pair_method, "i == j", EINVAL_, "i, j", MZ(j, 0)),
+    C(mcd_mixture_pair_method, "i = n", MCD_EBADLEN, "argument i", MZ(i, 3)),
+    C(mcd_mixture_pair_method, "j SIZE_MAX", MCD_EBADLEN, "argument j",
+      MZ(j, SIZE_MAX)),
     B(mcd_mixture_set_binary, MCD_OK),
     C(mcd_mixture_set_binary, "mix NULL", EINVAL_, NULL, MN(NB_MIX)),
     C(mcd_mixture_set_binary, "i == j", EINVAL_, NULL, MZ(j, 0)),
@@ -2218,6 +2238,24 @@ static const bcase cases[] = {
     C(mcd_dufour_heat_flux, "T 0", EDOM_, "T", MD(T, 0.0)),
     C(mcd_dufour_heat_flux, "n_dim 0", EINVAL_, "n_dim", MZ(nd, 0)),
     C(mcd_dufour_heat_flux, "out NULL", EINVAL_, "out_q", MN(NB_O1)),
+    /* one cell (K = 1): the failing cell is the only one */
+    B(mcd_dufour_heat_flux_batch, MCD_OK),
+    C(mcd_dufour_heat_flux_batch, "n 0", EINVAL_, "n_species", MZ(n, 0)),
+    C(mcd_dufour_heat_flux_batch, "x NULL", EINVAL_, "x", MN(NB_X)),
+    C(mcd_dufour_heat_flux_batch, "theta NULL", EINVAL_, "theta", MN(NB_VALS)),
+    C(mcd_dufour_heat_flux_batch, "T NULL", EINVAL_, "T", MN(NB_T)),
+    C(mcd_dufour_heat_flux_batch, "flux NULL", EINVAL_, "flux", MN(NB_J)),
+    C(mcd_dufour_heat_flux_batch, "M NULL", EINVAL_, "M", MN(NB_M)),
+    C(mcd_dufour_heat_flux_batch, "out NULL", EINVAL_, "out_q", MN(NB_O1)),
+    C(mcd_dufour_heat_flux_batch, "n_dim 0", EINVAL_, "n_dim", MZ(nd, 0)),
+    C(mcd_dufour_heat_flux_batch, "T 0", EDOM_, "cell", MDA(Tc, 0, 0.0)),
+    C(mcd_dufour_heat_flux_batch, "T NaN", EINVAL_, "cell", MDA(Tc, 0, NAN)),
+    C(mcd_dufour_heat_flux_batch, "x negative", EDOM_, "cell", MDA(x, 1, -0.1),
+      MDA(x, 0, 0.9)),
+    C(mcd_dufour_heat_flux_batch, "theta NaN", EINVAL_, "theta",
+      MDA(vals, 1, NAN)),
+    C(mcd_dufour_heat_flux_batch, "flux inf", EINVAL_, "flux",
+      MDA(J, 1, INFINITY)),
     /* ---- porous media ---- */
     B(mcd_pore_permeability, MCD_OK),
     C(mcd_pore_permeability, "pore NULL", EINVAL_, "pore", MN(NB_PORE)),

@@ -5,6 +5,7 @@
 #include <check.h>
 #include <math.h>
 #include <stdint.h>
+#include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
 
@@ -424,6 +425,334 @@ START_TEST(mixture_fast_path_matches_api)
 }
 END_TEST
 
+/* Species for the Brokaw tests: polar ones (dipole above 1 debye) with
+ * Brokaw's data, a weakly polar one with its data (H2S, 0.9 debye: not
+ * polar by the MCD_WARN_POLAR rule), nonpolar ones with its data, helium
+ * (no Vb) and carbon dioxide (no Tb) without it (built-in table). */
+#define NB 11
+static const char *const namesb[NB] = {
+    "water",    "ammonia",        "methanol",
+    "acetone",  "sulfur-dioxide", "air",
+    "nitrogen", "methane",        "hydrogen-sulfide",
+    "helium",   "carbon-dioxide"};
+
+/* Does species `name` of db have everything Brokaw's method needs? */
+static int has_brokaw_data(const char *name)
+{
+    static const mcd_param need[4] = {MCD_PARAM_MOLAR_MASS, MCD_PARAM_DIPOLE,
+                                      MCD_PARAM_VB, MCD_PARAM_TB};
+    double v;
+    for (int q = 0; q < 4; q++)
+        if (mcd_db_param(db, dbi(name), need[q], &v) != MCD_OK)
+            return 0;
+    return 1;
+}
+
+static int is_polar(const char *name)
+{
+    double dip = 0.0;
+    (void)mcd_db_param(db, dbi(name), MCD_PARAM_DIPOLE, &dip);
+    return dip > 1.0 * 3.33564095198152e-30; /* 1 debye [C m] */
+}
+
+/* Mixture pair (i, j) of namesb against the database pair by method g at
+ * (T, P): D, typical error and warnings identical (the same copied
+ * parameters through the same expression, binary_db.c). */
+static void check_brokaw_pair(const mcd_mixture *m, const double *D,
+                              const double *R, const unsigned *W, size_t i,
+                              size_t j, double T, double P)
+{
+    double d = SUP_GUARD, r = SUP_GUARD;
+    unsigned w = 0;
+    mcd_method pm = MCD_METHOD_USER;
+    ck_assert_int_eq(mcd_mixture_pair_method(m, i, j, &pm), MCD_OK);
+    ck_assert_int_eq(mcd_db_binary_gas(db, dbi(namesb[i]), dbi(namesb[j]),
+                                       (mcd_gas_method)pm, T, P, &d, &r, &w),
+                     MCD_OK);
+    ck_assert_msg(D[i * NB + j] == d && D[j * NB + i] == d,
+                  "%s-%s by %s at %g K, %g Pa: %.17g vs %.17g", namesb[i],
+                  namesb[j], mcd_method_name(pm), T, P, D[i * NB + j], d);
+    ck_assert(R[i * NB + j] == r);
+    ck_assert_uint_eq(W[i * NB + j], w);
+}
+
+START_TEST(mixture_brokaw_pairs_equal_the_database_pair)
+{
+    /* Identity: every pair of a mixture whose default is Brokaw, at random
+     * states, equals mcd_db_binary_gas(..., MCD_GAS_BROKAW) to the bit
+     * (the mixture precomputes coef, eps_AB and delta_AB; the database
+     * pair computes them per call with the same operations). Species
+     * without Brokaw's data are left out here (see the ENODATA test). */
+    const char *sel[NB];
+    size_t ns = 0;
+    mcd_mixture *m = NULL;
+    for (size_t k = 0; k < NB; k++)
+        if (has_brokaw_data(namesb[k]))
+            sel[ns++] = namesb[k];
+    ck_assert_uint_eq(ns, NB - 2); /* helium and carbon dioxide lack it */
+    ck_assert_int_eq(mcd_mixture_new(db, ns, sel, MCD_GAS_BROKAW, &m), MCD_OK);
+    sup_seed(&rng, 1969);
+    for (int t = 0; t < 40; t++) {
+        double T = sup_range(&rng, 250, 1200),
+               P = sup_exp_range(&rng, 1e3, 5e6);
+        double D[NB * NB], R[NB * NB], F[NB * NB];
+        unsigned W[NB * NB];
+        ck_assert_int_eq(mcd_mixture_binaries(m, T, P, D, R, W), MCD_OK);
+        mcdi_mixture_binaries_fast(m, T, P, F);
+        for (size_t i = 0; i < ns; i++)
+            for (size_t j = 0; j < ns; j++) {
+                double d = SUP_GUARD, r = SUP_GUARD;
+                unsigned w = 0;
+                if (i == j)
+                    continue;
+                ck_assert_int_eq(mcd_db_binary_gas(db, dbi(sel[i]), dbi(sel[j]),
+                                                   MCD_GAS_BROKAW, T, P, &d, &r,
+                                                   &w),
+                                 MCD_OK);
+                ck_assert_msg(D[i * ns + j] == d, "%s-%s: %.17g vs %.17g",
+                              sel[i], sel[j], D[i * ns + j], d);
+                ck_assert(F[i * ns + j] == d); /* the fast path too */
+                ck_assert(R[i * ns + j] == r);
+                ck_assert_uint_eq(W[i * ns + j], w);
+                /* corrected, not flagged */
+                ck_assert(!(W[i * ns + j] & MCD_WARN_POLAR));
+            }
+    }
+    mcd_mixture_free(m);
+    /* Per pair on an FSG mixture: the same values for those pairs. */
+    ck_assert_int_eq(mcd_mixture_new(db, NB, namesb, MCD_GAS_FSG, &m), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_method(m, 0, 5, MCD_GAS_BROKAW), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_method(m, 3, 1, MCD_GAS_BROKAW), MCD_OK);
+    {
+        double D[NB * NB], R[NB * NB];
+        unsigned W[NB * NB];
+        mcd_method pm;
+        ck_assert_int_eq(mcd_mixture_binaries(m, 330.0, 2e5, D, R, W), MCD_OK);
+        check_brokaw_pair(m, D, R, W, 0, 5, 330.0, 2e5);
+        check_brokaw_pair(m, D, R, W, 1, 3, 330.0, 2e5);
+        check_brokaw_pair(m, D, R, W, 0, 1, 330.0, 2e5);
+        ck_assert_int_eq(mcd_mixture_pair_method(m, 5, 0, &pm), MCD_OK);
+        ck_assert_int_eq(pm, MCD_METHOD_BROKAW);
+        ck_assert_int_eq(mcd_mixture_pair_method(m, 0, 1, &pm), MCD_OK);
+        ck_assert_int_eq(pm, MCD_METHOD_FSG);
+    }
+    mcd_mixture_free(m);
+}
+END_TEST
+
+START_TEST(mixture_recommended_follows_the_database_pair_rule)
+{
+    /* MCD_GAS_RECOMMENDED gives each pair the method `mcdiff binary`
+     * recommends: Brokaw when either species is polar (dipole above 1
+     * debye) and both have its data, else the first of FSG,
+     * Chapman-Enskog, Wilke-Lee that applies (FSG for every species here:
+     * their diffusion volumes follow from the formula). The expected
+     * method is worked out here from the parameters, independently of
+     * the library's rule; the values must equal the database pair's. */
+    mcd_mixture *m = NULL;
+    size_t n_brokaw = 0;
+    ck_assert_int_eq(mcd_mixture_new(db, NB, namesb, MCD_GAS_RECOMMENDED, &m),
+                     MCD_OK);
+    for (size_t i = 0; i < NB; i++)
+        for (size_t j = 0; j < NB; j++) {
+            mcd_method pm = (mcd_method)0, want;
+            if (i == j)
+                continue;
+            want = (is_polar(namesb[i]) || is_polar(namesb[j])) &&
+                           has_brokaw_data(namesb[i]) &&
+                           has_brokaw_data(namesb[j])
+                       ? MCD_METHOD_BROKAW
+                       : MCD_METHOD_FSG;
+            ck_assert_int_eq(mcd_mixture_pair_method(m, i, j, &pm), MCD_OK);
+            ck_assert_msg(pm == want, "%s-%s: %s, expected %s", namesb[i],
+                          namesb[j], mcd_method_name(pm),
+                          mcd_method_name(want));
+            n_brokaw += pm == MCD_METHOD_BROKAW;
+        }
+    /* 5 polar species with data: 10 pairs among them, 5 x 4 with the
+     * others that have data (air, N2, CH4, H2S); twice (i, j) and (j, i) */
+    ck_assert_uint_eq(n_brokaw, 2 * (10 + 20));
+    {
+        const double Ts[3] = {280.0, 450.0, 900.0}, Ps[3] = {2e4, MCD_ATM, 3e6};
+        for (int s = 0; s < 3; s++) {
+            double D[NB * NB], R[NB * NB];
+            unsigned W[NB * NB];
+            ck_assert_int_eq(mcd_mixture_binaries(m, Ts[s], Ps[s], D, R, W),
+                             MCD_OK);
+            for (size_t i = 0; i < NB; i++)
+                for (size_t j = i + 1; j < NB; j++)
+                    check_brokaw_pair(m, D, R, W, i, j, Ts[s], Ps[s]);
+        }
+    }
+    /* Per pair: back to the recommendation after another method; a given
+     * value reads back as USER (any value: only its method is read). */
+    {
+        mcd_method pm;
+        ck_assert_int_eq(mcd_mixture_set_method(m, 0, 5, MCD_GAS_WILKE_LEE),
+                         MCD_OK);
+        ck_assert_int_eq(mcd_mixture_pair_method(m, 0, 5, &pm), MCD_OK);
+        ck_assert_int_eq(pm, MCD_METHOD_WILKE_LEE);
+        ck_assert_int_eq(mcd_mixture_set_method(m, 5, 0, MCD_GAS_RECOMMENDED),
+                         MCD_OK);
+        ck_assert_int_eq(mcd_mixture_pair_method(m, 0, 5, &pm), MCD_OK);
+        ck_assert_int_eq(pm, MCD_METHOD_BROKAW);
+        ck_assert_int_eq(mcd_mixture_set_binary(m, 0, 6, 2.5e-5, 300.0, 1e5),
+                         MCD_OK);
+        ck_assert_int_eq(mcd_mixture_pair_method(m, 6, 0, &pm), MCD_OK);
+        ck_assert_int_eq(pm, MCD_METHOD_USER);
+        /* bad arguments: a clear error, the output untouched */
+        pm = (mcd_method)77;
+        ck_assert_int_eq(mcd_mixture_pair_method(m, 2, 2, &pm), MCD_EINVAL);
+        ck_assert_int_eq(mcd_mixture_pair_method(m, 2, NB, &pm), MCD_EBADLEN);
+        ck_assert_ptr_nonnull(strstr(mcd_last_error(), "argument j"));
+        ck_assert_int_eq((int)pm, 77);
+        ck_assert_int_eq(mcd_mixture_set_method(m, 0, 1, (mcd_gas_method)99),
+                         MCD_EINVAL);
+        ck_assert_ptr_nonnull(strstr(mcd_last_error(), "argument m"));
+    }
+    mcd_mixture_free(m);
+}
+END_TEST
+
+START_TEST(mixture_brokaw_missing_data_names_species_and_parameter)
+{
+    mcd_db *d = NULL;
+    mcd_mixture *m = NULL;
+    size_t i;
+    const char *nm[2] = {"polar-x", "gas-b"};
+    double D[4] = {SUP_GUARD, SUP_GUARD, SUP_GUARD, SUP_GUARD};
+    mcd_method pm;
+    char mixmsg[512];
+    ck_assert_int_eq(mcd_db_new(&d), MCD_OK);
+    /* invented species: only which parameters exist matters here */
+    ck_assert_int_eq(mcd_db_add(d, "polar-x", "H2O", 0, &i), MCD_OK);
+    ck_assert_int_eq(mcd_db_set_param(d, i, MCD_PARAM_DIPOLE, 6e-30), MCD_OK);
+    ck_assert_int_eq(mcd_db_set_param(d, i, MCD_PARAM_TB, 373.0), MCD_OK);
+    ck_assert_int_eq(mcd_db_add(d, "gas-b", "N2", 0, &i), MCD_OK);
+    ck_assert_int_eq(mcd_db_set_param(d, i, MCD_PARAM_DIPOLE, 0.0), MCD_OK);
+    ck_assert_int_eq(mcd_db_set_param(d, i, MCD_PARAM_VB, 3.1e-5), MCD_OK);
+    ck_assert_int_eq(mcd_db_set_param(d, i, MCD_PARAM_TB, 77.0), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_new(d, 2, nm, MCD_GAS_BROKAW, &m), MCD_OK);
+    ck_assert_int_eq(mcd_mixture_binaries(m, 300, 1e5, D, NULL, NULL),
+                     MCD_ENODATA);
+    for (int k = 0; k < 4; k++)
+        ck_assert(D[k] == SUP_GUARD);
+    snprintf(mixmsg, sizeof mixmsg, "%s", mcd_last_error());
+    ck_assert_str_eq(mixmsg,
+                     "pair (0, 1) polar-x-gas-b by brokaw: species 'polar-x' "
+                     "has no molar volume at the boiling point (Vb) (needed "
+                     "by brokaw)");
+    /* the database pair says the same */
+    ck_assert_int_eq(
+        mcd_db_binary_gas(d, 0, 1, MCD_GAS_BROKAW, 300, 1e5, D, NULL, NULL),
+        MCD_ENODATA);
+    ck_assert_ptr_nonnull(strstr(mixmsg, mcd_last_error()));
+    /* without its data a polar pair is not recommended Brokaw */
+    ck_assert_int_eq(mcd_mixture_set_method(m, 0, 1, MCD_GAS_RECOMMENDED),
+                     MCD_OK);
+    ck_assert_int_eq(mcd_mixture_pair_method(m, 0, 1, &pm), MCD_OK);
+    ck_assert_int_eq(pm, MCD_METHOD_FSG);
+    ck_assert_int_eq(mcd_mixture_binaries(m, 300, 1e5, D, NULL, NULL), MCD_OK);
+    /* with it, it is */
+    ck_assert_int_eq(mcd_db_set_param(d, 0, MCD_PARAM_VB, 1.9e-5), MCD_OK);
+    mcd_mixture_free(m);
+    ck_assert_int_eq(mcd_mixture_new(d, 2, nm, MCD_GAS_RECOMMENDED, &m),
+                     MCD_OK);
+    ck_assert_int_eq(mcd_mixture_pair_method(m, 1, 0, &pm), MCD_OK);
+    ck_assert_int_eq(pm, MCD_METHOD_BROKAW);
+    mcd_mixture_free(m);
+    mcd_db_free(d);
+}
+END_TEST
+
+START_TEST(mixture_brokaw_batched_fluxes_and_fit_match_single_state)
+{
+    /* The batched call reads the mixture's pair data itself (exact
+     * collision integral, or the temperature fit): its fluxes must equal
+     * the single-state call fed with mcd_mixture_binaries, to 1e-12 of the
+     * largest flux of a cell exactly as in test_batch.c (the same
+     * equations, other rounding), and with the fit to the fit's error
+     * (1e-12 target) times the conditioning of the solve: 1e-9. */
+    enum { K = 37, N = 5 };
+    const char *nm[N] = {"water", "ammonia", "acetone", "air", "methane"};
+    mcd_mixture *m = NULL;
+    mcd_workspace *ws = NULL;
+    double T[K], P[K], x[N * K], g[N * K], out[N * K], M[N], fit_err = -1;
+    ck_assert_int_eq(mcd_mixture_new(db, N, nm, MCD_GAS_RECOMMENDED, &m),
+                     MCD_OK);
+    ck_assert_int_eq(mcd_mixture_set_method(m, 3, 4, MCD_GAS_CHAPMAN_ENSKOG),
+                     MCD_OK);
+    ck_assert_int_eq(mcd_mixture_molar_masses(m, M), MCD_OK);
+    ck_assert_int_eq(mcd_workspace_new(N, &ws), MCD_OK);
+    sup_seed(&rng, 0xB20CA3ull);
+    for (size_t k = 0; k < K; k++) {
+        double s = 0.0, gs = 0.0;
+        T[k] = sup_range(&rng, 300, 900);
+        P[k] = sup_exp_range(&rng, 2e4, 2e6);
+        for (size_t i = 0; i < N; i++) {
+            x[i * K + k] = sup_range(&rng, 0.05, 1.0);
+            s += x[i * K + k];
+            g[i * K + k] = sup_range(&rng, -10, 10);
+            gs += g[i * K + k];
+        }
+        for (size_t i = 0; i < N; i++) {
+            x[i * K + k] /= s;
+            g[i * K + k] -= gs / N;
+        }
+    }
+    for (int fit = 0; fit < 2; fit++) {
+        double tol = fit ? 1e-9 : 1e-12;
+        if (fit) {
+            ck_assert_int_eq(
+                mcd_mixture_set_temperature_fit(m, 280.0, 950.0, &fit_err),
+                MCD_OK);
+            ck_assert(fit_err > 0.0 && fit_err < 1e-10);
+            /* the Brokaw pairs are fitted, not left exact (internal) */
+            ck_assert_uint_gt(m->fit_deg[0 * N + 1], 0);
+            ck_assert_uint_gt(m->fit_deg[2 * N + 3], 0);
+        }
+        ck_assert_msg(mcd_flux_batch(ws, m, MCD_MODEL_MAXWELL_STEFAN, T, P,
+                                     &(mcd_cells){.n_cells = K,
+                                                  .n_dim = 1,
+                                                  .comp_basis = MCD_BASIS_MOLE,
+                                                  .comp = x,
+                                                  .grad = g},
+                                     MCD_BASIS_MOLE, out) == MCD_OK,
+                      "%s", mcd_last_error());
+        for (size_t k = 0; k < K; k++) {
+            double D[N * N], y[N], gg[N], F[N], big = 0.0;
+            double c = P[k] / (MCD_GAS_CONSTANT * T[k]);
+            ck_assert_int_eq(mcd_mixture_binaries(m, T[k], P[k], D, NULL, NULL),
+                             MCD_OK);
+            for (size_t i = 0; i < N; i++) {
+                y[i] = x[i * K + k];
+                gg[i] = g[i * K + k];
+            }
+            ck_assert_int_eq(
+                mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
+                                 &(mcd_state){.n_species = N,
+                                              .n_dim = 1,
+                                              .M = M,
+                                              .Dij = D,
+                                              .c = c,
+                                              .comp_basis = MCD_BASIS_MOLE,
+                                              .comp = y,
+                                              .grad = gg},
+                                 MCD_BASIS_MOLE, F),
+                MCD_OK);
+            for (size_t i = 0; i < N; i++)
+                big = fmax(big, fabs(F[i]));
+            for (size_t i = 0; i < N; i++)
+                ck_assert_msg(fabs(out[i * K + k] - F[i]) <= tol * big,
+                              "fit %d cell %zu species %zu: %.17g vs %.17g",
+                              fit, k, i, out[i * K + k], F[i]);
+        }
+    }
+    mcd_workspace_free(ws);
+    mcd_mixture_free(m);
+}
+END_TEST
+
 int main(void)
 {
     Suite *s = suite_create("mcd:mixture");
@@ -438,6 +767,11 @@ int main(void)
     tcase_add_test(tc, mixture_is_independent_of_the_database);
     tcase_add_test(tc, mixture_accessors_report_species);
     tcase_add_test(tc, mixture_fast_path_matches_api);
+    tcase_add_test(tc, mixture_brokaw_pairs_equal_the_database_pair);
+    tcase_add_test(tc, mixture_recommended_follows_the_database_pair_rule);
+    tcase_add_test(tc, mixture_brokaw_missing_data_names_species_and_parameter);
+    tcase_add_test(tc,
+                   mixture_brokaw_batched_fluxes_and_fit_match_single_state);
     suite_add_tcase(s, tc);
     return sup_run(s);
 }

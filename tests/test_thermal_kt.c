@@ -10,8 +10,12 @@
  *  - the isotopic limit of the first approximation and its rigid-sphere
  *    value 105/118 (from memory);
  *  - Maxwell molecules (6 C* - 5 = 0): alpha_T = 0 (Chapman and Cowling;
- *    common practice);
- *  - the heavier species goes to the cold side (common practice);
+ *    the introduction of T. L. Ibbs, "Some Experiments on Thermal
+ *    Diffusion", 1921, p. 385, stored copy at https://archive.org/,
+ *    states it for "fifth power centres of force");
+ *  - the heavier species goes to the cold side (the same introduction:
+ *    "the heavier and larger molecules diffusing towards the cooler
+ *    side");
  *  - measured thermal diffusion factors of five gas pairs;
  *  - the binary law J_1 = -c D_12 (grad x_1 + k_T grad ln T);
  *  - Onsager reciprocity between thermal diffusion and the Dufour effect.
@@ -81,8 +85,12 @@ END_TEST
 /* The first-approximation formula                                     */
 /* ------------------------------------------------------------------ */
 
-/* Maxwell molecules: C* = 5/6 makes the factor 6 C* - 5 vanish; 6 * (5/6)
- * - 5 is zero to one rounding (1e-16), times a ratio of order one. */
+/* Maxwell molecules (repulsion by the inverse fifth power of distance):
+ * no thermal diffusion (Chapman's result as stated in the introduction of
+ * T. L. Ibbs, "Some Experiments on Thermal Diffusion", 1921, p. 385,
+ * stored copy at https://archive.org/). Here C* = 5/6 makes the factor
+ * 6 C* - 5 vanish; 6 * (5/6) - 5 is zero to one rounding (1e-16), times
+ * a ratio of order one. */
 START_TEST(kinetic_maxwell_molecules_give_no_thermal_diffusion)
 {
     for (int k = 0; k < 2000; k++) {
@@ -153,8 +161,11 @@ static size_t find(const mcd_db *db, const char *name)
 }
 
 /* The heavier species goes to the cold side (alpha_T > 0 with the heavy
- * species first): common practice, for the usual pairs at ordinary and
- * flame temperatures (the sign reversal of the 12-6 model lies at T* < 1). */
+ * species first): "the heavier and larger molecules diffusing towards the
+ * cooler side" (T. L. Ibbs, "Some Experiments on Thermal Diffusion",
+ * 1921, p. 385, introduction; stored copy at https://archive.org/), for
+ * the usual pairs at ordinary and flame temperatures (the sign reversal
+ * of the 12-6 model lies at T* < 1). */
 START_TEST(pairs_heavier_species_goes_to_the_cold_side)
 {
     static const char *const p[][2] = {
@@ -190,8 +201,9 @@ END_TEST
  * mole fractions, heavy species first. Every value is from memory (we
  * believe of the size reported in the reviews of Grew and Ibbs, Thermal
  * Diffusion in Gases, 1952, and Mason, Munn and Smith, Adv. At. Mol.
- * Phys. 2, 1966; not confirmed). Compared within the stated typical
- * error MCD_THERMAL_CE_TYPICAL_ERROR. */
+ * Phys. 2, 1966; not confirmed: a search of the stored public pages
+ * found the papers' abstracts but no numbers). Compared within the
+ * stated typical error MCD_THERMAL_CE_TYPICAL_ERROR. */
 START_TEST(pairs_agree_with_measured_factors)
 {
     static const struct {

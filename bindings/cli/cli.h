@@ -203,6 +203,24 @@ void cli_csv_end_row(cli_csv *c);
 void cli_explain_json(cli_json *j, const double *v);
 void cli_explain_text(mcd_method m, const double *v, FILE *f);
 
+/* ---- binary --thermal-factor (binary_thermal.c) ---- */
+/* The pair's thermal diffusion factor at x_a (mcd_db_thermal_factor), with
+ * its typical error and warnings; printed with the caution that thermal
+ * diffusion estimates are far less accurate than diffusivities. */
+typedef struct cli_thermal_factor {
+    double x_a, alpha, rel_err;
+    unsigned warn;
+} cli_thermal_factor;
+/* Fills alpha, rel_err, warn (x_a set by the caller); CLI_FAIL with the
+ * library's message on failure. */
+int cli_thermal_factor_estimate(const char *cmd, const mcd_db *db, size_t a,
+                                size_t b, double T, cli_thermal_factor *out);
+void cli_thermal_factor_text(const cli_thermal_factor *t, const char *name_a,
+                             FILE *f);
+/* A "thermal_diffusion" object: x_A, alpha_T, k_T, typical_error, method,
+ * warnings, caution. */
+void cli_thermal_factor_json(cli_json *j, const cli_thermal_factor *t);
+
 /* ---- typical errors under warnings (main.c) ---- */
 /* mcd_typical_error_widened, NaN when it fails or has no value. */
 double cli_widened_error(mcd_method m, unsigned warn);
@@ -254,7 +272,7 @@ typedef struct cli_state {
     mcd_basis comp_basis;         /* -x (mole) or -w (mass) */
     mcd_basis out_basis;          /* --basis */
     mcd_model model;              /* --model */
-    mcd_method method;            /* --method */
+    mcd_gas_method method;        /* --method (MCD_GAS_RECOMMENDED too) */
     double *comp;                 /* n */
     double *grad;                 /* n x n_dim, in comp_basis */
     double grad_lnP[MCD_MAX_DIM];
@@ -346,6 +364,22 @@ enum {
         "help", 'h', 0, CLI_O_HELP                                             \
     }
 /* Reset s to its defaults (no species, T and P not given, fsg). */
+/* --method NAME of the mixture commands: fsg, chapman-enskog, wilke-lee,
+ * brokaw or recommended (each pair the method 'mcdiff binary' recommends
+ * for it). 0 or -1 (unknown). */
+int cli_gas_method_from_name(const char *name, mcd_gas_method *out);
+/* Name of a gas method for messages ("recommended" too). */
+const char *cli_gas_method_name(mcd_gas_method g);
+/* Help text of --method shared by the mixture commands (two lines, the
+ * first after the option, the second indented like the others). */
+#define CLI_METHOD_HELP                                                        \
+    "  -m, --method NAME         estimate of the binary diffusivities:\n"      \
+    "                            fsg (default), chapman-enskog, wilke-lee,\n"  \
+    "                            brokaw, or recommended: each pair the one\n"  \
+    "                            'mcdiff binary' recommends (brokaw for a\n"   \
+    "                            polar pair with its data, else the first\n"   \
+    "                            of fsg, chapman-enskog, wilke-lee that\n"     \
+    "                            applies)\n"
 void cli_state_defaults(cli_state *s);
 /* Handle one shared option (id >= CLI_O_SPECIES, not CLI_O_HELP).
  * Returns CLI_OK, CLI_USAGE or CLI_FAIL (message printed). */

@@ -9,7 +9,7 @@ static void help(FILE *f)
     fputs(
         "usage: mcdiff binary A B -T TEMP -P PRES [--method NAME] "
         "[--explain]\n"
-        "                     [--json|--csv]\n"
+        "                     [--thermal-factor X_A] [--json|--csv]\n"
         "\n"
         "Binary diffusivity of species A and B (names or formulas from\n"
         "'mcdiff species') estimated by every method that applies, or by the\n"
@@ -45,6 +45,18 @@ static void help(FILE *f)
         "                          eps_AB/k, T*, Omega_D, phi, ...) and its\n"
         "                          formula, to check it by hand; JSON: an\n"
         "                          \"explain\" object per result (SI)\n"
+        "  --thermal-factor X_A    also estimate the pair's thermal "
+        "diffusion\n"
+        "                          factor alpha_T at mole fraction X_A of A\n"
+        "                          (0..1; first Chapman-Enskog "
+        "approximation,\n"
+        "                          Lennard-Jones; alpha_T > 0: A moves to "
+        "the\n"
+        "                          cold side); typical error 20 % or more, "
+        "far\n"
+        "                          less accurate than D; gases, text and "
+        "JSON\n"
+        "                          (\"thermal_diffusion\" object)\n"
         "  --json                  one JSON object; D in m^2/s under \"D\"\n"
         "  --csv                   one row per method, SI: header\n"
         "                          "
@@ -82,6 +94,22 @@ static void json_warnings(cli_json *j, unsigned bits)
     cli_json_array_end(j);
 }
 
+/* The method the library recommends for the pair (the per-pair rule of
+ * MCD_GAS_RECOMMENDED, read back from a mixture of the two), or 0 when
+ * it cannot tell (the same species twice). */
+static mcd_method recommended(const mcd_db *db, const size_t idx[2])
+{
+    const char *names[2] = {mcd_db_name(db, idx[0]), mcd_db_name(db, idx[1])};
+    mcd_mixture *mix = NULL;
+    mcd_method m = (mcd_method)0;
+    if (idx[0] != idx[1] &&
+        mcd_mixture_new(db, 2, names, MCD_GAS_RECOMMENDED, &mix) == MCD_OK &&
+        mcd_mixture_pair_method(mix, 0, 1, &m) != MCD_OK)
+        m = (mcd_method)0;
+    mcd_mixture_free(mix);
+    return m;
+}
+
 int cli_cmd_binary(int argc, char **argv)
 {
     enum {
@@ -93,21 +121,28 @@ int cli_cmd_binary(int argc, char **argv)
         O_HELP,
         O_FILE,
         O_CSV,
-        O_EXPLAIN
+        O_EXPLAIN,
+        O_THERMAL
     };
-    static const cli_opt opts[] = {
-        {"temperature", 'T', 1, O_T},   {"pressure", 'P', 1, O_P},
-        {"method", 'm', 1, O_METHOD},   {"viscosity", 0, 1, O_VISC},
-        {"json", 0, 0, O_JSON},         {"csv", 0, 0, O_CSV},
-        {"explain", 0, 0, O_EXPLAIN},   {"help", 'h', 0, O_HELP},
-        {"species-file", 0, 1, O_FILE}, {NULL, 0, 0, 0}};
+    static const cli_opt opts[] = {{"temperature", 'T', 1, O_T},
+                                   {"pressure", 'P', 1, O_P},
+                                   {"method", 'm', 1, O_METHOD},
+                                   {"viscosity", 0, 1, O_VISC},
+                                   {"json", 0, 0, O_JSON},
+                                   {"csv", 0, 0, O_CSV},
+                                   {"explain", 0, 0, O_EXPLAIN},
+                                   {"help", 'h', 0, O_HELP},
+                                   {"species-file", 0, 1, O_FILE},
+                                   {"thermal-factor", 0, 1, O_THERMAL},
+                                   {NULL, 0, 0, 0}};
     static const mcd_method gas_methods[] = {
         MCD_METHOD_FSG, MCD_METHOD_CHAPMAN_ENSKOG, MCD_METHOD_WILKE_LEE,
         MCD_METHOD_BROKAW};
     const char *cmd = "binary";
     cli_args a;
     int id, json = 0, csv = 0, rc, have_method = 0, best = -1, liquid;
-    int explain = 0, widened = 0, recommend;
+    int explain = 0, widened = 0, recommend, thermal = 0;
+    cli_thermal_factor tf = {0};
     const char *names[2] = {NULL, NULL}, *file = NULL;
     size_t npos = 0, idx[2], k, nres = 0;
     double T = NAN, P = NAN, mu = NAN;
@@ -125,6 +160,15 @@ int cli_cmd_binary(int argc, char **argv)
         case O_CSV: csv = 1; break;
         case O_EXPLAIN: explain = 1; break;
         case O_FILE: file = a.value; break;
+        case O_THERMAL:
+            if (cli_parse_number(a.value, &tf.x_a, why, sizeof why) != 0)
+                return cli_usage_error(cmd, a.spelled, "%s", why);
+            if (!(tf.x_a >= 0.0 && tf.x_a <= 1.0))
+                return cli_usage_error(cmd, a.spelled,
+                                       "%s is not a mole fraction in [0, 1]",
+                                       a.value);
+            thermal = 1;
+            break;
         case O_T:
             if (cli_parse_temperature(a.value, &T, why, sizeof why) != 0)
                 return cli_usage_error(cmd, a.spelled, "%s", why);
@@ -181,6 +225,13 @@ int cli_cmd_binary(int argc, char **argv)
     if (liquid && have_method && method != MCD_METHOD_WILKE_CHANG)
         return cli_usage_error(cmd, "--viscosity",
                                "is only used by wilke-chang (liquids)");
+    if (thermal && liquid)
+        return cli_usage_error(cmd, "--thermal-factor",
+                               "is estimated for gases only");
+    if (thermal && csv)
+        return cli_usage_error(cmd, "--thermal-factor",
+                               "is shown in the text and JSON output, not "
+                               "in --csv");
 
     rc = cli_open_db(cmd, file, &db);
     if (rc != CLI_OK)
@@ -231,20 +282,23 @@ int cli_cmd_binary(int argc, char **argv)
         if (r->st == MCD_OK && best < 0)
             best = (int)k;
     }
-    /* A polar pair (another method's estimate carries MCD_WARN_POLAR):
-     * Brokaw's correction, when it applies, is the recommended one. */
-    for (k = 0; k < nres && nres > 1; k++)
-        if (res[k].st == MCD_OK && (res[k].warn & MCD_WARN_POLAR)) {
-            size_t b;
-            for (b = 0; b < nres; b++)
-                if (res[b].m == MCD_METHOD_BROKAW && res[b].st == MCD_OK)
-                    best = (int)b;
-            break;
-        }
+    /* The library's rule (MCD_GAS_RECOMMENDED, asked of a mixture of the
+     * pair): Brokaw's correction for a polar pair with its data. */
+    if (nres > 1) {
+        mcd_method rec = recommended(db, idx);
+        for (k = 0; k < nres; k++)
+            if (res[k].m == rec && res[k].st == MCD_OK)
+                best = (int)k;
+    }
     recommend = !have_method;
     if (best < 0) {
         rc = cli_fail(cmd, nres == 1 ? "the estimate" : "every estimate",
                       res[0].st, mcd_method_name(res[0].m));
+        mcd_db_free(db);
+        return rc;
+    }
+    if (thermal && (rc = cli_thermal_factor_estimate(cmd, db, idx[0], idx[1], T,
+                                                     &tf)) != CLI_OK) {
         mcd_db_free(db);
         return rc;
     }
@@ -325,6 +379,8 @@ int cli_cmd_binary(int argc, char **argv)
         if (note[0])
             cli_json_string(&j, NULL, note);
         cli_json_array_end(&j);
+        if (thermal)
+            cli_thermal_factor_json(&j, &tf);
         cli_json_string(&j, "caution", CLI_CAUTION_LONG);
         cli_json_object_end(&j);
         cli_json_finish(&j);
@@ -384,6 +440,8 @@ int cli_cmd_binary(int argc, char **argv)
         for (k = 0; explain && k < nres; k++)
             if (res[k].st == MCD_OK)
                 cli_explain_text(res[k].m, res[k].ex, stdout);
+        if (thermal)
+            cli_thermal_factor_text(&tf, mcd_db_name(db, idx[0]), stdout);
         printf("%s\n", CLI_CAUTION_SHORT);
     }
     mcd_db_free(db);

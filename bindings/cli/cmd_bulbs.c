@@ -47,9 +47,7 @@ static void help(FILE *f)
         "                            the mean composition, closed form)\n"
         "  --tolerance TOL           local error tolerance on the mole\n"
         "                            fractions of integrated, 1e-12 to 1e-2\n"
-        "                            (default 1e-9)\n"
-        "  -m, --method NAME         estimate of the binary diffusivities:\n"
-        "                            fsg (default), chapman-enskog, wilke-lee\n"
+        "                            (default 1e-9)\n" CLI_METHOD_HELP
         "  --pair A:B=D[@T,P]        binary diffusivity of a pair [m^2/s, or\n"
         "                            cm2/s suffix], as for 'mcdiff fluxes'\n"
         "  --csv                     CSV (the default): header row\n"

@@ -43,9 +43,8 @@ static void help(FILE *f)
         "  --model NAME              exact (Maxwell-Stefan, Krishna-Standart;\n"
         "                            default), linearized ([D] frozen at the\n"
         "                            mean composition) or both (with the\n"
-        "                            deviation of linearized from exact)\n"
-        "  -m, --method NAME         estimate of the binary diffusivities:\n"
-        "                            fsg (default), chapman-enskog, wilke-lee\n"
+        "                            deviation of linearized from "
+        "exact)\n" CLI_METHOD_HELP
         "  --pair A:B=D[@T,P]        binary diffusivity of a pair [m^2/s, or\n"
         "                            cm2/s suffix], as for 'mcdiff fluxes'\n"
         "  --profile                 print the composition profile instead:\n"

@@ -31,9 +31,7 @@ static void help(FILE *f)
         "                            mixture-averaged\n"
         "  --basis NAME              fluxes as mole (J_i [mol/(m^2 s)]) or\n"
         "                            mass (j_i [kg/(m^2 s)]); default: the\n"
-        "                            basis of the composition\n"
-        "  -m, --method NAME         estimate of the binary diffusivities:\n"
-        "                            fsg (default), chapman-enskog, wilke-lee\n"
+        "                            basis of the composition\n" CLI_METHOD_HELP
         "  --pair A:B=D[@T,P]        binary diffusivity of a pair [m^2/s, or\n"
         "                            cm2/s suffix], valid at this state or\n"
         "                            measured at T,P (scaled as T^1.75/P);\n"

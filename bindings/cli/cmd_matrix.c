@@ -27,8 +27,7 @@ static void help(FILE *f)
         "  --basis NAME              mole (molar-average frame, default with\n"
         "                            -x) or mass (mass-average frame)\n"
         "  --dependent NAME          species left out (default: most "
-        "abundant)\n"
-        "  -m, --method NAME         fsg (default), chapman-enskog, wilke-lee\n"
+        "abundant)\n" CLI_METHOD_HELP
         "  --pair A:B=D[@T,P]        given binary diffusivity [m^2/s, or "
         "cm2/s\n"
         "                            suffix], as for 'mcdiff fluxes'\n"

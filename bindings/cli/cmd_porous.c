@@ -64,9 +64,7 @@ static void help(FILE *f)
         "  --viscosity MU            mixture viscosity; Pa.s, mPa.s or cP\n"
         "                            suffix, bare = Pa s (default:\n"
         "                            Chapman-Enskog species values and\n"
-        "                            Wilke's rule)\n"
-        "  -m, --method NAME         estimate of the binary diffusivities:\n"
-        "                            fsg (default), chapman-enskog, wilke-lee\n"
+        "                            Wilke's rule)\n" CLI_METHOD_HELP
         "  --pair A:B=D[@T,P]        binary diffusivity of a pair [m^2/s, or\n"
         "                            cm2/s suffix], as for 'mcdiff fluxes'\n"
         "  --json                    one JSON object (SI): fluxes under\n"

@@ -117,13 +117,34 @@ int cli_fractions_error(const char *cmd, const char *opt, mcd_status st,
                            mcd_status_string(st), MCD_SUM_TOL, sum);
 }
 
+int cli_gas_method_from_name(const char *name, mcd_gas_method *out)
+{
+    mcd_method m;
+    if (strcmp(name, "recommended") == 0) {
+        *out = MCD_GAS_RECOMMENDED;
+        return 0;
+    }
+    if (mcd_method_from_name(name, &m) != MCD_OK ||
+        (m != MCD_METHOD_FSG && m != MCD_METHOD_CHAPMAN_ENSKOG &&
+         m != MCD_METHOD_WILKE_LEE && m != MCD_METHOD_BROKAW))
+        return -1;
+    *out = (mcd_gas_method)m;
+    return 0;
+}
+
+const char *cli_gas_method_name(mcd_gas_method g)
+{
+    return g == MCD_GAS_RECOMMENDED ? "recommended"
+                                    : mcd_method_name((mcd_method)g);
+}
+
 void cli_state_defaults(cli_state *s)
 {
     memset(s, 0, sizeof *s);
     s->T = NAN;
     s->P = NAN;
     s->model = MCD_MODEL_MAXWELL_STEFAN;
-    s->method = MCD_METHOD_FSG;
+    s->method = MCD_GAS_FSG;
     s->dependent = MCD_DEPENDENT_AUTO;
 }
 
@@ -169,11 +190,11 @@ int cli_state_option(cli_state *s, const char *cmd, const cli_args *a, int id)
             return cli_usage_error(cmd, a->spelled, "%s", why);
         return CLI_OK;
     case CLI_O_METHOD:
-        if (mcd_method_from_name(a->value, &s->method) != MCD_OK ||
-            s->method == MCD_METHOD_USER || s->method == MCD_METHOD_WILKE_CHANG)
+        if (cli_gas_method_from_name(a->value, &s->method) != 0)
             return cli_usage_error(cmd, a->spelled,
                                    "'%s' is not a gas estimation method "
-                                   "(fsg, chapman-enskog, wilke-lee)",
+                                   "(fsg, chapman-enskog, wilke-lee, brokaw "
+                                   "or recommended)",
                                    a->value);
         return CLI_OK;
     case CLI_O_PAIR: {
@@ -444,8 +465,8 @@ int cli_state_setup(cli_state *s, const char *cmd)
                                    s->names[i]);
     }
     cli_species_names(s->names, n);
-    st = mcd_mixture_new(s->db, n, (const char *const *)s->names,
-                         (mcd_gas_method)s->method, &s->mix);
+    st = mcd_mixture_new(s->db, n, (const char *const *)s->names, s->method,
+                         &s->mix);
     if (st != MCD_OK)
         return cli_fail(cmd, "building the mixture", st, mcd_last_error());
 
@@ -535,7 +556,7 @@ int cli_state_setup(cli_state *s, const char *cmd)
     st = mcd_mixture_binaries(s->mix, s->T, s->P, s->Dij, s->rel_err, s->warn);
     if (st != MCD_OK) {
         snprintf(err, sizeof err, "%s (method %s; try --method or --pair)",
-                 mcd_last_error(), mcd_method_name(s->method));
+                 mcd_last_error(), cli_gas_method_name(s->method));
         return cli_fail(cmd, "estimating binary diffusivities", st, err);
     }
     if (s->kT_estimated) {
@@ -573,9 +594,20 @@ void cli_state_free(cli_state *s)
     memset(s, 0, sizeof *s);
 }
 
+/* The method of pair (i, j) as the mixture uses it (the one
+ * --method recommended picked, MCD_METHOD_USER for a given value). */
+static mcd_method pair_method(const cli_state *s, size_t i, size_t j)
+{
+    mcd_method m = MCD_METHOD_USER;
+    if (mcd_mixture_pair_method(s->mix, i, j, &m) != MCD_OK)
+        return (mcd_method)s->method; /* i != j, both in range: cannot */
+    return m;
+}
+
 static const char *pair_source(const cli_state *s, size_t i, size_t j)
 {
-    return s->user_pair[i * s->n + j] ? "given" : mcd_method_name(s->method);
+    return s->user_pair[i * s->n + j] ? "given"
+                                      : mcd_method_name(pair_method(s, i, j));
 }
 
 /* The stated error of pair (i, j): the published one of its method
@@ -585,7 +617,7 @@ static double pair_error(const cli_state *s, size_t i, size_t j)
     size_t ij = i * s->n + j;
     if (s->user_pair[ij] || isnan(s->rel_err[ij]))
         return NAN;
-    return cli_widened_error(s->method, s->warn[ij]);
+    return cli_widened_error(pair_method(s, i, j), s->warn[ij]);
 }
 
 void cli_state_print_binaries(const cli_state *s, FILE *f)

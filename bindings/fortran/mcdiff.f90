@@ -157,7 +157,7 @@ module mcdiff
        mcd_warning_string, mcd_binary_fsg, mcd_binary_chapman_enskog, &
        mcd_binary_scale, mcd_db_binary_gas, &
        mcd_mixture_new, mcd_mixture_species_count, mcd_mixture_name, &
-       mcd_mixture_molar_masses, mcd_mixture_set_method, &
+       mcd_mixture_molar_masses, mcd_mixture_set_method, mcd_mixture_pair_method, &
        mcd_mixture_set_binary, mcd_mixture_binaries, &
        mcd_workspace_new, mcd_workspace_capacity, mcd_last_error, &
        mcd_flux_compute, mcd_thermal_ratios, mcd_flux_jacobian_comp, &
@@ -186,6 +186,7 @@ module mcdiff
        mcd_db_viscosity_gas, mcd_mixture_viscosities, mcd_pore_permeability, &
        mcd_lj_collision_integrals, mcd_thermal_factor_kinetic, mcd_thermal_factor_ce, &
        mcd_db_thermal_factor, mcd_mixture_thermal_ratios, mcd_dufour_heat_flux, &
+       mcd_dufour_heat_flux_batch, &
        mcd_pore_effective, mcd_knudsen_diffusivity, mcd_bosanquet, &
        mcd_dgm_fluxes, mcd_dgm_closed, mcd_dgm_gradients, mcd_dgm_fluxes_batch, &
        mcd_slab_solve, mcd_slab_solve_ratios, mcd_slab_profile
@@ -953,6 +954,21 @@ contains
          int(method, c_int)), stat, errmsg)
   end subroutine mcd_mixture_set_method
 
+  !> Method of pair (i, j), 1-based: the one set, the one MCD_GAS_RECOMMENDED
+  !> picked, or MCD_METHOD_USER for a given value (untouched on failure).
+  subroutine mcd_mixture_pair_method(mix, i, j, method, stat, errmsg)
+    type(mcd_mixture_t), intent(in) :: mix
+    integer, intent(in) :: i, j
+    integer, intent(inout) :: method
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    integer(c_int) :: m, s
+    m = 0
+    s = c_mcd_mixture_pair_method(mix%ptr, cidx(i), cidx(j), m)
+    if (s == 0) method = int(m)
+    call finish(s, stat, errmsg)
+  end subroutine mcd_mixture_pair_method
+
   !> Measured D [m^2/s] at (T_ref, P_ref) for pair (i, j), 1-based.
   subroutine mcd_mixture_set_binary(mix, i, j, D, T_ref, P_ref, stat, errmsg)
     type(mcd_mixture_t), intent(inout) :: mix
@@ -1616,6 +1632,23 @@ contains
     call finish(c_mcd_dufour_heat_flux(csz(n), csz(n_dim), x, c_loc(M), &
          theta, T, int(flux_basis, c_int), flux, q), stat, errmsg)
   end subroutine mcd_dufour_heat_flux
+
+  !> Dufour heat flux of n_cells cells (mcd_dufour_heat_flux_batch), arrays
+  !> with the cell in the first index as mcd_flux_batch_dij: x(n_cells, n),
+  !> theta(n_cells, n), T(n_cells) [K], flux(n_cells, n_dim, n) in
+  !> flux_basis, M(n) [kg/mol] (mass fluxes); q(n_cells, n_dim) [W/m^2].
+  subroutine mcd_dufour_heat_flux_batch(n, n_cells, n_dim, x, M, theta, T, &
+       flux_basis, flux, q, stat, errmsg)
+    integer, intent(in) :: n, n_cells, n_dim, flux_basis
+    real(c_double), intent(in) :: x(n_cells, n), theta(n_cells, n), T(n_cells)
+    real(c_double), intent(in) :: flux(n_cells, n_dim, n)
+    real(c_double), intent(in), target :: M(n)
+    real(c_double), intent(inout) :: q(n_cells, n_dim)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_dufour_heat_flux_batch(csz(n), csz(n_cells), csz(n_dim), &
+         x, c_loc(M), theta, T, int(flux_basis, c_int), flux, q), stat, errmsg)
+  end subroutine mcd_dufour_heat_flux_batch
 
   ! ==================================================================
   ! Porous media

@@ -21,6 +21,7 @@ program test_mcdiff
   call check_raw_and_liquid_binaries()
   call check_frames()
   call check_temperature_fit()
+  call check_recommended_mixture()
   call check_bulbs()
   call check_porous()
   call check_thermal_kt()
@@ -659,6 +660,45 @@ contains
     call check(max(abs(lo), abs(hi), abs(e_get)) <= 0, 'fit removed')
   end subroutine check_temperature_fit
 
+  ! A mixture with MCD_GAS_RECOMMENDED: the polar pair water/air takes
+  ! Brokaw's correction and gives the database pair's Brokaw value; the
+  ! nonpolar pair nitrogen/air takes FSG; a given value reads back as USER.
+  subroutine check_recommended_mixture()
+    type(mcd_db_t) :: db
+    type(mcd_mixture_t) :: mix
+    real(c_double) :: Dij(3, 3), Ddb
+    integer :: stat, m, iw, ia
+    character(len=256) :: msg
+    call mcd_db_new_builtin(db, stat, msg)
+    call mcd_mixture_new(mix, db, [character(len=16) :: 'water', 'air', 'nitrogen'], &
+         stat, msg, default_method=MCD_GAS_RECOMMENDED)
+    call check_stat(stat, msg, 'recommended mixture')
+    m = -1
+    call mcd_mixture_pair_method(mix, 1, 2, m, stat, msg)
+    call check_stat(stat, msg, 'pair method water/air')
+    call check(m == MCD_METHOD_BROKAW, 'water/air recommended: brokaw')
+    call mcd_mixture_pair_method(mix, 3, 2, m, stat, msg)
+    call check(m == MCD_METHOD_FSG, 'nitrogen/air recommended: fsg')
+    call mcd_mixture_binaries(mix, 313.15_c_double, MCD_ATM, Dij, stat, msg)
+    call check_stat(stat, msg, 'recommended binaries')
+    call mcd_db_find(db, 'water', iw, stat, msg)
+    call mcd_db_find(db, 'air', ia, stat, msg)
+    call mcd_db_binary_gas(db, iw, ia, MCD_GAS_BROKAW, 313.15_c_double, MCD_ATM, Ddb, &
+         stat, msg)
+    call check_stat(stat, msg, 'database Brokaw water/air')
+    ! the same expression from the same parameters: equal to round-off
+    call check(abs(Dij(1, 2) - Ddb) <= 1e-14_c_double * Ddb, &
+         'mixture Brokaw pair equals the database pair')
+    ! any value: only the method it sets is checked
+    call mcd_mixture_set_binary(mix, 1, 2, 2.6e-5_c_double, 313.15_c_double, MCD_ATM, &
+         stat, msg)
+    call mcd_mixture_pair_method(mix, 2, 1, m, stat, msg)
+    call check(m == MCD_METHOD_USER, 'a given value reads back as user')
+    m = -7
+    call mcd_mixture_pair_method(mix, 2, 2, m, stat, msg)
+    call check(stat == MCD_EINVAL .and. m == -7, 'pair (i, i) refused, output untouched')
+  end subroutine check_recommended_mixture
+
   ! Two-bulb cell, binary: [D] = D12 at every composition and the
   ! equimolar binary film carries N = c D12 (x1 - x2) / L, so both
   ! theories give Delta(t) = Delta(0) exp(-beta D12 t),
@@ -727,6 +767,8 @@ contains
     integer :: stat, ia, ih, w
     character(len=256) :: msg
     real(c_double) :: om(4), r(3), a, b, err, kT(2), th(2), q(1), J(1, 2), pa(6)
+    real(c_double) :: xb(2, 2), thb(2, 2), Tb(2), fb(2, 2, 2), qb(2, 2), q1(2)
+    integer :: k
     call mcd_lj_collision_integrals(1.0_c_double, om, r, stat, msg)
     call check(stat == MCD_OK .and. abs(om(1) / 1.440_c_double - 1) < 2e-3_c_double, &
          'Omega11(1) (Bird, Stewart and Lightfoot, Table E.2)')
@@ -767,6 +809,25 @@ contains
          [0.2_c_double, -0.2_c_double], 300.0_c_double, MCD_BASIS_MOLE, J, q, stat, msg)
     call check(stat == MCD_OK .and. abs(q(1) - 0.4_c_double * MCD_GAS_CONSTANT * 300) &
          <= 1e-12_c_double * q(1), 'Dufour heat flux R T sum theta J')
+    ! batched (cell first) = the single-state call per cell, to the bit
+    xb(1, :) = [0.3_c_double, 0.7_c_double]
+    xb(2, :) = [0.0_c_double, 1.0_c_double]
+    thb(1, :) = [0.21_c_double, -0.09_c_double]
+    thb(2, :) = [0.35_c_double, 0.0_c_double]
+    Tb = [300.0_c_double, 1250.0_c_double]
+    fb(1, :, 1) = [1.0e-3_c_double, -2.0e-3_c_double]
+    fb(1, :, 2) = [-1.0e-3_c_double, 2.0e-3_c_double]
+    fb(2, :, 1) = [5.0e-4_c_double, 0.0_c_double]
+    fb(2, :, 2) = [-5.0e-4_c_double, 0.0_c_double]
+    call mcd_dufour_heat_flux_batch(2, 2, 2, xb, [0.04_c_double, 0.004_c_double], thb, Tb, &
+         MCD_BASIS_MASS, fb, qb, stat, msg)
+    call check_stat(stat, msg, 'batched Dufour heat flux')
+    do k = 1, 2
+      call mcd_dufour_heat_flux(2, 2, xb(k, :), [0.04_c_double, 0.004_c_double], thb(k, :), &
+           Tb(k), MCD_BASIS_MASS, fb(k, :, :), q1, stat, msg)
+      call check(stat == MCD_OK .and. maxval(abs(qb(k, :) - q1)) <= 0, &
+           'batched Dufour = single-state per cell')
+    end do
     call mcd_free(mix)
     call mcd_free(db)
   end subroutine check_thermal_kt

@@ -50,6 +50,7 @@
     X(mixture_new, (const mcd_db *db, size_t n_species, const char *const *names, mcd_gas_method default_method, mcd_mixture **out_mix), (db, n_species, names, default_method, out_mix)) \
     X(mixture_molar_masses, (const mcd_mixture *mix, double *out_M), (mix, out_M)) \
     X(mixture_set_method, (mcd_mixture *mix, size_t i, size_t j, mcd_gas_method m), (mix, i, j, m)) \
+    X(mixture_pair_method, (const mcd_mixture *mix, size_t i, size_t j, mcd_method *out_method), (mix, i, j, out_method)) \
     X(mixture_set_binary, (mcd_mixture *mix, size_t i, size_t j, double D, double T_ref, double P_ref), (mix, i, j, D, T_ref, P_ref)) \
     X(mixture_binaries, (const mcd_mixture *mix, double T, double P, double *out_D, double *out_rel_err, unsigned *out_warn), (mix, T, P, out_D, out_rel_err, out_warn)) \
     X(viscosity_omega22, (double T_star, double *out_omega), (T_star, out_omega)) \
@@ -69,6 +70,7 @@
     X(flux_jacobian, (mcd_workspace *ws, mcd_model model, const mcd_state *state, mcd_basis flux_basis, double *out_dflux), (ws, model, state, flux_basis, out_dflux)) \
     X(flux_jacobian_tp, (mcd_workspace *ws, mcd_model model, const mcd_state *state, mcd_basis flux_basis, double T, double P, const double *dDij_dT, const double *dDij_dP, double *out_dT, double *out_dP), (ws, model, state, flux_basis, T, P, dDij_dT, dDij_dP, out_dT, out_dP)) \
     X(dufour_heat_flux, (size_t n_species, size_t n_dim, const double *x, const double *M, const double *theta, double T, mcd_basis flux_basis, const double *flux, double *out_q), (n_species, n_dim, x, M, theta, T, flux_basis, flux, out_q)) \
+    X(dufour_heat_flux_batch, (size_t n_species, size_t n_cells, size_t n_dim, const double *x, const double *M, const double *theta, const double *T, mcd_basis flux_basis, const double *flux, double *out_q), (n_species, n_cells, n_dim, x, M, theta, T, flux_basis, flux, out_q)) \
     X(thermal_ratios, (mcd_workspace *ws, const mcd_state *state, const double *DT, double *out_kT), (ws, state, DT, out_kT)) \
     X(fick_matrix, (mcd_workspace *ws, const mcd_state *state, mcd_basis basis, size_t dependent, double *out_D, size_t *out_dependent), (ws, state, basis, dependent, out_D, out_dependent)) \
     X(fick_fluxes, (size_t n_species, size_t n_dim, const double *D, size_t dependent, double c_or_rho, const double *grad, double *out_flux), (n_species, n_dim, D, dependent, c_or_rho, grad, out_flux)) \

@@ -309,6 +309,14 @@ mcd_status mcdi_check_finite_vec(mcd_workspace *ws, size_t n, const double *p,
     return vec_locate(n, p, 1, name);
 }
 
+mcd_status mcdi_check_finite_vec_strided(mcd_workspace *ws, size_t n,
+                                         const double *p, size_t stride,
+                                         const char *name)
+{
+    (void)ws;
+    return vec_locate(n, p, stride, name);
+}
+
 mcd_status mcdi_check_finite_strided(mcd_workspace *ws, size_t rows,
                                      size_t cols, const double *p,
                                      size_t stride, const char *name)

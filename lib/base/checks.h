@@ -125,5 +125,9 @@ mcd_status mcdi_check_comp_strided(mcd_workspace *ws, size_t n, const double *y,
 mcd_status mcdi_check_finite_strided(mcd_workspace *ws, size_t rows,
                                      size_t cols, const double *p,
                                      size_t stride, const char *name);
+/* As mcdi_check_finite_vec ("entry i") for p[i * stride]. */
+mcd_status mcdi_check_finite_vec_strided(mcd_workspace *ws, size_t n,
+                                         const double *p, size_t stride,
+                                         const char *name);
 
 #endif

@@ -26,7 +26,7 @@
 #include "flux/flux_core.h"
 
 /* Whether some pair of the mixture depends on T through a collision
- * integral (Chapman-Enskog, Wilke-Lee) rather than the exact power law:
+ * integral (Chapman-Enskog, Wilke-Lee, Brokaw) rather than the exact power law:
  * decided once per call, not per block. */
 static int mixture_has_omega(const mcd_mixture *mix)
 {

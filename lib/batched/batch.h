@@ -28,7 +28,7 @@ typedef struct mcdi_bjob {
     int model; /* mcd_model */
     int comp_basis, flux_basis;
     const mcd_mixture *mix; /* mixture mode (T, P used) or NULL */
-    int mix_has_omega;      /* some pair of mix needs Omega_D(T) (CE/WL) */
+    int mix_has_omega; /* some pair of mix needs Omega_D(T) (CE/WL/Brokaw) */
     const double *T, *P;
     const double *Dij, *c; /* per-cell mode */
     const double *M;       /* molar masses or NULL when not needed */

@@ -74,6 +74,11 @@
 
 /* Neufeld-Janzen-Aziz collision integral, as binary.c (exact path). */
 static double omega_exact(double Ts) { return mcdi_omega_d(Ts); }
+/* Brokaw's polar collision integral, as binary.c (exact path). */
+static double omega_brokaw(double Ts, double delta_ab)
+{
+    return mcdi_brokaw_omega(Ts, delta_ab);
+}
 
 /* ------------------------------------------------------------------ */
 /* the stages of a block                                               */

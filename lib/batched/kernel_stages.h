@@ -211,7 +211,8 @@ KINLINE int stage_temperature(const mcd_mixture *mx, const mcdi_kblock *b,
 }
 
 /* Inverse binary diffusivity of pair ij of a mixture at the lanes' T and
- * P into q: power law, the fit, or the exact collision integral. */
+ * P into q: power law, the fit, or the exact collision integral (Brokaw's
+ * with its polar term). */
 KINLINE void invdiff_pair(const mcd_mixture *mx, const mcdi_kblock *b,
                           size_t ij, int all_fit, double *restrict q,
                           const size_t L)
@@ -240,7 +241,13 @@ KINLINE void invdiff_pair(const mcd_mixture *mx, const mcdi_kblock *b,
             for_lanes (l)
                 q[l] *= f15[l];
         }
-        if (deg == 0 || !all_fit) {
+        if ((deg == 0 || !all_fit) && m == MCD_METHOD_BROKAW) {
+            double e = mx->eps[ij], cf = mx->coef[ij], dl = mx->delta[ij];
+            for_lanes (l)
+                if (deg == 0 || !(infit[l] > 0.0))
+                    q[l] = (Pl[l] * omega_brokaw(Tl[l] / e, dl)) /
+                           (cf * Tl[l] * sqrt(Tl[l]));
+        } else if (deg == 0 || !all_fit) {
             double e = mx->eps[ij], cf = mx->coef[ij];
             for_lanes (l)
                 if (deg == 0 || !(infit[l] > 0.0))

@@ -42,12 +42,28 @@ mcd_status mcdi_pair_gas(const mcdi_spec *a, const mcdi_spec *b, mcd_method m,
 /* State-independent part of a gas method for a pair, so that
  *   FSG:          D = coef * T^1.75 / P
  *   CE, WL:       D = coef * T^1.5 / (P * Omega_D(T / eps_ab))
- * reproduces mcdi_pair_gas bit for bit. *out_eps_ab is 0 for FSG. Sets
- * *out_estimated to 1 when Lennard-Jones parameters were estimated.
- * Fails: EINVAL (method), ENODATA. Allocates: no. */
+ *   BROKAW:       D = coef * T^1.5 / (P * mcdi_brokaw_omega(T / eps_ab,
+ *                                                            delta_ab))
+ * reproduces mcdi_pair_gas bit for bit. *out_eps_ab is 0 for FSG;
+ * *out_delta_ab (Brokaw's polar parameter of the pair) is 0 except for
+ * BROKAW. Sets *out_estimated to 1 when Lennard-Jones parameters were
+ * estimated. Fails: EINVAL (method), ENODATA (the detail names the species
+ * and the parameter), EDOM. Allocates: no. */
 mcd_status mcdi_pair_coef(const mcdi_spec *a, const mcdi_spec *b, mcd_method m,
                           double *out_coef, double *out_eps_ab,
-                          int *out_estimated);
+                          double *out_delta_ab, int *out_estimated);
+
+/* The method recommended for a pair (the rule `mcdiff binary` marks and
+ * MCD_GAS_RECOMMENDED applies): Brokaw's polar correction when the pair
+ * is polar (mcdi_pair_polar) and both species have Brokaw's data; else
+ * the first of FSG, Chapman-Enskog, Wilke-Lee whose parameters the pair
+ * has; FSG when none has (its ENODATA then names what is missing). Reads
+ * parameters only; sets no error detail. */
+mcd_method mcdi_pair_recommended(const mcdi_spec *a, const mcdi_spec *b);
+
+/* Whether a pair is polar: the dipole moment of either species above 1
+ * debye (the rule of MCD_WARN_POLAR). */
+int mcdi_pair_polar(const mcdi_spec *a, const mcdi_spec *b);
 
 /* Lennard-Jones sigma [m] and eps/k [K] of one species for method m:
  * tabulated, or estimated from Vb and Tb (then *estimated is set to 1).

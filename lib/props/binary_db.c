@@ -20,8 +20,9 @@
  *                 few percent by Pr ~ 0.3-0.5 at moderate Tr; from memory).
  *  POLAR          dipole moment of either species above 1 debye. Not set
  *                 on Brokaw's estimate, which corrects for the dipole: for
- *                 such pairs it is the method to prefer (the CLI marks it
- *                 recommended when the other methods carry POLAR).
+ *                 such pairs it is the method to prefer
+ *                 (mcdi_pair_recommended picks it when the pair is polar
+ *                 by this rule and has its data).
  *  TEMPERATURE    FSG: T outside 200..1100 K, roughly the span of the
  *                 1966 data set (common practice); Chapman-Enskog,
  *                 Wilke-Lee and Brokaw: T* = T/eps_AB outside the 0.3..100
@@ -180,16 +181,70 @@ mcd_status mcdi_lj_params(const mcdi_spec *s, mcd_method m, double *sig,
     return MCD_OK;
 }
 
+/* Brokaw's parameters {delta, sigma, eps/k} of one species from its
+ * dipole, Vb and Tb (binary.c). Fails: ENODATA naming what is missing. */
+static mcd_status brokaw_params(const mcdi_spec *s, double out[3])
+{
+    static const struct {
+        mcd_param p;
+        const char *what;
+    } need[] = {
+        {MCD_PARAM_MOLAR_MASS, "molar mass"},
+        {MCD_PARAM_DIPOLE, "dipole moment"},
+        {MCD_PARAM_VB, "molar volume at the boiling point (Vb)"},
+        {MCD_PARAM_TB, "normal boiling point (Tb)"},
+    };
+    for (size_t k = 0; k < sizeof need / sizeof need[0]; k++)
+        if (!has(s, need[k].p) ||
+            !(s->p[need[k].p] > 0 || need[k].p == MCD_PARAM_DIPOLE))
+            return missing(s, need[k].what, MCD_METHOD_BROKAW);
+    mcdi_brokaw_params(s->p[MCD_PARAM_DIPOLE], s->p[MCD_PARAM_VB],
+                       s->p[MCD_PARAM_TB], &out[0], &out[1], &out[2]);
+    return MCD_OK;
+}
+
+/* Brokaw's pair coefficients (binary.c, mcdi_brokaw_d): the
+ * Chapman-Enskog constant with sigma_AB = (sigma_A sigma_B)^(1/2) for both
+ * species, eps_AB = (eps_A eps_B)^(1/2), delta_AB = (delta_A
+ * delta_B)^(1/2). Fails: ENODATA naming the species and parameter. */
+static mcd_status brokaw_coef(const mcdi_spec *a, const mcdi_spec *b,
+                              double *out_coef, double *out_eps_ab,
+                              double *out_delta_ab)
+{
+    double pa[3], pb[3], sig;
+    mcd_status st;
+    if ((st = brokaw_params(a, pa)) != MCD_OK ||
+        (st = brokaw_params(b, pb)) != MCD_OK)
+        return st;
+    sig = sqrt(pa[1] * pb[1]);
+    *out_coef = mcdi_ce_coef(a->p[MCD_PARAM_MOLAR_MASS],
+                             b->p[MCD_PARAM_MOLAR_MASS], sig, sig);
+    *out_eps_ab = sqrt(pa[2] * pb[2]);
+    *out_delta_ab = sqrt(pa[0] * pb[0]);
+    return MCD_OK;
+}
+
 mcd_status mcdi_pair_coef(const mcdi_spec *a, const mcdi_spec *b, mcd_method m,
                           double *out_coef, double *out_eps_ab,
-                          int *out_estimated)
+                          double *out_delta_ab, int *out_estimated)
 {
     double sa, sb, ea, eb;
     int est = 0;
     mcd_status st;
     if (m != MCD_METHOD_FSG && m != MCD_METHOD_CHAPMAN_ENSKOG &&
-        m != MCD_METHOD_WILKE_LEE)
+        m != MCD_METHOD_WILKE_LEE && m != MCD_METHOD_BROKAW)
         return MCD_EINVAL;
+    *out_delta_ab = 0.0;
+    *out_estimated = 0;
+    if (m == MCD_METHOD_BROKAW) {
+        if ((st = brokaw_coef(a, b, out_coef, out_eps_ab, out_delta_ab)) !=
+            MCD_OK)
+            return st;
+        if (!(*out_coef > 0.0) || !mcdi_finite(*out_coef) ||
+            !(*out_eps_ab > 0.0) || !mcdi_finite(*out_eps_ab))
+            return MCD_EDOM; /* extreme user parameters */
+        return MCD_OK;
+    }
     if (!has(a, MCD_PARAM_MOLAR_MASS) || !(a->p[MCD_PARAM_MOLAR_MASS] > 0))
         return missing(a, "molar mass", m);
     if (!has(b, MCD_PARAM_MOLAR_MASS) || !(b->p[MCD_PARAM_MOLAR_MASS] > 0))
@@ -228,6 +283,38 @@ mcd_status mcdi_pair_coef(const mcdi_spec *a, const mcdi_spec *b, mcd_method m,
     return MCD_OK;
 }
 
+int mcdi_pair_polar(const mcdi_spec *a, const mcdi_spec *b)
+{
+    return (has(a, MCD_PARAM_DIPOLE) && a->p[MCD_PARAM_DIPOLE] > MCDI_DEBYE) ||
+           (has(b, MCD_PARAM_DIPOLE) && b->p[MCD_PARAM_DIPOLE] > MCDI_DEBYE);
+}
+
+/* The recommendation rule (binary.h). Brokaw's correction is meant for
+ * polar pairs (Brokaw 1969; the POLAR flag of the other methods says where
+ * they are least reliable); otherwise the order is the CLI's `binary`
+ * order, FSG first (its published average error is the smallest of the
+ * three, see mcd_method_typical_error). */
+mcd_method mcdi_pair_recommended(const mcdi_spec *a, const mcdi_spec *b)
+{
+    static const mcd_method order[] = {
+        MCD_METHOD_FSG, MCD_METHOD_CHAPMAN_ENSKOG, MCD_METHOD_WILKE_LEE};
+    double coef, eps, delta;
+    int est;
+    mcd_method pick = MCD_METHOD_FSG;
+    if (mcdi_pair_polar(a, b) && mcdi_pair_coef(a, b, MCD_METHOD_BROKAW, &coef,
+                                                &eps, &delta, &est) == MCD_OK)
+        pick = MCD_METHOD_BROKAW;
+    for (size_t k = 0;
+         pick != MCD_METHOD_BROKAW && k < sizeof order / sizeof order[0]; k++)
+        if (mcdi_pair_coef(a, b, order[k], &coef, &eps, &delta, &est) ==
+            MCD_OK) {
+            pick = order[k];
+            break;
+        }
+    mcdi_err_clear(); /* a method without data is no failure here */
+    return pick;
+}
+
 unsigned mcdi_pair_state_warnings(const mcdi_spec *a, const mcdi_spec *b,
                                   double T, double P)
 {
@@ -238,8 +325,7 @@ unsigned mcdi_pair_state_warnings(const mcdi_spec *a, const mcdi_spec *b,
         P > MCDI_HIGH_P_REDUCED * 0.5 *
                 (a->p[MCD_PARAM_PC] + b->p[MCD_PARAM_PC]))
         w |= MCD_WARN_HIGH_PRESSURE;
-    if ((has(a, MCD_PARAM_DIPOLE) && a->p[MCD_PARAM_DIPOLE] > MCDI_DEBYE) ||
-        (has(b, MCD_PARAM_DIPOLE) && b->p[MCD_PARAM_DIPOLE] > MCDI_DEBYE))
+    if (mcdi_pair_polar(a, b))
         w |= MCD_WARN_POLAR;
     if (((a->cls | b->cls) & MCDI_CLS_QUANTUM) && T < MCDI_QUANTUM_T)
         w |= MCD_WARN_QUANTUM;
@@ -248,53 +334,11 @@ unsigned mcdi_pair_state_warnings(const mcdi_spec *a, const mcdi_spec *b,
     return w;
 }
 
-/* Brokaw's parameters {delta, sigma, eps/k} of one species from its
- * dipole, Vb and Tb (binary.c). Fails: ENODATA naming what is missing. */
-static mcd_status brokaw_params(const mcdi_spec *s, double out[3])
-{
-    static const struct {
-        mcd_param p;
-        const char *what;
-    } need[] = {
-        {MCD_PARAM_MOLAR_MASS, "molar mass"},
-        {MCD_PARAM_DIPOLE, "dipole moment"},
-        {MCD_PARAM_VB, "molar volume at the boiling point (Vb)"},
-        {MCD_PARAM_TB, "normal boiling point (Tb)"},
-    };
-    for (size_t k = 0; k < sizeof need / sizeof need[0]; k++)
-        if (!has(s, need[k].p) ||
-            !(s->p[need[k].p] > 0 || need[k].p == MCD_PARAM_DIPOLE))
-            return missing(s, need[k].what, MCD_METHOD_BROKAW);
-    mcdi_brokaw_params(s->p[MCD_PARAM_DIPOLE], s->p[MCD_PARAM_VB],
-                       s->p[MCD_PARAM_TB], &out[0], &out[1], &out[2]);
-    return MCD_OK;
-}
-
-/* Brokaw's estimate of a pair and its method-range warning: T* outside
- * the fit range of the Lennard-Jones collision integral. Its own polar
- * correction replaces the POLAR flag. */
-static mcd_status brokaw_pair(const mcdi_spec *a, const mcdi_spec *b, double T,
-                              double P, double *out_D, unsigned *io_warn)
-{
-    double pa[3], pb[3], Ts;
-    mcd_status st;
-    if ((st = brokaw_params(a, pa)) != MCD_OK ||
-        (st = brokaw_params(b, pb)) != MCD_OK)
-        return st;
-    *out_D = mcdi_brokaw_d(T, P, a->p[MCD_PARAM_MOLAR_MASS],
-                           b->p[MCD_PARAM_MOLAR_MASS], pa, pb);
-    Ts = T / sqrt(pa[2] * pb[2]);
-    *io_warn &= ~MCD_WARN_POLAR;
-    if (Ts < MCDI_TSTAR_MIN || Ts > MCDI_TSTAR_MAX)
-        *io_warn |= MCD_WARN_TEMPERATURE;
-    return MCD_OK;
-}
-
 mcd_status mcdi_pair_gas(const mcdi_spec *a, const mcdi_spec *b, mcd_method m,
                          double T, double P, double *out_D, double *out_rel_err,
                          unsigned *out_warn)
 {
-    double coef, eps_ab, D;
+    double coef, eps_ab, delta_ab, D;
     int est;
     unsigned w;
     mcd_status st;
@@ -305,24 +349,26 @@ mcd_status mcdi_pair_gas(const mcdi_spec *a, const mcdi_spec *b, mcd_method m,
     if (!(T > 0) || !(P > 0))
         return MCD_EDOM;
     w = mcdi_pair_state_warnings(a, b, T, P);
-    if (m == MCD_METHOD_BROKAW) {
-        if ((st = brokaw_pair(a, b, T, P, &D, &w)) != MCD_OK)
-            return st;
+    if ((st = mcdi_pair_coef(a, b, m, &coef, &eps_ab, &delta_ab, &est)) !=
+        MCD_OK)
+        return st;
+    if (est)
+        w |= MCD_WARN_ESTIMATED_PARAM;
+    if (m == MCD_METHOD_FSG) {
+        D = coef * pow(T, 1.75) / P;
+        if (T < MCDI_FSG_T_MIN || T > MCDI_FSG_T_MAX)
+            w |= MCD_WARN_TEMPERATURE;
     } else {
-        if ((st = mcdi_pair_coef(a, b, m, &coef, &eps_ab, &est)) != MCD_OK)
-            return st;
-        if (est)
-            w |= MCD_WARN_ESTIMATED_PARAM;
-        if (m == MCD_METHOD_FSG) {
-            D = coef * pow(T, 1.75) / P;
-            if (T < MCDI_FSG_T_MIN || T > MCDI_FSG_T_MAX)
-                w |= MCD_WARN_TEMPERATURE;
+        double Ts = T / eps_ab;
+        /* Brokaw's estimate corrects for the dipole: no POLAR flag. */
+        if (m == MCD_METHOD_BROKAW) {
+            D = coef * pow(T, 1.5) / (P * mcdi_brokaw_omega(Ts, delta_ab));
+            w &= ~MCD_WARN_POLAR;
         } else {
-            double Ts = T / eps_ab;
             D = coef * pow(T, 1.5) / (P * mcdi_omega_d(Ts));
-            if (Ts < MCDI_TSTAR_MIN || Ts > MCDI_TSTAR_MAX)
-                w |= MCD_WARN_TEMPERATURE;
         }
+        if (Ts < MCDI_TSTAR_MIN || Ts > MCDI_TSTAR_MAX)
+            w |= MCD_WARN_TEMPERATURE;
     }
     if (!(D > 0.0) || !mcdi_finite(D))
         return MCD_EDOM; /* overflow or underflow at an extreme state */
@@ -347,7 +393,11 @@ mcd_status mcdi_api_db_binary_gas(const mcd_db *db, size_t a, size_t b,
         return st;
     if (method != MCD_METHOD_FSG && method != MCD_METHOD_CHAPMAN_ENSKOG &&
         method != MCD_METHOD_WILKE_LEE && method != MCD_METHOD_BROKAW)
-        return MCD_EINVAL;
+        return mcdi_fail(MCD_EINVAL,
+                         "argument method: %d is not a gas method of a "
+                         "database pair (fsg, chapman-enskog, wilke-lee, "
+                         "brokaw; recommended is for mixtures)",
+                         (int)method);
     if ((st = mcdi_spec_from_db(db, a, &sa)) != MCD_OK)
         return st;
     if ((st = mcdi_spec_from_db(db, b, &sb)) != MCD_OK)

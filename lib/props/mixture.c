@@ -7,6 +7,12 @@
  * the state-independent coefficient of its method (see mcdi_pair_coef):
  *   FSG and USER:  D_ij = coef_ij T^1.75 / P
  *   CE and WL:     D_ij = coef_ij T^1.5 / (P Omega_D(T / eps_ij))
+ *   Brokaw:        D_ij = coef_ij T^1.5 / (P (Omega_D(T*) + 0.19 delta_ij^2
+ *                  / T*)),  T* = T / eps_ij
+ * (Brokaw 1969, see binary.c: sigma, eps and delta_ij from the dipoles,
+ * boiling points and boiling-point volumes). MCD_GAS_RECOMMENDED picks
+ * one of these per pair once, when the pair is set (mcdi_pair_recommended,
+ * the rule of the database pair); the pair keeps the method picked.
  * USER: coef = D_ref P_ref / T_ref^1.75, i.e. D = D_ref (T/T_ref)^1.75
  * (P_ref/P), the Fuller-Schettler-Giddings temperature law (Fuller et al.
  * 1966) and the 1/P law of dilute gases.
@@ -39,6 +45,7 @@ MCD_API void mcd_mixture_free(mcd_mixture *mix)
     free(mix->coef);
     free(mix->icoef);
     free(mix->eps);
+    free(mix->delta);
     free(mix->M);
     free(mix->fit_deg);
     free(mix->fit_q);
@@ -51,9 +58,10 @@ MCD_API void mcd_mixture_free(mcd_mixture *mix)
 /* ------------------------------------------------------------------ */
 
 /*
- * For a Chapman-Enskog or Wilke-Lee pair, D = coef T^1.5 / (P Omega_D(T /
- * eps)); the only costly factor is Omega_D (three exponentials and a power
- * in the Neufeld-Janzen-Aziz form). Over a declared range [T_min, T_max]
+ * For a Chapman-Enskog, Wilke-Lee or Brokaw pair, D = coef T^1.5 / (P
+ * Omega(T)); the only costly factor is Omega = Omega_D(T / eps) (three
+ * exponentials and a power in the Neufeld-Janzen-Aziz form; Brokaw adds
+ * 0.19 delta^2 eps / T, as smooth). Over a declared range [T_min, T_max]
  * it is a smooth function of u = (ln T - lmid) / lhalf in [-1, 1], so it
  * is interpolated at the K+1 Chebyshev nodes u_m = cos(pi (m + 1/2) /
  * (K+1)) (near-minimax; Rivlin 1974, ch. 1 - common practice):
@@ -69,6 +77,16 @@ MCD_API void mcd_mixture_free(mcd_mixture *mix)
 #define FIT_TARGET 1e-12
 #define FIT_GRID 257
 
+/* The collision integral of pair ij at T: Omega_D(T*), with Brokaw's
+ * polar term for a Brokaw pair (the same expression as binary_db.c). */
+static double pair_omega(const mcd_mixture *mix, size_t ij, double T)
+{
+    double Ts = T / mix->eps[ij];
+    if (mix->method[ij] == MCD_METHOD_BROKAW)
+        return mcdi_brokaw_omega(Ts, mix->delta[ij]);
+    return mcdi_omega_d(Ts);
+}
+
 /* Fit pair (i, j) if its method needs one; returns its max error. */
 static double fit_pair(mcd_mixture *mix, size_t i, size_t j)
 {
@@ -78,7 +96,8 @@ static double fit_pair(mcd_mixture *mix, size_t i, size_t j)
     double best[MCDI_FIT_MAXDEG + 1];
     unsigned best_deg = 0;
     mix->fit_deg[ij] = mix->fit_deg[ji] = 0;
-    if ((m != MCD_METHOD_CHAPMAN_ENSKOG && m != MCD_METHOD_WILKE_LEE) ||
+    if ((m != MCD_METHOD_CHAPMAN_ENSKOG && m != MCD_METHOD_WILKE_LEE &&
+         m != MCD_METHOD_BROKAW) ||
         mix->pstat[ij] != MCD_OK || !(mix->eps[ij] > 0.0))
         return 0.0;
     for (unsigned K = 4; K <= MCDI_FIT_MAXDEG; K += 2) {
@@ -86,7 +105,7 @@ static double fit_pair(mcd_mixture *mix, size_t i, size_t j)
         for (unsigned q = 0; q <= K; q++) {
             double u = cos(M_PI_VAL * (q + 0.5) / (K + 1));
             double T = exp(mix->fit_lmid + mix->fit_lhalf * u);
-            f[q] = mcdi_omega_d(T / mix->eps[ij]);
+            f[q] = pair_omega(mix, ij, T);
         }
         for (unsigned k = 0; k <= K; k++) {
             double a = 0.0;
@@ -98,7 +117,7 @@ static double fit_pair(mcd_mixture *mix, size_t i, size_t j)
         for (unsigned g = 0; g < FIT_GRID; g++) {
             double u = -1.0 + 2.0 * g / (FIT_GRID - 1);
             double T = exp(mix->fit_lmid + mix->fit_lhalf * u);
-            double ex = mcdi_omega_d(T / mix->eps[ij]);
+            double ex = pair_omega(mix, ij, T);
             double t0 = 1.0, t1 = u, v = coefs[0] + coefs[1] * u, e;
             for (unsigned k = 2; k <= K; k++) {
                 double t2 = 2.0 * u * t1 - t0;
@@ -205,23 +224,26 @@ static void update_pair(mcd_mixture *mix, size_t i, size_t j)
 {
     size_t n = mix->n, ij = i * n + j, ji = j * n + i;
     mcd_method m = (mcd_method)mix->method[ij];
-    double coef = 0.0, eps = 0.0;
+    double coef = 0.0, eps = 0.0, delta = 0.0;
     mcd_status st = MCD_OK;
     if (m == MCD_METHOD_USER) {
         const double *u = mix->user + 3 * ij;
         coef = u[0] * u[2] / pow(u[1], 1.75);
     } else {
         int est;
-        st = mcdi_pair_coef(&mix->spec[i], &mix->spec[j], m, &coef, &eps, &est);
+        st = mcdi_pair_coef(&mix->spec[i], &mix->spec[j], m, &coef, &eps,
+                            &delta, &est);
         if (st != MCD_OK) {
             coef = 0.0;
             eps = 0.0;
+            delta = 0.0;
             mcdi_err_clear(); /* kept in pstat; mcdi_mixture_ready names it */
         }
     }
     mix->coef[ij] = mix->coef[ji] = coef;
     mix->icoef[ij] = mix->icoef[ji] = coef > 0.0 ? 1.0 / coef : 0.0;
     mix->eps[ij] = mix->eps[ji] = eps;
+    mix->delta[ij] = mix->delta[ji] = delta;
     mix->pstat[ij] = mix->pstat[ji] = (unsigned char)st;
     mix->method[ji] = mix->method[ij];
     if (mix->fit_on) {
@@ -232,10 +254,22 @@ static void update_pair(mcd_mixture *mix, size_t i, size_t j)
     }
 }
 
-static int is_gas_method(mcd_method m)
+static int is_gas_method(mcd_gas_method g)
 {
-    return m == MCD_METHOD_FSG || m == MCD_METHOD_CHAPMAN_ENSKOG ||
-           m == MCD_METHOD_WILKE_LEE;
+    return g == MCD_GAS_FSG || g == MCD_GAS_CHAPMAN_ENSKOG ||
+           g == MCD_GAS_WILKE_LEE || g == MCD_GAS_BROKAW ||
+           g == MCD_GAS_RECOMMENDED;
+}
+
+/* Set pair (i, j) to gas method g (MCD_GAS_RECOMMENDED: the method the
+ * rule picks for this pair) and recompute its coefficients. */
+static void set_pair(mcd_mixture *mix, size_t i, size_t j, mcd_gas_method g)
+{
+    mcd_method m = g == MCD_GAS_RECOMMENDED
+                       ? mcdi_pair_recommended(&mix->spec[i], &mix->spec[j])
+                       : (mcd_method)g;
+    mix->method[i * mix->n + j] = (unsigned char)m;
+    update_pair(mix, i, j);
 }
 
 mcd_status mcdi_api_mixture_new(const mcd_db *db, size_t n,
@@ -243,7 +277,6 @@ mcd_status mcdi_api_mixture_new(const mcd_db *db, size_t n,
                                 mcd_gas_method default_gas,
                                 mcd_mixture **out_mix)
 {
-    mcd_method default_method = (mcd_method)default_gas;
     mcd_mixture *mix = NULL;
     size_t *idx = NULL;
     mcd_status st = MCD_OK;
@@ -255,11 +288,10 @@ mcd_status mcdi_api_mixture_new(const mcd_db *db, size_t n,
         mcdi_note("number of species %zu not in 1..%d", n, MCD_MAX_SPECIES);
         return MCD_EINVAL;
     }
-    if (!is_gas_method(default_method)) {
-        mcdi_note("default method %d is not a mixture gas method (fsg, "
-                  "chapman-enskog, wilke-lee; brokaw is for database pairs "
-                  "only)",
-                  (int)default_method);
+    if (!is_gas_method(default_gas)) {
+        mcdi_note("argument default_method: %d is not a gas method (fsg, "
+                  "chapman-enskog, wilke-lee, brokaw or recommended)",
+                  (int)default_gas);
         return MCD_EINVAL;
     }
     mix = calloc(1, sizeof *mix);
@@ -275,10 +307,11 @@ mcd_status mcdi_api_mixture_new(const mcd_db *db, size_t n,
     mix->coef = calloc(n * n, sizeof(double));
     mix->icoef = calloc(n * n, sizeof(double));
     mix->eps = calloc(n * n, sizeof(double));
+    mix->delta = calloc(n * n, sizeof(double));
     mix->user = calloc(3 * n * n, sizeof(double));
     mix->M = calloc(n, sizeof(double));
     if (!mix->spec || !mix->method || !mix->pstat || !mix->coef || !mix->eps ||
-        !mix->user || !mix->icoef || !mix->M) {
+        !mix->delta || !mix->user || !mix->icoef || !mix->M) {
         st = MCD_ENOMEM;
         goto fail;
     }
@@ -318,10 +351,8 @@ mcd_status mcdi_api_mixture_new(const mcd_db *db, size_t n,
             mix->M_ok = 0;
     }
     for (size_t i = 0; i < n; i++) {
-        for (size_t j = i + 1; j < n; j++) {
-            mix->method[i * n + j] = (unsigned char)default_method;
-            update_pair(mix, i, j);
-        }
+        for (size_t j = i + 1; j < n; j++)
+            set_pair(mix, i, j, default_gas);
     }
     free(idx);
     *out_mix = mix;
@@ -362,15 +393,41 @@ mcd_status mcdi_api_mixture_molar_masses(const mcd_mixture *mix, double *out_M)
 mcd_status mcdi_api_mixture_set_method(mcd_mixture *mix, size_t i, size_t j,
                                        mcd_gas_method gas)
 {
-    mcd_method m = (mcd_method)gas;
     if (mix == NULL)
         return MCD_EINVAL;
     if (i >= mix->n || j >= mix->n)
         return MCD_EBADLEN;
-    if (i == j || !is_gas_method(m))
-        return MCD_EINVAL;
-    mix->method[i * mix->n + j] = (unsigned char)m;
-    update_pair(mix, i, j);
+    if (i == j)
+        return mcdi_fail(MCD_EINVAL,
+                         "arguments i, j: both %zu (a pair "
+                         "needs two species)",
+                         i);
+    if (!is_gas_method(gas))
+        return mcdi_fail(MCD_EINVAL,
+                         "argument m: %d is not a gas method (fsg, "
+                         "chapman-enskog, wilke-lee, brokaw or recommended)",
+                         (int)gas);
+    set_pair(mix, i, j, gas);
+    return MCD_OK;
+}
+
+mcd_status mcdi_api_mixture_pair_method(const mcd_mixture *mix, size_t i,
+                                        size_t j, mcd_method *out_method)
+{
+    mcd_status st;
+    if ((st = MCDI_CHECK_PTRS2(mix, out_method)) != MCD_OK)
+        return st;
+    if (i >= mix->n || j >= mix->n)
+        return mcdi_fail(MCD_EBADLEN,
+                         "argument %s: %zu is not a species index of the "
+                         "mixture (%zu species)",
+                         i >= mix->n ? "i" : "j", i >= mix->n ? i : j, mix->n);
+    if (i == j)
+        return mcdi_fail(MCD_EINVAL,
+                         "arguments i, j: both %zu (a pair "
+                         "needs two species)",
+                         i);
+    *out_method = (mcd_method)mix->method[i * mix->n + j];
     return MCD_OK;
 }
 
@@ -405,11 +462,11 @@ mcd_status mcdi_api_mixture_set_binary(mcd_mixture *mix, size_t i, size_t j,
 static mcd_status pair_failure(const mcd_mixture *mix, size_t i, size_t j)
 {
     mcd_method m = (mcd_method)mix->method[i * mix->n + j];
-    double coef, eps;
+    double coef, eps, delta;
     int est;
     char why[MCDI_ERRLEN];
-    mcd_status st =
-        mcdi_pair_coef(&mix->spec[i], &mix->spec[j], m, &coef, &eps, &est);
+    mcd_status st = mcdi_pair_coef(&mix->spec[i], &mix->spec[j], m, &coef, &eps,
+                                   &delta, &est);
     if (st == MCD_OK) /* cannot happen: pstat is the same computation */
         st = (mcd_status)mix->pstat[i * mix->n + j];
     snprintf(why, sizeof why, "%s", mcdi_err_text());
@@ -442,7 +499,7 @@ void mcdi_mixture_binaries_fast(const mcd_mixture *mix, double T, double P,
             if (m == MCD_METHOD_FSG || m == MCD_METHOD_USER)
                 D = mix->coef[ij] * t175 / P;
             else
-                D = mix->coef[ij] * t15 / (P * mcdi_omega_d(T / mix->eps[ij]));
+                D = mix->coef[ij] * t15 / (P * pair_omega(mix, ij, T));
             out_D[ij] = D;
             out_D[j * n + i] = D;
         }

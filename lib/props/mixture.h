@@ -19,11 +19,13 @@ struct mcd_mixture {
     unsigned char *pstat;  /* n*n mcd_status of the pair's coefficient */
     double *coef;          /* n*n, see mixture.c */
     double *icoef;         /* n*n, 1 / coef (0 when coef is 0) */
-    double *eps;           /* n*n eps_ab [K] for CE/WL, 0 otherwise */
+    double *eps;           /* n*n eps_ab [K] for CE/WL/Brokaw, else 0 */
+    double *delta;         /* n*n Brokaw's delta_ab [-], 0 otherwise */
     double *user;          /* n*n*3: D_ref, T_ref, P_ref (D_ref 0 if none) */
     double *M;             /* n molar masses [kg/mol] (0 when unknown) */
     int M_ok;              /* every molar mass known */
-    /* temperature fit of Omega_D for CE/WL pairs (fit_on == 0: none) */
+    /* temperature fit of Omega_D for CE/WL/Brokaw pairs (fit_on == 0:
+     * none; Brokaw: Omega_D + 0.19 delta_ab^2 / T*) */
     int fit_on;
     double fit_Tmin, fit_Tmax, fit_err;
     double fit_lmid, fit_lhalf; /* ln T = lmid + lhalf u, u in [-1, 1] */
@@ -40,7 +42,8 @@ mcd_status mcdi_mixture_ready(const mcd_mixture *mix);
 /* Cheap evaluation of the n x n binary diffusivity matrix at (T, P):
  * per-pair coefficients are precomputed when the mixture or a pair's method
  * or user value changes, so this does one pow for T^1.75 and T^1.5 per call
- * and one collision integral per Lennard-Jones pair; no warnings, no error
+ * and one collision integral per Lennard-Jones pair (Brokaw's with its
+ * polar term); no warnings, no error
  * estimates, no argument checks. Precondition: mix != NULL, out_D != NULL,
  * T and P finite and > 0, mcdi_mixture_ready(mix) == MCD_OK. Gives the same
  * values as mcd_mixture_binaries (bit for bit for estimated pairs; to

@@ -684,6 +684,63 @@ class Fluxes(unittest.TestCase):
                 for r in d["zero_sum_residual"]:
                     self.assertLessEqual(abs(r), 1e-15)
 
+    def test_method_recommended_and_brokaw_per_pair(self):
+        # --method recommended: each pair the method `binary` recommends for
+        # it (water, 1.8 debye, is polar: brokaw; air/methane: fsg), with
+        # binary's value and typical error for that pair; the tables name
+        # each pair's method. --method brokaw: every pair by Brokaw.
+        state = ["-s", "water,air,methane", "-x", "0.1,0.7,0.2",
+                 "-T", "313.15", "-P", "1atm"]
+        for cmd, extra in (("fluxes", ["-g", "1,-0.5,-0.5"]), ("matrix", [])):
+            with self.subTest(cmd=cmd):
+                d = run_json(cmd, *state, *extra, "--method", "recommended")
+                src = d["binary_source"]
+                self.assertEqual(src[0][1], "brokaw")
+                self.assertEqual(src[2][0], "brokaw")
+                self.assertEqual(src[1][2], "fsg")
+                for i, j in ((0, 1), (0, 2), (1, 2)):
+                    names = d["species"]
+                    b = run_json("binary", names[i], names[j], "-T",
+                                 "313.15", "-P", "1atm", "--method",
+                                 src[i][j])
+                    self.assertEqual(d["binary_D"][i][j], b["D"])
+                    self.assertEqual(d["binary_typical_error"][i][j],
+                                     b["typical_error"])
+                    # and `binary` alone recommends that same method
+                    r = run_json("binary", names[i], names[j], "-T",
+                                 "313.15", "-P", "1atm")
+                    self.assertEqual(r["method"], src[i][j])
+                d = run_json(cmd, *state, *extra, "--method", "brokaw")
+                self.assertEqual({m for row in d["binary_source"]
+                                  for m in row if m}, {"brokaw"})
+        code, out, _ = run("fluxes", *state, "-g", "1,-0.5,-0.5", "-m",
+                           "recommended", "--pair", "air:methane=0.22cm2/s")
+        self.assertEqual(code, 0)
+        # the text table's last column names each pair's method
+        rows = {tuple(ln.split()[0:3:2]): ln.split()[-1]
+                for ln in out.splitlines()
+                if ln.startswith("  ") and " / " in ln
+                and not ln.strip().startswith("warning")}
+        self.assertEqual(rows.get(("water", "air")), "brokaw")
+        self.assertEqual(rows.get(("air", "methane")), "given")
+        # a polar species without Brokaw's data (CO2 has no Tb): fsg
+        d = run_json("matrix", "-s", "ammonia,carbon-dioxide,nitrogen", "-x",
+                     "0.2,0.3,0.5", "-T", "300", "-P", "1atm", "--method",
+                     "recommended")
+        self.assertEqual(d["binary_source"][0][1], "fsg")
+        self.assertEqual(d["binary_source"][0][2], "brokaw")
+        code, _, err = run("fluxes", *state, "-g", "1,-0.5,-0.5", "-m",
+                           "wilke-chang")
+        self.assertEqual(code, 2)
+        self.assertIn("recommended", err)
+        # Brokaw needs CO2's Tb: the error names the pair and the parameter
+        code, _, err = run("matrix", "-s", "ammonia,carbon-dioxide", "-x",
+                           "0.5,0.5", "-T", "300", "-P", "1atm", "-m",
+                           "brokaw")
+        self.assertEqual(code, 1)
+        self.assertIn("carbon-dioxide", err)
+        self.assertIn("Tb", err)
+
     def test_mass_fraction_input(self):
         d = run_json("fluxes", "-s", "CO2,N2,water", "-w", "0.3,0.6,0.1",
                      "-g", "2,-1,-1", "-T", "400", "-P", "2bar")
@@ -798,6 +855,62 @@ class Fluxes(unittest.TestCase):
         self.assertEqual(code, 0)
         self.assertIn("far less accurate", out)
         self.assertIn("typical error 30 %", out)
+
+    def test_binary_thermal_factor(self):
+        # `binary --thermal-factor X_A`: alpha_T of the pair in the first
+        # Chapman-Enskog approximation (mcd_db_thermal_factor). Checks:
+        # argon, the heavier, goes to the cold side (alpha_T > 0: "the
+        # heavier and larger molecules diffusing towards the cooler side",
+        # T. L. Ibbs, "Some Experiments on Thermal Diffusion", 1921,
+        # p. 385, stored copy at archive.org); exchanging the species
+        # changes the sign only; k_T = x_A x_B alpha_T equals the mixture
+        # route of `fluxes --thermal-ratios estimate` for the same pair
+        # (exact for two species; the same arithmetic up to rounding,
+        # 1e-15 absolute on values of order 0.1); the typical error and the
+        # caution are printed in text and JSON.
+        base = ("-T", "300", "-P", "1atm", "--method", "chapman-enskog")
+        for xa in (0.5, 0.2):
+            d = run_json("binary", "argon", "helium", *base,
+                         "--thermal-factor", repr(xa))
+            t = d["thermal_diffusion"]
+            self.assertEqual(t["x_A"], xa)
+            self.assertGreater(t["alpha_T"], 0.0)
+            self.assertAlmostEqual(t["k_T"], xa * (1 - xa) * t["alpha_T"],
+                                   delta=1e-16)
+            self.assertGreaterEqual(t["typical_error"], 0.2)
+            self.assertIn("far less accurate", t["caution"])
+            swapped = run_json("binary", "helium", "argon", *base,
+                               "--thermal-factor", repr(1 - xa))
+            self.assertAlmostEqual(swapped["thermal_diffusion"]["alpha_T"],
+                                   -t["alpha_T"], delta=1e-15)
+            f = run_json("fluxes", "-s", "argon,helium", "-x",
+                         f"{xa!r},{1 - xa!r}", "-g", "-20,20", "-T", "300",
+                         "-P", "1atm", "--thermal-ratios", "estimate",
+                         "--temperature-gradient", "1000")
+            self.assertAlmostEqual(f["thermal_ratios"][0], t["k_T"],
+                                   delta=1e-15)
+        code, out, _ = run("binary", "argon", "helium", *base,
+                           "--thermal-factor", "0.5")
+        self.assertEqual(code, 0)
+        for text in ("alpha_T", "typical error 20 %", "far less accurate",
+                     "argon moves to the cold side"):
+            self.assertIn(text, out)
+        for bad in (("--thermal-factor", "1.5"), ("--thermal-factor", "-0.1"),
+                    ("--thermal-factor", "half"),
+                    ("--thermal-factor", "0.5", "--csv")):
+            code, _, err = run("binary", "argon", "helium", *base, *bad)
+            self.assertEqual(code, 2, bad)
+            self.assertIn("--thermal-factor", err)
+        code, _, err = run("binary", "ethanol", "water", "-T", "25C",
+                           "--viscosity", "0.89cP", "--thermal-factor", "0.5")
+        self.assertEqual(code, 2)
+        self.assertIn("gases only", err)
+        # a species without Lennard-Jones parameters: a failed estimate
+        code, out, err = run("binary", "hydroperoxyl", "nitrogen", "-T",
+                             "300", "-P", "1atm", "--thermal-factor", "0.5")
+        self.assertEqual(code, 1)
+        self.assertEqual(out, "")
+        self.assertIn("thermal diffusion factor", err)
 
     def test_pair_in_cm2_per_s_and_scaled(self):
         a = run_json("fluxes", *STATE3, "-g", "1,0,-1", "--pair",

@@ -184,6 +184,39 @@ class Binaries(unittest.TestCase):
             air[Tb]))
         self.assertFalse(br.warnings & mcdiff.EstimateWarning.POLAR)
 
+    def test_mixture_recommended_and_brokaw_pairs(self):
+        # MCD_GAS_RECOMMENDED: water (polar) pairs take Brokaw's correction
+        # and give the database pair's Brokaw value (same parameters, same
+        # expression: equal); nitrogen/air (nonpolar) takes fsg.
+        db = self.db
+        T, P = 313.15, 101325.0
+        names = ["water", "air", "nitrogen"]
+        for how in ("recommended", mcdiff.GasMethod.RECOMMENDED, 100):
+            mix = db.mixture(names, how)
+            self.assertEqual(mix.pair_method(0, 1), mcdiff.Method.BROKAW)
+            self.assertEqual(mix.pair_method("nitrogen", "water"),
+                             mcdiff.Method.BROKAW)
+            self.assertEqual(mix.pair_method(2, 1), mcdiff.Method.FSG)
+            D = mix.binaries(T, P)
+            self.assertEqual(D[0][1], db.binary_gas("water", "air", "brokaw",
+                                                    T, P).D)
+            self.assertEqual(D[1][2], db.binary_gas("air", "nitrogen", "fsg",
+                                                    T, P).D)
+            mix.close()
+        # Brokaw as the default and per pair; a given value reads as user
+        mix = db.mixture(names, "brokaw")
+        self.assertEqual(mix.pair_method(1, 2), mcdiff.Method.BROKAW)
+        mix.set_method(1, 2, "recommended")
+        self.assertEqual(mix.pair_method(1, 2), mcdiff.Method.FSG)
+        mix.set_binary(0, 2, 2.5e-5, T)  # any value: only its method is read
+        self.assertEqual(mix.pair_method(2, 0), mcdiff.Method.USER)
+        with self.assertRaises(mcdiff.McdError):
+            mix.pair_method(1, 1)
+        mix.close()
+        # a database pair refuses the per-pair choice
+        with self.assertRaises(mcdiff.McdError):
+            db.binary_gas("water", "air", "recommended", T, P)
+
     def test_fsg_equation(self):
         # Fuller, Schettler and Giddings (1966): D = 1.00e-3 T^1.75
         # (1/M_A + 1/M_B)^0.5 / (P (V_A^(1/3) + V_B^(1/3))^2) cm^2/s, P in
@@ -1004,6 +1037,23 @@ class Porous(unittest.TestCase):
                                     [[1.0], [-1.0]])
         self.assertAlmostEqual(flat(q)[0], 0.4 * 8.31446261815324 * 300,
                                delta=1e-9)
+        # batched (cells last) = the single-state call per cell, exactly
+        xb = [[0.3, 0.0], [0.7, 1.0]]
+        thb = [[0.21, 0.35], [-0.09, 0.0]]
+        fb = [[[1e-3, 5e-4], [-2e-3, 0.0]], [[-1e-3, -5e-4], [2e-3, 0.0]]]
+        Mb = [0.04, 0.004]
+        qb = rows(mcdiff.dufour_heat_flux_batch(xb, thb, [300.0, 1250.0], fb,
+                                                M=Mb, flux_basis="mass"))
+        for k, T in enumerate((300.0, 1250.0)):
+            q1 = flat(mcdiff.dufour_heat_flux(
+                [xb[0][k], xb[1][k]], [thb[0][k], thb[1][k]], T,
+                [[fb[i][d][k] for d in range(2)] for i in range(2)], M=Mb,
+                flux_basis="mass"))
+            self.assertEqual([qb[0][k], qb[1][k]], q1)
+        self.assertNotEqual(qb[0][1], 0.0)
+        with self.assertRaises(mcdiff.DomainError):
+            mcdiff.dufour_heat_flux_batch(xb, thb, [300.0, -1.0], fb, M=Mb,
+                                          flux_basis="mass")
         with self.assertRaises(mcdiff.DomainError):
             mcdiff.lj_collision_integrals(0.1)
 

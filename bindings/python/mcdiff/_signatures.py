@@ -162,6 +162,8 @@ SIGNATURES = {
     "mcd_mixture_molar_masses": (_ST, [_H, _PD]),
     # (mix, i, j, m)
     "mcd_mixture_set_method": (_ST, [_H, _SZ, _SZ, _E]),
+    # (mix, i, j, out_method)
+    "mcd_mixture_pair_method": (_ST, [_H, _SZ, _SZ, _PI]),
     # (mix, i, j, D, T_ref, P_ref)
     "mcd_mixture_set_binary": (_ST, [_H, _SZ, _SZ, _D, _D, _D]),
     # (mix, T, P, out_D, out_rel_err, out_warn)
@@ -213,6 +215,9 @@ SIGNATURES = {
                                    _PD]),
     # (n_species, n_dim, x, M, theta, T, flux_basis, flux, out_q)
     "mcd_dufour_heat_flux": (_ST, [_SZ, _SZ, _PD, _PD, _PD, _D, _E, _PD, _PD]),
+    # (n_species, n_cells, n_dim, x, M, theta, T, flux_basis, flux, out_q)
+    "mcd_dufour_heat_flux_batch": (_ST, [_SZ, _SZ, _SZ, _PD, _PD, _PD, _PD, _E,
+                                         _PD, _PD]),
     # (ws, state, DT, out_kT)
     "mcd_thermal_ratios": (_ST, [_H, _H, _PD, _PD]),
     # (ws, state, basis, dependent, out_D, out_dependent)

@@ -59,6 +59,7 @@ __all__ = [
     # thermal diffusion from kinetic theory
     "lj_collision_integrals", "thermal_factor_kinetic", "thermal_factor_ce",
     "thermal_factor", "mixture_thermal_ratios", "dufour_heat_flux",
+    "dufour_heat_flux_batch",
     "ThermalEstimate", "ThermalRatios", "CollisionIntegrals",
     "THERMAL_CE_TYPICAL_ERROR",
     # porous media
@@ -1299,6 +1300,40 @@ def dufour_heat_flux(x, theta, T, flux, *, M=None, flux_basis="mole"):
     _check(lib.mcd_dufour_heat_flux(n, nd, xx.ptr, m.ptr if m else None,
                                     th.ptr, _sc(T, "T"), fb, fm.ptr, o.ptr),
            "mcd_dufour_heat_flux")
+    return o.result()
+
+
+def dufour_heat_flux_batch(x, theta, T, flux, *, M=None, flux_basis="mole"):
+    """Dufour heat flux of K cells (mcd_dufour_heat_flux_batch, cells
+    last as flux_batch_dij): x and theta (N, K), T (K,) [K] or a scalar,
+    flux (N, n_dim, K) or (N, K) for one direction (as flux_batch_dij
+    returns it; mass fluxes with flux_basis="mass" and M (N,) [kg/mol]).
+    Returns q_D [W/m^2] of shape (n_dim, K), or (K,) when flux is
+    (N, K). Each cell equals dufour_heat_flux of that cell to the bit."""
+    fb = coerce(Basis, flux_basis, "flux_basis")
+    xa = _arrays.as_doubles(x, "x")
+    if xa.ndim != 2:
+        raise ValueError("x: expected shape (N, K), got %s" % (xa.shape,))
+    n, K = xa.shape
+    th = _arrays.matrix(theta, n, K, "theta")
+    if isinstance(T, (int, float)):
+        T = [float(T)] * K
+    tt = _arrays.vector(T, K, "T")
+    f = _arrays.as_doubles(flux, "flux")
+    one_dim = f.ndim == 2
+    if one_dim:
+        nd = 1
+    elif f.ndim == 3 and f.shape[0] == n and f.shape[2] == K:
+        nd = f.shape[1]
+    else:
+        raise ValueError("flux: expected shape (N, n_dim, K) or (N, K) with "
+                         "N = %d, K = %d, got %s" % (n, K, f.shape))
+    m = _arrays.vector(M, n, "M") if M is not None else None
+    o = _arrays.Output((K,) if one_dim else (nd, K))
+    _check(lib.mcd_dufour_heat_flux_batch(n, K, nd, xa.ptr,
+                                          m.ptr if m else None, th.ptr,
+                                          tt.ptr, fb, f.ptr, o.ptr),
+           "mcd_dufour_heat_flux_batch")
     return o.result()
 
 

@@ -61,11 +61,15 @@ class Method(enum.IntEnum):
 
 class GasMethod(enum.IntEnum):
     """Gas-phase correlation of a pair (mcd_gas_method); equal to the Method
-    of the same name."""
+    of the same name. RECOMMENDED (mixtures only) gives each pair the method
+    `mcdiff binary` recommends for it: BROKAW for a polar pair with Brokaw's
+    data, else the first of FSG, CHAPMAN_ENSKOG, WILKE_LEE that applies;
+    Mixture.pair_method tells which."""
     FSG = 1
     CHAPMAN_ENSKOG = 2
     WILKE_LEE = 3
     BROKAW = 8
+    RECOMMENDED = 100
 
 
 class Basis(enum.IntEnum):

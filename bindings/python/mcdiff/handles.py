@@ -446,6 +446,17 @@ class Mixture(_Handle):
         if st:
             _raise(st, "mcd_mixture_set_method", "pair (%s, %s)" % (i, j))
 
+    def pair_method(self, i, j):
+        """The Method pair (i, j) is estimated by: the one set, the one
+        GasMethod.RECOMMENDED picked for it, or Method.USER for a value
+        given with set_binary (mcd_mixture_pair_method)."""
+        out = ctypes.c_int()
+        st = lib.mcd_mixture_pair_method(self._p(), self.index(i),
+                                         self.index(j), ctypes.byref(out))
+        if st:
+            _raise(st, "mcd_mixture_pair_method", "pair (%s, %s)" % (i, j))
+        return Method(out.value)
+
     def set_binary(self, i, j, D, T_ref, P_ref=101325.0):
         """A measured binary diffusivity D [m^2/s] at (T_ref [K], P_ref
         [Pa]) for pair (i, j), scaled as (T/T_ref)^1.75 (P_ref/P)."""
@@ -484,7 +495,7 @@ class Mixture(_Handle):
         return BinaryMatrices(d.result(), r.result(), warns)
 
     def set_temperature_fit(self, T_min, T_max):
-        """Let batched calls evaluate Chapman-Enskog and Wilke-Lee pairs
+        """Let batched calls evaluate Chapman-Enskog, Wilke-Lee and Brokaw pairs
         from a fit over [T_min, T_max] [K]; returns the fit's largest
         relative error on the diffusivities. (0, 0) removes the fit."""
         err = ctypes.c_double()
