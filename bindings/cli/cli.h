@@ -121,6 +121,12 @@ int cli_parse_length(const char *text, double *out, char *why, size_t whylen);
 int cli_parse_area(const char *text, double *out, char *why, size_t whylen);
 /* Volume: bare = m^3; suffixes "m3", "L", "mL", "cm3". Must be > 0. */
 int cli_parse_volume(const char *text, double *out, char *why, size_t whylen);
+/* Concentration: bare = mol/m^3; suffixes "mol/m3", "kmol/m3", "mol/L".
+ * Density: bare = kg/m^3; suffixes "kg/m3", "g/cm3", "kg/L", "g/L". Both
+ * must be > 0. */
+int cli_parse_concentration(const char *text, double *out, char *why,
+                            size_t whylen);
+int cli_parse_density(const char *text, double *out, char *why, size_t whylen);
 /* Time: bare = s; suffixes "s", "min", "h". Must be >= 0. */
 int cli_parse_time(const char *text, double *out, char *why, size_t whylen);
 /* Times: a comma-separated list of times, non-decreasing, or
@@ -309,7 +315,20 @@ typedef struct cli_state {
        printed on stderr when found, listed as "input_warnings" in JSON */
     char notes[8][400];
     size_t n_notes;
+    /* set by commands that use the state without a gas mixture (liquid) */
+    const char *pair_opt; /* the option of s->pairs in messages (NULL:
+                             "--pair") */
+    int volume_frame;     /* out_basis MOLE relative to the volume-average
+                             velocity (liquid --basis volume) */
 } cli_state;
+/* The option named for s->pairs in messages. */
+#define cli_pair_opt(s) ((s)->pair_opt ? (s)->pair_opt : "--pair")
+/* Display name of species i: the mixture's name, or s->names[i] when
+ * the state has no mixture. */
+const char *cli_state_name(const cli_state *s, size_t i);
+/* Gradients of fractions must sum to zero: project them (g_i -= f_i sum_k
+ * g_k, f = s->x or s->w per comp_basis) with a warning when they do not. */
+void cli_state_project_gradients(cli_state *s, const char *cmd);
 /* The usage error for fractions v[n] that mcd_comp_normalize refused
  * (status st): what is required and what they sum to. CLI_USAGE. */
 int cli_fractions_error(const char *cmd, const char *opt, mcd_status st,

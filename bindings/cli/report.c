@@ -6,6 +6,11 @@
 #include <string.h>
 #include "cli.h"
 
+const char *cli_state_name(const cli_state *s, size_t i)
+{
+    return s->mix ? mcd_mixture_name(s->mix, i) : s->names[i];
+}
+
 const char *cli_flux_unit(mcd_basis b)
 {
     return b == MCD_BASIS_MOLE ? "mol/(m^2 s)" : "kg/(m^2 s)";
@@ -53,8 +58,9 @@ void cli_print_fick(const cli_state *s, const double *D, size_t dep, FILE *f)
     fprintf(f,
             "generalized Fick matrix [m^2/s] (exact; dependent species "
             "%s),\n  %s:\n",
-            mcd_mixture_name(s->mix, dep),
-            s->out_basis == MCD_BASIS_MOLE
+            cli_state_name(s, dep),
+            s->volume_frame ? "J^V = -c [D^V] grad x, volume-average frame"
+            : s->out_basis == MCD_BASIS_MOLE
                 ? "J = -c [D] grad x, molar-average frame"
                 : "j = -rho [D] grad w, mass-average frame");
     if (m + 1 > CLI_TABLE_MAX_COLS) {
@@ -67,12 +73,12 @@ void cli_print_fick(const cli_state *s, const double *D, size_t dep, FILE *f)
     cells[0] = "";
     for (i = 0, c = 1; i < n; i++)
         if (i != dep)
-            cells[c++] = mcd_mixture_name(s->mix, i);
+            cells[c++] = cli_state_name(s, i);
     cli_table_row(&t, cells);
     for (i = 0, r = 0; i < n; i++) {
         if (i == dep)
             continue;
-        cells[0] = mcd_mixture_name(s->mix, i);
+        cells[0] = cli_state_name(s, i);
         for (k = 0; k < m; k++) {
             snprintf(buf[k], sizeof buf[k], "%.4e", D[r * m + k]);
             cells[k + 1] = buf[k];
@@ -94,9 +100,9 @@ void cli_json_fick(const cli_state *s, const double *D, size_t dep, cli_json *j)
     cli_json_array_begin(j, "fick_species");
     for (i = 0; i < n; i++)
         if (i != dep)
-            cli_json_string(j, NULL, mcd_mixture_name(s->mix, i));
+            cli_json_string(j, NULL, cli_state_name(s, i));
     cli_json_array_end(j);
-    cli_json_string(j, "fick_dependent", mcd_mixture_name(s->mix, dep));
+    cli_json_string(j, "fick_dependent", cli_state_name(s, dep));
 }
 
 void cli_zero_sum(size_t n, size_t n_dim, const double *flux, double *sum,
@@ -164,7 +170,7 @@ void cli_print_fluxes(const cli_state *s, const double *flux,
     cells[nc - 1] = "flags";
     cli_table_row(&t, cells);
     for (i = 0; i < n; i++) {
-        cells[0] = mcd_mixture_name(s->mix, i);
+        cells[0] = cli_state_name(s, i);
         snprintf(buf[0], sizeof buf[0], "%.5g", s->comp[i]);
         cells[1] = buf[0];
         for (d = 0; d < nd; d++) {
@@ -194,10 +200,12 @@ void cli_print_fluxes(const cli_state *s, const double *flux,
     cli_table_row(&t, cells);
     cli_table_print(&t, f, "  ");
     cli_table_free(&t);
-    fprintf(f, "zero-sum residual (sum over species / largest |%s|):", sym);
-    for (d = 0; d < nd; d++)
-        fprintf(f, " %.1e", rel[d]);
-    fprintf(f, "\n");
+    if (!s->volume_frame) { /* the volume frame has its own sum */
+        fprintf(f, "zero-sum residual (sum over species / largest |%s|):", sym);
+        for (d = 0; d < nd; d++)
+            fprintf(f, " %.1e", rel[d]);
+        fprintf(f, "\n");
+    }
     if (flags)
         fprintf(f, "flags: reverse = flux up its own gradient, osmotic = "
                    "flux without own gradient,\n       barrier = no flux "
@@ -250,7 +258,7 @@ void cli_csv_fluxes(const cli_state *s, const double *flux,
         cli_csv_text(&c, "flags");
     cli_csv_end_row(&c);
     for (i = 0; i < n; i++) {
-        cli_csv_text(&c, mcd_mixture_name(s->mix, i));
+        cli_csv_text(&c, cli_state_name(s, i));
         cli_csv_number(&c, s->comp[i]);
         for (d = 0; d < nd; d++)
             cli_csv_number(&c, s->grad[i * nd + d]);

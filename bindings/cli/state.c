@@ -73,7 +73,7 @@ void cli_state_note(cli_state *s, const char *cmd, const char *fmt, ...)
 /* Gradients of fractions that sum to one sum to zero. Other ones are used
  * as the library uses them, projected (g_i -= f_i sum_k g_k, f the
  * fractions): say so and show the projected values. */
-static void project_gradients(cli_state *s, const char *cmd)
+void cli_state_project_gradients(cli_state *s, const char *cmd)
 {
     const double *f = s->comp_basis == MCD_BASIS_MOLE ? s->x : s->w;
     size_t n = s->n, nd = s->n_dim, d, k;
@@ -208,7 +208,8 @@ int cli_state_option(cli_state *s, const char *cmd, const cli_args *a, int id)
         strcpy(copy, a->value);
         s->pair_bufs[s->n_pairs++] = copy; /* freed by cli_state_free */
         if (parse_pair(copy, &s->pairs[s->n_pairs - 1], why, sizeof why) != 0)
-            return cli_usage_error(cmd, "--pair", "'%s': %s", a->value, why);
+            return cli_usage_error(cmd, cli_pair_opt(s), "'%s': %s", a->value,
+                                   why);
         return CLI_OK;
     }
     default: return CLI_USAGE;
@@ -478,21 +479,21 @@ int cli_state_setup(cli_state *s, const char *cmd)
         long pa, pb;
         if (mcd_db_find(s->db, p->a, &ia) != MCD_OK ||
             (pa = list_position(s, ia)) < 0)
-            return cli_usage_error(cmd, "--pair",
+            return cli_usage_error(cmd, cli_pair_opt(s),
                                    "'%s': '%s' is not in the species list",
                                    p->text, p->a);
         if (mcd_db_find(s->db, p->b, &ib) != MCD_OK ||
             (pb = list_position(s, ib)) < 0)
-            return cli_usage_error(cmd, "--pair",
+            return cli_usage_error(cmd, cli_pair_opt(s),
                                    "'%s': '%s' is not in the species list",
                                    p->text, p->b);
         if (pa == pb)
-            return cli_usage_error(cmd, "--pair",
+            return cli_usage_error(cmd, cli_pair_opt(s),
                                    "'%s': a pair needs two different species",
                                    p->text);
         if (s->user_pair[(size_t)pa * n + (size_t)pb])
-            return cli_usage_error(cmd, "--pair", "'%s': pair given twice",
-                                   p->text);
+            return cli_usage_error(cmd, cli_pair_opt(s),
+                                   "'%s': pair given twice", p->text);
         if (cli_implausible_gas_D(strchr(p->text, '=') + 1, p->D,
                                   isnan(p->P_ref) ? s->P : p->P_ref, err,
                                   sizeof err))
@@ -500,8 +501,11 @@ int cli_state_setup(cli_state *s, const char *cmd)
         st = mcd_mixture_set_binary(s->mix, (size_t)pa, (size_t)pb, p->D,
                                     isnan(p->T_ref) ? s->T : p->T_ref,
                                     isnan(p->P_ref) ? s->P : p->P_ref);
-        if (st != MCD_OK)
-            return cli_fail(cmd, "setting --pair", st, p->text);
+        if (st != MCD_OK) {
+            char what[64];
+            snprintf(what, sizeof what, "setting %s", cli_pair_opt(s));
+            return cli_fail(cmd, what, st, p->text);
+        }
         s->user_pair[(size_t)pa * n + (size_t)pb] = 1;
         s->user_pair[(size_t)pb * n + (size_t)pa] = 1;
     }
@@ -544,7 +548,7 @@ int cli_state_setup(cli_state *s, const char *cmd)
     if (st != MCD_OK)
         return cli_fail(cmd, "converting the composition", st, NULL);
     if (s->n_dim > 0 && s->grad)
-        project_gradients(s, cmd);
+        cli_state_project_gradients(s, cmd);
 
     st = mcd_comp_ideal_gas_c(s->T, s->P, &s->c);
     if (st != MCD_OK)

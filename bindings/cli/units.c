@@ -146,6 +146,13 @@ int cli_is_unit_word(const char *text)
                                         "Pa.s",
                                         "mPa.s",
                                         "cP",
+                                        "mol/m3",
+                                        "kmol/m3",
+                                        "mol/L",
+                                        "kg/m3",
+                                        "g/cm3",
+                                        "kg/L",
+                                        "g/L",
                                         NULL};
     size_t k;
     for (k = 0; words[k]; k++)
@@ -348,6 +355,30 @@ int cli_parse_volume(const char *text, double *out, char *why, size_t whylen)
                                      {NULL, 0, 0}};
     return parse_positive(text, units, "volume", "m3, L, mL or cm3; bare = m3",
                           out, why, whylen);
+}
+
+int cli_parse_concentration(const char *text, double *out, char *why,
+                            size_t whylen)
+{
+    static const unit_def units[] = {{"mol/m3", 1.0, 0.0},
+                                     {"kmol/m3", 1e3, 0.0},
+                                     {"mol/L", 1e3, 0.0},
+                                     {NULL, 0, 0}};
+    return parse_positive(text, units, "concentration",
+                          "mol/m3, kmol/m3 or mol/L; bare = mol/m3", out, why,
+                          whylen);
+}
+
+int cli_parse_density(const char *text, double *out, char *why, size_t whylen)
+{
+    static const unit_def units[] = {{"kg/m3", 1.0, 0.0},
+                                     {"g/cm3", 1e3, 0.0},
+                                     {"kg/L", 1e3, 0.0},
+                                     {"g/L", 1.0, 0.0},
+                                     {NULL, 0, 0}};
+    return parse_positive(text, units, "density",
+                          "kg/m3, g/cm3, kg/L or g/L; bare = kg/m3", out, why,
+                          whylen);
 }
 
 int cli_parse_time(const char *text, double *out, char *why, size_t whylen)

@@ -1853,6 +1853,517 @@ class Liquid(unittest.TestCase):
                 self.assertTrue(err.startswith("mcdiff liquid:"), err)
 
 
+EXAMPLE_LIQUID = os.path.join(
+    os.path.dirname(os.path.abspath(__file__)), "..", "..", "examples",
+    "liquid-methanol-water.txt")
+
+
+def solve(A, b):
+    """Gaussian elimination with partial pivoting (the test's own solver)."""
+    n = len(b)
+    M = [list(A[i]) + [b[i]] for i in range(n)]
+    for k in range(n):
+        p = max(range(k, n), key=lambda r: abs(M[r][k]))
+        M[k], M[p] = M[p], M[k]
+        for r in range(k + 1, n):
+            f = M[r][k] / M[k][k]
+            for c in range(k, n + 1):
+                M[r][c] -= f * M[k][c]
+    x = [0.0] * n
+    for k in reversed(range(n)):
+        x[k] = (M[k][n] - sum(M[k][c] * x[c] for c in range(k + 1, n))) / \
+            M[k][k]
+    return x
+
+
+def ms_fluxes(c, x, D, G, g):
+    """Molar diffusion fluxes J (one direction) of the Maxwell-Stefan
+    equations d_i = sum_j G_ij g_j = sum_{j != i} (x_i J_j - x_j J_i) /
+    (c D_ij), sum J = 0 (Taylor and Krishna 1993, ch. 2; common practice),
+    solved here for J_1..J_{n-1} with J_n = -sum: independent of the
+    library's symmetric solver."""
+    n = len(x)
+    d = [sum(G[i][j] * g[j] for j in range(n)) for i in range(n)]
+
+    def resid(u):
+        J = list(u) + [-sum(u)]
+        return [sum((x[i] * J[j] - x[j] * J[i]) / (c * D[i][j])
+                    for j in range(n) if j != i) for i in range(n - 1)]
+    cols = [resid([1.0 if k == m else 0.0 for k in range(n - 1)])
+            for m in range(n - 1)]
+    A = [[cols[m][i] for m in range(n - 1)] for i in range(n - 1)]
+    u = solve(A, d[:n - 1])
+    return u + [-sum(u)]
+
+
+def write_params(text):
+    f = tempfile.NamedTemporaryFile("w", suffix=".txt", delete=False)
+    f.write(text)
+    f.close()
+    return f.name
+
+
+# Three species with arbitrary NRTL parameters and diffusivities: the
+# checks below are identities, no outside data.
+PARAMS3 = """# arbitrary parameters for identity checks
+model nrtl
+species acetone    M=58.08g/mol
+species methanol   M=32.042g/mol
+species water      M=18.015g/mol
+pair acetone methanol  a12=0.3 a21=0.2 b12=10 alpha=0.3
+pair acetone water     a12=0.6 a21=0.9 alpha=0.3 range=280K..350K
+pair methanol water    b12=-50 b21=120 e12=0 alpha=0.3
+dinf acetone methanol  D12=2.1e-9m2/s D21=2.6e-9m2/s
+dinf acetone water     D12=1.2e-9m2/s D21=1.7e-9m2/s
+dinf methanol water    D12=1.5e-5cm2/s D21=2.0e-5cm2/s
+"""
+
+
+class LiquidFluxes(unittest.TestCase):
+    """mcdiff liquid -g: fluxes of a liquid with its Gamma and Đ."""
+
+    @classmethod
+    def setUpClass(cls):
+        cls.f3 = write_params(PARAMS3)
+
+    @classmethod
+    def tearDownClass(cls):
+        os.unlink(cls.f3)
+
+    def test_binary_margules_closed_form(self):
+        # NRTL with alpha = 0 is the two-suffix Margules equation (Renon
+        # and Prausnitz 1968): ln gamma_1 = A x_2^2 with A = tau_12 +
+        # tau_21 = 2, so the reduced thermodynamic factor is 1 - 2 A x_1
+        # x_2; Vignes (1966): Đ = D12^x2 D21^x1. Binary Maxwell-Stefan:
+        # J_1 = -c Đ Gamma dx_1/dz (common practice). All independent of
+        # the library; 1e-12 relative is round-off of a few operations.
+        for x1, g1, c in ((0.3, -100.0, 4e4), (0.85, 37.0, 1.1e4),
+                          (0.1, 2.5e3, 5.5e4)):
+            with self.subTest(x1=x1):
+                d = run_json("liquid", "-x", f"{x1},{1 - x1}", "-T", "300",
+                             "--pair", "1:2=1,0,0,1,0,0,0", "--dinf",
+                             "1:2=2e-9,1e-9", "-g", f"{g1},{-g1}",
+                             "--concentration", f"{c}")
+                Gam = 1 - 4 * x1 * (1 - x1)
+                Dv = 2e-9 ** (1 - x1) * 1e-9 ** x1
+                want = -c * Dv * Gam * g1
+                self.assertAlmostEqual(d["fluxes"][0][0] / want, 1.0,
+                                       delta=1e-12)
+                self.assertAlmostEqual(d["fluxes"][1][0] / -want, 1.0,
+                                       delta=1e-12)
+                self.assertAlmostEqual(d["fick_matrix"][0][0] / (Dv * Gam),
+                                       1.0, delta=1e-12)
+                self.assertEqual(d["c_from"], "--concentration")
+
+    def test_ternary_fluxes_solve_the_maxwell_stefan_equations(self):
+        # the printed Gamma and Đ put into the Maxwell-Stefan equations and
+        # solved by the test's own elimination give the printed fluxes;
+        # two directions, zero-sum; the Fick matrix reproduces them.
+        # Tolerance 1e-10 of the largest flux: round-off of two different
+        # solutions of a well-conditioned 2 x 2 system.
+        g = [[-40.0, 15.0], [65.0, -5.0], [-25.0, -10.0]]
+        x = [0.2, 0.3, 0.5]
+        d = run_json("liquid", "--params", self.f3, "-x", "0.2,0.3,0.5",
+                     "-T", "310", "-g", "-40,65,-25", "-g", "15,-5,-10",
+                     "--concentration", "30mol/L")
+        self.assertAlmostEqual(d["c"], 3e4, delta=1e-9)
+        self.assertEqual(d["species"], ["acetone", "methanol", "water"])
+        self.assertEqual(d["fick_dependent"], "water")  # most abundant
+        F = d["fluxes"]
+        big = max(abs(v) for row in F for v in row)
+        self.assertGreater(big, 0.0)
+        for k in range(2):
+            want = ms_fluxes(3e4, x, d["Dij"], d["Gamma"],
+                             [g[i][k] for i in range(3)])
+            for i in range(3):
+                self.assertAlmostEqual(F[i][k], want[i], delta=1e-10 * big)
+            self.assertLessEqual(abs(sum(F[i][k] for i in range(3))),
+                                 1e-14 * big)
+            Dm = d["fick_matrix"]
+            for r in range(2):
+                J = -3e4 * sum(Dm[r][m] * g[m][k] for m in range(2))
+                self.assertAlmostEqual(F[r][k], J, delta=1e-10 * big)
+        # Gamma is not the identity here: ideal fluxes would differ
+        ideal = ms_fluxes(3e4, x, d["Dij"], [[1, 0, 0], [0, 1, 0],
+                                               [0, 0, 1]], [-40, 65, -25])
+        self.assertGreater(max(abs(ideal[i] - F[i][0]) for i in range(3)),
+                           1e-3 * big)
+
+    def test_mass_basis_and_volume_frame_are_the_frame_changes(self):
+        # j_i = M_i J_i - w_i sum_k M_k J_k and J^V_i = J_i - c x_i sum_k
+        # Vbar_k J_k (Taylor and Krishna 1993, ch. 1; common practice);
+        # c from --density is rho / sum x_i M_i, from --partial-volumes
+        # 1 / sum x_i Vbar_i (definitions)
+        x = [0.2, 0.3, 0.5]
+        M = [0.05808, 0.032042, 0.018015]
+        V = [74e-6, 40.7e-6, 18.1e-6]
+        base = ["liquid", "--params", self.f3, "-x", "0.2,0.3,0.5", "-T",
+                "310", "-g", "-40,65,-25"]
+        rho = 880.0
+        cr = rho / sum(x[i] * M[i] for i in range(3))
+        mole = run_json(*base, "--density", f"{rho}")
+        mass = run_json(*base, "--density", "0.88g/cm3", "--basis", "mass")
+        self.assertAlmostEqual(mole["c"] / cr, 1.0, delta=1e-14)
+        self.assertEqual(mole["M"], M)
+        J = [r[0] for r in mole["fluxes"]]
+        Mbar = sum(x[i] * M[i] for i in range(3))
+        w = [x[i] * M[i] / Mbar for i in range(3)]
+        S = sum(M[k] * J[k] for k in range(3))
+        big = max(abs(M[i] * J[i]) for i in range(3))
+        for i in range(3):
+            self.assertAlmostEqual(mass["fluxes"][i][0], M[i] * J[i] -
+                                   w[i] * S, delta=1e-12 * big)
+        self.assertEqual(mass["frame"], "mass-average")
+        cv = 1 / sum(x[i] * V[i] for i in range(3))
+        vs = ",".join(f"{v}" for v in V)
+        mol2 = run_json(*base, "--partial-volumes", vs)
+        vol = run_json(*base, "--partial-volumes", vs, "--basis", "volume")
+        self.assertAlmostEqual(vol["c"] / cv, 1.0, delta=1e-14)
+        self.assertEqual(vol["frame"], "volume-average")
+        J = [r[0] for r in mol2["fluxes"]]
+        SV = sum(V[k] * J[k] for k in range(3))
+        bigJ = max(abs(v) for v in J)
+        for i in range(3):
+            self.assertAlmostEqual(vol["fluxes"][i][0],
+                                   J[i] - cv * x[i] * SV, delta=1e-12 * bigJ)
+        self.assertLessEqual(abs(sum(V[i] * vol["fluxes"][i][0]
+                                     for i in range(3))),
+                             1e-14 * max(abs(V[i] * vol["fluxes"][i][0])
+                                         for i in range(3)))
+        # the volume-frame Fick matrix gives the volume-frame fluxes
+        Dm, g = vol["fick_matrix"], [-40.0, 65.0, -25.0]
+        for r in range(2):
+            self.assertAlmostEqual(vol["fluxes"][r][0],
+                                   -cv * (Dm[r][0] * g[0] + Dm[r][1] * g[1]),
+                                   delta=1e-10 * bigJ)
+
+    def test_mass_fraction_input_is_the_same_state(self):
+        # -w W -g dW describes the state -x X -g dX with x_i = (w_i/M_i)/S,
+        # S = sum_k w_k/M_k, and dx_i = (dw_i/M_i - x_i sum_k dw_k/M_k)/S
+        # (differentiating the definition; common practice): the molar
+        # fluxes agree to round-off (1e-12 of the largest)
+        M = [0.05808, 0.032042, 0.018015]
+        w = [0.3, 0.25, 0.45]
+        dw = [-30.0, 50.0, -20.0]
+        S = sum(w[k] / M[k] for k in range(3))
+        x = [w[i] / M[i] / S for i in range(3)]
+        T = sum(dw[k] / M[k] for k in range(3))
+        dx = [(dw[i] / M[i] - x[i] * T) / S for i in range(3)]
+        common = ["liquid", "--params", self.f3, "-T", "310",
+                  "--concentration", "3e4", "--basis", "mole"]
+        a = run_json(*common, "-w", ",".join(map(repr, w)), "-g",
+                     ",".join(map(repr, dw)))
+        b = run_json(*common, "-x", ",".join(map(repr, x)), "-g",
+                     ",".join(map(repr, dx)))
+        self.assertEqual(a["composition_basis"], "mass")
+        big = max(abs(r[0]) for r in b["fluxes"])
+        for i in range(3):
+            self.assertAlmostEqual(a["mole_fractions"][i], x[i], delta=1e-15)
+            self.assertAlmostEqual(a["fluxes"][i][0], b["fluxes"][i][0],
+                                   delta=1e-12 * big)
+        # default basis follows the composition: mass fluxes with -w
+        m = run_json("liquid", "--params", self.f3, "-T", "310",
+                     "--concentration", "3e4", "-w", ",".join(map(repr, w)),
+                     "-g", ",".join(map(repr, dw)))
+        self.assertEqual(m["basis"], "mass")
+        self.assertEqual(m["flux_unit"], "kg/(m^2 s)")
+
+    def test_file_and_options_give_the_same_liquid(self):
+        opts = ["-s", "acetone,methanol,water", "--model", "nrtl",
+                "--pair", "acetone:methanol=0.3,10,0,0.2,0,0,0.3",
+                "--pair", "1:3=0.6,0,0,0.9,0,0,0.3",
+                "--pair", "water:methanol=0,120,0,0,-50,0,0.3",
+                "--dinf", "1:2=2.1e-9,2.6e-9", "--dinf", "1:3=1.2e-9,1.7e-9",
+                "--dinf", "2:3=1.5e-5cm2/s,2.0e-5cm2/s"]
+        common = ["-x", "0.2,0.3,0.5", "-T", "310", "-g", "-40,65,-25",
+                  "--concentration", "3e4"]
+        a = run_json("liquid", "--params", self.f3, *common)
+        b = run_json("liquid", *opts, *common)
+        for k in ("Gamma", "Dij", "fluxes", "fick_matrix", "ln_gamma"):
+            self.assertEqual(a[k], b[k], k)
+
+    def test_text_and_csv(self):
+        args = ["liquid", "--params", self.f3, "-x", "0.2,0.3,0.5", "-T",
+                "310", "-g", "-40,65,-25", "--concentration", "3e4"]
+        d = run_json(*args)
+        code, out, err = run(*args)
+        self.assertEqual(code, 0, err)
+        for text in ("mol/(m^2 s)", "Fick matrix", "zero-sum", "Gamma",
+                     "acetone", "licensed engineering review",
+                     f"{d['fluxes'][0][0]:.5e}"):
+            self.assertIn(text, out)
+        header, rows, err = run_csv(*args)
+        self.assertEqual(header, ["species", "x", "dx_dz1_per_m",
+                                  "J_1_mol_per_m2_s", "flags"])
+        self.assertEqual([r[0] for r in rows], d["species"])
+        for r, f in zip(rows, d["fluxes"]):
+            self.assertAlmostEqual(float(r[3]), f[0], delta=1e-14 * abs(f[0]))
+        self.assertIn("review", err)
+
+    def test_bad_flux_input_names_the_option(self):
+        base = ["liquid", "--params", self.f3, "-x", "0.2,0.3,0.5", "-T",
+                "310"]
+        cases = [
+            (["-g", "1,-1,0"], "--concentration"),
+            (["-g", "1,-1", "--concentration", "3e4"], "-g/--gradient"),
+            (["-g", "1,-1,0", "--concentration", "3e4", "--density", "900"],
+             "--density"),
+            (["-g", "1,-1,0", "--concentration", "3e4", "--basis", "volume"],
+             "--basis"),
+            (["-g", "1,-1,0", "--concentration", "3e4", "--dependent", "x"],
+             "--dependent"),
+            (["--concentration", "3e4"], "--concentration"),
+            (["-g", "1,-1,0", "--concentration", "-3"], "--concentration"),
+        ]
+        for extra, opt in cases:
+            with self.subTest(args=extra):
+                code, out, err = run(*base, *extra)
+                self.assertEqual(code, 2, err)
+                self.assertEqual(out, "")
+                self.assertTrue(err.startswith(f"mcdiff liquid: {opt}"), err)
+        code, _, err = run("liquid", "-x", "1", "-T", "300", "--model",
+                           "ideal", "-g", "0", "--concentration", "1e4")
+        self.assertEqual(code, 2, err)
+        self.assertIn("-g/--gradient: fluxes need two or more species", err)
+
+
+class LiquidParamFile(unittest.TestCase):
+    """The parameter file of mcdiff liquid: errors name the file, the line
+    and the field; the command line complements the file."""
+
+    GOOD = ["model wilson", "species a V=40cm3/mol", "species b V=18cm3/mol",
+            "pair a b b12=50 b21=230"]
+
+    def fails(self, lines, *extra, x="0.4,0.6"):
+        path = write_params("\n".join(lines) + "\n")
+        try:
+            code, out, err = run("liquid", "--params", path, "-x", x, "-T",
+                                 "320", *extra)
+        finally:
+            os.unlink(path)
+        self.assertEqual(code, 2, err)
+        self.assertEqual(out, "")
+        self.assertTrue(err.startswith("mcdiff liquid: "), err)
+        return err.replace(path, "FILE")
+
+    def test_example_file_runs(self):
+        d = run_json("liquid", "--params", EXAMPLE_LIQUID, "-x", "0.3,0.7",
+                     "-T", "320")
+        self.assertEqual(d["model"], "wilson")
+        self.assertEqual(d["species"], ["methanol", "water"])
+        self.assertEqual(len(d["partial_pressures_Pa"]), 2)
+
+    def test_good_file_and_comments(self):
+        path = write_params("# a comment\n\n" + "\n".join(self.GOOD) +
+                            "   # trailing comment\n")
+        try:
+            d = run_json("liquid", "--params", path, "-x", "0.4,0.6", "-T",
+                         "320")
+        finally:
+            os.unlink(path)
+        self.assertEqual(d["species"], ["a", "b"])
+
+    def test_errors_name_file_line_and_field(self):
+        cases = [
+            (self.GOOD + ["pear a b b12=1 b21=1"], "FILE:5:",
+             "unknown record 'pear'"),
+            (self.GOOD[:3] + ["pair a b b12=50 b21=230 beta=1"], "FILE:4:",
+             "unknown field 'beta'"),
+            (self.GOOD[:3] + ["pair a b b12=50 b21=x"], "FILE:4:",
+             "field b21"),
+            (self.GOOD[:3] + ["pair a b b12=50"], "FILE:4:", "p_21"),
+            (["model wilson", "species a V=40", "species b V=18cm3/mol"],
+             "FILE:2:", "field V: '40' needs a unit"),
+            (self.GOOD[:3] + ["pair a c b12=1 b21=1"], "FILE:4:",
+             "species 'c' is not declared"),
+            (self.GOOD + ["pair b a b12=1 b21=1"], "FILE:5:",
+             "already given on line 4"),
+            (self.GOOD + ['antoine a A=10 B=1500 C=-40 log=10 P=Pa T=K '
+                          'range=280K..360K'], "FILE:5:",
+             "field source is required"),
+            (self.GOOD + ['antoine a A=10 B=1500 C=-40 log=10 P=psf T=K '
+                          'range=280K..360K source="x"'], "FILE:5:",
+             "field P"),
+            (self.GOOD + ['dinf a b D12=1e-9 D21=1e-9m2/s'], "FILE:5:",
+             "field D12: '1e-9' needs a unit"),
+            (self.GOOD + ['dinf a b D12=1e-9m2/s'], "FILE:5:",
+             "field D21 is required"),
+            (self.GOOD + ['species c source="unclosed'], "FILE:5:",
+             "unclosed quote"),
+        ]
+        for lines, where, what in cases:
+            with self.subTest(what=what):
+                err = self.fails(lines)
+                self.assertIn(where, err)
+                self.assertIn(what, err)
+
+    def test_missing_pair_parameter_names_the_pair(self):
+        err = self.fails(["model nrtl", "species a", "species b",
+                          "species c", "pair a b b12=1 b21=2 alpha=0.3",
+                          "pair a c a12=0 a21=0 alpha=0.3"], x="0.2,0.3,0.5")
+        self.assertIn("pair b/c", err)
+        self.assertIn("'pair' record", err)
+        err = self.fails(["model nrtl", "species a", "species b",
+                          "pair a b b12=1 b21=2"])
+        self.assertIn("FILE:4", err)
+        self.assertIn("pair a/b: field alpha is required", err)
+        err = self.fails(["model wilson", "species a V=40cm3/mol",
+                          "species b", "pair a b b12=1 b21=2"])
+        self.assertIn("species b: no molar volume V", err)
+        err = self.fails(["species a", "species b"])
+        self.assertIn("no 'model' record", err)
+
+    def test_duplicates_with_options_name_the_line(self):
+        cases = [
+            (["--pair", "a:b=0,1,0,0,1,0"], "--pair", "FILE:4"),
+            (["--model", "nrtl"], "--model", "FILE:1"),
+            (["--volumes", "1e-5,2e-5"], "--volumes", "FILE:2"),
+            (["-s", "a,b"], "-s/--species", "FILE:3"),
+        ]
+        for extra, opt, where in cases:
+            with self.subTest(option=opt):
+                err = self.fails(self.GOOD, *extra)
+                self.assertTrue(err.startswith(f"mcdiff liquid: {opt}"), err)
+                self.assertIn(where, err)
+        # the same model is no conflict; a missing value is complemented
+        path = write_params("\n".join(self.GOOD) + "\n")
+        try:
+            d = run_json("liquid", "--params", path, "-x", "0.4,0.6", "-T",
+                         "320", "--model", "wilson", "--dinf",
+                         "a:b=1e-9,2e-9")
+        finally:
+            os.unlink(path)
+        self.assertAlmostEqual(d["Dij"][0][1] / (1e-9 ** 0.6 * 2e-9 ** 0.4),
+                               1.0, delta=1e-12)
+
+    def test_antoine_forms_convert(self):
+        # log10(P/mmHg) = A - B/(t/C + C) and ln(P/kPa) = ... describe the
+        # same vapour pressure as log10(P/Pa) = A + log10(133.322368) -
+        # B/(T/K + C - 273.15) (1 mmHg = 133.322368 Pa; common practice):
+        # constants chosen for the identity only
+        lines = self.GOOD[:3] + ["pair a b b12=50 b21=230",
+                                 'antoine a A=7.5 B=1600 C=230 log=10 '
+                                 'P=mmHg T=C range=0C..100C source="x"',
+                                 'antoine b A=16.0 B=3800 C=-45 log=e P=kPa '
+                                 'T=K range=270K..380K source="y"']
+        path = write_params("\n".join(lines) + "\n")
+        try:
+            d = run_json("liquid", "--params", path, "-x", "0.4,0.6", "-T",
+                         "320")
+        finally:
+            os.unlink(path)
+        ps_a = 133.322368 * 10 ** (7.5 - 1600 / (320 - 273.15 + 230))
+        ps_b = 1e3 * math.exp(16.0 - 3800 / (320 - 45))
+        g = d["gamma"]
+        p = d["partial_pressures_Pa"]
+        self.assertAlmostEqual(p[0] / (0.4 * g[0] * ps_a), 1, delta=1e-12)
+        self.assertAlmostEqual(p[1] / (0.6 * g[1] * ps_b), 1, delta=1e-12)
+
+
+# Antoine constants of water, log10(P/bar) = A - B/(T/K + C), 4.6543,
+# 1435.264, -64.848, 255.9-373 K (Stull 1947 via the NIST Chemistry
+# WebBook; from memory, as in tests/test_liquid.c); +5 for Pa.
+WATER_ANTOINE = "1=9.6543,1435.264,-64.848,255.9,373"
+
+
+class LiquidEvaporation(unittest.TestCase):
+    def test_single_species_is_stefans_law(self):
+        # one volatile species through stagnant air: N = (c D/L)
+        # ln((1 - y_L)/(1 - y_0)), y_0 = P^sat/P, c = P/(R T) (Stefan's
+        # law; common practice); rate = N M; level fall = rate / rho [m/s]
+        # = rate / rho * 3.6e6 mm/h. The film is converged to 1e-12
+        # relative: 1e-9 leaves room for the decimal inputs.
+        for T, P, L, D, rho, yL in ((298.15, ATM, 0.05, 2.6e-5, 997.0, 0.0),
+                                    (330.0, 9e4, 0.12, 2.9e-5, 985.0, 0.01)):
+            with self.subTest(T=T):
+                args = ["liquid", "-s", "water", "-x", "1", "-T", f"{T}",
+                        "--model", "ideal", "--antoine", WATER_ANTOINE,
+                        "--evaporate", "air", "-P", f"{P}", "-L", f"{L}",
+                        "--density", f"{rho}", "--gas-pair",
+                        f"water:air={D}"]
+                if yL:
+                    args += ["--xL", f"{yL},{1 - yL}"]
+                d = run_json(*args)
+                psat = 10 ** (9.6543 - 1435.264 / (T - 64.848))
+                y0 = psat / P
+                c = P / (R * T)
+                N = c * D / L * math.log((1 - yL) / (1 - y0))
+                self.assertAlmostEqual(d["y_surface"][0] / y0, 1, delta=1e-12)
+                self.assertAlmostEqual(d["fluxes"][0] / N, 1.0, delta=1e-9)
+                self.assertEqual(d["fluxes"][1], 0.0)  # air stagnant
+                M = d["M"][0]
+                self.assertAlmostEqual(M, 0.018015, delta=1e-4)  # table
+                rate = d["evaporation_rate_kg_per_m2_s"]
+                self.assertAlmostEqual(rate / (d["fluxes"][0] * M), 1.0,
+                                       delta=1e-14)
+                self.assertAlmostEqual(d["level_fall_mm_per_h"] /
+                                       (rate / rho * 3.6e6), 1.0, delta=1e-14)
+                self.assertIn("flammable or toxic", d["caution"])
+
+    def test_mixture_equals_vle_and_film(self):
+        # the surface vapour is x gamma P^sat / P with the gamma of the
+        # properties output, and the fluxes are those of `mcdiff film`
+        # from that vapour with air stagnant and the same diffusivities
+        base = ["liquid", "--params", EXAMPLE_LIQUID, "-x", "0.3,0.7", "-T",
+                "320"]
+        props = run_json(*base)
+        gas = ["--gas-pair", "methanol:water=2.2e-5", "--gas-pair",
+               "methanol:air=1.7e-5", "--gas-pair", "water:air=2.7e-5"]
+        d = run_json(*base, "--evaporate", "air", "-P", "1atm", "-L", "3cm",
+                     "--density", "0.93g/cm3", *gas)
+        for i in range(2):
+            self.assertAlmostEqual(d["y_surface"][i],
+                                   props["partial_pressures_Pa"][i] / ATM,
+                                   delta=1e-15)
+        y = d["y_surface"]
+        f = run_json("film", "-s", "methanol,water,air", "--x0",
+                     ",".join(repr(v) for v in y), "--xL", "0,0,1", "-L",
+                     "3cm", "-T", "320", "-P", "1atm", "--stagnant", "air",
+                     "--pair", "methanol:water=2.2e-5", "--pair",
+                     "methanol:air=1.7e-5", "--pair", "water:air=2.7e-5")
+        for i in range(2):
+            # two runs of the same converged iteration (1e-12)
+            self.assertAlmostEqual(d["fluxes"][i] / f["fluxes"][i], 1.0,
+                                   delta=1e-10)
+        self.assertGreater(y[0] / y[1], 0.3 / 0.7)  # methanol enriched
+        code, out, err = run(*base, "--evaporate", "air", "-P", "1atm", "-L",
+                             "3cm", "--density", "930", *gas)
+        self.assertEqual(code, 0, err)
+        for text in ("kg/(m^2 s)", "mm/h", "flammable or toxic",
+                     "licensed engineering review", "y surface"):
+            self.assertIn(text, out)
+        header, rows, err = run_csv(*base, "--evaporate", "air", "-P",
+                                    "1atm", "-L", "3cm", "--density", "930",
+                                    *gas)
+        self.assertEqual(header[0], "species")
+        self.assertIn("N_mol_per_m2_s", header)
+        self.assertEqual([r[0] for r in rows], ["methanol", "water", "air"])
+        self.assertIn("mm/h", err)
+
+    def test_bad_evaporation_input(self):
+        base = ["liquid", "--params", EXAMPLE_LIQUID, "-x", "0.3,0.7", "-T",
+                "320", "--evaporate", "air"]
+        full = ["-P", "1atm", "-L", "3cm", "--density", "930"]
+        for args, code, text in (
+                ([*base, "-L", "3cm", "--density", "930"], 2, "-P/--pressure"),
+                ([*base, "-P", "1atm", "--density", "930"], 2, "-L/--length"),
+                ([*base, "-P", "1atm", "-L", "3cm"], 2, "--density"),
+                ([*base, *full, "--xL", "0,1"], 2, "--xL"),
+                ([*base, *full, "-g", "1,-1"], 2, "--evaporate"),
+                ([*base[:-2], "-P", "1atm"], 2, "-P/--pressure"),
+                (["liquid", "-x", "0.3,0.7", "-T", "320", "--pair",
+                  "1:2=0,1,0,0,1,0", "--evaporate", "air", *full], 2,
+                 "--evaporate"),
+                # the liquid boils: bubble pressure above P (exit 1)
+                ([*base[:5], "-T", "380", "--evaporate", "air", *full], 1,
+                 "boils")):
+            with self.subTest(args=args[6:]):
+                c, out, err = run(*args)
+                self.assertEqual(c, code, err)
+                self.assertEqual(out, "")
+                self.assertIn(text, err)
+
+
 class ManPage(unittest.TestCase):
     def test_man_page_renders_without_warnings(self):
         self.assertTrue(os.path.exists(MAN_PAGE), MAN_PAGE)

@@ -94,6 +94,13 @@ done
 [ -n "$MAN5" ] || fail "the species-file format page is not installed: $MANDIR/man5/mcdiff-species.5"
 [ -f "$R$DATADIR/doc/mcdiff/README.md" ] || fail "README not installed in $DATADIR/doc/mcdiff"
 note "species-file page and README installed: ${MAN5#"$R"}, $DATADIR/doc/mcdiff/README.md"
+LIQ="$R$DATADIR/doc/mcdiff/liquid-methanol-water.txt"
+[ -f "$LIQ" ] || fail "the example liquid parameter file is not installed in $DATADIR/doc/mcdiff"
+note "example liquid parameter file installed: $DATADIR/doc/mcdiff/liquid-methanol-water.txt"
+if [ -x "$R$BINDIR/mcdiff" ]; then
+    runlib "$R$BINDIR/mcdiff" liquid --params "$LIQ" -x 0.3,0.7 -T 320 \
+        >"$TMP/liq.txt" 2>&1 || { cat "$TMP/liq.txt"; fail "installed mcdiff liquid --params (the installed example)"; }
+fi
 MAN=
 for f in "$R$MANDIR"/man1/mcdiff.1*; do
     if [ -f "$f" ]; then MAN=$f; break; fi
