@@ -378,7 +378,7 @@ const char *cli_gas_method_name(mcd_gas_method g);
     "                            'mcdiff binary' recommends (brokaw for a\n"   \
     "                            polar pair with its data, else the first\n"   \
     "                            of fsg, chapman-enskog, wilke-lee that\n"     \
-    "                            applies); or one method for every pair:\n"   \
+    "                            applies); or one method for every pair:\n"    \
     "                            fsg, chapman-enskog, wilke-lee, brokaw\n"
 void cli_state_defaults(cli_state *s);
 /* Handle one shared option (id >= CLI_O_SPECIES, not CLI_O_HELP).
