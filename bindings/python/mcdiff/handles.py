@@ -648,6 +648,12 @@ class Liquid(_Handle):
         s = self.eval(T, x)
         return flux_compute(s.Dij, c, x, grad, Gamma=s.Gamma, **kw)
 
+    def flux_batch(self, T, c, comp, grad, **kw):
+        """Fluxes at many cells (mcdiff.liquid_flux_batch, cells last; the
+        keyword arguments are its): LiquidFluxes(flux, warnings)."""
+        from .api import liquid_flux_batch
+        return liquid_flux_batch(self, T, c, comp, grad, **kw)
+
     def evaporation(self, T, P, x_liq, *, Dij, c, L, xL, M, rho_liquid,
                     workspace=None):
         """Evaporation through a stagnant gas film of the liquid's species
