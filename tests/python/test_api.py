@@ -914,6 +914,13 @@ class Liquids(unittest.TestCase):
         self.assertAlmostEqual(J[0] / ref, 1.0, delta=1e-12)
         with self.assertRaises(mcdiff.DomainError):
             liq.eval(300.0, [0.5, 0.5])  # beyond the spinodal
+        # the warning flags are the package's Warning bits
+        self.assertIsInstance(s.warnings, mcdiff.Warning)
+        self.assertEqual(int(s.warnings), 0)
+        liq.set_pair(0, 1, [1.0, 0, 0], [1.0, 0, 0], alpha=0.0,
+                     T_range=(280.0, 290.0))
+        w = liq.eval(300.0, [0.3, 0.7]).warnings
+        self.assertEqual(w, mcdiff.Warning.TEMPERATURE)
         liq.close()
 
     def test_batched_fluxes(self):

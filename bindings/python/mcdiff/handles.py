@@ -626,7 +626,7 @@ class Liquid(_Handle):
         self._st(st, "mcd_liquid_eval")
         return LiquidState(lg.result(), G.result(),
                            None if D is None else D.result(),
-                           Warning(w.value))
+                           EstimateWarning(w.value))
 
     def vle(self, T, x, *, workspace=None):
         """Partial pressures [Pa] over the liquid (modified Raoult's
@@ -679,7 +679,7 @@ class Liquid(_Handle):
             ctypes.byref(rate), ctypes.byref(level), ctypes.byref(w))
         self._st(st, "mcd_liquid_evaporation")
         return Evaporation(y0.result(), N.result(), rate.value, level.value,
-                           Warning(w.value))
+                           EstimateWarning(w.value))
 
     def __repr__(self):
         if self.closed:
