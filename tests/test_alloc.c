@@ -145,8 +145,10 @@ START_TEST(alloc_batched_calls_do_not_allocate)
 }
 END_TEST
 
-/* The liquid's per-state calls (mcd_liquid_eval, _vle, _evaporation) for
- * every activity model: no allocation inside the window. */
+/* The liquid's per-state calls (mcd_liquid_eval, _vle, _evaporation) and
+ * its batched fluxes (mcd_liquid_flux_batch, 3 cells, mass fractions in,
+ * mass fluxes relative to the volume-average velocity out: every path)
+ * for every activity model: no allocation inside the window. */
 START_TEST(alloc_liquid_calls_do_not_allocate)
 {
     const mcd_activity_model models[4] = {MCD_ACTIVITY_IDEAL, MCD_ACTIVITY_NRTL,
@@ -155,6 +157,14 @@ START_TEST(alloc_liquid_calls_do_not_allocate)
     const double cf[3] = {0.05, 40.0, 0.0};
     double x[4] = {0.4, 0.3, 0.2, 0.1}, lng[4], G[16], D[16], p[4];
     double Dg[25], xL[5] = {0, 0, 0, 0, 1}, Mg[5], y0[5], N[5], rate, lvl;
+    /* 3 cells, SoA: mass fractions (summing to 1 per cell), gradients,
+     * T, and volumes: ideal mixing, c = 1 / sum x_i V_i from the mole
+     * fractions of the mass fractions with molar masses Mg */
+    double wc[12] = {0.4, 0.25, 0.1, 0.3, 0.25, 0.2,
+                     0.2, 0.25, 0.3, 0.1, 0.25, 0.4};
+    double gc[12] = {1, 2, -1, -1, 0, 1, 0, -2, 0, 0, 0, 0},
+           Tc[3] = {290, 300, 310};
+    double Vc[12], cc[3], fl[12];
     mcd_liquid *liq[4];
     mcd_workspace *ws;
     int st[16], ns = 0, pass, live;
@@ -164,6 +174,16 @@ START_TEST(alloc_liquid_calls_do_not_allocate)
         Dg[i] = i % 6 == 0 ? 0.0 : 1.5e-5;
     for (size_t i = 0; i < 5; i++)
         Mg[i] = 0.02 + 0.01 * (double)i;
+    for (size_t k = 0; k < 3; k++) {
+        double xs[4], s = 0.0, v = 0.0;
+        for (size_t i = 0; i < 4; i++)
+            s += (xs[i] = wc[i * 3 + k] / Mg[i]);
+        for (size_t i = 0; i < 4; i++) {
+            Vc[i * 3 + k] = 5e-5 * (1.0 + 0.1 * (double)i);
+            v += xs[i] / s * Vc[i * 3 + k];
+        }
+        cc[k] = 1.0 / v;
+    }
     for (int m = 0; m < 4; m++) {
         ck_assert_int_eq(mcd_liquid_new(4, models[m], &liq[m]), MCD_OK);
         for (size_t i = 0; i < 4; i++) {
@@ -189,6 +209,14 @@ START_TEST(alloc_liquid_calls_do_not_allocate)
                 &(mcd_film){
                     .n_species = 5, .c = 40.0, .L = 0.01, .Dij = Dg, .xL = xL},
                 300.0, 1e5, x, Mg, 800.0, y0, N, &rate, &lvl, &w);
+            st[ns++] = mcd_liquid_flux_batch(
+                ws, liq[m], MCD_MODEL_MAXWELL_STEFAN, Tc, cc, Mg, Vc,
+                &(mcd_cells){.n_cells = 3,
+                             .n_dim = 1,
+                             .comp_basis = MCD_BASIS_MASS,
+                             .comp = wc,
+                             .grad = gc},
+                MCD_BASIS_MASS, fl, &w);
         }
         if (pass == 0)
             for (int i = 0; i < ns; i++)

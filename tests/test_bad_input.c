@@ -524,6 +524,24 @@ static int call_mcd_liquid_eval(ctx *c)
                            OUT(o1, NB_O1), OUT(o2, NB_O2), OUT(o3, NB_O3),
                            OUT(ou, NB_OU));
 }
+/* mcd_liquid_flux_batch: the liquid (3 species, NRTL) at one cell (K =
+ * 1: the cell's arrays are the fixture's vectors), partial molar volumes
+ * Vbar = 1 / c (c = cc[0] = the fixture's c) */
+static int call_mcd_liquid_flux_batch(ctx *c)
+{
+    return mcd_liquid_flux_batch(
+        WS, ARG(liq, NB_LIQ), (mcd_model)c->model, ARG(Tc, NB_T),
+        ARG(cc, NB_VALS), ARG(M, NB_M), ARG(Vbar, NB_VBAR),
+        &(mcd_cells){.n_cells = c->K,
+                     .n_dim = c->nd,
+                     .comp_basis = (mcd_basis)c->basis,
+                     .comp = ARG(x, NB_X),
+                     .grad = ARG(grad, NB_GRAD),
+                     .grad_lnP = c->use_glnp ? c->glnP : NULL,
+                     .kT = (c->use_kT & 1) ? c->kT : NULL,
+                     .grad_lnT = (c->use_kT & 2) ? c->glnT : NULL},
+        (mcd_basis)c->basis2, OUT(o1, NB_O1), OUT(ou, NB_OU));
+}
 static int call_mcd_liquid_set_antoine(ctx *c)
 {
     return mcd_liquid_set_antoine(ARG(liq, NB_LIQ), c->i, c->antA, c->antB,
@@ -2114,6 +2132,46 @@ static const bcase cases[] = {
     C(mcd_liquid_eval, "x NaN", EINVAL_, "x", MDA(x, 1, NAN)),
     C(mcd_liquid_eval, "workspace too small", MCD_EBADLEN, NULL,
       MI(use_small_ws, 1)),
+    B(mcd_liquid_flux_batch, MCD_OK),
+    C(mcd_liquid_flux_batch, "ws NULL", EINVAL_, NULL, MN(NB_WS)),
+    C(mcd_liquid_flux_batch, "liq NULL", EINVAL_, "liq", MN(NB_LIQ)),
+    C(mcd_liquid_flux_batch, "n_dim 0", EINVAL_, "n_dim", MZ(nd, 0)),
+    C(mcd_liquid_flux_batch, "model 9", EINVAL_, "model", MI(model, 9)),
+    C(mcd_liquid_flux_batch, "iterative model", EINVAL_, "MCD_MODEL_ITERATIVE",
+      MI(model, MCD_MODEL_ITERATIVE)),
+    C(mcd_liquid_flux_batch, "comp basis 7", EINVAL_, NULL, MI(basis, 7)),
+    C(mcd_liquid_flux_batch, "flux basis -1", EINVAL_, NULL, MI(basis2, -1)),
+    C(mcd_liquid_flux_batch, "comp NULL", EINVAL_, "comp", MN(NB_X)),
+    C(mcd_liquid_flux_batch, "grad NULL", EINVAL_, "grad", MN(NB_GRAD)),
+    C(mcd_liquid_flux_batch, "out NULL", EINVAL_, "out_flux", MN(NB_O1)),
+    C(mcd_liquid_flux_batch, "T NULL", EINVAL_, "argument T", MN(NB_T)),
+    C(mcd_liquid_flux_batch, "c NULL", EINVAL_, "argument c", MN(NB_VALS)),
+    C(mcd_liquid_flux_batch, "capacity 2 < N", MCD_EBADLEN, NULL,
+      MI(use_small_ws, 1)),
+    C(mcd_liquid_flux_batch, "grad_lnP given", EINVAL_, "grad_lnP",
+      MI(use_glnp, 1)),
+    C(mcd_liquid_flux_batch, "kT without grad_lnT", EINVAL_, "grad_lnT",
+      MI(use_kT, 1)),
+    C(mcd_liquid_flux_batch, "mass fluxes without M", EINVAL_, "M",
+      MI(basis2, MCD_BASIS_MASS), MN(NB_M)),
+    C(mcd_liquid_flux_batch, "T NaN", EINVAL_, "cell 0: argument T",
+      MDA(Tc, 0, NAN)),
+    C(mcd_liquid_flux_batch, "T 0", EDOM_, "cell 0: argument T",
+      MDA(Tc, 0, 0.0)),
+    C(mcd_liquid_flux_batch, "c 0", EDOM_, "cell 0: argument c",
+      MDA(cc, 0, 0.0)),
+    C(mcd_liquid_flux_batch, "comp NaN", EINVAL_, "cell 0: argument comp",
+      MDA(x, 1, NAN)),
+    C(mcd_liquid_flux_batch, "comp negative", EDOM_, "cell 0: argument comp",
+      MDA(x, 1, -0.1), MDA(x, 0, 0.9)),
+    C(mcd_liquid_flux_batch, "grad inf", EINVAL_, "cell 0: argument grad",
+      MDA(grad, 3, INFINITY)),
+    C(mcd_liquid_flux_batch, "kT NaN", EINVAL_, "cell 0: argument kT",
+      MI(use_kT, 3), MDA(kT, 1, NAN)),
+    C(mcd_liquid_flux_batch, "Vbar NaN", EINVAL_, "cell 0: argument Vbar",
+      MDA(Vbar, 1, NAN)),
+    C(mcd_liquid_flux_batch, "Vbar and c disagree", EDOM_,
+      "cell 0: argument Vbar", MDA(Vbar, 0, 1.0)),
     B(mcd_liquid_set_antoine, MCD_OK),
     C(mcd_liquid_set_antoine, "liq NULL", EINVAL_, "liq", MN(NB_LIQ)),
     C(mcd_liquid_set_antoine, "i = n", EINVAL_, "i", MZ(i, 3)),

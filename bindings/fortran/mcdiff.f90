@@ -178,7 +178,7 @@ module mcdiff
        mcd_flux_velocity_difference, mcd_mixture_temperature_fit, &
        mcd_bulbs_linearized, mcd_bulbs_integrate, &
        mcd_liquid_new, mcd_liquid_set_species, mcd_liquid_set_pair, &
-       mcd_liquid_set_dinf, mcd_liquid_eval, mcd_binary_tyn_calus, &
+       mcd_liquid_set_dinf, mcd_liquid_eval, mcd_liquid_flux_batch, mcd_binary_tyn_calus, &
        mcd_binary_hayduk_minhas, mcd_method_temperature_range, mcd_liquid_set_antoine, &
        mcd_liquid_vle, &
        mcd_liquid_evaporation, &
@@ -2300,6 +2300,44 @@ contains
     if (s == 0 .and. present(warn)) warn = int(w)
     call finish(s, stat, errmsg)
   end subroutine mcd_liquid_eval
+
+  !> Batched fluxes of a liquid, arrays as mcd_flux_batch_dij: T, c
+  !> (n_cells); comp(n_cells, n), grad and flux (n_cells, n_dim, n); M(n)
+  !> optional (needed for the mass basis); Vbar(n_cells, n) optional
+  !> (fluxes relative to the volume-average velocity); kT(n_cells, n)
+  !> with grad_lnT(n_cells, n_dim) optional; warn the OR of the cells'
+  !> warning bits.
+  subroutine mcd_liquid_flux_batch(ws, liq, model, n, n_cells, n_dim, T, c, &
+       comp_basis, comp, grad, flux_basis, flux, stat, errmsg, M, Vbar, kT, &
+       grad_lnT, warn)
+    type(mcd_workspace_t), intent(inout) :: ws
+    type(mcd_liquid_t), intent(in) :: liq
+    integer, intent(in) :: model, n, n_cells, n_dim, comp_basis, flux_basis
+    real(c_double), intent(in) :: T(n_cells), c(n_cells)
+    real(c_double), intent(in), target :: comp(n_cells, n), grad(n_cells, n_dim, n)
+    real(c_double), intent(inout) :: flux(n_cells, n_dim, n)
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    real(c_double), intent(in), optional, target :: M(n), Vbar(n_cells, n)
+    real(c_double), intent(in), optional, target :: kT(n_cells, n), grad_lnT(n_cells, n_dim)
+    integer, intent(inout), optional :: warn
+    type(c_ptr) :: pM, pV
+    type(mcd_cells_t) :: cells
+    integer(c_int), target :: w
+    integer(c_int) :: s
+    pM = c_null_ptr
+    pV = c_null_ptr
+    if (present(M)) pM = c_loc(M)
+    if (present(Vbar)) pV = c_loc(Vbar)
+    call set_cells(cells, n_cells, n_dim, comp_basis, c_loc(comp), c_loc(grad))
+    if (present(kT)) cells%kT = c_loc(kT)
+    if (present(grad_lnT)) cells%grad_lnT = c_loc(grad_lnT)
+    w = 0
+    s = c_mcd_liquid_flux_batch(ws%ptr, liq%ptr, int(model, c_int), T, c, pM, pV, &
+         cells, int(flux_basis, c_int), flux, c_loc(w))
+    if (s == 0 .and. present(warn)) warn = int(w)
+    call finish(s, stat, errmsg)
+  end subroutine mcd_liquid_flux_batch
 
   subroutine mcd_binary_tyn_calus(T, mu_solvent, Vb_solute, Vb_solvent, D, stat, errmsg)
     real(c_double), intent(in) :: T, mu_solvent, Vb_solute, Vb_solvent

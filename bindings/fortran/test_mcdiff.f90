@@ -1071,6 +1071,40 @@ contains
     call check(abs(D(2) / (2.0e-9_c_double**0.7_c_double * 1.0e-9_c_double**0.3_c_double) &
          - 1) <= 1e-14_c_double, 'Vignes')
     call check(warn == 0, 'no warning')
+    ! Batched fluxes of the same liquid at 3 cells (SoA: comp(cell, species)):
+    ! the binary closed form J_1 = -c Dvignes (1 - 2 A x_1 x_2) grad x_1
+    ! (Taylor and Krishna 1993, ch. 2), A = 2; then an unstable cell 2
+    ! (x_1 = 0.5, 2 A x_1 x_2 = 1) is refused by name, flux untouched.
+    block
+      real(c_double) :: yb(3, 2), gb(3, 1, 2), fb(3, 1, 2), Tb(3), cb(3), ref, x1
+      integer :: k
+      yb(:, 1) = [0.3_c_double, 0.1_c_double, 0.85_c_double]
+      yb(:, 2) = 1 - yb(:, 1)
+      gb(:, 1, 1) = [1.0_c_double, -2.0_c_double, 0.5_c_double]
+      gb(:, 1, 2) = -gb(:, 1, 1)
+      Tb = 300.0_c_double
+      cb = 2.0e4_c_double
+      warn = -1
+      call mcd_liquid_flux_batch(ws, liq, MCD_MODEL_MAXWELL_STEFAN, 2, 3, 1, Tb, cb, &
+           MCD_BASIS_MOLE, yb, gb, MCD_BASIS_MOLE, fb, stat, msg, warn=warn)
+      call check_stat(stat, msg, 'mcd_liquid_flux_batch')
+      call check(warn == 0, 'batched: no warning')
+      do k = 1, 3
+         x1 = yb(k, 1)
+         ref = -cb(k) * 2.0e-9_c_double**(1 - x1) * 1.0e-9_c_double**x1 &
+              * (1 - 4 * x1 * (1 - x1)) * gb(k, 1, 1)
+         call check(abs(fb(k, 1, 1) - ref) <= 1e-12_c_double * abs(ref) .and. &
+              abs(fb(k, 1, 2) + ref) <= 1e-12_c_double * abs(ref), &
+              'batched liquid flux: binary closed form')
+      end do
+      yb(2, :) = [0.5_c_double, 0.5_c_double]
+      fb = 7.0_c_double
+      call mcd_liquid_flux_batch(ws, liq, MCD_MODEL_MAXWELL_STEFAN, 2, 3, 1, Tb, cb, &
+           MCD_BASIS_MOLE, yb, gb, MCD_BASIS_MOLE, fb, stat, msg)
+      call check(stat == MCD_EDOM .and. index(msg, 'cell 1:') > 0 .and. &
+           index(msg, 'not stable') > 0, 'batched: unstable cell named: ' // trim(msg))
+      call check(all(fb > 6.5_c_double .and. fb < 7.5_c_double), 'batched: flux untouched')
+    end block
     x = [0.5_c_double, 0.5_c_double]
     call mcd_liquid_eval(ws, liq, 300.0_c_double, x, stat, msg, Gamma=G)
     call check(stat == MCD_EDOM .and. index(msg, 'not stable') > 0, &

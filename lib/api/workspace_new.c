@@ -93,7 +93,9 @@ mcd_status mcdi_api_workspace_new_with(size_t n_species,
     core_int_bytes = mcdi_core_ints(n_species) * sizeof(int);
     int_bytes = n_species * sizeof(int);
     tf_bytes = mcdi_tf_doubles(n_species, 0, 1) * sizeof(double);
-    liq_bytes = mcdi_liq_doubles(n_species, 0, 1) * sizeof(double);
+    liq_bytes = (mcdi_liq_doubles(n_species, 0, 1) +
+                 mcdi_lcell_doubles(n_species, MCD_MAX_DIM, 1)) *
+                sizeof(double);
     pm_bytes = mcdi_pm_doubles(n_species, 0, 1) * sizeof(double);
 
     ws = (mcd_workspace *)allocator->alloc(allocator->ud, sizeof(*ws));

@@ -100,6 +100,7 @@
     X(liquid_set_pair, (mcd_liquid *liq, size_t i, size_t j, const double *coef_ij, const double *coef_ji, double alpha, double T_min, double T_max), (liq, i, j, coef_ij, coef_ji, alpha, T_min, T_max)) \
     X(liquid_set_dinf, (mcd_liquid *liq, size_t i, size_t j, double D_i_in_j, double D_j_in_i), (liq, i, j, D_i_in_j, D_j_in_i)) \
     X(liquid_eval, (mcd_workspace *ws, const mcd_liquid *liq, double T, const double *x, double *out_lngamma, double *out_Gamma, double *out_Dij, unsigned *out_warn), (ws, liq, T, x, out_lngamma, out_Gamma, out_Dij, out_warn)) \
+    X(liquid_flux_batch, (mcd_workspace *ws, const mcd_liquid *liq, mcd_model model, const double *T, const double *c, const double *M, const double *Vbar, const mcd_cells *cells, mcd_basis flux_basis, double *out_flux, unsigned *out_warn), (ws, liq, model, T, c, M, Vbar, cells, flux_basis, out_flux, out_warn)) \
     X(liquid_set_antoine, (mcd_liquid *liq, size_t i, double A, double B, double C, double T_min, double T_max), (liq, i, A, B, C, T_min, T_max)) \
     X(liquid_vle, (mcd_workspace *ws, const mcd_liquid *liq, double T, const double *x, double *out_p, unsigned *out_warn), (ws, liq, T, x, out_p, out_warn)) \
     X(liquid_evaporation, (mcd_workspace *ws, const mcd_liquid *liq, const mcd_film *gas, double T, double P, const double *x_liq, const double *M, double rho_liquid, double *out_y0, double *out_N, double *out_mass_rate, double *out_level_rate, unsigned *out_warn), (ws, liq, gas, T, P, x_liq, M, rho_liquid, out_y0, out_N, out_mass_rate, out_level_rate, out_warn)) \

@@ -18,8 +18,9 @@
  *    touches it, so a transfer call may keep data there while it calls
  *    mcd_flux_compute or mcd_fick_matrix on the same workspace.
  *
- *  - the LIQUID bank (liq_mem), used by mcd_liquid_eval only, laid out
- *    by name in liquid/liq_layout.h.
+ *  - the LIQUID bank (liq_mem), used by mcd_liquid_eval and its callers
+ *    (and by mcd_liquid_flux_batch for one gathered cell), laid out by
+ *    name in liquid/liq_layout.h.
  *  - the POROUS bank (pm_mem), used by the porous-media layer only
  *    (Dusty Gas Model), laid out by name in porous/pm_layout.h. It holds
  *    nothing between calls.
@@ -60,7 +61,7 @@ struct mcd_workspace {
     double *tf_mem;
     int *tf_ipiv; /* cap ints (LAPACK pivots) */
 
-    /* LIQUID bank (liquid/liq_layout.h): mcd_liquid_eval only */
+    /* LIQUID bank (liquid/liq_layout.h): the liquid calls only */
     double *liq_mem;
     /* POROUS bank (porous/pm_layout.h) */
     double *pm_mem;

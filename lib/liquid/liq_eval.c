@@ -165,22 +165,40 @@ static int stable(size_t n, const double *x, const double *H, double *A)
  * Đ_ij at x_k -> 1 estimated as sqrt(D°_ik D°_jk) (their eq. 17); for
  * N = 2 this is Vignes, Ind. Eng. Chem. Fundam. 5, 189 (1966), applied to
  * the Maxwell-Stefan diffusivity. Symmetric by construction.
+ * With L_ij = ln D°_ij (mcdi_liquid_log_dinf, computed once per call:
+ * no logarithm here) and S_i = sum_k x_k L_ik (L_ii = 0), the sum over
+ * k != i, j is S_i - x_j L_ij: O(N^2) instead of O(N^3) logarithms. The
+ * differences are exact where a third species is absent (S_i - x_j L_ij
+ * = 0 for N = 2 and at x_k = 0), so the limits are Vignes' to the
+ * rounding of exp; elsewhere they lose a few ulps of |L| (~20), below
+ * 1e-14 relative in Đ. S: scratch of n.
  */
-static void vignes(size_t n, const double *dinf, const double *x, double *D)
+static void vignes(size_t n, const double *L, const double *x, double *S,
+                   double *D)
 {
     size_t i, j, k;
     for (i = 0; i < n; i++) {
+        double s = 0.0;
+        for (k = 0; k < n; k++)
+            s += x[k] * L[i * n + k];
+        S[i] = s;
+    }
+    for (i = 0; i < n; i++) {
         D[i * n + i] = 0.0;
         for (j = i + 1; j < n; j++) {
-            double s =
-                x[j] * log(dinf[i * n + j]) + x[i] * log(dinf[j * n + i]);
-            for (k = 0; k < n; k++)
-                if (k != i && k != j)
-                    s += 0.5 * x[k] *
-                         (log(dinf[i * n + k]) + log(dinf[j * n + k]));
-            D[i * n + j] = D[j * n + i] = exp(s);
+            double a = x[j] * L[i * n + j], b = x[i] * L[j * n + i];
+            double e = a + b + 0.5 * ((S[i] - a) + (S[j] - b));
+            D[i * n + j] = D[j * n + i] = exp(e);
         }
     }
+}
+
+void mcdi_liquid_log_dinf(const mcd_liquid *liq, double *L)
+{
+    size_t n = liq->n, i, j;
+    for (i = 0; i < n; i++)
+        for (j = 0; j < n; j++)
+            L[i * n + j] = i == j ? 0.0 : log(liq->dinf[i * n + j]);
 }
 
 mcd_status mcdi_liquid_partial(const mcd_liquid *liq, double T, const double *x,
@@ -234,16 +252,78 @@ mcd_status mcdi_api_liquid_vle(mcd_workspace *ws, const mcd_liquid *liq,
     return MCD_OK;
 }
 
+/* The state at (T, l->x) into the liquid scratch: pair matrix, ln gamma,
+ * H, the stability test, Gamma and, given lnD (ln D°, n x n), the
+ * diffusivities (l->D).
+ * l->x holds validated mole fractions summing to one; the parameters are
+ * checked (check_params). xname names the caller's argument that holds
+ * the composition in the message of an unstable state. */
+static mcd_status state_core(const mcd_liquid *liq, double T, const mcdi_liq *l,
+                             const double *lnD, unsigned *warn,
+                             const char *xname)
+{
+    mcdi_act_scratch sc;
+    mcd_status st;
+    size_t n = liq->n, i, j;
+    if ((st = pair_matrix(liq, T, l->t, warn)) != MCD_OK)
+        return st;
+    sc.s1 = l->s1, sc.s2 = l->s2, sc.s3 = l->s3, sc.r = l->r, sc.q = l->q;
+    sc.g = l->g, sc.w = l->w, sc.p = l->p;
+    if (mcdi_activity_eval(liq, l->t, l->x, l->lng, l->H, &sc) != 0)
+        return mcdi_fail(MCD_EDOM,
+                         "%s: activity coefficients overflow at "
+                         "T = %g K (parameters out of range)",
+                         model_name(liq->model), T);
+    if (!stable(n, l->x, l->H, l->A))
+        return mcdi_fail(MCD_EDOM,
+                         "argument %s: the liquid is not stable at this "
+                         "composition and T = %g K (thermodynamic factor not "
+                         "positive definite: it splits into two liquid "
+                         "phases)",
+                         xname, T);
+    for (i = 0; i < n; i++)
+        for (j = 0; j < n; j++)
+            l->Gam[i * n + j] =
+                (i == j ? 1.0 : 0.0) + l->x[i] * l->H[i * n + j];
+    if (lnD != NULL)
+        vignes(n, lnD, l->x, l->s1, l->D);
+    return MCD_OK;
+}
+
+mcd_status mcdi_liquid_ready(const mcd_liquid *liq, int need_d)
+{
+    return check_params(liq, need_d);
+}
+
+mcd_status mcdi_liquid_state(mcd_workspace *ws, const mcd_liquid *liq, double T,
+                             const double *x, const char *xname,
+                             const double *lnD, double *out_Gamma,
+                             double *out_Dij, unsigned *warn)
+{
+    mcdi_liq l;
+    mcd_status st;
+    size_t n = liq->n;
+    mcdi_liq_scratch(ws, &l);
+    memcpy(l.x, x, n * sizeof(double));
+    if ((st = state_core(liq, T, &l, out_Dij != NULL ? lnD : NULL, warn,
+                         xname)) != MCD_OK)
+        return st;
+    if (out_Gamma != NULL)
+        memcpy(out_Gamma, l.Gam, n * n * sizeof(double));
+    if (out_Dij != NULL)
+        memcpy(out_Dij, l.D, n * n * sizeof(double));
+    return MCD_OK;
+}
+
 mcd_status mcdi_api_liquid_eval(mcd_workspace *ws, const mcd_liquid *liq,
                                 double T, const double *x, double *out_lngamma,
                                 double *out_Gamma, double *out_Dij,
                                 unsigned *out_warn)
 {
     mcdi_liq l;
-    mcdi_act_scratch sc;
     unsigned warn = 0;
     mcd_status st;
-    size_t n, i, j;
+    size_t n;
     if ((st = MCDI_CHECK_PTRS3(ws, liq, x)) != MCD_OK)
         return st;
     n = liq->n;
@@ -254,27 +334,11 @@ mcd_status mcdi_api_liquid_eval(mcd_workspace *ws, const mcd_liquid *liq,
         return st;
     mcdi_liq_scratch(ws, &l);
     mcdi_comp_scale_to_one(n, x, l.x);
-    if ((st = pair_matrix(liq, T, l.t, &warn)) != MCD_OK)
-        return st;
-    sc.s1 = l.s1, sc.s2 = l.s2, sc.s3 = l.s3, sc.r = l.r, sc.q = l.q;
-    sc.g = l.g, sc.w = l.w, sc.p = l.p;
-    if (mcdi_activity_eval(liq, l.t, l.x, l.lng, l.H, &sc) != 0)
-        return mcdi_fail(MCD_EDOM,
-                         "%s: activity coefficients overflow at "
-                         "T = %g K (parameters out of range)",
-                         model_name(liq->model), T);
-    if (!stable(n, l.x, l.H, l.A))
-        return mcdi_fail(MCD_EDOM,
-                         "argument x: the liquid is not stable at this "
-                         "composition and T = %g K (thermodynamic factor not "
-                         "positive definite: it splits into two liquid "
-                         "phases)",
-                         T);
-    for (i = 0; i < n; i++)
-        for (j = 0; j < n; j++)
-            l.Gam[i * n + j] = (i == j ? 1.0 : 0.0) + l.x[i] * l.H[i * n + j];
     if (out_Dij != NULL)
-        vignes(n, liq->dinf, l.x, l.D);
+        mcdi_liquid_log_dinf(liq, l.L);
+    if ((st = state_core(liq, T, &l, out_Dij != NULL ? l.L : NULL, &warn,
+                         "x")) != MCD_OK)
+        return st;
     if (out_lngamma != NULL)
         memcpy(out_lngamma, l.lng, n * sizeof(double));
     if (out_Gamma != NULL)

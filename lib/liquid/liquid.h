@@ -45,4 +45,27 @@ typedef struct mcdi_act_scratch {
 int mcdi_activity_eval(const mcd_liquid *liq, const double *t, const double *x,
                        double *lng, double *H, const mcdi_act_scratch *sc);
 
+/* Every parameter the model (and, with need_d, the diffusivities) needs
+ * is set; else ENODATA naming the first missing one (liq_eval.c). The
+ * check of mcd_liquid_eval, for callers that evaluate many states. */
+mcd_status mcdi_liquid_ready(const mcd_liquid *liq, int need_d);
+
+/* L_ij = ln D°_ij (n x n, 0 on the diagonal) of a liquid whose D° are
+ * all set: the logarithms of the diffusivities, once per call. */
+void mcdi_liquid_log_dinf(const mcd_liquid *liq, double *L);
+
+/* The liquid at (T, x) without the argument checks of mcd_liquid_eval:
+ * T > 0 and x (n validated mole fractions summing to one) already
+ * checked, mcdi_liquid_ready(liq, out_Dij != NULL) passed, lnD from
+ * mcdi_liquid_log_dinf (read only with out_Dij). Writes Gamma
+ * (n x n) and Đ (n x n) unless NULL (both NULL: only the stability test)
+ * and ORs warning bits into *warn; nothing written on failure. EDOM for
+ * an overflow or an unstable state ("argument <xname>: the liquid is not
+ * stable ..."). Uses the liquid bank's eval regions (liq_layout.h), so x
+ * and the outputs must lie elsewhere (e.g. its cell regions). */
+mcd_status mcdi_liquid_state(mcd_workspace *ws, const mcd_liquid *liq, double T,
+                             const double *x, const char *xname,
+                             const double *lnD, double *out_Gamma,
+                             double *out_Dij, unsigned *warn);
+
 #endif

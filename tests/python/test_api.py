@@ -947,6 +947,65 @@ class Liquids(unittest.TestCase):
         self.assertAlmostEqual(J[0] / ref, 1.0, delta=1e-12)
         with self.assertRaises(mcdiff.DomainError):
             liq.eval(300.0, [0.5, 0.5])  # beyond the spinodal
+        # the warning flags are the package's Warning bits
+        self.assertIsInstance(s.warnings, mcdiff.Warning)
+        self.assertEqual(int(s.warnings), 0)
+        liq.set_pair(0, 1, [1.0, 0, 0], [1.0, 0, 0], alpha=0.0,
+                     T_range=(280.0, 290.0))
+        w = liq.eval(300.0, [0.3, 0.7]).warnings
+        self.assertEqual(w, mcdiff.Warning.TEMPERATURE)
+        liq.close()
+
+    def test_batched_fluxes(self):
+        # the liquid above (A = 2) at 4 cells, cells last: the binary
+        # closed form J_1 = -c Dvignes (1 - 2 A x_1 x_2) grad x_1 (Taylor
+        # and Krishna 1993, ch. 2), the single-state route to 1e-13 (the
+        # same code per cell), mass fluxes as that route's; with partial
+        # molar volumes (constant: c = 1 / sum x_i V_i) the volume frame,
+        # J^V_1 = c V_2 J_1 and V_1 J^V_1 + V_2 J^V_2 = 0; an unstable
+        # cell (x_1 = 0.5: 2 A x_1 x_2 = 1) raises DomainError naming it
+        liq = mcdiff.Liquid(2, "nrtl")
+        liq.set_pair(0, 1, [1.0, 0, 0], [1.0, 0, 0], alpha=0.0)
+        liq.set_dinf(0, 1, 2e-9, 1e-9)
+        x1 = [0.3, 0.1, 0.85, 0.05]
+        K, V1, V2, M = 4, 4.1e-5, 1.8e-5, [0.032, 0.018]
+        comp = [x1, [1 - v for v in x1]]
+        g1 = [2.0, -1.0, 0.5, 3.0]
+        grad = [g1, [-v for v in g1]]
+        T = [290.0, 300.0, 310.0, 320.0]
+        c = [1.0 / (v * V1 + (1 - v) * V2) for v in x1]
+        r = liq.flux_batch(T, c, comp, grad)
+        self.assertEqual(int(r.warnings), 0)
+        J = rows(r.flux)
+        for k in range(K):
+            x = x1[k]
+            ref = (-c[k] * 2e-9 ** (1 - x) * 1e-9 ** x
+                   * (1 - 4 * x * (1 - x)) * g1[k])
+            self.assertAlmostEqual(J[0][k] / ref, 1.0, delta=1e-12)
+            self.assertAlmostEqual(J[1][k] / ref, -1.0, delta=1e-12)
+            one = flat(liq.fluxes(T[k], c[k], [x, 1 - x], [g1[k], -g1[k]]))
+            self.assertLessEqual(abs(J[0][k] - one[0]), 1e-13 * abs(one[0]))
+        jm = rows(mcdiff.liquid_flux_batch(liq, T, c, comp, grad, M=M,
+                                           flux_basis="mass").flux)
+        for k in range(K):
+            x = x1[k]
+            one = flat(liq.fluxes(T[k], c[k], [x, 1 - x], [g1[k], -g1[k]],
+                                  M=M, flux_basis="mass"))
+            for i in range(2):
+                self.assertLessEqual(abs(jm[i][k] - one[i]),
+                                     1e-13 * abs(one[0]))
+        Vbar = [[V1] * K, [V2] * K]
+        JV = rows(liq.flux_batch(T, c, comp, grad, Vbar=Vbar).flux)
+        for k in range(K):
+            self.assertAlmostEqual(JV[0][k] / (c[k] * V2 * J[0][k]), 1.0,
+                                   delta=1e-12)
+            self.assertLessEqual(abs(V1 * JV[0][k] + V2 * JV[1][k]),
+                                 1e-12 * V1 * abs(JV[0][k]))
+        comp[0][2], comp[1][2] = 0.5, 0.5
+        with self.assertRaises(mcdiff.DomainError) as cm:
+            liq.flux_batch(T, c, comp, grad)
+        self.assertIn("cell 2:", str(cm.exception))
+        self.assertIn("not stable", str(cm.exception))
         liq.close()
 
     def test_stefan_tube_water(self):

@@ -289,6 +289,9 @@ SIGNATURES = {
     "mcd_liquid_set_dinf": (_ST, [_H, _SZ, _SZ, _D, _D]),
     # (ws, liq, T, x, out_lngamma, out_Gamma, out_Dij, out_warn)
     "mcd_liquid_eval": (_ST, [_H, _H, _D, _PD, _PD, _PD, _PD, _PU]),
+    # (ws, liq, model, T, c, M, Vbar, cells, flux_basis, out_flux, out_warn)
+    "mcd_liquid_flux_batch": (_ST, [_H, _H, _E, _PD, _PD, _PD, _PD, _H, _E,
+                                    _PD, _PU]),
     # (liq, i, A, B, C, T_min, T_max)
     "mcd_liquid_set_antoine": (_ST, [_H, _SZ, _D, _D, _D, _D, _D]),
     # (ws, liq, T, x, out_p, out_warn)

@@ -50,7 +50,7 @@ __all__ = [
     "flux_convert", "flux_to_volume_frame", "flux_to_species_frame",
     "flux_total", "flux_velocity_difference", "flux_project", "flux_diagnose",
     # batched
-    "flux_batch", "flux_batch_dij",
+    "flux_batch", "flux_batch_dij", "liquid_flux_batch",
     # transfer
     "film_solve", "film_profile", "bulbs_linearized", "bulbs_integrate",
     # viscosity
@@ -69,7 +69,7 @@ __all__ = [
     # results
     "FickMatrix", "TotalFlux", "ProjectedFlux", "FilmResult", "BulbsResult",
     "ViscosityEstimate", "DgmClosed", "DgmGradients", "SlabResult",
-    "TemperatureRange",
+    "TemperatureRange", "LiquidFluxes",
     "default_workspace",
 ]
 
@@ -83,6 +83,9 @@ ProjectedFlux = collections.namedtuple("ProjectedFlux", "flux residual")
 FilmResult = collections.namedtuple("FilmResult", "N iterations residual")
 FilmResult.__doc__ = """Steady film fluxes N [mol/(m^2 s)], iterations used
 and the last relative change (RATIOS: the end-composition residual)."""
+LiquidFluxes = collections.namedtuple("LiquidFluxes", "flux warnings")
+LiquidFluxes.__doc__ = """Batched fluxes of a liquid (the shape of grad)
+and the Warning flags of all cells together (liquid_flux_batch)."""
 BulbsResult = collections.namedtuple("BulbsResult", "x1 x2")
 BulbsResult.__doc__ = """Two-bulb mole fractions, each n_times x n."""
 
@@ -1032,6 +1035,56 @@ def flux_batch_jacobian(Dij, c, comp, grad, *, M=None,
                                      ctypes.byref(cells), fb, o.ptr, oj.ptr)
     ws.check(st, "mcd_flux_batch_jacobian")
     return o.result(), oj.result()
+
+
+def liquid_flux_batch(liquid, T, c, comp, grad, *, M=None, Vbar=None,
+                      model="maxwell-stefan", comp_basis="mole",
+                      flux_basis=None, kT=None, grad_lnT=None,
+                      workspace=None, out=None):
+    """Diffusion fluxes of a Liquid at many cells (mcd_liquid_flux_batch,
+    cells last): at each cell Gamma and the Vignes / Kooijman-Taylor Dij
+    of the liquid at (T, x), then the Maxwell-Stefan (or
+    mixture-averaged) fluxes. T [K] and c [mol/m^3]: length K or
+    scalars; comp (N, K); grad (N, n_dim, K) or (N, K); M (N,) [kg/mol]
+    for the mass basis; Vbar (N, K) partial molar volumes [m^3/mol] for
+    fluxes relative to the volume-average velocity (c sum x_i Vbar_i = 1
+    in each cell); thermal diffusion: kT (N, K) with grad_lnT (n_dim, K).
+    Returns LiquidFluxes(flux of the shape of grad, Warning flags).
+    A cell where the liquid splits raises DomainError naming the cell."""
+    from .handles import Liquid
+    if not isinstance(liquid, Liquid):
+        raise TypeError("liquid must be an mcdiff.Liquid")
+    mdl = coerce(Model, model, "model")
+    cb = coerce(Basis, comp_basis, "comp_basis")
+    fb = cb if flux_basis is None else coerce(Basis, flux_basis, "flux_basis")
+    N = len(liquid)
+    a0 = _arrays.as_doubles(comp, "comp")
+    if a0.ndim == 2:
+        K = a0.shape[1]
+    else:
+        K = a0.size // N if N else 0
+    Ta = _per_cell(T, K, "T")
+    ca = _per_cell(c, K, "c")
+    a, g, nd, _lp = _batch_fields(N, K, a0, grad, None, "soa")
+    kt, lt = _batch_thermal(N, K, nd, kT, grad_lnT)
+    m = _opt(M, lambda v: _arrays.vector(v, N, "M"))
+    V = None
+    if Vbar is not None:
+        V = _arrays.as_doubles(Vbar, "Vbar")
+        if not (V.shape == (N, K) or (V.ndim == 1 and V.size == N * K)):
+            raise ValueError("Vbar: expected shape %s, got %s"
+                             % ((N, K), V.shape))
+    ws = _ws(workspace, N)
+    o = _arrays.Output(g.shape, out)
+    w = ctypes.c_uint()
+    cells = mcd_cells(n_cells=K, n_dim=nd, comp_basis=cb, comp=a.ptr,
+                      grad=g.ptr, kT=_ptr(kt), grad_lnT=_ptr(lt))
+    st = lib.mcd_liquid_flux_batch(ws._p(), liquid._p(), mdl, Ta.ptr, ca.ptr,
+                                   _ptr(m), _ptr(V), ctypes.byref(cells), fb,
+                                   o.ptr, ctypes.byref(w))
+    ws.check(st, "mcd_liquid_flux_batch")
+    return LiquidFluxes(out if out is not None else o.result(),
+                        Warning(w.value))
 
 
 # ---------------------------------------------------------------------------

@@ -637,7 +637,7 @@ class Liquid(_Handle):
         self._st(st, "mcd_liquid_eval")
         return LiquidState(lg.result(), G.result(),
                            None if D is None else D.result(),
-                           Warning(w.value))
+                           EstimateWarning(w.value))
 
     def vle(self, T, x, *, workspace=None):
         """Partial pressures [Pa] over the liquid (modified Raoult's
@@ -658,6 +658,12 @@ class Liquid(_Handle):
         from .api import flux_compute
         s = self.eval(T, x)
         return flux_compute(s.Dij, c, x, grad, Gamma=s.Gamma, **kw)
+
+    def flux_batch(self, T, c, comp, grad, **kw):
+        """Fluxes at many cells (mcdiff.liquid_flux_batch, cells last; the
+        keyword arguments are its): LiquidFluxes(flux, warnings)."""
+        from .api import liquid_flux_batch
+        return liquid_flux_batch(self, T, c, comp, grad, **kw)
 
     def evaporation(self, T, P, x_liq, *, Dij, c, L, xL, M, rho_liquid,
                     workspace=None):
@@ -684,7 +690,7 @@ class Liquid(_Handle):
             ctypes.byref(rate), ctypes.byref(level), ctypes.byref(w))
         self._st(st, "mcd_liquid_evaporation")
         return Evaporation(y0.result(), N.result(), rate.value, level.value,
-                           Warning(w.value))
+                           EstimateWarning(w.value))
 
     def __repr__(self):
         if self.closed:
