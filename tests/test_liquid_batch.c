@@ -17,6 +17,7 @@
 
 #include "mcdiff.h"
 #include "support.h"
+#include "liquid_support.h"
 
 #define NMAX 6
 #define KMAX 41
@@ -32,43 +33,6 @@ static void teardown(void) { mcd_workspace_free(ws); }
 static const mcd_activity_model models[4] = {
     MCD_ACTIVITY_NRTL, MCD_ACTIVITY_WILSON, MCD_ACTIVITY_UNIQUAC,
     MCD_ACTIVITY_IDEAL};
-
-/* A liquid of n species with random parameters of model m: moderate
- * interactions (tau of order 1, as in published fits of miscible pairs;
- * the same ranges as tests/test_liquid.c) and D° of 0.3 to 3 1e-9 m^2/s. */
-static mcd_liquid *random_liquid(sup_rng *r, mcd_activity_model m, size_t n)
-{
-    mcd_liquid *liq = NULL;
-    ck_assert_int_eq(mcd_liquid_new(n, m, &liq), MCD_OK);
-    for (size_t i = 0; i < n; i++) {
-        double ri = sup_range(r, 0.9, 5.0);
-        ck_assert_int_eq(mcd_liquid_set_species(liq, i, MCD_LIQ_MOLAR_VOLUME,
-                                                sup_range(r, 2e-5, 1.5e-4)),
-                         MCD_OK);
-        ck_assert_int_eq(mcd_liquid_set_species(liq, i, MCD_LIQ_UNIQUAC_R, ri),
-                         MCD_OK);
-        ck_assert_int_eq(mcd_liquid_set_species(liq, i, MCD_LIQ_UNIQUAC_Q,
-                                                ri * sup_range(r, 0.8, 1.2)),
-                         MCD_OK);
-        for (size_t j = i + 1; j < n; j++) {
-            double f = m == MCD_ACTIVITY_UNIQUAC ? 0.3 : 1.0;
-            double cij[3] = {f * sup_range(r, -0.2, 0.2),
-                             f * sup_range(r, -100, 200),
-                             f * sup_range(r, -0.03, 0.03)};
-            double cji[3] = {f * sup_range(r, -0.2, 0.2),
-                             f * sup_range(r, -100, 200),
-                             f * sup_range(r, -0.03, 0.03)};
-            ck_assert_int_eq(mcd_liquid_set_pair(liq, i, j, cij, cji,
-                                                 sup_range(r, 0.1, 0.5), 0, 0),
-                             MCD_OK);
-            ck_assert_int_eq(mcd_liquid_set_dinf(liq, i, j,
-                                                 sup_decades(r, -9.5, -8.5),
-                                                 sup_decades(r, -9.5, -8.5)),
-                             MCD_OK);
-        }
-    }
-    return liq;
-}
 
 /* One batch: K cells in SoA arrays, and per cell what the single-state
  * route needs (mole fractions x, the call's composition y). */
