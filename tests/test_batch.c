@@ -658,6 +658,89 @@ START_TEST(batch_errors_name_the_cell_and_write_nothing_on_argument_errors)
 }
 END_TEST
 
+/* The loading stages check a full block of lanes in registers and the
+ * tail block lane by lane: a bad input in either gives the status and the
+ * words of the single-state call on that cell, and the lowest bad cell is
+ * named. K = 27: cell 9 lies in a full block for 2, 4 and 8 lanes, cell 25
+ * in the tail for 4 and 8 lanes. Exact model, 3 directions. */
+START_TEST(batch_bad_cells_in_full_and_tail_blocks_are_named)
+{
+    enum { N = 3, K = 27, ND = 3 };
+    const size_t at[] = {9, 25};
+    cells s;
+    double out[N * ND * K];
+    mcd_workspace *ws;
+    size_t a, i, q;
+    sup_seed(&rng, 0xBA7C4021ull);
+    ck_assert_int_eq(mcd_workspace_new(N, &ws), MCD_OK);
+    cells_make(&s, N, K, ND);
+    for (a = 0; a < sizeof at / sizeof at[0]; a++) {
+        const size_t k = at[a];
+        struct {
+            double *p;
+            double v;
+            mcd_status st;
+        } bad[] = {
+            {&s.c[k], NAN, MCD_EINVAL},
+            {&s.c[k], 0.0, MCD_EDOM},
+            {&s.comp[1 * K + k], -0.1, MCD_EDOM},
+            {&s.comp[2 * K + k], INFINITY, MCD_EINVAL},
+            {&s.comp[0 * K + k], 3.0, MCD_EDOM} /* sum */,
+            {&s.grad[7 * K + k], -INFINITY, MCD_EINVAL},
+            {&s.grad[0 * K + k], NAN, MCD_EINVAL},
+            {&s.D[(2 * N + 0) * K + k], 1e-310, MCD_EDOM} /* subnormal */,
+            {&s.D[(0 * N + 2) * K + k], INFINITY, MCD_EINVAL},
+            {&s.D[(1 * N + 2) * K + k], NAN, MCD_EINVAL},
+            {&s.D[(2 * N + 1) * K + k], 0.0, MCD_EDOM},
+        };
+        for (i = 0; i < sizeof bad / sizeof bad[0]; i++) {
+            const double keep = *bad[i].p;
+            double Dc[N * N], xc[N], gc[N * ND], oc[N * ND];
+            char want[32], batched[256];
+            mcd_status st;
+            *bad[i].p = bad[i].v;
+            st = mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, N, NULL, s.D,
+                                    s.c,
+                                    &(mcd_cells){.n_cells = K,
+                                                 .n_dim = ND,
+                                                 .comp_basis = MCD_BASIS_MOLE,
+                                                 .comp = s.comp,
+                                                 .grad = s.grad},
+                                    MCD_BASIS_MOLE, out);
+            ck_assert_msg(st == bad[i].st, "cell %zu case %zu: status %d", k, i,
+                          (int)st);
+            snprintf(want, sizeof want, "cell %zu: ", k);
+            ck_assert_msg(strncmp(mcd_last_error(), want, strlen(want)) == 0,
+                          "case %zu: %s", i, mcd_last_error());
+            snprintf(batched, sizeof batched, "%s",
+                     mcd_last_error() + strlen(want));
+            /* the same words as the single-state call on that cell */
+            for (q = 0; q < N * N; q++)
+                Dc[q] = s.D[q * K + k];
+            for (q = 0; q < N; q++)
+                xc[q] = s.comp[q * K + k];
+            for (q = 0; q < N * ND; q++)
+                gc[q] = s.grad[q * K + k];
+            ck_assert_int_eq(
+                mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
+                                 &(mcd_state){.n_species = N,
+                                              .n_dim = ND,
+                                              .Dij = Dc,
+                                              .c = s.c[k],
+                                              .comp_basis = MCD_BASIS_MOLE,
+                                              .comp = xc,
+                                              .grad = gc},
+                                 MCD_BASIS_MOLE, oc),
+                bad[i].st);
+            ck_assert_str_eq(batched, mcd_last_error());
+            *bad[i].p = keep;
+        }
+    }
+    cells_free(&s);
+    mcd_workspace_free(ws);
+}
+END_TEST
+
 START_TEST(batch_overflowing_fluxes_are_reported_with_the_cell)
 {
     /* Inputs each finite and in range whose fluxes overflow (c Đ grad ~
@@ -885,6 +968,7 @@ int main(void)
     tcase_add_test(tc, batch_power_law_mixture_iterative_matches_exact);
     tcase_add_test(
         tc, batch_errors_name_the_cell_and_write_nothing_on_argument_errors);
+    tcase_add_test(tc, batch_bad_cells_in_full_and_tail_blocks_are_named);
     tcase_add_test(tc, batch_overflowing_fluxes_are_reported_with_the_cell);
     tcase_add_test(tc, batch_threads_give_identical_results);
     tcase_add_test(tc, batch_outputs_at_every_line_offset_match_the_aos_path);

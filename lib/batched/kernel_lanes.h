@@ -57,8 +57,12 @@ KINLINE void load_row(double *restrict dst, const double *restrict src,
 {
     size_t l;
     /* the next blocks of this input stream (a few dozen streams at once
-     * are more than the hardware prefetchers follow) */
-    __builtin_prefetch(src + MCDI_PREFETCH, 0, 0);
+     * are more than the hardware prefetchers follow), into every cache
+     * level (prefetcht0): the non-temporal hint (prefetchnta) kept the
+     * lines out of L2, so inputs that fit in the caches came from L3 on
+     * every call; on the Intel AVX-512 host t0 ran N = 10 1.7x and N = 3
+     * streamed 1.3x faster than nta (issue 15, A/B in DEVELOPERS.md) */
+    __builtin_prefetch(src + MCDI_PREFETCH, 0, 3);
     if (nv == L) {
         for_lanes (l)
             dst[l] = src[l];
@@ -77,6 +81,42 @@ typedef double mcdi_vd
     __attribute__((vector_size(MCDI_VLANES * sizeof(double)), may_alias));
 typedef long long mcdi_vl
     __attribute__((vector_size(MCDI_VLANES * sizeof(long long)), may_alias));
+
+/* Full vector blocks (nv == L == MCDI_VLANES): load row src[0 .. L-1]
+ * into the aligned scratch row dst and return it, so that the loading
+ * stages check the value in a register (their flags accumulate in a
+ * register too, and reach bl once per stage: OR-ing each row's flags
+ * into bl in memory chained every row of inputs through a store and a
+ * reload, about 5 ns per cell at N = 3, issue 15). */
+KINLINE mcdi_vd load_v(const double *restrict src)
+{
+    mcdi_vd v;
+    __builtin_prefetch(src + MCDI_PREFETCH, 0, 3); /* as load_row */
+    memcpy(&v, src, sizeof v);
+    return v;
+}
+
+KINLINE mcdi_vd load_vrow(double *restrict dst, const double *restrict src)
+{
+    const mcdi_vd v = load_v(src);
+    *(mcdi_vd *)(void *)dst = v;
+    return v;
+}
+
+/* Lanes whose value is not finite (or NaN): all ones there. */
+KINLINE mcdi_vl not_finite_v(const mcdi_vd v)
+{
+    return ~((v >= -DBL_MAX) & (v <= DBL_MAX));
+}
+
+/* OR a lane vector of flags into bl (kernel_stages.h). */
+KINLINE void flag_lanes(long long *restrict bl, const mcdi_vl bad)
+{
+    mcdi_vl cur;
+    memcpy(&cur, bl, sizeof cur);
+    cur |= bad;
+    memcpy(bl, &cur, sizeof cur);
+}
 
 /* Up to this many species the pivots and the multipliers W live in local
  * arrays, which become registers once the loops over a constant n are

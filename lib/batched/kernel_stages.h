@@ -47,6 +47,9 @@ KINLINE void stage_load_scalars(const mcdi_bjob *jb, const mcdi_kblock *b,
             c[l] = Pl[l] / (RGAS * Tl[l]);
             bl[l] |= !(c[l] >= DBL_MIN); /* a normal c, as single-state */
         }
+    } else if (L == MCDI_VLANES && nv == L) {
+        const mcdi_vd v = load_vrow(c, jb->c + k0);
+        flag_lanes(bl, ~((v >= DBL_MIN) & (v <= DBL_MAX)));
     } else {
         load_row(c, jb->c + k0, nv, L);
         for_lanes (l)
@@ -64,6 +67,21 @@ KINLINE void stage_load_comp(const mcdi_bjob *jb, const mcdi_kblock *b,
     double *restrict sum = b->sum;
     double *restrict y = jb->comp_basis == MCD_BASIS_MASS ? b->w : b->x;
     size_t i, l;
+    if (L == MCDI_VLANES && nv == L) {
+        /* the same rules on registers (kernel_lanes.h) */
+        mcdi_vd sm = {0.0};
+        mcdi_vl bad = {0};
+        for (i = 0; i < n; i++) {
+            const mcdi_vd q = load_vrow(y + i * L, jb->comp + i * K + k0);
+            bad |= ~((q >= 0.0) & (q <= DBL_MAX));
+            sm += q;
+        }
+        *(mcdi_vd *)(void *)sum = sm;
+        /* |sum - 1| <= tol, written so that NaN fails */
+        bad |= ~((sm - 1.0 <= MCD_SUM_TOL) & (sm - 1.0 >= -MCD_SUM_TOL));
+        flag_lanes(bl, bad);
+        return;
+    }
     for_lanes (l)
         sum[l] = 0.0;
     for (i = 0; i < n; i++) {
@@ -106,6 +124,21 @@ KINLINE void stage_load_forces(const mcdi_bjob *jb, const mcdi_kblock *b,
     const size_t K = jb->K;
     double *restrict d = b->d, *restrict v = b->v;
     size_t i, dd, l;
+    if (L == MCDI_VLANES && nv == L) {
+        /* the same rules on registers (kernel_lanes.h) */
+        mcdi_vl bad = {0};
+        for (i = 0; i < n * nd; i++)
+            bad |= not_finite_v(load_vrow(d + i * L, jb->grad + i * K + k0));
+        for (dd = 0; jb->glnP != NULL && dd < nd; dd++)
+            bad |= not_finite_v(load_vrow(v + dd * L, jb->glnP + dd * K + k0));
+        for (i = 0; jb->kT != NULL && i < n; i++)
+            bad |= not_finite_v(load_vrow(b->kT + i * L, jb->kT + i * K + k0));
+        for (dd = 0; jb->kT != NULL && dd < nd; dd++)
+            bad |=
+                not_finite_v(load_vrow(b->gT + dd * L, jb->glnT + dd * K + k0));
+        flag_lanes(bl, bad);
+        return;
+    }
     for (i = 0; i < n * nd; i++) {
         load_row(d + i * L, jb->grad + i * K + k0, nv, L);
         for_lanes (l)
@@ -154,6 +187,27 @@ KINLINE void stage_invdiff_dij(const mcdi_bjob *jb, const mcdi_kblock *b,
     const size_t K = jb->K;
     double *restrict wk = b->wk;
     size_t i, j, l;
+    if (L == MCDI_VLANES && nv == L) {
+        /* the same rules on registers (kernel_lanes.h) */
+        mcdi_vd *tri = (mcdi_vd *)(void *)b->tri;
+        mcdi_vl bad = {0};
+        for (i = 1; i < n; i++)
+            for (j = 0; j < i; j++) {
+                const mcdi_vd a = load_v(jb->Dij + (j * n + i) * K + k0);
+                const mcdi_vd bb = load_v(jb->Dij + (i * n + j) * K + k0);
+                const mcdi_vl gt = a > bb;
+                /* a > bb ? a : bb, and |a - bb| <= 1e-12 max (NaN fails) */
+                const mcdi_vd mx =
+                    (mcdi_vd)((gt & (mcdi_vl)a) | (~gt & (mcdi_vl)bb));
+                const mcdi_vd df = a - bb, tol = 1e-12 * mx;
+                bad |= ~((a >= DBL_MIN) & (a <= DBL_MAX));
+                bad |= ~((bb >= DBL_MIN) & (bb <= DBL_MAX));
+                bad |= ~((df <= tol) & (df >= -tol));
+                tri[i * (i + 1) / 2 + j] = 1.0 / a;
+            }
+        flag_lanes(bl, bad);
+        return;
+    }
     for (i = 1; i < n; i++)
         for (j = 0; j < i; j++) {
             double *q = b->tri + (i * (i + 1) / 2 + j) * L;
