@@ -56,6 +56,16 @@ KINLINE mcdi_vd recip_pivot(const mcdi_vd d, const size_t n)
  * large n; one load per FMA was the limit), then the tile's own triangle
  * row by row. Wm: KTILE * n vectors (the tile's W rows). Up to KREG
  * species W and 1/D are local arrays, registers after unrolling. */
+/* GCC left the row loop of the constant-n instances (n <= 5) rolled, with
+ * W and 1/D in memory and a compare-and-branch per column; unrolled, they
+ * live in registers (issue 15, A/B: factor and solve 7.7 -> 5.2 ns per
+ * cell at N = 5, whole call 27.0 -> 24.2; 12.8 -> 12.1 at N = 3; N = 7,
+ * 10 and 20 unchanged within noise). */
+#if defined(__GNUC__) && !defined(__clang__)
+#define LDL_UNROLL _Pragma("GCC unroll 8")
+#else
+#define LDL_UNROLL
+#endif
 KINLINE void ldl_row_tail(const size_t nd, mcdi_vd *restrict A, const size_t i,
                           const size_t j0, const mcdi_vd *restrict s,
                           const mcdi_vd a, mcdi_vd *restrict W,
@@ -65,9 +75,11 @@ KINLINE void ldl_row_tail(const size_t nd, mcdi_vd *restrict A, const size_t i,
     mcdi_vd *restrict Ai = A + i * (i + 1) / 2;
     const mcdi_vd si = s[i];
     size_t j, k, dd;
+    LDL_UNROLL
     for (j = j0; j < i; j++) {
         const mcdi_vd *restrict Aj = A + j * (j + 1) / 2;
         mcdi_vd t = si * s[j] * (a - Ai[j]), lij;
+        LDL_UNROLL
         for (k = 0; k < j; k++)
             t -= W[k] * Aj[k];
         W[j] = t;
@@ -90,6 +102,7 @@ KINLINE int ldl_solve_v(const size_t n, const size_t nd, mcdi_vd *restrict A,
     mcdi_vl ok = zero == zero; /* all lanes true */
     size_t i, i0, j, k, dd, l, r;
     const size_t step = n <= KREG ? 1 : KTILE; /* rows per tile */
+    LDL_UNROLL
     for (i0 = 0; i0 < n; i0 += step) {
         const size_t nr = n - i0 < step ? n - i0 : step;
         mcdi_vd f[KTILE][MCD_MAX_DIM];
@@ -127,6 +140,7 @@ KINLINE int ldl_solve_v(const size_t n, const size_t nd, mcdi_vd *restrict A,
             ldl_row_tail(nd, A, ii, (n > KREG && nr == KTILE) ? i0 : 0, s, a, W,
                          iD, R, f[r]);
             dg = S[ii] + a * x[ii];
+            LDL_UNROLL
             for (k = 0; k < ii; k++)
                 dg -= W[k] * Ai[k];
             Dg[ii] = dg;
@@ -139,10 +153,12 @@ KINLINE int ldl_solve_v(const size_t n, const size_t nd, mcdi_vd *restrict A,
     for (l = 0; l < MCDI_VLANES; l++)
         if (ok[l] == 0)
             return 0;
+    LDL_UNROLL
     for (i = n; i-- > 0;) {
         mcdi_vd f[MCD_MAX_DIM];
         for (dd = 0; dd < nd; dd++)
             f[dd] = R[i * nd + dd] * iD[i];
+        LDL_UNROLL
         for (k = i + 1; k < n; k++) {
             const mcdi_vd lki = A[k * (k + 1) / 2 + i];
             for (dd = 0; dd < nd; dd++)
