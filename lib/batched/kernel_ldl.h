@@ -158,8 +158,10 @@ KINLINE int ldl_solve_v(const size_t n, const size_t nd, mcdi_vd *restrict A,
         mcdi_vd f[MCD_MAX_DIM];
         for (dd = 0; dd < nd; dd++)
             f[dd] = R[i * nd + dd] * iD[i];
+        /* the newest unknown (k = i + 1) last: once unrolled, row i
+         * waits for row i + 1 by one multiply-add, not n - i - 1 */
         LDL_UNROLL
-        for (k = i + 1; k < n; k++) {
+        for (k = n - 1; k > i; k--) {
             const mcdi_vd lki = A[k * (k + 1) / 2 + i];
             for (dd = 0; dd < nd; dd++)
                 f[dd] -= lki * R[k * nd + dd];
