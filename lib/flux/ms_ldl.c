@@ -65,41 +65,31 @@
 #define SIMD_LOOP
 #endif
 
-/* Solves after the factor: L y = b (rows of L^T: upper triangle of A),
- * D z = y, L^T u = z (rows of L: lower triangle), in place in Y (m x nd
- * row-major). The pivot row's values are held in scalars: copying them
- * through a small array let GCC merge two 8-byte loads of just-stored
- * values into one 16-byte load, which defeats store forwarding (measured:
- * 13 % of the whole N = 3 call on one instruction). */
-MINLINE void solve_ldl3(size_t m, const double *A, const double *dinv,
-                        double *Y)
+/* The back substitution L^T u = z after D z = y for nd = 3, in place in
+ * Y (m x 3 row-major, y in): row by row from the last, each u_i a chain
+ * of multiply-adds in registers over the row of L^T in the upper triangle
+ * (A[i m + p] = L_pi), p from m - 1 down, the order of the column sweep
+ * it replaces, so the same bits (the column sweep carried every step
+ * through a store and a reload of Y). The pivot row's values are held in
+ * scalars: copying them through a small array let GCC merge two 8-byte
+ * loads of just-stored values into one 16-byte load, which defeats store
+ * forwarding (measured: 13 % of the whole N = 3 call on one
+ * instruction). */
+MINLINE void back_ldl3(size_t m, const double *A, const double *dinv, double *Y)
 {
-    size_t i, j, p;
-    for (p = 0; p + 1 < m; p++) {
-        const double *Up = A + p * m;
-        const double v0 = Y[3 * p], v1 = Y[3 * p + 1], v2 = Y[3 * p + 2];
-        for (j = p + 1; j < m; j++) {
-            const double u = Up[j];
-            Y[3 * j] -= u * v0;
-            Y[3 * j + 1] -= u * v1;
-            Y[3 * j + 2] -= u * v2;
+    size_t i, p;
+    for (i = m; i-- > 0;) {
+        const double *Ui = A + i * m, f = dinv[i];
+        double u0 = Y[3 * i] * f, u1 = Y[3 * i + 1] * f, u2 = Y[3 * i + 2] * f;
+        for (p = m; --p > i;) {
+            const double l = Ui[p];
+            u0 -= l * Y[3 * p];
+            u1 -= l * Y[3 * p + 1];
+            u2 -= l * Y[3 * p + 2];
         }
-    }
-    for (i = 0; i < m; i++) {
-        const double f = dinv[i];
-        Y[3 * i] *= f;
-        Y[3 * i + 1] *= f;
-        Y[3 * i + 2] *= f;
-    }
-    for (p = m; p-- > 1;) {
-        const double *Lp = A + p * m;
-        const double v0 = Y[3 * p], v1 = Y[3 * p + 1], v2 = Y[3 * p + 2];
-        for (i = 0; i < p; i++) {
-            const double l = Lp[i];
-            Y[3 * i] -= l * v0;
-            Y[3 * i + 1] -= l * v1;
-            Y[3 * i + 2] -= l * v2;
-        }
+        Y[3 * i] = u0;
+        Y[3 * i + 1] = u1;
+        Y[3 * i + 2] = u2;
     }
 }
 
@@ -169,31 +159,51 @@ MINLINE size_t ldl_dense(size_t m, size_t nd, double *A, double *dinv,
     /* Up-looking L D L^T. Row i of the lower triangle turns from A_ij into
      * W_ij = L_ij D_j by updates with rows of L^T, which are kept in the
      * upper triangle (A[p m + j] = L_jp): each update is a contiguous
-     * multiply-add over j, independent across j (no dot-product chains). */
+     * multiply-add over j, independent across j (no dot-product chains).
+     * For nd = 3 the forward substitution L y = b runs in the same loop:
+     * y_i -= L_ip y_p as each L_ip is formed (p rising, the order of the
+     * separate row sweep it replaces: the same bits), in registers. */
     for (i = 0; i < m; i++) {
         double *Ai = A + i * m, di = Ai[i];
+        double y0 = 0.0, y1 = 0.0, y2 = 0.0;
+        if (nd == 3) {
+            y0 = Y[3 * i];
+            y1 = Y[3 * i + 1];
+            y2 = Y[3 * i + 2];
+        }
         for (p = 0; p < i; p++) {
             double *Up = A + p * m;
-            const double w = Ai[p], l = w * dinv[p];
+            const double w = Ai[p];
+            double l = w * dinv[p];
             if (skip_zero &&
                 w == 0.0) { /* a trace species' row or column: nothing */
-                Ai[p] = Up[i] = 0.0;
-                continue;
+                Ai[p] = Up[i] = l = 0.0;
+            } else {
+                di -= w * l;
+                for (j = p + 1; j < i; j++)
+                    Ai[j] -= w * Up[j];
+                Ai[p] = l;
+                Up[i] = l;
             }
-            di -= w * l;
-            for (j = p + 1; j < i; j++)
-                Ai[j] -= w * Up[j];
-            Ai[p] = l;
-            Up[i] = l;
+            if (nd == 3) {
+                y0 -= l * Y[3 * p];
+                y1 -= l * Y[3 * p + 1];
+                y2 -= l * Y[3 * p + 2];
+            }
+        }
+        if (nd == 3) {
+            Y[3 * i] = y0;
+            Y[3 * i + 1] = y1;
+            Y[3 * i + 2] = y2;
         }
         if (!(di > 0.0))
             return i + 1;
         dinv[i] = 1.0 / di;
     }
-    /* L y = rhs by rows of L^T, D z = y, L^T u = z by rows of L; the
-     * directions are interleaved in the inner loop (independent chains) */
+    /* D z = y, L^T u = z by rows of L^T (nd = 3); otherwise all three
+     * solves one direction at a time */
     if (nd == 3)
-        solve_ldl3(m, A, dinv, Y);
+        back_ldl3(m, A, dinv, Y);
     else
         solve_ldl(m, nd, A, dinv, Y);
     return 0;
@@ -325,7 +335,9 @@ size_t MSNAME(MCDI_KISA)(size_t m, size_t nd, const double *xp,
             Y[i * nd + dd] = -dp[i * nd + dd] * isq[i];
     }
     {
-        size_t bad = ldl_dense(m, nd, A, dinv, Y, Yt, 0);
+        /* nd = 3 as a constant: the fused forward substitution */
+        size_t bad = nd == 3 ? ldl_dense(m, 3, A, dinv, Y, Yt, 0)
+                             : ldl_dense(m, nd, A, dinv, Y, Yt, 0);
         if (bad != 0)
             return bad;
     }
