@@ -187,13 +187,21 @@ static mcd_status emit_checked(mcd_workspace *ws, size_t n, size_t nd,
                                const double *J, mcd_basis flux_basis,
                                double *out_flux)
 {
-    double acc = 0.0;
+    double acc[4] = {0.0, 0.0, 0.0, 0.0};
     size_t i;
-    /* one NaN-propagating pass (J * 0 is NaN exactly for inf and NaN);
-     * the loop names the species */
-    for (i = 0; i < n * nd; i++)
-        acc += J[i] * 0.0;
-    if (acc != 0.0)
+    /* one NaN-propagating pass (J * 0 is NaN exactly for inf and NaN;
+     * four independent sums, not one chain of n nd additions: every term
+     * is 0 or NaN, so the order does not matter); the loop names the
+     * species */
+    for (i = 0; i + 4 <= n * nd; i += 4) {
+        acc[0] += J[i] * 0.0;
+        acc[1] += J[i + 1] * 0.0;
+        acc[2] += J[i + 2] * 0.0;
+        acc[3] += J[i + 3] * 0.0;
+    }
+    for (; i < n * nd; i++)
+        acc[0] += J[i] * 0.0;
+    if ((acc[0] + acc[1]) + (acc[2] + acc[3]) != 0.0)
         for (i = 0; i < n * nd; i++)
             if (!mcdi_finite(J[i]))
                 return mcdi_fail(MCD_EDOM,
