@@ -337,14 +337,21 @@ mcd_status mcdi_check_finite(mcd_workspace *ws, size_t rows, size_t cols,
                              const double *p, const char *name)
 {
     size_t i;
-    double acc = 0.0;
+    double acc[4] = {0.0, 0.0, 0.0, 0.0};
     if (p == NULL)
         return mcdi_fail(MCD_EINVAL, "argument %s: NULL", name);
     /* p * 0 is 0 for finite p and NaN for inf or NaN: one branch-free
-     * pass; the loop below only names the entry */
-    for (i = 0; i < rows * cols; i++)
-        acc += p[i] * 0.0;
-    if (acc == 0.0)
+     * pass, four independent sums rather than one chain (terms 0 or NaN:
+     * the order does not matter); the loop below only names the entry */
+    for (i = 0; i + 4 <= rows * cols; i += 4) {
+        acc[0] += p[i] * 0.0;
+        acc[1] += p[i + 1] * 0.0;
+        acc[2] += p[i + 2] * 0.0;
+        acc[3] += p[i + 3] * 0.0;
+    }
+    for (; i < rows * cols; i++)
+        acc[0] += p[i] * 0.0;
+    if ((acc[0] + acc[1]) + (acc[2] + acc[3]) == 0.0)
         return MCD_OK;
     return finite_locate(ws, rows, cols, p, 1, name);
 }

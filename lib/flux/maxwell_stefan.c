@@ -241,8 +241,8 @@ static mcd_status solve_state(mcd_workspace *ws, const mcdi_flux_view *v,
     size_t bad;
     if (model == MCD_MODEL_MAXWELL_STEFAN && n <= MCDI_MS_FUSED_N &&
         all_present(n, v->x)) {
-        bad = mcdi_ms_ldl_select()(n, nd, v->x, Dij, n, v->d, c, v->A, v->s,
-                                   v->isq, v->S, v->dinv, v->J, v->Yt);
+        bad = mcdi_ms_ldl_select()(n, nd, v->x, Dij, n, v->d, c, v->A, v->tri,
+                                   v->s, v->isq, v->S, v->dinv, v->J, v->Yt);
     } else {
         /* no Dg, iDg: the one-lane exact solve keeps its pivots in D */
         const mcdi_rows R = {v->tri, v->x,  v->s, v->S, v->num, v->minv, NULL,
@@ -284,8 +284,8 @@ mcd_status mcdi_flux_solve_exact_wide(mcd_workspace *ws, size_t n, size_t ncol,
     size_t bad;
     mcdi_flux_scratch(ws, &v);
     remove_along(F, NULL, x, n, 1, ncol);
-    bad = mcdi_ms_ldl_select()(n, ncol, x, Dij, n, F, c, v.A, v.s, v.isq, v.S,
-                               v.dinv, Y, F);
+    bad = mcdi_ms_ldl_select()(n, ncol, x, Dij, n, F, c, v.A, v.tri, v.s, v.isq,
+                               v.S, v.dinv, Y, F);
     if (bad != 0)
         return mcdi_fail(MCD_ESING,
                          "Maxwell-Stefan matrix not positive definite at "

@@ -288,11 +288,12 @@ size_t RNAME(MCDI_KISA)(const mcdi_rows *R, const mcdi_dense *D,
  * the same ldl_dense. */
 size_t MSNAME(MCDI_KISA)(size_t m, size_t nd, const double *xp,
                          const double *Dp, size_t ld, const double *dp,
-                         double c, double *A, double *sq, double *isq,
-                         double *S, double *dinv, double *Y, double *Yt)
+                         double c, double *A, double *T, double *sq,
+                         double *isq, double *S, double *dinv, double *Y,
+                         double *Yt)
 {
     double a = 0.0;
-    size_t i, j, dd;
+    size_t i, j, k, dd;
 
     /* vectorised: at m = 10 the divider is the bottleneck of the assembly
      * (square roots, reciprocals); +8 % of this routine, measured */
@@ -302,34 +303,45 @@ size_t MSNAME(MCDI_KISA)(size_t m, size_t nd, const double *xp,
         isq[i] = 1.0 / sq[i];
         S[i] = 0.0;
     }
-    /* reciprocals R_kl (l > k) into the upper triangle of A: contiguous
-     * rows of Dp, the one loop worth vectorising at small m */
-    for (i = 0; i + 1 < m; i++) {
-        const double *Di = Dp + i * ld;
-        double *Ai = A + i * m;
+    /* reciprocals R_kl (l > k), packed row by row into T (m(m-1)/2
+     * entries) and then divided in one vectorised pass: per row of Dp the
+     * short rows left most of the divisions to scalar epilogues (the
+     * divider is the limit there) */
+    if (m >= 6) {
+        for (i = 0, k = 0; i + 1 < m; i++) {
+            const double *Di = Dp + i * ld;
+            for (j = i + 1; j < m; j++)
+                T[k++] = Di[j];
+        }
         SIMD_LOOP
-        for (j = i + 1; j < m; j++)
-            Ai[j] = 1.0 / Di[j];
+        for (j = 0; j < k; j++)
+            T[j] = 1.0 / T[j];
+    } else { /* a few pairs: the copy costs more than it saves */
+        for (i = 0, k = 0; i + 1 < m; i++)
+            for (j = i + 1; j < m; j++)
+                T[k++] = 1.0 / Dp[i * ld + j];
     }
     /* Blanc sums S_i = sum_{j != i} x_j R_ij */
-    for (i = 0; i + 1 < m; i++) {
-        const double *Ai = A + i * m, xi = xp[i];
+    for (i = 0, k = 0; i + 1 < m; i++) {
+        const double xi = xp[i];
         double t = S[i];
-        for (j = i + 1; j < m; j++) {
-            t += xp[j] * Ai[j];
-            S[j] += xi * Ai[j];
+        for (j = i + 1; j < m; j++, k++) {
+            t += xp[j] * T[k];
+            S[j] += xi * T[k];
         }
         S[i] = t;
     }
     for (i = 0; i < m; i++)
         if (S[i] > a)
             a = S[i];
-    /* A = Gs + a s s^T into the lower triangle and the diagonal; the
-     * right-hand side -d_k / s_k into Y (m x nd, row-major) */
+    /* A = Gs + a s s^T into the lower triangle and the diagonal (R_ji,
+     * j < i, at T[k]: k starts at i - 1 and steps by the length of row j
+     * less one); the right-hand side -d_k / s_k into Y (m x nd,
+     * row-major) */
     for (i = 0; i < m; i++) {
         double *Ai = A + i * m, si = sq[i];
-        for (j = 0; j < i; j++)
-            Ai[j] = si * sq[j] * (a - A[j * m + i]);
+        for (j = 0, k = i - 1; j < i; k += m - 2 - j, j++)
+            Ai[j] = si * sq[j] * (a - T[k]);
         Ai[i] = S[i] + a * xp[i];
         for (dd = 0; dd < nd; dd++)
             Y[i * nd + dd] = -dp[i * nd + dd] * isq[i];
