@@ -15,6 +15,11 @@
 #include "base/checks.h"
 #include "base/isa.h"
 
+#if defined(MCDI_HAVE_KISA)
+#include <immintrin.h>
+#include <stdint.h>
+#endif
+
 int mcdi_M_span_ok(size_t n, const double *M)
 {
     double lo = M[0], hi = M[0];
@@ -125,49 +130,63 @@ static int dij_all_good_scalar(size_t n, const double *Dij)
 
 #if defined(MCDI_HAVE_KISA)
 /* The same rule four pairs at a time with AVX2 (x86-64 GCC builds, used
- * where base/isa.c chose v3 or v4; GCC vector extensions). Written
- * without max and fabs: for positive a, b the test |a - b| <= tol max(a,
- * b) is (a - b <= tol a) & (b - a <= tol b) (the larger one's side is
- * the test, the other reads "<= 0 <= tol x"), and a NaN, non-positive
- * or infinite entry fails the finite and range tests as above; the
- * conjunction is the same rule, with the same products. Row i of the
- * upper triangle (contiguous) is tested against column i (strided); the
- * last step of a row starts at n - 4 and may repeat entries. Rows shorter
- * than 4 (the last three) go by the scalar rule. Each comparison gives
- * -1 or 0 per lane; `ok` ANDs them in a register, no serial chain of
- * flags (the scalar pass was 15 % of mcd_flux_compute at N = 10). */
-typedef double dij_v4 __attribute__((vector_size(32)));
-typedef long long dij_m4 __attribute__((vector_size(32)));
-
+ * where base/isa.c chose v3 or v4). Per pair |a - b| <= tol max(a, b)
+ * (a NaN makes |a - b| NaN: the test fails, whatever max returns), and
+ * the range tests once at the end on the smallest and the largest entry
+ * seen (a NaN has already failed; min and max of the others are exact).
+ * Row i of the upper triangle (contiguous) is tested against column i
+ * (strided); the last step of a row starts at n - 4 and may repeat
+ * entries. The last three rows (six pairs among the last four species)
+ * are two gathered vectors. The scalar pass was 15 % of mcd_flux_compute
+ * at N = 10. */
 __attribute__((target("avx2"))) static int dij_all_good_v3(size_t n,
                                                            const double *Dij)
 {
-    dij_m4 ok = {-1, -1, -1, -1};
-    int good = 1;
+    const __m256d tol = _mm256_set1_pd(MCDI_DIJ_SYM_TOL);
+    const __m256d absm = _mm256_castsi256_pd(_mm256_set1_epi64x(INT64_MAX));
+    __m256d lo = _mm256_set1_pd(DBL_MAX), hi = _mm256_setzero_pd();
+    __m256d ok = _mm256_castsi256_pd(_mm256_set1_epi64x(-1));
+    const size_t q = n - 4;
     size_t i, j;
-    for (i = 0; i + 4 < n; i++) {
+#define DIJ_PAIRS4(a, b)                                                       \
+    do {                                                                       \
+        const __m256d big_ = _mm256_max_pd(a, b);                              \
+        const __m256d d_ = _mm256_and_pd(_mm256_sub_pd(a, b), absm);           \
+        ok = _mm256_and_pd(                                                    \
+            ok, _mm256_cmp_pd(d_, _mm256_mul_pd(tol, big_), _CMP_LE_OQ));      \
+        lo = _mm256_min_pd(lo, _mm256_min_pd(a, b));                           \
+        hi = _mm256_max_pd(hi, big_);                                          \
+    } while (0)
+#define D_(r, c) Dij[(r)*n + (c)]
+    for (i = 0; i < q; i++) {
         const double *Ri = Dij + i * n, *Ci = Dij + i;
         for (j = i + 1; j < n; j += 4) {
-            const size_t s = j + 4 <= n ? j : n - 4;
-            const dij_v4 b = {Ci[s * n], Ci[(s + 1) * n], Ci[(s + 2) * n],
-                              Ci[(s + 3) * n]};
-            dij_v4 a, d, t, u;
-            memcpy(&a, Ri + s, sizeof a);
-            d = a - b;
-            t = a * MCDI_DIJ_SYM_TOL;
-            u = b * MCDI_DIJ_SYM_TOL;
-            ok &= (d <= t) & (-d <= u) & (a >= DBL_MIN) & (b >= DBL_MIN) &
-                  (a <= DBL_MAX) & (b <= DBL_MAX);
+            const size_t s = j + 4 <= n ? j : q;
+            const __m256d a = _mm256_loadu_pd(Ri + s);
+            const __m256d b = _mm256_set_pd(Ci[(s + 3) * n], Ci[(s + 2) * n],
+                                            Ci[(s + 1) * n], Ci[s * n]);
+            DIJ_PAIRS4(a, b);
         }
     }
-    for (; i < n; i++)
-        for (j = i + 1; j < n; j++) {
-            const double a = Dij[i * n + j], b = Dij[j * n + i];
-            const double big = a > b ? a : b;
-            good &= (a >= DBL_MIN) & (b >= DBL_MIN) & (big <= DBL_MAX) &
-                    (fabs(a - b) <= MCDI_DIJ_SYM_TOL * big);
-        }
-    return good & ((ok[0] & ok[1] & ok[2] & ok[3]) != 0);
+    {
+        const __m256d a1 = _mm256_set_pd(D_(q + 1, q + 2), D_(q, q + 3),
+                                         D_(q, q + 2), D_(q, q + 1));
+        const __m256d b1 = _mm256_set_pd(D_(q + 2, q + 1), D_(q + 3, q),
+                                         D_(q + 2, q), D_(q + 1, q));
+        const __m256d a2 = _mm256_set_pd(D_(q + 2, q + 3), D_(q + 2, q + 3),
+                                         D_(q + 2, q + 3), D_(q + 1, q + 3));
+        const __m256d b2 = _mm256_set_pd(D_(q + 3, q + 2), D_(q + 3, q + 2),
+                                         D_(q + 3, q + 2), D_(q + 3, q + 1));
+        DIJ_PAIRS4(a1, b1);
+        DIJ_PAIRS4(a2, b2);
+    }
+#undef D_
+#undef DIJ_PAIRS4
+    ok = _mm256_and_pd(ok,
+                       _mm256_cmp_pd(lo, _mm256_set1_pd(DBL_MIN), _CMP_GE_OQ));
+    ok = _mm256_and_pd(ok,
+                       _mm256_cmp_pd(hi, _mm256_set1_pd(DBL_MAX), _CMP_LE_OQ));
+    return _mm256_movemask_pd(ok) == 0xF;
 }
 #endif
 
