@@ -115,10 +115,16 @@ MINLINE void solve_ldl(size_t m, size_t nd, const double *A, const double *dinv,
 }
 
 /* Above this many species the factor and the solves are LAPACK's
- * (blocked Cholesky; faster there, measured: N = 50 in cache 18.8 us
- * against 23.4 us for the loops below, N = 100 72 us against 140 us). */
+ * (blocked Cholesky). It was 24 when LAPACK won from N = 50 (18.8 us
+ * against 23.4 us for the loops, N = 100 72 against 140 us). Since the
+ * solves run in registers (forward fused into the factor), the loops are
+ * faster than the reference (netlib) LAPACK at every N measured, in
+ * cache, mcd_flux_compute: N = 26 2.5 us against 5.8, N = 30 3.6 against
+ * 7.6, N = 50 12.0 against 20.8, N = 100 79 against 111. 32 keeps N <= 32
+ * on the loops; an optimised LAPACK (blocked, vectorised) may win from a
+ * smaller N than the reference one (not measured: not installed). */
 #ifndef MCDI_MS_LAPACK_N
-#define MCDI_MS_LAPACK_N 24
+#define MCDI_MS_LAPACK_N 32
 #endif
 
 /* Cholesky A = U^T U by LAPACK on the assembled lower triangle (row-major
