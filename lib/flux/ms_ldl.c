@@ -150,6 +150,95 @@ static size_t solve_lapack(size_t m, size_t nd, double *A, double *Y,
     return 0;
 }
 
+/* Steps p..p+3 (ldl_steps4) and p, p+1 (ldl_steps2) of row i of the
+ * up-looking factor below, for rows without trace species: the
+ * multipliers W_iq -> L_iq of the block (the later ones first updated by
+ * the earlier, in step order), the pivot di, the updates of the rest of
+ * row i with each element loaded and stored once for the whole block (in
+ * step order: the same bits as one step at a time; fewer loads and
+ * stores, measured 1.2x at N = 20), L_iq also into the upper triangle
+ * (row q of L^T), and for nd = 3 the forward substitution's terms. */
+MINLINE void ldl_steps4(double *A, size_t m, size_t i, size_t p,
+                        const double *dinv, double *di, size_t nd,
+                        const double *Y, double *y0, double *y1, double *y2)
+{
+    double *Ai = A + i * m;
+    size_t j;
+    double *U0 = A + p * m, *U1 = U0 + m, *U2 = U1 + m, *U3 = U2 + m;
+    const double w0 = Ai[p], l0 = w0 * dinv[p];
+    double w1 = Ai[p + 1], w2 = Ai[p + 2], w3 = Ai[p + 3], l1, l2, l3;
+    w1 -= w0 * U0[p + 1];
+    w2 -= w0 * U0[p + 2];
+    w3 -= w0 * U0[p + 3];
+    l1 = w1 * dinv[p + 1];
+    w2 -= w1 * U1[p + 2];
+    w3 -= w1 * U1[p + 3];
+    l2 = w2 * dinv[p + 2];
+    w3 -= w2 * U2[p + 3];
+    l3 = w3 * dinv[p + 3];
+    *di -= w0 * l0;
+    *di -= w1 * l1;
+    *di -= w2 * l2;
+    *di -= w3 * l3;
+    for (j = p + 4; j < i; j++) {
+        double t = Ai[j];
+        t -= w0 * U0[j];
+        t -= w1 * U1[j];
+        t -= w2 * U2[j];
+        t -= w3 * U3[j];
+        Ai[j] = t;
+    }
+    Ai[p] = U0[i] = l0;
+    Ai[p + 1] = U1[i] = l1;
+    Ai[p + 2] = U2[i] = l2;
+    Ai[p + 3] = U3[i] = l3;
+    if (nd == 3) {
+        *y0 -= l0 * Y[3 * p];
+        *y1 -= l0 * Y[3 * p + 1];
+        *y2 -= l0 * Y[3 * p + 2];
+        *y0 -= l1 * Y[3 * p + 3];
+        *y1 -= l1 * Y[3 * p + 4];
+        *y2 -= l1 * Y[3 * p + 5];
+        *y0 -= l2 * Y[3 * p + 6];
+        *y1 -= l2 * Y[3 * p + 7];
+        *y2 -= l2 * Y[3 * p + 8];
+        *y0 -= l3 * Y[3 * p + 9];
+        *y1 -= l3 * Y[3 * p + 10];
+        *y2 -= l3 * Y[3 * p + 11];
+    }
+}
+
+MINLINE void ldl_steps2(double *A, size_t m, size_t i, size_t p,
+                        const double *dinv, double *di, size_t nd,
+                        const double *Y, double *y0, double *y1, double *y2)
+{
+    double *Ai = A + i * m;
+    size_t j;
+    double *U0 = A + p * m, *U1 = U0 + m;
+    const double w0 = Ai[p], l0 = w0 * dinv[p];
+    double w1 = Ai[p + 1], l1;
+    w1 -= w0 * U0[p + 1];
+    l1 = w1 * dinv[p + 1];
+    *di -= w0 * l0;
+    *di -= w1 * l1;
+    for (j = p + 2; j < i; j++) {
+        double t = Ai[j];
+        t -= w0 * U0[j];
+        t -= w1 * U1[j];
+        Ai[j] = t;
+    }
+    Ai[p] = U0[i] = l0;
+    Ai[p + 1] = U1[i] = l1;
+    if (nd == 3) {
+        *y0 -= l0 * Y[3 * p];
+        *y1 -= l0 * Y[3 * p + 1];
+        *y2 -= l0 * Y[3 * p + 2];
+        *y0 -= l1 * Y[3 * p + 3];
+        *y1 -= l1 * Y[3 * p + 4];
+        *y2 -= l1 * Y[3 * p + 5];
+    }
+}
+
 /* Factor A = L D L^T (lower triangle and diagonal of the dense m x m A
  * hold the matrix) and solve in place for U in Y (m x nd row-major):
  * LAPACK above MCDI_MS_LAPACK_N species, else the up-looking loops.
@@ -177,7 +266,12 @@ MINLINE size_t ldl_dense(size_t m, size_t nd, double *A, double *dinv,
             y1 = Y[3 * i + 1];
             y2 = Y[3 * i + 2];
         }
-        for (p = 0; p < i; p++) {
+        /* without trace species: blocks of four steps, then of two */
+        for (p = 0; !skip_zero && p + 3 < i; p += 4)
+            ldl_steps4(A, m, i, p, dinv, &di, nd, Y, &y0, &y1, &y2);
+        for (; !skip_zero && p + 1 < i; p += 2)
+            ldl_steps2(A, m, i, p, dinv, &di, nd, Y, &y0, &y1, &y2);
+        for (; p < i; p++) {
             double *Up = A + p * m;
             const double w = Ai[p];
             double l = w * dinv[p];
