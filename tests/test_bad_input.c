@@ -3004,6 +3004,86 @@ START_TEST(bad_input_library_imports_no_abort_exit_print)
 }
 END_TEST
 
+/* The Dij check of mcd_flux_compute at every entry of every size from 2
+ * to 13 species (its fast pass goes four pairs at a time from 5 species
+ * on, with overlapping last steps: every entry must still be seen): one
+ * bad off-diagonal entry at a time gives the status of its rule and a
+ * detail naming that entry; an asymmetry inside the 1e-12 tolerance and
+ * any diagonal pass. */
+START_TEST(bad_input_dij_every_entry)
+{
+    static const struct {
+        double v; /* the bad entry; 0: the pair's value scaled by f */
+        double f;
+        mcd_status st;
+    } bad[] = {
+        {(double)NAN, 0, MCD_EINVAL},
+        {(double)INFINITY, 0, MCD_EINVAL},
+        {-(double)INFINITY, 0, MCD_EINVAL},
+        {-1e-5, 0, MCD_EDOM},
+        {4.9e-324, 0, MCD_EDOM},
+        {0, 1 + 1e-9, MCD_EDOM},
+        {0, 1 - 1e-9, MCD_EDOM},
+        {0, 1 + 5e-13, MCD_OK},
+        {0, 1 - 5e-13, MCD_OK},
+        {0, 2.0, MCD_EDOM},
+    };
+    for (size_t n = 2; n <= 13; n++) {
+        double D[13 * 13], x[13], g[13 * 3], J[13 * 3];
+        mcd_workspace *ws = NULL;
+        ck_assert_int_eq(mcd_workspace_new(n, &ws), MCD_OK);
+        for (size_t i = 0; i < n; i++) {
+            x[i] = 1.0 / (double)n;
+            for (size_t dd = 0; dd < 3; dd++)
+                g[i * 3 + dd] = (double)((i + dd) % 3) - 1.0;
+            for (size_t j = 0; j < n; j++)
+                D[i * n + j] =
+                    i == j ? 0.0 : 1e-5 * (1.0 + 0.1 * (double)(i + j));
+        }
+        mcd_state st = {.n_species = n,
+                        .n_dim = 3,
+                        .comp_basis = MCD_BASIS_MOLE,
+                        .c = 40.0,
+                        .Dij = D,
+                        .comp = x,
+                        .grad = g};
+        for (size_t i = 0; i < n; i++)
+            for (size_t j = 0; j < n; j++)
+                for (size_t k = 0; k < sizeof bad / sizeof bad[0]; k++) {
+                    const double keep = D[i * n + j];
+                    char want[64], want2[64];
+                    mcd_status got;
+                    if (i == j)
+                        D[i * n + j] = k % 2 ? (double)NAN : -1.0; /* ignored */
+                    else
+                        D[i * n + j] =
+                            bad[k].f != 0 ? keep * bad[k].f : bad[k].v;
+                    got = mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &st,
+                                           MCD_BASIS_MOLE, J);
+                    D[i * n + j] = keep;
+                    if (i == j) {
+                        ck_assert_msg(got == MCD_OK, "n %zu diagonal %zu: %d",
+                                      n, i, (int)got);
+                        continue;
+                    }
+                    ck_assert_msg(got == bad[k].st,
+                                  "n %zu entry (%zu,%zu) case %zu: %d", n, i, j,
+                                  k, (int)got);
+                    if (got == MCD_OK)
+                        continue;
+                    snprintf(want, sizeof want, "(%zu,%zu)", i, j);
+                    snprintf(want2, sizeof want2, "(%zu,%zu)", j, i);
+                    ck_assert_msg(strstr(mcd_last_error(), want) != NULL &&
+                                      (bad[k].f == 0 ||
+                                       strstr(mcd_last_error(), want2) != NULL),
+                                  "n %zu entry (%zu,%zu): %s", n, i, j,
+                                  mcd_last_error());
+                }
+        mcd_workspace_free(ws);
+    }
+}
+END_TEST
+
 int main(void)
 {
     g_datadir = getenv("MCD_TEST_DATA");
@@ -3016,6 +3096,7 @@ int main(void)
     tcase_add_test(tc, bad_input_summary);
     tcase_add_test(tc, bad_input_table_covers_every_public_function);
     tcase_add_test(tc, bad_input_library_imports_no_abort_exit_print);
+    tcase_add_test(tc, bad_input_dij_every_entry);
     suite_add_tcase(s, tc);
     return sup_run(s);
 }

@@ -13,6 +13,12 @@
 #include "base/workspace.h"
 #include "base/composition.h"
 #include "base/checks.h"
+#include "base/isa.h"
+
+#if defined(MCDI_HAVE_KISA)
+#include <immintrin.h>
+#include <stdint.h>
+#endif
 
 int mcdi_M_span_ok(size_t n, const double *M)
 {
@@ -104,11 +110,11 @@ mcd_status mcdi_check_positive2(double a, const char *name_a, double b,
     return MCD_OK;
 }
 
-/* One branch-free pass over the pairs: every off-diagonal entry finite and
- * a normal positive number (>= DBL_MIN), and the two triangles equal to
- * MCDI_DIJ_SYM_TOL. The caller's data
- * almost always pass; the loops below then only name the first failure. */
-static int dij_all_good(size_t n, const double *Dij)
+/* The rule of every pair (a, b) = (Dij(i,j), Dij(j,i)), i < j: both
+ * finite and normal positive numbers (>= DBL_MIN) and equal to
+ * MCDI_DIJ_SYM_TOL relative, |a - b| <= MCDI_DIJ_SYM_TOL max(a, b). One
+ * branch-free pass over the pairs. */
+static int dij_all_good_scalar(size_t n, const double *Dij)
 {
     int good = 1;
     size_t i, j;
@@ -120,6 +126,79 @@ static int dij_all_good(size_t n, const double *Dij)
                     (fabs(a - b) <= MCDI_DIJ_SYM_TOL * big);
         }
     return good;
+}
+
+#if defined(MCDI_HAVE_KISA)
+/* The same rule four pairs at a time with AVX2 (x86-64 GCC builds, used
+ * where base/isa.c chose v3 or v4). Per pair |a - b| <= tol max(a, b)
+ * (a NaN makes |a - b| NaN: the test fails, whatever max returns), and
+ * the range tests once at the end on the smallest and the largest entry
+ * seen (a NaN has already failed; min and max of the others are exact).
+ * Row i of the upper triangle (contiguous) is tested against column i
+ * (strided); the last step of a row starts at n - 4 and may repeat
+ * entries. The last three rows (six pairs among the last four species)
+ * are two gathered vectors. The scalar pass was 15 % of mcd_flux_compute
+ * at N = 10. */
+__attribute__((target("avx2"))) static int dij_all_good_v3(size_t n,
+                                                           const double *Dij)
+{
+    const __m256d tol = _mm256_set1_pd(MCDI_DIJ_SYM_TOL);
+    const __m256d absm = _mm256_castsi256_pd(_mm256_set1_epi64x(INT64_MAX));
+    __m256d lo = _mm256_set1_pd(DBL_MAX), hi = _mm256_setzero_pd();
+    __m256d ok = _mm256_castsi256_pd(_mm256_set1_epi64x(-1));
+    const size_t q = n - 4;
+    size_t i, j;
+#define DIJ_PAIRS4(a, b)                                                       \
+    do {                                                                       \
+        const __m256d big_ = _mm256_max_pd(a, b);                              \
+        const __m256d d_ = _mm256_and_pd(_mm256_sub_pd(a, b), absm);           \
+        ok = _mm256_and_pd(                                                    \
+            ok, _mm256_cmp_pd(d_, _mm256_mul_pd(tol, big_), _CMP_LE_OQ));      \
+        lo = _mm256_min_pd(lo, _mm256_min_pd(a, b));                           \
+        hi = _mm256_max_pd(hi, big_);                                          \
+    } while (0)
+#define D_(r, c) Dij[(r)*n + (c)]
+    for (i = 0; i < q; i++) {
+        const double *Ri = Dij + i * n, *Ci = Dij + i;
+        for (j = i + 1; j < n; j += 4) {
+            const size_t s = j + 4 <= n ? j : q;
+            const __m256d a = _mm256_loadu_pd(Ri + s);
+            const __m256d b = _mm256_set_pd(Ci[(s + 3) * n], Ci[(s + 2) * n],
+                                            Ci[(s + 1) * n], Ci[s * n]);
+            DIJ_PAIRS4(a, b);
+        }
+    }
+    {
+        const __m256d a1 = _mm256_set_pd(D_(q + 1, q + 2), D_(q, q + 3),
+                                         D_(q, q + 2), D_(q, q + 1));
+        const __m256d b1 = _mm256_set_pd(D_(q + 2, q + 1), D_(q + 3, q),
+                                         D_(q + 2, q), D_(q + 1, q));
+        const __m256d a2 = _mm256_set_pd(D_(q + 2, q + 3), D_(q + 2, q + 3),
+                                         D_(q + 2, q + 3), D_(q + 1, q + 3));
+        const __m256d b2 = _mm256_set_pd(D_(q + 3, q + 2), D_(q + 3, q + 2),
+                                         D_(q + 3, q + 2), D_(q + 3, q + 1));
+        DIJ_PAIRS4(a1, b1);
+        DIJ_PAIRS4(a2, b2);
+    }
+#undef D_
+#undef DIJ_PAIRS4
+    ok = _mm256_and_pd(ok,
+                       _mm256_cmp_pd(lo, _mm256_set1_pd(DBL_MIN), _CMP_GE_OQ));
+    ok = _mm256_and_pd(ok,
+                       _mm256_cmp_pd(hi, _mm256_set1_pd(DBL_MAX), _CMP_LE_OQ));
+    return _mm256_movemask_pd(ok) == 0xF;
+}
+#endif
+
+/* Whether every pair passes (the caller's data almost always do; the
+ * loops of dij_locate then only name the first failure). */
+static int dij_all_good(size_t n, const double *Dij)
+{
+#if defined(MCDI_HAVE_KISA)
+    if (n >= 5 && mcdi_isa() >= 3)
+        return dij_all_good_v3(n, Dij);
+#endif
+    return dij_all_good_scalar(n, Dij);
 }
 
 /* The first broken rule of an n x n Dij whose entry (i,j) is at
@@ -277,14 +356,21 @@ mcd_status mcdi_check_finite(mcd_workspace *ws, size_t rows, size_t cols,
                              const double *p, const char *name)
 {
     size_t i;
-    double acc = 0.0;
+    double acc[4] = {0.0, 0.0, 0.0, 0.0};
     if (p == NULL)
         return mcdi_fail(MCD_EINVAL, "argument %s: NULL", name);
     /* p * 0 is 0 for finite p and NaN for inf or NaN: one branch-free
-     * pass; the loop below only names the entry */
-    for (i = 0; i < rows * cols; i++)
-        acc += p[i] * 0.0;
-    if (acc == 0.0)
+     * pass, four independent sums rather than one chain (terms 0 or NaN:
+     * the order does not matter); the loop below only names the entry */
+    for (i = 0; i + 4 <= rows * cols; i += 4) {
+        acc[0] += p[i] * 0.0;
+        acc[1] += p[i + 1] * 0.0;
+        acc[2] += p[i + 2] * 0.0;
+        acc[3] += p[i + 3] * 0.0;
+    }
+    for (; i < rows * cols; i++)
+        acc[0] += p[i] * 0.0;
+    if ((acc[0] + acc[1]) + (acc[2] + acc[3]) == 0.0)
         return MCD_OK;
     return finite_locate(ws, rows, cols, p, 1, name);
 }

@@ -73,6 +73,24 @@ KINLINE void remove_along_into(double *out, const double *v, const double *w,
 {
     double p[MCDI_LANES];
     size_t i, dd, l;
+    if (L == 1 && nd == 3) {
+        /* one lane, three directions (the usual single-state call): the
+         * three sums side by side in registers, independent chains, each
+         * in the order of the loop below (the same bits) */
+        double p0 = 0.0, p1 = 0.0, p2 = 0.0;
+        for (i = 0; i < n; i++) {
+            const double wi = w != NULL ? w[i] : 1.0;
+            p0 += wi * v[3 * i];
+            p1 += wi * v[3 * i + 1];
+            p2 += wi * v[3 * i + 2];
+        }
+        for (i = 0; i < n; i++) {
+            out[3 * i] = v[3 * i] - y[i] * p0;
+            out[3 * i + 1] = v[3 * i + 1] - y[i] * p1;
+            out[3 * i + 2] = v[3 * i + 2] - y[i] * p2;
+        }
+        return;
+    }
     for (dd = 0; dd < nd; dd++) {
         for_lanes (l)
             p[l] = 0.0;

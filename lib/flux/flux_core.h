@@ -53,9 +53,9 @@ typedef struct mcdi_dense {
  * unused). model: exact (MCD_MODEL_MAXWELL_STEFAN) or
  * MCD_MODEL_MIXTURE_AVERAGED; Dij: n x n, read from the upper triangle.
  * The exact solve is a dense up-looking L D L^T (LAPACK's dpotrf/dpotrs
- * `_work` above 24 species: no allocation). Returns 0, or k+1 when the
- * pivot of species k is not positive. One definition per instruction set
- * (ms_ldl.c compiled once per set). */
+ * `_work` above MCDI_MS_LAPACK_N, 32, species: no allocation). Returns
+ * 0, or k+1 when the pivot of species k is not positive. One definition
+ * per instruction set (ms_ldl.c compiled once per set). */
 struct mcdi_rows;
 #define MCDI_MS_ROWS_DECL(name)                                                \
     size_t name(const struct mcdi_rows *R, const mcdi_dense *D,                \
@@ -71,14 +71,16 @@ mcdi_ms_rows_fn mcdi_ms_rows_select(void);
  * fused into a few passes (the stages' separate passes cost 4-8 % of a
  * call at N = 3..20, measured). Đ: upper triangle of Dp (row stride ld);
  * dp: driving forces (m x nd row-major, summing to zero); fluxes c s U
- * into Y (m x nd), distinct from dp. Scratch: A (m*m), sq, isq, S, dinv
- * (m each), Yt (m*nd; may be dp). Returns 0, or k+1 when pivot k is not
- * positive. One definition per instruction set (ms_ldl.c). */
-#define MCDI_MS_FUSED_N 24
+ * into Y (m x nd), distinct from dp. Scratch: A (m*m), T (m(m-1)/2: 1/Đ
+ * packed), sq, isq, S, dinv (m each), Yt (m*nd; may be dp). Returns 0,
+ * or k+1 when pivot k is not positive. One definition per instruction
+ * set (ms_ldl.c). */
+#define MCDI_MS_FUSED_N 32
 #define MCDI_MS_LDL_DECL(name)                                                 \
     size_t name(size_t m, size_t nd, const double *xp, const double *Dp,       \
-                size_t ld, const double *dp, double c, double *A, double *sq,  \
-                double *isq, double *S, double *dinv, double *Y, double *Yt)
+                size_t ld, const double *dp, double c, double *A, double *T,   \
+                double *sq, double *isq, double *S, double *dinv, double *Y,   \
+                double *Yt)
 MCDI_MS_LDL_DECL(mcdi_ms_ldl_v3);
 MCDI_MS_LDL_DECL(mcdi_ms_ldl_v1);
 typedef MCDI_MS_LDL_DECL((*mcdi_ms_ldl_fn));

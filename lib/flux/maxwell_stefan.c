@@ -187,13 +187,21 @@ static mcd_status emit_checked(mcd_workspace *ws, size_t n, size_t nd,
                                const double *J, mcd_basis flux_basis,
                                double *out_flux)
 {
-    double acc = 0.0;
+    double acc[4] = {0.0, 0.0, 0.0, 0.0};
     size_t i;
-    /* one NaN-propagating pass (J * 0 is NaN exactly for inf and NaN);
-     * the loop names the species */
-    for (i = 0; i < n * nd; i++)
-        acc += J[i] * 0.0;
-    if (acc != 0.0)
+    /* one NaN-propagating pass (J * 0 is NaN exactly for inf and NaN;
+     * four independent sums, not one chain of n nd additions: every term
+     * is 0 or NaN, so the order does not matter); the loop names the
+     * species */
+    for (i = 0; i + 4 <= n * nd; i += 4) {
+        acc[0] += J[i] * 0.0;
+        acc[1] += J[i + 1] * 0.0;
+        acc[2] += J[i + 2] * 0.0;
+        acc[3] += J[i + 3] * 0.0;
+    }
+    for (; i < n * nd; i++)
+        acc[0] += J[i] * 0.0;
+    if ((acc[0] + acc[1]) + (acc[2] + acc[3]) != 0.0)
         for (i = 0; i < n * nd; i++)
             if (!mcdi_finite(J[i]))
                 return mcdi_fail(MCD_EDOM,
@@ -233,8 +241,8 @@ static mcd_status solve_state(mcd_workspace *ws, const mcdi_flux_view *v,
     size_t bad;
     if (model == MCD_MODEL_MAXWELL_STEFAN && n <= MCDI_MS_FUSED_N &&
         all_present(n, v->x)) {
-        bad = mcdi_ms_ldl_select()(n, nd, v->x, Dij, n, v->d, c, v->A, v->s,
-                                   v->isq, v->S, v->dinv, v->J, v->Yt);
+        bad = mcdi_ms_ldl_select()(n, nd, v->x, Dij, n, v->d, c, v->A, v->tri,
+                                   v->s, v->isq, v->S, v->dinv, v->J, v->Yt);
     } else {
         /* no Dg, iDg: the one-lane exact solve keeps its pivots in D */
         const mcdi_rows R = {v->tri, v->x,  v->s, v->S, v->num, v->minv, NULL,
@@ -276,8 +284,8 @@ mcd_status mcdi_flux_solve_exact_wide(mcd_workspace *ws, size_t n, size_t ncol,
     size_t bad;
     mcdi_flux_scratch(ws, &v);
     remove_along(F, NULL, x, n, 1, ncol);
-    bad = mcdi_ms_ldl_select()(n, ncol, x, Dij, n, F, c, v.A, v.s, v.isq, v.S,
-                               v.dinv, Y, F);
+    bad = mcdi_ms_ldl_select()(n, ncol, x, Dij, n, F, c, v.A, v.tri, v.s, v.isq,
+                               v.S, v.dinv, Y, F);
     if (bad != 0)
         return mcdi_fail(MCD_ESING,
                          "Maxwell-Stefan matrix not positive definite at "

@@ -65,41 +65,31 @@
 #define SIMD_LOOP
 #endif
 
-/* Solves after the factor: L y = b (rows of L^T: upper triangle of A),
- * D z = y, L^T u = z (rows of L: lower triangle), in place in Y (m x nd
- * row-major). The pivot row's values are held in scalars: copying them
- * through a small array let GCC merge two 8-byte loads of just-stored
- * values into one 16-byte load, which defeats store forwarding (measured:
- * 13 % of the whole N = 3 call on one instruction). */
-MINLINE void solve_ldl3(size_t m, const double *A, const double *dinv,
-                        double *Y)
+/* The back substitution L^T u = z after D z = y for nd = 3, in place in
+ * Y (m x 3 row-major, y in): row by row from the last, each u_i a chain
+ * of multiply-adds in registers over the row of L^T in the upper triangle
+ * (A[i m + p] = L_pi), p from m - 1 down, the order of the column sweep
+ * it replaces, so the same bits (the column sweep carried every step
+ * through a store and a reload of Y). The pivot row's values are held in
+ * scalars: copying them through a small array let GCC merge two 8-byte
+ * loads of just-stored values into one 16-byte load, which defeats store
+ * forwarding (measured: 13 % of the whole N = 3 call on one
+ * instruction). */
+MINLINE void back_ldl3(size_t m, const double *A, const double *dinv, double *Y)
 {
-    size_t i, j, p;
-    for (p = 0; p + 1 < m; p++) {
-        const double *Up = A + p * m;
-        const double v0 = Y[3 * p], v1 = Y[3 * p + 1], v2 = Y[3 * p + 2];
-        for (j = p + 1; j < m; j++) {
-            const double u = Up[j];
-            Y[3 * j] -= u * v0;
-            Y[3 * j + 1] -= u * v1;
-            Y[3 * j + 2] -= u * v2;
+    size_t i, p;
+    for (i = m; i-- > 0;) {
+        const double *Ui = A + i * m, f = dinv[i];
+        double u0 = Y[3 * i] * f, u1 = Y[3 * i + 1] * f, u2 = Y[3 * i + 2] * f;
+        for (p = m; --p > i;) {
+            const double l = Ui[p];
+            u0 -= l * Y[3 * p];
+            u1 -= l * Y[3 * p + 1];
+            u2 -= l * Y[3 * p + 2];
         }
-    }
-    for (i = 0; i < m; i++) {
-        const double f = dinv[i];
-        Y[3 * i] *= f;
-        Y[3 * i + 1] *= f;
-        Y[3 * i + 2] *= f;
-    }
-    for (p = m; p-- > 1;) {
-        const double *Lp = A + p * m;
-        const double v0 = Y[3 * p], v1 = Y[3 * p + 1], v2 = Y[3 * p + 2];
-        for (i = 0; i < p; i++) {
-            const double l = Lp[i];
-            Y[3 * i] -= l * v0;
-            Y[3 * i + 1] -= l * v1;
-            Y[3 * i + 2] -= l * v2;
-        }
+        Y[3 * i] = u0;
+        Y[3 * i + 1] = u1;
+        Y[3 * i + 2] = u2;
     }
 }
 
@@ -125,10 +115,16 @@ MINLINE void solve_ldl(size_t m, size_t nd, const double *A, const double *dinv,
 }
 
 /* Above this many species the factor and the solves are LAPACK's
- * (blocked Cholesky; faster there, measured: N = 50 in cache 18.8 us
- * against 23.4 us for the loops below, N = 100 72 us against 140 us). */
+ * (blocked Cholesky). It was 24 when LAPACK won from N = 50 (18.8 us
+ * against 23.4 us for the loops, N = 100 72 against 140 us). Since the
+ * solves run in registers (forward fused into the factor), the loops are
+ * faster than the reference (netlib) LAPACK at every N measured, in
+ * cache, mcd_flux_compute: N = 26 2.5 us against 5.8, N = 30 3.6 against
+ * 7.6, N = 50 12.0 against 20.8, N = 100 79 against 111. 32 keeps N <= 32
+ * on the loops; an optimised LAPACK (blocked, vectorised) may win from a
+ * smaller N than the reference one (not measured: not installed). */
 #ifndef MCDI_MS_LAPACK_N
-#define MCDI_MS_LAPACK_N 24
+#define MCDI_MS_LAPACK_N 32
 #endif
 
 /* Cholesky A = U^T U by LAPACK on the assembled lower triangle (row-major
@@ -154,6 +150,95 @@ static size_t solve_lapack(size_t m, size_t nd, double *A, double *Y,
     return 0;
 }
 
+/* Steps p..p+3 (ldl_steps4) and p, p+1 (ldl_steps2) of row i of the
+ * up-looking factor below, for rows without trace species: the
+ * multipliers W_iq -> L_iq of the block (the later ones first updated by
+ * the earlier, in step order), the pivot di, the updates of the rest of
+ * row i with each element loaded and stored once for the whole block (in
+ * step order: the same bits as one step at a time; fewer loads and
+ * stores, measured 1.2x at N = 20), L_iq also into the upper triangle
+ * (row q of L^T), and for nd = 3 the forward substitution's terms. */
+MINLINE void ldl_steps4(double *A, size_t m, size_t i, size_t p,
+                        const double *dinv, double *di, size_t nd,
+                        const double *Y, double *y0, double *y1, double *y2)
+{
+    double *Ai = A + i * m;
+    size_t j;
+    double *U0 = A + p * m, *U1 = U0 + m, *U2 = U1 + m, *U3 = U2 + m;
+    const double w0 = Ai[p], l0 = w0 * dinv[p];
+    double w1 = Ai[p + 1], w2 = Ai[p + 2], w3 = Ai[p + 3], l1, l2, l3;
+    w1 -= w0 * U0[p + 1];
+    w2 -= w0 * U0[p + 2];
+    w3 -= w0 * U0[p + 3];
+    l1 = w1 * dinv[p + 1];
+    w2 -= w1 * U1[p + 2];
+    w3 -= w1 * U1[p + 3];
+    l2 = w2 * dinv[p + 2];
+    w3 -= w2 * U2[p + 3];
+    l3 = w3 * dinv[p + 3];
+    *di -= w0 * l0;
+    *di -= w1 * l1;
+    *di -= w2 * l2;
+    *di -= w3 * l3;
+    for (j = p + 4; j < i; j++) {
+        double t = Ai[j];
+        t -= w0 * U0[j];
+        t -= w1 * U1[j];
+        t -= w2 * U2[j];
+        t -= w3 * U3[j];
+        Ai[j] = t;
+    }
+    Ai[p] = U0[i] = l0;
+    Ai[p + 1] = U1[i] = l1;
+    Ai[p + 2] = U2[i] = l2;
+    Ai[p + 3] = U3[i] = l3;
+    if (nd == 3) {
+        *y0 -= l0 * Y[3 * p];
+        *y1 -= l0 * Y[3 * p + 1];
+        *y2 -= l0 * Y[3 * p + 2];
+        *y0 -= l1 * Y[3 * p + 3];
+        *y1 -= l1 * Y[3 * p + 4];
+        *y2 -= l1 * Y[3 * p + 5];
+        *y0 -= l2 * Y[3 * p + 6];
+        *y1 -= l2 * Y[3 * p + 7];
+        *y2 -= l2 * Y[3 * p + 8];
+        *y0 -= l3 * Y[3 * p + 9];
+        *y1 -= l3 * Y[3 * p + 10];
+        *y2 -= l3 * Y[3 * p + 11];
+    }
+}
+
+MINLINE void ldl_steps2(double *A, size_t m, size_t i, size_t p,
+                        const double *dinv, double *di, size_t nd,
+                        const double *Y, double *y0, double *y1, double *y2)
+{
+    double *Ai = A + i * m;
+    size_t j;
+    double *U0 = A + p * m, *U1 = U0 + m;
+    const double w0 = Ai[p], l0 = w0 * dinv[p];
+    double w1 = Ai[p + 1], l1;
+    w1 -= w0 * U0[p + 1];
+    l1 = w1 * dinv[p + 1];
+    *di -= w0 * l0;
+    *di -= w1 * l1;
+    for (j = p + 2; j < i; j++) {
+        double t = Ai[j];
+        t -= w0 * U0[j];
+        t -= w1 * U1[j];
+        Ai[j] = t;
+    }
+    Ai[p] = U0[i] = l0;
+    Ai[p + 1] = U1[i] = l1;
+    if (nd == 3) {
+        *y0 -= l0 * Y[3 * p];
+        *y1 -= l0 * Y[3 * p + 1];
+        *y2 -= l0 * Y[3 * p + 2];
+        *y0 -= l1 * Y[3 * p + 3];
+        *y1 -= l1 * Y[3 * p + 4];
+        *y2 -= l1 * Y[3 * p + 5];
+    }
+}
+
 /* Factor A = L D L^T (lower triangle and diagonal of the dense m x m A
  * hold the matrix) and solve in place for U in Y (m x nd row-major):
  * LAPACK above MCDI_MS_LAPACK_N species, else the up-looking loops.
@@ -169,31 +254,56 @@ MINLINE size_t ldl_dense(size_t m, size_t nd, double *A, double *dinv,
     /* Up-looking L D L^T. Row i of the lower triangle turns from A_ij into
      * W_ij = L_ij D_j by updates with rows of L^T, which are kept in the
      * upper triangle (A[p m + j] = L_jp): each update is a contiguous
-     * multiply-add over j, independent across j (no dot-product chains). */
+     * multiply-add over j, independent across j (no dot-product chains).
+     * For nd = 3 the forward substitution L y = b runs in the same loop:
+     * y_i -= L_ip y_p as each L_ip is formed (p rising, the order of the
+     * separate row sweep it replaces: the same bits), in registers. */
     for (i = 0; i < m; i++) {
         double *Ai = A + i * m, di = Ai[i];
-        for (p = 0; p < i; p++) {
+        double y0 = 0.0, y1 = 0.0, y2 = 0.0;
+        if (nd == 3) {
+            y0 = Y[3 * i];
+            y1 = Y[3 * i + 1];
+            y2 = Y[3 * i + 2];
+        }
+        /* without trace species: blocks of four steps, then of two */
+        for (p = 0; !skip_zero && p + 3 < i; p += 4)
+            ldl_steps4(A, m, i, p, dinv, &di, nd, Y, &y0, &y1, &y2);
+        for (; !skip_zero && p + 1 < i; p += 2)
+            ldl_steps2(A, m, i, p, dinv, &di, nd, Y, &y0, &y1, &y2);
+        for (; p < i; p++) {
             double *Up = A + p * m;
-            const double w = Ai[p], l = w * dinv[p];
+            const double w = Ai[p];
+            double l = w * dinv[p];
             if (skip_zero &&
                 w == 0.0) { /* a trace species' row or column: nothing */
-                Ai[p] = Up[i] = 0.0;
-                continue;
+                Ai[p] = Up[i] = l = 0.0;
+            } else {
+                di -= w * l;
+                for (j = p + 1; j < i; j++)
+                    Ai[j] -= w * Up[j];
+                Ai[p] = l;
+                Up[i] = l;
             }
-            di -= w * l;
-            for (j = p + 1; j < i; j++)
-                Ai[j] -= w * Up[j];
-            Ai[p] = l;
-            Up[i] = l;
+            if (nd == 3) {
+                y0 -= l * Y[3 * p];
+                y1 -= l * Y[3 * p + 1];
+                y2 -= l * Y[3 * p + 2];
+            }
+        }
+        if (nd == 3) {
+            Y[3 * i] = y0;
+            Y[3 * i + 1] = y1;
+            Y[3 * i + 2] = y2;
         }
         if (!(di > 0.0))
             return i + 1;
         dinv[i] = 1.0 / di;
     }
-    /* L y = rhs by rows of L^T, D z = y, L^T u = z by rows of L; the
-     * directions are interleaved in the inner loop (independent chains) */
+    /* D z = y, L^T u = z by rows of L^T (nd = 3); otherwise all three
+     * solves one direction at a time */
     if (nd == 3)
-        solve_ldl3(m, A, dinv, Y);
+        back_ldl3(m, A, dinv, Y);
     else
         solve_ldl(m, nd, A, dinv, Y);
     return 0;
@@ -278,11 +388,12 @@ size_t RNAME(MCDI_KISA)(const mcdi_rows *R, const mcdi_dense *D,
  * the same ldl_dense. */
 size_t MSNAME(MCDI_KISA)(size_t m, size_t nd, const double *xp,
                          const double *Dp, size_t ld, const double *dp,
-                         double c, double *A, double *sq, double *isq,
-                         double *S, double *dinv, double *Y, double *Yt)
+                         double c, double *A, double *T, double *sq,
+                         double *isq, double *S, double *dinv, double *Y,
+                         double *Yt)
 {
     double a = 0.0;
-    size_t i, j, dd;
+    size_t i, j, k, dd;
 
     /* vectorised: at m = 10 the divider is the bottleneck of the assembly
      * (square roots, reciprocals); +8 % of this routine, measured */
@@ -292,40 +403,53 @@ size_t MSNAME(MCDI_KISA)(size_t m, size_t nd, const double *xp,
         isq[i] = 1.0 / sq[i];
         S[i] = 0.0;
     }
-    /* reciprocals R_kl (l > k) into the upper triangle of A: contiguous
-     * rows of Dp, the one loop worth vectorising at small m */
-    for (i = 0; i + 1 < m; i++) {
-        const double *Di = Dp + i * ld;
-        double *Ai = A + i * m;
+    /* reciprocals R_kl (l > k), packed row by row into T (m(m-1)/2
+     * entries) and then divided in one vectorised pass: per row of Dp the
+     * short rows left most of the divisions to scalar epilogues (the
+     * divider is the limit there) */
+    if (m >= 6) {
+        for (i = 0, k = 0; i + 1 < m; i++) {
+            const double *Di = Dp + i * ld;
+            for (j = i + 1; j < m; j++)
+                T[k++] = Di[j];
+        }
         SIMD_LOOP
-        for (j = i + 1; j < m; j++)
-            Ai[j] = 1.0 / Di[j];
+        for (j = 0; j < k; j++)
+            T[j] = 1.0 / T[j];
+    } else { /* a few pairs: the copy costs more than it saves */
+        for (i = 0, k = 0; i + 1 < m; i++)
+            for (j = i + 1; j < m; j++)
+                T[k++] = 1.0 / Dp[i * ld + j];
     }
     /* Blanc sums S_i = sum_{j != i} x_j R_ij */
-    for (i = 0; i + 1 < m; i++) {
-        const double *Ai = A + i * m, xi = xp[i];
+    for (i = 0, k = 0; i + 1 < m; i++) {
+        const double xi = xp[i];
         double t = S[i];
-        for (j = i + 1; j < m; j++) {
-            t += xp[j] * Ai[j];
-            S[j] += xi * Ai[j];
+        for (j = i + 1; j < m; j++, k++) {
+            t += xp[j] * T[k];
+            S[j] += xi * T[k];
         }
         S[i] = t;
     }
     for (i = 0; i < m; i++)
         if (S[i] > a)
             a = S[i];
-    /* A = Gs + a s s^T into the lower triangle and the diagonal; the
-     * right-hand side -d_k / s_k into Y (m x nd, row-major) */
+    /* A = Gs + a s s^T into the lower triangle and the diagonal (R_ji,
+     * j < i, at T[k]: k starts at i - 1 and steps by the length of row j
+     * less one); the right-hand side -d_k / s_k into Y (m x nd,
+     * row-major) */
     for (i = 0; i < m; i++) {
         double *Ai = A + i * m, si = sq[i];
-        for (j = 0; j < i; j++)
-            Ai[j] = si * sq[j] * (a - A[j * m + i]);
+        for (j = 0, k = i - 1; j < i; k += m - 2 - j, j++)
+            Ai[j] = si * sq[j] * (a - T[k]);
         Ai[i] = S[i] + a * xp[i];
         for (dd = 0; dd < nd; dd++)
             Y[i * nd + dd] = -dp[i * nd + dd] * isq[i];
     }
     {
-        size_t bad = ldl_dense(m, nd, A, dinv, Y, Yt, 0);
+        /* nd = 3 as a constant: the fused forward substitution */
+        size_t bad = nd == 3 ? ldl_dense(m, 3, A, dinv, Y, Yt, 0)
+                             : ldl_dense(m, nd, A, dinv, Y, Yt, 0);
         if (bad != 0)
             return bad;
     }
