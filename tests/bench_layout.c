@@ -5,7 +5,9 @@
  * ~256 MB (streamed from memory). Prints cells/s, median [min, max] of
  * the samples, and tiled/SoA (ratio of the medians); checks that both
  * layouts give the same bits.
- *   usage: bench_layout [N...]   (default 3 5 10 20 50)
+ *   usage: bench_layout [--soa] [N...]   (default 3 5 10 20 50)
+ * --soa: the SoA layout only (to time a build without the tiled layout,
+ * linked against its library, in A/B runs).
  */
 #define _POSIX_C_SOURCE 200112L /* clock_gettime */
 #include <stdint.h>
@@ -17,6 +19,8 @@
 #include "mcdiff.h"
 
 #define SAMPLES 9
+
+static size_t nlay = 2; /* layouts timed: SoA, tiled (1 with --soa) */
 
 static double now_s(void)
 {
@@ -122,37 +126,42 @@ static int run(mcd_workspace *ws, size_t n, double bytes, const char *what)
     tile(a[0].g, 3 * n, K, a[1].g);
     /* warm up, and the repetitions for ~0.05 s a sample */
     one = now_s();
-    for (i = 0; i < 2; i++)
+    for (i = 0; i < nlay; i++)
         if (call(ws, n, K, &a[i], i ? MCD_LAYOUT_TILED8 : MCD_LAYOUT_SOA) !=
             MCD_OK) {
             fprintf(stderr, "bench_layout: %s\n", mcd_last_error());
             return 1;
         }
-    one = (now_s() - one) / 2.0;
+    one = (now_s() - one) / (double)nlay;
     reps = one > 0.05 ? 1 : (size_t)(0.05 / (one > 1e-7 ? one : 1e-7)) + 1;
     for (smp = 0; smp < SAMPLES; smp++)
-        for (i = 0; i < 2; i++) {
+        for (i = 0; i < nlay; i++) {
             double t0 = now_s();
             for (r = 0; r < reps; r++)
                 (void)call(ws, n, K, &a[i],
                            i ? MCD_LAYOUT_TILED8 : MCD_LAYOUT_SOA);
             t[i][smp] = (now_s() - t0) / (double)reps;
         }
-    for (k = 0; k < K; k++)
+    for (k = 0; k < K && nlay == 2; k++)
         for (i = 0; i < 3 * n; i++)
             bad |= memcmp(&a[0].J[i * K + k],
                           &a[1].J[k / 8 * 8 * 3 * n + 8 * i + k % 8],
                           sizeof(double)) != 0;
-    for (i = 0; i < 2; i++) {
+    for (i = 0; i < nlay; i++) {
         qsort(t[i], SAMPLES, sizeof(double), cmp_double);
         med[i] = t[i][SAMPLES / 2];
     }
-    printf("N %3zu %-8s K %9zu  SoA %.3e [%.3e, %.3e]  tiled %.3e [%.3e, "
-           "%.3e]  tiled/SoA %.2f%s\n",
-           n, what, K, (double)K / med[0], (double)K / t[0][SAMPLES - 1],
-           (double)K / t[0][0], (double)K / med[1],
-           (double)K / t[1][SAMPLES - 1], (double)K / t[1][0], med[0] / med[1],
-           bad ? "  RESULTS DIFFER" : "");
+    if (nlay == 1)
+        printf("N %3zu %-8s K %9zu  SoA %.3e [%.3e, %.3e]\n", n, what, K,
+               (double)K / med[0], (double)K / t[0][SAMPLES - 1],
+               (double)K / t[0][0]);
+    else
+        printf("N %3zu %-8s K %9zu  SoA %.3e [%.3e, %.3e]  tiled %.3e [%.3e, "
+               "%.3e]  tiled/SoA %.2f%s\n",
+               n, what, K, (double)K / med[0], (double)K / t[0][SAMPLES - 1],
+               (double)K / t[0][0], (double)K / med[1],
+               (double)K / t[1][SAMPLES - 1], (double)K / t[1][0],
+               med[0] / med[1], bad ? "  RESULTS DIFFER" : "");
     fflush(stdout);
     for (i = 0; i < 2; i++) {
         free(a[i].D);
@@ -170,8 +179,12 @@ int main(int argc, char **argv)
     size_t ns[32], nn = 0, i, cap = 0;
     mcd_workspace *ws;
     int bad = 0;
-    for (i = 1; i < (size_t)argc && nn < 32; i++)
-        ns[nn++] = (size_t)strtoul(argv[i], NULL, 10);
+    for (i = 1; i < (size_t)argc && nn < 32; i++) {
+        if (strcmp(argv[i], "--soa") == 0)
+            nlay = 1;
+        else
+            ns[nn++] = (size_t)strtoul(argv[i], NULL, 10);
+    }
     if (nn == 0)
         for (nn = 0; nn < sizeof def / sizeof def[0]; nn++)
             ns[nn] = def[nn];
