@@ -1363,7 +1363,7 @@ MCD_API mcd_status mcd_flux_diagnose(size_t n_species, size_t n_dim,
  *   out_flux[(i*n_dim + d)*K + k]        same layout as grad
  * i.e. every quantity is a contiguous row of K values. mcd_flux_batch and
  * mcd_flux_batch_dij also take every array in tiles of 8 cells (faster
- * from N = 10 on, see mcd_layout). The convenience call
+ * from N = 7 on, see mcd_layout). The convenience call
  * mcd_flux_batch_aos takes per-cell arrays instead (see there).
  *
  * Temperature and pressure dependence: the mixture carries it. Pairs with
@@ -1402,22 +1402,24 @@ MCD_API mcd_status mcd_flux_diagnose(size_t n_species, size_t n_dim,
  *  N n_dim for grad and out_flux, N N for Dij, 1 for T, P and c, ...):
  *  - MCD_LAYOUT_SOA: row q of cell k at [q*K + k] (structure of arrays).
  *  - MCD_LAYOUT_TILED8: cells in tiles of 8: row q of cell k at
- *    [(k/8)*8*Q + 8*q + k%8]; each array holds ceil(K/8) whole tiles,
- *    8 Q ceil(K/8) doubles (the slots of the padding cells k >= K of the
- *    last tile are neither read nor written). One tile of an array is
- *    one contiguous piece of memory, read in order. Arrays of one row
- *    (T, P, c) are the same in both layouts. Results are bit-for-bit
+ *    [(k/8)*8*Q + 8*q + k%8]; an array spans ceil(K/8) tiles of 8 Q
+ *    doubles. The slots of the padding cells k >= K of the last tile are
+ *    neither read nor written (8 Q ceil(K/8) doubles is always enough;
+ *    the array may end after the slot of its last row's cell K - 1).
+ *    One tile of an array is one contiguous piece of memory, read in
+ *    order. Arrays of one row (T, P, c: length K) are the same in both
+ *    layouts. A tiled out_flux on a 64-byte boundary lets large calls
+ *    use streaming stores (as SoA rows do). Results are bit-for-bit
  *    those of the SoA layout. Offered by mcd_flux_batch and
  *    mcd_flux_batch_dij; the other calls taking mcd_cells refuse it
  *    (EINVAL naming cells->layout).
  *  Which is faster (exact model, mole basis, 3 directions, one thread,
  *  AVX-512 host, tests/bench_layout, tiled / SoA cells per second):
- *  N >= 10: tiled, 1.3x (N = 10, 20) to 1.55x (N = 50) when the cells
- *  stream from memory, 1.0x to 1.13x in cache. N <= 5: SoA, the tiled
- *  layout is 0.8x to 0.9x streamed and level in cache. Between 6 and 9
- *  not measured. Converting a SoA array costs a pass over it: the tiled
- *  layout pays when the caller keeps its cells in tiles. Streaming
- *  stores (large calls) need out_flux on a 64-byte boundary in tiles.
+ *  N >= 7: tiled, 1.1x to 1.5x when the cells stream from memory (1.3x
+ *  at N = 10 and 20, 1.55x at N = 50), 1.0x to 1.13x in cache.
+ *  N <= 6: SoA, the tiled layout is 0.8x to 0.9x streamed and level in
+ *  cache. Converting a SoA array costs a pass over it: the tiled layout
+ *  pays when the caller keeps its cells in tiles.
  *  Since 0.4. */
 typedef enum mcd_layout {
     MCD_LAYOUT_SOA = 0,   /**< [q*K + k] (the default) */

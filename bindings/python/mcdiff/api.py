@@ -1063,7 +1063,7 @@ def flux_batch_dij_tiled(Dij, c, comp, grad, *, M=None,
                          flux_basis=None, grad_lnP=None, kT=None,
                          grad_lnT=None, workspace=None, out=None):
     """flux_batch_dij with every per-cell array in tiles of 8 cells
-    (mcd_cells.layout = MCD_LAYOUT_TILED8; faster from N = 10 on, see
+    (mcd_cells.layout = MCD_LAYOUT_TILED8; faster from N = 7 on, see
     mcdiff.h): with T = ceil(K/8) tiles, Dij (T, N, N, 8), comp (T, N, 8),
     grad (T, N, n_dim, 8), grad_lnP and grad_lnT (T, n_dim, 8), kT
     (T, N, 8); c (K,) as in flux_batch_dij (one row: the same in both
