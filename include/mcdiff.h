@@ -1970,19 +1970,20 @@ MCD_API mcd_status mcd_liquid_eval(mcd_workspace *ws, const mcd_liquid *liq,
  *  Each cell runs the single-state code (mcd_liquid_eval's, then
  *  mcd_flux_compute's): the fluxes equal that route (with
  *  mcd_flux_to_volume_frame when Vbar is given) to round-off. A cell
- *  costs what those calls cost plus one more activity evaluation and the
- *  input checks (the check pass below): 1.2 to 2.8 times the two calls
- *  per cell for N = 2..6 (measured, 5003 cells, every model; 0.2 to
- *  3 us per cell on a 2020s x86-64 core). No vectorisation across cells,
- *  no OpenMP: serial, cell after cell, through workspace scratch.
+ *  costs a little less than those two calls made by the caller: 0.53 to
+ *  0.95 of them per cell for N = 2..6 (measured, 5003 cells, NRTL,
+ *  Wilson, UNIQUAC; 0.15 to 1.8 us per cell on a 2020s x86-64 core). No
+ *  vectorisation across cells, no OpenMP: serial, cell after cell,
+ *  through workspace scratch.
  *
- *  Before anything is written every cell is checked: its inputs (the
- *  rules of mcd_flux_batch_dij) and that the liquid is stable there; an
+ *  Before anything is written every cell's inputs are checked (the rules
+ *  of mcd_flux_batch_dij): bad input leaves the outputs untouched. The
+ *  liquid's stability is tested with its evaluation, cell by cell: an
  *  unstable cell fails with EDOM ("cell <k>: argument comp: the liquid is
- *  not stable ..."), outputs untouched. Only a failure of a cell's solve
- *  itself (ESING, or EDOM for fluxes that are not finite or mass fluxes
- *  lost to cancellation: inputs at the edge of the double range) can
- *  leave the cells before it written, as in the other batched calls.
+ *  not stable ..."), and, as in the other batched calls, the cells before
+ *  it are then already written (so are they on a failure of a cell's
+ *  solve: ESING, or EDOM for fluxes that are not finite or mass fluxes
+ *  lost to cancellation, inputs at the edge of the double range).
  *
  *  @param ws          workspace with capacity >= the liquid's N.
  *  @param liq         the liquid (read only; may be shared between

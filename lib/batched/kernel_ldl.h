@@ -5,6 +5,44 @@
 #ifndef MCD_KERNEL_LDL_H
 #define MCD_KERNEL_LDL_H
 
+/* 1 / d for a pivot vector. On AVX-512 a full-width division (one per 16
+ * cycles on the divider, ~22 cycles latency) sits on the chain of every
+ * row; there the 14-bit estimate y0 = vrcp14pd(d) is refined with
+ * e = 1 - d y0 (|e| < 2^-14) to y0 (1 + e)(1 + e^2) = y0 (1 + e + e^2 +
+ * e^3), relative error e^4 < 2^-56 plus two roundings: within 2 ulp of the
+ * division (common practice: Newton's iteration for the reciprocal,
+ * two steps folded into one polynomial). Only when every lane's pivot is
+ * in [2^-1000, 2^1000]; otherwise (tiny, huge, non-positive or NaN pivots,
+ * rare) the division, so special values and the ESING check are as before. */
+#if MCDI_KISA == 4 && defined(__AVX512F__) && MCDI_VLANES == 8
+#include <immintrin.h>
+#define MCDI_FAST_RECIP 1
+#else
+#define MCDI_FAST_RECIP 0
+#endif
+KINLINE mcdi_vd recip_pivot(const mcdi_vd d, const size_t n)
+{
+#if MCDI_FAST_RECIP
+    /* the estimate pays only in the constant-n instances (n <= 5,
+     * batch_kernel.c): 6-10 % faster whole call at N = 3 and 5 on the
+     * AVX-512 host, 1-2 % slower in the generic one (A/B, one run) */
+    const __m512d dv = (__m512d)d;
+    const __mmask8 in =
+        _mm512_cmp_pd_mask(dv, _mm512_set1_pd(0x1p-1000), _CMP_GT_OQ) &
+        _mm512_cmp_pd_mask(dv, _mm512_set1_pd(0x1p1000), _CMP_LT_OQ);
+    if (n <= 5 && __builtin_expect(in == 0xFF, 1)) {
+        const mcdi_vd one = {1.0, 1.0, 1.0, 1.0, 1.0, 1.0, 1.0, 1.0};
+        const mcdi_vd y0 = (mcdi_vd)_mm512_rcp14_pd(dv);
+        const mcdi_vd e = one - d * y0;
+        const mcdi_vd y1 = y0 + y0 * e, e2 = e * e;
+        return y1 + y1 * e2;
+    }
+#else
+    (void)n;
+#endif
+    return 1.0 / d;
+}
+
 /* Assemble A = Gs + a s s^T row by row (A holds the packed lower triangle
  * of the inverse diffusivities on entry and L on exit), factor A = L D L^T
  * by rows (W_j = L_ij D_j), run the forward substitution of each row as
@@ -18,6 +56,16 @@
  * large n; one load per FMA was the limit), then the tile's own triangle
  * row by row. Wm: KTILE * n vectors (the tile's W rows). Up to KREG
  * species W and 1/D are local arrays, registers after unrolling. */
+/* GCC left the row loop of the constant-n instances (n <= 5) rolled, with
+ * W and 1/D in memory and a compare-and-branch per column; unrolled, they
+ * live in registers (issue 15, A/B: factor and solve 7.7 -> 5.2 ns per
+ * cell at N = 5, whole call 27.0 -> 24.2; 12.8 -> 12.1 at N = 3; N = 7,
+ * 10 and 20 unchanged within noise). */
+#if defined(__GNUC__) && !defined(__clang__)
+#define LDL_UNROLL _Pragma("GCC unroll 8")
+#else
+#define LDL_UNROLL
+#endif
 KINLINE void ldl_row_tail(const size_t nd, mcdi_vd *restrict A, const size_t i,
                           const size_t j0, const mcdi_vd *restrict s,
                           const mcdi_vd a, mcdi_vd *restrict W,
@@ -27,9 +75,11 @@ KINLINE void ldl_row_tail(const size_t nd, mcdi_vd *restrict A, const size_t i,
     mcdi_vd *restrict Ai = A + i * (i + 1) / 2;
     const mcdi_vd si = s[i];
     size_t j, k, dd;
+    LDL_UNROLL
     for (j = j0; j < i; j++) {
         const mcdi_vd *restrict Aj = A + j * (j + 1) / 2;
         mcdi_vd t = si * s[j] * (a - Ai[j]), lij;
+        LDL_UNROLL
         for (k = 0; k < j; k++)
             t -= W[k] * Aj[k];
         W[j] = t;
@@ -52,6 +102,7 @@ KINLINE int ldl_solve_v(const size_t n, const size_t nd, mcdi_vd *restrict A,
     mcdi_vl ok = zero == zero; /* all lanes true */
     size_t i, i0, j, k, dd, l, r;
     const size_t step = n <= KREG ? 1 : KTILE; /* rows per tile */
+    LDL_UNROLL
     for (i0 = 0; i0 < n; i0 += step) {
         const size_t nr = n - i0 < step ? n - i0 : step;
         mcdi_vd f[KTILE][MCD_MAX_DIM];
@@ -89,11 +140,12 @@ KINLINE int ldl_solve_v(const size_t n, const size_t nd, mcdi_vd *restrict A,
             ldl_row_tail(nd, A, ii, (n > KREG && nr == KTILE) ? i0 : 0, s, a, W,
                          iD, R, f[r]);
             dg = S[ii] + a * x[ii];
+            LDL_UNROLL
             for (k = 0; k < ii; k++)
                 dg -= W[k] * Ai[k];
             Dg[ii] = dg;
             ok &= dg > zero;
-            iD[ii] = 1.0 / dg;
+            iD[ii] = recip_pivot(dg, n);
             for (dd = 0; dd < nd; dd++)
                 R[ii * nd + dd] = f[r][dd];
         }
@@ -101,11 +153,15 @@ KINLINE int ldl_solve_v(const size_t n, const size_t nd, mcdi_vd *restrict A,
     for (l = 0; l < MCDI_VLANES; l++)
         if (ok[l] == 0)
             return 0;
+    LDL_UNROLL
     for (i = n; i-- > 0;) {
         mcdi_vd f[MCD_MAX_DIM];
         for (dd = 0; dd < nd; dd++)
             f[dd] = R[i * nd + dd] * iD[i];
-        for (k = i + 1; k < n; k++) {
+        /* the newest unknown (k = i + 1) last: once unrolled, row i
+         * waits for row i + 1 by one multiply-add, not n - i - 1 */
+        LDL_UNROLL
+        for (k = n - 1; k > i; k--) {
             const mcdi_vd lki = A[k * (k + 1) / 2 + i];
             for (dd = 0; dd < nd; dd++)
                 f[dd] -= lki * R[k * nd + dd];
