@@ -174,7 +174,9 @@ static mcd_status check_args(mcd_workspace *ws, const lb_call *a,
     mcd_status st;
     if ((st = mcdi_check_species(ws, a->n, 1, 0, "liq")) != MCD_OK ||
         (st = mcdi_batch_check_common(ws, a->model, a->n, cl, a->fb, out_flux,
-                                      "out_flux")) != MCD_OK)
+                                      "out_flux")) != MCD_OK ||
+        (st = mcdi_batch_check_layout(cl, 0, "mcd_liquid_flux_batch")) !=
+            MCD_OK)
         return st;
     if (a->model == MCD_MODEL_ITERATIVE)
         return mcdi_fail(MCD_EINVAL,

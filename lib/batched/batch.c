@@ -64,7 +64,7 @@ size_t mcdi_batch_scratch_doubles(size_t cap)
  * cell is fine. The rules are those the kernel's loading stages apply. */
 static mcd_status check_cell(mcd_workspace *ws, const mcdi_bjob *jb, size_t k)
 {
-    const size_t n = jb->n, nd = jb->nd, K = jb->K;
+    const size_t n = jb->n, nd = jb->nd, K = jb->rs; /* row stride */
     mcd_status st = MCD_OK;
     if (jb->mix != NULL) {
         if ((st = mcdi_check_positive(ws, jb->T[k], "T")) != MCD_OK ||
@@ -76,20 +76,25 @@ static mcd_status check_cell(mcd_workspace *ws, const mcdi_bjob *jb, size_t k)
                              "is not a normal positive number",
                              jb->P[k] / (MCD_GAS_CONSTANT * jb->T[k]));
     } else if ((st = mcdi_check_conc(ws, jb->c[k], "c")) != MCD_OK ||
-               (st = mcdi_check_dij_strided(ws, n, jb->Dij + k, K)) != MCD_OK) {
+               (st = mcdi_check_dij_strided(
+                    ws, n, jb->Dij + mcdi_cell_at(jb, k, n * n), K)) !=
+                   MCD_OK) {
         return st;
     }
-    if ((st = mcdi_check_comp_strided(ws, n, jb->comp + k, K, "comp")) !=
-            MCD_OK ||
-        (st = mcdi_check_finite_strided(ws, n, nd, jb->grad + k, K, "grad")) !=
-            MCD_OK)
+    if ((st = mcdi_check_comp_strided(ws, n, jb->comp + mcdi_cell_at(jb, k, n),
+                                      K, "comp")) != MCD_OK ||
+        (st = mcdi_check_finite_strided(ws, n, nd,
+                                        jb->grad + mcdi_cell_at(jb, k, n * nd),
+                                        K, "grad")) != MCD_OK)
         return st;
-    if (jb->glnP != NULL &&
-        (st = mcdi_check_finite_strided(ws, 1, nd, jb->glnP + k, K,
-                                        "grad_lnP")) != MCD_OK)
+    if (jb->glnP != NULL && (st = mcdi_check_finite_strided(
+                                 ws, 1, nd, jb->glnP + mcdi_cell_at(jb, k, nd),
+                                 K, "grad_lnP")) != MCD_OK)
         return st;
     if (jb->kT != NULL)
-        st = mcdi_check_thermal_strided(ws, n, nd, jb->kT + k, jb->glnT + k, K);
+        st = mcdi_check_thermal_strided(ws, n, nd,
+                                        jb->kT + mcdi_cell_at(jb, k, n),
+                                        jb->glnT + mcdi_cell_at(jb, k, nd), K);
     return st;
 }
 
@@ -246,6 +251,23 @@ mcd_status mcdi_batch_check_common(mcd_workspace *ws, mcd_model model, size_t n,
     return MCD_OK;
 }
 
+mcd_status mcdi_batch_check_layout(const mcd_cells *cl, int tiled_ok,
+                                   const char *call)
+{
+    if (cl->layout == MCD_LAYOUT_SOA ||
+        (cl->layout == MCD_LAYOUT_TILED8 && tiled_ok))
+        return MCD_OK;
+    if (cl->layout == MCD_LAYOUT_TILED8)
+        return mcdi_fail(MCD_EINVAL,
+                         "argument cells->layout: MCD_LAYOUT_TILED8 is not "
+                         "offered by %s (use MCD_LAYOUT_SOA)",
+                         call);
+    return mcdi_fail(MCD_EINVAL,
+                     "argument cells->layout: %d is not a mcd_layout (0 SoA, "
+                     "1 tiled)",
+                     (int)cl->layout);
+}
+
 /* Whether the job streams its outputs: by the bytes it reads and writes
  * (batch.h, kernel_isa.c). Only the SoA entries ask; the AoS path writes
  * into staging that it reads back at once. */
@@ -258,6 +280,8 @@ static int stream_choice(const mcdi_bjob *jb)
     double bytes = 8.0 * (double)per_cell * (double)jb->K;
     if (((uintptr_t)jb->out & 7u) != 0)
         return 0; /* lines are found from the address of a double */
+    if (jb->tiled && ((uintptr_t)jb->out & 63u) != 0)
+        return 0; /* a tiled block's row is a line only on a line */
     return mcdi_batch_stream_choice(bytes >= 1e18 ? (size_t)1e18
                                                   : (size_t)bytes);
 }
@@ -273,6 +297,8 @@ static void job_init(mcdi_bjob *jb, const mcd_workspace *ws, mcd_model model,
     jb->n = n;
     jb->nd = cl->n_dim;
     jb->K = K;
+    jb->tiled = cl->layout == MCD_LAYOUT_TILED8;
+    jb->rs = jb->tiled ? 8 : K;
     jb->model = (int)model;
     jb->comp_basis = (int)cl->comp_basis;
     jb->flux_basis = (int)fb;
@@ -313,7 +339,9 @@ static mcd_status mixture_job(mcd_workspace *ws, const mcd_mixture *mix,
         return st;
     n = mix->n;
     if ((st = mcdi_batch_check_common(ws, model, n, cl, flux_basis, out_flux,
-                                      "out_flux")) != MCD_OK)
+                                      "out_flux")) != MCD_OK ||
+        (st = mcdi_batch_check_layout(cl, !aos, "mcd_flux_batch_aos")) !=
+            MCD_OK)
         return st;
     if ((st = MCDI_CHECK_PTRS2(T, P)) != MCD_OK)
         return st;
@@ -351,7 +379,8 @@ mcd_status mcdi_api_flux_batch_dij(mcd_workspace *ws, mcd_model model,
     mcd_status st;
     int need_M;
     if ((st = mcdi_batch_check_common(ws, model, n_species, cl, flux_basis,
-                                      out_flux, "out_flux")) != MCD_OK)
+                                      out_flux, "out_flux")) != MCD_OK ||
+        (st = mcdi_batch_check_layout(cl, 1, "mcd_flux_batch_dij")) != MCD_OK)
         return st;
     if ((st = MCDI_CHECK_PTRS2(Dij, c)) != MCD_OK)
         return st;

@@ -22,9 +22,15 @@
  * one cell at a time (lanes = 1), through the same stages. */
 #define MCDI_LANES_NMAX 128
 
-/* One batched call, as the kernel sees it (inputs SoA with stride K). */
+/* One batched call, as the kernel sees it. Every per-cell array (inputs
+ * and out) is in the call's layout: SoA (row q of cell k at q K + k) or
+ * tiled (MCD_LAYOUT_TILED8: at (k - k%8) Q + 8 q + k%8 for an array of Q
+ * rows); mcdi_cell_at gives where a cell's row 0 lies, rs the distance
+ * between rows, so the kernels address both with one rule. */
 typedef struct mcdi_bjob {
     size_t n, nd, K;
+    size_t rs; /* row stride: K (SoA) or 8 (tiled) */
+    int tiled; /* MCD_LAYOUT_TILED8 */
     int model; /* mcd_model */
     int comp_basis, flux_basis;
     const mcd_mixture *mix; /* mixture mode (T, P used) or NULL */
@@ -44,6 +50,13 @@ typedef struct mcdi_bjob {
               * (copied from the workspace's stage_cut, never set by a
               * public call) */
 } mcdi_bjob;
+
+/* Index of row 0 of cell k in an array of Q rows of the job's layout
+ * (row q at + q rs). Blocks never straddle a tile: L divides 8 (or is 1). */
+static inline size_t mcdi_cell_at(const mcdi_bjob *jb, size_t k, size_t Q)
+{
+    return jb->tiled ? (k & ~(size_t)7) * Q + (k & 7) : k;
+}
 
 /* Outcome of one block. */
 typedef struct mcdi_bres {
@@ -94,6 +107,10 @@ size_t mcdi_batch_scratch_doubles(size_t cap);
 mcd_status mcdi_batch_check_common(mcd_workspace *ws, mcd_model model, size_t n,
                                    const mcd_cells *cl, mcd_basis flux_basis,
                                    const double *out, const char *out_name);
+/* cells->layout: a known layout, and SoA unless the call (named `call`)
+ * takes the tiled one too (tiled_ok). */
+mcd_status mcdi_batch_check_layout(const mcd_cells *cl, int tiled_ok,
+                                   const char *call);
 
 /* Process cells k0 .. k0+nv-1 (1 <= nv <= mcdi_batch_lanes(n)) of the job.
  * mem: scratch of mcdi_batch_scratch_doubles(n) doubles, 64-byte aligned.

@@ -73,6 +73,8 @@ mcd_status mcdi_api_flux_batch_jacobian(mcd_workspace *ws, mcd_model model,
         return st;
     if ((st = mcdi_batch_check_common(ws, model, n, cl, flux_basis, out_jac,
                                       "out_jac")) != MCD_OK ||
+        (st = mcdi_batch_check_layout(cl, 0, "mcd_flux_batch_jacobian")) !=
+            MCD_OK ||
         (st = MCDI_CHECK_PTRS2(Dij, c)) != MCD_OK)
         return st;
     if ((cl->comp_basis == MCD_BASIS_MASS || flux_basis == MCD_BASIS_MASS ||

@@ -207,8 +207,8 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
              * (a flux not finite: J holds them all, stage_store reports) */
             if (!emit_mole_v(n, nd, (const mcdi_vd *)b.s, (const mcdi_vd *)b.x,
                              (const mcdi_vd *)b.r, (const mcdi_vd *)b.t, ntr,
-                             *(const mcdi_vd *)b.c, (mcdi_vd *)b.J, jb->out,
-                             jb->K, k0, jb->stream, nts))
+                             *(const mcdi_vd *)b.c, (mcdi_vd *)b.J, jb, k0,
+                             nts))
                 stage_store(jb, &b, k0, nv, res, n, L, nd);
             return;
         }
@@ -293,7 +293,7 @@ void FNAME(MCDI_KISA)(const mcdi_bjob *jb, double *mem)
 #if MCDI_CAN_STREAM
     if (!jb->stream)
         return;
-    stream_flush(jb->n * jb->nd, jb->out, jb->K, mem);
+    stream_flush(jb, jb->n * jb->nd, mem);
     _mm_sfence(); /* the streamed lines before anything after the call */
 #else
     (void)jb;

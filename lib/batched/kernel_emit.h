@@ -23,16 +23,19 @@ KINLINE __m512i stream_index(unsigned o)
                             _mm512_set_epi64(7, 6, 5, 4, 3, 2, 1, 0));
 }
 
-static void stream_flush(size_t rows, double *outb, size_t K, double *nts)
+static void stream_flush(const mcdi_bjob *jb, size_t rows, double *nts)
 {
     mcdi_stream_state *st = (mcdi_stream_state *)(void *)nts;
     const __m512d *carry = (const __m512d *)(void *)(nts + 8);
-    size_t e, k0p;
+    double *ob;
+    size_t e;
     if (!st->pending)
         return;
-    k0p = st->next_k0 - 8;
+    /* row 0 of the held block (a tiled out is 64-byte aligned, batch.c:
+     * o = 0 on every row, nothing is held) */
+    ob = jb->out + mcdi_cell_at(jb, st->next_k0 - 8, rows);
     for (e = 0; e < rows; e++) {
-        double *p = outb + e * K + k0p;
+        double *p = ob + e * jb->rs;
         const unsigned o = (unsigned)(((uintptr_t)p >> 3) & 7u);
         if (o != 0) /* lanes 8 - o .. 7 are still held back */
             _mm512_mask_storeu_pd(p, (__mmask8)((0xFFu << (8u - o)) & 0xFFu),
@@ -41,17 +44,19 @@ static void stream_flush(size_t rows, double *outb, size_t K, double *nts)
     st->pending = 0;
 }
 
-KINLINE void stream_rows(size_t rows, const mcdi_vd *restrict J, double *outb,
-                         size_t K, size_t k0, double *nts)
+KINLINE void stream_rows(const mcdi_bjob *jb, size_t rows,
+                         const mcdi_vd *restrict J, size_t k0, double *nts)
 {
     mcdi_stream_state *st = (mcdi_stream_state *)(void *)nts;
     __m512d *carry = (__m512d *)(void *)(nts + 8);
     const int cont = st->pending && st->next_k0 == k0;
+    double *const ob = jb->out + mcdi_cell_at(jb, k0, rows);
+    const size_t rs = jb->rs;
     size_t e;
     if (st->pending && !cont)
-        stream_flush(rows, outb, K, nts);
+        stream_flush(jb, rows, nts);
     for (e = 0; e < rows; e++) {
-        double *p = outb + e * K + k0;
+        double *p = ob + e * rs;
         const unsigned o = (unsigned)(((uintptr_t)p >> 3) & 7u);
         const __m512d cur = (__m512d)J[e];
         if (o == 0) {
@@ -73,17 +78,18 @@ KINLINE void stream_rows(size_t rows, const mcdi_vd *restrict J, double *outb,
 /* Molar fluxes of a full block from the solution U of the scaled system:
  * J_i = c (s_i U_i + t_i - x_i sum_t t_t), then the zero-sum clean-up
  * J_i -= x_i sum_k J_k, written to out[e * K + l] (e = i * nd + dd) in the
- * same pass (with `stream`, by stream_rows). J: scratch for one
- * direction's fluxes. Returns 0 (nothing written, J holds all fluxes) if
- * some flux is not finite. */
+ * same pass (with jb->stream, by stream_rows), in the job's layout (row
+ * e of the block at out + mcdi_cell_at + e rs). J: scratch for the
+ * fluxes. Returns 0 (nothing written, J holds all fluxes) if some flux is
+ * not finite. */
 KINLINE int emit_mole_v(const size_t n, const size_t nd,
                         const mcdi_vd *restrict s, const mcdi_vd *restrict x,
                         const mcdi_vd *restrict U, const mcdi_vd *restrict t,
                         const int ntr, const mcdi_vd c, mcdi_vd *restrict J,
-                        double *restrict outb, const size_t K, const size_t k0,
-                        const int stream, double *nts)
+                        const mcdi_bjob *jb, const size_t k0, double *nts)
 {
-    double *restrict out = outb + k0;
+    double *restrict out = jb->out + mcdi_cell_at(jb, k0, n * nd);
+    const size_t K = jb->rs; /* row stride (batch.h) */
     const mcdi_vd zero = {0.0};
     mcdi_vd nan_acc = zero; /* q * 0 is NaN exactly when q is inf or NaN */
     double lanes_sum = 0.0;
@@ -118,12 +124,11 @@ KINLINE int emit_mole_v(const size_t n, const size_t nd,
     if (lanes_sum != lanes_sum)
         return 0;
 #if MCDI_CAN_STREAM
-    if (stream) {
-        stream_rows(n * nd, J, outb, K, k0, nts);
+    if (jb->stream) {
+        stream_rows(jb, n * nd, J, k0, nts);
         return 1;
     }
 #else
-    (void)stream;
     (void)nts;
 #endif
     for (e = 0; e < n * nd; e++)

@@ -48,12 +48,17 @@
 /* Rows factored together above KREG species (ldl_solve_v). */
 #define KTILE MCDI_KTILE
 
-/* Prefetch distance of the input streams, in doubles (8 blocks ahead). */
+/* Prefetch distance of the input streams, in doubles (8 blocks ahead):
+ * MCDI_PREFETCH in the SoA layout; in tiles (batch.h) the same row of
+ * the tile 8 tiles ahead, MCDI_PREFETCH Q for an array of Q rows
+ * (MCDI_PF). */
 #define MCDI_PREFETCH 64
+#define MCDI_PF(jb, Q) ((jb)->tiled ? MCDI_PREFETCH * (Q) : MCDI_PREFETCH)
 
-/* Load row src[k0 .. k0+nv-1] into dst[0..L-1], padding with src[k0]. */
+/* Load row src[k0 .. k0+nv-1] into dst[0..L-1], padding with src[k0];
+ * prefetch src + pf (MCDI_PF). */
 KINLINE void load_row(double *restrict dst, const double *restrict src,
-                      size_t nv, size_t L)
+                      size_t nv, size_t L, size_t pf)
 {
     size_t l;
     /* the next blocks of this input stream (a few dozen streams at once
@@ -62,7 +67,7 @@ KINLINE void load_row(double *restrict dst, const double *restrict src,
      * lines out of L2, so inputs that fit in the caches came from L3 on
      * every call; on the Intel AVX-512 host t0 ran N = 10 1.7x and N = 3
      * streamed 1.3x faster than nta (issue 15, A/B in DEVELOPERS.md) */
-    __builtin_prefetch(src + MCDI_PREFETCH, 0, 3);
+    __builtin_prefetch(src + pf, 0, 3);
     if (nv == L) {
         for_lanes (l)
             dst[l] = src[l];
@@ -88,17 +93,18 @@ typedef long long mcdi_vl
  * register too, and reach bl once per stage: OR-ing each row's flags
  * into bl in memory chained every row of inputs through a store and a
  * reload, about 5 ns per cell at N = 3, issue 15). */
-KINLINE mcdi_vd load_v(const double *restrict src)
+KINLINE mcdi_vd load_v(const double *restrict src, size_t pf)
 {
     mcdi_vd v;
-    __builtin_prefetch(src + MCDI_PREFETCH, 0, 3); /* as load_row */
+    __builtin_prefetch(src + pf, 0, 3); /* as load_row */
     memcpy(&v, src, sizeof v);
     return v;
 }
 
-KINLINE mcdi_vd load_vrow(double *restrict dst, const double *restrict src)
+KINLINE mcdi_vd load_vrow(double *restrict dst, const double *restrict src,
+                          size_t pf)
 {
-    const mcdi_vd v = load_v(src);
+    const mcdi_vd v = load_v(src, pf);
     *(mcdi_vd *)(void *)dst = v;
     return v;
 }

@@ -39,8 +39,8 @@ KINLINE void stage_load_scalars(const mcdi_bjob *jb, const mcdi_kblock *b,
     size_t l;
     if (jb->mix != NULL) {
         double *restrict Tl = b->T, *restrict Pl = b->P;
-        load_row(Tl, jb->T + k0, nv, L);
-        load_row(Pl, jb->P + k0, nv, L);
+        load_row(Tl, jb->T + k0, nv, L, MCDI_PREFETCH);
+        load_row(Pl, jb->P + k0, nv, L, MCDI_PREFETCH);
         for_lanes (l) {
             bl[l] |= !((Tl[l] > 0.0) & (Tl[l] <= DBL_MAX));
             bl[l] |= !((Pl[l] > 0.0) & (Pl[l] <= DBL_MAX));
@@ -48,10 +48,10 @@ KINLINE void stage_load_scalars(const mcdi_bjob *jb, const mcdi_kblock *b,
             bl[l] |= !(c[l] >= DBL_MIN); /* a normal c, as single-state */
         }
     } else if (L == MCDI_VLANES && nv == L) {
-        const mcdi_vd v = load_vrow(c, jb->c + k0);
+        const mcdi_vd v = load_vrow(c, jb->c + k0, MCDI_PREFETCH);
         flag_lanes(bl, ~((v >= DBL_MIN) & (v <= DBL_MAX)));
     } else {
-        load_row(c, jb->c + k0, nv, L);
+        load_row(c, jb->c + k0, nv, L, MCDI_PREFETCH);
         for_lanes (l)
             bl[l] |= !((c[l] >= DBL_MIN) &
                        (c[l] <= DBL_MAX)); /* normal c, as single-state */
@@ -63,7 +63,8 @@ KINLINE void stage_load_comp(const mcdi_bjob *jb, const mcdi_kblock *b,
                              long long *restrict bl, size_t k0, size_t nv,
                              const size_t n, const size_t L)
 {
-    const size_t K = jb->K;
+    const size_t K = jb->rs; /* row stride (batch.h) */
+    const double *const comp = jb->comp + mcdi_cell_at(jb, k0, n);
     double *restrict sum = b->sum;
     double *restrict y = jb->comp_basis == MCD_BASIS_MASS ? b->w : b->x;
     size_t i, l;
@@ -72,7 +73,8 @@ KINLINE void stage_load_comp(const mcdi_bjob *jb, const mcdi_kblock *b,
         mcdi_vd sm = {0.0};
         mcdi_vl bad = {0};
         for (i = 0; i < n; i++) {
-            const mcdi_vd q = load_vrow(y + i * L, jb->comp + i * K + k0);
+            const mcdi_vd q =
+                load_vrow(y + i * L, comp + i * K, MCDI_PF(jb, n));
             bad |= ~((q >= 0.0) & (q <= DBL_MAX));
             sm += q;
         }
@@ -85,7 +87,7 @@ KINLINE void stage_load_comp(const mcdi_bjob *jb, const mcdi_kblock *b,
     for_lanes (l)
         sum[l] = 0.0;
     for (i = 0; i < n; i++) {
-        load_row(y + i * L, jb->comp + i * K + k0, nv, L);
+        load_row(y + i * L, comp + i * K, nv, L, MCDI_PF(jb, n));
         for_lanes (l) {
             double q = y[i * L + l];
             bl[l] |= !((q >= 0.0) & (q <= DBL_MAX));
@@ -121,44 +123,54 @@ KINLINE void stage_load_forces(const mcdi_bjob *jb, const mcdi_kblock *b,
                                long long *restrict bl, size_t k0, size_t nv,
                                const size_t n, const size_t L, const size_t nd)
 {
-    const size_t K = jb->K;
+    const size_t K = jb->rs; /* row stride (batch.h) */
+    const double *const grad = jb->grad + mcdi_cell_at(jb, k0, n * nd);
+    const double *const glnP =
+        jb->glnP != NULL ? jb->glnP + mcdi_cell_at(jb, k0, nd) : NULL;
+    const double *const kT =
+        jb->kT != NULL ? jb->kT + mcdi_cell_at(jb, k0, n) : NULL;
+    const double *const glnT =
+        jb->kT != NULL ? jb->glnT + mcdi_cell_at(jb, k0, nd) : NULL;
     double *restrict d = b->d, *restrict v = b->v;
     size_t i, dd, l;
     if (L == MCDI_VLANES && nv == L) {
         /* the same rules on registers (kernel_lanes.h) */
         mcdi_vl bad = {0};
         for (i = 0; i < n * nd; i++)
-            bad |= not_finite_v(load_vrow(d + i * L, jb->grad + i * K + k0));
+            bad |= not_finite_v(
+                load_vrow(d + i * L, grad + i * K, MCDI_PF(jb, n * nd)));
         for (dd = 0; jb->glnP != NULL && dd < nd; dd++)
-            bad |= not_finite_v(load_vrow(v + dd * L, jb->glnP + dd * K + k0));
+            bad |= not_finite_v(
+                load_vrow(v + dd * L, glnP + dd * K, MCDI_PF(jb, nd)));
         for (i = 0; jb->kT != NULL && i < n; i++)
-            bad |= not_finite_v(load_vrow(b->kT + i * L, jb->kT + i * K + k0));
+            bad |= not_finite_v(
+                load_vrow(b->kT + i * L, kT + i * K, MCDI_PF(jb, n)));
         for (dd = 0; jb->kT != NULL && dd < nd; dd++)
-            bad |=
-                not_finite_v(load_vrow(b->gT + dd * L, jb->glnT + dd * K + k0));
+            bad |= not_finite_v(
+                load_vrow(b->gT + dd * L, glnT + dd * K, MCDI_PF(jb, nd)));
         flag_lanes(bl, bad);
         return;
     }
     for (i = 0; i < n * nd; i++) {
-        load_row(d + i * L, jb->grad + i * K + k0, nv, L);
+        load_row(d + i * L, grad + i * K, nv, L, MCDI_PF(jb, n * nd));
         for_lanes (l)
             bl[l] |= !(fabs(d[i * L + l]) <= DBL_MAX);
     }
     if (jb->glnP != NULL) {
         for (dd = 0; dd < nd; dd++) {
-            load_row(v + dd * L, jb->glnP + dd * K + k0, nv, L);
+            load_row(v + dd * L, glnP + dd * K, nv, L, MCDI_PF(jb, nd));
             for_lanes (l)
                 bl[l] |= !(fabs(v[dd * L + l]) <= DBL_MAX);
         }
     }
     if (jb->kT != NULL) {
         for (i = 0; i < n; i++) {
-            load_row(b->kT + i * L, jb->kT + i * K + k0, nv, L);
+            load_row(b->kT + i * L, kT + i * K, nv, L, MCDI_PF(jb, n));
             for_lanes (l)
                 bl[l] |= !(fabs(b->kT[i * L + l]) <= DBL_MAX);
         }
         for (dd = 0; dd < nd; dd++) {
-            load_row(b->gT + dd * L, jb->glnT + dd * K + k0, nv, L);
+            load_row(b->gT + dd * L, glnT + dd * K, nv, L, MCDI_PF(jb, nd));
             for_lanes (l)
                 bl[l] |= !(fabs(b->gT[dd * L + l]) <= DBL_MAX);
         }
@@ -184,7 +196,8 @@ KINLINE void stage_invdiff_dij(const mcdi_bjob *jb, const mcdi_kblock *b,
                                long long *restrict bl, size_t k0, size_t nv,
                                const size_t n, const size_t L)
 {
-    const size_t K = jb->K;
+    const size_t K = jb->rs; /* row stride (batch.h) */
+    const double *const Dij = jb->Dij + mcdi_cell_at(jb, k0, n * n);
     double *restrict wk = b->wk;
     size_t i, j, l;
     if (L == MCDI_VLANES && nv == L) {
@@ -193,8 +206,10 @@ KINLINE void stage_invdiff_dij(const mcdi_bjob *jb, const mcdi_kblock *b,
         mcdi_vl bad = {0};
         for (i = 1; i < n; i++)
             for (j = 0; j < i; j++) {
-                const mcdi_vd a = load_v(jb->Dij + (j * n + i) * K + k0);
-                const mcdi_vd bb = load_v(jb->Dij + (i * n + j) * K + k0);
+                const mcdi_vd a =
+                    load_v(Dij + (j * n + i) * K, MCDI_PF(jb, n * n));
+                const mcdi_vd bb =
+                    load_v(Dij + (i * n + j) * K, MCDI_PF(jb, n * n));
                 const mcdi_vl gt = a > bb;
                 /* a > bb ? a : bb, and |a - bb| <= 1e-12 max (NaN fails) */
                 const mcdi_vd mx =
@@ -211,10 +226,10 @@ KINLINE void stage_invdiff_dij(const mcdi_bjob *jb, const mcdi_kblock *b,
     for (i = 1; i < n; i++)
         for (j = 0; j < i; j++) {
             double *q = b->tri + (i * (i + 1) / 2 + j) * L;
-            const double *up = jb->Dij + (j * n + i) * K + k0;
-            const double *lo = jb->Dij + (i * n + j) * K + k0;
-            load_row(q, up, nv, L);
-            load_row(wk, lo, nv, L);
+            const double *up = Dij + (j * n + i) * K;
+            const double *lo = Dij + (i * n + j) * K;
+            load_row(q, up, nv, L, MCDI_PF(jb, n * n));
+            load_row(wk, lo, nv, L, MCDI_PF(jb, n * n));
             for_lanes (l) {
                 double a = q[l], bb = wk[l], m = a > bb ? a : bb;
                 bl[l] |= !((a >= DBL_MIN) & (a <= DBL_MAX));
@@ -462,7 +477,8 @@ KINLINE void stage_store(const mcdi_bjob *jb, const mcdi_kblock *b, size_t k0,
                          const size_t L, const size_t nd)
 {
     const double *restrict J = b->J;
-    const size_t K = jb->K;
+    const size_t K = jb->rs; /* row stride (batch.h) */
+    double *const out = jb->out + mcdi_cell_at(jb, k0, n * nd);
     int bad = 0;
     size_t i, l;
 #if defined(_OPENMP) || defined(MCDI_OMP_SIMD)
@@ -482,7 +498,7 @@ KINLINE void stage_store(const mcdi_bjob *jb, const mcdi_kblock *b, size_t k0,
                 }
     }
     for (i = 0; i < n * nd; i++) {
-        double *restrict o = jb->out + i * K + k0;
+        double *restrict o = out + i * K;
         const double *restrict Ji = J + i * L;
         if (nv == L) {
             for_lanes (l) /* full block: vector stores */

@@ -805,6 +805,45 @@ class Batched(unittest.TestCase):
         g = [random_grad(rng, 4, nd) for _ in range(K)]
         return T, P, x, g
 
+    def test_tiled_layout_gives_the_bits_of_soa(self):
+        # identity: the same cells in tiles of 8 (to_tiles) give the same
+        # bits as the SoA call; padding slots are left as they were
+        if np is None:
+            with self.assertRaises(RuntimeError):
+                mcdiff.to_tiles([1.0])
+            return
+        rng = Rng(91)
+        for N, K, nd in ((3, 1, 3), (5, 9, 2), (11, 17, 3)):
+            x = np.array([rng.composition(N) for _ in range(K)]).T.copy()
+            g = np.array([[[rng.uniform() - 0.5 for _ in range(K)]
+                           for _ in range(nd)] for _ in range(N)])
+            D = np.zeros((N, N, K))
+            for i in range(N):
+                for j in range(i + 1, N):
+                    for k in range(K):
+                        D[i, j, k] = D[j, i, k] = 1e-5 * (
+                            0.2 + rng.uniform())
+            c = np.array([30.0 + 20.0 * rng.uniform() for _ in range(K)])
+            kT = np.array([[0.02 * (i - (N - 1) / 2.0)] * K
+                           for i in range(N)])
+            lT = np.full((nd, K), 30.0)
+            for model in ("maxwell-stefan", "mixture-averaged", "iterative"):
+                J = mcdiff.flux_batch_dij(D, c, x, g, model=model, kT=kT,
+                                          grad_lnT=lT)
+                out = np.full(((K + 7) // 8, N, nd, 8), 7.5)
+                Jt = mcdiff.flux_batch_dij_tiled(
+                    mcdiff.to_tiles(D), c, mcdiff.to_tiles(x),
+                    mcdiff.to_tiles(g), model=model, kT=mcdiff.to_tiles(kT),
+                    grad_lnT=mcdiff.to_tiles(lT), out=out)
+                self.assertIs(Jt, out)
+                back = mcdiff.from_tiles(Jt, K)
+                self.assertEqual(back.tobytes(), np.asarray(J).tobytes())
+                pad = Jt[-1, :, :, (K - 1) % 8 + 1:]
+                self.assertTrue(np.all(pad == 7.5))
+        with self.assertRaises(ValueError):
+            mcdiff.flux_batch_dij_tiled(mcdiff.to_tiles(D), c,
+                                        mcdiff.to_tiles(x), g)
+
     def test_batched_equal_single_state_calls(self):
         K, nd = 37, 2
         T, P, x, g = self.cells(K, nd)

@@ -362,6 +362,7 @@ class mcd_cells(ctypes.Structure):
         ("grad_lnP", ctypes.POINTER(ctypes.c_double)),
         ("kT", ctypes.POINTER(ctypes.c_double)),
         ("grad_lnT", ctypes.POINTER(ctypes.c_double)),
+        ("layout", ctypes.c_int),
     ]
 
 

@@ -51,6 +51,7 @@ __all__ = [
     "flux_total", "flux_velocity_difference", "flux_project", "flux_diagnose",
     # batched
     "flux_batch", "flux_batch_dij", "liquid_flux_batch",
+    "to_tiles", "from_tiles", "flux_batch_dij_tiled",
     # transfer
     "film_solve", "film_profile", "bulbs_linearized", "bulbs_integrate",
     # viscosity
@@ -1015,6 +1016,94 @@ def flux_batch_dij(Dij, c, comp, grad, *, M=None, model="maxwell-stefan",
                                 ctypes.byref(cells), fb, o.ptr)
     ws.check(st, "mcd_flux_batch_dij")
     return out if out is not None else o.result()
+
+
+def to_tiles(a, fill=0.0):
+    """An array with the cells last, shape (..., K) as flux_batch_dij
+    takes them, in tiles of 8 cells (the C layout MCD_LAYOUT_TILED8):
+    shape (ceil(K/8), ..., 8), t[k // 8, ..., k % 8] = a[..., k]; the
+    slots of the padding cells hold `fill`. Needs numpy."""
+    if np is None:
+        raise RuntimeError("to_tiles needs numpy")
+    a = np.asarray(a, dtype=np.float64)
+    K = a.shape[-1]
+    p = np.full(a.shape[:-1] + ((K + 7) // 8 * 8,), fill, dtype=np.float64)
+    p[..., :K] = a
+    p = p.reshape(a.shape[:-1] + ((K + 7) // 8, 8))
+    return np.ascontiguousarray(np.moveaxis(p, -2, 0))
+
+
+def from_tiles(t, n_cells):
+    """The inverse of to_tiles: tiles (T, ..., 8) back to (..., n_cells)."""
+    if np is None:
+        raise RuntimeError("from_tiles needs numpy")
+    t = np.asarray(t, dtype=np.float64)
+    T = t.shape[0] if t.ndim >= 2 else 0
+    if not 8 * (T - 1) < n_cells <= 8 * T or t.shape[-1] != 8:
+        raise ValueError("from_tiles: shape %s does not hold %d cells in "
+                         "tiles of 8" % (t.shape, n_cells))
+    a = np.moveaxis(t, 0, -2)
+    a = a.reshape(a.shape[:-2] + (-1,))
+    return np.ascontiguousarray(a[..., :n_cells])
+
+
+def _tiled_arg(v, shape, name):
+    """A tiled input of the given shape (or None), C-contiguous float64."""
+    if v is None:
+        return None
+    a = np.ascontiguousarray(v, dtype=np.float64)
+    if a.shape != shape:
+        raise ValueError("%s: expected tiled shape %s, got %s"
+                         % (name, shape, a.shape))
+    return a
+
+
+def flux_batch_dij_tiled(Dij, c, comp, grad, *, M=None,
+                         model="maxwell-stefan", comp_basis="mole",
+                         flux_basis=None, grad_lnP=None, kT=None,
+                         grad_lnT=None, workspace=None, out=None):
+    """flux_batch_dij with every per-cell array in tiles of 8 cells
+    (mcd_cells.layout = MCD_LAYOUT_TILED8; faster from N = 7 on, see
+    mcdiff.h): with T = ceil(K/8) tiles, Dij (T, N, N, 8), comp (T, N, 8),
+    grad (T, N, n_dim, 8), grad_lnP and grad_lnT (T, n_dim, 8), kT
+    (T, N, 8); c (K,) as in flux_batch_dij (one row: the same in both
+    layouts). Returns the fluxes in tiles, (T, N, n_dim, 8); the padding
+    slots of the last tile are not written (0 unless `out` is given).
+    to_tiles and from_tiles convert. Needs numpy."""
+    if np is None:
+        raise RuntimeError("flux_batch_dij_tiled needs numpy")
+    mdl = coerce(Model, model, "model")
+    cb = coerce(Basis, comp_basis, "comp_basis")
+    fb = cb if flux_basis is None else coerce(Basis, flux_basis, "flux_basis")
+    ca = _arrays.vector([c] if isinstance(c, (int, float)) else c, None, "c")
+    K = ca.shape[0]
+    T = (K + 7) // 8
+    g = np.ascontiguousarray(grad, dtype=np.float64)
+    if g.ndim != 4 or g.shape[0] != T or g.shape[-1] != 8:
+        raise ValueError("grad: expected tiled shape (%d, N, n_dim, 8), got "
+                         "%s" % (T, g.shape))
+    N, nd = g.shape[1], g.shape[2]
+    D = _tiled_arg(Dij, (T, N, N, 8), "Dij")
+    a = _tiled_arg(comp, (T, N, 8), "comp")
+    lp = _tiled_arg(grad_lnP, (T, nd, 8), "grad_lnP")
+    kt = _tiled_arg(kT, (T, N, 8), "kT")
+    lt = _tiled_arg(grad_lnT, (T, nd, 8), "grad_lnT")
+    m = _opt(M, lambda v: _arrays.vector(v, N, "M"))
+    ws = _ws(workspace, N)
+
+    def ptr(v):
+        return None if v is None else v.ctypes.data_as(
+            ctypes.POINTER(ctypes.c_double))
+    if out is None:
+        out = np.zeros((T, N, nd, 8))
+    o = _arrays.Output((T, N, nd, 8), out)
+    cells = mcd_cells(n_cells=K, n_dim=nd, comp_basis=cb, comp=ptr(a),
+                      grad=ptr(g), grad_lnP=ptr(lp), kT=ptr(kt),
+                      grad_lnT=ptr(lt), layout=1)  # MCD_LAYOUT_TILED8
+    st = lib.mcd_flux_batch_dij(ws._p(), mdl, N, _ptr(m), ptr(D), ca.ptr,
+                                ctypes.byref(cells), fb, o.ptr)
+    ws.check(st, "mcd_flux_batch_dij")
+    return out
 
 
 def flux_batch_jacobian(Dij, c, comp, grad, *, M=None,
