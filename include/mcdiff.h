@@ -1419,7 +1419,12 @@ MCD_API mcd_status mcd_flux_diagnose(size_t n_species, size_t n_dim,
  *  at N = 10 and 20, 1.55x at N = 50), 1.0x to 1.13x in cache.
  *  N <= 6: SoA, the tiled layout is 0.8x to 0.9x streamed and level in
  *  cache. Converting a SoA array costs a pass over it: the tiled layout
- *  pays when the caller keeps its cells in tiles.
+ *  pays when the caller keeps its cells in tiles. In the SoA layout the
+ *  row stride K matters a little when the cells stream from memory: with
+ *  K / 8 odd the call ran 1.0x to 1.12x faster than with K a multiple of
+ *  32 at N = 7 to 50 (tests/bench_stride; the library staggers its
+ *  prefetches for K a multiple of 16, which was 1.3x to 1.6x slower
+ *  without); the results do not depend on K.
  *  Since 0.4. */
 typedef enum mcd_layout {
     MCD_LAYOUT_SOA = 0,   /**< [q*K + k] (the default) */

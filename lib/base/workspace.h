@@ -77,8 +77,10 @@ struct mcd_workspace {
     double iter_tol;
     double iter_err; /* outcome of the last ITERATIVE call */
     size_t iter_used;
-    int stage_cut; /* batched blocks stop after this stage (bench_stages
-                    * only; 0 = run all; see mcdi_bjob.cut) */
+    int stage_cut;   /* batched blocks stop after this stage (bench_stages
+                      * only; 0 = run all; see mcdi_bjob.cut) */
+    int stagger_off; /* no staggered prefetch (mcdi_bjob.stagger; the A/B
+                      * of bench_stride only; 0 = by the rule) */
 };
 
 /* dgeev work array and its length (lwork for LAPACKE_dgeev_work). */

@@ -299,6 +299,10 @@ static void job_init(mcdi_bjob *jb, const mcd_workspace *ws, mcd_model model,
     jb->K = K;
     jb->tiled = cl->layout == MCD_LAYOUT_TILED8;
     jb->rs = jb->tiled ? 8 : K;
+    /* SoA rows a multiple of 128 bytes apart: the kernels stagger their
+     * prefetches across rows at N >= MCDI_STAG_NMIN (kernel_lanes.h,
+     * pf_stagger) */
+    jb->stagger = !jb->tiled && K % 16 == 0 && !ws->stagger_off;
     jb->model = (int)model;
     jb->comp_basis = (int)cl->comp_basis;
     jb->flux_basis = (int)fb;

@@ -29,9 +29,11 @@
  * between rows, so the kernels address both with one rule. */
 typedef struct mcdi_bjob {
     size_t n, nd, K;
-    size_t rs; /* row stride: K (SoA) or 8 (tiled) */
-    int tiled; /* MCD_LAYOUT_TILED8 */
-    int model; /* mcd_model */
+    size_t rs;   /* row stride: K (SoA) or 8 (tiled) */
+    int tiled;   /* MCD_LAYOUT_TILED8 */
+    int stagger; /* stagger the prefetches of the SoA rows (kernel_lanes.h,
+                  * pf_stagger; set by job_init) */
+    int model;   /* mcd_model */
     int comp_basis, flux_basis;
     const mcd_mixture *mix; /* mixture mode (T, P used) or NULL */
     int mix_has_omega; /* some pair of mix needs Omega_D(T) (CE/WL/Brokaw) */

@@ -50,15 +50,53 @@
 
 /* Prefetch distance of the input streams, in doubles (8 blocks ahead):
  * MCDI_PREFETCH in the SoA layout; in tiles (batch.h) the same row of
- * the tile 8 tiles ahead, MCDI_PREFETCH Q for an array of Q rows
- * (MCDI_PF). */
+ * the tile 8 tiles ahead, MCDI_PREFETCH Q for an array of Q rows. */
 #define MCDI_PREFETCH 64
-#define MCDI_PF(jb, Q) ((jb)->tiled ? MCDI_PREFETCH * (Q) : MCDI_PREFETCH)
+
+/* Extra prefetch distance of a SoA row, 0, 8, 16 or 24 doubles (0-3
+ * blocks), from a fold of the row's address bits above the 4 KiB page.
+ * When the rows lie a multiple of 128 bytes apart (n_cells a multiple of
+ * 16), every row's prefetch of a block falls on the same offset within
+ * 256 bytes at once; on the Intel AVX-512 host the SoA Dij call then ran
+ * 1.3-1.6x slower streamed at N = 7..50 than with n_cells / 8 odd (a
+ * memory-side conflict, mechanism not identified: the VM has no
+ * performance counters). Spreading the rows' prefetch targets over four
+ * blocks removes most of it (issue 15; tests/bench_stride.c, the
+ * benchmark `stride`). jb->stagger (batch.c) and MCDI_STAG_NMIN turn it
+ * on where it was measured to pay: N >= 7 and such a stride; at N = 6 it
+ * made the call 1.4x slower and at N <= 5 it gained nothing (A/B
+ * builds). The address fold, not the row index, so that every stride
+ * gets spread (a row index times an odd stride can cancel). */
+KINLINE size_t pf_stagger(const double *p)
+{
+    uintptr_t a = (uintptr_t)p >> 12;
+    a ^= a >> 2;
+    a ^= a >> 4;
+    a ^= a >> 8;
+    return 8 * (size_t)(a & 3);
+}
+
+/* Prefetch distance for row src of an array of Q rows of a job of n
+ * species (n = 0 for the per-cell scalars; constant n < MCDI_STAG_NMIN
+ * folds the stagger away in the small-n instances). */
+#ifndef MCDI_STAG_NMIN
+#define MCDI_STAG_NMIN 7
+#endif
+KINLINE size_t pf_dist(const mcdi_bjob *jb, size_t Q, size_t n,
+                       const double *src)
+{
+    if (jb->tiled)
+        return MCDI_PREFETCH * Q;
+    if (n >= MCDI_STAG_NMIN && jb->stagger)
+        return MCDI_PREFETCH + pf_stagger(src);
+    return MCDI_PREFETCH;
+}
 
 /* Load row src[k0 .. k0+nv-1] into dst[0..L-1], padding with src[k0];
- * prefetch src + pf (MCDI_PF). */
+ * prefetch the same row ahead (pf_dist; Q rows in the array). */
 KINLINE void load_row(double *restrict dst, const double *restrict src,
-                      size_t nv, size_t L, size_t pf)
+                      size_t nv, size_t L, const mcdi_bjob *jb, size_t Q,
+                      size_t n)
 {
     size_t l;
     /* the next blocks of this input stream (a few dozen streams at once
@@ -67,7 +105,7 @@ KINLINE void load_row(double *restrict dst, const double *restrict src,
      * lines out of L2, so inputs that fit in the caches came from L3 on
      * every call; on the Intel AVX-512 host t0 ran N = 10 1.7x and N = 3
      * streamed 1.3x faster than nta (issue 15, A/B in DEVELOPERS.md) */
-    __builtin_prefetch(src + pf, 0, 3);
+    __builtin_prefetch(src + pf_dist(jb, Q, n, src), 0, 3);
     if (nv == L) {
         for_lanes (l)
             dst[l] = src[l];
@@ -93,18 +131,19 @@ typedef long long mcdi_vl
  * register too, and reach bl once per stage: OR-ing each row's flags
  * into bl in memory chained every row of inputs through a store and a
  * reload, about 5 ns per cell at N = 3, issue 15). */
-KINLINE mcdi_vd load_v(const double *restrict src, size_t pf)
+KINLINE mcdi_vd load_v(const double *restrict src, const mcdi_bjob *jb,
+                       size_t Q, size_t n)
 {
     mcdi_vd v;
-    __builtin_prefetch(src + pf, 0, 3); /* as load_row */
+    __builtin_prefetch(src + pf_dist(jb, Q, n, src), 0, 3); /* as load_row */
     memcpy(&v, src, sizeof v);
     return v;
 }
 
 KINLINE mcdi_vd load_vrow(double *restrict dst, const double *restrict src,
-                          size_t pf)
+                          const mcdi_bjob *jb, size_t Q, size_t n)
 {
-    const mcdi_vd v = load_v(src, pf);
+    const mcdi_vd v = load_v(src, jb, Q, n);
     *(mcdi_vd *)(void *)dst = v;
     return v;
 }

@@ -39,8 +39,8 @@ KINLINE void stage_load_scalars(const mcdi_bjob *jb, const mcdi_kblock *b,
     size_t l;
     if (jb->mix != NULL) {
         double *restrict Tl = b->T, *restrict Pl = b->P;
-        load_row(Tl, jb->T + k0, nv, L, MCDI_PREFETCH);
-        load_row(Pl, jb->P + k0, nv, L, MCDI_PREFETCH);
+        load_row(Tl, jb->T + k0, nv, L, jb, 1, 0);
+        load_row(Pl, jb->P + k0, nv, L, jb, 1, 0);
         for_lanes (l) {
             bl[l] |= !((Tl[l] > 0.0) & (Tl[l] <= DBL_MAX));
             bl[l] |= !((Pl[l] > 0.0) & (Pl[l] <= DBL_MAX));
@@ -48,10 +48,10 @@ KINLINE void stage_load_scalars(const mcdi_bjob *jb, const mcdi_kblock *b,
             bl[l] |= !(c[l] >= DBL_MIN); /* a normal c, as single-state */
         }
     } else if (L == MCDI_VLANES && nv == L) {
-        const mcdi_vd v = load_vrow(c, jb->c + k0, MCDI_PREFETCH);
+        const mcdi_vd v = load_vrow(c, jb->c + k0, jb, 1, 0);
         flag_lanes(bl, ~((v >= DBL_MIN) & (v <= DBL_MAX)));
     } else {
-        load_row(c, jb->c + k0, nv, L, MCDI_PREFETCH);
+        load_row(c, jb->c + k0, nv, L, jb, 1, 0);
         for_lanes (l)
             bl[l] |= !((c[l] >= DBL_MIN) &
                        (c[l] <= DBL_MAX)); /* normal c, as single-state */
@@ -73,8 +73,7 @@ KINLINE void stage_load_comp(const mcdi_bjob *jb, const mcdi_kblock *b,
         mcdi_vd sm = {0.0};
         mcdi_vl bad = {0};
         for (i = 0; i < n; i++) {
-            const mcdi_vd q =
-                load_vrow(y + i * L, comp + i * K, MCDI_PF(jb, n));
+            const mcdi_vd q = load_vrow(y + i * L, comp + i * K, jb, n, n);
             bad |= ~((q >= 0.0) & (q <= DBL_MAX));
             sm += q;
         }
@@ -87,7 +86,7 @@ KINLINE void stage_load_comp(const mcdi_bjob *jb, const mcdi_kblock *b,
     for_lanes (l)
         sum[l] = 0.0;
     for (i = 0; i < n; i++) {
-        load_row(y + i * L, comp + i * K, nv, L, MCDI_PF(jb, n));
+        load_row(y + i * L, comp + i * K, nv, L, jb, n, n);
         for_lanes (l) {
             double q = y[i * L + l];
             bl[l] |= !((q >= 0.0) & (q <= DBL_MAX));
@@ -137,40 +136,39 @@ KINLINE void stage_load_forces(const mcdi_bjob *jb, const mcdi_kblock *b,
         /* the same rules on registers (kernel_lanes.h) */
         mcdi_vl bad = {0};
         for (i = 0; i < n * nd; i++)
-            bad |= not_finite_v(
-                load_vrow(d + i * L, grad + i * K, MCDI_PF(jb, n * nd)));
+            bad |=
+                not_finite_v(load_vrow(d + i * L, grad + i * K, jb, n * nd, n));
         for (dd = 0; jb->glnP != NULL && dd < nd; dd++)
-            bad |= not_finite_v(
-                load_vrow(v + dd * L, glnP + dd * K, MCDI_PF(jb, nd)));
+            bad |=
+                not_finite_v(load_vrow(v + dd * L, glnP + dd * K, jb, nd, n));
         for (i = 0; jb->kT != NULL && i < n; i++)
-            bad |= not_finite_v(
-                load_vrow(b->kT + i * L, kT + i * K, MCDI_PF(jb, n)));
+            bad |= not_finite_v(load_vrow(b->kT + i * L, kT + i * K, jb, n, n));
         for (dd = 0; jb->kT != NULL && dd < nd; dd++)
             bad |= not_finite_v(
-                load_vrow(b->gT + dd * L, glnT + dd * K, MCDI_PF(jb, nd)));
+                load_vrow(b->gT + dd * L, glnT + dd * K, jb, nd, n));
         flag_lanes(bl, bad);
         return;
     }
     for (i = 0; i < n * nd; i++) {
-        load_row(d + i * L, grad + i * K, nv, L, MCDI_PF(jb, n * nd));
+        load_row(d + i * L, grad + i * K, nv, L, jb, n * nd, n);
         for_lanes (l)
             bl[l] |= !(fabs(d[i * L + l]) <= DBL_MAX);
     }
     if (jb->glnP != NULL) {
         for (dd = 0; dd < nd; dd++) {
-            load_row(v + dd * L, glnP + dd * K, nv, L, MCDI_PF(jb, nd));
+            load_row(v + dd * L, glnP + dd * K, nv, L, jb, nd, n);
             for_lanes (l)
                 bl[l] |= !(fabs(v[dd * L + l]) <= DBL_MAX);
         }
     }
     if (jb->kT != NULL) {
         for (i = 0; i < n; i++) {
-            load_row(b->kT + i * L, kT + i * K, nv, L, MCDI_PF(jb, n));
+            load_row(b->kT + i * L, kT + i * K, nv, L, jb, n, n);
             for_lanes (l)
                 bl[l] |= !(fabs(b->kT[i * L + l]) <= DBL_MAX);
         }
         for (dd = 0; dd < nd; dd++) {
-            load_row(b->gT + dd * L, glnT + dd * K, nv, L, MCDI_PF(jb, nd));
+            load_row(b->gT + dd * L, glnT + dd * K, nv, L, jb, nd, n);
             for_lanes (l)
                 bl[l] |= !(fabs(b->gT[dd * L + l]) <= DBL_MAX);
         }
@@ -206,10 +204,8 @@ KINLINE void stage_invdiff_dij(const mcdi_bjob *jb, const mcdi_kblock *b,
         mcdi_vl bad = {0};
         for (i = 1; i < n; i++)
             for (j = 0; j < i; j++) {
-                const mcdi_vd a =
-                    load_v(Dij + (j * n + i) * K, MCDI_PF(jb, n * n));
-                const mcdi_vd bb =
-                    load_v(Dij + (i * n + j) * K, MCDI_PF(jb, n * n));
+                const mcdi_vd a = load_v(Dij + (j * n + i) * K, jb, n * n, n);
+                const mcdi_vd bb = load_v(Dij + (i * n + j) * K, jb, n * n, n);
                 const mcdi_vl gt = a > bb;
                 /* a > bb ? a : bb, and |a - bb| <= 1e-12 max (NaN fails) */
                 const mcdi_vd mx =
@@ -228,8 +224,8 @@ KINLINE void stage_invdiff_dij(const mcdi_bjob *jb, const mcdi_kblock *b,
             double *q = b->tri + (i * (i + 1) / 2 + j) * L;
             const double *up = Dij + (j * n + i) * K;
             const double *lo = Dij + (i * n + j) * K;
-            load_row(q, up, nv, L, MCDI_PF(jb, n * n));
-            load_row(wk, lo, nv, L, MCDI_PF(jb, n * n));
+            load_row(q, up, nv, L, jb, n * n, n);
+            load_row(wk, lo, nv, L, jb, n * n, n);
             for_lanes (l) {
                 double a = q[l], bb = wk[l], m = a > bb ? a : bb;
                 bl[l] |= !((a >= DBL_MIN) & (a <= DBL_MAX));
