@@ -4,15 +4,21 @@
 # (mcd_workspace_alloc, the flat mcd_flux_batch_dij, mcd_workspace_last_error);
 # this copies the harness to a temporary directory, rewrites those three
 # calls to their 0.2+ forms (same cells, same work) and runs it.
+# With MCD_ANCHOR_LAYOUT=tiled the library reads and writes its tiled
+# layout (MCD_LAYOUT_TILED8), the reference kernel's own block layout,
+# converted outside the timed loop as the reference kernel's is.
 #   usage: tools/anchor.sh BUILD_DIR [N...]      (from the project root)
 set -eu
 src=${MCD_ANCHOR_DIR:-$(cd "$(dirname "$0")/../.." && pwd)/shared/perf-anchor}
 [ -f "$src/driver.c" ] || { echo "anchor.sh: no perf-anchor at $src (set MCD_ANCHOR_DIR)" >&2; exit 1; }
 tmp=$(mktemp -d); trap 'rm -rf "$tmp"' EXIT
 cp "$src"/* "$tmp/"
-python3 - "$tmp/driver.c" <<'PY'
+python3 - "$tmp/driver.c" "${MCD_ANCHOR_LAYOUT:-soa}" <<'PY'
 import re, sys
 p = sys.argv[1]; s = open(p).read()
+if sys.argv[2] not in ("soa", "tiled"):
+    sys.exit("anchor.sh: MCD_ANCHOR_LAYOUT must be soa or tiled")
+tiled = sys.argv[2] == "tiled"
 s = s.replace("mcd_workspace_alloc((size_t)N, &ws)", "mcd_workspace_new((size_t)N, &ws)")
 s = s.replace("mcd_workspace_last_error(ws)", "mcd_last_error()")
 old = re.search(r"mcd_flux_batch_dij\(ws, MCD_MODEL_MAXWELL_STEFAN, \(size_t\)N, \(size_t\)K, 3,\s*"
@@ -22,6 +28,19 @@ new = ("mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, (size_t)N, NULL, Dm, c,
        "&(mcd_cells){.n_cells = (size_t)K, .n_dim = 3, .comp_basis = MCD_BASIS_MOLE, "
        ".comp = xm, .grad = gm}, MCD_BASIS_MOLE, Jm)")
 s = s[:old.start()] + new + s[old.end():]
+if tiled:
+    # the library's tiled layout (MCD_LAYOUT_TILED8), which with 8 lanes is
+    # the reference kernel's own [block][row][lane]: filled and read back
+    # outside the timed loop, as the reference kernel's conversion is
+    reps = [("xm[i * K + k] = x[k * N + i]", "xm[k / 8 * 8 * N + 8 * i + k % 8] = x[k * N + i]"),
+            ("Dm[q * K + k] = D[k * N * N + q]", "Dm[k / 8 * 8 * N * N + 8 * q + k % 8] = D[k * N * N + q]"),
+            ("gm[q * K + k] = g[k * N * 3 + q]", "gm[k / 8 * 8 * N * 3 + 8 * q + k % 8] = g[k * N * 3 + q]"),
+            ("m = Jm[q * K + k]", "m = Jm[k / 8 * 8 * N * 3 + 8 * q + k % 8]"),
+            (".comp = xm, .grad = gm}", ".comp = xm, .grad = gm, .layout = MCD_LAYOUT_TILED8}")]
+    for a, b in reps:
+        if s.count(a) != 1:
+            sys.exit("anchor.sh: the shared driver changed; update tools/anchor.sh (tiled)")
+        s = s.replace(a, b)
 open(p, "w").write(s)
 PY
 cd "$(dirname "$0")/.." && bash "$tmp/run.sh" "$@"
