@@ -1595,6 +1595,36 @@ MCD_API mcd_status mcd_workspace_iterative_outcome(const mcd_workspace *ws,
 MCD_API mcd_status mcd_workspace_set_threads(mcd_workspace *ws,
                                              size_t n_threads);
 
+/** How mcd_flux_batch_dij reads each cell's Dij (mcd_workspace_set_dij_read).
+ *  Since 0.4. */
+typedef enum mcd_dij_read {
+    MCD_DIJ_READ_BOTH = 0, /**< default: both triangles read and checked */
+    MCD_DIJ_READ_UPPER = 1 /**< the upper triangle only, symmetry vouched */
+} mcd_dij_read;
+
+/** How later mcd_flux_batch_dij calls on this workspace read the cells'
+ *  binary diffusivities: an opt-in that skips one check, for callers whose
+ *  matrices are symmetric by construction. Since 0.4.
+ *  - MCD_DIJ_READ_BOTH (default): every off-diagonal entry is read and
+ *    checked (finite, >= DBL_MIN) and each cell's matrix must be symmetric
+ *    (relative difference <= 1e-12); the fluxes use the upper triangle.
+ *  - MCD_DIJ_READ_UPPER: only the upper triangle, Dij[(i*N + j)*K + k]
+ *    with j > i (SoA; the same entries in tiles), is read and checked
+ *    (finite, >= DBL_MIN, messages as above); the diagonal and the lower
+ *    triangle are never read and may hold anything. The symmetry check is
+ *    skipped: the caller vouches for it. The fluxes are bit for bit those
+ *    of MCD_DIJ_READ_BOTH on the symmetric matrix with this upper
+ *    triangle. What it saves is memory traffic: N (N + 1) / 2 of the
+ *    N^2 rows of Dij per cell are not loaded, which is what bounds the
+ *    call when the cells stream from memory at N >= 10 (measured with
+ *    tools/anchor.sh, MCD_ANCHOR_DIJ=upper; see README "Changes"); in
+ *    cache it saves little.
+ *  Other calls (mcd_flux_batch_aos, mcd_flux_batch_jacobian, the mixture
+ *  calls, the single-state calls) always read and check both triangles.
+ *  Fails: EINVAL (ws NULL, mode not one of these) | Allocates: no */
+MCD_API mcd_status mcd_workspace_set_dij_read(mcd_workspace *ws,
+                                              mcd_dij_read mode);
+
 /** Declare a temperature range [T_min, T_max] over which batched calls may
  *  evaluate the Chapman-Enskog, Wilke-Lee and Brokaw pairs of this
  *  mixture from a fit instead of exactly: for each such pair, Omega_D(T /

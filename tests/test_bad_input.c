@@ -135,7 +135,8 @@ typedef struct ctx {
     /* enums and ints */
     int model, basis, basis2, kind, method, param, n_rings, Z, film_method;
     int status, use_gamma, use_glnp, fail_alloc;
-    int use_kT; /* bit 0: kT, bit 1: grad_lnT */
+    int use_kT;   /* bit 0: kT, bit 1: grad_lnT */
+    int dij_mode; /* mcd_workspace_set_dij_read (0 in the baseline) */
     unsigned bit;
     unsigned long long nul; /* NB_* bits */
     /* arrays */
@@ -877,6 +878,10 @@ static int call_mcd_workspace_iterative_outcome(ctx *c)
 static int call_mcd_workspace_set_threads(ctx *c)
 {
     return mcd_workspace_set_threads(WS, c->nthreads);
+}
+static int call_mcd_workspace_set_dij_read(ctx *c)
+{
+    return mcd_workspace_set_dij_read(WS, (mcd_dij_read)c->dij_mode);
 }
 static int call_mcd_mixture_set_temperature_fit(ctx *c)
 {
@@ -1997,6 +2002,10 @@ static const bcase cases[] = {
     C(mcd_workspace_iterative_outcome, "ws NULL", EINVAL_, NULL, MN(NB_WS)),
     B(mcd_workspace_set_threads, MCD_OK),
     C(mcd_workspace_set_threads, "ws NULL", EINVAL_, NULL, MN(NB_WS)),
+    B(mcd_workspace_set_dij_read, MCD_OK),
+    C(mcd_workspace_set_dij_read, "ws NULL", EINVAL_, NULL, MN(NB_WS)),
+    C(mcd_workspace_set_dij_read, "mode 2", EINVAL_, "mode", MI(dij_mode, 2)),
+    C(mcd_workspace_set_dij_read, "mode -1", EINVAL_, "mode", MI(dij_mode, -1)),
     B(mcd_mixture_set_temperature_fit, MCD_OK),
     C(mcd_mixture_set_temperature_fit, "mix NULL", EINVAL_, NULL, MN(NB_MIX)),
     C(mcd_mixture_set_temperature_fit, "T_min NaN", EINVAL_, NULL,

@@ -6,19 +6,30 @@
 # calls to their 0.2+ forms (same cells, same work) and runs it.
 # With MCD_ANCHOR_LAYOUT=tiled the library reads and writes its tiled
 # layout (MCD_LAYOUT_TILED8), the reference kernel's own block layout,
-# converted outside the timed loop as the reference kernel's is.
+# converted outside the timed loop as the reference kernel's is. With
+# MCD_ANCHOR_DIJ=upper the library reads the upper triangle of Dij only
+# (mcd_workspace_set_dij_read, MCD_DIJ_READ_UPPER: no symmetry check), as
+# the reference kernel does.
 #   usage: tools/anchor.sh BUILD_DIR [N...]      (from the project root)
 set -eu
 src=${MCD_ANCHOR_DIR:-$(cd "$(dirname "$0")/../.." && pwd)/shared/perf-anchor}
 [ -f "$src/driver.c" ] || { echo "anchor.sh: no perf-anchor at $src (set MCD_ANCHOR_DIR)" >&2; exit 1; }
 tmp=$(mktemp -d); trap 'rm -rf "$tmp"' EXIT
 cp "$src"/* "$tmp/"
-python3 - "$tmp/driver.c" "${MCD_ANCHOR_LAYOUT:-soa}" <<'PY'
+python3 - "$tmp/driver.c" "${MCD_ANCHOR_LAYOUT:-soa}" "${MCD_ANCHOR_DIJ:-both}" <<'PY'
 import re, sys
 p = sys.argv[1]; s = open(p).read()
 if sys.argv[2] not in ("soa", "tiled"):
     sys.exit("anchor.sh: MCD_ANCHOR_LAYOUT must be soa or tiled")
+if sys.argv[3] not in ("both", "upper"):
+    sys.exit("anchor.sh: MCD_ANCHOR_DIJ must be both or upper")
 tiled = sys.argv[2] == "tiled"
+if sys.argv[3] == "upper":
+    # the opt-in upper-triangle read (mcd_workspace_set_dij_read)
+    a = 'if (mcd_workspace_alloc((size_t)N, &ws) != MCD_OK) { fprintf(stderr, "workspace\\n"); return 1; }'
+    if s.count(a) != 1:
+        sys.exit("anchor.sh: the shared driver changed; update tools/anchor.sh (upper)")
+    s = s.replace(a, a + " mcd_workspace_set_dij_read(ws, MCD_DIJ_READ_UPPER);")
 s = s.replace("mcd_workspace_alloc((size_t)N, &ws)", "mcd_workspace_new((size_t)N, &ws)")
 s = s.replace("mcd_workspace_last_error(ws)", "mcd_last_error()")
 old = re.search(r"mcd_flux_batch_dij\(ws, MCD_MODEL_MAXWELL_STEFAN, \(size_t\)N, \(size_t\)K, 3,\s*"

@@ -167,7 +167,8 @@ module mcdiff
        mcd_flux_project, mcd_flux_diagnose, mcd_film_solve, mcd_film_profile, &
        mcd_flux_batch, mcd_flux_batch_dij, mcd_flux_batch_aos, &
        mcd_workspace_set_iterative, mcd_workspace_iterative_outcome, &
-       mcd_workspace_set_threads, mcd_mixture_set_temperature_fit, &
+       mcd_workspace_set_threads, mcd_workspace_set_dij_read, &
+       mcd_mixture_set_temperature_fit, &
        mcd_formula_elements, mcd_formula_diffusion_volume, &
        mcd_formula_molecule_volume, mcd_element_symbol, mcd_element_weight, &
        mcd_binary_omega_d, mcd_workspace_new_with, &
@@ -2102,6 +2103,18 @@ contains
     character(len=*), intent(out), optional :: errmsg
     call finish(c_mcd_workspace_set_threads(ws%ptr, csz(n_threads)), stat, errmsg)
   end subroutine mcd_workspace_set_threads
+
+  !> How later mcd_flux_batch_dij calls on ws read Dij: MCD_DIJ_READ_BOTH
+  !> (default; both triangles checked) or MCD_DIJ_READ_UPPER (the upper
+  !> triangle only, i < j, symmetry vouched by the caller; see mcdiff.h).
+  subroutine mcd_workspace_set_dij_read(ws, mode, stat, errmsg)
+    type(mcd_workspace_t), intent(inout) :: ws
+    integer, intent(in) :: mode
+    integer, intent(out) :: stat
+    character(len=*), intent(out), optional :: errmsg
+    call finish(c_mcd_workspace_set_dij_read(ws%ptr, int(mode, c_int)), &
+         stat, errmsg)
+  end subroutine mcd_workspace_set_dij_read
 
   !> Declare a temperature range for fitted Chapman-Enskog / Wilke-Lee
   !> pairs in batched calls; max_rel_err (optional) returns the fit error.

@@ -3,6 +3,7 @@
 ! otherwise (meson test suite 'fortran').
 program test_mcdiff
   use, intrinsic :: iso_c_binding, only: c_double, c_int, c_long, c_size_t, c_null_ptr, c_loc
+  use, intrinsic :: ieee_arithmetic, only: ieee_value, ieee_quiet_nan
   use mcdiff
   implicit none
 
@@ -407,7 +408,7 @@ contains
     type(mcd_mixture_t) :: mix
     type(mcd_workspace_t) :: ws
     real(c_double) :: T(K), P(K), cc(K), comp(K, N), grad(K, ND, N), flux(K, ND, N)
-    real(c_double) :: Dk(K, N, N), fdij(K, ND, N)
+    real(c_double) :: Dk(K, N, N), fdij(K, ND, N), Dup(K, N, N), fup(K, ND, N)
     real(c_double) :: compa(N, K), grada(ND, N, K), fluxa(ND, N, K)
     real(c_double) :: D1(N, N), g1(ND, N), J1(ND, N), scale, worst, worst_a, worst_d
     ! the same cells in one tile of 8 (mcd_layout: cell k at (k, row, tile))
@@ -465,6 +466,27 @@ contains
        worst_d = max(worst_d, maxval(abs(fdij(kk, :, :) - flux(kk, :, :))) / &
             maxval(abs(flux(kk, :, :))))
     end do
+    ! the upper-triangle read (mcd_workspace_set_dij_read): C's entry
+    ! (i, j) of a cell is Dk(k, j+1, i+1) here, so C's lower triangle and
+    ! diagonal (j <= i) are Dk(k, a, b) with a <= b; NaN there, the same bits
+    call mcd_workspace_set_dij_read(ws, 7, stat, msg)
+    call check(stat == MCD_EINVAL, 'set_dij_read refuses mode 7')
+    call mcd_workspace_set_dij_read(ws, MCD_DIJ_READ_UPPER, stat, msg)
+    call check_stat(stat, msg, 'set_dij_read upper')
+    Dup = Dk
+    do i = 1, N
+       do kk = i, N
+          Dup(:, i, kk) = ieee_value(1.0_c_double, ieee_quiet_nan)
+       end do
+    end do
+    fup = GUARD
+    call mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, N, K, ND, Dup, cc, &
+         MCD_BASIS_MOLE, comp, grad, MCD_BASIS_MOLE, fup, stat, msg)
+    call check_stat(stat, msg, 'batched fluxes, upper triangle of Dij only')
+    call check(maxval(abs(fup - fdij)) <= 0.0_c_double, &
+         'upper-triangle read gives the same values')
+    call mcd_workspace_set_dij_read(ws, MCD_DIJ_READ_BOTH, stat, msg)
+    call check_stat(stat, msg, 'set_dij_read both')
     ! the raw interface in tiles of 8: the same values as the SoA call
     ! (bit-for-bit in C, test_tiled.c); padding cell 8 is not written
     ct = 0

@@ -89,6 +89,7 @@
     X(workspace_set_iterative, (mcd_workspace *ws, size_t max_iter, double tol), (ws, max_iter, tol)) \
     X(workspace_iterative_outcome, (const mcd_workspace *ws, double *out_max_error, size_t *out_max_iter), (ws, out_max_error, out_max_iter)) \
     X(workspace_set_threads, (mcd_workspace *ws, size_t n_threads), (ws, n_threads)) \
+    X(workspace_set_dij_read, (mcd_workspace *ws, mcd_dij_read mode), (ws, mode)) \
     X(mixture_set_temperature_fit, (mcd_mixture *mix, double T_min, double T_max, double *out_max_rel_err), (mix, T_min, T_max, out_max_rel_err)) \
     X(mixture_temperature_fit, (const mcd_mixture *mix, double *out_T_min, double *out_T_max, double *out_max_rel_err), (mix, out_T_min, out_T_max, out_max_rel_err)) \
     X(film_solve, (mcd_workspace *ws, const mcd_film *film, mcd_film_bootstrap kind, size_t species, const double *values, mcd_film_method method, double *out_N, size_t *out_iterations, double *out_residual), (ws, film, kind, species, values, method, out_N, out_iterations, out_residual)) \

@@ -204,19 +204,21 @@ static int dij_all_good(size_t n, const double *Dij)
 /* The first broken rule of an n x n Dij whose entry (i,j) is at
  * Dij[(i n + j) s], with its message (MCD_OK if none). */
 static mcd_status dij_locate(mcd_workspace *ws, size_t n, const double *Dij,
-                             size_t s)
+                             size_t s, int upper)
 {
     size_t i, j;
 #define DIJ(i, j) Dij[((i)*n + (j)) * s]
+/* the entries read: off the diagonal, or above it only (upper) */
+#define READ(i, j) ((i) != (j) && (!upper || (j) > (i)))
     for (i = 0; i < n; i++)
         for (j = 0; j < n; j++)
-            if (i != j && !mcdi_finite(DIJ(i, j)))
+            if (READ(i, j) && !mcdi_finite(DIJ(i, j)))
                 return mcdi_fail(MCD_EINVAL,
                                  "argument Dij: entry (%zu,%zu) is not finite",
                                  i, j);
     for (i = 0; i < n; i++)
         for (j = 0; j < n; j++)
-            if (i != j && !(DIJ(i, j) > 0.0))
+            if (READ(i, j) && !(DIJ(i, j) > 0.0))
                 return mcdi_fail(
                     MCD_EDOM, "argument Dij: entry (%zu,%zu) = %g is not > 0",
                     i, j, DIJ(i, j));
@@ -225,12 +227,12 @@ static mcd_status dij_locate(mcd_workspace *ws, size_t n, const double *Dij,
      * ESING); both reject it here */
     for (i = 0; i < n; i++)
         for (j = 0; j < n; j++)
-            if (i != j && !(DIJ(i, j) >= DBL_MIN))
+            if (READ(i, j) && !(DIJ(i, j) >= DBL_MIN))
                 return mcdi_fail(MCD_EDOM,
                                  "argument Dij: entry (%zu,%zu) = %g is "
                                  "subnormal (< DBL_MIN; 1/Dij overflows)",
                                  i, j, DIJ(i, j));
-    for (i = 0; i < n; i++)
+    for (i = 0; i < n && !upper; i++)
         for (j = i + 1; j < n; j++) {
             double a = DIJ(i, j), b = DIJ(j, i);
             double big = a > b ? a : b;
@@ -241,6 +243,7 @@ static mcd_status dij_locate(mcd_workspace *ws, size_t n, const double *Dij,
                                  "relative (not symmetric)",
                                  i, j, a, j, i, b);
         }
+#undef READ
 #undef DIJ
     return MCD_OK;
 }
@@ -251,13 +254,19 @@ mcd_status mcdi_check_dij(mcd_workspace *ws, size_t n, const double *Dij)
         return mcdi_fail(MCD_EINVAL, "argument Dij: NULL");
     if (dij_all_good(n, Dij))
         return MCD_OK;
-    return dij_locate(ws, n, Dij, 1);
+    return dij_locate(ws, n, Dij, 1, 0);
 }
 
 mcd_status mcdi_check_dij_strided(mcd_workspace *ws, size_t n,
                                   const double *Dij, size_t stride)
 {
-    return dij_locate(ws, n, Dij, stride);
+    return dij_locate(ws, n, Dij, stride, 0);
+}
+
+mcd_status mcdi_check_dij_upper_strided(mcd_workspace *ws, size_t n,
+                                        const double *Dij, size_t stride)
+{
+    return dij_locate(ws, n, Dij, stride, 1);
 }
 
 /* The first broken rule of fractions y[i s] (the order of

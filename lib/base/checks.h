@@ -120,6 +120,10 @@ mcd_status mcdi_check_conc(mcd_workspace *ws, double c, const char *name);
  * after the kernel flagged its block. */
 mcd_status mcdi_check_dij_strided(mcd_workspace *ws, size_t n,
                                   const double *Dij, size_t stride);
+/* As mcdi_check_dij_strided for the entries above the diagonal only, no
+ * symmetry (MCD_DIJ_READ_UPPER). */
+mcd_status mcdi_check_dij_upper_strided(mcd_workspace *ws, size_t n,
+                                        const double *Dij, size_t stride);
 mcd_status mcdi_check_comp_strided(mcd_workspace *ws, size_t n, const double *y,
                                    size_t stride, const char *name);
 mcd_status mcdi_check_finite_strided(mcd_workspace *ws, size_t rows,

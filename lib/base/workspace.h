@@ -79,6 +79,7 @@ struct mcd_workspace {
     size_t iter_used;
     int stage_cut;   /* batched blocks stop after this stage (bench_stages
                       * only; 0 = run all; see mcdi_bjob.cut) */
+    int dij_read;    /* mcd_workspace_set_dij_read (mcd_dij_read) */
     int stagger_off; /* no staggered prefetch (mcdi_bjob.stagger; the A/B
                       * of bench_stride only; 0 = by the rule) */
 };

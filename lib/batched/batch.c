@@ -76,7 +76,8 @@ static mcd_status check_cell(mcd_workspace *ws, const mcdi_bjob *jb, size_t k)
                              "is not a normal positive number",
                              jb->P[k] / (MCD_GAS_CONSTANT * jb->T[k]));
     } else if ((st = mcdi_check_conc(ws, jb->c[k], "c")) != MCD_OK ||
-               (st = mcdi_check_dij_strided(
+               (st = (jb->dij_upper ? mcdi_check_dij_upper_strided
+                                    : mcdi_check_dij_strided)(
                     ws, n, jb->Dij + mcdi_cell_at(jb, k, n * n), K)) !=
                    MCD_OK) {
         return st;
@@ -393,6 +394,7 @@ mcd_status mcdi_api_flux_batch_dij(mcd_workspace *ws, mcd_model model,
     if (need_M && (st = mcdi_check_M(ws, n_species, M)) != MCD_OK)
         return st;
     jb.Dij = Dij;
+    jb.dij_upper = ws->dij_read == MCD_DIJ_READ_UPPER;
     jb.c = c;
     jb.M = need_M ? M : NULL;
     return run_soa(ws, &jb);
@@ -525,6 +527,19 @@ mcd_status mcdi_api_workspace_set_threads(mcd_workspace *ws, size_t n_threads)
     if (ws == NULL)
         return MCD_EINVAL;
     ws->threads_req = n_threads;
+    return MCD_OK;
+}
+
+mcd_status mcdi_api_workspace_set_dij_read(mcd_workspace *ws, mcd_dij_read mode)
+{
+    if (ws == NULL)
+        return MCD_EINVAL;
+    if (mode != MCD_DIJ_READ_BOTH && mode != MCD_DIJ_READ_UPPER)
+        return mcdi_fail(MCD_EINVAL,
+                         "argument mode: %d is not an mcd_dij_read "
+                         "(0 both triangles, 1 upper triangle only)",
+                         (int)mode);
+    ws->dij_read = (int)mode;
     return MCD_OK;
 }
 

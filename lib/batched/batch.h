@@ -39,6 +39,8 @@ typedef struct mcdi_bjob {
     int mix_has_omega; /* some pair of mix needs Omega_D(T) (CE/WL/Brokaw) */
     const double *T, *P;
     const double *Dij, *c; /* per-cell mode */
+    int dij_upper;         /* read the upper triangle of Dij only
+                            * (MCD_DIJ_READ_UPPER) */
     const double *M;       /* molar masses or NULL when not needed */
     const double *comp, *grad, *glnP;
     const double *kT, *glnT; /* thermal diffusion: both or neither */

@@ -189,7 +189,9 @@ KINLINE void stage_forces(const mcdi_bjob *jb, const mcdi_kblock *b,
 }
 
 /* Inverse binary diffusivities (packed lower, i > j) from the caller's
- * per-cell Dij: both triangles checked (normal, finite, symmetric). */
+ * per-cell Dij: both triangles checked (normal, finite, symmetric), or
+ * with jb->dij_upper the upper one only (normal, finite; the lower one
+ * is not loaded: MCD_DIJ_READ_UPPER). */
 KINLINE void stage_invdiff_dij(const mcdi_bjob *jb, const mcdi_kblock *b,
                                long long *restrict bl, size_t k0, size_t nv,
                                const size_t n, const size_t L)
@@ -202,6 +204,17 @@ KINLINE void stage_invdiff_dij(const mcdi_bjob *jb, const mcdi_kblock *b,
         /* the same rules on registers (kernel_lanes.h) */
         mcdi_vd *tri = (mcdi_vd *)(void *)b->tri;
         mcdi_vl bad = {0};
+        if (jb->dij_upper) {
+            for (i = 1; i < n; i++)
+                for (j = 0; j < i; j++) {
+                    const mcdi_vd a =
+                        load_v(Dij + (j * n + i) * K, jb, n * n, n);
+                    bad |= ~((a >= DBL_MIN) & (a <= DBL_MAX));
+                    tri[i * (i + 1) / 2 + j] = 1.0 / a;
+                }
+            flag_lanes(bl, bad);
+            return;
+        }
         for (i = 1; i < n; i++)
             for (j = 0; j < i; j++) {
                 const mcdi_vd a = load_v(Dij + (j * n + i) * K, jb, n * n, n);
@@ -225,6 +238,14 @@ KINLINE void stage_invdiff_dij(const mcdi_bjob *jb, const mcdi_kblock *b,
             const double *up = Dij + (j * n + i) * K;
             const double *lo = Dij + (i * n + j) * K;
             load_row(q, up, nv, L, jb, n * n, n);
+            if (jb->dij_upper) {
+                for_lanes (l) {
+                    const double a = q[l];
+                    bl[l] |= !((a >= DBL_MIN) & (a <= DBL_MAX));
+                    q[l] = 1.0 / a;
+                }
+                continue;
+            }
             load_row(wk, lo, nv, L, jb, n * n, n);
             for_lanes (l) {
                 double a = q[l], bb = wk[l], m = a > bb ? a : bb;

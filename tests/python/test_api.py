@@ -844,6 +844,37 @@ class Batched(unittest.TestCase):
             mcdiff.flux_batch_dij_tiled(mcdiff.to_tiles(D), c,
                                         mcdiff.to_tiles(x), g)
 
+    def test_upper_triangle_read_gives_the_bits_of_both(self):
+        # identity: with set_dij_read(True) the lower triangle and the
+        # diagonal are never read (NaN there), the results are the bits of
+        # the default read of the symmetric matrix, which refuses the NaN
+        if np is None:
+            return
+        rng = Rng(93)
+        N, K = 6, 13
+        x = np.array([rng.composition(N) for _ in range(K)]).T.copy()
+        g = np.array([[[rng.uniform() - 0.5 for _ in range(K)]
+                       for _ in range(3)] for _ in range(N)])
+        D = np.zeros((N, N, K))
+        for i in range(N):
+            for j in range(i + 1, N):
+                for k in range(K):
+                    D[i, j, k] = D[j, i, k] = 1e-5 * (0.2 + rng.uniform())
+        up = np.triu(np.transpose(D, (2, 0, 1)), 1)
+        up[np.tril(np.ones((K, N, N), dtype=bool))] = np.nan
+        up = np.ascontiguousarray(np.transpose(up, (1, 2, 0)))
+        c = np.array([30.0 + 20.0 * rng.uniform() for _ in range(K)])
+        ws = mcdiff.Workspace(N)
+        J = mcdiff.flux_batch_dij(D, c, x, g, workspace=ws)
+        with self.assertRaises(mcdiff.McdError):
+            mcdiff.flux_batch_dij(up, c, x, g, workspace=ws)
+        ws.set_dij_read(True)
+        Ju = mcdiff.flux_batch_dij(up, c, x, g, workspace=ws)
+        self.assertEqual(np.asarray(Ju).tobytes(), np.asarray(J).tobytes())
+        ws.set_dij_read(False)
+        with self.assertRaises(mcdiff.McdError):
+            mcdiff.flux_batch_dij(up, c, x, g, workspace=ws)
+
     def test_batched_equal_single_state_calls(self):
         K, nd = 37, 2
         T, P, x, g = self.cells(K, nd)

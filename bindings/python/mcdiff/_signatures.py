@@ -260,6 +260,8 @@ SIGNATURES = {
     "mcd_workspace_iterative_outcome": (_ST, [_H, _PD, _PSZ]),
     # (ws, n_threads)
     "mcd_workspace_set_threads": (_ST, [_H, _SZ]),
+    # (ws, mode)
+    "mcd_workspace_set_dij_read": (_ST, [_H, _E]),
     # (mix, T_min, T_max, out_max_rel_err)
     "mcd_mixture_set_temperature_fit": (_ST, [_H, _D, _D, _PD]),
     # (mix, out_T_min, out_T_max, out_max_rel_err)

@@ -154,6 +154,15 @@ class Workspace(_Handle):
         st = lib.mcd_workspace_set_threads(self._p(), int(n_threads))
         self.check(st, "mcd_workspace_set_threads")
 
+    def set_dij_read(self, upper_only):
+        """How later flux_batch_dij calls read Dij: upper_only=False (the
+        default) reads and checks both triangles (symmetry included);
+        True reads the upper triangle (j > i) only and skips the symmetry
+        check: the caller vouches that every cell's matrix is symmetric
+        (C: mcd_workspace_set_dij_read, MCD_DIJ_READ_UPPER)."""
+        st = lib.mcd_workspace_set_dij_read(self._p(), 1 if upper_only else 0)
+        self.check(st, "mcd_workspace_set_dij_read")
+
     def check(self, st, function):
         """Raise the McdError for status st with this workspace's detail."""
         if st:
