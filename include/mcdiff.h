@@ -819,7 +819,9 @@ MCD_API mcd_status mcd_thermal_factor_ce(double T, double M1, double M2,
 /** Binary thermal diffusion factor alpha_T [-] of species a and b of a
  *  database at x_a (as mcd_thermal_factor_ce; Lennard-Jones parameters
  *  estimated as for mcd_db_binary_gas when missing). Since 0.4.
- *  @param out_rel_err  MCD_THERMAL_CE_TYPICAL_ERROR (may be NULL).
+ *  @param out_rel_err  MCD_THERMAL_CE_TYPICAL_ERROR widened by the
+ *                      warnings below by the rule of
+ *                      mcd_typical_error_widened (may be NULL).
  *  @param out_warn     MCD_WARN_* bits: TEMPERATURE (a T* outside
  *                      0.3..100), POLAR, QUANTUM, ASSOCIATING,
  *                      ESTIMATED_PARAM (may be NULL).
@@ -846,7 +848,8 @@ MCD_API mcd_status mcd_db_thermal_factor(const mcd_db *db, size_t a, size_t b,
  *  @param out_theta  length N, theta_i = k_T,i / x_i = sum_j x_j
  *                 alpha_T,ij, finite also for a species with x_i = 0 (the
  *                 input of mcd_dufour_heat_flux); may be NULL.
- *  @param out_rel_err  typical relative error (may be NULL).
+ *  @param out_rel_err  typical relative error (may be NULL), widened by
+ *                      out_warn by the rule of mcd_typical_error_widened.
  *  @param out_warn     OR of the pairs' warning bits (may be NULL).
  *  Fails: EINVAL, EDOM, ENODATA | Allocates: no */
 MCD_API mcd_status mcd_mixture_thermal_ratios(const mcd_mixture *mix, double T,

@@ -74,6 +74,12 @@ mcd_status mcdi_lj_params(const mcdi_spec *s, mcd_method m, double *sig,
 /* Warning bits that depend only on the pair and the state (not on a
  * method's own range): HIGH_PRESSURE (P = 0: none), POLAR, QUANTUM,
  * ASSOCIATING. */
+/* A typical relative error e widened by the MCD_WARN_* bits in warn, the
+ * rule of mcd_typical_error_widened (explain.c): MCD_WIDEN_MAJOR for each
+ * major bit, MCD_WIDEN_MINOR for each minor one, at most MCD_WIDEN_CAP;
+ * other bits are ignored. */
+double mcdi_widen_error(double e, unsigned warn);
+
 unsigned mcdi_pair_state_warnings(const mcdi_spec *a, const mcdi_spec *b,
                                   double T, double P);
 

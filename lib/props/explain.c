@@ -30,11 +30,21 @@
 #define WARN_MINOR                                                             \
     (MCD_WARN_TEMPERATURE | MCD_WARN_ESTIMATED_PARAM | MCD_WARN_SCALED)
 
+double mcdi_widen_error(double e, unsigned warn)
+{
+    unsigned b;
+    for (b = 1; b <= (WARN_MAJOR | WARN_MINOR); b <<= 1) {
+        if (warn & b & WARN_MAJOR)
+            e *= MCD_WIDEN_MAJOR;
+        else if (warn & b & WARN_MINOR)
+            e *= MCD_WIDEN_MINOR;
+    }
+    return e > MCD_WIDEN_CAP ? MCD_WIDEN_CAP : e;
+}
+
 mcd_status mcdi_api_typical_error_widened(mcd_method m, unsigned warn,
                                           double *out_rel_err)
 {
-    double e;
-    unsigned b;
     if (out_rel_err == NULL)
         return mcdi_fail(MCD_EINVAL, "argument out_rel_err: is NULL");
     if (mcd_method_name(m) == NULL)
@@ -44,14 +54,7 @@ mcd_status mcdi_api_typical_error_widened(mcd_method m, unsigned warn,
                          "argument warn: 0x%x holds bits that are no "
                          "MCD_WARN_* bit",
                          warn & ~(unsigned)(WARN_MAJOR | WARN_MINOR));
-    e = mcd_method_typical_error(m);
-    for (b = 1; b <= (WARN_MAJOR | WARN_MINOR); b <<= 1) {
-        if (warn & b & WARN_MAJOR)
-            e *= MCD_WIDEN_MAJOR;
-        else if (warn & b & WARN_MINOR)
-            e *= MCD_WIDEN_MINOR;
-    }
-    *out_rel_err = e > MCD_WIDEN_CAP ? MCD_WIDEN_CAP : e;
+    *out_rel_err = mcdi_widen_error(mcd_method_typical_error(m), warn);
     return MCD_OK;
 }
 

@@ -297,8 +297,8 @@ mcd_status mcdi_api_db_thermal_factor(const mcd_db *db, size_t a, size_t b,
     if ((st = spec_alpha(&sa, &sb, T, x_a, &alpha, &w)) != MCD_OK)
         return st;
     *out_alpha = alpha;
-    if (out_rel_err != NULL)
-        *out_rel_err = MCD_THERMAL_CE_TYPICAL_ERROR;
+    if (out_rel_err != NULL) /* widened by the pair's warnings */
+        *out_rel_err = mcdi_widen_error(MCD_THERMAL_CE_TYPICAL_ERROR, w);
     if (out_warn != NULL)
         *out_warn = w;
     return MCD_OK;
@@ -362,9 +362,11 @@ mcd_status mcdi_api_mixture_thermal_ratios(const mcd_mixture *mix, double T,
     if ((st = mixture_pass(mix, T, x, sum, NULL, NULL, &w)) != MCD_OK)
         return st;
     mixture_pass(mix, T, x, sum, out_kT, out_theta, &w);
-    if (out_rel_err != NULL)
-        *out_rel_err = mix->n == 2 ? MCD_THERMAL_CE_TYPICAL_ERROR
-                                   : MCD_THERMAL_MIX_TYPICAL_ERROR;
+    if (out_rel_err != NULL) /* widened by the pairs' warnings */
+        *out_rel_err =
+            mcdi_widen_error(mix->n == 2 ? MCD_THERMAL_CE_TYPICAL_ERROR
+                                         : MCD_THERMAL_MIX_TYPICAL_ERROR,
+                             w);
     if (out_warn != NULL)
         *out_warn = w;
     return MCD_OK;
