@@ -1355,12 +1355,14 @@ ThermalEstimate = collections.namedtuple("ThermalEstimate",
                                          "alpha rel_err warnings")
 ThermalEstimate.__doc__ = """A binary thermal diffusion factor alpha_T [-]
 (> 0 when the first species goes to the cold side), the method's typical
-relative error [-] and its Warning flags."""
+relative error [-] (widened by the warnings as diffusivity errors are, for
+thermal_factor) and its Warning flags."""
 ThermalRatios = collections.namedtuple("ThermalRatios",
                                        "kT theta rel_err warnings")
 ThermalRatios.__doc__ = """Thermal diffusion ratios k_T,i [-] of a mixture
 (for flux_compute's kT), theta_i = k_T,i / x_i (for dufour_heat_flux), the
-typical relative error and the OR of the pairs' Warning flags."""
+typical relative error (widened by the warnings) and the OR of the pairs'
+Warning flags."""
 
 
 def lj_collision_integrals(T_star):
@@ -1381,8 +1383,9 @@ def thermal_factor_kinetic(M1, M2, x1, A, B, C, R1, R2):
 
 def thermal_factor_ce(T, M1, M2, sig1, sig2, eps1, eps2, x1):
     """Binary thermal diffusion factor alpha_T [-] of two Lennard-Jones
-    gases (mcd_thermal_factor_ce): ThermalEstimate (rel_err is
-    MCD_THERMAL_CE_TYPICAL_ERROR)."""
+    gases (mcd_thermal_factor_ce): ThermalEstimate (rel_err is the stated
+    MCD_THERMAL_CE_TYPICAL_ERROR, not widened by the warnings: the raw
+    call has no species to judge; thermal_factor widens it)."""
     out, warn = ctypes.c_double(), ctypes.c_uint()
     vals = [_sc(v, "argument %d" % k)
             for k, v in enumerate((T, M1, M2, sig1, sig2, eps1, eps2, x1))]
