@@ -217,11 +217,14 @@ static int rec_species(file_ctx *c, char **tok, int nt)
         return ferr(c, "species are already numbered");
     if (d->n >= LIQ_MAX)
         return ferr(c, "more than %d species", LIQ_MAX);
-    if (strlen(tok[1]) >= LIQ_NAME || cli_is_plain_number(tok[1]))
+    /* an empty name ("" in quotes) could never be named again (found by
+     * fuzz_liq_file) */
+    if (tok[1][0] == '\0' || strlen(tok[1]) >= LIQ_NAME ||
+        cli_is_plain_number(tok[1]))
         return ferr(c,
                     "'%s' is not a usable species name (a word, not a "
-                    "number, under %d characters)",
-                    tok[1], LIQ_NAME);
+                    "number, 1 to %d characters)",
+                    tok[1], LIQ_NAME - 1);
     if (liq_def_species(d, tok[1]) >= 0)
         return ferr(c, "species '%s' is declared twice", tok[1]);
     strcpy(d->names[i], tok[1]);

@@ -2190,6 +2190,9 @@ class LiquidParamFile(unittest.TestCase):
              "field D21 is required"),
             (self.GOOD + ['species c source="unclosed'], "FILE:5:",
              "unclosed quote"),
+            # an empty name in quotes (found by fuzz_liq_file)
+            (self.GOOD[:2] + ['species "" V=18cm3/mol'], "FILE:3:",
+             "'' is not a usable species name"),
         ]
         for lines, where, what in cases:
             with self.subTest(what=what):
