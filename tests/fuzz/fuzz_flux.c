@@ -18,7 +18,8 @@
  *                     (|sum| <= 1e-9 sum |F|, round-off with a wide margin);
  *   status != OK   => every output untouched (guard bytes), a workspace
  *                     message exists for workspace calls.
- * Batched call: MCD_OK => finite and zero-sum per cell.
+ * Batched call (both Dij reads, mcd_workspace_set_dij_read): MCD_OK =>
+ * finite and zero-sum per cell.
  */
 #include "fuzz_common.h"
 #include "mcdiff.h"
@@ -318,6 +319,11 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
             gk[q * K + k] = grad[q];
     }
     memset(outk, FUZZ_GUARD_BYTE, sizeof outk);
+    /* bit 7 of the extra byte: the upper-triangle read (the lower triangle
+     * of the fuzzed Dij is then ignored, asymmetric or not) */
+    if (mcd_workspace_set_dij_read(
+            ws, (ex & 0x80) ? MCD_DIJ_READ_UPPER : MCD_DIJ_READ_BOTH) != MCD_OK)
+        abort();
     st = mcd_flux_batch_dij(ws, model, n, (fl & 0x40) ? NULL : M, Dk, cvec,
                             &(mcd_cells){.n_cells = K,
                                          .n_dim = nd,
