@@ -300,10 +300,6 @@ static void job_init(mcdi_bjob *jb, const mcd_workspace *ws, mcd_model model,
     jb->K = K;
     jb->tiled = cl->layout == MCD_LAYOUT_TILED8;
     jb->rs = jb->tiled ? 8 : K;
-    /* SoA rows a multiple of 128 bytes apart: the kernels stagger their
-     * prefetches across rows at N >= MCDI_STAG_NMIN (kernel_lanes.h,
-     * pf_stagger) */
-    jb->stagger = !jb->tiled && K % 16 == 0 && !ws->stagger_off;
     jb->model = (int)model;
     jb->comp_basis = (int)cl->comp_basis;
     jb->flux_basis = (int)fb;
@@ -320,12 +316,37 @@ static void job_init(mcdi_bjob *jb, const mcd_workspace *ws, mcd_model model,
               cl->grad_lnP != NULL;
 }
 
+/* Whether the kernels stagger the prefetches of the SoA rows
+ * (kernel_lanes.h, pf_stagger): rows a multiple of 128 bytes apart (K a
+ * multiple of 16) and many of them read per cell (MCDI_STAG_ROWS, at
+ * least MCDI_STAG_NMIN species). Measured (benchmark `stride` and A/B
+ * builds, streamed, K a multiple of 32): the Dij call 1.17-1.56x faster
+ * at N = 7..50 (78 to 2651 rows), 1.4x slower at N = 6 (61 rows); the
+ * mixture call 1.15x faster at N = 20 (82 rows), level at 10 (42),
+ * 1.12x slower at 8 (34). */
+static int stagger_choice(const mcd_workspace *ws, const mcdi_bjob *jb)
+{
+    const size_t n = jb->n, nd = jb->nd;
+    size_t rows = n + n * nd; /* comp, grad */
+    if (jb->Dij != NULL)
+        rows += 1 + (jb->dij_upper ? n * (n - 1) / 2 : n * n);
+    else
+        rows += 2; /* T, P */
+    if (jb->glnP != NULL)
+        rows += nd;
+    if (jb->kT != NULL)
+        rows += n + nd;
+    return !jb->tiled && jb->K % 16 == 0 && n >= MCDI_STAG_NMIN &&
+           rows >= MCDI_STAG_ROWS && !ws->stagger_off;
+}
+
 /* Run a job on the caller's (SoA) arrays. */
 static mcd_status run_soa(mcd_workspace *ws, mcdi_bjob *jb)
 {
     if (jb->K == 0)
         return MCD_OK;
     jb->stream = stream_choice(jb);
+    jb->stagger = stagger_choice(ws, jb);
     return run_job(ws, jb);
 }
 

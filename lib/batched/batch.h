@@ -22,6 +22,12 @@
  * one cell at a time (lanes = 1), through the same stages. */
 #define MCDI_LANES_NMAX 128
 
+/* The staggered prefetch of SoA rows (batch.c, stagger_choice): at least
+ * this many species (a compile-time constant of the kernels, so that the
+ * small-n instances fold it away) and input rows per cell. */
+#define MCDI_STAG_NMIN 7
+#define MCDI_STAG_ROWS 72
+
 /* One batched call, as the kernel sees it. Every per-cell array (inputs
  * and out) is in the call's layout: SoA (row q of cell k at q K + k) or
  * tiled (MCD_LAYOUT_TILED8: at (k - k%8) Q + 8 q + k%8 for an array of Q
@@ -32,7 +38,7 @@ typedef struct mcdi_bjob {
     size_t rs;   /* row stride: K (SoA) or 8 (tiled) */
     int tiled;   /* MCD_LAYOUT_TILED8 */
     int stagger; /* stagger the prefetches of the SoA rows (kernel_lanes.h,
-                  * pf_stagger; set by job_init) */
+                  * pf_stagger; batch.c, stagger_choice) */
     int model;   /* mcd_model */
     int comp_basis, flux_basis;
     const mcd_mixture *mix; /* mixture mode (T, P used) or NULL */

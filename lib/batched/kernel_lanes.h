@@ -62,11 +62,12 @@
  * memory-side conflict, mechanism not identified: the VM has no
  * performance counters). Spreading the rows' prefetch targets over four
  * blocks removes most of it (issue 15; tests/bench_stride.c, the
- * benchmark `stride`). jb->stagger (batch.c) and MCDI_STAG_NMIN turn it
- * on where it was measured to pay: N >= 7 and such a stride; at N = 6 it
- * made the call 1.4x slower and at N <= 5 it gained nothing (A/B
- * builds). The address fold, not the row index, so that every stride
- * gets spread (a row index times an odd stride can cancel). */
+ * benchmark `stride`). jb->stagger (batch.c, stagger_choice: such a
+ * stride, N >= MCDI_STAG_NMIN and MCDI_STAG_ROWS input rows a cell) turns
+ * it on where it was measured to pay; with fewer rows it made calls
+ * slower (the Dij call at N = 6 1.4x, the mixture call at N = 8 1.12x).
+ * The address fold, not the row index, so that every stride gets spread
+ * (a row index times an odd stride can cancel). */
 KINLINE size_t pf_stagger(const double *p)
 {
     uintptr_t a = (uintptr_t)p >> 12;
@@ -79,9 +80,6 @@ KINLINE size_t pf_stagger(const double *p)
 /* Prefetch distance for row src of an array of Q rows of a job of n
  * species (n = 0 for the per-cell scalars; constant n < MCDI_STAG_NMIN
  * folds the stagger away in the small-n instances). */
-#ifndef MCDI_STAG_NMIN
-#define MCDI_STAG_NMIN 7
-#endif
 KINLINE size_t pf_dist(const mcdi_bjob *jb, size_t Q, size_t n,
                        const double *src)
 {
