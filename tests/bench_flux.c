@@ -57,6 +57,7 @@
 #endif
 
 #include "mcdiff.h"
+#include "bench_util.h"
 #define SUP_NO_CHECK /* no Check here */
 #include "support.h"
 
@@ -64,13 +65,6 @@
 #define ND 3
 
 static sup_rng rng = SUP_RNG(SUP_SPLITMIX64, 0x5EEDull);
-
-static double now_s(void)
-{
-    struct timespec ts;
-    clock_gettime(CLOCK_MONOTONIC, &ts);
-    return (double)ts.tv_sec + 1e-9 * (double)ts.tv_nsec;
-}
 
 /* The caller's side of (b) and (b0) for cell k: Đ = coef T^1.75 / P and
  * the cell's fractions and gradients gathered from the SoA arrays. */
@@ -96,12 +90,6 @@ static void empty_call(const double *a, const double *b, const double *c)
 }
 static void (*volatile empty_fn)(const double *, const double *,
                                  const double *) = empty_call;
-
-static int cmp_double(const void *a, const void *b)
-{
-    double x = *(const double *)a, y = *(const double *)b;
-    return (x > y) - (x < y);
-}
 
 /* rates from times: med, min, max cells/s */
 typedef struct rate {

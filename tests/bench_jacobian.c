@@ -29,6 +29,7 @@
 #include <time.h>
 
 #include "mcdiff.h"
+#include "bench_util.h"
 #define SUP_NO_CHECK /* no Check here */
 #include "support.h"
 
@@ -36,19 +37,6 @@
 #define ND 3
 
 static sup_rng rng = SUP_RNG(SUP_SPLITMIX64, 0x1AC0B5ull);
-
-static double now_s(void)
-{
-    struct timespec ts;
-    clock_gettime(CLOCK_MONOTONIC, &ts);
-    return (double)ts.tv_sec + 1e-9 * (double)ts.tv_nsec;
-}
-
-static int cmp_double(const void *a, const void *b)
-{
-    double x = *(const double *)a, y = *(const double *)b;
-    return (x > y) - (x < y);
-}
 
 /* median, min, max cells/s of REPS times */
 static void rates(double *t, size_t K, double *r)

@@ -17,33 +17,11 @@
 #include <time.h>
 
 #include "mcdiff.h"
+#include "bench_util.h"
 
 #define SAMPLES 9
 
 static size_t nlay = 2; /* layouts timed: SoA, tiled (1 with --soa) */
-
-static double now_s(void)
-{
-    struct timespec t;
-    clock_gettime(CLOCK_MONOTONIC, &t);
-    return (double)t.tv_sec + 1e-9 * (double)t.tv_nsec;
-}
-
-static int cmp_double(const void *a, const void *b)
-{
-    double x = *(const double *)a, y = *(const double *)b;
-    return (x > y) - (x < y);
-}
-
-static double *dalloc(size_t n)
-{
-    void *p = aligned_alloc(64, (n * sizeof(double) + 63) / 64 * 64);
-    if (p == NULL) {
-        fprintf(stderr, "bench_layout: out of memory\n");
-        exit(1);
-    }
-    return p;
-}
 
 /* SoA s (Q x K) into tiles t (mcd_layout). */
 static void tile(const double *s, size_t Q, size_t K, double *t)

@@ -29,6 +29,7 @@
 #include <time.h>
 
 #include "mcdiff.h"
+#include "bench_util.h"
 #include "base/workspace.h"
 #include "base/isa.h"
 
@@ -40,13 +41,6 @@ static const char *stage_name[NSTAGE] = {
     "driving forces",      "load Dij, 1/Dij", "Blanc sums",
     "trace species",       "right-hand side", "factor and solve",
     "compose, store"};
-
-static double now_s(void)
-{
-    struct timespec t;
-    clock_gettime(CLOCK_MONOTONIC, &t);
-    return (double)t.tv_sec + 1e-9 * (double)t.tv_nsec;
-}
 
 static unsigned long long rng = 0x9e3779b97f4a7c15ULL;
 static double urand(void)

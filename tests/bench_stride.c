@@ -25,38 +25,16 @@
 #include <time.h>
 
 #include "mcdiff.h"
+#include "bench_util.h"
 #include "base/workspace.h"
 
 #define SAMPLES 7
-
-static double now_s(void)
-{
-    struct timespec t;
-    clock_gettime(CLOCK_MONOTONIC, &t);
-    return (double)t.tv_sec + 1e-9 * (double)t.tv_nsec;
-}
-
-static int cmp_double(const void *a, const void *b)
-{
-    double x = *(const double *)a, y = *(const double *)b;
-    return (x > y) - (x < y);
-}
 
 static uint64_t rs = 0x57A6u;
 static double u01(void)
 {
     rs = rs * 6364136223846793005ull + 1442695040888963407ull;
     return (double)(rs >> 11) * 0x1.0p-53;
-}
-
-static double *dalloc(size_t n)
-{
-    void *p = aligned_alloc(64, (n * sizeof(double) + 63) / 64 * 64);
-    if (p == NULL) {
-        fprintf(stderr, "bench_stride: out of memory\n");
-        exit(1);
-    }
-    return p;
 }
 
 /* One line: N and K, the stagger on and off in turn. */
