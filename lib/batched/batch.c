@@ -118,28 +118,6 @@ static mcd_status recheck_block(mcd_workspace *ws, const mcdi_bjob *jb,
                      shift + k0);
 }
 
-/* One block of the kernel, its result record reset first. */
-static void run_block(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
-                      mcdi_bres *res)
-{
-    res->st = MCD_OK;
-    res->lane = 0;
-    res->what = "";
-    res->recheck = 0;
-    res->iter_err = 0.0;
-    res->iter_used = 0;
-    mcdi_batch_block(jb, k0, nv, mem, res);
-}
-
-/* The largest error estimate (NaN wins) and iteration count so far. */
-static void merge_iter(double *err, size_t *used, double e, size_t u)
-{
-    if (e > *err || e != e)
-        *err = e;
-    if (u > *used)
-        *used = u;
-}
-
 /* What mcd_workspace_iterative_outcome reports after an iterative call. */
 static void note_iter(mcd_workspace *ws, const mcdi_bjob *jb, double err,
                       size_t used)
@@ -160,7 +138,6 @@ static mcd_status run_job(mcd_workspace *ws, const mcdi_bjob *jb)
     mcd_status fail_st = MCD_OK;
     const char *fail_what = "";
     int fail_recheck = 0;
-    long b;
     int nthreads = 1;
 #ifdef _OPENMP
     nthreads =
@@ -177,45 +154,41 @@ static mcd_status run_job(mcd_workspace *ws, const mcdi_bjob *jb)
 #pragma omp parallel num_threads(nthreads) if (nthreads > 1)
 #endif
     {
-        int tid = 0;
-        size_t my_used = 0;
-        double my_err = 0.0;
+        int tid = 0, team = 1;
         double *mem;
+        mcdi_bres res;
+        size_t b0, b1, kfail;
 #ifdef _OPENMP
         tid = omp_get_thread_num();
+        team = omp_get_num_threads();
 #endif
+        /* a contiguous range of blocks per thread; each cell's result
+         * does not depend on which thread computes it */
+        b0 = nblk * (size_t)tid / (size_t)team;
+        b1 = nblk * (size_t)(tid + 1) / (size_t)team;
         mem = ws->batch_mem + (size_t)tid * ws->batch_per_thread;
         mcdi_batch_stream_reset(mem);
-#ifdef _OPENMP
-#pragma omp for schedule(static)
-#endif
-        for (b = 0; b < (long)nblk; b++) {
-            size_t k0 = (size_t)b * L, nv = K - k0 < L ? K - k0 : L;
-            mcdi_bres res;
-            run_block(jb, k0, nv, mem, &res);
-            if (res.st != MCD_OK) {
-#ifdef _OPENMP
-#pragma omp critical
-#endif
-                {
-                    /* a flagged block's bad cell lies in [k0, k0 + nv):
-                     * no other block's cell lies there */
-                    if (k0 + res.lane < fail_cell) {
-                        fail_cell = k0 + res.lane;
-                        fail_st = res.st;
-                        fail_what = res.what;
-                        fail_recheck = res.recheck;
-                    }
-                }
-            } else {
-                merge_iter(&my_err, &my_used, res.iter_err, res.iter_used);
-            }
-        }
+        kfail =
+            mcdi_batch_blocks(jb, b0 * L, b1 * L < K ? b1 * L : K, mem, &res);
         mcdi_batch_finish(jb, mem);
 #ifdef _OPENMP
 #pragma omp critical
 #endif
-        merge_iter(&iter_err, &iter_used, my_err, my_used);
+        {
+            if (res.st != MCD_OK) {
+                /* the thread's first failing block; the blocks of the
+                 * threads before it lie before it */
+                if (kfail + res.lane < fail_cell) {
+                    fail_cell = kfail + res.lane;
+                    fail_st = res.st;
+                    fail_what = res.what;
+                    fail_recheck = res.recheck;
+                }
+            } else {
+                mcdi_merge_iter(&iter_err, &iter_used, res.iter_err,
+                                res.iter_used);
+            }
+        }
     }
     note_iter(ws, jb, iter_err, iter_used);
     if (fail_recheck)
@@ -269,22 +242,27 @@ mcd_status mcdi_batch_check_layout(const mcd_cells *cl, int tiled_ok,
                      (int)cl->layout);
 }
 
-/* Whether the job streams its outputs: by the bytes it reads and writes
- * (batch.h, kernel_isa.c). Only the SoA entries ask; the AoS path writes
- * into staging that it reads back at once. */
-static int stream_choice(const mcdi_bjob *jb)
+/* The bytes a job reads and writes. */
+static size_t job_bytes(const mcdi_bjob *jb)
 {
     const size_t n = jb->n, nd = jb->nd;
     size_t per_cell = n + 2 * n * nd + (jb->mix != NULL ? 2 : 1 + n * n) +
                       (jb->glnP != NULL ? nd : 0) +
                       (jb->kT != NULL ? n + nd : 0);
     double bytes = 8.0 * (double)per_cell * (double)jb->K;
+    return bytes >= 1e18 ? (size_t)1e18 : (size_t)bytes;
+}
+
+/* Whether the job streams its outputs: by the bytes it reads and writes
+ * (batch.h, kernel_isa.c). Only the SoA entries ask; the AoS path writes
+ * into staging that it reads back at once. */
+static int stream_choice(const mcdi_bjob *jb)
+{
     if (((uintptr_t)jb->out & 7u) != 0)
         return 0; /* lines are found from the address of a double */
     if (jb->tiled && ((uintptr_t)jb->out & 63u) != 0)
         return 0; /* a tiled block's row is a line only on a line */
-    return mcdi_batch_stream_choice(bytes >= 1e18 ? (size_t)1e18
-                                                  : (size_t)bytes);
+    return mcdi_batch_stream_choice(job_bytes(jb));
 }
 
 /* The job of a batched call: sizes, models and the cells' arrays; *need_M
@@ -323,7 +301,11 @@ static void job_init(mcdi_bjob *jb, const mcd_workspace *ws, mcd_model model,
  * builds, streamed, K a multiple of 32): the Dij call 1.17-1.56x faster
  * at N = 7..50 (78 to 2651 rows), 1.4x slower at N = 6 (61 rows); the
  * mixture call 1.15x faster at N = 20 (82 rows), level at 10 (42),
- * 1.12x slower at 8 (34). */
+ * 1.12x slower at 8 (34). Only when the cells stream from memory (the
+ * bytes of the call at least the last-level cache, as for streaming
+ * stores): in cache a prefetch gains nothing and the address fold of
+ * every row and block was 14 % of the instructions of the Dij call at
+ * N = 10 (counted by single-stepping one call). */
 static int stagger_choice(const mcd_workspace *ws, const mcdi_bjob *jb)
 {
     const size_t n = jb->n, nd = jb->nd;
@@ -337,7 +319,8 @@ static int stagger_choice(const mcd_workspace *ws, const mcdi_bjob *jb)
     if (jb->kT != NULL)
         rows += n + nd;
     return !jb->tiled && jb->K % 16 == 0 && n >= MCDI_STAG_NMIN &&
-           rows >= MCDI_STAG_ROWS && !ws->stagger_off;
+           rows >= MCDI_STAG_ROWS && !ws->stagger_off &&
+           mcdi_batch_beyond_cache(job_bytes(jb));
 }
 
 /* Run a job on the caller's (SoA) arrays. */
@@ -469,14 +452,14 @@ static mcd_status run_aos(mcd_workspace *ws, mcdi_bjob *jb, size_t n_cells)
                     sg.glnT[d * L + l] = glnT[k * nd + d];
             }
         }
-        run_block(jb, 0, nv, ws->batch_mem, &res);
+        (void)mcdi_batch_blocks(jb, 0, nv, ws->batch_mem, &res);
         if (res.st != MCD_OK) {
             note_iter(ws, jb, iter_err, iter_used);
             if (res.recheck)
                 return recheck_block(ws, jb, 0, nv, k0);
             return mcdi_fail(res.st, "cell %zu: %s", k0 + res.lane, res.what);
         }
-        merge_iter(&iter_err, &iter_used, res.iter_err, res.iter_used);
+        mcdi_merge_iter(&iter_err, &iter_used, res.iter_err, res.iter_used);
         for (l = 0; l < nv; l++)
             for (i = 0; i < n * nd; i++)
                 out_flux[(k0 + l) * n * nd + i] = sg.out[i * L + l];

@@ -105,6 +105,9 @@ void mcdi_batch_finish_v1(const mcdi_bjob *job, double *mem);
 /* Whether a call whose inputs and outputs take `bytes` should stream its
  * outputs (kernel_isa.c: the last-level cache size, MCDIFF_STREAM_STORES). */
 int mcdi_batch_stream_choice(size_t bytes);
+/* Whether a call of this many bytes read and written is at least the
+ * last-level cache (the size mcdi_batch_stream_choice compares with). */
+int mcdi_batch_beyond_cache(size_t bytes);
 
 /* Doubles of scratch one thread needs for any call with n <= cap: the
  * streaming state, a block's scratch and the AoS staging, both laid out
@@ -122,12 +125,29 @@ mcd_status mcdi_batch_check_common(mcd_workspace *ws, mcd_model model, size_t n,
 mcd_status mcdi_batch_check_layout(const mcd_cells *cl, int tiled_ok,
                                    const char *call);
 
-/* Process cells k0 .. k0+nv-1 (1 <= nv <= mcdi_batch_lanes(n)) of the job.
- * mem: scratch of mcdi_batch_scratch_doubles(n) doubles, 64-byte aligned.
- * Writes the block's outputs unless res->st != MCD_OK. Dispatches to the
- * kernel of the instruction set chosen at run time (kernel_isa.c). */
-void mcdi_batch_block(const mcdi_bjob *job, size_t k0, size_t nv, double *mem,
-                      mcdi_bres *res);
+/* Process cells k_begin .. k_end-1 of the job in blocks of
+ * mcdi_batch_lanes(n) cells from k_begin (the last one may be short),
+ * with the block loop inside the kernel (the calls and dispatch of one
+ * block were a tenth of the instructions of a block at N = 3). Stops at
+ * the first block whose res->st != MCD_OK and returns its first cell
+ * (res names the failure); otherwise returns k_end, with res->st == MCD_OK
+ * and res->iter_err, res->iter_used the largest over the blocks (NaN
+ * wins). mem: scratch of mcdi_batch_scratch_doubles(n) doubles, 64-byte
+ * aligned. Writes the outputs of every block before the failing one.
+ * Dispatches to the kernel of the instruction set chosen at run time
+ * (kernel_isa.c). */
+size_t mcdi_batch_blocks(const mcdi_bjob *job, size_t k_begin, size_t k_end,
+                         double *mem, mcdi_bres *res);
+
+/* The larger error estimate (NaN wins) and iteration count of two. */
+static inline void mcdi_merge_iter(double *err, size_t *used, double e,
+                                   size_t u)
+{
+    if (e > *err || e != e)
+        *err = e;
+    if (u > *used)
+        *used = u;
+}
 
 /* Lanes used for n species by the kernel chosen at run time. */
 size_t mcdi_batch_lanes(size_t n);
@@ -136,12 +156,12 @@ size_t mcdi_batch_lanes(size_t n);
  * v4 (x86-64-v4: AVX-512, 8 lanes), v3 (x86-64-v3: AVX2 + FMA, 4 lanes),
  * v1 (the compiler's baseline, 2 lanes; the only one off x86-64 or
  * without GCC). */
-void mcdi_batch_block_v4(const mcdi_bjob *job, size_t k0, size_t nv,
-                         double *mem, mcdi_bres *res);
-void mcdi_batch_block_v3(const mcdi_bjob *job, size_t k0, size_t nv,
-                         double *mem, mcdi_bres *res);
-void mcdi_batch_block_v1(const mcdi_bjob *job, size_t k0, size_t nv,
-                         double *mem, mcdi_bres *res);
+size_t mcdi_batch_blocks_v4(const mcdi_bjob *job, size_t k_begin, size_t k_end,
+                            double *mem, mcdi_bres *res);
+size_t mcdi_batch_blocks_v3(const mcdi_bjob *job, size_t k_begin, size_t k_end,
+                            double *mem, mcdi_bres *res);
+size_t mcdi_batch_blocks_v1(const mcdi_bjob *job, size_t k_begin, size_t k_end,
+                            double *mem, mcdi_bres *res);
 /* Lanes of each kernel object (the doubles in its vector registers). */
 extern const size_t mcdi_batch_lanes_v4, mcdi_batch_lanes_v3,
     mcdi_batch_lanes_v1;

@@ -45,13 +45,14 @@ void mcdi_batch_finish(const mcdi_bjob *jb, double *mem)
 static atomic_int stream_mode_cached; /* 0 unknown, 1 auto, 2 always, 3 never */
 static atomic_size_t stream_bytes_cached;
 
-int mcdi_batch_stream_choice(size_t bytes)
+/* Read MCDIFF_STREAM_STORES and the cache size once. */
+static int stream_mode(void)
 {
     int mode = atomic_load_explicit(&stream_mode_cached, memory_order_relaxed);
-    size_t llc;
     if (mode == 0) {
         const char *env = getenv("MCDIFF_STREAM_STORES");
         long v = 0;
+        size_t llc;
         mode = 1;
         if (env != NULL && strcmp(env, "always") == 0)
             mode = 2;
@@ -71,20 +72,32 @@ int mcdi_batch_stream_choice(size_t bytes)
         atomic_store_explicit(&stream_bytes_cached, llc, memory_order_relaxed);
         atomic_store_explicit(&stream_mode_cached, mode, memory_order_relaxed);
     }
-    if (mode != 1)
-        return mode == 2;
-    llc = atomic_load_explicit(&stream_bytes_cached, memory_order_relaxed);
-    return bytes >= llc;
+    return mode;
 }
 
-void mcdi_batch_block(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
-                      mcdi_bres *res)
+int mcdi_batch_beyond_cache(size_t bytes)
+{
+    (void)stream_mode();
+    return bytes >=
+           atomic_load_explicit(&stream_bytes_cached, memory_order_relaxed);
+}
+
+int mcdi_batch_stream_choice(size_t bytes)
+{
+    const int mode = stream_mode();
+    if (mode != 1)
+        return mode == 2;
+    return mcdi_batch_beyond_cache(bytes);
+}
+
+size_t mcdi_batch_blocks(const mcdi_bjob *jb, size_t k_begin, size_t k_end,
+                         double *mem, mcdi_bres *res)
 {
     switch (mcdi_isa()) {
 #if defined(MCDI_HAVE_KISA)
-    case 4: mcdi_batch_block_v4(jb, k0, nv, mem, res); break;
-    case 3: mcdi_batch_block_v3(jb, k0, nv, mem, res); break;
+    case 4: return mcdi_batch_blocks_v4(jb, k_begin, k_end, mem, res);
+    case 3: return mcdi_batch_blocks_v3(jb, k_begin, k_end, mem, res);
 #endif
-    default: mcdi_batch_block_v1(jb, k0, nv, mem, res); break;
+    default: return mcdi_batch_blocks_v1(jb, k_begin, k_end, mem, res);
     }
 }

@@ -220,6 +220,29 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
     stage_store(jb, &b, k0, nv, res, n, L, nd);
 }
 
+/* Cells [kb, ke) in blocks of L from kb (the last one may be short):
+ * the block loop of mcdi_batch_blocks (batch.h), here so that a block
+ * costs no call, dispatch or function prologue of its own. */
+KINLINE size_t run_blocks(const mcdi_bjob *jb, size_t kb, size_t ke,
+                          double *mem, mcdi_bres *res, const size_t n,
+                          const size_t L, const size_t nd)
+{
+    double err = 0.0;
+    size_t used = 0, k0;
+    for (k0 = kb; k0 < ke; k0 += L) {
+        const size_t nv = ke - k0 < L ? ke - k0 : L;
+        mcdi_bres r = {MCD_OK, 0, "", 0, 0.0, 0};
+        body(jb, k0, nv, mem, &r, n, L, nd);
+        if (r.st != MCD_OK) {
+            *res = r;
+            return k0;
+        }
+        mcdi_merge_iter(&err, &used, r.iter_err, r.iter_used);
+    }
+    *res = (mcdi_bres){MCD_OK, 0, "", 0, err, used};
+    return ke;
+}
+
 /* ------------------------------------------------------------------ */
 /* dispatch on n (constant-folded instances for small n)                */
 /* ------------------------------------------------------------------ */
@@ -235,11 +258,11 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
  * function holding every instance took GCC minutes to optimise (passes
  * that grow faster than the function size). */
 #define INSTANCE(name, nn, ndd)                                                \
-    __attribute__((noinline)) static void name(const mcdi_bjob *jb, size_t k0, \
-                                               size_t nv, double *mem,         \
-                                               mcdi_bres *res)                 \
+    __attribute__((noinline)) static size_t name(const mcdi_bjob *jb,          \
+                                                 size_t kb, size_t ke,         \
+                                                 double *mem, mcdi_bres *res)  \
     {                                                                          \
-        body(jb, k0, nv, mem, res, nn, LANES_SMALL, ndd);                      \
+        return run_blocks(jb, kb, ke, mem, res, nn, LANES_SMALL, ndd);         \
     }
 INSTANCE(block_n2_d3, 2, 3)
 INSTANCE(block_n3_d3, 3, 3)
@@ -248,29 +271,27 @@ INSTANCE(block_n5_d3, 5, 3)
 INSTANCE(block_nn_d3, jb->n, 3)
 INSTANCE(block_nn_dd, jb->n, jb->nd)
 
-static void block_lanes(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
-                        mcdi_bres *res)
+static size_t block_lanes(const mcdi_bjob *jb, size_t kb, size_t ke,
+                          double *mem, mcdi_bres *res)
 {
-    if (jb->nd != 3) {
-        block_nn_dd(jb, k0, nv, mem, res);
-        return;
-    }
+    if (jb->nd != 3)
+        return block_nn_dd(jb, kb, ke, mem, res);
     switch (jb->n) {
-    case 2: block_n2_d3(jb, k0, nv, mem, res); break;
-    case 3: block_n3_d3(jb, k0, nv, mem, res); break;
-    case 4: block_n4_d3(jb, k0, nv, mem, res); break;
-    case 5: block_n5_d3(jb, k0, nv, mem, res); break;
-    default: block_nn_d3(jb, k0, nv, mem, res); break;
+    case 2: return block_n2_d3(jb, kb, ke, mem, res);
+    case 3: return block_n3_d3(jb, kb, ke, mem, res);
+    case 4: return block_n4_d3(jb, kb, ke, mem, res);
+    case 5: return block_n5_d3(jb, kb, ke, mem, res);
+    default: return block_nn_d3(jb, kb, ke, mem, res);
     }
 }
 
-static void block_single(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
-                         mcdi_bres *res)
+static size_t block_single(const mcdi_bjob *jb, size_t kb, size_t ke,
+                           double *mem, mcdi_bres *res)
 {
-    body(jb, k0, nv, mem, res, jb->n, 1, jb->nd);
+    return run_blocks(jb, kb, ke, mem, res, jb->n, 1, jb->nd);
 }
 
-#define KNAME_(isa) mcdi_batch_block_v##isa
+#define KNAME_(isa) mcdi_batch_blocks_v##isa
 #define KNAME(isa) KNAME_(isa)
 #define FNAME_(isa) mcdi_batch_finish_v##isa
 #define FNAME(isa) FNAME_(isa)
@@ -278,14 +299,13 @@ static void block_single(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
 #define KLANES(isa) KLANES_(isa)
 const size_t KLANES(MCDI_KISA) = MCDI_VLANES;
 
-void KNAME(MCDI_KISA)(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
-                      mcdi_bres *res)
+size_t KNAME(MCDI_KISA)(const mcdi_bjob *jb, size_t kb, size_t ke, double *mem,
+                        mcdi_bres *res)
 {
     mem += MCDI_STREAM_DOUBLES; /* streaming state first (batch.h) */
     if (jb->n > MCDI_LANES_NMAX)
-        block_single(jb, k0, nv, mem, res);
-    else
-        block_lanes(jb, k0, nv, mem, res);
+        return block_single(jb, kb, ke, mem, res);
+    return block_lanes(jb, kb, ke, mem, res);
 }
 
 void FNAME(MCDI_KISA)(const mcdi_bjob *jb, double *mem)
