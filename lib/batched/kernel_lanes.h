@@ -77,24 +77,38 @@ KINLINE size_t pf_stagger(const double *p)
     return 8 * (size_t)(a & 3);
 }
 
-/* Prefetch distance for row src of an array of Q rows of a job of n
- * species (n = 0 for the per-cell scalars; constant n < MCDI_STAG_NMIN
- * folds the stagger away in the small-n instances). */
-KINLINE size_t pf_dist(const mcdi_bjob *jb, size_t Q, size_t n,
-                       const double *src)
+/* How far ahead the rows of one input array are prefetched: the
+ * distance in doubles and whether the SoA stagger applies. A loading
+ * stage takes it once per array (pf_of), so that the flags of the job
+ * are read once, not per row: stores to the scratch go through a
+ * may_alias type and made the compiler reload jb->tiled and
+ * jb->stagger before every row (2-4 instructions a row, 5-10 % of a
+ * block at N = 3 and 5, counted with tools/icount.c). */
+typedef struct mcdi_pf {
+    size_t dist; /* doubles ahead */
+    int stag;    /* add pf_stagger of the row's address */
+} mcdi_pf;
+
+/* For an array of Q rows of a job of n species (n = 0 for the per-cell
+ * scalars; constant n < MCDI_STAG_NMIN folds the stagger away in the
+ * small-n instances). */
+KINLINE mcdi_pf pf_of(const mcdi_bjob *jb, size_t Q, size_t n)
 {
-    if (jb->tiled)
-        return MCDI_PREFETCH * Q;
-    if (n >= MCDI_STAG_NMIN && jb->stagger)
-        return MCDI_PREFETCH + pf_stagger(src);
-    return MCDI_PREFETCH;
+    mcdi_pf p;
+    p.dist = jb->tiled ? MCDI_PREFETCH * Q : MCDI_PREFETCH;
+    p.stag = !jb->tiled && n >= MCDI_STAG_NMIN && jb->stagger;
+    return p;
+}
+
+KINLINE void prefetch_row(const double *src, const mcdi_pf pf)
+{
+    __builtin_prefetch(src + pf.dist + (pf.stag ? pf_stagger(src) : 0), 0, 3);
 }
 
 /* Load row src[k0 .. k0+nv-1] into dst[0..L-1], padding with src[k0];
- * prefetch the same row ahead (pf_dist; Q rows in the array). */
+ * prefetch the same row ahead (pf, from pf_of). */
 KINLINE void load_row(double *restrict dst, const double *restrict src,
-                      size_t nv, size_t L, const mcdi_bjob *jb, size_t Q,
-                      size_t n)
+                      size_t nv, size_t L, const mcdi_pf pf)
 {
     size_t l;
     /* the next blocks of this input stream (a few dozen streams at once
@@ -103,7 +117,7 @@ KINLINE void load_row(double *restrict dst, const double *restrict src,
      * lines out of L2, so inputs that fit in the caches came from L3 on
      * every call; on the Intel AVX-512 host t0 ran N = 10 1.7x and N = 3
      * streamed 1.3x faster than nta (issue 15, A/B in DEVELOPERS.md) */
-    __builtin_prefetch(src + pf_dist(jb, Q, n, src), 0, 3);
+    prefetch_row(src, pf);
     if (nv == L) {
         for_lanes (l)
             dst[l] = src[l];
@@ -129,19 +143,18 @@ typedef long long mcdi_vl
  * register too, and reach bl once per stage: OR-ing each row's flags
  * into bl in memory chained every row of inputs through a store and a
  * reload, about 5 ns per cell at N = 3, issue 15). */
-KINLINE mcdi_vd load_v(const double *restrict src, const mcdi_bjob *jb,
-                       size_t Q, size_t n)
+KINLINE mcdi_vd load_v(const double *restrict src, const mcdi_pf pf)
 {
     mcdi_vd v;
-    __builtin_prefetch(src + pf_dist(jb, Q, n, src), 0, 3); /* as load_row */
+    prefetch_row(src, pf); /* as load_row */
     memcpy(&v, src, sizeof v);
     return v;
 }
 
 KINLINE mcdi_vd load_vrow(double *restrict dst, const double *restrict src,
-                          const mcdi_bjob *jb, size_t Q, size_t n)
+                          const mcdi_pf pf)
 {
-    const mcdi_vd v = load_v(src, jb, Q, n);
+    const mcdi_vd v = load_v(src, pf);
     *(mcdi_vd *)(void *)dst = v;
     return v;
 }
@@ -150,6 +163,27 @@ KINLINE mcdi_vd load_vrow(double *restrict dst, const double *restrict src,
 KINLINE mcdi_vl not_finite_v(const mcdi_vd v)
 {
     return ~((v >= -DBL_MAX) & (v <= DBL_MAX));
+}
+
+/* Whether some lane of v is not zero: one test on the vector (a loop
+ * over the lanes was 16-29 instructions a test, counted with
+ * tools/icount.c). */
+#if defined(__AVX__)
+#include <immintrin.h>
+#endif
+KINLINE int any_lane_v(const mcdi_vl v)
+{
+#if defined(__AVX512F__) && MCDI_VLANES == 8
+    return _mm512_test_epi64_mask((__m512i)v, (__m512i)v) != 0;
+#elif defined(__AVX__) && MCDI_VLANES == 4
+    return !_mm256_testz_si256((__m256i)v, (__m256i)v);
+#else
+    long long any = 0;
+    size_t l;
+    for (l = 0; l < MCDI_VLANES; l++)
+        any |= v[l];
+    return any != 0;
+#endif
 }
 
 /* OR a lane vector of flags into bl (kernel_stages.h). */

@@ -100,7 +100,7 @@ KINLINE int ldl_solve_v(const size_t n, const size_t nd, mcdi_vd *restrict A,
     mcdi_vd *restrict iD = n <= KREG ? iDl : iDm;
     const mcdi_vd zero = {0.0};
     mcdi_vl ok = zero == zero; /* all lanes true */
-    size_t i, i0, j, k, dd, l, r;
+    size_t i, i0, j, k, dd, r;
     const size_t step = n <= KREG ? 1 : KTILE; /* rows per tile */
     LDL_UNROLL
     for (i0 = 0; i0 < n; i0 += step) {
@@ -150,9 +150,8 @@ KINLINE int ldl_solve_v(const size_t n, const size_t nd, mcdi_vd *restrict A,
                 R[ii * nd + dd] = f[r][dd];
         }
     }
-    for (l = 0; l < MCDI_VLANES; l++)
-        if (ok[l] == 0)
-            return 0;
+    if (any_lane_v(~ok))
+        return 0;
     LDL_UNROLL
     for (i = n; i-- > 0;) {
         mcdi_vd f[MCD_MAX_DIM];

@@ -25,6 +25,11 @@ KINLINE int lanes_any(const long long *restrict bl, const size_t L)
 {
     long long any = 0;
     size_t l;
+    if (L == MCDI_VLANES) {
+        mcdi_vl v;
+        memcpy(&v, bl, sizeof v);
+        return any_lane_v(v);
+    }
     for (l = 0; l < L; l++)
         any |= bl[l];
     return any != 0;
@@ -39,8 +44,9 @@ KINLINE void stage_load_scalars(const mcdi_bjob *jb, const mcdi_kblock *b,
     size_t l;
     if (jb->mix != NULL) {
         double *restrict Tl = b->T, *restrict Pl = b->P;
-        load_row(Tl, jb->T + k0, nv, L, jb, 1, 0);
-        load_row(Pl, jb->P + k0, nv, L, jb, 1, 0);
+        const mcdi_pf pf = pf_of(jb, 1, 0);
+        load_row(Tl, jb->T + k0, nv, L, pf);
+        load_row(Pl, jb->P + k0, nv, L, pf);
         for_lanes (l) {
             bl[l] |= !((Tl[l] > 0.0) & (Tl[l] <= DBL_MAX));
             bl[l] |= !((Pl[l] > 0.0) & (Pl[l] <= DBL_MAX));
@@ -48,10 +54,10 @@ KINLINE void stage_load_scalars(const mcdi_bjob *jb, const mcdi_kblock *b,
             bl[l] |= !(c[l] >= DBL_MIN); /* a normal c, as single-state */
         }
     } else if (L == MCDI_VLANES && nv == L) {
-        const mcdi_vd v = load_vrow(c, jb->c + k0, jb, 1, 0);
+        const mcdi_vd v = load_vrow(c, jb->c + k0, pf_of(jb, 1, 0));
         flag_lanes(bl, ~((v >= DBL_MIN) & (v <= DBL_MAX)));
     } else {
-        load_row(c, jb->c + k0, nv, L, jb, 1, 0);
+        load_row(c, jb->c + k0, nv, L, pf_of(jb, 1, 0));
         for_lanes (l)
             bl[l] |= !((c[l] >= DBL_MIN) &
                        (c[l] <= DBL_MAX)); /* normal c, as single-state */
@@ -67,13 +73,14 @@ KINLINE void stage_load_comp(const mcdi_bjob *jb, const mcdi_kblock *b,
     const double *const comp = jb->comp + mcdi_cell_at(jb, k0, n);
     double *restrict sum = b->sum;
     double *restrict y = jb->comp_basis == MCD_BASIS_MASS ? b->w : b->x;
+    const mcdi_pf pf = pf_of(jb, n, n);
     size_t i, l;
     if (L == MCDI_VLANES && nv == L) {
         /* the same rules on registers (kernel_lanes.h) */
         mcdi_vd sm = {0.0};
         mcdi_vl bad = {0};
         for (i = 0; i < n; i++) {
-            const mcdi_vd q = load_vrow(y + i * L, comp + i * K, jb, n, n);
+            const mcdi_vd q = load_vrow(y + i * L, comp + i * K, pf);
             bad |= ~((q >= 0.0) & (q <= DBL_MAX));
             sm += q;
         }
@@ -86,7 +93,7 @@ KINLINE void stage_load_comp(const mcdi_bjob *jb, const mcdi_kblock *b,
     for_lanes (l)
         sum[l] = 0.0;
     for (i = 0; i < n; i++) {
-        load_row(y + i * L, comp + i * K, nv, L, jb, n, n);
+        load_row(y + i * L, comp + i * K, nv, L, pf);
         for_lanes (l) {
             double q = y[i * L + l];
             bl[l] |= !((q >= 0.0) & (q <= DBL_MAX));
@@ -131,44 +138,43 @@ KINLINE void stage_load_forces(const mcdi_bjob *jb, const mcdi_kblock *b,
     const double *const glnT =
         jb->kT != NULL ? jb->glnT + mcdi_cell_at(jb, k0, nd) : NULL;
     double *restrict d = b->d, *restrict v = b->v;
+    const mcdi_pf pg = pf_of(jb, n * nd, n), pd = pf_of(jb, nd, n),
+                  pn = pf_of(jb, n, n);
     size_t i, dd, l;
     if (L == MCDI_VLANES && nv == L) {
         /* the same rules on registers (kernel_lanes.h) */
         mcdi_vl bad = {0};
         for (i = 0; i < n * nd; i++)
-            bad |=
-                not_finite_v(load_vrow(d + i * L, grad + i * K, jb, n * nd, n));
-        for (dd = 0; jb->glnP != NULL && dd < nd; dd++)
-            bad |=
-                not_finite_v(load_vrow(v + dd * L, glnP + dd * K, jb, nd, n));
-        for (i = 0; jb->kT != NULL && i < n; i++)
-            bad |= not_finite_v(load_vrow(b->kT + i * L, kT + i * K, jb, n, n));
-        for (dd = 0; jb->kT != NULL && dd < nd; dd++)
-            bad |= not_finite_v(
-                load_vrow(b->gT + dd * L, glnT + dd * K, jb, nd, n));
+            bad |= not_finite_v(load_vrow(d + i * L, grad + i * K, pg));
+        for (dd = 0; glnP != NULL && dd < nd; dd++)
+            bad |= not_finite_v(load_vrow(v + dd * L, glnP + dd * K, pd));
+        for (i = 0; kT != NULL && i < n; i++)
+            bad |= not_finite_v(load_vrow(b->kT + i * L, kT + i * K, pn));
+        for (dd = 0; kT != NULL && dd < nd; dd++)
+            bad |= not_finite_v(load_vrow(b->gT + dd * L, glnT + dd * K, pd));
         flag_lanes(bl, bad);
         return;
     }
     for (i = 0; i < n * nd; i++) {
-        load_row(d + i * L, grad + i * K, nv, L, jb, n * nd, n);
+        load_row(d + i * L, grad + i * K, nv, L, pg);
         for_lanes (l)
             bl[l] |= !(fabs(d[i * L + l]) <= DBL_MAX);
     }
     if (jb->glnP != NULL) {
         for (dd = 0; dd < nd; dd++) {
-            load_row(v + dd * L, glnP + dd * K, nv, L, jb, nd, n);
+            load_row(v + dd * L, glnP + dd * K, nv, L, pd);
             for_lanes (l)
                 bl[l] |= !(fabs(v[dd * L + l]) <= DBL_MAX);
         }
     }
     if (jb->kT != NULL) {
         for (i = 0; i < n; i++) {
-            load_row(b->kT + i * L, kT + i * K, nv, L, jb, n, n);
+            load_row(b->kT + i * L, kT + i * K, nv, L, pn);
             for_lanes (l)
                 bl[l] |= !(fabs(b->kT[i * L + l]) <= DBL_MAX);
         }
         for (dd = 0; dd < nd; dd++) {
-            load_row(b->gT + dd * L, glnT + dd * K, nv, L, jb, nd, n);
+            load_row(b->gT + dd * L, glnT + dd * K, nv, L, pd);
             for_lanes (l)
                 bl[l] |= !(fabs(b->gT[dd * L + l]) <= DBL_MAX);
         }
@@ -198,6 +204,7 @@ KINLINE void stage_invdiff_dij(const mcdi_bjob *jb, const mcdi_kblock *b,
 {
     const size_t K = jb->rs; /* row stride (batch.h) */
     const double *const Dij = jb->Dij + mcdi_cell_at(jb, k0, n * n);
+    const mcdi_pf pf = pf_of(jb, n * n, n);
     double *restrict wk = b->wk;
     size_t i, j, l;
     if (L == MCDI_VLANES && nv == L) {
@@ -207,8 +214,7 @@ KINLINE void stage_invdiff_dij(const mcdi_bjob *jb, const mcdi_kblock *b,
         if (jb->dij_upper) {
             for (i = 1; i < n; i++)
                 for (j = 0; j < i; j++) {
-                    const mcdi_vd a =
-                        load_v(Dij + (j * n + i) * K, jb, n * n, n);
+                    const mcdi_vd a = load_v(Dij + (j * n + i) * K, pf);
                     bad |= ~((a >= DBL_MIN) & (a <= DBL_MAX));
                     tri[i * (i + 1) / 2 + j] = 1.0 / a;
                 }
@@ -217,8 +223,8 @@ KINLINE void stage_invdiff_dij(const mcdi_bjob *jb, const mcdi_kblock *b,
         }
         for (i = 1; i < n; i++)
             for (j = 0; j < i; j++) {
-                const mcdi_vd a = load_v(Dij + (j * n + i) * K, jb, n * n, n);
-                const mcdi_vd bb = load_v(Dij + (i * n + j) * K, jb, n * n, n);
+                const mcdi_vd a = load_v(Dij + (j * n + i) * K, pf);
+                const mcdi_vd bb = load_v(Dij + (i * n + j) * K, pf);
                 const mcdi_vl gt = a > bb;
                 /* a > bb ? a : bb, and |a - bb| <= 1e-12 max (NaN fails) */
                 const mcdi_vd mx =
@@ -237,7 +243,7 @@ KINLINE void stage_invdiff_dij(const mcdi_bjob *jb, const mcdi_kblock *b,
             double *q = b->tri + (i * (i + 1) / 2 + j) * L;
             const double *up = Dij + (j * n + i) * K;
             const double *lo = Dij + (i * n + j) * K;
-            load_row(q, up, nv, L, jb, n * n, n);
+            load_row(q, up, nv, L, pf);
             if (jb->dij_upper) {
                 for_lanes (l) {
                     const double a = q[l];
@@ -246,7 +252,7 @@ KINLINE void stage_invdiff_dij(const mcdi_bjob *jb, const mcdi_kblock *b,
                 }
                 continue;
             }
-            load_row(wk, lo, nv, L, jb, n * n, n);
+            load_row(wk, lo, nv, L, pf);
             for_lanes (l) {
                 double a = q[l], bb = wk[l], m = a > bb ? a : bb;
                 bl[l] |= !((a >= DBL_MIN) & (a <= DBL_MAX));
