@@ -741,6 +741,122 @@ START_TEST(batch_bad_cells_in_full_and_tail_blocks_are_named)
 }
 END_TEST
 
+/* Inputs at the edges of the rules (Dij at DBL_MAX and DBL_MIN, a pair's
+ * asymmetry within one rounding of the 1e-12 tolerance, gradients of
+ * DBL_MAX): the batched call must judge every cell as the single-state
+ * call does (same status, same words), in a full block and the tail,
+ * in the small-N instance and the generic one, with either Dij read.
+ * The kernel's loading checks are accumulated over rows (kernel_stages.h);
+ * a lane flagged there that the re-check finds good would be EINTERNAL.
+ * Common practice: the predicate of the fast check equals the reference
+ * check's on every input, including the boundary. */
+START_TEST(batch_edge_inputs_are_judged_as_by_the_single_state_call)
+{
+    const size_t ns[] = {3, 10}, K = 27, ND = 3;
+    size_t in, a, i, q, up;
+    for (in = 0; in < 2; in++) {
+        const size_t N = ns[in];
+        const size_t at[] = {9, 25};
+        cells s;
+        double *out = xmalloc(N * ND * K * sizeof(double));
+        double *Dc = xmalloc(N * N * sizeof(double));
+        double *xc = xmalloc(N * sizeof(double));
+        double *gc = xmalloc(N * ND * sizeof(double));
+        double *oc = xmalloc(N * ND * sizeof(double));
+        mcd_workspace *ws;
+        sup_seed(&rng, 0xED6E0001ull + in);
+        ck_assert_int_eq(mcd_workspace_new(N, &ws), MCD_OK);
+        cells_make(&s, N, K, ND);
+        for (a = 0; a < 2; a++) {
+            const size_t k = at[a];
+            double *const d01 = &s.D[(0 * N + 1) * K + k];
+            double *const d10 = &s.D[(1 * N + 0) * K + k];
+            for (i = 0; i < 40; i++) {
+                const double keep01 = *d01, keep10 = *d10,
+                             keepg = s.grad[2 * K + k];
+                /* i = 0..3 the range edges, then asymmetries around
+                 * the tolerance: b = a (1 - r), r in 1e-12 (1 +- 4 ulp) */
+                double va = 1e-5, vb = 1e-5;
+                if (i == 0)
+                    va = vb = DBL_MAX;
+                else if (i == 1)
+                    va = vb = DBL_MIN;
+                else if (i == 2)
+                    va = vb = nextafter(DBL_MIN, 0.0);
+                else if (i == 3)
+                    s.grad[2 * K + k] = -DBL_MAX;
+                else {
+                    const double r =
+                        1e-12 * (1.0 + (double)((int)i - 22) * 2.2e-16);
+                    va = sup_decades(&rng, -8.0, 2.0);
+                    vb = i % 2 ? va * (1.0 - r) : va / (1.0 - r);
+                }
+                *d01 = va;
+                *d10 = vb;
+                for (up = 0; up < 2; up++) {
+                    char want[32], batched[256];
+                    mcd_status st, st1;
+                    ck_assert_int_eq(
+                        mcd_workspace_set_dij_read(ws, up ? MCD_DIJ_READ_UPPER
+                                                          : MCD_DIJ_READ_BOTH),
+                        MCD_OK);
+                    st = mcd_flux_batch_dij(
+                        ws, MCD_MODEL_MAXWELL_STEFAN, N, NULL, s.D, s.c,
+                        &(mcd_cells){.n_cells = K,
+                                     .n_dim = ND,
+                                     .comp_basis = MCD_BASIS_MOLE,
+                                     .comp = s.comp,
+                                     .grad = s.grad},
+                        MCD_BASIS_MOLE, out);
+                    snprintf(want, sizeof want, "cell %zu: ", k);
+                    snprintf(batched, sizeof batched, "%s", mcd_last_error());
+                    for (q = 0; q < N * N; q++)
+                        Dc[q] = s.D[q * K + k];
+                    if (up) /* the single-state call reads both */
+                        Dc[1 * N + 0] = Dc[0 * N + 1];
+                    for (q = 0; q < N; q++)
+                        xc[q] = s.comp[q * K + k];
+                    for (q = 0; q < N * ND; q++)
+                        gc[q] = s.grad[q * K + k];
+                    st1 = mcd_flux_compute(
+                        ws, MCD_MODEL_MAXWELL_STEFAN,
+                        &(mcd_state){.n_species = N,
+                                     .n_dim = ND,
+                                     .Dij = Dc,
+                                     .c = s.c[k],
+                                     .comp_basis = MCD_BASIS_MOLE,
+                                     .comp = xc,
+                                     .grad = gc},
+                        MCD_BASIS_MOLE, oc);
+                    ck_assert_msg(st == st1,
+                                  "N %zu cell %zu case %zu read %zu: batched "
+                                  "%d (%s), single %d (%s)",
+                                  N, k, i, up, (int)st, batched, (int)st1,
+                                  mcd_last_error());
+                    if (strncmp(mcd_last_error(), "argument", 8) == 0) {
+                        /* an input rule: the same words (the results'
+                         * failures, ESING and fluxes not finite, are
+                         * worded per call) */
+                        ck_assert_msg(strncmp(batched, want, strlen(want)) == 0,
+                                      "%s", batched);
+                        ck_assert_str_eq(batched + strlen(want),
+                                         mcd_last_error());
+                    }
+                }
+                *d01 = keep01;
+                *d10 = keep10;
+                s.grad[2 * K + k] = keepg;
+            }
+        }
+        ck_assert_int_eq(mcd_workspace_set_dij_read(ws, MCD_DIJ_READ_BOTH),
+                         MCD_OK);
+        cells_free(&s);
+        free(out), free(Dc), free(xc), free(gc), free(oc);
+        mcd_workspace_free(ws);
+    }
+}
+END_TEST
+
 START_TEST(batch_overflowing_fluxes_are_reported_with_the_cell)
 {
     /* Inputs each finite and in range whose fluxes overflow (c Đ grad ~
@@ -969,6 +1085,8 @@ int main(void)
     tcase_add_test(
         tc, batch_errors_name_the_cell_and_write_nothing_on_argument_errors);
     tcase_add_test(tc, batch_bad_cells_in_full_and_tail_blocks_are_named);
+    tcase_add_test(tc,
+                   batch_edge_inputs_are_judged_as_by_the_single_state_call);
     tcase_add_test(tc, batch_overflowing_fluxes_are_reported_with_the_cell);
     tcase_add_test(tc, batch_threads_give_identical_results);
     tcase_add_test(tc, batch_outputs_at_every_line_offset_match_the_aos_path);

@@ -159,12 +159,6 @@ KINLINE mcdi_vd load_vrow(double *restrict dst, const double *restrict src,
     return v;
 }
 
-/* Lanes whose value is not finite (or NaN): all ones there. */
-KINLINE mcdi_vl not_finite_v(const mcdi_vd v)
-{
-    return ~((v >= -DBL_MAX) & (v <= DBL_MAX));
-}
-
 /* Whether some lane of v is not zero: one test on the vector (a loop
  * over the lanes was 16-29 instructions a test, counted with
  * tools/icount.c). */
@@ -183,6 +177,32 @@ KINLINE int any_lane_v(const mcdi_vl v)
     for (l = 0; l < MCDI_VLANES; l++)
         any |= v[l];
     return any != 0;
+#endif
+}
+
+/* a < b ? a : b and a > b ? a : b, lane by lane (b where either is
+ * NaN; the loading checks flag NaN lanes apart). */
+KINLINE mcdi_vd min_v(const mcdi_vd a, const mcdi_vd b)
+{
+#if defined(__AVX512F__) && MCDI_VLANES == 8
+    return (mcdi_vd)_mm512_min_pd((__m512d)a, (__m512d)b);
+#elif defined(__AVX__) && MCDI_VLANES == 4
+    return (mcdi_vd)_mm256_min_pd((__m256d)a, (__m256d)b);
+#else
+    const mcdi_vl lt = a < b;
+    return (mcdi_vd)((lt & (mcdi_vl)a) | (~lt & (mcdi_vl)b));
+#endif
+}
+
+KINLINE mcdi_vd max_v(const mcdi_vd a, const mcdi_vd b)
+{
+#if defined(__AVX512F__) && MCDI_VLANES == 8
+    return (mcdi_vd)_mm512_max_pd((__m512d)a, (__m512d)b);
+#elif defined(__AVX__) && MCDI_VLANES == 4
+    return (mcdi_vd)_mm256_max_pd((__m256d)a, (__m256d)b);
+#else
+    const mcdi_vl gt = a > b;
+    return (mcdi_vd)((gt & (mcdi_vl)a) | (~gt & (mcdi_vl)b));
 #endif
 }
 

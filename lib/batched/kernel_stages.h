@@ -142,17 +142,20 @@ KINLINE void stage_load_forces(const mcdi_bjob *jb, const mcdi_kblock *b,
                   pn = pf_of(jb, n, n);
     size_t i, dd, l;
     if (L == MCDI_VLANES && nv == L) {
-        /* the same rules on registers (kernel_lanes.h) */
-        mcdi_vl bad = {0};
+        /* the same rule on registers: the sum of v * 0 over the rows is
+         * NaN exactly where some v is infinite or NaN (one multiply-add
+         * a row; kernel_lanes.h) */
+        const mcdi_vd zero = {0.0};
+        mcdi_vd nz = zero;
         for (i = 0; i < n * nd; i++)
-            bad |= not_finite_v(load_vrow(d + i * L, grad + i * K, pg));
+            nz += load_vrow(d + i * L, grad + i * K, pg) * zero;
         for (dd = 0; glnP != NULL && dd < nd; dd++)
-            bad |= not_finite_v(load_vrow(v + dd * L, glnP + dd * K, pd));
+            nz += load_vrow(v + dd * L, glnP + dd * K, pd) * zero;
         for (i = 0; kT != NULL && i < n; i++)
-            bad |= not_finite_v(load_vrow(b->kT + i * L, kT + i * K, pn));
+            nz += load_vrow(b->kT + i * L, kT + i * K, pn) * zero;
         for (dd = 0; kT != NULL && dd < nd; dd++)
-            bad |= not_finite_v(load_vrow(b->gT + dd * L, glnT + dd * K, pd));
-        flag_lanes(bl, bad);
+            nz += load_vrow(b->gT + dd * L, glnT + dd * K, pd) * zero;
+        flag_lanes(bl, nz != nz);
         return;
     }
     for (i = 0; i < n * nd; i++) {
@@ -208,33 +211,40 @@ KINLINE void stage_invdiff_dij(const mcdi_bjob *jb, const mcdi_kblock *b,
     double *restrict wk = b->wk;
     size_t i, j, l;
     if (L == MCDI_VLANES && nv == L) {
-        /* the same rules on registers (kernel_lanes.h) */
+        /* the same rules on registers, accumulated over the rows (a few
+         * instructions a row, kernel_lanes.h): nz = sum of v * 0 is NaN
+         * exactly where some v is infinite or NaN, lo the smallest value
+         * (>= DBL_MIN; a lane with a NaN is flagged by nz whatever lo
+         * holds there), bad where |a - b| > 1e-12 max(a, b) */
         mcdi_vd *tri = (mcdi_vd *)(void *)b->tri;
         mcdi_vl bad = {0};
+        const mcdi_vd zero = {0.0}, dmin = zero + DBL_MIN;
+        const mcdi_vl sign = (mcdi_vl)(zero * -1.0); /* -0.0: the sign bit */
+        mcdi_vd nz = zero, lo = zero + DBL_MAX;
         if (jb->dij_upper) {
             for (i = 1; i < n; i++)
                 for (j = 0; j < i; j++) {
                     const mcdi_vd a = load_v(Dij + (j * n + i) * K, pf);
-                    bad |= ~((a >= DBL_MIN) & (a <= DBL_MAX));
+                    nz += a * zero;
+                    lo = min_v(a, lo);
                     tri[i * (i + 1) / 2 + j] = 1.0 / a;
                 }
-            flag_lanes(bl, bad);
+            flag_lanes(bl, (nz != nz) | (lo < dmin));
             return;
         }
         for (i = 1; i < n; i++)
             for (j = 0; j < i; j++) {
                 const mcdi_vd a = load_v(Dij + (j * n + i) * K, pf);
                 const mcdi_vd bb = load_v(Dij + (i * n + j) * K, pf);
-                const mcdi_vl gt = a > bb;
-                /* a > bb ? a : bb, and |a - bb| <= 1e-12 max (NaN fails) */
-                const mcdi_vd mx =
-                    (mcdi_vd)((gt & (mcdi_vl)a) | (~gt & (mcdi_vl)bb));
-                const mcdi_vd df = a - bb, tol = 1e-12 * mx;
-                bad |= ~((a >= DBL_MIN) & (a <= DBL_MAX));
-                bad |= ~((bb >= DBL_MIN) & (bb <= DBL_MAX));
-                bad |= ~((df <= tol) & (df >= -tol));
+                const mcdi_vd mx = max_v(a, bb);
+                const mcdi_vd df = a - bb;
+                const mcdi_vd adf = (mcdi_vd)((mcdi_vl)df & ~sign);
+                nz += df * zero; /* a - b: finite for finite a, b > 0 */
+                lo = min_v(min_v(a, bb), lo);
+                bad |= adf > 1e-12 * mx;
                 tri[i * (i + 1) / 2 + j] = 1.0 / a;
             }
+        bad |= (nz != nz) | (lo < dmin);
         flag_lanes(bl, bad);
         return;
     }
