@@ -188,14 +188,13 @@ KINLINE int mcdi_trace_rows(const mcdi_rows *R, const size_t n, const size_t L,
         /* lane rows: one vector per species (a loop over all n L values
          * left n L mod 2 L of them to scalar square roots: the stage cost
          * 3.7 ns of 20 per cell at N = 3) */
-        for (i = 0; i < n; i++) {
-            int bad = 0;
+        int bad = 0; /* reduced over the lanes once, not per species */
+        for (i = 0; i < n; i++)
             for_lanes_bad (l) {
                 s[i * L + l] = sqrt(x[i * L + l]);
                 bad |= !(x[i * L + l] > 0.0);
             }
-            ntr |= bad;
-        }
+        ntr = bad;
     }
     if (!ntr)
         return 0;
