@@ -132,7 +132,7 @@ static void report_bad_cell(mcdi_bres *res)
  * job asks for it; one predictable branch per stage and block. */
 #define CUT(k)                                                                 \
     do {                                                                       \
-        if (__builtin_expect(jb->cut == (k), 0))                               \
+        if (__builtin_expect(cut == (k), 0))                                   \
             return;                                                            \
     } while (0)
 
@@ -142,12 +142,16 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
 {
     double *const nts = mem - MCDI_STREAM_DOUBLES; /* streaming state */
     const int mass_out = jb->flux_basis == MCD_BASIS_MASS;
+    /* the job's choices read once: stores to the scratch go through a
+     * may_alias type, after which a read of jb->... is a load again */
+    const int cut = jb->cut, model = jb->model;
+    const mcd_mixture *const mix = jb->mix;
     /* iterative model on a power-law mixture: the inverse diffusivities
      * are f_l / coef_ij, used through the shared 1 / coef (Blanc sums,
      * iter_product_c); the per-lane triangle is filled only for the trace
      * coupling of blocks with trace species */
-    const int pl = jb->mix != NULL && !jb->mix_has_omega &&
-                   jb->model == MCD_MODEL_ITERATIVE && L == MCDI_VLANES;
+    const int pl = mix != NULL && !jb->mix_has_omega &&
+                   model == MCD_MODEL_ITERATIVE && L == MCDI_VLANES;
     mcdi_kblock b;
     size_t i;
 
@@ -167,7 +171,7 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
     CUT(3);
     stage_forces(jb, &b, n, L, nd);
     CUT(4);
-    if (jb->mix == NULL && n > 1)
+    if (mix == NULL && n > 1)
         stage_invdiff_dij(jb, &b, bl, k0, nv, n, L);
     if (lanes_any(bl, L)) {
         report_bad_cell(res);
@@ -180,20 +184,20 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
         stage_store(jb, &b, k0, nv, res, n, L, nd);
         return;
     }
-    if (jb->mix != NULL)
+    if (mix != NULL)
         stage_invdiff_mixture(jb, &b, pl, n, L);
     CUT(5);
     stage_blanc(jb, &b, pl, n, L);
     CUT(6);
 
-    if (jb->model == MCD_MODEL_MIXTURE_AVERAGED) {
+    if (model == MCD_MODEL_MIXTURE_AVERAGED) {
         stage_mixavg(&b, n, L, nd);
     } else {
         const int ntr = stage_trace(jb, &b, pl, n, L, nd);
         CUT(7);
         stage_rhs(&b, n, L, nd);
         CUT(8);
-        if (jb->model == MCD_MODEL_MAXWELL_STEFAN) {
+        if (model == MCD_MODEL_MAXWELL_STEFAN) {
             if (!stage_exact(&b, n, L, nd)) {
                 report_not_definite(b.Dg, nv, res, n, L);
                 return;
