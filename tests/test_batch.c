@@ -163,6 +163,48 @@ static double cell_rel(const double *out, size_t K, size_t k, const double *F,
 
 static double worst_dij, worst_mix;
 
+/* The batched call (exact, mole basis, SoA) on all cells of s. */
+static mcd_status batch_cells(mcd_workspace *ws, const cells *s, double *out)
+{
+    return mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, s->n, NULL, s->D,
+                              s->c,
+                              &(mcd_cells){.n_cells = s->K,
+                                           .n_dim = s->nd,
+                                           .comp_basis = MCD_BASIS_MOLE,
+                                           .comp = s->comp,
+                                           .grad = s->grad},
+                              MCD_BASIS_MOLE, out);
+}
+
+/* The single-state call (exact, mole basis) on cell k of s, gathered into
+ * D (N N), x (N), g (N nd); with `upper` the lower triangle of D is the
+ * upper one mirrored, as MCD_DIJ_READ_UPPER reads it. Fluxes into out. */
+static mcd_status single_cell(mcd_workspace *ws, const cells *s, size_t k,
+                              int upper, double *D, double *x, double *g,
+                              double *out)
+{
+    const size_t N = s->n, K = s->K, ND = s->nd;
+    size_t i, j, q;
+    for (q = 0; q < N * N; q++)
+        D[q] = s->D[q * K + k];
+    for (i = 0; upper && i < N; i++)
+        for (j = 0; j < i; j++)
+            D[i * N + j] = D[j * N + i];
+    for (q = 0; q < N; q++)
+        x[q] = s->comp[q * K + k];
+    for (q = 0; q < N * ND; q++)
+        g[q] = s->grad[q * K + k];
+    return mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
+                            &(mcd_state){.n_species = N,
+                                         .n_dim = ND,
+                                         .Dij = D,
+                                         .c = s->c[k],
+                                         .comp_basis = MCD_BASIS_MOLE,
+                                         .comp = x,
+                                         .grad = g},
+                            MCD_BASIS_MOLE, out);
+}
+
 START_TEST(batch_dij_matches_single_state_calls)
 {
     static const size_t Ns[] = {1,  2,  3,  4,  5,  6,  7,  8,  9,  10,
@@ -670,7 +712,7 @@ START_TEST(batch_bad_cells_in_full_and_tail_blocks_are_named)
     cells s;
     double out[N * ND * K];
     mcd_workspace *ws;
-    size_t a, i, q;
+    size_t a, i;
     sup_seed(&rng, 0xBA7C4021ull);
     ck_assert_int_eq(mcd_workspace_new(N, &ws), MCD_OK);
     cells_make(&s, N, K, ND);
@@ -699,14 +741,7 @@ START_TEST(batch_bad_cells_in_full_and_tail_blocks_are_named)
             char want[32], batched[256];
             mcd_status st;
             *bad[i].p = bad[i].v;
-            st = mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, N, NULL, s.D,
-                                    s.c,
-                                    &(mcd_cells){.n_cells = K,
-                                                 .n_dim = ND,
-                                                 .comp_basis = MCD_BASIS_MOLE,
-                                                 .comp = s.comp,
-                                                 .grad = s.grad},
-                                    MCD_BASIS_MOLE, out);
+            st = batch_cells(ws, &s, out);
             ck_assert_msg(st == bad[i].st, "cell %zu case %zu: status %d", k, i,
                           (int)st);
             snprintf(want, sizeof want, "cell %zu: ", k);
@@ -715,23 +750,8 @@ START_TEST(batch_bad_cells_in_full_and_tail_blocks_are_named)
             snprintf(batched, sizeof batched, "%s",
                      mcd_last_error() + strlen(want));
             /* the same words as the single-state call on that cell */
-            for (q = 0; q < N * N; q++)
-                Dc[q] = s.D[q * K + k];
-            for (q = 0; q < N; q++)
-                xc[q] = s.comp[q * K + k];
-            for (q = 0; q < N * ND; q++)
-                gc[q] = s.grad[q * K + k];
-            ck_assert_int_eq(
-                mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
-                                 &(mcd_state){.n_species = N,
-                                              .n_dim = ND,
-                                              .Dij = Dc,
-                                              .c = s.c[k],
-                                              .comp_basis = MCD_BASIS_MOLE,
-                                              .comp = xc,
-                                              .grad = gc},
-                                 MCD_BASIS_MOLE, oc),
-                bad[i].st);
+            ck_assert_int_eq(single_cell(ws, &s, k, 0, Dc, xc, gc, oc),
+                             bad[i].st);
             ck_assert_str_eq(batched, mcd_last_error());
             *bad[i].p = keep;
         }
@@ -753,7 +773,7 @@ END_TEST
 START_TEST(batch_edge_inputs_are_judged_as_by_the_single_state_call)
 {
     const size_t ns[] = {3, 10}, K = 27, ND = 3;
-    size_t in, a, i, q, up;
+    size_t in, a, i, up;
     for (in = 0; in < 2; in++) {
         const size_t N = ns[in];
         const size_t at[] = {9, 25};
@@ -800,34 +820,10 @@ START_TEST(batch_edge_inputs_are_judged_as_by_the_single_state_call)
                         mcd_workspace_set_dij_read(ws, up ? MCD_DIJ_READ_UPPER
                                                           : MCD_DIJ_READ_BOTH),
                         MCD_OK);
-                    st = mcd_flux_batch_dij(
-                        ws, MCD_MODEL_MAXWELL_STEFAN, N, NULL, s.D, s.c,
-                        &(mcd_cells){.n_cells = K,
-                                     .n_dim = ND,
-                                     .comp_basis = MCD_BASIS_MOLE,
-                                     .comp = s.comp,
-                                     .grad = s.grad},
-                        MCD_BASIS_MOLE, out);
+                    st = batch_cells(ws, &s, out);
                     snprintf(want, sizeof want, "cell %zu: ", k);
                     snprintf(batched, sizeof batched, "%s", mcd_last_error());
-                    for (q = 0; q < N * N; q++)
-                        Dc[q] = s.D[q * K + k];
-                    if (up) /* the single-state call reads both */
-                        Dc[1 * N + 0] = Dc[0 * N + 1];
-                    for (q = 0; q < N; q++)
-                        xc[q] = s.comp[q * K + k];
-                    for (q = 0; q < N * ND; q++)
-                        gc[q] = s.grad[q * K + k];
-                    st1 = mcd_flux_compute(
-                        ws, MCD_MODEL_MAXWELL_STEFAN,
-                        &(mcd_state){.n_species = N,
-                                     .n_dim = ND,
-                                     .Dij = Dc,
-                                     .c = s.c[k],
-                                     .comp_basis = MCD_BASIS_MOLE,
-                                     .comp = xc,
-                                     .grad = gc},
-                        MCD_BASIS_MOLE, oc);
+                    st1 = single_cell(ws, &s, k, (int)up, Dc, xc, gc, oc);
                     ck_assert_msg(st == st1,
                                   "N %zu cell %zu case %zu read %zu: batched "
                                   "%d (%s), single %d (%s)",
