@@ -294,6 +294,22 @@ static void job_init(mcdi_bjob *jb, const mcd_workspace *ws, mcd_model model,
               cl->grad_lnP != NULL;
 }
 
+/* Input rows a cell reads. */
+static size_t job_rows(const mcdi_bjob *jb)
+{
+    const size_t n = jb->n, nd = jb->nd;
+    size_t rows = n + n * nd; /* comp, grad */
+    if (jb->Dij != NULL)
+        rows += 1 + (jb->dij_upper ? n * (n - 1) / 2 : n * n);
+    else
+        rows += 2; /* T, P */
+    if (jb->glnP != NULL)
+        rows += nd;
+    if (jb->kT != NULL)
+        rows += n + nd;
+    return rows;
+}
+
 /* Whether the kernels stagger the prefetches of the SoA rows
  * (kernel_lanes.h, pf_stagger): rows a multiple of 128 bytes apart (K a
  * multiple of 16) and many of them read per cell (MCDI_STAG_ROWS, at
@@ -308,19 +324,26 @@ static void job_init(mcdi_bjob *jb, const mcd_workspace *ws, mcd_model model,
  * N = 10 (counted by single-stepping one call). */
 static int stagger_choice(const mcd_workspace *ws, const mcdi_bjob *jb)
 {
-    const size_t n = jb->n, nd = jb->nd;
-    size_t rows = n + n * nd; /* comp, grad */
-    if (jb->Dij != NULL)
-        rows += 1 + (jb->dij_upper ? n * (n - 1) / 2 : n * n);
-    else
-        rows += 2; /* T, P */
-    if (jb->glnP != NULL)
-        rows += nd;
-    if (jb->kT != NULL)
-        rows += n + nd;
-    return !jb->tiled && jb->K % 16 == 0 && n >= MCDI_STAG_NMIN &&
-           rows >= MCDI_STAG_ROWS && !ws->stagger_off &&
+    return !jb->tiled && jb->K % 16 == 0 && jb->n >= MCDI_STAG_NMIN &&
+           job_rows(jb) >= MCDI_STAG_ROWS && !ws->stagger_off &&
            mcdi_batch_beyond_cache(job_bytes(jb));
+}
+
+/* Whether the kernels prefetch into L2 only (prefetcht1): the Dij call
+ * with many input rows a cell, where 8 blocks ahead of every row is more
+ * than L1 holds (72 rows x 8 blocks x 64 bytes = 36 KiB of a 48 KiB L1;
+ * lines prefetched into L1 evicted before their use is the likely cause,
+ * not observed: no counters on this VM). Measured (tools/anchor.sh, A/B
+ * of one build, 2 runs): streamed SoA N = 7 0.48 -> 0.55 of the
+ * reference, 10 0.45 -> 0.51, 20 0.52 -> 0.60-0.63, 50 0.58 -> 0.65;
+ * tiled N = 10 0.66 -> 0.69, 20 0.69 -> 0.72-0.74; in cache level
+ * (0.38-0.40 at N = 10, 0.52-0.56 at 20, both ways). Not the mixture
+ * call, which computes its Dij: at N = 20 streamed (bench_flux 5 20)
+ * 2.75-2.84e6 cells/s without, 2.67-2.74e6 with. */
+static int pf_l2_choice(const mcdi_bjob *jb)
+{
+    return jb->Dij != NULL && jb->n >= MCDI_STAG_NMIN &&
+           job_rows(jb) >= MCDI_STAG_ROWS;
 }
 
 /* Run a job on the caller's (SoA) arrays. */
@@ -330,6 +353,7 @@ static mcd_status run_soa(mcd_workspace *ws, mcdi_bjob *jb)
         return MCD_OK;
     jb->stream = stream_choice(jb);
     jb->stagger = stagger_choice(ws, jb);
+    jb->pf_l2 = pf_l2_choice(jb);
     return run_job(ws, jb);
 }
 

@@ -22,9 +22,10 @@
  * one cell at a time (lanes = 1), through the same stages. */
 #define MCDI_LANES_NMAX 128
 
-/* The staggered prefetch of SoA rows (batch.c, stagger_choice): at least
- * this many species (a compile-time constant of the kernels, so that the
- * small-n instances fold it away) and input rows per cell. */
+/* The staggered prefetch of SoA rows (batch.c, stagger_choice) and the
+ * prefetch into L2 only (pf_l2): at least this many species (a
+ * compile-time constant of the kernels, so that the small-n instances
+ * fold it away) and input rows per cell. */
 #define MCDI_STAG_NMIN 7
 #define MCDI_STAG_ROWS 72
 
@@ -37,6 +38,8 @@ typedef struct mcdi_bjob {
     size_t n, nd, K;
     size_t rs;   /* row stride: K (SoA) or 8 (tiled) */
     int tiled;   /* MCD_LAYOUT_TILED8 */
+    int pf_l2;   /* prefetch the inputs into L2, not L1 (kernel_lanes.h,
+                  * pf_of; batch.c, run_soa) */
     int stagger; /* stagger the prefetches of the SoA rows (kernel_lanes.h,
                   * pf_stagger; batch.c, stagger_choice) */
     int model;   /* mcd_model */

@@ -87,6 +87,7 @@ KINLINE size_t pf_stagger(const double *p)
 typedef struct mcdi_pf {
     size_t dist; /* doubles ahead */
     int stag;    /* add pf_stagger of the row's address */
+    int l2;      /* into L2 only (jb->pf_l2) */
 } mcdi_pf;
 
 /* For an array of Q rows of a job of n species (n = 0 for the per-cell
@@ -97,12 +98,17 @@ KINLINE mcdi_pf pf_of(const mcdi_bjob *jb, size_t Q, size_t n)
     mcdi_pf p;
     p.dist = jb->tiled ? MCDI_PREFETCH * Q : MCDI_PREFETCH;
     p.stag = !jb->tiled && n >= MCDI_STAG_NMIN && jb->stagger;
+    p.l2 = n >= MCDI_STAG_NMIN && jb->pf_l2;
     return p;
 }
 
 KINLINE void prefetch_row(const double *src, const mcdi_pf pf)
 {
-    __builtin_prefetch(src + pf.dist + (pf.stag ? pf_stagger(src) : 0), 0, 3);
+    const double *const t = src + pf.dist + (pf.stag ? pf_stagger(src) : 0);
+    if (pf.l2)
+        __builtin_prefetch(t, 0, 2); /* prefetcht1 */
+    else
+        __builtin_prefetch(t, 0, 3); /* prefetcht0 */
 }
 
 /* Load row src[k0 .. k0+nv-1] into dst[0..L-1], padding with src[k0];
@@ -113,7 +119,8 @@ KINLINE void load_row(double *restrict dst, const double *restrict src,
     size_t l;
     /* the next blocks of this input stream (a few dozen streams at once
      * are more than the hardware prefetchers follow), into every cache
-     * level (prefetcht0): the non-temporal hint (prefetchnta) kept the
+     * level (prefetcht0; into L2 only for the Dij call with many rows,
+     * pf_of): the non-temporal hint (prefetchnta) kept the
      * lines out of L2, so inputs that fit in the caches came from L3 on
      * every call; on the Intel AVX-512 host t0 ran N = 10 1.7x and N = 3
      * streamed 1.3x faster than nta (issue 15, A/B in DEVELOPERS.md) */
