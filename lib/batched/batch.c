@@ -337,13 +337,16 @@ static int stagger_choice(const mcd_workspace *ws, const mcdi_bjob *jb)
  * of one build, 2 runs): streamed SoA N = 7 0.48 -> 0.55 of the
  * reference, 10 0.45 -> 0.51, 20 0.52 -> 0.60-0.63, 50 0.58 -> 0.65;
  * tiled N = 10 0.66 -> 0.69, 20 0.69 -> 0.72-0.74; in cache level
- * (0.38-0.40 at N = 10, 0.52-0.56 at 20, both ways). Not the mixture
+ * (0.38-0.40 at N = 10, 0.52-0.56 at 20, both ways), but at N = 100
+ * with 5.5 MB of cells (in L3) 1.41-1.45 -> 1.36-1.38: so only when the
+ * call's data is at least the last-level cache, as the stagger. Not the mixture
  * call, which computes its Dij: at N = 20 streamed (bench_flux 5 20)
  * 2.75-2.84e6 cells/s without, 2.67-2.74e6 with. */
 static int pf_l2_choice(const mcdi_bjob *jb)
 {
     return jb->Dij != NULL && jb->n >= MCDI_STAG_NMIN &&
-           job_rows(jb) >= MCDI_STAG_ROWS;
+           job_rows(jb) >= MCDI_STAG_ROWS &&
+           mcdi_batch_beyond_cache(job_bytes(jb));
 }
 
 /* Run a job on the caller's (SoA) arrays. */
