@@ -63,6 +63,7 @@
 #include <stdint.h>
 #include <string.h>
 
+#include "base/checks.h" /* MCDI_DIJ_SYM_TOL, shared with the re-check */
 #include "base/mcd_internal.h"
 #include "props/mixture.h"
 #include "batched/batch.h"

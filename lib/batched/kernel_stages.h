@@ -215,7 +215,7 @@ KINLINE void stage_invdiff_dij(const mcdi_bjob *jb, const mcdi_kblock *b,
          * instructions a row, kernel_lanes.h): nz = sum of v * 0 is NaN
          * exactly where some v is infinite or NaN, lo the smallest value
          * (>= DBL_MIN; a lane with a NaN is flagged by nz whatever lo
-         * holds there), bad where |a - b| > 1e-12 max(a, b) */
+         * holds there), bad where |a - b| > MCDI_DIJ_SYM_TOL max(a, b) */
         mcdi_vd *tri = (mcdi_vd *)(void *)b->tri;
         mcdi_vl bad = {0};
         const mcdi_vd zero = {0.0}, dmin = zero + DBL_MIN;
@@ -241,7 +241,7 @@ KINLINE void stage_invdiff_dij(const mcdi_bjob *jb, const mcdi_kblock *b,
                 const mcdi_vd adf = (mcdi_vd)((mcdi_vl)df & ~sign);
                 nz += df * zero; /* a - b: finite for finite a, b > 0 */
                 lo = min_v(min_v(a, bb), lo);
-                bad |= adf > 1e-12 * mx;
+                bad |= adf > MCDI_DIJ_SYM_TOL * mx;
                 tri[i * (i + 1) / 2 + j] = 1.0 / a;
             }
         bad |= (nz != nz) | (lo < dmin);
@@ -267,7 +267,7 @@ KINLINE void stage_invdiff_dij(const mcdi_bjob *jb, const mcdi_kblock *b,
                 double a = q[l], bb = wk[l], m = a > bb ? a : bb;
                 bl[l] |= !((a >= DBL_MIN) & (a <= DBL_MAX));
                 bl[l] |= !((bb >= DBL_MIN) & (bb <= DBL_MAX));
-                bl[l] |= !(fabs(a - bb) <= 1e-12 * m);
+                bl[l] |= !(fabs(a - bb) <= MCDI_DIJ_SYM_TOL * m);
                 q[l] = 1.0 / a;
             }
         }
