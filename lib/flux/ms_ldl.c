@@ -65,6 +65,12 @@
 #define SIMD_LOOP
 #endif
 
+#if defined(__GNUC__) && !defined(__clang__)
+#define UNROLL4 _Pragma("GCC unroll 4")
+#else
+#define UNROLL4
+#endif
+
 /* The back substitution L^T u = z after D z = y for nd = 3, in place in
  * Y (m x 3 row-major, y in): row by row from the last, each u_i a chain
  * of multiply-adds in registers over the row of L^T in the upper triangle
@@ -385,8 +391,18 @@ size_t RNAME(MCDI_KISA)(const mcdi_rows *R, const mcdi_dense *D,
  * MCDI_MS_FUSED_N species (see maxwell_stefan.c): the Blanc sums, the
  * shift, the assembly and the right-hand side fused into a few passes
  * over the dense A (the stages cost 4-8 % more there, measured), then
- * the same ldl_dense. */
-size_t MSNAME(MCDI_KISA)(size_t m, size_t nd, const double *xp,
+ * the same ldl_dense; nd a constant at each call (below).
+ *
+ * 1/Đ is packed by rows of the lower triangle (T, row i at i(i-1)/2:
+ * R_ij = 1/Đ_ji, j < i, from the upper triangle of Dp as the batched
+ * kernel), so that every loop after the packing runs over contiguous
+ * rows: the Blanc sums as a dot product and an update per row, the
+ * assembly as a row (loops of a few entries: unrolled by four rather
+ * than vectorised, whose set-up costs more there). Each S_i is summed in
+ * the order j = 0, 1, ..., m - 1 (j != i), the batched kernel's, so the
+ * same bits. (Packed by rows of the upper triangle, the assembly read T
+ * with a stride that changed every step.) */
+MINLINE size_t fused_ldl(size_t m, const size_t nd, const double *xp,
                          const double *Dp, size_t ld, const double *dp,
                          double c, double *A, double *T, double *sq,
                          double *isq, double *S, double *dinv, double *Y,
@@ -401,63 +417,93 @@ size_t MSNAME(MCDI_KISA)(size_t m, size_t nd, const double *xp,
     for (i = 0; i < m; i++) {
         sq[i] = sqrt(xp[i]);
         isq[i] = 1.0 / sq[i];
-        S[i] = 0.0;
     }
-    /* reciprocals R_kl (l > k), packed row by row into T (m(m-1)/2
-     * entries) and then divided in one vectorised pass: per row of Dp the
-     * short rows left most of the divisions to scalar epilogues (the
-     * divider is the limit there) */
+    /* the reciprocals R_ij: copied column by column of the upper triangle
+     * and then divided in one vectorised pass (per row the short rows
+     * left most of the divisions to scalar epilogues; the divider is the
+     * limit there) */
     if (m >= 6) {
-        for (i = 0, k = 0; i + 1 < m; i++) {
-            const double *Di = Dp + i * ld;
-            for (j = i + 1; j < m; j++)
-                T[k++] = Di[j];
+        for (i = 1, k = 0; i < m; i++) {
+            const double *Dc = Dp + i;
+            UNROLL4
+            for (j = 0; j < i; j++, k++)
+                T[k] = Dc[j * ld];
         }
         SIMD_LOOP
         for (j = 0; j < k; j++)
             T[j] = 1.0 / T[j];
     } else { /* a few pairs: the copy costs more than it saves */
-        for (i = 0, k = 0; i + 1 < m; i++)
-            for (j = i + 1; j < m; j++)
-                T[k++] = 1.0 / Dp[i * ld + j];
+        for (i = 1, k = 0; i < m; i++)
+            for (j = 0; j < i; j++)
+                T[k++] = 1.0 / Dp[j * ld + i];
     }
-    /* Blanc sums S_i = sum_{j != i} x_j R_ij */
-    for (i = 0, k = 0; i + 1 < m; i++) {
-        const double xi = xp[i];
-        double t = S[i];
-        for (j = i + 1; j < m; j++, k++) {
-            t += xp[j] * T[k];
-            S[j] += xi * T[k];
-        }
+    /* Blanc sums S_i = sum_{j != i} x_j R_ij: row i of T gives the terms
+     * j < i of S_i (first, in order) and the term j = i of every S_j,
+     * j < i (after their own rows, in order of i) */
+    S[0] = 0.0;
+    for (i = 1, k = 0; i < m; k += i, i++) {
+        const double *Ti = T + k, xi = xp[i];
+        double t = 0.0;
+        UNROLL4
+        for (j = 0; j < i; j++)
+            t += xp[j] * Ti[j];
+        UNROLL4
+        for (j = 0; j < i; j++)
+            S[j] += xi * Ti[j];
         S[i] = t;
     }
     for (i = 0; i < m; i++)
         if (S[i] > a)
             a = S[i];
-    /* A = Gs + a s s^T into the lower triangle and the diagonal (R_ji,
-     * j < i, at T[k]: k starts at i - 1 and steps by the length of row j
-     * less one); the right-hand side -d_k / s_k into Y (m x nd,
-     * row-major) */
-    for (i = 0; i < m; i++) {
-        double *Ai = A + i * m, si = sq[i];
-        for (j = 0, k = i - 1; j < i; k += m - 2 - j, j++)
-            Ai[j] = si * sq[j] * (a - T[k]);
+    /* A = Gs + a s s^T into the lower triangle and the diagonal; the
+     * right-hand side -d_k / s_k into Y (m x nd, row-major) */
+    for (i = 0, k = 0; i < m; k += i, i++) {
+        double *Ai = A + i * m;
+        const double si = sq[i], *Ti = T + k;
+        UNROLL4
+        for (j = 0; j < i; j++)
+            Ai[j] = si * sq[j] * (a - Ti[j]);
         Ai[i] = S[i] + a * xp[i];
-        for (dd = 0; dd < nd; dd++)
-            Y[i * nd + dd] = -dp[i * nd + dd] * isq[i];
+        if (nd == 3) { /* unrolled (-O2 keeps even this loop) */
+            Y[3 * i] = -dp[3 * i] * isq[i];
+            Y[3 * i + 1] = -dp[3 * i + 1] * isq[i];
+            Y[3 * i + 2] = -dp[3 * i + 2] * isq[i];
+        } else {
+            for (dd = 0; dd < nd; dd++)
+                Y[i * nd + dd] = -dp[i * nd + dd] * isq[i];
+        }
     }
     {
-        /* nd = 3 as a constant: the fused forward substitution */
-        size_t bad = nd == 3 ? ldl_dense(m, 3, A, dinv, Y, Yt, 0)
-                             : ldl_dense(m, nd, A, dinv, Y, Yt, 0);
+        size_t bad = ldl_dense(m, nd, A, dinv, Y, Yt, 0);
         if (bad != 0)
             return bad;
     }
     /* J = c (s U), in this order: s U is at most U, while c s can
      * underflow (c near DBL_MIN, a near-trace species) and lose a flux
      * the others balance (found by fuzz_flux: c = 7e-304, x = 1.6e-60) */
-    for (i = 0; i < m; i++)
-        for (dd = 0; dd < nd; dd++)
-            Y[i * nd + dd] = c * (sq[i] * Y[i * nd + dd]);
+    for (i = 0; i < m; i++) {
+        if (nd == 3) {
+            Y[3 * i] = c * (sq[i] * Y[3 * i]);
+            Y[3 * i + 1] = c * (sq[i] * Y[3 * i + 1]);
+            Y[3 * i + 2] = c * (sq[i] * Y[3 * i + 2]);
+        } else {
+            for (dd = 0; dd < nd; dd++)
+                Y[i * nd + dd] = c * (sq[i] * Y[i * nd + dd]);
+        }
+    }
     return 0;
+}
+
+size_t MSNAME(MCDI_KISA)(size_t m, size_t nd, const double *xp,
+                         const double *Dp, size_t ld, const double *dp,
+                         double c, double *A, double *T, double *sq,
+                         double *isq, double *S, double *dinv, double *Y,
+                         double *Yt)
+{
+    /* nd = 3 as a constant: the fused forward substitution, the
+     * right-hand side and the fluxes unrolled over the directions */
+    if (nd == 3)
+        return fused_ldl(m, 3, xp, Dp, ld, dp, c, A, T, sq, isq, S, dinv, Y,
+                         Yt);
+    return fused_ldl(m, nd, xp, Dp, ld, dp, c, A, T, sq, isq, S, dinv, Y, Yt);
 }
