@@ -761,9 +761,28 @@ START_TEST(batch_bad_cells_in_full_and_tail_blocks_are_named)
 }
 END_TEST
 
+/* A pair (a, b), b < a, near a0 in [1, 2) scaled by 2^e, whose
+ * difference equals the symmetry tolerance exactly as both checks
+ * compute it: |a - b| == fl(1e-12 max(a, b)). The tolerance p = fl(1e-12
+ * a) is chosen a multiple of the spacing of the doubles in [1, 2) (so
+ * that a - p is exact) and a found near p / 1e-12 with fl(1e-12 a) == p;
+ * scaling by a power of two keeps every equality. */
+static void pair_at_tolerance(double a0, int e, double *a, double *b)
+{
+    const double t = 1e-12, q = nearbyint(t * a0 / 0x1p-52), p = q * 0x1p-52;
+    double c = p / t;
+    int k;
+    for (k = 0; k < 100000 && t * c != p; k++)
+        c = p / t + (k % 2 ? 1.0 : -1.0) * (double)(k / 2 + 1) * 0x1p-52;
+    ck_assert_msg(t * c == p, "no pair at the tolerance near %g", a0);
+    ck_assert(fabs(c - (c - p)) == t * c);
+    *a = ldexp(c, e);
+    *b = ldexp(c - p, e);
+}
+
 /* Inputs at the edges of the rules (Dij at DBL_MAX and DBL_MIN, a pair's
- * asymmetry within one rounding of the 1e-12 tolerance, gradients of
- * DBL_MAX): the batched call must judge every cell as the single-state
+ * asymmetry within one rounding of the 1e-12 tolerance and exactly at it,
+ * gradients of DBL_MAX): the batched call must judge every cell as the single-state
  * call does (same status, same words), in a full block and the tail,
  * in the small-N instance and the generic one, with either Dij read.
  * The kernel's loading checks are accumulated over rows (kernel_stages.h);
@@ -791,7 +810,7 @@ START_TEST(batch_edge_inputs_are_judged_as_by_the_single_state_call)
             const size_t k = at[a];
             double *const d01 = &s.D[(0 * N + 1) * K + k];
             double *const d10 = &s.D[(1 * N + 0) * K + k];
-            for (i = 0; i < 40; i++) {
+            for (i = 0; i < 44; i++) {
                 const double keep01 = *d01, keep10 = *d10,
                              keepg = s.grad[2 * K + k];
                 /* i = 0..3 the range edges, then asymmetries around
@@ -805,7 +824,19 @@ START_TEST(batch_edge_inputs_are_judged_as_by_the_single_state_call)
                     va = vb = nextafter(DBL_MIN, 0.0);
                 else if (i == 3)
                     s.grad[2 * K + k] = -DBL_MAX;
-                else {
+                else if (i >= 40) {
+                    /* exactly at the tolerance (good: the rule is <=),
+                     * then one ulp beyond it (bad); either entry the
+                     * larger */
+                    pair_at_tolerance(1.0 + 0.2 * (double)a, -17, &va, &vb);
+                    if (i % 2)
+                        vb = nextafter(vb, 0.0);
+                    if (i >= 42) {
+                        const double tmp = va;
+                        va = vb;
+                        vb = tmp;
+                    }
+                } else {
                     const double r =
                         1e-12 * (1.0 + (double)((int)i - 22) * 2.2e-16);
                     va = sup_decades(&rng, -8.0, 2.0);
@@ -829,6 +860,10 @@ START_TEST(batch_edge_inputs_are_judged_as_by_the_single_state_call)
                                   "%d (%s), single %d (%s)",
                                   N, k, i, up, (int)st, batched, (int)st1,
                                   mcd_last_error());
+                    if (i >= 40) /* at the tolerance, or beyond it */
+                        ck_assert_msg(st == (i % 2 && !up ? MCD_EDOM : MCD_OK),
+                                      "N %zu case %zu read %zu: %d (%s)", N, i,
+                                      up, (int)st, batched);
                     if (strncmp(mcd_last_error(), "argument", 8) == 0) {
                         /* an input rule: the same words (the results'
                          * failures, ESING and fluxes not finite, are
