@@ -703,12 +703,15 @@ END_TEST
 /* The loading stages check a full block of lanes in registers and the
  * tail block lane by lane: a bad input in either gives the status and the
  * words of the single-state call on that cell, and the lowest bad cell is
- * named. K = 27: cell 9 lies in a full block for 2, 4 and 8 lanes, cell 25
- * in the tail for 4 and 8 lanes. Exact model, 3 directions. */
+ * named. K = 27: cells 3 and 9 lie in full blocks for 2, 4 and 8 lanes
+ * (N = 3 runs full blocks two at a time: cell 3 is in the first block of
+ * a pair for 4 and 8 lanes, in the second for 2; cell 9 in the second for
+ * 8 lanes, the first for 4), cell 25 in the tail for 4 and 8 lanes. Exact
+ * model, 3 directions. */
 START_TEST(batch_bad_cells_in_full_and_tail_blocks_are_named)
 {
     enum { N = 3, K = 27, ND = 3 };
-    const size_t at[] = {9, 25};
+    const size_t at[] = {3, 9, 25};
     cells s;
     double out[N * ND * K];
     mcd_workspace *ws;

@@ -47,6 +47,12 @@ size_t mcdi_batch_scratch_doubles(size_t cap)
     const size_t nl = cap < MCDI_LANES_NMAX ? cap : MCDI_LANES_NMAX;
     size_t need = mcdi_kblock_doubles(nl, MCD_MAX_DIM, MCDI_LANES) +
                   mcdi_aos_doubles(nl, MCD_MAX_DIM, MCDI_LANES);
+    {
+        /* two blocks at once up to MCDI_PAIR_NMAX species (batch.h) */
+        const size_t np = cap < MCDI_PAIR_NMAX ? cap : MCDI_PAIR_NMAX,
+                     two = 2 * mcdi_kblock_doubles(np, MCD_MAX_DIM, MCDI_LANES);
+        need = two > need ? two : need;
+    }
     if (cap > MCDI_LANES_NMAX) {
         size_t one = mcdi_kblock_doubles(cap, MCD_MAX_DIM, 1) +
                      mcdi_aos_doubles(cap, MCD_MAX_DIM, 1);

@@ -22,6 +22,14 @@
  * one cell at a time (lanes = 1), through the same stages. */
 #define MCDI_LANES_NMAX 128
 
+/* Up to this many species the kernel runs full blocks of the exact model
+ * (Đ per cell, mole fluxes) two at a time, stage by stage (body2 in
+ * batch_kernel.c), so a thread's scratch holds two such blocks
+ * (mcdi_batch_scratch_doubles). 0 turns it off (for A/B timings). */
+#ifndef MCDI_PAIR_NMAX
+#define MCDI_PAIR_NMAX 3
+#endif
+
 /* The staggered prefetch of SoA rows (batch.c, stagger_choice) and the
  * prefetch into L2 only (pf_l2): at least this many species (a
  * compile-time constant of the kernels, so that the small-n instances

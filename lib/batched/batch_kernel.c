@@ -225,6 +225,68 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
     stage_store(jb, &b, k0, nv, res, n, L, nd);
 }
 
+/* Two full blocks at k0 and k0 + L of the exact model with Đ per cell
+ * and mole fluxes (n <= MCDI_PAIR_NMAX, batch.h): each stage of the first
+ * block, then the same stage of the second, so that the work of the two
+ * can overlap (A/B against one block at a time, tools/anchor.sh, three
+ * alternating runs on the AVX-512 host: N = 2 0.16-0.17 -> 0.21-0.23 of
+ * the reference in cache, N = 3 0.27-0.28 -> 0.28-0.29 in cache and
+ * 1.01-1.03 -> 1.09-1.15 streamed; N = 4 and 5 were slower this way, 4-10
+ * %). The second block's scratch follows the first's. Returns 1 when both
+ * blocks are stored; 2 or 3 when the first or the second block's fluxes
+ * are not finite (res set by stage_store as in body(); the first block is
+ * stored before the second is reported); 0 when a loading check or a pivot
+ * failed, before anything was stored: the caller then runs body() on
+ * each block, which reports as always. */
+KINLINE int body2(const mcdi_bjob *jb, size_t k0, double *mem, const size_t n,
+                  const size_t L, const size_t nd, mcdi_bres *res)
+{
+    double *const nts = mem - MCDI_STREAM_DOUBLES;
+    mcdi_kblock b1, b2;
+    long long bl1[MCDI_LANES] = {0}, bl2[MCDI_LANES] = {0};
+    int ntr1, ntr2;
+    mcdi_kblock_carve(mem, n, nd, L, &b1);
+    mcdi_kblock_carve(mem + mcdi_kblock_doubles(n, nd, L), n, nd, L, &b2);
+    stage_load_scalars(jb, &b1, bl1, k0, L, L);
+    stage_load_scalars(jb, &b2, bl2, k0 + L, L, L);
+    stage_load_comp(jb, &b1, bl1, k0, L, n, L);
+    stage_load_comp(jb, &b2, bl2, k0 + L, L, n, L);
+    stage_fractions(jb, &b1, n, L);
+    stage_fractions(jb, &b2, n, L);
+    stage_load_forces(jb, &b1, bl1, k0, L, n, L, nd);
+    stage_load_forces(jb, &b2, bl2, k0 + L, L, n, L, nd);
+    stage_forces(jb, &b1, n, L, nd);
+    stage_forces(jb, &b2, n, L, nd);
+    stage_invdiff_dij(jb, &b1, bl1, k0, L, n, L);
+    stage_invdiff_dij(jb, &b2, bl2, k0 + L, L, n, L);
+    if (lanes_any(bl1, L) | lanes_any(bl2, L))
+        return 0;
+    stage_blanc(jb, &b1, 0, n, L);
+    stage_blanc(jb, &b2, 0, n, L);
+    ntr1 = stage_trace(jb, &b1, 0, n, L, nd);
+    ntr2 = stage_trace(jb, &b2, 0, n, L, nd);
+    stage_rhs(&b1, n, L, nd);
+    stage_rhs(&b2, n, L, nd);
+    if (!(stage_exact(&b1, n, L, nd) & stage_exact(&b2, n, L, nd)))
+        return 0;
+    if (!emit_mole_v(n, nd, (const mcdi_vd *)b1.s, (const mcdi_vd *)b1.x,
+                     (const mcdi_vd *)b1.r, (const mcdi_vd *)b1.t, ntr1,
+                     *(const mcdi_vd *)b1.c, (mcdi_vd *)b1.J, jb, k0, nts)) {
+        stage_store(jb, &b1, k0, L, res, n, L, nd);
+        if (res->st != MCD_OK)
+            return 2;
+    }
+    if (!emit_mole_v(n, nd, (const mcdi_vd *)b2.s, (const mcdi_vd *)b2.x,
+                     (const mcdi_vd *)b2.r, (const mcdi_vd *)b2.t, ntr2,
+                     *(const mcdi_vd *)b2.c, (mcdi_vd *)b2.J, jb, k0 + L,
+                     nts)) {
+        stage_store(jb, &b2, k0 + L, L, res, n, L, nd);
+        if (res->st != MCD_OK)
+            return 3;
+    }
+    return 1;
+}
+
 /* Cells [kb, ke) in blocks of L from kb (the last one may be short):
  * the block loop of mcdi_batch_blocks (batch.h), here so that a block
  * costs no call, dispatch or function prologue of its own. */
@@ -233,8 +295,21 @@ KINLINE size_t run_blocks(const mcdi_bjob *jb, size_t kb, size_t ke,
                           const size_t L, const size_t nd)
 {
     double err = 0.0;
-    size_t used = 0, k0;
-    for (k0 = kb; k0 < ke; k0 += L) {
+    size_t used = 0, k0 = kb;
+    if (L == MCDI_VLANES && n >= 2 && n <= MCDI_PAIR_NMAX && jb->mix == NULL &&
+        jb->model == MCD_MODEL_MAXWELL_STEFAN &&
+        jb->flux_basis == MCD_BASIS_MOLE && jb->cut == 0)
+        for (; k0 + 2 * L <= ke; k0 += 2 * L) {
+            mcdi_bres r = {MCD_OK, 0, "", 0, 0.0, 0};
+            const int got = body2(jb, k0, mem, n, L, nd, &r);
+            if (got == 2 || got == 3) {
+                *res = r;
+                return got == 2 ? k0 : k0 + L;
+            }
+            if (got == 0)
+                break; /* the blocks one at a time from here */
+        }
+    for (; k0 < ke; k0 += L) {
         const size_t nv = ke - k0 < L ? ke - k0 : L;
         mcdi_bres r = {MCD_OK, 0, "", 0, 0.0, 0};
         body(jb, k0, nv, mem, &r, n, L, nd);
