@@ -205,6 +205,35 @@ static mcd_status single_cell(mcd_workspace *ws, const cells *s, size_t k,
                             MCD_BASIS_MOLE, out);
 }
 
+/* A set of N-species cells with the buffers to run the batched call on
+ * all of them (out) and the single-state call on one (Dc, xc, gc, oc),
+ * and a workspace for both. */
+typedef struct cellset {
+    cells s;
+    double *out, *Dc, *xc, *gc, *oc;
+    mcd_workspace *ws;
+} cellset;
+
+static void cellset_make(cellset *c, size_t N, size_t K, size_t ND,
+                         uint64_t seed)
+{
+    sup_seed(&rng, seed);
+    c->out = xmalloc(N * ND * K * sizeof(double));
+    c->Dc = xmalloc(N * N * sizeof(double));
+    c->xc = xmalloc(N * sizeof(double));
+    c->gc = xmalloc(N * ND * sizeof(double));
+    c->oc = xmalloc(N * ND * sizeof(double));
+    ck_assert_int_eq(mcd_workspace_new(N, &c->ws), MCD_OK);
+    cells_make(&c->s, N, K, ND);
+}
+
+static void cellset_free(cellset *c)
+{
+    cells_free(&c->s);
+    free(c->out), free(c->Dc), free(c->xc), free(c->gc), free(c->oc);
+    mcd_workspace_free(c->ws);
+}
+
 START_TEST(batch_dij_matches_single_state_calls)
 {
     static const size_t Ns[] = {1,  2,  3,  4,  5,  6,  7,  8,  9,  10,
@@ -799,23 +828,16 @@ START_TEST(batch_edge_inputs_are_judged_as_by_the_single_state_call)
     for (in = 0; in < 2; in++) {
         const size_t N = ns[in];
         const size_t at[] = {9, 25};
-        cells s;
-        double *out = xmalloc(N * ND * K * sizeof(double));
-        double *Dc = xmalloc(N * N * sizeof(double));
-        double *xc = xmalloc(N * sizeof(double));
-        double *gc = xmalloc(N * ND * sizeof(double));
-        double *oc = xmalloc(N * ND * sizeof(double));
-        mcd_workspace *ws;
-        sup_seed(&rng, 0xED6E0001ull + in);
-        ck_assert_int_eq(mcd_workspace_new(N, &ws), MCD_OK);
-        cells_make(&s, N, K, ND);
+        cellset cs;
+        cells *const sp = &cs.s;
+        cellset_make(&cs, N, K, ND, 0xED6E0001ull + in);
         for (a = 0; a < 2; a++) {
             const size_t k = at[a];
-            double *const d01 = &s.D[(0 * N + 1) * K + k];
-            double *const d10 = &s.D[(1 * N + 0) * K + k];
+            double *const d01 = &sp->D[(0 * N + 1) * K + k];
+            double *const d10 = &sp->D[(1 * N + 0) * K + k];
             for (i = 0; i < 44; i++) {
                 const double keep01 = *d01, keep10 = *d10,
-                             keepg = s.grad[2 * K + k];
+                             keepg = sp->grad[2 * K + k];
                 /* i = 0..3 the range edges, then asymmetries around
                  * the tolerance: b = a (1 - r), r in 1e-12 (1 +- 4 ulp) */
                 double va = 1e-5, vb = 1e-5;
@@ -826,7 +848,7 @@ START_TEST(batch_edge_inputs_are_judged_as_by_the_single_state_call)
                 else if (i == 2)
                     va = vb = nextafter(DBL_MIN, 0.0);
                 else if (i == 3)
-                    s.grad[2 * K + k] = -DBL_MAX;
+                    sp->grad[2 * K + k] = -DBL_MAX;
                 else if (i >= 40) {
                     /* exactly at the tolerance (good: the rule is <=),
                      * then one ulp beyond it (bad); either entry the
@@ -851,13 +873,14 @@ START_TEST(batch_edge_inputs_are_judged_as_by_the_single_state_call)
                     char want[32], batched[256];
                     mcd_status st, st1;
                     ck_assert_int_eq(
-                        mcd_workspace_set_dij_read(ws, up ? MCD_DIJ_READ_UPPER
-                                                          : MCD_DIJ_READ_BOTH),
+                        mcd_workspace_set_dij_read(
+                            cs.ws, up ? MCD_DIJ_READ_UPPER : MCD_DIJ_READ_BOTH),
                         MCD_OK);
-                    st = batch_cells(ws, &s, out);
+                    st = batch_cells(cs.ws, sp, cs.out);
                     snprintf(want, sizeof want, "cell %zu: ", k);
                     snprintf(batched, sizeof batched, "%s", mcd_last_error());
-                    st1 = single_cell(ws, &s, k, (int)up, Dc, xc, gc, oc);
+                    st1 = single_cell(cs.ws, sp, k, (int)up, cs.Dc, cs.xc,
+                                      cs.gc, cs.oc);
                     ck_assert_msg(st == st1,
                                   "N %zu cell %zu case %zu read %zu: batched "
                                   "%d (%s), single %d (%s)",
@@ -879,14 +902,71 @@ START_TEST(batch_edge_inputs_are_judged_as_by_the_single_state_call)
                 }
                 *d01 = keep01;
                 *d10 = keep10;
-                s.grad[2 * K + k] = keepg;
+                sp->grad[2 * K + k] = keepg;
             }
         }
-        ck_assert_int_eq(mcd_workspace_set_dij_read(ws, MCD_DIJ_READ_BOTH),
+        ck_assert_int_eq(mcd_workspace_set_dij_read(cs.ws, MCD_DIJ_READ_BOTH),
                          MCD_OK);
-        cells_free(&s);
-        free(out), free(Dc), free(xc), free(gc), free(oc);
-        mcd_workspace_free(ws);
+        cellset_free(&cs);
+    }
+}
+END_TEST
+
+/* Fractions at the edge of the kernel's fast square roots (vrsqrt14pd
+ * and Newton steps, taken when every fraction of a block is in (2^-1000,
+ * 2), kernel_lanes.h): one species per cell at 2^-1000 and the doubles
+ * next to it, at tiny and near-one values, the others sharing the rest.
+ * Blocks on either side of the edge must give the single-state call's
+ * fluxes to 1e-12 of the cell's largest (common practice: a few ulp on
+ * s = sqrt(x) move the fluxes by a few ulp times the condition). N = 3
+ * (two blocks at a time) and 10, full blocks and the tail. */
+START_TEST(batch_fractions_at_the_fast_sqrt_edge_match_the_single_state_call)
+{
+    static const double tiny[] = {0x1p-1000,
+                                  0x1.0000000000001p-1000,
+                                  0x1.fffffffffffffp-1001,
+                                  0x1p-999,
+                                  1e-300,
+                                  1e-200,
+                                  1e-100,
+                                  1e-30,
+                                  1e-16,
+                                  0.5,
+                                  1.0 - 1e-15};
+    const size_t ns[] = {3, 10}, K = 40, ND = 3,
+                 nt = sizeof tiny / sizeof tiny[0];
+    size_t in, k, i, q;
+    for (in = 0; in < 2; in++) {
+        const size_t N = ns[in];
+        cellset cs;
+        cells *const sp = &cs.s;
+        cellset_make(&cs, N, K, ND, 0xF5A7E000ull + in);
+        for (k = 0; k < K; k++) {
+            const size_t p = k % N;
+            const double xp = tiny[k % nt];
+            double rest = 0.0;
+            for (i = 0; i < N; i++)
+                if (i != p)
+                    rest += sp->comp[i * K + k] = sup_range(&rng, 0.1, 1.0);
+            for (i = 0; i < N; i++)
+                sp->comp[i * K + k] =
+                    i == p ? xp : sp->comp[i * K + k] * ((1.0 - xp) / rest);
+        }
+        ck_assert_int_eq(batch_cells(cs.ws, sp, cs.out), MCD_OK);
+        for (k = 0; k < K; k++) {
+            double big = 0.0, e = 0.0;
+            ck_assert_int_eq(
+                single_cell(cs.ws, sp, k, 0, cs.Dc, cs.xc, cs.gc, cs.oc),
+                MCD_OK);
+            for (q = 0; q < N * ND; q++) {
+                big = fmax(big, fabs(cs.oc[q]));
+                e = fmax(e, fabs(cs.oc[q] - cs.out[q * K + k]));
+            }
+            ck_assert_msg(e <= 1e-12 * big,
+                          "N %zu cell %zu x %.17g: %.3g of %.3g", N, k,
+                          tiny[k % nt], e, big);
+        }
+        cellset_free(&cs);
     }
 }
 END_TEST
@@ -1121,6 +1201,8 @@ int main(void)
     tcase_add_test(tc, batch_bad_cells_in_full_and_tail_blocks_are_named);
     tcase_add_test(tc,
                    batch_edge_inputs_are_judged_as_by_the_single_state_call);
+    tcase_add_test(
+        tc, batch_fractions_at_the_fast_sqrt_edge_match_the_single_state_call);
     tcase_add_test(tc, batch_overflowing_fluxes_are_reported_with_the_cell);
     tcase_add_test(tc, batch_threads_give_identical_results);
     tcase_add_test(tc, batch_outputs_at_every_line_offset_match_the_aos_path);

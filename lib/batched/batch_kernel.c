@@ -194,9 +194,10 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
     if (model == MCD_MODEL_MIXTURE_AVERAGED) {
         stage_mixavg(&b, n, L, nd);
     } else {
-        const int ntr = stage_trace(jb, &b, pl, n, L, nd);
+        int wkr;
+        const int ntr = stage_trace(jb, &b, pl, n, L, nd, &wkr);
         CUT(7);
-        stage_rhs(&b, n, L, nd);
+        stage_rhs(&b, n, L, nd, wkr);
         CUT(8);
         if (model == MCD_MODEL_MAXWELL_STEFAN) {
             if (!stage_exact(&b, n, L, nd)) {
@@ -244,7 +245,7 @@ KINLINE int body2(const mcdi_bjob *jb, size_t k0, double *mem, const size_t n,
     double *const nts = mem - MCDI_STREAM_DOUBLES;
     mcdi_kblock b1, b2;
     long long bl1[MCDI_LANES] = {0}, bl2[MCDI_LANES] = {0};
-    int ntr1, ntr2;
+    int ntr1, ntr2, wkr1, wkr2;
     mcdi_kblock_carve(mem, n, nd, L, &b1);
     mcdi_kblock_carve(mem + mcdi_kblock_doubles(n, nd, L), n, nd, L, &b2);
     stage_load_scalars(jb, &b1, bl1, k0, L, L);
@@ -263,10 +264,10 @@ KINLINE int body2(const mcdi_bjob *jb, size_t k0, double *mem, const size_t n,
         return 0;
     stage_blanc(jb, &b1, 0, n, L);
     stage_blanc(jb, &b2, 0, n, L);
-    ntr1 = stage_trace(jb, &b1, 0, n, L, nd);
-    ntr2 = stage_trace(jb, &b2, 0, n, L, nd);
-    stage_rhs(&b1, n, L, nd);
-    stage_rhs(&b2, n, L, nd);
+    ntr1 = stage_trace(jb, &b1, 0, n, L, nd, &wkr1);
+    ntr2 = stage_trace(jb, &b2, 0, n, L, nd, &wkr2);
+    stage_rhs(&b1, n, L, nd, wkr1);
+    stage_rhs(&b2, n, L, nd, wkr2);
     if (!(stage_exact(&b1, n, L, nd) & stage_exact(&b2, n, L, nd)))
         return 0;
     if (!emit_mole_v(n, nd, (const mcdi_vd *)b1.s, (const mcdi_vd *)b1.x,

@@ -432,11 +432,18 @@ KINLINE void stage_mixavg(const mcdi_kblock *b, const size_t n, const size_t L,
  * the inverse diffusivities the coupling reads are filled first. Returns
  * whether a lane has a trace species (t is written only then). */
 KINLINE int stage_trace(const mcdi_bjob *jb, const mcdi_kblock *b, int pl,
-                        const size_t n, const size_t L, const size_t nd)
+                        const size_t n, const size_t L, const size_t nd,
+                        int *wk_ready)
 {
     const mcdi_rows R = rows_of(b);
     size_t i, j, l;
-    if (!mcdi_trace_rows(&R, n, L, nd))
+    /* exact model, every species present in every lane: s and wk = -1 / s
+     * without the divider (kernel_lanes.h), and no trace species. Not for
+     * the iterative model, whose error estimate (the change between
+     * iterates) would not see the few ulp these differ by */
+    *wk_ready = L == MCDI_VLANES && jb->model == MCD_MODEL_MAXWELL_STEFAN &&
+                rsqrt_rows(b->x, b->s, b->wk, n);
+    if (*wk_ready || !mcdi_trace_rows(&R, n, L, nd))
         return 0;
     if (pl)
         for (i = 1; i < n; i++)
@@ -452,12 +459,15 @@ KINLINE int stage_trace(const mcdi_bjob *jb, const mcdi_kblock *b, int pl,
 }
 
 /* Right-hand side b_i = -d_i / s_i (0 for trace species) into r; wk keeps
- * -1 / s_i (flux/solve_stages.h). */
+ * -1 / s_i (flux/solve_stages.h); wk_ready: stage_trace left it in wk. */
 KINLINE void stage_rhs(const mcdi_kblock *b, const size_t n, const size_t L,
-                       const size_t nd)
+                       const size_t nd, const int wk_ready)
 {
     const mcdi_rows R = rows_of(b);
-    mcdi_rhs_rows(&R, n, L, nd);
+    if (wk_ready)
+        mcdi_rhs_rows_from_wk(&R, n, L, nd);
+    else
+        mcdi_rhs_rows(&R, n, L, nd);
 }
 
 /* Molar fluxes from the solution U (flux/solve_stages.h); ntr: the

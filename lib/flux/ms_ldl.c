@@ -399,9 +399,9 @@ size_t RNAME(MCDI_KISA)(const mcdi_rows *R, const mcdi_dense *D,
  * rows: the Blanc sums as a dot product and an update per row, the
  * assembly as a row (loops of a few entries: unrolled by four rather
  * than vectorised, whose set-up costs more there). Each S_i is summed in
- * the order j = 0, 1, ..., m - 1 (j != i), the batched kernel's, so the
- * same bits. (Packed by rows of the upper triangle, the assembly read T
- * with a stride that changed every step.) */
+ * the order j = 0, 1, ..., m - 1 (j != i), as before and as the batched
+ * kernel sums it. (Packed by rows of the upper triangle, the assembly
+ * read T with a stride that changed every step.) */
 MINLINE size_t fused_ldl(size_t m, const size_t nd, const double *xp,
                          const double *Dp, size_t ld, const double *dp,
                          double c, double *A, double *T, double *sq,

@@ -252,14 +252,29 @@ KINLINE void mcdi_trace_couple_rows(const mcdi_rows *R, const size_t n,
     }
 }
 
+/* Right-hand side b_i = d_i wk_i into r from wk = -1 / s_i (0 for trace
+ * species), already in wk. */
+KINLINE void mcdi_rhs_rows_from_wk(const mcdi_rows *R, const size_t n,
+                                   const size_t L, const size_t nd)
+{
+    const double *restrict d = R->d, *restrict wk = R->wk;
+    double *restrict r = R->r;
+    size_t i, dd, l;
+    for (i = 0; i < n; i++)
+        for (dd = 0; dd < nd; dd++)
+            for_lanes (l)
+                r[(i * nd + dd) * L + l] =
+                    d[(i * nd + dd) * L + l] * wk[i * L + l];
+}
+
 /* Right-hand side b_i = -d_i / s_i (0 for trace species) into r; wk keeps
  * -1 / s_i (the iteration recomputes b from it). */
 KINLINE void mcdi_rhs_rows(const mcdi_rows *R, const size_t n, const size_t L,
                            const size_t nd)
 {
-    const double *restrict s = R->s, *restrict d = R->d;
-    double *restrict wk = R->wk, *restrict r = R->r;
-    size_t i, dd, l;
+    const double *restrict s = R->s;
+    double *restrict wk = R->wk;
+    size_t i, l;
     if (L == 1) {
         MCDI_SIMD
         for (i = 0; i < n; i++)
@@ -270,11 +285,7 @@ KINLINE void mcdi_rhs_rows(const mcdi_rows *R, const size_t n, const size_t L,
             for_lanes (l)
                 wk[i * L + l] = s[i * L + l] > 0.0 ? -1.0 / s[i * L + l] : 0.0;
     }
-    for (i = 0; i < n; i++)
-        for (dd = 0; dd < nd; dd++)
-            for_lanes (l)
-                r[(i * nd + dd) * L + l] =
-                    d[(i * nd + dd) * L + l] * wk[i * L + l];
+    mcdi_rhs_rows_from_wk(R, n, L, nd);
 }
 
 /* The shift a of the exact model: the largest Blanc sum of the species
