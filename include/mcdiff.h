@@ -1397,7 +1397,10 @@ MCD_API mcd_status mcd_flux_diagnose(size_t n_species, size_t n_dim,
  * last-level cache writes its outputs with streaming stores (past the
  * caches: the first outputs would have left them anyway); environment
  * variable MCDIFF_STREAM_STORES=never or =always overrides that choice.
- * The values are the same either way.
+ * The values are the same either way. The exact model's fluxes agree with
+ * mcd_flux_compute's to round-off, not bit for bit: with AVX-512 the
+ * kernel takes the square roots of the mole fractions and the pivots'
+ * reciprocals from hardware estimates refined by Newton steps (a few ulp).
  */
 
 /** How the per-cell arrays of a batched call are laid out in memory
