@@ -229,8 +229,9 @@ KINLINE void flag_lanes(long long *restrict bl, const mcdi_vl bad)
  * both, plus the roundings of the steps and of s = x y (common practice:
  * Newton's iteration for the reciprocal square root); a few ulp from the
  * correctly rounded sqrt(x) and -1 / sqrt(x). At N = 3 the three square
- * roots (six 256-bit halves on this core) and three divisions took most
- * of the divider's time of a block. Only when every lane of every row is
+ * roots (done as six 256-bit halves on the AVX-512 host measured) and
+ * three divisions took most of the divider's time of a block
+ * (DEVELOPERS.md). Only when every lane of every row is
  * in (2^-1000, 2), i.e. no trace species and no tiny fraction: returns
  * 1; else 0, and s and w hold values the exact path then overwrites
  * (computed on every lane, IEEE arithmetic, no traps). */
