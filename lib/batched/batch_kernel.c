@@ -350,7 +350,17 @@ INSTANCE(block_n3_d3, 3, 3)
 INSTANCE(block_n4_d3, 4, 3)
 INSTANCE(block_n5_d3, 5, 3)
 INSTANCE(block_nn_d3, jb->n, 3)
-INSTANCE(block_nn_dd, jb->n, jb->nd)
+/* n_dim 1 or 2: block_lanes sends 3 to the instances above, and saying
+ * so lets the compiler drop the constant-n solves (kernel_ldl.h) here */
+__attribute__((noinline)) static size_t block_nn_dd(const mcdi_bjob *jb,
+                                                    size_t kb, size_t ke,
+                                                    double *mem, mcdi_bres *res)
+{
+    const size_t nd = jb->nd;
+    if (nd == 3)
+        __builtin_unreachable();
+    return run_blocks(jb, kb, ke, mem, res, jb->n, LANES_SMALL, nd);
+}
 
 static size_t block_lanes(const mcdi_bjob *jb, size_t kb, size_t ke,
                           double *mem, mcdi_bres *res)

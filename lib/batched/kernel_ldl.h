@@ -50,19 +50,21 @@ KINLINE mcdi_vd recip_pivot(const mcdi_vd d, const size_t n)
  * substitution. R: right-hand sides [i * nd + dd] in, solution out; Dg gets
  * the pivots. Returns 0 if some lane has a pivot that is not > 0 (or NaN).
  *
- * Above KREG species the rows are taken KTILE at a time: the columns left
+ * Above kreg species the rows are taken KTILE at a time: the columns left
  * of the tile are done for its rows together, so each loaded L_jk serves
  * KTILE independent multiply-add chains (the factor is in L2 cache at
  * large n; one load per FMA was the limit), then the tile's own triangle
- * row by row. Wm: KTILE * n vectors (the tile's W rows). Up to KREG
- * species W and 1/D are local arrays, registers after unrolling. */
+ * row by row. Wm: KTILE * n vectors (the tile's W rows). Up to kreg
+ * (<= LDL_REGMAX) species W and 1/D are local arrays, registers after
+ * unrolling: KREG in the instances of any n, n itself in ldl_fixed's. */
 /* GCC left the row loop of the constant-n instances (n <= 5) rolled, with
  * W and 1/D in memory and a compare-and-branch per column; unrolled, they
  * live in registers (issue 15, A/B: factor and solve 7.7 -> 5.2 ns per
  * cell at N = 5, whole call 27.0 -> 24.2; 12.8 -> 12.1 at N = 3; N = 7,
- * 10 and 20 unchanged within noise). */
+ * 10 and 20 unchanged within noise). 16: the constant n of ldl_fixed
+ * (below) unroll completely. */
 #if defined(__GNUC__) && !defined(__clang__)
-#define LDL_UNROLL _Pragma("GCC unroll 8")
+#define LDL_UNROLL _Pragma("GCC unroll 16")
 #else
 #define LDL_UNROLL
 #endif
@@ -90,18 +92,20 @@ KINLINE void ldl_row_tail(const size_t nd, mcdi_vd *restrict A, const size_t i,
     }
 }
 
-KINLINE int ldl_solve_v(const size_t n, const size_t nd, mcdi_vd *restrict A,
-                        const mcdi_vd *restrict s, const mcdi_vd *restrict S,
-                        const mcdi_vd *restrict x, const mcdi_vd a,
-                        mcdi_vd *restrict R, mcdi_vd *restrict Dg,
-                        mcdi_vd *restrict iDm, mcdi_vd *restrict Wm)
+#define LDL_REGMAX 16
+KINLINE int ldl_solve_v(const size_t n, const size_t nd, const size_t kreg,
+                        mcdi_vd *restrict A, const mcdi_vd *restrict s,
+                        const mcdi_vd *restrict S, const mcdi_vd *restrict x,
+                        const mcdi_vd a, mcdi_vd *restrict R,
+                        mcdi_vd *restrict Dg, mcdi_vd *restrict iDm,
+                        mcdi_vd *restrict Wm)
 {
-    mcdi_vd Wl[KREG], iDl[KREG];
-    mcdi_vd *restrict iD = n <= KREG ? iDl : iDm;
+    mcdi_vd Wl[LDL_REGMAX], iDl[LDL_REGMAX];
+    mcdi_vd *restrict iD = n <= kreg ? iDl : iDm;
     const mcdi_vd zero = {0.0};
     mcdi_vl ok = zero == zero; /* all lanes true */
     size_t i, i0, j, k, dd, r;
-    const size_t step = n <= KREG ? 1 : KTILE; /* rows per tile */
+    const size_t step = n <= kreg ? 1 : KTILE; /* rows per tile */
     LDL_UNROLL
     for (i0 = 0; i0 < n; i0 += step) {
         const size_t nr = n - i0 < step ? n - i0 : step;
@@ -109,7 +113,7 @@ KINLINE int ldl_solve_v(const size_t n, const size_t nd, mcdi_vd *restrict A,
         for (r = 0; r < nr; r++)
             for (dd = 0; dd < nd; dd++)
                 f[r][dd] = R[(i0 + r) * nd + dd];
-        if (n > KREG && nr == KTILE) {
+        if (n > kreg && nr == KTILE) {
             /* columns j < i0 for the KTILE rows together */
             for (j = 0; j < i0; j++) {
                 const mcdi_vd *restrict Aj = A + j * (j + 1) / 2;
@@ -134,10 +138,10 @@ KINLINE int ldl_solve_v(const size_t n, const size_t nd, mcdi_vd *restrict A,
         }
         for (r = 0; r < nr; r++) {
             const size_t ii = i0 + r;
-            mcdi_vd *restrict W = n <= KREG ? Wl : Wm + r * n;
+            mcdi_vd *restrict W = n <= kreg ? Wl : Wm + r * n;
             mcdi_vd *restrict Ai = A + ii * (ii + 1) / 2;
             mcdi_vd dg;
-            ldl_row_tail(nd, A, ii, (n > KREG && nr == KTILE) ? i0 : 0, s, a, W,
+            ldl_row_tail(nd, A, ii, (n > kreg && nr == KTILE) ? i0 : 0, s, a, W,
                          iD, R, f[r]);
             dg = S[ii] + a * x[ii];
             LDL_UNROLL
@@ -171,6 +175,53 @@ KINLINE int ldl_solve_v(const size_t n, const size_t nd, mcdi_vd *restrict A,
     return 1;
 }
 
+/* The fused solve for n_dim = 3 with n a compile-time constant from 6 to
+ * LDL_FIXED_MAX (below 6 the block instances of batch_kernel.c have a
+ * constant n already), in the instance of any n with n_dim = 3: the
+ * species loops unroll, W and 1/D live in registers. With n known only at
+ * run time the loops stay rolled and W and 1/D in memory (issue 15, N = 10
+ * on the AVX-512 host: 46 of 126 ns a cell in the factor and solves,
+ * bench_stages). Not in the baseline (x86-64-v1) kernel: level there (A/B
+ * at N = 6, 10, 16), and each n costs 3-45 KB of code. Returns -1 when no
+ * constant n covers n (the caller then runs the solve for any n), else
+ * ldl_solve_v's answer. */
+#if MCDI_KISA >= 3
+#define LDL_FIXED_MAX 16
+#else
+#define LDL_FIXED_MAX 0
+#endif
+KINLINE int ldl_fixed(const size_t n, const size_t nd, mcdi_vd *restrict A,
+                      const mcdi_vd *restrict s, const mcdi_vd *restrict S,
+                      const mcdi_vd *restrict x, const mcdi_vd a,
+                      mcdi_vd *restrict R, mcdi_vd *restrict Dg)
+{
+#if LDL_FIXED_MAX
+#define LDL_CASE(nn)                                                           \
+    case nn: return ldl_solve_v(nn, 3, nn, A, s, S, x, a, R, Dg, NULL, NULL);
+    _Static_assert(LDL_FIXED_MAX <= LDL_REGMAX, "W and 1/D local up to n");
+    if (nd == 3)
+        switch (n) {
+            LDL_CASE(6)
+            LDL_CASE(7)
+            LDL_CASE(8)
+            LDL_CASE(9)
+            LDL_CASE(10)
+            LDL_CASE(11)
+            LDL_CASE(12)
+            LDL_CASE(13)
+            LDL_CASE(14)
+            LDL_CASE(15)
+            LDL_CASE(16)
+        default: break;
+        }
+#undef LDL_CASE
+#else
+    (void)n, (void)nd, (void)A, (void)s, (void)S, (void)x, (void)a, (void)R,
+        (void)Dg;
+#endif
+    return -1;
+}
+
 /* Exact model: the shift a (flux/solve_stages.h), then
  * (Gs + a s s^T) U = b solved in r: fused on lane vectors for a full
  * vector block, else by the shared one-lane-row stage. Returns 0 if some
@@ -185,10 +236,18 @@ KINLINE int stage_exact(const mcdi_kblock *b, const size_t n, const size_t L,
         /* assembly, LDL^T and both substitutions fused, in registers */
         mcdi_vd av;
         memcpy(&av, amax, sizeof av);
-        return ldl_solve_v(n, nd, (mcdi_vd *)b->tri, (const mcdi_vd *)b->s,
-                           (const mcdi_vd *)b->S, (const mcdi_vd *)b->x, av,
-                           (mcdi_vd *)b->r, (mcdi_vd *)b->Dg, (mcdi_vd *)b->iDg,
-                           (mcdi_vd *)b->Wt);
+        if (n > 5) {
+            const int got =
+                ldl_fixed(n, nd, (mcdi_vd *)b->tri, (const mcdi_vd *)b->s,
+                          (const mcdi_vd *)b->S, (const mcdi_vd *)b->x, av,
+                          (mcdi_vd *)b->r, (mcdi_vd *)b->Dg);
+            if (got >= 0)
+                return got;
+        }
+        return ldl_solve_v(
+            n, nd, KREG, (mcdi_vd *)b->tri, (const mcdi_vd *)b->s,
+            (const mcdi_vd *)b->S, (const mcdi_vd *)b->x, av, (mcdi_vd *)b->r,
+            (mcdi_vd *)b->Dg, (mcdi_vd *)b->iDg, (mcdi_vd *)b->Wt);
     }
     return mcdi_ldl_rows(&R, amax, n, L, nd);
 }
