@@ -351,7 +351,8 @@ INSTANCE(block_n4_d3, 4, 3)
 INSTANCE(block_n5_d3, 5, 3)
 INSTANCE(block_nn_d3, jb->n, 3)
 /* n_dim 1 or 2: block_lanes sends 3 to the instances above, and saying
- * so lets the compiler drop the constant-n solves (kernel_ldl.h) here */
+ * so lets the compiler drop the n_dim = 3 constant-n solves (ldl_fixed,
+ * kernel_ldl.h) here */
 __attribute__((noinline)) static size_t block_nn_dd(const mcdi_bjob *jb,
                                                     size_t kb, size_t ke,
                                                     double *mem, mcdi_bres *res)

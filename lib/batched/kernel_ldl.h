@@ -175,16 +175,17 @@ KINLINE int ldl_solve_v(const size_t n, const size_t nd, const size_t kreg,
     return 1;
 }
 
-/* The fused solve for n_dim = 3 with n a compile-time constant from 6 to
+/* The fused solve with n and n_dim compile-time constants, n from 6 to
  * LDL_FIXED_MAX (below 6 the block instances of batch_kernel.c have a
- * constant n already), in the instance of any n with n_dim = 3: the
- * species loops unroll, W and 1/D live in registers. With n known only at
- * run time the loops stay rolled and W and 1/D in memory (issue 15, N = 10
- * on the AVX-512 host: 46 of 126 ns a cell in the factor and solves,
- * bench_stages). Not in the baseline (x86-64-v1) kernel: level there (A/B
- * at N = 6, 10, 16), and each n costs 3-45 KB of code. Returns -1 when no
- * constant n covers n (the caller then runs the solve for any n), else
- * ldl_solve_v's answer. */
+ * constant n already), in the instances of any n: the species loops
+ * unroll, W and 1/D live in registers. With n known only at run time the
+ * loops stay rolled and W and 1/D in memory (issue 15, N = 10 on the
+ * AVX-512 host: 46 of 126 ns a cell in the factor and solves,
+ * bench_stages; with n_dim a run-time value too, the n_dim = 1 and 2
+ * calls were slower per cell than n_dim = 3). Not in the baseline
+ * (x86-64-v1) kernel: level there (A/B at N = 6, 10, 16), and each n
+ * costs 3-45 KB of code. Returns -1 when no constant n covers n (the
+ * caller then runs the solve for any n), else ldl_solve_v's answer. */
 #if MCDI_KISA >= 3
 #define LDL_FIXED_MAX 16
 #else
@@ -196,24 +197,33 @@ KINLINE int ldl_fixed(const size_t n, const size_t nd, mcdi_vd *restrict A,
                       mcdi_vd *restrict R, mcdi_vd *restrict Dg)
 {
 #if LDL_FIXED_MAX
-#define LDL_CASE(nn)                                                           \
-    case nn: return ldl_solve_v(nn, 3, nn, A, s, S, x, a, R, Dg, NULL, NULL);
+#define LDL_CASE(d, nn)                                                        \
+    case nn:                                                                   \
+        return ldl_solve_v(nn, d, nn, A, s, S, x, a, R, Dg, NULL, NULL);
+#define LDL_CASES(d)                                                           \
+    switch (n) {                                                               \
+        LDL_CASE(d, 6)                                                         \
+        LDL_CASE(d, 7)                                                         \
+        LDL_CASE(d, 8)                                                         \
+        LDL_CASE(d, 9)                                                         \
+        LDL_CASE(d, 10)                                                        \
+        LDL_CASE(d, 11)                                                        \
+        LDL_CASE(d, 12)                                                        \
+        LDL_CASE(d, 13)                                                        \
+        LDL_CASE(d, 14)                                                        \
+        LDL_CASE(d, 15)                                                        \
+        LDL_CASE(d, 16)                                                        \
+    default: break;                                                            \
+    }
+    _Static_assert(LDL_FIXED_MAX == 16, "the cases below go to 16");
     _Static_assert(LDL_FIXED_MAX <= LDL_REGMAX, "W and 1/D local up to n");
     if (nd == 3)
-        switch (n) {
-            LDL_CASE(6)
-            LDL_CASE(7)
-            LDL_CASE(8)
-            LDL_CASE(9)
-            LDL_CASE(10)
-            LDL_CASE(11)
-            LDL_CASE(12)
-            LDL_CASE(13)
-            LDL_CASE(14)
-            LDL_CASE(15)
-            LDL_CASE(16)
-        default: break;
-        }
+        LDL_CASES(3)
+    else if (nd == 2)
+        LDL_CASES(2)
+    else if (nd == 1)
+        LDL_CASES(1)
+#undef LDL_CASES
 #undef LDL_CASE
 #else
     (void)n, (void)nd, (void)A, (void)s, (void)S, (void)x, (void)a, (void)R,
