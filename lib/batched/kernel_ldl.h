@@ -175,9 +175,10 @@ KINLINE int ldl_solve_v(const size_t n, const size_t nd, const size_t kreg,
     return 1;
 }
 
-/* The fused solve with n and n_dim compile-time constants, n from 6 to
- * LDL_FIXED_MAX (below 6 the block instances of batch_kernel.c have a
- * constant n already), in the instances of any n: the species loops
+/* The fused solve with n and n_dim compile-time constants, n from 2 to
+ * LDL_FIXED_MAX (with n_dim = 3 from 6: below, the block instances of
+ * batch_kernel.c have a constant n already; stage_exact calls this only
+ * for n > 5 there), in the instances of any n: the species loops
  * unroll, W and 1/D live in registers. With n known only at run time the
  * loops stay rolled and W and 1/D in memory (issue 15, N = 10 on the
  * AVX-512 host: 46 of 126 ns a cell in the factor and solves,
@@ -202,6 +203,10 @@ KINLINE int ldl_fixed(const size_t n, const size_t nd, mcdi_vd *restrict A,
         return ldl_solve_v(nn, d, nn, A, s, S, x, a, R, Dg, NULL, NULL);
 #define LDL_CASES(d)                                                           \
     switch (n) {                                                               \
+        LDL_CASE(d, 2)                                                         \
+        LDL_CASE(d, 3)                                                         \
+        LDL_CASE(d, 4)                                                         \
+        LDL_CASE(d, 5)                                                         \
         LDL_CASE(d, 6)                                                         \
         LDL_CASE(d, 7)                                                         \
         LDL_CASE(d, 8)                                                         \
@@ -246,7 +251,7 @@ KINLINE int stage_exact(const mcdi_kblock *b, const size_t n, const size_t L,
         /* assembly, LDL^T and both substitutions fused, in registers */
         mcdi_vd av;
         memcpy(&av, amax, sizeof av);
-        if (n > 5) {
+        if (n > 5 || nd != 3) {
             const int got =
                 ldl_fixed(n, nd, (mcdi_vd *)b->tri, (const mcdi_vd *)b->s,
                           (const mcdi_vd *)b->S, (const mcdi_vd *)b->x, av,
