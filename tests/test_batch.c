@@ -252,8 +252,9 @@ START_TEST(batch_dij_matches_single_state_calls)
             mcd_basis cb = (cfg / 3) % 2 ? MCD_BASIS_MASS : MCD_BASIS_MOLE;
             mcd_basis fb = (cfg / 6) % 2 ? MCD_BASIS_MASS : MCD_BASIS_MOLE;
             int use_p = (cfg / 12) % 2;
-            /* every n_dim with every model (the exact model with n_dim =
-             * 3 takes the constant-n solves, kernel_ldl.h) */
+            /* every n_dim with every model (the exact model's
+             * constant-n solves are separate code per n_dim,
+             * kernel_ldl.h) */
             size_t nd = 1 + (cfg + cfg / 3) % 3;
             cells s;
             double *out;

@@ -18,7 +18,7 @@
 #include "props/mixture.h"
 #include "base/layout.h"
 
-/* Rows factored together above KREG species (ldl_solve_v, batch_ldl.h). */
+/* Rows factored together above KREG species (ldl_solve_v, kernel_ldl.h). */
 #define MCDI_KTILE 4
 
 /* R(name, rows): rows may use n (species), nd (directions). */

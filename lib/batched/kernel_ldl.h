@@ -23,8 +23,9 @@
 KINLINE mcdi_vd recip_pivot(const mcdi_vd d, const size_t n)
 {
 #if MCDI_FAST_RECIP
-    /* the estimate pays only in the constant-n instances (n <= 5,
-     * batch_kernel.c): 6-10 % faster whole call at N = 3 and 5 on the
+    /* the estimate pays only with a constant n <= 5 (the block
+     * instances of batch_kernel.c, ldl_fixed's n_dim = 1 and 2 solves):
+     * 6-10 % faster whole call at N = 3 and 5 on the
      * AVX-512 host, 1-2 % slower in the generic one (A/B, one run) */
     const __m512d dv = (__m512d)d;
     const __mmask8 in =
@@ -61,8 +62,8 @@ KINLINE mcdi_vd recip_pivot(const mcdi_vd d, const size_t n)
  * W and 1/D in memory and a compare-and-branch per column; unrolled, they
  * live in registers (issue 15, A/B: factor and solve 7.7 -> 5.2 ns per
  * cell at N = 5, whole call 27.0 -> 24.2; 12.8 -> 12.1 at N = 3; N = 7,
- * 10 and 20 unchanged within noise). 16: the constant n of ldl_fixed
- * (below) unroll completely. */
+ * 10 and 20 unchanged within noise). 16: the loops over a constant n of
+ * ldl_fixed (below, up to 16) unroll completely. */
 #if defined(__GNUC__) && !defined(__clang__)
 #define LDL_UNROLL _Pragma("GCC unroll 16")
 #else
