@@ -296,7 +296,7 @@ int main(int argc, char **argv)
     double *xe, *xi, *xi2, extent, d1, d2, sum_err = 0.0, el_err = 0.0;
     double inv0[NS], inv1[NS], el0[FV1D_NE], el1[FV1D_NE];
     int a, rc = 1;
-    for (a = 1; a < argc; a++) {
+    for (a = 1; a < argc; a += 2) { /* option, value */
         char *end = NULL;
         unsigned long v = a + 1 < argc ? strtoul(argv[a + 1], &end, 10) : 0;
         if (!end || *end != '\0' || v == 0 || v > 100000) {
@@ -315,7 +315,6 @@ int main(int argc, char **argv)
                     argv[a], argv[a + 1]);
             return 2;
         }
-        a++;
     }
     if (fv1d_problem_init(&p, n_cells, 0, 0.2, 1, MCD_MODEL_MAXWELL_STEFAN,
                           stderr))

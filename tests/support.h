@@ -7,6 +7,7 @@
  *    mole fractions, binary diffusivity matrices, gradients);
  *  - relative differences and the largest magnitude of a vector;
  *  - guard values: fill an output with SUP_GUARD, check it is untouched;
+ *    SUP_NAN and SUP_INF, the bad values the tests feed in, as doubles;
  *  - allocation counting (opt-in, see SUP_ALLOC_HOOK below);
  *  - sup_run: main()'s Check runner.
  *
@@ -216,6 +217,11 @@ static inline double sup_rel_diff(const double *a, const double *b, size_t len)
 
 /* Written into outputs before a call that must not touch them. */
 #define SUP_GUARD 12345.678
+
+/* A quiet NaN and +infinity as doubles. C's NAN and INFINITY are float
+ * constants: with Clang, -Wdouble-promotion flags each use as a double. */
+#define SUP_NAN ((double)NAN)
+#define SUP_INF HUGE_VAL
 
 static inline void sup_guard_fill(double *a, size_t len)
 {

@@ -1290,8 +1290,8 @@ static const bcase cases[] = {
     C(mcd_db_set_param, "i out of range", EINVAL_, NULL, MZ(i, 100000)),
     C(mcd_db_set_param, "p COUNT", EINVAL_, NULL, MI(param, MCD_PARAM_COUNT)),
     C(mcd_db_set_param, "p -1", EINVAL_, NULL, MI(param, -1)),
-    C(mcd_db_set_param, "value NaN", EINVAL_, NULL, MD(value, NAN)),
-    C(mcd_db_set_param, "value inf", EINVAL_, NULL, MD(value, INFINITY)),
+    C(mcd_db_set_param, "value NaN", EINVAL_, NULL, MD(value, SUP_NAN)),
+    C(mcd_db_set_param, "value inf", EINVAL_, NULL, MD(value, SUP_INF)),
     C(mcd_db_set_param, "M = 0", EDOM_, NULL, MD(value, 0.0)),
     C(mcd_db_set_param, "M < 0", EDOM_, NULL, MD(value, -0.028)),
     C(mcd_db_set_param, "sigma subnormal-negative", EDOM_, NULL,
@@ -1351,8 +1351,8 @@ static const bcase cases[] = {
         C(fn, "n SIZE_MAX", EINVAL_, NULL, MZ(n, SIZE_MAX)),                   \
         C(fn, "fractions NULL", EINVAL_, NULL, MN(nbx)),                       \
         C(fn, "out NULL", EINVAL_, NULL, MN(NB_O1)),                           \
-        C(fn, "fraction NaN", EINVAL_, NULL, MDA(xf, 1, NAN)),                 \
-        C(fn, "fraction inf", EINVAL_, NULL, MDA(xf, 0, INFINITY)),            \
+        C(fn, "fraction NaN", EINVAL_, NULL, MDA(xf, 1, SUP_NAN)),             \
+        C(fn, "fraction inf", EINVAL_, NULL, MDA(xf, 0, SUP_INF)),             \
         C(fn, "fraction negative", EDOM_, NULL, MDA(xf, 1, -0.1),              \
           MDA(xf, 0, 0.9)),                                                    \
         C(fn, "sum 0.9", EDOM_, NULL, MDA(xf, 0, 0.4)),                        \
@@ -1362,7 +1362,7 @@ static const bcase cases[] = {
       MDA(x, 1, 0.0), MDA(x, 2, 0.0)),
 #define MASS_COMMON(fn)                                                        \
     C(fn, "M NULL", EINVAL_, NULL, MN(NB_M)),                                  \
-        C(fn, "M NaN", EINVAL_, NULL, MDA(M, 2, NAN)),                         \
+        C(fn, "M NaN", EINVAL_, NULL, MDA(M, 2, SUP_NAN)),                     \
         C(fn, "M 0", EDOM_, NULL, MDA(M, 1, 0.0)),                             \
         C(fn, "M negative", EDOM_, NULL, MDA(M, 0, -0.028))
     COMP_COMMON(mcd_comp_x_to_w, x, NB_X),
@@ -1374,8 +1374,8 @@ static const bcase cases[] = {
     COMP_COMMON(mcd_comp_mean_molar_mass_w, y, NB_Y),
     MASS_COMMON(mcd_comp_mean_molar_mass_w),
     COMP_COMMON(mcd_comp_x_to_c, x, NB_X),
-    C(mcd_comp_x_to_c, "c NaN", EINVAL_, NULL, MD(c, NAN)),
-    C(mcd_comp_x_to_c, "c inf", EINVAL_, NULL, MD(c, INFINITY)),
+    C(mcd_comp_x_to_c, "c NaN", EINVAL_, NULL, MD(c, SUP_NAN)),
+    C(mcd_comp_x_to_c, "c inf", EINVAL_, NULL, MD(c, SUP_INF)),
     C(mcd_comp_x_to_c, "c 0", EDOM_, NULL, MD(c, 0.0)),
     C(mcd_comp_x_to_c, "c negative", EDOM_, NULL, MD(c, -1.0)),
     B(mcd_comp_c_to_x, MCD_OK),
@@ -1384,14 +1384,14 @@ static const bcase cases[] = {
     C(mcd_comp_c_to_x, "c NULL", EINVAL_, NULL, MN(NB_VALS)),
     C(mcd_comp_c_to_x, "out_x NULL", EINVAL_, NULL, MN(NB_O1)),
     C(mcd_comp_c_to_x, "out_c_total NULL", EINVAL_, NULL, MN(NB_O2)),
-    C(mcd_comp_c_to_x, "c_i NaN", EINVAL_, NULL, MDA(vals, 1, NAN)),
-    C(mcd_comp_c_to_x, "c_i -inf", EINVAL_, NULL, MDA(vals, 1, -INFINITY)),
+    C(mcd_comp_c_to_x, "c_i NaN", EINVAL_, NULL, MDA(vals, 1, SUP_NAN)),
+    C(mcd_comp_c_to_x, "c_i -inf", EINVAL_, NULL, MDA(vals, 1, -SUP_INF)),
     C(mcd_comp_c_to_x, "c_i negative", EDOM_, NULL, MDA(vals, 2, -1.0)),
     C(mcd_comp_c_to_x, "all zero", EDOM_, NULL, MDA(vals, 0, 0.0),
       MDA(vals, 1, 0.0), MDA(vals, 2, 0.0)),
     B(mcd_comp_ideal_gas_c, MCD_OK),
-    C(mcd_comp_ideal_gas_c, "T NaN", EINVAL_, NULL, MD(T, NAN)),
-    C(mcd_comp_ideal_gas_c, "P inf", EINVAL_, NULL, MD(P, INFINITY)),
+    C(mcd_comp_ideal_gas_c, "T NaN", EINVAL_, NULL, MD(T, SUP_NAN)),
+    C(mcd_comp_ideal_gas_c, "P inf", EINVAL_, NULL, MD(P, SUP_INF)),
     C(mcd_comp_ideal_gas_c, "T 0", EDOM_, NULL, MD(T, 0.0)),
     C(mcd_comp_ideal_gas_c, "T negative", EDOM_, NULL, MD(T, -300.0)),
     C(mcd_comp_ideal_gas_c, "P 0", EDOM_, NULL, MD(P, 0.0)),
@@ -1402,8 +1402,8 @@ static const bcase cases[] = {
         C(fn, "n_dim 0", EINVAL_, NULL, MZ(nd, 0)),                            \
         C(fn, "n_dim 4", EINVAL_, NULL, MZ(nd, 4)),                            \
         C(fn, "grad NULL", EINVAL_, NULL, MN(NB_GRAD)),                        \
-        C(fn, "grad NaN", EINVAL_, NULL, MDA(grad, 3, NAN)),                   \
-        C(fn, "grad inf", EINVAL_, NULL, MDA(grad, 0, -INFINITY))
+        C(fn, "grad NaN", EINVAL_, NULL, MDA(grad, 3, SUP_NAN)),               \
+        C(fn, "grad inf", EINVAL_, NULL, MDA(grad, 0, -SUP_INF))
     GRAD_COMMON(mcd_comp_grad_x_to_w, x, NB_X),
     GRAD_COMMON(mcd_comp_grad_w_to_x, y, NB_Y),
 
@@ -1430,15 +1430,15 @@ static const bcase cases[] = {
     C(mcd_warning_string, "bit 0x80", R_NULL, NULL, MU(bit, 0x80u)),
     C(mcd_warning_string, "two bits", R_NULL, NULL, MU(bit, 0x3u)),
 #define TP_COMMON(fn)                                                          \
-    B(fn, MCD_OK), C(fn, "T NaN", EINVAL_, NULL, MD(T, NAN)),                  \
-        C(fn, "T inf", EINVAL_, NULL, MD(T, INFINITY)),                        \
-        C(fn, "P NaN", EINVAL_, NULL, MD(P, NAN)),                             \
+    B(fn, MCD_OK), C(fn, "T NaN", EINVAL_, NULL, MD(T, SUP_NAN)),              \
+        C(fn, "T inf", EINVAL_, NULL, MD(T, SUP_INF)),                         \
+        C(fn, "P NaN", EINVAL_, NULL, MD(P, SUP_NAN)),                         \
         C(fn, "T 0", EDOM_, NULL, MD(T, 0.0)),                                 \
         C(fn, "T negative", EDOM_, NULL, MD(T, -10.0)),                        \
         C(fn, "P 0", EDOM_, NULL, MD(P, 0.0)),                                 \
         C(fn, "P negative", EDOM_, NULL, MD(P, -1e5)),                         \
         C(fn, "out NULL", EINVAL_, NULL, MN(NB_O1)),                           \
-        C(fn, "MA NaN", EINVAL_, NULL, MD(MA, NAN)),                           \
+        C(fn, "MA NaN", EINVAL_, NULL, MD(MA, SUP_NAN)),                       \
         C(fn, "MB 0", EDOM_, NULL, MD(MB, 0.0)),                               \
         C(fn, "MA negative", EDOM_, NULL, MD(MA, -0.028))
     TP_COMMON(mcd_binary_fsg),
@@ -1446,12 +1446,12 @@ static const bcase cases[] = {
     C(mcd_binary_fsg, "T subnormal: D underflows to 0", EDOM_, NULL,
       MD(T, 4.9e-324)),
     C(mcd_binary_fsg, "T 1e300: D overflows", EDOM_, NULL, MD(T, 1e300)),
-    C(mcd_binary_fsg, "VB inf", EINVAL_, NULL, MD(VB, INFINITY)),
+    C(mcd_binary_fsg, "VB inf", EINVAL_, NULL, MD(VB, SUP_INF)),
     TP_COMMON(mcd_binary_chapman_enskog),
     C(mcd_binary_chapman_enskog, "sigA 0", EDOM_, NULL, MD(sigA, 0.0)),
-    C(mcd_binary_chapman_enskog, "sigB NaN", EINVAL_, NULL, MD(sigB, NAN)),
+    C(mcd_binary_chapman_enskog, "sigB NaN", EINVAL_, NULL, MD(sigB, SUP_NAN)),
     C(mcd_binary_chapman_enskog, "epsA negative", EDOM_, NULL, MD(epsA, -10.0)),
-    C(mcd_binary_chapman_enskog, "epsB inf", EINVAL_, NULL, MD(epsB, INFINITY)),
+    C(mcd_binary_chapman_enskog, "epsB inf", EINVAL_, NULL, MD(epsB, SUP_INF)),
     C(mcd_binary_chapman_enskog, "P subnormal: D overflows", EDOM_, NULL,
       MD(P, 4.9e-324)),
     TP_COMMON(mcd_binary_wilke_lee),
@@ -1461,35 +1461,35 @@ static const bcase cases[] = {
       NULL, MD(MA, 1e-5), MD(MB, 1e-5)),
     TP_COMMON(mcd_binary_brokaw),
     C(mcd_binary_brokaw, "dipA negative", EDOM_, NULL, MD(dipA, -1e-30)),
-    C(mcd_binary_brokaw, "dipA NaN", EINVAL_, NULL, MD(dipA, NAN)),
+    C(mcd_binary_brokaw, "dipA NaN", EINVAL_, NULL, MD(dipA, SUP_NAN)),
     C(mcd_binary_brokaw, "VbA 0", EDOM_, NULL, MD(Vb, 0.0)),
-    C(mcd_binary_brokaw, "VbB inf", EINVAL_, NULL, MD(VbB, INFINITY)),
+    C(mcd_binary_brokaw, "VbB inf", EINVAL_, NULL, MD(VbB, SUP_INF)),
     C(mcd_binary_brokaw, "TbA negative", EDOM_, NULL, MD(TbA, -300.0)),
     B(mcd_binary_wilke_chang, MCD_OK),
-    C(mcd_binary_wilke_chang, "T NaN", EINVAL_, NULL, MD(T, NAN)),
+    C(mcd_binary_wilke_chang, "T NaN", EINVAL_, NULL, MD(T, SUP_NAN)),
     C(mcd_binary_wilke_chang, "T 0", EDOM_, NULL, MD(T, 0.0)),
     C(mcd_binary_wilke_chang, "mu 0", EDOM_, NULL, MD(mu, 0.0)),
-    C(mcd_binary_wilke_chang, "mu inf", EINVAL_, NULL, MD(mu, INFINITY)),
+    C(mcd_binary_wilke_chang, "mu inf", EINVAL_, NULL, MD(mu, SUP_INF)),
     C(mcd_binary_wilke_chang, "M_solvent negative", EDOM_, NULL,
       MD(Ms, -0.018)),
     C(mcd_binary_wilke_chang, "phi 0", EDOM_, NULL, MD(phi, 0.0)),
-    C(mcd_binary_wilke_chang, "Vb NaN", EINVAL_, NULL, MD(Vb, NAN)),
+    C(mcd_binary_wilke_chang, "Vb NaN", EINVAL_, NULL, MD(Vb, SUP_NAN)),
     C(mcd_binary_wilke_chang, "Vb 0", EDOM_, NULL, MD(Vb, 0.0)),
     C(mcd_binary_wilke_chang, "out NULL", EINVAL_, NULL, MN(NB_O1)),
     B(mcd_binary_omega_d, MCD_OK),
     C(mcd_binary_omega_d, "T* 0", EDOM_, NULL, MD(Tstar, 0.0)),
     C(mcd_binary_omega_d, "T* negative", EDOM_, NULL, MD(Tstar, -1.0)),
-    C(mcd_binary_omega_d, "T* NaN", EINVAL_, NULL, MD(Tstar, NAN)),
-    C(mcd_binary_omega_d, "T* inf", EINVAL_, NULL, MD(Tstar, INFINITY)),
+    C(mcd_binary_omega_d, "T* NaN", EINVAL_, NULL, MD(Tstar, SUP_NAN)),
+    C(mcd_binary_omega_d, "T* inf", EINVAL_, NULL, MD(Tstar, SUP_INF)),
     C(mcd_binary_omega_d, "out NULL", EINVAL_, NULL, MN(NB_O1)),
     B(mcd_binary_scale, MCD_OK),
     C(mcd_binary_scale, "D_ref 0", EDOM_, NULL, MD(D_ref, 0.0)),
-    C(mcd_binary_scale, "D_ref NaN", EINVAL_, NULL, MD(D_ref, NAN)),
+    C(mcd_binary_scale, "D_ref NaN", EINVAL_, NULL, MD(D_ref, SUP_NAN)),
     C(mcd_binary_scale, "T_ref negative", EDOM_, NULL, MD(T_ref, -298.0)),
     C(mcd_binary_scale, "P_ref 0", EDOM_, NULL, MD(P_ref, 0.0)),
     C(mcd_binary_scale, "T 0", EDOM_, NULL, MD(T, 0.0)),
-    C(mcd_binary_scale, "P inf", EINVAL_, NULL, MD(P, INFINITY)),
-    C(mcd_binary_scale, "exponent NaN", EINVAL_, NULL, MD(expo, NAN)),
+    C(mcd_binary_scale, "P inf", EINVAL_, NULL, MD(P, SUP_INF)),
+    C(mcd_binary_scale, "exponent NaN", EINVAL_, NULL, MD(expo, SUP_NAN)),
     C(mcd_binary_scale, "out NULL", EINVAL_, NULL, MN(NB_O1)),
     C(mcd_binary_scale, "result overflows", EDOM_, NULL, MD(expo, 400.0),
       MD(T, 3000.0)),
@@ -1506,8 +1506,8 @@ static const bcase cases[] = {
     C(mcd_db_binary_gas, "method RECOMMENDED (mixtures only)", EINVAL_,
       "method", MI(method, MCD_GAS_RECOMMENDED)),
     C(mcd_db_binary_gas, "T 0", EDOM_, NULL, MD(T, 0.0)),
-    C(mcd_db_binary_gas, "P NaN", EINVAL_, NULL, MD(P, NAN)),
-    C(mcd_db_binary_gas, "T -inf", EINVAL_, NULL, MD(T, -INFINITY)),
+    C(mcd_db_binary_gas, "P NaN", EINVAL_, NULL, MD(P, SUP_NAN)),
+    C(mcd_db_binary_gas, "T -inf", EINVAL_, NULL, MD(T, -SUP_INF)),
     C(mcd_db_binary_gas, "sigma missing", MCD_ENODATA, NULL, MZ(ga, PROBE),
       MI(method, MCD_METHOD_CHAPMAN_ENSKOG)),
     C(mcd_db_binary_gas, "Wilke-Lee below M_AB 0.105 g/mol", EDOM_, NULL,
@@ -1519,7 +1519,7 @@ static const bcase cases[] = {
       MZ(sol, 100000)),
     C(mcd_db_binary_liquid, "solvent out of range", MCD_ENOTFOUND, NULL,
       MZ(solv, 100000)),
-    C(mcd_db_binary_liquid, "T NaN", EINVAL_, NULL, MD(T, NAN)),
+    C(mcd_db_binary_liquid, "T NaN", EINVAL_, NULL, MD(T, SUP_NAN)),
     C(mcd_db_binary_liquid, "T 0", EDOM_, NULL, MD(T, 0.0)),
     C(mcd_db_binary_liquid, "mu 0", EDOM_, NULL, MD(mu, 0.0)),
     C(mcd_db_binary_liquid, "mu negative", EDOM_, NULL, MD(mu, -1e-3)),
@@ -1537,7 +1537,7 @@ static const bcase cases[] = {
     C(mcd_db_binary_explain, "method 99", EINVAL_, "method", MI(method, 99)),
     C(mcd_db_binary_explain, "a out of range", MCD_ENOTFOUND, NULL,
       MZ(ga, 100000)),
-    C(mcd_db_binary_explain, "T NaN", EINVAL_, NULL, MD(T, NAN)),
+    C(mcd_db_binary_explain, "T NaN", EINVAL_, NULL, MD(T, SUP_NAN)),
     C(mcd_db_binary_explain, "P 0", EDOM_, NULL, MD(P, 0.0)),
     C(mcd_db_binary_explain, "sigma missing", MCD_ENODATA, NULL, MZ(ga, PROBE),
       MI(method, MCD_METHOD_CHAPMAN_ENSKOG)),
@@ -1593,19 +1593,19 @@ static const bcase cases[] = {
     C(mcd_mixture_set_binary, "mix NULL", EINVAL_, NULL, MN(NB_MIX)),
     C(mcd_mixture_set_binary, "i == j", EINVAL_, NULL, MZ(j, 0)),
     C(mcd_mixture_set_binary, "i = n", MCD_EBADLEN, NULL, MZ(i, 3)),
-    C(mcd_mixture_set_binary, "D NaN", EINVAL_, NULL, MD(value, NAN)),
+    C(mcd_mixture_set_binary, "D NaN", EINVAL_, NULL, MD(value, SUP_NAN)),
     C(mcd_mixture_set_binary, "D 0", EDOM_, NULL, MD(value, 0.0)),
     C(mcd_mixture_set_binary, "D negative", EDOM_, NULL, MD(value, -1e-5)),
     C(mcd_mixture_set_binary, "T_ref negative", EDOM_, NULL, MD(T_ref, -1.0)),
     C(mcd_mixture_set_binary, "P_ref 0", EDOM_, NULL, MD(P_ref, 0.0)),
-    C(mcd_mixture_set_binary, "P_ref inf", EINVAL_, NULL, MD(P_ref, INFINITY)),
+    C(mcd_mixture_set_binary, "P_ref inf", EINVAL_, NULL, MD(P_ref, SUP_INF)),
     B(mcd_mixture_binaries, MCD_OK),
     C(mcd_mixture_binaries, "mix NULL", EINVAL_, NULL, MN(NB_MIX)),
     C(mcd_mixture_binaries, "out_D NULL", EINVAL_, NULL, MN(NB_O1)),
     C(mcd_mixture_binaries, "T 0", EDOM_, NULL, MD(T, 0.0)),
-    C(mcd_mixture_binaries, "T NaN", EINVAL_, NULL, MD(T, NAN)),
+    C(mcd_mixture_binaries, "T NaN", EINVAL_, NULL, MD(T, SUP_NAN)),
     C(mcd_mixture_binaries, "P negative", EDOM_, NULL, MD(P, -1.0)),
-    C(mcd_mixture_binaries, "P inf", EINVAL_, NULL, MD(P, INFINITY)),
+    C(mcd_mixture_binaries, "P inf", EINVAL_, NULL, MD(P, SUP_INF)),
 
     /* ---- workspaces ---- */
     B(mcd_workspace_new, MCD_OK),
@@ -1638,16 +1638,17 @@ static const bcase cases[] = {
         C(fn, "n SIZE_MAX", MCD_EBADLEN, "n_species", MZ(n, SIZE_MAX)),        \
         C(fn, "Dij NULL", EINVAL_, "Dij", MN(NB_D)),                           \
         C(fn, "comp NULL", EINVAL_, "comp", MN(NB_X)),                         \
-        C(fn, "comp NaN", EINVAL_, "comp", MDA(x, 1, NAN)),                    \
+        C(fn, "comp NaN", EINVAL_, "comp", MDA(x, 1, SUP_NAN)),                \
         C(fn, "comp negative", EDOM_, "comp", MDA(x, 1, -0.1),                 \
           MDA(x, 0, 0.9)),                                                     \
         C(fn, "comp sum 0.5", EDOM_, "comp", MDA(x, 0, 0.0)),                  \
         C(fn, "comp sum 1.1", EDOM_, "comp", MDA(x, 0, 0.6)),                  \
         C(fn, "x_i = 1 + 1e-3", EDOM_, "comp", MDA(x, 0, 1.001),               \
           MDA(x, 1, 0.0), MDA(x, 2, 0.0)),                                     \
-        C(fn, "Dij NaN", EINVAL_, "Dij", MDA(D, 1, NAN), MDA(D, 3, NAN)),      \
-        C(fn, "Dij inf", EINVAL_, "Dij", MDA(D, 5, INFINITY),                  \
-          MDA(D, 7, INFINITY)),                                                \
+        C(fn, "Dij NaN", EINVAL_, "Dij", MDA(D, 1, SUP_NAN),                   \
+          MDA(D, 3, SUP_NAN)),                                                 \
+        C(fn, "Dij inf", EINVAL_, "Dij", MDA(D, 5, SUP_INF),                   \
+          MDA(D, 7, SUP_INF)),                                                 \
         C(fn, "Dij 0", EDOM_, "Dij", MDA(D, 1, 0.0), MDA(D, 3, 0.0)),          \
         C(fn, "Dij negative", EDOM_, "Dij", MDA(D, 2, -1.6e-5),                \
           MDA(D, 6, -1.6e-5)),                                                 \
@@ -1655,12 +1656,12 @@ static const bcase cases[] = {
         C(fn, "Dij asymmetric by 1e-9", EDOM_, "Dij",                          \
           MDA(D, 1, 2.0e-5 * (1 + 1e-9))),                                     \
         C(fn, "Gamma NaN", EINVAL_, "Gamma", MI(use_gamma, 1),                 \
-          MDA(Gamma, 4, NAN)),                                                 \
+          MDA(Gamma, 4, SUP_NAN)),                                             \
         C(fn, "comp basis 7", EINVAL_, NULL, MI(basis, 7)),                    \
         C(fn, "mass comp without M", EINVAL_, "M", MI(basis, MCD_BASIS_MASS),  \
           MN(NB_M)),                                                           \
         C(fn, "M NaN (mass comp)", EINVAL_, "M", MI(basis, MCD_BASIS_MASS),    \
-          MDA(M, 1, NAN)),                                                     \
+          MDA(M, 1, SUP_NAN)),                                                 \
         C(fn, "M 0 (mass comp)", EDOM_, "M", MI(basis, MCD_BASIS_MASS),        \
           MDA(M, 2, 0.0)),                                                     \
         C(fn, "M span > 1e12 (mass comp)", EDOM_, "span",                      \
@@ -1680,21 +1681,21 @@ static const bcase cases[] = {
     C(mcd_flux_compute, "flux basis -1", EINVAL_, NULL, MI(basis2, -1)),
     C(mcd_flux_compute, "grad NULL", EINVAL_, "grad", MN(NB_GRAD)),
     C(mcd_flux_compute, "out NULL", EINVAL_, "out_flux", MN(NB_O1)),
-    C(mcd_flux_compute, "grad NaN", EINVAL_, "grad", MDA(grad, 2, NAN)),
-    C(mcd_flux_compute, "grad inf", EINVAL_, "grad", MDA(grad, 5, INFINITY)),
+    C(mcd_flux_compute, "grad NaN", EINVAL_, "grad", MDA(grad, 2, SUP_NAN)),
+    C(mcd_flux_compute, "grad inf", EINVAL_, "grad", MDA(grad, 5, SUP_INF)),
     C(mcd_flux_compute, "grad_lnP NaN", EINVAL_, "grad_lnP", MI(use_glnp, 1),
-      MDA(glnP, 1, NAN)),
+      MDA(glnP, 1, SUP_NAN)),
     C(mcd_flux_compute, "kT without grad_lnT", EINVAL_, "grad_lnT",
       MI(use_kT, 1)),
     C(mcd_flux_compute, "grad_lnT without kT", EINVAL_, "kT", MI(use_kT, 2)),
     C(mcd_flux_compute, "kT NaN", EINVAL_, "kT", MI(use_kT, 3),
-      MDA(kT, 1, NAN)),
+      MDA(kT, 1, SUP_NAN)),
     C(mcd_flux_compute, "grad_lnT inf", EINVAL_, "grad_lnT", MI(use_kT, 3),
-      MDA(glnT, 1, INFINITY)),
+      MDA(glnT, 1, SUP_INF)),
     C(mcd_flux_compute, "MA model, kT inf", EINVAL_, "kT", MI(use_kT, 3),
-      MI(model, MCD_MODEL_MIXTURE_AVERAGED), MDA(kT, 2, -INFINITY)),
-    C(mcd_flux_compute, "c NaN", EINVAL_, "c", MD(c, NAN)),
-    C(mcd_flux_compute, "c inf", EINVAL_, "c", MD(c, INFINITY)),
+      MI(model, MCD_MODEL_MIXTURE_AVERAGED), MDA(kT, 2, -SUP_INF)),
+    C(mcd_flux_compute, "c NaN", EINVAL_, "c", MD(c, SUP_NAN)),
+    C(mcd_flux_compute, "c inf", EINVAL_, "c", MD(c, SUP_INF)),
     C(mcd_flux_compute, "c 0", EDOM_, "c", MD(c, 0.0)),
     C(mcd_flux_compute, "c negative", EDOM_, "c", MD(c, -40.0)),
     C(mcd_flux_compute, "c subnormal", EDOM_, "c", MD(c, 4.9e-324)),
@@ -1703,7 +1704,8 @@ static const bcase cases[] = {
     C(mcd_flux_compute, "pressure gradient without M", EINVAL_, "M",
       MI(use_glnp, 1), MN(NB_M)),
     C(mcd_flux_compute, "MA model, Dij NaN", EINVAL_, "Dij",
-      MI(model, MCD_MODEL_MIXTURE_AVERAGED), MDA(D, 1, NAN), MDA(D, 3, NAN)),
+      MI(model, MCD_MODEL_MIXTURE_AVERAGED), MDA(D, 1, SUP_NAN),
+      MDA(D, 3, SUP_NAN)),
     C(mcd_flux_compute, "MA model, comp negative", EDOM_, "comp",
       MI(model, MCD_MODEL_MIXTURE_AVERAGED), MDA(x, 1, -0.1), MDA(x, 0, 0.9)),
     C(mcd_flux_compute, "MA model, c 0", EDOM_, "c",
@@ -1719,7 +1721,8 @@ static const bcase cases[] = {
       MDA(x, 0, 0.9)),
     C(mcd_flux_jacobian_comp, "Dij 0", EDOM_, "Dij", MDA(D, 1, 0.0),
       MDA(D, 3, 0.0)),
-    C(mcd_flux_jacobian_comp, "grad NaN", EINVAL_, "grad", MDA(grad, 2, NAN)),
+    C(mcd_flux_jacobian_comp, "grad NaN", EINVAL_, "grad",
+      MDA(grad, 2, SUP_NAN)),
     C(mcd_flux_jacobian_comp, "c 0", EDOM_, "c", MD(c, 0.0)),
     C(mcd_flux_jacobian_comp, "pressure gradient without M", EINVAL_, "M",
       MI(use_glnp, 1), MN(NB_M)),
@@ -1745,7 +1748,7 @@ static const bcase cases[] = {
     C(mcd_flux_jacobian_tp, "both outputs NULL", EINVAL_, "out_dT", MN(NB_O1),
       MN(NB_O2)),
     C(mcd_flux_jacobian_tp, "T 0", EDOM_, "argument T", MD(T, 0.0)),
-    C(mcd_flux_jacobian_tp, "P NaN", EINVAL_, "argument P", MD(P, NAN)),
+    C(mcd_flux_jacobian_tp, "P NaN", EINVAL_, "argument P", MD(P, SUP_NAN)),
     C(mcd_flux_jacobian_tp, "dDij_dT NULL", EINVAL_, "dDij_dT", MN(NB_GAMMA)),
     C(mcd_flux_jacobian_tp, "dDij_dP NULL", EINVAL_, "dDij_dP", MN(NB_F)),
     C(mcd_flux_jacobian_tp, "comp negative", EDOM_, "comp", MDA(x, 1, -0.1),
@@ -1777,11 +1780,11 @@ static const bcase cases[] = {
     C(mcd_thermal_ratios, "Dij NULL", EINVAL_, "Dij", MN(NB_D)),
     C(mcd_thermal_ratios, "Dij 0", EDOM_, "Dij", MDA(D, 1, 0.0),
       MDA(D, 3, 0.0)),
-    C(mcd_thermal_ratios, "comp NaN", EINVAL_, "comp", MDA(x, 1, NAN)),
+    C(mcd_thermal_ratios, "comp NaN", EINVAL_, "comp", MDA(x, 1, SUP_NAN)),
     C(mcd_thermal_ratios, "comp sum 0.5", EDOM_, "comp", MDA(x, 0, 0.0)),
     C(mcd_thermal_ratios, "c 0", EDOM_, "c", MD(c, 0.0)),
     C(mcd_thermal_ratios, "DT NULL", EINVAL_, "DT", MN(NB_VALS)),
-    C(mcd_thermal_ratios, "DT NaN", EINVAL_, "DT", MDA(DT, 2, NAN)),
+    C(mcd_thermal_ratios, "DT NaN", EINVAL_, "DT", MDA(DT, 2, SUP_NAN)),
     C(mcd_thermal_ratios, "out NULL", EINVAL_, "out_kT", MN(NB_O1)),
     C(mcd_thermal_ratios, "comp basis 7", EINVAL_, "comp_basis", MI(basis, 7)),
     FLUX_COMMON(mcd_fick_matrix),
@@ -1807,12 +1810,12 @@ static const bcase cases[] = {
     C(mcd_fick_fluxes, "D NULL", EINVAL_, NULL, MN(NB_F)),
     C(mcd_fick_fluxes, "grad NULL", EINVAL_, NULL, MN(NB_GRAD)),
     C(mcd_fick_fluxes, "out NULL", EINVAL_, NULL, MN(NB_O1)),
-    C(mcd_fick_fluxes, "D NaN", EINVAL_, NULL, MDA(F, 3, NAN)),
+    C(mcd_fick_fluxes, "D NaN", EINVAL_, NULL, MDA(F, 3, SUP_NAN)),
     C(mcd_fick_fluxes, "grad NaN (independent row)", EINVAL_, NULL,
-      MDA(grad, 3, NAN)),
+      MDA(grad, 3, SUP_NAN)),
     C(mcd_fick_fluxes, "grad NaN in the ignored dependent row", MCD_OK, NULL,
-      MDA(grad, 0, NAN), MDA(grad, 1, INFINITY)),
-    C(mcd_fick_fluxes, "conc NaN", EINVAL_, NULL, MD(conc, NAN)),
+      MDA(grad, 0, SUP_NAN), MDA(grad, 1, SUP_INF)),
+    C(mcd_fick_fluxes, "conc NaN", EINVAL_, NULL, MD(conc, SUP_NAN)),
     C(mcd_fick_fluxes, "finite inputs, fluxes overflow", EDOM_, NULL,
       MDA(F, 0, 1e300), MDA(grad, 2, 1e300)),
     C(mcd_fick_fluxes, "conc 0", EDOM_, NULL, MD(conc, 0.0)),
@@ -1825,8 +1828,8 @@ static const bcase cases[] = {
     C(mcd_fick_eigenvalues, "D NULL", EINVAL_, "D", MN(NB_F)),
     C(mcd_fick_eigenvalues, "out_re NULL", EINVAL_, "out_re", MN(NB_O1)),
     C(mcd_fick_eigenvalues, "out_im NULL", EINVAL_, "out_im", MN(NB_O2)),
-    C(mcd_fick_eigenvalues, "D NaN", EINVAL_, "D", MDA(F, 1, NAN)),
-    C(mcd_fick_eigenvalues, "D inf", EINVAL_, "D", MDA(F, 0, INFINITY)),
+    C(mcd_fick_eigenvalues, "D NaN", EINVAL_, "D", MDA(F, 1, SUP_NAN)),
+    C(mcd_fick_eigenvalues, "D inf", EINVAL_, "D", MDA(F, 0, SUP_INF)),
 
 /* ---- frames ---- */
 #define FRAME_COMMON(fn, xlen_ok)                                              \
@@ -1837,27 +1840,28 @@ static const bcase cases[] = {
         C(fn, "n_dim 4", EINVAL_, NULL, MZ(nd, 4)),                            \
         C(fn, "x NULL", EINVAL_, NULL, MN(NB_X)),                              \
         C(fn, "out NULL", EINVAL_, NULL, MN(NB_O1)),                           \
-        C(fn, "x NaN", EINVAL_, NULL, MDA(x, 2, NAN)),                         \
+        C(fn, "x NaN", EINVAL_, NULL, MDA(x, 2, SUP_NAN)),                     \
         C(fn, "x negative", EDOM_, NULL, MDA(x, 2, -0.2), MDA(x, 0, 0.9)),     \
         C(fn, "x sum 0.8", EDOM_, NULL, MDA(x, 2, 0.0)),                       \
         C(fn, "J NULL", EINVAL_, NULL, MN(NB_J)),                              \
-        C(fn, "J NaN", EINVAL_, NULL, MDA(J, 4, NAN)),                         \
-        C(fn, "J inf", EINVAL_, NULL, MDA(J, 1, -INFINITY))
+        C(fn, "J NaN", EINVAL_, NULL, MDA(J, 4, SUP_NAN)),                     \
+        C(fn, "J inf", EINVAL_, NULL, MDA(J, 1, -SUP_INF))
     FRAME_COMMON(mcd_flux_convert, 1),
     C(mcd_flux_convert, "M NULL", EINVAL_, NULL, MN(NB_M)),
     C(mcd_flux_convert, "M 0", EDOM_, NULL, MDA(M, 0, 0.0)),
-    C(mcd_flux_convert, "M NaN", EINVAL_, NULL, MDA(M, 0, NAN)),
+    C(mcd_flux_convert, "M NaN", EINVAL_, NULL, MDA(M, 0, SUP_NAN)),
     C(mcd_flux_convert, "from 3", EINVAL_, NULL, MI(basis, 3)),
     C(mcd_flux_convert, "to -1", EINVAL_, NULL, MI(basis2, -1)),
     C(mcd_flux_convert, "j/M overflows", EDOM_, NULL, MI(basis, MCD_BASIS_MASS),
       MDA(J, 0, 1e307)),
     FRAME_COMMON(mcd_flux_to_volume_frame, 1),
     C(mcd_flux_to_volume_frame, "Vbar NULL", EINVAL_, NULL, MN(NB_VBAR)),
-    C(mcd_flux_to_volume_frame, "Vbar NaN", EINVAL_, NULL, MDA(Vbar, 1, NAN)),
+    C(mcd_flux_to_volume_frame, "Vbar NaN", EINVAL_, NULL,
+      MDA(Vbar, 1, SUP_NAN)),
     C(mcd_flux_to_volume_frame, "sum x Vbar != 1/c", EDOM_, NULL,
       MDA(Vbar, 0, 0.05)),
     C(mcd_flux_to_volume_frame, "c 0", EDOM_, NULL, MD(c, 0.0)),
-    C(mcd_flux_to_volume_frame, "c NaN", EINVAL_, NULL, MD(c, NAN)),
+    C(mcd_flux_to_volume_frame, "c NaN", EINVAL_, NULL, MD(c, SUP_NAN)),
     C(mcd_flux_to_volume_frame, "sum Vbar J overflows", EDOM_, NULL,
       MDA(J, 0, 1.7e308), MDA(J, 2, 1.7e308), MDA(J, 4, 1.7e308)),
     FRAME_COMMON(mcd_flux_to_species_frame, 1),
@@ -1874,14 +1878,14 @@ static const bcase cases[] = {
     C(mcd_flux_total, "TOTAL, values NULL", EINVAL_, NULL,
       MI(kind, MCD_BOOT_TOTAL), MN(NB_VALS)),
     C(mcd_flux_total, "TOTAL, values NaN", EINVAL_, NULL,
-      MI(kind, MCD_BOOT_TOTAL), MDA(vals, 1, NAN)),
+      MI(kind, MCD_BOOT_TOTAL), MDA(vals, 1, SUP_NAN)),
     C(mcd_flux_total, "WEIGHTS, values NULL", EINVAL_, NULL,
       MI(kind, MCD_BOOT_WEIGHTS), MN(NB_VALS)),
     C(mcd_flux_total, "WEIGHTS, sum nu x = 0", EDOM_, NULL,
       MI(kind, MCD_BOOT_WEIGHTS), MDA(vals, 0, 0.0), MDA(vals, 1, 0.0),
       MDA(vals, 2, 0.0)),
     C(mcd_flux_total, "WEIGHTS, nu inf", EINVAL_, NULL,
-      MI(kind, MCD_BOOT_WEIGHTS), MDA(vals, 2, INFINITY)),
+      MI(kind, MCD_BOOT_WEIGHTS), MDA(vals, 2, SUP_INF)),
     C(mcd_flux_total, "STAGNANT species = n", EINVAL_, NULL,
       MI(kind, MCD_BOOT_STAGNANT), MZ(species, 3)),
     C(mcd_flux_total, "STAGNANT species absent", EDOM_, NULL,
@@ -1895,7 +1899,7 @@ static const bcase cases[] = {
     C(mcd_flux_velocity_difference, "M negative", EDOM_, NULL,
       MDA(M, 1, -0.032)),
     C(mcd_flux_velocity_difference, "c 0", EDOM_, NULL, MD(c, 0.0)),
-    C(mcd_flux_velocity_difference, "c inf", EINVAL_, NULL, MD(c, INFINITY)),
+    C(mcd_flux_velocity_difference, "c inf", EINVAL_, NULL, MD(c, SUP_INF)),
     C(mcd_flux_velocity_difference, "v - u overflows", EDOM_, NULL,
       MD(c, 1e-300), MDA(J, 0, 1e300)),
     B(mcd_flux_project, MCD_OK),
@@ -1904,9 +1908,9 @@ static const bcase cases[] = {
     C(mcd_flux_project, "n_dim 0", EINVAL_, NULL, MZ(nd, 0)),
     C(mcd_flux_project, "n_dim 4", EINVAL_, NULL, MZ(nd, 4)),
     C(mcd_flux_project, "inout NULL", EINVAL_, NULL, MN(NB_O1)),
-    C(mcd_flux_project, "inout NaN", EINVAL_, NULL, MDA(o.o1, 3, NAN)),
-    C(mcd_flux_project, "inout inf", EINVAL_, NULL, MDA(o.o1, 0, INFINITY)),
-    C(mcd_flux_project, "weights NaN", EINVAL_, NULL, MDA(vals, 1, NAN)),
+    C(mcd_flux_project, "inout NaN", EINVAL_, NULL, MDA(o.o1, 3, SUP_NAN)),
+    C(mcd_flux_project, "inout inf", EINVAL_, NULL, MDA(o.o1, 0, SUP_INF)),
+    C(mcd_flux_project, "weights NaN", EINVAL_, NULL, MDA(vals, 1, SUP_NAN)),
     C(mcd_flux_project, "weights negative", EDOM_, NULL, MDA(vals, 1, -0.2)),
     C(mcd_flux_project, "sum overflows", EDOM_, NULL, MDA(o.o1, 0, 1.7e308),
       MDA(o.o1, 2, 1.7e308)),
@@ -1920,11 +1924,11 @@ static const bcase cases[] = {
     C(mcd_flux_diagnose, "grad NULL", EINVAL_, NULL, MN(NB_GRAD)),
     C(mcd_flux_diagnose, "flux NULL", EINVAL_, NULL, MN(NB_J)),
     C(mcd_flux_diagnose, "flags NULL", EINVAL_, NULL, MN(NB_OU)),
-    C(mcd_flux_diagnose, "grad NaN", EINVAL_, NULL, MDA(grad, 1, NAN)),
-    C(mcd_flux_diagnose, "flux inf", EINVAL_, NULL, MDA(J, 1, INFINITY)),
+    C(mcd_flux_diagnose, "grad NaN", EINVAL_, NULL, MDA(grad, 1, SUP_NAN)),
+    C(mcd_flux_diagnose, "flux inf", EINVAL_, NULL, MDA(J, 1, SUP_INF)),
     C(mcd_flux_diagnose, "rel_tol 0", EINVAL_, NULL, MD(tol_diag, 0.0)),
     C(mcd_flux_diagnose, "rel_tol 1", EINVAL_, NULL, MD(tol_diag, 1.0)),
-    C(mcd_flux_diagnose, "rel_tol NaN", EINVAL_, NULL, MD(tol_diag, NAN)),
+    C(mcd_flux_diagnose, "rel_tol NaN", EINVAL_, NULL, MD(tol_diag, SUP_NAN)),
 
 /* ---- batched fluxes: one cell (K = 1), so that the failing cell is
      * the only one and nothing at all may be written ---- */
@@ -1939,25 +1943,25 @@ static const bcase cases[] = {
         C(fn, "grad NULL", EINVAL_, "grad", MN(NB_GRAD)),                      \
         C(fn, "out NULL", EINVAL_, "out_flux", MN(NB_O1)),                     \
         C(fn, "capacity 2 < N", MCD_EBADLEN, NULL, MI(use_small_ws, 1)),       \
-        C(fn, "comp NaN", EINVAL_, "cell", MDA(x, 1, NAN)),                    \
+        C(fn, "comp NaN", EINVAL_, "cell", MDA(x, 1, SUP_NAN)),                \
         C(fn, "comp negative", EDOM_, "cell", MDA(x, 1, -0.1),                 \
           MDA(x, 0, 0.9)),                                                     \
         C(fn, "comp sum 0.5", EDOM_, "cell", MDA(x, 0, 0.0)),                  \
-        C(fn, "grad inf", EINVAL_, "cell", MDA(grad, 3, INFINITY)),            \
+        C(fn, "grad inf", EINVAL_, "cell", MDA(grad, 3, SUP_INF)),             \
         C(fn, "grad_lnP NaN", EINVAL_, "cell", MI(use_glnp, 1),                \
-          MDA(glnP, 1, NAN)),                                                  \
-        C(fn, "kT NaN", EINVAL_, "cell", MI(use_kT, 3), MDA(kT, 1, NAN)),      \
+          MDA(glnP, 1, SUP_NAN)),                                              \
+        C(fn, "kT NaN", EINVAL_, "cell", MI(use_kT, 3), MDA(kT, 1, SUP_NAN)),  \
         C(fn, "grad_lnT inf", EINVAL_, "cell", MI(use_kT, 3),                  \
-          MDA(glnT, 0, INFINITY)),                                             \
+          MDA(glnT, 0, SUP_INF)),                                              \
         C(fn, "kT without grad_lnT", EINVAL_, "grad_lnT", MI(use_kT, 1))
 #define BATCH_MIX(fn)                                                          \
     BATCH_COMMON(fn), C(fn, "mix NULL", EINVAL_, "mix", MN(NB_MIX)),           \
         C(fn, "T NULL", EINVAL_, "T", MN(NB_T)),                               \
         C(fn, "P NULL", EINVAL_, "P", MN(NB_VBAR)),                            \
-        C(fn, "T NaN", EINVAL_, "cell", MDA(Tc, 0, NAN)),                      \
+        C(fn, "T NaN", EINVAL_, "cell", MDA(Tc, 0, SUP_NAN)),                  \
         C(fn, "T 0", EDOM_, "cell", MDA(Tc, 0, 0.0)),                          \
         C(fn, "T negative", EDOM_, "cell", MDA(Tc, 0, -300.0)),                \
-        C(fn, "P inf", EINVAL_, "cell", MDA(Pc, 0, INFINITY)),                 \
+        C(fn, "P inf", EINVAL_, "cell", MDA(Pc, 0, SUP_INF)),                  \
         C(fn, "P 0", EDOM_, "cell", MDA(Pc, 0, 0.0)),                          \
         C(fn, "P / (R T) subnormal", EDOM_, "concentration",                   \
           MDA(Pc, 0, 1e-300), MDA(Tc, 0, 1e10))
@@ -1970,8 +1974,8 @@ static const bcase cases[] = {
       MZ(n, BIG)),
     C(mcd_flux_batch_dij, "Dij NULL", EINVAL_, "Dij", MN(NB_D)),
     C(mcd_flux_batch_dij, "c NULL", EINVAL_, "c", MN(NB_VALS)),
-    C(mcd_flux_batch_dij, "Dij NaN", EINVAL_, "cell", MDA(D, 1, NAN),
-      MDA(D, 3, NAN)),
+    C(mcd_flux_batch_dij, "Dij NaN", EINVAL_, "cell", MDA(D, 1, SUP_NAN),
+      MDA(D, 3, SUP_NAN)),
     C(mcd_flux_batch_dij, "Dij 0", EDOM_, "cell", MDA(D, 1, 0.0),
       MDA(D, 3, 0.0)),
     C(mcd_flux_batch_dij, "Dij subnormal", EDOM_, "subnormal",
@@ -1982,7 +1986,7 @@ static const bcase cases[] = {
     /* a subnormal c is EDOM as in mcd_flux_compute (found by fuzz_flux:
      * the batched check took c > 0 and the fluxes underflowed unevenly) */
     C(mcd_flux_batch_dij, "c subnormal", EDOM_, "normal", MDA(cc, 0, 4.9e-324)),
-    C(mcd_flux_batch_dij, "c NaN", EINVAL_, "cell", MDA(cc, 0, NAN)),
+    C(mcd_flux_batch_dij, "c NaN", EINVAL_, "cell", MDA(cc, 0, SUP_NAN)),
     C(mcd_flux_batch_dij, "mass comp without M", EINVAL_, "M",
       MI(basis, MCD_BASIS_MASS), MN(NB_M)),
     C(mcd_flux_batch_dij, "M span > 1e12 (mass comp)", EDOM_, "span",
@@ -1993,9 +1997,10 @@ static const bcase cases[] = {
       MZ(max_iter, 0)),
     C(mcd_workspace_set_iterative, "max_iter 1001", EINVAL_, "max_iter",
       MZ(max_iter, 1001)),
-    C(mcd_workspace_set_iterative, "tol NaN", EINVAL_, "tol", MD(tol_it, NAN)),
+    C(mcd_workspace_set_iterative, "tol NaN", EINVAL_, "tol",
+      MD(tol_it, SUP_NAN)),
     C(mcd_workspace_set_iterative, "tol inf", EINVAL_, "tol",
-      MD(tol_it, INFINITY)),
+      MD(tol_it, SUP_INF)),
     C(mcd_workspace_set_iterative, "tol negative", EINVAL_, "tol",
       MD(tol_it, -1e-10)),
     B(mcd_workspace_iterative_outcome, MCD_OK),
@@ -2009,9 +2014,9 @@ static const bcase cases[] = {
     B(mcd_mixture_set_temperature_fit, MCD_OK),
     C(mcd_mixture_set_temperature_fit, "mix NULL", EINVAL_, NULL, MN(NB_MIX)),
     C(mcd_mixture_set_temperature_fit, "T_min NaN", EINVAL_, NULL,
-      MD(Tlo, NAN)),
+      MD(Tlo, SUP_NAN)),
     C(mcd_mixture_set_temperature_fit, "T_max inf", EINVAL_, NULL,
-      MD(Thi, INFINITY)),
+      MD(Thi, SUP_INF)),
     C(mcd_mixture_set_temperature_fit, "T_min > T_max", EDOM_, NULL,
       MD(Tlo, 900.0)),
     C(mcd_mixture_set_temperature_fit, "T_min = T_max", EDOM_, NULL,
@@ -2031,23 +2036,24 @@ static const bcase cases[] = {
         C(fn, "n above capacity", MCD_EBADLEN, "n_species", MZ(n, 4)),         \
         C(fn, "n above MCD_MAX_SPECIES", EINVAL_, "n_species", MZ(n, BIG)),    \
         C(fn, "Dij NULL", EINVAL_, "Dij", MN(NB_D)),                           \
-        C(fn, "Dij NaN", EINVAL_, "Dij", MDA(D, 1, NAN), MDA(D, 3, NAN)),      \
+        C(fn, "Dij NaN", EINVAL_, "Dij", MDA(D, 1, SUP_NAN),                   \
+          MDA(D, 3, SUP_NAN)),                                                 \
         C(fn, "Dij 0", EDOM_, "Dij", MDA(D, 5, 0.0), MDA(D, 7, 0.0)),          \
         C(fn, "Dij not symmetric", EDOM_, "Dij", MDA(D, 2, 1.7e-5)),           \
         C(fn, "Dij subnormal", EDOM_, "subnormal", MDA(D, 1, 4.9e-324),        \
           MDA(D, 3, 4.9e-324)),                                                \
-        C(fn, "c NaN", EINVAL_, "c", MD(c, NAN)),                              \
+        C(fn, "c NaN", EINVAL_, "c", MD(c, SUP_NAN)),                          \
         C(fn, "c 0", EDOM_, "c", MD(c, 0.0)),                                  \
-        C(fn, "L inf", EINVAL_, "L", MD(L, INFINITY)),                         \
+        C(fn, "L inf", EINVAL_, "L", MD(L, SUP_INF)),                          \
         C(fn, "L negative", EDOM_, "L", MD(L, -1e-3)),                         \
         C(fn, "x0 NULL", EINVAL_, x0w, MN(NB_X)),                              \
-        C(fn, "x0 NaN", EINVAL_, x0w, MDA(x, 1, NAN)),                         \
+        C(fn, "x0 NaN", EINVAL_, x0w, MDA(x, 1, SUP_NAN)),                     \
         C(fn, "x0 negative", EDOM_, x0w, MDA(x, 1, -0.3), MDA(x, 0, 1.1)),     \
         C(fn, "x0 sum 0.7", EDOM_, x0w, MDA(x, 1, 0.0))
     XFER_COMMON(mcd_film_solve, "x0"),
     C(mcd_film_solve, "xL NULL", EINVAL_, "xL", MN(NB_X2)),
     C(mcd_film_solve, "xL sum 1.2", EDOM_, "xL", MDA(x2, 1, 0.5)),
-    C(mcd_film_solve, "xL NaN", EINVAL_, "xL", MDA(x2, 2, NAN)),
+    C(mcd_film_solve, "xL NaN", EINVAL_, "xL", MDA(x2, 2, SUP_NAN)),
     C(mcd_film_solve, "out_N NULL", EINVAL_, "out_N", MN(NB_O1)),
     C(mcd_film_solve, "kind 17", EINVAL_, NULL, MI(kind, 17)),
     C(mcd_film_solve, "method 2", EINVAL_, NULL, MI(film_method, 2)),
@@ -2059,7 +2065,7 @@ static const bcase cases[] = {
     C(mcd_film_solve, "TOTAL values NULL", EINVAL_, NULL,
       MI(kind, MCD_FILM_BOOT_TOTAL), MN(NB_VALS)),
     C(mcd_film_solve, "TOTAL N_t NaN", EINVAL_, NULL,
-      MI(kind, MCD_FILM_BOOT_TOTAL), MDA(vals, 0, NAN)),
+      MI(kind, MCD_FILM_BOOT_TOTAL), MDA(vals, 0, SUP_NAN)),
     C(mcd_film_solve, "WEIGHTS all zero", EDOM_, NULL,
       MI(kind, MCD_FILM_BOOT_WEIGHTS), MDA(vals, 0, 0.0), MDA(vals, 1, 0.0),
       MDA(vals, 2, 0.0)),
@@ -2071,33 +2077,34 @@ static const bcase cases[] = {
       MI(kind, MCD_FILM_BOOT_TOTAL), MDA(vals, 0, 1e9)),
     XFER_COMMON(mcd_film_profile, "x0"),
     C(mcd_film_profile, "N NULL", EINVAL_, "N", MN(NB_NF)),
-    C(mcd_film_profile, "N NaN", EINVAL_, "N", MDA(Nf, 1, NAN)),
+    C(mcd_film_profile, "N NaN", EINVAL_, "N", MDA(Nf, 1, SUP_NAN)),
     C(mcd_film_profile, "z NULL", EINVAL_, "z", MN(NB_Z)),
     C(mcd_film_profile, "out_x NULL", EINVAL_, "out_x", MN(NB_O1)),
     C(mcd_film_profile, "z > L", EDOM_, "z", MDA(zz, 1, 2e-3)),
     C(mcd_film_profile, "z negative", EDOM_, "z", MDA(zz, 0, -1e-9)),
-    C(mcd_film_profile, "z NaN", EINVAL_, "z", MDA(zz, 1, NAN)),
+    C(mcd_film_profile, "z NaN", EINVAL_, "z", MDA(zz, 1, SUP_NAN)),
     XFER_COMMON(mcd_bulbs_linearized, "x1_0"),
     C(mcd_bulbs_linearized, "x2_0 NULL", EINVAL_, "x2_0", MN(NB_X2)),
     C(mcd_bulbs_linearized, "x2_0 negative", EDOM_, "x2_0", MDA(x2, 0, -0.2),
       MDA(x2, 2, 0.9)),
     C(mcd_bulbs_linearized, "V1 0", EDOM_, "V1", MD(V1, 0.0)),
-    C(mcd_bulbs_linearized, "V2 NaN", EINVAL_, "V2", MD(V2, NAN)),
-    C(mcd_bulbs_linearized, "A inf", EINVAL_, "A", MD(A, INFINITY)),
+    C(mcd_bulbs_linearized, "V2 NaN", EINVAL_, "V2", MD(V2, SUP_NAN)),
+    C(mcd_bulbs_linearized, "A inf", EINVAL_, "A", MD(A, SUP_INF)),
     C(mcd_bulbs_linearized, "A negative", EDOM_, "A", MD(A, -1e-5)),
     C(mcd_bulbs_linearized, "t NULL", EINVAL_, "t", MN(NB_T)),
     C(mcd_bulbs_linearized, "out_x1 NULL", EINVAL_, "out_x1", MN(NB_O1)),
     C(mcd_bulbs_linearized, "out_x2 NULL", EINVAL_, "out_x2", MN(NB_O2)),
     C(mcd_bulbs_linearized, "t negative", EDOM_, "t", MDA(tt, 1, -1.0)),
-    C(mcd_bulbs_linearized, "t NaN", EINVAL_, "t", MDA(tt, 0, NAN)),
+    C(mcd_bulbs_linearized, "t NaN", EINVAL_, "t", MDA(tt, 0, SUP_NAN)),
     XFER_COMMON(mcd_bulbs_integrate, "x1_0"),
     C(mcd_bulbs_integrate, "x2_0 NULL", EINVAL_, "x2_0", MN(NB_X2)),
     C(mcd_bulbs_integrate, "V2 0", EDOM_, "V2", MD(V2, 0.0)),
     C(mcd_bulbs_integrate, "t decreasing", EDOM_, "t", MDA(tt, 0, 20.0)),
-    C(mcd_bulbs_integrate, "t inf", EINVAL_, "t", MDA(tt, 1, INFINITY)),
+    C(mcd_bulbs_integrate, "t inf", EINVAL_, "t", MDA(tt, 1, SUP_INF)),
     C(mcd_bulbs_integrate, "rel_tol 0", EDOM_, "rel_tol", MD(tol_ode, 0.0)),
     C(mcd_bulbs_integrate, "rel_tol 0.5", EDOM_, "rel_tol", MD(tol_ode, 0.5)),
-    C(mcd_bulbs_integrate, "rel_tol NaN", EINVAL_, "rel_tol", MD(tol_ode, NAN)),
+    C(mcd_bulbs_integrate, "rel_tol NaN", EINVAL_, "rel_tol",
+      MD(tol_ode, SUP_NAN)),
     B(mcd_liquid_new, MCD_OK),
     C(mcd_liquid_new, "out_liq NULL", EINVAL_, "out_liq", MN(NB_OLIQ)),
     C(mcd_liquid_new, "n 0", EINVAL_, "n_species", MZ(n, 0)),
@@ -2112,23 +2119,25 @@ static const bcase cases[] = {
     C(mcd_liquid_set_species, "i = n", EINVAL_, "i", MZ(i, 3)),
     C(mcd_liquid_set_species, "p 3", EINVAL_, "p", MI(lparam, 3)),
     C(mcd_liquid_set_species, "p -1", EINVAL_, "p", MI(lparam, -1)),
-    C(mcd_liquid_set_species, "value NaN", EINVAL_, "value", MD(value, NAN)),
+    C(mcd_liquid_set_species, "value NaN", EINVAL_, "value",
+      MD(value, SUP_NAN)),
     C(mcd_liquid_set_species, "value 0", EDOM_, "value", MD(value, 0.0)),
     B(mcd_liquid_set_pair, MCD_OK),
     C(mcd_liquid_set_pair, "liq NULL", EINVAL_, "liq", MN(NB_LIQ)),
     C(mcd_liquid_set_pair, "coef_ij NULL", EINVAL_, "coef_ij", MN(NB_CIJ)),
     C(mcd_liquid_set_pair, "i == j", EINVAL_, "pair", MZ(j, 0)),
     C(mcd_liquid_set_pair, "j = n", EINVAL_, "pair", MZ(j, 3)),
-    C(mcd_liquid_set_pair, "coef NaN", EINVAL_, "coef_ij", MDA(cij, 1, NAN)),
-    C(mcd_liquid_set_pair, "alpha NaN", EINVAL_, "alpha", MD(alpha, NAN)),
+    C(mcd_liquid_set_pair, "coef NaN", EINVAL_, "coef_ij",
+      MDA(cij, 1, SUP_NAN)),
+    C(mcd_liquid_set_pair, "alpha NaN", EINVAL_, "alpha", MD(alpha, SUP_NAN)),
     C(mcd_liquid_set_pair, "alpha 1.5", EDOM_, "alpha", MD(alpha, 1.5)),
     C(mcd_liquid_set_pair, "T range reversed", EDOM_, "T_min", MD(Tmin, 400.0)),
-    C(mcd_liquid_set_pair, "T_max inf", EINVAL_, "T_max", MD(Tmax, INFINITY)),
+    C(mcd_liquid_set_pair, "T_max inf", EINVAL_, "T_max", MD(Tmax, SUP_INF)),
     B(mcd_liquid_set_dinf, MCD_OK),
     C(mcd_liquid_set_dinf, "liq NULL", EINVAL_, "liq", MN(NB_LIQ)),
     C(mcd_liquid_set_dinf, "i == j", EINVAL_, "pair", MZ(j, 0)),
     C(mcd_liquid_set_dinf, "i = n", EINVAL_, "pair", MZ(i, 3)),
-    C(mcd_liquid_set_dinf, "D NaN", EINVAL_, "D_i_in_j", MD(Din1, NAN)),
+    C(mcd_liquid_set_dinf, "D NaN", EINVAL_, "D_i_in_j", MD(Din1, SUP_NAN)),
     C(mcd_liquid_set_dinf, "D 0", EDOM_, "D_j_in_i", MD(Din2, 0.0)),
     C(mcd_liquid_set_dinf, "D subnormal", EDOM_, "D_i_in_j", MD(Din1, 1e-310)),
     B(mcd_liquid_eval, MCD_OK),
@@ -2136,9 +2145,9 @@ static const bcase cases[] = {
     C(mcd_liquid_eval, "liq NULL", EINVAL_, "liq", MN(NB_LIQ)),
     C(mcd_liquid_eval, "x NULL", EINVAL_, "x", MN(NB_X)),
     C(mcd_liquid_eval, "T 0", EDOM_, "T", MD(T, 0.0)),
-    C(mcd_liquid_eval, "T NaN", EINVAL_, "T", MD(T, NAN)),
+    C(mcd_liquid_eval, "T NaN", EINVAL_, "T", MD(T, SUP_NAN)),
     C(mcd_liquid_eval, "x negative", EDOM_, "x", MDA(x, 0, -0.5)),
-    C(mcd_liquid_eval, "x NaN", EINVAL_, "x", MDA(x, 1, NAN)),
+    C(mcd_liquid_eval, "x NaN", EINVAL_, "x", MDA(x, 1, SUP_NAN)),
     C(mcd_liquid_eval, "workspace too small", MCD_EBADLEN, NULL,
       MI(use_small_ws, 1)),
     B(mcd_liquid_flux_batch, MCD_OK),
@@ -2164,27 +2173,27 @@ static const bcase cases[] = {
     C(mcd_liquid_flux_batch, "mass fluxes without M", EINVAL_, "M",
       MI(basis2, MCD_BASIS_MASS), MN(NB_M)),
     C(mcd_liquid_flux_batch, "T NaN", EINVAL_, "cell 0: argument T",
-      MDA(Tc, 0, NAN)),
+      MDA(Tc, 0, SUP_NAN)),
     C(mcd_liquid_flux_batch, "T 0", EDOM_, "cell 0: argument T",
       MDA(Tc, 0, 0.0)),
     C(mcd_liquid_flux_batch, "c 0", EDOM_, "cell 0: argument c",
       MDA(cc, 0, 0.0)),
     C(mcd_liquid_flux_batch, "comp NaN", EINVAL_, "cell 0: argument comp",
-      MDA(x, 1, NAN)),
+      MDA(x, 1, SUP_NAN)),
     C(mcd_liquid_flux_batch, "comp negative", EDOM_, "cell 0: argument comp",
       MDA(x, 1, -0.1), MDA(x, 0, 0.9)),
     C(mcd_liquid_flux_batch, "grad inf", EINVAL_, "cell 0: argument grad",
-      MDA(grad, 3, INFINITY)),
+      MDA(grad, 3, SUP_INF)),
     C(mcd_liquid_flux_batch, "kT NaN", EINVAL_, "cell 0: argument kT",
-      MI(use_kT, 3), MDA(kT, 1, NAN)),
+      MI(use_kT, 3), MDA(kT, 1, SUP_NAN)),
     C(mcd_liquid_flux_batch, "Vbar NaN", EINVAL_, "cell 0: argument Vbar",
-      MDA(Vbar, 1, NAN)),
+      MDA(Vbar, 1, SUP_NAN)),
     C(mcd_liquid_flux_batch, "Vbar and c disagree", EDOM_,
       "cell 0: argument Vbar", MDA(Vbar, 0, 1.0)),
     B(mcd_liquid_set_antoine, MCD_OK),
     C(mcd_liquid_set_antoine, "liq NULL", EINVAL_, "liq", MN(NB_LIQ)),
     C(mcd_liquid_set_antoine, "i = n", EINVAL_, "i", MZ(i, 3)),
-    C(mcd_liquid_set_antoine, "A NaN", EINVAL_, "A", MD(antA, NAN)),
+    C(mcd_liquid_set_antoine, "A NaN", EINVAL_, "A", MD(antA, SUP_NAN)),
     C(mcd_liquid_set_antoine, "B 0", EDOM_, "B", MD(antB, 0.0)),
     C(mcd_liquid_set_antoine, "range reversed", EDOM_, "T_min",
       MD(Tmin, 400.0)),
@@ -2209,14 +2218,14 @@ static const bcase cases[] = {
       MZ(n, 2)),
     C(mcd_liquid_evaporation, "P 0", EDOM_, "P", MD(P, 0.0)),
     C(mcd_liquid_evaporation, "rho_liquid NaN", EINVAL_, "rho_liquid",
-      MD(rhoL, NAN)),
+      MD(rhoL, SUP_NAN)),
     C(mcd_liquid_evaporation, "boiling", EDOM_, "P", MD(P, 1000.0)),
     C(mcd_liquid_evaporation, "x_liq negative", EDOM_, "x", MDA(xl2, 0, -0.4)),
     C(mcd_liquid_evaporation, "L 0", EDOM_, "L", MD(L, 0.0)),
     C(mcd_liquid_evaporation, "workspace too small", MCD_EBADLEN, NULL,
       MI(use_small_ws, 1)),
     B(mcd_binary_tyn_calus, MCD_OK),
-    C(mcd_binary_tyn_calus, "T NaN", EINVAL_, NULL, MD(T, NAN)),
+    C(mcd_binary_tyn_calus, "T NaN", EINVAL_, NULL, MD(T, SUP_NAN)),
     C(mcd_binary_tyn_calus, "mu 0", EDOM_, NULL, MD(mu, 0.0)),
     C(mcd_binary_tyn_calus, "Vb 0", EDOM_, NULL, MD(Vb, 0.0)),
     C(mcd_binary_tyn_calus, "Vb solvent negative", EDOM_, NULL, MD(VA, -1.0)),
@@ -2224,12 +2233,12 @@ static const bcase cases[] = {
     B(mcd_method_temperature_range, MCD_OK),
     C(mcd_method_temperature_range, "method fsg", EINVAL_, "method",
       MI(method, 2 * MCD_METHOD_FSG - MCD_METHOD_WILKE_CHANG)),
-    C(mcd_method_temperature_range, "T NaN", EINVAL_, "T", MD(T, NAN)),
+    C(mcd_method_temperature_range, "T NaN", EINVAL_, "T", MD(T, SUP_NAN)),
     C(mcd_method_temperature_range, "T 0", EDOM_, "T", MD(T, 0.0)),
     B(mcd_binary_hayduk_minhas, MCD_OK),
     C(mcd_binary_hayduk_minhas, "T 0", EDOM_, NULL, MD(T, 0.0)),
-    C(mcd_binary_hayduk_minhas, "mu inf", EINVAL_, NULL, MD(mu, INFINITY)),
-    C(mcd_binary_hayduk_minhas, "Vb NaN", EINVAL_, NULL, MD(Vb, NAN)),
+    C(mcd_binary_hayduk_minhas, "mu inf", EINVAL_, NULL, MD(mu, SUP_INF)),
+    C(mcd_binary_hayduk_minhas, "Vb NaN", EINVAL_, NULL, MD(Vb, SUP_NAN)),
     C(mcd_binary_hayduk_minhas, "Vb beyond the correlation", EDOM_, NULL,
       MD(Vb, 1e-3)),
     C(mcd_binary_hayduk_minhas, "out NULL", EINVAL_, NULL, MN(NB_O1)),
@@ -2237,13 +2246,13 @@ static const bcase cases[] = {
     /* ---- gas viscosity ---- */
     B(mcd_viscosity_omega22, MCD_OK),
     C(mcd_viscosity_omega22, "T* 0", EDOM_, "T_star", MD(Tstar, 0.0)),
-    C(mcd_viscosity_omega22, "T* NaN", EINVAL_, "T_star", MD(Tstar, NAN)),
+    C(mcd_viscosity_omega22, "T* NaN", EINVAL_, "T_star", MD(Tstar, SUP_NAN)),
     C(mcd_viscosity_omega22, "out NULL", EINVAL_, "out_omega", MN(NB_O1)),
     B(mcd_viscosity_chapman_enskog, MCD_OK),
     C(mcd_viscosity_chapman_enskog, "T negative", EDOM_, "T", MD(T, -1.0)),
     C(mcd_viscosity_chapman_enskog, "M 0", EDOM_, "M", MD(MA, 0.0)),
     C(mcd_viscosity_chapman_enskog, "sigma inf", EINVAL_, "sigma",
-      MD(sigA, INFINITY)),
+      MD(sigA, SUP_INF)),
     C(mcd_viscosity_chapman_enskog, "eps_k 0", EDOM_, "eps_k", MD(epsA, 0.0)),
     C(mcd_viscosity_chapman_enskog, "out NULL", EINVAL_, "out_mu", MN(NB_O1)),
     B(mcd_viscosity_wilke, MCD_OK),
@@ -2253,7 +2262,7 @@ static const bcase cases[] = {
     C(mcd_viscosity_wilke, "mu NULL", EINVAL_, "mu", MN(NB_VALS)),
     C(mcd_viscosity_wilke, "x NULL", EINVAL_, "x", MN(NB_X)),
     C(mcd_viscosity_wilke, "mu negative", EDOM_, "mu", MDA(mus, 1, -1e-5)),
-    C(mcd_viscosity_wilke, "mu NaN", EINVAL_, "mu", MDA(mus, 2, NAN)),
+    C(mcd_viscosity_wilke, "mu NaN", EINVAL_, "mu", MDA(mus, 2, SUP_NAN)),
     C(mcd_viscosity_wilke, "M 0", EDOM_, "M", MDA(M, 0, 0.0)),
     C(mcd_viscosity_wilke, "x sum 1.5", EDOM_, "x", MDA(x, 0, 1.0)),
     C(mcd_viscosity_wilke, "out NULL", EINVAL_, "out_mu", MN(NB_O1)),
@@ -2265,7 +2274,7 @@ static const bcase cases[] = {
     C(mcd_db_viscosity_gas, "species without sigma", MCD_ENODATA, "sigma",
       MZ(ga, PROBE)),
     C(mcd_db_viscosity_gas, "T 0", EDOM_, "T", MD(T, 0.0)),
-    C(mcd_db_viscosity_gas, "T NaN", EINVAL_, "T", MD(T, NAN)),
+    C(mcd_db_viscosity_gas, "T NaN", EINVAL_, "T", MD(T, SUP_NAN)),
     B(mcd_mixture_viscosities, MCD_OK),
     C(mcd_mixture_viscosities, "mix NULL", EINVAL_, "mix", MN(NB_MIX)),
     C(mcd_mixture_viscosities, "out NULL", EINVAL_, "out_mu", MN(NB_O1)),
@@ -2275,14 +2284,15 @@ static const bcase cases[] = {
     C(mcd_lj_collision_integrals, "T* 0", EDOM_, "T_star", MD(Tstar, 0.0)),
     C(mcd_lj_collision_integrals, "T* above the table", EDOM_, "T_star",
       MD(Tstar, 200.0)),
-    C(mcd_lj_collision_integrals, "T* NaN", EINVAL_, "T_star", MD(Tstar, NAN)),
+    C(mcd_lj_collision_integrals, "T* NaN", EINVAL_, "T_star",
+      MD(Tstar, SUP_NAN)),
     B(mcd_thermal_factor_kinetic, MCD_OK),
     C(mcd_thermal_factor_kinetic, "M1 0", EDOM_, "M1", MD(MA, 0.0)),
-    C(mcd_thermal_factor_kinetic, "x1 NaN", EINVAL_, "x1", MDA(x, 0, NAN)),
+    C(mcd_thermal_factor_kinetic, "x1 NaN", EINVAL_, "x1", MDA(x, 0, SUP_NAN)),
     C(mcd_thermal_factor_kinetic, "out NULL", EINVAL_, "out_alpha", MN(NB_O1)),
     B(mcd_thermal_factor_ce, MCD_OK),
     C(mcd_thermal_factor_ce, "T 0", EDOM_, "T", MD(T, 0.0)),
-    C(mcd_thermal_factor_ce, "sigma NaN", EINVAL_, "sig1", MD(sigA, NAN)),
+    C(mcd_thermal_factor_ce, "sigma NaN", EINVAL_, "sig1", MD(sigA, SUP_NAN)),
     C(mcd_thermal_factor_ce, "out NULL", EINVAL_, "out_alpha", MN(NB_O1)),
     B(mcd_db_thermal_factor, MCD_OK),
     C(mcd_db_thermal_factor, "db NULL", EINVAL_, "db", MN(NB_DB)),
@@ -2291,7 +2301,7 @@ static const bcase cases[] = {
       MZ(ga, 100000)),
     C(mcd_db_thermal_factor, "species without sigma", MCD_ENODATA, "sigma",
       MZ(ga, PROBE)),
-    C(mcd_db_thermal_factor, "T NaN", EINVAL_, "T", MD(T, NAN)),
+    C(mcd_db_thermal_factor, "T NaN", EINVAL_, "T", MD(T, SUP_NAN)),
     B(mcd_mixture_thermal_ratios, MCD_OK),
     C(mcd_mixture_thermal_ratios, "mix NULL", EINVAL_, "mix", MN(NB_MIX)),
     C(mcd_mixture_thermal_ratios, "x NULL", EINVAL_, "x", MN(NB_X)),
@@ -2316,13 +2326,14 @@ static const bcase cases[] = {
     C(mcd_dufour_heat_flux_batch, "out NULL", EINVAL_, "out_q", MN(NB_O1)),
     C(mcd_dufour_heat_flux_batch, "n_dim 0", EINVAL_, "n_dim", MZ(nd, 0)),
     C(mcd_dufour_heat_flux_batch, "T 0", EDOM_, "cell", MDA(Tc, 0, 0.0)),
-    C(mcd_dufour_heat_flux_batch, "T NaN", EINVAL_, "cell", MDA(Tc, 0, NAN)),
+    C(mcd_dufour_heat_flux_batch, "T NaN", EINVAL_, "cell",
+      MDA(Tc, 0, SUP_NAN)),
     C(mcd_dufour_heat_flux_batch, "x negative", EDOM_, "cell", MDA(x, 1, -0.1),
       MDA(x, 0, 0.9)),
     C(mcd_dufour_heat_flux_batch, "theta NaN", EINVAL_, "theta",
-      MDA(vals, 1, NAN)),
+      MDA(vals, 1, SUP_NAN)),
     C(mcd_dufour_heat_flux_batch, "flux inf", EINVAL_, "flux",
-      MDA(J, 1, INFINITY)),
+      MDA(J, 1, SUP_INF)),
     /* ---- porous media ---- */
     B(mcd_pore_permeability, MCD_OK),
     C(mcd_pore_permeability, "pore NULL", EINVAL_, "pore", MN(NB_PORE)),
@@ -2332,29 +2343,29 @@ static const bcase cases[] = {
     C(mcd_pore_permeability, "porosity 1.2", EDOM_, "porosity",
       MD(pore.porosity, 1.2)),
     C(mcd_pore_permeability, "porosity NaN", EINVAL_, "porosity",
-      MD(pore.porosity, NAN)),
+      MD(pore.porosity, SUP_NAN)),
     C(mcd_pore_permeability, "tortuosity 0.5", EDOM_, "tortuosity",
       MD(pore.tortuosity, 0.5)),
     C(mcd_pore_permeability, "d_pore 0", EDOM_, "d_pore", MD(pore.d_pore, 0.0)),
     C(mcd_pore_permeability, "permeability negative", EDOM_, "permeability",
       MD(pore.permeability, -1e-15)),
     C(mcd_pore_permeability, "permeability inf", EINVAL_, "permeability",
-      MD(pore.permeability, INFINITY)),
+      MD(pore.permeability, SUP_INF)),
     B(mcd_pore_effective, MCD_OK),
     C(mcd_pore_effective, "pore NULL", EINVAL_, "pore", MN(NB_PORE)),
     C(mcd_pore_effective, "D 0", EDOM_, "D", MD(D_ref, 0.0)),
     C(mcd_pore_effective, "tortuosity NaN", EINVAL_, "tortuosity",
-      MD(pore.tortuosity, NAN)),
+      MD(pore.tortuosity, SUP_NAN)),
     C(mcd_pore_effective, "out NULL", EINVAL_, "out_De", MN(NB_O1)),
     B(mcd_knudsen_diffusivity, MCD_OK),
     C(mcd_knudsen_diffusivity, "d_pore negative", EDOM_, "d_pore",
       MD(pore.d_pore, -1e-9)),
-    C(mcd_knudsen_diffusivity, "M NaN", EINVAL_, "M", MD(MA, NAN)),
+    C(mcd_knudsen_diffusivity, "M NaN", EINVAL_, "M", MD(MA, SUP_NAN)),
     C(mcd_knudsen_diffusivity, "T 0", EDOM_, "T", MD(T, 0.0)),
     C(mcd_knudsen_diffusivity, "out NULL", EINVAL_, "out_DK", MN(NB_O1)),
     B(mcd_bosanquet, MCD_OK),
     C(mcd_bosanquet, "D_m 0", EDOM_, "D_m", MD(D_ref, 0.0)),
-    C(mcd_bosanquet, "D_K NaN", EINVAL_, "D_K", MD(Dk, NAN)),
+    C(mcd_bosanquet, "D_K NaN", EINVAL_, "D_K", MD(Dk, SUP_NAN)),
     C(mcd_bosanquet, "out NULL", EINVAL_, "out_D", MN(NB_O1)),
     B(mcd_dgm_fluxes, MCD_OK),
     C(mcd_dgm_fluxes, "ws NULL", EINVAL_, "ws", MN(NB_WS)),
@@ -2372,7 +2383,7 @@ static const bcase cases[] = {
     C(mcd_dgm_fluxes, "permeability negative", EDOM_, "permeability",
       MD(pore.permeability, -1.0)),
     C(mcd_dgm_fluxes, "P negative", EDOM_, "P", MD(P, -1.0)),
-    C(mcd_dgm_fluxes, "T NaN", EINVAL_, "T", MD(T, NAN)),
+    C(mcd_dgm_fluxes, "T NaN", EINVAL_, "T", MD(T, SUP_NAN)),
     C(mcd_dgm_fluxes, "mu 0", EDOM_, "mu", MD(mug, 0.0)),
     C(mcd_dgm_fluxes, "M NULL", EINVAL_, "M", MN(NB_M)),
     C(mcd_dgm_fluxes, "Dij NULL", EINVAL_, "Dij", MN(NB_D)),
@@ -2381,19 +2392,20 @@ static const bcase cases[] = {
     C(mcd_dgm_fluxes, "x negative", EDOM_, "x", MDA(x, 1, -0.1)),
     C(mcd_dgm_fluxes, "x NULL", EINVAL_, "x", MN(NB_X)),
     C(mcd_dgm_fluxes, "grad_x NULL", EINVAL_, "grad_x", MN(NB_GRAD)),
-    C(mcd_dgm_fluxes, "grad_x NaN", EINVAL_, "grad_x", MDA(grad, 3, NAN)),
-    C(mcd_dgm_fluxes, "grad_P inf", EINVAL_, "grad_P", MDA(gP, 1, INFINITY)),
+    C(mcd_dgm_fluxes, "grad_x NaN", EINVAL_, "grad_x", MDA(grad, 3, SUP_NAN)),
+    C(mcd_dgm_fluxes, "grad_P inf", EINVAL_, "grad_P", MDA(gP, 1, SUP_INF)),
     B(mcd_dgm_closed, MCD_OK),
     C(mcd_dgm_closed, "N_t NULL", EINVAL_, "N_t", MN(NB_NF)),
-    C(mcd_dgm_closed, "N_t NaN", EINVAL_, "N_t", MDA(Nt, 0, NAN)),
+    C(mcd_dgm_closed, "N_t NaN", EINVAL_, "N_t", MDA(Nt, 0, SUP_NAN)),
     C(mcd_dgm_closed, "out_grad_P NULL", EINVAL_, "out_grad_P", MN(NB_O2)),
     C(mcd_dgm_closed, "porosity 0", EDOM_, "porosity", MD(pore.porosity, 0.0)),
     C(mcd_dgm_closed, "P 0", EDOM_, "P", MD(P, 0.0)),
     B(mcd_dgm_gradients, MCD_OK),
     C(mcd_dgm_gradients, "N NULL", EINVAL_, "N", MN(NB_J)),
-    C(mcd_dgm_gradients, "N NaN", EINVAL_, "N", MDA(J, 2, NAN)),
+    C(mcd_dgm_gradients, "N NaN", EINVAL_, "N", MDA(J, 2, SUP_NAN)),
     C(mcd_dgm_gradients, "out_grad_x NULL", EINVAL_, "out_grad_x", MN(NB_O1)),
-    C(mcd_dgm_gradients, "d_pore NaN", EINVAL_, "d_pore", MD(pore.d_pore, NAN)),
+    C(mcd_dgm_gradients, "d_pore NaN", EINVAL_, "d_pore",
+      MD(pore.d_pore, SUP_NAN)),
     C(mcd_dgm_gradients, "mu negative", EDOM_, "mu", MD(mug, -2e-5)),
     B(mcd_dgm_fluxes_batch, MCD_OK),
     C(mcd_dgm_fluxes_batch, "cells NULL", EINVAL_, "cells", MN(NB_DGM)),
@@ -2408,7 +2420,7 @@ static const bcase cases[] = {
     C(mcd_dgm_fluxes_batch, "cell P 0", EDOM_, "P", MDA(Pc, 0, 0.0)),
     C(mcd_dgm_fluxes_batch, "cell x negative", EDOM_, "x", MDA(x, 1, -0.1)),
     C(mcd_dgm_fluxes_batch, "cell grad NaN", EINVAL_, "grad_x",
-      MDA(grad, 2, NAN)),
+      MDA(grad, 2, SUP_NAN)),
     B(mcd_slab_solve, MCD_OK),
     C(mcd_slab_solve, "slab NULL", EINVAL_, "slab", MN(NB_DGM)),
     C(mcd_slab_solve, "pore NULL", EINVAL_, "pore", MN(NB_PORE)),
@@ -2416,7 +2428,7 @@ static const bcase cases[] = {
     C(mcd_slab_solve, "PL negative", EDOM_, "PL", MDA(Pc, 1, -1.0)),
     C(mcd_slab_solve, "P0 0", EDOM_, "P0", MD(P, 0.0)),
     C(mcd_slab_solve, "L 0", EDOM_, "L", MD(L, 0.0)),
-    C(mcd_slab_solve, "mu NaN", EINVAL_, "mu", MD(mug, NAN)),
+    C(mcd_slab_solve, "mu NaN", EINVAL_, "mu", MD(mug, SUP_NAN)),
     C(mcd_slab_solve, "P_ref 0", EDOM_, "P_ref", MD(P_ref, 0.0)),
     C(mcd_slab_solve, "tortuosity 0.5", EDOM_, "tortuosity",
       MD(pore.tortuosity, 0.5)),
@@ -2427,19 +2439,20 @@ static const bcase cases[] = {
     C(mcd_slab_solve, "stagnant species 7", EINVAL_, "species",
       MI(kind, MCD_BOOT_EQUIMOLAR + MCD_SLAB_STAGNANT), MZ(species, 7)),
     C(mcd_slab_solve, "total NaN", EINVAL_, "value",
-      MI(kind, MCD_BOOT_EQUIMOLAR + MCD_SLAB_TOTAL), MD(value, NAN)),
+      MI(kind, MCD_BOOT_EQUIMOLAR + MCD_SLAB_TOTAL), MD(value, SUP_NAN)),
     B(mcd_slab_solve_ratios, MCD_OK),
     C(mcd_slab_solve_ratios, "slab NULL", EINVAL_, "slab", MN(NB_DGM)),
     C(mcd_slab_solve_ratios, "ratios NULL", EINVAL_, "ratios", MN(NB_VALS)),
     C(mcd_slab_solve_ratios, "out_N NULL", EINVAL_, "out_N", MN(NB_O1)),
-    C(mcd_slab_solve_ratios, "ratios NaN", EINVAL_, "ratios", MDA(zr, 1, NAN)),
+    C(mcd_slab_solve_ratios, "ratios NaN", EINVAL_, "ratios",
+      MDA(zr, 1, SUP_NAN)),
     C(mcd_slab_solve_ratios, "ratios sum 2", EDOM_, "ratios", MDA(zr, 0, 2.0)),
     C(mcd_slab_solve_ratios, "species 7", EINVAL_, "species", MZ(species, 7)),
     C(mcd_slab_solve_ratios, "xL NULL", EINVAL_, "xL", MN(NB_X2)),
     C(mcd_slab_solve_ratios, "P0 0", EDOM_, "P0", MD(P, 0.0)),
     B(mcd_slab_profile, MCD_OK),
     C(mcd_slab_profile, "N NULL", EINVAL_, "N", MN(NB_NF)),
-    C(mcd_slab_profile, "N NaN", EINVAL_, "N", MDA(Nt, 1, NAN)),
+    C(mcd_slab_profile, "N NaN", EINVAL_, "N", MDA(Nt, 1, SUP_NAN)),
     C(mcd_slab_profile, "z NULL", EINVAL_, "z", MN(NB_Z)),
     C(mcd_slab_profile, "z beyond L", EDOM_, "z", MDA(zz, 1, 1.0)),
     C(mcd_slab_profile, "out_P NULL", EINVAL_, "out_P", MN(NB_O2)),
@@ -3026,9 +3039,9 @@ START_TEST(bad_input_dij_every_entry)
         double f;
         mcd_status st;
     } bad[] = {
-        {(double)NAN, 0, MCD_EINVAL},
-        {(double)INFINITY, 0, MCD_EINVAL},
-        {-(double)INFINITY, 0, MCD_EINVAL},
+        {SUP_NAN, 0, MCD_EINVAL},
+        {(double)SUP_INF, 0, MCD_EINVAL},
+        {-(double)SUP_INF, 0, MCD_EINVAL},
         {-1e-5, 0, MCD_EDOM},
         {4.9e-324, 0, MCD_EDOM},
         {0, 1 + 1e-9, MCD_EDOM},
@@ -3063,7 +3076,7 @@ START_TEST(bad_input_dij_every_entry)
                     char want[64], want2[64];
                     mcd_status got;
                     if (i == j)
-                        D[i * n + j] = k % 2 ? (double)NAN : -1.0; /* ignored */
+                        D[i * n + j] = k % 2 ? SUP_NAN : -1.0; /* ignored */
                     else
                         D[i * n + j] =
                             bad[k].f != 0 ? keep * bad[k].f : bad[k].v;

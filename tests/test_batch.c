@@ -596,7 +596,7 @@ START_TEST(batch_errors_name_the_cell_and_write_nothing_on_argument_errors)
     ck_assert(sup_guard_intact(out, N * ND * K));
     ck_assert_int_eq(mcd_workspace_set_iterative(ws, 0, 1e-8), MCD_EINVAL);
     ck_assert_int_eq(mcd_workspace_set_iterative(ws, 10, -1.0), MCD_EINVAL);
-    ck_assert_int_eq(mcd_workspace_set_iterative(ws, 10, NAN), MCD_EINVAL);
+    ck_assert_int_eq(mcd_workspace_set_iterative(ws, 10, SUP_NAN), MCD_EINVAL);
     ck_assert_int_eq(mcd_workspace_set_iterative(NULL, 10, 1e-8), MCD_EINVAL);
     ck_assert_int_eq(mcd_workspace_iterative_outcome(NULL, NULL, NULL),
                      MCD_EINVAL);
@@ -609,14 +609,14 @@ START_TEST(batch_errors_name_the_cell_and_write_nothing_on_argument_errors)
             double v;
             mcd_status st;
         } bad[] = {
-            {&s.c[9], NAN, MCD_EINVAL},
+            {&s.c[9], SUP_NAN, MCD_EINVAL},
             {&s.c[9], -1.0, MCD_EDOM},
             {&s.comp[1 * K + 9], -0.1, MCD_EDOM},
-            {&s.comp[2 * K + 9], NAN, MCD_EINVAL},
+            {&s.comp[2 * K + 9], SUP_NAN, MCD_EINVAL},
             {&s.comp[0 * K + 9], 3.0, MCD_EDOM},
-            {&s.grad[3 * K + 9], INFINITY, MCD_EINVAL},
+            {&s.grad[3 * K + 9], SUP_INF, MCD_EINVAL},
             {&s.D[(0 * N + 1) * K + 9], 0.0, MCD_EDOM},
-            {&s.D[(2 * N + 1) * K + 9], NAN, MCD_EINVAL},
+            {&s.D[(2 * N + 1) * K + 9], SUP_NAN, MCD_EINVAL},
             {&s.D[(1 * N + 3) * K + 9], 1.1e-5, MCD_EDOM} /* asymmetric */,
         };
         for (i = 0; i < sizeof bad / sizeof bad[0]; i++) {
@@ -703,7 +703,7 @@ START_TEST(batch_errors_name_the_cell_and_write_nothing_on_argument_errors)
                          MCD_EDOM);
         ck_assert_str_eq(mcd_last_error(), "cell 4: argument T: -3 is not > 0");
         s.T[4] = 400.0;
-        s.P[10] = NAN;
+        s.P[10] = SUP_NAN;
         ck_assert_int_eq(mcd_flux_batch(ws, m, 0, s.T, s.P,
                                         &(mcd_cells){.n_cells = K,
                                                      .n_dim = ND,
@@ -758,16 +758,16 @@ START_TEST(batch_bad_cells_in_full_and_tail_blocks_are_named)
             double v;
             mcd_status st;
         } bad[] = {
-            {&s.c[k], NAN, MCD_EINVAL},
+            {&s.c[k], SUP_NAN, MCD_EINVAL},
             {&s.c[k], 0.0, MCD_EDOM},
             {&s.comp[1 * K + k], -0.1, MCD_EDOM},
-            {&s.comp[2 * K + k], INFINITY, MCD_EINVAL},
+            {&s.comp[2 * K + k], SUP_INF, MCD_EINVAL},
             {&s.comp[0 * K + k], 3.0, MCD_EDOM} /* sum */,
-            {&s.grad[7 * K + k], -INFINITY, MCD_EINVAL},
-            {&s.grad[0 * K + k], NAN, MCD_EINVAL},
+            {&s.grad[7 * K + k], -SUP_INF, MCD_EINVAL},
+            {&s.grad[0 * K + k], SUP_NAN, MCD_EINVAL},
             {&s.D[(2 * N + 0) * K + k], 1e-310, MCD_EDOM} /* subnormal */,
-            {&s.D[(0 * N + 2) * K + k], INFINITY, MCD_EINVAL},
-            {&s.D[(1 * N + 2) * K + k], NAN, MCD_EINVAL},
+            {&s.D[(0 * N + 2) * K + k], SUP_INF, MCD_EINVAL},
+            {&s.D[(1 * N + 2) * K + k], SUP_NAN, MCD_EINVAL},
             {&s.D[(2 * N + 1) * K + k], 0.0, MCD_EDOM},
         };
         for (i = 0; i < sizeof bad / sizeof bad[0]; i++) {

@@ -145,7 +145,7 @@ static void check_gas_method(mcd_method m)
     size_t worst_k = 0;
     for (size_t k = 0; k < N_GAS; k++) {
         const gas_pair *p = &gas_pairs[k];
-        double D = NAN, rel = NAN;
+        double D = SUP_NAN, rel = SUP_NAN;
         unsigned w = 0;
         mcd_status st =
             mcd_db_binary_gas(db, find(p->a), find(p->b), (mcd_gas_method)m,
@@ -224,7 +224,7 @@ START_TEST(binary_experimental_brokaw_beats_chapman_enskog_on_polar_pairs)
     for (size_t k = 0; k < N_GAS; k++) {
         const gas_pair *p = &gas_pairs[k];
         size_t a = find(p->a), b = find(p->b);
-        double da = 0.0, db_ = 0.0, Db = NAN, Dce = NAN, rel = NAN;
+        double da = 0.0, db_ = 0.0, Db = SUP_NAN, Dce = SUP_NAN, rel = SUP_NAN;
         unsigned wb = 0, wce = 0;
         (void)mcd_db_param(db, a, MCD_PARAM_DIPOLE, &da);
         (void)mcd_db_param(db, b, MCD_PARAM_DIPOLE, &db_);
@@ -309,7 +309,7 @@ START_TEST(binary_experimental_recommended_mixture_takes_brokaw_for_polar)
     for (size_t k = 0; k < N_GAS; k++) {
         const gas_pair *p = &gas_pairs[k];
         size_t ia = ns, ib = ns;
-        double D[64 * 64], d = NAN, dexp = p->D_cgs * 1e-4;
+        double D[64 * 64], d = SUP_NAN, dexp = p->D_cgs * 1e-4;
         mcd_method pm = (mcd_method)0;
         for (size_t i = 0; i < ns; i++) {
             if (strcmp(names[i], p->a) == 0)
@@ -395,7 +395,7 @@ START_TEST(binary_experimental_wilke_chang_within_published_error)
     double avg = mcd_method_typical_error(MCD_METHOD_WILKE_CHANG), sum = 0.0;
     for (size_t k = 0; k < N_LIQ; k++) {
         const liq_pair *p = &liq_pairs[k];
-        double D = NAN, rel = NAN;
+        double D = SUP_NAN, rel = SUP_NAN;
         unsigned w = 0;
         mcd_status st = mcd_db_binary_liquid(
             db, find(p->solute), find(p->solvent), p->T, p->mu, &D, &rel, &w);
@@ -421,7 +421,7 @@ END_TEST
  * table's source). */
 static double vb_of(const char *name)
 {
-    double v = NAN;
+    double v = SUP_NAN;
     ck_assert_int_eq(mcd_db_param(db, find(name), MCD_PARAM_VB, &v), MCD_OK);
     return v;
 }
@@ -441,7 +441,7 @@ START_TEST(binary_experimental_hayduk_minhas_and_tyn_calus)
         size_t count = 0;
         for (size_t k = 0; k < N_LIQ; k++) {
             const liq_pair *p = &liq_pairs[k];
-            double D = NAN, ref = p->D_cgs * 1e-4;
+            double D = SUP_NAN, ref = p->D_cgs * 1e-4;
             mcd_status st;
             if (ms[a] == MCD_METHOD_HAYDUK_MINHAS) {
                 if (strcmp(p->solvent, "water") != 0)
@@ -453,7 +453,7 @@ START_TEST(binary_experimental_hayduk_minhas_and_tyn_calus)
                                           vb_of(p->solvent), &D);
             }
             ck_assert_int_eq(st, MCD_OK);
-            double e = fabs(D - ref) / ref, Tb = NAN;
+            double e = fabs(D - ref) / ref, Tb = SUP_NAN;
             mcd_db_param(db, find(p->solute), MCD_PARAM_TB, &Tb);
             if (ms[a] == MCD_METHOD_TYN_CALUS && !(Tb > p->T)) {
                 printf("  %-13s %-15s in %-14s exp %.3g est %.3g cm2/s "

@@ -438,12 +438,12 @@ START_TEST(bulbs_errors_leave_outputs_untouched)
                 MCD_EINVAL);
         EXPECT2(CALL(ws, 3, NULL, 40, 1e-4, 1e-4, 1e-6, 0.05, a, b, t),
                 MCD_EINVAL);
-        EXPECT2(CALL(ws, 3, D, NAN, 1e-4, 1e-4, 1e-6, 0.05, a, b, t),
+        EXPECT2(CALL(ws, 3, D, SUP_NAN, 1e-4, 1e-4, 1e-6, 0.05, a, b, t),
                 MCD_EINVAL);
         EXPECT2(CALL(ws, 3, D, 40, 0.0, 1e-4, 1e-6, 0.05, a, b, t), MCD_EDOM);
         EXPECT2(CALL(ws, 3, D, 40, 1e-4, -1e-4, 1e-6, 0.05, a, b, t), MCD_EDOM);
         EXPECT2(CALL(ws, 3, D, 40, 1e-4, 1e-4, 0.0, 0.05, a, b, t), MCD_EDOM);
-        EXPECT2(CALL(ws, 3, D, 40, 1e-4, 1e-4, 1e-6, INFINITY, a, b, t),
+        EXPECT2(CALL(ws, 3, D, 40, 1e-4, 1e-4, 1e-6, SUP_INF, a, b, t),
                 MCD_EINVAL);
         EXPECT2(CALL(ws, 3, D, 40, 1e-4, 1e-4, 1e-6, 0.05, bad, b, t),
                 MCD_EDOM);
@@ -494,7 +494,7 @@ START_TEST(bulbs_errors_leave_outputs_untouched)
                                              .Dij = D,
                                              .x1_0 = a,
                                              .x2_0 = b},
-                                2, t, NAN, o1, o2),
+                                2, t, SUP_NAN, o1, o2),
             MCD_EINVAL);
     /* decreasing times are fine for the closed-form linearized theory */
     ck_assert_int_eq(mcd_bulbs_linearized(ws,

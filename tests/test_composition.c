@@ -316,7 +316,7 @@ START_TEST(composition_error_paths_leave_outputs_untouched)
     double out[6], o1;
     double bad[3];
     double Mb[3];
-    const double nan = NAN, inf = INFINITY;
+    const double nan = SUP_NAN, inf = SUP_INF;
 
 #define EXPECT(call, code)                                                     \
     do {                                                                       \

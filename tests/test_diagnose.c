@@ -242,11 +242,11 @@ START_TEST(diagnose_error_paths_leave_outputs_untouched)
     EXPECT(mcd_flux_diagnose(2, 2, g, F, 0.0, fl));
     EXPECT(mcd_flux_diagnose(2, 2, g, F, 1.0, fl));
     EXPECT(mcd_flux_diagnose(2, 2, g, F, -0.1, fl));
-    EXPECT(mcd_flux_diagnose(2, 2, g, F, NAN, fl));
+    EXPECT(mcd_flux_diagnose(2, 2, g, F, SUP_NAN, fl));
     memcpy(bad, g, sizeof bad);
-    bad[3] = NAN;
+    bad[3] = SUP_NAN;
     EXPECT(mcd_flux_diagnose(2, 2, bad, F, 1e-3, fl));
-    bad[3] = INFINITY;
+    bad[3] = SUP_INF;
     EXPECT(mcd_flux_diagnose(2, 2, F, bad, 1e-3, fl));
 #undef EXPECT
 }

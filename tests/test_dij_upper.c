@@ -65,7 +65,7 @@ static void batch_make(batch *b, size_t n, size_t K, int tiled)
     b->sym = xmalloc(len(tiled, n * n, K));
     b->up = xmalloc(len(tiled, n * n, K));
     for (i = 0; i < len(tiled, n * n, K); i++)
-        b->sym[i] = b->up[i] = NAN; /* padding slots of tiles too */
+        b->sym[i] = b->up[i] = SUP_NAN; /* padding slots of tiles too */
     for (i = 0; i < n; i++)
         b->M[i] = sup_molar_mass(&rng);
     for (k = 0; k < K; k++) {
@@ -190,7 +190,7 @@ END_TEST
  * default mode: same status, same message, same cell. */
 START_TEST(upper_bad_entry_named_as_both)
 {
-    const double bad[] = {NAN, 0.0, -1e-5, 1e-310, INFINITY};
+    const double bad[] = {SUP_NAN, 0.0, -1e-5, 1e-310, SUP_INF};
     const size_t n = 5, K = 37, cell = 29;
     mcd_workspace *ws = NULL;
     size_t t;

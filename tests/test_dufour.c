@@ -204,10 +204,10 @@ START_TEST(dufour_batch_bad_cell_named_nothing_written)
         memcpy(Fm, F, sizeof F);
         switch (kind) {
         case 0: m.T[bad] = -1.0; break;
-        case 1: m.T[bad] = NAN; break;
+        case 1: m.T[bad] = SUP_NAN; break;
         case 2: m.x[1 * b.K + bad] = -0.25; break;
-        case 3: m.th[2 * b.K + bad] = INFINITY; break;
-        default: Fm[(3 * b.nd + 2) * b.K + bad] = NAN; break;
+        case 3: m.th[2 * b.K + bad] = SUP_INF; break;
+        default: Fm[(3 * b.nd + 2) * b.K + bad] = SUP_NAN; break;
         }
         st1 = single(&m, bad, m.th, MCD_BASIS_MOLE, Fm, q1);
         ck_assert_int_ne(st1, MCD_OK);

@@ -81,7 +81,7 @@ static double rebuild(mcd_method m, const double *v)
                sqrt(v[MCD_EXPLAIN_PHI] * 1000.0 * v[MCD_EXPLAIN_M_B]) * T /
                (1000.0 * v[MCD_EXPLAIN_MU_B] *
                 pow(1e6 * v[MCD_EXPLAIN_VB_A], 0.6));
-    default: return NAN;
+    default: return SUP_NAN;
     }
 }
 
@@ -142,7 +142,7 @@ START_TEST(explain_gas_intermediates_rebuild_the_estimate)
         ck_assert_int_eq(
             mcd_db_binary_gas(db, a, b, (mcd_gas_method)m, T, P, &D, &err, &w),
             MCD_OK);
-        ck_assert_int_eq(mcd_db_binary_explain(db, a, b, m, T, P, NAN, v),
+        ck_assert_int_eq(mcd_db_binary_explain(db, a, b, m, T, P, SUP_NAN, v),
                          MCD_OK);
         /* The same code path: the same double. */
         ck_assert(v[MCD_EXPLAIN_D] == D);
@@ -179,7 +179,7 @@ START_TEST(explain_wilke_chang_intermediates_rebuild_the_estimate)
         ck_assert_int_eq(mcd_db_binary_liquid(db, a, b, T, mu, &D, &err, &w),
                          MCD_OK);
         ck_assert_int_eq(mcd_db_binary_explain(db, a, b, MCD_METHOD_WILKE_CHANG,
-                                               T, NAN, mu, v),
+                                               T, SUP_NAN, mu, v),
                          MCD_OK);
         ck_assert(v[MCD_EXPLAIN_D] == D);
         ck_assert(v[MCD_EXPLAIN_WARN] == (double)w);
@@ -205,7 +205,7 @@ START_TEST(explain_matches_worked_example_co2_n2)
     double v[MCD_EXPLAIN_COUNT];
     ck_assert_int_eq(mcd_db_binary_explain(db, ix[CO2], ix[N2],
                                            MCD_METHOD_CHAPMAN_ENSKOG, 590.0,
-                                           1e5, NAN, v),
+                                           1e5, SUP_NAN, v),
                      MCD_OK);
     ck_assert_double_eq_tol(1000 * v[MCD_EXPLAIN_M_AB], 34.2, 0.05);
     ck_assert_double_eq_tol(1e10 * v[MCD_EXPLAIN_SIGMA_AB], 3.87, 0.005);
@@ -238,8 +238,9 @@ START_TEST(explain_brokaw_polar_parameters)
             const double T = 300.0 + 200.0 * (double)b;
             double v[MCD_EXPLAIN_COUNT], D = 0.0, dl[2];
             size_t k, sp[2] = {ia, ib};
-            ck_assert_int_eq(mcd_db_binary_explain(
-                                 db, ia, ib, MCD_METHOD_BROKAW, T, 1e5, NAN, v),
+            ck_assert_int_eq(mcd_db_binary_explain(db, ia, ib,
+                                                   MCD_METHOD_BROKAW, T, 1e5,
+                                                   SUP_NAN, v),
                              MCD_OK);
             ck_assert_int_eq(mcd_db_binary_gas(db, ia, ib, MCD_GAS_BROKAW, T,
                                                1e5, &D, NULL, NULL),
@@ -290,17 +291,17 @@ START_TEST(explain_bad_arguments_leave_output_untouched)
         double *out;
         mcd_status want;
     } c[] = {
-        {NULL, n2, co2, MCD_METHOD_FSG, 300, 1e5, NAN, v, MCD_EINVAL},
-        {db, n2, co2, MCD_METHOD_FSG, 300, 1e5, NAN, NULL, MCD_EINVAL},
-        {db, n2, co2, MCD_METHOD_USER, 300, 1e5, NAN, v, MCD_EINVAL},
-        {db, n2, co2, MCD_METHOD_TYN_CALUS, 300, 1e5, NAN, v, MCD_EINVAL},
-        {db, n2, co2, (mcd_method)99, 300, 1e5, NAN, v, MCD_EINVAL},
-        {db, n2, co2, MCD_METHOD_FSG, NAN, 1e5, NAN, v, MCD_EINVAL},
-        {db, n2, co2, MCD_METHOD_FSG, -3, 1e5, NAN, v, MCD_EDOM},
-        {db, n2, co2, MCD_METHOD_CHAPMAN_ENSKOG, 300, 0, NAN, v, MCD_EDOM},
-        {db, n, co2, MCD_METHOD_FSG, 300, 1e5, NAN, v, MCD_ENOTFOUND},
-        {db, n2, n, MCD_METHOD_WILKE_LEE, 300, 1e5, NAN, v, MCD_ENOTFOUND},
-        {db, co2, n2, MCD_METHOD_WILKE_CHANG, 300, 1e5, NAN, v, MCD_EINVAL},
+        {NULL, n2, co2, MCD_METHOD_FSG, 300, 1e5, SUP_NAN, v, MCD_EINVAL},
+        {db, n2, co2, MCD_METHOD_FSG, 300, 1e5, SUP_NAN, NULL, MCD_EINVAL},
+        {db, n2, co2, MCD_METHOD_USER, 300, 1e5, SUP_NAN, v, MCD_EINVAL},
+        {db, n2, co2, MCD_METHOD_TYN_CALUS, 300, 1e5, SUP_NAN, v, MCD_EINVAL},
+        {db, n2, co2, (mcd_method)99, 300, 1e5, SUP_NAN, v, MCD_EINVAL},
+        {db, n2, co2, MCD_METHOD_FSG, SUP_NAN, 1e5, SUP_NAN, v, MCD_EINVAL},
+        {db, n2, co2, MCD_METHOD_FSG, -3, 1e5, SUP_NAN, v, MCD_EDOM},
+        {db, n2, co2, MCD_METHOD_CHAPMAN_ENSKOG, 300, 0, SUP_NAN, v, MCD_EDOM},
+        {db, n, co2, MCD_METHOD_FSG, 300, 1e5, SUP_NAN, v, MCD_ENOTFOUND},
+        {db, n2, n, MCD_METHOD_WILKE_LEE, 300, 1e5, SUP_NAN, v, MCD_ENOTFOUND},
+        {db, co2, n2, MCD_METHOD_WILKE_CHANG, 300, 1e5, SUP_NAN, v, MCD_EINVAL},
         {db, co2, n2, MCD_METHOD_WILKE_CHANG, 300, 1e5, -1e-3, v, MCD_EDOM},
     };
     for (size_t k = 0; k < sizeof c / sizeof c[0]; k++) {

@@ -523,7 +523,7 @@ START_TEST(fick_errors_leave_outputs_untouched)
        out, &dep);
     bad[5] = 1.7e-5 * (1.0 + 1e-10);
     FM(MCD_EDOM, "symmetric", ws, N, M, bad, 0, x, NULL, 0, 0, out, &dep);
-    bad[5] = NAN;
+    bad[5] = SUP_NAN;
     FM(MCD_EINVAL, "Dij", ws, N, M, bad, 0, x, NULL, 0, 0, out, &dep);
     /* subnormal Đ: outside the domain (1/Đ overflows), EDOM, nothing
      * written */
@@ -532,7 +532,7 @@ START_TEST(fick_errors_leave_outputs_untouched)
     FM(MCD_EDOM, "subnormal", ws, N, M, bad, 0, x, NULL, 0, 2, out, &dep);
     {
         double xs[N] = {0.2, 0.3, 0.51}, xn[N] = {-0.2, 0.7, 0.5};
-        double Gn[N * N] = {1, 0, 0, 0, 1, 0, 0, NAN, 1};
+        double Gn[N * N] = {1, 0, 0, 0, 1, 0, 0, SUP_NAN, 1};
         FM(MCD_EDOM, "argument comp: sum", ws, N, M, D, 0, xs, NULL, 0, 0, out,
            &dep);
         FM(MCD_EDOM, "argument comp: entry 0", ws, N, M, D, 1, xn, NULL, 0, 0,
@@ -561,7 +561,7 @@ START_TEST(fick_errors_leave_outputs_untouched)
     ck_assert_int_eq(mcd_fick_eigenvalues(ws, 2, NULL, re, im), MCD_EINVAL);
     ck_assert_int_eq(mcd_fick_eigenvalues(ws, 2, out, NULL, im), MCD_EINVAL);
     ck_assert_int_eq(mcd_fick_eigenvalues(ws, 2, out, re, NULL), MCD_EINVAL);
-    out[2] = NAN;
+    out[2] = SUP_NAN;
     ck_assert_int_eq(mcd_fick_eigenvalues(ws, 2, out, re, im), MCD_EINVAL);
     out[2] = SUP_GUARD;
     INTACT();
@@ -569,7 +569,8 @@ START_TEST(fick_errors_leave_outputs_untouched)
     /* fick_fluxes */
     GUARDS();
     {
-        double Dm[4] = {1e-5, 0.0, 0.0, 2e-5}, Dn[4] = {1e-5, NAN, 0.0, 2e-5};
+        double Dm[4] = {1e-5, 0.0, 0.0, 2e-5},
+               Dn[4] = {1e-5, SUP_NAN, 0.0, 2e-5};
         ck_assert_int_eq(mcd_fick_fluxes(0, 2, Dm, 0, 40.0, g, F), MCD_EINVAL);
         ck_assert_int_eq(mcd_fick_fluxes(N, 0, Dm, 0, 40.0, g, F), MCD_EINVAL);
         ck_assert_int_eq(mcd_fick_fluxes(N, 4, Dm, 0, 40.0, g, F), MCD_EINVAL);
@@ -585,14 +586,15 @@ START_TEST(fick_errors_leave_outputs_untouched)
                          MCD_EINVAL);
         ck_assert_int_eq(mcd_fick_fluxes(N, 2, Dm, 0, 0.0, g, F), MCD_EDOM);
         ck_assert_int_eq(mcd_fick_fluxes(N, 2, Dm, 0, -1.0, g, F), MCD_EDOM);
-        ck_assert_int_eq(mcd_fick_fluxes(N, 2, Dm, 0, NAN, g, F), MCD_EINVAL);
+        ck_assert_int_eq(mcd_fick_fluxes(N, 2, Dm, 0, SUP_NAN, g, F),
+                         MCD_EINVAL);
         ck_assert_int_eq(mcd_fick_fluxes(N, 2, Dn, 0, 40.0, g, F), MCD_EINVAL);
-        g[3] = NAN; /* species 1: not the dependent one */
+        g[3] = SUP_NAN; /* species 1: not the dependent one */
         ck_assert_int_eq(mcd_fick_fluxes(N, 2, Dm, 0, 40.0, g, F), MCD_EINVAL);
         INTACT();
         /* the dependent row of grad is ignored, even if not finite */
         g[3] = 0.0;
-        g[0] = NAN;
+        g[0] = SUP_NAN;
         ck_assert_int_eq(mcd_fick_fluxes(N, 2, Dm, 0, 40.0, g, F), MCD_OK);
         /* species 1: -40 (1e-5 * 0 + 0 * 2) ... direction 0: grad x_1 = -3,
          * grad x_2 = 2 -> F_1 = -40 * 1e-5 * (-3), F_2 = -40 * 2e-5 * 2 */

@@ -50,6 +50,13 @@
 #include "mcdiff.h"
 #include "support.h"
 
+/* The references here are computed in long double, and doubles are
+ * promoted to it on purpose; Clang's -Wdouble-promotion (unlike GCC's)
+ * flags double to long double as well. */
+#if defined(__clang__)
+#pragma clang diagnostic ignored "-Wdouble-promotion"
+#endif
+
 #define NMAX 6
 
 static mcd_workspace *ws;

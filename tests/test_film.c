@@ -266,7 +266,7 @@ static double norm2(size_t n, const double *v)
     double s = 0.0;
     for (size_t i = 0; i < n; i++) {
         if (!isfinite(v[i]))
-            return INFINITY;
+            return HUGE_VAL;
         s += v[i] * v[i];
     }
     return sqrt(s);
@@ -1192,7 +1192,8 @@ START_TEST(film_errors_leave_outputs_untouched)
 {
     double D[9], x0[3] = {0.3, 0.3, 0.4}, xL[3] = {0.1, 0.1, 0.8}, N[3];
     double bad[3] = {0.3, 0.3, 0.5}, neg[3] = {-0.1, 0.6, 0.5};
-    double nu0[3] = {1, -1, 0}, nu[3] = {1, 1, 1}, tot = 0.0, nanv = NAN;
+    double nu0[3] = {1, -1, 0}, nu[3] = {1, 1, 1}, tot = 0.0,
+           nanv = (double)NAN;
     size_t it = 777;
     double res = GUARD;
     mcd_workspace *small;
@@ -1254,7 +1255,7 @@ START_TEST(film_errors_leave_outputs_untouched)
     {
         double Dn[9];
         memcpy(Dn, D, sizeof Dn);
-        Dn[1] = NAN;
+        Dn[1] = (double)NAN;
         EXPECT(mcd_film_solve(ws,
                               &(mcd_film){.n_species = 3,
                                           .c = 40,
@@ -1303,7 +1304,7 @@ START_TEST(film_errors_leave_outputs_untouched)
     EXPECT(mcd_film_solve(ws,
                           &(mcd_film){.n_species = 3,
                                       .c = 40,
-                                      .L = NAN,
+                                      .L = (double)NAN,
                                       .Dij = D,
                                       .x0 = x0,
                                       .xL = xL},
@@ -1424,7 +1425,7 @@ START_TEST(film_errors_leave_outputs_untouched)
                           &it, &res),
            MCD_EINVAL);
     {
-        double nn[3] = {1, NAN, 1};
+        double nn[3] = {1, (double)NAN, 1};
         EXPECT(mcd_film_solve(ws,
                               &(mcd_film){.n_species = 3,
                                           .c = 40,
@@ -1508,7 +1509,7 @@ START_TEST(film_profile_errors_leave_outputs_untouched)
 {
     double D[9], x0[3] = {0.3, 0.3, 0.4}, N[3] = {1e-3, -1e-3, 0}, X[6];
     double z[2] = {0.0, 0.05}, zbad[2] = {0.0, 0.2}, Nbig[3] = {1e3, 0, 0};
-    double Nn[3] = {NAN, 0, 0}, bad[3] = {0.5, 0.5, 0.5};
+    double Nn[3] = {(double)NAN, 0, 0}, bad[3] = {0.5, 0.5, 0.5};
     random_dij(3, D);
 #define EXPECTP(call, code)                                                    \
     do {                                                                       \

@@ -591,8 +591,8 @@ START_TEST(tangent_bad_input_outputs_untouched)
                      MCD_EDOM);
     ck_assert_ptr_nonnull(strstr(mcd_last_error(), "argument T"));
     ck_assert_int_eq(mcd_flux_jacobian_tp(ws, MCD_MODEL_MAXWELL_STEFAN, &st,
-                                          MCD_BASIS_MOLE, 300.0, NAN, dD, dD,
-                                          oT, oP),
+                                          MCD_BASIS_MOLE, 300.0, SUP_NAN, dD,
+                                          dD, oT, oP),
                      MCD_EINVAL);
     ck_assert_ptr_nonnull(strstr(mcd_last_error(), "argument P"));
     ck_assert_int_eq(mcd_flux_jacobian_tp(ws, MCD_MODEL_MAXWELL_STEFAN, &st,
@@ -600,7 +600,7 @@ START_TEST(tangent_bad_input_outputs_untouched)
                                           oT, oP),
                      MCD_EINVAL);
     ck_assert_ptr_nonnull(strstr(mcd_last_error(), "dDij_dT"));
-    dD[5] = INFINITY;
+    dD[5] = SUP_INF;
     ck_assert_int_eq(mcd_flux_jacobian_tp(ws, MCD_MODEL_MAXWELL_STEFAN, &st,
                                           MCD_BASIS_MOLE, 300.0, 1e5, NULL, dD,
                                           NULL, oP),

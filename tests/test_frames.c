@@ -536,7 +536,7 @@ START_TEST(frames_error_paths_leave_outputs_untouched)
     const double M[3] = {2e-3, 28e-3, 44e-3}, x[3] = {0.2, 0.3, 0.5};
     const double J[6] = {0.1, 0.2, -0.3, 0.1, 0.2, -0.3};
     const double Vb[3] = {1.0 / 40, 1.0 / 40, 1.0 / 40};
-    const double nan = NAN, inf = INFINITY;
+    const double nan = SUP_NAN, inf = SUP_INF;
     double out[6], ob[3], Mb[3], xb[3], Jb[6], Vbb[3], F[6];
     const mcd_basis MO = MCD_BASIS_MOLE, MA = MCD_BASIS_MASS;
 

@@ -646,7 +646,7 @@ START_TEST(liquid_errors_and_warnings)
     sup_guard_fill(out, 21);
     w = 0xAAu;
     /* bad state */
-    ck_assert_int_eq(mcd_liquid_eval(ws, liq, NAN, x, out, NULL, NULL, &w),
+    ck_assert_int_eq(mcd_liquid_eval(ws, liq, SUP_NAN, x, out, NULL, NULL, &w),
                      MCD_EINVAL);
     ck_assert_int_eq(mcd_liquid_eval(ws, liq, -1, x, out, NULL, NULL, &w),
                      MCD_EDOM);
@@ -684,7 +684,7 @@ START_TEST(liquid_errors_and_warnings)
     ck_assert_int_eq(mcd_liquid_set_species(liq, 0, (mcd_liquid_param)3, 1.0),
                      MCD_EINVAL);
     ck_assert_int_eq(mcd_liquid_set_dinf(liq, 0, 1, 0.0, 1e-9), MCD_EDOM);
-    ck_assert_int_eq(mcd_liquid_set_dinf(liq, 0, 1, NAN, 1e-9), MCD_EINVAL);
+    ck_assert_int_eq(mcd_liquid_set_dinf(liq, 0, 1, SUP_NAN, 1e-9), MCD_EINVAL);
     mcd_liquid_free(liq);
     mcd_liquid_free(NULL);
     /* NRTL alpha outside [-1, 1]; workspace too small */

@@ -450,7 +450,7 @@ START_TEST(liquid_batch_bad_input)
 
     /* per cell: the cell and the field named */
     memcpy(Tb, T, sizeof T);
-    Tb[2] = NAN;
+    Tb[2] = SUP_NAN;
     a = ok, a.T = Tb;
     expect_bad(&a, MCD_EINVAL, 2, "argument T", __LINE__);
     Tb[2] = -5.0;
@@ -464,18 +464,18 @@ START_TEST(liquid_batch_bad_input)
     a = ok, a.cl.comp = yb;
     expect_bad(&a, MCD_EDOM, 3, "argument comp", __LINE__);
     memcpy(gb, g, sizeof g);
-    gb[2 * K + 1] = INFINITY;
+    gb[2 * K + 1] = SUP_INF;
     a = ok, a.cl.grad = gb;
     expect_bad(&a, MCD_EINVAL, 1, "argument grad", __LINE__);
     memcpy(Vb, V, sizeof V);
-    Vb[0 * K + 2] = NAN;
+    Vb[0 * K + 2] = SUP_NAN;
     a = ok, a.V = Vb;
     expect_bad(&a, MCD_EINVAL, 2, "argument Vbar", __LINE__);
     Vb[0 * K + 2] = 2.0 * V[2];
     expect_bad(&a, MCD_EDOM, 2, "argument Vbar", __LINE__);
     for (size_t e = 0; e < N * K; e++)
         kT[e] = 0.01;
-    kT[2 * K + 3] = NAN;
+    kT[2 * K + 3] = SUP_NAN;
     a = ok, a.cl.kT = kT, a.cl.grad_lnT = glnT;
     expect_bad(&a, MCD_EINVAL, 3, "argument kT", __LINE__);
 

@@ -234,7 +234,7 @@ START_TEST(mixture_bad_state_and_arguments_leave_outputs_untouched)
         D[k] = R[k] = SUP_GUARD;
         W[k] = 0xdeadu;
     }
-    const double badv[] = {NAN, INFINITY, -INFINITY};
+    const double badv[] = {SUP_NAN, SUP_INF, -SUP_INF};
     for (size_t b = 0; b < 3; b++) {
         ck_assert_int_eq(mcd_mixture_binaries(mix, badv[b], 1e5, D, R, W),
                          MCD_EINVAL);

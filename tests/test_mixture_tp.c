@@ -80,7 +80,7 @@ START_TEST(mixture_tp_fit_reports_its_error_and_batched_fluxes_honour_it)
     /* errors */
     ck_assert_int_eq(mcd_mixture_set_temperature_fit(NULL, 300, 1000, NULL),
                      MCD_EINVAL);
-    ck_assert_int_eq(mcd_mixture_set_temperature_fit(mix, NAN, 1000, NULL),
+    ck_assert_int_eq(mcd_mixture_set_temperature_fit(mix, SUP_NAN, 1000, NULL),
                      MCD_EINVAL);
     ck_assert_int_eq(mcd_mixture_set_temperature_fit(mix, 1000, 300, NULL),
                      MCD_EDOM);

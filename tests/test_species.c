@@ -536,9 +536,9 @@ START_TEST(species_set_param_checks_range_and_marks_user)
                      MCD_EDOM);
     ck_assert_int_eq(mcd_db_set_param(db, i, MCD_PARAM_LJ_SIGMA, -3e-10),
                      MCD_EDOM);
-    ck_assert_int_eq(mcd_db_set_param(db, i, MCD_PARAM_LJ_SIGMA, NAN),
+    ck_assert_int_eq(mcd_db_set_param(db, i, MCD_PARAM_LJ_SIGMA, SUP_NAN),
                      MCD_EINVAL);
-    ck_assert_int_eq(mcd_db_set_param(db, i, MCD_PARAM_LJ_SIGMA, INFINITY),
+    ck_assert_int_eq(mcd_db_set_param(db, i, MCD_PARAM_LJ_SIGMA, SUP_INF),
                      MCD_EINVAL);
     ck_assert_int_eq(mcd_db_set_param(db, i, MCD_PARAM_COUNT, 1.0), MCD_EINVAL);
     ck_assert_int_eq(

@@ -446,7 +446,7 @@ START_TEST(thermal_bad_input_named_outputs_untouched)
                                        "given (thermal diffusion needs both)");
     st = state_of(&s, 1);
     memcpy(bad, s.kT, sizeof bad);
-    bad[1] = NAN;
+    bad[1] = SUP_NAN;
     st.kT = bad;
     ck_assert_int_eq(
         mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &st, MCD_BASIS_MOLE, F),
@@ -454,7 +454,7 @@ START_TEST(thermal_bad_input_named_outputs_untouched)
     ck_assert_str_eq(mcd_last_error(), "argument kT: entry 1 is not finite");
     st = state_of(&s, 1);
     memcpy(bad, s.glnT, NDIM * sizeof(double));
-    bad[2] = INFINITY;
+    bad[2] = SUP_INF;
     st.grad_lnT = bad;
     ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MIXTURE_AVERAGED, &st,
                                       MCD_BASIS_MASS, F),
@@ -470,7 +470,7 @@ START_TEST(thermal_bad_input_named_outputs_untouched)
     ck_assert_int_eq(mcd_thermal_ratios(ws, &st, s.kT, kT), MCD_EINVAL);
     st = state_of(&s, 0);
     bad[0] = 1e-6;
-    bad[1] = NAN;
+    bad[1] = SUP_NAN;
     bad[2] = -1e-6;
     ck_assert_int_eq(mcd_thermal_ratios(ws, &st, bad, kT), MCD_EINVAL);
     ck_assert_str_eq(mcd_last_error(), "argument DT: entry 1 is not finite");
@@ -498,8 +498,8 @@ START_TEST(thermal_batched_bad_cell_named_as_single_state)
                      .kT = b.kT,
                      .grad_lnT = b.glnT};
     /* cell 7: k_T of species 2 not finite */
-    b.kT[2 * K + 7] = NAN;
-    cells[7].kT[2] = NAN;
+    b.kT[2 * K + 7] = SUP_NAN;
+    cells[7].kT[2] = SUP_NAN;
     st = state_of(&cells[7], 1);
     ck_assert_int_eq(
         mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN, &st, MCD_BASIS_MOLE, F),

@@ -631,7 +631,7 @@ START_TEST(errors_named_outputs_untouched)
     sup_guard_fill(q, NDIM);
     ck_assert_int_eq(mcd_lj_collision_integrals(0.2, o, r), MCD_EDOM);
     ck_assert_int_eq(mcd_lj_collision_integrals(101.0, o, r), MCD_EDOM);
-    ck_assert_int_eq(mcd_lj_collision_integrals(NAN, o, r), MCD_EINVAL);
+    ck_assert_int_eq(mcd_lj_collision_integrals(SUP_NAN, o, r), MCD_EINVAL);
     ck_assert_int_eq(mcd_lj_collision_integrals(1.0, NULL, NULL), MCD_EINVAL);
     ck_assert(strstr(mcd_last_error(), "out_omega") != NULL);
     ck_assert(sup_guard_intact(o, 4) && sup_guard_intact(r, 3));
@@ -640,7 +640,7 @@ START_TEST(errors_named_outputs_untouched)
         MCD_EDOM);
     ck_assert(strstr(mcd_last_error(), "x1") != NULL);
     ck_assert_int_eq(
-        mcd_thermal_factor_kinetic(0.004, 0.04, 0.5, 1, NAN, 1, 1, 1, &a),
+        mcd_thermal_factor_kinetic(0.004, 0.04, 0.5, 1, SUP_NAN, 1, 1, 1, &a),
         MCD_EINVAL);
     ck_assert(strstr(mcd_last_error(), "argument B") != NULL);
     ck_assert_int_eq(
@@ -651,8 +651,8 @@ START_TEST(errors_named_outputs_untouched)
     ck_assert_int_eq(mcd_thermal_factor_ce(0.0, 0.004, 0.04, 2.5e-10, 3.5e-10,
                                            10, 93, 0.5, &a, &w),
                      MCD_EDOM);
-    ck_assert_int_eq(mcd_thermal_factor_ce(300, 0.004, 0.04, 2.5e-10, NAN, 10,
-                                           93, 0.5, &a, &w),
+    ck_assert_int_eq(mcd_thermal_factor_ce(300, 0.004, 0.04, 2.5e-10, SUP_NAN,
+                                           10, 93, 0.5, &a, &w),
                      MCD_EINVAL);
     ck_assert(a == SUP_GUARD && w == 77);
     /* out of the table: clamped and flagged */
@@ -677,7 +677,7 @@ START_TEST(errors_named_outputs_untouched)
             mcd_mixture_thermal_ratios(mix, 300, xb, k, NULL, NULL, NULL),
             MCD_EDOM);
         ck_assert_int_eq(
-            mcd_mixture_thermal_ratios(mix, NAN, x3, k, NULL, NULL, NULL),
+            mcd_mixture_thermal_ratios(mix, SUP_NAN, x3, k, NULL, NULL, NULL),
             MCD_EINVAL);
         ck_assert(sup_guard_intact(k, 3));
     }
@@ -690,7 +690,7 @@ START_TEST(errors_named_outputs_untouched)
     ck_assert_int_eq(
         mcd_dufour_heat_flux(2, 0, x, M, th, 300.0, MCD_BASIS_MOLE, J, q),
         MCD_EINVAL);
-    th[1] = NAN;
+    th[1] = SUP_NAN;
     ck_assert_int_eq(
         mcd_dufour_heat_flux(2, NDIM, x, M, th, 300.0, MCD_BASIS_MOLE, J, q),
         MCD_EINVAL);

@@ -57,7 +57,7 @@ static double *tiled_of(const double *s, size_t Q, size_t K)
         return NULL;
     t = xmalloc(tlen(Q, K) * sizeof(double));
     for (k = 0; k < tlen(Q, K); k++)
-        t[k] = NAN;
+        t[k] = SUP_NAN;
     for (q = 0; q < Q; q++)
         for (k = 0; k < K; k++)
             t[tat(Q, q, k)] = s[q * K + k];
@@ -332,13 +332,13 @@ START_TEST(tiled_bad_cells_are_named_as_in_soa)
                         .use_t = 1};
         prob_make(&p, n, K, nd);
         switch (w) {
-        case 0: p.comp[2 * K + bad] = NAN; break;
+        case 0: p.comp[2 * K + bad] = SUP_NAN; break;
         case 1: p.comp[1 * K + bad] = -0.25; break;
-        case 2: p.grad[7 * K + bad] = INFINITY; break;
+        case 2: p.grad[7 * K + bad] = SUP_INF; break;
         case 3: p.D[(1 * n + 2) * K + bad] *= 1.5; break; /* asymmetric */
         case 4: p.c[bad] = -1.0; break;
-        case 5: p.kT[3 * K + bad] = NAN; break;
-        default: p.glnP[2 * K + bad] = NAN; break;
+        case 5: p.kT[3 * K + bad] = SUP_NAN; break;
+        default: p.glnP[2 * K + bad] = SUP_NAN; break;
         }
         compare(ws, NULL, &p, &o); /* same status and message */
         ck_assert_msg(strncmp(mcd_last_error(), "cell 13: ", 9) == 0, "%s",

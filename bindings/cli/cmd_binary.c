@@ -145,7 +145,7 @@ int cli_cmd_binary(int argc, char **argv)
     cli_thermal_factor tf = {0};
     const char *names[2] = {NULL, NULL}, *file = NULL;
     size_t npos = 0, idx[2], k, nres = 0;
-    double T = NAN, P = NAN, mu = NAN;
+    double T = (double)NAN, P = (double)NAN, mu = (double)NAN;
     mcd_method method = MCD_METHOD_FSG;
     mcd_db *db = NULL;
     result res[5];
@@ -259,8 +259,8 @@ int cli_cmd_binary(int argc, char **argv)
     }
     for (k = 0; k < nres; k++) {
         result *r = &res[k];
-        r->D = NAN;
-        r->rel_err = NAN;
+        r->D = (double)NAN;
+        r->rel_err = (double)NAN;
         r->warn = 0;
         if (r->m == MCD_METHOD_WILKE_CHANG)
             r->st = mcd_db_binary_liquid(db, idx[0], idx[1], T, mu, &r->D,

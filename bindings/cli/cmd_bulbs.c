@@ -146,7 +146,7 @@ static int parse(bulbs_job *bj, const char *cmd, int argc, char **argv)
     double d;
 
     cli_state_defaults(s);
-    bj->V1 = bj->V2 = bj->L = bj->A = NAN;
+    bj->V1 = bj->V2 = bj->L = bj->A = (double)NAN;
     bj->integrated = 1;
     bj->tol = 1e-9;
     cli_args_init(&a, cmd, argc, argv, bulbs_opts);

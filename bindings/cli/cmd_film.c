@@ -152,7 +152,7 @@ static int parse(film_job *fj, const char *cmd, int argc, char **argv)
     cli_state_defaults(s);
     fj->run = RUN_EXACT;
     fj->points = 11;
-    fj->L = NAN;
+    fj->L = (double)NAN;
     cli_args_init(&a, cmd, argc, argv, film_opts);
     while ((id = cli_args_next(&a)) != CLI_ARG_END) {
         if (id >= CLI_O_SPECIES && id != CLI_O_HELP) {

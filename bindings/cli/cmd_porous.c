@@ -486,7 +486,7 @@ static int parse(porous_job *pj, const char *cmd, int argc, char **argv,
     cli_args a;
     int id, rc;
     cli_state_defaults(&pj->s);
-    pj->mu = NAN;
+    pj->mu = (double)NAN;
     cli_args_init(&a, cmd, argc, argv, slab ? slab_opts : porous_opts);
     while ((id = cli_args_next(&a)) != CLI_ARG_END) {
         if (id >= CLI_O_SPECIES && id != CLI_O_HELP)
@@ -517,7 +517,7 @@ static int viscosity(porous_job *pj, const char *cmd, const double *x)
     mcd_status st;
     if (!isnan(pj->mu)) {
         pj->mu_used = pj->mu;
-        pj->mu_err = NAN;
+        pj->mu_err = (double)NAN;
         return CLI_OK;
     }
     mus = malloc(s->n * sizeof *mus);

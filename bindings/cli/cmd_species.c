@@ -157,11 +157,11 @@ static int list_all(const mcd_db *db, int json, int csv)
         cells[0] = mcd_db_name(db, i);
         cells[1] = mcd_db_formula(db, i);
         for (k = 0; k < NC - 2; k++) {
-            double v = NAN;
+            double v = (double)NAN;
             if (mcd_db_param(db, i, shown[k].p, &v) == MCD_OK)
                 v *= shown[k].scale;
             else
-                v = NAN;
+                v = (double)NAN;
             cli_fmt_num(buf[k], sizeof buf[k], v);
             cells[k + 2] = buf[k];
         }

@@ -134,7 +134,7 @@ static double formula(mcd_method m, const double *v, FILE *f)
                T /
                (1e3 * v[MCD_EXPLAIN_MU_B] *
                 pow(1e6 * v[MCD_EXPLAIN_VB_A], 0.6));
-    default: return NAN;
+    default: return (double)NAN;
     }
 }
 

@@ -105,9 +105,9 @@ void cli_warn_text(unsigned bits, char *buf, size_t len)
 
 double cli_widened_error(mcd_method m, unsigned warn)
 {
-    double e = NAN;
+    double e = (double)NAN;
     if (mcd_typical_error_widened(m, warn, &e) != MCD_OK)
-        return NAN;
+        return (double)NAN;
     return e;
 }
 

@@ -39,8 +39,8 @@ static int parse_pair(char *text, struct cli_pair *p, char *why, size_t whylen)
     *eq = '\0';
     p->a = text;
     p->b = colon + 1;
-    p->T_ref = NAN;
-    p->P_ref = NAN;
+    p->T_ref = (double)NAN;
+    p->P_ref = (double)NAN;
     at = strchr(eq + 1, '@');
     if (at) {
         *at = '\0';
@@ -141,8 +141,8 @@ const char *cli_gas_method_name(mcd_gas_method g)
 void cli_state_defaults(cli_state *s)
 {
     memset(s, 0, sizeof *s);
-    s->T = NAN;
-    s->P = NAN;
+    s->T = (double)NAN;
+    s->P = (double)NAN;
     s->model = MCD_MODEL_MAXWELL_STEFAN;
     s->method = MCD_GAS_RECOMMENDED;
     s->dependent = MCD_DEPENDENT_AUTO;
@@ -616,7 +616,7 @@ static double pair_error(const cli_state *s, size_t i, size_t j)
 {
     size_t ij = i * s->n + j;
     if (s->user_pair[ij] || isnan(s->rel_err[ij]))
-        return NAN;
+        return (double)NAN;
     return cli_widened_error(pair_method(s, i, j), s->warn[ij]);
 }
 

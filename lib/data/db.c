@@ -135,7 +135,7 @@ mcd_status mcdi_species_from_formula(const char *name, const char *formula,
     memcpy(s.name, name, strlen(name) + 1);
     memcpy(s.formula, formula, flen + 1);
     for (k = 0; k < MCD_PARAM_COUNT; ++k) {
-        s.p[k] = NAN;
+        s.p[k] = (double)NAN;
         s.src[k] = NULL;
     }
     /* Two pseudo-formulas of the built-in table are accepted as well: "air"

@@ -400,7 +400,7 @@ void mcdi_builtin_fill(size_t i, mcdi_species *s)
         memcpy(s->name, r->name, strlen(r->name) + 1);
         memcpy(s->formula, r->formula, strlen(r->formula) + 1);
         for (k = 0; k < MCD_PARAM_COUNT; ++k) {
-            s->p[k] = NAN;
+            s->p[k] = NODATA;
             s->src[k] = NULL;
         }
     }

@@ -54,9 +54,9 @@ mcd_status mcdi_api_liquid_new(size_t n, mcd_activity_model model,
         return MCD_ENOMEM;
     }
     for (size_t k = 0; k < n * MCDI_LIQ_NSP; k++)
-        liq->sp[k] = NAN;
+        liq->sp[k] = (double)NAN;
     for (size_t k = 0; k < 5 * n; k++)
-        liq->ant[k] = NAN;
+        liq->ant[k] = (double)NAN;
     *out_liq = liq;
     return MCD_OK;
 }

@@ -493,7 +493,7 @@ MCD_API double mcd_method_typical_error(mcd_method m)
     case MCD_METHOD_HAYDUK_MINHAS: return 0.10;
     case MCD_METHOD_BROKAW: return 0.10;
     case MCD_METHOD_USER:
-    default: return NAN;
+    default: return (double)NAN;
     }
 }
 

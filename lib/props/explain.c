@@ -167,7 +167,7 @@ mcd_status mcdi_api_db_binary_explain(const mcd_db *db, size_t a, size_t b,
         (st = mcdi_api_typical_error_widened(method, warn, &wide)) != MCD_OK)
         return st;
     for (size_t k = 0; k < MCD_EXPLAIN_COUNT; k++)
-        v[k] = NAN;
+        v[k] = (double)NAN;
     v[MCD_EXPLAIN_D] = D;
     v[MCD_EXPLAIN_T] = T;
     v[MCD_EXPLAIN_REL_ERR] = err;

@@ -157,7 +157,7 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
         g_abs_scale =
             fabs(c) * Dm * (gm * (1 + Gm * (double)nn) + pm) * Mm * (double)nn;
         if (!isfinite(g_abs_scale))
-            g_abs_scale = INFINITY;
+            g_abs_scale = HUGE_VAL;
         /* A subnormal c is rejected (EDOM) by the library, so the
          * zero-sum is checked for every accepted c. */
     }
