@@ -28,20 +28,25 @@
 #             FUZZ_SECONDS (default 20) or FUZZ_RUNS (default 2000000)
 #             executions, whichever comes first, from a temporary copy of
 #             tests/fuzz/corpus/<harness>/ (the repository is not changed).
+#   clang     the default build with clang instead of gcc, warnings as
+#             errors (the main build is gcc's): the whole `meson test`
+#             less the install suite (the baseline kernel only: the kernels
+#             per instruction set are built by gcc alone).
 #   matrix    the plain build's whole `meson test` (less the install suite)
 #             under other kernel instruction-set caps and with Debian's
 #             OpenBLAS instead of the reference BLAS (tools/test-matrix.sh;
 #             OpenBLAS is fetched with apt-get download and unpacked into a
 #             temporary folder, never installed).
-# Environment: ROBUST_STAGES="asan valgrind tsan openmp matrix fuzz" selects stages;
+# Environment: ROBUST_STAGES="asan valgrind tsan openmp clang matrix fuzz"
+# selects stages;
 # FUZZ_SECONDS, FUZZ_RUNS as above; JOBS (default 2) for ninja;
-# ROBUST_PREFIX (default "build-": build-asan, build-tsan, build-fuzz,
+# ROBUST_PREFIX (default "build-": build-asan, build-tsan, build-clang, build-fuzz,
 # build-robust-logs) and ROBUST_PLAIN (default "build") place the build
 # directories elsewhere, e.g. ROBUST_PREFIX=/tmp/rb- ROBUST_PLAIN=/tmp/rb-plain.
 set -u
 cd "$(dirname "$0")/.." || exit 1
 
-STAGES=${ROBUST_STAGES:-"asan valgrind tsan openmp matrix fuzz"}
+STAGES=${ROBUST_STAGES:-"asan valgrind tsan openmp clang matrix fuzz"}
 FUZZ_SECONDS=${FUZZ_SECONDS:-20}
 FUZZ_RUNS=${FUZZ_RUNS:-2000000}
 JOBS=${JOBS:-2}
@@ -149,6 +154,28 @@ stage_openmp() {
         ok openmp "$(grep -E '^Ok:' "$log" | tr -s ' ') tests"
     else
         fail openmp "$(grep -E '^(Ok|Fail|Timeout):' "$log" | tr -s ' ' | tr '\n' ' ')see $log"
+    fi
+}
+
+# A second compiler: its warnings (-Wdouble-promotion also flags double to
+# long double, -Wfor-loop-analysis, ...) and its code generation.
+stage_clang() {
+    local log=$LOGDIR/clang.log
+    if ! command -v clang >/dev/null; then
+        fail clang "clang not installed"; return
+    fi
+    rm -rf "${PFX}clang"
+    if ! CC=clang meson setup "${PFX}clang" --werror >"$log" 2>&1; then
+        fail clang "meson setup, see $log"; return
+    fi
+    if ! ninja -j"$JOBS" -C "${PFX}clang" >>"$log" 2>&1; then
+        fail clang "build with --werror: $(grep -c 'warning:\|error:' "$log") diagnostics, see $log"; return
+    fi
+    if meson test -C "${PFX}clang" --no-suite install --num-processes "$JOBS" \
+            --print-errorlogs >>"$log" 2>&1; then
+        ok clang "clang $(clang -dumpversion): $(grep -E '^Ok:' "$log" | tr -s ' ') tests"
+    else
+        fail clang "$(grep -E '^(Ok|Fail|Timeout):' "$log" | tr -s ' ' | tr '\n' ' ')see $log"
     fi
 }
 
@@ -270,6 +297,7 @@ for s in $STAGES; do
     valgrind) stage_valgrind ;;
     tsan) stage_tsan ;;
     openmp) stage_openmp ;;
+    clang) stage_clang ;;
     fuzz) stage_fuzz ;;
     matrix) stage_matrix ;;
     *) fail "$s" "unknown stage" ;;
