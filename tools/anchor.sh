@@ -9,16 +9,30 @@
 # converted outside the timed loop as the reference kernel's is. With
 # MCD_ANCHOR_DIJ=upper the library reads the upper triangle of Dij only
 # (mcd_workspace_set_dij_read, MCD_DIJ_READ_UPPER: no symmetry check), as
-# the reference kernel does.
+# the reference kernel does. With MCD_ANCHOR_HUGE=1 every array of both
+# sides (the reference kernel's too) starts on a 2 MB boundary and is
+# advised onto transparent huge pages (madvise MADV_HUGEPAGE; Linux, where
+# /sys/kernel/mm/transparent_hugepage/enabled is madvise or always).
 #   usage: tools/anchor.sh BUILD_DIR [N...]      (from the project root)
 set -eu
 src=${MCD_ANCHOR_DIR:-$(cd "$(dirname "$0")/../.." && pwd)/shared/perf-anchor}
 [ -f "$src/driver.c" ] || { echo "anchor.sh: no perf-anchor at $src (set MCD_ANCHOR_DIR)" >&2; exit 1; }
 tmp=$(mktemp -d); trap 'rm -rf "$tmp"' EXIT
 cp "$src"/* "$tmp/"
-python3 - "$tmp/driver.c" "${MCD_ANCHOR_LAYOUT:-soa}" "${MCD_ANCHOR_DIJ:-both}" <<'PY'
+python3 - "$tmp/driver.c" "${MCD_ANCHOR_LAYOUT:-soa}" "${MCD_ANCHOR_DIJ:-both}" "${MCD_ANCHOR_HUGE:-0}" <<'PY'
 import re, sys
 p = sys.argv[1]; s = open(p).read()
+if sys.argv[4] not in ("0", "1"):
+    sys.exit("anchor.sh: MCD_ANCHOR_HUGE must be 0 or 1")
+if sys.argv[4] == "1":
+    # the driver's one allocator: 2 MB aligned and rounded, then advised
+    a = "    double *p = aligned_alloc(64, bytes ? bytes : 64);"
+    if s.count(a) != 1:
+        sys.exit("anchor.sh: the shared driver changed; update tools/anchor.sh (huge)")
+    s = s.replace(a, "    bytes = (bytes / (2u << 20) + 1) * (2u << 20);\n"
+                     "    double *p = aligned_alloc(2u << 20, bytes);\n"
+                     "    if (p && madvise(p, bytes, MADV_HUGEPAGE) != 0) perror(\"madvise\");")
+    s = "#define _DEFAULT_SOURCE\n#include <sys/mman.h>\n" + s
 if sys.argv[2] not in ("soa", "tiled"):
     sys.exit("anchor.sh: MCD_ANCHOR_LAYOUT must be soa or tiled")
 if sys.argv[3] not in ("both", "upper"):
