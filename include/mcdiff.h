@@ -1434,7 +1434,10 @@ MCD_API mcd_status mcd_flux_diagnose(size_t n_species, size_t n_dim,
  *  from its own 4 KB page: with the arrays on 2 MB pages (Linux:
  *  madvise MADV_HUGEPAGE) mcd_flux_batch_dij ran 1.16x to 1.4x faster
  *  streamed at N = 3 to 50 and 1.15x in cache from N = 20 (tiled: 1.1x
- *  streamed); see README, "Batched fluxes for simulators".
+ *  streamed); see README, "Batched fluxes for simulators". With 2 MB
+ *  pages for both, tiled stayed the faster layout streamed (1.35x at
+ *  N = 10, 1.12x at 20, 1.25x at 50; separate runs of one session) and
+ *  was level in cache at N = 20.
  *  Since 0.4. */
 typedef enum mcd_layout {
     MCD_LAYOUT_SOA = 0,   /**< [q*K + k] (the default) */
