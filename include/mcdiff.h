@@ -1433,7 +1433,7 @@ MCD_API mcd_status mcd_flux_diagnose(size_t n_species, size_t n_dim,
  *  without); the results do not depend on K. A SoA block reads each row
  *  from its own 4 KB page: with the arrays on 2 MB pages (Linux:
  *  madvise MADV_HUGEPAGE) mcd_flux_batch_dij ran 1.16x to 1.4x faster
- *  streamed at N = 3 to 50 and 1.15x in cache from N = 20 (tiled: 1.1x
+ *  streamed at N = 3 to 50 and 1.15x in cache at N = 20 and 50 (tiled: 1.1x
  *  streamed); see README, "Batched fluxes for simulators". With 2 MB
  *  pages for both, tiled stayed the faster layout streamed (1.35x at
  *  N = 10, 1.12x at 20, 1.25x at 50; separate runs of one session) and
