@@ -287,7 +287,7 @@ KINLINE int stage_exact(const mcdi_kblock *b, const size_t n, const size_t L,
  * species and species n - 1 trade places lane by lane, so a cell's
  * fluxes depend on its own data only. Against a long-double solve
  * (tests/test_ground.c) this is as accurate as the scaled form with Đ
- * over 2 decades and more accurate with Đ over 6 (5e-15 against 2e-11
+ * over 2 decades and more accurate with Đ over 6 (5e-15 against 2.1e-11
  * of the largest flux at N = 3); grounding by x_i alone lost that, by
  * x_i S_i alone lost the N = 2 cells with a scarce species.
  * No square roots and one unknown fewer than the scaled form: the whole
