@@ -205,17 +205,24 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
             n <= MCDI_GROUND_NMAX && model == MCD_MODEL_MAXWELL_STEFAN) {
             /* the grounded form (kernel_ldl.h), else the scaled one */
             mcdi_vl kg[MCDI_GROUND_NMAX];
+            const int gp = ground_pick(&b, n, kg);
             CUT(7);
-            if (stage_ground_rhs(&b, n, nd, kg)) {
+            if (gp != 0) {
+                int ok;
+                if (gp == 1)
+                    stage_ground_rhs(&b, n, nd, kg, 0);
+                else
+                    stage_ground_rhs(&b, n, nd, kg, 1);
                 CUT(8);
-                if (stage_ground_solve(&b, n, nd, kg)) {
-                    CUT(9);
-                    if (emit_mole_v(
-                            n, nd, (const mcdi_vd *)b.s, (const mcdi_vd *)b.x,
-                            (const mcdi_vd *)b.r, (const mcdi_vd *)b.t, 0,
-                            *(const mcdi_vd *)b.c, (mcdi_vd *)b.J, jb, k0, nts))
-                        return;
-                }
+                ok = gp == 1 ? stage_ground_solve(&b, n, nd, kg, 0)
+                             : stage_ground_solve(&b, n, nd, kg, 1);
+                CUT(9);
+                if (ok &&
+                    emit_mole_v(n, nd, (const mcdi_vd *)b.x,
+                                (const mcdi_vd *)b.x, (const mcdi_vd *)b.r,
+                                (const mcdi_vd *)b.t, 0, *(const mcdi_vd *)b.c,
+                                (mcdi_vd *)b.J, jb, k0, nts))
+                    return;
                 if (mix != NULL) /* 1/Đ again: the factor overwrote it */
                     stage_invdiff_mixture(jb, &b, 0, n, L);
                 else
@@ -296,25 +303,35 @@ KINLINE int body2(const mcdi_bjob *jb, size_t k0, double *mem, const size_t n,
     if (nd == 3 && n <= MCDI_GROUND_NMAX) {
         /* both blocks grounded (kernel_ldl.h), else both scaled */
         mcdi_vl kg1[MCDI_GROUND_NMAX], kg2[MCDI_GROUND_NMAX];
-        if (stage_ground_rhs(&b1, n, nd, kg1) &&
-            stage_ground_rhs(&b2, n, nd, kg2)) {
-            if (!(stage_ground_solve(&b1, n, nd, kg1) &
-                  stage_ground_solve(&b2, n, nd, kg2)))
+        const int gp1 = ground_pick(&b1, n, kg1),
+                  gp2 = gp1 ? ground_pick(&b2, n, kg2) : 0;
+        if (gp1 != 0 && gp2 != 0) {
+            if (gp1 == 1)
+                stage_ground_rhs(&b1, n, nd, kg1, 0);
+            else
+                stage_ground_rhs(&b1, n, nd, kg1, 1);
+            if (gp2 == 1)
+                stage_ground_rhs(&b2, n, nd, kg2, 0);
+            else
+                stage_ground_rhs(&b2, n, nd, kg2, 1);
+            if (!((gp1 == 1 ? stage_ground_solve(&b1, n, nd, kg1, 0)
+                            : stage_ground_solve(&b1, n, nd, kg1, 1)) &
+                  (gp2 == 1 ? stage_ground_solve(&b2, n, nd, kg2, 0)
+                            : stage_ground_solve(&b2, n, nd, kg2, 1))))
                 return 0;
-            if (!emit_mole_v(n, nd, (const mcdi_vd *)b1.s,
+            if (!emit_mole_v(n, nd, (const mcdi_vd *)b1.x,
                              (const mcdi_vd *)b1.x, (const mcdi_vd *)b1.r,
                              (const mcdi_vd *)b1.t, 0, *(const mcdi_vd *)b1.c,
                              (mcdi_vd *)b1.J, jb, k0, nts))
                 return 0;
-            if (!emit_mole_v(n, nd, (const mcdi_vd *)b2.s,
+            if (!emit_mole_v(n, nd, (const mcdi_vd *)b2.x,
                              (const mcdi_vd *)b2.x, (const mcdi_vd *)b2.r,
                              (const mcdi_vd *)b2.t, 0, *(const mcdi_vd *)b2.c,
                              (mcdi_vd *)b2.J, jb, k0 + L, nts))
                 return 4;
             return 1;
         }
-        /* the scaled form for both; the first may have been permuted */
-        stage_invdiff_dij(jb, &b1, bl1, k0, L, n, L);
+        /* the scaled form for both (nothing permuted yet) */
     }
     ntr1 = stage_trace(jb, &b1, 0, n, L, nd, &wkr1);
     ntr2 = stage_trace(jb, &b2, 0, n, L, nd, &wkr2);
