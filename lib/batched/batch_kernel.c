@@ -202,7 +202,8 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
     } else {
         int wkr, ntr;
         if (L == MCDI_VLANES && nv == L && !mass_out && nd == 3 &&
-            n <= MCDI_GROUND_NMAX && model == MCD_MODEL_MAXWELL_STEFAN) {
+            MCDI_GROUND_HERE(n) && n <= MCDI_GROUND_NMAX &&
+            model == MCD_MODEL_MAXWELL_STEFAN) {
             /* the grounded form (kernel_ldl.h), else the scaled one */
             mcdi_vl kg[MCDI_GROUND_NMAX];
             const int gp = ground_pick(&b, n, kg);
@@ -300,7 +301,7 @@ KINLINE int body2(const mcdi_bjob *jb, size_t k0, double *mem, const size_t n,
         return 0;
     stage_blanc(jb, &b1, 0, n, L);
     stage_blanc(jb, &b2, 0, n, L);
-    if (nd == 3 && n <= MCDI_GROUND_NMAX) {
+    if (nd == 3 && MCDI_GROUND_HERE(n) && n <= MCDI_GROUND_NMAX) {
         /* both blocks grounded (kernel_ldl.h), else both scaled */
         mcdi_vl kg1[MCDI_GROUND_NMAX], kg2[MCDI_GROUND_NMAX];
         const int gp1 = ground_pick(&b1, n, kg1),
