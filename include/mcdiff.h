@@ -1404,7 +1404,11 @@ MCD_API mcd_status mcd_flux_diagnose(size_t n_species, size_t n_dim,
  * The values are the same either way. The exact model's fluxes agree with
  * mcd_flux_compute's to round-off, not bit for bit: with AVX-512 the
  * kernel takes the square roots of the mole fractions and the pivots'
- * reciprocals from hardware estimates refined by Newton steps (a few ulp).
+ * reciprocals from hardware estimates refined by Newton steps (a few ulp),
+ * and blocks of 2 to 5 species without trace species (3 directions,
+ * molar fluxes) solve the grounded N - 1 system instead of the scaled N x
+ * N one (about 1e-14 of the largest flux apart with Đ within 2 decades;
+ * the grounded form is the more accurate when Đ spans decades).
  */
 
 /** How the per-cell arrays of a batched call are laid out in memory
