@@ -41,6 +41,13 @@
 #include "mcdiff.h"
 #include "support.h"
 
+/* The reference is long double on purpose: GCC's -Wdouble-promotion
+ * warns only about float to double, Clang's flags double to long double
+ * as well. */
+#if defined(__clang__)
+#pragma clang diagnostic ignored "-Wdouble-promotion"
+#endif
+
 #define ACCURACY 1e-11
 #define NMAX 5
 /* cells per case: MCD_GROUND_CELLS (rounded to a multiple of 8, every
