@@ -275,7 +275,11 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
  * failed, before anything was stored: the caller then runs body() on
  * each block, which reports as always (and takes the scaled form where
  * the grounded one failed); 4 when the first block is stored and the
- * second's grounded fluxes were not finite: body() redoes the second. */
+ * second's grounded fluxes were not finite: body() redoes the second; 5
+ * when one block can take the grounded form and the other cannot, before
+ * anything was stored: the caller runs body() on each (so that a block's
+ * form, and so its bits, never depends on the block it is paired with:
+ * the pairs start where each thread's range of blocks starts). */
 KINLINE int body2(const mcdi_bjob *jb, size_t k0, double *mem, const size_t n,
                   const size_t L, const size_t nd, mcdi_bres *res)
 {
@@ -305,7 +309,9 @@ KINLINE int body2(const mcdi_bjob *jb, size_t k0, double *mem, const size_t n,
         /* both blocks grounded (kernel_ldl.h), else both scaled */
         mcdi_vl kg1[MCDI_GROUND_NMAX], kg2[MCDI_GROUND_NMAX];
         const int gp1 = ground_pick(&b1, n, kg1),
-                  gp2 = gp1 ? ground_pick(&b2, n, kg2) : 0;
+                  gp2 = ground_pick(&b2, n, kg2);
+        if ((gp1 != 0) != (gp2 != 0))
+            return 5; /* one of each: body() on each, as alone */
         if (gp1 != 0 && gp2 != 0) {
             if (gp1 == 1)
                 stage_ground_rhs(&b1, n, nd, kg1, 0);
@@ -332,7 +338,7 @@ KINLINE int body2(const mcdi_bjob *jb, size_t k0, double *mem, const size_t n,
                 return 4;
             return 1;
         }
-        /* the scaled form for both (nothing permuted yet) */
+        /* the scaled form for both */
     }
     ntr1 = stage_trace(jb, &b1, 0, n, L, nd, &wkr1);
     ntr2 = stage_trace(jb, &b2, 0, n, L, nd, &wkr2);
@@ -380,6 +386,17 @@ KINLINE size_t run_blocks(const mcdi_bjob *jb, size_t kb, size_t ke,
             if (got == 4) { /* the first stored, the second by body() */
                 k0 += L;
                 break;
+            }
+            if (got == 5) { /* one grounded block, one scaled: alone */
+                size_t h;
+                for (h = 0; h < 2; h++) {
+                    body(jb, k0 + h * L, L, mem, &r, n, L, nd);
+                    if (r.st != MCD_OK) {
+                        *res = r;
+                        return k0 + h * L;
+                    }
+                }
+                continue;
             }
             if (got == 0)
                 break; /* the blocks one at a time from here */

@@ -288,21 +288,23 @@ KINLINE int stage_exact(const mcdi_kblock *b, const size_t n, const size_t L,
  * the grounded species and species n - 1 trade places lane by lane, so a
  * cell's fluxes depend on its own data only, and a block whose every lane
  * grounds the last species (a carrier gas stored last) skips the
- * permutation. Against a long-double solve
- * (tests/test_ground.c) this is as accurate as the scaled form with Đ
- * over 2 decades and more accurate with Đ over 6 (5e-15 against 2.1e-11
- * of the largest flux at N = 3); grounding by x_i alone lost that, by
- * x_i S_i alone lost the N = 2 cells with a scarce species.
+ * permutation. Against a long-double solve (tests/test_ground.c) this is
+ * as accurate as the scaled form with Đ over 2 decades and more accurate
+ * with Đ over 6 (5e-15 against 2.1e-11 of the largest flux at N = 3);
+ * grounding by x_i alone lost that, by x_i S_i alone lost the N = 2 cells
+ * with a scarce species.
  * No square roots and one unknown fewer than the scaled form: the whole
  * call in cache (tools/anchor.sh, AVX-512 host) with random compositions
  * 1.25x faster at N = 2, 1.07-1.08x at N = 3, 1.01-1.03x at N = 4 and 5
  * (most blocks permute, which costs about what the smaller system saves);
  * with the last species 2-4 times as abundant as each other one (no
- * permutation) 1.35x, 1.23x, 1.23-1.25x and 1.16-1.21x at N = 2 to 5. A block with a trace species, some
- * x_i S_i below MCDI_GROUND_AMIN or S_i above MCDI_GROUND_SMAX (where the
- * scaled form's range checks decide), a pivot that is not > 0 or a flux
- * that is not finite takes the scaled form instead (the caller reloads
- * 1/Đ, which the factor overwrote). */
+ * permutation) 1.35x, 1.23x, 1.23-1.25x and 1.16-1.21x at N = 2 to 5.
+ * A block with a trace species, some x_i S_i below MCDI_GROUND_AMIN or
+ * S_i above MCDI_GROUND_SMAX (where the scaled form's range checks
+ * decide), a pivot that is not > 0 or a flux that is not finite takes the
+ * scaled form instead (the caller reloads 1/Đ, which the factor
+ * overwrote). The form is chosen per block, never per pair of blocks
+ * (body2): a cell's bits depend only on its own block. */
 #define MCDI_GROUND_NMAX 5
 /* Whether the grounded form is compiled into a block instance: with GCC
  * only where n is a compile-time constant (the instances of n = 2 to 5,
