@@ -170,6 +170,17 @@ static void batch_run(mcd_workspace *ws, size_t n, const batch *s)
                   "%s", mcd_last_error());
 }
 
+/* Whether long double arithmetic carries more bits than double here: not
+ * where long double is double, nor under valgrind, whose x87 emulation
+ * computes long doubles in 64 bits (the documented limitation of its
+ * memcheck; from memory). Without it the reference is no better than
+ * the library and the accuracy is not checked (the bit checks still are). */
+static int extended_precision(void)
+{
+    volatile long double one = 1.0L, tiny = 0x1p-60L;
+    return LDBL_MANT_DIG > DBL_MANT_DIG && (one + tiny) - one == tiny;
+}
+
 /* The single-state call's error on one cell against the reference. */
 static double single_error(mcd_workspace *ws, size_t n, const double *x,
                            const double *D, const double *g, double c,
@@ -200,6 +211,10 @@ START_TEST(grounded_blocks_match_an_extended_precision_solve)
     const double xdec[] = {0.0, 4.0, 12.0}, ddec[] = {2.0, 6.0};
     size_t n, a, b, i, j, k, q;
     const char *env = getenv("MCD_GROUND_CELLS");
+    const int check = extended_precision();
+    if (!check)
+        printf("long double is no wider than double here: the accuracy "
+               "is printed, not checked\n");
     if (env != NULL && atol(env) > 0)
         K = ((size_t)atol(env) + 7) / 8 * 8;
     for (n = 2; n <= NMAX; n++) {
@@ -267,7 +282,7 @@ START_TEST(grounded_blocks_match_an_extended_precision_solve)
                     e1 = single_error(ws, n, x, D, g, s.c[k], Jr, big);
                     if (e1 > worst1)
                         worst1 = e1;
-                    ck_assert_msg(e <= ACCURACY,
+                    ck_assert_msg(!check || e <= ACCURACY,
                                   "N=%zu x over %g decades, Dij over %g: cell "
                                   "%zu error %.3g",
                                   n, xdec[a], ddec[b], k, e);
