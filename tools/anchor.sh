@@ -13,15 +13,26 @@
 # sides (the reference kernel's too) starts on a 2 MB boundary and is
 # advised onto transparent huge pages (madvise MADV_HUGEPAGE; Linux, where
 # /sys/kernel/mm/transparent_hugepage/enabled is madvise or always).
+# With MCD_ANCHOR_CARRIER=1 the last species is drawn 2-4 times as
+# abundant as each other one (a carrier gas stored last: the batched
+# call's grounded blocks then need no permutation, kernel_ldl.h); both
+# sides get the same cells, as always.
 #   usage: tools/anchor.sh BUILD_DIR [N...]      (from the project root)
 set -eu
 src=${MCD_ANCHOR_DIR:-$(cd "$(dirname "$0")/../.." && pwd)/shared/perf-anchor}
 [ -f "$src/driver.c" ] || { echo "anchor.sh: no perf-anchor at $src (set MCD_ANCHOR_DIR)" >&2; exit 1; }
 tmp=$(mktemp -d); trap 'rm -rf "$tmp"' EXIT
 cp "$src"/* "$tmp/"
-python3 - "$tmp/driver.c" "${MCD_ANCHOR_LAYOUT:-soa}" "${MCD_ANCHOR_DIJ:-both}" "${MCD_ANCHOR_HUGE:-0}" <<'PY'
+python3 - "$tmp/driver.c" "${MCD_ANCHOR_LAYOUT:-soa}" "${MCD_ANCHOR_DIJ:-both}" "${MCD_ANCHOR_HUGE:-0}" "${MCD_ANCHOR_CARRIER:-0}" <<'PY'
 import re, sys
 p = sys.argv[1]; s = open(p).read()
+if sys.argv[5] not in ("0", "1"):
+    sys.exit("anchor.sh: MCD_ANCHOR_CARRIER must be 0 or 1")
+if sys.argv[5] == "1":
+    a = "xe[i] = ur(0.01, 1.0);"
+    if s.count(a) != 1:
+        sys.exit("anchor.sh: the shared driver changed; update tools/anchor.sh (carrier)")
+    s = s.replace(a, "xe[i] = i == N - 1 ? ur(2.0, 4.0) : ur(0.01, 1.0);")
 if sys.argv[4] not in ("0", "1"):
     sys.exit("anchor.sh: MCD_ANCHOR_HUGE must be 0 or 1")
 if sys.argv[4] == "1":

@@ -28,6 +28,12 @@
  * has S_k = 0; then a = max S_i over all species (> 0) keeps the matrix
  * definite.
  *
+ * Full blocks of the exact model with n_dim = 3, 2 <= N <= 5 and mole
+ * fluxes solve the grounded form instead (kernel_ldl.h,
+ * stage_ground_rhs): u_i = J_i / (c x_i), the (N - 1) x (N - 1) graph
+ * Laplacian with a species of each lane grounded (the largest x_i^2 S_i),
+ * no square roots; a block with a trace species takes the scaled form.
+ *
  * Factorisation (exact model): LDL^T without pivoting and without square
  * roots, left-looking, packed lower triangle, vectorised across the L
  * cells: D_j = A_jj - sum_{k<j} L_jk^2 D_k, L_ij = (A_ij - sum_{k<j} L_ik
@@ -194,8 +200,37 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
     if (model == MCD_MODEL_MIXTURE_AVERAGED) {
         stage_mixavg(&b, n, L, nd);
     } else {
-        int wkr;
-        const int ntr = stage_trace(jb, &b, pl, n, L, nd, &wkr);
+        int wkr, ntr;
+        if (L == MCDI_VLANES && nv == L && !mass_out && nd == 3 &&
+            MCDI_GROUND_HERE(n) && n <= MCDI_GROUND_NMAX &&
+            model == MCD_MODEL_MAXWELL_STEFAN) {
+            /* the grounded form (kernel_ldl.h), else the scaled one */
+            mcdi_vl kg[MCDI_GROUND_NMAX];
+            const int gp = ground_pick(&b, n, kg);
+            CUT(7);
+            if (gp != 0) {
+                int ok;
+                if (gp == 1)
+                    stage_ground_rhs(&b, n, nd, kg, 0);
+                else
+                    stage_ground_rhs(&b, n, nd, kg, 1);
+                CUT(8);
+                ok = gp == 1 ? stage_ground_solve(&b, n, nd, kg, 0)
+                             : stage_ground_solve(&b, n, nd, kg, 1);
+                CUT(9);
+                if (ok &&
+                    emit_mole_v(n, nd, (const mcdi_vd *)b.x,
+                                (const mcdi_vd *)b.x, (const mcdi_vd *)b.r,
+                                (const mcdi_vd *)b.t, 0, *(const mcdi_vd *)b.c,
+                                (mcdi_vd *)b.J, jb, k0, nts))
+                    return;
+                if (mix != NULL) /* 1/Đ again: the factor overwrote it */
+                    stage_invdiff_mixture(jb, &b, 0, n, L);
+                else
+                    stage_invdiff_dij(jb, &b, bl, k0, nv, n, L);
+            }
+        }
+        ntr = stage_trace(jb, &b, pl, n, L, nd, &wkr);
         CUT(7);
         stage_rhs(&b, n, L, nd, wkr);
         CUT(8);
@@ -238,7 +273,13 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
  * are not finite (res set by stage_store as in body(); the first block is
  * stored before the second is reported); 0 when a loading check or a pivot
  * failed, before anything was stored: the caller then runs body() on
- * each block, which reports as always. */
+ * each block, which reports as always (and takes the scaled form where
+ * the grounded one failed); 4 when the first block is stored and the
+ * second's grounded fluxes were not finite: body() redoes the second; 5
+ * when one block can take the grounded form and the other cannot, before
+ * anything was stored: the caller runs body() on each (so that a block's
+ * form, and so its bits, never depends on the block it is paired with:
+ * the pairs start where each thread's range of blocks starts). */
 KINLINE int body2(const mcdi_bjob *jb, size_t k0, double *mem, const size_t n,
                   const size_t L, const size_t nd, mcdi_bres *res)
 {
@@ -264,6 +305,41 @@ KINLINE int body2(const mcdi_bjob *jb, size_t k0, double *mem, const size_t n,
         return 0;
     stage_blanc(jb, &b1, 0, n, L);
     stage_blanc(jb, &b2, 0, n, L);
+    if (nd == 3 && MCDI_GROUND_HERE(n) && n <= MCDI_GROUND_NMAX) {
+        /* both blocks grounded (kernel_ldl.h), else both scaled */
+        mcdi_vl kg1[MCDI_GROUND_NMAX], kg2[MCDI_GROUND_NMAX];
+        const int gp1 = ground_pick(&b1, n, kg1),
+                  gp2 = ground_pick(&b2, n, kg2);
+        if ((gp1 != 0) != (gp2 != 0))
+            return 5; /* one of each: body() on each, as alone */
+        if (gp1 != 0 && gp2 != 0) {
+            if (gp1 == 1)
+                stage_ground_rhs(&b1, n, nd, kg1, 0);
+            else
+                stage_ground_rhs(&b1, n, nd, kg1, 1);
+            if (gp2 == 1)
+                stage_ground_rhs(&b2, n, nd, kg2, 0);
+            else
+                stage_ground_rhs(&b2, n, nd, kg2, 1);
+            if (!((gp1 == 1 ? stage_ground_solve(&b1, n, nd, kg1, 0)
+                            : stage_ground_solve(&b1, n, nd, kg1, 1)) &
+                  (gp2 == 1 ? stage_ground_solve(&b2, n, nd, kg2, 0)
+                            : stage_ground_solve(&b2, n, nd, kg2, 1))))
+                return 0;
+            if (!emit_mole_v(n, nd, (const mcdi_vd *)b1.x,
+                             (const mcdi_vd *)b1.x, (const mcdi_vd *)b1.r,
+                             (const mcdi_vd *)b1.t, 0, *(const mcdi_vd *)b1.c,
+                             (mcdi_vd *)b1.J, jb, k0, nts))
+                return 0;
+            if (!emit_mole_v(n, nd, (const mcdi_vd *)b2.x,
+                             (const mcdi_vd *)b2.x, (const mcdi_vd *)b2.r,
+                             (const mcdi_vd *)b2.t, 0, *(const mcdi_vd *)b2.c,
+                             (mcdi_vd *)b2.J, jb, k0 + L, nts))
+                return 4;
+            return 1;
+        }
+        /* the scaled form for both */
+    }
     ntr1 = stage_trace(jb, &b1, 0, n, L, nd, &wkr1);
     ntr2 = stage_trace(jb, &b2, 0, n, L, nd, &wkr2);
     stage_rhs(&b1, n, L, nd, wkr1);
@@ -306,6 +382,21 @@ KINLINE size_t run_blocks(const mcdi_bjob *jb, size_t kb, size_t ke,
             if (got == 2 || got == 3) {
                 *res = r;
                 return got == 2 ? k0 : k0 + L;
+            }
+            if (got == 4) { /* the first stored, the second by body() */
+                k0 += L;
+                break;
+            }
+            if (got == 5) { /* one grounded block, one scaled: alone */
+                size_t h;
+                for (h = 0; h < 2; h++) {
+                    body(jb, k0 + h * L, L, mem, &r, n, L, nd);
+                    if (r.st != MCD_OK) {
+                        *res = r;
+                        return k0 + h * L;
+                    }
+                }
+                continue;
             }
             if (got == 0)
                 break; /* the blocks one at a time from here */

@@ -268,4 +268,166 @@ KINLINE int stage_exact(const mcdi_kblock *b, const size_t n, const size_t L,
     return mcdi_ldl_rows(&R, amax, n, L, nd);
 }
 
+/* The grounded form, for full blocks of the exact model (Đ per cell or a
+ * mixture), n_dim = 3 and 2 <= n <= MCDI_GROUND_NMAX, where every species
+ * is present in every lane. With u_i = J_i / (c x_i) the Maxwell-Stefan
+ * equations are the graph Laplacian system
+ *     sum_j x_i x_j (u_j - u_i) / Đ_ij = d_i,
+ * singular only along u = const. Grounding one species g (u_g = 0)
+ * leaves the (n - 1) x (n - 1) positive definite system
+ *     A u = -d,   A_ii = x_i S_i,   A_ij = -x_i x_j / Đ_ij   (i, j != g),
+ * which the L D L^T above factors with s = x and a = 0; J_i = c x_i u_i
+ * (J_g = 0), and the zero-sum clean-up of the emit, J_i -= x_i sum_k J_k,
+ * is the shift u -> u - sum_k x_k u_k back to the molar-average frame.
+ * The choice of g sets the accuracy: the shift cancels u_g's offset
+ * (large when x_g is small: at N = 2 both diagonals are x_0 x_1 / Đ),
+ * and a g weakly connected to the others (large Đ_gj) leaves a nearly
+ * singular A. Each lane grounds the species with the largest x_i^2 S_i
+ * (the last one on ties), or the last species where its x^2 S is within
+ * a factor MCDI_GROUND_KEEP of that: in the order the factor takes them,
+ * the grounded species and species n - 1 trade places lane by lane, so a
+ * cell's fluxes depend on its own data only, and a block whose every lane
+ * grounds the last species (a carrier gas stored last) skips the
+ * permutation. Against a long-double solve (tests/test_ground.c) this is
+ * as accurate as the scaled form with Đ over 2 decades and more accurate
+ * with Đ over 6 (5e-15 against 2.1e-11 of the largest flux at N = 3);
+ * grounding by x_i alone lost that, by x_i S_i alone lost the N = 2 cells
+ * with a scarce species.
+ * No square roots and one unknown fewer than the scaled form: the whole
+ * call in cache (tools/anchor.sh, AVX-512 host) with random compositions
+ * 1.25x faster at N = 2, 1.07-1.08x at N = 3, 1.01-1.03x at N = 4 and 5
+ * (most blocks permute, which costs about what the smaller system saves);
+ * with the last species 2-4 times as abundant as each other one (no
+ * permutation) 1.35x, 1.23x, 1.23-1.25x and 1.16-1.21x at N = 2 to 5.
+ * A block with a trace species, some x_i S_i below MCDI_GROUND_AMIN or
+ * S_i above MCDI_GROUND_SMAX (where the scaled form's range checks
+ * decide), a pivot that is not > 0 or a flux that is not finite takes the
+ * scaled form instead (the caller reloads 1/Đ, which the factor
+ * overwrote). The form is chosen per block, never per pair of blocks
+ * (body2): a cell's bits depend only on its own block. */
+#define MCDI_GROUND_NMAX 5
+/* Whether the grounded form is compiled into a block instance: with GCC
+ * only where n is a compile-time constant (the instances of n = 2 to 5,
+ * batch_kernel.c), so that the generic instance keeps its code (compiled
+ * in there, never run, it added 0.6 % instructions at N = 10 and 1.5 % at
+ * N = 20; tools/icount). */
+#if defined(__GNUC__) && !defined(__clang__)
+#define MCDI_GROUND_HERE(n) __builtin_constant_p(n)
+#else
+#define MCDI_GROUND_HERE(n) 1
+#endif
+#define MCDI_GROUND_AMIN 0x1p-960
+#define MCDI_GROUND_SMAX 0x1p960
+#define MCDI_GROUND_KEEP 4.0
+
+/* a where k, else b, lane by lane */
+KINLINE mcdi_vd pick_v(const mcdi_vl k, const mcdi_vd a, const mcdi_vd b)
+{
+    return (mcdi_vd)((k & (mcdi_vl)a) | (~k & (mcdi_vl)b));
+}
+
+/* The species each lane grounds (kg[i], i < m = n - 1: the lanes that
+ * ground species i; species m elsewhere) and the diagonals x_i S_i in
+ * num. Species m stays grounded in a lane where its x_m^2 S_m is within
+ * MCDI_GROUND_KEEP of the largest, so that a block whose lanes all keep
+ * it (a carrier gas stored last) needs no permutation. Returns 0 if some
+ * x_i S_i is below MCDI_GROUND_AMIN or some S_i above MCDI_GROUND_SMAX
+ * in some lane (a trace species, say: the scaled form then), 1 if every
+ * lane grounds species m, 2 otherwise. Writes only num and kg. */
+KINLINE int ground_pick(const mcdi_kblock *b, const size_t n,
+                        mcdi_vl *restrict kg)
+{
+    const size_t m = n - 1;
+    const mcdi_vd *restrict x = (const mcdi_vd *)(const void *)b->x;
+    const mcdi_vd *restrict S = (const mcdi_vd *)(const void *)b->S;
+    mcdi_vd *restrict Sx = (mcdi_vd *)(void *)b->num;
+    mcdi_vd q[MCDI_GROUND_NMAX], best;
+    mcdi_vl low = {0}, any = {0}, keep;
+    size_t i, j;
+    for (i = 0; i < n; i++) {
+        const mcdi_vd a = x[i] * S[i];
+        Sx[i] = a;
+        q[i] = x[i] * a;
+        low |= ~((a >= MCDI_GROUND_AMIN) & (S[i] <= MCDI_GROUND_SMAX));
+    }
+    if (any_lane_v(low))
+        return 0;
+    best = q[m];
+    for (i = m; i-- > 0;) { /* strictly larger: the last one on ties */
+        const mcdi_vl gt = q[i] > best;
+        best = max_v(q[i], best);
+        for (j = i + 1; j < m; j++)
+            kg[j] &= ~gt;
+        kg[i] = gt;
+    }
+    keep = MCDI_GROUND_KEEP * q[m] >= best;
+    for (i = 0; i < m; i++) {
+        kg[i] &= ~keep;
+        any |= kg[i];
+    }
+    return any_lane_v(any) ? 2 : 1;
+}
+
+/* The grounded system in the order the factor takes it: with perm (a
+ * constant at each call: ground_pick returned 2) species m takes the
+ * grounded species' place lane by lane in s (= x), num, r and the
+ * leading m x m triangle of 1/Đ; r = -d. */
+KINLINE void stage_ground_rhs(const mcdi_kblock *b, const size_t n,
+                              const size_t nd, const mcdi_vl *restrict kg,
+                              const int perm)
+{
+    const size_t m = n - 1, tm = m * (m + 1) / 2; /* row m of the triangle */
+    mcdi_vd *restrict tri = (mcdi_vd *)(void *)b->tri;
+    const mcdi_vd *restrict x = (const mcdi_vd *)(const void *)b->x;
+    const mcdi_vd *restrict d = (const mcdi_vd *)(const void *)b->d;
+    mcdi_vd *restrict s = (mcdi_vd *)(void *)b->s;
+    mcdi_vd *restrict Sx = (mcdi_vd *)(void *)b->num;
+    mcdi_vd *restrict r = (mcdi_vd *)(void *)b->r;
+    size_t i, j, dd;
+    for (i = 0; i < m; i++) {
+        if (!perm) {
+            for (dd = 0; dd < nd; dd++)
+                r[i * nd + dd] = -d[i * nd + dd];
+            continue;
+        }
+        s[i] = pick_v(kg[i], x[m], x[i]);
+        Sx[i] = pick_v(kg[i], Sx[m], Sx[i]);
+        for (dd = 0; dd < nd; dd++)
+            r[i * nd + dd] = -pick_v(kg[i], d[m * nd + dd], d[i * nd + dd]);
+        for (j = 0; j < i; j++) { /* (i, j) is (m, j) or (i, m) = (m, i) */
+            mcdi_vd *t = tri + i * (i + 1) / 2 + j;
+            *t = pick_v(kg[i], tri[tm + j], pick_v(kg[j], tri[tm + i], *t));
+        }
+    }
+}
+
+/* A u = -d (stage_ground_rhs, the same perm) by L D L^T; u back in
+ * species order in r (u_g = 0); the fluxes are c x_i u_i (emit with
+ * s = x). Returns 0 if some lane's pivot is not > 0 (tri then holds part
+ * of L). */
+KINLINE int stage_ground_solve(const mcdi_kblock *b, const size_t n,
+                               const size_t nd, const mcdi_vl *restrict kg,
+                               const int perm)
+{
+    const size_t m = n - 1;
+    const mcdi_vd *restrict s =
+        (const mcdi_vd *)(const void *)(perm ? b->s : b->x);
+    mcdi_vd *restrict r = (mcdi_vd *)(void *)b->r;
+    const mcdi_vd zero = {0.0};
+    size_t i, dd;
+    if (!ldl_solve_v(m, nd, KREG, (mcdi_vd *)(void *)b->tri, s,
+                     (const mcdi_vd *)(const void *)b->num, s, zero, r,
+                     (mcdi_vd *)b->Dg, (mcdi_vd *)b->iDg, (mcdi_vd *)b->Wt))
+        return 0;
+    for (dd = 0; dd < nd; dd++) {
+        mcdi_vd um = zero; /* u_m: row i where species m took i's place */
+        for (i = 0; perm && i < m; i++) {
+            um = pick_v(kg[i], r[i * nd + dd], um);
+            r[i * nd + dd] = pick_v(kg[i], zero, r[i * nd + dd]);
+        }
+        r[m * nd + dd] = um;
+    }
+    return 1;
+}
+
 #endif
