@@ -283,8 +283,9 @@ KINLINE int stage_exact(const mcdi_kblock *b, const size_t n, const size_t L,
  * (large when x_g is small: at N = 2 both diagonals are x_0 x_1 / Đ),
  * and a g weakly connected to the others (large Đ_gj) leaves a nearly
  * singular A. Each lane grounds the species with the largest x_i^2 S_i
- * (the last one on ties), or the last species where its x^2 S is within
- * a factor MCDI_GROUND_KEEP of that: in the order the factor takes them,
+ * (the last one on ties) among those with x_i >= x_max / MCDI_GROUND_XSPAN,
+ * or the last species where its x^2 S is within a factor
+ * MCDI_GROUND_KEEP of that: in the order the factor takes them,
  * the grounded species and species n - 1 trade places lane by lane, so a
  * cell's fluxes depend on its own data only, and a block whose every lane
  * grounds the last species (a carrier gas stored last) skips the
@@ -292,7 +293,15 @@ KINLINE int stage_exact(const mcdi_kblock *b, const size_t n, const size_t L,
  * as accurate as the scaled form with Đ over 2 decades and more accurate
  * with Đ over 6 (5e-15 against 2.1e-11 of the largest flux at N = 3);
  * grounding by x_i alone lost that, by x_i S_i alone lost the N = 2 cells
- * with a scarce species.
+ * with a scarce species. The bound on x_g keeps the shift's cancellation
+ * small: J_g = -x_g sum_k J_k after it, so the offset it cancels is at
+ * most |J_g| / x_g <= n XSPAN max_i |J_i| (about 3e-13 of the largest flux
+ * in round-off at n = 5). Without it a scarce species tied to others by a
+ * tiny Đ was grounded and the fuzzer found fluxes that did not sum to
+ * zero (tests/test_ground.c). Bounds of 16, 64 and 256 gave the same
+ * accuracy as none with Đ over 2 decades; with Đ over 6, 64 and 256 kept
+ * it (1.6e-13 against 6.8e-14 at n = 3, x over 4 decades, 32000 cells)
+ * and 16 and 4 lost some (2.4e-12).
  * No square roots and one unknown fewer than the scaled form: the whole
  * call in cache (tools/anchor.sh, AVX-512 host) with random compositions
  * 1.25x faster at N = 2, 1.07-1.08x at N = 3, 1.01-1.03x at N = 4 and 5
@@ -319,6 +328,9 @@ KINLINE int stage_exact(const mcdi_kblock *b, const size_t n, const size_t L,
 #define MCDI_GROUND_AMIN 0x1p-960
 #define MCDI_GROUND_SMAX 0x1p960
 #define MCDI_GROUND_KEEP 4.0
+#ifndef MCDI_GROUND_XSPAN
+#define MCDI_GROUND_XSPAN 64.0
+#endif
 
 /* a where k, else b, lane by lane */
 KINLINE mcdi_vd pick_v(const mcdi_vl k, const mcdi_vd a, const mcdi_vd b)
@@ -327,7 +339,8 @@ KINLINE mcdi_vd pick_v(const mcdi_vl k, const mcdi_vd a, const mcdi_vd b)
 }
 
 /* The species each lane grounds (kg[i], i < m = n - 1: the lanes that
- * ground species i; species m elsewhere) and the diagonals x_i S_i in
+ * ground species i; species m elsewhere; only species with x_i >= x_max /
+ * MCDI_GROUND_XSPAN are candidates) and the diagonals x_i S_i in
  * num. Species m stays grounded in a lane where its x_m^2 S_m is within
  * MCDI_GROUND_KEEP of the largest, so that a block whose lanes all keep
  * it (a carrier gas stored last) needs no permutation. Returns 0 if some
@@ -344,10 +357,15 @@ KINLINE int ground_pick(const mcdi_kblock *b, const size_t n,
     mcdi_vd q[MCDI_GROUND_NMAX], best;
     mcdi_vl low = {0}, any = {0}, keep;
     size_t i, j;
+    const mcdi_vd zero = {0.0};
+    mcdi_vd xmax = x[0];
+    for (i = 1; i < n; i++)
+        xmax = max_v(x[i], xmax);
+    xmax *= 1.0 / MCDI_GROUND_XSPAN;
     for (i = 0; i < n; i++) {
         const mcdi_vd a = x[i] * S[i];
         Sx[i] = a;
-        q[i] = x[i] * a;
+        q[i] = pick_v(x[i] >= xmax, x[i] * a, zero);
         low |= ~((a >= MCDI_GROUND_AMIN) & (S[i] <= MCDI_GROUND_SMAX));
     }
     if (any_lane_v(low))
