@@ -30,9 +30,10 @@
  *
  * Full blocks of the exact model with n_dim = 3, 2 <= N <= 5 and mole
  * fluxes solve the grounded form instead (kernel_ldl.h,
- * stage_ground_rhs): u_i = J_i / (c x_i), the (N - 1) x (N - 1) graph
- * Laplacian with a species of each lane grounded (the largest x_i^2 S_i),
- * no square roots; a block with a trace species takes the scaled form.
+ * stage_ground_gth): u_i = J_i / (c x_i), the (N - 1) x (N - 1) graph
+ * Laplacian with the most abundant species of each lane grounded, by an
+ * elimination without subtraction (Grassmann, Taksar and Heyman), no
+ * square roots; a block with a trace species takes the scaled form.
  *
  * Factorisation (exact model): LDL^T without pivoting and without square
  * roots, left-looking, packed lower triangle, vectorised across the L
@@ -209,14 +210,11 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
             const int gp = ground_pick(&b, n, kg);
             CUT(7);
             if (gp != 0) {
-                int ok;
-                if (gp == 1)
-                    stage_ground_rhs(&b, n, nd, kg, 0);
-                else
-                    stage_ground_rhs(&b, n, nd, kg, 1);
+                /* (1/Đ is left as it was for the scaled form if this
+                 * fails) */
+                const int ok = gp == 1 ? stage_ground_gth(&b, n, nd, kg, 0)
+                                       : stage_ground_gth(&b, n, nd, kg, 1);
                 CUT(8);
-                ok = gp == 1 ? stage_ground_solve(&b, n, nd, kg, 0)
-                             : stage_ground_solve(&b, n, nd, kg, 1);
                 CUT(9);
                 if (ok &&
                     emit_mole_v(n, nd, (const mcdi_vd *)b.x,
@@ -224,10 +222,6 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
                                 (const mcdi_vd *)b.t, 0, *(const mcdi_vd *)b.c,
                                 (mcdi_vd *)b.J, jb, k0, nts))
                     return;
-                if (mix != NULL) /* 1/Đ again: the factor overwrote it */
-                    stage_invdiff_mixture(jb, &b, 0, n, L);
-                else
-                    stage_invdiff_dij(jb, &b, bl, k0, nv, n, L);
             }
         }
         ntr = stage_trace(jb, &b, pl, n, L, nd, &wkr);
@@ -313,18 +307,10 @@ KINLINE int body2(const mcdi_bjob *jb, size_t k0, double *mem, const size_t n,
         if ((gp1 != 0) != (gp2 != 0))
             return 5; /* one of each: body() on each, as alone */
         if (gp1 != 0 && gp2 != 0) {
-            if (gp1 == 1)
-                stage_ground_rhs(&b1, n, nd, kg1, 0);
-            else
-                stage_ground_rhs(&b1, n, nd, kg1, 1);
-            if (gp2 == 1)
-                stage_ground_rhs(&b2, n, nd, kg2, 0);
-            else
-                stage_ground_rhs(&b2, n, nd, kg2, 1);
-            if (!((gp1 == 1 ? stage_ground_solve(&b1, n, nd, kg1, 0)
-                            : stage_ground_solve(&b1, n, nd, kg1, 1)) &
-                  (gp2 == 1 ? stage_ground_solve(&b2, n, nd, kg2, 0)
-                            : stage_ground_solve(&b2, n, nd, kg2, 1))))
+            if (!((gp1 == 1 ? stage_ground_gth(&b1, n, nd, kg1, 0)
+                            : stage_ground_gth(&b1, n, nd, kg1, 1)) &
+                  (gp2 == 1 ? stage_ground_gth(&b2, n, nd, kg2, 0)
+                            : stage_ground_gth(&b2, n, nd, kg2, 1))))
                 return 0;
             if (!emit_mole_v(n, nd, (const mcdi_vd *)b1.x,
                              (const mcdi_vd *)b1.x, (const mcdi_vd *)b1.r,

@@ -274,46 +274,47 @@ KINLINE int stage_exact(const mcdi_kblock *b, const size_t n, const size_t L,
  * equations are the graph Laplacian system
  *     sum_j x_i x_j (u_j - u_i) / Đ_ij = d_i,
  * singular only along u = const. Grounding one species g (u_g = 0)
- * leaves the (n - 1) x (n - 1) positive definite system
- *     A u = -d,   A_ii = x_i S_i,   A_ij = -x_i x_j / Đ_ij   (i, j != g),
- * which the L D L^T above factors with s = x and a = 0; J_i = c x_i u_i
- * (J_g = 0), and the zero-sum clean-up of the emit, J_i -= x_i sum_k J_k,
- * is the shift u -> u - sum_k x_k u_k back to the molar-average frame.
- * The choice of g sets the accuracy: the shift cancels u_g's offset
- * (large when x_g is small: at N = 2 both diagonals are x_0 x_1 / Đ),
- * and a g weakly connected to the others (large Đ_gj) leaves a nearly
- * singular A. Each lane grounds the species with the largest x_i^2 S_i
- * (the last one on ties) among those with x_i >= x_max / MCDI_GROUND_XSPAN,
- * or the last species where its x^2 S is within a factor
- * MCDI_GROUND_KEEP of that: in the order the factor takes them,
+ * leaves the (n - 1) x (n - 1) system A u = -d, A_ij = -x_i x_j / Đ_ij,
+ * A_ii = x_i S_i: a diagonally dominant M-matrix whose row sums are the
+ * ties x_i x_g / Đ_ig to the grounded species. stage_ground_gth solves it
+ * by an elimination that only ever adds non-negative terms, so it is
+ * accurate however the Đ_ij spread; J_i = c x_i u_i (J_g = 0), and the
+ * zero-sum clean-up of the emit, J_i -= x_i sum_k J_k, is the shift
+ * u -> u - sum_k x_k u_k back to the molar-average frame. That shift
+ * cancels u_g's offset from the average: after it J_g = -x_g sum_k J_k,
+ * so the offset is at most |J_g| / x_g, small against the fluxes when
+ * x_g is large. Each lane grounds its most abundant species (the last
+ * one on ties), or the last species where its x is within a factor
+ * MCDI_GROUND_KEEP of the largest; in the order the factor takes them,
  * the grounded species and species n - 1 trade places lane by lane, so a
- * cell's fluxes depend on its own data only, and a block whose every lane
- * grounds the last species (a carrier gas stored last) skips the
- * permutation. Against a long-double solve (tests/test_ground.c) this is
- * as accurate as the scaled form with Đ over 2 decades and more accurate
- * with Đ over 6 (5e-15 against 2.1e-11 of the largest flux at N = 3);
- * grounding by x_i alone lost that, by x_i S_i alone lost the N = 2 cells
- * with a scarce species. The bound on x_g keeps the shift's cancellation
- * small: J_g = -x_g sum_k J_k after it, so the offset it cancels is at
- * most |J_g| / x_g <= n XSPAN max_i |J_i| (about 3e-13 of the largest flux
- * in round-off at n = 5). Without it a scarce species tied to others by a
- * tiny Đ was grounded and the fuzzer found fluxes that did not sum to
- * zero (tests/test_ground.c). Bounds of 16, 64 and 256 gave the same
- * accuracy as none with Đ over 2 decades; with Đ over 6, 64 and 256 kept
- * it (1.6e-13 against 6.8e-14 at n = 3, x over 4 decades, 32000 cells)
- * and 16 and 4 lost some (2.4e-12).
- * No square roots and one unknown fewer than the scaled form: the whole
- * call in cache (tools/anchor.sh, AVX-512 host) with random compositions
- * 1.25x faster at N = 2, 1.07-1.08x at N = 3, 1.01-1.03x at N = 4 and 5
- * (most blocks permute, which costs about what the smaller system saves);
- * with the last species 2-4 times as abundant as each other one (no
- * permutation) 1.35x, 1.23x, 1.23-1.25x and 1.16-1.21x at N = 2 to 5.
+ * cell's fluxes depend on its own data only, and a block whose every
+ * lane grounds the last species (a carrier gas stored last) skips the
+ * permutation.
+ * Against a long-double solve (tests/test_ground.c, 32000 cells a case,
+ * x over up to 12 decades, Đ over up to 6): at most 5e-15 of the largest
+ * flux (8.5e-15 in the x86-64-v1 kernel), where the scaled form reaches
+ * 3.7e-11. Scarce species tied to each other by a tiny Đ: 6.5e-17
+ * against an exact rational solve, where the scaled form is off by 1.8e-5
+ * or, at Đ = 2e-139, entirely. Measured, not kept: the same system
+ * through the scaled form's L D L^T (pivots by subtraction) reached
+ * 6.6e-12 with the grounded species chosen by the largest x_i^2 S_i, and
+ * 3.3e-11 by the largest x_i; the x_i^2 S_i rule also grounded a scarce
+ * species tied to others by a tiny Đ, where the shift then left fluxes
+ * that did not sum to zero (the fuzzer's find, test_ground.c).
+ * Speed: no square roots and one unknown fewer than the scaled form;
+ * the whole call in cache against the scaled form (tools/anchor.sh, the
+ * AVX-512 host, 3 alternating runs, random compositions): 1.31x at N = 2,
+ * 1.16x at 3, 1.05x at 4 and 5 (most blocks permute); with the last
+ * species 2-4 times as abundant as each other one (no permutation) 1.28x
+ * at N = 3 and 4, 1.16-1.21x at 5. With random compositions it also ran
+ * 1.04-1.13x faster than the same form through the scaled form's L D L^T
+ * with the x_i^2 S_i rule (level with a carrier gas at N = 5); likely
+ * cause, not measured: its matrix lives in registers, not in tri.
  * A block with a trace species, some x_i S_i below MCDI_GROUND_AMIN or
  * S_i above MCDI_GROUND_SMAX (where the scaled form's range checks
  * decide), a pivot that is not > 0 or a flux that is not finite takes the
- * scaled form instead (the caller reloads 1/Đ, which the factor
- * overwrote). The form is chosen per block, never per pair of blocks
- * (body2): a cell's bits depend only on its own block. */
+ * scaled form instead. The form is chosen per block, never per pair of
+ * blocks (body2): a cell's bits depend only on its own block. */
 #define MCDI_GROUND_NMAX 5
 /* Whether the grounded form is compiled into a block instance: with GCC
  * only where n is a compile-time constant (the instances of n = 2 to 5,
@@ -328,9 +329,6 @@ KINLINE int stage_exact(const mcdi_kblock *b, const size_t n, const size_t L,
 #define MCDI_GROUND_AMIN 0x1p-960
 #define MCDI_GROUND_SMAX 0x1p960
 #define MCDI_GROUND_KEEP 4.0
-#ifndef MCDI_GROUND_XSPAN
-#define MCDI_GROUND_XSPAN 64.0
-#endif
 
 /* a where k, else b, lane by lane */
 KINLINE mcdi_vd pick_v(const mcdi_vl k, const mcdi_vd a, const mcdi_vd b)
@@ -339,46 +337,38 @@ KINLINE mcdi_vd pick_v(const mcdi_vl k, const mcdi_vd a, const mcdi_vd b)
 }
 
 /* The species each lane grounds (kg[i], i < m = n - 1: the lanes that
- * ground species i; species m elsewhere; only species with x_i >= x_max /
- * MCDI_GROUND_XSPAN are candidates) and the diagonals x_i S_i in
- * num. Species m stays grounded in a lane where its x_m^2 S_m is within
- * MCDI_GROUND_KEEP of the largest, so that a block whose lanes all keep
- * it (a carrier gas stored last) needs no permutation. Returns 0 if some
- * x_i S_i is below MCDI_GROUND_AMIN or some S_i above MCDI_GROUND_SMAX
- * in some lane (a trace species, say: the scaled form then), 1 if every
- * lane grounds species m, 2 otherwise. Writes only num and kg. */
+ * ground species i; species m elsewhere): the most abundant one (the
+ * last one on ties), or species m where x_m is within a factor
+ * MCDI_GROUND_KEEP of the largest x_i, so that a block whose lanes all
+ * keep it (a carrier gas stored last) needs no permutation. Returns 0 if
+ * some x_i S_i is below MCDI_GROUND_AMIN or some S_i above
+ * MCDI_GROUND_SMAX in some lane (a trace species, say: the scaled form
+ * then), 1 if every lane grounds species m, 2 otherwise. Writes only
+ * kg. */
 KINLINE int ground_pick(const mcdi_kblock *b, const size_t n,
                         mcdi_vl *restrict kg)
 {
     const size_t m = n - 1;
     const mcdi_vd *restrict x = (const mcdi_vd *)(const void *)b->x;
     const mcdi_vd *restrict S = (const mcdi_vd *)(const void *)b->S;
-    mcdi_vd *restrict Sx = (mcdi_vd *)(void *)b->num;
-    mcdi_vd q[MCDI_GROUND_NMAX], best;
+    mcdi_vd best;
     mcdi_vl low = {0}, any = {0}, keep;
     size_t i, j;
-    const mcdi_vd zero = {0.0};
-    mcdi_vd xmax = x[0];
-    for (i = 1; i < n; i++)
-        xmax = max_v(x[i], xmax);
-    xmax *= 1.0 / MCDI_GROUND_XSPAN;
     for (i = 0; i < n; i++) {
         const mcdi_vd a = x[i] * S[i];
-        Sx[i] = a;
-        q[i] = pick_v(x[i] >= xmax, x[i] * a, zero);
         low |= ~((a >= MCDI_GROUND_AMIN) & (S[i] <= MCDI_GROUND_SMAX));
     }
     if (any_lane_v(low))
         return 0;
-    best = q[m];
+    best = x[m];
     for (i = m; i-- > 0;) { /* strictly larger: the last one on ties */
-        const mcdi_vl gt = q[i] > best;
-        best = max_v(q[i], best);
+        const mcdi_vl gt = x[i] > best;
+        best = max_v(x[i], best);
         for (j = i + 1; j < m; j++)
             kg[j] &= ~gt;
         kg[i] = gt;
     }
-    keep = MCDI_GROUND_KEEP * q[m] >= best;
+    keep = MCDI_GROUND_KEEP * x[m] >= best;
     for (i = 0; i < m; i++) {
         kg[i] &= ~keep;
         any |= kg[i];
@@ -386,62 +376,100 @@ KINLINE int ground_pick(const mcdi_kblock *b, const size_t n,
     return any_lane_v(any) ? 2 : 1;
 }
 
-/* The grounded system in the order the factor takes it: with perm (a
- * constant at each call: ground_pick returned 2) species m takes the
- * grounded species' place lane by lane in s (= x), num, r and the
- * leading m x m triangle of 1/Đ; r = -d. */
-KINLINE void stage_ground_rhs(const mcdi_kblock *b, const size_t n,
-                              const size_t nd, const mcdi_vl *restrict kg,
-                              const int perm)
+/* The grounded system solved by elimination without subtraction
+ * (the GTH algorithm of Grassmann, Taksar and Heyman for the stationary
+ * vector of a Markov chain, Operations Research 1985, year from memory;
+ * written here from its idea, for this system): A u = -d with
+ * A_ij = -w_ij (w_ij = x_i x_j / Đ_ij >= 0) and A_ii = e_i + sum_j w_ij,
+ * where e_i = x_i x_g / Đ_ig >= 0 is species i's tie to the grounded one.
+ * Eliminating row k keeps that structure: w_ij += w_ik w_jk / p_k and
+ * e_i += w_ik e_k / p_k, and the pivot p_k = e_k + sum_{j > k} w_kj is a
+ * sum of non-negative terms, never a difference, so every pivot and
+ * multiplier has a small relative error however the Đ_ij spread. Reads x,
+ * d and 1/Đ (tri, left as it is) and writes u to r in species order (u_g
+ * = 0); with perm (ground_pick returned 2) species m takes the place of
+ * the species a lane grounds (kg[i]), else species m is grounded in
+ * every lane. Returns 0 if some lane's pivot is not > 0 (a species
+ * tied to nothing). */
+KINLINE int stage_ground_gth(const mcdi_kblock *b, const size_t n,
+                             const size_t nd, const mcdi_vl *restrict kg,
+                             const int perm)
 {
     const size_t m = n - 1, tm = m * (m + 1) / 2; /* row m of the triangle */
-    mcdi_vd *restrict tri = (mcdi_vd *)(void *)b->tri;
+    const mcdi_vd *restrict tri = (const mcdi_vd *)(const void *)b->tri;
     const mcdi_vd *restrict x = (const mcdi_vd *)(const void *)b->x;
     const mcdi_vd *restrict d = (const mcdi_vd *)(const void *)b->d;
-    mcdi_vd *restrict s = (mcdi_vd *)(void *)b->s;
-    mcdi_vd *restrict Sx = (mcdi_vd *)(void *)b->num;
-    mcdi_vd *restrict r = (mcdi_vd *)(void *)b->r;
-    size_t i, j, dd;
-    for (i = 0; i < m; i++) {
-        if (!perm) {
-            for (dd = 0; dd < nd; dd++)
-                r[i * nd + dd] = -d[i * nd + dd];
-            continue;
-        }
-        s[i] = pick_v(kg[i], x[m], x[i]);
-        Sx[i] = pick_v(kg[i], Sx[m], Sx[i]);
-        for (dd = 0; dd < nd; dd++)
-            r[i * nd + dd] = -pick_v(kg[i], d[m * nd + dd], d[i * nd + dd]);
-        for (j = 0; j < i; j++) { /* (i, j) is (m, j) or (i, m) = (m, i) */
-            mcdi_vd *t = tri + i * (i + 1) / 2 + j;
-            *t = pick_v(kg[i], tri[tm + j], pick_v(kg[j], tri[tm + i], *t));
-        }
-    }
-}
-
-/* A u = -d (stage_ground_rhs, the same perm) by L D L^T; u back in
- * species order in r (u_g = 0); the fluxes are c x_i u_i (emit with
- * s = x). Returns 0 if some lane's pivot is not > 0 (tri then holds part
- * of L). */
-KINLINE int stage_ground_solve(const mcdi_kblock *b, const size_t n,
-                               const size_t nd, const mcdi_vl *restrict kg,
-                               const int perm)
-{
-    const size_t m = n - 1;
-    const mcdi_vd *restrict s =
-        (const mcdi_vd *)(const void *)(perm ? b->s : b->x);
     mcdi_vd *restrict r = (mcdi_vd *)(void *)b->r;
     const mcdi_vd zero = {0.0};
-    size_t i, dd;
-    if (!ldl_solve_v(m, nd, KREG, (mcdi_vd *)(void *)b->tri, s,
-                     (const mcdi_vd *)(const void *)b->num, s, zero, r,
-                     (mcdi_vd *)b->Dg, (mcdi_vd *)b->iDg, (mcdi_vd *)b->Wt))
+    mcdi_vd w[MCDI_GROUND_NMAX * MCDI_GROUND_NMAX], e[MCDI_GROUND_NMAX],
+        s[MCDI_GROUND_NMAX], f[MCDI_GROUND_NMAX * 3], ip[MCDI_GROUND_NMAX],
+        xg = x[m];
+    mcdi_vl ok = zero == zero;
+    size_t i, j, k, dd;
+    for (i = 0; perm && i < m; i++)
+        xg = pick_v(kg[i], x[i], xg);
+    LDL_UNROLL
+    for (i = 0; i < m; i++) {
+        /* position i holds species m where the lane grounds i */
+        mcdi_vd gl = tri[tm + i]; /* 1/Đ to the grounded species */
+        s[i] = perm ? pick_v(kg[i], x[m], x[i]) : x[i];
+        for (k = 0; perm && k < m; k++)
+            if (k != i)
+                gl = pick_v(
+                    kg[k],
+                    tri[k < i ? i * (i + 1) / 2 + k : k * (k + 1) / 2 + i], gl);
+        e[i] = s[i] * xg * gl;
+        for (dd = 0; dd < nd; dd++)
+            f[i * nd + dd] =
+                -(perm ? pick_v(kg[i], d[m * nd + dd], d[i * nd + dd])
+                       : d[i * nd + dd]);
+        LDL_UNROLL
+        for (j = 0; j < i; j++) {
+            mcdi_vd t = tri[i * (i + 1) / 2 + j];
+            if (perm)
+                t = pick_v(kg[i], tri[tm + j], pick_v(kg[j], tri[tm + i], t));
+            w[i * m + j] = s[i] * s[j] * t;
+        }
+    }
+    LDL_UNROLL
+    for (k = 0; k < m; k++) {
+        mcdi_vd p = e[k];
+        for (j = k + 1; j < m; j++)
+            p += w[j * m + k];
+        ok &= p > zero;
+        ip[k] = recip_pivot(p, n);
+        for (i = k + 1; i < m; i++) {
+            /* rows k + 1 .. i - 1 hold their multipliers l_jk already */
+            const mcdi_vd wik = w[i * m + k], l = wik * ip[k];
+            w[i * m + k] = l;
+            e[i] += l * e[k];
+            for (dd = 0; dd < nd; dd++)
+                f[i * nd + dd] += l * f[k * nd + dd];
+            for (j = k + 1; j < i; j++)
+                w[i * m + j] += wik * w[j * m + k];
+        }
+    }
+    if (any_lane_v(~ok))
         return 0;
+    LDL_UNROLL
+    for (i = m; i-- > 0;) {
+        for (dd = 0; dd < nd; dd++) {
+            mcdi_vd t = f[i * nd + dd] * ip[i];
+            for (k = m - 1; k > i; k--)
+                t += w[k * m + i] * f[k * nd + dd];
+            f[i * nd + dd] = t;
+        }
+    }
     for (dd = 0; dd < nd; dd++) {
-        mcdi_vd um = zero; /* u_m: row i where species m took i's place */
-        for (i = 0; perm && i < m; i++) {
-            um = pick_v(kg[i], r[i * nd + dd], um);
-            r[i * nd + dd] = pick_v(kg[i], zero, r[i * nd + dd]);
+        mcdi_vd um = zero; /* u_m: position i where species m took i's */
+        for (i = 0; i < m; i++) {
+            const mcdi_vd u = f[i * nd + dd];
+            if (perm) {
+                um = pick_v(kg[i], u, um);
+                r[i * nd + dd] = pick_v(kg[i], zero, u);
+            } else {
+                r[i * nd + dd] = u;
+            }
         }
         r[m * nd + dd] = um;
     }
