@@ -21,10 +21,11 @@
  * 3.7e-11 in the wider run; so did the grounded form while it factored
  * with the L D L^T of the scaled form (6.6e-12).
  *
- * The single-state call (the scaled form) on the same cells is printed
- * beside, not asserted: CK_FORK=no MCD_GROUND_CELLS=32000
- * build/tests/test_ground gives the wider run quoted above and in
- * include/mcdiff.h.
+ * The single-state call, which takes the grounded form for these states
+ * too (lib/flux/ms_ldl.c, fused_gth), is held to the same accuracy on the
+ * same cells (measured at most 8.2e-15; before, with the scaled form,
+ * 3.7e-11): CK_FORK=no MCD_GROUND_CELLS=32000 build/tests/test_ground
+ * gives the wider run quoted above and in include/mcdiff.h.
  *
  * Second check: each lane grounds a species chosen from its own cell's
  * data, so a cell's fluxes do not depend on the other cells of its block:
@@ -282,6 +283,10 @@ START_TEST(grounded_blocks_match_an_extended_precision_solve)
                     e1 = single_error(ws, n, x, D, g, s.c[k], Jr, big);
                     if (e1 > worst1)
                         worst1 = e1;
+                    ck_assert_msg(!check || e1 <= ACCURACY,
+                                  "N=%zu x over %g decades, Dij over %g: cell "
+                                  "%zu single-state error %.3g",
+                                  n, xdec[a], ddec[b], k, e1);
                     ck_assert_msg(!check || e <= ACCURACY,
                                   "N=%zu x over %g decades, Dij over %g: cell "
                                   "%zu error %.3g",
@@ -403,16 +408,17 @@ END_TEST
  * (tests/fuzz/corpus/fuzz_flux/regress_grounded_zero_sum, its gradients
  * projected to sum to zero): grounding the scarce species there, as an
  * earlier rule did, gave fluxes summing to -21600 over |F| = 21600; the
- * scaled form (mcd_flux_compute, and these blocks before the grounded
+ * scaled form (mcd_flux_compute and these blocks before the grounded
  * form) gives fluxes of about 1e-87 instead of 2.16e4. The second has x
  * of 1.3e-6, 1.7e-6 and 1.4e-9 and Đ of 2.2e-25 and 1.3e-25 between the
  * scarcest and the other two; the scaled form's error is 1.8e-5 of the
- * largest flux there (measured). Accepted: 1e-13 of the largest flux per
- * state (measured 6.5e-17). Then 48 cells of such states drawn at random:
+ * largest flux there (measured). Accepted, for the batched call and the
+ * single-state call (grounded form too, lib/flux/ms_ldl.c): 1e-13 of the
+ * largest flux per state (measured 6.5e-17 batched). Then 48 cells of such states drawn at random:
  * their fluxes must sum to zero within 1e-13 of their magnitude per cell
  * and direction; their error against the long-double reference is
  * printed, not asserted (about 1e-8: the reference itself, whose
- * classical form loses digits here; the scaled form's is 3e-5). */
+ * classical form loses digits here; the scaled form's was 3e-5). */
 START_TEST(tightly_tied_scarce_species)
 {
     enum { n = 4, KS = 64 };
@@ -517,6 +523,31 @@ START_TEST(tightly_tied_scarce_species)
                 ck_assert_msg(fabs(J[i * KS + k] - je[i]) <= 1e-13 * big,
                               "state %zu, row %zu: %.17g, exact %.17g", k / 8,
                               i, J[i * KS + k], je[i]);
+            if (k % 8 == 0) { /* the single-state call on the same state */
+                double J1[n * ND];
+                for (i = 0; i < n; i++)
+                    xs[i] = x[i * KS + k];
+                for (i = 0; i < n * n; i++)
+                    Dc[i] = D[i * KS + k];
+                for (i = 0; i < n * ND; i++)
+                    gc[i] = g[i * KS + k];
+                ck_assert_int_eq(
+                    mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
+                                     &(mcd_state){.n_species = n,
+                                                  .n_dim = ND,
+                                                  .comp_basis = MCD_BASIS_MOLE,
+                                                  .c = c[k],
+                                                  .Dij = Dc,
+                                                  .comp = xs,
+                                                  .grad = gc},
+                                     MCD_BASIS_MOLE, J1),
+                    MCD_OK);
+                for (i = 0; i < n * ND; i++)
+                    ck_assert_msg(fabs(J1[i] - je[i]) <= 1e-13 * big,
+                                  "single-state call, state %zu, row %zu: "
+                                  "%.17g, exact %.17g",
+                                  k / 8, i, J1[i], je[i]);
+            }
             continue;
         }
         for (i = 0; i < n; i++)

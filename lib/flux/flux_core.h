@@ -66,7 +66,8 @@ typedef MCDI_MS_ROWS_DECL((*mcdi_ms_rows_fn));
 mcdi_ms_rows_fn mcdi_ms_rows_select(void);
 
 /* The exact model for m >= 2 species, all present (xp > 0), and at most
- * MCDI_MS_FUSED_N of them: the same equations and the same L D L^T as
+ * MCDI_MS_FUSED_N of them (up to 5 in the grounded form first, ms_ldl.c
+ * fused_gth): the same equations and the same L D L^T as
  * mcdi_ms_rows with the Blanc sums, shift, assembly and right-hand side
  * fused into a few passes (the stages' separate passes cost 4-8 % of a
  * call at N = 3..20, measured). Đ: upper triangle of Dp (row stride ld);

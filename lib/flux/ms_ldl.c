@@ -5,7 +5,10 @@
  * factorisation without pivoting or square roots, and the two triangular
  * solves (LAPACK above MCDI_MS_LAPACK_N species). States without trace
  * species and at most MCDI_MS_FUSED_N species take mcdi_ms_ldl, the same
- * equations and the same factor with the assembly fused (flux_core.h).
+ * equations and the same factor with the assembly fused (flux_core.h);
+ * up to MCDI_MS_GTH_N species it first tries the grounded form
+ * (fused_gth: elimination without subtraction, accurate however the Đ
+ * spread), the scaled form deciding where that cannot run.
  *
  * Equations: see the top comment of maxwell_stefan.c. For the m species
  * present (x_k > 0), with s_k = sqrt(x_k) and R_kl = 1 / Đ_kl,
@@ -34,6 +37,7 @@
  * per instruction set on x86-64 with GCC (runtime dispatch in
  * kernel_isa.c; FMA contraction where the set has FMA).
  */
+#include <float.h>
 #include <math.h>
 #include <lapacke.h>
 
@@ -387,6 +391,103 @@ size_t RNAME(MCDI_KISA)(const mcdi_rows *R, const mcdi_dense *D,
     }
 }
 
+/* The grounded form of the same state (the batched kernel's for blocks
+ * up to 5 species, lib/batched/kernel_ldl.h): with u_i = J_i / (c x_i)
+ * and the most abundant species g grounded (u_g = 0), A u = -d over the
+ * other m - 1 species, A_ij = -w_ij (w_ij = x_i x_j / Đ_ij), A_ii = e_i +
+ * sum_j w_ij (e_i = x_i x_g / Đ_ig), eliminated without subtraction: the
+ * pivot p_k = e_k + sum_{i > k} w_ik, then w_ij += w_ik w_jk / p_k and
+ * e_i += w_ik e_k / p_k (the GTH algorithm's idea for Markov chains), so
+ * the factor keeps a small relative error however the Đ spread. Row i
+ * (position i: species i + (i >= g)) holds the Schur complement's w in
+ * its lower part and, once eliminated, its multipliers l_ji = w_ji / p_i
+ * in its upper part (row of L^T: contiguous updates and back
+ * substitution). Fluxes J_i = c (x_i u_i) into Y, J_g = 0; the caller's
+ * zero-sum clean-up is the shift back to the molar-average frame (small:
+ * x_g >= 1/m). Returns 0 (Y is scratch then) if a pivot is not a positive
+ * finite number or a flux is not finite: the scaled form then decides. */
+/* Up to this many species (the batched kernel's grounded blocks go to
+ * 5 too). Above, these plain loops ran far slower than the tuned L D L^T
+ * of the scaled form (bench_single, 3 alternating runs: N = 3 0.94x the
+ * time, 5 1.04x, 10 1.26x, 20 1.47x, 30 1.55x). */
+#define MCDI_MS_GTH_N 5
+MINLINE int fused_gth(size_t m, const size_t nd, const double *xp,
+                      const double *Dp, size_t ld, const double *dp, double c,
+                      double *A, double *e, double *dinv, double *Y)
+{
+    const size_t mm = m - 1;
+    size_t g = 0, i, j, k, dd;
+    double chk = 0.0;
+    for (i = 1; i < m; i++)
+        if (xp[i] >= xp[g])
+            g = i;
+    double eg = 0.0;
+    for (i = 0; i < mm; i++) {
+        const size_t si = i + (i >= g);
+        double *Ai = A + i * m;
+        dinv[i] = e[i] =
+            xp[si] * xp[g] / (si < g ? Dp[si * ld + g] : Dp[g * ld + si]);
+        eg += e[i];
+        for (j = 0; j < i; j++) {
+            const size_t sj = j + (j >= g); /* sj < si: upper triangle */
+            const double w = xp[si] * xp[sj] / Dp[sj * ld + si];
+            Ai[j] = w;
+            dinv[i] += w; /* the row sums x_i S_i, for the check below */
+            dinv[j] += w;
+        }
+        for (dd = 0; dd < nd; dd++)
+            Y[i * nd + dd] = -dp[si * nd + dd];
+    }
+    /* x_i S_i below 2^-960 or S_i above 2^960 (Đ near DBL_MIN or
+     * DBL_MAX): the scaled form and its verdict, as the batched kernel
+     * does (MCDI_GROUND_AMIN, MCDI_GROUND_SMAX) */
+    if (!(eg >= 0x1p-960 && eg <= 0x1p960 * xp[g]))
+        return 0;
+    for (i = 0; i < mm; i++)
+        if (!(dinv[i] >= 0x1p-960 && dinv[i] <= 0x1p960 * xp[i + (i >= g)]))
+            return 0;
+    for (k = 0; k < mm; k++) {
+        double *Uk = A + k * m, p = e[k], ip;
+        for (i = k + 1; i < mm; i++)
+            p += A[i * m + k];
+        if (!(p > 0.0 && p <= DBL_MAX))
+            return 0;
+        ip = dinv[k] = 1.0 / p;
+        for (i = k + 1; i < mm; i++) {
+            double *Ai = A + i * m;
+            const double wik = Ai[k], l = wik * ip;
+            Uk[i] = l;
+            e[i] += l * e[k];
+            for (dd = 0; dd < nd; dd++)
+                Y[i * nd + dd] += l * Y[k * nd + dd];
+            for (j = k + 1; j < i; j++)
+                Ai[j] += wik * Uk[j];
+        }
+    }
+    for (i = mm; i-- > 0;) {
+        const double *Ui = A + i * m;
+        for (dd = 0; dd < nd; dd++) {
+            double u = Y[i * nd + dd] * dinv[i];
+            for (j = mm - 1; j > i; j--)
+                u += Ui[j] * Y[j * nd + dd];
+            Y[i * nd + dd] = u;
+        }
+    }
+    /* into species order from the last row (si >= i: no row is
+     * overwritten before it is read) */
+    for (i = mm; i-- > 0;) {
+        const size_t si = i + (i >= g);
+        for (dd = 0; dd < nd; dd++) {
+            const double q = c * (xp[si] * Y[i * nd + dd]);
+            Y[si * nd + dd] = q;
+            chk += q * 0.0;
+        }
+    }
+    for (dd = 0; dd < nd; dd++)
+        Y[g * nd + dd] = 0.0;
+    return chk == 0.0; /* NaN if some flux is not finite */
+}
+
 /* The exact model for a state without trace species and at most
  * MCDI_MS_FUSED_N species (see maxwell_stefan.c): the Blanc sums, the
  * shift, the assembly and the right-hand side fused into a few passes
@@ -411,6 +512,9 @@ MINLINE size_t fused_ldl(size_t m, const size_t nd, const double *xp,
     double a = 0.0;
     size_t i, j, k, dd;
 
+    if (m <= MCDI_MS_GTH_N &&
+        fused_gth(m, nd, xp, Dp, ld, dp, c, A, S, dinv, Y))
+        return 0;
     /* vectorised: at m = 10 the divider is the bottleneck of the assembly
      * (square roots, reciprocals); +8 % of this routine, measured */
     SIMD_LOOP
