@@ -16,7 +16,8 @@
  *   1 load + check c and the composition, 2 fractions (scaled to sum 1),
  *   3 load + check the gradients, 4 driving forces (projection),
  *   5 load + check Đ and 1/Đ, 6 Blanc sums, 7 trace species,
- *   8 right-hand side, 9 factor and solve, 10 compose, clean up, store.
+ *   8 right-hand side, 9 factor and solve, 10 compose, clean up, store
+ * (from 2 to 5 species the grounded form's stages: see ground_name).
  * A stage cut early leaves later stages' work undone but not their data
  * movement into the caches, so the differences are the stages' marginal
  * costs in this order. The whole call's cells/s and ns per cell are
@@ -43,6 +44,16 @@ static const char *stage_name[NSTAGE] = {
     "load, check c and x", "fractions",       "load, check grad",
     "driving forces",      "load Dij, 1/Dij", "Blanc sums",
     "trace species",       "right-hand side", "factor and solve",
+    "compose, store"};
+/* Full blocks of 2 to 5 species take the grounded form (MCDI_GROUND_NMAX,
+ * lib/batched/kernel_ldl.h), whose cuts mean: 6 choice of the grounded
+ * species, 7 the ties, the range rule, the elimination and the back
+ * substitution; 8 and 9 do nothing there. */
+#define GROUND_NMAX 5
+static const char *ground_name[NSTAGE] = {
+    "load, check c and x", "fractions",       "load, check grad",
+    "driving forces",      "load Dij, 1/Dij", "choose grounded",
+    "ties, eliminate",     "(none)",          "(none)",
     "compose, store"};
 
 static unsigned long long rng = 0x9e3779b97f4a7c15ULL;
@@ -166,7 +177,8 @@ static int run_n(size_t n)
     for (s = 0; s < NSTAGE; s++) {
         double inc = med[s] - (s > 0 ? med[s - 1] : 0.0);
         printf("  %2d %-18s %7.2f  (%4.0f %%)   cumulative %7.2f\n", s + 1,
-               stage_name[s], inc, 100.0 * inc / med[NSTAGE - 1], med[s]);
+               n >= 2 && n <= GROUND_NMAX ? ground_name[s] : stage_name[s], inc,
+               100.0 * inc / med[NSTAGE - 1], med[s]);
     }
     printf("  whole call: %.3g cells/s (median) [%.3g, %.3g], %.2f ns per "
            "cell\n\n",

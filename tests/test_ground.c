@@ -402,9 +402,10 @@ END_TEST
  * as one, held back by a weak tie to the rest), but the exact fluxes are
  * well determined by the data, and the grounded form's elimination
  * without subtraction (kernel_ldl.h, stage_ground_gth) keeps them.
- * Check values: two states solved in exact rational arithmetic (Python's
- * fractions with sympy's LUsolve, on the doubles below as given; written
- * for this test). The first is the state fuzz_flux found
+ * Check values: three states solved in exact rational arithmetic
+ * (Python's fractions, with sympy's LUsolve for the first two and a
+ * plain Gaussian elimination for the third, on the doubles below as
+ * given; written for this test). The first is the state fuzz_flux found
  * (tests/fuzz/corpus/fuzz_flux/regress_grounded_zero_sum, its gradients
  * projected to sum to zero): grounding the scarce species there, as an
  * earlier rule did, gave fluxes summing to -21600 over |F| = 21600; the
@@ -412,7 +413,12 @@ END_TEST
  * form) gives fluxes of about 1e-87 instead of 2.16e4. The second has x
  * of 1.3e-6, 1.7e-6 and 1.4e-9 and Đ of 2.2e-25 and 1.3e-25 between the
  * scarcest and the other two; the scaled form's error is 1.8e-5 of the
- * largest flux there (measured). Accepted, for the batched call and the
+ * largest flux there (measured). The third has two species at x = 1e-170
+ * and 2e-170 tied by Đ = 1e-300: x_i x_j underflows to 0 there while the
+ * tie x_i x_j / Đ_ij = 2e-40 dominates their rows, so the ties must be
+ * formed as x_i (x_j / Đ_ij); formed the other way the tie vanished and
+ * the fluxes were off by 0.39 of the largest (the exact solution of the
+ * untied state, same script). Accepted, for the batched call and the
  * single-state call (grounded form too, lib/flux/ms_ldl.c): 1e-13 of the
  * largest flux per state (measured 6.5e-17 batched). Then 48 cells of such states drawn at random:
  * their fluxes must sum to zero within 1e-13 of their magnitude per cell
@@ -421,23 +427,30 @@ END_TEST
  * classical form loses digits here; the scaled form's was 3e-5). */
 START_TEST(tightly_tied_scarce_species)
 {
-    enum { n = 4, KS = 64 };
+    enum { n = 4, KS = 64, NEXACT = 3 };
     /* upper triangles of Đ [m^2/s] (the diagonal is not read) */
-    static const double xe[2][n] = {
+    static const double xe[3][n] = {
         {1.9667335289588307e-27, 9.8336676447941531e-27, 1.0,
          8.8503008803147375e-20},
-        {1.3e-6, 1.7e-6, 0.99999699860000002, 1.3999999999999999e-09}};
-    static const double De[2][n][n] = {
+        {1.3e-6, 1.7e-6, 0.99999699860000002, 1.3999999999999999e-09},
+        {1e-170, 2e-170, 0.5, 0.5}};
+    static const double De[3][n][n] = {
         {{0, 1.0431724258821144e-05, 5.2704249142216854e-06,
           2.0087766792229954e-139},
          {0, 0, 2.0000000000000003e-06, 2.0087766792234922e-139},
          {0, 0, 0, 2.0000000000000003e-06}},
-        {{0, 3e-6, 5e-6, 2.2e-25}, {0, 0, 4.1e-6, 1.3e-25}, {0, 0, 0, 7e-6}}};
-    static const double ge[2][n * ND] = {
+        {{0, 3e-6, 5e-6, 2.2e-25}, {0, 0, 4.1e-6, 1.3e-25}, {0, 0, 0, 7e-6}},
+        {{0, 1e-300, 1e-5, 2e-5}, {0, 0, 3e-5, 1.5e-5}, {0, 0, 0, 2.5e-5}}};
+    /* (U: gradients of the third state as exact multiples, which sum to
+     * exactly zero) */
+#define U 0x1p-548
+    static const double ge[3][n * ND] = {
         {9e7, 9e7, 9e7, 9e7, 9e7, 9e7, -2.7e8, -2.7e8, -2.7e8, 9e7, 9e7, 9e7},
-        {10, -20, 30, 5, 7, -9, -40, 11, 2, 25, 2, -23}};
+        {10, -20, 30, 5, 7, -9, -40, 11, 2, 25, 2, -23},
+        {U, 2 * U, -U, -3 * U, U, 4 * U, 5 * U, -4 * U, 0, -3 * U, U, -3 * U}};
+#undef U
     /* the exact fluxes [mol/(m^2 s)] at c = 40 mol/m^3 */
-    static const double Je[2][n * ND] = {
+    static const double Je[3][n * ND] = {
         {-0.00047999994261892914, -0.00047999994261892914,
          -0.00047999994261892914, -0.0023999997130946457,
          -0.0023999997130946457, -0.0023999997130946457, 21600.000297851468,
@@ -447,7 +460,13 @@ START_TEST(tightly_tied_scarce_species)
          -0.0040306199897246087, 0.0011084204971076438, 0.00020153099959535262,
          0.0071161781395272048, -0.0019569489883845977, -0.00035580890695242467,
          -3.319334109244854e-06, 9.1281688001308603e-07,
-         1.6596670552534332e-07}};
+         1.6596670552534332e-07},
+        {4.9615150658149056e-169, -7.4422725987223575e-169,
+         -7.4422725987223575e-169, 9.9230301316298112e-169,
+         -1.4884545197444715e-168, -1.4884545197444715e-168,
+         -5.1372353910625163e-168, 3.9071931143292381e-168,
+         -4.3413256825880422e-169, 3.648780871318045e-168,
+         -1.6745113347125305e-168, 2.6668143478755118e-168}};
     const int check = extended_precision();
     double worst = 0.0, worst1 = 0.0;
     double *x = malloc(n * KS * sizeof(double)),
@@ -461,7 +480,7 @@ START_TEST(tightly_tied_scarce_species)
     ck_assert_int_eq(mcd_workspace_new(n, &ws), MCD_OK);
     for (k = 0; k < KS; k++) {
         double xs[n], Dc[n * n], gc[n * ND];
-        if (k < 16) { /* the two exact states, a block of 8 each */
+        if (k < 8 * NEXACT) { /* the exact states, a block of 8 each */
             const size_t e = k / 8;
             memcpy(xs, xe[e], sizeof xs);
             for (i = 0; i < n; i++)
@@ -514,7 +533,7 @@ START_TEST(tightly_tied_scarce_species)
                           "cell %zu direction %zu: sum %g over |J| %g", k, d,
                           sum, mag);
         }
-        if (k < 16) {
+        if (k < 8 * NEXACT) {
             const double *je = Je[k / 8];
             for (i = 0; i < n * ND; i++)
                 if (fabs(je[i]) > big)
@@ -573,7 +592,7 @@ START_TEST(tightly_tied_scarce_species)
     }
     printf("scarce species tied by tiny Dij, %d cells: largest error %.2g "
            "(single-state call %.2g), %s\n",
-           KS - 16, worst, worst1,
+           KS - 8 * NEXACT, worst, worst1,
            check ? "not asserted" : "reference no wider than double");
     mcd_workspace_free(ws);
     free(x), free(D), free(g), free(c), free(J);

@@ -195,6 +195,26 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
     if (mix != NULL)
         stage_invdiff_mixture(jb, &b, pl, n, L);
     CUT(5);
+    if (L == MCDI_VLANES && nv == L && !mass_out && nd == 3 &&
+        MCDI_GROUND_HERE(n) && n <= MCDI_GROUND_NMAX &&
+        model == MCD_MODEL_MAXWELL_STEFAN) {
+        /* the grounded form (kernel_ldl.h), which needs no Blanc sums;
+         * if it fails (1/Đ is left as it was), the scaled form */
+        mcdi_vl kg[MCDI_GROUND_NMAX];
+        const int gp = ground_pick(&b, n, kg);
+        int ok;
+        CUT(6);
+        ok = gp != 0 && (gp == 1 ? stage_ground_gth(&b, n, nd, kg, 0)
+                                 : stage_ground_gth(&b, n, nd, kg, 1));
+        CUT(7);
+        CUT(8);
+        CUT(9);
+        if (ok &&
+            emit_mole_v(n, nd, (const mcdi_vd *)b.x, (const mcdi_vd *)b.x,
+                        (const mcdi_vd *)b.r, (const mcdi_vd *)b.t, 0,
+                        *(const mcdi_vd *)b.c, (mcdi_vd *)b.J, jb, k0, nts))
+            return;
+    }
     stage_blanc(jb, &b, pl, n, L);
     CUT(6);
 
@@ -202,28 +222,6 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
         stage_mixavg(&b, n, L, nd);
     } else {
         int wkr, ntr;
-        if (L == MCDI_VLANES && nv == L && !mass_out && nd == 3 &&
-            MCDI_GROUND_HERE(n) && n <= MCDI_GROUND_NMAX &&
-            model == MCD_MODEL_MAXWELL_STEFAN) {
-            /* the grounded form (kernel_ldl.h), else the scaled one */
-            mcdi_vl kg[MCDI_GROUND_NMAX];
-            const int gp = ground_pick(&b, n, kg);
-            CUT(7);
-            if (gp != 0) {
-                /* (1/Đ is left as it was for the scaled form if this
-                 * fails) */
-                const int ok = gp == 1 ? stage_ground_gth(&b, n, nd, kg, 0)
-                                       : stage_ground_gth(&b, n, nd, kg, 1);
-                CUT(8);
-                CUT(9);
-                if (ok &&
-                    emit_mole_v(n, nd, (const mcdi_vd *)b.x,
-                                (const mcdi_vd *)b.x, (const mcdi_vd *)b.r,
-                                (const mcdi_vd *)b.t, 0, *(const mcdi_vd *)b.c,
-                                (mcdi_vd *)b.J, jb, k0, nts))
-                    return;
-            }
-        }
         ntr = stage_trace(jb, &b, pl, n, L, nd, &wkr);
         CUT(7);
         stage_rhs(&b, n, L, nd, wkr);
@@ -266,12 +264,14 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
  * blocks are stored; 2 or 3 when the first or the second block's fluxes
  * are not finite (res set by stage_store as in body(); the first block is
  * stored before the second is reported); 0 when a loading check or a pivot
- * failed, before anything was stored: the caller then runs body() on
+ * of the scaled form failed, or the first block's grounded fluxes were
+ * not finite, before anything was stored: the caller then runs body() on
  * each block, which reports as always (and takes the scaled form where
  * the grounded one failed); 4 when the first block is stored and the
  * second's grounded fluxes were not finite: body() redoes the second; 5
- * when one block can take the grounded form and the other cannot, before
- * anything was stored: the caller runs body() on each (so that a block's
+ * when one block takes the grounded form and the other cannot (a trace
+ * species, the range rule or a pivot, kernel_ldl.h), before anything was
+ * stored: the caller runs body() on each (so that a block's
  * form, and so its bits, never depends on the block it is paired with:
  * the pairs start where each thread's range of blocks starts). */
 KINLINE int body2(const mcdi_bjob *jb, size_t k0, double *mem, const size_t n,
@@ -297,21 +297,21 @@ KINLINE int body2(const mcdi_bjob *jb, size_t k0, double *mem, const size_t n,
     stage_invdiff_dij(jb, &b2, bl2, k0 + L, L, n, L);
     if (lanes_any(bl1, L) | lanes_any(bl2, L))
         return 0;
-    stage_blanc(jb, &b1, 0, n, L);
-    stage_blanc(jb, &b2, 0, n, L);
     if (nd == 3 && MCDI_GROUND_HERE(n) && n <= MCDI_GROUND_NMAX) {
         /* both blocks grounded (kernel_ldl.h), else both scaled */
         mcdi_vl kg1[MCDI_GROUND_NMAX], kg2[MCDI_GROUND_NMAX];
         const int gp1 = ground_pick(&b1, n, kg1),
                   gp2 = ground_pick(&b2, n, kg2);
-        if ((gp1 != 0) != (gp2 != 0))
+        int ok1 = 0, ok2 = 0;
+        if (gp1 != 0)
+            ok1 = gp1 == 1 ? stage_ground_gth(&b1, n, nd, kg1, 0)
+                           : stage_ground_gth(&b1, n, nd, kg1, 1);
+        if (gp2 != 0)
+            ok2 = gp2 == 1 ? stage_ground_gth(&b2, n, nd, kg2, 0)
+                           : stage_ground_gth(&b2, n, nd, kg2, 1);
+        if (ok1 != ok2)
             return 5; /* one of each: body() on each, as alone */
-        if (gp1 != 0 && gp2 != 0) {
-            if (!((gp1 == 1 ? stage_ground_gth(&b1, n, nd, kg1, 0)
-                            : stage_ground_gth(&b1, n, nd, kg1, 1)) &
-                  (gp2 == 1 ? stage_ground_gth(&b2, n, nd, kg2, 0)
-                            : stage_ground_gth(&b2, n, nd, kg2, 1))))
-                return 0;
+        if (ok1) {
             if (!emit_mole_v(n, nd, (const mcdi_vd *)b1.x,
                              (const mcdi_vd *)b1.x, (const mcdi_vd *)b1.r,
                              (const mcdi_vd *)b1.t, 0, *(const mcdi_vd *)b1.c,
@@ -324,8 +324,9 @@ KINLINE int body2(const mcdi_bjob *jb, size_t k0, double *mem, const size_t n,
                 return 4;
             return 1;
         }
-        /* the scaled form for both */
     }
+    stage_blanc(jb, &b1, 0, n, L);
+    stage_blanc(jb, &b2, 0, n, L);
     ntr1 = stage_trace(jb, &b1, 0, n, L, nd, &wkr1);
     ntr2 = stage_trace(jb, &b2, 0, n, L, nd, &wkr2);
     stage_rhs(&b1, n, L, nd, wkr1);

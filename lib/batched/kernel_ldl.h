@@ -341,24 +341,21 @@ KINLINE mcdi_vd pick_v(const mcdi_vl k, const mcdi_vd a, const mcdi_vd b)
  * last one on ties), or species m where x_m is within a factor
  * MCDI_GROUND_KEEP of the largest x_i, so that a block whose lanes all
  * keep it (a carrier gas stored last) needs no permutation. Returns 0 if
- * some x_i S_i is below MCDI_GROUND_AMIN or some S_i above
- * MCDI_GROUND_SMAX in some lane (a trace species, say: the scaled form
- * then), 1 if every lane grounds species m, 2 otherwise. Writes only
- * kg. */
+ * some lane has a trace species (x_i = 0: the scaled form then, without
+ * trying this one), 1 if every lane grounds species m, 2 otherwise.
+ * Writes only kg. */
 KINLINE int ground_pick(const mcdi_kblock *b, const size_t n,
                         mcdi_vl *restrict kg)
 {
     const size_t m = n - 1;
     const mcdi_vd *restrict x = (const mcdi_vd *)(const void *)b->x;
-    const mcdi_vd *restrict S = (const mcdi_vd *)(const void *)b->S;
+    const mcdi_vd zero = {0.0};
     mcdi_vd best;
-    mcdi_vl low = {0}, any = {0}, keep;
+    mcdi_vl any = {0}, trace = {0}, keep;
     size_t i, j;
-    for (i = 0; i < n; i++) {
-        const mcdi_vd a = x[i] * S[i];
-        low |= ~((a >= MCDI_GROUND_AMIN) & (S[i] <= MCDI_GROUND_SMAX));
-    }
-    if (any_lane_v(low))
+    for (i = 0; i < n; i++)
+        trace |= ~(x[i] > zero);
+    if (any_lane_v(trace))
         return 0;
     best = x[m];
     for (i = m; i-- > 0;) { /* strictly larger: the last one on ties */
@@ -389,8 +386,9 @@ KINLINE int ground_pick(const mcdi_kblock *b, const size_t n,
  * d and 1/Đ (tri, left as it is) and writes u to r in species order (u_g
  * = 0); with perm (ground_pick returned 2) species m takes the place of
  * the species a lane grounds (kg[i]), else species m is grounded in
- * every lane. Returns 0 if some lane's pivot is not > 0 (a species
- * tied to nothing). */
+ * every lane. Returns 0 (the scaled form then) if some lane breaks the
+ * range rule below (a trace species, say) or has a pivot that is not
+ * > 0 (a species tied to nothing). */
 KINLINE int stage_ground_gth(const mcdi_kblock *b, const size_t n,
                              const size_t nd, const mcdi_vl *restrict kg,
                              const int perm)
@@ -418,7 +416,7 @@ KINLINE int stage_ground_gth(const mcdi_kblock *b, const size_t n,
                 gl = pick_v(
                     kg[k],
                     tri[k < i ? i * (i + 1) / 2 + k : k * (k + 1) / 2 + i], gl);
-        e[i] = s[i] * xg * gl;
+        e[i] = s[i] * (xg * gl);
         for (dd = 0; dd < nd; dd++)
             f[i * nd + dd] =
                 -(perm ? pick_v(kg[i], d[m * nd + dd], d[i * nd + dd])
@@ -428,8 +426,29 @@ KINLINE int stage_ground_gth(const mcdi_kblock *b, const size_t n,
             mcdi_vd t = tri[i * (i + 1) / 2 + j];
             if (perm)
                 t = pick_v(kg[i], tri[tm + j], pick_v(kg[j], tri[tm + i], t));
-            w[i * m + j] = s[i] * s[j] * t;
+            /* x_j / Đ first: x_i x_j can underflow where w does not */
+            w[i * m + j] = s[i] * (s[j] * t);
         }
+    }
+    /* the range rule: every row sum x_i S_i of the ties (position i:
+     * e_i + sum_j w_ij; the grounded species: sum_i e_i) at least
+     * MCDI_GROUND_AMIN and S_i at most MCDI_GROUND_SMAX, else the scaled
+     * form decides (a trace species, Đ near DBL_MIN or DBL_MAX) */
+    {
+        mcdi_vd eg = zero;
+        mcdi_vl low;
+        LDL_UNROLL
+        for (i = 0; i < m; i++) {
+            mcdi_vd t = e[i];
+            eg += e[i];
+            for (j = 0; j < m; j++)
+                if (j != i)
+                    t += j < i ? w[i * m + j] : w[j * m + i];
+            ok &= (t >= MCDI_GROUND_AMIN) & (t <= MCDI_GROUND_SMAX * s[i]);
+        }
+        low = ~((eg >= MCDI_GROUND_AMIN) & (eg <= MCDI_GROUND_SMAX * xg));
+        if (any_lane_v(low | ~ok))
+            return 0;
     }
     LDL_UNROLL
     for (k = 0; k < m; k++) {

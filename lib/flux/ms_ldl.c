@@ -426,11 +426,12 @@ MINLINE int fused_gth(size_t m, const size_t nd, const double *xp,
         const size_t si = i + (i >= g);
         double *Ai = A + i * m;
         dinv[i] = e[i] =
-            xp[si] * xp[g] / (si < g ? Dp[si * ld + g] : Dp[g * ld + si]);
+            xp[si] * (xp[g] / (si < g ? Dp[si * ld + g] : Dp[g * ld + si]));
         eg += e[i];
         for (j = 0; j < i; j++) {
             const size_t sj = j + (j >= g); /* sj < si: upper triangle */
-            const double w = xp[si] * xp[sj] / Dp[sj * ld + si];
+            /* x_j / Đ first: x_i x_j can underflow where w does not */
+            const double w = xp[si] * (xp[sj] / Dp[sj * ld + si]);
             Ai[j] = w;
             dinv[i] += w; /* the row sums x_i S_i, for the check below */
             dinv[j] += w;
