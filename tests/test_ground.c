@@ -182,6 +182,34 @@ static int extended_precision(void)
     return LDBL_MANT_DIG > DBL_MANT_DIG && (one + tiny) - one == tiny;
 }
 
+/* Cell k of SoA arrays at stride ks (x: n rows, D: n^2, g: n ND) from
+ * one state, and back. */
+static void cell_put(size_t n, size_t ks, size_t k, const double *xs,
+                     const double *Dc, const double *gc, double *x, double *D,
+                     double *g)
+{
+    size_t i;
+    for (i = 0; i < n; i++)
+        x[i * ks + k] = xs[i];
+    for (i = 0; i < n * n; i++)
+        D[i * ks + k] = Dc[i];
+    for (i = 0; i < n * ND; i++)
+        g[i * ks + k] = gc[i];
+}
+
+static void cell_get(size_t n, size_t ks, size_t k, const double *x,
+                     const double *D, const double *g, double *xs, double *Dc,
+                     double *gc)
+{
+    size_t i;
+    for (i = 0; i < n; i++)
+        xs[i] = x[i * ks + k];
+    for (i = 0; i < n * n; i++)
+        Dc[i] = D[i * ks + k];
+    for (i = 0; i < n * ND; i++)
+        gc[i] = g[i * ks + k];
+}
+
 /* The single-state call's error on one cell against the reference. */
 static double single_error(mcd_workspace *ws, size_t n, const double *x,
                            const double *D, const double *g, double c,
@@ -250,24 +278,14 @@ START_TEST(grounded_blocks_match_an_extended_precision_solve)
                         g[(n - 1) * ND + q] = -t;
                     }
                     s.c[k] = sup_range(&rng, 20.0, 60.0);
-                    for (i = 0; i < n; i++)
-                        s.x[i * K + k] = x[i];
-                    for (i = 0; i < n * n; i++)
-                        s.D[i * K + k] = D[i];
-                    for (i = 0; i < n * ND; i++)
-                        s.g[i * K + k] = g[i];
+                    cell_put(n, K, k, x, D, g, s.x, s.D, s.g);
                 }
                 batch_run(ws, n, &s);
                 for (k = 0; k < K; k++) {
                     double x[NMAX], D[NMAX * NMAX], g[NMAX * ND], e = 0.0, e1,
                                                                   big = 0.0;
                     long double Jr[NMAX * ND];
-                    for (i = 0; i < n; i++)
-                        x[i] = s.x[i * K + k];
-                    for (i = 0; i < n * n; i++)
-                        D[i] = s.D[i * K + k];
-                    for (i = 0; i < n * ND; i++)
-                        g[i] = s.g[i * K + k];
+                    cell_get(n, K, k, s.x, s.D, s.g, x, D, g);
                     reference(n, x, D, g, s.c[k], Jr);
                     for (i = 0; i < n * ND; i++)
                         if (fabsl(Jr[i]) > big)
@@ -352,12 +370,7 @@ START_TEST(block_forms_do_not_depend_on_the_pairing)
         sup_dij_decades(&rng, n, Dc, -5.0, -4.0);
         sup_gradients_zero_mean(&rng, n, ND, -10.0, 10.0, gc);
         c[k] = sup_range(&rng, 20.0, 60.0);
-        for (i = 0; i < n; i++)
-            x[i * KA + k] = xs[i];
-        for (i = 0; i < n * n; i++)
-            D[i * KA + k] = Dc[i];
-        for (i = 0; i < n * ND; i++)
-            g[i * KA + k] = gc[i];
+        cell_put(n, KA, k, xs, Dc, gc, x, D, g);
     }
     for (k = 0; k < KB; k++) {
         c2[k] = c[k + 8];
@@ -504,12 +517,7 @@ START_TEST(tightly_tied_scarce_species)
                 gc[(n - 1) * ND + d] = -(gc[d] + gc[ND + d] + gc[2 * ND + d]);
             c[k] = sup_range(&rng, 20.0, 60.0);
         }
-        for (i = 0; i < n; i++)
-            x[i * KS + k] = xs[i];
-        for (i = 0; i < n * n; i++)
-            D[i * KS + k] = Dc[i];
-        for (i = 0; i < n * ND; i++)
-            g[i * KS + k] = gc[i];
+        cell_put(n, KS, k, xs, Dc, gc, x, D, g);
     }
     ck_assert_msg(mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, n, NULL, D,
                                      c,
@@ -544,12 +552,7 @@ START_TEST(tightly_tied_scarce_species)
                               i, J[i * KS + k], je[i]);
             if (k % 8 == 0) { /* the single-state call on the same state */
                 double J1[n * ND];
-                for (i = 0; i < n; i++)
-                    xs[i] = x[i * KS + k];
-                for (i = 0; i < n * n; i++)
-                    Dc[i] = D[i * KS + k];
-                for (i = 0; i < n * ND; i++)
-                    gc[i] = g[i * KS + k];
+                cell_get(n, KS, k, x, D, g, xs, Dc, gc);
                 ck_assert_int_eq(
                     mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
                                      &(mcd_state){.n_species = n,
@@ -569,12 +572,7 @@ START_TEST(tightly_tied_scarce_species)
             }
             continue;
         }
-        for (i = 0; i < n; i++)
-            xs[i] = x[i * KS + k];
-        for (i = 0; i < n * n; i++)
-            Dc[i] = D[i * KS + k];
-        for (i = 0; i < n * ND; i++)
-            gc[i] = g[i * KS + k];
+        cell_get(n, KS, k, x, D, g, xs, Dc, gc);
         reference(n, xs, Dc, gc, c[k], Jr);
         for (i = 0; i < n * ND; i++)
             if (fabsl(Jr[i]) > big)
