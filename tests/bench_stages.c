@@ -22,7 +22,7 @@
  * movement into the caches, so the differences are the stages' marginal
  * costs in this order. The whole call's cells/s and ns per cell are
  * printed with min and max over the repetitions. Up to MCDI_PAIR_NMAX
- * (3) species the whole call runs full blocks two at a time and a cut
+ * (4) species the whole call runs full blocks two at a time and a cut
  * call one at a time (batch_kernel.c), so there the last stage's share
  * also holds the difference of the two (a few per cent at N = 3). */
 #define _GNU_SOURCE /* clock_gettime */

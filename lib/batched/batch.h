@@ -25,9 +25,15 @@
 /* Up to this many species the kernel runs full blocks of the exact model
  * (Đ per cell, mole fluxes) two at a time, stage by stage (body2 in
  * batch_kernel.c), so a thread's scratch holds two such blocks
- * (mcdi_batch_scratch_doubles). 0 turns it off (for A/B timings). */
+ * (mcdi_batch_scratch_doubles). 0 turns it off (for A/B timings).
+ * 4: with the grounded form (kernel_ldl.h), on an AMD EPYC host with
+ * AVX-512 (tools/anchor.sh, ratio to the reference, medians of 4
+ * alternating runs, in cache): pairs up to 5 against up to 3 gave N = 4
+ * 0.26 -> 0.30 (streamed 0.61-0.62 -> 0.66, 2 runs) and N = 5 0.295 ->
+ * 0.32 in cache but 0.53-0.57 -> 0.49-0.51 streamed (3 runs); N = 2 and
+ * 3 lose 0.20-0.21 and 0.26 without pairs, against 0.25 and 0.27. */
 #ifndef MCDI_PAIR_NMAX
-#define MCDI_PAIR_NMAX 3
+#define MCDI_PAIR_NMAX 4
 #endif
 
 /* The staggered prefetch of SoA rows (batch.c, stagger_choice) and the

@@ -257,12 +257,13 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
  * and mole fluxes (n <= MCDI_PAIR_NMAX, batch.h): each stage of the first
  * block, then the same stage of the second, so that the work of the two
  * can overlap (A/B against one block at a time, tools/anchor.sh, three
- * alternating runs on the AVX-512 host: N = 2 0.16-0.17 -> 0.21-0.23 of
- * the reference in cache, N = 3 0.27-0.28 -> 0.28-0.29 in cache and
- * 1.01-1.03 -> 1.09-1.15 streamed; N = 4 and 5 were slower this way, 4-10
- * %). The second block's scratch follows the first's. Returns 1 when both
- * blocks are stored; 2 or 3 when the first or the second block's fluxes
- * are not finite (res set by stage_store as in body(); the first block is
+ * alternating runs on the Intel AVX-512 host, scaled form: N = 2
+ * 0.16-0.17 -> 0.21-0.23 of the reference in cache, N = 3 0.27-0.28 ->
+ * 0.28-0.29 in cache and 1.01-1.03 -> 1.09-1.15 streamed; N = 4 and 5
+ * were slower this way, 4-10 %; with the grounded form N = 4 gains,
+ * MCDI_PAIR_NMAX in batch.h). The second block's scratch follows the
+ * first's. Returns 1 when both blocks are stored; 2 or 3 when the first
+ * or the second block's fluxes are not finite (res set by stage_store as in body(); the first block is
  * stored before the second is reported); 0 when a loading check or a pivot
  * of the scaled form failed, or the first block's grounded fluxes were
  * not finite, before anything was stored: the caller then runs body() on
