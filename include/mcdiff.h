@@ -1398,27 +1398,28 @@ MCD_API mcd_status mcd_flux_diagnose(size_t n_species, size_t n_dim,
  *
  * Threads: built with the Meson option -Dopenmp=enabled, a batched call
  * distributes blocks of cells over OpenMP threads (see
- * mcd_workspace_set_threads); every cell is computed by the same code
- * whatever the thread count, so results are bit-for-bit identical to the
- * serial run. Without OpenMP the calls are serial. The CPU's vector width
- * (SSE2, AVX2, AVX-512) is chosen at run time on x86-64; no -march flag is
- * needed. With AVX-512, a call whose inputs and outputs together exceed the
- * last-level cache writes its outputs with streaming stores (past the
- * caches: the first outputs would have left them anyway); environment
- * variable MCDIFF_STREAM_STORES=never or =always overrides that choice.
- * The values are the same either way. The exact model's fluxes agree with
- * mcd_flux_compute's to round-off, not bit for bit: with AVX-512 the
- * kernel takes the square roots of the mole fractions and the pivots'
- * reciprocals from hardware estimates refined by Newton steps (a few ulp),
- * and blocks of 2 to 5 species without trace species (3 directions,
- * molar fluxes) solve the grounded N - 1 system instead of the scaled N x
- * N one, by an elimination without subtraction (about 1e-14 of the
- * largest flux apart with Đ within 2 decades). The grounded form is the
- * more accurate: against extended-precision and exact solutions at most
- * 8.5e-15 of the largest flux with Đ over 6 decades (the scaled form:
- * 3.7e-11) and 6.5e-17 with scarce species tied by a tiny Đ (the scaled
- * form: 1.8e-5); tests/test_ground.c. mcd_flux_compute solves such
- * states of up to 5 species in the grounded form too.
+ * mcd_workspace_set_threads); every cell is computed by the same code whatever
+ * the thread count, so results are bit-for-bit identical to the serial run.
+ * Without OpenMP the calls are serial. The CPU's vector width (SSE2, AVX2,
+ * AVX-512) is chosen at run time on x86-64; no -march flag is needed. With
+ * AVX-512, a call whose inputs and outputs together exceed the last-level
+ * cache writes its outputs with streaming stores (past the caches: the first
+ * outputs would have left them anyway); environment variable
+ * MCDIFF_STREAM_STORES=never or =always overrides that choice. The values are
+ * the same either way. The exact model's fluxes agree with mcd_flux_compute's
+ * to round-off, not bit for bit: with AVX-512 the kernel takes the square
+ * roots of the mole fractions and the pivots' reciprocals from hardware
+ * estimates refined by Newton steps (a few ulp), and blocks of 2 to 5 species
+ * without trace species (3 directions, molar or mass fluxes, the last partial
+ * block too) solve the grounded N - 1 system instead of the scaled N x N one,
+ * by an elimination without subtraction (about 1e-14 of the largest flux apart
+ * with Đ within 2 decades). The grounded form is the more accurate: against
+ * extended-precision and exact solutions at most 8.5e-15 of the largest flux
+ * with Đ over 6 decades (the scaled form: 3.7e-11) and 6.5e-17 with scarce
+ * species tied by a tiny Đ (the scaled form: 1.8e-5); tests/test_ground.c. A
+ * cell gets the same bits in a full block and in the last, partial one.
+ * mcd_flux_compute solves such states of up to 5 species in the grounded form
+ * too.
  */
 
 /** How the per-cell arrays of a batched call are laid out in memory

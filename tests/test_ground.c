@@ -414,34 +414,93 @@ START_TEST(block_forms_do_not_depend_on_the_pairing)
 }
 END_TEST
 
+/* The last, partial block of a call takes the grounded form too
+ * (batch_kernel.c, stage_ground_fluxes): a cell must get the same bits
+ * in a full block and alone (a call of one cell), N = 2 to 5, without
+ * trace species. */
+START_TEST(last_block_matches_full_blocks)
+{
+    enum { KF = 32 };
+    double *x = malloc(NMAX * KF * sizeof(double)),
+           *D = malloc(NMAX * NMAX * KF * sizeof(double)),
+           *g = malloc(NMAX * ND * KF * sizeof(double)),
+           *c = malloc(KF * sizeof(double)),
+           *J = malloc(NMAX * ND * KF * sizeof(double));
+    mcd_workspace *ws = NULL;
+    size_t i, k, n;
+    ck_assert(x && D && g && c && J);
+    ck_assert_int_eq(mcd_workspace_new(NMAX, &ws), MCD_OK);
+    for (n = 2; n <= NMAX; n++) {
+        for (k = 0; k < KF; k++) {
+            double xs[NMAX], Dc[NMAX * NMAX], gc[NMAX * ND];
+            sup_fractions(&rng, n, 0.01, xs);
+            sup_dij_decades(&rng, n, Dc, -7.0, -4.0);
+            sup_gradients_zero_mean(&rng, n, ND, -10.0, 10.0, gc);
+            c[k] = sup_range(&rng, 20.0, 60.0);
+            cell_put(n, KF, k, xs, Dc, gc, x, D, g);
+        }
+        ck_assert_int_eq(
+            mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, n, NULL, D, c,
+                               &(mcd_cells){.n_cells = KF,
+                                            .n_dim = ND,
+                                            .comp_basis = MCD_BASIS_MOLE,
+                                            .comp = x,
+                                            .grad = g},
+                               MCD_BASIS_MOLE, J),
+            MCD_OK);
+        for (k = 0; k < KF; k++) {
+            double xs[NMAX], Dc[NMAX * NMAX], gc[NMAX * ND], J1[NMAX * ND];
+            cell_get(n, KF, k, x, D, g, xs, Dc, gc);
+            ck_assert_int_eq(
+                mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, n, NULL, Dc,
+                                   &c[k],
+                                   &(mcd_cells){.n_cells = 1,
+                                                .n_dim = ND,
+                                                .comp_basis = MCD_BASIS_MOLE,
+                                                .comp = xs,
+                                                .grad = gc},
+                                   MCD_BASIS_MOLE, J1),
+                MCD_OK);
+            for (i = 0; i < n * ND; i++)
+                ck_assert_msg(J1[i] == J[i * KF + k],
+                              "N = %zu, cell %zu row %zu: %.17g alone, %.17g "
+                              "in a full block",
+                              n, k, i, J1[i], J[i * KF + k]);
+        }
+    }
+    mcd_workspace_free(ws);
+    free(x), free(D), free(g), free(c), free(J);
+}
+END_TEST
+
 /* Scarce species tied to each other by a tiny Đ: the equations are then
- * ill-conditioned in the classical sense (the scarce species move almost
- * as one, held back by a weak tie to the rest), but the exact fluxes are
- * well determined by the data, and the grounded form's elimination
- * without subtraction (kernel_ldl.h, stage_ground_gth) keeps them.
- * Check values: three states solved in exact rational arithmetic
- * (Python's fractions, with sympy's LUsolve for the first two and a
- * plain Gaussian elimination for the third, on the doubles below as
- * given; written for this test). The first is the state fuzz_flux found
- * (tests/fuzz/corpus/fuzz_flux/regress_grounded_zero_sum, its gradients
- * projected to sum to zero): grounding the scarce species there, as an
- * earlier rule did, gave fluxes summing to -21600 over |F| = 21600; the
- * scaled form (mcd_flux_compute and these blocks before the grounded
- * form) gives fluxes of about 1e-87 instead of 2.16e4. The second has x
- * of 1.3e-6, 1.7e-6 and 1.4e-9 and Đ of 2.2e-25 and 1.3e-25 between the
- * scarcest and the other two; the scaled form's error is 1.8e-5 of the
- * largest flux there (measured). The third has two species at x = 1e-170
- * and 2e-170 tied by Đ = 1e-300: x_i x_j underflows to 0 there while the
- * tie x_i x_j / Đ_ij = 2e-40 dominates their rows, so the ties must be
- * formed as x_i (x_j / Đ_ij); formed the other way the tie vanished and
- * the fluxes were off by 0.39 of the largest (the exact solution of the
- * untied state, same script). Accepted, for the batched call and the
- * single-state call (grounded form too, lib/flux/ms_ldl.c): 1e-13 of the
- * largest flux per state (measured 6.5e-17 batched). Then 40 cells of
- * such states drawn at random: their fluxes must sum to zero within 1e-13 of their magnitude per cell
- * and direction; their error against the long-double reference is
- * printed, not asserted (about 1e-8: the reference itself, whose
- * classical form loses digits here; the scaled form's was 3e-5). */
+ * ill-conditioned in the classical sense (the scarce species move almost as
+ * one, held back by a weak tie to the rest), but the exact fluxes are well
+ * determined by the data, and the grounded form's elimination without
+ * subtraction (kernel_ldl.h, stage_ground_gth) keeps them. Check values: three
+ * states solved in exact rational arithmetic (Python's fractions, with sympy's
+ * LUsolve for the first two and a plain Gaussian elimination for the third, on
+ * the doubles below as given; written for this test). The first is the state
+ * fuzz_flux found (tests/fuzz/corpus/fuzz_flux/regress_grounded_zero_sum, its
+ * gradients projected to sum to zero): grounding the scarce species there, as
+ * an earlier rule did, gave fluxes summing to -21600 over |F| = 21600; the
+ * scaled form (mcd_flux_compute and these blocks before the grounded form)
+ * gives fluxes of about 1e-87 instead of 2.16e4. The second has x of 1.3e-6,
+ * 1.7e-6 and 1.4e-9 and Đ of 2.2e-25 and 1.3e-25 between the scarcest and the
+ * other two; the scaled form's error is 1.8e-5 of the largest flux there
+ * (measured). The third has two species at x = 1e-170 and 2e-170 tied by Đ =
+ * 1e-300: x_i x_j underflows to 0 there while the tie x_i x_j / Đ_ij = 2e-40
+ * dominates their rows, so the ties must be formed as x_i (x_j / Đ_ij); formed
+ * the other way the tie vanished and the fluxes were off by 0.39 of the
+ * largest (the exact solution of the untied state, same script). Accepted, for
+ * the batched call and the single-state call (grounded form too,
+ * lib/flux/ms_ldl.c): 1e-13 of the largest flux per state (measured 6.5e-17
+ * batched), also for the batched call on the state alone (a last, partial
+ * block). Then 40 cells of such states drawn at random: their fluxes must sum
+ * to zero within 1e-13 of their magnitude per cell and direction; their error
+ * against the long-double reference is printed, not asserted (about 1e-8: the
+ * reference itself, whose classical form loses digits here; the scaled form's
+ * was 3e-5). */
 START_TEST(tightly_tied_scarce_species)
 {
     enum { n = 4, KS = 64, NEXACT = 3 };
@@ -573,6 +632,23 @@ START_TEST(tightly_tied_scarce_species)
                                   "single-state call, state %zu, row %zu: "
                                   "%.17g, exact %.17g",
                                   k / 8, i, J1[i], je[i]);
+                /* the batched call on this cell alone: a last, partial
+                 * block (one cell in SoA is the state's own arrays) */
+                ck_assert_int_eq(mcd_flux_batch_dij(
+                                     ws, MCD_MODEL_MAXWELL_STEFAN, n, NULL, Dc,
+                                     &c[k],
+                                     &(mcd_cells){.n_cells = 1,
+                                                  .n_dim = ND,
+                                                  .comp_basis = MCD_BASIS_MOLE,
+                                                  .comp = xs,
+                                                  .grad = gc},
+                                     MCD_BASIS_MOLE, J1),
+                                 MCD_OK);
+                for (i = 0; i < n * ND; i++)
+                    ck_assert_msg(fabs(J1[i] - je[i]) <= 1e-13 * big,
+                                  "batched call on one cell, state %zu, row "
+                                  "%zu: %.17g, exact %.17g",
+                                  k / 8, i, J1[i], je[i]);
             }
             continue;
         }
@@ -608,6 +684,7 @@ int main(void)
     tcase_add_test(tc, grounded_blocks_match_an_extended_precision_solve);
     tcase_add_test(tc, block_forms_do_not_depend_on_the_pairing);
     tcase_add_test(tc, tightly_tied_scarce_species);
+    tcase_add_test(tc, last_block_matches_full_blocks);
     suite_add_tcase(s, tc);
     return sup_run(s);
 }

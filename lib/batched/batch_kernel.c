@@ -28,12 +28,13 @@
  * has S_k = 0; then a = max S_i over all species (> 0) keeps the matrix
  * definite.
  *
- * Full blocks of the exact model with n_dim = 3, 2 <= N <= 5 and mole
- * fluxes solve the grounded form instead (kernel_ldl.h,
+ * Blocks of the exact model with n_dim = 3 and 2 <= N <= 5 (full ones with
+ * molar fluxes through the fused emit, the last partial block and mass fluxes
+ * through stage_ground_fluxes) solve the grounded form instead (kernel_ldl.h,
  * stage_ground_gth): u_i = J_i / (c x_i), the (N - 1) x (N - 1) graph
  * Laplacian with the most abundant species of each lane grounded, by an
- * elimination without subtraction (Grassmann, Taksar and Heyman), no
- * square roots; a block with a trace species takes the scaled form.
+ * elimination without subtraction (Grassmann, Taksar and Heyman), no square
+ * roots; a block with a trace species takes the scaled form.
  *
  * Factorisation (exact model): LDL^T without pivoting and without square
  * roots, left-looking, packed lower triangle, vectorised across the L
@@ -195,11 +196,13 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
     if (mix != NULL)
         stage_invdiff_mixture(jb, &b, pl, n, L);
     CUT(5);
-    if (L == MCDI_VLANES && nv == L && !mass_out && nd == 3 &&
-        MCDI_GROUND_HERE(n) && n <= MCDI_GROUND_NMAX &&
-        model == MCD_MODEL_MAXWELL_STEFAN) {
+    if (L == MCDI_VLANES && nd == 3 && MCDI_GROUND_HERE(n) &&
+        n <= MCDI_GROUND_NMAX && model == MCD_MODEL_MAXWELL_STEFAN) {
         /* the grounded form (kernel_ldl.h), which needs no Blanc sums;
-         * if it fails (1/Đ is left as it was), the scaled form */
+         * if it fails (1/Đ is left as it was), the scaled form. The
+         * last, partial block (its lanes past nv repeat the first cell)
+         * and mass fluxes take the same fluxes through the stages
+         * below. */
         mcdi_vl kg[MCDI_GROUND_NMAX];
         const int gp = ground_pick(&b, n, kg);
         int ok;
@@ -209,11 +212,17 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
         CUT(7);
         CUT(8);
         CUT(9);
-        if (ok &&
+        if (ok && nv == L && !mass_out &&
             emit_mole_v(n, nd, (const mcdi_vd *)b.x, (const mcdi_vd *)b.x,
                         (const mcdi_vd *)b.r, (const mcdi_vd *)b.t, 0,
                         *(const mcdi_vd *)b.c, (mcdi_vd *)b.J, jb, k0, nts))
             return;
+        if (ok && (nv < L || mass_out) && stage_ground_fluxes(&b, n, nd)) {
+            if (mass_out && !stage_mass(jb, &b, nv, res, n, L, nd))
+                return;
+            stage_store(jb, &b, k0, nv, res, n, L, nd);
+            return;
+        }
     }
     stage_blanc(jb, &b, pl, n, L);
     CUT(6);
@@ -255,26 +264,25 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
 
 /* Two full blocks at k0 and k0 + L of the exact model with Đ per cell
  * and mole fluxes (n <= MCDI_PAIR_NMAX, batch.h): each stage of the first
- * block, then the same stage of the second, so that the work of the two
- * can overlap (A/B against one block at a time, tools/anchor.sh, three
- * alternating runs on the Intel AVX-512 host, scaled form: N = 2
- * 0.16-0.17 -> 0.21-0.23 of the reference in cache, N = 3 0.27-0.28 ->
- * 0.28-0.29 in cache and 1.01-1.03 -> 1.09-1.15 streamed; N = 4 and 5
- * were slower this way, 4-10 %; with the grounded form N = 4 gains,
- * MCDI_PAIR_NMAX in batch.h). The second block's scratch follows the
- * first's. Returns 1 when both blocks are stored; 2 or 3 when the first
- * or the second block's fluxes are not finite (res set by stage_store as in body(); the first block is
- * stored before the second is reported); 0 when a loading check or a pivot
- * of the scaled form failed, or the first block's grounded fluxes were
- * not finite, before anything was stored: the caller then runs body() on
- * each block, which reports as always (and takes the scaled form where
- * the grounded one failed); 4 when the first block is stored and the
- * second's grounded fluxes were not finite: body() redoes the second; 5
- * when one block takes the grounded form and the other cannot (a trace
- * species, the range rule or a pivot, kernel_ldl.h), before anything was
- * stored: the caller runs body() on each (so that a block's
- * form, and so its bits, never depends on the block it is paired with:
- * the pairs start where each thread's range of blocks starts). */
+ * block, then the same stage of the second, so that the work of the two can
+ * overlap (A/B against one block at a time, tools/anchor.sh, three alternating
+ * runs on the Intel AVX-512 host, scaled form: N = 2 0.16-0.17 -> 0.21-0.23 of
+ * the reference in cache, N = 3 0.27-0.28 -> 0.28-0.29 in cache and 1.01-1.03
+ * -> 1.09-1.15 streamed; N = 4 and 5 were slower this way, 4-10 %; with the
+ * grounded form N = 4 gains, MCDI_PAIR_NMAX in batch.h). The second block's
+ * scratch follows the first's. Returns 1 when both blocks are stored; 2 or 3
+ * when the first or the second block's fluxes are not finite (res set by
+ * stage_store as in body(); the first block is stored before the second is
+ * reported); 0 when a loading check or a pivot of the scaled form failed, or
+ * the first block's grounded fluxes were not finite, before anything was
+ * stored: the caller then runs body() on each block, which reports as always
+ * (and takes the scaled form where the grounded one failed); 4 when the first
+ * block is stored and the second's grounded fluxes were not finite: body()
+ * redoes the second; 5 when one block takes the grounded form and the other
+ * cannot (a trace species, the range rule or a pivot, kernel_ldl.h), before
+ * anything was stored: the caller runs body() on each (so that a block's form,
+ * and so its bits, never depends on the block it is paired with: the pairs
+ * start where each thread's range of blocks starts). */
 KINLINE int body2(const mcdi_bjob *jb, size_t k0, double *mem, const size_t n,
                   const size_t L, const size_t nd, mcdi_bres *res)
 {
