@@ -501,6 +501,19 @@ END_TEST
  * against the long-double reference is printed, not asserted (about 1e-8: the
  * reference itself, whose classical form loses digits here; the scaled form's
  * was 3e-5). */
+/* Rows J[i * stride] (i < m) within 1e-13 of the largest exact flux big
+ * of the exact fluxes je of state `state`, through the call `what`. */
+static void assert_near_exact(size_t m, const double *J, size_t stride,
+                              const double *je, double big, const char *what,
+                              size_t state)
+{
+    size_t i;
+    for (i = 0; i < m; i++)
+        ck_assert_msg(fabs(J[i * stride] - je[i]) <= 1e-13 * big,
+                      "%s, state %zu, row %zu: %.17g, exact %.17g", what, state,
+                      i, J[i * stride], je[i]);
+}
+
 START_TEST(tightly_tied_scarce_species)
 {
     enum { n = 4, KS = 64, NEXACT = 3 };
@@ -609,10 +622,8 @@ START_TEST(tightly_tied_scarce_species)
             for (i = 0; i < n * ND; i++)
                 if (fabs(je[i]) > big)
                     big = fabs(je[i]);
-            for (i = 0; i < n * ND; i++)
-                ck_assert_msg(fabs(J[i * KS + k] - je[i]) <= 1e-13 * big,
-                              "state %zu, row %zu: %.17g, exact %.17g", k / 8,
-                              i, J[i * KS + k], je[i]);
+            assert_near_exact(n * ND, J + k, KS, je, big, "batched call",
+                              k / 8);
             if (k % 8 == 0) { /* the single-state call on the same state */
                 double J1[n * ND];
                 cell_get(n, KS, k, x, D, g, xs, Dc, gc);
@@ -627,11 +638,8 @@ START_TEST(tightly_tied_scarce_species)
                                                   .grad = gc},
                                      MCD_BASIS_MOLE, J1),
                     MCD_OK);
-                for (i = 0; i < n * ND; i++)
-                    ck_assert_msg(fabs(J1[i] - je[i]) <= 1e-13 * big,
-                                  "single-state call, state %zu, row %zu: "
-                                  "%.17g, exact %.17g",
-                                  k / 8, i, J1[i], je[i]);
+                assert_near_exact(n * ND, J1, 1, je, big, "single-state call",
+                                  k / 8);
                 /* the batched call on this cell alone: a last, partial
                  * block (one cell in SoA is the state's own arrays) */
                 ck_assert_int_eq(mcd_flux_batch_dij(
@@ -644,11 +652,8 @@ START_TEST(tightly_tied_scarce_species)
                                                   .grad = gc},
                                      MCD_BASIS_MOLE, J1),
                                  MCD_OK);
-                for (i = 0; i < n * ND; i++)
-                    ck_assert_msg(fabs(J1[i] - je[i]) <= 1e-13 * big,
-                                  "batched call on one cell, state %zu, row "
-                                  "%zu: %.17g, exact %.17g",
-                                  k / 8, i, J1[i], je[i]);
+                assert_near_exact(n * ND, J1, 1, je, big,
+                                  "batched call on one cell", k / 8);
             }
             continue;
         }

@@ -100,9 +100,9 @@ static double omega_brokaw(double Ts, double delta_ab)
  * A driving force is added once, in flux/stages.h (shared with the
  * single-state call), plus its loader in stage_load_forces. */
 #include "batched/kernel_stages.h" /* shared by every model */
+#include "batched/kernel_emit.h"   /* fluxes and fused emit (mole basis) */
 #include "batched/kernel_ldl.h"    /* exact model */
 #include "batched/kernel_iter.h"   /* iterative model */
-#include "batched/kernel_emit.h"   /* fused emit of full mole-basis blocks */
 
 /* The lowest lane with a non-positive (or NaN) pivot: ESING. */
 static void report_not_definite(const double *Dg, size_t nv, mcdi_bres *res,

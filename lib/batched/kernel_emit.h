@@ -75,21 +75,21 @@ KINLINE void stream_rows(const mcdi_bjob *jb, size_t rows,
 }
 #endif
 
-/* Molar fluxes of a full block from the solution U of the scaled system:
- * J_i = c (s_i U_i + t_i - x_i sum_t t_t), then the zero-sum clean-up
- * J_i -= x_i sum_k J_k, written to out[e * K + l] (e = i * nd + dd) in the
- * same pass (with jb->stream, by stream_rows), in the job's layout (row
- * e of the block at out + mcdi_cell_at + e rs). J: scratch for the
- * fluxes. Returns 0 (nothing written, J holds all fluxes) if some flux is
- * not finite. */
-KINLINE int emit_mole_v(const size_t n, const size_t nd,
-                        const mcdi_vd *restrict s, const mcdi_vd *restrict x,
-                        const mcdi_vd *restrict U, const mcdi_vd *restrict t,
-                        const int ntr, const mcdi_vd c, mcdi_vd *restrict J,
-                        const mcdi_bjob *jb, const size_t k0, double *nts)
+/* Molar fluxes of a block from the solution U of the scaled system (s = sqrt
+ * x, t the trace fluxes, ntr their count) or of the grounded one (s = x,
+ * ntr = 0): J_i = c (s_i U_i + t_i - x_i sum_t t_t), then the zero-sum
+ * clean-up J_i -= x_i sum_k J_k, into J. The one place these operations
+ * are written, so that a cell gets the same bits through the fused emit
+ * below (full blocks) and through stage_ground_fluxes (kernel_ldl.h: the
+ * last, partial block and mass fluxes). Returns 0 if some flux is not
+ * finite. */
+KINLINE int compose_clean_v(const size_t n, const size_t nd,
+                            const mcdi_vd *restrict s,
+                            const mcdi_vd *restrict x,
+                            const mcdi_vd *restrict U,
+                            const mcdi_vd *restrict t, const int ntr,
+                            const mcdi_vd c, mcdi_vd *restrict J)
 {
-    double *restrict out = jb->out + mcdi_cell_at(jb, k0, n * nd);
-    const size_t K = jb->rs; /* row stride (batch.h) */
     const mcdi_vd zero = {0.0};
     mcdi_vd nan_acc = zero; /* q * 0 is NaN exactly when q is inf or NaN */
     size_t i, dd, e;
@@ -118,7 +118,24 @@ KINLINE int emit_mole_v(const size_t n, const size_t nd,
     }
     /* one test per block: a per-element compare-and-mask cost 13 % of the
      * whole N = 10 block (profiled) */
-    if (any_lane_v(nan_acc != nan_acc))
+    return !any_lane_v(nan_acc != nan_acc);
+}
+
+/* The fluxes of a full mole-basis block (compose_clean_v), written to
+ * out[e * K + l] (e = i * nd + dd) in the same pass (with jb->stream, by
+ * stream_rows), in the job's layout (row e of the block at out +
+ * mcdi_cell_at + e rs). J: scratch for the fluxes. Returns 0 (nothing
+ * written, J holds all fluxes) if some flux is not finite. */
+KINLINE int emit_mole_v(const size_t n, const size_t nd,
+                        const mcdi_vd *restrict s, const mcdi_vd *restrict x,
+                        const mcdi_vd *restrict U, const mcdi_vd *restrict t,
+                        const int ntr, const mcdi_vd c, mcdi_vd *restrict J,
+                        const mcdi_bjob *jb, const size_t k0, double *nts)
+{
+    double *restrict out = jb->out + mcdi_cell_at(jb, k0, n * nd);
+    const size_t K = jb->rs; /* row stride (batch.h) */
+    size_t e;
+    if (!compose_clean_v(n, nd, s, x, U, t, ntr, c, J))
         return 0;
 #if MCDI_CAN_STREAM
     if (jb->stream) {

@@ -497,35 +497,17 @@ KINLINE int stage_ground_gth(const mcdi_kblock *b, const size_t n,
 
 /* The molar fluxes of a grounded block for the blocks the fused emit
  * (kernel_emit.h) does not take, the last, partial block of a call and
- * mass fluxes: J_i = c (x_i u_i), then the zero-sum clean-up J_i -= x_i
- * sum_k J_k (the shift back to the molar-average frame), into J, with
- * the emit's operations in its order, so that a cell gets the same
- * fluxes in a full block and in the last one. Returns 0 if some flux is
- * not finite (the scaled form then, as after the emit). */
+ * mass fluxes: J_i = c (x_i u_i) and the zero-sum clean-up (the shift back
+ * to the molar-average frame) by the emit's own compose_clean_v, so that a
+ * cell gets the same fluxes in a full block and in the last one. Returns 0
+ * if some flux is not finite (the scaled form then, as after the emit). */
 KINLINE int stage_ground_fluxes(const mcdi_kblock *b, const size_t n,
                                 const size_t nd)
 {
-    const mcdi_vd *restrict x = (const mcdi_vd *)(const void *)b->x;
-    const mcdi_vd *restrict u = (const mcdi_vd *)(const void *)b->r;
-    const mcdi_vd c = *(const mcdi_vd *)(const void *)b->c, zero = {0.0};
-    mcdi_vd *restrict J = (mcdi_vd *)(void *)b->J;
-    mcdi_vd nan_acc = zero;
-    size_t i, dd;
-    for (dd = 0; dd < nd; dd++) {
-        mcdi_vd rs = zero;
-        for (i = 0; i < n; i++) {
-            mcdi_vd q = x[i] * u[i * nd + dd];
-            q *= c;
-            J[i * nd + dd] = q;
-            rs += q;
-        }
-        for (i = 0; i < n; i++) {
-            const mcdi_vd q = J[i * nd + dd] - x[i] * rs;
-            nan_acc += q * zero;
-            J[i * nd + dd] = q;
-        }
-    }
-    return !any_lane_v(nan_acc != nan_acc);
+    const mcdi_vd *x = (const mcdi_vd *)(const void *)b->x;
+    return compose_clean_v(n, nd, x, x, (const mcdi_vd *)(const void *)b->r,
+                           NULL, 0, *(const mcdi_vd *)(const void *)b->c,
+                           (mcdi_vd *)(void *)b->J);
 }
 
 #endif
