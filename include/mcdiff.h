@@ -1409,17 +1409,18 @@ MCD_API mcd_status mcd_flux_diagnose(size_t n_species, size_t n_dim,
  * the same either way. The exact model's fluxes agree with mcd_flux_compute's
  * to round-off, not bit for bit: with AVX-512 the kernel takes the square
  * roots of the mole fractions and the pivots' reciprocals from hardware
- * estimates refined by Newton steps (a few ulp), and blocks of 2 to 5 species
- * without trace species (3 directions, molar or mass fluxes, the last partial
- * block too) solve the grounded N - 1 system instead of the scaled N x N one,
- * by an elimination without subtraction (about 1e-14 of the largest flux apart
- * with Đ within 2 decades). The grounded form is the more accurate: against
- * extended-precision and exact solutions at most 8.5e-15 of the largest flux
- * with Đ over 6 decades (the scaled form: 3.7e-11) and 6.5e-17 with scarce
- * species tied by a tiny Đ (the scaled form: 1.8e-5); tests/test_ground.c. A
- * cell gets the same bits in a full block and in the last, partial one.
- * mcd_flux_compute solves such states of up to 5 species in the grounded form
- * too.
+ * estimates refined by Newton steps (a few ulp), and blocks of 2 to 10
+ * species without trace species (3 directions, molar or mass fluxes, the last
+ * partial block too) solve the grounded system instead of the scaled N x N
+ * one, by an elimination without subtraction (about 1e-14 of the largest flux
+ * apart with Đ within 2 decades). The grounded form is the more accurate:
+ * against extended-precision and exact solutions at most 8.5e-15 of the
+ * largest flux with Đ over 6 decades (the scaled form: 3.7e-11) and 6.5e-17
+ * with scarce species tied by a tiny Đ (the scaled form: 1.8e-5);
+ * tests/test_ground.c. A cell gets the same bits in a full block and in the
+ * last, partial one. mcd_flux_compute solves such states of up to 5 species
+ * in the grounded form too; from 6 species it takes the scaled form, so the
+ * two calls can differ by as much as the scaled form's error there.
  */
 
 /** How the per-cell arrays of a batched call are laid out in memory

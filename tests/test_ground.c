@@ -1,7 +1,8 @@
-/* test_ground.c - the batched exact fluxes of full blocks up to five
- * species (the grounded form, lib/batched/kernel_ldl.h) against an
- * independent extended-precision solve, on states whose mole fractions
- * span up to 12 decades and whose binary diffusivities span up to 6.
+/* test_ground.c - the batched exact fluxes of full blocks up to ten
+ * species (the grounded form, lib/batched/kernel_ldl.h: stage_ground_gth
+ * up to five species, stage_ground_any from six) against an independent
+ * extended-precision solve, on states whose mole fractions span up to 12
+ * decades and whose binary diffusivities span up to 6.
  *
  * Reference (written for this test, independent of lib/): the
  * Maxwell-Stefan equations in their classical N x N form (Taylor and
@@ -21,7 +22,13 @@
  * 3.7e-11 in the wider run; so did the grounded form while it factored
  * with the L D L^T of the scaled form (6.6e-12).
  *
- * The single-state call, which takes the grounded form for these states
+ * From six to ten species (measured on the AMD AVX-512 host, 1024 cells
+ * a case): at most 3.8e-15 in the batched call, where the scaled form
+ * reached 1.6e-13 at N = 6 (the call before stage_ground_any) and the
+ * single-state call, still in the scaled form there, 5.7e-11 at N = 8;
+ * its error is printed above five species, not asserted.
+ *
+ * The single-state call, which takes the grounded form up to five species
  * too (lib/flux/ms_ldl.c, fused_gth), is held to the same accuracy on the
  * same cells (measured at most 8.2e-15; before, with the scaled form,
  * 3.7e-11): CK_FORK=no MCD_GROUND_CELLS=32000 build/tests/test_ground
@@ -50,7 +57,10 @@
 #endif
 
 #define ACCURACY 1e-13
-#define NMAX 5
+#define NMAX 10
+/* the single-state call takes the grounded form up to this many species
+ * (MCDI_MS_GTH_N, lib/flux/ms_ldl.c); above, its error is printed */
+#define SINGLE_NMAX 5
 /* cells per case: MCD_GROUND_CELLS (rounded to a multiple of 8, every
  * vector width, so that every block is full), 1024 by default */
 static size_t K = 1024;
@@ -301,7 +311,7 @@ START_TEST(grounded_blocks_match_an_extended_precision_solve)
                     e1 = single_error(ws, n, x, D, g, s.c[k], Jr, big);
                     if (e1 > worst1)
                         worst1 = e1;
-                    ck_assert_msg(!check || e1 <= ACCURACY,
+                    ck_assert_msg(!check || n > SINGLE_NMAX || e1 <= ACCURACY,
                                   "N=%zu x over %g decades, Dij over %g: cell "
                                   "%zu single-state error %.3g",
                                   n, xdec[a], ddec[b], k, e1);

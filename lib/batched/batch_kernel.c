@@ -34,7 +34,9 @@
  * stage_ground_gth): u_i = J_i / (c x_i), the (N - 1) x (N - 1) graph
  * Laplacian with the most abundant species of each lane grounded, by an
  * elimination without subtraction (Grassmann, Taksar and Heyman), no square
- * roots; a block with a trace species takes the scaled form.
+ * roots; a block with a trace species takes the scaled form. From 6 to
+ * 10 species the same, with n unknowns and the grounded species of each
+ * lane left where it lies (stage_ground_any).
  *
  * Factorisation (exact model): LDL^T without pivoting and without square
  * roots, left-looking, packed lower triangle, vectorised across the L
@@ -137,6 +139,29 @@ static void report_bad_cell(mcdi_bres *res)
 /* the block body, instantiated for constant n and L                    */
 /* ------------------------------------------------------------------ */
 
+/* The fluxes of a block solved in the grounded form (u in r): a full
+ * mole-basis block through the fused emit, the last, partial block (its
+ * lanes past nv repeat the first cell) and mass fluxes through
+ * stage_ground_fluxes and the usual stages. Returns 1 when the block is
+ * done (stored, or an error in res), 0 if some flux is not finite, before
+ * anything is stored (the scaled form then). */
+KINLINE int ground_out(const mcdi_bjob *jb, const mcdi_kblock *b, size_t k0,
+                       size_t nv, mcdi_bres *res, const size_t n,
+                       const size_t L, const size_t nd, double *nts)
+{
+    const int mass_out = jb->flux_basis == MCD_BASIS_MASS;
+    if (nv == L && !mass_out)
+        return emit_mole_v(n, nd, (const mcdi_vd *)b->x, (const mcdi_vd *)b->x,
+                           (const mcdi_vd *)b->r, (const mcdi_vd *)b->t, 0,
+                           *(const mcdi_vd *)b->c, (mcdi_vd *)b->J, jb, k0,
+                           nts);
+    if (!stage_ground_fluxes(b, n, nd))
+        return 0;
+    if (!mass_out || stage_mass(jb, b, nv, res, n, L, nd))
+        stage_store(jb, b, k0, nv, res, n, L, nd);
+    return 1;
+}
+
 /* Stage profile (tests/bench_stages.c): return after stage k when the
  * job asks for it; one predictable branch per stage and block. */
 #define CUT(k)                                                                 \
@@ -196,13 +221,10 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
     if (mix != NULL)
         stage_invdiff_mixture(jb, &b, pl, n, L);
     CUT(5);
-    if (L == MCDI_VLANES && nd == 3 && MCDI_GROUND_HERE(n) &&
-        n <= MCDI_GROUND_NMAX && model == MCD_MODEL_MAXWELL_STEFAN) {
+    if (L == MCDI_VLANES && model == MCD_MODEL_MAXWELL_STEFAN && nd == 3 &&
+        MCDI_GROUND_HERE(n) && n <= MCDI_GROUND_NMAX) {
         /* the grounded form (kernel_ldl.h), which needs no Blanc sums;
-         * if it fails (1/Đ is left as it was), the scaled form. The
-         * last, partial block (its lanes past nv repeat the first cell)
-         * and mass fluxes take the same fluxes through the stages
-         * below. */
+         * if it fails (1/Đ is left as it was), the scaled form */
         mcdi_vl kg[MCDI_GROUND_NMAX];
         const int gp = ground_pick(&b, n, kg);
         int ok;
@@ -212,17 +234,19 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
         CUT(7);
         CUT(8);
         CUT(9);
-        if (ok && nv == L && !mass_out &&
-            emit_mole_v(n, nd, (const mcdi_vd *)b.x, (const mcdi_vd *)b.x,
-                        (const mcdi_vd *)b.r, (const mcdi_vd *)b.t, 0,
-                        *(const mcdi_vd *)b.c, (mcdi_vd *)b.J, jb, k0, nts))
+        if (ok && ground_out(jb, &b, k0, nv, res, n, L, nd, nts))
             return;
-        if (ok && (nv < L || mass_out) && stage_ground_fluxes(&b, n, nd)) {
-            if (mass_out && !stage_mass(jb, &b, nv, res, n, L, nd))
-                return;
-            stage_store(jb, &b, k0, nv, res, n, L, nd);
+    } else if (L == MCDI_VLANES && model == MCD_MODEL_MAXWELL_STEFAN) {
+        /* the same from 6 to 10 species (kernel_ldl.h, ground_fixed:
+         * -1 where it does not run) */
+        int got;
+        CUT(6);
+        got = ground_fixed(&b, n, nd);
+        CUT(7);
+        CUT(8);
+        CUT(9);
+        if (got > 0 && ground_out(jb, &b, k0, nv, res, n, L, nd, nts))
             return;
-        }
     }
     stage_blanc(jb, &b, pl, n, L);
     CUT(6);

@@ -495,6 +495,172 @@ KINLINE int stage_ground_gth(const mcdi_kblock *b, const size_t n,
     return 1;
 }
 
+/* The grounded form for blocks of the generic instance of batch_kernel.c (n
+ * > MCDI_GROUND_NMAX) up to GROUND_ANY_MAX species: the same system and the
+ * same elimination without subtraction as stage_ground_gth, with n unknowns
+ * in place of n - 1 and no permutation. Each lane grounds its most abundant
+ * species g (the last one on ties) where it lies: its row and column of ties
+ * are zero, its ties to the others are their e_i, its right-hand side is
+ * zero and its pivot (0) is taken as 1, so its step eliminates nothing and
+ * its u_g comes out 0; every other step is stage_ground_gth's, in species
+ * order, with the updates gathered column by column (below). n <=
+ * GROUND_ANY_MAX and n_dim <= 3, constants at each call (ground_fixed): the
+ * matrix and the vectors are locals. Reads x, d and 1/Đ (tri, left as it is)
+ * and writes u to r. Returns 0 (the scaled form then) if some lane has a
+ * trace species, breaks the range rule of stage_ground_gth or has a pivot
+ * that is not > 0. */
+#define GROUND_ANY_MAX 10
+KINLINE int stage_ground_any(const mcdi_kblock *b, const size_t n,
+                             const size_t nd)
+{
+    const mcdi_vd *restrict tri = (const mcdi_vd *)(const void *)b->tri;
+    const mcdi_vd *restrict x = (const mcdi_vd *)(const void *)b->x;
+    const mcdi_vd *restrict d = (const mcdi_vd *)(const void *)b->d;
+    mcdi_vd *restrict r = (mcdi_vd *)(void *)b->r;
+    const mcdi_vd zero = {0.0}, one = zero + 1.0;
+    /* locals: registers and known stack slots once the loops unroll */
+    mcdi_vd W[GROUND_ANY_MAX * (GROUND_ANY_MAX + 1) / 2], e[GROUND_ANY_MAX],
+        rsum[GROUND_ANY_MAX], ip[GROUND_ANY_MAX], lk[GROUND_ANY_MAX],
+        f[GROUND_ANY_MAX * 3];
+    mcdi_vd best = x[0], gv = zero; /* g of each lane, as a double */
+    mcdi_vl gm[GROUND_ANY_MAX], trace = ~(x[0] > zero), ok = zero == zero;
+    size_t i, j, k, q, dd;
+    LDL_UNROLL
+    for (i = 1; i < n; i++) {
+        const mcdi_vl ge = x[i] >= best; /* the last one on ties */
+        trace |= ~(x[i] > zero);
+        best = max_v(x[i], best);
+        gv = pick_v(ge, zero + (double)i, gv);
+    }
+    if (any_lane_v(trace))
+        return 0;
+    LDL_UNROLL
+    for (i = 0; i < n; i++) {
+        gm[i] = gv == (double)i;
+        rsum[i] = e[i] = zero;
+    }
+    /* the ties w_ij = x_i (x_j / Đ_ij) (x_j / Đ first: x_i x_j can
+     * underflow where w does not), their row sums x_i S_i for the range
+     * rule, the ties to g into e and out of the matrix */
+    LDL_UNROLL
+    for (i = 1; i < n; i++) {
+        LDL_UNROLL
+        for (j = 0; j < i; j++) {
+            const mcdi_vd w = x[i] * (x[j] * tri[i * (i + 1) / 2 + j]);
+            rsum[i] += w;
+            rsum[j] += w;
+            e[j] = pick_v(gm[i], w, e[j]);
+            e[i] = pick_v(gm[j], w, e[i]);
+            W[i * (i + 1) / 2 + j] = pick_v(gm[i] | gm[j], zero, w);
+        }
+    }
+    LDL_UNROLL
+    for (i = 0; i < n; i++)
+        ok &= (rsum[i] >= MCDI_GROUND_AMIN) &
+              (rsum[i] <= MCDI_GROUND_SMAX * x[i]);
+    if (any_lane_v(~ok))
+        return 0;
+    LDL_UNROLL
+    for (i = 0; i < n; i++) {
+        LDL_UNROLL
+        for (dd = 0; dd < nd; dd++)
+            f[i * nd + dd] = pick_v(gm[i], zero, -d[i * nd + dd]);
+    }
+    /* column by column (left-looking): at step k, row k's multipliers
+     * l_kq = W_kq / p_q (q < k, into lk), then e_k, f_k and column k of
+     * the Schur complement, W_jk += sum_q W_jq l_kq for j > k, each a sum
+     * of one load and one multiply-add per term (W_jq: the ties of row j
+     * as they stood when column q was eliminated), and the pivot p_k = e_k
+     * + sum_j W_jk: the right-looking updates of stage_ground_gth summed
+     * in another order, still without a subtraction */
+    LDL_UNROLL
+    for (k = 0; k < n; k++) {
+        mcdi_vd ek = e[k], fk[3], p;
+        LDL_UNROLL
+        for (dd = 0; dd < nd; dd++)
+            fk[dd] = f[k * nd + dd];
+        LDL_UNROLL
+        for (q = 0; q < k; q++) {
+            const mcdi_vd l = W[k * (k + 1) / 2 + q] * ip[q];
+            lk[q] = l;
+            ek += l * e[q];
+            LDL_UNROLL
+            for (dd = 0; dd < nd; dd++)
+                fk[dd] += l * f[q * nd + dd];
+        }
+        e[k] = ek;
+        LDL_UNROLL
+        for (dd = 0; dd < nd; dd++)
+            f[k * nd + dd] = fk[dd];
+        p = ek;
+        LDL_UNROLL
+        for (j = k + 1; j < n; j++) {
+            mcdi_vd t = W[j * (j + 1) / 2 + k];
+            LDL_UNROLL
+            for (q = 0; q < k; q++)
+                t += W[j * (j + 1) / 2 + q] * lk[q];
+            W[j * (j + 1) / 2 + k] = t;
+            p += t;
+        }
+        LDL_UNROLL
+        for (q = 0; q < k; q++)
+            W[k * (k + 1) / 2 + q] = lk[q]; /* row k of L now */
+        p = pick_v(gm[k], one, p);
+        ok &= p > zero;
+        ip[k] = 1.0 / p;
+    }
+    if (any_lane_v(~ok))
+        return 0;
+    /* u_i = f_i / p_i + sum_{k > i} l_ki u_k (row k of W holds l_kq) */
+    LDL_UNROLL
+    for (i = n; i-- > 0;) {
+        mcdi_vd t[3];
+        LDL_UNROLL
+        for (dd = 0; dd < nd; dd++)
+            t[dd] = f[i * nd + dd] * ip[i];
+        LDL_UNROLL
+        for (k = n - 1; k > i; k--) {
+            const mcdi_vd l = W[k * (k + 1) / 2 + i];
+            LDL_UNROLL
+            for (dd = 0; dd < nd; dd++)
+                t[dd] += l * f[k * nd + dd];
+        }
+        LDL_UNROLL
+        for (dd = 0; dd < nd; dd++)
+            f[i * nd + dd] = r[i * nd + dd] = t[dd];
+    }
+    return 1;
+}
+
+/* stage_ground_any for a constant n from 6 to GROUND_ANY_MAX and n_dim =
+ * 3, so that its loops unroll and its locals live in registers or fixed
+ * stack slots; in every kernel, the baseline one too (unlike ldl_fixed),
+ * so that the accuracy does not depend on the machine.
+ * Measured against the scaled form (tools/anchor.sh, in cache, the AMD
+ * AVX-512 host, 3 alternating runs): 1.14x at N = 6, 1.13x at 8, 1.02x
+ * at 10, but 0.89x at 12 and 16 (its matrix no longer fits the
+ * registers), hence 10. Its loops with n known only at run time, or with
+ * the matrix in tri, ran 2-2.5x the time of the scaled form's stages at N
+ * = 10 (66-77 against 28 ns a cell, bench_stages). Returns -1 (nothing
+ * done) where no instance covers n and n_dim: the scaled form then. */
+KINLINE int ground_fixed(const mcdi_kblock *b, const size_t n, const size_t nd)
+{
+#define GROUND_CASE(nn)                                                        \
+    case nn: return stage_ground_any(b, nn, 3);
+    _Static_assert(GROUND_ANY_MAX == 10, "the cases below go to 10");
+    if (nd == 3)
+        switch (n) {
+            GROUND_CASE(6)
+            GROUND_CASE(7)
+            GROUND_CASE(8)
+            GROUND_CASE(9)
+            GROUND_CASE(10)
+        default: break;
+        }
+#undef GROUND_CASE
+    return -1;
+}
+
 /* The molar fluxes of a grounded block for the blocks the fused emit
  * (kernel_emit.h) does not take, the last, partial block of a call and
  * mass fluxes: J_i = c (x_i u_i) and the zero-sum clean-up (the shift back
