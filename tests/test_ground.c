@@ -692,6 +692,102 @@ START_TEST(tightly_tied_scarce_species)
 }
 END_TEST
 
+/* Scarce species tied to each other by a tiny Đ among 7 species: the
+ * grounded form of 6 to 10 species (kernel_ldl.h, stage_ground_any). x of
+ * 1.3e-6, 1.7e-6 and 1.4e-9 with Đ of 2.2e-25 and 1.3e-25 between the
+ * scarcest and the other two (the second state above, among four more
+ * abundant species). Check values: the exact fluxes, solved in rational
+ * arithmetic (Python's fractions, a plain Gaussian elimination on the
+ * doubles below as given; the script of the third state above, written for
+ * this test). Accepted: 1e-13 of the largest flux, for the batched call in
+ * a full block and on the state alone (measured 1.4e-16 both). The batched
+ * call before stage_ground_any (the scaled form) was 0.033 off; the
+ * single-state call, which keeps the scaled form above 5 species, is 0.018
+ * off (a known issue, DEVELOPERS.md): printed, not asserted. */
+START_TEST(tied_scarce_species_among_seven)
+{
+    enum { n = 7, KS = 8 };
+    static const double xs[n] = {
+        1.3e-06, 1.7e-06, 1.4e-09, 0.3, 0.25, 0.2, 0.24999699860000013,
+    };
+    /* the upper triangle of Đ [m^2/s], row by row */
+    static const double Du[n * (n - 1) / 2] = {
+        3e-06,   2.2e-25, 4.1e-06, 7e-06,   2.5e-05, 1.1e-05, 1.3e-25,
+        9e-06,   1.6e-05, 2e-05,   8e-06,   1.2e-05, 3.3e-05, 4.4e-06,
+        5.5e-06, 1.8e-05, 2.2e-05, 7.7e-06, 6.6e-06, 1.5e-05, 1.9e-05,
+    };
+    static const double gs[n * ND] = {
+        10,  -20, 30, 5, 7, -9, -4, 11,  2,  25, 2,
+        -23, -6,  3,  8, 1, -2, -5, -31, -1, -3,
+    };
+    /* the exact fluxes [mol/(m^2 s)] at c = 40 mol/m^3 */
+    static const double je[n * ND] = {
+        -0.0017073544394293476,  0.00031042559003984546, -0.003569897799966877,
+        -0.002232694266912724,   0.0004059411560210618,  -0.00466832789204767,
+        -1.8386893962811744e-06, 3.3430448145332173e-07, -3.84450532292252e-06,
+        -0.011993466246067378,   -0.0006747436682466711, 0.009476268667108066,
+        0.003188238188329993,    -0.0012054600328543412, -0.004732652588467254,
+        0.0006076193481735802,   0.0007465794509554335,  0.0013848898342884023,
+        0.012139496105302157,    0.00041692319960321837, 0.002113564284408255,
+    };
+    double Dc[n * n], x[n * KS], D[n * n * KS], g[n * ND * KS], c[KS],
+        J[n * ND * KS], J1[n * ND], big = 0.0, e1 = 0.0;
+    mcd_workspace *ws = NULL;
+    size_t i, j, k, q = 0;
+    for (i = 0; i < n; i++) {
+        Dc[i * n + i] = 1e-5; /* not read */
+        for (j = i + 1; j < n; j++, q++)
+            Dc[i * n + j] = Dc[j * n + i] = Du[q];
+    }
+    for (k = 0; k < KS; k++) {
+        c[k] = 40.0;
+        cell_put(n, KS, k, xs, Dc, gs, x, D, g);
+    }
+    for (i = 0; i < n * ND; i++)
+        if (fabs(je[i]) > big)
+            big = fabs(je[i]);
+    ck_assert_int_eq(mcd_workspace_new(n, &ws), MCD_OK);
+    ck_assert_msg(mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, n, NULL, D,
+                                     c,
+                                     &(mcd_cells){.n_cells = KS,
+                                                  .n_dim = ND,
+                                                  .comp_basis = MCD_BASIS_MOLE,
+                                                  .comp = x,
+                                                  .grad = g},
+                                     MCD_BASIS_MOLE, J) == MCD_OK,
+                  "%s", mcd_last_error());
+    for (k = 0; k < KS; k++)
+        assert_near_exact(n * ND, J + k, KS, je, big, "batched call", k);
+    ck_assert_int_eq(
+        mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, n, NULL, Dc, c,
+                           &(mcd_cells){.n_cells = 1,
+                                        .n_dim = ND,
+                                        .comp_basis = MCD_BASIS_MOLE,
+                                        .comp = xs,
+                                        .grad = gs},
+                           MCD_BASIS_MOLE, J1),
+        MCD_OK);
+    assert_near_exact(n * ND, J1, 1, je, big, "batched call on one cell", 0);
+    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
+                                      &(mcd_state){.n_species = n,
+                                                   .n_dim = ND,
+                                                   .comp_basis = MCD_BASIS_MOLE,
+                                                   .c = 40.0,
+                                                   .Dij = Dc,
+                                                   .comp = xs,
+                                                   .grad = gs},
+                                      MCD_BASIS_MOLE, J1),
+                     MCD_OK);
+    for (i = 0; i < n * ND; i++)
+        if (fabs(J1[i] - je[i]) / big > e1)
+            e1 = fabs(J1[i] - je[i]) / big;
+    printf("7 species, scarce ones tied by tiny Dij: single-state call "
+           "error %.2g (scaled form), not asserted\n",
+           e1);
+    mcd_workspace_free(ws);
+}
+END_TEST
+
 int main(void)
 {
     Suite *s = suite_create("ground");
@@ -699,6 +795,7 @@ int main(void)
     tcase_add_test(tc, grounded_blocks_match_an_extended_precision_solve);
     tcase_add_test(tc, block_forms_do_not_depend_on_the_pairing);
     tcase_add_test(tc, tightly_tied_scarce_species);
+    tcase_add_test(tc, tied_scarce_species_among_seven);
     tcase_add_test(tc, last_block_matches_full_blocks);
     suite_add_tcase(s, tc);
     return sup_run(s);
