@@ -996,15 +996,15 @@ typedef struct mcd_state {
  *  tests/test_edge_cases.c (Đ spread over up to 6 decades, N <= 100, trace
  *  species) the fluxes agree with an extended-precision solution to a
  *  normwise relative error below 1e-11 (measured about 1e-14). States of
- *  2 to 5 species without trace species (exact model) are solved in the
+ *  2 to 10 species without trace species (exact model) are solved in the
  *  grounded form, by an elimination without subtraction: on random
  *  states with Đ spread over 6 decades at most 8.2e-15 of the largest
  *  flux (32000 states a case, tests/test_ground.c), and scarce species
  *  tied to each other by a tiny Đ (1e-25 m^2/s, say) to 1e-13 of an exact
  *  solution. Other states take the scaled form, which reaches a few 1e-11
- *  on such random states (2.2e-11 at N = 6, 1.6e-11 at 8, measured) and can be far
- *  off on such tied states (1.8e-5 in one at N = 4 before 0.4.0; a known
- *  issue, DEVELOPERS.md). Mass fluxes are differences of the terms
+ *  on such random states (5.7e-11 at N = 8, measured) and can be far off
+ *  on such tied states (1.8e-5 in one at N = 4, 0.018 in one at N = 7,
+ *  before 0.4.0; a known issue, DEVELOPERS.md). Mass fluxes are differences of the terms
  *  M_i J_i; when the molar masses span so many decades that those terms
  *  cancel beyond double precision (fluxes that would not sum to zero), the
  *  call fails with EDOM instead (the molar fluxes remain available).
@@ -1418,9 +1418,8 @@ MCD_API mcd_status mcd_flux_diagnose(size_t n_species, size_t n_dim,
  * largest flux with Đ over 6 decades (the scaled form: 3.7e-11) and 6.5e-17
  * with scarce species tied by a tiny Đ (the scaled form: 1.8e-5);
  * tests/test_ground.c. A cell gets the same bits in a full block and in the
- * last, partial one. mcd_flux_compute solves such states of up to 5 species
- * in the grounded form too; from 6 species it takes the scaled form, so the
- * two calls can differ by as much as the scaled form's error there.
+ * last, partial one. mcd_flux_compute solves such states of up to 10
+ * species in the grounded form too.
  */
 
 /** How the per-cell arrays of a batched call are laid out in memory

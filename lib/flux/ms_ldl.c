@@ -6,9 +6,10 @@
  * solves (LAPACK above MCDI_MS_LAPACK_N species). States without trace
  * species and at most MCDI_MS_FUSED_N species take mcdi_ms_ldl, the same
  * equations and the same factor with the assembly fused (flux_core.h);
- * up to MCDI_MS_GTH_N species it first tries the grounded form
- * (fused_gth: elimination without subtraction, accurate however the Đ
- * spread), the scaled form deciding where that cannot run.
+ * up to MCDI_MS_GTH_ANY_N species it first tries the grounded form
+ * (fused_gth up to MCDI_MS_GTH_N species, fused_gth_any above:
+ * elimination without subtraction, accurate however the Đ spread), the
+ * scaled form deciding where that cannot run.
  *
  * Equations: see the top comment of maxwell_stefan.c. For the m species
  * present (x_k > 0), with s_k = sqrt(x_k) and R_kl = 1 / Đ_kl,
@@ -406,10 +407,11 @@ size_t RNAME(MCDI_KISA)(const mcdi_rows *R, const mcdi_dense *D,
  * zero-sum clean-up is the shift back to the molar-average frame (small:
  * x_g >= 1/m). Returns 0 (Y is scratch then) if a pivot is not a positive
  * finite number or a flux is not finite: the scaled form then decides. */
-/* Up to this many species (the batched kernel's grounded blocks go to
- * 5 too). Above, these plain loops ran far slower than the tuned L D L^T
- * of the scaled form (bench_single, 3 alternating runs: N = 3 0.94x the
- * time, 5 1.04x, 10 1.26x, 20 1.47x, 30 1.55x). */
+/* Up to this many species (the batched kernel's stage_ground_gth goes to
+ * 5 too; fused_gth_any, below, takes 6 to MCDI_MS_GTH_ANY_N). Above,
+ * these plain loops ran far slower than the tuned L D L^T of the scaled
+ * form (bench_single, 3 alternating runs: N = 3 0.94x the time, 5 1.04x,
+ * 10 1.26x, 20 1.47x, 30 1.55x). */
 #define MCDI_MS_GTH_N 5
 MINLINE int fused_gth(size_t m, const size_t nd, const double *xp,
                       const double *Dp, size_t ld, const double *dp, double c,
@@ -489,6 +491,145 @@ MINLINE int fused_gth(size_t m, const size_t nd, const double *xp,
     return chk == 0.0; /* NaN if some flux is not finite */
 }
 
+/* The grounded form from MCDI_MS_GTH_N + 1 to MCDI_MS_GTH_ANY_N species,
+ * as the batched kernel's stage_ground_any (lib/batched/kernel_ldl.h):
+ * the most abundant species g (the last one on ties) stays where it is,
+ * with a zero row and column of ties, its ties to the others in e, a zero
+ * right-hand side and a pivot taken as 1, so that its step eliminates
+ * nothing and u_g = 0; the other steps eliminate without subtraction,
+ * column by column (row k's multipliers l_kq = W_kq / p_q, then column k of
+ * the Schur complement, W_jk += sum_q W_jq l_kq, and the pivot p_k = e_k +
+ * sum_{j > k} W_jk). W in the lower triangle of A (m x m), e in e, the row
+ * sums in rs, the multipliers of a row in lk, 1/p in dinv; fluxes J_i = c
+ * (x_i u_i) into Y, J_g = 0 (the caller's clean-up is the shift back to
+ * the molar-average frame). Returns 0 (Y is scratch then) if a species is
+ * absent, a row sum breaks the range rule of fused_gth, a pivot is not a
+ * positive finite number or a flux is not finite: the scaled form then.
+ * Speed against the scaled form (bench_single, the AMD AVX-512 host,
+ * alternating runs): the call takes about 1.2x the time at N = 6 and
+ * 1.3x at 8 and 10 (185 -> 220, 240 -> 320, 330 -> 440 ns): the price of
+ * its accuracy there (5.7e-11 -> 2.5e-15 on random states, 0.018 ->
+ * 4.3e-16 on a tied one; tests/test_ground.c) and of agreeing with the
+ * batched call, which takes the same form. Not faster (measured level or
+ * slower): the pivot's sum or the dot products in several chains, the
+ * loops unrolled by four, the vectorised 1/Đ pass of fused_ldl in place
+ * of the divisions here, one helper for the two three-direction sums
+ * below (5-8 % slower: the back substitution then took the newest
+ * unknown first, and the forward one a multiply by 1). */
+#ifndef MCDI_MS_GTH_ANY_N
+#define MCDI_MS_GTH_ANY_N 10
+#endif
+MINLINE int fused_gth_any(size_t m, const size_t nd, const double *xp,
+                          const double *Dp, size_t ld, const double *dp,
+                          double c, double *A, double *e, double *rs,
+                          double *lk, double *dinv, double *Y)
+{
+    size_t g = 0, i, j, k, q, dd;
+    double chk = 0.0;
+    for (i = 0; i < m; i++) {
+        if (!(xp[i] > 0.0))
+            return 0;
+        if (xp[i] >= xp[g])
+            g = i;
+        e[i] = rs[i] = 0.0;
+    }
+    for (i = 1; i < m; i++) {
+        double *Ai = A + i * m;
+        for (j = 0; j < i; j++) {
+            /* x_j / Đ first: x_i x_j can underflow where w does not */
+            const double w = xp[i] * (xp[j] / Dp[j * ld + i]);
+            rs[i] += w;
+            rs[j] += w;
+            Ai[j] = w;
+        }
+    }
+    for (i = 0; i < m; i++)
+        if (!(rs[i] >= 0x1p-960 && rs[i] <= 0x1p960 * xp[i]))
+            return 0;
+    for (j = 0; j < g; j++) { /* g's ties into e, out of the matrix */
+        e[j] = A[g * m + j];
+        A[g * m + j] = 0.0;
+    }
+    for (i = g + 1; i < m; i++) {
+        e[i] = A[i * m + g];
+        A[i * m + g] = 0.0;
+    }
+    for (i = 0; i < m; i++)
+        for (dd = 0; dd < nd; dd++)
+            Y[i * nd + dd] = i == g ? 0.0 : -dp[i * nd + dd];
+    for (k = 0; k < m; k++) {
+        double *Ak = A + k * m, ek = e[k], p;
+        for (q = 0; q < k; q++) {
+            lk[q] = Ak[q] * dinv[q];
+            ek += lk[q] * e[q];
+        }
+        e[k] = ek;
+        if (nd == 3) { /* the three directions in registers */
+            double t0 = Y[3 * k], t1 = Y[3 * k + 1], t2 = Y[3 * k + 2];
+            for (q = 0; q < k; q++) {
+                const double l = lk[q];
+                t0 += l * Y[3 * q];
+                t1 += l * Y[3 * q + 1];
+                t2 += l * Y[3 * q + 2];
+            }
+            Y[3 * k] = t0;
+            Y[3 * k + 1] = t1;
+            Y[3 * k + 2] = t2;
+        } else {
+            for (dd = 0; dd < nd; dd++) {
+                double t = Y[k * nd + dd];
+                for (q = 0; q < k; q++)
+                    t += lk[q] * Y[q * nd + dd];
+                Y[k * nd + dd] = t;
+            }
+        }
+        p = ek;
+        for (j = k + 1; j < m; j++) {
+            double *Aj = A + j * m, t = Aj[k];
+            for (q = 0; q < k; q++)
+                t += Aj[q] * lk[q];
+            Aj[k] = t;
+            p += t;
+        }
+        for (q = 0; q < k; q++)
+            Ak[q] = lk[q]; /* row k of L now */
+        if (k == g)
+            p = 1.0;
+        if (!(p > 0.0 && p <= DBL_MAX))
+            return 0;
+        dinv[k] = 1.0 / p;
+    }
+    for (i = m; i-- > 0;) {
+        if (nd == 3) {
+            const double f = dinv[i];
+            double u0 = Y[3 * i] * f, u1 = Y[3 * i + 1] * f,
+                   u2 = Y[3 * i + 2] * f;
+            for (k = m - 1; k > i; k--) {
+                const double l = A[k * m + i];
+                u0 += l * Y[3 * k];
+                u1 += l * Y[3 * k + 1];
+                u2 += l * Y[3 * k + 2];
+            }
+            Y[3 * i] = u0;
+            Y[3 * i + 1] = u1;
+            Y[3 * i + 2] = u2;
+            continue;
+        }
+        for (dd = 0; dd < nd; dd++) {
+            double u = Y[i * nd + dd] * dinv[i];
+            for (k = m - 1; k > i; k--)
+                u += A[k * m + i] * Y[k * nd + dd];
+            Y[i * nd + dd] = u;
+        }
+    }
+    for (i = 0; i < m * nd; i++) {
+        const double q2 = c * (xp[i / nd] * Y[i]);
+        Y[i] = q2;
+        chk += q2 * 0.0;
+    }
+    return chk == 0.0; /* NaN if some flux is not finite */
+}
+
 /* The exact model for a state without trace species and at most
  * MCDI_MS_FUSED_N species (see maxwell_stefan.c): the Blanc sums, the
  * shift, the assembly and the right-hand side fused into a few passes
@@ -515,6 +656,9 @@ MINLINE size_t fused_ldl(size_t m, const size_t nd, const double *xp,
 
     if (m <= MCDI_MS_GTH_N &&
         fused_gth(m, nd, xp, Dp, ld, dp, c, A, S, dinv, Y))
+        return 0;
+    if (m > MCDI_MS_GTH_N && m <= MCDI_MS_GTH_ANY_N &&
+        fused_gth_any(m, nd, xp, Dp, ld, dp, c, A, S, sq, isq, dinv, Y))
         return 0;
     /* vectorised: at m = 10 the divider is the bottleneck of the assembly
      * (square roots, reciprocals); +8 % of this routine, measured */
