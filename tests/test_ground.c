@@ -168,16 +168,41 @@ static void batch_free(batch *s)
     free(s->J);
 }
 
+/* The two calls under test, mole fractions and mole fluxes in 3
+ * directions: the batched call on K cells in SoA (x[i * K + k], D[(i * n
+ * + j) * K + k], g[(i * ND + d) * K + k]; one cell in SoA is a state's
+ * own arrays) and the single-state call. */
+static mcd_status batch_call(mcd_workspace *ws, size_t n, size_t k,
+                             const double *x, const double *D, const double *g,
+                             const double *c, double *J)
+{
+    return mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, n, NULL, D, c,
+                              &(mcd_cells){.n_cells = k,
+                                           .n_dim = ND,
+                                           .comp_basis = MCD_BASIS_MOLE,
+                                           .comp = x,
+                                           .grad = g},
+                              MCD_BASIS_MOLE, J);
+}
+
+static mcd_status single_call(mcd_workspace *ws, size_t n, const double *x,
+                              const double *D, const double *g, double c,
+                              double *J)
+{
+    return mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
+                            &(mcd_state){.n_species = n,
+                                         .n_dim = ND,
+                                         .comp_basis = MCD_BASIS_MOLE,
+                                         .c = c,
+                                         .Dij = D,
+                                         .comp = x,
+                                         .grad = g},
+                            MCD_BASIS_MOLE, J);
+}
+
 static void batch_run(mcd_workspace *ws, size_t n, const batch *s)
 {
-    ck_assert_msg(mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, n, NULL,
-                                     s->D, s->c,
-                                     &(mcd_cells){.n_cells = K,
-                                                  .n_dim = ND,
-                                                  .comp_basis = MCD_BASIS_MOLE,
-                                                  .comp = s->x,
-                                                  .grad = s->g},
-                                     MCD_BASIS_MOLE, s->J) == MCD_OK,
+    ck_assert_msg(batch_call(ws, n, K, s->x, s->D, s->g, s->c, s->J) == MCD_OK,
                   "%s", mcd_last_error());
 }
 
@@ -227,16 +252,7 @@ static double single_error(mcd_workspace *ws, size_t n, const double *x,
 {
     double J[NMAX * ND], e = 0.0;
     size_t i;
-    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
-                                      &(mcd_state){.n_species = n,
-                                                   .n_dim = ND,
-                                                   .comp_basis = MCD_BASIS_MOLE,
-                                                   .c = c,
-                                                   .Dij = D,
-                                                   .comp = x,
-                                                   .grad = g},
-                                      MCD_BASIS_MOLE, J),
-                     MCD_OK);
+    ck_assert_int_eq(single_call(ws, n, x, D, g, c, J), MCD_OK);
     for (i = 0; i < n * ND; i++) {
         const double t = (double)fabsl(J[i] - Jr[i]) / big;
         if (t > e)
@@ -393,24 +409,8 @@ START_TEST(block_forms_do_not_depend_on_the_pairing)
             for (i = 0; i < n * ND; i++)
                 g2[i * KB + k] = g[i * KA + k + 8];
         }
-        ck_assert_int_eq(
-            mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, n, NULL, D, c,
-                               &(mcd_cells){.n_cells = KA,
-                                            .n_dim = ND,
-                                            .comp_basis = MCD_BASIS_MOLE,
-                                            .comp = x,
-                                            .grad = g},
-                               MCD_BASIS_MOLE, J),
-            MCD_OK);
-        ck_assert_int_eq(
-            mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, n, NULL, D2, c2,
-                               &(mcd_cells){.n_cells = KB,
-                                            .n_dim = ND,
-                                            .comp_basis = MCD_BASIS_MOLE,
-                                            .comp = x2,
-                                            .grad = g2},
-                               MCD_BASIS_MOLE, J2),
-            MCD_OK);
+        ck_assert_int_eq(batch_call(ws, n, KA, x, D, g, c, J), MCD_OK);
+        ck_assert_int_eq(batch_call(ws, n, KB, x2, D2, g2, c2, J2), MCD_OK);
         for (k = 0; k < KB; k++)
             for (j = 0; j < n * ND; j++)
                 ck_assert_msg(J2[j * KB + k] == J[j * KA + k + 8],
@@ -449,28 +449,12 @@ START_TEST(last_block_matches_full_blocks)
             c[k] = sup_range(&rng, 20.0, 60.0);
             cell_put(n, KF, k, xs, Dc, gc, x, D, g);
         }
-        ck_assert_int_eq(
-            mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, n, NULL, D, c,
-                               &(mcd_cells){.n_cells = KF,
-                                            .n_dim = ND,
-                                            .comp_basis = MCD_BASIS_MOLE,
-                                            .comp = x,
-                                            .grad = g},
-                               MCD_BASIS_MOLE, J),
-            MCD_OK);
+        ck_assert_int_eq(batch_call(ws, n, KF, x, D, g, c, J), MCD_OK);
         for (k = 0; k < KF; k++) {
             double xs[NMAX], Dc[NMAX * NMAX], gc[NMAX * ND], J1[NMAX * ND];
             cell_get(n, KF, k, x, D, g, xs, Dc, gc);
-            ck_assert_int_eq(
-                mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, n, NULL, Dc,
-                                   &c[k],
-                                   &(mcd_cells){.n_cells = 1,
-                                                .n_dim = ND,
-                                                .comp_basis = MCD_BASIS_MOLE,
-                                                .comp = xs,
-                                                .grad = gc},
-                                   MCD_BASIS_MOLE, J1),
-                MCD_OK);
+            ck_assert_int_eq(batch_call(ws, n, 1, xs, Dc, gc, &c[k], J1),
+                             MCD_OK);
             for (i = 0; i < n * ND; i++)
                 ck_assert_msg(J1[i] == J[i * KF + k],
                               "N = %zu, cell %zu row %zu: %.17g alone, %.17g "
@@ -605,15 +589,8 @@ START_TEST(tightly_tied_scarce_species)
         }
         cell_put(n, KS, k, xs, Dc, gc, x, D, g);
     }
-    ck_assert_msg(mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, n, NULL, D,
-                                     c,
-                                     &(mcd_cells){.n_cells = KS,
-                                                  .n_dim = ND,
-                                                  .comp_basis = MCD_BASIS_MOLE,
-                                                  .comp = x,
-                                                  .grad = g},
-                                     MCD_BASIS_MOLE, J) == MCD_OK,
-                  "%s", mcd_last_error());
+    ck_assert_msg(batch_call(ws, n, KS, x, D, g, c, J) == MCD_OK, "%s",
+                  mcd_last_error());
     for (k = 0; k < KS; k++) {
         double xs[n], Dc[n * n], gc[n * ND], big = 0.0, e = 0.0;
         long double Jr[n * ND];
@@ -637,30 +614,13 @@ START_TEST(tightly_tied_scarce_species)
             if (k % 8 == 0) { /* the single-state call on the same state */
                 double J1[n * ND];
                 cell_get(n, KS, k, x, D, g, xs, Dc, gc);
-                ck_assert_int_eq(
-                    mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
-                                     &(mcd_state){.n_species = n,
-                                                  .n_dim = ND,
-                                                  .comp_basis = MCD_BASIS_MOLE,
-                                                  .c = c[k],
-                                                  .Dij = Dc,
-                                                  .comp = xs,
-                                                  .grad = gc},
-                                     MCD_BASIS_MOLE, J1),
-                    MCD_OK);
+                ck_assert_int_eq(single_call(ws, n, xs, Dc, gc, c[k], J1),
+                                 MCD_OK);
                 assert_near_exact(n * ND, J1, 1, je, big, "single-state call",
                                   k / 8);
                 /* the batched call on this cell alone: a last, partial
                  * block (one cell in SoA is the state's own arrays) */
-                ck_assert_int_eq(mcd_flux_batch_dij(
-                                     ws, MCD_MODEL_MAXWELL_STEFAN, n, NULL, Dc,
-                                     &c[k],
-                                     &(mcd_cells){.n_cells = 1,
-                                                  .n_dim = ND,
-                                                  .comp_basis = MCD_BASIS_MOLE,
-                                                  .comp = xs,
-                                                  .grad = gc},
-                                     MCD_BASIS_MOLE, J1),
+                ck_assert_int_eq(batch_call(ws, n, 1, xs, Dc, gc, &c[k], J1),
                                  MCD_OK);
                 assert_near_exact(n * ND, J1, 1, je, big,
                                   "batched call on one cell", k / 8);
@@ -747,37 +707,13 @@ START_TEST(tied_scarce_species_among_seven)
         if (fabs(je[i]) > big)
             big = fabs(je[i]);
     ck_assert_int_eq(mcd_workspace_new(n, &ws), MCD_OK);
-    ck_assert_msg(mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, n, NULL, D,
-                                     c,
-                                     &(mcd_cells){.n_cells = KS,
-                                                  .n_dim = ND,
-                                                  .comp_basis = MCD_BASIS_MOLE,
-                                                  .comp = x,
-                                                  .grad = g},
-                                     MCD_BASIS_MOLE, J) == MCD_OK,
-                  "%s", mcd_last_error());
+    ck_assert_msg(batch_call(ws, n, KS, x, D, g, c, J) == MCD_OK, "%s",
+                  mcd_last_error());
     for (k = 0; k < KS; k++)
         assert_near_exact(n * ND, J + k, KS, je, big, "batched call", k);
-    ck_assert_int_eq(
-        mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, n, NULL, Dc, c,
-                           &(mcd_cells){.n_cells = 1,
-                                        .n_dim = ND,
-                                        .comp_basis = MCD_BASIS_MOLE,
-                                        .comp = xs,
-                                        .grad = gs},
-                           MCD_BASIS_MOLE, J1),
-        MCD_OK);
+    ck_assert_int_eq(batch_call(ws, n, 1, xs, Dc, gs, c, J1), MCD_OK);
     assert_near_exact(n * ND, J1, 1, je, big, "batched call on one cell", 0);
-    ck_assert_int_eq(mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
-                                      &(mcd_state){.n_species = n,
-                                                   .n_dim = ND,
-                                                   .comp_basis = MCD_BASIS_MOLE,
-                                                   .c = 40.0,
-                                                   .Dij = Dc,
-                                                   .comp = xs,
-                                                   .grad = gs},
-                                      MCD_BASIS_MOLE, J1),
-                     MCD_OK);
+    ck_assert_int_eq(single_call(ws, n, xs, Dc, gs, 40.0, J1), MCD_OK);
     assert_near_exact(n * ND, J1, 1, je, big, "single-state call", 0);
     mcd_workspace_free(ws);
 }
