@@ -1410,8 +1410,8 @@ MCD_API mcd_status mcd_flux_diagnose(size_t n_species, size_t n_dim,
  * to round-off, not bit for bit: with AVX-512 the kernel takes the square
  * roots of the mole fractions and the pivots' reciprocals from hardware
  * estimates refined by Newton steps (a few ulp), and blocks of 2 to 10
- * species without trace species (3 directions, molar or mass fluxes, the last
- * partial block too) solve the grounded system instead of the scaled N x N
+ * species without trace species (1, 2 or 3 directions, molar or mass fluxes,
+ * the last partial block too) solve the grounded system instead of the scaled N x N
  * one, by an elimination without subtraction (about 1e-14 of the largest flux
  * apart with Đ within 2 decades). The grounded form is the more accurate:
  * against extended-precision and exact solutions at most 8.5e-15 of the

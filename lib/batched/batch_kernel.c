@@ -36,7 +36,9 @@
  * elimination without subtraction (Grassmann, Taksar and Heyman), no square
  * roots; a block with a trace species takes the scaled form. From 6 to
  * 10 species the same, with n unknowns and the grounded species of each
- * lane left where it lies (stage_ground_any).
+ * lane left where it lies (stage_ground_any). With n_dim 1 or 2
+ * (block_nn_dd, n known at run time) blocks of 2 to 10 species take
+ * stage_ground_any, one block at a time (pairs are for n_dim 3).
  *
  * Factorisation (exact model): LDL^T without pivoting and without square
  * roots, left-looking, packed lower triangle, vectorised across the L
@@ -393,8 +395,10 @@ KINLINE size_t run_blocks(const mcdi_bjob *jb, size_t kb, size_t ke,
 {
     double err = 0.0;
     size_t used = 0, k0 = kb;
-    if (L == MCDI_VLANES && n >= 2 && n <= MCDI_PAIR_NMAX && jb->mix == NULL &&
-        jb->model == MCD_MODEL_MAXWELL_STEFAN &&
+    /* pairs: n_dim 3 only (the other n_dim take the grounded form in
+     * body(), which body2 solves for n_dim 3 only) */
+    if (L == MCDI_VLANES && nd == 3 && n >= 2 && n <= MCDI_PAIR_NMAX &&
+        jb->mix == NULL && jb->model == MCD_MODEL_MAXWELL_STEFAN &&
         jb->flux_basis == MCD_BASIS_MOLE && jb->cut == 0)
         for (; k0 + 2 * L <= ke; k0 += 2 * L) {
             mcdi_bres r = {MCD_OK, 0, "", 0, 0.0, 0};

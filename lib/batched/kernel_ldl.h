@@ -269,7 +269,8 @@ KINLINE int stage_exact(const mcdi_kblock *b, const size_t n, const size_t L,
 }
 
 /* The grounded form, for blocks of the exact model (Đ per cell or a
- * mixture), n_dim = 3 and 2 <= n <= MCDI_GROUND_NMAX, where every species
+ * mixture), n_dim = 3 and 2 <= n <= MCDI_GROUND_NMAX (n_dim 1 and 2:
+ * stage_ground_any, below), where every species
  * is present in every lane. With u_i = J_i / (c x_i) the Maxwell-Stefan
  * equations are the graph Laplacian system
  *     sum_j x_i x_j (u_j - u_i) / Đ_ij = d_i,
@@ -614,7 +615,7 @@ KINLINE int stage_ground_any(const mcdi_kblock *b, const size_t n,
     /* u_i = f_i / p_i + sum_{k > i} l_ki u_k (row k of W holds l_kq) */
     LDL_UNROLL
     for (i = n; i-- > 0;) {
-        mcdi_vd t[3];
+        mcdi_vd t[3] = {zero, zero, zero}; /* nd <= 3 */
         LDL_UNROLL
         for (dd = 0; dd < nd; dd++)
             t[dd] = f[i * nd + dd] * ip[i];
@@ -641,20 +642,38 @@ KINLINE int stage_ground_any(const mcdi_kblock *b, const size_t n,
  * at 10, but 0.89x at 12 and 16 (its matrix no longer fits the
  * registers), hence 10. Its loops with n known only at run time, or with
  * the matrix in tri, ran 2-2.5x the time of the scaled form's stages at N
- * = 10 (66-77 against 28 ns a cell, bench_stages). Returns -1 (nothing
- * done) where no instance covers n and n_dim: the scaled form then. */
+ * = 10 (66-77 against 28 ns a cell, bench_stages). With n_dim 1 or 2
+ * (n_dim known at run time there, block_nn_dd) from 2 species: the form
+ * then agrees with mcd_flux_compute's at every n_dim (tests/test_ground.c,
+ * fewer_directions_take_the_grounded_form_too), and ran 1.02-1.31x
+ * faster than the scaled form (N = 3 to 10, in cache); it added 20-28 s
+ * to each kernel's compile. Returns -1 (nothing done) where no instance
+ * covers n and n_dim: the scaled form then. */
 KINLINE int ground_fixed(const mcdi_kblock *b, const size_t n, const size_t nd)
 {
-#define GROUND_CASE(nn)                                                        \
-    case nn: return stage_ground_any(b, nn, 3);
+#define GROUND_CASE(nn, ndd)                                                   \
+    case nn: return stage_ground_any(b, nn, ndd);
     _Static_assert(GROUND_ANY_MAX == 10, "the cases below go to 10");
     if (nd == 3)
         switch (n) {
-            GROUND_CASE(6)
-            GROUND_CASE(7)
-            GROUND_CASE(8)
-            GROUND_CASE(9)
-            GROUND_CASE(10)
+            GROUND_CASE(6, 3)
+            GROUND_CASE(7, 3)
+            GROUND_CASE(8, 3)
+            GROUND_CASE(9, 3)
+            GROUND_CASE(10, 3)
+        default: break;
+        }
+    else /* n_dim 1 and 2 (block_nn_dd): from 2 species */
+        switch (n) {
+            GROUND_CASE(2, nd)
+            GROUND_CASE(3, nd)
+            GROUND_CASE(4, nd)
+            GROUND_CASE(5, nd)
+            GROUND_CASE(6, nd)
+            GROUND_CASE(7, nd)
+            GROUND_CASE(8, nd)
+            GROUND_CASE(9, nd)
+            GROUND_CASE(10, nd)
         default: break;
         }
 #undef GROUND_CASE
