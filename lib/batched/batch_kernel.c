@@ -149,15 +149,16 @@ static void report_bad_cell(mcdi_bres *res)
  * anything is stored (the scaled form then). */
 KINLINE int ground_out(const mcdi_bjob *jb, const mcdi_kblock *b, size_t k0,
                        size_t nv, mcdi_bres *res, const size_t n,
-                       const size_t L, const size_t nd, double *nts)
+                       const size_t L, const size_t nd, double *nts,
+                       const int ntr)
 {
     const int mass_out = jb->flux_basis == MCD_BASIS_MASS;
     if (nv == L && !mass_out)
         return emit_mole_v(n, nd, (const mcdi_vd *)b->x, (const mcdi_vd *)b->x,
-                           (const mcdi_vd *)b->r, (const mcdi_vd *)b->t, 0,
+                           (const mcdi_vd *)b->r, (const mcdi_vd *)b->t, ntr,
                            *(const mcdi_vd *)b->c, (mcdi_vd *)b->J, jb, k0,
                            nts);
-    if (!stage_ground_fluxes(b, n, nd))
+    if (!stage_ground_fluxes(b, n, nd, ntr))
         return 0;
     if (!mass_out || stage_mass(jb, b, nv, res, n, L, nd))
         stage_store(jb, b, k0, nv, res, n, L, nd);
@@ -236,18 +237,18 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
         CUT(7);
         CUT(8);
         CUT(9);
-        if (ok && ground_out(jb, &b, k0, nv, res, n, L, nd, nts))
+        if (ok && ground_out(jb, &b, k0, nv, res, n, L, nd, nts, 0))
             return;
     } else if (L == MCDI_VLANES && model == MCD_MODEL_MAXWELL_STEFAN) {
         /* the same from 6 to 10 species (kernel_ldl.h, ground_fixed:
          * -1 where it does not run) */
         int got;
         CUT(6);
-        got = ground_fixed(&b, n, nd);
+        got = ground_fixed(&b, n, nd, 0);
         CUT(7);
         CUT(8);
         CUT(9);
-        if (got > 0 && ground_out(jb, &b, k0, nv, res, n, L, nd, nts))
+        if (got > 0 && ground_out(jb, &b, k0, nv, res, n, L, nd, nts, 0))
             return;
     }
     stage_blanc(jb, &b, pl, n, L);
@@ -258,6 +259,16 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
     } else {
         int wkr, ntr;
         ntr = stage_trace(jb, &b, pl, n, L, nd, &wkr);
+        if (ntr && n >= MCDI_MS_GTH_TRACE_N && L == MCDI_VLANES &&
+            model == MCD_MODEL_MAXWELL_STEFAN) {
+            /* trace species: their fluxes (t) and their coupling to the
+             * others (in d) as the scaled form has them; the species
+             * present in the grounded form (ground_fixed, 2 to 10
+             * species), else the scaled form from here */
+            const int got = ground_fixed(&b, n, nd, 1);
+            if (got > 0 && ground_out(jb, &b, k0, nv, res, n, L, nd, nts, 1))
+                return;
+        }
         CUT(7);
         stage_rhs(&b, n, L, nd, wkr);
         CUT(8);
@@ -344,8 +355,9 @@ KINLINE int body2(const mcdi_bjob *jb, size_t k0, double *mem, const size_t n,
         if (gp2 != 0)
             ok2 = gp2 == 1 ? stage_ground_gth(&b2, n, nd, kg2, 0)
                            : stage_ground_gth(&b2, n, nd, kg2, 1);
-        if (ok1 != ok2)
-            return 5; /* one of each: body() on each, as alone */
+        if (ok1 != ok2 || (n >= MCDI_MS_GTH_TRACE_N && (gp1 == 0 || gp2 == 0)))
+            return 5; /* one of each, or trace species (their grounded form
+                       * is body()'s): body() on each, as alone */
         if (ok1) {
             if (!emit_mole_v(n, nd, (const mcdi_vd *)b1.x,
                              (const mcdi_vd *)b1.x, (const mcdi_vd *)b1.r,

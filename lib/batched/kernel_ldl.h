@@ -507,12 +507,16 @@ KINLINE int stage_ground_gth(const mcdi_kblock *b, const size_t n,
  * order, with the updates gathered column by column (below). n <=
  * GROUND_ANY_MAX and n_dim <= 3, constants at each call (ground_fixed): the
  * matrix and the vectors are locals. Reads x, d and 1/Đ (tri, left as it is)
- * and writes u to r. Returns 0 (the scaled form then) if some lane has a
- * trace species, breaks the range rule of stage_ground_gth or has a pivot
- * that is not > 0. */
+ * and writes u to r. With wt, trace species (x_i = 0) are taken after
+ * stage_blanc and stage_trace: their fluxes in t and their coupling in d
+ * (the scaled form's own), their rows as g's (pivot 1, right-hand side 0,
+ * u_i = 0), their Blanc sums S_i under the range rule; ground_out then
+ * composes with t. Returns 0 (the scaled form then) if some lane has a
+ * trace species (without wt), breaks the range rule of stage_ground_gth
+ * or has a pivot that is not > 0. */
 #define GROUND_ANY_MAX 10
 KINLINE int stage_ground_any(const mcdi_kblock *b, const size_t n,
-                             const size_t nd)
+                             const size_t nd, const int wt)
 {
     const mcdi_vd *restrict tri = (const mcdi_vd *)(const void *)b->tri;
     const mcdi_vd *restrict x = (const mcdi_vd *)(const void *)b->x;
@@ -524,7 +528,8 @@ KINLINE int stage_ground_any(const mcdi_kblock *b, const size_t n,
         rsum[GROUND_ANY_MAX], ip[GROUND_ANY_MAX], lk[GROUND_ANY_MAX],
         f[GROUND_ANY_MAX * 3];
     mcdi_vd best = x[0], gv = zero; /* g of each lane, as a double */
-    mcdi_vl gm[GROUND_ANY_MAX], trace = ~(x[0] > zero), ok = zero == zero;
+    mcdi_vl gm[GROUND_ANY_MAX], tm[GROUND_ANY_MAX], trace = ~(x[0] > zero),
+                                                    ok = zero == zero;
     size_t i, j, k, q, dd;
     LDL_UNROLL
     for (i = 1; i < n; i++) {
@@ -533,11 +538,16 @@ KINLINE int stage_ground_any(const mcdi_kblock *b, const size_t n,
         best = max_v(x[i], best);
         gv = pick_v(ge, zero + (double)i, gv);
     }
-    if (any_lane_v(trace))
+    if (!wt && any_lane_v(trace))
         return 0;
     LDL_UNROLL
     for (i = 0; i < n; i++) {
         gm[i] = gv == (double)i;
+        /* with wt: trace species as g, a pivot 1 and a zero right-hand
+         * side (u_i = 0); their fluxes are in t */
+        tm[i] = gm[i];
+        if (wt)
+            tm[i] |= ~(x[i] > zero);
         rsum[i] = e[i] = zero;
     }
     /* the ties w_ij = x_i (x_j / Đ_ij) (x_j / Đ first: x_i x_j can
@@ -556,16 +566,23 @@ KINLINE int stage_ground_any(const mcdi_kblock *b, const size_t n,
         }
     }
     LDL_UNROLL
-    for (i = 0; i < n; i++)
-        ok &= (rsum[i] >= MCDI_GROUND_AMIN) &
-              (rsum[i] <= MCDI_GROUND_SMAX * x[i]);
+    for (i = 0; i < n; i++) {
+        mcdi_vl good = (rsum[i] >= MCDI_GROUND_AMIN) &
+                       (rsum[i] <= MCDI_GROUND_SMAX * x[i]);
+        if (wt) { /* a trace species: its Blanc sum S_i in the range */
+            const mcdi_vd Si = ((const mcdi_vd *)(const void *)b->S)[i];
+            good |= ~(x[i] > zero) & (Si >= MCDI_GROUND_AMIN) &
+                    (Si <= MCDI_GROUND_SMAX);
+        }
+        ok &= good;
+    }
     if (any_lane_v(~ok))
         return 0;
     LDL_UNROLL
     for (i = 0; i < n; i++) {
         LDL_UNROLL
         for (dd = 0; dd < nd; dd++)
-            f[i * nd + dd] = pick_v(gm[i], zero, -d[i * nd + dd]);
+            f[i * nd + dd] = pick_v(tm[i], zero, -d[i * nd + dd]);
     }
     /* column by column (left-looking): at step k, row k's multipliers
      * l_kq = W_kq / p_q (q < k, into lk), then e_k, f_k and column k of
@@ -606,7 +623,7 @@ KINLINE int stage_ground_any(const mcdi_kblock *b, const size_t n,
         LDL_UNROLL
         for (q = 0; q < k; q++)
             W[k * (k + 1) / 2 + q] = lk[q]; /* row k of L now */
-        p = pick_v(gm[k], one, p);
+        p = pick_v(tm[k], one, p);
         ok &= p > zero;
         ip[k] = 1.0 / p;
     }
@@ -646,16 +663,29 @@ KINLINE int stage_ground_any(const mcdi_kblock *b, const size_t n,
  * (n_dim known at run time there, block_nn_dd) from 2 species: the form
  * then agrees with mcd_flux_compute's at every n_dim (tests/test_ground.c,
  * fewer_directions_take_the_grounded_form_too), and ran 1.02-1.31x
- * faster than the scaled form (N = 3 to 10, in cache); it added 20-28 s
- * to each kernel's compile. Returns -1 (nothing done) where no instance
- * covers n and n_dim: the scaled form then. */
-KINLINE int ground_fixed(const mcdi_kblock *b, const size_t n, const size_t nd)
+ * faster than the scaled form (N = 3 to 10, in cache). With wt (a run
+ * time flag), blocks with trace species (stage_ground_any), from 4
+ * species (MCDI_MS_GTH_TRACE_N). One out-of-line function per kernel
+ * (noinline, noclone), so that each case is compiled once, not at every
+ * call site of every block instance: inlined there, the cases took the
+ * kernel's compile from 44-90 s to 95-158 s (v1 to v4). Returns -1
+ * (nothing done) where no instance covers n and n_dim: the scaled form
+ * then. */
+#if defined(__GNUC__) && !defined(__clang__)
+#define GROUND_CALL static __attribute__((noinline, noclone))
+#else
+#define GROUND_CALL static __attribute__((noinline))
+#endif
+GROUND_CALL int ground_fixed(const mcdi_kblock *b, const size_t n,
+                             const size_t nd, const int wt)
 {
 #define GROUND_CASE(nn, ndd)                                                   \
-    case nn: return stage_ground_any(b, nn, ndd);
+    case nn: return stage_ground_any(b, nn, ndd, wt);
     _Static_assert(GROUND_ANY_MAX == 10, "the cases below go to 10");
     if (nd == 3)
         switch (n) {
+            GROUND_CASE(4, 3) /* 4 and 5: blocks with trace species */
+            GROUND_CASE(5, 3)
             GROUND_CASE(6, 3)
             GROUND_CASE(7, 3)
             GROUND_CASE(8, 3)
@@ -663,7 +693,7 @@ KINLINE int ground_fixed(const mcdi_kblock *b, const size_t n, const size_t nd)
             GROUND_CASE(10, 3)
         default: break;
         }
-    else /* n_dim 1 and 2 (block_nn_dd): from 2 species */
+    else /* n_dim 1 and 2: from 2 species */
         switch (n) {
             GROUND_CASE(2, nd)
             GROUND_CASE(3, nd)
@@ -687,11 +717,12 @@ KINLINE int ground_fixed(const mcdi_kblock *b, const size_t n, const size_t nd)
  * cell gets the same fluxes in a full block and in the last one. Returns 0
  * if some flux is not finite (the scaled form then, as after the emit). */
 KINLINE int stage_ground_fluxes(const mcdi_kblock *b, const size_t n,
-                                const size_t nd)
+                                const size_t nd, const int ntr)
 {
     const mcdi_vd *x = (const mcdi_vd *)(const void *)b->x;
     return compose_clean_v(n, nd, x, x, (const mcdi_vd *)(const void *)b->r,
-                           NULL, 0, *(const mcdi_vd *)(const void *)b->c,
+                           (const mcdi_vd *)(const void *)b->t, ntr,
+                           *(const mcdi_vd *)(const void *)b->c,
                            (mcdi_vd *)(void *)b->J);
 }
 
