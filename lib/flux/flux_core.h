@@ -85,8 +85,9 @@ mcdi_ms_rows_fn mcdi_ms_rows_select(void);
  * and from how many species it takes states with trace species: with 2
  * or 3 species (one or two present) the scaled form is as accurate there
  * (5.7e-16 against the long double solve with Đ over 6 decades, measured)
- * and faster (N = 3: 107 against 133 ns a state, 12.1 against 17.5 ns a
- * cell batched). The batched kernel uses the same bound. */
+ * and faster (N = 3, the single-state call: 107 against 133 ns a state).
+ * The batched kernel uses the same bound (there it also keeps such blocks
+ * on the two-block path, body2). */
 #define MCDI_MS_GTH_ANY_N 10
 #define MCDI_MS_GTH_TRACE_N 4
 #define MCDI_MS_LDL_DECL(name)                                                 \
