@@ -996,9 +996,8 @@ typedef struct mcd_state {
  *  tests/test_edge_cases.c (Đ spread over up to 6 decades, N <= 100, trace
  *  species) the fluxes agree with an extended-precision solution to a
  *  normwise relative error below 1e-11 (measured about 1e-14). States of
- *  2 to 10 species without trace species, and of 4 to 10 with some (exact
- *  model), are solved in the grounded form, by an elimination without
- *  subtraction: on random
+ *  2 to 10 species without trace species (exact model) are solved in the
+ *  grounded form, by an elimination without subtraction: on random
  *  states with Đ spread over 6 decades at most 8.2e-15 of the largest
  *  flux (32000 states a case, tests/test_ground.c), and scarce species
  *  tied to each other by a tiny Đ (1e-25 m^2/s, say) to 1e-13 of an exact
@@ -1411,9 +1410,8 @@ MCD_API mcd_status mcd_flux_diagnose(size_t n_species, size_t n_dim,
  * to round-off, not bit for bit: with AVX-512 the kernel takes the square
  * roots of the mole fractions and the pivots' reciprocals from hardware
  * estimates refined by Newton steps (a few ulp), and blocks of 2 to 10
- * species without trace species, or of 4 to 10 with some (1, 2 or 3
- * directions, molar or mass fluxes, the last partial block too), solve the
- * grounded system instead of the scaled N x N
+ * species without trace species (3 directions, molar or mass fluxes, the last
+ * partial block too) solve the grounded system instead of the scaled N x N
  * one, by an elimination without subtraction (about 1e-14 of the largest flux
  * apart with Đ within 2 decades). The grounded form is the more accurate:
  * against extended-precision and exact solutions at most 8.5e-15 of the

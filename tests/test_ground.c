@@ -169,49 +169,35 @@ static void batch_free(batch *s)
 }
 
 /* The two calls under test, mole fractions and mole fluxes in 3
- * directions (the _nd forms: in nd): the batched call on K cells in SoA
- * (x[i * K + k], D[(i * n + j) * K + k], g[(i * nd + d) * K + k]; one
- * cell in SoA is a state's own arrays) and the single-state call. */
-static mcd_status batch_call_nd(mcd_workspace *ws, size_t n, size_t nd,
-                                size_t k, const double *x, const double *D,
-                                const double *g, const double *c, double *J)
+ * directions: the batched call on K cells in SoA (x[i * K + k], D[(i * n
+ * + j) * K + k], g[(i * ND + d) * K + k]; one cell in SoA is a state's
+ * own arrays) and the single-state call. */
+static mcd_status batch_call(mcd_workspace *ws, size_t n, size_t k,
+                             const double *x, const double *D, const double *g,
+                             const double *c, double *J)
 {
     return mcd_flux_batch_dij(ws, MCD_MODEL_MAXWELL_STEFAN, n, NULL, D, c,
                               &(mcd_cells){.n_cells = k,
-                                           .n_dim = nd,
+                                           .n_dim = ND,
                                            .comp_basis = MCD_BASIS_MOLE,
                                            .comp = x,
                                            .grad = g},
                               MCD_BASIS_MOLE, J);
 }
 
-static mcd_status single_call_nd(mcd_workspace *ws, size_t n, size_t nd,
-                                 const double *x, const double *D,
-                                 const double *g, double c, double *J)
+static mcd_status single_call(mcd_workspace *ws, size_t n, const double *x,
+                              const double *D, const double *g, double c,
+                              double *J)
 {
     return mcd_flux_compute(ws, MCD_MODEL_MAXWELL_STEFAN,
                             &(mcd_state){.n_species = n,
-                                         .n_dim = nd,
+                                         .n_dim = ND,
                                          .comp_basis = MCD_BASIS_MOLE,
                                          .c = c,
                                          .Dij = D,
                                          .comp = x,
                                          .grad = g},
                             MCD_BASIS_MOLE, J);
-}
-
-static mcd_status batch_call(mcd_workspace *ws, size_t n, size_t k,
-                             const double *x, const double *D, const double *g,
-                             const double *c, double *J)
-{
-    return batch_call_nd(ws, n, ND, k, x, D, g, c, J);
-}
-
-static mcd_status single_call(mcd_workspace *ws, size_t n, const double *x,
-                              const double *D, const double *g, double c,
-                              double *J)
-{
-    return single_call_nd(ws, n, ND, x, D, g, c, J);
 }
 
 static void batch_run(mcd_workspace *ws, size_t n, const batch *s)
@@ -233,44 +219,30 @@ static int extended_precision(void)
 
 /* Cell k of SoA arrays at stride ks (x: n rows, D: n^2, g: n ND) from
  * one state, and back. */
-static void cell_put_nd(size_t n, size_t nd, size_t ks, size_t k,
-                        const double *xs, const double *Dc, const double *gc,
-                        double *x, double *D, double *g)
+static void cell_put(size_t n, size_t ks, size_t k, const double *xs,
+                     const double *Dc, const double *gc, double *x, double *D,
+                     double *g)
 {
     size_t i;
     for (i = 0; i < n; i++)
         x[i * ks + k] = xs[i];
     for (i = 0; i < n * n; i++)
         D[i * ks + k] = Dc[i];
-    for (i = 0; i < n * nd; i++)
+    for (i = 0; i < n * ND; i++)
         g[i * ks + k] = gc[i];
-}
-
-static void cell_put(size_t n, size_t ks, size_t k, const double *xs,
-                     const double *Dc, const double *gc, double *x, double *D,
-                     double *g)
-{
-    cell_put_nd(n, ND, ks, k, xs, Dc, gc, x, D, g);
-}
-
-static void cell_get_nd(size_t n, size_t nd, size_t ks, size_t k,
-                        const double *x, const double *D, const double *g,
-                        double *xs, double *Dc, double *gc)
-{
-    size_t i;
-    for (i = 0; i < n; i++)
-        xs[i] = x[i * ks + k];
-    for (i = 0; i < n * n; i++)
-        Dc[i] = D[i * ks + k];
-    for (i = 0; i < n * nd; i++)
-        gc[i] = g[i * ks + k];
 }
 
 static void cell_get(size_t n, size_t ks, size_t k, const double *x,
                      const double *D, const double *g, double *xs, double *Dc,
                      double *gc)
 {
-    cell_get_nd(n, ND, ks, k, x, D, g, xs, Dc, gc);
+    size_t i;
+    for (i = 0; i < n; i++)
+        xs[i] = x[i * ks + k];
+    for (i = 0; i < n * n; i++)
+        Dc[i] = D[i * ks + k];
+    for (i = 0; i < n * ND; i++)
+        gc[i] = g[i * ks + k];
 }
 
 /* The single-state call's error on one cell against the reference. */
@@ -289,39 +261,10 @@ static double single_error(mcd_workspace *ws, size_t n, const double *x,
     return e;
 }
 
-/* A random state: x over xdec decades, Đ over ddec decades about 1e-5
- * m^2/s, gradients in [-50, 50] with every direction summing to zero
- * exactly (the last species' gradients: minus the others' sum), c in [20,
- * 60] mol/m^3. */
-static void random_state(size_t n, double xdec, double ddec, double *x,
-                         double *D, double *g, double *c)
-{
-    double sum = 0.0;
-    size_t i, j, q;
-    for (i = 0; i < n; i++)
-        sum += x[i] = pow(10.0, -xdec * sup_u01(&rng));
-    for (i = 0; i < n; i++)
-        x[i] /= sum;
-    for (i = 0; i < n; i++)
-        for (j = i + 1; j < n; j++)
-            D[i * n + j] = D[j * n + i] =
-                1e-5 * pow(10.0, ddec * (sup_u01(&rng) - 0.5));
-    for (i = 0; i < n; i++)
-        D[i * n + i] = 1e-5;
-    sup_gradients_zero_mean(&rng, n, ND, -50.0, 50.0, g);
-    for (q = 0; q < ND; q++) {
-        double t = 0.0;
-        for (i = 0; i + 1 < n; i++)
-            t += g[i * ND + q];
-        g[(n - 1) * ND + q] = -t;
-    }
-    *c = sup_range(&rng, 20.0, 60.0);
-}
-
 START_TEST(grounded_blocks_match_an_extended_precision_solve)
 {
     const double xdec[] = {0.0, 4.0, 12.0}, ddec[] = {2.0, 6.0};
-    size_t n, a, b, i, k;
+    size_t n, a, b, i, j, k, q;
     const char *env = getenv("MCD_GROUND_CELLS");
     const int check = extended_precision();
     if (!check)
@@ -339,8 +282,28 @@ START_TEST(grounded_blocks_match_an_extended_precision_solve)
             for (b = 0; b < 2; b++) {
                 double worst = 0.0, worst1 = 0.0;
                 for (k = 0; k < K; k++) {
-                    double x[NMAX], D[NMAX * NMAX], g[NMAX * ND];
-                    random_state(n, xdec[a], ddec[b], x, D, g, &s.c[k]);
+                    double sum = 0.0, x[NMAX], D[NMAX * NMAX], g[NMAX * ND];
+                    for (i = 0; i < n; i++)
+                        sum += x[i] = pow(10.0, -xdec[a] * sup_u01(&rng));
+                    for (i = 0; i < n; i++)
+                        x[i] /= sum;
+                    for (i = 0; i < n; i++)
+                        for (j = i + 1; j < n; j++)
+                            D[i * n + j] = D[j * n + i] =
+                                1e-5 *
+                                pow(10.0, ddec[b] * (sup_u01(&rng) - 0.5));
+                    for (i = 0; i < n; i++)
+                        D[i * n + i] = 1e-5;
+                    sup_gradients_zero_mean(&rng, n, ND, -50.0, 50.0, g);
+                    /* the last species' gradients: minus the others' sum,
+                     * so that every direction sums to zero exactly */
+                    for (q = 0; q < ND; q++) {
+                        double t = 0.0;
+                        for (i = 0; i + 1 < n; i++)
+                            t += g[i * ND + q];
+                        g[(n - 1) * ND + q] = -t;
+                    }
+                    s.c[k] = sup_range(&rng, 20.0, 60.0);
                     cell_put(n, K, k, x, D, g, s.x, s.D, s.g);
                 }
                 batch_run(ws, n, &s);
@@ -689,44 +652,6 @@ START_TEST(tightly_tied_scarce_species)
 }
 END_TEST
 
-/* The seven-species tied state of tied_scarce_species_among_seven (below)
- * and its exact fluxes; the test of n_dim 1 and 2 uses them too. */
-enum { N7 = 7 };
-static const double x7[N7] = {
-    1.3e-06, 1.7e-06, 1.4e-09, 0.3, 0.25, 0.2, 0.24999699860000013,
-};
-/* the upper triangle of Đ [m^2/s], row by row */
-static const double Du7[N7 * (N7 - 1) / 2] = {
-    3e-06,   2.2e-25, 4.1e-06, 7e-06,   2.5e-05, 1.1e-05, 1.3e-25,
-    9e-06,   1.6e-05, 2e-05,   8e-06,   1.2e-05, 3.3e-05, 4.4e-06,
-    5.5e-06, 1.8e-05, 2.2e-05, 7.7e-06, 6.6e-06, 1.5e-05, 1.9e-05,
-};
-static const double g7[N7 * ND] = {
-    10,  -20, 30, 5, 7, -9, -4, 11,  2,  25, 2,
-    -23, -6,  3,  8, 1, -2, -5, -31, -1, -3,
-};
-/* the exact fluxes [mol/(m^2 s)] at c = 40 mol/m^3 */
-static const double je7[N7 * ND] = {
-    -0.0017073544394293476,  0.00031042559003984546, -0.003569897799966877,
-    -0.002232694266912724,   0.0004059411560210618,  -0.00466832789204767,
-    -1.8386893962811744e-06, 3.3430448145332173e-07, -3.84450532292252e-06,
-    -0.011993466246067378,   -0.0006747436682466711, 0.009476268667108066,
-    0.003188238188329993,    -0.0012054600328543412, -0.004732652588467254,
-    0.0006076193481735802,   0.0007465794509554335,  0.0013848898342884023,
-    0.012139496105302157,    0.00041692319960321837, 0.002113564284408255,
-};
-
-/* Its Đ as a full N7 x N7 matrix (the diagonal is not read). */
-static void tied7_dij(double *Dc)
-{
-    size_t i, j, q = 0;
-    for (i = 0; i < N7; i++) {
-        Dc[i * N7 + i] = 1e-5;
-        for (j = i + 1; j < N7; j++, q++)
-            Dc[i * N7 + j] = Dc[j * N7 + i] = Du7[q];
-    }
-}
-
 /* Scarce species tied to each other by a tiny Đ among 7 species: the
  * grounded form of 6 to 10 species (kernel_ldl.h, stage_ground_any). x of
  * 1.3e-6, 1.7e-6 and 1.4e-9 with Đ of 2.2e-25 and 1.3e-25 between the
@@ -741,13 +666,39 @@ static void tied7_dij(double *Dc)
  * call 0.018 (before fused_gth_any, lib/flux/ms_ldl.c). */
 START_TEST(tied_scarce_species_among_seven)
 {
-    enum { n = N7, KS = 8 };
-    const double *xs = x7, *gs = g7, *je = je7;
+    enum { n = 7, KS = 8 };
+    static const double xs[n] = {
+        1.3e-06, 1.7e-06, 1.4e-09, 0.3, 0.25, 0.2, 0.24999699860000013,
+    };
+    /* the upper triangle of Đ [m^2/s], row by row */
+    static const double Du[n * (n - 1) / 2] = {
+        3e-06,   2.2e-25, 4.1e-06, 7e-06,   2.5e-05, 1.1e-05, 1.3e-25,
+        9e-06,   1.6e-05, 2e-05,   8e-06,   1.2e-05, 3.3e-05, 4.4e-06,
+        5.5e-06, 1.8e-05, 2.2e-05, 7.7e-06, 6.6e-06, 1.5e-05, 1.9e-05,
+    };
+    static const double gs[n * ND] = {
+        10,  -20, 30, 5, 7, -9, -4, 11,  2,  25, 2,
+        -23, -6,  3,  8, 1, -2, -5, -31, -1, -3,
+    };
+    /* the exact fluxes [mol/(m^2 s)] at c = 40 mol/m^3 */
+    static const double je[n * ND] = {
+        -0.0017073544394293476,  0.00031042559003984546, -0.003569897799966877,
+        -0.002232694266912724,   0.0004059411560210618,  -0.00466832789204767,
+        -1.8386893962811744e-06, 3.3430448145332173e-07, -3.84450532292252e-06,
+        -0.011993466246067378,   -0.0006747436682466711, 0.009476268667108066,
+        0.003188238188329993,    -0.0012054600328543412, -0.004732652588467254,
+        0.0006076193481735802,   0.0007465794509554335,  0.0013848898342884023,
+        0.012139496105302157,    0.00041692319960321837, 0.002113564284408255,
+    };
     double Dc[n * n], x[n * KS], D[n * n * KS], g[n * ND * KS], c[KS],
         J[n * ND * KS], J1[n * ND], big = 0.0;
     mcd_workspace *ws = NULL;
-    size_t i, k;
-    tied7_dij(Dc);
+    size_t i, j, k, q = 0;
+    for (i = 0; i < n; i++) {
+        Dc[i * n + i] = 1e-5; /* not read */
+        for (j = i + 1; j < n; j++, q++)
+            Dc[i * n + j] = Dc[j * n + i] = Du[q];
+    }
     for (k = 0; k < KS; k++) {
         c[k] = 40.0;
         cell_put(n, KS, k, xs, Dc, gs, x, D, g);
@@ -768,175 +719,6 @@ START_TEST(tied_scarce_species_among_seven)
 }
 END_TEST
 
-/* n_dim 1 and 2 take the grounded form too, in both calls, from 2 to 10
- * species (the batched kernel's stage_ground_any through ground_fixed,
- * block_nn_dd). A direction's fluxes depend on that direction's
- * gradients only, so a call in nd directions on the first nd columns of
- * the 3-direction gradients must give the first nd columns of the
- * 3-direction fluxes: here those of the long-double reference on random
- * states (x over 12 decades, Đ over 6: the hardest case above; accepted
- * ACCURACY of the largest flux) and those of the exact seven-species
- * tied state of tied_scarce_species_among_seven (1e-13 as there). Before
- * this form the batched call took the scaled one at nd = 1, 2: off by up
- * to 2.2e-11 on these random states and by 0.022 on the tied state
- * (measured at 7563397). */
-static void first_columns(size_t n, size_t nd, const double *g3, double *g)
-{
-    size_t i, d;
-    for (i = 0; i < n; i++)
-        for (d = 0; d < nd; d++)
-            g[i * nd + d] = g3[i * ND + d];
-}
-
-static void with_trace_species(size_t n, double *x)
-{
-    size_t i, nt = n > 2 && sup_u01(&rng) < 0.5 ? 2 : 1;
-    double sum = 0.0;
-    while (nt-- > 0)
-        x[(size_t)(sup_u01(&rng) * (double)n) % n] = 0.0;
-    for (i = 0; i < n; i++)
-        sum += x[i];
-    if (!(sum > 0.0)) /* every species zeroed (n = 2): one back */
-        x[0] = sum = 1.0;
-    for (i = 0; i < n; i++)
-        x[i] /= sum;
-}
-
-/* Both calls on KR random states of n species in nd directions (x over
- * 12 decades, Đ over 6; with trace, one or two trace species a cell,
- * with_trace_species) against the first nd columns of the long-double
- * reference: ACCURACY of the largest flux where long double is wider. */
-static void check_random_nd(mcd_workspace *ws, size_t n, size_t nd, int trace,
-                            const char *what)
-{
-    enum { KR = 128 };
-    const int check = extended_precision();
-    double *x = malloc(NMAX * KR * sizeof(double)),
-           *D = malloc(NMAX * NMAX * KR * sizeof(double)),
-           *g = malloc(NMAX * ND * KR * sizeof(double)),
-           *c = malloc(KR * sizeof(double)),
-           *J = malloc(NMAX * ND * KR * sizeof(double)), worst = 0.0,
-           worst1 = 0.0;
-    long double(*Jr)[NMAX * ND] = malloc(KR * sizeof *Jr);
-    size_t i, k, d;
-    ck_assert(x && D && g && c && J && Jr);
-    for (k = 0; k < KR; k++) {
-        double xs[NMAX], Dc[NMAX * NMAX], g3[NMAX * ND], gc[NMAX * ND];
-        random_state(n, 12.0, 6.0, xs, Dc, g3, &c[k]);
-        if (trace)
-            with_trace_species(n, xs);
-        reference(n, xs, Dc, g3, c[k], Jr[k]);
-        first_columns(n, nd, g3, gc);
-        cell_put_nd(n, nd, KR, k, xs, Dc, gc, x, D, g);
-    }
-    ck_assert_msg(batch_call_nd(ws, n, nd, KR, x, D, g, c, J) == MCD_OK, "%s",
-                  mcd_last_error());
-    for (k = 0; k < KR; k++) {
-        double xs[NMAX], Dc[NMAX * NMAX], gc[NMAX * ND], J1[NMAX * ND],
-            big = 0.0, e = 0.0, e1 = 0.0;
-        cell_get_nd(n, nd, KR, k, x, D, g, xs, Dc, gc);
-        ck_assert_int_eq(single_call_nd(ws, n, nd, xs, Dc, gc, c[k], J1),
-                         MCD_OK);
-        for (i = 0; i < n; i++)
-            for (d = 0; d < nd; d++)
-                if (fabsl(Jr[k][i * ND + d]) > big)
-                    big = (double)fabsl(Jr[k][i * ND + d]);
-        for (i = 0; i < n; i++)
-            for (d = 0; d < nd; d++) {
-                const long double r = Jr[k][i * ND + d];
-                const double t = (double)fabsl(J[(i * nd + d) * KR + k] - r) /
-                                 big,
-                             t1 = (double)fabsl(J1[i * nd + d] - r) / big;
-                e = t > e ? t : e;
-                e1 = t1 > e1 ? t1 : e1;
-            }
-        ck_assert_msg(!check || e <= ACCURACY,
-                      "%s, n_dim %zu, N = %zu, cell %zu: batched error %.3g",
-                      what, nd, n, k, e);
-        ck_assert_msg(!check || e1 <= ACCURACY,
-                      "%s, n_dim %zu, N = %zu, cell %zu: single-state error "
-                      "%.3g",
-                      what, nd, n, k, e1);
-        worst = e > worst ? e : worst;
-        worst1 = e1 > worst1 ? e1 : worst1;
-    }
-    printf("%s, n_dim %zu, N=%zu, %d cells: largest error %.2g "
-           "(single-state call %.2g)\n",
-           what, nd, n, (int)KR, worst, worst1);
-    free(x), free(D), free(g), free(c), free(J), free(Jr);
-}
-
-START_TEST(fewer_directions_take_the_grounded_form_too)
-{
-    double *x = malloc(N7 * 8 * sizeof(double)),
-           *D = malloc(N7 * N7 * 8 * sizeof(double)),
-           *g = malloc(N7 * ND * 8 * sizeof(double)),
-           *c = malloc(8 * sizeof(double)),
-           *J = malloc(N7 * ND * 8 * sizeof(double));
-    mcd_workspace *ws = NULL;
-    size_t n, nd, i, k;
-    ck_assert(x && D && g && c && J);
-    ck_assert_int_eq(mcd_workspace_new(NMAX, &ws), MCD_OK);
-    for (nd = 1; nd <= 2; nd++) {
-        for (n = 2; n <= NMAX; n++)
-            check_random_nd(ws, n, nd, 0, "fewer directions");
-        /* the exact tied state, in a full block of 8 and alone */
-        {
-            double Dc[N7 * N7], gc[N7 * ND], J1[N7 * ND], je[N7 * ND],
-                big = 0.0;
-            tied7_dij(Dc);
-            first_columns(N7, nd, g7, gc);
-            first_columns(N7, nd, je7, je);
-            for (i = 0; i < N7 * nd; i++)
-                big = fabs(je[i]) > big ? fabs(je[i]) : big;
-            for (k = 0; k < 8; k++) {
-                c[k] = 40.0;
-                cell_put_nd(N7, nd, 8, k, x7, Dc, gc, x, D, g);
-            }
-            ck_assert_int_eq(batch_call_nd(ws, N7, nd, 8, x, D, g, c, J),
-                             MCD_OK);
-            for (k = 0; k < 8; k++)
-                assert_near_exact(N7 * nd, J + k, 8, je, big,
-                                  "batched call, fewer directions", nd);
-            ck_assert_int_eq(batch_call_nd(ws, N7, nd, 1, x7, Dc, gc, c, J1),
-                             MCD_OK);
-            assert_near_exact(N7 * nd, J1, 1, je, big,
-                              "batched call on one cell, fewer directions", nd);
-            ck_assert_int_eq(single_call_nd(ws, N7, nd, x7, Dc, gc, 40.0, J1),
-                             MCD_OK);
-            assert_near_exact(N7 * nd, J1, 1, je, big,
-                              "single-state call, fewer directions", nd);
-        }
-    }
-    mcd_workspace_free(ws);
-    free(x), free(D), free(g), free(c), free(J);
-}
-END_TEST
-
-/* Trace species (x_i = 0) take the grounded form too, 2 to 10 species:
- * their fluxes from Blanc's law, J_t = -c d_t / S_t, and their coupling to
- * the others in the right-hand side, as in the scaled form (stage_trace),
- * then the species present grounded (stage_ground_any with its trace rows
- * as the grounded species' row). Random states as in the first test (x
- * over 12 decades, Đ over 6) with one or two trace species per cell at
- * random places, n_dim 3 and 1, in blocks where every lane has one;
- * accepted: ACCURACY of the largest flux against the long-double
- * reference. The scaled form reached 2.6e-11 here (N = 8, measured at
- * 91d6b30). */
-
-START_TEST(trace_species_in_the_grounded_form)
-{
-    mcd_workspace *ws = NULL;
-    size_t n;
-    ck_assert_int_eq(mcd_workspace_new(NMAX, &ws), MCD_OK);
-    for (n = 2; n <= NMAX; n++) {
-        check_random_nd(ws, n, 3, 1, "trace species");
-        check_random_nd(ws, n, 1, 1, "trace species");
-    }
-    mcd_workspace_free(ws);
-}
-END_TEST
-
 int main(void)
 {
     Suite *s = suite_create("ground");
@@ -946,8 +728,6 @@ int main(void)
     tcase_add_test(tc, tightly_tied_scarce_species);
     tcase_add_test(tc, tied_scarce_species_among_seven);
     tcase_add_test(tc, last_block_matches_full_blocks);
-    tcase_add_test(tc, fewer_directions_take_the_grounded_form_too);
-    tcase_add_test(tc, trace_species_in_the_grounded_form);
     suite_add_tcase(s, tc);
     return sup_run(s);
 }

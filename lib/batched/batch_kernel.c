@@ -36,9 +36,7 @@
  * elimination without subtraction (Grassmann, Taksar and Heyman), no square
  * roots; a block with a trace species takes the scaled form. From 6 to
  * 10 species the same, with n unknowns and the grounded species of each
- * lane left where it lies (stage_ground_any). With n_dim 1 or 2
- * (block_nn_dd, n known at run time) blocks of 2 to 10 species take
- * stage_ground_any, one block at a time (pairs are for n_dim 3).
+ * lane left where it lies (stage_ground_any).
  *
  * Factorisation (exact model): LDL^T without pivoting and without square
  * roots, left-looking, packed lower triangle, vectorised across the L
@@ -149,16 +147,15 @@ static void report_bad_cell(mcdi_bres *res)
  * anything is stored (the scaled form then). */
 KINLINE int ground_out(const mcdi_bjob *jb, const mcdi_kblock *b, size_t k0,
                        size_t nv, mcdi_bres *res, const size_t n,
-                       const size_t L, const size_t nd, double *nts,
-                       const int ntr)
+                       const size_t L, const size_t nd, double *nts)
 {
     const int mass_out = jb->flux_basis == MCD_BASIS_MASS;
     if (nv == L && !mass_out)
         return emit_mole_v(n, nd, (const mcdi_vd *)b->x, (const mcdi_vd *)b->x,
-                           (const mcdi_vd *)b->r, (const mcdi_vd *)b->t, ntr,
+                           (const mcdi_vd *)b->r, (const mcdi_vd *)b->t, 0,
                            *(const mcdi_vd *)b->c, (mcdi_vd *)b->J, jb, k0,
                            nts);
-    if (!stage_ground_fluxes(b, n, nd, ntr))
+    if (!stage_ground_fluxes(b, n, nd))
         return 0;
     if (!mass_out || stage_mass(jb, b, nv, res, n, L, nd))
         stage_store(jb, b, k0, nv, res, n, L, nd);
@@ -237,18 +234,18 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
         CUT(7);
         CUT(8);
         CUT(9);
-        if (ok && ground_out(jb, &b, k0, nv, res, n, L, nd, nts, 0))
+        if (ok && ground_out(jb, &b, k0, nv, res, n, L, nd, nts))
             return;
     } else if (L == MCDI_VLANES && model == MCD_MODEL_MAXWELL_STEFAN) {
         /* the same from 6 to 10 species (kernel_ldl.h, ground_fixed:
          * -1 where it does not run) */
         int got;
         CUT(6);
-        got = ground_fixed(&b, n, nd, 0);
+        got = ground_fixed(&b, n, nd);
         CUT(7);
         CUT(8);
         CUT(9);
-        if (got > 0 && ground_out(jb, &b, k0, nv, res, n, L, nd, nts, 0))
+        if (got > 0 && ground_out(jb, &b, k0, nv, res, n, L, nd, nts))
             return;
     }
     stage_blanc(jb, &b, pl, n, L);
@@ -259,16 +256,6 @@ KINLINE void body(const mcdi_bjob *jb, size_t k0, size_t nv, double *mem,
     } else {
         int wkr, ntr;
         ntr = stage_trace(jb, &b, pl, n, L, nd, &wkr);
-        if (ntr && n >= MCDI_MS_GTH_TRACE_N && L == MCDI_VLANES &&
-            model == MCD_MODEL_MAXWELL_STEFAN) {
-            /* trace species: their fluxes (t) and their coupling to the
-             * others (in d) as the scaled form has them; the species
-             * present in the grounded form (ground_fixed, 2 to 10
-             * species), else the scaled form from here */
-            const int got = ground_fixed(&b, n, nd, 1);
-            if (got > 0 && ground_out(jb, &b, k0, nv, res, n, L, nd, nts, 1))
-                return;
-        }
         CUT(7);
         stage_rhs(&b, n, L, nd, wkr);
         CUT(8);
@@ -355,9 +342,8 @@ KINLINE int body2(const mcdi_bjob *jb, size_t k0, double *mem, const size_t n,
         if (gp2 != 0)
             ok2 = gp2 == 1 ? stage_ground_gth(&b2, n, nd, kg2, 0)
                            : stage_ground_gth(&b2, n, nd, kg2, 1);
-        if (ok1 != ok2 || (n >= MCDI_MS_GTH_TRACE_N && (gp1 == 0 || gp2 == 0)))
-            return 5; /* one of each, or trace species (their grounded form
-                       * is body()'s): body() on each, as alone */
+        if (ok1 != ok2)
+            return 5; /* one of each: body() on each, as alone */
         if (ok1) {
             if (!emit_mole_v(n, nd, (const mcdi_vd *)b1.x,
                              (const mcdi_vd *)b1.x, (const mcdi_vd *)b1.r,
@@ -407,10 +393,8 @@ KINLINE size_t run_blocks(const mcdi_bjob *jb, size_t kb, size_t ke,
 {
     double err = 0.0;
     size_t used = 0, k0 = kb;
-    /* pairs: n_dim 3 only (the other n_dim take the grounded form in
-     * body(), which body2 solves for n_dim 3 only) */
-    if (L == MCDI_VLANES && nd == 3 && n >= 2 && n <= MCDI_PAIR_NMAX &&
-        jb->mix == NULL && jb->model == MCD_MODEL_MAXWELL_STEFAN &&
+    if (L == MCDI_VLANES && n >= 2 && n <= MCDI_PAIR_NMAX && jb->mix == NULL &&
+        jb->model == MCD_MODEL_MAXWELL_STEFAN &&
         jb->flux_basis == MCD_BASIS_MOLE && jb->cut == 0)
         for (; k0 + 2 * L <= ke; k0 += 2 * L) {
             mcdi_bres r = {MCD_OK, 0, "", 0, 0.0, 0};

@@ -269,8 +269,7 @@ KINLINE int stage_exact(const mcdi_kblock *b, const size_t n, const size_t L,
 }
 
 /* The grounded form, for blocks of the exact model (Đ per cell or a
- * mixture), n_dim = 3 and 2 <= n <= MCDI_GROUND_NMAX (n_dim 1 and 2:
- * stage_ground_any, below), where every species
+ * mixture), n_dim = 3 and 2 <= n <= MCDI_GROUND_NMAX, where every species
  * is present in every lane. With u_i = J_i / (c x_i) the Maxwell-Stefan
  * equations are the graph Laplacian system
  *     sum_j x_i x_j (u_j - u_i) / Đ_ij = d_i,
@@ -507,16 +506,12 @@ KINLINE int stage_ground_gth(const mcdi_kblock *b, const size_t n,
  * order, with the updates gathered column by column (below). n <=
  * GROUND_ANY_MAX and n_dim <= 3, constants at each call (ground_fixed): the
  * matrix and the vectors are locals. Reads x, d and 1/Đ (tri, left as it is)
- * and writes u to r. With wt, trace species (x_i = 0) are taken after
- * stage_blanc and stage_trace: their fluxes in t and their coupling in d
- * (the scaled form's own), their rows as g's (pivot 1, right-hand side 0,
- * u_i = 0), their Blanc sums S_i under the range rule; ground_out then
- * composes with t. Returns 0 (the scaled form then) if some lane has a
- * trace species (without wt), breaks the range rule of stage_ground_gth
- * or has a pivot that is not > 0. */
+ * and writes u to r. Returns 0 (the scaled form then) if some lane has a
+ * trace species, breaks the range rule of stage_ground_gth or has a pivot
+ * that is not > 0. */
 #define GROUND_ANY_MAX 10
 KINLINE int stage_ground_any(const mcdi_kblock *b, const size_t n,
-                             const size_t nd, const int wt)
+                             const size_t nd)
 {
     const mcdi_vd *restrict tri = (const mcdi_vd *)(const void *)b->tri;
     const mcdi_vd *restrict x = (const mcdi_vd *)(const void *)b->x;
@@ -528,8 +523,7 @@ KINLINE int stage_ground_any(const mcdi_kblock *b, const size_t n,
         rsum[GROUND_ANY_MAX], ip[GROUND_ANY_MAX], lk[GROUND_ANY_MAX],
         f[GROUND_ANY_MAX * 3];
     mcdi_vd best = x[0], gv = zero; /* g of each lane, as a double */
-    mcdi_vl gm[GROUND_ANY_MAX], tm[GROUND_ANY_MAX], trace = ~(x[0] > zero),
-                                                    ok = zero == zero;
+    mcdi_vl gm[GROUND_ANY_MAX], trace = ~(x[0] > zero), ok = zero == zero;
     size_t i, j, k, q, dd;
     LDL_UNROLL
     for (i = 1; i < n; i++) {
@@ -538,16 +532,11 @@ KINLINE int stage_ground_any(const mcdi_kblock *b, const size_t n,
         best = max_v(x[i], best);
         gv = pick_v(ge, zero + (double)i, gv);
     }
-    if (!wt && any_lane_v(trace))
+    if (any_lane_v(trace))
         return 0;
     LDL_UNROLL
     for (i = 0; i < n; i++) {
         gm[i] = gv == (double)i;
-        /* with wt: trace species as g, a pivot 1 and a zero right-hand
-         * side (u_i = 0); their fluxes are in t */
-        tm[i] = gm[i];
-        if (wt)
-            tm[i] |= ~(x[i] > zero);
         rsum[i] = e[i] = zero;
     }
     /* the ties w_ij = x_i (x_j / Đ_ij) (x_j / Đ first: x_i x_j can
@@ -566,23 +555,16 @@ KINLINE int stage_ground_any(const mcdi_kblock *b, const size_t n,
         }
     }
     LDL_UNROLL
-    for (i = 0; i < n; i++) {
-        mcdi_vl good = (rsum[i] >= MCDI_GROUND_AMIN) &
-                       (rsum[i] <= MCDI_GROUND_SMAX * x[i]);
-        if (wt) { /* a trace species: its Blanc sum S_i in the range */
-            const mcdi_vd Si = ((const mcdi_vd *)(const void *)b->S)[i];
-            good |= ~(x[i] > zero) & (Si >= MCDI_GROUND_AMIN) &
-                    (Si <= MCDI_GROUND_SMAX);
-        }
-        ok &= good;
-    }
+    for (i = 0; i < n; i++)
+        ok &= (rsum[i] >= MCDI_GROUND_AMIN) &
+              (rsum[i] <= MCDI_GROUND_SMAX * x[i]);
     if (any_lane_v(~ok))
         return 0;
     LDL_UNROLL
     for (i = 0; i < n; i++) {
         LDL_UNROLL
         for (dd = 0; dd < nd; dd++)
-            f[i * nd + dd] = pick_v(tm[i], zero, -d[i * nd + dd]);
+            f[i * nd + dd] = pick_v(gm[i], zero, -d[i * nd + dd]);
     }
     /* column by column (left-looking): at step k, row k's multipliers
      * l_kq = W_kq / p_q (q < k, into lk), then e_k, f_k and column k of
@@ -623,7 +605,7 @@ KINLINE int stage_ground_any(const mcdi_kblock *b, const size_t n,
         LDL_UNROLL
         for (q = 0; q < k; q++)
             W[k * (k + 1) / 2 + q] = lk[q]; /* row k of L now */
-        p = pick_v(tm[k], one, p);
+        p = pick_v(gm[k], one, p);
         ok &= p > zero;
         ip[k] = 1.0 / p;
     }
@@ -632,7 +614,7 @@ KINLINE int stage_ground_any(const mcdi_kblock *b, const size_t n,
     /* u_i = f_i / p_i + sum_{k > i} l_ki u_k (row k of W holds l_kq) */
     LDL_UNROLL
     for (i = n; i-- > 0;) {
-        mcdi_vd t[3] = {zero, zero, zero}; /* nd <= 3 */
+        mcdi_vd t[3];
         LDL_UNROLL
         for (dd = 0; dd < nd; dd++)
             t[dd] = f[i * nd + dd] * ip[i];
@@ -659,51 +641,20 @@ KINLINE int stage_ground_any(const mcdi_kblock *b, const size_t n,
  * at 10, but 0.89x at 12 and 16 (its matrix no longer fits the
  * registers), hence 10. Its loops with n known only at run time, or with
  * the matrix in tri, ran 2-2.5x the time of the scaled form's stages at N
- * = 10 (66-77 against 28 ns a cell, bench_stages). With n_dim 1 or 2
- * (n_dim known at run time there, block_nn_dd) from 2 species: the form
- * then agrees with mcd_flux_compute's at every n_dim (tests/test_ground.c,
- * fewer_directions_take_the_grounded_form_too), and ran 1.02-1.31x
- * faster than the scaled form (N = 3 to 10, in cache). With wt (a run
- * time flag), blocks with trace species (stage_ground_any), from 4
- * species (MCDI_MS_GTH_TRACE_N). One out-of-line function per kernel
- * (noinline, noclone), so that each case is compiled once, not at every
- * call site of every block instance: inlined there, the cases took the
- * kernel's compile from 44-90 s to 95-158 s (v1 to v4). Returns -1
- * (nothing done) where no instance covers n and n_dim: the scaled form
- * then. */
-#if defined(__GNUC__) && !defined(__clang__)
-#define GROUND_CALL static __attribute__((noinline, noclone))
-#else
-#define GROUND_CALL static __attribute__((noinline))
-#endif
-GROUND_CALL int ground_fixed(const mcdi_kblock *b, const size_t n,
-                             const size_t nd, const int wt)
+ * = 10 (66-77 against 28 ns a cell, bench_stages). Returns -1 (nothing
+ * done) where no instance covers n and n_dim: the scaled form then. */
+KINLINE int ground_fixed(const mcdi_kblock *b, const size_t n, const size_t nd)
 {
-#define GROUND_CASE(nn, ndd)                                                   \
-    case nn: return stage_ground_any(b, nn, ndd, wt);
+#define GROUND_CASE(nn)                                                        \
+    case nn: return stage_ground_any(b, nn, 3);
     _Static_assert(GROUND_ANY_MAX == 10, "the cases below go to 10");
     if (nd == 3)
         switch (n) {
-            GROUND_CASE(4, 3) /* 4 and 5: blocks with trace species */
-            GROUND_CASE(5, 3)
-            GROUND_CASE(6, 3)
-            GROUND_CASE(7, 3)
-            GROUND_CASE(8, 3)
-            GROUND_CASE(9, 3)
-            GROUND_CASE(10, 3)
-        default: break;
-        }
-    else /* n_dim 1 and 2: from 2 species */
-        switch (n) {
-            GROUND_CASE(2, nd)
-            GROUND_CASE(3, nd)
-            GROUND_CASE(4, nd)
-            GROUND_CASE(5, nd)
-            GROUND_CASE(6, nd)
-            GROUND_CASE(7, nd)
-            GROUND_CASE(8, nd)
-            GROUND_CASE(9, nd)
-            GROUND_CASE(10, nd)
+            GROUND_CASE(6)
+            GROUND_CASE(7)
+            GROUND_CASE(8)
+            GROUND_CASE(9)
+            GROUND_CASE(10)
         default: break;
         }
 #undef GROUND_CASE
@@ -717,12 +668,11 @@ GROUND_CALL int ground_fixed(const mcdi_kblock *b, const size_t n,
  * cell gets the same fluxes in a full block and in the last one. Returns 0
  * if some flux is not finite (the scaled form then, as after the emit). */
 KINLINE int stage_ground_fluxes(const mcdi_kblock *b, const size_t n,
-                                const size_t nd, const int ntr)
+                                const size_t nd)
 {
     const mcdi_vd *x = (const mcdi_vd *)(const void *)b->x;
     return compose_clean_v(n, nd, x, x, (const mcdi_vd *)(const void *)b->r,
-                           (const mcdi_vd *)(const void *)b->t, ntr,
-                           *(const mcdi_vd *)(const void *)b->c,
+                           NULL, 0, *(const mcdi_vd *)(const void *)b->c,
                            (mcdi_vd *)(void *)b->J);
 }
 

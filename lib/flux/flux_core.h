@@ -65,31 +65,18 @@ MCDI_MS_ROWS_DECL(mcdi_ms_rows_v1);
 typedef MCDI_MS_ROWS_DECL((*mcdi_ms_rows_fn));
 mcdi_ms_rows_fn mcdi_ms_rows_select(void);
 
-/* The exact model for m >= 2 species, all present (xp > 0) or, up to 10
- * species (MCDI_MS_GTH_ANY_N), some trace (xp = 0; Yt then distinct from
- * dp), and at most MCDI_MS_FUSED_N of them (up to 10 in the grounded form
- * first, ms_ldl.c fused_gth and fused_gth_any): the same equations and the
- * same L D L^T as
+/* The exact model for m >= 2 species, all present (xp > 0), and at most
+ * MCDI_MS_FUSED_N of them (up to 5 in the grounded form first, ms_ldl.c
+ * fused_gth): the same equations and the same L D L^T as
  * mcdi_ms_rows with the Blanc sums, shift, assembly and right-hand side
  * fused into a few passes (the stages' separate passes cost 4-8 % of a
  * call at N = 3..20, measured). Đ: upper triangle of Dp (row stride ld);
  * dp: driving forces (m x nd row-major, summing to zero); fluxes c s U
  * into Y (m x nd), distinct from dp. Scratch: A (m*m), T (m(m-1)/2: 1/Đ
  * packed), sq, isq, S, dinv (m each), Yt (m*nd; may be dp). Returns 0,
- * or k+1 when pivot k is not positive, or MCDI_MS_DECLINED for a state
- * with trace species the grounded form did not take (the one-lane stages,
- * mcdi_ms_rows, then). One definition per instruction set (ms_ldl.c). */
+ * or k+1 when pivot k is not positive. One definition per instruction
+ * set (ms_ldl.c). */
 #define MCDI_MS_FUSED_N 32
-#define MCDI_MS_DECLINED ((size_t)-1)
-/* the grounded form's reach in mcdi_ms_ldl (fused_gth_any, ms_ldl.c),
- * and from how many species it takes states with trace species: with 2
- * or 3 species (one or two present) the scaled form is as accurate there
- * (5.7e-16 against the long double solve with Đ over 6 decades, measured)
- * and faster (N = 3, the single-state call: 107 against 133 ns a state).
- * The batched kernel uses the same bound (there it also keeps such blocks
- * on the two-block path, body2). */
-#define MCDI_MS_GTH_ANY_N 10
-#define MCDI_MS_GTH_TRACE_N 4
 #define MCDI_MS_LDL_DECL(name)                                                 \
     size_t name(size_t m, size_t nd, const double *xp, const double *Dp,       \
                 size_t ld, const double *dp, double c, double *A, double *T,   \

@@ -238,13 +238,12 @@ static mcd_status solve_state(mcd_workspace *ws, const mcdi_flux_view *v,
                               mcd_model model, size_t n, size_t nd,
                               const double *Dij, double c)
 {
-    size_t bad = MCDI_MS_DECLINED;
-    /* trace species: the grounded form up to MCDI_MS_GTH_ANY_N species */
+    size_t bad;
     if (model == MCD_MODEL_MAXWELL_STEFAN && n <= MCDI_MS_FUSED_N &&
-        (n <= MCDI_MS_GTH_ANY_N || all_present(n, v->x)))
+        all_present(n, v->x)) {
         bad = mcdi_ms_ldl_select()(n, nd, v->x, Dij, n, v->d, c, v->A, v->tri,
                                    v->s, v->isq, v->S, v->dinv, v->J, v->Yt);
-    if (bad == MCDI_MS_DECLINED) {
+    } else {
         /* no Dg, iDg: the one-lane exact solve keeps its pivots in D */
         const mcdi_rows R = {v->tri, v->x,  v->s, v->S, v->num, v->minv, NULL,
                              NULL,   v->wk, v->d, v->t, v->r,   v->J,    &c};

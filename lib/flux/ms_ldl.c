@@ -491,41 +491,6 @@ MINLINE int fused_gth(size_t m, const size_t nd, const double *xp,
     return chk == 0.0; /* NaN if some flux is not finite */
 }
 
-/* Trace species (x_t = 0) for fused_gth_any, as the batched kernel's
- * stage_trace and stage_ground_any: their fluxes over c by Blanc's law,
- * jt_t = -d_t / S_t with S_t = sum_j x_j / Đ_tj (the range rule of
- * fused_gth on S_t), 0 for the species present, into jt (m x nd); their
- * coupling to the species present moved to the right-hand side, y_k +=
- * x_k sum_t jt_t / Đ_kt (y = -d), but for the grounded species g, whose
- * equation is left out (the others' still sum to zero). Returns 0 (the
- * scaled form then) if some S_t breaks the range rule. */
-static int gth_trace(size_t m, size_t nd, size_t g, const double *xp,
-                     const double *Dp, size_t ld, const double *dp, double *jt,
-                     double *Y)
-{
-    size_t t, j, dd;
-    for (t = 0; t < m * nd; t++)
-        jt[t] = 0.0;
-    for (t = 0; t < m; t++) {
-        double S = 0.0;
-        if (xp[t] > 0.0)
-            continue;
-        for (j = 0; j < m; j++)
-            if (j != t)
-                S += xp[j] / (j < t ? Dp[j * ld + t] : Dp[t * ld + j]);
-        if (!(S >= 0x1p-960 && S <= 0x1p960))
-            return 0;
-        for (dd = 0; dd < nd; dd++)
-            jt[t * nd + dd] = -dp[t * nd + dd] / S;
-        for (j = 0; j < m; j++)
-            if (xp[j] > 0.0 && j != g)
-                for (dd = 0; dd < nd; dd++)
-                    Y[j * nd + dd] += xp[j] * jt[t * nd + dd] /
-                                      (j < t ? Dp[j * ld + t] : Dp[t * ld + j]);
-    }
-    return 1;
-}
-
 /* The grounded form from MCDI_MS_GTH_N + 1 to MCDI_MS_GTH_ANY_N species,
  * as the batched kernel's stage_ground_any (lib/batched/kernel_ldl.h):
  * the most abundant species g (the last one on ties) stays where it is,
@@ -551,20 +516,19 @@ static int gth_trace(size_t m, size_t nd, size_t g, const double *xp,
  * of the divisions here, one helper for the two three-direction sums
  * below (5-8 % slower: the back substitution then took the newest
  * unknown first, and the forward one a multiply by 1). */
+#ifndef MCDI_MS_GTH_ANY_N
+#define MCDI_MS_GTH_ANY_N 10
+#endif
 MINLINE int fused_gth_any(size_t m, const size_t nd, const double *xp,
                           const double *Dp, size_t ld, const double *dp,
                           double c, double *A, double *e, double *rs,
-                          double *lk, double *dinv, double *jt, double *Y)
+                          double *lk, double *dinv, double *Y)
 {
     size_t g = 0, i, j, k, q, dd;
     double chk = 0.0;
-    int ntr = 0;
     for (i = 0; i < m; i++) {
-        if (!(xp[i] > 0.0)) {
-            if (!(xp[i] == 0.0))
-                return 0;
-            ntr = 1;
-        }
+        if (!(xp[i] > 0.0))
+            return 0;
         if (xp[i] >= xp[g])
             g = i;
         e[i] = rs[i] = 0.0;
@@ -580,7 +544,7 @@ MINLINE int fused_gth_any(size_t m, const size_t nd, const double *xp,
         }
     }
     for (i = 0; i < m; i++)
-        if (xp[i] > 0.0 && !(rs[i] >= 0x1p-960 && rs[i] <= 0x1p960 * xp[i]))
+        if (!(rs[i] >= 0x1p-960 && rs[i] <= 0x1p960 * xp[i]))
             return 0;
     for (j = 0; j < g; j++) { /* g's ties into e, out of the matrix */
         e[j] = A[g * m + j];
@@ -592,9 +556,7 @@ MINLINE int fused_gth_any(size_t m, const size_t nd, const double *xp,
     }
     for (i = 0; i < m; i++)
         for (dd = 0; dd < nd; dd++)
-            Y[i * nd + dd] = i == g || !(xp[i] > 0.0) ? 0.0 : -dp[i * nd + dd];
-    if (ntr && !gth_trace(m, nd, g, xp, Dp, ld, dp, jt, Y))
-        return 0;
+            Y[i * nd + dd] = i == g ? 0.0 : -dp[i * nd + dd];
     for (k = 0; k < m; k++) {
         double *Ak = A + k * m, ek = e[k], p;
         for (q = 0; q < k; q++) {
@@ -630,8 +592,8 @@ MINLINE int fused_gth_any(size_t m, const size_t nd, const double *xp,
             p += t;
         }
         for (q = 0; q < k; q++)
-            Ak[q] = lk[q];            /* row k of L now */
-        if (k == g || !(xp[k] > 0.0)) /* grounded, or trace (u = 0) */
+            Ak[q] = lk[q]; /* row k of L now */
+        if (k == g)
             p = 1.0;
         if (!(p > 0.0 && p <= DBL_MAX))
             return 0;
@@ -661,7 +623,7 @@ MINLINE int fused_gth_any(size_t m, const size_t nd, const double *xp,
         }
     }
     for (i = 0; i < m * nd; i++) {
-        const double q2 = c * (xp[i / nd] * Y[i]) + (ntr ? c * jt[i] : 0.0);
+        const double q2 = c * (xp[i / nd] * Y[i]);
         Y[i] = q2;
         chk += q2 * 0.0;
     }
@@ -692,20 +654,12 @@ MINLINE size_t fused_ldl(size_t m, const size_t nd, const double *xp,
     double a = 0.0;
     size_t i, j, k, dd;
 
-    int tr = 0; /* some species trace */
-    for (i = 0; i < m; i++)
-        tr |= !(xp[i] > 0.0);
-    if (!tr && m <= MCDI_MS_GTH_N &&
+    if (m <= MCDI_MS_GTH_N &&
         fused_gth(m, nd, xp, Dp, ld, dp, c, A, S, dinv, Y))
         return 0;
-    /* 6 to 10 species; with trace species from MCDI_MS_GTH_TRACE_N (below
-     * it the one-lane stages are as accurate and faster) */
-    if ((m > MCDI_MS_GTH_N || (tr && m >= MCDI_MS_GTH_TRACE_N)) &&
-        m <= MCDI_MS_GTH_ANY_N &&
-        fused_gth_any(m, nd, xp, Dp, ld, dp, c, A, S, sq, isq, dinv, Yt, Y))
+    if (m > MCDI_MS_GTH_N && m <= MCDI_MS_GTH_ANY_N &&
+        fused_gth_any(m, nd, xp, Dp, ld, dp, c, A, S, sq, isq, dinv, Y))
         return 0;
-    if (tr)
-        return MCDI_MS_DECLINED; /* the one-lane stages then */
     /* vectorised: at m = 10 the divider is the bottleneck of the assembly
      * (square roots, reciprocals); +8 % of this routine, measured */
     SIMD_LOOP
